@@ -1,0 +1,3 @@
+from deckload.cli import main
+
+raise SystemExit(main())

@@ -1,0 +1,107 @@
+"""Command line: argument parsing; reads files, builds finished objects, hands them on.
+
+Each sub-command's work lives in the module named beside it; imports are lazy so
+that ``deckload calc`` does not pay for textual and the screen does not pay for
+the report writer.
+"""
+
+from __future__ import annotations
+
+import argparse
+import sys
+from pathlib import Path
+
+
+def _parser() -> argparse.ArgumentParser:
+    p = argparse.ArgumentParser(
+        prog="deckload",
+        description=(
+            "Loading and intact-stability calculator. It supports, and never replaces, the "
+            "approved stability booklet, the master's judgement and flag-state/class rules."
+        ),
+    )
+    sub = p.add_subparsers(dest="command")
+
+    o = sub.add_parser("open", help="open the loading screen on a vessel (default: the demo vessel)")
+    o.add_argument("profile", nargs="?", type=Path)
+    o.add_argument("condition", nargs="?", type=Path)
+
+    c = sub.add_parser("calc", help="compute a loading condition and print the result")
+    c.add_argument("profile", type=Path)
+    c.add_argument("condition", type=Path)
+    c.add_argument("--json", action="store_true", help="print one JSON object (SI units)")
+
+    k = sub.add_parser("check", help="validate a vessel profile and, optionally, a loading condition")
+    k.add_argument("profile", type=Path)
+    k.add_argument("condition", nargs="?", type=Path)
+
+    t = sub.add_parser("tables", help="compute hydrostatic, cross-curve and tank tables from hull geometry")
+    t.add_argument("geometry", type=Path)
+    t.add_argument("-o", "--output", type=Path, help="profile to write or refresh (default: print to stdout)")
+
+    r = sub.add_parser("report", help="printable loading-condition report")
+    r.add_argument("profile", type=Path)
+    r.add_argument("condition", type=Path)
+    fmt = r.add_mutually_exclusive_group()
+    fmt.add_argument("--html", action="store_true")
+    fmt.add_argument("--txt", action="store_true")
+    r.add_argument("-o", "--output", type=Path)
+
+    lg = sub.add_parser("log", help="the voyage loading log")
+    lg.add_argument("--dir", type=Path, help="log folder (default: ./logs in a checkout, else per-user)")
+    lsub = lg.add_subparsers(dest="log_command", required=True)
+    rec = lsub.add_parser("record", help="record a loading condition in the log")
+    rec.add_argument("profile", type=Path)
+    rec.add_argument("condition", type=Path)
+    rec.add_argument("--by", required=True, help="initials of the officer recording it")
+    rec.add_argument("--remark", default="")
+    rec.add_argument("--kind", default="condition", help="event kind (default: condition)")
+    show = lsub.add_parser("show", help="print the log")
+    show.add_argument("--vessel", help="vessel name (default: every log in the folder)")
+    exp = lsub.add_parser("export", help="export the log")
+    efmt = exp.add_mutually_exclusive_group(required=True)
+    efmt.add_argument("--csv", action="store_true")
+    efmt.add_argument("--html", action="store_true")
+    exp.add_argument("--vessel")
+    exp.add_argument("-o", "--output", type=Path)
+    ver = lsub.add_parser("verify", help="check the log's hash chain")
+    ver.add_argument("--vessel")
+    return p
+
+
+def main(argv: list[str] | None = None) -> int:
+    args = _parser().parse_args(argv)
+    cmd = args.command or "open"
+    try:
+        if cmd == "open":
+            from deckload.ui.launch import run_open
+
+            return run_open(getattr(args, "profile", None), getattr(args, "condition", None))
+        if cmd == "calc":
+            from deckload.commands import run_calc
+
+            return run_calc(args.profile, args.condition, as_json=args.json)
+        if cmd == "check":
+            from deckload.commands import run_check
+
+            return run_check(args.profile, args.condition)
+        if cmd == "tables":
+            from deckload.tables_command import run_tables
+
+            return run_tables(args.geometry, args.output)
+        if cmd == "report":
+            from deckload.report import run_report
+
+            return run_report(args.profile, args.condition, html=not args.txt, output=args.output)
+        if cmd == "log":
+            from deckload.logbook_command import run_log
+
+            return run_log(args)
+    except KeyboardInterrupt:
+        return 130
+    print(f"deckload: unknown command {cmd!r}", file=sys.stderr)
+    return 2
+
+
+if __name__ == "__main__":
+    raise SystemExit(main())

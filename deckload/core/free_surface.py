@@ -1,0 +1,190 @@
+"""Free-surface moments of slack tanks, and the tank states shown to the watchkeeper.
+
+Physics: when she heels, the liquid in a slack tank flows to the low side and its
+centroid moves.  For small angles the shift of the ship's G is w·d/Δ with
+w·d = ρ·i·sinφ, so she behaves as if G had risen by FSM/Δ, FSM = ρ·i (t·m), with i
+the transverse second moment of the free surface (m⁴) about its own centroid.
+The free-surface correction (the virtual rise of G) is FSC = ΣFSM/Δ, and
+KG_fluid = KG_solid + FSC (standards.md §4.3, textbook).
+
+Which moment each tank contributes follows IS Code 2008 Part B 3.1 under rule
+``is2008``:
+
+* at or above 98 % a tank is nominally full and carries no free surface (B 3.1.2);
+  nominally full *cargo* tanks are corrected at the 98 % level (B 3.1.2, footnote);
+* fixed-level tanks (ballast, cargo) count at their actual level (B 3.1.3);
+* variable-level tanks (consumables) count, when slack, at the largest correction
+  between their filling limits (B 3.1.3);
+* for each kind of consumable liquid, the transverse pair or centreline tank with the
+  greatest effect is assumed slack at its largest correction even if it is full or
+  empty (B 3.1.4);
+* a small tank whose Mfs at 30° over the minimum operating displacement is below
+  0.01 m may be left out (B 3.1.12; the 0.01 m value is from memory, standards.md §4.1).
+
+Rule ``actual`` counts every slack tank at its actual level (B 3.1.6, liquid transfers).
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+import numpy as np
+
+from deckload.core.loading import TankContents
+from deckload.core.model import FluidTransfer, Tank, Vessel
+from deckload.core.tables import bracket
+
+SIN30 = 0.5
+TAN30_SQ = 1.0 / 3.0
+
+#: How a tank's free surface is counted.
+BASIS_NONE = "none"
+BASIS_ACTUAL = "actual"
+BASIS_MAX = "max"
+BASIS_AT_98 = "at98"
+
+
+@dataclass(frozen=True)
+class TankFreeSurface:
+    """One tank's free-surface treatment in a condition."""
+
+    fsm_tm: float
+    """Free-surface moment counted (t·m): ρ·i at the chosen level."""
+    basis: str
+    """BASIS_NONE, BASIS_ACTUAL, BASIS_MAX or BASIS_AT_98: which level the moment is taken at."""
+    rule: str
+    """Why, in words, for the screen and the report."""
+    state: str
+    """'empty', 'slack', 'worst_band' or 'full'."""
+
+
+def tank_state(fill_pct: float, tank: Tank, empty_pct: float, full_pct: float) -> str:
+    """empty / slack / worst_band / full, from the fill and the tank's worst band."""
+    if fill_pct <= empty_pct:
+        return "empty"
+    if fill_pct >= full_pct:
+        return "full"
+    lo, hi = tank.worst_band_pct
+    return "worst_band" if lo <= fill_pct <= hi else "slack"
+
+
+def fsi_at_fill(tank: Tank, fill_pct: float) -> float:
+    """Free-surface inertia (m⁴) at a fill, from the calibration table."""
+    vol = tank.capacity_m3 * fill_pct / 100.0
+    i, f = bracket(tank.table[:, 1], vol, f"volume of tank {tank.id}", "m³")
+    return float(tank.table[i, 5] * (1 - f) + tank.table[i + 1, 5] * f)
+
+
+def mfs30_bound_tm(tank: Tank, density_t_m3: float) -> float:
+    """Upper estimate of the tank's free-surface heeling moment at 30° (t·m).
+
+    From the transfer table where the tank's shape is known; otherwise the
+    wall-sided value ρ·i_max·sin30·(1 + ½tan²30), which is never below the exact
+    box-tank moment at 30° (checks.md §3.2: 18.667 against 18.124 m⁴ at 50 %).
+    """
+    if tank.transfer is not None:
+        return density_t_m3 * float(np.max(transfer_column(tank.transfer, math.radians(30.0))))
+    return density_t_m3 * tank.max_fsi_m4 * SIN30 * (1.0 + 0.5 * TAN30_SQ)
+
+
+def transfer_column(tr: FluidTransfer, heel_rad: float) -> np.ndarray:
+    """M (m⁴) at every tabulated fill for one heel angle (linear in heel)."""
+    h = math.degrees(heel_rad)
+    k, f = bracket(tr.heel_deg, h, "heel for fluid transfer", "deg")
+    return tr.moment_m4[:, k] * (1 - f) + tr.moment_m4[:, k + 1] * f
+
+
+def transfer_moment_m4(tank: Tank, basis: str, fill_pct: float, heel_rad: np.ndarray) -> np.ndarray:
+    """Volumetric transfer moment M(φ) (m⁴) for the tank at the given basis.
+
+    ``actual``: M at the actual fill; ``max``: the largest M over all fills at each
+    angle (the largest correction between filling limits, IS 2008 B 3.1.3);
+    ``at98``: M at 98 %.  Falls back to the small-angle value i·sinφ when the tank
+    has no transfer table.
+    """
+    tr = tank.transfer
+    heel_deg = np.degrees(heel_rad)
+    if tr is None:
+        i = tank.max_fsi_m4 if basis == BASIS_MAX else fsi_at_fill(tank, 98.0 if basis == BASIS_AT_98 else fill_pct)
+        return i * np.sin(heel_rad)
+    if basis == BASIS_MAX:
+        per_heel = tr.moment_m4.max(axis=0)
+    else:
+        fill = 98.0 if basis == BASIS_AT_98 else fill_pct
+        j, f = bracket(tr.fill_pct, fill, f"fill of tank {tank.id}", "%")
+        per_heel = tr.moment_m4[j] * (1 - f) + tr.moment_m4[j + 1] * f
+    return np.interp(heel_deg, tr.heel_deg, per_heel)
+
+
+def _groups_of_kind(tanks: list[Tank]) -> list[tuple[Tank, ...]]:
+    """Transverse pairs and centreline (unpaired) tanks among ``tanks``."""
+    seen: set[str] = set()
+    ids = {t.id: t for t in tanks}
+    groups: list[tuple[Tank, ...]] = []
+    for t in tanks:
+        if t.id in seen:
+            continue
+        partner = ids.get(t.pair) if t.pair else None
+        group = (t, partner) if partner is not None else (t,)
+        seen.update(g.id for g in group)
+        groups.append(group)
+    return groups
+
+
+def free_surface(vessel: Vessel, contents: list[TankContents], rule: str) -> list[TankFreeSurface]:
+    """Free-surface treatment of every tank (in profile order) under ``rule``."""
+    fs = vessel.free_surface
+    full_pct = fs.nominally_full_pct
+    dmin = fs.min_operating_displacement_t or vessel.lightship.mass_t
+    out: list[TankFreeSurface | None] = [None] * len(contents)
+
+    exempt = [False] * len(contents)
+    if rule == "is2008":
+        for k, c in enumerate(contents):
+            exempt[k] = mfs30_bound_tm(c.tank, c.density_t_m3) / dmin < fs.small_tank_limit_m
+
+    # B 3.1.4: per consumable kind, the group with the greatest effect is assumed slack.
+    assumed: dict[str, str] = {}
+    if rule == "is2008":
+        index = {c.tank.id: k for k, c in enumerate(contents)}
+        kinds = sorted({c.tank.kind for c in contents if c.tank.is_consumable})
+        for kind in kinds:
+            cands = [c.tank for k, c in enumerate(contents) if c.tank.kind == kind and not exempt[k]]
+            best, best_m = None, 0.0
+            for group in _groups_of_kind(cands):
+                m = sum(t.max_fsi_m4 * contents[index[t.id]].density_t_m3 for t in group)
+                if m > best_m:
+                    best, best_m = group, m
+            if best:
+                label = "pair" if len(best) == 2 else "centreline tank"
+                for t in best:
+                    assumed[t.id] = f"assumed slack: worst {label} of {kind.replace('_', ' ')} (IS 2008 B 3.1.4)"
+
+    for k, c in enumerate(contents):
+        t = c.tank
+        fill = c.fill_pct
+        state = tank_state(fill, t, fs.empty_pct, full_pct)
+        rho = c.density_t_m3
+        if exempt[k]:
+            out[k] = TankFreeSurface(0.0, BASIS_NONE, "small tank, exempt (IS 2008 B 3.1.12)", state)
+        elif t.id in assumed:
+            out[k] = TankFreeSurface(rho * t.max_fsi_m4, BASIS_MAX, assumed[t.id], state)
+        elif state == "empty":
+            out[k] = TankFreeSurface(0.0, BASIS_NONE, "empty", state)
+        elif state == "full":
+            if t.kind == "cargo_liquid":
+                out[k] = TankFreeSurface(
+                    rho * fsi_at_fill(t, full_pct), BASIS_AT_98,
+                    "nominally full cargo tank, at 98 % (IS 2008 B 3.1.2)", state,
+                )
+            else:
+                out[k] = TankFreeSurface(0.0, BASIS_NONE, "nominally full ≥ 98 % (IS 2008 B 3.1.2)", state)
+        elif rule == "is2008" and t.fs_category == "variable":
+            out[k] = TankFreeSurface(
+                rho * t.max_fsi_m4, BASIS_MAX, "variable level: max between limits (IS 2008 B 3.1.3)", state
+            )
+        else:
+            why = "actual level (IS 2008 B 3.1.3)" if rule == "is2008" else "actual level (IS 2008 B 3.1.6)"
+            out[k] = TankFreeSurface(rho * c.fsi_m4, BASIS_ACTUAL, why, state)
+    return out  # type: ignore[return-value]

@@ -1,0 +1,102 @@
+"""Offset table → section polygons; compartments (tanks, holds) → section polygons.
+
+A hull section is the polygon through the offsets of one station: up the
+starboard side through (half-breadth, waterline) points, across a flat weather
+deck at the station's deck height, and down the port side (counter-clockwise seen
+from aft, y to starboard, z up).  Waterlines above the deck are ignored; the
+half-breadth at the deck is interpolated linearly between the waterlines either
+side of it.  The body is closed at the weather deck: the shell and the weather
+deck are taken as watertight; superstructures, deckhouses, hatch coamings,
+bulwarks and camber are not part of the buoyant body.
+
+Between stations every offset (and the deck height) varies linearly with x.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+
+from deckload.core.geometry.sections import clip_to_box, pad_polygons, polygon_area
+from deckload.core.geometry.spec import CompartmentShape, HullOffsets
+
+
+def section_polygon(waterline_z_m: np.ndarray, half_breadth_m: np.ndarray, deck_z_m: float) -> tuple[np.ndarray, np.ndarray]:
+    """The closed section polygon (y, z) of one station, counter-clockwise."""
+    zw = np.asarray(waterline_z_m, dtype=float)
+    hb = np.asarray(half_breadth_m, dtype=float)
+    below = zw < deck_z_m
+    z_side = np.append(zw[below], deck_z_m)
+    y_side = np.append(hb[below], float(np.interp(deck_z_m, zw, hb)))
+    y = np.concatenate([y_side, -y_side[::-1]])
+    z = np.concatenate([z_side, z_side[::-1]])
+    return y, z
+
+
+def offsets_at(hull: HullOffsets, x_m: float) -> tuple[np.ndarray, float]:
+    """Half-breadths (per waterline) and deck height at any x inside the stations (linear in x)."""
+    xs = hull.station_x_m
+    i = int(np.clip(np.searchsorted(xs, x_m, side="right") - 1, 0, len(xs) - 2))
+    f = (x_m - xs[i]) / (xs[i + 1] - xs[i])
+    f = min(max(f, 0.0), 1.0)
+    hb = hull.half_breadth_m[i] * (1.0 - f) + hull.half_breadth_m[i + 1] * f
+    deck = float(hull.deck_z_m[i] * (1.0 - f) + hull.deck_z_m[i + 1] * f)
+    return hb, deck
+
+
+def hull_sections(hull: HullOffsets) -> tuple[np.ndarray, np.ndarray]:
+    """All station polygons as padded arrays of shape (stations, vertices)."""
+    polys = [
+        section_polygon(hull.waterline_z_m, hull.half_breadth_m[i], float(hull.deck_z_m[i]))
+        for i in range(len(hull.station_x_m))
+    ]
+    return pad_polygons(polys)
+
+
+def hull_section_at(hull: HullOffsets, x_m: float) -> tuple[np.ndarray, np.ndarray]:
+    """The hull section polygon at any x within the stations."""
+    hb, deck = offsets_at(hull, x_m)
+    return section_polygon(hull.waterline_z_m, hb, deck)
+
+
+def compartment_stations(shape: CompartmentShape, max_spacing_m: float = 0.25) -> np.ndarray:
+    """Sub-stations along a compartment: an odd count, equally spaced (Simpson applies).
+
+    Boxes and prisms have one section all along, so three stations integrate them
+    exactly; hull-shaped compartments get spacing ≤ ``max_spacing_m``.
+    """
+    length = shape.x_to_m - shape.x_from_m
+    if shape.shape in ("box", "prism"):
+        n = 3
+    else:
+        n = max(5, int(np.ceil(length / max_spacing_m)) + 1)
+        if n % 2 == 0:
+            n += 1
+    return np.linspace(shape.x_from_m, shape.x_to_m, n)
+
+
+def compartment_polygon(shape: CompartmentShape, hull: HullOffsets | None, x_m: float) -> tuple[np.ndarray, np.ndarray]:
+    """Section polygon of a compartment at x: box, prism, or hull ∩ box."""
+    if shape.shape == "box":
+        y = np.array([shape.y_from_m, shape.y_to_m, shape.y_to_m, shape.y_from_m])
+        z = np.array([shape.z_from_m, shape.z_from_m, shape.z_to_m, shape.z_to_m])
+        return y, z
+    if shape.shape == "prism":
+        y = np.asarray(shape.section_y_m, dtype=float)
+        z = np.asarray(shape.section_z_m, dtype=float)
+        if polygon_area(y, z) < 0.0:
+            y, z = y[::-1], z[::-1]
+        return y, z
+    if hull is None:
+        raise ValueError("a hull-shaped compartment needs the hull offsets")
+    hy, hz = hull_section_at(hull, x_m)
+    return clip_to_box(hy, hz, shape.y_from_m, shape.y_to_m, shape.z_from_m, shape.z_to_m)
+
+
+def compartment_sections(
+    shape: CompartmentShape, hull: HullOffsets | None, max_spacing_m: float = 0.25
+) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
+    """Stations and padded section polygons (x (n,), y (n, V), z (n, V)) of a compartment."""
+    xs = compartment_stations(shape, max_spacing_m)
+    polys = [compartment_polygon(shape, hull, float(x)) for x in xs]
+    y, z = pad_polygons(polys)
+    return xs, y, z

@@ -1,0 +1,104 @@
+"""The GZ (righting lever) curve from the KN cross curves, and what is read off it.
+
+GZ(φ) = KN(φ) − KG·sinφ − TCG·cosφ for heel to starboard (checks.md conventions;
+standards.md §6.3).  KN at the actual displacement is interpolated linearly between
+the tabulated displacements, then a natural cubic spline through the tabulated heel
+angles gives KN at any angle.  The curve is evaluated on a fine grid (0.1°) so that
+areas, the maximum and the crossing angles carry no coarse-grid error of their own;
+areas are integrated in radians (1 rad = 57.2958°) by the trapezoidal rule on that
+grid.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+import numpy as np
+
+from deckload.core.model import CrossCurves
+from deckload.core.tables import CubicSpline, OutOfRangeError, bracket, lerp_row
+
+STEP_DEG = 0.1
+FINE_DEG = np.round(np.arange(0.0, 90.0 + STEP_DEG / 2, STEP_DEG), 10)
+FINE_RAD = np.radians(FINE_DEG)
+SIN = np.sin(FINE_RAD)
+COS = np.cos(FINE_RAD)
+WHOLE_DEGREES = slice(0, None, int(round(1.0 / STEP_DEG)))
+
+
+def kn_curve(cc: CrossCurves, table_displacement_t: float) -> np.ndarray:
+    """KN (m) on the fine heel grid at a displacement (table density)."""
+    i, f = bracket(cc.displacement_t, table_displacement_t, "displacement (KN cross curves, at table density)", "t")
+    row = lerp_row(cc.kn_m, i, f)
+    if cc.heel_deg[0] != 0.0 or cc.heel_deg[-1] < 90.0 - 1e-9:
+        # The profile validation requires 0–90°; refuse rather than extrapolate.
+        raise OutOfRangeError("heel (KN cross curves)", 90.0, float(cc.heel_deg[0]), float(cc.heel_deg[-1]), "deg")
+    return CubicSpline.fit(cc.heel_deg, row)(FINE_DEG)
+
+
+@dataclass(frozen=True)
+class CurveFacts:
+    """What the criteria need from a GZ curve (angles in degrees, areas in m·rad)."""
+
+    max_gz_m: float
+    max_gz_angle_deg: float
+    vanishing_angle_deg: float | None
+    equilibrium_deg: float
+    """First angle where GZ = 0 going up from 0° (0 for an upright ship with GM > 0)."""
+
+
+def area_to(gz: np.ndarray, angle_deg: float) -> float:
+    """Area under GZ from 0 to ``angle_deg`` (m·rad), trapezoidal on the fine grid."""
+    if angle_deg <= 0.0:
+        return 0.0
+    k = min(int(angle_deg / STEP_DEG), len(gz) - 2)
+    full = float(np.sum(gz[1 : k + 1] + gz[:k]) * 0.5 * math.radians(STEP_DEG))
+    # Partial last panel, linear GZ inside it.
+    rem = math.radians(angle_deg - FINE_DEG[k])
+    if rem > 0.0:
+        g0 = gz[k]
+        g1 = gz[k] + (gz[k + 1] - gz[k]) * (angle_deg - FINE_DEG[k]) / STEP_DEG
+        full += 0.5 * (g0 + g1) * rem
+    return full
+
+
+def value_at(gz: np.ndarray, angle_deg: float) -> float:
+    return float(np.interp(angle_deg, FINE_DEG, gz))
+
+
+def _crossing(gz: np.ndarray, start: int, rising: bool) -> float | None:
+    """First angle at or after index ``start`` where GZ crosses zero (rising or falling)."""
+    seg = gz[start:]
+    s = np.signbit(seg)
+    if rising:
+        idx = np.nonzero(s[:-1] & ~s[1:])[0]
+    else:
+        idx = np.nonzero(~s[:-1] & s[1:])[0]
+    if len(idx) == 0:
+        return None
+    k = start + int(idx[0])
+    g0, g1 = gz[k], gz[k + 1]
+    return float(FINE_DEG[k] + STEP_DEG * g0 / (g0 - g1))
+
+
+def facts(gz: np.ndarray) -> CurveFacts:
+    """Maximum (refined by a parabola through the three best grid points), equilibrium and vanishing angle."""
+    k = int(np.argmax(gz))
+    angle = float(FINE_DEG[k])
+    gmax = float(gz[k])
+    if 0 < k < len(gz) - 1:
+        a, b, c = gz[k - 1], gz[k], gz[k + 1]
+        den = a - 2 * b + c
+        if den < 0:
+            off = 0.5 * (a - c) / den
+            angle += off * STEP_DEG
+            gmax = float(b - 0.25 * (a - c) * off)
+    if gz[0] < 0 or (gz[0] == 0 and gz[1] < 0):
+        eq = _crossing(gz, 0, rising=True)
+        equilibrium = eq if eq is not None else 90.0
+    else:
+        equilibrium = 0.0
+    start = max(k, int(round(equilibrium / STEP_DEG)))
+    vanish = _crossing(gz, start, rising=False) if gmax > 0 else None
+    return CurveFacts(gmax, angle, vanish, equilibrium)

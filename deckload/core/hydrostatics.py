@@ -1,0 +1,96 @@
+"""Hydrostatics at the actual displacement and water density; trim, drafts and list.
+
+The tables are made for one density ρ_t (usually 1.025 t/m³).  Floating in water of
+density ρ_w, she displaces the same volume as a displacement Δ·ρ_t/ρ_w would in
+table water, so every look-up is made at that equivalent displacement; TPC and
+MCTC, which are proportional to density, are then scaled by ρ_w/ρ_t
+(textbook: TPC = A_wp·ρ/100, MCTC = Δ·GM_L/(100·L), standards.md §6.3).
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+from deckload.core.model import HydrostaticTable, Vessel
+from deckload.core.tables import bracket
+
+
+@dataclass(frozen=True)
+class Upright:
+    """Hydrostatic particulars at one displacement, corrected for water density."""
+
+    table_displacement_t: float
+    """The equivalent displacement in table water (t): Δ·ρ_table/ρ_water."""
+    draft_m: float
+    """Even-keel mean draft, which is the draft at the LCF when she trims (m)."""
+    lcb_m: float
+    lcf_m: float
+    kmt_m: float
+    tpc_t_cm: float
+    mctc_tm_cm: float
+
+
+def upright(vessel: Vessel, displacement_t: float, water_density_t_m3: float) -> Upright:
+    """Interpolate the hydrostatic table at the density-corrected displacement."""
+    h: HydrostaticTable = vessel.hydrostatics
+    ratio = water_density_t_m3 / vessel.particulars.table_density_t_m3
+    d_eq = displacement_t / ratio
+    i, f = bracket(h.displacement_t, d_eq, "displacement (hydrostatic table, at table density)", "t")
+
+    def at(col):
+        return float(col[i] * (1.0 - f) + col[i + 1] * f)
+
+    return Upright(
+        table_displacement_t=d_eq,
+        draft_m=at(h.draft_m),
+        lcb_m=at(h.lcb_m),
+        lcf_m=at(h.lcf_m),
+        kmt_m=at(h.kmt_m),
+        tpc_t_cm=at(h.tpc_t_cm) * ratio,
+        mctc_tm_cm=at(h.mctc_tm_cm) * ratio,
+    )
+
+
+def trim_m(displacement_t: float, lcg_m: float, lcb_m: float, mctc_tm_cm: float) -> float:
+    """Trim (m, + by the stern) = Δ·(LCB − LCG)/(100·MCTC), x from AP + forward.
+
+    The trimming moment Δ·(LCB − LCG) divided by the moment to change trim 1 cm
+    gives the trim in cm (textbook; standards.md §6.3).
+    """
+    return displacement_t * (lcb_m - lcg_m) / (100.0 * mctc_tm_cm)
+
+
+def draft_at(x_m: float, draft_at_lcf_m: float, lcf_m: float, trim: float, lbp_m: float) -> float:
+    """Draft (m) at x from AP for a ship trimmed about the LCF.
+
+    T(x) = T_F + t·(x_F − x)/LBP: at the AP (x = 0) T_A = T_F + t·x_F/LBP, at the FP
+    T_F − t·(LBP − x_F)/LBP (standards.md §6.3).
+    """
+    return draft_at_lcf_m + trim * (lcf_m - x_m) / lbp_m
+
+
+def list_deg(tcg_m: float, gm_fluid_m: float) -> float:
+    """Angle of list (degrees, + starboard): tanφ = TCG/GM_fluid for GM_fluid > 0.
+
+    Small-angle relation from the textbook (standards.md §6.3); for GM_fluid ≤ 0
+    the list is found on the GZ curve instead (see :mod:`deckload.core.gz`).
+    """
+    return math.degrees(math.atan2(tcg_m, gm_fluid_m))
+
+
+def fresh_water_allowance_m(displacement_t: float, tpc_t_cm: float) -> float:
+    """FWA (m) = Δ/(4·TPC) mm, Δ and TPC at the summer draft in sea water.
+
+    Standards.md §6.1 (ICLL; shipboard formula).
+    """
+    return displacement_t / (4.0 * tpc_t_cm) / 1000.0
+
+
+def permitted_draft_m(mark_draft_m: float, fwa_m: float, water_density_t_m3: float) -> float:
+    """Draft allowed at a load-line mark in water of the given density.
+
+    Dock water allowance DWA = FWA·(1.025 − ρ)/0.025 (standards.md §6.1; textbook,
+    the formula marked from memory there).  ρ above 1.025 lowers the permitted draft.
+    """
+    return mark_draft_m + fwa_m * (1.025 - water_density_t_m3) / 0.025

@@ -1,0 +1,175 @@
+"""Tank contents and the weight and moment sums.
+
+A tank's contents may be stated as percent of capacity, m³, tonnes or sounding;
+all four resolve to one volume and one row of the calibration table, interpolated
+linearly (common practice for tank tables).  The weight sums are the textbook
+ones (standards.md §6.3): Δ = Σw, LCG = Σw·x/Δ, KG = Σw·z/Δ, TCG = Σw·y/Δ.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+import numpy as np
+
+from deckload.core.model import Condition, Hold, HoldLoad, Tank, TankFill, Vessel
+from deckload.core.result import ItemResult
+from deckload.core.tables import OutOfRangeError, bracket, lerp_row
+
+
+class LoadingError(ValueError):
+    """A condition that does not fit its vessel (unknown id, over capacity, …)."""
+
+
+@dataclass(frozen=True)
+class TankContents:
+    """One tank's contents, resolved from whatever quantity was typed."""
+
+    tank: Tank
+    volume_m3: float
+    density_t_m3: float
+    sounding_m: float
+    lcg_m: float
+    vcg_m: float
+    tcg_m: float
+    fsi_m4: float
+    """Free-surface inertia at this level (m⁴)."""
+
+    @property
+    def mass_t(self) -> float:
+        return self.volume_m3 * self.density_t_m3
+
+    @property
+    def fill_pct(self) -> float:
+        return 100.0 * self.volume_m3 / self.tank.capacity_m3
+
+
+def _row_at_sounding(tank: Tank, sounding_m: float) -> np.ndarray:
+    i, f = bracket(tank.table[:, 0], sounding_m, f"sounding of tank {tank.id}", "m")
+    return lerp_row(tank.table, i, f)
+
+
+def _row_at_volume(tank: Tank, volume_m3: float) -> np.ndarray:
+    i, f = bracket(tank.table[:, 1], volume_m3, f"volume of tank {tank.id}", "m³")
+    return lerp_row(tank.table, i, f)
+
+
+def volume_of(tank: Tank, quantity: str, value: float, density_t_m3: float) -> float:
+    """Volume (m³) for an amount stated as ``quantity`` (percent, volume_m3, mass_t, sounding_m).
+
+    Raises :class:`LoadingError` when the amount does not fit the tank.
+    """
+    if quantity == "percent":
+        if not 0.0 <= value <= 100.0:
+            raise LoadingError(f"tank {tank.id}: {value:g} % is outside 0–100 %")
+        return tank.capacity_m3 * value / 100.0
+    if quantity == "volume_m3":
+        volume = value
+    elif quantity == "mass_t":
+        volume = value / density_t_m3
+    elif quantity == "sounding_m":
+        try:
+            return float(_row_at_sounding(tank, value)[1])
+        except OutOfRangeError as e:
+            raise LoadingError(f"tank {tank.id}: {e}") from None
+    else:
+        raise LoadingError(f"tank {tank.id}: unknown quantity {quantity!r}")
+    if volume < 0.0:
+        raise LoadingError(f"tank {tank.id}: a negative amount ({value:g}) cannot be loaded")
+    if volume > tank.capacity_m3 * (1.0 + 1e-9):
+        raise LoadingError(
+            f"tank {tank.id}: {volume:.2f} m³ exceeds its capacity of {tank.capacity_m3:.2f} m³"
+        )
+    return min(volume, tank.capacity_m3)
+
+
+def contents_at_volume(tank: Tank, volume_m3: float, density_t_m3: float) -> TankContents:
+    """The tank's contents at ``volume_m3`` (interpolated calibration row)."""
+    row = _row_at_volume(tank, volume_m3)
+    return TankContents(
+        tank, float(row[1]), density_t_m3, float(row[0]), float(row[2]), float(row[3]), float(row[4]), float(row[5])
+    )
+
+
+def resolve_tank(tank: Tank, fill: TankFill | None) -> TankContents:
+    """Resolve a :class:`TankFill` (or None = empty) to the tank's contents."""
+    if fill is None:
+        return contents_at_volume(tank, 0.0, tank.density_t_m3)
+    density = fill.density_t_m3 if fill.density_t_m3 is not None else tank.density_t_m3
+    if fill.quantity == "sounding_m":
+        try:
+            row = _row_at_sounding(tank, fill.value)
+        except OutOfRangeError as e:
+            raise LoadingError(f"tank {tank.id}: {e}") from None
+        return TankContents(
+            tank, float(row[1]), density, float(row[0]), float(row[2]), float(row[3]), float(row[4]), float(row[5])
+        )
+    return contents_at_volume(tank, volume_of(tank, fill.quantity, fill.value, density), density)
+
+
+def resolve_tanks(vessel: Vessel, condition: Condition) -> list[TankContents]:
+    """Contents of every tank of the vessel, in profile order (unlisted tanks empty)."""
+    fills: dict[str, TankFill] = {}
+    for f in condition.tanks:
+        if f.tank_id not in vessel.tank_index:
+            raise LoadingError(f"condition names tank {f.tank_id!r}, which the vessel does not have")
+        fills[f.tank_id] = f
+    return [resolve_tank(t, fills.get(t.id)) for t in vessel.tanks]
+
+
+def hold_item(hold: Hold, load: HoldLoad) -> ItemResult:
+    """A hold's cargo as a weight item.
+
+    The centre is, in order of preference: the condition's override; the hold's
+    centroid-against-fill table at fill = mass·stowage/capacity (when a stowage factor
+    is given); the full-hold centroid, which for a partly filled hold puts G higher
+    than it is (a conservative choice: common practice).
+    """
+    if load.mass_t < 0:
+        raise LoadingError(f"hold {hold.id}: negative cargo mass {load.mass_t:g} t")
+    lcg, vcg, tcg = hold.lcg_m, hold.vcg_m, hold.tcg_m
+    if load.stowage_m3_t is not None and hold.fill_pct is not None:
+        fill = 100.0 * load.mass_t * load.stowage_m3_t / hold.capacity_m3
+        if fill > 100.0 + 1e-9:
+            raise LoadingError(
+                f"hold {hold.id}: {load.mass_t:g} t at {load.stowage_m3_t:g} m³/t needs "
+                f"{load.mass_t * load.stowage_m3_t:.1f} m³, more than its {hold.capacity_m3:.1f} m³"
+            )
+        i, f = bracket(hold.fill_pct, min(fill, 100.0), f"fill of hold {hold.id}", "%")
+        if hold.fill_vcg_m is not None:
+            vcg = float(hold.fill_vcg_m[i] * (1 - f) + hold.fill_vcg_m[i + 1] * f)
+        if hold.fill_lcg_m is not None:
+            lcg = float(hold.fill_lcg_m[i] * (1 - f) + hold.fill_lcg_m[i + 1] * f)
+    lcg = load.lcg_m if load.lcg_m is not None else lcg
+    vcg = load.vcg_m if load.vcg_m is not None else vcg
+    tcg = load.tcg_m if load.tcg_m is not None else tcg
+    return ItemResult("hold", hold.id, load.description or hold.name, load.mass_t, lcg, vcg, tcg)
+
+
+@dataclass(frozen=True)
+class WeightSum:
+    """Δ and centre of gravity of everything aboard (solid, before free surface)."""
+
+    mass_t: float
+    lcg_m: float
+    vcg_m: float
+    tcg_m: float
+
+
+def sum_weights(items: list[ItemResult], tanks: list[TankContents]) -> WeightSum:
+    """Δ = Σw; LCG = Σw·x/Δ; KG = Σw·z/Δ; TCG = Σw·y/Δ (standards.md §6.3)."""
+    m = mx = mz = my = 0.0
+    for it in items:
+        m += it.mass_t
+        mx += it.mass_t * it.lcg_m
+        mz += it.mass_t * it.vcg_m
+        my += it.mass_t * it.tcg_m
+    for c in tanks:
+        w = c.volume_m3 * c.density_t_m3
+        m += w
+        mx += w * c.lcg_m
+        mz += w * c.vcg_m
+        my += w * c.tcg_m
+    if m <= 0.0:
+        raise LoadingError("total displacement is zero or negative")
+    return WeightSum(m, mx / m, mz / m, my / m)

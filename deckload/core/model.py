@@ -1,0 +1,443 @@
+"""The validated, immutable vessel model and loading condition.
+
+Conventions used throughout deckload (SI inside; degrees only at the edges):
+
+* x (``lcg_m``, ``lcb_m``, ``lcf_m``): metres from the aft perpendicular, positive forward;
+* y (``tcg_m``): metres from the centreline, positive to starboard;
+* z (``vcg_m``, ``kg_m``): metres above the keel (baseline);
+* trim: metres, positive by the stern (draft aft minus draft forward);
+* heel and list: positive to starboard;
+* masses in tonnes, densities in t/m³, free-surface moments in t·m, inertias in m⁴.
+
+Everything here is a frozen dataclass.  The profile loader (``deckload.profiles``)
+builds these objects only after validating every field, so the computation may
+trust, for example, that every table's abscissa is strictly increasing.  An edit
+to a condition builds a new :class:`Condition` (see its ``with_*`` methods).
+"""
+
+from __future__ import annotations
+
+import dataclasses
+from dataclasses import dataclass, field
+from typing import Literal
+
+import numpy as np
+
+# --------------------------------------------------------------------------- kinds
+
+LIQUID_KINDS: tuple[str, ...] = (
+    "fuel_oil",
+    "diesel",
+    "lube_oil",
+    "fresh_water",
+    "ballast",
+    "cargo_liquid",
+    "other",
+)
+"""Liquid kinds a tank may hold.  The first four are consumables."""
+
+CONSUMABLE_KINDS: frozenset[str] = frozenset({"fuel_oil", "diesel", "lube_oil", "fresh_water"})
+"""Consumables: the IS Code 2008 Part B 3.1.3 'variable filling level' liquids."""
+
+FILL_QUANTITIES: tuple[str, ...] = ("percent", "volume_m3", "mass_t", "sounding_m")
+"""The ways a watchkeeper may state a tank's contents: exactly one per tank."""
+
+FsCategory = Literal["fixed", "variable"]
+FsRule = Literal["is2008", "actual"]
+GzCorrection = Literal["constant", "transfer"]
+
+
+def frozen_array(a) -> np.ndarray:
+    """A read-only float array, so that tables inside frozen dataclasses stay unchanged."""
+    arr = np.array(a, dtype=float)
+    arr.setflags(write=False)
+    return arr
+
+
+# --------------------------------------------------------------------------- vessel
+
+
+@dataclass(frozen=True)
+class Particulars:
+    name: str
+    """The vessel's name as shown on screens and reports."""
+    lbp_m: float
+    """Length between perpendiculars (m)."""
+    breadth_m: float
+    """Moulded breadth (m)."""
+    depth_m: float
+    """Moulded depth to the weather deck at side (m)."""
+    design_draft_m: float
+    """Design (summer) moulded draft (m)."""
+    table_density_t_m3: float = 1.025
+    """Water density the hydrostatic and cross-curve tables were made for (t/m³)."""
+    longitudinal_datum: str = "aft perpendicular, positive forward"
+    """The datum of every x coordinate in the profile (informative; always AP here)."""
+    vessel_type: str = ""
+    """Free text: the kind of vessel (e.g. 'coastal island-supply vessel')."""
+    remark: str = ""
+    """Free text shown on reports."""
+
+
+@dataclass(frozen=True)
+class MassItem:
+    """A mass with its centre of gravity."""
+
+    name: str
+    """What the mass is."""
+    mass_t: float
+    """Mass (t)."""
+    lcg_m: float
+    """Longitudinal centre of gravity from AP, + forward (m)."""
+    vcg_m: float
+    """Vertical centre of gravity above keel (m)."""
+    tcg_m: float = 0.0
+    """Transverse centre of gravity from centreline, + starboard (m)."""
+
+
+@dataclass(frozen=True, eq=False)
+class HydrostaticTable:
+    """Upright hydrostatics at even keel, one row per mean draft, at the table density."""
+
+    draft_m: np.ndarray
+    """Mean moulded draft at even keel (m), strictly increasing."""
+    displacement_t: np.ndarray
+    """Displacement at the table density (t), strictly increasing."""
+    lcb_m: np.ndarray
+    """Longitudinal centre of buoyancy from AP (m)."""
+    lcf_m: np.ndarray
+    """Longitudinal centre of flotation from AP (m)."""
+    kmt_m: np.ndarray
+    """Transverse metacentre above keel (m)."""
+    tpc_t_cm: np.ndarray
+    """Tonnes per centimetre immersion at the table density (t/cm)."""
+    mctc_tm_cm: np.ndarray
+    """Moment to change trim one centimetre at the table density (t·m/cm)."""
+    vcb_m: np.ndarray | None = None
+    """Vertical centre of buoyancy above keel (m); optional."""
+    kml_m: np.ndarray | None = None
+    """Longitudinal metacentre above keel (m); optional."""
+
+    def columns(self) -> dict[str, np.ndarray]:
+        return {f.name: getattr(self, f.name) for f in dataclasses.fields(self) if getattr(self, f.name) is not None}
+
+
+@dataclass(frozen=True, eq=False)
+class CrossCurves:
+    """KN cross curves: KN (m) against displacement and heel, at the table density."""
+
+    heel_deg: np.ndarray
+    """Heel angles (degrees), strictly increasing, starting at 0, ending at ≤ 90."""
+    displacement_t: np.ndarray
+    """Displacements (t) at the table density, strictly increasing."""
+    kn_m: np.ndarray
+    """KN (m), shape (len(displacement_t), len(heel_deg))."""
+    trim_basis: str = "free trim"
+    """How trim was treated when the curves were made: 'free trim' or 'even keel'."""
+
+
+@dataclass(frozen=True, eq=False)
+class TankCalibration:
+    """A tank's calibration table by sounding (from the tank bottom)."""
+
+    sounding_m: np.ndarray
+    """Sounding from the lowest point of the tank (m), strictly increasing, from 0."""
+    volume_m3: np.ndarray
+    """Volume at that sounding (m³), strictly increasing."""
+    lcg_m: np.ndarray
+    """Centroid of the contents, from AP (m)."""
+    vcg_m: np.ndarray
+    """Centroid of the contents above keel (m)."""
+    tcg_m: np.ndarray
+    """Centroid of the contents from centreline, + starboard (m)."""
+    fsi_m4: np.ndarray
+    """Transverse second moment of the free surface about its own centroid (m⁴)."""
+
+    def stacked(self) -> np.ndarray:
+        """Columns (sounding, volume, lcg, vcg, tcg, fsi) as one (n, 6) array."""
+        return np.column_stack(
+            [self.sounding_m, self.volume_m3, self.lcg_m, self.vcg_m, self.tcg_m, self.fsi_m4]
+        )
+
+
+@dataclass(frozen=True, eq=False)
+class FluidTransfer:
+    """Actual moment of fluid transfer of a tank, from its geometry.
+
+    ``moment_m4[j, k]`` is the volumetric heeling moment M (m⁴) at fill
+    ``fill_pct[j]`` and heel ``heel_deg[k]``: the liquid's volume times the
+    horizontal shift of its centroid, measured normal to gravity, relative to the
+    upright centroid (checks.md §3.2 definition).  The heeling moment is ρ·M (t·m).
+    """
+
+    fill_pct: np.ndarray
+    """Fill (% of capacity), strictly increasing from 0 to 100."""
+    heel_deg: np.ndarray
+    """Heel angles (degrees), strictly increasing from 0."""
+    moment_m4: np.ndarray
+    """Volumetric transfer moment (m⁴), shape (len(fill_pct), len(heel_deg))."""
+
+
+@dataclass(frozen=True, eq=False)
+class Tank:
+    id: str
+    """Short unique identifier typed by the user, e.g. 'DB2P'."""
+    name: str
+    """Descriptive name."""
+    kind: str
+    """Liquid kind, one of :data:`LIQUID_KINDS`."""
+    density_t_m3: float
+    """Default density of the contents (t/m³)."""
+    capacity_m3: float
+    """Volume at 100 % (m³); equals the last calibration volume."""
+    calibration: TankCalibration
+    """Calibration table by sounding."""
+    pair: str | None = None
+    """Id of the transverse partner tank, if this tank is one of a port/starboard pair."""
+    fs_category: FsCategory = "fixed"
+    """IS 2008 Part B 3.1.3: 'fixed' level (use actual) or 'variable' level (use max)."""
+    transfer: FluidTransfer | None = None
+    """Actual moment of fluid transfer, when the tank's geometry is known."""
+    worst_band_pct: tuple[float, float] = (40.0, 60.0)
+    """Fill band (%) in which the heeling moment at 30° is within 10 % of its maximum."""
+    max_fsi_m4: float = field(init=False)
+    """Largest free-surface inertia over the calibration (m⁴); derived."""
+    table: np.ndarray = field(init=False, repr=False)
+    """Calibration as one (n, 6) array: sounding, volume, lcg, vcg, tcg, fsi; derived."""
+
+    def __post_init__(self) -> None:
+        object.__setattr__(self, "max_fsi_m4", float(np.max(self.calibration.fsi_m4)))
+        table = self.calibration.stacked()
+        table.setflags(write=False)
+        object.__setattr__(self, "table", table)
+
+    @property
+    def is_consumable(self) -> bool:
+        return self.kind in CONSUMABLE_KINDS
+
+
+@dataclass(frozen=True, eq=False)
+class Hold:
+    id: str
+    """Short unique identifier, e.g. 'H1'."""
+    name: str
+    """Descriptive name."""
+    capacity_m3: float
+    """Grain/bale capacity (m³)."""
+    lcg_m: float
+    """Centroid of the full hold from AP (m)."""
+    vcg_m: float
+    """Centroid of the full hold above keel (m)."""
+    tcg_m: float = 0.0
+    """Centroid of the full hold from centreline (m)."""
+    max_mass_t: float | None = None
+    """Structural limit of cargo mass (t), if the booklet gives one."""
+    fill_pct: np.ndarray | None = None
+    """Optional: fill (% of capacity) for a centroid-against-fill table."""
+    fill_vcg_m: np.ndarray | None = None
+    """Optional: VCG (m) of cargo filling the hold to each ``fill_pct``."""
+    fill_lcg_m: np.ndarray | None = None
+    """Optional: LCG (m) of cargo filling the hold to each ``fill_pct``."""
+
+
+@dataclass(frozen=True)
+class DeckArea:
+    id: str
+    """Short unique identifier, e.g. 'AFTDECK'."""
+    name: str
+    """Descriptive name."""
+    area_m2: float
+    """Usable area (m²)."""
+    lcg_m: float
+    """Centroid of the area from AP (m)."""
+    deck_height_m: float
+    """Height of the deck surface above keel (m)."""
+    tcg_m: float = 0.0
+    """Centroid of the area from centreline (m)."""
+    max_load_t_m2: float | None = None
+    """Permissible uniform deck load (t/m²)."""
+
+
+@dataclass(frozen=True)
+class LoadLine:
+    name: str
+    """Mark name, e.g. 'summer', 'tropical', 'winter', 'fresh'."""
+    draft_m: float
+    """Moulded draft at midships that the mark stands for, in sea water (m)."""
+
+
+@dataclass(frozen=True, eq=False)
+class LimitCurve:
+    """A curve against displacement: maximum KG (or minimum GM) or downflooding angle."""
+
+    displacement_t: np.ndarray
+    """Displacement (t), strictly increasing."""
+    value: np.ndarray
+    """The limit at each displacement (m, or degrees for a downflooding angle)."""
+    kind: str
+    """'max_kg_m', 'min_gm_m' or 'downflooding_deg'."""
+
+
+@dataclass(frozen=True)
+class CriteriaSettings:
+    code: str = "IS2008-A2.2"
+    """Criteria set; 'IS2008-A2.2' = IS Code 2008 Part A 2.2 general criteria."""
+    min_gm_m: float | None = None
+    """Stricter minimum GM0 (m) where the Administration requires one (e.g. 0.35 fishing)."""
+
+
+@dataclass(frozen=True)
+class FreeSurfaceSettings:
+    rule: FsRule = "is2008"
+    """'is2008' (Part B 3.1 treatment) or 'actual' (every tank at its actual level)."""
+    gz_correction: GzCorrection = "constant"
+    """'constant' (KG raised by ΣFSM/Δ) or 'transfer' (actual fluid transfer at each heel)."""
+    nominally_full_pct: float = 98.0
+    """Fill at or above which a tank is nominally full (IS 2008 B 3.1.2)."""
+    empty_pct: float = 0.5
+    """Fill at or below which a tank is taken as empty (its remainder is ignored)."""
+    small_tank_limit_m: float = 0.01
+    """Small-tank exemption: Mfs(30°)/Δmin below this (m) is left out (IS 2008 B 3.1.12)."""
+    min_operating_displacement_t: float | None = None
+    """Δmin for the small-tank exemption (t); lightship when not given."""
+    default_worst_band_pct: tuple[float, float] = (40.0, 60.0)
+    """Worst slack band for tanks whose shape is unknown (% fill)."""
+
+
+@dataclass(frozen=True, eq=False)
+class Vessel:
+    """A whole vessel profile: particulars, lightship, tables, compartments and rules."""
+
+    particulars: Particulars
+    lightship: MassItem
+    hydrostatics: HydrostaticTable
+    cross_curves: CrossCurves
+    tanks: tuple[Tank, ...]
+    holds: tuple[Hold, ...] = ()
+    deck_areas: tuple[DeckArea, ...] = ()
+    load_lines: tuple[LoadLine, ...] = ()
+    limit_curve: LimitCurve | None = None
+    downflooding: LimitCurve | None = None
+    criteria: CriteriaSettings = CriteriaSettings()
+    free_surface: FreeSurfaceSettings = FreeSurfaceSettings()
+    tank_index: dict[str, int] = field(init=False, repr=False, compare=False)
+    hold_index: dict[str, int] = field(init=False, repr=False, compare=False)
+    area_index: dict[str, int] = field(init=False, repr=False, compare=False)
+
+    def __post_init__(self) -> None:
+        object.__setattr__(self, "tank_index", {t.id: i for i, t in enumerate(self.tanks)})
+        object.__setattr__(self, "hold_index", {h.id: i for i, h in enumerate(self.holds)})
+        object.__setattr__(self, "area_index", {a.id: i for i, a in enumerate(self.deck_areas)})
+
+    def tank(self, tank_id: str) -> Tank:
+        return self.tanks[self.tank_index[tank_id]]
+
+    def hold(self, hold_id: str) -> Hold:
+        return self.holds[self.hold_index[hold_id]]
+
+    def deck_area(self, area_id: str) -> DeckArea:
+        return self.deck_areas[self.area_index[area_id]]
+
+
+# --------------------------------------------------------------------------- condition
+
+
+@dataclass(frozen=True)
+class TankFill:
+    tank_id: str
+    """Which tank."""
+    quantity: str
+    """How the contents are stated: one of :data:`FILL_QUANTITIES`."""
+    value: float
+    """The stated amount in the unit of ``quantity``."""
+    density_t_m3: float | None = None
+    """Density override (t/m³); the tank's default when None."""
+
+
+@dataclass(frozen=True)
+class HoldLoad:
+    hold_id: str
+    """Which hold."""
+    mass_t: float
+    """Cargo mass (t)."""
+    stowage_m3_t: float | None = None
+    """Stowage factor (m³/t): with it, the centroid follows the fill table."""
+    lcg_m: float | None = None
+    """LCG override (m)."""
+    vcg_m: float | None = None
+    """VCG override (m)."""
+    tcg_m: float | None = None
+    """TCG override (m)."""
+    description: str = ""
+    """What is stowed."""
+
+
+@dataclass(frozen=True)
+class DeckItem(MassItem):
+    area_id: str | None = None
+    """Deck area the item stands on, for the deck-load check."""
+    footprint_m2: float | None = None
+    """Area the item bears on (m²), for the local deck-load check."""
+
+
+@dataclass(frozen=True)
+class Condition:
+    """A loading condition: what is aboard, where, and in what water.
+
+    Tanks not listed are empty.  Nothing here is mutated: the ``with_*`` methods
+    return a new condition.
+    """
+
+    name: str = "Working condition"
+    """Short title."""
+    remark: str = ""
+    """Free text (voyage, port, officer's note)."""
+    water_density_t_m3: float = 1.025
+    """Density of the water she floats in (t/m³)."""
+    tanks: tuple[TankFill, ...] = ()
+    """Tank contents, at most one entry per tank."""
+    holds: tuple[HoldLoad, ...] = ()
+    """Hold cargo, at most one entry per hold."""
+    deck_items: tuple[DeckItem, ...] = ()
+    """Deck cargo and other items on deck."""
+    constants: tuple[MassItem, ...] = ()
+    """Crew and effects, provisions, stores and other constants."""
+    fs_rule: FsRule | None = None
+    """Free-surface rule for this condition; the profile's default when None."""
+    gz_correction: GzCorrection | None = None
+    """GZ correction method for this condition; the profile's default when None."""
+    load_line: str = "summer"
+    """Which load-line mark governs the draft check."""
+
+    def tank_fill(self, tank_id: str) -> TankFill | None:
+        for f in self.tanks:
+            if f.tank_id == tank_id:
+                return f
+        return None
+
+    def with_tank(self, fill: TankFill) -> "Condition":
+        """A new condition with ``fill`` replacing any entry for the same tank."""
+        rest = tuple(f for f in self.tanks if f.tank_id != fill.tank_id)
+        return dataclasses.replace(self, tanks=rest + (fill,))
+
+    def without_tank(self, tank_id: str) -> "Condition":
+        return dataclasses.replace(self, tanks=tuple(f for f in self.tanks if f.tank_id != tank_id))
+
+    def with_hold(self, load: HoldLoad) -> "Condition":
+        rest = tuple(h for h in self.holds if h.hold_id != load.hold_id)
+        return dataclasses.replace(self, holds=rest + (load,))
+
+    def without_hold(self, hold_id: str) -> "Condition":
+        return dataclasses.replace(self, holds=tuple(h for h in self.holds if h.hold_id != hold_id))
+
+    def with_deck_items(self, items: tuple[DeckItem, ...]) -> "Condition":
+        return dataclasses.replace(self, deck_items=tuple(items))
+
+    def with_constants(self, items: tuple[MassItem, ...]) -> "Condition":
+        return dataclasses.replace(self, constants=tuple(items))
+
+    def with_density(self, water_density_t_m3: float) -> "Condition":
+        return dataclasses.replace(self, water_density_t_m3=water_density_t_m3)
+
+    def replace(self, **changes) -> "Condition":
+        return dataclasses.replace(self, **changes)

@@ -1,0 +1,284 @@
+"""``evaluate(vessel, condition) -> Result``: the one entry point of the computation.
+
+A pure function: the same profile and condition always give the same result, and
+nothing outside is read or written.  Steps, each in its own module:
+
+1. tank contents and item weights (:mod:`loading`); Δ, LCG, KG solid, TCG;
+2. free-surface moment of each tank (:mod:`free_surface`); FSC = ΣFSM/Δ; KG fluid;
+3. hydrostatics at the density-corrected displacement (:mod:`hydrostatics`);
+   GM solid = KMt − KG, GM fluid = KMt − KG fluid; trim, drafts, list;
+4. the GZ curve (:mod:`gz`): GZ = KN − KG_fluid·sinφ − TCG·cosφ (constant correction),
+   or GZ = KN − KG_solid·sinφ − TCG·cosφ − Σρ·M(φ)/Δ with the actual moment of fluid
+   transfer M (IS 2008 Part B 3.1, the alternative to a constant correction);
+5. the criteria (:mod:`criteria`) and the warnings.
+"""
+
+from __future__ import annotations
+
+import math
+
+import numpy as np
+
+from deckload.core import gz as gzmod
+from deckload.core.criteria import Measures, evaluate_criteria, limit_curve_criterion
+from deckload.core.free_surface import BASIS_NONE, free_surface, transfer_moment_m4
+from deckload.core.hydrostatics import (
+    draft_at,
+    fresh_water_allowance_m,
+    list_deg,
+    permitted_draft_m,
+    trim_m,
+    upright,
+)
+from deckload.core.loading import LoadingError, hold_item, resolve_tanks, sum_weights
+from deckload.core.model import Condition, Vessel
+from deckload.core.result import ItemResult, Result, TankResult, Warning
+from deckload.core.tables import OutOfRangeError, bracket
+
+LIST_WARNING_DEG = 2.0
+NEAR_LIMIT_FRACTION = 0.10
+
+
+def _items(vessel: Vessel, condition: Condition) -> list[ItemResult]:
+    ls = vessel.lightship
+    items = [ItemResult("lightship", "lightship", "Lightship", ls.mass_t, ls.lcg_m, ls.vcg_m, ls.tcg_m)]
+    for load in condition.holds:
+        if load.hold_id not in vessel.hold_index:
+            raise LoadingError(f"condition names hold {load.hold_id!r}, which the vessel does not have")
+        items.append(hold_item(vessel.hold(load.hold_id), load))
+    for n, d in enumerate(condition.deck_items):
+        if d.area_id is not None and d.area_id not in vessel.area_index:
+            raise LoadingError(f"deck item {d.name!r} names deck area {d.area_id!r}, which the vessel does not have")
+        items.append(ItemResult("deck", f"deck{n + 1}", d.name, d.mass_t, d.lcg_m, d.vcg_m, d.tcg_m))
+    for n, c in enumerate(condition.constants):
+        items.append(ItemResult("constant", f"const{n + 1}", c.name, c.mass_t, c.lcg_m, c.vcg_m, c.tcg_m))
+    for it in items:
+        if it.mass_t < 0 or not math.isfinite(it.mass_t):
+            raise LoadingError(f"{it.group} item {it.name!r}: mass {it.mass_t!r} t is not a non-negative number")
+    return items
+
+
+def _curve_limit(curve, displacement_t: float) -> float | None:
+    if curve is None:
+        return None
+    try:
+        i, f = bracket(curve.displacement_t, displacement_t, "displacement", "t")
+    except OutOfRangeError:
+        return None
+    return float(curve.value[i] * (1 - f) + curve.value[i + 1] * f)
+
+
+def evaluate(vessel: Vessel, condition: Condition) -> Result:
+    """Complete intact-stability state of ``vessel`` in ``condition``.
+
+    Raises :class:`~deckload.core.loading.LoadingError` for a condition that does not
+    fit the vessel and :class:`~deckload.core.tables.OutOfRangeError` when the
+    displacement lies outside the hydrostatic or cross-curve tables.
+    """
+    rho_w = condition.water_density_t_m3
+    fs_rule = condition.fs_rule or vessel.free_surface.rule
+    correction = condition.gz_correction or vessel.free_surface.gz_correction
+
+    items = _items(vessel, condition)
+    contents = resolve_tanks(vessel, condition)
+    w = sum_weights(items, contents)
+    disp = w.mass_t
+
+    fs = free_surface(vessel, contents, fs_rule)
+    fsm_total = sum(t.fsm_tm for t in fs)
+    fsc = fsm_total / disp
+    kg_fluid = w.vcg_m + fsc
+
+    hy = upright(vessel, disp, rho_w)
+    gm_solid = hy.kmt_m - w.vcg_m
+    gm_fluid = hy.kmt_m - kg_fluid
+    trim = trim_m(disp, w.lcg_m, hy.lcb_m, hy.mctc_tm_cm)
+    lbp = vessel.particulars.lbp_m
+    t_aft = draft_at(0.0, hy.draft_m, hy.lcf_m, trim, lbp)
+    t_fwd = draft_at(lbp, hy.draft_m, hy.lcf_m, trim, lbp)
+    t_mid = draft_at(lbp / 2.0, hy.draft_m, hy.lcf_m, trim, lbp)
+
+    kn = gzmod.kn_curve(vessel.cross_curves, hy.table_displacement_t)
+    warnings: list[Warning] = []
+    if correction == "transfer":
+        # The upright (0°) inertia still gives GM fluid; the curve takes the actual
+        # moment of fluid transfer of each counted tank at each heel.
+        shift = np.zeros_like(kn)
+        no_geometry = []
+        for c, t in zip(contents, fs):
+            if t.basis == BASIS_NONE:
+                continue
+            if c.tank.transfer is None:
+                no_geometry.append(c.tank.id)
+            shift += c.density_t_m3 * transfer_moment_m4(c.tank, t.basis, c.fill_pct, gzmod.FINE_RAD)
+        base = kn - w.vcg_m * gzmod.SIN - shift / disp
+        if no_geometry:
+            warnings.append(Warning("fs-no-geometry",
+                                    "no tank geometry for " + ", ".join(no_geometry)
+                                    + ": their transfer is taken as i·sinφ", "caution"))
+    else:
+        base = kn - kg_fluid * gzmod.SIN
+    gz_stbd = base - w.tcg_m * gzmod.COS
+    gz_port = base + w.tcg_m * gzmod.COS
+    side = "port" if w.tcg_m < 0 else "starboard"
+    gz = gz_port if side == "port" else gz_stbd
+
+    flood = _curve_limit(vessel.downflooding, disp)
+    if vessel.downflooding is not None and flood is None:
+        warnings.append(Warning("downflooding-range",
+                                f"displacement {disp:.1f} t is outside the downflooding-angle curve: θf not applied",
+                                "caution"))
+    f = gzmod.facts(gz)
+    top = min(40.0, flood) if flood is not None else 40.0
+    a30 = gzmod.area_to(gz, 30.0)
+    a40 = gzmod.area_to(gz, top)
+    a3040 = max(0.0, a40 - a30) if top > 30.0 else 0.0
+    hi = max(30.0, flood) if flood is not None else 90.0
+    k30 = int(round(30.0 / gzmod.STEP_DEG))
+    khi = int(round(hi / gzmod.STEP_DEG))
+    gz30 = float(np.max(gz[k30 : khi + 1]))
+
+    measures = Measures(a30, a40, a3040, gz30, f.max_gz_angle_deg, gm_fluid)
+    criteria = list(evaluate_criteria(vessel.criteria.code, measures, vessel.criteria.min_gm_m))
+    if vessel.limit_curve is not None:
+        lim = _curve_limit(vessel.limit_curve, disp)
+        if lim is None:
+            warnings.append(Warning("limit-curve-range",
+                                    f"displacement {disp:.1f} t is outside the limiting curve: that check was not made",
+                                    "danger"))
+        else:
+            criteria.append(limit_curve_criterion(vessel.limit_curve.kind, lim, kg_fluid, gm_fluid))
+
+    if gm_fluid > 0.0:
+        heel = list_deg(w.tcg_m, gm_fluid)
+    else:
+        # No upright equilibrium: she lolls (and lists) to the angle where GZ rises through zero.
+        heel = f.equilibrium_deg if side == "starboard" else -f.equilibrium_deg
+        warnings.append(Warning("negative-gm",
+                                f"GM fluid {gm_fluid:.3f} m is not positive: angle of loll about "
+                                f"{abs(heel):.1f}° to {side}", "danger"))
+
+    tanks = tuple(
+        TankResult(
+            id=c.tank.id, name=c.tank.name, kind=c.tank.kind, fill_pct=c.fill_pct, volume_m3=c.volume_m3,
+            mass_t=c.mass_t, density_t_m3=c.density_t_m3, sounding_m=c.sounding_m, lcg_m=c.lcg_m,
+            vcg_m=c.vcg_m, tcg_m=c.tcg_m, fsi_m4=c.fsi_m4, fsm_tm=t.fsm_tm, fs_rule=t.rule, state=t.state,
+            worst_band_pct=c.tank.worst_band_pct, capacity_m3=c.tank.capacity_m3,
+        )
+        for c, t in zip(contents, fs)
+    )
+    warnings = _warnings(vessel, condition, tanks, criteria, items, heel, t_mid) + warnings
+
+    return Result(
+        vessel_name=vessel.particulars.name,
+        condition_name=condition.name,
+        water_density_t_m3=rho_w,
+        displacement_t=disp,
+        lightship_t=vessel.lightship.mass_t,
+        deadweight_t=disp - vessel.lightship.mass_t,
+        lcg_m=w.lcg_m,
+        kg_m=w.vcg_m,
+        tcg_m=w.tcg_m,
+        fsm_total_tm=fsm_total,
+        fsc_m=fsc,
+        kg_fluid_m=kg_fluid,
+        draft_at_lcf_m=hy.draft_m,
+        lcb_m=hy.lcb_m,
+        lcf_m=hy.lcf_m,
+        km_m=hy.kmt_m,
+        tpc_t_cm=hy.tpc_t_cm,
+        mctc_tm_cm=hy.mctc_tm_cm,
+        gm_solid_m=gm_solid,
+        gm_fluid_m=gm_fluid,
+        trim_m=trim,
+        draft_aft_m=t_aft,
+        draft_fwd_m=t_fwd,
+        draft_mean_m=t_mid,
+        list_deg=heel,
+        gz_heel_deg=tuple(float(x) for x in gzmod.FINE_DEG[gzmod.WHOLE_DEGREES]),
+        gz_m=tuple(float(x) for x in gz_stbd[gzmod.WHOLE_DEGREES]),
+        gz_port_m=tuple(float(x) for x in gz_port[gzmod.WHOLE_DEGREES]),
+        criteria_side=side,
+        gz_correction=correction,
+        fs_rule=fs_rule,
+        max_gz_m=f.max_gz_m,
+        max_gz_angle_deg=f.max_gz_angle_deg,
+        vanishing_angle_deg=f.vanishing_angle_deg,
+        downflooding_angle_deg=flood,
+        area_0_30_mrad=a30,
+        area_0_40_mrad=a40,
+        area_30_40_mrad=a3040,
+        criteria=tuple(criteria),
+        tanks=tanks,
+        items=tuple(items),
+        warnings=tuple(warnings),
+    )
+
+
+def _warnings(vessel, condition, tanks, criteria, items, heel, t_mid) -> list[Warning]:
+    out: list[Warning] = []
+    for c in criteria:
+        if not c.passed:
+            out.append(Warning("criterion-failed",
+                               f"FAILED {c.description}: {c.value:.3f} {c.unit} against {c.limit:.3f} ({c.source})",
+                               "danger"))
+        elif c.margin_fraction < NEAR_LIMIT_FRACTION:
+            out.append(Warning("criterion-near",
+                               f"{c.description} within 10 % of its limit: {c.value:.3f} {c.unit} "
+                               f"against {c.limit:.3f}", "caution"))
+    for t in tanks:
+        if t.state == "worst_band":
+            lo, hi = t.worst_band_pct
+            out.append(Warning("slack-worst-band",
+                               f"{t.id} ({t.name}) at {t.fill_pct:.0f} % is in its worst free-surface band "
+                               f"{lo:.0f}–{hi:.0f} %", "caution"))
+    if abs(heel) > LIST_WARNING_DEG:
+        out.append(Warning("list", f"list {abs(heel):.1f}° to {'starboard' if heel > 0 else 'port'} exceeds "
+                                   f"{LIST_WARNING_DEG:.0f}°", "caution"))
+    marks = {m.name: m for m in vessel.load_lines}
+    mark = marks.get(condition.load_line) or marks.get("summer")
+    if mark is not None:
+        summer = marks.get("summer", mark)
+        try:
+            allowed = _permitted_draft(vessel, summer.draft_m, mark.draft_m, condition.water_density_t_m3)
+        except OutOfRangeError:
+            out.append(Warning("load-line-range", f"{summer.name} load line lies outside the hydrostatic table",
+                               "caution"))
+        else:
+            if t_mid > allowed + 1e-9:
+                out.append(Warning("load-line",
+                                   f"midships draft {t_mid:.3f} m is over the {mark.name} load line "
+                                   f"({allowed:.3f} m allowed in water of {condition.water_density_t_m3:.3f} t/m³)",
+                                   "danger"))
+    by_area: dict[str, float] = {}
+    for d in condition.deck_items:
+        if d.area_id is None:
+            continue
+        by_area[d.area_id] = by_area.get(d.area_id, 0.0) + d.mass_t
+        area = vessel.deck_area(d.area_id)
+        if d.footprint_m2 and area.max_load_t_m2 is not None and d.mass_t / d.footprint_m2 > area.max_load_t_m2:
+            out.append(Warning("deck-load-local",
+                               f"{d.name}: {d.mass_t / d.footprint_m2:.2f} t/m² on {area.name} exceeds "
+                               f"{area.max_load_t_m2:.2f} t/m²", "danger"))
+    for area_id, mass in by_area.items():
+        area = vessel.deck_area(area_id)
+        if area.max_load_t_m2 is not None and mass / area.area_m2 > area.max_load_t_m2:
+            out.append(Warning("deck-load",
+                               f"{area.name}: {mass:.1f} t over {area.area_m2:.0f} m² averages "
+                               f"{mass / area.area_m2:.2f} t/m², above {area.max_load_t_m2:.2f} t/m²", "danger"))
+    for it in items:
+        if it.group == "hold":
+            hold = vessel.hold(it.id)
+            if hold.max_mass_t is not None and it.mass_t > hold.max_mass_t:
+                out.append(Warning("hold-load", f"hold {hold.id}: {it.mass_t:.1f} t exceeds its limit of "
+                                                f"{hold.max_mass_t:.1f} t", "danger"))
+    return out
+
+
+def _permitted_draft(vessel: Vessel, summer_draft_m: float, mark_draft_m: float, water_density: float) -> float:
+    """Draft allowed at a mark in this water: FWA from Δ and TPC at the summer draft."""
+    h = vessel.hydrostatics
+    i, f = bracket(h.draft_m, summer_draft_m, "summer load-line draft", "m")
+    disp = float(h.displacement_t[i] * (1 - f) + h.displacement_t[i + 1] * f)
+    tpc = float(h.tpc_t_cm[i] * (1 - f) + h.tpc_t_cm[i + 1] * f)
+    return permitted_draft_m(mark_draft_m, fresh_water_allowance_m(disp, tpc), water_density)

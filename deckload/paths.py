@@ -1,0 +1,51 @@
+"""Where deckload finds its demo vessel and keeps its logs and working conditions.
+
+This module only computes paths; it creates nothing.  The demo vessel ships as
+package data (``deckload/data``) so that ``pip install .`` finds it from any
+working folder; ``vessel_profiles/`` in the checkout is the browsable copy.
+"""
+
+from __future__ import annotations
+
+import os
+from pathlib import Path
+
+PACKAGE_DATA = Path(__file__).resolve().parent / "data"
+DEMO_PROFILE = PACKAGE_DATA / "demo_islander.toml"
+DEMO_CONDITIONS = {
+    "departure": PACKAGE_DATA / "demo_islander.departure.condition.toml",
+    "midvoyage": PACKAGE_DATA / "demo_islander.midvoyage.condition.toml",
+    "arrival": PACKAGE_DATA / "demo_islander.arrival.condition.toml",
+}
+
+
+def _checkout_root(start: Path) -> Path | None:
+    """The deckload project checkout containing ``start``, if any."""
+    for d in (start, *start.parents):
+        if (d / "pyproject.toml").is_file() and (d / "deckload").is_dir() and (d / "logs").is_dir():
+            return d
+    return None
+
+
+def data_home() -> Path:
+    """Per-user data folder: $DECKLOAD_HOME, else $XDG_DATA_HOME/deckload, else ~/.local/share/deckload."""
+    if os.environ.get("DECKLOAD_HOME"):
+        return Path(os.environ["DECKLOAD_HOME"])
+    xdg = os.environ.get("XDG_DATA_HOME")
+    base = Path(xdg) if xdg else Path.home() / ".local" / "share"
+    return base / "deckload"
+
+
+def log_dir(cwd: Path | None = None) -> Path:
+    """Log folder: $DECKLOAD_LOG_DIR, else ./logs inside a project checkout, else the per-user folder."""
+    if os.environ.get("DECKLOAD_LOG_DIR"):
+        return Path(os.environ["DECKLOAD_LOG_DIR"])
+    root = _checkout_root((cwd or Path.cwd()).resolve())
+    if root is not None:
+        return root / "logs"
+    return data_home() / "logs"
+
+
+def working_dir(cwd: Path | None = None) -> Path:
+    """Where the loading screen keeps each vessel's working condition (beside the logs)."""
+    return log_dir(cwd) / "working"

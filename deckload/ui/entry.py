@@ -1,0 +1,275 @@
+"""What the watchkeeper types, checked and turned into a new Condition.
+
+Every function here either returns a new :class:`~deckload.core.model.Condition`
+or raises :class:`EntryError` with a sentence fit to show on screen; the
+condition passed in is never changed (it is frozen anyway), so refused input
+changes nothing.  No textual here: the UI only shows the message.
+
+Amount syntax (case-insensitive, spaces allowed, decimal point only):
+``55%`` percent of capacity, ``12.5m3`` (or ``m³``) volume, ``10t`` mass,
+``1.2m`` sounding from the tank bottom.
+"""
+
+from __future__ import annotations
+
+import re
+from dataclasses import dataclass
+
+import numpy as np
+
+from deckload.core.model import Condition, DeckItem, Hold, HoldLoad, MassItem, Tank, TankFill, Vessel
+
+UNITS: dict[str, str] = {"%": "percent", "m3": "volume_m3", "m³": "volume_m3", "t": "mass_t", "m": "sounding_m"}
+"""Unit as typed → the condition's quantity name."""
+
+UNIT_LABEL: dict[str, str] = {"percent": "%", "volume_m3": "m³", "mass_t": "t", "sounding_m": "m sounding"}
+
+WATER_DENSITY_RANGE_T_M3 = (0.990, 1.040)
+"""Accepted water density: fresh river water to dense sea water (common practice)."""
+
+EMPTY_VOLUME_M3 = 1e-9
+
+_AMOUNT = re.compile(r"^\s*(?P<num>[0-9]*\.?[0-9]+)\s*(?P<unit>%|m3|m³|t|m)\s*$", re.IGNORECASE)
+_NUMBER = re.compile(r"^\s*(?P<num>[+-]?[0-9]*\.?[0-9]+)\s*(?P<unit>[a-z³/%0-9]*)\s*$", re.IGNORECASE)
+
+
+class EntryError(ValueError):
+    """Input refused; the message says why and what would be accepted."""
+
+
+# --------------------------------------------------------------------------- numbers
+
+
+def parse_amount(text: str) -> tuple[str, float]:
+    """``"55%"`` → ``("percent", 55.0)``; refuses a bare number or an unknown unit."""
+    raw = text.strip()
+    if not raw:
+        raise EntryError("Nothing typed: give an amount with its unit, e.g. 55%, 12.5m3, 10t or 1.2m.")
+    if "," in raw:
+        raise EntryError(f"{raw!r}: use a decimal point, not a comma.")
+    m = _AMOUNT.match(raw)
+    if m is None:
+        if _NUMBER.match(raw) and not _NUMBER.match(raw).group("unit"):
+            raise EntryError(f"{raw!r} has no unit: add % (percent), m3 (volume), t (tonnes) or m (sounding).")
+        raise EntryError(f"{raw!r} is not an amount: write e.g. 55%, 12.5m3, 10t or 1.2m (no minus sign).")
+    return UNITS[m.group("unit").lower()], float(m.group("num"))
+
+
+def parse_number(text: str, what: str, unit: str = "", *, low: float | None = None, high: float | None = None) -> float:
+    """A plain number, optionally followed by ``unit``; checked against [low, high]."""
+    raw = text.strip()
+    m = _NUMBER.match(raw)
+    if not raw or m is None:
+        raise EntryError(f"{what}: {raw!r} is not a number." if raw else f"{what}: nothing typed.")
+    typed_unit = m.group("unit").lower().replace("³", "3")
+    if typed_unit and typed_unit != unit.replace("³", "3"):
+        raise EntryError(f"{what}: unit {m.group('unit')!r} not understood here; give {unit or 'a plain number'}.")
+    value = float(m.group("num"))
+    u = f" {unit}" if unit else ""
+    if low is not None and value < low:
+        raise EntryError(f"{what} {value:g}{u} is below the lowest accepted value {low:g}{u}.")
+    if high is not None and value > high:
+        raise EntryError(f"{what} {value:g}{u} is above the highest accepted value {high:g}{u}.")
+    return value
+
+
+# --------------------------------------------------------------------------- tanks
+
+
+def tank_density(tank: Tank, fill: TankFill | None) -> float:
+    return fill.density_t_m3 if fill is not None and fill.density_t_m3 is not None else tank.density_t_m3
+
+
+def max_sounding_m(tank: Tank) -> float:
+    return float(tank.calibration.sounding_m[-1])
+
+
+def fill_volume_m3(tank: Tank, fill: TankFill | None) -> float:
+    """Volume (m³) a condition entry stands for; linear in the calibration, as the engine is."""
+    if fill is None:
+        return 0.0
+    if fill.quantity == "percent":
+        return tank.capacity_m3 * fill.value / 100.0
+    if fill.quantity == "volume_m3":
+        return fill.value
+    if fill.quantity == "mass_t":
+        return fill.value / tank_density(tank, fill)
+    cal = tank.calibration
+    return float(np.interp(fill.value, cal.sounding_m, cal.volume_m3))
+
+
+def check_tank_amount(tank: Tank, quantity: str, value: float, density_t_m3: float) -> None:
+    """Refuse an amount outside the tank: below zero or above its capacity."""
+    limits = {
+        "percent": (100.0, "%"),
+        "volume_m3": (tank.capacity_m3, "m³"),
+        "mass_t": (tank.capacity_m3 * density_t_m3, "t"),
+        "sounding_m": (max_sounding_m(tank), "m"),
+    }
+    high, unit = limits[quantity]
+    if value < 0:
+        raise EntryError(f"{tank.id}: {value:g} {unit} is negative.")
+    if value > high * (1 + 1e-9):
+        what = {"percent": "100 %", "volume_m3": f"its capacity {high:.2f} m³",
+                "mass_t": f"its capacity {high:.2f} t at {density_t_m3:.3f} t/m³",
+                "sounding_m": f"its greatest sounding {high:.3f} m"}[quantity]
+        raise EntryError(f"{tank.id}: {value:g} {unit} is more than {what}.")
+
+
+def set_tank(condition: Condition, tank: Tank, quantity: str, value: float) -> Condition:
+    """The condition with ``tank`` holding ``value`` in ``quantity``; density override kept."""
+    fill = condition.tank_fill(tank.id)
+    density = tank_density(tank, fill)
+    check_tank_amount(tank, quantity, value, density)
+    if value <= 0:
+        return condition.without_tank(tank.id)
+    override = fill.density_t_m3 if fill is not None else None
+    return condition.with_tank(TankFill(tank.id, quantity, float(value), override))
+
+
+def tank_from_text(condition: Condition, tank: Tank, text: str) -> Condition:
+    quantity, value = parse_amount(text)
+    return set_tank(condition, tank, quantity, value)
+
+
+def nudge_tank(condition: Condition, tank: Tank, step_pct: float) -> Condition:
+    """Raise or lower the fill by ``step_pct`` of capacity, clamped to 0–100 %."""
+    pct = 100.0 * fill_volume_m3(tank, condition.tank_fill(tank.id)) / tank.capacity_m3
+    new = min(100.0, max(0.0, round(pct + step_pct, 6)))
+    if new == pct:
+        edge = "full" if step_pct > 0 else "empty"
+        raise EntryError(f"{tank.id} is already {edge}.")
+    return set_tank(condition, tank, "percent", new)
+
+
+# --------------------------------------------------------------------------- transfer
+
+
+@dataclass(frozen=True)
+class TransferPlan:
+    """A pumping from one tank to another, as the dialog returns it."""
+
+    from_id: str
+    to_id: str
+    mass_t: float
+    volume_from_m3: float
+    condition: Condition
+    """The condition after the transfer."""
+
+    @property
+    def label(self) -> str:
+        return f"Transfer {self.mass_t:.2f} t ({self.volume_from_m3:.2f} m³) {self.from_id} → {self.to_id}"
+
+
+def plan_transfer(vessel: Vessel, condition: Condition, from_id: str, to_id: str, amount: str) -> TransferPlan:
+    """Move ``amount`` (t, m³ or % of the from-tank's capacity) between two tanks.
+
+    Mass is conserved; each tank keeps its own density, so volumes differ when
+    the densities do.  Both tanks are then stated by volume.
+    """
+    for tid, role in ((from_id, "From"), (to_id, "To")):
+        if tid not in vessel.tank_index:
+            raise EntryError(f"{role}-tank {tid!r} is not a tank of {vessel.particulars.name}.")
+    if from_id == to_id:
+        raise EntryError("From-tank and to-tank are the same tank.")
+    src, dst = vessel.tank(from_id), vessel.tank(to_id)
+    sf, df = condition.tank_fill(from_id), condition.tank_fill(to_id)
+    rho_s, rho_d = tank_density(src, sf), tank_density(dst, df)
+    quantity, value = parse_amount(amount)
+    if quantity == "sounding_m":
+        raise EntryError("A transfer amount is given in t, m3 or % (of the from-tank), not as a sounding.")
+    vol_s = {"percent": src.capacity_m3 * value / 100.0, "volume_m3": value, "mass_t": value / rho_s}[quantity]
+    if vol_s <= 0:
+        raise EntryError("Transfer amount must be more than zero.")
+    have_s = fill_volume_m3(src, sf)
+    if vol_s > have_s * (1 + 1e-9):
+        raise EntryError(f"{from_id} holds only {have_s:.2f} m³ ({have_s * rho_s:.2f} t); cannot pump {vol_s:.2f} m³.")
+    mass = vol_s * rho_s
+    new_d = fill_volume_m3(dst, df) + mass / rho_d
+    if new_d > dst.capacity_m3 * (1 + 1e-9):
+        room = dst.capacity_m3 - fill_volume_m3(dst, df)
+        raise EntryError(f"{to_id} has room for only {room:.2f} m³ ({room * rho_d:.2f} t).")
+    after = set_tank(condition, src, "volume_m3", max(0.0, have_s - vol_s))
+    after = set_tank(after, dst, "volume_m3", min(dst.capacity_m3, new_d))
+    return TransferPlan(from_id, to_id, mass, vol_s, after)
+
+
+# --------------------------------------------------------------------------- holds and items
+
+
+def hold_from_text(condition: Condition, hold: Hold, text: str) -> Condition:
+    """Set a hold's cargo mass (t); 0 empties it.  The structural limit is enforced."""
+    mass = parse_number(text, f"{hold.id} cargo mass", "t", low=0.0)
+    if hold.max_mass_t is not None and mass > hold.max_mass_t:
+        raise EntryError(f"{hold.id}: {mass:g} t is over the hold's structural limit {hold.max_mass_t:g} t.")
+    if mass == 0:
+        return condition.without_hold(hold.id)
+    old = next((h for h in condition.holds if h.hold_id == hold.id), None)
+    if old is None:
+        return condition.with_hold(HoldLoad(hold.id, mass))
+    return condition.with_hold(HoldLoad(hold.id, mass, old.stowage_m3_t, old.lcg_m, old.vcg_m, old.tcg_m, old.description))
+
+
+def nudge_mass(mass_t: float, step_t: float, what: str) -> float:
+    new = round(mass_t + step_t, 6)
+    if new < 0:
+        raise EntryError(f"{what} is already empty.")
+    return new
+
+
+@dataclass(frozen=True)
+class ItemForm:
+    """The fields of the item dialog, as typed."""
+
+    name: str
+    mass: str
+    lcg: str
+    vcg: str
+    tcg: str = "0"
+    area: str = ""
+
+
+def item_from_form(vessel: Vessel, form: ItemForm, *, deck: bool) -> MassItem:
+    """A deck item (``deck=True``) or constant from the dialog's fields, every field checked.
+
+    Positions must lie within the vessel's envelope: x from −0.2·LBP to 1.2·LBP,
+    |y| ≤ B/2, z from 0 to depth + 30 m (room for masts and deck stows).
+    """
+    p = vessel.particulars
+    name = form.name.strip()
+    if not name:
+        raise EntryError("Name: give the item a name.")
+    mass = parse_number(form.mass, "Mass", "t", low=0.0)
+    lcg = parse_number(form.lcg, "LCG (from AP)", "m", low=-0.2 * p.lbp_m, high=1.2 * p.lbp_m)
+    vcg = parse_number(form.vcg, "VCG (above keel)", "m", low=0.0, high=p.depth_m + 30.0)
+    tcg = parse_number(form.tcg or "0", "TCG (+ starboard)", "m", low=-p.breadth_m / 2, high=p.breadth_m / 2)
+    if not deck:
+        return MassItem(name, mass, lcg, vcg, tcg)
+    area = form.area.strip() or None
+    if area is not None and area not in vessel.area_index:
+        known = ", ".join(vessel.area_index) or "none"
+        raise EntryError(f"Deck area {area!r} is not one of this vessel's deck areas ({known}).")
+    return DeckItem(name, mass, lcg, vcg, tcg, area_id=area)
+
+
+def form_of(item: MassItem) -> ItemForm:
+    area = getattr(item, "area_id", None) or ""
+    return ItemForm(item.name, f"{item.mass_t:g}", f"{item.lcg_m:g}", f"{item.vcg_m:g}", f"{item.tcg_m:g}", area)
+
+
+def replace_at(items: tuple, index: int, item) -> tuple:
+    """``items`` with entry ``index`` replaced (``index == len`` appends; ``item is None`` removes)."""
+    lst = list(items)
+    if item is None:
+        del lst[index]
+    elif index == len(lst):
+        lst.append(item)
+    else:
+        lst[index] = item
+    return tuple(lst)
+
+
+def density_from_text(condition: Condition, text: str) -> Condition:
+    low, high = WATER_DENSITY_RANGE_T_M3
+    rho = parse_number(text, "Water density", "t/m3", low=low, high=high)
+    return condition.with_density(rho)

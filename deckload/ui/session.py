@@ -1,0 +1,197 @@
+"""One watch's editing session: the working condition, its result, undo and redo.
+
+Plain Python, no textual.  Each change replaces the whole (frozen) condition,
+re-evaluates it, saves it atomically and tells the journal; undo and redo are
+two stacks of conditions.  A displacement outside the vessel's tables is not an
+error of the edit: the condition is kept, the last good result stays on show
+(greyed by the screen) and :attr:`Session.problem` says what is out of range.
+"""
+
+from __future__ import annotations
+
+import re
+from dataclasses import dataclass, field
+from pathlib import Path
+from typing import Any, Callable
+
+from deckload.core.model import Condition, Vessel
+from deckload.core.result import Result
+from deckload.core.tables import OutOfRangeError
+from deckload.ui.entry import EntryError
+
+
+def vessel_slug(name: str) -> str:
+    """File-name form of a vessel name: 'Demo Islander' → 'demo-islander'."""
+    return re.sub(r"[^a-z0-9]+", "-", name.lower()).strip("-") or "vessel"
+
+
+def working_path(work_dir: Path, vessel: Vessel) -> Path:
+    return work_dir / f"{vessel_slug(vessel.particulars.name)}.condition.toml"
+
+
+@dataclass
+class Step:
+    """One undoable change: the condition before it and its label."""
+
+    before: Condition
+    after: Condition
+    label: str
+    kind: str
+    data: dict = field(default_factory=dict)
+
+
+class Journal:
+    """The voyage log as the screen uses it: never raises, reports problems as text."""
+
+    def __init__(self, logbook: Any | None, problem: str | None = None):
+        self.logbook = logbook
+        self.problem = problem
+        """Why the log cannot be written (read-only, unreadable), or None."""
+        self.officer = ""
+        """Initials of the officer who last recorded a condition; used for later edits."""
+
+    @property
+    def writable(self) -> bool:
+        return self.logbook is not None and not getattr(self.logbook, "read_only", False)
+
+    def append(self, **entry: Any) -> str | None:
+        """Append an entry; return an error message instead of raising."""
+        if not self.writable:
+            return None
+        entry.setdefault("by", self.officer or "-")
+        try:
+            self.logbook.append(**entry)
+        except Exception as exc:  # the log must never take the screen down
+            return f"Log not written: {exc}"
+        return None
+
+
+class Session:
+    """The working condition with its evaluation, history and persistence."""
+
+    def __init__(
+        self,
+        vessel: Vessel,
+        condition: Condition,
+        *,
+        save_path: Path | None,
+        journal: Journal | None = None,
+        evaluate: Callable[[Vessel, Condition], Result] | None = None,
+        save: Callable[[Path, Condition], None] | None = None,
+    ):
+        if evaluate is None:
+            from deckload.core.stability import evaluate
+        if save is None and save_path is not None:
+            from deckload.profiles import save_condition as save
+        self.vessel = vessel
+        self.save_path = save_path
+        self.journal = journal or Journal(None)
+        self._evaluate = evaluate
+        self._save = save
+        self.condition = condition
+        self.result: Result | None = None
+        """The last good result (may belong to an earlier condition when ``stale``)."""
+        self.stale = False
+        self.problem: str | None = None
+        """Why the current condition could not be evaluated (outside the tables)."""
+        self._undo: list[Step] = []
+        self._redo: list[Step] = []
+        self._recompute()
+
+    # ------------------------------------------------------------------ queries
+
+    @property
+    def can_undo(self) -> bool:
+        return bool(self._undo)
+
+    @property
+    def can_redo(self) -> bool:
+        return bool(self._redo)
+
+    @property
+    def undo_label(self) -> str | None:
+        return self._undo[-1].label if self._undo else None
+
+    def preview(self, condition: Condition) -> tuple[Result | None, str | None]:
+        """Evaluate a candidate condition without keeping it: (result, problem)."""
+        try:
+            return self._evaluate(self.vessel, condition), None
+        except OutOfRangeError as exc:
+            return None, str(exc)
+
+    # ------------------------------------------------------------------ changes
+
+    def commit(self, condition: Condition, label: str, kind: str = "edit", data: dict | None = None) -> list[str]:
+        """Make ``condition`` the working one as one undoable step.
+
+        Raises :class:`EntryError` (and changes nothing) if the engine rejects the
+        condition for any reason other than a displacement outside the tables.
+        Returns problems to report (save or log failures); the change stands.
+        """
+        if condition == self.condition:
+            raise EntryError("No change: the value is the same as before.")
+        self._check(condition)
+        step = Step(self.condition, condition, label, kind, dict(data or {}))
+        self._undo.append(step)
+        self._redo.clear()
+        return self._apply(condition, kind, label, step.data)
+
+    def undo(self) -> tuple[str, list[str]]:
+        if not self._undo:
+            raise EntryError("Nothing to undo.")
+        step = self._undo.pop()
+        self._redo.append(step)
+        label = f"Undo: {step.label}"
+        return label, self._apply(step.before, "undo", label, {"undone": step.kind, **step.data})
+
+    def redo(self) -> tuple[str, list[str]]:
+        if not self._redo:
+            raise EntryError("Nothing to redo.")
+        step = self._redo.pop()
+        self._undo.append(step)
+        label = f"Redo: {step.label}"
+        return label, self._apply(step.after, "redo", label, {"redone": step.kind, **step.data})
+
+    def record(self, by: str, remark: str) -> list[str]:
+        """Record the working condition in the log, signed with initials."""
+        self.journal.officer = by
+        err = self.journal.append(
+            kind="condition", by=by, change_text=remark or "condition recorded",
+            change_data={}, result=self.result if not self.stale else None, condition=self.condition,
+        )
+        return [err] if err else []
+
+    # ------------------------------------------------------------------ internals
+
+    def _check(self, condition: Condition) -> None:
+        try:
+            self._evaluate(self.vessel, condition)
+        except OutOfRangeError:
+            pass
+        except (ValueError, KeyError) as exc:
+            raise EntryError(f"Refused by the calculation: {exc}") from exc
+
+    def _recompute(self) -> None:
+        try:
+            self.result = self._evaluate(self.vessel, self.condition)
+            self.stale, self.problem = False, None
+        except OutOfRangeError as exc:
+            self.stale, self.problem = True, str(exc)
+
+    def _apply(self, condition: Condition, kind: str, label: str, data: dict) -> list[str]:
+        self.condition = condition
+        self._recompute()
+        problems = []
+        if self.save_path is not None and self._save is not None:
+            try:
+                self.save_path.parent.mkdir(parents=True, exist_ok=True)
+                self._save(self.save_path, condition)
+            except OSError as exc:
+                problems.append(f"Working condition not saved to {self.save_path}: {exc}")
+        err = self.journal.append(
+            kind=kind, change_text=label, change_data=data,
+            result=None if self.stale else self.result, condition=condition,
+        )
+        if err:
+            problems.append(err)
+        return problems
