@@ -56,6 +56,7 @@ def _parser() -> argparse.ArgumentParser:
     rec.add_argument("--by", required=True, help="initials of the officer recording it")
     rec.add_argument("--remark", default="")
     rec.add_argument("--kind", default="condition", help="event kind (default: condition)")
+    rec.add_argument("--ship-offset", help="ship's clock offset from UTC, +HH:MM (default: local timezone)")
     show = lsub.add_parser("show", help="print the log")
     show.add_argument("--vessel", help="vessel name (default: every log in the folder)")
     exp = lsub.add_parser("export", help="export the log")
@@ -66,6 +67,8 @@ def _parser() -> argparse.ArgumentParser:
     exp.add_argument("-o", "--output", type=Path)
     ver = lsub.add_parser("verify", help="check the log's hash chain")
     ver.add_argument("--vessel")
+    ver.add_argument("--recover", action="store_true",
+                     help="first set aside a torn last line (takes the writer's lock)")
     return p
 
 
@@ -82,7 +85,7 @@ def main(argv: list[str] | None = None) -> int:
 
             return run_calc(args.profile, args.condition, as_json=args.json)
         if cmd == "check":
-            from deckload.commands import run_check
+            from deckload.check_command import run_check
 
             return run_check(args.profile, args.condition)
         if cmd == "tables":

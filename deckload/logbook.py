@@ -39,7 +39,6 @@ so a power cut or a crash never leaves a stale lock behind.
 
 from __future__ import annotations
 
-import dataclasses
 import errno
 import fcntl
 import hashlib
@@ -272,14 +271,26 @@ def summarise(result: Result) -> dict:
     }
 
 
-def condition_record(condition: Condition) -> dict | str:
-    """The condition as stored in a log entry (the profile module's own serialisation)."""
-    from deckload import profiles
+def condition_record(condition: Condition) -> str:
+    """The condition as stored in a log entry: the TOML text of ``profiles.dump_condition``."""
+    from deckload.profiles import dump_condition
 
-    dump = getattr(profiles, "dump_condition", None)
-    if dump is None:
-        return dataclasses.asdict(condition)
-    return dump(condition)
+    return dump_condition(condition)
+
+
+def condition_of(entry: "LogEntry", vessel) -> Condition:
+    """The condition stored in ``entry``, validated against ``vessel`` (for viewing or restoring).
+
+    Raises ``ValueError`` when the entry holds no condition and ``profiles.ProfileError``
+    (naming the log line) when the stored text no longer fits the vessel profile.
+    """
+    from deckload.profiles import parse_condition
+
+    if entry.condition is None:
+        raise ValueError(f"log line {entry.line_no} ({entry.kind}) holds no loading condition")
+    if not isinstance(entry.condition, str):
+        raise ValueError(f"log line {entry.line_no}: the stored condition is not TOML text")
+    return parse_condition(entry.condition, f"log line {entry.line_no}", vessel)
 
 
 # --------------------------------------------------------------------------- entries
@@ -536,6 +547,8 @@ class Logbook:
         self._last_seq = 0
         self._last_sha = GENESIS_SHA256
         self._cache: tuple[tuple[int, int], list[LogEntry]] | None = None
+        self.skipped: list[str] = []
+        """Lines :meth:`entries` could not read at its last call, each naming its line."""
         self._clock: Callable[[], datetime] = utc_now
 
     # ----------------------------------------------------------------- opening
@@ -608,7 +621,7 @@ class Logbook:
             return holder
         self._lock_fd = fd
         os.ftruncate(fd, 0)
-        os.pwrite(fd, f"pid {os.getpid()} since {format_utc(self._clock())}\n".encode(), 0)
+        os.pwrite(fd, f"pid {os.getpid()} since {format_utc(utc_now())}\n".encode(), 0)
         return None
 
     def _read_head(self) -> dict | None:
@@ -763,20 +776,28 @@ class Logbook:
     def entries(self) -> list[LogEntry]:
         """Every complete, readable entry, oldest first.
 
-        An unterminated last line is left out (it is being written, or torn); an
-        unreadable line raises :class:`LogFormatError` naming it — run :meth:`verify`.
+        An unterminated last line is left out (it is being written, or torn).  An
+        unreadable line is left out too and named in :attr:`skipped`, so a view can
+        say so; :meth:`verify` gives the full account.
         """
         try:
             st = os.stat(self.path)
         except FileNotFoundError:
+            self.skipped = []
             return []
         key = (st.st_size, st.st_mtime_ns)
-        if self._cache is not None and self._cache[0] == key:
-            return list(self._cache[1])
-        lines, _tail = _split_lines(self._read())
-        out = [_entry_from_line(line, i) for i, line in enumerate(lines, start=1)]
-        self._cache = (key, out)
-        return list(out)
+        if self._cache is None or self._cache[0] != key:
+            lines, _tail = _split_lines(self._read())
+            out: list[LogEntry] = []
+            skipped: list[str] = []
+            for i, line in enumerate(lines, start=1):
+                try:
+                    out.append(_entry_from_line(line, i))
+                except LogFormatError as exc:
+                    skipped.append(str(exc))
+            self._cache = (key, out)
+            self.skipped = skipped
+        return list(self._cache[1])
 
     def writer_active(self) -> bool:
         """True when some process (this one included) holds the writer's lock."""

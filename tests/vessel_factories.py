@@ -52,6 +52,7 @@ from deckload.core.model import (
     FluidTransfer,
     FreeSurfaceSettings,
     HydrostaticTable,
+    LimitCurve,
     MassItem,
     Particulars,
     Tank,
@@ -314,36 +315,69 @@ def box_barge_cross_curves(
     )
 
 
-def box_barge(
+def box_vessel(
     *,
-    lightship_t: float = 400.0,
-    lightship_kg_m: float = 3.0,
-    lightship_lcg_m: float = BARGE_L / 2.0,
+    length_m: float,
+    breadth_m: float,
+    depth_m: float,
+    drafts_m,
+    lightship_t: float,
+    lightship_kg_m: float,
+    lightship_lcg_m: float | None = None,
     lightship_tcg_m: float = 0.0,
     tanks: tuple[Tank, ...] = (),
     mctc_kg_m: float | None = None,
     free_surface: FreeSurfaceSettings | None = None,
     criteria: CriteriaSettings | None = None,
     heel_step_deg: float = 5.0,
-    name: str = "Analytic box barge",
+    downflooding: LimitCurve | None = None,
+    limit_curve: LimitCurve | None = None,
+    name: str = "Analytic box vessel",
 ) -> Vessel:
-    """The checks.md §1 box barge L = 40, B = 10, D = 4 m, tables at drafts 0.5–3.5 m.
+    """A box-shaped vessel L × B × D with every table from the closed forms above.
 
-    Tables cover Δ = 205 … 1435 t; cross curves at heel 0–90° in ``heel_step_deg``
-    steps.  Give the lightship and tanks, then build a :class:`Condition`
-    (or use :func:`barge_at`).
+    Hydrostatics by :func:`box_barge_hydrostatics` and KN by
+    :func:`box_barge_cross_curves` at ``drafts_m`` (one row each), heel 0–90° in
+    ``heel_step_deg`` steps.  The lightship's LCG defaults to midships.
     """
     return Vessel(
         particulars=Particulars(
-            name=name, lbp_m=BARGE_L, breadth_m=BARGE_B, depth_m=BARGE_D, design_draft_m=2.0,
-            table_density_t_m3=RHO_SW, vessel_type="box barge (analytic test vessel)",
+            name=name, lbp_m=length_m, breadth_m=breadth_m, depth_m=depth_m,
+            design_draft_m=float(np.median(np.asarray(drafts_m, dtype=float))),
+            table_density_t_m3=RHO_SW, vessel_type="box (analytic test vessel)",
         ),
-        lightship=MassItem("Lightship", lightship_t, lightship_lcg_m, lightship_kg_m, lightship_tcg_m),
-        hydrostatics=box_barge_hydrostatics(mctc_kg_m=mctc_kg_m),
-        cross_curves=box_barge_cross_curves(heel_step_deg=heel_step_deg),
+        lightship=MassItem(
+            "Lightship", lightship_t, length_m / 2.0 if lightship_lcg_m is None else lightship_lcg_m,
+            lightship_kg_m, lightship_tcg_m,
+        ),
+        hydrostatics=box_barge_hydrostatics(drafts_m, length_m, breadth_m, mctc_kg_m=mctc_kg_m),
+        cross_curves=box_barge_cross_curves(drafts_m, length_m, breadth_m, depth_m, heel_step_deg=heel_step_deg),
         tanks=tuple(tanks),
+        downflooding=downflooding,
+        limit_curve=limit_curve,
         free_surface=free_surface or FreeSurfaceSettings(),
         criteria=criteria or CriteriaSettings(),
+    )
+
+
+def box_barge(
+    *,
+    lightship_t: float = 400.0,
+    lightship_kg_m: float = 3.0,
+    lightship_lcg_m: float = BARGE_L / 2.0,
+    lightship_tcg_m: float = 0.0,
+    name: str = "Analytic box barge",
+    **kw,
+) -> Vessel:
+    """The checks.md §1 box barge L = 40, B = 10, D = 4 m, tables at drafts 0.5–3.5 m.
+
+    Tables cover Δ = 205 … 1435 t.  Other keywords as :func:`box_vessel`
+    (tanks, mctc_kg_m, free_surface, criteria, heel_step_deg, downflooding, limit_curve).
+    """
+    return box_vessel(
+        length_m=BARGE_L, breadth_m=BARGE_B, depth_m=BARGE_D, drafts_m=BARGE_DRAFTS_M,
+        lightship_t=lightship_t, lightship_kg_m=lightship_kg_m, lightship_lcg_m=lightship_lcg_m,
+        lightship_tcg_m=lightship_tcg_m, name=name, **kw,
     )
 
 

@@ -28,6 +28,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass
+from functools import lru_cache
 
 import numpy as np
 
@@ -76,16 +77,18 @@ def fsi_at_fill(tank: Tank, fill_pct: float) -> float:
     return float(tank.table[i, 5] * (1 - f) + tank.table[i + 1, 5] * f)
 
 
-def mfs30_bound_tm(tank: Tank, density_t_m3: float) -> float:
-    """Upper estimate of the tank's free-surface heeling moment at 30° (t·m).
+@lru_cache(maxsize=4096)
+def mfs30_bound_m4(tank: Tank) -> float:
+    """Upper estimate of the tank's volumetric free-surface heeling moment at 30° (m⁴).
 
     From the transfer table where the tank's shape is known; otherwise the
-    wall-sided value ρ·i_max·sin30·(1 + ½tan²30), which is never below the exact
+    wall-sided value i_max·sin30·(1 + ½tan²30), which is never below the exact
     box-tank moment at 30° (checks.md §3.2: 18.667 against 18.124 m⁴ at 50 %).
+    Cached per tank: it depends only on the (immutable) tank.
     """
     if tank.transfer is not None:
-        return density_t_m3 * float(np.max(transfer_column(tank.transfer, math.radians(30.0))))
-    return density_t_m3 * tank.max_fsi_m4 * SIN30 * (1.0 + 0.5 * TAN30_SQ)
+        return float(np.max(transfer_column(tank.transfer, math.radians(30.0))))
+    return tank.max_fsi_m4 * SIN30 * (1.0 + 0.5 * TAN30_SQ)
 
 
 def transfer_column(tr: FluidTransfer, heel_rad: float) -> np.ndarray:
@@ -141,8 +144,13 @@ def free_surface(vessel: Vessel, contents: list[TankContents], rule: str) -> lis
 
     exempt = [False] * len(contents)
     if rule == "is2008":
+        by_id = {c.tank.id: c.tank for c in contents}
         for k, c in enumerate(contents):
-            exempt[k] = mfs30_bound_tm(c.tank, c.density_t_m3) / dmin < fs.small_tank_limit_m
+            # A pair is judged as one: the transfer tables are for heel to starboard, where
+            # the two halves of a shell-following pair behave differently.
+            partner = by_id.get(c.tank.pair) if c.tank.pair else None
+            m30 = max(mfs30_bound_m4(c.tank), mfs30_bound_m4(partner) if partner else 0.0)
+            exempt[k] = c.density_t_m3 * m30 / dmin < fs.small_tank_limit_m
 
     # B 3.1.4: per consumable kind, the group with the greatest effect is assumed slack.
     assumed: dict[str, str] = {}

@@ -101,4 +101,4 @@ def facts(gz: np.ndarray) -> CurveFacts:
         equilibrium = 0.0
     start = max(k, int(round(equilibrium / STEP_DEG)))
     vanish = _crossing(gz, start, rising=False) if gmax > 0 else None
-    return CurveFacts(gmax, angle, vanish, equilibrium)
+    return CurveFacts(float(gmax), float(angle), None if vanish is None else float(vanish), float(equilibrium))

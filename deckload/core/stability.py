@@ -25,7 +25,6 @@ from deckload.core.free_surface import BASIS_NONE, free_surface, transfer_moment
 from deckload.core.hydrostatics import (
     draft_at,
     fresh_water_allowance_m,
-    list_deg,
     permitted_draft_m,
     trim_m,
     upright,
@@ -102,24 +101,33 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
     warnings: list[Warning] = []
     if correction == "transfer":
         # The upright (0°) inertia still gives GM fluid; the curve takes the actual
-        # moment of fluid transfer of each counted tank at each heel.
-        shift = np.zeros_like(kn)
+        # moment of fluid transfer of each counted tank at each heel.  The tables are
+        # for heel to starboard; heeling to port, a paired tank behaves as its mirror
+        # image, the partner, heeled to starboard.
+        shift_stbd = np.zeros_like(kn)
+        shift_port = np.zeros_like(kn)
         no_geometry = []
         for c, t in zip(contents, fs):
             if t.basis == BASIS_NONE:
                 continue
             if c.tank.transfer is None:
                 no_geometry.append(c.tank.id)
-            shift += c.density_t_m3 * transfer_moment_m4(c.tank, t.basis, c.fill_pct, gzmod.FINE_RAD)
-        base = kn - w.vcg_m * gzmod.SIN - shift / disp
+            m_stbd = transfer_moment_m4(c.tank, t.basis, c.fill_pct, gzmod.FINE_RAD)
+            mirror = vessel.tank(c.tank.pair) if c.tank.pair else None
+            m_port = (transfer_moment_m4(mirror, t.basis, c.fill_pct, gzmod.FINE_RAD)
+                      if mirror is not None and mirror.transfer is not None else m_stbd)
+            shift_stbd += c.density_t_m3 * m_stbd
+            shift_port += c.density_t_m3 * m_port
+        base_stbd = kn - w.vcg_m * gzmod.SIN - shift_stbd / disp
+        base_port = kn - w.vcg_m * gzmod.SIN - shift_port / disp
         if no_geometry:
             warnings.append(Warning("fs-no-geometry",
                                     "no tank geometry for " + ", ".join(no_geometry)
                                     + ": their transfer is taken as i·sinφ", "caution"))
     else:
-        base = kn - kg_fluid * gzmod.SIN
-    gz_stbd = base - w.tcg_m * gzmod.COS
-    gz_port = base + w.tcg_m * gzmod.COS
+        base_stbd = base_port = kn - kg_fluid * gzmod.SIN
+    gz_stbd = base_stbd - w.tcg_m * gzmod.COS
+    gz_port = base_port + w.tcg_m * gzmod.COS
     side = "port" if w.tcg_m < 0 else "starboard"
     gz = gz_port if side == "port" else gz_stbd
 
@@ -149,14 +157,16 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
         else:
             criteria.append(limit_curve_criterion(vessel.limit_curve.kind, lim, kg_fluid, gm_fluid))
 
-    if gm_fluid > 0.0:
-        heel = list_deg(w.tcg_m, gm_fluid)
-    else:
-        # No upright equilibrium: she lolls (and lists) to the angle where GZ rises through zero.
-        heel = f.equilibrium_deg if side == "starboard" else -f.equilibrium_deg
+    # The list is where the GZ curve on the low side rises through zero: for small
+    # angles this is tanφ = TCG/GM fluid (standards.md §6.3), and it stays right at
+    # large angles, where the small-angle formula overstates the list.
+    heel = f.equilibrium_deg if side == "starboard" else -f.equilibrium_deg
+    if gm_fluid <= 0.0:
         warnings.append(Warning("negative-gm",
-                                f"GM fluid {gm_fluid:.3f} m is not positive: angle of loll about "
+                                f"GM fluid {gm_fluid:.3f} m is not positive: she lolls, about "
                                 f"{abs(heel):.1f}° to {side}", "danger"))
+    if f.equilibrium_deg >= 90.0:
+        warnings.append(Warning("no-equilibrium", "GZ never becomes positive: no position of equilibrium", "danger"))
 
     tanks = tuple(
         TankResult(
@@ -195,9 +205,9 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
         draft_fwd_m=t_fwd,
         draft_mean_m=t_mid,
         list_deg=heel,
-        gz_heel_deg=tuple(float(x) for x in gzmod.FINE_DEG[gzmod.WHOLE_DEGREES]),
-        gz_m=tuple(float(x) for x in gz_stbd[gzmod.WHOLE_DEGREES]),
-        gz_port_m=tuple(float(x) for x in gz_port[gzmod.WHOLE_DEGREES]),
+        gz_heel_deg=tuple(gzmod.FINE_DEG[gzmod.WHOLE_DEGREES].tolist()),
+        gz_m=tuple(gz_stbd[gzmod.WHOLE_DEGREES].tolist()),
+        gz_port_m=tuple(gz_port[gzmod.WHOLE_DEGREES].tolist()),
         criteria_side=side,
         gz_correction=correction,
         fs_rule=fs_rule,

@@ -15,8 +15,7 @@ from __future__ import annotations
 import re
 from dataclasses import dataclass
 
-import numpy as np
-
+from deckload.core.loading import volume_of
 from deckload.core.model import Condition, DeckItem, Hold, HoldLoad, MassItem, Tank, TankFill, Vessel
 
 UNITS: dict[str, str] = {"%": "percent", "m3": "volume_m3", "m³": "volume_m3", "t": "mass_t", "m": "sounding_m"}
@@ -85,17 +84,10 @@ def max_sounding_m(tank: Tank) -> float:
 
 
 def fill_volume_m3(tank: Tank, fill: TankFill | None) -> float:
-    """Volume (m³) a condition entry stands for; linear in the calibration, as the engine is."""
+    """Volume (m³) a condition entry stands for, as the engine resolves it."""
     if fill is None:
         return 0.0
-    if fill.quantity == "percent":
-        return tank.capacity_m3 * fill.value / 100.0
-    if fill.quantity == "volume_m3":
-        return fill.value
-    if fill.quantity == "mass_t":
-        return fill.value / tank_density(tank, fill)
-    cal = tank.calibration
-    return float(np.interp(fill.value, cal.sounding_m, cal.volume_m3))
+    return volume_of(tank, fill.quantity, fill.value, tank_density(tank, fill))
 
 
 def check_tank_amount(tank: Tank, quantity: str, value: float, density_t_m3: float) -> None:
@@ -125,6 +117,13 @@ def set_tank(condition: Condition, tank: Tank, quantity: str, value: float) -> C
         return condition.without_tank(tank.id)
     override = fill.density_t_m3 if fill is not None else None
     return condition.with_tank(TankFill(tank.id, quantity, float(value), override))
+
+
+def fill_text(fill: TankFill | None) -> str:
+    """A condition entry as the user would type it: 'percent 55' → '55%'."""
+    if fill is None:
+        return ""
+    return f"{fill.value:g}" + {"percent": "%", "volume_m3": "m3", "mass_t": "t", "sounding_m": "m"}[fill.quantity]
 
 
 def tank_from_text(condition: Condition, tank: Tank, text: str) -> Condition:

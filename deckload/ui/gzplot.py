@@ -42,26 +42,32 @@ class GzChart:
         heel = np.asarray(self.heel_deg, float)
         gz = np.asarray(self.gz_m, float)
         x_max = float(heel[-1]) if len(heel) else 90.0
-        lo = min(0.0, float(gz.min())) if len(gz) else 0.0
-        hi = max(0.05, float(gz.max())) if len(gz) else 1.0
-        step = _nice_step((hi - lo) / 3)
-        lo, hi = np.floor(lo / step) * step, np.ceil(hi / step) * step
+        hi = 1.08 * max(0.05, float(gz.max()) if len(gz) else 1.0)
+        # Below zero only enough to see where the curve crosses: the positive part carries the criteria.
+        lo = max(min(0.0, float(gz.min()) if len(gz) else 0.0), -0.5 * hi)
+        step = _nice_step((hi - lo) / 5)
         pw, ph = cols * 2, rows * 4
         grid = np.zeros((rows, cols), dtype=np.int32)
         xs = np.linspace(0.0, x_max, pw)
         ys = np.round((hi - np.interp(xs, heel, gz)) / (hi - lo) * (ph - 1)).astype(int)
         prev = ys[0]
         for px, py in enumerate(ys):
-            for y in range(min(prev, py), max(prev, py) + 1):  # join steep segments
+            for y in range(max(0, min(prev, py)), min(ph - 1, max(prev, py)) + 1):  # join steep segments
                 grid[y // 4, px // 2] |= _BITS[px % 2][y % 4]
             prev = py
         zero_row = int(round(hi / (hi - lo) * (ph - 1))) // 4
-        mark_cols = {int(round(m.angle_deg / x_max * (pw - 1))) // 2: m for m in self.marks if 0 <= m.angle_deg <= x_max}
+        mark_cols: dict[int, Mark] = {}
+        for m in self.marks:  # earlier marks win a shared column
+            if 0 <= m.angle_deg <= x_max:
+                mark_cols.setdefault(int(round(m.angle_deg / x_max * (pw - 1))) // 2, m)
         curve_style = P["gz.stale"] if self.stale else P["gz.curve"]
+        labels: dict[int, str] = {}
+        for k in range(int(np.ceil(lo / step)), int(np.floor(hi / step)) + 1):
+            v = k * step
+            labels.setdefault(int(round((hi - v) / (hi - lo) * (ph - 1))) // 4, f"{v:5.2f}┤")
         out: list[Text] = []
         for r in range(rows):
-            value = hi - (r * 4 + 1.5) / (ph - 1) * (hi - lo)
-            line = Text(f"{value:5.2f}┤" if r % 3 == 0 else "     │", style=P["gz.axis"])
+            line = Text(labels.get(r, "     │"), style=P["gz.axis"])
             for c in range(cols):
                 bits = int(grid[r, c])
                 if bits:
@@ -77,18 +83,24 @@ class GzChart:
         return out
 
     def _axis(self, cols: int, label_w: int, x_max: float, mark_cols: dict[int, Mark]) -> Text:
+        """Angle axis: mark labels under their columns, then 0/10/…/90 ticks where there is room."""
         chars = [" "] * cols
         styles = [P["gz.axis"]] * cols
+        taken = [False] * cols
+        for c, m in mark_cols.items():  # in priority order; a label that would overlap another is left out
+            start = min(max(0, c - len(m.label) // 2), cols - len(m.label))
+            if any(taken[max(0, start - 1) : start + len(m.label) + 1]):
+                continue
+            for i, ch in enumerate(m.label):
+                chars[start + i], styles[start + i], taken[start + i] = ch, P[m.style], True
         for deg in range(0, int(x_max) + 1, 10):
             c = int(round(deg / x_max * (cols * 2 - 1))) // 2
-            if deg % 30 == 0 and c + len(str(deg)) <= cols:
-                chars[c : c + len(str(deg))] = list(str(deg))
-        for c, m in sorted(mark_cols.items()):
-            start = min(max(0, c - len(m.label) // 2), cols - len(m.label))
-            for i, ch in enumerate(m.label):
-                chars[start + i] = ch
-                styles[start + i] = P[m.style]
-        line = Text(" deg".ljust(label_w), style=P["gz.axis"])
+            text = f"{deg}°" if deg == int(x_max) else str(deg)
+            c = min(c, cols - len(text))
+            if not any(taken[max(0, c - 1) : c + len(text) + 1]):
+                for i, ch in enumerate(text):
+                    chars[c + i], taken[c + i] = ch, True
+        line = Text(" " * label_w, style=P["gz.axis"])
         for ch, st in zip(chars, styles):
             line.append(ch, st)
         return line

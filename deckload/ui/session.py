@@ -48,17 +48,18 @@ class Journal:
         self.problem = problem
         """Why the log cannot be written (read-only, unreadable), or None."""
         self.officer = ""
-        """Initials of the officer who last recorded a condition; used for later edits."""
+        """Initials of the officer on watch (1–4 letters); edits are logged under them, and not
+        logged until someone signs on (the title line says so)."""
 
     @property
     def writable(self) -> bool:
-        return self.logbook is not None and not getattr(self.logbook, "read_only", False)
+        return self.logbook is not None and not self.logbook.readonly
 
     def append(self, **entry: Any) -> str | None:
         """Append an entry; return an error message instead of raising."""
-        if not self.writable:
+        if not self.writable or not (entry.get("by") or self.officer):
             return None
-        entry.setdefault("by", self.officer or "-")
+        entry.setdefault("by", self.officer)
         try:
             self.logbook.append(**entry)
         except Exception as exc:  # the log must never take the screen down
@@ -109,6 +110,14 @@ class Session:
         return bool(self._redo)
 
     @property
+    def undo_depth(self) -> int:
+        return len(self._undo)
+
+    @property
+    def redo_depth(self) -> int:
+        return len(self._redo)
+
+    @property
     def undo_label(self) -> str | None:
         return self._undo[-1].label if self._undo else None
 
@@ -130,11 +139,11 @@ class Session:
         """
         if condition == self.condition:
             raise EntryError("No change: the value is the same as before.")
-        self._check(condition)
+        evaluated = self._check(condition)
         step = Step(self.condition, condition, label, kind, dict(data or {}))
         self._undo.append(step)
         self._redo.clear()
-        return self._apply(condition, kind, label, step.data)
+        return self._apply(condition, kind, label, step.data, evaluated)
 
     def undo(self) -> tuple[str, list[str]]:
         if not self._undo:
@@ -142,7 +151,7 @@ class Session:
         step = self._undo.pop()
         self._redo.append(step)
         label = f"Undo: {step.label}"
-        return label, self._apply(step.before, "undo", label, {"undone": step.kind, **step.data})
+        return label, self._apply(step.before, "edit", label, {"undone": step.kind, **step.data})
 
     def redo(self) -> tuple[str, list[str]]:
         if not self._redo:
@@ -150,37 +159,43 @@ class Session:
         step = self._redo.pop()
         self._undo.append(step)
         label = f"Redo: {step.label}"
-        return label, self._apply(step.after, "redo", label, {"redone": step.kind, **step.data})
+        return label, self._apply(step.after, step.kind, label, {"redone": step.kind, **step.data})
 
     def record(self, by: str, remark: str) -> list[str]:
         """Record the working condition in the log, signed with initials."""
         self.journal.officer = by
         err = self.journal.append(
-            kind="condition", by=by, change_text=remark or "condition recorded",
+            kind="condition", by=by, change_text=f"condition recorded: {self.condition.name}", remark=remark,
             change_data={}, result=self.result if not self.stale else None, condition=self.condition,
         )
         return [err] if err else []
 
     # ------------------------------------------------------------------ internals
 
-    def _check(self, condition: Condition) -> None:
+    def _check(self, condition: Condition) -> Result | OutOfRangeError:
+        """Evaluate a candidate: its result, or the out-of-range error (which is not a refusal)."""
         try:
-            self._evaluate(self.vessel, condition)
-        except OutOfRangeError:
-            pass
+            return self._evaluate(self.vessel, condition)
+        except OutOfRangeError as exc:
+            return exc
         except (ValueError, KeyError) as exc:
             raise EntryError(f"Refused by the calculation: {exc}") from exc
 
-    def _recompute(self) -> None:
-        try:
-            self.result = self._evaluate(self.vessel, self.condition)
-            self.stale, self.problem = False, None
-        except OutOfRangeError as exc:
-            self.stale, self.problem = True, str(exc)
+    def _recompute(self, evaluated: Result | OutOfRangeError | None = None) -> None:
+        if evaluated is None:
+            try:
+                evaluated = self._evaluate(self.vessel, self.condition)
+            except OutOfRangeError as exc:
+                evaluated = exc
+        if isinstance(evaluated, OutOfRangeError):
+            self.stale, self.problem = True, str(evaluated)
+        else:
+            self.result, self.stale, self.problem = evaluated, False, None
 
-    def _apply(self, condition: Condition, kind: str, label: str, data: dict) -> list[str]:
+    def _apply(self, condition: Condition, kind: str, label: str, data: dict,
+               evaluated: Result | OutOfRangeError | None = None) -> list[str]:
         self.condition = condition
-        self._recompute()
+        self._recompute(evaluated)
         problems = []
         if self.save_path is not None and self._save is not None:
             try:

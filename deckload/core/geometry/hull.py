@@ -27,6 +27,12 @@ def section_polygon(waterline_z_m: np.ndarray, half_breadth_m: np.ndarray, deck_
     below = zw < deck_z_m
     z_side = np.append(zw[below], deck_z_m)
     y_side = np.append(hb[below], float(np.interp(deck_z_m, zw, hb)))
+    # where the hull does not reach down to the lowest waterlines (rising run, raked
+    # stem) start at the last zero offset: the section's true lowest point
+    nz = np.flatnonzero(y_side > 0.0)
+    if len(nz) and nz[0] > 1:
+        z_side = z_side[nz[0] - 1:]
+        y_side = y_side[nz[0] - 1:]
     y = np.concatenate([y_side, -y_side[::-1]])
     z = np.concatenate([z_side, z_side[::-1]])
     return y, z

@@ -1,0 +1,119 @@
+"""``deckload check PROFILE [CONDITION]``: validate a vessel profile and, optionally, a condition.
+
+Prints a short summary when everything is in order, otherwise every problem, one per
+line, in the form ``file:line: dotted.key = value: rule``.  With a condition, the
+condition is also computed once, so that a displacement or draft outside the
+vessel's tables is reported here rather than on the loading screen.
+
+Exit status: 0 no problems; 1 problems found; 2 a file could not be read;
+3 an internal error (a bug: please report it with the files).
+"""
+
+from __future__ import annotations
+
+import os
+import sys
+import traceback
+from pathlib import Path
+
+from deckload.core import model as m
+from deckload.profiles import Problem, ProfileError, load_condition, load_profile
+
+CAUTION = (
+    "deckload supports, and never replaces, the approved stability booklet, "
+    "the master's judgement and flag-State and class rules."
+)
+
+
+def _plural(n: int, word: str, many: str | None = None) -> str:
+    return f"{n} {word if n == 1 else (many or word + 's')}"
+
+
+def _range(a, unit: str) -> str:
+    sep = "" if unit == "°" else " "
+    return f"{float(a[0]):.4g}–{float(a[-1]):.4g}{sep}{unit}"
+
+
+def profile_summary(path: Path, v: m.Vessel) -> list[str]:
+    """A few lines saying what the profile holds and over which ranges its tables run."""
+    h, k = v.hydrostatics, v.cross_curves
+    rows = [len(t.calibration.sounding_m) for t in v.tanks]
+    lines = [
+        f"OK  {path}: {v.particulars.name!r}: {_plural(len(v.tanks), 'tank')}, {_plural(len(v.holds), 'hold')}, "
+        f"{_plural(len(v.deck_areas), 'deck area')}, {_plural(len(v.load_lines), 'load line')}",
+        f"    hydrostatics: draft {_range(h.draft_m, 'm')}, displacement {_range(h.displacement_t, 't')} "
+        f"at {v.particulars.table_density_t_m3:g} t/m³ ({_plural(len(h.draft_m), 'row')})",
+        f"    cross curves: displacement {_range(k.displacement_t, 't')}, heel {_range(k.heel_deg, '°')}, {k.trim_basis}",
+    ]
+    if rows:
+        lines.append(f"    tank calibrations: {min(rows)}–{max(rows)} rows each")
+    if v.limit_curve is not None:
+        lines.append(f"    limit curve ({v.limit_curve.kind}): displacement {_range(v.limit_curve.displacement_t, 't')}")
+    return lines
+
+
+def _print_problems(problems: list[Problem], path: Path) -> None:
+    for p in problems:
+        print(p)
+    print(f"{_plural(len(problems), 'problem')} in {path}")
+
+
+def run_check(profile_path: Path, condition_path: Path | None = None) -> int:
+    """Validate the profile (and the condition against it); print the outcome; return the exit status."""
+    profile_path = Path(profile_path)
+    try:
+        vessel = load_profile(profile_path)
+    except OSError as e:
+        print(f"deckload: cannot read {profile_path}: {e.strerror or e}", file=sys.stderr)
+        return 2
+    except ProfileError as e:
+        _print_problems(e.problems, profile_path)
+        if condition_path is not None:
+            print(f"{condition_path}: not checked: its vessel profile has problems")
+        return 1
+    for line in profile_summary(profile_path, vessel):
+        print(line)
+
+    status = 0
+    if condition_path is not None:
+        status = _check_condition(Path(condition_path), vessel)
+    print(CAUTION)
+    return status
+
+
+def _check_condition(path: Path, vessel: m.Vessel) -> int:
+    try:
+        condition = load_condition(path, vessel)
+    except OSError as e:
+        print(f"deckload: cannot read {path}: {e.strerror or e}", file=sys.stderr)
+        return 2
+    except ProfileError as e:
+        _print_problems(e.problems, path)
+        return 1
+
+    from deckload.core.stability import evaluate
+    from deckload.core.tables import OutOfRangeError
+
+    try:
+        result = evaluate(vessel, condition)
+    except OutOfRangeError as e:
+        _print_problems([Problem(str(path), None, "", None, f"cannot be computed: {e}")], path)
+        return 1
+    except ValueError as e:
+        _print_problems([Problem(str(path), None, "", None, f"cannot be computed: {e}")], path)
+        return 1
+    except Exception as e:  # a bug in deckload, not in the file: say so, without a traceback
+        print(f"deckload: internal error computing {path}: {type(e).__name__}: {e} "
+              "(please report it with the profile and condition)", file=sys.stderr)
+        if os.environ.get("DECKLOAD_DEBUG"):
+            traceback.print_exc()
+        return 3
+    met = sum(1 for c in result.criteria if c.passed)
+    print(
+        f"OK  {path}: {condition.name!r}: valid, and computes to displacement {result.displacement_t:.1f} t, "
+        f"mean draft {result.draft_mean_m:.3f} m, GM fluid {result.gm_fluid_m:.3f} m; "
+        f"stability criteria met: {met} of {len(result.criteria)}"
+    )
+    for w in result.warnings:
+        print(f"    {w.severity}: {w.message}")
+    return 0

@@ -1,0 +1,596 @@
+"""Geometry files (``*.geometry.toml``) → the validated, frozen geometry model.
+
+The schema is described at the top of ``vessel_profiles/demo_islander.geometry.toml``
+and in ``vessel_profiles/README.md`` ("Geometry files").  Every problem in a file
+is collected and reported at once; each names the file, the line (found by
+scanning the text for the key or its table header), the dotted key (tanks by id,
+e.g. ``tank[DB1P].x_m``), the offending value and the rule broken::
+
+    demo.geometry.toml:31: hull.station_x_m = [-1.6, 0.0, 0.0, …]: not strictly increasing (row 3: 0.0 after 0.0)
+"""
+
+from __future__ import annotations
+
+import math
+import os
+import re
+import tomllib
+from dataclasses import dataclass
+from pathlib import Path
+from typing import Any
+
+import numpy as np
+
+from deckload.core.geometry.body import Body, immerse
+from deckload.core.geometry.hull import compartment_polygon, compartment_sections, hull_section_at, hull_sections
+from deckload.core.geometry.sections import clip_to_box, polygon_area
+from deckload.core.geometry.spec import (
+    COMPARTMENT_SHAPES,
+    CompartmentShape,
+    DeckAreaSpec,
+    Geometry,
+    HoldSpec,
+    HullOffsets,
+    OpeningSpec,
+    TableSpec,
+    TankSpec,
+    VesselSpec,
+)
+from deckload.core.model import LIQUID_KINDS
+
+GEOMETRY_FORMAT = "deckload-geometry-1"
+ID_PATTERN = re.compile(r"^[A-Za-z0-9_-]+$")
+OUTSIDE_TOLERANCE = 0.005
+"""A box or prism tank may stick out of the hull by at most 0.5 % of its section area."""
+
+
+@dataclass(frozen=True)
+class GeometryProblem:
+    file: str
+    line: int | None
+    key: str
+    value: str | None
+    rule: str
+
+    def __str__(self) -> str:
+        where = f"{self.file}:{self.line}" if self.line else self.file
+        what = self.key if self.value is None else f"{self.key} = {self.value}"
+        return f"{where}: {what}: {self.rule}" if what else f"{where}: {self.rule}"
+
+
+class GeometryError(Exception):
+    """One or more problems in a geometry file; ``problems`` lists them all."""
+
+    def __init__(self, problems: list[GeometryProblem]):
+        self.problems = problems
+        super().__init__("\n".join(str(p) for p in problems))
+
+
+def _fmt(v: Any) -> str:
+    if isinstance(v, list):
+        inner = ", ".join(_fmt(x) for x in v[:4])
+        more = f", …{len(v)} values" if len(v) > 4 else ""
+        return f"[{inner}{more}]"
+    if isinstance(v, str):
+        return repr(v)
+    if isinstance(v, bool):
+        return "true" if v else "false"
+    if isinstance(v, float):
+        return f"{v:g}"
+    return str(v)
+
+
+class _Lines:
+    """Line numbers of keys: (table name, entry index or None, key) → 1-based line."""
+
+    _header = re.compile(r"^\s*(\[\[?)\s*([A-Za-z0-9_.\-]+)\s*\]\]?")
+    _key = re.compile(r"^\s*([A-Za-z0-9_\-]+)\s*=")
+
+    def __init__(self, text: str):
+        self.map: dict[tuple, int] = {}
+        counts: dict[str, int] = {}
+        table: tuple = ("", None)
+        depth = 0
+        for n, line in enumerate(text.splitlines(), start=1):
+            if depth == 0:
+                h = self._header.match(line)
+                if h:
+                    name = h.group(2)
+                    if h.group(1) == "[[":
+                        idx = counts.get(name, 0)
+                        counts[name] = idx + 1
+                        table = (name, idx)
+                    else:
+                        parent = name.split(".")[0]
+                        table = (name, counts.get(parent, 1) - 1 if "." in name else None)
+                    self.map.setdefault(table, n)
+                    continue
+                k = self._key.match(line)
+                if k:
+                    self.map.setdefault(table + (k.group(1),), n)
+            code = line.split("#", 1)[0]
+            depth += code.count("[") - code.count("]")
+            depth = max(depth, 0)
+
+    def find(self, table: str, index: int | None, key: str | None) -> int | None:
+        if key is not None and (table, index, key) in self.map:
+            return self.map[(table, index, key)]
+        return self.map.get((table, index))
+
+
+class _Reader:
+    def __init__(self, filename: str, text: str):
+        self.filename = filename
+        self.text = text
+        self.lines = _Lines(text)
+        self.problems: list[GeometryProblem] = []
+
+    def bad(self, table: str, index: int | None, name: str, key: str | None, value: Any, rule: str) -> None:
+        dotted = f"{name}.{key}" if key else name
+        val = None if value is _MISSING else _fmt(value)
+        self.problems.append(GeometryProblem(self.filename, self.lines.find(table, index, key), dotted, val, rule))
+
+
+_MISSING = object()
+
+
+class _Tab:
+    """One table of the file, read with checks; unknown keys are problems."""
+
+    def __init__(self, r: _Reader, data: Any, table: str, index: int | None, name: str):
+        self.r, self.table, self.index, self.name = r, table, index, name
+        self.data = data if isinstance(data, dict) else {}
+        self.seen: set[str] = set()
+        if not isinstance(data, dict):
+            r.bad(table, index, name, None, data, "must be a table")
+
+    def bad(self, key: str | None, value: Any, rule: str) -> None:
+        self.r.bad(self.table, self.index, self.name, key, value, rule)
+
+    def has(self, k: str) -> bool:
+        return k in self.data
+
+    def get(self, k: str, required: bool = True) -> Any:
+        self.seen.add(k)
+        if k not in self.data:
+            if required:
+                self.bad(k, _MISSING, "missing (required)")
+            return _MISSING
+        return self.data[k]
+
+    def num(self, k: str, lo: float | None = None, hi: float | None = None, required: bool = True,
+            default: float | None = None, strict_lo: bool = False) -> float | None:
+        v = self.get(k, required)
+        if v is _MISSING:
+            return default
+        if isinstance(v, bool) or not isinstance(v, (int, float)) or not math.isfinite(v):
+            self.bad(k, v, "must be a finite number")
+            return None
+        v = float(v)
+        if lo is not None and (v < lo or (strict_lo and v <= lo)):
+            self.bad(k, v, f"must be {'above' if strict_lo else 'at least'} {lo:g}")
+            return None
+        if hi is not None and v > hi:
+            self.bad(k, v, f"must be at most {hi:g}")
+            return None
+        return v
+
+    def text(self, k: str, required: bool = True, choices: tuple[str, ...] | None = None,
+             default: str | None = None) -> str | None:
+        v = self.get(k, required)
+        if v is _MISSING:
+            return default
+        if not isinstance(v, str):
+            self.bad(k, v, "must be a string")
+            return None
+        if choices is not None and v not in choices:
+            self.bad(k, v, "must be one of " + ", ".join(repr(c) for c in choices))
+            return None
+        return v
+
+    def array(self, k: str, required: bool = True, min_len: int = 1, increasing: bool = False,
+              lo: float | None = None, length: int | None = None) -> np.ndarray | None:
+        v = self.get(k, required)
+        if v is _MISSING:
+            return None
+        if not isinstance(v, list) or not all(
+            isinstance(x, (int, float)) and not isinstance(x, bool) and math.isfinite(x) for x in v
+        ):
+            self.bad(k, v, "must be an array of finite numbers")
+            return None
+        a = np.array(v, dtype=float)
+        if len(a) < min_len:
+            self.bad(k, v, f"needs at least {min_len} values")
+            return None
+        if length is not None and len(a) != length:
+            self.bad(k, v, f"must have {length} values, has {len(a)}")
+            return None
+        if lo is not None and np.any(a < lo):
+            i = int(np.argmax(a < lo))
+            self.bad(k, v, f"value {i + 1} ({a[i]:g}) is below {lo:g}")
+            return None
+        if increasing:
+            d = np.diff(a)
+            if np.any(d <= 0):
+                i = int(np.argmax(d <= 0)) + 1
+                self.bad(k, v, f"not strictly increasing (value {i + 1}: {a[i]:g} after {a[i - 1]:g})")
+                return None
+        return a
+
+    def pair(self, k: str, required: bool = True) -> tuple[float, float] | None:
+        a = self.array(k, required=required, min_len=2, length=2)
+        if a is None:
+            return None
+        if not a[0] < a[1]:
+            self.bad(k, self.data[k], "must be [from, to] with from below to")
+            return None
+        return float(a[0]), float(a[1])
+
+    def finish(self) -> None:
+        for k in self.data:
+            if k not in self.seen:
+                self.bad(k, self.data[k], "unknown key")
+
+
+def load_geometry(path: str | os.PathLike) -> Geometry:
+    """Read and validate a geometry file; raises :class:`GeometryError` listing every problem."""
+    p = Path(path)
+    try:
+        text = p.read_text(encoding="utf-8")
+    except OSError as e:
+        raise GeometryError([GeometryProblem(str(path), None, "", None, f"cannot read the file: {e.strerror or e}")])
+    except UnicodeDecodeError as e:
+        raise GeometryError([GeometryProblem(str(path), None, "", None, f"not UTF-8 text ({e.reason})")])
+    return parse_geometry(text, str(path))
+
+
+def parse_geometry(text: str, filename: str = "<geometry>") -> Geometry:
+    r = _Reader(filename, text)
+    try:
+        data = tomllib.loads(text)
+    except tomllib.TOMLDecodeError as e:
+        m = re.search(r"line (\d+)", str(e))
+        raise GeometryError([GeometryProblem(filename, int(m.group(1)) if m else None, "", None, f"TOML syntax: {e}")])
+    root = _Tab(r, data, "", None, "")
+    fmt = root.get("format")
+    if fmt is not _MISSING and fmt != GEOMETRY_FORMAT:
+        root.bad("format", fmt, f"must be {GEOMETRY_FORMAT!r}")
+    vessel = _read_vessel(root)
+    hull = _read_hull(root)
+    tables = _read_tables(root, hull)
+    ids: dict[str, str] = {}
+    tanks = _read_tanks(root, hull, ids)
+    holds = _read_holds(root, hull, ids)
+    areas = _read_deck_areas(root, hull, ids)
+    openings = _read_openings(root, hull)
+    root.finish()
+    if vessel is not None and hull is not None:
+        xs = hull.station_x_m
+        if not (xs[0] <= 0.0 and vessel.lbp_m <= xs[-1]):
+            root_t = _Tab(r, data.get("hull", {}), "hull", None, "hull")
+            root_t.bad("station_x_m", data["hull"]["station_x_m"],
+                       f"must reach from the AP (x = 0) to the FP (x = lbp_m = {vessel.lbp_m:g})")
+    if r.problems:
+        raise GeometryError(r.problems)
+    assert vessel is not None and hull is not None and tables is not None
+    return Geometry(vessel=vessel, hull=hull, tables=tables, tanks=tuple(tanks), holds=tuple(holds),
+                    deck_areas=tuple(areas), openings=tuple(openings))
+
+
+def _read_vessel(root: _Tab) -> VesselSpec | None:
+    if root.get("vessel") is _MISSING:
+        return None
+    t = _Tab(root.r, root.data["vessel"], "vessel", None, "vessel")
+    kw = dict(
+        name=t.text("name"),
+        lbp_m=t.num("lbp_m", 0.0, strict_lo=True),
+        breadth_m=t.num("breadth_m", 0.0, strict_lo=True),
+        depth_m=t.num("depth_m", 0.0, strict_lo=True),
+        design_draft_m=t.num("design_draft_m", 0.0, strict_lo=True),
+        table_density_t_m3=t.num("table_density_t_m3", 0.99, 1.04, required=False, default=1.025),
+    )
+    t.finish()
+    if any(v is None for v in kw.values()):
+        return None
+    if kw["design_draft_m"] >= kw["depth_m"]:
+        t.bad("design_draft_m", kw["design_draft_m"], f"must be below depth_m ({kw['depth_m']:g} m)")
+        return None
+    return VesselSpec(**kw)
+
+
+def _read_hull(root: _Tab) -> HullOffsets | None:
+    if root.get("hull") is _MISSING:
+        return None
+    t = _Tab(root.r, root.data["hull"], "hull", None, "hull")
+    xs = t.array("station_x_m", min_len=3, increasing=True)
+    zw = t.array("waterline_z_m", min_len=2, increasing=True, lo=0.0)
+    deck = t.array("deck_z_m", length=None if xs is None else len(xs))
+    hb_raw = t.get("half_breadth_m")
+    t.finish()
+    hb = None
+    if hb_raw is not _MISSING and xs is not None and zw is not None:
+        if not isinstance(hb_raw, list) or len(hb_raw) != len(xs):
+            t.bad("half_breadth_m", hb_raw, f"must have one row per station ({len(xs)} rows)")
+        else:
+            rows = []
+            ok = True
+            for i, row in enumerate(hb_raw):
+                if not isinstance(row, list) or len(row) != len(zw) or not all(
+                    isinstance(v, (int, float)) and not isinstance(v, bool) and math.isfinite(v) for v in row
+                ):
+                    t.bad("half_breadth_m", row,
+                          f"row {i + 1} (station x = {xs[i]:g} m) must be {len(zw)} finite numbers, one per waterline")
+                    ok = False
+                    continue
+                a = np.array(row, dtype=float)
+                if np.any(a < 0):
+                    j = int(np.argmax(a < 0))
+                    t.bad("half_breadth_m", row,
+                          f"negative half-breadth {a[j]:g} m at station x = {xs[i]:g} m, waterline z = {zw[j]:g} m")
+                    ok = False
+                rows.append(a)
+            if ok:
+                hb = np.array(rows)
+    if deck is not None and zw is not None:
+        lo_bad = deck <= zw[0]
+        hi_bad = deck > zw[-1]
+        if np.any(lo_bad | hi_bad):
+            i = int(np.argmax(lo_bad | hi_bad))
+            t.bad("deck_z_m", t.data["deck_z_m"],
+                  f"deck height {deck[i]:g} m at station {i + 1} must lie above the lowest waterline "
+                  f"and not above the highest ({zw[0]:g}–{zw[-1]:g} m)")
+            deck = None
+    if xs is None or zw is None or deck is None or hb is None:
+        return None
+    hull = HullOffsets(xs, zw, hb, deck)
+    y, z = hull_sections(hull)
+    areas = 0.5 * np.sum(y * np.roll(z, -1, axis=1) - np.roll(y, -1, axis=1) * z, axis=1)
+    if not np.any(areas > 0):
+        t.bad("half_breadth_m", t.data["half_breadth_m"], "all sections have zero area: there is no hull")
+        return None
+    return hull
+
+
+def _read_tables(root: _Tab, hull: HullOffsets | None) -> TableSpec | None:
+    if root.get("tables") is _MISSING:
+        return None
+    t = _Tab(root.r, root.data["tables"], "tables", None, "tables")
+    draft = t.array("draft_m", min_len=2, increasing=True, lo=0.0)
+    if draft is not None and draft[0] <= 0.0:
+        t.bad("draft_m", t.data["draft_m"], "drafts must be above 0")
+        draft = None
+    if draft is not None and hull is not None and draft[-1] > float(np.min(hull.deck_z_m)):
+        t.bad("draft_m", t.data["draft_m"],
+              f"the deepest draft {draft[-1]:g} m is above the lowest deck at side ({float(np.min(hull.deck_z_m)):g} m)")
+        draft = None
+    disp = t.array("kn_displacement_t", min_len=2, increasing=True)
+    if disp is not None and disp[0] <= 0:
+        t.bad("kn_displacement_t", t.data["kn_displacement_t"], "displacements must be above 0")
+        disp = None
+    heel = t.array("kn_heel_deg", min_len=2, increasing=True)
+    if heel is not None and (heel[0] != 0.0 or heel[-1] > 90.0):
+        t.bad("kn_heel_deg", t.data["kn_heel_deg"], "must start at 0 and end at most at 90")
+        heel = None
+    basis = t.text("trim_basis", choices=("free trim", "even keel"))
+    lcg = t.num("trim_lcg_m", required=basis == "free trim", default=0.0)
+    vcg = t.num("trim_vcg_m", 0.0, required=basis == "free trim", default=0.0)
+    step = t.num("sounding_step_m", 0.0, required=False, default=0.1, strict_lo=True)
+    fstep = t.num("transfer_fill_step_pct", 0.0, 50.0, required=False, default=5.0, strict_lo=True)
+    if fstep is not None and abs(100.0 / fstep - round(100.0 / fstep)) > 1e-9:
+        t.bad("transfer_fill_step_pct", fstep, "must divide 100")
+        fstep = None
+    theel = t.array("transfer_heel_deg", required=False, min_len=2, increasing=True)
+    if theel is not None and (theel[0] != 0.0 or theel[-1] > 90.0):
+        t.bad("transfer_heel_deg", t.data["transfer_heel_deg"], "must start at 0 and end at most at 90")
+        theel = None
+    t.finish()
+    if hull is not None and lcg is not None and not hull.station_x_m[0] < lcg < hull.station_x_m[-1]:
+        t.bad("trim_lcg_m", lcg, "must lie between the end stations")
+        lcg = None
+    if any(v is None for v in (draft, disp, heel, basis, lcg, vcg, step, fstep)):
+        return None
+    return TableSpec(draft_m=draft, kn_displacement_t=disp, kn_heel_deg=heel, trim_basis=basis,
+                     trim_lcg_m=lcg, trim_vcg_m=vcg, sounding_step_m=step, transfer_fill_step_pct=fstep,
+                     transfer_heel_deg=theel)
+
+
+def _entries(root: _Tab, key: str) -> list[_Tab]:
+    v = root.get(key, required=False)
+    if v is _MISSING:
+        return []
+    if not isinstance(v, list):
+        root.bad(key, v, f"must be an array of tables ([[{key}]])")
+        return []
+    return [_Tab(root.r, e, key, i, f"{key}[#{i + 1}]") for i, e in enumerate(v)]
+
+
+def _claim_id(t: _Tab, kind: str, ids: dict[str, str]) -> str | None:
+    ident = t.text("id")
+    if ident is None:
+        return None
+    if not ID_PATTERN.match(ident):
+        t.bad("id", ident, "must use only letters, digits, '-' and '_'")
+        return None
+    own = t.name
+    t.name = f"{kind}[{ident}]"
+    if ident in ids:
+        t.bad("id", ident, f"duplicate id: already used by {ids[ident]}")
+        return None
+    ids[ident] = own
+    return ident
+
+
+def _read_shape(t: _Tab, hull: HullOffsets | None) -> CompartmentShape | None:
+    shape = t.text("shape", choices=COMPARTMENT_SHAPES)
+    x = t.pair("x_m")
+    if shape is None or x is None:
+        for k in ("y_m", "z_m", "section_y_m", "section_z_m"):
+            t.get(k, required=False)
+        return None
+    if hull is not None and not (hull.station_x_m[0] <= x[0] and x[1] <= hull.station_x_m[-1]):
+        t.bad("x_m", t.data["x_m"], f"must lie within the hull's stations "
+              f"({hull.station_x_m[0]:g} to {hull.station_x_m[-1]:g} m)")
+        return None
+    if shape == "prism":
+        sy = t.array("section_y_m", min_len=3)
+        sz = t.array("section_z_m", min_len=3, length=None if sy is None else len(sy))
+        for k in ("y_m", "z_m"):
+            if t.has(k):
+                t.get(k)
+                t.bad(k, t.data[k], "not used by a prism (give section_y_m and section_z_m)")
+        if sy is None or sz is None:
+            return None
+        if abs(polygon_area(sy, sz)) <= 1e-9:
+            t.bad("section_y_m", t.data["section_y_m"], "the section polygon has no area")
+            return None
+        return CompartmentShape("prism", x[0], x[1], section_y_m=sy, section_z_m=sz)
+    y = t.pair("y_m")
+    z = t.pair("z_m")
+    for k in ("section_y_m", "section_z_m"):
+        if t.has(k):
+            t.get(k)
+            t.bad(k, t.data[k], f"only a prism has a section polygon (shape is {shape!r})")
+    if y is None or z is None:
+        return None
+    if z[0] < 0.0:
+        t.bad("z_m", t.data["z_m"], "must not go below the keel (z = 0)")
+        return None
+    return CompartmentShape(shape, x[0], x[1], y[0], y[1], z[0], z[1])
+
+
+def _check_inside(t: _Tab, shape: CompartmentShape, hull: HullOffsets | None) -> bool:
+    """A hull-shaped compartment must contain some hull; a box or prism must lie inside it."""
+    if hull is None:
+        return False
+    xs, y, z = compartment_sections(shape, hull)
+    body = Body(xs, y, z)
+    vol = float(immerse(body, 1.0, 0.0, body.z_max_m + 1.0).volume_m3)
+    if vol <= 0.0:
+        t.bad("x_m", t.data.get("x_m"), "the compartment lies outside the hull (no volume between its planes)")
+        return False
+    if shape.shape == "hull":
+        return True
+    for x in np.linspace(shape.x_from_m, shape.x_to_m, 9):
+        py, pz = compartment_polygon(shape, hull, float(x))
+        a = polygon_area(py, pz)
+        hy, hz = hull_section_at(hull, float(x))
+        # the part of the compartment section inside the hull section (hull is convex per side only
+        # in general, so clip the compartment by the hull's bounding rows instead: use the hull
+        # polygon clipped to the compartment's bounding box and compare areas)
+        iy, iz = clip_to_box(hy, hz, float(py.min()), float(py.max()), float(pz.min()), float(pz.max()))
+        inside = polygon_area(iy, iz)
+        bbox = (py.max() - py.min()) * (pz.max() - pz.min())
+        if shape.shape == "box" and inside < a * (1.0 - OUTSIDE_TOLERANCE):
+            t.bad("y_m", t.data.get("y_m"), f"the box sticks out of the hull at x = {x:.2f} m "
+                  f"({100 * (1 - inside / a):.1f} % of its section is outside the shell)")
+            return False
+        if shape.shape == "prism" and inside < bbox * (1.0 - OUTSIDE_TOLERANCE) and not _prism_inside(py, pz, hy, hz):
+            t.bad("section_y_m", t.data.get("section_y_m"),
+                  f"the prism's section sticks out of the hull at x = {x:.2f} m")
+            return False
+    return True
+
+
+def _prism_inside(py: np.ndarray, pz: np.ndarray, hy: np.ndarray, hz: np.ndarray) -> bool:
+    """Every vertex of the prism section inside (or on) the hull section (crossing-number test)."""
+    for y0, z0 in zip(py, pz):
+        inside = False
+        n = len(hy)
+        for i in range(n):
+            y1, z1, y2, z2 = hy[i], hz[i], hy[(i + 1) % n], hz[(i + 1) % n]
+            if (z1 > z0) != (z2 > z0):
+                yc = y1 + (z0 - z1) * (y2 - y1) / (z2 - z1)
+                if y0 <= yc + 1e-9:
+                    inside = not inside
+        on_edge = any(
+            abs((hy[(i + 1) % n] - hy[i]) * (z0 - hz[i]) - (hz[(i + 1) % n] - hz[i]) * (y0 - hy[i])) < 1e-9
+            and min(hy[i], hy[(i + 1) % n]) - 1e-9 <= y0 <= max(hy[i], hy[(i + 1) % n]) + 1e-9
+            and min(hz[i], hz[(i + 1) % n]) - 1e-9 <= z0 <= max(hz[i], hz[(i + 1) % n]) + 1e-9
+            for i in range(n)
+        )
+        if not inside and not on_edge:
+            return False
+    return True
+
+
+def _read_tanks(root: _Tab, hull: HullOffsets | None, ids: dict[str, str]) -> list[TankSpec]:
+    out: list[TankSpec] = []
+    entries = []
+    for t in _entries(root, "tank"):
+        ident = _claim_id(t, "tank", ids)
+        name = t.text("name")
+        kind = t.text("kind", choices=LIQUID_KINDS)
+        dens = t.num("density_t_m3", 0.5, 2.0)
+        pair = t.text("pair", required=False)
+        cat = t.text("fs_category", required=False, choices=("fixed", "variable"))
+        shape = _read_shape(t, hull)
+        t.finish()
+        ok = shape is not None and _check_inside(t, shape, hull)
+        entries.append((t, ident, pair))
+        if ok and None not in (ident, name, kind, dens):
+            out.append(TankSpec(id=ident, name=name, kind=kind, density_t_m3=dens, shape=shape, pair=pair,
+                                fs_category=cat))
+    pairs = {ident: pair for _, ident, pair in entries if ident is not None}
+    for t, ident, pair in entries:
+        if ident is None or pair is None:
+            continue
+        if pair == ident:
+            t.bad("pair", pair, "a tank cannot be its own pair")
+        elif pair not in pairs:
+            t.bad("pair", pair, "no tank with this id")
+        elif pairs[pair] != ident:
+            t.bad("pair", pair, f"tank {pair} does not name {ident} back as its pair")
+    return out
+
+
+def _read_holds(root: _Tab, hull: HullOffsets | None, ids: dict[str, str]) -> list[HoldSpec]:
+    out = []
+    for t in _entries(root, "hold"):
+        ident = _claim_id(t, "hold", ids)
+        name = t.text("name")
+        mx = t.num("max_mass_t", 0.0, required=False, strict_lo=True)
+        has_mx = t.has("max_mass_t")
+        shape = _read_shape(t, hull)
+        t.finish()
+        ok = shape is not None and _check_inside(t, shape, hull)
+        if ok and ident is not None and name is not None and (mx is not None or not has_mx):
+            out.append(HoldSpec(id=ident, name=name, shape=shape, max_mass_t=mx))
+    return out
+
+
+def _read_deck_areas(root: _Tab, hull: HullOffsets | None, ids: dict[str, str]) -> list[DeckAreaSpec]:
+    out = []
+    for t in _entries(root, "deck_area"):
+        ident = _claim_id(t, "deck_area", ids)
+        name = t.text("name")
+        x = t.pair("x_m")
+        y = t.pair("y_m")
+        has_mx = t.has("max_load_t_m2")
+        mx = t.num("max_load_t_m2", 0.0, required=False, strict_lo=True)
+        t.finish()
+        if x is not None and hull is not None and not (hull.station_x_m[0] <= x[0] and x[1] <= hull.station_x_m[-1]):
+            t.bad("x_m", t.data["x_m"], "must lie within the hull's stations")
+            x = None
+        if None in (ident, name, x, y) or (has_mx and mx is None):
+            continue
+        out.append(DeckAreaSpec(ident, name, x[0], x[1], y[0], y[1], mx))
+    return out
+
+
+def _read_openings(root: _Tab, hull: HullOffsets | None) -> list[OpeningSpec]:
+    out = []
+    for t in _entries(root, "opening"):
+        name = t.text("name")
+        if name is not None:
+            t.name = f"opening[{name}]"
+        x = t.num("x_m")
+        y = t.num("y_m")
+        z = t.num("z_m", 0.0)
+        t.finish()
+        if x is not None and hull is not None and not hull.station_x_m[0] <= x <= hull.station_x_m[-1]:
+            t.bad("x_m", x, "must lie within the hull's stations")
+            x = None
+        if None in (name, x, y, z):
+            continue
+        out.append(OpeningSpec(name, x, y, z))
+    return out

@@ -1,0 +1,302 @@
+"""``deckload log …``: record a condition, show, export and verify the voyage log.
+
+Exit codes: 0 done; 1 bad input, a log that fails verification, or a log held by
+another writer; 2 a file that cannot be read or written.
+"""
+
+from __future__ import annotations
+
+import csv
+import html as htmllib
+import io
+import sys
+from pathlib import Path
+
+from deckload.logbook import (
+    KIND_LABELS,
+    LogEntry,
+    Logbook,
+    LogLockedError,
+    atomic_write_bytes,
+    log_files,
+    vessel_of_log,
+)
+
+CAUTION = (
+    "deckload supports, and never replaces, the approved stability booklet, the master's "
+    "judgement, and flag-State and classification society rules."
+)
+
+CSV_COLUMNS = (
+    "seq", "utc", "ship_time", "ship_clock", "vessel", "by", "kind", "change", "remark", "condition_name",
+    "displacement_t", "draft_fwd_m", "draft_aft_m", "draft_mean_m", "trim_m", "list_deg", "gm_fluid_m",
+    "fsc_m", "criteria_pass", "criteria_failed", "smallest_margin_criterion", "smallest_margin",
+    "smallest_margin_unit", "prev_sha256", "sha256",
+)
+"""Columns of ``deckload log export --csv`` (SI units, as in the log itself)."""
+
+
+def _log_dir(args) -> Path:
+    from deckload.paths import log_dir
+
+    return Path(args.dir) if getattr(args, "dir", None) else log_dir()
+
+
+def run_log(args) -> int:
+    try:
+        if args.log_command == "record":
+            return _record(args)
+        if args.log_command == "show":
+            return _show(args)
+        if args.log_command == "export":
+            return _export(args)
+        if args.log_command == "verify":
+            return _verify(args)
+    except OSError as e:
+        print(f"deckload: {e.filename or ''}: {e.strerror}", file=sys.stderr)
+        return 2
+    print(f"deckload log: unknown command {args.log_command!r}", file=sys.stderr)
+    return 2
+
+
+# --------------------------------------------------------------------------- record
+
+
+def _record(args) -> int:
+    from deckload.core.loading import LoadingError
+    from deckload.core.stability import evaluate
+    from deckload.core.tables import OutOfRangeError
+    from deckload.logbook import KINDS, validate_initials
+    from deckload.profiles import ProfileError, load_condition, load_profile
+
+    try:
+        by = validate_initials(args.by)
+    except ValueError as e:
+        print(f"deckload log record: --by: {e}", file=sys.stderr)
+        return 1
+    if args.kind not in KINDS:
+        print(f"deckload log record: --kind {args.kind!r} is not one of: {', '.join(KINDS)}", file=sys.stderr)
+        return 1
+    try:
+        vessel = load_profile(args.profile)
+        condition = load_condition(args.condition, vessel)
+        result = evaluate(vessel, condition)
+    except ProfileError as e:
+        print(str(e), file=sys.stderr)
+        return 1
+    except (LoadingError, OutOfRangeError) as e:
+        print(f"{args.condition}: {e}", file=sys.stderr)
+        return 1
+    directory = _log_dir(args)
+    book = Logbook.open(directory, vessel.particulars.name, ship_offset=getattr(args, "ship_offset", None))
+    try:
+        if book.recovered_torn is not None:
+            print(f"deckload: recovered: {book.recovered_torn}", file=sys.stderr)
+        if book.readonly:
+            print(f"deckload: cannot record: {book.path}: {book.readonly_reason}", file=sys.stderr)
+            return 1
+        entry = book.append(
+            kind=args.kind,
+            by=by,
+            change_text=f"{KIND_LABELS[args.kind]}: {condition.name}",
+            change_data={"profile": str(args.profile), "condition_file": str(args.condition)},
+            result=result,
+            condition=condition,
+            remark=args.remark,
+        )
+    except (LogLockedError, ValueError) as e:
+        print(f"deckload: cannot record: {e}", file=sys.stderr)
+        return 1
+    finally:
+        book.close()
+    verdict = "all criteria met" if result.all_criteria_pass else "CRITERIA NOT MET"
+    print(
+        f"Recorded entry #{entry.seq} in {book.path} at {entry.utc:%Y-%m-%d %H:%M:%S} UTC by {entry.by}: "
+        f"Δ {result.displacement_t:.1f} t, GM fluid {result.gm_fluid_m:.3f} m, {verdict}."
+    )
+    print(CAUTION)
+    return 0
+
+
+# --------------------------------------------------------------------------- reading
+
+
+def _books(args) -> list[Logbook]:
+    """Read-only logs in the folder: the one for --vessel, or every log."""
+    directory = _log_dir(args)
+    vessel = getattr(args, "vessel", None)
+    if vessel:
+        book = Logbook.open(directory, vessel, readonly=True)
+        if not book.path.exists():
+            book.close()
+            raise FileNotFoundError(2, f"no log for vessel {vessel!r}", str(book.path))
+        return [book]
+    return [Logbook.open(directory, vessel_of_log(p), readonly=True) for p in log_files(directory)]
+
+
+def _fmt(x, digits: int = 3) -> str:
+    return "" if x is None else (f"{x:.{digits}f}" if isinstance(x, (int, float)) and not isinstance(x, bool) else str(x))
+
+
+def entry_row(e: LogEntry) -> dict[str, str]:
+    """One entry as the CSV/HTML columns (:data:`CSV_COLUMNS`)."""
+    s = e.summary or {}
+    sm = s.get("smallest_margin") or {}
+    passed = s.get("criteria_pass")
+    return {
+        "seq": str(e.seq),
+        "utc": e.utc.strftime("%Y-%m-%dT%H:%M:%S.%f")[:-3] + "Z",
+        "ship_time": e.ship_time.strftime("%Y-%m-%d %H:%M:%S"),
+        "ship_clock": e.ship_clock,
+        "vessel": e.vessel,
+        "by": e.by,
+        "kind": e.kind,
+        "change": e.change_text,
+        "remark": e.remark,
+        "condition_name": s.get("condition_name", ""),
+        "displacement_t": _fmt(s.get("displacement_t"), 2),
+        "draft_fwd_m": _fmt(s.get("draft_fwd_m")),
+        "draft_aft_m": _fmt(s.get("draft_aft_m")),
+        "draft_mean_m": _fmt(s.get("draft_mean_m")),
+        "trim_m": _fmt(s.get("trim_m")),
+        "list_deg": _fmt(s.get("list_deg"), 2),
+        "gm_fluid_m": _fmt(s.get("gm_fluid_m")),
+        "fsc_m": _fmt(s.get("fsc_m")),
+        "criteria_pass": "" if passed is None else ("pass" if passed else "FAIL"),
+        "criteria_failed": " ".join(s.get("criteria_failed", [])),
+        "smallest_margin_criterion": sm.get("id", ""),
+        "smallest_margin": _fmt(sm.get("margin")),
+        "smallest_margin_unit": sm.get("unit", ""),
+        "prev_sha256": e.prev_sha256,
+        "sha256": e.sha256,
+    }
+
+
+def _show(args) -> int:
+    books = _books(args)
+    if not books:
+        print(f"no logs in {_log_dir(args)}")
+        return 0
+    for book in books:
+        try:
+            entries = book.entries()
+            print(f"{book.vessel_name} — {book.path} ({len(entries)} entries)")
+            print(f"{'#':>4}  {'UTC':<19}  {'ship':<5}  {'by':<4}  {'kind':<9}  {'GM fl m':>7}  {'crit':<4}  change")
+            for e in entries:
+                r = entry_row(e)
+                print(
+                    f"{e.seq:>4}  {e.utc:%Y-%m-%d %H:%M:%S}  {e.ship_time:%H:%M}  {e.by:<4}  {e.kind:<9}  "
+                    f"{r['gm_fluid_m']:>7}  {r['criteria_pass']:<4}  {e.change_text}"
+                    + (f" — {e.remark}" if e.remark else "")
+                )
+            for s in book.skipped:
+                print(f"  ! unreadable: {s} (run 'deckload log verify')")
+            print()
+        finally:
+            book.close()
+    print(CAUTION)
+    return 0
+
+
+def export_csv(entries: list[LogEntry]) -> str:
+    buf = io.StringIO()
+    w = csv.DictWriter(buf, fieldnames=CSV_COLUMNS, lineterminator="\r\n")
+    w.writeheader()
+    for e in entries:
+        w.writerow(entry_row(e))
+    return buf.getvalue()
+
+
+def export_html(books: list[tuple[str, list[LogEntry]]]) -> str:
+    """The log(s) as one printable HTML page (A4 landscape)."""
+    cols = ("seq", "utc", "ship_time", "by", "kind", "change", "remark", "displacement_t", "draft_fwd_m",
+            "draft_aft_m", "trim_m", "list_deg", "gm_fluid_m", "fsc_m", "criteria_pass", "smallest_margin_criterion",
+            "smallest_margin")
+    heads = ("#", "UTC", "Ship's time", "By", "Kind", "Change", "Remark", "Δ t", "T fwd m", "T aft m", "Trim m",
+             "List °", "GM fluid m", "FSC m", "Criteria", "Smallest margin", "Margin")
+    out = [
+        "<!DOCTYPE html>",
+        '<html lang="en"><head><meta charset="utf-8"><title>Voyage loading log</title>',
+        "<style>",
+        "@page { size: A4 landscape; margin: 10mm; }",
+        "body { font-family: sans-serif; font-size: 8pt; }",
+        "table { border-collapse: collapse; width: 100%; }",
+        "th, td { border: 0.5pt solid #888; padding: 1pt 3pt; vertical-align: top; }",
+        "th { background: #eee; } td.n { text-align: right; font-variant-numeric: tabular-nums; }",
+        "tr { break-inside: avoid; } thead { display: table-header-group; }",
+        ".fail { font-weight: bold; color: #b00; }",
+        "</style></head><body>",
+    ]
+    numeric = {"seq", "displacement_t", "draft_fwd_m", "draft_aft_m", "trim_m", "list_deg", "gm_fluid_m", "fsc_m",
+               "smallest_margin"}
+    for vessel, entries in books:
+        out.append(f"<h1>Voyage loading log — {htmllib.escape(vessel)}</h1>")
+        out.append("<table><thead><tr>" + "".join(f"<th>{htmllib.escape(h)}</th>" for h in heads) + "</tr></thead><tbody>")
+        for e in entries:
+            r = entry_row(e)
+            cells = []
+            for c in cols:
+                cls = ' class="n"' if c in numeric else (' class="fail"' if r[c] == "FAIL" else "")
+                cells.append(f"<td{cls}>{htmllib.escape(r[c])}</td>")
+            out.append("<tr>" + "".join(cells) + "</tr>")
+        out.append("</tbody></table>")
+        if entries:
+            out.append(f"<p>Newest entry #{entries[-1].seq}, SHA-256 <code>{entries[-1].sha256}</code></p>")
+    out.append(f"<p><strong>{htmllib.escape(CAUTION)}</strong></p>")
+    out.append("</body></html>")
+    return "\n".join(out) + "\n"
+
+
+def _export(args) -> int:
+    books = _books(args)
+    try:
+        data = [(b.vessel_name, b.entries()) for b in books]
+        skipped = [s for b in books for s in b.skipped]
+    finally:
+        for b in books:
+            b.close()
+    for s in skipped:
+        print(f"deckload: warning: unreadable log line left out: {s}", file=sys.stderr)
+    if args.csv:
+        text = export_csv([e for _, es in data for e in es])
+    else:
+        text = export_html(data)
+    if args.output is None:
+        sys.stdout.write(text)
+        return 0
+    atomic_write_bytes(Path(args.output), text.encode("utf-8"))
+    n = sum(len(es) for _, es in data)
+    print(f"{n} entries written to {args.output}", file=sys.stderr)
+    return 0
+
+
+def _verify(args) -> int:
+    directory = _log_dir(args)
+    if getattr(args, "recover", False):
+        vessels = [args.vessel] if getattr(args, "vessel", None) else [vessel_of_log(p) for p in log_files(directory)]
+        for v in vessels:
+            with Logbook.open(directory, v) as b:
+                if b.recovered_torn is not None:
+                    print(f"recovered: {b.recovered_torn}")
+                if b.readonly:
+                    print(f"{b.path.name}: not opened for writing: {b.readonly_reason}")
+    books = _books(args)
+    if not books:
+        print(f"no logs in {directory}")
+        return 0
+    bad = 0
+    for book in books:
+        try:
+            rep = book.verify()
+        finally:
+            book.close()
+        if rep.ok:
+            print(f"{book.path}: OK — {rep.entries} entries, chain intact; newest SHA-256 {rep.last_sha256}")
+        else:
+            bad += 1
+            print(f"{book.path}: BROKEN — {len(rep.problems)} problem(s):")
+            for p in rep.problems:
+                print(f"  {p}")
+        for n in rep.notes:
+            print(f"  note: {n}")
+    return 1 if bad else 0

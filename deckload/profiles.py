@@ -1,0 +1,1286 @@
+"""Vessel profiles and loading conditions: TOML ⇄ the frozen model, with all validation.
+
+The schema is ``vessel_profiles/README.md``; this module is its only reader.  Nothing
+reaches :mod:`deckload.core` before every field has been checked here, so the engine
+may trust that tables are strictly increasing, arrays of one table have equal
+length, densities are plausible and a condition only names compartments that exist.
+
+Every problem found in a file is collected and reported at once, as a
+:class:`Problem`: the file, the line (from the TOML parser for syntax errors, else
+found by scanning the text for the key or its table header), the dotted key (tanks
+named by id, e.g. ``tank[DB2P].calibration.sounding_m``), the offending value and
+the rule broken::
+
+    demo.toml:42: tank[DB2P].calibration.volume_m3 = [0.0, 4.1, 12.4, 12.0, …25 values]: not strictly increasing (row 4: 12.0 after 12.4)
+
+A table entry without a usable id is named by its position: ``tank[#3]``.
+Unknown keys are problems too: a misspelt optional key must never be silently
+ignored, because its default would then be used without anyone knowing.
+
+Conditions are written back with tomli-w (:func:`dump_condition`), losslessly, and
+saved atomically (:func:`save_condition`): the old file survives any crash.
+"""
+
+from __future__ import annotations
+
+import difflib
+import math
+import os
+import re
+import tempfile
+import tomllib
+from dataclasses import dataclass
+from pathlib import Path
+from typing import Any, Callable
+
+import numpy as np
+import tomli_w
+
+from deckload.core import model as m
+
+PROFILE_FORMAT = "deckload-profile-1"
+CONDITION_FORMAT = "deckload-condition-1"
+
+ID_PATTERN = re.compile(r"^[A-Za-z0-9_-]+$")
+"""Tank, hold and deck-area ids: letters, digits, '-' and '_' (typed by the user)."""
+
+LIQUID_DENSITY_RANGE_T_M3 = (0.5, 2.0)
+"""Plausible densities of a tank's contents (t/m³): light oils ~0.8, heavy brines ~1.3."""
+
+WATER_DENSITY_RANGE_T_M3 = (0.99, 1.04)
+"""Plausible densities of the water a vessel floats in (t/m³): fresh 1.000, sea about 1.025."""
+
+CAPACITY_TOLERANCE = 0.005
+"""A tank's capacity_m3 may differ from its last calibration volume by at most 0.5 %."""
+
+_REL_TOL = 1e-9
+"""Round-off allowance when a stated quantity meets a table end (e.g. 100 % as tonnes)."""
+
+
+# =========================================================================== problems
+
+
+@dataclass(frozen=True)
+class Problem:
+    """One thing wrong in a profile or condition file."""
+
+    file: str
+    """The file as the user named it."""
+    line: int | None
+    """1-based line, where known."""
+    key: str
+    """Dotted key, e.g. 'tank[DB2P].calibration.volume_m3'; '' for a syntax error."""
+    value: str | None
+    """The offending value as written (shortened), or None when the key is missing."""
+    rule: str
+    """The rule broken, in words."""
+
+    def __str__(self) -> str:
+        parts = [f"{self.file}:{self.line}" if self.line else self.file]
+        if self.key:
+            parts.append(self.key if self.value is None else f"{self.key} = {self.value}")
+        parts.append(self.rule)
+        return ": ".join(parts)
+
+
+class ProfileError(Exception):
+    """A profile or condition file is unusable; ``problems`` lists everything wrong with it."""
+
+    def __init__(self, problems: list[Problem]):
+        self.problems = list(problems)
+        super().__init__("\n".join(str(p) for p in self.problems))
+
+
+# =========================================================================== line finder
+
+
+def _split_key(s: str) -> tuple[str, ...]:
+    """Split a TOML dotted key ('a."b c".d') into its parts, unquoted."""
+    parts = re.findall(r'"(?:[^"\\]|\\.)*"|\'[^\']*\'|[^.\s]+', s)
+    return tuple(p[1:-1] if p[:1] in "\"'" else p for p in parts)
+
+
+def _skip_string(text: str, i: int) -> tuple[int, str | None]:
+    """Index just past the string starting at ``text[i]``, or (len, delimiter) if it runs on."""
+    n = len(text)
+    for delim in ('"""', "'''"):
+        if text.startswith(delim, i):
+            j = text.find(delim, i + 3)
+            return (n, delim) if j < 0 else (j + 3, None)
+    if text[i] == "'":
+        j = text.find("'", i + 1)
+        return (n if j < 0 else j + 1), None
+    i += 1
+    while i < n and text[i] != '"':
+        i += 2 if text[i] == "\\" else 1
+    return i + 1, None
+
+
+class _ValueScanner:
+    """Follows TOML values across lines, noting the line where each array element starts.
+
+    An array value at path ``p`` records ``p + (i,)`` for its element ``i`` (and
+    ``p + (i, j)`` inside a nested array), so a bad row of a multi-line table is
+    reported on its own line.  Inline tables are followed only for their nesting.
+    """
+
+    def __init__(self, locs: dict[tuple, int]):
+        self.locs = locs
+        self.stack: list[list] = []  # ["[", path, expecting_element, count] or ["{"]
+        self.in_ml: str | None = None
+        self.pending: tuple | None = None
+
+    @property
+    def busy(self) -> bool:
+        return bool(self.stack) or self.in_ml is not None
+
+    def _value(self, text: str, i: int, path: tuple | None) -> int:
+        c = text[i]
+        if c == "[":
+            self.stack.append(["[", path, True, 0])
+            return i + 1
+        if c == "{":
+            self.stack.append(["{"])
+            return i + 1
+        if c in "\"'":
+            i, self.in_ml = _skip_string(text, i)
+            return i
+        while i < len(text) and text[i] not in ",]}# \t":
+            i += 1
+        return i
+
+    def feed(self, text: str, lineno: int) -> None:
+        i, n = 0, len(text)
+        while i < n:
+            if self.in_ml is not None:
+                j = text.find(self.in_ml, i)
+                if j < 0:
+                    return
+                i, self.in_ml = j + 3, None
+                continue
+            c = text[i]
+            if c in " \t\r":
+                i += 1
+                continue
+            if c == "#":
+                return
+            top = self.stack[-1] if self.stack else None
+            if top is None:
+                if self.pending is None:
+                    return
+                path, self.pending = self.pending, None
+                i = self._value(text, i, path)
+            elif top[0] == "[":
+                if c == ",":
+                    top[2] = True
+                    i += 1
+                elif c == "]":
+                    self.stack.pop()
+                    i += 1
+                elif top[2]:
+                    path = None if top[1] is None else top[1] + (top[3],)
+                    top[2], top[3] = False, top[3] + 1
+                    if path is not None:
+                        self.locs.setdefault(path, lineno)
+                    i = self._value(text, i, path)
+                else:
+                    i += 1
+            else:  # inside an inline table: nesting only
+                if c in "\"'":
+                    i, self.in_ml = _skip_string(text, i)
+                    continue
+                if c in "[{":
+                    self.stack.append(["{"])
+                elif c in "]}":
+                    self.stack.pop()
+                i += 1
+
+
+def _key_lines(text: str) -> dict[tuple, int]:
+    """Map key paths to the line that defines them, best effort.
+
+    Paths use the parsed document's shape: ``("tank", 2, "calibration", "fsi_m4")``
+    for the third ``[[tank]]``'s table, ``(..., "fsi_m4", 4)`` for its fifth value.
+    Table headers map to their own line, so a missing key can be reported at its
+    table's header.
+    """
+    locs: dict[tuple, int] = {}
+    aot: dict[tuple, int] = {}
+    prefix: tuple = ()
+    scan = _ValueScanner(locs)
+
+    def resolve(plain: tuple[str, ...]) -> tuple:
+        out: tuple = ()
+        for k in range(1, len(plain) + 1):
+            out += (plain[k - 1],)
+            if plain[:k] in aot:
+                out += (aot[plain[:k]] - 1,)
+        return out
+
+    for lineno, line in enumerate(text.splitlines(), 1):
+        if scan.busy:
+            scan.feed(line, lineno)
+            continue
+        s = line.strip()
+        hm = re.match(r"^\[\[\s*(.+?)\s*\]\]", s) or re.match(r"^\[\s*(.+?)\s*\]", s)
+        if hm:
+            plain = _split_key(hm.group(1))
+            if s.startswith("[["):
+                aot[plain] = aot.get(plain, 0) + 1
+            prefix = resolve(plain)
+            locs.setdefault(prefix, lineno)
+            continue
+        km = re.match(r"^\s*((?:\"(?:[^\"\\]|\\.)*\"|'[^']*'|[A-Za-z0-9_\-.\s])+?)\s*=", line)
+        if not km:
+            continue
+        path = prefix + _split_key(km.group(1))
+        locs.setdefault(path, lineno)
+        scan.pending = path
+        scan.feed(line[km.end():], lineno)
+        scan.pending = None
+    return locs
+
+
+# =========================================================================== reading helpers
+
+_MISSING = object()
+
+
+def _qk(k: str) -> str:
+    return k if ID_PATTERN.match(k) else '"' + k.replace("\\", "\\\\").replace('"', '\\"') + '"'
+
+
+def _fmt(v: Any) -> str:
+    """The value as it would read in TOML, shortened for one line."""
+    if isinstance(v, bool):
+        return "true" if v else "false"
+    if isinstance(v, str):
+        s = v if len(v) <= 40 else v[:37] + "…"
+        return '"' + s + '"'
+    if isinstance(v, float):
+        return repr(v)
+    if isinstance(v, (list, tuple)):
+        if len(v) <= 4:
+            return "[" + ", ".join(_fmt(x) for x in v) + "]"
+        return "[" + ", ".join(_fmt(x) for x in v[:4]) + f", …{len(v)} values]"
+    if isinstance(v, dict):
+        return "{…}"
+    return str(v)
+
+
+def _num(x: float) -> str:
+    return f"{x:.6g}"
+
+
+def _toml_type(v: Any) -> str:
+    if isinstance(v, bool):
+        return "a boolean"
+    if isinstance(v, str):
+        return "a string"
+    if isinstance(v, (int, float)):
+        return "a number"
+    if isinstance(v, list):
+        return "an array"
+    if isinstance(v, dict):
+        return "a table"
+    return "a date/time"
+
+
+def _is_number(v: Any) -> bool:
+    return isinstance(v, (int, float)) and not isinstance(v, bool)
+
+
+def _suggest(word: str, choices) -> str:
+    close = difflib.get_close_matches(word, list(choices), n=1, cutoff=0.6)
+    return f" (did you mean {close[0]!r}?)" if close else ""
+
+
+def _suggest_id(word: str, ids) -> str:
+    """A close id, else the whole (short) list of ids the vessel has."""
+    hint = _suggest(word, ids)
+    ids = list(ids)
+    if hint or not ids:
+        return hint or " (it has none)"
+    return f" (it has {', '.join(ids)})" if len(ids) <= 8 else ""
+
+
+# rules for single numbers: each returns None when satisfied, else the broken rule
+Rule = Callable[[float], "str | None"]
+
+
+def positive(x: float) -> str | None:
+    return None if x > 0 else "must be greater than 0"
+
+
+def non_negative(x: float) -> str | None:
+    return None if x >= 0 else "must not be negative"
+
+
+def above_keel(x: float) -> str | None:
+    return None if x >= 0 else "must not be negative (heights are above the keel)"
+
+
+def between(lo: float, hi: float, unit: str = "", why: str = "") -> Rule:
+    u = unit if unit in ("", "°") else f" {unit}"
+    w = f" ({why})" if why else ""
+
+    def rule(x: float) -> str | None:
+        if x < lo:
+            return f"below {_num(lo)}{u}: must be between {_num(lo)} and {_num(hi)}{u}{w}"
+        if x > hi:
+            return f"above {_num(hi)}{u}: must be between {_num(lo)} and {_num(hi)}{u}{w}"
+        return None
+
+    return rule
+
+
+liquid_density = between(*LIQUID_DENSITY_RANGE_T_M3, "t/m³", "density of a liquid in a tank")
+water_density = between(*WATER_DENSITY_RANGE_T_M3, "t/m³", "fresh water 1.000, sea water about 1.025")
+percent_range = between(0.0, 100.0, "%")
+heel_range = between(0.0, 90.0, "°")
+
+
+class _Ctx:
+    """One file being read: its name, its key→line map and the problems found."""
+
+    def __init__(self, filename: str, text: str):
+        self.file = filename
+        self.text = text
+        self.problems: list[Problem] = []
+        self._lines: dict[tuple, int] | None = None
+
+    def line_of(self, raw: tuple) -> int | None:
+        if self._lines is None:
+            self._lines = _key_lines(self.text)
+        for k in range(len(raw), 0, -1):
+            if raw[:k] in self._lines:
+                return self._lines[raw[:k]]
+        return None
+
+    def add(self, raw: tuple, key: str, value: str | None, rule: str, line: int | None = None) -> None:
+        self.problems.append(Problem(self.file, line or self.line_of(raw), key, value, rule))
+
+    def parse(self) -> dict:
+        try:
+            return tomllib.loads(self.text)
+        except tomllib.TOMLDecodeError as e:
+            msg = str(e)
+            mm = re.search(r"\s*\(at line (\d+), column (\d+)\)$", msg)
+            line = None
+            if mm:
+                line = int(mm.group(1))
+                msg = f"{msg[: mm.start()]} (column {mm.group(2)})"
+            else:
+                msg = msg.replace(" (at end of document)", " (at the end of the file)")
+            raise ProfileError([Problem(self.file, line, "", None, f"TOML syntax: {msg}")]) from None
+
+    def fail_if_any(self) -> None:
+        if self.problems:
+            # in file order, so the list reads like the file; problems without a line last
+            raise ProfileError(sorted(self.problems, key=lambda p: p.line if p.line else math.inf))
+
+
+class _Tab:
+    """A TOML table being read: remembers which keys were asked for, to catch unknown ones."""
+
+    def __init__(self, ctx: _Ctx, data: dict, raw: tuple, name: str):
+        self.ctx = ctx
+        self.data = data
+        self.raw = raw
+        self.name = name
+        self.asked: list[str] = []
+
+    def key(self, k: str) -> str:
+        return f"{self.name}.{_qk(k)}" if self.name else _qk(k)
+
+    def bad(self, k: str, value: Any, rule: str, at: tuple = ()) -> None:
+        """Report a problem with key ``k``; ``at`` = (row,) or (row, column) locates it in an array."""
+        self.ctx.add(self.raw + (k,) + at, self.key(k), None if value is _MISSING else _fmt(value), rule)
+
+    def has(self, k: str) -> bool:
+        return k in self.data
+
+    def _get(self, k: str, required: bool) -> Any:
+        if k not in self.asked:
+            self.asked.append(k)
+        if k not in self.data:
+            if required:
+                self.bad(k, _MISSING, "required key is missing")
+            return _MISSING
+        return self.data[k]
+
+    # -- scalars
+    def num(self, k: str, *rules: Rule, required: bool = True, default: float | None = None) -> float | None:
+        v = self._get(k, required)
+        if v is _MISSING:
+            return default
+        if not _is_number(v):
+            self.bad(k, v, f"must be a number, not {_toml_type(v)}")
+            return None
+        x = float(v)
+        if not math.isfinite(x):
+            self.bad(k, v, "must be a finite number")
+            return None
+        for r in rules:
+            msg = r(x)
+            if msg:
+                self.bad(k, v, msg)
+                return None
+        return x
+
+    def text(self, k: str, *, required: bool = True, default: str = "", choices=None, empty_ok: bool = False):
+        v = self._get(k, required)
+        if v is _MISSING:
+            return default
+        if not isinstance(v, str):
+            self.bad(k, v, f"must be a string, not {_toml_type(v)}")
+            return None
+        if choices is not None and v not in choices:
+            self.bad(k, v, "must be one of " + ", ".join(f'"{c}"' for c in choices) + _suggest(v, choices))
+            return None
+        if not v.strip() and not empty_ok:
+            self.bad(k, v, "must not be empty")
+            return None
+        return v
+
+    # -- arrays
+    def array(self, k: str, *rules: Rule, required: bool = True, min_len: int = 2) -> np.ndarray | None:
+        v = self._get(k, required)
+        if v is _MISSING:
+            return None
+        if not isinstance(v, list):
+            self.bad(k, v, f"must be an array of numbers, not {_toml_type(v)}")
+            return None
+        if len(v) < min_len:
+            self.bad(k, v, f"needs at least {min_len} values, has {len(v)}")
+            return None
+        for i, x in enumerate(v):
+            if not _is_number(x):
+                self.bad(k, v, f"row {i + 1}: {_fmt(x)} is {_toml_type(x)}, not a number", (i,))
+                return None
+            if not math.isfinite(float(x)):
+                self.bad(k, v, f"row {i + 1}: {_fmt(x)} is not a finite number", (i,))
+                return None
+        arr = np.array(v, dtype=float)
+        for r in rules:
+            for i, x in enumerate(arr):
+                msg = r(float(x))
+                if msg:
+                    self.bad(k, v, f"{msg} (row {i + 1}: {_fmt(v[i])})", (i,))
+                    return None
+        return arr
+
+    def increasing(self, k: str, arr: np.ndarray | None) -> np.ndarray | None:
+        """``arr`` if strictly increasing, else reports the first offending row."""
+        if arr is None:
+            return None
+        d = np.diff(arr)
+        if np.all(d > 0):
+            return arr
+        i = int(np.argmax(d <= 0)) + 1
+        self.bad(k, self.data[k], f"not strictly increasing (row {i + 1}: {_fmt(self.data[k][i])} after "
+                 f"{_fmt(self.data[k][i - 1])})", (i,))
+        return None
+
+    def starts_at(self, k: str, arr: np.ndarray | None, first: float, why: str) -> np.ndarray | None:
+        if arr is None:
+            return None
+        if abs(float(arr[0]) - first) > _REL_TOL * max(1.0, abs(float(arr[-1]))):
+            self.bad(k, self.data[k], f"must start at {_num(first)} ({why})")
+            return None
+        return arr
+
+    def same_length(self, ref: str, arrays: dict[str, np.ndarray | None]) -> bool:
+        """Every array of one table has one value per row of its abscissa ``ref``."""
+        base = arrays.get(ref)
+        if base is None:
+            return False
+        ok = True
+        for k, a in arrays.items():
+            if a is None:
+                ok = False
+            elif k != ref and len(a) != len(base):
+                self.bad(k, self.data[k], f"has {len(a)} values but {ref} has {len(base)}: one value per row")
+                ok = False
+        return ok
+
+    def matrix(self, k: str, rows_name: str, n_rows: int | None, cols_name: str, n_cols: int | None) -> np.ndarray | None:
+        """A 2-D table of finite numbers, one row per ``rows_name`` value, one column per ``cols_name`` value."""
+        v = self._get(k, True)
+        if v is _MISSING:
+            return None
+        if not isinstance(v, list) or not all(isinstance(r, list) for r in v):
+            self.bad(k, v, f"must be an array of rows (arrays of numbers), one row per {rows_name} value")
+            return None
+        for i, row in enumerate(v):
+            for j, x in enumerate(row):
+                if not _is_number(x) or not math.isfinite(float(x)):
+                    self.bad(k, v, f"row {i + 1}, column {j + 1}: {_fmt(x)} is not a finite number", (i, j))
+                    return None
+        if n_rows is None or n_cols is None:
+            return None
+        if len(v) != n_rows:
+            self.bad(k, v, f"has {len(v)} rows but {rows_name} has {n_rows} values: one row per {rows_name} value")
+            return None
+        for i, row in enumerate(v):
+            if len(row) != n_cols:
+                self.bad(k, v, f"row {i + 1} has {len(row)} values but {cols_name} has {n_cols}: "
+                         f"one column per {cols_name} value", (i,))
+                return None
+        return np.array(v, dtype=float)
+
+    # -- tables
+    def table(self, k: str, *, required: bool = True, name: str | None = None) -> "_Tab | None":
+        v = self._get(k, required)
+        if v is _MISSING:
+            return None
+        if not isinstance(v, dict):
+            self.bad(k, v, f"must be a table, not {_toml_type(v)}")
+            return None
+        return _Tab(self.ctx, v, self.raw + (k,), name if name is not None else self.key(k))
+
+    def tables(self, k: str) -> list["_Tab"]:
+        """An array of tables ``[[k]]``, each named ``k[#n]`` until its id is known."""
+        v = self._get(k, False)
+        if v is _MISSING:
+            return []
+        if not isinstance(v, list) or not all(isinstance(t, dict) for t in v):
+            self.bad(k, v, f"must be an array of tables ([[{k}]] sections), not {_toml_type(v)}")
+            return []
+        return [_Tab(self.ctx, t, self.raw + (k, i), f"{self.key(k)}[#{i + 1}]") for i, t in enumerate(v)]
+
+    def finish(self) -> None:
+        """Report every key nobody asked for: a misspelt key must not be ignored."""
+        for k, v in self.data.items():
+            if k not in self.asked:
+                self.bad(k, v, "unknown key" + _suggest(k, self.asked))
+
+
+# =========================================================================== profile
+
+
+def load_profile(path: str | os.PathLike) -> m.Vessel:
+    """Read and validate a vessel profile.  Raises OSError if unreadable, ProfileError if wrong."""
+    return parse_profile(_read_text(path), str(path))
+
+
+def _read_text(path: str | os.PathLike) -> str:
+    data = Path(path).read_bytes()
+    try:
+        return data.decode("utf-8")
+    except UnicodeDecodeError as e:
+        line = data[: e.start].count(b"\n") + 1
+        raise ProfileError([Problem(str(path), line, "", None, f"not UTF-8 text (byte {e.start + 1}); TOML files must be UTF-8")]) from None
+
+
+def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
+    """Validate the text of a vessel profile and build the :class:`~deckload.core.model.Vessel`.
+
+    Raises :class:`ProfileError` listing every problem found.
+    """
+    ctx = _Ctx(filename, text)
+    root = _Tab(ctx, ctx.parse(), (), "")
+    root.text("format", choices=(PROFILE_FORMAT,))
+
+    particulars = _read_particulars(root)
+    lightship = _read_lightship(root)
+    hydro = _read_hydrostatics(root)
+    cross = _read_cross_curves(root)
+    fs = _read_free_surface(root, lightship)
+    criteria = _read_criteria(root)
+    load_lines = _read_load_lines(root, hydro)
+    limit = _read_limit_curve(root)
+    downflooding = _read_downflooding(root)
+
+    ids: dict[str, str] = {}  # id -> display name of the first compartment using it
+    tanks = _read_tanks(root, fs, ids)
+    holds = _read_holds(root, ids)
+    areas = _read_deck_areas(root, ids)
+    root.finish()
+    ctx.fail_if_any()
+
+    return m.Vessel(
+        particulars=particulars,
+        lightship=lightship,
+        hydrostatics=hydro,
+        cross_curves=cross,
+        tanks=tuple(tanks),
+        holds=tuple(holds),
+        deck_areas=tuple(areas),
+        load_lines=tuple(load_lines),
+        limit_curve=limit,
+        downflooding=downflooding,
+        criteria=criteria,
+        free_surface=fs,
+    )
+
+
+def _read_particulars(root: _Tab) -> m.Particulars | None:
+    t = root.table("vessel")
+    if t is None:
+        return None
+    kw = dict(
+        name=t.text("name"),
+        vessel_type=t.text("vessel_type", required=False, empty_ok=True),
+        lbp_m=t.num("lbp_m", positive),
+        breadth_m=t.num("breadth_m", positive),
+        depth_m=t.num("depth_m", positive),
+        design_draft_m=t.num("design_draft_m", positive),
+        table_density_t_m3=t.num("table_density_t_m3", water_density),
+    )
+    datum = t.text("longitudinal_datum", choices=("AP",))
+    kw["remark"] = t.text("remark", required=False, empty_ok=True)
+    t.finish()
+    if kw["design_draft_m"] is not None and kw["depth_m"] is not None and kw["design_draft_m"] > kw["depth_m"]:
+        t.bad("design_draft_m", t.data["design_draft_m"], f"exceeds the depth {_num(kw['depth_m'])} m")
+        return None
+    if datum is None or any(v is None for v in kw.values()):
+        return None
+    return m.Particulars(longitudinal_datum="aft perpendicular, positive forward", **kw)
+
+
+def _read_mass_item(t: _Tab, name: str, *, mass_rule: Rule = non_negative) -> m.MassItem | None:
+    kw = dict(
+        mass_t=t.num("mass_t", mass_rule),
+        lcg_m=t.num("lcg_m"),
+        vcg_m=t.num("vcg_m", above_keel),
+        tcg_m=t.num("tcg_m", required=False, default=0.0),
+    )
+    if any(v is None for v in kw.values()) or name is None:
+        return None
+    return m.MassItem(name=name, **kw)
+
+
+def _read_lightship(root: _Tab) -> m.MassItem | None:
+    t = root.table("lightship")
+    if t is None:
+        return None
+    item = _read_mass_item(t, "Lightship", mass_rule=positive)
+    t.finish()
+    return item
+
+
+def _read_hydrostatics(root: _Tab) -> m.HydrostaticTable | None:
+    t = root.table("hydrostatics")
+    if t is None:
+        return None
+    cols = {
+        "draft_m": t.increasing("draft_m", t.array("draft_m", non_negative)),
+        "displacement_t": t.increasing("displacement_t", t.array("displacement_t", non_negative)),
+        "lcb_m": t.array("lcb_m"),
+        "lcf_m": t.array("lcf_m"),
+        "kmt_m": t.array("kmt_m", positive),
+        "tpc_t_cm": t.array("tpc_t_cm", positive),
+        "mctc_tm_cm": t.array("mctc_tm_cm", positive),
+    }
+    optional = {}
+    for k, rule in (("vcb_m", above_keel), ("kml_m", positive)):
+        if t.has(k):
+            optional[k] = t.array(k, rule)
+            cols[k] = optional[k]
+        else:
+            t._get(k, False)
+    t.finish()
+    if not t.same_length("draft_m", cols):
+        return None
+    return m.HydrostaticTable(**{k: m.frozen_array(v) for k, v in cols.items()})
+
+
+def _read_cross_curves(root: _Tab) -> m.CrossCurves | None:
+    t = root.table("cross_curves")
+    if t is None:
+        return None
+    basis = t.text("trim_basis", choices=("free trim", "even keel"))
+    heel = t.increasing("heel_deg", t.array("heel_deg", heel_range))
+    heel = t.starts_at("heel_deg", heel, 0.0, "the upright condition")
+    disp = t.increasing("displacement_t", t.array("displacement_t", positive))
+    kn = t.matrix(
+        "kn_m",
+        "displacement_t", None if disp is None else len(disp),
+        "heel_deg", None if heel is None else len(heel),
+    )
+    t.finish()
+    if basis is None or heel is None or disp is None or kn is None:
+        return None
+    return m.CrossCurves(
+        heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis
+    )
+
+
+def _band(t: _Tab, k: str, default: tuple[float, float] | None) -> tuple[float, float] | None:
+    """A fill band [low, high] in %, 0 ≤ low < high ≤ 100."""
+    if not t.has(k):
+        t._get(k, False)
+        return default
+    arr = t.array(k, percent_range)
+    if arr is None:
+        return None
+    if len(arr) != 2 or not arr[0] < arr[1]:
+        t.bad(k, t.data[k], "must be two fills [low, high] in %, low below high")
+        return None
+    return float(arr[0]), float(arr[1])
+
+
+def _read_free_surface(root: _Tab, lightship: m.MassItem | None) -> m.FreeSurfaceSettings | None:
+    d = m.FreeSurfaceSettings()
+    t = root.table("free_surface", required=False)
+    if t is None:
+        if root.has("free_surface"):
+            return None
+        return d if lightship is None else m.FreeSurfaceSettings(min_operating_displacement_t=lightship.mass_t)
+    kw = dict(
+        rule=t.text("rule", required=False, default=d.rule, choices=("is2008", "actual")),
+        gz_correction=t.text("gz_correction", required=False, default=d.gz_correction, choices=("constant", "transfer")),
+        nominally_full_pct=t.num("nominally_full_pct", percent_range, required=False, default=d.nominally_full_pct),
+        empty_pct=t.num("empty_pct", percent_range, required=False, default=d.empty_pct),
+        small_tank_limit_m=t.num("small_tank_limit_m", non_negative, required=False, default=d.small_tank_limit_m),
+        min_operating_displacement_t=t.num("min_operating_displacement_t", positive, required=False),
+        default_worst_band_pct=_band(t, "default_worst_band_pct", d.default_worst_band_pct),
+    )
+    t.finish()
+    ok = True
+    if kw["nominally_full_pct"] is not None and kw["empty_pct"] is not None and kw["empty_pct"] >= kw["nominally_full_pct"]:
+        t.bad("empty_pct", t.data.get("empty_pct", kw["empty_pct"]), f"must be below nominally_full_pct ({_num(kw['nominally_full_pct'])} %)")
+        ok = False
+    dmin = kw["min_operating_displacement_t"]
+    if lightship is not None:
+        if dmin is None and "min_operating_displacement_t" not in t.data:
+            kw["min_operating_displacement_t"] = lightship.mass_t
+        elif dmin is not None and dmin < lightship.mass_t:
+            t.bad("min_operating_displacement_t", t.data["min_operating_displacement_t"],
+                  f"is below the lightship mass {_num(lightship.mass_t)} t")
+            ok = False
+    if not ok or any(v is None for v in kw.values()):
+        return None
+    return m.FreeSurfaceSettings(**kw)
+
+
+def _read_criteria(root: _Tab) -> m.CriteriaSettings | None:
+    t = root.table("criteria", required=False)
+    if t is None:
+        return None if root.has("criteria") else m.CriteriaSettings()
+    code = t.text("code", required=False, default="IS2008-A2.2", choices=("IS2008-A2.2",))
+    has_gm = t.has("min_gm_m")
+    gm = t.num("min_gm_m", positive, required=False)
+    t.finish()
+    if code is None or (has_gm and gm is None):
+        return None
+    return m.CriteriaSettings(code=code, min_gm_m=gm)
+
+
+def _read_load_lines(root: _Tab, hydro: m.HydrostaticTable | None) -> list[m.LoadLine]:
+    out: list[m.LoadLine] = []
+    seen: set[str] = set()
+    for t in root.tables("load_line"):
+        name = t.text("name")
+        draft = t.num("draft_m", positive)
+        t.finish()
+        if name is not None:
+            t.name = f"load_line[{name}]"
+            if name in seen:
+                t.bad("name", name, "duplicate load-line name")
+                continue
+            seen.add(name)
+        if draft is not None and hydro is not None and not hydro.draft_m[0] <= draft <= hydro.draft_m[-1]:
+            t.bad("draft_m", t.data["draft_m"], f"outside the hydrostatic table's drafts {_num(hydro.draft_m[0])}–{_num(hydro.draft_m[-1])} m")
+            continue
+        if name is not None and draft is not None:
+            out.append(m.LoadLine(name=name, draft_m=draft))
+    return out
+
+
+def _read_limit_curve(root: _Tab) -> m.LimitCurve | None:
+    t = root.table("limit_curve", required=False)
+    if t is None:
+        return None
+    disp = t.increasing("displacement_t", t.array("displacement_t", positive))
+    kinds = [k for k in ("max_kg_m", "min_gm_m") if t.has(k)]
+    t._get("max_kg_m", False)
+    t._get("min_gm_m", False)
+    if len(kinds) != 1:
+        t.bad("max_kg_m" if not kinds else "min_gm_m", t.data.get("min_gm_m", _MISSING),
+              "give exactly one of max_kg_m and min_gm_m" + (", not both" if kinds else ""))
+        t.finish()
+        return None
+    kind = kinds[0]
+    values = t.array(kind, above_keel) if kind == "max_kg_m" else t.array(kind)
+    t.finish()
+    if not t.same_length("displacement_t", {"displacement_t": disp, kind: values}):
+        return None
+    return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(values), kind=kind)
+
+
+def _read_downflooding(root: _Tab) -> m.LimitCurve | None:
+    t = root.table("downflooding", required=False)
+    if t is None:
+        return None
+    disp = t.increasing("displacement_t", t.array("displacement_t", positive))
+    ang = t.array("angle_deg", between(0.0, 90.0, "°"))
+    t.finish()
+    if not t.same_length("displacement_t", {"displacement_t": disp, "angle_deg": ang}):
+        return None
+    return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(ang), kind="downflooding_deg")
+
+
+def _claim_id(t: _Tab, kind: str, ids: dict[str, str]) -> str | None:
+    """Read an entry's ``id``, check its form and uniqueness, and rename the entry after it."""
+    ident = t.text("id")
+    if ident is None:
+        return None
+    if not ID_PATTERN.match(ident):
+        t.bad("id", ident, "must use only letters, digits, '-' and '_'")
+        return None
+    first = ids.get(ident)
+    own = t.name
+    t.name = f"{kind}[{ident}]"
+    if first is not None:
+        t.ctx.add(t.raw + ("id",), f"{own}.id", _fmt(ident), f"duplicate id: already used by {first}")
+        return None
+    ids[ident] = own
+    return ident
+
+
+def _read_tanks(root: _Tab, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) -> list[m.Tank]:
+    entries = []
+    complete = True
+    for t in root.tables("tank"):
+        kw, ok_tank = _read_tank(t, fs, ids)
+        entries.append((t, kw))
+        complete &= ok_tank
+    # pairs: each names an existing tank that names it back
+    by_id = {kw["id"]: kw for _, kw in entries if kw is not None and kw["id"] is not None}
+    ok = True
+    for t, kw in entries:
+        if kw is None or kw.get("pair") is None or kw["id"] is None:
+            continue
+        p = kw["pair"]
+        if p == kw["id"]:
+            t.bad("pair", p, "a tank cannot be its own pair")
+            ok = False
+        elif p not in by_id:
+            t.bad("pair", p, "no tank with this id" + _suggest(p, [i for i in by_id if i != kw["id"]]))
+            ok = False
+        elif by_id[p].get("pair") != kw["id"]:
+            back = by_id[p].get("pair")
+            t.bad("pair", p, f"tank {p} does not name {kw['id']} back as its pair "
+                  + (f"(it names {back!r})" if back else "(it has no pair)"))
+            ok = False
+    if not ok or not complete:
+        return []
+    return [m.Tank(**kw) for _, kw in entries]
+
+
+def _read_tank(t: _Tab, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) -> tuple[dict | None, bool]:
+    """The Tank's keyword arguments and whether they are complete (else only id and pair)."""
+    ident = _claim_id(t, "tank", ids)
+    kw: dict[str, Any] = dict(id=ident, name=t.text("name"))
+    kind = t.text("kind", choices=m.LIQUID_KINDS)
+    kw["kind"] = kind
+    kw["density_t_m3"] = t.num("density_t_m3", liquid_density)
+    capacity = t.num("capacity_m3", positive)
+    kw["capacity_m3"] = capacity
+    pair = t.text("pair", required=False, default=None)
+    kw["pair"] = pair
+    if t.has("pair") and pair is not None and not ID_PATTERN.match(pair):
+        t.bad("pair", pair, "must be a tank id (letters, digits, '-' and '_')")
+        kw["pair"] = pair = None
+    default_cat = "variable" if kind in m.CONSUMABLE_KINDS else "fixed"
+    kw["fs_category"] = t.text("fs_category", required=False, default=default_cat, choices=("fixed", "variable"))
+    kw["worst_band_pct"] = _band(t, "worst_band_pct", None if fs is None else fs.default_worst_band_pct)
+
+    cal = t.table("calibration")
+    kw["calibration"] = None if cal is None else _read_calibration(cal, capacity, t)
+    if t.has("transfer"):
+        tr = t.table("transfer")
+        kw["transfer"] = None if tr is None else _read_transfer(tr)
+        if kw["transfer"] is None:
+            kw["calibration"] = None  # marks the tank unusable
+    else:
+        t._get("transfer", False)
+        kw["transfer"] = None
+    t.finish()
+    if kw["calibration"] is None or any(kw[k] is None for k in ("id", "name", "kind", "density_t_m3", "capacity_m3", "fs_category", "worst_band_pct")):
+        return ({"id": ident, "pair": pair} if ident else None), False
+    return kw, True
+
+
+def _read_calibration(t: _Tab, capacity: float | None, tank: _Tab) -> m.TankCalibration | None:
+    sounding = t.increasing("sounding_m", t.array("sounding_m", non_negative))
+    sounding = t.starts_at("sounding_m", sounding, 0.0, "the tank bottom")
+    volume = t.increasing("volume_m3", t.array("volume_m3", non_negative))
+    volume = t.starts_at("volume_m3", volume, 0.0, "the tank is empty at sounding 0")
+    cols = {
+        "sounding_m": sounding,
+        "volume_m3": volume,
+        "lcg_m": t.array("lcg_m"),
+        "vcg_m": t.array("vcg_m", above_keel),
+        "tcg_m": t.array("tcg_m"),
+        "fsi_m4": t.array("fsi_m4", non_negative),
+    }
+    t.finish()
+    if not t.same_length("sounding_m", cols):
+        return None
+    vcg = cols["vcg_m"]
+    d = np.diff(vcg)
+    if np.any(d < -1e-6):
+        i = int(np.argmax(d < -1e-6)) + 1
+        t.bad("vcg_m", t.data["vcg_m"], f"falls as the tank fills (row {i + 1}: {_fmt(t.data['vcg_m'][i])} after "
+              f"{_fmt(t.data['vcg_m'][i - 1])}); the contents' centre can only rise", (i,))
+        return None
+    if capacity is not None:
+        last = float(volume[-1])
+        if abs(capacity - last) > CAPACITY_TOLERANCE * last:
+            tank.bad("capacity_m3", tank.data["capacity_m3"],
+                     f"differs from the last calibration volume {_num(last)} m³ by "
+                     f"{100 * abs(capacity - last) / last:.2f} % (at most {100 * CAPACITY_TOLERANCE:g} % allowed)")
+            return None
+    return m.TankCalibration(**{k: m.frozen_array(v) for k, v in cols.items()})
+
+
+def _read_transfer(t: _Tab) -> m.FluidTransfer | None:
+    fill = t.increasing("fill_pct", t.array("fill_pct", percent_range))
+    fill = t.starts_at("fill_pct", fill, 0.0, "empty")
+    if fill is not None and fill[-1] != 100.0:
+        t.bad("fill_pct", t.data["fill_pct"], "must end at 100 (full)")
+        fill = None
+    heel = t.increasing("heel_deg", t.array("heel_deg", heel_range))
+    heel = t.starts_at("heel_deg", heel, 0.0, "upright")
+    mom = t.matrix("moment_m4", "fill_pct", None if fill is None else len(fill), "heel_deg", None if heel is None else len(heel))
+    t.finish()
+    if fill is None or heel is None or mom is None:
+        return None
+    return m.FluidTransfer(fill_pct=m.frozen_array(fill), heel_deg=m.frozen_array(heel), moment_m4=m.frozen_array(mom))
+
+
+def _read_holds(root: _Tab, ids: dict[str, str]) -> list[m.Hold]:
+    out, ok = [], True
+    for t in root.tables("hold"):
+        ident = _claim_id(t, "hold", ids)
+        kw: dict[str, Any] = dict(
+            id=ident,
+            name=t.text("name"),
+            capacity_m3=t.num("capacity_m3", positive),
+            lcg_m=t.num("lcg_m"),
+            vcg_m=t.num("vcg_m", above_keel),
+            tcg_m=t.num("tcg_m", required=False, default=0.0),
+        )
+        has_max = t.has("max_mass_t")
+        kw["max_mass_t"] = t.num("max_mass_t", positive, required=False)
+        fill_keys = ("fill_pct", "fill_vcg_m", "fill_lcg_m")
+        present = [k for k in fill_keys if t.has(k)]
+        cols: dict[str, np.ndarray | None] = {}
+        for k in fill_keys:
+            if k in present:
+                rules = (percent_range,) if k == "fill_pct" else (above_keel,) if k == "fill_vcg_m" else ()
+                cols[k] = t.array(k, *rules)
+            else:
+                t._get(k, False)
+        fill_ok = True
+        if present:
+            if "fill_pct" not in present or "fill_vcg_m" not in present:
+                missing = "fill_pct" if "fill_pct" not in present else "fill_vcg_m"
+                t.bad(missing, _MISSING, "required with " + " and ".join(present) + " (centroid-against-fill table)")
+                fill_ok = False
+            else:
+                fill = t.increasing("fill_pct", cols["fill_pct"])
+                if fill is not None and (fill[0] != 0.0 or fill[-1] != 100.0):
+                    # the engine interpolates at any fill from empty to full, never beyond the table
+                    t.bad("fill_pct", t.data["fill_pct"], "must run from 0 to 100 (empty to full)")
+                    fill = None
+                cols["fill_pct"] = fill
+                fill_ok = t.same_length("fill_pct", cols)
+        t.finish()
+        if not fill_ok or any(v is None for k, v in kw.items() if k != "max_mass_t") or (has_max and kw["max_mass_t"] is None):
+            ok = False
+            continue
+        for k in fill_keys:
+            kw[k] = m.frozen_array(cols[k]) if k in cols else None
+        out.append(m.Hold(**kw))
+    return out if ok else []
+
+
+def _read_deck_areas(root: _Tab, ids: dict[str, str]) -> list[m.DeckArea]:
+    out, ok = [], True
+    for t in root.tables("deck_area"):
+        ident = _claim_id(t, "deck_area", ids)
+        kw: dict[str, Any] = dict(
+            id=ident,
+            name=t.text("name"),
+            area_m2=t.num("area_m2", positive),
+            lcg_m=t.num("lcg_m"),
+            deck_height_m=t.num("deck_height_m", above_keel),
+            tcg_m=t.num("tcg_m", required=False, default=0.0),
+        )
+        has_max = t.has("max_load_t_m2")
+        kw["max_load_t_m2"] = t.num("max_load_t_m2", positive, required=False)
+        t.finish()
+        if any(v is None for k, v in kw.items() if k != "max_load_t_m2") or (has_max and kw["max_load_t_m2"] is None):
+            ok = False
+            continue
+        out.append(m.DeckArea(**kw))
+    return out if ok else []
+
+
+# =========================================================================== condition
+
+
+def load_condition(path: str | os.PathLike, vessel: m.Vessel) -> m.Condition:
+    """Read a loading condition and validate it against ``vessel``.
+
+    Raises OSError if unreadable, :class:`ProfileError` listing every problem otherwise.
+    """
+    return parse_condition(_read_text(path), str(path), vessel)
+
+
+def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
+    """Validate the text of a loading condition against its vessel and build the Condition."""
+    ctx = _Ctx(filename, text)
+    root = _Tab(ctx, ctx.parse(), (), "")
+    root.text("format", choices=(CONDITION_FORMAT,))
+
+    head: dict[str, Any] = {}
+    c = root.table("condition")
+    if c is not None:
+        head["name"] = c.text("name")
+        head["remark"] = c.text("remark", required=False, empty_ok=True)
+        head["water_density_t_m3"] = c.num("water_density_t_m3", water_density)
+        marks = [ll.name for ll in vessel.load_lines]
+        default_mark = m.Condition().load_line if not marks or m.Condition().load_line in marks else marks[0]
+        head["load_line"] = c.text("load_line", required=False, default=default_mark, choices=marks or None)
+        head["fs_rule"] = c.text("fs_rule", required=False, default=None, choices=("is2008", "actual"))
+        head["gz_correction"] = c.text("gz_correction", required=False, default=None, choices=("constant", "transfer"))
+        c.finish()
+
+    fills = _read_fills(root, vessel)
+    loads = _read_hold_loads(root, vessel)
+    items = _read_deck_items(root, vessel)
+    consts = []
+    for t in root.tables("constant"):
+        item = _read_mass_item(t, t.text("name"))
+        t.finish()
+        if item is not None:
+            consts.append(item)
+    root.finish()
+    ctx.fail_if_any()
+    return m.Condition(tanks=tuple(fills), holds=tuple(loads), deck_items=tuple(items), constants=tuple(consts), **head)
+
+
+def _keyed_tables(root: _Tab, group: str, known: dict[str, int], what: str) -> list[tuple[str, _Tab]]:
+    """``[group.ID]`` tables, each ID checked against the vessel's ``known`` ids."""
+    g = root.table(group, required=False)
+    if g is None:
+        return []
+    out = []
+    for ident, v in g.data.items():
+        g._get(ident, False)
+        if ident not in known:
+            g.bad(ident, v, f"no {what} with this id in the vessel profile" + _suggest_id(ident, known))
+            continue
+        sub = g.table(ident)
+        if sub is not None:
+            out.append((ident, sub))
+    return out
+
+
+def _read_fills(root: _Tab, vessel: m.Vessel) -> list[m.TankFill]:
+    out = []
+    for ident, t in _keyed_tables(root, "tanks", vessel.tank_index, "tank"):
+        tank = vessel.tank(ident)
+        given = [q for q in m.FILL_QUANTITIES if t.has(q)]
+        dens = t.num("density_t_m3", liquid_density, required=False)
+        bad_dens = t.has("density_t_m3") and dens is None
+        rho = dens if dens is not None else tank.density_t_m3
+        cal = tank.calibration
+        cap = tank.capacity_m3
+        rules: dict[str, tuple[Rule, ...]] = {
+            "percent": (non_negative, _at_most(100.0, "% (full)")),
+            "volume_m3": (non_negative, _at_most(cap, f"m³, the tank's capacity")),
+            "mass_t": (non_negative, _at_most(cap * rho, f"t, the tank's capacity {_num(cap)} m³ × {_num(rho)} t/m³")),
+            "sounding_m": (non_negative, _at_most(float(cal.sounding_m[-1]),
+                           f"m: outside the calibration table {_num(cal.sounding_m[0])}–{_num(cal.sounding_m[-1])} m")),
+        }
+        values = {q: t.num(q, *rules[q], required=False) for q in m.FILL_QUANTITIES}
+        t.finish()
+        if len(given) != 1:
+            rule = ("states no quantity: give exactly one of " + ", ".join(m.FILL_QUANTITIES) if not given
+                    else "states " + " and ".join(given) + ": give exactly one quantity per tank")
+            t.ctx.add(t.raw, t.name, None, rule)
+            continue
+        q = given[0]
+        if values[q] is None or bad_dens:
+            continue
+        out.append(m.TankFill(tank_id=ident, quantity=q, value=values[q], density_t_m3=dens))
+    return out
+
+
+def _at_most(limit: float, what: str) -> Rule:
+    def rule(x: float) -> str | None:
+        if x > limit + _REL_TOL * max(1.0, abs(limit)):
+            return f"above {_num(limit)} {what}"
+        return None
+
+    return rule
+
+
+def _read_hold_loads(root: _Tab, vessel: m.Vessel) -> list[m.HoldLoad]:
+    out = []
+    for ident, t in _keyed_tables(root, "holds", vessel.hold_index, "hold"):
+        hold = vessel.hold(ident)
+        kw: dict[str, Any] = dict(hold_id=ident, mass_t=t.num("mass_t", non_negative))
+        optional = {"stowage_m3_t": (positive,), "lcg_m": (), "vcg_m": (above_keel,), "tcg_m": ()}
+        bad = False
+        for k, rules in optional.items():
+            present = t.has(k)
+            kw[k] = t.num(k, *rules, required=False)
+            bad |= present and kw[k] is None
+        desc = t.text("description", required=False, empty_ok=True)
+        kw["description"] = desc
+        t.finish()
+        if kw["mass_t"] is None or desc is None or bad:
+            continue
+        if kw["stowage_m3_t"] is not None:
+            vol = kw["mass_t"] * kw["stowage_m3_t"]
+            if vol > hold.capacity_m3 * (1 + _REL_TOL):
+                t.bad("mass_t", t.data["mass_t"], f"× stowage_m3_t {_num(kw['stowage_m3_t'])} = {_num(vol)} m³, "
+                      f"above the hold's capacity {_num(hold.capacity_m3)} m³")
+                continue
+        out.append(m.HoldLoad(**kw))
+    return out
+
+
+def _read_deck_items(root: _Tab, vessel: m.Vessel) -> list[m.DeckItem]:
+    out = []
+    for t in root.tables("deck_item"):
+        base = _read_mass_item(t, t.text("name"))
+        area = t.text("area", required=False, default=None)
+        if area is not None and area not in vessel.area_index:
+            t.bad("area", area, "no deck area with this id in the vessel profile" + _suggest_id(area, vessel.area_index))
+            area = None
+            base = None
+        has_fp = t.has("footprint_m2")
+        fp = t.num("footprint_m2", positive, required=False)
+        t.finish()
+        if base is None or (has_fp and fp is None) or (t.has("area") and area is None):
+            continue
+        out.append(m.DeckItem(area_id=area, footprint_m2=fp, **vars(base)))
+    return out
+
+
+# =========================================================================== writing
+
+
+def condition_dict(c: m.Condition) -> dict:
+    """The condition as plain TOML data in the README schema (optional keys left out when unset)."""
+    head: dict[str, Any] = {"name": c.name}
+    if c.remark:
+        head["remark"] = c.remark
+    head["water_density_t_m3"] = float(c.water_density_t_m3)
+    head["load_line"] = c.load_line
+    if c.fs_rule is not None:
+        head["fs_rule"] = c.fs_rule
+    if c.gz_correction is not None:
+        head["gz_correction"] = c.gz_correction
+    doc: dict[str, Any] = {"format": CONDITION_FORMAT, "condition": head}
+    if c.tanks:
+        doc["tanks"] = {}
+        for f in c.tanks:
+            d: dict[str, Any] = {f.quantity: float(f.value)}
+            if f.density_t_m3 is not None:
+                d["density_t_m3"] = float(f.density_t_m3)
+            doc["tanks"][f.tank_id] = d
+    if c.holds:
+        doc["holds"] = {}
+        for h in c.holds:
+            d = {"mass_t": float(h.mass_t)}
+            for k in ("stowage_m3_t", "lcg_m", "vcg_m", "tcg_m"):
+                if getattr(h, k) is not None:
+                    d[k] = float(getattr(h, k))
+            if h.description:
+                d["description"] = h.description
+            doc["holds"][h.hold_id] = d
+    if c.deck_items:
+        doc["deck_item"] = []
+        for it in c.deck_items:
+            d = _mass_item_dict(it)
+            if it.area_id is not None:
+                d["area"] = it.area_id
+            if it.footprint_m2 is not None:
+                d["footprint_m2"] = float(it.footprint_m2)
+            doc["deck_item"].append(d)
+    if c.constants:
+        doc["constant"] = [_mass_item_dict(it) for it in c.constants]
+    return doc
+
+
+def _mass_item_dict(it: m.MassItem) -> dict:
+    return {"name": it.name, "mass_t": float(it.mass_t), "lcg_m": float(it.lcg_m),
+            "vcg_m": float(it.vcg_m), "tcg_m": float(it.tcg_m)}
+
+
+def dump_condition(c: m.Condition) -> str:
+    """The condition as TOML text; ``parse_condition(dump_condition(c), ...) == c``.
+
+    Tanks and holds keep their order.  Sections are written one by one so that deck
+    items and constants always appear as ``[[...]]`` sections, never inline.
+    """
+    doc = condition_dict(c)
+    out = ["# deckload loading condition (keys: vessel_profiles/README.md)\n",
+           tomli_w.dumps({"format": doc["format"]}), "\n", tomli_w.dumps({"condition": doc["condition"]})]
+    for group in ("tanks", "holds"):
+        for ident, d in doc.get(group, {}).items():
+            out += ["\n", tomli_w.dumps({group: {ident: d}})]
+    for group in ("deck_item", "constant"):
+        for d in doc.get(group, []):
+            out += ["\n", f"[[{group}]]\n", tomli_w.dumps(d)]
+    return "".join(out)
+
+
+def _write_all(fh, data: bytes) -> None:
+    fh.write(data)
+
+
+def save_condition(path: str | os.PathLike, condition: m.Condition) -> None:
+    """Write the condition atomically: the old file is intact until the new one is complete.
+
+    A temporary file in the same folder is written, flushed and fsync'ed, then moved
+    over the target with ``os.replace`` (atomic on POSIX and Windows); the folder is
+    fsync'ed so the rename itself survives a power cut.  On any failure the temporary
+    file is removed and the old file is untouched.
+    """
+    path = Path(path)
+    data = dump_condition(condition).encode("utf-8")
+    folder = path.parent if str(path.parent) else Path(".")
+    try:
+        mode = os.stat(path).st_mode & 0o777
+    except FileNotFoundError:
+        umask = os.umask(0)
+        os.umask(umask)
+        mode = 0o666 & ~umask
+    fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=folder)
+    try:
+        with os.fdopen(fd, "wb") as fh:
+            _write_all(fh, data)
+            fh.flush()
+            os.fsync(fh.fileno())
+        os.chmod(tmp, mode)
+        os.replace(tmp, path)
+    except BaseException:
+        try:
+            os.unlink(tmp)
+        except OSError:
+            pass
+        raise
+    _fsync_dir(folder)
+
+
+def _fsync_dir(folder: Path) -> None:
+    try:
+        dfd = os.open(folder, os.O_RDONLY)
+    except OSError:  # e.g. Windows cannot open a directory; os.replace is durable enough there
+        return
+    try:
+        os.fsync(dfd)
+    except OSError:
+        pass
+    finally:
+        os.close(dfd)

@@ -1,0 +1,611 @@
+"""The printable loading-condition report: one A4 page, as plain text or HTML.
+
+The report is drawn once with rich renderables into a recording console and
+exported with rich's own ``export_text`` / ``export_html``; the GZ curve is an
+inline SVG drawn here (:func:`gz_svg`) and placed beside the stability summary.
+Nothing is recomputed: every number comes from the :class:`~deckload.core.result.Result`.
+
+Contents: particulars; every weight item (lightship, tanks, holds, deck, constants)
+with mass and centres; the free-surface table with the rule used for each tank; the
+stability summary; the criteria table (value, limit, margin, pass); the GZ curve with
+its 30°, 40° and θf marks; warnings; the caution; signature lines for the officer
+and the master.
+
+A4 fit (HTML): the page is 297 mm high; with 10 mm margins 277 mm print.  The
+font size is the largest of :data:`FONT_SIZES_PT` whose line count fits
+(line height = size × :data:`LINE_HEIGHT` × 0.3528 mm/pt); :func:`html_fits_a4`
+says whether even the smallest does.
+"""
+
+from __future__ import annotations
+
+import html as htmllib
+import io
+import math
+import sys
+from dataclasses import dataclass
+from pathlib import Path
+
+from rich import box
+from rich.console import Console, Group, RenderableType
+from rich.table import Table
+from rich.text import Text
+
+from deckload.core.model import Condition, Vessel
+from deckload.core.result import Result
+
+CAUTION = (
+    "CAUTION: deckload supports, and never replaces, the approved stability booklet, the master's "
+    "judgement, and flag-State and classification society rules. Check this condition against the "
+    "booklet before relying on it."
+)
+
+TEXT_WIDTH = 112
+"""Characters per line of the text report and of the HTML report's text blocks."""
+
+PAGE_HEIGHT_MM = 297.0
+PAGE_WIDTH_MM = 210.0
+PAGE_MARGIN_MM = 10.0
+PT_MM = 25.4 / 72.0
+LINE_HEIGHT = 1.2
+"""CSS line-height of the report text (multiple of the font size)."""
+CHAR_WIDTH_EM = 0.6
+"""Advance of one monospace character (em): 0.6 for DejaVu Sans Mono / Liberation Mono."""
+FONT_SIZES_PT = (7.5, 7.0, 6.5, 6.0)
+SVG_WIDTH_MM = 78.0
+SVG_HEIGHT_MM = 52.6
+SIGNATURE_ROW_MM = 10.0
+"""Height of each signature row in the HTML report: room for a handwritten signature."""
+_COMPARISON = {">=": "≥", "<=": "≤"}
+GROUP_TITLES = {"lightship": "Lightship", "tank": "Tanks", "hold": "Holds", "deck": "Deck", "constant": "Constants"}
+
+
+# --------------------------------------------------------------------------- formatting
+
+
+def _f(x: float | None, digits: int = 3) -> str:
+    if x is None or (isinstance(x, float) and not math.isfinite(x)):
+        return "—"
+    return f"{x:.{digits}f}"
+
+
+def _side(deg: float) -> str:
+    if abs(deg) < 0.005:
+        return "upright"
+    return f"{abs(deg):.2f}° {'stbd' if deg > 0 else 'port'}"
+
+
+def _trim(t: float) -> str:
+    if abs(t) < 0.0005:
+        return "even keel"
+    return f"{abs(t):.3f} m {'by the stern' if t > 0 else 'by the head'}"
+
+
+def _criteria_gz(result: Result) -> tuple[float, ...]:
+    """The GZ curve the criteria were checked on (the side she lists to)."""
+    return result.gz_port_m if result.criteria_side == "port" else result.gz_m
+
+
+# --------------------------------------------------------------------------- sections
+
+
+def _header(result: Result, vessel: Vessel, condition: Condition, stamp: str | None, source: str | None) -> Group:
+    p = vessel.particulars
+    t = Text()
+    t.append("LOADING CONDITION AND INTACT STABILITY", style="bold")
+    t.append(f" — {p.name}\n", style="bold")
+    t.append(f"Condition: {result.condition_name}", style="bold")
+    if condition.remark:
+        t.append(f" — {condition.remark}")
+    t.append("\n")
+    dims = (
+        f"LBP {p.lbp_m:.2f} m, breadth {p.breadth_m:.2f} m, depth {p.depth_m:.2f} m, "
+        f"design draft {p.design_draft_m:.3f} m"
+    )
+    t.append(f"Particulars: {p.vessel_type + '; ' if p.vessel_type else ''}{dims}\n")
+    fs = {"is2008": "IS Code 2008 Part B 3.1", "actual": "actual levels"}.get(result.fs_rule, result.fs_rule)
+    gzc = {
+        "constant": "constant (G raised by ΣFSM/Δ)",
+        "transfer": "actual moment of fluid transfer at each heel",
+    }.get(result.gz_correction, result.gz_correction)
+    t.append(
+        f"Water density {result.water_density_t_m3:.3f} t/m³ (tables at {p.table_density_t_m3:.3f} t/m³); "
+        f"load line: {condition.load_line}\n"
+    )
+    t.append(f"Free surface: {fs}; GZ correction: {gzc}\n")
+    where = []
+    if stamp:
+        where.append(f"Computed {stamp}")
+    if source:
+        where.append(f"condition file {source}")
+    if where:
+        t.append("; ".join(where) + "\n")
+    return Group(t)
+
+
+def _summary(result: Result) -> Table:
+    r = result
+    g = Table(box=None, pad_edge=False, padding=(0, 1), title="Stability summary",
+              title_justify="left", title_style="bold", show_header=False)
+    g.add_column("quantity")
+    g.add_column("value", justify="right")
+    rows = [
+        ("Displacement Δ", f"{r.displacement_t:.1f} t"),
+        ("Deadweight", f"{r.deadweight_t:.1f} t"),
+        ("LCG from AP", f"{r.lcg_m:.3f} m"),
+        ("TCG", f"{r.tcg_m:+.3f} m"),
+        ("KG solid", f"{r.kg_m:.3f} m"),
+        ("ΣFSM", f"{r.fsm_total_tm:.1f} t·m"),
+        ("FSC = ΣFSM/Δ", f"{r.fsc_m:.3f} m"),
+        ("KG fluid", f"{r.kg_fluid_m:.3f} m"),
+        ("KMt", f"{r.km_m:.3f} m"),
+        ("GM solid", f"{r.gm_solid_m:.3f} m"),
+        ("GM fluid", f"{r.gm_fluid_m:.3f} m"),
+        ("Draft aft / mid / fwd", f"{r.draft_aft_m:.3f} / {r.draft_mean_m:.3f} / {r.draft_fwd_m:.3f} m"),
+        ("Trim", _trim(r.trim_m)),
+        ("List", _side(r.list_deg)),
+        ("LCB / LCF from AP", f"{r.lcb_m:.3f} / {r.lcf_m:.3f} m"),
+        ("TPC / MCTC", f"{r.tpc_t_cm:.2f} t/cm / {r.mctc_tm_cm:.2f} t·m/cm"),
+        ("Max GZ", f"{r.max_gz_m:.3f} m at {r.max_gz_angle_deg:.1f}°"),
+        ("Vanishing angle", "beyond the curve" if r.vanishing_angle_deg is None else f"{r.vanishing_angle_deg:.1f}°"),
+        ("Downflooding θf", "not given" if r.downflooding_angle_deg is None else f"{r.downflooding_angle_deg:.1f}°"),
+    ]
+    for k, v in rows:
+        g.add_row(k, v)
+    return g
+
+
+def _items(result: Result, condition: Condition) -> Table:
+    t = Table(box=box.SIMPLE, show_edge=False, pad_edge=False, padding=(0, 1), title="Weights and centres",
+              title_justify="left", title_style="bold", show_footer=True)
+    t.add_column("Group", footer="Displacement")
+    t.add_column("Item")
+    t.add_column("Fill %", justify="right")
+    t.add_column("Mass t", justify="right", footer=f"{result.displacement_t:.2f}")
+    t.add_column("LCG m", justify="right", footer=f"{result.lcg_m:.3f}")
+    t.add_column("VCG m", justify="right", footer=f"{result.kg_m:.3f}")
+    t.add_column("TCG m", justify="right", footer=f"{result.tcg_m:+.3f}")
+    descr = {h.hold_id: h.description for h in condition.holds}
+    for it in result.items:
+        if it.group == "lightship":
+            t.add_row(GROUP_TITLES["lightship"], it.name, "", f"{it.mass_t:.2f}", f"{it.lcg_m:.3f}",
+                      f"{it.vcg_m:.3f}", f"{it.tcg_m:+.3f}")
+    empty = []
+    for tk in result.tanks:
+        if tk.state == "empty" and tk.mass_t == 0:
+            empty.append(tk.id)
+            continue
+        t.add_row("Tank", f"{tk.id} {tk.name}", f"{tk.fill_pct:.1f}", f"{tk.mass_t:.2f}", f"{tk.lcg_m:.3f}",
+                  f"{tk.vcg_m:.3f}", f"{tk.tcg_m:+.3f}")
+    if empty:
+        t.add_row("Tank", "empty: " + ", ".join(empty), "0.0", "0.00", "", "", "")
+    for group in ("hold", "deck", "constant"):
+        for it in result.items:
+            if it.group != group:
+                continue
+            name = it.name if it.group != "hold" else f"{it.id} {it.name}"
+            if it.group == "hold" and descr.get(it.id) and descr[it.id] not in name:
+                name += f" ({descr[it.id]})"
+            t.add_row(GROUP_TITLES[group], name, "", f"{it.mass_t:.2f}", f"{it.lcg_m:.3f}", f"{it.vcg_m:.3f}",
+                      f"{it.tcg_m:+.3f}")
+    return t
+
+
+def _free_surface(result: Result) -> Table:
+    t = Table(box=box.SIMPLE, show_edge=False, pad_edge=False, padding=(0, 1), title="Free surface",
+              title_justify="left", title_style="bold", show_footer=True)
+    t.add_column("Tank", footer="ΣFSM")
+    t.add_column("Fill %", justify="right")
+    t.add_column("State")
+    t.add_column("ρ t/m³", justify="right")
+    t.add_column("FSM t·m", justify="right", footer=f"{result.fsm_total_tm:.2f}")
+    t.add_column("Rule used", footer=f"FSC = ΣFSM/Δ = {result.fsc_m:.3f} m")
+    # Tanks whose FSM counts are listed one by one; tanks left at zero are grouped by the
+    # rule that left them there, so that a full condition still fits one page.
+    zero: dict[str, list[str]] = {}
+    for tk in result.tanks:
+        if tk.fsm_tm == 0:
+            zero.setdefault("empty" if tk.state == "empty" else tk.fs_rule, []).append(tk.id)
+            continue
+        t.add_row(tk.id, f"{tk.fill_pct:.1f}", tk.state.replace("_", " "), f"{tk.density_t_m3:.3f}",
+                  f"{tk.fsm_tm:.2f}", tk.fs_rule)
+    for rule, ids in zero.items():
+        t.add_row("—", "", "", "", "0.00", f"{rule}: {', '.join(ids)}")
+    return t
+
+
+def _criteria(result: Result) -> Table:
+    t = Table(box=box.SIMPLE, show_edge=False, pad_edge=False, padding=(0, 1), title_justify="left", title_style="bold",
+              title=f"Intact stability criteria (GZ heeling to {result.criteria_side})")
+    t.add_column("Criterion", no_wrap=True)
+    t.add_column("Value", justify="right")
+    t.add_column("Limit", justify="right")
+    t.add_column("Margin", justify="right")
+    t.add_column("Unit")
+    t.add_column("Result")
+    t.add_column("Source")
+    digits = {"deg": 1}
+    for c in result.criteria:
+        d = digits.get(c.unit, 3)
+        t.add_row(
+            c.description + (" *" if c.note else ""),
+            _f(c.value, d),
+            f"{_COMPARISON.get(c.comparison, c.comparison)} {_f(c.limit, d)}",
+            f"{c.margin:+.{d}f}",
+            c.unit,
+            Text("pass", style="green") if c.passed else Text("FAIL", style="bold red"),
+            c.source,
+        )
+    return t
+
+
+def _gz_table(result: Result) -> Table:
+    """GZ at each tabulated 10° step (every angle when the curve has no 10° steps), for the text report."""
+    gz = _criteria_gz(result)
+    pairs = [(h, g) for h, g in zip(result.gz_heel_deg, gz) if abs(h / 10.0 - round(h / 10.0)) < 1e-9]
+    if len(pairs) < 2:
+        pairs = list(zip(result.gz_heel_deg, gz))
+    t = Table(box=box.SIMPLE, show_edge=False, pad_edge=False, padding=(0, 1), title_justify="left",
+              title_style="bold", title=f"GZ, heeling {'port' if result.criteria_side == 'port' else 'stbd'}")
+    t.add_column("Heel °", justify="right")
+    t.add_column("GZ m", justify="right")
+    t.add_column("")
+    marks = {30.0: "30°", 40.0: "40°"}
+    for h, g in pairs:
+        note = marks.get(h, "")
+        if result.downflooding_angle_deg is not None and abs(h - result.downflooding_angle_deg) < 5.0:
+            note = (note + f" θf {result.downflooding_angle_deg:.1f}°").strip()
+        t.add_row(f"{h:.0f}", f"{g:.3f}", note)
+    return t
+
+
+def _closing(result: Result) -> Group:
+    t = Text()
+    for c in result.criteria:
+        if c.note:
+            t.append(f"* {c.description}: {c.note}\n")
+    if result.warnings:
+        t.append("Warnings\n", style="bold")
+        worst = [w for w in result.warnings if w.code == "slack-worst-band"]
+        for w in result.warnings:
+            if len(worst) > 2 and w.code == "slack-worst-band":
+                if w is worst[0]:
+                    tanks = ", ".join(f"{tk.id} {tk.fill_pct:.0f} % ({tk.worst_band_pct[0]:.0f}–"
+                                      f"{tk.worst_band_pct[1]:.0f} %)" for tk in result.tanks
+                                      if tk.state == "worst_band")
+                    t.append(f"  caution: slack in the worst free-surface band: {tanks}\n")
+                continue
+            t.append(f"  {'DANGER' if w.severity == 'danger' else 'caution'}: {w.message}\n",
+                     style="red" if w.severity == "danger" else "")
+    if result.all_criteria_pass:
+        t.append("All criteria are met.", style="bold green")
+    else:
+        failed = ", ".join(c.description for c in result.criteria if not c.passed)
+        t.append(f"CRITERIA NOT MET: {failed}.", style="bold red")
+    sm = result.smallest_margin
+    if sm is not None:
+        d = 1 if sm.unit == "deg" else 3
+        t.append(f" Smallest margin: {sm.description}, {sm.margin:+.{d}f} {sm.unit}.")
+    t.append("\n\n" + CAUTION, style="bold")
+    return Group(t)
+
+
+SIGNATORIES = ("Officer", "Master")
+
+
+def _signatures_text() -> Text:
+    line = "_" * 28
+    t = Text()
+    for who in SIGNATORIES:
+        t.append(f"\n{who + ':':<9} {line}  Name: {'_' * 20}  Date/time: {'_' * 16}\n")
+    return t
+
+
+def _signatures_html() -> str:
+    rows = "".join(
+        f'<div class="sig"><span class="who">{who}:</span><span class="line sign"></span>'
+        f'<span class="who">Name:</span><span class="line name"></span>'
+        f'<span class="who">Date/time:</span><span class="line when"></span></div>'
+        for who in SIGNATORIES
+    )
+    return f'<div class="signatures">{rows}</div>'
+
+
+
+@dataclass(frozen=True)
+class _Parts:
+    header: RenderableType
+    summary: RenderableType
+    body: tuple[RenderableType, ...]
+    closing: RenderableType
+
+
+def _parts(result: Result, vessel: Vessel, condition: Condition, stamp: str | None, source: str | None) -> _Parts:
+    return _Parts(
+        header=_header(result, vessel, condition, stamp, source),
+        summary=_summary(result),
+        body=(_items(result, condition), _free_surface(result), _criteria(result)),
+        closing=_closing(result),
+    )
+
+
+def _console(width: int = TEXT_WIDTH) -> Console:
+    return Console(record=True, width=width, file=io.StringIO(), color_system="truecolor",
+                   force_terminal=False, legacy_windows=False, emoji=False, highlight=False)
+
+
+# --------------------------------------------------------------------------- text
+
+
+def render_report_text(
+    result: Result, vessel: Vessel, condition: Condition, *, stamp: str | None = None, source: str | None = None
+) -> str:
+    """The report as plain text, :data:`TEXT_WIDTH` characters wide."""
+    p = _parts(result, vessel, condition, stamp, source)
+    con = _console()
+    con.print(p.header)
+    side = Table.grid(padding=(0, 6))
+    side.add_row(p.summary, _gz_table(result))
+    con.print(side)
+    con.print()
+    for b in p.body:
+        con.print(b)
+        con.print()
+    con.print(p.closing)
+    con.print(_signatures_text())
+    return con.export_text(styles=False)
+
+
+# --------------------------------------------------------------------------- GZ as SVG
+
+
+def _nice_step(span: float, target: int = 5) -> float:
+    raw = span / max(target, 1)
+    mag = 10 ** math.floor(math.log10(raw)) if raw > 0 else 1.0
+    for k in (1.0, 2.0, 2.5, 5.0, 10.0):
+        if raw <= k * mag:
+            return k * mag
+    return 10.0 * mag
+
+
+@dataclass(frozen=True)
+class SvgFrame:
+    """Plot area and scales of the GZ drawing (SVG user units)."""
+
+    left: float
+    top: float
+    width: float
+    height: float
+    x_max_deg: float
+    y_min_m: float
+    y_max_m: float
+
+    def x(self, heel_deg: float) -> float:
+        return self.left + heel_deg / self.x_max_deg * self.width
+
+    def y(self, gz_m: float) -> float:
+        return self.top + (self.y_max_m - gz_m) / (self.y_max_m - self.y_min_m) * self.height
+
+
+def gz_svg(result: Result, width: float = 344.0, height: float = 232.0) -> str:
+    """The GZ curve as an inline SVG: polyline, axes with ticks, 30°/40°/θf marks, GM slope.
+
+    Drawn for the side the criteria were checked on.  The GM slope line runs from the
+    origin towards (1 rad = 57.3°, GM fluid), cut at the top of the frame: the GZ
+    curve's tangent at the origin when the correction is constant (GZ ≈ GM·φ for
+    small φ — common practice on GZ plots).
+    """
+    heel = list(result.gz_heel_deg)
+    gz = list(_criteria_gz(result))
+    x_max = max(heel) if heel and max(heel) > 0 else 90.0
+    lo = min(0.0, min(gz, default=0.0))
+    hi = max(0.0, max(gz, default=0.0))
+    if hi - lo <= 0:
+        hi = lo + 0.1
+    step = _nice_step(hi - lo)
+    y_min = math.floor(lo / step - 1e-9) * step
+    y_max = math.ceil(hi / step + 1e-9) * step
+    fr = SvgFrame(left=40.0, top=14.0, width=width - 52.0, height=height - 40.0, x_max_deg=x_max,
+                  y_min_m=y_min, y_max_m=y_max)
+    out: list[str] = []
+    a = out.append
+    a(f'<svg xmlns="http://www.w3.org/2000/svg" class="gz" viewBox="0 0 {width:g} {height:g}" '
+      f'width="{SVG_WIDTH_MM}mm" height="{SVG_HEIGHT_MM}mm" font-family="sans-serif" font-size="9">')
+    a(f'<title>GZ curve, heeling to {result.criteria_side}</title>')
+    a(f'<text x="{fr.left:g}" y="9" font-weight="bold">GZ (m) against heel, heeling to '
+      f'{htmllib.escape(result.criteria_side)}</text>')
+    # grid and ticks
+    x_step = 10.0 if x_max > 30 else 5.0
+    k = 0
+    while k * x_step <= x_max + 1e-9:
+        h = k * x_step
+        X = fr.x(h)
+        a(f'<line x1="{X:.2f}" y1="{fr.top:.2f}" x2="{X:.2f}" y2="{fr.top + fr.height:.2f}" stroke="#ddd" '
+          f'stroke-width="0.5"/>')
+        a(f'<text class="xt" x="{X:.2f}" y="{fr.top + fr.height + 10:.2f}" text-anchor="middle">{h:g}°</text>')
+        k += 1
+    n = round((y_max - y_min) / step)
+    for j in range(n + 1):
+        v = y_min + j * step
+        Y = fr.y(v)
+        a(f'<line x1="{fr.left:.2f}" y1="{Y:.2f}" x2="{fr.left + fr.width:.2f}" y2="{Y:.2f}" stroke="#ddd" '
+          f'stroke-width="0.5"/>')
+        a(f'<text class="yt" x="{fr.left - 3:.2f}" y="{Y:.2f}" text-anchor="end" dominant-baseline="middle">'
+          f'{v:.2f}</text>')
+    # axes
+    a(f'<line x1="{fr.left:.2f}" y1="{fr.top:.2f}" x2="{fr.left:.2f}" y2="{fr.top + fr.height:.2f}" '
+      f'stroke="#000" stroke-width="0.8"/>')
+    a(f'<line class="axis0" x1="{fr.left:.2f}" y1="{fr.y(0.0):.2f}" x2="{fr.left + fr.width:.2f}" '
+      f'y2="{fr.y(0.0):.2f}" stroke="#000" stroke-width="0.8"/>')
+    # angle marks: the tick labels name 30° and 40°; θf is named in the key below the axis
+    marks = [(30.0, "#555"), (40.0, "#555")]
+    if result.downflooding_angle_deg is not None:
+        marks.append((result.downflooding_angle_deg, "#c00"))
+    for ang, colour in marks:
+        if 0 <= ang <= x_max:
+            X = fr.x(ang)
+            a(f'<line class="mark" data-angle-deg="{ang:g}" x1="{X:.2f}" y1="{fr.top:.2f}" x2="{X:.2f}" '
+              f'y2="{fr.top + fr.height:.2f}" stroke="{colour}" stroke-width="0.9" stroke-dasharray="3 2"/>')
+    key_y = fr.top + fr.height + 22
+    key = []
+    # GM slope: from the origin towards (57.3°, GM), cut at the top of the frame
+    gm = result.gm_fluid_m
+    if gm > 0:
+        end_deg = min(math.degrees(1.0), math.degrees(y_max / gm), x_max)
+        end_gz = gm * math.radians(end_deg)
+        a(f'<line class="gm" x1="{fr.x(0):.2f}" y1="{fr.y(0):.2f}" x2="{fr.x(end_deg):.2f}" '
+          f'y2="{fr.y(end_gz):.2f}" stroke="#07a" stroke-width="0.7" stroke-dasharray="1 2"/>')
+        key.append(("#07a", f"··· GM {gm:.3f} m"))
+    if result.downflooding_angle_deg is not None:
+        key.append(("#c00", f"┆ θf {result.downflooding_angle_deg:.1f}°"))
+    x_key = fr.left
+    for colour, label in key:
+        a(f'<text x="{x_key:.2f}" y="{key_y:.2f}" fill="{colour}">{htmllib.escape(label)}</text>')
+        x_key += 6.0 * len(label) + 10.0
+    pts = " ".join(f"{fr.x(h):.3f},{fr.y(g):.3f}" for h, g in zip(heel, gz))
+    a(f'<polyline class="gz-curve" points="{pts}" fill="none" stroke="#000" stroke-width="1.4"/>')
+    if heel:
+        a(f'<circle cx="{fr.x(result.max_gz_angle_deg):.2f}" cy="{fr.y(result.max_gz_m):.2f}" r="2"/>')
+        a(f'<text x="{x_key:.2f}" y="{key_y:.2f}">● max GZ {result.max_gz_m:.3f} m at '
+          f'{result.max_gz_angle_deg:.1f}°</text>')
+    a("</svg>")
+    return "\n".join(out)
+
+
+# --------------------------------------------------------------------------- HTML
+
+
+def _export(renderable: RenderableType, width: int) -> tuple[str, int]:
+    """One block as HTML (inline styles, no page around it) and its line count."""
+    con = _console(width)
+    con.print(renderable)
+    text = con.export_text(styles=False, clear=False)
+    body = con.export_html(inline_styles=True, code_format="{code}")
+    return body, text.count("\n")
+
+
+def _line_mm(font_pt: float) -> float:
+    return font_pt * LINE_HEIGHT * PT_MM
+
+
+def _page_lines_mm(blocks: list[int], summary_lines: int, font_pt: float) -> float:
+    """Height (mm): text blocks, the summary/GZ row (whichever is taller), gaps, signatures."""
+    row = max(summary_lines * _line_mm(font_pt), SVG_HEIGHT_MM)
+    gaps = (len(blocks) + 1) * 0.5 * _line_mm(font_pt)
+    return sum(blocks) * _line_mm(font_pt) + row + gaps + len(SIGNATORIES) * SIGNATURE_ROW_MM
+
+
+def html_fits_a4(html_text: str) -> bool:
+    """Whether the report's layout note (written by :func:`render_report_html`) says it fits one A4 page."""
+    return 'data-fits-a4="yes"' in html_text
+
+
+def render_report_html(
+    result: Result, vessel: Vessel, condition: Condition, *, stamp: str | None = None, source: str | None = None
+) -> str:
+    """The report as one self-contained HTML page with print CSS for A4 portrait."""
+    p = _parts(result, vessel, condition, stamp, source)
+    header, n_header = _export(p.header, TEXT_WIDTH)
+    summary, n_summary = _export(p.summary, 52)
+    body = [_export(b, TEXT_WIDTH) for b in p.body]
+    closing, n_closing = _export(p.closing, TEXT_WIDTH)
+    blocks = [n_header, *(n for _, n in body), n_closing]
+    printable_h = PAGE_HEIGHT_MM - 2 * PAGE_MARGIN_MM
+    printable_w = PAGE_WIDTH_MM - 2 * PAGE_MARGIN_MM
+    font = FONT_SIZES_PT[-1]
+    for size in FONT_SIZES_PT:
+        if _page_lines_mm(blocks, n_summary, size) <= printable_h:
+            font = size
+            break
+    height = _page_lines_mm(blocks, n_summary, font)
+    fits = height <= printable_h and TEXT_WIDTH * CHAR_WIDTH_EM * font * PT_MM <= printable_w
+    svg = gz_svg(result)
+    title = htmllib.escape(f"{vessel.particulars.name} — {result.condition_name}")
+    pre = (f"margin:0 0 {0.5 * LINE_HEIGHT:.2f}em 0;font-family:'DejaVu Sans Mono','Liberation Mono',"
+           f"Menlo,Consolas,monospace;")
+    css = f"""
+@page {{ size: A4 portrait; margin: {PAGE_MARGIN_MM:g}mm; }}
+html, body {{ margin: 0; padding: 0; background: #fff; color: #000; }}
+body {{ font-size: {font:g}pt; line-height: {LINE_HEIGHT:g}; }}
+pre {{ font-size: {font:g}pt; line-height: {LINE_HEIGHT:g}; white-space: pre; {pre} }}
+pre code {{ font-family: inherit; }}
+.page {{ width: {printable_w:g}mm; margin: 0 auto; }}
+.row {{ display: flex; gap: 4mm; align-items: flex-start; }}
+.row svg {{ flex: none; }}
+.signatures {{ font-family: sans-serif; }}
+.sig {{ display: flex; align-items: flex-end; height: {SIGNATURE_ROW_MM:g}mm; gap: 2mm; }}
+.sig .line {{ border-bottom: 0.4pt solid #000; height: 1em; }}
+.sig .sign {{ flex: 3; }} .sig .name {{ flex: 2; }} .sig .when {{ flex: 1.3; }}
+@media screen {{ .page {{ padding: {PAGE_MARGIN_MM:g}mm; box-shadow: 0 0 4px #888; margin: 8mm auto; }} }}
+@media print {{ .page {{ width: auto; }} pre, svg, .row {{ break-inside: avoid; page-break-inside: avoid; }} }}
+""".strip()
+    parts = [
+        "<!DOCTYPE html>",
+        '<html lang="en">',
+        "<head>",
+        '<meta charset="utf-8">',
+        f"<title>{title}</title>",
+        f"<style>\n{css}\n</style>",
+        "</head>",
+        "<body>",
+        f'<div class="page" data-fits-a4="{"yes" if fits else "no"}" data-height-mm="{height:.1f}">',
+        f'<pre class="header">{header}</pre>',
+        f'<div class="row"><pre class="summary">{summary}</pre>{svg}</div>',
+        *(f'<pre class="{cls}">{b}</pre>' for cls, (b, _) in zip(("items", "free-surface", "criteria"), body)),
+        f'<pre class="closing">{closing}</pre>',
+        _signatures_html(),
+        "</div>",
+        "</body>",
+        "</html>",
+    ]
+    return "\n".join(parts) + "\n"
+
+
+# --------------------------------------------------------------------------- command
+
+
+def run_report(profile_path: Path, condition_path: Path, html: bool, output: Path | None) -> int:
+    """``deckload report``: load, evaluate, render; write to ``output`` or print.
+
+    Exit 0 when written (whether or not the criteria pass), 1 on bad input, 2 when a
+    file cannot be read or written.
+    """
+    from deckload.core.loading import LoadingError
+    from deckload.core.stability import evaluate
+    from deckload.core.tables import OutOfRangeError
+    from deckload.logbook import clock_stamp
+    from deckload.profiles import ProfileError, load_condition, load_profile
+
+    try:
+        vessel = load_profile(profile_path)
+        condition = load_condition(condition_path, vessel)
+        result = evaluate(vessel, condition)
+    except ProfileError as e:
+        print(str(e), file=sys.stderr)
+        return 1
+    except (LoadingError, OutOfRangeError) as e:
+        print(f"{condition_path}: {e}", file=sys.stderr)
+        return 1
+    except OSError as e:
+        print(f"deckload: cannot read {e.filename}: {e.strerror}", file=sys.stderr)
+        return 2
+    stamp = clock_stamp()
+    source = Path(condition_path).name
+    if html:
+        doc = render_report_html(result, vessel, condition, stamp=stamp, source=source)
+        if not html_fits_a4(doc):
+            print("deckload: note: this condition's report runs to more than one A4 page", file=sys.stderr)
+    else:
+        doc = render_report_text(result, vessel, condition, stamp=stamp, source=source)
+    if output is None:
+        sys.stdout.write(doc)
+        return 0
+    try:
+        from deckload.logbook import atomic_write_bytes
+
+        atomic_write_bytes(Path(output), doc.encode("utf-8"))
+    except OSError as e:
+        print(f"deckload: cannot write {output}: {e.strerror}", file=sys.stderr)
+        return 2
+    print(f"report written to {output}", file=sys.stderr)
+    return 0

@@ -1,0 +1,265 @@
+"""``deckload tables GEOMETRY [-o PROFILE]``: compute a vessel's tables from its geometry.
+
+Reads a geometry file (``deckload.geometry_io``), computes every table
+(``deckload.core.geometry.builder``) and writes the profile's generated sections
+with tomli-w:
+
+* ``[hydrostatics]``, ``[cross_curves]``;
+* every ``[[tank]]`` named in the geometry (id, name, kind, density, pair,
+  fs_category, capacity, worst band, calibration and fluid transfer);
+* every ``[[hold]]`` named in the geometry (capacity, centroid, fill table);
+* ``[[deck_area]]`` and ``[downflooding]`` when the geometry defines deck areas or
+  openings;
+* in ``[vessel]``: lbp_m, breadth_m, depth_m and table_density_t_m3 (name,
+  design_draft_m and longitudinal_datum only when the profile has none).
+
+Everything else in an existing profile — format, the other ``[vessel]`` keys,
+``[lightship]``, ``[criteria]``, ``[free_surface]``, ``[[load_line]]``,
+``[limit_curve]``, remarks, and tanks or holds that the geometry does not name —
+is kept as it is.  The file is replaced atomically; TOML comments cannot survive a
+rewrite, so when the old file has any a copy is kept beside it as ``*.bak``.
+
+Values are rounded to fixed decimals (0.1 mm for lengths, 0.01 t, 1e-4 m³ …), so
+the output is deterministic and a rebuild of an unchanged geometry is
+byte-for-byte identical.
+"""
+
+from __future__ import annotations
+
+import os
+import shutil
+import sys
+import tempfile
+import time
+import tomllib
+from pathlib import Path
+from typing import Any
+
+import numpy as np
+import tomli_w
+
+from deckload.core.geometry.builder import TableRangeError, VesselTables, build_tables
+from deckload.core.geometry.cross_curves import NoEquilibriumError
+from deckload.geometry_io import GeometryError, load_geometry
+
+PROFILE_FORMAT = "deckload-profile-1"
+
+TOP_ORDER = (
+    "format", "vessel", "lightship", "hydrostatics", "cross_curves", "free_surface", "criteria",
+    "load_line", "limit_curve", "downflooding", "tank", "hold", "deck_area",
+)
+"""Order of the top-level sections in a written profile; unknown keys follow in their own order."""
+
+
+def _r(a: Any, decimals: int) -> Any:
+    """Round to fixed decimals as plain Python floats (lists for arrays); −0.0 becomes 0.0."""
+    arr = np.round(np.asarray(a, dtype=float), decimals) + 0.0
+    return arr.tolist() if arr.ndim else float(arr)
+
+
+def generated_sections(vt: VesselTables) -> dict[str, Any]:
+    """The generated parts of a profile as plain TOML-ready data (rounded)."""
+    g = vt.geometry
+    h = vt.hydrostatics
+    out: dict[str, Any] = {}
+    out["vessel"] = {
+        "lbp_m": _r(g.vessel.lbp_m, 4),
+        "breadth_m": _r(g.vessel.breadth_m, 4),
+        "depth_m": _r(g.vessel.depth_m, 4),
+        "table_density_t_m3": _r(g.vessel.table_density_t_m3, 4),
+    }
+    out["hydrostatics"] = {
+        "draft_m": _r(h.draft_m, 4),
+        "displacement_t": _r(h.displacement_t, 2),
+        "lcb_m": _r(h.lcb_m, 4),
+        "lcf_m": _r(h.lcf_m, 4),
+        "kmt_m": _r(h.kmt_m, 4),
+        "tpc_t_cm": _r(h.tpc_t_cm, 4),
+        "mctc_tm_cm": _r(h.mctc_tm_cm, 4),
+        "vcb_m": _r(h.vcb_m, 4),
+        "kml_m": _r(h.kml_m, 3),
+    }
+    cc = vt.cross_curves
+    out["cross_curves"] = {
+        "trim_basis": cc.trim_basis,
+        "heel_deg": _r(cc.heel_deg, 3),
+        "displacement_t": _r(cc.displacement_t, 2),
+        "kn_m": _r(cc.kn_m, 4),
+    }
+    if vt.downflooding is not None:
+        out["downflooding"] = {
+            "displacement_t": _r(vt.downflooding.displacement_t, 2),
+            "angle_deg": _r(vt.downflooding.angle_deg, 2),
+        }
+    tanks = []
+    for t in vt.tanks:
+        s = t.spec
+        d: dict[str, Any] = {"id": s.id, "name": s.name, "kind": s.kind, "density_t_m3": _r(s.density_t_m3, 4)}
+        d["capacity_m3"] = _r(t.calibration.volume_m3[-1], 4)
+        if s.pair is not None:
+            d["pair"] = s.pair
+        if s.fs_category is not None:
+            d["fs_category"] = s.fs_category
+        d["worst_band_pct"] = _r(t.worst_band_pct, 1)
+        c = t.calibration
+        d["calibration"] = {
+            "sounding_m": _r(c.sounding_m, 4),
+            "volume_m3": _r(c.volume_m3, 4),
+            "lcg_m": _r(c.lcg_m, 4),
+            "vcg_m": _r(c.vcg_m, 4),
+            "tcg_m": _r(c.tcg_m, 4),
+            "fsi_m4": _r(c.fsi_m4, 4),
+        }
+        d["transfer"] = {
+            "fill_pct": _r(t.transfer.fill_pct, 3),
+            "heel_deg": _r(t.transfer.heel_deg, 3),
+            "moment_m4": _r(t.transfer.moment_m4, 4),
+        }
+        tanks.append(d)
+    out["tank"] = tanks
+    holds = []
+    for ht in vt.holds:
+        d = {
+            "id": ht.spec.id,
+            "name": ht.spec.name,
+            "capacity_m3": _r(ht.capacity_m3, 3),
+            "lcg_m": _r(ht.lcg_m, 4),
+            "vcg_m": _r(ht.vcg_m, 4),
+            "tcg_m": _r(ht.tcg_m, 4),
+        }
+        if ht.spec.max_mass_t is not None:
+            d["max_mass_t"] = _r(ht.spec.max_mass_t, 3)
+        d["fill_pct"] = _r(ht.fill_pct, 3)
+        d["fill_vcg_m"] = _r(ht.fill_vcg_m, 4)
+        d["fill_lcg_m"] = _r(ht.fill_lcg_m, 4)
+        holds.append(d)
+    out["hold"] = holds
+    if vt.deck_areas:
+        areas = []
+        for a in vt.deck_areas:
+            d = {
+                "id": a.spec.id,
+                "name": a.spec.name,
+                "area_m2": _r(a.area_m2, 3),
+                "lcg_m": _r(a.lcg_m, 4),
+                "deck_height_m": _r(a.deck_height_m, 4),
+                "tcg_m": _r(a.tcg_m, 4),
+            }
+            if a.spec.max_load_t_m2 is not None:
+                d["max_load_t_m2"] = _r(a.spec.max_load_t_m2, 4)
+            areas.append(d)
+        out["deck_area"] = areas
+    return out
+
+
+def merge_profile(existing: dict[str, Any] | None, gen: dict[str, Any], vt: VesselTables) -> tuple[dict[str, Any], list[str]]:
+    """The refreshed profile: generated sections replaced, everything else kept.  Returns notes."""
+    notes: list[str] = []
+    old = dict(existing or {})
+    new: dict[str, Any] = {}
+    new["format"] = old.get("format", PROFILE_FORMAT)
+    vessel = dict(old.get("vessel", {})) if isinstance(old.get("vessel"), dict) else {}
+    gv = vt.geometry.vessel
+    if "name" not in vessel:
+        vessel["name"] = gv.name
+    for k, v in gen["vessel"].items():
+        vessel[k] = v
+    vessel.setdefault("design_draft_m", _r(gv.design_draft_m, 4))
+    vessel.setdefault("longitudinal_datum", "AP")
+    new["vessel"] = vessel
+    for key in ("hydrostatics", "cross_curves", "downflooding"):
+        if key in gen:
+            new[key] = gen[key]
+    for key, label in (("tank", "tank"), ("hold", "hold"), ("deck_area", "deck area")):
+        if key not in gen:
+            continue
+        made = {e["id"] for e in gen[key]}
+        kept = [e for e in old.get(key, []) if isinstance(e, dict) and e.get("id") not in made]
+        for e in kept:
+            notes.append(f"{label} {e.get('id')!r} is not in the geometry file: kept as it was")
+        new[key] = list(gen[key]) + kept
+    for key, value in old.items():
+        if key not in new:
+            new[key] = value
+    ordered = {k: new[k] for k in TOP_ORDER if k in new}
+    ordered.update({k: v for k, v in new.items() if k not in ordered})
+    return ordered, notes
+
+
+def render(doc: dict[str, Any]) -> str:
+    return tomli_w.dumps(doc)
+
+
+def _has_comments(text: str) -> bool:
+    return any(line.lstrip().startswith("#") for line in text.splitlines())
+
+
+def _write_atomic(path: Path, text: str) -> None:
+    fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=str(path.parent or Path(".")))
+    try:
+        with os.fdopen(fd, "w", encoding="utf-8", newline="\n") as f:
+            f.write(text)
+        os.replace(tmp, path)
+    except BaseException:
+        try:
+            os.unlink(tmp)
+        except OSError:
+            pass
+        raise
+
+
+def build_profile_text(geometry_path: Path, existing_text: str | None, progress=None) -> tuple[str, list[str]]:
+    """The full profile text for a geometry and (optionally) an existing profile's text."""
+    geometry = load_geometry(geometry_path)
+    vt = build_tables(geometry, progress)
+    existing = tomllib.loads(existing_text) if existing_text is not None else None
+    doc, notes = merge_profile(existing, generated_sections(vt), vt)
+    return render(doc), notes
+
+
+def run_tables(geometry_path: Path, output_path: Path | None) -> int:
+    """The command: exit 0 when written, 1 on bad input (message on stderr)."""
+    start = time.perf_counter()
+
+    def progress(msg: str) -> None:
+        print(f"deckload tables: {msg} ({time.perf_counter() - start:.1f} s)", file=sys.stderr, flush=True)
+
+    existing_text = None
+    if output_path is not None and output_path.exists():
+        try:
+            existing_text = output_path.read_text(encoding="utf-8")
+            tomllib.loads(existing_text)
+        except (OSError, UnicodeDecodeError) as e:
+            print(f"deckload tables: cannot read {output_path}: {e}", file=sys.stderr)
+            return 1
+        except tomllib.TOMLDecodeError as e:
+            print(f"deckload tables: {output_path}: not valid TOML ({e}); the file was left untouched",
+                  file=sys.stderr)
+            return 1
+    try:
+        text, notes = build_profile_text(geometry_path, existing_text, progress)
+    except GeometryError as e:
+        print(f"deckload tables: {len(e.problems)} problem(s) in the geometry file:", file=sys.stderr)
+        for p in e.problems:
+            print(f"  {p}", file=sys.stderr)
+        return 1
+    except (TableRangeError, NoEquilibriumError, ValueError) as e:
+        print(f"deckload tables: {geometry_path}: {e}", file=sys.stderr)
+        return 1
+    for n in notes:
+        print(f"deckload tables: note: {n}", file=sys.stderr)
+    if output_path is None:
+        sys.stdout.write(text)
+        return 0
+    if existing_text is not None and existing_text != text and _has_comments(existing_text):
+        backup = output_path.with_name(output_path.name + ".bak")
+        shutil.copyfile(output_path, backup)
+        print(f"deckload tables: {output_path} had comments, which a rewrite cannot keep; "
+              f"the old file is saved as {backup}", file=sys.stderr)
+    if existing_text == text:
+        print(f"deckload tables: {output_path} is already up to date", file=sys.stderr)
+        return 0
+    _write_atomic(output_path, text)
+    print(f"deckload tables: wrote {output_path} ({time.perf_counter() - start:.1f} s). "
+          "Check the tables against the approved stability booklet before relying on them.", file=sys.stderr)
+    return 0

@@ -1,0 +1,58 @@
+"""The textual App: receives a finished :class:`~deckload.ui.session.Session`, shows the loading screen.
+
+Build it with :func:`deckload.ui.launch.create_app` (tests use the same factory).
+"""
+
+from __future__ import annotations
+
+from functools import partial
+from typing import Iterable
+
+from textual.app import App, SystemCommand
+from textual.screen import Screen
+
+from deckload.ui.commands import COMMANDS
+from deckload.ui.main_screen import LoadingScreen
+from deckload.ui.session import Session
+
+
+class DeckloadApp(App[None]):
+    CSS_PATH = "deckload.tcss"
+    TITLE = "deckload"
+
+    def __init__(self, session: Session, *, notices: Iterable[str] = ()):
+        super().__init__()
+        self.session = session
+        self.notices = tuple(notices)
+        self.loading_screen = LoadingScreen(session)
+
+    def get_default_screen(self) -> Screen:
+        return self.loading_screen
+
+    def on_mount(self) -> None:
+        for n in self.notices:
+            self.notify(n, severity="warning", timeout=12)
+
+    def get_system_commands(self, screen: Screen) -> Iterable[SystemCommand]:
+        """The command palette lists every command from the one table, with its key."""
+        for c in COMMANDS:
+            yield SystemCommand(f"{c.label} [{c.key_text}]", c.help, partial(self._run, c.action))
+        yield from super().get_system_commands(screen)
+
+    async def _run(self, action: str) -> None:
+        await self.run_action(action, self.loading_screen)
+
+    def show_log(self) -> None:
+        """Open the voyage log (the log module's screen); a restore it hands back is one undoable change."""
+        from deckload.ui.log_screen import LogScreen
+
+        j = self.session.journal
+        if j.logbook is None:
+            self.notify(f"No voyage log open: {j.problem or 'unknown reason'}", severity="error")
+            return
+
+        def restored(req) -> None:
+            if req is not None:
+                self.loading_screen.commit(req.condition, req.label, "restore", req.change_data)
+
+        self.push_screen(LogScreen(j.logbook, self.session.vessel), callback=restored)

@@ -1,0 +1,73 @@
+"""Every user command, declared once: key, footer label, help text.
+
+The main screen's bindings, the help screen and the command palette are all
+built from :data:`COMMANDS`, so they cannot drift apart.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+
+@dataclass(frozen=True)
+class Command:
+    action: str
+    """Action name on the loading screen (``action_<name>``)."""
+    keys: str
+    """Key(s) as textual names, comma-separated; the first is shown."""
+    label: str
+    """Footer label: one or two short words."""
+    help: str
+    """One sentence for the help screen and the command palette."""
+    display: str | None = None
+    """How the key is written in the footer and help, when not the key's own name."""
+    footer: bool = True
+    """Shown in the footer (all commands are in help and the palette)."""
+
+    @property
+    def key_text(self) -> str:
+        return self.display or self.keys.split(",")[0]
+
+
+COMMANDS: tuple[Command, ...] = (
+    Command("set_amount", "enter", "Set", "Type an amount for the line under the cursor: tank 55% / 12.5m3 / 10t / "
+            "1.2m (sounding); hold mass in t; a deck load or constant opens its form (mass, position).",
+            display="⏎"),
+    Command("nudge(1)", "plus,equals_sign", "±1%", "Raise the tank under the cursor by 1 % of capacity "
+            "(a hold or item by 1 t).", display="+ -"),
+    Command("nudge(-1)", "minus", "−1%", "Lower the tank under the cursor by 1 % of capacity (a hold or item by 1 t).",
+            display="-", footer=False),
+    Command("fill", "f", "Full", "Fill the tank under the cursor to 100 %."),
+    Command("empty", "e", "Empty", "Empty the tank or hold under the cursor; remove the deck load or constant."),
+    Command("transfer", "t", "Transfer", "Pump between two tanks, with a before/after preview; commit is one undoable step."),
+    Command("add_deck", "a", "+Deck", "Add a deck load: name, mass and position (LCG, VCG, TCG), optional deck area."),
+    Command("add_constant", "c", "+Const", "Add a constant (crew, stores, provisions): name, mass and position."),
+    Command("density", "d", "ρ", "Set the density of the water she floats in (t/m³)."),
+    Command("undo", "u,ctrl+z", "Undo", "Undo the last change."),
+    Command("redo", "y,ctrl+y", "Redo", "Redo the last undone change."),
+    Command("toggle_gz", "g", "GZ", "Show the GZ curve or the numbers (only below 110 columns, where both do not fit)."),
+    Command("alerts", "w", "Warn", "List every warning, when more are raised than the warning strip can show."),
+    Command("sign_on", "o", "Watch", "Sign on as officer of the watch (initials): every change is then written "
+            "to the voyage log under them."),
+    Command("record", "s", "Record", "Record the working condition in the voyage log, with your initials and a remark."),
+    Command("show_log", "l", "Log", "Open the voyage log."),
+    Command("help", "question_mark,f1", "Help", "This list of keys and what each does.", display="?"),
+    Command("quit", "q", "Quit", "Leave deckload; the working condition is already saved."),
+)
+
+NAVIGATION: tuple[tuple[str, str], ...] = (
+    ("↑ ↓ PgUp PgDn Home End", "move the cursor on the loading board"),
+    ("ctrl+p", "command palette: every command by name"),
+    ("Tab / shift+Tab", "move between fields in a form"),
+    ("Esc", "close a form or this help without changing anything"),
+)
+
+
+def bindings():
+    """Textual bindings for :data:`COMMANDS` (imported lazily: this module stays textual-free)."""
+    from textual.binding import Binding
+
+    return [
+        Binding(c.keys, c.action, c.label, show=c.footer, key_display=c.display, priority=False)
+        for c in COMMANDS
+    ]

@@ -1,0 +1,87 @@
+"""`deckload` / `deckload open PROFILE [CONDITION]`: read the files, build the app, run it.
+
+All file reading happens here; :func:`create_app` takes finished objects and is
+the one factory the tests use too.
+"""
+
+from __future__ import annotations
+
+import sys
+from pathlib import Path
+
+from deckload.core.model import Condition, Vessel
+
+
+def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir: Path) -> tuple[Vessel, Condition, list[str]]:
+    """The vessel and the condition to start from, with notices for the user.
+
+    Start-up order: the CONDITION argument if given; else the vessel's saved
+    working condition; else (demo vessel) its departure condition, or an empty
+    condition.  An unreadable working file is set aside, never overwritten.
+    """
+    from deckload import paths
+    from deckload.profiles import ProfileError, load_condition, load_profile
+    from deckload.ui.session import working_path
+
+    notices: list[str] = []
+    vessel = load_profile(profile_path or paths.DEMO_PROFILE)
+    if condition_path is not None:
+        return vessel, load_condition(condition_path, vessel), notices
+    saved = working_path(work_dir, vessel)
+    if saved.is_file():
+        try:
+            return vessel, load_condition(saved, vessel), notices
+        except ProfileError as exc:
+            aside = saved.with_name(saved.name + ".unreadable")
+            saved.replace(aside)
+            notices.append(f"Saved working condition could not be read and was moved to {aside}: {exc}")
+    if profile_path is None:
+        return vessel, load_condition(paths.DEMO_CONDITIONS["departure"], vessel), notices
+    return vessel, Condition(name="Working condition"), notices
+
+
+def create_app(
+    vessel: Vessel, condition: Condition, *, work_dir: Path | None, log_dir: Path | None,
+    notices=(), officer: str = "",
+):
+    """The app over a finished vessel and condition; saves to ``work_dir``, logs to ``log_dir``.
+
+    ``officer``: initials of the officer of the watch, if known (else signed on with key o).
+    """
+    from deckload.ui.app import DeckloadApp
+    from deckload.ui.session import Session, working_path
+
+    journal = open_journal(log_dir, vessel.particulars.name)
+    journal.officer = officer
+    save_path = working_path(work_dir, vessel) if work_dir is not None else None
+    session = Session(vessel, condition, save_path=save_path, journal=journal)
+    return DeckloadApp(session, notices=[*notices, *([journal.problem] if journal.problem else [])])
+
+
+def open_journal(log_dir: Path | None, vessel_name: str):
+    from deckload.ui.session import Journal
+
+    if log_dir is None:
+        return Journal(None, "no log folder")
+    try:
+        from deckload.logbook import Logbook
+
+        book = Logbook.open(log_dir, vessel_name)
+    except Exception as exc:  # a broken log must not stop the loading screen
+        return Journal(None, f"voyage log not available: {exc}")
+    problem = f"voyage log read-only: {book.readonly_reason}" if book.readonly else None
+    return Journal(book, problem)
+
+
+def run_open(profile_path: Path | None, condition_path: Path | None) -> int:
+    from deckload import paths
+    from deckload.profiles import ProfileError
+
+    work_dir = paths.working_dir()
+    try:
+        vessel, condition, notices = load_inputs(profile_path, condition_path, work_dir)
+    except (ProfileError, OSError) as exc:
+        print(f"deckload: {exc}", file=sys.stderr)
+        return 2
+    create_app(vessel, condition, work_dir=work_dir, log_dir=paths.log_dir(), notices=notices).run()
+    return 0

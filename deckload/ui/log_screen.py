@@ -1,0 +1,346 @@
+"""The voyage-log view: a textual Screen over an open :class:`~deckload.logbook.Logbook`.
+
+How to construct and push it (from the App)::
+
+    from deckload.ui.log_screen import LogScreen, RestoreRequest
+
+    def _restored(req: RestoreRequest | None) -> None:
+        if req is not None:   # the officer asked to restore req.condition
+            session.commit(req.condition, req.label, kind="restore", data=req.change_data)
+
+    app.push_screen(LogScreen(logbook, vessel), callback=_restored)
+
+``vessel`` is needed to restore a past condition (its TOML is validated against the
+profile); when omitted the screen takes ``app.session.vessel``.  The screen never
+writes to the log: it reads entries, and a restore is handed back through
+``dismiss(RestoreRequest)`` so the caller makes the change — and logs it with kind
+``"restore"`` — like any other edit.  It closes with ``dismiss(None)`` on Escape or l.
+
+Keys (shown in the footer): ⏎ open the entry read-only, r restore its condition,
+k next kind, d date filter, c clear filters, v verify the chain, l / Esc back.
+Styles: ``log_screen.tcss`` beside this file.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from datetime import date, datetime
+from pathlib import Path
+from typing import Iterable
+
+from rich.text import Text
+from textual import on
+from textual.app import ComposeResult
+from textual.binding import Binding
+from textual.containers import Horizontal, Vertical, VerticalScroll
+from textual.screen import ModalScreen, Screen
+from textual.widgets import DataTable, Footer, Input, Static
+
+from deckload.core.model import Condition, Vessel
+from deckload.logbook import KIND_LABELS, KINDS, LogEntry, Logbook, condition_of
+
+ALL_KINDS = "all"
+
+
+@dataclass(frozen=True)
+class RestoreRequest:
+    """What the log screen hands back when the officer restores a past condition."""
+
+    condition: Condition
+    """The past condition, validated against the current vessel profile."""
+    entry_seq: int
+    """Sequence number of the log entry it came from."""
+    label: str
+    """A change text for the caller's own log entry, e.g. 'restored condition of entry #12'."""
+    change_data: dict
+    """Change data for that entry: which entry, its time and its SHA-256."""
+
+
+def parse_day(text: str) -> date | None:
+    """'2026-12-01' → date; '' → None; anything else raises ValueError naming the format."""
+    text = text.strip()
+    if not text:
+        return None
+    try:
+        return date.fromisoformat(text)
+    except ValueError:
+        raise ValueError(f"date {text!r} is not of the form YYYY-MM-DD") from None
+
+
+def select_entries(
+    entries: Iterable[LogEntry], kind: str = ALL_KINDS, day_from: date | None = None, day_to: date | None = None
+) -> list[LogEntry]:
+    """Entries of ``kind`` whose ship's date lies in [day_from, day_to] (both inclusive, either open)."""
+    out = []
+    for e in entries:
+        if kind != ALL_KINDS and e.kind != kind:
+            continue
+        d = e.ship_time.date()
+        if day_from is not None and d < day_from:
+            continue
+        if day_to is not None and d > day_to:
+            continue
+        out.append(e)
+    return out
+
+
+def _num(x, digits: int = 3, unit: str = "") -> str:
+    if isinstance(x, (int, float)) and not isinstance(x, bool):
+        return f"{x:.{digits}f}{unit}"
+    return "—"
+
+
+def entry_details(e: LogEntry) -> Text:
+    """The entry's stored summary as it was computed when recorded (nothing recomputed)."""
+    t = Text()
+    t.append(f"Entry #{e.seq}  ", style="bold")
+    t.append(f"{e.ship_time:%Y-%m-%d %H:%M} ship's time ({e.ship_clock}), {e.utc:%Y-%m-%d %H:%M:%S} UTC\n")
+    t.append(f"{KIND_LABELS.get(e.kind, e.kind)} by {e.by}: {e.change_text}\n")
+    if e.remark:
+        t.append(f"Remark: {e.remark}\n")
+    s = e.summary
+    if s is None:
+        t.append("No stability summary stored with this entry.\n", style="italic")
+    else:
+        t.append(f"\nCondition: {s.get('condition_name', '—')}  (water {_num(s.get('water_density_t_m3'))} t/m³)\n")
+        rows = [
+            ("Displacement", _num(s.get("displacement_t"), 1, " t")),
+            ("Deadweight", _num(s.get("deadweight_t"), 1, " t")),
+            ("Draft fwd / mean / aft", " / ".join(_num(s.get(k)) for k in ("draft_fwd_m", "draft_mean_m", "draft_aft_m"))
+             + " m"),
+            ("Trim (+ by the stern)", _num(s.get("trim_m"), 3, " m")),
+            ("List (+ starboard)", _num(s.get("list_deg"), 2, "°")),
+            ("KG fluid", _num(s.get("kg_fluid_m"), 3, " m")),
+            ("FSC", _num(s.get("fsc_m"), 3, " m")),
+            ("GM fluid", _num(s.get("gm_fluid_m"), 3, " m")),
+        ]
+        for k, v in rows:
+            t.append(f"  {k:<24}{v}\n")
+        passed = s.get("criteria_pass")
+        if passed is True:
+            t.append("  Criteria: all met\n", style="bold")
+        elif passed is False:
+            t.append(f"  Criteria: NOT MET — {', '.join(s.get('criteria_failed', []))}\n", style="bold red")
+        sm = s.get("smallest_margin")
+        if sm:
+            t.append(f"  Smallest margin: {sm.get('description', sm.get('id'))}: {_num(sm.get('value'))} against "
+                     f"{_num(sm.get('limit'))} {sm.get('unit', '')} (margin {_num(sm.get('margin'))})\n")
+        for w in s.get("warnings", []):
+            t.append(f"  ! {w}\n")
+    if e.change_data:
+        t.append("\nChange data: ", style="bold")
+        t.append(", ".join(f"{k} = {v}" for k, v in e.change_data.items()) + "\n")
+    t.append(f"\nSHA-256 {e.sha256}\n", style="dim")
+    return t
+
+
+class EntryScreen(ModalScreen[None]):
+    """One past entry, read-only: its stored summary and the condition as it was recorded."""
+
+    CSS_PATH = "log_screen.tcss"
+    BINDINGS = [
+        Binding("escape,enter", "dismiss_entry", "Close"),
+    ]
+
+    def __init__(self, entry: LogEntry):
+        super().__init__(id="log-entry-screen")
+        self.entry = entry
+
+    def compose(self) -> ComposeResult:
+        with VerticalScroll(id="log-entry-box"):
+            yield Static(entry_details(self.entry), id="log-entry-summary")
+            cond = self.entry.condition
+            if cond is not None:
+                yield Static(Text("Condition as recorded (read-only)", style="bold"), classes="log-entry-head")
+                yield Static(Text(cond if isinstance(cond, str) else repr(cond)), id="log-entry-condition")
+        yield Footer()
+
+    def action_dismiss_entry(self) -> None:
+        self.dismiss(None)
+
+
+class LogScreen(Screen["RestoreRequest | None"]):
+    """The voyage log: entries newest last, filters by kind and ship's date, open, restore."""
+
+    CSS_PATH = "log_screen.tcss"
+    BINDINGS = [
+        Binding("enter", "open_entry", "Open"),
+        Binding("r", "restore", "Restore"),
+        Binding("k", "next_kind", "Kind"),
+        Binding("d", "edit_dates", "Dates"),
+        Binding("c", "clear_filters", "Clear"),
+        Binding("v", "verify", "Verify"),
+        Binding("l,escape", "back", "Back"),
+    ]
+
+    def __init__(self, logbook: Logbook, vessel: Vessel | None = None):
+        super().__init__(id="log-screen")
+        self.logbook = logbook
+        self.vessel = vessel
+        self.kind = ALL_KINDS
+        self.day_from: date | None = None
+        self.day_to: date | None = None
+        self.shown: list[LogEntry] = []
+
+    # ----------------------------------------------------------------- layout
+
+    def compose(self) -> ComposeResult:
+        yield Static(id="log-title")
+        with Horizontal(id="log-filters"):
+            yield Static("", id="log-kind")
+            yield Static("ship's date from", classes="log-filter-label")
+            yield Input(placeholder="YYYY-MM-DD", id="log-from", max_length=10)
+            yield Static("to", classes="log-filter-label")
+            yield Input(placeholder="YYYY-MM-DD", id="log-to", max_length=10)
+        with Vertical(id="log-body"):
+            yield DataTable(id="log-table", cursor_type="row", zebra_stripes=True)
+            yield Static(id="log-detail")
+        yield Static(id="log-status")
+        yield Footer()
+
+    def on_mount(self) -> None:
+        table = self.query_one("#log-table", DataTable)
+        table.add_columns("#", "ship's time", "UTC", "kind", "by", "change", "GM fl m", "criteria")
+        self.refresh_entries()
+        table.focus()
+
+    # ----------------------------------------------------------------- data
+
+    def refresh_entries(self) -> None:
+        """Re-read the log, apply the filters, fill the table (newest entry selected)."""
+        entries = self.logbook.entries()
+        self.shown = select_entries(entries, self.kind, self.day_from, self.day_to)
+        table = self.query_one("#log-table", DataTable)
+        table.clear()
+        for e in self.shown:
+            passed = e.criteria_pass
+            verdict = Text("—") if passed is None else (Text("pass") if passed else Text("FAIL", style="bold red"))
+            table.add_row(
+                str(e.seq), f"{e.ship_time:%Y-%m-%d %H:%M}", f"{e.utc:%H:%M}Z", e.kind, e.by, e.change_text[:48],
+                _num(e.gm_fluid_m), verdict, key=str(e.seq),
+            )
+        if self.shown:
+            table.move_cursor(row=len(self.shown) - 1)
+        mode = "read-only" if self.logbook.readonly else "writing"
+        title = Text()
+        title.append(f"Voyage log — {self.logbook.vessel_name}", style="bold")
+        title.append(f"   {self.logbook.path.name}, {len(entries)} entries, {mode}")
+        self.query_one("#log-title", Static).update(title)
+        kind = "all kinds" if self.kind == ALL_KINDS else KIND_LABELS.get(self.kind, self.kind)
+        self.query_one("#log-kind", Static).update(Text(f"kind: {kind}  "))
+        status = f"{len(self.shown)} of {len(entries)} shown"
+        if self.logbook.skipped:
+            status += f"; {len(self.logbook.skipped)} unreadable line(s) left out — press v to verify"
+        self.query_one("#log-status", Static).update(status)
+        self._show_detail()
+
+    def current(self) -> LogEntry | None:
+        table = self.query_one("#log-table", DataTable)
+        if not self.shown or table.cursor_row is None or not (0 <= table.cursor_row < len(self.shown)):
+            return None
+        return self.shown[table.cursor_row]
+
+    def _show_detail(self) -> None:
+        e = self.current()
+        detail = self.query_one("#log-detail", Static)
+        detail.update(entry_details(e) if e is not None else Text("No entries match the filters.", style="italic"))
+
+    @on(DataTable.RowHighlighted, "#log-table")
+    def _highlighted(self, _event: DataTable.RowHighlighted) -> None:
+        self._show_detail()
+
+    # ----------------------------------------------------------------- filters
+
+    def action_next_kind(self) -> None:
+        order = (ALL_KINDS, *KINDS)
+        self.kind = order[(order.index(self.kind) + 1) % len(order)]
+        self.refresh_entries()
+
+    def action_edit_dates(self) -> None:
+        self.query_one("#log-from", Input).focus()
+
+    def action_clear_filters(self) -> None:
+        self.kind = ALL_KINDS
+        self.day_from = self.day_to = None
+        self.query_one("#log-from", Input).value = ""
+        self.query_one("#log-to", Input).value = ""
+        self.refresh_entries()
+        self.query_one("#log-table", DataTable).focus()
+
+    @on(Input.Submitted, "#log-from, #log-to")
+    def _dates_submitted(self, event: Input.Submitted) -> None:
+        try:
+            day_from = parse_day(self.query_one("#log-from", Input).value)
+            day_to = parse_day(self.query_one("#log-to", Input).value)
+        except ValueError as exc:
+            self.notify(str(exc), severity="error")
+            return
+        if day_from and day_to and day_to < day_from:
+            self.notify("the 'to' date is before the 'from' date", severity="error")
+            return
+        self.day_from, self.day_to = day_from, day_to
+        self.refresh_entries()
+        if event.input.id == "log-from":
+            self.query_one("#log-to", Input).focus()
+        else:
+            self.query_one("#log-table", DataTable).focus()
+
+    # ----------------------------------------------------------------- actions
+
+    @on(DataTable.RowSelected, "#log-table")
+    def _selected(self, _event: DataTable.RowSelected) -> None:
+        self.action_open_entry()
+
+    def action_open_entry(self) -> None:
+        e = self.current()
+        if e is None:
+            self.notify("No entry selected.", severity="warning")
+            return
+        self.app.push_screen(EntryScreen(e))
+
+    def _vessel(self) -> Vessel | None:
+        if self.vessel is not None:
+            return self.vessel
+        session = getattr(self.app, "session", None)
+        return getattr(session, "vessel", None)
+
+    def action_restore(self) -> None:
+        e = self.current()
+        if e is None:
+            self.notify("No entry selected.", severity="warning")
+            return
+        if e.condition is None:
+            self.notify(f"Entry #{e.seq} ({e.kind}) holds no loading condition.", severity="warning")
+            return
+        vessel = self._vessel()
+        if vessel is None:
+            self.notify("No vessel profile to check the condition against; nothing restored.", severity="error")
+            return
+        try:
+            condition = condition_of(e, vessel)
+        except Exception as exc:  # a stored condition that no longer fits the profile
+            self.notify(f"Entry #{e.seq} cannot be restored: {exc}", severity="error", timeout=10)
+            return
+        self.dismiss(
+            RestoreRequest(
+                condition=condition,
+                entry_seq=e.seq,
+                label=f"restored the condition of log entry #{e.seq} ({e.ship_time:%Y-%m-%d %H:%M} ship's time)",
+                change_data={"restored_entry": e.seq, "restored_utc": e.utc.isoformat(),
+                             "restored_sha256": e.sha256},
+            )
+        )
+
+    def action_verify(self) -> None:
+        rep = self.logbook.verify()
+        if rep.ok:
+            self.notify(f"Chain intact: {rep.entries} entries. Newest SHA-256 {rep.last_sha256[:16]}…", timeout=8)
+        else:
+            shown = "\n".join(rep.problems[:6]) + (f"\n… {len(rep.problems) - 6} more" if len(rep.problems) > 6 else "")
+            self.notify(f"Log chain BROKEN:\n{shown}", severity="error", timeout=20)
+
+    def action_back(self) -> None:
+        if isinstance(self.focused, Input):
+            self.query_one("#log-table", DataTable).focus()
+            return
+        self.dismiss(None)

@@ -1,0 +1,382 @@
+"""The loading screen: the hub.  Widgets get data (attributes down), forms return values.
+
+Layout (see deckload.tcss): a title line, the alert strip (always in view), the
+loading board on the left, the 'Afloat' numbers, the criteria and the GZ curve on
+the right, a message line and the footer.  Below 110 columns the right side
+shows either the numbers or the GZ curve (key g).
+"""
+
+from __future__ import annotations
+
+import dataclasses
+
+from rich.text import Text
+from textual.app import ComposeResult
+from textual.containers import Horizontal, Vertical
+from textual.screen import Screen
+from textual.widgets import Footer
+
+from deckload.core.model import Condition
+from deckload.ui import entry, views
+from deckload.ui.commands import bindings
+from deckload.ui.dialogs import HelpScreen, TextScreen, ItemFormScreen, PromptForm, RecordForm, TransferForm
+from deckload.ui.entry import EntryError, ItemForm
+from deckload.ui.palette import P
+from deckload.ui.session import Session
+from deckload.ui.widgets import LinePanel, LoadBoard, SizedPanel
+
+NARROW_BELOW = 110
+"""Screen width (cells) under which the right side shows numbers or curve, not both."""
+
+
+class LoadingScreen(Screen[None]):
+    BINDINGS = bindings()
+
+    def __init__(self, session: Session):
+        super().__init__()
+        self.session = session
+
+    def compose(self) -> ComposeResult:
+        yield LinePanel(id="titlebar")
+        yield SizedPanel(id="alerts")
+        with Horizontal(id="body"):
+            yield LoadBoard(id="board")
+            with Vertical(id="side"):
+                yield SizedPanel(id="afloat")
+                yield SizedPanel(id="criteria")
+                yield SizedPanel(id="gz")
+        yield LinePanel(id="status")
+        yield Footer(compact=True, show_command_palette=False)
+
+    def on_mount(self) -> None:
+        self.query_one(LoadBoard).focus()
+        self.refresh_view()
+        self.say("⏎ type an amount · + − nudge · t transfer · ? all keys", ok=None)
+
+    def on_resize(self, event) -> None:
+        self.set_class(event.size.width < NARROW_BELOW, "-narrow")
+        self.refresh_bindings()
+
+    def check_action(self, action: str, parameters: tuple) -> bool | None:
+        """The numbers/curve switch exists only where the screen cannot show both."""
+        if action == "toggle_gz":
+            return self.has_class("-narrow")
+        return True
+
+    # ------------------------------------------------------------------ view
+
+    def refresh_view(self) -> None:
+        """Hand the current condition and result to every panel."""
+        s = self.session
+        v, c, r, stale = s.vessel, s.condition, s.result, s.stale
+        self.query_one(LoadBoard).show(v, c, r, stale)
+        alerts = views.alerts(r, stale, s.problem)
+        self.query_one("#alerts", SizedPanel).show(lambda w, h: alert_lines(alerts, h))
+        self.query_one("#afloat", SizedPanel).show(lambda w, h: views.afloat_lines(v, c, r, stale, w))
+        code = v.criteria.code
+        self.query_one("#criteria", SizedPanel).show(lambda w, h: views.criteria_lines(r, stale, code, compact=w < 48))
+        self.query_one("#gz", SizedPanel).show(
+            lambda w, h: [views.gz_caption(r), *views.gz_chart(r, stale, w - 1, h - 1).lines()]
+        )
+        self.query_one("#titlebar", LinePanel).set_lines([self._title()])
+
+    def _title(self) -> Text:
+        s = self.session
+        t = Text(" deckload ", P["title"])
+        t.append(f"│ {s.vessel.particulars.name} │ {s.condition.name} ", P["value"])
+        t.append(f"│ undo {s.undo_depth} redo {s.redo_depth} ", P["dim"])
+        j = s.journal
+        if j.writable and j.officer:
+            t.append(f"│ watch {j.officer}, changes logged", P["dim"])
+        elif j.writable:
+            t.append("│ changes NOT logged: o to sign on", P["caution"])
+        else:
+            t.append(f"│ log off: {j.problem or 'no log'}", P["caution"])
+        return t
+
+    def say(self, message: str, ok: bool | None = True) -> None:
+        """The message line: ✔ done, ✖ refused, or a plain hint."""
+        style, mark = {True: (P["ok"], "✔ "), False: (P["danger"], "✖ "), None: (P["dim"], "")}[ok]
+        self.query_one("#status", LinePanel).set_lines([Text(" " + mark + message, style)])
+
+    # ------------------------------------------------------------------ changes
+
+    def commit(self, condition: Condition, label: str, kind: str = "edit", data: dict | None = None) -> None:
+        s = self.session
+        gm_before = s.result.gm_fluid_m if s.result is not None and not s.stale else None
+        try:
+            problems = s.commit(condition, label, kind, data)
+        except EntryError as exc:
+            self.say(str(exc), ok=False)
+            return
+        self.refresh_view()
+        self.say(label + self._gm_change(gm_before))
+        for p in problems:
+            self.notify(p, severity="error", timeout=8)
+
+    def _gm_change(self, before: float | None) -> str:
+        s = self.session
+        if s.stale:
+            return " — outside the tables, see the warning"
+        if before is None or s.result is None:
+            return ""
+        return f" — GM fluid {before:.3f} → {s.result.gm_fluid_m:.3f} m"
+
+    def _try(self, build, label: str, kind: str = "edit", data: dict | None = None) -> None:
+        """Build a new condition; refusal goes to the message line and nothing changes."""
+        try:
+            condition = build()
+        except EntryError as exc:
+            self.say(str(exc), ok=False)
+            return
+        self.commit(condition, label, kind, data)
+
+    def _kind(self, tank_id: str) -> str:
+        return "ballast" if self.session.vessel.tank(tank_id).kind == "ballast" else "edit"
+
+    @property
+    def _key(self) -> tuple:
+        return self.query_one(LoadBoard).cursor_key or (None, None)
+
+    # ------------------------------------------------------------------ actions (one per command)
+
+    def action_set_amount(self) -> None:
+        what, ident = self._key
+        if what == "tank":
+            self._edit_tank(ident)
+        elif what == "hold":
+            self._edit_hold(ident)
+        elif what in ("deck", "const"):
+            self._edit_item(what == "deck", ident)
+
+    def _edit_tank(self, tank_id: str) -> None:
+        s = self.session
+        tank, fill = s.vessel.tank(tank_id), s.condition.tank_fill(tank_id)
+        hint = (f"55% · 12.5m3 · 10t · 1.2m (sounding).  Capacity {tank.capacity_m3:.2f} m³, greatest sounding "
+                f"{entry.max_sounding_m(tank):.2f} m, density {entry.tank_density(tank, fill):.3f} t/m³")
+
+        def build(text: str) -> tuple[Condition, str]:
+            return entry.tank_from_text(s.condition, tank, text), text.strip()
+
+        def done(r) -> None:
+            if r:
+                self.commit(r[0], f"{tank.id} set to {r[1]}", self._kind(tank.id), {"tank": tank.id, "entered": r[1]})
+
+        self.app.push_screen(PromptForm(f"{tank.id}  {tank.name}", hint, entry.fill_text(fill), build), done)
+
+    def _edit_hold(self, hold_id: str) -> None:
+        s = self.session
+        hold = s.vessel.hold(hold_id)
+        load = next((h for h in s.condition.holds if h.hold_id == hold_id), None)
+        limit = f"; structural limit {hold.max_mass_t:g} t" if hold.max_mass_t is not None else ""
+
+        def build(text: str) -> tuple[Condition, str]:
+            return entry.hold_from_text(s.condition, hold, text), text.strip()
+
+        def done(r) -> None:
+            if r:
+                self.commit(r[0], f"{hold.id} cargo set to {r[1]} t", "cargo", {"hold": hold.id, "entered": r[1]})
+
+        form = PromptForm(f"{hold.id}  {hold.name}", f"Cargo mass in t (0 empties the hold){limit}",
+                          f"{load.mass_t:g}" if load else "", build)
+        self.app.push_screen(form, done)
+
+    def _edit_item(self, deck: bool, index: int | None) -> None:
+        s = self.session
+        items = s.condition.deck_items if deck else s.condition.constants
+        noun = "deck load" if deck else "constant"
+        at = len(items) if index is None else index
+        form = entry.form_of(items[index]) if index is not None else ItemForm("", "", "", "", "0", "")
+
+        def build(f: ItemForm) -> tuple[Condition, str]:
+            item = entry.item_from_form(s.vessel, f, deck=deck)
+            return self._with_items(deck, entry.replace_at(items, at, item)), item.name
+
+        title = f"{'Edit' if index is not None else 'Add'} {noun}"
+        self.app.push_screen(ItemFormScreen(title, form, build, deck=deck),
+                             lambda r: r and self.commit(r[0], f"{title}: {r[1]}", "cargo" if deck else "edit", {noun: r[1]}))
+
+    def _with_items(self, deck: bool, items: tuple) -> Condition:
+        c = self.session.condition
+        return c.with_deck_items(items) if deck else c.with_constants(items)
+
+    def action_nudge(self, step: int) -> None:
+        what, ident = self._key
+        s = self.session
+        if what == "tank":
+            tank = s.vessel.tank(ident)
+            self._try(lambda: entry.nudge_tank(s.condition, tank, float(step)),
+                      f"{tank.id} {step:+d} %", self._kind(tank.id), {"tank": tank.id, "nudge_pct": step})
+        elif what == "hold":
+            hold = s.vessel.hold(ident)
+            load = next((h for h in s.condition.holds if h.hold_id == ident), None)
+            self._try(lambda: entry.hold_from_text(
+                s.condition, hold, f"{entry.nudge_mass(load.mass_t if load else 0.0, step, hold.id)}"),
+                f"{hold.id} {step:+d} t", "cargo", {"hold": hold.id, "nudge_t": step})
+        elif what in ("deck", "const"):
+            deck = what == "deck"
+            items = s.condition.deck_items if deck else s.condition.constants
+            item = items[ident]
+
+            def build() -> Condition:
+                new = dataclasses.replace(item, mass_t=entry.nudge_mass(item.mass_t, step, item.name))
+                return self._with_items(deck, entry.replace_at(items, ident, new))
+
+            self._try(build, f"{item.name} {step:+d} t", "cargo" if deck else "edit", {"item": item.name, "nudge_t": step})
+        else:
+            self.say("Put the cursor on a tank, hold or item to nudge it.", ok=False)
+
+    def action_fill(self) -> None:
+        what, ident = self._key
+        if what != "tank":
+            self.say("Full applies to tanks: put the cursor on a tank.", ok=False)
+            return
+        tank = self.session.vessel.tank(ident)
+        self._try(lambda: entry.set_tank(self.session.condition, tank, "percent", 100.0),
+                  f"{tank.id} filled to 100 %", self._kind(tank.id), {"tank": tank.id, "fill_pct": 100.0})
+
+    def action_empty(self) -> None:
+        what, ident = self._key
+        s = self.session
+        c = s.condition
+        if what == "tank":
+            if c.tank_fill(ident) is None:
+                self.say(f"{ident} is already empty.", ok=False)
+                return
+            self.commit(c.without_tank(ident), f"{ident} emptied", self._kind(ident), {"tank": ident, "fill_pct": 0.0})
+        elif what == "hold":
+            if not any(h.hold_id == ident for h in c.holds):
+                self.say(f"{ident} is already empty.", ok=False)
+                return
+            self.commit(c.without_hold(ident), f"{ident} emptied", "cargo", {"hold": ident})
+        elif what in ("deck", "const"):
+            deck = what == "deck"
+            items = c.deck_items if deck else c.constants
+            name = items[ident].name
+            self.commit(self._with_items(deck, entry.replace_at(items, ident, None)), f"Removed {name}", "cargo" if deck else "edit",
+                        {"removed": name})
+        else:
+            self.say("Put the cursor on a tank, hold or item to empty or remove it.", ok=False)
+
+    def action_transfer(self) -> None:
+        s = self.session
+        what, ident = self._key
+        src = ident if what == "tank" else ""
+        dst = (s.vessel.tank(src).pair or "") if src else ""
+        form = TransferForm(s.vessel, s.condition, None if s.stale else s.result, s.preview, src, dst)
+        self.app.push_screen(form, lambda plan: plan and self.commit(
+            plan.condition, plan.label, "transfer",
+            {"from": plan.from_id, "to": plan.to_id, "mass_t": round(plan.mass_t, 3)}))
+
+    def action_add_deck(self) -> None:
+        self._edit_item(True, None)
+
+    def action_add_constant(self) -> None:
+        self._edit_item(False, None)
+
+    def action_density(self) -> None:
+        s = self.session
+        lo, hi = entry.WATER_DENSITY_RANGE_T_M3
+        build = lambda text: entry.density_from_text(s.condition, text)  # noqa: E731
+        self.app.push_screen(
+            PromptForm("Water density", f"t/m³, {lo:.3f}–{hi:.3f} (sea water 1.025, fresh 1.000)",
+                       f"{s.condition.water_density_t_m3:.3f}", build),
+            lambda c: c and self.commit(c, f"Water density {c.water_density_t_m3:.3f} t/m³", "edit",
+                                        {"water_density_t_m3": c.water_density_t_m3}))
+
+    def action_undo(self) -> None:
+        self._history(self.session.undo)
+
+    def action_redo(self) -> None:
+        self._history(self.session.redo)
+
+    def _history(self, move) -> None:
+        try:
+            label, problems = move()
+        except EntryError as exc:
+            self.say(str(exc), ok=False)
+            return
+        self.refresh_view()
+        self.say(label)
+        for p in problems:
+            self.notify(p, severity="error", timeout=8)
+
+    def action_toggle_gz(self) -> None:
+        self.toggle_class("-gz")
+
+    def action_record(self) -> None:
+        j = self.session.journal
+        if not j.writable:
+            self.say(f"The voyage log cannot be written ({j.problem or 'no log'}); nothing recorded.", ok=False)
+            return
+
+        def done(answer) -> None:
+            if not answer:
+                return
+            problems = self.session.record(*answer)
+            for p in problems:
+                self.notify(p, severity="error", timeout=8)
+            self.say(f"Condition recorded in the log by {answer[0]}" if not problems else "Not recorded", ok=not problems)
+
+        self.app.push_screen(RecordForm(j.officer, None), done)
+
+    def action_sign_on(self) -> None:
+        j = self.session.journal
+        if not j.writable:
+            self.say(f"The voyage log cannot be written ({j.problem or 'no log'}).", ok=False)
+            return
+
+        def build(text: str) -> str:
+            by = text.strip().upper()
+            if not (1 <= len(by) <= 4 and by.isalpha() and by.isascii()):
+                raise EntryError("Initials: one to four letters A–Z, e.g. JS.")
+            return by
+
+        def done(by: str | None) -> None:
+            if by:
+                j.officer = by
+                self.refresh_view()
+                self.say(f"{by} on watch: changes are logged under these initials.")
+
+        self.app.push_screen(PromptForm("Officer of the watch", "Your initials (1–4 letters)", j.officer, build), done)
+
+    def action_show_log(self) -> None:
+        self.app.show_log()
+
+    def action_alerts(self) -> None:
+        s = self.session
+        every = views.alerts(s.result, s.stale, s.problem)
+        self.app.push_screen(TextScreen("Warnings", alert_lines(every, len(every) + 1)))
+
+    def action_help(self) -> None:
+        self.app.push_screen(HelpScreen())
+
+    def action_quit(self) -> None:
+        self.app.exit()
+
+    def on_load_board_cursor_moved(self, event: LoadBoard.CursorMoved) -> None:
+        what, ident = event.key or (None, None)
+        if what == "tank":
+            t = self.session.vessel.tank(ident)
+            r = self.session.result
+            why = next((x.fs_rule for x in r.tanks if x.id == ident), "") if r is not None else ""
+            self.say(f"{t.id} {t.name} · {t.capacity_m3:.1f} m³ · FSM: {why} · ⏎ set · + − · f full · e empty · "
+                     f"t transfer", ok=None)
+        elif what == "hold":
+            self.say(f"{ident} {self.session.vessel.hold(ident).name} · ⏎ cargo mass · + − 1 t · e empty", ok=None)
+        elif what in ("deck", "const"):
+            self.say("⏎ edit mass and position · + − 1 t · e remove · a add deck load · c add constant", ok=None)
+
+
+def alert_lines(alerts: list[views.Alert], height: int) -> list[Text]:
+    """As many alerts as fit, dangers first; the last line counts those left out."""
+    if not alerts:
+        return [Text(" ✔ No warnings: criteria met with margin, no worst-band tank, list and drafts within limits",
+                     P["ok"])]
+    ordered = alerts
+    if len(ordered) <= height:
+        return [a.line() for a in ordered]
+    shown = [a.line() for a in ordered[: height - 1]]
+    last = Text(f"(+{len(ordered) - height + 1} more: w) ", P["caution"])
+    last.append_text(ordered[height - 1].line())
+    return shown + [last]

@@ -1,0 +1,189 @@
+"""``deckload log …`` and ``deckload report`` from the command line, on the demo vessel."""
+
+from __future__ import annotations
+
+import csv
+import io
+import json
+import re
+from pathlib import Path
+
+import pytest
+
+from deckload.cli import main
+from deckload.core.stability import evaluate
+from deckload.logbook import Logbook, condition_of
+from deckload.paths import DEMO_PROFILE
+from deckload.profiles import load_condition, load_profile
+
+CONDITION = """\
+format = "deckload-condition-1"
+
+[condition]
+name = "Departure, test"
+remark = "outbound"
+water_density_t_m3 = 1.025
+
+[tanks.FO1P]
+percent = 80.0
+
+[tanks.FO1S]
+percent = 80.0
+
+[tanks.FW1P]
+percent = 55.0
+
+[holds.H1]
+mass_t = 100.0
+description = "General cargo"
+
+[[constant]]
+name = "Crew and effects"
+mass_t = 1.2
+lcg_m = 30.0
+vcg_m = 6.0
+tcg_m = 0.0
+"""
+
+
+@pytest.fixture(scope="module")
+def demo():
+    if not DEMO_PROFILE.exists():
+        pytest.fail(f"the demo vessel {DEMO_PROFILE} is missing")
+    return load_profile(DEMO_PROFILE)
+
+
+@pytest.fixture
+def cond_file(tmp_path) -> Path:
+    p = tmp_path / "dep.condition.toml"
+    p.write_text(CONDITION, encoding="utf-8")
+    return p
+
+
+def record(tmp_path, cond_file, *extra) -> int:
+    return main(["log", "--dir", str(tmp_path / "logs"), "record", str(DEMO_PROFILE), str(cond_file), *extra])
+
+
+def test_record_writes_the_evaluated_condition(tmp_path, cond_file, demo, capsys):
+    assert record(tmp_path, cond_file, "--by", "jm", "--remark", "sailing 0600", "--ship-offset", "+10:00") == 0
+    out = capsys.readouterr().out
+    assert "Recorded entry #1" in out and "never replaces" in out
+    condition = load_condition(cond_file, demo)
+    r = evaluate(demo, condition)
+    with Logbook.open(tmp_path / "logs", "Demo Islander", readonly=True) as book:
+        (e,) = book.entries()
+    assert (e.by, e.kind, e.remark, e.ship_clock) == ("JM", "condition", "sailing 0600", "+10:00")
+    assert e.summary["gm_fluid_m"] == r.gm_fluid_m and e.summary["displacement_t"] == r.displacement_t
+    assert e.summary["criteria_pass"] == r.all_criteria_pass
+    assert condition_of(e, demo) == condition  # the stored condition restores exactly
+    assert f"GM fluid {r.gm_fluid_m:.3f} m" in out
+
+
+def test_record_refuses_bad_initials_and_a_held_lock(tmp_path, cond_file, capsys):
+    assert record(tmp_path, cond_file, "--by", "J2") == 1
+    assert "1 to 4 letters" in capsys.readouterr().err
+    with Logbook.open(tmp_path / "logs", "Demo Islander") as holder:
+        assert not holder.readonly
+        assert record(tmp_path, cond_file, "--by", "AB") == 1
+        err = capsys.readouterr().err
+        assert "another deckload process" in err and "read-only" in err
+    assert record(tmp_path, cond_file, "--by", "AB") == 0
+
+
+def test_show_export_and_verify(tmp_path, cond_file, capsys):
+    logs = tmp_path / "logs"
+    for by in ("AB", "CD", "EF"):
+        assert record(tmp_path, cond_file, "--by", by) == 0
+    capsys.readouterr()
+    assert main(["log", "--dir", str(logs), "show"]) == 0
+    out = capsys.readouterr().out
+    assert re.search(r"^\s+3 .* EF\s+condition", out, re.M)
+
+    csv_path = tmp_path / "log.csv"
+    assert main(["log", "--dir", str(logs), "export", "--csv", "-o", str(csv_path)]) == 0
+    rows = list(csv.DictReader(io.StringIO(csv_path.read_text(encoding="utf-8"))))
+    with Logbook.open(logs, "Demo Islander", readonly=True) as book:
+        es = book.entries()
+    assert [r["by"] for r in rows] == ["AB", "CD", "EF"]
+    assert rows[2]["gm_fluid_m"] == f"{es[2].summary['gm_fluid_m']:.3f}"
+    assert rows[2]["sha256"] == es[2].sha256 and rows[2]["prev_sha256"] == es[1].sha256
+
+    assert main(["log", "--dir", str(logs), "export", "--html"]) == 0
+    html = capsys.readouterr().out
+    assert html.count("<tr>") == 4 and "size: A4 landscape" in html and "never replaces" in html
+
+    assert main(["log", "--dir", str(logs), "verify"]) == 0
+    assert "OK — 3 entries" in capsys.readouterr().out
+
+
+def test_verify_names_the_tampered_line_and_recovers_a_torn_one(tmp_path, cond_file, capsys):
+    logs = tmp_path / "logs"
+    for by in ("AB", "CD", "EF"):
+        assert record(tmp_path, cond_file, "--by", by) == 0
+    path = logs / "demo-islander.log.jsonl"
+    lines = path.read_bytes().split(b"\n")
+    obj = json.loads(lines[1])
+    obj["summary"]["gm_fluid_m"] += 0.1
+    tampered = lines[:1] + [json.dumps(obj, ensure_ascii=False, separators=(",", ":")).encode()] + lines[2:]
+    path.write_bytes(b"\n".join(tampered))
+    capsys.readouterr()
+    assert main(["log", "--dir", str(logs), "verify"]) == 1
+    out = capsys.readouterr().out
+    assert "BROKEN" in out and "line 2:" in out
+
+    path.write_bytes(b"\n".join(lines) + b'{"format":"deckload-log-1","seq":4,')
+    assert main(["log", "--dir", str(logs), "verify"]) == 1
+    assert "line 4: incomplete" in capsys.readouterr().out
+    assert main(["log", "--dir", str(logs), "verify", "--recover"]) == 0
+    out = capsys.readouterr().out
+    assert "torn line 4" in out and "OK — 3 entries" in out
+
+
+def test_report_command_writes_the_report(tmp_path, cond_file, demo, capsys):
+    r = evaluate(demo, load_condition(cond_file, demo))
+    txt, html = tmp_path / "r.txt", tmp_path / "r.html"
+    assert main(["report", str(DEMO_PROFILE), str(cond_file), "--txt", "-o", str(txt)]) == 0
+    assert main(["report", str(DEMO_PROFILE), str(cond_file), "--html", "-o", str(html)]) == 0
+    err = capsys.readouterr().err
+    assert "more than one A4 page" not in err  # the demo condition fits one page
+    t = txt.read_text(encoding="utf-8")
+    h = html.read_text(encoding="utf-8")
+    for doc in (t, h):
+        assert "Demo Islander" in doc and "Departure, test" in doc
+        assert f"{r.gm_fluid_m:.3f} m" in doc and f"{r.displacement_t:.1f} t" in doc
+        assert "dep.condition.toml" in doc and "UTC" in doc
+    assert 'data-fits-a4="yes"' in h and "<polyline" in h
+
+
+def test_report_command_names_a_bad_condition(tmp_path, capsys):
+    bad = tmp_path / "bad.condition.toml"
+    bad.write_text(CONDITION.replace("percent = 55.0", "percent = 155.0"), encoding="utf-8")
+    assert main(["report", str(DEMO_PROFILE), str(bad), "--txt"]) == 1
+    err = capsys.readouterr().err
+    assert "bad.condition.toml" in err and "FW1P" in err
+
+
+def test_report_of_a_full_departure_fits_one_a4_page(demo):
+    """19 of the 25 tanks loaded (6 of them slack with free surface), the hold, two deck
+    loads and two constants: the HTML report still fits one A4 page."""
+    from deckload.core.model import Condition, DeckItem, HoldLoad, MassItem, TankFill
+    from deckload.report import render_report_html
+
+    fills = {"FO1P": 95, "FO1S": 95, "FW1P": 90, "FW1S": 90, "FW2P": 50, "FW2S": 50, "DO1P": 70, "DO1S": 70,
+             "LO1": 60, "DB1P": 100, "DB1S": 100, "DB2P": 40, "DB2S": 40, "WB1P": 20, "WB1S": 20, "CF1P": 80,
+             "CF1S": 80, "APT": 100, "FPT": 50}
+    c = Condition(
+        name="Departure, full",
+        tanks=tuple(TankFill(k, "percent", float(v)) for k, v in fills.items()),
+        holds=(HoldLoad("H1", 150.0, description="General cargo"),),
+        deck_items=(DeckItem("20 ft container", 18.0, 9.0, 5.9, 0.0, "AFTDECK"),
+                    DeckItem("Vehicle", 6.0, 14.0, 5.4, 1.0, "AFTDECK")),
+        constants=(MassItem("Crew and effects", 1.2, 30.0, 6.0), MassItem("Provisions", 2.0, 28.0, 5.0)),
+    )
+    r = evaluate(demo, c)
+    doc = render_report_html(r, demo, c, stamp="2026-12-01 22:00 UTC (ship's time 2026-12-02 08:00, +10:00)",
+                             source="departure.condition.toml")
+    assert 'data-fits-a4="yes"' in doc
+    for tk in r.tanks:
+        if tk.mass_t > 0:
+            assert f"{tk.mass_t:.2f}" in doc

@@ -1,0 +1,391 @@
+"""Free-surface moments, the free-surface correction and the IS Code 2008 Part B 3.1 treatment.
+
+Sources: standards.md §4 (IS Code 2008 Part B 3.1; textbook formulas §4.3) and §8 rows
+15–17; checks.md §3 [A] and §4 [T]: Barrass & Derrett, *Ship Stability for Masters and
+Mates*, 5th ed. (1999), p.195 Ex.1; Singapore Maritime Academy MA2025 Tutorial 4 (2008)
+Q1–Q3 (printed answers).  Textbook statements ('Δ 7600, KM …, a slack tank of …') are
+posed as conditions on the parallel-sided vessel of tests/vessel_factories.py, whose
+tables give exactly the KM, LCF, MCTC the book states.
+"""
+
+from __future__ import annotations
+
+import math
+
+import pytest
+
+from deckload.core.model import Condition, DeckItem, FreeSurfaceSettings, MassItem, TankFill
+from deckload.core.stability import evaluate
+from vessel_factories import (
+    RHO_SW,
+    ParallelForm,
+    barge_at,
+    box_barge,
+    box_kn_m,
+    box_tank,
+    box_transfer_moment_m4,
+    mass_to_close,
+    parallel_sided_vessel,
+)
+
+X_MID = 50.0  # LCB = LCF = LCG at midships of the 100 m test vessel: no trim
+
+
+def form(displacement_t: float, kmt_m: float) -> ParallelForm:
+    return ParallelForm(displacement_t=displacement_t, draft_m=6.0, lcb_m=X_MID, lcf_m=X_MID, kmt_m=kmt_m,
+                        tpc_t_cm=20.0, mctc_tm_cm=150.0, lbp_m=100.0)
+
+
+def tank_by_id(result, tid):
+    return {t.id: t for t in result.tanks}[tid]
+
+
+# --------------------------------------------------------------------------- textbook formulas
+
+
+@pytest.mark.parametrize("n", [1, 2, 4])
+def test_rectangular_surface_and_subdivision(n):
+    """standards.md §8 row 17 (textbook, derived) and §4.3: tank l = 10, b = 8 in sea water,
+    Δ = 10 000 t: i = l·b³/12 = 426.67 m⁴, FSM = ρ·i = 437.33 t·m, FSC = FSM/Δ = 0.0437 m;
+    n equal longitudinal subdivisions give i/n² (centre bulkhead: FSM 109.33 t·m; checks.md §3.1)."""
+    l, b = 10.0, 8.0
+    tanks = []
+    for k in range(n):
+        y = -b / 2 + b / n * (k + 0.5)
+        tanks.append(box_tank(f"DB{k}", length_m=l, breadth_m=b / n, height_m=2.0, lcg_m=X_MID, tcg_m=y))
+    w_tank = RHO_SW * l * b * 1.0  # every part at 50 % (1 m of 2 m)
+    ls = mass_to_close(10_000.0, (X_MID, 8.0, 0.0), [(w_tank, X_MID, 0.5, 0.0)])
+    v = parallel_sided_vessel(form(10_000.0, 9.0), lightship=ls, tanks=tuple(tanks))
+    c = Condition(tanks=tuple(TankFill(t.id, "percent", 50.0) for t in tanks), fs_rule="actual")
+    r = evaluate(v, c)
+    i_whole = l * b**3 / 12
+    assert i_whole == pytest.approx(426.67, abs=0.005)
+    assert r.displacement_t == pytest.approx(10_000.0, abs=1e-9)
+    for t in r.tanks:
+        assert t.fsi_m4 == pytest.approx(l * (b / n) ** 3 / 12, rel=1e-12)
+    assert r.fsm_total_tm == pytest.approx(RHO_SW * i_whole / n**2, rel=1e-12)
+    assert r.fsc_m == pytest.approx(RHO_SW * i_whole / n**2 / 10_000.0, rel=1e-12)
+    assert r.kg_fluid_m == pytest.approx(r.kg_m + r.fsc_m, abs=1e-12)
+    assert r.gm_solid_m - r.gm_fluid_m == pytest.approx(r.fsc_m, abs=1e-12)
+    printed = {1: (437.33, 0.0437), 2: (109.33, None), 4: (437.33 / 16, None)}[n]
+    assert r.fsm_total_tm == pytest.approx(printed[0], abs=0.005)
+    if printed[1] is not None:
+        assert r.fsc_m == pytest.approx(printed[1], abs=5e-5)
+
+
+def test_sma_q1_fluid_gm():
+    """SMA MA2025 Tutorial 4 Q1 (checks.md §4 row 9): solid GM 1.02 m, Δ 7600 t, FSM 1250 t·m →
+    fluid GM = 1.02 − 1250/7600 = 0.85553 (printed 0.856).  Posed with one slack ballast tank
+    of breadth 10 m and length 12·1250/(ρ·10³) so that ρ·l·b³/12 = 1250 t·m, KM 8.0, KG 6.98."""
+    b = 10.0
+    l = 12 * 1250.0 / (RHO_SW * b**3)
+    tank = box_tank("DB1", length_m=l, breadth_m=b, height_m=2.0, lcg_m=X_MID)
+    w = RHO_SW * l * b * 1.0
+    ls = mass_to_close(7600.0, (X_MID, 8.0 - 1.02, 0.0), [(w, X_MID, 0.5, 0.0)])
+    v = parallel_sided_vessel(form(7600.0, 8.0), lightship=ls, tanks=(tank,))
+    r = evaluate(v, Condition(tanks=(TankFill("DB1", "percent", 50.0),), fs_rule="actual"))
+    assert r.displacement_t == pytest.approx(7600.0, abs=1e-9)
+    assert r.gm_solid_m == pytest.approx(1.02, abs=1e-9)
+    assert r.fsm_total_tm == pytest.approx(1250.0, abs=1e-9)
+    assert r.gm_fluid_m == pytest.approx(1.02 - 1250.0 / 7600.0, abs=1e-9)
+    assert round(r.gm_fluid_m, 3) == 0.856
+
+
+def test_barrass_derrett_p195_ex1_double_bottom_pumped_to_half():
+    """Barrass & Derrett 5th ed. p.195 Ex.1 (checks.md §4 row 6; answer recomputed there):
+    Δ 8153.75 t, KM 8, KG 7.5; DB tank 15 × 10 × 2 m full of sea water is pumped out to half.
+    153.75 t leave at KG 1.5 → Δ 8000, KG = (8153.75·7.5 − 153.75·1.5)/8000 = 7.61531,
+    FSC = ρ·(15·10³/12)/8000 = 0.16016, GM fluid = 8 − 7.61531 − 0.16016 = 0.22453."""
+    tank = box_tank("DB1", length_m=15.0, breadth_m=10.0, height_m=2.0, lcg_m=X_MID)
+    full = RHO_SW * 300.0
+    ls = mass_to_close(8153.75, (X_MID, 7.5, 0.0), [(full, X_MID, 1.0, 0.0)])
+    v = parallel_sided_vessel(form(8000.0, 8.0), lightship=ls, tanks=(tank,))
+    before = evaluate(v, Condition(tanks=(TankFill("DB1", "percent", 100.0),)))
+    assert before.displacement_t == pytest.approx(8153.75, abs=1e-9)
+    assert before.kg_m == pytest.approx(7.5, abs=1e-12)
+    assert before.fsm_total_tm == 0.0 and tank_by_id(before, "DB1").state == "full"
+    r = evaluate(v, Condition(tanks=(TankFill("DB1", "percent", 50.0),)))
+    assert r.displacement_t == pytest.approx(8000.0, abs=1e-9)
+    assert r.kg_m == pytest.approx((8153.75 * 7.5 - 153.75 * 1.5) / 8000.0, abs=1e-12)
+    assert r.kg_m == pytest.approx(7.61531, abs=5e-6)
+    assert r.fsc_m == pytest.approx(RHO_SW * 15 * 10**3 / 12 / 8000.0, abs=1e-12)
+    assert r.fsc_m == pytest.approx(0.16016, abs=5e-6)
+    assert r.gm_fluid_m == pytest.approx(0.22453, abs=5e-6)
+
+
+def test_sma_q2_list_from_slack_side_tank():
+    """SMA MA2025 Tutorial 4 Q2 (checks.md §4 row 10): Δ 9600, KM 8.5, KG 7.5; DB tank 18 × 14 m
+    with a centreline bulkhead; the starboard side filled to 0.6 m with oil RD 0.95 (KG 0.3,
+    TCG 3.5).  w = 18·7·0.6·0.95 = 71.82 t; KG 7.44653; FSM = 0.95·18·7³/12 = 488.775 t·m;
+    GM fluid 1.00293; GG1 = 71.82·3.5/9671.82 = 0.025990; list = atan(GG1/GM) = 1.48443°,
+    printed 1°29.1′."""
+    p = box_tank("DB1P", length_m=18.0, breadth_m=7.0, height_m=1.5, lcg_m=X_MID, tcg_m=-3.5, kind="fuel_oil",
+                 density_t_m3=0.95, pair="DB1S")
+    s = box_tank("DB1S", length_m=18.0, breadth_m=7.0, height_m=1.5, lcg_m=X_MID, tcg_m=3.5, kind="fuel_oil",
+                 density_t_m3=0.95, pair="DB1P")
+    ls = MassItem("Ship before loading", 9600.0, X_MID, 7.5, 0.0)
+    v = parallel_sided_vessel(form(9600.0, 8.5), lightship=ls, tanks=(p, s))
+    r = evaluate(v, Condition(tanks=(TankFill("DB1S", "sounding_m", 0.6),), fs_rule="actual"))
+    w = 18 * 7 * 0.6 * 0.95
+    assert w == pytest.approx(71.82, abs=1e-9)
+    assert r.displacement_t == pytest.approx(9600 + w, abs=1e-9)
+    assert r.kg_m == pytest.approx((9600 * 7.5 + w * 0.3) / (9600 + w), abs=1e-12)
+    assert r.kg_m == pytest.approx(7.44653, abs=5e-6)
+    assert r.fsm_total_tm == pytest.approx(0.95 * 18 * 7**3 / 12, abs=1e-9)
+    assert r.gm_fluid_m == pytest.approx(1.00293, abs=5e-6)
+    assert r.tcg_m == pytest.approx(w * 3.5 / (9600 + w), abs=1e-12)
+    assert r.list_deg == pytest.approx(1.48443, abs=5e-5)
+    assert r.list_deg * 60 == pytest.approx(60 + 29.1, abs=0.05)
+
+
+def test_sma_q3_suspended_weight_and_slack_tank():
+    """SMA MA2025 Tutorial 4 Q3 (checks.md §4 row 11): Δ 8000, KM 6.5, KG 5.7; 40 t lifted from
+    KG 3.0 by a derrick whose head is 15 m above the keel (its weight acts at the head); a slack
+    fresh-water tank with i = 1200 m⁴.  Effective GM = 0.8 − 40·12/8000 − 1200·1.0/8000 = 0.59."""
+    b = 10.0
+    l = 12 * 1200.0 / b**3
+    tank = box_tank("FW1", length_m=l, breadth_m=b, height_m=2.0, lcg_m=X_MID, kind="fresh_water",
+                    density_t_m3=1.0)
+    w_fw = 1.0 * l * b * 1.0
+    ls = mass_to_close(8000.0, (X_MID, 5.7, 0.0), [(w_fw, X_MID, 0.5, 0.0), (40.0, X_MID, 3.0, 0.0)])
+    v = parallel_sided_vessel(form(8000.0, 6.5), lightship=ls, tanks=(tank,))
+    c = Condition(tanks=(TankFill("FW1", "percent", 50.0),), deck_items=(DeckItem("Lift at derrick head", 40.0, X_MID, 15.0),),
+                  fs_rule="actual")
+    r = evaluate(v, c)
+    assert tank_by_id(r, "FW1").fsi_m4 == pytest.approx(1200.0, rel=1e-12)
+    assert r.gm_fluid_m == pytest.approx(0.8 - 40 * (15 - 3) / 8000 - 1200 / 8000, abs=1e-9)
+    assert round(r.gm_fluid_m, 2) == 0.59
+
+
+# --------------------------------------------------------------------------- IS 2008 Part B 3.1
+
+DMIN = 1000.0
+
+
+def b31_vessel():
+    """Tanks for the Part B 3.1 cases, on a parallel-sided vessel with Δmin = 1000 t.
+
+    ρ·i (t·m) of each: BW1P/S 1.025·10·5³/12 = 106.8; FO1P/S 0.95·8·4³/12 = 40.53 (pair 81.1);
+    FO2C 0.95·6·4³/12 = 30.4; DO1C 0.86·5·6³/12 = 77.4; DO2P/S 0.86·5·4³/12 = 22.9 (pair 45.9);
+    CG1C 0.85·8·6³/12 = 122.4; LO1C 0.9·1·1³/12 = 0.075; FW1C 1.0·4·4³/12 = 21.3.
+    All but LO1C have Mfs(30°)/Δmin ≥ 0.5·ρ·i/1000 > 0.01 m: only LO1C is a small tank (B 3.1.12).
+    """
+    tanks = (
+        box_tank("BW1P", length_m=10, breadth_m=5, height_m=2, lcg_m=40, tcg_m=-5, pair="BW1S"),
+        box_tank("BW1S", length_m=10, breadth_m=5, height_m=2, lcg_m=40, tcg_m=5, pair="BW1P"),
+        box_tank("FO1P", length_m=8, breadth_m=4, height_m=2, lcg_m=30, tcg_m=-6, kind="fuel_oil",
+                 density_t_m3=0.95, pair="FO1S"),
+        box_tank("FO1S", length_m=8, breadth_m=4, height_m=2, lcg_m=30, tcg_m=6, kind="fuel_oil",
+                 density_t_m3=0.95, pair="FO1P"),
+        box_tank("FO2C", length_m=6, breadth_m=4, height_m=2, lcg_m=20, kind="fuel_oil", density_t_m3=0.95),
+        box_tank("DO1C", length_m=5, breadth_m=6, height_m=2, lcg_m=60, kind="diesel", density_t_m3=0.86),
+        box_tank("DO2P", length_m=5, breadth_m=4, height_m=2, lcg_m=70, tcg_m=-5, kind="diesel",
+                 density_t_m3=0.86, pair="DO2S"),
+        box_tank("DO2S", length_m=5, breadth_m=4, height_m=2, lcg_m=70, tcg_m=5, kind="diesel",
+                 density_t_m3=0.86, pair="DO2P"),
+        box_tank("CG1C", length_m=8, breadth_m=6, height_m=2, lcg_m=50, kind="cargo_liquid", density_t_m3=0.85),
+        box_tank("LO1C", length_m=1, breadth_m=1, height_m=1, lcg_m=80, kind="lube_oil", density_t_m3=0.9),
+        box_tank("FW1C", length_m=4, breadth_m=4, height_m=2, lcg_m=85, kind="fresh_water", density_t_m3=1.0),
+    )
+    ls = MassItem("Lightship", 1800.0, X_MID, 4.0, 0.0)
+    fs = FreeSurfaceSettings(min_operating_displacement_t=DMIN)
+    return parallel_sided_vessel(form(2000.0, 6.0), lightship=ls, tanks=tanks, free_surface=fs,
+                                 span_t=1500.0)
+
+
+def rho_i(v, tid):
+    t = v.tank(tid)
+    return t.density_t_m3 * float(t.calibration.fsi_m4[0])
+
+
+def fills(**pct):
+    return tuple(TankFill(k, "percent", float(x)) for k, x in pct.items())
+
+
+@pytest.mark.parametrize("pct, state, counted", [
+    (99.0, "full", False), (98.0, "full", False), (97.9, "slack", True),
+    (50.0, "worst_band", True), (30.0, "slack", True), (0.3, "empty", False), (0.0, "empty", False),
+])
+def test_fixed_level_tank_states(pct, state, counted):
+    """IS 2008 B 3.1.2: at ≥ 98 % a tank is nominally full, no free surface (standards.md §8 row 15);
+    B 3.1.3: a fixed-level (ballast) tank counts at its actual level; ≤ 0.5 % is taken as empty
+    (the profile's empty_pct; remainder ignored, standards.md §4.1 [M]).  40–60 % is the
+    default worst band for a tank without geometry (vessel_profiles/README.md)."""
+    v = b31_vessel()
+    r = evaluate(v, Condition(tanks=fills(BW1P=pct)))
+    t = tank_by_id(r, "BW1P")
+    assert t.state == state
+    if counted:
+        assert t.fsm_tm == pytest.approx(rho_i(v, "BW1P"), rel=1e-12)
+        assert "actual level" in t.fs_rule and "B 3.1.3" in t.fs_rule
+    else:
+        assert t.fsm_tm == 0.0
+        if state == "full":
+            assert "nominally full" in t.fs_rule and "B 3.1.2" in t.fs_rule
+
+
+def test_nominally_full_cargo_tank_counts_at_98():
+    """IS 2008 B 3.1.2 footnote: a nominally full cargo tank is corrected at 98 % (standards.md §4.1);
+    for a box tank i(98 %) = l·b³/12."""
+    v = b31_vessel()
+    r = evaluate(v, Condition(tanks=fills(CG1C=99.5)))
+    t = tank_by_id(r, "CG1C")
+    assert t.state == "full"
+    assert t.fsm_tm == pytest.approx(0.85 * 8 * 6**3 / 12, rel=1e-12)
+    assert "98" in t.fs_rule and "B 3.1.2" in t.fs_rule
+
+
+def test_consumables_worst_pair_assumed_slack_even_when_full():
+    """IS 2008 B 3.1.4 (standards.md §4.1 [C]): for each consumable kind at least one transverse
+    pair or one centreline tank is assumed slack, the one with the greatest effect, at its
+    largest correction (B 3.1.3).  Fuel: pair FO1 (2 × 40.53 t·m) beats centreline FO2C (30.4):
+    FO1P/S count at ρ·i_max although full; FO2C, slack at 30 %, is variable-level and counts
+    at its maximum too (B 3.1.3).  Diesel: centreline DO1C (77.4) beats pair DO2 (45.9), so
+    DO1C counts though empty and the empty DO2 pair does not."""
+    v = b31_vessel()
+    r = evaluate(v, Condition(tanks=fills(FO1P=100, FO1S=100, FO2C=30, DO2P=50, DO2S=50)))
+    fo1p, fo1s, fo2c = (tank_by_id(r, k) for k in ("FO1P", "FO1S", "FO2C"))
+    assert fo1p.state == "full" and fo1s.state == "full"
+    for t in (fo1p, fo1s):
+        assert t.fsm_tm == pytest.approx(rho_i(v, t.id), rel=1e-12)
+        assert "B 3.1.4" in t.fs_rule and "pair" in t.fs_rule
+    assert fo2c.fsm_tm == pytest.approx(rho_i(v, "FO2C"), rel=1e-12)
+    assert "variable" in fo2c.fs_rule and "B 3.1.3" in fo2c.fs_rule
+    do1c = tank_by_id(r, "DO1C")
+    assert do1c.state == "empty" and do1c.fsm_tm == pytest.approx(rho_i(v, "DO1C"), rel=1e-12)
+    assert "B 3.1.4" in do1c.fs_rule and "centreline" in do1c.fs_rule
+    # The diesel pair is slack at 50 %: variable level, counted at its maximum (B 3.1.3).
+    for k in ("DO2P", "DO2S"):
+        assert tank_by_id(r, k).fsm_tm == pytest.approx(rho_i(v, k), rel=1e-12)
+    # Fresh water: the only FW tank is the worst centreline tank, assumed slack though empty.
+    fw = tank_by_id(r, "FW1C")
+    assert fw.fsm_tm == pytest.approx(rho_i(v, "FW1C"), rel=1e-12) and "B 3.1.4" in fw.fs_rule
+    assert r.fsm_total_tm == pytest.approx(sum(t.fsm_tm for t in r.tanks), rel=1e-12)
+    assert r.fsc_m == pytest.approx(r.fsm_total_tm / r.displacement_t, rel=1e-12)
+
+
+def test_empty_consumables_still_carry_the_worst_group():
+    """IS 2008 B 3.1.4: even with every fuel tank empty, the worst fuel pair is assumed slack."""
+    v = b31_vessel()
+    r = evaluate(v, Condition())
+    assert tank_by_id(r, "FO1P").fsm_tm == pytest.approx(rho_i(v, "FO1P"), rel=1e-12)
+    assert tank_by_id(r, "FO2C").fsm_tm == 0.0
+    assert tank_by_id(r, "BW1P").fsm_tm == 0.0  # ballast is fixed-level: empty means none
+
+
+@pytest.mark.parametrize("rule", ["is2008", "actual"])
+def test_small_tank_exemption(rule):
+    """IS 2008 B 3.1.12 (standards.md §8 row 16; the 0.01 m value from memory): a tank whose
+    Mfs at 30° over Δmin is below 0.01 m may be left out.  LO1C: ρ·i = 0.075 t·m, so
+    Mfs(30°)/Δmin ≈ 0.075·0.5/1000 ≈ 4e-5 m ≪ 0.01 → exempt under is2008, even when slack.
+    Rule 'actual' (B 3.1.6) counts it at its actual level."""
+    v = b31_vessel()
+    r = evaluate(v, Condition(tanks=fills(LO1C=50.0), fs_rule=rule))
+    t = tank_by_id(r, "LO1C")
+    if rule == "is2008":
+        assert t.fsm_tm == 0.0 and "B 3.1.12" in t.fs_rule
+    else:
+        assert t.fsm_tm == pytest.approx(rho_i(v, "LO1C"), rel=1e-12) and "B 3.1.6" in t.fs_rule
+
+
+def test_small_tank_exemption_threshold():
+    """B 3.1.12 with Δmin set so that the ballast tank BW1P (ρ·i = 106.8 t·m, Mfs(30°) between
+    ρ·i·sin30 = 53.4 and the wall-sided 62.3 t·m) lies clearly on each side of 0.01 m:
+    Δmin 12 000 t → ratio ≤ 0.0052, exempt; Δmin 2500 t → ratio ≥ 0.021, counted."""
+    base = b31_vessel()
+    import dataclasses
+
+    for dmin, exempt in ((12_000.0, True), (2_500.0, False)):
+        v = dataclasses.replace(base, free_surface=FreeSurfaceSettings(min_operating_displacement_t=dmin))
+        t = tank_by_id(evaluate(v, Condition(tanks=fills(BW1P=50.0))), "BW1P")
+        assert (t.fsm_tm == 0.0) is exempt
+        assert ("B 3.1.12" in t.fs_rule) is exempt
+
+
+def test_actual_rule_counts_actual_levels():
+    """Rule 'actual' (IS 2008 B 3.1.6, liquid transfers): every slack tank at its actual level,
+    nothing assumed; full consumables carry none."""
+    v = b31_vessel()
+    r = evaluate(v, Condition(tanks=fills(FO1P=100, FO1S=100, FO2C=30), fs_rule="actual"))
+    assert r.fs_rule == "actual"
+    assert tank_by_id(r, "FO1P").fsm_tm == 0.0 and tank_by_id(r, "FO1S").fsm_tm == 0.0
+    assert tank_by_id(r, "FO2C").fsm_tm == pytest.approx(rho_i(v, "FO2C"), rel=1e-12)
+    assert tank_by_id(r, "DO1C").fsm_tm == 0.0 and tank_by_id(r, "FW1C").fsm_tm == 0.0
+    assert r.fsm_total_tm == pytest.approx(rho_i(v, "FO2C"), rel=1e-12)
+
+
+# --------------------------------------------------------------------------- transfer correction
+
+
+def test_gz_with_actual_moment_of_fluid_transfer():
+    """IS 2008 B 3.1 (standards.md §4.1, [M] paragraph): the GZ curve may be corrected by the actual
+    moment of fluid transfer.  Box tank l = 6, b = 4, h = 2 at 50 % in the barge (Δ = 820 t):
+    M(30°) = 6 + 7√3 = 18.12436 m⁴ and M(10°) = i·sin10·(1 + ½tan²10) = 5.6431 m⁴ (checks.md §3.2 [A]),
+    so GZ(φ) = KN(φ) − KG_solid·sinφ − ρ·M(φ)/Δ.  GM fluid still uses i at 0°: GM = KM − KG − ρ·i/Δ."""
+    tank = box_tank("DB1C", length_m=6, breadth_m=4, height_m=2, lcg_m=20.0, with_transfer=True)
+    w = RHO_SW * 24.0
+    v = box_barge(lightship_t=820.0 - w, lightship_kg_m=3.0, tanks=(tank,))
+    c = Condition(tanks=(TankFill("DB1C", "percent", 50.0),), gz_correction="transfer")
+    r = evaluate(v, c)
+    assert r.gz_correction == "transfer"
+    assert r.displacement_t == pytest.approx(820.0, abs=1e-9)
+    kg = (v.lightship.mass_t * 3.0 + w * 0.5) / 820.0
+    assert r.kg_m == pytest.approx(kg, abs=1e-12)
+    for deg, m in ((30, 6 + 7 * math.sqrt(3)), (10, 5.6431)):
+        assert box_transfer_moment_m4(6, 4, 2, 50.0, math.radians(deg)) == pytest.approx(m, abs=5e-5)
+        expected = box_kn_m(10, 4, 2.0, math.radians(deg)) - kg * math.sin(math.radians(deg)) \
+            - RHO_SW * box_transfer_moment_m4(6, 4, 2, 50.0, math.radians(deg)) / 820.0
+        assert r.gz_m[deg] == pytest.approx(expected, abs=1e-9)
+    assert r.gm_fluid_m == pytest.approx(2.0 / 2 + 100 / 24 - kg - RHO_SW * 6 * 4**3 / 12 / 820.0, abs=1e-12)
+    # Worst band from the tank's own shape: M(30°) within 10 % of its maximum (issue 2, item 5).
+    assert tank_by_id(r, "DB1C").state == "worst_band"
+    lo, hi = tank_by_id(r, "DB1C").worst_band_pct
+    assert box_transfer_moment_m4(6, 4, 2, lo, math.radians(30)) == pytest.approx(0.9 * (6 + 7 * math.sqrt(3)), rel=1e-6)
+    assert lo + hi == pytest.approx(100.0)
+
+
+def test_constant_correction_lowers_whole_curve_by_fsc_sin():
+    """standards.md §4.3: with the constant correction, GZ(φ) = KN(φ) − KG_fluid·sinφ: the whole
+    curve drops by FSC·sinφ against the solid-KG curve."""
+    tank = box_tank("DB1C", length_m=6, breadth_m=4, height_m=2, lcg_m=20.0)
+    v = box_barge(lightship_t=820.0 - RHO_SW * 24.0, lightship_kg_m=3.0, tanks=(tank,))
+    full = evaluate(v, Condition(tanks=(TankFill("DB1C", "percent", 50.0),), fs_rule="actual"))
+    fsc = RHO_SW * 6 * 4**3 / 12 / 820.0
+    assert full.fsc_m == pytest.approx(fsc, rel=1e-12)
+    for deg in range(0, 91, 5):
+        exact = box_kn_m(10, 4, 2.0, math.radians(deg)) - full.kg_m * math.sin(math.radians(deg))
+        assert full.gz_m[deg] == pytest.approx(exact - fsc * math.sin(math.radians(deg)), abs=1e-9)
+
+
+def test_fsc_leaves_solid_values_alone():
+    """FSC is a virtual rise of G only (standards.md §4.3): Δ, KG solid, drafts are unchanged by it."""
+    tank = box_tank("DB1C", length_m=6, breadth_m=4, height_m=2, lcg_m=20.0)
+    v = box_barge(lightship_t=820.0 - RHO_SW * 24.0, lightship_kg_m=3.0, tanks=(tank,))
+    c = Condition(tanks=(TankFill("DB1C", "percent", 50.0),))
+    a = evaluate(v, c.replace(fs_rule="actual"))
+    v2, _ = barge_at(2.0, 3.0)
+    assert a.displacement_t == pytest.approx(820.0, abs=1e-9)
+    assert a.draft_mean_m == pytest.approx(evaluate(v2, Condition()).draft_mean_m, abs=1e-12)
+    assert a.gm_solid_m == pytest.approx(a.km_m - a.kg_m, abs=1e-12)
+
+
+def test_transfer_correction_variable_tank_takes_largest_moment():
+    """IS 2008 B 3.1.3 (largest correction between the filling limits for variable-level tanks) with
+    the GZ corrected by the actual moment of fluid transfer (standards.md §4.1): a fuel tank
+    l = 6, b = 4, h = 2 at 20 % counts, at each heel, the largest M over all fills — at 30° the 50 %
+    value 6 + 7√3 = 18.12436 m⁴, at 20° 11.6696 m⁴ (checks.md §3.2 [A]) — not its own 20 % value
+    (11.31813 m⁴ at 30°).  Barge Δ = 820 t; GZ(φ) = KN(φ) − KG_solid·sinφ − ρ·M_max(φ)/Δ."""
+    tank = box_tank("FO1C", length_m=6, breadth_m=4, height_m=2, lcg_m=20.0, kind="fuel_oil",
+                    density_t_m3=0.95, with_transfer=True)
+    w = 0.95 * 48.0 * 0.20
+    v = box_barge(lightship_t=820.0 - w, lightship_kg_m=3.0, tanks=(tank,))
+    r = evaluate(v, Condition(tanks=(TankFill("FO1C", "percent", 20.0),), gz_correction="transfer"))
+    assert r.displacement_t == pytest.approx(820.0, abs=1e-9)
+    t = tank_by_id(r, "FO1C")
+    assert t.fsm_tm == pytest.approx(0.95 * 6 * 4**3 / 12, rel=1e-12)  # GM: ρ·i_max (B 3.1.3)
+    for deg, m_max in ((30, 6 + 7 * math.sqrt(3)), (20, 11.6696)):
+        phi = math.radians(deg)
+        assert max(box_transfer_moment_m4(6, 4, 2, f, phi) for f in range(0, 101, 5)) == pytest.approx(m_max, abs=5e-5)
+        expected = box_kn_m(10, 4, 2.0, phi) - r.kg_m * math.sin(phi) \
+            - 0.95 * max(box_transfer_moment_m4(6, 4, 2, f, phi) for f in range(0, 101, 5)) / 820.0
+        assert r.gz_m[deg] == pytest.approx(expected, abs=1e-9)

@@ -1,0 +1,255 @@
+"""The printable report: its content, the GZ drawing and the A4 fit.
+
+The numbers are the engine's (an analytic box barge from tests/vessel_factories);
+these tests check that the report shows them faithfully, not that they are right —
+the engine's own tests do that.
+"""
+
+from __future__ import annotations
+
+import re
+import xml.etree.ElementTree as ET
+from html.parser import HTMLParser
+
+import numpy as np
+import pytest
+
+from deckload.core.model import Condition, DeckItem, LimitCurve, MassItem, TankFill, frozen_array
+from deckload.core.stability import evaluate
+from deckload.report import (
+    CAUTION,
+    CHAR_WIDTH_EM,
+    LINE_HEIGHT,
+    PAGE_HEIGHT_MM,
+    PAGE_MARGIN_MM,
+    PAGE_WIDTH_MM,
+    PT_MM,
+    SIGNATURE_ROW_MM,
+    SVG_HEIGHT_MM,
+    gz_svg,
+    html_fits_a4,
+    render_report_html,
+    render_report_text,
+)
+from vessel_factories import barge_tanks, box_barge
+
+SVG_NS = "{http://www.w3.org/2000/svg}"
+
+
+def _condition(name="Departure, test") -> Condition:
+    return Condition(
+        name=name,
+        remark="outbound to the islands",
+        tanks=(TankFill("DB1P", "percent", 50.0), TankFill("FO1S", "percent", 98.5),
+               TankFill("FW1C", "percent", 30.0)),
+        deck_items=(DeckItem("Container of building materials", 18.0, 9.0, 5.5),),
+        constants=(MassItem("Crew and effects", 1.2, 30.0, 6.0),),
+    )
+
+
+@pytest.fixture(scope="module")
+def case():
+    downflooding = LimitCurve(frozen_array([200.0, 1500.0]), frozen_array([38.0, 38.0]), "downflooding_deg")
+    v = box_barge(tanks=barge_tanks(), downflooding=downflooding)
+    c = _condition()
+    return v, c, evaluate(v, c)
+
+
+@pytest.fixture(scope="module")
+def failing_case():
+    v = box_barge(tanks=barge_tanks(), lightship_kg_m=7.5)
+    c = _condition("Overloaded deck")
+    return v, c, evaluate(v, c)
+
+
+def test_text_report_shows_every_number_of_the_result(case):
+    v, c, r = case
+    txt = render_report_text(r, v, c, stamp="2026-12-01 22:00 UTC", source="dep.condition.toml")
+    assert v.particulars.name in txt and c.name in txt and c.remark in txt
+    assert "2026-12-01 22:00 UTC" in txt and "dep.condition.toml" in txt
+    for label, value in [
+        ("Displacement Δ", f"{r.displacement_t:.1f} t"),
+        ("Deadweight", f"{r.deadweight_t:.1f} t"),
+        ("KG solid", f"{r.kg_m:.3f} m"),
+        ("FSC = ΣFSM/Δ", f"{r.fsc_m:.3f} m"),
+        ("KG fluid", f"{r.kg_fluid_m:.3f} m"),
+        ("KMt", f"{r.km_m:.3f} m"),
+        ("GM fluid", f"{r.gm_fluid_m:.3f} m"),
+        ("Draft aft / mid / fwd", f"{r.draft_aft_m:.3f} / {r.draft_mean_m:.3f} / {r.draft_fwd_m:.3f} m"),
+        ("Trim", f"{abs(r.trim_m):.3f} m by the {'stern' if r.trim_m > 0 else 'head'}"),
+        ("Downflooding θf", "38.0°"),
+    ]:
+        assert re.search(re.escape(label) + r"\s+" + re.escape(value), txt), (label, value)
+    # every item: lightship, non-empty tanks, deck, constants, with mass and centres
+    for it in r.items:
+        row = next(line for line in txt.splitlines() if it.name in line)
+        assert f"{it.mass_t:.2f}" in row and f"{it.lcg_m:.3f}" in row and f"{it.vcg_m:.3f}" in row
+    tank_rows = [t for t in r.tanks if t.mass_t > 0]
+    assert {t.id for t in tank_rows} == {"DB1P", "FO1S", "FW1C"}
+    for t in tank_rows:
+        row = next(line for line in txt.splitlines() if line.startswith("Tank") and f"{t.id} " in line)
+        assert f"{t.fill_pct:.1f}" in row and f"{t.mass_t:.2f}" in row and f"{t.vcg_m:.3f}" in row
+    assert "empty: DB1S, FO1P, LO1C, CL1C" in txt
+    assert re.search(r"Displacement\s+" + re.escape(f"{r.displacement_t:.2f}"), txt)
+    # free-surface table: the rule used per tank, and the sum
+    counted = [t for t in r.tanks if t.fsm_tm > 0]
+    assert counted, "the case must have free surface to show"
+    for t in counted:
+        row = next(line for line in txt.splitlines() if line.startswith(t.id + " "))
+        assert f"{t.fsm_tm:.2f}" in row and t.fs_rule[:20] in row
+    for t in r.tanks:
+        if t.fsm_tm == 0:  # grouped by the rule that left them at zero
+            rule = "empty" if t.state == "empty" else t.fs_rule
+            row = next(line for line in txt.splitlines() if line.startswith("—") and rule in line)
+            assert re.search(rf"\b{t.id}\b", row)
+    assert re.search(r"ΣFSM\s+" + re.escape(f"{r.fsm_total_tm:.2f}"), txt)
+    # criteria: value, limit, margin, verdict
+    for cr in r.criteria:
+        d = 1 if cr.unit == "deg" else 3
+        row = next(line for line in txt.splitlines() if line.startswith(cr.description))
+        assert f"{cr.value:.{d}f}" in row and f"{cr.limit:.{d}f}" in row and f"{cr.margin:+.{d}f}" in row
+        assert ("pass" if cr.passed else "FAIL") in row and cr.source in row
+    assert "All criteria are met." in txt
+    # GZ values at 10° steps
+    for h in (10.0, 30.0, 40.0):
+        i = r.gz_heel_deg.index(h)
+        assert f"{r.gz_m[i]:.3f}" in txt
+    assert " ".join(CAUTION.split()) in " ".join(txt.split())
+    assert re.search(r"^Officer:\s+_{20,}\s+Name: _+\s+Date/time: _+$", txt, re.M)
+    assert re.search(r"^Master:\s+_{20,}\s+Name: _+\s+Date/time: _+$", txt, re.M)
+    for w in r.warnings:
+        assert w.message in txt
+
+
+def test_failed_criteria_are_plain_in_the_report(failing_case):
+    v, c, r = failing_case
+    assert not r.all_criteria_pass
+    txt = render_report_text(r, v, c)
+    assert "CRITERIA NOT MET" in txt and "All criteria are met." not in txt
+    for cr in r.criteria:
+        row = next(line for line in txt.splitlines() if line.startswith(cr.description))
+        assert ("pass" if cr.passed else "FAIL") in row
+
+
+class _Pre(HTMLParser):
+    """Collects the text of each <pre> block and the document's CSS."""
+
+    def __init__(self):
+        super().__init__()
+        self.blocks: list[tuple[str, str]] = []
+        self.css = ""
+        self._in: str | None = None
+        self._style = False
+
+    def handle_starttag(self, tag, attrs):
+        if tag == "pre":
+            self._in = dict(attrs).get("class", "")
+            self.blocks.append((self._in, ""))
+        if tag == "style":
+            self._style = True
+
+    def handle_endtag(self, tag):
+        if tag == "pre":
+            self._in = None
+        if tag == "style":
+            self._style = False
+
+    def handle_data(self, data):
+        if self._in is not None:
+            cls, text = self.blocks[-1]
+            self.blocks[-1] = (cls, text + data)
+        if self._style:
+            self.css += data
+
+
+def test_html_report_has_the_content_and_print_css(case):
+    v, c, r = case
+    doc = render_report_html(r, v, c, stamp="2026-12-01 22:00 UTC")
+    p = _Pre()
+    p.feed(doc)
+    text = "\n".join(t for _, t in p.blocks)
+    assert [cls for cls, _ in p.blocks] == ["header", "summary", "items", "free-surface", "criteria", "closing"]
+    assert text.count("LOADING CONDITION AND INTACT STABILITY") == 1  # each block exported once, not repeated
+    assert f"{r.gm_fluid_m:.3f} m" in text and f"{r.displacement_t:.2f}" in text
+    for cr in r.criteria:
+        assert cr.description in text
+    assert " ".join(CAUTION.split()) in " ".join(text.split())
+    sig = re.search(r'<div class="signatures">(.*?)</div></div>', doc, re.S).group(1)
+    assert re.findall(r'<span class="who">(\w+):</span><span class="line sign">', sig) == ["Officer", "Master"]
+    assert re.search(r"@page\s*\{\s*size:\s*A4 portrait", p.css)
+    assert doc.count("<svg") == 1
+
+
+def test_html_report_fits_one_a4_page(case):
+    """Height: Σ lines × size × line-height (+ half a line between blocks), the summary/GZ row
+    (taller of the two) and the signature rows within 297 − 2·10 mm; width: longest line × 0.6 em
+    within 210 − 2·10 mm."""
+    v, c, r = case
+    doc = render_report_html(r, v, c, stamp="2026-12-01 22:00 UTC", source="dep.condition.toml")
+    p = _Pre()
+    p.feed(doc)
+    font_pt = float(re.search(r"pre \{ font-size: ([\d.]+)pt", p.css).group(1))
+    line_mm = font_pt * LINE_HEIGHT * PT_MM
+    heights = {cls: len(t.rstrip("\n").split("\n")) * line_mm for cls, t in p.blocks}
+    summary_row = max(heights.pop("summary"), SVG_HEIGHT_MM)
+    signatures = doc.count('<div class="sig">') * SIGNATURE_ROW_MM
+    total = sum(heights.values()) + summary_row + len(p.blocks) * 0.5 * line_mm + signatures
+    assert total <= PAGE_HEIGHT_MM - 2 * PAGE_MARGIN_MM
+    widest = max(len(line) for _, t in p.blocks for line in t.split("\n"))
+    assert widest * CHAR_WIDTH_EM * font_pt * PT_MM <= PAGE_WIDTH_MM - 2 * PAGE_MARGIN_MM
+    assert html_fits_a4(doc)
+
+
+def _svg_tree(svg: str) -> ET.Element:
+    return ET.fromstring(svg)
+
+
+def _axis_maps(root: ET.Element):
+    """Linear maps heel→x and GZ→y recovered from the tick labels the drawing prints."""
+    xt = [(float(t.text.rstrip("°")), float(t.get("x"))) for t in root.iter(SVG_NS + "text") if t.get("class") == "xt"]
+    yt = [(float(t.text), float(t.get("y"))) for t in root.iter(SVG_NS + "text") if t.get("class") == "yt"]
+    assert len(xt) >= 2 and len(yt) >= 2
+    (h0, x0), (h1, x1) = xt[0], xt[-1]
+    (g0, y0), (g1, y1) = yt[0], yt[-1]
+    # every tick must lie on the same straight line: the axes are linear
+    for h, x in xt:
+        assert x == pytest.approx(x0 + (h - h0) * (x1 - x0) / (h1 - h0), abs=0.01)
+    for g, y in yt:
+        assert y == pytest.approx(y0 + (g - g0) * (y1 - y0) / (g1 - g0), abs=0.01)
+    return (lambda h: x0 + (h - h0) * (x1 - x0) / (h1 - h0)), (lambda g: y0 + (g - g0) * (y1 - y0) / (g1 - g0))
+
+
+def test_svg_polyline_points_are_the_gz_values(case):
+    v, c, r = case
+    root = _svg_tree(gz_svg(r))
+    fx, fy = _axis_maps(root)
+    (poly,) = [e for e in root.iter(SVG_NS + "polyline") if e.get("class") == "gz-curve"]
+    pts = [tuple(map(float, p.split(","))) for p in poly.get("points").split()]
+    gz = r.gz_port_m if r.criteria_side == "port" else r.gz_m
+    assert len(pts) == len(r.gz_heel_deg)
+    for (x, y), h, g in zip(pts, r.gz_heel_deg, gz):
+        assert x == pytest.approx(fx(h), abs=0.002)
+        assert y == pytest.approx(fy(g), abs=0.002)
+    # y grows downwards: the larger GZ is drawn higher
+    i_max = int(np.argmax(gz))
+    assert pts[i_max][1] == min(y for _, y in pts)
+
+
+def test_svg_marks_30_40_and_downflooding(case):
+    v, c, r = case
+    root = _svg_tree(gz_svg(r))
+    fx, _ = _axis_maps(root)
+    marks = {float(e.get("data-angle-deg")): float(e.get("x1")) for e in root.iter(SVG_NS + "line")
+             if e.get("class") == "mark"}
+    assert set(marks) == {30.0, 40.0, r.downflooding_angle_deg} and r.downflooding_angle_deg == 38.0
+    for ang, x in marks.items():
+        assert x == pytest.approx(fx(ang), abs=0.01)
+    labels = [t.text for t in root.iter(SVG_NS + "text")]
+    assert "┆ θf 38.0°" in labels
+
+
+def test_svg_has_no_downflooding_mark_when_none_is_given(failing_case):
+    _, _, r = failing_case
+    assert r.downflooding_angle_deg is None
+    root = _svg_tree(gz_svg(r))
+    assert {float(e.get("data-angle-deg")) for e in root.iter(SVG_NS + "line") if e.get("class") == "mark"} == {30.0, 40.0}

@@ -1,0 +1,172 @@
+"""What the watchkeeper types on the loading screen, checked without the UI.
+
+Vessel: the analytic box barge with box tanks (tests/vessel_factories.py).  A box
+tank's volume at sounding s is l·b·s exactly (analytic: prismatic tank), so the
+expected volumes below are written as that formula.
+"""
+
+from __future__ import annotations
+
+import pytest
+
+from deckload.core.model import Condition, TankFill
+from deckload.core.stability import evaluate
+from deckload.ui.entry import (
+    EntryError,
+    ItemForm,
+    density_from_text,
+    hold_from_text,
+    item_from_form,
+    nudge_tank,
+    parse_amount,
+    plan_transfer,
+    tank_from_text,
+)
+from vessel_factories import barge_tanks, box_barge
+
+RHO_SW = 1.025
+DB1P_L, DB1P_B, DB1P_H = 8.0, 4.5, 0.8  # as built in barge_tanks()
+TOL = 1e-9
+
+
+@pytest.fixture(scope="module")
+def vessel():
+    return box_barge(tanks=barge_tanks())
+
+
+def volume(vessel, condition, tank_id):
+    return next(t for t in evaluate(vessel, condition).tanks if t.id == tank_id).volume_m3
+
+
+@pytest.mark.parametrize(
+    "text, expected",
+    [
+        ("55%", ("percent", 55.0)),
+        (" 55 % ", ("percent", 55.0)),
+        ("12.5m3", ("volume_m3", 12.5)),
+        ("12.5 m³", ("volume_m3", 12.5)),
+        ("10t", ("mass_t", 10.0)),
+        ("10 T", ("mass_t", 10.0)),
+        ("1.2m", ("sounding_m", 1.2)),
+        (".5m", ("sounding_m", 0.5)),
+    ],
+)
+def test_amount_with_unit_is_understood(text, expected):
+    assert parse_amount(text) == expected
+
+
+@pytest.mark.parametrize(
+    "text, says",
+    [
+        ("55", "no unit"),
+        ("5,5%", "decimal point"),
+        ("-5%", "not an amount"),
+        ("10kg", "not an amount"),
+        ("lots", "not an amount"),
+        ("", "Nothing typed"),
+    ],
+)
+def test_bad_amount_is_refused_with_a_reason(text, says):
+    with pytest.raises(EntryError, match=says):
+        parse_amount(text)
+
+
+def test_tank_set_by_each_quantity_gives_the_analytic_volume(vessel):
+    """Box tank DB1P, l = 8, b = 4.5, h = 0.8 m: V(s) = l·b·s; capacity l·b·h (analytic)."""
+    c0 = Condition()
+    cap = DB1P_L * DB1P_B * DB1P_H
+    cases = {
+        "55%": 0.55 * cap,
+        "12.5m3": 12.5,
+        "10t": 10.0 / RHO_SW,
+        "0.4m": DB1P_L * DB1P_B * 0.4,
+    }
+    for text, expected_m3 in cases.items():
+        c1 = tank_from_text(c0, vessel.tank("DB1P"), text)
+        assert volume(vessel, c1, "DB1P") == pytest.approx(expected_m3, abs=1e-9), text
+
+
+@pytest.mark.parametrize("text, says", [("101%", "more than 100 %"), ("29m3", "capacity 28.80 m³"),
+                                        ("30t", "capacity 29.52 t"), ("0.9m", "greatest sounding 0.800 m")])
+def test_more_than_the_tank_holds_is_refused(vessel, text, says):
+    with pytest.raises(EntryError, match=says):
+        tank_from_text(Condition(), vessel.tank("DB1P"), text)
+
+
+def test_density_override_is_kept_when_the_amount_changes(vessel):
+    c0 = Condition(tanks=(TankFill("DB1P", "percent", 20.0, density_t_m3=1.0),))
+    c1 = tank_from_text(c0, vessel.tank("DB1P"), "10t")
+    assert c1.tank_fill("DB1P") == TankFill("DB1P", "mass_t", 10.0, 1.0)
+    assert volume(vessel, c1, "DB1P") == pytest.approx(10.0 / 1.0)
+
+
+def test_nudge_moves_by_percent_of_capacity_and_stops_at_the_ends(vessel):
+    tank = vessel.tank("DB1P")
+    c1 = nudge_tank(Condition(tanks=(TankFill("DB1P", "mass_t", 14.76),)), tank, +1.0)
+    start_pct = 100 * (14.76 / RHO_SW) / (DB1P_L * DB1P_B * DB1P_H)
+    assert c1.tank_fill("DB1P").value == pytest.approx(start_pct + 1.0)
+    with pytest.raises(EntryError, match="already empty"):
+        nudge_tank(Condition(), tank, -1.0)
+    with pytest.raises(EntryError, match="already full"):
+        nudge_tank(Condition(tanks=(TankFill("DB1P", "percent", 100.0),)), tank, +1.0)
+
+
+def test_transfer_conserves_mass_between_tanks_of_different_density(vessel):
+    """5 t from DB1P (sea water 1.025) into DB1S stated at 1.000 t/m³: masses move, volumes differ."""
+    c0 = Condition(tanks=(TankFill("DB1P", "percent", 50.0), TankFill("DB1S", "volume_m3", 2.0, density_t_m3=1.0)))
+    plan = plan_transfer(vessel, c0, "DB1P", "DB1S", "5t")
+    cap = DB1P_L * DB1P_B * DB1P_H
+    assert plan.mass_t == pytest.approx(5.0)
+    assert volume(vessel, plan.condition, "DB1P") == pytest.approx(0.5 * cap - 5.0 / RHO_SW)
+    assert volume(vessel, plan.condition, "DB1S") == pytest.approx(2.0 + 5.0 / 1.0)
+    r0, r1 = evaluate(vessel, c0), evaluate(vessel, plan.condition)
+    assert r1.displacement_t == pytest.approx(r0.displacement_t, abs=1e-9)
+
+
+@pytest.mark.parametrize(
+    "src, dst, amount, says",
+    [
+        ("DB1P", "DB1P", "1t", "same tank"),
+        ("DB1P", "XX", "1t", "not a tank"),
+        ("DB1P", "DB1S", "20t", "holds only"),
+        ("DB1P", "DB1S", "0.2m", "not as a sounding"),
+        ("DB1P", "FW1C", "10t", "room for only"),
+    ],
+)
+def test_impossible_transfer_is_refused(vessel, src, dst, amount, says):
+    c0 = Condition(tanks=(TankFill("DB1P", "mass_t", 14.0), TankFill("FW1C", "percent", 90.0)))
+    with pytest.raises(EntryError, match=says):
+        plan_transfer(vessel, c0, src, dst, amount)
+
+
+def test_item_form_checks_every_field(vessel):
+    ok = item_from_form(vessel, ItemForm("Crane", "12", "20", "6", "-1.5"), deck=True)
+    assert (ok.mass_t, ok.lcg_m, ok.vcg_m, ok.tcg_m) == (12.0, 20.0, 6.0, -1.5)
+    for form, says in [
+        (ItemForm("", "12", "20", "6"), "Name"),
+        (ItemForm("Crane", "-1", "20", "6"), "below"),
+        (ItemForm("Crane", "12x", "20", "6"), "Mass"),
+        (ItemForm("Crane", "12", "20", "6", "7"), "TCG"),
+        (ItemForm("Crane", "12", "20", "6", "0", "NOWHERE"), "Deck area"),
+    ]:
+        with pytest.raises(EntryError, match=says):
+            item_from_form(vessel, form, deck=True)
+
+
+def test_water_density_outside_fresh_to_sea_range_is_refused():
+    assert density_from_text(Condition(), "1.000").water_density_t_m3 == 1.0
+    with pytest.raises(EntryError, match="above"):
+        density_from_text(Condition(), "1.25")
+    with pytest.raises(EntryError, match="not a number"):
+        density_from_text(Condition(), "sea")
+
+
+def test_hold_mass_zero_empties_it():
+    from deckload.core.model import Hold, HoldLoad
+
+    hold = Hold("H1", "Hold", 300.0, 20.0, 2.0, max_mass_t=100.0)
+    c1 = hold_from_text(Condition(), hold, "80t")
+    assert c1.holds == (HoldLoad("H1", 80.0),)
+    assert hold_from_text(c1, hold, "0").holds == ()
+    with pytest.raises(EntryError, match="structural limit"):
+        hold_from_text(c1, hold, "120")

@@ -1,0 +1,91 @@
+"""The loading screen's edit session without the UI: undo/redo, out-of-range, saving, logging."""
+
+from __future__ import annotations
+
+import pytest
+
+from deckload.core.model import Condition, DeckItem, TankFill
+from deckload.logbook import Logbook
+from deckload.profiles import load_condition, save_condition
+from deckload.ui.entry import EntryError
+from deckload.ui.session import Journal, Session, working_path
+from vessel_factories import barge_tanks, box_barge
+
+
+@pytest.fixture(scope="module")
+def vessel():
+    return box_barge(tanks=barge_tanks())
+
+
+def c_with(*fills):
+    return Condition(name="Test", tanks=tuple(fills))
+
+
+def test_undo_and_redo_walk_back_and_forth_through_whole_conditions(vessel, tmp_path):
+    c0 = c_with(TankFill("DB1P", "percent", 50.0))
+    s = Session(vessel, c0, save_path=tmp_path / "w.condition.toml")
+    c1 = c0.with_tank(TankFill("DB1S", "percent", 20.0))
+    c2 = c1.with_density(1.0)
+    s.commit(c1, "DB1S 20%")
+    s.commit(c2, "density")
+    assert (s.undo_depth, s.redo_depth) == (2, 0)
+    s.undo()
+    assert s.condition == c1
+    s.undo()
+    assert s.condition == c0 and not s.can_undo
+    with pytest.raises(EntryError, match="Nothing to undo"):
+        s.undo()
+    s.redo()
+    assert s.condition == c1
+    s.commit(c1.with_tank(TankFill("FW1C", "percent", 10.0)), "new branch")
+    assert not s.can_redo  # a new change drops the redo stack
+
+
+def test_each_change_is_saved_and_reads_back(vessel, tmp_path):
+    path = tmp_path / "work" / "barge.condition.toml"
+    s = Session(vessel, c_with(), save_path=path, save=save_condition)
+    c1 = c_with(TankFill("DB1P", "sounding_m", 0.4))
+    s.commit(c1, "DB1P 0.4m")
+    assert load_condition(path, vessel) == c1
+    s.undo()
+    assert load_condition(path, vessel) == c_with()
+
+
+def test_displacement_outside_the_tables_keeps_the_last_good_result(vessel, tmp_path):
+    """The barge's tables end at Δ = ρ·L·B·3.5 = 1435 t; 2000 t on deck is beyond them."""
+    s = Session(vessel, c_with(), save_path=None)
+    good = s.result
+    heavy = Condition(name="Test", deck_items=(DeckItem("Ingot", 2000.0, 20.0, 5.0),))
+    s.commit(heavy, "too heavy")
+    assert s.stale and s.result is good and "outside the table" in s.problem
+    s.undo()
+    assert not s.stale and s.problem is None
+
+
+def test_condition_the_engine_rejects_is_refused_and_changes_nothing(vessel):
+    c0 = c_with(TankFill("DB1P", "percent", 50.0))
+    s = Session(vessel, c0, save_path=None)
+    with pytest.raises(EntryError, match="Refused by the calculation"):
+        s.commit(c_with(TankFill("DB1P", "percent", 150.0)), "bad")
+    assert s.condition == c0 and not s.can_undo
+    with pytest.raises(EntryError, match="No change"):
+        s.commit(c0, "same")
+
+
+def test_changes_are_logged_under_the_officer_of_the_watch(vessel, tmp_path):
+    book = Logbook.open(tmp_path, vessel.particulars.name)
+    journal = Journal(book)
+    s = Session(vessel, c_with(), save_path=None, journal=journal)
+    s.commit(c_with(TankFill("DB1P", "percent", 10.0)), "before signing on")
+    assert book.entries() == []  # nobody on watch: nothing written, and the title line says so
+    journal.officer = "TS"
+    s.commit(c_with(TankFill("DB1P", "percent", 20.0)), "DB1P set to 20%", kind="ballast", data={"tank": "DB1P"})
+    s.undo()
+    s.record("JM", "departure check")
+    kinds = [(e.kind, e.by) for e in book.entries()]
+    assert kinds == [("ballast", "TS"), ("edit", "TS"), ("condition", "JM")]
+    book.close()
+
+
+def test_working_file_is_named_after_the_vessel(vessel, tmp_path):
+    assert working_path(tmp_path, vessel).name == "analytic-box-barge.condition.toml"
