@@ -384,7 +384,7 @@ def _read_tables(root: _Tab, hull: HullOffsets | None) -> TableSpec | None:
         t.bad("transfer_heel_deg", t.data["transfer_heel_deg"], "must start at 0 and end at most at 90")
         theel = None
     t.finish()
-    if hull is not None and lcg is not None and not hull.station_x_m[0] < lcg < hull.station_x_m[-1]:
+    if basis == "free trim" and hull is not None and lcg is not None and not hull.station_x_m[0] < lcg < hull.station_x_m[-1]:
         t.bad("trim_lcg_m", lcg, "must lie between the end stations")
         lcg = None
     if any(v is None for v in (draft, disp, heel, basis, lcg, vcg, step, fstep)):

@@ -422,6 +422,7 @@ def verify_lines(
     notes: list[str] = []
     prev_sha = GENESIS_SHA256
     seqs: list[int | None] = []
+    offset = 0  # seq − line number: changes exactly where entries were removed, inserted or moved
     for i, line in enumerate(lines, start=1):
         try:
             e = _entry_from_line(line, i)
@@ -431,22 +432,23 @@ def verify_lines(
             prev_sha = sha256_hex(line)
             continue
         seqs.append(e.seq)
-        if e.seq != i:
+        chained = e.prev_sha256 == prev_sha
+        if e.seq - i != offset:
+            offset = e.seq - i
+            before = seqs[-2] if len(seqs) > 1 else 0
+            expected = before + 1 if before is not None else i
             problems.append(
-                f"line {i}: holds entry #{e.seq}, expected #{i} — an entry was removed, inserted "
-                f"or moved at this point"
+                f"line {i}: holds entry #{e.seq}, expected #{expected} — an entry was removed, inserted "
+                f"or moved at this point" + ("" if chained else "; the hash chain breaks here too")
             )
-        if e.prev_sha256 != prev_sha:
-            if i == 1:
-                problems.append(
-                    f"line 1: prev_sha256 should be the genesis value (64 zeros) — earlier entries "
-                    f"were removed, or line 1 was edited"
-                )
-            else:
-                problems.append(
-                    f"line {i - 1}: its SHA-256 is not the one line {i} records — line {i - 1} was "
-                    f"edited, or an entry was removed, inserted or moved between lines {i - 1} and {i}"
-                )
+        elif not chained and i == 1:
+            problems.append(
+                "line 1: prev_sha256 should be the genesis value (64 zeros) — line 1 was edited"
+            )
+        elif not chained:
+            problems.append(
+                f"line {i - 1}: edited — its SHA-256 is not the one line {i} records for it"
+            )
         if vessel_name is not None and e.vessel != vessel_name:
             problems.append(f"line {i}: vessel {e.vessel!r}, but this log belongs to {vessel_name!r}")
         if e.kind not in KINDS:
@@ -479,26 +481,28 @@ def verify_lines(
         )
     else:
         hseq, hsha = head.get("seq"), head.get("sha256")
-        if not isinstance(hseq, int) or not isinstance(hsha, str):
+        if not isinstance(hseq, int) or isinstance(hseq, bool) or not isinstance(hsha, str):
             problems.append("head record: damaged (no valid 'seq'/'sha256'); the newest entries cannot be checked")
-        elif hseq > n:
-            problems.append(
-                f"line {n + 1}: missing — the head record says the log had {hseq} entries, it now ends "
-                f"after line {n} (entries {n + 1}–{hseq} removed or the file truncated)"
-                if hseq > n + 1
-                else f"line {n + 1}: missing — the head record says the log had {hseq} entries, it now "
-                f"ends after line {n} (the newest entry was removed or the file truncated)"
-            )
-        elif hseq >= 1 and sha256_hex(lines[hseq - 1]) != hsha:
-            problems.append(
-                f"line {hseq}: its SHA-256 is not the one in the head record — line {hseq} was edited "
-                f"or replaced"
-            )
-        elif hseq < n:
-            notes.append(
-                f"head record is {n - hseq} entr{'y' if n - hseq == 1 else 'ies'} behind (power cut between "
-                f"an append and its head update); lines {hseq + 1}–{n} chain correctly from it"
-            )
+        else:
+            at = _line_of_seq(seqs, hseq)
+            top = max((q for q in seqs if q is not None), default=0)
+            if at is None and hseq > top:
+                problems.append(
+                    f"line {n + 1}: missing — the head record names entry #{hseq} but the log ends with "
+                    f"#{top} on line {n} (the newest entries were removed, or the file truncated)"
+                )
+            elif at is None:
+                problems.append(f"head record: names entry #{hseq}, which is not in the log (removed)")
+            elif sha256_hex(lines[at - 1]) != hsha:
+                problems.append(
+                    f"line {at}: its SHA-256 is not the one in the head record — line {at} was edited "
+                    f"or replaced"
+                )
+            elif at < n:
+                notes.append(
+                    f"head record is {n - at} entr{'y' if n - at == 1 else 'ies'} behind (power cut between "
+                    f"an append and its head update); lines {at + 1}–{n} chain correctly from it"
+                )
     return VerifyReport(
         ok=not problems,
         problems=problems,
@@ -869,25 +873,46 @@ def _parses(line: bytes) -> bool:
         return False
 
 
+def _line_of_seq(seqs: list[int | None], seq: int) -> int | None:
+    """1-based line holding entry ``seq``, searched from the end (where the head points)."""
+    for i in range(len(seqs) - 1, -1, -1):
+        if seqs[i] == seq:
+            return i + 1
+    return None
+
+
+def _seq_of(line: bytes) -> int | None:
+    try:
+        obj = json.loads(line.decode("utf-8"))
+    except (UnicodeDecodeError, json.JSONDecodeError):
+        return None
+    seq = obj.get("seq") if isinstance(obj, dict) else None
+    return seq if isinstance(seq, int) and not isinstance(seq, bool) else None
+
+
 def _head_disagreement(head: dict | None, lines: list[bytes]) -> str | None:
     """Why the head record contradicts the log's complete lines, or None if it does not.
 
-    A head that is merely behind (power cut between an append and the head update) agrees.
+    The head names the newest entry appended (its seq and SHA-256).  It agrees when that
+    entry is in the log unchanged, as the last line or — after a power cut between an
+    append and the head update — one line before it.
     """
     if head is None:
         return None
     seq, sha = head.get("seq"), head.get("sha256")
     if not isinstance(seq, int) or isinstance(seq, bool) or not isinstance(sha, str):
         return "the head record is damaged"
-    n = len(lines)
-    if seq > n:
-        return (
-            f"the head record says the log had {seq} entries but it has {n} complete lines "
-            f"(entries removed, the file truncated, or the last line damaged)"
-        )
-    if seq >= 1 and sha256_hex(lines[seq - 1]) != sha:
-        return f"line {seq} does not match the head record (edited or replaced)"
-    return None
+    for back in (1, 2):
+        if len(lines) >= back and _seq_of(lines[-back]) == seq:
+            if sha256_hex(lines[-back]) == sha:
+                return None
+            return f"line {len(lines) - back + 1} (entry #{seq}) does not match the head record (edited or replaced)"
+    last = _seq_of(lines[-1]) if lines else None
+    return (
+        f"the head record names entry #{seq} but the log ends with "
+        f"{'entry #' + str(last) if last is not None else 'no readable entry'} "
+        f"(entries removed, the file truncated, or the last line damaged)"
+    )
 
 
 def log_files(directory: Path) -> list[Path]:

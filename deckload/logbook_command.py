@@ -135,7 +135,11 @@ def _books(args) -> list[Logbook]:
 
 
 def _fmt(x, digits: int = 3) -> str:
-    return "" if x is None else (f"{x:.{digits}f}" if isinstance(x, (int, float)) and not isinstance(x, bool) else str(x))
+    if x is None:
+        return ""
+    if isinstance(x, (int, float)) and not isinstance(x, bool):
+        return f"{x:.{digits}f}"
+    return str(x)
 
 
 def entry_row(e: LogEntry) -> dict[str, str]:
@@ -231,7 +235,8 @@ def export_html(books: list[tuple[str, list[LogEntry]]]) -> str:
                "smallest_margin"}
     for vessel, entries in books:
         out.append(f"<h1>Voyage loading log — {htmllib.escape(vessel)}</h1>")
-        out.append("<table><thead><tr>" + "".join(f"<th>{htmllib.escape(h)}</th>" for h in heads) + "</tr></thead><tbody>")
+        head = "".join(f"<th>{htmllib.escape(h)}</th>" for h in heads)
+        out.append(f"<table><thead><tr>{head}</tr></thead><tbody>")
         for e in entries:
             r = entry_row(e)
             cells = []

@@ -75,6 +75,11 @@ def _side(deg: float) -> str:
     return f"{abs(deg):.2f}° {'stbd' if deg > 0 else 'port'}"
 
 
+def _row(table: Table, *cells) -> None:
+    """Add a row; plain strings (names typed by users) become Text, so '[' is never markup."""
+    table.add_row(*(Text(c) if isinstance(c, str) else c for c in cells))
+
+
 def _trim(t: float) -> str:
     if abs(t) < 0.0005:
         return "even keel"
@@ -151,7 +156,7 @@ def _summary(result: Result) -> Table:
         ("Downflooding θf", "not given" if r.downflooding_angle_deg is None else f"{r.downflooding_angle_deg:.1f}°"),
     ]
     for k, v in rows:
-        g.add_row(k, v)
+        _row(g, k, v)
     return g
 
 
@@ -168,17 +173,17 @@ def _items(result: Result, condition: Condition) -> Table:
     descr = {h.hold_id: h.description for h in condition.holds}
     for it in result.items:
         if it.group == "lightship":
-            t.add_row(GROUP_TITLES["lightship"], it.name, "", f"{it.mass_t:.2f}", f"{it.lcg_m:.3f}",
+            _row(t, GROUP_TITLES["lightship"], it.name, "", f"{it.mass_t:.2f}", f"{it.lcg_m:.3f}",
                       f"{it.vcg_m:.3f}", f"{it.tcg_m:+.3f}")
     empty = []
     for tk in result.tanks:
         if tk.state == "empty" and tk.mass_t == 0:
             empty.append(tk.id)
             continue
-        t.add_row("Tank", f"{tk.id} {tk.name}", f"{tk.fill_pct:.1f}", f"{tk.mass_t:.2f}", f"{tk.lcg_m:.3f}",
+        _row(t, "Tank", f"{tk.id} {tk.name}", f"{tk.fill_pct:.1f}", f"{tk.mass_t:.2f}", f"{tk.lcg_m:.3f}",
                   f"{tk.vcg_m:.3f}", f"{tk.tcg_m:+.3f}")
     if empty:
-        t.add_row("Tank", "empty: " + ", ".join(empty), "0.0", "0.00", "", "", "")
+        _row(t, "Tank", "empty: " + ", ".join(empty), "0.0", "0.00", "", "", "")
     for group in ("hold", "deck", "constant"):
         for it in result.items:
             if it.group != group:
@@ -186,7 +191,7 @@ def _items(result: Result, condition: Condition) -> Table:
             name = it.name if it.group != "hold" else f"{it.id} {it.name}"
             if it.group == "hold" and descr.get(it.id) and descr[it.id] not in name:
                 name += f" ({descr[it.id]})"
-            t.add_row(GROUP_TITLES[group], name, "", f"{it.mass_t:.2f}", f"{it.lcg_m:.3f}", f"{it.vcg_m:.3f}",
+            _row(t, GROUP_TITLES[group], name, "", f"{it.mass_t:.2f}", f"{it.lcg_m:.3f}", f"{it.vcg_m:.3f}",
                       f"{it.tcg_m:+.3f}")
     return t
 
@@ -207,10 +212,10 @@ def _free_surface(result: Result) -> Table:
         if tk.fsm_tm == 0:
             zero.setdefault("empty" if tk.state == "empty" else tk.fs_rule, []).append(tk.id)
             continue
-        t.add_row(tk.id, f"{tk.fill_pct:.1f}", tk.state.replace("_", " "), f"{tk.density_t_m3:.3f}",
+        _row(t, tk.id, f"{tk.fill_pct:.1f}", tk.state.replace("_", " "), f"{tk.density_t_m3:.3f}",
                   f"{tk.fsm_tm:.2f}", tk.fs_rule)
     for rule, ids in zero.items():
-        t.add_row("—", "", "", "", "0.00", f"{rule}: {', '.join(ids)}")
+        _row(t, "—", "", "", "", "0.00", f"{rule}: {', '.join(ids)}")
     return t
 
 
@@ -227,7 +232,8 @@ def _criteria(result: Result) -> Table:
     digits = {"deg": 1}
     for c in result.criteria:
         d = digits.get(c.unit, 3)
-        t.add_row(
+        _row(
+            t,
             c.description + (" *" if c.note else ""),
             _f(c.value, d),
             f"{_COMPARISON.get(c.comparison, c.comparison)} {_f(c.limit, d)}",
@@ -255,7 +261,7 @@ def _gz_table(result: Result) -> Table:
         note = marks.get(h, "")
         if result.downflooding_angle_deg is not None and abs(h - result.downflooding_angle_deg) < 5.0:
             note = (note + f" θf {result.downflooding_angle_deg:.1f}°").strip()
-        t.add_row(f"{h:.0f}", f"{g:.3f}", note)
+        _row(t, f"{h:.0f}", f"{g:.3f}", note)
     return t
 
 

@@ -336,6 +336,19 @@ def test_deleted_line_is_found(tmp_path):
     assert not rep.ok and names_line(rep, 2), rep.problems
 
 
+def test_deleted_line_is_reported_once_where_it_happened_and_stays_on_record(tmp_path):
+    rep = tampered(tmp_path, lambda p, ls: write_lines(p, ls[:1] + ls[2:]))
+    assert [p[:8] for p in rep.problems] == ["line 2: ", "line 1: "], rep.problems
+    # the writer may go on appending (the head record still matches the newest entry) …
+    with Logbook.open(tmp_path, "Demo Islander") as b:
+        assert not b.readonly
+        e = b.append(kind="remark", by="AB", change_text="x", change_data={}, result=None, condition=None)
+        assert e.seq == 6
+    # … and the deletion is still found in the same place
+    with Logbook.open(tmp_path, "Demo Islander", readonly=True) as ro:
+        assert [p[:8] for p in ro.verify().problems] == ["line 2: ", "line 1: "]
+
+
 def test_deleted_first_line_is_found(tmp_path):
     rep = tampered(tmp_path, lambda p, ls: write_lines(p, ls[1:]))
     assert not rep.ok and names_line(rep, 1), rep.problems
@@ -376,7 +389,7 @@ def test_writer_refuses_to_append_over_evidence_of_truncation(tmp_path):
     tampered(tmp_path, lambda p, ls: write_lines(p, ls[:3]))
     with Logbook.open(tmp_path, "Demo Islander") as b:
         assert b.readonly
-        assert "head record says the log had 5 entries" in b.readonly_reason
+        assert "head record names entry #5 but the log ends with entry #3" in b.readonly_reason
         with pytest.raises(LogLockedError):
             b.append(kind="remark", by="AB", change_text="x", change_data={}, result=None, condition=None)
 

@@ -34,7 +34,7 @@ def filled(tmp_path):
     for i, (kind, pct) in enumerate([("condition", 40.0), ("ballast", 60.0), ("transfer", 20.0),
                                      ("condition", 80.0), ("remark", None)]):
         if pct is None:
-            book.append(kind=kind, by="AB", change_text="pilot boarded", change_data={}, result=None,
+            book.append(kind=kind, by="AB", change_text="pilot boarded [/]", change_data={}, result=None,
                         condition=None)
             conds.append(None)
             continue
@@ -59,7 +59,7 @@ class Host(App):
 
 def rows(screen) -> list[str]:
     t = screen.query_one("#log-table", DataTable)
-    return [t.get_row_at(i)[0] for i in range(t.row_count)]
+    return [str(t.get_row_at(i)[0]) for i in range(t.row_count)]
 
 
 def test_select_entries_by_kind_and_ship_date(filled):
@@ -85,7 +85,7 @@ async def test_log_screen_lists_filters_opens_and_restores(filled):
         assert table.cursor_row == 4  # newest selected
         # the row shows GM fluid and the verdict from the stored summary
         row4 = table.get_row_at(3)
-        assert row4[6] == f"{book.entries()[3].gm_fluid_m:.3f}" and str(row4[7]) == "pass"
+        assert str(row4[5]) == f"{book.entries()[3].gm_fluid_m:.3f}" and str(row4[6]) == "pass"
 
         await pilot.press("k")  # condition
         assert rows(screen) == ["1", "4"]
@@ -102,7 +102,12 @@ async def test_log_screen_lists_filters_opens_and_restores(filled):
         assert rows(screen) == ["2", "3", "4"]
         assert isinstance(app.focused, DataTable)
 
-        # open the entry under the cursor (the newest shown: #4) read-only
+        # open the entry under the cursor (the newest shown: #4) read-only, by o and by enter
+        await pilot.press("o")
+        await pilot.pause()
+        assert isinstance(app.screen, EntryScreen)
+        await pilot.press("escape")
+        await pilot.pause()
         await pilot.press("enter")
         await pilot.pause()
         assert isinstance(app.screen, EntryScreen)
@@ -140,3 +145,19 @@ async def test_restoring_an_entry_without_a_condition_says_so(filled):
         await pilot.press("escape")
         await pilot.pause()
         assert app.answers == [None]
+
+
+async def test_verify_key_and_a_condition_that_no_longer_fits_the_profile(filled):
+    book, _, _ = filled
+    other = box_barge(name="Demo Islander")  # same name, but no tanks: DB1P is unknown to it
+    app = Host(book, other)
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        await pilot.press("v")
+        await pilot.pause()
+        assert any("Chain intact: 5 entries" in str(n.message) for n in app._notifications)
+        await pilot.press("up", "r")
+        await pilot.pause()
+        assert isinstance(app.screen, LogScreen) and app.answers == []
+        msgs = [str(n.message) for n in app._notifications]
+        assert any("Entry #4 cannot be restored" in m and "log line 4" in m and "DB1P" in m for m in msgs), msgs

@@ -252,4 +252,5 @@ def test_svg_has_no_downflooding_mark_when_none_is_given(failing_case):
     _, _, r = failing_case
     assert r.downflooding_angle_deg is None
     root = _svg_tree(gz_svg(r))
-    assert {float(e.get("data-angle-deg")) for e in root.iter(SVG_NS + "line") if e.get("class") == "mark"} == {30.0, 40.0}
+    marks = {float(e.get("data-angle-deg")) for e in root.iter(SVG_NS + "line") if e.get("class") == "mark"}
+    assert marks == {30.0, 40.0}

@@ -140,13 +140,15 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
     top = min(40.0, flood) if flood is not None else 40.0
     a30 = gzmod.area_to(gz, 30.0)
     a40 = gzmod.area_to(gz, top)
-    a3040 = max(0.0, a40 - a30) if top > 30.0 else 0.0
+    a3040 = a40 - a30 if top > 30.0 else 0.0
     hi = max(30.0, flood) if flood is not None else 90.0
     k30 = int(round(30.0 / gzmod.STEP_DEG))
     khi = int(round(hi / gzmod.STEP_DEG))
     gz30 = float(np.max(gz[k30 : khi + 1]))
 
-    measures = Measures(a30, a40, a3040, gz30, f.max_gz_angle_deg, gm_fluid)
+    # A curve with no positive GZ has no meaningful 'angle of maximum': it fails 2.2.3.
+    angle_of_max = f.max_gz_angle_deg if f.max_gz_m > 0.0 else 0.0
+    measures = Measures(a30, a40, a3040, gz30, angle_of_max, gm_fluid)
     criteria = list(evaluate_criteria(vessel.criteria.code, measures, vessel.criteria.min_gm_m))
     if vessel.limit_curve is not None:
         lim = _curve_limit(vessel.limit_curve, disp)

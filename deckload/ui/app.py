@@ -29,6 +29,15 @@ class DeckloadApp(App[None]):
     def get_default_screen(self) -> Screen:
         return self.loading_screen
 
+    async def action_quit(self) -> None:
+        """Any way out (ctrl+q too) first writes changes not yet saved."""
+        for p in self.session.flush():
+            print(f"deckload: {p}")
+        await super().action_quit()
+
+    def on_unmount(self) -> None:
+        self.session.flush()
+
     def on_mount(self) -> None:
         for n in self.notices:
             self.notify(n, severity="warning", timeout=12)

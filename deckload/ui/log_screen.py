@@ -16,7 +16,7 @@ writes to the log: it reads entries, and a restore is handed back through
 ``dismiss(RestoreRequest)`` so the caller makes the change — and logs it with kind
 ``"restore"`` — like any other edit.  It closes with ``dismiss(None)`` on Escape or l.
 
-Keys (shown in the footer): ⏎ open the entry read-only, r restore its condition,
+Keys (shown in the footer): o or ⏎ open the entry read-only, r restore its condition,
 k next kind, d date filter, c clear filters, v verify the chain, l / Esc back.
 Styles: ``log_screen.tcss`` beside this file.
 """
@@ -24,8 +24,7 @@ Styles: ``log_screen.tcss`` beside this file.
 from __future__ import annotations
 
 from dataclasses import dataclass
-from datetime import date, datetime
-from pathlib import Path
+from datetime import date
 from typing import Iterable
 
 from rich.text import Text
@@ -90,6 +89,10 @@ def _num(x, digits: int = 3, unit: str = "") -> str:
     return "—"
 
 
+def _short(text: str, n: int) -> str:
+    return text if len(text) <= n else text[: n - 1] + "…"
+
+
 def entry_details(e: LogEntry) -> Text:
     """The entry's stored summary as it was computed when recorded (nothing recomputed)."""
     t = Text()
@@ -106,8 +109,8 @@ def entry_details(e: LogEntry) -> Text:
         rows = [
             ("Displacement", _num(s.get("displacement_t"), 1, " t")),
             ("Deadweight", _num(s.get("deadweight_t"), 1, " t")),
-            ("Draft fwd / mean / aft", " / ".join(_num(s.get(k)) for k in ("draft_fwd_m", "draft_mean_m", "draft_aft_m"))
-             + " m"),
+            ("Draft fwd / mean / aft",
+             " / ".join(_num(s.get(k)) for k in ("draft_fwd_m", "draft_mean_m", "draft_aft_m")) + " m"),
             ("Trim (+ by the stern)", _num(s.get("trim_m"), 3, " m")),
             ("List (+ starboard)", _num(s.get("list_deg"), 2, "°")),
             ("KG fluid", _num(s.get("kg_fluid_m"), 3, " m")),
@@ -164,7 +167,7 @@ class LogScreen(Screen["RestoreRequest | None"]):
 
     CSS_PATH = "log_screen.tcss"
     BINDINGS = [
-        Binding("enter", "open_entry", "Open"),
+        Binding("o", "open_entry", "Open"),
         Binding("r", "restore", "Restore"),
         Binding("k", "next_kind", "Kind"),
         Binding("d", "edit_dates", "Dates"),
@@ -200,7 +203,7 @@ class LogScreen(Screen["RestoreRequest | None"]):
 
     def on_mount(self) -> None:
         table = self.query_one("#log-table", DataTable)
-        table.add_columns("#", "ship's time", "UTC", "kind", "by", "change", "GM fl m", "criteria")
+        table.add_columns("#", "ship's time", "kind", "by", "change", "GM fl m", "criteria")
         self.refresh_entries()
         table.focus()
 
@@ -216,8 +219,9 @@ class LogScreen(Screen["RestoreRequest | None"]):
             passed = e.criteria_pass
             verdict = Text("—") if passed is None else (Text("pass") if passed else Text("FAIL", style="bold red"))
             table.add_row(
-                str(e.seq), f"{e.ship_time:%Y-%m-%d %H:%M}", f"{e.utc:%H:%M}Z", e.kind, e.by, e.change_text[:48],
-                _num(e.gm_fluid_m), verdict, key=str(e.seq),
+                *(Text(c) for c in (str(e.seq), f"{e.ship_time:%m-%d %H:%M}", e.kind, e.by,
+                                    _short(e.change_text, 30), _num(e.gm_fluid_m))),
+                verdict, key=str(e.seq),
             )
         if self.shown:
             table.move_cursor(row=len(self.shown) - 1)
@@ -273,7 +277,7 @@ class LogScreen(Screen["RestoreRequest | None"]):
             day_from = parse_day(self.query_one("#log-from", Input).value)
             day_to = parse_day(self.query_one("#log-to", Input).value)
         except ValueError as exc:
-            self.notify(str(exc), severity="error")
+            self.notify(str(exc), severity="error", markup=False)
             return
         if day_from and day_to and day_to < day_from:
             self.notify("the 'to' date is before the 'from' date", severity="error")
@@ -319,7 +323,7 @@ class LogScreen(Screen["RestoreRequest | None"]):
         try:
             condition = condition_of(e, vessel)
         except Exception as exc:  # a stored condition that no longer fits the profile
-            self.notify(f"Entry #{e.seq} cannot be restored: {exc}", severity="error", timeout=10)
+            self.notify(f"Entry #{e.seq} cannot be restored: {exc}", severity="error", timeout=10, markup=False)
             return
         self.dismiss(
             RestoreRequest(
@@ -337,7 +341,7 @@ class LogScreen(Screen["RestoreRequest | None"]):
             self.notify(f"Chain intact: {rep.entries} entries. Newest SHA-256 {rep.last_sha256[:16]}…", timeout=8)
         else:
             shown = "\n".join(rep.problems[:6]) + (f"\n… {len(rep.problems) - 6} more" if len(rep.problems) > 6 else "")
-            self.notify(f"Log chain BROKEN:\n{shown}", severity="error", timeout=20)
+            self.notify(f"Log chain BROKEN:\n{shown}", severity="error", timeout=20, markup=False)
 
     def action_back(self) -> None:
         if isinstance(self.focused, Input):

@@ -49,6 +49,7 @@ class LoadingScreen(Screen[None]):
         yield Footer(compact=True, show_command_palette=False)
 
     def on_mount(self) -> None:
+        self.session.defer = lambda flush: self.call_after_refresh(self._flush)
         self.query_one(LoadBoard).focus()
         self.refresh_view()
         self.say("⏎ type an amount · + − nudge · t transfer · ? all keys", ok=None)
@@ -93,6 +94,11 @@ class LoadingScreen(Screen[None]):
         else:
             t.append(f"│ log off: {j.problem or 'no log'}", P["caution"])
         return t
+
+    def _flush(self) -> None:
+        """Save and log the changes just shown (runs after the repaint)."""
+        for p in self.session.flush():
+            self.notify(p, severity="error", timeout=8)
 
     def say(self, message: str, ok: bool | None = True) -> None:
         """The message line: ✔ done, ✖ refused, or a plain hint."""
@@ -352,6 +358,7 @@ class LoadingScreen(Screen[None]):
         self.app.push_screen(HelpScreen())
 
     def action_quit(self) -> None:
+        self._flush()
         self.app.exit()
 
     def on_load_board_cursor_moved(self, event: LoadBoard.CursorMoved) -> None:

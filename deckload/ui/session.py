@@ -97,6 +97,10 @@ class Session:
         """Why the current condition could not be evaluated (outside the tables)."""
         self._undo: list[Step] = []
         self._redo: list[Step] = []
+        self._pending: list[Callable[[], list[str]]] = []
+        self.defer: Callable[[Callable[[], list[str]]], None] | None = None
+        """If set, saving and logging a change is handed to it to run later (the screen runs it
+        right after the repaint, so the key's frame does not wait for fsync); else done at once."""
         self._recompute()
 
     # ------------------------------------------------------------------ queries
@@ -135,7 +139,8 @@ class Session:
 
         Raises :class:`EntryError` (and changes nothing) if the engine rejects the
         condition for any reason other than a displacement outside the tables.
-        Returns problems to report (save or log failures); the change stands.
+        Returns problems to report (save or log failures); the change stands.  With
+        :attr:`defer` set, saving and logging happen later and problems go to its runner.
         """
         if condition == self.condition:
             raise EntryError("No change: the value is the same as before.")
@@ -163,12 +168,13 @@ class Session:
 
     def record(self, by: str, remark: str) -> list[str]:
         """Record the working condition in the log, signed with initials."""
+        problems = self.flush()
         self.journal.officer = by
         err = self.journal.append(
             kind="condition", by=by, change_text=f"condition recorded: {self.condition.name}", remark=remark,
             change_data={}, result=self.result if not self.stale else None, condition=self.condition,
         )
-        return [err] if err else []
+        return problems + ([err] if err else [])
 
     # ------------------------------------------------------------------ internals
 
@@ -196,6 +202,21 @@ class Session:
                evaluated: Result | OutOfRangeError | None = None) -> list[str]:
         self.condition = condition
         self._recompute(evaluated)
+        result = None if self.stale else self.result
+        self._pending.append(lambda: self._persist(condition, kind, label, data, result))
+        if self.defer is None:
+            return self.flush()
+        self.defer(self.flush)
+        return []
+
+    def flush(self) -> list[str]:
+        """Save and log every change not yet written, in order; return the problems met."""
+        problems: list[str] = []
+        while self._pending:
+            problems.extend(self._pending.pop(0)())
+        return problems
+
+    def _persist(self, condition: Condition, kind: str, label: str, data: dict, result: Result | None) -> list[str]:
         problems = []
         if self.save_path is not None and self._save is not None:
             try:
@@ -203,10 +224,7 @@ class Session:
                 self._save(self.save_path, condition)
             except OSError as exc:
                 problems.append(f"Working condition not saved to {self.save_path}: {exc}")
-        err = self.journal.append(
-            kind=kind, change_text=label, change_data=data,
-            result=None if self.stale else self.result, condition=condition,
-        )
+        err = self.journal.append(kind=kind, change_text=label, change_data=data, result=result, condition=condition)
         if err:
             problems.append(err)
         return problems

@@ -137,9 +137,9 @@ def _tank_line(tid, kind_cell, pct, vol, mass, fsm, state, by_rule, kind, cols: 
 
 
 def _cargo_rows(vessel: Vessel, condition: Condition, width: int) -> list[Row]:
-    """Holds, deck loads and constants under one heading, each line tagged with its group."""
+    """Holds, deck loads and constants, each line tagged with its group (no heading: rows are precious)."""
     name_w = max(8, min(30, width - 38))
-    rows = [Row(None, Text(" Holds · deck loads (a adds) · constants (c adds)", P["group"]))]
+    rows: list[Row] = []
     loads = {h.hold_id: h for h in condition.holds}
     for hold in vessel.holds:
         load = loads.get(hold.id)

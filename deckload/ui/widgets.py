@@ -9,7 +9,7 @@ from __future__ import annotations
 from rich.segment import Segment
 from rich.text import Text
 from textual.binding import Binding
-from textual.geometry import Size
+from textual.geometry import Region, Size
 from textual.message import Message
 from textual.scroll_view import ScrollView
 from textual.strip import Strip
@@ -38,9 +38,20 @@ class LinePanel(Widget):
         return self._lines
 
     def set_lines(self, lines: list[Text]) -> None:
-        self._lines = lines
+        """Show ``lines``; only the lines that differ from those shown are repainted."""
+        old, self._lines = self._lines, lines
+        if len(old) != len(lines):
+            self._strips.clear()
+            self.refresh()
+            return
+        width = self.size.width
+        for y, (a, b) in enumerate(zip(old, lines)):
+            if a != b:
+                self._strips.pop(y, None)
+                self.refresh(Region(0, y, width, 1))
+
+    def on_resize(self) -> None:
         self._strips.clear()
-        self.refresh()
 
     def plain(self) -> str:
         return "\n".join(t.plain for t in self._lines)
@@ -50,9 +61,10 @@ class LinePanel(Widget):
         if y >= len(self._lines):
             return Strip.blank(width, self.rich_style)
         strip = self._strips.get(y)
-        if strip is None:
-            strip = self._strips[y] = _strip(self._lines[y], self.app.console)
-        return strip.crop_extend(0, width, None).apply_style(self.rich_style)
+        if strip is None:  # cached finished: cropped to the width and on the panel's own style
+            strip = _strip(self._lines[y], self.app.console).crop_extend(0, width, None).apply_style(self.rich_style)
+            self._strips[y] = strip
+        return strip
 
 
 class SizedPanel(LinePanel):
@@ -67,6 +79,7 @@ class SizedPanel(LinePanel):
         self._redraw()
 
     def on_resize(self) -> None:
+        self._strips.clear()
         self._redraw()
 
     def _redraw(self) -> None:
@@ -128,13 +141,23 @@ class LoadBoard(ScrollView, can_focus=True):
         if self._data is None:
             return
         key = self.cursor_key
-        self._width = max(40, self.scrollable_content_region.width)
-        self.rows = views.board_rows(*self._data, width=self._width)
-        self._strips.clear()
-        self.virtual_size = Size(self._width, len(self.rows))
+        width = max(40, self.scrollable_content_region.width)
+        old, self.rows = self.rows, views.board_rows(*self._data, width=width)
+        if width != self._width or len(old) != len(self.rows):
+            self._width = width
+            self._strips.clear()
+            self.virtual_size = Size(width, len(self.rows))
+            self.refresh()
+        else:  # repaint only the lines that changed
+            self._refresh_rows(i for i, (a, b) in enumerate(zip(old, self.rows)) if a != b)
         if not (key is not None and self.select(key, announce=False)):
             self._set_cursor(self.cursor, announce=key is None)
-        self.refresh()
+
+    def _refresh_rows(self, indices) -> None:
+        top, width = int(self.scroll_offset.y), self.scrollable_content_region.width
+        for i in indices:
+            self._strips.pop(i, None)
+            self.refresh(Region(0, i - top, width, 1))
 
     def action_move(self, delta: int) -> None:
         i = max(0, min(len(self.rows) - 1, self.cursor + delta))
@@ -150,9 +173,7 @@ class LoadBoard(ScrollView, can_focus=True):
         if self.rows and self.rows[i].key is None:  # headings are not selectable
             i = next((j for j in range(i, len(self.rows)) if self.rows[j].key is not None), i)
         old, self.cursor = self.cursor, i
-        self._strips.pop(old, None)
-        self._strips.pop(i, None)
-        self.refresh()
+        self._refresh_rows({old, i})
         top, height = int(self.scroll_offset.y), self.scrollable_content_region.height
         if i < top + (1 if i > 1 else 0):
             self.scroll_to(y=max(0, i - 1), animate=False)
@@ -178,8 +199,7 @@ class LoadBoard(ScrollView, can_focus=True):
         return strip
 
     def on_focus(self) -> None:
-        self._strips.pop(self.cursor, None)
-        self.refresh()
+        self._refresh_rows([self.cursor])
 
     def on_blur(self) -> None:
         self.on_focus()

@@ -51,7 +51,7 @@ def calibrate(body: Body, soundings_m: np.ndarray) -> Calibration:
     im = immerse(body, np.ones_like(s), np.zeros_like(s), level)
     # free surface: limit from above at the bottom, from below at the top
     eps = 1e-9 * max(1.0, zt - zb)
-    surf_level = np.clip(level, zb, zt - eps)
+    surf_level = np.clip(level, zb + eps, zt - eps)
     sf = immerse(body, np.ones_like(s), np.zeros_like(s), surf_level)
     a = sf.wp_area_m2
     with np.errstate(invalid="ignore", divide="ignore"):

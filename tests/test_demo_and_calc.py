@@ -1,0 +1,124 @@
+"""The demo vessel's conditions and the ``deckload calc`` command.
+
+The demo vessel is invented; these tests check that its shipped conditions are what the
+README promises (all pass IS 2008 Part A 2.2, one has a slack tank in its worst band), that
+the browsable copies equal the packaged ones, and that ``calc`` prints what it documents.
+"""
+
+import json
+import subprocess
+import sys
+from pathlib import Path
+
+import pytest
+
+from deckload.cli import main
+from deckload.core.stability import evaluate
+from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
+from deckload.profiles import load_condition, load_profile
+
+ROOT = Path(__file__).resolve().parents[1]
+
+JSON_KEYS = {
+    "displacement_t", "deadweight_t", "lcg_m", "kg_m", "tcg_m", "fsc_m", "kg_fluid_m", "km_m",
+    "gm_solid_m", "gm_fluid_m", "draft_aft_m", "draft_fwd_m", "draft_mean_m", "trim_m", "list_deg",
+    "gz", "criteria", "tanks", "warnings",
+}
+
+
+@pytest.fixture(scope="module")
+def demo():
+    vessel = load_profile(DEMO_PROFILE)
+    return vessel, {k: load_condition(p, vessel) for k, p in DEMO_CONDITIONS.items()}
+
+
+def test_packaged_demo_files_equal_the_browsable_copies():
+    for packaged in [DEMO_PROFILE, *DEMO_CONDITIONS.values()]:
+        browsable = ROOT / "vessel_profiles" / packaged.name
+        assert browsable.read_bytes() == packaged.read_bytes(), packaged.name
+
+
+def test_every_demo_condition_meets_the_criteria(demo):
+    vessel, conditions = demo
+    assert set(conditions) == {"departure", "midvoyage", "arrival"}
+    for name, cond in conditions.items():
+        r = evaluate(vessel, cond)
+        failed = [c.id for c in r.criteria if not c.passed]
+        assert failed == [], f"{name}: {failed}"
+        assert not [w for w in r.warnings if w.severity == "danger"], name
+        assert len(r.criteria) >= 6
+
+
+def test_one_demo_condition_has_a_slack_tank_in_its_worst_band(demo):
+    vessel, conditions = demo
+    banded = {n: [t.id for t in evaluate(vessel, c).tanks if t.state == "worst_band"] for n, c in conditions.items()}
+    assert banded["midvoyage"], banded
+    r = evaluate(vessel, conditions["midvoyage"])
+    assert any(w.code == "slack-worst-band" for w in r.warnings)
+
+
+def test_arrival_has_ten_percent_consumables(demo):
+    vessel, conditions = demo
+    r = evaluate(vessel, conditions["arrival"])
+    consumables = [t for t in r.tanks if t.kind in ("fuel_oil", "diesel", "fresh_water", "lube_oil")]
+    assert consumables and all(abs(t.fill_pct - 10.0) < 1e-9 for t in consumables)
+
+
+def test_midvoyage_ballast_transfer_keeps_the_ballast_mass(demo):
+    """The fore peak's ballast went into the No.3 double-bottom pair: the mass aboard is the same."""
+    vessel, conditions = demo
+    dep = {t.id: t.mass_t for t in evaluate(vessel, conditions["departure"]).tanks if t.kind == "ballast"}
+    mid = {t.id: t.mass_t for t in evaluate(vessel, conditions["midvoyage"]).tanks if t.kind == "ballast"}
+    assert sum(mid.values()) == pytest.approx(sum(dep.values()), rel=0.01)
+    assert mid["FPT"] == 0.0 and dep["FPT"] > 0.0
+
+
+def test_calc_json_has_the_documented_keys(capsys):
+    code = main(["calc", str(DEMO_PROFILE), str(DEMO_CONDITIONS["departure"]), "--json"])
+    assert code == 0
+    data = json.loads(capsys.readouterr().out)
+    assert JSON_KEYS <= set(data)
+    assert data["gz"][0]["heel_deg"] == 0.0
+    assert data["gz"][0]["gz_m"] == pytest.approx(-data["tcg_m"], abs=1e-12)
+    assert {"id", "description", "value", "limit", "pass"} <= set(data["criteria"][0])
+    assert {"id", "fill_pct", "volume_m3", "mass_t", "fsm_tm", "state"} <= set(data["tanks"][0])
+    assert data["kg_fluid_m"] == pytest.approx(data["kg_m"] + data["fsc_m"])
+    assert data["gm_fluid_m"] == pytest.approx(data["km_m"] - data["kg_fluid_m"])
+
+
+def test_calc_text_summary_names_the_criteria_and_the_caution(capsys):
+    assert main(["calc", str(DEMO_PROFILE), str(DEMO_CONDITIONS["midvoyage"])]) == 0
+    out = capsys.readouterr().out
+    assert "IS Code 2008 Part A 2.2.1" in out
+    assert "worst free-surface band" in out
+    assert "never replaces, the approved stability booklet" in out
+
+
+def test_calc_exits_nonzero_with_a_message_on_bad_input(tmp_path, capsys):
+    bad = tmp_path / "bad.condition.toml"
+    bad.write_text('format = "deckload-condition-1"\n[condition]\nname = "x"\n[tanks.NOPE]\npercent = 50\n')
+    code = main(["calc", str(DEMO_PROFILE), str(bad)])
+    err = capsys.readouterr().err
+    assert code != 0
+    assert "bad.condition.toml" in err and "NOPE" in err
+
+
+def test_calc_exits_nonzero_when_displacement_leaves_the_tables(tmp_path, capsys):
+    heavy = tmp_path / "heavy.condition.toml"
+    heavy.write_text(
+        'format = "deckload-condition-1"\n[condition]\nname = "overloaded"\nwater_density_t_m3 = 1.025\n'
+        '[[deck_item]]\nname = "impossible block"\nmass_t = 5000.0\nlcg_m = 17.0\nvcg_m = 5.0\ntcg_m = 0.0\n'
+    )
+    code = main(["calc", str(DEMO_PROFILE), str(heavy)])
+    err = capsys.readouterr().err
+    assert code != 0
+    assert "outside the table range" in err and "heavy.condition.toml" in err
+
+
+def test_console_script_runs_as_a_module():
+    out = subprocess.run(
+        [sys.executable, "-m", "deckload", "calc", str(DEMO_PROFILE), str(DEMO_CONDITIONS["arrival"]), "--json"],
+        capture_output=True, text=True, timeout=60,
+    )
+    assert out.returncode == 0, out.stderr
+    assert json.loads(out.stdout)["condition"].startswith("Arrival")

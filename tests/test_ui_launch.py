@@ -1,0 +1,44 @@
+"""Start-up of the loading screen on the demo vessel: first run, restart, unreadable working file."""
+
+from __future__ import annotations
+
+from deckload import paths
+from deckload.profiles import load_condition, load_profile
+from deckload.ui.launch import create_app, load_inputs
+from deckload.ui.session import working_path
+
+
+async def test_first_run_opens_departure_and_a_restart_restores_the_working_condition(tmp_path, monkeypatch):
+    monkeypatch.setenv("DECKLOAD_LOG_DIR", str(tmp_path / "logs"))
+    work = paths.working_dir()
+    vessel, first, notices = load_inputs(None, None, work)
+    assert first == load_condition(paths.DEMO_CONDITIONS["departure"], vessel) and notices == []
+    app = create_app(vessel, first, work_dir=work, log_dir=paths.log_dir(), officer="TS")
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.press("enter", *"12.5m3", "enter")
+        await pilot.press("plus")
+        await pilot.pause()
+        edited = app.session.condition
+    app.session.journal.logbook.close()
+    assert edited != first
+    _, restored, notices = load_inputs(None, None, work)
+    assert restored == edited and notices == []
+
+
+def test_an_unreadable_working_file_is_set_aside_not_overwritten(tmp_path):
+    vessel = load_profile(paths.DEMO_PROFILE)
+    saved = working_path(tmp_path, vessel)
+    saved.parent.mkdir(parents=True, exist_ok=True)
+    saved.write_text("format = 'deckload-condition-1'\n[tanks.NOPE]\npercent = 50\n")
+    _, condition, notices = load_inputs(None, None, tmp_path)
+    assert condition == load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
+    aside = saved.with_name(saved.name + ".unreadable")
+    assert aside.read_text().startswith("format = 'deckload-condition-1'") and not saved.exists()
+    assert "moved to" in notices[0] and "NOPE" in notices[0]
+
+
+def test_a_condition_argument_wins_over_the_working_file(tmp_path):
+    vessel = load_profile(paths.DEMO_PROFILE)
+    arrival = paths.DEMO_CONDITIONS["arrival"]
+    _, condition, _ = load_inputs(paths.DEMO_PROFILE, arrival, tmp_path)
+    assert condition == load_condition(arrival, vessel)
