@@ -153,16 +153,31 @@ def _solve(f, lo: float, hi: float, tol: float = 1e-9, max_iter: int = 100) -> f
     return x
 
 
-def below(mesh, normal, level: float):
-    """The part of a mesh with normal·p ≤ level (capped, so its volume and centroid are the solid's)."""
+def below(mesh, normal, level: float) -> tuple[float, np.ndarray | None]:
+    """Volume and centroid of the part of a closed mesh with normal·p ≤ level.
+
+    trimesh slices the mesh (without a cap); the volume is then the sum of the signed
+    tetrahedra from a point of the cutting plane to each remaining face (divergence
+    theorem), to which the missing cap adds nothing because it lies in that plane.
+    This avoids triangulating caps that fall apart into several polygons.
+    """
     n = np.asarray(normal, dtype=float)
     n = n / np.linalg.norm(n)
-    return mesh.slice_plane(n * level, -n, cap=True)
+    origin = n * level
+    s = mesh.slice_plane(origin, -n, cap=False)
+    if s is None or len(s.faces) == 0:
+        return 0.0, None
+    tri = s.triangles - origin
+    v6 = np.einsum("ij,ij->i", tri[:, 0], np.cross(tri[:, 1], tri[:, 2]))
+    vol = float(v6.sum()) / 6.0
+    if vol <= 0.0:
+        return 0.0, None
+    cm = (tri.sum(axis=1) / 4.0 * v6[:, None]).sum(axis=0) / v6.sum() + origin
+    return vol, cm
 
 
 def volume_below(mesh, normal, level: float) -> float:
-    s = below(mesh, normal, level)
-    return 0.0 if s is None or len(s.faces) == 0 else float(s.volume)
+    return below(mesh, normal, level)[0]
 
 
 def waterplane_moments(mesh, z: float) -> tuple[float, float, float, float, float]:
@@ -194,9 +209,7 @@ def waterplane_moments(mesh, z: float) -> tuple[float, float, float, float, floa
 
 
 def ref_hydrostatics(mesh, draft_m: float, rho: float, lbp_m: float) -> dict[str, float]:
-    s = below(mesh, [0, 0, 1], draft_m)
-    vol = float(s.volume)
-    cm = s.center_mass
+    vol, cm = below(mesh, [0, 0, 1], draft_m)
     a, xf, _, it, il = waterplane_moments(mesh, draft_m)
     return {
         "displacement_t": rho * vol, "lcb_m": float(cm[0]), "vcb_m": float(cm[2]), "lcf_m": xf,
@@ -226,7 +239,7 @@ def ref_kn(mesh, volume_m3: float, heel_deg: float, trim_basis: str = "even keel
         lev = m.vertices @ n / np.linalg.norm(n)
         level = _solve(lambda c: volume_below(m, n, c) - volume_m3, float(lev.min()), float(lev.max()),
                        tol=1e-9 * volume_m3)
-        return below(m, n, level).center_mass
+        return below(m, n, level)[1]
 
     if trim_basis == "even keel":
         return float(state(0.0)[1]), 0.0
@@ -245,9 +258,8 @@ def ref_tank(mesh, fills_pct, heels_deg, soundings_m):
     cal = []
     for s in soundings_m:
         lvl = min(z0 + s, float(mesh.bounds[1, 2]) - 1e-7)
-        part = below(mesh, [0, 0, 1], lvl) if s > 0 else None
-        v = 0.0 if part is None else float(part.volume)
-        vcg = z0 if part is None else float(part.center_mass[2])
+        v, cm = below(mesh, [0, 0, 1], lvl) if s > 0 else (0.0, None)
+        vcg = z0 if cm is None else float(cm[2])
         _, _, _, it, _ = waterplane_moments(mesh, max(lvl, z0 + 1e-7))
         cal.append((v, vcg, it))
     full = float(mesh.volume)
@@ -261,7 +273,7 @@ def ref_tank(mesh, fills_pct, heels_deg, soundings_m):
             if v <= 0 or f >= 100:
                 continue
             c = _solve(lambda c: volume_below(m, [0, 0, 1], c) - v, float(lev.min()), float(lev.max()), tol=1e-9 * full)
-            cm = below(m, [0, 0, 1], c).center_mass
+            cm = below(m, [0, 0, 1], c)[1]
             if h == 0:
                 up_cm[f] = cm
             y0, z0c = up_cm[f][1], up_cm[f][2]

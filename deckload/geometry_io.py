@@ -21,8 +21,8 @@ from typing import Any
 
 import numpy as np
 
-from deckload.core.geometry.body import Body, immerse
-from deckload.core.geometry.hull import compartment_polygon, compartment_sections, hull_section_at, hull_sections
+from deckload.core.geometry.body import immerse
+from deckload.core.geometry.hull import compartment_body, compartment_polygon, hull_section_at, hull_sections
 from deckload.core.geometry.sections import clip_to_box, polygon_area
 from deckload.core.geometry.spec import (
     COMPARTMENT_SHAPES,
@@ -271,7 +271,7 @@ def parse_geometry(text: str, filename: str = "<geometry>") -> Geometry:
             root_t.bad("station_x_m", data["hull"]["station_x_m"],
                        f"must reach from the AP (x = 0) to the FP (x = lbp_m = {vessel.lbp_m:g})")
     if r.problems:
-        raise GeometryError(r.problems)
+        raise GeometryError(sorted(r.problems, key=lambda p: (p.line is None, p.line or 0)))
     assert vessel is not None and hull is not None and tables is not None
     return Geometry(vessel=vessel, hull=hull, tables=tables, tanks=tuple(tanks), holds=tuple(holds),
                     deck_areas=tuple(areas), openings=tuple(openings))
@@ -462,8 +462,7 @@ def _check_inside(t: _Tab, shape: CompartmentShape, hull: HullOffsets | None) ->
     """A hull-shaped compartment must contain some hull; a box or prism must lie inside it."""
     if hull is None:
         return False
-    xs, y, z = compartment_sections(shape, hull)
-    body = Body(xs, y, z)
+    body = compartment_body(shape, hull)
     vol = float(immerse(body, 1.0, 0.0, body.z_max_m + 1.0).volume_m3)
     if vol <= 0.0:
         t.bad("x_m", t.data.get("x_m"), "the compartment lies outside the hull (no volume between its planes)")

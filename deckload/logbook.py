@@ -435,11 +435,11 @@ def verify_lines(
         chained = e.prev_sha256 == prev_sha
         if e.seq - i != offset:
             offset = e.seq - i
-            before = seqs[-2] if len(seqs) > 1 else 0
-            expected = before + 1 if before is not None else i
+            before = seqs[-2] if len(seqs) > 1 else None
+            where = f"entry #{e.seq} follows entry #{before}" if before else f"entry #{e.seq}, expected #{i}"
             problems.append(
-                f"line {i}: holds entry #{e.seq}, expected #{expected} — an entry was removed, inserted "
-                f"or moved at this point" + ("" if chained else "; the hash chain breaks here too")
+                f"line {i}: {where} — an entry was removed, inserted or moved here"
+                + ("" if chained else "; the hash chain breaks here too")
             )
         elif not chained and i == 1:
             problems.append(

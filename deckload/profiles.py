@@ -492,17 +492,20 @@ class _Tab:
 
     def same_length(self, ref: str, arrays: dict[str, np.ndarray | None]) -> bool:
         """Every array of one table has one value per row of its abscissa ``ref``."""
-        base = arrays.get(ref)
-        if base is None:
-            return False
-        ok = True
+        n = self.raw_len(ref)
+        ok = arrays.get(ref) is not None
         for k, a in arrays.items():
             if a is None:
                 ok = False
-            elif k != ref and len(a) != len(base):
-                self.bad(k, self.data[k], f"has {len(a)} values but {ref} has {len(base)}: one value per row")
+            elif k != ref and n is not None and len(a) != n:
+                self.bad(k, self.data[k], f"has {len(a)} values but {ref} has {n}: one value per row")
                 ok = False
         return ok
+
+    def raw_len(self, k: str) -> int | None:
+        """Number of values written for ``k`` (even if they are wrong), to check other arrays against."""
+        v = self.data.get(k)
+        return len(v) if isinstance(v, list) else None
 
     def matrix(self, k: str, rows_name: str, n_rows: int | None, cols_name: str, n_cols: int | None) -> np.ndarray | None:
         """A 2-D table of finite numbers, one row per ``rows_name`` value, one column per ``cols_name`` value."""
@@ -545,7 +548,7 @@ class _Tab:
         if v is _MISSING:
             return []
         if not isinstance(v, list) or not all(isinstance(t, dict) for t in v):
-            self.bad(k, v, f"must be an array of tables ([[{k}]] sections), not {_toml_type(v)}")
+            self.bad(k, v, f"must be an array of tables ([[{k}]] sections)")
             return []
         return [_Tab(self.ctx, t, self.raw + (k, i), f"{self.key(k)}[#{i + 1}]") for i, t in enumerate(v)]
 
@@ -694,11 +697,7 @@ def _read_cross_curves(root: _Tab) -> m.CrossCurves | None:
     heel = t.increasing("heel_deg", t.array("heel_deg", heel_range))
     heel = t.starts_at("heel_deg", heel, 0.0, "the upright condition")
     disp = t.increasing("displacement_t", t.array("displacement_t", positive))
-    kn = t.matrix(
-        "kn_m",
-        "displacement_t", None if disp is None else len(disp),
-        "heel_deg", None if heel is None else len(heel),
-    )
+    kn = t.matrix("kn_m", "displacement_t", t.raw_len("displacement_t"), "heel_deg", t.raw_len("heel_deg"))
     t.finish()
     if basis is None or heel is None or disp is None or kn is None:
         return None
@@ -945,7 +944,7 @@ def _read_transfer(t: _Tab) -> m.FluidTransfer | None:
         fill = None
     heel = t.increasing("heel_deg", t.array("heel_deg", heel_range))
     heel = t.starts_at("heel_deg", heel, 0.0, "upright")
-    mom = t.matrix("moment_m4", "fill_pct", None if fill is None else len(fill), "heel_deg", None if heel is None else len(heel))
+    mom = t.matrix("moment_m4", "fill_pct", t.raw_len("fill_pct"), "heel_deg", t.raw_len("heel_deg"))
     t.finish()
     if fill is None or heel is None or mom is None:
         return None

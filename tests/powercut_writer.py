@@ -12,6 +12,7 @@ the test can kill 200 writers in well under a minute:
 * ``tear K`` — fork a writer that opens the log, writes the first part of a
   line (or a run of zero bytes) with no line end and kills itself with SIGKILL:
   what a power cut can leave behind when the disk persisted only part of a write.
+  It reports ``torn LEN SHA256`` of the bytes it left.
   (A SIGKILL alone cannot tear a line: the kernel completes a write() to a
   regular file once started.)
 
@@ -22,6 +23,7 @@ child has ended (CODE is negative for a signal).  Lines are written with a singl
 
 from __future__ import annotations
 
+import hashlib
 import os
 import random
 import signal
@@ -86,7 +88,7 @@ def tear(log_dir: Path, rng: random.Random) -> None:
     fd = os.open(book.path, os.O_WRONLY | os.O_APPEND)
     os.write(fd, part)
     os.fsync(fd)
-    say(f"torn {len(part)}")
+    say(f"torn {len(part)} {hashlib.sha256(part).hexdigest()}")
     os.kill(os.getpid(), signal.SIGKILL)
 
 

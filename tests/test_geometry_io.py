@@ -149,3 +149,26 @@ def test_missing_file(tmp_path):
     with pytest.raises(GeometryError) as e:
         load_geometry(tmp_path / "none.geometry.toml")
     assert "cannot read the file" in str(e.value)
+
+
+PRISM = """
+[[tank]]
+id = "W1"
+name = "Wedge"
+kind = "fresh_water"
+density_t_m3 = 1.0
+shape = "prism"
+x_m = [8.0, 12.0]
+section_y_m = [0.0, 2.0, 0.0]
+section_z_m = [0.5, 1.5, 1.5]
+"""
+
+
+def test_prism_tank_inside_and_outside():
+    g = parse_geometry(SMALL + PRISM, "ok.toml")
+    w = g.tanks[-1]
+    assert w.shape.shape == "prism" and list(w.shape.section_y_m) == [0.0, 2.0, 0.0]
+    got = problems(SMALL + PRISM.replace("section_y_m = [0.0, 2.0, 0.0]", "section_y_m = [0.0, 4.0, 0.0]"))
+    assert any("tank[W1].section_y_m" in p and "sticks out of the hull" in p for p in got), got
+    got = problems(SMALL + PRISM.replace('shape = "prism"', 'shape = "prism"\ny_m = [0.0, 1.0]'))
+    assert any("tank[W1].y_m = [0, 1]: not used by a prism" in p for p in got), got

@@ -10,7 +10,6 @@ from __future__ import annotations
 
 from pathlib import Path
 
-import numpy as np
 import pytest
 
 from deckload.check_command import run_check
@@ -397,17 +396,33 @@ def test_check_does_not_read_a_condition_against_a_broken_profile(tmp_path, caps
 
 # --------------------------------------------------------------------------- the demo vessel
 
-DEMO = HERE.parent / "vessel_profiles" / "demo_islander.toml"
+DEMO_DIRS = [HERE.parent / "vessel_profiles", HERE.parent / "deckload" / "data"]
+DEMO_CONDITIONS = ("departure", "midvoyage", "arrival")
 
 
-@pytest.mark.skipif(not DEMO.exists(), reason="demo profile not generated yet")
-def test_demo_profile_loads_and_checks(capsys):
-    v = load_profile(DEMO)
+@pytest.mark.parametrize("folder", DEMO_DIRS, ids=["vessel_profiles", "package_data"])
+def test_demo_profile_loads_and_checks(folder, capsys):
+    demo = folder / "demo_islander.toml"
+    v = load_profile(demo)
     assert v.particulars.name == "Demo Islander"
     assert 20 <= len(v.tanks) <= 30
-    for t in v.tanks:
-        assert np.all(np.diff(t.calibration.volume_m3) > 0)
-    assert run_check(DEMO) == 0
+    assert run_check(demo) == 0
+    for name in DEMO_CONDITIONS:
+        cond = folder / f"demo_islander.{name}.condition.toml"
+        assert run_check(demo, cond) == 0, capsys.readouterr().out
+        out = capsys.readouterr().out
+        assert f"OK  {cond}:" in out
+
+
+@pytest.mark.parametrize("name", DEMO_CONDITIONS)
+def test_demo_conditions_round_trip(name):
+    from deckload.profiles import dump_condition, load_condition, parse_condition
+
+    folder = DEMO_DIRS[0]
+    v = load_profile(folder / "demo_islander.toml")
+    c = load_condition(folder / f"demo_islander.{name}.condition.toml", v)
+    assert c.tanks, "a demo condition with no tank contents tests nothing"
+    assert parse_condition(dump_condition(c), "rt.toml", v) == c
 
 
 def test_hold_fill_table_must_cover_empty_to_full():
@@ -453,3 +468,13 @@ def test_cli_check_uses_this_validator(tmp_path, capsys):
     f.write_text(edit(BASE, "lbp_m = 40.0", "lbp_m = -40.0"), encoding="utf-8")
     assert main(["check", str(f)]) == 1
     assert "vessel.lbp_m = -40.0: must be greater than 0" in capsys.readouterr().out
+
+
+def test_length_is_checked_even_when_the_abscissa_is_also_wrong():
+    text = edit(BASE, "draft_m = [0.5, 1.0, 1.5, 2.0,", "draft_m = [0.5, 1.0, 1.0, 2.0,")
+    text = edit(text, "tpc_t_cm = [4.1, 4.1, 4.1, 4.1, 4.1, 4.1, 4.1]", "tpc_t_cm = [4.1, 4.1]")
+    ps = problems(text)
+    assert [(p.key, p.rule) for p in ps] == [
+        ("hydrostatics.draft_m", "not strictly increasing (row 3: 1.0 after 1.0)"),
+        ("hydrostatics.tpc_t_cm", "has 2 values but draft_m has 7: one value per row"),
+    ]

@@ -25,14 +25,20 @@ class DeckloadApp(App[None]):
         self.session = session
         self.notices = tuple(notices)
         self.loading_screen = LoadingScreen(session)
+        self._quit_warned = False
 
     def get_default_screen(self) -> Screen:
         return self.loading_screen
 
     async def action_quit(self) -> None:
-        """Any way out (ctrl+q too) first writes changes not yet saved."""
-        for p in self.session.flush():
-            print(f"deckload: {p}")
+        """Any way out (ctrl+q too) first writes changes not yet saved; a failure is shown, and
+        asking again leaves anyway."""
+        problems = self.session.flush()
+        if problems and not self._quit_warned:
+            self._quit_warned = True
+            for p in problems:
+                self.notify(p + " — quit again to leave anyway", severity="error", timeout=15)
+            return
         await super().action_quit()
 
     def on_unmount(self) -> None:
@@ -45,7 +51,7 @@ class DeckloadApp(App[None]):
     def get_system_commands(self, screen: Screen) -> Iterable[SystemCommand]:
         """The command palette lists every command from the one table, with its key."""
         for c in COMMANDS:
-            yield SystemCommand(f"{c.label} [{c.key_text}]", c.help, partial(self._run, c.action))
+            yield SystemCommand(f"{c.name}  (key {c.key_text})", c.help, partial(self._run, c.action))
         yield from super().get_system_commands(screen)
 
     async def _run(self, action: str) -> None:

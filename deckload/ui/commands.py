@@ -23,6 +23,12 @@ class Command:
     """How the key is written in the footer and help, when not the key's own name."""
     footer: bool = True
     """Shown in the footer (all commands are in help and the palette)."""
+    title: str = ""
+    """Name in the command palette and help, when the footer label is too terse."""
+
+    @property
+    def name(self) -> str:
+        return self.title or self.label
 
     @property
     def key_text(self) -> str:
@@ -32,23 +38,27 @@ class Command:
 COMMANDS: tuple[Command, ...] = (
     Command("set_amount", "enter", "Set", "Type an amount for the line under the cursor: tank 55% / 12.5m3 / 10t / "
             "1.2m (sounding); hold mass in t; a deck load or constant opens its form (mass, position).",
-            display="⏎"),
+            display="⏎", title="Set amount"),
     Command("nudge(1)", "plus,equals_sign", "±1%", "Raise the tank under the cursor by 1 % of capacity "
-            "(a hold or item by 1 t).", display="+ -"),
+            "(a hold or item by 1 t).", display="+ -", title="Raise 1 %"),
     Command("nudge(-1)", "minus", "−1%", "Lower the tank under the cursor by 1 % of capacity (a hold or item by 1 t).",
-            display="-", footer=False),
+            display="-", footer=False, title="Lower 1 %"),
     Command("fill", "f", "Full", "Fill the tank under the cursor to 100 %."),
     Command("empty", "e", "Empty", "Empty the tank or hold under the cursor; remove the deck load or constant."),
     Command("transfer", "t", "Transfer", "Pump between two tanks, with a before/after preview; commit is one undoable step."),
-    Command("add_deck", "a", "+Deck", "Add a deck load: name, mass and position (LCG, VCG, TCG), optional deck area."),
-    Command("add_constant", "c", "+Const", "Add a constant (crew, stores, provisions): name, mass and position."),
-    Command("density", "d", "ρ", "Set the density of the water she floats in (t/m³)."),
+    Command("add_deck", "a", "+Deck", "Add a deck load: name, mass and position (LCG, VCG, TCG), optional deck area.",
+            title="Add deck load"),
+    Command("add_constant", "c", "+Const", "Add a constant (crew, stores, provisions): name, mass and position.",
+            title="Add constant"),
+    Command("density", "d", "ρ", "Set the density of the water she floats in (t/m³).", title="Water density"),
     Command("undo", "u,ctrl+z", "Undo", "Undo the last change."),
     Command("redo", "y,ctrl+y", "Redo", "Redo the last undone change."),
-    Command("toggle_gz", "g", "GZ", "Show the GZ curve or the numbers (only below 110 columns, where both do not fit)."),
-    Command("alerts", "w", "Warn", "List every warning, when more are raised than the warning strip can show."),
+    Command("toggle_gz", "g", "GZ", "Show the GZ curve or the numbers (only below 110 columns, where both do not fit).",
+            title="GZ curve or numbers"),
+    Command("alerts", "w", "Warn", "List every warning, when more are raised than the warning strip can show.",
+            title="All warnings"),
     Command("sign_on", "o", "Watch", "Sign on as officer of the watch (initials): every change is then written "
-            "to the voyage log under them."),
+            "to the voyage log under them.", title="Sign on"),
     Command("record", "s", "Record", "Record the working condition in the voyage log, with your initials and a remark."),
     Command("show_log", "l", "Log", "Open the voyage log."),
     Command("help", "question_mark,f1", "Help", "This list of keys and what each does.", display="?"),

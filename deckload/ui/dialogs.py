@@ -154,7 +154,8 @@ class TransferForm(Form):
             yield Static("", id="form-message")
 
     def on_mount(self) -> None:
-        self.query_one("#xfer-amount" if self._from and self._to else "#xfer-from", Input).focus()
+        first_empty = "from" if not self._from else "to" if not self._to else "amount"
+        self.query_one(f"#xfer-{first_empty}", Input).focus()
         self._update()
 
     def on_input_changed(self, event: Input.Changed) -> None:
@@ -270,7 +271,7 @@ def help_page() -> Group:
     keys.add_column(style=P["group"])
     keys.add_column(style=P["label"], ratio=1)
     for c in COMMANDS:
-        keys.add_row(c.key_text, c.label, c.help)
+        keys.add_row(c.key_text, c.name, c.help)
     notes = Text("\n" + "\n".join(f"{k}: {what}" for k, what in NAVIGATION), P["label"])
     notes.append("\nTank marks: " + views.LEGEND + ".  Criteria: ok, NEAR (margin under 10 % of the limit), "
                  "FAIL.\nAmounts: 55% · 12.5m3 · 10t · 1.2m (sounding).  Nothing is extrapolated outside the "

@@ -228,8 +228,11 @@ class ItemForm:
     area: str = ""
 
 
-def item_from_form(vessel: Vessel, form: ItemForm, *, deck: bool) -> MassItem:
+def item_from_form(vessel: Vessel, form: ItemForm, *, deck: bool, base: MassItem | None = None) -> MassItem:
     """A deck item (``deck=True``) or constant from the dialog's fields, every field checked.
+
+    ``base``: the item being edited; what the form does not show (a deck item's
+    footprint) is kept from it.
 
     Positions must lie within the vessel's envelope: x from −0.2·LBP to 1.2·LBP,
     |y| ≤ B/2, z from 0 to depth + 30 m (room for masts and deck stows).
@@ -248,7 +251,8 @@ def item_from_form(vessel: Vessel, form: ItemForm, *, deck: bool) -> MassItem:
     if area is not None and area not in vessel.area_index:
         known = ", ".join(vessel.area_index) or "none"
         raise EntryError(f"Deck area {area!r} is not one of this vessel's deck areas ({known}).")
-    return DeckItem(name, mass, lcg, vcg, tcg, area_id=area)
+    footprint = getattr(base, "footprint_m2", None)
+    return DeckItem(name, mass, lcg, vcg, tcg, area_id=area, footprint_m2=footprint)
 
 
 def form_of(item: MassItem) -> ItemForm:

@@ -8,6 +8,7 @@ shows either the numbers or the GZ curve (key g).
 
 from __future__ import annotations
 
+import asyncio
 import dataclasses
 
 from rich.text import Text
@@ -37,7 +38,7 @@ class LoadingScreen(Screen[None]):
         self.session = session
 
     def compose(self) -> ComposeResult:
-        yield LinePanel(id="titlebar")
+        yield SizedPanel(id="titlebar")
         yield SizedPanel(id="alerts")
         with Horizontal(id="body"):
             yield LoadBoard(id="board")
@@ -49,7 +50,8 @@ class LoadingScreen(Screen[None]):
         yield Footer(compact=True, show_command_palette=False)
 
     def on_mount(self) -> None:
-        self.session.defer = lambda flush: self.call_after_refresh(self._flush)
+        loop = asyncio.get_running_loop()
+        self.session.write_in_background(lambda p: loop.call_soon_threadsafe(self._report, p))
         self.query_one(LoadBoard).focus()
         self.refresh_view()
         self.say("⏎ type an amount · + − nudge · t transfer · ? all keys", ok=None)
@@ -79,26 +81,25 @@ class LoadingScreen(Screen[None]):
         self.query_one("#gz", SizedPanel).show(
             lambda w, h: [views.gz_caption(r), *views.gz_chart(r, stale, w - 1, h - 1).lines()]
         )
-        self.query_one("#titlebar", LinePanel).set_lines([self._title()])
+        self.query_one("#titlebar", SizedPanel).show(lambda w, h: [self._title(w)])
 
-    def _title(self) -> Text:
-        s = self.session
-        t = Text(" deckload ", P["title"])
-        t.append(f"│ {s.vessel.particulars.name} │ {s.condition.name} ", P["value"])
-        t.append(f"│ undo {s.undo_depth} redo {s.redo_depth} ", P["dim"])
-        j = s.journal
+    def _title(self, width: int) -> Text:
+        """Vessel, condition, whether changes are logged, undo depth; shortened on narrow screens."""
+        s, j = self.session, self.session.journal
+        wide = width >= NARROW_BELOW
+        t = Text(" deckload │ " if wide else " ", P["title"])
+        t.append(f"{s.vessel.particulars.name} │ {s.condition.name} │ ", P["value"])
         if j.writable and j.officer:
-            t.append(f"│ watch {j.officer}, changes logged", P["dim"])
+            t.append(f"watch {j.officer}, logged" if wide else f"{j.officer} logged", P["dim"])
         elif j.writable:
-            t.append("│ changes NOT logged: o to sign on", P["caution"])
+            t.append("changes NOT logged: o to sign on" if wide else "NOT logged (o)", P["caution"])
         else:
-            t.append(f"│ log off: {j.problem or 'no log'}", P["caution"])
+            t.append(f"log off: {j.problem or 'no log'}" if wide else "log off", P["caution"])
+        t.append(f" │ undo {s.undo_depth} redo {s.redo_depth}", P["dim"])
         return t
 
-    def _flush(self) -> None:
-        """Save and log the changes just shown (runs after the repaint)."""
-        for p in self.session.flush():
-            self.notify(p, severity="error", timeout=8)
+    def _report(self, problem: str) -> None:
+        self.notify(problem, severity="error", timeout=8)
 
     def say(self, message: str, ok: bool | None = True) -> None:
         """The message line: ✔ done, ✖ refused, or a plain hint."""
@@ -195,7 +196,7 @@ class LoadingScreen(Screen[None]):
         form = entry.form_of(items[index]) if index is not None else ItemForm("", "", "", "", "0", "")
 
         def build(f: ItemForm) -> tuple[Condition, str]:
-            item = entry.item_from_form(s.vessel, f, deck=deck)
+            item = entry.item_from_form(s.vessel, f, deck=deck, base=items[index] if index is not None else None)
             return self._with_items(deck, entry.replace_at(items, at, item)), item.name
 
         title = f"{'Edit' if index is not None else 'Add'} {noun}"
@@ -357,9 +358,8 @@ class LoadingScreen(Screen[None]):
     def action_help(self) -> None:
         self.app.push_screen(HelpScreen())
 
-    def action_quit(self) -> None:
-        self._flush()
-        self.app.exit()
+    async def action_quit(self) -> None:
+        await self.app.action_quit()
 
     def on_load_board_cursor_moved(self, event: LoadBoard.CursorMoved) -> None:
         what, ident = event.key or (None, None)

@@ -97,10 +97,9 @@ class Session:
         """Why the current condition could not be evaluated (outside the tables)."""
         self._undo: list[Step] = []
         self._redo: list[Step] = []
-        self._pending: list[Callable[[], list[str]]] = []
-        self.defer: Callable[[Callable[[], list[str]]], None] | None = None
-        """If set, saving and logging a change is handed to it to run later (the screen runs it
-        right after the repaint, so the key's frame does not wait for fsync); else done at once."""
+        self._writer = None
+        self._jobs: list = []
+        self._report: Callable[[str], None] = lambda problem: None
         self._recompute()
 
     # ------------------------------------------------------------------ queries
@@ -129,7 +128,7 @@ class Session:
         """Evaluate a candidate condition without keeping it: (result, problem)."""
         try:
             return self._evaluate(self.vessel, condition), None
-        except OutOfRangeError as exc:
+        except (OutOfRangeError, ValueError, KeyError) as exc:
             return None, str(exc)
 
     # ------------------------------------------------------------------ changes
@@ -139,8 +138,8 @@ class Session:
 
         Raises :class:`EntryError` (and changes nothing) if the engine rejects the
         condition for any reason other than a displacement outside the tables.
-        Returns problems to report (save or log failures); the change stands.  With
-        :attr:`defer` set, saving and logging happen later and problems go to its runner.
+        Returns problems to report (save or log failures); the change stands.  After
+        :meth:`write_in_background`, saving and logging happen on the writer thread instead.
         """
         if condition == self.condition:
             raise EntryError("No change: the value is the same as before.")
@@ -203,18 +202,31 @@ class Session:
         self.condition = condition
         self._recompute(evaluated)
         result = None if self.stale else self.result
-        self._pending.append(lambda: self._persist(condition, kind, label, data, result))
-        if self.defer is None:
-            return self.flush()
-        self.defer(self.flush)
+        if self._writer is None:
+            return self._persist(condition, kind, label, data, result)
+        self._jobs.append(self._writer.submit(self._persist_reporting, condition, kind, label, data, result))
         return []
 
+    def write_in_background(self, report: Callable[[str], None]) -> None:
+        """Save and log each change on one writer thread, in order, so a key's repaint never
+        waits for fsync; ``report`` receives each problem (it is called on that thread)."""
+        from concurrent.futures import ThreadPoolExecutor
+
+        self._report = report
+        self._writer = ThreadPoolExecutor(max_workers=1, thread_name_prefix="deckload-writer")
+
     def flush(self) -> list[str]:
-        """Save and log every change not yet written, in order; return the problems met."""
+        """Wait until every change is saved and logged; problems not yet reported are returned."""
         problems: list[str] = []
-        while self._pending:
-            problems.extend(self._pending.pop(0)())
+        while self._jobs:
+            problems.extend(self._jobs.pop(0).result())
         return problems
+
+    def _persist_reporting(self, *args) -> list[str]:
+        problems = self._persist(*args)
+        for p in problems:
+            self._report(p)
+        return []
 
     def _persist(self, condition: Condition, kind: str, label: str, data: dict, result: Result | None) -> list[str]:
         problems = []

@@ -7,6 +7,7 @@ rows here); these widgets only turn a few dozen ready-made Texts into strips.
 from __future__ import annotations
 
 from rich.segment import Segment
+from rich.style import Style
 from rich.text import Text
 from textual.binding import Binding
 from textual.geometry import Region, Size
@@ -190,8 +191,9 @@ class LoadBoard(ScrollView, can_focus=True):
         strip = self._strips.get(idx)
         if strip is None:
             strip = _strip(self.rows[idx].text, self.app.console).crop_extend(0, width, None)
-            if idx == self.cursor and self.has_focus:
-                strip = strip.apply_style(self.get_component_rich_style("board--cursor"))
+            if idx == self.cursor and self.has_focus:  # the cursor's colours win over the line's own
+                cursor = self.get_component_rich_style("board--cursor")
+                strip = Strip([Segment(seg.text, (seg.style or Style()) + cursor) for seg in strip], width)
             elif idx == self.cursor:
                 strip = Strip.join([Strip([Segment("›")], 1), strip.crop(1, width)])
             strip = strip.apply_style(self.rich_style)

@@ -11,7 +11,7 @@ trapezoidal rule; :attr:`Body.rule` says which).
 
 from __future__ import annotations
 
-from dataclasses import dataclass, field
+from dataclasses import dataclass
 
 import numpy as np
 
@@ -26,15 +26,16 @@ class Body:
     """Section vertices y (m), shape (stations, vertices), counter-clockwise."""
     z_m: np.ndarray
     """Section vertices z (m), same shape."""
-    weights: np.ndarray = field(init=False)
-    """Integration weights along x."""
-    rule: str = field(init=False)
-    """'simpson' or 'trapezoid'."""
+    weights: np.ndarray | None = None
+    """Integration weights along x; by default from :func:`simpson_weights`."""
+    rule: str = ""
+    """'simpson', 'trapezoid', or the rule that came with given weights."""
 
     def __post_init__(self) -> None:
-        w, rule = simpson_weights(self.x_m)
-        object.__setattr__(self, "weights", w)
-        object.__setattr__(self, "rule", rule)
+        if self.weights is None:
+            w, rule = simpson_weights(self.x_m)
+            object.__setattr__(self, "weights", w)
+            object.__setattr__(self, "rule", rule)
 
     @property
     def z_min_m(self) -> float:
@@ -54,7 +55,7 @@ class Body:
 
     def mirrored(self) -> "Body":
         """The same body reflected in the centreline plane (y → −y), still counter-clockwise."""
-        return Body(self.x_m, -self.y_m[:, ::-1], self.z_m[:, ::-1])
+        return Body(self.x_m, -self.y_m[:, ::-1], self.z_m[:, ::-1], self.weights, self.rule)
 
     def zeta_range(self, cos_t: np.ndarray, sin_t: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
         """Lowest and highest ζ of each station's vertices, for heels (...): shapes (..., S)."""
@@ -175,8 +176,8 @@ def level_for_volume(
     scale = max(float(np.max(np.abs(target))), 1e-12)
     # the ends are known exactly: nothing below the lowest vertex, everything below the highest
     v_max = immerse(body, cos_t, sin_t, hi, t, x_ref_m).volume_m3
-    at_lo = target <= 0.0
-    at_hi = target >= v_max
+    at_lo = target <= 1e-13 * scale
+    at_hi = target >= v_max - 1e-12 * scale  # round-off must not leave a full body to bisection
     if c_start is None:
         with np.errstate(invalid="ignore", divide="ignore"):
             frac = np.clip(np.where(v_max > 0.0, target / v_max, 0.5), 0.0, 1.0)

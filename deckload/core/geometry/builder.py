@@ -13,7 +13,7 @@ import numpy as np
 
 from deckload.core.geometry.body import Body, immerse
 from deckload.core.geometry.cross_curves import CrossCurveResult, cross_curves, immersion_angle
-from deckload.core.geometry.hull import compartment_sections, hull_sections, offsets_at
+from deckload.core.geometry.hull import compartment_body, hull_sections, offsets_at
 from deckload.core.geometry.hydrostatics_calc import UprightHydrostatics, upright_hydrostatics
 from deckload.core.geometry.sections import simpson_weights
 from deckload.core.geometry.spec import DeckAreaSpec, Geometry, HoldSpec, TankSpec
@@ -86,8 +86,7 @@ def hull_body(geometry: Geometry) -> Body:
 
 
 def tank_tables(spec: TankSpec, geometry: Geometry, heel_deg: np.ndarray) -> TankTables:
-    xs, y, z = compartment_sections(spec.shape, geometry.hull)
-    body = Body(xs, y, z)
+    body = compartment_body(spec.shape, geometry.hull)
     height = body.z_max_m - body.z_min_m
     cal = calibrate(body, sounding_levels(height, geometry.tables.sounding_step_m))
     step = geometry.tables.transfer_fill_step_pct
@@ -98,8 +97,7 @@ def tank_tables(spec: TankSpec, geometry: Geometry, heel_deg: np.ndarray) -> Tan
 
 
 def hold_tables(spec: HoldSpec, geometry: Geometry) -> HoldTables:
-    xs, y, z = compartment_sections(spec.shape, geometry.hull)
-    body = Body(xs, y, z)
+    body = compartment_body(spec.shape, geometry.hull)
     fills = np.linspace(0.0, 100.0, 11)
     lcg, vcg, tcg, full = fill_centroids(body, fills)
     return HoldTables(spec, full, float(lcg[-1]), float(vcg[-1]), float(tcg[-1]), fills, lcg, vcg)

@@ -156,9 +156,9 @@ def immersion_angle(
     Heel is taken towards the point's side (the hull is symmetric).  The point is
     immersed when its ζ reaches the level of its station,
     ζ_p = c0 − (x_p − x_ref)·tan ψ, with the hull floating at the same equilibrium
-    as the cross curves (same trim basis and reference centre).  Found by
-    bisection on the heel (40 halvings of 90°: about 1e-10°); returns
-    ``max_heel_deg`` for a point still dry there.
+    as the cross curves (same trim basis and reference centre).  Found by the
+    Illinois variant of regula falsi on the heel, to 1e-10 m of the margin or 1e-9°;
+    returns ``max_heel_deg`` for a point still dry there.
     """
     x_p, y_p, z_p = point_m
     y_side = abs(y_p)
@@ -182,11 +182,24 @@ def immersion_angle(
         raise ValueError(f"the opening is under water upright at displacement {disp[i]:.1f} t")
     lo = np.zeros_like(disp)
     hi = np.full_like(disp, max_heel_deg)
-    dry_at_max = margin(hi) > 0.0
+    f_lo = m0
+    f_hi = margin(hi)
+    dry_at_max = f_hi > 0.0
     state["c"], state["t"] = None, None
-    for _ in range(40):
-        mid = 0.5 * (lo + hi)
-        m = margin(mid)
-        lo = np.where(m > 0.0, mid, lo)
-        hi = np.where(m > 0.0, hi, mid)
-    return np.where(dry_at_max, max_heel_deg, 0.5 * (lo + hi))
+    side = np.zeros_like(disp)
+    x = 0.5 * (lo + hi)
+    for _ in range(60):
+        # Illinois regula falsi on the margin (dry > 0), bracket kept (Dowell & Jarratt 1971)
+        with np.errstate(invalid="ignore", divide="ignore"):
+            x = np.where(f_lo != f_hi, (lo * f_hi - hi * f_lo) / (f_hi - f_lo), 0.5 * (lo + hi))
+        x = np.where((x > lo) & (x < hi), x, 0.5 * (lo + hi))
+        m = margin(x)
+        dry = m > 0.0
+        lo, f_lo = np.where(dry, x, lo), np.where(dry, m, f_lo)
+        hi, f_hi = np.where(dry, hi, x), np.where(dry, f_hi, m)
+        f_hi = np.where(dry & (side > 0), 0.5 * f_hi, f_hi)
+        f_lo = np.where(~dry & (side < 0), 0.5 * f_lo, f_lo)
+        side = np.where(dry, 1.0, -1.0)
+        if np.all((np.abs(m) < 1e-10) | (hi - lo < 1e-9) | dry_at_max):
+            break
+    return np.where(dry_at_max, max_heel_deg, x)

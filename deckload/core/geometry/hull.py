@@ -16,6 +16,7 @@ from __future__ import annotations
 
 import numpy as np
 
+from deckload.core.geometry.body import Body
 from deckload.core.geometry.sections import clip_to_box, pad_polygons, polygon_area
 from deckload.core.geometry.spec import CompartmentShape, HullOffsets
 
@@ -64,20 +65,32 @@ def hull_section_at(hull: HullOffsets, x_m: float) -> tuple[np.ndarray, np.ndarr
     return section_polygon(hull.waterline_z_m, hb, deck)
 
 
-def compartment_stations(shape: CompartmentShape, max_spacing_m: float = 0.25) -> np.ndarray:
-    """Sub-stations along a compartment: an odd count, equally spaced (Simpson applies).
+def compartment_stations(shape: CompartmentShape, hull: HullOffsets | None = None) -> tuple[np.ndarray, np.ndarray, str]:
+    """Sub-stations along a compartment and their integration weights.
 
-    Boxes and prisms have one section all along, so three stations integrate them
-    exactly; hull-shaped compartments get spacing ≤ ``max_spacing_m``.
+    Boxes and prisms have one section all along: three stations and Simpson's rule
+    integrate them exactly.  A hull-shaped compartment is cut at every hull station
+    inside it, and each piece is integrated by Simpson's rule on its ends and
+    midpoint (weights h/6·(1, 4, 1)): between hull stations the offsets are linear in
+    x, so the section properties are smooth there and the kinks fall on piece ends.
     """
-    length = shape.x_to_m - shape.x_from_m
-    if shape.shape in ("box", "prism"):
-        n = 3
-    else:
-        n = max(5, int(np.ceil(length / max_spacing_m)) + 1)
-        if n % 2 == 0:
-            n += 1
-    return np.linspace(shape.x_from_m, shape.x_to_m, n)
+    if shape.shape in ("box", "prism") or hull is None:
+        xs = np.linspace(shape.x_from_m, shape.x_to_m, 3)
+        h = (shape.x_to_m - shape.x_from_m) / 2.0
+        return xs, np.array([h / 3.0, 4.0 * h / 3.0, h / 3.0]), "simpson"
+    st = hull.station_x_m
+    inner = st[(st > shape.x_from_m + 1e-9) & (st < shape.x_to_m - 1e-9)]
+    ends = np.concatenate([[shape.x_from_m], inner, [shape.x_to_m]])
+    mids = 0.5 * (ends[:-1] + ends[1:])
+    xs = np.empty(2 * len(ends) - 1)
+    xs[0::2] = ends
+    xs[1::2] = mids
+    w = np.zeros(len(xs))
+    seg = np.diff(ends) / 6.0
+    w[0:-1:2] += seg
+    w[1::2] += 4.0 * seg
+    w[2::2] += seg
+    return xs, w, "simpson between hull stations"
 
 
 def compartment_polygon(shape: CompartmentShape, hull: HullOffsets | None, x_m: float) -> tuple[np.ndarray, np.ndarray]:
@@ -99,10 +112,16 @@ def compartment_polygon(shape: CompartmentShape, hull: HullOffsets | None, x_m: 
 
 
 def compartment_sections(
-    shape: CompartmentShape, hull: HullOffsets | None, max_spacing_m: float = 0.25
-) -> tuple[np.ndarray, np.ndarray, np.ndarray]:
-    """Stations and padded section polygons (x (n,), y (n, V), z (n, V)) of a compartment."""
-    xs = compartment_stations(shape, max_spacing_m)
+    shape: CompartmentShape, hull: HullOffsets | None
+) -> tuple[np.ndarray, np.ndarray, np.ndarray, np.ndarray, str]:
+    """Stations, padded section polygons and integration weights of a compartment:
+    (x (n,), y (n, V), z (n, V), weights (n,), rule)."""
+    xs, w, rule = compartment_stations(shape, hull)
     polys = [compartment_polygon(shape, hull, float(x)) for x in xs]
     y, z = pad_polygons(polys)
-    return xs, y, z
+    return xs, y, z, w, rule
+
+
+def compartment_body(shape: CompartmentShape, hull: HullOffsets | None) -> Body:
+    """A compartment as a :class:`Body` ready for calibration and fluid transfer."""
+    return Body(*compartment_sections(shape, hull))

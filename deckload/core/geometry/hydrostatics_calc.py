@@ -23,7 +23,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from deckload.core.geometry.body import Body, immerse
+from deckload.core.geometry.body import Body, immerse, level_for_volume
 
 
 @dataclass(frozen=True, eq=False)
@@ -82,7 +82,5 @@ def upright_hydrostatics(
 
 def draft_for_volume(body: Body, volume_m3: np.ndarray) -> np.ndarray:
     """Even-keel upright draft at which the hull displaces ``volume_m3``."""
-    from deckload.core.geometry.body import level_for_volume
-
     v = np.asarray(volume_m3, dtype=float)
     return level_for_volume(body, np.ones_like(v), np.zeros_like(v), v)

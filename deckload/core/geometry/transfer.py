@@ -39,15 +39,20 @@ def transfer_moments(body: Body, fill_pct: np.ndarray, heel_deg: np.ndarray) -> 
     f = np.asarray(fill_pct, dtype=float)
     h = np.asarray(heel_deg, dtype=float)
     full = float(immerse(body, 1.0, 0.0, body.z_max_m).volume_m3)
-    v = np.broadcast_to((f / 100.0 * full)[:, None], (len(f), len(h)))
+    vf = f / 100.0 * full
+    v = np.broadcast_to(vf[:, None], (len(f), len(h)))
     th = np.broadcast_to(np.radians(h)[None, :], v.shape)
     ct = np.where(np.abs(np.cos(th)) < 1e-15, 0.0, np.cos(th))
     st = np.sin(th)
-    c = level_for_volume(body, ct, st, v)
+    # upright first: its level and surface centroid give the heeled start, exact while the
+    # surface pivots about its own centroid (wall-sided), so Newton has little left to do
+    z_up = level_for_volume(body, np.ones(len(f)), np.zeros(len(f)), vf)
+    up = immerse(body, 1.0, 0.0, z_up)
+    with np.errstate(invalid="ignore", divide="ignore"):
+        y_s = np.where(up.wp_area_m2 > 0.0, up.wp_eta_m3 / np.where(up.wp_area_m2 > 0.0, up.wp_area_m2, 1.0), 0.0)
+    c_start = z_up[:, None] * ct - y_s[:, None] * st
+    c = level_for_volume(body, ct, st, v, c_start=c_start)
     im = immerse(body, ct, st, c)
-    # upright centroid (θ = 0 column of the same solve, computed separately in case 0° is absent)
-    c0 = level_for_volume(body, np.ones(len(f)), np.zeros(len(f)), v[:, 0])
-    up = immerse(body, 1.0, 0.0, c0)
     y0 = up.eta_b_m[:, None]
     z0 = up.zeta_b_m[:, None]
     eta0 = y0 * ct + z0 * st
@@ -60,12 +65,14 @@ def transfer_moments(body: Body, fill_pct: np.ndarray, heel_deg: np.ndarray) -> 
 def worst_band(body: Body, heel_deg: float = 30.0, within: float = 0.10, step_pct: float = 1.0) -> tuple[float, float]:
     """The fill band (%) in which M(θ = 30°) is within 10 % of its maximum (module docstring).
 
-    Both heeling directions are tried (the tank and its mirror image heeled to
-    starboard) and the one with the larger maximum governs, so a port tank and its
-    starboard partner get the same band.
+    Both heeling directions are tried and the one with the larger maximum governs,
+    so a port tank and its starboard partner (mirror images) get the same band.
     """
     f = np.arange(0.0, 100.0 + step_pct / 2, step_pct)
-    curves = [transfer_moments(b, f, np.array([heel_deg])).moment_m4[:, 0] for b in (body, body.mirrored())]
+    # heeled to port the tank behaves as its mirror image heeled to starboard, with the
+    # moment's sign reversed: one solve gives both directions
+    both = transfer_moments(body, f, np.array([heel_deg, -heel_deg])).moment_m4
+    curves = [both[:, 0], -both[:, 1]]
     m = max(curves, key=lambda c: float(np.max(c)))
     k = int(np.argmax(m))
     mmax = m[k]

@@ -1,0 +1,118 @@
+"""``deckload tables``: the committed demo profile is exactly what the builder makes from the
+committed geometry; hand-entered sections survive a refresh; bad input leaves files alone."""
+
+from __future__ import annotations
+
+import tomllib
+from pathlib import Path
+
+import numpy as np
+import pytest
+
+from deckload.cli import main
+from deckload.tables_command import build_profile_text
+
+ROOT = Path(__file__).resolve().parent.parent
+GEOMETRY = ROOT / "vessel_profiles" / "demo_islander.geometry.toml"
+PROFILE = ROOT / "vessel_profiles" / "demo_islander.toml"
+PACKAGED = ROOT / "deckload" / "data" / "demo_islander.toml"
+
+HAND_SECTIONS = ("format", "lightship", "criteria", "free_surface", "load_line")
+
+
+@pytest.fixture(scope="module")
+def rebuilt() -> str:
+    text, notes = build_profile_text(GEOMETRY, PROFILE.read_text(encoding="utf-8"))
+    assert notes == []
+    return text
+
+
+def test_committed_demo_profile_rebuilds_byte_for_byte(rebuilt):
+    assert rebuilt == PROFILE.read_text(encoding="utf-8"), (
+        "vessel_profiles/demo_islander.toml differs from what `deckload tables` makes from "
+        "demo_islander.geometry.toml: run `deckload tables vessel_profiles/demo_islander.geometry.toml "
+        "-o vessel_profiles/demo_islander.toml` and copy it to deckload/data/"
+    )
+
+
+def test_packaged_copy_is_identical():
+    assert PACKAGED.read_bytes() == PROFILE.read_bytes()
+
+
+def test_demo_profile_loads_and_is_consistent():
+    """The loader accepts the demo; its tables are mutually consistent (analytic relations):
+    TPC = dΔ/dT/100 (Simpson vs. finite difference, 1 %), capacities equal last volumes."""
+    from deckload.profiles import load_profile
+
+    v = load_profile(PROFILE)
+    h = v.hydrostatics
+    slope = np.gradient(h.displacement_t, h.draft_m) / 100.0
+    np.testing.assert_allclose(h.tpc_t_cm[1:-1], slope[1:-1], rtol=0.01)
+    assert 20 <= len(v.tanks) <= 30
+    for t in v.tanks:
+        assert t.capacity_m3 == pytest.approx(float(t.calibration.volume_m3[-1]))
+        assert t.transfer is not None and t.transfer.moment_m4.shape == (21, 19)
+        lo, hi = t.worst_band_pct
+        assert 0.0 <= lo < hi <= 100.0
+        if t.pair:
+            assert v.tank(t.pair).worst_band_pct == t.worst_band_pct  # mirror images
+    # lightship between 45 and 55 % of the summer displacement, KG below the depth (brief)
+    summer = next(ll for ll in v.load_lines if ll.name == "summer")
+    d_summer = float(np.interp(summer.draft_m, h.draft_m, h.displacement_t))
+    assert 0.45 <= v.lightship.mass_t / d_summer <= 0.55
+    assert v.lightship.vcg_m < v.particulars.depth_m
+
+
+def test_refresh_keeps_hand_entered_sections(tmp_path, rebuilt):
+    profile = tmp_path / "islander.toml"
+    original = tomllib.loads(rebuilt)
+    doc = dict(original)
+    doc["hydrostatics"] = {"draft_m": [1.0, 2.0]}  # stale tables to be replaced
+    doc["tank"] = [dict(original["tank"][0], capacity_m3=1.0), {"id": "EXTRA", "name": "kept"}]
+    doc["lightship"] = dict(original["lightship"], mass_t=401.5)
+    doc["vessel"] = dict(original["vessel"], remark="hand remark", lbp_m=99.0)
+    import tomli_w
+
+    old_text = "# hand notes that a rewrite cannot keep\n" + tomli_w.dumps(doc)
+    profile.write_text(old_text, encoding="utf-8")
+    assert main(["tables", str(GEOMETRY), "-o", str(profile)]) == 0
+    assert (tmp_path / "islander.toml.bak").read_text(encoding="utf-8") == old_text  # comments kept aside
+    new = tomllib.loads(profile.read_text(encoding="utf-8"))
+    assert new["lightship"]["mass_t"] == 401.5
+    assert new["vessel"]["remark"] == "hand remark"
+    assert new["vessel"]["lbp_m"] == 38.0  # generated from the geometry
+    assert new["hydrostatics"] == original["hydrostatics"]
+    assert new["tank"][0] == original["tank"][0]
+    assert new["tank"][-1] == {"id": "EXTRA", "name": "kept"}
+    for k in HAND_SECTIONS:
+        if k != "lightship":
+            assert new[k] == original[k]
+
+
+def test_stdout_without_output(capsys):
+    assert main(["tables", str(GEOMETRY)]) == 0
+    out = capsys.readouterr()
+    doc = tomllib.loads(out.out)
+    assert doc["format"] == "deckload-profile-1"
+    assert len(doc["cross_curves"]["kn_m"]) == len(doc["cross_curves"]["displacement_t"])
+    assert "lightship" not in doc  # nothing invented for the hand-entered parts
+    assert "tank 25/25" in out.err  # progress on stderr
+
+
+def test_bad_geometry_leaves_profile_untouched(tmp_path, capsys):
+    geo = tmp_path / "bad.geometry.toml"
+    geo.write_text(GEOMETRY.read_text(encoding="utf-8").replace("lbp_m = 38.0", "lbp_m = -38.0"), encoding="utf-8")
+    profile = tmp_path / "p.toml"
+    profile.write_text("format = \"deckload-profile-1\"\n", encoding="utf-8")
+    assert main(["tables", str(geo), "-o", str(profile)]) == 1
+    err = capsys.readouterr().err
+    assert "vessel.lbp_m = -38: must be above 0" in err
+    assert profile.read_text(encoding="utf-8") == "format = \"deckload-profile-1\"\n"
+
+
+def test_invalid_existing_profile_is_not_overwritten(tmp_path, capsys):
+    profile = tmp_path / "p.toml"
+    profile.write_text("format = = 1\n", encoding="utf-8")
+    assert main(["tables", str(GEOMETRY), "-o", str(profile)]) == 1
+    assert "left untouched" in capsys.readouterr().err
+    assert profile.read_text(encoding="utf-8") == "format = = 1\n"

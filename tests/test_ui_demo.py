@@ -1,0 +1,77 @@
+"""Loading-screen keys on the demo vessel (holds, deck-item edits, water density, log)."""
+
+from __future__ import annotations
+
+import pytest
+
+from deckload import paths
+from deckload.profiles import load_condition, load_profile
+from deckload.ui.dialogs import PromptForm
+from deckload.ui.launch import create_app
+from deckload.ui.widgets import LinePanel, LoadBoard
+
+
+@pytest.fixture
+def app(tmp_path):
+    vessel = load_profile(paths.DEMO_PROFILE)
+    condition = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
+    return create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs")
+
+
+def hold_mass(app, hold_id):
+    return next((h.mass_t for h in app.session.condition.holds if h.hold_id == hold_id), 0.0)
+
+
+async def test_hold_mass_is_set_and_its_structural_limit_enforced(app):
+    async with app.run_test(size=(120, 40)) as pilot:
+        assert app.screen.query_one(LoadBoard).select(("hold", "H1"))
+        await pilot.press("enter", *"120", "enter")  # the old value is selected: typing replaces it
+        assert hold_mass(app, "H1") == 120.0
+        await pilot.press("plus")
+        assert hold_mass(app, "H1") == 121.0
+        limit = app.session.vessel.hold("H1").max_mass_t
+        await pilot.press("enter", *f"{limit + 1:g}", "enter")
+        assert isinstance(app.screen, PromptForm) and "structural limit" in str(
+            app.screen.query_one("#form-message").render())
+        await pilot.press("escape")
+        assert hold_mass(app, "H1") == 121.0
+
+
+async def test_editing_a_deck_item_keeps_what_the_form_does_not_show(app):
+    async with app.run_test(size=(120, 40)) as pilot:
+        before = app.session.condition.deck_items[0]
+        assert before.footprint_m2 is not None
+        app.screen.query_one(LoadBoard).select(("deck", 0))
+        await pilot.press("enter", "tab", *"15", "enter")  # name kept, mass 15 t
+        after = app.session.condition.deck_items[0]
+        assert (after.name, after.mass_t, after.footprint_m2, after.area_id) == (
+            before.name, 15.0, before.footprint_m2, before.area_id)
+
+
+async def test_water_density_changes_drafts_and_bad_density_is_refused(app):
+    async with app.run_test(size=(120, 40)) as pilot:
+        t_sea = app.session.result.draft_mean_m
+        await pilot.press("d", *"1.000", "enter")
+        assert app.session.condition.water_density_t_m3 == 1.0
+        # Same mass in lighter water displaces more volume: she sinks (Archimedes).
+        assert app.session.result.draft_mean_m > t_sea
+        await pilot.press("d", *"1.2", "enter")
+        assert isinstance(app.screen, PromptForm)
+        await pilot.press("escape")
+        assert app.session.condition.water_density_t_m3 == 1.0
+
+
+async def test_sign_on_then_changes_are_logged_and_the_log_screen_opens(app):
+    from deckload.ui.log_screen import LogScreen
+
+    async with app.run_test(size=(120, 40)) as pilot:
+        title = app.screen.query_one("#titlebar", LinePanel)
+        assert "NOT logged" in title.plain()
+        await pilot.press("o", *"jm", "enter")
+        assert app.session.journal.officer == "JM" and "watch JM" in title.plain()
+        await pilot.press("f")
+        app.session.flush()
+        await pilot.press("l")
+        assert isinstance(app.screen, LogScreen)
+        entries = app.session.journal.logbook.entries()
+        assert [(e.kind, e.by) for e in entries] == [("ballast", "JM")]
