@@ -1,8 +1,8 @@
 """Benchmark, run by hand: ``python -m deckload.bench_tables [--full]``.
 
-Computes every table of the demo vessel (41 stations: hydrostatics at 30 drafts,
-KN at 15 displacements × 19 heels with free trim, and every tank's calibration,
-fluid transfer and worst band) with deckload's vectorised section clipping, and
+Computes every table of the demo vessel (41 stations, i.e. 40 intervals:
+hydrostatics at its 30 drafts, KN at 15 displacements 250–950 t × 19 heels with free
+trim, and every tank's calibration, fluid transfer and worst band) with deckload's vectorised section clipping, and
 the same quantities with an independent reference — trimesh slicing a closed
 triangle mesh of the same offsets — in the same run, then prints both times, their
 ratio, and how far the two results lie apart (the accuracy the ratio is bought at).
@@ -34,19 +34,26 @@ GEOMETRY = Path(__file__).resolve().parent.parent / "vessel_profiles" / "demo_is
 # --------------------------------------------------------------------------- meshes
 
 
-def hull_mesh(hull: HullOffsets):
+def hull_mesh(hull: HullOffsets, subdivide: int = 4):
     """A closed, consistently wound triangle mesh of the offsets' hull, closed by the deck.
 
     Each station contributes the points (x, ±half-breadth, z) at every waterline
     (points above the deck are pulled down onto the deck edge) and the deck edge;
-    neighbouring stations are joined by straight-edged strips — the same ruled
-    surface the offsets define.  The port side is the exact mirror of the starboard
-    side, so faces that collapse onto the centre plane (where the hull does not
-    reach a waterline) cancel cleanly and are dropped, as checks.md §6 advises.
+    neighbouring stations are joined by triangle strips.  The offsets vary linearly
+    between stations, so each strip between two waterlines is a bilinear (twisted)
+    surface; ``subdivide`` intermediate sections per station interval (offsets
+    interpolated linearly, as deckload's model defines them) make the flat triangles
+    follow it closely.  The port side is the exact mirror of the starboard side, so
+    faces that collapse onto the centre plane (where the hull does not reach a
+    waterline) cancel cleanly and are dropped, as checks.md §6 advises.
     """
     import trimesh
 
-    xs, zw, hb, dk = hull.station_x_m, hull.waterline_z_m, hull.half_breadth_m, hull.deck_z_m
+    xs0, zw, hb0, dk0 = hull.station_x_m, hull.waterline_z_m, hull.half_breadth_m, hull.deck_z_m
+    f = np.linspace(0.0, 1.0, subdivide + 1)[:-1]
+    xs = np.concatenate([xs0[i] + f * (xs0[i + 1] - xs0[i]) for i in range(len(xs0) - 1)] + [xs0[-1:]])
+    hb = np.concatenate([hb0[i] + f[:, None] * (hb0[i + 1] - hb0[i]) for i in range(len(xs0) - 1)] + [hb0[-1:]])
+    dk = np.interp(xs, xs0, dk0)
     pts = []
     for i, x in enumerate(xs):
         zc = np.minimum(zw, dk[i])
@@ -311,8 +318,8 @@ def main(argv: list[str] | None = None) -> int:
 
     g = load_geometry(args.geometry)
     rho = g.vessel.table_density_t_m3
-    drafts = np.linspace(0.6, 3.5, 30)
-    disp = np.linspace(150.0, 1050.0, 15)
+    drafts = g.tables.draft_m  # the demo's 30 drafts, 1.0–3.9 m
+    disp = np.linspace(250.0, 950.0, 15)
     heels = np.arange(0.0, 91.0, 5.0)
     print(f"deckload table builder benchmark — {len(g.hull.station_x_m)} stations, {len(drafts)} drafts, "
           f"KN {len(disp)} displacements × {len(heels)} heels ({g.tables.trim_basis}), {len(g.tanks)} tanks")
@@ -356,7 +363,7 @@ def main(argv: list[str] | None = None) -> int:
     hyd_keys = ("displacement_t", "lcb_m", "vcb_m", "kmt_m", "tpc_t_cm")
     errs = {k: max(abs(getattr(hyd, k)[i] - ref_h[i][k]) for i in range(len(drafts))) for k in hyd_keys}
     ref_times = (t1 - t0, t2 - t1, ref_tanks)
-    rows = (("hydrostatics (30 drafts)", 0), ("KN 15 × 19", 1), (f"{len(g.tanks)} tanks (calibration, transfer, band)", 2))
+    rows = ((f"hydrostatics ({len(drafts)} drafts)", 0), (f"KN {len(disp)} × {len(heels)}", 1), (f"{len(g.tanks)} tanks (calibration, transfer, band)", 2))
     print(f"{'part':44s} {'deckload':>10s} {'trimesh':>10s} {'ratio':>8s}")
     for name, i in rows:
         print(f"{name:44s} {ours_t[i]:9.3f}s {ref_times[i]:9.2f}s {ref_times[i] / ours_t[i]:7.1f}×")

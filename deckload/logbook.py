@@ -553,6 +553,8 @@ class Logbook:
         self._cache: tuple[tuple[int, int], list[LogEntry]] | None = None
         self.skipped: list[str] = []
         """Lines :meth:`entries` could not read at its last call, each naming its line."""
+        self.head_problem: str | None = None
+        """Set when an append reached the disk but the head record could not be updated."""
         self._clock: Callable[[], datetime] = utc_now
 
     # ----------------------------------------------------------------- opening
@@ -765,7 +767,12 @@ class Logbook:
             raise
         self._last_seq += 1
         self._last_sha = sha256_hex(line)
-        self._write_head()
+        try:
+            self._write_head()
+        except OSError as exc:
+            # The entry itself is on disk; a head record left behind is brought forward at
+            # the next open (it still names an entry the later lines chain from).
+            self.head_problem = f"head record not updated: {exc}"
         return _entry_from_line(line, self._last_seq)
 
     # ----------------------------------------------------------------- reading
@@ -894,19 +901,27 @@ def _head_disagreement(head: dict | None, lines: list[bytes]) -> str | None:
     """Why the head record contradicts the log's complete lines, or None if it does not.
 
     The head names the newest entry appended (its seq and SHA-256).  It agrees when that
-    entry is in the log unchanged, as the last line or — after a power cut between an
-    append and the head update — one line before it.
+    entry is in the log unchanged and every later line chains from it: the head is then
+    only behind (a power cut, or a failed head update, after an append).
     """
     if head is None:
         return None
     seq, sha = head.get("seq"), head.get("sha256")
     if not isinstance(seq, int) or isinstance(seq, bool) or not isinstance(sha, str):
         return "the head record is damaged"
-    for back in (1, 2):
-        if len(lines) >= back and _seq_of(lines[-back]) == seq:
-            if sha256_hex(lines[-back]) == sha:
-                return None
-            return f"line {len(lines) - back + 1} (entry #{seq}) does not match the head record (edited or replaced)"
+    for at in range(len(lines) - 1, -1, -1):
+        if _seq_of(lines[at]) != seq:
+            continue
+        if sha256_hex(lines[at]) != sha:
+            return f"line {at + 1} (entry #{seq}) does not match the head record (edited or replaced)"
+        for k in range(at + 1, len(lines)):
+            try:
+                prev = json.loads(lines[k].decode("utf-8")).get("prev_sha256")
+            except (UnicodeDecodeError, json.JSONDecodeError, AttributeError):
+                prev = None
+            if prev != sha256_hex(lines[k - 1]):
+                return f"line {k + 1} does not chain from the entry the head record names (#{seq})"
+        return None
     last = _seq_of(lines[-1]) if lines else None
     return (
         f"the head record names entry #{seq} but the log ends with "

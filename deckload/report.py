@@ -11,10 +11,12 @@ stability summary; the criteria table (value, limit, margin, pass); the GZ curve
 its 30°, 40° and θf marks; warnings; the caution; signature lines for the officer
 and the master.
 
-A4 fit (HTML): the page is 297 mm high; with 10 mm margins 277 mm print.  The
-font size is the largest of :data:`FONT_SIZES_PT` whose line count fits
-(line height = size × :data:`LINE_HEIGHT` × 0.3528 mm/pt); :func:`html_fits_a4`
-says whether even the smallest does.
+A4 fit (HTML, the printable form): the page is 297 mm high; with 10 mm margins
+277 mm print.  The font size is the largest of :data:`FONT_SIZES_PT` whose line
+count fits (line height = size × :data:`LINE_HEIGHT` × 0.3528 mm/pt);
+:func:`html_fits_a4` says whether even the smallest does.  A condition with most
+of its tanks slack can run onto a second page; ``deckload report`` then says so.
+The text form is :data:`TEXT_WIDTH` columns, for terminals and plain printers.
 """
 
 from __future__ import annotations
@@ -57,7 +59,7 @@ SVG_HEIGHT_MM = 52.6
 SIGNATURE_ROW_MM = 10.0
 """Height of each signature row in the HTML report: room for a handwritten signature."""
 _COMPARISON = {">=": "≥", "<=": "≤"}
-GROUP_TITLES = {"lightship": "Lightship", "tank": "Tanks", "hold": "Holds", "deck": "Deck", "constant": "Constants"}
+GROUP_TITLES = {"lightship": "Lightship", "hold": "Holds", "deck": "Deck", "constant": "Constants"}
 
 
 # --------------------------------------------------------------------------- formatting
@@ -432,7 +434,7 @@ def gz_svg(result: Result, width: float = 344.0, height: float = 232.0) -> str:
         k += 1
     n = round((y_max - y_min) / step)
     for j in range(n + 1):
-        v = y_min + j * step
+        v = round(y_min + j * step, 9) + 0.0  # no '-0.00' from round-off
         Y = fr.y(v)
         a(f'<line x1="{fr.left:.2f}" y1="{Y:.2f}" x2="{fr.left + fr.width:.2f}" y2="{Y:.2f}" stroke="#ddd" '
           f'stroke-width="0.5"/>')

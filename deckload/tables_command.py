@@ -176,7 +176,7 @@ def merge_profile(existing: dict[str, Any] | None, gen: dict[str, Any], vt: Vess
         made = {e["id"] for e in gen[key]}
         kept = [e for e in old.get(key, []) if isinstance(e, dict) and e.get("id") not in made]
         for e in kept:
-            notes.append(f"{label} {e.get('id')!r} is not in the geometry file: kept as it was")
+            notes.append(f"note: {label} {e.get('id')!r} is not in the geometry file: kept as it was")
         new[key] = list(gen[key]) + kept
     for key, value in old.items():
         if key not in new:
@@ -208,13 +208,36 @@ def _write_atomic(path: Path, text: str) -> None:
         raise
 
 
+def summary(vt: VesselTables) -> list[str]:
+    """A few lines for the user: integration rule and the particulars at the design draft."""
+    g = vt.geometry
+    h = vt.hydrostatics
+    t = g.vessel.design_draft_m
+    n = len(g.hull.station_x_m)
+    rule = "Simpson's first rule" if vt.hull_rule == "simpson" else "the trapezoidal rule (stations not equally spaced and odd in number)"
+    lines = [f"hull integrated along {n} stations by {rule}; KN on a {vt.cross_curves.trim_basis} basis"]
+    if h.draft_m[0] <= t <= h.draft_m[-1]:
+        def at(a: np.ndarray) -> float:
+            return float(np.interp(t, h.draft_m, a))
+
+        lines.append(
+            f"at the design draft {t:g} m: displacement {at(h.displacement_t):.1f} t, KMt {at(h.kmt_m):.3f} m, "
+            f"LCB {at(h.lcb_m):.3f} m, LCF {at(h.lcf_m):.3f} m, TPC {at(h.tpc_t_cm):.3f} t/cm, "
+            f"Cb {at(h.cb):.3f}, Cw {at(h.cw):.3f}"
+        )
+    return lines
+
+
 def build_profile_text(geometry_path: Path, existing_text: str | None, progress=None) -> tuple[str, list[str]]:
-    """The full profile text for a geometry and (optionally) an existing profile's text."""
+    """The full profile text for a geometry and (optionally) an existing profile's text.
+
+    Returns the text and notes for the user (tanks kept from the old profile, a summary).
+    """
     geometry = load_geometry(geometry_path)
     vt = build_tables(geometry, progress)
     existing = tomllib.loads(existing_text) if existing_text is not None else None
     doc, notes = merge_profile(existing, generated_sections(vt), vt)
-    return render(doc), notes
+    return render(doc), notes + summary(vt)
 
 
 def run_tables(geometry_path: Path, output_path: Path | None) -> int:
@@ -247,7 +270,7 @@ def run_tables(geometry_path: Path, output_path: Path | None) -> int:
         print(f"deckload tables: {geometry_path}: {e}", file=sys.stderr)
         return 1
     for n in notes:
-        print(f"deckload tables: note: {n}", file=sys.stderr)
+        print(f"deckload tables: {n}", file=sys.stderr)
     if output_path is None:
         sys.stdout.write(text)
         return 0

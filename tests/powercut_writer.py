@@ -13,11 +13,12 @@ the test can kill 200 writers in well under a minute:
   line (or a run of zero bytes) with no line end and kills itself with SIGKILL:
   what a power cut can leave behind when the disk persisted only part of a write.
   It reports ``torn LEN SHA256`` of the bytes it left.
-  (A SIGKILL alone cannot tear a line: the kernel completes a write() to a
-  regular file once started.)
+  (A SIGKILL can itself cut a long write() short between pages, so torn lines
+  also occur by chance; ``tear`` makes sure the recovery is exercised every run.)
 
 For each fork the server prints ``pid P`` first, and ``exit P CODE`` once the
-child has ended (CODE is negative for a signal).  Lines are written with a single
+child has ended (CODE is negative for a signal); it reaps the child only when the
+test then sends ``reap``, so the pid is never reused while the test may signal it.  Lines are written with a single
 ``os.write`` each, so lines from server and child never interleave.
 """
 
@@ -116,9 +117,14 @@ def main() -> int:
             os._exit(0)
         rng.random()  # keep the parent's generator moving, so each tear differs
         say(f"pid {pid}")
-        _, status = os.waitpid(pid, 0)
-        code = -os.WTERMSIG(status) if os.WIFSIGNALED(status) else os.WEXITSTATUS(status)
+        # Wait without reaping: the dead child keeps its pid until the test says "reap", so
+        # a SIGKILL the test sends late can never reach some other process given that pid.
+        info = os.waitid(os.P_PID, pid, os.WEXITED | os.WNOWAIT)
+        code = -info.si_status if info.si_code in (os.CLD_KILLED, os.CLD_DUMPED) else info.si_status
         say(f"exit {pid} {code}")
+        if sys.stdin.readline().strip() != "reap":
+            say("expected reap")
+        os.waitpid(pid, 0)
     return 0
 
 

@@ -174,3 +174,96 @@ def test_immersion_angle_of_deck_edge():
     body = box_body()
     ang = immersion_angle(body, np.array([RHO * L * B * 2.0]), RHO, (L / 2, B / 2, D), "even keel")
     assert ang[0] == pytest.approx(math.degrees(math.atan(2.0 / 5.0)), abs=1e-6)
+
+
+BOX_GEOMETRY = """
+format = "deckload-geometry-1"
+
+[vessel]
+name = "Box"
+lbp_m = 20.0
+breadth_m = 6.0
+depth_m = 3.0
+design_draft_m = 1.5
+
+[hull]
+station_x_m = [0.0, 5.0, 10.0, 15.0, 20.0]
+waterline_z_m = [0.0, 3.0]
+deck_z_m = [3.0, 3.0, 3.0, 3.0, 3.0]
+half_breadth_m = [[3.0, 3.0], [3.0, 3.0], [3.0, 3.0], [3.0, 3.0], [3.0, 3.0]]
+
+[tables]
+draft_m = [0.5, 1.0, 1.5, 2.0]
+kn_displacement_t = [184.5, 246.0]
+kn_heel_deg = [0.0, 10.0, 20.0]
+trim_basis = "free trim"
+trim_lcg_m = 10.0
+trim_vcg_m = 2.0
+
+[[tank]]
+id = "DB"
+name = "Double bottom"
+kind = "ballast"
+density_t_m3 = 1.025
+shape = "hull"
+x_m = [2.0, 8.0]
+y_m = [-5.0, 5.0]
+z_m = [0.0, 0.5]
+
+[[hold]]
+id = "H"
+name = "Hold"
+shape = "hull"
+x_m = [10.0, 18.0]
+y_m = [-3.0, 3.0]
+z_m = [1.0, 3.0]
+
+[[deck_area]]
+id = "D"
+name = "Deck"
+x_m = [2.0, 8.0]
+y_m = [-4.0, 2.0]
+
+[[opening]]
+name = "deck edge"
+x_m = 10.0
+y_m = 3.0
+z_m = 3.0
+"""
+
+
+def test_builder_end_to_end_on_a_box():
+    """Analytic, box 20 × 6 × 3 m: the builder's compartments and downflooding angle.
+
+    * deck rectangle x 2–8, y −4…2 trimmed to the deck edge y ≥ −3: area 6·5 = 30 m²,
+      centroid x = 5, y = −0.5, deck height 3;
+    * hold = hull between x 10–18, z 1–3: capacity 8·6·2 = 96 m³, VCG 2, LCG 14, and
+      levelled at 50 % its contents reach z = 2, VCG 1.5;
+    * double bottom 6 × 6 × 0.5: 18 m³, i = 6·6³/12 = 108 m⁴; a full-width box tank's
+      worst band is centred on 50 % (point symmetry, checks.md §3.2);
+    * downflooding: at T = D/2 the deck edge amidships immerses at atan((D − T)/(B/2))
+      = atan(0.5) (checks.md §1.1, wall-sided up to there); G on the centre line at
+      mid-length, so free trim gives no trim.
+    """
+    from deckload.core.geometry.builder import build_tables
+    from deckload.geometry_io import parse_geometry
+
+    vt = build_tables(parse_geometry(BOX_GEOMETRY, "box.geometry.toml"))
+    area = vt.deck_areas[0]
+    assert area.area_m2 == pytest.approx(30.0)
+    assert area.lcg_m == pytest.approx(5.0)
+    assert area.tcg_m == pytest.approx(-0.5)
+    assert area.deck_height_m == pytest.approx(3.0)
+    hold = vt.holds[0]
+    assert hold.capacity_m3 == pytest.approx(96.0)
+    assert hold.vcg_m == pytest.approx(2.0)
+    assert hold.lcg_m == pytest.approx(14.0)
+    assert hold.fill_vcg_m[list(hold.fill_pct).index(50.0)] == pytest.approx(1.5)
+    tank = vt.tanks[0]
+    assert tank.capacity_m3 == pytest.approx(18.0)
+    np.testing.assert_allclose(tank.calibration.fsi_m4, 6 * 6**3 / 12)
+    assert sum(tank.worst_band_pct) == pytest.approx(100.0, abs=0.2)
+    assert vt.downflooding.angle_deg[0] == pytest.approx(math.degrees(math.atan(0.5)), abs=1e-6)
+    h = vt.hydrostatics
+    np.testing.assert_allclose(h.displacement_t, 1.025 * 20 * 6 * np.array([0.5, 1.0, 1.5, 2.0]))
+    np.testing.assert_allclose(vt.cross_curves.trim_rad, 0.0, atol=1e-9)

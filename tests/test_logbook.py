@@ -398,3 +398,35 @@ def test_unreadable_middle_line_is_named(tmp_path):
     rep = tampered(tmp_path, lambda p, ls: write_lines(p, ls[:1] + [ls[1][:-5]] + ls[2:]))
     assert not rep.ok and names_line(rep, 2), rep.problems
     assert any("not valid JSON" in p for p in rep.problems)
+
+
+def test_head_record_several_entries_behind_is_accepted_when_the_chain_holds(tmp_path):
+    with Logbook.open(tmp_path, "Demo Islander") as b:
+        fill(b, 5)
+        head_path = b.head_path
+    raw = lines_of(b.path)
+    head_path.write_text(json.dumps({"format": lb.HEAD_FORMAT, "seq": 2, "sha256": sha256_hex(raw[1])}))
+    with Logbook.open(tmp_path, "Demo Islander") as b:
+        assert not b.readonly, b.readonly_reason
+        assert json.loads(head_path.read_text())["seq"] == 5
+    # … but not when a later line does not chain from the entry the head names
+    head_path.write_text(json.dumps({"format": lb.HEAD_FORMAT, "seq": 2, "sha256": sha256_hex(raw[1])}))
+    write_lines(b.path, raw[:2] + [_edit_number(raw[2])] + raw[3:])
+    with Logbook.open(tmp_path, "Demo Islander") as b:
+        assert b.readonly and "line 4 does not chain" in b.readonly_reason
+
+
+def test_a_failed_head_update_does_not_lose_the_entry(tmp_path, monkeypatch):
+    with Logbook.open(tmp_path, "Demo Islander") as b:
+        fill(b, 2)
+
+        def fail(*_a, **_k):
+            raise OSError(28, "No space left on device")
+
+        monkeypatch.setattr(b, "_write_head", fail)
+        e = b.append(kind="remark", by="AB", change_text="x", change_data={}, result=None, condition=None)
+        assert e.seq == 3 and "No space left" in b.head_problem
+    monkeypatch.undo()
+    with Logbook.open(tmp_path, "Demo Islander") as b:
+        assert not b.readonly and [x.seq for x in b.entries()] == [1, 2, 3]
+        assert b.verify().ok

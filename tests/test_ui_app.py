@@ -143,7 +143,6 @@ async def test_edits_are_logged_and_the_working_condition_saved(app, tmp_path):
 
     saved = load_condition(app.session.save_path, app.session.vessel)
     assert saved.tank_fill("DB1P") == TankFill("DB1P", "percent", 20.0)
-    app.session.journal.logbook.close()
     book = Logbook.open(tmp_path / "logs", app.session.vessel.particulars.name, readonly=True)
     assert [(e.kind, e.by, e.remark) for e in book.entries()] == [("ballast", "TS", ""), ("condition", "TS", "at the berth")]
 

@@ -19,7 +19,6 @@ async def test_first_run_opens_departure_and_a_restart_restores_the_working_cond
         await pilot.press("plus")
         await pilot.pause()
         edited = app.session.condition
-    app.session.journal.logbook.close()
     assert edited != first
     _, restored, notices = load_inputs(None, None, work)
     assert restored == edited and notices == []
@@ -42,3 +41,18 @@ def test_a_condition_argument_wins_over_the_working_file(tmp_path):
     arrival = paths.DEMO_CONDITIONS["arrival"]
     _, condition, _ = load_inputs(paths.DEMO_PROFILE, arrival, tmp_path)
     assert condition == load_condition(arrival, vessel)
+
+
+def test_a_log_held_by_another_writer_opens_read_only_and_says_so(tmp_path):
+    from deckload.logbook import Logbook
+    from deckload.ui.launch import open_journal
+
+    holder = Logbook.open(tmp_path, "Demo Islander")
+    try:
+        journal = open_journal(tmp_path, "Demo Islander")
+        assert not journal.writable and "read-only" in journal.problem
+        journal.officer = "TS"
+        assert journal.append(kind="edit", change_text="x", change_data={}, result=None, condition=None) is None
+        assert holder.entries() == []
+    finally:
+        holder.close()

@@ -43,6 +43,8 @@ class DeckloadApp(App[None]):
 
     def on_unmount(self) -> None:
         self.session.flush()
+        if self.session.journal.logbook is not None:
+            self.session.journal.logbook.close()  # releases the writer's lock for the next start
 
     def on_mount(self) -> None:
         for n in self.notices:

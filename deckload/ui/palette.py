@@ -34,5 +34,4 @@ P: dict[str, Style] = {
     "gz.axis": Style(color="#7f8c99"),
     "gz.mark": Style(color="#e6b450"),
     "gz.flood": Style(color="#ff7a6b"),
-    "cursor": Style(reverse=True),
 }

@@ -139,8 +139,8 @@ class LoadBoard(ScrollView, can_focus=True):
             self._rebuild()
 
     def _rebuild(self) -> None:
-        if self._data is None:
-            return
+        if self._data is None or self.scrollable_content_region.width == 0:
+            return  # not laid out yet: on_resize builds it at the real width
         key = self.cursor_key
         width = max(40, self.scrollable_content_region.width)
         old, self.rows = self.rows, views.board_rows(*self._data, width=width)

@@ -53,10 +53,6 @@ class Body:
         solid = a > 1e-12
         return solid if np.any(solid) else np.ones_like(solid)
 
-    def mirrored(self) -> "Body":
-        """The same body reflected in the centreline plane (y → −y), still counter-clockwise."""
-        return Body(self.x_m, -self.y_m[:, ::-1], self.z_m[:, ::-1], self.weights, self.rule)
-
     def zeta_range(self, cos_t: np.ndarray, sin_t: np.ndarray) -> tuple[np.ndarray, np.ndarray]:
         """Lowest and highest ζ of each station's vertices, for heels (...): shapes (..., S)."""
         ct = np.asarray(cos_t, dtype=float)[..., None, None]
