@@ -8,6 +8,7 @@ the report writer.
 from __future__ import annotations
 
 import argparse
+import os
 import sys
 from pathlib import Path
 
@@ -72,8 +73,20 @@ def _parser() -> argparse.ArgumentParser:
     return p
 
 
+def _demo_shorthand(args: argparse.Namespace) -> None:
+    """Let 'demo' stand for the packaged demo profile and a demo condition's key for its file."""
+    from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
+
+    if getattr(args, "profile", None) is not None and str(args.profile) == "demo" and not args.profile.exists():
+        args.profile = DEMO_PROFILE
+        cond = getattr(args, "condition", None)
+        if cond is not None and str(cond) in DEMO_CONDITIONS:
+            args.condition = DEMO_CONDITIONS[str(cond)]
+
+
 def main(argv: list[str] | None = None) -> int:
     args = _parser().parse_args(argv)
+    _demo_shorthand(args)
     cmd = args.command or "open"
     try:
         if cmd == "open":
@@ -102,6 +115,10 @@ def main(argv: list[str] | None = None) -> int:
             return run_log(args)
     except KeyboardInterrupt:
         return 130
+    except BrokenPipeError:
+        # The reader (e.g. `| head`) went away: not an error of ours.
+        sys.stdout = open(os.devnull, "w")
+        return 0
     print(f"deckload: unknown command {cmd!r}", file=sys.stderr)
     return 2
 
