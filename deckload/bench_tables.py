@@ -357,7 +357,6 @@ def main(argv: list[str] | None = None) -> int:
             t_tr += time.perf_counter() - tb
             scale = max(float(np.max(np.abs(mom))), 1e-9)
             tank_err_m = max(tank_err_m, float(np.max(np.abs(mom - ours.transfer.moment_m4))) / scale)
-    t3 = time.perf_counter()
     ref_tanks = t_cal + t_tr * (len(g.tanks) / n_tr)
 
     hyd_keys = ("displacement_t", "lcb_m", "vcb_m", "kmt_m", "tpc_t_cm")

@@ -15,7 +15,6 @@ import math
 import os
 import re
 import tomllib
-from dataclasses import dataclass
 from pathlib import Path
 from typing import Any
 
@@ -37,6 +36,7 @@ from deckload.core.geometry.spec import (
     VesselSpec,
 )
 from deckload.core.model import LIQUID_KINDS
+from deckload.profiles import Problem, ProfileError
 
 GEOMETRY_FORMAT = "deckload-geometry-1"
 ID_PATTERN = re.compile(r"^[A-Za-z0-9_-]+$")
@@ -44,26 +44,12 @@ OUTSIDE_TOLERANCE = 0.005
 """A box or prism tank may stick out of the hull by at most 0.5 % of its section area."""
 
 
-@dataclass(frozen=True)
-class GeometryProblem:
-    file: str
-    line: int | None
-    key: str
-    value: str | None
-    rule: str
-
-    def __str__(self) -> str:
-        where = f"{self.file}:{self.line}" if self.line else self.file
-        what = self.key if self.value is None else f"{self.key} = {self.value}"
-        return f"{where}: {what}: {self.rule}" if what else f"{where}: {self.rule}"
+GeometryProblem = Problem
+"""One thing wrong in a geometry file: the same shape as a profile problem."""
 
 
-class GeometryError(Exception):
+class GeometryError(ProfileError):
     """One or more problems in a geometry file; ``problems`` lists them all."""
-
-    def __init__(self, problems: list[GeometryProblem]):
-        self.problems = problems
-        super().__init__("\n".join(str(p) for p in problems))
 
 
 def _fmt(v: Any) -> str:

@@ -27,7 +27,6 @@ import difflib
 import math
 import os
 import re
-import tempfile
 import tomllib
 from dataclasses import dataclass
 from pathlib import Path
@@ -36,6 +35,7 @@ from typing import Any, Callable
 import numpy as np
 import tomli_w
 
+from deckload.atomicfile import write_atomic
 from deckload.core import model as m
 
 PROFILE_FORMAT = "deckload-profile-1"
@@ -1093,7 +1093,7 @@ def _read_fills(root: _Tab, vessel: m.Vessel) -> list[m.TankFill]:
         cap = tank.capacity_m3
         rules: dict[str, tuple[Rule, ...]] = {
             "percent": (non_negative, _at_most(100.0, "% (full)")),
-            "volume_m3": (non_negative, _at_most(cap, f"m³, the tank's capacity")),
+            "volume_m3": (non_negative, _at_most(cap, "m³, the tank's capacity")),
             "mass_t": (non_negative, _at_most(cap * rho, f"t, the tank's capacity {_num(cap)} m³ × {_num(rho)} t/m³")),
             "sounding_m": (non_negative, _at_most(float(cal.sounding_m[-1]),
                            f"m: outside the calibration table {_num(cal.sounding_m[0])}–{_num(cal.sounding_m[-1])} m")),
@@ -1234,10 +1234,6 @@ def dump_condition(c: m.Condition) -> str:
     return "".join(out)
 
 
-def _write_all(fh, data: bytes) -> None:
-    fh.write(data)
-
-
 def save_condition(path: str | os.PathLike, condition: m.Condition) -> None:
     """Write the condition atomically: the old file is intact until the new one is complete.
 
@@ -1246,40 +1242,6 @@ def save_condition(path: str | os.PathLike, condition: m.Condition) -> None:
     fsync'ed so the rename itself survives a power cut.  On any failure the temporary
     file is removed and the old file is untouched.
     """
-    path = Path(path)
-    data = dump_condition(condition).encode("utf-8")
-    folder = path.parent if str(path.parent) else Path(".")
-    try:
-        mode = os.stat(path).st_mode & 0o777
-    except FileNotFoundError:
-        umask = os.umask(0)
-        os.umask(umask)
-        mode = 0o666 & ~umask
-    fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=folder)
-    try:
-        with os.fdopen(fd, "wb") as fh:
-            _write_all(fh, data)
-            fh.flush()
-            os.fsync(fh.fileno())
-        os.chmod(tmp, mode)
-        os.replace(tmp, path)
-    except BaseException:
-        try:
-            os.unlink(tmp)
-        except OSError:
-            pass
-        raise
-    _fsync_dir(folder)
+    write_atomic(path, dump_condition(condition))
 
 
-def _fsync_dir(folder: Path) -> None:
-    try:
-        dfd = os.open(folder, os.O_RDONLY)
-    except OSError:  # e.g. Windows cannot open a directory; os.replace is durable enough there
-        return
-    try:
-        os.fsync(dfd)
-    except OSError:
-        pass
-    finally:
-        os.close(dfd)

@@ -26,10 +26,8 @@ byte-for-byte identical.
 
 from __future__ import annotations
 
-import os
 import shutil
 import sys
-import tempfile
 import time
 import tomllib
 from pathlib import Path
@@ -38,6 +36,7 @@ from typing import Any
 import numpy as np
 import tomli_w
 
+from deckload.atomicfile import write_atomic
 from deckload.core.geometry.builder import TableRangeError, VesselTables, build_tables
 from deckload.core.geometry.cross_curves import NoEquilibriumError
 from deckload.geometry_io import GeometryError, load_geometry
@@ -194,20 +193,6 @@ def _has_comments(text: str) -> bool:
     return any(line.lstrip().startswith("#") for line in text.splitlines())
 
 
-def _write_atomic(path: Path, text: str) -> None:
-    fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=str(path.parent or Path(".")))
-    try:
-        with os.fdopen(fd, "w", encoding="utf-8", newline="\n") as f:
-            f.write(text)
-        os.replace(tmp, path)
-    except BaseException:
-        try:
-            os.unlink(tmp)
-        except OSError:
-            pass
-        raise
-
-
 def summary(vt: VesselTables) -> list[str]:
     """A few lines for the user: integration rule and the particulars at the design draft."""
     g = vt.geometry
@@ -282,7 +267,7 @@ def run_tables(geometry_path: Path, output_path: Path | None) -> int:
     if existing_text == text:
         print(f"deckload tables: {output_path} is already up to date", file=sys.stderr)
         return 0
-    _write_atomic(output_path, text)
+    write_atomic(output_path, text)
     print(f"deckload tables: wrote {output_path} ({time.perf_counter() - start:.1f} s). "
           "Check the tables against the approved stability booklet before relying on them.", file=sys.stderr)
     return 0

@@ -16,6 +16,7 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
+import deckload.atomicfile as atomicfile
 import deckload.profiles as profiles
 from deckload.check_command import run_check
 from deckload.core import model as m
@@ -332,7 +333,7 @@ def test_failed_save_leaves_the_old_file_intact(tmp_path, monkeypatch, where):
         def half_then_boom(fh, data):
             fh.write(data[: len(data) // 2])  # a torn write, as on a full disk
             boom()
-        monkeypatch.setattr(profiles, "_write_all", half_then_boom)
+        monkeypatch.setattr(atomicfile, "_write_all", half_then_boom)
     elif where == "fsync":
         monkeypatch.setattr(profiles.os, "fsync", boom)
     else:
