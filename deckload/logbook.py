@@ -52,6 +52,7 @@ from datetime import datetime, timedelta, timezone
 from pathlib import Path
 from typing import Any, Callable, Iterable
 
+from deckload.atomicfile import fsync_dir, write_atomic
 from deckload.core.model import Condition
 from deckload.core.result import Result
 
@@ -150,7 +151,7 @@ def format_utc(t: datetime) -> str:
 
 
 def clock_stamp(ship_offset: str | None = None) -> str:
-    """'2026-12-01 22:04 UTC (ship's time 00:04, +02:00)' for printed reports."""
+    """'2026-12-01 22:04 UTC (ship's time 2026-12-02 00:04, +02:00)' for printed reports."""
     now = utc_now()
     off = parse_offset(ship_offset) if ship_offset else _configured_offset()
     ship = now + off
@@ -201,41 +202,11 @@ def _dumps(obj: Any) -> str:
     return json.dumps(_json_safe(obj), ensure_ascii=False, separators=(",", ":"), allow_nan=False)
 
 
-def _fsync_dir(directory: Path) -> None:
-    """fsync a folder so that a new or renamed file's name survives a power cut."""
-    try:
-        fd = os.open(directory, os.O_RDONLY | getattr(os, "O_DIRECTORY", 0))
-    except OSError:
-        return
-    try:
-        os.fsync(fd)
-    except OSError:
-        pass
-    finally:
-        os.close(fd)
-
-
 def _write_all(fd: int, data: bytes) -> None:
     view = memoryview(data)
     while view:
         n = os.write(fd, view)
         view = view[n:]
-
-
-def atomic_write_bytes(path: Path, data: bytes) -> None:
-    """Write ``path`` so that after a power cut it holds the old or the new bytes, never a mix.
-
-    Temporary file in the same folder, fsync, ``os.replace`` (atomic on POSIX), fsync the folder.
-    """
-    tmp = path.with_name(path.name + ".tmp")
-    fd = os.open(tmp, os.O_WRONLY | os.O_CREAT | os.O_TRUNC, 0o644)
-    try:
-        _write_all(fd, data)
-        os.fsync(fd)
-    finally:
-        os.close(fd)
-    os.replace(tmp, path)
-    _fsync_dir(path.parent)
 
 
 def summarise(result: Result) -> dict:
@@ -652,7 +623,7 @@ class Logbook:
         self._fd = os.open(self.path, os.O_RDWR | os.O_APPEND | os.O_CREAT, 0o644)
         if created:
             os.fsync(self._fd)
-            _fsync_dir(self.path.parent)
+            fsync_dir(self.path.parent)
         data = _read_fd(self._fd)
         lines, torn = _split_lines(data)
         if not torn and lines and not _parses(lines[-1]):
@@ -692,11 +663,11 @@ class Logbook:
         while side.exists():
             k += 1
             side = self.path.with_name(f"{self.path.name}.torn-{stamp}-{k}.txt")
-        atomic_write_bytes(side, torn)
+        write_atomic(side, torn)
         return TornRecovery(self.path, side, line_no, len(torn))
 
     def _write_head(self) -> None:
-        atomic_write_bytes(
+        write_atomic(
             self.head_path,
             (_dumps({"format": HEAD_FORMAT, "seq": self._last_seq, "sha256": self._last_sha}) + "\n").encode(),
         )

@@ -12,12 +12,12 @@ import io
 import sys
 from pathlib import Path
 
+from deckload.atomicfile import write_atomic
 from deckload.logbook import (
     KIND_LABELS,
     LogEntry,
     Logbook,
     LogLockedError,
-    atomic_write_bytes,
     log_files,
     vessel_of_log,
 )
@@ -269,7 +269,7 @@ def _export(args) -> int:
     if args.output is None:
         sys.stdout.write(text)
         return 0
-    atomic_write_bytes(Path(args.output), text.encode("utf-8"))
+    write_atomic(Path(args.output), text.encode("utf-8"))
     n = sum(len(es) for _, es in data)
     print(f"{n} entries written to {args.output}", file=sys.stderr)
     return 0

@@ -124,9 +124,10 @@ def _header(result: Result, vessel: Vessel, condition: Condition, stamp: str | N
     if stamp:
         where.append(f"Computed {stamp}")
     if source:
-        where.append(f"condition file {source}")
+        where.append(f"Condition file {source}")
     if where:
-        t.append("; ".join(where) + "\n")
+        joined = "; ".join(where)
+        t.append((joined if len(joined) <= TEXT_WIDTH else "\n".join(where)) + "\n")
     return Group(t)
 
 
@@ -609,9 +610,9 @@ def run_report(profile_path: Path, condition_path: Path, html: bool, output: Pat
         sys.stdout.write(doc)
         return 0
     try:
-        from deckload.logbook import atomic_write_bytes
+        from deckload.atomicfile import write_atomic
 
-        atomic_write_bytes(Path(output), doc.encode("utf-8"))
+        write_atomic(Path(output), doc.encode("utf-8"))
     except OSError as e:
         print(f"deckload: cannot write {output}: {e.strerror}", file=sys.stderr)
         return 2

@@ -29,6 +29,7 @@ import os
 import random
 import signal
 import sys
+import threading
 from pathlib import Path
 
 sys.path.insert(0, str(Path(__file__).resolve().parent))
@@ -94,6 +95,9 @@ def tear(log_dir: Path, rng: random.Random) -> None:
 
 
 def main() -> int:
+    if threading.active_count() != 1 or len(os.listdir("/proc/self/task")) != 1:
+        say("error: the server must be single-threaded before it forks (set OPENBLAS_NUM_THREADS=1)")
+        return 1
     log_dir, cond_path = Path(sys.argv[1]), Path(sys.argv[2])
     v = vessel()
     rng = random.Random(int(sys.argv[3]) if len(sys.argv) > 3 else 1)

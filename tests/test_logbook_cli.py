@@ -187,3 +187,14 @@ def test_report_of_a_full_departure_fits_one_a4_page(demo):
     for tk in r.tanks:
         if tk.mass_t > 0:
             assert f"{tk.mass_t:.2f}" in doc
+
+
+@pytest.mark.parametrize("name", ["departure", "midvoyage", "arrival"])
+def test_report_of_each_demo_condition_fits_one_a4_page(demo, name):
+    from deckload.paths import DEMO_CONDITIONS
+    from deckload.report import render_report_html
+
+    c = load_condition(DEMO_CONDITIONS[name], demo)
+    doc = render_report_html(evaluate(demo, c), demo, c, stamp="2026-12-01 22:00 UTC (ship's time "
+                             "2026-12-02 08:00, +10:00)", source=DEMO_CONDITIONS[name].name)
+    assert 'data-fits-a4="yes"' in doc

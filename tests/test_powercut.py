@@ -26,6 +26,7 @@ import hashlib
 import json
 import os
 import random
+import select
 import signal
 import subprocess
 import sys
@@ -44,18 +45,24 @@ from deckload.profiles import save_condition  # noqa: E402
 
 KILLS = 200
 TEARS = 20
+READ_TIMEOUT_S = 30.0
 ROOT = Path(__file__).resolve().parents[1]
 
 
 class Server:
     def __init__(self, log_dir: Path, cond_path: Path, seed: int):
+        # The server forks its writers: keep it single-threaded (no BLAS thread pool), since a
+        # fork taken while another thread holds a lock can leave the child waiting for ever.
+        env = {**os.environ, "OPENBLAS_NUM_THREADS": "1", "OMP_NUM_THREADS": "1", "MKL_NUM_THREADS": "1"}
         self.p = subprocess.Popen(
             [sys.executable, str(ROOT / "tests" / "powercut_writer.py"), str(log_dir), str(cond_path), str(seed)],
-            stdin=subprocess.PIPE, stdout=subprocess.PIPE, cwd=ROOT, bufsize=0,
+            stdin=subprocess.PIPE, stdout=subprocess.PIPE, cwd=ROOT, bufsize=0, env=env,
         )
         assert self.readline() == "server ready"
 
     def readline(self) -> str:
+        ready, _, _ = select.select([self.p.stdout], [], [], READ_TIMEOUT_S)
+        assert ready, f"no word from the writer in {READ_TIMEOUT_S} s: a writer is stuck"
         line = self.p.stdout.readline()
         assert line, "the writer server ended unexpectedly"
         return line.decode().rstrip("\n")
@@ -75,7 +82,12 @@ class Server:
         self.send("reap")
 
     def until(self, pid: int, word: str, lines: list[str]) -> int | None:
-        """Read until the child says ``word`` (None) or ends first (its exit code)."""
+        """Read until the child says ``word`` (None) or ends first (its exit code).
+
+        The child may have said it already, before the server announced its pid.
+        """
+        if word in lines:
+            return None
         while True:
             line = self.readline()
             if line.startswith(f"exit {pid} "):
@@ -193,7 +205,6 @@ def test_sigkill_at_random_moments_loses_nothing(tmp_path):
     assert set(torn) <= set(set_aside)
     cut_short = [c for h, c in set_aside.items() if h not in torn]
     for c in cut_short:
-        print("CUT", len(c), c[:60], c[-40:])
         assert b"\n" not in c and c.startswith(b'{"format":"deckload-log-1","seq":'), c[:80]
         with pytest.raises(json.JSONDecodeError):
             json.loads(c)
