@@ -57,8 +57,12 @@ def format_summary(r: Result) -> str:
     return "\n".join(lines)
 
 
-def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False) -> int:
-    """Load, evaluate and print; exit 0 when computed (pass or fail), 1 on bad input."""
+def load_and_evaluate(profile_path: Path, condition_path: Path):
+    """Load a profile and a condition and evaluate them, for the commands that print results.
+
+    Returns ``(vessel, condition, result)``, or the exit status after printing what is
+    wrong to stderr: 1 for bad input (naming the file and key), 2 for an unreadable file.
+    """
     from deckload.core.loading import LoadingError
     from deckload.core.stability import evaluate
     from deckload.core.tables import OutOfRangeError
@@ -67,7 +71,7 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False)
     try:
         vessel = load_profile(profile_path)
         condition = load_condition(condition_path, vessel)
-        result = evaluate(vessel, condition)
+        return vessel, condition, evaluate(vessel, condition)
     except ProfileError as e:
         print(str(e), file=sys.stderr)
         return 1
@@ -77,6 +81,14 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False)
     except OSError as e:
         print(f"deckload: cannot read {e.filename}: {e.strerror}", file=sys.stderr)
         return 2
+
+
+def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False) -> int:
+    """Load, evaluate and print; exit 0 when computed (pass or fail), non-zero on bad input."""
+    loaded = load_and_evaluate(profile_path, condition_path)
+    if isinstance(loaded, int):
+        return loaded
+    result = loaded[2]
     if as_json:
         print(json.dumps(result.to_json_dict(), indent=1, ensure_ascii=False))
     else:

@@ -63,11 +63,8 @@ def run_log(args) -> int:
 
 
 def _record(args) -> int:
-    from deckload.core.loading import LoadingError
-    from deckload.core.stability import evaluate
-    from deckload.core.tables import OutOfRangeError
+    from deckload.commands import load_and_evaluate
     from deckload.logbook import KINDS, validate_initials
-    from deckload.profiles import ProfileError, load_condition, load_profile
 
     try:
         by = validate_initials(args.by)
@@ -77,16 +74,10 @@ def _record(args) -> int:
     if args.kind not in KINDS:
         print(f"deckload log record: --kind {args.kind!r} is not one of: {', '.join(KINDS)}", file=sys.stderr)
         return 1
-    try:
-        vessel = load_profile(args.profile)
-        condition = load_condition(args.condition, vessel)
-        result = evaluate(vessel, condition)
-    except ProfileError as e:
-        print(str(e), file=sys.stderr)
-        return 1
-    except (LoadingError, OutOfRangeError) as e:
-        print(f"{args.condition}: {e}", file=sys.stderr)
-        return 1
+    loaded = load_and_evaluate(args.profile, args.condition)
+    if isinstance(loaded, int):
+        return loaded
+    vessel, condition, result = loaded
     directory = _log_dir(args)
     book = Logbook.open(directory, vessel.particulars.name, ship_offset=getattr(args, "ship_offset", None))
     try:

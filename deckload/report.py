@@ -579,25 +579,13 @@ def run_report(profile_path: Path, condition_path: Path, html: bool, output: Pat
     Exit 0 when written (whether or not the criteria pass), 1 on bad input, 2 when a
     file cannot be read or written.
     """
-    from deckload.core.loading import LoadingError
-    from deckload.core.stability import evaluate
-    from deckload.core.tables import OutOfRangeError
+    from deckload.commands import load_and_evaluate
     from deckload.logbook import clock_stamp
-    from deckload.profiles import ProfileError, load_condition, load_profile
 
-    try:
-        vessel = load_profile(profile_path)
-        condition = load_condition(condition_path, vessel)
-        result = evaluate(vessel, condition)
-    except ProfileError as e:
-        print(str(e), file=sys.stderr)
-        return 1
-    except (LoadingError, OutOfRangeError) as e:
-        print(f"{condition_path}: {e}", file=sys.stderr)
-        return 1
-    except OSError as e:
-        print(f"deckload: cannot read {e.filename}: {e.strerror}", file=sys.stderr)
-        return 2
+    loaded = load_and_evaluate(profile_path, condition_path)
+    if isinstance(loaded, int):
+        return loaded
+    vessel, condition, result = loaded
     stamp = clock_stamp()
     source = Path(condition_path).name
     if html:

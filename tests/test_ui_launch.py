@@ -56,3 +56,21 @@ def test_a_log_held_by_another_writer_opens_read_only_and_says_so(tmp_path):
         assert holder.entries() == []
     finally:
         holder.close()
+
+
+def test_a_torn_log_line_is_reported_at_start(tmp_path):
+    """A power cut mid-append leaves half a line: the screen must say it was set aside."""
+    from deckload.logbook import Logbook
+    from deckload.ui.launch import open_journal
+
+    book = Logbook.open(tmp_path, "Torn Test")
+    path = book.path
+    book.close()
+    with open(path, "ab") as fh:
+        fh.write(b'{"seq": 1, "half a line')
+    journal = open_journal(tmp_path, "Torn Test")
+    try:
+        assert journal.writable
+        assert journal.notice is not None and "interrupted write" in journal.notice
+    finally:
+        journal.logbook.close()

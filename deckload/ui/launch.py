@@ -55,7 +55,8 @@ def create_app(
     journal.officer = officer
     save_path = working_path(work_dir, vessel) if work_dir is not None else None
     session = Session(vessel, condition, save_path=save_path, journal=journal)
-    return DeckloadApp(session, notices=[*notices, *([journal.problem] if journal.problem else [])])
+    extra = [n for n in (journal.problem, journal.notice) if n]
+    return DeckloadApp(session, notices=[*notices, *extra])
 
 
 def open_journal(log_dir: Path | None, vessel_name: str):
@@ -70,7 +71,11 @@ def open_journal(log_dir: Path | None, vessel_name: str):
     except Exception as exc:  # a broken log must not stop the loading screen
         return Journal(None, f"voyage log not available: {exc}")
     problem = f"voyage log read-only: {book.readonly_reason}" if book.readonly else None
-    return Journal(book, problem)
+    journal = Journal(book, problem)
+    if book.recovered_torn is not None:
+        # A power cut left half a line at the end of the log: it was set aside, never dropped.
+        journal.notice = f"voyage log recovered after an interrupted write: {book.recovered_torn}"
+    return journal
 
 
 def run_open(profile_path: Path | None, condition_path: Path | None) -> int:

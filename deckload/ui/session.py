@@ -47,6 +47,8 @@ class Journal:
         self.logbook = logbook
         self.problem = problem
         """Why the log cannot be written (read-only, unreadable), or None."""
+        self.notice: str | None = None
+        """Something the officer should read at start-up (e.g. a torn last line set aside)."""
         self.officer = ""
         """Initials of the officer on watch (1–4 letters); edits are logged under them, and not
         logged until someone signs on (the title line says so)."""
