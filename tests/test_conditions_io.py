@@ -1,6 +1,6 @@
 """Loading conditions: validation against the vessel, lossless round trip, atomic save.
 
-The vessel is the box barge of /work/shared/reference/checks.md §1 (L=40, B=10, D=4),
+The vessel is the box barge of checks.md §1 (L=40, B=10, D=4),
 ``tests/broken_profiles/box_barge.toml``: two 50 m³ double-bottom ballast tanks
 DB1P/DB1S (sounding 0–1 m), hold H1 of 600 m³, deck area DECK; hydrostatics for
 Δ = 205–1435 t, KN curves for Δ = 410–1230 t.

@@ -1,7 +1,7 @@
 """Vessel-profile validation: each broken profile is rejected with its precise message.
 
 The valid base is ``tests/broken_profiles/box_barge.toml``: the box barge L=40, B=10,
-D=4 of /work/shared/reference/checks.md §1 (analytic; the file's header derives its
+D=4 of checks.md §1 (analytic; the file's header derives its
 tables).  Every broken case below is that text with one or more lines changed, so
 the expected line number is found in the broken text itself.
 """
