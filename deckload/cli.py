@@ -77,7 +77,7 @@ def _demo_shorthand(args: argparse.Namespace) -> None:
     """Let 'demo' stand for the packaged demo profile and a demo condition's key for its file."""
     from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
 
-    if getattr(args, "profile", None) is not None and str(args.profile) == "demo" and not args.profile.exists():
+    if getattr(args, "profile", None) is not None and str(args.profile) == "demo" and not args.profile.is_file():
         args.profile = DEMO_PROFILE
         cond = getattr(args, "condition", None)
         if cond is not None and str(cond) in DEMO_CONDITIONS:
