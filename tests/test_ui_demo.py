@@ -75,3 +75,59 @@ async def test_sign_on_then_changes_are_logged_and_the_log_screen_opens(app):
         assert isinstance(app.screen, LogScreen)
         entries = app.session.journal.logbook.entries()
         assert [(e.kind, e.by) for e in entries] == [("ballast", "JM")]
+
+
+async def _cursor_to(pilot, app, key) -> None:
+    board = app.screen.query_one(LoadBoard)
+    await pilot.press("home")
+    for _ in range(60):
+        if board.cursor_key == key:
+            return
+        await pilot.press("down")
+    raise AssertionError(f"cursor never reached {key}")
+
+
+async def test_new_user_scenario_transfer_undo_and_sounding(app):
+    """The issue's walk-through on the demo: pump ballast from one wing tank to another with a
+    preview, undo it, fill a tank by sounding, and see the numbers and the GZ curve follow."""
+    from textual.widgets import Input
+
+    from deckload.ui.dialogs import TransferForm
+
+    async with app.run_test(size=(120, 40)) as pilot:
+        c0, r0 = app.session.condition, app.session.result
+        await _cursor_to(pilot, app, ("tank", "WB2S"))
+        await pilot.press("t")
+        form = app.screen
+        assert isinstance(form, TransferForm)
+        form.query_one("#xfer-to", Input).value = "WB1S"
+        form.query_one("#xfer-amount", Input).value = "10t"
+        await pilot.pause()
+        after = app.session.preview(form.plan.condition)[0]
+        preview = form.query_one("#xfer-preview", LinePanel).plain()
+        assert f"{r0.gm_fluid_m:.3f}" in preview and f"{after.gm_fluid_m:.3f}" in preview
+        assert app.session.condition is c0  # the preview changes nothing
+        await pilot.press("enter")
+        await pilot.pause()
+        r1 = app.session.result
+        assert r1.displacement_t == pytest.approx(r0.displacement_t, abs=1e-9)  # mass conserved
+        wb1s = next(t for t in r1.tanks if t.id == "WB1S")
+        assert wb1s.mass_t == pytest.approx(10.0)
+        assert r1.gm_fluid_m == pytest.approx(after.gm_fluid_m)
+        assert r1.gz_port_m != r0.gz_port_m
+        await pilot.press("u")
+        await pilot.pause()
+        assert app.session.condition == c0
+        assert app.session.result.gm_fluid_m == pytest.approx(r0.gm_fluid_m)
+
+        await _cursor_to(pilot, app, ("tank", "DB1P"))
+        await pilot.press("enter")
+        await pilot.press(*"0.5m", "enter")
+        await pilot.pause()
+        fill = app.session.condition.tank_fill("DB1P")
+        assert (fill.quantity, fill.value) == ("sounding_m", 0.5)
+        r2 = app.session.result
+        db1p = next(t for t in r2.tanks if t.id == "DB1P")
+        assert db1p.sounding_m == pytest.approx(0.5) and db1p.mass_t > 0
+        assert r2.displacement_t == pytest.approx(r0.displacement_t + db1p.mass_t)
+        assert f"{r2.displacement_t:.1f}" in app.screen.query_one("#afloat", LinePanel).plain()

@@ -161,13 +161,17 @@ class LoadBoard(ScrollView, can_focus=True):
             self.refresh(Region(0, i - top, width, 1))
 
     def action_move(self, delta: int) -> None:
-        i = max(0, min(len(self.rows) - 1, self.cursor + delta))
+        start = max(0, min(len(self.rows) - 1, self.cursor + delta))
         step = 1 if delta > 0 else -1
-        while 0 <= i < len(self.rows) and self.rows[i].key is None:
-            i += step
-        if not 0 <= i < len(self.rows):
-            return
-        self._set_cursor(i)
+        # Headings are skipped in the direction of travel; at either end of the board
+        # (Home onto a heading), the nearest selectable line the other way is taken.
+        for direction in (step, -step):
+            i = start
+            while 0 <= i < len(self.rows) and self.rows[i].key is None:
+                i += direction
+            if 0 <= i < len(self.rows):
+                self._set_cursor(i)
+                return
 
     def _set_cursor(self, i: int, announce: bool = True) -> None:
         i = max(0, min(len(self.rows) - 1, i))
