@@ -13,8 +13,6 @@ from __future__ import annotations
 
 import math
 import os
-import re
-import tomllib
 from pathlib import Path
 from typing import Any
 
@@ -36,10 +34,21 @@ from deckload.core.geometry.spec import (
     VesselSpec,
 )
 from deckload.core.model import LIQUID_KINDS
-from deckload.profiles import Problem, ProfileError
+from deckload.profiles import above_keel, liquid_density, water_density
+from deckload.tomlcheck import (
+    MISSING,
+    FileCheck,
+    Problem,
+    ProfileError,
+    Table,
+    Wording,
+    above,
+    between,
+    check_tank_pairs,
+    claim_id,
+)
 
 GEOMETRY_FORMAT = "deckload-geometry-1"
-ID_PATTERN = re.compile(r"^[A-Za-z0-9_-]+$")
 OUTSIDE_TOLERANCE = 0.005
 """A box or prism tank may stick out of the hull by at most 0.5 % of its section area."""
 
@@ -53,6 +62,7 @@ class GeometryError(ProfileError):
 
 
 def _fmt(v: Any) -> str:
+    """A value in a geometry message: numbers as short as they go (10, not 10.0), strings quoted '...'."""
     if isinstance(v, list):
         inner = ", ".join(_fmt(x) for x in v[:4])
         more = f", …{len(v)} values" if len(v) > 4 else ""
@@ -66,156 +76,8 @@ def _fmt(v: Any) -> str:
     return str(v)
 
 
-class _Lines:
-    """Line numbers of keys: (table name, entry index or None, key) → 1-based line."""
-
-    _header = re.compile(r"^\s*(\[\[?)\s*([A-Za-z0-9_.\-]+)\s*\]\]?")
-    _key = re.compile(r"^\s*([A-Za-z0-9_\-]+)\s*=")
-
-    def __init__(self, text: str):
-        self.map: dict[tuple, int] = {}
-        counts: dict[str, int] = {}
-        table: tuple = ("", None)
-        depth = 0
-        for n, line in enumerate(text.splitlines(), start=1):
-            if depth == 0:
-                h = self._header.match(line)
-                if h:
-                    name = h.group(2)
-                    if h.group(1) == "[[":
-                        idx = counts.get(name, 0)
-                        counts[name] = idx + 1
-                        table = (name, idx)
-                    else:
-                        parent = name.split(".")[0]
-                        table = (name, counts.get(parent, 1) - 1 if "." in name else None)
-                    self.map.setdefault(table, n)
-                    continue
-                k = self._key.match(line)
-                if k:
-                    self.map.setdefault(table + (k.group(1),), n)
-            code = line.split("#", 1)[0]
-            depth += code.count("[") - code.count("]")
-            depth = max(depth, 0)
-
-    def find(self, table: str, index: int | None, key: str | None) -> int | None:
-        if key is not None and (table, index, key) in self.map:
-            return self.map[(table, index, key)]
-        return self.map.get((table, index))
-
-
-class _Reader:
-    def __init__(self, filename: str, text: str):
-        self.filename = filename
-        self.text = text
-        self.lines = _Lines(text)
-        self.problems: list[GeometryProblem] = []
-
-    def bad(self, table: str, index: int | None, name: str, key: str | None, value: Any, rule: str) -> None:
-        dotted = f"{name}.{key}" if key else name
-        val = None if value is _MISSING else _fmt(value)
-        self.problems.append(GeometryProblem(self.filename, self.lines.find(table, index, key), dotted, val, rule))
-
-
-_MISSING = object()
-
-
-class _Tab:
-    """One table of the file, read with checks; unknown keys are problems."""
-
-    def __init__(self, r: _Reader, data: Any, table: str, index: int | None, name: str):
-        self.r, self.table, self.index, self.name = r, table, index, name
-        self.data = data if isinstance(data, dict) else {}
-        self.seen: set[str] = set()
-        if not isinstance(data, dict):
-            r.bad(table, index, name, None, data, "must be a table")
-
-    def bad(self, key: str | None, value: Any, rule: str) -> None:
-        self.r.bad(self.table, self.index, self.name, key, value, rule)
-
-    def has(self, k: str) -> bool:
-        return k in self.data
-
-    def get(self, k: str, required: bool = True) -> Any:
-        self.seen.add(k)
-        if k not in self.data:
-            if required:
-                self.bad(k, _MISSING, "missing (required)")
-            return _MISSING
-        return self.data[k]
-
-    def num(self, k: str, lo: float | None = None, hi: float | None = None, required: bool = True,
-            default: float | None = None, strict_lo: bool = False) -> float | None:
-        v = self.get(k, required)
-        if v is _MISSING:
-            return default
-        if isinstance(v, bool) or not isinstance(v, (int, float)) or not math.isfinite(v):
-            self.bad(k, v, "must be a finite number")
-            return None
-        v = float(v)
-        if lo is not None and (v < lo or (strict_lo and v <= lo)):
-            self.bad(k, v, f"must be {'above' if strict_lo else 'at least'} {lo:g}")
-            return None
-        if hi is not None and v > hi:
-            self.bad(k, v, f"must be at most {hi:g}")
-            return None
-        return v
-
-    def text(self, k: str, required: bool = True, choices: tuple[str, ...] | None = None,
-             default: str | None = None) -> str | None:
-        v = self.get(k, required)
-        if v is _MISSING:
-            return default
-        if not isinstance(v, str):
-            self.bad(k, v, "must be a string")
-            return None
-        if choices is not None and v not in choices:
-            self.bad(k, v, "must be one of " + ", ".join(repr(c) for c in choices))
-            return None
-        return v
-
-    def array(self, k: str, required: bool = True, min_len: int = 1, increasing: bool = False,
-              lo: float | None = None, length: int | None = None) -> np.ndarray | None:
-        v = self.get(k, required)
-        if v is _MISSING:
-            return None
-        if not isinstance(v, list) or not all(
-            isinstance(x, (int, float)) and not isinstance(x, bool) and math.isfinite(x) for x in v
-        ):
-            self.bad(k, v, "must be an array of finite numbers")
-            return None
-        a = np.array(v, dtype=float)
-        if len(a) < min_len:
-            self.bad(k, v, f"needs at least {min_len} values")
-            return None
-        if length is not None and len(a) != length:
-            self.bad(k, v, f"must have {length} values, has {len(a)}")
-            return None
-        if lo is not None and np.any(a < lo):
-            i = int(np.argmax(a < lo))
-            self.bad(k, v, f"value {i + 1} ({a[i]:g}) is below {lo:g}")
-            return None
-        if increasing:
-            d = np.diff(a)
-            if np.any(d <= 0):
-                i = int(np.argmax(d <= 0)) + 1
-                self.bad(k, v, f"not strictly increasing (value {i + 1}: {a[i]:g} after {a[i - 1]:g})")
-                return None
-        return a
-
-    def pair(self, k: str, required: bool = True) -> tuple[float, float] | None:
-        a = self.array(k, required=required, min_len=2, length=2)
-        if a is None:
-            return None
-        if not a[0] < a[1]:
-            self.bad(k, self.data[k], "must be [from, to] with from below to")
-            return None
-        return float(a[0]), float(a[1])
-
-    def finish(self) -> None:
-        for k in self.data:
-            if k not in self.seen:
-                self.bad(k, self.data[k], "unknown key")
+WORDING = Wording(value=_fmt, element="value", missing="missing (required)")
+"""Geometry files word values and array elements their own way (the rules are shared with profiles)."""
 
 
 def load_geometry(path: str | os.PathLike) -> Geometry:
@@ -231,16 +93,10 @@ def load_geometry(path: str | os.PathLike) -> Geometry:
 
 
 def parse_geometry(text: str, filename: str = "<geometry>") -> Geometry:
-    r = _Reader(filename, text)
-    try:
-        data = tomllib.loads(text)
-    except tomllib.TOMLDecodeError as e:
-        m = re.search(r"line (\d+)", str(e))
-        raise GeometryError([GeometryProblem(filename, int(m.group(1)) if m else None, "", None, f"TOML syntax: {e}")])
-    root = _Tab(r, data, "", None, "")
-    fmt = root.get("format")
-    if fmt is not _MISSING and fmt != GEOMETRY_FORMAT:
-        root.bad("format", fmt, f"must be {GEOMETRY_FORMAT!r}")
+    """Validate the text of a geometry file; raises :class:`GeometryError` listing every problem."""
+    ctx = FileCheck(filename, text, WORDING, GeometryError)
+    root = ctx.root()
+    root.text("format", choices=(GEOMETRY_FORMAT,))
     vessel = _read_vessel(root)
     hull = _read_hull(root)
     tables = _read_tables(root, hull)
@@ -253,27 +109,26 @@ def parse_geometry(text: str, filename: str = "<geometry>") -> Geometry:
     if vessel is not None and hull is not None:
         xs = hull.station_x_m
         if not (xs[0] <= 0.0 and vessel.lbp_m <= xs[-1]):
-            root_t = _Tab(r, data.get("hull", {}), "hull", None, "hull")
-            root_t.bad("station_x_m", data["hull"]["station_x_m"],
-                       f"must reach from the AP (x = 0) to the FP (x = lbp_m = {vessel.lbp_m:g})")
-    if r.problems:
-        raise GeometryError(sorted(r.problems, key=lambda p: (p.line is None, p.line or 0)))
+            t = Table(ctx, root.data["hull"], ("hull",), "hull")
+            t.bad("station_x_m", t.data["station_x_m"],
+                  f"must reach from the AP (x = 0) to the FP (x = lbp_m = {vessel.lbp_m:g})")
+    ctx.fail_if_any()
     assert vessel is not None and hull is not None and tables is not None
     return Geometry(vessel=vessel, hull=hull, tables=tables, tanks=tuple(tanks), holds=tuple(holds),
                     deck_areas=tuple(areas), openings=tuple(openings))
 
 
-def _read_vessel(root: _Tab) -> VesselSpec | None:
-    if root.get("vessel") is _MISSING:
+def _read_vessel(root: Table) -> VesselSpec | None:
+    t = root.table("vessel")
+    if t is None:
         return None
-    t = _Tab(root.r, root.data["vessel"], "vessel", None, "vessel")
     kw = dict(
         name=t.text("name"),
-        lbp_m=t.num("lbp_m", 0.0, strict_lo=True),
-        breadth_m=t.num("breadth_m", 0.0, strict_lo=True),
-        depth_m=t.num("depth_m", 0.0, strict_lo=True),
-        design_draft_m=t.num("design_draft_m", 0.0, strict_lo=True),
-        table_density_t_m3=t.num("table_density_t_m3", 0.99, 1.04, required=False, default=1.025),
+        lbp_m=t.num("lbp_m", above(0.0)),
+        breadth_m=t.num("breadth_m", above(0.0)),
+        depth_m=t.num("depth_m", above(0.0)),
+        design_draft_m=t.num("design_draft_m", above(0.0)),
+        table_density_t_m3=t.num("table_density_t_m3", water_density, required=False, default=1.025),
     )
     t.finish()
     if any(v is None for v in kw.values()):
@@ -284,17 +139,17 @@ def _read_vessel(root: _Tab) -> VesselSpec | None:
     return VesselSpec(**kw)
 
 
-def _read_hull(root: _Tab) -> HullOffsets | None:
-    if root.get("hull") is _MISSING:
+def _read_hull(root: Table) -> HullOffsets | None:
+    t = root.table("hull")
+    if t is None:
         return None
-    t = _Tab(root.r, root.data["hull"], "hull", None, "hull")
-    xs = t.array("station_x_m", min_len=3, increasing=True)
-    zw = t.array("waterline_z_m", min_len=2, increasing=True, lo=0.0)
-    deck = t.array("deck_z_m", length=None if xs is None else len(xs))
+    xs = t.increasing("station_x_m", t.array("station_x_m", min_len=3))
+    zw = t.increasing("waterline_z_m", t.array("waterline_z_m", above_keel))
+    deck = t.array("deck_z_m", min_len=1, length=None if xs is None else len(xs))
     hb_raw = t.get("half_breadth_m")
     t.finish()
     hb = None
-    if hb_raw is not _MISSING and xs is not None and zw is not None:
+    if hb_raw is not MISSING and xs is not None and zw is not None:
         if not isinstance(hb_raw, list) or len(hb_raw) != len(xs):
             t.bad("half_breadth_m", hb_raw, f"must have one row per station ({len(xs)} rows)")
         else:
@@ -337,35 +192,29 @@ def _read_hull(root: _Tab) -> HullOffsets | None:
     return hull
 
 
-def _read_tables(root: _Tab, hull: HullOffsets | None) -> TableSpec | None:
-    if root.get("tables") is _MISSING:
+def _read_tables(root: Table, hull: HullOffsets | None) -> TableSpec | None:
+    t = root.table("tables")
+    if t is None:
         return None
-    t = _Tab(root.r, root.data["tables"], "tables", None, "tables")
-    draft = t.array("draft_m", min_len=2, increasing=True, lo=0.0)
-    if draft is not None and draft[0] <= 0.0:
-        t.bad("draft_m", t.data["draft_m"], "drafts must be above 0")
-        draft = None
+    draft = t.increasing("draft_m", t.array("draft_m", above(0.0)))
     if draft is not None and hull is not None and draft[-1] > float(np.min(hull.deck_z_m)):
         t.bad("draft_m", t.data["draft_m"],
               f"the deepest draft {draft[-1]:g} m is above the lowest deck at side ({float(np.min(hull.deck_z_m)):g} m)")
         draft = None
-    disp = t.array("kn_displacement_t", min_len=2, increasing=True)
-    if disp is not None and disp[0] <= 0:
-        t.bad("kn_displacement_t", t.data["kn_displacement_t"], "displacements must be above 0")
-        disp = None
-    heel = t.array("kn_heel_deg", min_len=2, increasing=True)
+    disp = t.increasing("kn_displacement_t", t.array("kn_displacement_t", above(0.0)))
+    heel = t.increasing("kn_heel_deg", t.array("kn_heel_deg"))
     if heel is not None and (heel[0] != 0.0 or heel[-1] > 90.0):
         t.bad("kn_heel_deg", t.data["kn_heel_deg"], "must start at 0 and end at most at 90")
         heel = None
     basis = t.text("trim_basis", choices=("free trim", "even keel"))
     lcg = t.num("trim_lcg_m", required=basis == "free trim", default=0.0)
-    vcg = t.num("trim_vcg_m", 0.0, required=basis == "free trim", default=0.0)
-    step = t.num("sounding_step_m", 0.0, required=False, default=0.1, strict_lo=True)
-    fstep = t.num("transfer_fill_step_pct", 0.0, 50.0, required=False, default=5.0, strict_lo=True)
+    vcg = t.num("trim_vcg_m", above_keel, required=basis == "free trim", default=0.0)
+    step = t.num("sounding_step_m", above(0.0), required=False, default=0.1)
+    fstep = t.num("transfer_fill_step_pct", above(0.0), between(0.0, 50.0, "%"), required=False, default=5.0)
     if fstep is not None and abs(100.0 / fstep - round(100.0 / fstep)) > 1e-9:
         t.bad("transfer_fill_step_pct", fstep, "must divide 100")
         fstep = None
-    theel = t.array("transfer_heel_deg", required=False, min_len=2, increasing=True)
+    theel = t.increasing("transfer_heel_deg", t.array("transfer_heel_deg", required=False))
     if theel is not None and (theel[0] != 0.0 or theel[-1] > 90.0):
         t.bad("transfer_heel_deg", t.data["transfer_heel_deg"], "must start at 0 and end at most at 90")
         theel = None
@@ -380,33 +229,7 @@ def _read_tables(root: _Tab, hull: HullOffsets | None) -> TableSpec | None:
                      transfer_heel_deg=theel)
 
 
-def _entries(root: _Tab, key: str) -> list[_Tab]:
-    v = root.get(key, required=False)
-    if v is _MISSING:
-        return []
-    if not isinstance(v, list):
-        root.bad(key, v, f"must be an array of tables ([[{key}]])")
-        return []
-    return [_Tab(root.r, e, key, i, f"{key}[#{i + 1}]") for i, e in enumerate(v)]
-
-
-def _claim_id(t: _Tab, kind: str, ids: dict[str, str]) -> str | None:
-    ident = t.text("id")
-    if ident is None:
-        return None
-    if not ID_PATTERN.match(ident):
-        t.bad("id", ident, "must use only letters, digits, '-' and '_'")
-        return None
-    own = t.name
-    t.name = f"{kind}[{ident}]"
-    if ident in ids:
-        t.bad("id", ident, f"duplicate id: already used by {ids[ident]}")
-        return None
-    ids[ident] = own
-    return ident
-
-
-def _read_shape(t: _Tab, hull: HullOffsets | None) -> CompartmentShape | None:
+def _read_shape(t: Table, hull: HullOffsets | None) -> CompartmentShape | None:
     shape = t.text("shape", choices=COMPARTMENT_SHAPES)
     x = t.pair("x_m")
     if shape is None or x is None:
@@ -444,7 +267,7 @@ def _read_shape(t: _Tab, hull: HullOffsets | None) -> CompartmentShape | None:
     return CompartmentShape(shape, x[0], x[1], y[0], y[1], z[0], z[1])
 
 
-def _check_inside(t: _Tab, shape: CompartmentShape, hull: HullOffsets | None) -> bool:
+def _check_inside(t: Table, shape: CompartmentShape, hull: HullOffsets | None) -> bool:
     """A hull-shaped compartment must contain some hull; a box or prism must lie inside it."""
     if hull is None:
         return False
@@ -498,16 +321,16 @@ def _prism_inside(py: np.ndarray, pz: np.ndarray, hy: np.ndarray, hz: np.ndarray
     return True
 
 
-def _read_tanks(root: _Tab, hull: HullOffsets | None, ids: dict[str, str]) -> list[TankSpec]:
+def _read_tanks(root: Table, hull: HullOffsets | None, ids: dict[str, str]) -> list[TankSpec]:
     out: list[TankSpec] = []
     entries = []
-    for t in _entries(root, "tank"):
-        ident = _claim_id(t, "tank", ids)
+    for t in root.tables("tank"):
+        ident = claim_id(t, "tank", ids)
         name = t.text("name")
         kind = t.text("kind", choices=LIQUID_KINDS)
-        dens = t.num("density_t_m3", 0.5, 2.0)
-        pair = t.text("pair", required=False)
-        cat = t.text("fs_category", required=False, choices=("fixed", "variable"))
+        dens = t.num("density_t_m3", liquid_density)
+        pair = t.text("pair", required=False, default=None)
+        cat = t.text("fs_category", required=False, default=None, choices=("fixed", "variable"))
         shape = _read_shape(t, hull)
         t.finish()
         ok = shape is not None and _check_inside(t, shape, hull)
@@ -515,25 +338,16 @@ def _read_tanks(root: _Tab, hull: HullOffsets | None, ids: dict[str, str]) -> li
         if ok and None not in (ident, name, kind, dens):
             out.append(TankSpec(id=ident, name=name, kind=kind, density_t_m3=dens, shape=shape, pair=pair,
                                 fs_category=cat))
-    pairs = {ident: pair for _, ident, pair in entries if ident is not None}
-    for t, ident, pair in entries:
-        if ident is None or pair is None:
-            continue
-        if pair == ident:
-            t.bad("pair", pair, "a tank cannot be its own pair")
-        elif pair not in pairs:
-            t.bad("pair", pair, "no tank with this id")
-        elif pairs[pair] != ident:
-            t.bad("pair", pair, f"tank {pair} does not name {ident} back as its pair")
+    check_tank_pairs(entries)  # a bad pair is a problem, so the file is rejected
     return out
 
 
-def _read_holds(root: _Tab, hull: HullOffsets | None, ids: dict[str, str]) -> list[HoldSpec]:
+def _read_holds(root: Table, hull: HullOffsets | None, ids: dict[str, str]) -> list[HoldSpec]:
     out = []
-    for t in _entries(root, "hold"):
-        ident = _claim_id(t, "hold", ids)
+    for t in root.tables("hold"):
+        ident = claim_id(t, "hold", ids)
         name = t.text("name")
-        mx = t.num("max_mass_t", 0.0, required=False, strict_lo=True)
+        mx = t.num("max_mass_t", above(0.0), required=False)
         has_mx = t.has("max_mass_t")
         shape = _read_shape(t, hull)
         t.finish()
@@ -543,15 +357,15 @@ def _read_holds(root: _Tab, hull: HullOffsets | None, ids: dict[str, str]) -> li
     return out
 
 
-def _read_deck_areas(root: _Tab, hull: HullOffsets | None, ids: dict[str, str]) -> list[DeckAreaSpec]:
+def _read_deck_areas(root: Table, hull: HullOffsets | None, ids: dict[str, str]) -> list[DeckAreaSpec]:
     out = []
-    for t in _entries(root, "deck_area"):
-        ident = _claim_id(t, "deck_area", ids)
+    for t in root.tables("deck_area"):
+        ident = claim_id(t, "deck_area", ids)
         name = t.text("name")
         x = t.pair("x_m")
         y = t.pair("y_m")
         has_mx = t.has("max_load_t_m2")
-        mx = t.num("max_load_t_m2", 0.0, required=False, strict_lo=True)
+        mx = t.num("max_load_t_m2", above(0.0), required=False)
         t.finish()
         if x is not None and hull is not None and not (hull.station_x_m[0] <= x[0] and x[1] <= hull.station_x_m[-1]):
             t.bad("x_m", t.data["x_m"], "must lie within the hull's stations")
@@ -562,15 +376,15 @@ def _read_deck_areas(root: _Tab, hull: HullOffsets | None, ids: dict[str, str]) 
     return out
 
 
-def _read_openings(root: _Tab, hull: HullOffsets | None) -> list[OpeningSpec]:
+def _read_openings(root: Table, hull: HullOffsets | None) -> list[OpeningSpec]:
     out = []
-    for t in _entries(root, "opening"):
-        name = t.text("name")
+    for t in root.tables("opening"):
+        name = t.text("name", empty_ok=True)
         if name is not None:
             t.name = f"opening[{name}]"
         x = t.num("x_m")
         y = t.num("y_m")
-        z = t.num("z_m", 0.0)
+        z = t.num("z_m", above_keel)
         t.finish()
         if x is not None and hull is not None and not hull.station_x_m[0] <= x <= hull.station_x_m[-1]:
             t.bad("x_m", x, "must lie within the hull's stations")

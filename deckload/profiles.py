@@ -23,26 +23,38 @@ saved atomically (:func:`save_condition`): the old file survives any crash.
 
 from __future__ import annotations
 
-import difflib
-import math
 import os
-import re
-import tomllib
-from dataclasses import dataclass
 from pathlib import Path
-from typing import Any, Callable
+from typing import Any
 
 import numpy as np
 import tomli_w
 
 from deckload.atomicfile import write_atomic
 from deckload.core import model as m
+# Problem, ProfileError and ID_PATTERN are imported from here by other modules too
+from deckload.tomlcheck import (
+    ID_PATTERN,
+    MISSING,
+    REL_TOL,
+    FileCheck,
+    Problem,
+    ProfileError,
+    Rule,
+    Table,
+    at_most,
+    between,
+    check_tank_pairs,
+    claim_id,
+    non_negative,
+    num,
+    positive,
+    suggest_id,
+    toml_value,
+)
 
 PROFILE_FORMAT = "deckload-profile-1"
 CONDITION_FORMAT = "deckload-condition-1"
-
-ID_PATTERN = re.compile(r"^[A-Za-z0-9_-]+$")
-"""Tank, hold and deck-area ids: letters, digits, '-' and '_' (typed by the user)."""
 
 LIQUID_DENSITY_RANGE_T_M3 = (0.5, 2.0)
 """Plausible densities of a tank's contents (t/m³): light oils ~0.8, heavy brines ~1.3."""
@@ -53,510 +65,19 @@ WATER_DENSITY_RANGE_T_M3 = (0.99, 1.04)
 CAPACITY_TOLERANCE = 0.005
 """A tank's capacity_m3 may differ from its last calibration volume by at most 0.5 %."""
 
-_REL_TOL = 1e-9
-"""Round-off allowance when a stated quantity meets a table end (e.g. 100 % as tonnes)."""
 
-
-# =========================================================================== problems
-
-
-@dataclass(frozen=True)
-class Problem:
-    """One thing wrong in a profile or condition file."""
-
-    file: str
-    """The file as the user named it."""
-    line: int | None
-    """1-based line, where known."""
-    key: str
-    """Dotted key, e.g. 'tank[DB2P].calibration.volume_m3'; '' for a syntax error."""
-    value: str | None
-    """The offending value as written (shortened), or None when the key is missing."""
-    rule: str
-    """The rule broken, in words."""
-
-    def __str__(self) -> str:
-        parts = [f"{self.file}:{self.line}" if self.line else self.file]
-        if self.key:
-            parts.append(self.key if self.value is None else f"{self.key} = {self.value}")
-        parts.append(self.rule)
-        return ": ".join(parts)
-
-
-class ProfileError(Exception):
-    """A profile or condition file is unusable; ``problems`` lists everything wrong with it."""
-
-    def __init__(self, problems: list[Problem]):
-        self.problems = list(problems)
-        super().__init__("\n".join(str(p) for p in self.problems))
-
-
-# =========================================================================== line finder
-
-
-def _split_key(s: str) -> tuple[str, ...]:
-    """Split a TOML dotted key ('a."b c".d') into its parts, unquoted."""
-    parts = re.findall(r'"(?:[^"\\]|\\.)*"|\'[^\']*\'|[^.\s]+', s)
-    return tuple(p[1:-1] if p[:1] in "\"'" else p for p in parts)
-
-
-def _skip_string(text: str, i: int) -> tuple[int, str | None]:
-    """Index just past the string starting at ``text[i]``, or (len, delimiter) if it runs on."""
-    n = len(text)
-    for delim in ('"""', "'''"):
-        if text.startswith(delim, i):
-            j = text.find(delim, i + 3)
-            return (n, delim) if j < 0 else (j + 3, None)
-    if text[i] == "'":
-        j = text.find("'", i + 1)
-        return (n if j < 0 else j + 1), None
-    i += 1
-    while i < n and text[i] != '"':
-        i += 2 if text[i] == "\\" else 1
-    return i + 1, None
-
-
-class _ValueScanner:
-    """Follows TOML values across lines, noting the line where each array element starts.
-
-    An array value at path ``p`` records ``p + (i,)`` for its element ``i`` (and
-    ``p + (i, j)`` inside a nested array), so a bad row of a multi-line table is
-    reported on its own line.  Inline tables are followed only for their nesting.
-    """
-
-    def __init__(self, locs: dict[tuple, int]):
-        self.locs = locs
-        self.stack: list[list] = []  # ["[", path, expecting_element, count] or ["{"]
-        self.in_ml: str | None = None
-        self.pending: tuple | None = None
-
-    @property
-    def busy(self) -> bool:
-        return bool(self.stack) or self.in_ml is not None
-
-    def _value(self, text: str, i: int, path: tuple | None) -> int:
-        c = text[i]
-        if c == "[":
-            self.stack.append(["[", path, True, 0])
-            return i + 1
-        if c == "{":
-            self.stack.append(["{"])
-            return i + 1
-        if c in "\"'":
-            i, self.in_ml = _skip_string(text, i)
-            return i
-        while i < len(text) and text[i] not in ",]}# \t":
-            i += 1
-        return i
-
-    def feed(self, text: str, lineno: int) -> None:
-        i, n = 0, len(text)
-        while i < n:
-            if self.in_ml is not None:
-                j = text.find(self.in_ml, i)
-                if j < 0:
-                    return
-                i, self.in_ml = j + 3, None
-                continue
-            c = text[i]
-            if c in " \t\r":
-                i += 1
-                continue
-            if c == "#":
-                return
-            top = self.stack[-1] if self.stack else None
-            if top is None:
-                if self.pending is None:
-                    return
-                path, self.pending = self.pending, None
-                i = self._value(text, i, path)
-            elif top[0] == "[":
-                if c == ",":
-                    top[2] = True
-                    i += 1
-                elif c == "]":
-                    self.stack.pop()
-                    i += 1
-                elif top[2]:
-                    path = None if top[1] is None else top[1] + (top[3],)
-                    top[2], top[3] = False, top[3] + 1
-                    if path is not None:
-                        self.locs.setdefault(path, lineno)
-                    i = self._value(text, i, path)
-                else:
-                    i += 1
-            else:  # inside an inline table: nesting only
-                if c in "\"'":
-                    i, self.in_ml = _skip_string(text, i)
-                    continue
-                if c in "[{":
-                    self.stack.append(["{"])
-                elif c in "]}":
-                    self.stack.pop()
-                i += 1
-
-
-def _key_lines(text: str) -> dict[tuple, int]:
-    """Map key paths to the line that defines them, best effort.
-
-    Paths use the parsed document's shape: ``("tank", 2, "calibration", "fsi_m4")``
-    for the third ``[[tank]]``'s table, ``(..., "fsi_m4", 4)`` for its fifth value.
-    Table headers map to their own line, so a missing key can be reported at its
-    table's header.
-    """
-    locs: dict[tuple, int] = {}
-    aot: dict[tuple, int] = {}
-    prefix: tuple = ()
-    scan = _ValueScanner(locs)
-
-    def resolve(plain: tuple[str, ...]) -> tuple:
-        out: tuple = ()
-        for k in range(1, len(plain) + 1):
-            out += (plain[k - 1],)
-            if plain[:k] in aot:
-                out += (aot[plain[:k]] - 1,)
-        return out
-
-    for lineno, line in enumerate(text.splitlines(), 1):
-        if scan.busy:
-            scan.feed(line, lineno)
-            continue
-        s = line.strip()
-        hm = re.match(r"^\[\[\s*(.+?)\s*\]\]", s) or re.match(r"^\[\s*(.+?)\s*\]", s)
-        if hm:
-            plain = _split_key(hm.group(1))
-            if s.startswith("[["):
-                aot[plain] = aot.get(plain, 0) + 1
-            prefix = resolve(plain)
-            locs.setdefault(prefix, lineno)
-            continue
-        km = re.match(r"^\s*((?:\"(?:[^\"\\]|\\.)*\"|'[^']*'|[A-Za-z0-9_\-.\s])+?)\s*=", line)
-        if not km:
-            continue
-        path = prefix + _split_key(km.group(1))
-        locs.setdefault(path, lineno)
-        scan.pending = path
-        scan.feed(line[km.end():], lineno)
-        scan.pending = None
-    return locs
-
-
-# =========================================================================== reading helpers
-
-_MISSING = object()
-
-
-def _qk(k: str) -> str:
-    return k if ID_PATTERN.match(k) else '"' + k.replace("\\", "\\\\").replace('"', '\\"') + '"'
-
-
-def _fmt(v: Any) -> str:
-    """The value as it would read in TOML, shortened for one line."""
-    if isinstance(v, bool):
-        return "true" if v else "false"
-    if isinstance(v, str):
-        s = v if len(v) <= 40 else v[:37] + "…"
-        return '"' + s + '"'
-    if isinstance(v, float):
-        return repr(v)
-    if isinstance(v, (list, tuple)):
-        if len(v) <= 4:
-            return "[" + ", ".join(_fmt(x) for x in v) + "]"
-        return "[" + ", ".join(_fmt(x) for x in v[:4]) + f", …{len(v)} values]"
-    if isinstance(v, dict):
-        return "{…}"
-    return str(v)
-
-
-def _num(x: float) -> str:
-    return f"{x:.6g}"
-
-
-def _toml_type(v: Any) -> str:
-    if isinstance(v, bool):
-        return "a boolean"
-    if isinstance(v, str):
-        return "a string"
-    if isinstance(v, (int, float)):
-        return "a number"
-    if isinstance(v, list):
-        return "an array"
-    if isinstance(v, dict):
-        return "a table"
-    return "a date/time"
-
-
-def _is_number(v: Any) -> bool:
-    return isinstance(v, (int, float)) and not isinstance(v, bool)
-
-
-def _suggest(word: str, choices) -> str:
-    close = difflib.get_close_matches(word, list(choices), n=1, cutoff=0.6)
-    return f" (did you mean {close[0]!r}?)" if close else ""
-
-
-def _suggest_id(word: str, ids) -> str:
-    """A close id, else the whole (short) list of ids the vessel has."""
-    hint = _suggest(word, ids)
-    ids = list(ids)
-    if hint or not ids:
-        return hint or " (it has none)"
-    return f" (it has {', '.join(ids)})" if len(ids) <= 8 else ""
-
-
-# rules for single numbers: each returns None when satisfied, else the broken rule
-Rule = Callable[[float], "str | None"]
-
-
-def positive(x: float) -> str | None:
-    return None if x > 0 else "must be greater than 0"
-
-
-def non_negative(x: float) -> str | None:
-    return None if x >= 0 else "must not be negative"
+# =========================================================================== vessel rules
+# (generic rules such as ``positive`` and ``between`` live in deckload.tomlcheck)
 
 
 def above_keel(x: float) -> str | None:
     return None if x >= 0 else "must not be negative (heights are above the keel)"
 
 
-def between(lo: float, hi: float, unit: str = "", why: str = "") -> Rule:
-    u = unit if unit in ("", "°") else f" {unit}"
-    w = f" ({why})" if why else ""
-
-    def rule(x: float) -> str | None:
-        if x < lo:
-            return f"below {_num(lo)}{u}: must be between {_num(lo)} and {_num(hi)}{u}{w}"
-        if x > hi:
-            return f"above {_num(hi)}{u}: must be between {_num(lo)} and {_num(hi)}{u}{w}"
-        return None
-
-    return rule
-
-
 liquid_density = between(*LIQUID_DENSITY_RANGE_T_M3, "t/m³", "density of a liquid in a tank")
 water_density = between(*WATER_DENSITY_RANGE_T_M3, "t/m³", "fresh water 1.000, sea water about 1.025")
 percent_range = between(0.0, 100.0, "%")
 heel_range = between(0.0, 90.0, "°")
-
-
-class _Ctx:
-    """One file being read: its name, its key→line map and the problems found."""
-
-    def __init__(self, filename: str, text: str):
-        self.file = filename
-        self.text = text
-        self.problems: list[Problem] = []
-        self._lines: dict[tuple, int] | None = None
-
-    def line_of(self, raw: tuple) -> int | None:
-        if self._lines is None:
-            self._lines = _key_lines(self.text)
-        for k in range(len(raw), 0, -1):
-            if raw[:k] in self._lines:
-                return self._lines[raw[:k]]
-        return None
-
-    def add(self, raw: tuple, key: str, value: str | None, rule: str, line: int | None = None) -> None:
-        self.problems.append(Problem(self.file, line or self.line_of(raw), key, value, rule))
-
-    def parse(self) -> dict:
-        try:
-            return tomllib.loads(self.text)
-        except tomllib.TOMLDecodeError as e:
-            msg = str(e)
-            mm = re.search(r"\s*\(at line (\d+), column (\d+)\)$", msg)
-            line = None
-            if mm:
-                line = int(mm.group(1))
-                msg = f"{msg[: mm.start()]} (column {mm.group(2)})"
-            else:
-                msg = msg.replace(" (at end of document)", " (at the end of the file)")
-            raise ProfileError([Problem(self.file, line, "", None, f"TOML syntax: {msg}")]) from None
-
-    def fail_if_any(self) -> None:
-        if self.problems:
-            # in file order, so the list reads like the file; problems without a line last
-            raise ProfileError(sorted(self.problems, key=lambda p: p.line if p.line else math.inf))
-
-
-class _Tab:
-    """A TOML table being read: remembers which keys were asked for, to catch unknown ones."""
-
-    def __init__(self, ctx: _Ctx, data: dict, raw: tuple, name: str):
-        self.ctx = ctx
-        self.data = data
-        self.raw = raw
-        self.name = name
-        self.asked: list[str] = []
-
-    def key(self, k: str) -> str:
-        return f"{self.name}.{_qk(k)}" if self.name else _qk(k)
-
-    def bad(self, k: str, value: Any, rule: str, at: tuple = ()) -> None:
-        """Report a problem with key ``k``; ``at`` = (row,) or (row, column) locates it in an array."""
-        self.ctx.add(self.raw + (k,) + at, self.key(k), None if value is _MISSING else _fmt(value), rule)
-
-    def has(self, k: str) -> bool:
-        return k in self.data
-
-    def _get(self, k: str, required: bool) -> Any:
-        if k not in self.asked:
-            self.asked.append(k)
-        if k not in self.data:
-            if required:
-                self.bad(k, _MISSING, "required key is missing")
-            return _MISSING
-        return self.data[k]
-
-    # -- scalars
-    def num(self, k: str, *rules: Rule, required: bool = True, default: float | None = None) -> float | None:
-        v = self._get(k, required)
-        if v is _MISSING:
-            return default
-        if not _is_number(v):
-            self.bad(k, v, f"must be a number, not {_toml_type(v)}")
-            return None
-        x = float(v)
-        if not math.isfinite(x):
-            self.bad(k, v, "must be a finite number")
-            return None
-        for r in rules:
-            msg = r(x)
-            if msg:
-                self.bad(k, v, msg)
-                return None
-        return x
-
-    def text(self, k: str, *, required: bool = True, default: str = "", choices=None, empty_ok: bool = False):
-        v = self._get(k, required)
-        if v is _MISSING:
-            return default
-        if not isinstance(v, str):
-            self.bad(k, v, f"must be a string, not {_toml_type(v)}")
-            return None
-        if choices is not None and v not in choices:
-            self.bad(k, v, "must be one of " + ", ".join(f'"{c}"' for c in choices) + _suggest(v, choices))
-            return None
-        if not v.strip() and not empty_ok:
-            self.bad(k, v, "must not be empty")
-            return None
-        return v
-
-    # -- arrays
-    def array(self, k: str, *rules: Rule, required: bool = True, min_len: int = 2) -> np.ndarray | None:
-        v = self._get(k, required)
-        if v is _MISSING:
-            return None
-        if not isinstance(v, list):
-            self.bad(k, v, f"must be an array of numbers, not {_toml_type(v)}")
-            return None
-        if len(v) < min_len:
-            self.bad(k, v, f"needs at least {min_len} values, has {len(v)}")
-            return None
-        for i, x in enumerate(v):
-            if not _is_number(x):
-                self.bad(k, v, f"row {i + 1}: {_fmt(x)} is {_toml_type(x)}, not a number", (i,))
-                return None
-            if not math.isfinite(float(x)):
-                self.bad(k, v, f"row {i + 1}: {_fmt(x)} is not a finite number", (i,))
-                return None
-        arr = np.array(v, dtype=float)
-        for r in rules:
-            for i, x in enumerate(arr):
-                msg = r(float(x))
-                if msg:
-                    self.bad(k, v, f"{msg} (row {i + 1}: {_fmt(v[i])})", (i,))
-                    return None
-        return arr
-
-    def increasing(self, k: str, arr: np.ndarray | None) -> np.ndarray | None:
-        """``arr`` if strictly increasing, else reports the first offending row."""
-        if arr is None:
-            return None
-        d = np.diff(arr)
-        if np.all(d > 0):
-            return arr
-        i = int(np.argmax(d <= 0)) + 1
-        self.bad(k, self.data[k], f"not strictly increasing (row {i + 1}: {_fmt(self.data[k][i])} after "
-                 f"{_fmt(self.data[k][i - 1])})", (i,))
-        return None
-
-    def starts_at(self, k: str, arr: np.ndarray | None, first: float, why: str) -> np.ndarray | None:
-        if arr is None:
-            return None
-        if abs(float(arr[0]) - first) > _REL_TOL * max(1.0, abs(float(arr[-1]))):
-            self.bad(k, self.data[k], f"must start at {_num(first)} ({why})")
-            return None
-        return arr
-
-    def same_length(self, ref: str, arrays: dict[str, np.ndarray | None]) -> bool:
-        """Every array of one table has one value per row of its abscissa ``ref``."""
-        n = self.raw_len(ref)
-        ok = arrays.get(ref) is not None
-        for k, a in arrays.items():
-            if a is None:
-                ok = False
-            elif k != ref and n is not None and len(a) != n:
-                self.bad(k, self.data[k], f"has {len(a)} values but {ref} has {n}: one value per row")
-                ok = False
-        return ok
-
-    def raw_len(self, k: str) -> int | None:
-        """Number of values written for ``k`` (even if they are wrong), to check other arrays against."""
-        v = self.data.get(k)
-        return len(v) if isinstance(v, list) else None
-
-    def matrix(self, k: str, rows_name: str, n_rows: int | None, cols_name: str, n_cols: int | None) -> np.ndarray | None:
-        """A 2-D table of finite numbers, one row per ``rows_name`` value, one column per ``cols_name`` value."""
-        v = self._get(k, True)
-        if v is _MISSING:
-            return None
-        if not isinstance(v, list) or not all(isinstance(r, list) for r in v):
-            self.bad(k, v, f"must be an array of rows (arrays of numbers), one row per {rows_name} value")
-            return None
-        for i, row in enumerate(v):
-            for j, x in enumerate(row):
-                if not _is_number(x) or not math.isfinite(float(x)):
-                    self.bad(k, v, f"row {i + 1}, column {j + 1}: {_fmt(x)} is not a finite number", (i, j))
-                    return None
-        if n_rows is None or n_cols is None:
-            return None
-        if len(v) != n_rows:
-            self.bad(k, v, f"has {len(v)} rows but {rows_name} has {n_rows} values: one row per {rows_name} value")
-            return None
-        for i, row in enumerate(v):
-            if len(row) != n_cols:
-                self.bad(k, v, f"row {i + 1} has {len(row)} values but {cols_name} has {n_cols}: "
-                         f"one column per {cols_name} value", (i,))
-                return None
-        return np.array(v, dtype=float)
-
-    # -- tables
-    def table(self, k: str, *, required: bool = True, name: str | None = None) -> "_Tab | None":
-        v = self._get(k, required)
-        if v is _MISSING:
-            return None
-        if not isinstance(v, dict):
-            self.bad(k, v, f"must be a table, not {_toml_type(v)}")
-            return None
-        return _Tab(self.ctx, v, self.raw + (k,), name if name is not None else self.key(k))
-
-    def tables(self, k: str) -> list["_Tab"]:
-        """An array of tables ``[[k]]``, each named ``k[#n]`` until its id is known."""
-        v = self._get(k, False)
-        if v is _MISSING:
-            return []
-        if not isinstance(v, list) or not all(isinstance(t, dict) for t in v):
-            self.bad(k, v, f"must be an array of tables ([[{k}]] sections)")
-            return []
-        return [_Tab(self.ctx, t, self.raw + (k, i), f"{self.key(k)}[#{i + 1}]") for i, t in enumerate(v)]
-
-    def finish(self) -> None:
-        """Report every key nobody asked for: a misspelt key must not be ignored."""
-        for k, v in self.data.items():
-            if k not in self.asked:
-                self.bad(k, v, "unknown key" + _suggest(k, self.asked))
 
 
 # =========================================================================== profile
@@ -581,8 +102,8 @@ def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
 
     Raises :class:`ProfileError` listing every problem found.
     """
-    ctx = _Ctx(filename, text)
-    root = _Tab(ctx, ctx.parse(), (), "")
+    ctx = FileCheck(filename, text)
+    root = ctx.root()
     root.text("format", choices=(PROFILE_FORMAT,))
 
     particulars = _read_particulars(root)
@@ -618,7 +139,7 @@ def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
     )
 
 
-def _read_particulars(root: _Tab) -> m.Particulars | None:
+def _read_particulars(root: Table) -> m.Particulars | None:
     t = root.table("vessel")
     if t is None:
         return None
@@ -635,14 +156,14 @@ def _read_particulars(root: _Tab) -> m.Particulars | None:
     kw["remark"] = t.text("remark", required=False, empty_ok=True)
     t.finish()
     if kw["design_draft_m"] is not None and kw["depth_m"] is not None and kw["design_draft_m"] > kw["depth_m"]:
-        t.bad("design_draft_m", t.data["design_draft_m"], f"exceeds the depth {_num(kw['depth_m'])} m")
+        t.bad("design_draft_m", t.data["design_draft_m"], f"exceeds the depth {num(kw['depth_m'])} m")
         return None
     if datum is None or any(v is None for v in kw.values()):
         return None
     return m.Particulars(longitudinal_datum="aft perpendicular, positive forward", **kw)
 
 
-def _read_mass_item(t: _Tab, name: str, *, mass_rule: Rule = non_negative) -> m.MassItem | None:
+def _read_mass_item(t: Table, name: str, *, mass_rule: Rule = non_negative) -> m.MassItem | None:
     kw = dict(
         mass_t=t.num("mass_t", mass_rule),
         lcg_m=t.num("lcg_m"),
@@ -654,7 +175,7 @@ def _read_mass_item(t: _Tab, name: str, *, mass_rule: Rule = non_negative) -> m.
     return m.MassItem(name=name, **kw)
 
 
-def _read_lightship(root: _Tab) -> m.MassItem | None:
+def _read_lightship(root: Table) -> m.MassItem | None:
     t = root.table("lightship")
     if t is None:
         return None
@@ -663,7 +184,7 @@ def _read_lightship(root: _Tab) -> m.MassItem | None:
     return item
 
 
-def _read_hydrostatics(root: _Tab) -> m.HydrostaticTable | None:
+def _read_hydrostatics(root: Table) -> m.HydrostaticTable | None:
     t = root.table("hydrostatics")
     if t is None:
         return None
@@ -682,14 +203,14 @@ def _read_hydrostatics(root: _Tab) -> m.HydrostaticTable | None:
             optional[k] = t.array(k, rule)
             cols[k] = optional[k]
         else:
-            t._get(k, False)
+            t.get(k, False)
     t.finish()
     if not t.same_length("draft_m", cols):
         return None
     return m.HydrostaticTable(**{k: m.frozen_array(v) for k, v in cols.items()})
 
 
-def _read_cross_curves(root: _Tab) -> m.CrossCurves | None:
+def _read_cross_curves(root: Table) -> m.CrossCurves | None:
     t = root.table("cross_curves")
     if t is None:
         return None
@@ -706,21 +227,15 @@ def _read_cross_curves(root: _Tab) -> m.CrossCurves | None:
     )
 
 
-def _band(t: _Tab, k: str, default: tuple[float, float] | None) -> tuple[float, float] | None:
+def _band(t: Table, k: str, default: tuple[float, float] | None) -> tuple[float, float] | None:
     """A fill band [low, high] in %, 0 ≤ low < high ≤ 100."""
     if not t.has(k):
-        t._get(k, False)
+        t.get(k, False)
         return default
-    arr = t.array(k, percent_range)
-    if arr is None:
-        return None
-    if len(arr) != 2 or not arr[0] < arr[1]:
-        t.bad(k, t.data[k], "must be two fills [low, high] in %, low below high")
-        return None
-    return float(arr[0]), float(arr[1])
+    return t.pair(k, percent_range, form="two fills [low, high] in %, low below high")
 
 
-def _read_free_surface(root: _Tab, lightship: m.MassItem | None) -> m.FreeSurfaceSettings | None:
+def _read_free_surface(root: Table, lightship: m.MassItem | None) -> m.FreeSurfaceSettings | None:
     d = m.FreeSurfaceSettings()
     t = root.table("free_surface", required=False)
     if t is None:
@@ -739,7 +254,7 @@ def _read_free_surface(root: _Tab, lightship: m.MassItem | None) -> m.FreeSurfac
     t.finish()
     ok = True
     if kw["nominally_full_pct"] is not None and kw["empty_pct"] is not None and kw["empty_pct"] >= kw["nominally_full_pct"]:
-        t.bad("empty_pct", t.data.get("empty_pct", kw["empty_pct"]), f"must be below nominally_full_pct ({_num(kw['nominally_full_pct'])} %)")
+        t.bad("empty_pct", t.data.get("empty_pct", kw["empty_pct"]), f"must be below nominally_full_pct ({num(kw['nominally_full_pct'])} %)")
         ok = False
     dmin = kw["min_operating_displacement_t"]
     if lightship is not None:
@@ -747,14 +262,14 @@ def _read_free_surface(root: _Tab, lightship: m.MassItem | None) -> m.FreeSurfac
             kw["min_operating_displacement_t"] = lightship.mass_t
         elif dmin is not None and dmin < lightship.mass_t:
             t.bad("min_operating_displacement_t", t.data["min_operating_displacement_t"],
-                  f"is below the lightship mass {_num(lightship.mass_t)} t")
+                  f"is below the lightship mass {num(lightship.mass_t)} t")
             ok = False
     if not ok or any(v is None for v in kw.values()):
         return None
     return m.FreeSurfaceSettings(**kw)
 
 
-def _read_criteria(root: _Tab) -> m.CriteriaSettings | None:
+def _read_criteria(root: Table) -> m.CriteriaSettings | None:
     t = root.table("criteria", required=False)
     if t is None:
         return None if root.has("criteria") else m.CriteriaSettings()
@@ -767,7 +282,7 @@ def _read_criteria(root: _Tab) -> m.CriteriaSettings | None:
     return m.CriteriaSettings(code=code, min_gm_m=gm)
 
 
-def _read_load_lines(root: _Tab, hydro: m.HydrostaticTable | None) -> list[m.LoadLine]:
+def _read_load_lines(root: Table, hydro: m.HydrostaticTable | None) -> list[m.LoadLine]:
     out: list[m.LoadLine] = []
     seen: set[str] = set()
     for t in root.tables("load_line"):
@@ -781,23 +296,23 @@ def _read_load_lines(root: _Tab, hydro: m.HydrostaticTable | None) -> list[m.Loa
                 continue
             seen.add(name)
         if draft is not None and hydro is not None and not hydro.draft_m[0] <= draft <= hydro.draft_m[-1]:
-            t.bad("draft_m", t.data["draft_m"], f"outside the hydrostatic table's drafts {_num(hydro.draft_m[0])}–{_num(hydro.draft_m[-1])} m")
+            t.bad("draft_m", t.data["draft_m"], f"outside the hydrostatic table's drafts {num(hydro.draft_m[0])}–{num(hydro.draft_m[-1])} m")
             continue
         if name is not None and draft is not None:
             out.append(m.LoadLine(name=name, draft_m=draft))
     return out
 
 
-def _read_limit_curve(root: _Tab) -> m.LimitCurve | None:
+def _read_limit_curve(root: Table) -> m.LimitCurve | None:
     t = root.table("limit_curve", required=False)
     if t is None:
         return None
     disp = t.increasing("displacement_t", t.array("displacement_t", positive))
     kinds = [k for k in ("max_kg_m", "min_gm_m") if t.has(k)]
-    t._get("max_kg_m", False)
-    t._get("min_gm_m", False)
+    t.get("max_kg_m", False)
+    t.get("min_gm_m", False)
     if len(kinds) != 1:
-        t.bad("max_kg_m" if not kinds else "min_gm_m", t.data.get("min_gm_m", _MISSING),
+        t.bad("max_kg_m" if not kinds else "min_gm_m", t.data.get("min_gm_m", MISSING),
               "give exactly one of max_kg_m and min_gm_m" + (", not both" if kinds else ""))
         t.finish()
         return None
@@ -809,7 +324,7 @@ def _read_limit_curve(root: _Tab) -> m.LimitCurve | None:
     return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(values), kind=kind)
 
 
-def _read_downflooding(root: _Tab) -> m.LimitCurve | None:
+def _read_downflooding(root: Table) -> m.LimitCurve | None:
     t = root.table("downflooding", required=False)
     if t is None:
         return None
@@ -821,57 +336,22 @@ def _read_downflooding(root: _Tab) -> m.LimitCurve | None:
     return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(ang), kind="downflooding_deg")
 
 
-def _claim_id(t: _Tab, kind: str, ids: dict[str, str]) -> str | None:
-    """Read an entry's ``id``, check its form and uniqueness, and rename the entry after it."""
-    ident = t.text("id")
-    if ident is None:
-        return None
-    if not ID_PATTERN.match(ident):
-        t.bad("id", ident, "must use only letters, digits, '-' and '_'")
-        return None
-    first = ids.get(ident)
-    own = t.name
-    t.name = f"{kind}[{ident}]"
-    if first is not None:
-        t.ctx.add(t.raw + ("id",), f"{own}.id", _fmt(ident), f"duplicate id: already used by {first}")
-        return None
-    ids[ident] = own
-    return ident
-
-
-def _read_tanks(root: _Tab, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) -> list[m.Tank]:
+def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) -> list[m.Tank]:
     entries = []
     complete = True
     for t in root.tables("tank"):
         kw, ok_tank = _read_tank(t, fs, ids)
         entries.append((t, kw))
         complete &= ok_tank
-    # pairs: each names an existing tank that names it back
-    by_id = {kw["id"]: kw for _, kw in entries if kw is not None and kw["id"] is not None}
-    ok = True
-    for t, kw in entries:
-        if kw is None or kw.get("pair") is None or kw["id"] is None:
-            continue
-        p = kw["pair"]
-        if p == kw["id"]:
-            t.bad("pair", p, "a tank cannot be its own pair")
-            ok = False
-        elif p not in by_id:
-            t.bad("pair", p, "no tank with this id" + _suggest(p, [i for i in by_id if i != kw["id"]]))
-            ok = False
-        elif by_id[p].get("pair") != kw["id"]:
-            back = by_id[p].get("pair")
-            t.bad("pair", p, f"tank {p} does not name {kw['id']} back as its pair "
-                  + (f"(it names {back!r})" if back else "(it has no pair)"))
-            ok = False
+    ok = check_tank_pairs([(t, kw["id"], kw.get("pair")) if kw is not None else (t, None, None) for t, kw in entries])
     if not ok or not complete:
         return []
     return [m.Tank(**kw) for _, kw in entries]
 
 
-def _read_tank(t: _Tab, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) -> tuple[dict | None, bool]:
+def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) -> tuple[dict | None, bool]:
     """The Tank's keyword arguments and whether they are complete (else only id and pair)."""
-    ident = _claim_id(t, "tank", ids)
+    ident = claim_id(t, "tank", ids)
     kw: dict[str, Any] = dict(id=ident, name=t.text("name"))
     kind = t.text("kind", choices=m.LIQUID_KINDS)
     kw["kind"] = kind
@@ -895,7 +375,7 @@ def _read_tank(t: _Tab, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) -
         if kw["transfer"] is None:
             kw["calibration"] = None  # marks the tank unusable
     else:
-        t._get("transfer", False)
+        t.get("transfer", False)
         kw["transfer"] = None
     t.finish()
     if kw["calibration"] is None or any(kw[k] is None for k in ("id", "name", "kind", "density_t_m3", "capacity_m3", "fs_category", "worst_band_pct")):
@@ -903,7 +383,7 @@ def _read_tank(t: _Tab, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) -
     return kw, True
 
 
-def _read_calibration(t: _Tab, capacity: float | None, tank: _Tab) -> m.TankCalibration | None:
+def _read_calibration(t: Table, capacity: float | None, tank: Table) -> m.TankCalibration | None:
     sounding = t.increasing("sounding_m", t.array("sounding_m", non_negative))
     sounding = t.starts_at("sounding_m", sounding, 0.0, "the tank bottom")
     volume = t.increasing("volume_m3", t.array("volume_m3", non_negative))
@@ -923,20 +403,20 @@ def _read_calibration(t: _Tab, capacity: float | None, tank: _Tab) -> m.TankCali
     d = np.diff(vcg)
     if np.any(d < -1e-6):
         i = int(np.argmax(d < -1e-6)) + 1
-        t.bad("vcg_m", t.data["vcg_m"], f"falls as the tank fills (row {i + 1}: {_fmt(t.data['vcg_m'][i])} after "
-              f"{_fmt(t.data['vcg_m'][i - 1])}); the contents' centre can only rise", (i,))
+        t.bad("vcg_m", t.data["vcg_m"], f"falls as the tank fills (row {i + 1}: {toml_value(t.data['vcg_m'][i])} after "
+              f"{toml_value(t.data['vcg_m'][i - 1])}); the contents' centre can only rise", (i,))
         return None
     if capacity is not None:
         last = float(volume[-1])
         if abs(capacity - last) > CAPACITY_TOLERANCE * last:
             tank.bad("capacity_m3", tank.data["capacity_m3"],
-                     f"differs from the last calibration volume {_num(last)} m³ by "
+                     f"differs from the last calibration volume {num(last)} m³ by "
                      f"{100 * abs(capacity - last) / last:.2f} % (at most {100 * CAPACITY_TOLERANCE:g} % allowed)")
             return None
     return m.TankCalibration(**{k: m.frozen_array(v) for k, v in cols.items()})
 
 
-def _read_transfer(t: _Tab) -> m.FluidTransfer | None:
+def _read_transfer(t: Table) -> m.FluidTransfer | None:
     fill = t.increasing("fill_pct", t.array("fill_pct", percent_range))
     fill = t.starts_at("fill_pct", fill, 0.0, "empty")
     if fill is not None and fill[-1] != 100.0:
@@ -951,10 +431,10 @@ def _read_transfer(t: _Tab) -> m.FluidTransfer | None:
     return m.FluidTransfer(fill_pct=m.frozen_array(fill), heel_deg=m.frozen_array(heel), moment_m4=m.frozen_array(mom))
 
 
-def _read_holds(root: _Tab, ids: dict[str, str]) -> list[m.Hold]:
+def _read_holds(root: Table, ids: dict[str, str]) -> list[m.Hold]:
     out, ok = [], True
     for t in root.tables("hold"):
-        ident = _claim_id(t, "hold", ids)
+        ident = claim_id(t, "hold", ids)
         kw: dict[str, Any] = dict(
             id=ident,
             name=t.text("name"),
@@ -973,12 +453,12 @@ def _read_holds(root: _Tab, ids: dict[str, str]) -> list[m.Hold]:
                 rules = (percent_range,) if k == "fill_pct" else (above_keel,) if k == "fill_vcg_m" else ()
                 cols[k] = t.array(k, *rules)
             else:
-                t._get(k, False)
+                t.get(k, False)
         fill_ok = True
         if present:
             if "fill_pct" not in present or "fill_vcg_m" not in present:
                 missing = "fill_pct" if "fill_pct" not in present else "fill_vcg_m"
-                t.bad(missing, _MISSING, "required with " + " and ".join(present) + " (centroid-against-fill table)")
+                t.bad(missing, MISSING, "required with " + " and ".join(present) + " (centroid-against-fill table)")
                 fill_ok = False
             else:
                 fill = t.increasing("fill_pct", cols["fill_pct"])
@@ -998,10 +478,10 @@ def _read_holds(root: _Tab, ids: dict[str, str]) -> list[m.Hold]:
     return out if ok else []
 
 
-def _read_deck_areas(root: _Tab, ids: dict[str, str]) -> list[m.DeckArea]:
+def _read_deck_areas(root: Table, ids: dict[str, str]) -> list[m.DeckArea]:
     out, ok = [], True
     for t in root.tables("deck_area"):
-        ident = _claim_id(t, "deck_area", ids)
+        ident = claim_id(t, "deck_area", ids)
         kw: dict[str, Any] = dict(
             id=ident,
             name=t.text("name"),
@@ -1033,8 +513,8 @@ def load_condition(path: str | os.PathLike, vessel: m.Vessel) -> m.Condition:
 
 def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
     """Validate the text of a loading condition against its vessel and build the Condition."""
-    ctx = _Ctx(filename, text)
-    root = _Tab(ctx, ctx.parse(), (), "")
+    ctx = FileCheck(filename, text)
+    root = ctx.root()
     root.text("format", choices=(CONDITION_FORMAT,))
 
     head: dict[str, Any] = {}
@@ -1064,16 +544,16 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
     return m.Condition(tanks=tuple(fills), holds=tuple(loads), deck_items=tuple(items), constants=tuple(consts), **head)
 
 
-def _keyed_tables(root: _Tab, group: str, known: dict[str, int], what: str) -> list[tuple[str, _Tab]]:
+def _keyed_tables(root: Table, group: str, known: dict[str, int], what: str) -> list[tuple[str, Table]]:
     """``[group.ID]`` tables, each ID checked against the vessel's ``known`` ids."""
     g = root.table(group, required=False)
     if g is None:
         return []
     out = []
     for ident, v in g.data.items():
-        g._get(ident, False)
+        g.get(ident, False)
         if ident not in known:
-            g.bad(ident, v, f"no {what} with this id in the vessel profile" + _suggest_id(ident, known))
+            g.bad(ident, v, f"no {what} with this id in the vessel profile" + suggest_id(ident, known))
             continue
         sub = g.table(ident)
         if sub is not None:
@@ -1081,7 +561,7 @@ def _keyed_tables(root: _Tab, group: str, known: dict[str, int], what: str) -> l
     return out
 
 
-def _read_fills(root: _Tab, vessel: m.Vessel) -> list[m.TankFill]:
+def _read_fills(root: Table, vessel: m.Vessel) -> list[m.TankFill]:
     out = []
     for ident, t in _keyed_tables(root, "tanks", vessel.tank_index, "tank"):
         tank = vessel.tank(ident)
@@ -1092,11 +572,11 @@ def _read_fills(root: _Tab, vessel: m.Vessel) -> list[m.TankFill]:
         cal = tank.calibration
         cap = tank.capacity_m3
         rules: dict[str, tuple[Rule, ...]] = {
-            "percent": (non_negative, _at_most(100.0, "% (full)")),
-            "volume_m3": (non_negative, _at_most(cap, "m³, the tank's capacity")),
-            "mass_t": (non_negative, _at_most(cap * rho, f"t, the tank's capacity {_num(cap)} m³ × {_num(rho)} t/m³")),
-            "sounding_m": (non_negative, _at_most(float(cal.sounding_m[-1]),
-                           f"m: outside the calibration table {_num(cal.sounding_m[0])}–{_num(cal.sounding_m[-1])} m")),
+            "percent": (non_negative, at_most(100.0, "% (full)")),
+            "volume_m3": (non_negative, at_most(cap, "m³, the tank's capacity")),
+            "mass_t": (non_negative, at_most(cap * rho, f"t, the tank's capacity {num(cap)} m³ × {num(rho)} t/m³")),
+            "sounding_m": (non_negative, at_most(float(cal.sounding_m[-1]),
+                           f"m: outside the calibration table {num(cal.sounding_m[0])}–{num(cal.sounding_m[-1])} m")),
         }
         values = {q: t.num(q, *rules[q], required=False) for q in m.FILL_QUANTITIES}
         t.finish()
@@ -1112,16 +592,7 @@ def _read_fills(root: _Tab, vessel: m.Vessel) -> list[m.TankFill]:
     return out
 
 
-def _at_most(limit: float, what: str) -> Rule:
-    def rule(x: float) -> str | None:
-        if x > limit + _REL_TOL * max(1.0, abs(limit)):
-            return f"above {_num(limit)} {what}"
-        return None
-
-    return rule
-
-
-def _read_hold_loads(root: _Tab, vessel: m.Vessel) -> list[m.HoldLoad]:
+def _read_hold_loads(root: Table, vessel: m.Vessel) -> list[m.HoldLoad]:
     out = []
     for ident, t in _keyed_tables(root, "holds", vessel.hold_index, "hold"):
         hold = vessel.hold(ident)
@@ -1139,21 +610,21 @@ def _read_hold_loads(root: _Tab, vessel: m.Vessel) -> list[m.HoldLoad]:
             continue
         if kw["stowage_m3_t"] is not None:
             vol = kw["mass_t"] * kw["stowage_m3_t"]
-            if vol > hold.capacity_m3 * (1 + _REL_TOL):
-                t.bad("mass_t", t.data["mass_t"], f"× stowage_m3_t {_num(kw['stowage_m3_t'])} = {_num(vol)} m³, "
-                      f"above the hold's capacity {_num(hold.capacity_m3)} m³")
+            if vol > hold.capacity_m3 * (1 + REL_TOL):
+                t.bad("mass_t", t.data["mass_t"], f"× stowage_m3_t {num(kw['stowage_m3_t'])} = {num(vol)} m³, "
+                      f"above the hold's capacity {num(hold.capacity_m3)} m³")
                 continue
         out.append(m.HoldLoad(**kw))
     return out
 
 
-def _read_deck_items(root: _Tab, vessel: m.Vessel) -> list[m.DeckItem]:
+def _read_deck_items(root: Table, vessel: m.Vessel) -> list[m.DeckItem]:
     out = []
     for t in root.tables("deck_item"):
         base = _read_mass_item(t, t.text("name"))
         area = t.text("area", required=False, default=None)
         if area is not None and area not in vessel.area_index:
-            t.bad("area", area, "no deck area with this id in the vessel profile" + _suggest_id(area, vessel.area_index))
+            t.bad("area", area, "no deck area with this id in the vessel profile" + suggest_id(area, vessel.area_index))
             area = None
             base = None
         has_fp = t.has("footprint_m2")

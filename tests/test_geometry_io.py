@@ -172,3 +172,22 @@ def test_prism_tank_inside_and_outside():
     assert any("tank[W1].section_y_m" in p and "sticks out of the hull" in p for p in got), got
     got = problems(SMALL + PRISM.replace('shape = "prism"', 'shape = "prism"\ny_m = [0.0, 1.0]'))
     assert any("tank[W1].y_m = [0, 1]: not used by a prism" in p for p in got), got
+
+
+def test_an_empty_tank_name_is_refused_because_the_profile_would_not_load():
+    """`deckload tables` must not write a profile that its own loader rejects."""
+    from pathlib import Path
+
+    import pytest
+
+    from deckload.geometry_io import GeometryError, parse_geometry
+
+    demo = Path(__file__).resolve().parents[1] / "vessel_profiles" / "demo_islander.geometry.toml"
+    text = demo.read_text(encoding="utf-8")
+    first = text.index("[[tank]]")
+    name_at = text.index("name = ", first)
+    end = text.index("\n", name_at)
+    broken = text[:name_at] + 'name = ""' + text[end:]
+    with pytest.raises(GeometryError) as e:
+        parse_geometry(broken, "empty_name.geometry.toml")
+    assert any(p.key.endswith(".name") and "must not be empty" in p.rule for p in e.value.problems)
