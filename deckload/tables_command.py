@@ -26,6 +26,7 @@ byte-for-byte identical.
 
 from __future__ import annotations
 
+import re
 import shutil
 import sys
 import time
@@ -186,7 +187,58 @@ def merge_profile(existing: dict[str, Any] | None, gen: dict[str, Any], vt: Vess
 
 
 def render(doc: dict[str, Any]) -> str:
-    return tomli_w.dumps(doc)
+    return reflow_number_arrays(tomli_w.dumps(doc))
+
+
+_NUMBER_ITEM = re.compile(r"^\s*(-?[0-9][0-9eE.+\-]*|[+-]?(?:inf|nan)),$")
+_WIDTH = 100
+
+
+def reflow_number_arrays(text: str) -> str:
+    """Fold tomli-w's one-number-per-line arrays into rows of numbers, for a readable profile.
+
+    tomli-w writes a long array one element per line, which makes a generated profile
+    17,000 lines long.  Each run of lines holding only numbers between an opening ``[``
+    and its closing bracket becomes one inline array, wrapped at about 100 columns; an
+    array of such arrays (KN, transfer moments) keeps one row per line.  Only layout
+    changes: the TOML parses to the same values.
+    """
+    lines = text.split("\n")
+    out: list[str] = []
+    i = 0
+    while i < len(lines):
+        line = lines[i]
+        if line.endswith("["):
+            j = i + 1
+            while j < len(lines) and _NUMBER_ITEM.match(lines[j]):
+                j += 1
+            if j > i + 1 and j < len(lines) and lines[j].strip() in ("]", "],"):
+                numbers = [lines[k].strip()[:-1] for k in range(i + 1, j)]
+                out.extend(_wrap(line, numbers, lines[j].strip()))
+                i = j + 1
+                continue
+        out.append(line)
+        i += 1
+    return "\n".join(out)
+
+
+def _wrap(opening: str, numbers: list[str], closing: str) -> list[str]:
+    """``opening`` + numbers + ``closing`` on as few lines as fit in :data:`_WIDTH` columns."""
+    head = opening[:-1]
+    one = f"{head}[{', '.join(numbers)}{closing}"
+    if len(one) <= _WIDTH:
+        return [one]
+    indent = " " * (len(head) - len(head.lstrip()) + 4)
+    rows, row = [opening], indent
+    for n in numbers:
+        piece = f"{n}, "
+        if len(row) + len(piece) > _WIDTH and row.strip():
+            rows.append(row.rstrip())
+            row = indent
+        row += piece
+    rows.append(row.rstrip())
+    rows.append(" " * (len(indent) - 4) + closing)
+    return rows
 
 
 def _has_comments(text: str) -> bool:

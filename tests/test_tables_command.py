@@ -117,3 +117,28 @@ def test_invalid_existing_profile_is_not_overwritten(tmp_path, capsys):
     assert main(["tables", str(GEOMETRY), "-o", str(profile)]) == 1
     assert "left untouched" in capsys.readouterr().err
     assert profile.read_text(encoding="utf-8") == "format = = 1\n"
+
+
+def test_number_arrays_are_folded_into_rows_without_changing_any_value():
+    """Layout only: the folded TOML parses to exactly the values tomli-w wrote."""
+    import tomllib
+
+    import tomli_w
+
+    from deckload.tables_command import reflow_number_arrays
+
+    doc = {
+        "short": [1.0, 2.5, -3.0],
+        "long": [round(0.1 * k, 4) for k in range(200)],
+        "nested": {"kn_m": [[float(k + j) for j in range(19)] for k in range(4)]},
+        "words": ["a", "b"] * 30,
+        "mixed": [{"name": "summer", "draft_m": 2.9}],
+    }
+    plain = tomli_w.dumps(doc)
+    folded = reflow_number_arrays(plain)
+    assert tomllib.loads(folded) == doc
+    assert len(folded.splitlines()) < len(plain.splitlines()) / 3  # the 60 strings stay one a line
+    assert max(len(line) for line in folded.splitlines()) <= 100
+    assert 'short = [1.0, 2.5, -3.0]' in folded
+    # an array of strings is left as tomli-w wrote it
+    assert '    "a",\n    "b",' in folded
