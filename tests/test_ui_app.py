@@ -207,3 +207,22 @@ async def test_narrow_terminal_switches_between_numbers_and_curve(app):
         await pilot.press("g")
         assert screen.query_one("#gz").display is True and screen.query_one("#afloat").display is False
         assert "GZ curve" in panel(app, "gz")
+
+
+async def test_free_surface_rule_and_gz_method_switch_by_key_and_undo(app):
+    """r and m change how free surface is counted; each is one undoable edit the panel names."""
+    async with app.run_test(size=(120, 40)) as pilot:
+        c0 = app.session.condition
+        assert app.session.result.fs_rule == "is2008" and app.session.result.gz_correction == "constant"
+        assert "FS IS2008 · GZ const" in panel(app, "afloat")
+        await pilot.press("r")
+        await pilot.pause()
+        assert app.session.condition.fs_rule == "actual" and app.session.result.fs_rule == "actual"
+        assert "FS actual" in panel(app, "afloat")
+        await pilot.press("m")
+        await pilot.pause()
+        assert app.session.result.gz_correction == "transfer"
+        assert "GZ transfer" in panel(app, "afloat")
+        await pilot.press("u", "u")
+        await pilot.pause()
+        assert app.session.condition == c0

@@ -53,6 +53,12 @@ COMMANDS: tuple[Command, ...] = (
     Command("density", "d", "ρ", "Set the density of the water she floats in (t/m³).", title="Water density"),
     Command("undo", "u,ctrl+z", "Undo", "Undo the last change."),
     Command("redo", "y,ctrl+y", "Redo", "Redo the last undone change."),
+    Command("fs_rule", "r", "FS rule", "Switch the free-surface rule between the IS Code 2008 Part B 3.1 "
+            "treatment and every slack tank at its actual level (B 3.1.6, for liquid transfers); undoable.",
+            footer=False, title="Free-surface rule"),
+    Command("gz_method", "m", "GZ method", "Switch the GZ correction between a constant rise of G (ΣFSM/Δ) and "
+            "the actual moment of fluid transfer of each tank at each heel; undoable.",
+            footer=False, title="GZ correction method"),
     Command("toggle_gz", "g", "GZ", "Show the GZ curve or the numbers (only below 110 columns, where both do not fit).",
             title="GZ curve or numbers"),
     Command("alerts", "w", "Warn", "List every warning, when more are raised than the warning strip can show.",

@@ -291,6 +291,20 @@ class LoadingScreen(Screen[None]):
             lambda c: c and self.commit(c, f"Water density {c.water_density_t_m3:.3f} t/m³", "edit",
                                         {"water_density_t_m3": c.water_density_t_m3}))
 
+    def action_fs_rule(self) -> None:
+        s = self.session
+        new = "actual" if (s.condition.fs_rule or s.vessel.free_surface.rule) == "is2008" else "is2008"
+        words = {"is2008": "IS Code 2008 Part B 3.1", "actual": "every slack tank at its actual level"}
+        self.commit(s.condition.replace(fs_rule=new), f"Free-surface rule: {words[new]}", "edit", {"fs_rule": new})
+
+    def action_gz_method(self) -> None:
+        s = self.session
+        new = "transfer" if (s.condition.gz_correction or s.vessel.free_surface.gz_correction) == "constant" \
+            else "constant"
+        words = {"constant": "constant rise of G (ΣFSM/Δ)", "transfer": "actual fluid transfer at each heel"}
+        self.commit(s.condition.replace(gz_correction=new), f"GZ correction: {words[new]}", "edit",
+                    {"gz_correction": new})
+
     def action_undo(self) -> None:
         self._history(self.session.undo)
 

@@ -187,6 +187,9 @@ def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, st
     if result is None:
         return [title, Text(" no result: see the warning above", P["danger"])]
     r = result
+    if not compact:
+        rule = "IS2008" if r.fs_rule == "is2008" else "actual"
+        title.append(f"  FS {rule} · GZ {'transfer' if r.gz_correction == 'transfer' else 'const'}", P["dim"])
     trim_word = "A" if r.trim_m > 0 else ("F" if r.trim_m < 0 else "")
     list_word = "S" if r.list_deg > 0.005 else ("P" if r.list_deg < -0.005 else "")
     ll = next((m for m in vessel.load_lines if m.name == condition.load_line), None)
