@@ -112,13 +112,15 @@ def test_nudge_moves_by_percent_of_capacity_and_stops_at_the_ends(vessel):
 
 
 def test_transfer_conserves_mass_between_tanks_of_different_density(vessel):
-    """5 t from DB1P (sea water 1.025) into DB1S stated at 1.000 t/m³: masses move, volumes differ."""
+    """5 t of sea water (1.025) from DB1P into DB1S holding 2 m³ at 1.000 t/m³: the pumped water
+    keeps its density, so DB1S gains 5/1.025 m³ and its contents mix to (2·1.000 + 5)/(2 + 5/1.025)."""
     c0 = Condition(tanks=(TankFill("DB1P", "percent", 50.0), TankFill("DB1S", "volume_m3", 2.0, density_t_m3=1.0)))
     plan = plan_transfer(vessel, c0, "DB1P", "DB1S", "5t")
     cap = DB1P_L * DB1P_B * DB1P_H
     assert plan.mass_t == pytest.approx(5.0)
     assert volume(vessel, plan.condition, "DB1P") == pytest.approx(0.5 * cap - 5.0 / RHO_SW)
-    assert volume(vessel, plan.condition, "DB1S") == pytest.approx(2.0 + 5.0 / 1.0)
+    assert volume(vessel, plan.condition, "DB1S") == pytest.approx(2.0 + 5.0 / RHO_SW)
+    assert plan.condition.tank_fill("DB1S").density_t_m3 == pytest.approx((2.0 * 1.0 + 5.0) / (2.0 + 5.0 / RHO_SW))
     r0, r1 = evaluate(vessel, c0), evaluate(vessel, plan.condition)
     assert r1.displacement_t == pytest.approx(r0.displacement_t, abs=1e-9)
 
@@ -130,13 +132,19 @@ def test_transfer_conserves_mass_between_tanks_of_different_density(vessel):
         ("DB1P", "XX", "1t", "not a tank"),
         ("DB1P", "DB1S", "20t", "holds only"),
         ("DB1P", "DB1S", "0.2m", "not as a sounding"),
-        ("DB1P", "FW1C", "10t", "room for only"),
+        ("DB1P", "FW1C", "10t", "one kind of liquid"),
     ],
 )
 def test_impossible_transfer_is_refused(vessel, src, dst, amount, says):
     c0 = Condition(tanks=(TankFill("DB1P", "mass_t", 14.0), TankFill("FW1C", "percent", 90.0)))
     with pytest.raises(EntryError, match=says):
         plan_transfer(vessel, c0, src, dst, amount)
+
+
+def test_transfer_into_a_nearly_full_tank_is_refused(vessel):
+    c0 = Condition(tanks=(TankFill("DB1P", "mass_t", 14.0), TankFill("DB1S", "percent", 95.0)))
+    with pytest.raises(EntryError, match="room for only"):
+        plan_transfer(vessel, c0, "DB1P", "DB1S", "10t")
 
 
 def test_item_form_checks_every_field(vessel):
@@ -170,3 +178,46 @@ def test_hold_mass_zero_empties_it():
     assert hold_from_text(c1, hold, "0").holds == ()
     with pytest.raises(EntryError, match="structural limit"):
         hold_from_text(c1, hold, "120")
+
+
+def test_transfer_between_different_liquids_is_refused():
+    """Fuel is never pumped into ballast: a transfer moves one kind of liquid only."""
+    from deckload.core.model import Condition, TankFill
+    from deckload.ui.entry import EntryError, plan_transfer
+    from vessel_factories import barge_tanks, box_barge
+
+    vessel = box_barge(tanks=barge_tanks())
+    cond = Condition(tanks=(TankFill("FO1S", "percent", 80.0),))
+    kinds = {t.id: t.kind for t in vessel.tanks}
+    other = next(i for i, k in kinds.items() if k != kinds["FO1S"])
+    with pytest.raises(EntryError, match="one kind of liquid"):
+        plan_transfer(vessel, cond, "FO1S", other, "1t")
+
+
+def test_transfer_keeps_the_pumped_liquids_density_and_conserves_mass():
+    """The receiving tank gains the pumped volume v = m/ρ_from and takes the mixed density
+    (m_to + m)/(v_to + v); mass is conserved (common practice: liquids keep their density)."""
+    import dataclasses
+
+    from deckload.core.model import Condition, TankFill
+    from deckload.core.stability import evaluate
+    from deckload.ui.entry import plan_transfer, tank_density
+    from vessel_factories import barge_tanks, box_barge
+
+    vessel = box_barge(tanks=barge_tanks())
+    src = next(t for t in vessel.tanks if t.id == "FO1S")
+    dst = next(t for t in vessel.tanks if t.kind == src.kind and t.id != "FO1S")
+    rho_src, rho_dst = src.density_t_m3 + 0.05, dst.density_t_m3
+    cond = Condition(tanks=(TankFill("FO1S", "volume_m3", 10.0, rho_src), TankFill(dst.id, "volume_m3", 4.0)))
+    plan = plan_transfer(vessel, cond, "FO1S", dst.id, "3t")
+    to = plan.condition.tank_fill(dst.id)
+    v = 3.0 / rho_src
+    assert to.value == pytest.approx(4.0 + v)
+    assert tank_density(dst, to) == pytest.approx((4.0 * rho_dst + 3.0) / (4.0 + v))
+    before = evaluate(vessel, cond).displacement_t
+    after = evaluate(vessel, plan.condition).displacement_t
+    assert after == pytest.approx(before, abs=1e-9)
+    # into an empty tank the liquid keeps its own density
+    empty = dataclasses.replace(cond, tanks=(TankFill("FO1S", "volume_m3", 10.0, rho_src),))
+    to = plan_transfer(vessel, empty, "FO1S", dst.id, "3t").condition.tank_fill(dst.id)
+    assert tank_density(dst, to) == pytest.approx(rho_src) and to.value == pytest.approx(v)

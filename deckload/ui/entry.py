@@ -163,8 +163,11 @@ class TransferPlan:
 def plan_transfer(vessel: Vessel, condition: Condition, from_id: str, to_id: str, amount: str) -> TransferPlan:
     """Move ``amount`` (t, m³ or % of the from-tank's capacity) between two tanks.
 
-    Mass is conserved; each tank keeps its own density, so volumes differ when
-    the densities do.  Both tanks are then stated by volume.
+    Only liquids of one kind are pumped between tanks: fuel into ballast, or cargo
+    fuel into a bunker tank, is refused.  The liquid keeps its own density: the
+    receiving tank gains the pumped volume, and its contents take the mixed density
+    (m_to + m)/(v_to + v) (the pumped liquid's density if it was empty).  Mass is
+    conserved; both tanks are then stated by volume.
     """
     for tid, role in ((from_id, "From"), (to_id, "To")):
         if tid not in vessel.tank_index:
@@ -172,6 +175,9 @@ def plan_transfer(vessel: Vessel, condition: Condition, from_id: str, to_id: str
     if from_id == to_id:
         raise EntryError("From-tank and to-tank are the same tank.")
     src, dst = vessel.tank(from_id), vessel.tank(to_id)
+    if src.kind != dst.kind:
+        raise EntryError(f"{from_id} holds {src.kind.replace('_', ' ')} and {to_id} {dst.kind.replace('_', ' ')}: "
+                         "a transfer moves one kind of liquid only.")
     sf, df = condition.tank_fill(from_id), condition.tank_fill(to_id)
     rho_s, rho_d = tank_density(src, sf), tank_density(dst, df)
     quantity, value = parse_amount(amount)
@@ -184,12 +190,15 @@ def plan_transfer(vessel: Vessel, condition: Condition, from_id: str, to_id: str
     if vol_s > have_s * (1 + 1e-9):
         raise EntryError(f"{from_id} holds only {have_s:.2f} m³ ({have_s * rho_s:.2f} t); cannot pump {vol_s:.2f} m³.")
     mass = vol_s * rho_s
-    new_d = fill_volume_m3(dst, df) + mass / rho_d
+    have_d = fill_volume_m3(dst, df)
+    new_d = have_d + vol_s
     if new_d > dst.capacity_m3 * (1 + 1e-9):
-        room = dst.capacity_m3 - fill_volume_m3(dst, df)
-        raise EntryError(f"{to_id} has room for only {room:.2f} m³ ({room * rho_d:.2f} t).")
+        room = dst.capacity_m3 - have_d
+        raise EntryError(f"{to_id} has room for only {room:.2f} m³ ({room * rho_s:.2f} t of this liquid).")
+    rho_mix = (have_d * rho_d + mass) / new_d
     after = set_tank(condition, src, "volume_m3", max(0.0, have_s - vol_s))
-    after = set_tank(after, dst, "volume_m3", min(dst.capacity_m3, new_d))
+    override = None if abs(rho_mix - dst.density_t_m3) < 1e-9 else rho_mix
+    after = after.with_tank(TankFill(dst.id, "volume_m3", float(min(dst.capacity_m3, new_d)), override))
     return TransferPlan(from_id, to_id, mass, vol_s, after)
 
 
