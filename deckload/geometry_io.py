@@ -203,8 +203,8 @@ def _read_tables(root: Table, hull: HullOffsets | None) -> TableSpec | None:
         draft = None
     disp = t.increasing("kn_displacement_t", t.array("kn_displacement_t", above(0.0)))
     heel = t.increasing("kn_heel_deg", t.array("kn_heel_deg"))
-    if heel is not None and (heel[0] != 0.0 or heel[-1] > 90.0):
-        t.bad("kn_heel_deg", t.data["kn_heel_deg"], "must start at 0 and end at most at 90")
+    if heel is not None and (heel[0] != 0.0 or heel[-1] != 90.0):
+        t.bad("kn_heel_deg", t.data["kn_heel_deg"], "must start at 0 and end at 90 (the GZ curve runs 0–90°)")
         heel = None
     basis = t.text("trim_basis", choices=("free trim", "even keel"))
     lcg = t.num("trim_lcg_m", required=basis == "free trim", default=0.0)
@@ -215,8 +215,8 @@ def _read_tables(root: Table, hull: HullOffsets | None) -> TableSpec | None:
         t.bad("transfer_fill_step_pct", fstep, "must divide 100")
         fstep = None
     theel = t.increasing("transfer_heel_deg", t.array("transfer_heel_deg", required=False))
-    if theel is not None and (theel[0] != 0.0 or theel[-1] > 90.0):
-        t.bad("transfer_heel_deg", t.data["transfer_heel_deg"], "must start at 0 and end at most at 90")
+    if theel is not None and (theel[0] != 0.0 or theel[-1] != 90.0):
+        t.bad("transfer_heel_deg", t.data["transfer_heel_deg"], "must start at 0 and end at 90 (the GZ curve runs 0–90°)")
         theel = None
     t.finish()
     if basis == "free trim" and hull is not None and lcg is not None and not hull.station_x_m[0] < lcg < hull.station_x_m[-1]:

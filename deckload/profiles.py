@@ -217,6 +217,7 @@ def _read_cross_curves(root: Table) -> m.CrossCurves | None:
     basis = t.text("trim_basis", choices=("free trim", "even keel"))
     heel = t.increasing("heel_deg", t.array("heel_deg", heel_range))
     heel = t.starts_at("heel_deg", heel, 0.0, "the upright condition")
+    heel = t.ends_at("heel_deg", heel, 90.0, "the GZ curve runs 0–90°; nothing is extrapolated")
     disp = t.increasing("displacement_t", t.array("displacement_t", positive))
     kn = t.matrix("kn_m", "displacement_t", t.raw_len("displacement_t"), "heel_deg", t.raw_len("heel_deg"))
     t.finish()
@@ -424,6 +425,7 @@ def _read_transfer(t: Table) -> m.FluidTransfer | None:
         fill = None
     heel = t.increasing("heel_deg", t.array("heel_deg", heel_range))
     heel = t.starts_at("heel_deg", heel, 0.0, "upright")
+    heel = t.ends_at("heel_deg", heel, 90.0, "the GZ curve runs 0–90°; nothing is extrapolated")
     mom = t.matrix("moment_m4", "fill_pct", t.raw_len("fill_pct"), "heel_deg", t.raw_len("heel_deg"))
     t.finish()
     if fill is None or heel is None or mom is None:

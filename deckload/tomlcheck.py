@@ -523,6 +523,14 @@ class Table:
             return None
         return arr
 
+    def ends_at(self, k: str, arr: np.ndarray | None, last: float, why: str) -> np.ndarray | None:
+        if arr is None:
+            return None
+        if abs(float(arr[-1]) - last) > REL_TOL * max(1.0, abs(last)):
+            self.bad(k, self.data[k], f"must end at {num(last)} ({why})")
+            return None
+        return arr
+
     def pair(self, k: str, *rules: Rule, required: bool = True,
              form: str = "[from, to] with from below to") -> tuple[float, float] | None:
         """Two numbers, the first below the second; else the rule 'must be ``form``'."""

@@ -478,3 +478,27 @@ def test_length_is_checked_even_when_the_abscissa_is_also_wrong():
         ("hydrostatics.draft_m", "not strictly increasing (row 3: 1.0 after 1.0)"),
         ("hydrostatics.tpc_t_cm", "has 2 values but draft_m has 7: one value per row"),
     ]
+
+
+def test_cross_curves_must_reach_90_degrees():
+    """The GZ curve is drawn 0–90°; a KN table that stops short would be extrapolated, so it is refused."""
+    text = edit(BASE, "heel_deg = [0, 10, 20, 30, 40, 50, 60, 70, 80, 90]", "heel_deg = [0, 10, 20, 30, 40, 50, 60, 70, 80, 85]")
+    p = only(text)
+    assert p.key == "cross_curves.heel_deg" and "must end at 90" in p.rule
+    assert p.line == line_of(text, "heel_deg = [0, 10, 20, 30, 40, 50, 60, 70, 80, 85]")
+
+
+def test_fluid_transfer_table_must_reach_90_degrees():
+    """np.interp would hold the last moment flat beyond the table: refused instead."""
+    import tomllib
+
+    import tomli_w
+
+    doc = tomllib.loads(BASE)
+    doc["tank"][0]["transfer"] = {
+        "fill_pct": [0.0, 50.0, 100.0],
+        "heel_deg": [0.0, 15.0, 30.0, 45.0],
+        "moment_m4": [[0.0] * 4, [0.0, 1.0, 2.0, 2.5], [0.0] * 4],
+    }
+    ps = problems(tomli_w.dumps(doc))
+    assert [(p.key, "must end at 90" in p.rule) for p in ps] == [("tank[DB1P].transfer.heel_deg", True)]
