@@ -62,8 +62,9 @@ LIQUID_DENSITY_RANGE_T_M3 = (0.5, 2.0)
 WATER_DENSITY_RANGE_T_M3 = (0.99, 1.04)
 """Plausible densities of the water a vessel floats in (t/m³): fresh 1.000, sea about 1.025."""
 
-CAPACITY_TOLERANCE = 0.005
-"""A tank's capacity_m3 may differ from its last calibration volume by at most 0.5 %."""
+CAPACITY_TOLERANCE = 0.0005
+"""A tank's capacity_m3 may differ from its last calibration volume by at most 0.05 % (round-off):
+more would misjudge the 98 % 'nominally full' line or ask the table for a volume it does not hold."""
 
 
 # =========================================================================== vessel rules

@@ -195,7 +195,7 @@ half_breadth_m = [[3.0, 3.0], [3.0, 3.0], [3.0, 3.0], [3.0, 3.0], [3.0, 3.0]]
 [tables]
 draft_m = [0.5, 1.0, 1.5, 2.0]
 kn_displacement_t = [184.5, 246.0]
-kn_heel_deg = [0.0, 10.0, 20.0]
+kn_heel_deg = [0.0, 30.0, 60.0, 90.0]
 trim_basis = "free trim"
 trim_lcg_m = 10.0
 trim_vcg_m = 2.0

@@ -62,9 +62,11 @@ class TankFreeSurface:
 
 def tank_state(fill_pct: float, tank: Tank, empty_pct: float, full_pct: float) -> str:
     """empty / slack / worst_band / full, from the fill and the tank's worst band."""
-    if fill_pct <= empty_pct:
+    # A hair of tolerance so that 98 % typed as m³ (0.98·capacity → 97.99999999999999 %)
+    # is judged like 98 % typed as percent.
+    if fill_pct <= empty_pct + 1e-9:
         return "empty"
-    if fill_pct >= full_pct:
+    if fill_pct >= full_pct - 1e-9:
         return "full"
     lo, hi = tank.worst_band_pct
     return "worst_band" if lo <= fill_pct <= hi else "slack"

@@ -76,7 +76,9 @@ def list_deg(tcg_m: float, gm_fluid_m: float) -> float:
     Small-angle relation from the textbook (standards.md §6.3); for GM_fluid ≤ 0
     the list is found on the GZ curve instead (see :mod:`deckload.core.gz`).
     """
-    return math.degrees(math.atan2(tcg_m, gm_fluid_m))
+    if gm_fluid_m <= 0.0:
+        raise ValueError(f"the small-angle list needs GM fluid > 0 (got {gm_fluid_m:.3f} m); use the GZ curve")
+    return math.degrees(math.atan(tcg_m / gm_fluid_m))
 
 
 def fresh_water_allowance_m(displacement_t: float, tpc_t_cm: float) -> float:
@@ -87,10 +89,22 @@ def fresh_water_allowance_m(displacement_t: float, tpc_t_cm: float) -> float:
     return displacement_t / (4.0 * tpc_t_cm) / 1000.0
 
 
-def permitted_draft_m(mark_draft_m: float, fwa_m: float, water_density_t_m3: float) -> float:
+FRESH_WATER_MARKS = frozenset({"fresh", "tropical fresh", "tropical_fresh", "f", "tf"})
+"""Load-line marks that stand for fresh water (ICLL: the F and TF marks); all others are sea-water marks."""
+
+
+def mark_density_t_m3(name: str) -> float:
+    """Water density a load-line mark is set for: 1.000 t/m³ for F and TF, else 1.025 (ICLL, standards.md §6.1)."""
+    return 1.000 if name.strip().lower() in FRESH_WATER_MARKS else 1.025
+
+
+def permitted_draft_m(mark_draft_m: float, fwa_m: float, water_density_t_m3: float,
+                      mark_density: float = 1.025) -> float:
     """Draft allowed at a load-line mark in water of the given density.
 
-    Dock water allowance DWA = FWA·(1.025 − ρ)/0.025 (standards.md §6.1; textbook,
-    the formula marked from memory there).  ρ above 1.025 lowers the permitted draft.
+    The draft changes by FWA for each 0.025 t/m³ of density (dock water allowance
+    DWA = FWA·(1.025 − ρ)/0.025, standards.md §6.1; textbook, marked from memory
+    there).  A fresh-water mark already includes the FWA, so it is measured from
+    1.000 t/m³: lighter water than the mark's raises the allowed draft, heavier lowers it.
     """
-    return mark_draft_m + fwa_m * (1.025 - water_density_t_m3) / 0.025
+    return mark_draft_m + fwa_m * (mark_density - water_density_t_m3) / 0.025

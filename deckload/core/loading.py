@@ -62,7 +62,7 @@ def volume_of(tank: Tank, quantity: str, value: float, density_t_m3: float) -> f
     if quantity == "percent":
         if not 0.0 <= value <= 100.0:
             raise LoadingError(f"tank {tank.id}: {value:g} % is outside 0–100 %")
-        return tank.capacity_m3 * value / 100.0
+        return min(tank.capacity_m3 * value / 100.0, float(tank.table[-1, 1]))
     if quantity == "volume_m3":
         volume = value
     elif quantity == "mass_t":
@@ -80,7 +80,9 @@ def volume_of(tank: Tank, quantity: str, value: float, density_t_m3: float) -> f
         raise LoadingError(
             f"tank {tank.id}: {volume:.2f} m³ exceeds its capacity of {tank.capacity_m3:.2f} m³"
         )
-    return min(volume, tank.capacity_m3)
+    # capacity_m3 and the table's top may differ by round-off (the loader allows 0.05 %):
+    # never ask the table for more than it holds.
+    return min(volume, tank.capacity_m3, float(tank.table[-1, 1]))
 
 
 def contents_at_volume(tank: Tank, volume_m3: float, density_t_m3: float) -> TankContents:

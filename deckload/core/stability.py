@@ -25,6 +25,7 @@ from deckload.core.free_surface import BASIS_NONE, free_surface, transfer_moment
 from deckload.core.hydrostatics import (
     draft_at,
     fresh_water_allowance_m,
+    mark_density_t_m3,
     permitted_draft_m,
     trim_m,
     upright,
@@ -131,11 +132,17 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
     side = "port" if w.tcg_m < 0 else "starboard"
     gz = gz_port if side == "port" else gz_stbd
 
-    flood = _curve_limit(vessel.downflooding, disp)
+    # Both curves are tabulated against displacement at the table density, like the KN
+    # curves they are made with: the same waterline, so the same equivalent displacement.
+    flood = _curve_limit(vessel.downflooding, hy.table_displacement_t)
     if vessel.downflooding is not None and flood is None:
         warnings.append(Warning("downflooding-range",
-                                f"displacement {disp:.1f} t is outside the downflooding-angle curve: θf not applied",
-                                "caution"))
+                                f"displacement {disp:.1f} t is outside the downflooding-angle curve: θf is unknown "
+                                "and the criteria are worked to 40° as if there were no openings", "danger"))
+    elif flood is not None and flood < 30.0:
+        warnings.append(Warning("downflooding-low",
+                                f"downflooding angle θf {flood:.1f}° is below 30°: openings immerse before 30°, "
+                                "so the 30°–θf area is nil", "danger"))
     f = gzmod.facts(gz)
     top = min(40.0, flood) if flood is not None else 40.0
     a30 = gzmod.area_to(gz, 30.0)
@@ -151,7 +158,7 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
     measures = Measures(a30, a40, a3040, gz30, angle_of_max, gm_fluid)
     criteria = list(evaluate_criteria(vessel.criteria.code, measures, vessel.criteria.min_gm_m))
     if vessel.limit_curve is not None:
-        lim = _curve_limit(vessel.limit_curve, disp)
+        lim = _curve_limit(vessel.limit_curve, hy.table_displacement_t)
         if lim is None:
             warnings.append(Warning("limit-curve-range",
                                     f"displacement {disp:.1f} t is outside the limiting curve: that check was not made",
@@ -252,7 +259,7 @@ def _warnings(vessel, condition, tanks, criteria, items, heel, t_mid) -> list[Wa
     if mark is not None:
         summer = marks.get("summer", mark)
         try:
-            allowed = _permitted_draft(vessel, summer.draft_m, mark.draft_m, condition.water_density_t_m3)
+            allowed = _permitted_draft(vessel, summer.draft_m, mark, condition.water_density_t_m3)
         except OutOfRangeError:
             out.append(Warning("load-line-range", f"{summer.name} load line lies outside the hydrostatic table",
                                "caution"))
@@ -287,10 +294,11 @@ def _warnings(vessel, condition, tanks, criteria, items, heel, t_mid) -> list[Wa
     return out
 
 
-def _permitted_draft(vessel: Vessel, summer_draft_m: float, mark_draft_m: float, water_density: float) -> float:
+def _permitted_draft(vessel: Vessel, summer_draft_m: float, mark, water_density: float) -> float:
     """Draft allowed at a mark in this water: FWA from Δ and TPC at the summer draft."""
     h = vessel.hydrostatics
     i, f = bracket(h.draft_m, summer_draft_m, "summer load-line draft", "m")
     disp = float(h.displacement_t[i] * (1 - f) + h.displacement_t[i + 1] * f)
     tpc = float(h.tpc_t_cm[i] * (1 - f) + h.tpc_t_cm[i + 1] * f)
-    return permitted_draft_m(mark_draft_m, fresh_water_allowance_m(disp, tpc), water_density)
+    return permitted_draft_m(mark.draft_m, fresh_water_allowance_m(disp, tpc), water_density,
+                             mark_density_t_m3(mark.name))
