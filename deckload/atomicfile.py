@@ -14,6 +14,17 @@ import tempfile
 from pathlib import Path
 
 
+def _read_umask() -> int:
+    mask = os.umask(0)
+    os.umask(mask)
+    return mask
+
+
+# Read once, at import, while there is one thread: os.umask can only be read by setting it,
+# and setting it while the screen's writer thread creates files would leak a 0 umask.
+_UMASK = _read_umask()
+
+
 def _write_all(fh, data: bytes) -> None:
     fh.write(data)
 
@@ -41,9 +52,7 @@ def write_atomic(path: str | os.PathLike, data: bytes | str) -> None:
     try:
         mode = os.stat(path).st_mode & 0o777
     except FileNotFoundError:
-        umask = os.umask(0)
-        os.umask(umask)
-        mode = 0o666 & ~umask
+        mode = 0o666 & ~_UMASK
     fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=folder)
     try:
         with os.fdopen(fd, "wb") as fh:

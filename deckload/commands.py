@@ -44,12 +44,12 @@ def format_summary(r: Result) -> str:
         )
     lines += ["", "  Tanks"]
     for t in r.tanks:
-        flag = {"worst_band": "◆", "slack": "◇", "full": "■", "empty": "·"}[t.state]
+        flag = {"worst_band": "▲", "slack": "≈", "full": "■", "empty": "·"}[t.state]
         lines.append(
             f"    {flag} {t.id:<7} {t.fill_pct:6.1f} % {t.volume_m3:8.2f} m³ {t.mass_t:8.2f} t"
             f"  FSM {t.fsm_tm:7.1f} t·m  {t.state:<10} {t.fs_rule}"
         )
-    lines.append("    ◆ worst band  ◇ slack  ■ nominally full  · empty")
+    lines.append("    ▲ worst band  ≈ slack  ■ nominally full  · empty")
     if r.warnings:
         lines += ["", "  Warnings"]
         lines += [f"    ! {w.message}" for w in r.warnings]

@@ -221,3 +221,25 @@ def test_transfer_keeps_the_pumped_liquids_density_and_conserves_mass():
     empty = dataclasses.replace(cond, tanks=(TankFill("FO1S", "volume_m3", 10.0, rho_src),))
     to = plan_transfer(vessel, empty, "FO1S", dst.id, "3t").condition.tank_fill(dst.id)
     assert tank_density(dst, to) == pytest.approx(rho_src) and to.value == pytest.approx(v)
+
+
+def test_a_confirmation_says_what_was_understood(vessel):
+    """'2m' is a sounding, not 2 m³: the confirmation says so, with the volume it stands for."""
+    from deckload.ui.entry import describe_fill
+
+    tank = vessel.tank("DB1P")
+    cap = tank.capacity_m3
+    assert describe_fill(tank, TankFill("DB1P", "percent", 50.0)) == f"50 % = {0.5 * cap:.2f} m³"
+    assert describe_fill(tank, TankFill("DB1P", "volume_m3", 3.0)) == "3.00 m³"
+    assert describe_fill(tank, TankFill("DB1P", "sounding_m", 0.4)).startswith("sounding 0.4 m = ")
+    assert describe_fill(tank, None) == "empty"
+
+
+def test_decimal_comma_and_nudging_below_zero():
+    from deckload.ui.entry import EntryError, nudge_mass, parse_number
+
+    with pytest.raises(EntryError, match="decimal point"):
+        parse_number("1,025", "Water density", "t/m³")
+    assert nudge_mass(0.5, -1.0, "H1") == 0.0
+    with pytest.raises(EntryError, match="already empty"):
+        nudge_mass(0.0, -1.0, "H1")

@@ -74,3 +74,53 @@ def test_a_torn_log_line_is_reported_at_start(tmp_path):
         assert journal.notice is not None and "interrupted write" in journal.notice
     finally:
         journal.logbook.close()
+
+
+def test_a_second_unreadable_working_file_does_not_overwrite_the_first(tmp_path):
+    vessel = load_profile(paths.DEMO_PROFILE)
+    saved = working_path(tmp_path, vessel)
+    saved.parent.mkdir(parents=True, exist_ok=True)
+    for n in (1, 2):
+        saved.write_text(f"format = 'deckload-condition-1'\n# copy {n}\n[tanks.NOPE]\npercent = 50\n")
+        load_inputs(None, None, tmp_path)
+    first = saved.with_name(saved.name + ".unreadable")
+    second = saved.with_name(saved.name + ".unreadable.2")
+    assert "# copy 1" in first.read_text() and "# copy 2" in second.read_text()
+
+
+def test_opening_a_named_condition_keeps_the_previous_working_file(tmp_path):
+    vessel = load_profile(paths.DEMO_PROFILE)
+    saved = working_path(tmp_path, vessel)
+    saved.parent.mkdir(parents=True, exist_ok=True)
+    saved.write_text(paths.DEMO_CONDITIONS["midvoyage"].read_text())
+    _, condition, notices = load_inputs(paths.DEMO_PROFILE, paths.DEMO_CONDITIONS["arrival"], tmp_path)
+    assert condition == load_condition(paths.DEMO_CONDITIONS["arrival"], vessel)
+    kept = saved.with_name(saved.name + ".previous")
+    assert kept.read_text() == paths.DEMO_CONDITIONS["midvoyage"].read_text()
+    assert str(kept) in notices[0]
+
+
+def test_a_second_window_on_the_same_vessel_does_not_save_the_working_condition(tmp_path):
+    from deckload.logbook import Logbook
+
+    vessel = load_profile(paths.DEMO_PROFILE)
+    condition = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
+    holder = Logbook.open(tmp_path / "logs", vessel.particulars.name)
+    try:
+        app = create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs")
+        assert app.session.save_path is None
+        assert any("does not save the working condition" in n for n in app.notices)
+    finally:
+        holder.close()
+
+
+async def test_a_notice_with_brackets_does_not_break_the_screen(tmp_path):
+    """Notices carry file names and user text: they are shown as plain text, never as markup."""
+    vessel = load_profile(paths.DEMO_PROFILE)
+    condition = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
+    app = create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs",
+                     notices=["value 'x[/]' in [tanks.A] was refused"])
+    async with app.run_test(size=(120, 40), notifications=True) as pilot:
+        await pilot.pause(0.3)
+        toasts = [str(t.render()) for t in app.screen.query("Toast")]
+        assert "value 'x[/]' in [tanks.A] was refused" in toasts

@@ -186,6 +186,10 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
         )
         for c, t in zip(contents, fs)
     )
+    if fs_rule == "actual":
+        warnings.append(Warning("fs-rule-actual",
+                                "free surface at actual levels (IS 2008 B 3.1.6): the B 3.1.3–3.1.4 allowance "
+                                "for consumables is off", "caution"))
     warnings = _warnings(vessel, condition, tanks, criteria, items, heel, t_mid) + warnings
 
     return Result(

@@ -37,7 +37,7 @@ class DeckloadApp(App[None]):
         if problems and not self._quit_warned:
             self._quit_warned = True
             for p in problems:
-                self.notify(p + " — quit again to leave anyway", severity="error", timeout=15)
+                self.notify(p + " — quit again to leave anyway", severity="error", timeout=15, markup=False)
             return
         await super().action_quit()
 
@@ -48,7 +48,7 @@ class DeckloadApp(App[None]):
 
     def on_mount(self) -> None:
         for n in self.notices:
-            self.notify(n, severity="warning", timeout=12)
+            self.notify(n, severity="warning", timeout=12, markup=False)
 
     def get_system_commands(self, screen: Screen) -> Iterable[SystemCommand]:
         """The command palette lists every command from the one table, with its key."""
@@ -65,7 +65,7 @@ class DeckloadApp(App[None]):
 
         j = self.session.journal
         if j.logbook is None:
-            self.notify(f"No voyage log open: {j.problem or 'unknown reason'}", severity="error")
+            self.notify(f"No voyage log open: {j.problem or 'unknown reason'}", severity="error", markup=False)
             return
 
         def restored(req) -> None:

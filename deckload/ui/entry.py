@@ -58,6 +58,8 @@ def parse_number(text: str, what: str, unit: str = "", *, low: float | None = No
     """A plain number, optionally followed by ``unit``; checked against [low, high]."""
     raw = text.strip()
     m = _NUMBER.match(raw)
+    if raw and "," in raw:
+        raise EntryError(f"{what}: {raw!r}: use a decimal point, not a comma.")
     if not raw or m is None:
         raise EntryError(f"{what}: {raw!r} is not a number." if raw else f"{what}: nothing typed.")
     typed_unit = m.group("unit").lower().replace("³", "3")
@@ -117,6 +119,18 @@ def set_tank(condition: Condition, tank: Tank, quantity: str, value: float) -> C
         return condition.without_tank(tank.id)
     override = fill.density_t_m3 if fill is not None else None
     return condition.with_tank(TankFill(tank.id, quantity, float(value), override))
+
+
+def describe_fill(tank: Tank, fill: TankFill | None) -> str:
+    """What an entry was understood as, with its volume: '55 % = 12.34 m³', 'sounding 1.2 m = 8.10 m³'."""
+    if fill is None:
+        return "empty"
+    vol = fill_volume_m3(tank, fill)
+    if fill.quantity == "volume_m3":
+        return f"{vol:.2f} m³"
+    said = {"percent": f"{fill.value:g} %", "mass_t": f"{fill.value:g} t",
+            "sounding_m": f"sounding {fill.value:g} m"}[fill.quantity]
+    return f"{said} = {vol:.2f} m³"
 
 
 def fill_text(fill: TankFill | None) -> str:
@@ -219,10 +233,10 @@ def hold_from_text(condition: Condition, hold: Hold, text: str) -> Condition:
 
 
 def nudge_mass(mass_t: float, step_t: float, what: str) -> float:
-    new = round(mass_t + step_t, 6)
-    if new < 0:
+    """One nudge of a mass; a step below zero stops at empty (0 t)."""
+    if mass_t <= 0 and step_t < 0:
         raise EntryError(f"{what} is already empty.")
-    return new
+    return max(0.0, round(mass_t + step_t, 6))
 
 
 @dataclass(frozen=True)

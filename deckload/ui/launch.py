@@ -25,19 +25,35 @@ def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir
 
     notices: list[str] = []
     vessel = load_profile(profile_path or paths.DEMO_PROFILE)
-    if condition_path is not None:
-        return vessel, load_condition(condition_path, vessel), notices
     saved = working_path(work_dir, vessel)
+    if condition_path is not None:
+        condition = load_condition(condition_path, vessel)
+        if saved.is_file():
+            # The named condition becomes the working one; the old working file is kept.
+            aside = _free_name(saved, ".previous")
+            saved.replace(aside)
+            notices.append(f"The previous working condition was kept as {aside}.")
+        return vessel, condition, notices
     if saved.is_file():
         try:
             return vessel, load_condition(saved, vessel), notices
         except ProfileError as exc:
-            aside = saved.with_name(saved.name + ".unreadable")
+            aside = _free_name(saved, ".unreadable")
             saved.replace(aside)
             notices.append(f"Saved working condition could not be read and was moved to {aside}: {exc}")
     if profile_path is None:
         return vessel, load_condition(paths.DEMO_CONDITIONS["departure"], vessel), notices
     return vessel, Condition(name="Working condition"), notices
+
+
+def _free_name(path: Path, suffix: str) -> Path:
+    """``path`` + ``suffix``, or + ``suffix.2``, ``.3`` … : a name that holds nothing yet."""
+    candidate = path.with_name(path.name + suffix)
+    n = 1
+    while candidate.exists():
+        n += 1
+        candidate = path.with_name(f"{path.name}{suffix}.{n}")
+    return candidate
 
 
 def create_app(
@@ -54,8 +70,13 @@ def create_app(
     journal = open_journal(log_dir, vessel.particulars.name)
     journal.officer = officer
     save_path = working_path(work_dir, vessel) if work_dir is not None else None
-    session = Session(vessel, condition, save_path=save_path, journal=journal)
     extra = [n for n in (journal.problem, journal.notice) if n]
+    if journal.logbook is not None and journal.logbook.readonly and save_path is not None:
+        # Another deckload holds this vessel's log: it also owns the working condition,
+        # so this window must not overwrite it.
+        save_path = None
+        extra.append("This window does not save the working condition: another deckload has this vessel open.")
+    session = Session(vessel, condition, save_path=save_path, journal=journal)
     return DeckloadApp(session, notices=[*notices, *extra])
 
 
@@ -88,5 +109,6 @@ def run_open(profile_path: Path | None, condition_path: Path | None) -> int:
     except (ProfileError, OSError) as exc:
         print(f"deckload: {exc}", file=sys.stderr)
         return 2
-    create_app(vessel, condition, work_dir=work_dir, log_dir=paths.log_dir(), notices=notices).run()
-    return 0
+    app = create_app(vessel, condition, work_dir=work_dir, log_dir=paths.log_dir(), notices=notices)
+    app.run()
+    return app.return_code or 0

@@ -99,7 +99,7 @@ class LoadingScreen(Screen[None]):
         return t
 
     def _report(self, problem: str) -> None:
-        self.notify(problem, severity="error", timeout=8)
+        self.notify(problem, severity="error", timeout=8, markup=False)
 
     def say(self, message: str, ok: bool | None = True) -> None:
         """The message line: ✔ done, ✖ refused, or a plain hint."""
@@ -119,7 +119,7 @@ class LoadingScreen(Screen[None]):
         self.refresh_view()
         self.say(label + self._gm_change(gm_before))
         for p in problems:
-            self.notify(p, severity="error", timeout=8)
+            self.notify(p, severity="error", timeout=8, markup=False)
 
     def _gm_change(self, before: float | None) -> str:
         s = self.session
@@ -167,7 +167,9 @@ class LoadingScreen(Screen[None]):
 
         def done(r) -> None:
             if r:
-                self.commit(r[0], f"{tank.id} set to {r[1]}", self._kind(tank.id), {"tank": tank.id, "entered": r[1]})
+                # Say what was understood, so a slip from m3 to m (sounding) is seen at once.
+                got = entry.describe_fill(tank, r[0].tank_fill(tank.id))
+                self.commit(r[0], f"{tank.id} set to {got}", self._kind(tank.id), {"tank": tank.id, "entered": r[1]})
 
         self.app.push_screen(PromptForm(f"{tank.id}  {tank.name}", hint, entry.fill_text(fill), build), done)
 
@@ -182,7 +184,8 @@ class LoadingScreen(Screen[None]):
 
         def done(r) -> None:
             if r:
-                self.commit(r[0], f"{hold.id} cargo set to {r[1]} t", "cargo", {"hold": hold.id, "entered": r[1]})
+                mass = next((h.mass_t for h in r[0].holds if h.hold_id == hold.id), 0.0)
+                self.commit(r[0], f"{hold.id} cargo set to {mass:g} t", "cargo", {"hold": hold.id, "entered": r[1]})
 
         form = PromptForm(f"{hold.id}  {hold.name}", f"Cargo mass in t (0 empties the hold){limit}",
                           f"{load.mass_t:g}" if load else "", build)
@@ -320,7 +323,7 @@ class LoadingScreen(Screen[None]):
         self.refresh_view()
         self.say(label)
         for p in problems:
-            self.notify(p, severity="error", timeout=8)
+            self.notify(p, severity="error", timeout=8, markup=False)
 
     def action_toggle_gz(self) -> None:
         self.toggle_class("-gz")
@@ -336,7 +339,7 @@ class LoadingScreen(Screen[None]):
                 return
             problems = self.session.record(*answer)
             for p in problems:
-                self.notify(p, severity="error", timeout=8)
+                self.notify(p, severity="error", timeout=8, markup=False)
             self.say(f"Condition recorded in the log by {answer[0]}" if not problems else "Not recorded", ok=not problems)
 
         self.app.push_screen(RecordForm(j.officer, None), done)
