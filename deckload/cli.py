@@ -115,6 +115,13 @@ def main(argv: list[str] | None = None) -> int:
             return run_log(args)
     except KeyboardInterrupt:
         return 130
+    except ValueError as e:
+        from deckload.logbook import ShipOffsetError
+
+        if isinstance(e, ShipOffsetError):
+            print(f"deckload: {e}", file=sys.stderr)
+            return 2
+        raise
     except BrokenPipeError:
         # The reader (e.g. `| head`) went away: not an error of ours.
         sys.stdout = open(os.devnull, "w")

@@ -126,15 +126,19 @@ def local_offset() -> timedelta:
     return off if off is not None else timedelta(0)
 
 
+class ShipOffsetError(ValueError):
+    """A ship's clock offset that is not +HH:MM / -HH:MM within ±14:00."""
+
+
 def parse_offset(text: str) -> timedelta:
     """Parse a ship's clock offset ``"+HH:MM"`` / ``"-HH:MM"`` (within ±14:00)."""
     m = _OFFSET.fullmatch(text.strip())
     if not m:
-        raise ValueError(f"ship's clock offset {text!r} is not of the form +HH:MM or -HH:MM")
+        raise ShipOffsetError(f"ship's clock offset {text!r} is not of the form +HH:MM or -HH:MM")
     sign, hh, mm = m.groups()
     minutes = int(hh) * 60 + int(mm)
     if int(mm) >= 60 or minutes > 14 * 60:
-        raise ValueError(f"ship's clock offset {text!r} is outside -14:00 … +14:00")
+        raise ShipOffsetError(f"ship's clock offset {text!r} is outside -14:00 … +14:00")
     return timedelta(minutes=-minutes if sign == "-" else minutes)
 
 
@@ -160,17 +164,25 @@ def clock_stamp(ship_offset: str | None = None) -> str:
 
 def _configured_offset() -> timedelta:
     env = os.environ.get("DECKLOAD_SHIP_OFFSET")
-    return parse_offset(env) if env else local_offset()
+    if not env:
+        return local_offset()
+    try:
+        return parse_offset(env)
+    except ShipOffsetError as e:
+        raise ShipOffsetError(f"DECKLOAD_SHIP_OFFSET: {e}") from None
 
 
 # --------------------------------------------------------------------------- helpers
 
 
 def vessel_slug(vessel_name: str) -> str:
-    """File-name form of a vessel name: 'Demo Islander' → 'demo-islander'."""
-    slug = re.sub(r"[^a-z0-9]+", "-", vessel_name.lower()).strip("-")
+    """File-name form of a vessel name: 'Demo Islander' → 'demo-islander', 'Øya 1' → 'øya-1'.
+
+    Letters of any script are kept; a name with none gets a stable name from its hash.
+    """
+    slug = re.sub(r"[\W_]+", "-", vessel_name.casefold()).strip("-")
     if not slug:
-        raise ValueError(f"vessel name {vessel_name!r} has no letters or digits to name a log file")
+        slug = "vessel-" + hashlib.sha256(vessel_name.encode("utf-8")).hexdigest()[:12]
     return slug
 
 

@@ -198,3 +198,21 @@ def test_report_of_each_demo_condition_fits_one_a4_page(demo, name):
     doc = render_report_html(evaluate(demo, c), demo, c, stamp="2026-12-01 22:00 UTC (ship's time "
                              "2026-12-02 08:00, +10:00)", source=DEMO_CONDITIONS[name].name)
     assert 'data-fits-a4="yes"' in doc
+
+
+def test_a_malformed_ship_offset_is_a_message_not_a_traceback(monkeypatch, capsys):
+    from deckload.cli import main
+
+    monkeypatch.setenv("DECKLOAD_SHIP_OFFSET", "+2")
+    assert main(["report", "demo", "arrival", "--txt"]) == 2
+    err = capsys.readouterr().err
+    assert "DECKLOAD_SHIP_OFFSET" in err and "+HH:MM" in err and "Traceback" not in err
+
+
+def test_vessel_names_in_any_script_name_a_log_file():
+    from deckload.logbook import vessel_slug
+
+    assert vessel_slug("Demo Islander") == "demo-islander"
+    assert vessel_slug("Øya 1") == "øya-1"
+    assert vessel_slug("Нева") == "нева"
+    assert vessel_slug("***").startswith("vessel-") and vessel_slug("***") == vessel_slug("***")
