@@ -226,3 +226,22 @@ async def test_free_surface_rule_and_gz_method_switch_by_key_and_undo(app):
         await pilot.press("u", "u")
         await pilot.pause()
         assert app.session.condition == c0
+
+
+async def test_enter_on_the_shown_value_changes_nothing(app):
+    """The form shows a rounded value (4.87805m3 for 5 t of sea water); Enter on it must not store
+    the rounded number as a new, undoable change."""
+    from deckload.core.model import TankFill
+
+    async with app.run_test(size=(120, 40)) as pilot:
+        c0 = app.session.condition.with_tank(TankFill("DB1P", "volume_m3", 5.0 / RHO_SW))
+        app.loading_screen.commit(c0, "setup")
+        await pilot.pause()
+        depth = app.session.undo_depth
+        await pilot.press("enter")
+        await pilot.pause()
+        assert isinstance(app.screen, PromptForm)
+        await pilot.press("enter")
+        await pilot.pause()
+        assert app.session.condition is c0 or app.session.condition == c0
+        assert app.session.undo_depth == depth

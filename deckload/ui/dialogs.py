@@ -55,6 +55,10 @@ class PromptForm(Form):
 
     def on_input_submitted(self, event: Input.Submitted) -> None:
         event.stop()
+        if self._initial and event.value.strip() == self._initial.strip():
+            # The shown value is rounded for reading: submitting it unchanged changes nothing.
+            self.dismiss(None)
+            return
         try:
             value = self._build(event.value)
         except EntryError as exc:
