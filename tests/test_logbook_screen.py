@@ -125,6 +125,10 @@ async def test_log_screen_lists_filters_opens_and_restores(filled):
         n_before = len(book.entries())
         await pilot.press("r")
         await pilot.pause()
+        assert app.answers == []  # the first r only asks
+        assert any("Press r again" in str(n.message) for n in app._notifications)
+        await pilot.press("r")
+        await pilot.pause()
         assert len(app.answers) == 1
         req = app.answers[0]
         assert isinstance(req, RestoreRequest) and req.entry_seq == 3

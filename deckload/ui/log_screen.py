@@ -16,7 +16,7 @@ writes to the log: it reads entries, and a restore is handed back through
 ``dismiss(RestoreRequest)`` so the caller makes the change — and logs it with kind
 ``"restore"`` — like any other edit.  It closes with ``dismiss(None)`` on Escape or l.
 
-Keys (shown in the footer): o or ⏎ open the entry read-only, r restore its condition,
+Keys (shown in the footer): o or ⏎ open the entry read-only, r r restore its condition (asks once),
 k next kind, d date filter, c clear filters, v verify the chain, l / Esc back.
 Styles: ``log_screen.tcss`` beside this file.
 """
@@ -184,6 +184,8 @@ class LogScreen(Screen["RestoreRequest | None"]):
         self.day_from: date | None = None
         self.day_to: date | None = None
         self.shown: list[LogEntry] = []
+        self._restore_asked: int | None = None
+        """Entry whose restore was asked for once; a second r on it restores."""
 
     # ----------------------------------------------------------------- layout
 
@@ -325,6 +327,13 @@ class LogScreen(Screen["RestoreRequest | None"]):
         except Exception as exc:  # a stored condition that no longer fits the profile
             self.notify(f"Entry #{e.seq} cannot be restored: {exc}", severity="error", timeout=10, markup=False)
             return
+        if self._restore_asked != e.seq:
+            # Replacing the working condition is one key away: ask once more.
+            self._restore_asked = e.seq
+            self.notify(f"Press r again to make entry #{e.seq}'s condition the working condition (undoable).",
+                        severity="warning")
+            return
+        self._restore_asked = None
         self.dismiss(
             RestoreRequest(
                 condition=condition,
