@@ -131,3 +131,29 @@ async def test_new_user_scenario_transfer_undo_and_sounding(app):
         assert db1p.sounding_m == pytest.approx(0.5) and db1p.mass_t > 0
         assert r2.displacement_t == pytest.approx(r0.displacement_t + db1p.mass_t)
         assert f"{r2.displacement_t:.1f}" in app.screen.query_one("#afloat", LinePanel).plain()
+
+
+async def test_restoring_a_logged_condition_is_one_undoable_change_logged_as_restore(app):
+    from deckload.ui.log_screen import LogScreen
+
+    async with app.run_test(size=(120, 40)) as pilot:
+        c0 = app.session.condition
+        await pilot.press("o", *"jm", "enter")
+        await pilot.press("f")  # the tank under the cursor filled: logged with its condition
+        app.session.flush()
+        c1 = app.session.condition
+        await pilot.press("u")  # back to the departure condition (logged too)
+        app.session.flush()
+        assert app.session.condition == c0
+        await pilot.press("l")
+        assert isinstance(app.screen, LogScreen)
+        await pilot.press("end", "up")  # the fill entry, one above the undo
+        await pilot.press("r", "r")
+        await pilot.pause()
+        assert not isinstance(app.screen, LogScreen)
+        assert app.session.condition == c1
+        app.session.flush()
+        kinds = [e.kind for e in app.session.journal.logbook.entries()]
+        assert kinds[-1] == "restore"
+        await pilot.press("u")
+        assert app.session.condition == c0
