@@ -34,7 +34,7 @@ import numpy as np
 
 from deckload.core.loading import TankContents
 from deckload.core.model import FluidTransfer, Tank, Vessel
-from deckload.core.tables import bracket
+from deckload.core.tables import bracket, lerp_row
 
 SIN30 = 0.5
 TAN30_SQ = 1.0 / 3.0
@@ -76,7 +76,7 @@ def fsi_at_fill(tank: Tank, fill_pct: float) -> float:
     """Free-surface inertia (m⁴) at a fill, from the calibration table."""
     vol = tank.capacity_m3 * fill_pct / 100.0
     i, f = bracket(tank.table[:, 1], vol, f"volume of tank {tank.id}", "m³")
-    return float(tank.table[i, 5] * (1 - f) + tank.table[i + 1, 5] * f)
+    return float(lerp_row(tank.table[:, 5], i, f))
 
 
 @lru_cache(maxsize=4096)
@@ -118,7 +118,7 @@ def transfer_moment_m4(tank: Tank, basis: str, fill_pct: float, heel_rad: np.nda
     else:
         fill = 98.0 if basis == BASIS_AT_98 else fill_pct
         j, f = bracket(tr.fill_pct, fill, f"fill of tank {tank.id}", "%")
-        per_heel = tr.moment_m4[j] * (1 - f) + tr.moment_m4[j + 1] * f
+        per_heel = lerp_row(tr.moment_m4, j, f)
     return np.interp(heel_deg, tr.heel_deg, per_heel)
 
 

@@ -9,11 +9,10 @@ MCTC, which are proportional to density, are then scaled by ρ_w/ρ_t
 
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass
 
 from deckload.core.model import HydrostaticTable, Vessel
-from deckload.core.tables import bracket
+from deckload.core.tables import bracket, lerp_row
 
 
 @dataclass(frozen=True)
@@ -39,7 +38,7 @@ def upright(vessel: Vessel, displacement_t: float, water_density_t_m3: float) ->
     i, f = bracket(h.displacement_t, d_eq, "displacement (hydrostatic table, at table density)", "t")
 
     def at(col):
-        return float(col[i] * (1.0 - f) + col[i + 1] * f)
+        return float(lerp_row(col, i, f))
 
     return Upright(
         table_displacement_t=d_eq,
@@ -68,17 +67,6 @@ def draft_at(x_m: float, draft_at_lcf_m: float, lcf_m: float, trim: float, lbp_m
     T_F − t·(LBP − x_F)/LBP (standards.md §6.3).
     """
     return draft_at_lcf_m + trim * (lcf_m - x_m) / lbp_m
-
-
-def list_deg(tcg_m: float, gm_fluid_m: float) -> float:
-    """Angle of list (degrees, + starboard): tanφ = TCG/GM_fluid for GM_fluid > 0.
-
-    Small-angle relation from the textbook (standards.md §6.3); for GM_fluid ≤ 0
-    the list is found on the GZ curve instead (see :mod:`deckload.core.gz`).
-    """
-    if gm_fluid_m <= 0.0:
-        raise ValueError(f"the small-angle list needs GM fluid > 0 (got {gm_fluid_m:.3f} m); use the GZ curve")
-    return math.degrees(math.atan(tcg_m / gm_fluid_m))
 
 
 def fresh_water_allowance_m(displacement_t: float, tpc_t_cm: float) -> float:

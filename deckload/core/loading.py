@@ -139,9 +139,9 @@ def hold_item(hold: Hold, load: HoldLoad) -> ItemResult:
             )
         i, f = bracket(hold.fill_pct, min(fill, 100.0), f"fill of hold {hold.id}", "%")
         if hold.fill_vcg_m is not None:
-            vcg = float(hold.fill_vcg_m[i] * (1 - f) + hold.fill_vcg_m[i + 1] * f)
+            vcg = float(lerp_row(hold.fill_vcg_m, i, f))
         if hold.fill_lcg_m is not None:
-            lcg = float(hold.fill_lcg_m[i] * (1 - f) + hold.fill_lcg_m[i + 1] * f)
+            lcg = float(lerp_row(hold.fill_lcg_m, i, f))
     lcg = load.lcg_m if load.lcg_m is not None else lcg
     vcg = load.vcg_m if load.vcg_m is not None else vcg
     tcg = load.tcg_m if load.tcg_m is not None else tcg

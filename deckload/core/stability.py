@@ -33,7 +33,7 @@ from deckload.core.hydrostatics import (
 from deckload.core.loading import LoadingError, hold_item, resolve_tanks, sum_weights
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import ItemResult, Result, TankResult, Warning
-from deckload.core.tables import OutOfRangeError, bracket
+from deckload.core.tables import OutOfRangeError, bracket, interp, lerp_row
 
 LIST_WARNING_DEG = 2.0
 NEAR_LIMIT_FRACTION = 0.10
@@ -59,13 +59,13 @@ def _items(vessel: Vessel, condition: Condition) -> list[ItemResult]:
 
 
 def _curve_limit(curve, displacement_t: float) -> float | None:
+    """The curve's value at a displacement, or None outside its range (the caller warns)."""
     if curve is None:
         return None
     try:
-        i, f = bracket(curve.displacement_t, displacement_t, "displacement", "t")
+        return interp(curve.displacement_t, curve.value, displacement_t, "displacement", "t")
     except OutOfRangeError:
         return None
-    return float(curve.value[i] * (1 - f) + curve.value[i + 1] * f)
 
 
 def evaluate(vessel: Vessel, condition: Condition) -> Result:
@@ -302,7 +302,7 @@ def _permitted_draft(vessel: Vessel, summer_draft_m: float, mark, water_density:
     """Draft allowed at a mark in this water: FWA from Δ and TPC at the summer draft."""
     h = vessel.hydrostatics
     i, f = bracket(h.draft_m, summer_draft_m, "summer load-line draft", "m")
-    disp = float(h.displacement_t[i] * (1 - f) + h.displacement_t[i + 1] * f)
-    tpc = float(h.tpc_t_cm[i] * (1 - f) + h.tpc_t_cm[i + 1] * f)
+    disp = float(lerp_row(h.displacement_t, i, f))
+    tpc = float(lerp_row(h.tpc_t_cm, i, f))
     return permitted_draft_m(mark.draft_m, fresh_water_allowance_m(disp, tpc), water_density,
                              mark_density_t_m3(mark.name))

@@ -54,14 +54,14 @@ def bracket(xs: np.ndarray, x: float, quantity: str, unit: str = "") -> tuple[in
 
 
 def lerp_row(table: np.ndarray, i: int, f: float) -> np.ndarray:
-    """Linear blend of rows ``i`` and ``i+1`` of a 2-D table."""
+    """Linear blend of rows ``i`` and ``i+1`` of a table (a 1-D column gives a number)."""
     return table[i] * (1.0 - f) + table[i + 1] * f
 
 
 def interp(xs: np.ndarray, ys: np.ndarray, x: float, quantity: str, unit: str = "") -> float:
     """Linear interpolation of ``ys`` at ``x`` with the range check of :func:`bracket`."""
     i, f = bracket(xs, x, quantity, unit)
-    return float(ys[i] * (1.0 - f) + ys[i + 1] * f)
+    return float(lerp_row(ys, i, f))
 
 
 @dataclass(frozen=True)

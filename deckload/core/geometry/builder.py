@@ -12,13 +12,21 @@ from typing import Callable
 import numpy as np
 
 from deckload.core.geometry.body import Body, immerse
-from deckload.core.geometry.cross_curves import CrossCurveResult, cross_curves, immersion_angle
+from deckload.core.geometry.cross_curves import (
+    CrossCurveResult,
+    cross_curves,
+    immersion_angle,
+)
 from deckload.core.geometry.hull import compartment_body, hull_sections, offsets_at
-from deckload.core.geometry.hydrostatics_calc import UprightHydrostatics, upright_hydrostatics
+from deckload.core.geometry.hydrostatics_calc import (
+    UprightHydrostatics,
+    upright_hydrostatics,
+)
 from deckload.core.geometry.sections import simpson_weights
 from deckload.core.geometry.spec import DeckAreaSpec, Geometry, HoldSpec, TankSpec
-from deckload.core.geometry.tanks import Calibration, calibrate, fill_centroids, sounding_levels
+from deckload.core.geometry.tanks import calibrate, fill_centroids, sounding_levels
 from deckload.core.geometry.transfer import TransferTable, transfer_moments, worst_band
+from deckload.core.model import TankCalibration
 
 Progress = Callable[[str], None]
 
@@ -27,7 +35,7 @@ Progress = Callable[[str], None]
 class TankTables:
     spec: TankSpec
     capacity_m3: float
-    calibration: Calibration
+    calibration: TankCalibration
     transfer: TransferTable
     worst_band_pct: tuple[float, float]
     integration: str

@@ -17,23 +17,10 @@ that is interpolated linearly.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-
 import numpy as np
 
 from deckload.core.geometry.body import Body, immerse, level_for_volume
-
-
-@dataclass(frozen=True, eq=False)
-class Calibration:
-    sounding_m: np.ndarray
-    volume_m3: np.ndarray
-    lcg_m: np.ndarray
-    vcg_m: np.ndarray
-    tcg_m: np.ndarray
-    fsi_m4: np.ndarray
-    z_bottom_m: float
-    """Height of the compartment's lowest point above keel (m)."""
+from deckload.core.model import TankCalibration
 
 
 def sounding_levels(height_m: float, max_step_m: float, min_rows: int = 11) -> np.ndarray:
@@ -42,7 +29,7 @@ def sounding_levels(height_m: float, max_step_m: float, min_rows: int = 11) -> n
     return np.linspace(0.0, height_m, n)
 
 
-def calibrate(body: Body, soundings_m: np.ndarray) -> Calibration:
+def calibrate(body: Body, soundings_m: np.ndarray) -> TankCalibration:
     """Calibration at the given soundings (module docstring)."""
     s = np.asarray(soundings_m, dtype=float)
     zb = body.z_min_m
@@ -62,7 +49,7 @@ def calibrate(body: Body, soundings_m: np.ndarray) -> Calibration:
     lcg = np.where(v > 0.0, im.x_b_m, sf.wp_x_m3 / np.where(a > 0.0, a, 1.0))
     tcg = np.where(v > 0.0, im.eta_b_m, ybar)
     vcg = np.where(v > 0.0, im.zeta_b_m, zb)
-    return Calibration(s, v, lcg, vcg, tcg, fsi, zb)
+    return TankCalibration(s, v, lcg, vcg, tcg, fsi)
 
 
 def fill_centroids(body: Body, fill_pct: np.ndarray) -> tuple[np.ndarray, np.ndarray, np.ndarray, float]:
