@@ -72,16 +72,79 @@ class CriterionResult:
     source: str
     """Where the limit comes from (standard and paragraph, or the profile)."""
     note: str = ""
+    set_id: str = ""
+    """The criteria set this criterion belongs to (an :class:`AssessedSet` id), e.g. 'IS2008-A2.2'."""
+    assessed: bool = True
+    """False when the data cannot decide it (e.g. KN end before the angle it needs): then
+    ``passed`` is False, ``value`` is not a measurement, and ``note`` says why."""
 
     @property
     def margin(self) -> float:
-        """Distance to the limit in the passing direction (negative when failed)."""
+        """Distance to the limit in the passing direction (negative when failed).
+
+        Not meaningful when ``assessed`` is False."""
         return self.value - self.limit if self.comparison == ">=" else self.limit - self.value
 
     @property
     def margin_fraction(self) -> float:
         """Margin as a fraction of the limit (for the 'within 10 %' warning)."""
         return self.margin / abs(self.limit) if self.limit else float("inf")
+
+
+@dataclass(frozen=True)
+class AssessedSet:
+    """A criteria set that was assessed for this condition, e.g. IS 2008 Part A 2.2."""
+
+    id: str
+    """Stable identifier, e.g. 'IS2008-A2.2', 'IS2008-A2.3', 'profile-extra'."""
+    title: str
+    """In words, e.g. 'IS Code 2008 Part A 2.2 general criteria'."""
+    passed: bool
+    """Every criterion of the set assessed and met."""
+
+
+@dataclass(frozen=True)
+class NotAssessed:
+    """Something a master might expect in the verdict that was not assessed, and why."""
+
+    item: str
+    """e.g. 'IS Code 2008 Part A 2.3 weather criterion', 'damage stability'."""
+    reason: str
+    """e.g. 'the profile has no windage data', 'not computed by deckload'."""
+
+
+@dataclass(frozen=True)
+class WeatherResult:
+    """IS Code 2008 Part A 2.3, severe wind and rolling: the numbers behind the criterion."""
+
+    wind_pressure_pa: float
+    windage_area_m2: float
+    """A: projected lateral area above the waterline (m²)."""
+    windage_lever_m: float
+    """Z: from the centre of A to the centre of the underwater lateral area, or about half the draft."""
+    lw1_m: float
+    """Steady wind heeling lever P·A·Z/(1000·g·Δ)."""
+    lw2_m: float
+    """Gust heeling lever 1.5·lw1."""
+    theta0_deg: float
+    """Angle of heel under the steady wind (first intercept of lw1 with GZ)."""
+    theta0_limit_deg: float
+    """min(16°, 0.8 × deck-edge immersion angle)."""
+    theta1_deg: float
+    """Angle of roll to windward, 109·k·X1·X2·√(r·s)."""
+    theta2_deg: float
+    """Upper end of area b: min(θf, 50°, θc)."""
+    theta_c_deg: float | None
+    """Second intercept of lw2 with GZ, None when GZ stays above lw2 to the end of the curve."""
+    area_a_mrad: float
+    area_b_mrad: float
+    roll_period_s: float
+    k: float
+    x1: float
+    x2: float
+    r: float
+    s: float
+    deck_edge_angle_deg: float | None = None
 
 
 @dataclass(frozen=True)
@@ -152,9 +215,43 @@ class Result:
     items: tuple[ItemResult, ...]
     warnings: tuple[Warning, ...]
 
+    criteria_sets: tuple[AssessedSet, ...] = ()
+    """The criteria sets assessed, in the order shown."""
+    not_assessed: tuple[NotAssessed, ...] = ()
+    """What was not assessed, and why: always lists at least what deckload never computes."""
+    weather: WeatherResult | None = None
+    deck_edge_angle_deg: float | None = None
+    """Angle of heel at which the deck edge at midships immerses (upright trim), if known."""
+    freeboard_m: float | None = None
+    """Freeboard at midships, from the deck line to the midships draft (m)."""
+    load_line_margin_m: float | None = None
+    """Permitted midships draft at the mark in use (FWA/DWA applied) minus the actual draft;
+    negative when she is over her mark."""
+    gz_end_deg: float = 90.0
+    """Last heel angle the KN tables reach; the curve, areas and plots stop here."""
+
     @property
     def all_criteria_pass(self) -> bool:
-        return all(c.passed for c in self.criteria)
+        """Every assessed criterion passes and none was left unassessed.
+
+        Never show this alone: :meth:`verdict_text` names the sets and what was not assessed."""
+        return all(c.passed and c.assessed for c in self.criteria)
+
+    def verdict_text(self) -> str:
+        """One honest sentence-set for every summary: the sets assessed, the result, and what
+        was not assessed.  Views print this, never a bare 'all criteria met'."""
+        names = ", ".join(s.title for s in self.criteria_sets) or "no criteria set"
+        failed = [c for c in self.criteria if c.assessed and not c.passed]
+        open_ = [c for c in self.criteria if not c.assessed]
+        if failed:
+            head = f"NOT MET ({len(failed)} failed) — assessed: {names}."
+        elif open_:
+            head = f"Met where assessable, {len(open_)} criteria not assessable — assessed: {names}."
+        else:
+            head = f"Met: {names}."
+        if self.not_assessed:
+            head += " Not assessed: " + "; ".join(f"{n.item} ({n.reason})" for n in self.not_assessed) + "."
+        return head
 
     @property
     def smallest_margin(self) -> CriterionResult | None:
@@ -205,13 +302,16 @@ class Result:
                 {
                     "id": c.id,
                     "description": c.description,
-                    "value": c.value,
+                    "value": c.value if c.assessed else None,
                     "limit": c.limit,
                     "unit": c.unit,
                     "comparison": c.comparison,
-                    "margin": c.margin,
+                    "margin": c.margin if c.assessed else None,
                     "pass": c.passed,
+                    "assessed": c.assessed,
+                    "set": c.set_id,
                     "source": c.source,
+                    "note": c.note,
                 }
                 for c in self.criteria
             ],
@@ -237,4 +337,12 @@ class Result:
                 for i in self.items
             ],
             "warnings": [w.message for w in self.warnings],
+            "assessed": [{"id": a.id, "title": a.title, "pass": a.passed} for a in self.criteria_sets],
+            "not_assessed": [{"item": n.item, "reason": n.reason} for n in self.not_assessed],
+            "verdict": self.verdict_text(),
+            "weather": None if self.weather is None else dict(vars(self.weather)),
+            "deck_edge_angle_deg": self.deck_edge_angle_deg,
+            "freeboard_m": self.freeboard_m,
+            "load_line_margin_m": self.load_line_margin_m,
+            "gz_end_deg": self.gz_end_deg,
         }
