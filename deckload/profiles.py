@@ -90,7 +90,12 @@ def load_profile(path: str | os.PathLike) -> m.Vessel:
 
 
 def _read_text(path: str | os.PathLike) -> str:
-    data = Path(path).read_bytes()
+    from deckload.limits import MAX_TOML_BYTES, TooLargeError, read_limited
+
+    try:
+        data = read_limited(path, MAX_TOML_BYTES, "a profile or condition")
+    except TooLargeError as e:
+        raise ProfileError([Problem(str(path), None, "", None, str(e).split(": ", 1)[1])]) from None
     try:
         return data.decode("utf-8")
     except UnicodeDecodeError as e:
@@ -124,7 +129,7 @@ def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
     root.finish()
     ctx.fail_if_any()
 
-    return m.Vessel(
+    return _physical(ctx).check_vessel(ctx, m.Vessel(
         particulars=particulars,
         lightship=lightship,
         hydrostatics=hydro,
@@ -137,7 +142,7 @@ def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
         downflooding=downflooding,
         criteria=criteria,
         free_surface=fs,
-    )
+    ))
 
 
 def _read_particulars(root: Table) -> m.Particulars | None:
@@ -544,7 +549,8 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
             consts.append(item)
     root.finish()
     ctx.fail_if_any()
-    return m.Condition(tanks=tuple(fills), holds=tuple(loads), deck_items=tuple(items), constants=tuple(consts), **head)
+    cond = m.Condition(tanks=tuple(fills), holds=tuple(loads), deck_items=tuple(items), constants=tuple(consts), **head)
+    return _physical(ctx).check_condition(ctx, vessel, cond)
 
 
 def _keyed_tables(root: Table, group: str, known: dict[str, int], what: str) -> list[tuple[str, Table]]:
@@ -637,6 +643,13 @@ def _read_deck_items(root: Table, vessel: m.Vessel) -> list[m.DeckItem]:
             continue
         out.append(m.DeckItem(area_id=area, footprint_m2=fp, **vars(base)))
     return out
+
+
+def _physical(ctx: FileCheck):
+    """Physical bounds and completeness, checked once the model is built (deckload.physcheck)."""
+    from deckload import physcheck
+
+    return physcheck
 
 
 # =========================================================================== writing

@@ -20,6 +20,7 @@ import math
 import numpy as np
 
 from deckload.core import gz as gzmod
+from deckload.core.bounds import bounded
 from deckload.core.criteria import Measures, evaluate_criteria, limit_curve_criterion
 from deckload.core.free_surface import BASIS_NONE, free_surface, transfer_moment_m4
 from deckload.core.hydrostatics import (
@@ -68,6 +69,7 @@ def _curve_limit(curve, displacement_t: float) -> float | None:
         return None
 
 
+@bounded
 def evaluate(vessel: Vessel, condition: Condition) -> Result:
     """Complete intact-stability state of ``vessel`` in ``condition``.
 
