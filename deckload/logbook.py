@@ -55,6 +55,8 @@ from typing import Any, Callable, Iterable
 from deckload.atomicfile import fsync_dir, write_atomic
 from deckload.core.model import Condition
 from deckload.core.result import Result
+from deckload.limits import MAX_LOG_LINE_BYTES
+from deckload.textsafe import control_char, escaped
 
 FORMAT = "deckload-log-1"
 HEAD_FORMAT = "deckload-log-head-1"
@@ -324,11 +326,17 @@ class LogEntry:
 
 
 def _entry_from_line(line: bytes, line_no: int) -> LogEntry:
-    """Parse one line; :class:`LogFormatError` names the line and what is wrong."""
+    """Parse one line; :class:`LogFormatError` names the line and what is wrong.
+
+    Text fields are read back with control characters escaped (deckload.textsafe): a line
+    edited to hold terminal escapes is shown, never obeyed."""
+    if len(line) > MAX_LOG_LINE_BYTES:
+        raise LogFormatError(f"line {line_no}: {len(line)} bytes, more than the {MAX_LOG_LINE_BYTES} allowed "
+                             "for one entry")
     try:
         obj = json.loads(line.decode("utf-8"))
-    except (UnicodeDecodeError, json.JSONDecodeError) as exc:
-        raise LogFormatError(f"line {line_no}: not valid JSON ({exc})") from None
+    except (ValueError, RecursionError) as exc:
+        raise LogFormatError(f"line {line_no}: not valid JSON ({str(exc)[:200]})") from None
     if not isinstance(obj, dict):
         raise LogFormatError(f"line {line_no}: not a JSON object")
     for key, typ in _REQUIRED.items():
@@ -350,12 +358,12 @@ def _entry_from_line(line: bytes, line_no: int) -> LogEntry:
         seq=obj["seq"],
         utc=utc,
         ship_clock=obj["ship_clock"],
-        vessel=obj["vessel"],
-        by=obj["by"],
+        vessel=escaped(obj["vessel"]),
+        by=escaped(obj["by"]),
         kind=obj["kind"],
-        change_text=obj["change"],
+        change_text=escaped(obj["change"]),
         change_data=obj["change_data"],
-        remark=obj["remark"],
+        remark=escaped(obj["remark"]),
         summary=obj["summary"],
         condition=obj["condition"],
         prev_sha256=obj["prev_sha256"],
@@ -615,12 +623,13 @@ class Logbook:
 
     def _read_head(self) -> dict | None:
         try:
-            raw = self.head_path.read_bytes()
+            with open(self.head_path, "rb") as f:
+                raw = f.read(64 * 1024)  # a head record is one short line; more is damage
         except FileNotFoundError:
             return None
         try:
             head = json.loads(raw.decode("utf-8"))
-        except (UnicodeDecodeError, json.JSONDecodeError):
+        except (ValueError, RecursionError):
             return {"damaged": True}
         return head if isinstance(head, dict) else {"damaged": True}
 
@@ -709,6 +718,12 @@ class Logbook:
         initials = validate_initials(by)
         if not isinstance(change_text, str) or not change_text.strip():
             raise ValueError("change text must say what changed (it is empty)")
+        for what, text in (("change text", change_text), ("remark", remark)):
+            if not isinstance(text, str) or len(text) > 2000:
+                raise ValueError(f"{what}: at most 2000 characters of text")
+            bad = control_char(text)
+            if bad is not None:
+                raise ValueError(f"{what} holds the control character {bad}: type plain text")
         if not isinstance(change_data, dict):
             raise ValueError(f"change data must be a mapping, not {type(change_data).__name__}")
         now = self._clock()
@@ -735,6 +750,8 @@ class Logbook:
         except (TypeError, ValueError) as exc:
             raise ValueError(f"change data cannot be stored as JSON: {exc}") from None
         line = text.encode("utf-8")
+        if len(line) > MAX_LOG_LINE_BYTES:
+            raise ValueError(f"the entry would be {len(line)} bytes, more than the {MAX_LOG_LINE_BYTES} allowed")
         size_before = os.fstat(self._fd).st_size
         try:
             _write_all(self._fd, line + b"\n")
@@ -859,7 +876,7 @@ def _read_fd(fd: int) -> bytes:
 def _parses(line: bytes) -> bool:
     try:
         return isinstance(json.loads(line.decode("utf-8")), dict)
-    except (UnicodeDecodeError, json.JSONDecodeError):
+    except (ValueError, RecursionError):
         return False
 
 
@@ -874,7 +891,7 @@ def _line_of_seq(seqs: list[int | None], seq: int) -> int | None:
 def _seq_of(line: bytes) -> int | None:
     try:
         obj = json.loads(line.decode("utf-8"))
-    except (UnicodeDecodeError, json.JSONDecodeError):
+    except (ValueError, RecursionError):
         return None
     seq = obj.get("seq") if isinstance(obj, dict) else None
     return seq if isinstance(seq, int) and not isinstance(seq, bool) else None
@@ -900,7 +917,7 @@ def _head_disagreement(head: dict | None, lines: list[bytes]) -> str | None:
         for k in range(at + 1, len(lines)):
             try:
                 prev = json.loads(lines[k].decode("utf-8")).get("prev_sha256")
-            except (UnicodeDecodeError, json.JSONDecodeError, AttributeError):
+            except (ValueError, RecursionError, AttributeError):
                 prev = None
             if prev != sha256_hex(lines[k - 1]):
                 return f"line {k + 1} does not chain from the entry the head record names (#{seq})"

@@ -29,6 +29,7 @@ from typing import Any, Callable
 import numpy as np
 
 from deckload.limits import MAX_TABLE_VALUES
+from deckload.textsafe import control_char
 
 ID_PATTERN = re.compile(r"^[A-Za-z0-9_-]+$")
 """Tank, hold and deck-area ids: letters, digits, '-' and '_' (typed by the user)."""
@@ -495,6 +496,10 @@ class Table:
             return None
         if not v.strip() and not empty_ok:
             self.bad(k, v, "must not be empty")
+            return None
+        bad = control_char(v)
+        if bad is not None:
+            self.bad(k, v, f"holds the control character {bad}: text must be printable (tab and line feed allowed)")
             return None
         return v
 

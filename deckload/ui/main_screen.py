@@ -180,7 +180,7 @@ class LoadingScreen(Screen[None]):
         limit = f"; structural limit {hold.max_mass_t:g} t" if hold.max_mass_t is not None else ""
 
         def build(text: str) -> tuple[Condition, str]:
-            return entry.hold_from_text(s.condition, hold, text), text.strip()
+            return entry.hold_from_text(s.condition, hold, text, s.vessel), text.strip()
 
         def done(r) -> None:
             if r:
@@ -221,7 +221,7 @@ class LoadingScreen(Screen[None]):
             hold = s.vessel.hold(ident)
             load = next((h for h in s.condition.holds if h.hold_id == ident), None)
             self._try(lambda: entry.hold_from_text(
-                s.condition, hold, f"{entry.nudge_mass(load.mass_t if load else 0.0, step, hold.id)}"),
+                s.condition, hold, f"{entry.nudge_mass(load.mass_t if load else 0.0, step, hold.id)}", s.vessel),
                 f"{hold.id} {step:+d} t", "cargo", {"hold": hold.id, "nudge_t": step})
         elif what in ("deck", "const"):
             deck = what == "deck"

@@ -9,7 +9,6 @@ error of the edit: the condition is kept, the last good result stays on show
 
 from __future__ import annotations
 
-import re
 from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any, Callable
@@ -20,13 +19,10 @@ from deckload.core.tables import OutOfRangeError
 from deckload.ui.entry import EntryError
 
 
-def vessel_slug(name: str) -> str:
-    """File-name form of a vessel name: 'Demo Islander' → 'demo-islander'."""
-    return re.sub(r"[^a-z0-9]+", "-", name.lower()).strip("-") or "vessel"
-
-
 def working_path(work_dir: Path, vessel: Vessel) -> Path:
-    return work_dir / f"{vessel_slug(vessel.particulars.name)}.condition.toml"
+    from deckload.paths import working_file
+
+    return working_file(work_dir, vessel.particulars.name)
 
 
 @dataclass
