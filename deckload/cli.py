@@ -70,6 +70,9 @@ def _parser() -> argparse.ArgumentParser:
     ver.add_argument("--vessel")
     ver.add_argument("--recover", action="store_true",
                      help="first set aside a torn last line (takes the writer's lock)")
+    ver.add_argument("--against", metavar="HASH",
+                     help="also check a paper copy's anchor: the SHA-256 (or its first 12+ hex digits, "
+                          "optionally as N:HASH) printed on a report or export")
     return p
 
 

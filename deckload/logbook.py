@@ -55,7 +55,7 @@ from typing import Any, Callable, Iterable
 from deckload.atomicfile import fsync_dir, write_atomic
 from deckload.core.model import Condition
 from deckload.core.result import Result
-from deckload.limits import MAX_LOG_LINE_BYTES
+from deckload.limits import MAX_LOG_BYTES, MAX_LOG_LINE_BYTES
 from deckload.textsafe import control_char, escaped
 
 FORMAT = "deckload-log-1"
@@ -466,10 +466,15 @@ def verify_lines(
             )
 
     if head is None:
-        notes.append(
-            "no head record: removal of the newest entries cannot be detected "
-            "(it is written with the next entry)"
-        )
+        if n:
+            problems.append(
+                f"head record: missing, but the log has {n} entr{'y' if n == 1 else 'ies'} — it was deleted; "
+                "the newest entries may have been removed or edited without trace (tampering suspected)"
+            )
+    elif head.get("seq") == 0 and head.get("sha256") == GENESIS_SHA256:
+        if n:
+            notes.append(f"head record is {n} entr{'y' if n == 1 else 'ies'} behind (power cut between the first "
+                         "append and its head update); the lines chain correctly from the start")
     else:
         hseq, hsha = head.get("seq"), head.get("sha256")
         if not isinstance(hseq, int) or isinstance(hseq, bool) or not isinstance(hsha, str):
@@ -645,6 +650,10 @@ class Logbook:
         if created:
             os.fsync(self._fd)
             fsync_dir(self.path.parent)
+            if not self.head_path.exists():
+                # The head record exists from the start (seq 0, the genesis hash), so that a log
+                # with entries and no head record always means the head was deleted.
+                self._write_head()
         data = _read_fd(self._fd)
         lines, torn = _split_lines(data)
         if not torn and lines and not _parses(lines[-1]):
@@ -674,7 +683,7 @@ class Logbook:
                 self._last_seq = _entry_from_line(lines[-1], len(lines)).seq
             except LogFormatError:
                 self._last_seq = len(lines)
-            if head is None or head.get("seq") != len(lines):
+            if head is None or head.get("seq") != self._last_seq:
                 self._write_head()
 
     def _set_aside(self, torn: bytes, line_no: int) -> TornRecovery:
@@ -778,9 +787,10 @@ class Logbook:
     # ----------------------------------------------------------------- reading
 
     def _read(self) -> bytes:
+        from deckload.limits import read_limited
+
         try:
-            with open(self.path, "rb") as f:
-                return f.read()
+            return read_limited(self.path, MAX_LOG_BYTES, "one voyage log (start a new log)")
         except FileNotFoundError:
             return b""
 
@@ -832,6 +842,10 @@ class Logbook:
         head = self._read_head()
         if not lines and not tail and head is None:
             return VerifyReport(ok=True, problems=[], notes=["the log is empty"], entries=0)
+        if not self.path.exists() and head is not None:
+            return VerifyReport(ok=False, entries=0, notes=[], problems=[
+                f"{self.path.name}: missing, but its head record {self.head_path.name} names entry "
+                f"#{head.get('seq')} — the log was deleted or moved (tampering suspected)"])
         return verify_lines(lines, tail, head, self.vessel_name, writer_active=self.writer_active() and
                             self._lock_fd is None)
 
@@ -905,10 +919,22 @@ def _head_disagreement(head: dict | None, lines: list[bytes]) -> str | None:
     only behind (a power cut, or a failed head update, after an append).
     """
     if head is None:
-        return None
+        # Every log gets its head record when it is created: entries without one mean it was deleted.
+        return None if not lines else "the head record is missing although the log has entries (deleted)"
     seq, sha = head.get("seq"), head.get("sha256")
     if not isinstance(seq, int) or isinstance(seq, bool) or not isinstance(sha, str):
         return "the head record is damaged"
+    if seq == 0 and sha == GENESIS_SHA256:
+        prev = GENESIS_SHA256
+        for k, line in enumerate(lines):
+            try:
+                got = json.loads(line.decode("utf-8")).get("prev_sha256")
+            except (ValueError, RecursionError, AttributeError):
+                got = None
+            if got != prev:
+                return f"line {k + 1} does not chain from the start of the log the head record names"
+            prev = sha256_hex(line)
+        return None
     for at in range(len(lines) - 1, -1, -1):
         if _seq_of(lines[at]) != seq:
             continue
@@ -931,8 +957,43 @@ def _head_disagreement(head: dict | None, lines: list[bytes]) -> str | None:
 
 
 def log_files(directory: Path) -> list[Path]:
-    """The vessel logs in ``directory`` (sorted by name)."""
-    return sorted(Path(directory).glob("*.log.jsonl"))
+    """The vessel logs in ``directory`` (sorted by name), including logs whose file is gone but
+    whose head record remains (verify reports those)."""
+    d = Path(directory)
+    logs = set(d.glob("*.log.jsonl"))
+    logs |= {h.with_name(h.name.removesuffix(".head.json") + ".jsonl") for h in d.glob("*.log.head.json")}
+    return sorted(logs)
+
+
+def anchor(directory: Path, vessel_name: str) -> tuple[int, str] | None:
+    """The newest entry's number and SHA-256 in a vessel's log (for printed copies), or None."""
+    try:
+        book = Logbook.open(Path(directory), vessel_name, readonly=True)
+    except OSError:
+        return None
+    try:
+        entries = book.entries()
+    except OSError:
+        return None
+    finally:
+        book.close()
+    return (entries[-1].seq, entries[-1].sha256) if entries else None
+
+
+def find_anchor(lines: list[bytes], anchor_text: str) -> tuple[int, int] | None:
+    """Where a paper copy's anchor (a SHA-256, or its first 12+ hex digits, optionally as
+    'N:HASH' or '#N HASH') is in the log: (line number, entry number), else None."""
+    m = re.fullmatch(r"\s*(?:#?(\d+)\s*[:\s]\s*)?([0-9a-fA-F]{12,64})\s*", anchor_text)
+    if m is None:
+        raise ValueError(f"anchor {anchor_text!r} is not a SHA-256 (12 to 64 hex digits), optionally after 'N:'")
+    want_seq = int(m.group(1)) if m.group(1) else None
+    prefix = m.group(2).lower()
+    for i, line in enumerate(lines, start=1):
+        if sha256_hex(line).startswith(prefix):
+            seq = _seq_of(line)
+            if want_seq is None or seq == want_seq:
+                return i, seq if seq is not None else i
+    return None
 
 
 def vessel_of_log(path: Path) -> str:

@@ -99,6 +99,8 @@ class LoadingScreen(Screen[None]):
         return t
 
     def _report(self, problem: str) -> None:
+        # A save or log failure replaces the message line, which must never still read as done.
+        self.say(problem, ok=False)
         self.notify(problem, severity="error", timeout=8, markup=False)
 
     def say(self, message: str, ok: bool | None = True) -> None:
@@ -119,7 +121,7 @@ class LoadingScreen(Screen[None]):
         self.refresh_view()
         self.say(label + self._gm_change(gm_before))
         for p in problems:
-            self.notify(p, severity="error", timeout=8, markup=False)
+            self._report(p)
 
     def _gm_change(self, before: float | None) -> str:
         s = self.session
@@ -323,7 +325,7 @@ class LoadingScreen(Screen[None]):
         self.refresh_view()
         self.say(label)
         for p in problems:
-            self.notify(p, severity="error", timeout=8, markup=False)
+            self._report(p)
 
     def action_toggle_gz(self) -> None:
         self.toggle_class("-gz")

@@ -61,7 +61,8 @@ class Journal:
         try:
             self.logbook.append(**entry)
         except Exception as exc:  # the log must never take the screen down
-            return f"Log not written: {exc}"
+            where = getattr(self.logbook, "path", "the voyage log")
+            return f"NOT RECORDED in {where}: {getattr(exc, 'strerror', None) or exc}. Nothing was added to the log."
         return None
 
 
@@ -233,7 +234,8 @@ class Session:
                 self.save_path.parent.mkdir(parents=True, exist_ok=True)
                 self._save(self.save_path, condition)
             except OSError as exc:
-                problems.append(f"Working condition not saved to {self.save_path}: {exc}")
+                problems.append(f"NOT SAVED: {self.save_path}: {exc.strerror or exc}. The change is on screen "
+                                "only (the file holds the last condition saved); the next change tries again.")
         err = self.journal.append(kind=kind, change_text=label, change_data=data, result=result, condition=condition)
         if err:
             problems.append(err)
