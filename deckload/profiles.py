@@ -59,8 +59,7 @@ CONDITION_FORMAT = "deckload-condition-1"
 LIQUID_DENSITY_RANGE_T_M3 = (0.5, 2.0)
 """Plausible densities of a tank's contents (t/m³): light oils ~0.8, heavy brines ~1.3."""
 
-WATER_DENSITY_RANGE_T_M3 = (0.99, 1.04)
-"""Plausible densities of the water a vessel floats in (t/m³): fresh 1.000, sea about 1.025."""
+from deckload.core.bounds import WATER_DENSITY_RANGE_T_M3  # noqa: E402  one range for files and the screen
 
 CAPACITY_TOLERANCE = 0.0005
 """A tank's capacity_m3 may differ from its last calibration volume by at most 0.05 % (round-off):

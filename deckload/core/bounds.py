@@ -51,6 +51,9 @@ AFT_OVERHANG = 0.2
 ABOVE_DEPTH_M = 30.0
 """How far above the depth a centre of gravity may lie (masts, deck stows), m (common practice)."""
 
+WATER_DENSITY_RANGE_T_M3 = (0.99, 1.04)
+"""The water a vessel floats in (t/m³): fresh river water 1.000 to dense sea water (common practice)."""
+
 LBP_RANGE_M = (1.0, 500.0)
 BEAM_DEPTH_RANGE_M = (0.2, 100.0)
 

@@ -26,8 +26,8 @@ UNITS: dict[str, str] = {"%": "percent", "m3": "volume_m3", "m³": "volume_m3", 
 
 UNIT_LABEL: dict[str, str] = {"percent": "%", "volume_m3": "m³", "mass_t": "t", "sounding_m": "m sounding"}
 
-WATER_DENSITY_RANGE_T_M3 = (0.990, 1.040)
-"""Accepted water density: fresh river water to dense sea water (common practice)."""
+WATER_DENSITY_RANGE_T_M3 = bounds.WATER_DENSITY_RANGE_T_M3
+"""Accepted water density: the same range as every condition file (deckload.core.bounds)."""
 
 EMPTY_VOLUME_M3 = 1e-9
 
