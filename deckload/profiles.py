@@ -24,6 +24,7 @@ saved atomically (:func:`save_condition`): the old file survives any crash.
 from __future__ import annotations
 
 import os
+from dataclasses import replace
 from pathlib import Path
 from typing import Any
 
@@ -113,6 +114,9 @@ def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
     cross = _read_cross_curves(root)
     fs = _read_free_surface(root, lightship)
     criteria = _read_criteria(root, particulars)
+    extra = _read_extra_criteria(root, particulars)
+    if criteria is not None and extra:
+        criteria = replace(criteria, extra=extra)
     load_lines = _read_load_lines(root, hydro)
     limit = _read_limit_curve(root)
     downflooding = _read_downflooding(root)
@@ -331,12 +335,10 @@ def _read_criteria(root: Table, particulars: m.Particulars | None) -> m.Criteria
             t.bad("min_gm_m", t.data["min_gm_m"], "below 0.35 m: IS Code 2008 Part B 2.1 allows that only with a "
                   "complete superstructure (complete_superstructure = true) or L ≥ 70 m (from memory)")
             ok = False
-    extra = _read_extra_criteria(root, particulars)
-    if not ok or extra is None:
+    if not ok:
         return None
     return m.CriteriaSettings(code=code, min_gm_m=gm, ship_type=ship_type, wind_pressure_pa=pressure,
-                              bilge_keel_area_m2=ak, sharp_bilged=sharp, complete_superstructure=complete,
-                              extra=extra)
+                              bilge_keel_area_m2=ak, sharp_bilged=sharp, complete_superstructure=complete)
 
 
 def _read_extra_criteria(root: Table, particulars: m.Particulars | None) -> tuple[m.ExtraCriterion, ...] | None:
