@@ -623,6 +623,8 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], 
                 fsi_m4=m.frozen_array([fsi, fsi]))
             kw["level_known"] = False
             kw["fsi_given"] = fsi_given
+            if fsi_given == "none" and not t.has("worst_band_pct"):
+                kw["worst_band_pct"] = (0.0, 0.0)  # no free surface, so no worst slack band to warn of
             fs_words = (f"free surface: the given maximum {num(fsi)} m⁴ at every slack fill" if fsi_given == "max"
                         else "no free surface given: counted as nil")
             rd.assumptions.append(f"{where}: capacity and centre only: centre fixed at every fill; {fs_words}; "

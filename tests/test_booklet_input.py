@@ -494,3 +494,17 @@ def test_tables_refreshed_from_geometry_keep_their_own_datum_in_a_midships_profi
         assert np.array_equal(a.calibration.stacked(), b.calibration.stacked()), a.id
     assert np.array_equal(v.hydrostatics.lcb_m, demo.hydrostatics.lcb_m)
     assert v.lightship.lcg_m == demo.lightship.lcg_m + demo.particulars.lbp_m / 2  # hand-entered: from midships
+
+
+def test_the_report_says_what_was_assumed_and_where_the_curve_stops():
+    """The printed report carries the profile's assumptions and the KN end, beside the booklet caution."""
+    from deckload.report import render_report_text
+
+    text = KN60 + SMALL[len(BASE):]
+    v = parse_profile(text, "kn60small.toml")
+    c = cond(v, HOLD_420 + "[tanks.LO1]\npercent = 50.0\n")
+    r = evaluate(v, c)
+    out = " ".join(render_report_text(r, v, c).split())
+    assert "Assumed from the profile: tank[LO1]: capacity and centre only" in out
+    assert "KN tables end at 60°: the GZ curve and its areas stop there" in out
+    assert not any(w.code == "slack-worst-band" for w in r.warnings)  # no free surface given: no worst band
