@@ -532,3 +532,23 @@ def test_curves_against_draft_and_a_hold_fill_table_round_trip_through_csv(tmp_p
         assert a[0] == b[0] and len(a) == len(b), mine
         for ra, rb in zip(a[1:], b[1:]):
             assert all(float(x) == float(y) for x, y in zip(ra, rb)), (mine, ra, rb)
+
+
+def test_calc_says_the_curve_ends_and_the_vanishing_angle_is_beyond(tmp_path, capsys):
+    prof = _write(tmp_path / "kn60.toml", KN60)
+    c = _write(tmp_path / "c.condition.toml", 'format = "deckload-condition-1"\n[condition]\nname = "c"\n'
+               "water_density_t_m3 = 1.025\n" + HOLD_420)
+    assert main(["calc", str(prof), str(c)]) == 0
+    out = capsys.readouterr().out
+    assert "vanishing beyond 60°" in out
+    assert "GZ curve ends at 60°, the last angle of the KN tables: nothing beyond is known" in out
+
+
+def test_a_semicolon_separated_sheet_is_refused_with_the_reason(tmp_path):
+    path = booklet_profile(tmp_path)
+    _write(tmp_path / "tables" / "kn.csv", KN_CSV.replace(",", ";"))
+    with pytest.raises(ProfileError) as ei:
+        load_profile(path)
+    (p,) = ei.value.problems
+    assert p.file == str(tmp_path / "tables" / "kn.csv") and p.line == 1
+    assert p.rule.startswith("the cells are separated by ';'")
