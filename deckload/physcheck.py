@@ -75,6 +75,10 @@ def check_vessel(ctx: FileCheck, v: m.Vessel) -> m.Vessel:
     c.one(("lightship", "mass_t"), "lightship.mass_t", ls.mass_t, b.lightship_mass_range(v))
     c.position(p, ("lightship",), "lightship", ls.lcg_m, ls.vcg_m, ls.tcg_m)
 
+    for n, it in enumerate(getattr(v, "constants", ())):
+        c.one(("constant", n, "mass_t"), f"constant[#{n + 1}].mass_t", it.mass_t, b.item_mass_range(v))
+        c.position(p, ("constant", n), f"constant[#{n + 1}]", it.lcg_m, it.vcg_m, it.tcg_m)
+
     c.array(("hydrostatics", "draft_m"), "hydrostatics.draft_m", h.draft_m, b.z_range(p))
     c.array(("hydrostatics", "displacement_t"), "hydrostatics.displacement_t", h.displacement_t,
             lambda i: b.Range(0.0, b.displacement_high_t(p, float(h.draft_m[i[0]])), "t",
