@@ -184,3 +184,23 @@ def test_a_huge_table_is_refused_quickly_with_the_limit_named(vessel, tmp_path):
 def test_a_device_named_as_a_profile_is_not_read_endlessly():
     with pytest.raises(ProfileError, match="allowed"):
         load_profile("/dev/zero")
+
+
+# ------------------------------------------------------------------ case 12: CSV tables beside a profile
+
+
+@pytest.mark.parametrize("hostile,rule", [
+    ("draft_m,displacement_t\n" + "1." + "0" * 200_000 + ",2\n", "not a readable CSV table"),  # a 200 k field
+    ("draft_m,displacement_t\n1.0,\x00\n", "needs at least 2 values"),  # a NUL cell is text, not a crash
+    ("draft_m,displacement_t\n" + "1.0,2.0\n" * 20_001, "rows allowed in one table"),
+    ("draft_m,displacement_t\n" + "1.0,2.0," + "9" * (5 * 1024 * 1024) + "\n", "larger than the 4 MiB allowed"),
+])
+def test_hostile_csv_tables_are_problems(tmp_path, hostile, rule):
+    from test_booklet_input import booklet_profile
+
+    profile = booklet_profile(tmp_path)
+    load_profile(profile)  # the base reads
+    (tmp_path / "tables" / "hydrostatics.csv").write_text(hostile, encoding="utf-8")
+    with pytest.raises(ProfileError) as ei:
+        load_profile(profile)
+    assert any(rule in p.rule for p in ei.value.problems), ei.value
