@@ -121,6 +121,9 @@ def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
     tanks = _read_tanks(root, fs, ids)
     holds = _read_holds(root, ids)
     areas = _read_deck_areas(root, ids)
+    # [[booklet_condition]]: the booklet's worked conditions, read and compared by `deckload check`
+    # (deckload.booklet_conditions) once the vessel exists; not part of the model.
+    root.get("booklet_condition", False)
     root.finish()
     ctx.fail_if_any()
 
