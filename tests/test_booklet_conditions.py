@@ -122,7 +122,7 @@ def test_the_booklet_condition_passes_within_tolerance(tmp_path, capsys):
     assert run_check(f) == 0
     out = capsys.readouterr().out
     assert "booklet condition 'Worked condition' (booklet p. 12), loading: inline" in out
-    assert "GM fluid (m)" in out and "±0.0232 m (1 % / 0.05 m max, GMt)" in out
+    assert "GM fluid (m)" in out and "±0.0232 m  1 % / 0.05 m max (GMt)" in out
     assert "booklet conditions: 1 of 1 within the MSC.1/Circ.1229 / IACS UR L5 tolerances" in out
 
 
