@@ -18,7 +18,7 @@ from pathlib import Path
 
 from deckload.core.audit import ERROR, Finding, audit
 from deckload.core.model import Vessel
-from deckload.tomlcheck import key_lines
+from deckload.tomlcheck import Problem, ProfileError, key_lines
 
 
 @dataclass(frozen=True)
@@ -37,6 +37,44 @@ class Located:
         f = self.finding
         where = f"{self.file}:{self.line}" if self.line else self.file
         return f"{where}: {f.severity.upper()} {f.key} = {f.value}: {f.why}; compare with {f.look}"
+
+
+class AuditError(ProfileError):
+    """The profile meets the schema but its numbers contradict each other: it is not used."""
+
+    def __init__(self, path: str | os.PathLike, found: list[Located]):
+        errors = [x for x in found if x.is_error]
+        super().__init__([Problem(x.file, x.line, x.finding.key, x.finding.value,
+                                  f"ERROR (plausibility audit): {x.finding.why}; compare with {x.finding.look}")
+                          for x in errors])
+        self.path = str(path)
+        self.found = found
+
+    def __str__(self) -> str:
+        n = len(self.problems)
+        head = (f"{self.path}: the profile fails its plausibility audit ({n} contradiction{'s' if n != 1 else ''}) "
+                "and is not opened; put these right (deckload check lists every finding):")
+        return "\n".join([head, *(str(p) for p in self.problems)])
+
+
+def warnings_notice(found: list[Located], path: str | os.PathLike, shown: int = 3) -> str | None:
+    """One notice for the loading screen naming the audit's warnings (doubts), or None."""
+    doubts = [x for x in found if not x.is_error]
+    if not doubts:
+        return None
+    lines = [f"{x.finding.key} = {x.finding.value}: {x.finding.why}" for x in doubts[:shown]]
+    more = f" … and {len(doubts) - shown} more" if len(doubts) > shown else ""
+    return (f"Plausibility audit of {Path(path).name}: {len(doubts)} warning{'s' if len(doubts) != 1 else ''} "
+            f"(compare with the booklet; deckload check lists them): " + "; ".join(lines) + more)
+
+
+def audit_or_refuse(path: str | os.PathLike, vessel: Vessel) -> str | None:
+    """Before a profile is used on the screen: raise :class:`AuditError` on a contradiction,
+    else return the warnings' notice (or None)."""
+    found = audit_profile(path, vessel)
+    if any(x.is_error for x in found):
+        raise AuditError(path, found)
+    return warnings_notice(found, path)
 
 
 def audit_profile(path: str | os.PathLike, vessel: Vessel) -> list[Located]:
