@@ -128,7 +128,7 @@ def _csv_of(doc: dict, path: tuple) -> str | None:
 
 
 def _in_csv(f: Finding, full: Path, vessel: Vessel) -> Located:
-    """The CSV line of the finding's row: the data row at the model's row index (rows as typed)."""
+    """The CSV line of the finding's row (the finding's key names the column, as the model has it)."""
     name = str(full)
     try:
         with open(full, newline="", encoding="utf-8") as fh:
@@ -140,32 +140,36 @@ def _in_csv(f: Finding, full: Path, vessel: Vessel) -> Located:
     header = [c.strip() for c in rows[0][1]]
     data = rows[1:]
     ints = [p for p in f.path if isinstance(p, int)]
-    if f.path[:2] == ("cross_curves", "kn_m") and len(ints) == 2:
-        i, j = ints
-        heel = float(vessel.cross_curves.heel_deg[j])
-        col = next((c for c in header if c.startswith("kn_") and _float(c[3:]) == heel), None)
-        r = i
-    else:
-        col = next((p for p in reversed(f.path) if isinstance(p, str)), None)
-        r = ints[-1] if ints else None
-    if r is None or col not in header:
+    # the table's row: kn_m[i][j] is row i (column kn_<heel>), a column's value [r] is row r
+    r = ints[-2] if f.path[:2] == ("cross_curves", "kn_m") and len(ints) == 2 else ints[-1] if ints else None
+    if r is None:
         return Located(f, name, None)
-    # A converted table may have gained a row (a level-0 row below a table starting above the
-    # bottom) or been reversed (ullage): only a row count that matches is trusted.
-    n_model = _rows_in_model(f, vessel)
-    if n_model is None or n_model != len(data) or not 0 <= r < len(data):
+    # (the finding's column may be a converted one, e.g. fsi_m4 typed as fsm_tm: the row is what counts)
+    # The row is found by its abscissa, which no convention changes (displacement, volume): a
+    # converted table may have been reversed (ullage) or gained a level-0 row.
+    anchor = _anchor(f, vessel, r)
+    if anchor is None or anchor[0] not in header:
         return Located(f, name, None)
-    return Located(f, name, data[r][0])
+    k = header.index(anchor[0])
+    for line, cells in data:
+        x = _float(cells[k]) if k < len(cells) else None
+        if x is not None and abs(x - anchor[1]) <= 1e-6 * max(1.0, abs(anchor[1])):
+            return Located(f, name, line)
+    return Located(f, name, None)
 
 
-def _rows_in_model(f: Finding, vessel: Vessel) -> int | None:
+def _anchor(f: Finding, vessel: Vessel, r: int) -> tuple[str, float] | None:
+    """(CSV column, value) that identifies the model's row ``r`` of the finding's table."""
     p = f.path
-    if p[0] == "hydrostatics":
-        return len(vessel.hydrostatics.draft_m)
-    if p[0] == "cross_curves":
-        return len(vessel.cross_curves.displacement_t)
-    if p[0] == "tank" and len(p) > 2 and p[2] == "calibration":
-        return len(vessel.tanks[p[1]].calibration.sounding_m)
+    try:
+        if p[0] == "hydrostatics":
+            return "displacement_t", float(vessel.hydrostatics.displacement_t[r])
+        if p[0] == "cross_curves":
+            return "displacement_t", float(vessel.cross_curves.displacement_t[r])
+        if p[0] == "tank" and len(p) > 2 and p[2] == "calibration":
+            return "volume_m3", float(vessel.tanks[p[1]].calibration.volume_m3[r])
+    except IndexError:
+        return None
     return None
 
 
