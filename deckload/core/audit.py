@@ -167,6 +167,11 @@ than 20 % / 50 % of that line's value, along the heel AND along the displacement
 neighbours).  A decimal slip is 90 % or 900 %; the sharpest real bend (deck-edge immersion at 15°
 spacing on a box) is about 20 % along heel only (derived from checks.md §1.2 values)."""
 
+EMPTY_FSI_RISE = 1.1
+"""Warning: at the empty row (volume 0) the free surface is the limit from inside, the tank's
+bottom; a tank widens upward from its bottom (or keeps its breadth), so a value more than 10 %
+above the next row's is a doubt — an FSM typed against the empty row (derived; 10 % for rounding)."""
+
 FSI_BOX_ALLOWANCE = 1.1
 """Warning: fsi above 1.1 × A·B²/12, the inertia of a box-shaped free surface of the tank's own
 area A (from its calibration) and the ship's breadth B (issue 8's bound l·b³/12, b ≤ B); 10 % for
@@ -653,6 +658,11 @@ class _Audit:
                             else f"a box of that area {B:g} m wide has A·B²/12 = {box:.4g} m⁴"),
                          look, "tank-fsi")
                 return
+        if not constant and v[0] == 0 and fsi[0] > EMPTY_FSI_RISE * fsi[1] + 1e-9:
+            self.add(WARNING, f"tank[{t.id}].calibration.fsi_m4", ("tank", i, "calibration", "fsi_m4", 0),
+                     f"{float(fsi[0]):.5g} m⁴ at the empty row",
+                     f"non-zero when empty and larger than just above ({float(fsi[1]):.5g} m⁴): an empty tank has no "
+                     "free surface, and its bottom-most surface is no larger than the one above it", look, "tank-fsi-empty")
 
     def tank_centres(self, i: int, t: Tank):
         """The liquid added between two calibration rows lies inside the ship and inside its layer.
