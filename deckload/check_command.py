@@ -42,7 +42,7 @@ def _range(a, unit: str) -> str:
 def profile_summary(path: Path, v: m.Vessel) -> list[str]:
     """A few lines saying what the profile holds and over which ranges its tables run."""
     h, k = v.hydrostatics, v.cross_curves
-    rows = [len(t.calibration.sounding_m) for t in v.tanks]
+    rows = [len(t.calibration.sounding_m) for t in v.tanks if t.level_known]
     lines = [
         f"OK  {path}: {v.particulars.name!r}: {_plural(len(v.tanks), 'tank')}, {_plural(len(v.holds), 'hold')}, "
         f"{_plural(len(v.deck_areas), 'deck area')}, {_plural(len(v.load_lines), 'load line')}",

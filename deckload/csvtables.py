@@ -84,6 +84,11 @@ def read_csv(t: Table, key: str = "csv") -> CsvTable | None:
         if header is None:
             header = [c.strip() for c in cells]
             header_line = line
+            if len(header) == 1 and ";" in header[0]:
+                t.ctx.problems.append(_problem(shown, line, t.key(key), repr(header[0]),
+                                               "the cells are separated by ';': save the sheet as comma-separated "
+                                               "CSV with a decimal point"))
+                return None
             seen: set[str] = set()
             for j, h in enumerate(header):
                 if not h:

@@ -23,6 +23,7 @@ saved atomically (:func:`save_condition`): the old file survives any crash.
 
 from __future__ import annotations
 
+import math
 import os
 from dataclasses import dataclass
 from dataclasses import field as dataclass_field
@@ -168,7 +169,8 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     _check_kn_reach(root, cross, downflooding)
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
-    tanks = _read_tanks(root, fs, ids, frame, rd)
+    depth = particulars.depth_m if particulars is not None else math.inf
+    tanks = _read_tanks(root, fs, ids, frame, rd, depth)
     holds = _read_holds(root, ids, frame, rd)
     areas = _read_deck_areas(root, ids, frame, rd)
     constants = _read_profile_constants(root, frame, rd)
@@ -232,9 +234,9 @@ def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:
     return m.Particulars(longitudinal_datum=words, **kw), frame
 
 
-def _x(t: Table, k: str, frame: Frame | None, rd: Reading, what: str, *, required: bool = True) -> float | None:
+def _x(t: Table, k: str, frame: Frame | None) -> float | None:
     """One x position as written, converted to metres from AP, + forward."""
-    v = t.num(k, required=required)
+    v = t.num(k)
     if v is None or frame is None:
         return None
     return float(frame.x_to_ap(v))
@@ -264,7 +266,7 @@ def _read_mass_item(t: Table, name: str, *, mass_rule: Rule = non_negative, fram
     else:
         f = read_frame(t, frame, sides=True)
         tcg, marked = tcg_num(t, "tcg_m", f)
-        kw = dict(mass_t=t.num("mass_t", mass_rule), lcg_m=_x(t, "lcg_m", f, rd, where),
+        kw = dict(mass_t=t.num("mass_t", mass_rule), lcg_m=_x(t, "lcg_m", f),
                   vcg_m=t.num("vcg_m", above_keel), tcg_m=tcg)
         _note_frame(rd, where, f, "lcg_m", "tcg_m" if t.has("tcg_m") else "", marked)
     if any(v is None for v in kw.values()) or name is None:
@@ -545,11 +547,11 @@ def _read_downflooding(root: Table, hydro, frame: Frame | None, rd: Reading) -> 
 
 
 def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,
-                rd: Reading) -> list[m.Tank]:
+                rd: Reading, depth_m: float) -> list[m.Tank]:
     entries = []
     complete = True
     for t in root.tables("tank"):
-        kw, ok_tank = _read_tank(t, fs, ids, frame, rd)
+        kw, ok_tank = _read_tank(t, fs, ids, frame, rd, depth_m)
         entries.append((t, kw))
         complete &= ok_tank
     ok = check_tank_pairs([(t, kw["id"], kw.get("pair")) if kw is not None else (t, None, None) for t, kw in entries])
@@ -580,8 +582,12 @@ def _fsm_max(t: Table) -> tuple[float | None, str, bool]:
     return None, "none", True
 
 
+PIPE_HEAD_M = 2.0
+"""How far a sounding-pipe head (an ullage reference) may stand above the deck (m): common practice."""
+
+
 def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,
-               rd: Reading) -> tuple[dict | None, bool]:
+               rd: Reading, depth_m: float) -> tuple[dict | None, bool]:
     """The Tank's keyword arguments and whether they are complete (else only id and pair)."""
     ident = claim_id(t, "tank", ids)
     kw: dict[str, Any] = dict(id=ident, name=t.text("name"))
@@ -599,17 +605,21 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], 
     kw["fs_category"] = t.text("fs_category", required=False, default=default_cat, choices=("fixed", "variable"))
     kw["worst_band_pct"] = _band(t, "worst_band_pct", None if fs is None else fs.default_worst_band_pct)
     f = read_frame(t, frame, sides=True)
-    level_rule = between(-5.0, 30.0, "m", "a height within the tank, from its lowest point")
-    kw["sounding_zero_m"] = t.num("sounding_zero_m", level_rule, required=False, default=0.0)
-    kw["ullage_reference_m"] = t.num("ullage_reference_m", positive, at_most(30.0, "m (a height within the vessel)"),
-                                     required=False, default=None)
+    # Both are heights from the tank's lowest point, so within the vessel's depth; a sounding-pipe
+    # head may stand above the deck (allowance PIPE_HEAD_M, common practice).
+    zero_rule = between(-depth_m, depth_m, "m", "the sounding zero's height from the tank's lowest point, "
+                        "within the vessel's depth")
+    ref_rule = between(0.0, depth_m + PIPE_HEAD_M, "m", "the ullage reference's height above the tank's lowest point: "
+                       f"within the depth plus {num(PIPE_HEAD_M)} m of sounding-pipe head")
+    kw["sounding_zero_m"] = t.num("sounding_zero_m", zero_rule, required=False, default=0.0)
+    kw["ullage_reference_m"] = t.num("ullage_reference_m", positive, ref_rule, required=False, default=None)
     bad_level = (t.has("sounding_zero_m") and kw["sounding_zero_m"] is None) or (t.has("ullage_reference_m") and kw["ullage_reference_m"] is None)
     max_fsi, fsi_given, fsm_ok = _fsm_max(t)
     where = t.name
     capacity_only = not t.has("calibration")
     if capacity_only:
         # A small tank known only by its capacity and centre (booklet's "capacity only" list).
-        lcg = _x(t, "lcg_m", f, rd, where)
+        lcg = _x(t, "lcg_m", f)
         vcg = t.num("vcg_m", above_keel)
         tcg, marked = tcg_num(t, "tcg_m", f)
         t.get("calibration", False)
@@ -626,6 +636,8 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], 
                 fsi_m4=m.frozen_array([fsi, fsi]))
             kw["level_known"] = False
             kw["fsi_given"] = fsi_given
+            if fsi_given == "none" and not t.has("worst_band_pct"):
+                kw["worst_band_pct"] = (0.0, 0.0)  # no free surface, so no worst slack band to warn of
             fs_words = (f"free surface: the given maximum {num(fsi)} m⁴ at every slack fill" if fsi_given == "max"
                         else "no free surface given: counted as nil")
             rd.assumptions.append(f"{where}: capacity and centre only: centre fixed at every fill; {fs_words}; "
@@ -853,7 +865,7 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
             id=ident,
             name=t.text("name"),
             capacity_m3=t.num("capacity_m3", positive),
-            lcg_m=_x(t, "lcg_m", f, rd, t.name),
+            lcg_m=_x(t, "lcg_m", f),
             vcg_m=t.num("vcg_m", above_keel),
             tcg_m=tcg,
         )
@@ -909,7 +921,7 @@ def _read_deck_areas(root: Table, ids: dict[str, str], frame: Frame | None, rd: 
             id=ident,
             name=t.text("name"),
             area_m2=t.num("area_m2", positive),
-            lcg_m=_x(t, "lcg_m", f, rd, t.name),
+            lcg_m=_x(t, "lcg_m", f),
             deck_height_m=t.num("deck_height_m", above_keel),
             tcg_m=tcg,
         )

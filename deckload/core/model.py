@@ -76,7 +76,8 @@ class Particulars:
     table_density_t_m3: float = 1.025
     """Water density the hydrostatic and cross-curve tables were made for (t/m³)."""
     longitudinal_datum: str = "aft perpendicular, positive forward"
-    """The datum of every x coordinate in the profile (informative; always AP here)."""
+    """How the profile's x coordinates were written (informative): the model's x are always
+    from the AP, + forward, converted on load."""
     vessel_type: str = ""
     """Free text: the kind of vessel (e.g. 'coastal island-supply vessel')."""
     remark: str = ""
