@@ -433,6 +433,7 @@ def test_csv_shape_problems(tmp_path):
     assert any(s.startswith(f"{tmp_path / 'tables' / 'hydrostatics.csv'}:5: ") and "row has 6 cells but the header has 7" in s
                for s in msgs), msgs
     assert any("'kn_sixty'" in s and "unknown column (column 8)" in s for s in msgs), msgs
+    path = booklet_profile(tmp_path)  # the two sheets mended
     (tmp_path / "tables" / "DB1P.csv").unlink()
     with pytest.raises(ProfileError) as ei:
         load_profile(path)
