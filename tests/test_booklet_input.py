@@ -554,3 +554,27 @@ def test_a_semicolon_separated_sheet_is_refused_with_the_reason(tmp_path):
     (p,) = ei.value.problems
     assert p.file == str(tmp_path / "tables" / "kn.csv") and p.line == 1
     assert p.rule.startswith("the cells are separated by ';'")
+
+
+async def test_the_screen_takes_an_ullage_and_shows_a_short_curve(tmp_path):
+    """On the loading screen `0.7u` states DB1P by ullage (level 0.5 m → 25 m³, derived above); the
+    vessel has KN to 60° and a capacity-only tank, and the GZ caption says the zero lies beyond 60°."""
+    from deckload.ui import views
+    from deckload.ui.launch import create_app
+    from deckload.ui.widgets import LinePanel, LoadBoard
+
+    text = edit(KN60, 'pair = "DB1S"\n', 'pair = "DB1S"\nullage_reference_m = 1.2\n') + SMALL[len(BASE):]
+    v = parse_profile(text, "screen.toml")
+    c0 = cond(v, HOLD_420)
+    app = create_app(v, c0, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    async with app.run_test(size=(120, 40)) as pilot:
+        assert app.screen.query_one(LoadBoard).cursor_key == ("tank", "DB1P")
+        await pilot.press("enter")
+        await pilot.press(*"0.7u", "enter")
+        await pilot.pause()
+        assert app.session.condition.tank_fill("DB1P") == m.TankFill("DB1P", "ullage_m", 0.7)
+        db1p = next(t for t in app.session.result.tanks if t.id == "DB1P")
+        assert db1p.volume_m3 == pytest.approx(25.0, rel=1e-12)
+        assert app.session.result.gz_end_deg == 60.0
+        assert "DB1P set to" in app.screen.query_one("#status", LinePanel).plain()
+        assert "zero beyond 60° (KN end)" in views.gz_caption(app.session.result).plain
