@@ -578,3 +578,26 @@ async def test_the_screen_takes_an_ullage_and_shows_a_short_curve(tmp_path):
         assert app.session.result.gz_end_deg == 60.0
         assert "DB1P set to" in app.screen.query_one("#status", LinePanel).plain()
         assert "zero beyond 60° (KN end)" in views.gz_caption(app.session.result).plain
+
+
+async def test_profile_constants_show_on_the_board_and_cannot_be_edited_there(tmp_path):
+    from deckload.ui.launch import create_app
+    from deckload.ui.widgets import LinePanel, LoadBoard
+
+    text = BASE + '\n[[constant]]\nname = "Crew and effects"\nmass_t = 2.0\nlcg_m = 20.0\nvcg_m = 5.0\n'
+    v = parse_profile(text, "const.toml")
+    app = create_app(v, cond(v, HOLD_420), work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    async with app.run_test(size=(120, 40)) as pilot:
+        b = app.screen.query_one(LoadBoard)
+        assert any(r.key == ("fixed", 0) and "Crew and effects" in r.text.plain for r in b.rows)
+        assert app.session.result.displacement_t == 822.0
+        for _ in range(len(b.rows)):
+            if b.cursor_key == ("fixed", 0):
+                break
+            await pilot.press("down")
+        assert b.cursor_key == ("fixed", 0)
+        c0 = app.session.condition
+        await pilot.press("enter")
+        await pilot.pause()
+        assert app.session.condition is c0
+        assert "fixed constant of the vessel profile" in app.screen.query_one("#status", LinePanel).plain()
