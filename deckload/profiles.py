@@ -180,6 +180,9 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     holds = _read_holds(root, ids, frame, rd)
     areas = _read_deck_areas(root, ids, frame, rd)
     constants = _read_profile_constants(root, frame, rd)
+    # [[booklet_condition]]: the booklet's worked conditions, read and compared by `deckload check`
+    # (deckload.booklet_conditions) once the vessel exists; not part of the model.
+    root.get("booklet_condition", False)
     root.finish()
     ctx.fail_if_any()
 
@@ -313,7 +316,8 @@ def _read_hydrostatics(root: Table, frame: Frame | None, rd: Reading) -> m.Hydro
     t = root.table("hydrostatics")
     if t is None:
         return None
-    attach_csv(t, HYDRO_COLUMNS)
+    if not attach_csv(t, HYDRO_COLUMNS):
+        return None
     f = read_frame(t, frame, drafts=True)
     cols = {
         "draft_m": t.increasing("draft_m", t.array("draft_m", non_negative)),
@@ -355,7 +359,8 @@ def _read_cross_curves(root: Table) -> m.CrossCurves | None:
     t = root.table("cross_curves")
     if t is None:
         return None
-    attach_kn_csv(t)
+    if not attach_kn_csv(t):
+        return None
     basis = t.text("trim_basis", choices=("free trim", "even keel"))
     heel = t.increasing("heel_deg", t.array("heel_deg", heel_range))
     heel = t.starts_at("heel_deg", heel, 0.0, "the upright condition")
@@ -649,7 +654,8 @@ def _read_limit_curve(root: Table, hydro, frame: Frame | None, rd: Reading) -> m
     t = root.table("limit_curve", required=False)
     if t is None:
         return None
-    attach_csv(t, ("displacement_t", "draft_m", "max_kg_m", "min_gm_m"))
+    if not attach_csv(t, ("displacement_t", "draft_m", "max_kg_m", "min_gm_m")):
+        return None
     f = read_frame(t, frame, drafts=True)
     disp, against = _abscissa(t, hydro, f, rd, "limit_curve")
     kinds = [k for k in ("max_kg_m", "min_gm_m") if t.has(k)]
@@ -690,7 +696,8 @@ def _read_downflooding(root: Table, hydro, frame: Frame | None, rd: Reading) -> 
         d = hydro.displacement_t
         return m.LimitCurve(displacement_t=m.frozen_array([d[0], d[-1]]), value=m.frozen_array([ang, ang]),
                             kind="downflooding_deg")
-    attach_csv(t, ("displacement_t", "draft_m", "angle_deg"))
+    if not attach_csv(t, ("displacement_t", "draft_m", "angle_deg")):
+        return None
     f = read_frame(t, frame, drafts=True)
     disp, against = _abscissa(t, hydro, f, rd, "downflooding")
     ang = t.array("angle_deg", angle_rule)
@@ -840,7 +847,8 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
     the bottom gets a row 'level 0, volume 0' with the first row's centres (conservative).
     """
     where = t.name
-    attach_csv(t, CAL_COLUMNS)
+    if not attach_csv(t, CAL_COLUMNS):
+        return None
     f = read_frame(t, tank_frame, sides=True)
     tr = TableReading(f or Frame(1.0), csv=t.data.get("csv"))
     levels_given = [k for k in ("sounding_m", "ullage_m") if t.has(k)]
@@ -1013,7 +1021,7 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
     out, ok = [], True
     for t in root.tables("hold"):
         ident = claim_id(t, "hold", ids)
-        attach_csv(t, HOLD_FILL_COLUMNS)
+        fill_read = attach_csv(t, HOLD_FILL_COLUMNS)
         f = read_frame(t, frame, sides=True)
         tcg, marked = tcg_num(t, "tcg_m", f)
         kw: dict[str, Any] = dict(
@@ -1050,7 +1058,7 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
                 cols["fill_pct"] = fill
                 fill_ok = t.same_length("fill_pct", cols)
         t.finish()
-        if (not fill_ok or f is None or any(v is None for k, v in kw.items() if k != "max_mass_t")
+        if (not fill_ok or not fill_read or f is None or any(v is None for k, v in kw.items() if k != "max_mass_t")
                 or (has_max and kw["max_mass_t"] is None)):
             ok = False
             continue
