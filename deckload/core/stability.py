@@ -34,6 +34,7 @@ from deckload.core.loading import LoadingError, hold_item, resolve_tanks, sum_we
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import ItemResult, Result, TankResult, Warning
 from deckload.core.tables import OutOfRangeError, bracket, interp, lerp_row
+from deckload.core.trim import BASIS_TABLE, trim_moment
 
 LIST_WARNING_DEG = 2.0
 NEAR_LIMIT_FRACTION = 0.10
@@ -92,7 +93,9 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
     hy = upright(vessel, disp, rho_w)
     gm_solid = hy.kmt_m - w.vcg_m
     gm_fluid = hy.kmt_m - kg_fluid
-    trim = trim_m(disp, w.lcg_m, hy.lcb_m, hy.mctc_tm_cm)
+    # MCT from the actual GM_L where the profile has KM_L (core/trim.py)
+    mct = trim_moment(vessel, hy, disp, kg_fluid)
+    trim = trim_m(disp, w.lcg_m, hy.lcb_m, mct.mctc_tm_cm)
     lbp = vessel.particulars.lbp_m
     t_aft = draft_at(0.0, hy.draft_m, hy.lcf_m, trim, lbp)
     t_fwd = draft_at(lbp, hy.draft_m, hy.lcf_m, trim, lbp)
@@ -100,6 +103,10 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
 
     kn = gzmod.kn_curve(vessel.cross_curves, hy.table_displacement_t)
     warnings: list[Warning] = []
+    if mct.basis == BASIS_TABLE:
+        warnings.append(Warning("trim-from-table-mctc",
+                                "the profile has no KML: trim is worked from the tabulated MCTC (made with BML, "
+                                "not the actual GML), so it is slightly too small", "caution"))
     if correction == "transfer":
         # The upright (0°) inertia still gives GM fluid; the curve takes the actual
         # moment of fluid transfer of each counted tank at each heel.  The tables are
@@ -210,7 +217,7 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
         lcf_m=hy.lcf_m,
         km_m=hy.kmt_m,
         tpc_t_cm=hy.tpc_t_cm,
-        mctc_tm_cm=hy.mctc_tm_cm,
+        mctc_tm_cm=mct.mctc_tm_cm,
         gm_solid_m=gm_solid,
         gm_fluid_m=gm_fluid,
         trim_m=trim,

@@ -1,0 +1,72 @@
+"""Moment to change trim from the actual longitudinal metacentric height, and the trim it gives.
+
+MCT 1 cm = Δ·GM_L/(100·LBP) with GM_L = KM_L − KG (standards.md §6.3, textbook;
+Barrass & Derrett, *Ship Stability for Masters and Mates*, 5th ed., chapter on
+MCTC).  A booklet's MCTC column cannot know KG: it is made with BM_L standing for
+GM_L (common practice; checks.md §1.1 shows the size of it for a box barge,
+13.2567 t·m/cm with GM_L against 13.6667 with BM_L), which makes the trim about
+KG/BM_L too small — for a short, deep vessel several per cent.
+
+Where the profile tabulates KM_L the moment is worked from the actual KG fluid:
+GM_L = KM_L − KG_fluid, KM_L read at the table-equivalent displacement (the same
+immersed volume, so the same KM_L whatever the water density) and Δ the actual
+displacement.  Where it does not, the tabulated MCTC (scaled for density) is used
+and the result carries a caution saying so.
+
+The free-surface correction of KG is the transverse one (ΣFSM/Δ); using it for
+the longitudinal height too lowers GM_L by FSC, a conservative choice (it makes
+the trim slightly larger) whose size is FSC/GM_L, a fraction of a per cent for
+any ship (common practice).
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from deckload.core.hydrostatics import Upright
+from deckload.core.loading import LoadingError
+from deckload.core.model import Vessel
+from deckload.core.tables import bracket, lerp_row
+
+BASIS_GML = "GML"
+"""MCTC = Δ·(KML − KG fluid)/(100·LBP)."""
+BASIS_TABLE = "table"
+"""MCTC from the booklet's column (made with BML for GML)."""
+
+
+class TrimError(LoadingError):
+    """The condition has no longitudinal stability to trim with (KG above KM_L)."""
+
+
+@dataclass(frozen=True)
+class TrimMoment:
+    mctc_tm_cm: float
+    """Moment to change trim 1 cm (t·m/cm) used for the trim."""
+    basis: str
+    """:data:`BASIS_GML` or :data:`BASIS_TABLE`."""
+    kml_m: float | None
+    """KM_L at the displacement (m) when the profile has it."""
+    gml_m: float | None
+    """GM_L = KM_L − KG fluid (m) when the profile has KM_L."""
+
+
+def kml_at(vessel: Vessel, table_displacement_t: float) -> float | None:
+    """KM_L (m) at a table-equivalent displacement, or None when the profile has no KM_L column."""
+    h = vessel.hydrostatics
+    if h.kml_m is None:
+        return None
+    i, f = bracket(h.displacement_t, table_displacement_t, "displacement (hydrostatic table, at table density)", "t")
+    return float(lerp_row(h.kml_m, i, f))
+
+
+def trim_moment(vessel: Vessel, hy: Upright, displacement_t: float, kg_fluid_m: float) -> TrimMoment:
+    """MCT 1 cm for the actual KG where KM_L is known, else the tabulated one (module docstring)."""
+    kml = kml_at(vessel, hy.table_displacement_t)
+    if kml is None:
+        return TrimMoment(hy.mctc_tm_cm, BASIS_TABLE, None, None)
+    gml = kml - kg_fluid_m
+    if not gml > 0.0:
+        raise TrimError(f"KG fluid {kg_fluid_m:.3f} m is not below KML {kml:.3f} m: "
+                        "no longitudinal stability, no trim can be computed")
+    mctc = displacement_t * gml / (100.0 * vessel.particulars.lbp_m)
+    return TrimMoment(mctc, BASIS_GML, kml, gml)
