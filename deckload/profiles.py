@@ -221,11 +221,14 @@ def _read_cross_curves(root: Table) -> m.CrossCurves | None:
     heel = t.ends_at("heel_deg", heel, 90.0, "the GZ curve runs 0–90°; nothing is extrapolated")
     disp = t.increasing("displacement_t", t.array("displacement_t", positive))
     kn = t.matrix("kn_m", "displacement_t", t.raw_len("displacement_t"), "heel_deg", t.raw_len("heel_deg"))
+    has_ref = t.has("reference_lcg_m")
+    ref = t.num("reference_lcg_m", required=False)
     t.finish()
-    if basis is None or heel is None or disp is None or kn is None:
+    if basis is None or heel is None or disp is None or kn is None or (has_ref and ref is None):
         return None
     return m.CrossCurves(
-        heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis
+        heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis,
+        reference_lcg_m=ref,
     )
 
 

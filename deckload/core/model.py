@@ -134,6 +134,8 @@ class CrossCurves:
     """KN (m), shape (len(displacement_t), len(heel_deg))."""
     trim_basis: str = "free trim"
     """How trim was treated when the curves were made: 'free trim' or 'even keel'."""
+    reference_lcg_m: float | None = None
+    """Free trim: the LCG (m from AP) the curves were made for (B kept in line with it); None if not stated."""
 
 
 @dataclass(frozen=True, eq=False)

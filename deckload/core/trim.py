@@ -25,7 +25,7 @@ from dataclasses import dataclass
 
 from deckload.core.hydrostatics import Upright
 from deckload.core.loading import LoadingError
-from deckload.core.model import Vessel
+from deckload.core.model import CrossCurves, Vessel
 from deckload.core.tables import bracket, lerp_row
 
 BASIS_GML = "GML"
@@ -70,3 +70,27 @@ def trim_moment(vessel: Vessel, hy: Upright, displacement_t: float, kg_fluid_m: 
                         "no longitudinal stability, no trim can be computed")
     mctc = displacement_t * gml / (100.0 * vessel.particulars.lbp_m)
     return TrimMoment(mctc, BASIS_GML, kml, gml)
+
+
+KN_REFERENCE_FRACTION = 0.01
+"""G more than this fraction of LBP from the LCG the free-trim KN were made for draws a caution.
+
+deckload's own threshold.  Free-trim cross curves hold B in line with one LCG at every
+heel; with G elsewhere the vessel trims differently as she heels and her KN differ.
+On the demo hull (38 m, by direct calculation from its geometry) 0.6 m (1.6 % of LBP)
+moves KN by up to 9 mm and 1.6 m by up to 39 mm at 30°–45°, against UR L5's 5 cm."""
+
+
+def kn_reference_note(cc: CrossCurves, lcg_m: float, lbp_m: float) -> str | None:
+    """A caution when G is far fore or aft of the LCG the free-trim KN were made for, else None.
+
+    Curves that do not state their reference LCG (``cross_curves.reference_lcg_m``) cannot
+    be judged and draw no note; vessel_profiles/README.md asks for the key.
+    """
+    if cc.trim_basis != "free trim" or cc.reference_lcg_m is None:
+        return None
+    off = lcg_m - cc.reference_lcg_m
+    if abs(off) <= KN_REFERENCE_FRACTION * lbp_m:
+        return None
+    where = "forward of" if off > 0 else "abaft"
+    return f"G is {abs(off):.2f} m {where} the KN's free-trim LCG {cc.reference_lcg_m:.2f} m: GZ may be off by cm"
