@@ -34,7 +34,7 @@ from deckload.core.loading import LoadingError, hold_item, resolve_tanks, sum_we
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import ItemResult, Result, TankResult, Warning
 from deckload.core.tables import OutOfRangeError, bracket, interp, lerp_row
-from deckload.core.trim import BASIS_TABLE, kn_reference_note, trim_moment
+from deckload.core.trim import BASIS_TABLE, even_keel_note, kn_reference_note, trim_moment
 
 LIST_WARNING_DEG = 2.0
 NEAR_LIMIT_FRACTION = 0.10
@@ -103,6 +103,9 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
 
     kn = gzmod.kn_curve(vessel.cross_curves, hy.table_displacement_t)
     warnings: list[Warning] = []
+    trim_note = even_keel_note(trim, lbp)
+    if trim_note is not None:
+        warnings.append(Warning("trim-beyond-tables", trim_note, "caution"))
     kn_note = kn_reference_note(vessel.cross_curves, w.lcg_m, vessel.particulars.lbp_m)
     if kn_note is not None:
         warnings.append(Warning("kn-reference-lcg", kn_note, "caution"))

@@ -94,3 +94,22 @@ def kn_reference_note(cc: CrossCurves, lcg_m: float, lbp_m: float) -> str | None
         return None
     where = "forward of" if off > 0 else "abaft"
     return f"G is {abs(off):.2f} m {where} the KN's free-trim LCG {cc.reference_lcg_m:.2f} m: GZ may be off by cm"
+
+
+EVEN_KEEL_TRIM_FRACTION = 0.01
+"""Trim beyond this fraction of LBP draws a caution: the tables are for even keel.
+
+deckload's own threshold.  Hydrostatic tables and KN made at even keel assume the
+waterplane of an upright, untrimmed ship; trimmed, the waterplane and the immersed
+ends change and the tables' draft, LCF, KMt and KN drift from the ship's.  Booklets
+that give trimmed tables do so for this reason (MSC.1/Circ.1229 4.5 lets pre-programmed
+booklet data differ 'for trims outside the booklet', standards.md §5.2)."""
+
+
+def even_keel_note(trim_m: float, lbp_m: float) -> str | None:
+    """A caution when the trim is more than 1 % of LBP from the even keel the tables were made at."""
+    if abs(trim_m) <= EVEN_KEEL_TRIM_FRACTION * lbp_m:
+        return None
+    way = "by the stern" if trim_m > 0 else "by the head"
+    return (f"trim {abs(trim_m):.2f} m {way} ({100 * abs(trim_m) / lbp_m:.1f} % of LBP): the tables are for "
+            "even keel; drafts and KN less certain")
