@@ -116,6 +116,7 @@ def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
     load_lines = _read_load_lines(root, hydro)
     limit = _read_limit_curve(root)
     downflooding = _read_downflooding(root)
+    marks = _read_draft_marks(root, particulars)
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
     tanks = _read_tanks(root, fs, ids)
@@ -137,6 +138,7 @@ def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
         downflooding=downflooding,
         criteria=criteria,
         free_surface=fs,
+        draft_marks=marks,
     )
 
 
@@ -339,6 +341,50 @@ def _read_downflooding(root: Table) -> m.LimitCurve | None:
     if not t.same_length("displacement_t", {"displacement_t": disp, "angle_deg": ang}):
         return None
     return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(ang), kind="downflooding_deg")
+
+
+def _read_draft_marks(root: Table, particulars: m.Particulars | None) -> m.DraftMarks | None:
+    """``[draft_marks]``: aft, midships, forward marks (x_m, y_m) and the keel thickness.
+
+    Bounds from the vessel: marks within 20 % of LBP beyond either perpendicular, no further
+    off the centreline than half the breadth, aft < midships < forward with the aft and
+    forward marks at least half the LBP apart (the trim is found from their difference);
+    keel thickness under a tenth of the depth.
+    """
+    t = root.table("draft_marks", required=False)
+    if t is None:
+        return None
+    lbp = particulars.lbp_m if particulars is not None else None
+    half_b = particulars.breadth_m / 2.0 if particulars is not None else None
+    x_rule = (between(-0.2 * lbp, 1.2 * lbp, "m", "within 20 % of LBP of the perpendiculars")
+              if lbp is not None else None)
+    y_rule = between(0.0, half_b, "m", "between the centreline and the side") if half_b is not None else non_negative
+    k_rule = (between(0.0, 0.1 * particulars.depth_m, "m", "a keel plate, under a tenth of the depth")
+              if particulars is not None else non_negative)
+    keel = t.num("keel_thickness_m", k_rule, required=False, default=0.0)
+    bad_keel = t.has("keel_thickness_m") and keel is None
+    found: dict[str, m.DraftMark | None] = {}
+    for where in ("aft", "midships", "forward"):
+        sub = t.table(where)
+        if sub is None:
+            found[where] = None
+            continue
+        x = sub.num("x_m", *((x_rule,) if x_rule else ()))
+        y = sub.num("y_m", y_rule)
+        sub.finish()
+        found[where] = None if x is None or y is None else m.DraftMark(x, y)
+    t.finish()
+    if bad_keel or any(v is None for v in found.values()) or lbp is None:
+        return None
+    a, mid, f = found["aft"], found["midships"], found["forward"]
+    if not a.x_m < mid.x_m < f.x_m:
+        t.bad("midships", t.data["midships"], "the marks must lie aft < midships < forward (x_m from AP)")
+        return None
+    if f.x_m - a.x_m < 0.5 * lbp:
+        t.bad("forward", t.data["forward"], f"only {num(f.x_m - a.x_m)} m forward of the aft marks: they must be at "
+              f"least half the LBP ({num(0.5 * lbp)} m) apart to give the trim")
+        return None
+    return m.DraftMarks(a, mid, f, keel)
 
 
 def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) -> list[m.Tank]:

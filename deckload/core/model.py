@@ -281,6 +281,27 @@ class LimitCurve:
 
 
 @dataclass(frozen=True)
+class DraftMark:
+    """Where one set of draft marks is cut in the shell, port and starboard alike."""
+
+    x_m: float
+    """Position of the marks from AP, + forward (m)."""
+    y_m: float
+    """Distance of the marks from the centreline (m): the starboard marks at +y, the port at −y."""
+
+
+@dataclass(frozen=True)
+class DraftMarks:
+    """The draft marks aft, amidships and forward; they read from the underside of the keel."""
+
+    aft: DraftMark
+    midships: DraftMark
+    forward: DraftMark
+    keel_thickness_m: float = 0.0
+    """Keel plate below the moulded baseline (m): a mark reads moulded draft + this (extreme draft)."""
+
+
+@dataclass(frozen=True)
 class CriteriaSettings:
     code: str = "IS2008-A2.2"
     """Criteria set; 'IS2008-A2.2' = IS Code 2008 Part A 2.2 general criteria."""
@@ -322,6 +343,7 @@ class Vessel:
     downflooding: LimitCurve | None = None
     criteria: CriteriaSettings = CriteriaSettings()
     free_surface: FreeSurfaceSettings = FreeSurfaceSettings()
+    draft_marks: DraftMarks | None = None
     tank_index: dict[str, int] = field(init=False, repr=False, compare=False)
     hold_index: dict[str, int] = field(init=False, repr=False, compare=False)
     area_index: dict[str, int] = field(init=False, repr=False, compare=False)
