@@ -21,14 +21,22 @@ def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir
     the calculation accepts it (a displacement outside the tables is accepted: the
     screen shows why).  An unusable working file is set aside with a notice, never
     overwritten; the good working file is set aside for a named condition only after
-    that condition has been read successfully.
+    that condition has been read successfully.  A profile that fails its plausibility
+    audit raises :class:`deckload.audit_report.AuditError`.
     """
     from deckload import paths
     from deckload.profiles import ProfileError, load_condition, load_profile
     from deckload.ui.session import working_path
 
+    from deckload.audit_report import audit_or_refuse
+
     notices: list[str] = []
     vessel = load_profile(profile_path or paths.DEMO_PROFILE)
+    # The plausibility audit before anything is shown: a contradiction refuses the profile
+    # (AuditError, a ProfileError), a doubt becomes a notice.
+    doubt = audit_or_refuse(profile_path or paths.DEMO_PROFILE, vessel)
+    if doubt:
+        notices.append(doubt)
     saved = working_path(work_dir, vessel)
     notices += _tidy_working_folder(work_dir, saved, vessel)
     if condition_path is not None:
