@@ -66,7 +66,11 @@ CONDITION_FORMAT = "deckload-condition-1"
 LIQUID_DENSITY_RANGE_T_M3 = (0.5, 2.0)
 """Plausible densities of a tank's contents (t/m³): light oils ~0.8, heavy brines ~1.3."""
 
-from deckload.core.bounds import WATER_DENSITY_RANGE_T_M3  # noqa: E402  one range for files and the screen
+from deckload.core.bounds import (  # noqa: E402  one set of ranges for files and the screen
+    BEAM_DEPTH_RANGE_M,
+    LBP_RANGE_M,
+    WATER_DENSITY_RANGE_T_M3,
+)
 
 CAPACITY_TOLERANCE = 0.0005
 """A tank's capacity_m3 may differ from its last calibration volume by at most 0.05 % (round-off):
@@ -224,9 +228,10 @@ def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:
     kw = dict(
         name=t.text("name"),
         vessel_type=t.text("vessel_type", required=False, empty_ok=True),
-        lbp_m=t.num("lbp_m", positive),
-        breadth_m=t.num("breadth_m", positive),
-        depth_m=t.num("depth_m", positive),
+        # every other physical bound derives from these three (deckload.core.bounds)
+        lbp_m=t.num("lbp_m", positive, between(*LBP_RANGE_M, "m", "a ship's length between perpendiculars")),
+        breadth_m=t.num("breadth_m", positive, between(*BEAM_DEPTH_RANGE_M, "m", "a ship's moulded breadth")),
+        depth_m=t.num("depth_m", positive, between(*BEAM_DEPTH_RANGE_M, "m", "a ship's moulded depth")),
         design_draft_m=t.num("design_draft_m", positive),
         table_density_t_m3=t.num("table_density_t_m3", water_density),
     )

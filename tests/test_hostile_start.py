@@ -145,7 +145,7 @@ def test_opening_a_bad_named_condition_renames_nothing(vessel, tmp_path, capsys,
     saved.write_text(DEMO_CONDITIONS["midvoyage"].read_text(encoding="utf-8"), encoding="utf-8")
     bad = tmp_path / "bad.condition.toml"
     bad.write_text(DEPARTURE.replace("percent = 100.0", "percent = 100.001", 1), encoding="utf-8")
-    assert main(["open", "demo", str(bad)]) == 1
+    assert main(["open", "demo", str(bad)]) == 2  # the screen does not open
     assert "bad.condition.toml" in capsys.readouterr().err
     assert saved.read_text(encoding="utf-8") == DEMO_CONDITIONS["midvoyage"].read_text(encoding="utf-8")
     assert not saved.with_name(saved.name + ".previous").exists()

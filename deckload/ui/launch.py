@@ -176,10 +176,7 @@ def run_open(profile_path: Path | None, condition_path: Path | None) -> int:
     work_dir = paths.working_dir()
     try:
         vessel, condition, notices = load_inputs(profile_path, condition_path, work_dir)
-    except ProfileError as exc:
-        print(f"deckload: {exc}", file=sys.stderr)
-        return 1
-    except OSError as exc:
+    except (ProfileError, OSError) as exc:
         print(f"deckload: {exc}", file=sys.stderr)
         return 2
     app = create_app(vessel, condition, work_dir=work_dir, log_dir=paths.log_dir(), notices=notices)
