@@ -122,6 +122,7 @@ def _check_condition(path: Path, vessel: m.Vessel) -> int:
         f"mean draft {result.draft_mean_m:.3f} m, GM fluid {result.gm_fluid_m:.3f} m; "
         f"stability criteria met: {met} of {len(result.criteria)}"
     )
+    print(f"    verdict: {result.verdict_text()}")
     for w in result.warnings:
         print(f"    {w.severity}: {w.message}")
     return 0
