@@ -688,3 +688,13 @@ source = "Example class rule E"
         assert (crit[cid].assessed, crit[cid].passed) == (False, False), cid
         assert "beyond 60°, where the KN tables end" in crit[cid].note, cid
     assert crit["profile-5-min-range"].assessed and crit["profile-5-min-range"].value == 60.0
+
+
+def test_calc_prints_extreme_drafts_where_the_keel_thickness_is_given(tmp_path, capsys):
+    """Extreme draft = moulded + keel (0.02 m): at 820 t even keel the moulded 2.000 m reads 2.020 m."""
+    prof = _write(tmp_path / "keel.toml", edit(BASE, 'longitudinal_datum = "AP"',
+                                              'longitudinal_datum = "AP"\nkeel_thickness_m = 0.02'))
+    c = _write(tmp_path / "c.condition.toml", 'format = "deckload-condition-1"\n[condition]\nname = "c"\n'
+               "water_density_t_m3 = 1.025\n" + HOLD_420)
+    assert main(["calc", str(prof), str(c)]) == 0
+    assert "Extreme drafts (moulded + keel 0.020 m): aft 2.020 m, midships 2.020 m, fwd 2.020 m" in capsys.readouterr().out
