@@ -277,3 +277,48 @@ def test_a_steady_wind_that_overturns_her_fails_and_is_said():
     assert not crit["IS2008-A2.3-area-b-a"].assessed
     assert not r.all_criteria_pass and r.weather is None
     assert "NOT MET" in r.verdict_text()
+
+
+def _cut_at_40(v):
+    """The same vessel with its KN tables ending at 40° (a booklet that stops there)."""
+    import dataclasses
+
+    from deckload.core.model import CrossCurves
+
+    cc = v.cross_curves
+    keep = cc.heel_deg <= 40.0
+    return dataclasses.replace(v, cross_curves=CrossCurves(frozen_array(cc.heel_deg[keep]), cc.displacement_t,
+                                                           frozen_array(cc.kn_m[:, keep]), cc.trim_basis))
+
+
+def test_short_kn_tables_count_area_b_to_their_end_when_that_is_enough():
+    """KN to 40° only: θ2 would be 50°, so b is known to 40°: e(40°) − e(θr) − lw2·(40° − θr)
+    = 0.1354 m·rad by the HAND formulas, already above a — met, and the note says so."""
+    v, c = _box()
+    r = evaluate(_cut_at_40(v), c)
+    crit = {c.id: c for c in r.criteria}["IS2008-A2.3-area-b-a"]
+    lw2 = 1.5 * 0.0300738
+    thr = math.radians(6.509253)
+    b40 = box_dynamic_lever(math.radians(40.0)) - box_dynamic_lever(thr) - lw2 * (math.radians(40.0) - thr)
+    assert crit.assessed and crit.passed
+    assert crit.value == pytest.approx(b40, abs=5e-5)  # spline tolerance as above
+    assert "counted to 40°" in crit.note
+
+
+def test_short_kn_tables_leave_a_short_area_b_not_assessable():
+    """With six times the windage area, a grows and b to 40° no longer covers it, though the whole
+    curve (to θ2 = 50°) meets the criterion: what lies beyond the table is unknown, so with KN to
+    40° only the criterion is not assessable (never met)."""
+    import dataclasses
+
+    v, c = _box()
+    w = v.windage
+    v = dataclasses.replace(v, windage=Windage(w.draft_m, frozen_array(6.0 * w.lateral_area_m2),
+                                               w.centroid_above_wl_m, w.waterline_length_m))
+    full = {c.id: c for c in evaluate(v, c).criteria}["IS2008-A2.3-area-b-a"]
+    r = evaluate(_cut_at_40(v), c)
+    crit = {c.id: c for c in r.criteria}["IS2008-A2.3-area-b-a"]
+    assert full.assessed and full.passed
+    assert not crit.assessed and not crit.passed and "beyond the KN tables' 40°" in crit.note
+    assert crit.value < crit.limit
+    assert not r.all_criteria_pass
