@@ -333,3 +333,25 @@ def test_profile_criteria_beyond_short_kn_tables_are_not_assessable():
     assert [c.assessed for c in crit] == [False, False, False, True]
     assert all("KN tables' end at 40°" in c.note for c in crit[:3])
     assert crit[3].value == pytest.approx(1.08771, abs=5e-3) and crit[3].passed  # checks.md §1.2 GZ(30°)
+
+
+def test_deck_item_windage_keys_come_as_a_pair_and_round_trip():
+    from deckload.profiles import dump_condition, parse_condition
+
+    v = parse_profile(BASE)
+    head = 'format = "deckload-condition-1"\n[condition]\nname = "c"\nwater_density_t_m3 = 1.025\n'
+    item = ('[[deck_item]]\nname = "Container"\nmass_t = 10.0\nlcg_m = 10.0\nvcg_m = 5.0\ntcg_m = 0.0\n'
+            'windage_area_m2 = 9.6\nwindage_centroid_z_m = 6.3\n')
+    c = parse_condition(head + item, "c.toml", v)
+    assert (c.deck_items[0].windage_area_m2, c.deck_items[0].windage_centroid_z_m) == (9.6, 6.3)
+    assert parse_condition(dump_condition(c), "rt.toml", v) == c
+    from deckload.profiles import ProfileError
+
+    text = head + item.replace("windage_centroid_z_m = 6.3\n", "")
+    with pytest.raises(ProfileError) as ei:
+        parse_condition(text, "c.toml", v)
+    (p,) = ei.value.problems
+    assert p.key == "deck_item[#1].windage_centroid_z_m" and "required with windage_area_m2" in p.rule
+    with pytest.raises(ProfileError) as ei:
+        parse_condition(head + item.replace("= 6.3", "= 80.0"), "c.toml", v)
+    assert "up to depth + 30 m" in ei.value.problems[0].rule

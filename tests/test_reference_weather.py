@@ -322,3 +322,24 @@ def test_short_kn_tables_leave_a_short_area_b_not_assessable():
     assert not crit.assessed and not crit.passed and "beyond the KN tables' 40°" in crit.note
     assert crit.value < crit.limit
     assert not r.all_criteria_pass
+
+
+def test_deck_cargo_windage_adds_to_the_area_and_moves_its_centre():
+    """IS 2008 A 2.3 counts the lateral area of 'ship and deck cargo'.  The HAND box plus a deck
+    stow of 60 m² (negligible mass) centred 14 m above the keel, i.e. 8 m above the waterline:
+    A = 360 + 60 = 420 m², h = (360·3 + 60·8)/420 = 3.714286 m, Z = h + 3 = 6.714286 m,
+    lw1 = 504·420·6.714286/(1000·9.81·Δ)."""
+    from deckload.core.model import DeckItem
+
+    v, c = _box()
+    stow = DeckItem("timber stow", 1e-6, L / 2, 14.0, 0.0, windage_area_m2=60.0, windage_centroid_z_m=14.0)
+    hidden = DeckItem("hidden crate", 1e-6, L / 2, 12.5, 0.0)  # no windage stated: a caution names it
+    r = evaluate(v, c.with_deck_items((stow, hidden)))
+    w = r.weather
+    # 1e-6: the items' 2e-6 t sink her by 3e-9 m, which the windage table turns into 2e-7 m²
+    assert w.windage_area_m2 == pytest.approx(420.0, abs=1e-6)
+    assert w.windage_centroid_above_wl_m == pytest.approx((360.0 * 3.0 + 60.0 * 8.0) / 420.0, abs=1e-6)
+    disp = DISP + 2e-6
+    assert w.lw1_m == pytest.approx(504.0 * 420.0 * (3.714286 + 3.0) / (1000.0 * 9.81 * disp), rel=1e-6)
+    assert any("hidden crate" in x.message and "not included" in x.message for x in r.warnings)
+    assert not any("timber stow" in x.message for x in r.warnings)

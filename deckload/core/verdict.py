@@ -79,6 +79,10 @@ class Afloat:
     equilibrium_deg: float
     """Heel of equilibrium on the checked side (≥ 0)."""
     has_deck_cargo: bool = False
+    deck_windage: tuple[tuple[float, float], ...] = ()
+    """(lateral area m², height of its centre above the keel m) of each deck item that states it."""
+    deck_items_without_windage: tuple[str, ...] = ()
+    """Names of the deck items that do not state their windage."""
 
 
 @dataclass(frozen=True)
@@ -134,6 +138,13 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
                                      f"({w.draft_m[0]:g}–{w.draft_m[-1]:g} m)"), notes
     area, h_wl, lwl = wind
     d = a.draft_mid_m
+    extra_area = sum(ai for ai, _ in a.deck_windage)
+    if extra_area > 0.0:
+        # Deck cargo adds its stated side area, centre at its own height (IS 2008 A 2.3: "ship and
+        # deck cargo"); shielding is what the item's stated area already leaves out.
+        moment = area * h_wl + sum(ai * (zi - d) for ai, zi in a.deck_windage)
+        area = area + extra_area
+        h_wl = moment / area
     z = h_wl + d / 2.0  # Z to about half the mean draft (standards.md §2.2; that option [M])
     if cs.wind_pressure_pa is not None:
         pressure, p_source = cs.wind_pressure_pa, "P from the vessel profile (Administration)"
@@ -155,7 +166,8 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
     f = wx.weather_areas(curve, lw1, None if roll is None else roll.theta1_deg, a.flood_deg, end)
     src0 = "IS Code 2008 Part A 2.3.1.2"
     srcb = "IS Code 2008 Part A 2.3.1.4 (A.749 3.2.2.1.4)"
-    common = f"{p_source}, A {area:.1f} m², Z {z:.2f} m, lw1 {lw1:.4f} m"
+    common = f"{p_source}, A {area:.1f} m²" + (f" incl. deck cargo {extra_area:.1f} m²" if extra_area > 0 else "") \
+        + f", Z {z:.2f} m, lw1 {lw1:.4f} m"
     out: list[CriterionResult] = []
     if f.theta0_deg is None:
         # Beyond the end of the curve (≥ 40°, profile validation) θ0 is past its 16° limit in any case.
@@ -193,8 +205,9 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
                      "m·rad", ">=", srcb, WEATHER_SET, note))
     if f.theta2_deg is None:
         return out, None, None, notes  # GZ never reaches lw2: no θ2 to report, the note says why
-    if a.has_deck_cargo:
-        notes.append("weather criterion: windage of the deck cargo is not included (the table is for the vessel alone)")
+    if a.deck_items_without_windage:
+        notes.append("weather criterion: no windage given for deck item(s) " + ", ".join(a.deck_items_without_windage)
+                     + "; their side area is not included")
     wr = WeatherResult(
         wind_pressure_pa=pressure, windage_area_m2=area, windage_lever_m=z, lw1_m=lw1, lw2_m=f.lw2_m,
         theta0_deg=f.theta0_deg, theta0_limit_deg=theta0_limit, theta1_deg=roll.theta1_deg,
