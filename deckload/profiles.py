@@ -173,6 +173,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     windage = _read_windage(root, particulars)
     deck_edge = _read_deck_edge(root)
     passengers = _read_passengers(root, particulars, criteria)
+    marks = _read_draft_marks(root, particulars)
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
     depth = particulars.depth_m if particulars is not None else math.inf
@@ -180,6 +181,9 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     holds = _read_holds(root, ids, frame, rd)
     areas = _read_deck_areas(root, ids, frame, rd)
     constants = _read_profile_constants(root, frame, rd)
+    # [[booklet_condition]]: the booklet's worked conditions, read and compared by `deckload check`
+    # (deckload.booklet_conditions) once the vessel exists; not part of the model.
+    root.get("booklet_condition", False)
     root.finish()
     ctx.fail_if_any()
 
@@ -202,6 +206,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
         constants=tuple(constants),
         conversions=tuple(rd.conversions),
         assumptions=tuple(rd.assumptions),
+        draft_marks=marks,
     )
 
 
@@ -313,7 +318,8 @@ def _read_hydrostatics(root: Table, frame: Frame | None, rd: Reading) -> m.Hydro
     t = root.table("hydrostatics")
     if t is None:
         return None
-    attach_csv(t, HYDRO_COLUMNS)
+    if not attach_csv(t, HYDRO_COLUMNS):
+        return None
     f = read_frame(t, frame, drafts=True)
     cols = {
         "draft_m": t.increasing("draft_m", t.array("draft_m", non_negative)),
@@ -355,7 +361,8 @@ def _read_cross_curves(root: Table) -> m.CrossCurves | None:
     t = root.table("cross_curves")
     if t is None:
         return None
-    attach_kn_csv(t)
+    if not attach_kn_csv(t):
+        return None
     basis = t.text("trim_basis", choices=("free trim", "even keel"))
     heel = t.increasing("heel_deg", t.array("heel_deg", heel_range))
     heel = t.starts_at("heel_deg", heel, 0.0, "the upright condition")
@@ -365,11 +372,14 @@ def _read_cross_curves(root: Table) -> m.CrossCurves | None:
         heel = None
     disp = t.increasing("displacement_t", t.array("displacement_t", positive))
     kn = t.matrix("kn_m", "displacement_t", t.raw_len("displacement_t"), "heel_deg", t.raw_len("heel_deg"))
+    has_ref = t.has("reference_lcg_m")
+    ref = t.num("reference_lcg_m", required=False)
     t.finish()
-    if basis is None or heel is None or disp is None or kn is None:
+    if basis is None or heel is None or disp is None or kn is None or (has_ref and ref is None):
         return None
     return m.CrossCurves(
-        heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis
+        heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis,
+        reference_lcg_m=ref,
     )
 
 
@@ -649,7 +659,8 @@ def _read_limit_curve(root: Table, hydro, frame: Frame | None, rd: Reading) -> m
     t = root.table("limit_curve", required=False)
     if t is None:
         return None
-    attach_csv(t, ("displacement_t", "draft_m", "max_kg_m", "min_gm_m"))
+    if not attach_csv(t, ("displacement_t", "draft_m", "max_kg_m", "min_gm_m")):
+        return None
     f = read_frame(t, frame, drafts=True)
     disp, against = _abscissa(t, hydro, f, rd, "limit_curve")
     kinds = [k for k in ("max_kg_m", "min_gm_m") if t.has(k)]
@@ -690,7 +701,8 @@ def _read_downflooding(root: Table, hydro, frame: Frame | None, rd: Reading) -> 
         d = hydro.displacement_t
         return m.LimitCurve(displacement_t=m.frozen_array([d[0], d[-1]]), value=m.frozen_array([ang, ang]),
                             kind="downflooding_deg")
-    attach_csv(t, ("displacement_t", "draft_m", "angle_deg"))
+    if not attach_csv(t, ("displacement_t", "draft_m", "angle_deg")):
+        return None
     f = read_frame(t, frame, drafts=True)
     disp, against = _abscissa(t, hydro, f, rd, "downflooding")
     ang = t.array("angle_deg", angle_rule)
@@ -699,6 +711,50 @@ def _read_downflooding(root: Table, hydro, frame: Frame | None, rd: Reading) -> 
         return None
     rd.tables["downflooding"] = TableReading(f, csv=t.data.get("csv"), against=against)
     return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(ang), kind="downflooding_deg")
+
+
+def _read_draft_marks(root: Table, particulars: m.Particulars | None) -> m.DraftMarks | None:
+    """``[draft_marks]``: aft, midships, forward marks (x_m, y_m) and the keel thickness.
+
+    Bounds from the vessel: marks within 20 % of LBP beyond either perpendicular, no further
+    off the centreline than half the breadth, aft < midships < forward with the aft and
+    forward marks at least half the LBP apart (the trim is found from their difference);
+    keel thickness under a tenth of the depth.
+    """
+    t = root.table("draft_marks", required=False)
+    if t is None:
+        return None
+    lbp = particulars.lbp_m if particulars is not None else None
+    half_b = particulars.breadth_m / 2.0 if particulars is not None else None
+    x_rule = (between(-0.2 * lbp, 1.2 * lbp, "m", "within 20 % of LBP of the perpendiculars")
+              if lbp is not None else None)
+    y_rule = between(0.0, half_b, "m", "between the centreline and the side") if half_b is not None else non_negative
+    k_rule = (between(0.0, 0.1 * particulars.depth_m, "m", "a keel plate, under a tenth of the depth")
+              if particulars is not None else non_negative)
+    keel = t.num("keel_thickness_m", k_rule, required=False, default=0.0)
+    bad_keel = t.has("keel_thickness_m") and keel is None
+    found: dict[str, m.DraftMark | None] = {}
+    for where in ("aft", "midships", "forward"):
+        sub = t.table(where)
+        if sub is None:
+            found[where] = None
+            continue
+        x = sub.num("x_m", *((x_rule,) if x_rule else ()))
+        y = sub.num("y_m", y_rule)
+        sub.finish()
+        found[where] = None if x is None or y is None else m.DraftMark(x, y)
+    t.finish()
+    if bad_keel or any(v is None for v in found.values()) or lbp is None:
+        return None
+    a, mid, f = found["aft"], found["midships"], found["forward"]
+    if not a.x_m < mid.x_m < f.x_m:
+        t.bad("midships", t.data["midships"], "the marks must lie aft < midships < forward (x_m from AP)")
+        return None
+    if f.x_m - a.x_m < 0.5 * lbp:
+        t.bad("forward", t.data["forward"], f"only {num(f.x_m - a.x_m)} m forward of the aft marks: they must be at "
+              f"least half the LBP ({num(0.5 * lbp)} m) apart to give the trim")
+        return None
+    return m.DraftMarks(a, mid, f, keel)
 
 
 def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,
@@ -840,7 +896,8 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
     the bottom gets a row 'level 0, volume 0' with the first row's centres (conservative).
     """
     where = t.name
-    attach_csv(t, CAL_COLUMNS)
+    if not attach_csv(t, CAL_COLUMNS):
+        return None
     f = read_frame(t, tank_frame, sides=True)
     tr = TableReading(f or Frame(1.0), csv=t.data.get("csv"))
     levels_given = [k for k in ("sounding_m", "ullage_m") if t.has(k)]
@@ -1013,7 +1070,7 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
     out, ok = [], True
     for t in root.tables("hold"):
         ident = claim_id(t, "hold", ids)
-        attach_csv(t, HOLD_FILL_COLUMNS)
+        fill_read = attach_csv(t, HOLD_FILL_COLUMNS)
         f = read_frame(t, frame, sides=True)
         tcg, marked = tcg_num(t, "tcg_m", f)
         kw: dict[str, Any] = dict(
@@ -1050,7 +1107,7 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
                 cols["fill_pct"] = fill
                 fill_ok = t.same_length("fill_pct", cols)
         t.finish()
-        if (not fill_ok or f is None or any(v is None for k, v in kw.items() if k != "max_mass_t")
+        if (not fill_ok or not fill_read or f is None or any(v is None for k, v in kw.items() if k != "max_mass_t")
                 or (has_max and kw["max_mass_t"] is None)):
             ok = False
             continue

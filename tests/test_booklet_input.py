@@ -433,10 +433,12 @@ def test_csv_shape_problems(tmp_path):
     assert any(s.startswith(f"{tmp_path / 'tables' / 'hydrostatics.csv'}:5: ") and "row has 6 cells but the header has 7" in s
                for s in msgs), msgs
     assert any("'kn_sixty'" in s and "unknown column (column 8)" in s for s in msgs), msgs
+    path = booklet_profile(tmp_path)  # the two sheets mended
     (tmp_path / "tables" / "DB1P.csv").unlink()
     with pytest.raises(ProfileError) as ei:
         load_profile(path)
-    assert any("cannot read the CSV file" in p.rule for p in ei.value.problems)
+    (p,) = ei.value.problems  # the unread file alone: not its columns again as 'missing'
+    assert p.key == "tank[DB1P].calibration.csv" and p.rule.startswith("cannot read the CSV file")
 
 
 def _cells(path: Path) -> list[list[str]]:
@@ -552,3 +554,50 @@ def test_a_semicolon_separated_sheet_is_refused_with_the_reason(tmp_path):
     (p,) = ei.value.problems
     assert p.file == str(tmp_path / "tables" / "kn.csv") and p.line == 1
     assert p.rule.startswith("the cells are separated by ';'")
+
+
+async def test_the_screen_takes_an_ullage_and_shows_a_short_curve(tmp_path):
+    """On the loading screen `0.7u` states DB1P by ullage (level 0.5 m → 25 m³, derived above); the
+    vessel has KN to 60° and a capacity-only tank, and the GZ caption says the zero lies beyond 60°."""
+    from deckload.ui import views
+    from deckload.ui.launch import create_app
+    from deckload.ui.widgets import LinePanel, LoadBoard
+
+    text = edit(KN60, 'pair = "DB1S"\n', 'pair = "DB1S"\nullage_reference_m = 1.2\n') + SMALL[len(BASE):]
+    v = parse_profile(text, "screen.toml")
+    c0 = cond(v, HOLD_420)
+    app = create_app(v, c0, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    async with app.run_test(size=(120, 40)) as pilot:
+        assert app.screen.query_one(LoadBoard).cursor_key == ("tank", "DB1P")
+        await pilot.press("enter")
+        await pilot.press(*"0.7u", "enter")
+        await pilot.pause()
+        assert app.session.condition.tank_fill("DB1P") == m.TankFill("DB1P", "ullage_m", 0.7)
+        db1p = next(t for t in app.session.result.tanks if t.id == "DB1P")
+        assert db1p.volume_m3 == pytest.approx(25.0, rel=1e-12)
+        assert app.session.result.gz_end_deg == 60.0
+        assert "DB1P set to" in app.screen.query_one("#status", LinePanel).plain()
+        assert "zero beyond 60° (KN end)" in views.gz_caption(app.session.result).plain
+
+
+async def test_profile_constants_show_on_the_board_and_cannot_be_edited_there(tmp_path):
+    from deckload.ui.launch import create_app
+    from deckload.ui.widgets import LinePanel, LoadBoard
+
+    text = BASE + '\n[[constant]]\nname = "Crew and effects"\nmass_t = 2.0\nlcg_m = 20.0\nvcg_m = 5.0\n'
+    v = parse_profile(text, "const.toml")
+    app = create_app(v, cond(v, HOLD_420), work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    async with app.run_test(size=(120, 40)) as pilot:
+        b = app.screen.query_one(LoadBoard)
+        assert any(r.key == ("fixed", 0) and "Crew and effects" in r.text.plain for r in b.rows)
+        assert app.session.result.displacement_t == 822.0
+        for _ in range(len(b.rows)):
+            if b.cursor_key == ("fixed", 0):
+                break
+            await pilot.press("down")
+        assert b.cursor_key == ("fixed", 0)
+        c0 = app.session.condition
+        await pilot.press("enter")
+        await pilot.pause()
+        assert app.session.condition is c0
+        assert "fixed constant of the vessel profile" in app.screen.query_one("#status", LinePanel).plain()
