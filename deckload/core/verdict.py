@@ -379,5 +379,5 @@ def deck_edge_angle(vessel: Vessel, table_displacement_t: float, draft_mid_m: fl
     p = vessel.particulars
     freeboard = max(p.depth_m - draft_mid_m, 0.0)
     angle = math.degrees(math.atan2(freeboard, p.breadth_m / 2.0))
-    why = "the profile has no deck-edge table" if de is None else "the displacement is outside the deck-edge table"
-    return angle, f"deck-edge angle {angle:.1f}° is approximate: wall-sided at midships, common practice ({why})"
+    why = "no deck-edge table" if de is None else "off the deck-edge table"
+    return angle, f"deck-edge angle {angle:.1f}° approximate: wall-sided at midships, common practice ({why})"
