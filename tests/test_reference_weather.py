@@ -343,3 +343,16 @@ def test_deck_cargo_windage_adds_to_the_area_and_moves_its_centre():
     assert w.lw1_m == pytest.approx(504.0 * 420.0 * (3.714286 + 3.0) / (1000.0 * 9.81 * disp), rel=1e-6)
     assert any("hidden crate" in x.message and "not included" in x.message for x in r.warnings)
     assert not any("timber stow" in x.message for x in r.warnings)
+
+
+def test_the_windward_side_mirrors_the_other_curve_and_theta0_may_lie_to_windward():
+    """Derived: heeling to windward by φ the righting lever is −GZ_windward(φ).  A ship listed to
+    windward: GZ_lee = 0.5·φ + 0.05 and GZ_windward = 0.5·φ − 0.05, so GZ(0) = 0.05 > lw1 = 0.02
+    and on the windward side GZ(−φ) = −0.5·φ + 0.05 meets lw1 at φ = 0.06 rad: θ0 = −3.4377°."""
+    deg = np.round(np.arange(0.0, 90.0001, 0.1), 10)
+    rad = np.radians(deg)
+    curve = wx.Curve.from_sides(deg, 0.5 * rad + 0.05, 0.5 * rad - 0.05)
+    assert curve.at(-10.0) == pytest.approx(-(0.5 * math.radians(10.0) - 0.05), abs=1e-12)
+    assert curve.at(10.0) == pytest.approx(0.5 * math.radians(10.0) + 0.05, abs=1e-12)
+    f = wx.weather_areas(curve, 0.02, 5.0, None)
+    assert f.theta0_deg == pytest.approx(math.degrees(-0.06), abs=1e-6)
