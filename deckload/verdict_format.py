@@ -1,0 +1,135 @@
+"""The verdict in words, for every printed or shown summary (calc, check, report, log, screen).
+
+Nothing is computed here: the criteria, the sets they belong to and what was not
+assessed all come from the :class:`~deckload.core.result.Result`.  These helpers only
+group and word them, so that no view can say "all criteria met" on its own: every
+summary names the sets that were assessed and lists what was not, and why.
+"""
+
+from __future__ import annotations
+
+import math
+import textwrap
+from dataclasses import dataclass
+
+from deckload.core.result import AssessedSet, CriterionResult, Result
+
+NOT_ASSESSABLE = "not assessable"
+"""How a criterion the data cannot decide (``assessed`` False) is shown: never as a pass."""
+
+UNGROUPED = AssessedSet("", "criteria without a set", False)
+"""Stands for a set id the result does not list (kept visible, never dropped)."""
+
+_IS2008 = "IS Code 2008 "
+
+
+@dataclass(frozen=True)
+class SetGroup:
+    set: AssessedSet
+    criteria: tuple[CriterionResult, ...]
+
+    @property
+    def word(self) -> str:
+        """'met', 'NOT MET' or 'met where assessable' for this set."""
+        return outcome_word(self.criteria)
+
+
+def grouped(result: Result) -> list[SetGroup]:
+    """The criteria grouped by the set they belong to, sets in the result's order.
+
+    A criterion whose ``set_id`` names no listed set is kept in a group of its own at the
+    end (titled :data:`UNGROUPED`, or its own id), so that nothing is lost.
+    """
+    groups = [SetGroup(s, tuple(c for c in result.criteria if c.set_id == s.id)) for s in result.criteria_sets]
+    known = {s.id for s in result.criteria_sets}
+    stray: dict[str, list[CriterionResult]] = {}
+    for c in result.criteria:
+        if c.set_id not in known:
+            stray.setdefault(c.set_id, []).append(c)
+    for sid, cs in stray.items():
+        title = sid if sid else UNGROUPED.title
+        groups.append(SetGroup(AssessedSet(sid, title, False), tuple(cs)))
+    return groups
+
+
+def outcome_word(criteria) -> str:
+    """'NOT MET' when any assessed criterion failed; 'met where assessable' when some could not
+    be assessed; 'met' only when every one was assessed and met; 'nothing assessed' when empty."""
+    criteria = tuple(criteria)
+    if not criteria:
+        return "nothing assessed"
+    if any(c.assessed and not c.passed for c in criteria):
+        return "NOT MET"
+    if any(not c.assessed for c in criteria):
+        return "met where assessable"
+    return "met"
+
+
+def set_names(result: Result) -> str:
+    """The assessed sets by id, e.g. 'IS2008-A2.2, IS2008-A2.3' ('no criteria set' when none)."""
+    return ", ".join(s.id or s.title for s in result.criteria_sets) or "no criteria set"
+
+
+def paragraph(c: CriterionResult) -> str:
+    """The criterion's paragraph, short: 'IS Code 2008 Part A 2.2.1' → 'A 2.2.1'; other sources as given."""
+    src = c.source
+    if src.startswith(_IS2008):
+        src = src[len(_IS2008):]
+        src = src.removeprefix("Part ")
+    return src
+
+
+def failed(result: Result) -> list[CriterionResult]:
+    return [c for c in result.criteria if c.assessed and not c.passed]
+
+
+def unassessable(result: Result) -> list[CriterionResult]:
+    return [c for c in result.criteria if not c.assessed]
+
+
+def digits(unit: str) -> int:
+    """Decimals shown for a value in ``unit``: degrees to 0.1°, lengths and areas to 0.001."""
+    return 1 if unit == "deg" else 3
+
+
+def value_text(c: CriterionResult, width: int = 0) -> str:
+    """The measured value, or 'n/a' when the criterion was not assessed."""
+    if not c.assessed or not math.isfinite(c.value):
+        return "n/a".rjust(width)
+    return f"{c.value:.{digits(c.unit)}f}".rjust(width)
+
+
+def margin_text(c: CriterionResult, width: int = 0) -> str:
+    if not c.assessed or not math.isfinite(c.value):
+        return "".rjust(width)
+    return f"{c.margin:+.{digits(c.unit)}f}".rjust(width)
+
+
+def result_word(c: CriterionResult) -> str:
+    """'pass', 'FAIL' or 'not assessable'."""
+    if not c.assessed:
+        return NOT_ASSESSABLE
+    return "pass" if c.passed else "FAIL"
+
+
+def not_assessed_lines(result: Result, width: int, indent: str = "") -> list[str]:
+    """'Not assessed:' then one line per item with its reason, wrapped to ``width``."""
+    if not result.not_assessed:
+        return []
+    out = [indent + "Not assessed:"]
+    for n in result.not_assessed:
+        out += textwrap.wrap(f"{n.item}: {n.reason}", width, initial_indent=indent + "  - ",
+                             subsequent_indent=indent + "    ")
+    return out
+
+
+def verdict_lines(result: Result, width: int, indent: str = "") -> list[str]:
+    """:meth:`Result.verdict_text` wrapped to ``width`` (the one sentence-set every summary carries)."""
+    return textwrap.wrap(result.verdict_text(), width, initial_indent=indent, subsequent_indent=indent)
+
+
+def fmt_optional(value: float | None, fmt: str, unit: str = "", none: str = "n/a") -> str:
+    """A number with its unit, or 'n/a' when the result has none (or it is not finite)."""
+    if value is None or not math.isfinite(value):
+        return none
+    return f"{format(value, fmt)}{unit}"
