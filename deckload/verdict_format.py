@@ -70,6 +70,29 @@ def set_names(result: Result) -> str:
     return ", ".join(s.id or s.title for s in result.criteria_sets) or "no criteria set"
 
 
+def short_set_names(result: Result) -> list[str]:
+    """Set ids for a narrow place: 'IS2008-A2.2', 'IS2008-A2.3' → 'IS2008 A2.2', 'A2.3' (the
+    standard named once, on the first of its sets); other ids as they are."""
+    out, last = [], None
+    for s in result.criteria_sets:
+        sid = s.id or s.title
+        std, sep, rest = sid.partition("-")
+        if sep and std == last:
+            out.append(rest)
+        elif sep and std.startswith("IS"):
+            out.append(f"{std} {rest}")
+        else:
+            out.append(sid)
+        last = std if sep else None
+    return out or ["no criteria set"]
+
+
+def set_title(title: str) -> str:
+    """A set's title without the standard's long name: 'IS Code 2008 Part A 2.2 general criteria'
+    → 'A 2.2 general criteria'."""
+    return title.removeprefix(_IS2008).removeprefix("Part ")
+
+
 def paragraph(c: CriterionResult) -> str:
     """The criterion's paragraph, short: 'IS Code 2008 Part A 2.2.1' → 'A 2.2.1'; other sources as given."""
     src = c.source
@@ -87,22 +110,29 @@ def unassessable(result: Result) -> list[CriterionResult]:
     return [c for c in result.criteria if not c.assessed]
 
 
-def digits(unit: str) -> int:
-    """Decimals shown for a value in ``unit``: degrees to 0.1°, lengths and areas to 0.001."""
-    return 1 if unit == "deg" else 3
+def digits(unit: str, limit: float = 1.0) -> int:
+    """Decimals shown for a value in ``unit``: degrees to 0.1°, lengths and areas to 0.001, and
+    to 0.0001 when the limit itself is under 0.01 (the weather criterion's area a)."""
+    if unit == "deg":
+        return 1
+    return 4 if 0 < abs(limit) < 0.01 else 3
+
+
+def digits_of(c: CriterionResult) -> int:
+    return digits(c.unit, c.limit)
 
 
 def value_text(c: CriterionResult, width: int = 0) -> str:
     """The measured value, or 'n/a' when the criterion was not assessed."""
     if not c.assessed or not math.isfinite(c.value):
         return "n/a".rjust(width)
-    return f"{c.value:.{digits(c.unit)}f}".rjust(width)
+    return f"{c.value:.{digits_of(c)}f}".rjust(width)
 
 
 def margin_text(c: CriterionResult, width: int = 0) -> str:
     if not c.assessed or not math.isfinite(c.value):
         return "".rjust(width)
-    return f"{c.margin:+.{digits(c.unit)}f}".rjust(width)
+    return f"{c.margin:+.{digits_of(c)}f}".rjust(width)
 
 
 def result_word(c: CriterionResult) -> str:

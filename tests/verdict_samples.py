@@ -45,7 +45,7 @@ def _first_crossing(heel, gz, level, start):
     return float(heel[-1])
 
 
-def weather_for(r: Result, *, area_a_mrad: float = 4.1, area_b_mrad: float = 31.5) -> WeatherResult:
+def weather_for(r: Result, *, area_a_mrad: float = 0.0041, area_b_mrad: float = 0.0315) -> WeatherResult:
     """Hand-set weather numbers laid over the result's own GZ curve (display fixture)."""
     heel = np.asarray(r.gz_heel_deg)
     gz = np.asarray(r.gz_port_m if r.criteria_side == "port" else r.gz_m)
@@ -68,9 +68,9 @@ def with_verdict(r: Result, *, weather_fails: bool = False, unassessable: bool =
             c = dataclasses.replace(c, assessed=False, passed=False, value=float("nan"),
                                     note="the KN tables end at 25°, before the angle this criterion needs")
         crit.append(c)
-    w = weather_for(r, area_a_mrad=4.1, area_b_mrad=3.0 if weather_fails else 31.5)
+    w = weather_for(r, area_b_mrad=0.0030 if weather_fails else 0.0315)
     crit.append(CriterionResult(
-        "IS2008-A2.3-weather-b-a", "Weather: area b against area a", w.area_b_mrad / w.area_a_mrad, 1.0, "b/a",
+        "IS2008-A2.3-weather-area-b", "Weather: area b at least area a", w.area_b_mrad, w.area_a_mrad, "m·rad",
         ">=", not weather_fails, "IS Code 2008 Part A 2.3.1.2", set_id=A23.id))
     crit.append(CriterionResult(
         "IS2008-A2.3-theta0", "Weather: heel under steady wind θ0", w.theta0_deg, w.theta0_limit_deg, "deg",

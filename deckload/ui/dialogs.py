@@ -21,6 +21,7 @@ from textual.widgets import Input, Label, Static
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
 from deckload.ui import views
+from deckload.verdict_format import value_text
 from deckload.ui.commands import COMMANDS, NAVIGATION
 from deckload.ui.entry import EntryError, ItemForm, TransferPlan, plan_transfer
 from deckload.ui.palette import P
@@ -226,7 +227,7 @@ def preview_lines(before: Result | None, after: Result | None, problem: str | No
                 line.append(f"{'—':>7}     ", P["dim"])
             else:
                 word, style = views.verdict(x)
-                line.append(f"{x.value:>7.3f} ", P["value"])
+                line.append(value_text(x, 7) + " ", P["value"])
                 line.append(f"{word:<4}", P[style])
                 line.append(" ")
         line.append(f"  limit {views.CMP.get(c.comparison, c.comparison)} {c.limit:.3f} {c.unit}", P["dim"])
@@ -278,7 +279,7 @@ def help_page() -> Group:
         keys.add_row(c.key_text, c.name, c.help)
     notes = Text("\n" + "\n".join(f"{k}: {what}" for k, what in NAVIGATION), P["label"])
     notes.append("\nTank marks: " + views.LEGEND + ".  Criteria: ok, NEAR (margin under 10 % of the limit), "
-                 "FAIL.\nAmounts: 55% · 12.5m3 · 10t · 1.2m (sounding).  Nothing is extrapolated outside the "
+                 "FAIL, n/a (not assessable: the data cannot decide it; never a pass).\nAmounts: 55% · 12.5m3 · 10t · 1.2m (sounding).  Nothing is extrapolated outside the "
                  "vessel's tables.\n", P["label"])
     notes.append("deckload supports, and never replaces, the approved stability booklet, the master's "
                  "judgement and flag-State and class rules.", P["dim"])

@@ -41,12 +41,16 @@ class Level:
 
 @dataclass(frozen=True)
 class Area:
-    """Dots between the curve and ``level_m`` from ``from_deg`` to ``to_deg``, named by ``label``."""
+    """Dots between the curve and ``level_m`` from ``from_deg`` to ``to_deg``, named by ``label``.
+
+    ``where`` 'below': only where the curve is below the level (the weather criterion's area a);
+    'above': only where it is above (area b)."""
 
     from_deg: float
     to_deg: float
     level_m: float
     label: str
+    where: str = "above"
     style: str = "gz.area"
 
 
@@ -108,9 +112,15 @@ class GzChart:
                     if style is not None:
                         style[cell] = name
 
-        for area in self.areas:  # sparse dots: every other dot column, every other dot row
+        area_cols: dict[int, list[int]] = {}
+        for n, area in enumerate(self.areas):  # sparse dots: every other dot column, every other dot row
             y_level = py_of(area.level_m)
+            cols_in = area_cols.setdefault(n, [])
             for px in range(max(0, px_of(area.from_deg)), min(pw - 1, px_of(area.to_deg)) + 1):
+                curve_above = curve[px] > area.level_m
+                if curve_above != (area.where == "above"):
+                    continue
+                cols_in.append(px)
                 if px % 2:
                     continue
                 a, b = sorted((int(ys[px]), y_level))
@@ -133,16 +143,19 @@ class GzChart:
             if x_lo <= m.angle_deg <= x_hi:
                 mark_cols.setdefault(px_of(m.angle_deg) // 2, m)
         text_at: dict[tuple[int, int], tuple[str, str]] = {}
-        for lv in self.levels:  # the lever's name at its right end
-            r = py_of(lv.value_m) // 4
+        by_row: dict[int, list[Level]] = {}
+        for lv in self.levels:  # the levers' names at their right end; levels sharing a row share a name
+            by_row.setdefault(py_of(lv.value_m) // 4, []).append(lv)
+        for r, lvs in by_row.items():
+            name = "/".join(lv.label for lv in lvs)
             if 0 <= r < rows:
-                for i, ch in enumerate(lv.label):
-                    text_at[(r, cols - len(lv.label) + i)] = (ch, lv.style)
-        for area in self.areas:  # the area's letter in its middle, where there is room
-            lo_px, hi_px = max(0, px_of(area.from_deg)), min(pw - 1, px_of(area.to_deg))
-            if hi_px - lo_px < 4:
+                for i, ch in enumerate(name[:cols]):
+                    text_at[(r, max(0, cols - len(name)) + i)] = (ch, lvs[0].style)
+        for n, area in enumerate(self.areas):  # the area's letter in its middle, where there is room
+            cols_in = area_cols.get(n, [])
+            if len(cols_in) < 4:
                 continue
-            mid = (lo_px + hi_px) // 2
+            mid = cols_in[len(cols_in) // 2]
             r = ((int(ys[mid]) + py_of(area.level_m)) // 2) // 4
             if 0 <= r < rows:
                 text_at.setdefault((r, mid // 2), (area.label, area.style))
