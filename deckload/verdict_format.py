@@ -163,3 +163,48 @@ def fmt_optional(value: float | None, fmt: str, unit: str = "", none: str = "n/a
     if value is None or not math.isfinite(value):
         return none
     return f"{format(value, fmt)}{unit}"
+
+
+# --------------------------------------------------------------------------- a stored summary (log entries)
+
+
+def _short_id(sid: str) -> str:
+    std, sep, rest = sid.partition("-")
+    return rest if sep and std.startswith("IS") else sid
+
+
+def stored_word(summary: dict | None) -> str:
+    """'met', 'NOT MET' or 'met where assessable' from a log entry's stored summary ('' without one)."""
+    if not summary:
+        return ""
+    if summary.get("criteria_failed"):
+        return "NOT MET"
+    if summary.get("criteria_not_assessable"):
+        return "met where assessable"
+    return "met" if summary.get("criteria_pass") else "NOT MET"
+
+
+def stored_short(summary: dict | None) -> str:
+    """A log-table cell: the outcome and the sets, e.g. 'met A2.2 A2.3', 'NOT MET A2.2 A2.3'.
+
+    Entries recorded before the log stored the sets say so: 'met (sets not recorded)'."""
+    word = stored_word(summary)
+    if not word:
+        return ""
+    word = {"met where assessable": "met, n/a"}.get(word, word)
+    sets = summary.get("criteria_sets")
+    if sets is None:
+        return f"{word} (sets not recorded)"
+    return " ".join([word, *(_short_id(str(x.get("id", ""))) for x in sets)]) if sets else f"{word} (no set)"
+
+
+def stored_lines(summary: dict | None, width: int = 100, indent: str = "  ") -> list[str]:
+    """The verdict of a log entry as recorded: the sentence, or for older entries what they hold."""
+    if not summary:
+        return []
+    if summary.get("verdict"):
+        return textwrap.wrap("Verdict: " + summary["verdict"], width, initial_indent=indent,
+                             subsequent_indent=indent + "  ")
+    failed = summary.get("criteria_failed") or []
+    head = f"Criteria: NOT MET — {', '.join(failed)}" if failed else "Criteria: met"
+    return [indent + head + " (this entry predates the record of criteria sets and of what was not assessed)"]
