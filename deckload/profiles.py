@@ -112,10 +112,13 @@ def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
     hydro = _read_hydrostatics(root)
     cross = _read_cross_curves(root)
     fs = _read_free_surface(root, lightship)
-    criteria = _read_criteria(root)
+    criteria = _read_criteria(root, particulars)
     load_lines = _read_load_lines(root, hydro)
     limit = _read_limit_curve(root)
     downflooding = _read_downflooding(root)
+    windage = _read_windage(root, particulars)
+    deck_edge = _read_deck_edge(root)
+    passengers = _read_passengers(root, particulars, criteria)
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
     tanks = _read_tanks(root, fs, ids)
@@ -137,6 +140,9 @@ def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
         downflooding=downflooding,
         criteria=criteria,
         free_surface=fs,
+        windage=windage,
+        deck_edge=deck_edge,
+        passengers=passengers,
     )
 
 
@@ -271,17 +277,168 @@ def _read_free_surface(root: Table, lightship: m.MassItem | None) -> m.FreeSurfa
     return m.FreeSurfaceSettings(**kw)
 
 
-def _read_criteria(root: Table) -> m.CriteriaSettings | None:
+def _flag(t: Table, k: str) -> bool | None:
+    """An optional true/false key (false when absent); None when it is not a boolean."""
+    v = t.get(k, False)
+    if v is MISSING:
+        return False
+    if not isinstance(v, bool):
+        t.bad(k, v, "must be true or false")
+        return None
+    return v
+
+
+FISHING_STANDARD_GM_M = 0.35
+"""IS 2008 Part B 2.1 (from memory): GM0 ≥ 0.35 m; below it only with a complete superstructure or
+L ≥ 70 m, never below 0.15 m (standards.md §3.2)."""
+
+
+def _read_criteria(root: Table, particulars: m.Particulars | None) -> m.CriteriaSettings | None:
     t = root.table("criteria", required=False)
     if t is None:
         return None if root.has("criteria") else m.CriteriaSettings()
     code = t.text("code", required=False, default="IS2008-A2.2", choices=("IS2008-A2.2",))
+    ship_type = t.text("ship_type", required=False, default="general", choices=m.SHIP_TYPES)
     has_gm = t.has("min_gm_m")
     gm = t.num("min_gm_m", positive, required=False)
+    has_p = t.has("wind_pressure_pa")
+    # Restricted service may lower P with the Administration's approval (standards.md §2.2);
+    # a value beyond these bounds is a typing error, not a wind.
+    pressure = t.num("wind_pressure_pa", between(100.0, 1500.0, "Pa", "504 Pa unrestricted, IS 2008 A 2.3"),
+                     required=False)
+    has_ak = t.has("bilge_keel_area_m2")
+    ak = t.num("bilge_keel_area_m2", non_negative, required=False, default=0.0)
+    sharp = _flag(t, "sharp_bilged")
+    complete = _flag(t, "complete_superstructure")
     t.finish()
-    if code is None or (has_gm and gm is None):
+    ok = code is not None and ship_type is not None and sharp is not None and complete is not None
+    ok &= not (has_gm and gm is None) and not (has_p and pressure is None) and not (has_ak and ak is None)
+    if ok and t.has("code") and ship_type != "general":
+        t.bad("code", t.data["code"], f"'IS2008-A2.2' is the old name of the general criteria: it cannot be "
+              f"combined with ship_type {ship_type!r}; remove code")
+        ok = False
+    if ok and particulars is not None and ak and ak > particulars.lbp_m * particulars.depth_m:
+        t.bad("bilge_keel_area_m2", t.data["bilge_keel_area_m2"],
+              f"above LBP × depth ({num(particulars.lbp_m * particulars.depth_m)} m²): not a bilge-keel area")
+        ok = False
+    if ok and ship_type == "fishing" and gm is not None and gm < FISHING_STANDARD_GM_M:
+        length = particulars.lbp_m if particulars is not None else 0.0
+        if gm < 0.15:
+            t.bad("min_gm_m", t.data["min_gm_m"], "below 0.15 m: a fishing vessel's GM0 is never reduced below "
+                  "0.15 m (IS Code 2008 Part B 2.1, from memory)")
+            ok = False
+        elif not complete and length < 70.0:
+            t.bad("min_gm_m", t.data["min_gm_m"], "below 0.35 m: IS Code 2008 Part B 2.1 allows that only with a "
+                  "complete superstructure (complete_superstructure = true) or L ≥ 70 m (from memory)")
+            ok = False
+    extra = _read_extra_criteria(root, particulars)
+    if not ok or extra is None:
         return None
-    return m.CriteriaSettings(code=code, min_gm_m=gm)
+    return m.CriteriaSettings(code=code, min_gm_m=gm, ship_type=ship_type, wind_pressure_pa=pressure,
+                              bilge_keel_area_m2=ak, sharp_bilged=sharp, complete_superstructure=complete,
+                              extra=extra)
+
+
+def _read_extra_criteria(root: Table, particulars: m.Particulars | None) -> tuple[m.ExtraCriterion, ...] | None:
+    """``[[extra_criterion]]``: flag-State or class rules as data, each with its source."""
+    breadth = particulars.breadth_m if particulars is not None else 100.0
+    length_rule = between(0.0, breadth, "m", "at most the breadth")
+    rules = {
+        "min_gm": length_rule, "min_gz_at": length_rule, "min_max_gz": length_rule,
+        "min_area": between(0.0, 2.0, "m·rad"),
+        "min_angle_max_gz": between(0.0, 90.0, "°"), "min_range": between(0.0, 90.0, "°"),
+        "max_static_heel": between(0.0, 90.0, "°"), "max_wind_heel": between(0.0, 90.0, "°"),
+    }
+    out, ok = [], True
+    for t in root.tables("extra_criterion"):
+        kind = t.text("kind", choices=m.EXTRA_KINDS)
+        source = t.text("source")
+        limit = t.num("limit", rules[kind]) if kind is not None else t.num("limit")
+        kw: dict[str, float] = {}
+        if kind == "min_area":
+            lo = t.num("from_deg", heel_range)
+            hi = t.num("to_deg", heel_range)
+            if lo is not None and hi is not None and not lo < hi:
+                t.bad("to_deg", t.data["to_deg"], f"must be above from_deg ({num(lo)}°)")
+                hi = None
+            kw = {"from_deg": lo, "to_deg": hi}
+        elif kind == "min_gz_at":
+            kw = {"at_deg": t.num("at_deg", heel_range)}
+        t.finish()
+        if kind is None or source is None or limit is None or any(v is None for v in kw.values()):
+            ok = False
+            continue
+        out.append(m.ExtraCriterion(kind=kind, limit=limit, source=source, **kw))
+    return tuple(out) if ok else None
+
+
+def _read_windage(root: Table, particulars: m.Particulars | None) -> m.Windage | None:
+    """``[windage]``: lateral area above the waterline, its centre's height above the waterline and
+    the waterline length, against mean draft (booklet style, or made by ``deckload tables``)."""
+    t = root.table("windage", required=False)
+    if t is None:
+        return None
+    lbp = particulars.lbp_m if particulars is not None else None
+    depth = particulars.depth_m if particulars is not None else None
+    area_rules: tuple = (positive,)
+    height_rules: tuple = (positive,)
+    lwl_rules: tuple = (positive,)
+    if lbp is not None and depth is not None:
+        # bounds from the vessel's own size: superstructures rarely stand more than a few depths high
+        area_rules += (at_most(1.5 * lbp * 10.0 * depth, "m² (1.5 × LBP × 10 × depth): not a lateral area"),)
+        height_rules += (at_most(10.0 * depth, "m (10 × depth)"),)
+        lwl_rules += (at_most(1.5 * lbp, "m (1.5 × LBP)"),)
+    cols = {
+        "draft_m": t.increasing("draft_m", t.array("draft_m", positive)),
+        "lateral_area_m2": t.array("lateral_area_m2", *area_rules),
+        "centroid_above_wl_m": t.array("centroid_above_wl_m", *height_rules),
+        "waterline_length_m": t.array("waterline_length_m", *lwl_rules),
+    }
+    t.finish()
+    if not t.same_length("draft_m", cols):
+        return None
+    if depth is not None and cols["draft_m"][-1] > depth:
+        t.bad("draft_m", t.data["draft_m"], f"goes beyond the depth {num(depth)} m")
+        return None
+    return m.Windage(**{k: m.frozen_array(v) for k, v in cols.items()})
+
+
+def _read_deck_edge(root: Table) -> m.LimitCurve | None:
+    """``[deck_edge]``: deck-edge immersion angle against displacement (made by ``deckload tables``)."""
+    t = root.table("deck_edge", required=False)
+    if t is None:
+        return None
+    disp = t.increasing("displacement_t", t.array("displacement_t", positive))
+    ang = t.array("angle_deg", between(0.0, 90.0, "°"))
+    t.finish()
+    if not t.same_length("displacement_t", {"displacement_t": disp, "angle_deg": ang}):
+        return None
+    return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(ang), kind="deck_edge_deg")
+
+
+def _read_passengers(root: Table, particulars: m.Particulars | None,
+                     criteria: m.CriteriaSettings | None) -> m.PassengerData | None:
+    """``[passengers]``: the inputs of IS 2008 Part A 3.1 (passenger ships only)."""
+    t = root.table("passengers", required=False)
+    if t is None:
+        return None
+    half_b = particulars.breadth_m / 2.0 if particulars is not None else 100.0
+    count = t.num("count", between(1.0, 10000.0))
+    mass = t.num("mass_per_person_t", between(0.060, 0.150, "t", "75 kg each, not below 60 kg: A.749 3.5.2.6"))
+    area = t.num("standing_area_m2", positive)
+    tcg = t.num("standing_tcg_m", between(0.0, half_b, "m", "from the centreline, at most half the breadth"))
+    speed = t.num("service_speed_kn", between(0.0, 60.0, "kn"))
+    t.finish()
+    if count is not None and count != int(count):
+        t.bad("count", t.data["count"], "must be a whole number of passengers")
+        count = None
+    if criteria is not None and criteria.ship_type != "passenger":
+        t.bad("count", t.data.get("count", MISSING), f"[passengers] is for ship_type = \"passenger\" "
+              f"(the profile says {criteria.ship_type!r})")
+        return None
+    if None in (count, mass, area, tcg, speed):
+        return None
+    return m.PassengerData(int(count), mass, area, tcg, speed)
 
 
 def _read_load_lines(root: Table, hydro: m.HydrostaticTable | None) -> list[m.LoadLine]:
