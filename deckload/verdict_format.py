@@ -93,13 +93,20 @@ def set_title(title: str) -> str:
     return title.removeprefix(_IS2008).removeprefix("Part ")
 
 
-def paragraph(c: CriterionResult) -> str:
-    """The criterion's paragraph, short: 'IS Code 2008 Part A 2.2.1' → 'A 2.2.1'; other sources as given."""
+def paragraph(c: CriterionResult, short: bool = False) -> str:
+    """The criterion's paragraph: 'IS Code 2008 Part A 2.2.1' → 'A 2.2.1'; other sources as given.
+    ``short`` also leaves out a trailing parenthesis ('A 2.3.1.4 (A.749 …)' → 'A 2.3.1.4')."""
     src = c.source
     if src.startswith(_IS2008):
         src = src[len(_IS2008):]
         src = src.removeprefix("Part ")
-    return src
+    return src.split(" (")[0] if short else src
+
+
+def short_item(item: str) -> str:
+    """A not-assessed item without its parenthesis, for narrow places: 'icing allowance (IS … B 6)' →
+    'icing allowance' (the full item and its reason are on the verdict page)."""
+    return item.split(" (")[0]
 
 
 def failed(result: Result) -> list[CriterionResult]:

@@ -70,7 +70,7 @@ def with_verdict(r: Result, *, weather_fails: bool = False, unassessable: bool =
         crit.append(c)
     w = weather_for(r, area_b_mrad=0.0030 if weather_fails else 0.0315)
     crit.append(CriterionResult(
-        "IS2008-A2.3-weather-area-b", "Weather: area b at least area a", w.area_b_mrad, w.area_a_mrad, "m·rad",
+        "IS2008-A2.3-area-b-a", "Weather: area b at least area a", w.area_b_mrad, w.area_a_mrad, "m·rad",
         ">=", not weather_fails, "IS Code 2008 Part A 2.3.1.2", set_id=A23.id))
     crit.append(CriterionResult(
         "IS2008-A2.3-theta0", "Weather: heel under steady wind θ0", w.theta0_deg, w.theta0_limit_deg, "deg",

@@ -102,9 +102,8 @@ class LoadingScreen(Screen[None]):
         if self.has_class("-narrow") or side.size.height == 0:
             want = "1fr"
         else:
-            lines = verdict.criteria_lines(r, stale, max(1, side.size.width))
-            room = side.size.height - self.query_one("#afloat").outer_size.height - MIN_CURVE_ROWS
-            want = str(max(4, min(len(lines), room)))
+            room = max(4, side.size.height - self.query_one("#afloat").outer_size.height - MIN_CURVE_ROWS)
+            want = str(len(verdict.criteria_lines(r, stale, max(1, side.size.width), room)))
         if str(panel.styles.height) != want and not (want == "1fr" and str(panel.styles.height) == "1fr"):
             panel.styles.height = want
 

@@ -35,7 +35,7 @@ def _criterion_line(c: CriterionResult, stale: bool, compact: bool) -> Text:
         line.append(f"{vf.NOT_ASSESSABLE:>14} " if compact else f"{'n/a':>7} {limit}", P["caution"])
         if not compact:
             line.append(f"{'':>8}{'n/a':<4}", P["caution"])
-            line.append(f" {vf.paragraph(c)}", P["dim"])
+            line.append(f" {vf.paragraph(c, short=True)}", P["dim"])
         return line
     line.append(f"{c.value:7.{d}f} {limit}", vs)
     if not compact:
@@ -43,7 +43,7 @@ def _criterion_line(c: CriterionResult, stale: bool, compact: bool) -> Text:
     word, style = verdict(c)
     line.append(f"{word:<4}", P["stale"] if stale else P[style])
     if not compact:
-        line.append(f" {vf.paragraph(c)}", P["dim"])
+        line.append(f" {vf.paragraph(c, short=True)}", P["dim"])
     return line
 
 
@@ -96,7 +96,7 @@ def criteria_lines(result: Result | None, stale: bool, width: int, height: int =
             rows.append((c, _criterion_line(c, stale, compact), notes))
         groups.append((h, rows))
 
-    na_items = [n.item for n in result.not_assessed]
+    na_items = [vf.short_item(n.item) for n in result.not_assessed]
     na_full = [Text(x, P["caution"]) for x in _wrap_words(
         na_items, " Not assessed:", width, last=f"({VERDICT_KEY}: why)")] if na_items else []
     na_short = [Text(f" Not assessed: {len(na_items)} items ({VERDICT_KEY})", P["caution"])] if na_items else []

@@ -229,9 +229,7 @@ SHORT_NAMES = {
     "gz-30": "GZ at ≥30°",
     "angle-max-gz": "∠ of GZ max",
     "gm0": "GM0 fluid",
-    "weather-area-b": "Wind b ≥ a",
-    "weather-b-a": "Wind b ≥ a",
-    "weather-theta0": "Wind heel θ0",
+    "area-b-a": "Wind b ≥ a",
     "theta0": "Wind heel θ0",
 }
 
