@@ -234,12 +234,12 @@ def _criteria(result: Result) -> Table:
               title=f"Intact stability criteria by set (GZ heeling to {result.criteria_side}; paragraphs of "
                     f"IS Code 2008 unless named)")
     t.add_column("Criterion", no_wrap=True)
-    t.add_column("Value", justify="right")
-    t.add_column("Limit", justify="right")
-    t.add_column("Margin", justify="right")
-    t.add_column("Unit")
+    t.add_column("Value", justify="right", no_wrap=True)
+    t.add_column("Limit", justify="right", no_wrap=True)
+    t.add_column("Margin", justify="right", no_wrap=True)
+    t.add_column("Unit", no_wrap=True)
     t.add_column("Result", no_wrap=True)
-    t.add_column("Paragraph", no_wrap=True)
+    t.add_column("Paragraph")
     for g in vf.grouped(result):
         head = Text(f"{vf.set_title(g.set.title)}: ", style="bold")
         head.append(g.word, style="bold red" if g.word == "NOT MET" else "bold")
@@ -279,7 +279,7 @@ def _weather(result: Result) -> Table | None:
         ("Gust lever lw2 = 1.5·lw1", f"{w.lw2_m:.4f} m"),
         ("θ0 (limit)", f"{w.theta0_deg:.1f}° (≤ {w.theta0_limit_deg:.1f}°)"),
         ("Roll θ1 = 109·k·X1·X2·√(r·s)", f"{w.theta1_deg:.1f}°"),
-        ("k, X1, X2, r, s", f"{w.k:.2f}, {w.x1:.3f}, {w.x2:.3f}, {w.r:.3f}, {w.s:.4f}"),
+        ("k, X1, X2, r, s", f"{w.k:.3f}, {w.x1:.3f}, {w.x2:.3f}, {w.r:.3f}, {w.s:.4f}"),
         ("Roll period T", f"{w.roll_period_s:.2f} s"),
         ("θ2 = min(θf, 50°, θc)", f"{w.theta2_deg:.1f}°"
          + ("" if w.theta_c_deg is None else f" (θc {w.theta_c_deg:.1f}°)")),

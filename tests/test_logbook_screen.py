@@ -85,7 +85,7 @@ async def test_log_screen_lists_filters_opens_and_restores(filled):
         assert table.cursor_row == 4  # newest selected
         # the row shows GM fluid and the verdict from the stored summary
         row4 = table.get_row_at(3)
-        assert str(row4[5]) == f"{book.entries()[3].gm_fluid_m:.3f}" and str(row4[6]) == "met (no set)"
+        assert str(row4[5]) == f"{book.entries()[3].gm_fluid_m:.3f}" and str(row4[6]) == "met A2.2"  # the set assessed (the barge has no windage data)
 
         await pilot.press("k")  # condition
         assert rows(screen) == ["1", "4"]

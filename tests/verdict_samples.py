@@ -63,6 +63,8 @@ def with_verdict(r: Result, *, weather_fails: bool = False, unassessable: bool =
     """``r`` with its A 2.2 criteria put in set A 2.2, a weather set added and the not-assessed list."""
     crit = []
     for c in r.criteria:
+        if not c.id.startswith("IS2008-A2.2"):  # the engine's own weather criteria give way to the hand-set ones
+            continue
         c = dataclasses.replace(c, set_id=A22.id)
         if unassessable and c.id.endswith("gz-30"):
             c = dataclasses.replace(c, assessed=False, passed=False, value=float("nan"),

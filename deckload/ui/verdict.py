@@ -74,8 +74,8 @@ def criteria_lines(result: Result | None, stale: bool, width: int, height: int =
     head = Text(" Criteria ", P["title"])
     head.append(shown_word, P["stale"] if stale else P[WORD_STYLE[word]])
     ids = vf.short_set_names(result) if compact else [s.id or s.title for s in result.criteria_sets]
-    rest = _wrap_words(ids or ["no criteria set"], " — sets", width - head.cell_len + 1)
-    if len(rest) > 1 or head.cell_len + len(rest[0]) > width:  # the sets on lines of their own
+    rest = _wrap_words(ids or ["no criteria set"], ":", width - head.cell_len + 1)
+    if len(rest) > 1 or head.cell_len + len(rest[0]) > width:  # the sets on the lines below, named 'sets'
         rest = _wrap_words(ids or ["no criteria set"], "   sets", width)
         heads = [head] + [Text(x, P["value"]) for x in rest]
     else:
