@@ -38,7 +38,7 @@ def _range(a, unit: str) -> str:
 def profile_summary(path: Path, v: m.Vessel) -> list[str]:
     """A few lines saying what the profile holds and over which ranges its tables run."""
     h, k = v.hydrostatics, v.cross_curves
-    rows = [len(t.calibration.sounding_m) for t in v.tanks]
+    rows = [len(t.calibration.sounding_m) for t in v.tanks if t.level_known]
     lines = [
         f"OK  {path}: {v.particulars.name!r}: {_plural(len(v.tanks), 'tank')}, {_plural(len(v.holds), 'hold')}, "
         f"{_plural(len(v.deck_areas), 'deck area')}, {_plural(len(v.load_lines), 'load line')}",
@@ -50,6 +50,14 @@ def profile_summary(path: Path, v: m.Vessel) -> list[str]:
         lines.append(f"    tank calibrations: {min(rows)}–{max(rows)} rows each")
     if v.limit_curve is not None:
         lines.append(f"    limit curve ({v.limit_curve.kind}): displacement {_range(v.limit_curve.displacement_t, 't')}")
+    if float(k.heel_deg[-1]) < 90.0:
+        lines.append(f"    note: the KN tables end at {float(k.heel_deg[-1]):g}°: the GZ curve, its areas and plots stop "
+                     "there; nothing is extrapolated")
+    # How the booklet's conventions were converted, and what was assumed (vessel_profiles/README.md).
+    lines += [f"    converted: {c}" for c in v.conversions]
+    lines += [f"    assumed:   {a}" for a in v.assumptions]
+    if v.constants:
+        lines.append("    constants in every condition: " + ", ".join(f"{c.name} {c.mass_t:g} t" for c in v.constants))
     return lines
 
 

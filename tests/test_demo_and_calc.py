@@ -131,6 +131,7 @@ def test_light_condition_is_governed_by_the_weather_criterion(demo):
     r = evaluate(vessel, conditions["light"])
     assert r.smallest_margin is not None and r.smallest_margin.set_id == "IS2008-A2.3"
     assert r.weather is not None and r.weather.area_b_mrad >= r.weather.area_a_mrad
+    assert r.displacement_t >= vessel.free_surface.min_operating_displacement_t  # a real operating condition
     for name in ("departure", "midvoyage", "arrival"):
         assert evaluate(vessel, conditions[name]).smallest_margin.set_id != "IS2008-A2.3", name
 

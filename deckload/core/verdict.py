@@ -176,13 +176,14 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
             "; standards.md §2.3, from memory)"
     out.append(_crit("IS2008-A2.3-area-b-a", "Weather: area b against area a", f.area_b_mrad, f.area_a_mrad,
                      "m·rad", ">=", srcb, WEATHER_SET, note))
+    if f.theta2_deg is None:
+        return out, None, None, notes  # GZ never reaches lw2: no θ2 to report, the note says why
     if a.has_deck_cargo:
-        notes.append("weather criterion: the windage table is for the vessel alone; the lateral area of deck "
-                     "cargo is not included, so lw1 is understated when deck cargo stands above the bulwark")
+        notes.append("weather criterion: windage of the deck cargo is not included (the table is for the vessel alone)")
     wr = WeatherResult(
         wind_pressure_pa=pressure, windage_area_m2=area, windage_lever_m=z, lw1_m=lw1, lw2_m=f.lw2_m,
         theta0_deg=f.theta0_deg, theta0_limit_deg=theta0_limit, theta1_deg=roll.theta1_deg,
-        theta2_deg=f.theta2_deg if f.theta2_deg is not None else f.theta0_deg,
+        theta2_deg=f.theta2_deg,
         theta_c_deg=f.theta_c_deg, area_a_mrad=f.area_a_mrad, area_b_mrad=f.area_b_mrad,
         roll_period_s=roll.period_s, k=roll.k, x1=roll.x1, x2=roll.x2, r=roll.r, s=roll.s,
         deck_edge_angle_deg=a.deck_edge_deg, theta_r_deg=f.theta_r_deg, windage_centroid_above_wl_m=h_wl,
@@ -337,5 +338,4 @@ def deck_edge_angle(vessel: Vessel, table_displacement_t: float, draft_mid_m: fl
     freeboard = max(p.depth_m - draft_mid_m, 0.0)
     angle = math.degrees(math.atan2(freeboard, p.breadth_m / 2.0))
     why = "the profile has no deck-edge table" if de is None else "the displacement is outside the deck-edge table"
-    return angle, (f"deck-edge immersion angle {angle:.1f}° is approximate ({why}): wall-sided, "
-                   "tan φ = freeboard / half breadth at midships (common practice)")
+    return angle, f"deck-edge angle {angle:.1f}° is approximate: wall-sided at midships, common practice ({why})"
