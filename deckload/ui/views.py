@@ -206,7 +206,7 @@ def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, st
         (("Δ", f"{r.displacement_t:.1f}", "t"), ("DWT", f"{r.deadweight_t:.1f}", "t")),
         (("T aft", f"{r.draft_aft_m:.3f}", "m"), ("T fwd", f"{r.draft_fwd_m:.3f}", "m")),
         (("T mid", f"{r.draft_mean_m:.3f}", "m"), ("Trim", f"{abs(r.trim_m):.3f}", f"m {trim_word}")),
-        (("Fbd", opt(r.freeboard_m, ".3f"), "m"), ("to LL", margin, "m " + ll)),
+        (("Fbd", opt(r.freeboard_m, ".3f"), "m"), ("to LL", margin, "m" if compact else "m " + ll)),
         (("List", f"{abs(r.list_deg):.2f}", f"° {list_word}"), ("∠deck", opt(r.deck_edge_angle_deg, ".1f"), "°")),
         (("KG", f"{r.kg_m:.3f}", "m"), ("θf", opt(r.downflooding_angle_deg, ".1f"), "°")),
         (("KG fl", f"{r.kg_fluid_m:.3f}", "m"), ("FSC", f"{r.fsc_m:.3f}", "m")),
