@@ -605,6 +605,12 @@ def weather_svg(result: Result, width: float = 344.0, height: float = 232.0) -> 
     a(f'<clipPath id="wx-below"><rect x="0" y="{y2:.3f}" width="{width:g}" height="{height - y2:.3f}"/></clipPath>')
     a(f'<polygon class="area-a" points="{poly}" fill="#e8a0a0" fill-opacity="0.6" clip-path="url(#wx-below)"/>')
     a(f'<polygon class="area-b" points="{poly}" fill="#9fc8a8" fill-opacity="0.6" clip-path="url(#wx-above)"/>')
+    # the areas' letters, halfway between lw2 and the curve in the middle of each area
+    split = w.theta_r_deg if getattr(w, "theta_r_deg", None) is not None else w.theta0_deg
+    for name, ang in (("a", (roll_to + split) / 2), ("b", (split + w.theta2_deg) / 2)):
+        mid = (float(np.interp(ang, heel, gz)) + w.lw2_m) / 2
+        a(f'<text class="label-{name}" x="{X(ang):.2f}" y="{fr.y(mid):.2f}" text-anchor="middle" '
+          f'dominant-baseline="middle" font-weight="bold" font-style="italic">{name}</text>')
     for cls, v, label, dash in (("lw1", w.lw1_m, "lw1", ""), ("lw2", w.lw2_m, "lw2", ' stroke-dasharray="4 2"')):
         a(f'<line class="{cls}" data-lever-m="{v:.6g}" x1="{fr.left:.2f}" y1="{fr.y(v):.2f}" '
           f'x2="{fr.left + fr.width:.2f}" y2="{fr.y(v):.2f}" stroke="#a05a00" stroke-width="0.8"{dash}/>')

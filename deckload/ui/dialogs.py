@@ -249,7 +249,7 @@ class TextScreen(ModalScreen[None]):
         for line in self._lines:
             text.append_text(line)
             text.append("\n")
-        with Vertical(classes="form help"):
+        with VerticalScroll(classes="form help"):  # scrolls by keys when longer than the screen
             yield Static(text)
 
     def action_close(self) -> None:

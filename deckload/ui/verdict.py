@@ -149,7 +149,11 @@ def verdict_page(result: Result | None, width: int = 96) -> list[Text]:
         h.append(g.word, P[WORD_STYLE.get(g.word, "caution")])
         out.append(h)
         for c in g.criteria:
-            line = Text(f"  {vf.paragraph(c):<12.12} {c.description:<40.40} ", P["label"])
+            if width >= 90:
+                line = Text(f"  {vf.paragraph(c):<12.12} {c.description:<40.40} ", P["label"])
+            else:  # narrow: the criterion on its own line, the numbers under it
+                out.append(Text(f"  {vf.paragraph(c)}  {c.description}", P["label"]))
+                line = Text("      ")
             if c.assessed:
                 line.append(f"{vf.value_text(c, 8)} {CMP.get(c.comparison, c.comparison)} "
                             f"{c.limit:.{vf.digits_of(c)}f} {c.unit}  margin {vf.margin_text(c)}  ", P["value"])
@@ -160,12 +164,14 @@ def verdict_page(result: Result | None, width: int = 96) -> list[Text]:
                             f"{c.limit:.{vf.digits_of(c)}f} {c.unit})", P["caution"])
             out.append(line)
             if c.note:
-                out.append(Text(f"      {c.note}", P["dim"]))
+                out += [Text(x, P["dim"]) for x in textwrap.wrap(c.note, width, initial_indent="      ",
+                                                                 subsequent_indent="      ")]
     if result.not_assessed:
         out.append(Text(""))
         out.append(Text("Not assessed", P["caution"]))
         for n in result.not_assessed:
-            out.append(Text(f"  {n.item}: {n.reason}", P["label"]))
+            out += [Text(x, P["label"]) for x in textwrap.wrap(f"{n.item}: {n.reason}", width,
+                                                                initial_indent="  ", subsequent_indent="    ")]
     out.append(Text(""))
     out.append(Text("deckload supports, and never replaces, the approved stability booklet, the master's judgement "
                     "and flag-State and class rules.", P["dim"]))
