@@ -159,6 +159,9 @@ class TransferForm(Form):
             yield Static("", id="form-message")
 
     def on_mount(self) -> None:
+        # Room for every criterion of every set assessed (and a problem line), as far as the screen allows.
+        need = len(preview_lines(self._before, None, None)) + 1
+        self.query_one("#xfer-preview").styles.height = max(8, min(need, self.app.size.height - 10))
         first_empty = "from" if not self._from else "to" if not self._to else "amount"
         self.query_one(f"#xfer-{first_empty}", Input).focus()
         self._update()
