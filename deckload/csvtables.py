@@ -57,8 +57,10 @@ def read_csv(t: Table, key: str = "csv") -> CsvTable | None:
     base = Path(t.ctx.file).parent
     path = base / name
     shown = str(path)
+    from deckload.limits import MAX_TABLE_VALUES, MAX_TOML_BYTES, read_limited
+
     try:
-        data = path.read_bytes()
+        data = read_limited(path, MAX_TOML_BYTES, "a CSV table")
     except OSError as e:
         t.bad(key, name, f"cannot read the CSV file {shown}: {e.strerror or e}")
         return None
@@ -74,8 +76,18 @@ def read_csv(t: Table, key: str = "csv") -> CsvTable | None:
     header_line = 1
     reader = csv.reader(io.StringIO(text))
     ok = True
-    for raw in reader:
-        line = reader.line_num
+    read: list[tuple[int, list[str]]] = []
+    try:
+        for raw in reader:
+            read.append((reader.line_num, raw))
+            if len(read) > MAX_TABLE_VALUES:
+                t.ctx.problems.append(_problem(shown, reader.line_num, t.key(key), None,
+                                               f"more than the {MAX_TABLE_VALUES} rows allowed in one table"))
+                return None
+    except csv.Error as e:  # a field over the csv module's size limit, a NUL byte, …
+        t.ctx.problems.append(_problem(shown, reader.line_num, t.key(key), None, f"not a readable CSV table ({e})"))
+        return None
+    for line, raw in read:
         cells = list(raw)
         while cells and not cells[-1].strip():  # trailing empty cells a spreadsheet may add
             cells.pop()
@@ -138,18 +150,22 @@ def _locator(c: CsvTable, j: int | None, matrix_cols: list[int] | None = None):
     return locate
 
 
-def attach_csv(t: Table, columns: tuple[str, ...]) -> None:
+def attach_csv(t: Table, columns: tuple[str, ...]) -> bool:
     """If ``t`` names a CSV file, put its columns into ``t.data`` as arrays.
 
     ``columns`` are the names the table accepts from a CSV (its TOML array keys); a
-    column of another name, or one the TOML also gives, is a problem.
+    column of another name, or one the TOML also gives, is a problem.  False when the file
+    could not be read (reported): the caller then reads nothing more of the table.
     """
     if not t.has("csv"):
         t.get("csv", False)
-        return
+        return True
     c = read_csv(t)
     if c is None:
-        return
+        t.ctx.unread_csv.add(t.raw)  # its problem is reported; its columns' absence would only repeat it
+        for k in t.data:  # and nothing else of this table is judged without its columns
+            t.get(k, False)
+        return False
     for j, h in enumerate(c.header):
         if h not in columns:
             t.ctx.problems.append(_problem(c.file, c.header_line, t.key("csv"), repr(h),
@@ -160,16 +176,20 @@ def attach_csv(t: Table, columns: tuple[str, ...]) -> None:
             continue
         t.data[h] = [row[j] for row in c.rows]
         t.ctx.sources[t.raw + (h,)] = _locator(c, j)
+    return True
 
 
-def attach_kn_csv(t: Table) -> None:
+def attach_kn_csv(t: Table) -> bool:
     """Cross curves from a CSV: ``displacement_t`` and one ``kn_<angle>`` column per heel."""
     if not t.has("csv"):
         t.get("csv", False)
-        return
+        return True
     c = read_csv(t)
     if c is None:
-        return
+        t.ctx.unread_csv.add(t.raw)  # its problem is reported; its columns' absence would only repeat it
+        for k in t.data:  # and nothing else of this table is judged without its columns
+            t.get(k, False)
+        return False
     kn_cols: list[int] = []
     heels: list[float] = []
     for j, h in enumerate(c.header):
@@ -198,6 +218,7 @@ def attach_kn_csv(t: Table) -> None:
                                                        MISSING)
     t.data["kn_m"] = [[row[j] for j in kn_cols] for row in c.rows]
     t.ctx.sources[t.raw + ("kn_m",)] = _locator(c, None, kn_cols)
+    return True
 
 
 # =========================================================================== writing

@@ -36,6 +36,8 @@ import tomli_w
 from deckload.atomicfile import write_atomic
 from deckload.conventions import DATUMS, Frame, read_frame, tcg_array, tcg_num
 from deckload.core import model as m
+from deckload.core.gz import STEP_DEG as GZ_STEP_DEG
+from deckload.core.gz import grid_points
 from deckload.core.loading import reading_range
 from deckload.core.tables import interp
 from deckload.csvtables import attach_csv, attach_kn_csv
@@ -66,8 +68,11 @@ CONDITION_FORMAT = "deckload-condition-1"
 LIQUID_DENSITY_RANGE_T_M3 = (0.5, 2.0)
 """Plausible densities of a tank's contents (t/m³): light oils ~0.8, heavy brines ~1.3."""
 
-WATER_DENSITY_RANGE_T_M3 = (0.99, 1.04)
-"""Plausible densities of the water a vessel floats in (t/m³): fresh 1.000, sea about 1.025."""
+from deckload.core.bounds import (  # noqa: E402  one set of ranges for files and the screen
+    BEAM_DEPTH_RANGE_M,
+    LBP_RANGE_M,
+    WATER_DENSITY_RANGE_T_M3,
+)
 
 CAPACITY_TOLERANCE = 0.0005
 """A tank's capacity_m3 may differ from its last calibration volume by at most 0.05 % (round-off):
@@ -103,7 +108,12 @@ def read_profile(path: str | os.PathLike) -> tuple[m.Vessel, "Reading"]:
 
 
 def _read_text(path: str | os.PathLike) -> str:
-    data = Path(path).read_bytes()
+    from deckload.limits import MAX_TOML_BYTES, TooLargeError, read_limited
+
+    try:
+        data = read_limited(path, MAX_TOML_BYTES, "a profile or condition")
+    except TooLargeError as e:
+        raise ProfileError([Problem(str(path), None, "", None, str(e).split(": ", 1)[1])]) from None
     try:
         return data.decode("utf-8")
     except UnicodeDecodeError as e:
@@ -173,6 +183,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     windage = _read_windage(root, particulars)
     deck_edge = _read_deck_edge(root)
     passengers = _read_passengers(root, particulars, criteria)
+    marks = _read_draft_marks(root, particulars)
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
     depth = particulars.depth_m if particulars is not None else math.inf
@@ -180,10 +191,13 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     holds = _read_holds(root, ids, frame, rd)
     areas = _read_deck_areas(root, ids, frame, rd)
     constants = _read_profile_constants(root, frame, rd)
+    # [[booklet_condition]]: the booklet's worked conditions, read and compared by `deckload check`
+    # (deckload.booklet_conditions) once the vessel exists; not part of the model.
+    root.get("booklet_condition", False)
     root.finish()
     ctx.fail_if_any()
 
-    return m.Vessel(
+    return _physical(ctx).check_vessel(ctx, m.Vessel(
         particulars=particulars,
         lightship=lightship,
         hydrostatics=hydro,
@@ -202,7 +216,8 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
         constants=tuple(constants),
         conversions=tuple(rd.conversions),
         assumptions=tuple(rd.assumptions),
-    )
+        draft_marks=marks,
+    ))
 
 
 def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:
@@ -215,9 +230,10 @@ def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:
     kw = dict(
         name=t.text("name"),
         vessel_type=t.text("vessel_type", required=False, empty_ok=True),
-        lbp_m=t.num("lbp_m", positive),
-        breadth_m=t.num("breadth_m", positive),
-        depth_m=t.num("depth_m", positive),
+        # every other physical bound derives from these three (deckload.core.bounds)
+        lbp_m=t.num("lbp_m", positive, between(*LBP_RANGE_M, "m", "a ship's length between perpendiculars")),
+        breadth_m=t.num("breadth_m", positive, between(*BEAM_DEPTH_RANGE_M, "m", "a ship's moulded breadth")),
+        depth_m=t.num("depth_m", positive, between(*BEAM_DEPTH_RANGE_M, "m", "a ship's moulded depth")),
         design_draft_m=t.num("design_draft_m", positive),
         table_density_t_m3=t.num("table_density_t_m3", water_density),
     )
@@ -313,7 +329,8 @@ def _read_hydrostatics(root: Table, frame: Frame | None, rd: Reading) -> m.Hydro
     t = root.table("hydrostatics")
     if t is None:
         return None
-    attach_csv(t, HYDRO_COLUMNS)
+    if not attach_csv(t, HYDRO_COLUMNS):
+        return None
     f = read_frame(t, frame, drafts=True)
     cols = {
         "draft_m": t.increasing("draft_m", t.array("draft_m", non_negative)),
@@ -355,7 +372,8 @@ def _read_cross_curves(root: Table) -> m.CrossCurves | None:
     t = root.table("cross_curves")
     if t is None:
         return None
-    attach_kn_csv(t)
+    if not attach_kn_csv(t):
+        return None
     basis = t.text("trim_basis", choices=("free trim", "even keel"))
     heel = t.increasing("heel_deg", t.array("heel_deg", heel_range))
     heel = t.starts_at("heel_deg", heel, 0.0, "the upright condition")
@@ -365,11 +383,14 @@ def _read_cross_curves(root: Table) -> m.CrossCurves | None:
         heel = None
     disp = t.increasing("displacement_t", t.array("displacement_t", positive))
     kn = t.matrix("kn_m", "displacement_t", t.raw_len("displacement_t"), "heel_deg", t.raw_len("heel_deg"))
+    has_ref = t.has("reference_lcg_m")
+    ref = t.num("reference_lcg_m", required=False)
     t.finish()
-    if basis is None or heel is None or disp is None or kn is None:
+    if basis is None or heel is None or disp is None or kn is None or (has_ref and ref is None):
         return None
     return m.CrossCurves(
-        heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis
+        heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis,
+        reference_lcg_m=ref,
     )
 
 
@@ -379,7 +400,8 @@ def _check_kn_reach(root: Table, cross: m.CrossCurves | None, flood: m.LimitCurv
         return
     end = float(cross.heel_deg[-1])
     top = float(np.max(flood.value))
-    if top > end + 1e-9:
+    grid_end = (grid_points(cross) - 1) * GZ_STEP_DEG  # the curve is worked on a 0.1° grid up to the end
+    if top > grid_end + 1e-9:
         t = root.table("cross_curves")
         t.bad("heel_deg", t.data["heel_deg"], f"ends at {num(end)}°, before the downflooding angle {num(top)}° "
               "in [downflooding]: the criteria look up to θf, and nothing is extrapolated")
@@ -649,7 +671,8 @@ def _read_limit_curve(root: Table, hydro, frame: Frame | None, rd: Reading) -> m
     t = root.table("limit_curve", required=False)
     if t is None:
         return None
-    attach_csv(t, ("displacement_t", "draft_m", "max_kg_m", "min_gm_m"))
+    if not attach_csv(t, ("displacement_t", "draft_m", "max_kg_m", "min_gm_m")):
+        return None
     f = read_frame(t, frame, drafts=True)
     disp, against = _abscissa(t, hydro, f, rd, "limit_curve")
     kinds = [k for k in ("max_kg_m", "min_gm_m") if t.has(k)]
@@ -690,7 +713,8 @@ def _read_downflooding(root: Table, hydro, frame: Frame | None, rd: Reading) -> 
         d = hydro.displacement_t
         return m.LimitCurve(displacement_t=m.frozen_array([d[0], d[-1]]), value=m.frozen_array([ang, ang]),
                             kind="downflooding_deg")
-    attach_csv(t, ("displacement_t", "draft_m", "angle_deg"))
+    if not attach_csv(t, ("displacement_t", "draft_m", "angle_deg")):
+        return None
     f = read_frame(t, frame, drafts=True)
     disp, against = _abscissa(t, hydro, f, rd, "downflooding")
     ang = t.array("angle_deg", angle_rule)
@@ -699,6 +723,50 @@ def _read_downflooding(root: Table, hydro, frame: Frame | None, rd: Reading) -> 
         return None
     rd.tables["downflooding"] = TableReading(f, csv=t.data.get("csv"), against=against)
     return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(ang), kind="downflooding_deg")
+
+
+def _read_draft_marks(root: Table, particulars: m.Particulars | None) -> m.DraftMarks | None:
+    """``[draft_marks]``: aft, midships, forward marks (x_m, y_m) and the keel thickness.
+
+    Bounds from the vessel: marks within 20 % of LBP beyond either perpendicular, no further
+    off the centreline than half the breadth, aft < midships < forward with the aft and
+    forward marks at least half the LBP apart (the trim is found from their difference);
+    keel thickness under a tenth of the depth.
+    """
+    t = root.table("draft_marks", required=False)
+    if t is None:
+        return None
+    lbp = particulars.lbp_m if particulars is not None else None
+    half_b = particulars.breadth_m / 2.0 if particulars is not None else None
+    x_rule = (between(-0.2 * lbp, 1.2 * lbp, "m", "within 20 % of LBP of the perpendiculars")
+              if lbp is not None else None)
+    y_rule = between(0.0, half_b, "m", "between the centreline and the side") if half_b is not None else non_negative
+    k_rule = (between(0.0, 0.1 * particulars.depth_m, "m", "a keel plate, under a tenth of the depth")
+              if particulars is not None else non_negative)
+    keel = t.num("keel_thickness_m", k_rule, required=False, default=0.0)
+    bad_keel = t.has("keel_thickness_m") and keel is None
+    found: dict[str, m.DraftMark | None] = {}
+    for where in ("aft", "midships", "forward"):
+        sub = t.table(where)
+        if sub is None:
+            found[where] = None
+            continue
+        x = sub.num("x_m", *((x_rule,) if x_rule else ()))
+        y = sub.num("y_m", y_rule)
+        sub.finish()
+        found[where] = None if x is None or y is None else m.DraftMark(x, y)
+    t.finish()
+    if bad_keel or any(v is None for v in found.values()) or lbp is None:
+        return None
+    a, mid, f = found["aft"], found["midships"], found["forward"]
+    if not a.x_m < mid.x_m < f.x_m:
+        t.bad("midships", t.data["midships"], "the marks must lie aft < midships < forward (x_m from AP)")
+        return None
+    if f.x_m - a.x_m < 0.5 * lbp:
+        t.bad("forward", t.data["forward"], f"only {num(f.x_m - a.x_m)} m forward of the aft marks: they must be at "
+              f"least half the LBP ({num(0.5 * lbp)} m) apart to give the trim")
+        return None
+    return m.DraftMarks(a, mid, f, keel)
 
 
 def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,
@@ -840,7 +908,8 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
     the bottom gets a row 'level 0, volume 0' with the first row's centres (conservative).
     """
     where = t.name
-    attach_csv(t, CAL_COLUMNS)
+    if not attach_csv(t, CAL_COLUMNS):
+        return None
     f = read_frame(t, tank_frame, sides=True)
     tr = TableReading(f or Frame(1.0), csv=t.data.get("csv"))
     levels_given = [k for k in ("sounding_m", "ullage_m") if t.has(k)]
@@ -1013,7 +1082,7 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
     out, ok = [], True
     for t in root.tables("hold"):
         ident = claim_id(t, "hold", ids)
-        attach_csv(t, HOLD_FILL_COLUMNS)
+        fill_read = attach_csv(t, HOLD_FILL_COLUMNS)
         f = read_frame(t, frame, sides=True)
         tcg, marked = tcg_num(t, "tcg_m", f)
         kw: dict[str, Any] = dict(
@@ -1050,7 +1119,7 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
                 cols["fill_pct"] = fill
                 fill_ok = t.same_length("fill_pct", cols)
         t.finish()
-        if (not fill_ok or f is None or any(v is None for k, v in kw.items() if k != "max_mass_t")
+        if (not fill_ok or not fill_read or f is None or any(v is None for k, v in kw.items() if k != "max_mass_t")
                 or (has_max and kw["max_mass_t"] is None)):
             ok = False
             continue
@@ -1132,7 +1201,8 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
             consts.append(item)
     root.finish()
     ctx.fail_if_any()
-    return m.Condition(tanks=tuple(fills), holds=tuple(loads), deck_items=tuple(items), constants=tuple(consts), **head)
+    cond = m.Condition(tanks=tuple(fills), holds=tuple(loads), deck_items=tuple(items), constants=tuple(consts), **head)
+    return _physical(ctx).check_condition(ctx, vessel, cond)
 
 
 def _keyed_tables(root: Table, group: str, known: dict[str, int], what: str) -> list[tuple[str, Table]]:
@@ -1235,6 +1305,13 @@ def _read_deck_items(root: Table, vessel: m.Vessel) -> list[m.DeckItem]:
             continue
         out.append(m.DeckItem(area_id=area, footprint_m2=fp, **vars(base)))
     return out
+
+
+def _physical(ctx: FileCheck):
+    """Physical bounds and completeness, checked once the model is built (deckload.physcheck)."""
+    from deckload import physcheck
+
+    return physcheck
 
 
 # =========================================================================== writing

@@ -123,6 +123,8 @@ class LoadingScreen(Screen[None]):
         return t
 
     def _report(self, problem: str) -> None:
+        # A save or log failure replaces the message line, which must never still read as done.
+        self.say(problem, ok=False)
         self.notify(problem, severity="error", timeout=8, markup=False)
 
     def say(self, message: str, ok: bool | None = True) -> None:
@@ -143,7 +145,7 @@ class LoadingScreen(Screen[None]):
         self.refresh_view()
         self.say(label + self._gm_change(gm_before))
         for p in problems:
-            self.notify(p, severity="error", timeout=8, markup=False)
+            self._report(p)
 
     def _gm_change(self, before: float | None) -> str:
         s = self.session
@@ -179,6 +181,8 @@ class LoadingScreen(Screen[None]):
             self._edit_hold(ident)
         elif what in ("deck", "const"):
             self._edit_item(what == "deck", ident)
+        elif what == "fixed":
+            self.say("A fixed constant of the vessel profile: to change it for this condition, add a constant (c) of the same name.", ok=False)
 
     def _edit_tank(self, tank_id: str) -> None:
         s = self.session
@@ -203,7 +207,7 @@ class LoadingScreen(Screen[None]):
         limit = f"; structural limit {hold.max_mass_t:g} t" if hold.max_mass_t is not None else ""
 
         def build(text: str) -> tuple[Condition, str]:
-            return entry.hold_from_text(s.condition, hold, text), text.strip()
+            return entry.hold_from_text(s.condition, hold, text, s.vessel), text.strip()
 
         def done(r) -> None:
             if r:
@@ -244,7 +248,7 @@ class LoadingScreen(Screen[None]):
             hold = s.vessel.hold(ident)
             load = next((h for h in s.condition.holds if h.hold_id == ident), None)
             self._try(lambda: entry.hold_from_text(
-                s.condition, hold, f"{entry.nudge_mass(load.mass_t if load else 0.0, step, hold.id)}"),
+                s.condition, hold, f"{entry.nudge_mass(load.mass_t if load else 0.0, step, hold.id)}", s.vessel),
                 f"{hold.id} {step:+d} t", "cargo", {"hold": hold.id, "nudge_t": step})
         elif what in ("deck", "const"):
             deck = what == "deck"
@@ -346,7 +350,7 @@ class LoadingScreen(Screen[None]):
         self.refresh_view()
         self.say(label)
         for p in problems:
-            self.notify(p, severity="error", timeout=8, markup=False)
+            self._report(p)
 
     def action_toggle_gz(self) -> None:
         self.toggle_class("-gz")
@@ -432,6 +436,8 @@ class LoadingScreen(Screen[None]):
             self.say(f"{ident} {self.session.vessel.hold(ident).name} · ⏎ cargo mass · + − 1 t · e empty", ok=None)
         elif what in ("deck", "const"):
             self.say("⏎ edit mass and position · + − 1 t · e remove · a add deck load · c add constant", ok=None)
+        elif what == "fixed":
+            self.say("A fixed constant of the vessel profile: to change it for this condition, add a constant (c) of the same name.", ok=None)
 
 
 def alert_lines(alerts: list[views.Alert], height: int) -> list[Text]:
