@@ -21,6 +21,9 @@ def _parser() -> argparse.ArgumentParser:
             "approved stability booklet, the master's judgement and flag-state/class rules."
         ),
     )
+    from deckload import __version__
+
+    p.add_argument("--version", action="version", version=f"deckload {__version__}")
     sub = p.add_subparsers(dest="command")
 
     o = sub.add_parser("open", help="open the loading screen on a vessel (default: the demo vessel)")
@@ -110,6 +113,29 @@ def _demo_shorthand(args: argparse.Namespace) -> None:
             args.condition = DEMO_CONDITIONS[str(cond)]
 
 
+def _named_condition(args: argparse.Namespace) -> str | None:
+    """Let a condition be named as the officer knows it: ``working`` (the loading screen's), a
+    stock condition's key or name, or a name saved on the screen (deckload.condition_files).
+    Returns what to print when the name matches nothing (the message lists what exists)."""
+    cond = getattr(args, "condition", None)
+    profile = getattr(args, "profile", None)
+    if cond is None or profile is None or Path(cond).is_file() or not Path(profile).is_file():
+        return None
+    from deckload import paths
+    from deckload.condition_files import ConditionNotFound, resolve
+    from deckload.profiles import ProfileError, load_profile
+
+    try:
+        vessel = load_profile(profile)
+    except (ProfileError, OSError):
+        return None  # the command itself reports the profile's problem
+    try:
+        args.condition = resolve(Path(profile), str(cond), vessel.particulars.name, paths.working_dir())
+    except ConditionNotFound as exc:
+        return f"deckload: {exc}"
+    return None
+
+
 def main(argv: list[str] | None = None) -> int:
     """Run one command.  Its error boundary: whatever escapes becomes one paragraph and exit 3
     (deckload.boundary); control characters never reach the terminal (deckload.textsafe)."""
@@ -141,6 +167,11 @@ def _main(argv: list[str] | None) -> int:
     args = _parser().parse_args(argv)
     _demo_shorthand(args)
     cmd = args.command or "open"
+    if cmd in ("open", "calc", "report", "marks", "check") or getattr(args, "log_command", None) == "record":
+        missing = _named_condition(args)
+        if missing:
+            print(missing, file=sys.stderr)
+            return 2
     try:
         if cmd == "open":
             from deckload.ui.launch import run_open

@@ -863,6 +863,11 @@ class Logbook:
         return verify_lines(lines, tail, head, self.vessel_name, writer_active=self.writer_active() and
                             self._lock_fd is None)
 
+    @property
+    def newest(self) -> tuple[int, str] | None:
+        """The newest entry's number and SHA-256 as this writer knows them (None: no entry yet)."""
+        return (self._last_seq, self._last_sha) if self._last_seq > 0 else None
+
     def close(self) -> None:
         """Close the log and release the writer's lock."""
         if self._fd is not None:

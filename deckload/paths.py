@@ -73,3 +73,15 @@ def legacy_working_file(work_dir: Path, vessel_name: str) -> Path:
 
     slug = re.sub(r"[^a-z0-9]+", "-", vessel_name.lower()).strip("-") or "vessel"
     return work_dir / f"{slug}.condition.toml"
+
+
+def saved_conditions_dir(work_dir: Path, vessel_name: str) -> Path:
+    """Conditions an officer saved under a name of their own: one folder per vessel, beside the
+    vessel's working file (``<slug>-<hash>.conditions/``), one ``<name>.condition.toml`` each."""
+    w = working_file(work_dir, vessel_name)
+    return w.with_name(w.name.removesuffix(".condition.toml") + ".conditions")
+
+
+def reports_dir(log_folder: Path) -> Path:
+    """Reports printed from the loading screen: ``reports/`` beside the logs."""
+    return log_folder / "reports"

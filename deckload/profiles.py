@@ -1188,6 +1188,7 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
         head["load_line"] = c.text("load_line", required=False, default=default_mark, choices=marks or None)
         head["fs_rule"] = c.text("fs_rule", required=False, default=None, choices=("is2008", "actual"))
         head["gz_correction"] = c.text("gz_correction", required=False, default=None, choices=("constant", "transfer"))
+        head["modified_from"] = c.text("modified_from", required=False, default="", empty_ok=True)
         c.finish()
 
     fills = _read_fills(root, vessel)
@@ -1348,6 +1349,8 @@ def condition_dict(c: m.Condition) -> dict:
         head["fs_rule"] = c.fs_rule
     if c.gz_correction is not None:
         head["gz_correction"] = c.gz_correction
+    if c.modified_from:
+        head["modified_from"] = c.modified_from
     doc: dict[str, Any] = {"format": CONDITION_FORMAT, "condition": head}
     if c.tanks:
         doc["tanks"] = {}

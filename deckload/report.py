@@ -107,6 +107,8 @@ def _header(result: Result, vessel: Vessel, condition: Condition, stamp: str | N
     if condition.remark:
         t.append(f" — {condition.remark}")
     t.append("\n")
+    if condition.modified_from:
+        t.append(f"Modified from: {condition.modified_from} (edited on the loading screen, not saved under a name)\n")
     dims = (
         f"LBP {p.lbp_m:.2f} m, breadth {p.breadth_m:.2f} m, depth {p.depth_m:.2f} m, "
         f"design draft {p.design_draft_m:.3f} m"

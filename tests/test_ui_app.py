@@ -234,7 +234,8 @@ async def test_enter_on_the_shown_value_changes_nothing(app):
     from deckload.core.model import TankFill
 
     async with app.run_test(size=(120, 40)) as pilot:
-        c0 = app.session.condition.with_tank(TankFill("DB1P", "volume_m3", 5.0 / RHO_SW))
+        c0 = app.session.condition.with_tank(TankFill("DB1P", "volume_m3", 5.0 / RHO_SW)).replace(
+            modified_from="Pilot")
         app.loading_screen.commit(c0, "setup")
         await pilot.pause()
         depth = app.session.undo_depth

@@ -24,7 +24,7 @@ def c_with(*fills):
 def test_undo_and_redo_walk_back_and_forth_through_whole_conditions(vessel, tmp_path):
     c0 = c_with(TankFill("DB1P", "percent", 50.0))
     s = Session(vessel, c0, save_path=tmp_path / "w.condition.toml")
-    c1 = c0.with_tank(TankFill("DB1S", "percent", 20.0))
+    c1 = c0.with_tank(TankFill("DB1S", "percent", 20.0)).replace(modified_from="Test")  # an edit is marked
     c2 = c1.with_density(1.0)
     s.commit(c1, "DB1S 20%")
     s.commit(c2, "density")
@@ -44,7 +44,7 @@ def test_undo_and_redo_walk_back_and_forth_through_whole_conditions(vessel, tmp_
 def test_each_change_is_saved_and_reads_back(vessel, tmp_path):
     path = tmp_path / "work" / "barge.condition.toml"
     s = Session(vessel, c_with(), save_path=path, save=save_condition)
-    c1 = c_with(TankFill("DB1P", "sounding_m", 0.4))
+    c1 = c_with(TankFill("DB1P", "sounding_m", 0.4)).replace(modified_from="Test")
     s.commit(c1, "DB1P 0.4m")
     assert load_condition(path, vessel) == c1
     s.undo()

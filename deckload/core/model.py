@@ -541,6 +541,9 @@ class Condition:
     """GZ correction method for this condition; the profile's default when None."""
     load_line: str = "summer"
     """Which load-line mark governs the draft check."""
+    modified_from: str = ""
+    """Name of the condition this one was edited from, until it is saved under a name of its
+    own (empty: the condition as opened or saved)."""
 
     def tank_fill(self, tank_id: str) -> TankFill | None:
         for f in self.tanks:

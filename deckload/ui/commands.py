@@ -73,6 +73,12 @@ COMMANDS: tuple[Command, ...] = (
             "to the voyage log under them.", title="Sign on"),
     Command("record", "s", "Record", "Record the working condition in the voyage log, with your initials and a remark."),
     Command("show_log", "l", "Log", "Open the voyage log."),
+    Command("print_report", "p", "Print", "Print from the screen: write the report (HTML to print, and text) of "
+            "exactly the condition on screen, say where, and offer to open it.", title="Print report"),
+    Command("save_as", "n", "Name", "Name the working condition and save it as a condition file of its own "
+            "(stock conditions are never overwritten).", title="Name and save condition"),
+    Command("open_condition", "ctrl+o", "Open", "Open a stock or saved condition as the working one (undoable).",
+            display="^o", footer=False, title="Open condition"),
     Command("help", "question_mark,f1", "Help", "This list of keys and what each does.", display="?"),
     Command("quit", "q", "Quit", "Leave deckload; the working condition is already saved."),
 )

@@ -128,7 +128,7 @@ def _free_name(path: Path, suffix: str) -> Path:
 
 def create_app(
     vessel: Vessel, condition: Condition, *, work_dir: Path | None, log_dir: Path | None,
-    notices=(), officer: str = "",
+    notices=(), officer: str = "", profile_path: Path | None = None,
 ):
     """The app over a finished vessel and condition; saves to ``work_dir``, logs to ``log_dir``.
 
@@ -147,6 +147,11 @@ def create_app(
         save_path = None
         extra.append("This window does not save the working condition: another deckload has this vessel open.")
     session = Session(vessel, condition, save_path=save_path, journal=journal)
+    from deckload import paths
+
+    session.profile_path = profile_path
+    session.work_dir = work_dir
+    session.reports_dir = paths.reports_dir(log_dir) if log_dir is not None else None
     return DeckloadApp(session, notices=[*notices, *extra])
 
 
@@ -176,10 +181,16 @@ def run_open(profile_path: Path | None, condition_path: Path | None) -> int:
     work_dir = paths.working_dir()
     try:
         vessel, condition, notices = load_inputs(profile_path, condition_path, work_dir)
-    except (ProfileError, OSError) as exc:
+    except ProfileError as exc:
         print(f"deckload: {exc}", file=sys.stderr)
         return 2
-    app = create_app(vessel, condition, work_dir=work_dir, log_dir=paths.log_dir(), notices=notices)
+    except OSError as exc:
+        what = "profile" if profile_path is not None and str(exc.filename) == str(profile_path) else "file"
+        hint = " (give a profile file's path, or demo for the demo vessel)" if what == "profile" else ""
+        print(f"deckload: cannot read the {what} {exc.filename or ''}: {exc.strerror or exc}{hint}", file=sys.stderr)
+        return 2
+    app = create_app(vessel, condition, work_dir=work_dir, log_dir=paths.log_dir(), notices=notices,
+                     profile_path=profile_path or paths.DEMO_PROFILE)
     app.run()
     if getattr(app, "_exception", None) is not None:
         # The screen stopped on an error nobody foresaw: the boundary's message and crash file.

@@ -112,7 +112,10 @@ class LoadingScreen(Screen[None]):
         s, j = self.session, self.session.journal
         wide = width >= NARROW_BELOW
         t = Text(" deckload │ " if wide else " ", P["title"])
-        t.append(f"{s.vessel.particulars.name} │ {s.condition.name} │ ", P["value"])
+        t.append(f"{s.vessel.particulars.name} │ {s.condition.name}", P["value"])
+        if s.condition.modified_from:
+            t.append(f" (modified from {s.condition.modified_from})" if wide else " (modified)", P["caution"])
+        t.append(" │ ", P["value"])
         if j.writable and j.officer:
             t.append(f"watch {j.officer}, logged" if wide else f"{j.officer} logged", P["dim"])
         elif j.writable:
@@ -134,11 +137,12 @@ class LoadingScreen(Screen[None]):
 
     # ------------------------------------------------------------------ changes
 
-    def commit(self, condition: Condition, label: str, kind: str = "edit", data: dict | None = None) -> None:
+    def commit(self, condition: Condition, label: str, kind: str = "edit", data: dict | None = None,
+               *, mark: bool = True) -> None:
         s = self.session
         gm_before = s.result.gm_fluid_m if s.result is not None and not s.stale else None
         try:
-            problems = s.commit(condition, label, kind, data)
+            problems = s.commit(condition, label, kind, data, mark=mark and kind != "restore")
         except EntryError as exc:
             self.say(str(exc), ok=False)
             return
@@ -409,6 +413,66 @@ class LoadingScreen(Screen[None]):
                 self.say(f"{by} on watch: changes are logged under these initials.")
 
         self.app.push_screen(PromptForm("Officer of the watch", "Your initials (1–4 letters)", j.officer, build), done)
+
+    def action_save_as(self) -> None:
+        from deckload.ui.conditions import SaveAsForm, save_target
+
+        folder, stock_titles = save_target(self.session)
+        if folder is None:
+            self.say("No working-conditions folder: this window cannot save conditions.", ok=False)
+            return
+        c = self.session.condition
+        initial = "" if c.modified_from else c.name
+
+        def done(answer) -> None:
+            if not answer:
+                return
+            name, path = answer
+            try:
+                problems = self.session.save_as(name, path)
+            except (OSError, EntryError) as exc:
+                self.say(f"NOT SAVED: {path}: {getattr(exc, 'strerror', None) or exc}", ok=False)
+                return
+            self.refresh_view()
+            self.say(f"Saved as “{name}” in {path}")
+            for p in problems:
+                self._report(p)
+
+        self.app.push_screen(SaveAsForm(initial, folder, stock_titles), done)
+
+    def action_open_condition(self) -> None:
+        from deckload.ui.conditions import OpenConditionScreen, known_conditions
+
+        found = known_conditions(self.session)
+        if not found:
+            self.say("No stock or saved conditions of this vessel to open.", ok=False)
+            return
+
+        def done(named) -> None:
+            if named is None:
+                return
+            from deckload.profiles import ProfileError, load_condition
+
+            try:
+                condition = load_condition(named.path, self.session.vessel)
+            except (ProfileError, OSError) as exc:
+                self.say(f"Cannot open {named.path}: {getattr(exc, 'strerror', None) or exc}", ok=False)
+                return
+            self.commit(condition, f"Opened “{condition.name}” ({named.origin}, {named.path.name})", "edit",
+                        {"opened": str(named.path)}, mark=False)
+
+        self.app.push_screen(OpenConditionScreen(found), done)
+
+    def action_print_report(self) -> None:
+        from deckload.ui.conditions import ReportWritten, open_in_browser, print_session
+
+        try:
+            printed = print_session(self.session)
+        except (OSError, EntryError) as exc:
+            self.say(f"Report NOT written: {getattr(exc, 'strerror', None) or exc}", ok=False)
+            return
+        self.say(f"Report written: {printed.html_path} (and .txt)")
+        self.app.push_screen(ReportWritten(printed.html_path, printed.text_path, open_in_browser))
 
     def action_show_log(self) -> None:
         self.app.show_log()

@@ -85,6 +85,12 @@ class Session:
             from deckload.profiles import save_condition as save
         self.vessel = vessel
         self.save_path = save_path
+        self.profile_path: Path | None = None
+        """The profile file (its stock conditions lie beside it), when known."""
+        self.work_dir: Path | None = None
+        """The working-conditions folder (saved conditions are kept in it), when known."""
+        self.reports_dir: Path | None = None
+        """Where reports printed from the screen go, when known."""
         self.journal = journal or Journal(None)
         self._evaluate = evaluate
         self._save = save
@@ -132,8 +138,12 @@ class Session:
 
     # ------------------------------------------------------------------ changes
 
-    def commit(self, condition: Condition, label: str, kind: str = "edit", data: dict | None = None) -> list[str]:
+    def commit(self, condition: Condition, label: str, kind: str = "edit", data: dict | None = None,
+               *, mark: bool = True) -> list[str]:
         """Make ``condition`` the working one as one undoable step.
+
+        An edit of a condition as opened or saved marks it "modified from <its name>"
+        (``Condition.modified_from``) unless ``mark`` is False (opening, saving, restoring).
 
         Raises :class:`EntryError` (and changes nothing) if the engine rejects the
         condition for any reason other than a displacement outside the tables.
@@ -142,6 +152,9 @@ class Session:
         """
         if condition == self.condition:
             raise EntryError("No change: the value is the same as before.")
+        if mark and not condition.modified_from and condition.name == self.condition.name:
+            # The first edit of a stock or saved condition: it is no longer that condition.
+            condition = condition.replace(modified_from=self.condition.name)
         evaluated = self._check(condition)
         step = Step(self.condition, condition, label, kind, dict(data or {}))
         self._undo.append(step)
@@ -164,12 +177,35 @@ class Session:
         label = f"Redo: {step.label}"
         return label, self._apply(step.after, step.kind, label, {"redone": step.kind, **step.data})
 
+    @property
+    def title(self) -> str:
+        """The working condition's name, with "modified from" once it has been edited."""
+        c = self.condition
+        return f"{c.name} (modified from {c.modified_from})" if c.modified_from else c.name
+
+    def save_as(self, name: str, path: Path) -> list[str]:
+        """Write the working condition under ``name`` to ``path`` (atomically) and make it the
+        working one, as one undoable step: it is then that condition, unmodified.
+
+        Raises OSError (nothing changed) when the file cannot be written."""
+        from deckload.atomicfile import write_atomic
+        from deckload.profiles import dump_condition
+
+        named = self.condition.replace(name=name, modified_from="")
+        path.parent.mkdir(parents=True, exist_ok=True)
+        write_atomic(path, dump_condition(named))
+        label = f"Condition saved as \u201c{name}\u201d ({path.name})"
+        if named == self.condition:
+            return self._apply(named, "edit", label, {"saved_as": name, "file": str(path)})
+        return self.commit(named, label, "edit", {"saved_as": name, "file": str(path),
+                                                   "was": self.title}, mark=False)
+
     def record(self, by: str, remark: str) -> list[str]:
         """Record the working condition in the log, signed with initials."""
         problems = self.flush()
         self.journal.officer = by
         err = self.journal.append(
-            kind="condition", by=by, change_text=f"condition recorded: {self.condition.name}", remark=remark,
+            kind="condition", by=by, change_text=f"condition recorded: {self.title}", remark=remark,
             change_data={}, result=self.result if not self.stale else None, condition=self.condition,
         )
         return problems + ([err] if err else [])

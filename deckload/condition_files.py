@@ -1,0 +1,118 @@
+"""Where a vessel's conditions are found by name: stock, saved and working.
+
+* **stock** conditions are the files beside the profile named ``<profile stem>.<key>.condition.toml``
+  (the demo's ``departure``, ``midvoyage``...); they are never written by the program.
+* **saved** conditions are the ones an officer named on the loading screen, one file each in the
+  vessel's folder of the working-conditions folder (``paths.saved_conditions_dir``).
+* the **working** condition is the loading screen's own file (``paths.working_file``).
+
+:func:`resolve` turns what was typed on a command line into a file, and when nothing matches
+:class:`ConditionNotFound` lists what exists.  Reading a title never validates the file (that
+is ``profiles.load_condition``'s work when the condition is opened).
+"""
+
+from __future__ import annotations
+
+import tomllib
+from dataclasses import dataclass
+from pathlib import Path
+
+WORKING_KEYS = ("working", "work", "screen")
+"""Short names of the loading screen's working condition on the command line."""
+
+MAX_NAME_CHARS = 80
+"""Longest condition name accepted when saving under a name of one's own."""
+
+
+@dataclass(frozen=True)
+class Named:
+    key: str
+    """Short name to type (``departure``, ``my-arrival``, ``working``)."""
+    title: str
+    """The condition's own name (``[condition] name``), or the file name if unreadable."""
+    path: Path
+    origin: str
+    """``stock``, ``saved`` or ``working``."""
+
+
+class ConditionNotFound(LookupError):
+    """A condition asked for by a name that matches nothing; the message lists what exists."""
+
+
+def name_key(name: str) -> str:
+    """File-name form of a condition name: 'Sailing 2 Dec, ρ 1.010' → 'sailing-2-dec-ρ-1-010'."""
+    from deckload.logbook import vessel_slug
+
+    return vessel_slug(name)[:60]
+
+
+def title_of(path: Path) -> str:
+    """``[condition] name`` of a condition file, without validating it (the file name if unreadable)."""
+    try:
+        with open(path, "rb") as fh:
+            data = tomllib.load(fh)
+        name = data.get("condition", {}).get("name")
+    except (OSError, tomllib.TOMLDecodeError, AttributeError, UnicodeDecodeError):
+        name = None
+    return name if isinstance(name, str) and name.strip() else path.name
+
+
+def stock(profile_path: Path) -> list[Named]:
+    """Condition files beside the profile: ``<stem>.<key>.condition.toml``."""
+    stem = profile_path.name.removesuffix(".toml")
+    out = []
+    for p in sorted(profile_path.parent.glob(f"{stem}.*.condition.toml")):
+        key = p.name[len(stem) + 1: -len(".condition.toml")]
+        if key and "." not in key:
+            out.append(Named(key, title_of(p), p, "stock"))
+    return out
+
+
+def saved(folder: Path) -> list[Named]:
+    """Conditions saved under an officer's own name, in ``folder``."""
+    if not folder.is_dir():
+        return []
+    return [Named(p.name.removesuffix(".condition.toml"), title_of(p), p, "saved")
+            for p in sorted(folder.glob("*.condition.toml"))]
+
+
+def all_named(profile_path: Path, vessel_name: str, work_dir: Path) -> list[Named]:
+    from deckload import paths
+
+    found = stock(profile_path) + saved(paths.saved_conditions_dir(work_dir, vessel_name))
+    w = paths.working_file(work_dir, vessel_name)
+    if w.is_file():
+        found.append(Named("working", title_of(w), w, "working"))
+    return found
+
+
+def resolve(profile_path: Path, typed: str, vessel_name: str, work_dir: Path) -> Path:
+    """The file a command line means by ``typed``: a path that exists; ``working`` for the loading
+    screen's condition; a stock or saved condition by its key or its name (case ignored)."""
+    from deckload import paths
+
+    if Path(typed).is_file():
+        return Path(typed)
+    want = typed.strip().casefold()
+    if want in WORKING_KEYS:
+        w = paths.working_file(work_dir, vessel_name)
+        if w.is_file():
+            return w
+        raise ConditionNotFound(f"{vessel_name} has no working condition yet ({w} does not exist): "
+                                "open the loading screen once, or name a condition." + _listing(profile_path, vessel_name, work_dir))
+    found = all_named(profile_path, vessel_name, work_dir)
+    for n in found:
+        if want in (n.key.casefold(), n.title.casefold()) or name_key(typed) == n.key:
+            return n.path
+    raise ConditionNotFound(f"no condition file or condition named {typed!r} for {vessel_name}."
+                            + _listing(profile_path, vessel_name, work_dir))
+
+
+def _listing(profile_path: Path, vessel_name: str, work_dir: Path) -> str:
+    found = all_named(profile_path, vessel_name, work_dir)
+    if not found:
+        return " It has no stock or saved conditions: give a condition file's path."
+    lines = [" Conditions of this vessel (type the short name, or a condition file's path):"]
+    for n in found:
+        lines.append(f"  {n.key:<22} {n.origin:<8} {n.title}")
+    return "\n".join(lines)

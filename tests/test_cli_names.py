@@ -1,0 +1,50 @@
+"""The command line names what exists: conditions by short name, `working`, clear errors, --version."""
+
+from __future__ import annotations
+
+import pytest
+
+from deckload import __version__, paths
+from deckload.cli import main
+
+
+@pytest.fixture(autouse=True)
+def logs(tmp_path, monkeypatch):
+    monkeypatch.setenv("DECKLOAD_LOG_DIR", str(tmp_path / "logs"))
+    return tmp_path / "logs"
+
+
+def test_open_a_missing_profile_names_it_without_a_raw_errno(capsys):
+    assert main(["open", "nosuch"]) == 2
+    err = capsys.readouterr().err
+    assert "cannot read the profile nosuch" in err and "Errno" not in err and "demo" in err
+
+
+def test_a_condition_that_matches_nothing_lists_the_vessels_conditions(capsys):
+    assert main(["report", "demo", "nosuch", "--txt"]) == 2
+    err = capsys.readouterr().err
+    assert "'nosuch'" in err
+    for key in paths.DEMO_CONDITIONS:
+        assert key in err
+
+
+def test_a_stock_condition_by_its_name_in_any_case(capsys):
+    assert main(["calc", "demo", "Departure"]) == 0
+    assert "Departure, full stores" in capsys.readouterr().out
+
+
+def test_working_is_the_loading_screens_condition(logs, capsys):
+    assert main(["calc", "demo", "working"]) == 2
+    assert "no working condition yet" in capsys.readouterr().err
+    w = paths.working_file(logs / "working", "Demo Islander")
+    w.parent.mkdir(parents=True)
+    w.write_text(paths.DEMO_CONDITIONS["light"].read_text(encoding="utf-8"), encoding="utf-8")
+    assert main(["report", "demo", "working", "--txt"]) == 0
+    out = capsys.readouterr().out
+    assert "Condition: Light, to the repair yard" in out and w.name in out
+
+
+def test_version(capsys):
+    with pytest.raises(SystemExit) as e:
+        main(["--version"])
+    assert e.value.code == 0 and capsys.readouterr().out.strip() == f"deckload {__version__}"
