@@ -74,7 +74,9 @@ async def test_sign_on_then_changes_are_logged_and_the_log_screen_opens(app):
         await pilot.press("l")
         assert isinstance(app.screen, LogScreen)
         entries = app.session.journal.logbook.entries()
-        assert [(e.kind, e.by) for e in entries] == [("ballast", "JM")]
+        # the sign-on is itself an entry, then the fill
+        assert [(e.kind, e.by) for e in entries] == [("remark", "JM"), ("ballast", "JM")]
+        assert entries[0].change_text == "JM signed on as officer of the watch"
 
 
 async def _cursor_to(pilot, app, key) -> None:

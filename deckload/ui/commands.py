@@ -70,9 +70,11 @@ COMMANDS: tuple[Command, ...] = (
     Command("alerts", "w", "Warn", "List every warning, when more are raised than the warning strip can show.",
             title="All warnings"),
     Command("sign_on", "o", "Watch", "Sign on as officer of the watch (initials): every change is then written "
-            "to the voyage log under them.", title="Sign on"),
+            "to the voyage log under them; - signs off. Both are logged.", title="Sign on or off watch"),
     Command("record", "s", "Record", "Record the working condition in the voyage log, with your initials and a remark."),
     Command("show_log", "l", "Log", "Open the voyage log."),
+    Command("plan", "x", "Plan", "Try a plan: changes are kept out of the log until the plan is applied, as one "
+            "entry; x again applies or discards it.", title="Plan (try without logging)"),
     Command("print_report", "p", "Print", "Print from the screen: write the report (HTML to print, and text) of "
             "exactly the condition on screen, say where, and offer to open it.", title="Print report"),
     Command("save_as", "n", "Name", "Name the working condition and save it as a condition file of its own "

@@ -169,3 +169,27 @@ def print_session(session):
     source = (session.save_path.name if session.save_path else "none") + " (the loading screen's working condition)"
     return print_result(session.result, session.vessel, session.condition, session.reports_dir,
                         source=source, log_anchor=anchor)
+
+
+class PlanEndForm(Form):
+    """End a plan: ⏎ applies it (one log entry), d discards it (back to before), Esc keeps trying."""
+
+    BINDINGS = [Binding("escape", "cancel", "Keep planning"), Binding("enter,a", "apply", "Apply"),
+                Binding("d", "discard", "Discard")]
+
+    def __init__(self, steps: int):
+        super().__init__()
+        self._steps = steps
+
+    def compose(self) -> ComposeResult:
+        with Vertical(classes="form"):
+            yield Label(f"End the plan ({self._steps} change{'s' if self._steps != 1 else ''})", classes="form-title")
+            yield Label("⏎ applies it: one log entry naming every change · d discards it: back to the condition "
+                        "before the plan, nothing logged · Esc keeps planning", classes="form-hint")
+            yield Static("", id="form-message")
+
+    def action_apply(self) -> None:
+        self.dismiss("apply")
+
+    def action_discard(self) -> None:
+        self.dismiss("discard")

@@ -28,6 +28,8 @@ from deckload.ui.palette import P
 from deckload.ui.session import Session
 from deckload.ui.widgets import LinePanel, LoadBoard, SizedPanel
 
+RUN_PAUSE_S = 4.0
+"""A run of nudges or retypes of one item ends (and is logged as one entry) after this pause."""
 NARROW_BELOW = 110
 """Screen width (cells) under which the right side shows numbers or curve, not both."""
 MIN_CURVE_ROWS = 10
@@ -40,6 +42,7 @@ class LoadingScreen(Screen[None]):
     def __init__(self, session: Session):
         super().__init__()
         self.session = session
+        self._settle_timer = None
 
     def compose(self) -> ComposeResult:
         yield SizedPanel(id="titlebar")
@@ -122,6 +125,8 @@ class LoadingScreen(Screen[None]):
             t.append("changes NOT logged: o to sign on" if wide else "NOT logged (o)", P["caution"])
         else:
             t.append(f"log off: {j.problem or 'no log'}" if wide else "log off", P["caution"])
+        if s.planning:
+            t.append(f" │ PLAN ({s.plan_steps}, not logged: x to apply or discard)" if wide else " │ PLAN", P["caution"])
         t.append(f" │ undo {s.undo_depth} redo {s.redo_depth}", P["dim"])
         return t
 
@@ -138,14 +143,20 @@ class LoadingScreen(Screen[None]):
     # ------------------------------------------------------------------ changes
 
     def commit(self, condition: Condition, label: str, kind: str = "edit", data: dict | None = None,
-               *, mark: bool = True) -> None:
+               *, mark: bool = True, run: tuple[str, str] | None = None) -> None:
         s = self.session
         gm_before = s.result.gm_fluid_m if s.result is not None and not s.stale else None
         try:
-            problems = s.commit(condition, label, kind, data, mark=mark and kind != "restore")
+            problems = s.commit(condition, label, kind, data, mark=mark and kind != "restore", run=run)
         except EntryError as exc:
             self.say(str(exc), ok=False)
             return
+        if self._settle_timer is not None:
+            self._settle_timer.stop()
+            self._settle_timer = None
+        if run is not None:
+            # A run of nudges or retypes of one item is one log entry: it ends after a pause.
+            self._settle_timer = self.set_timer(RUN_PAUSE_S, self._settle)
         self.refresh_view()
         self.say(label + self._gm_change(gm_before))
         for p in problems:
@@ -159,14 +170,21 @@ class LoadingScreen(Screen[None]):
             return ""
         return f" — GM fluid {before:.3f} → {s.result.gm_fluid_m:.3f} m"
 
-    def _try(self, build, label: str, kind: str = "edit", data: dict | None = None) -> None:
+    def _try(self, build, label: str, kind: str = "edit", data: dict | None = None,
+             run: tuple[str, str] | None = None) -> None:
         """Build a new condition; refusal goes to the message line and nothing changes."""
         try:
             condition = build()
         except EntryError as exc:
             self.say(str(exc), ok=False)
             return
-        self.commit(condition, label, kind, data)
+        self.commit(condition, label, kind, data, run=run)
+
+    def _settle(self) -> None:
+        """The run of edits of one item has ended: its one log entry is written."""
+        self._settle_timer = None
+        for p in self.session.settle():
+            self._report(p)
 
     def _kind(self, tank_id: str) -> str:
         return "ballast" if self.session.vessel.tank(tank_id).kind == "ballast" else "edit"
@@ -200,7 +218,8 @@ class LoadingScreen(Screen[None]):
             if r:
                 # Say what was understood, so a slip from m3 to m (sounding) is seen at once.
                 got = entry.describe_fill(tank, r[0].tank_fill(tank.id))
-                self.commit(r[0], f"{tank.id} set to {got}", self._kind(tank.id), {"tank": tank.id, "entered": r[1]})
+                self.commit(r[0], f"{tank.id} set to {got}", self._kind(tank.id), {"tank": tank.id, "entered": r[1]},
+                            run=("tank", tank.id))
 
         self.app.push_screen(PromptForm(f"{tank.id}  {tank.name}", hint, entry.fill_text(fill), build), done)
 
@@ -216,7 +235,8 @@ class LoadingScreen(Screen[None]):
         def done(r) -> None:
             if r:
                 mass = next((h.mass_t for h in r[0].holds if h.hold_id == hold.id), 0.0)
-                self.commit(r[0], f"{hold.id} cargo set to {mass:g} t", "cargo", {"hold": hold.id, "entered": r[1]})
+                self.commit(r[0], f"{hold.id} cargo set to {mass:g} t", "cargo", {"hold": hold.id, "entered": r[1]},
+                            run=("hold", hold.id))
 
         form = PromptForm(f"{hold.id}  {hold.name}", f"Cargo mass in t (0 empties the hold){limit}",
                           f"{load.mass_t:g}" if load else "", build)
@@ -247,13 +267,14 @@ class LoadingScreen(Screen[None]):
         if what == "tank":
             tank = s.vessel.tank(ident)
             self._try(lambda: entry.nudge_tank(s.condition, tank, float(step)),
-                      f"{tank.id} {step:+d} %", self._kind(tank.id), {"tank": tank.id, "nudge_pct": step})
+                      f"{tank.id} {step:+d} %", self._kind(tank.id), {"tank": tank.id, "nudge_pct": step},
+                      run=("tank", tank.id))
         elif what == "hold":
             hold = s.vessel.hold(ident)
             load = next((h for h in s.condition.holds if h.hold_id == ident), None)
             self._try(lambda: entry.hold_from_text(
                 s.condition, hold, f"{entry.nudge_mass(load.mass_t if load else 0.0, step, hold.id)}", s.vessel),
-                f"{hold.id} {step:+d} t", "cargo", {"hold": hold.id, "nudge_t": step})
+                f"{hold.id} {step:+d} t", "cargo", {"hold": hold.id, "nudge_t": step}, run=("hold", hold.id))
         elif what in ("deck", "const"):
             deck = what == "deck"
             items = s.condition.deck_items if deck else s.condition.constants
@@ -402,17 +423,60 @@ class LoadingScreen(Screen[None]):
 
         def build(text: str) -> str:
             by = text.strip().upper()
+            if by == "-" and j.officer:
+                return by
             if not (1 <= len(by) <= 4 and by.isalpha() and by.isascii()):
-                raise EntryError("Initials: one to four letters A–Z, e.g. JS.")
+                raise EntryError("Initials: one to four letters A–Z, e.g. JS" + (", or - to sign off." if j.officer else "."))
             return by
 
         def done(by: str | None) -> None:
-            if by:
-                j.officer = by
-                self.refresh_view()
-                self.say(f"{by} on watch: changes are logged under these initials.")
+            if not by:
+                return
+            for p in self.session.flush():  # the outgoing officer's last run is logged under their initials
+                self._report(p)
+            was = j.officer
+            if was:
+                err = j.append(kind="remark", by=was, change_text=f"{was} signed off watch" +
+                               (f", handing over to {by}" if by != "-" else ""), change_data={"signed_off": was},
+                               result=None, condition=None)
+                if err:
+                    self._report(err)
+            j.officer = "" if by == "-" else by
+            if by != "-":
+                err = j.append(kind="remark", by=by, change_text=f"{by} signed on as officer of the watch",
+                               change_data={"signed_on": by}, result=None, condition=None)
+                if err:
+                    self._report(err)
+            self.refresh_view()
+            self.say(f"{was} signed off: changes are NOT logged until someone signs on (o)." if by == "-" else
+                     f"{by} on watch: changes are logged under these initials.")
 
-        self.app.push_screen(PromptForm("Officer of the watch", "Your initials (1–4 letters)", j.officer, build), done)
+        hint = "Your initials (1–4 letters)" + (f"; - signs {j.officer} off" if j.officer else "")
+        self.app.push_screen(PromptForm("Officer of the watch", hint, j.officer, build), done)
+
+    def action_plan(self) -> None:
+        """Start trying a plan; during one, choose to apply it (one log entry) or discard it."""
+        from deckload.ui.conditions import PlanEndForm
+
+        s = self.session
+        if not s.planning:
+            for p in s.flush():
+                self._report(p)
+            s.start_plan()
+            self.refresh_view()
+            self.say("Plan: try changes freely; they enter the log only when applied (x again to apply or discard)")
+            return
+
+        def done(choice: str | None) -> None:
+            if choice is None:
+                return
+            label, problems = s.apply_plan() if choice == "apply" else s.discard_plan()
+            self.refresh_view()
+            self.say(label)
+            for p in problems:
+                self._report(p)
+
+        self.app.push_screen(PlanEndForm(s.plan_steps), done)
 
     def action_save_as(self) -> None:
         from deckload.ui.conditions import SaveAsForm, save_target
@@ -489,6 +553,7 @@ class LoadingScreen(Screen[None]):
         await self.app.action_quit()
 
     def on_load_board_cursor_moved(self, event: LoadBoard.CursorMoved) -> None:
+        self._settle()
         what, ident = event.key or (None, None)
         if what == "tank":
             t = self.session.vessel.tank(ident)

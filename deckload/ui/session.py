@@ -36,6 +36,66 @@ class Step:
     data: dict = field(default_factory=dict)
 
 
+@dataclass
+class _Run:
+    """Nudges or retypes of one item, logged as one entry when the run settles."""
+
+    key: tuple[str, str]
+    kind: str
+    before: tuple | None
+    condition: Condition
+    last_label: str
+    result: Result | None
+    steps: int = 1
+
+    def extend(self, condition: Condition, label: str, result: Result | None) -> None:
+        self.condition, self.last_label, self.result = condition, label, result
+        self.steps += 1
+
+
+@dataclass
+class _Plan:
+    base: Condition
+    title: str
+    labels: list[str] = field(default_factory=list)
+
+
+def _counted(labels: list[str]) -> list[str]:
+    """Repeated changes written once with their count: ['A', 'A', 'B'] → ['A ×2', 'B']."""
+    out: list[list] = []
+    for label in labels:
+        if out and out[-1][0] == label:
+            out[-1][1] += 1
+        else:
+            out.append([label, 1])
+    return [f"{lab} ×{n}" if n > 1 else lab for lab, n in out]
+
+
+def _pct(x: float) -> str:
+    return f"{x:.1f}".removesuffix(".0")
+
+
+def run_text(ident: str, before: tuple | None, after: tuple | None, last_label: str, steps: int) -> str:
+    """'WB1P 12 % → 22 %, 7.1 t → 13.0 t (10 changes)': the values a run of edits reached."""
+    n = f" ({steps} changes)" if steps > 1 else ""
+    if before is None or after is None:
+        return last_label + n
+    parts = []
+    if before[0] is not None and after[0] is not None:
+        parts.append(f"{_pct(before[0])} % → {_pct(after[0])} %")
+    parts.append(f"{before[1]:.1f} t → {after[1]:.1f} t")
+    return f"{ident} " + ", ".join(parts) + n
+
+
+def _state_data(state: tuple | None, prefix: str) -> dict:
+    if state is None:
+        return {}
+    out = {f"{prefix}_t": round(state[1], 3)}
+    if state[0] is not None:
+        out[f"{prefix}_pct"] = round(state[0], 2)
+    return out
+
+
 class Journal:
     """The voyage log as the screen uses it: never raises, reports problems as text."""
 
@@ -100,6 +160,9 @@ class Session:
         self.stale = False
         self.problem: str | None = None
         """Why the current condition could not be evaluated (outside the tables)."""
+        self._run: _Run | None = None
+        self._plan: _Plan | None = None
+        self._plan_problems: list[str] = []
         self._undo: list[Step] = []
         self._redo: list[Step] = []
         self._writer = None
@@ -139,7 +202,7 @@ class Session:
     # ------------------------------------------------------------------ changes
 
     def commit(self, condition: Condition, label: str, kind: str = "edit", data: dict | None = None,
-               *, mark: bool = True) -> list[str]:
+               *, mark: bool = True, run: tuple[str, str] | None = None) -> list[str]:
         """Make ``condition`` the working one as one undoable step.
 
         An edit of a condition as opened or saved marks it "modified from <its name>"
@@ -149,6 +212,11 @@ class Session:
         condition for any reason other than a displacement outside the tables.
         Returns problems to report (save or log failures); the change stands.  After
         :meth:`write_in_background`, saving and logging happen on the writer thread instead.
+
+        ``run`` (``("tank", "WB1P")``, ``("hold", "H1")``) names the item a nudge or retype
+        changes: a run of such changes of one item is logged as one entry carrying the values
+        reached, when the run settles (:meth:`settle`: the cursor moves on, a pause, any other
+        change, a record, quitting).  Each change is still one undo step and saved at once.
         """
         if condition == self.condition:
             raise EntryError("No change: the value is the same as before.")
@@ -157,9 +225,10 @@ class Session:
             condition = condition.replace(modified_from=self.condition.name)
         evaluated = self._check(condition)
         step = Step(self.condition, condition, label, kind, dict(data or {}))
+        before = self._item_state(run, None if self.stale else self.result, self.condition) if run else None
         self._undo.append(step)
         self._redo.clear()
-        return self._apply(condition, kind, label, step.data, evaluated)
+        return self._apply(condition, kind, label, step.data, evaluated, run=run, before=before)
 
     def undo(self) -> tuple[str, list[str]]:
         if not self._undo:
@@ -200,6 +269,81 @@ class Session:
         return self.commit(named, label, "edit", {"saved_as": name, "file": str(path),
                                                    "was": self.title}, mark=False)
 
+    # ------------------------------------------------------------------ runs and plans
+
+    @property
+    def planning(self) -> bool:
+        return self._plan is not None
+
+    @property
+    def plan_steps(self) -> int:
+        return len(self._plan.labels) if self._plan is not None else 0
+
+    def start_plan(self) -> None:
+        """Try things without logging them: changes are saved and undoable as usual, and enter the
+        log only when the plan is applied (:meth:`apply_plan`), as one entry."""
+        if self._plan is not None:
+            raise EntryError("A plan is already being tried: apply or discard it first.")
+        problems = self.settle()
+        self._plan = _Plan(self.condition, self.title)
+        self._plan_problems = problems
+
+    def apply_plan(self) -> tuple[str, list[str]]:
+        """End the plan: one log entry naming every change it made, with the condition reached."""
+        plan = self._end_plan()
+        if not plan.labels:
+            return "Plan ended: no change was made", []
+        label = f"Plan applied ({len(plan.labels)} change{'s' if len(plan.labels) != 1 else ''}): " + \
+            "; ".join(_counted(plan.labels))
+        if len(label) > 1900:
+            label = label[:1890] + " …"
+        data = {"plan": plan.labels[:100], "planned_from": plan.title}
+        result = None if self.stale else self.result
+        return label, self._submit(self.condition, "edit", label, data, result, save=False)
+
+    def discard_plan(self) -> tuple[str, list[str]]:
+        """End the plan and go back to the condition it started from; nothing is logged."""
+        plan = self._end_plan()
+        if self.condition == plan.base:
+            return "Plan discarded: nothing had changed", []
+        step = Step(self.condition, plan.base, "Plan discarded", "edit", {})
+        self._undo.append(step)
+        self._redo.clear()
+        self.condition = plan.base
+        self._recompute()
+        return "Plan discarded: back to the condition before it", self._submit(plan.base, "edit", "", {}, None, log=False)
+
+    def _end_plan(self) -> "_Plan":
+        if self._plan is None:
+            raise EntryError("No plan is being tried.")
+        plan, self._plan = self._plan, None
+        return plan
+
+    def settle(self) -> list[str]:
+        """Log the run of nudges or retypes in progress (if any) as one entry."""
+        run, self._run = self._run, None
+        if run is None:
+            return []
+        after = self._item_state(run.key, run.result, run.condition)
+        label = run_text(run.key[1], run.before, after, run.last_label, run.steps)
+        data = {run.key[0]: run.key[1], "steps": run.steps, **_state_data(run.before, "from"),
+                **_state_data(after, "to")}
+        return self._submit(run.condition, run.kind, label, data, run.result, save=False)
+
+    @staticmethod
+    def _item_state(key: tuple[str, str], result: Result | None, condition: Condition) -> tuple | None:
+        """(fill %, mass t) of a tank from ``result``, (None, mass t) of a hold from ``condition``."""
+        what, ident = key
+        if what == "tank":
+            if result is None:
+                return None
+            t = next((x for x in result.tanks if x.id == ident), None)
+            return None if t is None else (t.fill_pct, t.mass_t)
+        if what == "hold":
+            load = next((h for h in condition.holds if h.hold_id == ident), None)
+            return (None, load.mass_t if load else 0.0)
+        return None
+
     def record(self, by: str, remark: str) -> list[str]:
         """Record the working condition in the log, signed with initials."""
         problems = self.flush()
@@ -233,13 +377,30 @@ class Session:
             self.result, self.stale, self.problem = evaluated, False, None
 
     def _apply(self, condition: Condition, kind: str, label: str, data: dict,
-               evaluated: Result | OutOfRangeError | None = None) -> list[str]:
+               evaluated: Result | OutOfRangeError | None = None, *,
+               run: tuple[str, str] | None = None, before=None) -> list[str]:
         self.condition = condition
         self._recompute(evaluated)
         result = None if self.stale else self.result
+        if self._plan is not None:
+            # Kept apart: saved (the screen's state), logged only when the plan is applied.
+            self._plan.labels.append(label)
+            return self._submit(condition, kind, label, data, result, log=False)
+        if run is not None and self._run is not None and self._run.key == run:
+            self._run.extend(condition, label, result)
+            return self._submit(condition, kind, label, data, result, log=False)
+        problems = self.settle()
+        if run is not None:
+            self._run = _Run(run, kind, before, condition, label, result)
+            return problems + self._submit(condition, kind, label, data, result, log=False)
+        return problems + self._submit(condition, kind, label, data, result)
+
+    def _submit(self, condition: Condition, kind: str, label: str, data: dict, result: Result | None,
+                *, save: bool = True, log: bool = True) -> list[str]:
         if self._writer is None:
-            return self._persist(condition, kind, label, data, result)
-        self._jobs.append(self._writer.submit(self._persist_reporting, condition, kind, label, data, result))
+            return self._persist(condition, kind, label, data, result, save=save, log=log)
+        self._jobs.append(self._writer.submit(self._persist_reporting, condition, kind, label, data, result,
+                                              save, log))
         return []
 
     def write_in_background(self, report: Callable[[str], None]) -> None:
@@ -251,8 +412,9 @@ class Session:
         self._writer = ThreadPoolExecutor(max_workers=1, thread_name_prefix="deckload-writer")
 
     def flush(self) -> list[str]:
-        """Wait until every change is saved and logged; problems not yet reported are returned."""
-        problems: list[str] = []
+        """Settle a run of edits, then wait until every change is saved and logged; problems not
+        yet reported are returned.  A plan being tried stays unlogged."""
+        problems: list[str] = self.settle()
         while self._jobs:
             problems.extend(self._jobs.pop(0).result())
         return problems
@@ -263,16 +425,18 @@ class Session:
             self._report(p)
         return []
 
-    def _persist(self, condition: Condition, kind: str, label: str, data: dict, result: Result | None) -> list[str]:
+    def _persist(self, condition: Condition, kind: str, label: str, data: dict, result: Result | None,
+                 save: bool = True, log: bool = True) -> list[str]:
         problems = []
-        if self.save_path is not None and self._save is not None:
+        if save and self.save_path is not None and self._save is not None:
             try:
                 self.save_path.parent.mkdir(parents=True, exist_ok=True)
                 self._save(self.save_path, condition)
             except OSError as exc:
                 problems.append(f"NOT SAVED: {self.save_path}: {exc.strerror or exc}. The change is on screen "
                                 "only (the file holds the last condition saved); the next change tries again.")
-        err = self.journal.append(kind=kind, change_text=label, change_data=data, result=result, condition=condition)
+        err = self.journal.append(kind=kind, change_text=label, change_data=data, result=result,
+                                  condition=condition) if log else None
         if err:
             problems.append(err)
         return problems
