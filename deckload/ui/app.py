@@ -60,8 +60,9 @@ class DeckloadApp(App[None]):
     def get_system_commands(self, screen: Screen) -> Iterable[SystemCommand]:
         """The command palette lists every command from the one table, with its key."""
         for c in COMMANDS:
-            yield SystemCommand(f"{c.name}  (key {c.key_text})", c.help, partial(self._run, c.action))
-        yield from super().get_system_commands(screen)
+            yield SystemCommand(c.palette_title, c.help, partial(self._run, c.action))
+        # textual's own entries (Keys, Maximize, Screenshot, Theme, a second Quit) are left out:
+        # every command of deckload is in the table above.
 
     async def _run(self, action: str) -> None:
         await self.run_action(action, self.loading_screen)

@@ -9,6 +9,9 @@ from __future__ import annotations
 from dataclasses import dataclass
 
 
+_KEY_SIGNS = {"plus": "+", "minus": "-", "enter": "⏎", "question_mark": "?", "ctrl+o": "ctrl+o"}
+
+
 @dataclass(frozen=True)
 class Command:
     action: str
@@ -26,9 +29,18 @@ class Command:
     title: str = ""
     """Name in the command palette and help, when the footer label is too terse."""
 
+    words: str = ""
+    """Words a mate might type for it in the command palette (sounding, print, ballast...)."""
+
     @property
     def name(self) -> str:
         return self.title or self.label
+
+    @property
+    def palette_title(self) -> str:
+        """'Print report — report, print (key p)': the name, the words a mate would type, this one key."""
+        key = _KEY_SIGNS.get(self.keys.split(",")[0], self.keys.split(",")[0])
+        return f"{self.name}{' — ' + self.words if self.words else ''}  (key {key})"
 
     @property
     def key_text(self) -> str:
@@ -36,21 +48,24 @@ class Command:
 
 
 COMMANDS: tuple[Command, ...] = (
+    Command("help", "question_mark,f1", "Help", "This list of keys and what each does.", display="?"),
     Command("set_amount", "enter", "Set", "Type an amount for the line under the cursor: tank 55% / 12.5m3 / 10t / "
             "1.2m (sounding), 0.85u (ullage); hold mass in t; a deck load or constant opens its form (mass, position).",
-            display="⏎", title="Set amount"),
+            display="⏎", title="Set amount", words="sounding, ullage, percent, volume, mass, bunker, tank level"),
     Command("nudge(1)", "plus,equals_sign", "±1%", "Raise the tank under the cursor by 1 % of capacity "
             "(a hold or item by 1 t).", display="+ -", title="Raise 1 %"),
     Command("nudge(-1)", "minus", "−1%", "Lower the tank under the cursor by 1 % of capacity (a hold or item by 1 t).",
             display="-", footer=False, title="Lower 1 %"),
-    Command("fill", "f", "Full", "Fill the tank under the cursor to 100 %."),
+    Command("fill", "f", "Full", "Fill the tank under the cursor to 100 %.", words="fill, full, top up"),
     Command("empty", "e", "Empty", "Empty the tank or hold under the cursor; remove the deck load or constant."),
-    Command("transfer", "t", "Transfer", "Pump between two tanks, with a before/after preview; commit is one undoable step."),
+    Command("transfer", "t", "Transfer", "Pump between two tanks, with a before/after preview; commit is one undoable step.", words="ballast, pump, shift, transfer"),
+    Command("print_report", "p", "Print", "Print from the screen: write the report (HTML to print, and text) of "
+            "exactly the condition on screen, say where, and offer to open it.", title="Print report", words="report, print, paper, HTML"),
     Command("add_deck", "a", "+Deck", "Add a deck load: name, mass and position (LCG, VCG, TCG), optional deck area.",
-            title="Add deck load"),
+            title="Add deck load", words="deck cargo, container, deck item"),
     Command("add_constant", "c", "+Const", "Add a constant (crew, stores, provisions): name, mass and position.",
-            title="Add constant"),
-    Command("density", "d", "ρ", "Set the density of the water she floats in (t/m³).", title="Water density"),
+            footer=False, title="Add constant", words="constant, stores, crew, provisions"),
+    Command("density", "d", "ρ", "Set the density of the water she floats in (t/m³).", title="Water density", words="density, dock water, fresh water, sea water"),
     Command("undo", "u,ctrl+z", "Undo", "Undo the last change."),
     Command("redo", "y,ctrl+y", "Redo", "Redo the last undone change."),
     Command("fs_rule", "r", "FS rule", "Switch the free-surface rule between the IS Code 2008 Part B 3.1 "
@@ -70,18 +85,15 @@ COMMANDS: tuple[Command, ...] = (
     Command("alerts", "w", "Warn", "List every warning, when more are raised than the warning strip can show.",
             title="All warnings"),
     Command("sign_on", "o", "Watch", "Sign on as officer of the watch (initials): every change is then written "
-            "to the voyage log under them; - signs off. Both are logged.", title="Sign on or off watch"),
-    Command("record", "s", "Record", "Record the working condition in the voyage log, with your initials and a remark."),
-    Command("show_log", "l", "Log", "Open the voyage log."),
+            "to the voyage log under them; - signs off. Both are logged.", title="Sign on or off watch", words="watch, sign on, sign off, handover"),
+    Command("record", "s", "Record", "Record the working condition in the voyage log, with your initials and a remark.", words="record, sign, log entry"),
+    Command("show_log", "l", "Log", "Open the voyage log.", words="log, voyage log, history"),
     Command("plan", "x", "Plan", "Try a plan: changes are kept out of the log until the plan is applied, as one "
-            "entry; x again applies or discards it.", title="Plan (try without logging)"),
-    Command("print_report", "p", "Print", "Print from the screen: write the report (HTML to print, and text) of "
-            "exactly the condition on screen, say where, and offer to open it.", title="Print report"),
+            "entry; x again applies or discards it.", footer=False, title="Plan (try without logging)", words="plan, try, what if"),
     Command("save_as", "n", "Name", "Name the working condition and save it as a condition file of its own "
-            "(stock conditions are never overwritten).", title="Name and save condition"),
+            "(stock conditions are never overwritten).", footer=False, title="Name and save condition", words="save, name, rename, condition file"),
     Command("open_condition", "ctrl+o", "Open", "Open a stock or saved condition as the working one (undoable).",
-            display="^o", footer=False, title="Open condition"),
-    Command("help", "question_mark,f1", "Help", "This list of keys and what each does.", display="?"),
+            display="^o", footer=False, title="Open condition", words="open, load, condition, departure, arrival"),
     Command("quit", "q", "Quit", "Leave deckload; the working condition is already saved."),
 )
 

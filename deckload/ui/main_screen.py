@@ -61,7 +61,7 @@ class LoadingScreen(Screen[None]):
         self.session.write_in_background(lambda p: loop.call_soon_threadsafe(self._report, p))
         self.query_one(LoadBoard).focus()
         self.refresh_view()
-        self.say("⏎ type an amount · + − nudge · t transfer · ? all keys", ok=None)
+        self.say("⏎ type an amount · + − nudge · t transfer · n name · p print · x plan · ? all keys", ok=None)
 
     def on_resize(self, event) -> None:
         self.set_class(event.size.width < NARROW_BELOW, "-narrow")
