@@ -12,8 +12,10 @@ KN tabulated at T = 1, 2, 3 m in 5° steps.  The worked condition, derived:
   KG = (400·2.5 + 51.25·0.25 + 368.75·3.0)/820; each tank's free surface is 10 × 5 m,
   i = l·b³/12 = 104.1667 m⁴, FSM = ρ·i each (ballast: actual level, IS 2008 B 3.1), both counted;
   FSC = ΣFSM/Δ; KG fluid = KG + FSC;  KMt = T/2 + B²/(12T) = 5.16667 m;  GM = KMt − KG fluid.
-* MCTC = ρ·B·L²/1200 = 13.6667 t·m/cm, trim = Δ·(LCB − LCG)/(100·MCTC) = 820·0.5/1366.67 = 0.30 m
-  by the stern; with the LCF at midships T_aft = 2.15 m, T_fwd = 1.85 m, T_mid = 2.0 m.
+* MCTC = Δ·GML/(100·L) with GML = KML − KG fluid, KML = T/2 + L²/(12T) = 67.667 m (standards.md §6.3:
+  the moment to change trim from the longitudinal metacentric height), so
+  trim = Δ·(LCB − LCG)/(100·MCTC) = (LCB − LCG)·L/GML = 0.5·40/(67.667 − KG fluid) ≈ 0.3085 m by the
+  stern; with the LCF at midships T_aft = T + trim/2, T_fwd = T − trim/2, T_mid = 2.0 m.
 * GZ(φ) = KN(φ) − KG_fluid·sinφ with the exact box KN at T = 2 (checks.md §1.2), and the area
   0→φ from the exact dynamic lever of tests/vessel_factories.py (checks.md §1.3).
 
@@ -48,7 +50,8 @@ FSC = FSM / DISP
 KGF = KG + FSC
 KMT = T / 2 + B * B / (12 * T)
 GM = KMT - KGF
-TRIM = DISP * (20.0 - 19.5) / (100.0 * RHO * B * L * L / 1200.0)
+KML = T / 2 + L * L / (12 * T)
+TRIM = (20.0 - 19.5) * L / (KML - KGF)
 
 
 def gz(deg):
