@@ -202,3 +202,24 @@ def test_gz_beyond_the_kn_table_is_a_fail_not_a_guess(tmp_path):
     short = dataclasses.replace(result, gz_end_deg=40.0)
     rows = booklet.compare(short, {"gz": ((50.0, gz(50)),)}, B)
     assert not rows[0].passed and rows[0].deckload is None and "beyond the KN table's last angle 40°" in rows[0].note
+
+
+def test_booklet_results_typed_as_the_booklet_prints_them(tmp_path, capsys):
+    """LCG 0.5 m aft of midships (booklet: from midships, + aft) is 19.5 m from the AP (x_AP = 20 − 0.5);
+    extreme drafts need the keel thickness, which this profile does not give: refused with the reason."""
+    values = {"lcg_m": 0.5, "gm_m": round(GM, 3)}
+    entry = inline("As printed", values).replace(
+        "  [booklet_condition.expected]\n",
+        '  [booklet_condition.expected]\n  longitudinal_datum = "midships"\n  longitudinal_positive = "aft"\n')
+    f = profile(tmp_path, entry)
+    (case,) = load_booklet_conditions(f, load_profile(f))
+    assert case.expected["lcg_m"] == 19.5
+    assert run_check(f) == 0
+    out = capsys.readouterr().out
+    assert "converted: booklet_condition[As printed].expected lcg_m: from midships, + aft → from the AP" in out
+    bad = inline("Extreme", {"draft_mid_m": 2.012}).replace(
+        "  [booklet_condition.expected]\n", '  [booklet_condition.expected]\n  draft_basis = "extreme"\n')
+    f = profile(tmp_path, bad)
+    with pytest.raises(ProfileError) as ei:
+        load_booklet_conditions(f, load_profile(f))
+    assert "extreme drafts need [vessel] keel_thickness_m" in str(ei.value)
