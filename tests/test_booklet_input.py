@@ -530,6 +530,9 @@ def test_curves_against_draft_and_a_hold_fill_table_round_trip_through_csv(tmp_p
     assert v.downflooding.displacement_t[1] == pytest.approx(820.0, abs=1e-9)  # extreme 2.02 = moulded 2.00 m
     assert list(v.hold("H1").fill_lcg_m) == [27.5, 27.5, 27.4]  # 20 + x from midships
     assert main(["csv", str(path), str(tmp_path / "out")]) == 0
+    said = capsys.readouterr().out
+    assert "hold[H1] fill table, 3 rows (x from midships, + forward)" in said
+    assert "[downflooding], 3 rows (extreme drafts, against draft)" in said
     for mine, theirs in (("downflooding.csv", "df.csv"), ("limit_curve.csv", "lim.csv"), ("hold_H1_fill.csv", "hold.csv")):
         a, b = _cells(tmp_path / "out" / mine), _cells(tmp_path / theirs)
         assert a[0] == b[0] and len(a) == len(b), mine
