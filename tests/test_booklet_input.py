@@ -701,3 +701,10 @@ def test_calc_prints_extreme_drafts_where_the_keel_thickness_is_given(tmp_path, 
                "water_density_t_m3 = 1.025\n" + HOLD_420)
     assert main(["calc", str(prof), str(c)]) == 0
     assert "Extreme drafts (moulded + keel 0.020 m): aft 2.020 m, midships 2.020 m, fwd 2.020 m" in capsys.readouterr().out
+
+
+def test_check_names_the_csv_files_it_read(tmp_path, capsys):
+    path = booklet_profile(tmp_path)
+    assert run_check(path) == 0
+    assert ("    from CSV: hydrostatics ← tables/hydrostatics.csv, tank[DB1P].calibration ← tables/DB1P.csv"
+            in capsys.readouterr().out)
