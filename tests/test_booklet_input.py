@@ -489,12 +489,13 @@ def test_tables_refreshed_from_geometry_keep_their_own_datum_in_a_midships_profi
     demo_path = HERE.parent / "vessel_profiles" / "demo_islander.toml"
     doc = tomllib.loads(demo_path.read_text(encoding="utf-8"))
     doc["vessel"].update(longitudinal_datum="midships", longitudinal_positive="forward", transverse_positive="port")
-    gen = {k: doc[k] for k in ("hydrostatics", "tank", "hold", "deck_area")}
+    gen = {k: doc[k] for k in ("hydrostatics", "cross_curves", "tank", "hold", "deck_area")}
     _stamp_model_conventions(doc, gen, doc["vessel"])
     v, demo = parse_profile(render(doc), "mid_demo.toml"), load_profile(demo_path)
     for a, b in zip(v.tanks, demo.tanks):
         assert np.array_equal(a.calibration.stacked(), b.calibration.stacked()), a.id
     assert np.array_equal(v.hydrostatics.lcb_m, demo.hydrostatics.lcb_m)
+    assert v.cross_curves.reference_lcg_m == demo.cross_curves.reference_lcg_m
     assert v.lightship.lcg_m == demo.lightship.lcg_m + demo.particulars.lbp_m / 2  # hand-entered: from midships
 
 
@@ -706,5 +707,5 @@ def test_calc_prints_extreme_drafts_where_the_keel_thickness_is_given(tmp_path, 
 def test_check_names_the_csv_files_it_read(tmp_path, capsys):
     path = booklet_profile(tmp_path)
     assert run_check(path) == 0
-    assert ("    from CSV: hydrostatics ← tables/hydrostatics.csv, tank[DB1P].calibration ← tables/DB1P.csv"
-            in capsys.readouterr().out)
+    assert ("    from CSV: hydrostatics ← tables/hydrostatics.csv, cross_curves ← tables/kn.csv, "
+            "tank[DB1P].calibration ← tables/DB1P.csv" in capsys.readouterr().out)
