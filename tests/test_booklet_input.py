@@ -83,6 +83,12 @@ def test_midships_centres_are_converted_to_the_aft_perpendicular():
                for c in v.conversions)
 
 
+def test_the_kn_reference_lcg_follows_the_datum():
+    """Free-trim KN made for G at midships: reference_lcg_m = 0 from midships → 20 m from the AP (derived)."""
+    text = edit(MIDSHIPS, 'trim_basis = "free trim"', 'trim_basis = "free trim"\nreference_lcg_m = 0.0')
+    assert parse_profile(text, "ref.toml").cross_curves.reference_lcg_m == 20.0
+
+
 def test_forward_perpendicular_positive_aft_and_per_table_override():
     """A table may state its own datum: lightship LCG 20 m from the FP, + aft → x_AP = LBP − 20 = 20 (derived)."""
     text = edit(BASE, "mass_t = 400.0\nlcg_m = 20.0",
