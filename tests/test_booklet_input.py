@@ -715,3 +715,13 @@ def test_check_names_the_csv_files_it_read(tmp_path, capsys):
     assert run_check(path) == 0
     assert ("    from CSV: hydrostatics ← tables/hydrostatics.csv, cross_curves ← tables/kn.csv, "
             "tank[DB1P].calibration ← tables/DB1P.csv" in capsys.readouterr().out)
+
+
+def test_a_condition_stated_by_ullage_is_saved_and_read_back_unchanged(tmp_path):
+    from deckload.profiles import dump_condition, load_condition, save_condition
+
+    v = parse_profile(ULLAGE, "ullage.toml")
+    c = cond(v, "[tanks.DB1P]\nullage_m = 0.7\n")
+    assert "ullage_m = 0.7" in dump_condition(c)
+    save_condition(tmp_path / "u.condition.toml", c)
+    assert load_condition(tmp_path / "u.condition.toml", v) == c
