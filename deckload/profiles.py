@@ -68,8 +68,11 @@ CONDITION_FORMAT = "deckload-condition-1"
 LIQUID_DENSITY_RANGE_T_M3 = (0.5, 2.0)
 """Plausible densities of a tank's contents (t/m³): light oils ~0.8, heavy brines ~1.3."""
 
-WATER_DENSITY_RANGE_T_M3 = (0.99, 1.04)
-"""Plausible densities of the water a vessel floats in (t/m³): fresh 1.000, sea about 1.025."""
+from deckload.core.bounds import (  # noqa: E402  one set of ranges for files and the screen
+    BEAM_DEPTH_RANGE_M,
+    LBP_RANGE_M,
+    WATER_DENSITY_RANGE_T_M3,
+)
 
 CAPACITY_TOLERANCE = 0.0005
 """A tank's capacity_m3 may differ from its last calibration volume by at most 0.05 % (round-off):
@@ -105,7 +108,12 @@ def read_profile(path: str | os.PathLike) -> tuple[m.Vessel, "Reading"]:
 
 
 def _read_text(path: str | os.PathLike) -> str:
-    data = Path(path).read_bytes()
+    from deckload.limits import MAX_TOML_BYTES, TooLargeError, read_limited
+
+    try:
+        data = read_limited(path, MAX_TOML_BYTES, "a profile or condition")
+    except TooLargeError as e:
+        raise ProfileError([Problem(str(path), None, "", None, str(e).split(": ", 1)[1])]) from None
     try:
         return data.decode("utf-8")
     except UnicodeDecodeError as e:
@@ -189,7 +197,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     root.finish()
     ctx.fail_if_any()
 
-    return m.Vessel(
+    return _physical(ctx).check_vessel(ctx, m.Vessel(
         particulars=particulars,
         lightship=lightship,
         hydrostatics=hydro,
@@ -209,7 +217,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
         conversions=tuple(rd.conversions),
         assumptions=tuple(rd.assumptions),
         draft_marks=marks,
-    )
+    ))
 
 
 def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:
@@ -222,9 +230,10 @@ def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:
     kw = dict(
         name=t.text("name"),
         vessel_type=t.text("vessel_type", required=False, empty_ok=True),
-        lbp_m=t.num("lbp_m", positive),
-        breadth_m=t.num("breadth_m", positive),
-        depth_m=t.num("depth_m", positive),
+        # every other physical bound derives from these three (deckload.core.bounds)
+        lbp_m=t.num("lbp_m", positive, between(*LBP_RANGE_M, "m", "a ship's length between perpendiculars")),
+        breadth_m=t.num("breadth_m", positive, between(*BEAM_DEPTH_RANGE_M, "m", "a ship's moulded breadth")),
+        depth_m=t.num("depth_m", positive, between(*BEAM_DEPTH_RANGE_M, "m", "a ship's moulded depth")),
         design_draft_m=t.num("design_draft_m", positive),
         table_density_t_m3=t.num("table_density_t_m3", water_density),
     )
@@ -1197,7 +1206,8 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
             consts.append(item)
     root.finish()
     ctx.fail_if_any()
-    return m.Condition(tanks=tuple(fills), holds=tuple(loads), deck_items=tuple(items), constants=tuple(consts), **head)
+    cond = m.Condition(tanks=tuple(fills), holds=tuple(loads), deck_items=tuple(items), constants=tuple(consts), **head)
+    return _physical(ctx).check_condition(ctx, vessel, cond)
 
 
 def _keyed_tables(root: Table, group: str, known: dict[str, int], what: str) -> list[tuple[str, Table]]:
@@ -1295,11 +1305,38 @@ def _read_deck_items(root: Table, vessel: m.Vessel) -> list[m.DeckItem]:
             base = None
         has_fp = t.has("footprint_m2")
         fp = t.num("footprint_m2", positive, required=False)
+        wind, wind_ok = _deck_item_windage(t, vessel)
         t.finish()
-        if base is None or (has_fp and fp is None) or (t.has("area") and area is None):
+        if base is None or (has_fp and fp is None) or (t.has("area") and area is None) or not wind_ok:
             continue
-        out.append(m.DeckItem(area_id=area, footprint_m2=fp, **vars(base)))
+        out.append(m.DeckItem(area_id=area, footprint_m2=fp, **wind, **vars(base)))
     return out
+
+
+def _physical(ctx: FileCheck):
+    """Physical bounds and completeness, checked once the model is built (deckload.physcheck)."""
+    from deckload import physcheck
+
+    return physcheck
+
+
+def _deck_item_windage(t: Table, vessel: m.Vessel) -> tuple[dict, bool]:
+    """Optional windage of a deck item: ``windage_area_m2`` and ``windage_centroid_z_m``, both or neither."""
+    keys = ("windage_area_m2", "windage_centroid_z_m")
+    given = [k for k in keys if t.has(k)]
+    p = vessel.particulars
+    # bounds from the vessel's size: a deck stow is no longer than the ship nor 30 m above the deck
+    area = t.num("windage_area_m2", non_negative,
+                 at_most(1.5 * p.lbp_m * 30.0, "m² (1.5 × LBP × 30 m): not a deck item's side"), required=False)
+    z = t.num("windage_centroid_z_m", between(0.0, p.depth_m + 30.0, "m", "above the keel, up to depth + 30 m"),
+              required=False)
+    if len(given) == 1:
+        missing = keys[1] if given[0] == keys[0] else keys[0]
+        t.bad(missing, MISSING, f"required with {given[0]} (the item's windage needs its area and its height)")
+        return {}, False
+    if given and (area is None or z is None):
+        return {}, False
+    return ({"windage_area_m2": area, "windage_centroid_z_m": z} if given else {}), True
 
 
 # =========================================================================== writing
@@ -1342,6 +1379,9 @@ def condition_dict(c: m.Condition) -> dict:
                 d["area"] = it.area_id
             if it.footprint_m2 is not None:
                 d["footprint_m2"] = float(it.footprint_m2)
+            if it.windage_area_m2 is not None and it.windage_centroid_z_m is not None:
+                d["windage_area_m2"] = float(it.windage_area_m2)
+                d["windage_centroid_z_m"] = float(it.windage_centroid_z_m)
             doc["deck_item"].append(d)
     if c.constants:
         doc["constant"] = [_mass_item_dict(it) for it in c.constants]

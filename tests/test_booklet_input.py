@@ -648,7 +648,7 @@ def test_weather_area_b_beyond_the_table_is_not_assessable():
     assert full.assessed and full.passed
     assert short.value < full.value and short.value < short.limit
     assert (short.assessed, short.passed) == (False, False)
-    assert "area b stops at 40°, where the KN tables end" in short.note
+    assert "beyond the KN tables' 40°: not assessable" in short.note
 
 
 def test_profile_criteria_beyond_the_table_are_not_assessable():
@@ -696,7 +696,7 @@ source = "Example class rule E"
     assert crit["profile-1-min-gz-at"].assessed and crit["profile-1-min-gz-at"].passed
     for cid in ("profile-2-min-gz-at", "profile-3-min-area", "profile-4-min-range"):
         assert (crit[cid].assessed, crit[cid].passed) == (False, False), cid
-        assert "beyond 60°, where the KN tables end" in crit[cid].note, cid
+        assert "the KN tables' end at 60°: not assessable" in crit[cid].note, cid
     assert crit["profile-5-min-range"].assessed and crit["profile-5-min-range"].value == 60.0
 
 
