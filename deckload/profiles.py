@@ -36,6 +36,8 @@ import tomli_w
 from deckload.atomicfile import write_atomic
 from deckload.conventions import DATUMS, Frame, read_frame, tcg_array, tcg_num
 from deckload.core import model as m
+from deckload.core.gz import STEP_DEG as GZ_STEP_DEG
+from deckload.core.gz import grid_points
 from deckload.core.loading import reading_range
 from deckload.core.tables import interp
 from deckload.csvtables import attach_csv, attach_kn_csv
@@ -398,7 +400,8 @@ def _check_kn_reach(root: Table, cross: m.CrossCurves | None, flood: m.LimitCurv
         return
     end = float(cross.heel_deg[-1])
     top = float(np.max(flood.value))
-    if top > end + 1e-9:
+    grid_end = (grid_points(cross) - 1) * GZ_STEP_DEG  # the curve is worked on a 0.1° grid up to the end
+    if top > grid_end + 1e-9:
         t = root.table("cross_curves")
         t.bad("heel_deg", t.data["heel_deg"], f"ends at {num(end)}°, before the downflooding angle {num(top)}° "
               "in [downflooding]: the criteria look up to θf, and nothing is extrapolated")
@@ -1297,10 +1300,11 @@ def _read_deck_items(root: Table, vessel: m.Vessel) -> list[m.DeckItem]:
             base = None
         has_fp = t.has("footprint_m2")
         fp = t.num("footprint_m2", positive, required=False)
+        wind, wind_ok = _deck_item_windage(t, vessel)
         t.finish()
-        if base is None or (has_fp and fp is None) or (t.has("area") and area is None):
+        if base is None or (has_fp and fp is None) or (t.has("area") and area is None) or not wind_ok:
             continue
-        out.append(m.DeckItem(area_id=area, footprint_m2=fp, **vars(base)))
+        out.append(m.DeckItem(area_id=area, footprint_m2=fp, **wind, **vars(base)))
     return out
 
 
@@ -1309,6 +1313,25 @@ def _physical(ctx: FileCheck):
     from deckload import physcheck
 
     return physcheck
+
+
+def _deck_item_windage(t: Table, vessel: m.Vessel) -> tuple[dict, bool]:
+    """Optional windage of a deck item: ``windage_area_m2`` and ``windage_centroid_z_m``, both or neither."""
+    keys = ("windage_area_m2", "windage_centroid_z_m")
+    given = [k for k in keys if t.has(k)]
+    p = vessel.particulars
+    # bounds from the vessel's size: a deck stow is no longer than the ship nor 30 m above the deck
+    area = t.num("windage_area_m2", non_negative,
+                 at_most(1.5 * p.lbp_m * 30.0, "m² (1.5 × LBP × 30 m): not a deck item's side"), required=False)
+    z = t.num("windage_centroid_z_m", between(0.0, p.depth_m + 30.0, "m", "above the keel, up to depth + 30 m"),
+              required=False)
+    if len(given) == 1:
+        missing = keys[1] if given[0] == keys[0] else keys[0]
+        t.bad(missing, MISSING, f"required with {given[0]} (the item's windage needs its area and its height)")
+        return {}, False
+    if given and (area is None or z is None):
+        return {}, False
+    return ({"windage_area_m2": area, "windage_centroid_z_m": z} if given else {}), True
 
 
 # =========================================================================== writing
@@ -1351,6 +1374,9 @@ def condition_dict(c: m.Condition) -> dict:
                 d["area"] = it.area_id
             if it.footprint_m2 is not None:
                 d["footprint_m2"] = float(it.footprint_m2)
+            if it.windage_area_m2 is not None and it.windage_centroid_z_m is not None:
+                d["windage_area_m2"] = float(it.windage_area_m2)
+                d["windage_centroid_z_m"] = float(it.windage_centroid_z_m)
             doc["deck_item"].append(d)
     if c.constants:
         doc["constant"] = [_mass_item_dict(it) for it in c.constants]

@@ -506,6 +506,11 @@ class DeckItem(MassItem):
     """Deck area the item stands on, for the deck-load check."""
     footprint_m2: float | None = None
     """Area the item bears on (m²), for the local deck-load check."""
+    windage_area_m2: float | None = None
+    """Lateral area the item adds to the wind (m²): its side as seen abeam, less what another
+    item or the bulwark already hides; 0 when wholly hidden; None when not stated."""
+    windage_centroid_z_m: float | None = None
+    """Height of the centre of that area above the keel (m)."""
 
 
 @dataclass(frozen=True)

@@ -314,7 +314,7 @@ def item_from_form(vessel: Vessel, form: ItemForm, *, deck: bool, base: MassItem
     """A deck item (``deck=True``) or constant from the dialog's fields, every field checked.
 
     ``base``: the item being edited; what the form does not show (a deck item's
-    footprint) is kept from it.
+    footprint and windage) is kept from it.
 
     Mass and position must lie within the vessel's physical bounds, the same ones every
     file is held to (:mod:`deckload.core.bounds`): x from −0.2·LBP to 1.2·LBP, |y| ≤ B/2,
@@ -340,7 +340,8 @@ def item_from_form(vessel: Vessel, form: ItemForm, *, deck: bool, base: MassItem
         known = ", ".join(vessel.area_index) or "none"
         raise EntryError(f"Deck area {area!r} is not one of this vessel's deck areas ({known}).")
     footprint = getattr(base, "footprint_m2", None)
-    return DeckItem(name, mass, lcg, vcg, tcg, area_id=area, footprint_m2=footprint)
+    windage = {k: getattr(base, k) for k in ("windage_area_m2", "windage_centroid_z_m") if getattr(base, k, None) is not None}
+    return DeckItem(name, mass, lcg, vcg, tcg, area_id=area, footprint_m2=footprint, **windage)
 
 
 def form_of(item: MassItem) -> ItemForm:
