@@ -71,8 +71,13 @@ def load_and_evaluate(profile_path: Path, condition_path: Path):
     from deckload.core.tables import OutOfRangeError
     from deckload.profiles import ProfileError, load_condition, load_profile
 
+    from deckload.audit_report import audit_or_refuse
+
     try:
         vessel = load_profile(profile_path)
+        # A profile whose numbers contradict each other (positions outside the vessel, a KN or an
+        # inertia beyond her hull) is never used, by any command (issue 12: the screen already refused it).
+        audit_or_refuse(profile_path, vessel)
         condition = load_condition(condition_path, vessel)
         return vessel, condition, evaluate(vessel, condition)
     except ProfileError as e:
