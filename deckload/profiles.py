@@ -117,6 +117,7 @@ def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
     limit = _read_limit_curve(root)
     downflooding = _read_downflooding(root)
     marks = _read_draft_marks(root, particulars)
+    hull = _read_hull_geometry(root, particulars, filename)
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
     tanks = _read_tanks(root, fs, ids)
@@ -139,6 +140,7 @@ def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
         criteria=criteria,
         free_surface=fs,
         draft_marks=marks,
+        hull=hull,
     )
 
 
@@ -341,6 +343,40 @@ def _read_downflooding(root: Table) -> m.LimitCurve | None:
     if not t.same_length("displacement_t", {"displacement_t": disp, "angle_deg": ang}):
         return None
     return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(ang), kind="downflooding_deg")
+
+
+HULL_MATCH_TOLERANCE = 0.001
+"""The geometry file's LBP and breadth must match the profile's within 0.1 %: a different hull
+would give a 'second method' about another ship."""
+
+
+def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename: str):
+    """``hull_geometry``: the geometry file (path relative to the profile) whose hull the direct
+    calculation integrates.  Its problems are reported as the profile's, naming the file."""
+    name = root.text("hull_geometry", required=False, default=None)
+    if name is None:
+        return None
+    from deckload.core.geometry.builder import hull_body
+    from deckload.geometry_io import load_geometry
+
+    path = Path(name)
+    if not path.is_absolute():
+        path = Path(filename).parent / path
+    if not path.is_file():
+        root.bad("hull_geometry", name, f"no such geometry file ({path})")
+        return None
+    try:
+        geometry = load_geometry(path)
+    except ProfileError as e:
+        root.bad("hull_geometry", name, "the geometry file has problems: " + "; ".join(str(p) for p in e.problems))
+        return None
+    if particulars is not None:
+        for key, ours, theirs in (("lbp_m", particulars.lbp_m, geometry.vessel.lbp_m),
+                                  ("breadth_m", particulars.breadth_m, geometry.vessel.breadth_m)):
+            if abs(ours - theirs) > HULL_MATCH_TOLERANCE * ours:
+                root.bad("hull_geometry", name, f"its {key} {num(theirs)} m is not the profile's {num(ours)} m")
+                return None
+    return hull_body(geometry)
 
 
 def _read_draft_marks(root: Table, particulars: m.Particulars | None) -> m.DraftMarks | None:

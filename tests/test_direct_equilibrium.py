@@ -174,3 +174,108 @@ def test_more_than_the_hull_holds_is_refused():
         direct_state(box_body(), L, float("nan"), RHO_SW, LCG, KG, 0.0)
     assert HEELS_DEG[0] == 0.0 and HEELS_DEG[-1] == 90.0
     assert dataclasses.is_dataclass(direct_state(box_body(), L, DISP, RHO_SW, L / 2, KG, 0.0))
+
+
+# --------------------------------------------------------------------------- the demo vessel: both methods
+
+
+def _demo(key: str = "departure"):
+    from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
+    from deckload.profiles import load_condition, load_profile
+
+    v = load_profile(DEMO_PROFILE)
+    c = load_condition(DEMO_CONDITIONS[key], v)
+    return v, c, evaluate(v, c)
+
+
+@pytest.mark.parametrize("key", ["departure", "arrival", "midvoyage"])
+def test_demo_tables_and_direct_agree_within_ur_l5(key):
+    """The demo's tables were computed from the same hull for LCG 17.4 m; the direct method solves
+    for the actual G.  The two must agree within UR L5 (standards.md §5.3): draughts and trim
+    1 %/5 cm, GM 5 cm, GZ 5 %/5 cm; with the free-surface correction 'constant' the direct
+    curve is the hull's own KN − KG fluid·sinφ − TCG·cosφ, nothing of the tables in it."""
+    from deckload.core.equilibrium import compare
+
+    v, c, r = _demo(key)
+    cmp = compare(v, r)
+    rows = {n: (a, b) for n, _, a, b in cmp.rows}
+    for name in ("Draft aft", "Draft forward", "Draft midships"):
+        a, b = rows[name]
+        assert abs(b - a) <= min(0.01 * a, 0.05), name
+    # KMt: the tables' is upright at even keel, the direct one at her actual trim, whose waterplane
+    # differs (1 % at the midvoyage trim of 0.49 m) — a difference of input, so only UR L5's 5 cm
+    a, b = rows["GM fluid"]
+    assert abs(b - a) <= 0.05
+    for deg in (10, 20, 30, 40, 50, 60):
+        a, b = rows[f"GZ at {deg}°"]
+        assert abs(b - a) <= 0.05, deg
+    side = cmp.direct.gz_port_m if r.criteria_side == "port" else cmp.direct.gz_stbd_m
+    assert np.allclose(cmp.gz_direct_m, side[::10], atol=1e-9)
+
+
+def test_demo_direct_gz_against_trimesh():
+    """The direct KN at free trim for the demo departure's actual G against trimesh slicing a mesh
+    of the same offsets with its own free-trim root finding (deckload.bench_tables.ref_kn):
+    within 1 cm (UR L5 KN 5 cm; the mesh's flat facets between offsets account for a few mm)."""
+    pytest.importorskip("trimesh")
+    from deckload.bench_tables import GEOMETRY, hull_mesh, ref_kn
+    from deckload.geometry_io import load_geometry
+
+    v, _, r = _demo("departure")
+    d = direct_state(v.hull, v.particulars.lbp_m, r.displacement_t, r.water_density_t_m3, r.lcg_m, r.kg_fluid_m, 0.0)
+    mesh = hull_mesh(load_geometry(GEOMETRY).hull)
+    for deg in (20.0, 40.0):
+        kn_ref, t_ref = ref_kn(mesh, r.displacement_t / r.water_density_t_m3, deg, "free trim", r.lcg_m, r.kg_fluid_m)
+        j = int(round(deg / 5.0))
+        assert d.kn_m[j] == pytest.approx(kn_ref, abs=0.01), deg
+        assert math.tan(d.trim_grid_rad[j]) == pytest.approx(t_ref, abs=5e-4)
+
+
+def test_calc_direct_prints_both_methods(capsys, tmp_path):
+    import json
+
+    from deckload.cli import main
+    from deckload.paths import DEMO_PROFILE
+
+    assert main(["calc", "demo", "departure", "--direct"]) == 0
+    out = capsys.readouterr().out
+    assert "Second method: direct calculation from the hull geometry" in out
+    assert "judged on the tables" in out and out.rstrip().endswith("flag-State and class rules.")
+    assert main(["calc", "demo", "departure", "--direct", "--json"]) == 0
+    doc = json.loads(capsys.readouterr().out)
+    assert len(doc["direct"]["gz_m"]) == 91 and doc["direct"]["rows"][0]["quantity"] == "Draft aft"
+    # a profile without hull geometry: a clear message, no traceback
+    text = DEMO_PROFILE.read_text(encoding="utf-8").replace('hull_geometry = "demo_islander.geometry.toml"\n', "")
+    prof = tmp_path / "nohull.toml"
+    prof.write_text(text, encoding="utf-8")
+    from deckload.paths import DEMO_CONDITIONS
+
+    assert main(["calc", str(prof), str(DEMO_CONDITIONS["departure"]), "--direct"]) == 1
+    assert "names no hull_geometry" in capsys.readouterr().err
+
+
+def test_profile_hull_geometry_key_is_checked(tmp_path):
+    from deckload.paths import DEMO_PROFILE
+    from deckload.profiles import ProfileError, load_profile
+
+    text = DEMO_PROFILE.read_text(encoding="utf-8")
+    p = tmp_path / "p.toml"
+    p.write_text(text.replace('hull_geometry = "demo_islander.geometry.toml"', 'hull_geometry = "missing.toml"'),
+                 encoding="utf-8")
+    with pytest.raises(ProfileError, match="hull_geometry.*no such geometry file"):
+        load_profile(p)
+    geo = (DEMO_PROFILE.parent / "demo_islander.geometry.toml").read_text(encoding="utf-8")
+    (tmp_path / "demo_islander.geometry.toml").write_text(geo.replace("breadth_m = 10.0", "breadth_m = 10.5"),
+                                                          encoding="utf-8")
+    p.write_text(text, encoding="utf-8")
+    with pytest.raises(ProfileError, match="breadth_m 10.5 m is not the profile's 10 m"):
+        load_profile(p)
+
+
+def test_packaged_geometry_is_the_committed_one():
+    """The packaged demo profile names its geometry beside it: the same file as vessel_profiles'."""
+    from pathlib import Path
+
+    root = Path(__file__).resolve().parent.parent
+    assert (root / "deckload" / "data" / "demo_islander.geometry.toml").read_bytes() == \
+        (root / "vessel_profiles" / "demo_islander.geometry.toml").read_bytes()

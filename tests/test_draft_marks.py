@@ -119,17 +119,17 @@ def test_impossible_readings_and_missing_marks_are_refused():
 
 def test_profile_draft_marks_are_validated():
     text = DEMO_PROFILE.read_text(encoding="utf-8")
-    v = parse_profile(text, "demo.toml")
+    v = parse_profile(text, str(DEMO_PROFILE))
     assert v.draft_marks.forward.x_m == 36.0 and v.draft_marks.keel_thickness_m == 0.012
     swapped = text.replace("[draft_marks.forward]\nx_m = 36.0", "[draft_marks.forward]\nx_m = 10.0")
     with pytest.raises(ProfileError, match="draft_marks.midships"):
-        parse_profile(swapped, "demo.toml")
+        parse_profile(swapped, str(DEMO_PROFILE))
     wide = text.replace("[draft_marks.midships]\nx_m = 19.0\ny_m = 5.0", "[draft_marks.midships]\nx_m = 19.0\ny_m = 6.0")
     with pytest.raises(ProfileError, match=r"draft_marks\.midships\.y_m = 6\.0.*between"):
-        parse_profile(wide, "demo.toml")
+        parse_profile(wide, str(DEMO_PROFILE))
     thick = text.replace("keel_thickness_m = 0.012", "keel_thickness_m = 0.9")
     with pytest.raises(ProfileError, match="keel_thickness_m"):
-        parse_profile(thick, "demo.toml")
+        parse_profile(thick, str(DEMO_PROFILE))
 
 
 def test_marks_command(capsys):

@@ -124,3 +124,64 @@ def direct_state(body: Body, lbp_m: float, displacement_t: float, water_density_
         trim_m=t_ap - t_fp, list_deg=heel, kmt_m=kmt, gm_fluid_m=kmt - kg_fluid_m, heel_deg=HEELS_DEG.copy(),
         kn_m=kn, trim_grid_rad=np.arctan(t), gz_stbd_m=gz_stbd, gz_port_m=gz_port,
     )
+
+
+@dataclass(frozen=True)
+class Comparison:
+    """The table method's result and the direct calculation side by side."""
+
+    direct: DirectState
+    rows: tuple[tuple[str, str, float, float], ...]
+    """(quantity, unit, tables, direct); the difference is direct − tables."""
+    gz_direct_m: tuple[float, ...]
+    """Direct GZ at whole degrees 0–90 on the side the criteria are checked (m)."""
+
+
+def compare(vessel, result) -> Comparison:
+    """Direct calculation for a computed :class:`~deckload.core.result.Result`, beside it.
+
+    Same displacement, water, LCG, KG fluid and TCG.  The direct KN replace the tables' KN
+    and nothing else: the free-surface treatment of the result (constant or actual transfer)
+    is carried over as the difference between its GZ and KN − KG fluid·sinφ − TCG·cosφ, so the
+    two curves differ only by what the tables and the hull say about the immersed volume.
+    """
+    if vessel.hull is None:
+        raise DirectError("the profile names no hull_geometry: the direct calculation needs the hull")
+    d = direct_state(vessel.hull, vessel.particulars.lbp_m, result.displacement_t, result.water_density_t_m3,
+                     result.lcg_m, result.kg_fluid_m, result.tcg_m)
+    rho_ratio = result.water_density_t_m3 / vessel.particulars.table_density_t_m3
+    kn_table = gzmod.kn_curve(vessel.cross_curves, result.displacement_t / rho_ratio)
+    whole = gzmod.WHOLE_DEGREES
+    port = result.criteria_side == "port"
+    gz_table_whole = np.array(result.gz_port_m if port else result.gz_m)
+    sign = 1.0 if port else -1.0
+    plain_whole = (kn_table - result.kg_fluid_m * gzmod.SIN + sign * result.tcg_m * gzmod.COS)[whole]
+    # the result's free-surface treatment, beyond the constant KG fluid (zero for 'constant')
+    extra = np.interp(gzmod.FINE_DEG, gzmod.FINE_DEG[whole], gz_table_whole - plain_whole)
+    gz_direct = (d.gz_port_m if port else d.gz_stbd_m) + extra
+    f = gzmod.facts(gz_direct)
+    flood = result.downflooding_angle_deg
+    top = min(40.0, flood) if flood is not None else 40.0
+    a30 = gzmod.area_to(gz_direct, 30.0)
+    a40 = gzmod.area_to(gz_direct, top)
+    heel = f.equilibrium_deg if not port else -f.equilibrium_deg
+    rows = [
+        ("Draft aft", "m", result.draft_aft_m, d.draft_aft_m),
+        ("Draft forward", "m", result.draft_fwd_m, d.draft_fwd_m),
+        ("Draft midships", "m", result.draft_mean_m, d.draft_mid_m),
+        ("Trim (+ by the stern)", "m", result.trim_m, d.trim_m),
+        ("List (+ starboard)", "deg", result.list_deg, heel),
+        ("KMt", "m", result.km_m, d.kmt_m),
+        ("GM fluid", "m", result.gm_fluid_m, d.gm_fluid_m),
+    ]
+    for deg in (10, 20, 30, 40, 50, 60):
+        rows.append((f"GZ at {deg}°", "m", float(gz_table_whole[deg]), float(gz_direct[deg * 10])))
+    rows += [
+        ("Max GZ", "m", result.max_gz_m, f.max_gz_m),
+        ("Angle of max GZ", "deg", result.max_gz_angle_deg, f.max_gz_angle_deg),
+        ("Area 0–30°", "m·rad", result.area_0_30_mrad, a30),
+        (f"Area 0–{top:.1f}°", "m·rad", result.area_0_40_mrad, a40),
+        (f"Area 30–{top:.1f}°", "m·rad", result.area_30_40_mrad, a40 - a30 if top > 30.0 else 0.0),
+    ]
+    return Comparison(d, tuple((n, u, float(a), float(b)) for n, u, a, b in rows),
+                      tuple(float(x) for x in gz_direct[whole]))

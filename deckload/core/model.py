@@ -23,6 +23,8 @@ from typing import Literal
 
 import numpy as np
 
+from deckload.core.geometry.body import Body
+
 # --------------------------------------------------------------------------- kinds
 
 LIQUID_KINDS: tuple[str, ...] = (
@@ -344,6 +346,9 @@ class Vessel:
     criteria: CriteriaSettings = CriteriaSettings()
     free_surface: FreeSurfaceSettings = FreeSurfaceSettings()
     draft_marks: DraftMarks | None = None
+    hull: "Body | None" = None
+    """The hull as sections (from the geometry file named by ``hull_geometry``), for the direct
+    calculation beside the tables; None when the profile names no geometry."""
     tank_index: dict[str, int] = field(init=False, repr=False, compare=False)
     hold_index: dict[str, int] = field(init=False, repr=False, compare=False)
     area_index: dict[str, int] = field(init=False, repr=False, compare=False)
