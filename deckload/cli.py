@@ -42,6 +42,9 @@ def _parser() -> argparse.ArgumentParser:
     t.add_argument("geometry", type=Path)
     t.add_argument("-o", "--output", type=Path, help="profile to write or refresh (default: print to stdout)")
 
+    x = sub.add_parser("csv", help="write a profile's tables as CSV files, in the booklet's conventions, to compare")
+    x.add_argument("profile", type=Path)
+    x.add_argument("folder", type=Path, help="folder to write the CSV files in (created if missing)")
     mk = sub.add_parser("marks", help="drafts at the marks; with readings, the displacement and LCG they imply")
     mk.add_argument("profile", type=Path)
     mk.add_argument("condition", type=Path)
@@ -127,6 +130,10 @@ def main(argv: list[str] | None = None) -> int:
             from deckload.tables_command import run_tables
 
             return run_tables(args.geometry, args.output)
+        if cmd == "csv":
+            from deckload.csv_command import run_csv
+
+            return run_csv(args.profile, args.folder)
         if cmd == "marks":
             from deckload.marks_command import run_marks
 

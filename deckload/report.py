@@ -120,6 +120,12 @@ def _header(result: Result, vessel: Vessel, condition: Condition, stamp: str | N
         f"load line: {condition.load_line}\n"
     )
     t.append(f"Free surface: {fs}; GZ correction: {gzc}\n")
+    # What the profile assumed where its booklet gave less than the model needs (said plainly).
+    said = list(vessel.assumptions)
+    if result.gz_end_deg < 90.0:
+        said.append(f"KN tables end at {result.gz_end_deg:g}°: the GZ curve and its areas stop there")
+    if said:
+        t.append("Assumed from the profile: " + "; ".join(said) + "\n")
     where = []
     if stamp:
         where.append(f"Computed {stamp}")
@@ -155,7 +161,8 @@ def _summary(result: Result) -> Table:
         ("LCB / LCF from AP", f"{r.lcb_m:.3f} / {r.lcf_m:.3f} m"),
         ("TPC / MCTC", f"{r.tpc_t_cm:.2f} t/cm / {r.mctc_tm_cm:.2f} t·m/cm"),
         ("Max GZ", f"{r.max_gz_m:.3f} m at {r.max_gz_angle_deg:.1f}°"),
-        ("Vanishing angle", "beyond the curve" if r.vanishing_angle_deg is None else f"{r.vanishing_angle_deg:.1f}°"),
+        ("Vanishing angle", (f"beyond {r.gz_end_deg:g}°" + (" (the KN tables end there)" if r.gz_end_deg < 90 else ""))
+         if r.vanishing_angle_deg is None else f"{r.vanishing_angle_deg:.1f}°"),
         ("Downflooding θf", "not given" if r.downflooding_angle_deg is None else f"{r.downflooding_angle_deg:.1f}°"),
     ]
     for k, v in rows:

@@ -155,12 +155,13 @@ class LoadingScreen(Screen[None]):
             self._edit_hold(ident)
         elif what in ("deck", "const"):
             self._edit_item(what == "deck", ident)
+        elif what == "fixed":
+            self.say("A fixed constant of the vessel profile: to change it for this condition, add a constant (c) of the same name.", ok=False)
 
     def _edit_tank(self, tank_id: str) -> None:
         s = self.session
         tank, fill = s.vessel.tank(tank_id), s.condition.tank_fill(tank_id)
-        hint = (f"55% · 12.5m3 · 10t · 1.2m (sounding).  Capacity {tank.capacity_m3:.2f} m³, greatest sounding "
-                f"{entry.max_sounding_m(tank):.2f} m, density {entry.tank_density(tank, fill):.3f} t/m³")
+        hint = entry.amount_hint(tank, fill)
 
         def build(text: str) -> tuple[Condition, str]:
             return entry.tank_from_text(s.condition, tank, text), text.strip()
@@ -390,6 +391,8 @@ class LoadingScreen(Screen[None]):
             self.say(f"{ident} {self.session.vessel.hold(ident).name} · ⏎ cargo mass · + − 1 t · e empty", ok=None)
         elif what in ("deck", "const"):
             self.say("⏎ edit mass and position · + − 1 t · e remove · a add deck load · c add constant", ok=None)
+        elif what == "fixed":
+            self.say("A fixed constant of the vessel profile: to change it for this condition, add a constant (c) of the same name.", ok=None)
 
 
 def alert_lines(alerts: list[views.Alert], height: int) -> list[Text]:

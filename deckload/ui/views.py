@@ -155,6 +155,11 @@ def _cargo_rows(vessel: Vessel, condition: Condition, width: int) -> list[Row]:
         rows.append(Row(("deck", i), _item_line("deck ", item, getattr(item, "area_id", None), name_w)))
     for i, item in enumerate(condition.constants):
         rows.append(Row(("const", i), _item_line("const", item, None, name_w)))
+    # The profile's fixed constants this condition does not replace (read-only here).
+    own = {c.name for c in condition.constants}
+    for i, item in enumerate(vessel.constants):
+        if item.name not in own:
+            rows.append(Row(("fixed", i), _item_line("fixed", item, None, name_w)))
     return rows
 
 
@@ -282,6 +287,8 @@ def gz_caption(result: Result | None) -> Text:
     t.append(f"  max {result.max_gz_m:.3f} m at {result.max_gz_angle_deg:.0f}°", P["dim"])
     if result.vanishing_angle_deg is not None:
         t.append(f"  zero at {result.vanishing_angle_deg:.0f}°", P["dim"])
+    elif result.gz_end_deg < 90.0:
+        t.append(f"  zero beyond {result.gz_end_deg:g}° (KN end)", P["dim"])
     if result.downflooding_angle_deg is not None:
         t.append(f"  θf {result.downflooding_angle_deg:.0f}°", P["dim"])
     return t
