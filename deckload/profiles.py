@@ -36,6 +36,8 @@ import tomli_w
 from deckload.atomicfile import write_atomic
 from deckload.conventions import DATUMS, Frame, read_frame, tcg_array, tcg_num
 from deckload.core import model as m
+from deckload.core.gz import STEP_DEG as GZ_STEP_DEG
+from deckload.core.gz import grid_points
 from deckload.core.loading import reading_range
 from deckload.core.tables import interp
 from deckload.csvtables import attach_csv, attach_kn_csv
@@ -66,8 +68,11 @@ CONDITION_FORMAT = "deckload-condition-1"
 LIQUID_DENSITY_RANGE_T_M3 = (0.5, 2.0)
 """Plausible densities of a tank's contents (t/m³): light oils ~0.8, heavy brines ~1.3."""
 
-WATER_DENSITY_RANGE_T_M3 = (0.99, 1.04)
-"""Plausible densities of the water a vessel floats in (t/m³): fresh 1.000, sea about 1.025."""
+from deckload.core.bounds import (  # noqa: E402  one set of ranges for files and the screen
+    BEAM_DEPTH_RANGE_M,
+    LBP_RANGE_M,
+    WATER_DENSITY_RANGE_T_M3,
+)
 
 CAPACITY_TOLERANCE = 0.0005
 """A tank's capacity_m3 may differ from its last calibration volume by at most 0.05 % (round-off):
@@ -103,7 +108,12 @@ def read_profile(path: str | os.PathLike) -> tuple[m.Vessel, "Reading"]:
 
 
 def _read_text(path: str | os.PathLike) -> str:
-    data = Path(path).read_bytes()
+    from deckload.limits import MAX_TOML_BYTES, TooLargeError, read_limited
+
+    try:
+        data = read_limited(path, MAX_TOML_BYTES, "a profile or condition")
+    except TooLargeError as e:
+        raise ProfileError([Problem(str(path), None, "", None, str(e).split(": ", 1)[1])]) from None
     try:
         return data.decode("utf-8")
     except UnicodeDecodeError as e:
@@ -173,7 +183,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     windage = _read_windage(root, particulars)
     deck_edge = _read_deck_edge(root)
     passengers = _read_passengers(root, particulars, criteria)
-    marks = _read_draft_marks(root, particulars)
+    marks = _read_draft_marks(root, particulars, frame, rd)
     hull = _read_hull_geometry(root, particulars, filename)
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
@@ -188,7 +198,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     root.finish()
     ctx.fail_if_any()
 
-    return m.Vessel(
+    return _physical(ctx).check_vessel(ctx, m.Vessel(
         particulars=particulars,
         lightship=lightship,
         hydrostatics=hydro,
@@ -209,7 +219,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
         assumptions=tuple(rd.assumptions),
         draft_marks=marks,
         hull=hull,
-    )
+    ))
 
 
 def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:
@@ -222,9 +232,10 @@ def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:
     kw = dict(
         name=t.text("name"),
         vessel_type=t.text("vessel_type", required=False, empty_ok=True),
-        lbp_m=t.num("lbp_m", positive),
-        breadth_m=t.num("breadth_m", positive),
-        depth_m=t.num("depth_m", positive),
+        # every other physical bound derives from these three (deckload.core.bounds)
+        lbp_m=t.num("lbp_m", positive, between(*LBP_RANGE_M, "m", "a ship's length between perpendiculars")),
+        breadth_m=t.num("breadth_m", positive, between(*BEAM_DEPTH_RANGE_M, "m", "a ship's moulded breadth")),
+        depth_m=t.num("depth_m", positive, between(*BEAM_DEPTH_RANGE_M, "m", "a ship's moulded depth")),
         design_draft_m=t.num("design_draft_m", positive),
         table_density_t_m3=t.num("table_density_t_m3", water_density),
     )
@@ -391,7 +402,8 @@ def _check_kn_reach(root: Table, cross: m.CrossCurves | None, flood: m.LimitCurv
         return
     end = float(cross.heel_deg[-1])
     top = float(np.max(flood.value))
-    if top > end + 1e-9:
+    grid_end = (grid_points(cross) - 1) * GZ_STEP_DEG  # the curve is worked on a 0.1° grid up to the end
+    if top > grid_end + 1e-9:
         t = root.table("cross_curves")
         t.bad("heel_deg", t.data["heel_deg"], f"ends at {num(end)}°, before the downflooding angle {num(top)}° "
               "in [downflooding]: the criteria look up to θf, and nothing is extrapolated")
@@ -749,48 +761,49 @@ def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename
     return hull_body(geometry)
 
 
-def _read_draft_marks(root: Table, particulars: m.Particulars | None) -> m.DraftMarks | None:
-    """``[draft_marks]``: aft, midships, forward marks (x_m, y_m) and the keel thickness.
+def _read_draft_marks(root: Table, particulars: m.Particulars | None, frame: Frame | None,
+                      rd: Reading) -> m.DraftMarks | None:
+    """``[draft_marks]``: aft, midships, forward marks (x_m in the vessel's or the table's own
+    longitudinal convention, y_m off the centreline).  They read extreme drafts: moulded plus
+    ``[vessel] keel_thickness_m``.
 
     Bounds from the vessel: marks within 20 % of LBP beyond either perpendicular, no further
     off the centreline than half the breadth, aft < midships < forward with the aft and
-    forward marks at least half the LBP apart (the trim is found from their difference);
-    keel thickness under a tenth of the depth.
+    forward marks at least half the LBP apart (the trim is found from their difference).
     """
     t = root.table("draft_marks", required=False)
     if t is None:
         return None
-    lbp = particulars.lbp_m if particulars is not None else None
+    f = read_frame(t, frame)
     half_b = particulars.breadth_m / 2.0 if particulars is not None else None
-    x_rule = (between(-0.2 * lbp, 1.2 * lbp, "m", "within 20 % of LBP of the perpendiculars")
-              if lbp is not None else None)
     y_rule = between(0.0, half_b, "m", "between the centreline and the side") if half_b is not None else non_negative
-    k_rule = (between(0.0, 0.1 * particulars.depth_m, "m", "a keel plate, under a tenth of the depth")
-              if particulars is not None else non_negative)
-    keel = t.num("keel_thickness_m", k_rule, required=False, default=0.0)
-    bad_keel = t.has("keel_thickness_m") and keel is None
     found: dict[str, m.DraftMark | None] = {}
     for where in ("aft", "midships", "forward"):
         sub = t.table(where)
         if sub is None:
             found[where] = None
             continue
-        x = sub.num("x_m", *((x_rule,) if x_rule else ()))
+        x = _x(sub, "x_m", f)
         y = sub.num("y_m", y_rule)
         sub.finish()
+        if x is not None and particulars is not None and not -0.2 * particulars.lbp_m <= x <= 1.2 * particulars.lbp_m:
+            sub.bad("x_m", sub.data["x_m"], f"is {num(x)} m from the AP: marks lie within 20 % of LBP of the perpendiculars")
+            x = None
         found[where] = None if x is None or y is None else m.DraftMark(x, y)
     t.finish()
-    if bad_keel or any(v is None for v in found.values()) or lbp is None:
+    _note_frame(rd, t.name, f, "x_m", "", False)
+    if any(v is None for v in found.values()) or particulars is None:
         return None
-    a, mid, f = found["aft"], found["midships"], found["forward"]
-    if not a.x_m < mid.x_m < f.x_m:
-        t.bad("midships", t.data["midships"], "the marks must lie aft < midships < forward (x_m from AP)")
+    lbp = particulars.lbp_m
+    a, mid, fw = found["aft"], found["midships"], found["forward"]
+    if not a.x_m < mid.x_m < fw.x_m:
+        t.bad("midships", t.data["midships"], "the marks must lie aft < midships < forward")
         return None
-    if f.x_m - a.x_m < 0.5 * lbp:
-        t.bad("forward", t.data["forward"], f"only {num(f.x_m - a.x_m)} m forward of the aft marks: they must be at "
+    if fw.x_m - a.x_m < 0.5 * lbp:
+        t.bad("forward", t.data["forward"], f"only {num(fw.x_m - a.x_m)} m forward of the aft marks: they must be at "
               f"least half the LBP ({num(0.5 * lbp)} m) apart to give the trim")
         return None
-    return m.DraftMarks(a, mid, f, keel)
+    return m.DraftMarks(a, mid, fw)
 
 
 def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,
@@ -1225,7 +1238,8 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
             consts.append(item)
     root.finish()
     ctx.fail_if_any()
-    return m.Condition(tanks=tuple(fills), holds=tuple(loads), deck_items=tuple(items), constants=tuple(consts), **head)
+    cond = m.Condition(tanks=tuple(fills), holds=tuple(loads), deck_items=tuple(items), constants=tuple(consts), **head)
+    return _physical(ctx).check_condition(ctx, vessel, cond)
 
 
 def _keyed_tables(root: Table, group: str, known: dict[str, int], what: str) -> list[tuple[str, Table]]:
@@ -1323,11 +1337,38 @@ def _read_deck_items(root: Table, vessel: m.Vessel) -> list[m.DeckItem]:
             base = None
         has_fp = t.has("footprint_m2")
         fp = t.num("footprint_m2", positive, required=False)
+        wind, wind_ok = _deck_item_windage(t, vessel)
         t.finish()
-        if base is None or (has_fp and fp is None) or (t.has("area") and area is None):
+        if base is None or (has_fp and fp is None) or (t.has("area") and area is None) or not wind_ok:
             continue
-        out.append(m.DeckItem(area_id=area, footprint_m2=fp, **vars(base)))
+        out.append(m.DeckItem(area_id=area, footprint_m2=fp, **wind, **vars(base)))
     return out
+
+
+def _physical(ctx: FileCheck):
+    """Physical bounds and completeness, checked once the model is built (deckload.physcheck)."""
+    from deckload import physcheck
+
+    return physcheck
+
+
+def _deck_item_windage(t: Table, vessel: m.Vessel) -> tuple[dict, bool]:
+    """Optional windage of a deck item: ``windage_area_m2`` and ``windage_centroid_z_m``, both or neither."""
+    keys = ("windage_area_m2", "windage_centroid_z_m")
+    given = [k for k in keys if t.has(k)]
+    p = vessel.particulars
+    # bounds from the vessel's size: a deck stow is no longer than the ship nor 30 m above the deck
+    area = t.num("windage_area_m2", non_negative,
+                 at_most(1.5 * p.lbp_m * 30.0, "m² (1.5 × LBP × 30 m): not a deck item's side"), required=False)
+    z = t.num("windage_centroid_z_m", between(0.0, p.depth_m + 30.0, "m", "above the keel, up to depth + 30 m"),
+              required=False)
+    if len(given) == 1:
+        missing = keys[1] if given[0] == keys[0] else keys[0]
+        t.bad(missing, MISSING, f"required with {given[0]} (the item's windage needs its area and its height)")
+        return {}, False
+    if given and (area is None or z is None):
+        return {}, False
+    return ({"windage_area_m2": area, "windage_centroid_z_m": z} if given else {}), True
 
 
 # =========================================================================== writing
@@ -1370,6 +1411,9 @@ def condition_dict(c: m.Condition) -> dict:
                 d["area"] = it.area_id
             if it.footprint_m2 is not None:
                 d["footprint_m2"] = float(it.footprint_m2)
+            if it.windage_area_m2 is not None and it.windage_centroid_z_m is not None:
+                d["windage_area_m2"] = float(it.windage_area_m2)
+                d["windage_centroid_z_m"] = float(it.windage_centroid_z_m)
             doc["deck_item"].append(d)
     if c.constants:
         doc["constant"] = [_mass_item_dict(it) for it in c.constants]

@@ -491,7 +491,8 @@ def test_tables_refreshed_from_geometry_keep_their_own_datum_in_a_midships_profi
     doc["vessel"].update(longitudinal_datum="midships", longitudinal_positive="forward", transverse_positive="port")
     gen = {k: doc[k] for k in ("hydrostatics", "tank", "hold", "deck_area")}
     _stamp_model_conventions(doc, gen, doc["vessel"])
-    v, demo = parse_profile(render(doc), "mid_demo.toml"), load_profile(demo_path)
+    # named beside the demo, so that its hull_geometry (a path relative to the profile) is found
+    v, demo = parse_profile(render(doc), str(demo_path.with_name("mid_demo.toml"))), load_profile(demo_path)
     for a, b in zip(v.tanks, demo.tanks):
         assert np.array_equal(a.calibration.stacked(), b.calibration.stacked()), a.id
     assert np.array_equal(v.hydrostatics.lcb_m, demo.hydrostatics.lcb_m)
@@ -510,6 +511,7 @@ def test_the_report_says_what_was_assumed_and_where_the_curve_stops():
     assert "Assumed from the profile: tank[LO1]: capacity and centre only" in out
     assert "KN tables end at 60°: the GZ curve and its areas stop there" in out
     assert not any(w.code == "slack-worst-band" for w in r.warnings)  # no free surface given: no worst band
+    assert next(t for t in r.tanks if t.id == "LO1").fs_rule == "no free surface given in the profile (capacity only)"
 
 
 def test_curves_against_draft_and_a_hold_fill_table_round_trip_through_csv(tmp_path, capsys):
@@ -601,3 +603,99 @@ async def test_profile_constants_show_on_the_board_and_cannot_be_edited_there(tm
         await pilot.pause()
         assert app.session.condition is c0
         assert "fixed constant of the vessel profile" in app.screen.query_one("#status", LinePanel).plain()
+
+
+# =========================================================================== short curves and the other criteria
+
+
+def _cut(v: m.Vessel, end_deg: float) -> m.Vessel:
+    """The same vessel with its KN tables ending at ``end_deg`` (as a booklet's might)."""
+    import dataclasses
+
+    cc = v.cross_curves
+    k = int(np.searchsorted(cc.heel_deg, end_deg)) + 1
+    return dataclasses.replace(v, cross_curves=m.CrossCurves(m.frozen_array(cc.heel_deg[:k]), cc.displacement_t,
+                                                            m.frozen_array(cc.kn_m[:, :k]), cc.trim_basis))
+
+
+def test_weather_area_b_beyond_the_table_is_not_assessable():
+    """IS 2008 A 2.3: area b runs to θ2 = min(θf, 50°, θc).  An invented 40 × 10 × 6 m box at T 2 m,
+    KG 3.5 m, with a large windage (3 × its side above water, centre 3 × as high): on the full curve
+    (KN to 90°) b ≥ a; the same curve cut at 40° stops b short of θ2 = 50° with b < a there, so the
+    criterion cannot be decided from the table: not assessable — never met, never failed on data
+    that is not there.  (Consistency between the two curves; the values are this program's own.)"""
+    import dataclasses
+
+    from vessel_factories import RHO_SW, box_vessel
+
+    drafts = [1.0, 2.0, 2.5]
+    v = box_vessel(length_m=40.0, breadth_m=10.0, depth_m=6.0, drafts_m=drafts, lightship_t=RHO_SW * 40 * 10 * 2.0,
+                   lightship_kg_m=3.5, heel_step_deg=1.0, criteria=m.CriteriaSettings())
+    v = dataclasses.replace(v, windage=m.Windage(
+        m.frozen_array(drafts), m.frozen_array([3 * 40.0 * (6.0 - t) for t in drafts]),
+        m.frozen_array([3 * (6.0 - t) / 2 for t in drafts]), m.frozen_array([40.0] * 3)))
+    full = next(c for c in evaluate(v, m.Condition()).criteria if c.id == "IS2008-A2.3-area-b-a")
+    short = next(c for c in evaluate(_cut(v, 40.0), m.Condition()).criteria if c.id == "IS2008-A2.3-area-b-a")
+    assert full.assessed and full.passed
+    assert short.value < full.value and short.value < short.limit
+    assert (short.assessed, short.passed) == (False, False)
+    assert "beyond the KN tables' 40°: not assessable" in short.note
+
+
+def test_profile_criteria_beyond_the_table_are_not_assessable():
+    """The barge at T 2 m, KG 3 m (checks.md §1: range 65.61°, GZ(30°) 1.08771 m) with KN to 60°: GZ at
+    30° is measured; GZ at 70° and the area to 70° are beyond the table; a range of 62° cannot be
+    confirmed (positive to 60° only), a range of 60° can."""
+    import dataclasses
+
+    from vessel_factories import barge_at
+
+    extra = '''
+[[extra_criterion]]
+kind = "min_gz_at"
+at_deg = 30.0
+limit = 1.0
+source = "Example class rule A"
+
+[[extra_criterion]]
+kind = "min_gz_at"
+at_deg = 70.0
+limit = 0.1
+source = "Example class rule B"
+
+[[extra_criterion]]
+kind = "min_area"
+from_deg = 0.0
+to_deg = 70.0
+limit = 0.1
+source = "Example class rule C"
+
+[[extra_criterion]]
+kind = "min_range"
+limit = 62.0
+source = "Example class rule D"
+
+[[extra_criterion]]
+kind = "min_range"
+limit = 60.0
+source = "Example class rule E"
+'''
+    v0, c = barge_at(2.0, 3.0)
+    v = dataclasses.replace(_cut(v0, 60.0), criteria=parse_profile(BASE + extra, "x.toml").criteria)
+    r = evaluate(v, c)
+    crit = {x.id: x for x in r.criteria if x.set_id == "profile-extra"}
+    assert crit["profile-1-min-gz-at"].assessed and crit["profile-1-min-gz-at"].passed
+    for cid in ("profile-2-min-gz-at", "profile-3-min-area", "profile-4-min-range"):
+        assert (crit[cid].assessed, crit[cid].passed) == (False, False), cid
+        assert "the KN tables' end at 60°: not assessable" in crit[cid].note, cid
+    assert crit["profile-5-min-range"].assessed and crit["profile-5-min-range"].value == 60.0
+
+
+def test_calc_prints_extreme_drafts_where_the_keel_thickness_is_given(tmp_path, capsys):
+    """Extreme draft = moulded + keel (0.02 m): at 820 t even keel the moulded 2.000 m reads 2.020 m."""
+    prof = _write(tmp_path / "keel.toml", edit(BASE, 'longitudinal_datum = "AP"',
+                                              'longitudinal_datum = "AP"\nkeel_thickness_m = 0.02'))
+    c = _write(tmp_path / "c.condition.toml", 'format = "deckload-condition-1"\n[condition]\nname = "c"\n'
+               "water_density_t_m3 = 1.025\n" + HOLD_420)
+    assert main(["calc", str(prof), str(c)]) == 0
+    assert "Extreme drafts (moulded + keel 0.020 m): aft 2.020 m, midships 2.020 m, fwd 2.020 m" in capsys.readouterr().out

@@ -310,3 +310,48 @@ def test_freeboard_and_load_line_margin():
 def test_unknown_ship_type_is_refused_with_the_choices():
     p = only(BASE + '\n[criteria]\nship_type = "tanker"\n')
     assert p.key == "criteria.ship_type" and "offshore_supply" in p.rule
+
+
+def test_profile_criteria_beyond_short_kn_tables_are_not_assessable():
+    """KN tables ending at 40° (a booklet that stops there): GZ at 50° and the area to 60° are
+    unknown, so those rules are not assessable; the range of stability (65.61°, checks.md §1.3)
+    is known only to be at least 40°, short of a 60° rule: not assessable either."""
+    from deckload.core.model import CrossCurves, ExtraCriterion
+
+    v, c = barge_at(2.0, 3.0)
+    cc = v.cross_curves
+    keep = cc.heel_deg <= 40.0
+    rules = (ExtraCriterion("min_gz_at", 0.2, "rule 1", at_deg=50.0),
+             ExtraCriterion("min_area", 0.1, "rule 2", from_deg=0.0, to_deg=60.0),
+             ExtraCriterion("min_range", 60.0, "rule 3"),
+             ExtraCriterion("min_gz_at", 0.2, "rule 4", at_deg=30.0))
+    v = dataclasses.replace(v, cross_curves=CrossCurves(frozen_array(cc.heel_deg[keep]), cc.displacement_t,
+                                                        frozen_array(cc.kn_m[:, keep]), cc.trim_basis),
+                            criteria=CriteriaSettings(extra=rules))
+    r = evaluate(v, c)
+    crit = [c for c in r.criteria if c.set_id == "profile-extra"]
+    assert [c.assessed for c in crit] == [False, False, False, True]
+    assert all("KN tables' end at 40°" in c.note for c in crit[:3])
+    assert crit[3].value == pytest.approx(1.08771, abs=5e-3) and crit[3].passed  # checks.md §1.2 GZ(30°)
+
+
+def test_deck_item_windage_keys_come_as_a_pair_and_round_trip():
+    from deckload.profiles import dump_condition, parse_condition
+
+    v = parse_profile(BASE)
+    head = 'format = "deckload-condition-1"\n[condition]\nname = "c"\nwater_density_t_m3 = 1.025\n'
+    item = ('[[deck_item]]\nname = "Container"\nmass_t = 10.0\nlcg_m = 10.0\nvcg_m = 5.0\ntcg_m = 0.0\n'
+            'windage_area_m2 = 9.6\nwindage_centroid_z_m = 6.3\n')
+    c = parse_condition(head + item, "c.toml", v)
+    assert (c.deck_items[0].windage_area_m2, c.deck_items[0].windage_centroid_z_m) == (9.6, 6.3)
+    assert parse_condition(dump_condition(c), "rt.toml", v) == c
+    from deckload.profiles import ProfileError
+
+    text = head + item.replace("windage_centroid_z_m = 6.3\n", "")
+    with pytest.raises(ProfileError) as ei:
+        parse_condition(text, "c.toml", v)
+    (p,) = ei.value.problems
+    assert p.key == "deck_item[#1].windage_centroid_z_m" and "required with windage_area_m2" in p.rule
+    with pytest.raises(ProfileError) as ei:
+        parse_condition(head + item.replace("= 6.3", "= 80.0"), "c.toml", v)
+    assert "up to depth + 30 m" in ei.value.problems[0].rule

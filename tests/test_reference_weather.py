@@ -277,3 +277,82 @@ def test_a_steady_wind_that_overturns_her_fails_and_is_said():
     assert not crit["IS2008-A2.3-area-b-a"].assessed
     assert not r.all_criteria_pass and r.weather is None
     assert "NOT MET" in r.verdict_text()
+
+
+def _cut_at_40(v):
+    """The same vessel with its KN tables ending at 40° (a booklet that stops there)."""
+    import dataclasses
+
+    from deckload.core.model import CrossCurves
+
+    cc = v.cross_curves
+    keep = cc.heel_deg <= 40.0
+    return dataclasses.replace(v, cross_curves=CrossCurves(frozen_array(cc.heel_deg[keep]), cc.displacement_t,
+                                                           frozen_array(cc.kn_m[:, keep]), cc.trim_basis))
+
+
+def test_short_kn_tables_count_area_b_to_their_end_when_that_is_enough():
+    """KN to 40° only: θ2 would be 50°, so b is known to 40°: e(40°) − e(θr) − lw2·(40° − θr)
+    = 0.1354 m·rad by the HAND formulas, already above a — met, and the note says so."""
+    v, c = _box()
+    r = evaluate(_cut_at_40(v), c)
+    crit = {c.id: c for c in r.criteria}["IS2008-A2.3-area-b-a"]
+    lw2 = 1.5 * 0.0300738
+    thr = math.radians(6.509253)
+    b40 = box_dynamic_lever(math.radians(40.0)) - box_dynamic_lever(thr) - lw2 * (math.radians(40.0) - thr)
+    assert crit.assessed and crit.passed
+    assert crit.value == pytest.approx(b40, abs=5e-5)  # spline tolerance as above
+    assert "counted to 40°" in crit.note
+
+
+def test_short_kn_tables_leave_a_short_area_b_not_assessable():
+    """With six times the windage area, a grows and b to 40° no longer covers it, though the whole
+    curve (to θ2 = 50°) meets the criterion: what lies beyond the table is unknown, so with KN to
+    40° only the criterion is not assessable (never met)."""
+    import dataclasses
+
+    v, c = _box()
+    w = v.windage
+    v = dataclasses.replace(v, windage=Windage(w.draft_m, frozen_array(6.0 * w.lateral_area_m2),
+                                               w.centroid_above_wl_m, w.waterline_length_m))
+    full = {c.id: c for c in evaluate(v, c).criteria}["IS2008-A2.3-area-b-a"]
+    r = evaluate(_cut_at_40(v), c)
+    crit = {c.id: c for c in r.criteria}["IS2008-A2.3-area-b-a"]
+    assert full.assessed and full.passed
+    assert not crit.assessed and not crit.passed and "beyond the KN tables' 40°" in crit.note
+    assert crit.value < crit.limit
+    assert not r.all_criteria_pass
+
+
+def test_deck_cargo_windage_adds_to_the_area_and_moves_its_centre():
+    """IS 2008 A 2.3 counts the lateral area of 'ship and deck cargo'.  The HAND box plus a deck
+    stow of 60 m² (negligible mass) centred 14 m above the keel, i.e. 8 m above the waterline:
+    A = 360 + 60 = 420 m², h = (360·3 + 60·8)/420 = 3.714286 m, Z = h + 3 = 6.714286 m,
+    lw1 = 504·420·6.714286/(1000·9.81·Δ)."""
+    from deckload.core.model import DeckItem
+
+    v, c = _box()
+    stow = DeckItem("timber stow", 1e-6, L / 2, 14.0, 0.0, windage_area_m2=60.0, windage_centroid_z_m=14.0)
+    hidden = DeckItem("hidden crate", 1e-6, L / 2, 12.5, 0.0)  # no windage stated: a caution names it
+    r = evaluate(v, c.with_deck_items((stow, hidden)))
+    w = r.weather
+    # 1e-6: the items' 2e-6 t sink her by 3e-9 m, which the windage table turns into 2e-7 m²
+    assert w.windage_area_m2 == pytest.approx(420.0, abs=1e-6)
+    assert w.windage_centroid_above_wl_m == pytest.approx((360.0 * 3.0 + 60.0 * 8.0) / 420.0, abs=1e-6)
+    disp = DISP + 2e-6
+    assert w.lw1_m == pytest.approx(504.0 * 420.0 * (3.714286 + 3.0) / (1000.0 * 9.81 * disp), rel=1e-6)
+    assert any("hidden crate" in x.message and "not included" in x.message for x in r.warnings)
+    assert not any("timber stow" in x.message for x in r.warnings)
+
+
+def test_the_windward_side_mirrors_the_other_curve_and_theta0_may_lie_to_windward():
+    """Derived: heeling to windward by φ the righting lever is −GZ_windward(φ).  A ship listed to
+    windward: GZ_lee = 0.5·φ + 0.05 and GZ_windward = 0.5·φ − 0.05, so GZ(0) = 0.05 > lw1 = 0.02
+    and on the windward side GZ(−φ) = −0.5·φ + 0.05 meets lw1 at φ = 0.06 rad: θ0 = −3.4377°."""
+    deg = np.round(np.arange(0.0, 90.0001, 0.1), 10)
+    rad = np.radians(deg)
+    curve = wx.Curve.from_sides(deg, 0.5 * rad + 0.05, 0.5 * rad - 0.05)
+    assert curve.at(-10.0) == pytest.approx(-(0.5 * math.radians(10.0) - 0.05), abs=1e-12)
+    assert curve.at(10.0) == pytest.approx(0.5 * math.radians(10.0) + 0.05, abs=1e-12)
+    f = wx.weather_areas(curve, 0.02, 5.0, None)
+    assert f.theta0_deg == pytest.approx(math.degrees(-0.06), abs=1e-6)

@@ -373,13 +373,12 @@ class DraftMark:
 
 @dataclass(frozen=True)
 class DraftMarks:
-    """The draft marks aft, amidships and forward; they read from the underside of the keel."""
+    """The draft marks aft, amidships and forward; they read from the underside of the keel
+    (moulded draft + ``Particulars.keel_thickness_m``)."""
 
     aft: DraftMark
     midships: DraftMark
     forward: DraftMark
-    keel_thickness_m: float = 0.0
-    """Keel plate below the moulded baseline (m): a mark reads moulded draft + this (extreme draft)."""
 
 
 @dataclass(frozen=True)
@@ -511,6 +510,11 @@ class DeckItem(MassItem):
     """Deck area the item stands on, for the deck-load check."""
     footprint_m2: float | None = None
     """Area the item bears on (m²), for the local deck-load check."""
+    windage_area_m2: float | None = None
+    """Lateral area the item adds to the wind (m²): its side as seen abeam, less what another
+    item or the bulwark already hides; 0 when wholly hidden; None when not stated."""
+    windage_centroid_z_m: float | None = None
+    """Height of the centre of that area above the keel (m)."""
 
 
 @dataclass(frozen=True)

@@ -262,8 +262,10 @@ class Result:
 
     @property
     def smallest_margin(self) -> CriterionResult | None:
-        """The criterion closest to (or furthest past) its limit, relative to the limit."""
-        return min(self.criteria, key=lambda c: c.margin_fraction, default=None)
+        """The assessed criterion closest to (or furthest past) its limit, relative to the limit.
+
+        A criterion that could not be assessed has no margin, so it is never the smallest."""
+        return min((c for c in self.criteria if c.assessed), key=lambda c: c.margin_fraction, default=None)
 
     def to_json_dict(self) -> dict:
         """The result as plain JSON types, with the keys documented in the README."""

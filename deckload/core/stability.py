@@ -21,6 +21,7 @@ from dataclasses import replace
 import numpy as np
 
 from deckload.core import gz as gzmod
+from deckload.core.bounds import bounded
 from deckload.core.criteria import Measures, limit_curve_criterion
 from deckload.core.free_surface import BASIS_NONE, free_surface, transfer_moment_m4
 from deckload.core.hydrostatics import (
@@ -71,6 +72,7 @@ def _curve_limit(curve, displacement_t: float) -> float | None:
         return None
 
 
+@bounded
 def evaluate(vessel: Vessel, condition: Condition) -> Result:
     """Complete intact-stability state of ``vessel`` in ``condition``.
 
@@ -196,6 +198,10 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
         gz_other_m=gz_stbd if side == "port" else gz_port, flood_deg=flood, deck_edge_deg=deck_edge,
         measures=measures, max_gz_m=f.max_gz_m, vanishing_deg=f.vanishing_angle_deg,
         equilibrium_deg=f.equilibrium_deg, has_deck_cargo=bool(condition.deck_items),
+        deck_windage=tuple((d.windage_area_m2, d.windage_centroid_z_m) for d in condition.deck_items
+                           if d.windage_area_m2 is not None and d.windage_centroid_z_m is not None),
+        deck_items_without_windage=tuple(d.name for d in condition.deck_items
+                                         if d.windage_area_m2 is None or d.windage_centroid_z_m is None),
     )
     verdict = assess(vessel, afloat, limit_rows)
     criteria = list(verdict.criteria)

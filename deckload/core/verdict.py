@@ -79,6 +79,10 @@ class Afloat:
     equilibrium_deg: float
     """Heel of equilibrium on the checked side (≥ 0)."""
     has_deck_cargo: bool = False
+    deck_windage: tuple[tuple[float, float], ...] = ()
+    """(lateral area m², height of its centre above the keel m) of each deck item that states it."""
+    deck_items_without_windage: tuple[str, ...] = ()
+    """Names of the deck items that do not state their windage."""
 
 
 @dataclass(frozen=True)
@@ -97,9 +101,9 @@ def _crit(cid: str, desc: str, value: float, limit: float, unit: str, comp: str,
                            assessed=assessed)
 
 
-def _first_heel(gz: np.ndarray, lever_m: float) -> float | None:
+def _first_heel(heel_deg: np.ndarray, gz: np.ndarray, lever_m: float) -> float | None:
     """First angle from 0° where GZ rises through a constant heeling lever (None: never)."""
-    curve = wx.Curve(gzmod.FINE_DEG, gz)
+    curve = wx.Curve(heel_deg, gz)
     if curve.at(0.0) >= lever_m:
         return 0.0
     return curve.crossing(lever_m, 0.0, rising=True)
@@ -134,6 +138,13 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
                                      f"({w.draft_m[0]:g}–{w.draft_m[-1]:g} m)"), notes
     area, h_wl, lwl = wind
     d = a.draft_mid_m
+    extra_area = sum(ai for ai, _ in a.deck_windage)
+    if extra_area > 0.0:
+        # Deck cargo adds its stated side area, centre at its own height (IS 2008 A 2.3: "ship and
+        # deck cargo"); shielding is what the item's stated area already leaves out.
+        moment = area * h_wl + sum(ai * (zi - d) for ai, zi in a.deck_windage)
+        area = area + extra_area
+        h_wl = moment / area
     z = h_wl + d / 2.0  # Z to about half the mean draft (standards.md §2.2; that option [M])
     if cs.wind_pressure_pa is not None:
         pressure, p_source = cs.wind_pressure_pa, "P from the vessel profile (Administration)"
@@ -143,7 +154,8 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
     else:
         pressure, p_source = wx.WIND_PRESSURE_PA, "P 504 Pa"
     lw1 = wx.wind_lever_m(pressure, area, z, a.displacement_t)
-    curve = wx.Curve.from_sides(gzmod.FINE_DEG, a.gz_lee_m, a.gz_other_m)
+    curve = wx.Curve.from_sides(a.heel_deg, a.gz_lee_m, a.gz_other_m)
+    end = float(a.heel_deg[-1])  # the KN tables may stop before 90° (a booklet's 60°)
     theta0_limit = min(wx.THETA0_MAX_DEG, wx.DECK_EDGE_FRACTION * a.deck_edge_deg)
     roll = None
     if a.gm_fluid_m > 0.0:
@@ -151,14 +163,17 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
         cb = volume / (lwl * p.breadth_m * d)
         roll = wx.roll(wx.RollInputs(p.breadth_m, d, lwl, cb, a.kg_fluid_m, a.gm_fluid_m,
                                      cs.bilge_keel_area_m2, cs.sharp_bilged))
-    f = wx.weather_areas(curve, lw1, None if roll is None else roll.theta1_deg, a.flood_deg)
+    f = wx.weather_areas(curve, lw1, None if roll is None else roll.theta1_deg, a.flood_deg, end)
     src0 = "IS Code 2008 Part A 2.3.1.2"
     srcb = "IS Code 2008 Part A 2.3.1.4 (A.749 3.2.2.1.4)"
-    common = f"{p_source}, A {area:.1f} m², Z {z:.2f} m, lw1 {lw1:.4f} m"
+    common = f"{p_source}, A {area:.1f} m²" + (f" incl. deck cargo {extra_area:.1f} m²" if extra_area > 0 else "") \
+        + f", Z {z:.2f} m, lw1 {lw1:.4f} m"
     out: list[CriterionResult] = []
     if f.theta0_deg is None:
-        out.append(_crit("IS2008-A2.3-theta0", "Heel under the steady wind θ0", 90.0, theta0_limit, "deg", "<=",
-                         src0, WEATHER_SET, "GZ never reaches lw1: the steady wind alone would overturn her; " + common))
+        # Beyond the end of the curve (≥ 40°, profile validation) θ0 is past its 16° limit in any case.
+        out.append(_crit("IS2008-A2.3-theta0", "Heel under the steady wind θ0", end, theta0_limit, "deg", "<=",
+                         src0, WEATHER_SET, f"GZ never reaches lw1 up to {end:g}°: the steady wind alone would "
+                         "overturn her; " + common))
         out.append(_crit("IS2008-A2.3-area-b-a", "Weather: area b against area a", 0.0, 0.0, "m·rad", ">=",
                          srcb, WEATHER_SET, "no equilibrium under the steady wind", assessed=False))
         return out, None, None, notes
@@ -174,12 +189,25 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
     if roll.outside_validity:
         note += "; outside the range the roll tables were made for (" + ", ".join(roll.outside_validity) + \
             "; standards.md §2.3, from memory)"
+    # Where the KN tables stop before θ2 could be reached, area b is known only up to their end:
+    # enough when it already covers a (more curve can only add to b), else not assessable.
+    wanted = min(wx.THETA2_MAX_DEG, a.flood_deg) if a.flood_deg is not None else wx.THETA2_MAX_DEG
+    cut = end < wanted - 1e-9 and (f.theta_r_deg is None or f.theta_c_deg is None)
+    if cut and f.area_b_mrad < f.area_a_mrad:
+        out.append(_crit("IS2008-A2.3-area-b-a", "Weather: area b against area a", f.area_b_mrad, f.area_a_mrad,
+                         "m·rad", ">=", srcb, WEATHER_SET,
+                         f"needs GZ to {wanted:g}°, beyond the KN tables' {end:g}°: not assessable; " + note,
+                         assessed=False))
+        return out, None, None, notes
+    if cut:
+        note += f"; area b counted to {end:g}°, where the KN tables end (already enough)"
     out.append(_crit("IS2008-A2.3-area-b-a", "Weather: area b against area a", f.area_b_mrad, f.area_a_mrad,
                      "m·rad", ">=", srcb, WEATHER_SET, note))
     if f.theta2_deg is None:
         return out, None, None, notes  # GZ never reaches lw2: no θ2 to report, the note says why
-    if a.has_deck_cargo:
-        notes.append("weather criterion: windage of the deck cargo is not included (the table is for the vessel alone)")
+    if a.deck_items_without_windage:
+        notes.append("weather criterion: no windage given for deck item(s) " + ", ".join(a.deck_items_without_windage)
+                     + "; their side area is not included")
     wr = WeatherResult(
         wind_pressure_pa=pressure, windage_area_m2=area, windage_lever_m=z, lw1_m=lw1, lw2_m=f.lw2_m,
         theta0_deg=f.theta0_deg, theta0_limit_deg=theta0_limit, theta1_deg=roll.theta1_deg,
@@ -222,7 +250,7 @@ def passenger_criteria(vessel: Vessel, a: Afloat) -> tuple[list[CriterionResult]
          f"{pd.service_speed_kn:g} kn, 0.2·v²·(KG − d/2)/(g·Lwl) from memory"
          + ("" if wind is not None else ", Lwl taken as LBP")),
     ):
-        heel = _first_heel(a.gz_lee_m, lever)
+        heel = _first_heel(a.heel_deg, a.gz_lee_m, lever)
         note = f"lever {lever:.4f} m ({extra})"
         if heel is None:
             out.append(_crit(cid, desc, 90.0, PASSENGER_HEEL_LIMIT_DEG, "deg", "<=", src, PASSENGER_SET,
@@ -237,6 +265,8 @@ def extra_criteria(vessel: Vessel, a: Afloat, weather: list[CriterionResult],
     """The flag-State / class criteria written in the profile, each measured on this condition."""
     out = []
     gz = a.gz_lee_m
+    end = float(a.heel_deg[-1])
+    short = f"beyond the KN tables' end at {end:g}°: not assessable"
     theta0 = next((c for c in weather if c.id == "IS2008-A2.3-theta0"), None)
     for n, ec in enumerate(vessel.criteria.extra):
         value: float | None = None
@@ -245,17 +275,29 @@ def extra_criteria(vessel: Vessel, a: Afloat, weather: list[CriterionResult],
             value = a.gm_fluid_m
         elif ec.kind == "min_area":
             hi = ec.to_deg if a.flood_deg is None else min(ec.to_deg, a.flood_deg)
-            value = max(0.0, gzmod.area_to(gz, hi) - gzmod.area_to(gz, ec.from_deg)) if hi > ec.from_deg else 0.0
+            if hi > end + 1e-9:
+                why = f"needs GZ to {hi:g}°, " + short
+            else:
+                value = max(0.0, gzmod.area_to(gz, hi) - gzmod.area_to(gz, ec.from_deg)) if hi > ec.from_deg else 0.0
         elif ec.kind == "min_gz_at":
-            value = gzmod.value_at(gz, ec.at_deg)
-        elif ec.kind == "min_max_gz":
-            value = a.max_gz_m
-        elif ec.kind == "min_angle_max_gz":
-            value = a.measures.max_gz_angle_deg
+            if ec.at_deg > end + 1e-9:
+                why = f"{ec.at_deg:g}° is " + short
+            else:
+                value = float(np.interp(ec.at_deg, a.heel_deg, gz))
+        elif ec.kind in ("min_max_gz", "min_angle_max_gz"):
+            value = a.max_gz_m if ec.kind == "min_max_gz" else a.measures.max_gz_angle_deg
+            at_end = a.measures.max_gz_angle_deg >= end - 0.05 and end < 90.0 - 1e-9
+            if at_end and value < ec.limit:
+                value, why = None, "the maximum lies at or " + short
         elif ec.kind == "min_range":
-            value = (a.vanishing_deg if a.vanishing_deg is not None else 90.0) - a.equilibrium_deg
             if a.max_gz_m <= 0.0:
                 value = 0.0
+            elif a.vanishing_deg is not None:
+                value = a.vanishing_deg - a.equilibrium_deg
+            else:
+                value = end - a.equilibrium_deg  # positive to the end of the curve: at least this
+                if end < 90.0 - 1e-9 and value < ec.limit:
+                    value, why = None, "GZ is still positive where the curve ends; the range runs " + short
         elif ec.kind == "max_static_heel":
             value = a.equilibrium_deg
         elif ec.kind == "max_wind_heel":
@@ -337,5 +379,5 @@ def deck_edge_angle(vessel: Vessel, table_displacement_t: float, draft_mid_m: fl
     p = vessel.particulars
     freeboard = max(p.depth_m - draft_mid_m, 0.0)
     angle = math.degrees(math.atan2(freeboard, p.breadth_m / 2.0))
-    why = "the profile has no deck-edge table" if de is None else "the displacement is outside the deck-edge table"
-    return angle, f"deck-edge angle {angle:.1f}° is approximate: wall-sided at midships, common practice ({why})"
+    why = "no deck-edge table" if de is None else "off the deck-edge table"
+    return angle, f"deck-edge angle {angle:.1f}° approximate: wall-sided at midships, common practice ({why})"

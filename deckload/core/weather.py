@@ -212,26 +212,27 @@ class Curve:
     def crossing(self, lever_m: float, start_deg: float, rising: bool) -> float | None:
         """First angle ≥ start where GZ − lever changes sign (rising: from below to above)."""
         d = self.gz_m - lever_m
-        i0 = int(np.searchsorted(self.heel_deg, start_deg, side="left"))
-        i0 = max(i0 - 1, 0)
-        for i in range(i0, len(d) - 1):
-            a, b = d[i], d[i + 1]
-            hit = (a < 0.0 <= b) if rising else (a > 0.0 >= b)
-            if hit:
-                x = float(self.heel_deg[i] + (self.heel_deg[i + 1] - self.heel_deg[i]) * (-a) / (b - a))
-                if x >= start_deg - 1e-12:
-                    return x
-        return None
+        a, b = d[:-1], d[1:]
+        hit = (a < 0.0) & (b >= 0.0) if rising else (a > 0.0) & (b <= 0.0)
+        idx = np.flatnonzero(hit)
+        if len(idx) == 0:
+            return None
+        h0, h1 = self.heel_deg[idx], self.heel_deg[idx + 1]
+        x = h0 + (h1 - h0) * (-a[idx]) / (b[idx] - a[idx])
+        ok = np.flatnonzero(x >= start_deg - 1e-12)
+        return float(x[ok[0]]) if len(ok) else None
 
     def last_rising_below(self, lever_m: float, end_deg: float) -> float | None:
         """Largest angle ≤ end where GZ − lever rises through zero (searching towards windward)."""
         d = self.gz_m - lever_m
-        i_end = int(np.searchsorted(self.heel_deg, end_deg, side="right")) - 1
-        for i in range(min(i_end, len(d) - 2), -1, -1):
-            a, b = d[i], d[i + 1]
-            if a < 0.0 <= b:
-                return float(self.heel_deg[i] + (self.heel_deg[i + 1] - self.heel_deg[i]) * (-a) / (b - a))
-        return None
+        a, b = d[:-1], d[1:]
+        idx = np.flatnonzero((a < 0.0) & (b >= 0.0))
+        if len(idx) == 0:
+            return None
+        h0, h1 = self.heel_deg[idx], self.heel_deg[idx + 1]
+        x = h0 + (h1 - h0) * (-a[idx]) / (b[idx] - a[idx])
+        ok = np.flatnonzero(x <= end_deg + 1e-12)
+        return float(x[ok[-1]]) if len(ok) else None
 
     def area_between(self, lever_m: float, lo_deg: float, hi_deg: float) -> float:
         """∫ (GZ − lever) dφ from lo to hi (m·rad), trapezoidal on the curve's grid (exact ends)."""
