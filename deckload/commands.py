@@ -128,13 +128,17 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False,
         print(json.dumps(doc, indent=1, ensure_ascii=False, allow_nan=False))
     else:
         text = format_summary(result)
-        if cmp is not None:
-            head, sep, tail = text.rpartition("\n\n" + CAUTION)
-            text = head + "\n" + format_comparison(cmp) + sep + tail
-        print(text)
+        extra = []
         keel = vessel.particulars.keel_thickness_m
         if keel > 0.0:
             # The draft marks read extreme drafts where the booklet gives a keel thickness.
-            print(f"  Extreme drafts (moulded + keel {keel:.3f} m): aft {result.draft_aft_m + keel:.3f} m, "
-                  f"midships {result.draft_mean_m + keel:.3f} m, fwd {result.draft_fwd_m + keel:.3f} m")
+            extra.append(f"  Extreme drafts (moulded + keel {keel:.3f} m): aft {result.draft_aft_m + keel:.3f} m, "
+                         f"midships {result.draft_mean_m + keel:.3f} m, fwd {result.draft_fwd_m + keel:.3f} m")
+        if cmp is not None:
+            extra.append(format_comparison(cmp))
+        if extra:
+            # before the closing caution, which stays the last word of every printout
+            head, sep, tail = text.rpartition("\n\n" + CAUTION)
+            text = head + "\n" + "\n".join(extra) + sep + tail
+        print(text)
     return 0
