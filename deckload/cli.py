@@ -31,6 +31,8 @@ def _parser() -> argparse.ArgumentParser:
     c.add_argument("profile", type=Path)
     c.add_argument("condition", type=Path)
     c.add_argument("--json", action="store_true", help="print one JSON object (SI units)")
+    c.add_argument("--direct", action="store_true",
+                   help="also compute from the hull geometry and print both methods side by side")
 
     k = sub.add_parser("check", help="validate a vessel profile and, optionally, a loading condition")
     k.add_argument("profile", type=Path)
@@ -149,7 +151,7 @@ def _main(argv: list[str] | None) -> int:
         if cmd == "calc":
             from deckload.commands import run_calc
 
-            return run_calc(args.profile, args.condition, as_json=args.json)
+            return run_calc(args.profile, args.condition, as_json=args.json, direct=args.direct)
         if cmd == "check":
             from deckload.check_command import run_check
 

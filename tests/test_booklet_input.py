@@ -497,7 +497,8 @@ def test_tables_refreshed_from_geometry_keep_their_own_datum_in_a_midships_profi
     doc["vessel"].update(longitudinal_datum="midships", longitudinal_positive="forward", transverse_positive="port")
     gen = {k: doc[k] for k in ("hydrostatics", "cross_curves", "tank", "hold", "deck_area")}
     _stamp_model_conventions(doc, gen, doc["vessel"])
-    v, demo = parse_profile(render(doc), "mid_demo.toml"), load_profile(demo_path)
+    # named beside the demo, so that its hull_geometry (a path relative to the profile) is found
+    v, demo = parse_profile(render(doc), str(demo_path.with_name("mid_demo.toml"))), load_profile(demo_path)
     for a, b in zip(v.tanks, demo.tanks):
         assert np.array_equal(a.calibration.stacked(), b.calibration.stacked()), a.id
     assert np.array_equal(v.hydrostatics.lcb_m, demo.hydrostatics.lcb_m)
