@@ -21,6 +21,7 @@ import sys
 import traceback
 from pathlib import Path
 
+from deckload import verdict_format as vf
 from deckload.core import model as m
 from deckload.profiles import Problem, ProfileError, load_condition, read_profile
 
@@ -196,13 +197,14 @@ def _check_condition(path: Path, vessel: m.Vessel) -> int:
         if os.environ.get("DECKLOAD_DEBUG"):
             traceback.print_exc()
         return 3
-    met = sum(1 for c in result.criteria if c.passed)
+    met = sum(1 for c in result.criteria if c.passed and c.assessed)
     print(
         f"OK  {path}: {condition.name!r}: valid, and computes to displacement {result.displacement_t:.1f} t, "
         f"mean draft {result.draft_mean_m:.3f} m, GM fluid {result.gm_fluid_m:.3f} m; "
-        f"stability criteria met: {met} of {len(result.criteria)}"
+        f"criteria met: {met} of {len(result.criteria)}"
     )
-    print(f"    verdict: {result.verdict_text()}")
+    for line in vf.verdict_lines(result, 100, "    "):
+        print(line)
     for w in result.warnings:
         print(f"    {w.severity}: {w.message}")
     return 0
