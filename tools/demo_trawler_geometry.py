@@ -215,7 +215,7 @@ shape = "hull"
 x_m = [8.0, 14.5]
 y_m = [-3.4, 3.4]
 z_m = [0.7, 3.9]
-max_mass_t = 48.0
+max_mass_t = 55.0
 
 [[deck_area]]
 id = "TRAWLDECK"
