@@ -47,6 +47,7 @@ PROFILE = ROOT / "vessel_profiles" / "demo_trawler.toml"
 PAGES = ROOT / "vessel_profiles" / "demo_trawler"
 PACKAGED = ROOT / "deckload" / "data"
 
+BOOKLET_CONDITIONS = "# ---- booklet conditions:"
 KEEL_M = 0.012  # flat keel plate: extreme draft = moulded draft + 12 mm
 MID_M = 11.0  # midships = LBP/2 from the AP
 BOOKLET_DRAFTS_EXTREME = np.round(np.arange(1.60, 3.601, 0.10), 2)
@@ -317,9 +318,15 @@ def main() -> int:
     da = deck_area_tables(deck, g)
     text = PROFILE_TEMPLATE.format(opening=opening, tanks=tanks, holds="\n".join(holds),
                                    deck_area=da.area_m2, deck_lcg=float(x_mid(da.lcg_m)), deck_z=da.deck_height_m)
+    if PROFILE.exists():  # keep the booklet conditions (tools/demo_trawler_booklet_conditions.py)
+        old = PROFILE.read_text(encoding="utf-8")
+        if BOOKLET_CONDITIONS in old:
+            text += "\n" + BOOKLET_CONDITIONS + old.split(BOOKLET_CONDITIONS, 1)[1]
     PROFILE.write_text(text, encoding="utf-8")
-    # the packaged copies
+    # the packaged copies: profile, its pages and its conditions
     shutil.copyfile(PROFILE, PACKAGED / PROFILE.name)
+    for cond in sorted(PROFILE.parent.glob("demo_trawler.*.condition.toml")):
+        shutil.copyfile(cond, PACKAGED / cond.name)
     if (PACKAGED / PAGES.name).exists():
         shutil.rmtree(PACKAGED / PAGES.name)
     shutil.copytree(PAGES, PACKAGED / PAGES.name)
