@@ -33,8 +33,7 @@ from pathlib import Path
 
 import numpy as np
 
-from deckload.core.geometry.body import immerse
-from deckload.core.geometry.builder import hold_tables, hull_body
+from deckload.core.geometry.builder import deck_area_tables, hold_tables, hull_body
 from deckload.core.geometry.cross_curves import cross_curves, immersion_angle
 from deckload.core.geometry.hull import compartment_body
 from deckload.core.geometry.hydrostatics_calc import upright_hydrostatics
@@ -96,7 +95,7 @@ def write_csv(path: Path, header: list[str], rows: list[list[str]]) -> None:
     path.write_text("\n".join(lines) + "\n", encoding="utf-8")
 
 
-def hydrostatics_page(body, g) -> None:
+def hydrostatics_page(body, g, pages: Path) -> None:
     rho = g.vessel.table_density_t_m3
     h = upright_hydrostatics(body, BOOKLET_DRAFTS_EXTREME - KEEL_M, rho, g.vessel.lbp_m, g.vessel.breadth_m)
     rows = []
@@ -106,21 +105,21 @@ def hydrostatics_page(body, g) -> None:
             fnum(h.vcb_m[i], 3), fnum(h.kmt_m[i], 3), fnum(h.kml_m[i], 2), fnum(h.tpc_t_cm[i], 3),
             fnum(h.mctc_tm_cm[i], 3),
         ])
-    write_csv(PAGES / "hydrostatics.csv",
+    write_csv(pages / "hydrostatics.csv",
               ["draft_m", "displacement_t", "lcb_m", "lcf_m", "vcb_m", "kmt_m", "kml_m", "tpc_t_cm", "mctc_tm_cm"],
               rows)
 
 
-def kn_page(body, g) -> None:
+def kn_page(body, g, pages: Path) -> None:
     ts = g.tables
     cc = cross_curves(body, KN_DISPLACEMENTS, KN_HEELS, g.vessel.table_density_t_m3, "free trim",
                       ts.trim_lcg_m, ts.trim_vcg_m)
     header = ["displacement_t"] + [f"kn_{h:g}" for h in KN_HEELS]
     rows = [[fnum(d, 1)] + [fnum(k, 3) for k in cc.kn_m[i]] for i, d in enumerate(KN_DISPLACEMENTS)]
-    write_csv(PAGES / "kn.csv", header, rows)
+    write_csv(pages / "kn.csv", header, rows)
 
 
-def downflooding_page(body, g) -> str:
+def downflooding_page(body, g, pages: Path) -> str:
     rho = g.vessel.table_density_t_m3
     ts = g.tables
     h = upright_hydrostatics(body, DOWNFLOODING_DRAFTS_EXTREME - KEEL_M, rho, g.vessel.lbp_m, g.vessel.breadth_m)
@@ -131,11 +130,11 @@ def downflooding_page(body, g) -> str:
     lowest = np.argmin(angles, axis=0)
     names = sorted({g.openings[int(i)].name for i in lowest})
     rows = [[fnum(d, 2), fnum(a, 1)] for d, a in zip(DOWNFLOODING_DRAFTS_EXTREME, np.min(angles, axis=0))]
-    write_csv(PAGES / "downflooding.csv", ["draft_m", "angle_deg"], rows)
+    write_csv(pages / "downflooding.csv", ["draft_m", "angle_deg"], rows)
     return " / ".join(names)
 
 
-def tank_page(spec, g) -> dict:
+def tank_page(spec, g, pages: Path) -> dict:
     """Write one tank's page; return what the profile's [[tank]] needs."""
     page = TANK_PAGES[spec.id]
     body = compartment_body(spec.shape, g.hull)
@@ -173,16 +172,16 @@ def tank_page(spec, g) -> dict:
         if page["fsm"] == "rows":
             r.append(fnum(cal.fsi_m4[i] * rho, 2))
         rows.append(r)
-    write_csv(PAGES / "tanks" / f"{spec.id}.csv", header, rows)
+    write_csv(pages / "tanks" / f"{spec.id}.csv", header, rows)
     if page["side"] == "distance":
         out["tcg_side"] = "port" if float(np.mean(cal.tcg_m)) < 0 else "starboard"
     return out
 
 
-def hold_page(spec, g) -> dict:
+def hold_page(spec, g, pages: Path) -> dict:
     ht = hold_tables(spec, g)
     rows = [[fnum(f, 0), fnum(v, 3), fnum(x_mid(x), 3)] for f, v, x in zip(ht.fill_pct, ht.fill_vcg_m, ht.fill_lcg_m)]
-    write_csv(PAGES / f"{spec.id.lower()}_fill.csv", ["fill_pct", "fill_vcg_m", "fill_lcg_m"], rows)
+    write_csv(pages / f"{spec.id.lower()}_fill.csv", ["fill_pct", "fill_vcg_m", "fill_lcg_m"], rows)
     return {"capacity_m3": ht.capacity_m3, "lcg": float(x_mid(ht.lcg_m)), "vcg": ht.vcg_m}
 
 
@@ -296,28 +295,30 @@ def tank_toml(spec, info: dict) -> str:
     return "\n".join(lines) + "\n"
 
 
-def main() -> int:
+def booklet_text(pages: Path) -> str:
+    """Write the CSV pages into ``pages``; return the profile's text (without booklet conditions)."""
     g = load_geometry(GEOMETRY)
     body = hull_body(g)
-    PAGES.mkdir(parents=True, exist_ok=True)
-    hydrostatics_page(body, g)
-    kn_page(body, g)
-    opening = downflooding_page(body, g)
-    tanks = "\n".join(tank_toml(s, tank_page(s, g)) for s in g.tanks)
+    pages.mkdir(parents=True, exist_ok=True)
+    hydrostatics_page(body, g, pages)
+    kn_page(body, g, pages)
+    opening = downflooding_page(body, g, pages)
+    tanks = "\n".join(tank_toml(s, tank_page(s, g, pages)) for s in g.tanks)
     holds = []
     for h in g.holds:
-        info = hold_page(h, g)
+        info = hold_page(h, g, pages)
         holds.append("\n".join([
             "[[hold]]", f'id = "{h.id}"', f'name = "{h.name}"', f"capacity_m3 = {info['capacity_m3']:.1f}",
             f"lcg_m = {info['lcg']:.3f}", f"vcg_m = {info['vcg']:.3f}", "tcg_m = 0.0",
-            f"max_mass_t = {h.max_mass_t:g}", f'csv = "demo_trawler/{h.id.lower()}_fill.csv"   # centre against fill (levelled)',
+            f"max_mass_t = {h.max_mass_t:.1f}", f'csv = "demo_trawler/{h.id.lower()}_fill.csv"   # centre against fill (levelled)',
         ]) + "\n")
-    deck = g.deck_areas[0]
-    from deckload.core.geometry.builder import deck_area_tables
-
-    da = deck_area_tables(deck, g)
-    text = PROFILE_TEMPLATE.format(opening=opening, tanks=tanks, holds="\n".join(holds),
+    da = deck_area_tables(g.deck_areas[0], g)
+    return PROFILE_TEMPLATE.format(opening=opening, tanks=tanks, holds="\n".join(holds),
                                    deck_area=da.area_m2, deck_lcg=float(x_mid(da.lcg_m)), deck_z=da.deck_height_m)
+
+
+def main() -> int:
+    text = booklet_text(PAGES)
     if PROFILE.exists():  # keep the booklet conditions (tools/demo_trawler_booklet_conditions.py)
         old = PROFILE.read_text(encoding="utf-8")
         if BOOKLET_CONDITIONS in old:
