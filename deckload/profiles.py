@@ -24,6 +24,8 @@ saved atomically (:func:`save_condition`): the old file survives any crash.
 from __future__ import annotations
 
 import os
+from dataclasses import dataclass
+from dataclasses import field as dataclass_field
 from pathlib import Path
 from typing import Any
 
@@ -31,7 +33,11 @@ import numpy as np
 import tomli_w
 
 from deckload.atomicfile import write_atomic
+from deckload.conventions import DATUMS, Frame, read_frame, tcg_array, tcg_num
 from deckload.core import model as m
+from deckload.core.loading import reading_range
+from deckload.core.tables import interp
+from deckload.csvtables import attach_csv, attach_kn_csv
 # Problem, ProfileError and ID_PATTERN are imported from here by other modules too
 from deckload.tomlcheck import (
     ID_PATTERN,
@@ -89,6 +95,12 @@ def load_profile(path: str | os.PathLike) -> m.Vessel:
     return parse_profile(_read_text(path), str(path))
 
 
+def read_profile(path: str | os.PathLike) -> tuple[m.Vessel, "Reading"]:
+    """:func:`load_profile`, and how each table was written (for ``deckload csv``)."""
+    reading = Reading()
+    return parse_profile(_read_text(path), str(path), reading), reading
+
+
 def _read_text(path: str | os.PathLike) -> str:
     data = Path(path).read_bytes()
     try:
@@ -98,29 +110,68 @@ def _read_text(path: str | os.PathLike) -> str:
         raise ProfileError([Problem(str(path), line, "", None, f"not UTF-8 text (byte {e.start + 1}); TOML files must be UTF-8")]) from None
 
 
-def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
+@dataclass
+class TableReading:
+    """How one table of the profile was written: enough to write it back the same way."""
+
+    frame: Frame
+    csv: str | None = None
+    tcg_marked: bool = False
+    """TCGs were written "1.20 P" / "1.20 S"."""
+    level: str = "sounding_m"
+    """A calibration tabulated by 'sounding_m' or 'ullage_m'."""
+    reversed: bool = False
+    """Rows were written with the level falling (e.g. ullage rising)."""
+    added_bottom_row: bool = False
+    """A row 'level 0, volume 0' was added below the first written row."""
+    fsm: str = "fsi_m4"
+    """'fsi_m4', 'fsm_tm' (column in t·m at ``fsm_density_t_m3``) or '' (none per row)."""
+    fsm_density_t_m3: float | None = None
+    against: str = "displacement_t"
+    """A curve tabulated against 'displacement_t' or 'draft_m'."""
+
+
+@dataclass
+class Reading:
+    """Conversions, assumptions and per-table conventions met while reading one profile."""
+
+    conversions: list[str] = dataclass_field(default_factory=list)
+    assumptions: list[str] = dataclass_field(default_factory=list)
+    tables: dict[str, TableReading] = dataclass_field(default_factory=dict)
+
+    def convert(self, where: str, keys: str, how: str) -> None:
+        self.conversions.append(f"{where} {keys}: {how}")
+
+
+def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | None" = None) -> m.Vessel:
     """Validate the text of a vessel profile and build the :class:`~deckload.core.model.Vessel`.
 
-    Raises :class:`ProfileError` listing every problem found.
+    Booklet conventions are converted on load (vessel_profiles/README.md, "Booklet
+    conventions and CSV tables"); every conversion and assumption is listed in the
+    vessel's ``conversions`` / ``assumptions``.  Tables may come from CSV files beside
+    ``filename``.  Raises :class:`ProfileError` listing every problem found.
     """
     ctx = FileCheck(filename, text)
     root = ctx.root()
     root.text("format", choices=(PROFILE_FORMAT,))
+    rd = reading if reading is not None else Reading()
 
-    particulars = _read_particulars(root)
-    lightship = _read_lightship(root)
-    hydro = _read_hydrostatics(root)
+    particulars, frame = _read_particulars(root)
+    lightship = _read_lightship(root, frame, rd)
+    hydro = _read_hydrostatics(root, frame, rd)
     cross = _read_cross_curves(root)
     fs = _read_free_surface(root, lightship)
     criteria = _read_criteria(root)
-    load_lines = _read_load_lines(root, hydro)
-    limit = _read_limit_curve(root)
-    downflooding = _read_downflooding(root)
+    load_lines = _read_load_lines(root, hydro, frame, rd)
+    limit = _read_limit_curve(root, hydro, frame, rd)
+    downflooding = _read_downflooding(root, hydro, frame, rd)
+    _check_kn_reach(root, cross, downflooding)
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
-    tanks = _read_tanks(root, fs, ids)
-    holds = _read_holds(root, ids)
-    areas = _read_deck_areas(root, ids)
+    tanks = _read_tanks(root, fs, ids, frame, rd)
+    holds = _read_holds(root, ids, frame, rd)
+    areas = _read_deck_areas(root, ids, frame, rd)
+    constants = _read_profile_constants(root, frame, rd)
     root.finish()
     ctx.fail_if_any()
 
@@ -137,13 +188,19 @@ def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
         downflooding=downflooding,
         criteria=criteria,
         free_surface=fs,
+        constants=tuple(constants),
+        conversions=tuple(rd.conversions),
+        assumptions=tuple(rd.assumptions),
     )
 
 
-def _read_particulars(root: Table) -> m.Particulars | None:
+def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:
     t = root.table("vessel")
+    # Without usable particulars the profile is refused anyway; a stand-in frame lets every
+    # other table still be checked, so that all problems are reported at once.
+    stand_in = Frame(1.0)
     if t is None:
-        return None
+        return None, stand_in
     kw = dict(
         name=t.text("name"),
         vessel_type=t.text("vessel_type", required=False, empty_ok=True),
@@ -153,42 +210,100 @@ def _read_particulars(root: Table) -> m.Particulars | None:
         design_draft_m=t.num("design_draft_m", positive),
         table_density_t_m3=t.num("table_density_t_m3", water_density),
     )
-    datum = t.text("longitudinal_datum", choices=("AP",))
+    datum = True
+    if not t.has("longitudinal_datum"):
+        t.get("longitudinal_datum")  # reports it missing: the datum of every x must be stated
+        datum = None
     kw["remark"] = t.text("remark", required=False, empty_ok=True)
+    keel_rule = between(0.0, 0.1, "m", "a keel plate; extreme − moulded draft")
+    kw["keel_thickness_m"] = t.num("keel_thickness_m", keel_rule, required=False, default=0.0)
+    base = Frame(kw["lbp_m"] or 1.0, keel_thickness_m=kw["keel_thickness_m"] or 0.0)
+    frame = read_frame(t, base)
     t.finish()
     if kw["design_draft_m"] is not None and kw["depth_m"] is not None and kw["design_draft_m"] > kw["depth_m"]:
         t.bad("design_draft_m", t.data["design_draft_m"], f"exceeds the depth {num(kw['depth_m'])} m")
-        return None
-    if datum is None or any(v is None for v in kw.values()):
-        return None
-    return m.Particulars(longitudinal_datum="aft perpendicular, positive forward", **kw)
+        return None, frame or stand_in
+    if datum is None or frame is None or any(v is None for v in kw.values()):
+        return None, frame or stand_in
+    words = f"{frame.datum} datum, + {frame.positive}" if frame.datum != "AP" else "aft perpendicular, positive forward"
+    return m.Particulars(longitudinal_datum=words, **kw), frame
 
 
-def _read_mass_item(t: Table, name: str, *, mass_rule: Rule = non_negative) -> m.MassItem | None:
-    kw = dict(
-        mass_t=t.num("mass_t", mass_rule),
-        lcg_m=t.num("lcg_m"),
-        vcg_m=t.num("vcg_m", above_keel),
-        tcg_m=t.num("tcg_m", required=False, default=0.0),
-    )
+def _x(t: Table, k: str, frame: Frame | None, rd: Reading, what: str, *, required: bool = True) -> float | None:
+    """One x position as written, converted to metres from AP, + forward."""
+    v = t.num(k, required=required)
+    if v is None or frame is None:
+        return None
+    return float(frame.x_to_ap(v))
+
+
+def _note_frame(rd: Reading, where: str, frame: Frame | None, xkeys: str, ykeys: str, marked: bool) -> None:
+    if frame is None:
+        return
+    if xkeys and not frame.x_is_identity:
+        rd.convert(where, xkeys, frame.describe_x())
+    if ykeys and not frame.y_is_identity:
+        rd.convert(where, ykeys, frame.describe_y())
+    if ykeys and marked:
+        rd.convert(where, ykeys, "\"P\" / \"S\" marks → − port / + starboard")
+
+
+def _read_mass_item(t: Table, name: str, *, mass_rule: Rule = non_negative, frame: Frame | None = None,
+                    rd: Reading | None = None, where: str = "") -> m.MassItem | None:
+    """A mass and its centre.  With ``frame`` (a profile table) its booklet convention applies."""
+    if frame is None and rd is None:
+        kw = dict(
+            mass_t=t.num("mass_t", mass_rule),
+            lcg_m=t.num("lcg_m"),
+            vcg_m=t.num("vcg_m", above_keel),
+            tcg_m=t.num("tcg_m", required=False, default=0.0),
+        )
+    else:
+        f = read_frame(t, frame, sides=True)
+        tcg, marked = tcg_num(t, "tcg_m", f)
+        kw = dict(mass_t=t.num("mass_t", mass_rule), lcg_m=_x(t, "lcg_m", f, rd, where),
+                  vcg_m=t.num("vcg_m", above_keel), tcg_m=tcg)
+        _note_frame(rd, where, f, "lcg_m", "tcg_m" if t.has("tcg_m") else "", marked)
     if any(v is None for v in kw.values()) or name is None:
         return None
     return m.MassItem(name=name, **kw)
 
 
-def _read_lightship(root: Table) -> m.MassItem | None:
+def _read_lightship(root: Table, frame: Frame | None, rd: Reading) -> m.MassItem | None:
     t = root.table("lightship")
     if t is None:
         return None
-    item = _read_mass_item(t, "Lightship", mass_rule=positive)
+    item = _read_mass_item(t, "Lightship", mass_rule=positive, frame=frame, rd=rd, where="lightship")
     t.finish()
     return item
 
 
-def _read_hydrostatics(root: Table) -> m.HydrostaticTable | None:
+def _read_profile_constants(root: Table, frame: Frame | None, rd: Reading) -> list[m.MassItem]:
+    out, names = [], set()
+    for t in root.tables("constant"):
+        name = t.text("name")
+        if name is not None:
+            t.name = f"constant[{name}]"
+            if name in names:
+                t.bad("name", name, "duplicate constant name: a condition replaces a profile constant by its name")
+                name = None
+            names.add(name)
+        item = _read_mass_item(t, name, frame=frame, rd=rd, where=t.name)
+        t.finish()
+        if item is not None:
+            out.append(item)
+    return out
+
+
+HYDRO_COLUMNS = ("draft_m", "displacement_t", "lcb_m", "lcf_m", "kmt_m", "tpc_t_cm", "mctc_tm_cm", "vcb_m", "kml_m")
+
+
+def _read_hydrostatics(root: Table, frame: Frame | None, rd: Reading) -> m.HydrostaticTable | None:
     t = root.table("hydrostatics")
     if t is None:
         return None
+    attach_csv(t, HYDRO_COLUMNS)
+    f = read_frame(t, frame, drafts=True)
     cols = {
         "draft_m": t.increasing("draft_m", t.array("draft_m", non_negative)),
         "displacement_t": t.increasing("displacement_t", t.array("displacement_t", non_negative)),
@@ -206,19 +321,37 @@ def _read_hydrostatics(root: Table) -> m.HydrostaticTable | None:
         else:
             t.get(k, False)
     t.finish()
-    if not t.same_length("draft_m", cols):
+    if not t.same_length("draft_m", cols) or f is None:
         return None
+    rd.tables["hydrostatics"] = TableReading(f, csv=t.data.get("csv"))
+    _note_frame(rd, "hydrostatics", f, "lcb_m, lcf_m", "", False)
+    cols["lcb_m"] = f.x_to_ap(cols["lcb_m"])
+    cols["lcf_m"] = f.x_to_ap(cols["lcf_m"])
+    if f.draft_basis == "extreme":
+        rd.convert("hydrostatics", "draft_m", f"extreme → moulded (− keel {num(f.keel_thickness_m)} m)")
+        cols["draft_m"] = f.draft_to_moulded(cols["draft_m"])
+        if cols["draft_m"][0] < 0:
+            t.bad("draft_m", t.data["draft_m"], f"the first extreme draft is less than the keel thickness {num(f.keel_thickness_m)} m")
+            return None
     return m.HydrostaticTable(**{k: m.frozen_array(v) for k, v in cols.items()})
+
+
+KN_MIN_END_DEG = 40.0
+"""Cross curves must reach at least 40°: the IS 2008 Part A 2.2.1 areas run to 40° (or θf)."""
 
 
 def _read_cross_curves(root: Table) -> m.CrossCurves | None:
     t = root.table("cross_curves")
     if t is None:
         return None
+    attach_kn_csv(t)
     basis = t.text("trim_basis", choices=("free trim", "even keel"))
     heel = t.increasing("heel_deg", t.array("heel_deg", heel_range))
     heel = t.starts_at("heel_deg", heel, 0.0, "the upright condition")
-    heel = t.ends_at("heel_deg", heel, 90.0, "the GZ curve runs 0–90°; nothing is extrapolated")
+    if heel is not None and heel[-1] < KN_MIN_END_DEG - 1e-9:
+        t.bad("heel_deg", t.data["heel_deg"], f"must reach at least {num(KN_MIN_END_DEG)}° (it ends at {num(heel[-1])}°): "
+              "the IS 2008 A 2.2.1 areas run to 40°; nothing is extrapolated")
+        heel = None
     disp = t.increasing("displacement_t", t.array("displacement_t", positive))
     kn = t.matrix("kn_m", "displacement_t", t.raw_len("displacement_t"), "heel_deg", t.raw_len("heel_deg"))
     t.finish()
@@ -227,6 +360,19 @@ def _read_cross_curves(root: Table) -> m.CrossCurves | None:
     return m.CrossCurves(
         heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis
     )
+
+
+def _check_kn_reach(root: Table, cross: m.CrossCurves | None, flood: m.LimitCurve | None) -> None:
+    """The KN tables must reach every downflooding angle: the criteria look up to θf."""
+    if cross is None or flood is None:
+        return
+    end = float(cross.heel_deg[-1])
+    top = float(np.max(flood.value))
+    if top > end + 1e-9:
+        t = root.table("cross_curves")
+        t.bad("heel_deg", t.data["heel_deg"], f"ends at {num(end)}°, before the downflooding angle {num(top)}° "
+              "in [downflooding]: the criteria look up to θf, and nothing is extrapolated")
+
 
 
 def _band(t: Table, k: str, default: tuple[float, float] | None) -> tuple[float, float] | None:
@@ -284,12 +430,13 @@ def _read_criteria(root: Table) -> m.CriteriaSettings | None:
     return m.CriteriaSettings(code=code, min_gm_m=gm)
 
 
-def _read_load_lines(root: Table, hydro: m.HydrostaticTable | None) -> list[m.LoadLine]:
+def _read_load_lines(root: Table, hydro: m.HydrostaticTable | None, frame: Frame | None, rd: Reading) -> list[m.LoadLine]:
     out: list[m.LoadLine] = []
     seen: set[str] = set()
     for t in root.tables("load_line"):
         name = t.text("name")
         draft = t.num("draft_m", positive)
+        f = read_frame(t, frame, drafts=True)
         t.finish()
         if name is not None:
             t.name = f"load_line[{name}]"
@@ -297,6 +444,11 @@ def _read_load_lines(root: Table, hydro: m.HydrostaticTable | None) -> list[m.Lo
                 t.bad("name", name, "duplicate load-line name")
                 continue
             seen.add(name)
+        if f is None:
+            continue
+        if draft is not None and f.draft_basis == "extreme":
+            rd.convert(t.name, "draft_m", f"extreme → moulded (− keel {num(f.keel_thickness_m)} m)")
+            draft = float(f.draft_to_moulded(draft))
         if draft is not None and hydro is not None and not hydro.draft_m[0] <= draft <= hydro.draft_m[-1]:
             t.bad("draft_m", t.data["draft_m"], f"outside the hydrostatic table's drafts {num(hydro.draft_m[0])}–{num(hydro.draft_m[-1])} m")
             continue
@@ -305,11 +457,41 @@ def _read_load_lines(root: Table, hydro: m.HydrostaticTable | None) -> list[m.Lo
     return out
 
 
-def _read_limit_curve(root: Table) -> m.LimitCurve | None:
+def _abscissa(t: Table, hydro: m.HydrostaticTable | None, frame: Frame | None, rd: Reading,
+              where: str) -> tuple[np.ndarray | None, str]:
+    """A curve's abscissa: ``displacement_t``, or ``draft_m`` turned into the displacement of the
+    hydrostatic table (table density, upright, even keel).  Returns (displacement, 'displacement_t' | 'draft_m')."""
+    has_d, has_t = t.has("displacement_t"), t.has("draft_m")
+    if has_d and has_t:
+        t.bad("draft_m", t.data["draft_m"], "give displacement_t or draft_m, not both")
+        t.get("displacement_t", False)
+        return None, "displacement_t"
+    if not has_t:
+        t.get("draft_m", False)
+        return t.increasing("displacement_t", t.array("displacement_t", positive)), "displacement_t"
+    drafts = t.increasing("draft_m", t.array("draft_m", positive))
+    if drafts is None or hydro is None or frame is None:
+        return None, "draft_m"
+    moulded = frame.draft_to_moulded(drafts)
+    lo, hi = float(hydro.draft_m[0]), float(hydro.draft_m[-1])
+    for i, d in enumerate(moulded):
+        if not lo - 1e-9 <= d <= hi + 1e-9:
+            t.bad("draft_m", t.data["draft_m"], f"row {i + 1}: moulded draft {num(d)} m is outside the hydrostatic "
+                  f"table's drafts {num(lo)}–{num(hi)} m (nothing is extrapolated)", (i,))
+            return None, "draft_m"
+    disp = np.array([interp(hydro.draft_m, hydro.displacement_t, float(d), "draft", "m") for d in moulded])
+    basis = " (extreme → moulded first)" if frame.draft_basis == "extreme" else ""
+    rd.convert(where, "draft_m", f"against draft → against displacement, through [hydrostatics]{basis}")
+    return disp, "draft_m"
+
+
+def _read_limit_curve(root: Table, hydro, frame: Frame | None, rd: Reading) -> m.LimitCurve | None:
     t = root.table("limit_curve", required=False)
     if t is None:
         return None
-    disp = t.increasing("displacement_t", t.array("displacement_t", positive))
+    attach_csv(t, ("displacement_t", "draft_m", "max_kg_m", "min_gm_m"))
+    f = read_frame(t, frame, drafts=True)
+    disp, against = _abscissa(t, hydro, f, rd, "limit_curve")
     kinds = [k for k in ("max_kg_m", "min_gm_m") if t.has(k)]
     t.get("max_kg_m", False)
     t.get("min_gm_m", False)
@@ -321,28 +503,50 @@ def _read_limit_curve(root: Table) -> m.LimitCurve | None:
     kind = kinds[0]
     values = t.array(kind, above_keel) if kind == "max_kg_m" else t.array(kind)
     t.finish()
-    if not t.same_length("displacement_t", {"displacement_t": disp, kind: values}):
+    if not t.same_length(against, {against: disp, kind: values}) or f is None:
         return None
+    rd.tables["limit_curve"] = TableReading(f, csv=t.data.get("csv"), against=against)
     return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(values), kind=kind)
 
 
-def _read_downflooding(root: Table) -> m.LimitCurve | None:
+def _read_downflooding(root: Table, hydro, frame: Frame | None, rd: Reading) -> m.LimitCurve | None:
     t = root.table("downflooding", required=False)
     if t is None:
         return None
-    disp = t.increasing("displacement_t", t.array("displacement_t", positive))
-    ang = t.array("angle_deg", between(0.0, 90.0, "°"))
+    angle_rule = between(0.0, 90.0, "°")
+    if t.has("angle_deg") and not isinstance(t.data["angle_deg"], list) and not t.has("csv"):
+        # One angle at every displacement, as many booklets give it.
+        ang = t.num("angle_deg", angle_rule)
+        for k in ("displacement_t", "draft_m"):
+            if t.has(k):
+                t.bad(k, t.data[k], "a single angle_deg applies at every displacement: give no abscissa with it")
+                ang = None
+        t.finish()
+        if ang is None or hydro is None:
+            return None
+        rd.assumptions.append(f"downflooding: one angle {num(ang)}° taken at every displacement of the hydrostatic "
+                              f"table ({num(hydro.displacement_t[0])}–{num(hydro.displacement_t[-1])} t)")
+        rd.tables["downflooding"] = TableReading(Frame(1.0), against="single")
+        d = hydro.displacement_t
+        return m.LimitCurve(displacement_t=m.frozen_array([d[0], d[-1]]), value=m.frozen_array([ang, ang]),
+                            kind="downflooding_deg")
+    attach_csv(t, ("displacement_t", "draft_m", "angle_deg"))
+    f = read_frame(t, frame, drafts=True)
+    disp, against = _abscissa(t, hydro, f, rd, "downflooding")
+    ang = t.array("angle_deg", angle_rule)
     t.finish()
-    if not t.same_length("displacement_t", {"displacement_t": disp, "angle_deg": ang}):
+    if not t.same_length(against, {against: disp, "angle_deg": ang}) or f is None:
         return None
+    rd.tables["downflooding"] = TableReading(f, csv=t.data.get("csv"), against=against)
     return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(ang), kind="downflooding_deg")
 
 
-def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) -> list[m.Tank]:
+def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,
+                rd: Reading) -> list[m.Tank]:
     entries = []
     complete = True
     for t in root.tables("tank"):
-        kw, ok_tank = _read_tank(t, fs, ids)
+        kw, ok_tank = _read_tank(t, fs, ids, frame, rd)
         entries.append((t, kw))
         complete &= ok_tank
     ok = check_tank_pairs([(t, kw["id"], kw.get("pair")) if kw is not None else (t, None, None) for t, kw in entries])
@@ -351,7 +555,30 @@ def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, st
     return [m.Tank(**kw) for _, kw in entries]
 
 
-def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) -> tuple[dict | None, bool]:
+def _fsm_max(t: Table) -> tuple[float | None, str, bool]:
+    """A tank's one maximum free-surface value as fsi (m⁴): (value, 'max'|'none', ok)."""
+    has_i, has_m = t.has("max_fsi_m4"), t.has("max_fsm_tm")
+    fi = t.num("max_fsi_m4", non_negative, required=False)
+    fm = t.num("max_fsm_tm", non_negative, required=False)
+    if has_i and has_m:
+        t.bad("max_fsm_tm", t.data["max_fsm_tm"], "give max_fsi_m4 or max_fsm_tm, not both")
+        return None, "max", False
+    if has_i:
+        return fi, "max", fi is not None
+    if has_m:
+        if not t.has("fsm_density_t_m3"):
+            t.bad("fsm_density_t_m3", MISSING, "required with max_fsm_tm: the density the booklet's t·m are given for")
+            t.get("fsm_density_t_m3", False)
+            return None, "max", False
+        rho = t.num("fsm_density_t_m3", liquid_density)
+        if fm is None or rho is None:
+            return None, "max", False
+        return fm / rho, "max", True
+    return None, "none", True
+
+
+def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,
+               rd: Reading) -> tuple[dict | None, bool]:
     """The Tank's keyword arguments and whether they are complete (else only id and pair)."""
     ident = claim_id(t, "tank", ids)
     kw: dict[str, Any] = dict(id=ident, name=t.text("name"))
@@ -368,9 +595,51 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) 
     default_cat = "variable" if kind in m.CONSUMABLE_KINDS else "fixed"
     kw["fs_category"] = t.text("fs_category", required=False, default=default_cat, choices=("fixed", "variable"))
     kw["worst_band_pct"] = _band(t, "worst_band_pct", None if fs is None else fs.default_worst_band_pct)
-
-    cal = t.table("calibration")
-    kw["calibration"] = None if cal is None else _read_calibration(cal, capacity, t)
+    f = read_frame(t, frame, sides=True)
+    level_rule = between(-5.0, 30.0, "m", "a height within the tank, from its lowest point")
+    kw["sounding_zero_m"] = t.num("sounding_zero_m", level_rule, required=False, default=0.0)
+    kw["ullage_reference_m"] = t.num("ullage_reference_m", positive, at_most(30.0, "m (a height within the vessel)"),
+                                     required=False, default=None)
+    bad_level = (t.has("sounding_zero_m") and kw["sounding_zero_m"] is None) or (t.has("ullage_reference_m") and kw["ullage_reference_m"] is None)
+    max_fsi, fsi_given, fsm_ok = _fsm_max(t)
+    where = t.name
+    capacity_only = not t.has("calibration")
+    if capacity_only:
+        # A small tank known only by its capacity and centre (booklet's "capacity only" list).
+        lcg = _x(t, "lcg_m", f, rd, where)
+        vcg = t.num("vcg_m", above_keel)
+        tcg, marked = tcg_num(t, "tcg_m", f)
+        t.get("calibration", False)
+        for k in ("sounding_zero_m", "ullage_reference_m"):
+            if t.has(k):
+                t.bad(k, t.data[k], "a tank without a calibration table has no level: give [tank.calibration] or leave this out")
+                bad_level = True
+        kw["calibration"] = None
+        if None not in (lcg, vcg, tcg, capacity, f) and fsm_ok and not bad_level:
+            fsi = max_fsi if max_fsi is not None else 0.0
+            kw["calibration"] = m.TankCalibration(
+                sounding_m=m.frozen_array([0.0, 1.0]), volume_m3=m.frozen_array([0.0, capacity]),
+                lcg_m=m.frozen_array([lcg, lcg]), vcg_m=m.frozen_array([vcg, vcg]), tcg_m=m.frozen_array([tcg, tcg]),
+                fsi_m4=m.frozen_array([fsi, fsi]))
+            kw["level_known"] = False
+            kw["fsi_given"] = fsi_given
+            fs_words = (f"free surface: the given maximum {num(fsi)} m⁴ at every slack fill" if fsi_given == "max"
+                        else "no free surface given: counted as nil")
+            rd.assumptions.append(f"{where}: capacity and centre only: centre fixed at every fill; {fs_words}; "
+                                  "stated by %, m³ or t (no sounding or ullage)")
+            _note_frame(rd, where, f, "lcg_m", "tcg_m" if t.has("tcg_m") else "", marked)
+    else:
+        for k in ("lcg_m", "vcg_m", "tcg_m"):
+            if t.has(k):
+                t.bad(k, t.data[k], "a tank with a calibration table takes its centres from the table; "
+                      "lcg/vcg/tcg belong to a capacity-only tank")
+                t.get(k, False)
+        cal = t.table("calibration")
+        kw["calibration"] = None
+        if cal is not None:
+            kw["calibration"] = _read_calibration(cal, capacity, t, f, rd, kw, max_fsi if fsi_given == "max" else None, fsm_ok)
+            if bad_level:
+                kw["calibration"] = None
     if t.has("transfer"):
         tr = t.table("transfer")
         kw["transfer"] = None if tr is None else _read_transfer(tr)
@@ -385,39 +654,172 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) 
     return kw, True
 
 
-def _read_calibration(t: Table, capacity: float | None, tank: Table) -> m.TankCalibration | None:
-    sounding = t.increasing("sounding_m", t.array("sounding_m", non_negative))
-    sounding = t.starts_at("sounding_m", sounding, 0.0, "the tank bottom")
-    volume = t.increasing("volume_m3", t.array("volume_m3", non_negative))
-    volume = t.starts_at("volume_m3", volume, 0.0, "the tank is empty at sounding 0")
-    cols = {
-        "sounding_m": sounding,
-        "volume_m3": volume,
-        "lcg_m": t.array("lcg_m"),
-        "vcg_m": t.array("vcg_m", above_keel),
-        "tcg_m": t.array("tcg_m"),
-        "fsi_m4": t.array("fsi_m4", non_negative),
-    }
+def _row(i: int) -> str:
+    return f"row {i + 1}"
+
+
+CAL_COLUMNS = ("sounding_m", "ullage_m", "volume_m3", "lcg_m", "vcg_m", "tcg_m", "fsi_m4", "fsm_tm")
+
+
+def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame: Frame | None, rd: Reading,
+                      kw: dict, max_fsi: float | None, fsm_ok: bool) -> m.TankCalibration | None:
+    """A tank's calibration as the booklet prints it, converted to levels from the tank's lowest point.
+
+    level = sounding + sounding_zero_m = ullage_reference_m − ullage; rows may run either
+    way; FSM in t·m at a stated density becomes fsi = FSM/ρ; a table that starts above
+    the bottom gets a row 'level 0, volume 0' with the first row's centres (conservative).
+    """
+    where = t.name
+    attach_csv(t, CAL_COLUMNS)
+    f = read_frame(t, tank_frame, sides=True)
+    tr = TableReading(f or Frame(1.0), csv=t.data.get("csv"))
+    levels_given = [k for k in ("sounding_m", "ullage_m") if t.has(k)]
+    if len(levels_given) != 1:
+        t.bad("sounding_m", MISSING if not levels_given else t.data["sounding_m"],
+              "give exactly one of sounding_m and ullage_m" + (", not both" if levels_given else ""))
+        for k in ("sounding_m", "ullage_m"):
+            t.get(k, False)
+        level_key = None
+        reading = None
+    else:
+        level_key = levels_given[0]
+        reading = t.array(level_key)
+    volume = t.array("volume_m3", non_negative)
+    lcg = t.array("lcg_m")
+    vcg = t.array("vcg_m", above_keel)
+    tcg, marked = tcg_array(t, "tcg_m", f)
+    # free surface: a column in m⁴ or t·m, or none (the tank's one maximum, or a capacity-only tank)
+    fsm_keys = [k for k in ("fsi_m4", "fsm_tm") if t.has(k)]
+    fsi = None
+    fs_ok = True
+    if len(fsm_keys) == 2:
+        t.bad("fsm_tm", t.data["fsm_tm"], "give fsi_m4 or fsm_tm, not both")
+        t.get("fsi_m4", False)
+        fs_ok = False
+    elif fsm_keys == ["fsi_m4"]:
+        fsi = t.array("fsi_m4", non_negative)
+        fs_ok = fsi is not None
+        t.get("fsm_density_t_m3", False)
+        if t.has("fsm_density_t_m3"):
+            t.bad("fsm_density_t_m3", t.data["fsm_density_t_m3"], "belongs with fsm_tm (t·m), not fsi_m4 (m⁴)")
+            fs_ok = False
+    elif fsm_keys == ["fsm_tm"]:
+        fsm = t.array("fsm_tm", non_negative)
+        rho = t.num("fsm_density_t_m3", liquid_density, required=True)
+        fs_ok = fsm is not None and rho is not None
+        if fs_ok:
+            fsi = fsm / rho
+            tr.fsm, tr.fsm_density_t_m3 = "fsm_tm", rho
+            rd.convert(where, "fsm_tm", f"t·m at {num(rho)} t/m³ → fsi_m4 (÷ {num(rho)})")
+    else:
+        t.get("fsi_m4", False)
+        t.get("fsm_density_t_m3", False)
+        tr.fsm = ""
+        if max_fsi is None:
+            if fsm_ok:
+                t.bad("fsi_m4", MISSING, "give fsi_m4 or fsm_tm per row, or one max_fsi_m4 / max_fsm_tm for the tank")
+            fs_ok = False
+    if (max_fsi is not None) and fsm_keys:
+        tank.bad("max_fsi_m4" if tank.has("max_fsi_m4") else "max_fsm_tm", tank.data.get("max_fsi_m4", tank.data.get("max_fsm_tm")),
+                 "the calibration already gives free surface per row: give one or the other")
+        fs_ok = False
     t.finish()
-    if not t.same_length("sounding_m", cols):
+    cols = {"level": reading, "volume_m3": volume, "lcg_m": lcg, "vcg_m": vcg, "tcg_m": tcg}
+    if level_key is None or not fs_ok or not fsm_ok or f is None:
         return None
+    if fsi is None:
+        fsi = np.full(len(volume) if volume is not None else 0, max_fsi)
+    cols["fsi_m4"] = fsi
+    n = t.raw_len(level_key)
+    for k, a in cols.items():
+        if a is None:
+            return None
+        if len(a) != n:
+            key = level_key if k == "level" else k
+            t.bad(key, t.data.get(key, MISSING), f"has {len(a)} values but {level_key} has {n}: one value per row")
+            return None
+    # the level above the tank's lowest point
+    if level_key == "ullage_m":
+        ref = kw.get("ullage_reference_m")
+        if ref is None:
+            tank.bad("ullage_reference_m", MISSING, "required with an ullage table: the height of the ullage "
+                     "reference point above the tank's lowest point")
+            return None
+        level = ref - reading
+        rd.convert(where, "ullage_m", f"ullage → level above the tank bottom (level = {num(ref)} − ullage)")
+    else:
+        z0 = kw.get("sounding_zero_m") or 0.0
+        level = reading + z0
+        if z0:
+            rd.convert(where, "sounding_m", f"sounding zero {num(z0)} m above the tank bottom → level (sounding + {num(z0)})")
+    # rows may be written with the level falling (ullage tables usually are): turn them round
+    if len(level) >= 2 and np.all(np.diff(level) < 0):
+        cols = {k: a[::-1].copy() for k, a in cols.items()}
+        level = level[::-1].copy()
+        tr.reversed = True
+    cols["level"] = level
+    for key, arr in ((level_key, level), ("volume_m3", cols["volume_m3"])):
+        d = np.diff(arr)
+        if np.any(d <= 0):
+            i = int(np.argmax(d <= 0)) + 1
+            row = n - 1 - i if tr.reversed else i
+            prev = row + 1 if tr.reversed else row - 1
+            way = "decreasing" if tr.reversed else "increasing"
+            t.bad(key, t.data[key], f"not strictly {way} ({_row(row)}: {toml_value(t.data[key][row])} after "
+                  f"{toml_value(t.data[key][prev])})", (row,))
+            return None
+    if level[0] < -1e-9:
+        row = n - 1 if tr.reversed else 0
+        t.bad(level_key, t.data[level_key], f"row {row + 1} lies {num(-level[0])} m below the tank's lowest point "
+              "(check sounding_zero_m / ullage_reference_m)", (row,))
+        return None
+    if cols["volume_m3"][0] == 0.0:
+        if abs(level[0]) > 1e-9:
+            row = n - 1 if tr.reversed else 0
+            t.bad(level_key, t.data[level_key], f"must start at 0 (the tank bottom): the empty row (volume 0) is "
+                  f"{num(level[0])} m above the tank's lowest point (where the reading's zero is not at the bottom, "
+                  "give sounding_zero_m or ullage_reference_m)", (row,))
+            return None
+        cols["level"][0] = 0.0
+    else:
+        # The table starts above the bottom: add 'level 0, volume 0' with the first row's centres.
+        cols = {k: np.concatenate([[a[0]], a]) for k, a in cols.items()}
+        cols["level"][0] = 0.0
+        cols["volume_m3"][0] = 0.0
+        tr.added_bottom_row = True
+        rd.assumptions.append(f"{where}: the table starts at {num(cols['volume_m3'][1])} m³; below it the contents' "
+                              "centre and free surface are taken as at the first row (centre no lower: conservative for KG)")
+    if not f.y_is_identity or marked or not f.x_is_identity:
+        _note_frame(rd, where, f, "lcg_m", "tcg_m", marked)
+    tr.level = level_key
+    tr.tcg_marked = marked
+    cols["lcg_m"] = f.x_to_ap(cols["lcg_m"])
     vcg = cols["vcg_m"]
-    d = np.diff(vcg)
-    if np.any(d < -1e-6):
-        i = int(np.argmax(d < -1e-6)) + 1
-        t.bad("vcg_m", t.data["vcg_m"], f"falls as the tank fills (row {i + 1}: {toml_value(t.data['vcg_m'][i])} after "
-              f"{toml_value(t.data['vcg_m'][i - 1])}); the contents' centre can only rise", (i,))
+    dv = np.diff(vcg)
+    if np.any(dv < -1e-6):
+        i = int(np.argmax(dv < -1e-6)) + 1
+        row = i - (1 if tr.added_bottom_row else 0)
+        row = n - 1 - row if tr.reversed else row
+        prev = row + 1 if tr.reversed else row - 1
+        t.bad("vcg_m", t.data["vcg_m"], f"falls as the tank fills (row {row + 1}: {toml_value(t.data['vcg_m'][row])} after "
+              f"{toml_value(t.data['vcg_m'][prev])}); "
+              "the contents' centre can only rise", (row,))
         return None
     if capacity is not None:
-        last = float(volume[-1])
+        last = float(cols["volume_m3"][-1])
         if abs(capacity - last) > CAPACITY_TOLERANCE * last:
             tank.bad("capacity_m3", tank.data["capacity_m3"],
                      f"differs from the last calibration volume {num(last)} m³ by "
                      f"{100 * abs(capacity - last) / last:.2f} % (at most {100 * CAPACITY_TOLERANCE:g} % allowed)")
             return None
-    return m.TankCalibration(**{k: m.frozen_array(v) for k, v in cols.items()})
-
-
+    if max_fsi is not None:
+        kw["fsi_given"] = "max"
+        rd.assumptions.append(f"{tank.name}: one free-surface value for the tank, {num(max_fsi)} m⁴, used at every "
+                              "slack fill (a maximum: conservative)")
+    rd.tables[where] = tr
+    return m.TankCalibration(sounding_m=m.frozen_array(cols["level"]), volume_m3=m.frozen_array(cols["volume_m3"]),
+                             lcg_m=m.frozen_array(cols["lcg_m"]), vcg_m=m.frozen_array(cols["vcg_m"]),
+                             tcg_m=m.frozen_array(cols["tcg_m"]), fsi_m4=m.frozen_array(cols["fsi_m4"]))
 def _read_transfer(t: Table) -> m.FluidTransfer | None:
     fill = t.increasing("fill_pct", t.array("fill_pct", percent_range))
     fill = t.starts_at("fill_pct", fill, 0.0, "empty")
@@ -434,21 +836,27 @@ def _read_transfer(t: Table) -> m.FluidTransfer | None:
     return m.FluidTransfer(fill_pct=m.frozen_array(fill), heel_deg=m.frozen_array(heel), moment_m4=m.frozen_array(mom))
 
 
-def _read_holds(root: Table, ids: dict[str, str]) -> list[m.Hold]:
+HOLD_FILL_COLUMNS = ("fill_pct", "fill_vcg_m", "fill_lcg_m")
+
+
+def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Reading) -> list[m.Hold]:
     out, ok = [], True
     for t in root.tables("hold"):
         ident = claim_id(t, "hold", ids)
+        attach_csv(t, HOLD_FILL_COLUMNS)
+        f = read_frame(t, frame, sides=True)
+        tcg, marked = tcg_num(t, "tcg_m", f)
         kw: dict[str, Any] = dict(
             id=ident,
             name=t.text("name"),
             capacity_m3=t.num("capacity_m3", positive),
-            lcg_m=t.num("lcg_m"),
+            lcg_m=_x(t, "lcg_m", f, rd, t.name),
             vcg_m=t.num("vcg_m", above_keel),
-            tcg_m=t.num("tcg_m", required=False, default=0.0),
+            tcg_m=tcg,
         )
         has_max = t.has("max_mass_t")
         kw["max_mass_t"] = t.num("max_mass_t", positive, required=False)
-        fill_keys = ("fill_pct", "fill_vcg_m", "fill_lcg_m")
+        fill_keys = HOLD_FILL_COLUMNS
         present = [k for k in fill_keys if t.has(k)]
         cols: dict[str, np.ndarray | None] = {}
         for k in fill_keys:
@@ -472,33 +880,43 @@ def _read_holds(root: Table, ids: dict[str, str]) -> list[m.Hold]:
                 cols["fill_pct"] = fill
                 fill_ok = t.same_length("fill_pct", cols)
         t.finish()
-        if not fill_ok or any(v is None for k, v in kw.items() if k != "max_mass_t") or (has_max and kw["max_mass_t"] is None):
+        if (not fill_ok or f is None or any(v is None for k, v in kw.items() if k != "max_mass_t")
+                or (has_max and kw["max_mass_t"] is None)):
             ok = False
             continue
+        _note_frame(rd, t.name, f, "lcg_m" + (", fill_lcg_m" if "fill_lcg_m" in cols else ""),
+                    "tcg_m" if t.has("tcg_m") else "", marked)
+        if cols.get("fill_lcg_m") is not None:
+            cols["fill_lcg_m"] = f.x_to_ap(cols["fill_lcg_m"])
+        if present:
+            rd.tables[t.name] = TableReading(f, csv=t.data.get("csv"))
         for k in fill_keys:
             kw[k] = m.frozen_array(cols[k]) if k in cols else None
         out.append(m.Hold(**kw))
     return out if ok else []
 
 
-def _read_deck_areas(root: Table, ids: dict[str, str]) -> list[m.DeckArea]:
+def _read_deck_areas(root: Table, ids: dict[str, str], frame: Frame | None, rd: Reading) -> list[m.DeckArea]:
     out, ok = [], True
     for t in root.tables("deck_area"):
         ident = claim_id(t, "deck_area", ids)
+        f = read_frame(t, frame, sides=True)
+        tcg, marked = tcg_num(t, "tcg_m", f)
         kw: dict[str, Any] = dict(
             id=ident,
             name=t.text("name"),
             area_m2=t.num("area_m2", positive),
-            lcg_m=t.num("lcg_m"),
+            lcg_m=_x(t, "lcg_m", f, rd, t.name),
             deck_height_m=t.num("deck_height_m", above_keel),
-            tcg_m=t.num("tcg_m", required=False, default=0.0),
+            tcg_m=tcg,
         )
         has_max = t.has("max_load_t_m2")
         kw["max_load_t_m2"] = t.num("max_load_t_m2", positive, required=False)
         t.finish()
-        if any(v is None for k, v in kw.items() if k != "max_load_t_m2") or (has_max and kw["max_load_t_m2"] is None):
+        if f is None or any(v is None for k, v in kw.items() if k != "max_load_t_m2") or (has_max and kw["max_load_t_m2"] is None):
             ok = False
             continue
+        _note_frame(rd, t.name, f, "lcg_m", "tcg_m" if t.has("tcg_m") else "", marked)
         out.append(m.DeckArea(**kw))
     return out if ok else []
 
@@ -572,14 +990,13 @@ def _read_fills(root: Table, vessel: m.Vessel) -> list[m.TankFill]:
         dens = t.num("density_t_m3", liquid_density, required=False)
         bad_dens = t.has("density_t_m3") and dens is None
         rho = dens if dens is not None else tank.density_t_m3
-        cal = tank.calibration
         cap = tank.capacity_m3
         rules: dict[str, tuple[Rule, ...]] = {
             "percent": (non_negative, at_most(100.0, "% (full)")),
             "volume_m3": (non_negative, at_most(cap, "m³, the tank's capacity")),
             "mass_t": (non_negative, at_most(cap * rho, f"t, the tank's capacity {num(cap)} m³ × {num(rho)} t/m³")),
-            "sounding_m": (non_negative, at_most(float(cal.sounding_m[-1]),
-                           f"m: outside the calibration table {num(cal.sounding_m[0])}–{num(cal.sounding_m[-1])} m")),
+            "sounding_m": _reading_rules(tank, "sounding_m"),
+            "ullage_m": _reading_rules(tank, "ullage_m"),
         }
         values = {q: t.num(q, *rules[q], required=False) for q in m.FILL_QUANTITIES}
         t.finish()
@@ -593,6 +1010,17 @@ def _read_fills(root: Table, vessel: m.Vessel) -> list[m.TankFill]:
             continue
         out.append(m.TankFill(tank_id=ident, quantity=q, value=values[q], density_t_m3=dens))
     return out
+
+
+def _reading_rules(tank: m.Tank, quantity: str) -> tuple[Rule, ...]:
+    """A sounding or ullage reading must fall within the tank's table (and the tank must have one)."""
+    name = "sounding" if quantity == "sounding_m" else "ullage"
+    if not tank.level_known:
+        return (lambda x: f"tank {tank.id} is known only by capacity and centre: no {name}; give percent, volume_m3 or mass_t",)
+    if quantity == "ullage_m" and tank.ullage_reference_m is None:
+        return (lambda x: f"tank {tank.id} has no ullage_reference_m in the profile: give sounding_m, percent, volume_m3 or mass_t",)
+    lo, hi = reading_range(tank, quantity)
+    return (between(lo, hi, "m", f"the {name}s of the tank's calibration table; nothing is extrapolated"),)
 
 
 def _read_hold_loads(root: Table, vessel: m.Vessel) -> list[m.HoldLoad]:

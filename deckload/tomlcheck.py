@@ -52,11 +52,14 @@ class Problem:
     """The offending value as written (shortened), or None when the key is missing."""
     rule: str
     """The rule broken, in words."""
+    column: str = ""
+    """For a table read from a CSV file: the column, e.g. "column 4 'vcg_m'"; else ''."""
 
     def __str__(self) -> str:
         parts = [f"{self.file}:{self.line}" if self.line else self.file]
         if self.key:
-            parts.append(self.key if self.value is None else f"{self.key} = {self.value}")
+            key = self.key if self.value is None else f"{self.key} = {self.value}"
+            parts.append(f"{key} ({self.column})" if self.column else key)
         parts.append(self.rule)
         return ": ".join(parts)
 
@@ -359,6 +362,10 @@ class FileCheck:
         self.error = error
         self.problems: list[Problem] = []
         self._lines: dict[tuple, int] | None = None
+        self.sources: dict[tuple, "Callable[[tuple], tuple[str, int | None, str, Any]]"] = {}
+        """Keys whose values came from another file (a CSV table): key path → locator.
+        A locator maps the element path within the key ((row,) or (row, column)) to
+        (file, line, column label, the cell as written) for the problem report."""
 
     def fmt(self, v: Any) -> str:
         return self.wording.value(v)
@@ -372,6 +379,13 @@ class FileCheck:
         return None
 
     def add(self, raw: tuple, key: str, value: str | None, rule: str, line: int | None = None) -> None:
+        for n in range(len(raw), 0, -1):
+            locate = self.sources.get(raw[:n])
+            if locate is not None:
+                file, at_line, column, cell = locate(raw[n:])
+                shown = value if cell is MISSING or value is None else self.fmt(cell)
+                self.problems.append(Problem(file, at_line, key, shown, rule, column))
+                return
         self.problems.append(Problem(self.file, line or self.line_of(raw), key, value, rule))
 
     def parse(self) -> dict:

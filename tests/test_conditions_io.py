@@ -138,7 +138,7 @@ def test_no_fill_quantity():
     text = edit(GOOD, "percent = 50.0", "density_t_m3 = 1.0")
     p = only(text)
     assert p.key == "tanks.DB1S"
-    assert p.rule == "states no quantity: give exactly one of percent, volume_m3, mass_t, sounding_m"
+    assert p.rule == "states no quantity: give exactly one of percent, volume_m3, mass_t, sounding_m, ullage_m"
 
 
 def test_percent_above_100():
@@ -171,7 +171,8 @@ def test_sounding_outside_calibration():
     text = edit(GOOD, "sounding_m = 0.5", "sounding_m = 1.2")
     p = only(text)
     assert (p.key, p.line) == ("tanks.DB1P.sounding_m", line_of(text, "sounding_m = 1.2"))
-    assert p.rule == "above 1 m: outside the calibration table 0–1 m"
+    assert p.rule == ("above 1 m: must be between 0 and 1 m (the soundings of the tank's calibration table; "
+                      "nothing is extrapolated)")
 
 
 def test_negative_mass_of_a_constant():

@@ -28,13 +28,23 @@ WHOLE_DEGREES = slice(0, None, int(round(1.0 / STEP_DEG)))
 
 
 def kn_curve(cc: CrossCurves, table_displacement_t: float) -> np.ndarray:
-    """KN (m) on the fine heel grid at a displacement (table density)."""
+    """KN (m) on the fine heel grid at a displacement (table density), up to the table's last angle."""
     i, f = bracket(cc.displacement_t, table_displacement_t, "displacement (KN cross curves, at table density)", "t")
     row = lerp_row(cc.kn_m, i, f)
-    if cc.heel_deg[0] != 0.0 or cc.heel_deg[-1] < 90.0 - 1e-9:
-        # The profile validation requires 0–90°; refuse rather than extrapolate.
-        raise OutOfRangeError("heel (KN cross curves)", 90.0, float(cc.heel_deg[0]), float(cc.heel_deg[-1]), "deg")
-    return CubicSpline.fit(cc.heel_deg, row)(FINE_DEG)
+    if cc.heel_deg[0] != 0.0:
+        # The profile validation requires the table to start upright; refuse rather than extrapolate.
+        raise OutOfRangeError("heel (KN cross curves)", 0.0, float(cc.heel_deg[0]), float(cc.heel_deg[-1]), "deg")
+    return CubicSpline.fit(cc.heel_deg, row)(FINE_DEG[: grid_points(cc)])
+
+
+def grid_points(cc: CrossCurves) -> int:
+    """Points of the fine grid the KN table covers: 0° up to its last tabulated angle.
+
+    A booklet's cross curves may stop before 90° (e.g. at 60°): the curve, its areas
+    and its plot then stop there too; nothing is extrapolated.  Every array the
+    caller builds on the grid is cut to this length (``SIN[:n]``, ``COS[:n]``, ...).
+    """
+    return int(math.floor(float(cc.heel_deg[-1]) / STEP_DEG + 1e-6)) + 1
 
 
 @dataclass(frozen=True)

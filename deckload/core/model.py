@@ -39,8 +39,12 @@ LIQUID_KINDS: tuple[str, ...] = (
 CONSUMABLE_KINDS: frozenset[str] = frozenset({"fuel_oil", "diesel", "lube_oil", "fresh_water"})
 """Consumables: the IS Code 2008 Part B 3.1.3 'variable filling level' liquids."""
 
-FILL_QUANTITIES: tuple[str, ...] = ("percent", "volume_m3", "mass_t", "sounding_m")
-"""The ways a watchkeeper may state a tank's contents: exactly one per tank."""
+FILL_QUANTITIES: tuple[str, ...] = ("percent", "volume_m3", "mass_t", "sounding_m", "ullage_m")
+"""The ways a watchkeeper may state a tank's contents: exactly one per tank.  A sounding is
+read from the tank's sounding zero, an ullage from its ullage reference point (see :class:`Tank`)."""
+
+LEVEL_QUANTITIES: frozenset[str] = frozenset({"sounding_m", "ullage_m"})
+"""Quantities read as a level: refused for a tank known only by capacity and centre."""
 
 FsCategory = Literal["fixed", "variable"]
 FsRule = Literal["is2008", "actual"]
@@ -77,6 +81,8 @@ class Particulars:
     """Free text: the kind of vessel (e.g. 'coastal island-supply vessel')."""
     remark: str = ""
     """Free text shown on reports."""
+    keel_thickness_m: float = 0.0
+    """Extreme draft minus moulded draft (m); 0 when the booklet does not give it."""
 
 
 @dataclass(frozen=True)
@@ -141,7 +147,11 @@ class TankCalibration:
     """A tank's calibration table by sounding (from the tank bottom)."""
 
     sounding_m: np.ndarray
-    """Sounding from the lowest point of the tank (m), strictly increasing, from 0."""
+    """Level of the liquid above the lowest point of the tank (m), strictly increasing, from 0.
+    (A sounding or ullage reading is turned into this level with the tank's
+    ``sounding_zero_m`` / ``ullage_reference_m``.)  For a tank known only by capacity and
+    centre (``Tank.level_known`` False) there is no level: this column is then the volume
+    fraction 0…1 and is never shown."""
     volume_m3: np.ndarray
     """Volume at that sounding (m³), strictly increasing."""
     lcg_m: np.ndarray
@@ -200,6 +210,16 @@ class Tank:
     """Actual moment of fluid transfer, when the tank's geometry is known."""
     worst_band_pct: tuple[float, float] = (40.0, 60.0)
     """Fill band (%) in which the heeling moment at 30° is within 10 % of its maximum."""
+    sounding_zero_m: float = 0.0
+    """Height of the sounding zero above the tank's lowest point (m): level = sounding + this."""
+    ullage_reference_m: float | None = None
+    """Height of the ullage reference point above the tank's lowest point (m):
+    level = this − ullage.  None: the tank cannot be stated by ullage."""
+    level_known: bool = True
+    """False for a tank known only by capacity and centre: no sounding or ullage, centre fixed."""
+    fsi_given: str = "table"
+    """Where ``calibration.fsi_m4`` comes from: 'table' (per row, as given), 'max' (one
+    maximum value per tank, used at every level) or 'none' (no free surface given: nil)."""
     max_fsi_m4: float = field(init=False)
     """Largest free-surface inertia over the calibration (m⁴); derived."""
     table: np.ndarray = field(init=False, repr=False)
@@ -320,6 +340,13 @@ class Vessel:
     downflooding: LimitCurve | None = None
     criteria: CriteriaSettings = CriteriaSettings()
     free_surface: FreeSurfaceSettings = FreeSurfaceSettings()
+    constants: tuple[MassItem, ...] = ()
+    """Fixed constants (crew and effects, stores, provisions) in every condition; a
+    condition's constant of the same name replaces one (see :func:`effective_constants`)."""
+    conversions: tuple[str, ...] = ()
+    """How the profile's booklet conventions were converted on load, one line each (for check)."""
+    assumptions: tuple[str, ...] = ()
+    """What was assumed where the booklet gives less than the model needs, one line each."""
     tank_index: dict[str, int] = field(init=False, repr=False, compare=False)
     hold_index: dict[str, int] = field(init=False, repr=False, compare=False)
     area_index: dict[str, int] = field(init=False, repr=False, compare=False)
@@ -441,3 +468,10 @@ class Condition:
 
     def replace(self, **changes) -> "Condition":
         return dataclasses.replace(self, **changes)
+
+
+def effective_constants(vessel: Vessel, condition: Condition) -> tuple[MassItem, ...]:
+    """The profile's fixed constants, each replaced by the condition's constant of the same
+    name if it has one, then the condition's other constants."""
+    own = {c.name for c in condition.constants}
+    return tuple(c for c in vessel.constants if c.name not in own) + tuple(condition.constants)

@@ -23,7 +23,8 @@ class TankResult:
     volume_m3: float
     mass_t: float
     density_t_m3: float
-    sounding_m: float
+    sounding_m: float | None
+    """Level above the tank's lowest point (m); None for a tank known only by capacity and centre."""
     lcg_m: float
     vcg_m: float
     tcg_m: float

@@ -16,6 +16,7 @@ nothing outside is read or written.  Steps, each in its own module:
 from __future__ import annotations
 
 import math
+from dataclasses import replace
 
 import numpy as np
 
@@ -31,7 +32,7 @@ from deckload.core.hydrostatics import (
     upright,
 )
 from deckload.core.loading import LoadingError, hold_item, resolve_tanks, sum_weights
-from deckload.core.model import Condition, Vessel
+from deckload.core.model import Condition, Vessel, effective_constants
 from deckload.core.result import ItemResult, Result, TankResult, Warning
 from deckload.core.tables import OutOfRangeError, bracket, interp, lerp_row
 
@@ -50,7 +51,7 @@ def _items(vessel: Vessel, condition: Condition) -> list[ItemResult]:
         if d.area_id is not None and d.area_id not in vessel.area_index:
             raise LoadingError(f"deck item {d.name!r} names deck area {d.area_id!r}, which the vessel does not have")
         items.append(ItemResult("deck", f"deck{n + 1}", d.name, d.mass_t, d.lcg_m, d.vcg_m, d.tcg_m))
-    for n, c in enumerate(condition.constants):
+    for n, c in enumerate(effective_constants(vessel, condition)):
         items.append(ItemResult("constant", f"const{n + 1}", c.name, c.mass_t, c.lcg_m, c.vcg_m, c.tcg_m))
     for it in items:
         if it.mass_t < 0 or not math.isfinite(it.mass_t):
@@ -99,6 +100,11 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
     t_mid = draft_at(lbp / 2.0, hy.draft_m, hy.lcf_m, trim, lbp)
 
     kn = gzmod.kn_curve(vessel.cross_curves, hy.table_displacement_t)
+    # The curve stops at the KN table's last angle (booklets may end at 60°): cut the grid.
+    n_grid = len(kn)
+    fine_deg, fine_rad = gzmod.FINE_DEG[:n_grid], gzmod.FINE_RAD[:n_grid]
+    sin, cos = gzmod.SIN[:n_grid], gzmod.COS[:n_grid]
+    gz_end = float(fine_deg[-1])
     warnings: list[Warning] = []
     if correction == "transfer":
         # The upright (0°) inertia still gives GM fluid; the curve takes the actual
@@ -113,22 +119,22 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
                 continue
             if c.tank.transfer is None:
                 no_geometry.append(c.tank.id)
-            m_stbd = transfer_moment_m4(c.tank, t.basis, c.fill_pct, gzmod.FINE_RAD)
+            m_stbd = transfer_moment_m4(c.tank, t.basis, c.fill_pct, fine_rad)
             mirror = vessel.tank(c.tank.pair) if c.tank.pair else None
-            m_port = (transfer_moment_m4(mirror, t.basis, c.fill_pct, gzmod.FINE_RAD)
+            m_port = (transfer_moment_m4(mirror, t.basis, c.fill_pct, fine_rad)
                       if mirror is not None and mirror.transfer is not None else m_stbd)
             shift_stbd += c.density_t_m3 * m_stbd
             shift_port += c.density_t_m3 * m_port
-        base_stbd = kn - w.vcg_m * gzmod.SIN - shift_stbd / disp
-        base_port = kn - w.vcg_m * gzmod.SIN - shift_port / disp
+        base_stbd = kn - w.vcg_m * sin - shift_stbd / disp
+        base_port = kn - w.vcg_m * sin - shift_port / disp
         if no_geometry:
             warnings.append(Warning("fs-no-geometry",
                                     "no tank geometry for " + ", ".join(no_geometry)
                                     + ": their transfer is taken as i·sinφ", "caution"))
     else:
-        base_stbd = base_port = kn - kg_fluid * gzmod.SIN
-    gz_stbd = base_stbd - w.tcg_m * gzmod.COS
-    gz_port = base_port + w.tcg_m * gzmod.COS
+        base_stbd = base_port = kn - kg_fluid * sin
+    gz_stbd = base_stbd - w.tcg_m * cos
+    gz_port = base_port + w.tcg_m * cos
     side = "port" if w.tcg_m < 0 else "starboard"
     gz = gz_port if side == "port" else gz_stbd
 
@@ -157,6 +163,8 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
     angle_of_max = f.max_gz_angle_deg if f.max_gz_m > 0.0 else 0.0
     measures = Measures(a30, a40, a3040, gz30, angle_of_max, gm_fluid)
     criteria = list(evaluate_criteria(vessel.criteria.code, measures, vessel.criteria.min_gm_m))
+    if gz_end < 90.0 - 1e-9:
+        criteria = _short_curve(criteria, gz_end, hi, top, f.max_gz_angle_deg)
     if vessel.limit_curve is not None:
         lim = _curve_limit(vessel.limit_curve, hy.table_displacement_t)
         if lim is None:
@@ -180,7 +188,8 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
     tanks = tuple(
         TankResult(
             id=c.tank.id, name=c.tank.name, kind=c.tank.kind, fill_pct=c.fill_pct, volume_m3=c.volume_m3,
-            mass_t=c.mass_t, density_t_m3=c.density_t_m3, sounding_m=c.sounding_m, lcg_m=c.lcg_m,
+            mass_t=c.mass_t, density_t_m3=c.density_t_m3, lcg_m=c.lcg_m,
+            sounding_m=c.sounding_m if c.tank.level_known else None,
             vcg_m=c.vcg_m, tcg_m=c.tcg_m, fsi_m4=c.fsi_m4, fsm_tm=t.fsm_tm, fs_rule=t.rule, state=t.state,
             worst_band_pct=c.tank.worst_band_pct, capacity_m3=c.tank.capacity_m3,
         )
@@ -218,7 +227,7 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
         draft_fwd_m=t_fwd,
         draft_mean_m=t_mid,
         list_deg=heel,
-        gz_heel_deg=tuple(gzmod.FINE_DEG[gzmod.WHOLE_DEGREES].tolist()),
+        gz_heel_deg=tuple(fine_deg[gzmod.WHOLE_DEGREES].tolist()),
         gz_m=tuple(gz_stbd[gzmod.WHOLE_DEGREES].tolist()),
         gz_port_m=tuple(gz_port[gzmod.WHOLE_DEGREES].tolist()),
         criteria_side=side,
@@ -232,16 +241,45 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
         area_0_40_mrad=a40,
         area_30_40_mrad=a3040,
         criteria=tuple(criteria),
+        gz_end_deg=gz_end,
         tanks=tanks,
         items=tuple(items),
         warnings=tuple(warnings),
     )
 
 
+def _short_curve(criteria: list, end_deg: float, gz30_to_deg: float, area_to_deg: float,
+                 max_angle_deg: float) -> list:
+    """Criteria of a GZ curve whose KN table stops at ``end_deg`` < 90°: nothing beyond it is known.
+
+    "GZ ≥ 0.20 m at 30° or more" looks up to ``gz30_to_deg`` (θf, else 90°): a value found
+    within the table decides it, but a shortfall where the range runs past the table
+    cannot be decided, so it is not assessable (never met).  The areas need
+    ``area_to_deg`` (40° or θf), which the profile validation keeps within the table; a
+    maximum at the table's last angle lies there or beyond, which the note says.
+    """
+    out = []
+    for c in criteria:
+        if c.id.endswith("gz-30") and gz30_to_deg > end_deg + 1e-9 and not c.passed:
+            c = replace(c, assessed=False, passed=False,
+                        note=f"GZ stays below {c.limit:.2f} m up to {end_deg:g}°, where the KN tables end; "
+                             f"the range runs to {gz30_to_deg:g}°: not assessable")
+        elif c.id.endswith("area-0-40") or c.id.endswith("area-30-40"):
+            if area_to_deg > end_deg + 1e-9:
+                c = replace(c, assessed=False, passed=False,
+                            note=f"needs GZ to {area_to_deg:g}°, beyond the KN tables' {end_deg:g}°: not assessable")
+        elif c.id.endswith("angle-max-gz") and max_angle_deg >= end_deg - 0.05:
+            c = replace(c, note=f"the maximum lies at or beyond {end_deg:g}°, where the KN tables end")
+        out.append(c)
+    return out
+
+
 def _warnings(vessel, condition, tanks, criteria, items, heel, t_mid) -> list[Warning]:
     out: list[Warning] = []
     for c in criteria:
-        if not c.passed:
+        if not c.assessed:
+            out.append(Warning("criterion-not-assessed", f"NOT ASSESSABLE {c.description}: {c.note}", "danger"))
+        elif not c.passed:
             out.append(Warning("criterion-failed",
                                f"FAILED {c.description}: {c.value:.3f} {c.unit} against {c.limit:.3f} ({c.source})",
                                "danger"))
