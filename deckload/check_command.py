@@ -5,7 +5,12 @@ line, in the form ``file:line: dotted.key = value: rule``.  With a condition, th
 condition is also computed once, so that a displacement or draft outside the
 vessel's tables is reported here rather than on the loading screen.
 
-Exit status: 0 no problems; 1 problems found; 2 a file could not be read;
+After the profile's summary: the plausibility audit (deckload.core.audit: errors are
+contradictions and fail the check, warnings are doubts), then the booklet's worked
+conditions recomputed beside the booklet's results with the tolerance of every row
+(deckload.core.booklet).
+
+Exit status: 0 no problems; 1 problems found (schema, audit error, booklet row outside tolerance); 2 a file could not be read;
 3 an internal error (a bug: please report it with the files).
 """
 
@@ -68,17 +73,85 @@ def run_check(profile_path: Path, condition_path: Path | None = None) -> int:
         return 2
     except ProfileError as e:
         _print_problems(e.problems, profile_path)
+        print("plausibility audit and booklet conditions: not run until these problems are put right")
         if condition_path is not None:
             print(f"{condition_path}: not checked: its vessel profile has problems")
         return 1
-    for line in profile_summary(profile_path, vessel):
+    from deckload.audit_report import audit_profile
+
+    found = audit_profile(profile_path, vessel)
+    summary = profile_summary(profile_path, vessel)
+    if any(f.is_error for f in found):
+        # the schema is met but the numbers contradict each other: not "OK"
+        summary[0] = "ERR " + summary[0][4:]
+    for line in summary:
         print(line)
 
-    status = 0
+    status = _audit(found)
+    booklet = _booklet(profile_path, vessel)
+    status = max(status, booklet)
     if condition_path is not None:
-        status = _check_condition(Path(condition_path), vessel)
+        status = max(status, _check_condition(Path(condition_path), vessel))
     print(CAUTION)
     return status
+
+
+def _audit(found) -> int:
+    """Print the plausibility audit's findings; 1 when it found a contradiction (an error)."""
+    errors = sum(1 for f in found if f.is_error)
+    for f in found:
+        print(f)
+    if not found:
+        print("    plausibility audit: nothing suspicious found")
+    else:
+        print(f"plausibility audit: {_plural(errors, 'error')} (contradictions: put right before use), "
+              f"{_plural(len(found) - errors, 'warning')} (doubts: compare with the booklet)")
+    return 1 if errors else 0
+
+
+def _booklet(path: Path, vessel: m.Vessel) -> int:
+    """Recompute the booklet's worked conditions and print them beside the booklet's results."""
+    from deckload.booklet_conditions import load_booklet_conditions
+    from deckload.core.booklet import compare
+    from deckload.core.stability import evaluate
+    from deckload.core.tables import OutOfRangeError
+
+    try:
+        cases = load_booklet_conditions(path, vessel)
+    except OSError as e:
+        print(f"deckload: cannot read {e.filename or path}: {e.strerror or e}", file=sys.stderr)
+        return 2
+    except ProfileError as e:
+        _print_problems(e.problems, path)
+        return 1
+    if not cases:
+        return 0
+    passed = 0
+    for case in cases:
+        where = f" ({case.page})" if case.page else ""
+        print(f"booklet condition {case.name!r}{where}, loading: {case.source}")
+        try:
+            result = evaluate(vessel, case.condition)
+        except (OutOfRangeError, ValueError) as e:
+            print(f"    FAIL: cannot be computed: {e}")
+            continue
+        rows = compare(result, case.expected, vessel.particulars.breadth_m)
+        print(f"    {'quantity':<24} {'booklet':>10} {'deckload':>10} {'difference':>11}  {'tolerance':<58} result")
+        for r in rows:
+            got = "—" if r.deckload is None else f"{r.deckload:10.4f}"
+            diff = "—" if r.difference is None else f"{r.difference:+11.4f}"
+            label = f"{r.label} ({r.unit})"
+            verdict = "pass" if r.passed else "FAIL" + (f": {r.note}" if r.note else "")
+            print(f"    {label:<24} {r.booklet:>10.4f} {got:>10} {diff:>11}  {r.tolerance:<58} {verdict}")
+        failed = [r for r in rows if not r.passed]
+        if failed:
+            print(f"    FAIL: {_plural(len(failed), 'row')} outside tolerance: " + ", ".join(r.label for r in failed))
+        else:
+            passed += 1
+            print(f"    pass: all {_plural(len(rows), 'row')} within tolerance")
+    print(f"booklet conditions: {passed} of {len(cases)} within the MSC.1/Circ.1229 / IACS UR L5 tolerances "
+          "(standards.md §5.3)")
+    return 0 if passed == len(cases) else 1
 
 
 def _check_condition(path: Path, vessel: m.Vessel) -> int:

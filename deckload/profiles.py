@@ -172,6 +172,9 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     holds = _read_holds(root, ids, frame, rd)
     areas = _read_deck_areas(root, ids, frame, rd)
     constants = _read_profile_constants(root, frame, rd)
+    # [[booklet_condition]]: the booklet's worked conditions, read and compared by `deckload check`
+    # (deckload.booklet_conditions) once the vessel exists; not part of the model.
+    root.get("booklet_condition", False)
     root.finish()
     ctx.fail_if_any()
 
