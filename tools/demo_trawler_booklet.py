@@ -216,7 +216,7 @@ remark = "Invented demo vessel: every figure is made up for demonstration. deckl
 [lightship]                            # booklet: inclining experiment (invented)
 mass_t = 168.0
 lcg_m = -1.60                          # 1.60 m aft of midships
-vcg_m = 3.15
+vcg_m = 3.05
 tcg_m = 0.0
 
 # Fixed items of every condition (booklet: "constant weights"); a condition may replace one

@@ -71,7 +71,7 @@ CONDITIONS = (
     ("Arrival, full hold, 10 % consumables", "booklet condition 3", "demo_trawler.arrival.condition.toml"),
 )
 HEELS = np.arange(0.0, 60.1, 5.0)
-PRINTED_GZ_HEELS = (10.0, 20.0, 30.0, 40.0, 50.0)
+PRINTED_GZ_HEELS = (10.0, 20.0, 30.0, 40.0)
 CONSUMABLES = {"fuel_oil", "diesel", "lube_oil", "fresh_water"}
 SMALL_TANK_LIMIT_M = 0.01  # IS 2008 B 3.1.12, the value from memory (standards.md §4.1)
 
