@@ -54,6 +54,14 @@ def profile_summary(path: Path, v: m.Vessel) -> list[str]:
         lines.append(f"    tank calibrations: {min(rows)}–{max(rows)} rows each")
     if v.limit_curve is not None:
         lines.append(f"    limit curve ({v.limit_curve.kind}): displacement {_range(v.limit_curve.displacement_t, 't')}")
+    if float(k.heel_deg[-1]) < 90.0:
+        lines.append(f"    note: the KN tables end at {float(k.heel_deg[-1]):g}°: the GZ curve, its areas and plots stop "
+                     "there; nothing is extrapolated")
+    # How the booklet's conventions were converted, and what was assumed (vessel_profiles/README.md).
+    lines += [f"    converted: {c}" for c in v.conversions]
+    lines += [f"    assumed:   {a}" for a in v.assumptions]
+    if v.constants:
+        lines.append("    constants in every condition: " + ", ".join(f"{c.name} {c.mass_t:g} t" for c in v.constants))
     return lines
 
 

@@ -40,6 +40,10 @@ def _parser() -> argparse.ArgumentParser:
     t.add_argument("geometry", type=Path)
     t.add_argument("-o", "--output", type=Path, help="profile to write or refresh (default: print to stdout)")
 
+    x = sub.add_parser("csv", help="write a profile's tables as CSV files, in the booklet's conventions, to compare")
+    x.add_argument("profile", type=Path)
+    x.add_argument("folder", type=Path, help="folder to write the CSV files in (created if missing)")
+
     r = sub.add_parser("report", help="printable loading-condition report")
     r.add_argument("profile", type=Path)
     r.add_argument("condition", type=Path)
@@ -106,6 +110,10 @@ def main(argv: list[str] | None = None) -> int:
             from deckload.tables_command import run_tables
 
             return run_tables(args.geometry, args.output)
+        if cmd == "csv":
+            from deckload.csv_command import run_csv
+
+            return run_csv(args.profile, args.folder)
         if cmd == "report":
             from deckload.report import run_report
 

@@ -30,9 +30,12 @@ def format_summary(r: Result) -> str:
         f"  Draft aft      {r.draft_aft_m:10.3f} m      Draft fwd    {r.draft_fwd_m:10.3f} m",
         f"  Draft midships {r.draft_mean_m:10.3f} m      Trim         {abs(r.trim_m):10.3f} m {trim_word}",
         f"  Max GZ         {r.max_gz_m:10.3f} m at {r.max_gz_angle_deg:4.1f}°"
-        + (f"   vanishing {r.vanishing_angle_deg:.1f}°" if r.vanishing_angle_deg is not None else "")
+        + (f"   vanishing {r.vanishing_angle_deg:.1f}°" if r.vanishing_angle_deg is not None
+           else f"   vanishing beyond {r.gz_end_deg:g}°")
         + (f"   θf {r.downflooding_angle_deg:.1f}°" if r.downflooding_angle_deg is not None else ""),
         f"  Free surface: rule {r.fs_rule}, GZ correction {r.gz_correction}",
+    ] + ([f"  GZ curve ends at {r.gz_end_deg:g}°, the last angle of the KN tables: nothing beyond is known"]
+         if r.gz_end_deg < 90.0 else []) + [
         "",
         "  Criteria" + (f" (checked heeling to {r.criteria_side})" if r.tcg_m else ""),
     ]

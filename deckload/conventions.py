@@ -11,7 +11,7 @@ conversion is affine and exact in the input:
     y_stbd = ±y (plain numbers by ``transverse_positive``; "P"/"S" marks or ``tcg_side`` fix the side)
 
 Every non-identity conversion is recorded in words (:meth:`Frame.describe_x`) so that
-``deckload check`` can print it; :mod:`deckload.tables_out` inverts it to write the
+``deckload check`` can print it; :mod:`deckload.csv_command` inverts it to write the
 tables back as the booklet has them.
 """
 

@@ -155,7 +155,8 @@ def _summary(result: Result) -> Table:
         ("LCB / LCF from AP", f"{r.lcb_m:.3f} / {r.lcf_m:.3f} m"),
         ("TPC / MCTC", f"{r.tpc_t_cm:.2f} t/cm / {r.mctc_tm_cm:.2f} t·m/cm"),
         ("Max GZ", f"{r.max_gz_m:.3f} m at {r.max_gz_angle_deg:.1f}°"),
-        ("Vanishing angle", "beyond the curve" if r.vanishing_angle_deg is None else f"{r.vanishing_angle_deg:.1f}°"),
+        ("Vanishing angle", (f"beyond {r.gz_end_deg:g}°" + (" (the KN tables end there)" if r.gz_end_deg < 90 else ""))
+         if r.vanishing_angle_deg is None else f"{r.vanishing_angle_deg:.1f}°"),
         ("Downflooding θf", "not given" if r.downflooding_angle_deg is None else f"{r.downflooding_angle_deg:.1f}°"),
     ]
     for k, v in rows:

@@ -37,7 +37,7 @@ class Command:
 
 COMMANDS: tuple[Command, ...] = (
     Command("set_amount", "enter", "Set", "Type an amount for the line under the cursor: tank 55% / 12.5m3 / 10t / "
-            "1.2m (sounding); hold mass in t; a deck load or constant opens its form (mass, position).",
+            "1.2m (sounding), 0.85u (ullage); hold mass in t; a deck load or constant opens its form (mass, position).",
             display="⏎", title="Set amount"),
     Command("nudge(1)", "plus,equals_sign", "±1%", "Raise the tank under the cursor by 1 % of capacity "
             "(a hold or item by 1 t).", display="+ -", title="Raise 1 %"),

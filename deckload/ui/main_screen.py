@@ -159,8 +159,7 @@ class LoadingScreen(Screen[None]):
     def _edit_tank(self, tank_id: str) -> None:
         s = self.session
         tank, fill = s.vessel.tank(tank_id), s.condition.tank_fill(tank_id)
-        hint = (f"55% · 12.5m3 · 10t · 1.2m (sounding).  Capacity {tank.capacity_m3:.2f} m³, greatest sounding "
-                f"{entry.max_sounding_m(tank):.2f} m, density {entry.tank_density(tank, fill):.3f} t/m³")
+        hint = entry.amount_hint(tank, fill)
 
         def build(text: str) -> tuple[Condition, str]:
             return entry.tank_from_text(s.condition, tank, text), text.strip()
