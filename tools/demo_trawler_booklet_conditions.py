@@ -135,7 +135,8 @@ def equilibrium(hull, volume_m3: float, lcg: float, kg: float) -> tuple[float, f
     return draft(0.0), draft(MID_M), draft(LBP_M)
 
 
-def compute(name: str, cond_file: Path, profile: dict, g, hull, meshes: dict, tank_meshes: dict) -> dict:
+def weights(cond_file: Path, profile: dict, meshes: dict, tank_meshes: dict) -> tuple[float, float, float, float, float]:
+    """Δ (t), LCG from AP, KG, TCG (m) and the free-surface moment counted (t·m) of a loading."""
     cond = tomllib.loads(cond_file.read_text(encoding="utf-8"))
     ls = profile["lightship"]
     items = [(ls["mass_t"], ls["lcg_m"] + MID_M, ls["vcg_m"], side_value(ls.get("tcg_m", 0.0)))]
@@ -209,7 +210,13 @@ def compute(name: str, cond_file: Path, profile: dict, g, hull, meshes: dict, ta
         else:
             m = tank_meshes[tid]
             counted[tid] = pt["density_t_m3"] * fsi_at_volume(m, pct / 100.0 * m.volume)  # fixed level: actual
-    fsm = sum(counted.values())
+    return disp, lcg, kg, tcg, sum(counted.values())
+
+
+def compute(cond_file: Path, profile: dict, hull, meshes: dict, tank_meshes: dict) -> dict:
+    """The booklet's printed results for one loading (module docstring)."""
+    disp, lcg, kg, tcg, fsm = weights(cond_file, profile, meshes, tank_meshes)
+    dmin = float(profile["lightship"]["mass_t"])
     fsc = fsm / disp
     kg_f = kg + fsc
 
@@ -259,6 +266,18 @@ def compute(name: str, cond_file: Path, profile: dict, g, hull, meshes: dict, ta
     }
 
 
+def reference_meshes():
+    """The hull mesh and the meshes of the holds and tanks, from the geometry file's offsets."""
+    g = load_geometry(GEOMETRY)
+    hull = hull_mesh(g.hull)
+    return hull, {h.id: compartment_mesh(h.shape, hull) for h in g.holds}, {t.id: compartment_mesh(t.shape, hull) for t in g.tanks}
+
+
+def profile_head() -> dict:
+    """The profile as the booklet states it, without the booklet-condition block."""
+    return tomllib.loads(PROFILE.read_text(encoding="utf-8").split(BEGIN)[0])
+
+
 def toml_value(v) -> str:
     if isinstance(v, list):
         return "[" + ", ".join(toml_value(x) for x in v) + "]"
@@ -266,20 +285,17 @@ def toml_value(v) -> str:
 
 
 def main() -> int:
-    g = load_geometry(GEOMETRY)
     text = PROFILE.read_text(encoding="utf-8")
     head = text.split(BEGIN)[0].rstrip("\n") + "\n"
     profile = tomllib.loads(head)
-    hull = hull_mesh(g.hull)
-    tank_meshes = {t.id: compartment_mesh(t.shape, hull) for t in g.tanks}
-    meshes = {h.id: compartment_mesh(h.shape, hull) for h in g.holds}
+    hull, meshes, tank_meshes = reference_meshes()
     blocks = [BEGIN,
               "# The booklet's worked conditions and its printed results (invented booklet; method: the",
               "# docstring of tools/demo_trawler_booklet_conditions.py — trimesh on the hull offsets, not",
               "# deckload's tables).  Positions in deckload's conventions: x from the AP, moulded drafts.",
               ""]
     for name, page, fname in CONDITIONS:
-        res = compute(name, PROFILE.parent / fname, profile, g, hull, meshes, tank_meshes)
+        res = compute(PROFILE.parent / fname, profile, hull, meshes, tank_meshes)
         print(f"{name}: " + ", ".join(f"{k} {v}" for k, v in res.items()))
         blocks += ["[[booklet_condition]]", f'name = "{name}"', f'page = "{page}"', f'condition_file = "{fname}"', "",
                    "  [booklet_condition.expected]"]

@@ -1,0 +1,224 @@
+"""The second demo vessel, Demo Trawler (invented), entered the way a crew enters a vessel from
+her stability booklet: tables in CSV files, positions from midships, extreme drafts, KN only to
+60°, tanks read by ullage or from a raised sounding zero, one-value FSM tanks, a capacity-only
+tank, constants in the profile, and the booklet's own worked conditions.
+
+Her booklet was invented from ``vessel_profiles/demo_trawler.geometry.toml`` by
+``tools/demo_trawler_booklet.py``; the booklet's printed results of its worked conditions were
+computed by ``tools/demo_trawler_booklet_conditions.py`` with trimesh (a general-purpose mesh
+library) on the hull offsets — not from deckload's tables — so the acceptance test below is a
+comparison with an independent reference, within the MSC.1/Circ.1229 / IACS UR L5 tolerances
+(standards.md §5.3).
+"""
+
+from __future__ import annotations
+
+import importlib.util
+import json
+import shutil
+import tomllib
+from pathlib import Path
+
+import numpy as np
+import pytest
+
+from deckload import paths
+from deckload.cli import main
+from deckload.core.stability import evaluate
+from deckload.profiles import load_condition, load_profile
+
+ROOT = Path(__file__).resolve().parents[1]
+BROWSABLE = ROOT / "vessel_profiles"
+PACKAGED = ROOT / "deckload" / "data"
+CONDITIONS = ("departure", "grounds", "arrival")
+
+
+def _tool(name: str):
+    """A script of tools/ as a module (tools/ is not a package)."""
+    spec = importlib.util.spec_from_file_location(name, ROOT / "tools" / f"{name}.py")
+    mod = importlib.util.module_from_spec(spec)
+    spec.loader.exec_module(mod)
+    return mod
+
+
+def _files(folder: Path) -> dict[str, bytes]:
+    out = {p.name: p.read_bytes() for p in folder.glob("demo_trawler*.toml") if ".geometry." not in p.name}
+    out.update({str(p.relative_to(folder)): p.read_bytes() for p in (folder / "demo_trawler").rglob("*.csv")})
+    return out
+
+
+@pytest.fixture(scope="module")
+def trawler():
+    vessel = load_profile(paths.TRAWLER_PROFILE)
+    return vessel, {k: load_condition(p, vessel) for k, p in paths.TRAWLER_CONDITIONS.items()}
+
+
+def test_packaged_copies_equal_the_browsable_ones():
+    browsable, packaged = _files(BROWSABLE), _files(PACKAGED)
+    assert sorted(browsable) == sorted(packaged)
+    assert len([k for k in browsable if k.endswith(".csv")]) >= 10  # hydrostatics, KN, flooding, hold, 8 tanks
+    for name, data in browsable.items():
+        assert packaged[name] == data, name
+
+
+def test_pyproject_ships_the_csv_pages():
+    """The CSV pages live two folders down in deckload/data; package-data must reach them."""
+    import fnmatch
+
+    globs = tomllib.loads((ROOT / "pyproject.toml").read_text(encoding="utf-8"))["tool"]["setuptools"]["package-data"]["deckload"]
+    for p in (PACKAGED / "demo_trawler").rglob("*.csv"):
+        rel = str(p.relative_to(ROOT / "deckload"))
+        assert any(fnmatch.fnmatch(rel, g) and rel.count("/") == g.count("/") for g in globs), rel
+
+
+def test_the_profile_works_without_any_geometry_file(tmp_path):
+    """A crew has no hull model: the profile, its CSV pages and conditions alone are enough."""
+    for name in [f"demo_trawler.{c}.condition.toml" for c in CONDITIONS] + ["demo_trawler.toml"]:
+        shutil.copyfile(BROWSABLE / name, tmp_path / name)
+    shutil.copytree(BROWSABLE / "demo_trawler", tmp_path / "demo_trawler")
+    assert not list(tmp_path.rglob("*.geometry.toml"))
+    v = load_profile(tmp_path / "demo_trawler.toml")
+    r = evaluate(v, load_condition(tmp_path / "demo_trawler.arrival.condition.toml", v))
+    assert 200.0 < r.displacement_t < 260.0
+
+
+def test_the_profile_is_written_the_way_the_booklet_prints_it(trawler):
+    vessel, _ = trawler
+    raw = tomllib.loads(paths.TRAWLER_PROFILE.read_text(encoding="utf-8"))
+    assert raw["vessel"]["longitudinal_datum"] == "midships" and raw["lightship"]["lcg_m"] < 0  # aft of midships
+    assert raw["hydrostatics"]["draft_basis"] == "extreme" and raw["vessel"]["keel_thickness_m"] > 0
+    assert float(vessel.cross_curves.heel_deg[-1]) == 60.0  # KN printed only to 60°
+    tanks = {t["id"]: t for t in raw["tank"]}
+    assert any("ullage_reference_m" in t for t in tanks.values())
+    assert any(t.get("sounding_zero_m", 0) > 0 for t in tanks.values())
+    assert any("max_fsm_tm" in t for t in tanks.values())
+    assert [i for i, t in tanks.items() if "calibration" not in t] == ["HYD"]  # capacity and centre only
+    assert {c.name for c in vessel.constants} == {"Crew (6) and effects", "Provisions and stores"}
+    # the conversions land where the invented hull puts them (x from the AP)
+    assert vessel.lightship.lcg_m == pytest.approx(22.0 / 2 - 1.60)
+    fo1p = vessel.tank("FO1P")
+    assert float(np.mean(fo1p.calibration.tcg_m[1:])) < 0 < float(np.mean(vessel.tank("FO1S").calibration.tcg_m[1:]))
+    assert float(np.mean(vessel.tank("FO2P").calibration.tcg_m[1:])) < 0  # printed as distances, port side
+
+
+def test_booklet_pages_are_what_the_writer_makes_from_the_geometry(tmp_path):
+    """The committed CSV pages and profile are reproducible from the source geometry, byte for byte."""
+    booklet = _tool("demo_trawler_booklet")
+    text = booklet.booklet_text(tmp_path / "demo_trawler")
+    committed = paths.TRAWLER_PROFILE.read_text(encoding="utf-8")
+    assert committed.startswith(text)
+    ours = {str(p.relative_to(tmp_path)): p.read_bytes() for p in tmp_path.rglob("*.csv")}
+    theirs = {k: v for k, v in _files(BROWSABLE).items() if k.endswith(".csv")}
+    assert ours == theirs
+
+
+def test_the_three_conditions_meet_the_criteria_and_are_what_they_say(trawler):
+    vessel, conds = trawler
+    assert set(conds) == set(CONDITIONS)
+    results = {k: evaluate(vessel, c) for k, c in conds.items()}
+    for name, r in results.items():
+        assert [c.id for c in r.criteria if not c.passed] == [], name
+        assert not [w for w in r.warnings if w.severity == "danger"], name
+        summer = next(ll for ll in vessel.load_lines if ll.name == "summer")
+        assert r.draft_mean_m < summer.draft_m, name
+    fill = {k: {t.id: t.fill_pct for t in r.tanks} for k, r in results.items()}
+    assert all(fill["departure"][t] >= 95.0 for t in ("FO1P", "FO1S", "FO2P", "FO2S", "FWP", "FWS", "FW2"))
+    assert all(fill["arrival"][t] == pytest.approx(10.0) for t in ("FO1P", "FO1S", "FO2P", "FO2S", "FWP", "FWS", "FW2"))
+    hold = {k: next(h.mass_t for h in c.holds if h.hold_id == "FH") for k, c in conds.items()}
+    assert hold["departure"] < hold["grounds"] < hold["arrival"] == vessel.hold("FH").max_mass_t
+    # the arrival's provisions constant replaces the profile's one
+    prov = [i for i in results["arrival"].items if "Provisions" in i.name]
+    assert [round(i.mass_t, 2) for i in prov] == [0.15]
+
+
+def test_booklet_conditions_are_met_within_the_ur_l5_tolerances(trawler):
+    """The acceptance test a surveyor makes (standards.md §5.4): each booklet condition recomputed
+    by deckload from the booklet-style tables, against the booklet's results computed with trimesh
+    (independent reference), row by row within MSC.1/Circ.1229 / UR L5 (standards.md §5.3)."""
+    from deckload.booklet_conditions import load_booklet_conditions
+    from deckload.core.booklet import compare
+
+    vessel, _ = trawler
+    cases = load_booklet_conditions(paths.TRAWLER_PROFILE, vessel)
+    assert len(cases) >= 2
+    for case in cases:
+        rows = compare(evaluate(vessel, case.condition), case.expected, vessel.particulars.breadth_m)
+        assert len(rows) >= 20, case.name  # Δ, weights, GM, drafts, GZ at four angles, areas
+        bad = [(r.label, r.booklet, r.deckload, r.allowed) for r in rows if not r.passed]
+        assert bad == [], (case.name, bad)
+
+
+def test_check_passes_on_the_trawler_with_its_booklet_conditions(capsys):
+    assert main(["check", "trawler"]) == 0
+    out = capsys.readouterr().out
+    assert "booklet conditions: 3 of 3 within" in out
+    assert "plausibility audit: nothing suspicious found" in out
+    assert "converted: hydrostatics lcb_m, lcf_m: from midships" in out
+
+
+def test_booklet_weights_are_reproduced_by_the_trimesh_script():
+    """The printed booklet Δ, LCG, KG and FSM are what tools/demo_trawler_booklet_conditions.py makes
+    now from the condition files and the hull offsets (trimesh), to the booklet's printed decimals."""
+    pytest.importorskip("trimesh")
+    pytest.importorskip("scipy")
+    tool = _tool("demo_trawler_booklet_conditions")
+    hull, meshes, tank_meshes = tool.reference_meshes()
+    booklet = tomllib.loads(paths.TRAWLER_PROFILE.read_text(encoding="utf-8"))["booklet_condition"]
+    for case in booklet[:2]:
+        disp, lcg, kg, tcg, fsm = tool.weights(BROWSABLE / case["condition_file"], tool.profile_head(), meshes, tank_meshes)
+        e = case["expected"]
+        assert (disp, lcg, kg, fsm) == pytest.approx(  # half a unit of the last printed decimal
+            (e["displacement_t"], e["lcg_m"], e["kg_m"], e["fsm_tm"]), abs=0.0051)
+
+
+def test_calc_report_and_log_work_on_the_trawler_shorthand(tmp_path, capsys, trawler):
+    vessel, conds = trawler
+    assert main(["calc", "trawler", "grounds", "--json"]) == 0
+    out = json.loads(capsys.readouterr().out)
+    assert out["displacement_t"] == pytest.approx(evaluate(vessel, conds["grounds"]).displacement_t)
+    assert {t["id"] for t in out["tanks"]} >= {"FO1P", "HYD", "FW2"}
+    rep = tmp_path / "arrival.txt"
+    assert main(["report", "trawler", "arrival", "--txt", "-o", str(rep)]) == 0
+    text = rep.read_text(encoding="utf-8")
+    assert "Demo Trawler" in text and "never replaces" in text
+    logs = tmp_path / "logs"
+    assert main(["log", "--dir", str(logs), "record", "trawler", "departure", "--by", "JK",
+                 "--ship-offset", "+00:00"]) == 0
+    assert main(["log", "--dir", str(logs), "verify"]) == 0
+    capsys.readouterr()
+    assert main(["log", "--dir", str(logs), "show"]) == 0
+    assert "Departure for the fishing grounds" in capsys.readouterr().out
+
+
+def test_a_packaged_demo_vessel_opens_on_its_departure(tmp_path):
+    from deckload.ui.launch import load_inputs
+
+    _, cond, _ = load_inputs(paths.TRAWLER_PROFILE, None, tmp_path / "work")
+    assert cond.name == "Departure for the fishing grounds"
+    _, cond, _ = load_inputs(None, None, tmp_path / "work")
+    assert cond.name == load_condition(paths.DEMO_CONDITIONS["departure"], load_profile(paths.DEMO_PROFILE)).name
+    other = tmp_path / "copy.toml"  # any other profile starts from an empty condition
+    assert paths.demo_start_condition(other) is None
+
+
+async def test_the_screen_opens_on_the_trawler_and_takes_an_ullage(tmp_path, trawler):
+    """Pilot: the screen on the trawler; an ullage typed for FO1P gives the volume of the booklet's
+    ullage table (FO1P.csv row 'ullage 1.00 m'), read directly from the CSV page."""
+    import csv
+
+    from deckload.ui.launch import create_app, load_inputs
+    from deckload.ui.widgets import LoadBoard
+
+    vessel, condition, _ = load_inputs(paths.TRAWLER_PROFILE, None, tmp_path / "work")
+    app = create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs")
+    with open(BROWSABLE / "demo_trawler" / "tanks" / "FO1P.csv", encoding="utf-8") as f:
+        page = {float(r["ullage_m"]): float(r["volume_m3"]) for r in csv.DictReader(f)}
+    async with app.run_test(size=(120, 40)) as pilot:
+        assert app.session.result.displacement_t == pytest.approx(evaluate(vessel, condition).displacement_t)
+        assert app.screen.query_one(LoadBoard).select(("tank", "FO1P"))
+        await pilot.press("enter", *"1.00u", "enter")
+        await pilot.pause()
+        fill = next(t for t in app.session.condition.tanks if t.tank_id == "FO1P")
+        assert (fill.quantity, fill.value) == ("ullage_m", 1.0)
+        got = next(t for t in app.session.result.tanks if t.id == "FO1P")
+        assert got.volume_m3 == pytest.approx(page[1.0], abs=5e-4)  # the page prints 1 litre
