@@ -70,8 +70,9 @@ def load_booklet_conditions(profile_path: str | os.PathLike, vessel: m.Vessel) -
                   "give exactly one of condition_file (a condition file beside the profile) and an inline "
                   "loading ([booklet_condition.condition] …)" + (", not both" if file_given else ""))
             continue
-        if name is None or expected is None or page is None or (file_given and cfile is None):
+        if file_given and cfile is None:
             continue
+        # the loading is validated even when the entry has other problems: every problem at once
         if file_given:
             cpath = path.parent / cfile
             try:
@@ -84,10 +85,12 @@ def load_booklet_conditions(profile_path: str | os.PathLike, vessel: m.Vessel) -
                 continue
             source = str(cpath)
         else:
-            condition = _inline_condition(ctx, t, idx, name, vessel)
+            condition = _inline_condition(ctx, t, idx, name or "Booklet condition", vessel)
             if condition is None:
                 continue
             source = "inline"
+        if name is None or expected is None or page is None:
+            continue
         cases.append(BookletCase(name, page or "", condition, expected, source))
     ctx.fail_if_any()
     return cases
@@ -151,7 +154,17 @@ def _inline_condition(ctx: FileCheck, t: Table, idx: int, name: str, vessel: m.V
         return parse_condition(text, ctx.file, vessel)
     except ProfileError as e:
         for p in e.problems:
-            first = p.key.split(".", 1)[0].split("[", 1)[0] if p.key else "condition"
-            line = ctx.line_of(("booklet_condition", idx, first))
+            line = ctx.line_of(("booklet_condition", idx) + _key_path(p.key or "condition"))
             ctx.problems.append(Problem(ctx.file, line, f"{t.name}.{p.key}" if p.key else t.name, p.value, p.rule))
         return None
+
+
+def _key_path(key: str) -> tuple:
+    """'deck_item[#2].mass_t' → ('deck_item', 1, 'mass_t'): a condition problem's key as a document path."""
+    out: list = []
+    for part in key.split("."):
+        name, _, rest = part.partition("[#")
+        out.append(name.strip('"'))
+        if rest.endswith("]") and rest[:-1].isdigit():
+            out.append(int(rest[:-1]) - 1)
+    return tuple(out)

@@ -144,13 +144,15 @@ def _booklet(path: Path, vessel: m.Vessel) -> int:
             print(f"    FAIL: cannot be computed: {e}")
             continue
         rows = compare(result, case.expected, vessel.particulars.breadth_m)
-        print(f"    {'quantity':<24} {'booklet':>10} {'deckload':>10} {'difference':>11}  {'tolerance':<58} result")
+        print(f"    {'quantity':<27} {'booklet':>9} {'deckload':>9} {'difference':>10} {'tolerance':>13}  "
+              f"{'rule (standards.md §5.3)':<38} result")
         for r in rows:
-            got = "—" if r.deckload is None else f"{r.deckload:10.4f}"
-            diff = "—" if r.difference is None else f"{r.difference:+11.4f}"
+            got = "—" if r.deckload is None else f"{r.deckload:.4f}"
+            diff = "—" if r.difference is None else f"{r.difference:+.4f}"
             label = f"{r.label} ({r.unit})"
+            allowed = f"±{r.allowed:.3g} {r.unit}"
             verdict = "pass" if r.passed else "FAIL" + (f": {r.note}" if r.note else "")
-            print(f"    {label:<24} {r.booklet:>10.4f} {got:>10} {diff:>11}  {r.tolerance:<58} {verdict}")
+            print(f"    {label:<27} {r.booklet:>9.4f} {got:>9} {diff:>10} {allowed:>13}  {r.tolerance:<38} {verdict}")
         failed = [r for r in rows if not r.passed]
         if failed:
             print(f"    FAIL: {_plural(len(failed), 'row')} outside tolerance: " + ", ".join(r.label for r in failed))

@@ -1,0 +1,477 @@
+"""A vessel entered from her stability booklet: conventions as the booklet writes them, and CSV tables.
+
+Every case is booklet reality that deckload used to refuse (issue 8, "Why"): KN that stop at
+60°, ullage tables, a sounding zero above the tank bottom, centres from midships, one FSM value
+per tank, FSM in t·m, a capacity-only small tank, a single downflooding angle, constants in the
+profile — each with the input that triggered it.  The base is the analytic box barge of
+``tests/broken_profiles/box_barge.toml`` (checks.md §1: L = 40, B = 10, D = 4 m, LBP/2 = 20 m;
+two 10 × 5 × 1 m double-bottom tanks, V = 50·level, i = l·b³/12 = 104.1667 m⁴), re-written in
+booklet conventions; the expected numbers are derived in each test's docstring.
+"""
+
+from __future__ import annotations
+
+import csv
+import math
+from pathlib import Path
+
+import numpy as np
+import pytest
+
+from deckload.check_command import run_check
+from deckload.cli import main
+from deckload.core import model as m
+from deckload.core.stability import evaluate
+from deckload.profiles import ProfileError, load_profile, parse_condition, parse_profile
+from deckload.ui.entry import EntryError, parse_amount, tank_from_text
+
+HERE = Path(__file__).parent
+BASE = (HERE / "broken_profiles" / "box_barge.toml").read_text(encoding="utf-8")
+AP_VESSEL = parse_profile(BASE, "base.toml")
+LBP = 40.0
+
+
+def edit(text: str, old: str, new: str, nth: int = 1) -> str:
+    at = -1
+    for _ in range(nth):
+        at = text.index(old, at + 1)
+    return text[:at] + new + text[at + len(old):]
+
+
+def problems(text: str, name: str = "booklet.toml") -> list:
+    with pytest.raises(ProfileError) as ei:
+        parse_profile(text, name)
+    return ei.value.problems
+
+
+HOLD_420 = "[holds.H1]\nmass_t = 420.0\nlcg_m = 20.0\nvcg_m = 2.5\n"
+"""420 t of cargo at (20, 0, 2.5): with the 400 t lightship, Δ = 820 t (T = 2 m, a tabulated row)."""
+
+
+def cond(vessel: m.Vessel, body: str) -> m.Condition:
+    text = 'format = "deckload-condition-1"\n[condition]\nname = "c"\nwater_density_t_m3 = 1.025\n' + body
+    return parse_condition(text, "c.condition.toml", vessel)
+
+
+# =========================================================================== longitudinal datum
+
+
+MIDSHIPS = edit(edit(edit(edit(BASE,
+    'longitudinal_datum = "AP"', 'longitudinal_datum = "midships"\nlongitudinal_positive = "forward"'),
+    "lcg_m = 20.0\nvcg_m = 2.5", "lcg_m = 0.0\nvcg_m = 2.5"),                         # lightship at midships
+    "lcb_m = [20.0, 20.0, 20.0, 20.0, 20.0, 20.0, 20.0]", "lcb_m = [0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0]"),
+    "lcf_m = [20.0, 20.0, 20.0, 20.0, 20.0, 20.0, 20.0]", "lcf_m = [0.1, 0.1, 0.1, 0.1, 0.1, 0.1, 0.1]")
+MIDSHIPS = edit(MIDSHIPS, "lcg_m = [10.0, 10.0, 10.0]", "lcg_m = [-10.0, -10.0, -10.0]")
+MIDSHIPS = edit(MIDSHIPS, "lcg_m = [10.0, 10.0, 10.0]", "lcg_m = [-10.0, -10.0, -10.0]")
+MIDSHIPS = edit(MIDSHIPS, "lcg_m = 27.5", "lcg_m = 7.5")   # hold
+MIDSHIPS = edit(MIDSHIPS, "lcg_m = 20.0\ndeck_height_m", "lcg_m = 0.0\ndeck_height_m")
+
+
+def test_midships_centres_are_converted_to_the_aft_perpendicular():
+    """Booklet with centres from midships, + forward (the 'LCG −2.10' kind of entry).
+
+    Derived: x_AP = LBP/2 + x_mid = 20 + x_mid exactly: lightship 0 → 20, LCB 0 → 20, LCF 0.1 → 20.1,
+    tank −10 → 10, hold 7.5 → 27.5, deck area 0 → 20 — the AP-datum profile's own numbers.
+    """
+    v = parse_profile(MIDSHIPS, "mid.toml")
+    assert v.lightship.lcg_m == 20.0
+    assert np.array_equal(v.hydrostatics.lcb_m, AP_VESSEL.hydrostatics.lcb_m)
+    assert np.allclose(v.hydrostatics.lcf_m, 20.1, rtol=0, atol=1e-12)  # 20 + 0.1 in binary: round-off only
+    assert np.array_equal(v.tank("DB1P").calibration.lcg_m, AP_VESSEL.tank("DB1P").calibration.lcg_m)
+    assert v.hold("H1").lcg_m == 27.5 and v.deck_area("DECK").lcg_m == 20.0
+    assert any("from midships, + forward → from the AP, + forward (x_AP = 20 + x m)" in c and c.startswith("hydrostatics")
+               for c in v.conversions)
+
+
+def test_forward_perpendicular_positive_aft_and_per_table_override():
+    """A table may state its own datum: lightship LCG 20 m from the FP, + aft → x_AP = LBP − 20 = 20 (derived)."""
+    text = edit(BASE, "mass_t = 400.0\nlcg_m = 20.0",
+                'mass_t = 400.0\nlongitudinal_datum = "FP"\nlongitudinal_positive = "aft"\nlcg_m = 15.0')
+    v = parse_profile(text, "fp.toml")
+    assert v.lightship.lcg_m == LBP - 15.0
+    assert v.hydrostatics.lcb_m[0] == 20.0  # the vessel's AP datum still applies elsewhere
+    assert v.conversions == ("lightship lcg_m: from the forward perpendicular, + aft → from the AP, + forward "
+                             "(x_AP = 40 − x m)",)
+
+
+def test_check_prints_each_conversion(capsys, tmp_path):
+    f = tmp_path / "mid.toml"
+    f.write_text(MIDSHIPS, encoding="utf-8")
+    assert run_check(f) == 0
+    out = capsys.readouterr().out
+    assert "    converted: hydrostatics lcb_m, lcf_m: from midships, + forward" in out
+    assert "    converted: tank[DB1P].calibration lcg_m: from midships" in out
+
+
+# =========================================================================== transverse
+
+
+def test_port_and_starboard_marks_as_the_booklet_prints_them():
+    """"2.50 P" is 2.5 m to port (y = −2.5), "2.50 S" to starboard; a side key makes plain distances one side."""
+    text = edit(BASE, "tcg_m = [-2.5, -2.5, -2.5]", 'tcg_m = ["2.50 P", "2.50P", "2.5 p"]')
+    text = edit(text, "tcg_m = [2.5, 2.5, 2.5]", 'tcg_side = "starboard"\n  tcg_m = [2.5, 2.5, 2.5]')
+    v = parse_profile(text, "sides.toml")
+    assert list(v.tank("DB1P").calibration.tcg_m) == [-2.5, -2.5, -2.5]
+    assert list(v.tank("DB1S").calibration.tcg_m) == [2.5, 2.5, 2.5]
+
+
+def test_port_positive_reverses_plain_numbers_and_a_bad_mark_is_refused():
+    text = edit(BASE, 'longitudinal_datum = "AP"', 'longitudinal_datum = "AP"\ntransverse_positive = "port"')
+    text = edit(text, "tcg_m = [-2.5, -2.5, -2.5]", "tcg_m = [2.5, 2.5, 2.5]")
+    text = edit(text, "tcg_m = [2.5, 2.5, 2.5]", "tcg_m = [-2.5, -2.5, -2.5]", nth=2)
+    v = parse_profile(text, "port.toml")
+    assert v.tank("DB1P").calibration.tcg_m[0] == -2.5 and v.tank("DB1S").calibration.tcg_m[0] == 2.5
+    bad = edit(BASE, "tcg_m = [-2.5, -2.5, -2.5]", 'tcg_m = ["2.5 P", "2.5 X", "2.5 P"]')
+    (p,) = problems(bad)
+    assert p.key == "tank[DB1P].calibration.tcg_m" and p.rule.startswith('row 2: "2.5 X" is not a TCG')
+    bad = edit(BASE, "tcg_m = [-2.5, -2.5, -2.5]", 'tcg_side = "port"\n  tcg_m = [-2.5, -2.5, -2.5]')
+    (p,) = problems(bad)
+    assert "tcg_side = 'port'" in p.rule
+
+
+# =========================================================================== free surface
+
+
+def test_fsm_in_tonne_metres_at_a_stated_density():
+    """Booklet FSM 106.770833 t·m at 1.025 t/m³ → i = FSM/ρ = 104.166667 m⁴ (derived: FSM = ρ·i)."""
+    text = edit(BASE, "fsi_m4 = [104.166667, 104.166667, 104.166667]",
+                "fsm_tm = [106.770833, 106.770833, 106.770833]\n  fsm_density_t_m3 = 1.025")
+    v = parse_profile(text, "fsm.toml")
+    assert np.array_equal(v.tank("DB1P").calibration.fsi_m4, np.full(3, 106.770833) / 1.025)
+    assert any("t·m at 1.025 t/m³ → fsi_m4 (÷ 1.025)" in c for c in v.conversions)
+    (p,) = problems(edit(BASE, "fsi_m4 = [104.166667, 104.166667, 104.166667]", "fsm_tm = [1.0, 1.0, 1.0]"))
+    assert p.key == "tank[DB1P].calibration.fsm_density_t_m3"
+
+
+def test_one_maximum_fsm_per_tank():
+    """One value per tank, 90 t·m at 0.9 t/m³ → i = 100 m⁴ at every level; slack ballast in the tank
+    at 50 % then counts ρ_content·i = 1.025 × 100 = 102.5 t·m (IS 2008 B 3.1.3, actual level of a
+    fixed-level tank, here taken at the given maximum: conservative)."""
+    text = edit(BASE, 'pair = "DB1S"\n', 'pair = "DB1S"\nmax_fsm_tm = 90.0\nfsm_density_t_m3 = 0.9\n')
+    text = edit(text, "  fsi_m4 = [104.166667, 104.166667, 104.166667]\n", "")
+    v = parse_profile(text, "max.toml")
+    t = v.tank("DB1P")
+    assert t.fsi_given == "max" and np.array_equal(t.calibration.fsi_m4, np.full(3, 100.0))
+    assert any("one free-surface value for the tank, 100 m⁴" in a for a in v.assumptions)
+    r = evaluate(v, cond(v, "[tanks.DB1P]\npercent = 50.0\n"))
+    assert next(x for x in r.tanks if x.id == "DB1P").fsm_tm == pytest.approx(102.5, rel=1e-12)
+
+
+# =========================================================================== levels
+
+
+ULLAGE = edit(BASE, 'pair = "DB1S"\n', 'pair = "DB1S"\nullage_reference_m = 1.2\n')
+ULLAGE = edit(ULLAGE, "sounding_m = [0.0, 0.5, 1.0]\n  volume_m3 = [0.0, 25.0, 50.0]\n  lcg_m = [10.0, 10.0, 10.0]\n"
+              "  vcg_m = [0.0, 0.25, 0.5]",
+              "ullage_m = [0.2, 0.7, 1.2]\n  volume_m3 = [50.0, 25.0, 0.0]\n  lcg_m = [10.0, 10.0, 10.0]\n"
+              "  vcg_m = [0.5, 0.25, 0.0]")
+
+
+def test_ullage_table_written_with_ullage_rising():
+    """Ullage table from a reference 1.2 m above the tank bottom, rows as printed (ullage rising,
+    volume falling).  level = 1.2 − ullage: ullages 1.2/0.7/0.2 are levels 0/0.5/1.0 — the sounding
+    table of the base profile (derived)."""
+    v = parse_profile(ULLAGE, "ullage.toml")
+    t, base = v.tank("DB1P"), AP_VESSEL.tank("DB1P")
+    assert np.allclose(t.calibration.sounding_m, base.calibration.sounding_m, rtol=0, atol=1e-15)
+    assert np.array_equal(t.calibration.volume_m3, base.calibration.volume_m3)
+    assert np.array_equal(t.calibration.vcg_m, base.calibration.vcg_m)
+
+
+def test_ullage_reading_in_a_condition_and_on_the_screen():
+    """Ullage 0.7 m read from the reference 1.2 m up → level 0.5 m → V = 50 × 0.5 = 25 m³ (box tank, derived)."""
+    v = parse_profile(ULLAGE, "ullage.toml")
+    r = evaluate(v, cond(v, "[tanks.DB1P]\nullage_m = 0.7\n"))
+    assert next(x for x in r.tanks if x.id == "DB1P").volume_m3 == pytest.approx(25.0, rel=1e-12)
+    assert parse_amount("0.7u") == ("ullage_m", 0.7)
+    c = tank_from_text(m.Condition(), v.tank("DB1P"), "0.7u")
+    assert c.tank_fill("DB1P") == m.TankFill("DB1P", "ullage_m", 0.7)
+    with pytest.raises(EntryError, match="no ullage_reference_m"):
+        tank_from_text(m.Condition(), v.tank("DB1S"), "0.7u")
+    with pytest.raises(ProfileError) as ei:
+        cond(v, "[tanks.DB1S]\nullage_m = 0.7\n")
+    assert "has no ullage_reference_m" in ei.value.problems[0].rule
+    with pytest.raises(ProfileError) as ei:
+        cond(v, "[tanks.DB1P]\nullage_m = 1.3\n")
+    assert ei.value.problems[0].rule.startswith("above 1.2 m: must be between 0.2 and 1.2 m")
+
+
+def test_ullage_table_needs_its_reference():
+    (p,) = problems(edit(ULLAGE, "ullage_reference_m = 1.2\n", ""))
+    assert p.key == "tank[DB1P].ullage_reference_m" and p.value is None
+
+
+def test_sounding_zero_above_the_tank_bottom():
+    """Striker plate 0.1 m above the bottom: the booklet's table starts at sounding 0.00 with
+    V = 50 × 0.1 = 5 m³.  A sounding of 0.4 m is level 0.5 → 25 m³ (derived, box tank).  Below the
+    first row a row 'level 0, volume 0' is added with the first row's centres, and said."""
+    text = edit(BASE, 'pair = "DB1S"\n', 'pair = "DB1S"\nsounding_zero_m = 0.1\n')
+    text = edit(text, "sounding_m = [0.0, 0.5, 1.0]\n  volume_m3 = [0.0, 25.0, 50.0]\n  lcg_m = [10.0, 10.0, 10.0]\n"
+                "  vcg_m = [0.0, 0.25, 0.5]\n  tcg_m = [-2.5, -2.5, -2.5]\n  fsi_m4 = [104.166667, 104.166667, 104.166667]",
+                "sounding_m = [0.0, 0.4, 0.9]\n  volume_m3 = [5.0, 25.0, 50.0]\n  lcg_m = [10.0, 10.0, 10.0]\n"
+                "  vcg_m = [0.05, 0.25, 0.5]\n  tcg_m = [-2.5, -2.5, -2.5]\n  fsi_m4 = [104.166667, 104.166667, 104.166667]")
+    v = parse_profile(text, "zero.toml")
+    cal = v.tank("DB1P").calibration
+    assert np.allclose(cal.sounding_m, [0.0, 0.1, 0.5, 1.0], rtol=0, atol=1e-15)
+    assert list(cal.volume_m3) == [0.0, 5.0, 25.0, 50.0]
+    assert cal.vcg_m[0] == 0.05  # centre taken no lower than the first row's: conservative for KG
+    assert any("tank[DB1P].calibration: the table starts at 5 m³" in a for a in v.assumptions)
+    r = evaluate(v, cond(v, "[tanks.DB1P]\nsounding_m = 0.4\n"))
+    assert next(x for x in r.tanks if x.id == "DB1P").volume_m3 == pytest.approx(25.0, rel=1e-12)
+
+
+# =========================================================================== capacity-only tank
+
+
+SMALL = BASE + '''
+[[tank]]
+id = "LO1"
+name = "Lube oil tank"
+kind = "lube_oil"
+density_t_m3 = 0.9
+capacity_m3 = 2.0
+lcg_m = 5.0
+vcg_m = 3.0
+tcg_m = "1.00 P"
+'''
+
+
+def test_capacity_only_small_tank():
+    """Known by capacity and centre: 50 % = 1 m³ × 0.9 = 0.9 t at (5, −1, 3) whatever the fill; no FSM
+    given → nil; a sounding is refused (no level table).  With 420 t of cargo at KG 2.5 m (to stay within
+    the KN tables' 410–1230 t): Δ = 820.9 t; KG = (820·2.5 + 0.9·3)/820.9."""
+    v = parse_profile(SMALL, "small.toml")
+    t = v.tank("LO1")
+    assert not t.level_known and t.fsi_given == "none"
+    assert any("tank[LO1]: capacity and centre only: centre fixed at every fill; no free surface given" in a
+               for a in v.assumptions)
+    r = evaluate(v, cond(v, "[tanks.LO1]\npercent = 50.0\n" + HOLD_420))
+    lo = next(x for x in r.tanks if x.id == "LO1")
+    assert (lo.mass_t, lo.lcg_m, lo.vcg_m, lo.tcg_m, lo.fsm_tm, lo.sounding_m) == (0.9, 5.0, 3.0, -1.0, 0.0, None)
+    assert r.kg_m == pytest.approx((400 * 2.5 + 420 * 2.5 + 0.9 * 3.0) / 820.9, rel=1e-12)
+    with pytest.raises(ProfileError) as ei:
+        cond(v, "[tanks.LO1]\nsounding_m = 0.1\n")
+    assert "known only by capacity and centre" in ei.value.problems[0].rule
+    with pytest.raises(EntryError, match="capacity and centre"):
+        tank_from_text(m.Condition(), t, "0.1m")
+
+
+# =========================================================================== short cross curves
+
+
+KN60 = edit(edit(edit(edit(BASE,
+    "heel_deg = [0, 10, 20, 30, 40, 50, 60, 70, 80, 90]", "heel_deg = [0, 10, 20, 30, 40, 50, 60]"),
+    ", 2.96747, 2.52674, 2.00000]", "]"), ", 2.63719, 2.35671, 2.00000]", "]"), ", 2.24208, 2.15533, 2.00000]", "]")
+
+
+def test_kn_to_60_degrees_is_accepted_and_the_curve_stops_there(tmp_path, capsys):
+    """KN to 60° only.  At Δ = 820 t (a tabulated row, T = 2 m) with KG 2.5 m, GM > 0:
+    GZ(φ) = KN(φ) − KG·sinφ exactly at the tabulated angles (the spline passes through its knots):
+    GZ(40°) = 2.85134 − 2.5·sin40° (derived, checks.md §1.4 KN)."""
+    v = parse_profile(KN60, "kn60.toml")
+    r = evaluate(v, cond(v, "[holds.H1]\nmass_t = 420.0\nlcg_m = 20.0\nvcg_m = 2.5\n"))
+    assert r.displacement_t == 820.0
+    assert r.gz_end_deg == 60.0 and r.gz_heel_deg[-1] == 60.0 and len(r.gz_m) == 61
+    assert r.gz_m[40] == pytest.approx(2.85134 - 2.5 * math.sin(math.radians(40)), abs=1e-9)
+    assert r.vanishing_angle_deg is None
+    f = tmp_path / "kn60.toml"
+    f.write_text(KN60, encoding="utf-8")
+    run_check(f)
+    assert "note: the KN tables end at 60°: the GZ curve, its areas and plots stop there" in capsys.readouterr().out
+
+
+def test_a_criterion_needing_angles_beyond_the_table_is_not_assessable():
+    """KG 4.9 m at Δ 820 t (GM = 5.1667 − 4.9 > 0): GZ = KN − 4.9·sinφ stays below 0.20 m from 30° to
+    60° (GZ(30°) = 2.58771 − 2.45 = 0.138 m; GZ(60°) = 2.8265 − 4.2435 < 0), and with no θf the
+    criterion looks to 90°, beyond the table: not assessable, never 'met' (and never failed on data
+    not there).  Deck item: (4.9·820 − 400·2.5 − 420·2.5)/0 … put all 420 t at z = (4.9·820 − 1000)/420."""
+    v = parse_profile(KN60, "kn60.toml")
+    z = (4.9 * 820 - 400 * 2.5) / 420
+    r = evaluate(v, cond(v, f"[holds.H1]\nmass_t = 420.0\nlcg_m = 20.0\nvcg_m = {z!r}\n"))
+    assert r.kg_m == pytest.approx(4.9, abs=1e-12)
+    c = next(c for c in r.criteria if c.id == "IS2008-A2.2.2-gz-30")
+    assert (c.assessed, c.passed) == (False, False)
+    assert "up to 60°, where the KN tables end" in c.note
+    assert any(w.code == "criterion-not-assessed" for w in r.warnings)
+    assert not r.all_criteria_pass
+
+
+def test_kn_ending_before_40_or_before_the_downflooding_angle_is_refused():
+    (p,) = problems(edit(KN60, "[free_surface]", "[downflooding]\nangle_deg = 65.0\n\n[free_surface]"))
+    assert p.key == "cross_curves.heel_deg"
+    assert p.rule.startswith("ends at 60°, before the downflooding angle 65°")
+
+
+# =========================================================================== downflooding, limit curve, keel
+
+
+def test_single_downflooding_angle():
+    """One angle, 35°, at every displacement: the areas stop at θf = 35° (IS 2008 A 2.2.1)."""
+    v = parse_profile(edit(BASE, "[free_surface]", "[downflooding]\nangle_deg = 35.0\n\n[free_surface]"), "df.toml")
+    r = evaluate(v, cond(v, "[holds.H1]\nmass_t = 420.0\nlcg_m = 20.0\nvcg_m = 2.5\n"))
+    assert r.downflooding_angle_deg == 35.0
+    assert r.area_0_40_mrad == pytest.approx(r.area_0_30_mrad + r.area_30_40_mrad, abs=1e-12)
+    assert any("downflooding: one angle 35° taken at every displacement" in a for a in v.assumptions)
+
+
+def test_downflooding_and_limiting_kg_against_draft_with_extreme_drafts():
+    """Curves against extreme draft, keel 0.02 m: extreme 2.02 m = moulded 2.00 m = 820 t on the
+    box barge (Δ = 410·T, derived), so θf = 35° and max KG = 3.0 m exactly there."""
+    text = edit(BASE, 'longitudinal_datum = "AP"', 'longitudinal_datum = "AP"\nkeel_thickness_m = 0.02')
+    text = edit(text, "[free_surface]",
+                '[downflooding]\ndraft_basis = "extreme"\ndraft_m = [1.02, 2.02, 3.02]\nangle_deg = [40.0, 35.0, 30.0]\n\n'
+                '[limit_curve]\ndraft_basis = "extreme"\ndraft_m = [1.02, 2.02, 3.02]\nmax_kg_m = [3.5, 3.0, 2.8]\n\n'
+                "[free_surface]")
+    v = parse_profile(text, "draft.toml")
+    r = evaluate(v, cond(v, "[holds.H1]\nmass_t = 420.0\nlcg_m = 20.0\nvcg_m = 2.5\n"))
+    assert r.downflooding_angle_deg == pytest.approx(35.0, abs=1e-9)
+    lim = next(c for c in r.criteria if c.id == "limit-curve-max-kg")
+    assert lim.limit == pytest.approx(3.0, abs=1e-9)
+    ps = problems(edit(text, "keel_thickness_m = 0.02", "keel_thickness_m = 0.0"))
+    assert [p.key for p in ps] == ["downflooding.draft_basis", "limit_curve.draft_basis"]
+    assert all(p.rule.startswith("extreme drafts need [vessel] keel_thickness_m") for p in ps)
+
+
+# =========================================================================== constants
+
+
+def test_constants_in_the_profile_and_their_override():
+    """Crew 2 t at (20, 0, 5) in the profile: every condition carries it, Δ = 820 + 2 t; a condition's
+    constant of the same name replaces it (0 t: left out); another name is added."""
+    text = BASE + '\n[[constant]]\nname = "Crew and effects"\nmass_t = 2.0\nlcg_m = 20.0\nvcg_m = 5.0\n'
+    v = parse_profile(text, "const.toml")
+    assert evaluate(v, cond(v, HOLD_420)).displacement_t == 822.0
+    over = '[[constant]]\nname = "Crew and effects"\nmass_t = 0.0\nlcg_m = 20.0\nvcg_m = 5.0\n'
+    assert evaluate(v, cond(v, HOLD_420 + over)).displacement_t == 820.0
+    extra = '[[constant]]\nname = "Stores"\nmass_t = 1.0\nlcg_m = 20.0\nvcg_m = 5.0\n'
+    assert evaluate(v, cond(v, HOLD_420 + extra)).displacement_t == 823.0
+
+
+# =========================================================================== CSV tables
+
+
+def _write(path: Path, text: str) -> Path:
+    path.parent.mkdir(parents=True, exist_ok=True)
+    path.write_text(text, encoding="utf-8")
+    return path
+
+
+HYDRO_CSV = """draft_m,displacement_t,lcb_m,lcf_m,kmt_m,tpc_t_cm,mctc_tm_cm
+0.5,205.0,0,0,16.916667,4.1,13.666667
+1.0,410.0,0,0,8.833333,4.1,13.666667
+1.5,615.0,0,0,6.305556,4.1,13.666667
+2.0,820.0,0,0,5.166667,4.1,13.666667
+2.5,1025.0,0,0,4.583333,4.1,13.666667
+3.0,1230.0,0,0,4.277778,4.1,13.666667
+3.5,1435.0,0,0,4.130952,4.1,13.666667
+"""
+
+KN_CSV = """displacement_t,kn_0,kn_10,kn_20,kn_30,kn_40,kn_50,kn_60
+410.0,0.0,1.55639,2.68414,3.19743,3.45955,3.47903,3.29594
+820.0,0.0,0.90843,1.86150,2.58771,2.85134,2.90730,2.82650
+1230.0,0.0,0.75033,1.35074,1.73248,2.01023,2.18107,2.25335
+"""
+
+TANK_CSV = """ullage_m,volume_m3,lcg_m,vcg_m,tcg_m,fsm_tm
+0.2,50,-10,0.5,2.5 P,106.770833
+0.7,25,-10,0.25,2.5 P,106.770833
+1.2,0,-10,0,2.5 P,106.770833
+"""
+
+
+def booklet_profile(tmp_path: Path) -> Path:
+    """The barge as typed from a booklet into spreadsheets: midships datum, KN to 60°, an ullage
+    table with P-marked TCGs and FSM in t·m — every table in CSV."""
+    text = edit(MIDSHIPS, "lcf_m = [0.1, 0.1, 0.1, 0.1, 0.1, 0.1, 0.1]", "lcf_m = [0.0, 0.0, 0.0, 0.0, 0.0, 0.0, 0.0]")
+    start = text.index("draft_m = [0.5")
+    end = text.index("[cross_curves]")
+    text = text[:start] + 'csv = "tables/hydrostatics.csv"\n\n' + text[end:]
+    start = text.index("heel_deg = [0, 10")
+    end = text.index("[free_surface]")
+    text = text[:start] + 'csv = "tables/kn.csv"\n\n' + text[end:]
+    text = edit(text, 'pair = "DB1S"\n', 'pair = "DB1S"\nullage_reference_m = 1.2\n')
+    start = text.index("sounding_m = [0.0, 0.5, 1.0]")
+    end = text.index("[[tank]]", start)
+    text = text[:start] + 'csv = "tables/DB1P.csv"\n  fsm_density_t_m3 = 1.025\n\n' + text[end:]
+    _write(tmp_path / "tables" / "hydrostatics.csv", HYDRO_CSV)
+    _write(tmp_path / "tables" / "kn.csv", KN_CSV)
+    _write(tmp_path / "tables" / "DB1P.csv", TANK_CSV)
+    return _write(tmp_path / "booklet.toml", text)
+
+
+def test_tables_from_csv_files_give_the_same_vessel(tmp_path):
+    v = load_profile(booklet_profile(tmp_path))
+    assert np.array_equal(v.hydrostatics.displacement_t, AP_VESSEL.hydrostatics.displacement_t)
+    assert np.array_equal(v.hydrostatics.lcb_m, AP_VESSEL.hydrostatics.lcb_m)
+    assert np.array_equal(v.cross_curves.kn_m, AP_VESSEL.cross_curves.kn_m[:, :7])
+    t, base = v.tank("DB1P"), AP_VESSEL.tank("DB1P")
+    assert np.array_equal(t.calibration.volume_m3, base.calibration.volume_m3)
+    assert np.array_equal(t.calibration.lcg_m, base.calibration.lcg_m)
+    assert np.array_equal(t.calibration.tcg_m, base.calibration.tcg_m)
+    # FSM 106.770833 t·m is rounded to 6 decimals (±5e-7 of 106.8, i.e. 5e-9 relative): hence rtol 1e-8
+    assert np.allclose(t.calibration.fsi_m4, base.calibration.fsi_m4, rtol=1e-8, atol=0)
+
+
+def test_a_bad_cell_names_the_csv_file_line_column_value_and_rule(tmp_path):
+    path = booklet_profile(tmp_path)
+    _write(tmp_path / "tables" / "DB1P.csv", TANK_CSV.replace("0.7,25,-10,0.25", "0.7,25,-10,0.2S"))
+    with pytest.raises(ProfileError) as ei:
+        load_profile(path)
+    (p,) = ei.value.problems
+    assert (p.file, p.line, p.column) == (str(tmp_path / "tables" / "DB1P.csv"), 3, "column 4 'vcg_m'")
+    assert p.key == "tank[DB1P].calibration.vcg_m" and p.value == '"0.2S"'
+    assert p.rule == 'row 2: "0.2S" is a string, not a number'
+
+
+def test_csv_shape_problems(tmp_path):
+    path = booklet_profile(tmp_path)
+    _write(tmp_path / "tables" / "kn.csv", KN_CSV.replace("kn_60", "kn_sixty"))
+    _write(tmp_path / "tables" / "hydrostatics.csv", HYDRO_CSV.replace("2.0,820.0,0,0,", "2.0,820.0,0,"))
+    with pytest.raises(ProfileError) as ei:
+        load_profile(path)
+    msgs = [str(p) for p in ei.value.problems]
+    assert any(s.startswith(f"{tmp_path / 'tables' / 'hydrostatics.csv'}:5: ") and "row has 6 cells but the header has 7" in s
+               for s in msgs), msgs
+    assert any("'kn_sixty'" in s and "unknown column (column 8)" in s for s in msgs), msgs
+    (tmp_path / "tables" / "DB1P.csv").unlink()
+    with pytest.raises(ProfileError) as ei:
+        load_profile(path)
+    assert any("cannot read the CSV file" in p.rule for p in ei.value.problems)
+
+
+def _cells(path: Path) -> list[list[str]]:
+    with open(path, newline="", encoding="utf-8") as fh:
+        return [row for row in csv.reader(fh) if row]
+
+
+def _same(a: str, b: str) -> bool:
+    try:
+        return float(a) == float(b)
+    except ValueError:  # "2.5 P": the mark, the same distance
+        return a.split()[-1].upper() == b.split()[-1].upper() and float(a.split()[0]) == float(b.split()[0])
+
+
+def test_round_trip_csv_to_profile_to_csv_gives_the_same_numbers(tmp_path, capsys):
+    """CSV (booklet conventions) → profile (AP, + starboard, m⁴, levels) → `deckload csv` → the same numbers,
+    column by column, in the booklet's own conventions (each conversion is affine and inverted exactly;
+    values printed to 10 significant digits)."""
+    path = booklet_profile(tmp_path)
+    out = tmp_path / "out"
+    assert main(["csv", str(path), str(out)]) == 0
+    said = capsys.readouterr().out
+    assert "tank[DB1P].calibration, 3 rows (x from midships, + forward, TCG marked P/S, by ullage, FSM t·m at 1.025 t/m³)" in said
+    for mine, theirs in (("hydrostatics.csv", "hydrostatics.csv"), ("cross_curves.csv", "kn.csv"), ("tank_DB1P.csv", "DB1P.csv")):
+        a, b = _cells(out / mine), _cells(tmp_path / "tables" / theirs)
+        assert a[0] == b[0], mine
+        assert len(a) == len(b)
+        for ra, rb in zip(a[1:], b[1:]):
+            assert all(_same(x, y) for x, y in zip(ra, rb)), (mine, ra, rb)
+    # and the written files, named in the profile instead of the typed ones, read back into the same vessel
+    text = path.read_text(encoding="utf-8")
+    for typed, written in (("tables/hydrostatics.csv", "out/hydrostatics.csv"), ("tables/kn.csv", "out/cross_curves.csv"),
+                           ("tables/DB1P.csv", "out/tank_DB1P.csv")):
+        text = text.replace(typed, written)
+    first, again = load_profile(path), load_profile(_write(tmp_path / "again.toml", text))
+    for a, b in ((first.hydrostatics.lcb_m, again.hydrostatics.lcb_m), (first.cross_curves.kn_m, again.cross_curves.kn_m),
+                 (first.tank("DB1P").calibration.stacked(), again.tank("DB1P").calibration.stacked())):
+        assert np.array_equal(a, b)
