@@ -156,19 +156,26 @@ def test_check_passes_on_the_trawler_with_its_booklet_conditions(capsys):
     assert "converted: hydrostatics lcb_m, lcf_m: from midships" in out
 
 
-def test_booklet_weights_are_reproduced_by_the_trimesh_script():
-    """The printed booklet Δ, LCG, KG and FSM are what tools/demo_trawler_booklet_conditions.py makes
-    now from the condition files and the hull offsets (trimesh), to the booklet's printed decimals."""
+def test_booklet_results_are_reproduced_by_the_trimesh_script():
+    """The printed booklet results of condition 2 (on the grounds) are what
+    tools/demo_trawler_booklet_conditions.py makes now from the condition file and the hull
+    offsets (trimesh): Δ, LCG, KG, FSM, the free-trim drafts and GZ at 30°, to half a unit of the
+    last printed decimal.  (All 23 rows of all three conditions take a minute: run the script.)"""
     pytest.importorskip("trimesh")
     pytest.importorskip("scipy")
     tool = _tool("demo_trawler_booklet_conditions")
     hull, meshes, tank_meshes = tool.reference_meshes()
-    booklet = tomllib.loads(paths.TRAWLER_PROFILE.read_text(encoding="utf-8"))["booklet_condition"]
-    for case in booklet[:2]:
-        disp, lcg, kg, tcg, fsm = tool.weights(BROWSABLE / case["condition_file"], tool.profile_head(), meshes, tank_meshes)
-        e = case["expected"]
-        assert (disp, lcg, kg, fsm) == pytest.approx(  # half a unit of the last printed decimal
-            (e["displacement_t"], e["lcg_m"], e["kg_m"], e["fsm_tm"]), abs=0.0051)
+    case = tomllib.loads(paths.TRAWLER_PROFILE.read_text(encoding="utf-8"))["booklet_condition"][1]
+    assert case["condition_file"] == "demo_trawler.grounds.condition.toml"
+    disp, lcg, kg, _, fsm = tool.weights(BROWSABLE / case["condition_file"], tool.profile_head(), meshes, tank_meshes)
+    e = case["expected"]
+    assert (disp, fsm) == pytest.approx((e["displacement_t"], e["fsm_tm"]), abs=0.0051)  # printed to 0.01
+    assert (lcg, kg) == pytest.approx((e["lcg_m"], e["kg_m"]), abs=0.00051)  # printed to 0.001
+    aft, mid, fwd = tool.equilibrium(hull, disp / tool.RHO_SW, lcg, kg)
+    assert (aft, mid, fwd) == pytest.approx((e["draft_aft_m"], e["draft_mid_m"], e["draft_fwd_m"]), abs=0.00051)
+    kn30, _ = tool.ref_kn(hull, disp / tool.RHO_SW, 30.0, "free trim", lcg, kg)
+    gz30 = kn30 - (kg + fsm / disp) * 0.5
+    assert gz30 == pytest.approx(e["gz_m"][e["gz_heel_deg"].index(30)], abs=0.00051)
 
 
 def test_calc_report_and_log_work_on_the_trawler_shorthand(tmp_path, capsys, trawler):
@@ -181,6 +188,11 @@ def test_calc_report_and_log_work_on_the_trawler_shorthand(tmp_path, capsys, tra
     assert main(["report", "trawler", "arrival", "--txt", "-o", str(rep)]) == 0
     text = rep.read_text(encoding="utf-8")
     assert "Demo Trawler" in text and "never replaces" in text
+    from deckload.report import render_report_html
+
+    doc = render_report_html(evaluate(vessel, conds["arrival"]), vessel, conds["arrival"],
+                             stamp="2026-12-02 06:00 UTC", source="demo_trawler.arrival.condition.toml")
+    assert 'data-fits-a4="yes"' in doc
     logs = tmp_path / "logs"
     assert main(["log", "--dir", str(logs), "record", "trawler", "departure", "--by", "JK",
                  "--ship-offset", "+00:00"]) == 0
