@@ -18,7 +18,7 @@ from pathlib import Path
 
 from deckload.core.audit import ERROR, Finding, audit
 from deckload.core.model import Vessel
-from deckload.tomlcheck import key_lines
+from deckload.tomlcheck import Problem, ProfileError, key_lines
 
 
 @dataclass(frozen=True)
@@ -37,6 +37,44 @@ class Located:
         f = self.finding
         where = f"{self.file}:{self.line}" if self.line else self.file
         return f"{where}: {f.severity.upper()} {f.key} = {f.value}: {f.why}; compare with {f.look}"
+
+
+class AuditError(ProfileError):
+    """The profile meets the schema but its numbers contradict each other: it is not used."""
+
+    def __init__(self, path: str | os.PathLike, found: list[Located]):
+        errors = [x for x in found if x.is_error]
+        super().__init__([Problem(x.file, x.line, x.finding.key, x.finding.value,
+                                  f"ERROR (plausibility audit): {x.finding.why}; compare with {x.finding.look}")
+                          for x in errors])
+        self.path = str(path)
+        self.found = found
+
+    def __str__(self) -> str:
+        n = len(self.problems)
+        head = (f"{self.path}: the profile fails its plausibility audit ({n} contradiction{'s' if n != 1 else ''}) "
+                "and is not opened; put these right (deckload check lists every finding):")
+        return "\n".join([head, *(str(p) for p in self.problems)])
+
+
+def warnings_notice(found: list[Located], path: str | os.PathLike, shown: int = 3) -> str | None:
+    """One notice for the loading screen naming the audit's warnings (doubts), or None."""
+    doubts = [x for x in found if not x.is_error]
+    if not doubts:
+        return None
+    lines = [f"{x.finding.key} = {x.finding.value}: {x.finding.why}" for x in doubts[:shown]]
+    more = f" … and {len(doubts) - shown} more" if len(doubts) > shown else ""
+    return (f"Plausibility audit of {Path(path).name}: {len(doubts)} warning{'s' if len(doubts) != 1 else ''} "
+            f"(compare with the booklet; deckload check lists them): " + "; ".join(lines) + more)
+
+
+def audit_or_refuse(path: str | os.PathLike, vessel: Vessel) -> str | None:
+    """Before a profile is used on the screen: raise :class:`AuditError` on a contradiction,
+    else return the warnings' notice (or None)."""
+    found = audit_profile(path, vessel)
+    if any(x.is_error for x in found):
+        raise AuditError(path, found)
+    return warnings_notice(found, path)
 
 
 def audit_profile(path: str | os.PathLike, vessel: Vessel) -> list[Located]:
@@ -90,7 +128,7 @@ def _csv_of(doc: dict, path: tuple) -> str | None:
 
 
 def _in_csv(f: Finding, full: Path, vessel: Vessel) -> Located:
-    """The CSV line of the finding's row: the data row at the model's row index (rows as typed)."""
+    """The CSV line of the finding's row (the finding's key names the column, as the model has it)."""
     name = str(full)
     try:
         with open(full, newline="", encoding="utf-8") as fh:
@@ -102,32 +140,36 @@ def _in_csv(f: Finding, full: Path, vessel: Vessel) -> Located:
     header = [c.strip() for c in rows[0][1]]
     data = rows[1:]
     ints = [p for p in f.path if isinstance(p, int)]
-    if f.path[:2] == ("cross_curves", "kn_m") and len(ints) == 2:
-        i, j = ints
-        heel = float(vessel.cross_curves.heel_deg[j])
-        col = next((c for c in header if c.startswith("kn_") and _float(c[3:]) == heel), None)
-        r = i
-    else:
-        col = next((p for p in reversed(f.path) if isinstance(p, str)), None)
-        r = ints[-1] if ints else None
-    if r is None or col not in header:
+    # the table's row: kn_m[i][j] is row i (column kn_<heel>), a column's value [r] is row r
+    r = ints[-2] if f.path[:2] == ("cross_curves", "kn_m") and len(ints) == 2 else ints[-1] if ints else None
+    if r is None:
         return Located(f, name, None)
-    # A converted table may have gained a row (a level-0 row below a table starting above the
-    # bottom) or been reversed (ullage): only a row count that matches is trusted.
-    n_model = _rows_in_model(f, vessel)
-    if n_model is None or n_model != len(data) or not 0 <= r < len(data):
+    # (the finding's column may be a converted one, e.g. fsi_m4 typed as fsm_tm: the row is what counts)
+    # The row is found by its abscissa, which no convention changes (displacement, volume): a
+    # converted table may have been reversed (ullage) or gained a level-0 row.
+    anchor = _anchor(f, vessel, r)
+    if anchor is None or anchor[0] not in header:
         return Located(f, name, None)
-    return Located(f, name, data[r][0])
+    k = header.index(anchor[0])
+    for line, cells in data:
+        x = _float(cells[k]) if k < len(cells) else None
+        if x is not None and abs(x - anchor[1]) <= 1e-6 * max(1.0, abs(anchor[1])):
+            return Located(f, name, line)
+    return Located(f, name, None)
 
 
-def _rows_in_model(f: Finding, vessel: Vessel) -> int | None:
+def _anchor(f: Finding, vessel: Vessel, r: int) -> tuple[str, float] | None:
+    """(CSV column, value) that identifies the model's row ``r`` of the finding's table."""
     p = f.path
-    if p[0] == "hydrostatics":
-        return len(vessel.hydrostatics.draft_m)
-    if p[0] == "cross_curves":
-        return len(vessel.cross_curves.displacement_t)
-    if p[0] == "tank" and len(p) > 2 and p[2] == "calibration":
-        return len(vessel.tanks[p[1]].calibration.sounding_m)
+    try:
+        if p[0] == "hydrostatics":
+            return "displacement_t", float(vessel.hydrostatics.displacement_t[r])
+        if p[0] == "cross_curves":
+            return "displacement_t", float(vessel.cross_curves.displacement_t[r])
+        if p[0] == "tank" and len(p) > 2 and p[2] == "calibration":
+            return "volume_m3", float(vessel.tanks[p[1]].calibration.volume_m3[r])
+    except IndexError:
+        return None
     return None
 
 

@@ -46,6 +46,8 @@ def load_booklet_conditions(profile_path: str | os.PathLike, vessel: m.Vessel) -
     """Every booklet condition of the profile, validated.  Raises ProfileError listing every problem."""
     path = Path(profile_path)
     text = _read_text(path)
+    if "booklet_condition" not in text:
+        return []  # most profiles have none: spare check a second parse of a large file
     ctx = FileCheck(str(path), text)
     root = ctx.root()
     cases: list[BookletCase] = []

@@ -152,6 +152,27 @@ def generated_sections(vt: VesselTables) -> dict[str, Any]:
     return out
 
 
+def _stamp_model_conventions(new: dict[str, Any], gen: dict[str, Any], vessel: dict[str, Any]) -> None:
+    """Generated tables are from the AP, + forward, + starboard.  Where the profile states another
+    convention for its hand-entered tables (vessel_profiles/README.md, "Booklet conventions"),
+    each generated table says its own, so that it is not read in the profile's."""
+    x_other = vessel.get("longitudinal_datum", "AP") != "AP" or vessel.get("longitudinal_positive", "forward") != "forward"
+    y_other = vessel.get("transverse_positive", "starboard") != "starboard"
+    if not (x_other or y_other):
+        return
+    stamp: dict[str, Any] = {}
+    if x_other:
+        stamp.update(longitudinal_datum="AP", longitudinal_positive="forward")
+    targets = [new["hydrostatics"]] if "hydrostatics" in gen and x_other else []
+    for key in ("tank", "hold", "deck_area"):
+        made = {e["id"] for e in gen.get(key, [])}
+        targets += [e for e in new.get(key, []) if e.get("id") in made]
+    for d in targets:
+        d.update(stamp)
+        if y_other and d is not new.get("hydrostatics"):
+            d["transverse_positive"] = "starboard"
+
+
 def merge_profile(existing: dict[str, Any] | None, gen: dict[str, Any], vt: VesselTables) -> tuple[dict[str, Any], list[str]]:
     """The refreshed profile: generated sections replaced, everything else kept.  Returns notes."""
     notes: list[str] = []
@@ -178,6 +199,7 @@ def merge_profile(existing: dict[str, Any] | None, gen: dict[str, Any], vt: Vess
         for e in kept:
             notes.append(f"note: {label} {e.get('id')!r} is not in the geometry file: kept as it was")
         new[key] = list(gen[key]) + kept
+    _stamp_model_conventions(new, gen, vessel)
     for key, value in old.items():
         if key not in new:
             new[key] = value

@@ -252,15 +252,19 @@ def test_a_warning_does_not_fail_check(tmp_path, capsys):
 
 
 def test_a_finding_in_a_csv_table_points_at_the_csv_line(tmp_path):
-    """Tables read from CSV (booklet-input): the line is the CSV's, data row r at its own line."""
-    v = vessel()
-    kmt = np.array(v.hydrostatics.kmt_m)
-    kmt[3] *= 10
-    v2 = with_hydro(v, kmt_m=kmt)
-    rows = ["draft_m,kmt_m", *(f"{t},{k}" for t, k in zip(v.hydrostatics.draft_m, kmt))]
-    rows.insert(2, "")  # an empty line is skipped by the reader: the line still counts
-    (tmp_path / "hydro.csv").write_text("\n".join(rows) + "\n", encoding="utf-8")
-    text = '[hydrostatics]\ncsv = "hydro.csv"\n'
-    found = locate(audit(v2), str(tmp_path / "fv.toml"), text, v2)
-    hit = [x for x in found if x.finding.check == "hydro-kmt"][0]
-    assert hit.file == str(tmp_path / "hydro.csv") and hit.line == 6  # header 1, rows 2, (blank 3), 4, 5, 6
+    """Tables read from CSV files: the finding names the CSV file and the line of its row, found by the
+    row's displacement or volume (an ullage table is typed upside down; the model's is by level)."""
+    import test_booklet_input as booklet
+
+    f = booklet.booklet_profile(tmp_path)
+    kn = tmp_path / "tables" / "kn.csv"
+    kn.write_text(kn.read_text().replace("2.68414", "26.8414"), encoding="utf-8")
+    tank = tmp_path / "tables" / "DB1P.csv"
+    tank.write_text(tank.read_text().replace("0.2,50,-10,0.5,2.5 P,106.770833", "0.2,50,-10,0.5,2.5 P,10677.0833"),
+                    encoding="utf-8")
+    found = audit_profile(f, load_profile(f))
+    hit = the(found, "kn-envelope")
+    assert (hit.file, hit.line) == (str(kn), 2) and hit.finding.value == "26.84 m"
+    hit = the(found, "tank-fsi")
+    assert (hit.file, hit.line) == (str(tank), 2) and hit.finding.key == "tank[DB1P].calibration.fsi_m4"
+    assert hit.finding.severity == ERROR

@@ -475,3 +475,22 @@ def test_round_trip_csv_to_profile_to_csv_gives_the_same_numbers(tmp_path, capsy
     for a, b in ((first.hydrostatics.lcb_m, again.hydrostatics.lcb_m), (first.cross_curves.kn_m, again.cross_curves.kn_m),
                  (first.tank("DB1P").calibration.stacked(), again.tank("DB1P").calibration.stacked())):
         assert np.array_equal(a, b)
+
+
+def test_tables_refreshed_from_geometry_keep_their_own_datum_in_a_midships_profile():
+    """`deckload tables` writes AP tables; in a profile whose hand-entered tables are from midships each
+    generated table states "AP", so the demo's generated tank LCGs read back unchanged."""
+    import tomllib
+
+    from deckload.tables_command import _stamp_model_conventions, render
+
+    demo_path = HERE.parent / "vessel_profiles" / "demo_islander.toml"
+    doc = tomllib.loads(demo_path.read_text(encoding="utf-8"))
+    doc["vessel"].update(longitudinal_datum="midships", longitudinal_positive="forward", transverse_positive="port")
+    gen = {k: doc[k] for k in ("hydrostatics", "tank", "hold", "deck_area")}
+    _stamp_model_conventions(doc, gen, doc["vessel"])
+    v, demo = parse_profile(render(doc), "mid_demo.toml"), load_profile(demo_path)
+    for a, b in zip(v.tanks, demo.tanks):
+        assert np.array_equal(a.calibration.stacked(), b.calibration.stacked()), a.id
+    assert np.array_equal(v.hydrostatics.lcb_m, demo.hydrostatics.lcb_m)
+    assert v.lightship.lcg_m == demo.lightship.lcg_m + demo.particulars.lbp_m / 2  # hand-entered: from midships

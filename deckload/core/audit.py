@@ -273,6 +273,12 @@ class _Audit:
                         self.z_position(f"{key}.{col}", path + (col, r), float(val), look, "compartment")
                     if len(self.out) > n:
                         break
+        for i, c in enumerate(v.constants):
+            key, path = f"constant[#{i + 1}]", ("constant", i)
+            look = f"the booklet's list of fixed constants ({c.name})"
+            self.x_position(f"{key}.lcg_m", path + ("lcg_m",), c.lcg_m, look)
+            self.z_position(f"{key}.vcg_m", path + ("vcg_m",), c.vcg_m, look, "deck")
+            self.y_position(f"{key}.tcg_m", path + ("tcg_m",), c.tcg_m, look)
         for i, a in enumerate(v.deck_areas):
             key, path = f"deck_area[{a.id}]", ("deck_area", i)
             look = f"the booklet's deck plan / deck-load table for {a.id}"
@@ -619,10 +625,10 @@ class _Audit:
         cal = t.calibration
         s, v, fsi = cal.sounding_m, cal.volume_m3, cal.fsi_m4
         look = f"the booklet's calibration table of tank {t.id} (free-surface column)"
-        if len(s) < 2:
-            return
+        if len(s) < 2 or not t.level_known:
+            return  # a capacity-only tank has no levels, so no surface area to bound its FSM by
         areas = np.diff(v) / np.diff(s)  # mean free-surface area of each step (m²)
-        constant = bool(np.all(fsi == fsi[0]))
+        constant = t.fsi_given == "max" or bool(np.all(fsi == fsi[0]))
         B = self.B
         for r in range(len(s)):
             if constant:
@@ -662,6 +668,8 @@ class _Audit:
         s, V = cal.sounding_m, cal.volume_m3
         look = f"the booklet's calibration table of tank {t.id}"
         L, B = self.L, self.B
+        if not t.level_known:
+            return  # capacity and centre only: one fixed centre, no layers to check
         e, ev = CENTRE_ROUNDING_M, VOLUME_ROUNDING_REL * t.capacity_m3
         zb_lo, zb_hi = -math.inf, math.inf
         tp = ("tank", i, "calibration")

@@ -17,14 +17,22 @@ def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir
 
     Start-up order: the CONDITION argument if given; else the vessel's saved
     working condition; else (a packaged demo vessel) its departure condition, or an empty
-    condition.  An unreadable working file is set aside, never overwritten.
+    condition.  An unreadable working file is set aside, never overwritten.  A profile that
+    fails its plausibility audit raises :class:`deckload.audit_report.AuditError`.
     """
     from deckload import paths
     from deckload.profiles import ProfileError, load_condition, load_profile
     from deckload.ui.session import working_path
 
+    from deckload.audit_report import audit_or_refuse
+
     notices: list[str] = []
     vessel = load_profile(profile_path or paths.DEMO_PROFILE)
+    # The plausibility audit before anything is shown: a contradiction refuses the profile
+    # (AuditError, a ProfileError), a doubt becomes a notice.
+    doubt = audit_or_refuse(profile_path or paths.DEMO_PROFILE, vessel)
+    if doubt:
+        notices.append(doubt)
     saved = working_path(work_dir, vessel)
     if condition_path is not None:
         condition = load_condition(condition_path, vessel)
