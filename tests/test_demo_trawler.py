@@ -234,3 +234,34 @@ async def test_the_screen_opens_on_the_trawler_and_takes_an_ullage(tmp_path, tra
         assert (fill.quantity, fill.value) == ("ullage_m", 1.0)
         got = next(t for t in app.session.result.tanks if t.id == "FO1P")
         assert got.volume_m3 == pytest.approx(page[1.0], abs=5e-4)  # the page prints 1 litre
+
+
+def _copy_without_geometry(tmp_path: Path) -> Path:
+    for p in BROWSABLE.glob("demo_trawler*.toml"):
+        if ".geometry." not in p.name:
+            shutil.copyfile(p, tmp_path / p.name)
+    shutil.copytree(BROWSABLE / "demo_trawler", tmp_path / "demo_trawler")
+    return tmp_path / "demo_trawler.toml"
+
+
+@pytest.mark.parametrize("slip, file, old, new, expect", [
+    # the booklet's midships positions typed under the wrong datum
+    ("datum", "demo_trawler.toml", 'longitudinal_datum = "midships"', 'longitudinal_datum = "AP"\n#',
+     ["ERROR lightship.lcg_m = -1.6 m from AP", "ERROR hydrostatics.lcb_m"]),
+    # a decimal point slipped in the KN page (1.880 typed 18.80)
+    ("kn decimal", "demo_trawler/kn.csv", ",1.880,", ",18.80,", ["kn.csv:2: ERROR cross_curves.kn_m = 18.8 m"]),
+    # the starboard wing tank's centres typed with the port mark
+    ("pair side", "demo_trawler/tanks/FO1S.csv", " S,", " P,", ["ERROR tank[FO1P].calibration.tcg_m", "both centres are on the port side"]),
+])
+def test_typing_slips_in_the_trawlers_booklet_pages_are_stopped_by_check(tmp_path, capsys, slip, file, old, new, expect):
+    """Step 10 of "Setting up your vessel from the booklet": the slips a booklet invites, made on the
+    worked example, make `check` fail and name the file, line and value (issue 8's list)."""
+    profile = _copy_without_geometry(tmp_path)
+    target = tmp_path / file
+    text = target.read_text(encoding="utf-8")
+    assert old in text
+    target.write_text(text.replace(old, new, 1), encoding="utf-8")
+    assert main(["check", str(profile)]) == 1
+    out = capsys.readouterr().out
+    for e in expect:
+        assert e in out, (slip, e)
