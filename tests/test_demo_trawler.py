@@ -102,7 +102,9 @@ def test_the_profile_is_written_the_way_the_booklet_prints_it(trawler):
 
 
 def test_booklet_pages_are_what_the_writer_makes_from_the_geometry(tmp_path):
-    """The committed CSV pages and profile are reproducible from the source geometry, byte for byte."""
+    """The committed geometry, CSV pages and profile are reproducible from their scripts, byte for byte."""
+    geometry = (BROWSABLE / "demo_trawler.geometry.toml").read_text(encoding="utf-8")
+    assert _tool("demo_trawler_geometry").geometry_text() == geometry
     booklet = _tool("demo_trawler_booklet")
     text = booklet.booklet_text(tmp_path / "demo_trawler")
     committed = paths.TRAWLER_PROFILE.read_text(encoding="utf-8")

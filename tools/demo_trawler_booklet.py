@@ -1,6 +1,7 @@
 """Write the Demo Trawler's booklet-style profile from her invented geometry.
 
-Run by hand from the checkout root: ``python tools/demo_trawler_booklet.py``.
+Run by hand from the checkout root, with deckload importable (``pip install -e .`` or
+``PYTHONPATH=.``): ``python tools/demo_trawler_booklet.py``.
 
 The Demo Trawler is invented (demo only).  A crew has no hull model: what they have
 is the stability booklet.  To give deckload a second demo vessel entered the way a

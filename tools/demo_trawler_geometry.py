@@ -81,8 +81,8 @@ HEADER = '''\
 #
 # Written by tools/demo_trawler_geometry.py.  This is the SOURCE the Demo Trawler's
 # booklet-style profile (demo_trawler.toml and the CSV pages in demo_trawler/) was
-# invented from: tools/demo_trawler_booklet.py runs `deckload tables` on it and prints
-# the tables the way a stability booklet does.  The profile does not need this file.
+# invented from: tools/demo_trawler_booklet.py computes her tables from it with deckload's
+# table builder and prints them the way a stability booklet does.  The profile does not need this file.
 # The schema is that of demo_islander.geometry.toml (deckload-geometry-1).
 #
 # HULL FORMULA used to write the offsets (x from the AP, z above the keel, metres):
@@ -238,7 +238,8 @@ z_m = 6.0
 '''
 
 
-def main() -> int:
+def geometry_text() -> str:
+    """The geometry file's text (deterministic: offsets rounded to 0.1 mm)."""
     rows = []
     for x in STATIONS:
         rows.append(f"  [{fmt_row(np.round(half_breadths(float(x)), 4))}],  # x = {x:g}")
@@ -265,7 +266,11 @@ half_breadth_m = [
 {chr(10).join(rows)}
 ]
 ''' + BODY.format(drafts=drafts, kn_disp=kn_disp)
-    OUT.write_text(text, encoding="utf-8")
+    return text
+
+
+def main() -> int:
+    OUT.write_text(geometry_text(), encoding="utf-8")
     print(f"wrote {OUT.relative_to(ROOT)}")
     return 0
 
