@@ -39,7 +39,10 @@ METHOD (the booklet's own calculation, all from the hull offsets of
 * GZ(φ) = KN(φ) − KG_fluid·sin φ with KN by ``deckload.bench_tables.ref_kn`` (trimesh
   slicing of the heeled mesh, free trim about this condition's own LCG and KG), at
   0–60° in 5° steps; areas by Simpson's first rule on those ordinates; the maximum GZ
-  from the parabola through the largest ordinate and its neighbours.
+  from the parabola through the largest ordinate and its neighbours;
+* the downflooding angle: the heel at which the lowest unprotected opening of the geometry
+  file reaches the water, heeling towards it and floating free to trim about this
+  condition's G (brentq on the opening's height above the waterplane).
 """
 
 from __future__ import annotations
@@ -52,7 +55,7 @@ from pathlib import Path
 import numpy as np
 from scipy.optimize import brentq
 
-from deckload.bench_tables import below, compartment_mesh, hull_mesh, ref_kn, waterplane_moments
+from deckload.bench_tables import below, compartment_mesh, heeled, hull_mesh, ref_kn, waterplane_moments
 from deckload.geometry_io import load_geometry
 
 ROOT = Path(__file__).resolve().parent.parent
@@ -112,27 +115,46 @@ def side_value(v) -> float:
     return float(s)
 
 
-def equilibrium(hull, volume_m3: float, lcg: float, kg: float) -> tuple[float, float, float]:
-    """Drafts (aft, mid, fwd), moulded, floating free to trim with B under G."""
+def floating(mesh, volume_m3: float, lcg: float, zeta_g: float) -> tuple[float, float]:
+    """Level c and tanψ of the (heeled) mesh floating free to trim: volume below the plane
+    n·p = c, n = (tanψ, 0, 1)/|…|, equals ``volume_m3`` and B lies on the vertical through G."""
 
-    def state(t: float):
+    def level(t: float) -> float:
         n = np.array([t, 0.0, 1.0]) / math.hypot(t, 1.0)
-        lev = hull.vertices @ n
-        c = brentq(lambda c: below(hull, n, c)[0] - volume_m3, float(lev.min()) + 1e-9, float(lev.max()), xtol=1e-10)
-        return c, below(hull, n, c)[1]
+        lev = mesh.vertices @ n
+        return brentq(lambda c: below(mesh, n, c)[0] - volume_m3, float(lev.min()) + 1e-9, float(lev.max()), xtol=1e-10)
 
     def resid(t: float) -> float:
-        _, cm = state(t)
-        return (cm[0] - lcg) - t * (cm[2] - kg)
+        n = np.array([t, 0.0, 1.0]) / math.hypot(t, 1.0)
+        cm = below(mesh, n, level(t))[1]
+        return (cm[0] - lcg) - t * (cm[2] - zeta_g)
 
     t = brentq(resid, -0.2, 0.2, xtol=1e-10)
-    c, _ = state(t)
-    z0 = c * math.hypot(t, 1.0)  # waterplane: z = z0 - t·x
+    return level(t), t
 
-    def draft(x):
-        return z0 - t * x
 
-    return draft(0.0), draft(MID_M), draft(LBP_M)
+def equilibrium(hull, volume_m3: float, lcg: float, kg: float) -> tuple[float, float, float]:
+    """Drafts (aft, mid, fwd), moulded, upright and floating free to trim with B under G."""
+    c, t = floating(hull, volume_m3, lcg, kg)
+    z0 = c * math.hypot(t, 1.0)  # the waterplane: z = z0 − tanψ·x
+    return z0, z0 - t * MID_M, z0 - t * LBP_M
+
+
+def downflooding_angle(hull, volume_m3: float, lcg: float, kg: float, openings) -> float:
+    """Heel (°) at which the lowest opening reaches the water, heeling towards it, floating free
+    to trim about this condition's own G: brentq on the opening's height above the waterplane."""
+    angles = []
+    for o in openings:
+        y, z = abs(o.y_m), o.z_m  # the hull is symmetric: heel towards the opening's side
+
+        def margin(h: float) -> float:
+            th = math.radians(h)
+            c, t = floating(heeled(hull, h), volume_m3, lcg, kg * math.cos(th))
+            p = np.array([o.x_m, y * math.cos(th) + z * math.sin(th), -y * math.sin(th) + z * math.cos(th)])
+            return float(p @ (np.array([t, 0.0, 1.0]) / math.hypot(t, 1.0))) - c  # > 0: dry
+
+        angles.append(brentq(margin, 0.0, 89.0, xtol=1e-3) if margin(89.0) < 0 else 90.0)
+    return min(angles)
 
 
 def weights(cond_file: Path, profile: dict, meshes: dict, tank_meshes: dict) -> tuple[float, float, float, float, float]:
@@ -213,7 +235,7 @@ def weights(cond_file: Path, profile: dict, meshes: dict, tank_meshes: dict) -> 
     return disp, lcg, kg, tcg, sum(counted.values())
 
 
-def compute(cond_file: Path, profile: dict, hull, meshes: dict, tank_meshes: dict) -> dict:
+def compute(cond_file: Path, profile: dict, hull, meshes: dict, tank_meshes: dict, openings=()) -> dict:
     """The booklet's printed results for one loading (module docstring)."""
     disp, lcg, kg, tcg, fsm = weights(cond_file, profile, meshes, tank_meshes)
     dmin = float(profile["lightship"]["mass_t"])
@@ -263,6 +285,7 @@ def compute(cond_file: Path, profile: dict, hull, meshes: dict, tank_meshes: dic
         "area_0_30_mrad": round(simpson(0, 6), 4),
         "area_0_40_mrad": round(simpson(0, 8), 4),
         "area_30_40_mrad": round(simpson(6, 8), 4),
+        "downflooding_angle_deg": round(downflooding_angle(hull, vol, lcg, kg, openings), 1),
     }
 
 
@@ -295,7 +318,7 @@ def main() -> int:
               "# deckload's tables).  Positions in deckload's conventions: x from the AP, moulded drafts.",
               ""]
     for name, page, fname in CONDITIONS:
-        res = compute(PROFILE.parent / fname, profile, hull, meshes, tank_meshes)
+        res = compute(PROFILE.parent / fname, profile, hull, meshes, tank_meshes, load_geometry(GEOMETRY).openings)
         print(f"{name}: " + ", ".join(f"{k} {v}" for k, v in res.items()))
         blocks += ["[[booklet_condition]]", f'name = "{name}"', f'page = "{page}"', f'condition_file = "{fname}"', "",
                    "  [booklet_condition.expected]"]
