@@ -42,7 +42,7 @@ def _range(a, unit: str) -> str:
 def profile_summary(path: Path, v: m.Vessel) -> list[str]:
     """A few lines saying what the profile holds and over which ranges its tables run."""
     h, k = v.hydrostatics, v.cross_curves
-    rows = [len(t.calibration.sounding_m) for t in v.tanks]
+    rows = [len(t.calibration.sounding_m) for t in v.tanks if t.level_known]
     lines = [
         f"OK  {path}: {v.particulars.name!r}: {_plural(len(v.tanks), 'tank')}, {_plural(len(v.holds), 'hold')}, "
         f"{_plural(len(v.deck_areas), 'deck area')}, {_plural(len(v.load_lines), 'load line')}",
@@ -197,6 +197,7 @@ def _check_condition(path: Path, vessel: m.Vessel) -> int:
         f"mean draft {result.draft_mean_m:.3f} m, GM fluid {result.gm_fluid_m:.3f} m; "
         f"stability criteria met: {met} of {len(result.criteria)}"
     )
+    print(f"    verdict: {result.verdict_text()}")
     for w in result.warnings:
         print(f"    {w.severity}: {w.message}")
     return 0

@@ -84,6 +84,11 @@ def read_csv(t: Table, key: str = "csv") -> CsvTable | None:
         if header is None:
             header = [c.strip() for c in cells]
             header_line = line
+            if len(header) == 1 and ";" in header[0]:
+                t.ctx.problems.append(_problem(shown, line, t.key(key), repr(header[0]),
+                                               "the cells are separated by ';': save the sheet as comma-separated "
+                                               "CSV with a decimal point"))
+                return None
             seen: set[str] = set()
             for j, h in enumerate(header):
                 if not h:
@@ -133,18 +138,22 @@ def _locator(c: CsvTable, j: int | None, matrix_cols: list[int] | None = None):
     return locate
 
 
-def attach_csv(t: Table, columns: tuple[str, ...]) -> None:
+def attach_csv(t: Table, columns: tuple[str, ...]) -> bool:
     """If ``t`` names a CSV file, put its columns into ``t.data`` as arrays.
 
     ``columns`` are the names the table accepts from a CSV (its TOML array keys); a
-    column of another name, or one the TOML also gives, is a problem.
+    column of another name, or one the TOML also gives, is a problem.  False when the file
+    could not be read (reported): the caller then reads nothing more of the table.
     """
     if not t.has("csv"):
         t.get("csv", False)
-        return
+        return True
     c = read_csv(t)
     if c is None:
-        return
+        t.ctx.unread_csv.add(t.raw)  # its problem is reported; its columns' absence would only repeat it
+        for k in t.data:  # and nothing else of this table is judged without its columns
+            t.get(k, False)
+        return False
     for j, h in enumerate(c.header):
         if h not in columns:
             t.ctx.problems.append(_problem(c.file, c.header_line, t.key("csv"), repr(h),
@@ -155,16 +164,20 @@ def attach_csv(t: Table, columns: tuple[str, ...]) -> None:
             continue
         t.data[h] = [row[j] for row in c.rows]
         t.ctx.sources[t.raw + (h,)] = _locator(c, j)
+    return True
 
 
-def attach_kn_csv(t: Table) -> None:
+def attach_kn_csv(t: Table) -> bool:
     """Cross curves from a CSV: ``displacement_t`` and one ``kn_<angle>`` column per heel."""
     if not t.has("csv"):
         t.get("csv", False)
-        return
+        return True
     c = read_csv(t)
     if c is None:
-        return
+        t.ctx.unread_csv.add(t.raw)  # its problem is reported; its columns' absence would only repeat it
+        for k in t.data:  # and nothing else of this table is judged without its columns
+            t.get(k, False)
+        return False
     kn_cols: list[int] = []
     heels: list[float] = []
     for j, h in enumerate(c.header):
@@ -193,6 +206,7 @@ def attach_kn_csv(t: Table) -> None:
                                                        MISSING)
     t.data["kn_m"] = [[row[j] for j in kn_cols] for row in c.rows]
     t.ctx.sources[t.raw + ("kn_m",)] = _locator(c, None, kn_cols)
+    return True
 
 
 # =========================================================================== writing

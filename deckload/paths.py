@@ -16,6 +16,7 @@ DEMO_CONDITIONS = {
     "departure": PACKAGE_DATA / "demo_islander.departure.condition.toml",
     "midvoyage": PACKAGE_DATA / "demo_islander.midvoyage.condition.toml",
     "arrival": PACKAGE_DATA / "demo_islander.arrival.condition.toml",
+    "light": PACKAGE_DATA / "demo_islander.light.condition.toml",
 }
 TRAWLER_PROFILE = PACKAGE_DATA / "demo_trawler.toml"
 """The second demo vessel, an invented stern trawler entered from booklet-style tables (CSV)."""

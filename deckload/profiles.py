@@ -23,8 +23,9 @@ saved atomically (:func:`save_condition`): the old file survives any crash.
 
 from __future__ import annotations
 
+import math
 import os
-from dataclasses import dataclass
+from dataclasses import dataclass, replace
 from dataclasses import field as dataclass_field
 from pathlib import Path
 from typing import Any
@@ -161,14 +162,21 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     hydro = _read_hydrostatics(root, frame, rd)
     cross = _read_cross_curves(root)
     fs = _read_free_surface(root, lightship)
-    criteria = _read_criteria(root)
+    criteria = _read_criteria(root, particulars)
+    extra = _read_extra_criteria(root, particulars)
+    if criteria is not None and extra:
+        criteria = replace(criteria, extra=extra)
     load_lines = _read_load_lines(root, hydro, frame, rd)
     limit = _read_limit_curve(root, hydro, frame, rd)
     downflooding = _read_downflooding(root, hydro, frame, rd)
     _check_kn_reach(root, cross, downflooding)
+    windage = _read_windage(root, particulars)
+    deck_edge = _read_deck_edge(root)
+    passengers = _read_passengers(root, particulars, criteria)
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
-    tanks = _read_tanks(root, fs, ids, frame, rd)
+    depth = particulars.depth_m if particulars is not None else math.inf
+    tanks = _read_tanks(root, fs, ids, frame, rd, depth)
     holds = _read_holds(root, ids, frame, rd)
     areas = _read_deck_areas(root, ids, frame, rd)
     constants = _read_profile_constants(root, frame, rd)
@@ -191,6 +199,9 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
         downflooding=downflooding,
         criteria=criteria,
         free_surface=fs,
+        windage=windage,
+        deck_edge=deck_edge,
+        passengers=passengers,
         constants=tuple(constants),
         conversions=tuple(rd.conversions),
         assumptions=tuple(rd.assumptions),
@@ -232,9 +243,9 @@ def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:
     return m.Particulars(longitudinal_datum=words, **kw), frame
 
 
-def _x(t: Table, k: str, frame: Frame | None, rd: Reading, what: str, *, required: bool = True) -> float | None:
+def _x(t: Table, k: str, frame: Frame | None) -> float | None:
     """One x position as written, converted to metres from AP, + forward."""
-    v = t.num(k, required=required)
+    v = t.num(k)
     if v is None or frame is None:
         return None
     return float(frame.x_to_ap(v))
@@ -264,7 +275,7 @@ def _read_mass_item(t: Table, name: str, *, mass_rule: Rule = non_negative, fram
     else:
         f = read_frame(t, frame, sides=True)
         tcg, marked = tcg_num(t, "tcg_m", f)
-        kw = dict(mass_t=t.num("mass_t", mass_rule), lcg_m=_x(t, "lcg_m", f, rd, where),
+        kw = dict(mass_t=t.num("mass_t", mass_rule), lcg_m=_x(t, "lcg_m", f),
                   vcg_m=t.num("vcg_m", above_keel), tcg_m=tcg)
         _note_frame(rd, where, f, "lcg_m", "tcg_m" if t.has("tcg_m") else "", marked)
     if any(v is None for v in kw.values()) or name is None:
@@ -305,7 +316,8 @@ def _read_hydrostatics(root: Table, frame: Frame | None, rd: Reading) -> m.Hydro
     t = root.table("hydrostatics")
     if t is None:
         return None
-    attach_csv(t, HYDRO_COLUMNS)
+    if not attach_csv(t, HYDRO_COLUMNS):
+        return None
     f = read_frame(t, frame, drafts=True)
     cols = {
         "draft_m": t.increasing("draft_m", t.array("draft_m", non_negative)),
@@ -347,7 +359,8 @@ def _read_cross_curves(root: Table) -> m.CrossCurves | None:
     t = root.table("cross_curves")
     if t is None:
         return None
-    attach_kn_csv(t)
+    if not attach_kn_csv(t):
+        return None
     basis = t.text("trim_basis", choices=("free trim", "even keel"))
     heel = t.increasing("heel_deg", t.array("heel_deg", heel_range))
     heel = t.starts_at("heel_deg", heel, 0.0, "the upright condition")
@@ -420,17 +433,166 @@ def _read_free_surface(root: Table, lightship: m.MassItem | None) -> m.FreeSurfa
     return m.FreeSurfaceSettings(**kw)
 
 
-def _read_criteria(root: Table) -> m.CriteriaSettings | None:
+def _flag(t: Table, k: str) -> bool | None:
+    """An optional true/false key (false when absent); None when it is not a boolean."""
+    v = t.get(k, False)
+    if v is MISSING:
+        return False
+    if not isinstance(v, bool):
+        t.bad(k, v, "must be true or false")
+        return None
+    return v
+
+
+FISHING_STANDARD_GM_M = 0.35
+"""IS 2008 Part B 2.1 (from memory): GM0 ≥ 0.35 m; below it only with a complete superstructure or
+L ≥ 70 m, never below 0.15 m (standards.md §3.2)."""
+
+
+def _read_criteria(root: Table, particulars: m.Particulars | None) -> m.CriteriaSettings | None:
     t = root.table("criteria", required=False)
     if t is None:
         return None if root.has("criteria") else m.CriteriaSettings()
     code = t.text("code", required=False, default="IS2008-A2.2", choices=("IS2008-A2.2",))
+    ship_type = t.text("ship_type", required=False, default="general", choices=m.SHIP_TYPES)
     has_gm = t.has("min_gm_m")
     gm = t.num("min_gm_m", positive, required=False)
+    has_p = t.has("wind_pressure_pa")
+    # Restricted service may lower P with the Administration's approval (standards.md §2.2);
+    # a value beyond these bounds is a typing error, not a wind.
+    pressure = t.num("wind_pressure_pa", between(100.0, 1500.0, "Pa", "504 Pa unrestricted, IS 2008 A 2.3"),
+                     required=False)
+    has_ak = t.has("bilge_keel_area_m2")
+    ak = t.num("bilge_keel_area_m2", non_negative, required=False, default=0.0)
+    sharp = _flag(t, "sharp_bilged")
+    complete = _flag(t, "complete_superstructure")
     t.finish()
-    if code is None or (has_gm and gm is None):
+    ok = code is not None and ship_type is not None and sharp is not None and complete is not None
+    ok &= not (has_gm and gm is None) and not (has_p and pressure is None) and not (has_ak and ak is None)
+    if ok and t.has("code") and ship_type != "general":
+        t.bad("code", t.data["code"], f"'IS2008-A2.2' is the old name of the general criteria: it cannot be "
+              f"combined with ship_type {ship_type!r}; remove code")
+        ok = False
+    if ok and particulars is not None and ak and ak > particulars.lbp_m * particulars.depth_m:
+        t.bad("bilge_keel_area_m2", t.data["bilge_keel_area_m2"],
+              f"above LBP × depth ({num(particulars.lbp_m * particulars.depth_m)} m²): not a bilge-keel area")
+        ok = False
+    if ok and ship_type == "fishing" and gm is not None and gm < FISHING_STANDARD_GM_M:
+        length = particulars.lbp_m if particulars is not None else 0.0
+        if gm < 0.15:
+            t.bad("min_gm_m", t.data["min_gm_m"], "below 0.15 m: a fishing vessel's GM0 is never reduced below "
+                  "0.15 m (IS Code 2008 Part B 2.1, from memory)")
+            ok = False
+        elif not complete and length < 70.0:
+            t.bad("min_gm_m", t.data["min_gm_m"], "below 0.35 m: IS Code 2008 Part B 2.1 allows that only with a "
+                  "complete superstructure (complete_superstructure = true) or L ≥ 70 m (from memory)")
+            ok = False
+    if not ok:
         return None
-    return m.CriteriaSettings(code=code, min_gm_m=gm)
+    return m.CriteriaSettings(code=code, min_gm_m=gm, ship_type=ship_type, wind_pressure_pa=pressure,
+                              bilge_keel_area_m2=ak, sharp_bilged=sharp, complete_superstructure=complete)
+
+
+def _read_extra_criteria(root: Table, particulars: m.Particulars | None) -> tuple[m.ExtraCriterion, ...] | None:
+    """``[[extra_criterion]]``: flag-State or class rules as data, each with its source."""
+    breadth = particulars.breadth_m if particulars is not None else 100.0
+    length_rule = between(0.0, breadth, "m", "at most the breadth")
+    rules = {
+        "min_gm": length_rule, "min_gz_at": length_rule, "min_max_gz": length_rule,
+        "min_area": between(0.0, 2.0, "m·rad"),
+        "min_angle_max_gz": between(0.0, 90.0, "°"), "min_range": between(0.0, 90.0, "°"),
+        "max_static_heel": between(0.0, 90.0, "°"), "max_wind_heel": between(0.0, 90.0, "°"),
+    }
+    out, ok = [], True
+    for t in root.tables("extra_criterion"):
+        kind = t.text("kind", choices=m.EXTRA_KINDS)
+        source = t.text("source")
+        limit = t.num("limit", rules[kind]) if kind is not None else t.num("limit")
+        kw: dict[str, float] = {}
+        if kind == "min_area":
+            lo = t.num("from_deg", heel_range)
+            hi = t.num("to_deg", heel_range)
+            if lo is not None and hi is not None and not lo < hi:
+                t.bad("to_deg", t.data["to_deg"], f"must be above from_deg ({num(lo)}°)")
+                hi = None
+            kw = {"from_deg": lo, "to_deg": hi}
+        elif kind == "min_gz_at":
+            kw = {"at_deg": t.num("at_deg", heel_range)}
+        t.finish()
+        if kind is None or source is None or limit is None or any(v is None for v in kw.values()):
+            ok = False
+            continue
+        out.append(m.ExtraCriterion(kind=kind, limit=limit, source=source, **kw))
+    return tuple(out) if ok else None
+
+
+def _read_windage(root: Table, particulars: m.Particulars | None) -> m.Windage | None:
+    """``[windage]``: lateral area above the waterline, its centre's height above the waterline and
+    the waterline length, against mean draft (booklet style, or made by ``deckload tables``)."""
+    t = root.table("windage", required=False)
+    if t is None:
+        return None
+    lbp = particulars.lbp_m if particulars is not None else None
+    depth = particulars.depth_m if particulars is not None else None
+    area_rules: tuple = (positive,)
+    height_rules: tuple = (positive,)
+    lwl_rules: tuple = (positive,)
+    if lbp is not None and depth is not None:
+        # bounds from the vessel's own size: superstructures rarely stand more than a few depths high
+        area_rules += (at_most(1.5 * lbp * 10.0 * depth, "m² (1.5 × LBP × 10 × depth): not a lateral area"),)
+        height_rules += (at_most(10.0 * depth, "m (10 × depth)"),)
+        lwl_rules += (at_most(1.5 * lbp, "m (1.5 × LBP)"),)
+    cols = {
+        "draft_m": t.increasing("draft_m", t.array("draft_m", positive)),
+        "lateral_area_m2": t.array("lateral_area_m2", *area_rules),
+        "centroid_above_wl_m": t.array("centroid_above_wl_m", *height_rules),
+        "waterline_length_m": t.array("waterline_length_m", *lwl_rules),
+    }
+    t.finish()
+    if not t.same_length("draft_m", cols):
+        return None
+    if depth is not None and cols["draft_m"][-1] > depth:
+        t.bad("draft_m", t.data["draft_m"], f"goes beyond the depth {num(depth)} m")
+        return None
+    return m.Windage(**{k: m.frozen_array(v) for k, v in cols.items()})
+
+
+def _read_deck_edge(root: Table) -> m.LimitCurve | None:
+    """``[deck_edge]``: deck-edge immersion angle against displacement (made by ``deckload tables``)."""
+    t = root.table("deck_edge", required=False)
+    if t is None:
+        return None
+    disp = t.increasing("displacement_t", t.array("displacement_t", positive))
+    ang = t.array("angle_deg", between(0.0, 90.0, "°"))
+    t.finish()
+    if not t.same_length("displacement_t", {"displacement_t": disp, "angle_deg": ang}):
+        return None
+    return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(ang), kind="deck_edge_deg")
+
+
+def _read_passengers(root: Table, particulars: m.Particulars | None,
+                     criteria: m.CriteriaSettings | None) -> m.PassengerData | None:
+    """``[passengers]``: the inputs of IS 2008 Part A 3.1 (passenger ships only)."""
+    t = root.table("passengers", required=False)
+    if t is None:
+        return None
+    half_b = particulars.breadth_m / 2.0 if particulars is not None else 100.0
+    count = t.num("count", between(1.0, 10000.0))
+    mass = t.num("mass_per_person_t", between(0.060, 0.150, "t", "75 kg each, not below 60 kg: A.749 3.5.2.6"))
+    area = t.num("standing_area_m2", positive)
+    tcg = t.num("standing_tcg_m", between(0.0, half_b, "m", "from the centreline, at most half the breadth"))
+    speed = t.num("service_speed_kn", between(0.0, 60.0, "kn"))
+    t.finish()
+    if count is not None and count != int(count):
+        t.bad("count", t.data["count"], "must be a whole number of passengers")
+        count = None
+    if criteria is not None and criteria.ship_type != "passenger":
+        t.bad("count", t.data.get("count", MISSING), f"[passengers] is for ship_type = \"passenger\" "
+              f"(the profile says {criteria.ship_type!r})")
+        return None
+    if None in (count, mass, area, tcg, speed):
+        return None
+    return m.PassengerData(int(count), mass, area, tcg, speed)
 
 
 def _read_load_lines(root: Table, hydro: m.HydrostaticTable | None, frame: Frame | None, rd: Reading) -> list[m.LoadLine]:
@@ -492,7 +654,8 @@ def _read_limit_curve(root: Table, hydro, frame: Frame | None, rd: Reading) -> m
     t = root.table("limit_curve", required=False)
     if t is None:
         return None
-    attach_csv(t, ("displacement_t", "draft_m", "max_kg_m", "min_gm_m"))
+    if not attach_csv(t, ("displacement_t", "draft_m", "max_kg_m", "min_gm_m")):
+        return None
     f = read_frame(t, frame, drafts=True)
     disp, against = _abscissa(t, hydro, f, rd, "limit_curve")
     kinds = [k for k in ("max_kg_m", "min_gm_m") if t.has(k)]
@@ -533,7 +696,8 @@ def _read_downflooding(root: Table, hydro, frame: Frame | None, rd: Reading) -> 
         d = hydro.displacement_t
         return m.LimitCurve(displacement_t=m.frozen_array([d[0], d[-1]]), value=m.frozen_array([ang, ang]),
                             kind="downflooding_deg")
-    attach_csv(t, ("displacement_t", "draft_m", "angle_deg"))
+    if not attach_csv(t, ("displacement_t", "draft_m", "angle_deg")):
+        return None
     f = read_frame(t, frame, drafts=True)
     disp, against = _abscissa(t, hydro, f, rd, "downflooding")
     ang = t.array("angle_deg", angle_rule)
@@ -545,11 +709,11 @@ def _read_downflooding(root: Table, hydro, frame: Frame | None, rd: Reading) -> 
 
 
 def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,
-                rd: Reading) -> list[m.Tank]:
+                rd: Reading, depth_m: float) -> list[m.Tank]:
     entries = []
     complete = True
     for t in root.tables("tank"):
-        kw, ok_tank = _read_tank(t, fs, ids, frame, rd)
+        kw, ok_tank = _read_tank(t, fs, ids, frame, rd, depth_m)
         entries.append((t, kw))
         complete &= ok_tank
     ok = check_tank_pairs([(t, kw["id"], kw.get("pair")) if kw is not None else (t, None, None) for t, kw in entries])
@@ -580,8 +744,12 @@ def _fsm_max(t: Table) -> tuple[float | None, str, bool]:
     return None, "none", True
 
 
+PIPE_HEAD_M = 2.0
+"""How far a sounding-pipe head (an ullage reference) may stand above the deck (m): common practice."""
+
+
 def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,
-               rd: Reading) -> tuple[dict | None, bool]:
+               rd: Reading, depth_m: float) -> tuple[dict | None, bool]:
     """The Tank's keyword arguments and whether they are complete (else only id and pair)."""
     ident = claim_id(t, "tank", ids)
     kw: dict[str, Any] = dict(id=ident, name=t.text("name"))
@@ -599,17 +767,21 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], 
     kw["fs_category"] = t.text("fs_category", required=False, default=default_cat, choices=("fixed", "variable"))
     kw["worst_band_pct"] = _band(t, "worst_band_pct", None if fs is None else fs.default_worst_band_pct)
     f = read_frame(t, frame, sides=True)
-    level_rule = between(-5.0, 30.0, "m", "a height within the tank, from its lowest point")
-    kw["sounding_zero_m"] = t.num("sounding_zero_m", level_rule, required=False, default=0.0)
-    kw["ullage_reference_m"] = t.num("ullage_reference_m", positive, at_most(30.0, "m (a height within the vessel)"),
-                                     required=False, default=None)
+    # Both are heights from the tank's lowest point, so within the vessel's depth; a sounding-pipe
+    # head may stand above the deck (allowance PIPE_HEAD_M, common practice).
+    zero_rule = between(-depth_m, depth_m, "m", "the sounding zero's height from the tank's lowest point, "
+                        "within the vessel's depth")
+    ref_rule = between(0.0, depth_m + PIPE_HEAD_M, "m", "the ullage reference's height above the tank's lowest point: "
+                       f"within the depth plus {num(PIPE_HEAD_M)} m of sounding-pipe head")
+    kw["sounding_zero_m"] = t.num("sounding_zero_m", zero_rule, required=False, default=0.0)
+    kw["ullage_reference_m"] = t.num("ullage_reference_m", positive, ref_rule, required=False, default=None)
     bad_level = (t.has("sounding_zero_m") and kw["sounding_zero_m"] is None) or (t.has("ullage_reference_m") and kw["ullage_reference_m"] is None)
     max_fsi, fsi_given, fsm_ok = _fsm_max(t)
     where = t.name
     capacity_only = not t.has("calibration")
     if capacity_only:
         # A small tank known only by its capacity and centre (booklet's "capacity only" list).
-        lcg = _x(t, "lcg_m", f, rd, where)
+        lcg = _x(t, "lcg_m", f)
         vcg = t.num("vcg_m", above_keel)
         tcg, marked = tcg_num(t, "tcg_m", f)
         t.get("calibration", False)
@@ -626,6 +798,8 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], 
                 fsi_m4=m.frozen_array([fsi, fsi]))
             kw["level_known"] = False
             kw["fsi_given"] = fsi_given
+            if fsi_given == "none" and not t.has("worst_band_pct"):
+                kw["worst_band_pct"] = (0.0, 0.0)  # no free surface, so no worst slack band to warn of
             fs_words = (f"free surface: the given maximum {num(fsi)} m⁴ at every slack fill" if fsi_given == "max"
                         else "no free surface given: counted as nil")
             rd.assumptions.append(f"{where}: capacity and centre only: centre fixed at every fill; {fs_words}; "
@@ -673,7 +847,8 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
     the bottom gets a row 'level 0, volume 0' with the first row's centres (conservative).
     """
     where = t.name
-    attach_csv(t, CAL_COLUMNS)
+    if not attach_csv(t, CAL_COLUMNS):
+        return None
     f = read_frame(t, tank_frame, sides=True)
     tr = TableReading(f or Frame(1.0), csv=t.data.get("csv"))
     levels_given = [k for k in ("sounding_m", "ullage_m") if t.has(k)]
@@ -846,14 +1021,14 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
     out, ok = [], True
     for t in root.tables("hold"):
         ident = claim_id(t, "hold", ids)
-        attach_csv(t, HOLD_FILL_COLUMNS)
+        fill_read = attach_csv(t, HOLD_FILL_COLUMNS)
         f = read_frame(t, frame, sides=True)
         tcg, marked = tcg_num(t, "tcg_m", f)
         kw: dict[str, Any] = dict(
             id=ident,
             name=t.text("name"),
             capacity_m3=t.num("capacity_m3", positive),
-            lcg_m=_x(t, "lcg_m", f, rd, t.name),
+            lcg_m=_x(t, "lcg_m", f),
             vcg_m=t.num("vcg_m", above_keel),
             tcg_m=tcg,
         )
@@ -883,7 +1058,7 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
                 cols["fill_pct"] = fill
                 fill_ok = t.same_length("fill_pct", cols)
         t.finish()
-        if (not fill_ok or f is None or any(v is None for k, v in kw.items() if k != "max_mass_t")
+        if (not fill_ok or not fill_read or f is None or any(v is None for k, v in kw.items() if k != "max_mass_t")
                 or (has_max and kw["max_mass_t"] is None)):
             ok = False
             continue
@@ -909,7 +1084,7 @@ def _read_deck_areas(root: Table, ids: dict[str, str], frame: Frame | None, rd: 
             id=ident,
             name=t.text("name"),
             area_m2=t.num("area_m2", positive),
-            lcg_m=_x(t, "lcg_m", f, rd, t.name),
+            lcg_m=_x(t, "lcg_m", f),
             deck_height_m=t.num("deck_height_m", above_keel),
             tcg_m=tcg,
         )

@@ -120,6 +120,12 @@ def _header(result: Result, vessel: Vessel, condition: Condition, stamp: str | N
         f"load line: {condition.load_line}\n"
     )
     t.append(f"Free surface: {fs}; GZ correction: {gzc}\n")
+    # What the profile assumed where its booklet gave less than the model needs (said plainly).
+    said = list(vessel.assumptions)
+    if result.gz_end_deg < 90.0:
+        said.append(f"KN tables end at {result.gz_end_deg:g}°: the GZ curve and its areas stop there")
+    if said:
+        t.append("Assumed from the profile: " + "; ".join(said) + "\n")
     where = []
     if stamp:
         where.append(f"Computed {stamp}")

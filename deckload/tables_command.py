@@ -46,7 +46,8 @@ PROFILE_FORMAT = "deckload-profile-1"
 
 TOP_ORDER = (
     "format", "vessel", "lightship", "hydrostatics", "cross_curves", "free_surface", "criteria",
-    "load_line", "limit_curve", "downflooding", "tank", "hold", "deck_area",
+    "load_line", "limit_curve", "downflooding", "deck_edge", "windage", "passengers", "extra_criterion",
+    "tank", "hold", "deck_area",
 )
 """Order of the top-level sections in a written profile; unknown keys follow in their own order."""
 
@@ -90,6 +91,19 @@ def generated_sections(vt: VesselTables) -> dict[str, Any]:
         out["downflooding"] = {
             "displacement_t": _r(vt.downflooding.displacement_t, 2),
             "angle_deg": _r(vt.downflooding.angle_deg, 2),
+        }
+    if vt.deck_edge is not None:
+        out["deck_edge"] = {
+            "displacement_t": _r(vt.deck_edge.displacement_t, 2),
+            "angle_deg": _r(vt.deck_edge.angle_deg, 2),
+        }
+    if vt.windage is not None:
+        w = vt.windage
+        out["windage"] = {
+            "draft_m": _r(w.draft_m, 4),
+            "lateral_area_m2": _r(w.lateral_area_m2, 2),
+            "centroid_above_wl_m": _r(w.centroid_above_wl_m, 4),
+            "waterline_length_m": _r(w.waterline_length_m, 3),
         }
     tanks = []
     for t in vt.tanks:
@@ -188,7 +202,7 @@ def merge_profile(existing: dict[str, Any] | None, gen: dict[str, Any], vt: Vess
     vessel.setdefault("design_draft_m", _r(gv.design_draft_m, 4))
     vessel.setdefault("longitudinal_datum", "AP")
     new["vessel"] = vessel
-    for key in ("hydrostatics", "cross_curves", "downflooding"):
+    for key in ("hydrostatics", "cross_curves", "downflooding", "deck_edge", "windage"):
         if key in gen:
             new[key] = gen[key]
     for key, label in (("tank", "tank"), ("hold", "hold"), ("deck_area", "deck area")):

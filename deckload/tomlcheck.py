@@ -366,6 +366,8 @@ class FileCheck:
         """Keys whose values came from another file (a CSV table): key path → locator.
         A locator maps the element path within the key ((row,) or (row, column)) to
         (file, line, column label, the cell as written) for the problem report."""
+        self.unread_csv: set[tuple] = set()
+        """Tables whose CSV file could not be read: their missing columns are not reported again."""
 
     def fmt(self, v: Any) -> str:
         return self.wording.value(v)
@@ -441,7 +443,7 @@ class Table:
         if k not in self.asked:
             self.asked.append(k)
         if k not in self.data:
-            if required:
+            if required and self.raw not in self.ctx.unread_csv:
                 self.bad(k, MISSING, self.ctx.wording.missing)
             return MISSING
         return self.data[k]

@@ -160,9 +160,13 @@ def test_a_displacement_digit_slip_contradicts_tpc():
 
 
 def test_kmt_above_what_the_waterplane_allows():
-    """KMt 10× (a slipped decimal): above VCB + A·B²/(12∇), the rectangle bound (derived in audit.py)."""
+    """KMt 10× (a slipped decimal): above VCB + A·B²/(4∇), the bound for any waterplane (an error);
+    KMt 1.2×: above the single-hull bound VCB + A·B²/(12∇), which the box meets exactly (a doubt:
+    a multihull may exceed it).  Bounds derived in audit.py."""
     v = vessel()
     assert ("hydro-kmt", ERROR) in checks(with_hydro(v, kmt_m=np.array(v.hydrostatics.kmt_m) * 10))
+    found = checks(with_hydro(v, kmt_m=np.array(v.hydrostatics.kmt_m) * 1.2))
+    assert ("hydro-kmt", WARNING) in found and ("hydro-kmt", ERROR) not in found
 
 
 def test_mctc_against_the_waterplane_and_kml():
@@ -268,3 +272,12 @@ def test_a_finding_in_a_csv_table_points_at_the_csv_line(tmp_path):
     hit = the(found, "tank-fsi")
     assert (hit.file, hit.line) == (str(tank), 2) and hit.finding.key == "tank[DB1P].calibration.fsi_m4"
     assert hit.finding.severity == ERROR
+
+
+def test_free_surface_non_zero_when_empty(tmp_path):
+    """An FSM typed against the empty row (20 m⁴ at volume 0, 2.667 m⁴ above; under the box bound 28.2 m⁴): a doubt."""
+    base = "fsi_m4 = [2.6666666666666665, 2.6666666666666665,"
+    text = fv22_text().replace(base, "fsi_m4 = [20.0, 2.6666666666666665,", 1)
+    hit = the(findings(tmp_path, text)[1], "tank-fsi-empty")
+    assert hit.finding.severity == WARNING and hit.finding.key == "tank[FO1P].calibration.fsi_m4"
+    assert "non-zero when empty" in hit.finding.why

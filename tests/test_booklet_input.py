@@ -433,10 +433,12 @@ def test_csv_shape_problems(tmp_path):
     assert any(s.startswith(f"{tmp_path / 'tables' / 'hydrostatics.csv'}:5: ") and "row has 6 cells but the header has 7" in s
                for s in msgs), msgs
     assert any("'kn_sixty'" in s and "unknown column (column 8)" in s for s in msgs), msgs
+    path = booklet_profile(tmp_path)  # the two sheets mended
     (tmp_path / "tables" / "DB1P.csv").unlink()
     with pytest.raises(ProfileError) as ei:
         load_profile(path)
-    assert any("cannot read the CSV file" in p.rule for p in ei.value.problems)
+    (p,) = ei.value.problems  # the unread file alone: not its columns again as 'missing'
+    assert p.key == "tank[DB1P].calibration.csv" and p.rule.startswith("cannot read the CSV file")
 
 
 def _cells(path: Path) -> list[list[str]]:
@@ -494,3 +496,108 @@ def test_tables_refreshed_from_geometry_keep_their_own_datum_in_a_midships_profi
         assert np.array_equal(a.calibration.stacked(), b.calibration.stacked()), a.id
     assert np.array_equal(v.hydrostatics.lcb_m, demo.hydrostatics.lcb_m)
     assert v.lightship.lcg_m == demo.lightship.lcg_m + demo.particulars.lbp_m / 2  # hand-entered: from midships
+
+
+def test_the_report_says_what_was_assumed_and_where_the_curve_stops():
+    """The printed report carries the profile's assumptions and the KN end, beside the booklet caution."""
+    from deckload.report import render_report_text
+
+    text = KN60 + SMALL[len(BASE):]
+    v = parse_profile(text, "kn60small.toml")
+    c = cond(v, HOLD_420 + "[tanks.LO1]\npercent = 50.0\n")
+    r = evaluate(v, c)
+    out = " ".join(render_report_text(r, v, c).split())
+    assert "Assumed from the profile: tank[LO1]: capacity and centre only" in out
+    assert "KN tables end at 60°: the GZ curve and its areas stop there" in out
+    assert not any(w.code == "slack-worst-band" for w in r.warnings)  # no free surface given: no worst band
+
+
+def test_curves_against_draft_and_a_hold_fill_table_round_trip_through_csv(tmp_path, capsys):
+    """Downflooding and limiting KG against extreme draft, and a hold's fill table from midships, typed
+    in CSV: read, written back by `deckload csv`, the same numbers (the draft → displacement look-up
+    is linear in the hydrostatic table and inverted exactly on it, up to round-off at 10 digits)."""
+    _write(tmp_path / "df.csv", "draft_m,angle_deg\n1.02,40\n2.02,35\n3.02,30\n")
+    _write(tmp_path / "lim.csv", "draft_m,max_kg_m\n1.02,3.5\n2.52,3.1\n3.02,2.8\n")
+    _write(tmp_path / "hold.csv", "fill_pct,fill_vcg_m,fill_lcg_m\n0,0,7.5\n50,1.0,7.5\n100,2.0,7.4\n")
+    text = edit(BASE, 'longitudinal_datum = "AP"', 'longitudinal_datum = "AP"\nkeel_thickness_m = 0.02')
+    text = edit(text, "[free_surface]", '[downflooding]\ncsv = "df.csv"\ndraft_basis = "extreme"\n\n'
+                '[limit_curve]\ncsv = "lim.csv"\ndraft_basis = "extreme"\n\n[free_surface]')
+    text = edit(text, "lcg_m = 27.5\nvcg_m = 2.5", 'lcg_m = 7.5\nvcg_m = 2.5\ncsv = "hold.csv"\n'
+                'longitudinal_datum = "midships"\nlongitudinal_positive = "forward"')
+    path = _write(tmp_path / "curves.toml", text)
+    v = load_profile(path)
+    assert v.downflooding.displacement_t[1] == pytest.approx(820.0, abs=1e-9)  # extreme 2.02 = moulded 2.00 m
+    assert list(v.hold("H1").fill_lcg_m) == [27.5, 27.5, 27.4]  # 20 + x from midships
+    assert main(["csv", str(path), str(tmp_path / "out")]) == 0
+    for mine, theirs in (("downflooding.csv", "df.csv"), ("limit_curve.csv", "lim.csv"), ("hold_H1_fill.csv", "hold.csv")):
+        a, b = _cells(tmp_path / "out" / mine), _cells(tmp_path / theirs)
+        assert a[0] == b[0] and len(a) == len(b), mine
+        for ra, rb in zip(a[1:], b[1:]):
+            assert all(float(x) == float(y) for x, y in zip(ra, rb)), (mine, ra, rb)
+
+
+def test_calc_says_the_curve_ends_and_the_vanishing_angle_is_beyond(tmp_path, capsys):
+    prof = _write(tmp_path / "kn60.toml", KN60)
+    c = _write(tmp_path / "c.condition.toml", 'format = "deckload-condition-1"\n[condition]\nname = "c"\n'
+               "water_density_t_m3 = 1.025\n" + HOLD_420)
+    assert main(["calc", str(prof), str(c)]) == 0
+    out = capsys.readouterr().out
+    assert "vanishing beyond 60°" in out
+    assert "GZ curve ends at 60°, the last angle of the KN tables: nothing beyond is known" in out
+
+
+def test_a_semicolon_separated_sheet_is_refused_with_the_reason(tmp_path):
+    path = booklet_profile(tmp_path)
+    _write(tmp_path / "tables" / "kn.csv", KN_CSV.replace(",", ";"))
+    with pytest.raises(ProfileError) as ei:
+        load_profile(path)
+    (p,) = ei.value.problems
+    assert p.file == str(tmp_path / "tables" / "kn.csv") and p.line == 1
+    assert p.rule.startswith("the cells are separated by ';'")
+
+
+async def test_the_screen_takes_an_ullage_and_shows_a_short_curve(tmp_path):
+    """On the loading screen `0.7u` states DB1P by ullage (level 0.5 m → 25 m³, derived above); the
+    vessel has KN to 60° and a capacity-only tank, and the GZ caption says the zero lies beyond 60°."""
+    from deckload.ui import views
+    from deckload.ui.launch import create_app
+    from deckload.ui.widgets import LinePanel, LoadBoard
+
+    text = edit(KN60, 'pair = "DB1S"\n', 'pair = "DB1S"\nullage_reference_m = 1.2\n') + SMALL[len(BASE):]
+    v = parse_profile(text, "screen.toml")
+    c0 = cond(v, HOLD_420)
+    app = create_app(v, c0, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    async with app.run_test(size=(120, 40)) as pilot:
+        assert app.screen.query_one(LoadBoard).cursor_key == ("tank", "DB1P")
+        await pilot.press("enter")
+        await pilot.press(*"0.7u", "enter")
+        await pilot.pause()
+        assert app.session.condition.tank_fill("DB1P") == m.TankFill("DB1P", "ullage_m", 0.7)
+        db1p = next(t for t in app.session.result.tanks if t.id == "DB1P")
+        assert db1p.volume_m3 == pytest.approx(25.0, rel=1e-12)
+        assert app.session.result.gz_end_deg == 60.0
+        assert "DB1P set to" in app.screen.query_one("#status", LinePanel).plain()
+        assert "zero beyond 60° (KN end)" in views.gz_caption(app.session.result).plain
+
+
+async def test_profile_constants_show_on_the_board_and_cannot_be_edited_there(tmp_path):
+    from deckload.ui.launch import create_app
+    from deckload.ui.widgets import LinePanel, LoadBoard
+
+    text = BASE + '\n[[constant]]\nname = "Crew and effects"\nmass_t = 2.0\nlcg_m = 20.0\nvcg_m = 5.0\n'
+    v = parse_profile(text, "const.toml")
+    app = create_app(v, cond(v, HOLD_420), work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    async with app.run_test(size=(120, 40)) as pilot:
+        b = app.screen.query_one(LoadBoard)
+        assert any(r.key == ("fixed", 0) and "Crew and effects" in r.text.plain for r in b.rows)
+        assert app.session.result.displacement_t == 822.0
+        for _ in range(len(b.rows)):
+            if b.cursor_key == ("fixed", 0):
+                break
+            await pilot.press("down")
+        assert b.cursor_key == ("fixed", 0)
+        c0 = app.session.condition
+        await pilot.press("enter")
+        await pilot.pause()
+        assert app.session.condition is c0
+        assert "fixed constant of the vessel profile" in app.screen.query_one("#status", LinePanel).plain()

@@ -409,7 +409,7 @@ def test_check_does_not_read_a_condition_against_a_broken_profile(tmp_path, caps
 # --------------------------------------------------------------------------- the demo vessel
 
 DEMO_DIRS = [HERE.parent / "vessel_profiles", HERE.parent / "deckload" / "data"]
-DEMO_CONDITIONS = ("departure", "midvoyage", "arrival")
+DEMO_CONDITIONS = ("departure", "midvoyage", "arrival", "light")
 
 
 @pytest.mark.parametrize("folder", DEMO_DIRS, ids=["vessel_profiles", "package_data"])

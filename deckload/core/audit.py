@@ -167,6 +167,11 @@ than 20 % / 50 % of that line's value, along the heel AND along the displacement
 neighbours).  A decimal slip is 90 % or 900 %; the sharpest real bend (deck-edge immersion at 15°
 spacing on a box) is about 20 % along heel only (derived from checks.md §1.2 values)."""
 
+EMPTY_FSI_RISE = 1.1
+"""Warning: at the empty row (volume 0) the free surface is the limit from inside, the tank's
+bottom; a tank widens upward from its bottom (or keeps its breadth), so a value more than 10 %
+above the next row's is a doubt — an FSM typed against the empty row (derived; 10 % for rounding)."""
+
 FSI_BOX_ALLOWANCE = 1.1
 """Warning: fsi above 1.1 × A·B²/12, the inertia of a box-shaped free surface of the tank's own
 area A (from its calibration) and the ship's breadth B (issue 8's bound l·b³/12, b ≤ B); 10 % for
@@ -434,17 +439,19 @@ class _Audit:
                          f"{what} falls from {arr[r - 1]:.5g} as the draft rises (it rises on a flared hull; "
                          "tumblehome above the waterline can make it fall)", row(r), "hydro-rise")
 
-        # KMt against KB + BMt.  Derived bounds for a single hull with waterplane area
-        # A = 100·TPC/ρ, half-breadths y(x) ≤ B/2, waterline length ≤ 1.2·LBP:
-        #   I_T = ∫(2/3)y³dx = ∫(1/3)y²·2y dx ≤ (B²/12)·A                       (upper)
-        #   I_T ≥ (2/3)(∫y dx)³/Lwl² = A³/(12·Lwl²)  (Hölder/power mean)         (lower)
-        # and BMt = I_T/∇ with ∇ = Δ/ρ.  Without VCB, KB lies between 0 and T.
+        # KMt against KB + BMt.  Derived bounds with waterplane area A = 100·TPC/ρ, every
+        # point of it within the breadth B, waterline length ≤ 1.2·LBP, ∇ = Δ/ρ, BMt = I_T/∇:
+        #   any waterplane:  I_T = A·var(y) ≤ A·B²/4  (Popoviciu)                 → error above
+        #   single hull (half-breadths y(x) ≤ B/2): I_T = ∫(2/3)y³dx ≤ (B²/12)·A   → warning above
+        #   any waterplane:  I_T ≥ ∫w³/12 dx ≥ A³/(12·Lwl²)  (area packed on the centreline; Hölder)
+        # Without VCB, KB lies between 0 and T.
         for i in range(len(T)):
             if T[i] <= 0 or disp[i] <= 0:
                 continue
             area = 100.0 * float(tpc[i]) / rho
             vol = float(disp[i]) / rho
-            bm_hi = area * B * B / 12.0 / vol
+            bm_any = area * B * B / 4.0 / vol
+            bm_mono = area * B * B / 12.0 / vol
             lwl = WATERLINE_LENGTH_MAX * L
             bm_lo = area ** 3 / (12.0 * lwl * lwl) / vol
             a = METACENTRE_ALLOWANCE
@@ -453,14 +460,18 @@ class _Audit:
             else:
                 kb_lo, kb_hi = 0.0, float(T[i])
             km = float(kmt[i])
-            if km > (kb_hi + bm_hi) * (1 + a) or km < (kb_lo + bm_lo) * (1 - a):
-                high = km > (kb_hi + bm_hi) * (1 + a)
-                bound = kb_hi + bm_hi if high else kb_lo + bm_lo
-                self.add(ERROR, "hydrostatics.kmt_m", hp + ("kmt_m", i), _f(km),
-                         f"{'above' if high else 'below'} what KB + BMt allows at {T[i]:.4g} m ({_f(bound)}): "
-                         f"BMt = I_T/∇ {'≤ A·B²/12' if high else '≥ A³/(12·Lwl²)'} with A = 100·TPC/ρ = {area:.4g} m² "
-                         "(single hull)", row(i), "hydro-kmt")
-                break
+            if km > (kb_hi + bm_any) * (1 + a):
+                sev, bound, rule = ERROR, kb_hi + bm_any, "BMt = I_T/∇ ≤ A·B²/(4∇) for any waterplane within the breadth"
+            elif km < (kb_lo + bm_lo) * (1 - a):
+                sev, bound, rule = ERROR, kb_lo + bm_lo, "BMt = I_T/∇ ≥ A³/(12·Lwl²·∇) for any waterplane"
+            elif km > (kb_hi + bm_mono) * (1 + a):
+                sev, bound, rule = WARNING, kb_hi + bm_mono, "BMt ≤ A·B²/(12∇) for a single hull (a multihull may exceed it)"
+            else:
+                continue
+            self.add(sev, "hydrostatics.kmt_m", hp + ("kmt_m", i), _f(km),
+                     f"{'below' if km < bound else 'above'} what KB + BMt allows at {T[i]:.4g} m ({_f(bound)}): "
+                     f"{rule}, with A = 100·TPC/ρ = {area:.4g} m²", row(i), "hydro-kmt")
+            break
 
         # MCTC against the waterplane and against KML.
         self._check_mctc(row)
@@ -653,6 +664,11 @@ class _Audit:
                             else f"a box of that area {B:g} m wide has A·B²/12 = {box:.4g} m⁴"),
                          look, "tank-fsi")
                 return
+        if not constant and v[0] == 0 and fsi[0] > EMPTY_FSI_RISE * fsi[1] + 1e-9:
+            self.add(WARNING, f"tank[{t.id}].calibration.fsi_m4", ("tank", i, "calibration", "fsi_m4", 0),
+                     f"{float(fsi[0]):.5g} m⁴ at the empty row",
+                     f"non-zero when empty and larger than just above ({float(fsi[1]):.5g} m⁴): an empty tank has no "
+                     "free surface, and its bottom-most surface is no larger than the one above it", look, "tank-fsi-empty")
 
     def tank_centres(self, i: int, t: Tank):
         """The liquid added between two calibration rows lies inside the ship and inside its layer.

@@ -76,7 +76,8 @@ class Particulars:
     table_density_t_m3: float = 1.025
     """Water density the hydrostatic and cross-curve tables were made for (t/m³)."""
     longitudinal_datum: str = "aft perpendicular, positive forward"
-    """The datum of every x coordinate in the profile (informative; always AP here)."""
+    """How the profile's x coordinates were written (informative): the model's x are always
+    from the AP, + forward, converted on load."""
     vessel_type: str = ""
     """Free text: the kind of vessel (e.g. 'coastal island-supply vessel')."""
     remark: str = ""
@@ -298,12 +299,82 @@ class LimitCurve:
     """'max_kg_m', 'min_gm_m' or 'downflooding_deg'."""
 
 
+SHIP_TYPES: tuple[str, ...] = ("general", "fishing", "passenger", "offshore_supply")
+"""Vessel types that choose the criteria sets (see :data:`deckload.core.criteria.SETS_BY_TYPE`)."""
+
+EXTRA_KINDS: tuple[str, ...] = (
+    "min_gm", "min_area", "min_gz_at", "min_max_gz", "min_angle_max_gz",
+    "min_range", "max_static_heel", "max_wind_heel",
+)
+"""What a flag-State or class criterion written in the profile may measure."""
+
+
+@dataclass(frozen=True)
+class ExtraCriterion:
+    """A flag-State or class criterion written in the profile as data (no code change needed)."""
+
+    kind: str
+    """One of :data:`EXTRA_KINDS`: min_gm (GM0 fluid, m), min_area (area under GZ between
+    ``from_deg`` and ``to_deg``, m·rad), min_gz_at (GZ at ``at_deg``, m), min_max_gz (m),
+    min_angle_max_gz (deg), min_range (range of positive stability, deg), max_static_heel
+    (the list, deg), max_wind_heel (θ0 under the steady wind lw1 of Part A 2.3, deg)."""
+    limit: float
+    """The limit in the kind's unit."""
+    source: str
+    """Where the rule comes from, e.g. 'Flag State notice 4/2021 para 3'."""
+    from_deg: float = 0.0
+    to_deg: float = 0.0
+    at_deg: float = 0.0
+
+
+@dataclass(frozen=True)
+class PassengerData:
+    """Inputs of the passenger-ship heel criteria, IS 2008 Part A 3.1."""
+
+    count: int
+    """Number of passengers."""
+    mass_per_person_t: float
+    """Mass of one passenger (t); 0.075 t (A.749 3.5.2.6), not below 0.060 t."""
+    standing_area_m2: float
+    """Deck area on one side where passengers may crowd (m²)."""
+    standing_tcg_m: float
+    """Distance of the centroid of that area from the centreline (m)."""
+    service_speed_kn: float
+    """Service speed (knots) for the heel when turning."""
+
+
+@dataclass(frozen=True, eq=False)
+class Windage:
+    """Lateral windage against draft (even keel), for the weather criterion of IS 2008 Part A 2.3."""
+
+    draft_m: np.ndarray
+    """Mean moulded draft (m), strictly increasing."""
+    lateral_area_m2: np.ndarray
+    """A: projected lateral area of hull and superstructure above the waterline (m²)."""
+    centroid_above_wl_m: np.ndarray
+    """Height of the centre of A above the waterline (m)."""
+    waterline_length_m: np.ndarray
+    """Lwl: length of the waterline (m)."""
+
+
 @dataclass(frozen=True)
 class CriteriaSettings:
     code: str = "IS2008-A2.2"
-    """Criteria set; 'IS2008-A2.2' = IS Code 2008 Part A 2.2 general criteria."""
+    """Legacy key: 'IS2008-A2.2' (still accepted) means the general criteria."""
     min_gm_m: float | None = None
     """Stricter minimum GM0 (m) where the Administration requires one (e.g. 0.35 fishing)."""
+    ship_type: str = "general"
+    """One of :data:`SHIP_TYPES`: chooses the criteria sets."""
+    wind_pressure_pa: float | None = None
+    """Wind pressure P (Pa) for Part A 2.3 when the Administration allows another than 504 Pa."""
+    bilge_keel_area_m2: float = 0.0
+    """Ak: total area of bilge keels, or lateral projection of a bar keel, or the sum (m²); 0 = none."""
+    sharp_bilged: bool = False
+    """A sharp-bilged ship (k = 0.7 in the roll angle)."""
+    complete_superstructure: bool = False
+    """Fishing vessels: a complete superstructure (GM0 may then be below 0.35 m, never below 0.15 m)."""
+    extra: tuple[ExtraCriterion, ...] = ()
+    """Flag-State or class criteria written in the profile."""
 
 
 @dataclass(frozen=True)
@@ -339,6 +410,12 @@ class Vessel:
     limit_curve: LimitCurve | None = None
     downflooding: LimitCurve | None = None
     criteria: CriteriaSettings = CriteriaSettings()
+    windage: Windage | None = None
+    """Lateral windage table for the weather criterion, if the profile has one."""
+    deck_edge: LimitCurve | None = None
+    """Deck-edge immersion angle against displacement (kind 'deck_edge_deg'), if the profile has one."""
+    passengers: PassengerData | None = None
+    """Passenger data for IS 2008 Part A 3.1 (passenger ships)."""
     free_surface: FreeSurfaceSettings = FreeSurfaceSettings()
     constants: tuple[MassItem, ...] = ()
     """Fixed constants (crew and effects, stores, provisions) in every condition; a

@@ -146,6 +146,12 @@ class WeatherResult:
     r: float
     s: float
     deck_edge_angle_deg: float | None = None
+    theta_r_deg: float | None = None
+    """First intercept of lw2 with GZ: where area a ends and area b begins (None: GZ never reaches lw2)."""
+    windage_centroid_above_wl_m: float | None = None
+    """Height of the centre of A above the waterline (m)."""
+    waterline_length_m: float | None = None
+    """Lwl used for C, Cb and Ak·100/(L·B) (m)."""
 
 
 @dataclass(frozen=True)

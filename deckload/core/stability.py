@@ -21,7 +21,7 @@ from dataclasses import replace
 import numpy as np
 
 from deckload.core import gz as gzmod
-from deckload.core.criteria import Measures, evaluate_criteria, limit_curve_criterion
+from deckload.core.criteria import Measures, limit_curve_criterion
 from deckload.core.free_surface import BASIS_NONE, free_surface, transfer_moment_m4
 from deckload.core.hydrostatics import (
     draft_at,
@@ -35,6 +35,7 @@ from deckload.core.loading import LoadingError, hold_item, resolve_tanks, sum_we
 from deckload.core.model import Condition, Vessel, effective_constants
 from deckload.core.result import ItemResult, Result, TankResult, Warning
 from deckload.core.tables import OutOfRangeError, bracket, interp, lerp_row
+from deckload.core.verdict import Afloat, assess, deck_edge_angle
 
 LIST_WARNING_DEG = 2.0
 NEAR_LIMIT_FRACTION = 0.10
@@ -161,10 +162,10 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
 
     # A curve with no positive GZ has no meaningful 'angle of maximum': it fails 2.2.3.
     angle_of_max = f.max_gz_angle_deg if f.max_gz_m > 0.0 else 0.0
-    measures = Measures(a30, a40, a3040, gz30, angle_of_max, gm_fluid)
-    criteria = list(evaluate_criteria(vessel.criteria.code, measures, vessel.criteria.min_gm_m))
-    if gz_end < 90.0 - 1e-9:
-        criteria = _short_curve(criteria, gz_end, hi, top, f.max_gz_angle_deg)
+    # Area to the angle of maximum GZ (or θf if less), for the OSV set of Part B 2.4.5.
+    a_max = gzmod.area_to(gz, min(angle_of_max, flood) if flood is not None else angle_of_max)
+    measures = Measures(a30, a40, a3040, gz30, angle_of_max, gm_fluid, a_max)
+    limit_rows = []
     if vessel.limit_curve is not None:
         lim = _curve_limit(vessel.limit_curve, hy.table_displacement_t)
         if lim is None:
@@ -172,7 +173,24 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
                                     f"displacement {disp:.1f} t is outside the limiting curve: that check was not made",
                                     "danger"))
         else:
-            criteria.append(limit_curve_criterion(vessel.limit_curve.kind, lim, kg_fluid, gm_fluid))
+            limit_rows.append(limit_curve_criterion(vessel.limit_curve.kind, lim, kg_fluid, gm_fluid))
+    deck_edge, deck_edge_note = deck_edge_angle(vessel, hy.table_displacement_t, t_mid)
+    if deck_edge_note:
+        warnings.append(Warning("deck-edge-approximate", deck_edge_note, "caution"))
+    afloat = Afloat(
+        displacement_t=disp, water_density_t_m3=rho_w, draft_mid_m=t_mid, kg_fluid_m=kg_fluid,
+        gm_fluid_m=gm_fluid, heel_deg=fine_deg, gz_lee_m=gz,
+        gz_other_m=gz_stbd if side == "port" else gz_port, flood_deg=flood, deck_edge_deg=deck_edge,
+        measures=measures, max_gz_m=f.max_gz_m, vanishing_deg=f.vanishing_angle_deg,
+        equilibrium_deg=f.equilibrium_deg, has_deck_cargo=bool(condition.deck_items),
+    )
+    verdict = assess(vessel, afloat, limit_rows)
+    criteria = list(verdict.criteria)
+    if gz_end < 90.0 - 1e-9:
+        criteria = _short_curve(criteria, gz_end, hi, top, f.max_gz_angle_deg)
+    for note in verdict.cautions:
+        code = "weather-not-assessed" if "not assessed" in note else "verdict-note"
+        warnings.append(Warning(code, note, "caution"))
 
     # The list is where the GZ curve on the low side rises through zero: for small
     # angles this is tanφ = TCG/GM fluid (standards.md §6.3), and it stays right at
@@ -199,7 +217,8 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
         warnings.append(Warning("fs-rule-actual",
                                 "free surface at actual levels (IS 2008 B 3.1.6): the B 3.1.3–3.1.4 allowance "
                                 "for consumables is off", "caution"))
-    warnings = _warnings(vessel, condition, tanks, criteria, items, heel, t_mid) + warnings
+    allowed = _allowed_draft(vessel, condition)
+    warnings = _warnings(vessel, condition, tanks, criteria, items, heel, t_mid, allowed) + warnings
 
     return Result(
         vessel_name=vessel.particulars.name,
@@ -245,7 +264,26 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
         tanks=tanks,
         items=tuple(items),
         warnings=tuple(warnings),
+        criteria_sets=verdict.sets,
+        not_assessed=verdict.not_assessed,
+        weather=verdict.weather,
+        deck_edge_angle_deg=deck_edge,
+        freeboard_m=vessel.particulars.depth_m - t_mid,
+        load_line_margin_m=None if allowed is None or allowed[1] is None else allowed[1] - t_mid,
     )
+
+
+def _allowed_draft(vessel: Vessel, condition: Condition):
+    """(mark, permitted midships draft or None when the summer draft is off the table), or None without marks."""
+    marks = {m.name: m for m in vessel.load_lines}
+    mark = marks.get(condition.load_line) or marks.get("summer")
+    if mark is None:
+        return None
+    summer = marks.get("summer", mark)
+    try:
+        return mark, _permitted_draft(vessel, summer.draft_m, mark, condition.water_density_t_m3)
+    except OutOfRangeError:
+        return mark, None
 
 
 def _short_curve(criteria: list, end_deg: float, gz30_to_deg: float, area_to_deg: float,
@@ -274,11 +312,12 @@ def _short_curve(criteria: list, end_deg: float, gz30_to_deg: float, area_to_deg
     return out
 
 
-def _warnings(vessel, condition, tanks, criteria, items, heel, t_mid) -> list[Warning]:
+def _warnings(vessel, condition, tanks, criteria, items, heel, t_mid, allowed_draft) -> list[Warning]:
     out: list[Warning] = []
     for c in criteria:
         if not c.assessed:
-            out.append(Warning("criterion-not-assessed", f"NOT ASSESSABLE {c.description}: {c.note}", "danger"))
+            out.append(Warning("criterion-not-assessed",
+                               f"NOT ASSESSED {c.description}: {c.note} ({c.source})", "danger"))
         elif not c.passed:
             out.append(Warning("criterion-failed",
                                f"FAILED {c.description}: {c.value:.3f} {c.unit} against {c.limit:.3f} ({c.source})",
@@ -296,14 +335,10 @@ def _warnings(vessel, condition, tanks, criteria, items, heel, t_mid) -> list[Wa
     if abs(heel) > LIST_WARNING_DEG:
         out.append(Warning("list", f"list {abs(heel):.1f}° to {'starboard' if heel > 0 else 'port'} exceeds "
                                    f"{LIST_WARNING_DEG:.0f}°", "caution"))
-    marks = {m.name: m for m in vessel.load_lines}
-    mark = marks.get(condition.load_line) or marks.get("summer")
-    if mark is not None:
-        summer = marks.get("summer", mark)
-        try:
-            allowed = _permitted_draft(vessel, summer.draft_m, mark, condition.water_density_t_m3)
-        except OutOfRangeError:
-            out.append(Warning("load-line-range", f"{summer.name} load line lies outside the hydrostatic table",
+    if allowed_draft is not None:
+        mark, allowed = allowed_draft
+        if allowed is None:
+            out.append(Warning("load-line-range", "summer load line lies outside the hydrostatic table",
                                "caution"))
         else:
             if t_mid > allowed + 1e-9:

@@ -155,6 +155,8 @@ class LoadingScreen(Screen[None]):
             self._edit_hold(ident)
         elif what in ("deck", "const"):
             self._edit_item(what == "deck", ident)
+        elif what == "fixed":
+            self.say("A fixed constant of the vessel profile: to change it for this condition, add a constant (c) of the same name.", ok=False)
 
     def _edit_tank(self, tank_id: str) -> None:
         s = self.session
@@ -389,6 +391,8 @@ class LoadingScreen(Screen[None]):
             self.say(f"{ident} {self.session.vessel.hold(ident).name} · ⏎ cargo mass · + − 1 t · e empty", ok=None)
         elif what in ("deck", "const"):
             self.say("⏎ edit mass and position · + − 1 t · e remove · a add deck load · c add constant", ok=None)
+        elif what == "fixed":
+            self.say("A fixed constant of the vessel profile: to change it for this condition, add a constant (c) of the same name.", ok=None)
 
 
 def alert_lines(alerts: list[views.Alert], height: int) -> list[Text]:

@@ -155,6 +155,11 @@ def _cargo_rows(vessel: Vessel, condition: Condition, width: int) -> list[Row]:
         rows.append(Row(("deck", i), _item_line("deck ", item, getattr(item, "area_id", None), name_w)))
     for i, item in enumerate(condition.constants):
         rows.append(Row(("const", i), _item_line("const", item, None, name_w)))
+    # The profile's fixed constants this condition does not replace (read-only here).
+    own = {c.name for c in condition.constants}
+    for i, item in enumerate(vessel.constants):
+        if item.name not in own:
+            rows.append(Row(("fixed", i), _item_line("fixed", item, None, name_w)))
     return rows
 
 
