@@ -510,6 +510,7 @@ def test_the_report_says_what_was_assumed_and_where_the_curve_stops():
     assert "Assumed from the profile: tank[LO1]: capacity and centre only" in out
     assert "KN tables end at 60°: the GZ curve and its areas stop there" in out
     assert not any(w.code == "slack-worst-band" for w in r.warnings)  # no free surface given: no worst band
+    assert next(t for t in r.tanks if t.id == "LO1").fs_rule == "no free surface given in the profile (capacity only)"
 
 
 def test_curves_against_draft_and_a_hold_fill_table_round_trip_through_csv(tmp_path, capsys):
