@@ -43,6 +43,12 @@ def _parser() -> argparse.ArgumentParser:
     x = sub.add_parser("csv", help="write a profile's tables as CSV files, in the booklet's conventions, to compare")
     x.add_argument("profile", type=Path)
     x.add_argument("folder", type=Path, help="folder to write the CSV files in (created if missing)")
+    mk = sub.add_parser("marks", help="drafts at the marks; with readings, the displacement and LCG they imply")
+    mk.add_argument("profile", type=Path)
+    mk.add_argument("condition", type=Path)
+    for where in ("aft", "mid", "fwd"):
+        mk.add_argument(f"--{where}", nargs=2, type=_reading, metavar=("PORT", "STBD"),
+                        help=f"{where} draft readings, port and starboard (m, extreme)")
 
     r = sub.add_parser("report", help="printable loading-condition report")
     r.add_argument("profile", type=Path)
@@ -75,6 +81,19 @@ def _parser() -> argparse.ArgumentParser:
     ver.add_argument("--recover", action="store_true",
                      help="first set aside a torn last line (takes the writer's lock)")
     return p
+
+
+def _reading(text: str) -> float:
+    """A draft reading in metres: a finite number (the vessel's own bounds are checked later)."""
+    import math
+
+    try:
+        x = float(text)
+    except ValueError:
+        raise argparse.ArgumentTypeError(f"{text!r} is not a number of metres") from None
+    if not math.isfinite(x) or x < 0.0:
+        raise argparse.ArgumentTypeError(f"{text!r}: a draft reading must be a finite, non-negative number of metres")
+    return x
 
 
 def _demo_shorthand(args: argparse.Namespace) -> None:
@@ -114,6 +133,16 @@ def main(argv: list[str] | None = None) -> int:
             from deckload.csv_command import run_csv
 
             return run_csv(args.profile, args.folder)
+        if cmd == "marks":
+            from deckload.marks_command import run_marks
+
+            given = [args.aft, args.mid, args.fwd]
+            if any(g is not None for g in given) and not all(g is not None for g in given):
+                print("deckload marks: give all six readings (--aft, --mid and --fwd, port and starboard each)",
+                      file=sys.stderr)
+                return 2
+            readings = None if args.aft is None else [*args.aft, *args.mid, *args.fwd]
+            return run_marks(args.profile, args.condition, readings)
         if cmd == "report":
             from deckload.report import run_report
 

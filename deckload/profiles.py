@@ -173,6 +173,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     windage = _read_windage(root, particulars)
     deck_edge = _read_deck_edge(root)
     passengers = _read_passengers(root, particulars, criteria)
+    marks = _read_draft_marks(root, particulars)
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
     depth = particulars.depth_m if particulars is not None else math.inf
@@ -205,6 +206,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
         constants=tuple(constants),
         conversions=tuple(rd.conversions),
         assumptions=tuple(rd.assumptions),
+        draft_marks=marks,
     )
 
 
@@ -370,11 +372,14 @@ def _read_cross_curves(root: Table) -> m.CrossCurves | None:
         heel = None
     disp = t.increasing("displacement_t", t.array("displacement_t", positive))
     kn = t.matrix("kn_m", "displacement_t", t.raw_len("displacement_t"), "heel_deg", t.raw_len("heel_deg"))
+    has_ref = t.has("reference_lcg_m")
+    ref = t.num("reference_lcg_m", required=False)
     t.finish()
-    if basis is None or heel is None or disp is None or kn is None:
+    if basis is None or heel is None or disp is None or kn is None or (has_ref and ref is None):
         return None
     return m.CrossCurves(
-        heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis
+        heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis,
+        reference_lcg_m=ref,
     )
 
 
@@ -706,6 +711,50 @@ def _read_downflooding(root: Table, hydro, frame: Frame | None, rd: Reading) -> 
         return None
     rd.tables["downflooding"] = TableReading(f, csv=t.data.get("csv"), against=against)
     return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(ang), kind="downflooding_deg")
+
+
+def _read_draft_marks(root: Table, particulars: m.Particulars | None) -> m.DraftMarks | None:
+    """``[draft_marks]``: aft, midships, forward marks (x_m, y_m) and the keel thickness.
+
+    Bounds from the vessel: marks within 20 % of LBP beyond either perpendicular, no further
+    off the centreline than half the breadth, aft < midships < forward with the aft and
+    forward marks at least half the LBP apart (the trim is found from their difference);
+    keel thickness under a tenth of the depth.
+    """
+    t = root.table("draft_marks", required=False)
+    if t is None:
+        return None
+    lbp = particulars.lbp_m if particulars is not None else None
+    half_b = particulars.breadth_m / 2.0 if particulars is not None else None
+    x_rule = (between(-0.2 * lbp, 1.2 * lbp, "m", "within 20 % of LBP of the perpendiculars")
+              if lbp is not None else None)
+    y_rule = between(0.0, half_b, "m", "between the centreline and the side") if half_b is not None else non_negative
+    k_rule = (between(0.0, 0.1 * particulars.depth_m, "m", "a keel plate, under a tenth of the depth")
+              if particulars is not None else non_negative)
+    keel = t.num("keel_thickness_m", k_rule, required=False, default=0.0)
+    bad_keel = t.has("keel_thickness_m") and keel is None
+    found: dict[str, m.DraftMark | None] = {}
+    for where in ("aft", "midships", "forward"):
+        sub = t.table(where)
+        if sub is None:
+            found[where] = None
+            continue
+        x = sub.num("x_m", *((x_rule,) if x_rule else ()))
+        y = sub.num("y_m", y_rule)
+        sub.finish()
+        found[where] = None if x is None or y is None else m.DraftMark(x, y)
+    t.finish()
+    if bad_keel or any(v is None for v in found.values()) or lbp is None:
+        return None
+    a, mid, f = found["aft"], found["midships"], found["forward"]
+    if not a.x_m < mid.x_m < f.x_m:
+        t.bad("midships", t.data["midships"], "the marks must lie aft < midships < forward (x_m from AP)")
+        return None
+    if f.x_m - a.x_m < 0.5 * lbp:
+        t.bad("forward", t.data["forward"], f"only {num(f.x_m - a.x_m)} m forward of the aft marks: they must be at "
+              f"least half the LBP ({num(0.5 * lbp)} m) apart to give the trim")
+        return None
+    return m.DraftMarks(a, mid, f, keel)
 
 
 def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,

@@ -46,8 +46,8 @@ PROFILE_FORMAT = "deckload-profile-1"
 
 TOP_ORDER = (
     "format", "vessel", "lightship", "hydrostatics", "cross_curves", "free_surface", "criteria",
-    "load_line", "limit_curve", "downflooding", "deck_edge", "windage", "passengers", "extra_criterion",
-    "tank", "hold", "deck_area",
+    "load_line", "draft_marks", "limit_curve", "downflooding", "deck_edge", "windage", "passengers",
+    "extra_criterion", "tank", "hold", "deck_area",
 )
 """Order of the top-level sections in a written profile; unknown keys follow in their own order."""
 
@@ -81,12 +81,15 @@ def generated_sections(vt: VesselTables) -> dict[str, Any]:
         "kml_m": _r(h.kml_m, 3),
     }
     cc = vt.cross_curves
-    out["cross_curves"] = {
-        "trim_basis": cc.trim_basis,
+    out["cross_curves"] = {"trim_basis": cc.trim_basis}
+    if cc.trim_basis == "free trim":
+        # the LCG the free-trim curves hold B in line with: the engine warns when G is far from it
+        out["cross_curves"]["reference_lcg_m"] = _r(g.tables.trim_lcg_m, 4)
+    out["cross_curves"].update({
         "heel_deg": _r(cc.heel_deg, 3),
         "displacement_t": _r(cc.displacement_t, 2),
         "kn_m": _r(cc.kn_m, 4),
-    }
+    })
     if vt.downflooding is not None:
         out["downflooding"] = {
             "displacement_t": _r(vt.downflooding.displacement_t, 2),

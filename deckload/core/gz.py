@@ -1,8 +1,8 @@
 """The GZ (righting lever) curve from the KN cross curves, and what is read off it.
 
 GZ(φ) = KN(φ) − KG·sinφ − TCG·cosφ for heel to starboard (checks.md conventions;
-standards.md §6.3).  KN at the actual displacement is interpolated linearly between
-the tabulated displacements, then a natural cubic spline through the tabulated heel
+standards.md §6.3).  KN at the actual displacement is interpolated between the
+tabulated displacements by a not-a-knot cubic spline in displacement, then a natural cubic spline through the tabulated heel
 angles gives KN at any angle.  The curve is evaluated on a fine grid (0.1°) so that
 areas, the maximum and the crossing angles carry no coarse-grid error of their own;
 areas are integrated in radians (1 rad = 57.2958°) by the trapezoidal rule on that
@@ -27,10 +27,23 @@ COS = np.cos(FINE_RAD)
 WHOLE_DEGREES = slice(0, None, int(round(1.0 / STEP_DEG)))
 
 
+def kn_row(cc: CrossCurves, table_displacement_t: float) -> np.ndarray:
+    """KN (m) at the tabulated heels for a displacement (table density), never extrapolated.
+
+    Between tabulated displacements each heel column is interpolated by a not-a-knot
+    cubic spline in displacement (:class:`~deckload.core.tables.CubicSpline`), which
+    keeps the curvature of KN against displacement that a straight line between rows
+    cuts off (tests/test_reference_kn_interpolation.py).  On a row it returns the row.
+    """
+    i, f = bracket(cc.displacement_t, table_displacement_t, "displacement (KN cross curves, at table density)", "t")
+    if f == 0.0 or f == 1.0 or len(cc.displacement_t) == 2:
+        return lerp_row(cc.kn_m, i, f)
+    return CubicSpline.fit(cc.displacement_t, cc.kn_m, end="not-a-knot")(float(table_displacement_t))
+
+
 def kn_curve(cc: CrossCurves, table_displacement_t: float) -> np.ndarray:
     """KN (m) on the fine heel grid at a displacement (table density), up to the table's last angle."""
-    i, f = bracket(cc.displacement_t, table_displacement_t, "displacement (KN cross curves, at table density)", "t")
-    row = lerp_row(cc.kn_m, i, f)
+    row = kn_row(cc, table_displacement_t)
     if cc.heel_deg[0] != 0.0:
         # The profile validation requires the table to start upright; refuse rather than extrapolate.
         raise OutOfRangeError("heel (KN cross curves)", 0.0, float(cc.heel_deg[0]), float(cc.heel_deg[-1]), "deg")

@@ -141,6 +141,8 @@ class CrossCurves:
     """KN (m), shape (len(displacement_t), len(heel_deg))."""
     trim_basis: str = "free trim"
     """How trim was treated when the curves were made: 'free trim' or 'even keel'."""
+    reference_lcg_m: float | None = None
+    """Free trim: the LCG (m from AP) the curves were made for (B kept in line with it); None if not stated."""
 
 
 @dataclass(frozen=True, eq=False)
@@ -358,6 +360,27 @@ class Windage:
 
 
 @dataclass(frozen=True)
+class DraftMark:
+    """Where one set of draft marks is cut in the shell, port and starboard alike."""
+
+    x_m: float
+    """Position of the marks from AP, + forward (m)."""
+    y_m: float
+    """Distance of the marks from the centreline (m): the starboard marks at +y, the port at −y."""
+
+
+@dataclass(frozen=True)
+class DraftMarks:
+    """The draft marks aft, amidships and forward; they read from the underside of the keel."""
+
+    aft: DraftMark
+    midships: DraftMark
+    forward: DraftMark
+    keel_thickness_m: float = 0.0
+    """Keel plate below the moulded baseline (m): a mark reads moulded draft + this (extreme draft)."""
+
+
+@dataclass(frozen=True)
 class CriteriaSettings:
     code: str = "IS2008-A2.2"
     """Legacy key: 'IS2008-A2.2' (still accepted) means the general criteria."""
@@ -424,6 +447,7 @@ class Vessel:
     """How the profile's booklet conventions were converted on load, one line each (for check)."""
     assumptions: tuple[str, ...] = ()
     """What was assumed where the booklet gives less than the model needs, one line each."""
+    draft_marks: DraftMarks | None = None
     tank_index: dict[str, int] = field(init=False, repr=False, compare=False)
     hold_index: dict[str, int] = field(init=False, repr=False, compare=False)
     area_index: dict[str, int] = field(init=False, repr=False, compare=False)

@@ -36,6 +36,7 @@ from deckload.core.model import Condition, Vessel, effective_constants
 from deckload.core.result import ItemResult, Result, TankResult, Warning
 from deckload.core.tables import OutOfRangeError, bracket, interp, lerp_row
 from deckload.core.verdict import Afloat, assess, deck_edge_angle
+from deckload.core.trim import BASIS_TABLE, even_keel_note, kn_reference_note, trim_moment
 
 LIST_WARNING_DEG = 2.0
 NEAR_LIMIT_FRACTION = 0.10
@@ -94,7 +95,9 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
     hy = upright(vessel, disp, rho_w)
     gm_solid = hy.kmt_m - w.vcg_m
     gm_fluid = hy.kmt_m - kg_fluid
-    trim = trim_m(disp, w.lcg_m, hy.lcb_m, hy.mctc_tm_cm)
+    # MCT from the actual GM_L where the profile has KM_L (core/trim.py)
+    mct = trim_moment(vessel, hy, disp, kg_fluid)
+    trim = trim_m(disp, w.lcg_m, hy.lcb_m, mct.mctc_tm_cm)
     lbp = vessel.particulars.lbp_m
     t_aft = draft_at(0.0, hy.draft_m, hy.lcf_m, trim, lbp)
     t_fwd = draft_at(lbp, hy.draft_m, hy.lcf_m, trim, lbp)
@@ -107,6 +110,16 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
     sin, cos = gzmod.SIN[:n_grid], gzmod.COS[:n_grid]
     gz_end = float(fine_deg[-1])
     warnings: list[Warning] = []
+    trim_note = even_keel_note(trim, lbp)
+    if trim_note is not None:
+        warnings.append(Warning("trim-beyond-tables", trim_note, "caution"))
+    kn_note = kn_reference_note(vessel.cross_curves, w.lcg_m, vessel.particulars.lbp_m)
+    if kn_note is not None:
+        warnings.append(Warning("kn-reference-lcg", kn_note, "caution"))
+    if mct.basis == BASIS_TABLE:
+        warnings.append(Warning("trim-from-table-mctc",
+                                "the profile has no KML: trim is worked from the tabulated MCTC (made with BML, "
+                                "not the actual GML), so it is slightly too small", "caution"))
     if correction == "transfer":
         # The upright (0°) inertia still gives GM fluid; the curve takes the actual
         # moment of fluid transfer of each counted tank at each heel.  The tables are
@@ -238,7 +251,7 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
         lcf_m=hy.lcf_m,
         km_m=hy.kmt_m,
         tpc_t_cm=hy.tpc_t_cm,
-        mctc_tm_cm=hy.mctc_tm_cm,
+        mctc_tm_cm=mct.mctc_tm_cm,
         gm_solid_m=gm_solid,
         gm_fluid_m=gm_fluid,
         trim_m=trim,
