@@ -39,6 +39,7 @@ from deckload.core.geometry.cross_curves import cross_curves, immersion_angle
 from deckload.core.geometry.hull import compartment_body
 from deckload.core.geometry.hydrostatics_calc import upright_hydrostatics
 from deckload.core.geometry.tanks import calibrate
+from deckload.core.geometry.windage import deck_edge_point, waterline_length_m, windage_above
 from deckload.geometry_io import load_geometry
 
 ROOT = Path(__file__).resolve().parent.parent
@@ -54,6 +55,7 @@ BOOKLET_DRAFTS_EXTREME = np.round(np.arange(1.60, 3.601, 0.10), 2)
 KN_DISPLACEMENTS = np.arange(100.0, 321.0, 20.0)
 KN_HEELS = np.arange(0.0, 60.1, 5.0)
 DOWNFLOODING_DRAFTS_EXTREME = np.round(np.arange(2.00, 3.401, 0.20), 2)
+WINDAGE_DRAFTS_MOULDED = np.round(np.arange(2.00, 3.201, 0.20), 2)
 
 #: How each tank is printed in the booklet.
 #:   table: "sounding" | "ullage" | "capacity";  fsm: "rows" (t·m per row) | "max" (one value) | None
@@ -133,6 +135,33 @@ def downflooding_page(body, g, pages: Path) -> str:
     rows = [[fnum(d, 2), fnum(a, 1)] for d, a in zip(DOWNFLOODING_DRAFTS_EXTREME, np.min(angles, axis=0))]
     write_csv(pages / "downflooding.csv", ["draft_m", "angle_deg"], rows)
     return " / ".join(names)
+
+
+def windage_toml(g) -> str:
+    """[windage]: the booklet's wind-heeling page (area and lever against the moulded draft)."""
+    lp = g.lateral_profile
+    rows = [windage_above(lp.x_m, lp.z_m, float(d)) for d in WINDAGE_DRAFTS_MOULDED]
+    lwl = [waterline_length_m(g.hull, float(d)) for d in WINDAGE_DRAFTS_MOULDED]
+    return "\n".join([
+        "[windage]                              # booklet: wind heeling, lateral area above the waterline",
+        f"draft_m = [{', '.join(fnum(d, 2) for d in WINDAGE_DRAFTS_MOULDED)}]   # moulded, as this page prints it",
+        f"lateral_area_m2 = [{', '.join(fnum(a, 1) for a, _ in rows)}]",
+        f"centroid_above_wl_m = [{', '.join(fnum(h, 2) for _, h in rows)}]   # above the WATERLINE",
+        f"waterline_length_m = [{', '.join(fnum(x, 2) for x in lwl)}]",
+    ]) + "\n"
+
+
+def deck_edge_toml(body, g) -> str:
+    """[deck_edge]: heel at which the deck edge at midships immerses, same basis as the KN."""
+    ts = g.tables
+    edge = deck_edge_point(g.hull, 0.5 * g.vessel.lbp_m)
+    ang = immersion_angle(body, KN_DISPLACEMENTS, g.vessel.table_density_t_m3, edge, "free trim",
+                          ts.trim_lcg_m, ts.trim_vcg_m)
+    return "\n".join([
+        "[deck_edge]                            # booklet: angle of deck-edge immersion at midships",
+        f"displacement_t = [{', '.join(fnum(d, 1) for d in KN_DISPLACEMENTS)}]",
+        f"angle_deg = [{', '.join(fnum(a, 1) for a in ang)}]",
+    ]) + "\n"
 
 
 def tank_page(spec, g, pages: Path) -> dict:
@@ -249,9 +278,11 @@ csv = "demo_trawler/downflooding.csv"  # lowest opening: {opening}
 draft_basis = "extreme"
 
 [criteria]
-code = "IS2008-A2.2"
-min_gm_m = 0.35                        # fishing vessels, single deck: 46 CFR 28.570; IS 2008 Part B 2.1 (from memory)
+ship_type = "fishing"                  # IS 2008 Part B 2.1 (GM0 >= 0.35 m, single deck) and Part A 2.3
+bilge_keel_area_m2 = 3.5               # two bilge keels 7.0 m x 0.25 m
 
+{windage}
+{deck_edge}
 [[load_line]]
 name = "summer"
 draft_m = 2.8                          # moulded (the booklet's freeboard plan)
@@ -315,6 +346,7 @@ def booklet_text(pages: Path) -> str:
         ]) + "\n")
     da = deck_area_tables(g.deck_areas[0], g)
     return PROFILE_TEMPLATE.format(opening=opening, tanks=tanks, holds="\n".join(holds),
+                                   windage=windage_toml(g), deck_edge=deck_edge_toml(body, g),
                                    deck_area=da.area_m2, deck_lcg=float(x_mid(da.lcg_m)), deck_z=da.deck_height_m)
 
 

@@ -235,6 +235,13 @@ name = "fish-hold ventilation head (port)"
 x_m = 13.0
 y_m = -3.0
 z_m = 6.0
+
+# the trawler seen from the side (hull, 1.0 m bulwarks, 1.2 m at the bow, the deckhouse
+# x 9.0–15.5 m to 6.7 m, the wheelhouse x 10.5–14.5 m to 9.0 m, the stern gantry taken as
+# solid x -0.5–0.5 m to 8.0 m): for the windage of the weather criterion
+[lateral_profile]
+x_m = [-1.0, 2.0, 5.0, 20.4, 22.6, 22.7, 18.0, 15.5, 15.5, 14.5, 14.5, 10.5, 10.5, 9.0, 9.0, 0.5, 0.5, -0.5, -0.5, -1.0]
+z_m = [1.9, 0.67, 0.0, 0.0, 4.9, 6.1, 5.24, 5.04, 6.7, 6.7, 9.0, 9.0, 6.7, 6.7, 4.9, 4.9, 8.0, 8.0, 4.9, 4.9]
 '''
 
 

@@ -66,7 +66,7 @@ class Afloat:
     kg_fluid_m: float
     gm_fluid_m: float
     heel_deg: np.ndarray
-    """The fine heel grid of :mod:`gz` (0–90°)."""
+    """The fine heel grid of :mod:`gz` (0–90°, or to the last angle of the KN tables)."""
     gz_lee_m: np.ndarray
     """GZ heeling to the side the criteria are checked on."""
     gz_other_m: np.ndarray
@@ -143,7 +143,9 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
     else:
         pressure, p_source = wx.WIND_PRESSURE_PA, "P 504 Pa"
     lw1 = wx.wind_lever_m(pressure, area, z, a.displacement_t)
-    curve = wx.Curve.from_sides(gzmod.FINE_DEG, a.gz_lee_m, a.gz_other_m)
+    # the curve as far as the KN tables reach (a booklet's may stop at 60°): areas stop there too,
+    # which can only make b smaller (conservative)
+    curve = wx.Curve.from_sides(a.heel_deg, a.gz_lee_m, a.gz_other_m)
     theta0_limit = min(wx.THETA0_MAX_DEG, wx.DECK_EDGE_FRACTION * a.deck_edge_deg)
     roll = None
     if a.gm_fluid_m > 0.0:
@@ -151,7 +153,8 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
         cb = volume / (lwl * p.breadth_m * d)
         roll = wx.roll(wx.RollInputs(p.breadth_m, d, lwl, cb, a.kg_fluid_m, a.gm_fluid_m,
                                      cs.bilge_keel_area_m2, cs.sharp_bilged))
-    f = wx.weather_areas(curve, lw1, None if roll is None else roll.theta1_deg, a.flood_deg)
+    f = wx.weather_areas(curve, lw1, None if roll is None else roll.theta1_deg, a.flood_deg,
+                         end_deg=float(a.heel_deg[-1]))
     src0 = "IS Code 2008 Part A 2.3.1.2"
     srcb = "IS Code 2008 Part A 2.3.1.4 (A.749 3.2.2.1.4)"
     common = f"{p_source}, A {area:.1f} m², Z {z:.2f} m, lw1 {lw1:.4f} m"
