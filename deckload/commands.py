@@ -91,9 +91,14 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False)
     loaded = load_and_evaluate(profile_path, condition_path)
     if isinstance(loaded, int):
         return loaded
-    result = loaded[2]
+    vessel, result = loaded[0], loaded[2]
     if as_json:
         print(json.dumps(result.to_json_dict(), indent=1, ensure_ascii=False))
     else:
         print(format_summary(result))
+        keel = vessel.particulars.keel_thickness_m
+        if keel > 0.0:
+            # The draft marks read extreme drafts where the booklet gives a keel thickness.
+            print(f"  Extreme drafts (moulded + keel {keel:.3f} m): aft {result.draft_aft_m + keel:.3f} m, "
+                  f"midships {result.draft_mean_m + keel:.3f} m, fwd {result.draft_fwd_m + keel:.3f} m")
     return 0

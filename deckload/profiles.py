@@ -36,6 +36,8 @@ import tomli_w
 from deckload.atomicfile import write_atomic
 from deckload.conventions import DATUMS, Frame, read_frame, tcg_array, tcg_num
 from deckload.core import model as m
+from deckload.core.gz import STEP_DEG as GZ_STEP_DEG
+from deckload.core.gz import grid_points
 from deckload.core.loading import reading_range
 from deckload.core.tables import interp
 from deckload.csvtables import attach_csv, attach_kn_csv
@@ -389,7 +391,8 @@ def _check_kn_reach(root: Table, cross: m.CrossCurves | None, flood: m.LimitCurv
         return
     end = float(cross.heel_deg[-1])
     top = float(np.max(flood.value))
-    if top > end + 1e-9:
+    grid_end = (grid_points(cross) - 1) * GZ_STEP_DEG  # the curve is worked on a 0.1° grid up to the end
+    if top > grid_end + 1e-9:
         t = root.table("cross_curves")
         t.bad("heel_deg", t.data["heel_deg"], f"ends at {num(end)}°, before the downflooding angle {num(top)}° "
               "in [downflooding]: the criteria look up to θf, and nothing is extrapolated")

@@ -602,3 +602,99 @@ async def test_profile_constants_show_on_the_board_and_cannot_be_edited_there(tm
         await pilot.pause()
         assert app.session.condition is c0
         assert "fixed constant of the vessel profile" in app.screen.query_one("#status", LinePanel).plain()
+
+
+# =========================================================================== short curves and the other criteria
+
+
+def _cut(v: m.Vessel, end_deg: float) -> m.Vessel:
+    """The same vessel with its KN tables ending at ``end_deg`` (as a booklet's might)."""
+    import dataclasses
+
+    cc = v.cross_curves
+    k = int(np.searchsorted(cc.heel_deg, end_deg)) + 1
+    return dataclasses.replace(v, cross_curves=m.CrossCurves(m.frozen_array(cc.heel_deg[:k]), cc.displacement_t,
+                                                            m.frozen_array(cc.kn_m[:, :k]), cc.trim_basis))
+
+
+def test_weather_area_b_beyond_the_table_is_not_assessable():
+    """IS 2008 A 2.3: area b runs to θ2 = min(θf, 50°, θc).  An invented 40 × 10 × 6 m box at T 2 m,
+    KG 3.5 m, with a large windage (3 × its side above water, centre 3 × as high): on the full curve
+    (KN to 90°) b ≥ a; the same curve cut at 40° stops b short of θ2 = 50° with b < a there, so the
+    criterion cannot be decided from the table: not assessable — never met, never failed on data
+    that is not there.  (Consistency between the two curves; the values are this program's own.)"""
+    import dataclasses
+
+    from vessel_factories import RHO_SW, box_vessel
+
+    drafts = [1.0, 2.0, 2.5]
+    v = box_vessel(length_m=40.0, breadth_m=10.0, depth_m=6.0, drafts_m=drafts, lightship_t=RHO_SW * 40 * 10 * 2.0,
+                   lightship_kg_m=3.5, heel_step_deg=1.0, criteria=m.CriteriaSettings())
+    v = dataclasses.replace(v, windage=m.Windage(
+        m.frozen_array(drafts), m.frozen_array([3 * 40.0 * (6.0 - t) for t in drafts]),
+        m.frozen_array([3 * (6.0 - t) / 2 for t in drafts]), m.frozen_array([40.0] * 3)))
+    full = next(c for c in evaluate(v, m.Condition()).criteria if c.id == "IS2008-A2.3-area-b-a")
+    short = next(c for c in evaluate(_cut(v, 40.0), m.Condition()).criteria if c.id == "IS2008-A2.3-area-b-a")
+    assert full.assessed and full.passed
+    assert short.value < full.value and short.value < short.limit
+    assert (short.assessed, short.passed) == (False, False)
+    assert "area b stops at 40°, where the KN tables end" in short.note
+
+
+def test_profile_criteria_beyond_the_table_are_not_assessable():
+    """The barge at T 2 m, KG 3 m (checks.md §1: range 65.61°, GZ(30°) 1.08771 m) with KN to 60°: GZ at
+    30° is measured; GZ at 70° and the area to 70° are beyond the table; a range of 62° cannot be
+    confirmed (positive to 60° only), a range of 60° can."""
+    import dataclasses
+
+    from vessel_factories import barge_at
+
+    extra = '''
+[[extra_criterion]]
+kind = "min_gz_at"
+at_deg = 30.0
+limit = 1.0
+source = "Example class rule A"
+
+[[extra_criterion]]
+kind = "min_gz_at"
+at_deg = 70.0
+limit = 0.1
+source = "Example class rule B"
+
+[[extra_criterion]]
+kind = "min_area"
+from_deg = 0.0
+to_deg = 70.0
+limit = 0.1
+source = "Example class rule C"
+
+[[extra_criterion]]
+kind = "min_range"
+limit = 62.0
+source = "Example class rule D"
+
+[[extra_criterion]]
+kind = "min_range"
+limit = 60.0
+source = "Example class rule E"
+'''
+    v0, c = barge_at(2.0, 3.0)
+    v = dataclasses.replace(_cut(v0, 60.0), criteria=parse_profile(BASE + extra, "x.toml").criteria)
+    r = evaluate(v, c)
+    crit = {x.id: x for x in r.criteria if x.set_id == "profile-extra"}
+    assert crit["profile-1-min-gz-at"].assessed and crit["profile-1-min-gz-at"].passed
+    for cid in ("profile-2-min-gz-at", "profile-3-min-area", "profile-4-min-range"):
+        assert (crit[cid].assessed, crit[cid].passed) == (False, False), cid
+        assert "beyond 60°, where the KN tables end" in crit[cid].note, cid
+    assert crit["profile-5-min-range"].assessed and crit["profile-5-min-range"].value == 60.0
+
+
+def test_calc_prints_extreme_drafts_where_the_keel_thickness_is_given(tmp_path, capsys):
+    """Extreme draft = moulded + keel (0.02 m): at 820 t even keel the moulded 2.000 m reads 2.020 m."""
+    prof = _write(tmp_path / "keel.toml", edit(BASE, 'longitudinal_datum = "AP"',
+                                              'longitudinal_datum = "AP"\nkeel_thickness_m = 0.02'))
+    c = _write(tmp_path / "c.condition.toml", 'format = "deckload-condition-1"\n[condition]\nname = "c"\n'
+               "water_density_t_m3 = 1.025\n" + HOLD_420)
+    assert main(["calc", str(prof), str(c)]) == 0
+    assert "Extreme drafts (moulded + keel 0.020 m): aft 2.020 m, midships 2.020 m, fwd 2.020 m" in capsys.readouterr().out

@@ -75,6 +75,8 @@ def area_to(gz: np.ndarray, angle_deg: float) -> float:
     """Area under GZ from 0 to ``angle_deg`` (m·rad), trapezoidal on the fine grid."""
     if angle_deg <= 0.0:
         return 0.0
+    if angle_deg > FINE_DEG[len(gz) - 1] + 1e-9:  # a short curve (KN ending before 90°): never extrapolate
+        raise OutOfRangeError("heel (GZ curve area)", angle_deg, 0.0, float(FINE_DEG[len(gz) - 1]), "deg")
     k = min(int(angle_deg / STEP_DEG), len(gz) - 2)
     full = float(np.sum(gz[1 : k + 1] + gz[:k]) * 0.5 * math.radians(STEP_DEG))
     # Partial last panel, linear GZ inside it.
@@ -87,7 +89,11 @@ def area_to(gz: np.ndarray, angle_deg: float) -> float:
 
 
 def value_at(gz: np.ndarray, angle_deg: float) -> float:
-    return float(np.interp(angle_deg, FINE_DEG, gz))
+    """GZ at an angle within the curve (which may stop before 90°: then never beyond its end)."""
+    grid = FINE_DEG[: len(gz)]
+    if angle_deg > grid[-1] + 1e-9:
+        raise OutOfRangeError("heel (GZ curve)", angle_deg, 0.0, float(grid[-1]), "deg")
+    return float(np.interp(angle_deg, grid, gz))
 
 
 def _crossing(gz: np.ndarray, start: int, rising: bool) -> float | None:

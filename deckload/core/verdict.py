@@ -66,7 +66,7 @@ class Afloat:
     kg_fluid_m: float
     gm_fluid_m: float
     heel_deg: np.ndarray
-    """The fine heel grid of :mod:`gz` (0–90°, or to the last angle of the KN tables)."""
+    """The fine heel grid of :mod:`gz` (0–90°)."""
     gz_lee_m: np.ndarray
     """GZ heeling to the side the criteria are checked on."""
     gz_other_m: np.ndarray
@@ -98,8 +98,8 @@ def _crit(cid: str, desc: str, value: float, limit: float, unit: str, comp: str,
 
 
 def _first_heel(gz: np.ndarray, lever_m: float) -> float | None:
-    """First angle from 0° where GZ rises through a constant heeling lever (None: never)."""
-    curve = wx.Curve(gzmod.FINE_DEG, gz)
+    """First angle from 0° where GZ rises through a constant heeling lever (None: never, within the curve)."""
+    curve = wx.Curve(gzmod.FINE_DEG[: len(gz)], gz)  # the curve may stop before 90° (short KN tables)
     if curve.at(0.0) >= lever_m:
         return 0.0
     return curve.crossing(lever_m, 0.0, rising=True)
@@ -143,9 +143,8 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
     else:
         pressure, p_source = wx.WIND_PRESSURE_PA, "P 504 Pa"
     lw1 = wx.wind_lever_m(pressure, area, z, a.displacement_t)
-    # the curve as far as the KN tables reach (a booklet's may stop at 60°): areas stop there too,
-    # which can only make b smaller (conservative)
     curve = wx.Curve.from_sides(a.heel_deg, a.gz_lee_m, a.gz_other_m)
+    end = float(a.heel_deg[-1])  # the KN tables' last angle: nothing beyond is known
     theta0_limit = min(wx.THETA0_MAX_DEG, wx.DECK_EDGE_FRACTION * a.deck_edge_deg)
     roll = None
     if a.gm_fluid_m > 0.0:
@@ -153,8 +152,7 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
         cb = volume / (lwl * p.breadth_m * d)
         roll = wx.roll(wx.RollInputs(p.breadth_m, d, lwl, cb, a.kg_fluid_m, a.gm_fluid_m,
                                      cs.bilge_keel_area_m2, cs.sharp_bilged))
-    f = wx.weather_areas(curve, lw1, None if roll is None else roll.theta1_deg, a.flood_deg,
-                         end_deg=float(a.heel_deg[-1]))
+    f = wx.weather_areas(curve, lw1, None if roll is None else roll.theta1_deg, a.flood_deg, end_deg=end)
     src0 = "IS Code 2008 Part A 2.3.1.2"
     srcb = "IS Code 2008 Part A 2.3.1.4 (A.749 3.2.2.1.4)"
     common = f"{p_source}, A {area:.1f} m², Z {z:.2f} m, lw1 {lw1:.4f} m"
@@ -177,8 +175,14 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
     if roll.outside_validity:
         note += "; outside the range the roll tables were made for (" + ", ".join(roll.outside_validity) + \
             "; standards.md §2.3, from memory)"
+    # Area b runs to θ2 = min(θf, 50°, θc); where the KN tables stop first, a shortfall found
+    # within them cannot decide the criterion (b could still grow beyond): not assessable.
+    need = min([wx.THETA2_MAX_DEG] + [x for x in (a.flood_deg, f.theta_c_deg) if x is not None])
+    short = end < need - 1e-9 and f.area_b_mrad < f.area_a_mrad
+    if short:
+        note += f"; area b stops at {end:g}°, where the KN tables end, before θ2 would: not assessable"
     out.append(_crit("IS2008-A2.3-area-b-a", "Weather: area b against area a", f.area_b_mrad, f.area_a_mrad,
-                     "m·rad", ">=", srcb, WEATHER_SET, note))
+                     "m·rad", ">=", srcb, WEATHER_SET, note, assessed=not short))
     if f.theta2_deg is None:
         return out, None, None, notes  # GZ never reaches lw2: no θ2 to report, the note says why
     if a.has_deck_cargo:
@@ -240,6 +244,8 @@ def extra_criteria(vessel: Vessel, a: Afloat, weather: list[CriterionResult],
     """The flag-State / class criteria written in the profile, each measured on this condition."""
     out = []
     gz = a.gz_lee_m
+    end = float(a.heel_deg[-1])  # the KN tables' last angle: beyond it nothing is known
+    beyond = f"beyond {end:g}°, where the KN tables end: not assessable"
     theta0 = next((c for c in weather if c.id == "IS2008-A2.3-theta0"), None)
     for n, ec in enumerate(vessel.criteria.extra):
         value: float | None = None
@@ -248,17 +254,27 @@ def extra_criteria(vessel: Vessel, a: Afloat, weather: list[CriterionResult],
             value = a.gm_fluid_m
         elif ec.kind == "min_area":
             hi = ec.to_deg if a.flood_deg is None else min(ec.to_deg, a.flood_deg)
-            value = max(0.0, gzmod.area_to(gz, hi) - gzmod.area_to(gz, ec.from_deg)) if hi > ec.from_deg else 0.0
+            if hi > end + 1e-9:
+                why = f"needs GZ to {hi:g}°, {beyond}"
+            else:
+                value = max(0.0, gzmod.area_to(gz, hi) - gzmod.area_to(gz, ec.from_deg)) if hi > ec.from_deg else 0.0
         elif ec.kind == "min_gz_at":
-            value = gzmod.value_at(gz, ec.at_deg)
+            if ec.at_deg > end + 1e-9:
+                why = f"needs GZ at {ec.at_deg:g}°, {beyond}"
+            else:
+                value = gzmod.value_at(gz, ec.at_deg)
         elif ec.kind == "min_max_gz":
             value = a.max_gz_m
         elif ec.kind == "min_angle_max_gz":
             value = a.measures.max_gz_angle_deg
         elif ec.kind == "min_range":
-            value = (a.vanishing_deg if a.vanishing_deg is not None else 90.0) - a.equilibrium_deg
+            value = (a.vanishing_deg if a.vanishing_deg is not None else end) - a.equilibrium_deg
             if a.max_gz_m <= 0.0:
                 value = 0.0
+            elif a.vanishing_deg is None and end < 90.0 and value < ec.limit:
+                # positive to the table's end, so the range is at least this; short of the limit it
+                # could still be met beyond: not assessable
+                value, why = None, f"GZ stays positive to {end:g}°; the vanishing angle lies {beyond}"
         elif ec.kind == "max_static_heel":
             value = a.equilibrium_deg
         elif ec.kind == "max_wind_heel":

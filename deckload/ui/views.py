@@ -289,6 +289,8 @@ def gz_caption(result: Result | None) -> Text:
         t.append(f"  zero at {result.vanishing_angle_deg:.0f}°", P["dim"])
     elif result.gz_end_deg < 90.0:
         t.append(f"  zero beyond {result.gz_end_deg:g}° (KN end)", P["dim"])
+    if result.vanishing_angle_deg is not None and result.gz_end_deg < 90.0:
+        t.append(f"  curve ends {result.gz_end_deg:g}° (KN end)", P["dim"])
     if result.downflooding_angle_deg is not None:
         t.append(f"  θf {result.downflooding_angle_deg:.0f}°", P["dim"])
     return t
