@@ -265,3 +265,29 @@ def test_typing_slips_in_the_trawlers_booklet_pages_are_stopped_by_check(tmp_pat
     out = capsys.readouterr().out
     for e in expect:
         assert e in out, (slip, e)
+
+
+def test_the_trawlers_pages_round_trip_through_deckload_csv(tmp_path, capsys):
+    """CSV → profile → CSV gives the same numbers (issue 8, done-when): `deckload csv` writes every
+    page back in the booklet's own conventions, and each equals the page it was read from."""
+    import csv
+
+    def cells(path: Path) -> dict[str, list[float]]:
+        def val(c: str) -> float:
+            c = c.strip()
+            return -float(c[:-1]) if c.endswith("P") else float(c[:-1]) if c.endswith("S") else float(c)
+
+        with open(path, encoding="utf-8") as f:
+            rows = list(csv.DictReader(f))
+        return {k: [val(r[k]) for r in rows] for k in rows[0]}
+
+    assert main(["csv", "trawler", str(tmp_path)]) == 0
+    pages = BROWSABLE / "demo_trawler"
+    pairs = {"hydrostatics.csv": "hydrostatics.csv", "kn.csv": "cross_curves.csv",
+             "downflooding.csv": "downflooding.csv", "fh_fill.csv": "hold_FH_fill.csv"}
+    pairs.update({f"tanks/{p.name}": f"tank_{p.name}" for p in (pages / "tanks").glob("*.csv")})
+    for ours, written in pairs.items():
+        a, b = cells(pages / ours), cells(tmp_path / written)
+        assert sorted(a) == sorted(b), ours
+        for col in a:
+            np.testing.assert_allclose(b[col], a[col], atol=1e-9, err_msg=f"{ours} {col}")
