@@ -80,6 +80,9 @@ def _parser() -> argparse.ArgumentParser:
     ver.add_argument("--vessel")
     ver.add_argument("--recover", action="store_true",
                      help="first set aside a torn last line (takes the writer's lock)")
+    ver.add_argument("--against", metavar="HASH",
+                     help="also check a paper copy's anchor: the SHA-256 (or its first 12+ hex digits, "
+                          "optionally as N:HASH) printed on a report or export")
     return p
 
 
@@ -109,6 +112,33 @@ def _demo_shorthand(args: argparse.Namespace) -> None:
 
 
 def main(argv: list[str] | None = None) -> int:
+    """Run one command.  Its error boundary: whatever escapes becomes one paragraph and exit 3
+    (deckload.boundary); control characters never reach the terminal (deckload.textsafe)."""
+    import warnings
+
+    from deckload.textsafe import EscapingStream
+
+    # numpy's floating-point warnings are not for the officer: every non-finite number is
+    # refused with a message where it is computed (deckload.core.bounds).
+    warnings.simplefilter("ignore", RuntimeWarning)
+    out, err = sys.stdout, sys.stderr
+    if not isinstance(out, EscapingStream):
+        sys.stdout, sys.stderr = EscapingStream(out), EscapingStream(err)
+    try:
+        return _main(argv)
+    finally:
+        if isinstance(sys.stdout, EscapingStream):  # not if a closed pipe replaced it
+            sys.stdout = out
+        if isinstance(sys.stderr, EscapingStream):
+            sys.stderr = err
+
+
+def _files(args: argparse.Namespace) -> list[str]:
+    return [str(getattr(args, k)) for k in ("profile", "condition", "geometry", "output", "dir")
+            if getattr(args, k, None) is not None]
+
+
+def _main(argv: list[str] | None) -> int:
     args = _parser().parse_args(argv)
     _demo_shorthand(args)
     cmd = args.command or "open"
@@ -153,17 +183,20 @@ def main(argv: list[str] | None = None) -> int:
             return run_log(args)
     except KeyboardInterrupt:
         return 130
-    except ValueError as e:
+    except BrokenPipeError:
+        # The reader (e.g. `| head`) went away: not an error of ours.
+        sys.stdout = open(os.devnull, "w")
+        return 0
+    except Exception as e:
         from deckload.logbook import ShipOffsetError
 
         if isinstance(e, ShipOffsetError):
             print(f"deckload: {e}", file=sys.stderr)
             return 2
-        raise
-    except BrokenPipeError:
-        # The reader (e.g. `| head`) went away: not an error of ours.
-        sys.stdout = open(os.devnull, "w")
-        return 0
+        from deckload.boundary import internal_error
+
+        what = {"open": "running the loading screen", "log": f"running 'log {getattr(args, 'log_command', '')}'"}
+        return internal_error(e, what.get(cmd, f"running '{cmd}'"), _files(args))
     print(f"deckload: unknown command {cmd!r}", file=sys.stderr)
     return 2
 

@@ -93,7 +93,7 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False)
         return loaded
     vessel, result = loaded[0], loaded[2]
     if as_json:
-        print(json.dumps(result.to_json_dict(), indent=1, ensure_ascii=False))
+        print(json.dumps(result.to_json_dict(), indent=1, ensure_ascii=False, allow_nan=False))
     else:
         print(format_summary(result))
         keel = vessel.particulars.keel_thickness_m

@@ -57,8 +57,10 @@ def read_csv(t: Table, key: str = "csv") -> CsvTable | None:
     base = Path(t.ctx.file).parent
     path = base / name
     shown = str(path)
+    from deckload.limits import MAX_TABLE_VALUES, MAX_TOML_BYTES, read_limited
+
     try:
-        data = path.read_bytes()
+        data = read_limited(path, MAX_TOML_BYTES, "a CSV table")
     except OSError as e:
         t.bad(key, name, f"cannot read the CSV file {shown}: {e.strerror or e}")
         return None
@@ -74,8 +76,18 @@ def read_csv(t: Table, key: str = "csv") -> CsvTable | None:
     header_line = 1
     reader = csv.reader(io.StringIO(text))
     ok = True
-    for raw in reader:
-        line = reader.line_num
+    read: list[tuple[int, list[str]]] = []
+    try:
+        for raw in reader:
+            read.append((reader.line_num, raw))
+            if len(read) > MAX_TABLE_VALUES:
+                t.ctx.problems.append(_problem(shown, reader.line_num, t.key(key), None,
+                                               f"more than the {MAX_TABLE_VALUES} rows allowed in one table"))
+                return None
+    except csv.Error as e:  # a field over the csv module's size limit, a NUL byte, …
+        t.ctx.problems.append(_problem(shown, reader.line_num, t.key(key), None, f"not a readable CSV table ({e})"))
+        return None
+    for line, raw in read:
         cells = list(raw)
         while cells and not cells[-1].strip():  # trailing empty cells a spreadsheet may add
             cells.pop()

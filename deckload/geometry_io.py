@@ -85,7 +85,9 @@ def load_geometry(path: str | os.PathLike) -> Geometry:
     """Read and validate a geometry file; raises :class:`GeometryError` listing every problem."""
     p = Path(path)
     try:
-        text = p.read_text(encoding="utf-8")
+        from deckload.limits import MAX_TOML_BYTES, read_limited
+
+        text = read_limited(p, MAX_TOML_BYTES, "a geometry file").decode("utf-8")
     except OSError as e:
         raise GeometryError([GeometryProblem(str(path), None, "", None, f"cannot read the file: {e.strerror or e}")])
     except UnicodeDecodeError as e:

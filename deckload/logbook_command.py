@@ -53,7 +53,9 @@ def run_log(args) -> int:
         if args.log_command == "verify":
             return _verify(args)
     except OSError as e:
-        print(f"deckload: {e.filename or ''}: {e.strerror}", file=sys.stderr)
+        done = {"record": "nothing was recorded", "export": "nothing was exported"}.get(args.log_command, "")
+        where = e.filename or str(_log_dir(args))
+        print(f"deckload: {where}: {e.strerror or e}" + (f"; {done}" if done else ""), file=sys.stderr)
         return 2
     print(f"deckload log: unknown command {args.log_command!r}", file=sys.stderr)
     return 2
@@ -98,8 +100,15 @@ def _record(args) -> int:
     except (LogLockedError, ValueError) as e:
         print(f"deckload: cannot record: {e}", file=sys.stderr)
         return 1
+    except OSError as e:
+        # e.g. a full disk: the log was cut back to its last good line, nothing half-written stays
+        print(f"deckload: cannot record in {book.path}: {e.strerror or e}; nothing was recorded", file=sys.stderr)
+        return 2
     finally:
         book.close()
+    if book.head_problem:
+        print(f"deckload: warning: {book.head_path}: {book.head_problem} (the entry itself is recorded)",
+              file=sys.stderr)
     verdict = "all criteria met" if result.all_criteria_pass else "CRITERIA NOT MET"
     print(
         f"Recorded entry #{entry.seq} in {book.path} at {entry.utc:%Y-%m-%d %H:%M:%S} UTC by {entry.by}: "
@@ -277,13 +286,25 @@ def _verify(args) -> int:
                 if b.readonly:
                     print(f"{b.path.name}: not opened for writing: {b.readonly_reason}")
     books = _books(args)
+    against = getattr(args, "against", None)
     if not books:
         print(f"no logs in {directory}")
-        return 0
+        return 1 if against else 0
     bad = 0
+    found = None
     for book in books:
         try:
             rep = book.verify()
+            if against:
+                from deckload.logbook import _split_lines, find_anchor
+
+                try:
+                    at = find_anchor(_split_lines(book._read())[0], against)
+                except ValueError as e:
+                    print(f"deckload log verify: --against: {e}", file=sys.stderr)
+                    return 1
+                if at is not None:
+                    found = (book, at)
         finally:
             book.close()
         if rep.ok:
@@ -295,4 +316,12 @@ def _verify(args) -> int:
                 print(f"  {p}")
         for n in rep.notes:
             print(f"  note: {n}")
+    if against:
+        if found is None:
+            print(f"anchor {against}: NOT FOUND in any log in {directory} — the log was rewritten or replaced "
+                  "since that copy was printed, or the copy belongs to another log")
+            return 1
+        book, (line, seq) = found
+        print(f"anchor {against}: found — {book.path.name} line {line}, entry #{seq}; the printed copy matches "
+              "the log up to that entry")
     return 1 if bad else 0

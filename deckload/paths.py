@@ -75,3 +75,26 @@ def log_dir(cwd: Path | None = None) -> Path:
 def working_dir(cwd: Path | None = None) -> Path:
     """Where the loading screen keeps each vessel's working condition (beside the logs)."""
     return log_dir(cwd) / "working"
+
+
+def working_file(work_dir: Path, vessel_name: str) -> Path:
+    """A vessel's working condition: ``<slug>-<hash>.condition.toml``.
+
+    The slug keeps letters of any script (for people reading the folder); the first 10 hex
+    digits of the SHA-256 of the full name make the name unique per vessel, so that "Bjørn"
+    and "Björn", or two names in a script the slug cannot show, never share one file.
+    """
+    import hashlib
+
+    from deckload.logbook import vessel_slug
+
+    digest = hashlib.sha256(vessel_name.encode("utf-8")).hexdigest()[:10]
+    return work_dir / f"{vessel_slug(vessel_name)[:60]}-{digest}.condition.toml"
+
+
+def legacy_working_file(work_dir: Path, vessel_name: str) -> Path:
+    """The name earlier versions used (ASCII letters and digits only; shared by some vessels)."""
+    import re
+
+    slug = re.sub(r"[^a-z0-9]+", "-", vessel_name.lower()).strip("-") or "vessel"
+    return work_dir / f"{slug}.condition.toml"

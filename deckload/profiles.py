@@ -68,8 +68,11 @@ CONDITION_FORMAT = "deckload-condition-1"
 LIQUID_DENSITY_RANGE_T_M3 = (0.5, 2.0)
 """Plausible densities of a tank's contents (t/m³): light oils ~0.8, heavy brines ~1.3."""
 
-WATER_DENSITY_RANGE_T_M3 = (0.99, 1.04)
-"""Plausible densities of the water a vessel floats in (t/m³): fresh 1.000, sea about 1.025."""
+from deckload.core.bounds import (  # noqa: E402  one set of ranges for files and the screen
+    BEAM_DEPTH_RANGE_M,
+    LBP_RANGE_M,
+    WATER_DENSITY_RANGE_T_M3,
+)
 
 CAPACITY_TOLERANCE = 0.0005
 """A tank's capacity_m3 may differ from its last calibration volume by at most 0.05 % (round-off):
@@ -105,7 +108,12 @@ def read_profile(path: str | os.PathLike) -> tuple[m.Vessel, "Reading"]:
 
 
 def _read_text(path: str | os.PathLike) -> str:
-    data = Path(path).read_bytes()
+    from deckload.limits import MAX_TOML_BYTES, TooLargeError, read_limited
+
+    try:
+        data = read_limited(path, MAX_TOML_BYTES, "a profile or condition")
+    except TooLargeError as e:
+        raise ProfileError([Problem(str(path), None, "", None, str(e).split(": ", 1)[1])]) from None
     try:
         return data.decode("utf-8")
     except UnicodeDecodeError as e:
@@ -189,7 +197,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     root.finish()
     ctx.fail_if_any()
 
-    return m.Vessel(
+    return _physical(ctx).check_vessel(ctx, m.Vessel(
         particulars=particulars,
         lightship=lightship,
         hydrostatics=hydro,
@@ -209,7 +217,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
         conversions=tuple(rd.conversions),
         assumptions=tuple(rd.assumptions),
         draft_marks=marks,
-    )
+    ))
 
 
 def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:
@@ -222,9 +230,10 @@ def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:
     kw = dict(
         name=t.text("name"),
         vessel_type=t.text("vessel_type", required=False, empty_ok=True),
-        lbp_m=t.num("lbp_m", positive),
-        breadth_m=t.num("breadth_m", positive),
-        depth_m=t.num("depth_m", positive),
+        # every other physical bound derives from these three (deckload.core.bounds)
+        lbp_m=t.num("lbp_m", positive, between(*LBP_RANGE_M, "m", "a ship's length between perpendiculars")),
+        breadth_m=t.num("breadth_m", positive, between(*BEAM_DEPTH_RANGE_M, "m", "a ship's moulded breadth")),
+        depth_m=t.num("depth_m", positive, between(*BEAM_DEPTH_RANGE_M, "m", "a ship's moulded depth")),
         design_draft_m=t.num("design_draft_m", positive),
         table_density_t_m3=t.num("table_density_t_m3", water_density),
     )
@@ -1192,7 +1201,8 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
             consts.append(item)
     root.finish()
     ctx.fail_if_any()
-    return m.Condition(tanks=tuple(fills), holds=tuple(loads), deck_items=tuple(items), constants=tuple(consts), **head)
+    cond = m.Condition(tanks=tuple(fills), holds=tuple(loads), deck_items=tuple(items), constants=tuple(consts), **head)
+    return _physical(ctx).check_condition(ctx, vessel, cond)
 
 
 def _keyed_tables(root: Table, group: str, known: dict[str, int], what: str) -> list[tuple[str, Table]]:
@@ -1295,6 +1305,13 @@ def _read_deck_items(root: Table, vessel: m.Vessel) -> list[m.DeckItem]:
             continue
         out.append(m.DeckItem(area_id=area, footprint_m2=fp, **vars(base)))
     return out
+
+
+def _physical(ctx: FileCheck):
+    """Physical bounds and completeness, checked once the model is built (deckload.physcheck)."""
+    from deckload import physcheck
+
+    return physcheck
 
 
 # =========================================================================== writing

@@ -580,6 +580,16 @@ pre code {{ font-family: inherit; }}
 # --------------------------------------------------------------------------- command
 
 
+def _log_anchor_text(vessel_name: str) -> str:
+    """' · voyage log at entry #N, SHA-256 1a2b…' : the newest log entry, so that a printed copy
+    can be checked against the log later (``deckload log verify --against HASH``)."""
+    from deckload.logbook import anchor
+    from deckload.paths import log_dir
+
+    a = anchor(log_dir(), vessel_name)
+    return "" if a is None else f" · voyage log at entry #{a[0]}, SHA-256 {a[1][:16]}"
+
+
 def run_report(profile_path: Path, condition_path: Path, html: bool, output: Path | None) -> int:
     """``deckload report``: load, evaluate, render; write to ``output`` or print.
 
@@ -594,7 +604,7 @@ def run_report(profile_path: Path, condition_path: Path, html: bool, output: Pat
         return loaded
     vessel, condition, result = loaded
     stamp = clock_stamp()
-    source = Path(condition_path).name
+    source = Path(condition_path).name + _log_anchor_text(vessel.particulars.name)
     if html:
         doc = render_report_html(result, vessel, condition, stamp=stamp, source=source)
         if not html_fits_a4(doc):

@@ -279,7 +279,9 @@ _finite = dict(allow_nan=False, allow_infinity=False)
     pct=st.floats(0.0, 100.0, **_finite),
     vol=st.floats(0.0, 50.0, **_finite),
     hold_t=st.floats(0.0, 400.0, **_finite),
-    xs=st.lists(st.tuples(st.text(min_size=1, max_size=20).filter(str.strip), st.floats(0.0, 50.0, **_finite),
+    # names: any printable text (control, format and line/paragraph separators are refused by design)
+    xs=st.lists(st.tuples(st.text(st.characters(blacklist_categories=("Cc", "Cs", "Cf", "Zl", "Zp")),
+                                  min_size=1, max_size=20).filter(str.strip), st.floats(0.0, 50.0, **_finite),
                           st.floats(-5.0, 45.0, **_finite), st.floats(0.0, 12.0, **_finite),
                           st.floats(-5.0, 5.0, **_finite)), max_size=4),
     reverse=st.booleans(),

@@ -107,7 +107,8 @@ def test_calc_exits_nonzero_when_displacement_leaves_the_tables(tmp_path, capsys
     heavy = tmp_path / "heavy.condition.toml"
     heavy.write_text(
         'format = "deckload-condition-1"\n[condition]\nname = "overloaded"\nwater_density_t_m3 = 1.025\n'
-        '[[deck_item]]\nname = "impossible block"\nmass_t = 5000.0\nlcg_m = 17.0\nvcg_m = 5.0\ntcg_m = 0.0\n'
+        # two blocks, each within one item's bound (Δmax − lightship), together beyond the table
+        + '[[deck_item]]\nname = "block"\nmass_t = 400.0\nlcg_m = 17.0\nvcg_m = 5.0\ntcg_m = 0.0\n' * 2
     )
     code = main(["calc", str(DEMO_PROFILE), str(heavy)])
     err = capsys.readouterr().err

@@ -90,32 +90,45 @@ def _row_at_volume(tank: Tank, volume_m3: float) -> np.ndarray:
     return lerp_row(tank.table, i, f)
 
 
+ROUND_OFF = 1e-9
+"""Round-off allowance when a stated amount meets its limit: ``limit + 1e-9·max(1, |limit|)``.
+The profile reader (tomlcheck.REL_TOL, ``at_most``) and the screen's entry check use the same
+allowance, so an amount one accepts the calculation never refuses."""
+
+
+def over_limit(value: float, limit: float) -> bool:
+    """True when ``value`` exceeds ``limit`` by more than the round-off allowance."""
+    return not value <= limit + ROUND_OFF * max(1.0, abs(limit))
+
+
 def volume_of(tank: Tank, quantity: str, value: float, density_t_m3: float) -> float:
     """Volume (m³) for an amount stated as ``quantity`` (percent, volume_m3, mass_t, sounding_m, ullage_m).
 
-    Raises :class:`LoadingError` when the amount does not fit the tank.
+    An amount over its limit by no more than the round-off allowance (:func:`over_limit`)
+    is the limit itself.  Raises :class:`LoadingError` when the amount does not fit the tank.
     """
+    cap = tank.capacity_m3
     if quantity == "percent":
-        if not 0.0 <= value <= 100.0:
+        if not value >= 0.0 or over_limit(value, 100.0):
             raise LoadingError(f"tank {tank.id}: {value:g} % is outside 0–100 %")
-        return min(tank.capacity_m3 * value / 100.0, float(tank.table[-1, 1]))
+        return min(cap * min(value, 100.0) / 100.0, float(tank.table[-1, 1]))
     if quantity == "volume_m3":
-        volume = value
+        limit, volume = cap, value
     elif quantity == "mass_t":
-        volume = value / density_t_m3
+        limit, volume = cap * density_t_m3, value / density_t_m3
     elif quantity in ("sounding_m", "ullage_m"):
         return float(_row_at_reading(tank, quantity, value)[1])
     else:
         raise LoadingError(f"tank {tank.id}: unknown quantity {quantity!r}")
-    if volume < 0.0:
+    if not value >= 0.0:
         raise LoadingError(f"tank {tank.id}: a negative amount ({value:g}) cannot be loaded")
-    if volume > tank.capacity_m3 * (1.0 + 1e-9):
+    if over_limit(value, limit):
         raise LoadingError(
-            f"tank {tank.id}: {volume:.2f} m³ exceeds its capacity of {tank.capacity_m3:.2f} m³"
+            f"tank {tank.id}: {volume:.2f} m³ exceeds its capacity of {cap:.2f} m³"
         )
     # capacity_m3 and the table's top may differ by round-off (the loader allows 0.05 %):
     # never ask the table for more than it holds.
-    return min(volume, tank.capacity_m3, float(tank.table[-1, 1]))
+    return min(volume, cap, float(tank.table[-1, 1]))
 
 
 def contents_at_volume(tank: Tank, volume_m3: float, density_t_m3: float) -> TankContents:

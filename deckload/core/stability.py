@@ -21,6 +21,7 @@ from dataclasses import replace
 import numpy as np
 
 from deckload.core import gz as gzmod
+from deckload.core.bounds import bounded
 from deckload.core.criteria import Measures, limit_curve_criterion
 from deckload.core.free_surface import BASIS_NONE, free_surface, transfer_moment_m4
 from deckload.core.hydrostatics import (
@@ -71,6 +72,7 @@ def _curve_limit(curve, displacement_t: float) -> float | None:
         return None
 
 
+@bounded
 def evaluate(vessel: Vessel, condition: Condition) -> Result:
     """Complete intact-stability state of ``vessel`` in ``condition``.
 

@@ -16,7 +16,8 @@ from __future__ import annotations
 import re
 from dataclasses import dataclass
 
-from deckload.core.loading import LoadingError, level_of, reading_range, volume_of
+from deckload.core import bounds
+from deckload.core.loading import LoadingError, level_of, over_limit, reading_range, volume_of
 from deckload.core.model import (
     LEVEL_QUANTITIES,
     Condition,
@@ -28,6 +29,8 @@ from deckload.core.model import (
     TankFill,
     Vessel,
 )
+from deckload.limits import MAX_ENTRY_CHARS
+from deckload.textsafe import control_char
 
 UNITS: dict[str, str] = {"%": "percent", "m3": "volume_m3", "m³": "volume_m3", "t": "mass_t", "m": "sounding_m",
                          "u": "ullage_m"}
@@ -36,13 +39,16 @@ UNITS: dict[str, str] = {"%": "percent", "m3": "volume_m3", "m³": "volume_m3", 
 UNIT_LABEL: dict[str, str] = {"percent": "%", "volume_m3": "m³", "mass_t": "t", "sounding_m": "m sounding",
                               "ullage_m": "m ullage"}
 
-WATER_DENSITY_RANGE_T_M3 = (0.990, 1.040)
-"""Accepted water density: fresh river water to dense sea water (common practice)."""
+WATER_DENSITY_RANGE_T_M3 = bounds.WATER_DENSITY_RANGE_T_M3
+"""Accepted water density: the same range as every condition file (deckload.core.bounds)."""
 
 EMPTY_VOLUME_M3 = 1e-9
 
-_AMOUNT = re.compile(r"^\s*(?P<num>[0-9]*\.?[0-9]+)\s*(?P<unit>%|m3|m³|t|m|u)\s*$", re.IGNORECASE)
-_NUMBER = re.compile(r"^\s*(?P<num>[+-]?[0-9]*\.?[0-9]+)\s*(?P<unit>[a-z³/%0-9]*)\s*$", re.IGNORECASE)
+# Linear-time patterns: a digit run belongs to exactly one part, so nothing is tried twice
+# (the earlier '[0-9]*\.?[0-9]+' could split a run of digits every way before failing).
+_DECIMAL = r"(?:[0-9]+(?:\.[0-9]+)?|\.[0-9]+)"
+_AMOUNT = re.compile(rf"^\s*(?P<num>{_DECIMAL})\s*(?P<unit>%|m3|m³|t|m|u)\s*$", re.IGNORECASE)
+_NUMBER = re.compile(rf"^\s*(?P<num>[+-]?{_DECIMAL})\s*(?P<unit>[a-z³/%]*[0-9]?)\s*$", re.IGNORECASE)
 
 
 class EntryError(ValueError):
@@ -52,9 +58,15 @@ class EntryError(ValueError):
 # --------------------------------------------------------------------------- numbers
 
 
+def _too_long(raw: str, what: str) -> None:
+    if len(raw) > MAX_ENTRY_CHARS:
+        raise EntryError(f"{what}: {len(raw)} characters typed; an entry has at most {MAX_ENTRY_CHARS}.")
+
+
 def parse_amount(text: str) -> tuple[str, float]:
     """``"55%"`` → ``("percent", 55.0)``; refuses a bare number or an unknown unit."""
     raw = text.strip()
+    _too_long(raw, "Amount")
     if not raw:
         raise EntryError("Nothing typed: give an amount with its unit, e.g. 55%, 12.5m3, 10t, 1.2m or 0.85u.")
     if "," in raw:
@@ -71,6 +83,7 @@ def parse_amount(text: str) -> tuple[str, float]:
 def parse_number(text: str, what: str, unit: str = "", *, low: float | None = None, high: float | None = None) -> float:
     """A plain number, optionally followed by ``unit``; checked against [low, high]."""
     raw = text.strip()
+    _too_long(raw, what)
     m = _NUMBER.match(raw)
     if raw and "," in raw:
         raise EntryError(f"{what}: {raw!r}: use a decimal point, not a comma.")
@@ -145,10 +158,10 @@ def check_tank_amount(tank: Tank, quantity: str, value: float, density_t_m3: flo
     high, unit = limits[quantity]
     if value < 0:
         raise EntryError(f"{tank.id}: {value:g} {unit} is negative.")
-    if value > high * (1 + 1e-9):
+    if over_limit(value, high):  # the calculation's own round-off rule (core.loading)
         what = {"percent": "100 %", "volume_m3": f"its capacity {high:.2f} m³",
                 "mass_t": f"its capacity {high:.2f} t at {density_t_m3:.3f} t/m³"}[quantity]
-        raise EntryError(f"{tank.id}: {value:g} {unit} is more than {what}.")
+        raise EntryError(f"{tank.id}: {value:.12g} {unit} is more than {what}.")
 
 
 def set_tank(condition: Condition, tank: Tank, quantity: str, value: float) -> Condition:
@@ -156,6 +169,8 @@ def set_tank(condition: Condition, tank: Tank, quantity: str, value: float) -> C
     fill = condition.tank_fill(tank.id)
     density = tank_density(tank, fill)
     check_tank_amount(tank, quantity, value, density)
+    if quantity == "percent":
+        value = min(value, 100.0)  # within round-off of full is full, as the calculation takes it
     if quantity != "ullage_m" and value <= 0:
         return condition.without_tank(tank.id)
     override = fill.density_t_m3 if fill is not None else None
@@ -261,9 +276,11 @@ def plan_transfer(vessel: Vessel, condition: Condition, from_id: str, to_id: str
 # --------------------------------------------------------------------------- holds and items
 
 
-def hold_from_text(condition: Condition, hold: Hold, text: str) -> Condition:
-    """Set a hold's cargo mass (t); 0 empties it.  The structural limit is enforced."""
-    mass = parse_number(text, f"{hold.id} cargo mass", "t", low=0.0)
+def hold_from_text(condition: Condition, hold: Hold, text: str, vessel: Vessel | None = None) -> Condition:
+    """Set a hold's cargo mass (t); 0 empties it.  The structural limit is enforced, and with
+    ``vessel`` the physical bound of one item's mass (:func:`deckload.core.bounds.item_mass_range`)."""
+    high = bounds.item_mass_range(vessel).high if vessel is not None else None
+    mass = parse_number(text, f"{hold.id} cargo mass", "t", low=0.0, high=high)
     if hold.max_mass_t is not None and mass > hold.max_mass_t:
         raise EntryError(f"{hold.id}: {mass:g} t is over the hold's structural limit {hold.max_mass_t:g} t.")
     if mass == 0:
@@ -299,17 +316,23 @@ def item_from_form(vessel: Vessel, form: ItemForm, *, deck: bool, base: MassItem
     ``base``: the item being edited; what the form does not show (a deck item's
     footprint) is kept from it.
 
-    Positions must lie within the vessel's envelope: x from −0.2·LBP to 1.2·LBP,
-    |y| ≤ B/2, z from 0 to depth + 30 m (room for masts and deck stows).
+    Mass and position must lie within the vessel's physical bounds, the same ones every
+    file is held to (:mod:`deckload.core.bounds`): x from −0.2·LBP to 1.2·LBP, |y| ≤ B/2,
+    z from 0 to depth + 30 m, mass up to the greatest tabulated displacement less lightship.
     """
     p = vessel.particulars
     name = form.name.strip()
     if not name:
         raise EntryError("Name: give the item a name.")
-    mass = parse_number(form.mass, "Mass", "t", low=0.0)
-    lcg = parse_number(form.lcg, "LCG (from AP)", "m", low=-0.2 * p.lbp_m, high=1.2 * p.lbp_m)
-    vcg = parse_number(form.vcg, "VCG (above keel)", "m", low=0.0, high=p.depth_m + 30.0)
-    tcg = parse_number(form.tcg or "0", "TCG (+ starboard)", "m", low=-p.breadth_m / 2, high=p.breadth_m / 2)
+    if len(name) > 200:
+        raise EntryError("Name: at most 200 characters.")
+    if control_char(name) is not None:
+        raise EntryError(f"Name: holds the control character {control_char(name)}; type plain text.")
+    mr, xr, zr, yr = bounds.item_mass_range(vessel), bounds.x_range(p), bounds.z_range(p), bounds.y_range(p)
+    mass = parse_number(form.mass, "Mass", "t", low=mr.low, high=mr.high)
+    lcg = parse_number(form.lcg, "LCG (from AP)", "m", low=xr.low, high=xr.high)
+    vcg = parse_number(form.vcg, "VCG (above keel)", "m", low=zr.low, high=zr.high)
+    tcg = parse_number(form.tcg or "0", "TCG (+ starboard)", "m", low=yr.low, high=yr.high)
     if not deck:
         return MassItem(name, mass, lcg, vcg, tcg)
     area = form.area.strip() or None

@@ -99,6 +99,8 @@ class LoadingScreen(Screen[None]):
         return t
 
     def _report(self, problem: str) -> None:
+        # A save or log failure replaces the message line, which must never still read as done.
+        self.say(problem, ok=False)
         self.notify(problem, severity="error", timeout=8, markup=False)
 
     def say(self, message: str, ok: bool | None = True) -> None:
@@ -119,7 +121,7 @@ class LoadingScreen(Screen[None]):
         self.refresh_view()
         self.say(label + self._gm_change(gm_before))
         for p in problems:
-            self.notify(p, severity="error", timeout=8, markup=False)
+            self._report(p)
 
     def _gm_change(self, before: float | None) -> str:
         s = self.session
@@ -181,7 +183,7 @@ class LoadingScreen(Screen[None]):
         limit = f"; structural limit {hold.max_mass_t:g} t" if hold.max_mass_t is not None else ""
 
         def build(text: str) -> tuple[Condition, str]:
-            return entry.hold_from_text(s.condition, hold, text), text.strip()
+            return entry.hold_from_text(s.condition, hold, text, s.vessel), text.strip()
 
         def done(r) -> None:
             if r:
@@ -222,7 +224,7 @@ class LoadingScreen(Screen[None]):
             hold = s.vessel.hold(ident)
             load = next((h for h in s.condition.holds if h.hold_id == ident), None)
             self._try(lambda: entry.hold_from_text(
-                s.condition, hold, f"{entry.nudge_mass(load.mass_t if load else 0.0, step, hold.id)}"),
+                s.condition, hold, f"{entry.nudge_mass(load.mass_t if load else 0.0, step, hold.id)}", s.vessel),
                 f"{hold.id} {step:+d} t", "cargo", {"hold": hold.id, "nudge_t": step})
         elif what in ("deck", "const"):
             deck = what == "deck"
@@ -324,7 +326,7 @@ class LoadingScreen(Screen[None]):
         self.refresh_view()
         self.say(label)
         for p in problems:
-            self.notify(p, severity="error", timeout=8, markup=False)
+            self._report(p)
 
     def action_toggle_gz(self) -> None:
         self.toggle_class("-gz")
