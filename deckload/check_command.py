@@ -138,6 +138,8 @@ def _booklet(path: Path, vessel: m.Vessel) -> int:
     for case in cases:
         where = f" ({case.page})" if case.page else ""
         print(f"booklet condition {case.name!r}{where}, loading: {case.source}")
+        for line in case.conversions:
+            print(f"    {line}")
         try:
             result = evaluate(vessel, case.condition)
         except (OutOfRangeError, ValueError) as e:

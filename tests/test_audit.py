@@ -14,7 +14,7 @@ import numpy as np
 import pytest
 
 from box_profile_text import fv22_text
-from deckload.audit_report import audit_profile, locate
+from deckload.audit_report import audit_profile
 from deckload.check_command import run_check
 from deckload.core.audit import ERROR, WARNING, audit
 from deckload.core.model import frozen_array
