@@ -64,6 +64,7 @@ PROFILE = ROOT / "vessel_profiles" / "demo_trawler.toml"
 PACKAGED = ROOT / "deckload" / "data" / "demo_trawler.toml"
 MID_M = 11.0
 LBP_M = 22.0
+KEEL_M = 0.012  # the booklet's drafts are extreme: moulded + the keel plate
 RHO_SW = 1.025
 BEGIN = "# ---- booklet conditions: written by tools/demo_trawler_booklet_conditions.py (do not edit by hand)"
 END = "# ---- end of booklet conditions"
@@ -266,7 +267,10 @@ def compute(cond_file: Path, profile: dict, hull, meshes: dict, tank_meshes: dic
     return {
         "displacement_t": round(disp, 2),
         "deadweight_t": round(disp - dmin, 2),
-        "lcg_m": round(lcg, 3),
+        "longitudinal_datum": "midships",  # printed as the booklet prints it: LCG from midships,
+        "longitudinal_positive": "forward",  # + forward, and the drafts extreme (at the marks)
+        "draft_basis": "extreme",
+        "lcg_m": round(lcg - MID_M, 3),
         "tcg_m": round(tcg, 3) + 0.0,
         "kg_m": round(kg, 3),
         "fsm_tm": round(fsm, 2),
@@ -275,9 +279,9 @@ def compute(cond_file: Path, profile: dict, hull, meshes: dict, tank_meshes: dic
         "km_m": round(km, 3),
         "gm_solid_m": round(km - kg, 3),
         "gm_m": round(km - kg_f, 3),
-        "draft_aft_m": round(aft, 3),
-        "draft_mid_m": round(mid, 3),
-        "draft_fwd_m": round(fwd, 3),
+        "draft_aft_m": round(aft + KEEL_M, 3),
+        "draft_mid_m": round(mid + KEEL_M, 3),
+        "draft_fwd_m": round(fwd + KEEL_M, 3),
         "trim_m": round(aft - fwd, 3),
         "gz_heel_deg": [int(h) for h in PRINTED_GZ_HEELS],
         "gz_m": [round(float(gz[i]), 3) for i in idx],
@@ -302,6 +306,8 @@ def profile_head() -> dict:
 
 
 def toml_value(v) -> str:
+    if isinstance(v, str):
+        return f'"{v}"'
     if isinstance(v, list):
         return "[" + ", ".join(toml_value(x) for x in v) + "]"
     return f"{v}"
@@ -315,7 +321,7 @@ def main() -> int:
     blocks = [BEGIN,
               "# The booklet's worked conditions and its printed results (invented booklet; method: the",
               "# docstring of tools/demo_trawler_booklet_conditions.py — trimesh on the hull offsets, not",
-              "# deckload's tables).  Positions in deckload's conventions: x from the AP, moulded drafts.",
+              "# deckload's tables), typed as the booklet prints them: LCG from midships, extreme drafts.",
               ""]
     for name, page, fname in CONDITIONS:
         res = compute(PROFILE.parent / fname, profile, hull, meshes, tank_meshes, load_geometry(GEOMETRY).openings)
