@@ -80,6 +80,20 @@ def format_summary(r: Result) -> str:
     return "\n".join(lines)
 
 
+def format_comparison(cmp) -> str:
+    """The direct calculation beside the tables' result: one row per quantity, with the difference."""
+    lines = [
+        "",
+        "  Second method: direct calculation from the hull geometry (free in trim and heel, for the actual G)",
+        f"    {'':<24}{'tables':>11}{'direct':>11}{'difference':>12}",
+    ]
+    for name, unit, a, b in cmp.rows:
+        d = 2 if unit == "deg" else 4 if unit == "m·rad" else 3
+        lines.append(f"    {name:<24}{a:11.{d}f}{b:11.{d}f}{b - a:+12.{d}f} {unit}")
+    lines.append("    The criteria above are judged on the tables; the direct figures are for comparison.")
+    return "\n".join(lines)
+
+
 def load_and_evaluate(profile_path: Path, condition_path: Path):
     """Load a profile and a condition and evaluate them, for the commands that print results.
 
@@ -91,8 +105,13 @@ def load_and_evaluate(profile_path: Path, condition_path: Path):
     from deckload.core.tables import OutOfRangeError
     from deckload.profiles import ProfileError, load_condition, load_profile
 
+    from deckload.audit_report import audit_or_refuse
+
     try:
         vessel = load_profile(profile_path)
+        # A profile whose numbers contradict each other (positions outside the vessel, a KN or an
+        # inertia beyond her hull) is never used, by any command (issue 12: the screen already refused it).
+        audit_or_refuse(profile_path, vessel)
         condition = load_condition(condition_path, vessel)
         return vessel, condition, evaluate(vessel, condition)
     except ProfileError as e:
@@ -106,19 +125,45 @@ def load_and_evaluate(profile_path: Path, condition_path: Path):
         return 2
 
 
-def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False) -> int:
-    """Load, evaluate and print; exit 0 when computed (pass or fail), non-zero on bad input."""
+def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False, direct: bool = False) -> int:
+    """Load, evaluate and print; exit 0 when computed (pass or fail), non-zero on bad input.
+
+    With ``direct`` the direct calculation from the hull geometry is printed beside the
+    tables' result (the profile must name its ``hull_geometry``)."""
     loaded = load_and_evaluate(profile_path, condition_path)
     if isinstance(loaded, int):
         return loaded
-    vessel, result = loaded[0], loaded[2]
+    vessel, _, result = loaded
+    cmp = None
+    if direct:
+        from deckload.core.equilibrium import DirectError, compare
+        from deckload.core.tables import OutOfRangeError
+
+        try:
+            cmp = compare(vessel, result)
+        except (DirectError, OutOfRangeError) as e:
+            print(f"{profile_path}: direct calculation: {e}", file=sys.stderr)
+            return 1
     if as_json:
-        print(json.dumps(result.to_json_dict(), indent=1, ensure_ascii=False, allow_nan=False))
+        doc = result.to_json_dict()
+        if cmp is not None:
+            doc["direct"] = {"method": "hull geometry, free trim and heel, actual G",
+                             "rows": [{"quantity": n, "unit": u, "tables": a, "direct": b} for n, u, a, b in cmp.rows],
+                             "gz_m": list(cmp.gz_direct_m)}
+        print(json.dumps(doc, indent=1, ensure_ascii=False, allow_nan=False))
     else:
-        print(format_summary(result))
+        text = format_summary(result)
+        extra = []
         keel = vessel.particulars.keel_thickness_m
         if keel > 0.0:
             # The draft marks read extreme drafts where the booklet gives a keel thickness.
-            print(f"  Extreme drafts (moulded + keel {keel:.3f} m): aft {result.draft_aft_m + keel:.3f} m, "
-                  f"midships {result.draft_mean_m + keel:.3f} m, fwd {result.draft_fwd_m + keel:.3f} m")
+            extra.append(f"  Extreme drafts (moulded + keel {keel:.3f} m): aft {result.draft_aft_m + keel:.3f} m, "
+                         f"midships {result.draft_mean_m + keel:.3f} m, fwd {result.draft_fwd_m + keel:.3f} m")
+        if cmp is not None:
+            extra.append(format_comparison(cmp))
+        if extra:
+            # before the closing caution, which stays the last word of every printout
+            head, sep, tail = text.rpartition("\n\n" + CAUTION)
+            text = head + "\n" + "\n".join(extra) + sep + tail
+        print(text)
     return 0

@@ -10,6 +10,7 @@ import csv
 import html as htmllib
 import io
 import sys
+import textwrap
 from pathlib import Path
 
 from deckload import verdict_format as vf
@@ -205,7 +206,8 @@ def _show(args) -> int:
                 )
                 na = (e.summary or {}).get("not_assessed")
                 if na:
-                    print(f"{'':>6}not assessed: " + "; ".join(f"{x.get('item')} ({x.get('reason')})" for x in na))
+                    text = "not assessed: " + vf.grouped_not_assessed((x.get("item"), x.get("reason")) for x in na)
+                    print("\n".join(textwrap.wrap(text, 110, initial_indent=" " * 6, subsequent_indent=" " * 8)))
             for s in book.skipped:
                 print(f"  ! unreadable: {s} (run 'deckload log verify')")
             print()

@@ -215,3 +215,12 @@ def stored_lines(summary: dict | None, width: int = 100, indent: str = "  ") -> 
     failed = summary.get("criteria_failed") or []
     head = f"Criteria: NOT MET — {', '.join(failed)}" if failed else "Criteria: met"
     return [indent + head + " (this entry predates the record of criteria sets and of what was not assessed)"]
+
+
+def grouped_not_assessed(pairs) -> str:
+    """(item, reason) pairs worded with each reason once: 'damage stability, icing: not computed by
+    deckload; IS Code 2008 Part A 2.3 weather criterion: the profile has no windage data'."""
+    by_reason: dict[str, list[str]] = {}
+    for item, reason in pairs:
+        by_reason.setdefault(str(reason), []).append(str(item))
+    return "; ".join(f"{', '.join(items)}: {reason}" for reason, items in by_reason.items())

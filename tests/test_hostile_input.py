@@ -107,14 +107,28 @@ def test_json_output_is_strict(capsys):
 
 @pytest.mark.parametrize("old,new,key", [
     ("lbp_m = 38.0", "lbp_m = 1e9", "vessel.lbp_m"),
-    ("mass_t = 400.0\nlcg_m = 17.4", "mass_t = 400.0\nlcg_m = 1700.4", "lightship.lcg_m"),
-    ("kmt_m = [\n    7.9088", "kmt_m = [\n    79088.0", "hydrostatics.kmt_m"),
 ])
 def test_profile_values_beyond_the_vessels_physics_are_refused(old, new, key):
     assert old in PROFILE_TEXT
     with pytest.raises(ProfileError) as ei:
         parse_profile(PROFILE_TEXT.replace(old, new, 1), "p.toml")
     assert key in [p.key for p in ei.value.problems]
+
+
+@pytest.mark.parametrize("old,new,key", [
+    ("kmt_m = [\n    7.9088", "kmt_m = [\n    79088.0", "hydrostatics.kmt_m"),
+    ("mass_t = 400.0\nlcg_m = 17.4", "mass_t = 400.0\nlcg_m = 1700.4", "lightship.lcg_m"),
+])
+def test_calc_refuses_a_profile_the_audit_finds_impossible(tmp_path, capsys, old, new, key):
+    """Profile tables are judged by the plausibility audit, now before every command uses them."""
+    f = tmp_path / "p.toml"
+    f.write_text(PROFILE_TEXT.replace(old, new, 1), encoding="utf-8")
+    cond = tmp_path / "c.toml"
+    cond.write_text(DEPARTURE, encoding="utf-8")
+    for cmd in ("calc", "report"):
+        assert main([cmd, str(f), str(cond)] + (["--txt"] if cmd == "report" else [])) == 1
+        err = capsys.readouterr().err
+        assert key in err and "plausibility audit" in err
 
 
 # ------------------------------------------------------------------ case 2: numbers the TOML reader chokes on

@@ -229,3 +229,20 @@ def test_a_stored_summary_is_worded_with_its_sets_and_older_entries_say_what_the
     assert vf.stored_short(old) == "met (sets not recorded)"
     assert "predates the record of criteria sets" in vf.stored_lines(old)[0]
     assert vf.stored_short(None) == "" and vf.stored_lines(None) == []
+
+
+def test_wind_plot_without_a_curve_says_what_the_assessed_criterion_found():
+    """When GZ never reaches a wind lever the engine gives no WeatherResult but still judges the set:
+    the plot panel then shows the criteria of the set with their notes, not 'not assessed'."""
+    import dataclasses
+
+    from deckload.ui.verdict import weather_missing
+    from verdict_samples import demo_with_verdict
+
+    _, _, r = demo_with_verdict(weather_fails=True)
+    failed = dataclasses.replace(next(c for c in r.criteria if c.id.endswith("area-b-a")),
+                                 note="GZ never reaches lw2 = 0.2000 m")
+    r = dataclasses.replace(r, weather=None, criteria=tuple(failed if c.id == failed.id else c for c in r.criteria))
+    text = " ".join(" ".join(t.plain for t in weather_missing(r, 54)).split())
+    assert "No plot" in text and "FAIL Weather: area b at least area a: GZ never reaches lw2 = 0.2000 m" in text
+    assert "not assessed" not in text

@@ -222,7 +222,15 @@ def weather_missing(result: Result | None, width: int = 60) -> list[Text]:
     out = [Text(" Wind and roll", P["title"])]
     if result is None:
         return out + [Text(" no result: see the warning above", P["danger"])]
+    wrap = lambda text: textwrap.wrap(text, max(10, width - 2), initial_indent=" ", subsequent_indent="   ")  # noqa: E731
+    assessed = [c for c in result.criteria if "2.3" in c.set_id or "weather" in c.set_id.lower()]
+    if assessed:  # assessed, but there is no curve to draw (GZ never reaches a wind lever): say what was found
+        out += [Text(x, P["caution"]) for x in wrap("No plot: the levers have no intercept with GZ to draw.")]
+        for c in assessed:
+            word = verdict(c)[0]
+            out += [Text(x, P["danger"] if word == "FAIL" else P["label"]) for x in wrap(
+                f"{word} {c.description}" + (f": {c.note}" if c.note else ""))]
+        return out
     why = next((n for n in result.not_assessed if "weather" in n.item.lower() or "2.3" in n.item), None)
     text = f"{why.item} not assessed: {why.reason}" if why else "the weather criterion was not assessed for this condition"
-    return out + [Text(x, P["caution"]) for x in textwrap.wrap(text, max(10, width - 2), initial_indent=" ",
-                                                                subsequent_indent=" ")]
+    return out + [Text(x, P["caution"]) for x in wrap(text)]
