@@ -34,6 +34,7 @@ from rich.console import Console, Group, RenderableType
 from rich.table import Table
 from rich.text import Text
 
+from deckload.core.free_surface import EXEMPT_RULE
 from deckload import verdict_format as vf
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
@@ -226,6 +227,11 @@ def _free_surface(result: Result) -> Table:
     # rule that left them there, so that a full condition still fits one page.
     zero: dict[str, list[str]] = {}
     for tk in result.tanks:
+        if tk.fsm_tm == 0 and tk.fs_rule == EXEMPT_RULE:
+            # Exempt, not free of free surface: its moment at the actual level is printed, not counted.
+            _row(t, tk.id, f"{tk.fill_pct:.1f}", tk.state.replace("_", " "), f"{tk.density_t_m3:.3f}", "0.00",
+                 f"small tank exempt (IS 2008 B 3.1.12); {tk.fsi_m4 * tk.density_t_m3:.2f} at level, uncounted")
+            continue
         if tk.fsm_tm == 0:
             zero.setdefault("empty" if tk.state == "empty" else tk.fs_rule, []).append(tk.id)
             continue

@@ -46,6 +46,10 @@ BASIS_MAX = "max"
 BASIS_AT_98 = "at98"
 
 
+EXEMPT_RULE = "small tank, exempt (IS 2008 B 3.1.12)"
+"""The rule text of a slack tank left out by the small-tank exemption."""
+
+
 @dataclass(frozen=True)
 class TankFreeSurface:
     """One tank's free-surface treatment in a condition."""
@@ -178,8 +182,13 @@ def free_surface(vessel: Vessel, contents: list[TankContents], rule: str) -> lis
         rho = c.density_t_m3
         if t.fsi_given == "none":
             out[k] = TankFreeSurface(0.0, BASIS_NONE, "no free surface given in the profile (capacity only)", state)
+        elif exempt[k] and state == "empty":
+            out[k] = TankFreeSurface(0.0, BASIS_NONE, "empty", state)
+        elif exempt[k] and state == "full" and t.kind != "cargo_liquid":
+            # Nominally full needs no exemption: say the rule that leaves it at zero (B 3.1.2).
+            out[k] = TankFreeSurface(0.0, BASIS_NONE, "nominally full ≥ 98 % (IS 2008 B 3.1.2)", state)
         elif exempt[k]:
-            out[k] = TankFreeSurface(0.0, BASIS_NONE, "small tank, exempt (IS 2008 B 3.1.12)", state)
+            out[k] = TankFreeSurface(0.0, BASIS_NONE, EXEMPT_RULE, state)
         elif t.id in assumed:
             out[k] = TankFreeSurface(rho * t.max_fsi_m4, BASIS_MAX, assumed[t.id], state)
         elif state == "empty":

@@ -11,6 +11,7 @@ from dataclasses import dataclass
 
 from rich.text import Text
 
+from deckload.core.free_surface import EXEMPT_RULE
 from deckload.core.model import Condition, LIQUID_KINDS, Vessel
 from deckload.core.result import CriterionResult, Result
 from deckload.verdict_format import fmt_optional
@@ -35,7 +36,8 @@ BOARD_ORDER = ("ballast", *(k for k in LIQUID_KINDS if k != "ballast"))
 
 STATE_MARK = {"empty": " ", "slack": "≈", "worst_band": "▲", "full": "■"}
 """Tank state symbol: blank empty, ≈ slack, ▲ slack in its worst free-surface band, ■ nominally full."""
-LEGEND = "≈ slack  ▲ worst band  ■ full  * FSM taken by the IS 2008 B 3.1 rule, not at the actual level"
+LEGEND = ("≈ slack  ▲ worst band  ■ full  * FSM taken by the IS 2008 B 3.1 rule, not at the actual level  "
+          "ex small tank exempt (B 3.1.12), its moment at the actual level beside it, not counted")
 
 NEAR_FRACTION = 0.10
 """A criterion whose margin is under 10 % of its limit is flagged 'near'."""
@@ -109,7 +111,9 @@ def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stal
             fill = condition.tank_fill(tank.id)
             tr = by_id.get(tank.id)
             if tr is not None:
-                values = (tr.fill_pct, tr.volume_m3, tr.mass_t, tr.fsm_tm, tr.state,
+                # An exempt slack tank shows "ex" with its moment at the actual level (not counted).
+                fsm = f" ex{tr.fsi_m4 * tr.density_t_m3:4.1f}" if tr.fs_rule == EXEMPT_RULE else tr.fsm_tm
+                values = (tr.fill_pct, tr.volume_m3, tr.mass_t, fsm, tr.state,
                           tr.fs_rule.startswith(("assumed", "variable", "nominally full cargo")))
             else:  # stale: amounts from the condition itself, no FSM
                 vol = fill_volume_m3(tank, fill)
@@ -137,7 +141,10 @@ def _tank_line(tid, kind_cell, pct, vol, mass, fsm, state, by_rule, kind, cols: 
     line.append("▕", P["bar.empty"])
     style = P["stale"] if stale else P["value"]
     line.append(f"{pct:6.1f}{vol:8.2f}{mass:8.2f}", style)
-    line.append(num(fsm, ".1f", 7), P["stale"] if fsm is None or stale else style)
+    if isinstance(fsm, str):
+        line.append(f"{fsm:>7.7}", P["dim"])
+    else:
+        line.append(num(fsm, ".1f", 7), P["stale"] if fsm is None or stale else style)
     line.append("*" if by_rule else " ", P["label"])
     return line
 
