@@ -365,3 +365,26 @@ def density_from_text(condition: Condition, text: str) -> Condition:
     low, high = WATER_DENSITY_RANGE_T_M3
     rho = parse_number(text, "Water density", "t/m3", low=low, high=high)
     return condition.with_density(rho)
+
+
+# --------------------------------------------------------------------------- ballast planner
+
+
+def planner_move(vessel: Vessel, condition: Condition, from_id: str, to_id: str, mass_t: float) -> Condition:
+    """The transfer form's own pumping, for the planner (deckload.core.ballast_plan): ValueError
+    when it cannot be made."""
+    try:
+        return plan_transfer(vessel, condition, from_id, to_id, f"{mass_t!r}t").condition
+    except EntryError as exc:
+        raise ValueError(str(exc)) from None
+
+
+def planner_room(vessel: Vessel, condition: Condition, from_id: str, to_id: str) -> float:
+    """The most tonnes that can be pumped from ``from_id`` into ``to_id`` (one kind of liquid only)."""
+    src, dst = vessel.tank(from_id), vessel.tank(to_id)
+    if src.kind != dst.kind:
+        raise ValueError("a transfer moves one kind of liquid only")
+    sf, df = condition.tank_fill(from_id), condition.tank_fill(to_id)
+    have = fill_volume_m3(src, sf)
+    free = dst.capacity_m3 - fill_volume_m3(dst, df)
+    return max(0.0, min(have, free) * tank_density(src, sf) * (1 - 1e-9))
