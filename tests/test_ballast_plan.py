@@ -64,3 +64,29 @@ def test_gm_goal_is_a_least_mass_and_an_unreachable_goal_proposes_nothing(listed
     assert propose(v, c, Goal("list", 0.0, 0.2), ["WB1P"], **kw) == []
     # GM fluid 5 m is beyond anything a ballast transfer on this vessel can give (GM ≈ 0.7 m).
     assert propose(v, c, Goal("gm", r0.gm_fluid_m + 5.0, 0.001), ["WB1P", "WB1S", "WB2P", "WB2S"], **kw) == []
+
+
+async def test_planner_form_proposes_then_applies_one_transfer(listed, tmp_path):
+    """By keys: i opens the planner; ⏎ proposes (before/after shown), ⏎ again applies it as one
+    undoable transfer; the recomputed list is within 0.2° of upright."""
+    from deckload.ui.launch import create_app
+    from deckload.ui.planner import PlannerForm
+
+    v, c = listed
+    app = create_app(v, c, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="JS")
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.press("i")
+        await pilot.pause()
+        assert isinstance(app.screen, PlannerForm)
+        app.screen.query_one("#plan-tanks").value = "WB1P WB1S"
+        app.screen.query_one("#plan-goal").focus()
+        await pilot.press("enter")
+        await pilot.pause()
+        assert app.screen.proposal is not None
+        assert "Pump" in str(app.screen.query_one("#form-message").render())
+        assert app.session.condition == c  # nothing applied yet
+        await pilot.press("enter")
+        await pilot.pause()
+        assert not isinstance(app.screen, PlannerForm)
+        assert abs(evaluate(v, app.session.condition).list_deg) <= 0.2
+        assert app.session.undo_depth == 1

@@ -59,6 +59,9 @@ COMMANDS: tuple[Command, ...] = (
     Command("fill", "f", "Full", "Fill the tank under the cursor to 100 %.", words="fill, full, top up"),
     Command("empty", "e", "Empty", "Empty the tank or hold under the cursor; remove the deck load or constant."),
     Command("transfer", "t", "Transfer", "Pump between two tanks, with a before/after preview; commit is one undoable step.", words="ballast, pump, shift, transfer"),
+    Command("ballast_plan", "i", "Planner", "Ballast planner: the one transfer between the tanks you allow that "
+            "brings the list or trim to a value, or GM fluid above one; before/after shown, applied only on ⏎.",
+            footer=False, title="Ballast planner", words="ballast, list, trim, GM, upright, plan"),
     Command("print_report", "p", "Print", "Print from the screen: write the report (HTML to print, and text) of "
             "exactly the condition on screen, say where, and offer to open it.", title="Print report", words="report, print, paper, HTML"),
     Command("add_deck", "a", "+Deck", "Add a deck load: name, mass and position (LCG, VCG, TCG), optional deck area.",

@@ -330,6 +330,22 @@ class LoadingScreen(Screen[None]):
             plan.condition, plan.label, "transfer",
             {"from": plan.from_id, "to": plan.to_id, "mass_t": round(plan.mass_t, 3)}))
 
+    def action_ballast_plan(self) -> None:
+        from deckload.core.stability import evaluate
+        from deckload.ui.planner import PlannerForm
+
+        s = self.session
+        if s.stale or s.result is None:
+            self.say("The condition is outside the tables: the planner needs a result to start from.", ok=False)
+            return
+
+        def done(p) -> None:
+            if p is not None:
+                self.commit(p.condition, f"Planned transfer {p.mass_t:.1f} t {p.from_id} → {p.to_id}", "transfer",
+                            {"from": p.from_id, "to": p.to_id, "mass_t": round(p.mass_t, 3), "planned": True})
+
+        self.app.push_screen(PlannerForm(s.vessel, s.condition, s.result, evaluate), done)
+
     def action_add_deck(self) -> None:
         self._edit_item(True, None)
 

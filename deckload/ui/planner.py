@@ -1,0 +1,110 @@
+"""The ballast planner's form: what is wanted, which tanks may be used, the proposal with its
+before/after (as the transfer preview shows it); ⏎ on a proposal returns it, and the loading
+screen commits it as one transfer.  The search is :func:`deckload.core.ballast_plan.propose`.
+"""
+
+from __future__ import annotations
+
+from functools import partial
+
+from rich.text import Text
+from textual.app import ComposeResult
+from textual.containers import Horizontal, Vertical
+from textual.widgets import Input, Label, Static
+
+from deckload.core.ballast_plan import Goal, Proposal, propose
+from deckload.core.model import Condition, Vessel
+from deckload.core.result import Result
+from deckload.ui import entry
+from deckload.ui.dialogs import Form, preview_lines
+from deckload.ui.entry import EntryError
+from deckload.ui.palette import P
+from deckload.ui.widgets import LinePanel
+
+TOLERANCE = {"list": 0.1, "trim": 0.01, "gm": 0.001}
+"""How close a proposal must come: list 0.1°, trim 1 cm, GM at least the value (to the mm)."""
+
+
+def parse_goal(text: str) -> Goal:
+    """'list 0', 'trim 0.5', 'gm 0.8' (GM fluid at least 0.8 m)."""
+    words = text.replace("=", " ").split()
+    if len(words) != 2 or words[0].lower() not in TOLERANCE:
+        raise EntryError("Goal: list 0 (degrees, + stbd) · trim 0.5 (m, + by the stern) · gm 0.8 (GM fluid at least, m).")
+    try:
+        value = float(words[1])
+    except ValueError:
+        raise EntryError(f"{words[1]!r} is not a number.") from None
+    q = words[0].lower()
+    bound = {"list": 30.0, "trim": 10.0, "gm": 10.0}[q]
+    if not -bound <= value <= bound:
+        raise EntryError(f"A {q} of {value:g} is not a goal for this planner (within ±{bound:g}).")
+    return Goal(q, value, TOLERANCE[q])
+
+
+def parse_tanks(vessel: Vessel, text: str) -> list[str]:
+    ids = [w.strip().upper() for w in text.replace(",", " ").split() if w.strip()]
+    unknown = [i for i in ids if i not in vessel.tank_index]
+    if unknown:
+        raise EntryError(f"Not tanks of {vessel.particulars.name}: {', '.join(unknown)}.")
+    if len(ids) < 2:
+        raise EntryError("Allow at least two tanks to pump between.")
+    return ids
+
+
+class PlannerForm(Form):
+    """Goal and allowed tanks; ⏎ searches; ⏎ again on a shown proposal applies it (returned)."""
+
+    def __init__(self, vessel: Vessel, condition: Condition, before: Result | None, evaluate):
+        super().__init__()
+        self._vessel, self._condition, self._before, self._evaluate = vessel, condition, before, evaluate
+        self.proposal: Proposal | None = None
+        self._asked: tuple[str, str] | None = None
+
+    def compose(self) -> ComposeResult:
+        ballast = " ".join(t.id for t in self._vessel.tanks if t.kind == "ballast")
+        with Vertical(classes="form transfer"):
+            yield Label("Ballast planner: one transfer to reach a list, a trim or a GM", classes="form-title")
+            yield Label("Goal: list 0 · trim 0.5 · gm 0.8 (at least).  Tanks: the ones you allow.  ⏎ proposes, "
+                        "⏎ again applies it as one transfer · Esc cancels", classes="form-hint")
+            for name, label, value in (("goal", "Goal", "list 0"), ("tanks", "Tanks", ballast)):
+                with Horizontal(classes="xfer-row"):
+                    yield Label(label, classes="xfer-label")
+                    yield Input(value=value, id=f"plan-{name}", classes="xfer-field")
+            yield LinePanel(id="xfer-preview")
+            yield Static("", id="form-message")
+
+    def on_mount(self) -> None:
+        need = len(preview_lines(self._before, None, None)) + 1
+        self.query_one("#xfer-preview").styles.height = max(8, min(need, self.app.size.height - 10))
+        self.query_one("#plan-goal", Input).focus()
+        self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, None, None))
+
+    def on_input_changed(self, event: Input.Changed) -> None:
+        event.stop()
+        self.proposal = None
+
+    def on_input_submitted(self, event: Input.Submitted) -> None:
+        event.stop()
+        asked = (self.query_one("#plan-goal", Input).value, self.query_one("#plan-tanks", Input).value)
+        if self.proposal is not None and asked == self._asked:
+            self.dismiss(self.proposal)
+            return
+        try:
+            goal, tanks = parse_goal(asked[0]), parse_tanks(self._vessel, asked[1])
+        except EntryError as exc:
+            self.refuse(str(exc))
+            return
+        v = self._vessel
+        found = propose(v, self._condition, goal, tanks, move=partial(entry.planner_move, v),
+                        room=partial(entry.planner_room, v), evaluate=self._evaluate)
+        self._asked = asked
+        if not found:
+            self.proposal = None
+            self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, None, None))
+            self.refuse("No single transfer between these tanks reaches the goal: allow other tanks or change it.")
+            return
+        self.proposal = p = found[0]
+        self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, p.result, None))
+        more = f" ({len(found) - 1} other pair{'s' if len(found) != 2 else ''} would do too)" if len(found) > 1 else ""
+        self.query_one("#form-message", Static).update(Text(
+            f"Pump {p.mass_t:.1f} t {p.from_id} → {p.to_id}{more}.  ⏎ applies · Esc cancels", P["value"]))
