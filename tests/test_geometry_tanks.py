@@ -86,11 +86,12 @@ def test_empty_and_full_tanks_have_no_transfer():
 
 
 def test_box_tank_worst_band():
-    """checks.md §3.2 [A]: M(30°) peaks at 50 % (18.124 m⁴); 0.9·max = 16.31 lies between the
-    30 % (14.79) and 40 % (17.11) values, so the band is symmetric, within (30, 40)–(60, 70)."""
+    """checks.md §3.2 [A]: M(30°) peaks at 50 % (6 + 7√3 = 18.124 m⁴); 0.9·max is reached at
+    35.98394 % and, by point symmetry, 64.01606 % (derived in tests/test_reference_worst_band.py).
+    Tolerance: the program's 1 % grid with linear edges, ≤ 1²·|M''|/(8·M') = 0.0062 % there."""
     lo, hi = worst_band(box_tank())
-    assert 30.0 < lo < 40.0 and 60.0 < hi < 70.0
-    assert lo + hi == pytest.approx(100.0, abs=0.2)
+    assert lo == pytest.approx(35.98394, abs=0.0062)
+    assert hi == pytest.approx(64.01606, abs=0.0062)
 
 
 def test_box_tank_calibration():

@@ -13,7 +13,6 @@ import numpy as np
 import pytest
 
 from deckload.core.criteria import (
-    CRITERIA_SETS,
     IS2008_A22,
     Measures,
     evaluate_criteria,
@@ -49,8 +48,7 @@ def test_is2008_limits_as_data(cid, limit, unit, para):
     assert c.unit == unit
     assert c.comparison == ">="
     assert para in c.source and "2008" in c.source
-    assert CRITERIA_SETS["IS2008-A2.2"] == IS2008_A22
-    assert len(IS2008_A22) == 6
+    assert len(IS2008_A22) == 6  # 2.2.1 three areas, 2.2.2, 2.2.3, 2.2.4 (standards.md §1)
 
 
 @pytest.mark.parametrize("cid, limit, unit, para", IS2008_LIMITS)
@@ -73,8 +71,14 @@ def test_mrad_mdeg(mrad, mdeg_exact, mdeg_cfr):
     """
     assert round(mrad_to_mdeg(mrad), 3) == mdeg_exact
     assert abs(mrad_to_mdeg(mrad) - mdeg_cfr) < 0.01
-    assert mrad_to_mdeg(mrad) == pytest.approx(mrad * 180.0 / math.pi, rel=1e-15)
-    assert mdeg_to_mrad(mrad_to_mdeg(mrad)) == pytest.approx(mrad, rel=1e-15)
+    # back from the CFR's 3-dp metre-degrees: half a unit of the last digit, 5e-4 m·deg = 8.7e-6 m·rad
+    assert mdeg_to_mrad(mdeg_exact) == pytest.approx(mrad, abs=8.8e-6)
+
+
+def test_one_radian_in_degrees():
+    """1 rad = 57.2958° (standards.md §6.3, printed to 4 dp): the conversion the areas are printed with."""
+    assert mrad_to_mdeg(1.0) == pytest.approx(57.2958, abs=5e-5)
+    assert mdeg_to_mrad(57.2958) == pytest.approx(1.0, abs=1e-6)
 
 
 def _measures(**kw):

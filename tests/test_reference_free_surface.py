@@ -65,12 +65,19 @@ def test_rectangular_surface_and_subdivision(n):
         assert t.fsi_m4 == pytest.approx(l * (b / n) ** 3 / 12, rel=1e-12)
     assert r.fsm_total_tm == pytest.approx(RHO_SW * i_whole / n**2, rel=1e-12)
     assert r.fsc_m == pytest.approx(RHO_SW * i_whole / n**2 / 10_000.0, rel=1e-12)
-    assert r.kg_fluid_m == pytest.approx(r.kg_m + r.fsc_m, abs=1e-12)
-    assert r.gm_solid_m - r.gm_fluid_m == pytest.approx(r.fsc_m, abs=1e-12)
-    printed = {1: (437.33, 0.0437), 2: (109.33, None), 4: (437.33 / 16, None)}[n]
-    assert r.fsm_total_tm == pytest.approx(printed[0], abs=0.005)
-    if printed[1] is not None:
-        assert r.fsc_m == pytest.approx(printed[1], abs=5e-5)
+    # KG solid 8.0 and KM 9.0 by construction: KG fluid = 8 + FSC, GM solid 1.0, GM fluid 1.0 − FSC
+    fsc = RHO_SW * i_whole / n**2 / 10_000.0
+    assert r.kg_m == pytest.approx(8.0, abs=1e-12)
+    assert r.kg_fluid_m == pytest.approx(8.0 + fsc, abs=1e-12)
+    assert r.gm_solid_m == pytest.approx(1.0, abs=1e-12)
+    assert r.gm_fluid_m == pytest.approx(1.0 - fsc, abs=1e-12)
+    # standards.md §8 row 17 (textbook, derived there) states FSM 437.33 t·m and FSC 0.0437 m undivided
+    # and 109.33 t·m with one centre bulkhead, to 2 dp (tolerance: half a unit of the last digit).
+    # n = 4 is not stated there: 1.025·426.67/16 = 27.33 t·m is derived here by the same i/n² rule.
+    stated = {1: (437.33, 0.0437), 2: (109.33, None), 4: (27.33, None)}[n]
+    assert r.fsm_total_tm == pytest.approx(stated[0], abs=0.005)
+    if stated[1] is not None:
+        assert r.fsc_m == pytest.approx(stated[1], abs=5e-5)
 
 
 def test_sma_q1_fluid_gm():
@@ -260,8 +267,16 @@ def test_consumables_worst_pair_assumed_slack_even_when_full():
     # Fresh water: the only FW tank is the worst centreline tank, assumed slack though empty.
     fw = tank_by_id(r, "FW1C")
     assert fw.fsm_tm == pytest.approx(rho_i(v, "FW1C"), rel=1e-12) and "B 3.1.4" in fw.fs_rule
-    assert r.fsm_total_tm == pytest.approx(sum(t.fsm_tm for t in r.tanks), rel=1e-12)
-    assert r.fsc_m == pytest.approx(r.fsm_total_tm / r.displacement_t, rel=1e-12)
+    # Total from the dimensions (b31_vessel docstring): FO1 pair 2·0.95·8·4³/12, FO2C 0.95·6·4³/12,
+    # DO1C 0.86·5·6³/12, DO2 pair 2·0.86·5·4³/12, FW1C 1.0·4·4³/12 = 256.0667 t·m; the empty ballast
+    # and cargo tanks and the small LO1C add nothing.  Δ = 1800 + 2·60.8 (FO1 full) + 13.68 (FO2C 30 %)
+    # + 2·17.2 (DO2 50 %) = 1969.68 t.
+    total = 2 * 0.95 * 8 * 4**3 / 12 + 0.95 * 6 * 4**3 / 12 + 0.86 * 5 * 6**3 / 12 \
+        + 2 * 0.86 * 5 * 4**3 / 12 + 1.0 * 4 * 4**3 / 12
+    assert total == pytest.approx(256.0667, abs=5e-5)
+    assert r.displacement_t == pytest.approx(1969.68, abs=1e-9)
+    assert r.fsm_total_tm == pytest.approx(total, rel=1e-12)
+    assert r.fsc_m == pytest.approx(total / 1969.68, rel=1e-12)
 
 
 def test_empty_consumables_still_carry_the_worst_group():
@@ -337,11 +352,12 @@ def test_gz_with_actual_moment_of_fluid_transfer():
             - RHO_SW * box_transfer_moment_m4(6, 4, 2, 50.0, math.radians(deg)) / 820.0
         assert r.gz_m[deg] == pytest.approx(expected, abs=1e-9)
     assert r.gm_fluid_m == pytest.approx(2.0 / 2 + 100 / 24 - kg - RHO_SW * 6 * 4**3 / 12 / 820.0, abs=1e-12)
-    # Worst band from the tank's own shape: M(30°) within 10 % of its maximum (issue 2, item 5).
-    assert tank_by_id(r, "DB1C").state == "worst_band"
+    # Worst band: M(30°) within 10 % of its maximum.  The exact band of this tank is 35.98394–64.01606 %
+    # (derived in tests/test_reference_worst_band.py, where the program's own band code is checked);
+    # the factory's bisection must give it, and 50 % lies inside it.
     lo, hi = tank_by_id(r, "DB1C").worst_band_pct
-    assert box_transfer_moment_m4(6, 4, 2, lo, math.radians(30)) == pytest.approx(0.9 * (6 + 7 * math.sqrt(3)), rel=1e-6)
-    assert lo + hi == pytest.approx(100.0)
+    assert lo == pytest.approx(35.98394, abs=5e-6) and hi == pytest.approx(64.01606, abs=5e-6)
+    assert tank_by_id(r, "DB1C").state == "worst_band"
 
 
 def test_constant_correction_lowers_whole_curve_by_fsc_sin():
@@ -366,7 +382,10 @@ def test_fsc_leaves_solid_values_alone():
     v2, _ = barge_at(2.0, 3.0)
     assert a.displacement_t == pytest.approx(820.0, abs=1e-9)
     assert a.draft_mean_m == pytest.approx(evaluate(v2, Condition()).draft_mean_m, abs=1e-12)
-    assert a.gm_solid_m == pytest.approx(a.km_m - a.kg_m, abs=1e-12)
+    # KM 5.16667 at T = 2 (checks.md §1.1 [A]); KG solid (Δls·3 + 24.6·0.5)/820 from the masses
+    kg = ((820.0 - RHO_SW * 24.0) * 3.0 + RHO_SW * 24.0 * 0.5) / 820.0
+    assert a.kg_m == pytest.approx(kg, abs=1e-12)
+    assert a.gm_solid_m == pytest.approx(1.0 + 100.0 / 24.0 - kg, abs=1e-12)
 
 
 def test_transfer_correction_variable_tank_takes_largest_moment():
