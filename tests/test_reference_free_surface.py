@@ -2,8 +2,10 @@
 
 Sources: standards.md §4 (IS Code 2008 Part B 3.1; textbook formulas §4.3) and §8 rows
 15–17; checks.md §3 [A] and §4 [T]: Barrass & Derrett, *Ship Stability for Masters and
-Mates*, 5th ed. (1999), p.195 Ex.1; Singapore Maritime Academy MA2025 Tutorial 4 (2008)
-Q1–Q3 (printed answers).  Textbook statements ('Δ 7600, KM …, a slack tank of …') are
+Mates*, 5th ed. (1999), p.195 Ex.1; and analytic results derived in the docstrings from the
+textbook formulas of standards.md §4.3 and §6.3 (the numbers of checks.md §4 rows 9–11 are
+used as inputs; their source, a course tutorial sheet, is not a published source and is not
+relied on for any expected value).  Textbook statements ('Δ 7600, KM …, a slack tank of …') are
 posed as conditions on the parallel-sided vessel of tests/vessel_factories.py, whose
 tables give exactly the KM, LCF, MCTC the book states.
 """
@@ -80,9 +82,10 @@ def test_rectangular_surface_and_subdivision(n):
         assert r.fsc_m == pytest.approx(stated[1], abs=5e-5)
 
 
-def test_sma_q1_fluid_gm():
-    """SMA MA2025 Tutorial 4 Q1 (checks.md §4 row 9): solid GM 1.02 m, Δ 7600 t, FSM 1250 t·m →
-    fluid GM = 1.02 − 1250/7600 = 0.85553 (printed 0.856).  Posed with one slack ballast tank
+def test_fluid_gm_from_solid_gm_and_fsm():
+    """Analytic (standards.md §4.3, textbook: GM_fluid = GM_solid − FSM/Δ), with the inputs of
+    checks.md §4 row 9: solid GM 1.02 m, Δ 7600 t, FSM 1250 t·m →
+    fluid GM = 1.02 − 1250/7600 = 0.855526 m.  Posed with one slack ballast tank
     of breadth 10 m and length 12·1250/(ρ·10³) so that ρ·l·b³/12 = 1250 t·m, KM 8.0, KG 6.98."""
     b = 10.0
     l = 12 * 1250.0 / (RHO_SW * b**3)
@@ -95,7 +98,7 @@ def test_sma_q1_fluid_gm():
     assert r.gm_solid_m == pytest.approx(1.02, abs=1e-9)
     assert r.fsm_total_tm == pytest.approx(1250.0, abs=1e-9)
     assert r.gm_fluid_m == pytest.approx(1.02 - 1250.0 / 7600.0, abs=1e-9)
-    assert round(r.gm_fluid_m, 3) == 0.856
+    assert r.gm_fluid_m == pytest.approx(0.855526, abs=5e-7)
 
 
 def test_barrass_derrett_p195_ex1_double_bottom_pumped_to_half():
@@ -120,12 +123,13 @@ def test_barrass_derrett_p195_ex1_double_bottom_pumped_to_half():
     assert r.gm_fluid_m == pytest.approx(0.22453, abs=5e-6)
 
 
-def test_sma_q2_list_from_slack_side_tank():
-    """SMA MA2025 Tutorial 4 Q2 (checks.md §4 row 10): Δ 9600, KM 8.5, KG 7.5; DB tank 18 × 14 m
+def test_list_from_slack_side_tank():
+    """Analytic (standards.md §6.3 weight sums and tanφ = TCG/GM_fluid; §4.3 FSM = ρ·l·b³/12), with the
+    inputs of checks.md §4 row 10: Δ 9600, KM 8.5, KG 7.5; DB tank 18 × 14 m
     with a centreline bulkhead; the starboard side filled to 0.6 m with oil RD 0.95 (KG 0.3,
     TCG 3.5).  w = 18·7·0.6·0.95 = 71.82 t; KG 7.44653; FSM = 0.95·18·7³/12 = 488.775 t·m;
-    GM fluid 1.00293; GG1 = 71.82·3.5/9671.82 = 0.025990; list = atan(GG1/GM) = 1.48443°,
-    printed 1°29.1′."""
+    GM fluid 1.00293; GG1 = 71.82·3.5/9671.82 = 0.025990; list = atan(GG1/GM) = 1.484433° = 1°29.07′.
+    The parallel-sided vessel's KN = KM·sinφ makes tanφ = TCG/GM exact at any angle."""
     p = box_tank("DB1P", length_m=18.0, breadth_m=7.0, height_m=1.5, lcg_m=X_MID, tcg_m=-3.5, kind="fuel_oil",
                  density_t_m3=0.95, pair="DB1S")
     s = box_tank("DB1S", length_m=18.0, breadth_m=7.0, height_m=1.5, lcg_m=X_MID, tcg_m=3.5, kind="fuel_oil",
@@ -141,12 +145,16 @@ def test_sma_q2_list_from_slack_side_tank():
     assert r.fsm_total_tm == pytest.approx(0.95 * 18 * 7**3 / 12, abs=1e-9)
     assert r.gm_fluid_m == pytest.approx(1.00293, abs=5e-6)
     assert r.tcg_m == pytest.approx(w * 3.5 / (9600 + w), abs=1e-12)
-    assert r.list_deg == pytest.approx(1.48443, abs=5e-5)
-    assert r.list_deg * 60 == pytest.approx(60 + 29.1, abs=0.05)
+    exact = math.degrees(math.atan((w * 3.5 / (9600 + w)) / (8.5 - r.kg_m - 488.775 / (9600 + w))))
+    assert exact == pytest.approx(1.48443, abs=5e-6)  # 5 dp: half a unit of the last digit
+    # The list is where GZ, on the 0.1° grid, crosses zero (linear between grid points): the chord of
+    # GM·sinφ − TCG·cosφ over one 0.1° step is within 1e-5° of the root here.
+    assert r.list_deg == pytest.approx(exact, abs=1e-5)
 
 
-def test_sma_q3_suspended_weight_and_slack_tank():
-    """SMA MA2025 Tutorial 4 Q3 (checks.md §4 row 11): Δ 8000, KM 6.5, KG 5.7; 40 t lifted from
+def test_suspended_weight_and_slack_tank():
+    """Analytic (textbook: a suspended weight acts at its point of suspension, GG1 = w·d/Δ;
+    FSC = ρ·i/Δ, standards.md §4.3), with the inputs of checks.md §4 row 11: Δ 8000, KM 6.5, KG 5.7; 40 t lifted from
     KG 3.0 by a derrick whose head is 15 m above the keel (its weight acts at the head); a slack
     fresh-water tank with i = 1200 m⁴.  Effective GM = 0.8 − 40·12/8000 − 1200·1.0/8000 = 0.59."""
     b = 10.0
@@ -161,7 +169,7 @@ def test_sma_q3_suspended_weight_and_slack_tank():
     r = evaluate(v, c)
     assert tank_by_id(r, "FW1").fsi_m4 == pytest.approx(1200.0, rel=1e-12)
     assert r.gm_fluid_m == pytest.approx(0.8 - 40 * (15 - 3) / 8000 - 1200 / 8000, abs=1e-9)
-    assert round(r.gm_fluid_m, 2) == 0.59
+    assert r.gm_fluid_m == pytest.approx(0.59, abs=1e-9)  # 0.8 − 0.06 − 0.15 exactly
 
 
 # --------------------------------------------------------------------------- IS 2008 Part B 3.1
