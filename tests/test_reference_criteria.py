@@ -149,6 +149,33 @@ def test_limiting_kg_curve():
         assert bool(crit.passed) is ok
 
 
+def test_limit_curves_name_what_they_check():
+    """The result says what a limiting curve checks, in which unit and against which source (the
+    profile's approved curve, IS 2008 A 2.1.7), so the watchkeeper can tell the two kinds apart."""
+    kg_curve = LimitCurve(frozen_array([600.0, 1000.0]), frozen_array([3.4, 3.8]), "max_kg_m")
+    v, c = barge_at(2.0, 3.0, limit_curve=kg_curve)
+    crit = by_id(evaluate(v, c), "limit-curve-max-kg")
+    assert (crit.description, crit.unit, crit.comparison, crit.source) == (
+        "KG (fluid) within the limiting KG curve", "m", "<=", "vessel profile limiting-KG curve")
+
+
+@pytest.mark.parametrize("kg, ok", [(3.0, True), (3.5, False)])
+def test_minimum_gm_curve(kg, ok):
+    """IS 2008 A 2.1.7: a minimum-GM curve against displacement.  Barge at T = 2 m (Δ 820 t), KM 5.16667
+    (checks.md §1.1 [A]): GM = 5.16667 − KG, 2.16667 at KG 3 and 1.66667 at KG 3.5.  Limit at 820 t
+    between (600 t, 1.6 m) and (1000 t, 2.4 m): 1.6 + 220/400·0.8 = 2.04 m, so KG 3 passes, 3.5 fails."""
+    curve = LimitCurve(frozen_array([600.0, 1000.0]), frozen_array([1.6, 2.4]), "min_gm_m")
+    v, c = barge_at(2.0, kg, limit_curve=curve)
+    r = evaluate(v, c)
+    crit = by_id(r, "limit-curve-min-gm")
+    assert crit.limit == pytest.approx(2.04, abs=1e-12)
+    assert crit.value == pytest.approx(1.0 + 100.0 / 24.0 - kg, abs=1e-12)
+    assert crit.passed is ok
+    assert (crit.description, crit.unit, crit.comparison, crit.source) == (
+        "GM (fluid) above the minimum GM curve", "m", ">=", "vessel profile minimum-GM curve")
+    assert not any(x.id == "limit-curve-max-kg" for x in r.criteria)
+
+
 def test_failed_criterion_warns():
     """A failed criterion is named in a 'danger' warning (barge KG 4.5 fails the 30–40° area,
     0.028741 < 0.030 m·rad, checks.md §1.3)."""

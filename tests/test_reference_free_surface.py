@@ -416,3 +416,26 @@ def test_transfer_correction_variable_tank_takes_largest_moment():
         expected = box_kn_m(10, 4, 2.0, phi) - r.kg_m * math.sin(phi) \
             - 0.95 * max(box_transfer_moment_m4(6, 4, 2, f, phi) for f in range(0, 101, 5)) / 820.0
         assert r.gz_m[deg] == pytest.approx(expected, abs=1e-9)
+
+
+@pytest.mark.parametrize("kind, fill, rho, i_counted", [
+    ("ballast", 50.0, RHO_SW, 6 * 4**3 / 12),        # fixed level: i at the actual level (B 3.1.3)
+    ("fuel_oil", 20.0, 0.95, 6 * 4**3 / 12),         # variable level: the largest i (B 3.1.3)
+    ("cargo_liquid", 99.0, 0.85, 6 * 4**3 / 12),     # nominally full cargo: i at 98 % (B 3.1.2)
+])
+def test_transfer_correction_without_tank_geometry_falls_back_to_i_sin(kind, fill, rho, i_counted):
+    """A tank with no transfer table under the 'transfer' correction: its moment is taken as
+    i·sinφ, the small-angle (upright-inertia) form of standards.md §4.3 (GZ lowered by ρ·i·sinφ/Δ),
+    and the watchkeeper is told which tank lacks geometry.  Box tank l = 6, b = 4 (i = 32 m⁴ at every
+    level) in the barge at Δ = 820 t, T = 2 m: GZ(φ) = KN(φ) − KG_solid·sinφ − ρ·32·sinφ/820."""
+    tank = box_tank("T1", length_m=6, breadth_m=4, height_m=2, lcg_m=20.0, kind=kind, density_t_m3=rho)
+    w = rho * 48.0 * fill / 100.0
+    v = box_barge(lightship_t=820.0 - w, lightship_kg_m=3.0, tanks=(tank,))
+    r = evaluate(v, Condition(tanks=(TankFill("T1", "percent", fill),), gz_correction="transfer",
+                              fs_rule="is2008"))
+    assert r.displacement_t == pytest.approx(820.0, abs=1e-9)
+    for deg in (10, 30, 60):
+        phi = math.radians(deg)
+        expected = box_kn_m(10, 4, 2.0, phi) - r.kg_m * math.sin(phi) - rho * i_counted * math.sin(phi) / 820.0
+        assert r.gz_m[deg] == pytest.approx(expected, abs=1e-9)
+    assert any(x.code == "fs-no-geometry" and "T1" in x.message and x.severity == "caution" for x in r.warnings)
