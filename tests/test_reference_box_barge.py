@@ -178,8 +178,21 @@ def test_outside_the_tables_is_refused():
     """Nothing is extrapolated (DEVELOPERS.md): Δ beyond the last row (T 3.5 m) raises OutOfRangeError."""
     v, _ = barge_at(3.4, 3.0)
     heavy = Condition(deck_items=(DeckItem("Extra", 60.0, 20.0, 3.0),))  # Δ 1394 + 60 > 1435 t
-    with pytest.raises(OutOfRangeError, match="outside the table range"):
+    with pytest.raises(OutOfRangeError) as e:
         evaluate(v, heavy)
+    # the error names the quantity, the value asked for and the range (DEVELOPERS.md "How the numbers
+    # are made"): Δ 1454 t against the table's 205–1435 t (1.025·40·10·T for T 0.5–3.5 m)
+    assert str(e.value) == ("displacement (hydrostatic table, at table density) 1454 t is outside the table "
+                            "range 205–1435 t; deckload does not extrapolate")
+    assert (e.value.quantity, e.value.unit) == ("displacement (hydrostatic table, at table density)", "t")
+    assert e.value.value == pytest.approx(1.025 * 400 * 3.4 + 60.0, abs=1e-9)
+    assert (e.value.low, e.value.high) == pytest.approx((205.0, 1435.0), abs=1e-9)
+
+
+def test_out_of_range_message_without_a_unit():
+    """A unitless quantity is printed with no stray space or unit."""
+    assert str(OutOfRangeError("fill ratio", 1.5, 0.0, 1.0)) == (
+        "fill ratio 1.5 is outside the table range 0–1; deckload does not extrapolate")
 
 
 # --------------------------------------------------------------------------- GZ curve

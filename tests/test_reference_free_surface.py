@@ -439,3 +439,68 @@ def test_transfer_correction_without_tank_geometry_falls_back_to_i_sin(kind, fil
         expected = box_kn_m(10, 4, 2.0, phi) - r.kg_m * math.sin(phi) - rho * i_counted * math.sin(phi) / 820.0
         assert r.gz_m[deg] == pytest.approx(expected, abs=1e-9)
     assert any(x.code == "fs-no-geometry" and "T1" in x.message and x.severity == "caution" for x in r.warnings)
+
+
+def wedge_tank(tank_id: str, kind: str, density: float):
+    """Wedge (hopper) tank l = 10, section (0, 0), (4, 2), (0, 2), calibrated from its geometry
+    (checks.md §3.3 [A]: V = l·s², i = (2/3)·l·s³ at sounding s), with rows at the soundings of
+    20 %, 50 % and 98 % full (s = 2·√f), so those levels are read without interpolation error."""
+    import dataclasses
+
+    import numpy as np
+
+    from deckload.core.geometry.body import Body
+    from deckload.core.geometry.hull import compartment_sections
+    from deckload.core.geometry.spec import CompartmentShape
+    from deckload.core.geometry.tanks import calibrate
+
+    shape = CompartmentShape("prism", 0.0, 10.0, section_y_m=np.array([0.0, 4.0, 0.0]),
+                             section_z_m=np.array([0.0, 2.0, 2.0]))
+    s = np.unique(np.round(np.concatenate([np.linspace(0.0, 2.0, 11), 2.0 * np.sqrt([0.2, 0.5, 0.98])]), 12))
+    cal = calibrate(Body(*compartment_sections(shape, None)), s)
+    base = box_tank(tank_id, length_m=10.0, breadth_m=2.0, height_m=2.0, lcg_m=20.0, kind=kind, density_t_m3=density)
+    return dataclasses.replace(base, capacity_m3=40.0, calibration=cal)
+
+
+def wedge_i(fill_pct: float) -> float:
+    """i = (2/3)·l·s³ with s = 2·√(f/100) (checks.md §3.3 [A], l = 10)."""
+    return 2.0 / 3.0 * 10.0 * (2.0 * math.sqrt(fill_pct / 100.0)) ** 3
+
+
+@pytest.mark.parametrize("kind, fill, rho, i_counted", [
+    ("ballast", 50.0, RHO_SW, wedge_i(50.0)),       # fixed level: i at the actual level, 18.8562 m⁴
+    ("fuel_oil", 20.0, 0.95, wedge_i(100.0)),       # variable level: the largest i, at the top, 53.3333 m⁴
+    ("cargo_liquid", 99.0, 0.85, wedge_i(98.0)),    # nominally full cargo: i at 98 %, 51.7424 m⁴
+])
+def test_free_surface_level_of_a_tank_whose_surface_changes(kind, fill, rho, i_counted):
+    """IS 2008 B 3.1.2–3.1.3 (standards.md §4.1) on a tank whose free surface grows with the level, so
+    the level each rule picks shows in the moment: FSM = ρ·i(level), and with the 'transfer' correction
+    and no transfer table GZ is lowered by ρ·i(level)·sinφ/Δ (standards.md §4.3).  Barge Δ = 820 t.
+    Tolerances: the geometry calibration is exact to ~1e-9 relative; 1e-6 leaves room for it."""
+    tank = wedge_tank("W1", kind, rho)
+    w = rho * 40.0 * fill / 100.0
+    v = box_barge(lightship_t=820.0 - w, lightship_kg_m=3.0, tanks=(tank,))
+    r = evaluate(v, Condition(tanks=(TankFill("W1", "percent", fill),), gz_correction="transfer"))
+    assert tank_by_id(r, "W1").fsm_tm == pytest.approx(rho * i_counted, rel=1e-6)  # calibration: ~1e-9 relative
+    phi = math.radians(30.0)
+    # the wedge's liquid lies to starboard (y_g = 2s/3), so G is off the centre line: − TCG·cosφ
+    expected = box_kn_m(10, 4, 2.0, phi) - r.kg_m * 0.5 - r.tcg_m * math.cos(phi) - rho * i_counted * 0.5 / 820.0
+    assert r.gz_m[30] == pytest.approx(expected, abs=1e-6)
+
+
+def test_nominally_full_cargo_tank_transfer_moment_at_98():
+    """IS 2008 B 3.1.2 footnote: a nominally full cargo tank is corrected at 98 % with its real shifting
+    moment for GZ.  Box tank l = 6, b = 4, h = 2 with its exact transfer table every 5 % (checks.md §3.2);
+    at 98 % the table is read linearly between 95 % and 100 % (M = 0 when full):
+    M = 0.4·M(95 %) + 0.6·0 (tables.py: linear between rows).  Barge Δ = 820 t."""
+    tank = box_tank("CG1", length_m=6, breadth_m=4, height_m=2, lcg_m=20.0, kind="cargo_liquid",
+                    density_t_m3=0.85, with_transfer=True)
+    w = 0.85 * 48.0 * 0.99
+    v = box_barge(lightship_t=820.0 - w, lightship_kg_m=3.0, tanks=(tank,))
+    r = evaluate(v, Condition(tanks=(TankFill("CG1", "percent", 99.0),), gz_correction="transfer"))
+    assert tank_by_id(r, "CG1").state == "full"
+    for deg in (10, 30):
+        phi = math.radians(deg)
+        m98 = 0.4 * box_transfer_moment_m4(6, 4, 2, 95.0, phi)
+        expected = box_kn_m(10, 4, 2.0, phi) - r.kg_m * math.sin(phi) - 0.85 * m98 / 820.0
+        assert r.gz_m[deg] == pytest.approx(expected, abs=1e-9)
