@@ -504,3 +504,59 @@ def test_nominally_full_cargo_tank_transfer_moment_at_98():
         m98 = 0.4 * box_transfer_moment_m4(6, 4, 2, 95.0, phi)
         expected = box_kn_m(10, 4, 2.0, phi) - r.kg_m * math.sin(phi) - 0.85 * m98 / 820.0
         assert r.gz_m[deg] == pytest.approx(expected, abs=1e-9)
+
+
+def test_worst_centreline_tank_listed_after_a_pair_is_found():
+    """IS 2008 B 3.1.4 (standards.md §4.1 [C]): the group with the greatest effect is assumed slack,
+    wherever it stands in the tank list.  Fresh water: pair FWP/FWS 2·1.0·4·2³/12 = 10.67 t·m, listed
+    first; centreline FWC 1.0·4·5³/12 = 41.67 t·m, listed after it: FWC governs, the pair does not count."""
+    tanks = (
+        box_tank("FWP", length_m=4, breadth_m=2, height_m=2, lcg_m=40, tcg_m=-4, kind="fresh_water",
+                 density_t_m3=1.0, pair="FWS"),
+        box_tank("FWS", length_m=4, breadth_m=2, height_m=2, lcg_m=40, tcg_m=4, kind="fresh_water",
+                 density_t_m3=1.0, pair="FWP"),
+        box_tank("FWC", length_m=4, breadth_m=5, height_m=2, lcg_m=60, kind="fresh_water", density_t_m3=1.0),
+    )
+    v = parallel_sided_vessel(form(2000.0, 6.0), lightship=MassItem("Lightship", 2000.0, X_MID, 4.0, 0.0),
+                              tanks=tanks, free_surface=FreeSurfaceSettings(min_operating_displacement_t=DMIN))
+    r = evaluate(v, Condition())
+    assert tank_by_id(r, "FWC").fsm_tm == pytest.approx(1.0 * 4 * 5**3 / 12, rel=1e-12)
+    assert "centreline" in tank_by_id(r, "FWC").fs_rule
+    assert tank_by_id(r, "FWP").fsm_tm == 0.0 and tank_by_id(r, "FWS").fsm_tm == 0.0
+
+
+def test_empty_is_at_or_below_the_remainder_limit():
+    """The usual remainder in an 'empty' tank is ignored (IS 2008 B 3.1, standards.md §4.1 [M]): a tank at
+    or below the profile's empty_pct (default 0.5 %) is empty and carries no free surface; just above it,
+    at 0.6 %, a box ballast tank is slack and counts ρ·l·b³/12 at its level (B 3.1.3, fixed level)."""
+    tank = box_tank("DB1C", length_m=6, breadth_m=4, height_m=2, lcg_m=20.0)
+    v = box_barge(tanks=(tank,))
+    assert v.free_surface.empty_pct == 0.5
+    at = evaluate(v, Condition(tanks=(TankFill("DB1C", "percent", 0.5),)))
+    assert tank_by_id(at, "DB1C").state == "empty" and tank_by_id(at, "DB1C").fsm_tm == 0.0
+    above = evaluate(v, Condition(tanks=(TankFill("DB1C", "percent", 0.6),)))
+    assert tank_by_id(above, "DB1C").state == "slack"
+    assert tank_by_id(above, "DB1C").fsm_tm == pytest.approx(RHO_SW * 6 * 4**3 / 12, rel=1e-12)
+
+
+def test_small_tank_bound_reads_30_degrees_between_table_columns():
+    """The small-tank test (IS 2008 B 3.1.12) takes the tank's largest M at 30° from its transfer
+    table.  With heel columns every 20° the 30° value is read linearly between the 20° and 40° columns
+    (tables.py: linear between rows, never extrapolated): max over fills of ½·(M20 + M40).  Box tank
+    l = 6, b = 4, h = 2: M at 50 % is 11.6696 (20°) and 20.8584 m⁴ (40°), checks.md §3.2 [A], so the
+    bound is 16.2640 m⁴ (the 30° value itself, 18.1244, is not in this table)."""
+    import dataclasses
+
+    import numpy as np
+
+    from deckload.core.free_surface import mfs30_bound_m4
+    from deckload.core.model import FluidTransfer, frozen_array
+
+    fills = np.arange(0.0, 100.0001, 5.0)
+    heels = np.array([0.0, 20.0, 40.0, 60.0, 80.0, 90.0])
+    m = np.array([[box_transfer_moment_m4(6, 4, 2, f, math.radians(h)) for h in heels] for f in fills])
+    tank = dataclasses.replace(box_tank("T", length_m=6, breadth_m=4, height_m=2, lcg_m=20.0),
+                               transfer=FluidTransfer(frozen_array(fills), frozen_array(heels), frozen_array(m)))
+    expected = float(np.max(0.5 * (m[:, 1] + m[:, 2])))
+    assert expected == pytest.approx(0.5 * (11.6696 + 20.8584), abs=5e-5)
+    assert mfs30_bound_m4(tank) == pytest.approx(expected, abs=1e-12)
