@@ -11,6 +11,7 @@ are those of interpolating the tables.
 
 from __future__ import annotations
 
+import dataclasses
 import math
 
 import pytest
@@ -405,3 +406,24 @@ def test_barrass_derrett_p130_ex1_wall_sided():
     assert r.gz_m[25] == pytest.approx(0.349152, abs=5e-7)
     assert round(r.gz_m[25], 2) == 0.35
     assert r.displacement_t * r.gz_m[25] == pytest.approx(2094.9, abs=0.05)
+
+
+def test_cross_curves_narrower_than_the_hydrostatics_are_refused():
+    """The KN table is looked up at the equivalent displacement too and never extrapolated: with KN
+    rows only for T = 1.0–3.0 m (Δ 410–1230 t) the barge at T = 3.2 m (Δ 1312 t) lies inside the
+    hydrostatic table but outside the cross curves, and the error says which table."""
+    from deckload.core.model import CrossCurves
+    from vessel_factories import box_barge_cross_curves
+
+    v, c = barge_at(3.2, 3.0)
+    narrow = dataclasses.replace(v, cross_curves=box_barge_cross_curves((1.0, 2.0, 3.0)))
+    with pytest.raises(OutOfRangeError) as e:
+        evaluate(narrow, c)
+    assert str(e.value).startswith("displacement (KN cross curves, at table density) 1312 t is outside "
+                                   "the table range 410–1230 t")
+    # and a table that stops short of 90° is refused rather than extrapolated in heel
+    cc = narrow.cross_curves
+    short = CrossCurves(heel_deg=cc.heel_deg[:13], displacement_t=cc.displacement_t, kn_m=cc.kn_m[:, :13])
+    v2, c2 = barge_at(2.0, 3.0)
+    with pytest.raises(OutOfRangeError, match=r"^heel \(KN cross curves\) 90 deg is outside the table range 0–60 deg"):
+        evaluate(dataclasses.replace(v2, cross_curves=short), c2)
