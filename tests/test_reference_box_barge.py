@@ -14,6 +14,7 @@ from __future__ import annotations
 import dataclasses
 import math
 
+import numpy as np
 import pytest
 
 from deckload.core.model import Condition, DeckItem
@@ -427,3 +428,8 @@ def test_cross_curves_narrower_than_the_hydrostatics_are_refused():
     v2, c2 = barge_at(2.0, 3.0)
     with pytest.raises(OutOfRangeError, match=r"^heel \(KN cross curves\) 90 deg is outside the table range 0–60 deg"):
         evaluate(dataclasses.replace(v2, cross_curves=short), c2)
+    # a last column even half a degree short of 90° is refused (only round-off, 1e-9°, is forgiven)
+    heels = np.array([*cc.heel_deg[:18], 89.5])
+    almost = CrossCurves(heel_deg=heels, displacement_t=cc.displacement_t, kn_m=cc.kn_m[:, :19])
+    with pytest.raises(OutOfRangeError, match=r"range 0–89\.5 deg"):
+        evaluate(dataclasses.replace(v2, cross_curves=almost), c2)
