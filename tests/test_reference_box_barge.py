@@ -433,3 +433,20 @@ def test_cross_curves_narrower_than_the_hydrostatics_are_refused():
     almost = CrossCurves(heel_deg=heels, displacement_t=cc.displacement_t, kn_m=cc.kn_m[:, :19])
     with pytest.raises(OutOfRangeError, match=r"range 0–89\.5 deg"):
         evaluate(dataclasses.replace(v2, cross_curves=almost), c2)
+
+
+def test_area_under_gz_by_the_trapezoidal_rule():
+    """gz.py integrates GZ by the trapezoidal rule on the 0.1° grid, with a linear last part-panel.
+    For GZ = 2φ (φ in radians) the rule is exact: area(0→θ) = θ² at any θ, on or off the grid
+    (an off-grid θf, e.g. 35.25°, uses the part-panel).  For a curved GZ = sin 2φ + φ² the rule must
+    equal numpy's trapezoid over the same samples (a general-purpose implementation of the rule)."""
+    from deckload.core import gz as gzmod
+
+    line = 2.0 * gzmod.FINE_RAD
+    for deg in (0.5, 30.0, 35.25, 40.0, 89.95, 90.0):
+        assert gzmod.area_to(line, deg) == pytest.approx(math.radians(deg) ** 2, abs=1e-12)
+    assert gzmod.area_to(line, 0.0) == 0.0
+    curve = np.sin(2.0 * gzmod.FINE_RAD) + gzmod.FINE_RAD**2
+    assert gzmod.area_to(curve, 90.0) == pytest.approx(np.trapezoid(curve, gzmod.FINE_RAD), abs=1e-12)
+    k = int(round(40.0 / gzmod.STEP_DEG))
+    assert gzmod.area_to(curve, 40.0) == pytest.approx(np.trapezoid(curve[: k + 1], gzmod.FINE_RAD[: k + 1]), abs=1e-12)
