@@ -450,3 +450,28 @@ def test_area_under_gz_by_the_trapezoidal_rule():
     assert gzmod.area_to(curve, 90.0) == pytest.approx(np.trapezoid(curve, gzmod.FINE_RAD), abs=1e-12)
     k = int(round(40.0 / gzmod.STEP_DEG))
     assert gzmod.area_to(curve, 40.0) == pytest.approx(np.trapezoid(curve[: k + 1], gzmod.FINE_RAD[: k + 1]), abs=1e-12)
+
+
+def test_curve_facts_on_curves_with_known_answers():
+    """gz.facts on curves whose answers are known exactly (gz.py: maximum refined by a parabola
+    through the three best grid points, crossings by linear interpolation on the 0.1° grid):
+
+    * GZ = sin 3φ: maximum 1 at 30°, vanishing at 60° (both on the grid);
+    * GZ = 1 − (φ − θ0)²: a parabola, so the refinement is exact: maximum 1 at θ0 for θ0 = 29.1823°
+      (the barge's value, checks.md §1.2), and for θ0 = 0.12° and 89.93° (next to either end of the grid);
+    * GZ = cos φ: largest at 0°, the first grid point, where there is nothing to refine;
+    * GZ = sin(φ − 10°): negative up to 10°, where she comes to rest (equilibrium 10°)."""
+    from deckload.core import gz as gzmod
+
+    phi = gzmod.FINE_RAD
+    f = gzmod.facts(np.sin(3 * phi))
+    assert (f.max_gz_m, f.max_gz_angle_deg, f.vanishing_angle_deg, f.equilibrium_deg) == pytest.approx(
+        (1.0, 30.0, 60.0, 0.0), abs=1e-9)
+    for theta0 in (0.12, 29.1823, 89.93):
+        f = gzmod.facts(1.0 - (phi - math.radians(theta0)) ** 2)
+        assert (f.max_gz_m, f.max_gz_angle_deg) == pytest.approx((1.0, theta0), abs=1e-9)
+    f = gzmod.facts(np.cos(phi))
+    assert (f.max_gz_m, f.max_gz_angle_deg) == pytest.approx((1.0, 0.0), abs=1e-12)
+    f = gzmod.facts(np.sin(phi - math.radians(10.0)))
+    assert f.equilibrium_deg == pytest.approx(10.0, abs=1e-9)
+    assert f.max_gz_angle_deg == pytest.approx(90.0, abs=1e-9) and f.vanishing_angle_deg is None
