@@ -94,6 +94,9 @@ def test_hold_filled_exactly_full_and_overfilled():
     with pytest.raises(LoadingError) as e:
         evaluate(vessel(), Condition(holds=(HoldLoad("H1", 61.0, stowage_m3_t=1.2),)))
     assert str(e.value) == "hold H1: 61 t at 1.2 m³/t needs 73.2 m³, more than its 72.0 m³"
+    # even 0.6 m³ (0.8 %) too much is refused: only round-off (1e-9 %) is forgiven
+    with pytest.raises(LoadingError, match="needs 72.6 m³"):
+        evaluate(vessel(), Condition(holds=(HoldLoad("H1", 60.5, stowage_m3_t=1.2),)))
 
 
 @pytest.mark.parametrize("mass", [0.0, 0.5])
