@@ -121,3 +121,32 @@ def test_sounding_outside_the_tank_is_refused():
                             "deckload does not extrapolate")
     r = evaluate(v, Condition(tanks=(TankFill("DB1C", "sounding_m", 0.5),)))
     assert r.tanks[0].volume_m3 == pytest.approx(6 * 4 * 0.5, abs=EXACT)  # v = l·b·s (checks.md §3.1)
+
+
+@pytest.mark.parametrize("quantity, value, density, volume", [
+    ("percent", 25.0, None, 12.0),        # 25 % of 48 m³
+    ("volume_m3", 12.0, None, 12.0),
+    ("mass_t", 12.3, None, 12.0),         # 12.3 t / 1.025 t/m³ (the tank's own density)
+    ("mass_t", 12.0, 1.000, 12.0),        # fresh water in a ballast tank: 12 t / 1.000 t/m³
+    ("sounding_m", 0.5, None, 12.0),      # v = l·b·s = 6·4·0.5 (checks.md §3.1)
+])
+def test_tank_contents_however_stated(quantity, value, density, volume):
+    """Percent, m³, tonnes (÷ the liquid's density) and sounding all resolve to one volume."""
+    v = box_barge(tanks=(box_tank("DB1C", length_m=6.0, breadth_m=4.0, height_m=2.0, lcg_m=20.0),))
+    t = evaluate(v, Condition(tanks=(TankFill("DB1C", quantity, value, density_t_m3=density),))).tanks[0]
+    assert t.volume_m3 == pytest.approx(volume, abs=EXACT)
+    assert t.fill_pct == pytest.approx(25.0, abs=EXACT)
+    assert t.mass_t == pytest.approx(volume * (density or 1.025), abs=EXACT)
+
+
+def test_tank_fill_above_100_percent_is_refused():
+    v = box_barge(tanks=(box_tank("DB1C", length_m=6.0, breadth_m=4.0, height_m=2.0, lcg_m=20.0),))
+    with pytest.raises(LoadingError) as e:
+        evaluate(v, Condition(tanks=(TankFill("DB1C", "percent", 100.5),)))
+    assert str(e.value) == "tank DB1C: 100.5 % is outside 0–100 %"
+
+
+def test_hold_cargo_is_named_by_its_description_or_the_hold():
+    r = evaluate(vessel(), Condition(holds=(HoldLoad("H1", 30.0, description="bagged cement"),)))
+    assert item(r).name == "bagged cement"
+    assert item(evaluate(vessel(), Condition(holds=(HoldLoad("H1", 30.0),)))).name == "Hold 1"
