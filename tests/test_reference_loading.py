@@ -150,3 +150,29 @@ def test_hold_cargo_is_named_by_its_description_or_the_hold():
     r = evaluate(vessel(), Condition(holds=(HoldLoad("H1", 30.0, description="bagged cement"),)))
     assert item(r).name == "bagged cement"
     assert item(evaluate(vessel(), Condition(holds=(HoldLoad("H1", 30.0),)))).name == "Hold 1"
+
+
+def test_volume_of_each_quantity_and_its_refusals():
+    """loading.volume_of, the conversion the loading screen uses for a typed amount (box tank 6 × 4 × 2,
+    48 m³, v = l·b·s): every way of stating an amount, and the clear refusals (DEVELOPERS: bad input
+    names the value and the rule)."""
+    from deckload.core.loading import volume_of
+
+    tank = box_tank("DB1C", length_m=6.0, breadth_m=4.0, height_m=2.0, lcg_m=20.0)
+    assert volume_of(tank, "sounding_m", 0.5, 1.025) == pytest.approx(12.0, abs=EXACT)
+    assert volume_of(tank, "mass_t", 12.3, 1.025) == pytest.approx(12.0, abs=EXACT)
+    assert volume_of(tank, "volume_m3", 0.0, 1.025) == 0.0
+    assert volume_of(tank, "volume_m3", 0.5, 1.025) == 0.5
+    assert volume_of(tank, "volume_m3", 48.0, 1.025) == 48.0
+    refusals = [
+        ("sounding_m", 2.5, "tank DB1C: sounding of tank DB1C 2.5 m is outside the table range 0–2 m; "
+                            "deckload does not extrapolate"),
+        ("litres", 1.0, "tank DB1C: unknown quantity 'litres'"),
+        ("volume_m3", -1.0, "tank DB1C: a negative amount (-1) cannot be loaded"),
+        ("mass_t", 50.0, "tank DB1C: 48.78 m³ exceeds its capacity of 48.00 m³"),
+        ("percent", -0.5, "tank DB1C: -0.5 % is outside 0–100 %"),
+    ]
+    for quantity, value, message in refusals:
+        with pytest.raises(LoadingError) as e:
+            volume_of(tank, quantity, value, 1.025)
+        assert str(e.value) == message
