@@ -68,3 +68,13 @@ def write_atomic(path: str | os.PathLike, data: bytes | str) -> None:
             pass
         raise
     fsync_dir(folder)
+
+
+def leftover_temp_files(folder: Path) -> list[Path]:
+    """Temporary files :func:`write_atomic` left in ``folder`` when it was killed mid-write
+    (``.NAME.XXXXXXXX.tmp``).  Call only where no other writer can be at work (under the
+    writer's lock, or at start before anything is saved)."""
+    try:
+        return sorted(p for p in Path(folder).glob(".*.tmp") if p.is_file())
+    except OSError:
+        return []

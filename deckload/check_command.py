@@ -5,7 +5,12 @@ line, in the form ``file:line: dotted.key = value: rule``.  With a condition, th
 condition is also computed once, so that a displacement or draft outside the
 vessel's tables is reported here rather than on the loading screen.
 
-Exit status: 0 no problems; 1 problems found; 2 a file could not be read;
+After the profile's summary: the plausibility audit (deckload.core.audit: errors are
+contradictions and fail the check, warnings are doubts), then the booklet's worked
+conditions recomputed beside the booklet's results with the tolerance of every row
+(deckload.core.booklet).
+
+Exit status: 0 no problems; 1 problems found (schema, audit error, booklet row outside tolerance); 2 a file could not be read;
 3 an internal error (a bug: please report it with the files).
 """
 
@@ -16,8 +21,9 @@ import sys
 import traceback
 from pathlib import Path
 
+from deckload import verdict_format as vf
 from deckload.core import model as m
-from deckload.profiles import Problem, ProfileError, load_condition, load_profile
+from deckload.profiles import Problem, ProfileError, load_condition, read_profile
 
 CAUTION = (
     "deckload supports, and never replaces, the approved stability booklet, "
@@ -34,10 +40,10 @@ def _range(a, unit: str) -> str:
     return f"{float(a[0]):.4g}–{float(a[-1]):.4g}{sep}{unit}"
 
 
-def profile_summary(path: Path, v: m.Vessel) -> list[str]:
+def profile_summary(path: Path, v: m.Vessel, sources: dict[str, str] | None = None) -> list[str]:
     """A few lines saying what the profile holds and over which ranges its tables run."""
     h, k = v.hydrostatics, v.cross_curves
-    rows = [len(t.calibration.sounding_m) for t in v.tanks]
+    rows = [len(t.calibration.sounding_m) for t in v.tanks if t.level_known]
     lines = [
         f"OK  {path}: {v.particulars.name!r}: {_plural(len(v.tanks), 'tank')}, {_plural(len(v.holds), 'hold')}, "
         f"{_plural(len(v.deck_areas), 'deck area')}, {_plural(len(v.load_lines), 'load line')}",
@@ -49,6 +55,16 @@ def profile_summary(path: Path, v: m.Vessel) -> list[str]:
         lines.append(f"    tank calibrations: {min(rows)}–{max(rows)} rows each")
     if v.limit_curve is not None:
         lines.append(f"    limit curve ({v.limit_curve.kind}): displacement {_range(v.limit_curve.displacement_t, 't')}")
+    if float(k.heel_deg[-1]) < 90.0:
+        lines.append(f"    note: the KN tables end at {float(k.heel_deg[-1]):g}°: the GZ curve, its areas and plots stop "
+                     "there; nothing is extrapolated")
+    if sources:
+        lines.append("    from CSV: " + ", ".join(f"{k} ← {f}" for k, f in sources.items()))
+    # How the booklet's conventions were converted, and what was assumed (vessel_profiles/README.md).
+    lines += [f"    converted: {c}" for c in v.conversions]
+    lines += [f"    assumed:   {a}" for a in v.assumptions]
+    if v.constants:
+        lines.append("    constants in every condition: " + ", ".join(f"{c.name} {c.mass_t:g} t" for c in v.constants))
     return lines
 
 
@@ -62,23 +78,96 @@ def run_check(profile_path: Path, condition_path: Path | None = None) -> int:
     """Validate the profile (and the condition against it); print the outcome; return the exit status."""
     profile_path = Path(profile_path)
     try:
-        vessel = load_profile(profile_path)
+        vessel, reading = read_profile(profile_path)
     except OSError as e:
         print(f"deckload: cannot read {profile_path}: {e.strerror or e}", file=sys.stderr)
         return 2
     except ProfileError as e:
         _print_problems(e.problems, profile_path)
+        print("plausibility audit and booklet conditions: not run until these problems are put right")
         if condition_path is not None:
             print(f"{condition_path}: not checked: its vessel profile has problems")
         return 1
-    for line in profile_summary(profile_path, vessel):
+    from deckload.audit_report import audit_profile
+
+    found = audit_profile(profile_path, vessel)
+    sources = {k: tr.csv for k, tr in reading.tables.items() if tr.csv}
+    summary = profile_summary(profile_path, vessel, sources)
+    if any(f.is_error for f in found):
+        # the schema is met but the numbers contradict each other: not "OK"
+        summary[0] = "ERR " + summary[0][4:]
+    for line in summary:
         print(line)
 
-    status = 0
+    status = _audit(found)
+    booklet = _booklet(profile_path, vessel)
+    status = max(status, booklet)
     if condition_path is not None:
-        status = _check_condition(Path(condition_path), vessel)
+        status = max(status, _check_condition(Path(condition_path), vessel))
     print(CAUTION)
     return status
+
+
+def _audit(found) -> int:
+    """Print the plausibility audit's findings; 1 when it found a contradiction (an error)."""
+    errors = sum(1 for f in found if f.is_error)
+    for f in found:
+        print(f)
+    if not found:
+        print("    plausibility audit: nothing suspicious found")
+    else:
+        print(f"plausibility audit: {_plural(errors, 'error')} (contradictions: put right before use), "
+              f"{_plural(len(found) - errors, 'warning')} (doubts: compare with the booklet)")
+    return 1 if errors else 0
+
+
+def _booklet(path: Path, vessel: m.Vessel) -> int:
+    """Recompute the booklet's worked conditions and print them beside the booklet's results."""
+    from deckload.booklet_conditions import load_booklet_conditions
+    from deckload.core.booklet import compare
+    from deckload.core.stability import evaluate
+    from deckload.core.tables import OutOfRangeError
+
+    try:
+        cases = load_booklet_conditions(path, vessel)
+    except OSError as e:
+        print(f"deckload: cannot read {e.filename or path}: {e.strerror or e}", file=sys.stderr)
+        return 2
+    except ProfileError as e:
+        _print_problems(e.problems, path)
+        return 1
+    if not cases:
+        return 0
+    passed = 0
+    for case in cases:
+        where = f" ({case.page})" if case.page else ""
+        print(f"booklet condition {case.name!r}{where}, loading: {case.source}")
+        for line in case.conversions:
+            print(f"    {line}")
+        try:
+            result = evaluate(vessel, case.condition)
+        except (OutOfRangeError, ValueError) as e:
+            print(f"    FAIL: cannot be computed: {e}")
+            continue
+        rows = compare(result, case.expected, vessel.particulars.breadth_m)
+        print(f"    {'quantity':<27} {'booklet':>9} {'deckload':>9} {'difference':>10} {'tolerance':>13}  "
+              f"{'rule (standards.md §5.3)':<38} result")
+        for r in rows:
+            got = "—" if r.deckload is None else f"{r.deckload:.4f}"
+            diff = "—" if r.difference is None else f"{r.difference:+.4f}"
+            label = f"{r.label} ({r.unit})"
+            allowed = f"±{r.allowed:.3g} {r.unit}"
+            verdict = "pass" if r.passed else "FAIL" + (f": {r.note}" if r.note else "")
+            print(f"    {label:<27} {r.booklet:>9.4f} {got:>9} {diff:>10} {allowed:>13}  {r.tolerance:<38} {verdict}")
+        failed = [r for r in rows if not r.passed]
+        if failed:
+            print(f"    FAIL: {_plural(len(failed), 'row')} outside tolerance: " + ", ".join(r.label for r in failed))
+        else:
+            passed += 1
+            print(f"    pass: all {_plural(len(rows), 'row')} within tolerance")
+    print(f"booklet conditions: {passed} of {len(cases)} within the MSC.1/Circ.1229 / IACS UR L5 tolerances "
+          "(standards.md §5.3)")
+    return 0 if passed == len(cases) else 1
 
 
 def _check_condition(path: Path, vessel: m.Vessel) -> int:
@@ -108,12 +197,14 @@ def _check_condition(path: Path, vessel: m.Vessel) -> int:
         if os.environ.get("DECKLOAD_DEBUG"):
             traceback.print_exc()
         return 3
-    met = sum(1 for c in result.criteria if c.passed)
+    met = sum(1 for c in result.criteria if c.passed and c.assessed)
     print(
         f"OK  {path}: {condition.name!r}: valid, and computes to displacement {result.displacement_t:.1f} t, "
         f"mean draft {result.draft_mean_m:.3f} m, GM fluid {result.gm_fluid_m:.3f} m; "
-        f"stability criteria met: {met} of {len(result.criteria)}"
+        f"criteria met: {met} of {len(result.criteria)}"
     )
+    for line in vf.verdict_lines(result, 100, "    "):
+        print(line)
     for w in result.warnings:
         print(f"    {w.severity}: {w.message}")
     return 0

@@ -31,6 +31,8 @@ def _parser() -> argparse.ArgumentParser:
     c.add_argument("profile", type=Path)
     c.add_argument("condition", type=Path)
     c.add_argument("--json", action="store_true", help="print one JSON object (SI units)")
+    c.add_argument("--direct", action="store_true",
+                   help="also compute from the hull geometry and print both methods side by side")
 
     k = sub.add_parser("check", help="validate a vessel profile and, optionally, a loading condition")
     k.add_argument("profile", type=Path)
@@ -39,6 +41,16 @@ def _parser() -> argparse.ArgumentParser:
     t = sub.add_parser("tables", help="compute hydrostatic, cross-curve and tank tables from hull geometry")
     t.add_argument("geometry", type=Path)
     t.add_argument("-o", "--output", type=Path, help="profile to write or refresh (default: print to stdout)")
+
+    x = sub.add_parser("csv", help="write a profile's tables as CSV files, in the booklet's conventions, to compare")
+    x.add_argument("profile", type=Path)
+    x.add_argument("folder", type=Path, help="folder to write the CSV files in (created if missing)")
+    mk = sub.add_parser("marks", help="drafts at the marks; with readings, the displacement and LCG they imply")
+    mk.add_argument("profile", type=Path)
+    mk.add_argument("condition", type=Path)
+    for where in ("aft", "mid", "fwd"):
+        mk.add_argument(f"--{where}", nargs=2, type=_reading, metavar=("PORT", "STBD"),
+                        help=f"{where} draft readings, port and starboard (m, extreme)")
 
     r = sub.add_parser("report", help="printable loading-condition report")
     r.add_argument("profile", type=Path)
@@ -70,21 +82,65 @@ def _parser() -> argparse.ArgumentParser:
     ver.add_argument("--vessel")
     ver.add_argument("--recover", action="store_true",
                      help="first set aside a torn last line (takes the writer's lock)")
+    ver.add_argument("--against", metavar="HASH",
+                     help="also check a paper copy's anchor: the SHA-256 (or its first 12+ hex digits, "
+                          "optionally as N:HASH) printed on a report or export")
     return p
 
 
-def _demo_shorthand(args: argparse.Namespace) -> None:
-    """Let 'demo' stand for the packaged demo profile and a demo condition's key for its file."""
-    from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
+def _reading(text: str) -> float:
+    """A draft reading in metres: a finite number (the vessel's own bounds are checked later)."""
+    import math
 
-    if getattr(args, "profile", None) is not None and str(args.profile) == "demo" and not args.profile.is_file():
-        args.profile = DEMO_PROFILE
+    try:
+        x = float(text)
+    except ValueError:
+        raise argparse.ArgumentTypeError(f"{text!r} is not a number of metres") from None
+    if not math.isfinite(x) or x < 0.0:
+        raise argparse.ArgumentTypeError(f"{text!r}: a draft reading must be a finite, non-negative number of metres")
+    return x
+
+
+def _demo_shorthand(args: argparse.Namespace) -> None:
+    """Let 'demo' or 'trawler' stand for a packaged demo profile and a condition's key for its file."""
+    from deckload.paths import DEMO_VESSELS
+
+    profile = getattr(args, "profile", None)
+    if profile is not None and str(profile) in DEMO_VESSELS and not profile.is_file():
+        args.profile, conditions = DEMO_VESSELS[str(profile)]
         cond = getattr(args, "condition", None)
-        if cond is not None and str(cond) in DEMO_CONDITIONS:
-            args.condition = DEMO_CONDITIONS[str(cond)]
+        if cond is not None and str(cond) in conditions:
+            args.condition = conditions[str(cond)]
 
 
 def main(argv: list[str] | None = None) -> int:
+    """Run one command.  Its error boundary: whatever escapes becomes one paragraph and exit 3
+    (deckload.boundary); control characters never reach the terminal (deckload.textsafe)."""
+    import warnings
+
+    from deckload.textsafe import EscapingStream
+
+    # numpy's floating-point warnings are not for the officer: every non-finite number is
+    # refused with a message where it is computed (deckload.core.bounds).
+    warnings.simplefilter("ignore", RuntimeWarning)
+    out, err = sys.stdout, sys.stderr
+    if not isinstance(out, EscapingStream):
+        sys.stdout, sys.stderr = EscapingStream(out), EscapingStream(err)
+    try:
+        return _main(argv)
+    finally:
+        if isinstance(sys.stdout, EscapingStream):  # not if a closed pipe replaced it
+            sys.stdout = out
+        if isinstance(sys.stderr, EscapingStream):
+            sys.stderr = err
+
+
+def _files(args: argparse.Namespace) -> list[str]:
+    return [str(getattr(args, k)) for k in ("profile", "condition", "geometry", "output", "dir")
+            if getattr(args, k, None) is not None]
+
+
+def _main(argv: list[str] | None) -> int:
     args = _parser().parse_args(argv)
     _demo_shorthand(args)
     cmd = args.command or "open"
@@ -96,7 +152,7 @@ def main(argv: list[str] | None = None) -> int:
         if cmd == "calc":
             from deckload.commands import run_calc
 
-            return run_calc(args.profile, args.condition, as_json=args.json)
+            return run_calc(args.profile, args.condition, as_json=args.json, direct=args.direct)
         if cmd == "check":
             from deckload.check_command import run_check
 
@@ -105,6 +161,20 @@ def main(argv: list[str] | None = None) -> int:
             from deckload.tables_command import run_tables
 
             return run_tables(args.geometry, args.output)
+        if cmd == "csv":
+            from deckload.csv_command import run_csv
+
+            return run_csv(args.profile, args.folder)
+        if cmd == "marks":
+            from deckload.marks_command import run_marks
+
+            given = [args.aft, args.mid, args.fwd]
+            if any(g is not None for g in given) and not all(g is not None for g in given):
+                print("deckload marks: give all six readings (--aft, --mid and --fwd, port and starboard each)",
+                      file=sys.stderr)
+                return 2
+            readings = None if args.aft is None else [*args.aft, *args.mid, *args.fwd]
+            return run_marks(args.profile, args.condition, readings)
         if cmd == "report":
             from deckload.report import run_report
 
@@ -115,17 +185,20 @@ def main(argv: list[str] | None = None) -> int:
             return run_log(args)
     except KeyboardInterrupt:
         return 130
-    except ValueError as e:
+    except BrokenPipeError:
+        # The reader (e.g. `| head`) went away: not an error of ours.
+        sys.stdout = open(os.devnull, "w")
+        return 0
+    except Exception as e:
         from deckload.logbook import ShipOffsetError
 
         if isinstance(e, ShipOffsetError):
             print(f"deckload: {e}", file=sys.stderr)
             return 2
-        raise
-    except BrokenPipeError:
-        # The reader (e.g. `| head`) went away: not an error of ours.
-        sys.stdout = open(os.devnull, "w")
-        return 0
+        from deckload.boundary import internal_error
+
+        what = {"open": "running the loading screen", "log": f"running 'log {getattr(args, 'log_command', '')}'"}
+        return internal_error(e, what.get(cmd, f"running '{cmd}'"), _files(args))
     print(f"deckload: unknown command {cmd!r}", file=sys.stderr)
     return 2
 

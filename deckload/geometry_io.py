@@ -28,6 +28,7 @@ from deckload.core.geometry.spec import (
     Geometry,
     HoldSpec,
     HullOffsets,
+    LateralProfile,
     OpeningSpec,
     TableSpec,
     TankSpec,
@@ -84,7 +85,9 @@ def load_geometry(path: str | os.PathLike) -> Geometry:
     """Read and validate a geometry file; raises :class:`GeometryError` listing every problem."""
     p = Path(path)
     try:
-        text = p.read_text(encoding="utf-8")
+        from deckload.limits import MAX_TOML_BYTES, read_limited
+
+        text = read_limited(p, MAX_TOML_BYTES, "a geometry file").decode("utf-8")
     except OSError as e:
         raise GeometryError([GeometryProblem(str(path), None, "", None, f"cannot read the file: {e.strerror or e}")])
     except UnicodeDecodeError as e:
@@ -105,6 +108,7 @@ def parse_geometry(text: str, filename: str = "<geometry>") -> Geometry:
     holds = _read_holds(root, hull, ids)
     areas = _read_deck_areas(root, hull, ids)
     openings = _read_openings(root, hull)
+    lateral = _read_lateral_profile(root, tables)
     root.finish()
     if vessel is not None and hull is not None:
         xs = hull.station_x_m
@@ -115,7 +119,30 @@ def parse_geometry(text: str, filename: str = "<geometry>") -> Geometry:
     ctx.fail_if_any()
     assert vessel is not None and hull is not None and tables is not None
     return Geometry(vessel=vessel, hull=hull, tables=tables, tanks=tuple(tanks), holds=tuple(holds),
-                    deck_areas=tuple(areas), openings=tuple(openings))
+                    deck_areas=tuple(areas), openings=tuple(openings), lateral_profile=lateral)
+
+
+def _read_lateral_profile(root: Table, tables: TableSpec | None) -> LateralProfile | None:
+    """``[lateral_profile]``: a closed outline (x_m, z_m) of the vessel seen from the side."""
+    t = root.table("lateral_profile", required=False)
+    if t is None:
+        return None
+    x = t.array("x_m", min_len=3)
+    z = t.array("z_m", above_keel, min_len=3, length=None if x is None else len(x))
+    t.finish()
+    if x is None or z is None:
+        return None
+    if abs(polygon_area(x, z)) <= 0.0:
+        t.bad("x_m", t.data["x_m"], "the outline (x_m, z_m) encloses no area")
+        return None
+    if tables is not None:
+        from deckload.core.geometry.windage import windage_above
+
+        for d in tables.draft_m:
+            if windage_above(x, z, float(d))[0] <= 0.0:
+                t.bad("z_m", t.data["z_m"], f"the outline has no area above the table draft {d:g} m")
+                return None
+    return LateralProfile(x_m=x, z_m=z)
 
 
 def _read_vessel(root: Table) -> VesselSpec | None:

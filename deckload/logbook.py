@@ -19,7 +19,9 @@ Each line holds (format ``deckload-log-1``)::
     ship_clock   the ship's clock offset from UTC, "+HH:MM" (local timezone or configured)
     vessel, by, kind, change, change_data, remark
     summary      the computed summary of the Result (Δ, drafts, trim, list, GM fluid, FSC,
-                 criteria passed/failed and the smallest margin), or null
+                 criteria passed/failed and the smallest margin, the criteria sets assessed,
+                 what was not assessed and why, the verdict sentence, freeboard and its margin
+                 to the load line, deck-edge and downflooding angles, the weather numbers), or null
     condition    the loading condition as written by deckload.profiles.dump_condition, or null
     prev_sha256  SHA-256 (hex) of the previous line's bytes, without its "\\n";
                  64 zeros on line 1
@@ -55,6 +57,8 @@ from typing import Any, Callable, Iterable
 from deckload.atomicfile import fsync_dir, write_atomic
 from deckload.core.model import Condition
 from deckload.core.result import Result
+from deckload.limits import MAX_LOG_BYTES, MAX_LOG_LINE_BYTES
+from deckload.textsafe import control_char, escaped
 
 FORMAT = "deckload-log-1"
 HEAD_FORMAT = "deckload-log-head-1"
@@ -238,7 +242,19 @@ def summarise(result: Result) -> dict:
         "fsc_m": result.fsc_m,
         "gm_fluid_m": result.gm_fluid_m,
         "criteria_pass": result.all_criteria_pass,
-        "criteria_failed": [c.id for c in result.criteria if not c.passed],
+        "criteria_failed": [c.id for c in result.criteria if c.assessed and not c.passed],
+        "criteria_not_assessable": [{"id": c.id, "note": c.note} for c in result.criteria if not c.assessed],
+        "criteria_sets": [{"id": a.id, "title": a.title, "pass": a.passed} for a in result.criteria_sets],
+        "not_assessed": [{"item": n.item, "reason": n.reason} for n in result.not_assessed],
+        "verdict": result.verdict_text(),
+        "deck_edge_angle_deg": result.deck_edge_angle_deg,
+        "downflooding_angle_deg": result.downflooding_angle_deg,
+        "freeboard_m": result.freeboard_m,
+        "load_line_margin_m": result.load_line_margin_m,
+        "weather": None if result.weather is None else {
+            k: getattr(result.weather, k) for k in (
+                "lw1_m", "lw2_m", "theta0_deg", "theta0_limit_deg", "theta1_deg", "theta2_deg",
+                "area_a_mrad", "area_b_mrad")},
         "smallest_margin": None
         if sm is None
         else {
@@ -324,11 +340,17 @@ class LogEntry:
 
 
 def _entry_from_line(line: bytes, line_no: int) -> LogEntry:
-    """Parse one line; :class:`LogFormatError` names the line and what is wrong."""
+    """Parse one line; :class:`LogFormatError` names the line and what is wrong.
+
+    Text fields are read back with control characters escaped (deckload.textsafe): a line
+    edited to hold terminal escapes is shown, never obeyed."""
+    if len(line) > MAX_LOG_LINE_BYTES:
+        raise LogFormatError(f"line {line_no}: {len(line)} bytes, more than the {MAX_LOG_LINE_BYTES} allowed "
+                             "for one entry")
     try:
         obj = json.loads(line.decode("utf-8"))
-    except (UnicodeDecodeError, json.JSONDecodeError) as exc:
-        raise LogFormatError(f"line {line_no}: not valid JSON ({exc})") from None
+    except (ValueError, RecursionError) as exc:
+        raise LogFormatError(f"line {line_no}: not valid JSON ({str(exc)[:200]})") from None
     if not isinstance(obj, dict):
         raise LogFormatError(f"line {line_no}: not a JSON object")
     for key, typ in _REQUIRED.items():
@@ -350,12 +372,12 @@ def _entry_from_line(line: bytes, line_no: int) -> LogEntry:
         seq=obj["seq"],
         utc=utc,
         ship_clock=obj["ship_clock"],
-        vessel=obj["vessel"],
-        by=obj["by"],
+        vessel=escaped(obj["vessel"]),
+        by=escaped(obj["by"]),
         kind=obj["kind"],
-        change_text=obj["change"],
+        change_text=escaped(obj["change"]),
         change_data=obj["change_data"],
-        remark=obj["remark"],
+        remark=escaped(obj["remark"]),
         summary=obj["summary"],
         condition=obj["condition"],
         prev_sha256=obj["prev_sha256"],
@@ -458,10 +480,15 @@ def verify_lines(
             )
 
     if head is None:
-        notes.append(
-            "no head record: removal of the newest entries cannot be detected "
-            "(it is written with the next entry)"
-        )
+        if n:
+            problems.append(
+                f"head record: missing, but the log has {n} entr{'y' if n == 1 else 'ies'} — it was deleted; "
+                "the newest entries may have been removed or edited without trace (tampering suspected)"
+            )
+    elif head.get("seq") == 0 and head.get("sha256") == GENESIS_SHA256:
+        if n:
+            notes.append(f"head record is {n} entr{'y' if n == 1 else 'ies'} behind (power cut between the first "
+                         "append and its head update); the lines chain correctly from the start")
     else:
         hseq, hsha = head.get("seq"), head.get("sha256")
         if not isinstance(hseq, int) or isinstance(hseq, bool) or not isinstance(hsha, str):
@@ -615,12 +642,13 @@ class Logbook:
 
     def _read_head(self) -> dict | None:
         try:
-            raw = self.head_path.read_bytes()
+            with open(self.head_path, "rb") as f:
+                raw = f.read(64 * 1024)  # a head record is one short line; more is damage
         except FileNotFoundError:
             return None
         try:
             head = json.loads(raw.decode("utf-8"))
-        except (UnicodeDecodeError, json.JSONDecodeError):
+        except (ValueError, RecursionError):
             return {"damaged": True}
         return head if isinstance(head, dict) else {"damaged": True}
 
@@ -636,6 +664,10 @@ class Logbook:
         if created:
             os.fsync(self._fd)
             fsync_dir(self.path.parent)
+            if not self.head_path.exists():
+                # The head record exists from the start (seq 0, the genesis hash), so that a log
+                # with entries and no head record always means the head was deleted.
+                self._write_head()
         data = _read_fd(self._fd)
         lines, torn = _split_lines(data)
         if not torn and lines and not _parses(lines[-1]):
@@ -665,7 +697,7 @@ class Logbook:
                 self._last_seq = _entry_from_line(lines[-1], len(lines)).seq
             except LogFormatError:
                 self._last_seq = len(lines)
-            if head is None or head.get("seq") != len(lines):
+            if head is None or head.get("seq") != self._last_seq:
                 self._write_head()
 
     def _set_aside(self, torn: bytes, line_no: int) -> TornRecovery:
@@ -709,6 +741,12 @@ class Logbook:
         initials = validate_initials(by)
         if not isinstance(change_text, str) or not change_text.strip():
             raise ValueError("change text must say what changed (it is empty)")
+        for what, text in (("change text", change_text), ("remark", remark)):
+            if not isinstance(text, str) or len(text) > 2000:
+                raise ValueError(f"{what}: at most 2000 characters of text")
+            bad = control_char(text)
+            if bad is not None:
+                raise ValueError(f"{what} holds the control character {bad}: type plain text")
         if not isinstance(change_data, dict):
             raise ValueError(f"change data must be a mapping, not {type(change_data).__name__}")
         now = self._clock()
@@ -735,6 +773,8 @@ class Logbook:
         except (TypeError, ValueError) as exc:
             raise ValueError(f"change data cannot be stored as JSON: {exc}") from None
         line = text.encode("utf-8")
+        if len(line) > MAX_LOG_LINE_BYTES:
+            raise ValueError(f"the entry would be {len(line)} bytes, more than the {MAX_LOG_LINE_BYTES} allowed")
         size_before = os.fstat(self._fd).st_size
         try:
             _write_all(self._fd, line + b"\n")
@@ -761,9 +801,10 @@ class Logbook:
     # ----------------------------------------------------------------- reading
 
     def _read(self) -> bytes:
+        from deckload.limits import read_limited
+
         try:
-            with open(self.path, "rb") as f:
-                return f.read()
+            return read_limited(self.path, MAX_LOG_BYTES, "one voyage log (start a new log)")
         except FileNotFoundError:
             return b""
 
@@ -815,6 +856,10 @@ class Logbook:
         head = self._read_head()
         if not lines and not tail and head is None:
             return VerifyReport(ok=True, problems=[], notes=["the log is empty"], entries=0)
+        if not self.path.exists() and head is not None:
+            return VerifyReport(ok=False, entries=0, notes=[], problems=[
+                f"{self.path.name}: missing, but its head record {self.head_path.name} names entry "
+                f"#{head.get('seq')} — the log was deleted or moved (tampering suspected)"])
         return verify_lines(lines, tail, head, self.vessel_name, writer_active=self.writer_active() and
                             self._lock_fd is None)
 
@@ -859,7 +904,7 @@ def _read_fd(fd: int) -> bytes:
 def _parses(line: bytes) -> bool:
     try:
         return isinstance(json.loads(line.decode("utf-8")), dict)
-    except (UnicodeDecodeError, json.JSONDecodeError):
+    except (ValueError, RecursionError):
         return False
 
 
@@ -874,7 +919,7 @@ def _line_of_seq(seqs: list[int | None], seq: int) -> int | None:
 def _seq_of(line: bytes) -> int | None:
     try:
         obj = json.loads(line.decode("utf-8"))
-    except (UnicodeDecodeError, json.JSONDecodeError):
+    except (ValueError, RecursionError):
         return None
     seq = obj.get("seq") if isinstance(obj, dict) else None
     return seq if isinstance(seq, int) and not isinstance(seq, bool) else None
@@ -888,10 +933,22 @@ def _head_disagreement(head: dict | None, lines: list[bytes]) -> str | None:
     only behind (a power cut, or a failed head update, after an append).
     """
     if head is None:
-        return None
+        # Every log gets its head record when it is created: entries without one mean it was deleted.
+        return None if not lines else "the head record is missing although the log has entries (deleted)"
     seq, sha = head.get("seq"), head.get("sha256")
     if not isinstance(seq, int) or isinstance(seq, bool) or not isinstance(sha, str):
         return "the head record is damaged"
+    if seq == 0 and sha == GENESIS_SHA256:
+        prev = GENESIS_SHA256
+        for k, line in enumerate(lines):
+            try:
+                got = json.loads(line.decode("utf-8")).get("prev_sha256")
+            except (ValueError, RecursionError, AttributeError):
+                got = None
+            if got != prev:
+                return f"line {k + 1} does not chain from the start of the log the head record names"
+            prev = sha256_hex(line)
+        return None
     for at in range(len(lines) - 1, -1, -1):
         if _seq_of(lines[at]) != seq:
             continue
@@ -900,7 +957,7 @@ def _head_disagreement(head: dict | None, lines: list[bytes]) -> str | None:
         for k in range(at + 1, len(lines)):
             try:
                 prev = json.loads(lines[k].decode("utf-8")).get("prev_sha256")
-            except (UnicodeDecodeError, json.JSONDecodeError, AttributeError):
+            except (ValueError, RecursionError, AttributeError):
                 prev = None
             if prev != sha256_hex(lines[k - 1]):
                 return f"line {k + 1} does not chain from the entry the head record names (#{seq})"
@@ -914,8 +971,43 @@ def _head_disagreement(head: dict | None, lines: list[bytes]) -> str | None:
 
 
 def log_files(directory: Path) -> list[Path]:
-    """The vessel logs in ``directory`` (sorted by name)."""
-    return sorted(Path(directory).glob("*.log.jsonl"))
+    """The vessel logs in ``directory`` (sorted by name), including logs whose file is gone but
+    whose head record remains (verify reports those)."""
+    d = Path(directory)
+    logs = set(d.glob("*.log.jsonl"))
+    logs |= {h.with_name(h.name.removesuffix(".head.json") + ".jsonl") for h in d.glob("*.log.head.json")}
+    return sorted(logs)
+
+
+def anchor(directory: Path, vessel_name: str) -> tuple[int, str] | None:
+    """The newest entry's number and SHA-256 in a vessel's log (for printed copies), or None."""
+    try:
+        book = Logbook.open(Path(directory), vessel_name, readonly=True)
+    except OSError:
+        return None
+    try:
+        entries = book.entries()
+    except OSError:
+        return None
+    finally:
+        book.close()
+    return (entries[-1].seq, entries[-1].sha256) if entries else None
+
+
+def find_anchor(lines: list[bytes], anchor_text: str) -> tuple[int, int] | None:
+    """Where a paper copy's anchor (a SHA-256, or its first 12+ hex digits, optionally as
+    'N:HASH' or '#N HASH') is in the log: (line number, entry number), else None."""
+    m = re.fullmatch(r"\s*(?:#?(\d+)\s*[:\s]\s*)?([0-9a-fA-F]{12,64})\s*", anchor_text)
+    if m is None:
+        raise ValueError(f"anchor {anchor_text!r} is not a SHA-256 (12 to 64 hex digits), optionally after 'N:'")
+    want_seq = int(m.group(1)) if m.group(1) else None
+    prefix = m.group(2).lower()
+    for i, line in enumerate(lines, start=1):
+        if sha256_hex(line).startswith(prefix):
+            seq = _seq_of(line)
+            if want_seq is None or seq == want_seq:
+                return i, seq if seq is not None else i
+    return None
 
 
 def vessel_of_log(path: Path) -> str:

@@ -1,7 +1,7 @@
-"""Where deckload finds its demo vessel and keeps its logs and working conditions.
+"""Where deckload finds its demo vessels and keeps its logs and working conditions.
 
-This module only computes paths; it creates nothing.  The demo vessel ships as
-package data (``deckload/data``) so that ``pip install .`` finds it from any
+This module only computes paths; it creates nothing.  The demo vessels ship as
+package data (``deckload/data``) so that ``pip install .`` finds them from any
 working folder; ``vessel_profiles/`` in the checkout is the browsable copy.
 """
 
@@ -16,7 +16,33 @@ DEMO_CONDITIONS = {
     "departure": PACKAGE_DATA / "demo_islander.departure.condition.toml",
     "midvoyage": PACKAGE_DATA / "demo_islander.midvoyage.condition.toml",
     "arrival": PACKAGE_DATA / "demo_islander.arrival.condition.toml",
+    "light": PACKAGE_DATA / "demo_islander.light.condition.toml",
 }
+TRAWLER_PROFILE = PACKAGE_DATA / "demo_trawler.toml"
+"""The second demo vessel, an invented stern trawler entered from booklet-style tables (CSV)."""
+TRAWLER_CONDITIONS = {
+    "departure": PACKAGE_DATA / "demo_trawler.departure.condition.toml",
+    "grounds": PACKAGE_DATA / "demo_trawler.grounds.condition.toml",
+    "arrival": PACKAGE_DATA / "demo_trawler.arrival.condition.toml",
+}
+DEMO_VESSELS = {
+    "demo": (DEMO_PROFILE, DEMO_CONDITIONS),
+    "trawler": (TRAWLER_PROFILE, TRAWLER_CONDITIONS),
+}
+"""Shorthand names on the command line: name → (profile, {condition key: file})."""
+
+
+def demo_start_condition(profile: Path | None) -> Path | None:
+    """The condition a packaged demo vessel opens on when none is saved: its departure.
+
+    ``None`` stands for the default demo vessel; any other profile gets ``None`` back.
+    """
+    if profile is None:
+        return DEMO_CONDITIONS["departure"]
+    for demo_profile, conditions in DEMO_VESSELS.values():
+        if Path(profile).resolve() == demo_profile.resolve():
+            return conditions["departure"]
+    return None
 
 
 def _checkout_root(start: Path) -> Path | None:
@@ -49,3 +75,26 @@ def log_dir(cwd: Path | None = None) -> Path:
 def working_dir(cwd: Path | None = None) -> Path:
     """Where the loading screen keeps each vessel's working condition (beside the logs)."""
     return log_dir(cwd) / "working"
+
+
+def working_file(work_dir: Path, vessel_name: str) -> Path:
+    """A vessel's working condition: ``<slug>-<hash>.condition.toml``.
+
+    The slug keeps letters of any script (for people reading the folder); the first 10 hex
+    digits of the SHA-256 of the full name make the name unique per vessel, so that "Bjørn"
+    and "Björn", or two names in a script the slug cannot show, never share one file.
+    """
+    import hashlib
+
+    from deckload.logbook import vessel_slug
+
+    digest = hashlib.sha256(vessel_name.encode("utf-8")).hexdigest()[:10]
+    return work_dir / f"{vessel_slug(vessel_name)[:60]}-{digest}.condition.toml"
+
+
+def legacy_working_file(work_dir: Path, vessel_name: str) -> Path:
+    """The name earlier versions used (ASCII letters and digits only; shared by some vessels)."""
+    import re
+
+    slug = re.sub(r"[^a-z0-9]+", "-", vessel_name.lower()).strip("-") or "vessel"
+    return work_dir / f"{slug}.condition.toml"

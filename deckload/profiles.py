@@ -23,7 +23,10 @@ saved atomically (:func:`save_condition`): the old file survives any crash.
 
 from __future__ import annotations
 
+import math
 import os
+from dataclasses import dataclass, replace
+from dataclasses import field as dataclass_field
 from pathlib import Path
 from typing import Any
 
@@ -31,7 +34,13 @@ import numpy as np
 import tomli_w
 
 from deckload.atomicfile import write_atomic
+from deckload.conventions import DATUMS, Frame, read_frame, tcg_array, tcg_num
 from deckload.core import model as m
+from deckload.core.gz import STEP_DEG as GZ_STEP_DEG
+from deckload.core.gz import grid_points
+from deckload.core.loading import reading_range
+from deckload.core.tables import interp
+from deckload.csvtables import attach_csv, attach_kn_csv
 # Problem, ProfileError and ID_PATTERN are imported from here by other modules too
 from deckload.tomlcheck import (
     ID_PATTERN,
@@ -59,8 +68,11 @@ CONDITION_FORMAT = "deckload-condition-1"
 LIQUID_DENSITY_RANGE_T_M3 = (0.5, 2.0)
 """Plausible densities of a tank's contents (t/m³): light oils ~0.8, heavy brines ~1.3."""
 
-WATER_DENSITY_RANGE_T_M3 = (0.99, 1.04)
-"""Plausible densities of the water a vessel floats in (t/m³): fresh 1.000, sea about 1.025."""
+from deckload.core.bounds import (  # noqa: E402  one set of ranges for files and the screen
+    BEAM_DEPTH_RANGE_M,
+    LBP_RANGE_M,
+    WATER_DENSITY_RANGE_T_M3,
+)
 
 CAPACITY_TOLERANCE = 0.0005
 """A tank's capacity_m3 may differ from its last calibration volume by at most 0.05 % (round-off):
@@ -89,8 +101,19 @@ def load_profile(path: str | os.PathLike) -> m.Vessel:
     return parse_profile(_read_text(path), str(path))
 
 
+def read_profile(path: str | os.PathLike) -> tuple[m.Vessel, "Reading"]:
+    """:func:`load_profile`, and how each table was written (for ``deckload csv``)."""
+    reading = Reading()
+    return parse_profile(_read_text(path), str(path), reading), reading
+
+
 def _read_text(path: str | os.PathLike) -> str:
-    data = Path(path).read_bytes()
+    from deckload.limits import MAX_TOML_BYTES, TooLargeError, read_limited
+
+    try:
+        data = read_limited(path, MAX_TOML_BYTES, "a profile or condition")
+    except TooLargeError as e:
+        raise ProfileError([Problem(str(path), None, "", None, str(e).split(": ", 1)[1])]) from None
     try:
         return data.decode("utf-8")
     except UnicodeDecodeError as e:
@@ -98,33 +121,84 @@ def _read_text(path: str | os.PathLike) -> str:
         raise ProfileError([Problem(str(path), line, "", None, f"not UTF-8 text (byte {e.start + 1}); TOML files must be UTF-8")]) from None
 
 
-def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
+@dataclass
+class TableReading:
+    """How one table of the profile was written: enough to write it back the same way."""
+
+    frame: Frame
+    csv: str | None = None
+    tcg_marked: bool = False
+    """TCGs were written "1.20 P" / "1.20 S"."""
+    level: str = "sounding_m"
+    """A calibration tabulated by 'sounding_m' or 'ullage_m'."""
+    reversed: bool = False
+    """Rows were written with the level falling (e.g. ullage rising)."""
+    added_bottom_row: bool = False
+    """A row 'level 0, volume 0' was added below the first written row."""
+    fsm: str = "fsi_m4"
+    """'fsi_m4', 'fsm_tm' (column in t·m at ``fsm_density_t_m3``) or '' (none per row)."""
+    fsm_density_t_m3: float | None = None
+    against: str = "displacement_t"
+    """A curve tabulated against 'displacement_t' or 'draft_m'."""
+
+
+@dataclass
+class Reading:
+    """Conversions, assumptions and per-table conventions met while reading one profile."""
+
+    conversions: list[str] = dataclass_field(default_factory=list)
+    assumptions: list[str] = dataclass_field(default_factory=list)
+    tables: dict[str, TableReading] = dataclass_field(default_factory=dict)
+
+    def convert(self, where: str, keys: str, how: str) -> None:
+        self.conversions.append(f"{where} {keys}: {how}")
+
+
+def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | None" = None) -> m.Vessel:
     """Validate the text of a vessel profile and build the :class:`~deckload.core.model.Vessel`.
 
-    Raises :class:`ProfileError` listing every problem found.
+    Booklet conventions are converted on load (vessel_profiles/README.md, "Booklet
+    conventions and CSV tables"); every conversion and assumption is listed in the
+    vessel's ``conversions`` / ``assumptions``.  Tables may come from CSV files beside
+    ``filename``.  Raises :class:`ProfileError` listing every problem found.
     """
     ctx = FileCheck(filename, text)
     root = ctx.root()
     root.text("format", choices=(PROFILE_FORMAT,))
+    rd = reading if reading is not None else Reading()
 
-    particulars = _read_particulars(root)
-    lightship = _read_lightship(root)
-    hydro = _read_hydrostatics(root)
-    cross = _read_cross_curves(root)
+    particulars, frame = _read_particulars(root)
+    lightship = _read_lightship(root, frame, rd)
+    hydro = _read_hydrostatics(root, frame, rd)
+    cross = _read_cross_curves(root, frame, rd)
     fs = _read_free_surface(root, lightship)
-    criteria = _read_criteria(root)
-    load_lines = _read_load_lines(root, hydro)
-    limit = _read_limit_curve(root)
-    downflooding = _read_downflooding(root)
+    criteria = _read_criteria(root, particulars)
+    extra = _read_extra_criteria(root, particulars)
+    if criteria is not None and extra:
+        criteria = replace(criteria, extra=extra)
+    load_lines = _read_load_lines(root, hydro, frame, rd)
+    limit = _read_limit_curve(root, hydro, frame, rd)
+    downflooding = _read_downflooding(root, hydro, frame, rd)
+    _check_kn_reach(root, cross, downflooding)
+    windage = _read_windage(root, particulars)
+    deck_edge = _read_deck_edge(root)
+    passengers = _read_passengers(root, particulars, criteria)
+    marks = _read_draft_marks(root, particulars, frame, rd)
+    hull = _read_hull_geometry(root, particulars, filename)
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
-    tanks = _read_tanks(root, fs, ids)
-    holds = _read_holds(root, ids)
-    areas = _read_deck_areas(root, ids)
+    depth = particulars.depth_m if particulars is not None else math.inf
+    tanks = _read_tanks(root, fs, ids, frame, rd, depth)
+    holds = _read_holds(root, ids, frame, rd)
+    areas = _read_deck_areas(root, ids, frame, rd)
+    constants = _read_profile_constants(root, frame, rd)
+    # [[booklet_condition]]: the booklet's worked conditions, read and compared by `deckload check`
+    # (deckload.booklet_conditions) once the vessel exists; not part of the model.
+    root.get("booklet_condition", False)
     root.finish()
     ctx.fail_if_any()
 
-    return m.Vessel(
+    return _physical(ctx).check_vessel(ctx, m.Vessel(
         particulars=particulars,
         lightship=lightship,
         hydrostatics=hydro,
@@ -137,58 +211,129 @@ def parse_profile(text: str, filename: str = "<profile>") -> m.Vessel:
         downflooding=downflooding,
         criteria=criteria,
         free_surface=fs,
-    )
+        windage=windage,
+        deck_edge=deck_edge,
+        passengers=passengers,
+        constants=tuple(constants),
+        conversions=tuple(rd.conversions),
+        assumptions=tuple(rd.assumptions),
+        draft_marks=marks,
+        hull=hull,
+    ))
 
 
-def _read_particulars(root: Table) -> m.Particulars | None:
+def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:
     t = root.table("vessel")
+    # Without usable particulars the profile is refused anyway; a stand-in frame lets every
+    # other table still be checked, so that all problems are reported at once.
+    stand_in = Frame(1.0)
     if t is None:
-        return None
+        return None, stand_in
     kw = dict(
         name=t.text("name"),
         vessel_type=t.text("vessel_type", required=False, empty_ok=True),
-        lbp_m=t.num("lbp_m", positive),
-        breadth_m=t.num("breadth_m", positive),
-        depth_m=t.num("depth_m", positive),
+        # every other physical bound derives from these three (deckload.core.bounds)
+        lbp_m=t.num("lbp_m", positive, between(*LBP_RANGE_M, "m", "a ship's length between perpendiculars")),
+        breadth_m=t.num("breadth_m", positive, between(*BEAM_DEPTH_RANGE_M, "m", "a ship's moulded breadth")),
+        depth_m=t.num("depth_m", positive, between(*BEAM_DEPTH_RANGE_M, "m", "a ship's moulded depth")),
         design_draft_m=t.num("design_draft_m", positive),
         table_density_t_m3=t.num("table_density_t_m3", water_density),
     )
-    datum = t.text("longitudinal_datum", choices=("AP",))
+    datum = True
+    if not t.has("longitudinal_datum"):
+        t.get("longitudinal_datum")  # reports it missing: the datum of every x must be stated
+        datum = None
     kw["remark"] = t.text("remark", required=False, empty_ok=True)
+    keel_rule = between(0.0, 0.1, "m", "a keel plate; extreme − moulded draft")
+    kw["keel_thickness_m"] = t.num("keel_thickness_m", keel_rule, required=False, default=0.0)
+    base = Frame(kw["lbp_m"] or 1.0, keel_thickness_m=kw["keel_thickness_m"] or 0.0)
+    frame = read_frame(t, base)
     t.finish()
     if kw["design_draft_m"] is not None and kw["depth_m"] is not None and kw["design_draft_m"] > kw["depth_m"]:
         t.bad("design_draft_m", t.data["design_draft_m"], f"exceeds the depth {num(kw['depth_m'])} m")
-        return None
-    if datum is None or any(v is None for v in kw.values()):
-        return None
-    return m.Particulars(longitudinal_datum="aft perpendicular, positive forward", **kw)
+        return None, frame or stand_in
+    if datum is None or frame is None or any(v is None for v in kw.values()):
+        return None, frame or stand_in
+    words = f"{frame.datum} datum, + {frame.positive}" if frame.datum != "AP" else "aft perpendicular, positive forward"
+    return m.Particulars(longitudinal_datum=words, **kw), frame
 
 
-def _read_mass_item(t: Table, name: str, *, mass_rule: Rule = non_negative) -> m.MassItem | None:
-    kw = dict(
-        mass_t=t.num("mass_t", mass_rule),
-        lcg_m=t.num("lcg_m"),
-        vcg_m=t.num("vcg_m", above_keel),
-        tcg_m=t.num("tcg_m", required=False, default=0.0),
-    )
+def _x(t: Table, k: str, frame: Frame | None) -> float | None:
+    """One x position as written, converted to metres from AP, + forward."""
+    v = t.num(k)
+    if v is None or frame is None:
+        return None
+    return float(frame.x_to_ap(v))
+
+
+def _note_frame(rd: Reading, where: str, frame: Frame | None, xkeys: str, ykeys: str, marked: bool) -> None:
+    if frame is None:
+        return
+    if xkeys and not frame.x_is_identity:
+        rd.convert(where, xkeys, frame.describe_x())
+    if ykeys and not frame.y_is_identity:
+        rd.convert(where, ykeys, frame.describe_y())
+    if ykeys and marked:
+        rd.convert(where, ykeys, "\"P\" / \"S\" marks → − port / + starboard")
+
+
+def _read_mass_item(t: Table, name: str, *, mass_rule: Rule = non_negative, frame: Frame | None = None,
+                    rd: Reading | None = None, where: str = "") -> m.MassItem | None:
+    """A mass and its centre.  With ``frame`` (a profile table) its booklet convention applies."""
+    if frame is None and rd is None:
+        kw = dict(
+            mass_t=t.num("mass_t", mass_rule),
+            lcg_m=t.num("lcg_m"),
+            vcg_m=t.num("vcg_m", above_keel),
+            tcg_m=t.num("tcg_m", required=False, default=0.0),
+        )
+    else:
+        f = read_frame(t, frame, sides=True)
+        tcg, marked = tcg_num(t, "tcg_m", f)
+        kw = dict(mass_t=t.num("mass_t", mass_rule), lcg_m=_x(t, "lcg_m", f),
+                  vcg_m=t.num("vcg_m", above_keel), tcg_m=tcg)
+        _note_frame(rd, where, f, "lcg_m", "tcg_m" if t.has("tcg_m") else "", marked)
     if any(v is None for v in kw.values()) or name is None:
         return None
     return m.MassItem(name=name, **kw)
 
 
-def _read_lightship(root: Table) -> m.MassItem | None:
+def _read_lightship(root: Table, frame: Frame | None, rd: Reading) -> m.MassItem | None:
     t = root.table("lightship")
     if t is None:
         return None
-    item = _read_mass_item(t, "Lightship", mass_rule=positive)
+    item = _read_mass_item(t, "Lightship", mass_rule=positive, frame=frame, rd=rd, where="lightship")
     t.finish()
     return item
 
 
-def _read_hydrostatics(root: Table) -> m.HydrostaticTable | None:
+def _read_profile_constants(root: Table, frame: Frame | None, rd: Reading) -> list[m.MassItem]:
+    out, names = [], set()
+    for t in root.tables("constant"):
+        name = t.text("name")
+        if name is not None:
+            t.name = f"constant[{name}]"
+            if name in names:
+                t.bad("name", name, "duplicate constant name: a condition replaces a profile constant by its name")
+                name = None
+            names.add(name)
+        item = _read_mass_item(t, name, frame=frame, rd=rd, where=t.name)
+        t.finish()
+        if item is not None:
+            out.append(item)
+    return out
+
+
+HYDRO_COLUMNS = ("draft_m", "displacement_t", "lcb_m", "lcf_m", "kmt_m", "tpc_t_cm", "mctc_tm_cm", "vcb_m", "kml_m")
+
+
+def _read_hydrostatics(root: Table, frame: Frame | None, rd: Reading) -> m.HydrostaticTable | None:
     t = root.table("hydrostatics")
     if t is None:
         return None
+    if not attach_csv(t, HYDRO_COLUMNS):
+        return None
+    f = read_frame(t, frame, drafts=True)
     cols = {
         "draft_m": t.increasing("draft_m", t.array("draft_m", non_negative)),
         "displacement_t": t.increasing("displacement_t", t.array("displacement_t", non_negative)),
@@ -206,27 +351,68 @@ def _read_hydrostatics(root: Table) -> m.HydrostaticTable | None:
         else:
             t.get(k, False)
     t.finish()
-    if not t.same_length("draft_m", cols):
+    if not t.same_length("draft_m", cols) or f is None:
         return None
+    rd.tables["hydrostatics"] = TableReading(f, csv=t.data.get("csv"))
+    _note_frame(rd, "hydrostatics", f, "lcb_m, lcf_m", "", False)
+    cols["lcb_m"] = f.x_to_ap(cols["lcb_m"])
+    cols["lcf_m"] = f.x_to_ap(cols["lcf_m"])
+    if f.draft_basis == "extreme":
+        rd.convert("hydrostatics", "draft_m", f"extreme → moulded (− keel {num(f.keel_thickness_m)} m)")
+        cols["draft_m"] = f.draft_to_moulded(cols["draft_m"])
+        if cols["draft_m"][0] < 0:
+            t.bad("draft_m", t.data["draft_m"], f"the first extreme draft is less than the keel thickness {num(f.keel_thickness_m)} m")
+            return None
     return m.HydrostaticTable(**{k: m.frozen_array(v) for k, v in cols.items()})
 
 
-def _read_cross_curves(root: Table) -> m.CrossCurves | None:
+KN_MIN_END_DEG = 40.0
+"""Cross curves must reach at least 40°: the IS 2008 Part A 2.2.1 areas run to 40° (or θf)."""
+
+
+def _read_cross_curves(root: Table, frame: Frame | None, rd: Reading) -> m.CrossCurves | None:
     t = root.table("cross_curves")
     if t is None:
+        return None
+    if not attach_kn_csv(t):
         return None
     basis = t.text("trim_basis", choices=("free trim", "even keel"))
     heel = t.increasing("heel_deg", t.array("heel_deg", heel_range))
     heel = t.starts_at("heel_deg", heel, 0.0, "the upright condition")
-    heel = t.ends_at("heel_deg", heel, 90.0, "the GZ curve runs 0–90°; nothing is extrapolated")
+    if heel is not None and heel[-1] < KN_MIN_END_DEG - 1e-9:
+        t.bad("heel_deg", t.data["heel_deg"], f"must reach at least {num(KN_MIN_END_DEG)}° (it ends at {num(heel[-1])}°): "
+              "the IS 2008 A 2.2.1 areas run to 40°; nothing is extrapolated")
+        heel = None
     disp = t.increasing("displacement_t", t.array("displacement_t", positive))
     kn = t.matrix("kn_m", "displacement_t", t.raw_len("displacement_t"), "heel_deg", t.raw_len("heel_deg"))
+    has_ref = t.has("reference_lcg_m")
+    ref = t.num("reference_lcg_m", required=False)
+    f = read_frame(t, frame)
     t.finish()
-    if basis is None or heel is None or disp is None or kn is None:
+    if basis is None or heel is None or disp is None or kn is None or (has_ref and ref is None) or f is None:
         return None
+    if ref is not None:
+        _note_frame(rd, "cross_curves", f, "reference_lcg_m", "", False)
+        ref = float(f.x_to_ap(ref))
+    rd.tables["cross_curves"] = TableReading(f, csv=t.data.get("csv"))
     return m.CrossCurves(
-        heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis
+        heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis,
+        reference_lcg_m=ref,
     )
+
+
+def _check_kn_reach(root: Table, cross: m.CrossCurves | None, flood: m.LimitCurve | None) -> None:
+    """The KN tables must reach every downflooding angle: the criteria look up to θf."""
+    if cross is None or flood is None:
+        return
+    end = float(cross.heel_deg[-1])
+    top = float(np.max(flood.value))
+    grid_end = (grid_points(cross) - 1) * GZ_STEP_DEG  # the curve is worked on a 0.1° grid up to the end
+    if top > grid_end + 1e-9:
+        t = root.table("cross_curves")
+        t.bad("heel_deg", t.data["heel_deg"], f"ends at {num(end)}°, before the downflooding angle {num(top)}° "
+              "in [downflooding]: the criteria look up to θf, and nothing is extrapolated")
+
 
 
 def _band(t: Table, k: str, default: tuple[float, float] | None) -> tuple[float, float] | None:
@@ -271,25 +457,175 @@ def _read_free_surface(root: Table, lightship: m.MassItem | None) -> m.FreeSurfa
     return m.FreeSurfaceSettings(**kw)
 
 
-def _read_criteria(root: Table) -> m.CriteriaSettings | None:
+def _flag(t: Table, k: str) -> bool | None:
+    """An optional true/false key (false when absent); None when it is not a boolean."""
+    v = t.get(k, False)
+    if v is MISSING:
+        return False
+    if not isinstance(v, bool):
+        t.bad(k, v, "must be true or false")
+        return None
+    return v
+
+
+FISHING_STANDARD_GM_M = 0.35
+"""IS 2008 Part B 2.1 (from memory): GM0 ≥ 0.35 m; below it only with a complete superstructure or
+L ≥ 70 m, never below 0.15 m (standards.md §3.2)."""
+
+
+def _read_criteria(root: Table, particulars: m.Particulars | None) -> m.CriteriaSettings | None:
     t = root.table("criteria", required=False)
     if t is None:
         return None if root.has("criteria") else m.CriteriaSettings()
     code = t.text("code", required=False, default="IS2008-A2.2", choices=("IS2008-A2.2",))
+    ship_type = t.text("ship_type", required=False, default="general", choices=m.SHIP_TYPES)
     has_gm = t.has("min_gm_m")
     gm = t.num("min_gm_m", positive, required=False)
+    has_p = t.has("wind_pressure_pa")
+    # Restricted service may lower P with the Administration's approval (standards.md §2.2);
+    # a value beyond these bounds is a typing error, not a wind.
+    pressure = t.num("wind_pressure_pa", between(100.0, 1500.0, "Pa", "504 Pa unrestricted, IS 2008 A 2.3"),
+                     required=False)
+    has_ak = t.has("bilge_keel_area_m2")
+    ak = t.num("bilge_keel_area_m2", non_negative, required=False, default=0.0)
+    sharp = _flag(t, "sharp_bilged")
+    complete = _flag(t, "complete_superstructure")
     t.finish()
-    if code is None or (has_gm and gm is None):
+    ok = code is not None and ship_type is not None and sharp is not None and complete is not None
+    ok &= not (has_gm and gm is None) and not (has_p and pressure is None) and not (has_ak and ak is None)
+    if ok and t.has("code") and ship_type != "general":
+        t.bad("code", t.data["code"], f"'IS2008-A2.2' is the old name of the general criteria: it cannot be "
+              f"combined with ship_type {ship_type!r}; remove code")
+        ok = False
+    if ok and particulars is not None and ak and ak > particulars.lbp_m * particulars.depth_m:
+        t.bad("bilge_keel_area_m2", t.data["bilge_keel_area_m2"],
+              f"above LBP × depth ({num(particulars.lbp_m * particulars.depth_m)} m²): not a bilge-keel area")
+        ok = False
+    if ok and ship_type == "fishing" and gm is not None and gm < FISHING_STANDARD_GM_M:
+        length = particulars.lbp_m if particulars is not None else 0.0
+        if gm < 0.15:
+            t.bad("min_gm_m", t.data["min_gm_m"], "below 0.15 m: a fishing vessel's GM0 is never reduced below "
+                  "0.15 m (IS Code 2008 Part B 2.1, from memory)")
+            ok = False
+        elif not complete and length < 70.0:
+            t.bad("min_gm_m", t.data["min_gm_m"], "below 0.35 m: IS Code 2008 Part B 2.1 allows that only with a "
+                  "complete superstructure (complete_superstructure = true) or L ≥ 70 m (from memory)")
+            ok = False
+    if not ok:
         return None
-    return m.CriteriaSettings(code=code, min_gm_m=gm)
+    return m.CriteriaSettings(code=code, min_gm_m=gm, ship_type=ship_type, wind_pressure_pa=pressure,
+                              bilge_keel_area_m2=ak, sharp_bilged=sharp, complete_superstructure=complete)
 
 
-def _read_load_lines(root: Table, hydro: m.HydrostaticTable | None) -> list[m.LoadLine]:
+def _read_extra_criteria(root: Table, particulars: m.Particulars | None) -> tuple[m.ExtraCriterion, ...] | None:
+    """``[[extra_criterion]]``: flag-State or class rules as data, each with its source."""
+    breadth = particulars.breadth_m if particulars is not None else 100.0
+    length_rule = between(0.0, breadth, "m", "at most the breadth")
+    rules = {
+        "min_gm": length_rule, "min_gz_at": length_rule, "min_max_gz": length_rule,
+        "min_area": between(0.0, 2.0, "m·rad"),
+        "min_angle_max_gz": between(0.0, 90.0, "°"), "min_range": between(0.0, 90.0, "°"),
+        "max_static_heel": between(0.0, 90.0, "°"), "max_wind_heel": between(0.0, 90.0, "°"),
+    }
+    out, ok = [], True
+    for t in root.tables("extra_criterion"):
+        kind = t.text("kind", choices=m.EXTRA_KINDS)
+        source = t.text("source")
+        limit = t.num("limit", rules[kind]) if kind is not None else t.num("limit")
+        kw: dict[str, float] = {}
+        if kind == "min_area":
+            lo = t.num("from_deg", heel_range)
+            hi = t.num("to_deg", heel_range)
+            if lo is not None and hi is not None and not lo < hi:
+                t.bad("to_deg", t.data["to_deg"], f"must be above from_deg ({num(lo)}°)")
+                hi = None
+            kw = {"from_deg": lo, "to_deg": hi}
+        elif kind == "min_gz_at":
+            kw = {"at_deg": t.num("at_deg", heel_range)}
+        t.finish()
+        if kind is None or source is None or limit is None or any(v is None for v in kw.values()):
+            ok = False
+            continue
+        out.append(m.ExtraCriterion(kind=kind, limit=limit, source=source, **kw))
+    return tuple(out) if ok else None
+
+
+def _read_windage(root: Table, particulars: m.Particulars | None) -> m.Windage | None:
+    """``[windage]``: lateral area above the waterline, its centre's height above the waterline and
+    the waterline length, against mean draft (booklet style, or made by ``deckload tables``)."""
+    t = root.table("windage", required=False)
+    if t is None:
+        return None
+    lbp = particulars.lbp_m if particulars is not None else None
+    depth = particulars.depth_m if particulars is not None else None
+    area_rules: tuple = (positive,)
+    height_rules: tuple = (positive,)
+    lwl_rules: tuple = (positive,)
+    if lbp is not None and depth is not None:
+        # bounds from the vessel's own size: superstructures rarely stand more than a few depths high
+        area_rules += (at_most(1.5 * lbp * 10.0 * depth, "m² (1.5 × LBP × 10 × depth): not a lateral area"),)
+        height_rules += (at_most(10.0 * depth, "m (10 × depth)"),)
+        lwl_rules += (at_most(1.5 * lbp, "m (1.5 × LBP)"),)
+    cols = {
+        "draft_m": t.increasing("draft_m", t.array("draft_m", positive)),
+        "lateral_area_m2": t.array("lateral_area_m2", *area_rules),
+        "centroid_above_wl_m": t.array("centroid_above_wl_m", *height_rules),
+        "waterline_length_m": t.array("waterline_length_m", *lwl_rules),
+    }
+    t.finish()
+    if not t.same_length("draft_m", cols):
+        return None
+    if depth is not None and cols["draft_m"][-1] > depth:
+        t.bad("draft_m", t.data["draft_m"], f"goes beyond the depth {num(depth)} m")
+        return None
+    return m.Windage(**{k: m.frozen_array(v) for k, v in cols.items()})
+
+
+def _read_deck_edge(root: Table) -> m.LimitCurve | None:
+    """``[deck_edge]``: deck-edge immersion angle against displacement (made by ``deckload tables``)."""
+    t = root.table("deck_edge", required=False)
+    if t is None:
+        return None
+    disp = t.increasing("displacement_t", t.array("displacement_t", positive))
+    ang = t.array("angle_deg", between(0.0, 90.0, "°"))
+    t.finish()
+    if not t.same_length("displacement_t", {"displacement_t": disp, "angle_deg": ang}):
+        return None
+    return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(ang), kind="deck_edge_deg")
+
+
+def _read_passengers(root: Table, particulars: m.Particulars | None,
+                     criteria: m.CriteriaSettings | None) -> m.PassengerData | None:
+    """``[passengers]``: the inputs of IS 2008 Part A 3.1 (passenger ships only)."""
+    t = root.table("passengers", required=False)
+    if t is None:
+        return None
+    half_b = particulars.breadth_m / 2.0 if particulars is not None else 100.0
+    count = t.num("count", between(1.0, 10000.0))
+    mass = t.num("mass_per_person_t", between(0.060, 0.150, "t", "75 kg each, not below 60 kg: A.749 3.5.2.6"))
+    area = t.num("standing_area_m2", positive)
+    tcg = t.num("standing_tcg_m", between(0.0, half_b, "m", "from the centreline, at most half the breadth"))
+    speed = t.num("service_speed_kn", between(0.0, 60.0, "kn"))
+    t.finish()
+    if count is not None and count != int(count):
+        t.bad("count", t.data["count"], "must be a whole number of passengers")
+        count = None
+    if criteria is not None and criteria.ship_type != "passenger":
+        t.bad("count", t.data.get("count", MISSING), f"[passengers] is for ship_type = \"passenger\" "
+              f"(the profile says {criteria.ship_type!r})")
+        return None
+    if None in (count, mass, area, tcg, speed):
+        return None
+    return m.PassengerData(int(count), mass, area, tcg, speed)
+
+
+def _read_load_lines(root: Table, hydro: m.HydrostaticTable | None, frame: Frame | None, rd: Reading) -> list[m.LoadLine]:
     out: list[m.LoadLine] = []
     seen: set[str] = set()
     for t in root.tables("load_line"):
         name = t.text("name")
         draft = t.num("draft_m", positive)
+        f = read_frame(t, frame, drafts=True)
         t.finish()
         if name is not None:
             t.name = f"load_line[{name}]"
@@ -297,6 +633,11 @@ def _read_load_lines(root: Table, hydro: m.HydrostaticTable | None) -> list[m.Lo
                 t.bad("name", name, "duplicate load-line name")
                 continue
             seen.add(name)
+        if f is None:
+            continue
+        if draft is not None and f.draft_basis == "extreme":
+            rd.convert(t.name, "draft_m", f"extreme → moulded (− keel {num(f.keel_thickness_m)} m)")
+            draft = float(f.draft_to_moulded(draft))
         if draft is not None and hydro is not None and not hydro.draft_m[0] <= draft <= hydro.draft_m[-1]:
             t.bad("draft_m", t.data["draft_m"], f"outside the hydrostatic table's drafts {num(hydro.draft_m[0])}–{num(hydro.draft_m[-1])} m")
             continue
@@ -305,11 +646,42 @@ def _read_load_lines(root: Table, hydro: m.HydrostaticTable | None) -> list[m.Lo
     return out
 
 
-def _read_limit_curve(root: Table) -> m.LimitCurve | None:
+def _abscissa(t: Table, hydro: m.HydrostaticTable | None, frame: Frame | None, rd: Reading,
+              where: str) -> tuple[np.ndarray | None, str]:
+    """A curve's abscissa: ``displacement_t``, or ``draft_m`` turned into the displacement of the
+    hydrostatic table (table density, upright, even keel).  Returns (displacement, 'displacement_t' | 'draft_m')."""
+    has_d, has_t = t.has("displacement_t"), t.has("draft_m")
+    if has_d and has_t:
+        t.bad("draft_m", t.data["draft_m"], "give displacement_t or draft_m, not both")
+        t.get("displacement_t", False)
+        return None, "displacement_t"
+    if not has_t:
+        t.get("draft_m", False)
+        return t.increasing("displacement_t", t.array("displacement_t", positive)), "displacement_t"
+    drafts = t.increasing("draft_m", t.array("draft_m", positive))
+    if drafts is None or hydro is None or frame is None:
+        return None, "draft_m"
+    moulded = frame.draft_to_moulded(drafts)
+    lo, hi = float(hydro.draft_m[0]), float(hydro.draft_m[-1])
+    for i, d in enumerate(moulded):
+        if not lo - 1e-9 <= d <= hi + 1e-9:
+            t.bad("draft_m", t.data["draft_m"], f"row {i + 1}: moulded draft {num(d)} m is outside the hydrostatic "
+                  f"table's drafts {num(lo)}–{num(hi)} m (nothing is extrapolated)", (i,))
+            return None, "draft_m"
+    disp = np.array([interp(hydro.draft_m, hydro.displacement_t, float(d), "draft", "m") for d in moulded])
+    basis = " (extreme → moulded first)" if frame.draft_basis == "extreme" else ""
+    rd.convert(where, "draft_m", f"against draft → against displacement, through [hydrostatics]{basis}")
+    return disp, "draft_m"
+
+
+def _read_limit_curve(root: Table, hydro, frame: Frame | None, rd: Reading) -> m.LimitCurve | None:
     t = root.table("limit_curve", required=False)
     if t is None:
         return None
-    disp = t.increasing("displacement_t", t.array("displacement_t", positive))
+    if not attach_csv(t, ("displacement_t", "draft_m", "max_kg_m", "min_gm_m")):
+        return None
+    f = read_frame(t, frame, drafts=True)
+    disp, against = _abscissa(t, hydro, f, rd, "limit_curve")
     kinds = [k for k in ("max_kg_m", "min_gm_m") if t.has(k)]
     t.get("max_kg_m", False)
     t.get("min_gm_m", False)
@@ -321,28 +693,130 @@ def _read_limit_curve(root: Table) -> m.LimitCurve | None:
     kind = kinds[0]
     values = t.array(kind, above_keel) if kind == "max_kg_m" else t.array(kind)
     t.finish()
-    if not t.same_length("displacement_t", {"displacement_t": disp, kind: values}):
+    if not t.same_length(against, {against: disp, kind: values}) or f is None:
         return None
+    rd.tables["limit_curve"] = TableReading(f, csv=t.data.get("csv"), against=against)
     return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(values), kind=kind)
 
 
-def _read_downflooding(root: Table) -> m.LimitCurve | None:
+def _read_downflooding(root: Table, hydro, frame: Frame | None, rd: Reading) -> m.LimitCurve | None:
     t = root.table("downflooding", required=False)
     if t is None:
         return None
-    disp = t.increasing("displacement_t", t.array("displacement_t", positive))
-    ang = t.array("angle_deg", between(0.0, 90.0, "°"))
-    t.finish()
-    if not t.same_length("displacement_t", {"displacement_t": disp, "angle_deg": ang}):
+    angle_rule = between(0.0, 90.0, "°")
+    if t.has("angle_deg") and not isinstance(t.data["angle_deg"], list) and not t.has("csv"):
+        # One angle at every displacement, as many booklets give it.
+        ang = t.num("angle_deg", angle_rule)
+        for k in ("displacement_t", "draft_m"):
+            if t.has(k):
+                t.bad(k, t.data[k], "a single angle_deg applies at every displacement: give no abscissa with it")
+                ang = None
+        t.finish()
+        if ang is None or hydro is None:
+            return None
+        rd.assumptions.append(f"downflooding: one angle {num(ang)}° taken at every displacement of the hydrostatic "
+                              f"table ({num(hydro.displacement_t[0])}–{num(hydro.displacement_t[-1])} t)")
+        rd.tables["downflooding"] = TableReading(Frame(1.0), against="single")
+        d = hydro.displacement_t
+        return m.LimitCurve(displacement_t=m.frozen_array([d[0], d[-1]]), value=m.frozen_array([ang, ang]),
+                            kind="downflooding_deg")
+    if not attach_csv(t, ("displacement_t", "draft_m", "angle_deg")):
         return None
+    f = read_frame(t, frame, drafts=True)
+    disp, against = _abscissa(t, hydro, f, rd, "downflooding")
+    ang = t.array("angle_deg", angle_rule)
+    t.finish()
+    if not t.same_length(against, {against: disp, "angle_deg": ang}) or f is None:
+        return None
+    rd.tables["downflooding"] = TableReading(f, csv=t.data.get("csv"), against=against)
     return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(ang), kind="downflooding_deg")
 
 
-def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) -> list[m.Tank]:
+HULL_MATCH_TOLERANCE = 0.001
+"""The geometry file's LBP and breadth must match the profile's within 0.1 %: a different hull
+would give a 'second method' about another ship."""
+
+
+def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename: str):
+    """``hull_geometry``: the geometry file (path relative to the profile) whose hull the direct
+    calculation integrates.  Its problems are reported as the profile's, naming the file."""
+    name = root.text("hull_geometry", required=False, default=None)
+    if name is None:
+        return None
+    from deckload.core.geometry.builder import hull_body
+    from deckload.geometry_io import load_geometry
+
+    path = Path(name)
+    if not path.is_absolute():
+        path = Path(filename).parent / path
+    if not path.is_file():
+        root.bad("hull_geometry", name, f"no such geometry file ({path})")
+        return None
+    try:
+        geometry = load_geometry(path)
+    except ProfileError as e:
+        root.bad("hull_geometry", name, "the geometry file has problems: " + "; ".join(str(p) for p in e.problems))
+        return None
+    if particulars is not None:
+        for key, ours, theirs in (("lbp_m", particulars.lbp_m, geometry.vessel.lbp_m),
+                                  ("breadth_m", particulars.breadth_m, geometry.vessel.breadth_m)):
+            if abs(ours - theirs) > HULL_MATCH_TOLERANCE * ours:
+                root.bad("hull_geometry", name, f"its {key} {num(theirs)} m is not the profile's {num(ours)} m")
+                return None
+    return hull_body(geometry)
+
+
+def _read_draft_marks(root: Table, particulars: m.Particulars | None, frame: Frame | None,
+                      rd: Reading) -> m.DraftMarks | None:
+    """``[draft_marks]``: aft, midships, forward marks (x_m in the vessel's or the table's own
+    longitudinal convention, y_m off the centreline).  They read extreme drafts: moulded plus
+    ``[vessel] keel_thickness_m``.
+
+    Bounds from the vessel: marks within 20 % of LBP beyond either perpendicular, no further
+    off the centreline than half the breadth, aft < midships < forward with the aft and
+    forward marks at least half the LBP apart (the trim is found from their difference).
+    """
+    t = root.table("draft_marks", required=False)
+    if t is None:
+        return None
+    f = read_frame(t, frame)
+    half_b = particulars.breadth_m / 2.0 if particulars is not None else None
+    y_rule = between(0.0, half_b, "m", "between the centreline and the side") if half_b is not None else non_negative
+    found: dict[str, m.DraftMark | None] = {}
+    for where in ("aft", "midships", "forward"):
+        sub = t.table(where)
+        if sub is None:
+            found[where] = None
+            continue
+        x = _x(sub, "x_m", f)
+        y = sub.num("y_m", y_rule)
+        sub.finish()
+        if x is not None and particulars is not None and not -0.2 * particulars.lbp_m <= x <= 1.2 * particulars.lbp_m:
+            sub.bad("x_m", sub.data["x_m"], f"is {num(x)} m from the AP: marks lie within 20 % of LBP of the perpendiculars")
+            x = None
+        found[where] = None if x is None or y is None else m.DraftMark(x, y)
+    t.finish()
+    _note_frame(rd, t.name, f, "x_m", "", False)
+    if any(v is None for v in found.values()) or particulars is None:
+        return None
+    lbp = particulars.lbp_m
+    a, mid, fw = found["aft"], found["midships"], found["forward"]
+    if not a.x_m < mid.x_m < fw.x_m:
+        t.bad("midships", t.data["midships"], "the marks must lie aft < midships < forward")
+        return None
+    if fw.x_m - a.x_m < 0.5 * lbp:
+        t.bad("forward", t.data["forward"], f"only {num(fw.x_m - a.x_m)} m forward of the aft marks: they must be at "
+              f"least half the LBP ({num(0.5 * lbp)} m) apart to give the trim")
+        return None
+    return m.DraftMarks(a, mid, fw)
+
+
+def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,
+                rd: Reading, depth_m: float) -> list[m.Tank]:
     entries = []
     complete = True
     for t in root.tables("tank"):
-        kw, ok_tank = _read_tank(t, fs, ids)
+        kw, ok_tank = _read_tank(t, fs, ids, frame, rd, depth_m)
         entries.append((t, kw))
         complete &= ok_tank
     ok = check_tank_pairs([(t, kw["id"], kw.get("pair")) if kw is not None else (t, None, None) for t, kw in entries])
@@ -351,7 +825,34 @@ def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, st
     return [m.Tank(**kw) for _, kw in entries]
 
 
-def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) -> tuple[dict | None, bool]:
+def _fsm_max(t: Table) -> tuple[float | None, str, bool]:
+    """A tank's one maximum free-surface value as fsi (m⁴): (value, 'max'|'none', ok)."""
+    has_i, has_m = t.has("max_fsi_m4"), t.has("max_fsm_tm")
+    fi = t.num("max_fsi_m4", non_negative, required=False)
+    fm = t.num("max_fsm_tm", non_negative, required=False)
+    if has_i and has_m:
+        t.bad("max_fsm_tm", t.data["max_fsm_tm"], "give max_fsi_m4 or max_fsm_tm, not both")
+        return None, "max", False
+    if has_i:
+        return fi, "max", fi is not None
+    if has_m:
+        if not t.has("fsm_density_t_m3"):
+            t.bad("fsm_density_t_m3", MISSING, "required with max_fsm_tm: the density the booklet's t·m are given for")
+            t.get("fsm_density_t_m3", False)
+            return None, "max", False
+        rho = t.num("fsm_density_t_m3", liquid_density)
+        if fm is None or rho is None:
+            return None, "max", False
+        return fm / rho, "max", True
+    return None, "none", True
+
+
+PIPE_HEAD_M = 2.0
+"""How far a sounding-pipe head (an ullage reference) may stand above the deck (m): common practice."""
+
+
+def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,
+               rd: Reading, depth_m: float) -> tuple[dict | None, bool]:
     """The Tank's keyword arguments and whether they are complete (else only id and pair)."""
     ident = claim_id(t, "tank", ids)
     kw: dict[str, Any] = dict(id=ident, name=t.text("name"))
@@ -368,9 +869,57 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) 
     default_cat = "variable" if kind in m.CONSUMABLE_KINDS else "fixed"
     kw["fs_category"] = t.text("fs_category", required=False, default=default_cat, choices=("fixed", "variable"))
     kw["worst_band_pct"] = _band(t, "worst_band_pct", None if fs is None else fs.default_worst_band_pct)
-
-    cal = t.table("calibration")
-    kw["calibration"] = None if cal is None else _read_calibration(cal, capacity, t)
+    f = read_frame(t, frame, sides=True)
+    # Both are heights from the tank's lowest point, so within the vessel's depth; a sounding-pipe
+    # head may stand above the deck (allowance PIPE_HEAD_M, common practice).
+    zero_rule = between(-depth_m, depth_m, "m", "the sounding zero's height from the tank's lowest point, "
+                        "within the vessel's depth")
+    ref_rule = between(0.0, depth_m + PIPE_HEAD_M, "m", "the ullage reference's height above the tank's lowest point: "
+                       f"within the depth plus {num(PIPE_HEAD_M)} m of sounding-pipe head")
+    kw["sounding_zero_m"] = t.num("sounding_zero_m", zero_rule, required=False, default=0.0)
+    kw["ullage_reference_m"] = t.num("ullage_reference_m", positive, ref_rule, required=False, default=None)
+    bad_level = (t.has("sounding_zero_m") and kw["sounding_zero_m"] is None) or (t.has("ullage_reference_m") and kw["ullage_reference_m"] is None)
+    max_fsi, fsi_given, fsm_ok = _fsm_max(t)
+    where = t.name
+    capacity_only = not t.has("calibration")
+    if capacity_only:
+        # A small tank known only by its capacity and centre (booklet's "capacity only" list).
+        lcg = _x(t, "lcg_m", f)
+        vcg = t.num("vcg_m", above_keel)
+        tcg, marked = tcg_num(t, "tcg_m", f)
+        t.get("calibration", False)
+        for k in ("sounding_zero_m", "ullage_reference_m"):
+            if t.has(k):
+                t.bad(k, t.data[k], "a tank without a calibration table has no level: give [tank.calibration] or leave this out")
+                bad_level = True
+        kw["calibration"] = None
+        if None not in (lcg, vcg, tcg, capacity, f) and fsm_ok and not bad_level:
+            fsi = max_fsi if max_fsi is not None else 0.0
+            kw["calibration"] = m.TankCalibration(
+                sounding_m=m.frozen_array([0.0, 1.0]), volume_m3=m.frozen_array([0.0, capacity]),
+                lcg_m=m.frozen_array([lcg, lcg]), vcg_m=m.frozen_array([vcg, vcg]), tcg_m=m.frozen_array([tcg, tcg]),
+                fsi_m4=m.frozen_array([fsi, fsi]))
+            kw["level_known"] = False
+            kw["fsi_given"] = fsi_given
+            if fsi_given == "none" and not t.has("worst_band_pct"):
+                kw["worst_band_pct"] = (0.0, 0.0)  # no free surface, so no worst slack band to warn of
+            fs_words = (f"free surface: the given maximum {num(fsi)} m⁴ at every slack fill" if fsi_given == "max"
+                        else "no free surface given: counted as nil")
+            rd.assumptions.append(f"{where}: capacity and centre only: centre fixed at every fill; {fs_words}; "
+                                  "stated by %, m³ or t (no sounding or ullage)")
+            _note_frame(rd, where, f, "lcg_m", "tcg_m" if t.has("tcg_m") else "", marked)
+    else:
+        for k in ("lcg_m", "vcg_m", "tcg_m"):
+            if t.has(k):
+                t.bad(k, t.data[k], "a tank with a calibration table takes its centres from the table; "
+                      "lcg/vcg/tcg belong to a capacity-only tank")
+                t.get(k, False)
+        cal = t.table("calibration")
+        kw["calibration"] = None
+        if cal is not None:
+            kw["calibration"] = _read_calibration(cal, capacity, t, f, rd, kw, max_fsi if fsi_given == "max" else None, fsm_ok)
+            if bad_level:
+                kw["calibration"] = None
     if t.has("transfer"):
         tr = t.table("transfer")
         kw["transfer"] = None if tr is None else _read_transfer(tr)
@@ -385,39 +934,173 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str]) 
     return kw, True
 
 
-def _read_calibration(t: Table, capacity: float | None, tank: Table) -> m.TankCalibration | None:
-    sounding = t.increasing("sounding_m", t.array("sounding_m", non_negative))
-    sounding = t.starts_at("sounding_m", sounding, 0.0, "the tank bottom")
-    volume = t.increasing("volume_m3", t.array("volume_m3", non_negative))
-    volume = t.starts_at("volume_m3", volume, 0.0, "the tank is empty at sounding 0")
-    cols = {
-        "sounding_m": sounding,
-        "volume_m3": volume,
-        "lcg_m": t.array("lcg_m"),
-        "vcg_m": t.array("vcg_m", above_keel),
-        "tcg_m": t.array("tcg_m"),
-        "fsi_m4": t.array("fsi_m4", non_negative),
-    }
-    t.finish()
-    if not t.same_length("sounding_m", cols):
+def _row(i: int) -> str:
+    return f"row {i + 1}"
+
+
+CAL_COLUMNS = ("sounding_m", "ullage_m", "volume_m3", "lcg_m", "vcg_m", "tcg_m", "fsi_m4", "fsm_tm")
+
+
+def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame: Frame | None, rd: Reading,
+                      kw: dict, max_fsi: float | None, fsm_ok: bool) -> m.TankCalibration | None:
+    """A tank's calibration as the booklet prints it, converted to levels from the tank's lowest point.
+
+    level = sounding + sounding_zero_m = ullage_reference_m − ullage; rows may run either
+    way; FSM in t·m at a stated density becomes fsi = FSM/ρ; a table that starts above
+    the bottom gets a row 'level 0, volume 0' with the first row's centres (conservative).
+    """
+    where = t.name
+    if not attach_csv(t, CAL_COLUMNS):
         return None
+    f = read_frame(t, tank_frame, sides=True)
+    tr = TableReading(f or Frame(1.0), csv=t.data.get("csv"))
+    levels_given = [k for k in ("sounding_m", "ullage_m") if t.has(k)]
+    if len(levels_given) != 1:
+        t.bad("sounding_m", MISSING if not levels_given else t.data["sounding_m"],
+              "give exactly one of sounding_m and ullage_m" + (", not both" if levels_given else ""))
+        for k in ("sounding_m", "ullage_m"):
+            t.get(k, False)
+        level_key = None
+        reading = None
+    else:
+        level_key = levels_given[0]
+        reading = t.array(level_key)
+    volume = t.array("volume_m3", non_negative)
+    lcg = t.array("lcg_m")
+    vcg = t.array("vcg_m", above_keel)
+    tcg, marked = tcg_array(t, "tcg_m", f)
+    # free surface: a column in m⁴ or t·m, or none (the tank's one maximum, or a capacity-only tank)
+    fsm_keys = [k for k in ("fsi_m4", "fsm_tm") if t.has(k)]
+    fsi = None
+    fs_ok = True
+    if len(fsm_keys) == 2:
+        t.bad("fsm_tm", t.data["fsm_tm"], "give fsi_m4 or fsm_tm, not both")
+        t.get("fsi_m4", False)
+        fs_ok = False
+    elif fsm_keys == ["fsi_m4"]:
+        fsi = t.array("fsi_m4", non_negative)
+        fs_ok = fsi is not None
+        t.get("fsm_density_t_m3", False)
+        if t.has("fsm_density_t_m3"):
+            t.bad("fsm_density_t_m3", t.data["fsm_density_t_m3"], "belongs with fsm_tm (t·m), not fsi_m4 (m⁴)")
+            fs_ok = False
+    elif fsm_keys == ["fsm_tm"]:
+        fsm = t.array("fsm_tm", non_negative)
+        rho = t.num("fsm_density_t_m3", liquid_density, required=True)
+        fs_ok = fsm is not None and rho is not None
+        if fs_ok:
+            fsi = fsm / rho
+            tr.fsm, tr.fsm_density_t_m3 = "fsm_tm", rho
+            rd.convert(where, "fsm_tm", f"t·m at {num(rho)} t/m³ → fsi_m4 (÷ {num(rho)})")
+    else:
+        t.get("fsi_m4", False)
+        t.get("fsm_density_t_m3", False)
+        tr.fsm = ""
+        if max_fsi is None:
+            if fsm_ok:
+                t.bad("fsi_m4", MISSING, "give fsi_m4 or fsm_tm per row, or one max_fsi_m4 / max_fsm_tm for the tank")
+            fs_ok = False
+    if (max_fsi is not None) and fsm_keys:
+        tank.bad("max_fsi_m4" if tank.has("max_fsi_m4") else "max_fsm_tm", tank.data.get("max_fsi_m4", tank.data.get("max_fsm_tm")),
+                 "the calibration already gives free surface per row: give one or the other")
+        fs_ok = False
+    t.finish()
+    cols = {"level": reading, "volume_m3": volume, "lcg_m": lcg, "vcg_m": vcg, "tcg_m": tcg}
+    if level_key is None or not fs_ok or not fsm_ok or f is None:
+        return None
+    if fsi is None:
+        fsi = np.full(len(volume) if volume is not None else 0, max_fsi)
+    cols["fsi_m4"] = fsi
+    n = t.raw_len(level_key)
+    for k, a in cols.items():
+        if a is None:
+            return None
+        if len(a) != n:
+            key = level_key if k == "level" else k
+            t.bad(key, t.data.get(key, MISSING), f"has {len(a)} values but {level_key} has {n}: one value per row")
+            return None
+    # the level above the tank's lowest point
+    if level_key == "ullage_m":
+        ref = kw.get("ullage_reference_m")
+        if ref is None:
+            tank.bad("ullage_reference_m", MISSING, "required with an ullage table: the height of the ullage "
+                     "reference point above the tank's lowest point")
+            return None
+        level = ref - reading
+        rd.convert(where, "ullage_m", f"ullage → level above the tank bottom (level = {num(ref)} − ullage)")
+    else:
+        z0 = kw.get("sounding_zero_m") or 0.0
+        level = reading + z0
+        if z0:
+            rd.convert(where, "sounding_m", f"sounding zero {num(z0)} m above the tank bottom → level (sounding + {num(z0)})")
+    # rows may be written with the level falling (ullage tables usually are): turn them round
+    if len(level) >= 2 and np.all(np.diff(level) < 0):
+        cols = {k: a[::-1].copy() for k, a in cols.items()}
+        level = level[::-1].copy()
+        tr.reversed = True
+    cols["level"] = level
+    for key, arr in ((level_key, level), ("volume_m3", cols["volume_m3"])):
+        d = np.diff(arr)
+        if np.any(d <= 0):
+            i = int(np.argmax(d <= 0)) + 1
+            row = n - 1 - i if tr.reversed else i
+            prev = row + 1 if tr.reversed else row - 1
+            way = "decreasing" if tr.reversed else "increasing"
+            t.bad(key, t.data[key], f"not strictly {way} ({_row(row)}: {toml_value(t.data[key][row])} after "
+                  f"{toml_value(t.data[key][prev])})", (row,))
+            return None
+    if level[0] < -1e-9:
+        row = n - 1 if tr.reversed else 0
+        t.bad(level_key, t.data[level_key], f"row {row + 1} lies {num(-level[0])} m below the tank's lowest point "
+              "(check sounding_zero_m / ullage_reference_m)", (row,))
+        return None
+    if cols["volume_m3"][0] == 0.0:
+        if abs(level[0]) > 1e-9:
+            row = n - 1 if tr.reversed else 0
+            t.bad(level_key, t.data[level_key], f"must start at 0 (the tank bottom): the empty row (volume 0) is "
+                  f"{num(level[0])} m above the tank's lowest point (where the reading's zero is not at the bottom, "
+                  "give sounding_zero_m or ullage_reference_m)", (row,))
+            return None
+        cols["level"][0] = 0.0
+    else:
+        # The table starts above the bottom: add 'level 0, volume 0' with the first row's centres.
+        cols = {k: np.concatenate([[a[0]], a]) for k, a in cols.items()}
+        cols["level"][0] = 0.0
+        cols["volume_m3"][0] = 0.0
+        tr.added_bottom_row = True
+        rd.assumptions.append(f"{where}: the table starts at {num(cols['volume_m3'][1])} m³; below it the contents' "
+                              "centre and free surface are taken as at the first row (centre no lower: conservative for KG)")
+    if not f.y_is_identity or marked or not f.x_is_identity:
+        _note_frame(rd, where, f, "lcg_m", "tcg_m", marked)
+    tr.level = level_key
+    tr.tcg_marked = marked
+    cols["lcg_m"] = f.x_to_ap(cols["lcg_m"])
     vcg = cols["vcg_m"]
-    d = np.diff(vcg)
-    if np.any(d < -1e-6):
-        i = int(np.argmax(d < -1e-6)) + 1
-        t.bad("vcg_m", t.data["vcg_m"], f"falls as the tank fills (row {i + 1}: {toml_value(t.data['vcg_m'][i])} after "
-              f"{toml_value(t.data['vcg_m'][i - 1])}); the contents' centre can only rise", (i,))
+    dv = np.diff(vcg)
+    if np.any(dv < -1e-6):
+        i = int(np.argmax(dv < -1e-6)) + 1
+        row = i - (1 if tr.added_bottom_row else 0)
+        row = n - 1 - row if tr.reversed else row
+        prev = row + 1 if tr.reversed else row - 1
+        t.bad("vcg_m", t.data["vcg_m"], f"falls as the tank fills (row {row + 1}: {toml_value(t.data['vcg_m'][row])} after "
+              f"{toml_value(t.data['vcg_m'][prev])}); "
+              "the contents' centre can only rise", (row,))
         return None
     if capacity is not None:
-        last = float(volume[-1])
+        last = float(cols["volume_m3"][-1])
         if abs(capacity - last) > CAPACITY_TOLERANCE * last:
             tank.bad("capacity_m3", tank.data["capacity_m3"],
                      f"differs from the last calibration volume {num(last)} m³ by "
                      f"{100 * abs(capacity - last) / last:.2f} % (at most {100 * CAPACITY_TOLERANCE:g} % allowed)")
             return None
-    return m.TankCalibration(**{k: m.frozen_array(v) for k, v in cols.items()})
-
-
+    if max_fsi is not None:
+        kw["fsi_given"] = "max"
+        rd.assumptions.append(f"{tank.name}: one free-surface value for the tank, {num(max_fsi)} m⁴, used at every "
+                              "slack fill (a maximum: conservative)")
+    rd.tables[where] = tr
+    return m.TankCalibration(sounding_m=m.frozen_array(cols["level"]), volume_m3=m.frozen_array(cols["volume_m3"]),
+                             lcg_m=m.frozen_array(cols["lcg_m"]), vcg_m=m.frozen_array(cols["vcg_m"]),
+                             tcg_m=m.frozen_array(cols["tcg_m"]), fsi_m4=m.frozen_array(cols["fsi_m4"]))
 def _read_transfer(t: Table) -> m.FluidTransfer | None:
     fill = t.increasing("fill_pct", t.array("fill_pct", percent_range))
     fill = t.starts_at("fill_pct", fill, 0.0, "empty")
@@ -434,21 +1117,27 @@ def _read_transfer(t: Table) -> m.FluidTransfer | None:
     return m.FluidTransfer(fill_pct=m.frozen_array(fill), heel_deg=m.frozen_array(heel), moment_m4=m.frozen_array(mom))
 
 
-def _read_holds(root: Table, ids: dict[str, str]) -> list[m.Hold]:
+HOLD_FILL_COLUMNS = ("fill_pct", "fill_vcg_m", "fill_lcg_m")
+
+
+def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Reading) -> list[m.Hold]:
     out, ok = [], True
     for t in root.tables("hold"):
         ident = claim_id(t, "hold", ids)
+        fill_read = attach_csv(t, HOLD_FILL_COLUMNS)
+        f = read_frame(t, frame, sides=True)
+        tcg, marked = tcg_num(t, "tcg_m", f)
         kw: dict[str, Any] = dict(
             id=ident,
             name=t.text("name"),
             capacity_m3=t.num("capacity_m3", positive),
-            lcg_m=t.num("lcg_m"),
+            lcg_m=_x(t, "lcg_m", f),
             vcg_m=t.num("vcg_m", above_keel),
-            tcg_m=t.num("tcg_m", required=False, default=0.0),
+            tcg_m=tcg,
         )
         has_max = t.has("max_mass_t")
         kw["max_mass_t"] = t.num("max_mass_t", positive, required=False)
-        fill_keys = ("fill_pct", "fill_vcg_m", "fill_lcg_m")
+        fill_keys = HOLD_FILL_COLUMNS
         present = [k for k in fill_keys if t.has(k)]
         cols: dict[str, np.ndarray | None] = {}
         for k in fill_keys:
@@ -472,33 +1161,43 @@ def _read_holds(root: Table, ids: dict[str, str]) -> list[m.Hold]:
                 cols["fill_pct"] = fill
                 fill_ok = t.same_length("fill_pct", cols)
         t.finish()
-        if not fill_ok or any(v is None for k, v in kw.items() if k != "max_mass_t") or (has_max and kw["max_mass_t"] is None):
+        if (not fill_ok or not fill_read or f is None or any(v is None for k, v in kw.items() if k != "max_mass_t")
+                or (has_max and kw["max_mass_t"] is None)):
             ok = False
             continue
+        _note_frame(rd, t.name, f, "lcg_m" + (", fill_lcg_m" if "fill_lcg_m" in cols else ""),
+                    "tcg_m" if t.has("tcg_m") else "", marked)
+        if cols.get("fill_lcg_m") is not None:
+            cols["fill_lcg_m"] = f.x_to_ap(cols["fill_lcg_m"])
+        if present:
+            rd.tables[t.name] = TableReading(f, csv=t.data.get("csv"))
         for k in fill_keys:
             kw[k] = m.frozen_array(cols[k]) if k in cols else None
         out.append(m.Hold(**kw))
     return out if ok else []
 
 
-def _read_deck_areas(root: Table, ids: dict[str, str]) -> list[m.DeckArea]:
+def _read_deck_areas(root: Table, ids: dict[str, str], frame: Frame | None, rd: Reading) -> list[m.DeckArea]:
     out, ok = [], True
     for t in root.tables("deck_area"):
         ident = claim_id(t, "deck_area", ids)
+        f = read_frame(t, frame, sides=True)
+        tcg, marked = tcg_num(t, "tcg_m", f)
         kw: dict[str, Any] = dict(
             id=ident,
             name=t.text("name"),
             area_m2=t.num("area_m2", positive),
-            lcg_m=t.num("lcg_m"),
+            lcg_m=_x(t, "lcg_m", f),
             deck_height_m=t.num("deck_height_m", above_keel),
-            tcg_m=t.num("tcg_m", required=False, default=0.0),
+            tcg_m=tcg,
         )
         has_max = t.has("max_load_t_m2")
         kw["max_load_t_m2"] = t.num("max_load_t_m2", positive, required=False)
         t.finish()
-        if any(v is None for k, v in kw.items() if k != "max_load_t_m2") or (has_max and kw["max_load_t_m2"] is None):
+        if f is None or any(v is None for k, v in kw.items() if k != "max_load_t_m2") or (has_max and kw["max_load_t_m2"] is None):
             ok = False
             continue
+        _note_frame(rd, t.name, f, "lcg_m", "tcg_m" if t.has("tcg_m") else "", marked)
         out.append(m.DeckArea(**kw))
     return out if ok else []
 
@@ -544,7 +1243,8 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
             consts.append(item)
     root.finish()
     ctx.fail_if_any()
-    return m.Condition(tanks=tuple(fills), holds=tuple(loads), deck_items=tuple(items), constants=tuple(consts), **head)
+    cond = m.Condition(tanks=tuple(fills), holds=tuple(loads), deck_items=tuple(items), constants=tuple(consts), **head)
+    return _physical(ctx).check_condition(ctx, vessel, cond)
 
 
 def _keyed_tables(root: Table, group: str, known: dict[str, int], what: str) -> list[tuple[str, Table]]:
@@ -572,14 +1272,13 @@ def _read_fills(root: Table, vessel: m.Vessel) -> list[m.TankFill]:
         dens = t.num("density_t_m3", liquid_density, required=False)
         bad_dens = t.has("density_t_m3") and dens is None
         rho = dens if dens is not None else tank.density_t_m3
-        cal = tank.calibration
         cap = tank.capacity_m3
         rules: dict[str, tuple[Rule, ...]] = {
             "percent": (non_negative, at_most(100.0, "% (full)")),
             "volume_m3": (non_negative, at_most(cap, "m³, the tank's capacity")),
             "mass_t": (non_negative, at_most(cap * rho, f"t, the tank's capacity {num(cap)} m³ × {num(rho)} t/m³")),
-            "sounding_m": (non_negative, at_most(float(cal.sounding_m[-1]),
-                           f"m: outside the calibration table {num(cal.sounding_m[0])}–{num(cal.sounding_m[-1])} m")),
+            "sounding_m": _reading_rules(tank, "sounding_m"),
+            "ullage_m": _reading_rules(tank, "ullage_m"),
         }
         values = {q: t.num(q, *rules[q], required=False) for q in m.FILL_QUANTITIES}
         t.finish()
@@ -593,6 +1292,17 @@ def _read_fills(root: Table, vessel: m.Vessel) -> list[m.TankFill]:
             continue
         out.append(m.TankFill(tank_id=ident, quantity=q, value=values[q], density_t_m3=dens))
     return out
+
+
+def _reading_rules(tank: m.Tank, quantity: str) -> tuple[Rule, ...]:
+    """A sounding or ullage reading must fall within the tank's table (and the tank must have one)."""
+    name = "sounding" if quantity == "sounding_m" else "ullage"
+    if not tank.level_known:
+        return (lambda x: f"tank {tank.id} is known only by capacity and centre: no {name}; give percent, volume_m3 or mass_t",)
+    if quantity == "ullage_m" and tank.ullage_reference_m is None:
+        return (lambda x: f"tank {tank.id} has no ullage_reference_m in the profile: give sounding_m, percent, volume_m3 or mass_t",)
+    lo, hi = reading_range(tank, quantity)
+    return (between(lo, hi, "m", f"the {name}s of the tank's calibration table; nothing is extrapolated"),)
 
 
 def _read_hold_loads(root: Table, vessel: m.Vessel) -> list[m.HoldLoad]:
@@ -632,11 +1342,38 @@ def _read_deck_items(root: Table, vessel: m.Vessel) -> list[m.DeckItem]:
             base = None
         has_fp = t.has("footprint_m2")
         fp = t.num("footprint_m2", positive, required=False)
+        wind, wind_ok = _deck_item_windage(t, vessel)
         t.finish()
-        if base is None or (has_fp and fp is None) or (t.has("area") and area is None):
+        if base is None or (has_fp and fp is None) or (t.has("area") and area is None) or not wind_ok:
             continue
-        out.append(m.DeckItem(area_id=area, footprint_m2=fp, **vars(base)))
+        out.append(m.DeckItem(area_id=area, footprint_m2=fp, **wind, **vars(base)))
     return out
+
+
+def _physical(ctx: FileCheck):
+    """Physical bounds and completeness, checked once the model is built (deckload.physcheck)."""
+    from deckload import physcheck
+
+    return physcheck
+
+
+def _deck_item_windage(t: Table, vessel: m.Vessel) -> tuple[dict, bool]:
+    """Optional windage of a deck item: ``windage_area_m2`` and ``windage_centroid_z_m``, both or neither."""
+    keys = ("windage_area_m2", "windage_centroid_z_m")
+    given = [k for k in keys if t.has(k)]
+    p = vessel.particulars
+    # bounds from the vessel's size: a deck stow is no longer than the ship nor 30 m above the deck
+    area = t.num("windage_area_m2", non_negative,
+                 at_most(1.5 * p.lbp_m * 30.0, "m² (1.5 × LBP × 30 m): not a deck item's side"), required=False)
+    z = t.num("windage_centroid_z_m", between(0.0, p.depth_m + 30.0, "m", "above the keel, up to depth + 30 m"),
+              required=False)
+    if len(given) == 1:
+        missing = keys[1] if given[0] == keys[0] else keys[0]
+        t.bad(missing, MISSING, f"required with {given[0]} (the item's windage needs its area and its height)")
+        return {}, False
+    if given and (area is None or z is None):
+        return {}, False
+    return ({"windage_area_m2": area, "windage_centroid_z_m": z} if given else {}), True
 
 
 # =========================================================================== writing
@@ -679,6 +1416,9 @@ def condition_dict(c: m.Condition) -> dict:
                 d["area"] = it.area_id
             if it.footprint_m2 is not None:
                 d["footprint_m2"] = float(it.footprint_m2)
+            if it.windage_area_m2 is not None and it.windage_centroid_z_m is not None:
+                d["windage_area_m2"] = float(it.windage_area_m2)
+                d["windage_centroid_z_m"] = float(it.windage_centroid_z_m)
             doc["deck_item"].append(d)
     if c.constants:
         doc["constant"] = [_mass_item_dict(it) for it in c.constants]

@@ -46,7 +46,8 @@ PROFILE_FORMAT = "deckload-profile-1"
 
 TOP_ORDER = (
     "format", "vessel", "lightship", "hydrostatics", "cross_curves", "free_surface", "criteria",
-    "load_line", "limit_curve", "downflooding", "tank", "hold", "deck_area",
+    "load_line", "draft_marks", "limit_curve", "downflooding", "deck_edge", "windage", "passengers",
+    "extra_criterion", "tank", "hold", "deck_area",
 )
 """Order of the top-level sections in a written profile; unknown keys follow in their own order."""
 
@@ -80,16 +81,32 @@ def generated_sections(vt: VesselTables) -> dict[str, Any]:
         "kml_m": _r(h.kml_m, 3),
     }
     cc = vt.cross_curves
-    out["cross_curves"] = {
-        "trim_basis": cc.trim_basis,
+    out["cross_curves"] = {"trim_basis": cc.trim_basis}
+    if cc.trim_basis == "free trim":
+        # the LCG the free-trim curves hold B in line with: the engine warns when G is far from it
+        out["cross_curves"]["reference_lcg_m"] = _r(g.tables.trim_lcg_m, 4)
+    out["cross_curves"].update({
         "heel_deg": _r(cc.heel_deg, 3),
         "displacement_t": _r(cc.displacement_t, 2),
         "kn_m": _r(cc.kn_m, 4),
-    }
+    })
     if vt.downflooding is not None:
         out["downflooding"] = {
             "displacement_t": _r(vt.downflooding.displacement_t, 2),
             "angle_deg": _r(vt.downflooding.angle_deg, 2),
+        }
+    if vt.deck_edge is not None:
+        out["deck_edge"] = {
+            "displacement_t": _r(vt.deck_edge.displacement_t, 2),
+            "angle_deg": _r(vt.deck_edge.angle_deg, 2),
+        }
+    if vt.windage is not None:
+        w = vt.windage
+        out["windage"] = {
+            "draft_m": _r(w.draft_m, 4),
+            "lateral_area_m2": _r(w.lateral_area_m2, 2),
+            "centroid_above_wl_m": _r(w.centroid_above_wl_m, 4),
+            "waterline_length_m": _r(w.waterline_length_m, 3),
         }
     tanks = []
     for t in vt.tanks:
@@ -152,6 +169,27 @@ def generated_sections(vt: VesselTables) -> dict[str, Any]:
     return out
 
 
+def _stamp_model_conventions(new: dict[str, Any], gen: dict[str, Any], vessel: dict[str, Any]) -> None:
+    """Generated tables are from the AP, + forward, + starboard.  Where the profile states another
+    convention for its hand-entered tables (vessel_profiles/README.md, "Booklet conventions"),
+    each generated table says its own, so that it is not read in the profile's."""
+    x_other = vessel.get("longitudinal_datum", "AP") != "AP" or vessel.get("longitudinal_positive", "forward") != "forward"
+    y_other = vessel.get("transverse_positive", "starboard") != "starboard"
+    if not (x_other or y_other):
+        return
+    stamp: dict[str, Any] = {}
+    if x_other:
+        stamp.update(longitudinal_datum="AP", longitudinal_positive="forward")
+    targets = [new[k] for k in ("hydrostatics", "cross_curves") if k in gen and x_other]
+    for key in ("tank", "hold", "deck_area"):
+        made = {e["id"] for e in gen.get(key, [])}
+        targets += [e for e in new.get(key, []) if e.get("id") in made]
+    for d in targets:
+        d.update(stamp)
+        if y_other and d is not new.get("hydrostatics") and d is not new.get("cross_curves"):
+            d["transverse_positive"] = "starboard"
+
+
 def merge_profile(existing: dict[str, Any] | None, gen: dict[str, Any], vt: VesselTables) -> tuple[dict[str, Any], list[str]]:
     """The refreshed profile: generated sections replaced, everything else kept.  Returns notes."""
     notes: list[str] = []
@@ -167,7 +205,7 @@ def merge_profile(existing: dict[str, Any] | None, gen: dict[str, Any], vt: Vess
     vessel.setdefault("design_draft_m", _r(gv.design_draft_m, 4))
     vessel.setdefault("longitudinal_datum", "AP")
     new["vessel"] = vessel
-    for key in ("hydrostatics", "cross_curves", "downflooding"):
+    for key in ("hydrostatics", "cross_curves", "downflooding", "deck_edge", "windage"):
         if key in gen:
             new[key] = gen[key]
     for key, label in (("tank", "tank"), ("hold", "hold"), ("deck_area", "deck area")):
@@ -178,6 +216,7 @@ def merge_profile(existing: dict[str, Any] | None, gen: dict[str, Any], vt: Vess
         for e in kept:
             notes.append(f"note: {label} {e.get('id')!r} is not in the geometry file: kept as it was")
         new[key] = list(gen[key]) + kept
+    _stamp_model_conventions(new, gen, vessel)
     for key, value in old.items():
         if key not in new:
             new[key] = value

@@ -13,6 +13,10 @@ rejected at the end with all of them at once (:meth:`FileCheck.fail_if_any`).
 Keys nobody asked for are problems too: a misspelt optional key must never be
 silently ignored, because its default would then be used without anyone knowing.
 
+A table of a profile may come from a CSV file (:mod:`deckload.csvtables`): its columns
+are put into the parsed data before the checks run, and :attr:`FileCheck.sources` sends
+each problem in them to the CSV file, line and column (:attr:`Problem.column`).
+
 How values read in messages is a :class:`Wording`: profiles write them as TOML
 (``10.0``, ``"ballast"``), geometry files shorter (``10``, ``'ballast'``).
 """
@@ -27,6 +31,9 @@ from dataclasses import dataclass
 from typing import Any, Callable
 
 import numpy as np
+
+from deckload.limits import MAX_TABLE_VALUES
+from deckload.textsafe import control_char
 
 ID_PATTERN = re.compile(r"^[A-Za-z0-9_-]+$")
 """Tank, hold and deck-area ids: letters, digits, '-' and '_' (typed by the user)."""
@@ -52,11 +59,14 @@ class Problem:
     """The offending value as written (shortened), or None when the key is missing."""
     rule: str
     """The rule broken, in words."""
+    column: str = ""
+    """For a table read from a CSV file: the column, e.g. "column 4 'vcg_m'"; else ''."""
 
     def __str__(self) -> str:
         parts = [f"{self.file}:{self.line}" if self.line else self.file]
         if self.key:
-            parts.append(self.key if self.value is None else f"{self.key} = {self.value}")
+            key = self.key if self.value is None else f"{self.key} = {self.value}"
+            parts.append(f"{key} ({self.column})" if self.column else key)
         parts.append(self.rule)
         return ": ".join(parts)
 
@@ -229,8 +239,13 @@ def _qk(k: str) -> str:
     return k if ID_PATTERN.match(k) else '"' + k.replace("\\", "\\\\").replace('"', '\\"') + '"'
 
 
-def toml_value(v: Any) -> str:
-    """The value as it would read in TOML, shortened for one line."""
+def toml_value(v: Any, _depth: int = 0) -> str:
+    """The value as it would read in TOML, shortened for one line (and to three levels of nesting)."""
+    if _depth > 2 and isinstance(v, (list, tuple, dict)):
+        return "[…]" if isinstance(v, (list, tuple)) else "{…}"
+    if isinstance(v, int) and not isinstance(v, bool) and abs(v) >= 10 ** 20:
+        digits = len(str(abs(v)))
+        return f"{str(v)[:12]}…({digits} digits)"
     if isinstance(v, bool):
         return "true" if v else "false"
     if isinstance(v, str):
@@ -240,8 +255,8 @@ def toml_value(v: Any) -> str:
         return repr(v)
     if isinstance(v, (list, tuple)):
         if len(v) <= 4:
-            return "[" + ", ".join(toml_value(x) for x in v) + "]"
-        return "[" + ", ".join(toml_value(x) for x in v[:4]) + f", …{len(v)} values]"
+            return "[" + ", ".join(toml_value(x, _depth + 1) for x in v) + "]"
+        return "[" + ", ".join(toml_value(x, _depth + 1) for x in v[:4]) + f", …{len(v)} values]"
     if isinstance(v, dict):
         return "{…}"
     return str(v)
@@ -268,6 +283,15 @@ def toml_type(v: Any) -> str:
 
 def is_number(v: Any) -> bool:
     return isinstance(v, (int, float)) and not isinstance(v, bool)
+
+
+def finite_float(v: Any) -> float | None:
+    """``v`` as a finite float, or None (an integer too large for a float, or inf/nan)."""
+    try:
+        x = float(v)
+    except OverflowError:
+        return None
+    return x if math.isfinite(x) else None
 
 
 def suggest(word: str, choices) -> str:
@@ -359,6 +383,12 @@ class FileCheck:
         self.error = error
         self.problems: list[Problem] = []
         self._lines: dict[tuple, int] | None = None
+        self.sources: dict[tuple, "Callable[[tuple], tuple[str, int | None, str, Any]]"] = {}
+        """Keys whose values came from another file (a CSV table): key path → locator.
+        A locator maps the element path within the key ((row,) or (row, column)) to
+        (file, line, column label, the cell as written) for the problem report."""
+        self.unread_csv: set[tuple] = set()
+        """Tables whose CSV file could not be read: their missing columns are not reported again."""
 
     def fmt(self, v: Any) -> str:
         return self.wording.value(v)
@@ -372,12 +402,32 @@ class FileCheck:
         return None
 
     def add(self, raw: tuple, key: str, value: str | None, rule: str, line: int | None = None) -> None:
+        for n in range(len(raw), 0, -1):
+            locate = self.sources.get(raw[:n])
+            if locate is not None:
+                file, at_line, column, cell = locate(raw[n:])
+                shown = value if cell is MISSING or value is None else self.fmt(cell)
+                self.problems.append(Problem(file, at_line, key, shown, rule, column))
+                return
         self.problems.append(Problem(self.file, line or self.line_of(raw), key, value, rule))
 
     def parse(self) -> dict:
+        from deckload.limits import MAX_TOML_BYTES
+
+        if len(self.text) > MAX_TOML_BYTES:
+            raise self.error([Problem(self.file, None, "", None,
+                                      f"longer than the {MAX_TOML_BYTES} characters allowed: refused unread")])
         try:
             return tomllib.loads(self.text)
-        except tomllib.TOMLDecodeError as e:
+        except RecursionError:
+            raise self.error([Problem(self.file, None, "", None,
+                                      "TOML: arrays or tables nested too deeply to be a vessel's data")]) from None
+        except (OverflowError, MemoryError):
+            raise self.error([Problem(self.file, None, "", None, "TOML: a value too large to read")]) from None
+        except ValueError as e:
+            if not isinstance(e, tomllib.TOMLDecodeError):
+                # e.g. an integer of thousands of digits (Python's int conversion limit)
+                raise self.error([Problem(self.file, None, "", None, f"TOML: a value that cannot be read ({e})")]) from None
             msg = str(e)
             mm = re.search(r"\s*\(at line (\d+), column (\d+)\)$", msg)
             line = None
@@ -427,7 +477,7 @@ class Table:
         if k not in self.asked:
             self.asked.append(k)
         if k not in self.data:
-            if required:
+            if required and self.raw not in self.ctx.unread_csv:
                 self.bad(k, MISSING, self.ctx.wording.missing)
             return MISSING
         return self.data[k]
@@ -443,8 +493,8 @@ class Table:
         if not is_number(v):
             self.bad(k, v, f"must be a number, not {toml_type(v)}")
             return None
-        x = float(v)
-        if not math.isfinite(x):
+        x = finite_float(v)
+        if x is None:
             self.bad(k, v, "must be a finite number")
             return None
         for r in rules:
@@ -467,6 +517,10 @@ class Table:
         if not v.strip() and not empty_ok:
             self.bad(k, v, "must not be empty")
             return None
+        bad = control_char(v)
+        if bad is not None:
+            self.bad(k, v, f"holds the control character {bad}: text must be printable (tab and line feed allowed)")
+            return None
         return v
 
     # -- arrays
@@ -482,12 +536,15 @@ class Table:
         if len(v) < min_len:
             self.bad(k, v, f"needs at least {min_len} values, has {len(v)}")
             return None
+        if len(v) > MAX_TABLE_VALUES:
+            self.bad(k, MISSING, f"has {len(v)} values, more than the {MAX_TABLE_VALUES} allowed in one table")
+            return None
         fmt = self.ctx.fmt
         for i, x in enumerate(v):
             if not is_number(x):
                 self.bad(k, v, f"{self._row(i)}: {fmt(x)} is {toml_type(x)}, not a number", (i,))
                 return None
-            if not math.isfinite(float(x)):
+            if finite_float(x) is None:
                 self.bad(k, v, f"{self._row(i)}: {fmt(x)} is not a finite number", (i,))
                 return None
         if length is not None and len(v) != length:
@@ -567,9 +624,13 @@ class Table:
         if not isinstance(v, list) or not all(isinstance(r, list) for r in v):
             self.bad(k, v, f"must be an array of rows (arrays of numbers), one row per {rows_name} value")
             return None
+        cells = sum(len(r) for r in v)
+        if cells > MAX_TABLE_VALUES:
+            self.bad(k, MISSING, f"has {cells} values, more than the {MAX_TABLE_VALUES} allowed in one table")
+            return None
         for i, row in enumerate(v):
             for j, x in enumerate(row):
-                if not is_number(x) or not math.isfinite(float(x)):
+                if not is_number(x) or finite_float(x) is None:
                     self.bad(k, v, f"row {i + 1}, column {j + 1}: {self.ctx.fmt(x)} is not a finite number", (i, j))
                     return None
         if n_rows is None or n_cols is None:

@@ -40,7 +40,7 @@ def test_packaged_demo_files_equal_the_browsable_copies():
 
 def test_every_demo_condition_meets_the_criteria(demo):
     vessel, conditions = demo
-    assert set(conditions) == {"departure", "midvoyage", "arrival"}
+    assert set(conditions) == {"departure", "midvoyage", "arrival", "light"}
     for name, cond in conditions.items():
         r = evaluate(vessel, cond)
         failed = [c.id for c in r.criteria if not c.passed]
@@ -115,7 +115,8 @@ def test_calc_exits_nonzero_when_displacement_leaves_the_tables(tmp_path, capsys
     heavy = tmp_path / "heavy.condition.toml"
     heavy.write_text(
         'format = "deckload-condition-1"\n[condition]\nname = "overloaded"\nwater_density_t_m3 = 1.025\n'
-        '[[deck_item]]\nname = "impossible block"\nmass_t = 5000.0\nlcg_m = 17.0\nvcg_m = 5.0\ntcg_m = 0.0\n'
+        # two blocks, each within one item's bound (Δmax − lightship), together beyond the table
+        + '[[deck_item]]\nname = "block"\nmass_t = 400.0\nlcg_m = 17.0\nvcg_m = 5.0\ntcg_m = 0.0\n' * 2
     )
     code = main(["calc", str(DEMO_PROFILE), str(heavy)])
     err = capsys.readouterr().err
@@ -130,3 +131,39 @@ def test_console_script_runs_as_a_module():
     )
     assert out.returncode == 0, out.stderr
     assert json.loads(out.stdout)["condition"].startswith("Arrival")
+
+
+def test_light_condition_is_governed_by_the_weather_criterion(demo):
+    """The invented 'light' condition: high in the water with a large windage area, the weather
+    criterion (IS 2008 Part A 2.3) has the smallest margin of every criterion."""
+    vessel, conditions = demo
+    r = evaluate(vessel, conditions["light"])
+    assert r.smallest_margin is not None and r.smallest_margin.set_id == "IS2008-A2.3"
+    assert r.weather is not None and r.weather.area_b_mrad >= r.weather.area_a_mrad
+    assert r.displacement_t >= vessel.free_surface.min_operating_displacement_t  # a real operating condition
+    for name in ("departure", "midvoyage", "arrival"):
+        assert evaluate(vessel, conditions[name]).smallest_margin.set_id != "IS2008-A2.3", name
+
+
+def test_calc_json_has_the_weather_criterion_and_what_was_not_assessed(capsys):
+    """Issue 9 'done when': the weather criterion among `criteria` with value, limit, margin and
+    pass; `assessed` names both sets; `not_assessed` lists damage stability and the rest."""
+    assert main(["calc", "demo", "departure", "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    weather = [c for c in data["criteria"] if c["set"] == "IS2008-A2.3"]
+    assert {c["id"] for c in weather} == {"IS2008-A2.3-theta0", "IS2008-A2.3-area-b-a"}
+    for c in weather:
+        assert c["assessed"] and c["pass"]
+        assert c["margin"] == pytest.approx(c["value"] - c["limit"] if c["comparison"] == ">=" else c["limit"] - c["value"])
+        assert "IS Code 2008 Part A 2.3" in c["source"]
+    assert [a["id"] for a in data["assessed"]] == ["IS2008-A2.2", "IS2008-A2.3"]
+    items = " ".join(n["item"] for n in data["not_assessed"])
+    for word in ("damage stability", "grain", "icing", "longitudinal strength"):
+        assert word in items
+    assert "weather" not in items  # the demo has windage data
+    assert data["weather"]["lw2_m"] == pytest.approx(1.5 * data["weather"]["lw1_m"])  # standards.md §2.2 [M] factor
+    # freeboard = depth at side (4.5 m) − midships draft; the margin to the summer mark in sea water
+    assert data["freeboard_m"] == pytest.approx(4.5 - data["draft_mean_m"], abs=1e-9)
+    assert data["load_line_margin_m"] == pytest.approx(2.9 - data["draft_mean_m"], abs=1e-9)
+    assert 10.0 < data["deck_edge_angle_deg"] < 25.0
+    assert "All criteria met" not in data["verdict"] and "IS Code 2008 Part A 2.3" in data["verdict"]

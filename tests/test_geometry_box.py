@@ -274,3 +274,37 @@ def test_builder_end_to_end_on_a_box():
     h = vt.hydrostatics
     np.testing.assert_allclose(h.displacement_t, 1.025 * 20 * 6 * np.array([0.5, 1.0, 1.5, 2.0]))
     np.testing.assert_allclose(vt.cross_curves.trim_rad, 0.0, atol=1e-9)
+
+
+def test_windage_and_deck_edge_tables_from_the_box_geometry():
+    """Analytic, box 20 × 6 × 3 m with a deckhouse x 12–18 m, 2 m high on the deck (z 3–5):
+    at draft T the lateral area is 20·(3 − T) + 6·2, its centre at
+    [20·(3 − T)·(3 − T)/2 + 12·(3 − T + 1)] / A above the waterline; Lwl = 20 m at every draft.
+    The deck-edge angle at midships is atan((D − T)/(B/2)) (checks.md §1.1, wall-sided to there),
+    at T = 184.5/(1.025·20·6) = 1.5 m and T = 2.0 m."""
+    from deckload.core.geometry.builder import build_tables
+    from deckload.geometry_io import parse_geometry
+
+    outline = ('\n[lateral_profile]\nx_m = [0.0, 20.0, 20.0, 18.0, 18.0, 12.0, 12.0, 0.0]\n'
+               'z_m = [0.0, 0.0, 3.0, 3.0, 5.0, 5.0, 3.0, 3.0]\n')
+    vt = build_tables(parse_geometry(BOX_GEOMETRY + outline, "box.geometry.toml"))
+    w = vt.windage
+    for t, area, h, lwl in zip(w.draft_m, w.lateral_area_m2, w.centroid_above_wl_m, w.waterline_length_m):
+        f = 3.0 - t
+        expected = 20.0 * f + 12.0
+        assert area == pytest.approx(expected, abs=1e-9)
+        assert h == pytest.approx((20.0 * f * f / 2.0 + 12.0 * (f + 1.0)) / expected, abs=1e-9)
+        assert lwl == pytest.approx(20.0, abs=1e-9)
+    drafts = vt.deck_edge.displacement_t / (1.025 * 20 * 6)
+    np.testing.assert_allclose(vt.deck_edge.angle_deg, np.degrees(np.arctan((3.0 - drafts) / 3.0)), atol=1e-6)
+
+
+def test_lateral_profile_must_stand_above_every_table_draft():
+    from deckload.geometry_io import GeometryError, parse_geometry
+
+    low = '\n[lateral_profile]\nx_m = [0.0, 20.0, 20.0, 0.0]\nz_m = [0.0, 0.0, 1.8, 1.8]\n'
+    with pytest.raises(GeometryError) as ei:
+        parse_geometry(BOX_GEOMETRY + low, "box.geometry.toml")
+    (p,) = ei.value.problems
+    assert p.key == "lateral_profile.z_m" and "no area above the table draft 2 m" in p.rule
+    assert p.line is not None

@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+from pathlib import Path
+
 from deckload import paths
 from deckload.profiles import load_condition, load_profile
 from deckload.ui.launch import create_app, load_inputs
@@ -124,3 +126,42 @@ async def test_a_notice_with_brackets_does_not_break_the_screen(tmp_path):
         await pilot.pause(0.3)
         toasts = [str(t.render()) for t in app.screen.query("Toast")]
         assert "value 'x[/]' in [tanks.A] was refused" in toasts
+
+
+def test_a_profile_that_fails_its_audit_is_refused_with_the_findings(tmp_path, capsys, monkeypatch):
+    """Issue 8: the audit runs before any profile opens; a contradiction refuses it (exit 2, no screen)."""
+    import sys
+
+    import pytest
+
+    sys.path.insert(0, str(Path(__file__).parent))
+    from box_profile_text import fv22_text
+    from deckload.audit_report import AuditError
+    from deckload.ui.launch import run_open
+
+    f = tmp_path / "fv22.toml"
+    text = fv22_text().replace("lcg_m = 10.6", "lcg_m = -2.10")
+    f.write_text(text, encoding="utf-8")
+    line = [i for i, s in enumerate(text.splitlines(), 1) if "lcg_m = -2.10" in s][0]
+    with pytest.raises(AuditError) as ei:
+        load_inputs(f, None, tmp_path / "work")
+    assert [p.key for p in ei.value.problems] == ["lightship.lcg_m"]
+    assert str(ei.value).splitlines()[1].startswith(f"{f}:{line}: lightship.lcg_m = -2.1 m from AP: ERROR")
+    assert not (tmp_path / "work").exists()
+    monkeypatch.setenv("DECKLOAD_LOG_DIR", str(tmp_path / "logs"))
+    assert run_open(f, None) == 2
+    assert "fails its plausibility audit" in capsys.readouterr().err
+
+
+def test_audit_warnings_open_the_profile_with_a_notice(tmp_path):
+    import sys
+
+    sys.path.insert(0, str(Path(__file__).parent))
+    from box_profile_text import fv22_text
+
+    f = tmp_path / "fv22.toml"
+    f.write_text(fv22_text().replace("vcg_m = 2.4", "vcg_m = 5.0"), encoding="utf-8")
+    vessel, condition, notices = load_inputs(f, None, tmp_path / "work")
+    assert vessel.lightship.vcg_m == 5.0
+    assert len(notices) == 1 and notices[0].startswith("Plausibility audit of fv22.toml: 1 warning")
+    assert "lightship.vcg_m = 5 m above keel" in notices[0]

@@ -88,4 +88,8 @@ def test_changes_are_logged_under_the_officer_of_the_watch(vessel, tmp_path):
 
 
 def test_working_file_is_named_after_the_vessel(vessel, tmp_path):
-    assert working_path(tmp_path, vessel).name == "analytic-box-barge.condition.toml"
+    """Slug for the reader, plus the first 10 hex digits of SHA-256("Analytic box barge")."""
+    import hashlib
+
+    digest = hashlib.sha256(b"Analytic box barge").hexdigest()[:10]
+    assert working_path(tmp_path, vessel).name == f"analytic-box-barge-{digest}.condition.toml"

@@ -60,7 +60,82 @@ IS2008_A22: tuple[Criterion, ...] = (
               0.15, "m", ">=", "IS Code 2008 Part A 2.2.4"),
 )
 
-CRITERIA_SETS: dict[str, tuple[Criterion, ...]] = {"IS2008-A2.2": IS2008_A22}
+FISHING_SOURCE = "IS Code 2008 Part B 2.1 (from memory: Part A 2.2.1–2.2.3 applied, GM0 0.35 m)"
+IS2008_B21: tuple[Criterion, ...] = (
+    Criterion("IS2008-B2.1-area-0-30", "Area under GZ, 0° to 30°", "area_0_30_mrad",
+              0.055, "m·rad", ">=", FISHING_SOURCE),
+    Criterion("IS2008-B2.1-area-0-40", "Area under GZ, 0° to 40° or θf", "area_0_40_mrad",
+              0.090, "m·rad", ">=", FISHING_SOURCE),
+    Criterion("IS2008-B2.1-area-30-40", "Area under GZ, 30° to 40° or θf", "area_30_40_mrad",
+              0.030, "m·rad", ">=", FISHING_SOURCE),
+    Criterion("IS2008-B2.1-gz-30", "GZ at an angle of 30° or more", "gz_at_30_plus_m",
+              0.20, "m", ">=", FISHING_SOURCE),
+    Criterion("IS2008-B2.1-angle-max-gz", "Angle of maximum GZ", "max_gz_angle_deg",
+              25.0, "deg", ">=", FISHING_SOURCE),
+    Criterion("IS2008-B2.1-gm0", "Initial GM0 (fishing vessel), corrected for free surface", "gm_fluid_m",
+              0.35, "m", ">=", "IS Code 2008 Part B 2.1 (0.35 m from memory; 46 CFR 28.570 the same)"),
+)
+"""Fishing vessels, IS 2008 Part B 2.1 (standards.md §3.2): the Part A 2.2.1–2.2.3 criteria
+[M that they apply] and GM0 ≥ 0.35 m for single-deck vessels [M; 46 CFR 28.570 [C]]."""
+
+FISHING_MIN_GM_FLOOR_M = 0.15
+"""Fishing vessels with a complete superstructure or L ≥ 70 m: GM0 may be reduced with the
+Administration's agreement, never below 0.15 m (standards.md §3.2 [M])."""
+FISHING_REDUCED_GM_LENGTH_M = 70.0
+
+OSV_SOURCE = "IS Code 2008 Part B 2.4.5 (from memory)"
+IS2008_B245: tuple[Criterion, ...] = (
+    Criterion("IS2008-B2.4.5-area-0-max", "Area under GZ, 0° to the angle of maximum GZ", "area_0_max_mrad",
+              0.055, "m·rad", ">=", OSV_SOURCE),
+    Criterion("IS2008-B2.4.5-area-30-40", "Area under GZ, 30° to 40° or θf", "area_30_40_mrad",
+              0.030, "m·rad", ">=", OSV_SOURCE),
+    Criterion("IS2008-B2.4.5-gz-30", "GZ at an angle of 30° or more", "gz_at_30_plus_m",
+              0.20, "m", ">=", OSV_SOURCE),
+    Criterion("IS2008-B2.4.5-angle-max-gz", "Angle of maximum GZ", "max_gz_angle_deg",
+              15.0, "deg", ">=", OSV_SOURCE),
+    Criterion("IS2008-B2.4.5-gm0", "Initial GM0, corrected for free surface", "gm_fluid_m",
+              0.15, "m", ">=", OSV_SOURCE),
+)
+"""Offshore supply vessels, IS 2008 Part B 2.4.5 alternative criteria (standards.md §3.3, all [M]).
+The area limit to θmax depends on θmax: see :func:`osv_area_limit_mrad`."""
+
+
+def osv_area_limit_mrad(theta_max_deg: float) -> float:
+    """Area to θmax: 0.070 m·rad at θmax ≤ 15°, 0.055 at θmax ≥ 30°, else 0.055 + 0.001·(30° − θmax)
+    (IS 2008 Part B 2.4.5, standards.md §3.3 [M]; checks row 30: 0.065 at 20°)."""
+    return 0.055 + 0.001 * (30.0 - min(max(theta_max_deg, 15.0), 30.0))
+
+
+CRITERIA_SETS: dict[str, tuple[Criterion, ...]] = {
+    "IS2008-A2.2": IS2008_A22,
+    "IS2008-B2.1": IS2008_B21,
+    "IS2008-B2.4.5": IS2008_B245,
+}
+"""The criteria sets that are plain value-against-limit checks on the GZ curve."""
+
+WEATHER_SET = "IS2008-A2.3"
+PASSENGER_SET = "IS2008-A3.1"
+EXTRA_SET = "profile-extra"
+LIMIT_CURVE_SET = "limit-curve"
+
+SET_TITLES: dict[str, str] = {
+    "IS2008-A2.2": "IS Code 2008 Part A 2.2 general criteria",
+    WEATHER_SET: "IS Code 2008 Part A 2.3 weather criterion",
+    PASSENGER_SET: "IS Code 2008 Part A 3.1 passenger ship heel",
+    "IS2008-B2.1": "IS Code 2008 Part B 2.1 fishing vessel criteria",
+    "IS2008-B2.4.5": "IS Code 2008 Part B 2.4.5 offshore supply vessel criteria",
+    EXTRA_SET: "flag State / class criteria from the vessel profile",
+    LIMIT_CURVE_SET: "limiting KG/GM curve from the vessel profile",
+}
+
+SETS_BY_TYPE: dict[str, tuple[str, ...]] = {
+    "general": ("IS2008-A2.2", WEATHER_SET),
+    "fishing": ("IS2008-B2.1", WEATHER_SET),
+    "passenger": ("IS2008-A2.2", WEATHER_SET, PASSENGER_SET),
+    "offshore_supply": ("IS2008-B2.4.5", WEATHER_SET),
+}
+"""Sets assessed for each vessel type.  Part A 2.3 applies to ships of 24 m and over; the
+fishing and OSV sets take the place of Part A 2.2 (IS 2008 Part B 2.1, 2.4.5)."""
 
 
 @dataclass(frozen=True)
@@ -73,25 +148,35 @@ class Measures:
     gz_at_30_plus_m: float
     max_gz_angle_deg: float
     gm_fluid_m: float
+    area_0_max_mrad: float = 0.0
+    """Area under GZ from 0° to the angle of maximum GZ (or θf if less), for Part B 2.4.5."""
 
 
-def evaluate_criteria(code: str, measures: Measures, min_gm_m: float | None = None) -> tuple[CriterionResult, ...]:
+def evaluate_criteria(code: str, measures: Measures, min_gm_m: float | None = None, *,
+                      fishing_gm_m: float | None = None) -> tuple[CriterionResult, ...]:
     """Each criterion of the set with its value, limit and pass/fail.
 
-    ``min_gm_m`` raises the GM0 limit where the Administration requires more than
-    0.15 m (e.g. 0.35 m for single-deck fishing vessels, IS 2008 Part B 2.1, from memory).
+    ``min_gm_m`` raises the GM0 limit where the Administration requires more than the
+    set's own.  ``fishing_gm_m`` replaces the fishing set's 0.35 m where Part B 2.1 lets the
+    Administration reduce it (the profile reader checks the floor of 0.15 m and when it applies).
     """
     out = []
     for c in CRITERIA_SETS[code]:
         limit, source = c.limit, c.source
-        if c.measure == "gm_fluid_m" and min_gm_m is not None and min_gm_m > limit:
+        note = ""
+        if c.measure == "gm_fluid_m" and fishing_gm_m is not None and code == "IS2008-B2.1":
+            limit, source = fishing_gm_m, "vessel profile (Administration agreement, IS Code 2008 Part B 2.1)"
+        elif c.measure == "gm_fluid_m" and min_gm_m is not None and min_gm_m > limit:
             limit, source = min_gm_m, "vessel profile (Administration requirement)"
+        if c.measure == "area_0_max_mrad":
+            limit = osv_area_limit_mrad(measures.max_gz_angle_deg)
+            note = f"limit for θmax {measures.max_gz_angle_deg:.1f}°"
         value = getattr(measures, c.measure)
         passed = bool(value >= limit) if c.comparison == ">=" else bool(value <= limit)
-        note = ""
-        if c.measure == "max_gz_angle_deg" and passed and value <= 30.0:
+        if c.id == "IS2008-A2.2.3-angle-max-gz" and passed and value <= 30.0:
             note = "passes, but IS 2008 A 2.2.3 prefers the maximum beyond 30°"
-        out.append(CriterionResult(c.id, c.description, value, limit, c.unit, c.comparison, passed, source, note))
+        out.append(CriterionResult(c.id, c.description, value, limit, c.unit, c.comparison, passed, source, note,
+                                   set_id=code))
     return tuple(out)
 
 
@@ -99,6 +184,33 @@ def limit_curve_criterion(kind: str, limit: float, kg_fluid_m: float, gm_fluid_m
     """The approved limiting-KG (or minimum-GM) curve at this displacement (IS 2008 Part A 2.1.7)."""
     if kind == "max_kg_m":
         return CriterionResult("limit-curve-max-kg", "KG (fluid) within the limiting KG curve", kg_fluid_m,
-                               limit, "m", "<=", bool(kg_fluid_m <= limit), "vessel profile limiting-KG curve")
+                               limit, "m", "<=", bool(kg_fluid_m <= limit), "vessel profile limiting-KG curve",
+                               set_id=LIMIT_CURVE_SET)
     return CriterionResult("limit-curve-min-gm", "GM (fluid) above the minimum GM curve", gm_fluid_m,
-                           limit, "m", ">=", bool(gm_fluid_m >= limit), "vessel profile minimum-GM curve")
+                           limit, "m", ">=", bool(gm_fluid_m >= limit), "vessel profile minimum-GM curve",
+                           set_id=LIMIT_CURVE_SET)
+
+
+EXTRA_FORMS: dict[str, tuple[str, str, str]] = {
+    "min_gm": ("Initial GM0, corrected for free surface", "m", ">="),
+    "min_area": ("Area under GZ, {from_deg:g}° to {to_deg:g}°", "m·rad", ">="),
+    "min_gz_at": ("GZ at {at_deg:g}°", "m", ">="),
+    "min_max_gz": ("Maximum GZ", "m", ">="),
+    "min_angle_max_gz": ("Angle of maximum GZ", "deg", ">="),
+    "min_range": ("Range of positive stability", "deg", ">="),
+    "max_static_heel": ("Static heel (list)", "deg", "<="),
+    "max_wind_heel": ("Heel under the steady wind lw1 (θ0)", "deg", "<="),
+}
+"""Description, unit and comparison of each kind of profile criterion (model.EXTRA_KINDS)."""
+
+
+def extra_criterion_result(n: int, ec, value: float | None, why_not: str = "") -> CriterionResult:
+    """A profile (flag State / class) criterion against its measured value; None = not assessable."""
+    text, unit, comp = EXTRA_FORMS[ec.kind]
+    desc = text.format(from_deg=ec.from_deg, to_deg=ec.to_deg, at_deg=ec.at_deg)
+    cid = f"profile-{n + 1}-{ec.kind.replace('_', '-')}"
+    if value is None:
+        return CriterionResult(cid, desc, 0.0, ec.limit, unit, comp, False, ec.source, why_not,
+                               set_id=EXTRA_SET, assessed=False)
+    passed = bool(value >= ec.limit) if comp == ">=" else bool(value <= ec.limit)
+    return CriterionResult(cid, desc, value, ec.limit, unit, comp, passed, ec.source, set_id=EXTRA_SET)

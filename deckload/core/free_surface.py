@@ -176,7 +176,9 @@ def free_surface(vessel: Vessel, contents: list[TankContents], rule: str) -> lis
         fill = c.fill_pct
         state = tank_state(fill, t, fs.empty_pct, full_pct)
         rho = c.density_t_m3
-        if exempt[k]:
+        if t.fsi_given == "none":
+            out[k] = TankFreeSurface(0.0, BASIS_NONE, "no free surface given in the profile (capacity only)", state)
+        elif exempt[k]:
             out[k] = TankFreeSurface(0.0, BASIS_NONE, "small tank, exempt (IS 2008 B 3.1.12)", state)
         elif t.id in assumed:
             out[k] = TankFreeSurface(rho * t.max_fsi_m4, BASIS_MAX, assumed[t.id], state)

@@ -1,8 +1,8 @@
 """The GZ (righting lever) curve from the KN cross curves, and what is read off it.
 
 GZ(φ) = KN(φ) − KG·sinφ − TCG·cosφ for heel to starboard (checks.md conventions;
-standards.md §6.3).  KN at the actual displacement is interpolated linearly between
-the tabulated displacements, then a natural cubic spline through the tabulated heel
+standards.md §6.3).  KN at the actual displacement is interpolated between the
+tabulated displacements by a not-a-knot cubic spline in displacement, then a natural cubic spline through the tabulated heel
 angles gives KN at any angle.  The curve is evaluated on a fine grid (0.1°) so that
 areas, the maximum and the crossing angles carry no coarse-grid error of their own;
 areas are integrated in radians (1 rad = 57.2958°) by the trapezoidal rule on that
@@ -27,14 +27,37 @@ COS = np.cos(FINE_RAD)
 WHOLE_DEGREES = slice(0, None, int(round(1.0 / STEP_DEG)))
 
 
-def kn_curve(cc: CrossCurves, table_displacement_t: float) -> np.ndarray:
-    """KN (m) on the fine heel grid at a displacement (table density)."""
+def kn_row(cc: CrossCurves, table_displacement_t: float) -> np.ndarray:
+    """KN (m) at the tabulated heels for a displacement (table density), never extrapolated.
+
+    Between tabulated displacements each heel column is interpolated by a not-a-knot
+    cubic spline in displacement (:class:`~deckload.core.tables.CubicSpline`), which
+    keeps the curvature of KN against displacement that a straight line between rows
+    cuts off (tests/test_reference_kn_interpolation.py).  On a row it returns the row.
+    """
     i, f = bracket(cc.displacement_t, table_displacement_t, "displacement (KN cross curves, at table density)", "t")
-    row = lerp_row(cc.kn_m, i, f)
-    if cc.heel_deg[0] != 0.0 or cc.heel_deg[-1] < 90.0 - 1e-9:
-        # The profile validation requires 0–90°; refuse rather than extrapolate.
-        raise OutOfRangeError("heel (KN cross curves)", 90.0, float(cc.heel_deg[0]), float(cc.heel_deg[-1]), "deg")
-    return CubicSpline.fit(cc.heel_deg, row)(FINE_DEG)
+    if f == 0.0 or f == 1.0 or len(cc.displacement_t) == 2:
+        return lerp_row(cc.kn_m, i, f)
+    return CubicSpline.fit(cc.displacement_t, cc.kn_m, end="not-a-knot")(float(table_displacement_t))
+
+
+def kn_curve(cc: CrossCurves, table_displacement_t: float) -> np.ndarray:
+    """KN (m) on the fine heel grid at a displacement (table density), up to the table's last angle."""
+    row = kn_row(cc, table_displacement_t)
+    if cc.heel_deg[0] != 0.0:
+        # The profile validation requires the table to start upright; refuse rather than extrapolate.
+        raise OutOfRangeError("heel (KN cross curves)", 0.0, float(cc.heel_deg[0]), float(cc.heel_deg[-1]), "deg")
+    return CubicSpline.fit(cc.heel_deg, row)(FINE_DEG[: grid_points(cc)])
+
+
+def grid_points(cc: CrossCurves) -> int:
+    """Points of the fine grid the KN table covers: 0° up to its last tabulated angle.
+
+    A booklet's cross curves may stop before 90° (e.g. at 60°): the curve, its areas
+    and its plot then stop there too; nothing is extrapolated.  Every array the
+    caller builds on the grid is cut to this length (``SIN[:n]``, ``COS[:n]``, ...).
+    """
+    return int(math.floor(float(cc.heel_deg[-1]) / STEP_DEG + 1e-6)) + 1
 
 
 @dataclass(frozen=True)
@@ -52,6 +75,8 @@ def area_to(gz: np.ndarray, angle_deg: float) -> float:
     """Area under GZ from 0 to ``angle_deg`` (m·rad), trapezoidal on the fine grid."""
     if angle_deg <= 0.0:
         return 0.0
+    if angle_deg > FINE_DEG[len(gz) - 1] + 1e-9:  # a short curve (KN ending before 90°): never extrapolate
+        raise OutOfRangeError("heel (GZ curve area)", angle_deg, 0.0, float(FINE_DEG[len(gz) - 1]), "deg")
     k = min(int(angle_deg / STEP_DEG), len(gz) - 2)
     full = float(np.sum(gz[1 : k + 1] + gz[:k]) * 0.5 * math.radians(STEP_DEG))
     # Partial last panel, linear GZ inside it.
@@ -64,7 +89,11 @@ def area_to(gz: np.ndarray, angle_deg: float) -> float:
 
 
 def value_at(gz: np.ndarray, angle_deg: float) -> float:
-    return float(np.interp(angle_deg, FINE_DEG, gz))
+    """GZ at an angle within the curve (which may stop before 90°: then never beyond its end)."""
+    grid = FINE_DEG[: len(gz)]
+    if angle_deg > grid[-1] + 1e-9:
+        raise OutOfRangeError("heel (GZ curve)", angle_deg, 0.0, float(grid[-1]), "deg")
+    return float(np.interp(angle_deg, grid, gz))
 
 
 def _crossing(gz: np.ndarray, start: int, rising: bool) -> float | None:

@@ -14,7 +14,7 @@ import numpy as np
 
 from deckload.core.model import Condition, Hold, HoldLoad, Tank, TankFill, Vessel
 from deckload.core.result import ItemResult
-from deckload.core.tables import OutOfRangeError, bracket, lerp_row
+from deckload.core.tables import bracket, lerp_row
 
 
 class LoadingError(ValueError):
@@ -29,6 +29,8 @@ class TankContents:
     volume_m3: float
     density_t_m3: float
     sounding_m: float
+    """Level of the liquid above the tank's lowest point (m); the volume fraction for a
+    capacity-only tank (see :attr:`Tank.level_known`)."""
     lcg_m: float
     vcg_m: float
     tcg_m: float
@@ -44,8 +46,42 @@ class TankContents:
         return 100.0 * self.volume_m3 / self.tank.capacity_m3
 
 
-def _row_at_sounding(tank: Tank, sounding_m: float) -> np.ndarray:
-    i, f = bracket(tank.table[:, 0], sounding_m, f"sounding of tank {tank.id}", "m")
+def level_of(tank: Tank, quantity: str, value: float) -> float:
+    """Level above the tank's lowest point (m) for a sounding or ullage reading.
+
+    level = sounding + sounding_zero_m = ullage_reference_m − ullage (the reading's own
+    zero need not be at the tank bottom).  Raises :class:`LoadingError` for a tank that
+    has no level table or no ullage reference.
+    """
+    what = "a sounding" if quantity == "sounding_m" else "an ullage"
+    if not tank.level_known:
+        raise LoadingError(f"tank {tank.id}: known only by capacity and centre, so it cannot be stated by "
+                           f"{what}; give %, m³ or t")
+    if quantity == "sounding_m":
+        return value + tank.sounding_zero_m
+    if tank.ullage_reference_m is None:
+        raise LoadingError(f"tank {tank.id}: the profile gives no ullage_reference_m, so it cannot be stated by "
+                           "an ullage; give a sounding, %, m³ or t")
+    return tank.ullage_reference_m - value
+
+
+def reading_range(tank: Tank, quantity: str) -> tuple[float, float]:
+    """The readings (sounding or ullage, m) that fall inside the tank's level table, low to high."""
+    lo, hi = float(tank.table[0, 0]), float(tank.table[-1, 0])
+    if quantity == "sounding_m":
+        return lo - tank.sounding_zero_m, hi - tank.sounding_zero_m
+    ref = tank.ullage_reference_m if tank.ullage_reference_m is not None else hi
+    return ref - hi, ref - lo
+
+
+def _row_at_reading(tank: Tank, quantity: str, value: float) -> np.ndarray:
+    level = level_of(tank, quantity, value)
+    lo, hi = reading_range(tank, quantity)
+    name = "sounding" if quantity == "sounding_m" else "ullage"
+    if not lo - 1e-9 <= value <= hi + 1e-9:
+        raise LoadingError(f"tank {tank.id}: {name} {value:.4g} m is outside the calibration table "
+                           f"{lo:.4g}–{hi:.4g} m; deckload does not extrapolate")
+    i, f = bracket(tank.table[:, 0], level, f"level of tank {tank.id}", "m")
     return lerp_row(tank.table, i, f)
 
 
@@ -54,35 +90,45 @@ def _row_at_volume(tank: Tank, volume_m3: float) -> np.ndarray:
     return lerp_row(tank.table, i, f)
 
 
-def volume_of(tank: Tank, quantity: str, value: float, density_t_m3: float) -> float:
-    """Volume (m³) for an amount stated as ``quantity`` (percent, volume_m3, mass_t, sounding_m).
+ROUND_OFF = 1e-9
+"""Round-off allowance when a stated amount meets its limit: ``limit + 1e-9·max(1, |limit|)``.
+The profile reader (tomlcheck.REL_TOL, ``at_most``) and the screen's entry check use the same
+allowance, so an amount one accepts the calculation never refuses."""
 
-    Raises :class:`LoadingError` when the amount does not fit the tank.
+
+def over_limit(value: float, limit: float) -> bool:
+    """True when ``value`` exceeds ``limit`` by more than the round-off allowance."""
+    return not value <= limit + ROUND_OFF * max(1.0, abs(limit))
+
+
+def volume_of(tank: Tank, quantity: str, value: float, density_t_m3: float) -> float:
+    """Volume (m³) for an amount stated as ``quantity`` (percent, volume_m3, mass_t, sounding_m, ullage_m).
+
+    An amount over its limit by no more than the round-off allowance (:func:`over_limit`)
+    is the limit itself.  Raises :class:`LoadingError` when the amount does not fit the tank.
     """
+    cap = tank.capacity_m3
     if quantity == "percent":
-        if not 0.0 <= value <= 100.0:
+        if not value >= 0.0 or over_limit(value, 100.0):
             raise LoadingError(f"tank {tank.id}: {value:g} % is outside 0–100 %")
-        return min(tank.capacity_m3 * value / 100.0, float(tank.table[-1, 1]))
+        return min(cap * min(value, 100.0) / 100.0, float(tank.table[-1, 1]))
     if quantity == "volume_m3":
-        volume = value
+        limit, volume = cap, value
     elif quantity == "mass_t":
-        volume = value / density_t_m3
-    elif quantity == "sounding_m":
-        try:
-            return float(_row_at_sounding(tank, value)[1])
-        except OutOfRangeError as e:
-            raise LoadingError(f"tank {tank.id}: {e}") from None
+        limit, volume = cap * density_t_m3, value / density_t_m3
+    elif quantity in ("sounding_m", "ullage_m"):
+        return float(_row_at_reading(tank, quantity, value)[1])
     else:
         raise LoadingError(f"tank {tank.id}: unknown quantity {quantity!r}")
-    if volume < 0.0:
+    if not value >= 0.0:
         raise LoadingError(f"tank {tank.id}: a negative amount ({value:g}) cannot be loaded")
-    if volume > tank.capacity_m3 * (1.0 + 1e-9):
+    if over_limit(value, limit):
         raise LoadingError(
-            f"tank {tank.id}: {volume:.2f} m³ exceeds its capacity of {tank.capacity_m3:.2f} m³"
+            f"tank {tank.id}: {volume:.2f} m³ exceeds its capacity of {cap:.2f} m³"
         )
     # capacity_m3 and the table's top may differ by round-off (the loader allows 0.05 %):
     # never ask the table for more than it holds.
-    return min(volume, tank.capacity_m3, float(tank.table[-1, 1]))
+    return min(volume, cap, float(tank.table[-1, 1]))
 
 
 def contents_at_volume(tank: Tank, volume_m3: float, density_t_m3: float) -> TankContents:
@@ -98,11 +144,8 @@ def resolve_tank(tank: Tank, fill: TankFill | None) -> TankContents:
     if fill is None:
         return contents_at_volume(tank, 0.0, tank.density_t_m3)
     density = fill.density_t_m3 if fill.density_t_m3 is not None else tank.density_t_m3
-    if fill.quantity == "sounding_m":
-        try:
-            row = _row_at_sounding(tank, fill.value)
-        except OutOfRangeError as e:
-            raise LoadingError(f"tank {tank.id}: {e}") from None
+    if fill.quantity in ("sounding_m", "ullage_m"):
+        row = _row_at_reading(tank, fill.quantity, fill.value)
         return TankContents(
             tank, float(row[1]), density, float(row[0]), float(row[2]), float(row[3]), float(row[4]), float(row[5])
         )

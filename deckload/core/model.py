@@ -23,6 +23,8 @@ from typing import Literal
 
 import numpy as np
 
+from deckload.core.geometry.body import Body
+
 # --------------------------------------------------------------------------- kinds
 
 LIQUID_KINDS: tuple[str, ...] = (
@@ -39,8 +41,12 @@ LIQUID_KINDS: tuple[str, ...] = (
 CONSUMABLE_KINDS: frozenset[str] = frozenset({"fuel_oil", "diesel", "lube_oil", "fresh_water"})
 """Consumables: the IS Code 2008 Part B 3.1.3 'variable filling level' liquids."""
 
-FILL_QUANTITIES: tuple[str, ...] = ("percent", "volume_m3", "mass_t", "sounding_m")
-"""The ways a watchkeeper may state a tank's contents: exactly one per tank."""
+FILL_QUANTITIES: tuple[str, ...] = ("percent", "volume_m3", "mass_t", "sounding_m", "ullage_m")
+"""The ways a watchkeeper may state a tank's contents: exactly one per tank.  A sounding is
+read from the tank's sounding zero, an ullage from its ullage reference point (see :class:`Tank`)."""
+
+LEVEL_QUANTITIES: frozenset[str] = frozenset({"sounding_m", "ullage_m"})
+"""Quantities read as a level: refused for a tank known only by capacity and centre."""
 
 FsCategory = Literal["fixed", "variable"]
 FsRule = Literal["is2008", "actual"]
@@ -72,11 +78,14 @@ class Particulars:
     table_density_t_m3: float = 1.025
     """Water density the hydrostatic and cross-curve tables were made for (t/m³)."""
     longitudinal_datum: str = "aft perpendicular, positive forward"
-    """The datum of every x coordinate in the profile (informative; always AP here)."""
+    """How the profile's x coordinates were written (informative): the model's x are always
+    from the AP, + forward, converted on load."""
     vessel_type: str = ""
     """Free text: the kind of vessel (e.g. 'coastal island-supply vessel')."""
     remark: str = ""
     """Free text shown on reports."""
+    keel_thickness_m: float = 0.0
+    """Extreme draft minus moulded draft (m); 0 when the booklet does not give it."""
 
 
 @dataclass(frozen=True)
@@ -134,6 +143,8 @@ class CrossCurves:
     """KN (m), shape (len(displacement_t), len(heel_deg))."""
     trim_basis: str = "free trim"
     """How trim was treated when the curves were made: 'free trim' or 'even keel'."""
+    reference_lcg_m: float | None = None
+    """Free trim: the LCG (m from AP) the curves were made for (B kept in line with it); None if not stated."""
 
 
 @dataclass(frozen=True, eq=False)
@@ -141,7 +152,11 @@ class TankCalibration:
     """A tank's calibration table by sounding (from the tank bottom)."""
 
     sounding_m: np.ndarray
-    """Sounding from the lowest point of the tank (m), strictly increasing, from 0."""
+    """Level of the liquid above the lowest point of the tank (m), strictly increasing, from 0.
+    (A sounding or ullage reading is turned into this level with the tank's
+    ``sounding_zero_m`` / ``ullage_reference_m``.)  For a tank known only by capacity and
+    centre (``Tank.level_known`` False) there is no level: this column is then the volume
+    fraction 0…1 and is never shown."""
     volume_m3: np.ndarray
     """Volume at that sounding (m³), strictly increasing."""
     lcg_m: np.ndarray
@@ -200,6 +215,16 @@ class Tank:
     """Actual moment of fluid transfer, when the tank's geometry is known."""
     worst_band_pct: tuple[float, float] = (40.0, 60.0)
     """Fill band (%) in which the heeling moment at 30° is within 10 % of its maximum."""
+    sounding_zero_m: float = 0.0
+    """Height of the sounding zero above the tank's lowest point (m): level = sounding + this."""
+    ullage_reference_m: float | None = None
+    """Height of the ullage reference point above the tank's lowest point (m):
+    level = this − ullage.  None: the tank cannot be stated by ullage."""
+    level_known: bool = True
+    """False for a tank known only by capacity and centre: no sounding or ullage, centre fixed."""
+    fsi_given: str = "table"
+    """Where ``calibration.fsi_m4`` comes from: 'table' (per row, as given), 'max' (one
+    maximum value per tank, used at every level) or 'none' (no free surface given: nil)."""
     max_fsi_m4: float = field(init=False)
     """Largest free-surface inertia over the calibration (m⁴); derived."""
     table: np.ndarray = field(init=False, repr=False)
@@ -278,12 +303,102 @@ class LimitCurve:
     """'max_kg_m', 'min_gm_m' or 'downflooding_deg'."""
 
 
+SHIP_TYPES: tuple[str, ...] = ("general", "fishing", "passenger", "offshore_supply")
+"""Vessel types that choose the criteria sets (see :data:`deckload.core.criteria.SETS_BY_TYPE`)."""
+
+EXTRA_KINDS: tuple[str, ...] = (
+    "min_gm", "min_area", "min_gz_at", "min_max_gz", "min_angle_max_gz",
+    "min_range", "max_static_heel", "max_wind_heel",
+)
+"""What a flag-State or class criterion written in the profile may measure."""
+
+
+@dataclass(frozen=True)
+class ExtraCriterion:
+    """A flag-State or class criterion written in the profile as data (no code change needed)."""
+
+    kind: str
+    """One of :data:`EXTRA_KINDS`: min_gm (GM0 fluid, m), min_area (area under GZ between
+    ``from_deg`` and ``to_deg``, m·rad), min_gz_at (GZ at ``at_deg``, m), min_max_gz (m),
+    min_angle_max_gz (deg), min_range (range of positive stability, deg), max_static_heel
+    (the list, deg), max_wind_heel (θ0 under the steady wind lw1 of Part A 2.3, deg)."""
+    limit: float
+    """The limit in the kind's unit."""
+    source: str
+    """Where the rule comes from, e.g. 'Flag State notice 4/2021 para 3'."""
+    from_deg: float = 0.0
+    to_deg: float = 0.0
+    at_deg: float = 0.0
+
+
+@dataclass(frozen=True)
+class PassengerData:
+    """Inputs of the passenger-ship heel criteria, IS 2008 Part A 3.1."""
+
+    count: int
+    """Number of passengers."""
+    mass_per_person_t: float
+    """Mass of one passenger (t); 0.075 t (A.749 3.5.2.6), not below 0.060 t."""
+    standing_area_m2: float
+    """Deck area on one side where passengers may crowd (m²)."""
+    standing_tcg_m: float
+    """Distance of the centroid of that area from the centreline (m)."""
+    service_speed_kn: float
+    """Service speed (knots) for the heel when turning."""
+
+
+@dataclass(frozen=True, eq=False)
+class Windage:
+    """Lateral windage against draft (even keel), for the weather criterion of IS 2008 Part A 2.3."""
+
+    draft_m: np.ndarray
+    """Mean moulded draft (m), strictly increasing."""
+    lateral_area_m2: np.ndarray
+    """A: projected lateral area of hull and superstructure above the waterline (m²)."""
+    centroid_above_wl_m: np.ndarray
+    """Height of the centre of A above the waterline (m)."""
+    waterline_length_m: np.ndarray
+    """Lwl: length of the waterline (m)."""
+
+
+@dataclass(frozen=True)
+class DraftMark:
+    """Where one set of draft marks is cut in the shell, port and starboard alike."""
+
+    x_m: float
+    """Position of the marks from AP, + forward (m)."""
+    y_m: float
+    """Distance of the marks from the centreline (m): the starboard marks at +y, the port at −y."""
+
+
+@dataclass(frozen=True)
+class DraftMarks:
+    """The draft marks aft, amidships and forward; they read from the underside of the keel
+    (moulded draft + ``Particulars.keel_thickness_m``)."""
+
+    aft: DraftMark
+    midships: DraftMark
+    forward: DraftMark
+
+
 @dataclass(frozen=True)
 class CriteriaSettings:
     code: str = "IS2008-A2.2"
-    """Criteria set; 'IS2008-A2.2' = IS Code 2008 Part A 2.2 general criteria."""
+    """Legacy key: 'IS2008-A2.2' (still accepted) means the general criteria."""
     min_gm_m: float | None = None
     """Stricter minimum GM0 (m) where the Administration requires one (e.g. 0.35 fishing)."""
+    ship_type: str = "general"
+    """One of :data:`SHIP_TYPES`: chooses the criteria sets."""
+    wind_pressure_pa: float | None = None
+    """Wind pressure P (Pa) for Part A 2.3 when the Administration allows another than 504 Pa."""
+    bilge_keel_area_m2: float = 0.0
+    """Ak: total area of bilge keels, or lateral projection of a bar keel, or the sum (m²); 0 = none."""
+    sharp_bilged: bool = False
+    """A sharp-bilged ship (k = 0.7 in the roll angle)."""
+    complete_superstructure: bool = False
+    """Fishing vessels: a complete superstructure (GM0 may then be below 0.35 m, never below 0.15 m)."""
+    extra: tuple[ExtraCriterion, ...] = ()
+    """Flag-State or class criteria written in the profile."""
 
 
 @dataclass(frozen=True)
@@ -319,7 +434,24 @@ class Vessel:
     limit_curve: LimitCurve | None = None
     downflooding: LimitCurve | None = None
     criteria: CriteriaSettings = CriteriaSettings()
+    windage: Windage | None = None
+    """Lateral windage table for the weather criterion, if the profile has one."""
+    deck_edge: LimitCurve | None = None
+    """Deck-edge immersion angle against displacement (kind 'deck_edge_deg'), if the profile has one."""
+    passengers: PassengerData | None = None
+    """Passenger data for IS 2008 Part A 3.1 (passenger ships)."""
     free_surface: FreeSurfaceSettings = FreeSurfaceSettings()
+    constants: tuple[MassItem, ...] = ()
+    """Fixed constants (crew and effects, stores, provisions) in every condition; a
+    condition's constant of the same name replaces one (see :func:`effective_constants`)."""
+    conversions: tuple[str, ...] = ()
+    """How the profile's booklet conventions were converted on load, one line each (for check)."""
+    assumptions: tuple[str, ...] = ()
+    """What was assumed where the booklet gives less than the model needs, one line each."""
+    draft_marks: DraftMarks | None = None
+    hull: "Body | None" = None
+    """The hull as sections (from the geometry file named by ``hull_geometry``), for the direct
+    calculation beside the tables; None when the profile names no geometry."""
     tank_index: dict[str, int] = field(init=False, repr=False, compare=False)
     hold_index: dict[str, int] = field(init=False, repr=False, compare=False)
     area_index: dict[str, int] = field(init=False, repr=False, compare=False)
@@ -378,6 +510,11 @@ class DeckItem(MassItem):
     """Deck area the item stands on, for the deck-load check."""
     footprint_m2: float | None = None
     """Area the item bears on (m²), for the local deck-load check."""
+    windage_area_m2: float | None = None
+    """Lateral area the item adds to the wind (m²): its side as seen abeam, less what another
+    item or the bulwark already hides; 0 when wholly hidden; None when not stated."""
+    windage_centroid_z_m: float | None = None
+    """Height of the centre of that area above the keel (m)."""
 
 
 @dataclass(frozen=True)
@@ -441,3 +578,10 @@ class Condition:
 
     def replace(self, **changes) -> "Condition":
         return dataclasses.replace(self, **changes)
+
+
+def effective_constants(vessel: Vessel, condition: Condition) -> tuple[MassItem, ...]:
+    """The profile's fixed constants, each replaced by the condition's constant of the same
+    name if it has one, then the condition's other constants."""
+    own = {c.name for c in condition.constants}
+    return tuple(c for c in vessel.constants if c.name not in own) + tuple(condition.constants)

@@ -23,7 +23,8 @@ class TankResult:
     volume_m3: float
     mass_t: float
     density_t_m3: float
-    sounding_m: float
+    sounding_m: float | None
+    """Level above the tank's lowest point (m); None for a tank known only by capacity and centre."""
     lcg_m: float
     vcg_m: float
     tcg_m: float
@@ -145,6 +146,12 @@ class WeatherResult:
     r: float
     s: float
     deck_edge_angle_deg: float | None = None
+    theta_r_deg: float | None = None
+    """First intercept of lw2 with GZ: where area a ends and area b begins (None: GZ never reaches lw2)."""
+    windage_centroid_above_wl_m: float | None = None
+    """Height of the centre of A above the waterline (m)."""
+    waterline_length_m: float | None = None
+    """Lwl used for C, Cb and Ak·100/(L·B) (m)."""
 
 
 @dataclass(frozen=True)
@@ -255,8 +262,10 @@ class Result:
 
     @property
     def smallest_margin(self) -> CriterionResult | None:
-        """The criterion closest to (or furthest past) its limit, relative to the limit."""
-        return min(self.criteria, key=lambda c: c.margin_fraction, default=None)
+        """The assessed criterion closest to (or furthest past) its limit, relative to the limit.
+
+        A criterion that could not be assessed has no margin, so it is never the smallest."""
+        return min((c for c in self.criteria if c.assessed), key=lambda c: c.margin_fraction, default=None)
 
     def to_json_dict(self) -> dict:
         """The result as plain JSON types, with the keys documented in the README."""

@@ -16,11 +16,13 @@ nothing outside is read or written.  Steps, each in its own module:
 from __future__ import annotations
 
 import math
+from dataclasses import replace
 
 import numpy as np
 
 from deckload.core import gz as gzmod
-from deckload.core.criteria import Measures, evaluate_criteria, limit_curve_criterion
+from deckload.core.bounds import bounded
+from deckload.core.criteria import Measures, limit_curve_criterion
 from deckload.core.free_surface import BASIS_NONE, free_surface, transfer_moment_m4
 from deckload.core.hydrostatics import (
     draft_at,
@@ -31,9 +33,11 @@ from deckload.core.hydrostatics import (
     upright,
 )
 from deckload.core.loading import LoadingError, hold_item, resolve_tanks, sum_weights
-from deckload.core.model import Condition, Vessel
+from deckload.core.model import Condition, Vessel, effective_constants
 from deckload.core.result import ItemResult, Result, TankResult, Warning
 from deckload.core.tables import OutOfRangeError, bracket, interp, lerp_row
+from deckload.core.verdict import Afloat, assess, deck_edge_angle
+from deckload.core.trim import BASIS_TABLE, even_keel_note, kn_reference_note, trim_moment
 
 LIST_WARNING_DEG = 2.0
 NEAR_LIMIT_FRACTION = 0.10
@@ -50,7 +54,7 @@ def _items(vessel: Vessel, condition: Condition) -> list[ItemResult]:
         if d.area_id is not None and d.area_id not in vessel.area_index:
             raise LoadingError(f"deck item {d.name!r} names deck area {d.area_id!r}, which the vessel does not have")
         items.append(ItemResult("deck", f"deck{n + 1}", d.name, d.mass_t, d.lcg_m, d.vcg_m, d.tcg_m))
-    for n, c in enumerate(condition.constants):
+    for n, c in enumerate(effective_constants(vessel, condition)):
         items.append(ItemResult("constant", f"const{n + 1}", c.name, c.mass_t, c.lcg_m, c.vcg_m, c.tcg_m))
     for it in items:
         if it.mass_t < 0 or not math.isfinite(it.mass_t):
@@ -68,6 +72,7 @@ def _curve_limit(curve, displacement_t: float) -> float | None:
         return None
 
 
+@bounded
 def evaluate(vessel: Vessel, condition: Condition) -> Result:
     """Complete intact-stability state of ``vessel`` in ``condition``.
 
@@ -92,14 +97,31 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
     hy = upright(vessel, disp, rho_w)
     gm_solid = hy.kmt_m - w.vcg_m
     gm_fluid = hy.kmt_m - kg_fluid
-    trim = trim_m(disp, w.lcg_m, hy.lcb_m, hy.mctc_tm_cm)
+    # MCT from the actual GM_L where the profile has KM_L (core/trim.py)
+    mct = trim_moment(vessel, hy, disp, kg_fluid)
+    trim = trim_m(disp, w.lcg_m, hy.lcb_m, mct.mctc_tm_cm)
     lbp = vessel.particulars.lbp_m
     t_aft = draft_at(0.0, hy.draft_m, hy.lcf_m, trim, lbp)
     t_fwd = draft_at(lbp, hy.draft_m, hy.lcf_m, trim, lbp)
     t_mid = draft_at(lbp / 2.0, hy.draft_m, hy.lcf_m, trim, lbp)
 
     kn = gzmod.kn_curve(vessel.cross_curves, hy.table_displacement_t)
+    # The curve stops at the KN table's last angle (booklets may end at 60°): cut the grid.
+    n_grid = len(kn)
+    fine_deg, fine_rad = gzmod.FINE_DEG[:n_grid], gzmod.FINE_RAD[:n_grid]
+    sin, cos = gzmod.SIN[:n_grid], gzmod.COS[:n_grid]
+    gz_end = float(fine_deg[-1])
     warnings: list[Warning] = []
+    trim_note = even_keel_note(trim, lbp)
+    if trim_note is not None:
+        warnings.append(Warning("trim-beyond-tables", trim_note, "caution"))
+    kn_note = kn_reference_note(vessel.cross_curves, w.lcg_m, vessel.particulars.lbp_m)
+    if kn_note is not None:
+        warnings.append(Warning("kn-reference-lcg", kn_note, "caution"))
+    if mct.basis == BASIS_TABLE:
+        warnings.append(Warning("trim-from-table-mctc",
+                                "the profile has no KML: trim is worked from the tabulated MCTC (made with BML, "
+                                "not the actual GML), so it is slightly too small", "caution"))
     if correction == "transfer":
         # The upright (0°) inertia still gives GM fluid; the curve takes the actual
         # moment of fluid transfer of each counted tank at each heel.  The tables are
@@ -113,22 +135,22 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
                 continue
             if c.tank.transfer is None:
                 no_geometry.append(c.tank.id)
-            m_stbd = transfer_moment_m4(c.tank, t.basis, c.fill_pct, gzmod.FINE_RAD)
+            m_stbd = transfer_moment_m4(c.tank, t.basis, c.fill_pct, fine_rad)
             mirror = vessel.tank(c.tank.pair) if c.tank.pair else None
-            m_port = (transfer_moment_m4(mirror, t.basis, c.fill_pct, gzmod.FINE_RAD)
+            m_port = (transfer_moment_m4(mirror, t.basis, c.fill_pct, fine_rad)
                       if mirror is not None and mirror.transfer is not None else m_stbd)
             shift_stbd += c.density_t_m3 * m_stbd
             shift_port += c.density_t_m3 * m_port
-        base_stbd = kn - w.vcg_m * gzmod.SIN - shift_stbd / disp
-        base_port = kn - w.vcg_m * gzmod.SIN - shift_port / disp
+        base_stbd = kn - w.vcg_m * sin - shift_stbd / disp
+        base_port = kn - w.vcg_m * sin - shift_port / disp
         if no_geometry:
             warnings.append(Warning("fs-no-geometry",
                                     "no tank geometry for " + ", ".join(no_geometry)
                                     + ": their transfer is taken as i·sinφ", "caution"))
     else:
-        base_stbd = base_port = kn - kg_fluid * gzmod.SIN
-    gz_stbd = base_stbd - w.tcg_m * gzmod.COS
-    gz_port = base_port + w.tcg_m * gzmod.COS
+        base_stbd = base_port = kn - kg_fluid * sin
+    gz_stbd = base_stbd - w.tcg_m * cos
+    gz_port = base_port + w.tcg_m * cos
     side = "port" if w.tcg_m < 0 else "starboard"
     gz = gz_port if side == "port" else gz_stbd
 
@@ -155,8 +177,10 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
 
     # A curve with no positive GZ has no meaningful 'angle of maximum': it fails 2.2.3.
     angle_of_max = f.max_gz_angle_deg if f.max_gz_m > 0.0 else 0.0
-    measures = Measures(a30, a40, a3040, gz30, angle_of_max, gm_fluid)
-    criteria = list(evaluate_criteria(vessel.criteria.code, measures, vessel.criteria.min_gm_m))
+    # Area to the angle of maximum GZ (or θf if less), for the OSV set of Part B 2.4.5.
+    a_max = gzmod.area_to(gz, min(angle_of_max, flood) if flood is not None else angle_of_max)
+    measures = Measures(a30, a40, a3040, gz30, angle_of_max, gm_fluid, a_max)
+    limit_rows = []
     if vessel.limit_curve is not None:
         lim = _curve_limit(vessel.limit_curve, hy.table_displacement_t)
         if lim is None:
@@ -164,7 +188,28 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
                                     f"displacement {disp:.1f} t is outside the limiting curve: that check was not made",
                                     "danger"))
         else:
-            criteria.append(limit_curve_criterion(vessel.limit_curve.kind, lim, kg_fluid, gm_fluid))
+            limit_rows.append(limit_curve_criterion(vessel.limit_curve.kind, lim, kg_fluid, gm_fluid))
+    deck_edge, deck_edge_note = deck_edge_angle(vessel, hy.table_displacement_t, t_mid)
+    if deck_edge_note:
+        warnings.append(Warning("deck-edge-approximate", deck_edge_note, "caution"))
+    afloat = Afloat(
+        displacement_t=disp, water_density_t_m3=rho_w, draft_mid_m=t_mid, kg_fluid_m=kg_fluid,
+        gm_fluid_m=gm_fluid, heel_deg=fine_deg, gz_lee_m=gz,
+        gz_other_m=gz_stbd if side == "port" else gz_port, flood_deg=flood, deck_edge_deg=deck_edge,
+        measures=measures, max_gz_m=f.max_gz_m, vanishing_deg=f.vanishing_angle_deg,
+        equilibrium_deg=f.equilibrium_deg, has_deck_cargo=bool(condition.deck_items),
+        deck_windage=tuple((d.windage_area_m2, d.windage_centroid_z_m) for d in condition.deck_items
+                           if d.windage_area_m2 is not None and d.windage_centroid_z_m is not None),
+        deck_items_without_windage=tuple(d.name for d in condition.deck_items
+                                         if d.windage_area_m2 is None or d.windage_centroid_z_m is None),
+    )
+    verdict = assess(vessel, afloat, limit_rows)
+    criteria = list(verdict.criteria)
+    if gz_end < 90.0 - 1e-9:
+        criteria = _short_curve(criteria, gz_end, hi, top, f.max_gz_angle_deg)
+    for note in verdict.cautions:
+        code = "weather-not-assessed" if "not assessed" in note else "verdict-note"
+        warnings.append(Warning(code, note, "caution"))
 
     # The list is where the GZ curve on the low side rises through zero: for small
     # angles this is tanφ = TCG/GM fluid (standards.md §6.3), and it stays right at
@@ -180,7 +225,8 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
     tanks = tuple(
         TankResult(
             id=c.tank.id, name=c.tank.name, kind=c.tank.kind, fill_pct=c.fill_pct, volume_m3=c.volume_m3,
-            mass_t=c.mass_t, density_t_m3=c.density_t_m3, sounding_m=c.sounding_m, lcg_m=c.lcg_m,
+            mass_t=c.mass_t, density_t_m3=c.density_t_m3, lcg_m=c.lcg_m,
+            sounding_m=c.sounding_m if c.tank.level_known else None,
             vcg_m=c.vcg_m, tcg_m=c.tcg_m, fsi_m4=c.fsi_m4, fsm_tm=t.fsm_tm, fs_rule=t.rule, state=t.state,
             worst_band_pct=c.tank.worst_band_pct, capacity_m3=c.tank.capacity_m3,
         )
@@ -190,7 +236,8 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
         warnings.append(Warning("fs-rule-actual",
                                 "free surface at actual levels (IS 2008 B 3.1.6): the B 3.1.3–3.1.4 allowance "
                                 "for consumables is off", "caution"))
-    warnings = _warnings(vessel, condition, tanks, criteria, items, heel, t_mid) + warnings
+    allowed = _allowed_draft(vessel, condition)
+    warnings = _warnings(vessel, condition, tanks, criteria, items, heel, t_mid, allowed) + warnings
 
     return Result(
         vessel_name=vessel.particulars.name,
@@ -210,7 +257,7 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
         lcf_m=hy.lcf_m,
         km_m=hy.kmt_m,
         tpc_t_cm=hy.tpc_t_cm,
-        mctc_tm_cm=hy.mctc_tm_cm,
+        mctc_tm_cm=mct.mctc_tm_cm,
         gm_solid_m=gm_solid,
         gm_fluid_m=gm_fluid,
         trim_m=trim,
@@ -218,7 +265,7 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
         draft_fwd_m=t_fwd,
         draft_mean_m=t_mid,
         list_deg=heel,
-        gz_heel_deg=tuple(gzmod.FINE_DEG[gzmod.WHOLE_DEGREES].tolist()),
+        gz_heel_deg=tuple(fine_deg[gzmod.WHOLE_DEGREES].tolist()),
         gz_m=tuple(gz_stbd[gzmod.WHOLE_DEGREES].tolist()),
         gz_port_m=tuple(gz_port[gzmod.WHOLE_DEGREES].tolist()),
         criteria_side=side,
@@ -232,16 +279,65 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
         area_0_40_mrad=a40,
         area_30_40_mrad=a3040,
         criteria=tuple(criteria),
+        gz_end_deg=gz_end,
         tanks=tanks,
         items=tuple(items),
         warnings=tuple(warnings),
+        criteria_sets=verdict.sets,
+        not_assessed=verdict.not_assessed,
+        weather=verdict.weather,
+        deck_edge_angle_deg=deck_edge,
+        freeboard_m=vessel.particulars.depth_m - t_mid,
+        load_line_margin_m=None if allowed is None or allowed[1] is None else allowed[1] - t_mid,
     )
 
 
-def _warnings(vessel, condition, tanks, criteria, items, heel, t_mid) -> list[Warning]:
+def _allowed_draft(vessel: Vessel, condition: Condition):
+    """(mark, permitted midships draft or None when the summer draft is off the table), or None without marks."""
+    marks = {m.name: m for m in vessel.load_lines}
+    mark = marks.get(condition.load_line) or marks.get("summer")
+    if mark is None:
+        return None
+    summer = marks.get("summer", mark)
+    try:
+        return mark, _permitted_draft(vessel, summer.draft_m, mark, condition.water_density_t_m3)
+    except OutOfRangeError:
+        return mark, None
+
+
+def _short_curve(criteria: list, end_deg: float, gz30_to_deg: float, area_to_deg: float,
+                 max_angle_deg: float) -> list:
+    """Criteria of a GZ curve whose KN table stops at ``end_deg`` < 90°: nothing beyond it is known.
+
+    "GZ ≥ 0.20 m at 30° or more" looks up to ``gz30_to_deg`` (θf, else 90°): a value found
+    within the table decides it, but a shortfall where the range runs past the table
+    cannot be decided, so it is not assessable (never met).  The areas need
+    ``area_to_deg`` (40° or θf), which the profile validation keeps within the table; a
+    maximum at the table's last angle lies there or beyond, which the note says.
+    """
+    out = []
+    for c in criteria:
+        if c.id.endswith("gz-30") and gz30_to_deg > end_deg + 1e-9 and not c.passed:
+            c = replace(c, assessed=False, passed=False,
+                        note=f"GZ stays below {c.limit:.2f} m up to {end_deg:g}°, where the KN tables end; "
+                             f"the range runs to {gz30_to_deg:g}°: not assessable")
+        elif c.id.endswith("area-0-40") or c.id.endswith("area-30-40"):
+            if area_to_deg > end_deg + 1e-9:
+                c = replace(c, assessed=False, passed=False,
+                            note=f"needs GZ to {area_to_deg:g}°, beyond the KN tables' {end_deg:g}°: not assessable")
+        elif c.id.endswith("angle-max-gz") and max_angle_deg >= end_deg - 0.05:
+            c = replace(c, note=f"the maximum lies at or beyond {end_deg:g}°, where the KN tables end")
+        out.append(c)
+    return out
+
+
+def _warnings(vessel, condition, tanks, criteria, items, heel, t_mid, allowed_draft) -> list[Warning]:
     out: list[Warning] = []
     for c in criteria:
-        if not c.passed:
+        if not c.assessed:
+            out.append(Warning("criterion-not-assessed",
+                               f"NOT ASSESSED {c.description}: {c.note} ({c.source})", "danger"))
+        elif not c.passed:
             out.append(Warning("criterion-failed",
                                f"FAILED {c.description}: {c.value:.3f} {c.unit} against {c.limit:.3f} ({c.source})",
                                "danger"))
@@ -258,14 +354,10 @@ def _warnings(vessel, condition, tanks, criteria, items, heel, t_mid) -> list[Wa
     if abs(heel) > LIST_WARNING_DEG:
         out.append(Warning("list", f"list {abs(heel):.1f}° to {'starboard' if heel > 0 else 'port'} exceeds "
                                    f"{LIST_WARNING_DEG:.0f}°", "caution"))
-    marks = {m.name: m for m in vessel.load_lines}
-    mark = marks.get(condition.load_line) or marks.get("summer")
-    if mark is not None:
-        summer = marks.get("summer", mark)
-        try:
-            allowed = _permitted_draft(vessel, summer.draft_m, mark, condition.water_density_t_m3)
-        except OutOfRangeError:
-            out.append(Warning("load-line-range", f"{summer.name} load line lies outside the hydrostatic table",
+    if allowed_draft is not None:
+        mark, allowed = allowed_draft
+        if allowed is None:
+            out.append(Warning("load-line-range", "summer load line lies outside the hydrostatic table",
                                "caution"))
         else:
             if t_mid > allowed + 1e-9:

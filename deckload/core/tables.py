@@ -66,12 +66,17 @@ def interp(xs: np.ndarray, ys: np.ndarray, x: float, quantity: str, unit: str = 
 
 @dataclass(frozen=True)
 class CubicSpline:
-    """Natural cubic spline through (x, y), for smooth curves such as KN against heel.
+    """Cubic spline through (x, y), for smooth curves such as KN against heel or displacement.
 
     Standard construction: second derivatives M_i solve the tridiagonal system
-    h_{i-1}·M_{i-1} + 2(h_{i-1}+h_i)·M_i + h_i·M_{i+1} = 6·(Δ_i − Δ_{i-1}), with
-    M_0 = M_n = 0 (Burden & Faires, *Numerical Analysis*, §3.5, natural spline).
-    ``y`` may be 2-D: each column is splined on the same knots.
+    h_{i-1}·M_{i-1} + 2(h_{i-1}+h_i)·M_i + h_i·M_{i+1} = 6·(Δ_i − Δ_{i-1}), closed by
+    either M_0 = M_n = 0 (``end="natural"``, Burden & Faires, *Numerical Analysis*, §3.5:
+    right for KN against heel, an odd function of φ with KN''(0) = 0) or by a continuous
+    third derivative at the second and the last-but-one knots (``end="not-a-knot"``,
+    de Boor, *A Practical Guide to Splines*, ch. IV: for curves whose ends are curved, such
+    as KN against displacement, where the natural condition would flatten the end
+    intervals).  With three knots not-a-knot is the parabola through them, with two the
+    straight line.  ``y`` may be 2-D: each column is splined on the same knots.
     """
 
     x: np.ndarray
@@ -79,13 +84,29 @@ class CubicSpline:
     m: np.ndarray  # second derivatives at the knots
 
     @staticmethod
-    def fit(x: np.ndarray, y: np.ndarray) -> "CubicSpline":
+    def fit(x: np.ndarray, y: np.ndarray, end: str = "natural") -> "CubicSpline":
         x = np.asarray(x, dtype=float)
         y = np.asarray(y, dtype=float)
         n = len(x)
         h = np.diff(x)
         m = np.zeros_like(y)
-        if n > 2:
+        if end == "not-a-knot" and n == 3:
+            d = np.diff(y, axis=0) / (h if y.ndim == 1 else h[:, None])
+            m[:] = 2.0 * (d[1] - d[0]) / (x[2] - x[0])
+        elif end == "not-a-knot" and n > 3:
+            d = np.diff(y, axis=0) / (h if y.ndim == 1 else h[:, None])
+            a = np.zeros((n, n))
+            rhs = np.zeros((n,) + y.shape[1:])
+            for i in range(1, n - 1):
+                a[i, i - 1], a[i, i], a[i, i + 1] = h[i - 1], 2.0 * (h[i - 1] + h[i]), h[i]
+                rhs[i] = 6.0 * (d[i] - d[i - 1])
+            # third derivative continuous at x_1: (M1 − M0)/h0 = (M2 − M1)/h1; likewise at x_{n-2}
+            a[0, :3] = (h[1], -(h[0] + h[1]), h[0])
+            a[-1, -3:] = (h[-1], -(h[-2] + h[-1]), h[-2])
+            m = np.linalg.solve(a, rhs)
+        elif end not in ("natural", "not-a-knot"):
+            raise ValueError(f"unknown spline end condition {end!r}")
+        elif n > 2:
             d = np.diff(y, axis=0) / (h if y.ndim == 1 else h[:, None])
             rhs = 6.0 * (d[1:] - d[:-1])
             a = np.zeros((n - 2, n - 2))

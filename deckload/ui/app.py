@@ -27,6 +27,13 @@ class DeckloadApp(App[None]):
         self.loading_screen = LoadingScreen(session)
         self._quit_warned = False
 
+    def _print_error_renderables(self) -> None:
+        """An unforeseen error is reported by the launcher in one paragraph, the details in a
+        crash file (deckload.boundary): never a traceback on the officer's terminal."""
+        if self._exception is not None:
+            self._exit_renderables.clear()
+        super()._print_error_renderables()
+
     def get_default_screen(self) -> Screen:
         return self.loading_screen
 

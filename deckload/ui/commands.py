@@ -37,7 +37,7 @@ class Command:
 
 COMMANDS: tuple[Command, ...] = (
     Command("set_amount", "enter", "Set", "Type an amount for the line under the cursor: tank 55% / 12.5m3 / 10t / "
-            "1.2m (sounding); hold mass in t; a deck load or constant opens its form (mass, position).",
+            "1.2m (sounding), 0.85u (ullage); hold mass in t; a deck load or constant opens its form (mass, position).",
             display="⏎", title="Set amount"),
     Command("nudge(1)", "plus,equals_sign", "±1%", "Raise the tank under the cursor by 1 % of capacity "
             "(a hold or item by 1 t).", display="+ -", title="Raise 1 %"),
@@ -61,6 +61,12 @@ COMMANDS: tuple[Command, ...] = (
             footer=False, title="GZ correction method"),
     Command("toggle_gz", "g", "GZ", "Show the GZ curve or the numbers (only below 110 columns, where both do not fit).",
             title="GZ curve or numbers"),
+    Command("wind_plot", "b", "Wind", "Show the weather criterion (IS Code 2008 Part A 2.3) on the curve: GZ with the "
+            "steady and gust wind levers lw1 and lw2, the angles θ0, θ1 and θ2, and the areas a and b; again for the "
+            "plain GZ curve.", footer=False, title="Wind and roll plot"),
+    Command("verdict", "v", "Verdict", "The whole verdict: every criteria set assessed, each criterion with its "
+            "paragraph, value, limit and margin, and everything that was not assessed, with the reason.",
+            footer=False, title="Whole verdict"),
     Command("alerts", "w", "Warn", "List every warning, when more are raised than the warning strip can show.",
             title="All warnings"),
     Command("sign_on", "o", "Watch", "Sign on as officer of the watch (initials): every change is then written "

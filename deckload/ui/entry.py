@@ -7,7 +7,8 @@ changes nothing.  No textual here: the UI only shows the message.
 
 Amount syntax (case-insensitive, spaces allowed, decimal point only):
 ``55%`` percent of capacity, ``12.5m3`` (or ``m³``) volume, ``10t`` mass,
-``1.2m`` sounding from the tank bottom.
+``1.2m`` sounding (read from the tank's sounding zero), ``0.85u`` ullage (read down from the
+tank's ullage reference point; the profile gives ``ullage_reference_m``).
 """
 
 from __future__ import annotations
@@ -15,21 +16,39 @@ from __future__ import annotations
 import re
 from dataclasses import dataclass
 
-from deckload.core.loading import volume_of
-from deckload.core.model import Condition, DeckItem, Hold, HoldLoad, MassItem, Tank, TankFill, Vessel
+from deckload.core import bounds
+from deckload.core.loading import LoadingError, level_of, over_limit, reading_range, volume_of
+from deckload.core.model import (
+    LEVEL_QUANTITIES,
+    Condition,
+    DeckItem,
+    Hold,
+    HoldLoad,
+    MassItem,
+    Tank,
+    TankFill,
+    Vessel,
+)
+from deckload.limits import MAX_ENTRY_CHARS
+from deckload.textsafe import control_char
 
-UNITS: dict[str, str] = {"%": "percent", "m3": "volume_m3", "m³": "volume_m3", "t": "mass_t", "m": "sounding_m"}
+UNITS: dict[str, str] = {"%": "percent", "m3": "volume_m3", "m³": "volume_m3", "t": "mass_t", "m": "sounding_m",
+                         "u": "ullage_m"}
 """Unit as typed → the condition's quantity name."""
 
-UNIT_LABEL: dict[str, str] = {"percent": "%", "volume_m3": "m³", "mass_t": "t", "sounding_m": "m sounding"}
+UNIT_LABEL: dict[str, str] = {"percent": "%", "volume_m3": "m³", "mass_t": "t", "sounding_m": "m sounding",
+                              "ullage_m": "m ullage"}
 
-WATER_DENSITY_RANGE_T_M3 = (0.990, 1.040)
-"""Accepted water density: fresh river water to dense sea water (common practice)."""
+WATER_DENSITY_RANGE_T_M3 = bounds.WATER_DENSITY_RANGE_T_M3
+"""Accepted water density: the same range as every condition file (deckload.core.bounds)."""
 
 EMPTY_VOLUME_M3 = 1e-9
 
-_AMOUNT = re.compile(r"^\s*(?P<num>[0-9]*\.?[0-9]+)\s*(?P<unit>%|m3|m³|t|m)\s*$", re.IGNORECASE)
-_NUMBER = re.compile(r"^\s*(?P<num>[+-]?[0-9]*\.?[0-9]+)\s*(?P<unit>[a-z³/%0-9]*)\s*$", re.IGNORECASE)
+# Linear-time patterns: a digit run belongs to exactly one part, so nothing is tried twice
+# (the earlier '[0-9]*\.?[0-9]+' could split a run of digits every way before failing).
+_DECIMAL = r"(?:[0-9]+(?:\.[0-9]+)?|\.[0-9]+)"
+_AMOUNT = re.compile(rf"^\s*(?P<num>{_DECIMAL})\s*(?P<unit>%|m3|m³|t|m|u)\s*$", re.IGNORECASE)
+_NUMBER = re.compile(rf"^\s*(?P<num>[+-]?{_DECIMAL})\s*(?P<unit>[a-z³/%]*[0-9]?)\s*$", re.IGNORECASE)
 
 
 class EntryError(ValueError):
@@ -39,24 +58,32 @@ class EntryError(ValueError):
 # --------------------------------------------------------------------------- numbers
 
 
+def _too_long(raw: str, what: str) -> None:
+    if len(raw) > MAX_ENTRY_CHARS:
+        raise EntryError(f"{what}: {len(raw)} characters typed; an entry has at most {MAX_ENTRY_CHARS}.")
+
+
 def parse_amount(text: str) -> tuple[str, float]:
     """``"55%"`` → ``("percent", 55.0)``; refuses a bare number or an unknown unit."""
     raw = text.strip()
+    _too_long(raw, "Amount")
     if not raw:
-        raise EntryError("Nothing typed: give an amount with its unit, e.g. 55%, 12.5m3, 10t or 1.2m.")
+        raise EntryError("Nothing typed: give an amount with its unit, e.g. 55%, 12.5m3, 10t, 1.2m or 0.85u.")
     if "," in raw:
         raise EntryError(f"{raw!r}: use a decimal point, not a comma.")
     m = _AMOUNT.match(raw)
     if m is None:
         if _NUMBER.match(raw) and not _NUMBER.match(raw).group("unit"):
-            raise EntryError(f"{raw!r} has no unit: add % (percent), m3 (volume), t (tonnes) or m (sounding).")
-        raise EntryError(f"{raw!r} is not an amount: write e.g. 55%, 12.5m3, 10t or 1.2m (no minus sign).")
+            raise EntryError(f"{raw!r} has no unit: add % (percent), m3 (volume), t (tonnes), m (sounding) "
+                             "or u (ullage).")
+        raise EntryError(f"{raw!r} is not an amount: write e.g. 55%, 12.5m3, 10t, 1.2m or 0.85u (no minus sign).")
     return UNITS[m.group("unit").lower()], float(m.group("num"))
 
 
 def parse_number(text: str, what: str, unit: str = "", *, low: float | None = None, high: float | None = None) -> float:
     """A plain number, optionally followed by ``unit``; checked against [low, high]."""
     raw = text.strip()
+    _too_long(raw, what)
     m = _NUMBER.match(raw)
     if raw and "," in raw:
         raise EntryError(f"{what}: {raw!r}: use a decimal point, not a comma.")
@@ -82,7 +109,21 @@ def tank_density(tank: Tank, fill: TankFill | None) -> float:
 
 
 def max_sounding_m(tank: Tank) -> float:
-    return float(tank.calibration.sounding_m[-1])
+    """The greatest sounding reading the tank's table covers (m)."""
+    return reading_range(tank, "sounding_m")[1]
+
+
+def amount_hint(tank: Tank, fill: TankFill | None) -> str:
+    """The line under the amount field: what may be typed for this tank, and its limits."""
+    rho = f"density {tank_density(tank, fill):.3f} t/m³"
+    if not tank.level_known:
+        return (f"55% · 12.5m3 · 10t (capacity-only tank: no sounding).  Capacity {tank.capacity_m3:.2f} m³, {rho}")
+    head = "55% · 12.5m3 · 10t · 1.2m (sounding)"
+    if tank.ullage_reference_m is not None:
+        lo, hi = reading_range(tank, "ullage_m")
+        return (f"{head} · 0.85u (ullage {lo:.2f}–{hi:.2f} m).  Capacity {tank.capacity_m3:.2f} m³, greatest sounding "
+                f"{max_sounding_m(tank):.2f} m, {rho}")
+    return f"{head}.  Capacity {tank.capacity_m3:.2f} m³, greatest sounding {max_sounding_m(tank):.2f} m, {rho}"
 
 
 def fill_volume_m3(tank: Tank, fill: TankFill | None) -> float:
@@ -93,21 +134,34 @@ def fill_volume_m3(tank: Tank, fill: TankFill | None) -> float:
 
 
 def check_tank_amount(tank: Tank, quantity: str, value: float, density_t_m3: float) -> None:
-    """Refuse an amount outside the tank: below zero or above its capacity."""
+    """Refuse an amount outside the tank: below zero or above its capacity, or a reading outside its table."""
+    if quantity in LEVEL_QUANTITIES:
+        try:
+            level_of(tank, quantity, value)
+        except LoadingError as e:
+            raise EntryError(str(e)[0].upper() + str(e)[1:] + ".") from None
+        lo, hi = reading_range(tank, quantity)
+        name = "sounding" if quantity == "sounding_m" else "ullage"
+        if value < 0:
+            raise EntryError(f"{tank.id}: {value:g} m is negative.")
+        if value > hi + 1e-9:
+            raise EntryError(f"{tank.id}: {name} {value:g} m is more than its greatest {name} {hi:.3f} m.")
+        if value < lo - 1e-9:
+            raise EntryError(f"{tank.id}: {name} {value:g} m is less than its smallest {name} {lo:.3f} m "
+                             "(the table's range; nothing is extrapolated).")
+        return
     limits = {
         "percent": (100.0, "%"),
         "volume_m3": (tank.capacity_m3, "m³"),
         "mass_t": (tank.capacity_m3 * density_t_m3, "t"),
-        "sounding_m": (max_sounding_m(tank), "m"),
     }
     high, unit = limits[quantity]
     if value < 0:
         raise EntryError(f"{tank.id}: {value:g} {unit} is negative.")
-    if value > high * (1 + 1e-9):
+    if over_limit(value, high):  # the calculation's own round-off rule (core.loading)
         what = {"percent": "100 %", "volume_m3": f"its capacity {high:.2f} m³",
-                "mass_t": f"its capacity {high:.2f} t at {density_t_m3:.3f} t/m³",
-                "sounding_m": f"its greatest sounding {high:.3f} m"}[quantity]
-        raise EntryError(f"{tank.id}: {value:g} {unit} is more than {what}.")
+                "mass_t": f"its capacity {high:.2f} t at {density_t_m3:.3f} t/m³"}[quantity]
+        raise EntryError(f"{tank.id}: {value:.12g} {unit} is more than {what}.")
 
 
 def set_tank(condition: Condition, tank: Tank, quantity: str, value: float) -> Condition:
@@ -115,7 +169,9 @@ def set_tank(condition: Condition, tank: Tank, quantity: str, value: float) -> C
     fill = condition.tank_fill(tank.id)
     density = tank_density(tank, fill)
     check_tank_amount(tank, quantity, value, density)
-    if value <= 0:
+    if quantity == "percent":
+        value = min(value, 100.0)  # within round-off of full is full, as the calculation takes it
+    if quantity != "ullage_m" and value <= 0:
         return condition.without_tank(tank.id)
     override = fill.density_t_m3 if fill is not None else None
     return condition.with_tank(TankFill(tank.id, quantity, float(value), override))
@@ -129,7 +185,7 @@ def describe_fill(tank: Tank, fill: TankFill | None) -> str:
     if fill.quantity == "volume_m3":
         return f"{vol:.2f} m³"
     said = {"percent": f"{fill.value:g} %", "mass_t": f"{fill.value:g} t",
-            "sounding_m": f"sounding {fill.value:g} m"}[fill.quantity]
+            "sounding_m": f"sounding {fill.value:g} m", "ullage_m": f"ullage {fill.value:g} m"}[fill.quantity]
     return f"{said} = {vol:.2f} m³"
 
 
@@ -137,7 +193,8 @@ def fill_text(fill: TankFill | None) -> str:
     """A condition entry as the user would type it: 'percent 55' → '55%'."""
     if fill is None:
         return ""
-    return f"{fill.value:g}" + {"percent": "%", "volume_m3": "m3", "mass_t": "t", "sounding_m": "m"}[fill.quantity]
+    return f"{fill.value:g}" + {"percent": "%", "volume_m3": "m3", "mass_t": "t", "sounding_m": "m",
+                                "ullage_m": "u"}[fill.quantity]
 
 
 def tank_from_text(condition: Condition, tank: Tank, text: str) -> Condition:
@@ -195,8 +252,8 @@ def plan_transfer(vessel: Vessel, condition: Condition, from_id: str, to_id: str
     sf, df = condition.tank_fill(from_id), condition.tank_fill(to_id)
     rho_s, rho_d = tank_density(src, sf), tank_density(dst, df)
     quantity, value = parse_amount(amount)
-    if quantity == "sounding_m":
-        raise EntryError("A transfer amount is given in t, m3 or % (of the from-tank), not as a sounding.")
+    if quantity in LEVEL_QUANTITIES:
+        raise EntryError("A transfer amount is given in t, m3 or % (of the from-tank), not as a sounding or ullage.")
     vol_s = {"percent": src.capacity_m3 * value / 100.0, "volume_m3": value, "mass_t": value / rho_s}[quantity]
     if vol_s <= 0:
         raise EntryError("Transfer amount must be more than zero.")
@@ -219,9 +276,11 @@ def plan_transfer(vessel: Vessel, condition: Condition, from_id: str, to_id: str
 # --------------------------------------------------------------------------- holds and items
 
 
-def hold_from_text(condition: Condition, hold: Hold, text: str) -> Condition:
-    """Set a hold's cargo mass (t); 0 empties it.  The structural limit is enforced."""
-    mass = parse_number(text, f"{hold.id} cargo mass", "t", low=0.0)
+def hold_from_text(condition: Condition, hold: Hold, text: str, vessel: Vessel | None = None) -> Condition:
+    """Set a hold's cargo mass (t); 0 empties it.  The structural limit is enforced, and with
+    ``vessel`` the physical bound of one item's mass (:func:`deckload.core.bounds.item_mass_range`)."""
+    high = bounds.item_mass_range(vessel).high if vessel is not None else None
+    mass = parse_number(text, f"{hold.id} cargo mass", "t", low=0.0, high=high)
     if hold.max_mass_t is not None and mass > hold.max_mass_t:
         raise EntryError(f"{hold.id}: {mass:g} t is over the hold's structural limit {hold.max_mass_t:g} t.")
     if mass == 0:
@@ -255,19 +314,25 @@ def item_from_form(vessel: Vessel, form: ItemForm, *, deck: bool, base: MassItem
     """A deck item (``deck=True``) or constant from the dialog's fields, every field checked.
 
     ``base``: the item being edited; what the form does not show (a deck item's
-    footprint) is kept from it.
+    footprint and windage) is kept from it.
 
-    Positions must lie within the vessel's envelope: x from −0.2·LBP to 1.2·LBP,
-    |y| ≤ B/2, z from 0 to depth + 30 m (room for masts and deck stows).
+    Mass and position must lie within the vessel's physical bounds, the same ones every
+    file is held to (:mod:`deckload.core.bounds`): x from −0.2·LBP to 1.2·LBP, |y| ≤ B/2,
+    z from 0 to depth + 30 m, mass up to the greatest tabulated displacement less lightship.
     """
     p = vessel.particulars
     name = form.name.strip()
     if not name:
         raise EntryError("Name: give the item a name.")
-    mass = parse_number(form.mass, "Mass", "t", low=0.0)
-    lcg = parse_number(form.lcg, "LCG (from AP)", "m", low=-0.2 * p.lbp_m, high=1.2 * p.lbp_m)
-    vcg = parse_number(form.vcg, "VCG (above keel)", "m", low=0.0, high=p.depth_m + 30.0)
-    tcg = parse_number(form.tcg or "0", "TCG (+ starboard)", "m", low=-p.breadth_m / 2, high=p.breadth_m / 2)
+    if len(name) > 200:
+        raise EntryError("Name: at most 200 characters.")
+    if control_char(name) is not None:
+        raise EntryError(f"Name: holds the control character {control_char(name)}; type plain text.")
+    mr, xr, zr, yr = bounds.item_mass_range(vessel), bounds.x_range(p), bounds.z_range(p), bounds.y_range(p)
+    mass = parse_number(form.mass, "Mass", "t", low=mr.low, high=mr.high)
+    lcg = parse_number(form.lcg, "LCG (from AP)", "m", low=xr.low, high=xr.high)
+    vcg = parse_number(form.vcg, "VCG (above keel)", "m", low=zr.low, high=zr.high)
+    tcg = parse_number(form.tcg or "0", "TCG (+ starboard)", "m", low=yr.low, high=yr.high)
     if not deck:
         return MassItem(name, mass, lcg, vcg, tcg)
     area = form.area.strip() or None
@@ -275,7 +340,8 @@ def item_from_form(vessel: Vessel, form: ItemForm, *, deck: bool, base: MassItem
         known = ", ".join(vessel.area_index) or "none"
         raise EntryError(f"Deck area {area!r} is not one of this vessel's deck areas ({known}).")
     footprint = getattr(base, "footprint_m2", None)
-    return DeckItem(name, mass, lcg, vcg, tcg, area_id=area, footprint_m2=footprint)
+    windage = {k: getattr(base, k) for k in ("windage_area_m2", "windage_centroid_z_m") if getattr(base, k, None) is not None}
+    return DeckItem(name, mass, lcg, vcg, tcg, area_id=area, footprint_m2=footprint, **windage)
 
 
 def form_of(item: MassItem) -> ItemForm:

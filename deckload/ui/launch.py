@@ -16,18 +16,31 @@ def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir
     """The vessel and the condition to start from, with notices for the user.
 
     Start-up order: the CONDITION argument if given; else the vessel's saved
-    working condition; else (demo vessel) its departure condition, or an empty
-    condition.  An unreadable working file is set aside, never overwritten.
+    working condition; else (a packaged demo vessel) its departure condition, or an empty
+    condition.  A condition counts as read only when it parses, fits the vessel and
+    the calculation accepts it (a displacement outside the tables is accepted: the
+    screen shows why).  An unusable working file is set aside with a notice, never
+    overwritten; the good working file is set aside for a named condition only after
+    that condition has been read successfully.  A profile that fails its plausibility
+    audit raises :class:`deckload.audit_report.AuditError`.
     """
     from deckload import paths
     from deckload.profiles import ProfileError, load_condition, load_profile
     from deckload.ui.session import working_path
 
+    from deckload.audit_report import audit_or_refuse
+
     notices: list[str] = []
     vessel = load_profile(profile_path or paths.DEMO_PROFILE)
+    # The plausibility audit before anything is shown: a contradiction refuses the profile
+    # (AuditError, a ProfileError), a doubt becomes a notice.
+    doubt = audit_or_refuse(profile_path or paths.DEMO_PROFILE, vessel)
+    if doubt:
+        notices.append(doubt)
     saved = working_path(work_dir, vessel)
+    notices += _tidy_working_folder(work_dir, saved, vessel)
     if condition_path is not None:
-        condition = load_condition(condition_path, vessel)
+        condition = _usable(vessel, load_condition(condition_path, vessel), condition_path)
         if saved.is_file():
             # The named condition becomes the working one; the old working file is kept.
             aside = _free_name(saved, ".previous")
@@ -36,14 +49,72 @@ def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir
         return vessel, condition, notices
     if saved.is_file():
         try:
-            return vessel, load_condition(saved, vessel), notices
-        except ProfileError as exc:
+            return vessel, _usable(vessel, load_condition(saved, vessel), saved), notices
+        except (ProfileError, OSError) as exc:
             aside = _free_name(saved, ".unreadable")
             saved.replace(aside)
             notices.append(f"Saved working condition could not be read and was moved to {aside}: {exc}")
-    if profile_path is None:
-        return vessel, load_condition(paths.DEMO_CONDITIONS["departure"], vessel), notices
+    start = paths.demo_start_condition(profile_path)
+    if start is not None:  # a packaged demo vessel opens on its departure condition
+        return vessel, load_condition(start, vessel), notices
     return vessel, Condition(name="Working condition"), notices
+
+
+def _usable(vessel: Vessel, condition: Condition, path: Path) -> Condition:
+    """``condition`` if the calculation accepts it (or finds it outside the tables, which the
+    screen shows); else :class:`ProfileError` naming the file and why."""
+    from deckload.core.stability import evaluate
+    from deckload.core.tables import OutOfRangeError
+    from deckload.profiles import Problem, ProfileError
+
+    try:
+        evaluate(vessel, condition)
+    except OutOfRangeError:
+        pass
+    except ValueError as exc:
+        raise ProfileError([Problem(str(path), None, "", None, f"cannot be computed: {exc}")]) from None
+    return condition
+
+
+def _tidy_working_folder(work_dir: Path, saved: Path, vessel: Vessel) -> list[str]:
+    """Clean up after earlier versions and interrupted saves; the notices to show.
+
+    * A working file under the name earlier versions used (which some vessels shared) is
+      moved to this vessel's own name, if it holds a condition that fits this vessel.
+    * Temporary files of an interrupted save (a kill or power cut between writing and
+      renaming) are removed; one of this vessel's working file that holds a complete
+      condition is kept beside it, so an edit confirmed just before is not lost unseen.
+    """
+    from deckload import paths
+    from deckload.atomicfile import leftover_temp_files
+    from deckload.profiles import ProfileError, load_condition
+
+    notices: list[str] = []
+    if not work_dir.is_dir():
+        return notices
+    legacy = paths.legacy_working_file(work_dir, vessel.particulars.name)
+    if legacy != saved and legacy.is_file() and not saved.exists():
+        try:
+            load_condition(legacy, vessel)
+        except (ProfileError, OSError):
+            pass  # another vessel's, or unreadable: left where it is
+        else:
+            legacy.replace(saved)
+            notices.append(f"Working condition moved from {legacy.name} to {saved.name} (one file per vessel).")
+    for tmp in leftover_temp_files(work_dir):
+        if tmp.name.startswith(f".{saved.name}."):
+            try:
+                load_condition(tmp, vessel)
+            except (ProfileError, OSError):
+                tmp.unlink(missing_ok=True)
+                continue
+            aside = _free_name(saved, ".interrupted")
+            tmp.replace(aside)
+            notices.append(f"A save was interrupted before it finished; its copy was kept as {aside}. The "
+                           "condition shown is the last one saved completely: compare them.")
+        else:
+            tmp.unlink(missing_ok=True)
+    return notices
 
 
 def _free_name(path: Path, suffix: str) -> Path:
@@ -111,4 +182,10 @@ def run_open(profile_path: Path | None, condition_path: Path | None) -> int:
         return 2
     app = create_app(vessel, condition, work_dir=work_dir, log_dir=paths.log_dir(), notices=notices)
     app.run()
+    if getattr(app, "_exception", None) is not None:
+        # The screen stopped on an error nobody foresaw: the boundary's message and crash file.
+        from deckload.boundary import internal_error
+
+        return internal_error(app._exception, "running the loading screen",
+                              [str(profile_path or paths.DEMO_PROFILE), str(app.session.save_path or "")])
     return app.return_code or 0

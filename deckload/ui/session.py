@@ -9,7 +9,6 @@ error of the edit: the condition is kept, the last good result stays on show
 
 from __future__ import annotations
 
-import re
 from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any, Callable
@@ -20,13 +19,10 @@ from deckload.core.tables import OutOfRangeError
 from deckload.ui.entry import EntryError
 
 
-def vessel_slug(name: str) -> str:
-    """File-name form of a vessel name: 'Demo Islander' → 'demo-islander'."""
-    return re.sub(r"[^a-z0-9]+", "-", name.lower()).strip("-") or "vessel"
-
-
 def working_path(work_dir: Path, vessel: Vessel) -> Path:
-    return work_dir / f"{vessel_slug(vessel.particulars.name)}.condition.toml"
+    from deckload.paths import working_file
+
+    return working_file(work_dir, vessel.particulars.name)
 
 
 @dataclass
@@ -65,7 +61,8 @@ class Journal:
         try:
             self.logbook.append(**entry)
         except Exception as exc:  # the log must never take the screen down
-            return f"Log not written: {exc}"
+            where = getattr(self.logbook, "path", "the voyage log")
+            return f"NOT RECORDED in {where}: {getattr(exc, 'strerror', None) or exc}. Nothing was added to the log."
         return None
 
 
@@ -237,7 +234,8 @@ class Session:
                 self.save_path.parent.mkdir(parents=True, exist_ok=True)
                 self._save(self.save_path, condition)
             except OSError as exc:
-                problems.append(f"Working condition not saved to {self.save_path}: {exc}")
+                problems.append(f"NOT SAVED: {self.save_path}: {exc.strerror or exc}. The change is on screen "
+                                "only (the file holds the last condition saved); the next change tries again.")
         err = self.journal.append(kind=kind, change_text=label, change_data=data, result=result, condition=condition)
         if err:
             problems.append(err)

@@ -26,6 +26,7 @@ from deckload.core.geometry.sections import simpson_weights
 from deckload.core.geometry.spec import DeckAreaSpec, Geometry, HoldSpec, TankSpec
 from deckload.core.geometry.tanks import calibrate, fill_centroids, sounding_levels
 from deckload.core.geometry.transfer import TransferTable, transfer_moments, worst_band
+from deckload.core.geometry.windage import deck_edge_point, waterline_length_m, windage_above
 from deckload.core.model import TankCalibration
 
 Progress = Callable[[str], None]
@@ -72,6 +73,24 @@ class Downflooding:
 
 
 @dataclass(frozen=True, eq=False)
+class WindageTable:
+    """Windage against draft (even keel) from the lateral profile, and Lwl from the offsets."""
+
+    draft_m: np.ndarray
+    lateral_area_m2: np.ndarray
+    centroid_above_wl_m: np.ndarray
+    waterline_length_m: np.ndarray
+
+
+@dataclass(frozen=True, eq=False)
+class DeckEdge:
+    """Heel (deg) at which the deck edge at midships reaches the water, per displacement."""
+
+    displacement_t: np.ndarray
+    angle_deg: np.ndarray
+
+
+@dataclass(frozen=True, eq=False)
 class VesselTables:
     geometry: Geometry
     hydrostatics: UprightHydrostatics
@@ -82,6 +101,8 @@ class VesselTables:
     downflooding: Downflooding | None
     hull_rule: str
     """Integration rule along the hull stations: 'simpson' or 'trapezoid'."""
+    windage: WindageTable | None = None
+    deck_edge: DeckEdge | None = None
 
 
 class TableRangeError(ValueError):
@@ -174,4 +195,15 @@ def build_tables(geometry: Geometry, progress: Progress | None = None) -> Vessel
         k = np.argmin(angles, axis=0)
         names = sorted({geometry.openings[int(i)].name for i in k})
         down = Downflooding(" / ".join(names), ts.kn_displacement_t, np.min(angles, axis=0))
-    return VesselTables(geometry, hyd, cc, tuple(tanks), holds, areas, down, body.rule)
+    say("deck-edge immersion angle at midships")
+    edge = deck_edge_point(geometry.hull, 0.5 * v.lbp_m)
+    deck_edge = DeckEdge(ts.kn_displacement_t, immersion_angle(
+        body, ts.kn_displacement_t, rho, edge, ts.trim_basis, ts.trim_lcg_m, ts.trim_vcg_m))
+    wind = None
+    if geometry.lateral_profile is not None:
+        say("windage from the lateral profile")
+        lp = geometry.lateral_profile
+        rows = np.array([windage_above(lp.x_m, lp.z_m, float(d)) for d in ts.draft_m])
+        lwl = np.array([waterline_length_m(geometry.hull, float(d)) for d in ts.draft_m])
+        wind = WindageTable(ts.draft_m, rows[:, 0], rows[:, 1], lwl)
+    return VesselTables(geometry, hyd, cc, tuple(tanks), holds, areas, down, body.rule, wind, deck_edge)

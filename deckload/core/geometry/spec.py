@@ -144,6 +144,16 @@ class TableSpec:
 
 
 @dataclass(frozen=True, eq=False)
+class LateralProfile:
+    """The vessel's outline seen from the side (hull, bulwarks, superstructures), for windage."""
+
+    x_m: np.ndarray
+    """Outline x (m from AP), a closed polygon (the last point joins the first)."""
+    z_m: np.ndarray
+    """Outline z (m above keel)."""
+
+
+@dataclass(frozen=True, eq=False)
 class Geometry:
     """A whole geometry file, validated."""
 
@@ -154,3 +164,5 @@ class Geometry:
     holds: tuple[HoldSpec, ...] = ()
     deck_areas: tuple[DeckAreaSpec, ...] = ()
     openings: tuple[OpeningSpec, ...] = ()
+    lateral_profile: LateralProfile | None = None
+    """Outline for the windage table of the weather criterion; None when not given."""

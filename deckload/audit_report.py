@@ -1,0 +1,180 @@
+"""The plausibility audit of a profile file: findings located in the file and worded for print.
+
+:func:`deckload.core.audit.audit` judges the validated model (pure); this module adds
+where each finding sits — the profile file and line (tomlcheck's line finder), or the
+CSV file and line when the table was read from a CSV file beside the profile — and
+the one-line wording used by ``deckload check`` and the loading screen::
+
+    fv.toml:21: ERROR lightship.lcg_m = -2.1 m from AP: a lightship LCG must lie … ; compare with …
+"""
+
+from __future__ import annotations
+
+import csv
+import os
+import tomllib
+from dataclasses import dataclass
+from pathlib import Path
+
+from deckload.core.audit import ERROR, Finding, audit
+from deckload.core.model import Vessel
+from deckload.tomlcheck import Problem, ProfileError, key_lines
+
+
+@dataclass(frozen=True)
+class Located:
+    """A finding with the file and line it points at."""
+
+    finding: Finding
+    file: str
+    line: int | None
+
+    @property
+    def is_error(self) -> bool:
+        return self.finding.severity == ERROR
+
+    def __str__(self) -> str:
+        f = self.finding
+        where = f"{self.file}:{self.line}" if self.line else self.file
+        return f"{where}: {f.severity.upper()} {f.key} = {f.value}: {f.why}; compare with {f.look}"
+
+
+class AuditError(ProfileError):
+    """The profile meets the schema but its numbers contradict each other: it is not used."""
+
+    def __init__(self, path: str | os.PathLike, found: list[Located]):
+        errors = [x for x in found if x.is_error]
+        super().__init__([Problem(x.file, x.line, x.finding.key, x.finding.value,
+                                  f"ERROR (plausibility audit): {x.finding.why}; compare with {x.finding.look}")
+                          for x in errors])
+        self.path = str(path)
+        self.found = found
+
+    def __str__(self) -> str:
+        n = len(self.problems)
+        head = (f"{self.path}: the profile fails its plausibility audit ({n} contradiction{'s' if n != 1 else ''}) "
+                "and is not opened; put these right (deckload check lists every finding):")
+        return "\n".join([head, *(str(p) for p in self.problems)])
+
+
+def warnings_notice(found: list[Located], path: str | os.PathLike, shown: int = 3) -> str | None:
+    """One notice for the loading screen naming the audit's warnings (doubts), or None."""
+    doubts = [x for x in found if not x.is_error]
+    if not doubts:
+        return None
+    lines = [f"{x.finding.key} = {x.finding.value}: {x.finding.why}" for x in doubts[:shown]]
+    more = f" … and {len(doubts) - shown} more" if len(doubts) > shown else ""
+    return (f"Plausibility audit of {Path(path).name}: {len(doubts)} warning{'s' if len(doubts) != 1 else ''} "
+            f"(compare with the booklet; deckload check lists them): " + "; ".join(lines) + more)
+
+
+def audit_or_refuse(path: str | os.PathLike, vessel: Vessel) -> str | None:
+    """Before a profile is used on the screen: raise :class:`AuditError` on a contradiction,
+    else return the warnings' notice (or None)."""
+    found = audit_profile(path, vessel)
+    if any(x.is_error for x in found):
+        raise AuditError(path, found)
+    return warnings_notice(found, path)
+
+
+def audit_profile(path: str | os.PathLike, vessel: Vessel) -> list[Located]:
+    """Audit ``vessel`` (read from ``path``) and locate every finding in its files.
+
+    A file that cannot be re-read (moved meanwhile) only loses the line numbers."""
+    findings = audit(vessel)
+    if not findings:
+        return []
+    try:
+        text = Path(path).read_text(encoding="utf-8")
+    except (OSError, UnicodeDecodeError):
+        return [Located(f, str(path), None) for f in findings]
+    return locate(findings, str(path), text, vessel)
+
+
+def locate(findings, filename: str, text: str, vessel: Vessel) -> list[Located]:
+    lines = key_lines(text)
+    try:
+        doc = tomllib.loads(text)
+    except tomllib.TOMLDecodeError:
+        doc = {}
+    out = []
+    for f in findings:
+        csv_file = _csv_of(doc, f.path)
+        if csv_file is not None:
+            out.append(_in_csv(f, Path(filename).parent / csv_file, vessel))
+            continue
+        line = None
+        for k in range(len(f.path), 0, -1):
+            if f.path[:k] in lines:
+                line = lines[f.path[:k]]
+                break
+        out.append(Located(f, filename, line))
+    return out
+
+
+def _csv_of(doc: dict, path: tuple) -> str | None:
+    """The CSV file named by the table on ``path`` (``csv = "…"``), if it was read from one."""
+    node = doc
+    for part in path:
+        if isinstance(node, dict):
+            if isinstance(node.get("csv"), str):
+                return node["csv"]
+            node = node.get(part)
+        elif isinstance(node, list) and isinstance(part, int) and 0 <= part < len(node):
+            node = node[part]
+        else:
+            return None
+    return None
+
+
+def _in_csv(f: Finding, full: Path, vessel: Vessel) -> Located:
+    """The CSV line of the finding's row (the finding's key names the column, as the model has it)."""
+    name = str(full)
+    try:
+        with open(full, newline="", encoding="utf-8") as fh:
+            rows = [(n, r) for n, r in enumerate(csv.reader(fh), 1) if any(c.strip() for c in r)]
+    except (OSError, UnicodeDecodeError, csv.Error):
+        return Located(f, name, None)
+    if len(rows) < 2:
+        return Located(f, name, None)
+    header = [c.strip() for c in rows[0][1]]
+    data = rows[1:]
+    ints = [p for p in f.path if isinstance(p, int)]
+    # the table's row: kn_m[i][j] is row i (column kn_<heel>), a column's value [r] is row r
+    r = ints[-2] if f.path[:2] == ("cross_curves", "kn_m") and len(ints) == 2 else ints[-1] if ints else None
+    if r is None:
+        return Located(f, name, None)
+    # (the finding's column may be a converted one, e.g. fsi_m4 typed as fsm_tm: the row is what counts)
+    # The row is found by its abscissa, which no convention changes (displacement, volume): a
+    # converted table may have been reversed (ullage) or gained a level-0 row.
+    anchor = _anchor(f, vessel, r)
+    if anchor is None or anchor[0] not in header:
+        return Located(f, name, None)
+    k = header.index(anchor[0])
+    for line, cells in data:
+        x = _float(cells[k]) if k < len(cells) else None
+        if x is not None and abs(x - anchor[1]) <= 1e-6 * max(1.0, abs(anchor[1])):
+            return Located(f, name, line)
+    return Located(f, name, None)
+
+
+def _anchor(f: Finding, vessel: Vessel, r: int) -> tuple[str, float] | None:
+    """(CSV column, value) that identifies the model's row ``r`` of the finding's table."""
+    p = f.path
+    try:
+        if p[0] == "hydrostatics":
+            return "displacement_t", float(vessel.hydrostatics.displacement_t[r])
+        if p[0] == "cross_curves":
+            return "displacement_t", float(vessel.cross_curves.displacement_t[r])
+        if p[0] == "tank" and len(p) > 2 and p[2] == "calibration":
+            return "volume_m3", float(vessel.tanks[p[1]].calibration.volume_m3[r])
+    except IndexError:
+        return None
+    return None
+
+
+def _float(s: str) -> float | None:
+    try:
+        return float(s)
+    except ValueError:
+        return None

@@ -1,0 +1,764 @@
+"""Plausibility audit of a validated vessel profile: typing and datum errors the schema cannot see.
+
+The schema (``deckload.profiles``) checks that every number is a number, every table
+increases and every array has its rows.  It cannot see a lightship LCG typed from
+midships, a KN of 19.07 typed for 1.907 or a pair of tanks both to starboard: each is a
+valid number.  This module looks at the *validated* model and asks whether the numbers
+agree with the vessel's own size and with each other.
+
+Two severities:
+
+* ``error`` — a contradiction: the numbers cannot all be right (a centre of gravity
+  outside the hull, a metacentre higher than the waterplane allows, KN beyond the
+  buoyant envelope).  ``deckload check`` fails and the loading screen refuses the profile.
+* ``warning`` — a doubt: unusual for a ship but possible.  Shown, never blocking.
+
+Every finding names where it is (the dotted key as in schema problems, and the path
+into the profile for the line finder), the value, why it is suspicious and which
+booklet table to compare with.  Every tolerance is written beside its check with the
+reason for it.  Marks as in standards.md: "common practice" = a fact of the trade
+without a citable source; bounds marked "derived" are proved in the docstring beside them.
+
+Pure: numpy and the standard library only (tests/test_core_purity.py).
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+import numpy as np
+
+from deckload.core.model import Tank, Vessel
+
+ERROR = "error"
+WARNING = "warning"
+
+
+@dataclass(frozen=True)
+class Finding:
+    """One suspicious number (or pair of numbers) in a profile."""
+
+    severity: str
+    """:data:`ERROR` (a contradiction) or :data:`WARNING` (a doubt)."""
+    key: str
+    """Dotted key as in schema problems, e.g. 'tank[FP].calibration.lcg_m'."""
+    path: tuple
+    """Where the value sits in the profile's TOML document, for the line finder:
+    ``("tank", 3, "calibration", "lcg_m", 5)`` = sixth value of the fourth [[tank]]'s column."""
+    value: str
+    """The offending value in words, in deckload's conventions (x from AP, + forward)."""
+    why: str
+    """Why it is suspicious, with the bound it breaks."""
+    look: str
+    """Which booklet page or table to compare with."""
+    check: str
+    """Short id of the check, e.g. 'position-x', 'pair-tcg-sign'."""
+
+    def text(self) -> str:
+        return f"{self.key} = {self.value}: {self.why}; compare with {self.look}"
+
+
+# --------------------------------------------------------------------------- tolerances
+
+ENVELOPE_X_FRACTION = 0.2
+"""Error beyond this fraction of LBP aft of the AP or forward of the FP.  Overall length
+rarely exceeds 1.2 × LBP, so nothing aboard lies further out (common practice)."""
+
+DOUBT_X_FRACTION = 0.1
+"""Warning beyond 0.1 × LBP outside the perpendiculars: only an aft peak or a bow
+compartment reaches there, and rarely that far (common practice)."""
+
+LIGHTSHIP_X_RANGE = (0.2, 0.8)
+"""Error: a lightship LCG outside 0.2–0.8 × LBP from the AP.  She floats with her centre of
+buoyancy on the vertical through G, and no hull's centre of buoyancy lies in the end fifths of
+its length (common practice; LCB is within ±10 % L of midships on ordinary hulls)."""
+
+LCB_ERROR_RANGE = (0.2, 0.8)
+"""Error: LCB or LCF outside 0.2–0.8 × LBP from the AP (as for the lightship; a wholly negative
+column is a midships datum entered as if from the AP)."""
+
+LCB_DOUBT_RANGE = (0.3, 0.7)
+"""Warning: LCB or LCF outside 0.3–0.7 × LBP (beyond ±20 % L of midships: common practice)."""
+
+VCG_LIMITS_D = {"lightship": (1.5, 2.5), "compartment": (1.5, 3.0), "deck": (2.5, 4.0)}
+"""(warning, error) heights above the keel in moulded depths.  Lightship KG is about 0.6–1.3 D on
+ordinary ships; tanks and holds lie in the hull or a casing just above it; deck areas reach the
+upper tiers at most (common practice)."""
+
+LIGHTSHIP_LOW_VCG_D = 0.3
+"""Warning: a lightship KG below 0.3 D (ballast-keeled hulls only; common practice)."""
+
+LIGHTSHIP_TRIM_FRACTION = 0.05
+"""Warning: the lightship, by the profile's own hydrostatics, trims more than 5 % of LBP
+(trims of 1–3 % L occur on trawlers and tugs; more suggests a datum slip; common practice)."""
+
+PAIR_TCG_ABS_M = 0.05
+PAIR_TCG_REL = 0.10
+"""Warning: a pair's full-tank TCGs fail to mirror by more than max(0.05 m, 10 % of the larger).
+Mirror-image tanks agree within rounding (UR L5 allows 0.05 m on a TCG); a larger difference is
+either an asymmetric pair (possible) or a typing error (standards.md §5.3 for the 0.05 m)."""
+
+PAIR_CENTRELINE_FRACTION_B = 0.01
+"""A pair's TCGs 'have the same sign' only when both are further than 1 % of B from the centreline:
+nearer, either could be a centreline rounding (common practice)."""
+
+PAIR_CAPACITY_REL = 0.10
+"""Warning: a pair's capacities differ by more than 10 %.  UR L5 allows 2 % on a volume, so two
+mirror tanks differ by at most ~4 % through rounding of either; 10 % is beyond it (standards.md §5.3)."""
+
+TPC_INTERVAL = (0.05, 0.15)
+"""(warning, error) mismatch between a displacement step and ∫100·TPC dT over that step, as a
+fraction of the integral.  The trapezoidal rule errs by h³·f''/12: under 2 % for smooth hulls at
+the usual 0.1–0.2 m row spacing, a few % across a chine; a digit slip gives tens of % (derived)."""
+
+TPC_INTERVAL_FLOOR = (0.005, 0.01)
+"""...and only when the mismatch also exceeds 0.5 % / 1 % of the displacement, so the rounding of
+small steps near the keel (values printed to 0.1 t) cannot trigger it."""
+
+METACENTRE_ALLOWANCE = 0.03
+"""3 % allowance on the rigorous BMt bounds below: KMt is tolerated to 1 % (UR L5, standards.md §5.3)
+and TPC, Δ and KMt are each printed to 3–4 figures."""
+
+WATERLINE_LENGTH_MAX = 1.2
+"""The waterline is at most 1.2 × LBP long (as ENVELOPE_X_FRACTION)."""
+
+MCTC_KML_RANGE = ((0.8, 1.03), (0.5, 1.1))
+"""(warning, error) range of MCTC·100·LBP/(Δ·BML).  MCTC = Δ·GML/(100·LBP) (standards.md §6) and
+GML = BML − BG; BG is at most a depth, a few % of BML on ordinary ships, so the ratio is 0.8–1.0;
+above 1 only by rounding (3 %).  Outside 0.5–1.1 a factor of 2 or 10 has slipped (derived)."""
+
+MCTC_SHAPE_DOUBT = (0.4, 1.3)
+"""Warning when c = 12·MCTC/(TPC·LBP) = I_L/(A_wp·LBP²/12) lies outside 0.4–1.3: a diamond-shaped
+waterplane gives 0.5, a parabolic one 0.6, a rectangle of length LBP 1.0 (derived in _check_mctc)."""
+
+CB_RANGE = ((0.3, 1.0), (0.1, 1.2))
+"""(warning, error) block coefficient ∇/(LBP·B·T) at rows from half the design draft up.  Ships
+run from ~0.35 (fast craft) to ~0.9 (barges; common practice); a box of LBP·B·T holds 1.0 and the
+waterline can be at most 1.2 LBP long, so above 1.2 is impossible and below 0.1 nothing floats
+with that draft (derived / common practice)."""
+
+RISE_TOLERANCE_REL = 0.01
+"""TPC or MCTC may fall by 1 % between rows (rounding) before a warning."""
+
+VCB_FALL_TOLERANCE_M = 0.005
+"""VCB must rise with draft (each added layer lies above the old centre: derived); it may fall by
+half a printed centimetre (rounding) before this is an error."""
+
+KN_ZERO_TOLERANCE_M = 0.01
+"""KN at 0° is zero on a symmetric hull (derived: K and B both on the centreline); 1 cm rounding."""
+
+KN_ENVELOPE_DEPTHS = 2.0
+"""KN is the distance from K to the line of action of buoyancy, so at most the distance from K to
+the furthest buoyant point: within half the breadth across and, counting superstructure, two
+moulded depths up (common practice)."""
+
+KN_SMALL_ANGLE = {5.0: 0.05, 10.0: 0.10}
+"""Warning: KN/(KMt·sinφ) differs from 1 by more than 5 % up to 5°, 10 % up to 10°.  The wall-sided
+formula gives KN = sinφ·(KMt + BMt·tan²φ/2), 1 % above KMt·sinφ at 10° for BMt/KMt ≈ 1 (derived,
+standards.md §6); deck-edge immersion lowers it on low-freeboard hulls."""
+
+KN_SMALL_ANGLE_ERROR = 0.30
+"""Error: more than 30 % away at ≤ 10°: beyond any hull; a digit or decimal slip (a factor 10 is 900 %)."""
+
+KN_OUTLIER = (0.20, 0.50)
+"""(warning, error) an inner KN value differs from the straight line between its neighbours by more
+than 20 % / 50 % of that line's value, along the heel AND along the displacement (where both have
+neighbours).  A decimal slip is 90 % or 900 %; the sharpest real bend (deck-edge immersion at 15°
+spacing on a box) is about 20 % along heel only (derived from checks.md §1.2 values)."""
+
+EMPTY_FSI_RISE = 1.1
+"""Warning: at the empty row (volume 0) the free surface is the limit from inside, the tank's
+bottom; a tank widens upward from its bottom (or keeps its breadth), so a value more than 10 %
+above the next row's is a doubt — an FSM typed against the empty row (derived; 10 % for rounding)."""
+
+FSI_BOX_ALLOWANCE = 1.1
+"""Warning: fsi above 1.1 × A·B²/12, the inertia of a box-shaped free surface of the tank's own
+area A (from its calibration) and the ship's breadth B (issue 8's bound l·b³/12, b ≤ B); 10 % for
+estimating A from the calibration's steps."""
+
+FSI_AREA_FACTOR = 2.0
+"""Error: fsi above A·B²/4 with A doubled.  B²/4 is the largest variance of any distribution over
+a width B (Popoviciu's inequality), so no free surface of area A within the ship's breadth has a
+larger inertia (derived); the area from a calibration step can be half the surface at its top (a
+V-shaped bottom: area growing from zero), hence the factor 2."""
+
+CENTRE_ROUNDING_M = 0.005
+"""Half a printed centimetre: the rounding allowed on any tabulated centre (m)."""
+
+VOLUME_ROUNDING_REL = 0.0005
+"""Rounding allowed on a tabulated volume, relative to the capacity (as profiles.CAPACITY_TOLERANCE)."""
+
+
+# --------------------------------------------------------------------------- helpers
+
+
+def _f(x: float, unit: str = "m") -> str:
+    s = f"{x:.4g}" if abs(x) < 1000 else f"{x:.1f}"
+    return f"{s} {unit}" if unit else s
+
+
+class _Audit:
+    def __init__(self, vessel: Vessel):
+        self.v = vessel
+        p = vessel.particulars
+        self.L, self.B, self.D, self.T = p.lbp_m, p.breadth_m, p.depth_m, p.design_draft_m
+        self.rho = p.table_density_t_m3
+        self.out: list[Finding] = []
+
+    def add(self, severity, key, path, value, why, look, check):
+        self.out.append(Finding(severity, key, tuple(path), value, why, look, check))
+
+    # ----------------------------------------------------------------- positions
+    def x_position(self, key, path, x, look, *, lightship=False):
+        L = self.L
+        if lightship:
+            lo, hi = LIGHTSHIP_X_RANGE
+            if not lo * L <= x <= hi * L:
+                self.add(ERROR, key, path, _f(x) + " from AP",
+                         f"a lightship LCG must lie between {lo:g} and {hi:g} × LBP from the AP "
+                         f"({_f(lo * L)}–{_f(hi * L)}): she floats with B under G, and no hull's LCB lies "
+                         "in the end fifths of her length (a value from midships or the FP typed as from the AP?)",
+                         look, "lightship-x")
+            return
+        e, d = ENVELOPE_X_FRACTION, DOUBT_X_FRACTION
+        if x < -e * L or x > (1 + e) * L:
+            self.add(ERROR, key, path, _f(x) + " from AP",
+                     f"outside the vessel: more than {e:g} × LBP beyond the {'AP' if x < 0 else 'FP'} "
+                     f"(the hull runs about {_f(-e * L)} to {_f((1 + e) * L)} from the AP at most)",
+                     look, "position-x")
+        elif x < -d * L or x > (1 + d) * L:
+            self.add(WARNING, key, path, _f(x) + " from AP",
+                     f"more than {d:g} × LBP beyond the {'AP' if x < 0 else 'FP'} ({_f(-d * L)} to "
+                     f"{_f((1 + d) * L)} from the AP is where compartments usually end)", look, "position-x")
+
+    def z_position(self, key, path, z, look, kind):
+        warn, err = VCG_LIMITS_D[kind]
+        D = self.D
+        if z > err * D:
+            self.add(ERROR, key, path, _f(z) + " above keel",
+                     f"more than {err:g} × the depth ({_f(err * D)}) above the keel: above anything aboard",
+                     look, "position-z")
+        elif z > warn * D:
+            self.add(WARNING, key, path, _f(z) + " above keel",
+                     f"more than {warn:g} × the depth ({_f(warn * D)}) above the keel", look, "position-z")
+
+    def y_position(self, key, path, y, look):
+        if abs(y) > self.B / 2 + CENTRE_ROUNDING_M:
+            self.add(ERROR, key, path, _f(y) + " from CL",
+                     f"outside the vessel: |TCG| above half the breadth ({_f(self.B / 2)})", look, "position-y")
+
+    def positions(self):
+        v = self.v
+        ls = v.lightship
+        look = "the booklet's lightship particulars (inclining test summary)"
+        self.x_position("lightship.lcg_m", ("lightship", "lcg_m"), ls.lcg_m, look, lightship=True)
+        self.z_position("lightship.vcg_m", ("lightship", "vcg_m"), ls.vcg_m, look, "lightship")
+        if ls.vcg_m < LIGHTSHIP_LOW_VCG_D * self.D:
+            self.add(WARNING, "lightship.vcg_m", ("lightship", "vcg_m"), _f(ls.vcg_m) + " above keel",
+                     f"below {LIGHTSHIP_LOW_VCG_D:g} × the depth: unusually low for a lightship KG", look, "position-z")
+        self.y_position("lightship.tcg_m", ("lightship", "tcg_m"), ls.tcg_m, look)
+        for i, t in enumerate(v.tanks):
+            self.tank_positions(i, t)
+        for i, h in enumerate(v.holds):
+            key, path = f"hold[{h.id}]", ("hold", i)
+            look = f"the booklet's capacity plan / hold table for {h.id}"
+            self.x_position(f"{key}.lcg_m", path + ("lcg_m",), h.lcg_m, look)
+            self.z_position(f"{key}.vcg_m", path + ("vcg_m",), h.vcg_m, look, "compartment")
+            self.y_position(f"{key}.tcg_m", path + ("tcg_m",), h.tcg_m, look)
+            for col, kind in (("fill_lcg_m", "x"), ("fill_vcg_m", "z")):
+                arr = getattr(h, col)
+                if arr is None:
+                    continue
+                for r, val in enumerate(arr):
+                    n = len(self.out)
+                    if kind == "x":
+                        self.x_position(f"{key}.{col}", path + (col, r), float(val), look)
+                    else:
+                        self.z_position(f"{key}.{col}", path + (col, r), float(val), look, "compartment")
+                    if len(self.out) > n:
+                        break
+        for i, c in enumerate(v.constants):
+            key, path = f"constant[#{i + 1}]", ("constant", i)
+            look = f"the booklet's list of fixed constants ({c.name})"
+            self.x_position(f"{key}.lcg_m", path + ("lcg_m",), c.lcg_m, look)
+            self.z_position(f"{key}.vcg_m", path + ("vcg_m",), c.vcg_m, look, "deck")
+            self.y_position(f"{key}.tcg_m", path + ("tcg_m",), c.tcg_m, look)
+        for i, a in enumerate(v.deck_areas):
+            key, path = f"deck_area[{a.id}]", ("deck_area", i)
+            look = f"the booklet's deck plan / deck-load table for {a.id}"
+            self.x_position(f"{key}.lcg_m", path + ("lcg_m",), a.lcg_m, look)
+            self.z_position(f"{key}.deck_height_m", path + ("deck_height_m",), a.deck_height_m, look, "deck")
+            self.y_position(f"{key}.tcg_m", path + ("tcg_m",), a.tcg_m, look)
+
+    def tank_positions(self, i: int, t: Tank):
+        cal = t.calibration
+        look = f"the booklet's calibration table of tank {t.id}"
+        for col, kind in (("lcg_m", "x"), ("vcg_m", "z"), ("tcg_m", "y")):
+            arr = getattr(cal, col)
+            for r, val in enumerate(arr):
+                n = len(self.out)
+                key, path = f"tank[{t.id}].calibration.{col}", ("tank", i, "calibration", col, r)
+                if kind == "x":
+                    self.x_position(key, path, float(val), look)
+                elif kind == "z":
+                    self.z_position(key, path, float(val), look, "compartment")
+                else:
+                    self.y_position(key, path, float(val), look)
+                if len(self.out) > n:
+                    break  # one finding per column: the first row that is out
+
+    # ----------------------------------------------------------------- lightship trim
+    def lightship_trim(self):
+        v, h = self.v, self.v.hydrostatics
+        disp = v.lightship.mass_t
+        if not h.displacement_t[0] <= disp <= h.displacement_t[-1]:
+            return
+        lcb = float(np.interp(disp, h.displacement_t, h.lcb_m))
+        mctc = float(np.interp(disp, h.displacement_t, h.mctc_tm_cm))
+        trim = disp * (lcb - v.lightship.lcg_m) / (100.0 * mctc)  # standards.md §6 trim formula
+        if abs(trim) > LIGHTSHIP_TRIM_FRACTION * self.L:
+            self.add(WARNING, "lightship.lcg_m", ("lightship", "lcg_m"), _f(v.lightship.lcg_m) + " from AP",
+                     f"with the profile's LCB {_f(lcb)} and MCTC {mctc:.4g} t·m/cm at the lightship "
+                     f"displacement she would trim {_f(abs(trim))} by the {'stern' if trim > 0 else 'head'}, "
+                     f"more than {LIGHTSHIP_TRIM_FRACTION:g} × LBP", "the booklet's lightship particulars "
+                     "and its lightship condition (trim)", "lightship-trim")
+
+    # ----------------------------------------------------------------- pairs
+    def pairs(self):
+        v = self.v
+        seen = set()
+        for i, a in enumerate(v.tanks):
+            if a.pair is None or a.pair not in v.tank_index or (a.pair, a.id) in seen:
+                continue
+            seen.add((a.id, a.pair))
+            b = v.tank(a.pair)
+            ya, yb = float(a.calibration.tcg_m[-1]), float(b.calibration.tcg_m[-1])
+            key, path = f"tank[{a.id}].calibration.tcg_m", ("tank", i, "calibration", "tcg_m", len(a.calibration.tcg_m) - 1)
+            look = f"the booklet's calibration tables of {a.id} and {b.id} (full-tank TCG)"
+            near = PAIR_CENTRELINE_FRACTION_B * self.B
+            if ya * yb > 0 and abs(ya) > near and abs(yb) > near:
+                self.add(ERROR, key, path, f"{_f(ya)} (pair {b.id}: {_f(yb)})",
+                         f"{a.id} and {b.id} are a port/starboard pair but both centres are on the "
+                         f"{'starboard' if ya > 0 else 'port'} side: one sign is wrong", look, "pair-tcg-sign")
+            elif abs(ya + yb) > max(PAIR_TCG_ABS_M, PAIR_TCG_REL * max(abs(ya), abs(yb))):
+                self.add(WARNING, key, path, f"{_f(ya)} (pair {b.id}: {_f(yb)})",
+                         f"the pair's full-tank TCGs do not mirror: they differ by {_f(abs(ya + yb))} "
+                         f"(more than max({PAIR_TCG_ABS_M:g} m, {PAIR_TCG_REL:.0%} of the larger))", look, "pair-tcg")
+            ca, cb = a.capacity_m3, b.capacity_m3
+            if abs(ca - cb) > PAIR_CAPACITY_REL * max(ca, cb):
+                self.add(WARNING, f"tank[{a.id}].capacity_m3", ("tank", i, "capacity_m3"),
+                         f"{ca:.4g} m³ (pair {b.id}: {cb:.4g} m³)",
+                         f"the pair's capacities differ by {abs(ca - cb) / max(ca, cb):.0%} (more than "
+                         f"{PAIR_CAPACITY_REL:.0%}: UR L5 allows 2 % on a volume)", look.replace("full-tank TCG", "capacity"),
+                         "pair-capacity")
+
+    # ----------------------------------------------------------------- hydrostatics
+    def hydrostatics(self):
+        h = self.v.hydrostatics
+        L, B, rho = self.L, self.B, self.rho
+        T, disp, tpc, mctc, kmt = h.draft_m, h.displacement_t, h.tpc_t_cm, h.mctc_tm_cm, h.kmt_m
+        look = "the booklet's hydrostatic particulars table"
+        hp = ("hydrostatics",)
+
+        def row(i):
+            return f"{look}, row at draft {T[i]:.4g} m"
+
+        # LCB / LCF ranges: a midships datum typed as if from the AP gives a wholly negative column.
+        for col in ("lcb_m", "lcf_m"):
+            arr = getattr(h, col)
+            elo, ehi = LCB_ERROR_RANGE
+            dlo, dhi = LCB_DOUBT_RANGE
+            bad = np.flatnonzero((arr < elo * L) | (arr > ehi * L))
+            if bad.size:
+                r = int(bad[0])
+                every = " (every row: a datum or sign slip?)" if bad.size == arr.size else ""
+                self.add(ERROR, f"hydrostatics.{col}", hp + (col, r), _f(float(arr[r])) + " from AP",
+                         f"outside {elo:g}–{ehi:g} × LBP from the AP ({_f(elo * L)}–{_f(ehi * L)}): no hull's "
+                         f"{col[:3].upper()} lies in the end fifths of its length{every}", row(r), "hydro-lcb-range")
+                continue
+            doubt = np.flatnonzero((arr < dlo * L) | (arr > dhi * L))
+            if doubt.size:
+                r = int(doubt[0])
+                self.add(WARNING, f"hydrostatics.{col}", hp + (col, r), _f(float(arr[r])) + " from AP",
+                         f"outside {dlo:g}–{dhi:g} × LBP from the AP: unusually far from midships", row(r), "hydro-lcb-range")
+
+        # Displacement against the integral of TPC (100·TPC t per m of draft, at table density).
+        for i in range(1, len(T)):
+            step = float(disp[i] - disp[i - 1])
+            integral = 50.0 * float(tpc[i] + tpc[i - 1]) * float(T[i] - T[i - 1])
+            miss = abs(step - integral)
+            for sev, frac, floor in ((ERROR, TPC_INTERVAL[1], TPC_INTERVAL_FLOOR[1]),
+                                     (WARNING, TPC_INTERVAL[0], TPC_INTERVAL_FLOOR[0])):
+                if miss > frac * integral and miss > floor * float(disp[i]):
+                    self.add(sev, "hydrostatics.displacement_t", hp + ("displacement_t", i), f"{disp[i]:.6g} t",
+                             f"the step from {disp[i - 1]:.6g} t ({T[i - 1]:.4g} m) is {step:.4g} t but 100·TPC over "
+                             f"the draft gives {integral:.4g} t ({miss / integral:.0%} apart, more than {frac:.0%}): "
+                             "the displacement or a TPC value is mistyped", row(i), "hydro-tpc")
+                    break
+            else:
+                continue
+            break  # one finding: the first step that disagrees
+
+        # Block coefficient at rows from half the design draft up.
+        (wlo, whi), (elo, ehi) = CB_RANGE
+        for i in range(len(T)):
+            if T[i] < 0.5 * self.T or T[i] <= 0:
+                continue
+            cb = float(disp[i]) / rho / (L * B * float(T[i]))
+            # 0.5 % rounding allowance at the box's 1.0 (Δ and the draft are printed to 3–4 figures)
+            sev = ERROR if not elo <= cb <= ehi else WARNING if not wlo <= cb <= whi * 1.005 else None
+            if sev:
+                self.add(sev, "hydrostatics.displacement_t", hp + ("displacement_t", i), f"{disp[i]:.6g} t",
+                         f"block coefficient Δ/(ρ·LBP·B·T) = {cb:.3g} at {T[i]:.4g} m: "
+                         + ("no hull of this length, breadth and draft can hold that" if sev == ERROR
+                            else f"outside the usual {wlo:g}–{whi:g}"), row(i), "hydro-cb")
+                break
+
+        # Quantities that must rise with draft.
+        if h.vcb_m is not None:
+            d = np.diff(h.vcb_m)
+            bad = np.flatnonzero(d < -VCB_FALL_TOLERANCE_M)
+            if bad.size:
+                r = int(bad[0]) + 1
+                self.add(ERROR, "hydrostatics.vcb_m", hp + ("vcb_m", r), _f(float(h.vcb_m[r])),
+                         f"falls from {_f(float(h.vcb_m[r - 1]))} as the draft rises: every added layer lies above "
+                         "the old centre of buoyancy, so VCB can only rise", row(r), "hydro-rise")
+            for i in range(len(T)):
+                if T[i] > 0 and not 0.0 < h.vcb_m[i] < T[i] + VCB_FALL_TOLERANCE_M:
+                    self.add(ERROR, "hydrostatics.vcb_m", hp + ("vcb_m", i), _f(float(h.vcb_m[i])),
+                             f"the centre of buoyancy must lie between the keel and the waterline (0–{T[i]:.4g} m)",
+                             row(i), "hydro-vcb")
+                    break
+        for col, what in (("tpc_t_cm", "TPC"), ("mctc_tm_cm", "MCTC")):
+            arr = getattr(h, col)
+            bad = np.flatnonzero(arr[1:] < arr[:-1] * (1 - RISE_TOLERANCE_REL))
+            if bad.size:
+                r = int(bad[0]) + 1
+                self.add(WARNING, f"hydrostatics.{col}", hp + (col, r), f"{arr[r]:.5g}",
+                         f"{what} falls from {arr[r - 1]:.5g} as the draft rises (it rises on a flared hull; "
+                         "tumblehome above the waterline can make it fall)", row(r), "hydro-rise")
+
+        # KMt against KB + BMt.  Derived bounds with waterplane area A = 100·TPC/ρ, every
+        # point of it within the breadth B, waterline length ≤ 1.2·LBP, ∇ = Δ/ρ, BMt = I_T/∇:
+        #   any waterplane:  I_T = A·var(y) ≤ A·B²/4  (Popoviciu)                 → error above
+        #   single hull (half-breadths y(x) ≤ B/2): I_T = ∫(2/3)y³dx ≤ (B²/12)·A   → warning above
+        #   any waterplane:  I_T ≥ ∫w³/12 dx ≥ A³/(12·Lwl²)  (area packed on the centreline; Hölder)
+        # Without VCB, KB lies between 0 and T.
+        for i in range(len(T)):
+            if T[i] <= 0 or disp[i] <= 0:
+                continue
+            area = 100.0 * float(tpc[i]) / rho
+            vol = float(disp[i]) / rho
+            bm_any = area * B * B / 4.0 / vol
+            bm_mono = area * B * B / 12.0 / vol
+            lwl = WATERLINE_LENGTH_MAX * L
+            bm_lo = area ** 3 / (12.0 * lwl * lwl) / vol
+            a = METACENTRE_ALLOWANCE
+            if h.vcb_m is not None:
+                kb_lo = kb_hi = float(h.vcb_m[i])
+            else:
+                kb_lo, kb_hi = 0.0, float(T[i])
+            km = float(kmt[i])
+            if km > (kb_hi + bm_any) * (1 + a):
+                sev, bound, rule = ERROR, kb_hi + bm_any, "BMt = I_T/∇ ≤ A·B²/(4∇) for any waterplane within the breadth"
+            elif km < (kb_lo + bm_lo) * (1 - a):
+                sev, bound, rule = ERROR, kb_lo + bm_lo, "BMt = I_T/∇ ≥ A³/(12·Lwl²·∇) for any waterplane"
+            elif km > (kb_hi + bm_mono) * (1 + a):
+                sev, bound, rule = WARNING, kb_hi + bm_mono, "BMt ≤ A·B²/(12∇) for a single hull (a multihull may exceed it)"
+            else:
+                continue
+            self.add(sev, "hydrostatics.kmt_m", hp + ("kmt_m", i), _f(km),
+                     f"{'below' if km < bound else 'above'} what KB + BMt allows at {T[i]:.4g} m ({_f(bound)}): "
+                     f"{rule}, with A = 100·TPC/ρ = {area:.4g} m²", row(i), "hydro-kmt")
+            break
+
+        # MCTC against the waterplane and against KML.
+        self._check_mctc(row)
+
+        # LCB against LCF: d(∇·LCB) = LCF·d∇, so LCB follows from LCF and Δ (derived).
+        moment = float(disp[0] * h.lcb_m[0])
+        worst = None
+        for i in range(1, len(T)):
+            moment += 0.5 * float(h.lcf_m[i] + h.lcf_m[i - 1]) * float(disp[i] - disp[i - 1])
+            pred = moment / float(disp[i])
+            gap = abs(pred - float(h.lcb_m[i]))
+            if worst is None or gap > worst[0]:
+                worst = (gap, i, pred)
+        if worst is not None:
+            gap, i, pred = worst
+            for sev, frac in ((ERROR, 0.05), (WARNING, 0.01)):
+                # 1 % of LBP: UR L5's LCB tolerance is 1 % / 0.5 m (standards.md §5.3); 5 %: a datum slip
+                if gap > frac * L:
+                    self.add(sev, "hydrostatics.lcb_m", hp + ("lcb_m", i), _f(float(h.lcb_m[i])) + " from AP",
+                             f"the LCF column integrated over the displacement gives LCB {_f(pred)} here, "
+                             f"{_f(gap)} away (more than {frac:.0%} of LBP): LCB and LCF contradict each other",
+                             row(i), "hydro-lcb-lcf")
+                    break
+
+    def _check_mctc(self, row):
+        """MCTC against the waterplane (always) and against KML (when given).
+
+        Derived: MCTC = ρ·I_L/(100·LBP) and TPC = ρ·A/100, so c = 12·MCTC/(TPC·LBP) = 12·I_L/(A·LBP²).
+        I_L about the LCF is A times the variance of x over the waterplane: at most A·Lwl²/4
+        (Popoviciu), so c ≤ 3·(Lwl/LBP)² ≤ 4.32; at least that of the area packed in a strip of
+        breadth B (length A/B): I_L ≥ A³/(12·B²), so c ≥ Cw² with Cw = A/(LBP·B).  MCTC made
+        with GML < BML is lower by BG/BML, a few % (10 % allowed).
+        """
+        h, L, B, rho = self.v.hydrostatics, self.L, self.B, self.rho
+        hp = ("hydrostatics",)
+        for i in range(len(h.draft_m)):
+            tpc, mctc = float(h.tpc_t_cm[i]), float(h.mctc_tm_cm[i])
+            c = 12.0 * mctc / (tpc * L)
+            cw = 100.0 * tpc / rho / (L * B)
+            hi = 3.0 * WATERLINE_LENGTH_MAX ** 2 * (1 + METACENTRE_ALLOWANCE)
+            lo = 0.9 * cw * cw
+            wlo, whi = MCTC_SHAPE_DOUBT
+            sev = ERROR if not lo <= c <= hi else WARNING if not wlo <= c <= whi else None
+            if sev:
+                self.add(sev, "hydrostatics.mctc_tm_cm", hp + ("mctc_tm_cm", i), f"{mctc:.5g} t·m/cm",
+                         f"12·MCTC/(TPC·LBP) = {c:.3g} at {h.draft_m[i]:.4g} m: "
+                         + (f"no waterplane of this area and breadth gives that (bounds {lo:.2g}–{hi:.3g})" if sev == ERROR
+                            else f"outside {wlo:g}–{whi:g} (diamond 0.5, rectangle 1.0)"), row(i), "hydro-mctc")
+                break
+        if h.kml_m is None:
+            return
+        (wlo, whi), (elo, ehi) = MCTC_KML_RANGE
+        for i in range(len(h.draft_m)):
+            kb = float(h.vcb_m[i]) if h.vcb_m is not None else 0.55 * float(h.draft_m[i])  # KB ≈ 0.55 T (common practice)
+            bml = float(h.kml_m[i]) - kb
+            if bml <= 0:
+                self.add(ERROR, "hydrostatics.kml_m", hp + ("kml_m", i), _f(float(h.kml_m[i])),
+                         "KML is not above the centre of buoyancy", row(i), "hydro-mctc")
+                break
+            ratio = 100.0 * L * float(h.mctc_tm_cm[i]) / (float(h.displacement_t[i]) * bml)
+            sev = ERROR if not elo <= ratio <= ehi else WARNING if not wlo <= ratio <= whi else None
+            if sev:
+                self.add(sev, "hydrostatics.mctc_tm_cm", hp + ("mctc_tm_cm", i), f"{h.mctc_tm_cm[i]:.5g} t·m/cm",
+                         f"MCTC ≈ Δ·GML/(100·LBP) with GML ≤ BML = KML − KB = {_f(bml)}: the table's MCTC is "
+                         f"{ratio:.3g} × Δ·BML/(100·LBP), outside {(elo if sev == ERROR else wlo):g}–"
+                         f"{(ehi if sev == ERROR else whi):g}", row(i), "hydro-mctc-kml")
+                break
+
+    # ----------------------------------------------------------------- cross curves
+    def cross_curves(self):
+        k, h = self.v.cross_curves, self.v.hydrostatics
+        heel, disp, kn = k.heel_deg, k.displacement_t, k.kn_m
+        cp = ("cross_curves", "kn_m")
+        look = "the booklet's KN cross curves table"
+
+        def where(i, j):
+            return f"{look}, Δ {disp[i]:.6g} t at {heel[j]:g}°"
+
+        bound = math.hypot(self.B / 2.0, KN_ENVELOPE_DEPTHS * self.D)
+        found = False
+        for i in range(len(disp)):
+            for j in range(len(heel)):
+                x = float(kn[i, j])
+                if heel[j] == 0.0 and abs(x) > KN_ZERO_TOLERANCE_M:
+                    self.add(ERROR, "cross_curves.kn_m", cp + (i, j), _f(x),
+                             "KN at 0° must be zero: upright, the line of buoyancy passes through K", where(i, j), "kn-zero")
+                elif heel[j] > 0 and x < -KN_ZERO_TOLERANCE_M:
+                    self.add(ERROR, "cross_curves.kn_m", cp + (i, j), _f(x),
+                             "KN is negative: heeled to starboard, the centre of buoyancy moves to starboard "
+                             "and up, so KN = y_B·cosφ + z_B·sinφ ≥ 0", where(i, j), "kn-negative")
+                elif x > bound:
+                    self.add(ERROR, "cross_curves.kn_m", cp + (i, j), _f(x),
+                             f"longer than the distance from K to any buoyant point (√((B/2)² + (2·D)²) = {_f(bound)}): "
+                             "a decimal point slipped?", where(i, j), "kn-envelope")
+                else:
+                    continue
+                found = True
+        if found:
+            return  # the smooth-curve tests below would only repeat these
+
+        # Small heel against KMt from the hydrostatic table at the same displacement.
+        hd = h.displacement_t
+        done = False
+        for i in range(len(disp)):
+            if done or not hd[0] <= disp[i] <= hd[-1]:
+                continue
+            km = float(np.interp(disp[i], hd, h.kmt_m))
+            for j in range(len(heel)):
+                if not 0.0 < heel[j] <= 10.0:
+                    continue
+                ratio = float(kn[i, j]) / (km * math.sin(math.radians(float(heel[j]))))
+                tol = KN_SMALL_ANGLE[5.0] if heel[j] <= 5.0 else KN_SMALL_ANGLE[10.0]
+                off = abs(ratio - 1.0)
+                sev = ERROR if off > KN_SMALL_ANGLE_ERROR else WARNING if off > tol else None
+                if sev:
+                    self.add(sev, "cross_curves.kn_m", cp + (i, j), _f(float(kn[i, j])),
+                             f"at small heel KN ≈ KMt·sinφ = {_f(km * math.sin(math.radians(float(heel[j]))))} "
+                             f"(KMt {_f(km)} from the hydrostatic table): {off:.0%} apart"
+                             + ("" if sev == ERROR else " (deck edge immersing or bilge emerging before this angle?)"), where(i, j), "kn-kmt")
+                    done = True
+                    break
+
+        # Isolated outliers: an inner value far from the line between its neighbours, along
+        # heel and along displacement.
+        def resid(xs, ys, j):
+            """(|value − line through its neighbours|, that as a fraction of the line's value)."""
+            if j <= 0 or j >= len(xs) - 1:
+                return None
+            w = (xs[j] - xs[j - 1]) / (xs[j + 1] - xs[j - 1])
+            line = ys[j - 1] + w * (ys[j + 1] - ys[j - 1])
+            scale = max(abs(line), 0.05 * bound)  # near 0° the line is near zero: judge against 5 % of the envelope
+            return abs(ys[j] - line), abs(ys[j] - line) / scale
+
+        # A single slipped value also bends the lines through its neighbours (by half as much
+        # at even spacing), so the value judged is the one that departs most in metres.
+        wl, el = KN_OUTLIER
+        worst = None
+        for i in range(len(disp)):
+            for j in range(1, len(heel)):
+                both = [r for r in (resid(heel, kn[i, :], j), resid(disp, kn[:, j], i)) if r is not None]
+                if not both:
+                    continue
+                metres = min(r[0] for r in both)
+                frac = min(r[1] for r in both)
+                if frac > wl and (worst is None or metres > worst[0]):
+                    worst = (metres, frac, i, j, len(both))
+        if worst is not None:
+            _, frac, i, j, n = worst
+            sev = ERROR if frac > el else WARNING
+            along = "heel and displacement" if n == 2 else "heel" if 0 < j < len(heel) - 1 else "displacement"
+            self.add(sev, "cross_curves.kn_m", cp + (i, j), _f(float(kn[i, j])),
+                     f"stands out of a smooth curve: {frac:.0%} away from the line through its neighbours along "
+                     f"{along} (a shifted decimal point or a transposed digit?)", where(i, j), "kn-outlier")
+
+    # ----------------------------------------------------------------- tanks
+    def tanks(self):
+        for i, t in enumerate(self.v.tanks):
+            self.tank_fsi(i, t)
+            self.tank_centres(i, t)
+
+    def tank_fsi(self, i: int, t: Tank):
+        cal = t.calibration
+        s, v, fsi = cal.sounding_m, cal.volume_m3, cal.fsi_m4
+        look = f"the booklet's calibration table of tank {t.id} (free-surface column)"
+        if len(s) < 2 or not t.level_known:
+            return  # a capacity-only tank has no levels, so no surface area to bound its FSM by
+        areas = np.diff(v) / np.diff(s)  # mean free-surface area of each step (m²)
+        constant = t.fsi_given == "max" or bool(np.all(fsi == fsi[0]))
+        B = self.B
+        for r in range(len(s)):
+            if constant:
+                area = float(np.max(areas))  # one value per tank: must fit the largest surface
+            else:
+                neigh = [areas[r - 1]] if r > 0 else []
+                if r < len(areas):
+                    neigh.append(areas[r])
+                area = float(max(neigh))
+            box = area * B * B / 12.0
+            hard = FSI_AREA_FACTOR * area * B * B / 4.0
+            x = float(fsi[r])
+            sev = ERROR if x > hard else WARNING if x > FSI_BOX_ALLOWANCE * box else None
+            if sev:
+                empty = " (at the empty row)" if r == 0 and not constant else ""
+                self.add(sev, f"tank[{t.id}].calibration.fsi_m4", ("tank", i, "calibration", "fsi_m4", r),
+                         f"{x:.5g} m⁴ (FSM {x * t.density_t_m3:.4g} t·m at {t.density_t_m3:g} t/m³)",
+                         f"above what the tank's own surface allows{empty}: its calibration gives a surface of "
+                         f"{area:.4g} m², and "
+                         + (f"no surface of that area within the breadth {B:g} m exceeds A·B²/4 = {area * B * B / 4:.4g} m⁴ "
+                            "(even doubling the area)" if sev == ERROR
+                            else f"a box of that area {B:g} m wide has A·B²/12 = {box:.4g} m⁴"),
+                         look, "tank-fsi")
+                return
+        if not constant and v[0] == 0 and fsi[0] > EMPTY_FSI_RISE * fsi[1] + 1e-9:
+            self.add(WARNING, f"tank[{t.id}].calibration.fsi_m4", ("tank", i, "calibration", "fsi_m4", 0),
+                     f"{float(fsi[0]):.5g} m⁴ at the empty row",
+                     f"non-zero when empty and larger than just above ({float(fsi[1]):.5g} m⁴): an empty tank has no "
+                     "free surface, and its bottom-most surface is no larger than the one above it", look, "tank-fsi-empty")
+
+    def tank_centres(self, i: int, t: Tank):
+        """The liquid added between two calibration rows lies inside the ship and inside its layer.
+
+        Derived: between rows k−1 and k the added volume ΔV has its centroid at
+        c_slab = (V_k·c_k − V_{k−1}·c_{k−1})/ΔV, which lies inside the hull (x, y), and
+        between the two levels: z_bottom + s_{k−1} ≤ z_slab ≤ z_bottom + s_k, for one
+        tank-bottom height z_bottom common to all rows.  Rounding of the printed centres
+        (half a centimetre) and volumes (0.05 % of capacity) is allowed, amplified as the
+        formula amplifies it.
+        """
+        cal = t.calibration
+        s, V = cal.sounding_m, cal.volume_m3
+        look = f"the booklet's calibration table of tank {t.id}"
+        L, B = self.L, self.B
+        if not t.level_known:
+            return  # capacity and centre only: one fixed centre, no layers to check
+        e, ev = CENTRE_ROUNDING_M, VOLUME_ROUNDING_REL * t.capacity_m3
+        zb_lo, zb_hi = -math.inf, math.inf
+        tp = ("tank", i, "calibration")
+        for k in range(1, len(s)):
+            dv = float(V[k] - V[k - 1])
+            if dv <= 0:
+                continue
+            va, vb = float(V[k - 1]), float(V[k])
+            for col in ("lcg_m", "tcg_m", "vcg_m"):
+                arr = getattr(cal, col)
+                ca, cb = float(arr[k - 1]), float(arr[k])
+                slab = (vb * cb - va * ca) / dv
+                tol = (va + vb) * e / dv + (abs(ca) + abs(cb)) * ev / dv
+                key = f"tank[{t.id}].calibration.{col}"
+                val = f"{_f(cb)} at sounding {s[k]:.4g} m"
+                if col == "lcg_m" and not -ENVELOPE_X_FRACTION * L - tol <= slab <= (1 + ENVELOPE_X_FRACTION) * L + tol:
+                    self.add(ERROR, key, tp + (col, k), val,
+                             f"the liquid added from {s[k - 1]:.4g} to {s[k]:.4g} m would have its centre at x = {_f(slab)}, "
+                             "outside the vessel: this centre or the one above it is mistyped", look, "tank-centre")
+                    return
+                if col == "tcg_m" and abs(slab) > B / 2 + tol:
+                    self.add(ERROR, key, tp + (col, k), val,
+                             f"the liquid added from {s[k - 1]:.4g} to {s[k]:.4g} m would have its centre at y = {_f(slab)}, "
+                             "outside the breadth: this centre or the one above it is mistyped", look, "tank-centre")
+                    return
+                if col == "vcg_m":
+                    lo = max(zb_lo, slab - float(s[k]) - tol, cb - float(s[k]) - e)
+                    hi = min(zb_hi, slab - float(s[k - 1]) + tol, cb + e)
+                    if lo > hi:
+                        self.add(ERROR, key, tp + (col, k), val,
+                                 f"the contents' centres leave the tank: the liquid added from {s[k - 1]:.4g} to "
+                                 f"{s[k]:.4g} m would have its centre at {_f(slab)} above the keel, which no tank "
+                                 "bottom height makes lie within that layer together with the rows below", look, "tank-centre")
+                        return
+                    zb_lo, zb_hi = lo, hi
+
+    # ----------------------------------------------------------------- curves against displacement
+    def curves(self):
+        v = self.v
+        h = v.hydrostatics
+        light, top = v.lightship.mass_t, float(h.displacement_t[-1])
+        for name, curve, look in (("limit_curve", v.limit_curve, "the booklet's limiting KG / GM curve"),
+                                  ("downflooding", v.downflooding, "the booklet's downflooding angle curve")):
+            if curve is None:
+                continue
+            d = curve.displacement_t
+            if float(d[-1]) < light or float(d[0]) > top:
+                drafts = " They look like drafts (m): a curve against draft typed as against displacement?" \
+                    if float(d[-1]) <= self.D + 1e-9 else ""
+                self.add(ERROR, f"{name}.displacement_t", (name, "displacement_t", 0),
+                         f"{float(d[0]):.5g}–{float(d[-1]):.5g} t",
+                         f"the curve lies wholly outside the displacements she can have (lightship {light:.5g} t to "
+                         f"the table's {top:.5g} t): it can never be used.{drafts}", look, "curve-range")
+        k = v.cross_curves
+        if float(k.displacement_t[-1]) < float(h.displacement_t[0]) or float(k.displacement_t[0]) > top:
+            self.add(ERROR, "cross_curves.displacement_t", ("cross_curves", "displacement_t", 0),
+                     f"{float(k.displacement_t[0]):.5g}–{float(k.displacement_t[-1]):.5g} t",
+                     f"no overlap with the hydrostatic table's {float(h.displacement_t[0]):.5g}–{top:.5g} t",
+                     "the booklet's KN table (displacement column)", "curve-range")
+
+
+def audit(vessel: Vessel) -> tuple[Finding, ...]:
+    """Every plausibility finding on ``vessel``, errors first, each group in profile order."""
+    a = _Audit(vessel)
+    a.positions()
+    a.lightship_trim()
+    a.pairs()
+    a.hydrostatics()
+    a.cross_curves()
+    a.tanks()
+    a.curves()
+    return tuple(sorted(a.out, key=lambda f: 0 if f.severity == ERROR else 1))
+
+
+def has_errors(findings) -> bool:
+    return any(f.severity == ERROR for f in findings)

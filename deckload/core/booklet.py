@@ -1,0 +1,163 @@
+"""The booklet's worked conditions as the acceptance test: deckload's result beside the booklet's.
+
+Before a loading instrument is accepted, its results for the approved booklet's own
+loading conditions are compared with the booklet's, row by row, each within the
+tolerance of MSC.1/Circ.1229 (Annex, §4 table) and IACS UR L5 Table 1, as listed in
+standards.md §5.3.  Rules applied as written there (standards.md §5.2):
+
+* the deviation is taken against the booklet's value (the base value);
+* where two values are given ("1 % / 5 cm max"), the percentage of the base value applies
+  but may not exceed the linear value (Circ.1461 §5.1 wording);
+* the TCG row is a percentage of the breadth B, not of the value.
+
+Trim has no row of its own in the table: it is the difference of the aft and forward
+draughts, so its tolerance here is the sum of theirs (derived).
+
+Pure: no files; the booklet's numbers arrive as a mapping (see vessel_profiles/README.md,
+"Booklet conditions").
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+import numpy as np
+
+from deckload.core.result import Result
+
+SOURCE = "standards.md §5.3 (MSC.1/Circ.1229; IACS UR L5 Table 1)"
+
+
+@dataclass(frozen=True)
+class Tolerance:
+    """'pct % / linear max' (either may be None); ``of_breadth``: the % is of B, not of the value."""
+
+    pct: float | None
+    linear: float | None
+    row: str
+    """The row of the tolerance table it comes from."""
+    of_breadth: bool = False
+
+    def allowed(self, base: float, breadth_m: float) -> float:
+        """The largest |deckload − booklet| accepted for a booklet value ``base``."""
+        parts = []
+        if self.pct is not None:
+            parts.append(self.pct / 100.0 * (breadth_m if self.of_breadth else abs(base)))
+        if self.linear is not None:
+            parts.append(self.linear)
+        return min(parts)
+
+    def text(self, unit: str) -> str:
+        if self.pct is None:
+            return f"{self.linear:g} {unit}"
+        pct = f"{self.pct:g} %" + (" of B" if self.of_breadth else "")
+        return pct if self.linear is None else f"{pct} / {self.linear:g} {unit} max"
+
+
+DRAUGHT = Tolerance(1.0, 0.05, "draughts")
+GZ = Tolerance(5.0, 0.05, "GZ values")
+
+QUANTITIES: dict[str, tuple[str, str, Tolerance | None]] = {
+    # key: (label, unit, tolerance)  — tolerance None: worked out per row (trim, GZ)
+    "displacement_t": ("displacement", "t", Tolerance(2.0, None, "displacement")),
+    "deadweight_t": ("deadweight", "t", Tolerance(2.0, None, "volume or deadweight")),
+    "lcg_m": ("LCG from AP", "m", Tolerance(1.0, 0.50, "LCG")),
+    "tcg_m": ("TCG", "m", Tolerance(0.5, 0.05, "TCG", of_breadth=True)),
+    "kg_m": ("KG solid", "m", Tolerance(1.0, 0.05, "VCG")),
+    "fsm_tm": ("free-surface moment", "t·m", Tolerance(2.0, None, "free surface moment")),
+    "fsc_m": ("FS correction", "m", Tolerance(2.0, None, "FS correction")),
+    "kg_fluid_m": ("KG fluid", "m", Tolerance(1.0, 0.05, "VCG")),
+    "km_m": ("KMt", "m", Tolerance(1.0, 0.05, "KMt")),
+    "gm_solid_m": ("GM solid", "m", Tolerance(1.0, 0.05, "GMt")),
+    "gm_m": ("GM fluid", "m", Tolerance(1.0, 0.05, "GMt")),
+    "draft_aft_m": ("draft aft", "m", DRAUGHT),
+    "draft_mid_m": ("draft midships", "m", DRAUGHT),
+    "draft_fwd_m": ("draft forward", "m", DRAUGHT),
+    "trim_m": ("trim (+ by stern)", "m", None),
+    "list_deg": ("list (+ starboard)", "°", Tolerance(None, 1.0, "equilibrium angles")),
+    "max_gz_m": ("maximum GZ", "m", GZ),
+    "area_0_30_mrad": ("area 0–30°", "m·rad", Tolerance(5.0, 0.0012, "areas under GZ")),
+    "area_0_40_mrad": ("area 0–40° (or θf)", "m·rad", Tolerance(5.0, 0.0012, "areas under GZ")),
+    "area_30_40_mrad": ("area 30–40° (or θf)", "m·rad", Tolerance(5.0, 0.0012, "areas under GZ")),
+    "downflooding_angle_deg": ("downflooding angle", "°", Tolerance(None, 2.0, "downflooding angle")),
+}
+"""The booklet results that can be compared, in the order printed."""
+
+_FROM_RESULT = {
+    "displacement_t": "displacement_t", "deadweight_t": "deadweight_t", "lcg_m": "lcg_m", "tcg_m": "tcg_m",
+    "kg_m": "kg_m", "fsm_tm": "fsm_total_tm", "fsc_m": "fsc_m", "kg_fluid_m": "kg_fluid_m", "km_m": "km_m",
+    "gm_solid_m": "gm_solid_m", "gm_m": "gm_fluid_m", "draft_aft_m": "draft_aft_m", "draft_mid_m": "draft_mean_m",
+    "draft_fwd_m": "draft_fwd_m", "trim_m": "trim_m", "list_deg": "list_deg", "max_gz_m": "max_gz_m",
+    "area_0_30_mrad": "area_0_30_mrad", "area_0_40_mrad": "area_0_40_mrad", "area_30_40_mrad": "area_30_40_mrad",
+    "downflooding_angle_deg": "downflooding_angle_deg",
+}
+
+ROUNDOFF = 1e-9
+"""Floating-point allowance on a comparison exactly at the tolerance."""
+
+
+@dataclass(frozen=True)
+class Row:
+    """One line of the side-by-side table."""
+
+    key: str
+    """The expected key, e.g. 'gm_m', or 'gz_m@30' for GZ at 30°."""
+    label: str
+    unit: str
+    booklet: float
+    deckload: float | None
+    """None when deckload cannot give the value (e.g. an angle beyond the KN table)."""
+    allowed: float
+    """Largest accepted |deckload − booklet| (same unit)."""
+    tolerance: str
+    """The tolerance rule in words, with its table row, e.g. '1 % / 0.05 m max (GMt)'."""
+    passed: bool
+    note: str = ""
+
+    @property
+    def difference(self) -> float | None:
+        return None if self.deckload is None else self.deckload - self.booklet
+
+
+def compare(result: Result, expected: dict, breadth_m: float) -> tuple[Row, ...]:
+    """Rows for every booklet value given in ``expected``.
+
+    ``expected`` maps the keys of :data:`QUANTITIES` to the booklet's numbers, and may
+    hold ``gz`` = a sequence of (heel_deg, gz_m) pairs.  GZ is read on the side the
+    criteria were checked on (the side she lists to), as the booklet's curve is.
+    """
+    rows: list[Row] = []
+    for key, (label, unit, tol) in QUANTITIES.items():
+        if key not in expected:
+            continue
+        base = float(expected[key])
+        got = getattr(result, _FROM_RESULT[key])
+        got = None if got is None else float(got)
+        note = "" if got is not None else "deckload has no value here (no downflooding data?)"
+        if key == "trim_m":
+            aft = float(expected.get("draft_aft_m", result.draft_aft_m))
+            fwd = float(expected.get("draft_fwd_m", result.draft_fwd_m))
+            allowed = DRAUGHT.allowed(aft, breadth_m) + DRAUGHT.allowed(fwd, breadth_m)
+            words = "aft + forward draught tolerances (derived)"
+        else:
+            allowed = tol.allowed(base, breadth_m)
+            words = f"{tol.text(unit)} ({tol.row})"
+        rows.append(_row(key, label, unit, base, got, allowed, words, note))
+    curve_heel = np.asarray(result.gz_heel_deg, dtype=float)
+    curve = np.asarray(result.gz_port_m if result.criteria_side == "port" else result.gz_m, dtype=float)
+    for heel, base in expected.get("gz", ()):
+        heel, base = float(heel), float(base)
+        if heel > result.gz_end_deg + ROUNDOFF or heel > curve_heel[-1] + ROUNDOFF:
+            got, note = None, f"beyond the KN table's last angle {result.gz_end_deg:g}°"
+        else:
+            got, note = float(np.interp(heel, curve_heel, curve)), ""
+        allowed = GZ.allowed(base, breadth_m)
+        rows.append(_row(f"gz_m@{heel:g}", f"GZ at {heel:g}°", "m", base, got, allowed,
+                         f"{GZ.text('m')} ({GZ.row})", note))
+    return tuple(rows)
+
+
+def _row(key, label, unit, base, got, allowed, words, note) -> Row:
+    ok = got is not None and math.isfinite(got) and abs(got - base) <= allowed + ROUNDOFF * max(1.0, abs(base))
+    return Row(key, label, unit, base, got, allowed, words, ok, note)

@@ -1,0 +1,223 @@
+"""The physical bounds of every number a file or a keystroke can reach, from the vessel's own extent.
+
+One place for them: the profile and condition readers (:mod:`deckload.physcheck`) and the
+screen's forms (:mod:`deckload.ui.entry`) both ask here, so that no file can produce a result
+the screen could not, and no result can pass that the ship could not float in.
+
+Every range is derived from the particulars (LBP, breadth B, depth D), the table density ρ
+and the hydrostatic table, with the reasoning beside it:
+
+* **Positions.**  x from −0.2·LBP to 1.2·LBP (overhangs, rudder and bow beyond the
+  perpendiculars), |y| ≤ B/2, z from the keel to D + 30 m (masts and deck stows).  These are
+  the limits the item form has always used (common practice for an envelope check).
+* **Hull box.**  The hull lies inside a box of length 1.2·LBP (overall length; the audit's
+  waterline bound), breadth B and height depth + 30 m: a compartment's volume, a deck area
+  and a transfer moment (volume × the largest centroid shift, √(B² + z_max²)) are at most
+  the box's.  Derived: every section inside the box has less.
+* **Profile tables** (positions of tanks and lightship, hydrostatic rows, KN, free-surface
+  inertias) are judged by the plausibility audit (:mod:`deckload.core.audit`) on the same
+  envelope, which every command runs before it uses a profile.
+* **Masses.**  No item can weigh more than the vessel's greatest tabulated displacement
+  less her lightship (she would not float: Δ beyond the table is refused anyway, but a
+  single item past it is an input mistake to name at its key).
+* **Particulars** themselves: LBP 1–500 m, B and D 0.2–100 m and neither above LBP (every
+  ship afloat is within these; common practice).
+
+The evaluation's last step (:func:`checked_result`) refuses any non-finite number and any
+result whose end drafts leave the range the upright, even-keel tables describe (keel out of
+the water at an end, or an end deeper than the table reaches): such a condition cannot be
+assessed from these tables and must never be called compliant.
+"""
+
+from __future__ import annotations
+
+import dataclasses
+import functools
+import math
+from dataclasses import dataclass
+
+import numpy as np
+
+from deckload.core.audit import ENVELOPE_X_FRACTION
+from deckload.core.model import Particulars, Vessel
+from deckload.core.tables import OutOfRangeError
+
+AFT_OVERHANG = ENVELOPE_X_FRACTION
+"""How far beyond either perpendicular a position may lie, as a fraction of LBP: the plausibility
+audit's envelope (deckload.core.audit), so the profile audit, the readers and the forms agree."""
+LENGTH_FACTOR = 1.0 + AFT_OVERHANG
+"""A hull is at most 1.2·LBP long overall (common practice; the audit's waterline bound too)."""
+ABOVE_DEPTH_M = 30.0
+"""How far above the depth a centre of gravity may lie (masts, deck stows), m (common practice)."""
+
+WATER_DENSITY_RANGE_T_M3 = (0.99, 1.04)
+"""The water a vessel floats in (t/m³): fresh river water 1.000 to dense sea water (common practice)."""
+
+LBP_RANGE_M = (1.0, 500.0)
+BEAM_DEPTH_RANGE_M = (0.2, 100.0)
+
+
+@dataclass(frozen=True)
+class Range:
+    """An allowed closed interval with its unit and the reason, worded for a message."""
+
+    low: float
+    high: float
+    unit: str
+    why: str
+
+    def rule(self, x: float) -> str | None:
+        """None when ``x`` is a finite number inside, else the broken rule in words."""
+        if not isinstance(x, (int, float)) or isinstance(x, bool) or not math.isfinite(x):
+            return f"must be a finite number ({self.why})"
+        if self.low <= x <= self.high:
+            return None
+        side = "below" if x < self.low else "above"
+        return (f"{side} the physical limit: must be between {_n(self.low)} and {_n(self.high)} {self.unit} "
+                f"({self.why})")
+
+    def __contains__(self, x: float) -> bool:
+        return self.rule(x) is None
+
+
+def _n(x: float) -> str:
+    return f"{x:.6g}"
+
+
+# --------------------------------------------------------------------------- particulars
+
+
+def lbp_range() -> Range:
+    return Range(*LBP_RANGE_M, "m", "length between perpendiculars of a ship")
+
+
+def beam_range(lbp_m: float) -> Range:
+    return Range(BEAM_DEPTH_RANGE_M[0], min(BEAM_DEPTH_RANGE_M[1], lbp_m), "m", "0.2 m up to the LBP")
+
+
+def depth_range(lbp_m: float) -> Range:
+    return Range(BEAM_DEPTH_RANGE_M[0], min(BEAM_DEPTH_RANGE_M[1], lbp_m), "m", "0.2 m up to the LBP")
+
+
+# --------------------------------------------------------------------------- positions
+
+
+def x_range(p: Particulars) -> Range:
+    """Longitudinal positions from the AP: −0.2·LBP … 1.2·LBP."""
+    return Range(-AFT_OVERHANG * p.lbp_m, (1 + AFT_OVERHANG) * p.lbp_m, "m",
+                 "from 0.2·LBP aft of the aft perpendicular to 0.2·LBP forward of the forward one")
+
+
+def y_range(p: Particulars) -> Range:
+    """Transverse positions: within half the breadth of the centreline."""
+    return Range(-p.breadth_m / 2, p.breadth_m / 2, "m", "within half the breadth of the centreline")
+
+
+def z_max_m(p: Particulars) -> float:
+    return p.depth_m + ABOVE_DEPTH_M
+
+
+def z_range(p: Particulars) -> Range:
+    """Heights above the keel: 0 … depth + 30 m."""
+    return Range(0.0, z_max_m(p), "m", f"from the keel to {_n(ABOVE_DEPTH_M)} m above the depth")
+
+
+# --------------------------------------------------------------------------- hull box
+
+
+def box_length_m(p: Particulars) -> float:
+    return LENGTH_FACTOR * p.lbp_m
+
+
+def area_range(p: Particulars) -> Range:
+    return Range(0.0, box_length_m(p) * p.breadth_m, "m²", "at most 1.2·LBP × breadth")
+
+
+def volume_range(p: Particulars) -> Range:
+    """A compartment's volume: at most the box 1.2·LBP × B × (depth + 30 m)."""
+    return Range(0.0, box_length_m(p) * p.breadth_m * z_max_m(p), "m³",
+                 "at most the box 1.2·LBP × breadth × (depth + 30 m)")
+
+
+def transfer_moment_range(p: Particulars, capacity_m3: float) -> Range:
+    r = capacity_m3 * math.hypot(p.breadth_m, z_max_m(p))
+    return Range(-r, r, "m⁴", "the tank's volume times the largest shift inside the hull")
+
+
+# --------------------------------------------------------------------------- masses
+
+
+def max_displacement_t(v: Vessel) -> float:
+    return float(v.hydrostatics.displacement_t[-1])
+
+
+def item_mass_range(v: Vessel) -> Range:
+    """One item's mass: 0 … the greatest tabulated displacement less the lightship."""
+    high = max(0.0, max_displacement_t(v) - v.lightship.mass_t)
+    return Range(0.0, high, "t", "at most the greatest displacement in the hydrostatic table less the lightship")
+
+
+def lightship_mass_range(v: Vessel) -> Range:
+    return Range(0.0, max_displacement_t(v), "t", "at most the greatest displacement in the hydrostatic table")
+
+
+# --------------------------------------------------------------------------- the evaluation's last step
+
+
+class NonFiniteResultError(ValueError):
+    """A computed number came out infinite or not-a-number: the result is refused."""
+
+
+class BeyondTablesError(OutOfRangeError):
+    """The condition puts an end of the ship where the upright tables do not reach."""
+
+
+def _non_finite(obj, path: str) -> str | None:
+    if isinstance(obj, bool) or obj is None or isinstance(obj, str):
+        return None
+    if isinstance(obj, (int, float)):
+        return None if math.isfinite(obj) else path
+    if dataclasses.is_dataclass(obj):
+        for f in dataclasses.fields(obj):
+            bad = _non_finite(getattr(obj, f.name), f"{path}.{f.name}" if path else f.name)
+            if bad:
+                return bad
+        return None
+    if isinstance(obj, (tuple, list)):
+        for i, x in enumerate(obj):
+            bad = _non_finite(x, f"{path}[{i}]")
+            if bad:
+                return bad
+    if hasattr(obj, "dtype") and hasattr(obj, "tolist"):  # numpy scalars/arrays
+        return _non_finite(obj.tolist(), path)
+    return None
+
+
+def checked_result(vessel: Vessel, result):
+    """``result`` if every number in it is finite and both end drafts lie in 0 … the table's
+    greatest draft; else raise (:class:`NonFiniteResultError`, :class:`BeyondTablesError`)."""
+    bad = _non_finite(result, "")
+    if bad:
+        raise NonFiniteResultError(f"the computed {bad} is not a finite number: the result is refused "
+                                   "(check the condition's masses and positions)")
+    top = float(vessel.hydrostatics.draft_m[-1])
+    for name, d in (("draft aft", result.draft_aft_m), ("draft forward", result.draft_fwd_m)):
+        if not 0.0 <= d <= top * (1 + 1e-9):
+            err = BeyondTablesError(f"{name} (trim {result.trim_m:.3g} m)", d, 0.0, top, "m")
+            err.args = (f"{name} {d:.4g} m (trim {result.trim_m:.4g} m) is outside 0–{top:.4g} m, the range the "
+                        "upright hydrostatic tables describe: this condition cannot be assessed from them "
+                        "(check the positions and masses of the loads)",)
+            raise err
+    return result
+
+
+def bounded(evaluate):
+    """Decorator for the evaluation entry point: its result passes :func:`checked_result`."""
+
+    @functools.wraps(evaluate)
+    def wrapper(vessel: Vessel, condition, *args, **kwargs):
+        # Floating-point warnings are not shown: a non-finite number is refused just below instead.
+        with np.errstate(all="ignore"):
+            return checked_result(vessel, evaluate(vessel, condition, *args, **kwargs))
+
+    return wrapper

@@ -1,0 +1,115 @@
+"""Moment to change trim from the actual longitudinal metacentric height, and the trim it gives.
+
+MCT 1 cm = Δ·GM_L/(100·LBP) with GM_L = KM_L − KG (standards.md §6.3, textbook;
+Barrass & Derrett, *Ship Stability for Masters and Mates*, 5th ed., chapter on
+MCTC).  A booklet's MCTC column cannot know KG: it is made with BM_L standing for
+GM_L (common practice; checks.md §1.1 shows the size of it for a box barge,
+13.2567 t·m/cm with GM_L against 13.6667 with BM_L), which makes the trim about
+KG/BM_L too small — for a short, deep vessel several per cent.
+
+Where the profile tabulates KM_L the moment is worked from the actual KG fluid:
+GM_L = KM_L − KG_fluid, KM_L read at the table-equivalent displacement (the same
+immersed volume, so the same KM_L whatever the water density) and Δ the actual
+displacement.  Where it does not, the tabulated MCTC (scaled for density) is used
+and the result carries a caution saying so.
+
+The free-surface correction of KG is the transverse one (ΣFSM/Δ); using it for
+the longitudinal height too lowers GM_L by FSC, a conservative choice (it makes
+the trim slightly larger) whose size is FSC/GM_L, a fraction of a per cent for
+any ship (common practice).
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+
+from deckload.core.hydrostatics import Upright
+from deckload.core.loading import LoadingError
+from deckload.core.model import CrossCurves, Vessel
+from deckload.core.tables import bracket, lerp_row
+
+BASIS_GML = "GML"
+"""MCTC = Δ·(KML − KG fluid)/(100·LBP)."""
+BASIS_TABLE = "table"
+"""MCTC from the booklet's column (made with BML for GML)."""
+
+
+class TrimError(LoadingError):
+    """The condition has no longitudinal stability to trim with (KG above KM_L)."""
+
+
+@dataclass(frozen=True)
+class TrimMoment:
+    mctc_tm_cm: float
+    """Moment to change trim 1 cm (t·m/cm) used for the trim."""
+    basis: str
+    """:data:`BASIS_GML` or :data:`BASIS_TABLE`."""
+    kml_m: float | None
+    """KM_L at the displacement (m) when the profile has it."""
+    gml_m: float | None
+    """GM_L = KM_L − KG fluid (m) when the profile has KM_L."""
+
+
+def kml_at(vessel: Vessel, table_displacement_t: float) -> float | None:
+    """KM_L (m) at a table-equivalent displacement, or None when the profile has no KM_L column."""
+    h = vessel.hydrostatics
+    if h.kml_m is None:
+        return None
+    i, f = bracket(h.displacement_t, table_displacement_t, "displacement (hydrostatic table, at table density)", "t")
+    return float(lerp_row(h.kml_m, i, f))
+
+
+def trim_moment(vessel: Vessel, hy: Upright, displacement_t: float, kg_fluid_m: float) -> TrimMoment:
+    """MCT 1 cm for the actual KG where KM_L is known, else the tabulated one (module docstring)."""
+    kml = kml_at(vessel, hy.table_displacement_t)
+    if kml is None:
+        return TrimMoment(hy.mctc_tm_cm, BASIS_TABLE, None, None)
+    gml = kml - kg_fluid_m
+    if not gml > 0.0:
+        raise TrimError(f"KG fluid {kg_fluid_m:.3f} m is not below KML {kml:.3f} m: "
+                        "no longitudinal stability, no trim can be computed")
+    mctc = displacement_t * gml / (100.0 * vessel.particulars.lbp_m)
+    return TrimMoment(mctc, BASIS_GML, kml, gml)
+
+
+KN_REFERENCE_FRACTION = 0.01
+"""G more than this fraction of LBP from the LCG the free-trim KN were made for draws a caution.
+
+deckload's own threshold.  Free-trim cross curves hold B in line with one LCG at every
+heel; with G elsewhere the vessel trims differently as she heels and her KN differ.
+On the demo hull (38 m, by direct calculation from its geometry) 0.6 m (1.6 % of LBP)
+moves KN by up to 9 mm and 1.6 m by up to 39 mm at 30°–45°, against UR L5's 5 cm."""
+
+
+def kn_reference_note(cc: CrossCurves, lcg_m: float, lbp_m: float) -> str | None:
+    """A caution when G is far fore or aft of the LCG the free-trim KN were made for, else None.
+
+    Curves that do not state their reference LCG (``cross_curves.reference_lcg_m``) cannot
+    be judged and draw no note; vessel_profiles/README.md asks for the key.
+    """
+    if cc.trim_basis != "free trim" or cc.reference_lcg_m is None:
+        return None
+    off = lcg_m - cc.reference_lcg_m
+    if abs(off) <= KN_REFERENCE_FRACTION * lbp_m:
+        return None
+    where = "forward of" if off > 0 else "abaft"
+    return f"G is {abs(off):.2f} m {where} the KN's free-trim LCG {cc.reference_lcg_m:.2f} m: GZ may be off by cm"
+
+
+EVEN_KEEL_TRIM_FRACTION = 0.01
+"""Trim beyond this fraction of LBP draws a caution: the tables are for even keel.
+
+deckload's own threshold.  Hydrostatic tables and KN made at even keel assume the
+waterplane of an upright, untrimmed ship; trimmed, the waterplane and the immersed
+ends change and the tables' draft, LCF, KMt and KN drift from the ship's.  Booklets
+that give trimmed tables do so for this reason (MSC.1/Circ.1229 4.5 lets pre-programmed
+booklet data differ 'for trims outside the booklet', standards.md §5.2)."""
+
+
+def even_keel_note(trim_m: float, lbp_m: float) -> str | None:
+    """A caution when the trim is more than 1 % of LBP from the even keel the tables were made at."""
+    if abs(trim_m) <= EVEN_KEEL_TRIM_FRACTION * lbp_m:
+        return None
+    way = "by the stern" if trim_m > 0 else "by the head"
+    return (f"trim {abs(trim_m):.2f} m {way} ({100 * abs(trim_m) / lbp_m:.1f} % of LBP): the tables are for "
+            "even keel; drafts and KN less certain")

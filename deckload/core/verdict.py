@@ -1,0 +1,383 @@
+"""Which criteria sets apply, their results, and what was not assessed.
+
+Called by :func:`deckload.core.stability.evaluate` once the GZ curve is known.  The sets
+follow the vessel's type (``[criteria] ship_type``, :data:`criteria.SETS_BY_TYPE`):
+
+* general: IS 2008 Part A 2.2 + Part A 2.3 (weather);
+* fishing: Part B 2.1 + Part A 2.3 (wind pressure by height for 24–45 m, Part B 2.1.4);
+* passenger: Part A 2.2 + 2.3 + Part A 3.1 (heel from crowding and from turning);
+* offshore supply: Part B 2.4.5 alternative criteria + Part A 2.3;
+
+plus the limiting KG/GM curve and any flag-State or class criteria written in the profile.
+Part A applies to ships of 24 m and over (IS 2008 Introduction; passenger ships of any
+length): below 24 m the sets are still shown, with a note that national rules govern.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+import numpy as np
+
+from deckload.core import gz as gzmod
+from deckload.core import weather as wx
+from deckload.core.criteria import (
+    EXTRA_SET,
+    PASSENGER_SET,
+    SET_TITLES,
+    SETS_BY_TYPE,
+    WEATHER_SET,
+    Measures,
+    evaluate_criteria,
+    extra_criterion_result,
+)
+from deckload.core.model import Vessel
+from deckload.core.result import AssessedSet, CriterionResult, NotAssessed, WeatherResult
+from deckload.core.tables import OutOfRangeError, interp
+
+IS_CODE_MIN_LENGTH_M = 24.0
+"""IS 2008 applies to ships of 24 m and over unless stated (standards.md §3.6 [C])."""
+
+PASSENGER_HEEL_LIMIT_DEG = 10.0
+"""Heel from crowding and from turning ≤ 10° each: IS 2008 Part A 3.1 (standards.md §3.1 [C]; checks row 28)."""
+
+PASSENGERS_PER_M2 = 4.0
+"""Crowding density on free deck area (standards.md §3.1: [M] that IS 2008 uses it)."""
+
+KNOT_M_S = 1852.0 / 3600.0
+
+NEVER_ASSESSED: tuple[NotAssessed, ...] = (
+    NotAssessed("damage stability", "not computed by deckload"),
+    NotAssessed("grain heeling (SOLAS VI, International Grain Code)", "not computed by deckload"),
+    NotAssessed("icing allowance (IS Code 2008 Part B 6)", "not computed by deckload"),
+    NotAssessed("longitudinal strength (shear forces, bending moments)", "not computed by deckload"),
+)
+"""What a master might expect from a loading computer and deckload never computes."""
+
+
+@dataclass(frozen=True)
+class Afloat:
+    """The condition's numbers the criteria are measured on (SI; angles in degrees)."""
+
+    displacement_t: float
+    water_density_t_m3: float
+    draft_mid_m: float
+    kg_fluid_m: float
+    gm_fluid_m: float
+    heel_deg: np.ndarray
+    """The fine heel grid of :mod:`gz` (0–90°)."""
+    gz_lee_m: np.ndarray
+    """GZ heeling to the side the criteria are checked on."""
+    gz_other_m: np.ndarray
+    """GZ heeling to the other side."""
+    flood_deg: float | None
+    deck_edge_deg: float
+    measures: Measures
+    max_gz_m: float
+    vanishing_deg: float | None
+    equilibrium_deg: float
+    """Heel of equilibrium on the checked side (≥ 0)."""
+    has_deck_cargo: bool = False
+    deck_windage: tuple[tuple[float, float], ...] = ()
+    """(lateral area m², height of its centre above the keel m) of each deck item that states it."""
+    deck_items_without_windage: tuple[str, ...] = ()
+    """Names of the deck items that do not state their windage."""
+
+
+@dataclass(frozen=True)
+class Verdict:
+    criteria: tuple[CriterionResult, ...]
+    sets: tuple[AssessedSet, ...]
+    not_assessed: tuple[NotAssessed, ...]
+    weather: WeatherResult | None
+    cautions: tuple[str, ...]
+
+
+def _crit(cid: str, desc: str, value: float, limit: float, unit: str, comp: str, source: str,
+          set_id: str, note: str = "", assessed: bool = True) -> CriterionResult:
+    passed = assessed and (bool(value >= limit) if comp == ">=" else bool(value <= limit))
+    return CriterionResult(cid, desc, value, limit, unit, comp, passed, source, note, set_id=set_id,
+                           assessed=assessed)
+
+
+def _first_heel(heel_deg: np.ndarray, gz: np.ndarray, lever_m: float) -> float | None:
+    """First angle from 0° where GZ rises through a constant heeling lever (None: never)."""
+    curve = wx.Curve(heel_deg, gz)
+    if curve.at(0.0) >= lever_m:
+        return 0.0
+    return curve.crossing(lever_m, 0.0, rising=True)
+
+
+def windage_at(vessel: Vessel, draft_m: float) -> tuple[float, float, float] | None:
+    """(A m², centre of A above the waterline m, Lwl m) at a mean draft, None outside the table."""
+    w = vessel.windage
+    if w is None:
+        return None
+    try:
+        return (interp(w.draft_m, w.lateral_area_m2, draft_m, "draft (windage table)", "m"),
+                interp(w.draft_m, w.centroid_above_wl_m, draft_m, "draft (windage table)", "m"),
+                interp(w.draft_m, w.waterline_length_m, draft_m, "draft (windage table)", "m"))
+    except OutOfRangeError:
+        return None
+
+
+def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[CriterionResult], WeatherResult | None,
+                                                                          NotAssessed | None, list[str]]:
+    """IS 2008 Part A 2.3 for this condition: two criteria (θ0 and b ≥ a) and the numbers behind them."""
+    cs = vessel.criteria
+    p = vessel.particulars
+    notes: list[str] = []
+    if vessel.windage is None:
+        return [], None, NotAssessed(SET_TITLES[WEATHER_SET], "the profile has no windage data"), notes
+    wind = windage_at(vessel, a.draft_mid_m)
+    if wind is None:
+        w = vessel.windage
+        return [], None, NotAssessed(SET_TITLES[WEATHER_SET],
+                                     f"midships draft {a.draft_mid_m:.3f} m is outside the windage table "
+                                     f"({w.draft_m[0]:g}–{w.draft_m[-1]:g} m)"), notes
+    area, h_wl, lwl = wind
+    d = a.draft_mid_m
+    extra_area = sum(ai for ai, _ in a.deck_windage)
+    if extra_area > 0.0:
+        # Deck cargo adds its stated side area, centre at its own height (IS 2008 A 2.3: "ship and
+        # deck cargo"); shielding is what the item's stated area already leaves out.
+        moment = area * h_wl + sum(ai * (zi - d) for ai, zi in a.deck_windage)
+        area = area + extra_area
+        h_wl = moment / area
+    z = h_wl + d / 2.0  # Z to about half the mean draft (standards.md §2.2; that option [M])
+    if cs.wind_pressure_pa is not None:
+        pressure, p_source = cs.wind_pressure_pa, "P from the vessel profile (Administration)"
+    elif ship_type == "fishing" and IS_CODE_MIN_LENGTH_M <= p.lbp_m <= 45.0:
+        pressure = wx.fishing_wind_pressure_pa(h_wl)
+        p_source = f"P {pressure:.0f} Pa for h {h_wl:.2f} m, IS Code 2008 Part B 2.1.4 (from memory)"
+    else:
+        pressure, p_source = wx.WIND_PRESSURE_PA, "P 504 Pa"
+    lw1 = wx.wind_lever_m(pressure, area, z, a.displacement_t)
+    curve = wx.Curve.from_sides(a.heel_deg, a.gz_lee_m, a.gz_other_m)
+    end = float(a.heel_deg[-1])  # the KN tables may stop before 90° (a booklet's 60°)
+    theta0_limit = min(wx.THETA0_MAX_DEG, wx.DECK_EDGE_FRACTION * a.deck_edge_deg)
+    roll = None
+    if a.gm_fluid_m > 0.0:
+        volume = a.displacement_t / a.water_density_t_m3
+        cb = volume / (lwl * p.breadth_m * d)
+        roll = wx.roll(wx.RollInputs(p.breadth_m, d, lwl, cb, a.kg_fluid_m, a.gm_fluid_m,
+                                     cs.bilge_keel_area_m2, cs.sharp_bilged))
+    f = wx.weather_areas(curve, lw1, None if roll is None else roll.theta1_deg, a.flood_deg, end)
+    src0 = "IS Code 2008 Part A 2.3.1.2"
+    srcb = "IS Code 2008 Part A 2.3.1.4 (A.749 3.2.2.1.4)"
+    common = f"{p_source}, A {area:.1f} m²" + (f" incl. deck cargo {extra_area:.1f} m²" if extra_area > 0 else "") \
+        + f", Z {z:.2f} m, lw1 {lw1:.4f} m"
+    out: list[CriterionResult] = []
+    if f.theta0_deg is None:
+        # Beyond the end of the curve (≥ 40°, profile validation) θ0 is past its 16° limit in any case.
+        out.append(_crit("IS2008-A2.3-theta0", "Heel under the steady wind θ0", end, theta0_limit, "deg", "<=",
+                         src0, WEATHER_SET, f"GZ never reaches lw1 up to {end:g}°: the steady wind alone would "
+                         "overturn her; " + common))
+        out.append(_crit("IS2008-A2.3-area-b-a", "Weather: area b against area a", 0.0, 0.0, "m·rad", ">=",
+                         srcb, WEATHER_SET, "no equilibrium under the steady wind", assessed=False))
+        return out, None, None, notes
+    out.append(_crit("IS2008-A2.3-theta0", "Heel under the steady wind θ0", f.theta0_deg, theta0_limit, "deg", "<=",
+                     src0, WEATHER_SET, f"limit min(16°, 0.8 × deck edge {a.deck_edge_deg:.1f}°); " + common))
+    if roll is None:
+        out.append(_crit("IS2008-A2.3-area-b-a", "Weather: area b against area a", 0.0, 0.0, "m·rad", ">=",
+                         srcb, WEATHER_SET, "GM not positive: no roll period T = 2CB/√GM", assessed=False))
+        return out, None, None, notes
+    assert f.area_a_mrad is not None and f.area_b_mrad is not None
+    note = f"θ1 {roll.theta1_deg:.1f}°, θ2 {f.theta2_deg:.1f}°" if f.theta2_deg is not None else \
+        f"θ1 {roll.theta1_deg:.1f}°; GZ never reaches lw2 = {f.lw2_m:.4f} m"
+    if roll.outside_validity:
+        note += "; outside the range the roll tables were made for (" + ", ".join(roll.outside_validity) + \
+            "; standards.md §2.3, from memory)"
+    # Where the KN tables stop before θ2 could be reached, area b is known only up to their end:
+    # enough when it already covers a (more curve can only add to b), else not assessable.
+    wanted = min(wx.THETA2_MAX_DEG, a.flood_deg) if a.flood_deg is not None else wx.THETA2_MAX_DEG
+    cut = end < wanted - 1e-9 and (f.theta_r_deg is None or f.theta_c_deg is None)
+    if cut and f.area_b_mrad < f.area_a_mrad:
+        out.append(_crit("IS2008-A2.3-area-b-a", "Weather: area b against area a", f.area_b_mrad, f.area_a_mrad,
+                         "m·rad", ">=", srcb, WEATHER_SET,
+                         f"needs GZ to {wanted:g}°, beyond the KN tables' {end:g}°: not assessable; " + note,
+                         assessed=False))
+        return out, None, None, notes
+    if cut:
+        note += f"; area b counted to {end:g}°, where the KN tables end (already enough)"
+    out.append(_crit("IS2008-A2.3-area-b-a", "Weather: area b against area a", f.area_b_mrad, f.area_a_mrad,
+                     "m·rad", ">=", srcb, WEATHER_SET, note))
+    if f.theta2_deg is None:
+        return out, None, None, notes  # GZ never reaches lw2: no θ2 to report, the note says why
+    if a.deck_items_without_windage:
+        notes.append("weather criterion: no windage given for deck item(s) " + ", ".join(a.deck_items_without_windage)
+                     + "; their side area is not included")
+    wr = WeatherResult(
+        wind_pressure_pa=pressure, windage_area_m2=area, windage_lever_m=z, lw1_m=lw1, lw2_m=f.lw2_m,
+        theta0_deg=f.theta0_deg, theta0_limit_deg=theta0_limit, theta1_deg=roll.theta1_deg,
+        theta2_deg=f.theta2_deg,
+        theta_c_deg=f.theta_c_deg, area_a_mrad=f.area_a_mrad, area_b_mrad=f.area_b_mrad,
+        roll_period_s=roll.period_s, k=roll.k, x1=roll.x1, x2=roll.x2, r=roll.r, s=roll.s,
+        deck_edge_angle_deg=a.deck_edge_deg, theta_r_deg=f.theta_r_deg, windage_centroid_above_wl_m=h_wl,
+        waterline_length_m=lwl,
+    )
+    return out, wr, None, notes
+
+
+def passenger_criteria(vessel: Vessel, a: Afloat) -> tuple[list[CriterionResult], list[str]]:
+    """IS 2008 Part A 3.1: heel from crowding and from turning, each ≤ 10° (standards.md §3.1).
+
+    Crowding: heeling lever n·m·y/Δ, y the centroid of the standing area on one side, the
+    passengers' mass taken as already in the condition near the centreline.  Turning:
+    MR/(g·Δ) = 0.2·v0²·(KG − d/2)/(g·Lwl) (the 0.2/g form; formula from memory), v0 in m/s.
+    Both levers are held constant with heel (conservative; common practice), and the heel
+    is where GZ first reaches the lever.
+    """
+    pd = vessel.passengers
+    notes: list[str] = []
+    src = "IS Code 2008 Part A 3.1"
+    if pd is None:
+        return [], notes
+    lever_c = pd.count * pd.mass_per_person_t * pd.standing_tcg_m / a.displacement_t
+    if pd.count > PASSENGERS_PER_M2 * pd.standing_area_m2:
+        notes.append(f"{pd.count} passengers need {pd.count / PASSENGERS_PER_M2:.0f} m² at 4 per m² "
+                     f"(from memory); the standing area is {pd.standing_area_m2:g} m²: all taken at its centroid")
+    wind = windage_at(vessel, a.draft_mid_m)
+    lwl = wind[2] if wind is not None else vessel.particulars.lbp_m
+    v0 = pd.service_speed_kn * KNOT_M_S
+    lever_t = max(0.0, 0.2 * v0**2 * (a.kg_fluid_m - a.draft_mid_m / 2.0) / (wx.G_M_S2 * lwl))
+    out = []
+    for cid, desc, lever, extra in (
+        ("IS2008-A3.1-crowding", "Heel from passengers crowding to one side", lever_c,
+         f"{pd.count} × {pd.mass_per_person_t:g} t at {pd.standing_tcg_m:g} m"),
+        ("IS2008-A3.1-turning", "Heel from turning at service speed", lever_t,
+         f"{pd.service_speed_kn:g} kn, 0.2·v²·(KG − d/2)/(g·Lwl) from memory"
+         + ("" if wind is not None else ", Lwl taken as LBP")),
+    ):
+        heel = _first_heel(a.heel_deg, a.gz_lee_m, lever)
+        note = f"lever {lever:.4f} m ({extra})"
+        if heel is None:
+            out.append(_crit(cid, desc, 90.0, PASSENGER_HEEL_LIMIT_DEG, "deg", "<=", src, PASSENGER_SET,
+                             "GZ never reaches the heeling lever; " + note))
+        else:
+            out.append(_crit(cid, desc, heel, PASSENGER_HEEL_LIMIT_DEG, "deg", "<=", src, PASSENGER_SET, note))
+    return out, notes
+
+
+def extra_criteria(vessel: Vessel, a: Afloat, weather: list[CriterionResult],
+                   windage_missing: bool) -> list[CriterionResult]:
+    """The flag-State / class criteria written in the profile, each measured on this condition."""
+    out = []
+    gz = a.gz_lee_m
+    end = float(a.heel_deg[-1])
+    short = f"beyond the KN tables' end at {end:g}°: not assessable"
+    theta0 = next((c for c in weather if c.id == "IS2008-A2.3-theta0"), None)
+    for n, ec in enumerate(vessel.criteria.extra):
+        value: float | None = None
+        why = ""
+        if ec.kind == "min_gm":
+            value = a.gm_fluid_m
+        elif ec.kind == "min_area":
+            hi = ec.to_deg if a.flood_deg is None else min(ec.to_deg, a.flood_deg)
+            if hi > end + 1e-9:
+                why = f"needs GZ to {hi:g}°, " + short
+            else:
+                value = max(0.0, gzmod.area_to(gz, hi) - gzmod.area_to(gz, ec.from_deg)) if hi > ec.from_deg else 0.0
+        elif ec.kind == "min_gz_at":
+            if ec.at_deg > end + 1e-9:
+                why = f"{ec.at_deg:g}° is " + short
+            else:
+                value = float(np.interp(ec.at_deg, a.heel_deg, gz))
+        elif ec.kind in ("min_max_gz", "min_angle_max_gz"):
+            value = a.max_gz_m if ec.kind == "min_max_gz" else a.measures.max_gz_angle_deg
+            at_end = a.measures.max_gz_angle_deg >= end - 0.05 and end < 90.0 - 1e-9
+            if at_end and value < ec.limit:
+                value, why = None, "the maximum lies at or " + short
+        elif ec.kind == "min_range":
+            if a.max_gz_m <= 0.0:
+                value = 0.0
+            elif a.vanishing_deg is not None:
+                value = a.vanishing_deg - a.equilibrium_deg
+            else:
+                value = end - a.equilibrium_deg  # positive to the end of the curve: at least this
+                if end < 90.0 - 1e-9 and value < ec.limit:
+                    value, why = None, "GZ is still positive where the curve ends; the range runs " + short
+        elif ec.kind == "max_static_heel":
+            value = a.equilibrium_deg
+        elif ec.kind == "max_wind_heel":
+            if theta0 is not None:
+                value = theta0.value
+            else:
+                why = "needs the weather criterion's steady-wind heel: " + (
+                    "the profile has no windage data" if windage_missing else "windage not available at this draft")
+        out.append(extra_criterion_result(n, ec, value, why))
+    return out
+
+
+def assess(vessel: Vessel, a: Afloat, limit_curve: list[CriterionResult]) -> Verdict:
+    """All criteria for the vessel's type, the sets with their result, and what was not assessed."""
+    cs = vessel.criteria
+    p = vessel.particulars
+    ship_type = cs.ship_type
+    criteria: list[CriterionResult] = []
+    not_assessed: list[NotAssessed] = []
+    cautions: list[str] = []
+    weather = None
+    set_ids: list[str] = []
+    windage_missing = vessel.windage is None
+    fishing_gm = None
+    if ship_type == "fishing" and cs.min_gm_m is not None and cs.min_gm_m < 0.35:
+        fishing_gm = cs.min_gm_m  # the reader allows this only where Part B 2.1 does
+    weather_rows: list[CriterionResult] = []
+    for sid in SETS_BY_TYPE[ship_type]:
+        if sid == WEATHER_SET:
+            weather_rows, weather, missing, notes = weather_criterion(vessel, a, ship_type)
+            cautions += notes
+            if missing is not None:
+                not_assessed.append(missing)
+                cautions.append(f"{missing.item} not assessed: {missing.reason}")
+                continue
+            criteria += weather_rows
+        elif sid == PASSENGER_SET:
+            rows, notes = passenger_criteria(vessel, a)
+            cautions += notes
+            if not rows:
+                not_assessed.append(NotAssessed(SET_TITLES[sid], "the profile has no passenger data"))
+                continue
+            criteria += rows
+        else:
+            criteria += evaluate_criteria(sid, a.measures, cs.min_gm_m, fishing_gm_m=fishing_gm)
+        set_ids.append(sid)
+    if limit_curve:
+        criteria += limit_curve
+        set_ids.append(limit_curve[0].set_id)
+    if cs.extra:
+        criteria += extra_criteria(vessel, a, weather_rows, windage_missing)
+        set_ids.append(EXTRA_SET)
+    if p.lbp_m < IS_CODE_MIN_LENGTH_M and ship_type != "passenger":
+        not_assessed.append(NotAssessed(
+            "national rules for vessels under 24 m",
+            f"IS Code 2008 applies to ships of 24 m and over (LBP {p.lbp_m:g} m): the IS Code criteria are shown "
+            "for guidance; the flag State's rules govern"))
+    not_assessed += NEVER_ASSESSED
+    sets = tuple(
+        AssessedSet(sid, SET_TITLES[sid], all(c.passed and c.assessed for c in criteria if c.set_id == sid))
+        for sid in set_ids
+    )
+    return Verdict(tuple(criteria), sets, tuple(not_assessed), weather, tuple(cautions))
+
+
+def deck_edge_angle(vessel: Vessel, table_displacement_t: float, draft_mid_m: float) -> tuple[float, str | None]:
+    """Deck-edge immersion angle (deg) and a caution when it is only approximate.
+
+    From the profile's deck-edge table against displacement (made by ``deckload tables``
+    from the geometry) when it covers the displacement; otherwise the wall-sided
+    approximation tanφ = freeboard/(B/2) at midships (common practice), with a caution.
+    """
+    de = vessel.deck_edge
+    if de is not None:
+        try:
+            return interp(de.displacement_t, de.value, table_displacement_t, "displacement (deck-edge table)", "t"), None
+        except OutOfRangeError:
+            pass
+    p = vessel.particulars
+    freeboard = max(p.depth_m - draft_mid_m, 0.0)
+    angle = math.degrees(math.atan2(freeboard, p.breadth_m / 2.0))
+    why = "no deck-edge table" if de is None else "off the deck-edge table"
+    return angle, f"deck-edge angle {angle:.1f}° approximate: wall-sided at midships, common practice ({why})"

@@ -1,0 +1,176 @@
+"""``deckload csv PROFILE DIR``: write every table of a profile as CSV, as the booklet has it.
+
+For side-by-side comparison with the approved stability booklet: each table is written
+in the conventions the profile states for it (datum and sign of x, "P"/"S" marks or
+signed TCGs, sounding or ullage readings, FSM in t·m or fsi in m⁴, extreme or moulded
+drafts, against displacement or draft), with the column names of
+vessel_profiles/README.md ("Tables in CSV files"), so that reading the files back gives
+the same numbers.  A row that the loader added (level 0, volume 0 below a table that
+starts above the bottom) is not written.  Files are written atomically; a table without
+rows in the profile (a capacity-only tank, a single downflooding angle) is named on
+the screen instead.
+
+Exit status: 0 written; 1 the profile has problems; 2 a file could not be read or written.
+"""
+
+from __future__ import annotations
+
+import sys
+from pathlib import Path
+
+import numpy as np
+
+from deckload.conventions import Frame, side_text
+from deckload.core import model as m
+from deckload.core.tables import interp
+from deckload.csvtables import write_csv
+from deckload.profiles import ProfileError, Reading, TableReading, read_profile
+
+CAUTION = ("Compare these tables with the approved stability booklet before relying on the profile: deckload "
+           "supports, and never replaces, the booklet, the master's judgement and flag-State and class rules.")
+
+
+def _draft_of(v: m.Vessel, disp: np.ndarray, frame: Frame) -> list[float]:
+    """Displacements back to the drafts they were read from (inverse of the linear look-up), in the table's basis."""
+    h = v.hydrostatics
+    moulded = np.array([interp(h.displacement_t, h.draft_m, float(d), "displacement", "t") for d in disp])
+    return [float(x) for x in frame.draft_from_moulded(moulded)]
+
+
+def hydrostatics_rows(v: m.Vessel, tr: TableReading) -> tuple[list[str], list[list]]:
+    h, f = v.hydrostatics, tr.frame
+    cols = {"draft_m": f.draft_from_moulded(h.draft_m), "displacement_t": h.displacement_t,
+            "lcb_m": f.x_from_ap(h.lcb_m), "lcf_m": f.x_from_ap(h.lcf_m), "kmt_m": h.kmt_m,
+            "tpc_t_cm": h.tpc_t_cm, "mctc_tm_cm": h.mctc_tm_cm}
+    if h.vcb_m is not None:
+        cols["vcb_m"] = h.vcb_m
+    if h.kml_m is not None:
+        cols["kml_m"] = h.kml_m
+    return list(cols), [[float(cols[k][i]) for k in cols] for i in range(len(h.draft_m))]
+
+
+def cross_curve_rows(v: m.Vessel) -> tuple[list[str], list[list]]:
+    from deckload.csvtables import fmt_number
+
+    cc = v.cross_curves
+    header = ["displacement_t"] + [f"kn_{fmt_number(float(a))}" for a in cc.heel_deg]
+    return header, [[float(d)] + [float(x) for x in row] for d, row in zip(cc.displacement_t, cc.kn_m)]
+
+
+def calibration_rows(t: m.Tank, tr: TableReading) -> tuple[list[str], list[list]]:
+    c, f = t.calibration, tr.frame
+    level = np.asarray(c.sounding_m)
+    if tr.level == "ullage_m":
+        reading = t.ullage_reference_m - level
+    else:
+        reading = level - t.sounding_zero_m
+    cols: dict[str, list] = {
+        tr.level: [float(x) for x in reading],
+        "volume_m3": [float(x) for x in c.volume_m3],
+        "lcg_m": [float(x) for x in f.x_from_ap(c.lcg_m)],
+        "vcg_m": [float(x) for x in c.vcg_m],
+        "tcg_m": [side_text(float(y), f, tr.tcg_marked) for y in c.tcg_m],
+    }
+    if tr.fsm == "fsm_tm":
+        cols["fsm_tm"] = [float(x) * tr.fsm_density_t_m3 for x in c.fsi_m4]
+    elif tr.fsm == "fsi_m4":
+        cols["fsi_m4"] = [float(x) for x in c.fsi_m4]
+    n = len(level)
+    order = list(range(1 if tr.added_bottom_row else 0, n))
+    if tr.reversed:
+        order.reverse()
+    return list(cols), [[cols[k][i] for k in cols] for i in order]
+
+
+def curve_rows(v: m.Vessel, curve: m.LimitCurve, tr: TableReading, value_key: str) -> tuple[list[str], list[list]]:
+    if tr.against == "draft_m":
+        x = _draft_of(v, curve.displacement_t, tr.frame)
+    else:
+        x = [float(d) for d in curve.displacement_t]
+    return [tr.against, value_key], [[a, float(b)] for a, b in zip(x, curve.value)]
+
+
+def hold_rows(h: m.Hold, tr: TableReading) -> tuple[list[str], list[list]]:
+    cols = {"fill_pct": [float(x) for x in h.fill_pct], "fill_vcg_m": [float(x) for x in h.fill_vcg_m]}
+    if h.fill_lcg_m is not None:
+        cols["fill_lcg_m"] = [float(x) for x in tr.frame.x_from_ap(h.fill_lcg_m)]
+    return list(cols), [[cols[k][i] for k in cols] for i in range(len(h.fill_pct))]
+
+
+def profile_tables(v: m.Vessel, rd: Reading) -> list[tuple[str, str, str, list[str], list[list]]]:
+    """(file name, what, key of its reading, header, rows) for every table of the profile that has rows."""
+    out = []
+    hy = rd.tables.get("hydrostatics")
+    if hy is not None:
+        out.append(("hydrostatics.csv", "[hydrostatics]", "hydrostatics", *hydrostatics_rows(v, hy)))
+    out.append(("cross_curves.csv", "[cross_curves]", "cross_curves", *cross_curve_rows(v)))
+    for t in v.tanks:
+        tr = rd.tables.get(f"tank[{t.id}].calibration")
+        if t.level_known and tr is not None:
+            key = f"tank[{t.id}].calibration"
+            out.append((f"tank_{t.id}.csv", key, key, *calibration_rows(t, tr)))
+    if v.limit_curve is not None and "limit_curve" in rd.tables:
+        out.append(("limit_curve.csv", "[limit_curve]", "limit_curve",
+                    *curve_rows(v, v.limit_curve, rd.tables["limit_curve"], v.limit_curve.kind)))
+    df = rd.tables.get("downflooding")
+    if v.downflooding is not None and df is not None and df.against != "single":
+        out.append(("downflooding.csv", "[downflooding]", "downflooding", *curve_rows(v, v.downflooding, df, "angle_deg")))
+    for h in v.holds:
+        tr = rd.tables.get(f"hold[{h.id}]")
+        if h.fill_pct is not None and tr is not None:
+            out.append((f"hold_{h.id}_fill.csv", f"hold[{h.id}] fill table", f"hold[{h.id}]", *hold_rows(h, tr)))
+    return out
+
+
+def describe(tr: TableReading | None) -> str:
+    if tr is None:
+        return ""
+    f = tr.frame
+    bits = []
+    if not f.x_is_identity:
+        bits.append(f"x from {f.datum}, + {f.positive}")
+    if tr.tcg_marked:
+        bits.append("TCG marked P/S")
+    elif not f.y_is_identity:
+        bits.append(f"TCG {'on the ' + f.tcg_side + ' side' if f.tcg_side else '+ port'}")
+    if tr.level == "ullage_m":
+        bits.append("by ullage")
+    if tr.fsm == "fsm_tm":
+        bits.append(f"FSM t·m at {tr.fsm_density_t_m3:g} t/m³")
+    if f.draft_basis == "extreme":
+        bits.append("extreme drafts")
+    if tr.against == "draft_m":
+        bits.append("against draft")
+    return f" ({', '.join(bits)})" if bits else ""
+
+
+def run_csv(profile_path: Path, out_dir: Path) -> int:
+    try:
+        vessel, rd = read_profile(profile_path)
+    except OSError as e:
+        print(f"deckload: cannot read {profile_path}: {e.strerror or e}", file=sys.stderr)
+        return 2
+    except ProfileError as e:
+        for p in e.problems:
+            print(p)
+        print(f"{len(e.problems)} problem{'s' if len(e.problems) != 1 else ''} in {profile_path}: no tables written")
+        return 1
+    out_dir = Path(out_dir)
+    try:
+        out_dir.mkdir(parents=True, exist_ok=True)
+        for name, what, key, header, rows in profile_tables(vessel, rd):
+            write_csv(out_dir / name, header, rows)
+            print(f"wrote {out_dir / name}: {what}, {len(rows)} rows{describe(rd.tables.get(key))}")
+    except BrokenPipeError:
+        raise
+    except OSError as e:
+        print(f"deckload: cannot write in {out_dir}: {e.strerror or e}", file=sys.stderr)
+        return 2
+    for t in vessel.tanks:
+        if not t.level_known:
+            print(f"not written: tank[{t.id}] has no table (capacity {t.capacity_m3:g} m³ and centre only)")
+    df = rd.tables.get("downflooding")
+    if df is not None and df.against == "single":
+        print(f"not written: [downflooding] is one angle, {float(vessel.downflooding.value[0]):g}°")
+    print(CAUTION)
+    return 0

@@ -1,0 +1,242 @@
+"""Profile tables kept in CSV files: read into the profile, and written out for comparison.
+
+A table of a profile (``[hydrostatics]``, ``[cross_curves]``, ``[tank.calibration]``,
+``[limit_curve]``, ``[downflooding]``, a ``[[hold]]``'s fill table) may name a CSV file
+with ``csv = "file.csv"`` (relative to the profile).  The file has a header row of
+the table's own TOML array keys (vessel_profiles/README.md, "Tables in CSV files");
+each column becomes that array, exactly as if it had been written in the TOML, and
+every check of :mod:`deckload.profiles` applies to it unchanged.  A problem in a
+column is reported against the CSV file, its line and column, and the cell as
+written (:attr:`deckload.tomlcheck.FileCheck.sources`).
+
+Cross curves are one column per heel angle, named ``kn_`` + the angle (``kn_0``,
+``kn_10``, … ``kn_12.5``), beside ``displacement_t``.
+"""
+
+from __future__ import annotations
+
+import csv
+import io
+import re
+from pathlib import Path
+from typing import Any
+
+from deckload.tomlcheck import MISSING, Table
+
+NUMBER = re.compile(r"^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$")
+"""A number as a spreadsheet writes it: decimal point, optional exponent (no '1_000', 'nan', 'inf')."""
+
+KN_COLUMN = re.compile(r"^kn_(\d+(?:\.\d+)?)$")
+
+
+def _cell(text: str) -> Any:
+    """A cell: a float when it reads as a number, else the text (the checks then name it)."""
+    s = text.strip()
+    return float(s) if NUMBER.match(s) else s
+
+
+class CsvTable:
+    """A CSV file read as header + rows, with the file line of every row."""
+
+    def __init__(self, file: str, header: list[str], rows: list[list[Any]], lines: list[int], header_line: int):
+        self.file = file
+        self.header = header
+        self.rows = rows
+        self.lines = lines
+        self.header_line = header_line
+
+    def column_label(self, j: int) -> str:
+        return f"column {j + 1} {self.header[j]!r}"
+
+
+def read_csv(t: Table, key: str = "csv") -> CsvTable | None:
+    """The CSV file named by ``t``'s ``csv`` key, or None (problems reported on ``t``)."""
+    name = t.text(key)
+    if name is None:
+        return None
+    base = Path(t.ctx.file).parent
+    path = base / name
+    shown = str(path)
+    from deckload.limits import MAX_TABLE_VALUES, MAX_TOML_BYTES, read_limited
+
+    try:
+        data = read_limited(path, MAX_TOML_BYTES, "a CSV table")
+    except OSError as e:
+        t.bad(key, name, f"cannot read the CSV file {shown}: {e.strerror or e}")
+        return None
+    try:
+        text = data.decode("utf-8-sig")  # spreadsheets often start UTF-8 files with a BOM
+    except UnicodeDecodeError as e:
+        line = data[: e.start].count(b"\n") + 1
+        t.ctx.problems.append(_problem(shown, line, t.key(key), None, f"not UTF-8 text (byte {e.start + 1}); save the CSV as UTF-8"))
+        return None
+    rows: list[list[Any]] = []
+    lines: list[int] = []
+    header: list[str] | None = None
+    header_line = 1
+    reader = csv.reader(io.StringIO(text))
+    ok = True
+    read: list[tuple[int, list[str]]] = []
+    try:
+        for raw in reader:
+            read.append((reader.line_num, raw))
+            if len(read) > MAX_TABLE_VALUES:
+                t.ctx.problems.append(_problem(shown, reader.line_num, t.key(key), None,
+                                               f"more than the {MAX_TABLE_VALUES} rows allowed in one table"))
+                return None
+    except csv.Error as e:  # a field over the csv module's size limit, a NUL byte, …
+        t.ctx.problems.append(_problem(shown, reader.line_num, t.key(key), None, f"not a readable CSV table ({e})"))
+        return None
+    for line, raw in read:
+        cells = list(raw)
+        while cells and not cells[-1].strip():  # trailing empty cells a spreadsheet may add
+            cells.pop()
+        if not cells:
+            continue
+        if header is None:
+            header = [c.strip() for c in cells]
+            header_line = line
+            if len(header) == 1 and ";" in header[0]:
+                t.ctx.problems.append(_problem(shown, line, t.key(key), repr(header[0]),
+                                               "the cells are separated by ';': save the sheet as comma-separated "
+                                               "CSV with a decimal point"))
+                return None
+            seen: set[str] = set()
+            for j, h in enumerate(header):
+                if not h:
+                    t.ctx.problems.append(_problem(shown, line, t.key(key), None, f"header cell {j + 1} is empty: every column needs its name"))
+                    ok = False
+                elif h in seen:
+                    t.ctx.problems.append(_problem(shown, line, t.key(key), repr(h), f"column name given twice (column {j + 1})"))
+                    ok = False
+                seen.add(h)
+            continue
+        if len(cells) != len(header):
+            t.ctx.problems.append(_problem(shown, line, t.key(key), None,
+                                           f"row has {len(cells)} cells but the header has {len(header)}: one cell per column"))
+            ok = False
+            continue
+        rows.append([_cell(c) for c in cells])
+        lines.append(line)
+    if header is None:
+        t.bad(key, name, f"the CSV file {shown} is empty: it needs a header row and the table's rows")
+        return None
+    return CsvTable(shown, header, rows, lines, header_line) if ok else None
+
+
+def _problem(file, line, key, value, rule):
+    from deckload.tomlcheck import Problem
+
+    return Problem(file, line, key, value, rule)
+
+
+def _locator(c: CsvTable, j: int | None, matrix_cols: list[int] | None = None):
+    """Maps an element path within an injected key to (file, line, column label, cell)."""
+
+    def locate(at: tuple):
+        if not at:
+            return c.file, c.header_line, c.column_label(j) if j is not None else "", MISSING
+        i = at[0]
+        line = c.lines[i] if 0 <= i < len(c.lines) else c.header_line
+        if matrix_cols is not None:
+            if len(at) > 1 and 0 <= at[1] < len(matrix_cols):
+                jj = matrix_cols[at[1]]
+                cell = c.rows[i][jj] if 0 <= i < len(c.rows) else MISSING
+                return c.file, line, c.column_label(jj), cell
+            return c.file, line, "", MISSING
+        cell = c.rows[i][j] if 0 <= i < len(c.rows) else MISSING
+        return c.file, line, c.column_label(j), cell
+
+    return locate
+
+
+def attach_csv(t: Table, columns: tuple[str, ...]) -> bool:
+    """If ``t`` names a CSV file, put its columns into ``t.data`` as arrays.
+
+    ``columns`` are the names the table accepts from a CSV (its TOML array keys); a
+    column of another name, or one the TOML also gives, is a problem.  False when the file
+    could not be read (reported): the caller then reads nothing more of the table.
+    """
+    if not t.has("csv"):
+        t.get("csv", False)
+        return True
+    c = read_csv(t)
+    if c is None:
+        t.ctx.unread_csv.add(t.raw)  # its problem is reported; its columns' absence would only repeat it
+        for k in t.data:  # and nothing else of this table is judged without its columns
+            t.get(k, False)
+        return False
+    for j, h in enumerate(c.header):
+        if h not in columns:
+            t.ctx.problems.append(_problem(c.file, c.header_line, t.key("csv"), repr(h),
+                                           f"unknown column (column {j + 1}); this table's columns are " + ", ".join(columns)))
+            continue
+        if h in t.data:
+            t.bad(h, t.data[h], f"given both in the TOML and as a column of {c.file}: give it once")
+            continue
+        t.data[h] = [row[j] for row in c.rows]
+        t.ctx.sources[t.raw + (h,)] = _locator(c, j)
+    return True
+
+
+def attach_kn_csv(t: Table) -> bool:
+    """Cross curves from a CSV: ``displacement_t`` and one ``kn_<angle>`` column per heel."""
+    if not t.has("csv"):
+        t.get("csv", False)
+        return True
+    c = read_csv(t)
+    if c is None:
+        t.ctx.unread_csv.add(t.raw)  # its problem is reported; its columns' absence would only repeat it
+        for k in t.data:  # and nothing else of this table is judged without its columns
+            t.get(k, False)
+        return False
+    kn_cols: list[int] = []
+    heels: list[float] = []
+    for j, h in enumerate(c.header):
+        m = KN_COLUMN.match(h)
+        if m:
+            kn_cols.append(j)
+            heels.append(float(m.group(1)))
+        elif h != "displacement_t":
+            t.ctx.problems.append(_problem(c.file, c.header_line, t.key("csv"), repr(h),
+                                           f"unknown column (column {j + 1}); cross curves take displacement_t and "
+                                           "one kn_<angle> column per heel angle, e.g. kn_0, kn_10, …, kn_60"))
+            return
+    for k in ("heel_deg", "displacement_t", "kn_m"):
+        if k in t.data:
+            t.bad(k, t.data[k], f"given both in the TOML and in {c.file}: give the table once")
+            return
+    if "displacement_t" not in c.header:
+        t.ctx.problems.append(_problem(c.file, c.header_line, t.key("csv"), None, "needs a displacement_t column"))
+        return
+    jd = c.header.index("displacement_t")
+    t.data["displacement_t"] = [row[jd] for row in c.rows]
+    t.ctx.sources[t.raw + ("displacement_t",)] = _locator(c, jd)
+    t.data["heel_deg"] = heels
+    t.ctx.sources[t.raw + ("heel_deg",)] = lambda at: (c.file, c.header_line,
+                                                       c.column_label(kn_cols[at[0]]) if at and at[0] < len(kn_cols) else "",
+                                                       MISSING)
+    t.data["kn_m"] = [[row[j] for j in kn_cols] for row in c.rows]
+    t.ctx.sources[t.raw + ("kn_m",)] = _locator(c, None, kn_cols)
+    return True
+
+
+# =========================================================================== writing
+
+
+def fmt_number(x: float) -> str:
+    """A number for a CSV cell: at most 10 significant digits, so that the round-off of a
+    datum conversion (1.907 + 11.5 − 11.5) does not show, and trailing zeros dropped."""
+    s = f"{x:.10g}"
+    return "0" if s == "-0" else s
+
+
+def write_csv(path: Path, header: list[str], rows: list[list[Any]]) -> None:
+    from deckload.atomicfile import write_atomic
+
+    buf = io.StringIO()
+    w = csv.writer(buf, lineterminator="\n")
+    w.writerow(header)
+    for r in rows:
+        w.writerow([fmt_number(v) if isinstance(v, float) else v for v in r])
+    write_atomic(path, buf.getvalue())

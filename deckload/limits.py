@@ -1,0 +1,52 @@
+"""Size limits on everything deckload reads, so that a huge or hostile file is refused at once.
+
+Each limit is far above anything a real vessel needs (the demo profile is 137 kB with tables
+of at most 37 rows) and far below what would take the program seconds or gigabytes to read:
+
+* a profile, condition or geometry file: :data:`MAX_TOML_BYTES`;
+* one table (array) in such a file: :data:`MAX_TABLE_VALUES` values;
+* one line of the voyage log: :data:`MAX_LOG_LINE_BYTES`; a whole log: :data:`MAX_LOG_BYTES`;
+* an amount typed on the loading screen: :data:`MAX_ENTRY_CHARS` characters.
+
+Numbers too large for a float (TOML integers are unbounded) are refused as not finite,
+and nesting too deep for the TOML reader is refused as a problem of the file.
+
+A file over its limit is refused with a message naming the file and the limit; the file is
+never read past the limit (a device or a pipe named as a file cannot hang the program).
+"""
+
+from __future__ import annotations
+
+import os
+from pathlib import Path
+
+MAX_TOML_BYTES = 4 * 1024 * 1024
+"""4 MiB: about 30 times the demo profile."""
+MAX_TABLE_VALUES = 20_000
+"""Values in one array (a cross-curve matrix counts every cell): 100 × 200 would be a very fine table."""
+MAX_LOG_LINE_BYTES = 1024 * 1024
+"""One log entry (with its condition) is a few kB."""
+MAX_LOG_BYTES = 512 * 1024 * 1024
+"""A log of 100,000 entries of 5 kB each."""
+MAX_ENTRY_CHARS = 64
+"""An amount such as '12.5 m3' is a few characters."""
+
+
+class TooLargeError(OSError):
+    """A file over its size limit; the message names the file and the limit."""
+
+
+def size_text(n: int) -> str:
+    for unit, k in (("GiB", 1 << 30), ("MiB", 1 << 20), ("kiB", 1 << 10)):
+        if n >= k:
+            return f"{n / k:g} {unit}"
+    return f"{n} bytes"
+
+
+def read_limited(path: str | os.PathLike, limit: int, what: str) -> bytes:
+    """The bytes of ``path``, refusing (:class:`TooLargeError`) a file larger than ``limit``."""
+    with open(Path(path), "rb") as f:
+        data = f.read(limit + 1)
+    if len(data) > limit:
+        raise TooLargeError(f"{path}: larger than the {size_text(limit)} allowed for {what}: refused unread")
+    return data

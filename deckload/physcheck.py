@@ -1,0 +1,125 @@
+"""Physical bounds and completeness of a read profile or condition, as Problems.
+
+The readers (:mod:`deckload.profiles`) first check each value's form and its own rules;
+then, with the whole model built, :func:`check_vessel` and :func:`check_condition` hold
+every position, mass, level and table value against the vessel's own extent
+(:mod:`deckload.core.bounds`, the same functions the screen's forms use) and make sure a
+profile is complete.  Each problem names the file, the line, the dotted key, the value and
+the rule, like every other problem of a file.
+"""
+
+from __future__ import annotations
+
+from typing import Iterable
+
+import numpy as np
+
+from deckload.core import bounds as b
+from deckload.core import model as m
+from deckload.tomlcheck import FileCheck, num, toml_value
+
+
+class _Checker:
+    def __init__(self, ctx: FileCheck):
+        self.ctx = ctx
+
+    def one(self, raw: tuple, key: str, x: float | None, rng: b.Range) -> None:
+        if x is None:
+            return
+        msg = rng.rule(float(x))
+        if msg:
+            self.ctx.add(raw, key, toml_value(float(x)), msg)
+
+    def array(self, raw: tuple, key: str, xs, rng_of) -> None:
+        """Each value of ``xs`` against ``rng_of(i)`` (a Range, or one Range for all); the first bad row only."""
+        if xs is None:
+            return
+        arr = np.asarray(xs, dtype=float)
+        for idx in np.ndindex(arr.shape):
+            rng = rng_of(idx) if callable(rng_of) else rng_of
+            msg = rng.rule(float(arr[idx]))
+            if msg:
+                where = ", ".join(f"{'row' if k == 0 else 'column'} {i + 1}" for k, i in enumerate(idx))
+                self.ctx.add(raw + tuple(idx), key, toml_value(float(arr[idx])), f"{msg} ({where})")
+                return
+
+    def position(self, p: m.Particulars, raw: tuple, name: str, lcg=None, vcg=None, tcg=None,
+                 keys: Iterable[str] = ("lcg_m", "vcg_m", "tcg_m")) -> None:
+        kx, kz, ky = keys
+        self.one(raw + (kx,), f"{name}.{kx}", lcg, b.x_range(p))
+        self.one(raw + (kz,), f"{name}.{kz}", vcg, b.z_range(p))
+        self.one(raw + (ky,), f"{name}.{ky}", tcg, b.y_range(p))
+
+
+def check_vessel(ctx: FileCheck, v: m.Vessel) -> m.Vessel:
+    """``v`` if every value is physically possible and the profile complete; else raise its ProfileError."""
+    c = _Checker(ctx)
+    p = v.particulars
+    c.one(("vessel", "lbp_m"), "vessel.lbp_m", p.lbp_m, b.lbp_range())
+    c.one(("vessel", "breadth_m"), "vessel.breadth_m", p.breadth_m, b.beam_range(p.lbp_m))
+    c.one(("vessel", "depth_m"), "vessel.depth_m", p.depth_m, b.depth_range(p.lbp_m))
+    ctx.fail_if_any()  # every other range is derived from these three
+
+    # completeness: a profile cut short must not pass as a vessel without tanks or tables
+    if not v.tanks:
+        ctx.add(("format",), "tank", None, "no [[tank]] sections: a vessel profile must describe every tank "
+                "(is the file cut short?)")
+    h = v.hydrostatics
+    if float(h.draft_m[-1]) < p.design_draft_m * (1 - 1e-9):
+        ctx.add(("hydrostatics", "draft_m", len(h.draft_m) - 1), "hydrostatics.draft_m", toml_value(float(h.draft_m[-1])),
+                f"the table ends below the design draft {num(p.design_draft_m)} m: it must reach it "
+                "(is the table cut short?)")
+
+    ls = v.lightship
+    c.one(("lightship", "mass_t"), "lightship.mass_t", ls.mass_t, b.lightship_mass_range(v))
+    # Positions, hydrostatic rows, KN and tank tables of the profile are judged by the
+    # plausibility audit (deckload.core.audit, on the same envelope), which every command
+    # runs before it uses a profile (deckload.commands.load_and_evaluate, check, open).
+    for n, it in enumerate(getattr(v, "constants", ())):
+        c.one(("constant", n, "mass_t"), f"constant[#{n + 1}].mass_t", it.mass_t, b.item_mass_range(v))
+        c.position(p, ("constant", n), f"constant[#{n + 1}]", it.lcg_m, it.vcg_m, it.tcg_m)
+    hi_disp = b.max_displacement_t(v)
+
+    for n, t in enumerate(v.tanks):
+        raw, name = ("tank", n), f"tank[{t.id}]"
+        c.one(raw + ("capacity_m3",), f"{name}.capacity_m3", t.capacity_m3, b.volume_range(p))
+        if t.transfer is not None:
+            c.array(raw + ("transfer", "moment_m4"), f"{name}.transfer.moment_m4", t.transfer.moment_m4,
+                    b.transfer_moment_range(p, t.capacity_m3))
+    for n, hd in enumerate(v.holds):
+        raw, name = ("hold", n), f"hold[{hd.id}]"
+        c.one(raw + ("capacity_m3",), f"{name}.capacity_m3", hd.capacity_m3, b.volume_range(p))
+        c.one(raw + ("max_mass_t",), f"{name}.max_mass_t", hd.max_mass_t, b.item_mass_range(v))
+    for n, a in enumerate(v.deck_areas):
+        c.one(("deck_area", n, "area_m2"), f"deck_area[{a.id}].area_m2", a.area_m2, b.area_range(p))
+    if v.limit_curve is not None and v.limit_curve.kind == "max_kg_m":
+        c.array(("limit_curve", "max_kg_m"), "limit_curve.max_kg_m", v.limit_curve.value, b.z_range(p))
+    elif v.limit_curve is not None:
+        zr = b.z_max_m(p)
+        c.array(("limit_curve", "min_gm_m"), "limit_curve.min_gm_m", v.limit_curve.value,
+                b.Range(-zr, zr, "m", "within the vessel's height"))
+    dmin = v.free_surface.min_operating_displacement_t
+    c.one(("free_surface", "min_operating_displacement_t"), "free_surface.min_operating_displacement_t", dmin,
+          b.Range(0.0, hi_disp, "t", "at most the greatest displacement in the hydrostatic table"))
+    ctx.fail_if_any()
+    return v
+
+
+def check_condition(ctx: FileCheck, v: m.Vessel, cond: m.Condition) -> m.Condition:
+    """``cond`` if every mass and position in it is physically possible on ``v``; else raise."""
+    c = _Checker(ctx)
+    p = v.particulars
+    mass = b.item_mass_range(v)
+    for h in cond.holds:
+        raw, name = ("holds", h.hold_id), f"holds.{h.hold_id}"
+        c.one(raw + ("mass_t",), f"{name}.mass_t", h.mass_t, mass)
+        c.position(p, raw, name, h.lcg_m, h.vcg_m, h.tcg_m)
+    for group, items in (("deck_item", cond.deck_items), ("constant", cond.constants)):
+        for n, it in enumerate(items):
+            raw, name = (group, n), f"{group}[#{n + 1}]"
+            c.one(raw + ("mass_t",), f"{name}.mass_t", it.mass_t, mass)
+            c.position(p, raw, name, it.lcg_m, it.vcg_m, it.tcg_m)
+            fp = getattr(it, "footprint_m2", None)
+            c.one(raw + ("footprint_m2",), f"{name}.footprint_m2", fp, b.area_range(p))
+    ctx.fail_if_any()
+    return cond

@@ -1,0 +1,225 @@
+"""The booklet's worked conditions as the acceptance test, on a box barge with exact values.
+
+The "booklet" here is the analytic box barge L = 40, B = 10, D = 4 m, ρ = 1.025 t/m³
+(checks.md §1, closed forms derived in tests/box_profile_text.py and tests/vessel_factories.py),
+KN tabulated at T = 1, 2, 3 m in 5° steps.  The worked condition, derived:
+
+* lightship 400 t at LCG 20 m, KG 2.5 m; DB1P and DB1S (10 × 5 × 1 m boxes either side of the
+  centreline, x 5–15 m) at 50 %: 25 m³ × 1.025 = 25.625 t each at LCG 10, VCG 0.25 m;
+  cargo  c = 820 − 400 − 51.25 = 368.75 t at VCG 3.0 m and the LCG that puts G at x = 19.5 m:
+  x_c = (820·19.5 − 400·20 − 51.25·10)/368.75.
+* Δ = 820 t, so T = Δ/(ρ·L·B) = 2.0 m at the LCF (midships; a table row);
+  KG = (400·2.5 + 51.25·0.25 + 368.75·3.0)/820; each tank's free surface is 10 × 5 m,
+  i = l·b³/12 = 104.1667 m⁴, FSM = ρ·i each (ballast: actual level, IS 2008 B 3.1), both counted;
+  FSC = ΣFSM/Δ; KG fluid = KG + FSC;  KMt = T/2 + B²/(12T) = 5.16667 m;  GM = KMt − KG fluid.
+* MCTC = Δ·GML/(100·L) with GML = KML − KG fluid, KML = T/2 + L²/(12T) = 67.667 m (standards.md §6.3:
+  the moment to change trim from the longitudinal metacentric height), so
+  trim = Δ·(LCB − LCG)/(100·MCTC) = (LCB − LCG)·L/GML = 0.5·40/(67.667 − KG fluid) ≈ 0.3085 m by the
+  stern; with the LCF at midships T_aft = T + trim/2, T_fwd = T − trim/2, T_mid = 2.0 m.
+* GZ(φ) = KN(φ) − KG_fluid·sinφ with the exact box KN at T = 2 (checks.md §1.2), and the area
+  0→φ from the exact dynamic lever of tests/vessel_factories.py (checks.md §1.3).
+
+Tolerances: standards.md §5.3 (MSC.1/Circ.1229; IACS UR L5 Table 1): GMt 1 % / 5 cm max; KMt
+1 % / 5 cm max; displacement 2 %; "where two values are given the % applies but may not exceed
+the linear value" (standards.md §5.2, Circ.1461 §5.1).
+"""
+
+from __future__ import annotations
+
+import math
+
+import pytest
+
+from box_profile_text import BoxTank, box_profile_text
+from deckload.booklet_conditions import load_booklet_conditions
+from deckload.check_command import run_check
+from deckload.core.booklet import compare
+from deckload.core.stability import evaluate
+from deckload.profiles import load_profile
+from deckload.tomlcheck import ProfileError
+from vessel_factories import box_dynamic_lever_mrad, box_kn_m
+
+RHO, L, B, D, T = 1.025, 40.0, 10.0, 4.0, 2.0
+DISP = RHO * L * B * T
+TANK_T = 25.0 * RHO
+CARGO_T = DISP - 400.0 - 2 * TANK_T
+CARGO_X = (DISP * 19.5 - 400.0 * 20.0 - 2 * TANK_T * 10.0) / CARGO_T
+KG = (400.0 * 2.5 + 2 * TANK_T * 0.25 + CARGO_T * 3.0) / DISP
+FSM = 2 * RHO * 10.0 * 5.0**3 / 12.0
+FSC = FSM / DISP
+KGF = KG + FSC
+KMT = T / 2 + B * B / (12 * T)
+GM = KMT - KGF
+KML = T / 2 + L * L / (12 * T)
+TRIM = (20.0 - 19.5) * L / (KML - KGF)
+
+
+def gz(deg):
+    return box_kn_m(B, D, T, math.radians(deg)) - KGF * math.sin(math.radians(deg))
+
+
+def area(deg):
+    return box_dynamic_lever_mrad(B, D, T, KGF, math.radians(deg))
+
+
+LOADING = f"""water_density_t_m3 = 1.025
+  [booklet_condition.tanks.DB1P]
+  percent = 50.0
+  [booklet_condition.tanks.DB1S]
+  percent = 50.0
+  [[booklet_condition.constant]]
+  name = "Deck cargo"
+  mass_t = {CARGO_T!r}
+  lcg_m = {CARGO_X!r}
+  vcg_m = 3.0
+  tcg_m = 0.0
+"""
+
+
+def booklet_values(**override) -> dict:
+    """The analytic results, rounded as a booklet prints them (t to 0.1, m to 0.001, m·rad to 0.0001)."""
+    v = dict(displacement_t=round(DISP, 1), kg_m=round(KG, 3), fsm_tm=round(FSM, 1), fsc_m=round(FSC, 3),
+             kg_fluid_m=round(KGF, 3), km_m=round(KMT, 3), gm_m=round(GM, 3), draft_aft_m=round(T + TRIM / 2, 3),
+             draft_mid_m=round(T, 3), draft_fwd_m=round(T - TRIM / 2, 3), trim_m=round(TRIM, 3), list_deg=0.0,
+             tcg_m=0.0, lcg_m=19.5, area_0_30_mrad=round(area(30), 4), area_0_40_mrad=round(area(40), 4),
+             area_30_40_mrad=round(area(40) - area(30), 4))
+    v.update(override)
+    return v
+
+
+def expected_toml(values: dict, heels=(10, 20, 30, 40, 50)) -> str:
+    lines = ["  [booklet_condition.expected]"] + [f"  {k} = {x!r}" for k, x in values.items()]
+    lines.append("  gz_heel_deg = [" + ", ".join(f"{h:.1f}" for h in heels) + "]")
+    lines.append("  gz_m = [" + ", ".join(repr(round(gz(h), 3)) for h in heels) + "]")
+    return "\n".join(lines) + "\n"
+
+
+def profile(tmp_path, entries: str):
+    text = box_profile_text(
+        name="Booklet test barge", length_m=L, breadth_m=B, depth_m=D, drafts_m=[0.5 + 0.25 * k for k in range(13)],
+        kn_drafts_m=[1.0, 2.0, 3.0], heel_step_deg=5.0, lightship=(400.0, None, 2.5),
+        tanks=(BoxTank("DB1P", (5.0, 15.0), (-5.0, 0.0), (0.0, 1.0), pair="DB1S"),
+               BoxTank("DB1S", (5.0, 15.0), (0.0, 5.0), (0.0, 1.0), pair="DB1P")),
+        extra=entries)
+    f = tmp_path / "barge.toml"
+    f.write_text(text, encoding="utf-8")
+    return f
+
+
+def inline(name: str, values: dict, page: str = "") -> str:
+    head = f'\n[[booklet_condition]]\nname = "{name}"\n' + (f'page = "{page}"\n' if page else "")
+    return head + "  [booklet_condition.condition]\n  " + LOADING + expected_toml(values)
+
+
+def rows_for(tmp_path, values):
+    f = profile(tmp_path, inline("Worked condition", values))
+    v = load_profile(f)
+    (case,) = load_booklet_conditions(f, v)
+    return compare(evaluate(v, case.condition), case.expected, B)
+
+
+def test_the_booklet_condition_passes_within_tolerance(tmp_path, capsys):
+    rows = rows_for(tmp_path, booklet_values())
+    assert len(rows) == 17 + 5 and all(r.passed for r in rows), [r for r in rows if not r.passed]
+    f = profile(tmp_path, inline("Worked condition", booklet_values(), page="booklet p. 12"))
+    assert run_check(f) == 0
+    out = capsys.readouterr().out
+    assert "booklet condition 'Worked condition' (booklet p. 12), loading: inline" in out
+    assert "GM fluid (m)" in out and "±0.0232 m  1 % / 0.05 m max (GMt)" in out
+    assert "booklet conditions: 1 of 1 within the MSC.1/Circ.1229 / IACS UR L5 tolerances" in out
+
+
+def test_gm_just_over_its_1_percent_fails_and_just_under_passes(tmp_path):
+    """GMt: 1 % of the booklet value (≈ 0.023 m, under the 5 cm cap) — standards.md §5.3 (UR L5)."""
+    over = GM / (1 - 0.0101)    # booklet − deckload = 1.01 % of the booklet value
+    under = GM / (1 - 0.0099)
+    (row,) = [r for r in rows_for(tmp_path, {"gm_m": over}) if r.key == "gm_m"]
+    assert not row.passed and row.allowed == pytest.approx(0.01 * over)
+    (row,) = [r for r in rows_for(tmp_path, {"gm_m": under}) if r.key == "gm_m"]
+    assert row.passed
+
+
+def test_kmt_is_capped_at_5_cm_although_1_percent_is_more(tmp_path):
+    """KMt 5.167 m: 1 % would be 5.17 cm, but the linear 5 cm applies (standards.md §5.2–5.3)."""
+    (row,) = [r for r in rows_for(tmp_path, {"km_m": KMT + 0.0505}) if r.key == "km_m"]
+    assert not row.passed and row.allowed == 0.05
+    (row,) = [r for r in rows_for(tmp_path, {"km_m": KMT + 0.0495}) if r.key == "km_m"]
+    assert row.passed
+
+
+def test_displacement_2_percent_of_the_booklet_value(tmp_path):
+    rows = rows_for(tmp_path, {"displacement_t": DISP / (1 - 0.0201)})
+    assert not rows[0].passed and rows[0].key == "displacement_t"
+    assert rows_for(tmp_path, {"displacement_t": DISP / (1 - 0.0199)})[0].passed
+
+
+def test_a_failed_row_fails_check_with_a_condition_file(tmp_path, capsys):
+    """One condition file beside the profile, the booklet's GM just over tolerance: exit status 1."""
+    cond = tmp_path / "worked.condition.toml"
+    cond.write_text('format = "deckload-condition-1"\n[condition]\nname = "Worked"\n'
+                    + LOADING.replace("booklet_condition.", ""), encoding="utf-8")
+    entries = inline("Passes", booklet_values()) + (
+        '\n[[booklet_condition]]\nname = "Off by a hair"\ncondition_file = "worked.condition.toml"\n'
+        + expected_toml({"gm_m": GM / (1 - 0.0101)}, heels=(30,)))
+    f = profile(tmp_path, entries)
+    assert run_check(f) == 1
+    out = capsys.readouterr().out
+    assert f"loading: {cond}" in out
+    assert "FAIL: 1 row outside tolerance: GM fluid" in out
+    assert "booklet conditions: 1 of 2 within" in out
+
+
+def test_booklet_condition_problems_are_reported_with_file_line_and_key(tmp_path, capsys):
+    bad = ('\n[[booklet_condition]]\nname = "Broken"\n  [booklet_condition.condition]\n  water_density_t_m3 = 1.025\n'
+           '  [booklet_condition.tanks.NOPE]\n  percent = 50.0\n  [booklet_condition.expected]\n  gm_metres = 1.2\n')
+    f = profile(tmp_path, bad)
+    with pytest.raises(ProfileError) as ei:
+        load_booklet_conditions(f, load_profile(f))
+    text = f.read_text()
+    got = [str(p) for p in ei.value.problems]
+    nope = [i for i, ln in enumerate(text.splitlines(), 1) if "tanks.NOPE" in ln][0]
+    assert any(s.startswith(f"{f}:{nope}: booklet_condition[Broken].tanks.NOPE") and "no tank with this id" in s for s in got), got
+    assert any("booklet_condition[Broken].expected.gm_metres" in s and "unknown key" in s for s in got), got
+    assert run_check(f) == 1
+
+
+def test_exactly_one_source_of_loading(tmp_path):
+    f = profile(tmp_path, '\n[[booklet_condition]]\nname = "Nothing"\n  [booklet_condition.expected]\n  gm_m = 1.0\n')
+    with pytest.raises(ProfileError) as ei:
+        load_booklet_conditions(f, load_profile(f))
+    assert "give exactly one of condition_file" in str(ei.value)
+
+
+def test_gz_beyond_the_kn_table_is_a_fail_not_a_guess(tmp_path):
+    """Nothing is extrapolated: a booklet GZ at an angle the curve does not reach cannot be confirmed."""
+    from deckload.core import booklet
+
+    f = profile(tmp_path, inline("W", booklet_values()))
+    v = load_profile(f)
+    (case,) = load_booklet_conditions(f, v)
+    result = evaluate(v, case.condition)
+    import dataclasses
+    short = dataclasses.replace(result, gz_end_deg=40.0)
+    rows = booklet.compare(short, {"gz": ((50.0, gz(50)),)}, B)
+    assert not rows[0].passed and rows[0].deckload is None and "beyond the KN table's last angle 40°" in rows[0].note
+
+
+def test_booklet_results_typed_as_the_booklet_prints_them(tmp_path, capsys):
+    """LCG 0.5 m aft of midships (booklet: from midships, + aft) is 19.5 m from the AP (x_AP = 20 − 0.5);
+    extreme drafts need the keel thickness, which this profile does not give: refused with the reason."""
+    values = {"lcg_m": 0.5, "gm_m": round(GM, 3)}
+    entry = inline("As printed", values).replace(
+        "  [booklet_condition.expected]\n",
+        '  [booklet_condition.expected]\n  longitudinal_datum = "midships"\n  longitudinal_positive = "aft"\n')
+    f = profile(tmp_path, entry)
+    (case,) = load_booklet_conditions(f, load_profile(f))
+    assert case.expected["lcg_m"] == 19.5
+    assert run_check(f) == 0
+    out = capsys.readouterr().out
+    assert "converted: booklet_condition[As printed].expected lcg_m: from midships, + aft → from the AP" in out
+    bad = inline("Extreme", {"draft_mid_m": 2.012}).replace(
+        "  [booklet_condition.expected]\n", '  [booklet_condition.expected]\n  draft_basis = "extreme"\n')
+    f = profile(tmp_path, bad)
+    with pytest.raises(ProfileError) as ei:
+        load_booklet_conditions(f, load_profile(f))
+    assert "extreme drafts need [vessel] keel_thickness_m" in str(ei.value)

@@ -1,0 +1,52 @@
+"""Free-trim KN are made for one LCG: a caution when G is far from it (deckload's own threshold).
+
+The threshold (1 % of LBP, :data:`deckload.core.trim.KN_REFERENCE_FRACTION`) is a choice of
+this project, not a standard; its size on the demo hull is in the docstring of that constant.
+"""
+
+from __future__ import annotations
+
+import dataclasses
+
+import pytest
+
+from deckload.core.model import Condition
+from deckload.core.stability import evaluate
+from deckload.profiles import ProfileError, parse_profile
+from deckload.paths import DEMO_PROFILE
+from vessel_factories import box_barge
+
+
+def _barge_with_reference(lcg_m: float, reference_m: float | None, basis: str = "free trim"):
+    v = box_barge(lightship_lcg_m=lcg_m)
+    cc = dataclasses.replace(v.cross_curves, reference_lcg_m=reference_m, trim_basis=basis)
+    return dataclasses.replace(v, cross_curves=cc)
+
+
+@pytest.mark.parametrize("lcg_m, warned", [(20.0, False), (20.39, False), (19.61, False), (20.41, True), (18.4, True)])
+def test_caution_beyond_one_percent_of_lbp(lcg_m, warned):
+    """LBP 40 m: G more than 0.40 m from the reference LCG 20 m draws the caution, naming both."""
+    r = evaluate(_barge_with_reference(lcg_m, 20.0), Condition())
+    notes = [w for w in r.warnings if w.code == "kn-reference-lcg"]
+    assert bool(notes) is warned
+    if warned:
+        assert notes[0].severity == "caution"
+        assert f"{abs(lcg_m - 20.0):.2f} m" in notes[0].message and "20.00 m" in notes[0].message
+        assert ("forward of" if lcg_m > 20.0 else "abaft") in notes[0].message
+
+
+def test_no_caution_for_even_keel_curves_or_an_unstated_reference():
+    assert not any(w.code == "kn-reference-lcg" for w in evaluate(_barge_with_reference(15.0, 20.0, "even keel"),
+                                                                    Condition()).warnings)
+    assert not any(w.code == "kn-reference-lcg" for w in evaluate(_barge_with_reference(15.0, None), Condition()).warnings)
+
+
+def test_profile_key_reference_lcg_m():
+    """The demo profile states the LCG its free-trim curves were made for (its lightship LCG); a
+    non-number there is a problem naming the key."""
+    text = DEMO_PROFILE.read_text(encoding="utf-8")
+    assert parse_profile(text, str(DEMO_PROFILE)).cross_curves.reference_lcg_m == pytest.approx(17.4)
+    bad = text.replace("reference_lcg_m = 17.4", 'reference_lcg_m = "aft"')
+    with pytest.raises(ProfileError) as e:
+        parse_profile(bad, str(DEMO_PROFILE))
+    assert "cross_curves.reference_lcg_m" in str(e.value)
