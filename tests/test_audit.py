@@ -88,8 +88,8 @@ def test_every_lcb_negative(tmp_path):
 
 
 def test_fore_peak_lcg_35_m_on_a_22_m_vessel(tmp_path, capsys):
-    """Fore-peak LCG 35 m on a 22 m vessel.  Beyond 1.2·LBP the profile reader itself now refuses it
-    (a schema bound); the audit, which judges models however they were built, says the same."""
+    """Fore-peak LCG 35 m on a 22 m vessel: check refuses it on its own line, with the key; the audit,
+    which judges models however they were built, says the same of a model built in code."""
     text = fv22_text()
     at = text.index('id = "FP"')
     text = text[:at] + text[at:].replace("lcg_m = [20.5, 20.5, 20.5, 20.5, 20.5, 20.5]",
@@ -97,7 +97,8 @@ def test_fore_peak_lcg_35_m_on_a_22_m_vessel(tmp_path, capsys):
     f = write(tmp_path, text)
     assert run_check(f) == 1
     out = capsys.readouterr().out
-    assert f"{f}:{line_of(text, 'lcg_m = [35.0')}: tank[FP].calibration.lcg_m" in out
+    loc = f"{f}:{line_of(text, 'lcg_m = [35.0')}: "
+    assert any(ln.startswith(loc) and "tank[FP].calibration.lcg_m" in ln and "35" in ln for ln in out.splitlines())
     v = vessel()
     fp = v.tank("FP")
     cal = dataclasses.replace(fp.calibration, lcg_m=frozen_array(np.full(len(fp.calibration.lcg_m), 35.0)))
