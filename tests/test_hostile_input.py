@@ -9,6 +9,7 @@ table to 1147.19 t and 3.9 m.
 from __future__ import annotations
 
 import dataclasses
+from pathlib import Path
 import json
 import math
 
@@ -221,3 +222,27 @@ def test_hostile_csv_tables_are_problems(tmp_path, hostile, rule):
     with pytest.raises(ProfileError) as ei:
         load_profile(profile)
     assert any(rule in p.rule for p in ei.value.problems), ei.value
+
+
+# ------------------------------------------------------------------ found by the long fuzz run
+
+
+BARGE = (Path(__file__).parent / "broken_profiles" / "box_barge.toml").read_text(encoding="utf-8")
+
+
+def test_a_400_digit_tcg_is_a_problem_not_an_overflow():
+    """Found by tests/fuzz_by_hand.py: the TCG reader (port/starboard marks) converted it with float()."""
+    text = BARGE.replace("lcg_m = 20.0\nvcg_m = 2.5\ntcg_m = 0.0", "lcg_m = 20.0\nvcg_m = 2.5\ntcg_m = 1" + "0" * 400, 1)
+    assert text != BARGE
+    with pytest.raises(ProfileError) as ei:
+        parse_profile(text, "p.toml")
+    assert any(p.key == "lightship.tcg_m" and "finite" in p.rule for p in ei.value.problems)
+
+
+def test_a_hydrostatic_row_of_zero_displacement_does_not_break_the_audit():
+    """Found by tests/fuzz_by_hand.py: the audit's MCTC check divided by Δ = 0."""
+    from deckload.core.audit import audit
+
+    text = BARGE.replace("draft_m = [0.5, 1.0,", "draft_m = [0.0, 1.0,", 1).replace(
+        "displacement_t = [205.0, 410.0,", "displacement_t = [0.0, 410.0,", 1)
+    audit(parse_profile(text, "p.toml"))  # findings, not an exception
