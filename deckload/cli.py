@@ -31,6 +31,8 @@ def _parser() -> argparse.ArgumentParser:
     c.add_argument("profile", type=Path)
     c.add_argument("condition", type=Path)
     c.add_argument("--json", action="store_true", help="print one JSON object (SI units)")
+    c.add_argument("--direct", action="store_true",
+                   help="also compute from the hull geometry and print both methods side by side")
 
     k = sub.add_parser("check", help="validate a vessel profile and, optionally, a loading condition")
     k.add_argument("profile", type=Path)
@@ -100,14 +102,15 @@ def _reading(text: str) -> float:
 
 
 def _demo_shorthand(args: argparse.Namespace) -> None:
-    """Let 'demo' stand for the packaged demo profile and a demo condition's key for its file."""
-    from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
+    """Let 'demo' or 'trawler' stand for a packaged demo profile and a condition's key for its file."""
+    from deckload.paths import DEMO_VESSELS
 
-    if getattr(args, "profile", None) is not None and str(args.profile) == "demo" and not args.profile.is_file():
-        args.profile = DEMO_PROFILE
+    profile = getattr(args, "profile", None)
+    if profile is not None and str(profile) in DEMO_VESSELS and not profile.is_file():
+        args.profile, conditions = DEMO_VESSELS[str(profile)]
         cond = getattr(args, "condition", None)
-        if cond is not None and str(cond) in DEMO_CONDITIONS:
-            args.condition = DEMO_CONDITIONS[str(cond)]
+        if cond is not None and str(cond) in conditions:
+            args.condition = conditions[str(cond)]
 
 
 def main(argv: list[str] | None = None) -> int:
@@ -149,7 +152,7 @@ def _main(argv: list[str] | None) -> int:
         if cmd == "calc":
             from deckload.commands import run_calc
 
-            return run_calc(args.profile, args.condition, as_json=args.json)
+            return run_calc(args.profile, args.condition, as_json=args.json, direct=args.direct)
         if cmd == "check":
             from deckload.check_command import run_check
 

@@ -6,6 +6,7 @@ import json
 import sys
 from pathlib import Path
 
+from deckload import verdict_format as vf
 from deckload.core.result import Result
 
 CAUTION = (
@@ -33,18 +34,37 @@ def format_summary(r: Result) -> str:
         + (f"   vanishing {r.vanishing_angle_deg:.1f}°" if r.vanishing_angle_deg is not None
            else f"   vanishing beyond {r.gz_end_deg:g}°")
         + (f"   θf {r.downflooding_angle_deg:.1f}°" if r.downflooding_angle_deg is not None else ""),
+        f"  Freeboard mid  {vf.fmt_optional(r.freeboard_m, '.3f', ' m'):>12}      "
+        f"To load line {vf.fmt_optional(r.load_line_margin_m, '+.3f', ' m'):>11} (+ below the mark in use)",
+        f"  Deck edge in   {vf.fmt_optional(r.deck_edge_angle_deg, '.1f', '°'):>11}       "
+        f"θf {vf.fmt_optional(r.downflooding_angle_deg, '.1f', '°', 'not given'):>18}",
         f"  Free surface: rule {r.fs_rule}, GZ correction {r.gz_correction}",
     ] + ([f"  GZ curve ends at {r.gz_end_deg:g}°, the last angle of the KN tables: nothing beyond is known"]
          if r.gz_end_deg < 90.0 else []) + [
         "",
         "  Criteria" + (f" (checked heeling to {r.criteria_side})" if r.tcg_m else ""),
     ]
-    for c in r.criteria:
-        mark = "pass" if c.passed else "FAIL"
+    for g in vf.grouped(r):
+        lines.append(f"   {vf.set_title(g.set.title)} [{g.set.id}]: {g.word}")
+        for c in g.criteria:
+            if c.assessed:
+                d = vf.digits_of(c)
+                lines.append(
+                    f"    [{vf.result_word(c)}] {c.description:<45} {vf.value_text(c, 9)} {c.comparison} "
+                    f"{c.limit:7.{d}f} {c.unit:<5} margin {vf.margin_text(c)}   {c.source}"
+                )
+            else:
+                lines.append(f"    [{vf.NOT_ASSESSABLE}] {c.description:<45} limit {c.comparison} "
+                             f"{c.limit:.{vf.digits_of(c)}f} {c.unit}   {c.source}")
+            if c.note:
+                lines.append(f"           {c.note}")
+    w = r.weather
+    if w is not None:
         lines.append(
-            f"    [{mark}] {c.description:<45} {c.value:9.3f} {c.comparison} {c.limit:7.3f} {c.unit:<5}"
-            f" margin {c.margin:+.3f}   {c.source}"
-        )
+            f"    weather: wind {w.wind_pressure_pa:.0f} Pa on {w.windage_area_m2:.1f} m², lever {w.windage_lever_m:.2f} m; "
+            f"lw1 {w.lw1_m:.4f} m, lw2 {w.lw2_m:.4f} m; θ0 {w.theta0_deg:.1f}° (limit {w.theta0_limit_deg:.1f}°), "
+            f"θ1 {w.theta1_deg:.1f}°, θ2 {w.theta2_deg:.1f}°; a {w.area_a_mrad:.4f}, b {w.area_b_mrad:.4f} m·rad")
+    lines += [""] + vf.not_assessed_lines(r, 100, "  ")
     lines += ["", "  Tanks"]
     for t in r.tanks:
         flag = {"worst_band": "▲", "slack": "≈", "full": "■", "empty": "·"}[t.state]
@@ -56,7 +76,21 @@ def format_summary(r: Result) -> str:
     if r.warnings:
         lines += ["", "  Warnings"]
         lines += [f"    ! {w.message}" for w in r.warnings]
-    lines += ["", "  " + ("All criteria met." if r.all_criteria_pass else "CRITERIA NOT MET."), "", CAUTION]
+    lines += [""] + vf.verdict_lines(r, 100, "  ") + ["", CAUTION]
+    return "\n".join(lines)
+
+
+def format_comparison(cmp) -> str:
+    """The direct calculation beside the tables' result: one row per quantity, with the difference."""
+    lines = [
+        "",
+        "  Second method: direct calculation from the hull geometry (free in trim and heel, for the actual G)",
+        f"    {'':<24}{'tables':>11}{'direct':>11}{'difference':>12}",
+    ]
+    for name, unit, a, b in cmp.rows:
+        d = 2 if unit == "deg" else 4 if unit == "m·rad" else 3
+        lines.append(f"    {name:<24}{a:11.{d}f}{b:11.{d}f}{b - a:+12.{d}f} {unit}")
+    lines.append("    The criteria above are judged on the tables; the direct figures are for comparison.")
     return "\n".join(lines)
 
 
@@ -91,19 +125,45 @@ def load_and_evaluate(profile_path: Path, condition_path: Path):
         return 2
 
 
-def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False) -> int:
-    """Load, evaluate and print; exit 0 when computed (pass or fail), non-zero on bad input."""
+def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False, direct: bool = False) -> int:
+    """Load, evaluate and print; exit 0 when computed (pass or fail), non-zero on bad input.
+
+    With ``direct`` the direct calculation from the hull geometry is printed beside the
+    tables' result (the profile must name its ``hull_geometry``)."""
     loaded = load_and_evaluate(profile_path, condition_path)
     if isinstance(loaded, int):
         return loaded
-    vessel, result = loaded[0], loaded[2]
+    vessel, _, result = loaded
+    cmp = None
+    if direct:
+        from deckload.core.equilibrium import DirectError, compare
+        from deckload.core.tables import OutOfRangeError
+
+        try:
+            cmp = compare(vessel, result)
+        except (DirectError, OutOfRangeError) as e:
+            print(f"{profile_path}: direct calculation: {e}", file=sys.stderr)
+            return 1
     if as_json:
-        print(json.dumps(result.to_json_dict(), indent=1, ensure_ascii=False, allow_nan=False))
+        doc = result.to_json_dict()
+        if cmp is not None:
+            doc["direct"] = {"method": "hull geometry, free trim and heel, actual G",
+                             "rows": [{"quantity": n, "unit": u, "tables": a, "direct": b} for n, u, a, b in cmp.rows],
+                             "gz_m": list(cmp.gz_direct_m)}
+        print(json.dumps(doc, indent=1, ensure_ascii=False, allow_nan=False))
     else:
-        print(format_summary(result))
+        text = format_summary(result)
+        extra = []
         keel = vessel.particulars.keel_thickness_m
         if keel > 0.0:
             # The draft marks read extreme drafts where the booklet gives a keel thickness.
-            print(f"  Extreme drafts (moulded + keel {keel:.3f} m): aft {result.draft_aft_m + keel:.3f} m, "
-                  f"midships {result.draft_mean_m + keel:.3f} m, fwd {result.draft_fwd_m + keel:.3f} m")
+            extra.append(f"  Extreme drafts (moulded + keel {keel:.3f} m): aft {result.draft_aft_m + keel:.3f} m, "
+                         f"midships {result.draft_mean_m + keel:.3f} m, fwd {result.draft_fwd_m + keel:.3f} m")
+        if cmp is not None:
+            extra.append(format_comparison(cmp))
+        if extra:
+            # before the closing caution, which stays the last word of every printout
+            head, sep, tail = text.rpartition("\n\n" + CAUTION)
+            text = head + "\n" + "\n".join(extra) + sep + tail
+        print(text)
     return 0

@@ -23,7 +23,7 @@ def format_marks(vessel, condition, result, observed_readings=None) -> str:
     lines = [
         f"{result.vessel_name} — {result.condition_name}  (water {result.water_density_t_m3:.3f} t/m³)",
         "",
-        f"  Draft marks (extreme, from the underside of the keel; keel {dm.keel_thickness_m * 1000:.0f} mm)",
+        f"  Draft marks (extreme, from the underside of the keel; keel {vessel.particulars.keel_thickness_m * 1000:.0f} mm)",
         "                   x from AP      port      stbd",
         f"    aft          {dm.aft.x_m:9.2f} m {rd.aft_port_m:9.3f} {rd.aft_stbd_m:9.3f} m",
         f"    midships     {dm.midships.x_m:9.2f} m {rd.mid_port_m:9.3f} {rd.mid_stbd_m:9.3f} m",

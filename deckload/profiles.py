@@ -170,7 +170,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     particulars, frame = _read_particulars(root)
     lightship = _read_lightship(root, frame, rd)
     hydro = _read_hydrostatics(root, frame, rd)
-    cross = _read_cross_curves(root)
+    cross = _read_cross_curves(root, frame, rd)
     fs = _read_free_surface(root, lightship)
     criteria = _read_criteria(root, particulars)
     extra = _read_extra_criteria(root, particulars)
@@ -183,7 +183,8 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     windage = _read_windage(root, particulars)
     deck_edge = _read_deck_edge(root)
     passengers = _read_passengers(root, particulars, criteria)
-    marks = _read_draft_marks(root, particulars)
+    marks = _read_draft_marks(root, particulars, frame, rd)
+    hull = _read_hull_geometry(root, particulars, filename)
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
     depth = particulars.depth_m if particulars is not None else math.inf
@@ -217,6 +218,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
         conversions=tuple(rd.conversions),
         assumptions=tuple(rd.assumptions),
         draft_marks=marks,
+        hull=hull,
     ))
 
 
@@ -368,7 +370,7 @@ KN_MIN_END_DEG = 40.0
 """Cross curves must reach at least 40°: the IS 2008 Part A 2.2.1 areas run to 40° (or θf)."""
 
 
-def _read_cross_curves(root: Table) -> m.CrossCurves | None:
+def _read_cross_curves(root: Table, frame: Frame | None, rd: Reading) -> m.CrossCurves | None:
     t = root.table("cross_curves")
     if t is None:
         return None
@@ -385,9 +387,14 @@ def _read_cross_curves(root: Table) -> m.CrossCurves | None:
     kn = t.matrix("kn_m", "displacement_t", t.raw_len("displacement_t"), "heel_deg", t.raw_len("heel_deg"))
     has_ref = t.has("reference_lcg_m")
     ref = t.num("reference_lcg_m", required=False)
+    f = read_frame(t, frame)
     t.finish()
-    if basis is None or heel is None or disp is None or kn is None or (has_ref and ref is None):
+    if basis is None or heel is None or disp is None or kn is None or (has_ref and ref is None) or f is None:
         return None
+    if ref is not None:
+        _note_frame(rd, "cross_curves", f, "reference_lcg_m", "", False)
+        ref = float(f.x_to_ap(ref))
+    rd.tables["cross_curves"] = TableReading(f, csv=t.data.get("csv"))
     return m.CrossCurves(
         heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis,
         reference_lcg_m=ref,
@@ -725,48 +732,83 @@ def _read_downflooding(root: Table, hydro, frame: Frame | None, rd: Reading) -> 
     return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(ang), kind="downflooding_deg")
 
 
-def _read_draft_marks(root: Table, particulars: m.Particulars | None) -> m.DraftMarks | None:
-    """``[draft_marks]``: aft, midships, forward marks (x_m, y_m) and the keel thickness.
+HULL_MATCH_TOLERANCE = 0.001
+"""The geometry file's LBP and breadth must match the profile's within 0.1 %: a different hull
+would give a 'second method' about another ship."""
+
+
+def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename: str):
+    """``hull_geometry``: the geometry file (path relative to the profile) whose hull the direct
+    calculation integrates.  Its problems are reported as the profile's, naming the file."""
+    name = root.text("hull_geometry", required=False, default=None)
+    if name is None:
+        return None
+    from deckload.core.geometry.builder import hull_body
+    from deckload.geometry_io import load_geometry
+
+    path = Path(name)
+    if not path.is_absolute():
+        path = Path(filename).parent / path
+    if not path.is_file():
+        root.bad("hull_geometry", name, f"no such geometry file ({path})")
+        return None
+    try:
+        geometry = load_geometry(path)
+    except ProfileError as e:
+        root.bad("hull_geometry", name, "the geometry file has problems: " + "; ".join(str(p) for p in e.problems))
+        return None
+    if particulars is not None:
+        for key, ours, theirs in (("lbp_m", particulars.lbp_m, geometry.vessel.lbp_m),
+                                  ("breadth_m", particulars.breadth_m, geometry.vessel.breadth_m)):
+            if abs(ours - theirs) > HULL_MATCH_TOLERANCE * ours:
+                root.bad("hull_geometry", name, f"its {key} {num(theirs)} m is not the profile's {num(ours)} m")
+                return None
+    return hull_body(geometry)
+
+
+def _read_draft_marks(root: Table, particulars: m.Particulars | None, frame: Frame | None,
+                      rd: Reading) -> m.DraftMarks | None:
+    """``[draft_marks]``: aft, midships, forward marks (x_m in the vessel's or the table's own
+    longitudinal convention, y_m off the centreline).  They read extreme drafts: moulded plus
+    ``[vessel] keel_thickness_m``.
 
     Bounds from the vessel: marks within 20 % of LBP beyond either perpendicular, no further
     off the centreline than half the breadth, aft < midships < forward with the aft and
-    forward marks at least half the LBP apart (the trim is found from their difference);
-    keel thickness under a tenth of the depth.
+    forward marks at least half the LBP apart (the trim is found from their difference).
     """
     t = root.table("draft_marks", required=False)
     if t is None:
         return None
-    lbp = particulars.lbp_m if particulars is not None else None
+    f = read_frame(t, frame)
     half_b = particulars.breadth_m / 2.0 if particulars is not None else None
-    x_rule = (between(-0.2 * lbp, 1.2 * lbp, "m", "within 20 % of LBP of the perpendiculars")
-              if lbp is not None else None)
     y_rule = between(0.0, half_b, "m", "between the centreline and the side") if half_b is not None else non_negative
-    k_rule = (between(0.0, 0.1 * particulars.depth_m, "m", "a keel plate, under a tenth of the depth")
-              if particulars is not None else non_negative)
-    keel = t.num("keel_thickness_m", k_rule, required=False, default=0.0)
-    bad_keel = t.has("keel_thickness_m") and keel is None
     found: dict[str, m.DraftMark | None] = {}
     for where in ("aft", "midships", "forward"):
         sub = t.table(where)
         if sub is None:
             found[where] = None
             continue
-        x = sub.num("x_m", *((x_rule,) if x_rule else ()))
+        x = _x(sub, "x_m", f)
         y = sub.num("y_m", y_rule)
         sub.finish()
+        if x is not None and particulars is not None and not -0.2 * particulars.lbp_m <= x <= 1.2 * particulars.lbp_m:
+            sub.bad("x_m", sub.data["x_m"], f"is {num(x)} m from the AP: marks lie within 20 % of LBP of the perpendiculars")
+            x = None
         found[where] = None if x is None or y is None else m.DraftMark(x, y)
     t.finish()
-    if bad_keel or any(v is None for v in found.values()) or lbp is None:
+    _note_frame(rd, t.name, f, "x_m", "", False)
+    if any(v is None for v in found.values()) or particulars is None:
         return None
-    a, mid, f = found["aft"], found["midships"], found["forward"]
-    if not a.x_m < mid.x_m < f.x_m:
-        t.bad("midships", t.data["midships"], "the marks must lie aft < midships < forward (x_m from AP)")
+    lbp = particulars.lbp_m
+    a, mid, fw = found["aft"], found["midships"], found["forward"]
+    if not a.x_m < mid.x_m < fw.x_m:
+        t.bad("midships", t.data["midships"], "the marks must lie aft < midships < forward")
         return None
-    if f.x_m - a.x_m < 0.5 * lbp:
-        t.bad("forward", t.data["forward"], f"only {num(f.x_m - a.x_m)} m forward of the aft marks: they must be at "
+    if fw.x_m - a.x_m < 0.5 * lbp:
+        t.bad("forward", t.data["forward"], f"only {num(fw.x_m - a.x_m)} m forward of the aft marks: they must be at "
               f"least half the LBP ({num(0.5 * lbp)} m) apart to give the trim")
         return None
-    return m.DraftMarks(a, mid, f, keel)
+    return m.DraftMarks(a, mid, fw)
 
 
 def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,

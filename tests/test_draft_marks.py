@@ -27,12 +27,13 @@ from vessel_factories import BARGE_B, BARGE_L, RHO_SW, box_barge
 
 L, B = BARGE_L, BARGE_B
 KEEL = 0.015
-MARKS = DraftMarks(DraftMark(2.0, 5.0), DraftMark(20.0, 5.0), DraftMark(39.0, 5.0), KEEL)
+MARKS = DraftMarks(DraftMark(2.0, 5.0), DraftMark(20.0, 5.0), DraftMark(39.0, 5.0))
 
 
 def _barge(draft_m: float = 2.0, lcg_m: float = L / 2, kg_m: float = 3.0):
     v = box_barge(lightship_t=RHO_SW * L * B * draft_m, lightship_kg_m=kg_m, lightship_lcg_m=lcg_m)
-    return dataclasses.replace(v, draft_marks=MARKS)
+    return dataclasses.replace(v, draft_marks=MARKS,
+                               particulars=dataclasses.replace(v.particulars, keel_thickness_m=KEEL))
 
 
 def _plane_readings(draft_m: float, slope: float, list_deg: float) -> MarkReadings:
@@ -119,17 +120,17 @@ def test_impossible_readings_and_missing_marks_are_refused():
 
 def test_profile_draft_marks_are_validated():
     text = DEMO_PROFILE.read_text(encoding="utf-8")
-    v = parse_profile(text, "demo.toml")
-    assert v.draft_marks.forward.x_m == 36.0 and v.draft_marks.keel_thickness_m == 0.012
+    v = parse_profile(text, str(DEMO_PROFILE))
+    assert v.draft_marks.forward.x_m == 36.0 and v.particulars.keel_thickness_m == 0.012
     swapped = text.replace("[draft_marks.forward]\nx_m = 36.0", "[draft_marks.forward]\nx_m = 10.0")
     with pytest.raises(ProfileError, match="draft_marks.midships"):
-        parse_profile(swapped, "demo.toml")
+        parse_profile(swapped, str(DEMO_PROFILE))
     wide = text.replace("[draft_marks.midships]\nx_m = 19.0\ny_m = 5.0", "[draft_marks.midships]\nx_m = 19.0\ny_m = 6.0")
     with pytest.raises(ProfileError, match=r"draft_marks\.midships\.y_m = 6\.0.*between"):
-        parse_profile(wide, "demo.toml")
-    thick = text.replace("keel_thickness_m = 0.012", "keel_thickness_m = 0.9")
-    with pytest.raises(ProfileError, match="keel_thickness_m"):
-        parse_profile(thick, "demo.toml")
+        parse_profile(wide, str(DEMO_PROFILE))
+    far = text.replace("[draft_marks.forward]\nx_m = 36.0", "[draft_marks.forward]\nx_m = 50.0")
+    with pytest.raises(ProfileError, match=r"draft_marks\.forward\.x_m = 50\.0.*within 20 % of LBP"):
+        parse_profile(far, str(DEMO_PROFILE))
 
 
 def test_marks_command(capsys):

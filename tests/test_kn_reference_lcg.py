@@ -45,8 +45,8 @@ def test_profile_key_reference_lcg_m():
     """The demo profile states the LCG its free-trim curves were made for (its lightship LCG); a
     non-number there is a problem naming the key."""
     text = DEMO_PROFILE.read_text(encoding="utf-8")
-    assert parse_profile(text, "demo.toml").cross_curves.reference_lcg_m == pytest.approx(17.4)
+    assert parse_profile(text, str(DEMO_PROFILE)).cross_curves.reference_lcg_m == pytest.approx(17.4)
     bad = text.replace("reference_lcg_m = 17.4", 'reference_lcg_m = "aft"')
     with pytest.raises(ProfileError) as e:
-        parse_profile(bad, "demo.toml")
+        parse_profile(bad, str(DEMO_PROFILE))
     assert "cross_curves.reference_lcg_m" in str(e.value)

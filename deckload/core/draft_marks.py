@@ -82,7 +82,7 @@ def marks_for(vessel: Vessel, draft_at_lcf_m: float, lcf_m: float, trim_m: float
     """Readings at the marks for drafts worked about the LCF, listed ``list_deg`` (+ starboard)."""
     dm = _marks(vessel)
     lbp = vessel.particulars.lbp_m
-    k = dm.keel_thickness_m
+    k = vessel.particulars.keel_thickness_m
     tan_l = math.tan(math.radians(list_deg))
 
     def pair(x: float, y: float) -> tuple[float, float]:
@@ -139,12 +139,11 @@ def condition_from_readings(vessel: Vessel, readings: MarkReadings, water_densit
     p = vessel.particulars
     lbp = p.lbp_m
     names = ("aft port", "aft starboard", "midships port", "midships starboard", "forward port", "forward starboard")
+    k = p.keel_thickness_m
     for name, r in zip(names, readings.as_tuple()):
-        if not math.isfinite(r) or not dm.keel_thickness_m <= r <= p.depth_m + dm.keel_thickness_m:
+        if not math.isfinite(r) or not k <= r <= p.depth_m + k:
             raise DraftMarksError(f"{name} reading {r!r} m: must be a draft between the keel "
-                                  f"({dm.keel_thickness_m:g} m) and the depth plus keel "
-                                  f"({p.depth_m + dm.keel_thickness_m:g} m)")
-    k = dm.keel_thickness_m
+                                  f"({k:g} m) and the depth plus keel ({p.depth_m + k:g} m)")
 
     def centre(port: float, stbd: float, y: float) -> tuple[float, float]:
         lst = math.degrees(math.atan2(stbd - port, 2.0 * y)) if y > 0 else 0.0

@@ -23,6 +23,8 @@ from typing import Literal
 
 import numpy as np
 
+from deckload.core.geometry.body import Body
+
 # --------------------------------------------------------------------------- kinds
 
 LIQUID_KINDS: tuple[str, ...] = (
@@ -371,13 +373,12 @@ class DraftMark:
 
 @dataclass(frozen=True)
 class DraftMarks:
-    """The draft marks aft, amidships and forward; they read from the underside of the keel."""
+    """The draft marks aft, amidships and forward; they read from the underside of the keel
+    (moulded draft + ``Particulars.keel_thickness_m``)."""
 
     aft: DraftMark
     midships: DraftMark
     forward: DraftMark
-    keel_thickness_m: float = 0.0
-    """Keel plate below the moulded baseline (m): a mark reads moulded draft + this (extreme draft)."""
 
 
 @dataclass(frozen=True)
@@ -448,6 +449,9 @@ class Vessel:
     assumptions: tuple[str, ...] = ()
     """What was assumed where the booklet gives less than the model needs, one line each."""
     draft_marks: DraftMarks | None = None
+    hull: "Body | None" = None
+    """The hull as sections (from the geometry file named by ``hull_geometry``), for the direct
+    calculation beside the tables; None when the profile names no geometry."""
     tank_index: dict[str, int] = field(init=False, repr=False, compare=False)
     hold_index: dict[str, int] = field(init=False, repr=False, compare=False)
     area_index: dict[str, int] = field(init=False, repr=False, compare=False)

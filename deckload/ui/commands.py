@@ -61,6 +61,12 @@ COMMANDS: tuple[Command, ...] = (
             footer=False, title="GZ correction method"),
     Command("toggle_gz", "g", "GZ", "Show the GZ curve or the numbers (only below 110 columns, where both do not fit).",
             title="GZ curve or numbers"),
+    Command("wind_plot", "b", "Wind", "Show the weather criterion (IS Code 2008 Part A 2.3) on the curve: GZ with the "
+            "steady and gust wind levers lw1 and lw2, the angles θ0, θ1 and θ2, and the areas a and b; again for the "
+            "plain GZ curve.", footer=False, title="Wind and roll plot"),
+    Command("verdict", "v", "Verdict", "The whole verdict: every criteria set assessed, each criterion with its "
+            "paragraph, value, limit and margin, and everything that was not assessed, with the reason.",
+            footer=False, title="Whole verdict"),
     Command("alerts", "w", "Warn", "List every warning, when more are raised than the warning strip can show.",
             title="All warnings"),
     Command("sign_on", "o", "Watch", "Sign on as officer of the watch (initials): every change is then written "

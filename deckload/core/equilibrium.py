@@ -1,0 +1,187 @@
+"""Direct calculation from the hull: equilibrium free in trim and heel, drafts, and GZ for the actual G.
+
+A second method beside the tables, for profiles that carry the hull geometry
+(``hull_geometry``).  Nothing here is read from the hydrostatic or cross-curve tables:
+
+1. The hull displaces ∇ = Δ/ρ_water.  At each heel θ of a grid (0–90° in
+   :data:`HEEL_STEP_DEG` steps) the level and the trim are solved together so that the
+   volume is ∇ and B lies on one vertical with the actual G: R = (x_B − LCG) −
+   tanψ·(ζ_B − ζ_G) = 0, ζ_G = KG·cosθ (free trim for the actual LCG; the solver of
+   :mod:`deckload.core.geometry.cross_curves`, whose derivation is there).  G's offset
+   from the centreline enters this balance only through tanψ·TCG·sinθ, a fraction of a
+   millimetre, and is left out of it.
+2. KN(θ) = η_B at that equilibrium; KN on the engine's 0.1° grid by the natural cubic
+   spline in heel that the table method uses (:mod:`deckload.core.gz`); GZ = KN −
+   KG_fluid·sinφ − TCG·cosφ to starboard and KN − KG_fluid·sinφ + TCG·cosφ to port (the
+   hull is symmetric: heeled to port it is the mirror image).
+3. The list is where GZ on the low side rises through zero (as in the table method);
+   at that heel the equilibrium is solved once more and the drafts are read on the
+   centreline from the plane itself: T(x) = (c₀ − (x − x_ref)·tanψ)/cosθ — no small-angle
+   assumption in trim or list.  Trim = T_AP − T_FP.
+4. KMt at the upright, trimmed equilibrium: KB + I_T/∇, I_T the waterplane's transverse
+   second moment about its centroid; GM fluid = KMt − KG fluid.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+import numpy as np
+
+from deckload.core import gz as gzmod
+from deckload.core.geometry.body import Body, immerse
+from deckload.core.geometry.cross_curves import NoEquilibriumError, solve_floating
+from deckload.core.tables import CubicSpline, OutOfRangeError
+
+HEEL_STEP_DEG = 5.0
+"""Heel grid of the direct calculation (deg), the step of the demo's cross curves: between grid
+points GZ carries the same spline error as the table method (largest beside a sharp deck-edge
+kink such as a box's), at them none."""
+
+HEELS_DEG = np.round(np.arange(0.0, 90.0 + HEEL_STEP_DEG / 2, HEEL_STEP_DEG), 10)
+
+
+class DirectError(ValueError):
+    """The hull cannot float as asked (more displacement than the hull holds, no equilibrium)."""
+
+
+@dataclass(frozen=True)
+class DirectState:
+    """Equilibrium and GZ by integrating the hull; same units and signs as the Result."""
+
+    displacement_t: float
+    draft_aft_m: float
+    """At the AP, on the centreline, moulded (m)."""
+    draft_fwd_m: float
+    draft_mid_m: float
+    trim_m: float
+    """T_AP − T_FP (m), + by the stern."""
+    list_deg: float
+    """+ starboard."""
+    kmt_m: float
+    gm_fluid_m: float
+    heel_deg: np.ndarray
+    """The grid the hull was solved at (deg)."""
+    kn_m: np.ndarray
+    """KN at free trim for the actual LCG, on that grid (m)."""
+    trim_grid_rad: np.ndarray
+    """Trim angle ψ at each grid heel (rad, + by the stern)."""
+    gz_stbd_m: np.ndarray
+    """GZ on the engine's 0.1° grid, heeling to starboard (m)."""
+    gz_port_m: np.ndarray
+    """GZ heeling to port (m), the same grid."""
+
+
+def hull_capacity_m3(body: Body) -> float:
+    """Volume of the whole closed hull (to its highest deck point): the most it can displace."""
+    return float(immerse(body, 1.0, 0.0, body.z_max_m).volume_m3)
+
+
+def direct_state(body: Body, lbp_m: float, displacement_t: float, water_density_t_m3: float,
+                 lcg_m: float, kg_fluid_m: float, tcg_m: float) -> DirectState:
+    """Equilibrium and the GZ curve of the hull itself (module docstring)."""
+    vol = displacement_t / water_density_t_m3
+    if not (math.isfinite(vol) and vol > 0.0):
+        raise DirectError(f"displacement {displacement_t!r} t cannot float")
+    cap = hull_capacity_m3(body)
+    if vol >= cap:
+        raise OutOfRangeError("displacement (hull geometry, volume)", vol, 0.0, cap, "m³")
+    th = np.radians(HEELS_DEG)
+    try:
+        c, t, _ = solve_floating(body, np.full(th.shape, vol), th, "free trim", lcg_m, kg_fluid_m, lcg_m)
+    except NoEquilibriumError as e:
+        raise DirectError(str(e)) from None
+    ct = np.where(np.abs(np.cos(th)) < 1e-15, 0.0, np.cos(th))
+    im = immerse(body, ct, np.sin(th), c, t, lcg_m)
+    kn = im.eta_b_m
+    kn_fine = CubicSpline.fit(HEELS_DEG, kn)(gzmod.FINE_DEG)
+    base = kn_fine - kg_fluid_m * gzmod.SIN
+    gz_stbd = base - tcg_m * gzmod.COS
+    gz_port = base + tcg_m * gzmod.COS
+    side_curve = gz_port if tcg_m < 0 else gz_stbd
+    eq = gzmod.facts(side_curve).equilibrium_deg
+    heel = eq if tcg_m >= 0 else -eq
+
+    # drafts at the list, from the plane itself (the hull is symmetric: the port list mirrors)
+    th_l = math.radians(min(abs(heel), 89.0))
+    c_l, t_l, _ = solve_floating(body, np.array([vol]), np.array([th_l]), "free trim", lcg_m, kg_fluid_m, lcg_m,
+                                 c_start=np.interp([th_l], th, c), t_start=np.interp([th_l], th, t))
+    cos_l = math.cos(th_l)
+
+    def draft(x: float) -> float:
+        return float((c_l[0] - (x - lcg_m) * t_l[0]) / cos_l)
+
+    t_ap, t_fp = draft(0.0), draft(lbp_m)
+    # upright metacentre at the upright free-trim equilibrium (grid heel 0)
+    up = immerse(body, 1.0, 0.0, c[0], t[0], lcg_m)
+    a = float(up.wp_area_m2)
+    ybar = float(up.wp_eta_m3) / a if a > 0 else 0.0
+    i_t = float(up.wp_etaeta_m4) - a * ybar**2
+    kmt = float(up.zeta_b_m) + i_t / vol
+    return DirectState(
+        displacement_t=displacement_t, draft_aft_m=t_ap, draft_fwd_m=t_fp, draft_mid_m=draft(lbp_m / 2.0),
+        trim_m=t_ap - t_fp, list_deg=heel, kmt_m=kmt, gm_fluid_m=kmt - kg_fluid_m, heel_deg=HEELS_DEG.copy(),
+        kn_m=kn, trim_grid_rad=np.arctan(t), gz_stbd_m=gz_stbd, gz_port_m=gz_port,
+    )
+
+
+@dataclass(frozen=True)
+class Comparison:
+    """The table method's result and the direct calculation side by side."""
+
+    direct: DirectState
+    rows: tuple[tuple[str, str, float, float], ...]
+    """(quantity, unit, tables, direct); the difference is direct − tables."""
+    gz_direct_m: tuple[float, ...]
+    """Direct GZ at whole degrees 0–90 on the side the criteria are checked (m)."""
+
+
+def compare(vessel, result) -> Comparison:
+    """Direct calculation for a computed :class:`~deckload.core.result.Result`, beside it.
+
+    Same displacement, water, LCG, KG fluid and TCG.  The direct KN replace the tables' KN
+    and nothing else: the free-surface treatment of the result (constant or actual transfer)
+    is carried over as the difference between its GZ and KN − KG fluid·sinφ − TCG·cosφ, so the
+    two curves differ only by what the tables and the hull say about the immersed volume.
+    """
+    if vessel.hull is None:
+        raise DirectError("the profile names no hull_geometry: the direct calculation needs the hull")
+    d = direct_state(vessel.hull, vessel.particulars.lbp_m, result.displacement_t, result.water_density_t_m3,
+                     result.lcg_m, result.kg_fluid_m, result.tcg_m)
+    rho_ratio = result.water_density_t_m3 / vessel.particulars.table_density_t_m3
+    kn_table = gzmod.kn_curve(vessel.cross_curves, result.displacement_t / rho_ratio)
+    whole = gzmod.WHOLE_DEGREES
+    port = result.criteria_side == "port"
+    gz_table_whole = np.array(result.gz_port_m if port else result.gz_m)
+    sign = 1.0 if port else -1.0
+    plain_whole = (kn_table - result.kg_fluid_m * gzmod.SIN + sign * result.tcg_m * gzmod.COS)[whole]
+    # the result's free-surface treatment, beyond the constant KG fluid (zero for 'constant')
+    extra = np.interp(gzmod.FINE_DEG, gzmod.FINE_DEG[whole], gz_table_whole - plain_whole)
+    gz_direct = (d.gz_port_m if port else d.gz_stbd_m) + extra
+    f = gzmod.facts(gz_direct)
+    flood = result.downflooding_angle_deg
+    top = min(40.0, flood) if flood is not None else 40.0
+    a30 = gzmod.area_to(gz_direct, 30.0)
+    a40 = gzmod.area_to(gz_direct, top)
+    heel = f.equilibrium_deg if not port else -f.equilibrium_deg
+    rows = [
+        ("Draft aft", "m", result.draft_aft_m, d.draft_aft_m),
+        ("Draft forward", "m", result.draft_fwd_m, d.draft_fwd_m),
+        ("Draft midships", "m", result.draft_mean_m, d.draft_mid_m),
+        ("Trim (+ by the stern)", "m", result.trim_m, d.trim_m),
+        ("List (+ starboard)", "deg", result.list_deg, heel),
+        ("KMt", "m", result.km_m, d.kmt_m),
+        ("GM fluid", "m", result.gm_fluid_m, d.gm_fluid_m),
+    ]
+    for deg in (10, 20, 30, 40, 50, 60):
+        rows.append((f"GZ at {deg}°", "m", float(gz_table_whole[deg]), float(gz_direct[deg * 10])))
+    rows += [
+        ("Max GZ", "m", result.max_gz_m, f.max_gz_m),
+        ("Angle of max GZ", "deg", result.max_gz_angle_deg, f.max_gz_angle_deg),
+        ("Area 0–30°", "m·rad", result.area_0_30_mrad, a30),
+        (f"Area 0–{top:.1f}°", "m·rad", result.area_0_40_mrad, a40),
+        (f"Area 30–{top:.1f}°", "m·rad", result.area_30_40_mrad, a40 - a30 if top > 30.0 else 0.0),
+    ]
+    return Comparison(d, tuple((n, u, float(a), float(b)) for n, u, a, b in rows),
+                      tuple(float(x) for x in gz_direct[whole]))
