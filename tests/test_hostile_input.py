@@ -37,6 +37,15 @@ def with_item(lcg: str, mass: str = "10.0", vcg: str = "5.0", group: str = "deck
     return base + f'\n[[{group}]]\nname = "far"\nmass_t = {mass}\nlcg_m = {lcg}\nvcg_m = {vcg}\n'
 
 
+def with_demo_geometry(folder):
+    """``folder`` with the files the demo profile names beside it (its hull geometry)."""
+    import shutil
+
+    for f in DEMO_PROFILE.parent.glob("*.geometry.toml"):
+        shutil.copy(f, folder)
+    return folder
+
+
 def problems_of(text: str, vessel) -> list:
     with pytest.raises(ProfileError) as ei:
         parse_condition(text, "c.toml", vessel)
@@ -112,7 +121,7 @@ def test_json_output_is_strict(capsys):
 def test_profile_values_beyond_the_vessels_physics_are_refused(old, new, key):
     assert old in PROFILE_TEXT
     with pytest.raises(ProfileError) as ei:
-        parse_profile(PROFILE_TEXT.replace(old, new, 1), "p.toml")
+        parse_profile(PROFILE_TEXT.replace(old, new, 1), str(DEMO_PROFILE))
     assert key in [p.key for p in ei.value.problems]
 
 
@@ -122,7 +131,7 @@ def test_profile_values_beyond_the_vessels_physics_are_refused(old, new, key):
 ])
 def test_calc_refuses_a_profile_the_audit_finds_impossible(tmp_path, capsys, old, new, key):
     """Profile tables are judged by the plausibility audit, now before every command uses them."""
-    f = tmp_path / "p.toml"
+    f = with_demo_geometry(tmp_path) / "p.toml"
     f.write_text(PROFILE_TEXT.replace(old, new, 1), encoding="utf-8")
     cond = tmp_path / "c.toml"
     cond.write_text(DEPARTURE, encoding="utf-8")
@@ -161,13 +170,14 @@ def test_the_demo_profile_cut_before_its_first_tank_is_refused_for_having_no_tan
     lines = PROFILE_TEXT.splitlines(keepends=True)
     cut = "".join(lines[: lines.index("[[tank]]\n")])
     with pytest.raises(ProfileError) as ei:
-        parse_profile(cut, "cut.toml")
+        parse_profile(cut, str(DEMO_PROFILE))
     assert any(p.key == "tank" and "no [[tank]] sections" in p.rule for p in ei.value.problems)
 
 
 def test_check_says_what_is_missing_for_a_profile_cut_before_its_cross_curves(tmp_path, capsys):
-    cut = tmp_path / "cut.toml"
-    cut.write_text("".join(PROFILE_TEXT.splitlines(keepends=True)[:71]), encoding="utf-8")
+    cut = with_demo_geometry(tmp_path) / "cut.toml"
+    lines = PROFILE_TEXT.splitlines(keepends=True)
+    cut.write_text("".join(lines[: lines.index("[cross_curves]\n")]), encoding="utf-8")
     assert main(["check", str(cut)]) == 1
     out = capsys.readouterr().out
     assert "cross_curves: required key is missing" in out and "OK" not in out
@@ -176,7 +186,7 @@ def test_check_says_what_is_missing_for_a_profile_cut_before_its_cross_curves(tm
 def test_a_hydrostatic_table_that_stops_below_the_design_draft_is_refused():
     text = PROFILE_TEXT.replace("design_draft_m = 2.9", "design_draft_m = 4.2")
     with pytest.raises(ProfileError) as ei:
-        parse_profile(text, "p.toml")
+        parse_profile(text, str(DEMO_PROFILE))
     assert any(p.key == "hydrostatics.draft_m" and "design draft" in p.rule for p in ei.value.problems)
 
 
@@ -196,7 +206,7 @@ def test_a_huge_table_is_refused_quickly_with_the_limit_named(vessel, tmp_path):
     rows = ", ".join(["1.0"] * (MAX_TABLE_VALUES + 1))
     text = PROFILE_TEXT.replace("heel_deg = [\n", f"heel_deg = [{rows}, \n", 1)
     with pytest.raises(ProfileError, match=f"more than the {MAX_TABLE_VALUES} allowed"):
-        parse_profile(text, "p.toml")
+        parse_profile(text, str(DEMO_PROFILE))
 
 
 def test_a_device_named_as_a_profile_is_not_read_endlessly():
