@@ -61,6 +61,9 @@ COMMANDS: tuple[Command, ...] = (
             footer=False, title="GZ correction method"),
     Command("toggle_gz", "g", "GZ", "Show the GZ curve or the numbers (only below 110 columns, where both do not fit).",
             title="GZ curve or numbers"),
+    Command("compare_hull", "h", "Hull", "Compute the condition from the hull geometry itself (free in trim and heel, "
+            "for the actual G) and show it beside the tables' figures, with the difference; the screen stays live.",
+            footer=False, title="Compare with the hull"),
     Command("alerts", "w", "Warn", "List every warning, when more are raised than the warning strip can show.",
             title="All warnings"),
     Command("sign_on", "o", "Watch", "Sign on as officer of the watch (initials): every change is then written "
