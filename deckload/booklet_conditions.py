@@ -16,6 +16,7 @@ from pathlib import Path
 import tomli_w
 
 from deckload.core import model as m
+from deckload.conventions import Frame, read_frame, tcg_num
 from deckload.core.booklet import QUANTITIES
 from deckload.profiles import CONDITION_FORMAT, _read_text, load_condition, parse_condition
 from deckload.tomlcheck import MISSING, FileCheck, Problem, ProfileError, Table, between, non_negative
@@ -40,6 +41,8 @@ class BookletCase:
     """The booklet's results: keys of deckload.core.booklet.QUANTITIES, and ``gz`` = ((heel, gz), …)."""
     source: str
     """Where the loading came from: the condition file, or 'inline'."""
+    conversions: tuple[str, ...] = ()
+    """How the booklet's printed values were converted (datum, sign, extreme drafts), one line each."""
 
 
 def load_booklet_conditions(profile_path: str | os.PathLike, vessel: m.Vessel) -> list[BookletCase]:
@@ -60,7 +63,7 @@ def load_booklet_conditions(profile_path: str | os.PathLike, vessel: m.Vessel) -
                 t.bad("name", name, "duplicate booklet-condition name")
             names.add(name)
         page = t.text("page", required=False, default="", empty_ok=True)
-        expected = _read_expected(t)
+        expected, conversions = _read_expected(t, vessel)
         file_given = t.has("condition_file")
         inline = [k for k in INLINE_KEYS if t.has(k)]
         cfile = t.text("condition_file", required=False, default=None)
@@ -93,25 +96,53 @@ def load_booklet_conditions(profile_path: str | os.PathLike, vessel: m.Vessel) -
             source = "inline"
         if name is None or expected is None or page is None:
             continue
-        cases.append(BookletCase(name, page or "", condition, expected, source))
+        cases.append(BookletCase(name, page or "", condition, expected, source, conversions))
     ctx.fail_if_any()
     return cases
 
 
-def _read_expected(t: Table) -> dict | None:
+DRAFT_KEYS = ("draft_aft_m", "draft_mid_m", "draft_fwd_m")
+
+
+def _read_expected(t: Table, vessel: m.Vessel) -> tuple[dict | None, tuple[str, ...]]:
+    """The booklet's results, converted to deckload's conventions, and the conversions made.
+
+    By default in deckload's conventions (x from the AP + forward, y + starboard, moulded drafts),
+    as a condition file is; ``longitudinal_datum``/``longitudinal_positive``,
+    ``transverse_positive`` and ``draft_basis`` in the table let the values be typed as the
+    booklet prints them (vessel_profiles/README.md, "Booklet conventions").
+    """
     e = t.table("expected")
     if e is None:
-        return None
+        return None, ()
+    p = vessel.particulars
+    frame = read_frame(e, Frame(p.lbp_m, keel_thickness_m=p.keel_thickness_m), drafts=True)
     out: dict = {}
-    ok = True
+    ok = frame is not None
+    frame = frame or Frame(p.lbp_m)
+    done: list[str] = []
     for key in QUANTITIES:
         present = e.has(key)
-        x = e.num(key, *_RULES.get(key, ()), required=False)
-        if present:
-            if x is None:
-                ok = False
-            else:
-                out[key] = x
+        if key == "tcg_m":
+            x, _ = tcg_num(e, key, frame, default=None)
+        else:
+            x = e.num(key, *_RULES.get(key, ()), required=False)
+        if not present:
+            continue
+        if x is None:
+            ok = False
+            continue
+        if key == "lcg_m" and not frame.x_is_identity:
+            x = float(frame.x_to_ap(x))
+            done.append(f"lcg_m: {frame.describe_x()}")
+        elif key in ("tcg_m", "list_deg") and not frame.y_is_identity:
+            if key == "list_deg":
+                x = frame.plain_sign * x
+            done.append(f"{key}: {frame.describe_y()}")
+        elif key in DRAFT_KEYS and frame.draft_basis == "extreme":
+            x = float(frame.draft_to_moulded(x))
+            done.append(f"{key}: extreme → moulded (− keel {p.keel_thickness_m:g} m)")
+        out[key] = x
     has_heel, has_gz = e.has("gz_heel_deg"), e.has("gz_m")
     heel = e.array("gz_heel_deg", between(0.0, 90.0, "°"), required=False, min_len=1)
     gz = e.array("gz_m", required=False, min_len=1)
@@ -130,8 +161,8 @@ def _read_expected(t: Table) -> dict | None:
     if ok and not out:
         e.ctx.add(e.raw, e.name, None, "gives no booklet result to compare: at least one of "
                   + ", ".join(list(QUANTITIES)[:4]) + ", … (vessel_profiles/README.md)")
-        return None
-    return out if ok else None
+        return None, ()
+    return (out, tuple(f"converted: {t.name}.expected {d}" for d in done)) if ok else (None, ())
 
 
 def _inline_condition(ctx: FileCheck, t: Table, idx: int, name: str, vessel: m.Vessel) -> m.Condition | None:

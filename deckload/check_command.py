@@ -21,8 +21,9 @@ import sys
 import traceback
 from pathlib import Path
 
+from deckload import verdict_format as vf
 from deckload.core import model as m
-from deckload.profiles import Problem, ProfileError, load_condition, load_profile
+from deckload.profiles import Problem, ProfileError, load_condition, read_profile
 
 CAUTION = (
     "deckload supports, and never replaces, the approved stability booklet, "
@@ -39,7 +40,7 @@ def _range(a, unit: str) -> str:
     return f"{float(a[0]):.4g}–{float(a[-1]):.4g}{sep}{unit}"
 
 
-def profile_summary(path: Path, v: m.Vessel) -> list[str]:
+def profile_summary(path: Path, v: m.Vessel, sources: dict[str, str] | None = None) -> list[str]:
     """A few lines saying what the profile holds and over which ranges its tables run."""
     h, k = v.hydrostatics, v.cross_curves
     rows = [len(t.calibration.sounding_m) for t in v.tanks if t.level_known]
@@ -57,6 +58,8 @@ def profile_summary(path: Path, v: m.Vessel) -> list[str]:
     if float(k.heel_deg[-1]) < 90.0:
         lines.append(f"    note: the KN tables end at {float(k.heel_deg[-1]):g}°: the GZ curve, its areas and plots stop "
                      "there; nothing is extrapolated")
+    if sources:
+        lines.append("    from CSV: " + ", ".join(f"{k} ← {f}" for k, f in sources.items()))
     # How the booklet's conventions were converted, and what was assumed (vessel_profiles/README.md).
     lines += [f"    converted: {c}" for c in v.conversions]
     lines += [f"    assumed:   {a}" for a in v.assumptions]
@@ -75,7 +78,7 @@ def run_check(profile_path: Path, condition_path: Path | None = None) -> int:
     """Validate the profile (and the condition against it); print the outcome; return the exit status."""
     profile_path = Path(profile_path)
     try:
-        vessel = load_profile(profile_path)
+        vessel, reading = read_profile(profile_path)
     except OSError as e:
         print(f"deckload: cannot read {profile_path}: {e.strerror or e}", file=sys.stderr)
         return 2
@@ -88,7 +91,8 @@ def run_check(profile_path: Path, condition_path: Path | None = None) -> int:
     from deckload.audit_report import audit_profile
 
     found = audit_profile(profile_path, vessel)
-    summary = profile_summary(profile_path, vessel)
+    sources = {k: tr.csv for k, tr in reading.tables.items() if tr.csv}
+    summary = profile_summary(profile_path, vessel, sources)
     if any(f.is_error for f in found):
         # the schema is met but the numbers contradict each other: not "OK"
         summary[0] = "ERR " + summary[0][4:]
@@ -138,6 +142,8 @@ def _booklet(path: Path, vessel: m.Vessel) -> int:
     for case in cases:
         where = f" ({case.page})" if case.page else ""
         print(f"booklet condition {case.name!r}{where}, loading: {case.source}")
+        for line in case.conversions:
+            print(f"    {line}")
         try:
             result = evaluate(vessel, case.condition)
         except (OutOfRangeError, ValueError) as e:
@@ -191,13 +197,14 @@ def _check_condition(path: Path, vessel: m.Vessel) -> int:
         if os.environ.get("DECKLOAD_DEBUG"):
             traceback.print_exc()
         return 3
-    met = sum(1 for c in result.criteria if c.passed)
+    met = sum(1 for c in result.criteria if c.passed and c.assessed)
     print(
         f"OK  {path}: {condition.name!r}: valid, and computes to displacement {result.displacement_t:.1f} t, "
         f"mean draft {result.draft_mean_m:.3f} m, GM fluid {result.gm_fluid_m:.3f} m; "
-        f"stability criteria met: {met} of {len(result.criteria)}"
+        f"criteria met: {met} of {len(result.criteria)}"
     )
-    print(f"    verdict: {result.verdict_text()}")
+    for line in vf.verdict_lines(result, 100, "    "):
+        print(line)
     for w in result.warnings:
         print(f"    {w.severity}: {w.message}")
     return 0

@@ -103,14 +103,15 @@ def _reading(text: str) -> float:
 
 
 def _demo_shorthand(args: argparse.Namespace) -> None:
-    """Let 'demo' stand for the packaged demo profile and a demo condition's key for its file."""
-    from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
+    """Let 'demo' or 'trawler' stand for a packaged demo profile and a condition's key for its file."""
+    from deckload.paths import DEMO_VESSELS
 
-    if getattr(args, "profile", None) is not None and str(args.profile) == "demo" and not args.profile.is_file():
-        args.profile = DEMO_PROFILE
+    profile = getattr(args, "profile", None)
+    if profile is not None and str(profile) in DEMO_VESSELS and not profile.is_file():
+        args.profile, conditions = DEMO_VESSELS[str(profile)]
         cond = getattr(args, "condition", None)
-        if cond is not None and str(cond) in DEMO_CONDITIONS:
-            args.condition = DEMO_CONDITIONS[str(cond)]
+        if cond is not None and str(cond) in conditions:
+            args.condition = conditions[str(cond)]
 
 
 def main(argv: list[str] | None = None) -> int:

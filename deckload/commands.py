@@ -6,6 +6,7 @@ import json
 import sys
 from pathlib import Path
 
+from deckload import verdict_format as vf
 from deckload.core.result import Result
 
 CAUTION = (
@@ -33,18 +34,37 @@ def format_summary(r: Result) -> str:
         + (f"   vanishing {r.vanishing_angle_deg:.1f}°" if r.vanishing_angle_deg is not None
            else f"   vanishing beyond {r.gz_end_deg:g}°")
         + (f"   θf {r.downflooding_angle_deg:.1f}°" if r.downflooding_angle_deg is not None else ""),
+        f"  Freeboard mid  {vf.fmt_optional(r.freeboard_m, '.3f', ' m'):>12}      "
+        f"To load line {vf.fmt_optional(r.load_line_margin_m, '+.3f', ' m'):>11} (+ below the mark in use)",
+        f"  Deck edge in   {vf.fmt_optional(r.deck_edge_angle_deg, '.1f', '°'):>11}       "
+        f"θf {vf.fmt_optional(r.downflooding_angle_deg, '.1f', '°', 'not given'):>18}",
         f"  Free surface: rule {r.fs_rule}, GZ correction {r.gz_correction}",
     ] + ([f"  GZ curve ends at {r.gz_end_deg:g}°, the last angle of the KN tables: nothing beyond is known"]
          if r.gz_end_deg < 90.0 else []) + [
         "",
         "  Criteria" + (f" (checked heeling to {r.criteria_side})" if r.tcg_m else ""),
     ]
-    for c in r.criteria:
-        mark = "pass" if c.passed else "FAIL"
+    for g in vf.grouped(r):
+        lines.append(f"   {vf.set_title(g.set.title)} [{g.set.id}]: {g.word}")
+        for c in g.criteria:
+            if c.assessed:
+                d = vf.digits_of(c)
+                lines.append(
+                    f"    [{vf.result_word(c)}] {c.description:<45} {vf.value_text(c, 9)} {c.comparison} "
+                    f"{c.limit:7.{d}f} {c.unit:<5} margin {vf.margin_text(c)}   {c.source}"
+                )
+            else:
+                lines.append(f"    [{vf.NOT_ASSESSABLE}] {c.description:<45} limit {c.comparison} "
+                             f"{c.limit:.{vf.digits_of(c)}f} {c.unit}   {c.source}")
+            if c.note:
+                lines.append(f"           {c.note}")
+    w = r.weather
+    if w is not None:
         lines.append(
-            f"    [{mark}] {c.description:<45} {c.value:9.3f} {c.comparison} {c.limit:7.3f} {c.unit:<5}"
-            f" margin {c.margin:+.3f}   {c.source}"
-        )
+            f"    weather: wind {w.wind_pressure_pa:.0f} Pa on {w.windage_area_m2:.1f} m², lever {w.windage_lever_m:.2f} m; "
+            f"lw1 {w.lw1_m:.4f} m, lw2 {w.lw2_m:.4f} m; θ0 {w.theta0_deg:.1f}° (limit {w.theta0_limit_deg:.1f}°), "
+            f"θ1 {w.theta1_deg:.1f}°, θ2 {w.theta2_deg:.1f}°; a {w.area_a_mrad:.4f}, b {w.area_b_mrad:.4f} m·rad")
+    lines += [""] + vf.not_assessed_lines(r, 100, "  ")
     lines += ["", "  Tanks"]
     for t in r.tanks:
         flag = {"worst_band": "▲", "slack": "≈", "full": "■", "empty": "·"}[t.state]
@@ -56,7 +76,7 @@ def format_summary(r: Result) -> str:
     if r.warnings:
         lines += ["", "  Warnings"]
         lines += [f"    ! {w.message}" for w in r.warnings]
-    lines += ["", "  " + ("All criteria met." if r.all_criteria_pass else "CRITERIA NOT MET."), "", CAUTION]
+    lines += [""] + vf.verdict_lines(r, 100, "  ") + ["", CAUTION]
     return "\n".join(lines)
 
 
@@ -85,8 +105,13 @@ def load_and_evaluate(profile_path: Path, condition_path: Path):
     from deckload.core.tables import OutOfRangeError
     from deckload.profiles import ProfileError, load_condition, load_profile
 
+    from deckload.audit_report import audit_or_refuse
+
     try:
         vessel = load_profile(profile_path)
+        # A profile whose numbers contradict each other (positions outside the vessel, a KN or an
+        # inertia beyond her hull) is never used, by any command (issue 12: the screen already refused it).
+        audit_or_refuse(profile_path, vessel)
         condition = load_condition(condition_path, vessel)
         return vessel, condition, evaluate(vessel, condition)
     except ProfileError as e:

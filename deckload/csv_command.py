@@ -97,27 +97,28 @@ def hold_rows(h: m.Hold, tr: TableReading) -> tuple[list[str], list[list]]:
     return list(cols), [[cols[k][i] for k in cols] for i in range(len(h.fill_pct))]
 
 
-def profile_tables(v: m.Vessel, rd: Reading) -> list[tuple[str, str, list[str], list[list]]]:
-    """(file name, what, header, rows) for every table of the profile that has rows."""
+def profile_tables(v: m.Vessel, rd: Reading) -> list[tuple[str, str, str, list[str], list[list]]]:
+    """(file name, what, key of its reading, header, rows) for every table of the profile that has rows."""
     out = []
     hy = rd.tables.get("hydrostatics")
     if hy is not None:
-        out.append(("hydrostatics.csv", "[hydrostatics]", *hydrostatics_rows(v, hy)))
-    out.append(("cross_curves.csv", "[cross_curves]", *cross_curve_rows(v)))
+        out.append(("hydrostatics.csv", "[hydrostatics]", "hydrostatics", *hydrostatics_rows(v, hy)))
+    out.append(("cross_curves.csv", "[cross_curves]", "cross_curves", *cross_curve_rows(v)))
     for t in v.tanks:
         tr = rd.tables.get(f"tank[{t.id}].calibration")
         if t.level_known and tr is not None:
-            out.append((f"tank_{t.id}.csv", f"tank[{t.id}].calibration", *calibration_rows(t, tr)))
+            key = f"tank[{t.id}].calibration"
+            out.append((f"tank_{t.id}.csv", key, key, *calibration_rows(t, tr)))
     if v.limit_curve is not None and "limit_curve" in rd.tables:
-        out.append(("limit_curve.csv", "[limit_curve]",
+        out.append(("limit_curve.csv", "[limit_curve]", "limit_curve",
                     *curve_rows(v, v.limit_curve, rd.tables["limit_curve"], v.limit_curve.kind)))
     df = rd.tables.get("downflooding")
     if v.downflooding is not None and df is not None and df.against != "single":
-        out.append(("downflooding.csv", "[downflooding]", *curve_rows(v, v.downflooding, df, "angle_deg")))
+        out.append(("downflooding.csv", "[downflooding]", "downflooding", *curve_rows(v, v.downflooding, df, "angle_deg")))
     for h in v.holds:
         tr = rd.tables.get(f"hold[{h.id}]")
         if h.fill_pct is not None and tr is not None:
-            out.append((f"hold_{h.id}_fill.csv", f"hold[{h.id}] fill table", *hold_rows(h, tr)))
+            out.append((f"hold_{h.id}_fill.csv", f"hold[{h.id}] fill table", f"hold[{h.id}]", *hold_rows(h, tr)))
     return out
 
 
@@ -157,9 +158,8 @@ def run_csv(profile_path: Path, out_dir: Path) -> int:
     out_dir = Path(out_dir)
     try:
         out_dir.mkdir(parents=True, exist_ok=True)
-        for name, what, header, rows in profile_tables(vessel, rd):
+        for name, what, key, header, rows in profile_tables(vessel, rd):
             write_csv(out_dir / name, header, rows)
-            key = what.split(" ")[0].strip("[]")
             print(f"wrote {out_dir / name}: {what}, {len(rows)} rows{describe(rd.tables.get(key))}")
     except BrokenPipeError:
         raise

@@ -19,7 +19,9 @@ Each line holds (format ``deckload-log-1``)::
     ship_clock   the ship's clock offset from UTC, "+HH:MM" (local timezone or configured)
     vessel, by, kind, change, change_data, remark
     summary      the computed summary of the Result (Δ, drafts, trim, list, GM fluid, FSC,
-                 criteria passed/failed and the smallest margin), or null
+                 criteria passed/failed and the smallest margin, the criteria sets assessed,
+                 what was not assessed and why, the verdict sentence, freeboard and its margin
+                 to the load line, deck-edge and downflooding angles, the weather numbers), or null
     condition    the loading condition as written by deckload.profiles.dump_condition, or null
     prev_sha256  SHA-256 (hex) of the previous line's bytes, without its "\\n";
                  64 zeros on line 1
@@ -240,7 +242,19 @@ def summarise(result: Result) -> dict:
         "fsc_m": result.fsc_m,
         "gm_fluid_m": result.gm_fluid_m,
         "criteria_pass": result.all_criteria_pass,
-        "criteria_failed": [c.id for c in result.criteria if not c.passed],
+        "criteria_failed": [c.id for c in result.criteria if c.assessed and not c.passed],
+        "criteria_not_assessable": [{"id": c.id, "note": c.note} for c in result.criteria if not c.assessed],
+        "criteria_sets": [{"id": a.id, "title": a.title, "pass": a.passed} for a in result.criteria_sets],
+        "not_assessed": [{"item": n.item, "reason": n.reason} for n in result.not_assessed],
+        "verdict": result.verdict_text(),
+        "deck_edge_angle_deg": result.deck_edge_angle_deg,
+        "downflooding_angle_deg": result.downflooding_angle_deg,
+        "freeboard_m": result.freeboard_m,
+        "load_line_margin_m": result.load_line_margin_m,
+        "weather": None if result.weather is None else {
+            k: getattr(result.weather, k) for k in (
+                "lw1_m", "lw2_m", "theta0_deg", "theta0_limit_deg", "theta1_deg", "theta2_deg",
+                "area_a_mrad", "area_b_mrad")},
         "smallest_margin": None
         if sm is None
         else {

@@ -10,8 +10,10 @@ import csv
 import html as htmllib
 import io
 import sys
+import textwrap
 from pathlib import Path
 
+from deckload import verdict_format as vf
 from deckload.atomicfile import write_atomic
 from deckload.logbook import (
     KIND_LABELS,
@@ -30,7 +32,8 @@ CAUTION = (
 CSV_COLUMNS = (
     "seq", "utc", "ship_time", "ship_clock", "vessel", "by", "kind", "change", "remark", "condition_name",
     "displacement_t", "draft_fwd_m", "draft_aft_m", "draft_mean_m", "trim_m", "list_deg", "gm_fluid_m",
-    "fsc_m", "criteria_pass", "criteria_failed", "smallest_margin_criterion", "smallest_margin",
+    "fsc_m", "criteria_pass", "criteria_failed", "criteria_sets", "criteria_not_assessable", "not_assessed",
+    "verdict", "freeboard_m", "load_line_margin_m", "deck_edge_angle_deg", "smallest_margin_criterion", "smallest_margin",
     "smallest_margin_unit", "prev_sha256", "sha256",
 )
 """Columns of ``deckload log export --csv`` (SI units, as in the log itself)."""
@@ -109,11 +112,12 @@ def _record(args) -> int:
     if book.head_problem:
         print(f"deckload: warning: {book.head_path}: {book.head_problem} (the entry itself is recorded)",
               file=sys.stderr)
-    verdict = "all criteria met" if result.all_criteria_pass else "CRITERIA NOT MET"
     print(
         f"Recorded entry #{entry.seq} in {book.path} at {entry.utc:%Y-%m-%d %H:%M:%S} UTC by {entry.by}: "
-        f"Δ {result.displacement_t:.1f} t, GM fluid {result.gm_fluid_m:.3f} m, {verdict}."
+        f"Δ {result.displacement_t:.1f} t, GM fluid {result.gm_fluid_m:.3f} m."
     )
+    for line in vf.verdict_lines(result, 100, "  "):
+        print(line)
     print(CAUTION)
     return 0
 
@@ -146,7 +150,6 @@ def entry_row(e: LogEntry) -> dict[str, str]:
     """One entry as the CSV/HTML columns (:data:`CSV_COLUMNS`)."""
     s = e.summary or {}
     sm = s.get("smallest_margin") or {}
-    passed = s.get("criteria_pass")
     return {
         "seq": str(e.seq),
         "utc": e.utc.strftime("%Y-%m-%dT%H:%M:%S.%f")[:-3] + "Z",
@@ -166,8 +169,16 @@ def entry_row(e: LogEntry) -> dict[str, str]:
         "list_deg": _fmt(s.get("list_deg"), 2),
         "gm_fluid_m": _fmt(s.get("gm_fluid_m")),
         "fsc_m": _fmt(s.get("fsc_m")),
-        "criteria_pass": "" if passed is None else ("pass" if passed else "FAIL"),
+        "criteria_pass": {"": "", "met": "pass", "NOT MET": "FAIL", "met where assessable": "n/a"}[vf.stored_word(s)],
         "criteria_failed": " ".join(s.get("criteria_failed", [])),
+        "criteria_sets": " ".join(f"{x.get('id')}={'pass' if x.get('pass') else 'FAIL'}"
+                                  for x in s.get("criteria_sets") or []),
+        "criteria_not_assessable": " ".join(str(x.get("id")) for x in s.get("criteria_not_assessable") or []),
+        "not_assessed": "; ".join(f"{x.get('item')}: {x.get('reason')}" for x in s.get("not_assessed") or []),
+        "verdict": s.get("verdict", ""),
+        "freeboard_m": _fmt(s.get("freeboard_m")),
+        "load_line_margin_m": _fmt(s.get("load_line_margin_m")),
+        "deck_edge_angle_deg": _fmt(s.get("deck_edge_angle_deg"), 1),
         "smallest_margin_criterion": sm.get("id", ""),
         "smallest_margin": _fmt(sm.get("margin")),
         "smallest_margin_unit": sm.get("unit", ""),
@@ -185,14 +196,18 @@ def _show(args) -> int:
         try:
             entries = book.entries()
             print(f"{book.vessel_name} — {book.path} ({len(entries)} entries)")
-            print(f"{'#':>4}  {'UTC':<19}  {'ship':<5}  {'by':<4}  {'kind':<9}  {'GM fl m':>7}  {'crit':<4}  change")
+            print(f"{'#':>4}  {'UTC':<19}  {'ship':<5}  {'by':<4}  {'kind':<9}  {'GM fl m':>7}  {'criteria':<14}  change")
             for e in entries:
                 r = entry_row(e)
                 print(
                     f"{e.seq:>4}  {e.utc:%Y-%m-%d %H:%M:%S}  {e.ship_time:%H:%M}  {e.by:<4}  {e.kind:<9}  "
-                    f"{r['gm_fluid_m']:>7}  {r['criteria_pass']:<4}  {e.change_text}"
+                    f"{r['gm_fluid_m']:>7}  {vf.stored_short(e.summary):<14}  {e.change_text}"
                     + (f" — {e.remark}" if e.remark else "")
                 )
+                na = (e.summary or {}).get("not_assessed")
+                if na:
+                    text = "not assessed: " + vf.grouped_not_assessed((x.get("item"), x.get("reason")) for x in na)
+                    print("\n".join(textwrap.wrap(text, 110, initial_indent=" " * 6, subsequent_indent=" " * 8)))
             for s in book.skipped:
                 print(f"  ! unreadable: {s} (run 'deckload log verify')")
             print()
@@ -214,10 +229,11 @@ def export_csv(entries: list[LogEntry]) -> str:
 def export_html(books: list[tuple[str, list[LogEntry]]]) -> str:
     """The log(s) as one printable HTML page (A4 landscape)."""
     cols = ("seq", "utc", "ship_time", "by", "kind", "change", "remark", "displacement_t", "draft_fwd_m",
-            "draft_aft_m", "trim_m", "list_deg", "gm_fluid_m", "fsc_m", "criteria_pass", "smallest_margin_criterion",
-            "smallest_margin")
+            "draft_aft_m", "trim_m", "list_deg", "gm_fluid_m", "fsc_m", "freeboard_m", "criteria_pass",
+            "criteria_sets", "not_assessed", "smallest_margin_criterion", "smallest_margin")
     heads = ("#", "UTC", "Ship's time", "By", "Kind", "Change", "Remark", "Δ t", "T fwd m", "T aft m", "Trim m",
-             "List °", "GM fluid m", "FSC m", "Criteria", "Smallest margin", "Margin")
+             "List °", "GM fluid m", "FSC m", "Freeboard m", "Criteria", "Sets assessed", "Not assessed",
+             "Smallest margin", "Margin")
     out = [
         "<!DOCTYPE html>",
         '<html lang="en"><head><meta charset="utf-8"><title>Voyage loading log</title>',
@@ -232,7 +248,7 @@ def export_html(books: list[tuple[str, list[LogEntry]]]) -> str:
         "</style></head><body>",
     ]
     numeric = {"seq", "displacement_t", "draft_fwd_m", "draft_aft_m", "trim_m", "list_deg", "gm_fluid_m", "fsc_m",
-               "smallest_margin"}
+               "freeboard_m", "smallest_margin"}
     for vessel, entries in books:
         out.append(f"<h1>Voyage loading log — {htmllib.escape(vessel)}</h1>")
         head = "".join(f"<th>{htmllib.escape(h)}</th>" for h in heads)

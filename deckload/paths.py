@@ -1,7 +1,7 @@
-"""Where deckload finds its demo vessel and keeps its logs and working conditions.
+"""Where deckload finds its demo vessels and keeps its logs and working conditions.
 
-This module only computes paths; it creates nothing.  The demo vessel ships as
-package data (``deckload/data``) so that ``pip install .`` finds it from any
+This module only computes paths; it creates nothing.  The demo vessels ship as
+package data (``deckload/data``) so that ``pip install .`` finds them from any
 working folder; ``vessel_profiles/`` in the checkout is the browsable copy.
 """
 
@@ -18,6 +18,31 @@ DEMO_CONDITIONS = {
     "arrival": PACKAGE_DATA / "demo_islander.arrival.condition.toml",
     "light": PACKAGE_DATA / "demo_islander.light.condition.toml",
 }
+TRAWLER_PROFILE = PACKAGE_DATA / "demo_trawler.toml"
+"""The second demo vessel, an invented stern trawler entered from booklet-style tables (CSV)."""
+TRAWLER_CONDITIONS = {
+    "departure": PACKAGE_DATA / "demo_trawler.departure.condition.toml",
+    "grounds": PACKAGE_DATA / "demo_trawler.grounds.condition.toml",
+    "arrival": PACKAGE_DATA / "demo_trawler.arrival.condition.toml",
+}
+DEMO_VESSELS = {
+    "demo": (DEMO_PROFILE, DEMO_CONDITIONS),
+    "trawler": (TRAWLER_PROFILE, TRAWLER_CONDITIONS),
+}
+"""Shorthand names on the command line: name → (profile, {condition key: file})."""
+
+
+def demo_start_condition(profile: Path | None) -> Path | None:
+    """The condition a packaged demo vessel opens on when none is saved: its departure.
+
+    ``None`` stands for the default demo vessel; any other profile gets ``None`` back.
+    """
+    if profile is None:
+        return DEMO_CONDITIONS["departure"]
+    for demo_profile, conditions in DEMO_VESSELS.values():
+        if Path(profile).resolve() == demo_profile.resolve():
+            return conditions["departure"]
+    return None
 
 
 def _checkout_root(start: Path) -> Path | None:

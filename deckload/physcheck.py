@@ -69,70 +69,29 @@ def check_vessel(ctx: FileCheck, v: m.Vessel) -> m.Vessel:
         ctx.add(("hydrostatics", "draft_m", len(h.draft_m) - 1), "hydrostatics.draft_m", toml_value(float(h.draft_m[-1])),
                 f"the table ends below the design draft {num(p.design_draft_m)} m: it must reach it "
                 "(is the table cut short?)")
-    k = v.cross_curves
 
     ls = v.lightship
     c.one(("lightship", "mass_t"), "lightship.mass_t", ls.mass_t, b.lightship_mass_range(v))
-    c.position(p, ("lightship",), "lightship", ls.lcg_m, ls.vcg_m, ls.tcg_m)
-
+    # Positions, hydrostatic rows, KN and tank tables of the profile are judged by the
+    # plausibility audit (deckload.core.audit, on the same envelope), which every command
+    # runs before it uses a profile (deckload.commands.load_and_evaluate, check, open).
     for n, it in enumerate(getattr(v, "constants", ())):
         c.one(("constant", n, "mass_t"), f"constant[#{n + 1}].mass_t", it.mass_t, b.item_mass_range(v))
         c.position(p, ("constant", n), f"constant[#{n + 1}]", it.lcg_m, it.vcg_m, it.tcg_m)
-
-    c.array(("hydrostatics", "draft_m"), "hydrostatics.draft_m", h.draft_m, b.z_range(p))
-    c.array(("hydrostatics", "displacement_t"), "hydrostatics.displacement_t", h.displacement_t,
-            lambda i: b.Range(0.0, b.displacement_high_t(p, float(h.draft_m[i[0]])), "t",
-                              "at most the box 1.2·LBP × breadth × draft full of water"))
-    c.array(("hydrostatics", "lcb_m"), "hydrostatics.lcb_m", h.lcb_m, b.x_range(p))
-    c.array(("hydrostatics", "lcf_m"), "hydrostatics.lcf_m", h.lcf_m, b.x_range(p))
-    c.array(("hydrostatics", "tpc_t_cm"), "hydrostatics.tpc_t_cm", h.tpc_t_cm,
-            b.Range(0.0, b.tpc_high(p), "t/cm", "at most ρ × 1.2·LBP × breadth / 100"))
-
-    def at_row(high_of, unit: str, why: str):
-        def rng(i):
-            d, disp = float(h.draft_m[i[0]]), float(h.displacement_t[i[0]])
-            return b.Range(0.0, high_of(p, d, disp) if disp > 0 else float("inf"), unit, why)
-        return rng
-
-    c.array(("hydrostatics", "kmt_m"), "hydrostatics.kmt_m", h.kmt_m,
-            at_row(b.kmt_high_m, "m", "KB + I/∇ with the box waterplane: draft + ρ·1.2·LBP·B³/(12·Δ)"))
-    c.array(("hydrostatics", "mctc_tm_cm"), "hydrostatics.mctc_tm_cm", h.mctc_tm_cm,
-            at_row(b.mctc_high, "t·m/cm", "Δ·KML/(100·LBP) with the box waterplane"))
-    if h.kml_m is not None:
-        c.array(("hydrostatics", "kml_m"), "hydrostatics.kml_m", h.kml_m,
-                at_row(b.kml_high_m, "m", "draft + ρ·B·(1.2·LBP)³/(12·Δ), the box waterplane's"))
-    if h.vcb_m is not None:
-        c.array(("hydrostatics", "vcb_m"), "hydrostatics.vcb_m", h.vcb_m,
-                lambda i: b.Range(0.0, float(h.draft_m[i[0]]), "m", "the centre of buoyancy lies below the waterline"))
     hi_disp = b.max_displacement_t(v)
-    c.array(("cross_curves", "displacement_t"), "cross_curves.displacement_t", k.displacement_t,
-            b.Range(0.0, b.displacement_high_t(p, b.z_max_m(p)), "t", "at most the hull box full of water"))
-    c.array(("cross_curves", "kn_m"), "cross_curves.kn_m", k.kn_m, b.kn_range(p))
 
     for n, t in enumerate(v.tanks):
         raw, name = ("tank", n), f"tank[{t.id}]"
         c.one(raw + ("capacity_m3",), f"{name}.capacity_m3", t.capacity_m3, b.volume_range(p))
-        cal = t.calibration
-        rc = raw + ("calibration",)
-        c.array(rc + ("sounding_m",), f"{name}.calibration.sounding_m", cal.sounding_m, b.z_range(p))
-        c.array(rc + ("lcg_m",), f"{name}.calibration.lcg_m", cal.lcg_m, b.x_range(p))
-        c.array(rc + ("vcg_m",), f"{name}.calibration.vcg_m", cal.vcg_m, b.z_range(p))
-        c.array(rc + ("tcg_m",), f"{name}.calibration.tcg_m", cal.tcg_m, b.y_range(p))
-        c.array(rc + ("fsi_m4",), f"{name}.calibration.fsi_m4", cal.fsi_m4, b.fsi_range(p))
         if t.transfer is not None:
             c.array(raw + ("transfer", "moment_m4"), f"{name}.transfer.moment_m4", t.transfer.moment_m4,
                     b.transfer_moment_range(p, t.capacity_m3))
     for n, hd in enumerate(v.holds):
         raw, name = ("hold", n), f"hold[{hd.id}]"
         c.one(raw + ("capacity_m3",), f"{name}.capacity_m3", hd.capacity_m3, b.volume_range(p))
-        c.position(p, raw, name, hd.lcg_m, hd.vcg_m, hd.tcg_m)
         c.one(raw + ("max_mass_t",), f"{name}.max_mass_t", hd.max_mass_t, b.item_mass_range(v))
-        c.array(raw + ("fill_vcg_m",), f"{name}.fill_vcg_m", hd.fill_vcg_m, b.z_range(p))
-        c.array(raw + ("fill_lcg_m",), f"{name}.fill_lcg_m", hd.fill_lcg_m, b.x_range(p))
     for n, a in enumerate(v.deck_areas):
-        raw, name = ("deck_area", n), f"deck_area[{a.id}]"
-        c.one(raw + ("area_m2",), f"{name}.area_m2", a.area_m2, b.area_range(p))
-        c.position(p, raw, name, a.lcg_m, a.deck_height_m, a.tcg_m, keys=("lcg_m", "deck_height_m", "tcg_m"))
+        c.one(("deck_area", n, "area_m2"), f"deck_area[{a.id}].area_m2", a.area_m2, b.area_range(p))
     if v.limit_curve is not None and v.limit_curve.kind == "max_kg_m":
         c.array(("limit_curve", "max_kg_m"), "limit_curve.max_kg_m", v.limit_curve.value, b.z_range(p))
     elif v.limit_curve is not None:

@@ -170,7 +170,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     particulars, frame = _read_particulars(root)
     lightship = _read_lightship(root, frame, rd)
     hydro = _read_hydrostatics(root, frame, rd)
-    cross = _read_cross_curves(root)
+    cross = _read_cross_curves(root, frame, rd)
     fs = _read_free_surface(root, lightship)
     criteria = _read_criteria(root, particulars)
     extra = _read_extra_criteria(root, particulars)
@@ -374,7 +374,7 @@ KN_MIN_END_DEG = 40.0
 """Cross curves must reach at least 40°: the IS 2008 Part A 2.2.1 areas run to 40° (or θf)."""
 
 
-def _read_cross_curves(root: Table) -> m.CrossCurves | None:
+def _read_cross_curves(root: Table, frame: Frame | None, rd: Reading) -> m.CrossCurves | None:
     t = root.table("cross_curves")
     if t is None:
         return None
@@ -391,9 +391,14 @@ def _read_cross_curves(root: Table) -> m.CrossCurves | None:
     kn = t.matrix("kn_m", "displacement_t", t.raw_len("displacement_t"), "heel_deg", t.raw_len("heel_deg"))
     has_ref = t.has("reference_lcg_m")
     ref = t.num("reference_lcg_m", required=False)
+    f = read_frame(t, frame)
     t.finish()
-    if basis is None or heel is None or disp is None or kn is None or (has_ref and ref is None):
+    if basis is None or heel is None or disp is None or kn is None or (has_ref and ref is None) or f is None:
         return None
+    if ref is not None:
+        _note_frame(rd, "cross_curves", f, "reference_lcg_m", "", False)
+        ref = float(f.x_to_ap(ref))
+    rd.tables["cross_curves"] = TableReading(f, csv=t.data.get("csv"))
     return m.CrossCurves(
         heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis,
         reference_lcg_m=ref,

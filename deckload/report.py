@@ -28,11 +28,13 @@ import sys
 from dataclasses import dataclass
 from pathlib import Path
 
+import numpy as np
 from rich import box
 from rich.console import Console, Group, RenderableType
 from rich.table import Table
 from rich.text import Text
 
+from deckload import verdict_format as vf
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
 
@@ -164,6 +166,9 @@ def _summary(result: Result) -> Table:
         ("Vanishing angle", (f"beyond {r.gz_end_deg:g}°" + (" (the KN tables end there)" if r.gz_end_deg < 90 else ""))
          if r.vanishing_angle_deg is None else f"{r.vanishing_angle_deg:.1f}°"),
         ("Downflooding θf", "not given" if r.downflooding_angle_deg is None else f"{r.downflooding_angle_deg:.1f}°"),
+        ("Deck edge immersion", vf.fmt_optional(r.deck_edge_angle_deg, ".1f", "°")),
+        ("Freeboard mid / to load line", f"{vf.fmt_optional(r.freeboard_m, '.3f')} / "
+                                         f"{vf.fmt_optional(r.load_line_margin_m, '+.3f')} m"),
     ]
     for k, v in rows:
         _row(g, k, v)
@@ -230,28 +235,65 @@ def _free_surface(result: Result) -> Table:
 
 
 def _criteria(result: Result) -> Table:
+    """Every criterion, grouped by the set it belongs to (a heading row per set with its outcome);
+    a criterion the data cannot decide reads 'not assessable', never 'pass'."""
     t = Table(box=box.SIMPLE, show_edge=False, pad_edge=False, padding=(0, 1), title_justify="left", title_style="bold",
-              title=f"Intact stability criteria (GZ heeling to {result.criteria_side})")
+              title=f"Intact stability criteria by set (GZ heeling to {result.criteria_side}; paragraphs of "
+                    f"IS Code 2008 unless named)")
     t.add_column("Criterion", no_wrap=True)
-    t.add_column("Value", justify="right")
-    t.add_column("Limit", justify="right")
-    t.add_column("Margin", justify="right")
-    t.add_column("Unit")
-    t.add_column("Result")
-    t.add_column("Source")
-    digits = {"deg": 1}
-    for c in result.criteria:
-        d = digits.get(c.unit, 3)
-        _row(
-            t,
-            c.description + (" *" if c.note else ""),
-            _f(c.value, d),
-            f"{_COMPARISON.get(c.comparison, c.comparison)} {_f(c.limit, d)}",
-            f"{c.margin:+.{d}f}",
-            c.unit,
-            Text("pass", style="green") if c.passed else Text("FAIL", style="bold red"),
-            c.source,
-        )
+    t.add_column("Value", justify="right", no_wrap=True)
+    t.add_column("Limit", justify="right", no_wrap=True)
+    t.add_column("Margin", justify="right", no_wrap=True)
+    t.add_column("Unit", no_wrap=True)
+    t.add_column("Result", no_wrap=True)
+    t.add_column("Paragraph")
+    for g in vf.grouped(result):
+        head = Text(f"{vf.set_title(g.set.title)}: ", style="bold")
+        head.append(g.word, style="bold red" if g.word == "NOT MET" else "bold")
+        _row(t, head, "", "", "", "", "", "")
+        for c in g.criteria:
+            d = vf.digits_of(c)
+            if c.assessed:
+                verdict = Text("pass", style="green") if c.passed else Text("FAIL", style="bold red")
+            else:
+                verdict = Text(vf.NOT_ASSESSABLE, style="bold")
+            _row(
+                t,
+                c.description + (" *" if c.note else ""),
+                vf.value_text(c),
+                f"{_COMPARISON.get(c.comparison, c.comparison)} {_f(c.limit, d)}",
+                vf.margin_text(c),
+                c.unit,
+                verdict,
+                vf.paragraph(c),
+            )
+    return t
+
+
+def _weather(result: Result) -> Table | None:
+    """The numbers behind the weather criterion (IS Code 2008 Part A 2.3), as the Result holds them."""
+    w = result.weather
+    if w is None:
+        return None
+    t = Table(box=None, pad_edge=False, padding=(0, 1), show_header=False, title_justify="left", title_style="bold",
+              title="Severe wind and rolling (IS Code 2008 Part A 2.3)")
+    t.add_column("quantity")
+    t.add_column("value", justify="right")
+    rows = [
+        ("Wind pressure P", f"{w.wind_pressure_pa:.0f} Pa"),
+        ("Windage area A / lever Z", f"{w.windage_area_m2:.1f} m² / {w.windage_lever_m:.3f} m"),
+        ("Steady wind lever lw1", f"{w.lw1_m:.4f} m"),
+        ("Gust lever lw2 = 1.5·lw1", f"{w.lw2_m:.4f} m"),
+        ("θ0 (limit)", f"{w.theta0_deg:.1f}° (≤ {w.theta0_limit_deg:.1f}°)"),
+        ("Roll θ1 = 109·k·X1·X2·√(r·s)", f"{w.theta1_deg:.1f}°"),
+        ("k, X1, X2, r, s", f"{w.k:.3f}, {w.x1:.3f}, {w.x2:.3f}, {w.r:.3f}, {w.s:.4f}"),
+        ("Roll period T", f"{w.roll_period_s:.2f} s"),
+        ("θ2 = min(θf, 50°, θc)", f"{w.theta2_deg:.1f}°"
+         + ("" if w.theta_c_deg is None else f" (θc {w.theta_c_deg:.1f}°)")),
+        ("Area a / area b", f"{w.area_a_mrad:.4f} / {w.area_b_mrad:.4f} m·rad"),
+    ]
+    for k, v in rows:
+        _row(t, k, v)
     return t
 
 
@@ -293,15 +335,13 @@ def _closing(result: Result) -> Group:
                 continue
             t.append(f"  {'DANGER' if w.severity == 'danger' else 'caution'}: {w.message}\n",
                      style="red" if w.severity == "danger" else "")
-    if result.all_criteria_pass:
-        t.append("All criteria are met.", style="bold green")
-    else:
-        failed = ", ".join(c.description for c in result.criteria if not c.passed)
-        t.append(f"CRITERIA NOT MET: {failed}.", style="bold red")
-    sm = result.smallest_margin
+    failed = vf.failed(result)
+    t.append("Verdict: " + result.verdict_text(), style="bold red" if failed else "bold")
+    if failed:
+        t.append(" Failed: " + ", ".join(c.description for c in failed) + ".", style="bold red")
+    sm = min((c for c in result.criteria if c.assessed), key=lambda c: c.margin_fraction, default=None)
     if sm is not None:
-        d = 1 if sm.unit == "deg" else 3
-        t.append(f" Smallest margin: {sm.description}, {sm.margin:+.{d}f} {sm.unit}.")
+        t.append(f" Smallest margin: {sm.description}, {sm.margin:+.{vf.digits_of(sm)}f} {sm.unit}.")
     t.append("\n\n" + CAUTION, style="bold")
     return Group(t)
 
@@ -347,6 +387,8 @@ class _Parts:
     summary: RenderableType
     body: tuple[RenderableType, ...]
     closing: RenderableType
+    weather: RenderableType | None
+    """The weather criterion's numbers, beside its diagram (None when it was not assessed)."""
 
 
 def _parts(result: Result, vessel: Vessel, condition: Condition, stamp: str | None, source: str | None,
@@ -359,6 +401,7 @@ def _parts(result: Result, vessel: Vessel, condition: Condition, stamp: str | No
         summary=_summary(result),
         body=body,
         closing=_closing(result),
+        weather=_weather(result),
     )
 
 
@@ -385,6 +428,9 @@ def render_report_text(
     con.print()
     for b in p.body:
         con.print(b)
+        con.print()
+    if p.weather is not None:
+        con.print(p.weather)
         con.print()
     con.print(p.closing)
     con.print(_signatures_text())
@@ -507,6 +553,101 @@ def gz_svg(result: Result, width: float = 344.0, height: float = 232.0) -> str:
     return "\n".join(out)
 
 
+def weather_curve(result: Result) -> tuple[list[float], list[float]]:
+    """The GZ curve from rolled to windward (negative angles) to heeled to leeward, as drawn for
+    the weather criterion: leeward is the side the criteria were checked on; heeled to windward
+    by φ the lever is −GZ(φ) of the other side (a sign change, nothing recomputed)."""
+    lee = list(_criteria_gz(result))
+    wind = list(result.gz_m if result.criteria_side == "port" else result.gz_port_m)
+    heel = [-h for h in reversed(result.gz_heel_deg[1:])] + list(result.gz_heel_deg)
+    return heel, [-g for g in reversed(wind[1:])] + lee
+
+
+def weather_svg(result: Result, width: float = 344.0, height: float = 232.0) -> str | None:
+    """The weather criterion (IS Code 2008 Part A 2.3) as an inline SVG, or None when not assessed.
+
+    GZ from θ0 − θ1 (rolled to windward) to past θ2; the steady and gust wind levers lw1 and
+    lw2 as horizontal lines; θ0, θ1 (drawn at θ0 − θ1) and θ2 as marks; area a (lw2 above
+    the curve, to windward) and area b (the curve above lw2, up to θ2) shaded.  The areas
+    are one polygon between the curve and lw2, clipped above and below the lw2 line.
+    """
+    w = result.weather
+    if w is None:
+        return None
+    heel, gz = weather_curve(result)
+    roll_to = w.theta0_deg - w.theta1_deg
+    x_lo = min(roll_to, 0.0) - 5.0
+    x_hi = min(result.gz_end_deg, max(w.theta2_deg, w.theta_c_deg or 0.0) + 10.0)
+    pts = [(h, g) for h, g in zip(heel, gz) if x_lo <= h <= x_hi]
+    lo = min(0.0, min(g for _, g in pts))
+    hi = max(w.lw2_m, max(g for _, g in pts))
+    step = _nice_step(hi - lo)
+    y_min = math.floor(lo / step - 1e-9) * step
+    y_max = math.ceil(hi / step + 1e-9) * step
+    x_step = 10.0
+    x_min = math.floor(x_lo / x_step) * x_step
+    fr = SvgFrame(left=40.0, top=14.0, width=width - 52.0, height=height - 40.0, x_max_deg=1.0,
+                  y_min_m=y_min, y_max_m=y_max)
+
+    def X(h: float) -> float:
+        return fr.left + (h - x_min) / (x_hi - x_min) * fr.width
+
+    out: list[str] = []
+    a = out.append
+    a(f'<svg xmlns="http://www.w3.org/2000/svg" class="weather" viewBox="0 0 {width:g} {height:g}" '
+      f'width="{SVG_WIDTH_MM}mm" height="{SVG_HEIGHT_MM}mm" font-family="sans-serif" font-size="9">')
+    a("<title>Weather criterion: GZ, wind heeling levers lw1 and lw2, areas a and b</title>")
+    a(f'<text x="{fr.left:g}" y="9" font-weight="bold">Severe wind and rolling (IS 2008 A 2.3), GZ (m)</text>')
+    k = 0
+    while x_min + k * x_step <= x_hi + 1e-9:
+        h = x_min + k * x_step
+        a(f'<line x1="{X(h):.2f}" y1="{fr.top:.2f}" x2="{X(h):.2f}" y2="{fr.top + fr.height:.2f}" stroke="#ddd" '
+          f'stroke-width="0.5"/>')
+        a(f'<text class="xt" x="{X(h):.2f}" y="{fr.top + fr.height + 10:.2f}" text-anchor="middle">{h:g}°</text>')
+        k += 1
+    for j in range(round((y_max - y_min) / step) + 1):
+        v = round(y_min + j * step, 9) + 0.0
+        a(f'<line x1="{fr.left:.2f}" y1="{fr.y(v):.2f}" x2="{fr.left + fr.width:.2f}" y2="{fr.y(v):.2f}" '
+          f'stroke="#ddd" stroke-width="0.5"/>')
+        a(f'<text class="yt" x="{fr.left - 3:.2f}" y="{fr.y(v):.2f}" text-anchor="end" dominant-baseline="middle">'
+          f'{v:.2f}</text>')
+    a(f'<line x1="{fr.left:.2f}" y1="{fr.y(0.0):.2f}" x2="{fr.left + fr.width:.2f}" y2="{fr.y(0.0):.2f}" '
+      f'stroke="#000" stroke-width="0.8"/>')
+    # areas a and b: one polygon between the curve and lw2 from θ0 − θ1 to θ2, clipped at lw2
+    y2 = fr.y(w.lw2_m)
+    span = [(roll_to, float(np.interp(roll_to, heel, gz)))] + [(h, g) for h, g in zip(heel, gz)
+                                                                if roll_to < h < w.theta2_deg]
+    span.append((w.theta2_deg, float(np.interp(w.theta2_deg, heel, gz))))
+    poly = " ".join(f"{X(h):.3f},{fr.y(g):.3f}" for h, g in span)
+    poly += f" {X(w.theta2_deg):.3f},{y2:.3f} {X(roll_to):.3f},{y2:.3f}"
+    a(f'<clipPath id="wx-above"><rect x="0" y="0" width="{width:g}" height="{y2:.3f}"/></clipPath>')
+    a(f'<clipPath id="wx-below"><rect x="0" y="{y2:.3f}" width="{width:g}" height="{height - y2:.3f}"/></clipPath>')
+    a(f'<polygon class="area-a" points="{poly}" fill="#e8a0a0" fill-opacity="0.6" clip-path="url(#wx-below)"/>')
+    a(f'<polygon class="area-b" points="{poly}" fill="#9fc8a8" fill-opacity="0.6" clip-path="url(#wx-above)"/>')
+    # the areas' letters, halfway between lw2 and the curve in the middle of each area
+    split = w.theta_r_deg if getattr(w, "theta_r_deg", None) is not None else w.theta0_deg
+    for name, ang in (("a", (roll_to + split) / 2), ("b", (split + w.theta2_deg) / 2)):
+        mid = (float(np.interp(ang, heel, gz)) + w.lw2_m) / 2
+        a(f'<text class="label-{name}" x="{X(ang):.2f}" y="{fr.y(mid):.2f}" text-anchor="middle" '
+          f'dominant-baseline="middle" font-weight="bold" font-style="italic">{name}</text>')
+    for cls, v, label, dash in (("lw1", w.lw1_m, "lw1", ""), ("lw2", w.lw2_m, "lw2", ' stroke-dasharray="4 2"')):
+        a(f'<line class="{cls}" data-lever-m="{v:.6g}" x1="{fr.left:.2f}" y1="{fr.y(v):.2f}" '
+          f'x2="{fr.left + fr.width:.2f}" y2="{fr.y(v):.2f}" stroke="#a05a00" stroke-width="0.8"{dash}/>')
+        a(f'<text x="{fr.left + fr.width + 1:.2f}" y="{fr.y(v) + (3 if cls == "lw1" else -1):.2f}" '
+          f'fill="#a05a00" font-size="7">{label}</text>')
+    for ang, label in ((w.theta0_deg, "θ0"), (roll_to, "θ1"), (w.theta2_deg, "θ2")):
+        a(f'<line class="mark" data-angle-deg="{ang:.6g}" x1="{X(ang):.2f}" y1="{fr.top:.2f}" x2="{X(ang):.2f}" '
+          f'y2="{fr.top + fr.height:.2f}" stroke="#555" stroke-width="0.9" stroke-dasharray="3 2"/>')
+        a(f'<text x="{X(ang) + 2:.2f}" y="{fr.top + 8:.2f}" fill="#555">{label}</text>')
+    pts_s = " ".join(f"{X(h):.3f},{fr.y(g):.3f}" for h, g in pts)
+    a(f'<polyline class="gz-curve" points="{pts_s}" fill="none" stroke="#000" stroke-width="1.4"/>')
+    key_y = fr.top + fr.height + 22
+    a(f'<text x="{fr.left:.2f}" y="{key_y:.2f}">a {w.area_a_mrad:.4f}  b {w.area_b_mrad:.4f} m·rad;  '
+      f'θ0 {w.theta0_deg:.1f}°  θ1 {w.theta1_deg:.1f}°  θ2 {w.theta2_deg:.1f}°</text>')
+    a("</svg>")
+    return "\n".join(out)
+
+
 # --------------------------------------------------------------------------- HTML
 
 
@@ -523,10 +664,15 @@ def _line_mm(font_pt: float) -> float:
     return font_pt * LINE_HEIGHT * PT_MM
 
 
-def _page_lines_mm(blocks: list[int], summary_lines: int, font_pt: float) -> float:
-    """Height (mm): text blocks, the summary/GZ row (whichever is taller), gaps, signatures."""
+def _page_lines_mm(blocks: list[int], summary_lines: int, font_pt: float, weather_lines: int | None = None) -> float:
+    """Height (mm): text blocks, the summary/GZ row and the weather row (each the taller of its text
+    and its diagram), gaps, signatures."""
     row = max(summary_lines * _line_mm(font_pt), SVG_HEIGHT_MM)
-    gaps = (len(blocks) + 1) * 0.5 * _line_mm(font_pt)
+    rows = 1
+    if weather_lines is not None:
+        row += max(weather_lines * _line_mm(font_pt), SVG_HEIGHT_MM)
+        rows += 1
+    gaps = (len(blocks) + rows) * 0.5 * _line_mm(font_pt)
     return sum(blocks) * _line_mm(font_pt) + row + gaps + len(SIGNATORIES) * SIGNATURE_ROW_MM
 
 
@@ -545,15 +691,18 @@ def render_report_html(
     summary, n_summary = _export(p.summary, 52)
     body = [_export(b, TEXT_WIDTH) for b in p.body]
     closing, n_closing = _export(p.closing, TEXT_WIDTH)
+    wx_svg = weather_svg(result)
+    weather, n_weather = _export(p.weather, 52) if p.weather is not None else ("", 0)
     blocks = [n_header, *(n for _, n in body), n_closing]
+    wx_lines = n_weather if wx_svg is not None else None
     printable_h = PAGE_HEIGHT_MM - 2 * PAGE_MARGIN_MM
     printable_w = PAGE_WIDTH_MM - 2 * PAGE_MARGIN_MM
     font = FONT_SIZES_PT[-1]
     for size in FONT_SIZES_PT:
-        if _page_lines_mm(blocks, n_summary, size) <= printable_h:
+        if _page_lines_mm(blocks, n_summary, size, wx_lines) <= printable_h:
             font = size
             break
-    height = _page_lines_mm(blocks, n_summary, font)
+    height = _page_lines_mm(blocks, n_summary, font, wx_lines)
     fits = height <= printable_h and TEXT_WIDTH * CHAR_WIDTH_EM * font * PT_MM <= printable_w
     svg = gz_svg(result)
     title = htmllib.escape(f"{vessel.particulars.name} — {result.condition_name}")
@@ -567,6 +716,7 @@ pre {{ font-size: {font:g}pt; line-height: {LINE_HEIGHT:g}; white-space: pre; {p
 pre code {{ font-family: inherit; }}
 .page {{ width: {printable_w:g}mm; margin: 0 auto; }}
 .row {{ display: flex; gap: 4mm; align-items: flex-start; }}
+.row pre {{ flex: 1; }}
 .row svg {{ flex: none; }}
 .signatures {{ font-family: sans-serif; }}
 .sig {{ display: flex; align-items: flex-end; height: {SIGNATURE_ROW_MM:g}mm; gap: 2mm; }}
@@ -587,6 +737,7 @@ pre code {{ font-family: inherit; }}
         f'<div class="page" data-fits-a4="{"yes" if fits else "no"}" data-height-mm="{height:.1f}">',
         f'<pre class="header">{header}</pre>',
         f'<div class="row"><pre class="summary">{summary}</pre>{svg}</div>',
+        *([f'<div class="row"><pre class="weather">{weather}</pre>{wx_svg}</div>'] if wx_svg is not None else []),
         *(f'<pre class="{cls}">{b}</pre>' for cls, (b, _) in zip(("items", "free-surface", "criteria", "direct"),
                                                                    body)),
         f'<pre class="closing">{closing}</pre>',

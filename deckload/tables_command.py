@@ -180,13 +180,13 @@ def _stamp_model_conventions(new: dict[str, Any], gen: dict[str, Any], vessel: d
     stamp: dict[str, Any] = {}
     if x_other:
         stamp.update(longitudinal_datum="AP", longitudinal_positive="forward")
-    targets = [new["hydrostatics"]] if "hydrostatics" in gen and x_other else []
+    targets = [new[k] for k in ("hydrostatics", "cross_curves") if k in gen and x_other]
     for key in ("tank", "hold", "deck_area"):
         made = {e["id"] for e in gen.get(key, [])}
         targets += [e for e in new.get(key, []) if e.get("id") in made]
     for d in targets:
         d.update(stamp)
-        if y_other and d is not new.get("hydrostatics"):
+        if y_other and d is not new.get("hydrostatics") and d is not new.get("cross_curves"):
             d["transverse_positive"] = "starboard"
 
 

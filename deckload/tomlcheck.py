@@ -13,6 +13,10 @@ rejected at the end with all of them at once (:meth:`FileCheck.fail_if_any`).
 Keys nobody asked for are problems too: a misspelt optional key must never be
 silently ignored, because its default would then be used without anyone knowing.
 
+A table of a profile may come from a CSV file (:mod:`deckload.csvtables`): its columns
+are put into the parsed data before the checks run, and :attr:`FileCheck.sources` sends
+each problem in them to the CSV file, line and column (:attr:`Problem.column`).
+
 How values read in messages is a :class:`Wording`: profiles write them as TOML
 (``10.0``, ``"ballast"``), geometry files shorter (``10``, ``'ballast'``).
 """

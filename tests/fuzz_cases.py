@@ -31,6 +31,7 @@ from dataclasses import dataclass, field
 from pathlib import Path
 
 from deckload.core import model as m
+from deckload.core.audit import audit, has_errors
 from deckload.core.stability import evaluate
 from deckload.core.tables import OutOfRangeError
 from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
@@ -228,6 +229,9 @@ def profile_case(tally: Tally, rng: random.Random) -> None:
     tally.by_kind["profile"] += 1
     try:
         v = parse_profile(text, "fuzz.toml")
+        if has_errors(audit(v)):  # as every command does before it uses a profile
+            tally.refused += 1
+            return
     except ProfileError:
         tally.refused += 1
         return

@@ -14,7 +14,7 @@ import numpy as np
 import pytest
 
 from box_profile_text import fv22_text
-from deckload.audit_report import audit_profile, locate
+from deckload.audit_report import audit_profile
 from deckload.check_command import run_check
 from deckload.core.audit import ERROR, WARNING, audit
 from deckload.core.model import frozen_array
@@ -87,16 +87,37 @@ def test_every_lcb_negative(tmp_path):
     assert "every row" in hit.finding.why and "hydrostatic particulars" in hit.finding.look
 
 
-def test_fore_peak_lcg_35_m_on_a_22_m_vessel(tmp_path):
+def test_fore_peak_lcg_35_m_on_a_22_m_vessel(tmp_path, capsys):
+    """Fore-peak LCG 35 m on a 22 m vessel: check refuses it on its own line, with the key; the audit,
+    which judges models however they were built, says the same of a model built in code."""
     text = fv22_text()
     at = text.index('id = "FP"')
     text = text[:at] + text[at:].replace("lcg_m = [20.5, 20.5, 20.5, 20.5, 20.5, 20.5]",
                                          "lcg_m = [35.0, 35.0, 35.0, 35.0, 35.0, 35.0]", 1)
-    f, found = findings(tmp_path, text)
-    hit = the(found, "position-x")
-    assert hit.is_error and hit.finding.key == "tank[FP].calibration.lcg_m"
-    assert hit.line == line_of(text, "lcg_m = [35.0") and "outside the vessel" in hit.finding.why
-    assert "calibration table of tank FP" in hit.finding.look
+    f = write(tmp_path, text)
+    assert run_check(f) == 1
+    out = capsys.readouterr().out
+    loc = f"{f}:{line_of(text, 'lcg_m = [35.0')}: "
+    assert any(ln.startswith(loc) and "tank[FP].calibration.lcg_m" in ln and "35" in ln for ln in out.splitlines())
+    v = vessel()
+    fp = v.tank("FP")
+    cal = dataclasses.replace(fp.calibration, lcg_m=frozen_array(np.full(len(fp.calibration.lcg_m), 35.0)))
+    v2 = dataclasses.replace(v, tanks=tuple(dataclasses.replace(t, calibration=cal) if t.id == "FP" else t
+                                            for t in v.tanks))
+    (hit,) = [x for x in audit(v2) if x.check == "position-x"]
+    assert hit.severity == ERROR and hit.key == "tank[FP].calibration.lcg_m" and "outside the vessel" in hit.why
+    assert hit.path == ("tank", 3, "calibration", "lcg_m", 0) and "calibration table of tank FP" in hit.look
+
+
+def test_a_tank_centre_just_beyond_the_fp_is_a_doubt(tmp_path):
+    """FP tank centre at 24.5 m on a 22 m LBP: inside the reader's 1.2·LBP bound, beyond the 1.1·LBP
+    where compartments usually end: a warning, located on its line."""
+    text = fv22_text()
+    at = text.index('id = "FP"')
+    text = text[:at] + text[at:].replace("lcg_m = [20.5, 20.5, 20.5, 20.5, 20.5, 20.5]",
+                                         "lcg_m = [24.5, 24.5, 24.5, 24.5, 24.5, 24.5]", 1)
+    hit = the(findings(tmp_path, text)[1], "position-x")
+    assert hit.finding.severity == WARNING and hit.line == line_of(text, "lcg_m = [24.5")
 
 
 def test_kn_19_07_typed_for_1_907(tmp_path):
@@ -264,7 +285,9 @@ def test_a_finding_in_a_csv_table_points_at_the_csv_line(tmp_path):
     kn = tmp_path / "tables" / "kn.csv"
     kn.write_text(kn.read_text().replace("2.68414", "26.8414"), encoding="utf-8")
     tank = tmp_path / "tables" / "DB1P.csv"
-    tank.write_text(tank.read_text().replace("0.2,50,-10,0.5,2.5 P,106.770833", "0.2,50,-10,0.5,2.5 P,10677.0833"),
+    # FSM 3075 t·m (fsi 3000 m⁴) at full: under the reader's bound 1.2·LBP·B³/12 = 4000 m⁴, above the
+    # audit's A·B²/4 with A doubled = 2·50·10²/4 = 2500 m⁴ (the 10 × 5 m tank's surface A = 50 m²)
+    tank.write_text(tank.read_text().replace("0.2,50,-10,0.5,2.5 P,106.770833", "0.2,50,-10,0.5,2.5 P,3075.0"),
                     encoding="utf-8")
     found = audit_profile(f, load_profile(f))
     hit = the(found, "kn-envelope")

@@ -12,8 +12,10 @@ KN tabulated at T = 1, 2, 3 m in 5° steps.  The worked condition, derived:
   KG = (400·2.5 + 51.25·0.25 + 368.75·3.0)/820; each tank's free surface is 10 × 5 m,
   i = l·b³/12 = 104.1667 m⁴, FSM = ρ·i each (ballast: actual level, IS 2008 B 3.1), both counted;
   FSC = ΣFSM/Δ; KG fluid = KG + FSC;  KMt = T/2 + B²/(12T) = 5.16667 m;  GM = KMt − KG fluid.
-* MCTC = ρ·B·L²/1200 = 13.6667 t·m/cm, trim = Δ·(LCB − LCG)/(100·MCTC) = 820·0.5/1366.67 = 0.30 m
-  by the stern; with the LCF at midships T_aft = 2.15 m, T_fwd = 1.85 m, T_mid = 2.0 m.
+* MCTC = Δ·GML/(100·L) with GML = KML − KG fluid, KML = T/2 + L²/(12T) = 67.667 m (standards.md §6.3:
+  the moment to change trim from the longitudinal metacentric height), so
+  trim = Δ·(LCB − LCG)/(100·MCTC) = (LCB − LCG)·L/GML = 0.5·40/(67.667 − KG fluid) ≈ 0.3085 m by the
+  stern; with the LCF at midships T_aft = T + trim/2, T_fwd = T − trim/2, T_mid = 2.0 m.
 * GZ(φ) = KN(φ) − KG_fluid·sinφ with the exact box KN at T = 2 (checks.md §1.2), and the area
   0→φ from the exact dynamic lever of tests/vessel_factories.py (checks.md §1.3).
 
@@ -48,7 +50,8 @@ FSC = FSM / DISP
 KGF = KG + FSC
 KMT = T / 2 + B * B / (12 * T)
 GM = KMT - KGF
-TRIM = DISP * (20.0 - 19.5) / (100.0 * RHO * B * L * L / 1200.0)
+KML = T / 2 + L * L / (12 * T)
+TRIM = (20.0 - 19.5) * L / (KML - KGF)
 
 
 def gz(deg):
@@ -199,3 +202,24 @@ def test_gz_beyond_the_kn_table_is_a_fail_not_a_guess(tmp_path):
     short = dataclasses.replace(result, gz_end_deg=40.0)
     rows = booklet.compare(short, {"gz": ((50.0, gz(50)),)}, B)
     assert not rows[0].passed and rows[0].deckload is None and "beyond the KN table's last angle 40°" in rows[0].note
+
+
+def test_booklet_results_typed_as_the_booklet_prints_them(tmp_path, capsys):
+    """LCG 0.5 m aft of midships (booklet: from midships, + aft) is 19.5 m from the AP (x_AP = 20 − 0.5);
+    extreme drafts need the keel thickness, which this profile does not give: refused with the reason."""
+    values = {"lcg_m": 0.5, "gm_m": round(GM, 3)}
+    entry = inline("As printed", values).replace(
+        "  [booklet_condition.expected]\n",
+        '  [booklet_condition.expected]\n  longitudinal_datum = "midships"\n  longitudinal_positive = "aft"\n')
+    f = profile(tmp_path, entry)
+    (case,) = load_booklet_conditions(f, load_profile(f))
+    assert case.expected["lcg_m"] == 19.5
+    assert run_check(f) == 0
+    out = capsys.readouterr().out
+    assert "converted: booklet_condition[As printed].expected lcg_m: from midships, + aft → from the AP" in out
+    bad = inline("Extreme", {"draft_mid_m": 2.012}).replace(
+        "  [booklet_condition.expected]\n", '  [booklet_condition.expected]\n  draft_basis = "extreme"\n')
+    f = profile(tmp_path, bad)
+    with pytest.raises(ProfileError) as ei:
+        load_booklet_conditions(f, load_profile(f))
+    assert "extreme drafts need [vessel] keel_thickness_m" in str(ei.value)

@@ -83,6 +83,12 @@ def test_midships_centres_are_converted_to_the_aft_perpendicular():
                for c in v.conversions)
 
 
+def test_the_kn_reference_lcg_follows_the_datum():
+    """Free-trim KN made for G at midships: reference_lcg_m = 0 from midships → 20 m from the AP (derived)."""
+    text = edit(MIDSHIPS, 'trim_basis = "free trim"', 'trim_basis = "free trim"\nreference_lcg_m = 0.0')
+    assert parse_profile(text, "ref.toml").cross_curves.reference_lcg_m == 20.0
+
+
 def test_forward_perpendicular_positive_aft_and_per_table_override():
     """A table may state its own datum: lightship LCG 20 m from the FP, + aft → x_AP = LBP − 20 = 20 (derived)."""
     text = edit(BASE, "mass_t = 400.0\nlcg_m = 20.0",
@@ -489,13 +495,14 @@ def test_tables_refreshed_from_geometry_keep_their_own_datum_in_a_midships_profi
     demo_path = HERE.parent / "vessel_profiles" / "demo_islander.toml"
     doc = tomllib.loads(demo_path.read_text(encoding="utf-8"))
     doc["vessel"].update(longitudinal_datum="midships", longitudinal_positive="forward", transverse_positive="port")
-    gen = {k: doc[k] for k in ("hydrostatics", "tank", "hold", "deck_area")}
+    gen = {k: doc[k] for k in ("hydrostatics", "cross_curves", "tank", "hold", "deck_area")}
     _stamp_model_conventions(doc, gen, doc["vessel"])
     # named beside the demo, so that its hull_geometry (a path relative to the profile) is found
     v, demo = parse_profile(render(doc), str(demo_path.with_name("mid_demo.toml"))), load_profile(demo_path)
     for a, b in zip(v.tanks, demo.tanks):
         assert np.array_equal(a.calibration.stacked(), b.calibration.stacked()), a.id
     assert np.array_equal(v.hydrostatics.lcb_m, demo.hydrostatics.lcb_m)
+    assert v.cross_curves.reference_lcg_m == demo.cross_curves.reference_lcg_m
     assert v.lightship.lcg_m == demo.lightship.lcg_m + demo.particulars.lbp_m / 2  # hand-entered: from midships
 
 
@@ -531,6 +538,9 @@ def test_curves_against_draft_and_a_hold_fill_table_round_trip_through_csv(tmp_p
     assert v.downflooding.displacement_t[1] == pytest.approx(820.0, abs=1e-9)  # extreme 2.02 = moulded 2.00 m
     assert list(v.hold("H1").fill_lcg_m) == [27.5, 27.5, 27.4]  # 20 + x from midships
     assert main(["csv", str(path), str(tmp_path / "out")]) == 0
+    said = capsys.readouterr().out
+    assert "hold[H1] fill table, 3 rows (x from midships, + forward)" in said
+    assert "[downflooding], 3 rows (extreme drafts, against draft)" in said
     for mine, theirs in (("downflooding.csv", "df.csv"), ("limit_curve.csv", "lim.csv"), ("hold_H1_fill.csv", "hold.csv")):
         a, b = _cells(tmp_path / "out" / mine), _cells(tmp_path / theirs)
         assert a[0] == b[0] and len(a) == len(b), mine
@@ -699,3 +709,20 @@ def test_calc_prints_extreme_drafts_where_the_keel_thickness_is_given(tmp_path, 
                "water_density_t_m3 = 1.025\n" + HOLD_420)
     assert main(["calc", str(prof), str(c)]) == 0
     assert "Extreme drafts (moulded + keel 0.020 m): aft 2.020 m, midships 2.020 m, fwd 2.020 m" in capsys.readouterr().out
+
+
+def test_check_names_the_csv_files_it_read(tmp_path, capsys):
+    path = booklet_profile(tmp_path)
+    assert run_check(path) == 0
+    assert ("    from CSV: hydrostatics ← tables/hydrostatics.csv, cross_curves ← tables/kn.csv, "
+            "tank[DB1P].calibration ← tables/DB1P.csv" in capsys.readouterr().out)
+
+
+def test_a_condition_stated_by_ullage_is_saved_and_read_back_unchanged(tmp_path):
+    from deckload.profiles import dump_condition, load_condition, save_condition
+
+    v = parse_profile(ULLAGE, "ullage.toml")
+    c = cond(v, "[tanks.DB1P]\nullage_m = 0.7\n")
+    assert "ullage_m = 0.7" in dump_condition(c)
+    save_condition(tmp_path / "u.condition.toml", c)
+    assert load_condition(tmp_path / "u.condition.toml", v) == c

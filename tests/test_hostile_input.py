@@ -21,7 +21,10 @@ from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
 from deckload.profiles import ProfileError, load_condition, load_profile, parse_condition, parse_profile
 
 DEPARTURE = DEMO_CONDITIONS["departure"].read_text(encoding="utf-8")
-PROFILE_TEXT = DEMO_PROFILE.read_text(encoding="utf-8")
+# Without its hull-geometry line: these tests write or parse the text away from the geometry file
+# it names, and what they check is not the second (direct) method.
+PROFILE_TEXT = "".join(ln for ln in DEMO_PROFILE.read_text(encoding="utf-8").splitlines(keepends=True)
+                       if not ln.startswith("hull_geometry"))
 
 
 @pytest.fixture(scope="module")
@@ -107,14 +110,28 @@ def test_json_output_is_strict(capsys):
 
 @pytest.mark.parametrize("old,new,key", [
     ("lbp_m = 38.0", "lbp_m = 1e9", "vessel.lbp_m"),
-    ("mass_t = 400.0\nlcg_m = 17.4", "mass_t = 400.0\nlcg_m = 1700.4", "lightship.lcg_m"),
-    ("kmt_m = [\n    7.9088", "kmt_m = [\n    79088.0", "hydrostatics.kmt_m"),
 ])
 def test_profile_values_beyond_the_vessels_physics_are_refused(old, new, key):
     assert old in PROFILE_TEXT
     with pytest.raises(ProfileError) as ei:
         parse_profile(PROFILE_TEXT.replace(old, new, 1), "p.toml")
     assert key in [p.key for p in ei.value.problems]
+
+
+@pytest.mark.parametrize("old,new,key", [
+    ("kmt_m = [\n    7.9088", "kmt_m = [\n    79088.0", "hydrostatics.kmt_m"),
+    ("mass_t = 400.0\nlcg_m = 17.4", "mass_t = 400.0\nlcg_m = 1700.4", "lightship.lcg_m"),
+])
+def test_calc_refuses_a_profile_the_audit_finds_impossible(tmp_path, capsys, old, new, key):
+    """Profile tables are judged by the plausibility audit, now before every command uses them."""
+    f = tmp_path / "p.toml"
+    f.write_text(PROFILE_TEXT.replace(old, new, 1), encoding="utf-8")
+    cond = tmp_path / "c.toml"
+    cond.write_text(DEPARTURE, encoding="utf-8")
+    for cmd in ("calc", "report"):
+        assert main([cmd, str(f), str(cond)] + (["--txt"] if cmd == "report" else [])) == 1
+        err = capsys.readouterr().err
+        assert key in err and "plausibility audit" in err
 
 
 # ------------------------------------------------------------------ case 2: numbers the TOML reader chokes on
@@ -152,7 +169,8 @@ def test_the_demo_profile_cut_before_its_first_tank_is_refused_for_having_no_tan
 
 def test_check_says_what_is_missing_for_a_profile_cut_before_its_cross_curves(tmp_path, capsys):
     cut = tmp_path / "cut.toml"
-    cut.write_text("".join(PROFILE_TEXT.splitlines(keepends=True)[:71]), encoding="utf-8")
+    lines = PROFILE_TEXT.splitlines(keepends=True)
+    cut.write_text("".join(lines[: lines.index("[cross_curves]\n")]), encoding="utf-8")
     assert main(["check", str(cut)]) == 1
     out = capsys.readouterr().out
     assert "cross_curves: required key is missing" in out and "OK" not in out

@@ -31,6 +31,7 @@ from deckload.report import (
     render_report_html,
     render_report_text,
 )
+from deckload.verdict_format import paragraph, set_title
 from vessel_factories import barge_tanks, box_barge
 
 SVG_NS = "{http://www.w3.org/2000/svg}"
@@ -108,8 +109,14 @@ def test_text_report_shows_every_number_of_the_result(case):
         d = 1 if cr.unit == "deg" else 3
         row = next(line for line in txt.splitlines() if line.startswith(cr.description))
         assert f"{cr.value:.{d}f}" in row and f"{cr.limit:.{d}f}" in row and f"{cr.margin:+.{d}f}" in row
-        assert ("pass" if cr.passed else "FAIL") in row and cr.source in row
-    assert "All criteria are met." in txt
+        assert ("pass" if cr.passed else "FAIL") in row and paragraph(cr) in row
+    # the verdict names the sets and what was not assessed; never 'all criteria met' alone
+    assert "All criteria" not in txt and "all criteria" not in txt
+    assert " ".join(("Verdict: " + r.verdict_text()).split()) in " ".join(txt.split())
+    for s in r.criteria_sets:
+        assert f"{set_title(s.title)}: met" in txt
+    for n in r.not_assessed:
+        assert n.item in " ".join(txt.split())
     # GZ values at 10° steps
     for h in (10.0, 30.0, 40.0):
         i = r.gz_heel_deg.index(h)
@@ -117,15 +124,15 @@ def test_text_report_shows_every_number_of_the_result(case):
     assert " ".join(CAUTION.split()) in " ".join(txt.split())
     assert re.search(r"^Officer:\s+_{20,}\s+Name: _+\s+Date/time: _+$", txt, re.M)
     assert re.search(r"^Master:\s+_{20,}\s+Name: _+\s+Date/time: _+$", txt, re.M)
-    for w in r.warnings:
-        assert w.message in txt
+    for w in r.warnings:  # long messages wrap at the report's width
+        assert " ".join(w.message.split()) in " ".join(txt.split())
 
 
 def test_failed_criteria_are_plain_in_the_report(failing_case):
     v, c, r = failing_case
     assert not r.all_criteria_pass
     txt = render_report_text(r, v, c)
-    assert "CRITERIA NOT MET" in txt and "All criteria are met." not in txt
+    assert "Verdict: NOT MET" in txt and "All criteria" not in txt
     for cr in r.criteria:
         row = next(line for line in txt.splitlines() if line.startswith(cr.description))
         assert ("pass" if cr.passed else "FAIL") in row
@@ -254,3 +261,97 @@ def test_svg_has_no_downflooding_mark_when_none_is_given(failing_case):
     root = _svg_tree(gz_svg(r))
     marks = {float(e.get("data-angle-deg")) for e in root.iter(SVG_NS + "line") if e.get("class") == "mark"}
     assert marks == {30.0, 40.0}
+
+
+# --------------------------------------------------------------------------- the verdict and the weather criterion
+
+
+@pytest.fixture(scope="module")
+def demo_case():
+    """The demo departure as the engine computes it: IS 2008 A 2.2 and A 2.3 assessed, weather numbers filled."""
+    from verdict_samples import demo
+
+    return demo("departure")
+
+
+def test_report_names_the_sets_and_lists_what_was_not_assessed(demo_case):
+    v, c, r = demo_case
+    assert r.weather is not None and len(r.criteria_sets) == 2 and r.not_assessed
+    txt = render_report_text(r, v, c)
+    doc = render_report_html(r, v, c)
+    flat_html = " ".join(re.sub(r"<[^>]+>", "", doc).split())
+    for text in (" ".join(txt.split()), htmllib_unescape(flat_html)):
+        assert "all criteria" not in text.lower()
+        assert " ".join(("Verdict: " + r.verdict_text()).split()) in text
+        for s in r.criteria_sets:
+            assert set_title(s.title) in text
+        for n in r.not_assessed:
+            assert f"{n.item} ({n.reason})" in text
+    # the weather criterion like the others: value, limit, margin, result
+    for cr in r.criteria:
+        if cr.set_id != "IS2008-A2.3":
+            continue
+        d = 1 if cr.unit == "deg" else 3
+        row = next(line for line in txt.splitlines() if line.startswith(cr.description))
+        assert f"{cr.value:.{d}f}" in row and f"{cr.limit:.{d}f}" in row and f"{cr.margin:+.{d}f}" in row
+    w = r.weather
+    for label, value in [("Steady wind lever lw1", f"{w.lw1_m:.4f} m"), ("Gust lever lw2", f"{w.lw2_m:.4f} m"),
+                         ("Area a / area b", f"{w.area_a_mrad:.4f} / {w.area_b_mrad:.4f} m·rad")]:
+        row = next(line for line in txt.splitlines() if line.startswith(label))
+        assert value in row
+    assert f"Deck edge immersion{'':1}" in txt and f"{r.deck_edge_angle_deg:.1f}°" in txt
+    assert f"{r.freeboard_m:.3f} / {r.load_line_margin_m:+.3f} m" in txt
+
+
+def htmllib_unescape(text: str) -> str:
+    import html
+
+    return html.unescape(text)
+
+
+def test_an_unassessable_criterion_reads_not_assessable_never_pass():
+    from verdict_samples import demo_with_verdict
+
+    v, c, r = demo_with_verdict(unassessable=True)
+    cr = next(x for x in r.criteria if not x.assessed)
+    txt = render_report_text(r, v, c)
+    row = next(line for line in txt.splitlines() if line.startswith(cr.description))
+    assert "not assessable" in row and "pass" not in row and "n/a" in row
+    assert f"{cr.description}: {cr.note}" in txt
+    assert "met where assessable" in txt
+
+
+def test_weather_svg_draws_the_levers_angles_and_areas(demo_case):
+    """lw1 and lw2 are horizontal lines at their values; θ0, θ1 (at θ0 − θ1) and θ2 are marks at their
+    angles; areas a and b are shaded; the curve runs from rolled to windward to past θ2."""
+    from deckload.report import weather_svg
+
+    v, c, r = demo_case
+    w = r.weather
+    root = _svg_tree(weather_svg(r))
+    fx, fy = _axis_maps(root)
+    lines = {e.get("class"): e for e in root.iter(SVG_NS + "line") if e.get("class") in ("lw1", "lw2")}
+    for cls, value in (("lw1", w.lw1_m), ("lw2", w.lw2_m)):
+        e = lines[cls]
+        assert float(e.get("y1")) == pytest.approx(fy(value), abs=0.01)  # coordinates are written to 0.01
+        assert float(e.get("y2")) == float(e.get("y1"))
+    marks = sorted(float(e.get("data-angle-deg")) for e in root.iter(SVG_NS + "line") if e.get("class") == "mark")
+    assert marks == pytest.approx(sorted([w.theta0_deg, w.theta0_deg - w.theta1_deg, w.theta2_deg]), abs=1e-4)
+    for e in root.iter(SVG_NS + "line"):
+        if e.get("class") == "mark":
+            assert float(e.get("x1")) == pytest.approx(fx(float(e.get("data-angle-deg"))), abs=0.01)
+    areas = {e.get("class") for e in root.iter(SVG_NS + "polygon")}
+    assert areas == {"area-a", "area-b"}
+    (poly,) = [e for e in root.iter(SVG_NS + "polyline") if e.get("class") == "gz-curve"]
+    xs = [float(p.split(",")[0]) for p in poly.get("points").split()]
+    assert min(xs) <= fx(w.theta0_deg - w.theta1_deg) and max(xs) >= fx(w.theta2_deg)
+    doc = render_report_html(r, v, c)
+    assert doc.count("<svg") == 2 and 'class="weather"' in doc
+
+
+def test_no_weather_diagram_when_the_weather_criterion_was_not_assessed(case):
+    from deckload.report import weather_svg
+
+    v, c, r = case
+    assert r.weather is None
+    assert weather_svg(r) is None and render_report_html(r, v, c).count("<svg") == 1

@@ -10,16 +10,13 @@ and the hydrostatic table, with the reasoning beside it:
 * **Positions.**  x from −0.2·LBP to 1.2·LBP (overhangs, rudder and bow beyond the
   perpendiculars), |y| ≤ B/2, z from the keel to D + 30 m (masts and deck stows).  These are
   the limits the item form has always used (common practice for an envelope check).
-* **Hull box.**  The hull lies inside a box of length 1.2·LBP (the x range), breadth B: a
-  waterplane's area is at most 1.2·LBP·B, its transverse second moment at most
-  1.2·LBP·B³/12, its longitudinal one at most B·(1.2·LBP)³/12, and the volume below a draft
-  T at most 1.2·LBP·B·T (a block coefficient cannot exceed 1).  Derived: each is the box's
-  value, and every section inside the box has less.
-* **Metacentres.**  KM = KB + I/∇ with KB ≤ T, so KMt ≤ T + ρ·(1.2·LBP)·B³/(12·Δ) and
-  KML ≤ T + ρ·B·(1.2·LBP)³/(12·Δ); MCTC = Δ·GML/(100·LBP) ≤ Δ·KML/(100·LBP).  TPC =
-  ρ·A_w/100 ≤ ρ·1.2·LBP·B/100 (standards.md §6.2 definitions; bounds derived).
-* **Levers.**  The centre of buoyancy lies inside the hull, so |KN| ≤ √((B/2)² + z_max²);
-  a volumetric transfer moment (volume × centroid shift) is at most V·√(B² + z_max²).
+* **Hull box.**  The hull lies inside a box of length 1.2·LBP (overall length; the audit's
+  waterline bound), breadth B and height depth + 30 m: a compartment's volume, a deck area
+  and a transfer moment (volume × the largest centroid shift, √(B² + z_max²)) are at most
+  the box's.  Derived: every section inside the box has less.
+* **Profile tables** (positions of tanks and lightship, hydrostatic rows, KN, free-surface
+  inertias) are judged by the plausibility audit (:mod:`deckload.core.audit`) on the same
+  envelope, which every command runs before it uses a profile.
 * **Masses.**  No item can weigh more than the vessel's greatest tabulated displacement
   less her lightship (she would not float: Δ beyond the table is refused anyway, but a
   single item past it is an input mistake to name at its key).
@@ -41,13 +38,15 @@ from dataclasses import dataclass
 
 import numpy as np
 
+from deckload.core.audit import ENVELOPE_X_FRACTION
 from deckload.core.model import Particulars, Vessel
 from deckload.core.tables import OutOfRangeError
 
-LENGTH_FACTOR = 1.2
-"""The hull and everything aboard lies within 1.2·LBP longitudinally (−0.2·LBP … 1.2·LBP)."""
-AFT_OVERHANG = 0.2
-"""How far aft of the aft perpendicular a position may lie, as a fraction of LBP."""
+AFT_OVERHANG = ENVELOPE_X_FRACTION
+"""How far beyond either perpendicular a position may lie, as a fraction of LBP: the plausibility
+audit's envelope (deckload.core.audit), so the profile audit, the readers and the forms agree."""
+LENGTH_FACTOR = 1.0 + AFT_OVERHANG
+"""A hull is at most 1.2·LBP long overall (common practice; the audit's waterline bound too)."""
 ABOVE_DEPTH_M = 30.0
 """How far above the depth a centre of gravity may lie (masts, deck stows), m (common practice)."""
 
@@ -138,37 +137,6 @@ def volume_range(p: Particulars) -> Range:
     """A compartment's volume: at most the box 1.2·LBP × B × (depth + 30 m)."""
     return Range(0.0, box_length_m(p) * p.breadth_m * z_max_m(p), "m³",
                  "at most the box 1.2·LBP × breadth × (depth + 30 m)")
-
-
-def displacement_high_t(p: Particulars, draft_m: float) -> float:
-    """Greatest displacement at a draft: the box 1.2·LBP × B × T full of water of the table density."""
-    return p.table_density_t_m3 * box_length_m(p) * p.breadth_m * draft_m
-
-
-def fsi_range(p: Particulars) -> Range:
-    """A free-surface inertia: at most the whole box waterplane's, 1.2·LBP·B³/12."""
-    return Range(0.0, box_length_m(p) * p.breadth_m ** 3 / 12.0, "m⁴", "at most 1.2·LBP·B³/12, the box waterplane's")
-
-
-def tpc_high(p: Particulars) -> float:
-    return p.table_density_t_m3 * box_length_m(p) * p.breadth_m / 100.0
-
-
-def kmt_high_m(p: Particulars, draft_m: float, displacement_t: float) -> float:
-    return draft_m + p.table_density_t_m3 * box_length_m(p) * p.breadth_m ** 3 / (12.0 * displacement_t)
-
-
-def kml_high_m(p: Particulars, draft_m: float, displacement_t: float) -> float:
-    return draft_m + p.table_density_t_m3 * p.breadth_m * box_length_m(p) ** 3 / (12.0 * displacement_t)
-
-
-def mctc_high(p: Particulars, draft_m: float, displacement_t: float) -> float:
-    return displacement_t * kml_high_m(p, draft_m, displacement_t) / (100.0 * p.lbp_m)
-
-
-def kn_range(p: Particulars) -> Range:
-    r = math.hypot(p.breadth_m / 2, z_max_m(p))
-    return Range(-r, r, "m", "the centre of buoyancy lies inside the hull")
 
 
 def transfer_moment_range(p: Particulars, capacity_m3: float) -> Range:

@@ -64,6 +64,12 @@ COMMANDS: tuple[Command, ...] = (
     Command("compare_hull", "h", "Hull", "Compute the condition from the hull geometry itself (free in trim and heel, "
             "for the actual G) and show it beside the tables' figures, with the difference; the screen stays live.",
             footer=False, title="Compare with the hull"),
+    Command("wind_plot", "b", "Wind", "Show the weather criterion (IS Code 2008 Part A 2.3) on the curve: GZ with the "
+            "steady and gust wind levers lw1 and lw2, the angles θ0, θ1 and θ2, and the areas a and b; again for the "
+            "plain GZ curve.", footer=False, title="Wind and roll plot"),
+    Command("verdict", "v", "Verdict", "The whole verdict: every criteria set assessed, each criterion with its "
+            "paragraph, value, limit and margin, and everything that was not assessed, with the reason.",
+            footer=False, title="Whole verdict"),
     Command("alerts", "w", "Warn", "List every warning, when more are raised than the warning strip can show.",
             title="All warnings"),
     Command("sign_on", "o", "Watch", "Sign on as officer of the watch (initials): every change is then written "

@@ -21,6 +21,7 @@ from textual.widgets import Input, Label, Static
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
 from deckload.ui import views
+from deckload.verdict_format import value_text
 from deckload.ui.commands import COMMANDS, NAVIGATION
 from deckload.ui.entry import EntryError, ItemForm, TransferPlan, plan_transfer
 from deckload.ui.palette import P
@@ -158,6 +159,9 @@ class TransferForm(Form):
             yield Static("", id="form-message")
 
     def on_mount(self) -> None:
+        # Room for every criterion of every set assessed (and a problem line), as far as the screen allows.
+        need = len(preview_lines(self._before, None, None)) + 1
+        self.query_one("#xfer-preview").styles.height = max(8, min(need, self.app.size.height - 10))
         first_empty = "from" if not self._from else "to" if not self._to else "amount"
         self.query_one(f"#xfer-{first_empty}", Input).focus()
         self._update()
@@ -226,7 +230,7 @@ def preview_lines(before: Result | None, after: Result | None, problem: str | No
                 line.append(f"{'—':>7}     ", P["dim"])
             else:
                 word, style = views.verdict(x)
-                line.append(f"{x.value:>7.3f} ", P["value"])
+                line.append(value_text(x, 7) + " ", P["value"])
                 line.append(f"{word:<4}", P[style])
                 line.append(" ")
         line.append(f"  limit {views.CMP.get(c.comparison, c.comparison)} {c.limit:.3f} {c.unit}", P["dim"])
@@ -248,7 +252,7 @@ class TextScreen(ModalScreen[None]):
         for line in self._lines:
             text.append_text(line)
             text.append("\n")
-        with Vertical(classes="form help"):
+        with VerticalScroll(classes="form help"):  # scrolls by keys when longer than the screen
             yield Static(text)
 
     def action_close(self) -> None:
@@ -278,7 +282,7 @@ def help_page() -> Group:
         keys.add_row(c.key_text, c.name, c.help)
     notes = Text("\n" + "\n".join(f"{k}: {what}" for k, what in NAVIGATION), P["label"])
     notes.append("\nTank marks: " + views.LEGEND + ".  Criteria: ok, NEAR (margin under 10 % of the limit), "
-                 "FAIL.\nAmounts: 55% · 12.5m3 · 10t · 1.2m (sounding).  Nothing is extrapolated outside the "
+                 "FAIL, n/a (not assessable: the data cannot decide it; never a pass).\nAmounts: 55% · 12.5m3 · 10t · 1.2m (sounding).  Nothing is extrapolated outside the "
                  "vessel's tables.\n", P["label"])
     notes.append("deckload supports, and never replaces, the approved stability booklet, the master's "
                  "judgement and flag-State and class rules.", P["dim"])

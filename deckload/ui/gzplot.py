@@ -2,6 +2,10 @@
 
 Vertical marks (30°, 40°, the downflooding angle θf) are drawn as dotted
 columns and named on the axis line below, so they read without colour.
+Horizontal levels (the wind heeling levers lw1 and lw2) are dashed rows named at
+their right end; shaded areas (the weather criterion's areas a and b) are sparse dots
+between the curve and a level, named by their letter inside.  The angle axis may
+start below zero (rolled to windward).
 """
 
 from __future__ import annotations
@@ -27,6 +31,30 @@ class Mark:
 
 
 @dataclass(frozen=True)
+class Level:
+    """A horizontal line at ``value_m`` (a heeling lever), named at its right end."""
+
+    value_m: float
+    label: str
+    style: str = "gz.level"
+
+
+@dataclass(frozen=True)
+class Area:
+    """Dots between the curve and ``level_m`` from ``from_deg`` to ``to_deg``, named by ``label``.
+
+    ``where`` 'below': only where the curve is below the level (the weather criterion's area a);
+    'above': only where it is above (area b)."""
+
+    from_deg: float
+    to_deg: float
+    level_m: float
+    label: str
+    where: str = "above"
+    style: str = "gz.area"
+
+
+@dataclass(frozen=True)
 class GzChart:
     heel_deg: tuple[float, ...]
     gz_m: tuple[float, ...]
@@ -34,6 +62,10 @@ class GzChart:
     width: int = 48
     height: int = 12
     stale: bool = False
+    levels: tuple[Level, ...] = ()
+    areas: tuple[Area, ...] = ()
+    x_range_deg: tuple[float, float] | None = None
+    """Angles shown (within the curve's own); the whole curve when None."""
 
     def lines(self) -> list[Text]:
         """``height`` lines of ``width`` cells: y labels, plot, then the angle axis."""
@@ -41,25 +73,92 @@ class GzChart:
         cols = max(8, self.width - label_w)
         heel = np.asarray(self.heel_deg, float)
         gz = np.asarray(self.gz_m, float)
-        x_max = float(heel[-1]) if len(heel) else 90.0
-        hi = 1.08 * max(0.05, float(gz.max()) if len(gz) else 1.0)
-        # Below zero only enough to see where the curve crosses: the positive part carries the criteria.
-        lo = max(min(0.0, float(gz.min()) if len(gz) else 0.0), -0.5 * hi)
+        x_lo, x_hi = (float(heel[0]), float(heel[-1])) if len(heel) else (0.0, 90.0)
+        if self.x_range_deg is not None:
+            x_lo, x_hi = max(x_lo, self.x_range_deg[0]), min(x_hi, self.x_range_deg[1])
+        if x_hi <= x_lo:
+            x_hi = x_lo + 1.0
+        shown = gz[(heel >= x_lo) & (heel <= x_hi)] if len(gz) else gz
+        level_vals = [lv.value_m for lv in self.levels]
+        top = max([float(shown.max()) if len(shown) else 1.0, *level_vals])
+        hi = 1.08 * max(0.05, top)
+        bottom = min(0.0, float(shown.min()) if len(shown) else 0.0)
+        # Below zero only enough to see where the curve crosses (the positive part carries the
+        # criteria), unless the chart starts to windward, where the negative part is area a.
+        lo = bottom if x_lo < 0 else max(bottom, -0.5 * hi)
         step = _nice_step((hi - lo) / 5)
         pw, ph = cols * 2, rows * 4
+
+        def px_of(deg: float) -> int:
+            return int(round((deg - x_lo) / (x_hi - x_lo) * (pw - 1)))
+
+        def py_of(v: float) -> int:
+            return int(round((hi - v) / (hi - lo) * (ph - 1)))
+
         grid = np.zeros((rows, cols), dtype=np.int32)
-        xs = np.linspace(0.0, x_max, pw)
-        ys = np.round((hi - np.interp(xs, heel, gz)) / (hi - lo) * (ph - 1)).astype(int)
+        layer = np.zeros((rows, cols), dtype=np.int8)  # 0 none, 1 area, 2 level, 3 curve: the highest names the style
+        area_style: dict[tuple[int, int], str] = {}
+        level_style: dict[tuple[int, int], str] = {}
+        xs = np.linspace(x_lo, x_hi, pw)
+        curve = np.interp(xs, heel, gz)
+        ys = np.clip(np.round((hi - curve) / (hi - lo) * (ph - 1)).astype(int), -1, ph)
+
+        def dot(px: int, py: int, kind: int, style: dict | None = None, name: str = "") -> None:
+            if 0 <= py < ph and 0 <= px < pw:
+                cell = (py // 4, px // 2)
+                grid[cell] |= _BITS[px % 2][py % 4]
+                if kind > layer[cell]:
+                    layer[cell] = kind
+                    if style is not None:
+                        style[cell] = name
+
+        area_cols: dict[int, list[int]] = {}
+        for n, area in enumerate(self.areas):  # sparse dots: every other dot column, every other dot row
+            y_level = py_of(area.level_m)
+            cols_in = area_cols.setdefault(n, [])
+            for px in range(max(0, px_of(area.from_deg)), min(pw - 1, px_of(area.to_deg)) + 1):
+                curve_above = curve[px] > area.level_m
+                if curve_above != (area.where == "above"):
+                    continue
+                cols_in.append(px)
+                if px % 2:
+                    continue
+                a, b = sorted((int(ys[px]), y_level))
+                for py in range(a + 1, b):
+                    if py % 2 == 0:
+                        dot(px, py, 1, area_style, area.style)
+        for lv in self.levels:
+            y = py_of(lv.value_m)
+            for px in range(pw):
+                if px % 4 < 2:
+                    dot(px, y, 2, level_style, lv.style)
         prev = ys[0]
         for px, py in enumerate(ys):
             for y in range(max(0, min(prev, py)), min(ph - 1, max(prev, py)) + 1):  # join steep segments
-                grid[y // 4, px // 2] |= _BITS[px % 2][y % 4]
+                dot(px, y, 3)
             prev = py
-        zero_row = int(round(hi / (hi - lo) * (ph - 1))) // 4
+        zero_row = py_of(0.0) // 4
         mark_cols: dict[int, Mark] = {}
         for m in self.marks:  # earlier marks win a shared column
-            if 0 <= m.angle_deg <= x_max:
-                mark_cols.setdefault(int(round(m.angle_deg / x_max * (pw - 1))) // 2, m)
+            if x_lo <= m.angle_deg <= x_hi:
+                mark_cols.setdefault(px_of(m.angle_deg) // 2, m)
+        text_at: dict[tuple[int, int], tuple[str, str]] = {}
+        by_row: dict[int, list[Level]] = {}
+        for lv in self.levels:  # the levers' names at their right end; levels sharing a row share a name
+            by_row.setdefault(py_of(lv.value_m) // 4, []).append(lv)
+        for r, lvs in by_row.items():
+            name = "/".join(lv.label for lv in lvs)
+            if 0 <= r < rows:
+                for i, ch in enumerate(name[:cols]):
+                    text_at[(r, max(0, cols - len(name)) + i)] = (ch, lvs[0].style)
+        for n, area in enumerate(self.areas):  # the area's letter in its middle, where there is room
+            cols_in = area_cols.get(n, [])
+            if len(cols_in) < 4:
+                continue
+            mid = cols_in[len(cols_in) // 2]
+            r = ((int(ys[mid]) + py_of(area.level_m)) // 2) // 4
+            if 0 <= r < rows:
+                text_at.setdefault((r, mid // 2), (area.label, area.style))
         curve_style = P["gz.stale"] if self.stale else P["gz.curve"]
         labels: dict[int, str] = {}
         for k in range(int(np.ceil(lo / step)), int(np.floor(hi / step)) + 1):
@@ -70,8 +169,13 @@ class GzChart:
             line = Text(labels.get(r, "     │"), style=P["gz.axis"])
             for c in range(cols):
                 bits = int(grid[r, c])
-                if bits:
-                    line.append(chr(0x2800 + bits), curve_style)
+                if (r, c) in text_at:
+                    ch, st = text_at[(r, c)]
+                    line.append(ch, P[st])
+                elif bits:
+                    kind = int(layer[r, c])
+                    st = curve_style if kind == 3 else P[(level_style if kind == 2 else area_style)[(r, c)]]
+                    line.append(chr(0x2800 + bits), st)
                 elif c in mark_cols:
                     line.append("┊", P[mark_cols[c].style])
                 elif r == zero_row and lo < 0:
@@ -79,10 +183,10 @@ class GzChart:
                 else:
                     line.append(" ")
             out.append(line)
-        out.append(self._axis(cols, label_w, x_max, mark_cols))
+        out.append(self._axis(cols, label_w, x_lo, x_hi, mark_cols))
         return out
 
-    def _axis(self, cols: int, label_w: int, x_max: float, mark_cols: dict[int, Mark]) -> Text:
+    def _axis(self, cols: int, label_w: int, x_lo: float, x_hi: float, mark_cols: dict[int, Mark]) -> Text:
         """Angle axis: mark labels under their columns, then 0/10/…/90 ticks where there is room."""
         chars = [" "] * cols
         styles = [P["gz.axis"]] * cols
@@ -93,9 +197,9 @@ class GzChart:
                 continue
             for i, ch in enumerate(m.label):
                 chars[start + i], styles[start + i], taken[start + i] = ch, P[m.style], True
-        for deg in range(0, int(x_max) + 1, 10):
-            c = int(round(deg / x_max * (cols * 2 - 1))) // 2
-            text = f"{deg}°" if deg == int(x_max) else str(deg)
+        for deg in range(int(np.ceil(x_lo / 10.0)) * 10, int(x_hi) + 1, 10):
+            c = int(round((deg - x_lo) / (x_hi - x_lo) * (cols * 2 - 1))) // 2
+            text = f"{deg}°" if deg == int(x_hi) else str(deg)
             c = min(c, cols - len(text))
             if not any(taken[max(0, c - 1) : c + len(text) + 1]):
                 for i, ch in enumerate(text):

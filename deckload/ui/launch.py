@@ -16,7 +16,7 @@ def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir
     """The vessel and the condition to start from, with notices for the user.
 
     Start-up order: the CONDITION argument if given; else the vessel's saved
-    working condition; else (demo vessel) its departure condition, or an empty
+    working condition; else (a packaged demo vessel) its departure condition, or an empty
     condition.  A condition counts as read only when it parses, fits the vessel and
     the calculation accepts it (a displacement outside the tables is accepted: the
     screen shows why).  An unusable working file is set aside with a notice, never
@@ -54,8 +54,9 @@ def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir
             aside = _free_name(saved, ".unreadable")
             saved.replace(aside)
             notices.append(f"Saved working condition could not be read and was moved to {aside}: {exc}")
-    if profile_path is None:
-        return vessel, load_condition(paths.DEMO_CONDITIONS["departure"], vessel), notices
+    start = paths.demo_start_condition(profile_path)
+    if start is not None:  # a packaged demo vessel opens on its departure condition
+        return vessel, load_condition(start, vessel), notices
     return vessel, Condition(name="Working condition"), notices
 
 

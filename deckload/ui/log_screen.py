@@ -35,6 +35,7 @@ from textual.containers import Horizontal, Vertical, VerticalScroll
 from textual.screen import ModalScreen, Screen
 from textual.widgets import DataTable, Footer, Input, Static
 
+from deckload import verdict_format as vf
 from deckload.core.model import Condition, Vessel
 from deckload.logbook import KIND_LABELS, KINDS, LogEntry, Logbook, condition_of
 
@@ -117,13 +118,22 @@ def entry_details(e: LogEntry) -> Text:
             ("FSC", _num(s.get("fsc_m"), 3, " m")),
             ("GM fluid", _num(s.get("gm_fluid_m"), 3, " m")),
         ]
+        rows += [
+            ("Freeboard midships", _num(s.get("freeboard_m"), 3, " m") if "freeboard_m" in s else "—"),
+            ("To load line (+ below)", _num(s.get("load_line_margin_m"), 3, " m")),
+            ("Deck edge immersion", _num(s.get("deck_edge_angle_deg"), 1, "°")),
+            ("Downflooding θf", _num(s.get("downflooding_angle_deg"), 1, "°")),
+        ]
         for k, v in rows:
             t.append(f"  {k:<24}{v}\n")
-        passed = s.get("criteria_pass")
-        if passed is True:
-            t.append("  Criteria: all met\n", style="bold")
-        elif passed is False:
-            t.append(f"  Criteria: NOT MET — {', '.join(s.get('criteria_failed', []))}\n", style="bold red")
+        word = vf.stored_word(s)
+        style = "bold red" if word == "NOT MET" else "bold"
+        for line in vf.stored_lines(s, 90):
+            t.append(line + "\n", style=style)
+        for x in s.get("criteria_sets") or []:
+            t.append(f"    {x.get('title', x.get('id'))}: {'met' if x.get('pass') else 'NOT MET or not all assessable'}\n")
+        for x in s.get("criteria_not_assessable") or []:
+            t.append(f"    {x.get('id')}: not assessable — {x.get('note', '')}\n", style="bold")
         sm = s.get("smallest_margin")
         if sm:
             t.append(f"  Smallest margin: {sm.get('description', sm.get('id'))}: {_num(sm.get('value'))} against "
@@ -218,8 +228,8 @@ class LogScreen(Screen["RestoreRequest | None"]):
         table = self.query_one("#log-table", DataTable)
         table.clear()
         for e in self.shown:
-            passed = e.criteria_pass
-            verdict = Text("—") if passed is None else (Text("pass") if passed else Text("FAIL", style="bold red"))
+            word = vf.stored_short(e.summary)
+            verdict = Text(word or "—", style="bold red" if word.startswith("NOT") else "")
             table.add_row(
                 *(Text(c) for c in (str(e.seq), f"{e.ship_time:%m-%d %H:%M}", e.kind, e.by,
                                     _short(e.change_text, 30), _num(e.gm_fluid_m))),

@@ -3,7 +3,9 @@
 Layout (see deckload.tcss): a title line, the alert strip (always in view), the
 loading board on the left, the 'Afloat' numbers, the criteria and the GZ curve on
 the right, a message line and the footer.  Below 110 columns the right side
-shows either the numbers or the GZ curve (key g).
+shows either the numbers or the GZ curve (key g).  Key b puts the weather
+criterion on the curve panel (wind levers, θ0, θ1, θ2, areas a and b), key v
+opens the whole verdict.
 """
 
 from __future__ import annotations
@@ -18,7 +20,7 @@ from textual.screen import Screen
 from textual.widgets import Footer
 
 from deckload.core.model import Condition
-from deckload.ui import entry, views
+from deckload.ui import entry, verdict, views
 from deckload.ui.commands import bindings
 from deckload.ui.dialogs import HelpScreen, TextScreen, ItemFormScreen, PromptForm, RecordForm, TransferForm
 from deckload.ui.entry import EntryError, ItemForm
@@ -28,6 +30,8 @@ from deckload.ui.widgets import LinePanel, LoadBoard, SizedPanel
 
 NARROW_BELOW = 110
 """Screen width (cells) under which the right side shows numbers or curve, not both."""
+MIN_CURVE_ROWS = 10
+"""On a wide screen the criteria panel takes the rows it needs, leaving the curve at least this many."""
 
 
 class LoadingScreen(Screen[None]):
@@ -59,6 +63,7 @@ class LoadingScreen(Screen[None]):
     def on_resize(self, event) -> None:
         self.set_class(event.size.width < NARROW_BELOW, "-narrow")
         self.refresh_bindings()
+        self.call_after_refresh(self._size_criteria, self.session.result, self.session.stale)
 
     def check_action(self, action: str, parameters: tuple) -> bool | None:
         """The numbers/curve switch exists only where the screen cannot show both."""
@@ -76,12 +81,31 @@ class LoadingScreen(Screen[None]):
         alerts = views.alerts(r, stale, s.problem)
         self.query_one("#alerts", SizedPanel).show(lambda w, h: alert_lines(alerts, h))
         self.query_one("#afloat", SizedPanel).show(lambda w, h: views.afloat_lines(v, c, r, stale, w))
-        code = v.criteria.code
-        self.query_one("#criteria", SizedPanel).show(lambda w, h: views.criteria_lines(r, stale, code, compact=w < 48))
-        self.query_one("#gz", SizedPanel).show(
-            lambda w, h: [views.gz_caption(r), *views.gz_chart(r, stale, w - 1, h - 1).lines()]
-        )
+        self._size_criteria(r, stale)
+        self.query_one("#criteria", SizedPanel).show(lambda w, h: verdict.criteria_lines(r, stale, w, h))
+        self.query_one("#gz", SizedPanel).show(lambda w, h: self._curve_lines(r, stale, w, h))
         self.query_one("#titlebar", SizedPanel).show(lambda w, h: [self._title(w)])
+
+    def _curve_lines(self, r, stale: bool, w: int, h: int) -> list[Text]:
+        """The GZ curve, or with key b the weather criterion on it (or why there is none)."""
+        if self.has_class("-wind"):
+            chart = verdict.weather_chart(r, stale, w - 1, h - 1)
+            if chart is None:
+                return verdict.weather_missing(r, w)
+            return [verdict.weather_caption(r, w), *chart.lines()]
+        return [views.gz_caption(r), *views.gz_chart(r, stale, w - 1, h - 1).lines()]
+
+    def _size_criteria(self, r, stale: bool) -> None:
+        """Wide: the criteria panel as tall as its lines (the curve keeps MIN_CURVE_ROWS); narrow: the rest."""
+        panel = self.query_one("#criteria", SizedPanel)
+        side = self.query_one("#side")
+        if self.has_class("-narrow") or side.size.height == 0:
+            want = "1fr"
+        else:
+            room = max(4, side.size.height - self.query_one("#afloat").outer_size.height - MIN_CURVE_ROWS)
+            want = str(len(verdict.criteria_lines(r, stale, max(1, side.size.width), room)))
+        if str(panel.styles.height) != want and not (want == "1fr" and str(panel.styles.height) == "1fr"):
+            panel.styles.height = want
 
     def _title(self, width: int) -> Text:
         """Vessel, condition, whether changes are logged, undo depth; shortened on narrow screens."""
@@ -331,6 +355,25 @@ class LoadingScreen(Screen[None]):
     def action_toggle_gz(self) -> None:
         self.toggle_class("-gz")
 
+    def action_wind_plot(self) -> None:
+        """The curve panel between the plain GZ curve and the weather criterion (narrow: shows the curve)."""
+        on = not self.has_class("-wind")
+        self.set_class(on, "-wind")
+        if self.has_class("-narrow"):
+            self.set_class(on, "-gz")
+        self.refresh_view()
+        r = self.session.result
+        if on and (r is None or r.weather is None):
+            self.say("Weather criterion not assessed for this condition: the panel says why.", ok=None)
+        else:
+            self.say("Wind and roll plot: b again for the plain GZ curve" if on else "GZ curve", ok=None)
+
+    def action_verdict(self) -> None:
+        s = self.session
+        lines = verdict.verdict_page(None if s.stale else s.result, width=max(40, min(96, self.size.width - 6)))
+        title = "Verdict" + (" (last good result: the condition is outside the tables)" if s.stale else "")
+        self.app.push_screen(TextScreen(title, lines))
+
     def action_record(self) -> None:
         j = self.session.journal
         if not j.writable:
@@ -409,8 +452,8 @@ class LoadingScreen(Screen[None]):
 def alert_lines(alerts: list[views.Alert], height: int) -> list[Text]:
     """As many alerts as fit, dangers first; the last line counts those left out."""
     if not alerts:
-        return [Text(" ✔ No warnings: criteria met with margin, no worst-band tank, list and drafts within limits",
-                     P["ok"])]
+        return [Text(" ✔ No warnings: no assessed criterion failed or within 10 %, no worst-band tank, list and "
+                     "drafts within limits", P["ok"])]
     ordered = alerts
     if len(ordered) <= height:
         return [a.line() for a in ordered]

@@ -34,4 +34,7 @@ P: dict[str, Style] = {
     "gz.axis": Style(color="#7f8c99"),
     "gz.mark": Style(color="#e6b450"),
     "gz.flood": Style(color="#ff7a6b"),
+    "gz.level": Style(color="#c8b88a"),
+    "gz.area": Style(color="#5f7f8f"),
+    "gz.area.b": Style(color="#6f9f7f"),
 }

@@ -13,6 +13,7 @@ from rich.text import Text
 
 from deckload.core.model import Condition, LIQUID_KINDS, Vessel
 from deckload.core.result import CriterionResult, Result
+from deckload.verdict_format import fmt_optional
 from deckload.ui.entry import fill_volume_m3, tank_density
 from deckload.ui.gzplot import GzChart, Mark
 from deckload.ui.palette import P
@@ -52,6 +53,11 @@ def fill_bar(pct: float, width: int) -> str:
 
 def num(value: float | None, fmt: str, width: int) -> str:
     return ("—" if value is None else format(value, fmt)).rjust(width)
+
+
+def opt(value: float | None, fmt: str) -> str:
+    """A value the result may not have: 'n/a' when None or not finite."""
+    return fmt_optional(value, fmt)
 
 
 # --------------------------------------------------------------------------- the board
@@ -183,7 +189,9 @@ def _pair(line: Text, label: str, value: str, unit: str, stale: bool, compact: b
 
 
 def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, stale: bool, width: int = 54) -> list[Text]:
-    """Displacement, deadweight, drafts, trim, list, KG, FSC, KG fluid, GM fluid (two pairs a line)."""
+    """Displacement, deadweight, drafts, trim, freeboard at midships and its margin to the load line
+    in use (FWA/DWA applied by the engine), list, deck-edge immersion angle, KG, θf, KG fluid, FSC,
+    GM fluid, KM (two pairs a line; 'n/a' where the result has no value)."""
     compact = width < 44
     title = Text(" Afloat", P["title"])
     title.append(f"  ρ {condition.water_density_t_m3:.3f} t/m³", P["dim"])
@@ -197,15 +205,17 @@ def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, st
         title.append(f"  FS {rule} · GZ {'transfer' if r.gz_correction == 'transfer' else 'const'}", P["dim"])
     trim_word = "A" if r.trim_m > 0 else ("F" if r.trim_m < 0 else "")
     list_word = "S" if r.list_deg > 0.005 else ("P" if r.list_deg < -0.005 else "")
-    ll = next((m for m in vessel.load_lines if m.name == condition.load_line), None)
+    ll = condition.load_line[:3]
+    margin = "n/a" if r.load_line_margin_m is None else f"{r.load_line_margin_m:+.3f}"
     rows = [
         (("Δ", f"{r.displacement_t:.1f}", "t"), ("DWT", f"{r.deadweight_t:.1f}", "t")),
         (("T aft", f"{r.draft_aft_m:.3f}", "m"), ("T fwd", f"{r.draft_fwd_m:.3f}", "m")),
         (("T mid", f"{r.draft_mean_m:.3f}", "m"), ("Trim", f"{abs(r.trim_m):.3f}", f"m {trim_word}")),
-        (("List", f"{abs(r.list_deg):.2f}", f"° {list_word}"), ("LL", f"{ll.draft_m:.3f}" if ll else "—", "m " + (ll.name[:3] if ll else ""))),
-        (("KG", f"{r.kg_m:.3f}", "m"), ("FSC", f"{r.fsc_m:.3f}", "m")),
-        (("KG fl", f"{r.kg_fluid_m:.3f}", "m"), ("KM", f"{r.km_m:.3f}", "m")),
-        (("GM fl", f"{r.gm_fluid_m:.3f}", "m"), ("ΣFSM", f"{r.fsm_total_tm:.1f}", "t·m")),
+        (("Fbd", opt(r.freeboard_m, ".3f"), "m"), ("to LL", margin, "m" if compact else "m " + ll)),
+        (("List", f"{abs(r.list_deg):.2f}", f"° {list_word}"), ("∠deck", opt(r.deck_edge_angle_deg, ".1f"), "°")),
+        (("KG", f"{r.kg_m:.3f}", "m"), ("θf", opt(r.downflooding_angle_deg, ".1f"), "°")),
+        (("KG fl", f"{r.kg_fluid_m:.3f}", "m"), ("FSC", f"{r.fsc_m:.3f}", "m")),
+        (("GM fl", f"{r.gm_fluid_m:.3f}", "m"), ("KM", f"{r.km_m:.3f}", "m")),
     ]
     out = [title]
     for left, right in rows:
@@ -224,6 +234,8 @@ SHORT_NAMES = {
     "gz-30": "GZ at ≥30°",
     "angle-max-gz": "∠ of GZ max",
     "gm0": "GM0 fluid",
+    "area-b-a": "Wind b ≥ a",
+    "theta0": "Wind heel θ0",
 }
 
 
@@ -238,34 +250,15 @@ def criterion_name(c: CriterionResult) -> str:
 
 
 def verdict(c: CriterionResult) -> tuple[str, str]:
-    """'FAIL', 'NEAR' (margin under 10 % of the limit) or 'ok', with its style key."""
+    """'n/a' (not assessable: never a pass), 'FAIL', 'NEAR' (margin under 10 % of the limit) or 'ok',
+    with its style key."""
+    if not c.assessed:
+        return "n/a", "caution"
     if not c.passed:
         return "FAIL", "fail"
     if c.margin_fraction < NEAR_FRACTION:
         return "NEAR", "near"
     return "ok", "ok"
-
-
-def criteria_lines(result: Result | None, stale: bool, code: str, compact: bool = False) -> list[Text]:
-    """One line per criterion: value, limit, margin and ok / NEAR / FAIL (compact: no margin, no unit)."""
-    head = Text(f" Criteria {code}", P["title"])
-    if result is None:
-        return [head]
-    all_ok = result.all_criteria_pass
-    head.append("   all met" if all_ok else "   NOT MET", P["ok"] if all_ok and not stale else P["danger"])
-    out = [head, Text("              value   limit" + ("" if compact else "   margin"), P["head"])]
-    for c in result.criteria:
-        word, style = verdict(c)
-        line = Text(f" {criterion_name(c):<12.12}", P["label"])
-        vs = P["stale"] if stale else P["value"]
-        line.append(f"{c.value:7.3f} {CMP.get(c.comparison, c.comparison)}{c.limit:6.3f} ", vs)
-        if not compact:
-            line.append(f"{c.margin:+7.3f} ", vs)
-        line.append(f"{word:<4}", P["stale"] if stale else P[style])
-        if not compact:
-            line.append(f" {c.unit}", P["unit"])
-        out.append(line)
-    return out
 
 
 def gz_chart(result: Result | None, stale: bool, width: int, height: int) -> GzChart:

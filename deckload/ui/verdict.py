@@ -1,0 +1,236 @@
+"""The verdict on the loading screen: the criteria panel, the whole-verdict page and the wind plot.
+
+Result → pre-formatted rich Text lines, like :mod:`deckload.ui.views` (no textual here).
+The panel never says 'met' without the sets it was met for, groups the criteria by
+set with their paragraph, shows a criterion the data cannot decide as 'not
+assessable' (never as a pass), and always lists what was not assessed.  When the
+panel is short, lines are given up in this order: notes, the column heading, the
+'ok' criteria of the longest set (counted on a line of their own); the set headings,
+every failed, near or unassessable criterion and the not-assessed line stay.
+"""
+
+from __future__ import annotations
+
+import textwrap
+
+from rich.text import Text
+
+from deckload import verdict_format as vf
+from deckload.core.result import CriterionResult, Result
+from deckload.ui.gzplot import Area, GzChart, Level, Mark
+from deckload.ui.palette import P
+from deckload.ui.views import CMP, criterion_name, verdict
+
+WORD_STYLE = {"met": "ok", "NOT MET": "danger", "met where assessable": "caution", "nothing assessed": "danger"}
+VERDICT_KEY = "v"
+"""Shown in the panel as the way to the whole verdict (declared in ui/commands.py)."""
+
+
+def _criterion_line(c: CriterionResult, stale: bool, compact: bool) -> Text:
+    line = Text(f" {criterion_name(c):<12.12}", P["label"])
+    vs = P["stale"] if stale else P["value"]
+    d = vf.digits_of(c)
+    limit = f"{CMP.get(c.comparison, c.comparison)}{c.limit:6.{d}f} "
+    if not c.assessed:
+        line.append(f"{vf.NOT_ASSESSABLE:>14} " if compact else f"{'n/a':>7} {limit}", P["caution"])
+        if not compact:
+            line.append(f"{'':>8}{'n/a':<4}", P["caution"])
+            line.append(f" {vf.paragraph(c, short=True)}", P["dim"])
+        return line
+    line.append(f"{c.value:7.{d}f} {limit}", vs)
+    if not compact:
+        line.append(f"{c.margin:+8.{d}f} ", vs)
+    word, style = verdict(c)
+    line.append(f"{word:<4}", P["stale"] if stale else P[style])
+    if not compact:
+        line.append(f" {vf.paragraph(c, short=True)}", P["dim"])
+    return line
+
+
+def _wrap_words(words: list[str], first: str, width: int, sep: str = ",", last: str = "") -> list[str]:
+    """``first`` then the words joined by ``sep``, then ``last``, wrapped on whole words to ``width``."""
+    lines, cur = [], first
+    pieces = [w + (sep if i < len(words) - 1 else "") for i, w in enumerate(words)] + ([last] if last else [])
+    for piece in pieces:
+        trial = cur + ("" if cur.endswith(" ") or not cur.strip() else " ") + piece
+        if len(trial) > width and cur.strip():
+            lines.append(cur)
+            cur = "   " + piece
+        else:
+            cur = trial
+    lines.append(cur)
+    return lines
+
+
+def criteria_lines(result: Result | None, stale: bool, width: int, height: int = 10_000) -> list[Text]:
+    """The criteria panel: the verdict with the sets it covers, each set with its criteria, and the
+    not-assessed list; at most ``height`` lines (see the module docstring for what gives way)."""
+    compact = width < 48
+    if result is None:
+        return [Text(" Criteria", P["title"])]
+    word = vf.outcome_word(result.criteria)
+    n_failed = len(vf.failed(result))
+    shown_word = (f"NOT MET ({n_failed})" if compact else f"NOT MET ({n_failed} failed)") if n_failed else word
+    head = Text(" Criteria ", P["title"])
+    head.append(shown_word, P["stale"] if stale else P[WORD_STYLE[word]])
+    ids = vf.short_set_names(result) if compact else [s.id or s.title for s in result.criteria_sets]
+    rest = _wrap_words(ids or ["no criteria set"], ":", width - head.cell_len + 1)
+    if len(rest) > 1 or head.cell_len + len(rest[0]) > width:  # the sets on the lines below, named 'sets'
+        rest = _wrap_words(ids or ["no criteria set"], "   sets", width)
+        heads = [head] + [Text(x, P["value"]) for x in rest]
+    else:
+        head.append(rest[0], P["value"])
+        heads = [head]
+    colhead = Text("              value   limit" + ("" if compact else "   margin      ¶"), P["head"])
+
+    groups: list[tuple[Text, list[tuple[CriterionResult, Text, list[Text]]]]] = []
+    for g in vf.grouped(result):
+        title = vf.set_title(g.set.title)
+        gw = g.word
+        room = max(4, width - len(gw) - 2)
+        h = Text(f" ▸ {title}"[:room].ljust(room), P["group"])
+        h.append(" " + gw, P["stale"] if stale else P[WORD_STYLE.get(gw, "caution")])
+        rows = []
+        for c in g.criteria:
+            notes = [Text(f"   {c.note}"[:width], P["dim"])] if (c.note and not c.assessed) or (c.note and not compact) else []
+            rows.append((c, _criterion_line(c, stale, compact), notes))
+        groups.append((h, rows))
+
+    na_items = [vf.short_item(n.item) for n in result.not_assessed]
+    na_full = [Text(x, P["caution"]) for x in _wrap_words(
+        na_items, " Not assessed:", width, last=f"({VERDICT_KEY}: why)")] if na_items else []
+    na_short = [Text(f" Not assessed: {len(na_items)} items ({VERDICT_KEY})", P["caution"])] if na_items else []
+
+    def build(with_notes: bool, with_colhead: bool, na: list[Text], keep_ok: dict[int, int]) -> list[Text]:
+        out = list(heads) + ([colhead] if with_colhead else [])
+        for gi, (h, rows) in enumerate(groups):
+            out.append(h)
+            ok_budget = keep_ok.get(gi, len(rows))
+            hidden = 0
+            for c, line, notes in rows:
+                is_ok = c.assessed and verdict(c)[0] == "ok"
+                if is_ok:
+                    if ok_budget <= 0:
+                        hidden += 1
+                        continue
+                    ok_budget -= 1
+                out.append(line)
+                if with_notes or not c.assessed:
+                    out.extend(notes if with_notes else notes[:1])
+            if hidden:
+                out.append(Text(f"   +{hidden} more ok ({VERDICT_KEY} lists all)", P["dim"]))
+        return out + na
+
+    out = build(True, True, na_full, {})
+    if len(out) <= height:
+        return out
+    for args in ((False, True, na_full), (False, False, na_full), (False, False, na_short)):
+        out = build(*args, {})
+        if len(out) <= height:
+            return out
+    # Give up 'ok' lines of the longest sets first, one at a time, until it fits.
+    keep = {gi: sum(1 for c, _, _ in rows if c.assessed and verdict(c)[0] == "ok") for gi, (_, rows) in enumerate(groups)}
+    while len(out) > height and any(keep.values()):
+        gi = max(keep, key=keep.get)
+        keep[gi] -= 1
+        out = build(False, False, na_short, keep)
+    return out[: max(1, height - len(na_short))] + na_short if len(out) > height else out
+
+
+def verdict_page(result: Result | None, width: int = 96) -> list[Text]:
+    """The whole verdict for the 'v' page: the verdict sentence, every set with its criteria,
+    paragraph and note, and everything not assessed with the reason."""
+    if result is None:
+        return [Text("No result: the condition is outside the vessel's tables (see the warning).", P["danger"])]
+    out = [Text(x, P["value"]) for x in vf.verdict_lines(result, width)]
+    for g in vf.grouped(result):
+        out.append(Text(""))
+        h = Text(f"{vf.set_title(g.set.title)} ", P["group"])
+        h.append(g.word, P[WORD_STYLE.get(g.word, "caution")])
+        out.append(h)
+        for c in g.criteria:
+            if width >= 90:
+                line = Text(f"  {vf.paragraph(c):<12.12} {c.description:<40.40} ", P["label"])
+            else:  # narrow: the criterion on its own line, the numbers under it
+                out.append(Text(f"  {vf.paragraph(c)}  {c.description}", P["label"]))
+                line = Text("      ")
+            if c.assessed:
+                line.append(f"{vf.value_text(c, 8)} {CMP.get(c.comparison, c.comparison)} "
+                            f"{c.limit:.{vf.digits_of(c)}f} {c.unit}  margin {vf.margin_text(c)}  ", P["value"])
+                word, style = verdict(c)
+                line.append(word, P[style])
+            else:
+                line.append(f"{vf.NOT_ASSESSABLE} (limit {CMP.get(c.comparison, c.comparison)} "
+                            f"{c.limit:.{vf.digits_of(c)}f} {c.unit})", P["caution"])
+            out.append(line)
+            if c.note:
+                out += [Text(x, P["dim"]) for x in textwrap.wrap(c.note, width, initial_indent="      ",
+                                                                 subsequent_indent="      ")]
+    if result.not_assessed:
+        out.append(Text(""))
+        out.append(Text("Not assessed", P["caution"]))
+        for n in result.not_assessed:
+            out += [Text(x, P["label"]) for x in textwrap.wrap(f"{n.item}: {n.reason}", width,
+                                                                initial_indent="  ", subsequent_indent="    ")]
+    out.append(Text(""))
+    out.append(Text("deckload supports, and never replaces, the approved stability booklet, the master's judgement "
+                    "and flag-State and class rules.", P["dim"]))
+    return out
+
+
+# --------------------------------------------------------------------------- the wind plot
+
+
+def weather_chart(result: Result | None, stale: bool, width: int, height: int) -> GzChart | None:
+    """GZ with the wind levers lw1 and lw2, θ0, θ1 (rolled to windward from θ0), θ2 and areas a, b.
+
+    The curve to windward (negative angles) is the other side's curve, turned: heeling to
+    windward by φ the lever is −GZ(φ) of that side.  None when there is no weather result.
+    """
+    if result is None or result.weather is None:
+        return None
+    w = result.weather
+    lee = result.gz_port_m if result.criteria_side == "port" else result.gz_m
+    wind = result.gz_m if result.criteria_side == "port" else result.gz_port_m
+    heel = [-h for h in reversed(result.gz_heel_deg[1:])] + list(result.gz_heel_deg)
+    gz = [-g for g in reversed(wind[1:])] + list(lee)
+    roll_to = w.theta0_deg - w.theta1_deg
+    right = max(w.theta2_deg, w.theta_c_deg or 0.0) + 10.0
+    x_range = (min(roll_to, 0.0) - 3.0, min(result.gz_end_deg, right))
+    marks = (Mark(w.theta0_deg, "θ0", "gz.level"), Mark(roll_to, "θ1", "gz.level"), Mark(w.theta2_deg, "θ2", "gz.flood"))
+    levels = (Level(w.lw1_m, "lw1"), Level(w.lw2_m, "lw2"))
+    areas = (Area(roll_to, w.theta2_deg, w.lw2_m, "a", "below", "gz.area"),
+             Area(roll_to, w.theta2_deg, w.lw2_m, "b", "above", "gz.area.b"))
+    return GzChart(tuple(heel), tuple(gz), marks, width, height, stale, levels, areas, x_range)
+
+
+def weather_caption(result: Result | None, width: int = 60) -> Text:
+    """The wind plot's title with areas a and b and the angles, shortened to ``width``."""
+    t = Text(" Wind and roll" if width >= 50 else " Wind", P["title"])
+    if result is None or result.weather is None:
+        return t
+    w = result.weather
+    t.append(f"  a {w.area_a_mrad:.4f} b {w.area_b_mrad:.4f} m·rad", P["dim"])
+    angles = f"  θ0 {w.theta0_deg:.1f}° θ1 {w.theta1_deg:.1f}° θ2 {w.theta2_deg:.1f}°"
+    if t.cell_len + len(angles) <= width:
+        t.append(angles, P["dim"])
+    return t
+
+
+def weather_missing(result: Result | None, width: int = 60) -> list[Text]:
+    """What the wind plot shows when there is no weather result: why, from the not-assessed list."""
+    out = [Text(" Wind and roll", P["title"])]
+    if result is None:
+        return out + [Text(" no result: see the warning above", P["danger"])]
+    wrap = lambda text: textwrap.wrap(text, max(10, width - 2), initial_indent=" ", subsequent_indent="   ")  # noqa: E731
+    assessed = [c for c in result.criteria if "2.3" in c.set_id or "weather" in c.set_id.lower()]
+    if assessed:  # assessed, but there is no curve to draw (GZ never reaches a wind lever): say what was found
+        out += [Text(x, P["caution"]) for x in wrap("No plot: the levers have no intercept with GZ to draw.")]
+        for c in assessed:
+            word = verdict(c)[0]
+            out += [Text(x, P["danger"] if word == "FAIL" else P["label"]) for x in wrap(
+                f"{word} {c.description}" + (f": {c.note}" if c.note else ""))]
+        return out
+    why = next((n for n in result.not_assessed if "weather" in n.item.lower() or "2.3" in n.item), None)
+    text = f"{why.item} not assessed: {why.reason}" if why else "the weather criterion was not assessed for this condition"
+    return out + [Text(x, P["caution"]) for x in wrap(text)]

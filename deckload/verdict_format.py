@@ -1,0 +1,226 @@
+"""The verdict in words, for every printed or shown summary (calc, check, report, log, screen).
+
+Nothing is computed here: the criteria, the sets they belong to and what was not
+assessed all come from the :class:`~deckload.core.result.Result`.  These helpers only
+group and word them, so that no view can say "all criteria met" on its own: every
+summary names the sets that were assessed and lists what was not, and why.
+"""
+
+from __future__ import annotations
+
+import math
+import textwrap
+from dataclasses import dataclass
+
+from deckload.core.result import AssessedSet, CriterionResult, Result
+
+NOT_ASSESSABLE = "not assessable"
+"""How a criterion the data cannot decide (``assessed`` False) is shown: never as a pass."""
+
+UNGROUPED = AssessedSet("", "criteria without a set", False)
+"""Stands for a set id the result does not list (kept visible, never dropped)."""
+
+_IS2008 = "IS Code 2008 "
+
+
+@dataclass(frozen=True)
+class SetGroup:
+    set: AssessedSet
+    criteria: tuple[CriterionResult, ...]
+
+    @property
+    def word(self) -> str:
+        """'met', 'NOT MET' or 'met where assessable' for this set."""
+        return outcome_word(self.criteria)
+
+
+def grouped(result: Result) -> list[SetGroup]:
+    """The criteria grouped by the set they belong to, sets in the result's order.
+
+    A criterion whose ``set_id`` names no listed set is kept in a group of its own at the
+    end (titled :data:`UNGROUPED`, or its own id), so that nothing is lost.
+    """
+    groups = [SetGroup(s, tuple(c for c in result.criteria if c.set_id == s.id)) for s in result.criteria_sets]
+    known = {s.id for s in result.criteria_sets}
+    stray: dict[str, list[CriterionResult]] = {}
+    for c in result.criteria:
+        if c.set_id not in known:
+            stray.setdefault(c.set_id, []).append(c)
+    for sid, cs in stray.items():
+        title = sid if sid else UNGROUPED.title
+        groups.append(SetGroup(AssessedSet(sid, title, False), tuple(cs)))
+    return groups
+
+
+def outcome_word(criteria) -> str:
+    """'NOT MET' when any assessed criterion failed; 'met where assessable' when some could not
+    be assessed; 'met' only when every one was assessed and met; 'nothing assessed' when empty."""
+    criteria = tuple(criteria)
+    if not criteria:
+        return "nothing assessed"
+    if any(c.assessed and not c.passed for c in criteria):
+        return "NOT MET"
+    if any(not c.assessed for c in criteria):
+        return "met where assessable"
+    return "met"
+
+
+def set_names(result: Result) -> str:
+    """The assessed sets by id, e.g. 'IS2008-A2.2, IS2008-A2.3' ('no criteria set' when none)."""
+    return ", ".join(s.id or s.title for s in result.criteria_sets) or "no criteria set"
+
+
+def short_set_names(result: Result) -> list[str]:
+    """Set ids for a narrow place: 'IS2008-A2.2', 'IS2008-A2.3' → 'IS2008 A2.2', 'A2.3' (the
+    standard named once, on the first of its sets); other ids as they are."""
+    out, last = [], None
+    for s in result.criteria_sets:
+        sid = s.id or s.title
+        std, sep, rest = sid.partition("-")
+        if sep and std == last:
+            out.append(rest)
+        elif sep and std.startswith("IS"):
+            out.append(f"{std} {rest}")
+        else:
+            out.append(sid)
+        last = std if sep else None
+    return out or ["no criteria set"]
+
+
+def set_title(title: str) -> str:
+    """A set's title without the standard's long name: 'IS Code 2008 Part A 2.2 general criteria'
+    → 'A 2.2 general criteria'."""
+    return title.removeprefix(_IS2008).removeprefix("Part ")
+
+
+def paragraph(c: CriterionResult, short: bool = False) -> str:
+    """The criterion's paragraph: 'IS Code 2008 Part A 2.2.1' → 'A 2.2.1'; other sources as given.
+    ``short`` also leaves out a trailing parenthesis ('A 2.3.1.4 (A.749 …)' → 'A 2.3.1.4')."""
+    src = c.source
+    if src.startswith(_IS2008):
+        src = src[len(_IS2008):]
+        src = src.removeprefix("Part ")
+    return src.split(" (")[0] if short else src
+
+
+def short_item(item: str) -> str:
+    """A not-assessed item without its parenthesis, for narrow places: 'icing allowance (IS … B 6)' →
+    'icing allowance' (the full item and its reason are on the verdict page)."""
+    return item.split(" (")[0]
+
+
+def failed(result: Result) -> list[CriterionResult]:
+    return [c for c in result.criteria if c.assessed and not c.passed]
+
+
+def unassessable(result: Result) -> list[CriterionResult]:
+    return [c for c in result.criteria if not c.assessed]
+
+
+def digits(unit: str, limit: float = 1.0) -> int:
+    """Decimals shown for a value in ``unit``: degrees to 0.1°, lengths and areas to 0.001, and
+    to 0.0001 when the limit itself is under 0.01 (the weather criterion's area a)."""
+    if unit == "deg":
+        return 1
+    return 4 if 0 < abs(limit) < 0.01 else 3
+
+
+def digits_of(c: CriterionResult) -> int:
+    return digits(c.unit, c.limit)
+
+
+def value_text(c: CriterionResult, width: int = 0) -> str:
+    """The measured value, or 'n/a' when the criterion was not assessed."""
+    if not c.assessed or not math.isfinite(c.value):
+        return "n/a".rjust(width)
+    return f"{c.value:.{digits_of(c)}f}".rjust(width)
+
+
+def margin_text(c: CriterionResult, width: int = 0) -> str:
+    if not c.assessed or not math.isfinite(c.value):
+        return "".rjust(width)
+    return f"{c.margin:+.{digits_of(c)}f}".rjust(width)
+
+
+def result_word(c: CriterionResult) -> str:
+    """'pass', 'FAIL' or 'not assessable'."""
+    if not c.assessed:
+        return NOT_ASSESSABLE
+    return "pass" if c.passed else "FAIL"
+
+
+def not_assessed_lines(result: Result, width: int, indent: str = "") -> list[str]:
+    """'Not assessed:' then one line per item with its reason, wrapped to ``width``."""
+    if not result.not_assessed:
+        return []
+    out = [indent + "Not assessed:"]
+    for n in result.not_assessed:
+        out += textwrap.wrap(f"{n.item}: {n.reason}", width, initial_indent=indent + "  - ",
+                             subsequent_indent=indent + "    ")
+    return out
+
+
+def verdict_lines(result: Result, width: int, indent: str = "") -> list[str]:
+    """:meth:`Result.verdict_text` wrapped to ``width`` (the one sentence-set every summary carries)."""
+    return textwrap.wrap(result.verdict_text(), width, initial_indent=indent, subsequent_indent=indent)
+
+
+def fmt_optional(value: float | None, fmt: str, unit: str = "", none: str = "n/a") -> str:
+    """A number with its unit, or 'n/a' when the result has none (or it is not finite)."""
+    if value is None or not math.isfinite(value):
+        return none
+    return f"{format(value, fmt)}{unit}"
+
+
+# --------------------------------------------------------------------------- a stored summary (log entries)
+
+
+def _short_id(sid: str) -> str:
+    std, sep, rest = sid.partition("-")
+    return rest if sep and std.startswith("IS") else sid
+
+
+def stored_word(summary: dict | None) -> str:
+    """'met', 'NOT MET' or 'met where assessable' from a log entry's stored summary ('' without one)."""
+    if not summary:
+        return ""
+    if summary.get("criteria_failed"):
+        return "NOT MET"
+    if summary.get("criteria_not_assessable"):
+        return "met where assessable"
+    return "met" if summary.get("criteria_pass") else "NOT MET"
+
+
+def stored_short(summary: dict | None) -> str:
+    """A log-table cell: the outcome and the sets, e.g. 'met A2.2 A2.3', 'NOT MET A2.2 A2.3'.
+
+    Entries recorded before the log stored the sets say so: 'met (sets not recorded)'."""
+    word = stored_word(summary)
+    if not word:
+        return ""
+    word = {"met where assessable": "met, n/a"}.get(word, word)
+    sets = summary.get("criteria_sets")
+    if sets is None:
+        return f"{word} (sets not recorded)"
+    return " ".join([word, *(_short_id(str(x.get("id", ""))) for x in sets)]) if sets else f"{word} (no set)"
+
+
+def stored_lines(summary: dict | None, width: int = 100, indent: str = "  ") -> list[str]:
+    """The verdict of a log entry as recorded: the sentence, or for older entries what they hold."""
+    if not summary:
+        return []
+    if summary.get("verdict"):
+        return textwrap.wrap("Verdict: " + summary["verdict"], width, initial_indent=indent,
+                             subsequent_indent=indent + "  ")
+    failed = summary.get("criteria_failed") or []
+    head = f"Criteria: NOT MET — {', '.join(failed)}" if failed else "Criteria: met"
+    return [indent + head + " (this entry predates the record of criteria sets and of what was not assessed)"]
+
+
+def grouped_not_assessed(pairs) -> str:
+    """(item, reason) pairs worded with each reason once: 'damage stability, icing: not computed by
+    deckload; IS Code 2008 Part A 2.3 weather criterion: the profile has no windage data'."""
+    by_reason: dict[str, list[str]] = {}
+    for item, reason in pairs:
+        by_reason.setdefault(str(reason), []).append(str(item))
+    return "; ".join(f"{', '.join(items)}: {reason}" for reason, items in by_reason.items())
