@@ -190,7 +190,8 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     deck_edge = _read_deck_edge(root)
     passengers = _read_passengers(root, particulars, criteria)
     marks = _read_draft_marks(root, particulars, frame, rd)
-    hull = _read_hull_geometry(root, particulars, filename)
+    hull, tank_bodies = _read_hull_geometry(root, particulars, filename)
+    pipes = _read_sounding_pipes(root, particulars, frame, rd)
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
     depth = particulars.depth_m if particulars is not None else math.inf
@@ -198,6 +199,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     holds = _read_holds(root, ids, frame, rd)
     areas = _read_deck_areas(root, ids, frame, rd)
     constants = _read_profile_constants(root, frame, rd)
+    _check_sounding_pipes(root, pipes, tanks, tank_bodies)
     # [[booklet_condition]]: the booklet's worked conditions, read and compared by `deckload check`
     # (deckload.booklet_conditions) once the vessel exists; not part of the model.
     root.get("booklet_condition", False)
@@ -225,6 +227,8 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
         assumptions=tuple(rd.assumptions),
         draft_marks=marks,
         hull=hull,
+        tank_bodies=tank_bodies,
+        sounding_pipes=pipes,
     ))
 
 
@@ -745,11 +749,13 @@ would give a 'second method' about another ship."""
 
 def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename: str):
     """``hull_geometry``: the geometry file (path relative to the profile) whose hull the direct
-    calculation integrates.  Its problems are reported as the profile's, naming the file."""
+    calculation integrates and whose tank shapes correct soundings for trim and list.  Its
+    problems are reported as the profile's, naming the file.  Returns (hull body, tank bodies)."""
     name = root.text("hull_geometry", required=False, default=None)
     if name is None:
-        return None
+        return None, {}
     from deckload.core.geometry.builder import hull_body
+    from deckload.core.geometry.hull import compartment_body
     from deckload.geometry_io import load_geometry
 
     path = Path(name)
@@ -757,19 +763,62 @@ def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename
         path = Path(filename).parent / path
     if not path.is_file():
         root.bad("hull_geometry", name, f"no such geometry file ({path})")
-        return None
+        return None, {}
     try:
         geometry = load_geometry(path)
     except ProfileError as e:
         root.bad("hull_geometry", name, "the geometry file has problems: " + "; ".join(str(p) for p in e.problems))
-        return None
+        return None, {}
     if particulars is not None:
         for key, ours, theirs in (("lbp_m", particulars.lbp_m, geometry.vessel.lbp_m),
                                   ("breadth_m", particulars.breadth_m, geometry.vessel.breadth_m)):
             if abs(ours - theirs) > HULL_MATCH_TOLERANCE * ours:
                 root.bad("hull_geometry", name, f"its {key} {num(theirs)} m is not the profile's {num(ours)} m")
-                return None
-    return hull_body(geometry)
+                return None, {}
+    bodies = {t.id: compartment_body(t.shape, geometry.hull) for t in geometry.tanks}
+    return hull_body(geometry), bodies
+
+
+def _read_sounding_pipes(root: Table, particulars: m.Particulars | None, frame: Frame | None,
+                         rd: Reading) -> dict[str, m.SoundingPipe]:
+    """``[sounding_pipes]``: TANK_ID = { x_m, y_m }, where each tank's sounding is read.
+
+    x in the vessel's (or this table's) longitudinal convention, within 20 % of LBP of the
+    perpendiculars; y off the centreline (+ starboard), within half the breadth."""
+    t = root.table("sounding_pipes", required=False)
+    if t is None:
+        return {}
+    f = read_frame(t, frame)
+    out: dict[str, m.SoundingPipe] = {}
+    half_b = particulars.breadth_m / 2.0 if particulars is not None else math.inf
+    for ident in [k for k in t.data if k not in ("longitudinal_datum", "longitudinal_positive",
+                                                   "transverse_positive")]:
+        sub = t.table(ident)
+        if sub is None:
+            continue
+        x = _x(sub, "x_m", f)
+        y = sub.num("y_m", between(-half_b, half_b, "m", "within the breadth"))
+        sub.finish()
+        if x is not None and particulars is not None and not -0.2 * particulars.lbp_m <= x <= 1.2 * particulars.lbp_m:
+            sub.bad("x_m", sub.data["x_m"], f"is {num(x)} m from the AP: outside the vessel")
+            continue
+        if x is not None and y is not None:
+            out[ident] = m.SoundingPipe(x, y)
+    t.finish()
+    _note_frame(rd, t.name, f, "x_m", "", False)
+    return out
+
+
+def _check_sounding_pipes(root: Table, pipes: dict[str, m.SoundingPipe], tanks: list[m.Tank],
+                          bodies: dict[str, Any]) -> None:
+    """Every sounding pipe names a tank of the profile whose shape the hull geometry holds."""
+    known = {tk.id for tk in tanks}
+    for ident in pipes:
+        if ident not in known:
+            root.bad("sounding_pipes", ident, "no tank with this id in the profile")
+        elif ident not in bodies:
+            root.bad("sounding_pipes", ident, "the hull geometry (hull_geometry) has no shape for this tank: "
+                     "a trimmed sounding cannot be corrected without it")
 
 
 def _read_draft_marks(root: Table, particulars: m.Particulars | None, frame: Frame | None,
@@ -1236,6 +1285,10 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
         head["load_line"] = c.text("load_line", required=False, default=default_mark, choices=marks or None)
         head["fs_rule"] = c.text("fs_rule", required=False, default=None, choices=("is2008", "actual"))
         head["gz_correction"] = c.text("gz_correction", required=False, default=None, choices=("constant", "transfer"))
+        lbp = vessel.particulars.lbp_m
+        head["sounding_trim_m"] = c.num("sounding_trim_m", between(-0.2 * lbp, 0.2 * lbp, "m", "a fifth of LBP either way"),
+                                        required=False, default=0.0)
+        head["sounding_list_deg"] = c.num("sounding_list_deg", between(-45.0, 45.0, "°"), required=False, default=0.0)
         c.finish()
 
     fills = _read_fills(root, vessel)
@@ -1396,6 +1449,10 @@ def condition_dict(c: m.Condition) -> dict:
         head["fs_rule"] = c.fs_rule
     if c.gz_correction is not None:
         head["gz_correction"] = c.gz_correction
+    if c.sounding_trim_m:
+        head["sounding_trim_m"] = float(c.sounding_trim_m)
+    if c.sounding_list_deg:
+        head["sounding_list_deg"] = float(c.sounding_list_deg)
     doc: dict[str, Any] = {"format": CONDITION_FORMAT, "condition": head}
     if c.tanks:
         doc["tanks"] = {}
