@@ -209,12 +209,27 @@ def preview_lines(before: Result | None, after: Result | None, problem: str | No
         line.append(f" {unit}", P["unit"])
         out.append(line)
 
+    def sided(label: str, get: Callable[[Result], float], unit: str, digits: int, plus: str, minus: str) -> None:
+        """Magnitudes with their side (P/S, A/F), the change as the distance moved towards a side."""
+        def cell(x: float | None, w: int) -> str:
+            if x is None:
+                return f"{'—':>{w}}"
+            side = "" if round(abs(x), digits) == 0 else (plus if x > 0 else minus)
+            return f"{abs(x):.{digits}f} {side or ' '}".rjust(w)
+        b = get(before) if before is not None else None
+        a = get(after) if after is not None else None
+        line = Text(f"{label:<14}", P["label"])
+        line.append(cell(b, 10) + cell(a, 12) + cell(a - b if a is not None and b is not None else None, 10),
+                    P["value"])
+        line.append(f" {unit}", P["unit"])
+        out.append(line)
+
     row("GM fluid", lambda r: r.gm_fluid_m, "m")
-    row("Trim (+ stern)", lambda r: r.trim_m, "m")
-    row("List (+ stbd)", lambda r: r.list_deg, "°", ".2f")
+    sided("Trim", lambda r: r.trim_m, "m", 3, "A", "F")
+    sided("List", lambda r: r.list_deg, "°", 1, "S", "P")
     row("Draft aft", lambda r: r.draft_aft_m, "m")
-    row("Draft fwd", lambda r: r.draft_fwd_m, "m")
     row("Draft mid", lambda r: r.draft_mean_m, "m")
+    row("Draft fwd", lambda r: r.draft_fwd_m, "m")
     if problem:
         out.append(Text(f"✖ after: {problem}", P["danger"]))
     ref = before or after

@@ -84,6 +84,15 @@ def select_entries(
     return out
 
 
+def _sided(x, digits: int, unit: str, plus: str, minus: str) -> str:
+    """A magnitude with its side ('0.2° P', '0.313 m by the stern'): signs only in JSON and CSV."""
+    if not isinstance(x, (int, float)) or isinstance(x, bool):
+        return "—"
+    if round(abs(x), digits) == 0:
+        return f"{0:.{digits}f}{unit}"
+    return f"{abs(x):.{digits}f}{unit} {plus if x > 0 else minus}"
+
+
 def _num(x, digits: int = 3, unit: str = "") -> str:
     if isinstance(x, (int, float)) and not isinstance(x, bool):
         return f"{x:.{digits}f}{unit}"
@@ -110,10 +119,10 @@ def entry_details(e: LogEntry) -> Text:
         rows = [
             ("Displacement", _num(s.get("displacement_t"), 1, " t")),
             ("Deadweight", _num(s.get("deadweight_t"), 1, " t")),
-            ("Draft fwd / mean / aft",
-             " / ".join(_num(s.get(k)) for k in ("draft_fwd_m", "draft_mean_m", "draft_aft_m")) + " m"),
-            ("Trim (+ by the stern)", _num(s.get("trim_m"), 3, " m")),
-            ("List (+ starboard)", _num(s.get("list_deg"), 2, "°")),
+            ("Draft aft / mid / fwd",
+             " / ".join(_num(s.get(k)) for k in ("draft_aft_m", "draft_mean_m", "draft_fwd_m")) + " m"),
+            ("Trim", _sided(s.get("trim_m"), 3, " m", "by the stern", "by the head")),
+            ("List", _sided(s.get("list_deg"), 1, "°", "S", "P")),
             ("KG fluid", _num(s.get("kg_fluid_m"), 3, " m")),
             ("FSC", _num(s.get("fsc_m"), 3, " m")),
             ("GM fluid", _num(s.get("gm_fluid_m"), 3, " m")),
