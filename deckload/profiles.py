@@ -192,6 +192,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     marks = _read_draft_marks(root, particulars, frame, rd)
     hull, tank_bodies = _read_hull_geometry(root, particulars, filename)
     pipes = _read_sounding_pipes(root, particulars, frame, rd)
+    usual = _read_usual_fill(root)
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
     depth = particulars.depth_m if particulars is not None else math.inf
@@ -226,10 +227,25 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
         conversions=tuple(rd.conversions),
         assumptions=tuple(rd.assumptions),
         draft_marks=marks,
+        usual_fill_pct=usual,
         hull=hull,
         tank_bodies=tank_bodies,
         sounding_pipes=pipes,
     ))
+
+
+def _read_usual_fill(root: Table) -> tuple[tuple[str, float], ...]:
+    """``[usual_fill]``: per liquid kind, the fill in % that key f takes a tank to (1–100)."""
+    t = root.table("usual_fill", required=False)
+    if t is None:
+        return ()
+    out = []
+    for kind in m.LIQUID_KINDS:
+        v = t.num(kind, between(1.0, 100.0, "%"), required=False)
+        if v is not None:
+            out.append((kind, float(v)))
+    t.finish()
+    return tuple(out)
 
 
 def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:

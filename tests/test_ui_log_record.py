@@ -36,11 +36,9 @@ def entries(app):
 
 async def to_tank(pilot, app, tank_id: str) -> None:
     board = app.screen.query_one(LoadBoard)
-    for _ in range(80):
-        if board.cursor_key == ("tank", tank_id):
-            return
-        await pilot.press("down")
-    raise AssertionError(f"{tank_id} not reached")
+    board.select(("tank", tank_id))
+    await pilot.pause()
+    assert board.cursor_key == ("tank", tank_id)
 
 
 def test_run_text_names_the_values_reached():
@@ -160,3 +158,34 @@ def test_session_run_is_logged_when_another_change_comes(demo, tmp_path):
     assert len(texts) == 2 and texts[0].startswith("WB1P ") and texts[0].endswith("(3 changes)")
     assert texts[1] == "ρ 1.010"
     j.logbook.close()
+
+
+async def test_f_fills_to_the_usual_maximum_then_to_100(app):
+    """Fuel oil to 95 % (the demo profile gives no [usual_fill]: model.USUAL_MAX_PCT, common
+    practice), a second f to 100 %; ballast straight to 100 %."""
+    from deckload.core.model import TankFill
+
+    async with app.run_test(size=(120, 40)) as pilot:
+        c = app.session.condition.with_tank(TankFill("FO1P", "percent", 40.0))
+        app.loading_screen.commit(c, "setup")
+        await to_tank(pilot, app, "FO1P")
+        await pilot.press("f")
+        await pilot.pause()
+        assert app.session.condition.tank_fill("FO1P") == TankFill("FO1P", "percent", 95.0)
+        await pilot.press("f")
+        await pilot.pause()
+        assert app.session.condition.tank_fill("FO1P") == TankFill("FO1P", "percent", 100.0)
+        await to_tank(pilot, app, "WB1P")
+        await pilot.press("f")
+        await pilot.pause()
+        assert app.session.condition.tank_fill("WB1P") == TankFill("WB1P", "percent", 100.0)
+
+
+def test_usual_fill_from_the_profile_and_its_bounds():
+    from deckload.profiles import ProfileError, parse_profile
+
+    text = paths.DEMO_PROFILE.read_text(encoding="utf-8")
+    v = parse_profile(text + "\n[usual_fill]\nfuel_oil = 90.0\n", str(paths.DEMO_PROFILE))
+    assert v.usual_max_pct("fuel_oil") == 90.0 and v.usual_max_pct("ballast") == 100.0
+    with pytest.raises(ProfileError, match="usual_fill.fuel_oil"):
+        parse_profile(text + "\n[usual_fill]\nfuel_oil = 120.0\n", str(paths.DEMO_PROFILE))

@@ -38,6 +38,19 @@ LIQUID_KINDS: tuple[str, ...] = (
 )
 """Liquid kinds a tank may hold.  The first four are consumables."""
 
+USUAL_MAX_PCT: dict[str, float] = {
+    "fuel_oil": 95.0,
+    "diesel": 95.0,
+    "lube_oil": 95.0,
+    "fresh_water": 100.0,
+    "ballast": 100.0,
+    "cargo_liquid": 98.0,
+    "other": 100.0,
+}
+"""The fill a tank of each kind is usually taken to (key f on the loading screen) when the profile
+gives none in ``[usual_fill]``: oils to 95 % for expansion room, cargo liquids to 98 % (common
+practice); water and ballast pressed full."""
+
 CONSUMABLE_KINDS: frozenset[str] = frozenset({"fuel_oil", "diesel", "lube_oil", "fresh_water"})
 """Consumables: the IS Code 2008 Part B 3.1.3 'variable filling level' liquids."""
 
@@ -459,6 +472,8 @@ class Vessel:
     assumptions: tuple[str, ...] = ()
     """What was assumed where the booklet gives less than the model needs, one line each."""
     draft_marks: DraftMarks | None = None
+    usual_fill_pct: tuple[tuple[str, float], ...] = ()
+    """``[usual_fill]``: per liquid kind, the fill (%) key f takes a tank to (else :data:`USUAL_MAX_PCT`)."""
     hull: "Body | None" = None
     """The hull as sections (from the geometry file named by ``hull_geometry``), for the direct
     calculation beside the tables; None when the profile names no geometry."""
@@ -469,6 +484,10 @@ class Vessel:
     tank_index: dict[str, int] = field(init=False, repr=False, compare=False)
     hold_index: dict[str, int] = field(init=False, repr=False, compare=False)
     area_index: dict[str, int] = field(init=False, repr=False, compare=False)
+
+    def usual_max_pct(self, kind: str) -> float:
+        """The fill (%) a tank of ``kind`` is usually taken to: the profile's, else the default."""
+        return dict(self.usual_fill_pct).get(kind, USUAL_MAX_PCT.get(kind, 100.0))
 
     def __post_init__(self) -> None:
         object.__setattr__(self, "tank_index", {t.id: i for i, t in enumerate(self.tanks)})

@@ -56,7 +56,8 @@ COMMANDS: tuple[Command, ...] = (
             "(a hold or item by 1 t).", display="+ -", title="Raise 1 %"),
     Command("nudge(-1)", "minus", "−1%", "Lower the tank under the cursor by 1 % of capacity (a hold or item by 1 t).",
             display="-", footer=False, title="Lower 1 %"),
-    Command("fill", "f", "Full", "Fill the tank under the cursor to 100 %.", words="fill, full, top up"),
+    Command("fill", "f", "Full", "Fill the tank under the cursor to its kind's usual maximum (the profile's [usual_fill]: oils 95 %, "
+            "water and ballast 100 % unless it says otherwise); f again fills it to 100 %.", words="fill, full, top up"),
     Command("empty", "e", "Empty", "Empty the tank or hold under the cursor; remove the deck load or constant."),
     Command("transfer", "t", "Transfer", "Pump between two tanks, with a before/after preview; commit is one undoable step.", words="ballast, pump, shift, transfer"),
     Command("ballast_plan", "i", "Planner", "Ballast planner: the one transfer between the tanks you allow that "

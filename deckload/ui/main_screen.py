@@ -293,9 +293,15 @@ class LoadingScreen(Screen[None]):
         if what != "tank":
             self.say("Full applies to tanks: put the cursor on a tank.", ok=False)
             return
-        tank = self.session.vessel.tank(ident)
-        self._try(lambda: entry.set_tank(self.session.condition, tank, "percent", 100.0),
-                  f"{tank.id} filled to 100 %", self._kind(tank.id), {"tank": tank.id, "fill_pct": 100.0})
+        s = self.session
+        tank = s.vessel.tank(ident)
+        usual = s.vessel.usual_max_pct(tank.kind)
+        now = 100.0 * entry.fill_volume_m3(tank, s.condition.tank_fill(ident)) / tank.capacity_m3
+        # The first f takes the tank to its kind's usual maximum; a second f (already there) to 100 %.
+        pct = 100.0 if now >= usual - 0.05 else usual
+        self._try(lambda: entry.set_tank(s.condition, tank, "percent", pct),
+                  f"{tank.id} filled to {pct:g} %" + (" (usual maximum; f again for 100 %)" if pct < 100.0 else ""),
+                  self._kind(tank.id), {"tank": tank.id, "fill_pct": pct})
 
     def action_empty(self) -> None:
         what, ident = self._key
