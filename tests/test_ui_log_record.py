@@ -189,3 +189,14 @@ def test_usual_fill_from_the_profile_and_its_bounds():
     assert v.usual_max_pct("fuel_oil") == 90.0 and v.usual_max_pct("ballast") == 100.0
     with pytest.raises(ProfileError, match="usual_fill.fuel_oil"):
         parse_profile(text + "\n[usual_fill]\nfuel_oil = 120.0\n", str(paths.DEMO_PROFILE))
+
+
+def test_receiving_tank_is_one_that_can_take_it(demo):
+    """The partner when it has room; when it is full (WB2S in the departure condition), the ballast
+    tank with the most room (WB1P/WB1S, 38.2 m³ empty, the largest of the demo's ballast tanks)."""
+    from deckload.core.model import TankFill
+    from deckload.ui.entry import receiving_tank
+
+    v, c = demo
+    assert receiving_tank(v, c, "WB2P") in {"WB1P", "WB1S"}
+    assert receiving_tank(v, c.with_tank(TankFill("WB2S", "percent", 50.0)), "WB2P") == "WB2S"

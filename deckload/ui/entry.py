@@ -388,3 +388,17 @@ def planner_room(vessel: Vessel, condition: Condition, from_id: str, to_id: str)
     have = fill_volume_m3(src, sf)
     free = dst.capacity_m3 - fill_volume_m3(dst, df)
     return max(0.0, min(have, free) * tank_density(src, sf) * (1 - 1e-9))
+
+
+def receiving_tank(vessel: Vessel, condition: Condition, from_id: str) -> str:
+    """The transfer form's default to-tank: the partner if it has room, else the tank of the same
+    liquid with the most room; '' when no tank of that liquid can take any."""
+    src = vessel.tank(from_id)
+
+    def room(t) -> float:
+        return t.capacity_m3 - fill_volume_m3(t, condition.tank_fill(t.id))
+
+    if src.pair and src.pair in vessel.tank_index and room(vessel.tank(src.pair)) > 1e-6:
+        return src.pair
+    others = [t for t in vessel.tanks if t.kind == src.kind and t.id != from_id and room(t) > 1e-6]
+    return max(others, key=room).id if others else ""

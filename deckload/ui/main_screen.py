@@ -330,7 +330,7 @@ class LoadingScreen(Screen[None]):
         s = self.session
         what, ident = self._key
         src = ident if what == "tank" else ""
-        dst = (s.vessel.tank(src).pair or "") if src else ""
+        dst = entry.receiving_tank(s.vessel, s.condition, src) if src else ""
         form = TransferForm(s.vessel, s.condition, None if s.stale else s.result, s.preview, src, dst)
         self.app.push_screen(form, lambda plan: plan and self.commit(
             plan.condition, plan.label, "transfer",
