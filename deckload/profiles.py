@@ -827,7 +827,11 @@ def _read_sounding_pipes(root: Table, particulars: m.Particulars | None, frame: 
 
 def _check_sounding_pipes(root: Table, pipes: dict[str, m.SoundingPipe], tanks: list[m.Tank],
                           bodies: dict[str, Any]) -> None:
-    """Every sounding pipe names a tank of the profile whose shape the hull geometry holds."""
+    """Every sounding pipe names a tank of the profile whose shape the hull geometry holds.
+
+    With no tanks read at all, the profile is refused for that (one problem), not once per pipe."""
+    if not tanks:
+        return
     known = {tk.id for tk in tanks}
     for ident in pipes:
         if ident not in known:
