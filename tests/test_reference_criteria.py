@@ -176,6 +176,20 @@ def test_minimum_gm_curve(kg, ok):
     assert not any(x.id == "limit-curve-max-kg" for x in r.criteria)
 
 
+def test_a_value_exactly_at_a_limit_curve_passes():
+    """A limit is met by a value equal to it: KG fluid not above the maximum-KG curve, GM fluid not below
+    the minimum-GM curve (IS 2008 A 2.1.7; the curve values are limits, common practice).  The barge at
+    T = 2 m, KG 3 (Δ 820 t, on the curves' first row, so nothing is interpolated): KG 3.0 against a
+    limit of 3.0, GM = KM − KG = (1 + 100/24) − 3 against exactly that limit."""
+    gm = (1.0 + 100.0 / 24.0) - 3.0
+    for kind, value, cid in (("max_kg_m", 3.0, "limit-curve-max-kg"), ("min_gm_m", gm, "limit-curve-min-gm")):
+        curve = LimitCurve(frozen_array([820.0, 1000.0]), frozen_array([value, value]), kind)
+        v, c = barge_at(2.0, 3.0, limit_curve=curve)
+        crit = by_id(evaluate(v, c), cid)
+        assert crit.value == crit.limit == value
+        assert crit.passed is True
+
+
 def test_failed_criterion_warns():
     """A failed criterion is named in a 'danger' warning (barge KG 4.5 fails the 30–40° area,
     0.028741 < 0.030 m·rad, checks.md §1.3)."""
