@@ -137,6 +137,9 @@ def test_tank_contents_however_stated(quantity, value, density, volume):
     assert t.volume_m3 == pytest.approx(volume, abs=EXACT)
     assert t.fill_pct == pytest.approx(25.0, abs=EXACT)
     assert t.mass_t == pytest.approx(volume * (density or 1.025), abs=EXACT)
+    # the calibration row at that volume: sounding s = v/(l·b) = 0.5 m, LCG 20, VCG s/2, TCG 0, i = l·b³/12
+    assert (t.sounding_m, t.lcg_m, t.vcg_m, t.tcg_m) == pytest.approx((0.5, 20.0, 0.25, 0.0), abs=EXACT)
+    assert t.fsi_m4 == pytest.approx(6.0 * 4.0**3 / 12.0, abs=EXACT)
 
 
 def test_tank_fill_above_100_percent_is_refused():
