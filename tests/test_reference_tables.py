@@ -70,3 +70,6 @@ def test_bracket_and_interp():
     assert str(e.value) == "draft 20.5 m is outside the table range 0–20 m; deckload does not extrapolate"
     with pytest.raises(OutOfRangeError):
         bracket(xs, float("nan"), "q")
+    with pytest.raises(OutOfRangeError) as e:  # no unit given: none printed
+        interp(xs, np.array([1.0, 3.0, 7.0]), 25.0, "ratio")
+    assert str(e.value) == "ratio 25 is outside the table range 0–20; deckload does not extrapolate"
