@@ -201,3 +201,17 @@ def test_failed_criterion_warns():
     assert not r.all_criteria_pass
     assert r.smallest_margin.id in {"IS2008-A2.2.1-area-30-40", "IS2008-A2.2.3-angle-max-gz"}
     assert np.isfinite(r.smallest_margin.margin)
+
+
+def test_a_criterion_within_ten_percent_of_its_limit_is_a_caution():
+    """The watchkeeper is cautioned when a criterion passes by less than 10 % of its limit (deckload's
+    own aid).  Barge T = 2 m, KG 3: GM fluid = 2.16667 m (checks.md §1.1 [A]); with the profile's
+    minimum GM raised to 2.0 m the margin is 0.16667/2.0 = 8.3 % < 10 %."""
+    v, c = barge_at(2.0, 3.0, criteria=CriteriaSettings(min_gm_m=2.0))
+    r = evaluate(v, c)
+    near = [w for w in r.warnings if w.code == "criterion-near"]
+    assert len(near) == 1 and near[0].severity == "caution"
+    assert near[0].message == ("Initial GM0, corrected for free surface within 10 % of its limit: "
+                               "2.167 m against 2.000")
+    v, c = barge_at(2.0, 3.0, criteria=CriteriaSettings(min_gm_m=1.9))  # margin 14 %: no caution
+    assert not any(w.code == "criterion-near" for w in evaluate(v, c).warnings)
