@@ -140,6 +140,8 @@ class TableReading:
     fsm_density_t_m3: float | None = None
     against: str = "displacement_t"
     """A curve tabulated against 'displacement_t' or 'draft_m'."""
+    columns: tuple[str, ...] = ()
+    """The CSV file's column order, to write the table back the same way (empty: our order)."""
 
 
 @dataclass
@@ -152,6 +154,10 @@ class Reading:
 
     def convert(self, where: str, keys: str, how: str) -> None:
         self.conversions.append(f"{where} {keys}: {how}")
+
+
+def _csv_columns(t: Table) -> tuple[str, ...]:
+    return tuple(t.ctx.csv_headers.get(t.raw, ()))
 
 
 def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | None" = None) -> m.Vessel:
@@ -358,7 +364,7 @@ def _read_hydrostatics(root: Table, frame: Frame | None, rd: Reading) -> m.Hydro
     t.finish()
     if not t.same_length("draft_m", cols) or f is None:
         return None
-    rd.tables["hydrostatics"] = TableReading(f, csv=t.data.get("csv"))
+    rd.tables["hydrostatics"] = TableReading(f, csv=t.data.get("csv"), columns=_csv_columns(t))
     _note_frame(rd, "hydrostatics", f, "lcb_m, lcf_m", "", False)
     cols["lcb_m"] = f.x_to_ap(cols["lcb_m"])
     cols["lcf_m"] = f.x_to_ap(cols["lcf_m"])
@@ -700,7 +706,7 @@ def _read_limit_curve(root: Table, hydro, frame: Frame | None, rd: Reading) -> m
     t.finish()
     if not t.same_length(against, {against: disp, kind: values}) or f is None:
         return None
-    rd.tables["limit_curve"] = TableReading(f, csv=t.data.get("csv"), against=against)
+    rd.tables["limit_curve"] = TableReading(f, csv=t.data.get("csv"), against=against, columns=_csv_columns(t))
     return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(values), kind=kind)
 
 
@@ -733,7 +739,7 @@ def _read_downflooding(root: Table, hydro, frame: Frame | None, rd: Reading) -> 
     t.finish()
     if not t.same_length(against, {against: disp, "angle_deg": ang}) or f is None:
         return None
-    rd.tables["downflooding"] = TableReading(f, csv=t.data.get("csv"), against=against)
+    rd.tables["downflooding"] = TableReading(f, csv=t.data.get("csv"), against=against, columns=_csv_columns(t))
     return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(ang), kind="downflooding_deg")
 
 
@@ -811,7 +817,11 @@ def _read_sounding_pipes(root: Table, particulars: m.Particulars | None, frame: 
 
 def _check_sounding_pipes(root: Table, pipes: dict[str, m.SoundingPipe], tanks: list[m.Tank],
                           bodies: dict[str, Any]) -> None:
-    """Every sounding pipe names a tank of the profile whose shape the hull geometry holds."""
+    """Every sounding pipe names a tank of the profile whose shape the hull geometry holds.
+
+    With no tanks read at all, the profile is refused for that (one problem), not once per pipe."""
+    if not tanks:
+        return
     known = {tk.id for tk in tanks}
     for ident in pipes:
         if ident not in known:
@@ -1008,7 +1018,7 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
     if not attach_csv(t, CAL_COLUMNS):
         return None
     f = read_frame(t, tank_frame, sides=True)
-    tr = TableReading(f or Frame(1.0), csv=t.data.get("csv"))
+    tr = TableReading(f or Frame(1.0), csv=t.data.get("csv"), columns=_csv_columns(t))
     levels_given = [k for k in ("sounding_m", "ullage_m") if t.has(k)]
     if len(levels_given) != 1:
         t.bad("sounding_m", MISSING if not levels_given else t.data["sounding_m"],
@@ -1225,7 +1235,7 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
         if cols.get("fill_lcg_m") is not None:
             cols["fill_lcg_m"] = f.x_to_ap(cols["fill_lcg_m"])
         if present:
-            rd.tables[t.name] = TableReading(f, csv=t.data.get("csv"))
+            rd.tables[t.name] = TableReading(f, csv=t.data.get("csv"), columns=_csv_columns(t))
         for k in fill_keys:
             kw[k] = m.frozen_array(cols[k]) if k in cols else None
         out.append(m.Hold(**kw))
