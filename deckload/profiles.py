@@ -190,7 +190,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     deck_edge = _read_deck_edge(root)
     passengers = _read_passengers(root, particulars, criteria)
     marks = _read_draft_marks(root, particulars, frame, rd)
-    hull, tank_bodies = _read_hull_geometry(root, particulars, filename)
+    hull, tank_bodies = _read_hull_geometry(root, particulars, filename, rd)
     pipes = _read_sounding_pipes(root, particulars, frame, rd)
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
@@ -199,7 +199,8 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     holds = _read_holds(root, ids, frame, rd)
     areas = _read_deck_areas(root, ids, frame, rd)
     constants = _read_profile_constants(root, frame, rd)
-    _check_sounding_pipes(root, pipes, tanks, tank_bodies)
+    if hull is not None:
+        _check_sounding_pipes(root, pipes, tanks, tank_bodies)
     # [[booklet_condition]]: the booklet's worked conditions, read and compared by `deckload check`
     # (deckload.booklet_conditions) once the vessel exists; not part of the model.
     root.get("booklet_condition", False)
@@ -747,10 +748,14 @@ HULL_MATCH_TOLERANCE = 0.001
 would give a 'second method' about another ship."""
 
 
-def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename: str):
+def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename: str, rd: Reading):
     """``hull_geometry``: the geometry file (path relative to the profile) whose hull the direct
     calculation integrates and whose tank shapes correct soundings for trim and list.  Its
-    problems are reported as the profile's, naming the file.  Returns (hull body, tank bodies)."""
+    problems are reported as the profile's, naming the file.  Returns (hull body, tank bodies).
+
+    A file that is not there (a profile copied without it) is not an error of the profile,
+    whose tables stand on their own: the vessel then has no hull, the assumption says so, and
+    the direct calculation and trimmed-sounding corrections say so where they are asked for."""
     name = root.text("hull_geometry", required=False, default=None)
     if name is None:
         return None, {}
@@ -762,7 +767,8 @@ def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename
     if not path.is_absolute():
         path = Path(filename).parent / path
     if not path.is_file():
-        root.bad("hull_geometry", name, f"no such geometry file ({path})")
+        rd.assumptions.append(f"hull_geometry {name!r} not found ({path}): no direct calculation from the hull, "
+                              "soundings taken trimmed or listed are not corrected")
         return None, {}
     try:
         geometry = load_geometry(path)
