@@ -1,0 +1,88 @@
+"""Defects found by trying the program as its users and as a hostile tester would (QA trials).
+
+Each test holds the triggering input of one defect; it failed before its fix.  The Demo Trawler
+is invented (LBP 22 m, B 7.2 m, D 3.9 m); its pages are copied to a temporary folder and one
+number is mistyped, as a crew typing a booklet into a spreadsheet might.
+"""
+
+from __future__ import annotations
+
+import re
+import shutil
+from pathlib import Path
+
+import pytest
+
+from deckload import paths
+from deckload.check_command import run_check
+from deckload.cli import main
+
+BROWSABLE = Path(__file__).resolve().parent.parent / "vessel_profiles"
+
+LONGEST_NUMBER = 16
+"""No number in a message needs more characters than this: six significant digits with an
+exponent ("-1.23457e+300") is 13; a table's own values print in four decimals below 1e6."""
+
+
+def _trawler(tmp_path: Path) -> Path:
+    """A copy of the Demo Trawler's profile, its conditions and its CSV pages; the profile path."""
+    for f in BROWSABLE.glob("demo_trawler*.toml"):
+        if "geometry" not in f.name:
+            shutil.copy(f, tmp_path / f.name)
+    shutil.copytree(BROWSABLE / "demo_trawler", tmp_path / "demo_trawler")
+    return tmp_path / "demo_trawler.toml"
+
+
+def _edit(path: Path, old: str, new: str) -> None:
+    text = path.read_text(encoding="utf-8")
+    assert old in text, f"{old!r} not in {path}"
+    path.write_text(text.replace(old, new, 1), encoding="utf-8")
+
+
+def _longest_number(text: str) -> str:
+    return max(re.findall(r"[-+]?\d[\d.,]*(?:e[-+]?\d+)?", text), key=len, default="")
+
+
+def test_a_kn_typed_as_1e300_is_named_in_short_numbers_by_the_audit_and_the_booklet_table(tmp_path, capsys):
+    """kn.csv line 4 (Δ 140 t), 15°: 1.011 typed as 1e300.  The audit refuses it (ERROR); before
+    the fix the audit printed the value, and `check` the booklet conditions' rows, as fixed-point
+    numbers of some 300 digits each."""
+    profile = _trawler(tmp_path)
+    _edit(profile.parent / "demo_trawler" / "kn.csv", "140.0,0.000,0.351,0.690,1.011,",
+          "140.0,0.000,0.351,0.690,1e300,")
+    assert run_check(profile) == 1
+    out = capsys.readouterr().out
+    assert "kn.csv:4: ERROR cross_curves.kn_m = 1e+300 m" in out
+    assert len(_longest_number(out)) <= LONGEST_NUMBER, _longest_number(out)[:80]
+
+
+def test_a_capacity_typed_as_1e300_is_refused_with_a_short_percentage(tmp_path, capsys):
+    """demo_trawler.toml, tank FWP: capacity_m3 = 3.199 typed as 1e300.  Before the fix the
+    difference from the calibration's last volume was printed with 300 digits of percent."""
+    profile = _trawler(tmp_path)
+    _edit(profile, "capacity_m3 = 3.199", "capacity_m3 = 1e300")
+    assert run_check(profile) == 1
+    out = capsys.readouterr().out
+    assert "demo_trawler.toml:85: tank[FWP].capacity_m3 = 1e+300: differs from the last calibration volume" in out
+    assert len(_longest_number(out)) <= LONGEST_NUMBER, _longest_number(out)[:80]
+
+
+def test_a_free_surface_moment_typed_as_1e30_gives_short_numbers_in_every_message(tmp_path, capsys):
+    """demo_trawler.toml, tank FWP: max_fsm_tm = 1.2 typed as 1e30.  The audit refuses it; the
+    booklet conditions cannot be computed (KG fluid above KML).  Before the fix that reason
+    printed KG fluid as a 28-digit fixed-point number."""
+    profile = _trawler(tmp_path)
+    _edit(profile, "max_fsm_tm = 1.2", "max_fsm_tm = 1e30")
+    assert run_check(profile) == 1
+    out = capsys.readouterr().out
+    assert "is not below KML" in out
+    assert len(_longest_number(out)) <= LONGEST_NUMBER, _longest_number(out)[:80]
+    assert main(["calc", str(profile), str(profile.parent / "demo_trawler.departure.condition.toml")]) == 1
+    err = capsys.readouterr().err
+    assert "Traceback" not in err and len(_longest_number(err)) <= LONGEST_NUMBER
+
+
+@pytest.mark.parametrize("text", ["1e+300", "1.23457e+06"])
+def test_the_longest_number_helper_sees_an_exponent(text):
+    """The helper of the tests above must not pass a long number by splitting it."""
+    assert _longest_number(f"x = {text} m") == text
