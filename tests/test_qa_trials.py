@@ -86,3 +86,18 @@ def test_a_free_surface_moment_typed_as_1e30_gives_short_numbers_in_every_messag
 def test_the_longest_number_helper_sees_an_exponent(text):
     """The helper of the tests above must not pass a long number by splitting it."""
     assert _longest_number(f"x = {text} m") == text
+
+
+def test_an_impossible_lightship_is_the_one_problem_named(tmp_path, capsys):
+    """demo_trawler.toml [lightship] mass_t = 168.0 typed as 1680.0 (a slipped decimal point).
+    Before the fix four more problems followed from it: each constant and the fish hold's
+    max_mass_t "must be between 0 and 0 t", and a key the file does not hold,
+    free_surface.min_operating_displacement_t (defaulted to the lightship), without a line."""
+    profile = _trawler(tmp_path)
+    _edit(profile, "mass_t = 168.0", "mass_t = 1680.0")
+    assert run_check(profile) == 1
+    out = capsys.readouterr().out
+    problems = [ln for ln in out.splitlines() if ln.startswith(str(profile))]
+    assert len(problems) == 1, problems
+    assert problems[0].startswith(f"{profile}:29: lightship.mass_t = 1680.0: above the physical limit")
+    assert "between 0 and 0 t" not in out and "min_operating_displacement_t" not in out
