@@ -101,3 +101,46 @@ def test_an_impossible_lightship_is_the_one_problem_named(tmp_path, capsys):
     assert len(problems) == 1, problems
     assert problems[0].startswith(f"{profile}:29: lightship.mass_t = 1680.0: above the physical limit")
     assert "between 0 and 0 t" not in out and "min_operating_displacement_t" not in out
+
+
+def _area_b_against_a(b: float, a: float):
+    from deckload.core.result import CriterionResult
+
+    return CriterionResult("IS2008-A2.3-area-b-a", "Weather: area b against area a", b, a, "m·rad", ">=",
+                           b >= a, "IS Code 2008 Part A 2.3.1.4", set_id="IS2008-A2.3")
+
+
+def test_a_failed_criterion_never_reads_as_equal_with_a_zero_margin():
+    """Seen on the trawler's loading screen (departure, FO1P emptied by ullage 2.87u: list 8°
+    to starboard): "Wind b ≥ a  0.064 ≥ 0.064  -0.000 FAIL".  Area b 0.06382 against area a
+    0.06398 m·rad: three decimals make them equal.  The figures now show as many decimals as
+    the margin needs to be seen (up to five)."""
+    from deckload import verdict_format as vf
+
+    c = _area_b_against_a(0.06382, 0.06398)
+    assert not c.passed
+    assert (vf.value_text(c), vf.margin_text(c)) == ("0.0638", "-0.0002")
+    assert f"{c.limit:.{vf.digits_of(c)}f}" == "0.0640"
+    # a clear margin keeps the usual three decimals (the columns of every view)
+    assert vf.margin_text(_area_b_against_a(0.0712, 0.0640)) == "+0.007"
+    # a value on the limit itself passes with a zero margin, in the usual decimals
+    assert vf.margin_text(_area_b_against_a(0.0640, 0.0640)) == "+0.000"
+
+
+def test_the_criteria_line_of_calc_shows_the_failing_margin():
+    """The same on `deckload calc`'s criteria lines (commands.format_summary), which take their
+    decimals from verdict_format: the demo departure with its weather criterion replaced by
+    the case above."""
+    import dataclasses
+
+    from deckload.commands import format_summary
+    from deckload.core.stability import evaluate
+    from deckload.profiles import load_condition, load_profile
+
+    vessel = load_profile(paths.DEMO_PROFILE)
+    r = evaluate(vessel, load_condition(paths.DEMO_CONDITIONS["departure"], vessel))
+    crit = tuple(_area_b_against_a(0.06382, 0.06398) if c.id == "IS2008-A2.3-area-b-a" else c for c in r.criteria)
+    assert crit != r.criteria  # the demo has this criterion to replace
+    line = next(ln for ln in format_summary(dataclasses.replace(r, criteria=crit)).splitlines()
+                if "area b against area a" in ln and "margin" in ln)
+    assert "0.0638 >=  0.0640" in line and "margin -0.0002" in line, line
