@@ -144,3 +144,29 @@ def test_the_criteria_line_of_calc_shows_the_failing_margin():
     line = next(ln for ln in format_summary(dataclasses.replace(r, criteria=crit)).splitlines()
                 if "area b against area a" in ln and "margin" in ln)
     assert "0.0638 >=  0.0640" in line and "margin -0.0002" in line, line
+
+
+@pytest.mark.parametrize("name", ["departure", "arrival"])
+def test_the_report_criteria_table_cuts_no_paragraph(name, tmp_path):
+    """`deckload report trawler arrival --txt` (and --html): the Paragraph column of the
+    criteria table was nine characters wide beside the trawler's long descriptions, so each
+    "B 2.1 (from memory: Part A 2.2.1–2.2.3 applied, GM0 0.35 m)" broke over seven lines and
+    lost text ("2.2.1–2.…").  The column now holds the paragraph ("B 2.1†") and the remark
+    follows the table once, in full."""
+    from deckload import verdict_format as vf
+    from deckload.core.stability import evaluate
+    from deckload.profiles import load_condition, load_profile
+    from deckload.report import render_report_text
+
+    vessel = load_profile(paths.TRAWLER_PROFILE)
+    condition = load_condition(paths.TRAWLER_CONDITIONS[name], vessel)
+    r = evaluate(vessel, condition)
+    txt = render_report_text(r, vessel, condition, stamp="2026-12-02 19:00 UTC", source="c.toml")
+    table = txt[txt.index("Intact stability criteria by set"):txt.index("Severe wind and rolling")]
+    assert "…" not in table
+    rows = [ln for ln in table.splitlines() if ln.rstrip().endswith(("†", "A 2.3.1.2"))]
+    assert len(rows) == len(r.criteria)
+    flat = " ".join(txt.split())
+    for c in r.criteria:
+        assert vf.paragraph(c) in flat  # each remark in full, somewhere on the page
+    assert "† in full: B 2.1 (from memory: Part A 2.2.1–2.2.3 applied, GM0 0.35 m)" in flat
