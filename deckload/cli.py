@@ -59,6 +59,7 @@ def _parser() -> argparse.ArgumentParser:
     fmt.add_argument("--html", action="store_true")
     fmt.add_argument("--txt", action="store_true")
     r.add_argument("-o", "--output", type=Path)
+    r.add_argument("--direct", action="store_true", help="add the direct calculation from the hull geometry")
 
     lg = sub.add_parser("log", help="the voyage loading log")
     lg.add_argument("--dir", type=Path, help="log folder (default: ./logs in a checkout, else per-user)")
@@ -178,7 +179,7 @@ def _main(argv: list[str] | None) -> int:
         if cmd == "report":
             from deckload.report import run_report
 
-            return run_report(args.profile, args.condition, html=not args.txt, output=args.output)
+            return run_report(args.profile, args.condition, html=not args.txt, output=args.output, direct=args.direct)
         if cmd == "log":
             from deckload.logbook_command import run_log
 

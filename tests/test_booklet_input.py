@@ -726,3 +726,29 @@ def test_a_condition_stated_by_ullage_is_saved_and_read_back_unchanged(tmp_path)
     assert "ullage_m = 0.7" in dump_condition(c)
     save_condition(tmp_path / "u.condition.toml", c)
     assert load_condition(tmp_path / "u.condition.toml", v) == c
+
+
+def test_the_demo_trawlers_csv_tables_come_back_as_typed(tmp_path, capsys):
+    """Every CSV table of the demo trawler (typed from its invented booklet: midships datum, P/S marks,
+    ullage, t·m, extreme drafts, against draft), read and written back by `deckload csv`: the same
+    header in the same order, and the same numbers, row by row."""
+    from deckload.csv_command import profile_tables
+    from deckload.profiles import read_profile
+
+    profile = HERE.parent / "vessel_profiles" / "demo_trawler.toml"
+    _, rd = read_profile(profile)
+    assert main(["csv", str(profile), str(tmp_path)]) == 0
+    capsys.readouterr()
+    vessel, _ = read_profile(profile)
+    compared = 0
+    for name, _what, key, _h, _r in profile_tables(vessel, rd):
+        tr = rd.tables[key]
+        if not tr.csv:
+            continue
+        a, b = _cells(tmp_path / name), _cells(profile.parent / tr.csv)
+        assert [h.strip() for h in a[0]] == [h.strip() for h in b[0]], name
+        assert len(a) == len(b), name
+        for ra, rb in zip(a[1:], b[1:]):
+            assert all(_same(x.strip(), y.strip()) for x, y in zip(ra, rb)), (name, ra, rb)
+        compared += 1
+    assert compared >= 10  # hydrostatics, KN, downflooding, the hold's fill table and the tanks

@@ -69,11 +69,14 @@ def test_midvoyage_ballast_transfer_keeps_the_ballast_mass(demo):
     vessel, conditions = demo
     dep = {t.id: t.mass_t for t in evaluate(vessel, conditions["departure"]).tanks if t.kind == "ballast"}
     mid = {t.id: t.mass_t for t in evaluate(vessel, conditions["midvoyage"]).tanks if t.kind == "ballast"}
-    assert sum(mid.values()) == pytest.approx(sum(dep.values()), rel=0.01)
+    # The DB3 fills are typed to 0.1 % (57.9 %), so the pair holds the fore peak's mass to within one
+    # unit of that digit: 0.1 % of the pair's full mass, 2·capacity·ρ/1000 ≈ 0.040 t (the difference is 0.022 t).
+    step_t = sum(vessel.tank(k).capacity_m3 * vessel.tank(k).density_t_m3 for k in ("DB3P", "DB3S")) / 1000.0
+    assert abs(sum(mid.values()) - sum(dep.values())) <= step_t
     assert mid["FPT"] == 0.0 and dep["FPT"] > 0.0
 
 
-def test_calc_json_has_the_documented_keys(capsys):
+def test_calc_json_has_the_documented_keys(capsys, demo):
     code = main(["calc", str(DEMO_PROFILE), str(DEMO_CONDITIONS["departure"]), "--json"])
     assert code == 0
     data = json.loads(capsys.readouterr().out)
@@ -82,8 +85,13 @@ def test_calc_json_has_the_documented_keys(capsys):
     assert data["gz"][0]["gz_m"] == pytest.approx(-data["tcg_m"], abs=1e-12)
     assert {"id", "description", "value", "limit", "pass"} <= set(data["criteria"][0])
     assert {"id", "fill_pct", "volume_m3", "mass_t", "fsm_tm", "state"} <= set(data["tanks"][0])
-    assert data["kg_fluid_m"] == pytest.approx(data["kg_m"] + data["fsc_m"])
-    assert data["gm_fluid_m"] == pytest.approx(data["km_m"] - data["kg_fluid_m"])
+    # The JSON carries the same numbers as the computation (rounding-free: floats written in full).
+    vessel, conditions = demo
+    r = evaluate(vessel, conditions["departure"])
+    scalars = {k for k, x in data.items() if isinstance(x, float)}
+    assert JSON_KEYS - {"gz", "criteria", "tanks", "warnings"} <= scalars
+    for key in scalars:
+        assert data[key] == getattr(r, key), key
 
 
 def test_calc_text_summary_names_the_criteria_and_the_caution(capsys):

@@ -123,6 +123,8 @@ def test_the_three_conditions_meet_the_criteria_and_are_what_they_say(trawler):
         # the weather criterion is assessed on a GZ curve that stops at 60° (it used to crash there)
         assert {"IS2008-A2.3-theta0", "IS2008-A2.3-area-b-a"} <= {c.id for c in r.criteria}, name
         assert not [w for w in r.warnings if w.severity == "danger"], name
+        # every deck item states what it adds to the windage (the drum shows above the bulwark)
+        assert not [w.message for w in r.warnings if "no windage given" in w.message], name
         summer = next(ll for ll in vessel.load_lines if ll.name == "summer")
         assert r.draft_mean_m < summer.draft_m, name
     fill = {k: {t.id: t.fill_pct for t in r.tanks} for k, r in results.items()}

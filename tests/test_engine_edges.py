@@ -95,5 +95,9 @@ def test_a_displacement_off_the_downflooding_curve_is_a_danger():
 
 
 def test_marks_named_f_and_tf_are_fresh_water_marks():
+    """The F (fresh) and TF (tropical fresh) lines of the load line mark are set for fresh water of
+    1.000 t/m³, every other line for sea water of 1.025 t/m³ (densities: standards.md §6.1 [C]).
+    Which lines are the fresh-water ones is common practice (the ICLL Annex I marks; regulation
+    number not confirmed, from memory), as are the spellings accepted here."""
     assert {mark_density_t_m3(n) for n in ("F", "TF", "tropical fresh", "Fresh")} == {1.000}
     assert {mark_density_t_m3(n) for n in ("summer", "winter", "tropical", "WNA")} == {1.025}

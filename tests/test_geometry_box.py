@@ -31,6 +31,7 @@ from deckload.core.geometry.hull import hull_sections
 from deckload.core.geometry.hydrostatics_calc import upright_hydrostatics
 from deckload.core.geometry.sections import clip_polygon, cut_sections, simpson_weights
 from deckload.core.geometry.spec import HullOffsets
+from vessel_factories import box_tank_worst_band_pct
 
 L, B, D = 40.0, 10.0, 4.0
 RHO = 1.025
@@ -262,7 +263,13 @@ def test_builder_end_to_end_on_a_box():
     tank = vt.tanks[0]
     assert tank.capacity_m3 == pytest.approx(18.0)
     np.testing.assert_allclose(tank.calibration.fsi_m4, 6 * 6**3 / 12)
-    assert sum(tank.worst_band_pct) == pytest.approx(100.0, abs=0.2)
+    # Exact band of a 6 × 0.5 m section at 30°: the surface meets top and bottom (checks.md §1.2 case 4,
+    # (B, D, T) → (b, h, d)); bisection on that closed form (vessel_factories.box_tank_worst_band_pct)
+    # gives 34.276155–65.723845 %.  The program interpolates on a 1 % grid: at the edge M' = 0.1541 and
+    # |M''| = 0.0098 m⁴ per %, so its edges are within 1²·0.0098/(8·0.1541) = 0.0080 % of the exact ones.
+    assert box_tank_worst_band_pct(6.0, 6.0, 0.5) == pytest.approx((34.276155, 65.723845), abs=1e-6)
+    assert tank.worst_band_pct[0] == pytest.approx(34.276155, abs=0.008)
+    assert tank.worst_band_pct[1] == pytest.approx(65.723845, abs=0.008)
     assert vt.downflooding.angle_deg[0] == pytest.approx(math.degrees(math.atan(0.5)), abs=1e-6)
     h = vt.hydrostatics
     np.testing.assert_allclose(h.displacement_t, 1.025 * 20 * 6 * np.array([0.5, 1.0, 1.5, 2.0]))

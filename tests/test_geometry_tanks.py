@@ -70,6 +70,17 @@ def test_box_tank_transfer_moments():
     assert m[3, 0] == pytest.approx(6 * 4**3 / 12 * math.sin(th) * (1 + 0.5 * math.tan(th) ** 2), abs=1e-9)
 
 
+def test_box_tank_on_its_side():
+    """Analytic: heeled 90° the liquid lies against the low wall over the whole height h, so its
+    centroid is at mid-height, z_g = h/2, against d/2 upright, and the moment is normal to gravity:
+    M(f, 90°) = v·(h/2 − d/2) = l·b·d·(h − d)/2 (checks.md §3.2 definition, θ = 90°).  l = 6, b = 4,
+    h = 2: 9, 12, 9 m⁴ at 25, 50, 75 %."""
+    m = transfer_moments(box_tank(), np.array([25.0, 50.0, 75.0]), np.array([90.0])).moment_m4[:, 0]
+    d = np.array([0.5, 1.0, 1.5])
+    np.testing.assert_allclose(m, 6 * 4 * d * (2 - d) / 2, atol=1e-9)
+    np.testing.assert_allclose(m, [9.0, 12.0, 9.0], atol=1e-9)
+
+
 def test_transfer_is_independent_of_tank_position():
     """Analytic: M is measured from the tank's own upright centroid, so moving the tank
     (off the centreline, up, along) changes nothing."""
@@ -86,11 +97,12 @@ def test_empty_and_full_tanks_have_no_transfer():
 
 
 def test_box_tank_worst_band():
-    """checks.md §3.2 [A]: M(30°) peaks at 50 % (18.124 m⁴); 0.9·max = 16.31 lies between the
-    30 % (14.79) and 40 % (17.11) values, so the band is symmetric, within (30, 40)–(60, 70)."""
+    """checks.md §3.2 [A]: M(30°) peaks at 50 % (6 + 7√3 = 18.124 m⁴); 0.9·max is reached at
+    35.98394 % and, by point symmetry, 64.01606 % (derived in tests/test_reference_worst_band.py).
+    Tolerance: the program's 1 % grid with linear edges, ≤ 1²·|M''|/(8·M') = 0.0062 % there."""
     lo, hi = worst_band(box_tank())
-    assert 30.0 < lo < 40.0 and 60.0 < hi < 70.0
-    assert lo + hi == pytest.approx(100.0, abs=0.2)
+    assert lo == pytest.approx(35.98394, abs=0.0062)
+    assert hi == pytest.approx(64.01606, abs=0.0062)
 
 
 def test_box_tank_calibration():

@@ -30,7 +30,7 @@ def hand_result(gm_fluid_m: float = 0.812, displacement_t: float = 655.25) -> Re
     crit = (
         CriterionResult("IS2008-A2.2.1-area-0-30", "area under GZ 0–30°", 0.081, 0.055, "m·rad", ">=",
                         True, "IS 2008 Part A 2.2.1"),
-        CriterionResult("IS2008-A2.2.3-gm0", "initial GM", gm_fluid_m, 0.15, "m", ">=", True,
+        CriterionResult("IS2008-A2.2.4-gm0", "initial GM", gm_fluid_m, 0.15, "m", ">=", True,
                         "IS 2008 Part A 2.2.4"),
     )
     return Result(

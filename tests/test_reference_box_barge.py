@@ -11,8 +11,10 @@ are those of interpolating the tables.
 
 from __future__ import annotations
 
+import dataclasses
 import math
 
+import numpy as np
 import pytest
 
 from deckload.core.model import Condition, DeckItem
@@ -72,8 +74,7 @@ def test_factory_kn_matches_checks_1_2_and_1_4():
 def test_factory_kn_against_polygon_clipping():
     """Independent check of the regime formulas: clip the rectangle with shapely at the
     waterline found by bisection on the area, KN = y_B·cosθ + z_B·sinθ (checks.md §1.2 method)."""
-    shapely = pytest.importorskip("shapely")
-    from shapely.geometry import Polygon, box
+    from shapely.geometry import Polygon, box  # a test dependency (pyproject "test" extra): never skipped
 
     def kn_clip(t_draft, deg):
         th = RAD(deg)
@@ -97,7 +98,9 @@ def test_factory_kn_against_polygon_clipping():
         cen = under((lo + hi) / 2).centroid
         return cen.x * c + cen.y * s
 
-    assert shapely.__version__
+    # the clipper itself reproduces checks.md §1.2/§1.4 [A] (printed to 5 dp: half a unit of the last digit)
+    assert kn_clip(2.0, 30) == pytest.approx(2.58771, abs=5e-6)
+    assert kn_clip(1.0, 60) == pytest.approx(3.29594, abs=5e-6)
     for t_draft in (1.0, 2.0, 2.75):
         for deg in (10, 22, 35, 60, 80, 89):
             assert box_kn_m(B, D, t_draft, RAD(deg)) == pytest.approx(kn_clip(t_draft, deg), abs=1e-9)
@@ -181,8 +184,21 @@ def test_outside_the_tables_is_refused():
     """Nothing is extrapolated (DEVELOPERS.md): Δ beyond the last row (T 3.5 m) raises OutOfRangeError."""
     v, _ = barge_at(3.4, 3.0)
     heavy = Condition(deck_items=(DeckItem("Extra", 60.0, 20.0, 3.0),))  # Δ 1394 + 60 > 1435 t
-    with pytest.raises(OutOfRangeError, match="outside the table range"):
+    with pytest.raises(OutOfRangeError) as e:
         evaluate(v, heavy)
+    # the error names the quantity, the value asked for and the range (DEVELOPERS.md "How the numbers
+    # are made"): Δ 1454 t against the table's 205–1435 t (1.025·40·10·T for T 0.5–3.5 m)
+    assert str(e.value) == ("displacement (hydrostatic table, at table density) 1454 t is outside the table "
+                            "range 205–1435 t; deckload does not extrapolate")
+    assert (e.value.quantity, e.value.unit) == ("displacement (hydrostatic table, at table density)", "t")
+    assert e.value.value == pytest.approx(1.025 * 400 * 3.4 + 60.0, abs=1e-9)
+    assert (e.value.low, e.value.high) == pytest.approx((205.0, 1435.0), abs=1e-9)
+
+
+def test_out_of_range_message_without_a_unit():
+    """A unitless quantity is printed with no stray space or unit."""
+    assert str(OutOfRangeError("fill ratio", 1.5, 0.0, 1.0)) == (
+        "fill ratio 1.5 is outside the table range 0–1; deckload does not extrapolate")
 
 
 # --------------------------------------------------------------------------- GZ curve
@@ -395,3 +411,71 @@ def test_barrass_derrett_p130_ex1_wall_sided():
     assert r.gz_m[25] == pytest.approx(0.349152, abs=5e-7)
     assert round(r.gz_m[25], 2) == 0.35
     assert r.displacement_t * r.gz_m[25] == pytest.approx(2094.9, abs=0.05)
+
+
+def test_cross_curves_narrower_than_the_hydrostatics_are_refused():
+    """The KN table is looked up at the equivalent displacement too and never extrapolated: with KN
+    rows only for T = 1.0–3.0 m (Δ 410–1230 t) the barge at T = 3.2 m (Δ 1312 t) lies inside the
+    hydrostatic table but outside the cross curves, and the error says which table."""
+    from deckload.core.model import CrossCurves
+    from vessel_factories import box_barge_cross_curves
+
+    v, c = barge_at(3.2, 3.0)
+    narrow = dataclasses.replace(v, cross_curves=box_barge_cross_curves((1.0, 2.0, 3.0)))
+    with pytest.raises(OutOfRangeError) as e:
+        evaluate(narrow, c)
+    assert str(e.value).startswith("displacement (KN cross curves, at table density) 1312 t is outside "
+                                   "the table range 410–1230 t")
+    # and a table that stops short of 90° is refused rather than extrapolated in heel
+    cc = narrow.cross_curves
+    short = CrossCurves(heel_deg=cc.heel_deg[:13], displacement_t=cc.displacement_t, kn_m=cc.kn_m[:, :13])
+    v2, c2 = barge_at(2.0, 3.0)
+    with pytest.raises(OutOfRangeError, match=r"^heel \(KN cross curves\) 90 deg is outside the table range 0–60 deg"):
+        evaluate(dataclasses.replace(v2, cross_curves=short), c2)
+    # a last column even half a degree short of 90° is refused (only round-off, 1e-9°, is forgiven)
+    heels = np.array([*cc.heel_deg[:18], 89.5])
+    almost = CrossCurves(heel_deg=heels, displacement_t=cc.displacement_t, kn_m=cc.kn_m[:, :19])
+    with pytest.raises(OutOfRangeError, match=r"range 0–89\.5 deg"):
+        evaluate(dataclasses.replace(v2, cross_curves=almost), c2)
+
+
+def test_area_under_gz_by_the_trapezoidal_rule():
+    """gz.py integrates GZ by the trapezoidal rule on the 0.1° grid, with a linear last part-panel.
+    For GZ = 2φ (φ in radians) the rule is exact: area(0→θ) = θ² at any θ, on or off the grid
+    (an off-grid θf, e.g. 35.25°, uses the part-panel).  For a curved GZ = sin 2φ + φ² the rule must
+    equal numpy's trapezoid over the same samples (a general-purpose implementation of the rule)."""
+    from deckload.core import gz as gzmod
+
+    line = 2.0 * gzmod.FINE_RAD
+    for deg in (0.5, 30.0, 35.25, 40.0, 89.95, 90.0):
+        assert gzmod.area_to(line, deg) == pytest.approx(math.radians(deg) ** 2, abs=1e-12)
+    assert gzmod.area_to(line, 0.0) == 0.0
+    curve = np.sin(2.0 * gzmod.FINE_RAD) + gzmod.FINE_RAD**2
+    assert gzmod.area_to(curve, 90.0) == pytest.approx(np.trapezoid(curve, gzmod.FINE_RAD), abs=1e-12)
+    k = int(round(40.0 / gzmod.STEP_DEG))
+    assert gzmod.area_to(curve, 40.0) == pytest.approx(np.trapezoid(curve[: k + 1], gzmod.FINE_RAD[: k + 1]), abs=1e-12)
+
+
+def test_curve_facts_on_curves_with_known_answers():
+    """gz.facts on curves whose answers are known exactly (gz.py: maximum refined by a parabola
+    through the three best grid points, crossings by linear interpolation on the 0.1° grid):
+
+    * GZ = sin 3φ: maximum 1 at 30°, vanishing at 60° (both on the grid);
+    * GZ = 1 − (φ − θ0)²: a parabola, so the refinement is exact: maximum 1 at θ0 for θ0 = 29.1823°
+      (the barge's value, checks.md §1.2), and for θ0 = 0.12° and 89.93° (next to either end of the grid);
+    * GZ = cos φ: largest at 0°, the first grid point, where there is nothing to refine;
+    * GZ = sin(φ − 10°): negative up to 10°, where she comes to rest (equilibrium 10°)."""
+    from deckload.core import gz as gzmod
+
+    phi = gzmod.FINE_RAD
+    f = gzmod.facts(np.sin(3 * phi))
+    assert (f.max_gz_m, f.max_gz_angle_deg, f.vanishing_angle_deg, f.equilibrium_deg) == pytest.approx(
+        (1.0, 30.0, 60.0, 0.0), abs=1e-9)
+    for theta0 in (0.12, 29.1823, 89.93):
+        f = gzmod.facts(1.0 - (phi - math.radians(theta0)) ** 2)
+        assert (f.max_gz_m, f.max_gz_angle_deg) == pytest.approx((1.0, theta0), abs=1e-9)
+    f = gzmod.facts(np.cos(phi))
+    assert (f.max_gz_m, f.max_gz_angle_deg) == pytest.approx((1.0, 0.0), abs=1e-12)
+    f = gzmod.facts(np.sin(phi - math.radians(10.0)))
+    assert f.equilibrium_deg == pytest.approx(10.0, abs=1e-9)
+    assert f.max_gz_angle_deg == pytest.approx(90.0, abs=1e-9) and f.vanishing_angle_deg is None

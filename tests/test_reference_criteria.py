@@ -13,7 +13,6 @@ import numpy as np
 import pytest
 
 from deckload.core.criteria import (
-    CRITERIA_SETS,
     IS2008_A22,
     Measures,
     evaluate_criteria,
@@ -49,8 +48,7 @@ def test_is2008_limits_as_data(cid, limit, unit, para):
     assert c.unit == unit
     assert c.comparison == ">="
     assert para in c.source and "2008" in c.source
-    assert CRITERIA_SETS["IS2008-A2.2"] == IS2008_A22
-    assert len(IS2008_A22) == 6
+    assert len(IS2008_A22) == 6  # 2.2.1 three areas, 2.2.2, 2.2.3, 2.2.4 (standards.md §1)
 
 
 @pytest.mark.parametrize("cid, limit, unit, para", IS2008_LIMITS)
@@ -73,8 +71,14 @@ def test_mrad_mdeg(mrad, mdeg_exact, mdeg_cfr):
     """
     assert round(mrad_to_mdeg(mrad), 3) == mdeg_exact
     assert abs(mrad_to_mdeg(mrad) - mdeg_cfr) < 0.01
-    assert mrad_to_mdeg(mrad) == pytest.approx(mrad * 180.0 / math.pi, rel=1e-15)
-    assert mdeg_to_mrad(mrad_to_mdeg(mrad)) == pytest.approx(mrad, rel=1e-15)
+    # back from the CFR's 3-dp metre-degrees: half a unit of the last digit, 5e-4 m·deg = 8.7e-6 m·rad
+    assert mdeg_to_mrad(mdeg_exact) == pytest.approx(mrad, abs=8.8e-6)
+
+
+def test_one_radian_in_degrees():
+    """1 rad = 57.2958° (standards.md §6.3, printed to 4 dp): the conversion the areas are printed with."""
+    assert mrad_to_mdeg(1.0) == pytest.approx(57.2958, abs=5e-5)
+    assert mdeg_to_mrad(57.2958) == pytest.approx(1.0, abs=1e-6)
 
 
 def _measures(**kw):
@@ -143,6 +147,33 @@ def test_limiting_kg_curve():
         assert crit.limit == pytest.approx(limit, abs=1e-12)
         assert crit.value == pytest.approx(kg, abs=1e-12)
         assert bool(crit.passed) is ok
+
+
+def test_limit_curves_name_what_they_check():
+    """The result says what a limiting curve checks, in which unit and against which source (the
+    profile's approved curve, IS 2008 A 2.1.7), so the watchkeeper can tell the two kinds apart."""
+    kg_curve = LimitCurve(frozen_array([600.0, 1000.0]), frozen_array([3.4, 3.8]), "max_kg_m")
+    v, c = barge_at(2.0, 3.0, limit_curve=kg_curve)
+    crit = by_id(evaluate(v, c), "limit-curve-max-kg")
+    assert (crit.description, crit.unit, crit.comparison, crit.source) == (
+        "KG (fluid) within the limiting KG curve", "m", "<=", "vessel profile limiting-KG curve")
+
+
+@pytest.mark.parametrize("kg, ok", [(3.0, True), (3.5, False)])
+def test_minimum_gm_curve(kg, ok):
+    """IS 2008 A 2.1.7: a minimum-GM curve against displacement.  Barge at T = 2 m (Δ 820 t), KM 5.16667
+    (checks.md §1.1 [A]): GM = 5.16667 − KG, 2.16667 at KG 3 and 1.66667 at KG 3.5.  Limit at 820 t
+    between (600 t, 1.6 m) and (1000 t, 2.4 m): 1.6 + 220/400·0.8 = 2.04 m, so KG 3 passes, 3.5 fails."""
+    curve = LimitCurve(frozen_array([600.0, 1000.0]), frozen_array([1.6, 2.4]), "min_gm_m")
+    v, c = barge_at(2.0, kg, limit_curve=curve)
+    r = evaluate(v, c)
+    crit = by_id(r, "limit-curve-min-gm")
+    assert crit.limit == pytest.approx(2.04, abs=1e-12)
+    assert crit.value == pytest.approx(1.0 + 100.0 / 24.0 - kg, abs=1e-12)
+    assert crit.passed is ok
+    assert (crit.description, crit.unit, crit.comparison, crit.source) == (
+        "GM (fluid) above the minimum GM curve", "m", ">=", "vessel profile minimum-GM curve")
+    assert not any(x.id == "limit-curve-max-kg" for x in r.criteria)
 
 
 def test_failed_criterion_warns():

@@ -533,6 +533,8 @@ class _Audit:
                 self.add(ERROR, "hydrostatics.kml_m", hp + ("kml_m", i), _f(float(h.kml_m[i])),
                          "KML is not above the centre of buoyancy", row(i), "hydro-mctc")
                 break
+            if float(h.displacement_t[i]) <= 0.0:
+                continue  # an empty row (Δ = 0, a draft of 0): no MCTC to compare
             ratio = 100.0 * L * float(h.mctc_tm_cm[i]) / (float(h.displacement_t[i]) * bml)
             sev = ERROR if not elo <= ratio <= ehi else WARNING if not wlo <= ratio <= whi else None
             if sev:

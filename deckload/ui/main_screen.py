@@ -418,6 +418,15 @@ class LoadingScreen(Screen[None]):
         every = views.alerts(s.result, s.stale, s.problem)
         self.app.push_screen(TextScreen("Warnings", alert_lines(every, len(every) + 1)))
 
+    def action_compare_hull(self) -> None:
+        from deckload.ui.hull_compare import HullCompareScreen
+
+        s = self.session
+        if s.result is None or s.stale:
+            self.notify("No current result to compare: fix the condition first.", severity="warning")
+            return
+        self.app.push_screen(HullCompareScreen(s.vessel, s.result))
+
     def action_help(self) -> None:
         self.app.push_screen(HelpScreen())
 
