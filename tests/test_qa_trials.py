@@ -170,3 +170,19 @@ def test_the_report_criteria_table_cuts_no_paragraph(name, tmp_path):
     for c in r.criteria:
         assert vf.paragraph(c) in flat  # each remark in full, somewhere on the page
     assert "† in full: B 2.1 (from memory: Part A 2.2.1–2.2.3 applied, GM0 0.35 m)" in flat
+
+
+def test_a_condition_of_the_other_demo_vessel_is_named_as_such(capsys, tmp_path, monkeypatch):
+    """`deckload calc trawler light` ('light' is the Demo Islander's) said only "cannot read
+    light: No such file or directory"; it now names the trawler's conditions.  Exit 2 as before
+    (a file that cannot be read)."""
+    monkeypatch.chdir(tmp_path)  # no file called 'light' here
+    assert main(["calc", "trawler", "light"]) == 2
+    err = capsys.readouterr().err
+    assert "'light' is neither a file nor a condition of the demo vessel 'trawler'" in err
+    assert "departure, grounds, arrival" in err
+    assert main(["calc", "trawler", "grounds"]) == 0
+    capsys.readouterr()
+    (tmp_path / "light").write_text("", encoding="utf-8")  # a file of that name is read as a file
+    assert main(["calc", "trawler", "light"]) == 1
+    assert "neither a file" not in capsys.readouterr().err
