@@ -186,3 +186,25 @@ def test_a_condition_of_the_other_demo_vessel_is_named_as_such(capsys, tmp_path,
     (tmp_path / "light").write_text("", encoding="utf-8")  # a file of that name is read as a file
     assert main(["calc", "trawler", "light"]) == 1
     assert "neither a file" not in capsys.readouterr().err
+
+
+def test_the_whole_verdict_page_fits_the_width_it_is_given():
+    """Loading screen 120×40 on the trawler, key v: the page was laid out for 96 columns in a
+    box that shows 94 (.form.help is 100 wide, less border, padding and scrollbar), and each
+    criterion line needed 99, so 'ok'/'FAIL' fell to a line of its own and the paragraph
+    column read 'B 2.1 (from'.  The criterion line now fits 94 with the short paragraph; the
+    paragraph's remark is on the line under it, in full."""
+    from deckload import verdict_format as vf
+    from deckload.core.stability import evaluate
+    from deckload.profiles import load_condition, load_profile
+    from deckload.ui.verdict import verdict_page
+
+    vessel = load_profile(paths.TRAWLER_PROFILE)
+    r = evaluate(vessel, load_condition(paths.TRAWLER_CONDITIONS["departure"], vessel))
+    lines = [t.plain for t in verdict_page(r, width=94)]
+    assert max(len(x) for x in lines[:-1]) <= 94  # the closing caution is one line the box wraps
+    for c in r.criteria:
+        row = next(x for x in lines if x.startswith(f"  {vf.paragraph(c, short=True):<10} {c.description[:36]}"))
+        assert row.rstrip().endswith(("ok", "NEAR", "FAIL"))
+    flat = " ".join(" ".join(lines).split())
+    assert "¶ B 2.1 (from memory: Part A 2.2.1–2.2.3 applied, GM0 0.35 m)" in flat
