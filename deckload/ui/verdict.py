@@ -149,8 +149,11 @@ def verdict_page(result: Result | None, width: int = 96) -> list[Text]:
         h.append(g.word, P[WORD_STYLE.get(g.word, "caution")])
         out.append(h)
         for c in g.criteria:
-            if width >= 90:
-                line = Text(f"  {vf.paragraph(c, short=True):<10.10} {c.description:<36.36} ", P["label"])
+            if width >= 90 and len(c.description) <= 36:
+                line = Text(f"  {vf.paragraph(c, short=True):<10.10} {c.description:<36} ", P["label"])
+            elif width >= 90:  # a long description on its own line, never cut; the numbers under it
+                out.append(Text(f"  {vf.paragraph(c, short=True):<10.10} {c.description}", P["label"]))
+                line = Text(" " * 50)
             else:  # narrow: the criterion on its own line, the numbers under it
                 out.append(Text(f"  {vf.paragraph(c)}  {c.description}", P["label"]))
                 line = Text("      ")
