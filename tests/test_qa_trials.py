@@ -209,3 +209,15 @@ def test_the_whole_verdict_page_fits_the_width_it_is_given():
         assert row.rstrip().endswith(("ok", "NEAR", "FAIL")) and "margin" in row
     flat = " ".join(" ".join(lines).split())
     assert "¶ B 2.1 (from memory: Part A 2.2.1–2.2.3 applied, GM0 0.35 m)" in flat
+
+
+def test_calc_words_an_upright_even_keel_condition_as_the_report_does(capsys):
+    """`deckload calc trawler arrival`: trim 0.0000 m, no list.  calc printed "List 0.00° stbd"
+    and "Trim 0.000 m by the stern" where the report of the same condition prints "upright"
+    and "even keel" (report._side, report._trim: below the last printed decimal)."""
+    assert main(["calc", "trawler", "arrival"]) == 0
+    out = capsys.readouterr().out
+    assert "0.00° upright" in out and "0.000 m even keel" in out
+    assert "° stbd" not in out and "by the stern" not in out
+    assert main(["calc", "trawler", "departure"]) == 0  # a real trim keeps its side
+    assert "0.205 m by the stern" in capsys.readouterr().out
