@@ -426,17 +426,13 @@ def test_cross_curves_narrower_than_the_hydrostatics_are_refused():
         evaluate(narrow, c)
     assert str(e.value).startswith("displacement (KN cross curves, at table density) 1312 t is outside "
                                    "the table range 410–1230 t")
-    # and a table that stops short of 90° is refused rather than extrapolated in heel
+    # a table that stops short of 90° is not extrapolated in heel: the curve stops at its last angle
+    # (booklet KN often end at 60°; tests/test_booklet_input.py covers what that does to the criteria)
     cc = narrow.cross_curves
     short = CrossCurves(heel_deg=cc.heel_deg[:13], displacement_t=cc.displacement_t, kn_m=cc.kn_m[:, :13])
     v2, c2 = barge_at(2.0, 3.0)
-    with pytest.raises(OutOfRangeError, match=r"^heel \(KN cross curves\) 90 deg is outside the table range 0–60 deg"):
-        evaluate(dataclasses.replace(v2, cross_curves=short), c2)
-    # a last column even half a degree short of 90° is refused (only round-off, 1e-9°, is forgiven)
-    heels = np.array([*cc.heel_deg[:18], 89.5])
-    almost = CrossCurves(heel_deg=heels, displacement_t=cc.displacement_t, kn_m=cc.kn_m[:, :19])
-    with pytest.raises(OutOfRangeError, match=r"range 0–89\.5 deg"):
-        evaluate(dataclasses.replace(v2, cross_curves=almost), c2)
+    r = evaluate(dataclasses.replace(v2, cross_curves=short), c2)
+    assert r.gz_end_deg == 60.0 and r.gz_heel_deg[-1] == 60.0
 
 
 def test_area_under_gz_by_the_trapezoidal_rule():

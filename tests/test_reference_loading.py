@@ -117,7 +117,7 @@ def test_sounding_outside_the_tank_is_refused():
     v = box_barge(tanks=(box_tank("DB1C", length_m=6.0, breadth_m=4.0, height_m=2.0, lcg_m=20.0),))
     with pytest.raises(LoadingError) as e:
         evaluate(v, Condition(tanks=(TankFill("DB1C", "sounding_m", 2.5),)))
-    assert str(e.value) == ("tank DB1C: sounding of tank DB1C 2.5 m is outside the table range 0–2 m; "
+    assert str(e.value) == ("tank DB1C: sounding 2.5 m is outside the calibration table 0–2 m; "
                             "deckload does not extrapolate")
     r = evaluate(v, Condition(tanks=(TankFill("DB1C", "sounding_m", 0.5),)))
     assert r.tanks[0].volume_m3 == pytest.approx(6 * 4 * 0.5, abs=EXACT)  # v = l·b·s (checks.md §3.1)
@@ -165,7 +165,7 @@ def test_volume_of_each_quantity_and_its_refusals():
     assert volume_of(tank, "volume_m3", 0.5, 1.025) == 0.5
     assert volume_of(tank, "volume_m3", 48.0, 1.025) == 48.0
     refusals = [
-        ("sounding_m", 2.5, "tank DB1C: sounding of tank DB1C 2.5 m is outside the table range 0–2 m; "
+        ("sounding_m", 2.5, "tank DB1C: sounding 2.5 m is outside the calibration table 0–2 m; "
                             "deckload does not extrapolate"),
         ("litres", 1.0, "tank DB1C: unknown quantity 'litres'"),
         ("volume_m3", -1.0, "tank DB1C: a negative amount (-1) cannot be loaded"),
