@@ -79,6 +79,12 @@ CAPACITY_TOLERANCE = 0.0005
 more would misjudge the 98 % 'nominally full' line or ask the table for a volume it does not hold."""
 
 
+def _percent(x: float) -> str:
+    """A percentage in a message: two decimals, or six significant digits when a typing error
+    (a capacity of 1e300) would otherwise print hundreds of digits."""
+    return f"{x:.2f}" if abs(x) < 1e6 else num(x)
+
+
 # =========================================================================== vessel rules
 # (generic rules such as ``positive`` and ``between`` live in deckload.tomlcheck)
 
@@ -1156,7 +1162,7 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
         if abs(capacity - last) > CAPACITY_TOLERANCE * last:
             tank.bad("capacity_m3", tank.data["capacity_m3"],
                      f"differs from the last calibration volume {num(last)} m³ by "
-                     f"{100 * abs(capacity - last) / last:.2f} % (at most {100 * CAPACITY_TOLERANCE:g} % allowed)")
+                     f"{_percent(100 * abs(capacity - last) / last)} % (at most {100 * CAPACITY_TOLERANCE:g} % allowed)")
             return None
     if max_fsi is not None:
         kw["fsi_given"] = "max"
