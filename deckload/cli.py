@@ -105,16 +105,24 @@ def _reading(text: str) -> float:
     return x
 
 
-def _demo_shorthand(args: argparse.Namespace) -> None:
-    """Let 'demo' or 'trawler' stand for a packaged demo profile and a condition's key for its file."""
+def _demo_shorthand(args: argparse.Namespace) -> str | None:
+    """Let 'demo' or 'trawler' stand for a packaged demo profile and a condition's key for its file.
+
+    Returns a message when the condition is neither one of that demo's keys nor a file
+    ('deckload calc trawler light': 'light' is the other demo's), else None."""
     from deckload.paths import DEMO_VESSELS
 
     profile = getattr(args, "profile", None)
     if profile is not None and str(profile) in DEMO_VESSELS and not profile.is_file():
-        args.profile, conditions = DEMO_VESSELS[str(profile)]
+        name = str(profile)
+        args.profile, conditions = DEMO_VESSELS[name]
         cond = getattr(args, "condition", None)
         if cond is not None and str(cond) in conditions:
             args.condition = conditions[str(cond)]
+        elif cond is not None and not Path(cond).exists():
+            return (f"{str(cond)!r} is neither a file nor a condition of the demo vessel {name!r}: "
+                    f"give one of {', '.join(conditions)}, or a condition file")
+    return None
 
 
 def _named_condition(args: argparse.Namespace) -> str | None:
@@ -169,7 +177,10 @@ def _files(args: argparse.Namespace) -> list[str]:
 
 def _main(argv: list[str] | None) -> int:
     args = _parser().parse_args(argv)
-    _demo_shorthand(args)
+    unknown = _demo_shorthand(args)
+    if unknown:
+        print(f"deckload: {unknown}", file=sys.stderr)
+        return 2
     cmd = args.command or "open"
     if cmd in ("open", "calc", "report", "marks", "check") or getattr(args, "log_command", None) == "record":
         missing = _named_condition(args)

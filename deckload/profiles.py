@@ -79,6 +79,12 @@ CAPACITY_TOLERANCE = 0.0005
 more would misjudge the 98 % 'nominally full' line or ask the table for a volume it does not hold."""
 
 
+def _percent(x: float) -> str:
+    """A percentage in a message: two decimals, or six significant digits when a typing error
+    (a capacity of 1e300) would otherwise print hundreds of digits."""
+    return f"{x:.2f}" if abs(x) < 1e6 else num(x)
+
+
 # =========================================================================== vessel rules
 # (generic rules such as ``positive`` and ``between`` live in deckload.tomlcheck)
 
@@ -190,7 +196,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     deck_edge = _read_deck_edge(root)
     passengers = _read_passengers(root, particulars, criteria)
     marks = _read_draft_marks(root, particulars, frame, rd)
-    hull, tank_bodies = _read_hull_geometry(root, particulars, filename)
+    hull, tank_bodies = _read_hull_geometry(root, particulars, filename, rd)
     pipes = _read_sounding_pipes(root, particulars, frame, rd)
     usual = _read_usual_fill(root)
 
@@ -200,7 +206,8 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     holds = _read_holds(root, ids, frame, rd)
     areas = _read_deck_areas(root, ids, frame, rd)
     constants = _read_profile_constants(root, frame, rd)
-    _check_sounding_pipes(root, pipes, tanks, tank_bodies)
+    if hull is not None:
+        _check_sounding_pipes(root, pipes, tanks, tank_bodies)
     # [[booklet_condition]]: the booklet's worked conditions, read and compared by `deckload check`
     # (deckload.booklet_conditions) once the vessel exists; not part of the model.
     root.get("booklet_condition", False)
@@ -763,10 +770,14 @@ HULL_MATCH_TOLERANCE = 0.001
 would give a 'second method' about another ship."""
 
 
-def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename: str):
+def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename: str, rd: Reading):
     """``hull_geometry``: the geometry file (path relative to the profile) whose hull the direct
     calculation integrates and whose tank shapes correct soundings for trim and list.  Its
-    problems are reported as the profile's, naming the file.  Returns (hull body, tank bodies)."""
+    problems are reported as the profile's, naming the file.  Returns (hull body, tank bodies).
+
+    A file that is not there (a profile copied without it) is not an error of the profile,
+    whose tables stand on their own: the vessel then has no hull, the assumption says so, and
+    the direct calculation and trimmed-sounding corrections say so where they are asked for."""
     name = root.text("hull_geometry", required=False, default=None)
     if name is None:
         return None, {}
@@ -778,7 +789,8 @@ def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename
     if not path.is_absolute():
         path = Path(filename).parent / path
     if not path.is_file():
-        root.bad("hull_geometry", name, f"no such geometry file ({path})")
+        rd.assumptions.append(f"hull_geometry {name!r} not found ({path}): no direct calculation from the hull, "
+                              "soundings taken trimmed or listed are not corrected")
         return None, {}
     try:
         geometry = load_geometry(path)
@@ -1166,7 +1178,7 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
         if abs(capacity - last) > CAPACITY_TOLERANCE * last:
             tank.bad("capacity_m3", tank.data["capacity_m3"],
                      f"differs from the last calibration volume {num(last)} m³ by "
-                     f"{100 * abs(capacity - last) / last:.2f} % (at most {100 * CAPACITY_TOLERANCE:g} % allowed)")
+                     f"{_percent(100 * abs(capacity - last) / last)} % (at most {100 * CAPACITY_TOLERANCE:g} % allowed)")
             return None
     if max_fsi is not None:
         kw["fsi_given"] = "max"

@@ -248,13 +248,13 @@ def _criteria(result: Result) -> Table:
     t = Table(box=box.SIMPLE, show_edge=False, pad_edge=False, padding=(0, 1), title_justify="left", title_style="bold",
               title=f"Intact stability criteria by set (GZ heeling to {result.criteria_side}; paragraphs of "
                     f"IS Code 2008 unless named)")
-    t.add_column("Criterion", no_wrap=True)
+    t.add_column("Criterion")  # the one column that wraps when the others need the room
     t.add_column("Value", justify="right", no_wrap=True)
     t.add_column("Limit", justify="right", no_wrap=True)
     t.add_column("Margin", justify="right", no_wrap=True)
     t.add_column("Unit", no_wrap=True)
     t.add_column("Result", no_wrap=True)
-    t.add_column("Paragraph")
+    t.add_column("Paragraph", no_wrap=True)
     for g in vf.grouped(result):
         head = Text(f"{vf.set_title(g.set.title)}: ", style="bold")
         head.append(g.word, style="bold red" if g.word == "NOT MET" else "bold")
@@ -273,9 +273,21 @@ def _criteria(result: Result) -> Table:
                 vf.margin_text(c),
                 c.unit,
                 verdict,
-                vf.paragraph(c),
+                vf.paragraph(c, short=True) + ("" if vf.paragraph(c, short=True) == vf.paragraph(c) else "†"),
             )
     return t
+
+
+def _paragraphs_in_full(result: Result) -> list[str]:
+    """Each paragraph the criteria table shortened ('B 2.1 †'), once, in full: the column is
+    too narrow for a remark such as '(from memory: Part A 2.2.1–2.2.3 applied, GM0 0.35 m)',
+    which it would cut or break word by word."""
+    out: list[str] = []
+    for c in result.criteria:
+        full = vf.paragraph(c)
+        if full != vf.paragraph(c, short=True) and full not in out:
+            out.append(full)
+    return out
 
 
 def _weather(result: Result) -> Table | None:
@@ -327,6 +339,9 @@ def _gz_table(result: Result) -> Table:
 
 def _closing(result: Result) -> Group:
     t = Text()
+    full = _paragraphs_in_full(result)
+    if full:
+        t.append("† in full: " + "; ".join(full) + "\n")
     for c in result.criteria:
         if c.note:
             t.append(f"* {c.description}: {c.note}\n")

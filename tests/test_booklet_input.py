@@ -752,3 +752,31 @@ def test_the_demo_trawlers_csv_tables_come_back_as_typed(tmp_path, capsys):
             assert all(_same(x.strip(), y.strip()) for x, y in zip(ra, rb)), (name, ra, rb)
         compared += 1
     assert compared >= 10  # hydrostatics, KN, downflooding, the hold's fill table and the tanks
+
+
+def test_an_ullage_or_an_offset_sounding_taken_trimmed_is_corrected_on_the_level():
+    """Demo tank DB2P sounded 1 m by the stern (core/soundings.py).  The correction works on the level
+    above the tank's lowest point, so (derived, level = sounding + zero = reference − ullage):
+    an ullage 0.7 m from a reference 1.2 m up, and a sounding 0.4 m from a zero 0.1 m up, both hold
+    the volume of a 0.5 m sounding from the bottom, read at the same pipe."""
+    import dataclasses
+
+    from deckload.paths import DEMO_PROFILE
+
+    demo = load_profile(DEMO_PROFILE)
+
+    def with_tank(**kw):
+        tanks = tuple(dataclasses.replace(t, **kw) if t.id == "DB2P" else t for t in demo.tanks)
+        return dataclasses.replace(demo, tanks=tanks)
+
+    def volume(v, fill):
+        r = evaluate(v, m.Condition(tanks=(fill,), sounding_trim_m=1.0))
+        return next(t for t in r.tanks if t.id == "DB2P").volume_m3
+
+    plain = volume(demo, m.TankFill("DB2P", "sounding_m", 0.5))
+    by_ullage = volume(with_tank(ullage_reference_m=1.2), m.TankFill("DB2P", "ullage_m", 0.7))
+    by_offset = volume(with_tank(sounding_zero_m=0.1), m.TankFill("DB2P", "sounding_m", 0.4))
+    even = evaluate(demo, m.Condition(tanks=(m.TankFill("DB2P", "sounding_m", 0.5),)))
+    assert plain != next(t for t in even.tanks if t.id == "DB2P").volume_m3  # the trim does change it
+    # 0.7 = 1.2 − 0.5 and 0.4 = 0.5 − 0.1 in binary only to round-off: 1e-9 relative
+    assert by_ullage == pytest.approx(plain, rel=1e-9) and by_offset == pytest.approx(plain, rel=1e-9)

@@ -426,13 +426,12 @@ def test_cross_curves_narrower_than_the_hydrostatics_are_refused():
         evaluate(narrow, c)
     assert str(e.value).startswith("displacement (KN cross curves, at table density) 1312 t is outside "
                                    "the table range 410–1230 t")
-    # a table that stops short of 90° is not extrapolated in heel: the curve stops at its last angle
-    # (booklet KN often end at 60°; tests/test_booklet_input.py covers what that does to the criteria)
+    # and a table that does not start upright is refused rather than extrapolated in heel
     cc = narrow.cross_curves
-    short = CrossCurves(heel_deg=cc.heel_deg[:13], displacement_t=cc.displacement_t, kn_m=cc.kn_m[:, :13])
+    late = CrossCurves(heel_deg=cc.heel_deg[1:], displacement_t=cc.displacement_t, kn_m=cc.kn_m[:, 1:])
     v2, c2 = barge_at(2.0, 3.0)
-    r = evaluate(dataclasses.replace(v2, cross_curves=short), c2)
-    assert r.gz_end_deg == 60.0 and r.gz_heel_deg[-1] == 60.0
+    with pytest.raises(OutOfRangeError, match=r"^heel \(KN cross curves\) 0 deg is outside the table range 5–90 deg"):
+        evaluate(dataclasses.replace(v2, cross_curves=late), c2)
 
 
 def test_area_under_gz_by_the_trapezoidal_rule():

@@ -176,6 +176,20 @@ def test_minimum_gm_curve(kg, ok):
     assert not any(x.id == "limit-curve-max-kg" for x in r.criteria)
 
 
+def test_a_value_exactly_at_a_limit_curve_passes():
+    """A limit is met by a value equal to it: KG fluid not above the maximum-KG curve, GM fluid not below
+    the minimum-GM curve (IS 2008 A 2.1.7; the curve values are limits, common practice).  The barge at
+    T = 2 m, KG 3 (Δ 820 t, on the curves' first row, so nothing is interpolated): KG 3.0 against a
+    limit of 3.0, GM = KM − KG = (1 + 100/24) − 3 against exactly that limit."""
+    gm = (1.0 + 100.0 / 24.0) - 3.0
+    for kind, value, cid in (("max_kg_m", 3.0, "limit-curve-max-kg"), ("min_gm_m", gm, "limit-curve-min-gm")):
+        curve = LimitCurve(frozen_array([820.0, 1000.0]), frozen_array([value, value]), kind)
+        v, c = barge_at(2.0, 3.0, limit_curve=curve)
+        crit = by_id(evaluate(v, c), cid)
+        assert crit.value == crit.limit == value
+        assert crit.passed is True
+
+
 def test_failed_criterion_warns():
     """A failed criterion is named in a 'danger' warning (barge KG 4.5 fails the 30–40° area,
     0.028741 < 0.030 m·rad, checks.md §1.3)."""
@@ -187,3 +201,17 @@ def test_failed_criterion_warns():
     assert not r.all_criteria_pass
     assert r.smallest_margin.id in {"IS2008-A2.2.1-area-30-40", "IS2008-A2.2.3-angle-max-gz"}
     assert np.isfinite(r.smallest_margin.margin)
+
+
+def test_a_criterion_within_ten_percent_of_its_limit_is_a_caution():
+    """The watchkeeper is cautioned when a criterion passes by less than 10 % of its limit (deckload's
+    own aid).  Barge T = 2 m, KG 3: GM fluid = 2.16667 m (checks.md §1.1 [A]); with the profile's
+    minimum GM raised to 2.0 m the margin is 0.16667/2.0 = 8.3 % < 10 %."""
+    v, c = barge_at(2.0, 3.0, criteria=CriteriaSettings(min_gm_m=2.0))
+    r = evaluate(v, c)
+    near = [w for w in r.warnings if w.code == "criterion-near"]
+    assert len(near) == 1 and near[0].severity == "caution"
+    assert near[0].message == ("Initial GM0, corrected for free surface within 10 % of its limit: "
+                               "2.167 m against 2.000")
+    v, c = barge_at(2.0, 3.0, criteria=CriteriaSettings(min_gm_m=1.9))  # margin 14 %: no caution
+    assert not any(w.code == "criterion-near" for w in evaluate(v, c).warnings)

@@ -17,15 +17,16 @@ so that the whole ship has Δ = ρw·L·B·T with T = 2.000 m, KG solid 3.000 m 
 * draft at the LCF T = Δ/(ρw·L·B) = 2.000 m (a table row: no interpolation error);
 * KB = T/2 = 1, BMt = B²/(12T) = 4.16667, KMt = 5.16667 m: shape only, density-free;
 * TPC = ρw·L·B/100 = 4·ρw t/cm;
+* GML = KB + L²/(12T) − KG.  With the profile's KML column the program takes G at KG fluid:
+  GML = 67.6667 − (3 + FSC) and MCTC = Δ·GML/(100·L), Δ the actual displacement.  Without a KML
+  column it scales the tabulated MCTC (made here with KG 3, GML 64.6667) by ρw/ρt:
+  MCTC = ρw·800·64.6667/4000 = 12.93333·ρw t·m/cm;
 * FSM = ρ_liquid·l·b³/12 = 1.025·32 = 32.8 t·m; FSC = FSM/Δ (standards.md §4.3);
   KG fluid = 3 + FSC; GM solid = 2.16667; GM fluid = 2.16667 − FSC;
-* GML = KML − KG fluid = KB + L²/(12T) − 3 − FSC = 64.6667 − FSC m (the free-surface rise of G
-  taken on the longitudinal metacentric height too, as deckload does: common practice; the
-  longitudinal free surface of a slack tank would lower GML more, by ρ·i_L/Δ); MCTC = Δ·GML/(100·L)
-  = ρw·800·(64.6667 − FSC)/4000 t·m/cm (fresh: 12.92513);
-* trim t = Δ·(LCB − LCG)/(100·MCTC) = L·(LCB − LCG)/GML = 40·0.5/(64.6667 − FSC)
-  by the stern: the Δ cancels (standards.md §6.3) but for its small part in FSC; fresh 0.309475 m;
-* drafts about the LCF at midships: T_A = T + t/2, T_F = T − t/2 (fresh: 2.154737, 1.845263 m);
+* trim t = Δ·(LCB − LCG)/(100·MCTC) = L·(LCB − LCG)/GML: with the table's MCTC 40·0.5/64.6667
+  = 0.309278 m by the stern whatever the density (the Δ cancels, standards.md §6.3); with KML,
+  40·0.5/(64.6667 − FSC), where FSC = FSM/Δ does depend on the water;
+* drafts about the LCF at midships: T_A = T + t/2 = 2.154639, T_F = T − t/2 = 1.845361 m;
 * GZ(30°) = KN(T = 2, 30°) − KG_fluid·sin30, KN = 2.58771 m (checks.md §1.2 [A]).
 
 With a wrong density treatment each of these moves by a factor 1.025/ρw, i.e. by 2.5 %
@@ -35,6 +36,7 @@ textbook examples, checks.md §4 row 12): far more than the round-off tolerances
 
 from __future__ import annotations
 
+import dataclasses
 import math
 
 import pytest
@@ -62,10 +64,18 @@ def vessel_in(rho_w: float, tank_density: float = RHO_SW, with_transfer: bool = 
     return v, disp
 
 
+def without_kml(v):
+    """The same vessel with no KML column: the trim is then worked from the tabulated MCTC."""
+    return dataclasses.replace(v, hydrostatics=dataclasses.replace(v.hydrostatics, kml_m=None))
+
+
+@pytest.mark.parametrize("with_kml", [True, False])
 @pytest.mark.parametrize("rho_w", [1.000, 1.010, 1.025])
-def test_box_vessel_in_water_of_any_density(rho_w):
+def test_box_vessel_in_water_of_any_density(rho_w, with_kml):
     """Closed forms of the module docstring at ρw = 1.000 (fresh), 1.010 (dock) and 1.025 (sea)."""
     v, disp = vessel_in(rho_w)
+    if not with_kml:
+        v = without_kml(v)
     r = evaluate(v, Condition(water_density_t_m3=rho_w, tanks=(TankFill("DB1C", "percent", 50.0),),
                               fs_rule="actual"))
     assert r.displacement_t == pytest.approx(disp, abs=EXACT)
@@ -80,10 +90,10 @@ def test_box_vessel_in_water_of_any_density(rho_w):
     assert r.gm_solid_m == pytest.approx(1.0 + 100.0 / 24.0 - KG, abs=EXACT)  # 2.16667
     assert r.gm_fluid_m == pytest.approx(1.0 + 100.0 / 24.0 - KG - fsc, abs=EXACT)
     assert r.tpc_t_cm == pytest.approx(rho_w * L * B / 100.0, abs=EXACT)  # 4.00 / 4.04 / 4.10
-    gml = GML - fsc  # KML − KG fluid
-    assert r.mctc_tm_cm == pytest.approx(rho_w * L * B * T * gml / (100.0 * L), abs=EXACT)  # 12.9251 fresh
-    trim = L * (L / 2 - LCG) / gml  # 0.309475 m by the stern in fresh water
-    assert trim == pytest.approx(0.30947, abs=6e-6)  # 0.309475 fresh ... 0.30947 sea (hand, FSC 0.041–0.040 m)
+    gml = GML - fsc if with_kml else GML  # G at KG fluid with KML; the table's KG 3 without
+    assert r.mctc_tm_cm == pytest.approx(disp * gml / (100.0 * L), abs=EXACT)  # = 12.9333·ρw without KML
+    trim = L * (L / 2 - LCG) / gml  # 0.309278 m by the stern from the table's MCTC, in every water
+    assert L * (L / 2 - LCG) / GML == pytest.approx(0.309278, abs=5e-7)
     assert r.trim_m == pytest.approx(trim, abs=EXACT)
     assert r.draft_aft_m == pytest.approx(T + trim / 2, abs=EXACT)
     assert r.draft_fwd_m == pytest.approx(T - trim / 2, abs=EXACT)
@@ -94,21 +104,20 @@ def test_box_vessel_in_water_of_any_density(rho_w):
 
 
 def test_fresh_water_numbers_written_out():
-    """The fresh-water case with its numbers written out, so a reader can check them by hand:
-    Δ = 1.000·40·10·2 = 800 t; FSC = 32.8/800 = 0.041 m (not 32.8/820 = 0.040, the table-water
-    displacement); TPC 4.00 (not 4.10); GML = 64.6667 − 0.041 = 64.6257 m, MCTC 800·64.6257/4000 =
-    12.9251 (not 13.2483, the same at the table's sea-water density); trim 40·0.5/64.6257 = 0.309475 m
-    (not 0.309475·1.025 = 0.317211 from the table Δ, nor 0.309475/1.025 = 0.301927 from an unscaled
-    MCTC)."""
+    """The fresh-water case with no KML column (trim from the tabulated MCTC), its numbers written out
+    so a reader can check them by hand: Δ = 1.000·40·10·2 = 800 t; FSC = 32.8/800 = 0.041 m (not
+    32.8/820 = 0.040, the table-water displacement); TPC 4.00 (not 4.10); MCTC 800·64.6667/4000 =
+    12.9333 (not 13.2567, the table's sea-water value); trim 0.309278 m (not 0.309278·1.025 = 0.317010
+    from the table Δ, nor 0.309278/1.025 = 0.301735 from an unscaled MCTC)."""
     v, _ = vessel_in(1.000)
-    r = evaluate(v, Condition(water_density_t_m3=1.000, tanks=(TankFill("DB1C", "percent", 50.0),),
-                              fs_rule="actual"))
+    r = evaluate(without_kml(v), Condition(water_density_t_m3=1.000, tanks=(TankFill("DB1C", "percent", 50.0),),
+                                           fs_rule="actual"))
     # printed values rounded to the digits shown: half a unit of the last digit
     assert r.displacement_t == pytest.approx(800.0, abs=EXACT)
     assert r.fsc_m == pytest.approx(0.041, abs=EXACT)
     assert r.tpc_t_cm == pytest.approx(4.00, abs=EXACT)
-    assert r.mctc_tm_cm == pytest.approx(12.9251, abs=5e-5)
-    assert r.trim_m == pytest.approx(0.309475, abs=5e-7)
+    assert r.mctc_tm_cm == pytest.approx(12.9333, abs=5e-5)
+    assert r.trim_m == pytest.approx(0.309278, abs=5e-7)
     assert r.gm_fluid_m == pytest.approx(2.125667, abs=5e-7)
 
 

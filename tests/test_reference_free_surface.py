@@ -508,21 +508,23 @@ def test_nominally_full_cargo_tank_transfer_moment_at_98():
 
 def test_worst_centreline_tank_listed_after_a_pair_is_found():
     """IS 2008 B 3.1.4 (standards.md §4.1 [C]): the group with the greatest effect is assumed slack,
-    wherever it stands in the tank list.  Fresh water: pair FWP/FWS 2·1.0·4·2³/12 = 10.67 t·m, listed
-    first; centreline FWC 1.0·4·5³/12 = 41.67 t·m, listed after it: FWC governs, the pair does not count."""
+    wherever it stands in the tank list.  Fresh water: pair FWP/FWS 2·1.0·4·4³/12 = 42.67 t·m, listed
+    first; centreline FWC 1.0·4·6³/12 = 72 t·m, listed after it: FWC governs, the pair does not count.
+    Neither is a small tank: Mfs(30°)/Δmin ≥ 21.33·0.5·(1 + ½tan²30)/1000 = 0.0124 m > 0.01 (B 3.1.12)."""
     tanks = (
-        box_tank("FWP", length_m=4, breadth_m=2, height_m=2, lcg_m=40, tcg_m=-4, kind="fresh_water",
+        box_tank("FWP", length_m=4, breadth_m=4, height_m=2, lcg_m=40, tcg_m=-4, kind="fresh_water",
                  density_t_m3=1.0, pair="FWS"),
-        box_tank("FWS", length_m=4, breadth_m=2, height_m=2, lcg_m=40, tcg_m=4, kind="fresh_water",
+        box_tank("FWS", length_m=4, breadth_m=4, height_m=2, lcg_m=40, tcg_m=4, kind="fresh_water",
                  density_t_m3=1.0, pair="FWP"),
-        box_tank("FWC", length_m=4, breadth_m=5, height_m=2, lcg_m=60, kind="fresh_water", density_t_m3=1.0),
+        box_tank("FWC", length_m=4, breadth_m=6, height_m=2, lcg_m=60, kind="fresh_water", density_t_m3=1.0),
     )
     v = parallel_sided_vessel(form(2000.0, 6.0), lightship=MassItem("Lightship", 2000.0, X_MID, 4.0, 0.0),
                               tanks=tanks, free_surface=FreeSurfaceSettings(min_operating_displacement_t=DMIN))
     r = evaluate(v, Condition())
-    assert tank_by_id(r, "FWC").fsm_tm == pytest.approx(1.0 * 4 * 5**3 / 12, rel=1e-12)
+    assert tank_by_id(r, "FWC").fsm_tm == pytest.approx(1.0 * 4 * 6**3 / 12, rel=1e-12)
     assert "centreline" in tank_by_id(r, "FWC").fs_rule
-    assert tank_by_id(r, "FWP").fsm_tm == 0.0 and tank_by_id(r, "FWS").fsm_tm == 0.0
+    for k in ("FWP", "FWS"):
+        assert tank_by_id(r, k).fsm_tm == 0.0 and "exempt" not in tank_by_id(r, k).fs_rule
 
 
 def test_empty_is_at_or_below_the_remainder_limit():

@@ -137,6 +137,9 @@ def test_tank_contents_however_stated(quantity, value, density, volume):
     assert t.volume_m3 == pytest.approx(volume, abs=EXACT)
     assert t.fill_pct == pytest.approx(25.0, abs=EXACT)
     assert t.mass_t == pytest.approx(volume * (density or 1.025), abs=EXACT)
+    # the calibration row at that volume: sounding s = v/(l·b) = 0.5 m, LCG 20, VCG s/2, TCG 0, i = l·b³/12
+    assert (t.sounding_m, t.lcg_m, t.vcg_m, t.tcg_m) == pytest.approx((0.5, 20.0, 0.25, 0.0), abs=EXACT)
+    assert t.fsi_m4 == pytest.approx(6.0 * 4.0**3 / 12.0, abs=EXACT)
 
 
 def test_tank_fill_above_100_percent_is_refused():
@@ -164,6 +167,11 @@ def test_volume_of_each_quantity_and_its_refusals():
     assert volume_of(tank, "volume_m3", 0.0, 1.025) == 0.0
     assert volume_of(tank, "volume_m3", 0.5, 1.025) == 0.5
     assert volume_of(tank, "volume_m3", 48.0, 1.025) == 48.0
+    # capacity and the table's top may differ by round-off (the profile loader allows 0.05 %): a full
+    # tank is never asked of the table beyond its last row
+    wide = dataclasses.replace(tank, capacity_m3=48.02)
+    assert volume_of(wide, "volume_m3", 48.02, 1.025) == 48.0
+    assert volume_of(wide, "percent", 100.0, 1.025) == 48.0
     refusals = [
         ("sounding_m", 2.5, "tank DB1C: sounding 2.5 m is outside the calibration table 0–2 m; "
                             "deckload does not extrapolate"),

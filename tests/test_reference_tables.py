@@ -41,10 +41,13 @@ def test_spline_on_unequal_knots():
 
 
 def test_spline_of_several_columns_splines_each_column():
-    """A 2-D y is splined column by column on the same knots: the second column is twice the first."""
-    y = np.array([[0.0, 0.0], [1.0, 2.0], [0.0, 0.0]])
-    s = CubicSpline.fit(np.array([0.0, 1.0, 2.0]), y)
-    assert s(np.array([0.5]))[0].tolist() == pytest.approx([0.6875, 1.375], abs=EXACT)
+    """A 2-D y is splined column by column on the same (unequal) knots: the second column is twice the
+    first, so at 0.5, 2 and 3.5 it gives twice 0.640625, 0.5 and 0.359375 (module docstring)."""
+    y1 = np.array([0.0, 1.0, 0.0, 1.0])
+    s = CubicSpline.fit(np.array([0.0, 1.0, 3.0, 4.0]), np.column_stack([y1, 2.0 * y1]))
+    got = s(np.array([0.5, 2.0, 3.5]))
+    assert got[:, 0].tolist() == pytest.approx([0.640625, 0.5, 0.359375], abs=EXACT)
+    assert got[:, 1].tolist() == pytest.approx([1.28125, 1.0, 0.71875], abs=EXACT)
 
 
 def test_a_straight_line_is_its_own_spline():
@@ -67,3 +70,6 @@ def test_bracket_and_interp():
     assert str(e.value) == "draft 20.5 m is outside the table range 0–20 m; deckload does not extrapolate"
     with pytest.raises(OutOfRangeError):
         bracket(xs, float("nan"), "q")
+    with pytest.raises(OutOfRangeError) as e:  # no unit given: none printed
+        interp(xs, np.array([1.0, 3.0, 7.0]), 25.0, "ratio")
+    assert str(e.value) == "ratio 25 is outside the table range 0–20; deckload does not extrapolate"

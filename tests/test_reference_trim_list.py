@@ -201,3 +201,21 @@ def test_load_line_warning_with_fwa(density, extra_t, over):
     warned = any(w.code == "load-line" and w.severity == "danger" for w in r.warnings)
     assert warned is over
     assert r.draft_mean_m == pytest.approx(r.displacement_t / (density * 400.0), abs=1e-9)
+
+
+@pytest.mark.parametrize("list_deg, warned", [(1.5, False), (2.5, True)])
+def test_list_over_two_degrees_is_a_caution(list_deg, warned):
+    """deckload cautions the watchkeeper when she lists more than 2° (its own aid).  On the parallel-sided
+    vessel KN = KM·sinφ, so tanφ = TCG/GM exactly (checks.md §2.2 [A]): Δ 8000 t, KM 8.7, KG 7.6,
+    GM 1.1 m and TCG = 1.1·tan(list) to starboard."""
+    f = ParallelForm(displacement_t=8000.0, draft_m=7.0, lcb_m=60.0, lcf_m=60.0, kmt_m=8.7,
+                     tpc_t_cm=20.0, mctc_tm_cm=150.0, lbp_m=120.0)
+    tcg = 1.1 * math.tan(math.radians(list_deg))
+    v = parallel_sided_vessel(f, lightship=MassItem("Ship", 8000.0, 60.0, 7.6, tcg))
+    r = evaluate(v, Condition())
+    assert r.list_deg == pytest.approx(list_deg, abs=1e-5)  # the 0.1° grid crossing, as above
+    got = [w for w in r.warnings if w.code == "list"]
+    assert bool(got) is warned
+    if warned:
+        assert got[0].severity == "caution"
+        assert got[0].message == "list 2.5° to starboard exceeds 2°"

@@ -194,7 +194,9 @@ VOLUME_ROUNDING_REL = 0.0005
 
 
 def _f(x: float, unit: str = "m") -> str:
-    s = f"{x:.4g}" if abs(x) < 1000 else f"{x:.1f}"
+    # one decimal in the thousands (a displacement); beyond 1e6 no table of a ship holds the
+    # value, and fixed point would print hundreds of digits of a typing error: six significant
+    s = f"{x:.4g}" if abs(x) < 1000 else f"{x:.1f}" if abs(x) < 1e6 else f"{x:.6g}"
     return f"{s} {unit}" if unit else s
 
 

@@ -26,7 +26,7 @@ import math
 from dataclasses import dataclass
 
 from deckload.core.geometry.body import Body, immerse
-from deckload.core.loading import LoadingError
+from deckload.core.loading import LoadingError, level_of
 from deckload.core.model import SoundingPipe, Tank
 from deckload.core.tables import interp
 
@@ -91,7 +91,7 @@ def level_soundings(vessel, condition):
     corrected, uncorrected = [], []
     fills = []
     for f in condition.tanks:
-        if f.quantity != "sounding_m":
+        if f.quantity not in ("sounding_m", "ullage_m"):
             fills.append(f)
             continue
         body = vessel.tank_bodies.get(f.tank_id)
@@ -100,9 +100,15 @@ def level_soundings(vessel, condition):
             uncorrected.append(f.tank_id)
             fills.append(f)
             continue
-        cs = correct_sounding(vessel.tank(f.tank_id), body, pipe, f.value, trim, vessel.particulars.lbp_m, lst)
-        corrected.append(cs)
-        fills.append(TankFill(f.tank_id, "sounding_m", cs.even_keel_m, f.density_t_m3))
+        # A reading is from the tank's sounding zero (or down from its ullage reference): the
+        # correction works on the level above the tank's lowest point, and gives a reading back.
+        tank = vessel.tank(f.tank_id)
+        level = level_of(tank, f.quantity, f.value)
+        cs = correct_sounding(tank, body, pipe, level, trim, vessel.particulars.lbp_m, lst)
+        even = (cs.even_keel_m - tank.sounding_zero_m if f.quantity == "sounding_m"
+                else tank.ullage_reference_m - cs.even_keel_m)
+        corrected.append(CorrectedSounding(f.tank_id, f.value, even, cs.volume_m3))
+        fills.append(TankFill(f.tank_id, f.quantity, even, f.density_t_m3))
     return condition.replace(tanks=tuple(fills)), tuple(corrected), tuple(uncorrected)
 
 

@@ -47,7 +47,8 @@ class HullCompareScreen(ModalScreen[None]):
 
     def on_mount(self) -> None:
         if self._vessel.hull is None:
-            self._show(Text("The profile names no hull geometry (hull_geometry): only the tables are available.",
+            self._show(Text("The profile names no hull geometry (hull_geometry), or its file is not there: "
+                            "only the tables are available.",
                             P["dim"]))
             return
         self.run_worker(self._work, thread=True, exclusive=True, name="hull-compare")

@@ -417,7 +417,7 @@ class LoadingScreen(Screen[None]):
 
     def action_verdict(self) -> None:
         s = self.session
-        lines = verdict.verdict_page(None if s.stale else s.result, width=max(40, min(96, self.size.width - 6)))
+        lines = verdict.verdict_page(None if s.stale else s.result, width=max(40, min(94, self.size.width - 6)))  # .form.help 100 − border, padding, scrollbar
         title = "Verdict" + (" (last good result: the condition is outside the tables)" if s.stale else "")
         self.app.push_screen(TextScreen(title, lines))
 
