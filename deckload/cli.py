@@ -120,9 +120,32 @@ def _demo_shorthand(args: argparse.Namespace) -> str | None:
         if cond is not None and str(cond) in conditions:
             args.condition = conditions[str(cond)]
         elif cond is not None and not Path(cond).exists():
+            # 'working', a stock condition's name, or one saved on the screen (deckload.condition_files)
+            found = _resolve_name(args)
+            if isinstance(found, Path):
+                args.condition = found
+                return None
             return (f"{str(cond)!r} is neither a file nor a condition of the demo vessel {name!r}: "
-                    f"give one of {', '.join(conditions)}, or a condition file")
+                    f"give one of {', '.join(conditions)}, working, a saved condition's name, or a condition file"
+                    + (f"\n{found}" if found else ""))
     return None
+
+
+def _resolve_name(args: argparse.Namespace) -> Path | str | None:
+    """The file ``args.condition`` names (deckload.condition_files.resolve), else why not (None when
+    the profile itself cannot be read: the command reports that)."""
+    from deckload import paths
+    from deckload.condition_files import ConditionNotFound, resolve
+    from deckload.profiles import ProfileError, load_profile
+
+    try:
+        vessel = load_profile(args.profile)
+    except (ProfileError, OSError):
+        return None
+    try:
+        return resolve(Path(args.profile), str(args.condition), vessel.particulars.name, paths.working_dir())
+    except ConditionNotFound as exc:
+        return str(exc)
 
 
 def _named_condition(args: argparse.Namespace) -> str | None:
