@@ -121,6 +121,13 @@ def _audit(found) -> int:
     return 1 if errors else 0
 
 
+def _cell(x: float, sign: str = "") -> str:
+    """A number in the booklet comparison: four decimals, as the booklets print them; beyond
+    1e6 (a profile whose audit already failed: a KN of 1e300) six significant digits, so that
+    the row stays one line instead of three hundred digits."""
+    return f"{x:{sign}.4f}" if abs(x) < 1e6 else f"{x:{sign}.6g}"
+
+
 def _booklet(path: Path, vessel: m.Vessel) -> int:
     """Recompute the booklet's worked conditions and print them beside the booklet's results."""
     from deckload.booklet_conditions import load_booklet_conditions
@@ -153,12 +160,12 @@ def _booklet(path: Path, vessel: m.Vessel) -> int:
         print(f"    {'quantity':<27} {'booklet':>9} {'deckload':>9} {'difference':>10} {'tolerance':>13}  "
               f"{'rule (standards.md §5.3)':<38} result")
         for r in rows:
-            got = "—" if r.deckload is None else f"{r.deckload:.4f}"
-            diff = "—" if r.difference is None else f"{r.difference:+.4f}"
+            got = "—" if r.deckload is None else _cell(r.deckload)
+            diff = "—" if r.difference is None else _cell(r.difference, "+")
             label = f"{r.label} ({r.unit})"
             allowed = f"±{r.allowed:.3g} {r.unit}"
             verdict = "pass" if r.passed else "FAIL" + (f": {r.note}" if r.note else "")
-            print(f"    {label:<27} {r.booklet:>9.4f} {got:>9} {diff:>10} {allowed:>13}  {r.tolerance:<38} {verdict}")
+            print(f"    {label:<27} {_cell(r.booklet):>9} {got:>9} {diff:>10} {allowed:>13}  {r.tolerance:<38} {verdict}")
         failed = [r for r in rows if not r.passed]
         if failed:
             print(f"    FAIL: {_plural(len(failed), 'row')} outside tolerance: " + ", ".join(r.label for r in failed))

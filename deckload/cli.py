@@ -59,6 +59,7 @@ def _parser() -> argparse.ArgumentParser:
     fmt.add_argument("--html", action="store_true")
     fmt.add_argument("--txt", action="store_true")
     r.add_argument("-o", "--output", type=Path)
+    r.add_argument("--direct", action="store_true", help="add the direct calculation from the hull geometry")
 
     lg = sub.add_parser("log", help="the voyage loading log")
     lg.add_argument("--dir", type=Path, help="log folder (default: ./logs in a checkout, else per-user)")
@@ -101,16 +102,24 @@ def _reading(text: str) -> float:
     return x
 
 
-def _demo_shorthand(args: argparse.Namespace) -> None:
-    """Let 'demo' or 'trawler' stand for a packaged demo profile and a condition's key for its file."""
+def _demo_shorthand(args: argparse.Namespace) -> str | None:
+    """Let 'demo' or 'trawler' stand for a packaged demo profile and a condition's key for its file.
+
+    Returns a message when the condition is neither one of that demo's keys nor a file
+    ('deckload calc trawler light': 'light' is the other demo's), else None."""
     from deckload.paths import DEMO_VESSELS
 
     profile = getattr(args, "profile", None)
     if profile is not None and str(profile) in DEMO_VESSELS and not profile.is_file():
-        args.profile, conditions = DEMO_VESSELS[str(profile)]
+        name = str(profile)
+        args.profile, conditions = DEMO_VESSELS[name]
         cond = getattr(args, "condition", None)
         if cond is not None and str(cond) in conditions:
             args.condition = conditions[str(cond)]
+        elif cond is not None and not Path(cond).exists():
+            return (f"{str(cond)!r} is neither a file nor a condition of the demo vessel {name!r}: "
+                    f"give one of {', '.join(conditions)}, or a condition file")
+    return None
 
 
 def main(argv: list[str] | None = None) -> int:
@@ -142,7 +151,10 @@ def _files(args: argparse.Namespace) -> list[str]:
 
 def _main(argv: list[str] | None) -> int:
     args = _parser().parse_args(argv)
-    _demo_shorthand(args)
+    unknown = _demo_shorthand(args)
+    if unknown:
+        print(f"deckload: {unknown}", file=sys.stderr)
+        return 2
     cmd = args.command or "open"
     try:
         if cmd == "open":
@@ -178,7 +190,7 @@ def _main(argv: list[str] | None) -> int:
         if cmd == "report":
             from deckload.report import run_report
 
-            return run_report(args.profile, args.condition, html=not args.txt, output=args.output)
+            return run_report(args.profile, args.condition, html=not args.txt, output=args.output, direct=args.direct)
         if cmd == "log":
             from deckload.logbook_command import run_log
 

@@ -17,8 +17,9 @@ CAUTION = (
 
 def format_summary(r: Result) -> str:
     """A plain-text summary of a result, for the terminal."""
-    side = "stbd" if r.list_deg >= 0 else "port"
-    trim_word = "by the stern" if r.trim_m >= 0 else "by the head"
+    # below the last printed decimal the words of the report: upright, even keel (not "0.00° stbd")
+    side = "upright" if abs(r.list_deg) < 0.005 else "stbd" if r.list_deg > 0 else "port"
+    trim_word = "even keel" if abs(r.trim_m) < 0.0005 else "by the stern" if r.trim_m > 0 else "by the head"
     lines = [
         f"{r.vessel_name} — {r.condition_name}  (water {r.water_density_t_m3:.3f} t/m³)",
         "",

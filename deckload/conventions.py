@@ -135,7 +135,10 @@ def read_frame(t: Table, parent: Frame | None, *, sides: bool = False, drafts: b
 def _side_value(v, frame: Frame) -> tuple[float | None, str | None, bool]:
     """(y + starboard, problem, marked) for one TCG as written: a number or "1.20 P" / "1.20 S" / "CL"."""
     if is_number(v):
-        x = float(v)
+        try:
+            x = float(v)
+        except OverflowError:  # an integer too large for a float
+            x = math.inf
         if not math.isfinite(x):
             return None, "is not a finite number", False
         if frame.tcg_side is not None and x < 0:

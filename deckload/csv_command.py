@@ -97,6 +97,15 @@ def hold_rows(h: m.Hold, tr: TableReading) -> tuple[list[str], list[list]]:
     return list(cols), [[cols[k][i] for k in cols] for i in range(len(h.fill_pct))]
 
 
+def in_order(table: tuple[list[str], list[list]], tr: TableReading | None) -> tuple[list[str], list[list]]:
+    """The columns in the order of the CSV file the table was read from, where it was."""
+    header, rows = table
+    if tr is None or not tr.columns or sorted(tr.columns) != sorted(header):
+        return header, rows
+    idx = [header.index(c) for c in tr.columns]
+    return list(tr.columns), [[r[i] for i in idx] for r in rows]
+
+
 def profile_tables(v: m.Vessel, rd: Reading) -> list[tuple[str, str, str, list[str], list[list]]]:
     """(file name, what, key of its reading, header, rows) for every table of the profile that has rows."""
     out = []
@@ -122,12 +131,12 @@ def profile_tables(v: m.Vessel, rd: Reading) -> list[tuple[str, str, str, list[s
     return out
 
 
-def describe(tr: TableReading | None) -> str:
+def describe(tr: TableReading | None, key: str = "") -> str:
     if tr is None:
         return ""
     f = tr.frame
     bits = []
-    if not f.x_is_identity:
+    if not f.x_is_identity and tr.against == "displacement_t" and key not in ("limit_curve", "downflooding"):
         bits.append(f"x from {f.datum}, + {f.positive}")
     if tr.tcg_marked:
         bits.append("TCG marked P/S")
@@ -159,8 +168,9 @@ def run_csv(profile_path: Path, out_dir: Path) -> int:
     try:
         out_dir.mkdir(parents=True, exist_ok=True)
         for name, what, key, header, rows in profile_tables(vessel, rd):
+            header, rows = in_order((header, rows), rd.tables.get(key))
             write_csv(out_dir / name, header, rows)
-            print(f"wrote {out_dir / name}: {what}, {len(rows)} rows{describe(rd.tables.get(key))}")
+            print(f"wrote {out_dir / name}: {what}, {len(rows)} rows{describe(rd.tables.get(key), key)}")
     except BrokenPipeError:
         raise
     except OSError as e:

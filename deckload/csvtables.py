@@ -176,6 +176,7 @@ def attach_csv(t: Table, columns: tuple[str, ...]) -> bool:
             continue
         t.data[h] = [row[j] for row in c.rows]
         t.ctx.sources[t.raw + (h,)] = _locator(c, j)
+    t.ctx.csv_headers[t.raw] = list(c.header)
     return True
 
 

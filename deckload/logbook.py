@@ -659,6 +659,13 @@ class Logbook:
         last one changed) nothing is written: appending would overwrite that evidence.
         The log then stays read-only and the reason says what to do.
         """
+        from deckload.atomicfile import leftover_temp_files
+
+        for tmp in leftover_temp_files(self.path.parent):
+            # a head record or side file whose write was killed before its rename: under the
+            # writer's lock nobody else can be writing it, so the half copy goes
+            if tmp.name.startswith((f".{self.head_path.name}.", f".{self.path.name}.")):
+                tmp.unlink(missing_ok=True)
         created = not self.path.exists()
         self._fd = os.open(self.path, os.O_RDWR | os.O_APPEND | os.O_CREAT, 0o644)
         if created:

@@ -72,6 +72,10 @@ def check_vessel(ctx: FileCheck, v: m.Vessel) -> m.Vessel:
 
     ls = v.lightship
     c.one(("lightship", "mass_t"), "lightship.mass_t", ls.mass_t, b.lightship_mass_range(v))
+    # the items' mass range (table's greatest displacement less the lightship) and the default
+    # least operating displacement follow from the lightship: with it impossible they would
+    # only echo it ("between 0 and 0 t", a key the file does not hold)
+    ctx.fail_if_any()
     # Positions, hydrostatic rows, KN and tank tables of the profile are judged by the
     # plausibility audit (deckload.core.audit, on the same envelope), which every command
     # runs before it uses a profile (deckload.commands.load_and_evaluate, check, open).

@@ -79,6 +79,12 @@ CAPACITY_TOLERANCE = 0.0005
 more would misjudge the 98 % 'nominally full' line or ask the table for a volume it does not hold."""
 
 
+def _percent(x: float) -> str:
+    """A percentage in a message: two decimals, or six significant digits when a typing error
+    (a capacity of 1e300) would otherwise print hundreds of digits."""
+    return f"{x:.2f}" if abs(x) < 1e6 else num(x)
+
+
 # =========================================================================== vessel rules
 # (generic rules such as ``positive`` and ``between`` live in deckload.tomlcheck)
 
@@ -140,6 +146,8 @@ class TableReading:
     fsm_density_t_m3: float | None = None
     against: str = "displacement_t"
     """A curve tabulated against 'displacement_t' or 'draft_m'."""
+    columns: tuple[str, ...] = ()
+    """The CSV file's column order, to write the table back the same way (empty: our order)."""
 
 
 @dataclass
@@ -152,6 +160,10 @@ class Reading:
 
     def convert(self, where: str, keys: str, how: str) -> None:
         self.conversions.append(f"{where} {keys}: {how}")
+
+
+def _csv_columns(t: Table) -> tuple[str, ...]:
+    return tuple(t.ctx.csv_headers.get(t.raw, ()))
 
 
 def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | None" = None) -> m.Vessel:
@@ -184,7 +196,8 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     deck_edge = _read_deck_edge(root)
     passengers = _read_passengers(root, particulars, criteria)
     marks = _read_draft_marks(root, particulars, frame, rd)
-    hull = _read_hull_geometry(root, particulars, filename)
+    hull, tank_bodies = _read_hull_geometry(root, particulars, filename, rd)
+    pipes = _read_sounding_pipes(root, particulars, frame, rd)
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
     depth = particulars.depth_m if particulars is not None else math.inf
@@ -192,6 +205,8 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     holds = _read_holds(root, ids, frame, rd)
     areas = _read_deck_areas(root, ids, frame, rd)
     constants = _read_profile_constants(root, frame, rd)
+    if hull is not None:
+        _check_sounding_pipes(root, pipes, tanks, tank_bodies)
     # [[booklet_condition]]: the booklet's worked conditions, read and compared by `deckload check`
     # (deckload.booklet_conditions) once the vessel exists; not part of the model.
     root.get("booklet_condition", False)
@@ -219,6 +234,8 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
         assumptions=tuple(rd.assumptions),
         draft_marks=marks,
         hull=hull,
+        tank_bodies=tank_bodies,
+        sounding_pipes=pipes,
     ))
 
 
@@ -353,7 +370,7 @@ def _read_hydrostatics(root: Table, frame: Frame | None, rd: Reading) -> m.Hydro
     t.finish()
     if not t.same_length("draft_m", cols) or f is None:
         return None
-    rd.tables["hydrostatics"] = TableReading(f, csv=t.data.get("csv"))
+    rd.tables["hydrostatics"] = TableReading(f, csv=t.data.get("csv"), columns=_csv_columns(t))
     _note_frame(rd, "hydrostatics", f, "lcb_m, lcf_m", "", False)
     cols["lcb_m"] = f.x_to_ap(cols["lcb_m"])
     cols["lcf_m"] = f.x_to_ap(cols["lcf_m"])
@@ -695,7 +712,7 @@ def _read_limit_curve(root: Table, hydro, frame: Frame | None, rd: Reading) -> m
     t.finish()
     if not t.same_length(against, {against: disp, kind: values}) or f is None:
         return None
-    rd.tables["limit_curve"] = TableReading(f, csv=t.data.get("csv"), against=against)
+    rd.tables["limit_curve"] = TableReading(f, csv=t.data.get("csv"), against=against, columns=_csv_columns(t))
     return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(values), kind=kind)
 
 
@@ -728,7 +745,7 @@ def _read_downflooding(root: Table, hydro, frame: Frame | None, rd: Reading) -> 
     t.finish()
     if not t.same_length(against, {against: disp, "angle_deg": ang}) or f is None:
         return None
-    rd.tables["downflooding"] = TableReading(f, csv=t.data.get("csv"), against=against)
+    rd.tables["downflooding"] = TableReading(f, csv=t.data.get("csv"), against=against, columns=_csv_columns(t))
     return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(ang), kind="downflooding_deg")
 
 
@@ -737,33 +754,87 @@ HULL_MATCH_TOLERANCE = 0.001
 would give a 'second method' about another ship."""
 
 
-def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename: str):
+def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename: str, rd: Reading):
     """``hull_geometry``: the geometry file (path relative to the profile) whose hull the direct
-    calculation integrates.  Its problems are reported as the profile's, naming the file."""
+    calculation integrates and whose tank shapes correct soundings for trim and list.  Its
+    problems are reported as the profile's, naming the file.  Returns (hull body, tank bodies).
+
+    A file that is not there (a profile copied without it) is not an error of the profile,
+    whose tables stand on their own: the vessel then has no hull, the assumption says so, and
+    the direct calculation and trimmed-sounding corrections say so where they are asked for."""
     name = root.text("hull_geometry", required=False, default=None)
     if name is None:
-        return None
+        return None, {}
     from deckload.core.geometry.builder import hull_body
+    from deckload.core.geometry.hull import compartment_body
     from deckload.geometry_io import load_geometry
 
     path = Path(name)
     if not path.is_absolute():
         path = Path(filename).parent / path
     if not path.is_file():
-        root.bad("hull_geometry", name, f"no such geometry file ({path})")
-        return None
+        rd.assumptions.append(f"hull_geometry {name!r} not found ({path}): no direct calculation from the hull, "
+                              "soundings taken trimmed or listed are not corrected")
+        return None, {}
     try:
         geometry = load_geometry(path)
     except ProfileError as e:
         root.bad("hull_geometry", name, "the geometry file has problems: " + "; ".join(str(p) for p in e.problems))
-        return None
+        return None, {}
     if particulars is not None:
         for key, ours, theirs in (("lbp_m", particulars.lbp_m, geometry.vessel.lbp_m),
                                   ("breadth_m", particulars.breadth_m, geometry.vessel.breadth_m)):
             if abs(ours - theirs) > HULL_MATCH_TOLERANCE * ours:
                 root.bad("hull_geometry", name, f"its {key} {num(theirs)} m is not the profile's {num(ours)} m")
-                return None
-    return hull_body(geometry)
+                return None, {}
+    bodies = {t.id: compartment_body(t.shape, geometry.hull) for t in geometry.tanks}
+    return hull_body(geometry), bodies
+
+
+def _read_sounding_pipes(root: Table, particulars: m.Particulars | None, frame: Frame | None,
+                         rd: Reading) -> dict[str, m.SoundingPipe]:
+    """``[sounding_pipes]``: TANK_ID = { x_m, y_m }, where each tank's sounding is read.
+
+    x in the vessel's (or this table's) longitudinal convention, within 20 % of LBP of the
+    perpendiculars; y off the centreline (+ starboard), within half the breadth."""
+    t = root.table("sounding_pipes", required=False)
+    if t is None:
+        return {}
+    f = read_frame(t, frame)
+    out: dict[str, m.SoundingPipe] = {}
+    half_b = particulars.breadth_m / 2.0 if particulars is not None else math.inf
+    for ident in [k for k in t.data if k not in ("longitudinal_datum", "longitudinal_positive",
+                                                   "transverse_positive")]:
+        sub = t.table(ident)
+        if sub is None:
+            continue
+        x = _x(sub, "x_m", f)
+        y = sub.num("y_m", between(-half_b, half_b, "m", "within the breadth"))
+        sub.finish()
+        if x is not None and particulars is not None and not -0.2 * particulars.lbp_m <= x <= 1.2 * particulars.lbp_m:
+            sub.bad("x_m", sub.data["x_m"], f"is {num(x)} m from the AP: outside the vessel")
+            continue
+        if x is not None and y is not None:
+            out[ident] = m.SoundingPipe(x, y)
+    t.finish()
+    _note_frame(rd, t.name, f, "x_m", "", False)
+    return out
+
+
+def _check_sounding_pipes(root: Table, pipes: dict[str, m.SoundingPipe], tanks: list[m.Tank],
+                          bodies: dict[str, Any]) -> None:
+    """Every sounding pipe names a tank of the profile whose shape the hull geometry holds.
+
+    With no tanks read at all, the profile is refused for that (one problem), not once per pipe."""
+    if not tanks:
+        return
+    known = {tk.id for tk in tanks}
+    for ident in pipes:
+        if ident not in known:
+            root.bad("sounding_pipes", ident, "no tank with this id in the profile")
+        elif ident not in bodies:
+            root.bad("sounding_pipes", ident, "the hull geometry (hull_geometry) has no shape for this tank: "
+                     "a trimmed sounding cannot be corrected without it")
 
 
 def _read_draft_marks(root: Table, particulars: m.Particulars | None, frame: Frame | None,
@@ -953,7 +1024,7 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
     if not attach_csv(t, CAL_COLUMNS):
         return None
     f = read_frame(t, tank_frame, sides=True)
-    tr = TableReading(f or Frame(1.0), csv=t.data.get("csv"))
+    tr = TableReading(f or Frame(1.0), csv=t.data.get("csv"), columns=_csv_columns(t))
     levels_given = [k for k in ("sounding_m", "ullage_m") if t.has(k)]
     if len(levels_given) != 1:
         t.bad("sounding_m", MISSING if not levels_given else t.data["sounding_m"],
@@ -1091,7 +1162,7 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
         if abs(capacity - last) > CAPACITY_TOLERANCE * last:
             tank.bad("capacity_m3", tank.data["capacity_m3"],
                      f"differs from the last calibration volume {num(last)} m³ by "
-                     f"{100 * abs(capacity - last) / last:.2f} % (at most {100 * CAPACITY_TOLERANCE:g} % allowed)")
+                     f"{_percent(100 * abs(capacity - last) / last)} % (at most {100 * CAPACITY_TOLERANCE:g} % allowed)")
             return None
     if max_fsi is not None:
         kw["fsi_given"] = "max"
@@ -1170,7 +1241,7 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
         if cols.get("fill_lcg_m") is not None:
             cols["fill_lcg_m"] = f.x_to_ap(cols["fill_lcg_m"])
         if present:
-            rd.tables[t.name] = TableReading(f, csv=t.data.get("csv"))
+            rd.tables[t.name] = TableReading(f, csv=t.data.get("csv"), columns=_csv_columns(t))
         for k in fill_keys:
             kw[k] = m.frozen_array(cols[k]) if k in cols else None
         out.append(m.Hold(**kw))
@@ -1230,6 +1301,10 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
         head["load_line"] = c.text("load_line", required=False, default=default_mark, choices=marks or None)
         head["fs_rule"] = c.text("fs_rule", required=False, default=None, choices=("is2008", "actual"))
         head["gz_correction"] = c.text("gz_correction", required=False, default=None, choices=("constant", "transfer"))
+        lbp = vessel.particulars.lbp_m
+        head["sounding_trim_m"] = c.num("sounding_trim_m", between(-0.2 * lbp, 0.2 * lbp, "m", "a fifth of LBP either way"),
+                                        required=False, default=0.0)
+        head["sounding_list_deg"] = c.num("sounding_list_deg", between(-45.0, 45.0, "°"), required=False, default=0.0)
         c.finish()
 
     fills = _read_fills(root, vessel)
@@ -1390,6 +1465,10 @@ def condition_dict(c: m.Condition) -> dict:
         head["fs_rule"] = c.fs_rule
     if c.gz_correction is not None:
         head["gz_correction"] = c.gz_correction
+    if c.sounding_trim_m:
+        head["sounding_trim_m"] = float(c.sounding_trim_m)
+    if c.sounding_list_deg:
+        head["sounding_list_deg"] = float(c.sounding_list_deg)
     doc: dict[str, Any] = {"format": CONDITION_FORMAT, "condition": head}
     if c.tanks:
         doc["tanks"] = {}

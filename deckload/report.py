@@ -240,13 +240,13 @@ def _criteria(result: Result) -> Table:
     t = Table(box=box.SIMPLE, show_edge=False, pad_edge=False, padding=(0, 1), title_justify="left", title_style="bold",
               title=f"Intact stability criteria by set (GZ heeling to {result.criteria_side}; paragraphs of "
                     f"IS Code 2008 unless named)")
-    t.add_column("Criterion", no_wrap=True)
+    t.add_column("Criterion")  # the one column that wraps when the others need the room
     t.add_column("Value", justify="right", no_wrap=True)
     t.add_column("Limit", justify="right", no_wrap=True)
     t.add_column("Margin", justify="right", no_wrap=True)
     t.add_column("Unit", no_wrap=True)
     t.add_column("Result", no_wrap=True)
-    t.add_column("Paragraph")
+    t.add_column("Paragraph", no_wrap=True)
     for g in vf.grouped(result):
         head = Text(f"{vf.set_title(g.set.title)}: ", style="bold")
         head.append(g.word, style="bold red" if g.word == "NOT MET" else "bold")
@@ -265,9 +265,21 @@ def _criteria(result: Result) -> Table:
                 vf.margin_text(c),
                 c.unit,
                 verdict,
-                vf.paragraph(c),
+                vf.paragraph(c, short=True) + ("" if vf.paragraph(c, short=True) == vf.paragraph(c) else "†"),
             )
     return t
+
+
+def _paragraphs_in_full(result: Result) -> list[str]:
+    """Each paragraph the criteria table shortened ('B 2.1 †'), once, in full: the column is
+    too narrow for a remark such as '(from memory: Part A 2.2.1–2.2.3 applied, GM0 0.35 m)',
+    which it would cut or break word by word."""
+    out: list[str] = []
+    for c in result.criteria:
+        full = vf.paragraph(c)
+        if full != vf.paragraph(c, short=True) and full not in out:
+            out.append(full)
+    return out
 
 
 def _weather(result: Result) -> Table | None:
@@ -319,6 +331,9 @@ def _gz_table(result: Result) -> Table:
 
 def _closing(result: Result) -> Group:
     t = Text()
+    full = _paragraphs_in_full(result)
+    if full:
+        t.append("† in full: " + "; ".join(full) + "\n")
     for c in result.criteria:
         if c.note:
             t.append(f"* {c.description}: {c.note}\n")
@@ -347,6 +362,19 @@ def _closing(result: Result) -> Group:
 
 
 SIGNATORIES = ("Officer", "Master")
+
+
+def _direct(cmp) -> Table:
+    """The direct calculation from the hull beside the tables' figures (``report --direct``)."""
+    t = Table(title="Second method, from the hull itself (free trim and heel, actual G)",
+              caption="The criteria are judged on the tables.", title_justify="left", caption_justify="left",
+              box=None, padding=(0, 1))
+    for head, just in (("", "left"), ("tables", "right"), ("direct", "right"), ("difference", "right"), ("", "left")):
+        t.add_column(head, justify=just)
+    for name, unit, a, b in cmp.rows:
+        d = 2 if unit == "deg" else 4 if unit == "m·rad" else 3
+        t.add_row(name, f"{a:.{d}f}", f"{b:.{d}f}", f"{b - a:+.{d}f}", unit)
+    return t
 
 
 def _signatures_text() -> Text:
@@ -378,11 +406,15 @@ class _Parts:
     """The weather criterion's numbers, beside its diagram (None when it was not assessed)."""
 
 
-def _parts(result: Result, vessel: Vessel, condition: Condition, stamp: str | None, source: str | None) -> _Parts:
+def _parts(result: Result, vessel: Vessel, condition: Condition, stamp: str | None, source: str | None,
+           comparison=None) -> _Parts:
+    body = (_items(result, condition), _free_surface(result), _criteria(result))
+    if comparison is not None:
+        body += (_direct(comparison),)
     return _Parts(
         header=_header(result, vessel, condition, stamp, source),
         summary=_summary(result),
-        body=(_items(result, condition), _free_surface(result), _criteria(result)),
+        body=body,
         closing=_closing(result),
         weather=_weather(result),
     )
@@ -397,10 +429,12 @@ def _console(width: int = TEXT_WIDTH) -> Console:
 
 
 def render_report_text(
-    result: Result, vessel: Vessel, condition: Condition, *, stamp: str | None = None, source: str | None = None
+    result: Result, vessel: Vessel, condition: Condition, *, stamp: str | None = None, source: str | None = None,
+    comparison=None,
 ) -> str:
-    """The report as plain text, :data:`TEXT_WIDTH` characters wide."""
-    p = _parts(result, vessel, condition, stamp, source)
+    """The report as plain text, :data:`TEXT_WIDTH` characters wide; with ``comparison``
+    (:func:`deckload.core.equilibrium.compare`) the direct calculation is printed beside the tables."""
+    p = _parts(result, vessel, condition, stamp, source, comparison)
     con = _console()
     con.print(p.header)
     side = Table.grid(padding=(0, 6))
@@ -663,10 +697,11 @@ def html_fits_a4(html_text: str) -> bool:
 
 
 def render_report_html(
-    result: Result, vessel: Vessel, condition: Condition, *, stamp: str | None = None, source: str | None = None
+    result: Result, vessel: Vessel, condition: Condition, *, stamp: str | None = None, source: str | None = None,
+    comparison=None,
 ) -> str:
     """The report as one self-contained HTML page with print CSS for A4 portrait."""
-    p = _parts(result, vessel, condition, stamp, source)
+    p = _parts(result, vessel, condition, stamp, source, comparison)
     header, n_header = _export(p.header, TEXT_WIDTH)
     summary, n_summary = _export(p.summary, 52)
     body = [_export(b, TEXT_WIDTH) for b in p.body]
@@ -718,7 +753,8 @@ pre code {{ font-family: inherit; }}
         f'<pre class="header">{header}</pre>',
         f'<div class="row"><pre class="summary">{summary}</pre>{svg}</div>',
         *([f'<div class="row"><pre class="weather">{weather}</pre>{wx_svg}</div>'] if wx_svg is not None else []),
-        *(f'<pre class="{cls}">{b}</pre>' for cls, (b, _) in zip(("items", "free-surface", "criteria"), body)),
+        *(f'<pre class="{cls}">{b}</pre>' for cls, (b, _) in zip(("items", "free-surface", "criteria", "direct"),
+                                                                   body)),
         f'<pre class="closing">{closing}</pre>',
         _signatures_html(),
         "</div>",
@@ -741,7 +777,8 @@ def _log_anchor_text(vessel_name: str) -> str:
     return "" if a is None else f" · voyage log at entry #{a[0]}, SHA-256 {a[1][:16]}"
 
 
-def run_report(profile_path: Path, condition_path: Path, html: bool, output: Path | None) -> int:
+def run_report(profile_path: Path, condition_path: Path, html: bool, output: Path | None,
+               direct: bool = False) -> int:
     """``deckload report``: load, evaluate, render; write to ``output`` or print.
 
     Exit 0 when written (whether or not the criteria pass), 1 on bad input, 2 when a
@@ -754,14 +791,24 @@ def run_report(profile_path: Path, condition_path: Path, html: bool, output: Pat
     if isinstance(loaded, int):
         return loaded
     vessel, condition, result = loaded
+    comparison = None
+    if direct:
+        from deckload.core.equilibrium import DirectError, compare
+        from deckload.core.tables import OutOfRangeError
+
+        try:
+            comparison = compare(vessel, result)
+        except (DirectError, OutOfRangeError) as e:
+            print(f"{profile_path}: direct calculation: {e}", file=sys.stderr)
+            return 1
     stamp = clock_stamp()
     source = Path(condition_path).name + _log_anchor_text(vessel.particulars.name)
     if html:
-        doc = render_report_html(result, vessel, condition, stamp=stamp, source=source)
+        doc = render_report_html(result, vessel, condition, stamp=stamp, source=source, comparison=comparison)
         if not html_fits_a4(doc):
             print("deckload: note: this condition's report runs to more than one A4 page", file=sys.stderr)
     else:
-        doc = render_report_text(result, vessel, condition, stamp=stamp, source=source)
+        doc = render_report_text(result, vessel, condition, stamp=stamp, source=source, comparison=comparison)
     if output is None:
         sys.stdout.write(doc)
         return 0

@@ -46,7 +46,7 @@ PROFILE_FORMAT = "deckload-profile-1"
 
 TOP_ORDER = (
     "format", "vessel", "lightship", "hydrostatics", "cross_curves", "free_surface", "criteria",
-    "load_line", "draft_marks", "limit_curve", "downflooding", "deck_edge", "windage", "passengers",
+    "load_line", "draft_marks", "sounding_pipes", "limit_curve", "downflooding", "deck_edge", "windage", "passengers",
     "extra_criterion", "tank", "hold", "deck_area",
 )
 """Order of the top-level sections in a written profile; unknown keys follow in their own order."""

@@ -387,6 +387,8 @@ class FileCheck:
         """Keys whose values came from another file (a CSV table): key path → locator.
         A locator maps the element path within the key ((row,) or (row, column)) to
         (file, line, column label, the cell as written) for the problem report."""
+        self.csv_headers: dict[tuple, list[str]] = {}
+        """Table path → the header of the CSV file it was read from (column order, for writing back)."""
         self.unread_csv: set[tuple] = set()
         """Tables whose CSV file could not be read: their missing columns are not reported again."""
 

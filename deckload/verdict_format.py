@@ -125,8 +125,19 @@ def digits(unit: str, limit: float = 1.0) -> int:
     return 4 if 0 < abs(limit) < 0.01 else 3
 
 
+MAX_DIGITS = 5
+"""At most five decimals (0.00001 m·rad, m): finer than any table a criterion is judged from."""
+
+
 def digits_of(c: CriterionResult) -> int:
-    return digits(c.unit, c.limit)
+    """Decimals for ``c``'s value, limit and margin: :func:`digits`, and more while a non-zero
+    margin would round to zero (up to :data:`MAX_DIGITS`), so that a failed criterion never
+    reads "0.064 ≥ 0.064, margin -0.000, FAIL" (area b 0.0638 against area a 0.0640)."""
+    d = digits(c.unit, c.limit)
+    margin = c.margin if c.assessed and math.isfinite(c.value) else 0.0
+    while d < MAX_DIGITS and math.isfinite(margin) and margin != 0.0 and round(abs(margin), d) == 0.0:
+        d += 1
+    return d
 
 
 def value_text(c: CriterionResult, width: int = 0) -> str:

@@ -726,3 +726,57 @@ def test_a_condition_stated_by_ullage_is_saved_and_read_back_unchanged(tmp_path)
     assert "ullage_m = 0.7" in dump_condition(c)
     save_condition(tmp_path / "u.condition.toml", c)
     assert load_condition(tmp_path / "u.condition.toml", v) == c
+
+
+def test_the_demo_trawlers_csv_tables_come_back_as_typed(tmp_path, capsys):
+    """Every CSV table of the demo trawler (typed from its invented booklet: midships datum, P/S marks,
+    ullage, t·m, extreme drafts, against draft), read and written back by `deckload csv`: the same
+    header in the same order, and the same numbers, row by row."""
+    from deckload.csv_command import profile_tables
+    from deckload.profiles import read_profile
+
+    profile = HERE.parent / "vessel_profiles" / "demo_trawler.toml"
+    _, rd = read_profile(profile)
+    assert main(["csv", str(profile), str(tmp_path)]) == 0
+    capsys.readouterr()
+    vessel, _ = read_profile(profile)
+    compared = 0
+    for name, _what, key, _h, _r in profile_tables(vessel, rd):
+        tr = rd.tables[key]
+        if not tr.csv:
+            continue
+        a, b = _cells(tmp_path / name), _cells(profile.parent / tr.csv)
+        assert [h.strip() for h in a[0]] == [h.strip() for h in b[0]], name
+        assert len(a) == len(b), name
+        for ra, rb in zip(a[1:], b[1:]):
+            assert all(_same(x.strip(), y.strip()) for x, y in zip(ra, rb)), (name, ra, rb)
+        compared += 1
+    assert compared >= 10  # hydrostatics, KN, downflooding, the hold's fill table and the tanks
+
+
+def test_an_ullage_or_an_offset_sounding_taken_trimmed_is_corrected_on_the_level():
+    """Demo tank DB2P sounded 1 m by the stern (core/soundings.py).  The correction works on the level
+    above the tank's lowest point, so (derived, level = sounding + zero = reference − ullage):
+    an ullage 0.7 m from a reference 1.2 m up, and a sounding 0.4 m from a zero 0.1 m up, both hold
+    the volume of a 0.5 m sounding from the bottom, read at the same pipe."""
+    import dataclasses
+
+    from deckload.paths import DEMO_PROFILE
+
+    demo = load_profile(DEMO_PROFILE)
+
+    def with_tank(**kw):
+        tanks = tuple(dataclasses.replace(t, **kw) if t.id == "DB2P" else t for t in demo.tanks)
+        return dataclasses.replace(demo, tanks=tanks)
+
+    def volume(v, fill):
+        r = evaluate(v, m.Condition(tanks=(fill,), sounding_trim_m=1.0))
+        return next(t for t in r.tanks if t.id == "DB2P").volume_m3
+
+    plain = volume(demo, m.TankFill("DB2P", "sounding_m", 0.5))
+    by_ullage = volume(with_tank(ullage_reference_m=1.2), m.TankFill("DB2P", "ullage_m", 0.7))
+    by_offset = volume(with_tank(sounding_zero_m=0.1), m.TankFill("DB2P", "sounding_m", 0.4))
+    even = evaluate(demo, m.Condition(tanks=(m.TankFill("DB2P", "sounding_m", 0.5),)))
+    assert plain != next(t for t in even.tanks if t.id == "DB2P").volume_m3  # the trim does change it
+    # 0.7 = 1.2 − 0.5 and 0.4 = 0.5 − 0.1 in binary only to round-off: 1e-9 relative
+    assert by_ullage == pytest.approx(plain, rel=1e-9) and by_offset == pytest.approx(plain, rel=1e-9)

@@ -4,8 +4,8 @@ her stability booklet: tables in CSV files, positions from midships, extreme dra
 tank, constants in the profile, and the booklet's own worked conditions.
 
 Her booklet was invented from ``vessel_profiles/demo_trawler.geometry.toml`` by
-``tools/demo_trawler_booklet.py``; the booklet's printed results of its worked conditions were
-computed by ``tools/demo_trawler_booklet_conditions.py`` with trimesh (a general-purpose mesh
+``tests/tools/demo_trawler_booklet.py``; the booklet's printed results of its worked conditions were
+computed by ``tests/tools/demo_trawler_booklet_conditions.py`` with trimesh (a general-purpose mesh
 library) on the hull offsets — not from deckload's tables — so the acceptance test below is a
 comparison with an independent reference, within the MSC.1/Circ.1229 / IACS UR L5 tolerances
 (standards.md §5.3).
@@ -34,8 +34,8 @@ CONDITIONS = ("departure", "grounds", "arrival")
 
 
 def _tool(name: str):
-    """A script of tools/ as a module (tools/ is not a package)."""
-    spec = importlib.util.spec_from_file_location(name, ROOT / "tools" / f"{name}.py")
+    """A script of tests/tools/ as a module (tests/tools/ is not a package)."""
+    spec = importlib.util.spec_from_file_location(name, ROOT / "tests" / "tools" / f"{name}.py")
     mod = importlib.util.module_from_spec(spec)
     spec.loader.exec_module(mod)
     return mod
@@ -123,6 +123,8 @@ def test_the_three_conditions_meet_the_criteria_and_are_what_they_say(trawler):
         # the weather criterion is assessed on a GZ curve that stops at 60° (it used to crash there)
         assert {"IS2008-A2.3-theta0", "IS2008-A2.3-area-b-a"} <= {c.id for c in r.criteria}, name
         assert not [w for w in r.warnings if w.severity == "danger"], name
+        # every deck item states what it adds to the windage (the drum shows above the bulwark)
+        assert not [w.message for w in r.warnings if "no windage given" in w.message], name
         summer = next(ll for ll in vessel.load_lines if ll.name == "summer")
         assert r.draft_mean_m < summer.draft_m, name
     fill = {k: {t.id: t.fill_pct for t in r.tanks} for k, r in results.items()}
@@ -162,7 +164,7 @@ def test_check_passes_on_the_trawler_with_its_booklet_conditions(capsys):
 
 def test_booklet_results_are_reproduced_by_the_trimesh_script():
     """The printed booklet results of condition 2 (on the grounds) are what
-    tools/demo_trawler_booklet_conditions.py makes now from the condition file and the hull
+    tests/tools/demo_trawler_booklet_conditions.py makes now from the condition file and the hull
     offsets (trimesh): Δ, LCG, KG, FSM, the free-trim drafts and GZ at 30°, to half a unit of the
     last printed decimal.  (All 23 rows of all three conditions take a minute: run the script.)"""
     pytest.importorskip("trimesh")

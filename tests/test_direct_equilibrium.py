@@ -245,7 +245,11 @@ def test_calc_direct_prints_both_methods(capsys, tmp_path):
     doc = json.loads(capsys.readouterr().out)
     assert len(doc["direct"]["gz_m"]) == 91 and doc["direct"]["rows"][0]["quantity"] == "Draft aft"
     # a profile without hull geometry: a clear message, no traceback
+    import re
+
     text = DEMO_PROFILE.read_text(encoding="utf-8").replace('hull_geometry = "demo_islander.geometry.toml"\n', "")
+    # the sounding pipes need the tank shapes of the same geometry: they go with it
+    text = re.sub(r"\[sounding_pipes[^\n]*\n(?:(?!\[(?!sounding_pipes))[^\n]*\n)*", "", text)
     prof = tmp_path / "nohull.toml"
     prof.write_text(text, encoding="utf-8")
     from deckload.paths import DEMO_CONDITIONS
@@ -262,8 +266,10 @@ def test_profile_hull_geometry_key_is_checked(tmp_path):
     p = tmp_path / "p.toml"
     p.write_text(text.replace('hull_geometry = "demo_islander.geometry.toml"', 'hull_geometry = "missing.toml"'),
                  encoding="utf-8")
-    with pytest.raises(ProfileError, match="hull_geometry.*no such geometry file"):
-        load_profile(p)
+    # a profile copied without its geometry still loads on its tables; the assumption says what is lost
+    v = load_profile(p)
+    assert v.hull is None and v.tank_bodies == {}
+    assert any("hull_geometry 'missing.toml' not found" in a for a in v.assumptions)
     geo = (DEMO_PROFILE.parent / "demo_islander.geometry.toml").read_text(encoding="utf-8")
     (tmp_path / "demo_islander.geometry.toml").write_text(geo.replace("breadth_m = 10.0", "breadth_m = 10.5"),
                                                           encoding="utf-8")
@@ -279,3 +285,18 @@ def test_packaged_geometry_is_the_committed_one():
     root = Path(__file__).resolve().parent.parent
     assert (root / "deckload" / "data" / "demo_islander.geometry.toml").read_bytes() == \
         (root / "vessel_profiles" / "demo_islander.geometry.toml").read_bytes()
+
+
+def test_report_direct_adds_the_second_method(capsys):
+    """`deckload report --direct`: the side-by-side block is in the text and the HTML; the booklet
+    caution still closes the page; without --direct nothing of it appears."""
+    from deckload.cli import main
+
+    assert main(["report", "demo", "departure", "--txt", "--direct"]) == 0
+    out = capsys.readouterr().out
+    assert "Second method, from the hull itself" in out and "The criteria are judged on the tables." in out
+    assert out.index("Second method") < out.index("never replaces")
+    assert main(["report", "demo", "departure", "--html", "--direct"]) == 0
+    assert '<pre class="direct">' in capsys.readouterr().out
+    assert main(["report", "demo", "departure", "--txt"]) == 0
+    assert "Second method" not in capsys.readouterr().out

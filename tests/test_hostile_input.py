@@ -9,6 +9,7 @@ table to 1147.19 t and 3.9 m.
 from __future__ import annotations
 
 import dataclasses
+from pathlib import Path
 import json
 import math
 
@@ -21,10 +22,7 @@ from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
 from deckload.profiles import ProfileError, load_condition, load_profile, parse_condition, parse_profile
 
 DEPARTURE = DEMO_CONDITIONS["departure"].read_text(encoding="utf-8")
-# Without its hull-geometry line: these tests write or parse the text away from the geometry file
-# it names, and what they check is not the second (direct) method.
-PROFILE_TEXT = "".join(ln for ln in DEMO_PROFILE.read_text(encoding="utf-8").splitlines(keepends=True)
-                       if not ln.startswith("hull_geometry"))
+PROFILE_TEXT = DEMO_PROFILE.read_text(encoding="utf-8")
 
 
 @pytest.fixture(scope="module")
@@ -37,6 +35,15 @@ EMPTY = 'format = "deckload-condition-1"\n[condition]\nname = "empty"\nwater_den
 
 def with_item(lcg: str, mass: str = "10.0", vcg: str = "5.0", group: str = "deck_item", base: str = DEPARTURE) -> str:
     return base + f'\n[[{group}]]\nname = "far"\nmass_t = {mass}\nlcg_m = {lcg}\nvcg_m = {vcg}\n'
+
+
+def with_demo_geometry(folder):
+    """``folder`` with the files the demo profile names beside it (its hull geometry)."""
+    import shutil
+
+    for f in DEMO_PROFILE.parent.glob("*.geometry.toml"):
+        shutil.copy(f, folder)
+    return folder
 
 
 def problems_of(text: str, vessel) -> list:
@@ -114,7 +121,7 @@ def test_json_output_is_strict(capsys):
 def test_profile_values_beyond_the_vessels_physics_are_refused(old, new, key):
     assert old in PROFILE_TEXT
     with pytest.raises(ProfileError) as ei:
-        parse_profile(PROFILE_TEXT.replace(old, new, 1), "p.toml")
+        parse_profile(PROFILE_TEXT.replace(old, new, 1), str(DEMO_PROFILE))
     assert key in [p.key for p in ei.value.problems]
 
 
@@ -124,7 +131,7 @@ def test_profile_values_beyond_the_vessels_physics_are_refused(old, new, key):
 ])
 def test_calc_refuses_a_profile_the_audit_finds_impossible(tmp_path, capsys, old, new, key):
     """Profile tables are judged by the plausibility audit, now before every command uses them."""
-    f = tmp_path / "p.toml"
+    f = with_demo_geometry(tmp_path) / "p.toml"
     f.write_text(PROFILE_TEXT.replace(old, new, 1), encoding="utf-8")
     cond = tmp_path / "c.toml"
     cond.write_text(DEPARTURE, encoding="utf-8")
@@ -163,12 +170,12 @@ def test_the_demo_profile_cut_before_its_first_tank_is_refused_for_having_no_tan
     lines = PROFILE_TEXT.splitlines(keepends=True)
     cut = "".join(lines[: lines.index("[[tank]]\n")])
     with pytest.raises(ProfileError) as ei:
-        parse_profile(cut, "cut.toml")
+        parse_profile(cut, str(DEMO_PROFILE))
     assert any(p.key == "tank" and "no [[tank]] sections" in p.rule for p in ei.value.problems)
 
 
 def test_check_says_what_is_missing_for_a_profile_cut_before_its_cross_curves(tmp_path, capsys):
-    cut = tmp_path / "cut.toml"
+    cut = with_demo_geometry(tmp_path) / "cut.toml"
     lines = PROFILE_TEXT.splitlines(keepends=True)
     cut.write_text("".join(lines[: lines.index("[cross_curves]\n")]), encoding="utf-8")
     assert main(["check", str(cut)]) == 1
@@ -179,7 +186,7 @@ def test_check_says_what_is_missing_for_a_profile_cut_before_its_cross_curves(tm
 def test_a_hydrostatic_table_that_stops_below_the_design_draft_is_refused():
     text = PROFILE_TEXT.replace("design_draft_m = 2.9", "design_draft_m = 4.2")
     with pytest.raises(ProfileError) as ei:
-        parse_profile(text, "p.toml")
+        parse_profile(text, str(DEMO_PROFILE))
     assert any(p.key == "hydrostatics.draft_m" and "design draft" in p.rule for p in ei.value.problems)
 
 
@@ -199,7 +206,7 @@ def test_a_huge_table_is_refused_quickly_with_the_limit_named(vessel, tmp_path):
     rows = ", ".join(["1.0"] * (MAX_TABLE_VALUES + 1))
     text = PROFILE_TEXT.replace("heel_deg = [\n", f"heel_deg = [{rows}, \n", 1)
     with pytest.raises(ProfileError, match=f"more than the {MAX_TABLE_VALUES} allowed"):
-        parse_profile(text, "p.toml")
+        parse_profile(text, str(DEMO_PROFILE))
 
 
 def test_a_device_named_as_a_profile_is_not_read_endlessly():
@@ -225,3 +232,27 @@ def test_hostile_csv_tables_are_problems(tmp_path, hostile, rule):
     with pytest.raises(ProfileError) as ei:
         load_profile(profile)
     assert any(rule in p.rule for p in ei.value.problems), ei.value
+
+
+# ------------------------------------------------------------------ found by the long fuzz run
+
+
+BARGE = (Path(__file__).parent / "broken_profiles" / "box_barge.toml").read_text(encoding="utf-8")
+
+
+def test_a_400_digit_tcg_is_a_problem_not_an_overflow():
+    """Found by tests/fuzz_by_hand.py: the TCG reader (port/starboard marks) converted it with float()."""
+    text = BARGE.replace("lcg_m = 20.0\nvcg_m = 2.5\ntcg_m = 0.0", "lcg_m = 20.0\nvcg_m = 2.5\ntcg_m = 1" + "0" * 400, 1)
+    assert text != BARGE
+    with pytest.raises(ProfileError) as ei:
+        parse_profile(text, "p.toml")
+    assert any(p.key == "lightship.tcg_m" and "finite" in p.rule for p in ei.value.problems)
+
+
+def test_a_hydrostatic_row_of_zero_displacement_does_not_break_the_audit():
+    """Found by tests/fuzz_by_hand.py: the audit's MCTC check divided by Δ = 0."""
+    from deckload.core.audit import audit
+
+    text = BARGE.replace("draft_m = [0.5, 1.0,", "draft_m = [0.0, 1.0,", 1).replace(
+        "displacement_t = [205.0, 410.0,", "displacement_t = [0.0, 410.0,", 1)
+    audit(parse_profile(text, "p.toml"))  # findings, not an exception

@@ -154,3 +154,16 @@ async def test_the_status_line_never_says_saved_when_the_save_failed(tmp_path):
         await pilot.pause(0.3)
         text = " ".join(t.plain for t in app.loading_screen.query_one("#status").lines)
         assert "NOT SAVED" in text and "No space left on device" in text
+
+
+def test_a_head_record_write_killed_before_its_rename_leaves_no_temp_file(tmp_path):
+    """A kill between writing the head's temporary copy and renaming it: cleaned at the next open."""
+    with Logbook.open(tmp_path, "Demo Islander") as book:
+        head = book.head_path
+    left = tmp_path / f".{head.name}.k1ll3d.tmp"
+    left.write_text('{"format": "deckload-log-head-1", "seq": 9')
+    other = tmp_path / ".someone-elses.toml.abc.tmp"
+    other.write_text("x")
+    with Logbook.open(tmp_path, "Demo Islander"):
+        pass
+    assert not left.exists() and other.exists()

@@ -209,7 +209,7 @@ def test_check_summary_names_the_sets(capsys):
     assert "criteria met: 8 of 8" in out
     flat = " ".join(out.split())
     assert "Met: IS Code 2008 Part A 2.2 general criteria, IS Code 2008 Part A 2.3 weather criterion." in flat
-    assert "Not assessed: damage stability (not computed by deckload)" in flat
+    assert re.search(r"Not assessed: damage stability[^;]*\(not computed by deckload\)", flat)
 
 
 # --------------------------------------------------------------------------- stored log summaries
@@ -246,3 +246,21 @@ def test_wind_plot_without_a_curve_says_what_the_assessed_criterion_found():
     text = " ".join(" ".join(t.plain for t in weather_missing(r, 54)).split())
     assert "No plot" in text and "FAIL Weather: area b at least area a: GZ never reaches lw2 = 0.2000 m" in text
     assert "not assessed" not in text
+
+
+def test_the_verdict_names_a_shared_reason_once():
+    """Things deckload never computes share one reason: the sentence names them together."""
+    import dataclasses
+
+    from deckload.core.result import NotAssessed
+    from deckload.core.stability import evaluate
+
+    v = load_profile(paths.DEMO_PROFILE)
+    base = evaluate(v, load_condition(paths.DEMO_CONDITIONS["departure"], v))
+    out = dataclasses.replace(base, not_assessed=(
+        NotAssessed("damage stability", "not computed by deckload"),
+        NotAssessed("weather criterion", "the profile has no windage data"),
+        NotAssessed("icing", "not computed by deckload"),
+    )).verdict_text()
+    assert out.endswith("Not assessed: damage stability, icing (not computed by deckload); "
+                        "weather criterion (the profile has no windage data).")

@@ -194,7 +194,9 @@ VOLUME_ROUNDING_REL = 0.0005
 
 
 def _f(x: float, unit: str = "m") -> str:
-    s = f"{x:.4g}" if abs(x) < 1000 else f"{x:.1f}"
+    # one decimal in the thousands (a displacement); beyond 1e6 no table of a ship holds the
+    # value, and fixed point would print hundreds of digits of a typing error: six significant
+    s = f"{x:.4g}" if abs(x) < 1000 else f"{x:.1f}" if abs(x) < 1e6 else f"{x:.6g}"
     return f"{s} {unit}" if unit else s
 
 
@@ -531,6 +533,8 @@ class _Audit:
                 self.add(ERROR, "hydrostatics.kml_m", hp + ("kml_m", i), _f(float(h.kml_m[i])),
                          "KML is not above the centre of buoyancy", row(i), "hydro-mctc")
                 break
+            if float(h.displacement_t[i]) <= 0.0:
+                continue  # an empty row (Δ = 0, a draft of 0): no MCTC to compare
             ratio = 100.0 * L * float(h.mctc_tm_cm[i]) / (float(h.displacement_t[i]) * bml)
             sev = ERROR if not elo <= ratio <= ehi else WARNING if not wlo <= ratio <= whi else None
             if sev:

@@ -146,7 +146,8 @@ def compare(vessel, result) -> Comparison:
     two curves differ only by what the tables and the hull say about the immersed volume.
     """
     if vessel.hull is None:
-        raise DirectError("the profile names no hull_geometry: the direct calculation needs the hull")
+        raise DirectError("the profile names no hull_geometry (or its file is not there): "
+                          "the direct calculation needs the hull")
     d = direct_state(vessel.hull, vessel.particulars.lbp_m, result.displacement_t, result.water_density_t_m3,
                      result.lcg_m, result.kg_fluid_m, result.tcg_m)
     rho_ratio = result.water_density_t_m3 / vessel.particulars.table_density_t_m3

@@ -362,6 +362,16 @@ class Windage:
 
 
 @dataclass(frozen=True)
+class SoundingPipe:
+    """Where a tank's sounding is read (the pipe's foot), for soundings taken trimmed or listed."""
+
+    x_m: float
+    """From AP, + forward (m)."""
+    y_m: float
+    """From the centreline, + starboard (m)."""
+
+
+@dataclass(frozen=True)
 class DraftMark:
     """Where one set of draft marks is cut in the shell, port and starboard alike."""
 
@@ -452,6 +462,10 @@ class Vessel:
     hull: "Body | None" = None
     """The hull as sections (from the geometry file named by ``hull_geometry``), for the direct
     calculation beside the tables; None when the profile names no geometry."""
+    tank_bodies: dict[str, "Body"] = field(default_factory=dict, repr=False, compare=False)
+    """Tank shapes by tank id, from the same geometry file (those it defines)."""
+    sounding_pipes: dict[str, SoundingPipe] = field(default_factory=dict, compare=False)
+    """Sounding pipe of a tank by id, from ``[sounding_pipes]``."""
     tank_index: dict[str, int] = field(init=False, repr=False, compare=False)
     hold_index: dict[str, int] = field(init=False, repr=False, compare=False)
     area_index: dict[str, int] = field(init=False, repr=False, compare=False)
@@ -545,6 +559,10 @@ class Condition:
     """GZ correction method for this condition; the profile's default when None."""
     load_line: str = "summer"
     """Which load-line mark governs the draft check."""
+    sounding_trim_m: float = 0.0
+    """Trim (m, + by the stern) she had when the soundings were taken; 0 = even keel."""
+    sounding_list_deg: float = 0.0
+    """List (deg, + starboard) she had when the soundings were taken; 0 = upright."""
 
     def tank_fill(self, tank_id: str) -> TankFill | None:
         for f in self.tanks:

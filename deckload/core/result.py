@@ -257,7 +257,11 @@ class Result:
         else:
             head = f"Met: {names}."
         if self.not_assessed:
-            head += " Not assessed: " + "; ".join(f"{n.item} ({n.reason})" for n in self.not_assessed) + "."
+            # Items that share a reason are named together, the reason once (order kept).
+            by_reason: dict[str, list[str]] = {}
+            for n in self.not_assessed:
+                by_reason.setdefault(n.reason, []).append(n.item)
+            head += " Not assessed: " + "; ".join(f"{', '.join(items)} ({why})" for why, items in by_reason.items()) + "."
         return head
 
     @property

@@ -37,6 +37,7 @@ from deckload.core.model import Condition, Vessel, effective_constants
 from deckload.core.result import ItemResult, Result, TankResult, Warning
 from deckload.core.tables import OutOfRangeError, bracket, interp, lerp_row
 from deckload.core.verdict import Afloat, assess, deck_edge_angle
+from deckload.core.soundings import level_soundings, sounding_note
 from deckload.core.trim import BASIS_TABLE, even_keel_note, kn_reference_note, trim_moment
 
 LIST_WARNING_DEG = 2.0
@@ -85,7 +86,9 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
     correction = condition.gz_correction or vessel.free_surface.gz_correction
 
     items = _items(vessel, condition)
-    contents = resolve_tanks(vessel, condition)
+    # soundings taken trimmed or listed → the even-keel soundings of the same volumes (core/soundings.py)
+    levelled, s_done, s_not = level_soundings(vessel, condition)
+    contents = resolve_tanks(vessel, levelled)
     w = sum_weights(items, contents)
     disp = w.mass_t
 
@@ -111,7 +114,7 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
     fine_deg, fine_rad = gzmod.FINE_DEG[:n_grid], gzmod.FINE_RAD[:n_grid]
     sin, cos = gzmod.SIN[:n_grid], gzmod.COS[:n_grid]
     gz_end = float(fine_deg[-1])
-    warnings: list[Warning] = []
+    warnings: list[Warning] = [Warning(code, msg, "caution") for code, msg in sounding_note(condition, s_done, s_not)]
     trim_note = even_keel_note(trim, lbp)
     if trim_note is not None:
         warnings.append(Warning("trim-beyond-tables", trim_note, "caution"))

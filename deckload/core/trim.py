@@ -66,7 +66,7 @@ def trim_moment(vessel: Vessel, hy: Upright, displacement_t: float, kg_fluid_m: 
         return TrimMoment(hy.mctc_tm_cm, BASIS_TABLE, None, None)
     gml = kml - kg_fluid_m
     if not gml > 0.0:
-        raise TrimError(f"KG fluid {kg_fluid_m:.3f} m is not below KML {kml:.3f} m: "
+        raise TrimError(f"KG fluid {kg_fluid_m:.6g} m is not below KML {kml:.3f} m: "
                         "no longitudinal stability, no trim can be computed")
     mctc = displacement_t * gml / (100.0 * vessel.particulars.lbp_m)
     return TrimMoment(mctc, BASIS_GML, kml, gml)

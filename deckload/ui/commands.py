@@ -61,6 +61,9 @@ COMMANDS: tuple[Command, ...] = (
             footer=False, title="GZ correction method"),
     Command("toggle_gz", "g", "GZ", "Show the GZ curve or the numbers (only below 110 columns, where both do not fit).",
             title="GZ curve or numbers"),
+    Command("compare_hull", "h", "Hull", "Compute the condition from the hull geometry itself (free in trim and heel, "
+            "for the actual G) and show it beside the tables' figures, with the difference; the screen stays live.",
+            footer=False, title="Compare with the hull"),
     Command("wind_plot", "b", "Wind", "Show the weather criterion (IS Code 2008 Part A 2.3) on the curve: GZ with the "
             "steady and gust wind levers lw1 and lw2, the angles θ0, θ1 and θ2, and the areas a and b; again for the "
             "plain GZ curve.", footer=False, title="Wind and roll plot"),

@@ -370,7 +370,7 @@ class LoadingScreen(Screen[None]):
 
     def action_verdict(self) -> None:
         s = self.session
-        lines = verdict.verdict_page(None if s.stale else s.result, width=max(40, min(96, self.size.width - 6)))
+        lines = verdict.verdict_page(None if s.stale else s.result, width=max(40, min(94, self.size.width - 6)))  # .form.help 100 − border, padding, scrollbar
         title = "Verdict" + (" (last good result: the condition is outside the tables)" if s.stale else "")
         self.app.push_screen(TextScreen(title, lines))
 
@@ -417,6 +417,15 @@ class LoadingScreen(Screen[None]):
         s = self.session
         every = views.alerts(s.result, s.stale, s.problem)
         self.app.push_screen(TextScreen("Warnings", alert_lines(every, len(every) + 1)))
+
+    def action_compare_hull(self) -> None:
+        from deckload.ui.hull_compare import HullCompareScreen
+
+        s = self.session
+        if s.result is None or s.stale:
+            self.notify("No current result to compare: fix the condition first.", severity="warning")
+            return
+        self.app.push_screen(HullCompareScreen(s.vessel, s.result))
 
     def action_help(self) -> None:
         self.app.push_screen(HelpScreen())

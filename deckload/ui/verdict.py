@@ -149,8 +149,11 @@ def verdict_page(result: Result | None, width: int = 96) -> list[Text]:
         h.append(g.word, P[WORD_STYLE.get(g.word, "caution")])
         out.append(h)
         for c in g.criteria:
-            if width >= 90:
-                line = Text(f"  {vf.paragraph(c):<12.12} {c.description:<40.40} ", P["label"])
+            if width >= 90 and len(c.description) <= 36:
+                line = Text(f"  {vf.paragraph(c, short=True):<10.10} {c.description:<36} ", P["label"])
+            elif width >= 90:  # a long description on its own line, never cut; the numbers under it
+                out.append(Text(f"  {vf.paragraph(c, short=True):<10.10} {c.description}", P["label"]))
+                line = Text(" " * 50)
             else:  # narrow: the criterion on its own line, the numbers under it
                 out.append(Text(f"  {vf.paragraph(c)}  {c.description}", P["label"]))
                 line = Text("      ")
@@ -163,8 +166,10 @@ def verdict_page(result: Result | None, width: int = 96) -> list[Text]:
                 line.append(f"{vf.NOT_ASSESSABLE} (limit {CMP.get(c.comparison, c.comparison)} "
                             f"{c.limit:.{vf.digits_of(c)}f} {c.unit})", P["caution"])
             out.append(line)
-            if c.note:
-                out += [Text(x, P["dim"]) for x in textwrap.wrap(c.note, width, initial_indent="      ",
+            full = width >= 90 and vf.paragraph(c, short=True) != vf.paragraph(c)  # the column holds the short form
+            note = "; ".join(x for x in (c.note, f"¶ {vf.paragraph(c)}" if full else "") if x)
+            if note:
+                out += [Text(x, P["dim"]) for x in textwrap.wrap(note, width, initial_indent="      ",
                                                                  subsequent_indent="      ")]
     if result.not_assessed:
         out.append(Text(""))

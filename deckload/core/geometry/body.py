@@ -15,7 +15,7 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from deckload.core.geometry.sections import cut_sections, simpson_weights
+from deckload.core.geometry.sections import cut_area_chord, cut_sections, simpson_weights
 
 
 @dataclass(frozen=True, eq=False)
@@ -143,6 +143,31 @@ def immerse(body: Body, cos_t, sin_t, c0, t=0.0, x_ref_m: float = 0.0) -> Immers
     return Immersion(**{k: v.reshape(shape) for k, v in out.items()})
 
 
+def volume_and_area(body: Body, cos_t, sin_t, c0, t=0.0, x_ref_m: float = 0.0) -> tuple[np.ndarray, np.ndarray]:
+    """Volume below the plane and the waterplane area only (d∇/dc0): what a level search needs.
+
+    The same sums as :func:`immerse` for those two quantities, without the other moments."""
+    cos_t, sin_t, c0, t = np.broadcast_arrays(
+        np.asarray(cos_t, dtype=float), np.asarray(sin_t, dtype=float),
+        np.asarray(c0, dtype=float), np.asarray(t, dtype=float),
+    )
+    shape = cos_t.shape
+    ct, st, cf, tf = (a.reshape(-1) for a in (cos_t, sin_t, c0, t))
+    n = ct.shape[0]
+    vol = np.empty(n)
+    wpa = np.empty(n)
+    dx = body.x_m - x_ref_m
+    w = body.weights
+    step = max(1, _CHUNK_ELEMENTS // max(1, body.y_m.size))
+    for a in range(0, n, step):
+        sl = slice(a, min(n, a + step))
+        c = cf[sl, None] - dx * tf[sl, None]
+        area, chord = cut_area_chord(body.y_m, body.z_m, ct[sl, None], st[sl, None], c)
+        vol[sl] = area @ w
+        wpa[sl] = chord @ w
+    return vol.reshape(shape), wpa.reshape(shape)
+
+
 def level_for_volume(
     body: Body,
     cos_t,
@@ -171,7 +196,7 @@ def level_for_volume(
     hi = np.max(zhi + dx * t[..., None], axis=-1)
     scale = max(float(np.max(np.abs(target))), 1e-12)
     # the ends are known exactly: nothing below the lowest vertex, everything below the highest
-    v_max = immerse(body, cos_t, sin_t, hi, t, x_ref_m).volume_m3
+    v_max = volume_and_area(body, cos_t, sin_t, hi, t, x_ref_m)[0]
     at_lo = target <= 1e-13 * scale
     at_hi = target >= v_max - 1e-12 * scale  # round-off must not leave a full body to bisection
     if c_start is None:
@@ -183,14 +208,14 @@ def level_for_volume(
     c = np.where(at_lo, lo, np.where(at_hi, hi, c))
     fixed = at_lo | at_hi
     for _ in range(max_iter):
-        im = immerse(body, cos_t, sin_t, c, t, x_ref_m)
-        f = im.volume_m3 - target
+        vol, wpa = volume_and_area(body, cos_t, sin_t, c, t, x_ref_m)
+        f = vol - target
         done = fixed | (np.abs(f) <= tol_rel * scale)
         if np.all(done):
             break
         lo = np.where(f < 0.0, np.maximum(lo, c), lo)
         hi = np.where(f > 0.0, np.minimum(hi, c), hi)
-        a = im.wp_area_m2
+        a = wpa
         with np.errstate(invalid="ignore", divide="ignore"):
             step = np.where(a > 0.0, f / np.where(a > 0.0, a, 1.0), np.nan)
         cn = c - step

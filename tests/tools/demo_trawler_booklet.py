@@ -1,13 +1,13 @@
 """Write the Demo Trawler's booklet-style profile from her invented geometry.
 
 Run by hand from the checkout root, with deckload importable (``pip install -e .`` or
-``PYTHONPATH=.``): ``python tools/demo_trawler_booklet.py``.
+``PYTHONPATH=.``): ``python tests/tools/demo_trawler_booklet.py``.
 
 The Demo Trawler is invented (demo only).  A crew has no hull model: what they have
 is the stability booklet.  To give deckload a second demo vessel entered the way a
 crew would enter a real one, her "booklet" was invented here from
 ``vessel_profiles/demo_trawler.geometry.toml`` (written by
-``tools/demo_trawler_geometry.py``) with deckload's own table builder, and then
+``tests/tools/demo_trawler_geometry.py``) with deckload's own table builder, and then
 printed the way booklets print their pages:
 
 * hydrostatic particulars against the EXTREME draft (moulded + 12 mm keel plate),
@@ -42,7 +42,7 @@ from deckload.core.geometry.tanks import calibrate
 from deckload.core.geometry.windage import deck_edge_point, waterline_length_m, windage_above
 from deckload.geometry_io import load_geometry
 
-ROOT = Path(__file__).resolve().parent.parent
+ROOT = Path(__file__).resolve().parents[2]
 GEOMETRY = ROOT / "vessel_profiles" / "demo_trawler.geometry.toml"
 PROFILE = ROOT / "vessel_profiles" / "demo_trawler.toml"
 PAGES = ROOT / "vessel_profiles" / "demo_trawler"
@@ -222,7 +222,7 @@ PROFILE_TEMPLATE = '''\
 # are the booklet's pages typed into spreadsheet files (demo_trawler/*.csv), with the
 # booklet's own conventions stated here and converted by deckload on load
 # (`deckload check demo_trawler.toml` prints every conversion).  No hull model is needed.
-# Written by tools/demo_trawler_booklet.py from demo_trawler.geometry.toml, the source the
+# Written by tests/tools/demo_trawler_booklet.py from demo_trawler.geometry.toml, the source the
 # booklet was invented from.
 #
 # deckload supports, and never replaces, the approved stability booklet, the master's
@@ -352,7 +352,7 @@ def booklet_text(pages: Path) -> str:
 
 def main() -> int:
     text = booklet_text(PAGES)
-    if PROFILE.exists():  # keep the booklet conditions (tools/demo_trawler_booklet_conditions.py)
+    if PROFILE.exists():  # keep the booklet conditions (tests/tools/demo_trawler_booklet_conditions.py)
         old = PROFILE.read_text(encoding="utf-8")
         if BOOKLET_CONDITIONS in old:
             text += "\n" + BOOKLET_CONDITIONS + old.split(BOOKLET_CONDITIONS, 1)[1]

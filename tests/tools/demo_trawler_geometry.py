@@ -1,11 +1,11 @@
 """Write ``vessel_profiles/demo_trawler.geometry.toml``: the invented Demo Trawler's hull and spaces.
 
-Run by hand from the checkout root: ``python tools/demo_trawler_geometry.py``.
+Run by hand from the checkout root: ``python tests/tools/demo_trawler_geometry.py``.
 
 The Demo Trawler is an invented 24 m stern trawler (demo only, every figure made
 up).  This file is the *source* from which her booklet-style profile was
 invented: the offsets below are written from a formula (stated in the header of
-the geometry file it writes), and ``tools/demo_trawler_booklet.py`` turns the
+the geometry file it writes), and ``tests/tools/demo_trawler_booklet.py`` turns the
 tables deckload computes from them into the booklet pages a crew would have.
 The profile itself (``vessel_profiles/demo_trawler.toml``) does not need this file.
 """
@@ -17,7 +17,7 @@ from pathlib import Path
 
 import numpy as np
 
-ROOT = Path(__file__).resolve().parent.parent
+ROOT = Path(__file__).resolve().parents[2]
 OUT = ROOT / "vessel_profiles" / "demo_trawler.geometry.toml"
 
 LBP = 22.0
@@ -79,9 +79,9 @@ def fmt_row(values) -> str:
 HEADER = '''\
 # Demo Trawler: hull and compartment geometry (invented vessel, demo only).
 #
-# Written by tools/demo_trawler_geometry.py.  This is the SOURCE the Demo Trawler's
+# Written by tests/tools/demo_trawler_geometry.py.  This is the SOURCE the Demo Trawler's
 # booklet-style profile (demo_trawler.toml and the CSV pages in demo_trawler/) was
-# invented from: tools/demo_trawler_booklet.py computes her tables from it with deckload's
+# invented from: tests/tools/demo_trawler_booklet.py computes her tables from it with deckload's
 # table builder and prints them the way a stability booklet does.  The profile does not need this file.
 # The schema is that of demo_islander.geometry.toml (deckload-geometry-1).
 #

@@ -1,7 +1,7 @@
 """Compute the Demo Trawler's "booklet conditions" independently of deckload's tables.
 
 Run by hand from the checkout root (needs the test extra: trimesh, shapely, scipy):
-``python tools/demo_trawler_booklet_conditions.py``.  It rewrites the block of
+``python tests/tools/demo_trawler_booklet_conditions.py``.  It rewrites the block of
 ``[[booklet_condition]]`` tables at the end of ``vessel_profiles/demo_trawler.toml``
 (between the two marker lines) and copies the profile into ``deckload/data/``.
 
@@ -58,7 +58,7 @@ from scipy.optimize import brentq
 from deckload.bench_tables import below, compartment_mesh, heeled, hull_mesh, ref_kn, waterplane_moments
 from deckload.geometry_io import load_geometry
 
-ROOT = Path(__file__).resolve().parent.parent
+ROOT = Path(__file__).resolve().parents[2]
 GEOMETRY = ROOT / "vessel_profiles" / "demo_trawler.geometry.toml"
 PROFILE = ROOT / "vessel_profiles" / "demo_trawler.toml"
 PACKAGED = ROOT / "deckload" / "data" / "demo_trawler.toml"
@@ -66,7 +66,7 @@ MID_M = 11.0
 LBP_M = 22.0
 KEEL_M = 0.012  # the booklet's drafts are extreme: moulded + the keel plate
 RHO_SW = 1.025
-BEGIN = "# ---- booklet conditions: written by tools/demo_trawler_booklet_conditions.py (do not edit by hand)"
+BEGIN = "# ---- booklet conditions: written by tests/tools/demo_trawler_booklet_conditions.py (do not edit by hand)"
 END = "# ---- end of booklet conditions"
 
 CONDITIONS = (
@@ -320,7 +320,7 @@ def main() -> int:
     hull, meshes, tank_meshes = reference_meshes()
     blocks = [BEGIN,
               "# The booklet's worked conditions and its printed results (invented booklet; method: the",
-              "# docstring of tools/demo_trawler_booklet_conditions.py — trimesh on the hull offsets, not",
+              "# docstring of tests/tools/demo_trawler_booklet_conditions.py — trimesh on the hull offsets, not",
               "# deckload's tables), typed as the booklet prints them: LCG from midships, extreme drafts.",
               ""]
     for name, page, fname in CONDITIONS:

@@ -1,0 +1,125 @@
+"""Soundings taken with the ship trimmed or listed, from the tank's geometry and its sounding pipe.
+
+A tank's calibration table is for even keel and upright (common practice): sounding s
+from the tank's lowest point, surface at z = z_low + s everywhere.  Trimmed by t (m, + by
+the stern, over LBP) and listed φ (+ starboard), the liquid's surface is level in the
+water, so in ship axes it is the plane
+
+    z(x, y) = z_low + s + (x_p − x)·tanψ + (y − y_p)·tanφ,   tanψ = t/LBP,
+
+through the point where the sounding is read, the pipe at (x_p, y_p) — the same tilt as
+the ship's waterline (deeper aft when trimmed by the stern, deeper to starboard when
+listed to starboard).  The volume below it is the tank body cut by that plane:
+:func:`deckload.core.geometry.body.immerse` with heel φ, level
+c₀ = −y_p·sinφ + (z_low + s)·cosφ at x_ref = x_p, and slope tanψ·cosφ in the heeled
+frame (the same plane written in that frame; :mod:`deckload.core.geometry.body`).
+
+The corrected sounding is the even-keel sounding that holds the same volume (read back
+through the calibration table), so every other step — centroid, free surface — stays the
+table's, as on board; the difference is the trim/list correction a booklet's correction
+columns would give.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+
+from deckload.core.geometry.body import Body, immerse
+from deckload.core.loading import LoadingError, level_of
+from deckload.core.model import SoundingPipe, Tank
+from deckload.core.tables import interp
+
+MAX_TRIM_FRACTION = 0.2
+"""Trim beyond a fifth of LBP (or a list beyond 45°) is no sounding condition: refused."""
+
+
+class SoundingError(LoadingError):
+    """A sounding that cannot be corrected as asked (names the tank and the rule)."""
+
+
+@dataclass(frozen=True)
+class CorrectedSounding:
+    tank_id: str
+    observed_m: float
+    """The sounding read at the pipe (m)."""
+    even_keel_m: float
+    """The even-keel sounding holding the same volume (m)."""
+    volume_m3: float
+
+
+def volume_at_sounding(body: Body, pipe: SoundingPipe, sounding_m: float, trim_m: float, lbp_m: float,
+                       list_deg: float) -> float:
+    """Volume (m³) of the tank below the surface a sounding read at the pipe shows (module docstring)."""
+    if not (math.isfinite(trim_m) and abs(trim_m) <= MAX_TRIM_FRACTION * lbp_m):
+        raise SoundingError(f"trim {trim_m!r} m is beyond a fifth of LBP: no sounding is corrected for it")
+    if not (math.isfinite(list_deg) and abs(list_deg) <= 45.0):
+        raise SoundingError(f"list {list_deg!r}° is beyond 45°: no sounding is corrected for it")
+    phi = math.radians(list_deg)
+    cos_p, sin_p = math.cos(phi), math.sin(phi)
+    z_low = body.z_min_m
+    c0 = -pipe.y_m * sin_p + (z_low + sounding_m) * cos_p
+    t = trim_m / lbp_m * cos_p
+    return float(immerse(body, cos_p, sin_p, c0, t, pipe.x_m).volume_m3)
+
+
+def correct_sounding(tank: Tank, body: Body, pipe: SoundingPipe, sounding_m: float, trim_m: float, lbp_m: float,
+                     list_deg: float) -> CorrectedSounding:
+    """The even-keel sounding with the volume the trimmed/listed sounding shows."""
+    top = float(tank.calibration.sounding_m[-1])
+    if not (math.isfinite(sounding_m) and 0.0 <= sounding_m <= top):
+        raise SoundingError(f"tank {tank.id}: sounding {sounding_m!r} m is outside 0–{top:g} m")
+    vol = volume_at_sounding(body, pipe, sounding_m, trim_m, lbp_m, list_deg)
+    vol = min(max(vol, 0.0), float(tank.calibration.volume_m3[-1]))
+    even = interp(tank.calibration.volume_m3, tank.calibration.sounding_m, vol, f"volume of tank {tank.id}", "m³")
+    return CorrectedSounding(tank.id, sounding_m, even, vol)
+
+
+def level_soundings(vessel, condition):
+    """The condition with every sounding taken trimmed or listed turned into its even-keel sounding.
+
+    Returns ``(condition, corrected, uncorrected)``: the corrections made
+    (:class:`CorrectedSounding`) and the ids of sounded tanks that could not be corrected
+    (no tank shape in the hull geometry, or no sounding pipe).  A condition sounded at even
+    keel and upright is returned as it is.
+    """
+    trim, lst = condition.sounding_trim_m, condition.sounding_list_deg
+    if trim == 0.0 and lst == 0.0:
+        return condition, (), ()
+    from deckload.core.model import TankFill
+
+    corrected, uncorrected = [], []
+    fills = []
+    for f in condition.tanks:
+        if f.quantity not in ("sounding_m", "ullage_m"):
+            fills.append(f)
+            continue
+        body = vessel.tank_bodies.get(f.tank_id)
+        pipe = vessel.sounding_pipes.get(f.tank_id)
+        if body is None or pipe is None or f.tank_id not in vessel.tank_index:
+            uncorrected.append(f.tank_id)
+            fills.append(f)
+            continue
+        # A reading is from the tank's sounding zero (or down from its ullage reference): the
+        # correction works on the level above the tank's lowest point, and gives a reading back.
+        tank = vessel.tank(f.tank_id)
+        level = level_of(tank, f.quantity, f.value)
+        cs = correct_sounding(tank, body, pipe, level, trim, vessel.particulars.lbp_m, lst)
+        even = (cs.even_keel_m - tank.sounding_zero_m if f.quantity == "sounding_m"
+                else tank.ullage_reference_m - cs.even_keel_m)
+        corrected.append(CorrectedSounding(f.tank_id, f.value, even, cs.volume_m3))
+        fills.append(TankFill(f.tank_id, f.quantity, even, f.density_t_m3))
+    return condition.replace(tanks=tuple(fills)), tuple(corrected), tuple(uncorrected)
+
+
+def sounding_note(condition, corrected, uncorrected) -> list[tuple[str, str]]:
+    """(code, message) cautions naming the corrections made and the soundings left uncorrected."""
+    out = []
+    way = f"trim {condition.sounding_trim_m:+.2f} m, list {condition.sounding_list_deg:+.1f}°"
+    if corrected:
+        out.append(("sounding-corrected", f"soundings taken at {way}, as at even keel: " + ", ".join(
+            f"{c.tank_id} {c.observed_m:.3f} → {c.even_keel_m:.3f} m" for c in corrected)))
+    if uncorrected:
+        out.append(("sounding-uncorrected", f"soundings taken at {way} NOT corrected (no tank shape or sounding "
+                    "pipe): " + ", ".join(uncorrected)))
+    return out
