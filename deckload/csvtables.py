@@ -150,6 +150,17 @@ def _locator(c: CsvTable, j: int | None, matrix_cols: list[int] | None = None):
     return locate
 
 
+def _open_csv(t: Table):
+    """The table's CSV file read, or None when it could not be (the problem is reported, and
+    nothing else of the table is judged: its columns' absence would only repeat it)."""
+    c = read_csv(t)
+    if c is None:
+        t.ctx.unread_csv.add(t.raw)
+        for k in t.data:
+            t.get(k, False)
+    return c
+
+
 def attach_csv(t: Table, columns: tuple[str, ...]) -> bool:
     """If ``t`` names a CSV file, put its columns into ``t.data`` as arrays.
 
@@ -160,11 +171,8 @@ def attach_csv(t: Table, columns: tuple[str, ...]) -> bool:
     if not t.has("csv"):
         t.get("csv", False)
         return True
-    c = read_csv(t)
+    c = _open_csv(t)
     if c is None:
-        t.ctx.unread_csv.add(t.raw)  # its problem is reported; its columns' absence would only repeat it
-        for k in t.data:  # and nothing else of this table is judged without its columns
-            t.get(k, False)
         return False
     for j, h in enumerate(c.header):
         if h not in columns:
@@ -185,11 +193,8 @@ def attach_kn_csv(t: Table) -> bool:
     if not t.has("csv"):
         t.get("csv", False)
         return True
-    c = read_csv(t)
+    c = _open_csv(t)
     if c is None:
-        t.ctx.unread_csv.add(t.raw)  # its problem is reported; its columns' absence would only repeat it
-        for k in t.data:  # and nothing else of this table is judged without its columns
-            t.get(k, False)
         return False
     kn_cols: list[int] = []
     heels: list[float] = []
