@@ -93,3 +93,42 @@ def test_working_file_is_named_after_the_vessel(vessel, tmp_path):
 
     digest = hashlib.sha256(b"Analytic box barge").hexdigest()[:10]
     assert working_path(tmp_path, vessel).name == f"analytic-box-barge-{digest}.condition.toml"
+
+
+def test_the_title_says_saving_until_the_change_is_on_disk(tmp_path):
+    """An edit shown on screen whose save has not landed must say so (the writer thread saves
+    after the frame): the title reads "saving…" while a save is pending and not after it lands."""
+    import asyncio
+    import threading
+
+    from deckload import paths
+    from deckload.profiles import load_condition, load_profile, save_condition
+    from deckload.ui.launch import create_app
+
+    gate = threading.Event()
+
+    def slow_save(path, condition):
+        gate.wait(5)
+        save_condition(path, condition)
+
+    async def run():
+        vessel = load_profile(paths.DEMO_PROFILE)
+        condition = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
+        app = create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+        app.session._save = slow_save
+        async with app.run_test(size=(120, 40)) as pilot:
+            title = lambda: app.loading_screen._title(120).plain  # noqa: E731
+            assert "saving" not in title()
+            await pilot.press("enter", *"20%", "enter")
+            await pilot.pause()
+            assert "saving…" in title()
+            gate.set()
+            for _ in range(300):
+                if not app.session.saves_pending:
+                    break
+                await pilot.pause(0.01)
+            await pilot.pause()
+            assert "saving" not in title()
+            assert (tmp_path / "work").is_dir() and any((tmp_path / "work").glob("*.condition.toml"))
+
+    asyncio.run(run())

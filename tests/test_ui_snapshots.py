@@ -20,6 +20,22 @@ def demo_app(tmp_path):
     return create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
 
 
+async def _keys_then_saved(pilot, keys=()):
+    """Press the keys, then wait until every change has landed on disk: the title says
+    "saving…" until it has, and a snapshot must not depend on the writer thread's timing."""
+    await pilot.pause()  # run_before comes before the screen is ready for keys
+    for key in keys:
+        await pilot.press(key)
+        await pilot.pause()
+    quiet = 0
+    for _ in range(500):  # settled: nothing pending at three looks in a row
+        quiet = quiet + 1 if not pilot.app.session.saves_pending else 0
+        if quiet == 3:
+            break
+        await pilot.pause(0.02)
+    await pilot.pause()
+
+
 def test_main_screen_120x40(snap_compare, demo_app):
     assert snap_compare(demo_app, terminal_size=(120, 40))
 
@@ -29,7 +45,8 @@ def test_main_screen_80x24(snap_compare, demo_app):
 
 
 def test_main_screen_80x24_curve_after_a_ballast_edit(snap_compare, demo_app):
-    assert snap_compare(demo_app, terminal_size=(80, 24), press=["enter", *"20%", "enter", "g"])
+    assert snap_compare(demo_app, terminal_size=(80, 24),
+                        run_before=lambda pilot: _keys_then_saved(pilot, ["enter", *"20%", "enter", "g"]))
 
 
 def test_transfer_preview_120x40(snap_compare, demo_app):

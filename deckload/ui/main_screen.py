@@ -58,7 +58,8 @@ class LoadingScreen(Screen[None]):
 
     def on_mount(self) -> None:
         loop = asyncio.get_running_loop()
-        self.session.write_in_background(lambda p: loop.call_soon_threadsafe(self._report, p))
+        self.session.write_in_background(lambda p: loop.call_soon_threadsafe(self._report, p),
+                                         lambda: loop.call_soon_threadsafe(self._save_landed))
         self.query_one(LoadBoard).focus()
         self.refresh_view()
         self.say("⏎ type an amount · + − nudge · t transfer · n name · p print · x plan · ? all keys", ok=None)
@@ -128,7 +129,15 @@ class LoadingScreen(Screen[None]):
         if s.planning:
             t.append(f" │ PLAN ({s.plan_steps}, not logged: x to apply or discard)" if wide else " │ PLAN", P["caution"])
         t.append(f" │ undo {s.undo_depth} redo {s.redo_depth}", P["dim"])
+        if s.saves_pending:
+            # The edit is on screen but not yet on disk: say so until the writer has saved it.
+            t.append(" │ saving…" if wide else " saving…", P["caution"])
         return t
+
+    def _save_landed(self) -> None:
+        """A change reached the disk (or failed, which ``_report`` says): redraw the title."""
+        if self.is_attached:
+            self.query_one("#titlebar", SizedPanel).show(lambda w, h: [self._title(w)])
 
     def _report(self, problem: str) -> None:
         # A save or log failure replaces the message line, which must never still read as done.

@@ -399,16 +399,26 @@ class Session:
                 *, save: bool = True, log: bool = True) -> list[str]:
         if self._writer is None:
             return self._persist(condition, kind, label, data, result, save=save, log=log)
+        # Landed jobs carry nothing more (their problems went to ``report``): keep the list short.
+        self._jobs = [j for j in self._jobs if not j.done()]
         self._jobs.append(self._writer.submit(self._persist_reporting, condition, kind, label, data, result,
                                               save, log))
         return []
 
-    def write_in_background(self, report: Callable[[str], None]) -> None:
+    @property
+    def saves_pending(self) -> int:
+        """Changes shown on screen whose save and log entry have not landed on disk yet."""
+        return sum(1 for j in self._jobs if not j.done())
+
+    def write_in_background(self, report: Callable[[str], None],
+                            landed: Callable[[], None] | None = None) -> None:
         """Save and log each change on one writer thread, in order, so a key's repaint never
-        waits for fsync; ``report`` receives each problem (it is called on that thread)."""
+        waits for fsync; ``report`` receives each problem and ``landed`` is told when a change
+        is on disk (both are called on that thread)."""
         from concurrent.futures import ThreadPoolExecutor
 
         self._report = report
+        self._landed = landed or (lambda: None)
         self._writer = ThreadPoolExecutor(max_workers=1, thread_name_prefix="deckload-writer")
 
     def flush(self) -> list[str]:
@@ -420,9 +430,12 @@ class Session:
         return problems
 
     def _persist_reporting(self, *args) -> list[str]:
-        problems = self._persist(*args)
-        for p in problems:
-            self._report(p)
+        try:
+            problems = self._persist(*args)
+            for p in problems:
+                self._report(p)
+        finally:
+            self._landed()
         return []
 
     def _persist(self, condition: Condition, kind: str, label: str, data: dict, result: Result | None,
