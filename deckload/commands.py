@@ -126,6 +126,19 @@ def load_and_evaluate(profile_path: Path, condition_path: Path):
         return 2
 
 
+def direct_comparison(profile_path: Path, vessel, result: Result):
+    """The table result beside the direct calculation from the hull, or exit status 1 with the
+    reason printed (no hull geometry, or a condition outside what the hull can float)."""
+    from deckload.core.equilibrium import DirectError, compare
+    from deckload.core.tables import OutOfRangeError
+
+    try:
+        return compare(vessel, result)
+    except (DirectError, OutOfRangeError) as e:
+        print(f"{profile_path}: direct calculation: {e}", file=sys.stderr)
+        return 1
+
+
 def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False, direct: bool = False) -> int:
     """Load, evaluate and print; exit 0 when computed (pass or fail), non-zero on bad input.
 
@@ -135,16 +148,9 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False,
     if isinstance(loaded, int):
         return loaded
     vessel, _, result = loaded
-    cmp = None
-    if direct:
-        from deckload.core.equilibrium import DirectError, compare
-        from deckload.core.tables import OutOfRangeError
-
-        try:
-            cmp = compare(vessel, result)
-        except (DirectError, OutOfRangeError) as e:
-            print(f"{profile_path}: direct calculation: {e}", file=sys.stderr)
-            return 1
+    cmp = direct_comparison(profile_path, vessel, result) if direct else None
+    if isinstance(cmp, int):
+        return cmp
     if as_json:
         doc = result.to_json_dict()
         if cmp is not None:

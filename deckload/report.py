@@ -792,23 +792,16 @@ def run_report(profile_path: Path, condition_path: Path, html: bool, output: Pat
     Exit 0 when written (whether or not the criteria pass), 1 on bad input, 2 when a
     file cannot be read or written.
     """
-    from deckload.commands import load_and_evaluate
+    from deckload.commands import direct_comparison, load_and_evaluate
     from deckload.logbook import clock_stamp
 
     loaded = load_and_evaluate(profile_path, condition_path)
     if isinstance(loaded, int):
         return loaded
     vessel, condition, result = loaded
-    comparison = None
-    if direct:
-        from deckload.core.equilibrium import DirectError, compare
-        from deckload.core.tables import OutOfRangeError
-
-        try:
-            comparison = compare(vessel, result)
-        except (DirectError, OutOfRangeError) as e:
-            print(f"{profile_path}: direct calculation: {e}", file=sys.stderr)
-            return 1
+    comparison = direct_comparison(profile_path, vessel, result) if direct else None
+    if isinstance(comparison, int):
+        return comparison
     stamp = clock_stamp()
     source = Path(condition_path).name + _log_anchor_text(vessel.particulars.name)
     if html:

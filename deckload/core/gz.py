@@ -88,14 +88,6 @@ def area_to(gz: np.ndarray, angle_deg: float) -> float:
     return full
 
 
-def value_at(gz: np.ndarray, angle_deg: float) -> float:
-    """GZ at an angle within the curve (which may stop before 90°: then never beyond its end)."""
-    grid = FINE_DEG[: len(gz)]
-    if angle_deg > grid[-1] + 1e-9:
-        raise OutOfRangeError("heel (GZ curve)", angle_deg, 0.0, float(grid[-1]), "deg")
-    return float(np.interp(angle_deg, grid, gz))
-
-
 def _crossing(gz: np.ndarray, start: int, rising: bool) -> float | None:
     """First angle at or after index ``start`` where GZ crosses zero (rising or falling)."""
     seg = gz[start:]
