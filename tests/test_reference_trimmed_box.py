@@ -92,7 +92,9 @@ def test_without_kml_the_table_mctc_is_used_with_a_caution():
     v = _barge(2.0, 3.0, 2.5)
     v = dataclasses.replace(v, hydrostatics=dataclasses.replace(v.hydrostatics, kml_m=None))
     r = evaluate(v, Condition())
-    assert any(w.code == "trim-from-table-mctc" and w.severity == "caution" for w in r.warnings)
+    assert [(w.message, w.severity) for w in r.warnings if w.code == "trim-from-table-mctc"] == [
+        ("the profile has no KML: trim is worked from the tabulated MCTC (made with BML, not the actual GML), "
+         "so it is slightly too small", "caution")]
     trim = exact_trim_slope(2.0, 3.0, 2.5) * L
     assert r.mctc_tm_cm == pytest.approx(RHO_SW * B * L**2 / 1200, rel=1e-9)  # ρ·I_L/(100·L), I_L = BL³/12
     assert r.trim_m < trim * (1 - 0.025)
@@ -123,4 +125,19 @@ def test_caution_when_trimmed_beyond_the_even_keel_tables(offset_aft_m, warned):
     notes = [w for w in r.warnings if w.code == "trim-beyond-tables"]
     assert bool(notes) is warned
     if warned:
-        assert f"{abs(r.trim_m):.2f} m {'by the stern' if offset_aft_m > 0 else 'by the head'}" in notes[0].message
+        way = "by the stern" if offset_aft_m > 0 else "by the head"
+        # the trim itself is checked against the exact waterline above; here the words and the share of LBP
+        assert notes[0].message == (f"trim {abs(r.trim_m):.2f} m {way} ({100 * abs(r.trim_m) / L:.1f} % of LBP): "
+                                    "the tables are for even keel; drafts and KN less certain")
+        assert notes[0].severity == "caution"
+
+
+def test_kg_above_the_longitudinal_metacentre_is_refused():
+    """KM_L = KB + BM_L = T/2 + L²/(12·T) = 1 + 1600/24 = 67.667 m at T = 2 m (checks.md §1.1): with KG
+    70 m there is no longitudinal stability and no trim can be worked; the refusal names both."""
+    from deckload.core.trim import TrimError
+
+    with pytest.raises(TrimError) as e:
+        evaluate(_barge(2.0, 70.0, 0.0), Condition())
+    assert str(e.value) == ("KG fluid 70 m is not below KML 67.667 m: "
+                            "no longitudinal stability, no trim can be computed")
