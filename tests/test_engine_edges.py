@@ -101,3 +101,27 @@ def test_marks_named_f_and_tf_are_fresh_water_marks():
     number not confirmed, from memory), as are the spellings accepted here."""
     assert {mark_density_t_m3(n) for n in ("F", "TF", "tropical fresh", "Fresh")} == {1.000}
     assert {mark_density_t_m3(n) for n in ("summer", "winter", "tropical", "WNA")} == {1.025}
+
+
+def test_a_displacement_beyond_the_table_in_fresh_water_is_refused_at_its_table_equivalent():
+    """Same volume ⇒ same waterline: Δ in water of ρ is looked up at Δ·ρ_table/ρ (hydrostatics module
+    docstring, standards.md §6.3).  Δ 1420 t in fresh water is 1420·1.025/1.000 = 1455.5 t in table
+    water, beyond the barge's tables (205–1435 t: 1.025·40·10·T for T 0.5–3.5 m, checks.md §1.1),
+    although 1420 t itself is within them: refused, with the number looked up."""
+    from deckload.core.tables import OutOfRangeError
+
+    vessel = box_barge(lightship_t=1420.0)
+    with pytest.raises(OutOfRangeError) as e:
+        evaluate(vessel, Condition(water_density_t_m3=1.000))
+    # printed to 4 significant figures (tables.OutOfRangeError)
+    assert str(e.value) == ("displacement (hydrostatic table, at table density) 1455 t is outside the table "
+                            "range 205–1435 t; deckload does not extrapolate")
+    assert evaluate(vessel, Condition()).displacement_t == 1420.0
+
+
+def test_fresh_water_mark_names_are_read_loosely():
+    """Spellings of the F and TF marks accepted beside test_marks_named_f_and_tf_are_fresh_water_marks
+    (common practice: profile authors write 'tropical_fresh' or pad the name)."""
+    assert mark_density_t_m3("tropical_fresh") == 1.000
+    assert mark_density_t_m3("  F ") == 1.000
+    assert mark_density_t_m3("fresh water") == 1.025  # not a mark name: a sea-water mark
