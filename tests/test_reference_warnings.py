@@ -165,3 +165,25 @@ def test_a_list_to_port_is_named_port():
     r = evaluate(v, c)
     assert r.list_deg == pytest.approx(-3.0, abs=0.05)  # the 0.1° grid of the GZ curve
     assert _codes(r, "list") == [("list 3.0° to port exceeds 2°", "caution")]
+
+
+def test_fwa_for_any_mark_is_the_summer_one():
+    """ICLL (standards.md §6.1): FWA = Δ/(4·TPC) mm with Δ and TPC at the summer draft.  Summer 2.000 m:
+    Δ = 1.025·400·2 = 820 t, TPC = 1.025·400/100 = 4.1 t/cm, FWA = 820/16.4 = 50.0 mm (checks.md §1.1).
+    Loaded to tropical marks in fresh water the allowed draft is T_trop + FWA·(1.025 − 1.000)/0.025 =
+    2.04167 + 0.050 m.  (FWA worked at the tropical draft instead would be 837.08/16.4 = 51.04 mm, 1 mm
+    more: the margin below tells them apart.)"""
+    marks = (LoadLine("summer", SUMMER_M), LoadLine("tropical", TROPICAL_M))
+    v, _ = _barge_at_draft(2.0, marks, "tropical")
+    r = evaluate(v, Condition(load_line="tropical", water_density_t_m3=1.000))
+    assert r.load_line_margin_m == pytest.approx(TROPICAL_M + 0.050 - r.draft_mean_m, abs=1e-6)
+    assert r.draft_mean_m == pytest.approx(820.0 / 400.0, abs=1e-9)  # Δ/(ρ·L·B) in fresh water
+
+
+def test_without_a_summer_mark_the_chosen_mark_stands_for_it():
+    """A profile giving only a tropical mark: the FWA is worked at that mark (deckload's rule,
+    stability._allowed_draft); in sea water the allowed draft is the mark itself."""
+    r = evaluate(*_barge_at_draft(2.05, (LoadLine("tropical", TROPICAL_M),), "tropical"))
+    assert r.load_line_margin_m == pytest.approx(TROPICAL_M - 2.05, abs=1e-9)
+    (w,) = _load_line_warnings(r)
+    assert "over the tropical load line (2.042 m allowed" in w.message
