@@ -187,3 +187,20 @@ def test_without_a_summer_mark_the_chosen_mark_stands_for_it():
     assert r.load_line_margin_m == pytest.approx(TROPICAL_M - 2.05, abs=1e-9)
     (w,) = _load_line_warnings(r)
     assert "over the tropical load line (2.042 m allowed" in w.message
+
+
+def test_a_tank_in_its_worst_band_is_named_with_the_band():
+    """A tank given without its transfer geometry has the worst band 40–60 % (the model's default,
+    FreeSurfaceSettings.default_worst_band_pct, deckload's own choice); DB1P at 50 %
+    is in it and the caution names the tank, its fill and the band.  At 30 % it is merely slack."""
+    from deckload.core.model import TankFill
+    from vessel_factories import barge_tanks
+
+    v, _ = barge_at(1.5, 3.0, tanks=barge_tanks())
+    assert v.tank("DB1P").worst_band_pct == (40.0, 60.0)  # the premise: the default band
+    r = evaluate(v, Condition(tanks=(TankFill("DB1P", "percent", 50.0),)))
+    name = v.tank("DB1P").name
+    assert _codes(r, "slack-worst-band") == [
+        (f"DB1P ({name}) at 50 % is in its worst free-surface band 40–60 %", "caution")]
+    r30 = evaluate(v, Condition(tanks=(TankFill("DB1P", "percent", 30.0),)))
+    assert _codes(r30, "slack-worst-band") == []
