@@ -99,10 +99,10 @@ def test_deck_load_over_the_local_and_the_mean_limit():
     Crate 30 t on 10 m² = 3.00 t/m² > 1.50: local warning.  Plates 130 t on 100 m² = 1.30: locally
     within.  On the area 160 t / 100 m² = 1.60 t/m² > 1.50: mean warning.  A 50 t item stowed on no
     area counts on none."""
-    r = _loaded(deck_items=(
+    r = _loaded(deck_items=(  # the item on no area first: those after it still count
+        DeckItem("Boat", 50.0, 20.0, 5.0),
         DeckItem("Crate", 30.0, 20.0, 5.0, area_id="D1", footprint_m2=10.0),
         DeckItem("Plates", 130.0, 20.0, 4.5, area_id="D1", footprint_m2=100.0),
-        DeckItem("Boat", 50.0, 20.0, 5.0),
     ))
     assert _codes(r, "deck-load-local") == [("Crate: 3.00 t/m² on Main deck exceeds 1.50 t/m²", "danger")]
     assert _codes(r, "deck-load") == [("Main deck: 160.0 t over 100 m² averages 1.60 t/m², above 1.50 t/m²",
@@ -204,3 +204,11 @@ def test_a_tank_in_its_worst_band_is_named_with_the_band():
         (f"DB1P ({name}) at 50 % is in its worst free-surface band 40–60 %", "caution")]
     r30 = evaluate(v, Condition(tanks=(TankFill("DB1P", "percent", 30.0),)))
     assert _codes(r30, "slack-worst-band") == []
+
+
+def test_exactly_at_the_mark_is_not_over_it():
+    """At T = 2.000 m (Δ 820 t, a table row, even keel) she floats exactly at the summer mark in sea
+    water: allowed, margin nil, no warning (ICLL: the mark is the limit, not beyond it)."""
+    r = evaluate(*_barge_at_draft(2.0, (LoadLine("summer", SUMMER_M),), "summer"))
+    assert r.draft_mean_m == 2.0 and r.load_line_margin_m == 0.0  # a table row: exact in floating point
+    assert _load_line_warnings(r) == []
