@@ -214,6 +214,8 @@ class LoadingScreen(Screen[None]):
             self._edit_item(what == "deck", ident)
         elif what == "fixed":
             self.say("A fixed constant of the vessel profile: to change it for this condition, add a constant (c) of the same name.", ok=False)
+        elif what == "dwt":
+            self.say(DWT_HINT, ok=False)
 
     def _edit_tank(self, tank_id: str) -> None:
         s = self.session
@@ -607,6 +609,12 @@ class LoadingScreen(Screen[None]):
             self.say("⏎ edit mass and position · + − 1 t · e remove · a add deck load · c add constant", ok=None)
         elif what == "fixed":
             self.say("A fixed constant of the vessel profile: to change it for this condition, add a constant (c) of the same name.", ok=None)
+        elif what == "dwt":
+            self.say(DWT_HINT, ok=None)
+
+
+DWT_HINT = ("Deadweight by kind: the sum of the lines above it (cargo = holds, deck loads and liquid cargo); "
+            "change the tanks and items themselves.")
 
 
 def alert_lines(alerts: list[views.Alert], height: int) -> list[Text]:

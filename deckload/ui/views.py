@@ -11,6 +11,7 @@ from dataclasses import dataclass
 
 from rich.text import Text
 
+from deckload.core.deadweight import deadweight_by_kind
 from deckload.core.free_surface import EXEMPT_RULE
 from deckload.core.model import Condition, LIQUID_KINDS, Vessel
 from deckload.core.result import CriterionResult, Result
@@ -37,7 +38,8 @@ BOARD_ORDER = ("ballast", *(k for k in LIQUID_KINDS if k != "ballast"))
 STATE_MARK = {"empty": " ", "slack": "≈", "worst_band": "▲", "full": "■"}
 """Tank state symbol: blank empty, ≈ slack, ▲ slack in its worst free-surface band, ■ nominally full."""
 LEGEND = ("≈ slack  ▲ worst band  ■ full  * FSM taken by the IS 2008 B 3.1 rule, not at the actual level  "
-          "ex small tank exempt (B 3.1.12), its moment at the actual level beside it, not counted")
+          "ex small tank exempt (B 3.1.12), its moment at the actual level beside it, not counted  "
+          "† density stated for this condition (delivery note), not the tank's default")
 
 NEAR_FRACTION = 0.10
 """A criterion whose margin is under 10 % of its limit is flagged 'near'."""
@@ -72,35 +74,33 @@ class Row:
     text: Text
 
 
-KIND_SHORT = {"ballast": "Ballast", "fuel_oil": "Fuel oil", "diesel": "Diesel", "lube_oil": "Lube oil",
-              "fresh_water": "Fresh wtr", "cargo_liquid": "Cargo liq", "other": "Other"}
-KIND_COL = 9
-INLINE_KIND_FROM = 56
-"""Board width from which the liquid kind has its own column instead of heading lines."""
+RHO_COL_FROM = 56
+"""Board width from which each tank's density has a column of its own."""
+STATED_MARK = "†"
+"""Beside a tank id: the density was stated for this condition (a bunker delivery note), not the
+tank's default."""
 
 
 @dataclass(frozen=True)
 class TankCols:
     bar: int
-    inline_kind: bool
+    rho: bool
 
     @staticmethod
     def for_width(width: int) -> "TankCols":
-        inline = width >= INLINE_KIND_FROM
-        fixed = 1 + 1 + 5 + 1 + (KIND_COL + 1 if inline else 0) + 1 + 6 + 8 + 8 + 7 + 1
-        return TankCols(bar=max(4, min(24, width - fixed)), inline_kind=inline)
+        rho = width >= RHO_COL_FROM
+        fixed = 1 + 1 + 5 + 1 + 1 + 6 + 8 + 8 + (6 if rho else 0) + 7 + 1
+        return TankCols(bar=max(4, min(24, width - fixed)), rho=rho)
 
 
 def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stale: bool, width: int) -> list[Row]:
-    """Every line of the loading board: tanks grouped by liquid kind, then holds, deck loads, constants.
-
-    Wide boards name the kind in a column on the group's first line (its total mass on
-    the second); narrow ones give each group a heading line.
-    """
+    """Every line of the loading board: tanks grouped by liquid kind (each group under a heading
+    line of its own, with its total mass in the t column), then holds, deck loads, constants,
+    and the deadweight by kind."""
     cols = TankCols.for_width(width)
     by_id = {t.id: t for t in result.tanks} if result is not None and not stale else {}
-    head = Text(" " * 9 + ("kind".ljust(KIND_COL + 1) if cols.inline_kind else "")
-                + "fill".ljust(cols.bar + 1) + "     %      m³       t    FSM", P["head"])
+    head = Text(" " * 9 + "fill".ljust(cols.bar + 1) + "     %      m³       t" + ("     ρ" if cols.rho else "")
+                + "    FSM", P["head"])
     rows: list[Row] = [Row(None, head)]
     for kind in BOARD_ORDER:
         tanks = [t for t in vessel.tanks if t.kind == kind]
@@ -110,43 +110,69 @@ def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stal
         for tank in tanks:
             fill = condition.tank_fill(tank.id)
             tr = by_id.get(tank.id)
+            stated = fill is not None and fill.density_t_m3 is not None
             if tr is not None:
                 # An exempt slack tank shows "ex" with its moment at the actual level (not counted).
                 fsm = f" ex{tr.fsi_m4 * tr.density_t_m3:4.1f}" if tr.fs_rule == EXEMPT_RULE else tr.fsm_tm
-                values = (tr.fill_pct, tr.volume_m3, tr.mass_t, fsm, tr.state,
+                values = (tr.fill_pct, tr.volume_m3, tr.mass_t, tr.density_t_m3, fsm, tr.state,
                           tr.fs_rule.startswith(("assumed", "variable", "nominally full cargo")))
             else:  # stale: amounts from the condition itself, no FSM
                 vol = fill_volume_m3(tank, fill)
-                values = (100 * vol / tank.capacity_m3, vol, vol * tank_density(tank, fill), None,
-                          "slack" if vol else "empty", False)
-            lines.append((tank, values))
-        total = sum(v[2] for _, v in lines)
-        if not cols.inline_kind:
-            rows.append(Row(None, Text(f" {KIND_TITLE.get(kind, kind)}  {total:.1f} t", P["group"])))
-        for j, (tank, values) in enumerate(lines):
-            cell = (KIND_SHORT.get(kind, kind) if j == 0 else f"Σ{total:6.1f} t" if j == 1 else "") if cols.inline_kind else None
-            rows.append(Row(("tank", tank.id), _tank_line(tank.id, cell, *values, kind, cols, stale)))
+                rho = tank_density(tank, fill)
+                values = (100 * vol / tank.capacity_m3, vol, vol * rho, rho, None, "slack" if vol else "empty", False)
+            lines.append((tank, stated, values))
+        rows.append(Row(None, _group_line(KIND_TITLE.get(kind, kind), sum(v[2] for _, _, v in lines), cols)))
+        for tank, stated, values in lines:
+            rows.append(Row(("tank", tank.id), _tank_line(tank.id, stated, *values, kind, cols, stale)))
     rows.extend(_cargo_rows(vessel, condition, width))
+    if result is not None:
+        rows.extend(deadweight_rows(result, stale, cols))
     return rows
 
 
-def _tank_line(tid, kind_cell, pct, vol, mass, fsm, state, by_rule, kind, cols: TankCols, stale: bool) -> Text:
+def _group_line(title: str, total_t: float, cols: TankCols) -> Text:
+    """' Fuel oil ……… Σ 21.28': the group's heading, its total under the tanks' t column."""
+    left = 1 + 7 + cols.bar + 1 + 6 + 8  # everything before the t column
+    name = f" {title}"
+    line = Text(name, P["group"])
+    line.append(" " * max(1, left - len(name)) + f"Σ{total_t:7.2f}", P["group"])
+    return line
+
+
+def _tank_line(tid, stated, pct, vol, mass, rho, fsm, state, by_rule, kind, cols: TankCols, stale: bool) -> Text:
     worst = state == "worst_band"
     line = Text(STATE_MARK.get(state, "?"), P["danger"] if worst else P["label"])
-    line.append(f" {tid:<5.5} ", P["value"])
-    if kind_cell is not None:
-        line.append(f"{kind_cell:<{KIND_COL}.{KIND_COL}} ", P["group"] if kind_cell and not kind_cell.startswith("Σ") else P["dim"])
+    line.append(f" {tid:<5.5}", P["value"])
+    line.append(STATED_MARK if stated else " ", P["caution"])
     bar_style = P["bar.worst"] if worst else P[KIND_BAR.get(kind, "bar.other")]
     line.append(fill_bar(pct, cols.bar), P["stale"] if stale else bar_style)
     line.append("▕", P["bar.empty"])
     style = P["stale"] if stale else P["value"]
     line.append(f"{pct:6.1f}{vol:8.2f}{mass:8.2f}", style)
+    if cols.rho:
+        line.append(f"{rho:6.3f}", style if stated else P["dim"])
     if isinstance(fsm, str):
         line.append(f"{fsm:>7.7}", P["dim"])
     else:
         line.append(num(fsm, ".1f", 7), P["stale"] if fsm is None or stale else style)
     line.append("*" if by_rule else " ", P["label"])
     return line
+
+
+def deadweight_rows(result: Result, stale: bool, cols: TankCols) -> list[Row]:
+    """The deadweight by kind (cargo, each liquid, stores and constants) under a heading, and the
+    deadweight they add up to, each under the tanks' t column."""
+    left = 1 + 7 + cols.bar + 1 + 6 + 8
+    style = P["stale"] if stale else P["value"]
+    rows = [Row(None, Text(" Deadweight by kind" + (" (last good)" if stale else ""), P["group"]))]
+    for line in deadweight_by_kind(result):
+        text = Text(f"  {line.title:<{left - 2}.{left - 2}}", P["label"])
+        text.append(f"{line.mass_t:8.2f} t", style)
+        rows.append(Row(("dwt", line.kind), text))
+    total = Text(f"  {'Deadweight':<{left - 3}.{left - 3}}", P["label"])
+    total.append(f"Σ{result.deadweight_t:8.2f} t", style)
+    rows.append(Row(("dwt", "total"), total))
+    return rows
 
 
 def _cargo_rows(vessel: Vessel, condition: Condition, width: int) -> list[Row]:
