@@ -292,6 +292,9 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
         deck_edge_angle_deg=deck_edge,
         freeboard_m=vessel.particulars.depth_m - t_mid,
         load_line_margin_m=None if allowed is None or allowed[1] is None else allowed[1] - t_mid,
+        load_line_mark=None if allowed is None else allowed[0].name,
+        load_line_mark_draft_m=None if allowed is None else allowed[0].draft_m,
+        load_line_allowed_draft_m=None if allowed is None else allowed[1],
     )
 
 

@@ -97,7 +97,7 @@ class LoadingScreen(Screen[None]):
             if chart is None:
                 return verdict.weather_missing(r, w)
             return [verdict.weather_caption(r, w), *chart.lines()]
-        return [views.gz_caption(r), *views.gz_chart(r, stale, w - 1, h - 1).lines()]
+        return [views.gz_caption(r, w), *views.gz_chart(r, stale, w - 1, h - 1).lines()]
 
     def _size_criteria(self, r, stale: bool) -> None:
         """Wide: the criteria panel as tall as its lines (the curve keeps MIN_CURVE_ROWS); narrow: the rest."""

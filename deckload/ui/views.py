@@ -215,16 +215,34 @@ def _item_line(tag: str, item, area: str | None, name_w: int) -> Text:
 # --------------------------------------------------------------------------- stability panel
 
 
+COMPACT_LABEL = {"Margin": "Marg."}
+"""Labels longer than the narrow panel's five columns, shortened there."""
+
+MARK_LETTERS = {"summer": "S", "winter": "W", "tropical": "T", "fresh": "F", "tropical fresh": "TF",
+                "winter north atlantic": "WNA"}
+"""The letters of the load-line marks on the hull (ICLL: S, W, T, F, TF, WNA)."""
+
+
+def mark_letters(name: str | None) -> str:
+    """'S' for the summer mark; a mark the table does not know keeps its own name (three letters)."""
+    if not name:
+        return ""
+    key = " ".join(name.replace("_", " ").lower().split())
+    return MARK_LETTERS.get(key, name[:3])
+
+
 def _pair(line: Text, label: str, value: str, unit: str, stale: bool, compact: bool) -> None:
-    line.append(f"{label:<6}" if not compact else f"{label:<5.5}", P["label"])
+    line.append(f"{label:<6}" if not compact else f"{COMPACT_LABEL.get(label, label):<5.5}", P["label"])
     line.append(f"{value:>8} " if not compact else f"{value:>7} ", P["stale"] if stale else P["value"])
     line.append(f"{unit:<5.5}" if not compact else f"{unit:<3.3}", P["unit"])
 
 
 def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, stale: bool, width: int = 54) -> list[Text]:
-    """Displacement, deadweight, drafts, trim, freeboard at midships and its margin to the load line
-    in use (FWA/DWA applied by the engine), list, deck-edge immersion angle, KG, θf, KG fluid, FSC,
-    GM fluid, KM (two pairs a line; 'n/a' where the result has no value)."""
+    """Displacement, deadweight, drafts, trim, list and deck-edge immersion angle; freeboard at
+    midships and the margin to the load-line mark in use; that mark's allowed midships draft in
+    the water she floats in (letters as on the hull, S W T F TF WNA) and the dock-water allowance
+    applied to it; KG, θf, KG fluid, FSC, GM fluid, KM (two pairs a line; 'n/a' where the result
+    has no value).  Lengths to the mm, angles to 0.1°."""
     compact = width < 44
     title = Text(" Afloat", P["title"])
     title.append(f"  ρ {condition.water_density_t_m3:.3f} t/m³", P["dim"])
@@ -237,15 +255,16 @@ def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, st
         rule = "IS2008" if r.fs_rule == "is2008" else "actual"
         title.append(f"  FS {rule} · GZ {'transfer' if r.gz_correction == 'transfer' else 'const'}", P["dim"])
     trim_word = "A" if r.trim_m > 0 else ("F" if r.trim_m < 0 else "")
-    list_word = "S" if r.list_deg > 0.005 else ("P" if r.list_deg < -0.005 else "")
-    ll = condition.load_line[:3]
-    margin = "n/a" if r.load_line_margin_m is None else f"{r.load_line_margin_m:+.3f}"
+    # below the last printed decimal (0.1°) she is upright: no side
+    list_word = "S" if r.list_deg >= 0.05 else ("P" if r.list_deg <= -0.05 else "")
     rows = [
         (("Δ", f"{r.displacement_t:.1f}", "t"), ("DWT", f"{r.deadweight_t:.1f}", "t")),
         (("T aft", f"{r.draft_aft_m:.3f}", "m"), ("T fwd", f"{r.draft_fwd_m:.3f}", "m")),
         (("T mid", f"{r.draft_mean_m:.3f}", "m"), ("Trim", f"{abs(r.trim_m):.3f}", f"m {trim_word}")),
-        (("Fbd", opt(r.freeboard_m, ".3f"), "m"), ("to LL", margin, "m" if compact else "m " + ll)),
-        (("List", f"{abs(r.list_deg):.2f}", f"° {list_word}"), ("∠deck", opt(r.deck_edge_angle_deg, ".1f"), "°")),
+        (("List", f"{abs(r.list_deg):.1f}", f"° {list_word}"), ("∠deck", opt(r.deck_edge_angle_deg, ".1f"), "°")),
+        (("Fbd", opt(r.freeboard_m, ".3f"), "m"), ("Margin", opt(r.load_line_margin_m, "+.3f"), "m")),
+        (("Mark", opt(r.load_line_allowed_draft_m, ".3f"), f"m {mark_letters(r.load_line_mark)}".strip()),
+         ("DWA", opt(r.dock_water_allowance_m, "+.3f"), "m")),
         (("KG", f"{r.kg_m:.3f}", "m"), ("θf", opt(r.downflooding_angle_deg, ".1f"), "°")),
         (("KG fl", f"{r.kg_fluid_m:.3f}", "m"), ("FSC", f"{r.fsc_m:.3f}", "m")),
         (("GM fl", f"{r.gm_fluid_m:.3f}", "m"), ("KM", f"{r.km_m:.3f}", "m")),
@@ -305,20 +324,35 @@ def gz_chart(result: Result | None, stale: bool, width: int, height: int) -> GzC
     return GzChart(tuple(result.gz_heel_deg), tuple(gz), tuple(marks), width, height, stale)
 
 
-def gz_caption(result: Result | None) -> Text:
+def gz_caption(result: Result | None, width: int | None = None) -> Text:
+    """' GZ curve to port  θf 39.6°  max 0.407 m at 29.9°  zero at 55.9°', angles to 0.1°.  θf is
+    given as a value (the plot only tags it on the axis); on a narrow panel the words that do not
+    fit are left out, least needed first (the KN-end notes, the vanishing angle, "curve")."""
     t = Text(" GZ curve", P["title"])
     if result is None:
         return t
-    t.append(f" to {result.criteria_side}", P["title"])
-    t.append(f"  max {result.max_gz_m:.3f} m at {result.max_gz_angle_deg:.0f}°", P["dim"])
-    if result.vanishing_angle_deg is not None:
-        t.append(f"  zero at {result.vanishing_angle_deg:.0f}°", P["dim"])
-    elif result.gz_end_deg < 90.0:
-        t.append(f"  zero beyond {result.gz_end_deg:g}° (KN end)", P["dim"])
-    if result.vanishing_angle_deg is not None and result.gz_end_deg < 90.0:
-        t.append(f"  curve ends {result.gz_end_deg:g}° (KN end)", P["dim"])
+    side = f" to {result.criteria_side}"
+    parts = [f"  max {result.max_gz_m:.3f} m at {result.max_gz_angle_deg:.1f}°"]
     if result.downflooding_angle_deg is not None:
-        t.append(f"  θf {result.downflooding_angle_deg:.0f}°", P["dim"])
+        parts.insert(0, f"  θf {result.downflooding_angle_deg:.1f}°")
+    zero = []
+    if result.vanishing_angle_deg is not None:
+        zero.append(f"  zero at {result.vanishing_angle_deg:.1f}°")
+    elif result.gz_end_deg < 90.0:
+        zero.append(f"  zero beyond {result.gz_end_deg:g}° (KN end)")
+    if result.vanishing_angle_deg is not None and result.gz_end_deg < 90.0:
+        zero.append(f"  curve ends {result.gz_end_deg:g}° (KN end)")
+    name = " GZ curve"
+    while width is not None and zero and len(name + side + "".join(parts + zero)) > width:
+        zero.pop()
+    if width is not None and len(name + side + "".join(parts + zero)) > width:
+        name = " GZ"
+    if width is not None and len(name + side + "".join(parts + zero)) > width:
+        parts[-1] = f"  max {result.max_gz_m:.3f} m"
+    t = Text(name, P["title"])
+    t.append(side, P["title"])
+    for p in parts + zero:
+        t.append(p, P["dim"])
     return t
 
 
