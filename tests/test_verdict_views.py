@@ -187,7 +187,7 @@ def test_calc_text_names_the_sets_the_weather_numbers_and_what_was_not_assessed(
     assert "A 2.2 general criteria [IS2008-A2.2]: met" in out and "A 2.3 weather criterion [IS2008-A2.3]: met" in out
     assert "Not assessed:" in out and "- damage stability: not computed by deckload" in out
     assert re.search(r"weather: wind 504 Pa on [\d.]+ m², lever [\d.]+ m; lw1 [\d.]+ m, lw2 [\d.]+ m; θ0", out)
-    assert re.search(r"Freeboard mid\s+[\d.]+ m\s+To load line\s+\+[\d.]+ m", out)
+    assert re.search(r"Freeboard mid\s+[\d.]+ m\s+Margin to the mark\s+\+[\d.]+ m", out)
     assert re.search(r"Deck edge in\s+[\d.]+°", out)
     flat = " ".join(out.split())
     assert "Met: IS Code 2008 Part A 2.2 general criteria, IS Code 2008 Part A 2.3 weather criterion." in flat

@@ -129,7 +129,7 @@ def entry_details(e: LogEntry) -> Text:
         ]
         rows += [
             ("Freeboard midships", _num(s.get("freeboard_m"), 3, " m") if "freeboard_m" in s else "—"),
-            ("To load line (+ below)", _num(s.get("load_line_margin_m"), 3, " m")),
+            ("Margin to the mark (+ below)", _num(s.get("load_line_margin_m"), 3, " m")),
             ("Deck edge immersion", _num(s.get("deck_edge_angle_deg"), 1, "°")),
             ("Downflooding θf", _num(s.get("downflooding_angle_deg"), 1, "°")),
         ]

@@ -15,7 +15,7 @@ from deckload.core.deadweight import deadweight_by_kind
 from deckload.core.free_surface import EXEMPT_RULE
 from deckload.core.model import Condition, LIQUID_KINDS, Vessel
 from deckload.core.result import CriterionResult, Result
-from deckload.verdict_format import fmt_optional
+from deckload.verdict_format import STATED_DENSITY_MARK, fmt_optional
 from deckload.ui.entry import fill_volume_m3, tank_density
 from deckload.ui.gzplot import GzChart, Mark
 from deckload.ui.palette import P
@@ -39,7 +39,7 @@ STATE_MARK = {"empty": " ", "slack": "≈", "worst_band": "▲", "full": "■"}
 """Tank state symbol: blank empty, ≈ slack, ▲ slack in its worst free-surface band, ■ nominally full."""
 LEGEND = ("≈ slack  ▲ worst band  ■ full  * FSM taken by the IS 2008 B 3.1 rule, not at the actual level  "
           "ex small tank exempt (B 3.1.12), its moment at the actual level beside it, not counted  "
-          "† density stated for this condition (delivery note), not the tank's default")
+          "◆ density stated for this condition (delivery note), not the tank's default")
 
 NEAR_FRACTION = 0.10
 """A criterion whose margin is under 10 % of its limit is flagged 'near'."""
@@ -76,9 +76,8 @@ class Row:
 
 RHO_COL_FROM = 56
 """Board width from which each tank's density has a column of its own."""
-STATED_MARK = "†"
-"""Beside a tank id: the density was stated for this condition (a bunker delivery note), not the
-tank's default."""
+STATED_MARK = STATED_DENSITY_MARK
+"""Beside a tank id: the density was stated for this condition (a bunker delivery note)."""
 
 
 @dataclass(frozen=True)
