@@ -28,10 +28,10 @@ import re
 
 import pytest
 
-from deckload.commands import format_summary
+from deckload.cli.calc import format_summary
 from deckload.core.model import Condition, LoadLine
 from deckload.core.stability import evaluate
-from deckload.report import render_report_text
+from deckload.report.condition_report import render_report_text
 from deckload.ui import views
 from vessel_factories import barge_at
 
