@@ -20,6 +20,7 @@ from deckload.logbook.records import KINDS, LogFormatError, _entry_from_line, sh
 GENESIS_SHA256 = "0" * 64
 """``prev_sha256`` of the first entry: there is no previous line."""
 
+
 @dataclass(frozen=True)
 class VerifyReport:
     ok: bool
@@ -32,6 +33,7 @@ class VerifyReport:
     """Number of complete lines read."""
     last_sha256: str = GENESIS_SHA256
     """SHA-256 of the newest complete line: write it in the paper log to anchor the chain."""
+
 
 def verify_lines(
     lines: list[bytes],
@@ -146,12 +148,14 @@ def verify_lines(
         last_sha256=sha256_hex(lines[-1]) if lines else GENESIS_SHA256,
     )
 
+
 def _line_of_seq(seqs: list[int | None], seq: int) -> int | None:
     """1-based line holding entry ``seq``, searched from the end (where the head points)."""
     for i in range(len(seqs) - 1, -1, -1):
         if seqs[i] == seq:
             return i + 1
     return None
+
 
 def _seq_of(line: bytes) -> int | None:
     try:
@@ -160,6 +164,7 @@ def _seq_of(line: bytes) -> int | None:
         return None
     seq = obj.get("seq") if isinstance(obj, dict) else None
     return seq if isinstance(seq, int) and not isinstance(seq, bool) else None
+
 
 def head_disagreement(head: dict | None, lines: list[bytes]) -> str | None:
     """Why the head record contradicts the log's complete lines, or None if it does not.
@@ -204,6 +209,7 @@ def head_disagreement(head: dict | None, lines: list[bytes]) -> str | None:
         f"{'entry #' + str(last) if last is not None else 'no readable entry'} "
         f"(entries removed, the file truncated, or the last line damaged)"
     )
+
 
 def find_anchor(lines: list[bytes], anchor_text: str) -> tuple[int, int] | None:
     """Where a paper copy's anchor (a SHA-256, or its first 12+ hex digits, optionally as

@@ -67,8 +67,10 @@ _REQUIRED: dict[str, type | tuple[type, ...]] = {
     "prev_sha256": str,
 }
 
+
 class LogFormatError(ValueError):
     """A log line could not be read; the message names the file and line."""
+
 
 def validate_initials(by: str) -> str:
     """Initials of the officer: 1–4 letters, stored in capitals."""
@@ -76,8 +78,10 @@ def validate_initials(by: str) -> str:
         raise ValueError(f"initials {by!r} must be 1 to 4 letters (A–Z), e.g. 'JM'")
     return by.strip().upper()
 
+
 def sha256_hex(data: bytes) -> str:
     return hashlib.sha256(data).hexdigest()
+
 
 def _json_safe(obj: Any) -> Any:
     """Plain JSON types; non-finite floats become the strings 'inf', '-inf', 'nan'."""
@@ -91,8 +95,10 @@ def _json_safe(obj: Any) -> Any:
         return _json_safe(obj.tolist())
     return obj
 
+
 def _dumps(obj: Any) -> str:
     return json.dumps(_json_safe(obj), ensure_ascii=False, separators=(",", ":"), allow_nan=False)
+
 
 def summarise(result: Result) -> dict:
     """The computed summary stored in each entry (units in the key names)."""
@@ -138,11 +144,13 @@ def summarise(result: Result) -> dict:
         "warnings": [w.message for w in result.warnings],
     }
 
+
 def condition_record(condition: Condition) -> str:
     """The condition as stored in a log entry: the TOML text of ``profiles.dump_condition``."""
     from deckload.io.profiles import dump_condition
 
     return dump_condition(condition)
+
 
 def condition_of(entry: "LogEntry", vessel) -> Condition:
     """The condition stored in ``entry``, validated against ``vessel`` (for viewing or restoring).
@@ -157,6 +165,7 @@ def condition_of(entry: "LogEntry", vessel) -> Condition:
     if not isinstance(entry.condition, str):
         raise ValueError(f"log line {entry.line_no}: the stored condition is not TOML text")
     return parse_condition(entry.condition, f"log line {entry.line_no}", vessel)
+
 
 @dataclass(frozen=True)
 class LogEntry:
@@ -200,6 +209,7 @@ class LogEntry:
     @property
     def criteria_pass(self) -> bool | None:
         return None if self.summary is None else self.summary.get("criteria_pass")
+
 
 def _entry_from_line(line: bytes, line_no: int) -> LogEntry:
     """Parse one line; :class:`LogFormatError` names the line and what is wrong.
@@ -245,6 +255,7 @@ def _entry_from_line(line: bytes, line_no: int) -> LogEntry:
         prev_sha256=obj["prev_sha256"],
         sha256=sha256_hex(line),
     )
+
 
 def filter_entries(
     entries: Iterable[LogEntry],

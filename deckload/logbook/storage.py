@@ -23,6 +23,7 @@ from deckload.logbook.records import LogFormatError, _dumps, _entry_from_line
 
 HEAD_FORMAT = "deckload-log-head-1"
 
+
 @dataclass(frozen=True)
 class TornRecovery:
     """A torn last line found at start and set aside in a side file."""
@@ -142,10 +143,12 @@ def _write_all(fd: int, data: bytes) -> None:
         n = os.write(fd, view)
         view = view[n:]
 
+
 def _split_lines(data: bytes) -> tuple[list[bytes], bytes]:
     """Complete lines (without '\\n') and the unterminated remainder."""
     parts = data.split(b"\n")
     return parts[:-1], parts[-1]
+
 
 def _read_fd(fd: int) -> bytes:
     size = os.fstat(fd).st_size
@@ -159,11 +162,13 @@ def _read_fd(fd: int) -> bytes:
         pos += len(b)
     return b"".join(chunks)
 
+
 def _parses(line: bytes) -> bool:
     try:
         return isinstance(json.loads(line.decode("utf-8")), dict)
     except (ValueError, RecursionError):
         return False
+
 
 def log_files(directory: Path) -> list[Path]:
     """The vessel logs in ``directory`` (sorted by name), including logs whose file is gone but
@@ -172,6 +177,7 @@ def log_files(directory: Path) -> list[Path]:
     logs = set(d.glob("*.log.jsonl"))
     logs |= {h.with_name(h.name.removesuffix(".head.json") + ".jsonl") for h in d.glob("*.log.head.json")}
     return sorted(logs)
+
 
 def vessel_of_log(path: Path) -> str:
     """The vessel name recorded in a log's first readable line (else its file-name slug)."""
