@@ -414,8 +414,8 @@ def stage_warnings(vessel: Vessel, condition: Condition, weights: Weights, fs: F
     """Stage 6: every caution and danger of the condition, checks first, then the stages' notes.
 
     The checks (:func:`_warnings`): each criterion not assessed, failed, or within
-    10 % of its limit (deckload's own threshold); tanks in their worst slack band; a
-    list over 2° (common practice); the midships draft over the permitted load-line
+    10 % of its limit; tanks in their worst slack band; a list over 2° (both thresholds
+    deckload's own); the midships draft over the permitted load-line
     draft; deck loads per m² over the area's limit, item by item and area by area;
     hold loads over the hold's limit.  Then the notes of stages 1–5 in order, then
     GM fluid ≤ 0 (she lolls to the list's side), no equilibrium (GZ never positive),
