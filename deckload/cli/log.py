@@ -312,10 +312,8 @@ def _verify(args) -> int:
         try:
             rep = book.verify()
             if against:
-                from deckload.logbook import _split_lines, find_anchor
-
                 try:
-                    at = find_anchor(_split_lines(book._read())[0], against)
+                    at = book.find(against)
                 except ValueError as e:
                     print(f"deckload log verify: --against: {e}", file=sys.stderr)
                     return 1
