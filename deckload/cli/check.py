@@ -29,10 +29,7 @@ from deckload.report import verdict_format as vf
 from deckload.core import model as m
 from deckload.io.profiles import Problem, ProfileError, load_condition, read_profile
 
-CAUTION = (
-    "deckload supports, and never replaces, the approved stability booklet, "
-    "the master's judgement and flag-State and class rules."
-)
+CAUTION = vf.CAUTION
 
 
 def _plural(n: int, word: str, many: str | None = None) -> str:
