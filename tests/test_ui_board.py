@@ -3,6 +3,9 @@ the deadweight breakdown by kind (textual pilot, App.run_test)."""
 
 from __future__ import annotations
 
+from datetime import datetime, timezone
+from types import SimpleNamespace
+
 import pytest
 
 from deckload.io import paths
@@ -120,3 +123,28 @@ def test_every_liquid_kind_falls_in_one_deadweight_line():
     lines = dict(deadweight.DWT_LINES)
     for kind in LIQUID_KINDS:
         assert deadweight._TANK_LINE.get(kind, kind) in lines, kind
+
+
+def test_a_logged_condition_keeps_its_deadweight_by_kind_and_load_line():
+    """The voyage log's summary carries the breakdown and the mark's allowed draft, shown in the
+    entry's details; entries written before they existed show without them."""
+    from deckload.core.stability import evaluate
+    from deckload.io.profiles import load_condition, load_profile
+    from deckload.logbook.records import summarise
+    from deckload.ui.log_screen import entry_details
+
+    v = load_profile(paths.DEMO_PROFILE)
+    r = evaluate(v, load_condition(paths.DEMO_CONDITIONS["departure"], v))
+    s = summarise(r)
+    assert sum(s["deadweight_by_kind_t"].values()) == pytest.approx(r.deadweight_t, abs=1e-9)  # same terms summed
+    assert s["load_line_mark"] == "summer" and s["load_line_allowed_draft_m"] == r.load_line_allowed_draft_m
+
+    when = datetime(2026, 12, 2, 21, 0, tzinfo=timezone.utc)
+    entry = SimpleNamespace(seq=7, ship_time=when, ship_clock="+00:00", utc=when, kind="condition", by="TS",
+                            change_text="condition recorded", remark="", summary=s, change_data={},
+                            sha256="0" * 64)  # the fields it reads
+    text = entry_details(entry).plain
+    assert "Deadweight by kind     Cargo 230.44 t · Fuel oil 21.28 t" in text
+    assert f"summer, allows {r.load_line_allowed_draft_m:.3f} m in this water" in text
+    entry.summary = {k: v for k, v in s.items() if k not in ("deadweight_by_kind_t", "load_line_mark")}
+    assert "Deadweight by kind" not in entry_details(entry).plain
