@@ -90,7 +90,7 @@ def format_comparison(cmp) -> str:
         f"    {'':<24}{'tables':>11}{'direct':>11}{'difference':>12}",
     ]
     for name, unit, a, b in cmp.rows:
-        d = 2 if unit == "deg" else 4 if unit == "m·rad" else 3
+        d = 1 if unit == "deg" else 4 if unit == "m·rad" else 3  # angles to 0.1°, as every view
         lines.append(f"    {name:<24}{a:11.{d}f}{b:11.{d}f}{b - a:+12.{d}f} {unit}")
     lines.append("    The criteria above are judged on the tables; the direct figures are for comparison.")
     return "\n".join(lines)

@@ -418,7 +418,7 @@ def _direct(cmp) -> Table:
     for head, just in (("", "left"), ("tables", "right"), ("direct", "right"), ("difference", "right"), ("", "left")):
         t.add_column(head, justify=just)
     for name, unit, a, b in cmp.rows:
-        d = 2 if unit == "deg" else 4 if unit == "m·rad" else 3
+        d = 1 if unit == "deg" else 4 if unit == "m·rad" else 3  # angles to 0.1°, as every view
         t.add_row(name, f"{a:.{d}f}", f"{b:.{d}f}", f"{b - a:+.{d}f}", unit)
     return t
 
