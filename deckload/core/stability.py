@@ -5,7 +5,8 @@ nothing outside is read or written.  Steps, each in its own module:
 
 1. tank contents and item weights (:mod:`loading`); Δ, LCG, KG solid, TCG;
 2. free-surface moment of each tank (:mod:`free_surface`); FSC = ΣFSM/Δ; KG fluid;
-3. hydrostatics at the density-corrected displacement (:mod:`hydrostatics`);
+3. hydrostatics at the density-corrected displacement (:mod:`hydrostatics`), or at the
+   equilibrium trim when the profile has tables at several trims (:mod:`trimmed_tables`);
    GM solid = KMt − KG, GM fluid = KMt − KG fluid; trim, drafts, list;
 4. the GZ curve (:mod:`gz`): GZ = KN − KG_fluid·sinφ − TCG·cosφ (constant correction),
    or GZ = KN − KG_solid·sinφ − TCG·cosφ − Σρ·M(φ)/Δ with the actual moment of fluid
@@ -24,21 +25,15 @@ from deckload.core import gz as gzmod
 from deckload.core.bounds import bounded
 from deckload.core.criteria import Measures, limit_curve_criterion
 from deckload.core.free_surface import BASIS_NONE, free_surface, transfer_moment_m4
-from deckload.core.hydrostatics import (
-    draft_at,
-    fresh_water_allowance_m,
-    mark_density_t_m3,
-    permitted_draft_m,
-    trim_m,
-    upright,
-)
+from deckload.core.hydrostatics import draft_at, fresh_water_allowance_m, mark_density_t_m3, permitted_draft_m
 from deckload.core.loading import LoadingError, hold_item, resolve_tanks, sum_weights
 from deckload.core.model import Condition, Vessel, effective_constants
 from deckload.core.result import ItemResult, Result, TankResult, Warning
 from deckload.core.tables import OutOfRangeError, bracket, interp, lerp_row
 from deckload.core.verdict import Afloat, assess, deck_edge_angle
 from deckload.core.soundings import level_soundings, sounding_note
-from deckload.core.trim import BASIS_TABLE, even_keel_note, kn_reference_note, trim_moment
+from deckload.core.trim import BASIS_TABLE, kn_reference_note
+from deckload.core.trimmed_tables import covers_kn, floating
 
 LIST_WARNING_DEG = 2.0
 NEAR_LIMIT_FRACTION = 0.10
@@ -97,31 +92,30 @@ def evaluate(vessel: Vessel, condition: Condition) -> Result:
     fsc = fsm_total / disp
     kg_fluid = w.vcg_m + fsc
 
-    hy = upright(vessel, disp, rho_w)
+    # even-keel tables, or tables at several trims interpolated at the equilibrium trim
+    # (core/trimmed_tables.py); MCT from the actual GM_L where the profile has KM_L (core/trim.py)
+    fl = floating(vessel, disp, rho_w, w.lcg_m, kg_fluid)
+    hy, mct, trim = fl.upright, fl.moment, fl.trim_m
     gm_solid = hy.kmt_m - w.vcg_m
     gm_fluid = hy.kmt_m - kg_fluid
-    # MCT from the actual GM_L where the profile has KM_L (core/trim.py)
-    mct = trim_moment(vessel, hy, disp, kg_fluid)
-    trim = trim_m(disp, w.lcg_m, hy.lcb_m, mct.mctc_tm_cm)
     lbp = vessel.particulars.lbp_m
     t_aft = draft_at(0.0, hy.draft_m, hy.lcf_m, trim, lbp)
     t_fwd = draft_at(lbp, hy.draft_m, hy.lcf_m, trim, lbp)
     t_mid = draft_at(lbp / 2.0, hy.draft_m, hy.lcf_m, trim, lbp)
 
-    kn = gzmod.kn_curve(vessel.cross_curves, hy.table_displacement_t)
+    kn = fl.kn_m
     # The curve stops at the KN table's last angle (booklets may end at 60°): cut the grid.
     n_grid = len(kn)
     fine_deg, fine_rad = gzmod.FINE_DEG[:n_grid], gzmod.FINE_RAD[:n_grid]
     sin, cos = gzmod.SIN[:n_grid], gzmod.COS[:n_grid]
     gz_end = float(fine_deg[-1])
     warnings: list[Warning] = [Warning(code, msg, "caution") for code, msg in sounding_note(condition, s_done, s_not)]
-    trim_note = even_keel_note(trim, lbp)
-    if trim_note is not None:
-        warnings.append(Warning("trim-beyond-tables", trim_note, "caution"))
-    kn_note = kn_reference_note(vessel.cross_curves, w.lcg_m, vessel.particulars.lbp_m)
+    if fl.trim_note is not None:
+        warnings.append(Warning("trim-beyond-tables", fl.trim_note, "caution"))
+    kn_note = None if covers_kn(vessel, trim) else kn_reference_note(vessel.cross_curves, w.lcg_m, lbp)
     if kn_note is not None:
         warnings.append(Warning("kn-reference-lcg", kn_note, "caution"))
-    if mct.basis == BASIS_TABLE:
+    if mct.basis == BASIS_TABLE and not fl.trimmed:
         warnings.append(Warning("trim-from-table-mctc",
                                 "the profile has no KML: trim is worked from the tabulated MCTC (made with BML, "
                                 "not the actual GML), so it is slightly too small", "caution"))
