@@ -72,6 +72,7 @@ from deckload.core.bounds import (  # noqa: E402  one set of ranges for files an
     BEAM_DEPTH_RANGE_M,
     LBP_RANGE_M,
     WATER_DENSITY_RANGE_T_M3,
+    table_trim_range,
 )
 
 CAPACITY_TOLERANCE = 0.0005
@@ -183,6 +184,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     lightship = _read_lightship(root, frame, rd)
     hydro = _read_hydrostatics(root, frame, rd)
     cross = _read_cross_curves(root, frame, rd)
+    trimmed = _read_trimmed_tables(root, particulars, frame, rd, hydro, cross)
     fs = _read_free_surface(root, lightship)
     criteria = _read_criteria(root, particulars)
     extra = _read_extra_criteria(root, particulars)
@@ -234,6 +236,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
         conversions=tuple(rd.conversions),
         assumptions=tuple(rd.assumptions),
         draft_marks=marks,
+        trimmed=trimmed,
         usual_fill_pct=usual,
         hull=hull,
         tank_bodies=tank_bodies,
@@ -364,6 +367,11 @@ def _read_hydrostatics(root: Table, frame: Frame | None, rd: Reading) -> m.Hydro
     t = root.table("hydrostatics")
     if t is None:
         return None
+    return _read_hydro_table(t, frame, rd, "hydrostatics")
+
+
+def _read_hydro_table(t: Table, frame: Frame | None, rd: Reading, where: str) -> m.HydrostaticTable | None:
+    """One hydrostatic table: ``[hydrostatics]`` or an entry of ``[[hydrostatics_at_trim]]``."""
     if not attach_csv(t, HYDRO_COLUMNS):
         return None
     f = read_frame(t, frame, drafts=True)
@@ -386,12 +394,12 @@ def _read_hydrostatics(root: Table, frame: Frame | None, rd: Reading) -> m.Hydro
     t.finish()
     if not t.same_length("draft_m", cols) or f is None:
         return None
-    rd.tables["hydrostatics"] = TableReading(f, csv=t.data.get("csv"), columns=_csv_columns(t))
-    _note_frame(rd, "hydrostatics", f, "lcb_m, lcf_m", "", False)
+    rd.tables[where] = TableReading(f, csv=t.data.get("csv"), columns=_csv_columns(t))
+    _note_frame(rd, where, f, "lcb_m, lcf_m", "", False)
     cols["lcb_m"] = f.x_to_ap(cols["lcb_m"])
     cols["lcf_m"] = f.x_to_ap(cols["lcf_m"])
     if f.draft_basis == "extreme":
-        rd.convert("hydrostatics", "draft_m", f"extreme → moulded (− keel {num(f.keel_thickness_m)} m)")
+        rd.convert(where, "draft_m", f"extreme → moulded (− keel {num(f.keel_thickness_m)} m)")
         cols["draft_m"] = f.draft_to_moulded(cols["draft_m"])
         if cols["draft_m"][0] < 0:
             t.bad("draft_m", t.data["draft_m"], f"the first extreme draft is less than the keel thickness {num(f.keel_thickness_m)} m")
@@ -410,28 +418,116 @@ def _read_cross_curves(root: Table, frame: Frame | None, rd: Reading) -> m.Cross
     if not attach_kn_csv(t):
         return None
     basis = t.text("trim_basis", choices=("free trim", "even keel"))
+    return _read_kn_table(t, frame, rd, basis)
+
+
+def _read_kn_table(t: Table, frame: Frame | None, rd: Reading, basis: str | None,
+                   even: m.CrossCurves | None = None) -> m.CrossCurves | None:
+    """One KN table: ``[cross_curves]``, or an entry of ``[[cross_curves_at_trim]]`` (``even`` given:
+    its basis and heels are the even-keel table's, and it has no reference LCG of its own)."""
     heel = t.increasing("heel_deg", t.array("heel_deg", heel_range))
     heel = t.starts_at("heel_deg", heel, 0.0, "the upright condition")
     if heel is not None and heel[-1] < KN_MIN_END_DEG - 1e-9:
         t.bad("heel_deg", t.data["heel_deg"], f"must reach at least {num(KN_MIN_END_DEG)}° (it ends at {num(heel[-1])}°): "
               "the IS 2008 A 2.2.1 areas run to 40°; nothing is extrapolated")
         heel = None
+    if even is not None and heel is not None and not np.array_equal(heel, even.heel_deg):
+        t.bad("heel_deg", t.data["heel_deg"], "must be the heel angles of [cross_curves] "
+              f"({', '.join(num(float(x)) for x in even.heel_deg)}°): KN are interpolated in trim heel by heel")
+        heel = None
     disp = t.increasing("displacement_t", t.array("displacement_t", positive))
     kn = t.matrix("kn_m", "displacement_t", t.raw_len("displacement_t"), "heel_deg", t.raw_len("heel_deg"))
-    has_ref = t.has("reference_lcg_m")
-    ref = t.num("reference_lcg_m", required=False)
-    f = read_frame(t, frame)
+    has_ref = even is None and t.has("reference_lcg_m")
+    ref = t.num("reference_lcg_m", required=False) if even is None else None
+    f = read_frame(t, frame) if even is None else frame
     t.finish()
     if basis is None or heel is None or disp is None or kn is None or (has_ref and ref is None) or f is None:
         return None
     if ref is not None:
         _note_frame(rd, "cross_curves", f, "reference_lcg_m", "", False)
         ref = float(f.x_to_ap(ref))
+    if even is not None:
+        return m.CrossCurves(heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp),
+                             kn_m=m.frozen_array(kn), trim_basis=basis)
     rd.tables["cross_curves"] = TableReading(f, csv=t.data.get("csv"))
     return m.CrossCurves(
         heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis,
         reference_lcg_m=ref,
     )
+
+
+def _read_table_trim(t: Table, p: m.Particulars | None) -> float | None:
+    """A trimmed table's trim (m, + by the stern): ``trim_m``, or ``trim_pct_lbp`` (% of LBP)."""
+    has_m, has_pct = t.has("trim_m"), t.has("trim_pct_lbp")
+    if has_m == has_pct:
+        t.get("trim_m", False)
+        t.get("trim_pct_lbp", False)
+        t.bad("trim_m", t.data.get("trim_m", MISSING), "give the table's trim once: trim_m (m, + by the stern) "
+              "or trim_pct_lbp (% of LBP, + by the stern)")
+        return None
+    if p is None:
+        t.get("trim_m" if has_m else "trim_pct_lbp", False)
+        return None
+    rng = table_trim_range(p)
+    if has_m:
+        return t.num("trim_m", lambda x: rng.rule(x))
+    pct = t.num("trim_pct_lbp", lambda x: rng.rule(x * p.lbp_m / 100.0))
+    return None if pct is None else pct * p.lbp_m / 100.0
+
+
+def _read_trimmed_tables(root: Table, particulars: m.Particulars | None, frame: Frame | None, rd: Reading,
+                         hydro: m.HydrostaticTable | None, cross: m.CrossCurves | None) -> m.TrimmedTables | None:
+    """``[[hydrostatics_at_trim]]`` and ``[[cross_curves_at_trim]]`` beside the even-keel tables (trim 0).
+
+    Trims strictly increasing in the order written, none 0 (that is the even-keel table), each
+    within :func:`deckload.core.bounds.table_trim_range`; the tables themselves pass every check
+    of ``[hydrostatics]`` / ``[cross_curves]``, KN with the even-keel table's heels.
+    """
+    sets = []
+    ok = True
+    for key, what in (("hydrostatics_at_trim", "hydrostatics"), ("cross_curves_at_trim", "cross_curves")):
+        entries = root.tables(key)
+        trims, tables = [], []
+        for n, t in enumerate(entries):
+            trim = _read_table_trim(t, particulars)
+            if trim is not None:
+                t.name = f"{key}[{num(round(trim, 6))} m]"
+            if trim is not None and abs(trim) < 1e-9:
+                t.bad("trim_m" if t.has("trim_m") else "trim_pct_lbp", t.data.get("trim_m", t.data.get("trim_pct_lbp")),
+                      f"trim 0 is the even-keel [{what}] table; give only the other trims here")
+                trim = None
+            elif trim is not None and trims and trims[-1] is not None and trim <= trims[-1]:
+                t.bad("trim_m" if t.has("trim_m") else "trim_pct_lbp", t.data.get("trim_m", t.data.get("trim_pct_lbp")),
+                      f"trims must increase strictly from one [[{key}]] to the next "
+                      f"(the one before is {num(round(trims[-1], 6))} m)")
+                trim = None
+            if what == "hydrostatics":
+                table = _read_hydro_table(t, frame, rd, t.name)
+            else:
+                table = (_read_kn_table(t, frame, rd, cross.trim_basis, cross)
+                         if cross is not None and attach_kn_csv(t) else None)
+                if cross is None:
+                    for k in list(t.data):
+                        t.get(k, False)
+            ok &= trim is not None and table is not None
+            trims.append(trim)
+            tables.append(table)
+        if key == "hydrostatics_at_trim" and entries and hydro is not None and hydro.vcb_m is None:
+            entries[0].bad("trim_m" if entries[0].has("trim_m") else "trim_pct_lbp", MISSING,
+                           "tables at trims need KB: give vcb_m in [hydrostatics] (each trimmed table may give its own)")
+            ok = False
+        sets.append((trims, tables))
+    (ht, hs), (kt, ks) = sets
+    if not (hs or ks) or not ok or hydro is None or cross is None:
+        return None
+
+    def with_even(trims, tables, even):
+        pairs = sorted(zip(trims + [0.0], tables + [even]), key=lambda p: p[0])
+        return m.frozen_array([p[0] for p in pairs]), tuple(p[1] for p in pairs)
+
+    htr, htab = with_even(ht, hs, hydro)
+    ktr, ktab = with_even(kt, ks, cross)
+    return m.TrimmedTables(hydro_trim_m=htr, hydrostatics=htab, kn_trim_m=ktr, cross_curves=ktab)
 
 
 def _check_kn_reach(root: Table, cross: m.CrossCurves | None, flood: m.LimitCurve | None) -> None:
