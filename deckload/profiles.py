@@ -40,7 +40,7 @@ from deckload.core.gz import STEP_DEG as GZ_STEP_DEG
 from deckload.core.gz import grid_points
 from deckload.core.loading import reading_range
 from deckload.core.tables import interp
-from deckload.csvtables import attach_csv, attach_kn_csv
+from deckload.csvtables import attach_csv, attach_kn_csv, attach_trim_csv
 # Problem, ProfileError and ID_PATTERN are imported from here by other modules too
 from deckload.tomlcheck import (
     ID_PATTERN,
@@ -204,7 +204,8 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
     depth = particulars.depth_m if particulars is not None else math.inf
-    tanks = _read_tanks(root, fs, ids, frame, rd, depth)
+    tanks = _read_tanks(root, fs, ids, frame, rd, depth,
+                        table_trim_range(particulars) if particulars is not None else None)
     holds = _read_holds(root, ids, frame, rd)
     areas = _read_deck_areas(root, ids, frame, rd)
     constants = _read_profile_constants(root, frame, rd)
@@ -995,11 +996,11 @@ def _read_draft_marks(root: Table, particulars: m.Particulars | None, frame: Fra
 
 
 def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,
-                rd: Reading, depth_m: float) -> list[m.Tank]:
+                rd: Reading, depth_m: float, trim_range=None) -> list[m.Tank]:
     entries = []
     complete = True
     for t in root.tables("tank"):
-        kw, ok_tank = _read_tank(t, fs, ids, frame, rd, depth_m)
+        kw, ok_tank = _read_tank(t, fs, ids, frame, rd, depth_m, trim_range)
         entries.append((t, kw))
         complete &= ok_tank
     ok = check_tank_pairs([(t, kw["id"], kw.get("pair")) if kw is not None else (t, None, None) for t, kw in entries])
@@ -1035,7 +1036,7 @@ PIPE_HEAD_M = 2.0
 
 
 def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,
-               rd: Reading, depth_m: float) -> tuple[dict | None, bool]:
+               rd: Reading, depth_m: float, trim_range=None) -> tuple[dict | None, bool]:
     """The Tank's keyword arguments and whether they are complete (else only id and pair)."""
     ident = claim_id(t, "tank", ids)
     kw: dict[str, Any] = dict(id=ident, name=t.text("name"))
@@ -1103,6 +1104,22 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], 
             kw["calibration"] = _read_calibration(cal, capacity, t, f, rd, kw, max_fsi if fsi_given == "max" else None, fsm_ok)
             if bad_level:
                 kw["calibration"] = None
+    kw["trim_correction"] = None
+    if t.has("trim_correction"):
+        tc = t.table("trim_correction")
+        if tc is not None:
+            if kw["calibration"] is None or capacity_only:
+                if capacity_only:
+                    t.bad("trim_correction", MISSING, "a tank without a calibration table has no soundings to correct")
+                for k in list(tc.data):
+                    tc.get(k, False)
+                kw["calibration"] = None
+            else:
+                kw["trim_correction"] = _read_trim_correction(tc, kw, trim_range)
+                if kw["trim_correction"] is None:
+                    kw["calibration"] = None  # marks the tank unusable (the problem is reported)
+    else:
+        t.get("trim_correction", False)
     if t.has("transfer"):
         tr = t.table("transfer")
         kw["transfer"] = None if tr is None else _read_transfer(tr)
@@ -1284,6 +1301,53 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
     return m.TankCalibration(sounding_m=m.frozen_array(cols["level"]), volume_m3=m.frozen_array(cols["volume_m3"]),
                              lcg_m=m.frozen_array(cols["lcg_m"]), vcg_m=m.frozen_array(cols["vcg_m"]),
                              tcg_m=m.frozen_array(cols["tcg_m"]), fsi_m4=m.frozen_array(cols["fsi_m4"]))
+def _read_trim_correction(t: Table, kw: dict, trim_range) -> m.TrimCorrection | None:
+    """``[tank.trim_correction]``: the booklet's trim corrections for soundings (model.TrimCorrection).
+
+    ``trim_m`` (m, + by the stern) strictly increasing, none 0 (the calibration itself), each within the table-trim range; ``sounding_m`` strictly increasing,
+    each a sounding the tank can show (its level within the calibration); and one of
+    ``sounding_correction_m`` (|correction| at most the calibration's height) or ``volume_m3``
+    (0 … capacity), one row per sounding and one column per trim.
+    """
+    if not attach_trim_csv(t):
+        return None
+    cal: m.TankCalibration = kw["calibration"]
+    zero = kw["sounding_zero_m"] or 0.0
+    top = float(cal.sounding_m[-1])
+    trims = t.increasing("trim_m", t.array("trim_m", lambda x: trim_range.rule(x) if trim_range else None, min_len=1))
+    if trims is not None and np.any(np.abs(trims) < 1e-9):
+        t.bad("trim_m", t.data["trim_m"], "trim 0 is the calibration table itself; give only the other trims")
+        trims = None
+    sound_rule = between(-zero, top - zero, "m", "a sounding the tank can show: its level within the calibration")
+    sound = t.increasing("sounding_m", t.array("sounding_m", sound_rule))
+    has_corr, has_vol = t.has("sounding_correction_m"), t.has("volume_m3")
+    if has_corr == has_vol:
+        t.get("sounding_correction_m", False)
+        t.get("volume_m3", False)
+        t.bad("sounding_correction_m", t.data.get("sounding_correction_m", MISSING),
+              "give one of sounding_correction_m (m, added to the observed sounding) or volume_m3 (m³ at that "
+              "sounding and trim)")
+        t.finish()
+        return None
+    key = "sounding_correction_m" if has_corr else "volume_m3"
+    val = t.matrix(key, "sounding_m", t.raw_len("sounding_m"), "trim_m", t.raw_len("trim_m"))
+    t.finish()
+    if trims is None or sound is None or val is None:
+        return None
+    cap = float(cal.volume_m3[-1])
+    lo, hi = (-top, top) if has_corr else (0.0, cap * (1 + CAPACITY_TOLERANCE))
+    bad = np.argwhere((val < lo) | (val > hi))
+    if bad.size:
+        i, j = (int(x) for x in bad[0])
+        what = (f"a sounding correction must stay within ±{num(top)} m, the calibration's height" if has_corr
+                else f"a volume must lie within 0–{num(cap)} m³, the tank's capacity")
+        t.bad(key, t.data[key], f"row {i + 1}, column {j + 1}: {num(float(val[i, j]))} is outside the tank: {what}",
+              (i, j))
+        return None
+    return m.TrimCorrection(trim_m=m.frozen_array(trims), sounding_m=m.frozen_array(sound),
+                            value=m.frozen_array(val), kind=key)
+
+
 def _read_transfer(t: Table) -> m.FluidTransfer | None:
     fill = t.increasing("fill_pct", t.array("fill_pct", percent_range))
     fill = t.starts_at("fill_pct", fill, 0.0, "empty")
