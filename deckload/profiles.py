@@ -1318,7 +1318,7 @@ def _read_trim_correction(t: Table, kw: dict, trim_range) -> m.TrimCorrection | 
     if trims is not None and np.any(np.abs(trims) < 1e-9):
         t.bad("trim_m", t.data["trim_m"], "trim 0 is the calibration table itself; give only the other trims")
         trims = None
-    sound_rule = between(-zero, top - zero, "m", "a sounding the tank can show: its level within the calibration")
+    sound_rule = between(0.0 - zero, top - zero, "m", "a sounding the tank can show: its level within the calibration")
     sound = t.increasing("sounding_m", t.array("sounding_m", sound_rule))
     has_corr, has_vol = t.has("sounding_correction_m"), t.has("volume_m3")
     if has_corr == has_vol:
