@@ -26,8 +26,8 @@ from box_profile_text import BoxTank, box_profile_text
 from deckload.core.model import Condition, TankFill, TrimCorrection, frozen_array
 from deckload.core.soundings import BOOKLET, GEOMETRY, correct_sounding
 from deckload.core.stability import evaluate
-from deckload.paths import DEMO_PROFILE
-from deckload.profiles import ProfileError, load_profile, parse_profile
+from deckload.io.paths import DEMO_PROFILE
+from deckload.io.profiles import ProfileError, load_profile, parse_profile
 
 L, B, D = 40.0, 8.0, 10.0
 TRIMS = [-1.0, -0.5, 0.5, 1.0]

@@ -16,10 +16,10 @@ import numpy as np
 import pytest
 
 from box_profile_text import BoxTank, box_profile_text
-from deckload.audit_report import audit_profile
+from deckload.report.audit_findings import audit_profile
 from deckload.core.model import Condition
 from deckload.core.stability import evaluate
-from deckload.profiles import ProfileError, load_profile, parse_profile
+from deckload.io.profiles import ProfileError, load_profile, parse_profile
 from test_reference_trimmed_tables import B, D, L, RHO, exact_trim, hydro_at_trim
 from vessel_factories import box_kn_m
 
