@@ -183,3 +183,16 @@ def test_booklet_columns_are_preferred_to_the_geometry(demo):
     assert f"({BOOKLET})" in note and _tank(r, "DB2P").sounding_m == pytest.approx(expect, abs=1e-9)
     assert f"({GEOMETRY})" in run(1.5)[1]
     assert f"({GEOMETRY})" in run(0.75, -2.0)[1]
+
+
+def test_deckload_csv_writes_the_columns_back(tmp_path, capsys):
+    """`deckload csv` writes the trim corrections as sounding_m + corr_<trim>; read back, the same numbers."""
+    from deckload.cli.csv_export import run_csv
+
+    (tmp_path / "p.toml").write_text(profile(CORR), encoding="utf-8")
+    assert run_csv(tmp_path / "p.toml", tmp_path / "out") == 0
+    assert "tank_DB1_trim.csv" in capsys.readouterr().out
+    (tmp_path / "q.toml").write_text(profile('\n  [tank.trim_correction]\n  csv = "out/tank_DB1_trim.csv"\n'),
+                                     encoding="utf-8")
+    tc = load_profile(tmp_path / "q.toml").tank("DB1").trim_correction
+    assert list(tc.trim_m) == TRIMS and np.allclose(tc.value, corrections(), rtol=1e-9, atol=1e-12)

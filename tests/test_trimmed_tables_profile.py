@@ -204,3 +204,23 @@ def test_demo_like_clean_trimmed_box_audits_clean(tmp_path):
     f.write_text(profile(TRIMMED), encoding="utf-8")
     assert not [x for x in audit_profile(f, load_profile(f)) if x.is_error]
 
+
+
+def test_deckload_csv_writes_the_trimmed_tables_back(tmp_path, capsys):
+    """`deckload csv` writes every table at a trim; a profile reading them back has the same numbers
+    (the CSV cells carry 10 significant digits: 1e-9 relative)."""
+    from deckload.cli.csv_export import run_csv
+
+    src = tmp_path / "p.toml"
+    src.write_text(profile(TRIMMED), encoding="utf-8")
+    assert run_csv(src, tmp_path / "out") == 0
+    out = capsys.readouterr().out
+    assert "hydrostatics_trim_+2.csv" in out and "kn_trim_-1.csv" in out
+    back = [f"[[hydrostatics_at_trim]]\ntrim_m = {t}\ncsv = \"out/hydrostatics_trim_{t:+g}.csv\"\n" for t in (-1.0, 1.0, 2.0)]
+    back += [f"[[cross_curves_at_trim]]\ntrim_m = {t}\ncsv = \"out/kn_trim_{t:+g}.csv\"\n" for t in (-1.0, 1.0, 2.0)]
+    (tmp_path / "q.toml").write_text(profile("\n".join(back)), encoding="utf-8")
+    a, b = load_profile(src), load_profile(tmp_path / "q.toml")
+    for x, y in zip(a.trimmed.hydrostatics, b.trimmed.hydrostatics):
+        assert np.allclose(x.lcb_m, y.lcb_m, rtol=1e-9, atol=0) and np.allclose(x.kml_m, y.kml_m, rtol=1e-9, atol=0)
+    for x, y in zip(a.trimmed.cross_curves, b.trimmed.cross_curves):
+        assert np.allclose(x.kn_m, y.kn_m, rtol=1e-9, atol=1e-12)

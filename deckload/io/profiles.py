@@ -448,6 +448,7 @@ def _read_kn_table(t: Table, frame: Frame | None, rd: Reading, basis: str | None
         _note_frame(rd, "cross_curves", f, "reference_lcg_m", "", False)
         ref = float(f.x_to_ap(ref))
     if even is not None:
+        rd.tables[t.name] = TableReading(f, csv=t.data.get("csv"))
         return m.CrossCurves(heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp),
                              kn_m=m.frozen_array(kn), trim_basis=basis)
     rd.tables["cross_curves"] = TableReading(f, csv=t.data.get("csv"))
