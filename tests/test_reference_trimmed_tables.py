@@ -268,3 +268,15 @@ def test_tables_whose_lcb_runs_the_wrong_way_are_refused():
     v = dataclasses.replace(v, trimmed=dataclasses.replace(tt, hydrostatics=bad))
     with pytest.raises((TrimNotSettledError, TrimBeyondTablesError)):
         evaluate(v, Condition())
+
+
+def test_kn_at_trims_with_even_keel_hydrostatics_keeps_the_even_keel_caution():
+    """KN given at trims, hydrostatics at even keel only: the hydrostatics set has no rate of change to
+    judge by, so beyond 1 % of LBP (0.4 m here) it keeps the even-keel caution
+    (core/trim.even_keel_note's threshold) and is never refused on that account; the KN, covered
+    (−2…+2 m), draw no caution and no free-trim reference-LCG caution."""
+    v = box(5.0, 3.0, 0.98, trims=(0.0,), kn_trims=TRIMS)
+    r = evaluate(v, Condition())
+    assert 1.4 < r.trim_m < 1.6
+    notes = [w.message for w in r.warnings if w.code == "trim-beyond-tables"]
+    assert len(notes) == 1 and "hydrostatics are for even keel only" in notes[0] and "KN tables" not in notes[0]
