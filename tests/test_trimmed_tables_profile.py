@@ -224,3 +224,12 @@ def test_deckload_csv_writes_the_trimmed_tables_back(tmp_path, capsys):
         assert np.allclose(x.lcb_m, y.lcb_m, rtol=1e-9, atol=0) and np.allclose(x.kml_m, y.kml_m, rtol=1e-9, atol=0)
     for x, y in zip(a.trimmed.cross_curves, b.trimmed.cross_curves):
         assert np.allclose(x.kn_m, y.kn_m, rtol=1e-9, atol=1e-12)
+
+
+def test_too_many_tables_at_trims_are_refused():
+    """More than MAX_TABLES_AT_TRIMS (40) entries: refused at the key, before any is read (io/limits.py)."""
+    from deckload.io.limits import MAX_TABLES_AT_TRIMS
+
+    extra = "".join(f"[[hydrostatics_at_trim]]\ntrim_m = {0.1 * (k + 1):.1f}\n" for k in range(MAX_TABLES_AT_TRIMS + 1))
+    problems = _problems(extra)
+    assert len(problems) == 1 and problems[0].key == "hydrostatics_at_trim" and "more than the 40" in problems[0].rule

@@ -41,6 +41,7 @@ from deckload.core.gz import grid_points
 from deckload.core.loading import reading_range
 from deckload.core.tables import interp
 from deckload.io.csvtables import attach_csv, attach_kn_csv, attach_trim_csv
+from deckload.io.limits import MAX_TABLES_AT_TRIMS
 # Problem, ProfileError and ID_PATTERN are imported from here by other modules too
 from deckload.io.tomlcheck import (
     ID_PATTERN,
@@ -489,6 +490,15 @@ def _read_trimmed_tables(root: Table, particulars: m.Particulars | None, frame: 
     ok = True
     for key, what in (("hydrostatics_at_trim", "hydrostatics"), ("cross_curves_at_trim", "cross_curves")):
         entries = root.tables(key)
+        if len(entries) > MAX_TABLES_AT_TRIMS:
+            root.bad(key, MISSING, f"{len(entries)} tables at trims, more than the {MAX_TABLES_AT_TRIMS} allowed "
+                     "(booklets print 4–10)")
+            for t in entries:
+                for k in list(t.data):
+                    t.get(k, False)
+            ok = False
+            sets.append(([], []))
+            continue
         trims, tables = [], []
         for n, t in enumerate(entries):
             trim = _read_table_trim(t, particulars)
