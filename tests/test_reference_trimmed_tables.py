@@ -280,3 +280,20 @@ def test_kn_at_trims_with_even_keel_hydrostatics_keeps_the_even_keel_caution():
     assert 1.4 < r.trim_m < 1.6
     notes = [w.message for w in r.warnings if w.code == "trim-beyond-tables"]
     assert len(notes) == 1 and "hydrostatics are for even keel only" in notes[0] and "KN tables" not in notes[0]
+
+
+def test_each_table_on_its_own_displacement_grid_never_beyond_it():
+    """The +1 m table cut to drafts 4.0–4.75 m (its own grid; the others reach 6 m): a condition at
+    T = 5 m trimming between 0 and +1 m needs it at Δ = 1640 t, beyond its rows: refused, naming
+    that table (nothing is extrapolated in displacement)."""
+    from deckload.core.tables import OutOfRangeError
+
+    v = box(5.0, 3.0, 0.5)
+    tt = v.trimmed
+    k = list(tt.hydro_trim_m).index(1.0)
+    h = tt.hydrostatics[k]
+    cut = dataclasses.replace(h, **{c: frozen_array(getattr(h, c)[:4]) for c in h.columns()})
+    tables = tt.hydrostatics[:k] + (cut,) + tt.hydrostatics[k + 1:]
+    v = dataclasses.replace(v, trimmed=dataclasses.replace(tt, hydrostatics=tables))
+    with pytest.raises(OutOfRangeError, match=r"hydrostatic table at trim \+1\.00 m"):
+        evaluate(v, Condition())

@@ -56,7 +56,7 @@ from deckload.core.gz import heel_curve, kn_row
 from deckload.core.hydrostatics import Upright
 from deckload.core.model import HydrostaticTable, TrimmedTables, Vessel
 from deckload.core.tables import OutOfRangeError, bracket, lerp_row
-from deckload.core.trim import BASIS_GML, BASIS_TABLE, TrimError, TrimMoment
+from deckload.core.trim import BASIS_GML, BASIS_TABLE, EVEN_KEEL_TRIM_FRACTION, TrimError, TrimMoment
 
 TRIM_TOLERANCE_M = 1e-4
 """Two successive trim estimates within 0.1 mm: settled.  Far below UR L5's 5 cm on a draft
@@ -257,7 +257,7 @@ def coverage(vessel: Vessel, trim: float, d_eq: float) -> str | None:
             continue
         if len(trims) == 1:
             # even-keel table only for this set: the even-keel rule (caution beyond 1 % LBP)
-            if abs(trim) > 0.01 * lbp:
+            if abs(trim) > EVEN_KEEL_TRIM_FRACTION * lbp:
                 out.append(f"{what} are for even keel only")
             continue
         end, nb, e = b
