@@ -315,42 +315,47 @@ def covers_kn(vessel: Vessel, trim: float) -> bool:
 
 
 
+
 @dataclass(frozen=True)
-class Floating:
-    """Hydrostatics, trim and KN of a condition, from whichever tables the profile has."""
+class TableState:
+    """Hydrostatics and trim of a condition, from whichever tables the profile has."""
 
     upright: Upright
     """Hydrostatics at the displacement (and trim, with trimmed tables); ``draft_m`` at the LCF."""
     moment: TrimMoment
     trim_m: float
-    kn_m: np.ndarray
-    """KN on the fine heel grid (:data:`deckload.core.gz.FINE_DEG`, up to the table's last angle)."""
     trim_note: str | None
     """The caution on the trim against the tables' trims, or None."""
     trimmed: bool
     """True when trimmed tables were used (the trim then does not depend on MCT: no MCTC caution)."""
 
 
-def floating(vessel: Vessel, displacement_t: float, water_density_t_m3: float, lcg_m: float,
-             kg_fluid_m: float) -> Floating:
-    """The one step :func:`deckload.core.stability.evaluate` takes for hydrostatics, trim and KN.
+def table_state(vessel: Vessel, displacement_t: float, water_density_t_m3: float, lcg_m: float,
+                kg_fluid_m: float) -> TableState:
+    """The hydrostatics and trim step of :func:`deckload.core.stability.stage_upright`.
 
     Even-keel tables only: the even-keel method unchanged (:mod:`deckload.core.hydrostatics`,
-    :mod:`deckload.core.trim`, :func:`deckload.core.gz.kn_curve`).  With trimmed tables: the
-    iteration of :func:`equilibrium`, KN at the equilibrium trim, and :func:`coverage`.
+    :mod:`deckload.core.trim`).  With trimmed tables: the iteration of :func:`equilibrium` and
+    :func:`coverage`.
     """
-    from deckload.core.gz import kn_curve
     from deckload.core.hydrostatics import trim_m, upright
     from deckload.core.trim import even_keel_note, trim_moment
 
-    lbp = vessel.particulars.lbp_m
     if vessel.trimmed is None:
         hy = upright(vessel, displacement_t, water_density_t_m3)
         mct = trim_moment(vessel, hy, displacement_t, kg_fluid_m)
         trim = trim_m(displacement_t, lcg_m, hy.lcb_m, mct.mctc_tm_cm)
-        return Floating(hy, mct, trim, kn_curve(vessel.cross_curves, hy.table_displacement_t),
-                        even_keel_note(trim, lbp), False)
+        return TableState(hy, mct, trim, even_keel_note(trim, vessel.particulars.lbp_m), False)
     eq = equilibrium(vessel, displacement_t, water_density_t_m3, lcg_m, kg_fluid_m)
-    d_eq = eq.upright.table_displacement_t
-    note = coverage(vessel, eq.trim_m, d_eq)
-    return Floating(eq.upright, eq.moment, eq.trim_m, kn_curve_at(vessel.trimmed, d_eq, eq.trim_m), note, True)
+    return TableState(eq.upright, eq.moment, eq.trim_m, coverage(vessel, eq.trim_m, eq.upright.table_displacement_t),
+                      True)
+
+
+def kn_for(vessel: Vessel, table_displacement_t: float, trim_m: float) -> np.ndarray:
+    """KN on the fine heel grid at a displacement (table density): the even-keel curves, or the
+    tables at trims interpolated at ``trim_m`` (the equilibrium trim upright)."""
+    from deckload.core.gz import kn_curve
+
+    if vessel.trimmed is None:
+        return kn_curve(vessel.cross_curves, table_displacement_t)
+    return kn_curve_at(vessel.trimmed, table_displacement_t, trim_m)
