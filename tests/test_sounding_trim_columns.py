@@ -196,3 +196,16 @@ def test_deckload_csv_writes_the_columns_back(tmp_path, capsys):
                                      encoding="utf-8")
     tc = load_profile(tmp_path / "q.toml").tank("DB1").trim_correction
     assert list(tc.trim_m) == TRIMS and np.allclose(tc.value, corrections(), rtol=1e-9, atol=1e-12)
+
+
+def test_a_correction_beyond_what_the_tilt_can_make_is_refused():
+    """A correction of 0.5 m at 0.25 m trim (say cm typed as a fraction of the wrong unit): the surface
+    read at the pipe tilts by t/LBP over a tank at most 1.2·LBP long, so the even-keel level lies within
+    ±1.2·|t| = ±0.3 m of the reading (derived in io/profiles.py): refused, naming row, column and trim."""
+    text = CORR.replace("trim_m = [-1.0, -0.5, 0.5, 1.0]", "trim_m = [-1.0, -0.25, 0.5, 1.0]").replace(
+        "[0.125, 0.0625, -0.0625, -0.125]", "[0.125, 0.5, -0.0625, -0.125]", 1)
+    with pytest.raises(ProfileError) as ei:
+        parse_profile(profile(text), "tilt.toml")
+    (p,) = ei.value.problems
+    assert p.key == "tank[DB1].trim_correction.sounding_correction_m"
+    assert "row 1, column 2: 0.5 at trim -0.25 m" in p.rule and "±0.3 m" in p.rule

@@ -1312,6 +1312,10 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
     return m.TankCalibration(sounding_m=m.frozen_array(cols["level"]), volume_m3=m.frozen_array(cols["volume_m3"]),
                              lcg_m=m.frozen_array(cols["lcg_m"]), vcg_m=m.frozen_array(cols["vcg_m"]),
                              tcg_m=m.frozen_array(cols["tcg_m"]), fsi_m4=m.frozen_array(cols["fsi_m4"]))
+TRIM_CORRECTION_REACH = 1.2
+"""A tank is at most 1.2·LBP long (the audit's envelope): a trim t tilts its surface by at most 1.2·|t|."""
+
+
 def _read_trim_correction(t: Table, kw: dict, trim_range) -> m.TrimCorrection | None:
     """``[tank.trim_correction]``: the booklet's trim corrections for soundings (model.TrimCorrection).
 
@@ -1354,6 +1358,23 @@ def _read_trim_correction(t: Table, kw: dict, trim_range) -> m.TrimCorrection | 
                 else f"a volume must lie within 0–{num(cap)} m³, the tank's capacity")
         t.bad(key, t.data[key], f"row {i + 1}, column {j + 1}: {num(float(val[i, j]))} is outside the tank: {what}",
               (i, j))
+        return None
+    # The surface through the pipe reading tilts by t/LBP; over a tank no longer than the waterline
+    # (1.2·LBP, as the audit's envelope) it lies within s ± 1.2·|t| of the reading, so the even-keel
+    # level holding the same volume does too (the volume rises with the level): derived.
+    reach = TRIM_CORRECTION_REACH * np.abs(trims)[None, :]
+    if has_corr:
+        bad = np.argwhere(np.abs(val) > reach + 1e-9)
+    else:
+        lev = sound[:, None] + zero
+        lo_v = np.interp(np.clip(lev - reach, 0.0, top), cal.sounding_m, cal.volume_m3)
+        hi_v = np.interp(np.clip(lev + reach, 0.0, top), cal.sounding_m, cal.volume_m3)
+        bad = np.argwhere((val < lo_v * (1 - CAPACITY_TOLERANCE) - 1e-9) | (val > hi_v * (1 + CAPACITY_TOLERANCE) + 1e-9))
+    if bad.size:
+        i, j = (int(x) for x in bad[0])
+        t.bad(key, t.data[key], f"row {i + 1}, column {j + 1}: {num(float(val[i, j]))} at trim {num(float(trims[j]))} m "
+              f"is more than a surface tilted {num(float(trims[j]))} m over LBP can make (the level within "
+              f"±{num(float(reach[0, j]))} m of the sounding read, 1.2 × the trim): a unit or column slip?", (i, j))
         return None
     return m.TrimCorrection(trim_m=m.frozen_array(trims), sounding_m=m.frozen_array(sound),
                             value=m.frozen_array(val), kind=key)
