@@ -500,7 +500,7 @@ def _read_trimmed_tables(root: Table, particulars: m.Particulars | None, frame: 
             sets.append(([], []))
             continue
         trims, tables = [], []
-        for n, t in enumerate(entries):
+        for t in entries:
             trim = _read_table_trim(t, particulars)
             if trim is not None:
                 t.name = f"{key}[{num(round(trim, 6))} m]"
