@@ -40,7 +40,8 @@ grows as (trim beyond the end) × (their rate of change with trim over the last 
 interval).  The mean draft, KMt (UR L5: 1 % / 5 cm, standards.md §5.3) and every KN (5 cm)
 at the displacement are estimated so; when any estimate exceeds its tolerance, or the trim
 lies beyond the end by more than the last interval's width (beyond that the rate itself is
-a guess), the condition is refused (:class:`TrimBeyondTablesError`).  A set with the
+a guess), or the neighbour table does not reach the displacement (no rate is known), the
+condition is refused (:class:`TrimBeyondTablesError`).  A set with the
 even-keel table alone has no rate to judge by and keeps the even-keel caution of
 :func:`deckload.core.trim.even_keel_note`.
 """
