@@ -24,10 +24,7 @@ from deckload.logbook import (
     vessel_of_log,
 )
 
-CAUTION = (
-    "deckload supports, and never replaces, the approved stability booklet, the master's "
-    "judgement, and flag-State and classification society rules."
-)
+CAUTION = vf.CAUTION
 
 CSV_COLUMNS = (
     "seq", "utc", "ship_time", "ship_clock", "vessel", "by", "kind", "change", "remark", "condition_name",
@@ -166,7 +163,7 @@ def entry_row(e: LogEntry) -> dict[str, str]:
         "draft_aft_m": _fmt(s.get("draft_aft_m")),
         "draft_mean_m": _fmt(s.get("draft_mean_m")),
         "trim_m": _fmt(s.get("trim_m")),
-        "list_deg": _fmt(s.get("list_deg"), 2),
+        "list_deg": _fmt(s.get("list_deg"), 1),  # angles to 0.1°, as every view gives them
         "gm_fluid_m": _fmt(s.get("gm_fluid_m")),
         "fsc_m": _fmt(s.get("fsc_m")),
         "criteria_pass": {"": "", "met": "pass", "NOT MET": "FAIL", "met where assessable": "n/a"}[vf.stored_word(s)],
@@ -312,10 +309,8 @@ def _verify(args) -> int:
         try:
             rep = book.verify()
             if against:
-                from deckload.logbook import _split_lines, find_anchor
-
                 try:
-                    at = find_anchor(_split_lines(book._read())[0], against)
+                    at = book.find(against)
                 except ValueError as e:
                     print(f"deckload log verify: --against: {e}", file=sys.stderr)
                     return 1

@@ -53,6 +53,12 @@ ABOVE_DEPTH_M = 30.0
 WATER_DENSITY_RANGE_T_M3 = (0.99, 1.04)
 """The water a vessel floats in (t/m³): fresh river water 1.000 to dense sea water (common practice)."""
 
+LIQUID_DENSITY_RANGE_T_M3 = (0.5, 2.0)
+"""What a tank may hold (t/m³), in a profile, a condition file or typed on the screen from a bunker
+delivery note: from liquefied gas near 0.5 (propane at its boiling point) through oils 0.8–1.0
+and water 1.000–1.025 to heavy brines and drilling mud near 2.0 (common practice).  A density
+outside it is a typing error (a shifted point, kg/m³ for t/m³), not a liquid."""
+
 LBP_RANGE_M = (1.0, 500.0)
 BEAM_DEPTH_RANGE_M = (0.2, 100.0)
 
@@ -120,6 +126,16 @@ def z_max_m(p: Particulars) -> float:
 def z_range(p: Particulars) -> Range:
     """Heights above the keel: 0 … depth + 30 m."""
     return Range(0.0, z_max_m(p), "m", f"from the keel to {_n(ABOVE_DEPTH_M)} m above the depth")
+
+
+def table_trim_range(p: Particulars) -> Range:
+    """The trim of a table at a trim (m, + by the stern): |t| ≤ min(2·depth, 0.2·LBP).
+
+    Beyond twice the depth one end's keel is out of the water or the other's deck under at
+    any mean draft (the ends lie at T_mid ± t/2, derived); a fifth of LBP is the limit the
+    sounding corrections keep (:data:`deckload.core.soundings.MAX_TRIM_FRACTION`)."""
+    t = min(2.0 * p.depth_m, 0.2 * p.lbp_m)
+    return Range(-t, t, "m", "within twice the depth and a fifth of LBP, by the head or by the stern")
 
 
 # --------------------------------------------------------------------------- hull box

@@ -12,6 +12,12 @@ import math
 import textwrap
 from dataclasses import dataclass
 
+# The caution every printed or shown output carries (README, "Safety").
+CAUTION = (
+    "deckload supports, and never replaces, the approved stability booklet, the master's "
+    "judgement and flag-State and class rules."
+)
+
 from deckload.core.result import AssessedSet, CriterionResult, Result
 
 NOT_ASSESSABLE = "not assessable"
@@ -174,6 +180,11 @@ def not_assessed_lines(result: Result, width: int, indent: str = "") -> list[str
 def verdict_lines(result: Result, width: int, indent: str = "") -> list[str]:
     """:meth:`Result.verdict_text` wrapped to ``width`` (the one sentence-set every summary carries)."""
     return textwrap.wrap(result.verdict_text(), width, initial_indent=indent, subsequent_indent=indent)
+
+
+STATED_DENSITY_MARK = "◆"
+"""Beside a tank (board) or its density (report): the density was stated for this condition, from a
+bunker delivery note, not the tank's default from the profile."""
 
 
 def fmt_optional(value: float | None, fmt: str, unit: str = "", none: str = "n/a") -> str:
