@@ -212,3 +212,21 @@ def test_exactly_at_the_mark_is_not_over_it():
     r = evaluate(*_barge_at_draft(2.0, (LoadLine("summer", SUMMER_M),), "summer"))
     assert r.draft_mean_m == 2.0 and r.load_line_margin_m == 0.0  # a table row: exact in floating point
     assert _load_line_warnings(r) == []
+
+
+def test_the_items_are_listed_by_group_id_and_name():
+    """The result lists every weight item as the report prints it: lightship first, then holds, deck
+    items (numbered deck1…) and constants (const1…), each with the mass and centre it was given."""
+    v, _ = barge_at(1.0, 3.0)
+    v = dataclasses.replace(v, deck_areas=(DECK,), holds=(HOLD,))
+    r = evaluate(v, Condition(holds=(HoldLoad("H1", 100.0),),
+                              deck_items=(DeckItem("Crate", 10.0, 18.0, 5.0, area_id="D1"),
+                                          DeckItem("Boat", 5.0, 30.0, 5.5)),
+                              constants=(MassItem("Stores", 7.0, 12.0, 3.5, -0.5),)))
+    assert [(i.group, i.id, i.name, i.mass_t, i.lcg_m, i.vcg_m, i.tcg_m) for i in r.items] == [
+        ("lightship", "lightship", "Lightship", 410.0, 20.0, 3.0, 0.0),
+        ("hold", "H1", "Hold 1", 100.0, 20.0, 2.0, 0.0),
+        ("deck", "deck1", "Crate", 10.0, 18.0, 5.0, 0.0),
+        ("deck", "deck2", "Boat", 5.0, 30.0, 5.5, 0.0),
+        ("constant", "const1", "Stores", 7.0, 12.0, 3.5, -0.5),
+    ]
