@@ -202,6 +202,9 @@ def test_a_tank_in_its_worst_band_is_named_with_the_band():
     name = v.tank("DB1P").name
     assert _codes(r, "slack-worst-band") == [
         (f"DB1P ({name}) at 50 % is in its worst free-surface band 40–60 %", "caution")]
+    (t,) = [t for t in r.tanks if t.id == "DB1P"]
+    assert t.capacity_m3 == pytest.approx(8.0 * 4.5 * 0.8, rel=1e-12)  # the box tank's l·b·h (barge_tanks)
+    assert t.volume_m3 == pytest.approx(0.5 * 28.8, rel=1e-12)
     r30 = evaluate(v, Condition(tanks=(TankFill("DB1P", "percent", 30.0),)))
     assert _codes(r30, "slack-worst-band") == []
 
