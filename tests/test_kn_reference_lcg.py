@@ -51,3 +51,18 @@ def test_profile_key_reference_lcg_m():
     with pytest.raises(ProfileError) as e:
         parse_profile(bad, str(DEMO_PROFILE))
     assert "cross_curves.reference_lcg_m" in str(e.value)
+
+
+def test_no_caution_where_trimmed_kn_tables_cover_the_trim():
+    """KN tabulated at several trims covering hers are made for her own trim, so the free-trim
+    reference LCG does not apply (core/trimmed_tables.covers_kn): the box of
+    test_reference_trimmed_tables.py with its even-keel set relabelled 'free trim' for an LCG 5 m
+    forward of hers draws the caution without the trimmed sets and none with them."""
+    from test_reference_trimmed_tables import L, box
+
+    v = box(5.0, 3.0, 0.98)
+    cc = dataclasses.replace(v.cross_curves, trim_basis="free trim", reference_lcg_m=L / 2 - 0.98 + 5.0)
+    with_sets = dataclasses.replace(v, cross_curves=cc)
+    without = dataclasses.replace(with_sets, trimmed=None)
+    assert [w.code for w in evaluate(without, Condition()).warnings].count("kn-reference-lcg") == 1
+    assert "kn-reference-lcg" not in [w.code for w in evaluate(with_sets, Condition()).warnings]
