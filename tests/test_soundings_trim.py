@@ -88,6 +88,7 @@ def test_engine_uses_the_corrected_sounding_and_says_so(demo):
     assert t.volume_m3 == pytest.approx(vol, rel=1e-9)
     note = next(w for w in r.warnings if w.code == "sounding-corrected")
     assert "DB2P 0.500 →" in note.message and "trim +1.00 m" in note.message
+    assert note.severity == "caution"  # a correction made and said: the officer should know, no danger
     # at even keel nothing changes and nothing is said
     r0 = evaluate(demo, Condition(tanks=(TankFill("DB2P", "sounding_m", 0.5),)))
     assert not any(w.code.startswith("sounding-") for w in r0.warnings)
@@ -99,6 +100,7 @@ def test_uncorrected_soundings_are_named(demo):
     r = evaluate(v, Condition(tanks=(TankFill("DB2P", "sounding_m", 0.5),), sounding_trim_m=1.0))
     note = next(w for w in r.warnings if w.code == "sounding-uncorrected")
     assert "DB2P" in note.message and "NOT corrected" in note.message
+    assert note.severity == "caution"
 
 
 def test_condition_keys_round_trip_and_are_bounded(demo):
