@@ -114,11 +114,11 @@ def test_trim_in_fresh_water_uses_the_actual_displacement():
     assert abs(r.draft_fwd_m - (draft - s * L / 2)) <= ur_l5_draft_tol(draft - s * L / 2)
 
 
-@pytest.mark.parametrize("offset_aft_m, warned", [(0.5, False), (-0.5, False), (2.5, True), (-2.5, True)])
+@pytest.mark.parametrize("offset_aft_m, warned", [(0.5, False), (-0.5, False), (1.0, True), (2.5, True), (-2.5, True)])
 def test_caution_when_trimmed_beyond_the_even_keel_tables(offset_aft_m, warned):
     """The barge's tables are for even keel; a trim beyond 1 % of LBP (0.40 m; deckload's own
     threshold, core/trim.py) draws a caution naming the trim.  G 0.5 m off the LCB trims her
-    about 0.31 m (exact, module docstring), 2.5 m about 1.6 m."""
+    about 0.31 m (exact, module docstring), 1.0 m about 0.62 m (1.5 % of LBP), 2.5 m about 1.6 m."""
     r = evaluate(_barge(2.0, 3.0, offset_aft_m), Condition())
     trim = exact_trim_slope(2.0, 3.0, offset_aft_m) * L
     assert abs(trim) > 0.4 if warned else abs(trim) < 0.4
