@@ -15,6 +15,7 @@ import pytest
 
 from deckload.cli.main import main
 from deckload.logbook import Logbook
+from demo_vessels import demo_vessel
 
 
 @pytest.fixture
@@ -136,10 +137,10 @@ def test_a_log_folder_that_cannot_be_made_names_it(tmp_path, capsys, monkeypatch
 async def test_the_status_line_never_says_saved_when_the_save_failed(tmp_path):
     """The working condition's save fails (disk full): the message line says NOT SAVED."""
     from deckload.io import paths
-    from deckload.io.profiles import load_condition, load_profile
+    from deckload.io.profiles import load_condition
     from deckload.ui.launch import create_app
 
-    vessel = load_profile(paths.DEMO_PROFILE)
+    vessel = demo_vessel()
     app = create_app(vessel, load_condition(paths.DEMO_CONDITIONS["departure"], vessel), work_dir=tmp_path,
                      log_dir=None)
 

@@ -10,6 +10,7 @@ from deckload.io.profiles import load_condition, save_condition
 from deckload.ui.entry import EntryError
 from deckload.ui.session import Journal, Session, working_path
 from vessel_factories import barge_tanks, box_barge
+from demo_vessels import demo_vessel
 
 
 @pytest.fixture(scope="module")
@@ -102,7 +103,7 @@ def test_the_title_says_saving_until_the_change_is_on_disk(tmp_path):
     import threading
 
     from deckload.io import paths
-    from deckload.io.profiles import load_condition, load_profile, save_condition
+    from deckload.io.profiles import load_condition, save_condition
     from deckload.ui.launch import create_app
 
     gate = threading.Event()
@@ -112,7 +113,7 @@ def test_the_title_says_saving_until_the_change_is_on_disk(tmp_path):
         save_condition(path, condition)
 
     async def run():
-        vessel = load_profile(paths.DEMO_PROFILE)
+        vessel = demo_vessel()
         condition = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
         app = create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
         app.session._save = slow_save

@@ -16,15 +16,16 @@ import pytest
 from deckload.io import paths
 from deckload.report import verdict_format as vf
 from deckload.cli.main import main
-from deckload.io.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition
 from deckload.ui.launch import create_app
 from deckload.ui.dialogs import TextScreen
 from deckload.ui.widgets import LinePanel
 from verdict_samples import with_verdict
+from demo_vessels import demo_vessel
 
 
 def _app(tmp_path, name="departure"):
-    vessel = load_profile(paths.DEMO_PROFILE)
+    vessel = demo_vessel()
     condition = load_condition(paths.DEMO_CONDITIONS[name], vessel)
     return create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
 
@@ -255,7 +256,7 @@ def test_the_verdict_names_a_shared_reason_once():
     from deckload.core.result import NotAssessed
     from deckload.core.stability import evaluate
 
-    v = load_profile(paths.DEMO_PROFILE)
+    v = demo_vessel()
     base = evaluate(v, load_condition(paths.DEMO_CONDITIONS["departure"], v))
     out = dataclasses.replace(base, not_assessed=(
         NotAssessed("damage stability", "not computed by deckload"),
