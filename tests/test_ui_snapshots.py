@@ -52,3 +52,20 @@ def test_main_screen_80x24_curve_after_a_ballast_edit(snap_compare, demo_app):
 
 def test_transfer_preview_120x40(snap_compare, demo_app):
     assert snap_compare(demo_app, terminal_size=(120, 40), press=["t", *"5t"])
+
+
+def test_every_snapshot_file_belongs_to_a_test():
+    """A snapshot file that no test compares against is a check that silently stopped running.
+    syrupy fails a run in one process that leaves one, but not a run split over pytest-xdist workers
+    (its unused-snapshot report is not merged across workers), so the rule is kept here for both."""
+    import inspect
+    from pathlib import Path
+
+    here = Path(__file__)
+    folder = here.parent / "__snapshots__" / here.stem
+    snapshot_tests = {name for name, f in globals().items()
+                      if name.startswith("test_") and "snap_compare" in inspect.signature(f).parameters}
+    files = {p.name.split("[")[0].removesuffix(".svg") for p in folder.iterdir()}
+    assert snapshot_tests, "no snapshot test found in this module"
+    assert files == snapshot_tests, f"files without a test: {sorted(files - snapshot_tests)}; " \
+                                    f"tests without a file: {sorted(snapshot_tests - files)}"
