@@ -24,10 +24,7 @@ from deckload.logbook import (
     vessel_of_log,
 )
 
-CAUTION = (
-    "deckload supports, and never replaces, the approved stability booklet, the master's "
-    "judgement, and flag-State and classification society rules."
-)
+CAUTION = vf.CAUTION
 
 CSV_COLUMNS = (
     "seq", "utc", "ship_time", "ship_clock", "vessel", "by", "kind", "change", "remark", "condition_name",
