@@ -1,4 +1,4 @@
-"""The demo vessels and their stock conditions, read once per test process.
+"""The demo vessels, read once per test process.
 
 Reading and validating the Demo Islander's profile costs about 0.3 s of CPU (half of it the hull
 geometry file it names); forty-odd tests and fixtures used to read it again each time.  The model is
@@ -12,21 +12,15 @@ from __future__ import annotations
 
 import functools
 
-from deckload.core.model import Condition, Vessel
+from deckload.core.model import Vessel
 from deckload.io import paths
-from deckload.io.profiles import load_condition, load_profile
+from deckload.io.profiles import load_profile
 
 
 @functools.cache
 def demo_vessel() -> Vessel:
     """The Demo Islander as ``load_profile(paths.DEMO_PROFILE)`` reads it."""
     return load_profile(paths.DEMO_PROFILE)
-
-
-@functools.cache
-def demo_condition(name: str = "departure") -> Condition:
-    """A stock condition of the Demo Islander (``paths.DEMO_CONDITIONS``) read against it."""
-    return load_condition(paths.DEMO_CONDITIONS[name], demo_vessel())
 
 
 @functools.cache

@@ -133,3 +133,38 @@ def test_the_title_says_saving_until_the_change_is_on_disk(tmp_path):
             assert (tmp_path / "work").is_dir() and any((tmp_path / "work").glob("*.condition.toml"))
 
     asyncio.run(run())
+
+
+def test_closing_the_screen_ends_the_writer_thread_and_frees_the_app(tmp_path):
+    """The writer thread saves and logs after each frame; when the screen closes, every change is
+    on disk and the thread is gone.  A thread left running keeps its app (and every app before it in
+    a long process) alive through the stderr it was started with."""
+    import asyncio
+    import gc
+    import threading
+    import weakref
+
+    from deckload.io import paths
+    from deckload.io.profiles import load_condition
+    from deckload.ui.launch import create_app
+
+    def writers():
+        return [t for t in threading.enumerate() if t.name.startswith("deckload-writer")]
+
+    before = len(writers())
+
+    async def run():
+        vessel = demo_vessel()
+        condition = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
+        app = create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+        async with app.run_test(size=(80, 24)) as pilot:
+            await pilot.press("enter", *"20%", "enter")
+            await pilot.pause()
+            assert len(writers()) == before + 1  # the edit went to the writer thread
+        assert app.session.saves_pending == 0 and any((tmp_path / "work").glob("*.condition.toml"))
+        return weakref.ref(app)
+
+    gone = asyncio.run(run())
+    assert len(writers()) == before
+    gc.collect()
+    assert gone() is None, "the closed app is still referenced"

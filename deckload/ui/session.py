@@ -429,6 +429,17 @@ class Session:
             problems.extend(self._jobs.pop(0).result())
         return problems
 
+    def stop_writer(self) -> list[str]:
+        """:meth:`flush`, then end the writer thread (the screen is closing); a change after this
+        is saved and logged at once on the caller's thread, as before :meth:`write_in_background`.
+        The thread holds the closing app (through the stderr it was started with), so a writer left
+        running would keep every app of the process alive."""
+        problems = self.flush()
+        if self._writer is not None:
+            self._writer.shutdown(wait=True)
+            self._writer = None
+        return problems
+
     def _persist_reporting(self, *args) -> list[str]:
         try:
             problems = self._persist(*args)
