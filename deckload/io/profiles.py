@@ -789,6 +789,9 @@ def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename
     if not path.is_absolute():
         path = Path(filename).parent / path
     if not path.is_file():
+        from deckload.io.limits import note_absent
+
+        note_absent(path)  # the profile cache must miss once the file is there
         rd.assumptions.append(f"hull_geometry {name!r} not found ({path}): no direct calculation from the hull, "
                               "soundings taken trimmed or listed are not corrected")
         return None, {}
