@@ -2,7 +2,6 @@
 
 from __future__ import annotations
 
-import json
 import sys
 from pathlib import Path
 
@@ -153,6 +152,8 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False,
     if isinstance(cmp, int):
         return cmp
     if as_json:
+        import json
+
         doc = result.to_json_dict()
         if cmp is not None:
             doc["direct"] = {"method": "hull geometry, free trim and heel, actual G",

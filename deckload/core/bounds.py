@@ -38,13 +38,14 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from deckload.core.audit import ENVELOPE_X_FRACTION
 from deckload.core.model import Particulars, Vessel
 from deckload.core.tables import OutOfRangeError
 
-AFT_OVERHANG = ENVELOPE_X_FRACTION
+AFT_OVERHANG = 0.2
 """How far beyond either perpendicular a position may lie, as a fraction of LBP: the plausibility
-audit's envelope (deckload.core.audit), so the profile audit, the readers and the forms agree."""
+audit's envelope (deckload.core.audit.ENVELOPE_X_FRACTION is this number), so the profile audit,
+the readers and the forms agree.  Overall length rarely exceeds 1.2 × LBP (common practice).
+(Defined here, not in the audit, so that a calculation does not load the audit.)"""
 LENGTH_FACTOR = 1.0 + AFT_OVERHANG
 """A hull is at most 1.2·LBP long overall (common practice; the audit's waterline bound too)."""
 ABOVE_DEPTH_M = 30.0
