@@ -51,6 +51,9 @@ MAX_ENTRIES = 64
 """Entries kept; beyond this the least recently written are removed after a write."""
 _HEADER_LIMIT = 1 << 20
 """A header line longer than this is not ours (a profile reads at most a few dozen files)."""
+_PAYLOAD_LIMIT = 1 << 28
+"""256 MiB: far above the largest profile's model (a 4 MiB profile, deckload.io.limits), so a header
+claiming more is not ours (the demo, hull geometry included, is 0.3 MB)."""
 
 _NUMPY_NAMES = {
     ("numpy", "dtype"), ("numpy", "ndarray"),
@@ -180,7 +183,8 @@ def _read_entry(entry: Path, digest: str, expect: type, check: Callable[[object]
             head = json.loads(line)
             if not (isinstance(head, dict) and head.get("format") == FORMAT and head.get("version") == __version__
                     and head.get("profile_sha256") == digest and isinstance(head.get("files"), list)
-                    and isinstance(head.get("payload_bytes"), int) and isinstance(head.get("payload_sha256"), str)):
+                    and isinstance(head.get("payload_bytes"), int) and 0 < head["payload_bytes"] <= _PAYLOAD_LIMIT
+                    and isinstance(head.get("payload_sha256"), str)):
                 return None
             payload = fh.read(head["payload_bytes"] + 1)
     except (OSError, ValueError, UnicodeDecodeError):
