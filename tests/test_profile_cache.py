@@ -313,6 +313,32 @@ def test_an_entry_with_the_wrong_types_inside_is_ignored(home, builds):
     assert load_audited(profile).found == () and len(builds) == 2
 
 
+@pytest.mark.parametrize("case", ["missing", "folder", "too-large", "not-toml", "audit-error"])
+def test_a_profile_that_cannot_be_used_gives_the_same_message_with_the_cache(home, tmp_path, capsys, monkeypatch, case):
+    """Nothing is cached for a file that cannot be read or validated, and the message and exit
+    status are those of a read without the cache."""
+    f = tmp_path / "p.toml"
+    if case == "folder":
+        f.mkdir()
+    elif case == "too-large":
+        from deckload.io import limits
+
+        monkeypatch.setattr(limits, "MAX_TOML_BYTES", 100)
+        f.write_text(fv22_text(), encoding="utf-8")
+    elif case == "not-toml":
+        f.write_text("format = \n", encoding="utf-8")
+    elif case == "audit-error":
+        f.write_text(fv22_text().replace("1.901373720451374", "19.07"), encoding="utf-8")
+    cond = DATA / "demo_trawler.departure.condition.toml"
+    results = []
+    for argv in (["--no-cache", "calc", str(f), str(cond)], ["calc", str(f), str(cond)], ["calc", str(f), str(cond)]):
+        results.append((main(argv), capsys.readouterr()))
+        monkeypatch.setenv("DECKLOAD_NO_CACHE", "")
+    assert results[0] == results[1] == results[2]
+    assert results[0][0] in (1, 2) and results[0][1].err
+    assert len(entries(home)) == (1 if case == "audit-error" else 0)
+
+
 # --------------------------------------------------------------------------- no cache
 
 

@@ -89,7 +89,10 @@ def cached(path: str | os.PathLike, build: Callable[[str | os.PathLike], T], exp
         return build(path)
     from deckload.io.limits import MAX_TOML_BYTES, note_read, noting_reads, read_limited, stop_noting
 
-    data = read_limited(path, MAX_TOML_BYTES, "a profile or condition")
+    try:
+        data = read_limited(path, MAX_TOML_BYTES, "a profile or condition")
+    except OSError:
+        return build(path)  # which reports it as reading always does (e.g. a file too large is a ProfileError)
     import hashlib
 
     digest = hashlib.sha256(data).hexdigest()

@@ -73,10 +73,12 @@ print(json.dumps(res))
 
 
 def _run(cmd: list[str], env: dict) -> tuple[float, float]:
-    """(wall s, CPU s of the child) for one run."""
+    """(wall s, CPU s of the child) for one run, in the timed checkout (``python -m`` and ``-c`` put
+    the working folder first on the path)."""
     r0 = resource.getrusage(resource.RUSAGE_CHILDREN)
     t0 = time.perf_counter()
-    subprocess.run(cmd, env=env, stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL, check=True)
+    subprocess.run(cmd, env=env, cwd=env["PYTHONPATH"], stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL,
+                   check=True)
     wall = time.perf_counter() - t0
     r1 = resource.getrusage(resource.RUSAGE_CHILDREN)
     return wall, (r1.ru_utime - r0.ru_utime) + (r1.ru_stime - r0.ru_stime)
@@ -101,14 +103,15 @@ def measure(repo: Path, runs: int, pin: bool) -> dict[str, tuple[float, float]]:
     }
     got: dict[str, list[tuple[float, float]]] = {k: [] for k in rows}
     try:
-        subprocess.run(calc, env=env, stdout=subprocess.DEVNULL, check=True)  # warm the OS file cache
+        subprocess.run(calc, env=env, cwd=repo, stdout=subprocess.DEVNULL, check=True)  # warm the OS file cache
         for _ in range(runs):
             for name, (cmd, e, cold) in rows.items():
                 if cold:  # (the warm rows come after it: the cold run has just written the entry)
                     shutil.rmtree(home / "cache", ignore_errors=True)
                 got[name].append(_run(cmd, e))
         out = {k: (statistics.median(w for w, _ in v), statistics.median(c for _, c in v)) for k, v in got.items()}
-        r = subprocess.run([*pre, py, "-c", _IN_PROCESS, str(runs)], env=env, capture_output=True, text=True, check=True)
+        r = subprocess.run([*pre, py, "-c", _IN_PROCESS, str(runs)], env=env, cwd=repo, capture_output=True,
+                           text=True, check=True)
         inproc = json.loads(r.stdout)
         out["in-process: profile from its files"] = tuple(inproc["files"])
         if "cache" in inproc:
