@@ -387,3 +387,46 @@ def test_old_entries_are_pruned(home, builds, tmp_path, monkeypatch):
         f.write_bytes(f.read_bytes() + b"\n")
         load_audited(f)
     assert len(entries(home)) == 2
+
+
+# --------------------------------------------------------------------------- what a start loads
+
+
+def _child(code: str, home: Path, **env) -> str:
+    import subprocess
+    import sys
+
+    root = Path(deckload.__file__).resolve().parent.parent
+    e = {k: v for k, v in os.environ.items() if k not in ("DECKLOAD_NO_CACHE", "OPENBLAS_NUM_THREADS",
+                                                         "OMP_NUM_THREADS", "MKL_NUM_THREADS")}
+    e.update(PYTHONPATH=str(root), DECKLOAD_HOME=str(home), **env)
+    return subprocess.run([sys.executable, "-c", code], env=e, cwd=root, capture_output=True, text=True,
+                          check=True).stdout
+
+
+def test_calc_from_the_cache_loads_neither_the_screen_nor_the_audit_nor_the_reader_of_geometry(home):
+    """Issue 13: textual and rich never load for calc; with the profile cached, neither do the audit,
+    the TOML writer, the geometry reader nor the direct calculation."""
+    code = ("import contextlib, io, sys\n"
+            "from deckload.cli.main import main\n"
+            "with contextlib.redirect_stdout(io.StringIO()):\n"
+            "    assert main(['calc', 'demo', 'departure']) == 0\n"
+            "print(' '.join(sorted(m for m in sys.modules if m.split('.')[0] in "
+            "('textual', 'rich', 'tomli_w', 'deckload'))))\n")
+    cold = _child(code, home).split()
+    warm = _child(code, home).split()
+    for loaded in (cold, warm):
+        assert not [m for m in loaded if m.split(".")[0] in ("textual", "rich", "tomli_w")]
+        assert not [m for m in loaded if m.startswith(("deckload.ui", "deckload.core.equilibrium",
+                                                         "deckload.report.condition_report"))]
+    assert "deckload.core.audit" in cold and "deckload.io.geometry_files" in cold  # read from the files
+    assert "deckload.core.audit" not in warm and "deckload.io.geometry_files" not in warm
+    assert "deckload.core.geometry.builder" not in warm
+
+
+def test_one_blas_thread_unless_the_user_says_otherwise(home):
+    """Set before numpy loads (deckload/__init__.py); a user's own setting wins."""
+    code = "import deckload, os, sys; print('numpy' in sys.modules, os.environ['OPENBLAS_NUM_THREADS'], " \
+           "os.environ['OMP_NUM_THREADS'], os.environ['MKL_NUM_THREADS'])"
+    assert _child(code, home).split() == ["False", "1", "1", "1"]
+    assert _child(code, home, OPENBLAS_NUM_THREADS="4").split() == ["False", "4", "1", "1"]
