@@ -430,3 +430,10 @@ def test_one_blas_thread_unless_the_user_says_otherwise(home):
            "os.environ['OMP_NUM_THREADS'], os.environ['MKL_NUM_THREADS'])"
     assert _child(code, home).split() == ["False", "1", "1", "1"]
     assert _child(code, home, OPENBLAS_NUM_THREADS="4").split() == ["False", "4", "1", "1"]
+
+
+@pytest.mark.skipif(not Path("/proc/self/task").is_dir(), reason="counts threads in /proc (Linux)")
+def test_numpy_loaded_after_deckload_starts_no_blas_threads(home):
+    """With one thread OpenBLAS starts no pool: the process has its main thread only."""
+    code = "import deckload, numpy, os; print(len(os.listdir('/proc/self/task')))"
+    assert _child(code, home) == "1\n"
