@@ -362,7 +362,7 @@ def test_a_read_only_data_folder_still_works(home, builds, capsys):
     try:
         assert main(["calc", "trawler", "departure"]) == 0
         assert capsys.readouterr().err == ""
-        if os.geteuid() != 0:  # root writes regardless of permissions
+        if getattr(os, "geteuid", lambda: 0)() != 0:  # root writes regardless of permissions
             assert not entries(home)
     finally:
         folder.chmod(0o700)
