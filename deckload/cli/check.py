@@ -10,6 +10,10 @@ contradictions and fail the check, warnings are doubts), then the booklet's work
 conditions recomputed beside the booklet's results with the tolerance of every row
 (deckload.core.booklet).
 
+After an audit error neither the booklet conditions nor the condition are computed: the
+loading screen, calc and report refuse such a profile, and check does not show a result
+they could not.
+
 Exit status: 0 no problems; 1 problems found (schema, audit error, booklet row outside tolerance); 2 a file could not be read;
 3 an internal error (a bug: please report it with the files).
 """
@@ -26,10 +30,7 @@ from deckload.core import model as m
 from deckload.io.profiles import Problem, ProfileError, load_condition
 from deckload.report.audit_findings import load_audited
 
-CAUTION = (
-    "deckload supports, and never replaces, the approved stability booklet, "
-    "the master's judgement and flag-State and class rules."
-)
+CAUTION = vf.CAUTION
 
 
 def _plural(n: int, word: str, many: str | None = None) -> str:
@@ -52,8 +53,19 @@ def profile_summary(path: Path, v: m.Vessel, sources: dict[str, str] | None = No
         f"at {v.particulars.table_density_t_m3:g} t/m³ ({_plural(len(h.draft_m), 'row')})",
         f"    cross curves: displacement {_range(k.displacement_t, 't')}, heel {_range(k.heel_deg, '°')}, {k.trim_basis}",
     ]
+    if v.trimmed is not None:
+        tt = v.trimmed
+
+        def trims(ts):
+            return ", ".join("0" if x == 0 else f"{float(x):+g}" for x in ts) + " m"
+
+        lines.append(f"    tables at trims (+ by the stern): hydrostatics {trims(tt.hydro_trim_m)}; "
+                     f"KN {trims(tt.kn_trim_m)}; interpolated in trim, caution outside")
     if rows:
         lines.append(f"    tank calibrations: {min(rows)}–{max(rows)} rows each")
+    corrected = [t.id for t in v.tanks if t.trim_correction is not None]
+    if corrected:
+        lines.append(f"    booklet trim corrections for soundings: {', '.join(corrected)}")
     if v.limit_curve is not None:
         lines.append(f"    limit curve ({v.limit_curve.kind}): displacement {_range(v.limit_curve.displacement_t, 't')}")
     if float(k.heel_deg[-1]) < 90.0:
@@ -99,8 +111,15 @@ def run_check(profile_path: Path, condition_path: Path | None = None) -> int:
         print(line)
 
     status = _audit(found)
-    booklet = _booklet(profile_path, vessel)
-    status = max(status, booklet)
+    if status:
+        # The screen, calc and report refuse a profile whose audit found a contradiction; a
+        # result they could not produce must not come from check either.
+        print("booklet conditions: not run until the audit's errors are put right")
+        if condition_path is not None:
+            print(f"{condition_path}: not computed: its vessel profile has audit errors")
+        print(CAUTION)
+        return status
+    status = max(status, _booklet(profile_path, vessel))
     if condition_path is not None:
         status = max(status, _check_condition(Path(condition_path), vessel))
     print(CAUTION)

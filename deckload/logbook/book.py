@@ -20,7 +20,7 @@ from deckload.io.limits import MAX_LOG_LINE_BYTES
 from deckload.io.paths import vessel_slug
 from deckload.io.textsafe import control_char
 from deckload.logbook import lock as locking
-from deckload.logbook.chain import GENESIS_SHA256, VerifyReport, head_disagreement, verify_lines
+from deckload.logbook.chain import GENESIS_SHA256, VerifyReport, find_anchor, head_disagreement, verify_lines
 from deckload.logbook.clock import configured_offset, format_offset, format_utc, parse_offset, utc_now
 from deckload.logbook.lock import LogLockedError, WriterLock
 from deckload.logbook.records import (
@@ -222,6 +222,11 @@ class Logbook:
 
     def _read(self) -> bytes:
         return self._store.read()
+
+    def find(self, anchor_text: str) -> tuple[int, int] | None:
+        """Where a printed copy's anchor (SHA-256 or its first 12+ hex digits, optionally 'N:HASH')
+        is in this log: (line number, entry number), else None.  ValueError for a malformed anchor."""
+        return find_anchor(_split_lines(self._read())[0], anchor_text)
 
     def entries(self) -> list[LogEntry]:
         """Every complete, readable entry, oldest first.
