@@ -380,13 +380,20 @@ def test_the_cache_can_be_turned_off(home, builds, monkeypatch, capsys, how):
     assert len(builds) == 2 and not entries(home)
 
 
-def test_old_entries_are_pruned(home, builds, tmp_path, monkeypatch):
+def test_old_entries_and_stale_temporary_files_are_pruned(home, builds, tmp_path, monkeypatch):
     monkeypatch.setattr(profile_cache, "MAX_ENTRIES", 2)
+    folder = home / "cache" / "profiles"
+    folder.mkdir(parents=True)
+    stale, fresh = folder / ".x.cache.abcd.tmp", folder / ".y.cache.efgh.tmp"
+    stale.write_bytes(b"left by a killed write")
+    fresh.write_bytes(b"another deckload writing now")
+    os.utime(stale, (1, 1))
     f = copy_demo(tmp_path, "demo_trawler")
     for i in range(4):
         f.write_bytes(f.read_bytes() + b"\n")
         load_audited(f)
     assert len(entries(home)) == 2
+    assert not stale.exists() and fresh.exists()
 
 
 # --------------------------------------------------------------------------- what a start loads

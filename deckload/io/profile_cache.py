@@ -120,8 +120,9 @@ def cached(path: str | os.PathLike, build: Callable[[str | os.PathLike], T], exp
 
 
 def _code_stamp() -> str:
-    """Name, size and modification time of every module of the package (a few hundred stat calls
-    would be too many; the package has about a hundred files, read in well under a millisecond)."""
+    """Name, size and modification time of every module of the package: a module edited or replaced
+    (a checkout updated without a new version number) changes the key.  About a hundred ``stat``
+    calls: well under a millisecond."""
     root = Path(__file__).resolve().parent.parent
     parts = []
     stack = [str(root)]
@@ -242,10 +243,21 @@ def _write_entry(entry: Path, digest: str, noted: list[tuple[str, str | None]], 
 
 
 def _prune(folder: Path) -> None:
+    """Keep the newest :data:`MAX_ENTRIES` entries; remove temporary files a killed write left
+    behind (an hour old: a write in progress in another deckload takes milliseconds, and if it
+    lost its file it would only leave no entry)."""
+    import time
+
     try:
-        entries = [(e.stat().st_mtime_ns, e.path) for e in os.scandir(folder) if e.name.endswith(".cache")]
+        entries, stale = [], []
+        for e in os.scandir(folder):
+            st = e.stat()
+            if e.name.endswith(".cache"):
+                entries.append((st.st_mtime_ns, e.path))
+            elif e.name.startswith(".") and e.name.endswith(".tmp") and time.time() - st.st_mtime > 3600:
+                stale.append(e.path)
         entries.sort(reverse=True)
-        for _, p in entries[MAX_ENTRIES:]:
+        for p in [p for _, p in entries[MAX_ENTRIES:]] + stale:
             os.unlink(p)
     except OSError:
         pass
