@@ -7,6 +7,7 @@ without a change.
 
 from __future__ import annotations
 
+import time
 from typing import Any, Callable
 
 from rich.console import Group
@@ -32,6 +33,26 @@ class Form(ModalScreen[Any]):
     """Base: a titled box, a message line, Escape cancels."""
 
     BINDINGS = [Binding("escape", "cancel", "Cancel")]
+
+    def __init__(self) -> None:
+        super().__init__()
+        self.opened_at = time.monotonic()
+        """Keys typed before a field has focus wait for it (DeckloadApp), for at most KEY_WAIT_S from here."""
+
+    @property
+    def keys_ready(self) -> bool:
+        """Mounted, with its field focused (a form without fields: mounted).  A form picks its
+        field with ``set_focus`` in ``on_mount`` (at once, not later), so no key meets one field
+        and the next another."""
+        return self.is_mounted and (self.focused is not None or not self.focus_chain)
+
+    def on_mount(self) -> None:
+        # Runs after the form's own on_mount: a field has focus now; keys typed meanwhile go to it.
+        if self.focused is None and self.focus_chain:
+            self.set_focus(self.focus_chain[0])
+        release = getattr(self.app, "release_keys", None)
+        if release is not None:
+            release()
 
     def refuse(self, message: str) -> None:
         self.query_one("#form-message", Static).update(Text("✖ " + message, P["danger"]))
@@ -163,7 +184,7 @@ class TransferForm(Form):
         need = len(preview_lines(self._before, None, None)) + 1
         self.query_one("#xfer-preview").styles.height = max(8, min(need, self.app.size.height - 10))
         first_empty = "from" if not self._from else "to" if not self._to else "amount"
-        self.query_one(f"#xfer-{first_empty}", Input).focus()
+        self.set_focus(self.query_one(f"#xfer-{first_empty}", Input))
         self._update()
 
     def on_input_changed(self, event: Input.Changed) -> None:

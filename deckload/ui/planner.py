@@ -76,7 +76,7 @@ class PlannerForm(Form):
     def on_mount(self) -> None:
         need = len(preview_lines(self._before, None, None)) + 1
         self.query_one("#xfer-preview").styles.height = max(8, min(need, self.app.size.height - 10))
-        self.query_one("#plan-goal", Input).focus()
+        self.set_focus(self.query_one("#plan-goal", Input))
         self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, None, None))
 
     def on_input_changed(self, event: Input.Changed) -> None:
