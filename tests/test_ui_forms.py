@@ -13,8 +13,8 @@ import pytest
 from textual import events
 from textual.widgets import Input
 
-from deckload import paths
-from deckload.profiles import load_condition, load_profile
+from deckload.io import paths
+from deckload.io.profiles import load_condition, load_profile
 from deckload.ui.dialogs import ItemFormScreen, TransferForm
 from deckload.ui.launch import create_app
 
