@@ -82,3 +82,49 @@ async def test_a_key_typed_after_enter_closes_a_form_reaches_the_loading_screen(
     async with app.run_test(size=(120, 40)) as pilot:
         await type_fast(app, pilot, ["enter", *"50%", "enter", "u"])
         assert app.session.condition == c0 and app.session.redo_depth == 1
+
+
+def screen_text(app) -> list[str]:
+    """The screen as the terminal shows it, one string per row."""
+    return ["".join(seg.text for seg in strip) for strip in app.screen._compositor.render_strips()]
+
+
+@pytest.mark.parametrize("size", [(80, 24), (120, 40)])
+async def test_every_command_is_reachable_from_the_key_line_or_the_help_it_names(app, size):
+    """The bottom row holds ? and q at every width; a command not on it is on the help page ? opens."""
+    from deckload.ui.commands import COMMANDS
+    from deckload.ui.dialogs import HelpScreen, help_page
+
+    async with app.run_test(size=size) as pilot:
+        await pilot.pause()
+        bottom = screen_text(app)[-1]
+        assert bottom.lstrip().startswith("? ") and bottom.rstrip().endswith("q Quit"), bottom
+        assert len(bottom.rstrip()) <= size[0]
+        if size[0] == 80:
+            assert "? all keys" in bottom  # says that more keys are behind it
+        await pilot.press("question_mark")
+        await pilot.pause()
+        assert isinstance(app.screen, HelpScreen)
+        from rich.console import Console
+
+        console = Console(width=100, record=True, no_color=True)
+        console.print(help_page())
+        page = console.export_text()
+        for c in COMMANDS:
+            on_line = f"{c.key_text} {c.label}" in bottom
+            assert on_line or (c.key_text in page and c.help[:30] in " ".join(page.split())), c.action
+
+
+async def test_a_long_caution_is_wrapped_whole_at_80_columns_and_a_cut_one_says_so(app):
+    from deckload.ui.main_screen import alert_lines
+    from deckload.ui.views import Alert
+
+    long = Alert("caution", "G is 0.61 m abaft the KN's free-trim LCG 17.40 m: GZ may be off by cm; "
+                            "keep the trim small or use the direct calculation (h)")
+    lines = [ln.plain for ln in alert_lines([long], 2, 80)]
+    assert len(lines) == 2 and all(len(ln) <= 80 for ln in lines)
+    assert " ".join(ln.strip() for ln in lines) == long.line().plain  # every word shown, none cut
+    short = Alert("danger", "Draft over the load line")
+    lines = [ln.plain for ln in alert_lines([short, long, long], 2, 80)]
+    assert lines[0] == short.line().plain
+    assert lines[1].startswith("(+2 more: w) ") and lines[1].endswith("…(w)") and len(lines[1]) == 80
