@@ -128,3 +128,49 @@ async def test_a_long_caution_is_wrapped_whole_at_80_columns_and_a_cut_one_says_
     lines = [ln.plain for ln in alert_lines([short, long, long], 2, 80)]
     assert lines[0] == short.line().plain
     assert lines[1].startswith("(+2 more: w) ") and lines[1].endswith("…(w)") and len(lines[1]) == 80
+
+
+def test_the_amount_preview_gives_every_form_of_an_ullage_reading():
+    """Demo Trawler FO1P (diesel 0.840 t/m³, 11.56 m³, ullage reference 2.87 m above the tank's
+    lowest point, sounding zero at the bottom).  Ullage 1.00 m: level = 2.87 − 1.00 = 1.87 m
+    (the profile's reference, vessel_profiles/README.md); volume from the tank's calibration table
+    interpolated linearly at that level (common practice; the table is the profile's own), mass =
+    volume × 0.840, percent = volume / 11.56.  Typing the volume shown gives back the same sounding."""
+    import numpy as np
+
+    from deckload.ui import entry
+
+    v = load_profile(paths.TRAWLER_PROFILE)
+    c = load_condition(paths.TRAWLER_CONDITIONS["departure"], v)
+    tank = v.tank("FO1P")
+    level = 2.87 - 1.00
+    vol = float(np.interp(level, tank.table[:, 0], tank.table[:, 1]))
+    shown = entry.amount_preview(c, tank, "1.00u")
+    assert shown == (f"= {100 * vol / 11.56:.1f} % · {vol:.2f} m³ · {vol * 0.840:.2f} t · "
+                     f"sounding {level:.3f} m · ullage 1.000 m")
+    assert f"sounding {level:.3f} m" in entry.amount_preview(c, tank, f"{vol!r}m3")
+    with pytest.raises(entry.EntryError, match="no unit"):
+        entry.amount_preview(c, tank, "40")
+
+
+@pytest.mark.parametrize("size", [(80, 24), (120, 40)])
+async def test_the_set_dialog_shows_its_whole_hint_and_a_live_preview_before_enter(app, demo, size):
+    """LO1 (lube oil sump, 1.57 m³): the hint's every word is on the screen at both sizes, and
+    typing 0.3m shows the percent, m³, t and sounding it comes to before ⏎; nothing changes yet."""
+    from deckload.ui import entry
+    from deckload.ui.dialogs import PromptForm
+    from deckload.ui.widgets import LoadBoard
+
+    v, c0 = demo
+    async with app.run_test(size=size) as pilot:
+        app.screen.query_one(LoadBoard).select(("tank", "LO1"))
+        await pilot.press("enter", *"0.3m")
+        await pilot.pause()
+        assert isinstance(app.screen, PromptForm)
+        rows = screen_text(app)
+        inside = " ".join(r.split("│")[1].strip() for r in rows if r.count("│") >= 2 and "╭" not in r)
+        hint = entry.amount_hint(v.tank("LO1"), c0.tank_fill("LO1"))
+        assert hint in inside, (hint, inside)
+        assert entry.amount_preview(c0, v.tank("LO1"), "0.3m") in inside
+        assert "sounding 0.300 m" in inside
+        assert app.session.condition == c0

@@ -62,18 +62,43 @@ class Form(ModalScreen[Any]):
 
 
 class PromptForm(Form):
-    """One line of input; ``build(text)`` returns the result or raises EntryError."""
+    """One line of input; ``build(text)`` returns the result or raises EntryError.  With
+    ``preview(text)``, what the text comes to is shown as it is typed (EntryError: why ⏎ would
+    refuse it, dimmed until ⏎)."""
 
-    def __init__(self, title: str, hint: str, initial: str, build: Callable[[str], Any]):
+    def __init__(self, title: str, hint: str, initial: str, build: Callable[[str], Any],
+                 preview: Callable[[str], str] | None = None):
         super().__init__()
         self._title, self._hint, self._initial, self._build = title, hint, initial, build
+        self._preview = preview
 
     def compose(self) -> ComposeResult:
         with Vertical(classes="form"):
-            yield Label(self._title, classes="form-title")
-            yield Label(self._hint, classes="form-hint")
+            yield Label(self._title, classes="form-title", markup=False)
+            yield Label(self._hint, classes="form-hint", markup=False)
             yield Input(value=self._initial, id="prompt-input", select_on_focus=True)
+            if self._preview is not None:
+                yield Static("", id="prompt-preview")
             yield Static("", id="form-message")
+
+    def on_mount(self) -> None:
+        self._show_preview(self._initial)
+
+    def on_input_changed(self, event: Input.Changed) -> None:
+        event.stop()
+        self._show_preview(event.value)
+
+    def _show_preview(self, text: str) -> None:
+        if self._preview is None:
+            return
+        if not text.strip():
+            shown = Text("Type an amount: the volume, mass and level it comes to show here.", P["dim"])
+        else:
+            try:
+                shown = Text(self._preview(text), P["value"])
+            except EntryError as exc:
+                shown = Text(str(exc), P["dim"])
+        self.query_one("#prompt-preview", Static).update(shown)
 
     def on_input_submitted(self, event: Input.Submitted) -> None:
         event.stop()

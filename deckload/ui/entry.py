@@ -17,7 +17,7 @@ import re
 from dataclasses import dataclass
 
 from deckload.core import bounds
-from deckload.core.loading import LoadingError, level_of, over_limit, reading_range, volume_of
+from deckload.core.loading import LoadingError, level_of, over_limit, reading_range, resolve_tank, volume_of
 from deckload.core.model import (
     LEVEL_QUANTITIES,
     Condition,
@@ -200,6 +200,23 @@ def fill_text(fill: TankFill | None) -> str:
 def tank_from_text(condition: Condition, tank: Tank, text: str) -> Condition:
     quantity, value = parse_amount(text)
     return set_tank(condition, tank, quantity, value)
+
+
+def amount_preview(condition: Condition, tank: Tank, text: str) -> str:
+    """What an amount typed for ``tank`` comes to, shown before ⏎ in every form the tank can be
+    stated in: '= 40.0 % · 12.93 m³ · 13.25 t · sounding 1.204 m · ullage 0.796 m' (sounding and
+    ullage only where the tank has a level table and, for ullage, a reference point).  The same
+    path as ⏎ (``tank_from_text``, then the calculation's ``resolve_tank``): EntryError when ⏎
+    would refuse it."""
+    fill = tank_from_text(condition, tank, text).tank_fill(tank.id)
+    c = resolve_tank(tank, fill)
+    parts = [f"{c.fill_pct:.1f} %", f"{c.volume_m3:.2f} m³", f"{c.mass_t:.2f} t"]
+    if tank.level_known:
+        level = c.sounding_m  # the level above the tank's lowest point
+        parts.append(f"sounding {level - tank.sounding_zero_m:.3f} m")
+        if tank.ullage_reference_m is not None:
+            parts.append(f"ullage {tank.ullage_reference_m - level:.3f} m")
+    return "= " + " · ".join(parts)
 
 
 def nudge_tank(condition: Condition, tank: Tank, step_pct: float) -> Condition:

@@ -249,7 +249,8 @@ class LoadingScreen(Screen[None]):
                 self.commit(r[0], f"{tank.id} set to {got}", self._kind(tank.id), {"tank": tank.id, "entered": r[1]},
                             run=("tank", tank.id))
 
-        self.app.push_screen(PromptForm(f"{tank.id}  {tank.name}", hint, entry.fill_text(fill), build), done)
+        preview = lambda text: entry.amount_preview(s.condition, tank, text)  # noqa: E731
+        self.app.push_screen(PromptForm(f"{tank.id}  {tank.name}", hint, entry.fill_text(fill), build, preview), done)
 
     def _edit_hold(self, hold_id: str) -> None:
         s = self.session
