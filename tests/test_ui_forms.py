@@ -174,3 +174,44 @@ async def test_the_set_dialog_shows_its_whole_hint_and_a_live_preview_before_ent
         assert entry.amount_preview(c0, v.tank("LO1"), "0.3m") in inside
         assert "sounding 0.300 m" in inside
         assert app.session.condition == c0
+
+
+def preview_text(app) -> str:
+    from deckload.ui.widgets import LinePanel
+
+    return app.screen.query_one("#xfer-preview", LinePanel).plain()
+
+
+async def test_the_transfer_form_offers_matching_tanks_and_tab_takes_the_one_marked(app, demo):
+    """From WB2P (ballast, full): in the to-field "DB" lists the double-bottom ballast tanks with
+    room, ↓ marks the second (DB1S), Tab takes it and moves to the amount; 5t ⏎ commits."""
+    from deckload.ui.widgets import LoadBoard
+
+    v, c0 = demo
+    async with app.run_test(size=(120, 40)) as pilot:
+        app.screen.query_one(LoadBoard).select(("tank", "WB2P"))
+        await type_fast(app, pilot, ["t", "shift+tab", *"DB"])
+        shown = preview_text(app)
+        assert "Tanks matching 'DB'" in shown
+        listed = [ln.split()[1] if ln.startswith("›") else ln.split()[0] for ln in shown.splitlines()[1:] if ln.strip()]
+        assert listed == [t.id for t in v.tanks if t.id.startswith("DB")]
+        await type_fast(app, pilot, ["down", "tab"])
+        assert fields(app)["xfer-to"] == "DB1S" and app.screen.focused.id == "xfer-amount"
+        await type_fast(app, pilot, [*"5t", "enter"])
+        c1 = app.session.condition
+        assert c1.tank_fill("DB1S") is not None and c1.tank_fill("DB1S").value == pytest.approx(5.0 / v.tank("WB2P").density_t_m3)
+        # Only liquids of one kind move: typing fuel in the to-field of a ballast transfer offers nothing.
+        app.screen.query_one(LoadBoard).select(("tank", "WB2S"))
+        await type_fast(app, pilot, ["t", "shift+tab", *"FO1"])
+        assert "No tank here matches 'FO1'" in preview_text(app)
+
+
+async def test_the_planner_tank_field_picks_word_by_word_and_never_offers_a_tank_twice(app):
+    async with app.run_test(size=(120, 40)) as pilot:
+        await type_fast(app, pilot, ["i", "tab", *"wb1", "tab"])
+        assert fields(app)["plan-tanks"] == "WB1P " and app.screen.focused.id == "plan-tanks"
+        await type_fast(app, pilot, [*"wb1"])
+        shown = preview_text(app)
+        assert "WB1S" in shown and "WB1P" not in shown
+        await type_fast(app, pilot, ["enter"])  # ⏎ takes the tank; it does not search yet
+        assert fields(app)["plan-tanks"] == "WB1P WB1S " and app.screen.proposal is None

@@ -24,6 +24,7 @@ from deckload.core.result import Result
 from deckload.ui import views
 from deckload.report.verdict_format import value_text
 from deckload.ui.commands import COMMANDS, NAVIGATION
+from deckload.ui import entry
 from deckload.ui.entry import EntryError, ItemForm, TransferPlan, plan_transfer
 from deckload.ui.palette import P
 from deckload.ui.widgets import LinePanel
@@ -174,8 +175,126 @@ class RecordForm(Form):
         self.dismiss((by, self.query_one("#record-remark", Input).value.strip()))
 
 
-class TransferForm(Form):
-    """From-tank, to-tank and amount, with a live before/after preview; Enter commits."""
+def _cut(line: Text, width: int) -> Text:
+    out = line.copy()
+    out.truncate(width, overflow="ellipsis")
+    return out
+
+
+class TankPicking:
+    """For a form with tank fields: while the text in the focused tank field is not a tank id,
+    the preview panel lists the tanks that match what is typed (entry.tank_matches), ↑ ↓ choose
+    and Tab or ⏎ take the one marked.  Focus stays where it is; it moves only on Tab (after
+    taking a tank) or shift+Tab, as in any form.  A multi field (the planner's allowed tanks)
+    picks its last word, and Tab there takes the tank and stays for the next.
+
+    The form gives ``TANK_FIELDS`` {input id: multi}, ``_want(field)`` (the tanks that fit that
+    field) and ``_update()`` (redraws the preview, calling ``_picker_lines`` first)."""
+
+    TANK_FIELDS: dict[str, bool] = {}
+    _vessel: Vessel
+    _condition: Condition
+    _pick = 0
+
+    def _want(self, field: str):
+        return None
+
+    def _tank_field(self) -> Input | None:
+        f = self.focused
+        return f if isinstance(f, Input) and f.id in self.TANK_FIELDS else None
+
+    def _typed_word(self, field: Input) -> str:
+        words = field.value.split()
+        multi = self.TANK_FIELDS[field.id]
+        if multi:
+            return "" if not words or field.value.endswith((" ", ",")) else words[-1].rstrip(",")
+        return field.value.strip()
+
+    def _choices(self) -> list | None:
+        """The tanks offered for the focused field, or None when it holds a tank id already."""
+        field = self._tank_field()
+        if field is None:
+            return None
+        typed = self._typed_word(field)
+        if self.TANK_FIELDS[field.id] and not typed:
+            return None
+        if typed.upper() in self._vessel.tank_index:
+            return None
+        found = entry.tank_matches(self._vessel, typed, self._want(field.id))
+        if self.TANK_FIELDS[field.id]:  # a tank already listed is not offered again
+            listed = {w.strip(",").upper() for w in field.value.split()[:-1]}
+            found = [t for t in found if t.id not in listed]
+        return found
+
+    def _picker_lines(self, height: int, width: int) -> list[Text] | None:
+        """The tank list for the preview panel (``height`` × ``width`` cells), or None when no
+        tank field is being picked."""
+        found = self._choices()
+        if found is None:
+            return None
+        field = self._tank_field()
+        typed = self._typed_word(field)
+        if not found:
+            return [Text(f"No tank here matches {typed!r}: type part of an id, name or kind.", P["caution"])]
+        self._pick = max(0, min(self._pick, len(found) - 1))
+        head = Text(f"Tanks{' matching ' + repr(typed) if typed else ''} · ↑ ↓ choose · Tab or ⏎ takes it", P["head"])
+        rows = max(1, height - 1)
+        top = max(0, min(self._pick - rows + 1, len(found) - rows)) if self._pick >= rows else 0
+        out = [head]
+        for i, t in enumerate(found[top: top + rows], start=top):
+            mark = "›" if i == self._pick else " "
+            out.append(Text(f"{mark} " + entry.tank_choice(self._condition, t), P["value"] if i == self._pick else P["label"]))
+        return [line if line.cell_len <= width or width < 2 else _cut(line, width) for line in out]
+
+    def action_pick(self, step: int) -> None:
+        if self._choices():
+            self._pick += step
+            self._update()
+
+    def _take(self) -> bool:
+        """Put the marked tank in the focused field; False when nothing was offered."""
+        found = self._choices()
+        field = self._tank_field()
+        if not found or field is None:
+            return False
+        tid = found[max(0, min(self._pick, len(found) - 1))].id
+        if self.TANK_FIELDS[field.id]:
+            words = field.value.split()
+            field.value = " ".join([*words[:-1], tid]) + " "
+        else:
+            field.value = tid
+        field.cursor_position = len(field.value)
+        self._pick = 0
+        self._update()
+        return True
+
+    def action_take_or_next(self) -> None:
+        field = self._tank_field()
+        if self._take() and field is not None and self.TANK_FIELDS[field.id]:
+            return  # a multi field stays for the next tank
+        self.focus_next()
+
+    def on_descendant_focus(self, event) -> None:
+        self._pick = 0
+        self._update()
+
+
+class TransferForm(TankPicking, Form):
+    """From-tank, to-tank and amount, with a live before/after preview; Enter commits.  The tank
+    fields offer the tanks that match as they are typed (TankPicking)."""
+
+    BINDINGS = [Binding("up", "pick(-1)", "Previous tank", show=False), Binding("down", "pick(1)", "Next tank", show=False),
+                Binding("tab", "take_or_next", "Take / next field", show=False)]
+    TANK_FIELDS = {"xfer-from": False, "xfer-to": False}
+
+    def _want(self, field: str):
+        c = self._condition
+        if field == "xfer-from":
+            return lambda t: entry.fill_volume_m3(t, c.tank_fill(t.id)) > 1e-6
+        src = self.query_one("#xfer-from", Input).value.strip().upper()
+        kind = self._vessel.tank(src).kind if src in self._vessel.tank_index else None
+        return lambda t: (kind is None or t.kind == kind) and t.id != src and \
+            t.capacity_m3 - entry.fill_volume_m3(t, c.tank_fill(t.id)) > 1e-6
 
     def __init__(
         self,
@@ -220,6 +339,12 @@ class TransferForm(Form):
         get = lambda n: self.query_one(f"#xfer-{n}", Input).value.strip()  # noqa: E731
         message = self.query_one("#form-message", Static)
         self.plan = None
+        panel = self.query_one("#xfer-preview", LinePanel)
+        picking = self._picker_lines(int(panel.styles.height.value) if panel.styles.height else 8, panel.size.width)
+        if picking is not None:
+            panel.set_lines(picking)
+            message.update(Text("Choose the tank: ↑ ↓ and Tab or ⏎ · Esc cancels", P["dim"]))
+            return
         if not get("amount"):
             message.update(Text("Type the amount to see the preview.", P["dim"]))
             self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, None, None))
@@ -237,6 +362,8 @@ class TransferForm(Form):
 
     def on_input_submitted(self, event: Input.Submitted) -> None:
         event.stop()
+        if self._take():  # ⏎ in a tank field still being picked takes the tank; it commits nothing
+            return
         self._update()
         if self.plan is not None:
             self.dismiss(self.plan)

@@ -407,6 +407,30 @@ def planner_room(vessel: Vessel, condition: Condition, from_id: str, to_id: str)
     return max(0.0, min(have, free) * tank_density(src, sf) * (1 - 1e-9))
 
 
+def tank_matches(vessel: Vessel, typed: str, want=None) -> list[Tank]:
+    """The tanks a tank field offers as the officer types: those whose id starts with the text
+    first, then those whose id, name or kind contains it (case-insensitive), in profile order;
+    every tank when nothing is typed.  ``want(tank)`` keeps only the tanks that fit the field."""
+    t = typed.strip().lower()
+    pool = [k for k in vessel.tanks if want is None or want(k)]
+    if not t:
+        return pool
+    first = [k for k in pool if k.id.lower().startswith(t)]
+    rest = [k for k in pool if k not in first and (t in k.id.lower() or t in k.name.lower()
+                                                   or t in k.kind.replace("_", " "))]
+    return first + rest
+
+
+def tank_choice(condition: Condition, tank: Tank) -> str:
+    """One line of the tank list: id, kind, level, contents and room (mass at the tank's density)."""
+    fill = condition.tank_fill(tank.id)
+    vol = fill_volume_m3(tank, fill)
+    rho = tank_density(tank, fill)
+    room = (tank.capacity_m3 - vol) * rho
+    return (f"{tank.id:<6} {tank.kind.replace('_', ' '):<11.11} {100 * vol / tank.capacity_m3:5.1f} % "
+            f"{vol * rho:7.2f} t  room {room:7.2f} t  {tank.name}")
+
+
 def receiving_tank(vessel: Vessel, condition: Condition, from_id: str) -> str:
     """The transfer form's default to-tank: the partner if it has room, else the tank of the same
     liquid with the most room; '' when no tank of that liquid can take any."""

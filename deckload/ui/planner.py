@@ -16,7 +16,9 @@ from deckload.core.ballast_plan import Goal, Proposal, propose
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
 from deckload.ui import entry
-from deckload.ui.dialogs import Form, preview_lines
+from textual.binding import Binding
+
+from deckload.ui.dialogs import Form, TankPicking, preview_lines
 from deckload.ui.entry import EntryError
 from deckload.ui.palette import P
 from deckload.ui.widgets import LinePanel
@@ -51,8 +53,13 @@ def parse_tanks(vessel: Vessel, text: str) -> list[str]:
     return ids
 
 
-class PlannerForm(Form):
-    """Goal and allowed tanks; ⏎ searches; ⏎ again on a shown proposal applies it (returned)."""
+class PlannerForm(TankPicking, Form):
+    """Goal and allowed tanks; ⏎ searches; ⏎ again on a shown proposal applies it (returned).
+    The tanks field offers the tanks that match the word being typed (TankPicking)."""
+
+    BINDINGS = [Binding("up", "pick(-1)", "Previous tank", show=False), Binding("down", "pick(1)", "Next tank", show=False),
+                Binding("tab", "take_or_next", "Take / next field", show=False)]
+    TANK_FIELDS = {"plan-tanks": True}
 
     def __init__(self, vessel: Vessel, condition: Condition, before: Result | None, evaluate):
         super().__init__()
@@ -77,14 +84,27 @@ class PlannerForm(Form):
         need = len(preview_lines(self._before, None, None)) + 1
         self.query_one("#xfer-preview").styles.height = max(8, min(need, self.app.size.height - 10))
         self.set_focus(self.query_one("#plan-goal", Input))
-        self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, None, None))
+        self._update()
+
+    def _update(self) -> None:
+        """The preview panel: the tank list while a tank is being typed, else the proposal's
+        before/after (or the condition before, with no proposal)."""
+        panel = self.query_one("#xfer-preview", LinePanel)
+        picking = self._picker_lines(int(panel.styles.height.value) if panel.styles.height else 8, panel.size.width)
+        if picking is not None:
+            panel.set_lines(picking)
+            return
+        panel.set_lines(preview_lines(self._before, self.proposal.result if self.proposal else None, None))
 
     def on_input_changed(self, event: Input.Changed) -> None:
         event.stop()
         self.proposal = None
+        self._update()
 
     def on_input_submitted(self, event: Input.Submitted) -> None:
         event.stop()
+        if self._take():  # ⏎ while a tank is being picked takes it; it searches nothing
+            return
         asked = (self.query_one("#plan-goal", Input).value, self.query_one("#plan-tanks", Input).value)
         if self.proposal is not None and asked == self._asked:
             self.dismiss(self.proposal)
