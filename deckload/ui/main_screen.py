@@ -376,8 +376,11 @@ class LoadingScreen(Screen[None]):
 
         def done(p) -> None:
             if p is not None:
-                self.commit(p.condition, f"Planned transfer {p.mass_t:.1f} t {p.from_id} → {p.to_id}", "transfer",
-                            {"from": p.from_id, "to": p.to_id, "mass_t": round(p.mass_t, 3), "planned": True})
+                from deckload.ui.planner import plan_words
+
+                self.commit(p.condition, f"Planned: {plan_words(p)}", "transfer",
+                            {"planned": True, "transfers": [{"from": t.from_id, "to": t.to_id, "mass_t": round(t.mass_t, 3)}
+                                                            for t in p.transfers]})
 
         self.app.push_screen(PlannerForm(s.vessel, s.condition, s.result, evaluate), done)
 

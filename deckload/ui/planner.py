@@ -12,7 +12,7 @@ from textual.app import ComposeResult
 from textual.containers import Horizontal, Vertical
 from textual.widgets import Input, Label, Static
 
-from deckload.core.ballast_plan import Goal, Proposal, propose
+from deckload.core.ballast_plan import MAX_TRANSFERS, Goal, NoPlan, Plan, plan
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
 from deckload.ui import entry
@@ -64,15 +64,16 @@ class PlannerForm(TankPicking, Form):
     def __init__(self, vessel: Vessel, condition: Condition, before: Result | None, evaluate):
         super().__init__()
         self._vessel, self._condition, self._before, self._evaluate = vessel, condition, before, evaluate
-        self.proposal: Proposal | None = None
+        self.proposal: Plan | None = None
         self._asked: tuple[str, str] | None = None
 
     def compose(self) -> ComposeResult:
         ballast = " ".join(t.id for t in self._vessel.tanks if t.kind == "ballast")
         with Vertical(classes="form transfer"):
-            yield Label("Ballast planner: one transfer to reach a list, a trim or a GM", classes="form-title")
-            yield Label("Goal: list 0 · trim 0.5 · gm 0.8 (at least).  Tanks: the ones you allow.  ⏎ proposes, "
-                        "⏎ again applies it as one transfer · Esc cancels", classes="form-hint")
+            yield Label("Ballast planner: transfers to reach a list, a trim or a GM", classes="form-title")
+            yield Label(f"Goal: list 0 · trim 0.5 · gm 0.8 (at least).  Tanks: the ones you allow.  ⏎ proposes "
+                        f"(one transfer, or up to {MAX_TRANSFERS}), ⏎ again applies it as one step · Esc cancels",
+                        classes="form-hint")
             for name, label, value in (("goal", "Goal", "list 0"), ("tanks", "Tanks", ballast)):
                 with Horizontal(classes="xfer-row"):
                     yield Label(label, classes="xfer-label")
@@ -115,16 +116,43 @@ class PlannerForm(TankPicking, Form):
             self.refuse(str(exc))
             return
         v = self._vessel
-        found = propose(v, self._condition, goal, tanks, move=partial(entry.planner_move, v),
-                        room=partial(entry.planner_room, v), evaluate=self._evaluate)
+        found = plan(v, self._condition, goal, tanks, move=partial(entry.planner_move, v),
+                     room=partial(entry.planner_room, v), evaluate=self._evaluate)
         self._asked = asked
-        if not found:
+        if isinstance(found, NoPlan):
             self.proposal = None
             self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, None, None))
-            self.refuse("No single transfer between these tanks reaches the goal: allow other tanks or change it.")
+            self.refuse(no_plan_words(goal, found))
             return
-        self.proposal = p = found[0]
-        self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, p.result, None))
-        more = f" ({len(found) - 1} other pair{'s' if len(found) != 2 else ''} would do too)" if len(found) > 1 else ""
+        self.proposal = found
+        self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, found.result, None))
         self.query_one("#form-message", Static).update(Text(
-            f"Pump {p.mass_t:.1f} t {p.from_id} → {p.to_id}{more}.  ⏎ applies · Esc cancels", P["value"]))
+            f"{plan_words(found)}: {goal_words(goal, found.after)}.  ⏎ applies · Esc cancels", P["value"]))
+
+
+def transfers_words(transfers) -> str:
+    """'Pump 16.6 t WB2P → DB3P, then 19.8 t FPT → DB3P'."""
+    return "Pump " + ", then ".join(f"{t.mass_t:.1f} t {t.from_id} → {t.to_id}" for t in transfers)
+
+
+def plan_words(p: Plan) -> str:
+    return transfers_words(p.transfers)
+
+
+def goal_words(goal: Goal, value: float) -> str:
+    """The goal's quantity at ``value`` as the screens write it: list 0.1° P, trim 0.122 m A, GM fluid 0.944 m."""
+    if goal.quantity == "list":
+        return f"list {abs(value):.1f}°" + ("" if round(abs(value), 1) == 0 else " S" if value > 0 else " P")
+    if goal.quantity == "trim":
+        return f"trim {abs(value):.3f} m" + ("" if round(abs(value), 3) == 0 else " A" if value > 0 else " F")
+    return f"GM fluid {value:.3f} m"
+
+
+def no_plan_words(goal: Goal, why: NoPlan) -> str:
+    """Why there is no plan, with the nearest the allowed tanks come and how."""
+    want = (f"GM fluid at least {goal.target:.3f} m" if goal.quantity == "gm"
+            else goal_words(goal, goal.target).replace(" m A", " m by the stern").replace(" m F", " m by the head"))
+    how = f" after: {transfers_words(why.transfers).lower()}" if why.transfers else " (as she is)"
+    upright = f", keeping the list within {why.list_limit_deg:.1f}°" if why.list_limit_deg is not None else ""
+    return (f"No plan of up to {MAX_TRANSFERS} transfers between these tanks reaches {want}{upright}: the nearest "
+            f"is {goal_words(goal, why.best)}{how}.  Allow other tanks or change the goal.")
