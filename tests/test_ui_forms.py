@@ -215,3 +215,80 @@ async def test_the_planner_tank_field_picks_word_by_word_and_never_offers_a_tank
         assert "WB1S" in shown and "WB1P" not in shown
         await type_fast(app, pilot, ["enter"])  # ⏎ takes the tank; it does not search yet
         assert fields(app)["plan-tanks"] == "WB1P WB1S " and app.screen.proposal is None
+
+
+# --------------------------------------------------------------------------- texts found cut in a QA trial
+
+
+def region_text(app, selector: str) -> str:
+    """What the screen shows inside a widget's region (a form without its border, a panel), read
+    from the rendered rows, as one text with runs of spaces taken out (a wrapped sentence reads
+    as it was written)."""
+    widget = app.screen.query_one(selector)
+    r = widget.region
+    rows = screen_text(app)[r.y: r.y + r.height]
+    edge = 1 if widget.styles.border_left[0] else 0
+    return " ".join(" ".join(row[r.x + edge: r.x + r.width - edge] for row in rows).split())
+
+
+@pytest.mark.parametrize("size", [(80, 24), (120, 40)])
+async def test_the_transfer_preview_shows_every_criterion_row(app, size):
+    from deckload.ui import views
+    from deckload.ui.widgets import LoadBoard
+
+    async with app.run_test(size=size) as pilot:
+        app.screen.query_one(LoadBoard).select(("tank", "WB2P"))
+        await pilot.press("t", *"5t")
+        await pilot.pause()
+        rows = screen_text(app)
+        assert any("Transfer 5.00 t" in r for r in rows)  # the message line, below the panel
+        for c in app.session.result.criteria:
+            name = f"{views.criterion_name(c):<14.14}".rstrip()
+            assert any(r.split("│")[1].lstrip().startswith(name) for r in rows if r.count("│") >= 2), name
+
+
+@pytest.mark.parametrize("size", [(80, 24), (120, 40)])
+async def test_the_verdict_page_fits_the_screen_and_keeps_its_caution_whole(app, size):
+    async with app.run_test(size=size) as pilot:
+        await pilot.press("v", "end")
+        await pilot.pause()
+        rows = screen_text(app)
+        assert all(len(r) <= size[0] for r in rows)
+        assert ("deckload supports, and never replaces, the approved stability booklet, the master's judgement "
+                "and flag-State and class rules.") in region_text(app, ".form")
+
+
+@pytest.mark.parametrize("size, keys", [((120, 40), []), ((80, 24), ["g"])])
+async def test_the_gz_title_is_shown_whole(app, size, keys):
+    """120×40: "GZ curve to port  max 0.407 m at 30°  zero at 56°  θf 40°" was cut at "θf"."""
+    from deckload.ui import views
+
+    async with app.run_test(size=size) as pilot:
+        await pilot.press(*keys)
+        await pilot.pause()
+        r = app.session.result
+        title = " ".join(views.gz_caption(r, compact=True).plain.split())
+        assert title in region_text(app, "#gz")
+        assert f"θf {r.downflooding_angle_deg:.0f}°" in title
+
+
+def test_a_recorded_entry_says_what_it_is_once():
+    """The log screen's entry read 'condition recorded by TS: condition recorded: …', then named
+    each criteria set a second time under the verdict that had named them."""
+    from datetime import datetime, timezone
+
+    from deckload.logbook import LogEntry
+    from deckload.ui.log_screen import entry_details
+
+    summary = {"condition_name": "Departure", "verdict": "Met: IS Code 2008 Part A 2.2 general criteria.",
+               "criteria_sets": [{"id": "IS2008-A2.2", "title": "IS Code 2008 Part A 2.2 general criteria", "pass": True}],
+               "smallest_margin": {"description": "Angle of maximum GZ", "value": 29.784, "limit": 25.0,
+                                   "margin": 4.784, "unit": "deg"}}
+    now = datetime(2026, 3, 1, 8, 0, tzinfo=timezone.utc)
+    e = LogEntry(line_no=2, seq=2, utc=now, ship_clock="+00:00", vessel="Demo Islander", by="TS", kind="condition",
+                 change_text="condition recorded: Departure", change_data={}, remark="", summary=summary,
+                 condition=None, prev_sha256="0" * 64, sha256="1" * 64)
+    text = entry_details(e).plain
+    assert text.count("condition recorded") == 1 and "condition recorded by TS: Departure" in text
+    assert text.count("IS Code 2008 Part A 2.2 general criteria") == 1
+    assert "29.8 against 25.0 deg (margin 4.8)" in text  # angles to 0.1°

@@ -22,7 +22,7 @@ from textual.widgets import Input, Label, Static
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
 from deckload.ui import views
-from deckload.report.verdict_format import value_text
+from deckload.report.verdict_format import digits_of, value_text
 from deckload.ui.commands import COMMANDS, NAVIGATION
 from deckload.ui import entry
 from deckload.ui.entry import EntryError, ItemForm, TransferPlan, plan_transfer
@@ -39,6 +39,19 @@ class Form(ModalScreen[Any]):
         super().__init__()
         self.opened_at = time.monotonic()
         """Keys typed before a field has focus wait for it (DeckloadApp), for at most KEY_WAIT_S from here."""
+
+    def fit_preview(self, need: int, hint: str, fields: int) -> None:
+        """Give the before/after panel ``need`` rows, as far as the screen allows: the form's other
+        rows are its border (2), title, hint (wrapped to the form's width), fields and message;
+        on a short screen (under 30 rows) the blank row above the panel goes first."""
+        inner = min(80, self.app.size.width) - 4  # .form.transfer: width 80, border and padding
+        other = 2 + 1 + len(Text(hint).wrap(self.app.console, max(10, inner))) + fields + 1
+        panel = self.query_one("#xfer-preview")
+        if self.app.size.height < 30:
+            panel.styles.margin = (0, 0, 0, 0)
+        else:
+            other += 1
+        panel.styles.height = max(8, min(need, self.app.size.height - other))
 
     @property
     def keys_ready(self) -> bool:
@@ -181,6 +194,9 @@ def _cut(line: Text, width: int) -> Text:
     return out
 
 
+TRANSFER_HINT = "Amount in t, m³ or % of the from-tank's capacity; mass is conserved."
+
+
 class TankPicking:
     """For a form with tank fields: while the text in the focused tank field is not a tank id,
     the preview panel lists the tanks that match what is typed (entry.tank_matches), ↑ ↓ choose
@@ -313,7 +329,7 @@ class TransferForm(TankPicking, Form):
     def compose(self) -> ComposeResult:
         with Vertical(classes="form transfer"):
             yield Label("Transfer between tanks", classes="form-title")
-            yield Label("Amount in t, m³ or % of the from-tank's capacity; mass is conserved.", classes="form-hint")
+            yield Label(TRANSFER_HINT, classes="form-hint")
             for name, label, value, hint in (("from", "From tank", self._from, "tank id, e.g. DB2P"),
                                              ("to", "To tank", self._to, "tank id"),
                                              ("amount", "Amount", "", "10t, 5m3 or 20%")):
@@ -325,8 +341,7 @@ class TransferForm(TankPicking, Form):
 
     def on_mount(self) -> None:
         # Room for every criterion of every set assessed (and a problem line), as far as the screen allows.
-        need = len(preview_lines(self._before, None, None)) + 1
-        self.query_one("#xfer-preview").styles.height = max(8, min(need, self.app.size.height - 10))
+        self.fit_preview(len(preview_lines(self._before, None, None)) + 1, TRANSFER_HINT, 3)
         first_empty = "from" if not self._from else "to" if not self._to else "amount"
         self.set_focus(self.query_one(f"#xfer-{first_empty}", Input))
         self._update()
@@ -421,7 +436,7 @@ def preview_lines(before: Result | None, after: Result | None, problem: str | No
                 line.append(value_text(x, 7) + " ", P["value"])
                 line.append(f"{word:<4}", P[style])
                 line.append(" ")
-        line.append(f"  limit {views.CMP.get(c.comparison, c.comparison)} {c.limit:.3f} {c.unit}", P["dim"])
+        line.append(f"  limit {views.CMP.get(c.comparison, c.comparison)} {c.limit:.{digits_of(c)}f} {c.unit}", P["dim"])
         out.append(line)
     return out
 

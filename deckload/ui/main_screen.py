@@ -111,7 +111,11 @@ class LoadingScreen(Screen[None]):
             if chart is None:
                 return verdict.weather_missing(r, w)
             return [verdict.weather_caption(r, w), *chart.lines()]
-        return [views.gz_caption(r), *views.gz_chart(r, stale, w - 1, h - 1).lines()]
+        caption = views.gz_caption(r)
+        if caption.cell_len > w:
+            caption = views.gz_caption(r, compact=True)
+        head = fit_lines(caption, w, 2)  # the whole title, on two lines where one is too short
+        return [*head, *views.gz_chart(r, stale, w - 1, h - len(head)).lines()]
 
     def _size_criteria(self, r, stale: bool) -> None:
         """Wide: the criteria panel as tall as its lines (the curve keeps MIN_CURVE_ROWS); narrow: the rest."""

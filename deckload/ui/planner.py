@@ -53,6 +53,10 @@ def parse_tanks(vessel: Vessel, text: str) -> list[str]:
     return ids
 
 
+PLANNER_HINT = (f"Goal: list 0 · trim 0.5 · gm 0.8 (at least).  Tanks: the ones you allow.  ⏎ proposes (one "
+                f"transfer, or up to {MAX_TRANSFERS}), ⏎ again applies it as one step · Esc cancels")
+
+
 class PlannerForm(TankPicking, Form):
     """Goal and allowed tanks; ⏎ searches; ⏎ again on a shown proposal applies it (returned).
     The tanks field offers the tanks that match the word being typed (TankPicking)."""
@@ -71,9 +75,7 @@ class PlannerForm(TankPicking, Form):
         ballast = " ".join(t.id for t in self._vessel.tanks if t.kind == "ballast")
         with Vertical(classes="form transfer"):
             yield Label("Ballast planner: transfers to reach a list, a trim or a GM", classes="form-title")
-            yield Label(f"Goal: list 0 · trim 0.5 · gm 0.8 (at least).  Tanks: the ones you allow.  ⏎ proposes "
-                        f"(one transfer, or up to {MAX_TRANSFERS}), ⏎ again applies it as one step · Esc cancels",
-                        classes="form-hint")
+            yield Label(PLANNER_HINT, classes="form-hint")
             for name, label, value in (("goal", "Goal", "list 0"), ("tanks", "Tanks", ballast)):
                 with Horizontal(classes="xfer-row"):
                     yield Label(label, classes="xfer-label")
@@ -82,8 +84,7 @@ class PlannerForm(TankPicking, Form):
             yield Static("", id="form-message")
 
     def on_mount(self) -> None:
-        need = len(preview_lines(self._before, None, None)) + 1
-        self.query_one("#xfer-preview").styles.height = max(8, min(need, self.app.size.height - 10))
+        self.fit_preview(len(preview_lines(self._before, None, None)) + 1, PLANNER_HINT, 2)
         self.set_focus(self.query_one("#plan-goal", Input))
         self._update()
 

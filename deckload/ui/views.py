@@ -279,20 +279,22 @@ def gz_chart(result: Result | None, stale: bool, width: int, height: int) -> GzC
     return GzChart(tuple(result.gz_heel_deg), tuple(gz), tuple(marks), width, height, stale)
 
 
-def gz_caption(result: Result | None) -> Text:
-    t = Text(" GZ curve", P["title"])
+def gz_caption(result: Result | None, compact: bool = False) -> Text:
+    """The curve's title line; ``compact`` (a narrow panel): the same facts in fewer words."""
+    sep = " " if compact else "  "
+    t = Text(" GZ" if compact else " GZ curve", P["title"])
     if result is None:
         return t
     t.append(f" to {result.criteria_side}", P["title"])
-    t.append(f"  max {result.max_gz_m:.3f} m at {result.max_gz_angle_deg:.0f}°", P["dim"])
+    t.append(f"{sep}max {result.max_gz_m:.3f} m at {result.max_gz_angle_deg:.0f}°", P["dim"])
     if result.vanishing_angle_deg is not None:
-        t.append(f"  zero at {result.vanishing_angle_deg:.0f}°", P["dim"])
+        t.append(f"{sep}zero {'' if compact else 'at '}{result.vanishing_angle_deg:.0f}°", P["dim"])
     elif result.gz_end_deg < 90.0:
-        t.append(f"  zero beyond {result.gz_end_deg:g}° (KN end)", P["dim"])
+        t.append(f"{sep}zero beyond {result.gz_end_deg:g}° (KN end)", P["dim"])
     if result.vanishing_angle_deg is not None and result.gz_end_deg < 90.0:
-        t.append(f"  curve ends {result.gz_end_deg:g}° (KN end)", P["dim"])
+        t.append(f"{sep}curve ends {result.gz_end_deg:g}° (KN end)", P["dim"])
     if result.downflooding_angle_deg is not None:
-        t.append(f"  θf {result.downflooding_angle_deg:.0f}°", P["dim"])
+        t.append(f"{sep}θf {result.downflooding_angle_deg:.0f}°", P["dim"])
     return t
 
 
