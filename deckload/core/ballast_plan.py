@@ -206,8 +206,8 @@ def _search(vessel, goal, hi, q0, apply, evaluate):
         c, r, f = got
         if _met(f + goal.target, goal):
             best = (m, c, r, f)
-            if goal.quantity != "gm" or hi - m < 1e-3:
-                break
+            if goal.quantity != "gm" or hi - m < 1e-3 or f <= goal.tolerance:
+                break  # GM: at least the value, and within its tolerance above it (the least mass, to the mm)
         if f * f_hi > 0:
             hi, f_hi = m, f
             if side == -1:
