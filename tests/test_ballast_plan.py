@@ -19,6 +19,15 @@ from deckload.io.profiles import load_condition, load_profile
 from deckload.ui import entry
 
 
+async def searched(pilot, app) -> None:
+    """The planner searches off the screen's thread: wait until it has answered (30 s at most)."""
+    for _ in range(600):
+        await pilot.pause(0.05)
+        if not getattr(app.screen, "searching", False):
+            break
+    await pilot.pause()
+
+
 @pytest.fixture(scope="module")
 def listed():
     """Departure with both WB1 wings half full, then ballast pumped from WB1S into its partner WB1P
@@ -81,6 +90,7 @@ async def test_planner_form_proposes_then_applies_one_transfer(listed, tmp_path)
         app.screen.query_one("#plan-tanks").value = "WB1P WB1S"
         app.screen.query_one("#plan-goal").focus()
         await pilot.press("enter")
+        await searched(pilot, app)
         await pilot.pause()
         assert app.screen.proposal is not None
         assert "Pump" in str(app.screen.query_one("#form-message").render())
@@ -188,6 +198,7 @@ async def test_when_no_plan_is_possible_the_planner_says_why_and_changes_nothing
         app.screen.query_one("#plan-goal").focus()
         await pilot.pause()
         await pilot.press("enter")
+        await searched(pilot, app)
         await pilot.pause()
         said = str(app.screen.query_one("#form-message").render())
         assert "No plan of up to" in said and "reaches trim 0.000 m" in said

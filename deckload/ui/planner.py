@@ -69,6 +69,7 @@ class PlannerForm(TankPicking, Form):
         super().__init__()
         self._vessel, self._condition, self._before, self._evaluate = vessel, condition, before, evaluate
         self.proposal: Plan | None = None
+        self.searching = False
         self._asked: tuple[str, str] | None = None
 
     def compose(self) -> ComposeResult:
@@ -116,10 +117,38 @@ class PlannerForm(TankPicking, Form):
         except EntryError as exc:
             self.refuse(str(exc))
             return
+        if self.searching:
+            self.query_one("#form-message", Static).update(Text("Still searching…  Esc cancels", P["dim"]))
+            return
+        # The search runs off the screen's thread (each step is a full calculation, a GM plan on
+        # a loaded PC takes a second or so): the form stays live and says it is searching.
+        self.searching, self._asked = True, asked
+        self.query_one("#form-message", Static).update(Text("Searching…", P["dim"]))
+        self.run_worker(partial(self._search, goal, tanks, asked), thread=True, exclusive=True, exit_on_error=False)
+
+    def _search(self, goal: Goal, tanks: list[str], asked: tuple[str, str]) -> None:
         v = self._vessel
-        found = plan(v, self._condition, goal, tanks, move=partial(entry.planner_move, v),
-                     room=partial(entry.planner_room, v), evaluate=self._evaluate)
-        self._asked = asked
+        try:
+            found = plan(v, self._condition, goal, tanks, move=partial(entry.planner_move, v),
+                         room=partial(entry.planner_room, v), evaluate=self._evaluate)
+        except (ValueError, ArithmeticError) as exc:  # the calculation refused every step it was asked
+            found = exc
+        try:
+            self.app.call_from_thread(self._found, goal, asked, found)
+        except RuntimeError:  # the app closed while it searched: nobody to tell
+            pass
+
+    def _found(self, goal: Goal, asked: tuple[str, str], found) -> None:
+        self.searching = False
+        if not self.is_attached or asked != self._asked:
+            return
+        now = (self.query_one("#plan-goal", Input).value, self.query_one("#plan-tanks", Input).value)
+        if now != asked:  # the fields changed while it searched: this answer is to another question
+            self.query_one("#form-message", Static).update(Text("⏎ proposes for the goal and tanks as they are now.", P["dim"]))
+            return
+        if isinstance(found, Exception):
+            self.refuse(f"The planner could not compute a step: {found}")
+            return
         if isinstance(found, NoPlan):
             self.proposal = None
             self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, None, None))
