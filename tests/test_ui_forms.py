@@ -292,3 +292,14 @@ def test_a_recorded_entry_says_what_it_is_once():
     assert text.count("condition recorded") == 1 and "condition recorded by TS: Departure" in text
     assert text.count("IS Code 2008 Part A 2.2 general criteria") == 1
     assert "29.8 against 25.0 deg (margin 4.8)" in text  # angles to 0.1°
+
+
+async def test_a_value_typed_at_once_replaces_the_one_shown(app):
+    """FO1P holds 95%: ⏎ opens the set dialog with 95% selected; 40% typed at once replaces it
+    (the selection is made before the first key lands), and ⏎ sets it."""
+    from deckload.ui.widgets import LoadBoard
+
+    async with app.run_test(size=(120, 40)) as pilot:
+        app.screen.query_one(LoadBoard).select(("tank", "FO1P"))
+        await type_fast(app, pilot, ["enter", *"40%", "enter"])
+        assert app.session.condition.tank_fill("FO1P").value == 40.0
