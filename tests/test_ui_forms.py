@@ -303,3 +303,18 @@ async def test_a_value_typed_at_once_replaces_the_one_shown(app):
         app.screen.query_one(LoadBoard).select(("tank", "FO1P"))
         await type_fast(app, pilot, ["enter", *"40%", "enter"])
         assert app.session.condition.tank_fill("FO1P").value == 40.0
+
+
+async def test_keys_typed_at_once_reach_the_log_screen_as_it_opens(app):
+    """s ⏎ records the condition (initials given), l opens the voyage log, Esc typed at once closes
+    it again, in the order typed (every screen, not only the forms, takes its keys once it has
+    its focus)."""
+    from deckload.ui.log_screen import LogScreen
+    from deckload.ui.main_screen import LoadingScreen
+
+    async with app.run_test(size=(120, 40)) as pilot:
+        await type_fast(app, pilot, ["s", "enter", "l"])
+        assert isinstance(app.screen, LogScreen)
+        await type_fast(app, pilot, ["escape", "l", "escape"])
+        assert isinstance(app.screen, LoadingScreen)
+        assert any(e.kind == "condition" for e in app.session.journal.logbook.entries())

@@ -20,7 +20,16 @@ from deckload.ui.session import Session
 
 
 KEY_WAIT_S = 1.0
-"""The longest a typed key waits for the key before it, or for a form to focus its first field."""
+"""The longest a typed key waits for the key before it, or for a screen to focus its first field."""
+
+
+def screen_ready(screen: Screen) -> bool:
+    """A screen takes keys once mounted with a widget focused (or with nothing to focus); a form
+    says so itself (``Form.keys_ready``)."""
+    ready = getattr(screen, "keys_ready", None)
+    if ready is not None:
+        return bool(ready)
+    return screen.is_mounted and (screen.focused is not None or not screen.focus_chain)
 
 
 class DeckloadApp(App[None]):
@@ -39,6 +48,7 @@ class DeckloadApp(App[None]):
         self._release_pending = False
         self._held_watch = None
         self._key_returned = False
+        self._hold_since: tuple[Screen, float] | None = None
 
     def _print_error_renderables(self) -> None:
         """An unforeseen error is reported by the launcher in one paragraph, the details in a
@@ -115,10 +125,13 @@ class DeckloadApp(App[None]):
             self._key_in_flight = None  # lost with a widget removed meanwhile: never wait for ever
         if self._key_in_flight is not None:
             return True
-        from deckload.ui.dialogs import Form
-
         screen = self.screen_stack[-1] if self.screen_stack else None
-        return isinstance(screen, Form) and not screen.keys_ready and now - screen.opened_at < KEY_WAIT_S
+        if screen is None or screen_ready(screen):
+            self._hold_since = None
+            return False
+        if self._hold_since is None or self._hold_since[0] is not screen:
+            self._hold_since = (screen, now)
+        return now - self._hold_since[1] < KEY_WAIT_S
 
     def release_keys(self) -> None:
         """Send the keys held back, in order, as far as nothing holds them (called when a key has

@@ -7,7 +7,6 @@ without a change.
 
 from __future__ import annotations
 
-import time
 from typing import Any, Callable
 
 from rich.console import Group
@@ -37,8 +36,6 @@ class Form(ModalScreen[Any]):
 
     def __init__(self) -> None:
         super().__init__()
-        self.opened_at = time.monotonic()
-        """Keys typed before a field has focus wait for it (DeckloadApp), for at most KEY_WAIT_S from here."""
 
     def fit_preview(self, need: int, hint: str, fields: int) -> None:
         """Give the before/after panel ``need`` rows, as far as the screen allows: the form's other
