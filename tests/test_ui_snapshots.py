@@ -50,7 +50,8 @@ def test_main_screen_80x24_curve_after_a_ballast_edit(snap_compare, demo_app):
 
 
 def test_transfer_preview_120x40(snap_compare, demo_app):
-    assert snap_compare(demo_app, terminal_size=(120, 40), press=["t", *"5t"])
+    """WB2P → its receiving tank, 5 t: the before/after with every criterion."""
+    assert snap_compare(demo_app, terminal_size=(120, 40), press=["down"] * 9 + ["t", *"5t"])
 
 
 def test_transfer_preview_80x24(snap_compare, demo_app):
