@@ -111,10 +111,7 @@ class LoadingScreen(Screen[None]):
             if chart is None:
                 return verdict.weather_missing(r, w)
             return [verdict.weather_caption(r, w), *chart.lines()]
-        caption = views.gz_caption(r)
-        if caption.cell_len > w:
-            caption = views.gz_caption(r, compact=True)
-        head = fit_lines(caption, w, 2)  # the whole title, on two lines where one is too short
+        head = gz_title_lines(r, w)  # every fact of the title, on two lines where one is too short
         return [*head, *views.gz_chart(r, stale, w - 1, h - len(head)).lines()]
 
     def _size_criteria(self, r, stale: bool) -> None:
@@ -166,11 +163,19 @@ class LoadingScreen(Screen[None]):
         """The message line: ✔ done, ✖ refused, or a plain hint."""
         style, mark = {True: (P["ok"], "✔ "), False: (P["danger"], "✖ "), None: (P["dim"], "")}[ok]
         panel = self.query_one("#status", LinePanel)
-        # Two lines where one would cut it (80 columns); the second ends in … if even that is short.
-        lines = fit_lines(Text(" " + mark + message, style), max(20, self.size.width), STATUS_MAX_LINES)
+        # A result or refusal takes two lines where one would cut it (80 columns; the second ends in …
+        # if even that is short); a hint (ok None) keeps one line, so the board keeps its rows.
+        lines = fit_lines(Text(" " + mark + message, style), max(20, self.size.width),
+                          1 if ok is None else STATUS_MAX_LINES)
         if panel.styles.height is None or panel.styles.height.value != len(lines):
             panel.styles.height = len(lines)
+            self.call_after_refresh(self._cursor_in_view)  # the board lost or gained a row
         panel.set_lines(lines)
+
+    def _cursor_in_view(self) -> None:
+        board = self.query_one(LoadBoard)
+        if board.cursor_key is not None:
+            board.select(board.cursor_key, announce=False)
 
     # ------------------------------------------------------------------ changes
 
@@ -237,6 +242,8 @@ class LoadingScreen(Screen[None]):
             self._edit_item(what == "deck", ident)
         elif what == "fixed":
             self.say("A fixed constant of the vessel profile: to change it for this condition, add a constant (c) of the same name.", ok=False)
+        elif what == "dwt":
+            self.say(DWT_HINT, ok=False)
 
     def _edit_tank(self, tank_id: str) -> None:
         s = self.session
@@ -403,6 +410,34 @@ class LoadingScreen(Screen[None]):
                        f"{s.condition.water_density_t_m3:.3f}", build),
             lambda c: c and self.commit(c, f"Water density {c.water_density_t_m3:.3f} t/m³", "edit",
                                         {"water_density_t_m3": c.water_density_t_m3}))
+
+    def action_tank_density(self) -> None:
+        what, ident = self._key
+        if what != "tank":
+            self.say("Tank density applies to tanks: put the cursor on a tank (d sets the water she floats in).",
+                     ok=False)
+            return
+        s = self.session
+        tank = s.vessel.tank(ident)
+        fill = s.condition.tank_fill(ident)
+        lo, hi = entry.LIQUID_DENSITY_RANGE_T_M3
+        now = entry.tank_density(tank, fill)
+        build = lambda text: entry.set_tank_density(s.condition, tank, text)  # noqa: E731
+
+        def done(c) -> None:
+            if not c:
+                return
+            new = c.tank_fill(ident)
+            rho = new.density_t_m3 if new is not None else None
+            said = f"{rho:.3f} t/m³ (delivery note)" if rho is not None else f"{tank.density_t_m3:.3f} t/m³ (the tank's default)"
+            self.commit(c, f"{ident} density {said}, was {now:.3f}", self._kind(ident),
+                        {"tank": ident, "density_t_m3": rho})
+
+        self.app.push_screen(
+            PromptForm(f"Density in {tank.id} {tank.name}",
+                       f"t/m³, {lo:.3f}–{hi:.3f}, from the delivery note; empty or 'default' for the tank's own "
+                       f"{tank.density_t_m3:.3f}. The amount stays as stated.", f"{now:.4g}", build),
+            done)
 
     def action_fs_rule(self) -> None:
         s = self.session
@@ -626,14 +661,23 @@ class LoadingScreen(Screen[None]):
             t = self.session.vessel.tank(ident)
             r = self.session.result
             why = next((x.fs_rule for x in r.tanks if x.id == ident), "") if r is not None else ""
+            fill = self.session.condition.tank_fill(ident)
+            rho = f" · ρ {fill.density_t_m3:.4g} stated (D)" if fill is not None and fill.density_t_m3 is not None else ""
             keys = " · ⏎ set · + − · f full · e empty · t transfer" if not self.has_class("-narrow") else ""
-            self.say(f"{t.id} {t.name} · {t.capacity_m3:.1f} m³ · FSM: {why}{keys}", ok=None)
+            self.say(f"{t.id} {t.name} · {t.capacity_m3:.1f} m³{rho} · FSM: {why}{keys}", ok=None)
         elif what == "hold":
             self.say(f"{ident} {self.session.vessel.hold(ident).name} · ⏎ cargo mass · + − 1 t · e empty", ok=None)
         elif what in ("deck", "const"):
             self.say("⏎ edit mass and position · + − 1 t · e remove · a add deck load · c add constant", ok=None)
         elif what == "fixed":
             self.say("A fixed constant of the vessel profile: to change it for this condition, add a constant (c) of the same name.", ok=None)
+        elif what == "dwt":
+            self.say(DWT_HINT if not self.has_class("-narrow") else DWT_HINT_NARROW, ok=None)
+
+
+DWT_HINT_NARROW = "Deadweight by kind: sums of the lines above (cargo: holds, deck, liquid cargo)"
+DWT_HINT = ("Deadweight by kind: the sum of the lines above it (cargo = holds, deck loads and liquid cargo); "
+            "change the tanks and items themselves.")
 
 
 STATUS_MAX_LINES = 2
@@ -664,6 +708,25 @@ def fit_lines(text: Text, width: int, max_lines: int, indent: int = 2) -> list[T
             last.append(" ").append_text(more[indent:])
         lines = lines[: max_lines - 1] + [last]
     return [cut(ln, width) for ln in lines]
+
+
+def gz_title_lines(result, width: int) -> list[Text]:
+    """The curve's title (views.gz_caption) with every fact it holds: "GZ curve" becomes "GZ" where
+    the line is too short, then it wraps to two lines; nothing is left out."""
+    title = views.gz_caption(result)
+    if title.cell_len > width and title.plain.startswith(" GZ curve"):
+        title = Text(" GZ", P["title"]).append_text(title[len(" GZ curve"):])
+    if title.cell_len <= width:
+        return [title]
+    # Two lines broken between its parts (two spaces apart), not inside one ("zero at | 55.9°");
+    # where the parts do not pack into two lines, wrapped by words.
+    text = title.plain
+    breaks = [i for i in range(1, len(text)) if text.startswith("  ", i)]
+    first = [i for i in breaks if i <= width]
+    if first and len(text) - first[-1] - 1 <= width:
+        at = first[-1]
+        return [title[:at], title[at + 1:]]  # the second line keeps one of the two spaces as its margin
+    return fit_lines(title, width, 2)
 
 
 def alert_lines(alerts: list[views.Alert], height: int, width: int | None = None) -> list[Text]:
