@@ -1,4 +1,4 @@
-"""Shared by the whole suite (DEVELOPERS.md, "Tests": how the suite stays fast).
+"""Settings and fixtures shared by every test (DEVELOPERS.md, "Tests": how the suite stays fast).
 
 Every test gets its own per-user data folder (``DECKLOAD_HOME`` in a fresh temporary folder):
 nothing a test does reaches the real ``~/.local/share/deckload``, and tests running side by side in
@@ -15,8 +15,14 @@ fifth of the screen tests' CPU; freezing took about a third off that).
 from __future__ import annotations
 
 import gc
+import os
 
 import pytest
+
+# The suite never reads or writes the user's cache of validated profiles (deckload.io.profile_cache):
+# a test's result must not depend on what an earlier run left in ~/.local/share/deckload.  The
+# cache's own tests (tests/test_profile_cache.py) turn it on with a data folder of their own.
+os.environ["DECKLOAD_NO_CACHE"] = "1"
 
 
 def pytest_collection_finish(session):

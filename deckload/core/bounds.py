@@ -38,13 +38,14 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from deckload.core.audit import ENVELOPE_X_FRACTION
 from deckload.core.model import Particulars, Vessel
 from deckload.core.tables import OutOfRangeError
 
-AFT_OVERHANG = ENVELOPE_X_FRACTION
+AFT_OVERHANG = 0.2
 """How far beyond either perpendicular a position may lie, as a fraction of LBP: the plausibility
-audit's envelope (deckload.core.audit), so the profile audit, the readers and the forms agree."""
+audit's envelope (deckload.core.audit.ENVELOPE_X_FRACTION is this number), so the profile audit,
+the readers and the forms agree.  Overall length rarely exceeds 1.2 × LBP (common practice).
+(Defined here, not in the audit, so that a calculation does not load the audit.)"""
 LENGTH_FACTOR = 1.0 + AFT_OVERHANG
 """A hull is at most 1.2·LBP long overall (common practice; the audit's waterline bound too)."""
 ABOVE_DEPTH_M = 30.0
@@ -52,6 +53,12 @@ ABOVE_DEPTH_M = 30.0
 
 WATER_DENSITY_RANGE_T_M3 = (0.99, 1.04)
 """The water a vessel floats in (t/m³): fresh river water 1.000 to dense sea water (common practice)."""
+
+LIQUID_DENSITY_RANGE_T_M3 = (0.5, 2.0)
+"""What a tank may hold (t/m³), in a profile, a condition file or typed on the screen from a bunker
+delivery note: from liquefied gas near 0.5 (propane at its boiling point) through oils 0.8–1.0
+and water 1.000–1.025 to heavy brines and drilling mud near 2.0 (common practice).  A density
+outside it is a typing error (a shifted point, kg/m³ for t/m³), not a liquid."""
 
 LBP_RANGE_M = (1.0, 500.0)
 BEAM_DEPTH_RANGE_M = (0.2, 100.0)

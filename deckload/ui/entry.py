@@ -13,11 +13,13 @@ tank's ullage reference point; the profile gives ``ullage_reference_m``).
 
 from __future__ import annotations
 
+import dataclasses
+
 import re
 from dataclasses import dataclass
 
 from deckload.core import bounds
-from deckload.core.loading import LoadingError, level_of, over_limit, reading_range, volume_of
+from deckload.core.loading import LoadingError, level_of, over_limit, reading_range, resolve_tank, volume_of
 from deckload.core.model import (
     LEVEL_QUANTITIES,
     Condition,
@@ -40,6 +42,8 @@ UNIT_LABEL: dict[str, str] = {"percent": "%", "volume_m3": "m³", "mass_t": "t",
                               "ullage_m": "m ullage"}
 
 WATER_DENSITY_RANGE_T_M3 = bounds.WATER_DENSITY_RANGE_T_M3
+LIQUID_DENSITY_RANGE_T_M3 = bounds.LIQUID_DENSITY_RANGE_T_M3
+"""Accepted density of a tank's contents: the same range as every profile and condition file."""
 """Accepted water density: the same range as every condition file (deckload.core.bounds)."""
 
 EMPTY_VOLUME_M3 = 1e-9
@@ -177,6 +181,25 @@ def set_tank(condition: Condition, tank: Tank, quantity: str, value: float) -> C
     return condition.with_tank(TankFill(tank.id, quantity, float(value), override))
 
 
+def set_tank_density(condition: Condition, tank: Tank, text: str) -> Condition:
+    """The condition with the density of ``tank``'s contents stated (a bunker delivery note), or
+    back to the tank's default when ``text`` is empty or 'default'.
+
+    The amount stays as it was stated: a sounding, ullage, volume or percentage keeps the volume,
+    so the mass becomes V·ρ; a mass keeps the mass, so the volume becomes m/ρ, which must still fit
+    the tank.  An empty tank takes the density for what will be put in it (0 %, density kept).
+    """
+    low, high = LIQUID_DENSITY_RANGE_T_M3
+    raw = text.strip()
+    rho = None if raw.lower() in ("", "default") else parse_number(
+        raw, f"Density in {tank.id}", "t/m3", low=low, high=high)
+    fill = condition.tank_fill(tank.id)
+    if fill is None:
+        return condition if rho is None else condition.with_tank(TankFill(tank.id, "percent", 0.0, rho))
+    check_tank_amount(tank, fill.quantity, fill.value, tank.density_t_m3 if rho is None else rho)
+    return condition.with_tank(dataclasses.replace(fill, density_t_m3=rho))
+
+
 def describe_fill(tank: Tank, fill: TankFill | None) -> str:
     """What an entry was understood as, with its volume: '55 % = 12.34 m³', 'sounding 1.2 m = 8.10 m³'."""
     if fill is None:
@@ -200,6 +223,23 @@ def fill_text(fill: TankFill | None) -> str:
 def tank_from_text(condition: Condition, tank: Tank, text: str) -> Condition:
     quantity, value = parse_amount(text)
     return set_tank(condition, tank, quantity, value)
+
+
+def amount_preview(condition: Condition, tank: Tank, text: str) -> str:
+    """What an amount typed for ``tank`` comes to, shown before ⏎ in every form the tank can be
+    stated in: '= 40.0 % · 12.93 m³ · 13.25 t · sounding 1.204 m · ullage 0.796 m' (sounding and
+    ullage only where the tank has a level table and, for ullage, a reference point).  The same
+    path as ⏎ (``tank_from_text``, then the calculation's ``resolve_tank``): EntryError when ⏎
+    would refuse it."""
+    fill = tank_from_text(condition, tank, text).tank_fill(tank.id)
+    c = resolve_tank(tank, fill)
+    parts = [f"{c.fill_pct:.1f} %", f"{c.volume_m3:.2f} m³", f"{c.mass_t:.2f} t"]
+    if tank.level_known:
+        level = c.sounding_m  # the level above the tank's lowest point
+        parts.append(f"sounding {level - tank.sounding_zero_m:.3f} m")
+        if tank.ullage_reference_m is not None:
+            parts.append(f"ullage {tank.ullage_reference_m - level:.3f} m")
+    return "= " + " · ".join(parts)
 
 
 def nudge_tank(condition: Condition, tank: Tank, step_pct: float) -> Condition:
@@ -388,6 +428,30 @@ def planner_room(vessel: Vessel, condition: Condition, from_id: str, to_id: str)
     have = fill_volume_m3(src, sf)
     free = dst.capacity_m3 - fill_volume_m3(dst, df)
     return max(0.0, min(have, free) * tank_density(src, sf) * (1 - 1e-9))
+
+
+def tank_matches(vessel: Vessel, typed: str, want=None) -> list[Tank]:
+    """The tanks a tank field offers as the officer types: those whose id starts with the text
+    first, then those whose id, name or kind contains it (case-insensitive), in profile order;
+    every tank when nothing is typed.  ``want(tank)`` keeps only the tanks that fit the field."""
+    t = typed.strip().lower()
+    pool = [k for k in vessel.tanks if want is None or want(k)]
+    if not t:
+        return pool
+    first = [k for k in pool if k.id.lower().startswith(t)]
+    rest = [k for k in pool if k not in first and (t in k.id.lower() or t in k.name.lower()
+                                                   or t in k.kind.replace("_", " "))]
+    return first + rest
+
+
+def tank_choice(condition: Condition, tank: Tank) -> str:
+    """One line of the tank list: id, kind, level, contents and room (mass at the tank's density)."""
+    fill = condition.tank_fill(tank.id)
+    vol = fill_volume_m3(tank, fill)
+    rho = tank_density(tank, fill)
+    room = (tank.capacity_m3 - vol) * rho
+    return (f"{tank.id:<6} {tank.kind.replace('_', ' '):<11.11} {100 * vol / tank.capacity_m3:5.1f} % "
+            f"{vol * rho:7.2f} t  room {room:7.2f} t  {tank.name}")
 
 
 def receiving_tank(vessel: Vessel, condition: Condition, from_id: str) -> str:
