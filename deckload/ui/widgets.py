@@ -27,12 +27,17 @@ def _strip(text: Text, console) -> Strip:
 
 
 class LinePanel(Widget):
-    """A fixed-size panel showing the lines it is given; an update repaints, no layout."""
+    """A fixed-size panel showing the lines it is given; an update repaints, no layout.
+
+    The panel's own style (``rich_style``, a walk up the parents) is read once per render
+    pass, not once per line; the finished lines are kept until their text or that style changes.
+    """
 
     def __init__(self, *, id: str | None = None, classes: str | None = None):
         super().__init__(id=id, classes=classes)
         self._lines: list[Text] = []
         self._strips: dict[int, Strip] = {}
+        self._style: Style | None = None
 
     @property
     def lines(self) -> list[Text]:
@@ -57,13 +62,21 @@ class LinePanel(Widget):
     def plain(self) -> str:
         return "\n".join(t.plain for t in self._lines)
 
+    def render_lines(self, crop: Region) -> list[Strip]:
+        style = self.rich_style  # once for every line of this pass
+        if style != self._style:
+            self._style = style
+            self._strips.clear()
+        return super().render_lines(crop)
+
     def render_line(self, y: int) -> Strip:
         width = self.size.width
+        style = self._style if self._style is not None else self.rich_style
         if y >= len(self._lines):
-            return Strip.blank(width, self.rich_style)
+            return Strip.blank(width, style)
         strip = self._strips.get(y)
         if strip is None:  # cached finished: cropped to the width and on the panel's own style
-            strip = _strip(self._lines[y], self.app.console).crop_extend(0, width, None).apply_style(self.rich_style)
+            strip = _strip(self._lines[y], self.app.console).crop_extend(0, width, None).apply_style(style)
             self._strips[y] = strip
         return strip
 
@@ -116,6 +129,8 @@ class LoadBoard(ScrollView, can_focus=True):
         self._strips: dict[int, Strip] = {}
         self._data: tuple | None = None
         self._width = 0
+        self._styles: tuple[Style, Style, bool] | None = None
+        """(own style, cursor style, focused) read once per render pass; the cached lines were made with them."""
 
     @property
     def cursor_key(self) -> tuple | None:
@@ -187,20 +202,28 @@ class LoadBoard(ScrollView, can_focus=True):
         if announce:
             self.post_message(self.CursorMoved(self.cursor_key))
 
+    def render_lines(self, crop: Region) -> list[Strip]:
+        styles = (self.rich_style, self.get_component_rich_style("board--cursor"), self.has_focus)
+        if styles != self._styles:
+            self._styles = styles
+            self._strips.clear()
+        return super().render_lines(crop)
+
     def render_line(self, y: int) -> Strip:
         idx = y + int(self.scroll_offset.y)
         width = self.scrollable_content_region.width
+        own, cursor, focused = self._styles or (self.rich_style, self.get_component_rich_style("board--cursor"),
+                                                self.has_focus)
         if idx >= len(self.rows):
-            return Strip.blank(width, self.rich_style)
+            return Strip.blank(width, own)
         strip = self._strips.get(idx)
         if strip is None:
             strip = _strip(self.rows[idx].text, self.app.console).crop_extend(0, width, None)
-            if idx == self.cursor and self.has_focus:  # the cursor's colours win over the line's own
-                cursor = self.get_component_rich_style("board--cursor")
+            if idx == self.cursor and focused:  # the cursor's colours win over the line's own
                 strip = Strip([Segment(seg.text, (seg.style or Style()) + cursor) for seg in strip], width)
             elif idx == self.cursor:
                 strip = Strip.join([Strip([Segment("›")], 1), strip.crop(1, width)])
-            strip = strip.apply_style(self.rich_style)
+            strip = strip.apply_style(own)
             self._strips[idx] = strip
         return strip
 
