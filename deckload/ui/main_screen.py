@@ -58,8 +58,12 @@ class LoadingScreen(Screen[None]):
 
     def on_mount(self) -> None:
         loop = asyncio.get_running_loop()
+        # Writes go to the writer thread once the change's frame is drawn; the interval is a
+        # backstop for a frame that never comes (the screen that was to draw it closed first).
         self.session.write_in_background(lambda p: loop.call_soon_threadsafe(self._report, p),
-                                         lambda: loop.call_soon_threadsafe(self._save_landed))
+                                         lambda: loop.call_soon_threadsafe(self._save_landed),
+                                         after_frame=self.call_after_refresh)
+        self.set_interval(0.5, self.session.release_writes)
         self.query_one(LoadBoard).focus()
         self.refresh_view()
         self.say("⏎ type an amount · + − nudge · t transfer · n name · p print · x plan · ? all keys", ok=None)
