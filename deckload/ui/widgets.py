@@ -6,6 +6,7 @@ rows here); these widgets only turn a few dozen ready-made Texts into strips.
 
 from __future__ import annotations
 
+from rich.cells import cell_len
 from rich.segment import Segment
 from rich.style import Style
 from rich.text import Text
@@ -24,6 +25,47 @@ from deckload.ui import views
 def _strip(text: Text, console) -> Strip:
     segments = [s for s in text.render(console) if s.text != "\n"]
     return Strip(segments, text.cell_len)
+
+
+_NULL = Style.null()
+
+
+def _line_strip(text: Text, width: int, own: Style, console) -> Strip:
+    """``text`` as one line ``width`` cells wide on the panel's style ``own``: what
+    ``_strip(text).crop_extend(0, width, None).apply_style(own)`` gives, made directly.
+
+    Our lines are a base style with side-by-side spans of ready-made styles (palette.P):
+    each piece is cut from the plain text and styled ``own + base + span`` in one step.
+    Anything else (overlapping spans, style names, a line wider than the panel) takes
+    the general way above."""
+    plain = text.plain
+    cells = cell_len(plain)
+    spans = text.spans
+    base = text.style or _NULL  # Text's default style "" is the null style
+    if not plain or cells > width or not isinstance(base, Style):
+        return _strip(text, console).crop_extend(0, width, None).apply_style(own)
+    segments: list[Segment] = []
+    add = segments.append
+    if not spans:  # as rich renders it: the base style applies through spans only
+        add(Segment(plain, own))
+    else:
+        pos = 0
+        own_base = own + base
+        for span in spans:
+            start, end, style = span
+            if start < pos or not isinstance(style, Style):
+                return _strip(text, console).crop_extend(0, width, None).apply_style(own)
+            if end <= start:
+                continue
+            if start > pos:
+                add(Segment(plain[pos:start], own_base))
+            add(Segment(plain[start:end], own + (base + style)))
+            pos = end
+        if pos < len(plain):
+            add(Segment(plain[pos:], own_base))
+    if cells < width:
+        add(Segment(" " * (width - cells), own))
+    return Strip(segments, width)
 
 
 class LinePanel(Widget):
@@ -76,7 +118,7 @@ class LinePanel(Widget):
             return Strip.blank(width, style)
         strip = self._strips.get(y)
         if strip is None:  # cached finished: cropped to the width and on the panel's own style
-            strip = _strip(self._lines[y], self.app.console).crop_extend(0, width, None).apply_style(style)
+            strip = _line_strip(self._lines[y], width, style, self.app.console)
             self._strips[y] = strip
         return strip
 
@@ -218,12 +260,15 @@ class LoadBoard(ScrollView, can_focus=True):
             return Strip.blank(width, own)
         strip = self._strips.get(idx)
         if strip is None:
-            strip = _strip(self.rows[idx].text, self.app.console).crop_extend(0, width, None)
-            if idx == self.cursor and focused:  # the cursor's colours win over the line's own
-                strip = Strip([Segment(seg.text, (seg.style or Style()) + cursor) for seg in strip], width)
-            elif idx == self.cursor:
-                strip = Strip.join([Strip([Segment("›")], 1), strip.crop(1, width)])
-            strip = strip.apply_style(own)
+            if idx != self.cursor:
+                strip = _line_strip(self.rows[idx].text, width, own, self.app.console)
+            else:
+                strip = _strip(self.rows[idx].text, self.app.console).crop_extend(0, width, None)
+                if focused:  # the cursor's colours win over the line's own
+                    strip = Strip([Segment(seg.text, (seg.style or Style()) + cursor) for seg in strip], width)
+                else:
+                    strip = Strip.join([Strip([Segment("›")], 1), strip.crop(1, width)])
+                strip = strip.apply_style(own)
             self._strips[idx] = strip
         return strip
 
