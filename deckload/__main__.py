@@ -1,3 +1,3 @@
-from deckload.cli import main
+from deckload.cli.main import main
 
 raise SystemExit(main())

@@ -34,8 +34,8 @@ from deckload.core import model as m
 from deckload.core.audit import audit, has_errors
 from deckload.core.stability import evaluate
 from deckload.core.tables import OutOfRangeError
-from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
-from deckload.profiles import ProfileError, parse_condition, parse_profile
+from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
+from deckload.io.profiles import ProfileError, parse_condition, parse_profile
 from deckload.ui import entry
 
 HERE = Path(__file__).parent
@@ -294,7 +294,7 @@ def amount_case(tally: Tally, vessel: m.Vessel, base: m.Condition, rng: random.R
 
 def run(n: int, seed: int, *, progress=None) -> Tally:
     """``n`` cases from ``seed``: 35 % conditions, 15 % profiles, 50 % typed entries."""
-    from deckload.profiles import load_condition, load_profile
+    from deckload.io.profiles import load_condition, load_profile
 
     rng = random.Random(seed)
     vessel = load_profile(DEMO_PROFILE)

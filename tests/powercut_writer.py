@@ -37,7 +37,7 @@ sys.path.insert(0, str(Path(__file__).resolve().parent))
 from deckload.core.model import Condition, MassItem, TankFill  # noqa: E402
 from deckload.core.stability import evaluate  # noqa: E402
 from deckload.logbook import Logbook  # noqa: E402
-from deckload.profiles import save_condition  # noqa: E402
+from deckload.io.profiles import save_condition  # noqa: E402
 from vessel_factories import barge_tanks, box_barge  # noqa: E402
 
 VESSEL_NAME = "Demo Islander"

@@ -14,11 +14,11 @@ import numpy as np
 import pytest
 
 from box_profile_text import fv22_text
-from deckload.audit_report import audit_profile
-from deckload.check_command import run_check
+from deckload.report.audit_findings import audit_profile
+from deckload.cli.check import run_check
 from deckload.core.audit import ERROR, WARNING, audit
 from deckload.core.model import frozen_array
-from deckload.profiles import load_profile, parse_profile
+from deckload.io.profiles import load_profile, parse_profile
 
 HERE = Path(__file__).parent
 DEMOS = [HERE.parent / "vessel_profiles" / "demo_islander.toml", HERE.parent / "deckload" / "data" / "demo_islander.toml"]

@@ -11,11 +11,11 @@ from functools import partial
 
 import pytest
 
-from deckload import paths
+from deckload.io import paths
 from deckload.core.ballast_plan import Goal, propose
 from deckload.core.model import TankFill
 from deckload.core.stability import evaluate
-from deckload.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition, load_profile
 from deckload.ui import entry
 
 

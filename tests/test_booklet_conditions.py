@@ -31,12 +31,12 @@ import math
 import pytest
 
 from box_profile_text import BoxTank, box_profile_text
-from deckload.booklet_conditions import load_booklet_conditions
-from deckload.check_command import run_check
+from deckload.io.booklet_conditions import load_booklet_conditions
+from deckload.cli.check import run_check
 from deckload.core.booklet import compare
 from deckload.core.stability import evaluate
-from deckload.profiles import load_profile
-from deckload.tomlcheck import ProfileError
+from deckload.io.profiles import load_profile
+from deckload.io.tomlcheck import ProfileError
 from vessel_factories import box_dynamic_lever_mrad, box_kn_m
 
 RHO, L, B, D, T = 1.025, 40.0, 10.0, 4.0, 2.0

@@ -18,11 +18,11 @@ from pathlib import Path
 import numpy as np
 import pytest
 
-from deckload.check_command import run_check
-from deckload.cli import main
+from deckload.cli.check import run_check
+from deckload.cli.main import main
 from deckload.core import model as m
 from deckload.core.stability import evaluate
-from deckload.profiles import ProfileError, load_profile, parse_condition, parse_profile
+from deckload.io.profiles import ProfileError, load_profile, parse_condition, parse_profile
 from deckload.ui.entry import EntryError, parse_amount, tank_from_text
 
 HERE = Path(__file__).parent
@@ -490,7 +490,7 @@ def test_tables_refreshed_from_geometry_keep_their_own_datum_in_a_midships_profi
     generated table states "AP", so the demo's generated tank LCGs read back unchanged."""
     import tomllib
 
-    from deckload.tables_command import _stamp_model_conventions, render
+    from deckload.cli.tables import _stamp_model_conventions, render
 
     demo_path = HERE.parent / "vessel_profiles" / "demo_islander.toml"
     doc = tomllib.loads(demo_path.read_text(encoding="utf-8"))
@@ -508,7 +508,7 @@ def test_tables_refreshed_from_geometry_keep_their_own_datum_in_a_midships_profi
 
 def test_the_report_says_what_was_assumed_and_where_the_curve_stops():
     """The printed report carries the profile's assumptions and the KN end, beside the booklet caution."""
-    from deckload.report import render_report_text
+    from deckload.report.condition_report import render_report_text
 
     text = KN60 + SMALL[len(BASE):]
     v = parse_profile(text, "kn60small.toml")
@@ -719,7 +719,7 @@ def test_check_names_the_csv_files_it_read(tmp_path, capsys):
 
 
 def test_a_condition_stated_by_ullage_is_saved_and_read_back_unchanged(tmp_path):
-    from deckload.profiles import dump_condition, load_condition, save_condition
+    from deckload.io.profiles import dump_condition, load_condition, save_condition
 
     v = parse_profile(ULLAGE, "ullage.toml")
     c = cond(v, "[tanks.DB1P]\nullage_m = 0.7\n")
@@ -732,8 +732,8 @@ def test_the_demo_trawlers_csv_tables_come_back_as_typed(tmp_path, capsys):
     """Every CSV table of the demo trawler (typed from its invented booklet: midships datum, P/S marks,
     ullage, t·m, extreme drafts, against draft), read and written back by `deckload csv`: the same
     header in the same order, and the same numbers, row by row."""
-    from deckload.csv_command import profile_tables
-    from deckload.profiles import read_profile
+    from deckload.cli.csv_export import profile_tables
+    from deckload.io.profiles import read_profile
 
     profile = HERE.parent / "vessel_profiles" / "demo_trawler.toml"
     _, rd = read_profile(profile)
@@ -761,7 +761,7 @@ def test_an_ullage_or_an_offset_sounding_taken_trimmed_is_corrected_on_the_level
     the volume of a 0.5 m sounding from the bottom, read at the same pipe."""
     import dataclasses
 
-    from deckload.paths import DEMO_PROFILE
+    from deckload.io.paths import DEMO_PROFILE
 
     demo = load_profile(DEMO_PROFILE)
 

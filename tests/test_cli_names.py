@@ -4,8 +4,9 @@ from __future__ import annotations
 
 import pytest
 
-from deckload import __version__, paths
-from deckload.cli import main
+from deckload import __version__
+from deckload.io import paths
+from deckload.cli.main import main
 
 
 @pytest.fixture(autouse=True)

@@ -16,11 +16,11 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-import deckload.atomicfile as atomicfile
-import deckload.profiles as profiles
-from deckload.check_command import run_check
+import deckload.io.atomicfile as atomicfile
+import deckload.io.profiles as profiles
+from deckload.cli.check import run_check
 from deckload.core import model as m
-from deckload.profiles import (
+from deckload.io.profiles import (
     Problem,
     ProfileError,
     dump_condition,

@@ -51,12 +51,12 @@ def test_core_is_pure():
 
 def test_purity_check_catches_each_kind_of_breach():
     """The checker itself must be able to fail."""
-    src = "import textual\nfrom rich import print\nimport deckload.profiles\nopen('x')\nimport time\ntime.time()\n"
+    src = "import textual\nfrom rich import print\nimport deckload.io.profiles\nopen('x')\nimport time\ntime.time()\n"
     found = _impurities(src, "bad.py")
     assert sorted(found) == [
         "bad.py:1 imports textual",
         "bad.py:2 imports rich",
-        "bad.py:3 imports deckload.profiles",
+        "bad.py:3 imports deckload.io.profiles",
         "bad.py:4 calls open()",
         "bad.py:5 imports time",
         "bad.py:6 calls .time()",

@@ -16,7 +16,7 @@ import pytest
 from deckload.core.criteria import osv_area_limit_mrad
 from deckload.core.model import Condition, CriteriaSettings, PassengerData, Windage, frozen_array
 from deckload.core.stability import evaluate
-from deckload.profiles import parse_profile
+from deckload.io.profiles import parse_profile
 from test_profiles import BASE, line_of, only
 from vessel_factories import RHO_SW, barge_at, box_dynamic_lever_mrad, box_vessel
 
@@ -336,7 +336,7 @@ def test_profile_criteria_beyond_short_kn_tables_are_not_assessable():
 
 
 def test_deck_item_windage_keys_come_as_a_pair_and_round_trip():
-    from deckload.profiles import dump_condition, parse_condition
+    from deckload.io.profiles import dump_condition, parse_condition
 
     v = parse_profile(BASE)
     head = 'format = "deckload-condition-1"\n[condition]\nname = "c"\nwater_density_t_m3 = 1.025\n'
@@ -345,7 +345,7 @@ def test_deck_item_windage_keys_come_as_a_pair_and_round_trip():
     c = parse_condition(head + item, "c.toml", v)
     assert (c.deck_items[0].windage_area_m2, c.deck_items[0].windage_centroid_z_m) == (9.6, 6.3)
     assert parse_condition(dump_condition(c), "rt.toml", v) == c
-    from deckload.profiles import ProfileError
+    from deckload.io.profiles import ProfileError
 
     text = head + item.replace("windage_centroid_z_m = 6.3\n", "")
     with pytest.raises(ProfileError) as ei:

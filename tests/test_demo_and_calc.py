@@ -12,10 +12,10 @@ from pathlib import Path
 
 import pytest
 
-from deckload.cli import main
+from deckload.cli.main import main
 from deckload.core.stability import evaluate
-from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
-from deckload.profiles import load_condition, load_profile
+from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
+from deckload.io.profiles import load_condition, load_profile
 
 ROOT = Path(__file__).resolve().parents[1]
 

@@ -22,10 +22,10 @@ from pathlib import Path
 import numpy as np
 import pytest
 
-from deckload import paths
-from deckload.cli import main
+from deckload.io import paths
+from deckload.cli.main import main
 from deckload.core.stability import evaluate
-from deckload.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition, load_profile
 
 ROOT = Path(__file__).resolve().parents[1]
 BROWSABLE = ROOT / "vessel_profiles"
@@ -141,7 +141,7 @@ def test_booklet_conditions_are_met_within_the_ur_l5_tolerances(trawler):
     """The acceptance test a surveyor makes (standards.md §5.4): each booklet condition recomputed
     by deckload from the booklet-style tables, against the booklet's results computed with trimesh
     (independent reference), row by row within MSC.1/Circ.1229 / UR L5 (standards.md §5.3)."""
-    from deckload.booklet_conditions import load_booklet_conditions
+    from deckload.io.booklet_conditions import load_booklet_conditions
     from deckload.core.booklet import compare
 
     vessel, _ = trawler

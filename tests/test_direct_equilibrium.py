@@ -180,8 +180,8 @@ def test_more_than_the_hull_holds_is_refused():
 
 
 def _demo(key: str = "departure"):
-    from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
-    from deckload.profiles import load_condition, load_profile
+    from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
+    from deckload.io.profiles import load_condition, load_profile
 
     v = load_profile(DEMO_PROFILE)
     c = load_condition(DEMO_CONDITIONS[key], v)
@@ -215,11 +215,11 @@ def test_demo_tables_and_direct_agree_within_ur_l5(key):
 
 def test_demo_direct_gz_against_trimesh():
     """The direct KN at free trim for the demo departure's actual G against trimesh slicing a mesh
-    of the same offsets with its own free-trim root finding (deckload.bench_tables.ref_kn):
+    of the same offsets with its own free-trim root finding (tests.benchmarks.bench_tables.ref_kn):
     within 1 cm (UR L5 KN 5 cm; the mesh's flat facets between offsets account for a few mm)."""
     pytest.importorskip("trimesh")
-    from deckload.bench_tables import GEOMETRY, hull_mesh, ref_kn
-    from deckload.geometry_io import load_geometry
+    from tests.benchmarks.bench_tables import GEOMETRY, hull_mesh, ref_kn
+    from deckload.io.geometry_files import load_geometry
 
     v, _, r = _demo("departure")
     d = direct_state(v.hull, v.particulars.lbp_m, r.displacement_t, r.water_density_t_m3, r.lcg_m, r.kg_fluid_m, 0.0)
@@ -234,8 +234,8 @@ def test_demo_direct_gz_against_trimesh():
 def test_calc_direct_prints_both_methods(capsys, tmp_path):
     import json
 
-    from deckload.cli import main
-    from deckload.paths import DEMO_PROFILE
+    from deckload.cli.main import main
+    from deckload.io.paths import DEMO_PROFILE
 
     assert main(["calc", "demo", "departure", "--direct"]) == 0
     out = capsys.readouterr().out
@@ -252,15 +252,15 @@ def test_calc_direct_prints_both_methods(capsys, tmp_path):
     text = re.sub(r"\[sounding_pipes[^\n]*\n(?:(?!\[(?!sounding_pipes))[^\n]*\n)*", "", text)
     prof = tmp_path / "nohull.toml"
     prof.write_text(text, encoding="utf-8")
-    from deckload.paths import DEMO_CONDITIONS
+    from deckload.io.paths import DEMO_CONDITIONS
 
     assert main(["calc", str(prof), str(DEMO_CONDITIONS["departure"]), "--direct"]) == 1
     assert "names no hull_geometry" in capsys.readouterr().err
 
 
 def test_profile_hull_geometry_key_is_checked(tmp_path):
-    from deckload.paths import DEMO_PROFILE
-    from deckload.profiles import ProfileError, load_profile
+    from deckload.io.paths import DEMO_PROFILE
+    from deckload.io.profiles import ProfileError, load_profile
 
     text = DEMO_PROFILE.read_text(encoding="utf-8")
     p = tmp_path / "p.toml"
@@ -290,7 +290,7 @@ def test_packaged_geometry_is_the_committed_one():
 def test_report_direct_adds_the_second_method(capsys):
     """`deckload report --direct`: the side-by-side block is in the text and the HTML; the booklet
     caution still closes the page; without --direct nothing of it appears."""
-    from deckload.cli import main
+    from deckload.cli.main import main
 
     assert main(["report", "demo", "departure", "--txt", "--direct"]) == 0
     out = capsys.readouterr().out

@@ -16,12 +16,12 @@ import math
 
 import pytest
 
-from deckload.cli import main
+from deckload.cli.main import main
 from deckload.core.draft_marks import DraftMarksError, MarkReadings, condition_from_readings, marks_for
 from deckload.core.model import Condition, DraftMark, DraftMarks
 from deckload.core.stability import evaluate
-from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
-from deckload.profiles import ProfileError, load_condition, load_profile, parse_profile
+from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
+from deckload.io.profiles import ProfileError, load_condition, load_profile, parse_profile
 from test_reference_trimmed_box import exact_trim_slope
 from vessel_factories import BARGE_B, BARGE_L, RHO_SW, box_barge
 

@@ -6,12 +6,12 @@ from __future__ import annotations
 
 import pytest
 
-from deckload import paths
+from deckload.io import paths
 from deckload.core.free_surface import EXEMPT_RULE
 from deckload.core.model import TankFill
 from deckload.core.stability import evaluate
-from deckload.profiles import load_condition, load_profile
-from deckload.report import render_report_text
+from deckload.io.profiles import load_condition, load_profile
+from deckload.report.condition_report import render_report_text
 from deckload.ui import views
 
 

@@ -25,8 +25,8 @@ def test_the_oracle_catches_what_it_is_meant_to_catch():
     """The oracle is not vacuous: an impossible item and an impossible result are flagged."""
     from deckload.core import model as m
     from deckload.core.stability import evaluate
-    from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
-    from deckload.profiles import load_condition, load_profile
+    from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
+    from deckload.io.profiles import load_condition, load_profile
 
     v = load_profile(DEMO_PROFILE)
     c = m.Condition(constants=(m.MassItem("far", 10.0, 1e6, 5.0),))

@@ -247,7 +247,7 @@ def test_builder_end_to_end_on_a_box():
       mid-length, so free trim gives no trim.
     """
     from deckload.core.geometry.builder import build_tables
-    from deckload.geometry_io import parse_geometry
+    from deckload.io.geometry_files import parse_geometry
 
     vt = build_tables(parse_geometry(BOX_GEOMETRY, "box.geometry.toml"))
     area = vt.deck_areas[0]
@@ -283,7 +283,7 @@ def test_windage_and_deck_edge_tables_from_the_box_geometry():
     The deck-edge angle at midships is atan((D − T)/(B/2)) (checks.md §1.1, wall-sided to there),
     at T = 184.5/(1.025·20·6) = 1.5 m and T = 2.0 m."""
     from deckload.core.geometry.builder import build_tables
-    from deckload.geometry_io import parse_geometry
+    from deckload.io.geometry_files import parse_geometry
 
     outline = ('\n[lateral_profile]\nx_m = [0.0, 20.0, 20.0, 18.0, 18.0, 12.0, 12.0, 0.0]\n'
                'z_m = [0.0, 0.0, 3.0, 3.0, 5.0, 5.0, 3.0, 3.0]\n')
@@ -300,7 +300,7 @@ def test_windage_and_deck_edge_tables_from_the_box_geometry():
 
 
 def test_lateral_profile_must_stand_above_every_table_draft():
-    from deckload.geometry_io import GeometryError, parse_geometry
+    from deckload.io.geometry_files import GeometryError, parse_geometry
 
     low = '\n[lateral_profile]\nx_m = [0.0, 20.0, 20.0, 0.0]\nz_m = [0.0, 0.0, 1.8, 1.8]\n'
     with pytest.raises(GeometryError) as ei:

@@ -8,7 +8,7 @@ from pathlib import Path
 
 import pytest
 
-from deckload.geometry_io import GeometryError, load_geometry, parse_geometry
+from deckload.io.geometry_files import GeometryError, load_geometry, parse_geometry
 
 ROOT = Path(__file__).resolve().parent.parent
 DEMO = ROOT / "vessel_profiles" / "demo_islander.geometry.toml"
@@ -183,7 +183,7 @@ def test_an_empty_tank_name_is_refused_because_the_profile_would_not_load():
 
     import pytest
 
-    from deckload.geometry_io import GeometryError, parse_geometry
+    from deckload.io.geometry_files import GeometryError, parse_geometry
 
     demo = Path(__file__).resolve().parents[1] / "vessel_profiles" / "demo_islander.geometry.toml"
     text = demo.read_text(encoding="utf-8")

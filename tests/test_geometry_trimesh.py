@@ -4,7 +4,7 @@ triangle mesh of the same offsets (checks.md §6 explains the calls).
 trimesh is a general-purpose mesh library (used here only as a test dependency); its
 capped plane slices give the volume and centroid of the part of a mesh below a
 plane, and its plane sections give waterplanes.  The mesh and the reference
-routines are ``deckload.bench_tables`` (shared with the hand-run benchmark); the
+routines are ``tests.benchmarks.bench_tables`` (shared with the hand-run benchmark); the
 root finding there is our own (no scipy).
 
 Tolerances are those a stability instrument with a hull-form model must meet
@@ -22,7 +22,7 @@ import pytest
 
 trimesh = pytest.importorskip("trimesh")  # test dependency (pyproject [test])
 
-from deckload.bench_tables import (  # noqa: E402
+from tests.benchmarks.bench_tables import (  # noqa: E402
     GEOMETRY,
     compartment_mesh,
     hull_mesh,
@@ -33,7 +33,7 @@ from deckload.bench_tables import (  # noqa: E402
 from deckload.core.geometry.builder import hull_body, tank_tables  # noqa: E402
 from deckload.core.geometry.cross_curves import cross_curves  # noqa: E402
 from deckload.core.geometry.hydrostatics_calc import upright_hydrostatics  # noqa: E402
-from deckload.geometry_io import load_geometry  # noqa: E402
+from deckload.io.geometry_files import load_geometry  # noqa: E402
 
 
 def tol(ref: float, pct: float, cap: float | None = None) -> float:

@@ -16,11 +16,11 @@ import math
 import numpy as np
 import pytest
 
-from deckload.cli import main
+from deckload.cli.main import main
 from deckload.core import bounds
 from deckload.core.stability import evaluate
-from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
-from deckload.profiles import ProfileError, load_condition, load_profile, parse_condition, parse_profile
+from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
+from deckload.io.profiles import ProfileError, load_condition, load_profile, parse_condition, parse_profile
 
 DEPARTURE = DEMO_CONDITIONS["departure"].read_text(encoding="utf-8")
 PROFILE_TEXT = DEMO_PROFILE.read_text(encoding="utf-8")
@@ -203,7 +203,7 @@ def test_a_hydrostatic_table_that_stops_below_the_design_draft_is_refused():
 
 def test_a_huge_table_is_refused_quickly_with_the_limit_named(vessel, tmp_path):
     """10⁷ rows took 46 s and 2 GB; now the file size limit stops it before it is parsed."""
-    from deckload.limits import MAX_TABLE_VALUES, MAX_TOML_BYTES
+    from deckload.io.limits import MAX_TABLE_VALUES, MAX_TOML_BYTES
 
     big = tmp_path / "big.toml"
     with open(big, "w") as f:

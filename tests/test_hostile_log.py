@@ -13,7 +13,7 @@ import os
 
 import pytest
 
-from deckload.cli import main
+from deckload.cli.main import main
 from deckload.logbook import Logbook
 
 
@@ -135,8 +135,8 @@ def test_a_log_folder_that_cannot_be_made_names_it(tmp_path, capsys, monkeypatch
 
 async def test_the_status_line_never_says_saved_when_the_save_failed(tmp_path):
     """The working condition's save fails (disk full): the message line says NOT SAVED."""
-    from deckload import paths
-    from deckload.profiles import load_condition, load_profile
+    from deckload.io import paths
+    from deckload.io.profiles import load_condition, load_profile
     from deckload.ui.launch import create_app
 
     vessel = load_profile(paths.DEMO_PROFILE)

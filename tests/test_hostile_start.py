@@ -10,12 +10,12 @@ from __future__ import annotations
 
 import pytest
 
-from deckload import paths
-from deckload.cli import main
+from deckload.io import paths
+from deckload.cli.main import main
 from deckload.core.model import Condition
 from deckload.core.stability import evaluate
-from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
-from deckload.profiles import ProfileError, load_condition, load_profile, parse_condition
+from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
+from deckload.io.profiles import ProfileError, load_condition, load_profile, parse_condition
 from deckload.ui import entry
 from deckload.ui.launch import create_app, load_inputs
 from deckload.ui.session import working_path
@@ -39,12 +39,12 @@ def home(tmp_path, monkeypatch):
 
 
 def test_an_error_escaping_validation_gives_exit_3_one_paragraph_and_a_crash_file(home, monkeypatch, capsys):
-    import deckload.commands
+    import deckload.cli.calc
 
     def broken(*a, **k):
         raise ZeroDivisionError("float division by zero")
 
-    monkeypatch.setattr(deckload.commands, "load_and_evaluate", broken)
+    monkeypatch.setattr(deckload.cli.calc, "load_and_evaluate", broken)
     assert main(["calc", "demo", "departure"]) == 3
     err = capsys.readouterr().err
     assert "Traceback" not in err and err.count("\n") == 1
@@ -54,9 +54,9 @@ def test_an_error_escaping_validation_gives_exit_3_one_paragraph_and_a_crash_fil
 
 
 def test_the_log_has_the_same_boundary(home, monkeypatch, capsys):
-    import deckload.logbook_command
+    import deckload.cli.log
 
-    monkeypatch.setattr(deckload.logbook_command, "_show", lambda args: 1 / 0)
+    monkeypatch.setattr(deckload.cli.log, "_show", lambda args: 1 / 0)
     assert main(["log", "show"]) == 3
     assert "internal error while running 'log show'" in capsys.readouterr().err
 

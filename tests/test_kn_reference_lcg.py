@@ -12,8 +12,8 @@ import pytest
 
 from deckload.core.model import Condition
 from deckload.core.stability import evaluate
-from deckload.profiles import ProfileError, parse_profile
-from deckload.paths import DEMO_PROFILE
+from deckload.io.profiles import ProfileError, parse_profile
+from deckload.io.paths import DEMO_PROFILE
 from vessel_factories import box_barge
 
 

@@ -10,11 +10,11 @@ from pathlib import Path
 
 import pytest
 
-from deckload.cli import main
+from deckload.cli.main import main
 from deckload.core.stability import evaluate
 from deckload.logbook import Logbook, condition_of
-from deckload.paths import DEMO_PROFILE
-from deckload.profiles import load_condition, load_profile
+from deckload.io.paths import DEMO_PROFILE
+from deckload.io.profiles import load_condition, load_profile
 
 CONDITION = """\
 format = "deckload-condition-1"
@@ -195,7 +195,7 @@ def test_report_of_a_full_departure_says_whether_it_fits_one_a4_page(demo):
     report runs past one A4 page (measured 368 mm of 277 mm at 6 pt); the layout note must
     then say 'no' (and ``deckload report`` says so), and every loaded tank is still listed."""
     from deckload.core.model import Condition, DeckItem, HoldLoad, MassItem, TankFill
-    from deckload.report import render_report_html
+    from deckload.report.condition_report import render_report_html
 
     fills = {"FO1P": 95, "FO1S": 95, "FW1P": 90, "FW1S": 90, "FW2P": 50, "FW2S": 50, "DO1P": 70, "DO1S": 70,
              "LO1": 60, "DB1P": 100, "DB1S": 100, "DB2P": 40, "DB2S": 40, "WB1P": 20, "WB1S": 20, "CF1P": 80,
@@ -219,8 +219,8 @@ def test_report_of_a_full_departure_says_whether_it_fits_one_a4_page(demo):
 
 @pytest.mark.parametrize("name", ["departure", "midvoyage", "arrival", "light"])
 def test_report_of_each_demo_condition_says_whether_it_fits_one_a4_page(demo, name):
-    from deckload.paths import DEMO_CONDITIONS
-    from deckload.report import render_report_html
+    from deckload.io.paths import DEMO_CONDITIONS
+    from deckload.report.condition_report import render_report_html
 
     c = load_condition(DEMO_CONDITIONS[name], demo)
     doc = render_report_html(evaluate(demo, c), demo, c, stamp="2026-12-01 22:00 UTC (ship's time "
@@ -230,7 +230,7 @@ def test_report_of_each_demo_condition_says_whether_it_fits_one_a4_page(demo, na
 
 
 def test_a_malformed_ship_offset_is_a_message_not_a_traceback(monkeypatch, capsys):
-    from deckload.cli import main
+    from deckload.cli.main import main
 
     monkeypatch.setenv("DECKLOAD_SHIP_OFFSET", "+2")
     assert main(["report", "demo", "arrival", "--txt"]) == 2
@@ -239,7 +239,7 @@ def test_a_malformed_ship_offset_is_a_message_not_a_traceback(monkeypatch, capsy
 
 
 def test_vessel_names_in_any_script_name_a_log_file():
-    from deckload.logbook import vessel_slug
+    from deckload.io.paths import vessel_slug
 
     assert vessel_slug("Demo Islander") == "demo-islander"
     assert vessel_slug("Øya 1") == "øya-1"

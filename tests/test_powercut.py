@@ -36,12 +36,12 @@ from pathlib import Path
 import pytest
 
 from deckload.logbook import Logbook
-from deckload.profiles import load_condition
+from deckload.io.profiles import load_condition
 
 sys.path.insert(0, str(Path(__file__).resolve().parent))
 from powercut_writer import VESSEL_NAME, condition, vessel  # noqa: E402
 
-from deckload.profiles import save_condition  # noqa: E402
+from deckload.io.profiles import save_condition  # noqa: E402
 
 KILLS = 200
 TEARS = 20

@@ -12,9 +12,9 @@ from pathlib import Path
 
 import pytest
 
-from deckload.check_command import run_check
+from deckload.cli.check import run_check
 from deckload.core import model as m
-from deckload.profiles import Problem, ProfileError, load_profile, parse_profile
+from deckload.io.profiles import Problem, ProfileError, load_profile, parse_profile
 
 HERE = Path(__file__).parent
 BASE_PATH = HERE / "broken_profiles" / "box_barge.toml"
@@ -428,7 +428,7 @@ def test_demo_profile_loads_and_checks(folder, capsys):
 
 @pytest.mark.parametrize("name", DEMO_CONDITIONS)
 def test_demo_conditions_round_trip(name):
-    from deckload.profiles import dump_condition, load_condition, parse_condition
+    from deckload.io.profiles import dump_condition, load_condition, parse_condition
 
     folder = DEMO_DIRS[0]
     v = load_profile(folder / "demo_islander.toml")
@@ -473,7 +473,7 @@ def test_bad_row_of_a_multiline_table_is_reported_on_its_own_line():
 
 
 def test_cli_check_uses_this_validator(tmp_path, capsys):
-    from deckload.cli import main
+    from deckload.cli.main import main
 
     assert main(["check", str(BASE_PATH)]) == 0
     f = tmp_path / "bad.toml"

@@ -13,9 +13,9 @@ from pathlib import Path
 
 import pytest
 
-from deckload import paths
-from deckload.check_command import run_check
-from deckload.cli import main
+from deckload.io import paths
+from deckload.cli.check import run_check
+from deckload.cli.main import main
 
 BROWSABLE = Path(__file__).resolve().parent.parent / "vessel_profiles"
 
@@ -115,7 +115,7 @@ def test_a_failed_criterion_never_reads_as_equal_with_a_zero_margin():
     to starboard): "Wind b ≥ a  0.064 ≥ 0.064  -0.000 FAIL".  Area b 0.06382 against area a
     0.06398 m·rad: three decimals make them equal.  The figures now show as many decimals as
     the margin needs to be seen (up to five)."""
-    from deckload import verdict_format as vf
+    from deckload.report import verdict_format as vf
 
     c = _area_b_against_a(0.06382, 0.06398)
     assert not c.passed
@@ -133,9 +133,9 @@ def test_the_criteria_line_of_calc_shows_the_failing_margin():
     the case above."""
     import dataclasses
 
-    from deckload.commands import format_summary
+    from deckload.cli.calc import format_summary
     from deckload.core.stability import evaluate
-    from deckload.profiles import load_condition, load_profile
+    from deckload.io.profiles import load_condition, load_profile
 
     vessel = load_profile(paths.DEMO_PROFILE)
     r = evaluate(vessel, load_condition(paths.DEMO_CONDITIONS["departure"], vessel))
@@ -153,10 +153,10 @@ def test_the_report_criteria_table_cuts_no_paragraph(name, tmp_path):
     "B 2.1 (from memory: Part A 2.2.1–2.2.3 applied, GM0 0.35 m)" broke over seven lines and
     lost text ("2.2.1–2.…").  The column now holds the paragraph ("B 2.1†") and the remark
     follows the table once, in full."""
-    from deckload import verdict_format as vf
+    from deckload.report import verdict_format as vf
     from deckload.core.stability import evaluate
-    from deckload.profiles import load_condition, load_profile
-    from deckload.report import render_report_text
+    from deckload.io.profiles import load_condition, load_profile
+    from deckload.report.condition_report import render_report_text
 
     vessel = load_profile(paths.TRAWLER_PROFILE)
     condition = load_condition(paths.TRAWLER_CONDITIONS[name], vessel)
@@ -194,9 +194,9 @@ def test_the_whole_verdict_page_fits_the_width_it_is_given():
     criterion line needed 99, so 'ok'/'FAIL' fell to a line of its own and the paragraph
     column read 'B 2.1 (from'.  The criterion line now fits 94 with the short paragraph; the
     paragraph's remark is on the line under it, in full."""
-    from deckload import verdict_format as vf
+    from deckload.report import verdict_format as vf
     from deckload.core.stability import evaluate
-    from deckload.profiles import load_condition, load_profile
+    from deckload.io.profiles import load_condition, load_profile
     from deckload.ui.verdict import verdict_page
 
     vessel = load_profile(paths.TRAWLER_PROFILE)

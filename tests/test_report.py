@@ -16,7 +16,7 @@ import pytest
 
 from deckload.core.model import Condition, DeckItem, LimitCurve, MassItem, TankFill, frozen_array
 from deckload.core.stability import evaluate
-from deckload.report import (
+from deckload.report.condition_report import (
     CAUTION,
     CHAR_WIDTH_EM,
     LINE_HEIGHT,
@@ -31,7 +31,7 @@ from deckload.report import (
     render_report_html,
     render_report_text,
 )
-from deckload.verdict_format import paragraph, set_title
+from deckload.report.verdict_format import paragraph, set_title
 from vessel_factories import barge_tanks, box_barge
 
 SVG_NS = "{http://www.w3.org/2000/svg}"
@@ -324,7 +324,7 @@ def test_an_unassessable_criterion_reads_not_assessable_never_pass():
 def test_weather_svg_draws_the_levers_angles_and_areas(demo_case):
     """lw1 and lw2 are horizontal lines at their values; θ0, θ1 (at θ0 − θ1) and θ2 are marks at their
     angles; areas a and b are shaded; the curve runs from rolled to windward to past θ2."""
-    from deckload.report import weather_svg
+    from deckload.report.condition_report import weather_svg
 
     v, c, r = demo_case
     w = r.weather
@@ -350,7 +350,7 @@ def test_weather_svg_draws_the_levers_angles_and_areas(demo_case):
 
 
 def test_no_weather_diagram_when_the_weather_criterion_was_not_assessed(case):
-    from deckload.report import weather_svg
+    from deckload.report.condition_report import weather_svg
 
     v, c, r = case
     assert r.weather is None

@@ -3,10 +3,10 @@ in one order (aft, mid, fwd) in the transfer preview and the log's entry details
 
 from __future__ import annotations
 
-from deckload import paths
+from deckload.io import paths
 from deckload.core.model import TankFill
 from deckload.core.stability import evaluate
-from deckload.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition, load_profile
 from deckload.ui.dialogs import preview_lines
 
 

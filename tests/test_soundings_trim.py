@@ -1,7 +1,7 @@
 """Soundings taken trimmed or listed (deckload.core.soundings) against trimesh and in the engine.
 
 Reference: trimesh (a general-purpose mesh library) slicing a closed mesh of the demo
-tank, built from the same offsets (deckload.bench_tables.compartment_mesh), by the plane
+tank, built from the same offsets (tests.benchmarks.bench_tables.compartment_mesh), by the plane
 the sounding shows.  Trimmed by t over LBP (+ by the stern) and listed φ (+ starboard), a
 sounding s read at the pipe (x_p, y_p) shows the level surface
 z + x·tanψ − y·tanφ = z_low + s + x_p·tanψ − y_p·tanφ, tanψ = t/LBP (derived in the
@@ -20,8 +20,8 @@ import pytest
 from deckload.core.model import Condition, TankFill
 from deckload.core.soundings import SoundingError, correct_sounding, volume_at_sounding
 from deckload.core.stability import evaluate
-from deckload.paths import DEMO_PROFILE
-from deckload.profiles import ProfileError, dump_condition, load_profile, parse_condition, parse_profile
+from deckload.io.paths import DEMO_PROFILE
+from deckload.io.profiles import ProfileError, dump_condition, load_profile, parse_condition, parse_profile
 
 
 @pytest.fixture(scope="module")
@@ -31,8 +31,8 @@ def demo():
 
 def _reference_volume(tank_id: str, sounding_m: float, trim_m: float, list_deg: float, vessel) -> float:
     pytest.importorskip("trimesh")
-    from deckload.bench_tables import GEOMETRY, below, compartment_mesh, hull_mesh
-    from deckload.geometry_io import load_geometry
+    from tests.benchmarks.bench_tables import GEOMETRY, below, compartment_mesh, hull_mesh
+    from deckload.io.geometry_files import load_geometry
 
     g = load_geometry(GEOMETRY)
     spec = next(t for t in g.tanks if t.id == tank_id)

@@ -9,8 +9,8 @@ from pathlib import Path
 import numpy as np
 import pytest
 
-from deckload.cli import main
-from deckload.tables_command import build_profile_text
+from deckload.cli.main import main
+from deckload.cli.tables import build_profile_text
 
 ROOT = Path(__file__).resolve().parent.parent
 GEOMETRY = ROOT / "vessel_profiles" / "demo_islander.geometry.toml"
@@ -43,7 +43,7 @@ def test_packaged_copy_is_identical():
 def test_demo_profile_loads_and_is_consistent():
     """The loader accepts the demo; its tables are mutually consistent (analytic relations):
     TPC = dΔ/dT/100 (Simpson vs. finite difference, 1 %), capacities equal last volumes."""
-    from deckload.profiles import load_profile
+    from deckload.io.profiles import load_profile
 
     v = load_profile(PROFILE)
     h = v.hydrostatics
@@ -125,7 +125,7 @@ def test_number_arrays_are_folded_into_rows_without_changing_any_value():
 
     import tomli_w
 
-    from deckload.tables_command import reflow_number_arrays
+    from deckload.cli.tables import reflow_number_arrays
 
     doc = {
         "short": [1.0, 2.5, -3.0],

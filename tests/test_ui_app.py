@@ -139,7 +139,7 @@ async def test_edits_are_logged_and_the_working_condition_saved(app, tmp_path):
         await pilot.press("s")
         await pilot.press("tab", *"at the berth", "enter")
         await pilot.pause()
-    from deckload.profiles import load_condition
+    from deckload.io.profiles import load_condition
 
     saved = load_condition(app.session.save_path, app.session.vessel)
     assert saved.tank_fill("DB1P") == TankFill("DB1P", "percent", 20.0)

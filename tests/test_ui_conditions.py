@@ -8,11 +8,11 @@ from __future__ import annotations
 
 import pytest
 
-from deckload import paths
-from deckload.condition_files import ConditionNotFound, resolve
+from deckload.io import paths
+from deckload.io.condition_files import ConditionNotFound, resolve
 from deckload.core.model import TankFill
 from deckload.logbook import Logbook
-from deckload.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition, load_profile
 from deckload.ui.conditions import OpenConditionScreen, ReportWritten, SaveAsForm
 from deckload.ui.launch import create_app
 from deckload.ui.session import Session
@@ -65,7 +65,7 @@ def test_save_as_writes_a_new_file_that_reads_back_unmodified(demo, tmp_path):
 
 
 def test_modified_from_survives_the_working_file(demo, tmp_path):
-    from deckload.profiles import save_condition
+    from deckload.io.profiles import save_condition
 
     v, c = demo
     path = tmp_path / "w.condition.toml"

@@ -5,8 +5,8 @@ from __future__ import annotations
 from textual.widgets import Static
 
 from deckload.core.model import Condition
-from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
-from deckload.profiles import load_condition, load_profile
+from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
+from deckload.io.profiles import load_condition, load_profile
 from deckload.ui.hull_compare import HullCompareScreen
 from deckload.ui.launch import create_app
 from vessel_factories import box_barge

@@ -4,8 +4,8 @@ from __future__ import annotations
 
 from pathlib import Path
 
-from deckload import paths
-from deckload.profiles import load_condition, load_profile
+from deckload.io import paths
+from deckload.io.profiles import load_condition, load_profile
 from deckload.ui.launch import create_app, load_inputs
 from deckload.ui.session import working_path
 
@@ -136,7 +136,7 @@ def test_a_profile_that_fails_its_audit_is_refused_with_the_findings(tmp_path, c
 
     sys.path.insert(0, str(Path(__file__).parent))
     from box_profile_text import fv22_text
-    from deckload.audit_report import AuditError
+    from deckload.report.audit_findings import AuditError
     from deckload.ui.launch import run_open
 
     f = tmp_path / "fv22.toml"

@@ -8,8 +8,8 @@ from __future__ import annotations
 
 import pytest
 
-from deckload import paths
-from deckload.profiles import load_condition, load_profile
+from deckload.io import paths
+from deckload.io.profiles import load_condition, load_profile
 from deckload.ui.conditions import PlanEndForm
 from deckload.ui.launch import create_app
 from deckload.ui.session import Session, run_text
@@ -182,7 +182,7 @@ async def test_f_fills_to_the_usual_maximum_then_to_100(app):
 
 
 def test_usual_fill_from_the_profile_and_its_bounds():
-    from deckload.profiles import ProfileError, parse_profile
+    from deckload.io.profiles import ProfileError, parse_profile
 
     text = paths.DEMO_PROFILE.read_text(encoding="utf-8")
     v = parse_profile(text + "\n[usual_fill]\nfuel_oil = 90.0\n", str(paths.DEMO_PROFILE))

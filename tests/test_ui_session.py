@@ -6,7 +6,7 @@ import pytest
 
 from deckload.core.model import Condition, DeckItem, TankFill
 from deckload.logbook import Logbook
-from deckload.profiles import load_condition, save_condition
+from deckload.io.profiles import load_condition, save_condition
 from deckload.ui.entry import EntryError
 from deckload.ui.session import Journal, Session, working_path
 from vessel_factories import barge_tanks, box_barge
@@ -211,8 +211,8 @@ def test_the_title_says_saving_until_the_change_is_on_disk(tmp_path):
     import asyncio
     import threading
 
-    from deckload import paths
-    from deckload.profiles import load_condition, load_profile, save_condition
+    from deckload.io import paths
+    from deckload.io.profiles import load_condition, load_profile, save_condition
     from deckload.ui.launch import create_app
 
     gate = threading.Event()

@@ -8,8 +8,8 @@ from __future__ import annotations
 
 import pytest
 
-from deckload import paths
-from deckload.profiles import load_condition, load_profile
+from deckload.io import paths
+from deckload.io.profiles import load_condition, load_profile
 from deckload.ui.launch import create_app
 
 

@@ -8,9 +8,9 @@ the values that were on the screen.  Built with the same factory and start-up as
 
 from __future__ import annotations
 
-from deckload import paths
+from deckload.io import paths
 from deckload.logbook import Logbook
-from deckload.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition, load_profile
 from deckload.ui.conditions import ReportWritten
 from deckload.ui.launch import create_app, load_inputs
 from deckload.ui.widgets import LinePanel, LoadBoard

@@ -13,10 +13,10 @@ import re
 
 import pytest
 
-from deckload import paths
-from deckload import verdict_format as vf
-from deckload.cli import main
-from deckload.profiles import load_condition, load_profile
+from deckload.io import paths
+from deckload.report import verdict_format as vf
+from deckload.cli.main import main
+from deckload.io.profiles import load_condition, load_profile
 from deckload.ui.launch import create_app
 from deckload.ui.dialogs import TextScreen
 from deckload.ui.widgets import LinePanel
@@ -192,7 +192,7 @@ def test_calc_text_names_the_sets_the_weather_numbers_and_what_was_not_assessed(
 
 
 def test_calc_text_shows_an_unassessable_criterion_as_such():
-    from deckload.commands import format_summary
+    from deckload.cli.calc import format_summary
     from verdict_samples import demo_with_verdict
 
     _, _, r = demo_with_verdict(unassessable=True, weather_fails=True)

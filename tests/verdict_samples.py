@@ -14,10 +14,10 @@ import dataclasses
 
 import numpy as np
 
-from deckload import paths
+from deckload.io import paths
 from deckload.core.result import AssessedSet, CriterionResult, NotAssessed, Result, WeatherResult
 from deckload.core.stability import evaluate
-from deckload.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition, load_profile
 
 A22 = AssessedSet("IS2008-A2.2", "IS Code 2008 Part A 2.2 general criteria", True)
 A23 = AssessedSet("IS2008-A2.3", "IS Code 2008 Part A 2.3 severe wind and rolling", True)

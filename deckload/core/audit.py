@@ -1,6 +1,6 @@
 """Plausibility audit of a validated vessel profile: typing and datum errors the schema cannot see.
 
-The schema (``deckload.profiles``) checks that every number is a number, every table
+The schema (``deckload.io.profiles``) checks that every number is a number, every table
 increases and every array has its rows.  It cannot see a lightship LCG typed from
 midships, a KN of 19.07 typed for 1.907 or a pair of tanks both to starboard: each is a
 valid number.  This module looks at the *validated* model and asks whether the numbers

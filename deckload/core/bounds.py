@@ -1,6 +1,6 @@
 """The physical bounds of every number a file or a keystroke can reach, from the vessel's own extent.
 
-One place for them: the profile and condition readers (:mod:`deckload.physcheck`) and the
+One place for them: the profile and condition readers (:mod:`deckload.io.physcheck`) and the
 screen's forms (:mod:`deckload.ui.entry`) both ask here, so that no file can produce a result
 the screen could not, and no result can pass that the ship could not float in.
 

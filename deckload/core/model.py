@@ -9,7 +9,7 @@ Conventions used throughout deckload (SI inside; degrees only at the edges):
 * heel and list: positive to starboard;
 * masses in tonnes, densities in t/m³, free-surface moments in t·m, inertias in m⁴.
 
-Everything here is a frozen dataclass.  The profile loader (``deckload.profiles``)
+Everything here is a frozen dataclass.  The profile loader (``deckload.io.profiles``)
 builds these objects only after validating every field, so the computation may
 trust, for example, that every table's abscissa is strictly increasing.  An edit
 to a condition builds a new :class:`Condition` (see its ``with_*`` methods).

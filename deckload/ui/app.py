@@ -29,7 +29,7 @@ class DeckloadApp(App[None]):
 
     def _print_error_renderables(self) -> None:
         """An unforeseen error is reported by the launcher in one paragraph, the details in a
-        crash file (deckload.boundary): never a traceback on the officer's terminal."""
+        crash file (deckload.cli.boundary): never a traceback on the officer's terminal."""
         if self._exception is not None:
             self._exit_renderables.clear()
         super()._print_error_renderables()

@@ -1,8 +1,8 @@
 """Conditions as documents on the loading screen: name and save, open, print.
 
 The forms here return values (``dismiss``); the loading screen does the change.
-Files are found through :mod:`deckload.condition_files`; reports are written by
-:mod:`deckload.print_screen`.
+Files are found through :mod:`deckload.io.condition_files`; reports are written by
+:mod:`deckload.report.print_screen`.
 """
 
 from __future__ import annotations
@@ -17,8 +17,8 @@ from textual.containers import Vertical
 from textual.widgets import Input, Label, OptionList, Static
 from textual.widgets.option_list import Option
 
-from deckload.condition_files import MAX_NAME_CHARS, Named, name_key
-from deckload.textsafe import control_char
+from deckload.io.condition_files import MAX_NAME_CHARS, Named, name_key
+from deckload.io.textsafe import control_char
 from deckload.ui.dialogs import Form
 from deckload.ui.entry import EntryError
 from deckload.ui.palette import P
@@ -132,8 +132,8 @@ def open_in_browser(path: Path) -> str | None:
 
 def save_target(session) -> tuple[Path | None, set[str]]:
     """The folder a name is saved in and the stock conditions' titles (which it may not take)."""
-    from deckload import paths
-    from deckload.condition_files import stock
+    from deckload.io import paths
+    from deckload.io.condition_files import stock
 
     if session.work_dir is None or session.save_path is None:
         return None, set()
@@ -144,8 +144,8 @@ def save_target(session) -> tuple[Path | None, set[str]]:
 def known_conditions(session) -> list[Named]:
     """Stock conditions beside the profile and the ones saved under a name (not the working one:
     it is on the screen)."""
-    from deckload import paths
-    from deckload.condition_files import saved, stock
+    from deckload.io import paths
+    from deckload.io.condition_files import saved, stock
 
     found = stock(session.profile_path) if session.profile_path is not None else []
     if session.work_dir is not None:
@@ -156,7 +156,7 @@ def known_conditions(session) -> list[Named]:
 def print_session(session):
     """Write the report of the screen's condition and result; EntryError when there is nothing
     current to print (a condition outside the tables has no result of its own)."""
-    from deckload.print_screen import print_result
+    from deckload.report.print_screen import print_result
 
     if session.result is None or session.stale:
         raise EntryError("the condition on screen is outside the tables: it has no result to print.")

@@ -21,7 +21,7 @@ from textual.widgets import Input, Label, Static
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
 from deckload.ui import views
-from deckload.verdict_format import value_text
+from deckload.report.verdict_format import value_text
 from deckload.ui.commands import COMMANDS, NAVIGATION
 from deckload.ui.entry import EntryError, ItemForm, TransferPlan, plan_transfer
 from deckload.ui.palette import P

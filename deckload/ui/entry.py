@@ -29,8 +29,8 @@ from deckload.core.model import (
     TankFill,
     Vessel,
 )
-from deckload.limits import MAX_ENTRY_CHARS
-from deckload.textsafe import control_char
+from deckload.io.limits import MAX_ENTRY_CHARS
+from deckload.io.textsafe import control_char
 
 UNITS: dict[str, str] = {"%": "percent", "m3": "volume_m3", "m³": "volume_m3", "t": "mass_t", "m": "sounding_m",
                          "u": "ullage_m"}

@@ -22,13 +22,13 @@ def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir
     screen shows why).  An unusable working file is set aside with a notice, never
     overwritten; the good working file is set aside for a named condition only after
     that condition has been read successfully.  A profile that fails its plausibility
-    audit raises :class:`deckload.audit_report.AuditError`.
+    audit raises :class:`deckload.report.audit_findings.AuditError`.
     """
-    from deckload import paths
-    from deckload.profiles import ProfileError, load_condition, load_profile
+    from deckload.io import paths
+    from deckload.io.profiles import ProfileError, load_condition, load_profile
     from deckload.ui.session import working_path
 
-    from deckload.audit_report import audit_or_refuse
+    from deckload.report.audit_findings import audit_or_refuse
 
     notices: list[str] = []
     vessel = load_profile(profile_path or paths.DEMO_PROFILE)
@@ -65,7 +65,7 @@ def _usable(vessel: Vessel, condition: Condition, path: Path) -> Condition:
     screen shows); else :class:`ProfileError` naming the file and why."""
     from deckload.core.stability import evaluate
     from deckload.core.tables import OutOfRangeError
-    from deckload.profiles import Problem, ProfileError
+    from deckload.io.profiles import Problem, ProfileError
 
     try:
         evaluate(vessel, condition)
@@ -85,9 +85,9 @@ def _tidy_working_folder(work_dir: Path, saved: Path, vessel: Vessel) -> list[st
       renaming) are removed; one of this vessel's working file that holds a complete
       condition is kept beside it, so an edit confirmed just before is not lost unseen.
     """
-    from deckload import paths
-    from deckload.atomicfile import leftover_temp_files
-    from deckload.profiles import ProfileError, load_condition
+    from deckload.io import paths
+    from deckload.io.atomicfile import leftover_temp_files
+    from deckload.io.profiles import ProfileError, load_condition
 
     notices: list[str] = []
     if not work_dir.is_dir():
@@ -148,7 +148,7 @@ def create_app(
         save_path = None
         extra.append("This window does not save the working condition: another deckload has this vessel open.")
     session = Session(vessel, condition, save_path=save_path, journal=journal)
-    from deckload import paths
+    from deckload.io import paths
 
     session.profile_path = profile_path
     session.work_dir = work_dir
@@ -176,8 +176,8 @@ def open_journal(log_dir: Path | None, vessel_name: str):
 
 
 def run_open(profile_path: Path | None, condition_path: Path | None) -> int:
-    from deckload import paths
-    from deckload.profiles import ProfileError
+    from deckload.io import paths
+    from deckload.io.profiles import ProfileError
 
     work_dir = paths.working_dir()
     try:
@@ -195,7 +195,7 @@ def run_open(profile_path: Path | None, condition_path: Path | None) -> int:
     app.run()
     if getattr(app, "_exception", None) is not None:
         # The screen stopped on an error nobody foresaw: the boundary's message and crash file.
-        from deckload.boundary import internal_error
+        from deckload.cli.boundary import internal_error
 
         return internal_error(app._exception, "running the loading screen",
                               [str(profile_path or paths.DEMO_PROFILE), str(app.session.save_path or "")])

@@ -35,7 +35,7 @@ from textual.containers import Horizontal, Vertical, VerticalScroll
 from textual.screen import ModalScreen, Screen
 from textual.widgets import DataTable, Footer, Input, Static
 
-from deckload import verdict_format as vf
+from deckload.report import verdict_format as vf
 from deckload.core.model import Condition, Vessel
 from deckload.logbook import KIND_LABELS, KINDS, LogEntry, Logbook, condition_of
 

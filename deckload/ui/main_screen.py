@@ -550,7 +550,7 @@ class LoadingScreen(Screen[None]):
         def done(named) -> None:
             if named is None:
                 return
-            from deckload.profiles import ProfileError, load_condition
+            from deckload.io.profiles import ProfileError, load_condition
 
             try:
                 condition = load_condition(named.path, self.session.vessel)

@@ -21,7 +21,7 @@ from deckload.ui.entry import EntryError
 
 
 def working_path(work_dir: Path, vessel: Vessel) -> Path:
-    from deckload.paths import working_file
+    from deckload.io.paths import working_file
 
     return working_file(work_dir, vessel.particulars.name)
 
@@ -156,7 +156,7 @@ class Session:
         if evaluate is None:
             from deckload.core.stability import evaluate
         if save is None and save_path is not None:
-            from deckload.profiles import save_condition as save
+            from deckload.io.profiles import save_condition as save
         self.vessel = vessel
         self.save_path = save_path
         self.profile_path: Path | None = None
@@ -283,8 +283,8 @@ class Session:
         working one, as one undoable step: it is then that condition, unmodified.
 
         Raises OSError (nothing changed) when the file cannot be written."""
-        from deckload.atomicfile import write_atomic
-        from deckload.profiles import dump_condition
+        from deckload.io.atomicfile import write_atomic
+        from deckload.io.profiles import dump_condition
 
         named = self.condition.replace(name=name, modified_from="")
         path.parent.mkdir(parents=True, exist_ok=True)

@@ -15,7 +15,7 @@ import textwrap
 
 from rich.text import Text
 
-from deckload import verdict_format as vf
+from deckload.report import verdict_format as vf
 from deckload.core.result import CriterionResult, Result
 from deckload.ui.gzplot import Area, GzChart, Level, Mark
 from deckload.ui.palette import P

@@ -15,7 +15,7 @@ from rich.text import Text
 from deckload.core.free_surface import EXEMPT_RULE
 from deckload.core.model import Condition, LIQUID_KINDS, Vessel
 from deckload.core.result import CriterionResult, Result
-from deckload.verdict_format import fmt_optional
+from deckload.report.verdict_format import fmt_optional
 from deckload.ui.entry import fill_volume_m3, tank_density
 from deckload.ui.gzplot import GzChart, Mark
 from deckload.ui.palette import P

@@ -40,7 +40,7 @@ from deckload.core.geometry.hull import compartment_body
 from deckload.core.geometry.hydrostatics_calc import upright_hydrostatics
 from deckload.core.geometry.tanks import calibrate
 from deckload.core.geometry.windage import deck_edge_point, waterline_length_m, windage_above
-from deckload.geometry_io import load_geometry
+from deckload.io.geometry_files import load_geometry
 
 ROOT = Path(__file__).resolve().parents[2]
 GEOMETRY = ROOT / "vessel_profiles" / "demo_trawler.geometry.toml"

@@ -13,7 +13,7 @@ to mean anything, the booklet's results must NOT come from deckload's tables.
 METHOD (the booklet's own calculation, all from the hull offsets of
 ``demo_trawler.geometry.toml`` through trimesh, a general-purpose mesh library):
 
-* the hull is the closed triangle mesh of the offsets (``deckload.bench_tables.hull_mesh``,
+* the hull is the closed triangle mesh of the offsets (``tests.benchmarks.bench_tables.hull_mesh``,
   the project's trimesh reference); tanks and the fish hold are that mesh cut by their
   bounding planes (or a box mesh), ``compartment_mesh``;
 * weights: lightship and constants as the profile states them; each tank's contents
@@ -36,7 +36,7 @@ METHOD (the booklet's own calculation, all from the hull offsets of
   AP, midships and FP (moulded);
 * KMt = z_B + I_T/∇ of the upright, even-keel waterplane at the same displacement (as a
   booklet reads KM from its hydrostatic particulars);
-* GZ(φ) = KN(φ) − KG_fluid·sin φ with KN by ``deckload.bench_tables.ref_kn`` (trimesh
+* GZ(φ) = KN(φ) − KG_fluid·sin φ with KN by ``tests.benchmarks.bench_tables.ref_kn`` (trimesh
   slicing of the heeled mesh, free trim about this condition's own LCG and KG), at
   0–60° in 5° steps; areas by Simpson's first rule on those ordinates; the maximum GZ
   from the parabola through the largest ordinate and its neighbours;
@@ -55,8 +55,8 @@ from pathlib import Path
 import numpy as np
 from scipy.optimize import brentq
 
-from deckload.bench_tables import below, compartment_mesh, heeled, hull_mesh, ref_kn, waterplane_moments
-from deckload.geometry_io import load_geometry
+from tests.benchmarks.bench_tables import below, compartment_mesh, heeled, hull_mesh, ref_kn, waterplane_moments
+from deckload.io.geometry_files import load_geometry
 
 ROOT = Path(__file__).resolve().parents[2]
 GEOMETRY = ROOT / "vessel_profiles" / "demo_trawler.geometry.toml"

@@ -1,4 +1,4 @@
-"""The validated, immutable geometry model: what ``deckload.geometry_io`` builds from a
+"""The validated, immutable geometry model: what ``deckload.io.geometry_files`` builds from a
 geometry file and what the table builder consumes.
 
 Coordinates as everywhere in deckload: x from the aft perpendicular (+ forward),

@@ -35,7 +35,7 @@ from rich.table import Table
 from rich.text import Text
 
 from deckload.core.free_surface import EXEMPT_RULE
-from deckload import verdict_format as vf
+from deckload.report import verdict_format as vf
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
 
@@ -770,55 +770,3 @@ pre code {{ font-family: inherit; }}
         "</html>",
     ]
     return "\n".join(parts) + "\n"
-
-
-# --------------------------------------------------------------------------- command
-
-
-def _log_anchor_text(vessel_name: str) -> str:
-    """' · voyage log at entry #N, SHA-256 1a2b…' : the newest log entry, so that a printed copy
-    can be checked against the log later (``deckload log verify --against HASH``)."""
-    from deckload.logbook import anchor
-    from deckload.paths import log_dir
-
-    a = anchor(log_dir(), vessel_name)
-    return "" if a is None else f" · voyage log at entry #{a[0]}, SHA-256 {a[1][:16]}"
-
-
-def run_report(profile_path: Path, condition_path: Path, html: bool, output: Path | None,
-               direct: bool = False) -> int:
-    """``deckload report``: load, evaluate, render; write to ``output`` or print.
-
-    Exit 0 when written (whether or not the criteria pass), 1 on bad input, 2 when a
-    file cannot be read or written.
-    """
-    from deckload.commands import direct_comparison, load_and_evaluate
-    from deckload.logbook import clock_stamp
-
-    loaded = load_and_evaluate(profile_path, condition_path)
-    if isinstance(loaded, int):
-        return loaded
-    vessel, condition, result = loaded
-    comparison = direct_comparison(profile_path, vessel, result) if direct else None
-    if isinstance(comparison, int):
-        return comparison
-    stamp = clock_stamp()
-    source = Path(condition_path).name + _log_anchor_text(vessel.particulars.name)
-    if html:
-        doc = render_report_html(result, vessel, condition, stamp=stamp, source=source, comparison=comparison)
-        if not html_fits_a4(doc):
-            print("deckload: note: this condition's report runs to more than one A4 page", file=sys.stderr)
-    else:
-        doc = render_report_text(result, vessel, condition, stamp=stamp, source=source, comparison=comparison)
-    if output is None:
-        sys.stdout.write(doc)
-        return 0
-    try:
-        from deckload.atomicfile import write_atomic
-
-        write_atomic(Path(output), doc.encode("utf-8"))
-    except OSError as e:
-        print(f"deckload: cannot write {output}: {e.strerror}", file=sys.stderr)
-        return 2
-    print(f"report written to {output}", file=sys.stderr)
-    return 0

@@ -2,7 +2,7 @@
 
 This is the only module in deckload that reads the clock (:func:`utc_now`).
 
-File layout, in the log folder (``deckload.paths.log_dir``), per vessel:
+File layout, in the log folder (``deckload.io.paths.log_dir``), per vessel:
 
 * ``<slug>.log.jsonl`` — the log.  One JSON object per line, UTF-8, ``\\n``-terminated;
 * ``<slug>.log.head.json`` — the head record: sequence number and SHA-256 of the newest
@@ -22,7 +22,7 @@ Each line holds (format ``deckload-log-1``)::
                  criteria passed/failed and the smallest margin, the criteria sets assessed,
                  what was not assessed and why, the verdict sentence, freeboard and its margin
                  to the load line, deck-edge and downflooding angles, the weather numbers), or null
-    condition    the loading condition as written by deckload.profiles.dump_condition, or null
+    condition    the loading condition as written by deckload.io.profiles.dump_condition, or null
     prev_sha256  SHA-256 (hex) of the previous line's bytes, without its "\\n";
                  64 zeros on line 1
 
@@ -54,11 +54,12 @@ from datetime import datetime, timedelta, timezone
 from pathlib import Path
 from typing import Any, Callable, Iterable
 
-from deckload.atomicfile import fsync_dir, write_atomic
+from deckload.io.atomicfile import fsync_dir, write_atomic
 from deckload.core.model import Condition
 from deckload.core.result import Result
-from deckload.limits import MAX_LOG_BYTES, MAX_LOG_LINE_BYTES
-from deckload.textsafe import control_char, escaped
+from deckload.io.limits import MAX_LOG_BYTES, MAX_LOG_LINE_BYTES
+from deckload.io.textsafe import control_char, escaped
+from deckload.io.paths import vessel_slug
 
 FORMAT = "deckload-log-1"
 HEAD_FORMAT = "deckload-log-head-1"
@@ -179,17 +180,6 @@ def _configured_offset() -> timedelta:
 # --------------------------------------------------------------------------- helpers
 
 
-def vessel_slug(vessel_name: str) -> str:
-    """File-name form of a vessel name: 'Demo Islander' → 'demo-islander', 'Øya 1' → 'øya-1'.
-
-    Letters of any script are kept; a name with none gets a stable name from its hash.
-    """
-    slug = re.sub(r"[\W_]+", "-", vessel_name.casefold()).strip("-")
-    if not slug:
-        slug = "vessel-" + hashlib.sha256(vessel_name.encode("utf-8")).hexdigest()[:12]
-    return slug
-
-
 def validate_initials(by: str) -> str:
     """Initials of the officer: 1–4 letters, stored in capitals."""
     if not isinstance(by, str) or not _INITIALS.fullmatch(by.strip()):
@@ -272,7 +262,7 @@ def summarise(result: Result) -> dict:
 
 def condition_record(condition: Condition) -> str:
     """The condition as stored in a log entry: the TOML text of ``profiles.dump_condition``."""
-    from deckload.profiles import dump_condition
+    from deckload.io.profiles import dump_condition
 
     return dump_condition(condition)
 
@@ -283,7 +273,7 @@ def condition_of(entry: "LogEntry", vessel) -> Condition:
     Raises ``ValueError`` when the entry holds no condition and ``profiles.ProfileError``
     (naming the log line) when the stored text no longer fits the vessel profile.
     """
-    from deckload.profiles import parse_condition
+    from deckload.io.profiles import parse_condition
 
     if entry.condition is None:
         raise ValueError(f"log line {entry.line_no} ({entry.kind}) holds no loading condition")
@@ -320,7 +310,7 @@ class LogEntry:
     summary: dict | None
     """The computed summary (see :func:`summarise`), or None for a remark."""
     condition: dict | str | None
-    """The condition as written by ``deckload.profiles.dump_condition``, or None."""
+    """The condition as written by ``deckload.io.profiles.dump_condition``, or None."""
     prev_sha256: str
     sha256: str
     """SHA-256 of this line's bytes (what the next entry records as ``prev_sha256``)."""
@@ -342,7 +332,7 @@ class LogEntry:
 def _entry_from_line(line: bytes, line_no: int) -> LogEntry:
     """Parse one line; :class:`LogFormatError` names the line and what is wrong.
 
-    Text fields are read back with control characters escaped (deckload.textsafe): a line
+    Text fields are read back with control characters escaped (deckload.io.textsafe): a line
     edited to hold terminal escapes is shown, never obeyed."""
     if len(line) > MAX_LOG_LINE_BYTES:
         raise LogFormatError(f"line {line_no}: {len(line)} bytes, more than the {MAX_LOG_LINE_BYTES} allowed "
@@ -659,7 +649,7 @@ class Logbook:
         last one changed) nothing is written: appending would overwrite that evidence.
         The log then stays read-only and the reason says what to do.
         """
-        from deckload.atomicfile import leftover_temp_files
+        from deckload.io.atomicfile import leftover_temp_files
 
         for tmp in leftover_temp_files(self.path.parent):
             # a head record or side file whose write was killed before its rename: under the
@@ -808,7 +798,7 @@ class Logbook:
     # ----------------------------------------------------------------- reading
 
     def _read(self) -> bytes:
-        from deckload.limits import read_limited
+        from deckload.io.limits import read_limited
 
         try:
             return read_limited(self.path, MAX_LOG_BYTES, "one voyage log (start a new log)")

@@ -35,8 +35,8 @@ from deckload.core.geometry.spec import (
     VesselSpec,
 )
 from deckload.core.model import LIQUID_KINDS
-from deckload.profiles import above_keel, liquid_density, water_density
-from deckload.tomlcheck import (
+from deckload.io.profiles import above_keel, liquid_density, water_density
+from deckload.io.tomlcheck import (
     MISSING,
     FileCheck,
     Problem,
@@ -85,7 +85,7 @@ def load_geometry(path: str | os.PathLike) -> Geometry:
     """Read and validate a geometry file; raises :class:`GeometryError` listing every problem."""
     p = Path(path)
     try:
-        from deckload.limits import MAX_TOML_BYTES, read_limited
+        from deckload.io.limits import MAX_TOML_BYTES, read_limited
 
         text = read_limited(p, MAX_TOML_BYTES, "a geometry file").decode("utf-8")
     except OSError as e:

@@ -33,16 +33,16 @@ from typing import Any
 import numpy as np
 import tomli_w
 
-from deckload.atomicfile import write_atomic
-from deckload.conventions import DATUMS, Frame, read_frame, tcg_array, tcg_num
+from deckload.io.atomicfile import write_atomic
+from deckload.io.conventions import DATUMS, Frame, read_frame, tcg_array, tcg_num
 from deckload.core import model as m
 from deckload.core.gz import STEP_DEG as GZ_STEP_DEG
 from deckload.core.gz import grid_points
 from deckload.core.loading import reading_range
 from deckload.core.tables import interp
-from deckload.csvtables import attach_csv, attach_kn_csv
+from deckload.io.csvtables import attach_csv, attach_kn_csv
 # Problem, ProfileError and ID_PATTERN are imported from here by other modules too
-from deckload.tomlcheck import (
+from deckload.io.tomlcheck import (
     ID_PATTERN,
     MISSING,
     REL_TOL,
@@ -86,7 +86,7 @@ def _percent(x: float) -> str:
 
 
 # =========================================================================== vessel rules
-# (generic rules such as ``positive`` and ``between`` live in deckload.tomlcheck)
+# (generic rules such as ``positive`` and ``between`` live in deckload.io.tomlcheck)
 
 
 def above_keel(x: float) -> str | None:
@@ -114,7 +114,7 @@ def read_profile(path: str | os.PathLike) -> tuple[m.Vessel, "Reading"]:
 
 
 def _read_text(path: str | os.PathLike) -> str:
-    from deckload.limits import MAX_TOML_BYTES, TooLargeError, read_limited
+    from deckload.io.limits import MAX_TOML_BYTES, TooLargeError, read_limited
 
     try:
         data = read_limited(path, MAX_TOML_BYTES, "a profile or condition")
@@ -209,7 +209,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     if hull is not None:
         _check_sounding_pipes(root, pipes, tanks, tank_bodies)
     # [[booklet_condition]]: the booklet's worked conditions, read and compared by `deckload check`
-    # (deckload.booklet_conditions) once the vessel exists; not part of the model.
+    # (deckload.io.booklet_conditions) once the vessel exists; not part of the model.
     root.get("booklet_condition", False)
     root.finish()
     ctx.fail_if_any()
@@ -783,7 +783,7 @@ def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename
         return None, {}
     from deckload.core.geometry.builder import hull_body
     from deckload.core.geometry.hull import compartment_body
-    from deckload.geometry_io import load_geometry
+    from deckload.io.geometry_files import load_geometry
 
     path = Path(name)
     if not path.is_absolute():
@@ -1443,8 +1443,8 @@ def _read_deck_items(root: Table, vessel: m.Vessel) -> list[m.DeckItem]:
 
 
 def _physical(ctx: FileCheck):
-    """Physical bounds and completeness, checked once the model is built (deckload.physcheck)."""
-    from deckload import physcheck
+    """Physical bounds and completeness, checked once the model is built (deckload.io.physcheck)."""
+    from deckload.io import physcheck
 
     return physcheck
 

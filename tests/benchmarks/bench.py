@@ -1,4 +1,4 @@
-"""Engine recompute benchmark, run by hand: ``python -m deckload.bench [--runs N] [--profile]``.
+"""Engine recompute benchmark, run by hand: ``python -m tests.benchmarks.bench [--runs N] [--profile]``.
 
 Times :func:`deckload.core.stability.evaluate` — the whole recompute after one edit —
 for each demo condition and for synthetic vessels of 30, 100 and 300 loaded items,
@@ -12,7 +12,7 @@ cProfile and the functions where the time goes are printed.
 
 Not a test: timing assertions in the test suite would fail on a busy machine.
 The synthetic vessels are built by ``tests/vessel_factories.py`` (a checkout is needed
-for them); the demo conditions are read through ``deckload.profiles``.
+for them); the demo conditions are read through ``deckload.io.profiles``.
 """
 
 from __future__ import annotations
@@ -58,13 +58,14 @@ def median_ms(fn, runs: int, warmup: int = 20) -> tuple[float, float]:
 def demo_cases() -> tuple[list[tuple[str, object, object]], str]:
     """(name, vessel, condition) for each demo condition, or an explanation of why there are none."""
     try:
-        from deckload import paths, profiles
+        from deckload.io import paths
+        from deckload.io import profiles
     except ImportError as e:
-        return [], f"demo conditions not timed: deckload.profiles is missing ({e})"
+        return [], f"demo conditions not timed: deckload.io.profiles is missing ({e})"
     load_profile = getattr(profiles, "load_profile", None)
     load_condition = getattr(profiles, "load_condition", None)
     if load_profile is None or load_condition is None:
-        return [], "demo conditions not timed: deckload.profiles has no load_profile/load_condition"
+        return [], "demo conditions not timed: deckload.io.profiles has no load_profile/load_condition"
     if not paths.DEMO_PROFILE.is_file():
         return [], f"demo conditions not timed: {paths.DEMO_PROFILE} is missing"
     try:
@@ -86,7 +87,7 @@ def demo_cases() -> tuple[list[tuple[str, object, object]], str]:
 
 
 def synthetic_cases() -> tuple[list[tuple[str, int, object, object]], str]:
-    tests_dir = Path(__file__).resolve().parent.parent / "tests"
+    tests_dir = Path(__file__).resolve().parents[2] / "tests"
     if not (tests_dir / "vessel_factories.py").is_file():
         return [], "synthetic vessels not timed: tests/vessel_factories.py not found (run from a checkout)"
     sys.path.insert(0, str(tests_dir))
@@ -116,7 +117,7 @@ def profile(vessel, condition, runs: int, top: int = 18) -> str:
 
 
 def main(argv: list[str] | None = None) -> int:
-    ap = argparse.ArgumentParser(prog="python -m deckload.bench", description=__doc__.split("\n\n")[0])
+    ap = argparse.ArgumentParser(prog="python -m tests.benchmarks.bench", description=__doc__.split("\n\n")[0])
     ap.add_argument("--runs", type=int, default=400, help="timed runs per case (at least 200; default 400)")
     ap.add_argument("--profile", action="store_true", help="always print a cProfile of the slowest case")
     args = ap.parse_args(argv)

@@ -1,4 +1,4 @@
-"""``deckload check`` benchmark, run by hand: ``python -m deckload.bench_check [--runs N] [PROFILE ...]``.
+"""``deckload check`` benchmark, run by hand: ``python -m tests.benchmarks.bench_check [--runs N] [PROFILE ...]``.
 
 Times the whole check of each demo profile (every ``*.toml`` profile in
 ``vessel_profiles/`` of a checkout, else the packaged demo) in-process, and its parts:
@@ -38,19 +38,19 @@ def _median_s(fn, runs: int) -> float:
 
 
 def profiles() -> list[Path]:
-    from deckload import paths
+    from deckload.io import paths
 
-    folder = Path(__file__).resolve().parent.parent / "vessel_profiles"
+    folder = Path(__file__).resolve().parents[2] / "vessel_profiles"
     found = sorted(p for p in folder.glob("*.toml")
                    if not p.name.endswith((".condition.toml", ".geometry.toml"))) if folder.is_dir() else []
     return found or [Path(paths.DEMO_PROFILE)]
 
 
 def bench(path: Path, runs: int) -> dict[str, float]:
-    from deckload.audit_report import audit_profile
-    from deckload.booklet_conditions import load_booklet_conditions
-    from deckload.check_command import run_check
-    from deckload.profiles import load_profile
+    from deckload.report.audit_findings import audit_profile
+    from deckload.io.booklet_conditions import load_booklet_conditions
+    from deckload.cli.check import run_check
+    from deckload.io.profiles import load_profile
 
     vessel = load_profile(path)
 
@@ -64,7 +64,7 @@ def bench(path: Path, runs: int) -> dict[str, float]:
         "booklet": _median_s(lambda: load_booklet_conditions(path, vessel), runs),
         "check": _median_s(quiet_check, runs),
     }
-    env = dict(os.environ, PYTHONPATH=str(Path(__file__).resolve().parent.parent))
+    env = dict(os.environ, PYTHONPATH=str(Path(__file__).resolve().parents[2]))
 
     def wall(cmd):
         walls = []
@@ -82,7 +82,7 @@ def bench(path: Path, runs: int) -> dict[str, float]:
 
 
 def main(argv: list[str] | None = None) -> int:
-    ap = argparse.ArgumentParser(prog="python -m deckload.bench_check", description=__doc__.splitlines()[0])
+    ap = argparse.ArgumentParser(prog="python -m tests.benchmarks.bench_check", description=__doc__.splitlines()[0])
     ap.add_argument("--runs", type=int, default=20)
     ap.add_argument("profile", nargs="*", type=Path)
     args = ap.parse_args(argv)

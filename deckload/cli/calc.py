@@ -6,7 +6,7 @@ import json
 import sys
 from pathlib import Path
 
-from deckload import verdict_format as vf
+from deckload.report import verdict_format as vf
 from deckload.core.result import Result
 
 CAUTION = (
@@ -104,9 +104,9 @@ def load_and_evaluate(profile_path: Path, condition_path: Path):
     from deckload.core.loading import LoadingError
     from deckload.core.stability import evaluate
     from deckload.core.tables import OutOfRangeError
-    from deckload.profiles import ProfileError, load_condition, load_profile
+    from deckload.io.profiles import ProfileError, load_condition, load_profile
 
-    from deckload.audit_report import audit_or_refuse
+    from deckload.report.audit_findings import audit_or_refuse
 
     try:
         vessel = load_profile(profile_path)

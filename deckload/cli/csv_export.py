@@ -20,11 +20,11 @@ from pathlib import Path
 
 import numpy as np
 
-from deckload.conventions import Frame, side_text
+from deckload.io.conventions import Frame, side_text
 from deckload.core import model as m
 from deckload.core.tables import interp
-from deckload.csvtables import write_csv
-from deckload.profiles import ProfileError, Reading, TableReading, read_profile
+from deckload.io.csvtables import write_csv
+from deckload.io.profiles import ProfileError, Reading, TableReading, read_profile
 
 CAUTION = ("Compare these tables with the approved stability booklet before relying on the profile: deckload "
            "supports, and never replaces, the booklet, the master's judgement and flag-State and class rules.")
@@ -50,7 +50,7 @@ def hydrostatics_rows(v: m.Vessel, tr: TableReading) -> tuple[list[str], list[li
 
 
 def cross_curve_rows(v: m.Vessel) -> tuple[list[str], list[list]]:
-    from deckload.csvtables import fmt_number
+    from deckload.io.csvtables import fmt_number
 
     cc = v.cross_curves
     header = ["displacement_t"] + [f"kn_{fmt_number(float(a))}" for a in cc.heel_deg]

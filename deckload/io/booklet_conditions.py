@@ -16,10 +16,10 @@ from pathlib import Path
 import tomli_w
 
 from deckload.core import model as m
-from deckload.conventions import Frame, read_frame, tcg_num
+from deckload.io.conventions import Frame, read_frame, tcg_num
 from deckload.core.booklet import QUANTITIES
-from deckload.profiles import CONDITION_FORMAT, _read_text, load_condition, parse_condition
-from deckload.tomlcheck import MISSING, FileCheck, Problem, ProfileError, Table, between, non_negative
+from deckload.io.profiles import CONDITION_FORMAT, _read_text, load_condition, parse_condition
+from deckload.io.tomlcheck import MISSING, FileCheck, Problem, ProfileError, Table, between, non_negative
 
 INLINE_KEYS = ("condition", "tanks", "holds", "deck_item", "constant")
 """The keys of a condition file (without ``format``) that may stand inline in an entry."""

@@ -110,7 +110,7 @@ def _demo_shorthand(args: argparse.Namespace) -> str | None:
 
     Returns a message when the condition is neither one of that demo's keys nor a file
     ('deckload calc trawler light': 'light' is the other demo's), else None."""
-    from deckload.paths import DEMO_VESSELS
+    from deckload.io.paths import DEMO_VESSELS
 
     profile = getattr(args, "profile", None)
     if profile is not None and str(profile) in DEMO_VESSELS and not profile.is_file():
@@ -120,7 +120,7 @@ def _demo_shorthand(args: argparse.Namespace) -> str | None:
         if cond is not None and str(cond) in conditions:
             args.condition = conditions[str(cond)]
         elif cond is not None and not Path(cond).exists():
-            # 'working', a stock condition's name, or one saved on the screen (deckload.condition_files)
+            # 'working', a stock condition's name, or one saved on the screen (deckload.io.condition_files)
             found = _resolve_name(args)
             if isinstance(found, Path):
                 args.condition = found
@@ -132,11 +132,11 @@ def _demo_shorthand(args: argparse.Namespace) -> str | None:
 
 
 def _resolve_name(args: argparse.Namespace) -> Path | str | None:
-    """The file ``args.condition`` names (deckload.condition_files.resolve), else why not (None when
+    """The file ``args.condition`` names (deckload.io.condition_files.resolve), else why not (None when
     the profile itself cannot be read: the command reports that)."""
-    from deckload import paths
-    from deckload.condition_files import ConditionNotFound, resolve
-    from deckload.profiles import ProfileError, load_profile
+    from deckload.io import paths
+    from deckload.io.condition_files import ConditionNotFound, resolve
+    from deckload.io.profiles import ProfileError, load_profile
 
     try:
         vessel = load_profile(args.profile)
@@ -150,15 +150,15 @@ def _resolve_name(args: argparse.Namespace) -> Path | str | None:
 
 def _named_condition(args: argparse.Namespace) -> str | None:
     """Let a condition be named as the officer knows it: ``working`` (the loading screen's), a
-    stock condition's key or name, or a name saved on the screen (deckload.condition_files).
+    stock condition's key or name, or a name saved on the screen (deckload.io.condition_files).
     Returns what to print when the name matches nothing (the message lists what exists)."""
     cond = getattr(args, "condition", None)
     profile = getattr(args, "profile", None)
     if cond is None or profile is None or Path(cond).is_file() or not Path(profile).is_file():
         return None
-    from deckload import paths
-    from deckload.condition_files import ConditionNotFound, resolve
-    from deckload.profiles import ProfileError, load_profile
+    from deckload.io import paths
+    from deckload.io.condition_files import ConditionNotFound, resolve
+    from deckload.io.profiles import ProfileError, load_profile
 
     try:
         vessel = load_profile(profile)
@@ -173,10 +173,10 @@ def _named_condition(args: argparse.Namespace) -> str | None:
 
 def main(argv: list[str] | None = None) -> int:
     """Run one command.  Its error boundary: whatever escapes becomes one paragraph and exit 3
-    (deckload.boundary); control characters never reach the terminal (deckload.textsafe)."""
+    (deckload.cli.boundary); control characters never reach the terminal (deckload.io.textsafe)."""
     import warnings
 
-    from deckload.textsafe import EscapingStream
+    from deckload.io.textsafe import EscapingStream
 
     # numpy's floating-point warnings are not for the officer: every non-finite number is
     # refused with a message where it is computed (deckload.core.bounds).
@@ -216,23 +216,23 @@ def _main(argv: list[str] | None) -> int:
 
             return run_open(getattr(args, "profile", None), getattr(args, "condition", None))
         if cmd == "calc":
-            from deckload.commands import run_calc
+            from deckload.cli.calc import run_calc
 
             return run_calc(args.profile, args.condition, as_json=args.json, direct=args.direct)
         if cmd == "check":
-            from deckload.check_command import run_check
+            from deckload.cli.check import run_check
 
             return run_check(args.profile, args.condition)
         if cmd == "tables":
-            from deckload.tables_command import run_tables
+            from deckload.cli.tables import run_tables
 
             return run_tables(args.geometry, args.output)
         if cmd == "csv":
-            from deckload.csv_command import run_csv
+            from deckload.cli.csv_export import run_csv
 
             return run_csv(args.profile, args.folder)
         if cmd == "marks":
-            from deckload.marks_command import run_marks
+            from deckload.cli.marks import run_marks
 
             given = [args.aft, args.mid, args.fwd]
             if any(g is not None for g in given) and not all(g is not None for g in given):
@@ -242,11 +242,11 @@ def _main(argv: list[str] | None) -> int:
             readings = None if args.aft is None else [*args.aft, *args.mid, *args.fwd]
             return run_marks(args.profile, args.condition, readings)
         if cmd == "report":
-            from deckload.report import run_report
+            from deckload.cli.report import run_report
 
             return run_report(args.profile, args.condition, html=not args.txt, output=args.output, direct=args.direct)
         if cmd == "log":
-            from deckload.logbook_command import run_log
+            from deckload.cli.log import run_log
 
             return run_log(args)
     except KeyboardInterrupt:
@@ -261,7 +261,7 @@ def _main(argv: list[str] | None) -> int:
         if isinstance(e, ShipOffsetError):
             print(f"deckload: {e}", file=sys.stderr)
             return 2
-        from deckload.boundary import internal_error
+        from deckload.cli.boundary import internal_error
 
         what = {"open": "running the loading screen", "log": f"running 'log {getattr(args, 'log_command', '')}'"}
         return internal_error(e, what.get(cmd, f"running '{cmd}'"), _files(args))

@@ -7,10 +7,12 @@ working folder; ``vessel_profiles/`` in the checkout is the browsable copy.
 
 from __future__ import annotations
 
+import hashlib
 import os
+import re
 from pathlib import Path
 
-PACKAGE_DATA = Path(__file__).resolve().parent / "data"
+PACKAGE_DATA = Path(__file__).resolve().parent.parent / "data"
 DEMO_PROFILE = PACKAGE_DATA / "demo_islander.toml"
 DEMO_CONDITIONS = {
     "departure": PACKAGE_DATA / "demo_islander.departure.condition.toml",
@@ -86,7 +88,6 @@ def working_file(work_dir: Path, vessel_name: str) -> Path:
     """
     import hashlib
 
-    from deckload.logbook import vessel_slug
 
     digest = hashlib.sha256(vessel_name.encode("utf-8")).hexdigest()[:10]
     return work_dir / f"{vessel_slug(vessel_name)[:60]}-{digest}.condition.toml"
@@ -110,3 +111,14 @@ def saved_conditions_dir(work_dir: Path, vessel_name: str) -> Path:
 def reports_dir(log_folder: Path) -> Path:
     """Reports printed from the loading screen: ``reports/`` beside the logs."""
     return log_folder / "reports"
+
+
+def vessel_slug(vessel_name: str) -> str:
+    """File-name form of a vessel name: 'Demo Islander' → 'demo-islander', 'Øya 1' → 'øya-1'.
+
+    Letters of any script are kept; a name with none gets a stable name from its hash.
+    """
+    slug = re.sub(r"[\W_]+", "-", vessel_name.casefold()).strip("-")
+    if not slug:
+        slug = "vessel-" + hashlib.sha256(vessel_name.encode("utf-8")).hexdigest()[:12]
+    return slug

@@ -1,6 +1,6 @@
 """``deckload tables GEOMETRY [-o PROFILE]``: compute a vessel's tables from its geometry.
 
-Reads a geometry file (``deckload.geometry_io``), computes every table
+Reads a geometry file (``deckload.io.geometry_files``), computes every table
 (``deckload.core.geometry.builder``) and writes the profile's generated sections
 with tomli-w:
 
@@ -37,10 +37,10 @@ from typing import Any
 import numpy as np
 import tomli_w
 
-from deckload.atomicfile import write_atomic
+from deckload.io.atomicfile import write_atomic
 from deckload.core.geometry.builder import TableRangeError, VesselTables, build_tables
 from deckload.core.geometry.cross_curves import NoEquilibriumError
-from deckload.geometry_io import GeometryError, load_geometry
+from deckload.io.geometry_files import GeometryError, load_geometry
 
 PROFILE_FORMAT = "deckload-profile-1"
 

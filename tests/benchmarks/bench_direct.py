@@ -1,10 +1,10 @@
-"""Benchmark, run by hand: ``python -m deckload.bench_direct [--heels N]``.
+"""Benchmark, run by hand: ``python -m tests.benchmarks.bench_direct [--heels N]``.
 
 The direct calculation of :mod:`deckload.core.equilibrium` for the demo vessel's departure
 condition — equilibrium free in trim and heel for the actual G and the GZ curve at 19
 heels (0–90°, 5° steps), drafts at the list — timed beside the same free-trim KN computed
 with an independent reference, trimesh slicing a closed mesh of the same offsets
-(``deckload.bench_tables.ref_kn``), in one run; prints both times, their ratio, and how
+(``tests.benchmarks.bench_tables.ref_kn``), in one run; prints both times, their ratio, and how
 far the two KN lie apart.  Targets (issue 10): direct equilibrium + GZ under 150 ms, at
 least 10× faster than trimesh.  ``--heels N`` times the reference at only the first N
 heels and scales its time to all 19 (printed as such).
@@ -21,17 +21,17 @@ import numpy as np
 
 
 def main(argv: list[str] | None = None) -> int:
-    ap = argparse.ArgumentParser(prog="python -m deckload.bench_direct")
+    ap = argparse.ArgumentParser(prog="python -m tests.benchmarks.bench_direct")
     ap.add_argument("--heels", type=int, default=19, help="heels the trimesh reference computes (1–19)")
     ap.add_argument("--repeat", type=int, default=7, help="timed runs of the direct method (median shown)")
     args = ap.parse_args(argv)
 
-    from deckload.bench_tables import GEOMETRY, hull_mesh, ref_kn
+    from tests.benchmarks.bench_tables import GEOMETRY, hull_mesh, ref_kn
     from deckload.core.equilibrium import HEELS_DEG, compare, direct_state
     from deckload.core.stability import evaluate
-    from deckload.geometry_io import load_geometry
-    from deckload.paths import DEMO_CONDITIONS, DEMO_PROFILE
-    from deckload.profiles import load_condition, load_profile
+    from deckload.io.geometry_files import load_geometry
+    from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
+    from deckload.io.profiles import load_condition, load_profile
 
     v = load_profile(DEMO_PROFILE)
     c = load_condition(DEMO_CONDITIONS["departure"], v)

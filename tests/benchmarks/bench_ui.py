@@ -1,4 +1,4 @@
-"""Loading-screen benchmark, run by hand: ``python tests/bench_ui.py [--keys N] [--size 120x40]``.
+"""Loading-screen benchmark, run by hand: ``python -m tests.benchmarks.bench_ui [--keys N] [--size 120x40]``.
 
 Each app runs in its own process on a pseudo-terminal (the real terminal driver,
 not the headless one), side by side in one run:
@@ -36,7 +36,7 @@ import tempfile
 import time
 from pathlib import Path
 
-ROOT = Path(__file__).resolve().parents[1]
+ROOT = Path(__file__).resolve().parents[2]
 
 
 # --------------------------------------------------------------------------- child side
@@ -125,7 +125,7 @@ def _bare_app():
 
 
 def _deckload_app():
-    from deckload import paths
+    from deckload.io import paths
     from deckload.ui.launch import create_app, load_inputs
 
     tmp = Path(tempfile.mkdtemp(prefix="deckload-bench-"))

@@ -1,4 +1,4 @@
-"""Benchmark, run by hand: ``python -m deckload.bench_tables [--full]``.
+"""Benchmark, run by hand: ``python -m tests.benchmarks.bench_tables [--full]``.
 
 Computes every table of the demo vessel (41 stations, i.e. 40 intervals:
 hydrostatics at its 30 drafts, KN at 15 displacements 250–950 t × 19 heels with free
@@ -28,7 +28,7 @@ import numpy as np
 
 from deckload.core.geometry.spec import CompartmentShape, Geometry, HullOffsets
 
-GEOMETRY = Path(__file__).resolve().parent.parent / "vessel_profiles" / "demo_islander.geometry.toml"
+GEOMETRY = Path(__file__).resolve().parents[2] / "vessel_profiles" / "demo_islander.geometry.toml"
 
 
 # --------------------------------------------------------------------------- meshes
@@ -310,11 +310,11 @@ def _bench_ours(g: Geometry, drafts, disp, heels):
 
 
 def main(argv: list[str] | None = None) -> int:
-    ap = argparse.ArgumentParser(prog="python -m deckload.bench_tables", description=__doc__.split("\n\n")[0])
+    ap = argparse.ArgumentParser(prog="python -m tests.benchmarks.bench_tables", description=__doc__.split("\n\n")[0])
     ap.add_argument("--full", action="store_true", help="reference transfer tables for every tank")
     ap.add_argument("--geometry", type=Path, default=GEOMETRY)
     args = ap.parse_args(argv)
-    from deckload.geometry_io import load_geometry
+    from deckload.io.geometry_files import load_geometry
 
     g = load_geometry(args.geometry)
     rho = g.vessel.table_density_t_m3

@@ -11,7 +11,7 @@ conversion is affine and exact in the input:
     y_stbd = ±y (plain numbers by ``transverse_positive``; "P"/"S" marks or ``tcg_side`` fix the side)
 
 Every non-identity conversion is recorded in words (:meth:`Frame.describe_x`) so that
-``deckload check`` can print it; :mod:`deckload.csv_command` inverts it to write the
+``deckload check`` can print it; :mod:`deckload.cli.csv_export` inverts it to write the
 tables back as the booklet has them.
 """
 
@@ -23,7 +23,7 @@ from dataclasses import dataclass, replace
 
 import numpy as np
 
-from deckload.tomlcheck import MISSING, Table, is_number, num, toml_type
+from deckload.io.tomlcheck import MISSING, Table, is_number, num, toml_type
 
 DATUMS = ("AP", "midships", "FP")
 DATUM_WORDS = {"AP": "the aft perpendicular", "midships": "midships", "FP": "the forward perpendicular"}
@@ -198,7 +198,7 @@ def tcg_array(t: Table, k: str, frame: Frame | None, *, required: bool = True):
 
 def side_text(y: float, frame: Frame, marked: bool):
     """A TCG (+ starboard) written back as the booklet had it: marked "1.2 P" or a plain number."""
-    from deckload.csvtables import fmt_number
+    from deckload.io.csvtables import fmt_number
 
     if marked:
         if y == 0.0:

@@ -13,8 +13,8 @@ import sys
 import textwrap
 from pathlib import Path
 
-from deckload import verdict_format as vf
-from deckload.atomicfile import write_atomic
+from deckload.report import verdict_format as vf
+from deckload.io.atomicfile import write_atomic
 from deckload.logbook import (
     KIND_LABELS,
     LogEntry,
@@ -40,7 +40,7 @@ CSV_COLUMNS = (
 
 
 def _log_dir(args) -> Path:
-    from deckload.paths import log_dir
+    from deckload.io.paths import log_dir
 
     return Path(args.dir) if getattr(args, "dir", None) else log_dir()
 
@@ -68,7 +68,7 @@ def run_log(args) -> int:
 
 
 def _record(args) -> int:
-    from deckload.commands import load_and_evaluate
+    from deckload.cli.calc import load_and_evaluate
     from deckload.logbook import KINDS, validate_initials
 
     try:

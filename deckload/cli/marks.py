@@ -11,7 +11,7 @@ from __future__ import annotations
 import sys
 from pathlib import Path
 
-from deckload.commands import CAUTION, load_and_evaluate
+from deckload.cli.calc import CAUTION, load_and_evaluate
 
 
 def format_marks(vessel, condition, result, observed_readings=None) -> str:

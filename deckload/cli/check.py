@@ -21,9 +21,9 @@ import sys
 import traceback
 from pathlib import Path
 
-from deckload import verdict_format as vf
+from deckload.report import verdict_format as vf
 from deckload.core import model as m
-from deckload.profiles import Problem, ProfileError, load_condition, read_profile
+from deckload.io.profiles import Problem, ProfileError, load_condition, read_profile
 
 CAUTION = (
     "deckload supports, and never replaces, the approved stability booklet, "
@@ -88,7 +88,7 @@ def run_check(profile_path: Path, condition_path: Path | None = None) -> int:
         if condition_path is not None:
             print(f"{condition_path}: not checked: its vessel profile has problems")
         return 1
-    from deckload.audit_report import audit_profile
+    from deckload.report.audit_findings import audit_profile
 
     found = audit_profile(profile_path, vessel)
     sources = {k: tr.csv for k, tr in reading.tables.items() if tr.csv}
@@ -130,7 +130,7 @@ def _cell(x: float, sign: str = "") -> str:
 
 def _booklet(path: Path, vessel: m.Vessel) -> int:
     """Recompute the booklet's worked conditions and print them beside the booklet's results."""
-    from deckload.booklet_conditions import load_booklet_conditions
+    from deckload.io.booklet_conditions import load_booklet_conditions
     from deckload.core.booklet import compare
     from deckload.core.stability import evaluate
     from deckload.core.tables import OutOfRangeError

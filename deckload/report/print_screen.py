@@ -3,7 +3,7 @@
 Both forms of the report (HTML to print, plain text) are written side by side in the reports
 folder (``paths.reports_dir``) under one name: vessel, condition and the UTC minute, so two
 prints of one watch never overwrite each other.  The report is the one ``deckload report``
-writes (:mod:`deckload.report`), from the screen's own ``Result``: nothing is recomputed.
+writes (:mod:`deckload.report.condition_report`), from the screen's own ``Result``: nothing is recomputed.
 """
 
 from __future__ import annotations
@@ -23,8 +23,8 @@ class Printed:
 
 def report_stem(vessel_name: str, condition_name: str, utc_minute: str) -> str:
     """'demo-islander_sailing-2-dec_20261202-1904': vessel, condition, UTC minute."""
-    from deckload.condition_files import name_key
-    from deckload.logbook import vessel_slug
+    from deckload.io.condition_files import name_key
+    from deckload.io.paths import vessel_slug
 
     return f"{vessel_slug(vessel_name)[:40]}_{name_key(condition_name)[:40]}_{utc_minute}"
 
@@ -41,9 +41,9 @@ def _free(folder: Path, stem: str) -> str:
 def print_result(result: Result, vessel: Vessel, condition: Condition, folder: Path, *,
                  source: str, log_anchor: str = "") -> Printed:
     """Write the HTML and text reports of ``result`` to ``folder``; raises OSError if it cannot."""
-    from deckload.atomicfile import write_atomic
+    from deckload.io.atomicfile import write_atomic
     from deckload.logbook import clock_stamp, utc_now
-    from deckload.report import render_report_html, render_report_text
+    from deckload.report.condition_report import render_report_html, render_report_text
 
     stamp = clock_stamp()
     where = source + log_anchor

@@ -4,7 +4,7 @@ Bad input is refused where it is read, with a message naming the file and key.  
 that still escapes (a bug in deckload, or a failure nobody foresaw) is caught here, once per
 entry point (each command, the loading screen, the log): the officer reads one paragraph
 naming the files involved and what to do, the details go to a crash file in the data folder
-(``deckload.paths.data_home() / "crashes"``), and the exit status is :data:`INTERNAL_ERROR`.
+(``deckload.io.paths.data_home() / "crashes"``), and the exit status is :data:`INTERNAL_ERROR`.
 
 Exit statuses of every ``deckload`` command (README "Exit status"):
 
@@ -26,14 +26,14 @@ INTERNAL_ERROR = 3
 
 
 def crash_folder() -> Path:
-    from deckload.paths import data_home
+    from deckload.io.paths import data_home
 
     return data_home() / "crashes"
 
 
 def write_crash_file(exc: BaseException, context: str) -> Path | None:
     """Write the traceback and the context to a new crash file; its path, or None if it cannot be written."""
-    from deckload.atomicfile import write_atomic
+    from deckload.io.atomicfile import write_atomic
     from deckload.logbook import format_utc, utc_now
 
     folder = crash_folder()

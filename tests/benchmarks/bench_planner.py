@@ -1,4 +1,4 @@
-"""Ballast planner speed, by hand: ``python -m deckload.bench_planner``.
+"""Ballast planner speed, by hand: ``python -m tests.benchmarks.bench_planner``.
 
 The demo departure condition with both WB1 wings half full, given about 5° of port list by
 pumping WB1S into WB1P; the planner asked for "list 0°" among the four wing tanks.  Prints the
@@ -12,11 +12,11 @@ from functools import partial
 
 
 def main() -> None:
-    from deckload import paths
+    from deckload.io import paths
     from deckload.core.ballast_plan import Goal, propose
     from deckload.core.model import TankFill
     from deckload.core.stability import evaluate
-    from deckload.profiles import load_condition, load_profile
+    from deckload.io.profiles import load_condition, load_profile
     from deckload.ui import entry
 
     v = load_profile(paths.DEMO_PROFILE)

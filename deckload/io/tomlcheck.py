@@ -1,7 +1,7 @@
 """Reading TOML tables with checks: the toolkit behind every file deckload reads.
 
-Vessel profiles and loading conditions (:mod:`deckload.profiles`) and geometry
-files (:mod:`deckload.geometry_io`) are all read with it.  A :class:`FileCheck` is
+Vessel profiles and loading conditions (:mod:`deckload.io.profiles`) and geometry
+files (:mod:`deckload.io.geometry_files`) are all read with it.  A :class:`FileCheck` is
 one file being read; a :class:`Table` is one of its tables, read key by key with
 typed getters (``num``, ``text``, ``array``, ``pair``, ``matrix``, ``table``,
 ``tables``) that check each value against its rules.  Every problem is collected
@@ -13,7 +13,7 @@ rejected at the end with all of them at once (:meth:`FileCheck.fail_if_any`).
 Keys nobody asked for are problems too: a misspelt optional key must never be
 silently ignored, because its default would then be used without anyone knowing.
 
-A table of a profile may come from a CSV file (:mod:`deckload.csvtables`): its columns
+A table of a profile may come from a CSV file (:mod:`deckload.io.csvtables`): its columns
 are put into the parsed data before the checks run, and :attr:`FileCheck.sources` sends
 each problem in them to the CSV file, line and column (:attr:`Problem.column`).
 
@@ -32,8 +32,8 @@ from typing import Any, Callable
 
 import numpy as np
 
-from deckload.limits import MAX_TABLE_VALUES
-from deckload.textsafe import control_char
+from deckload.io.limits import MAX_TABLE_VALUES
+from deckload.io.textsafe import control_char
 
 ID_PATTERN = re.compile(r"^[A-Za-z0-9_-]+$")
 """Tank, hold and deck-area ids: letters, digits, '-' and '_' (typed by the user)."""
@@ -414,7 +414,7 @@ class FileCheck:
         self.problems.append(Problem(self.file, line or self.line_of(raw), key, value, rule))
 
     def parse(self) -> dict:
-        from deckload.limits import MAX_TOML_BYTES
+        from deckload.io.limits import MAX_TOML_BYTES
 
         if len(self.text) > MAX_TOML_BYTES:
             raise self.error([Problem(self.file, None, "", None,

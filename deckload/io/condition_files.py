@@ -41,7 +41,7 @@ class ConditionNotFound(LookupError):
 
 def name_key(name: str) -> str:
     """File-name form of a condition name: 'Sailing 2 Dec, ρ 1.010' → 'sailing-2-dec-ρ-1-010'."""
-    from deckload.logbook import vessel_slug
+    from deckload.io.paths import vessel_slug
 
     return vessel_slug(name)[:60]
 
@@ -77,7 +77,7 @@ def saved(folder: Path) -> list[Named]:
 
 
 def all_named(profile_path: Path, vessel_name: str, work_dir: Path) -> list[Named]:
-    from deckload import paths
+    from deckload.io import paths
 
     found = stock(profile_path) + saved(paths.saved_conditions_dir(work_dir, vessel_name))
     w = paths.working_file(work_dir, vessel_name)
@@ -89,7 +89,7 @@ def all_named(profile_path: Path, vessel_name: str, work_dir: Path) -> list[Name
 def resolve(profile_path: Path, typed: str, vessel_name: str, work_dir: Path) -> Path:
     """The file a command line means by ``typed``: a path that exists; ``working`` for the loading
     screen's condition; a stock or saved condition by its key or its name (case ignored)."""
-    from deckload import paths
+    from deckload.io import paths
 
     if Path(typed).is_file():
         return Path(typed)

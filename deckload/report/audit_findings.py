@@ -18,7 +18,7 @@ from pathlib import Path
 
 from deckload.core.audit import ERROR, Finding, audit
 from deckload.core.model import Vessel
-from deckload.tomlcheck import Problem, ProfileError, key_lines
+from deckload.io.tomlcheck import Problem, ProfileError, key_lines
 
 
 @dataclass(frozen=True)

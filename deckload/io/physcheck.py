@@ -1,6 +1,6 @@
 """Physical bounds and completeness of a read profile or condition, as Problems.
 
-The readers (:mod:`deckload.profiles`) first check each value's form and its own rules;
+The readers (:mod:`deckload.io.profiles`) first check each value's form and its own rules;
 then, with the whole model built, :func:`check_vessel` and :func:`check_condition` hold
 every position, mass, level and table value against the vessel's own extent
 (:mod:`deckload.core.bounds`, the same functions the screen's forms use) and make sure a
@@ -16,7 +16,7 @@ import numpy as np
 
 from deckload.core import bounds as b
 from deckload.core import model as m
-from deckload.tomlcheck import FileCheck, num, toml_value
+from deckload.io.tomlcheck import FileCheck, num, toml_value
 
 
 class _Checker:
@@ -78,7 +78,7 @@ def check_vessel(ctx: FileCheck, v: m.Vessel) -> m.Vessel:
     ctx.fail_if_any()
     # Positions, hydrostatic rows, KN and tank tables of the profile are judged by the
     # plausibility audit (deckload.core.audit, on the same envelope), which every command
-    # runs before it uses a profile (deckload.commands.load_and_evaluate, check, open).
+    # runs before it uses a profile (deckload.cli.calc.load_and_evaluate, check, open).
     for n, it in enumerate(getattr(v, "constants", ())):
         c.one(("constant", n, "mass_t"), f"constant[#{n + 1}].mass_t", it.mass_t, b.item_mass_range(v))
         c.position(p, ("constant", n), f"constant[#{n + 1}]", it.lcg_m, it.vcg_m, it.tcg_m)

@@ -5,9 +5,9 @@ A table of a profile (``[hydrostatics]``, ``[cross_curves]``, ``[tank.calibratio
 with ``csv = "file.csv"`` (relative to the profile).  The file has a header row of
 the table's own TOML array keys (vessel_profiles/README.md, "Tables in CSV files");
 each column becomes that array, exactly as if it had been written in the TOML, and
-every check of :mod:`deckload.profiles` applies to it unchanged.  A problem in a
+every check of :mod:`deckload.io.profiles` applies to it unchanged.  A problem in a
 column is reported against the CSV file, its line and column, and the cell as
-written (:attr:`deckload.tomlcheck.FileCheck.sources`).
+written (:attr:`deckload.io.tomlcheck.FileCheck.sources`).
 
 Cross curves are one column per heel angle, named ``kn_`` + the angle (``kn_0``,
 ``kn_10``, … ``kn_12.5``), beside ``displacement_t``.
@@ -21,7 +21,7 @@ import re
 from pathlib import Path
 from typing import Any
 
-from deckload.tomlcheck import MISSING, Table
+from deckload.io.tomlcheck import MISSING, Table
 
 NUMBER = re.compile(r"^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$")
 """A number as a spreadsheet writes it: decimal point, optional exponent (no '1_000', 'nan', 'inf')."""
@@ -57,7 +57,7 @@ def read_csv(t: Table, key: str = "csv") -> CsvTable | None:
     base = Path(t.ctx.file).parent
     path = base / name
     shown = str(path)
-    from deckload.limits import MAX_TABLE_VALUES, MAX_TOML_BYTES, read_limited
+    from deckload.io.limits import MAX_TABLE_VALUES, MAX_TOML_BYTES, read_limited
 
     try:
         data = read_limited(path, MAX_TOML_BYTES, "a CSV table")
@@ -125,7 +125,7 @@ def read_csv(t: Table, key: str = "csv") -> CsvTable | None:
 
 
 def _problem(file, line, key, value, rule):
-    from deckload.tomlcheck import Problem
+    from deckload.io.tomlcheck import Problem
 
     return Problem(file, line, key, value, rule)
 
@@ -238,7 +238,7 @@ def fmt_number(x: float) -> str:
 
 
 def write_csv(path: Path, header: list[str], rows: list[list[Any]]) -> None:
-    from deckload.atomicfile import write_atomic
+    from deckload.io.atomicfile import write_atomic
 
     buf = io.StringIO()
     w = csv.writer(buf, lineterminator="\n")
