@@ -163,8 +163,8 @@ def test_the_screen_saves_the_last_of_quick_edits_and_quitting_waits_for_it(tmp_
     import asyncio
     import threading
 
-    from deckload import paths
-    from deckload.profiles import load_profile
+    from deckload.io import paths
+    from deckload.io.profiles import load_profile
     from deckload.ui.launch import create_app
 
     vessel = load_profile(paths.DEMO_PROFILE)
