@@ -80,6 +80,7 @@ class LinePanel(Widget):
         self._lines: list[Text] = []
         self._strips: dict[int, Strip] = {}
         self._style: Style | None = None
+        self._width: int | None = None
 
     @property
     def lines(self) -> list[Text]:
@@ -105,15 +106,22 @@ class LinePanel(Widget):
         return "\n".join(t.plain for t in self._lines)
 
     def render_lines(self, crop: Region) -> list[Strip]:
-        style = self.rich_style  # once for every line of this pass
+        # Style and width once for every line of this pass: each is a walk up the parents.
+        style, self._width = self.rich_style, self.size.width
         if style != self._style:
             self._style = style
             self._strips.clear()
-        return super().render_lines(crop)
+        try:
+            return super().render_lines(crop)
+        finally:
+            self._width = None
 
     def render_line(self, y: int) -> Strip:
-        width = self.size.width
-        style = self._style if self._style is not None else self.rich_style
+        if self._width is None:  # called outside a render pass
+            self._style, width = self.rich_style, self.size.width
+        else:
+            width = self._width
+        style = self._style
         if y >= len(self._lines):
             return Strip.blank(width, style)
         strip = self._strips.get(y)
@@ -172,6 +180,8 @@ class LoadBoard(ScrollView, can_focus=True):
         self._data: tuple | None = None
         self._width = 0
         self._styles: tuple[Style, Style, bool] | None = None
+        self._place: tuple[int, int] | None = None
+        """(first line shown, width) during a render pass."""
         """(own style, cursor style, focused) read once per render pass; the cached lines were made with them."""
 
     @property
@@ -249,13 +259,20 @@ class LoadBoard(ScrollView, can_focus=True):
         if styles != self._styles:
             self._styles = styles
             self._strips.clear()
-        return super().render_lines(crop)
+        self._place = (int(self.scroll_offset.y), self.scrollable_content_region.width)
+        try:
+            return super().render_lines(crop)
+        finally:
+            self._place = None
 
     def render_line(self, y: int) -> Strip:
-        idx = y + int(self.scroll_offset.y)
-        width = self.scrollable_content_region.width
-        own, cursor, focused = self._styles or (self.rich_style, self.get_component_rich_style("board--cursor"),
-                                                self.has_focus)
+        if self._place is None:  # called outside a render pass
+            self._styles = (self.rich_style, self.get_component_rich_style("board--cursor"), self.has_focus)
+            top, width = int(self.scroll_offset.y), self.scrollable_content_region.width
+        else:
+            top, width = self._place
+        idx = y + top
+        own, cursor, focused = self._styles
         if idx >= len(self.rows):
             return Strip.blank(width, own)
         strip = self._strips.get(idx)
