@@ -14,7 +14,8 @@ from dataclasses import dataclass
 
 import numpy as np
 from rich.console import Console, ConsoleOptions, RenderResult
-from rich.text import Text
+from rich.style import Style
+from rich.text import Span, Text
 
 from deckload.ui.palette import P
 
@@ -169,31 +170,27 @@ class GzChart:
             v = k * step
             labels.setdefault(int(round((hi - v) / (hi - lo) * (ph - 1))) // 4, f"{v:5.2f}┤")
         out: list[Text] = []
+        text_by_row: dict[int, list[tuple[int, str, str]]] = {}
+        for (r, c), (ch, st) in text_at.items():
+            text_by_row.setdefault(r, []).append((c, ch, st))
         for r in range(rows):
-            chars: list[str] = []
-            styles: list = []
-            bits_row, layer_row = grid[r], layer[r]
-            zero = r == zero_row and lo < 0
-            for c in range(cols):
-                bits = bits_row[c]
-                at = text_at.get((r, c))
-                if at is not None:
-                    chars.append(at[0])
-                    styles.append(P[at[1]])
-                elif bits:
+            # Laid down from the lowest priority up: zero line, mark columns, dots, then names.
+            if r == zero_row and lo < 0:
+                chars, styles = ["·"] * cols, [axis_style] * cols
+            else:
+                chars, styles = [" "] * cols, [None] * cols
+            for c, st in mark_styles.items():
+                if 0 <= c < cols:
+                    chars[c], styles[c] = "┊", st
+            layer_row = layer[r]
+            for c, bits in enumerate(grid[r]):
+                if bits:
                     kind = layer_row[c]
-                    chars.append(chr(0x2800 + bits))
-                    styles.append(curve_style if kind == 3 else P[(level_style if kind == 2 else area_style)[(r, c)]])
-                elif c in mark_styles:
-                    chars.append("┊")
-                    styles.append(mark_styles[c])
-                elif zero:
-                    chars.append("·")
-                    styles.append(axis_style)
-                else:
-                    chars.append(" ")
-                    styles.append(None)
-            out.append(_runs(Text(labels.get(r, "     │"), style=axis_style), chars, styles))
+                    chars[c] = chr(0x2800 + bits)
+                    styles[c] = curve_style if kind == 3 else P[(level_style if kind == 2 else area_style)[(r, c)]]
+            for c, ch, st in text_by_row.get(r, ()):
+                chars[c], styles[c] = ch, P[st]
+            out.append(_runs(labels.get(r, "     │"), axis_style, chars, styles))
         out.append(self._axis(cols, label_w, x_lo, x_hi, mark_cols))
         return out
 
@@ -215,7 +212,7 @@ class GzChart:
             if not any(taken[max(0, c - 1) : c + len(text) + 1]):
                 for i, ch in enumerate(text):
                     chars[c + i], taken[c + i] = ch, True
-        return _runs(Text(" " * label_w, style=P["gz.axis"]), chars, styles)
+        return _runs(" " * label_w, P["gz.axis"], chars, styles)
 
     def __rich_console__(self, console: Console, options: ConsoleOptions) -> RenderResult:
         for line in self.lines():
@@ -223,15 +220,18 @@ class GzChart:
             yield Text("\n")
 
 
-def _runs(line: Text, chars: list[str], styles: list) -> Text:
-    """``line`` with ``chars`` appended, one append per run of cells of one style (not one per cell:
-    a chart line of 80 cells is then a handful of spans to build and to paint)."""
-    start = 0
-    for c in range(1, len(chars) + 1):
-        if c == len(chars) or styles[c] is not styles[start]:
-            line.append("".join(chars[start:c]), styles[start])
+def _runs(prefix: str, base: Style, chars: list[str], styles: list) -> Text:
+    """``prefix`` (in ``base``) then ``chars``, one span per run of cells of one style (``None``: the
+    base style), made in one step: not one ``append`` per cell, nor per run (a chart line of 80
+    cells is a handful of spans to build and to paint)."""
+    spans = []
+    n, off, start = len(chars), len(prefix), 0
+    for c in range(1, n + 1):
+        if c == n or styles[c] is not styles[start]:
+            if styles[start] is not None:
+                spans.append(Span(off + start, off + c, styles[start]))
             start = c
-    return line
+    return Text(prefix + "".join(chars), style=base, spans=spans)
 
 
 def _nice_step(raw: float) -> float:
