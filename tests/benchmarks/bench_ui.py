@@ -112,13 +112,13 @@ def _child(which: str, width: int, height: int, keys: int, out: str, spawned_at:
         session = getattr(app, "session", None)
         if session is not None:
             session.flush()  # the paced keys' writes are not part of the burst
-            before = session.saves_written
+            before = app.saves[0]
         for i in range(keys):  # the burst: each key as soon as the previous frame is out
             await press(i)
         if session is not None:
             t0 = time.perf_counter()
             session.flush()  # what quitting does first
-            queue.update(saves=session.saves_written - before, quit_wait_ms=(time.perf_counter() - t0) * 1000.0)
+            queue.update(saves=app.saves[0] - before, quit_wait_ms=(time.perf_counter() - t0) * 1000.0)
         app.exit()
 
     def start() -> None:
@@ -172,6 +172,13 @@ def _deckload_app(marks: dict):
     marks["profile and condition read"] = time.time()
     app = create_app(vessel, condition, work_dir=tmp / "work", log_dir=tmp / "logs", officer="BM")
     marks["app made"] = time.time()
+    save, app.saves = app.session._save, [0]
+
+    def counted(path, condition):  # every condition-file save the session makes
+        save(path, condition)
+        app.saves[0] += 1
+
+    app.session._save = counted
     return app
 
 
