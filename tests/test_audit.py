@@ -75,6 +75,14 @@ def test_lightship_lcg_entered_from_midships(tmp_path, capsys):
     out = capsys.readouterr().out
     assert out.startswith(f"ERR {f}")
     assert f"{f}:{hit.line}: ERROR lightship.lcg_m = -2.1 m from AP: a lightship LCG must lie between" in out
+    # nothing is computed from a profile the screen would refuse
+    assert "booklet conditions: not run until the audit's errors are put right" in out
+    assert "within the MSC.1/Circ.1229" not in out
+    cond = tmp_path / "c.condition.toml"
+    cond.write_text('name = "empty"\n', encoding="utf-8")
+    assert run_check(f, cond) == 1
+    out = capsys.readouterr().out
+    assert f"{cond}: not computed: its vessel profile has audit errors" in out and "computes to" not in out
 
 
 def test_every_lcb_negative(tmp_path):

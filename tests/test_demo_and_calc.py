@@ -85,6 +85,8 @@ def test_calc_json_has_the_documented_keys(capsys, demo):
     assert data["gz"][0]["gz_m"] == pytest.approx(-data["tcg_m"], abs=1e-12)
     assert {"id", "description", "value", "limit", "pass"} <= set(data["criteria"][0])
     assert {"id", "fill_pct", "volume_m3", "mass_t", "fsm_tm", "state"} <= set(data["tanks"][0])
+    # a JSON copy leaves without the screen around it: it carries the caution (README, "Safety")
+    assert data["caution"].startswith("deckload supports, and never replaces, the approved stability booklet")
     # The JSON carries the same numbers as the computation (rounding-free: floats written in full).
     vessel, conditions = demo
     r = evaluate(vessel, conditions["departure"])

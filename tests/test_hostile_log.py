@@ -114,7 +114,7 @@ def test_a_full_disk_while_recording_names_the_file_and_says_nothing_was_recorde
         os.write(fd, data[:10])
         raise OSError(errno.ENOSPC, os.strerror(errno.ENOSPC))
 
-    monkeypatch.setattr(deckload.logbook, "_write_all", full)
+    monkeypatch.setattr(deckload.logbook.storage, "_write_all", full)
     capsys.readouterr()
     assert main(["log", "record", "demo", "departure", "--by", "JM"]) == 2
     err = capsys.readouterr().err

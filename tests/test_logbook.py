@@ -139,7 +139,7 @@ def test_append_fsyncs_the_log_before_returning(tmp_path, monkeypatch):
         synced.append(os.readlink(f"/proc/self/fd/{fd}"))
         return real(fd)
 
-    monkeypatch.setattr(lb.os, "fsync", spy)
+    monkeypatch.setattr(os, "fsync", spy)
     with Logbook.open(tmp_path, "Demo Islander") as b:
         synced.clear()
         b.append(kind="remark", by="AB", change_text="noon", change_data={}, result=None, condition=None)

@@ -68,15 +68,23 @@ def test_a_capacity_typed_as_1e300_is_refused_with_a_short_percentage(tmp_path, 
 
 
 def test_a_free_surface_moment_typed_as_1e30_gives_short_numbers_in_every_message(tmp_path, capsys):
-    """demo_trawler.toml, tank FWP: max_fsm_tm = 1.2 typed as 1e30.  The audit refuses it; the
-    booklet conditions cannot be computed (KG fluid above KML).  Before the fix that reason
-    printed KG fluid as a 28-digit fixed-point number."""
+    """demo_trawler.toml, tank FWP: max_fsm_tm = 1.2 typed as 1e30.  The audit refuses it, and
+    check then computes nothing from it; the computation itself refuses the condition (KG fluid
+    above KML).  Before the fix that reason printed KG fluid as a 28-digit fixed-point number."""
+    from deckload.core.stability import evaluate
+    from deckload.io.profiles import load_condition, read_profile
+
     profile = _trawler(tmp_path)
     _edit(profile, "max_fsm_tm = 1.2", "max_fsm_tm = 1e30")
     assert run_check(profile) == 1
     out = capsys.readouterr().out
-    assert "is not below KML" in out
+    assert "booklet conditions: not run until the audit's errors are put right" in out
     assert len(_longest_number(out)) <= LONGEST_NUMBER, _longest_number(out)[:80]
+    vessel, _ = read_profile(profile)
+    condition = load_condition(profile.parent / "demo_trawler.departure.condition.toml", vessel)
+    with pytest.raises(ValueError, match="is not below KML") as refused:
+        evaluate(vessel, condition)
+    assert len(_longest_number(str(refused.value))) <= LONGEST_NUMBER, str(refused.value)[:80]
     assert main(["calc", str(profile), str(profile.parent / "demo_trawler.departure.condition.toml")]) == 1
     err = capsys.readouterr().err
     assert "Traceback" not in err and len(_longest_number(err)) <= LONGEST_NUMBER

@@ -9,10 +9,7 @@ from pathlib import Path
 from deckload.report import verdict_format as vf
 from deckload.core.result import Result
 
-CAUTION = (
-    "deckload supports, and never replaces, the approved stability booklet, the master's "
-    "judgement and flag-State and class rules."
-)
+CAUTION = vf.CAUTION
 
 
 def format_summary(r: Result) -> str:
@@ -157,6 +154,8 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False,
             doc["direct"] = {"method": "hull geometry, free trim and heel, actual G",
                              "rows": [{"quantity": n, "unit": u, "tables": a, "direct": b} for n, u, a, b in cmp.rows],
                              "gz_m": list(cmp.gz_direct_m)}
+        # A JSON copy travels without the screen or the printout around it: it carries the caution.
+        doc["caution"] = CAUTION
         print(json.dumps(doc, indent=1, ensure_ascii=False, allow_nan=False))
     else:
         text = format_summary(result)

@@ -10,6 +10,10 @@ contradictions and fail the check, warnings are doubts), then the booklet's work
 conditions recomputed beside the booklet's results with the tolerance of every row
 (deckload.core.booklet).
 
+After an audit error neither the booklet conditions nor the condition are computed: the
+loading screen, calc and report refuse such a profile, and check does not show a result
+they could not.
+
 Exit status: 0 no problems; 1 problems found (schema, audit error, booklet row outside tolerance); 2 a file could not be read;
 3 an internal error (a bug: please report it with the files).
 """
@@ -25,10 +29,7 @@ from deckload.report import verdict_format as vf
 from deckload.core import model as m
 from deckload.io.profiles import Problem, ProfileError, load_condition, read_profile
 
-CAUTION = (
-    "deckload supports, and never replaces, the approved stability booklet, "
-    "the master's judgement and flag-State and class rules."
-)
+CAUTION = vf.CAUTION
 
 
 def _plural(n: int, word: str, many: str | None = None) -> str:
@@ -100,8 +101,15 @@ def run_check(profile_path: Path, condition_path: Path | None = None) -> int:
         print(line)
 
     status = _audit(found)
-    booklet = _booklet(profile_path, vessel)
-    status = max(status, booklet)
+    if status:
+        # The screen, calc and report refuse a profile whose audit found a contradiction; a
+        # result they could not produce must not come from check either.
+        print("booklet conditions: not run until the audit's errors are put right")
+        if condition_path is not None:
+            print(f"{condition_path}: not computed: its vessel profile has audit errors")
+        print(CAUTION)
+        return status
+    status = max(status, _booklet(profile_path, vessel))
     if condition_path is not None:
         status = max(status, _check_condition(Path(condition_path), vessel))
     print(CAUTION)

@@ -24,10 +24,7 @@ from deckload.logbook import (
     vessel_of_log,
 )
 
-CAUTION = (
-    "deckload supports, and never replaces, the approved stability booklet, the master's "
-    "judgement, and flag-State and classification society rules."
-)
+CAUTION = vf.CAUTION
 
 CSV_COLUMNS = (
     "seq", "utc", "ship_time", "ship_clock", "vessel", "by", "kind", "change", "remark", "condition_name",
@@ -312,10 +309,8 @@ def _verify(args) -> int:
         try:
             rep = book.verify()
             if against:
-                from deckload.logbook import _split_lines, find_anchor
-
                 try:
-                    at = find_anchor(_split_lines(book._read())[0], against)
+                    at = book.find(against)
                 except ValueError as e:
                     print(f"deckload log verify: --against: {e}", file=sys.stderr)
                     return 1

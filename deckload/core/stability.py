@@ -1,30 +1,43 @@
 """``evaluate(vessel, condition) -> Result``: the one entry point of the computation.
 
 A pure function: the same profile and condition always give the same result, and
-nothing outside is read or written.  Steps, each in its own module:
+nothing outside is read or written.  It is a pipeline of six named stages, each a
+pure function of the vessel, the condition and the stages before it, each with its
+own test against a closed form (tests/test_evaluate_stages.py):
 
-1. tank contents and item weights (:mod:`loading`); Δ, LCG, KG solid, TCG;
-2. free-surface moment of each tank (:mod:`free_surface`); FSC = ΣFSM/Δ; KG fluid;
-3. hydrostatics at the density-corrected displacement (:mod:`hydrostatics`);
-   GM solid = KMt − KG, GM fluid = KMt − KG fluid; trim, drafts, list;
-4. the GZ curve (:mod:`gz`): GZ = KN − KG_fluid·sinφ − TCG·cosφ (constant correction),
-   or GZ = KN − KG_solid·sinφ − TCG·cosφ − Σρ·M(φ)/Δ with the actual moment of fluid
+1. :func:`stage_weights` — tank contents and item weights (:mod:`loading`): Δ, LCG,
+   KG solid, TCG;
+2. :func:`stage_free_surface` — free-surface moment of each tank (:mod:`free_surface`);
+   FSC = ΣFSM/Δ; KG fluid;
+3. :func:`stage_upright` — hydrostatics at the density-corrected displacement
+   (:mod:`hydrostatics`); GM solid and fluid; MCTC (:mod:`trim`), trim, drafts; the
+   load-line draft allowed in this water;
+4. :func:`stage_curve` — the GZ curve (:mod:`gz`) on both sides and the list read
+   off it: GZ = KN − KG_fluid·sinφ − TCG·cosφ (constant correction), or
+   GZ = KN − KG_solid·sinφ − TCG·cosφ − Σρ·M(φ)/Δ with the actual moment of fluid
    transfer M (IS 2008 Part B 3.1, the alternative to a constant correction);
-5. the criteria (:mod:`criteria`) and the warnings.
+5. :func:`stage_criteria` — the measures on the low side, the criteria sets
+   (:mod:`criteria`, :mod:`verdict`), the deck-edge angle;
+6. :func:`stage_warnings` — every caution and danger, in one list.
+
+:func:`evaluate` runs them in that order and puts their outputs into one
+:class:`~deckload.core.result.Result`.  Each stage's cautions that arise while it
+works travel in its output's ``notes`` and are gathered by the last stage.
 """
 
 from __future__ import annotations
 
 import math
-from dataclasses import replace
+from dataclasses import dataclass, replace
 
 import numpy as np
 
 from deckload.core import gz as gzmod
 from deckload.core.bounds import bounded
 from deckload.core.criteria import Measures, limit_curve_criterion
-from deckload.core.free_surface import BASIS_NONE, free_surface, transfer_moment_m4
+from deckload.core.free_surface import BASIS_NONE, TankFreeSurface, free_surface, transfer_moment_m4
 from deckload.core.hydrostatics import (
+    Upright,
     draft_at,
     fresh_water_allowance_m,
     mark_density_t_m3,
@@ -32,16 +45,457 @@ from deckload.core.hydrostatics import (
     trim_m,
     upright,
 )
-from deckload.core.loading import LoadingError, hold_item, resolve_tanks, sum_weights
-from deckload.core.model import Condition, Vessel, effective_constants
-from deckload.core.result import ItemResult, Result, TankResult, Warning
+from deckload.core.loading import LoadingError, TankContents, WeightSum, hold_item, resolve_tanks, sum_weights
+from deckload.core.model import Condition, LoadLine, Vessel, effective_constants
+from deckload.core.result import CriterionResult, ItemResult, Result, TankResult, Warning
 from deckload.core.tables import OutOfRangeError, bracket, interp, lerp_row
-from deckload.core.verdict import Afloat, assess, deck_edge_angle
+from deckload.core.verdict import Afloat, Verdict, assess, deck_edge_angle
 from deckload.core.soundings import level_soundings, sounding_note
-from deckload.core.trim import BASIS_TABLE, even_keel_note, kn_reference_note, trim_moment
+from deckload.core.trim import BASIS_TABLE, TrimMoment, even_keel_note, kn_reference_note, trim_moment
 
 LIST_WARNING_DEG = 2.0
 NEAR_LIMIT_FRACTION = 0.10
+
+
+# --------------------------------------------------------------------------- stage outputs
+
+
+@dataclass(frozen=True)
+class Weights:
+    """Stage 1: everything aboard and its centre of gravity (solid, before free surface)."""
+
+    items: tuple[ItemResult, ...]
+    """Lightship, hold, deck and constant items, in that order."""
+    contents: tuple[TankContents, ...]
+    """Every tank's contents (profile order), soundings already levelled to even keel."""
+    total: WeightSum
+    """Δ (t), LCG, KG solid, TCG (m)."""
+    notes: tuple[Warning, ...]
+    """Cautions about soundings taken trimmed or listed."""
+
+
+@dataclass(frozen=True)
+class FreeSurface:
+    """Stage 2: the free-surface moments and the KG they give."""
+
+    rule: str
+    """'is2008' or 'actual'."""
+    per_tank: tuple[TankFreeSurface, ...]
+    """The treatment of each tank, in the order of :attr:`Weights.contents`."""
+    fsm_total_tm: float
+    fsc_m: float
+    """FSC = ΣFSM/Δ (m)."""
+    kg_fluid_m: float
+    """KG solid + FSC (m)."""
+    tanks: tuple[TankResult, ...]
+    """Each tank's contents with the moment counted for it, as the views show them."""
+
+
+@dataclass(frozen=True)
+class Floating:
+    """Stage 3: upright hydrostatics, metacentric heights, trim and drafts."""
+
+    hydrostatics: Upright
+    """The table at the density-corrected displacement (draft at LCF, LCB, LCF, KMt, TPC)."""
+    gm_solid_m: float
+    gm_fluid_m: float
+    trim_moment: TrimMoment
+    """MCTC used for the trim and its basis (actual GML or the table's column)."""
+    trim_m: float
+    """+ by the stern (m)."""
+    draft_aft_m: float
+    draft_fwd_m: float
+    draft_mid_m: float
+    load_line: tuple[LoadLine, float | None] | None
+    """(governing mark, draft allowed at midships in this water or None when its summer draft is off
+    the table), or None when the profile has no marks."""
+    notes: tuple[Warning, ...]
+    """Cautions on trim beyond the even-keel tables, G far from the KN's LCG, MCTC from the table."""
+
+
+@dataclass(frozen=True, eq=False)
+class Curve:
+    """Stage 4: the GZ curve heeling to either side on the fine grid, and the list."""
+
+    correction: str
+    """'constant' or 'transfer'."""
+    heel_deg: np.ndarray
+    """The fine heel grid, 0° up to the KN table's last angle."""
+    gz_stbd_m: np.ndarray
+    gz_port_m: np.ndarray
+    """GZ heeling to port, positive when righting (GZ(−φ) = −GZ_port(φ))."""
+    side: str
+    """'port' or 'starboard': the side G lies to (starboard when on the centreline), where the criteria are checked."""
+    facts: gzmod.CurveFacts
+    """Maximum, equilibrium and vanishing angle of the low-side curve."""
+    list_deg: float
+    """Heel of equilibrium, + starboard."""
+    notes: tuple[Warning, ...]
+    """A caution naming tanks whose transfer is taken as i·sinφ for want of geometry."""
+
+    @property
+    def gz_lee_m(self) -> np.ndarray:
+        """GZ heeling to the side she lists to."""
+        return self.gz_port_m if self.side == "port" else self.gz_stbd_m
+
+    @property
+    def gz_other_m(self) -> np.ndarray:
+        """GZ heeling to the other side."""
+        return self.gz_stbd_m if self.side == "port" else self.gz_port_m
+
+    @property
+    def end_deg(self) -> float:
+        """The last angle of the curve (the KN table's last angle)."""
+        return float(self.heel_deg[-1])
+
+
+@dataclass(frozen=True)
+class Assessment:
+    """Stage 5: what the criteria are measured on and what they say."""
+
+    flood_deg: float | None
+    """Downflooding angle θf at this displacement, None without a curve or outside it."""
+    area_0_30_mrad: float
+    area_0_40_mrad: float
+    """Area to 40° or θf if less."""
+    area_30_40_mrad: float
+    criteria: tuple[CriterionResult, ...]
+    verdict: Verdict
+    deck_edge_deg: float
+    notes: tuple[Warning, ...]
+    """Dangers on downflooding and the limiting curve; cautions on the deck edge and the verdict."""
+
+
+# --------------------------------------------------------------------------- the pipeline
+
+
+@bounded
+def evaluate(vessel: Vessel, condition: Condition) -> Result:
+    """Complete intact-stability state of ``vessel`` in ``condition``: the six stages in order.
+
+    Raises :class:`~deckload.core.loading.LoadingError` for a condition that does not
+    fit the vessel and :class:`~deckload.core.tables.OutOfRangeError` when the
+    displacement lies outside the hydrostatic or cross-curve tables.
+    """
+    weights = stage_weights(vessel, condition)
+    fs = stage_free_surface(vessel, weights, condition.fs_rule or vessel.free_surface.rule)
+    floating = stage_upright(vessel, condition, weights, fs)
+    curve = stage_curve(vessel, weights, fs, floating, condition.gz_correction or vessel.free_surface.gz_correction)
+    assessment = stage_criteria(vessel, condition, weights, fs, floating, curve)
+    warnings = stage_warnings(vessel, condition, weights, fs, floating, curve, assessment)
+    return _result(vessel, condition, weights, fs, floating, curve, assessment, warnings)
+
+
+def stage_weights(vessel: Vessel, condition: Condition) -> Weights:
+    """Stage 1: Δ = Σw; LCG = Σw·x/Δ; KG = Σw·z/Δ; TCG = Σw·y/Δ (standards.md §6.3).
+
+    The items are the lightship, the hold loads, the deck items and the constants
+    (the profile's and the condition's); each tank's contents come from its
+    calibration table (:func:`~deckload.core.loading.resolve_tanks`) after a sounding
+    taken trimmed or listed is turned into the even-keel sounding of the same volume
+    (:mod:`soundings`).  Raises :class:`LoadingError` for a hold, deck area or mass
+    that does not fit the vessel.
+    """
+    items = _items(vessel, condition)
+    levelled, s_done, s_not = level_soundings(vessel, condition)
+    contents = resolve_tanks(vessel, levelled)
+    total = sum_weights(items, contents)
+    notes = tuple(Warning(code, msg, "caution") for code, msg in sounding_note(condition, s_done, s_not))
+    return Weights(tuple(items), tuple(contents), total, notes)
+
+
+def stage_free_surface(vessel: Vessel, weights: Weights, rule: str) -> FreeSurface:
+    """Stage 2: FSM per tank under ``rule``; FSC = ΣFSM/Δ; KG fluid = KG solid + FSC.
+
+    FSM = ρ·i with i the transverse second moment of the free surface (standards.md
+    §4.3, textbook); which level each tank is taken at follows IS 2008 Part B 3.1
+    (rule ``is2008``, :func:`~deckload.core.free_surface.free_surface`) or the actual
+    level of every slack tank (rule ``actual``, B 3.1.6).  FSC is the virtual rise of
+    G (standards.md §4.3).
+    """
+    contents = list(weights.contents)
+    fs = free_surface(vessel, contents, rule)
+    fsm_total = sum(t.fsm_tm for t in fs)
+    fsc = fsm_total / weights.total.mass_t
+    kg_fluid = weights.total.vcg_m + fsc
+    tanks = tuple(
+        TankResult(
+            id=c.tank.id, name=c.tank.name, kind=c.tank.kind, fill_pct=c.fill_pct, volume_m3=c.volume_m3,
+            mass_t=c.mass_t, density_t_m3=c.density_t_m3, lcg_m=c.lcg_m,
+            sounding_m=c.sounding_m if c.tank.level_known else None,
+            vcg_m=c.vcg_m, tcg_m=c.tcg_m, fsi_m4=c.fsi_m4, fsm_tm=t.fsm_tm, fs_rule=t.rule, state=t.state,
+            worst_band_pct=c.tank.worst_band_pct, capacity_m3=c.tank.capacity_m3,
+        )
+        for c, t in zip(contents, fs)
+    )
+    return FreeSurface(rule, tuple(fs), fsm_total, fsc, kg_fluid, tanks)
+
+
+def stage_upright(vessel: Vessel, condition: Condition, weights: Weights, fs: FreeSurface) -> Floating:
+    """Stage 3: hydrostatics, GM, trim and drafts of the upright ship.
+
+    * table look-ups at the equivalent displacement Δ·ρ_table/ρ_water, TPC and MCTC
+      scaled by ρ_water/ρ_table (:func:`~deckload.core.hydrostatics.upright`);
+    * GM solid = KMt − KG, GM fluid = KMt − KG fluid (standards.md §4.3);
+    * MCTC = Δ·(KML − KG fluid)/(100·LBP) where the profile has KML, else the table's
+      (:func:`~deckload.core.trim.trim_moment`);
+    * trim t = Δ·(LCB − LCG)/(100·MCTC), + by the stern; T(x) = T_F + t·(x_F − x)/LBP
+      at the AP (x = 0), FP (x = LBP) and midships (standards.md §6.3);
+    * the draft allowed at the condition's load-line mark (or summer) in this water:
+      mark + FWA·(ρ_mark − ρ)/0.025, FWA = Δ_s/(4·TPC_s) mm at the summer draft
+      (standards.md §6.1, ICLL; the dock-water rule from memory there).
+
+    The list is not worked here: it is where the low-side GZ curve rises through
+    zero (:func:`stage_curve`), right at large angles where tanφ = TCG/GM is not.
+    """
+    w = weights.total
+    disp = w.mass_t
+    lbp = vessel.particulars.lbp_m
+    hy = upright(vessel, disp, condition.water_density_t_m3)
+    gm_solid = hy.kmt_m - w.vcg_m
+    gm_fluid = hy.kmt_m - fs.kg_fluid_m
+    # MCT from the actual GM_L where the profile has KM_L (core/trim.py)
+    mct = trim_moment(vessel, hy, disp, fs.kg_fluid_m)
+    trim = trim_m(disp, w.lcg_m, hy.lcb_m, mct.mctc_tm_cm)
+    t_aft = draft_at(0.0, hy.draft_m, hy.lcf_m, trim, lbp)
+    t_fwd = draft_at(lbp, hy.draft_m, hy.lcf_m, trim, lbp)
+    t_mid = draft_at(lbp / 2.0, hy.draft_m, hy.lcf_m, trim, lbp)
+    notes: list[Warning] = []
+    trim_note = even_keel_note(trim, lbp)
+    if trim_note is not None:
+        notes.append(Warning("trim-beyond-tables", trim_note, "caution"))
+    kn_note = kn_reference_note(vessel.cross_curves, w.lcg_m, vessel.particulars.lbp_m)
+    if kn_note is not None:
+        notes.append(Warning("kn-reference-lcg", kn_note, "caution"))
+    if mct.basis == BASIS_TABLE:
+        notes.append(Warning("trim-from-table-mctc",
+                             "the profile has no KML: trim is worked from the tabulated MCTC (made with BML, "
+                             "not the actual GML), so it is slightly too small", "caution"))
+    return Floating(hy, gm_solid, gm_fluid, mct, trim, t_aft, t_fwd, t_mid,
+                    _allowed_draft(vessel, condition), tuple(notes))
+
+
+def stage_curve(vessel: Vessel, weights: Weights, fs: FreeSurface, floating: Floating, correction: str) -> Curve:
+    """Stage 4: GZ heeling to starboard and to port on the fine grid, and the list.
+
+    KN at the table-equivalent displacement (:func:`~deckload.core.gz.kn_curve`), then
+    GZ(φ) = KN(φ) − KG_fluid·sinφ ∓ TCG·cosφ with ``constant`` correction (standards.md
+    §4.3, §6.3), or GZ(φ) = KN(φ) − KG_solid·sinφ − Σρ·M(φ)/Δ ∓ TCG·cosφ with the
+    actual volumetric moment of fluid transfer M of each counted tank (``transfer``;
+    IS 2008 Part B 3.1, standards.md §4.1).  The transfer tables are for heel to
+    starboard; heeling to port a paired tank behaves as its mirror image, the
+    partner, heeled to starboard.  The curve stops at the KN table's last angle.
+
+    The criteria side is the side G lies to.  The list is where that side's curve
+    rises through zero: tanφ = TCG/GM fluid for small angles (standards.md §6.3) and
+    still right at large ones, where the small-angle formula overstates it; with
+    GM ≤ 0 it is the angle of loll.
+    """
+    w = weights.total
+    disp = w.mass_t
+    kn = gzmod.kn_curve(vessel.cross_curves, floating.hydrostatics.table_displacement_t)
+    # The curve stops at the KN table's last angle (booklets may end at 60°): cut the grid.
+    n_grid = len(kn)
+    fine_deg, fine_rad = gzmod.FINE_DEG[:n_grid], gzmod.FINE_RAD[:n_grid]
+    sin, cos = gzmod.SIN[:n_grid], gzmod.COS[:n_grid]
+    notes: list[Warning] = []
+    if correction == "transfer":
+        # The upright (0°) inertia still gives GM fluid; the curve takes the actual
+        # moment of fluid transfer of each counted tank at each heel.
+        shift_stbd = np.zeros_like(kn)
+        shift_port = np.zeros_like(kn)
+        no_geometry = []
+        for c, t in zip(weights.contents, fs.per_tank):
+            if t.basis == BASIS_NONE:
+                continue
+            if c.tank.transfer is None:
+                no_geometry.append(c.tank.id)
+            m_stbd = transfer_moment_m4(c.tank, t.basis, c.fill_pct, fine_rad)
+            mirror = vessel.tank(c.tank.pair) if c.tank.pair else None
+            m_port = (transfer_moment_m4(mirror, t.basis, c.fill_pct, fine_rad)
+                      if mirror is not None and mirror.transfer is not None else m_stbd)
+            shift_stbd += c.density_t_m3 * m_stbd
+            shift_port += c.density_t_m3 * m_port
+        base_stbd = kn - w.vcg_m * sin - shift_stbd / disp
+        base_port = kn - w.vcg_m * sin - shift_port / disp
+        if no_geometry:
+            notes.append(Warning("fs-no-geometry",
+                                 "no tank geometry for " + ", ".join(no_geometry)
+                                 + ": their transfer is taken as i·sinφ", "caution"))
+    else:
+        base_stbd = base_port = kn - fs.kg_fluid_m * sin
+    gz_stbd = base_stbd - w.tcg_m * cos
+    gz_port = base_port + w.tcg_m * cos
+    side = "port" if w.tcg_m < 0 else "starboard"
+    f = gzmod.facts(gz_port if side == "port" else gz_stbd)
+    heel = f.equilibrium_deg if side == "starboard" else -f.equilibrium_deg
+    return Curve(correction, fine_deg, gz_stbd, gz_port, side, f, heel, tuple(notes))
+
+
+def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: FreeSurface,
+                   floating: Floating, curve: Curve) -> Assessment:
+    """Stage 5: the measures on the low-side curve and every criteria set that applies.
+
+    Areas under GZ by the trapezoidal rule on the 0.1° grid, in m·rad (standards.md
+    §6.3): 0–30°, 0–40° (or 0–θf when θf < 40°, IS 2008 Part A 2.2.1) and their
+    difference; the largest GZ from 30° up to θf (or 90°) for "GZ ≥ 0.20 m at 30° or
+    more" (common practice: conservative); the angle of maximum GZ (0 when GZ is
+    never positive); the area to that angle (or θf) for IS 2008 Part B 2.4.5.  θf and
+    the limiting KG/GM are read at the table-equivalent displacement, like the KN
+    they are made with.  The sets themselves are :func:`~deckload.core.verdict.assess`'s;
+    a curve that stops before 90° leaves undecided what lies beyond it
+    (:func:`_short_curve`).
+    """
+    disp = weights.total.mass_t
+    table_disp = floating.hydrostatics.table_displacement_t
+    kg_fluid, gm_fluid = fs.kg_fluid_m, floating.gm_fluid_m
+    gz, f = curve.gz_lee_m, curve.facts
+    notes: list[Warning] = []
+    # Both curves are tabulated against displacement at the table density, like the KN
+    # curves they are made with: the same waterline, so the same equivalent displacement.
+    flood = _curve_limit(vessel.downflooding, table_disp)
+    if vessel.downflooding is not None and flood is None:
+        notes.append(Warning("downflooding-range",
+                             f"displacement {disp:.1f} t is outside the downflooding-angle curve: θf is unknown "
+                             "and the criteria are worked to 40° as if there were no openings", "danger"))
+    elif flood is not None and flood < 30.0:
+        notes.append(Warning("downflooding-low",
+                             f"downflooding angle θf {flood:.1f}° is below 30°: openings immerse before 30°, "
+                             "so the 30°–θf area is nil", "danger"))
+    top = min(40.0, flood) if flood is not None else 40.0
+    a30 = gzmod.area_to(gz, 30.0)
+    a40 = gzmod.area_to(gz, top)
+    a3040 = a40 - a30 if top > 30.0 else 0.0
+    hi = max(30.0, flood) if flood is not None else 90.0
+    k30 = int(round(30.0 / gzmod.STEP_DEG))
+    khi = int(round(hi / gzmod.STEP_DEG))
+    gz30 = float(np.max(gz[k30 : khi + 1]))
+
+    # A curve with no positive GZ has no meaningful 'angle of maximum': it fails 2.2.3.
+    angle_of_max = f.max_gz_angle_deg if f.max_gz_m > 0.0 else 0.0
+    # Area to the angle of maximum GZ (or θf if less), for the OSV set of Part B 2.4.5.
+    a_max = gzmod.area_to(gz, min(angle_of_max, flood) if flood is not None else angle_of_max)
+    measures = Measures(a30, a40, a3040, gz30, angle_of_max, gm_fluid, a_max)
+    limit_rows = []
+    if vessel.limit_curve is not None:
+        lim = _curve_limit(vessel.limit_curve, table_disp)
+        if lim is None:
+            notes.append(Warning("limit-curve-range",
+                                 f"displacement {disp:.1f} t is outside the limiting curve: that check was not made",
+                                 "danger"))
+        else:
+            limit_rows.append(limit_curve_criterion(vessel.limit_curve.kind, lim, kg_fluid, gm_fluid))
+    deck_edge, deck_edge_note = deck_edge_angle(vessel, table_disp, floating.draft_mid_m)
+    if deck_edge_note:
+        notes.append(Warning("deck-edge-approximate", deck_edge_note, "caution"))
+    afloat = Afloat(
+        displacement_t=disp, water_density_t_m3=condition.water_density_t_m3, draft_mid_m=floating.draft_mid_m,
+        kg_fluid_m=kg_fluid, gm_fluid_m=gm_fluid, heel_deg=curve.heel_deg, gz_lee_m=gz,
+        gz_other_m=curve.gz_other_m, flood_deg=flood, deck_edge_deg=deck_edge,
+        measures=measures, max_gz_m=f.max_gz_m, vanishing_deg=f.vanishing_angle_deg,
+        equilibrium_deg=f.equilibrium_deg, has_deck_cargo=bool(condition.deck_items),
+        deck_windage=tuple((d.windage_area_m2, d.windage_centroid_z_m) for d in condition.deck_items
+                           if d.windage_area_m2 is not None and d.windage_centroid_z_m is not None),
+        deck_items_without_windage=tuple(d.name for d in condition.deck_items
+                                         if d.windage_area_m2 is None or d.windage_centroid_z_m is None),
+    )
+    verdict = assess(vessel, afloat, limit_rows)
+    criteria = list(verdict.criteria)
+    if curve.end_deg < 90.0 - 1e-9:
+        criteria = _short_curve(criteria, curve.end_deg, hi, top, f.max_gz_angle_deg)
+    for note in verdict.cautions:
+        code = "weather-not-assessed" if "not assessed" in note else "verdict-note"
+        notes.append(Warning(code, note, "caution"))
+    return Assessment(flood, a30, a40, a3040, tuple(criteria), verdict, deck_edge, tuple(notes))
+
+
+def stage_warnings(vessel: Vessel, condition: Condition, weights: Weights, fs: FreeSurface,
+                   floating: Floating, curve: Curve, assessment: Assessment) -> tuple[Warning, ...]:
+    """Stage 6: every caution and danger of the condition, checks first, then the stages' notes.
+
+    The checks (:func:`_warnings`): each criterion not assessed, failed, or within
+    10 % of its limit; tanks in their worst slack band; a list over 2° (both thresholds
+    deckload's own); the midships draft over the permitted load-line
+    draft; deck loads per m² over the area's limit, item by item and area by area;
+    hold loads over the hold's limit.  Then the notes of stages 1–5 in order, then
+    GM fluid ≤ 0 (she lolls to the list's side), no equilibrium (GZ never positive),
+    and the ``actual`` free-surface rule (the consumables' allowance is off).
+    """
+    notes = [*weights.notes, *floating.notes, *curve.notes, *assessment.notes]
+    if floating.gm_fluid_m <= 0.0:
+        notes.append(Warning("negative-gm",
+                             f"GM fluid {floating.gm_fluid_m:.3f} m is not positive: she lolls, about "
+                             f"{abs(curve.list_deg):.1f}° to {curve.side}", "danger"))
+    if curve.facts.equilibrium_deg >= 90.0:
+        notes.append(Warning("no-equilibrium", "GZ never becomes positive: no position of equilibrium", "danger"))
+    if fs.rule == "actual":
+        notes.append(Warning("fs-rule-actual",
+                             "free surface at actual levels (IS 2008 B 3.1.6): the B 3.1.3–3.1.4 allowance "
+                             "for consumables is off", "caution"))
+    checks = _warnings(vessel, condition, fs.tanks, assessment.criteria, weights.items, curve.list_deg,
+                       floating.draft_mid_m, floating.load_line)
+    return tuple(checks + notes)
+
+
+def _result(vessel: Vessel, condition: Condition, weights: Weights, fs: FreeSurface, floating: Floating,
+            curve: Curve, assessment: Assessment, warnings: tuple[Warning, ...]) -> Result:
+    """The stages' outputs as one :class:`Result` (GZ kept at whole degrees)."""
+    w, hy, f, verdict = weights.total, floating.hydrostatics, curve.facts, assessment.verdict
+    allowed = floating.load_line
+    return Result(
+        vessel_name=vessel.particulars.name,
+        condition_name=condition.name,
+        water_density_t_m3=condition.water_density_t_m3,
+        displacement_t=w.mass_t,
+        lightship_t=vessel.lightship.mass_t,
+        deadweight_t=w.mass_t - vessel.lightship.mass_t,
+        lcg_m=w.lcg_m,
+        kg_m=w.vcg_m,
+        tcg_m=w.tcg_m,
+        fsm_total_tm=fs.fsm_total_tm,
+        fsc_m=fs.fsc_m,
+        kg_fluid_m=fs.kg_fluid_m,
+        draft_at_lcf_m=hy.draft_m,
+        lcb_m=hy.lcb_m,
+        lcf_m=hy.lcf_m,
+        km_m=hy.kmt_m,
+        tpc_t_cm=hy.tpc_t_cm,
+        mctc_tm_cm=floating.trim_moment.mctc_tm_cm,
+        gm_solid_m=floating.gm_solid_m,
+        gm_fluid_m=floating.gm_fluid_m,
+        trim_m=floating.trim_m,
+        draft_aft_m=floating.draft_aft_m,
+        draft_fwd_m=floating.draft_fwd_m,
+        draft_mean_m=floating.draft_mid_m,
+        list_deg=curve.list_deg,
+        gz_heel_deg=tuple(curve.heel_deg[gzmod.WHOLE_DEGREES].tolist()),
+        gz_m=tuple(curve.gz_stbd_m[gzmod.WHOLE_DEGREES].tolist()),
+        gz_port_m=tuple(curve.gz_port_m[gzmod.WHOLE_DEGREES].tolist()),
+        criteria_side=curve.side,
+        gz_correction=curve.correction,
+        fs_rule=fs.rule,
+        max_gz_m=f.max_gz_m,
+        max_gz_angle_deg=f.max_gz_angle_deg,
+        vanishing_angle_deg=f.vanishing_angle_deg,
+        downflooding_angle_deg=assessment.flood_deg,
+        area_0_30_mrad=assessment.area_0_30_mrad,
+        area_0_40_mrad=assessment.area_0_40_mrad,
+        area_30_40_mrad=assessment.area_30_40_mrad,
+        criteria=assessment.criteria,
+        gz_end_deg=curve.end_deg,
+        tanks=fs.tanks,
+        items=weights.items,
+        warnings=warnings,
+        criteria_sets=verdict.sets,
+        not_assessed=verdict.not_assessed,
+        weather=verdict.weather,
+        deck_edge_angle_deg=assessment.deck_edge_deg,
+        freeboard_m=vessel.particulars.depth_m - floating.draft_mid_m,
+        load_line_margin_m=None if allowed is None or allowed[1] is None else allowed[1] - floating.draft_mid_m,
+    )
+
+
+# --------------------------------------------------------------------------- helpers of the stages
 
 
 def _items(vessel: Vessel, condition: Condition) -> list[ItemResult]:
@@ -71,228 +525,6 @@ def _curve_limit(curve, displacement_t: float) -> float | None:
         return interp(curve.displacement_t, curve.value, displacement_t, "displacement", "t")
     except OutOfRangeError:
         return None
-
-
-@bounded
-def evaluate(vessel: Vessel, condition: Condition) -> Result:
-    """Complete intact-stability state of ``vessel`` in ``condition``.
-
-    Raises :class:`~deckload.core.loading.LoadingError` for a condition that does not
-    fit the vessel and :class:`~deckload.core.tables.OutOfRangeError` when the
-    displacement lies outside the hydrostatic or cross-curve tables.
-    """
-    rho_w = condition.water_density_t_m3
-    fs_rule = condition.fs_rule or vessel.free_surface.rule
-    correction = condition.gz_correction or vessel.free_surface.gz_correction
-
-    items = _items(vessel, condition)
-    # soundings taken trimmed or listed → the even-keel soundings of the same volumes (core/soundings.py)
-    levelled, s_done, s_not = level_soundings(vessel, condition)
-    contents = resolve_tanks(vessel, levelled)
-    w = sum_weights(items, contents)
-    disp = w.mass_t
-
-    fs = free_surface(vessel, contents, fs_rule)
-    fsm_total = sum(t.fsm_tm for t in fs)
-    fsc = fsm_total / disp
-    kg_fluid = w.vcg_m + fsc
-
-    hy = upright(vessel, disp, rho_w)
-    gm_solid = hy.kmt_m - w.vcg_m
-    gm_fluid = hy.kmt_m - kg_fluid
-    # MCT from the actual GM_L where the profile has KM_L (core/trim.py)
-    mct = trim_moment(vessel, hy, disp, kg_fluid)
-    trim = trim_m(disp, w.lcg_m, hy.lcb_m, mct.mctc_tm_cm)
-    lbp = vessel.particulars.lbp_m
-    t_aft = draft_at(0.0, hy.draft_m, hy.lcf_m, trim, lbp)
-    t_fwd = draft_at(lbp, hy.draft_m, hy.lcf_m, trim, lbp)
-    t_mid = draft_at(lbp / 2.0, hy.draft_m, hy.lcf_m, trim, lbp)
-
-    kn = gzmod.kn_curve(vessel.cross_curves, hy.table_displacement_t)
-    # The curve stops at the KN table's last angle (booklets may end at 60°): cut the grid.
-    n_grid = len(kn)
-    fine_deg, fine_rad = gzmod.FINE_DEG[:n_grid], gzmod.FINE_RAD[:n_grid]
-    sin, cos = gzmod.SIN[:n_grid], gzmod.COS[:n_grid]
-    gz_end = float(fine_deg[-1])
-    warnings: list[Warning] = [Warning(code, msg, "caution") for code, msg in sounding_note(condition, s_done, s_not)]
-    trim_note = even_keel_note(trim, lbp)
-    if trim_note is not None:
-        warnings.append(Warning("trim-beyond-tables", trim_note, "caution"))
-    kn_note = kn_reference_note(vessel.cross_curves, w.lcg_m, vessel.particulars.lbp_m)
-    if kn_note is not None:
-        warnings.append(Warning("kn-reference-lcg", kn_note, "caution"))
-    if mct.basis == BASIS_TABLE:
-        warnings.append(Warning("trim-from-table-mctc",
-                                "the profile has no KML: trim is worked from the tabulated MCTC (made with BML, "
-                                "not the actual GML), so it is slightly too small", "caution"))
-    if correction == "transfer":
-        # The upright (0°) inertia still gives GM fluid; the curve takes the actual
-        # moment of fluid transfer of each counted tank at each heel.  The tables are
-        # for heel to starboard; heeling to port, a paired tank behaves as its mirror
-        # image, the partner, heeled to starboard.
-        shift_stbd = np.zeros_like(kn)
-        shift_port = np.zeros_like(kn)
-        no_geometry = []
-        for c, t in zip(contents, fs):
-            if t.basis == BASIS_NONE:
-                continue
-            if c.tank.transfer is None:
-                no_geometry.append(c.tank.id)
-            m_stbd = transfer_moment_m4(c.tank, t.basis, c.fill_pct, fine_rad)
-            mirror = vessel.tank(c.tank.pair) if c.tank.pair else None
-            m_port = (transfer_moment_m4(mirror, t.basis, c.fill_pct, fine_rad)
-                      if mirror is not None and mirror.transfer is not None else m_stbd)
-            shift_stbd += c.density_t_m3 * m_stbd
-            shift_port += c.density_t_m3 * m_port
-        base_stbd = kn - w.vcg_m * sin - shift_stbd / disp
-        base_port = kn - w.vcg_m * sin - shift_port / disp
-        if no_geometry:
-            warnings.append(Warning("fs-no-geometry",
-                                    "no tank geometry for " + ", ".join(no_geometry)
-                                    + ": their transfer is taken as i·sinφ", "caution"))
-    else:
-        base_stbd = base_port = kn - kg_fluid * sin
-    gz_stbd = base_stbd - w.tcg_m * cos
-    gz_port = base_port + w.tcg_m * cos
-    side = "port" if w.tcg_m < 0 else "starboard"
-    gz = gz_port if side == "port" else gz_stbd
-
-    # Both curves are tabulated against displacement at the table density, like the KN
-    # curves they are made with: the same waterline, so the same equivalent displacement.
-    flood = _curve_limit(vessel.downflooding, hy.table_displacement_t)
-    if vessel.downflooding is not None and flood is None:
-        warnings.append(Warning("downflooding-range",
-                                f"displacement {disp:.1f} t is outside the downflooding-angle curve: θf is unknown "
-                                "and the criteria are worked to 40° as if there were no openings", "danger"))
-    elif flood is not None and flood < 30.0:
-        warnings.append(Warning("downflooding-low",
-                                f"downflooding angle θf {flood:.1f}° is below 30°: openings immerse before 30°, "
-                                "so the 30°–θf area is nil", "danger"))
-    f = gzmod.facts(gz)
-    top = min(40.0, flood) if flood is not None else 40.0
-    a30 = gzmod.area_to(gz, 30.0)
-    a40 = gzmod.area_to(gz, top)
-    a3040 = a40 - a30 if top > 30.0 else 0.0
-    hi = max(30.0, flood) if flood is not None else 90.0
-    k30 = int(round(30.0 / gzmod.STEP_DEG))
-    khi = int(round(hi / gzmod.STEP_DEG))
-    gz30 = float(np.max(gz[k30 : khi + 1]))
-
-    # A curve with no positive GZ has no meaningful 'angle of maximum': it fails 2.2.3.
-    angle_of_max = f.max_gz_angle_deg if f.max_gz_m > 0.0 else 0.0
-    # Area to the angle of maximum GZ (or θf if less), for the OSV set of Part B 2.4.5.
-    a_max = gzmod.area_to(gz, min(angle_of_max, flood) if flood is not None else angle_of_max)
-    measures = Measures(a30, a40, a3040, gz30, angle_of_max, gm_fluid, a_max)
-    limit_rows = []
-    if vessel.limit_curve is not None:
-        lim = _curve_limit(vessel.limit_curve, hy.table_displacement_t)
-        if lim is None:
-            warnings.append(Warning("limit-curve-range",
-                                    f"displacement {disp:.1f} t is outside the limiting curve: that check was not made",
-                                    "danger"))
-        else:
-            limit_rows.append(limit_curve_criterion(vessel.limit_curve.kind, lim, kg_fluid, gm_fluid))
-    deck_edge, deck_edge_note = deck_edge_angle(vessel, hy.table_displacement_t, t_mid)
-    if deck_edge_note:
-        warnings.append(Warning("deck-edge-approximate", deck_edge_note, "caution"))
-    afloat = Afloat(
-        displacement_t=disp, water_density_t_m3=rho_w, draft_mid_m=t_mid, kg_fluid_m=kg_fluid,
-        gm_fluid_m=gm_fluid, heel_deg=fine_deg, gz_lee_m=gz,
-        gz_other_m=gz_stbd if side == "port" else gz_port, flood_deg=flood, deck_edge_deg=deck_edge,
-        measures=measures, max_gz_m=f.max_gz_m, vanishing_deg=f.vanishing_angle_deg,
-        equilibrium_deg=f.equilibrium_deg, has_deck_cargo=bool(condition.deck_items),
-        deck_windage=tuple((d.windage_area_m2, d.windage_centroid_z_m) for d in condition.deck_items
-                           if d.windage_area_m2 is not None and d.windage_centroid_z_m is not None),
-        deck_items_without_windage=tuple(d.name for d in condition.deck_items
-                                         if d.windage_area_m2 is None or d.windage_centroid_z_m is None),
-    )
-    verdict = assess(vessel, afloat, limit_rows)
-    criteria = list(verdict.criteria)
-    if gz_end < 90.0 - 1e-9:
-        criteria = _short_curve(criteria, gz_end, hi, top, f.max_gz_angle_deg)
-    for note in verdict.cautions:
-        code = "weather-not-assessed" if "not assessed" in note else "verdict-note"
-        warnings.append(Warning(code, note, "caution"))
-
-    # The list is where the GZ curve on the low side rises through zero: for small
-    # angles this is tanφ = TCG/GM fluid (standards.md §6.3), and it stays right at
-    # large angles, where the small-angle formula overstates the list.
-    heel = f.equilibrium_deg if side == "starboard" else -f.equilibrium_deg
-    if gm_fluid <= 0.0:
-        warnings.append(Warning("negative-gm",
-                                f"GM fluid {gm_fluid:.3f} m is not positive: she lolls, about "
-                                f"{abs(heel):.1f}° to {side}", "danger"))
-    if f.equilibrium_deg >= 90.0:
-        warnings.append(Warning("no-equilibrium", "GZ never becomes positive: no position of equilibrium", "danger"))
-
-    tanks = tuple(
-        TankResult(
-            id=c.tank.id, name=c.tank.name, kind=c.tank.kind, fill_pct=c.fill_pct, volume_m3=c.volume_m3,
-            mass_t=c.mass_t, density_t_m3=c.density_t_m3, lcg_m=c.lcg_m,
-            sounding_m=c.sounding_m if c.tank.level_known else None,
-            vcg_m=c.vcg_m, tcg_m=c.tcg_m, fsi_m4=c.fsi_m4, fsm_tm=t.fsm_tm, fs_rule=t.rule, state=t.state,
-            worst_band_pct=c.tank.worst_band_pct, capacity_m3=c.tank.capacity_m3,
-        )
-        for c, t in zip(contents, fs)
-    )
-    if fs_rule == "actual":
-        warnings.append(Warning("fs-rule-actual",
-                                "free surface at actual levels (IS 2008 B 3.1.6): the B 3.1.3–3.1.4 allowance "
-                                "for consumables is off", "caution"))
-    allowed = _allowed_draft(vessel, condition)
-    warnings = _warnings(vessel, condition, tanks, criteria, items, heel, t_mid, allowed) + warnings
-
-    return Result(
-        vessel_name=vessel.particulars.name,
-        condition_name=condition.name,
-        water_density_t_m3=rho_w,
-        displacement_t=disp,
-        lightship_t=vessel.lightship.mass_t,
-        deadweight_t=disp - vessel.lightship.mass_t,
-        lcg_m=w.lcg_m,
-        kg_m=w.vcg_m,
-        tcg_m=w.tcg_m,
-        fsm_total_tm=fsm_total,
-        fsc_m=fsc,
-        kg_fluid_m=kg_fluid,
-        draft_at_lcf_m=hy.draft_m,
-        lcb_m=hy.lcb_m,
-        lcf_m=hy.lcf_m,
-        km_m=hy.kmt_m,
-        tpc_t_cm=hy.tpc_t_cm,
-        mctc_tm_cm=mct.mctc_tm_cm,
-        gm_solid_m=gm_solid,
-        gm_fluid_m=gm_fluid,
-        trim_m=trim,
-        draft_aft_m=t_aft,
-        draft_fwd_m=t_fwd,
-        draft_mean_m=t_mid,
-        list_deg=heel,
-        gz_heel_deg=tuple(fine_deg[gzmod.WHOLE_DEGREES].tolist()),
-        gz_m=tuple(gz_stbd[gzmod.WHOLE_DEGREES].tolist()),
-        gz_port_m=tuple(gz_port[gzmod.WHOLE_DEGREES].tolist()),
-        criteria_side=side,
-        gz_correction=correction,
-        fs_rule=fs_rule,
-        max_gz_m=f.max_gz_m,
-        max_gz_angle_deg=f.max_gz_angle_deg,
-        vanishing_angle_deg=f.vanishing_angle_deg,
-        downflooding_angle_deg=flood,
-        area_0_30_mrad=a30,
-        area_0_40_mrad=a40,
-        area_30_40_mrad=a3040,
-        criteria=tuple(criteria),
-        gz_end_deg=gz_end,
-        tanks=tanks,
-        items=tuple(items),
-        warnings=tuple(warnings),
-        criteria_sets=verdict.sets,
-        not_assessed=verdict.not_assessed,
-        weather=verdict.weather,
-        deck_edge_angle_deg=deck_edge,
-        freeboard_m=vessel.particulars.depth_m - t_mid,
-        load_line_margin_m=None if allowed is None or allowed[1] is None else allowed[1] - t_mid,
-    )
 
 
 def _allowed_draft(vessel: Vessel, condition: Condition):

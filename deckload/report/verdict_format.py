@@ -12,6 +12,12 @@ import math
 import textwrap
 from dataclasses import dataclass
 
+# The caution every printed or shown output carries (README, "Safety").
+CAUTION = (
+    "deckload supports, and never replaces, the approved stability booklet, the master's "
+    "judgement and flag-State and class rules."
+)
+
 from deckload.core.result import AssessedSet, CriterionResult, Result
 
 NOT_ASSESSABLE = "not assessable"

@@ -1,0 +1,313 @@
+"""The :class:`Logbook` of one vessel: the lock, the store and the chain put together.
+
+:meth:`Logbook.open` takes the writer's lock (:mod:`.lock`); a writer then opens the log
+for appending, sets a torn tail aside and brings the head record forward
+(:mod:`.storage`) — unless the head record contradicts the log (:mod:`.chain`), when it
+stays read-only rather than write over that evidence.  :meth:`Logbook.append` builds the
+next chained line (:mod:`.records`) and returns only once it is on disk.
+"""
+
+from __future__ import annotations
+
+import os
+from datetime import datetime
+from pathlib import Path
+from typing import Callable
+
+from deckload.core.model import Condition
+from deckload.core.result import Result
+from deckload.io.limits import MAX_LOG_LINE_BYTES
+from deckload.io.paths import vessel_slug
+from deckload.io.textsafe import control_char
+from deckload.logbook import lock as locking
+from deckload.logbook.chain import GENESIS_SHA256, VerifyReport, find_anchor, head_disagreement, verify_lines
+from deckload.logbook.clock import configured_offset, format_offset, format_utc, parse_offset, utc_now
+from deckload.logbook.lock import LogLockedError, WriterLock
+from deckload.logbook.records import (
+    FORMAT,
+    KINDS,
+    LogEntry,
+    LogFormatError,
+    _dumps,
+    _entry_from_line,
+    condition_record,
+    sha256_hex,
+    summarise,
+    validate_initials,
+)
+from deckload.logbook.storage import LogStore, TornRecovery, _split_lines
+
+
+class Logbook:
+    """One vessel's voyage log.  Open with :meth:`open`; close with :meth:`close`."""
+
+    readonly: bool
+    readonly_reason: str
+    path: Path
+    vessel_name: str
+    recovered_torn: TornRecovery | None
+    ship_clock: str | None
+
+    def __init__(self) -> None:  # use Logbook.open
+        self._store: LogStore | None = None
+        self._lock: WriterLock | None = None
+        self._last_seq = 0
+        self._last_sha = GENESIS_SHA256
+        self._cache: tuple[tuple[int, int], list[LogEntry]] | None = None
+        self.skipped: list[str] = []
+        """Lines :meth:`entries` could not read at its last call, each naming its line."""
+        self.head_problem: str | None = None
+        """Set when an append reached the disk but the head record could not be updated."""
+        self._clock: Callable[[], datetime] = utc_now
+
+    # ----------------------------------------------------------------- opening
+
+    @classmethod
+    def open(
+        cls,
+        directory: Path,
+        vessel_name: str,
+        *,
+        readonly: bool = False,
+        ship_offset: str | None = None,
+        clock: Callable[[], datetime] | None = None,
+    ) -> "Logbook":
+        """Open (creating the folder and file for a writer) the log of ``vessel_name``.
+
+        ``ship_offset`` ('+HH:MM') fixes the ship's clock offset; otherwise
+        ``$DECKLOAD_SHIP_OFFSET``, otherwise the local timezone.  ``clock`` replaces
+        :func:`utc_now` (tests).  If another process holds the writer's lock the log
+        opens read-only with :attr:`readonly_reason` saying so.
+        """
+        self = cls()
+        directory = Path(directory)
+        slug = vessel_slug(vessel_name)
+        self.vessel_name = vessel_name
+        self.path = directory / f"{slug}.log.jsonl"
+        self.head_path = directory / f"{slug}.log.head.json"
+        self.lock_path = directory / f"{slug}.log.lock"
+        self._store = LogStore(self.path, self.head_path)
+        self._lock = WriterLock(self.lock_path)
+        self.recovered_torn = None
+        self.ship_clock = format_offset(parse_offset(ship_offset)) if ship_offset else None
+        if clock is not None:
+            self._clock = clock
+        self.readonly = True
+        self.readonly_reason = "opened read-only on request"
+        if not readonly:
+            directory.mkdir(parents=True, exist_ok=True)
+            holder = self._lock.acquire()
+            if holder is None:
+                self.readonly = False
+                self.readonly_reason = ""
+                try:
+                    self._open_for_append()
+                except BaseException:
+                    self.close()
+                    raise
+            else:
+                self.readonly_reason = (
+                    f"another deckload process ({holder}) is writing this log; opened read-only"
+                )
+        return self
+
+    def _open_for_append(self) -> None:
+        """Under the lock: set aside a torn tail, bring the head record up to date.
+
+        If the head record disagrees with the log (the newest entries gone, or the
+        last one changed) nothing is written: appending would overwrite that evidence.
+        The log then stays read-only and the reason says what to do.
+        """
+        if self._store.open_for_append() and not self.head_path.exists():
+            # The head record exists from the start (seq 0, the genesis hash), so that a log
+            # with entries and no head record always means the head was deleted.
+            self._write_head()
+        lines, torn = self._store.scan()
+        head = self._store.read_head()
+        problem = head_disagreement(head, lines)
+        if problem is not None:
+            self.close()
+            self.readonly = True
+            self.readonly_reason = (
+                f"{problem}; nothing will be written to this log until that is looked into "
+                f"(run 'deckload log verify'; to start a fresh log, move {self.path.name} and "
+                f"{self.head_path.name} aside)"
+            )
+            return
+        if torn:
+            self.recovered_torn = self._store.set_aside_torn(torn, len(lines) + 1, self._clock())
+        if lines:
+            self._last_sha = sha256_hex(lines[-1])
+            try:
+                self._last_seq = _entry_from_line(lines[-1], len(lines)).seq
+            except LogFormatError:
+                self._last_seq = len(lines)
+            if head is None or head.get("seq") != self._last_seq:
+                self._write_head()
+
+    def _write_head(self) -> None:
+        self._store.write_head(self._last_seq, self._last_sha)
+
+    # ----------------------------------------------------------------- writing
+
+    def append(
+        self,
+        *,
+        kind: str,
+        by: str,
+        change_text: str,
+        change_data: dict,
+        result: Result | None,
+        condition: Condition | None,
+        remark: str = "",
+    ) -> LogEntry:
+        """Append one entry; returns only after the line is on disk (write, fsync).
+
+        Raises :class:`LogLockedError` when read-only and ``ValueError`` for bad input
+        (unknown kind, initials not 1–4 letters, empty change text, data not JSON).
+        """
+        if self.readonly or self._store is None or self._store.fd is None:
+            raise LogLockedError(f"{self.path.name}: {self.readonly_reason or 'log is closed'}")
+        if kind not in KINDS:
+            raise ValueError(f"kind {kind!r} is not one of: {', '.join(KINDS)}")
+        initials = validate_initials(by)
+        if not isinstance(change_text, str) or not change_text.strip():
+            raise ValueError("change text must say what changed (it is empty)")
+        for what, text in (("change text", change_text), ("remark", remark)):
+            if not isinstance(text, str) or len(text) > 2000:
+                raise ValueError(f"{what}: at most 2000 characters of text")
+            bad = control_char(text)
+            if bad is not None:
+                raise ValueError(f"{what} holds the control character {bad}: type plain text")
+        if not isinstance(change_data, dict):
+            raise ValueError(f"change data must be a mapping, not {type(change_data).__name__}")
+        now = self._clock()
+        if now.tzinfo is None:
+            raise ValueError("the clock returned a time without a timezone")
+        offset = parse_offset(self.ship_clock) if self.ship_clock else configured_offset()
+        record = {
+            "format": FORMAT,
+            "seq": self._last_seq + 1,
+            "utc": format_utc(now),
+            "ship_clock": format_offset(offset),
+            "vessel": self.vessel_name,
+            "by": initials,
+            "kind": kind,
+            "change": change_text.strip(),
+            "change_data": change_data,
+            "remark": remark.strip(),
+            "summary": None if result is None else summarise(result),
+            "condition": None if condition is None else condition_record(condition),
+            "prev_sha256": self._last_sha,
+        }
+        try:
+            text = _dumps(record)
+        except (TypeError, ValueError) as exc:
+            raise ValueError(f"change data cannot be stored as JSON: {exc}") from None
+        line = text.encode("utf-8")
+        if len(line) > MAX_LOG_LINE_BYTES:
+            raise ValueError(f"the entry would be {len(line)} bytes, more than the {MAX_LOG_LINE_BYTES} allowed")
+        self._store.append_line(line)
+        self._last_seq += 1
+        self._last_sha = sha256_hex(line)
+        try:
+            self._write_head()
+        except OSError as exc:
+            # The entry itself is on disk; a head record left behind is brought forward at
+            # the next open (it still names an entry the later lines chain from).
+            self.head_problem = f"head record not updated: {exc}"
+        return _entry_from_line(line, self._last_seq)
+
+    # ----------------------------------------------------------------- reading
+
+    def _read(self) -> bytes:
+        return self._store.read()
+
+    def find(self, anchor_text: str) -> tuple[int, int] | None:
+        """Where a printed copy's anchor (SHA-256 or its first 12+ hex digits, optionally 'N:HASH')
+        is in this log: (line number, entry number), else None.  ValueError for a malformed anchor."""
+        return find_anchor(_split_lines(self._read())[0], anchor_text)
+
+    def entries(self) -> list[LogEntry]:
+        """Every complete, readable entry, oldest first.
+
+        An unterminated last line is left out (it is being written, or torn).  An
+        unreadable line is left out too and named in :attr:`skipped`, so a view can
+        say so; :meth:`verify` gives the full account.
+        """
+        try:
+            st = os.stat(self.path)
+        except FileNotFoundError:
+            self.skipped = []
+            return []
+        key = (st.st_size, st.st_mtime_ns)
+        if self._cache is None or self._cache[0] != key:
+            lines, _tail = _split_lines(self._read())
+            out: list[LogEntry] = []
+            skipped: list[str] = []
+            for i, line in enumerate(lines, start=1):
+                try:
+                    out.append(_entry_from_line(line, i))
+                except LogFormatError as exc:
+                    skipped.append(str(exc))
+            self._cache = (key, out)
+            self.skipped = skipped
+        return list(self._cache[1])
+
+    def writer_active(self) -> bool:
+        """True when some process (this one included) holds the writer's lock."""
+        if self._lock is not None and self._lock.held:
+            return True
+        return locking.writer_active(self.lock_path)
+
+    def verify(self) -> VerifyReport:
+        """Check the whole log: see :func:`~deckload.logbook.chain.verify_lines`."""
+        lines, tail = _split_lines(self._read())
+        head = self._store.read_head()
+        if not lines and not tail and head is None:
+            return VerifyReport(ok=True, problems=[], notes=["the log is empty"], entries=0)
+        if not self.path.exists() and head is not None:
+            return VerifyReport(ok=False, entries=0, notes=[], problems=[
+                f"{self.path.name}: missing, but its head record {self.head_path.name} names entry "
+                f"#{head.get('seq')} — the log was deleted or moved (tampering suspected)"])
+        return verify_lines(lines, tail, head, self.vessel_name,
+                            writer_active=self.writer_active() and not self._lock.held)
+
+    @property
+    def newest(self) -> tuple[int, str] | None:
+        """The newest entry's number and SHA-256 as this writer knows them (None: no entry yet)."""
+        return (self._last_seq, self._last_sha) if self._last_seq > 0 else None
+
+    def close(self) -> None:
+        """Close the log and release the writer's lock."""
+        if self._store is not None:
+            self._store.close()
+        if self._lock is not None:
+            self._lock.release()
+
+    def __enter__(self) -> "Logbook":
+        return self
+
+    def __exit__(self, *exc) -> None:
+        self.close()
+
+    def __del__(self) -> None:
+        try:
+            self.close()
+        except Exception:
+            pass
+
+
+def anchor(directory: Path, vessel_name: str) -> tuple[int, str] | None:
+    """The newest entry's number and SHA-256 in a vessel's log (for printed copies), or None."""
+    try:
+        book = Logbook.open(Path(directory), vessel_name, readonly=True)
+    except OSError:
+        return None
+    try:
+        entries = book.entries()
+    except OSError:
+        return None
+    finally:
+        book.close()
+    return (entries[-1].seq, entries[-1].sha256) if entries else None

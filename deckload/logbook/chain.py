@@ -1,0 +1,227 @@
+"""The hash chain and its verification.
+
+Every line records the SHA-256 of the line before (``prev_sha256``; 64 zeros on line 1) and
+its own number (``seq``), so an edited line breaks the chain at the next line, and a removed,
+inserted or moved line breaks the numbering and the chain where it happened.  The newest
+line has nothing after it to record its hash: the head record (:mod:`.storage`) names it.
+:func:`verify_lines` gives the full account; :func:`head_disagreement` is the check a writer
+makes before it appends (it never writes over evidence); :func:`find_anchor` finds a paper
+copy's anchor in the log.
+"""
+
+from __future__ import annotations
+
+import json
+import re
+from dataclasses import dataclass, field
+
+from deckload.logbook.records import KINDS, LogFormatError, _entry_from_line, sha256_hex
+
+GENESIS_SHA256 = "0" * 64
+"""``prev_sha256`` of the first entry: there is no previous line."""
+
+
+@dataclass(frozen=True)
+class VerifyReport:
+    ok: bool
+    """True when every line reads and the chain and head record agree."""
+    problems: list[str]
+    """Each problem names the line and what is wrong."""
+    notes: list[str] = field(default_factory=list)
+    """Things worth knowing that do not break the chain (e.g. head record behind by one)."""
+    entries: int = 0
+    """Number of complete lines read."""
+    last_sha256: str = GENESIS_SHA256
+    """SHA-256 of the newest complete line: write it in the paper log to anchor the chain."""
+
+
+def verify_lines(
+    lines: list[bytes],
+    tail: bytes,
+    head: dict | None,
+    vessel_name: str | None,
+    writer_active: bool = False,
+) -> VerifyReport:
+    """Check the chain of ``lines`` (complete lines, no '\\n') and the head record.
+
+    Every line must parse; its ``seq`` must equal its line number and its
+    ``prev_sha256`` the SHA-256 of the line before.  An edited line changes its hash,
+    so the next line's ``prev_sha256`` no longer matches it; a removed, inserted or
+    moved line breaks both the numbering and the chain at the place it happened.
+    The newest line is checked against the head record.
+    """
+    problems: list[str] = []
+    notes: list[str] = []
+    prev_sha = GENESIS_SHA256
+    seqs: list[int | None] = []
+    offset = 0  # seq − line number: changes exactly where entries were removed, inserted or moved
+    for i, line in enumerate(lines, start=1):
+        try:
+            e = _entry_from_line(line, i)
+        except LogFormatError as exc:
+            problems.append(f"{exc} — the line was damaged or edited")
+            seqs.append(None)
+            prev_sha = sha256_hex(line)
+            continue
+        seqs.append(e.seq)
+        chained = e.prev_sha256 == prev_sha
+        if e.seq - i != offset:
+            offset = e.seq - i
+            before = seqs[-2] if len(seqs) > 1 else None
+            where = f"entry #{e.seq} follows entry #{before}" if before else f"entry #{e.seq}, expected #{i}"
+            problems.append(
+                f"line {i}: {where} — an entry was removed, inserted or moved here"
+                + ("" if chained else "; the hash chain breaks here too")
+            )
+        elif not chained and i == 1:
+            problems.append(
+                "line 1: prev_sha256 should be the genesis value (64 zeros) — line 1 was edited"
+            )
+        elif not chained:
+            problems.append(
+                f"line {i - 1}: edited — its SHA-256 is not the one line {i} records for it"
+            )
+        if vessel_name is not None and e.vessel != vessel_name:
+            problems.append(f"line {i}: vessel {e.vessel!r}, but this log belongs to {vessel_name!r}")
+        if e.kind not in KINDS:
+            problems.append(f"line {i}: kind {e.kind!r} is not one of {', '.join(KINDS)}")
+        prev_sha = sha256_hex(line)
+
+    seen: dict[int, int] = {}
+    for i, s in enumerate(seqs, start=1):
+        if s is None:
+            continue
+        if s in seen:
+            problems.append(f"line {i}: entry #{s} already appears on line {seen[s]} — a duplicate was inserted")
+        else:
+            seen[s] = i
+
+    n = len(lines)
+    if tail:
+        if writer_active:
+            notes.append(f"line {n + 1}: incomplete — another process is writing the log right now")
+        else:
+            problems.append(
+                f"line {n + 1}: incomplete last line ({len(tail)} bytes, no line end) — torn by a power "
+                f"cut or cut short; opening the log for writing sets it aside in a side file"
+            )
+
+    if head is None:
+        if n:
+            problems.append(
+                f"head record: missing, but the log has {n} entr{'y' if n == 1 else 'ies'} — it was deleted; "
+                "the newest entries may have been removed or edited without trace (tampering suspected)"
+            )
+    elif head.get("seq") == 0 and head.get("sha256") == GENESIS_SHA256:
+        if n:
+            notes.append(f"head record is {n} entr{'y' if n == 1 else 'ies'} behind (power cut between the first "
+                         "append and its head update); the lines chain correctly from the start")
+    else:
+        hseq, hsha = head.get("seq"), head.get("sha256")
+        if not isinstance(hseq, int) or isinstance(hseq, bool) or not isinstance(hsha, str):
+            problems.append("head record: damaged (no valid 'seq'/'sha256'); the newest entries cannot be checked")
+        else:
+            at = _line_of_seq(seqs, hseq)
+            top = max((q for q in seqs if q is not None), default=0)
+            if at is None and hseq > top:
+                problems.append(
+                    f"line {n + 1}: missing — the head record names entry #{hseq} but the log ends with "
+                    f"#{top} on line {n} (the newest entries were removed, or the file truncated)"
+                )
+            elif at is None:
+                problems.append(f"head record: names entry #{hseq}, which is not in the log (removed)")
+            elif sha256_hex(lines[at - 1]) != hsha:
+                problems.append(
+                    f"line {at}: its SHA-256 is not the one in the head record — line {at} was edited "
+                    f"or replaced"
+                )
+            elif at < n:
+                notes.append(
+                    f"head record is {n - at} entr{'y' if n - at == 1 else 'ies'} behind (power cut between "
+                    f"an append and its head update); lines {at + 1}–{n} chain correctly from it"
+                )
+    return VerifyReport(
+        ok=not problems,
+        problems=problems,
+        notes=notes,
+        entries=n,
+        last_sha256=sha256_hex(lines[-1]) if lines else GENESIS_SHA256,
+    )
+
+
+def _line_of_seq(seqs: list[int | None], seq: int) -> int | None:
+    """1-based line holding entry ``seq``, searched from the end (where the head points)."""
+    for i in range(len(seqs) - 1, -1, -1):
+        if seqs[i] == seq:
+            return i + 1
+    return None
+
+
+def _seq_of(line: bytes) -> int | None:
+    try:
+        obj = json.loads(line.decode("utf-8"))
+    except (ValueError, RecursionError):
+        return None
+    seq = obj.get("seq") if isinstance(obj, dict) else None
+    return seq if isinstance(seq, int) and not isinstance(seq, bool) else None
+
+
+def head_disagreement(head: dict | None, lines: list[bytes]) -> str | None:
+    """Why the head record contradicts the log's complete lines, or None if it does not.
+
+    The head names the newest entry appended (its seq and SHA-256).  It agrees when that
+    entry is in the log unchanged and every later line chains from it: the head is then
+    only behind (a power cut, or a failed head update, after an append).
+    """
+    if head is None:
+        # Every log gets its head record when it is created: entries without one mean it was deleted.
+        return None if not lines else "the head record is missing although the log has entries (deleted)"
+    seq, sha = head.get("seq"), head.get("sha256")
+    if not isinstance(seq, int) or isinstance(seq, bool) or not isinstance(sha, str):
+        return "the head record is damaged"
+    if seq == 0 and sha == GENESIS_SHA256:
+        prev = GENESIS_SHA256
+        for k, line in enumerate(lines):
+            try:
+                got = json.loads(line.decode("utf-8")).get("prev_sha256")
+            except (ValueError, RecursionError, AttributeError):
+                got = None
+            if got != prev:
+                return f"line {k + 1} does not chain from the start of the log the head record names"
+            prev = sha256_hex(line)
+        return None
+    for at in range(len(lines) - 1, -1, -1):
+        if _seq_of(lines[at]) != seq:
+            continue
+        if sha256_hex(lines[at]) != sha:
+            return f"line {at + 1} (entry #{seq}) does not match the head record (edited or replaced)"
+        for k in range(at + 1, len(lines)):
+            try:
+                prev = json.loads(lines[k].decode("utf-8")).get("prev_sha256")
+            except (ValueError, RecursionError, AttributeError):
+                prev = None
+            if prev != sha256_hex(lines[k - 1]):
+                return f"line {k + 1} does not chain from the entry the head record names (#{seq})"
+        return None
+    last = _seq_of(lines[-1]) if lines else None
+    return (
+        f"the head record names entry #{seq} but the log ends with "
+        f"{'entry #' + str(last) if last is not None else 'no readable entry'} "
+        f"(entries removed, the file truncated, or the last line damaged)"
+    )
+
+
+def find_anchor(lines: list[bytes], anchor_text: str) -> tuple[int, int] | None:
+    """Where a paper copy's anchor (a SHA-256, or its first 12+ hex digits, optionally as
+    'N:HASH' or '#N HASH') is in the log: (line number, entry number), else None."""
+    m = re.fullmatch(r"\s*(?:#?(\d+)\s*[:\s]\s*)?([0-9a-fA-F]{12,64})\s*", anchor_text)
+    if m is None:
+        raise ValueError(f"anchor {anchor_text!r} is not a SHA-256 (12 to 64 hex digits), optionally after 'N:'")
+    want_seq = int(m.group(1)) if m.group(1) else None
+    prefix = m.group(2).lower()
+    for i, line in enumerate(lines, start=1):
+        if sha256_hex(line).startswith(prefix):
+            seq = _seq_of(line)
+            if want_seq is None or seq == want_seq:
+                return i, seq if seq is not None else i
+    return None

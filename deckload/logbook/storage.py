@@ -1,0 +1,194 @@
+"""The log on disk: appends that reach the disk, torn-tail recovery, the head record, reading.
+
+Durability: an append writes the whole line with one ``write`` on an ``O_APPEND``
+descriptor, then ``os.fsync`` before returning; only then is the entry reported done.  A
+failed write (disk full, I/O error) is cut back to the last good line.  A power cut can
+still leave the last line torn (cut short, or padded with zero bytes by the file system):
+:meth:`LogStore.scan` finds it and :meth:`LogStore.set_aside_torn` copies it to a side file
+(written and fsynced first), then cuts it from the log — never silently dropped.  The head
+record is rewritten atomically (:mod:`deckload.io.atomicfile`).
+"""
+
+from __future__ import annotations
+
+import json
+import os
+from dataclasses import dataclass
+from datetime import datetime, timezone
+from pathlib import Path
+
+from deckload.io.atomicfile import fsync_dir, leftover_temp_files, write_atomic
+from deckload.io.limits import MAX_LOG_BYTES
+from deckload.logbook.records import LogFormatError, _dumps, _entry_from_line
+
+HEAD_FORMAT = "deckload-log-head-1"
+
+
+@dataclass(frozen=True)
+class TornRecovery:
+    """A torn last line found at start and set aside in a side file."""
+
+    log_path: Path
+    side_path: Path
+    line_no: int
+    n_bytes: int
+
+    def __str__(self) -> str:
+        return (
+            f"{self.log_path.name}: torn line {self.line_no} ({self.n_bytes} bytes) set aside in "
+            f"{self.side_path.name}; the append it belonged to never reported done (power cut or "
+            f"crash during the write)"
+        )
+
+
+class LogStore:
+    """One vessel's log file and head record; the descriptor is open only for a writer."""
+
+    def __init__(self, path: Path, head_path: Path) -> None:
+        self.path = path
+        self.head_path = head_path
+        self.fd: int | None = None
+
+    def open_for_append(self) -> bool:
+        """Open the log for appending (creating it, fsynced with its folder); True when created.
+
+        Call under the writer's lock: a head record or side file whose write was killed
+        before its rename is a half copy nobody else can be writing, so it goes.
+        """
+        for tmp in leftover_temp_files(self.path.parent):
+            if tmp.name.startswith((f".{self.head_path.name}.", f".{self.path.name}.")):
+                tmp.unlink(missing_ok=True)
+        created = not self.path.exists()
+        self.fd = os.open(self.path, os.O_RDWR | os.O_APPEND | os.O_CREAT, 0o644)
+        if created:
+            os.fsync(self.fd)
+            fsync_dir(self.path.parent)
+        return created
+
+    def scan(self) -> tuple[list[bytes], bytes]:
+        """The complete lines of the open log and its torn tail (b"" when there is none).
+
+        A complete-looking but unreadable last line (zero-filled or half-flushed blocks) is
+        torn too, with its line end.
+        """
+        lines, torn = _split_lines(_read_fd(self.fd))
+        if not torn and lines and not _parses(lines[-1]):
+            torn = lines.pop() + b"\n"
+        return lines, torn
+
+    def set_aside_torn(self, torn: bytes, line_no: int, now: datetime) -> TornRecovery:
+        """Copy the torn tail to a side file named for ``now`` (fsynced), then cut it from the log."""
+        stamp = now.astimezone(timezone.utc).strftime("%Y%m%dT%H%M%SZ")
+        side = self.path.with_name(f"{self.path.name}.torn-{stamp}.txt")
+        k = 1
+        while side.exists():
+            k += 1
+            side = self.path.with_name(f"{self.path.name}.torn-{stamp}-{k}.txt")
+        write_atomic(side, torn)
+        os.ftruncate(self.fd, os.fstat(self.fd).st_size - len(torn))
+        os.fsync(self.fd)
+        return TornRecovery(self.path, side, line_no, len(torn))
+
+    def append_line(self, line: bytes) -> None:
+        """Write ``line`` and its line end, then fsync; on failure cut back to the last good line."""
+        size_before = os.fstat(self.fd).st_size
+        try:
+            _write_all(self.fd, line + b"\n")
+            os.fsync(self.fd)
+        except OSError:
+            # Disk full or I/O error: cut back to the last good line so the next append
+            # does not land after a half line, then report the failure.
+            try:
+                os.ftruncate(self.fd, size_before)
+                os.fsync(self.fd)
+            except OSError:
+                pass
+            raise
+
+    def read_head(self) -> dict | None:
+        """The head record, None when there is none, ``{"damaged": True}`` when unreadable."""
+        try:
+            with open(self.head_path, "rb") as f:
+                raw = f.read(64 * 1024)  # a head record is one short line; more is damage
+        except FileNotFoundError:
+            return None
+        try:
+            head = json.loads(raw.decode("utf-8"))
+        except (ValueError, RecursionError):
+            return {"damaged": True}
+        return head if isinstance(head, dict) else {"damaged": True}
+
+    def write_head(self, seq: int, sha256: str) -> None:
+        """Rewrite the head record atomically: the newest entry's number and SHA-256."""
+        write_atomic(self.head_path, (_dumps({"format": HEAD_FORMAT, "seq": seq, "sha256": sha256}) + "\n").encode())
+
+    def read(self) -> bytes:
+        """The whole log (b"" when there is none), refused beyond the size limit."""
+        from deckload.io.limits import read_limited
+
+        try:
+            return read_limited(self.path, MAX_LOG_BYTES, "one voyage log (start a new log)")
+        except FileNotFoundError:
+            return b""
+
+    def close(self) -> None:
+        if self.fd is not None:
+            os.close(self.fd)
+            self.fd = None
+
+
+def _write_all(fd: int, data: bytes) -> None:
+    view = memoryview(data)
+    while view:
+        n = os.write(fd, view)
+        view = view[n:]
+
+
+def _split_lines(data: bytes) -> tuple[list[bytes], bytes]:
+    """Complete lines (without '\\n') and the unterminated remainder."""
+    parts = data.split(b"\n")
+    return parts[:-1], parts[-1]
+
+
+def _read_fd(fd: int) -> bytes:
+    size = os.fstat(fd).st_size
+    chunks = []
+    pos = 0
+    while pos < size:
+        b = os.pread(fd, size - pos, pos)
+        if not b:
+            break
+        chunks.append(b)
+        pos += len(b)
+    return b"".join(chunks)
+
+
+def _parses(line: bytes) -> bool:
+    try:
+        return isinstance(json.loads(line.decode("utf-8")), dict)
+    except (ValueError, RecursionError):
+        return False
+
+
+def log_files(directory: Path) -> list[Path]:
+    """The vessel logs in ``directory`` (sorted by name), including logs whose file is gone but
+    whose head record remains (verify reports those)."""
+    d = Path(directory)
+    logs = set(d.glob("*.log.jsonl"))
+    logs |= {h.with_name(h.name.removesuffix(".head.json") + ".jsonl") for h in d.glob("*.log.head.json")}
+    return sorted(logs)
+
+
+def vessel_of_log(path: Path) -> str:
+    """The vessel name recorded in a log's first readable line (else its file-name slug)."""
+    try:
+        with open(path, "rb") as f:
+            for i, line in enumerate(f, start=1):
+                if line.endswith(b"\n"):
+                    try:
+                        return _entry_from_line(line[:-1], i).vessel
+                    except LogFormatError:
+                        continue
+    except FileNotFoundError:
+        pass
+    return path.name.removesuffix(".log.jsonl")
