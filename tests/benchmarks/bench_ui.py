@@ -1,4 +1,4 @@
-"""Loading-screen benchmark, run by hand: ``python -m tests.benchmarks.bench_ui [--keys N] [--rounds R] [--size 120x40]``.
+"""Loading-screen benchmark, run by hand: ``python -m tests.benchmarks.bench_ui [--keys N] [--rounds R] [--paints P] [--size 120x40]``.
 
 Each app runs in its own process on a pseudo-terminal (the real terminal driver,
 not the headless one), side by side in one run:
@@ -22,7 +22,8 @@ Measured, per app:
 * cold start → first paint: from just before the process is forked to the end of the
   first ``App._display`` whose screen has every shown widget laid out (interpreter
   start-up, imports, reading the profile and the first evaluation included).  Median
-  of the R rounds; for deckload also where that time went.
+  of the R rounds and P more starts that stop at first paint (``--paints P``, default 5);
+  for deckload also where that time went.
 * save queue: N keys in a row (each as soon as the previous frame is drawn, no pause),
   then quit at once: how many condition-file saves the writer made for the N changes
   (queued saves coalesce: the newest condition wins) and how long quitting waited for
@@ -81,6 +82,8 @@ def _child(which: str, width: int, height: int, keys: int, out: str, spawned_at:
             return
         if frame["first"] is None and _laid_out(screen):
             frame["first"] = time.time()
+            if keys == 0:  # a start-up run: first paint is all it measures
+                self.exit()
         if frame["event"] is not None:
             frame["event"].set()
 
@@ -124,7 +127,8 @@ def _child(which: str, width: int, height: int, keys: int, out: str, spawned_at:
     def start() -> None:
         app._bench_task = asyncio.get_running_loop().create_task(drive())
 
-    app.call_later(start)
+    if keys:
+        app.call_later(start)
     app.run()
     Path(out).write_text(json.dumps({
         "samples_ms": samples,
@@ -226,15 +230,15 @@ def _run(which: str, width: int, height: int, keys: int, pinned: bool, env: dict
         Path(out).unlink(missing_ok=True)
 
 
-def _pooled(runs: list[dict]) -> dict:
+def _pooled(runs: list[dict], starts: list[dict]) -> dict:
     samples = sorted(s for r in runs for s in r["samples_ms"])
     cpu = sorted(s for r in runs for s in r["cpu_ms"])
-    phases = {k: statistics.median(r["phases_s"][k] for r in runs) for k in runs[0]["phases_s"]}
+    phases = {k: statistics.median(r["phases_s"][k] for r in starts) for k in starts[0]["phases_s"]}
     return {
         "median": statistics.median(samples),
         "p90": samples[int(0.9 * (len(samples) - 1))],
         "cpu": statistics.median(cpu),
-        "paint": statistics.median(r["first_paint_s"] for r in runs),
+        "paint": statistics.median(r["first_paint_s"] for r in starts),
         "rss": max(r["peak_rss_mib"] for r in runs),
         "phases": phases,
         "queue": [r["queue"] for r in runs if r["queue"]],
@@ -247,20 +251,27 @@ def main(argv: list[str]) -> int:
         return 0
     keys = int(argv[argv.index("--keys") + 1]) if "--keys" in argv else 60
     rounds = int(argv[argv.index("--rounds") + 1]) if "--rounds" in argv else 2
+    paints = int(argv[argv.index("--paints") + 1]) if "--paints" in argv else 5
     size = argv[argv.index("--size") + 1] if "--size" in argv else "120x40"
     width, height = (int(x) for x in size.split("x"))
     rev = subprocess.run(["git", "-C", str(ROOT), "rev-parse", "--short", "HEAD"], capture_output=True, text=True)
     print(f"deckload loading-screen benchmark, {width}×{height}, {keys} keys × {rounds} rounds, "
+          f"first paint of {rounds + paints} starts, "
           f"{os.cpu_count()} CPUs, load {os.getloadavg()[0]:.1f}, commit {rev.stdout.strip() or 'none'}")
     print(f"{'':24}{'key→frame median':>17}{'p90':>9}{'(CPU)':>9}{'first paint':>13}{'peak RSS':>11}")
     verdicts = []
     env = _compile(Path(tempfile.mkdtemp(prefix="deckload-bench-pyc-")))
     for pinned, title in ((False, "two cores"), (True, "one core (taskset -c 0)")):
         runs: dict[str, list[dict]] = {"bare": [], "deckload": []}
+        starts: dict[str, list[dict]] = {"bare": [], "deckload": []}
         for _ in range(rounds):
             for which in runs:
                 runs[which].append(_run(which, width, height, keys, pinned, env))
-        rows = {which: _pooled(r) for which, r in runs.items()}
+                starts[which].append(runs[which][-1])
+        for _ in range(paints):  # start-up only: more samples of first paint, still alternating
+            for which in runs:
+                starts[which].append(_run(which, width, height, 0, pinned, env))
+        rows = {which: _pooled(r, starts[which]) for which, r in runs.items()}
         for which, r in rows.items():
             print(f"{title if which == 'bare' else '':24}{which:9}{r['median']:5.1f} ms{r['p90']:6.1f} ms"
                   f"{r['cpu']:6.1f} ms{r['paint']:10.2f} s{r['rss']:8.1f} MiB")
