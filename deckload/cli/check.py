@@ -52,8 +52,19 @@ def profile_summary(path: Path, v: m.Vessel, sources: dict[str, str] | None = No
         f"at {v.particulars.table_density_t_m3:g} t/m³ ({_plural(len(h.draft_m), 'row')})",
         f"    cross curves: displacement {_range(k.displacement_t, 't')}, heel {_range(k.heel_deg, '°')}, {k.trim_basis}",
     ]
+    if v.trimmed is not None:
+        tt = v.trimmed
+
+        def trims(ts):
+            return ", ".join("0" if x == 0 else f"{float(x):+g}" for x in ts) + " m"
+
+        lines.append(f"    tables at trims (+ by the stern): hydrostatics {trims(tt.hydro_trim_m)}; "
+                     f"KN {trims(tt.kn_trim_m)}; interpolated in trim, caution outside")
     if rows:
         lines.append(f"    tank calibrations: {min(rows)}–{max(rows)} rows each")
+    corrected = [t.id for t in v.tanks if t.trim_correction is not None]
+    if corrected:
+        lines.append(f"    booklet trim corrections for soundings: {', '.join(corrected)}")
     if v.limit_curve is not None:
         lines.append(f"    limit curve ({v.limit_curve.kind}): displacement {_range(v.limit_curve.displacement_t, 't')}")
     if float(k.heel_deg[-1]) < 90.0:

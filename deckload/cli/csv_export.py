@@ -37,8 +37,8 @@ def _draft_of(v: m.Vessel, disp: np.ndarray, frame: Frame) -> list[float]:
     return [float(x) for x in frame.draft_from_moulded(moulded)]
 
 
-def hydrostatics_rows(v: m.Vessel, tr: TableReading) -> tuple[list[str], list[list]]:
-    h, f = v.hydrostatics, tr.frame
+def hydrostatics_rows(v: m.Vessel, tr: TableReading, h: m.HydrostaticTable | None = None) -> tuple[list[str], list[list]]:
+    h, f = (v.hydrostatics if h is None else h), tr.frame
     cols = {"draft_m": f.draft_from_moulded(h.draft_m), "displacement_t": h.displacement_t,
             "lcb_m": f.x_from_ap(h.lcb_m), "lcf_m": f.x_from_ap(h.lcf_m), "kmt_m": h.kmt_m,
             "tpc_t_cm": h.tpc_t_cm, "mctc_tm_cm": h.mctc_tm_cm}
@@ -49,10 +49,10 @@ def hydrostatics_rows(v: m.Vessel, tr: TableReading) -> tuple[list[str], list[li
     return list(cols), [[float(cols[k][i]) for k in cols] for i in range(len(h.draft_m))]
 
 
-def cross_curve_rows(v: m.Vessel) -> tuple[list[str], list[list]]:
+def cross_curve_rows(v: m.Vessel, cc: m.CrossCurves | None = None) -> tuple[list[str], list[list]]:
     from deckload.io.csvtables import fmt_number
 
-    cc = v.cross_curves
+    cc = v.cross_curves if cc is None else cc
     header = ["displacement_t"] + [f"kn_{fmt_number(float(a))}" for a in cc.heel_deg]
     return header, [[float(d)] + [float(x) for x in row] for d, row in zip(cc.displacement_t, cc.kn_m)]
 
@@ -113,11 +113,14 @@ def profile_tables(v: m.Vessel, rd: Reading) -> list[tuple[str, str, str, list[s
     if hy is not None:
         out.append(("hydrostatics.csv", "[hydrostatics]", "hydrostatics", *hydrostatics_rows(v, hy)))
     out.append(("cross_curves.csv", "[cross_curves]", "cross_curves", *cross_curve_rows(v)))
+    out += trimmed_tables(v, rd)
     for t in v.tanks:
         tr = rd.tables.get(f"tank[{t.id}].calibration")
         if t.level_known and tr is not None:
             key = f"tank[{t.id}].calibration"
             out.append((f"tank_{t.id}.csv", key, key, *calibration_rows(t, tr)))
+        if t.trim_correction is not None:
+            out.append((f"tank_{t.id}_trim.csv", f"tank[{t.id}].trim_correction", "", *trim_correction_rows(t)))
     if v.limit_curve is not None and "limit_curve" in rd.tables:
         out.append(("limit_curve.csv", "[limit_curve]", "limit_curve",
                     *curve_rows(v, v.limit_curve, rd.tables["limit_curve"], v.limit_curve.kind)))
@@ -129,6 +132,36 @@ def profile_tables(v: m.Vessel, rd: Reading) -> list[tuple[str, str, str, list[s
         if h.fill_pct is not None and tr is not None:
             out.append((f"hold_{h.id}_fill.csv", f"hold[{h.id}] fill table", f"hold[{h.id}]", *hold_rows(h, tr)))
     return out
+
+
+def trimmed_tables(v: m.Vessel, rd: Reading) -> list[tuple[str, str, str, list[str], list[list]]]:
+    """The tables at trims other than 0 (``[[hydrostatics_at_trim]]``, ``[[cross_curves_at_trim]]``)."""
+    from deckload.io.csvtables import fmt_number
+
+    tt = v.trimmed
+    if tt is None:
+        return []
+    out = []
+    for trim, h in zip(tt.hydro_trim_m, tt.hydrostatics):
+        key = f"hydrostatics_at_trim[{round(float(trim), 6):.6g} m]"
+        if h is not v.hydrostatics and key in rd.tables:
+            out.append((f"hydrostatics_trim_{float(trim):+g}.csv", f"[[{key.split('[')[0]}]] trim_m = {float(trim):g}",
+                        key, *hydrostatics_rows(v, rd.tables[key], h)))
+    for trim, cc in zip(tt.kn_trim_m, tt.cross_curves):
+        if cc is not v.cross_curves:
+            out.append((f"kn_trim_{float(trim):+g}.csv", f"[[cross_curves_at_trim]] trim_m = {float(trim):g}", "",
+                        *cross_curve_rows(v, cc)))
+    return out
+
+
+def trim_correction_rows(t: m.Tank) -> tuple[list[str], list[list]]:
+    """``[tank.trim_correction]``: sounding_m and one corr_<trim> / volume_<trim> column per trim."""
+    from deckload.io.csvtables import fmt_number
+
+    tc = t.trim_correction
+    prefix = "corr" if tc.kind == "sounding_correction_m" else "volume"
+    header = ["sounding_m"] + [f"{prefix}_{fmt_number(float(x))}" for x in tc.trim_m]
+    return header, [[float(s)] + [float(x) for x in row] for s, row in zip(tc.sounding_m, tc.value)]
 
 
 def describe(tr: TableReading | None, key: str = "") -> str:

@@ -24,6 +24,7 @@ Pure: numpy and the standard library only (tests/test_core_purity.py).
 
 from __future__ import annotations
 
+import dataclasses
 import math
 from dataclasses import dataclass
 
@@ -207,6 +208,8 @@ class _Audit:
         self.L, self.B, self.D, self.T = p.lbp_m, p.breadth_m, p.depth_m, p.design_draft_m
         self.rho = p.table_density_t_m3
         self.out: list[Finding] = []
+        self.half_trim_m = 0.0
+        """Half the trim of the hydrostatic table being judged (0 at even keel)."""
 
     def add(self, severity, key, path, value, why, look, check):
         self.out.append(Finding(severity, key, tuple(path), value, why, look, check))
@@ -427,9 +430,11 @@ class _Audit:
                          f"falls from {_f(float(h.vcb_m[r - 1]))} as the draft rises: every added layer lies above "
                          "the old centre of buoyancy, so VCB can only rise", row(r), "hydro-rise")
             for i in range(len(T)):
-                if T[i] > 0 and not 0.0 < h.vcb_m[i] < T[i] + VCB_FALL_TOLERANCE_M:
+                # trimmed by t, the waterline reaches T + |t|/2 at the deeper end (self.half_trim_m)
+                top = T[i] + self.half_trim_m
+                if T[i] > 0 and not 0.0 < h.vcb_m[i] < top + VCB_FALL_TOLERANCE_M:
                     self.add(ERROR, "hydrostatics.vcb_m", hp + ("vcb_m", i), _f(float(h.vcb_m[i])),
-                             f"the centre of buoyancy must lie between the keel and the waterline (0–{T[i]:.4g} m)",
+                             f"the centre of buoyancy must lie between the keel and the waterline (0–{top:.4g} m)",
                              row(i), "hydro-vcb")
                     break
         for col, what in (("tpc_t_cm", "TPC"), ("mctc_tm_cm", "MCTC")):
@@ -751,6 +756,48 @@ class _Audit:
                      "the booklet's KN table (displacement column)", "curve-range")
 
 
+def _trim_name(trim: float) -> str:
+    """How the profile reader names a table at a trim (``hydrostatics_at_trim[1 m]``): six significant digits."""
+    return f"{round(trim, 6):.6g}"
+
+
+def _trimmed_tables(a: _Audit) -> None:
+    """Every table at a trim gets every check of its even-keel counterpart, with the same tolerances.
+
+    The checks hold at a fixed trim as they do at even keel: a layer added at fixed trim lies at
+    the waterplane's centre (LCB from LCF, Δ from TPC), and KB rises with the mean draft; only the
+    waterline's height at the deeper end grows by |t|/2 (the VCB bound).  Findings are named by the
+    table's key (``hydrostatics_at_trim[1 m].lcb_m``) and located at its entry.
+    """
+    v = a.v
+    tt = v.trimmed
+    if tt is None:
+        return
+    by_trim = dict(zip((float(t) for t in tt.hydro_trim_m), tt.hydrostatics))
+    for key, trims, tables, even in (("hydrostatics_at_trim", tt.hydro_trim_m, tt.hydrostatics, v.hydrostatics),
+                                     ("cross_curves_at_trim", tt.kn_trim_m, tt.cross_curves, v.cross_curves)):
+        entry = 0
+        for trim, table in zip(trims, tables):
+            if table is even:
+                continue  # the even-keel table, judged as [hydrostatics] / [cross_curves]
+            t = float(trim)
+            if key == "hydrostatics_at_trim":
+                sub = _Audit(dataclasses.replace(v, hydrostatics=table))
+                sub.half_trim_m = abs(t) / 2.0
+                sub.hydrostatics()
+                old = "hydrostatics"
+            else:
+                sub = _Audit(dataclasses.replace(v, cross_curves=table, hydrostatics=by_trim.get(t, v.hydrostatics)))
+                sub.cross_curves()
+                old = "cross_curves"
+            name = f"{key}[{_trim_name(t)} m]"
+            for f in sub.out:
+                a.out.append(dataclasses.replace(
+                    f, key=name + f.key[len(old):], path=(key, entry) + tuple(f.path[1:]),
+                    look=f"{f.look} at trim {t:+g} m"))
+            entry += 1
+
+
 def audit(vessel: Vessel) -> tuple[Finding, ...]:
     """Every plausibility finding on ``vessel``, errors first, each group in profile order."""
     a = _Audit(vessel)
@@ -759,6 +806,7 @@ def audit(vessel: Vessel) -> tuple[Finding, ...]:
     a.pairs()
     a.hydrostatics()
     a.cross_curves()
+    _trimmed_tables(a)
     a.tanks()
     a.curves()
     return tuple(sorted(a.out, key=lambda f: 0 if f.severity == ERROR else 1))

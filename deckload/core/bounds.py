@@ -122,6 +122,16 @@ def z_range(p: Particulars) -> Range:
     return Range(0.0, z_max_m(p), "m", f"from the keel to {_n(ABOVE_DEPTH_M)} m above the depth")
 
 
+def table_trim_range(p: Particulars) -> Range:
+    """The trim of a table at a trim (m, + by the stern): |t| ≤ min(2·depth, 0.2·LBP).
+
+    Beyond twice the depth one end's keel is out of the water or the other's deck under at
+    any mean draft (the ends lie at T_mid ± t/2, derived); a fifth of LBP is the limit the
+    sounding corrections keep (:data:`deckload.core.soundings.MAX_TRIM_FRACTION`)."""
+    t = min(2.0 * p.depth_m, 0.2 * p.lbp_m)
+    return Range(-t, t, "m", "within twice the depth and a fifth of LBP, by the head or by the stern")
+
+
 # --------------------------------------------------------------------------- hull box
 
 

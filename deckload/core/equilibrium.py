@@ -33,6 +33,7 @@ from deckload.core import gz as gzmod
 from deckload.core.geometry.body import Body, immerse
 from deckload.core.geometry.cross_curves import NoEquilibriumError, solve_floating
 from deckload.core.tables import CubicSpline, OutOfRangeError
+from deckload.core.trimmed_tables import kn_curve_at
 
 HEEL_STEP_DEG = 5.0
 """Heel grid of the direct calculation (deg), the step of the demo's cross curves: between grid
@@ -151,7 +152,10 @@ def compare(vessel, result) -> Comparison:
     d = direct_state(vessel.hull, vessel.particulars.lbp_m, result.displacement_t, result.water_density_t_m3,
                      result.lcg_m, result.kg_fluid_m, result.tcg_m)
     rho_ratio = result.water_density_t_m3 / vessel.particulars.table_density_t_m3
-    kn_table = gzmod.kn_curve(vessel.cross_curves, result.displacement_t / rho_ratio)
+    d_eq = result.displacement_t / rho_ratio
+    # the KN the result was worked with: at its trim where the profile has tables at several trims
+    kn_table = (gzmod.kn_curve(vessel.cross_curves, d_eq) if vessel.trimmed is None
+                else kn_curve_at(vessel.trimmed, d_eq, result.trim_m))
     whole = gzmod.WHOLE_DEGREES
     port = result.criteria_side == "port"
     gz_table_whole = np.array(result.gz_port_m if port else result.gz_m)

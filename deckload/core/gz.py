@@ -43,7 +43,11 @@ def kn_row(cc: CrossCurves, table_displacement_t: float) -> np.ndarray:
 
 def kn_curve(cc: CrossCurves, table_displacement_t: float) -> np.ndarray:
     """KN (m) on the fine heel grid at a displacement (table density), up to the table's last angle."""
-    row = kn_row(cc, table_displacement_t)
+    return heel_curve(cc, kn_row(cc, table_displacement_t))
+
+
+def heel_curve(cc: CrossCurves, row: np.ndarray) -> np.ndarray:
+    """KN (m) on the fine heel grid from one row at ``cc``'s heels: a natural cubic spline in heel."""
     if cc.heel_deg[0] != 0.0:
         # The profile validation requires the table to start upright; refuse rather than extrapolate.
         raise OutOfRangeError("heel (KN cross curves)", 0.0, float(cc.heel_deg[0]), float(cc.heel_deg[-1]), "deg")

@@ -161,6 +161,51 @@ class CrossCurves:
 
 
 @dataclass(frozen=True, eq=False)
+class TrimmedTables:
+    """Hydrostatics and KN at several trims, as booklets print them (``[[hydrostatics_at_trim]]``,
+    ``[[cross_curves_at_trim]]``).
+
+    Trim in metres, + by the stern (draft aft − draft forward), as everywhere in the model.
+    The even-keel ``Vessel.hydrostatics`` / ``Vessel.cross_curves`` are the tables at trim 0 and
+    are included here in their place, so ``hydro_trim_m`` and ``kn_trim_m`` each contain 0.
+    In a trimmed hydrostatic table ``draft_m`` is the mean moulded draft at midships
+    ((T_aft + T_fwd)/2 at the perpendiculars), which is the even-keel draft at trim 0.
+    Each KN table is for the vessel floating at that trim when upright (the booklet convention),
+    on the basis ``Vessel.cross_curves.trim_basis`` states, with the even-keel table's heels.
+    """
+
+    hydro_trim_m: np.ndarray
+    """Trims of the hydrostatic tables (m), strictly increasing, one of them 0."""
+    hydrostatics: tuple["HydrostaticTable", ...]
+    """One table per trim of ``hydro_trim_m``."""
+    kn_trim_m: np.ndarray
+    """Trims of the KN tables (m), strictly increasing, one of them 0."""
+    cross_curves: tuple["CrossCurves", ...]
+    """One table per trim of ``kn_trim_m``."""
+
+
+@dataclass(frozen=True, eq=False)
+class TrimCorrection:
+    """A booklet's trim-correction columns for a tank's soundings (``[tank.trim_correction]``).
+
+    ``value[i, j]`` belongs to the sounding ``sounding_m[i]`` read at the pipe (from the tank's
+    sounding zero, as read on board) with the ship trimmed ``trim_m[j]`` (m, + by the stern).
+    ``kind`` says what it is: ``"sounding_correction_m"`` — add it to the observed sounding to
+    get the even-keel sounding of the same volume; ``"volume_m3"`` — the volume in the tank.
+    Trim 0 is the calibration itself (correction 0) and is not a column.
+    """
+
+    trim_m: np.ndarray
+    """Trims of the columns (m), strictly increasing, none 0."""
+    sounding_m: np.ndarray
+    """Observed soundings (m) from the sounding zero, strictly increasing."""
+    value: np.ndarray
+    """Shape (len(sounding_m), len(trim_m))."""
+    kind: str
+    """'sounding_correction_m' or 'volume_m3'."""
+
+
+@dataclass(frozen=True, eq=False)
 class TankCalibration:
     """A tank's calibration table by sounding (from the tank bottom)."""
 
@@ -235,6 +280,8 @@ class Tank:
     level = this − ullage.  None: the tank cannot be stated by ullage."""
     level_known: bool = True
     """False for a tank known only by capacity and centre: no sounding or ullage, centre fixed."""
+    trim_correction: TrimCorrection | None = None
+    """The booklet's trim-correction columns for soundings, if the profile gives them."""
     fsi_given: str = "table"
     """Where ``calibration.fsi_m4`` comes from: 'table' (per row, as given), 'max' (one
     maximum value per tank, used at every level) or 'none' (no free surface given: nil)."""
@@ -472,6 +519,8 @@ class Vessel:
     assumptions: tuple[str, ...] = ()
     """What was assumed where the booklet gives less than the model needs, one line each."""
     draft_marks: DraftMarks | None = None
+    trimmed: TrimmedTables | None = None
+    """Hydrostatics and KN at several trims (booklet tables), or None: even-keel tables only."""
     usual_fill_pct: tuple[tuple[str, float], ...] = ()
     """``[usual_fill]``: per liquid kind, the fill (%) key f takes a tank to (else :data:`USUAL_MAX_PCT`)."""
     hull: "Body | None" = None

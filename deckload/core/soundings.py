@@ -18,6 +18,18 @@ The corrected sounding is the even-keel sounding that holds the same volume (rea
 through the calibration table), so every other step — centroid, free surface — stays the
 table's, as on board; the difference is the trim/list correction a booklet's correction
 columns would give.
+
+**The booklet's own correction columns** (:class:`~deckload.core.model.TrimCorrection`,
+``[tank.trim_correction]``) are used in preference to the geometry where they apply: a
+sounding taken trimmed (no list: the columns are for trim only), within the trims and the
+soundings they tabulate.  They are interpolated linearly in the observed sounding and in
+trim, trim 0 being the calibration itself (correction 0, or the calibration's volume) —
+common practice for booklet tables, nothing extrapolated.  A sounding correction is added to
+the observed sounding; a volume is read back through the calibration to the even-keel
+sounding.  Outside the columns, or with a list, the geometry method applies where the tank's
+shape and pipe are known; otherwise the sounding is left as read and the caution says so.
+Each correction names its method (:data:`BOOKLET`, :data:`GEOMETRY`), which ``calc`` and the
+screen show in the caution.
 """
 
 from __future__ import annotations
@@ -25,13 +37,21 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
+import numpy as np
+
 from deckload.core.geometry.body import Body, immerse
 from deckload.core.loading import LoadingError, level_of
 from deckload.core.model import SoundingPipe, Tank
-from deckload.core.tables import interp
+from deckload.core.tables import bracket, interp, lerp_row
 
 MAX_TRIM_FRACTION = 0.2
 """Trim beyond a fifth of LBP (or a list beyond 45°) is no sounding condition: refused."""
+
+
+BOOKLET = "booklet trim correction"
+"""Corrected from the booklet's trim-correction columns."""
+GEOMETRY = "tank geometry"
+"""Corrected from the tank's shape and its sounding pipe."""
 
 
 class SoundingError(LoadingError):
@@ -46,6 +66,40 @@ class CorrectedSounding:
     even_keel_m: float
     """The even-keel sounding holding the same volume (m)."""
     volume_m3: float
+    method: str = GEOMETRY
+    """:data:`BOOKLET` or :data:`GEOMETRY`."""
+
+
+def booklet_level(tank: Tank, observed_sounding_m: float, trim_m: float) -> tuple[float, float] | None:
+    """(even-keel level above the tank's lowest point, volume m³) from the booklet's trim-correction
+    columns, or None where they do not apply (no columns, trim or sounding outside them).
+
+    ``observed_sounding_m`` is from the tank's sounding zero, as read (module docstring).
+    """
+    tc = tank.trim_correction
+    if tc is None or trim_m == 0.0:
+        return None
+    trims = np.concatenate([tc.trim_m[tc.trim_m < 0], [0.0], tc.trim_m[tc.trim_m > 0]])
+    if not (trims[0] <= trim_m <= trims[-1]) or not (tc.sounding_m[0] <= observed_sounding_m <= tc.sounding_m[-1]):
+        return None
+    cal = tank.calibration
+    zero = tank.sounding_zero_m
+    i, f = bracket(tc.sounding_m, observed_sounding_m, f"sounding (trim corrections of tank {tank.id})", "m")
+    column = lerp_row(tc.value, i, f)  # one value per tabulated trim, at the observed sounding
+    if tc.kind == "sounding_correction_m":
+        even0 = 0.0
+    else:
+        even0 = interp(cal.sounding_m, cal.volume_m3, observed_sounding_m + zero, f"level of tank {tank.id}", "m")
+    col = np.concatenate([column[tc.trim_m < 0], [even0], column[tc.trim_m > 0]])
+    j, g = bracket(trims, trim_m, f"trim (trim corrections of tank {tank.id})", "m")
+    v = float(lerp_row(col, j, g))
+    top = float(cal.sounding_m[-1])
+    if tc.kind == "sounding_correction_m":
+        level = min(max(observed_sounding_m + v + zero, 0.0), top)
+        vol = interp(cal.sounding_m, cal.volume_m3, level, f"level of tank {tank.id}", "m")
+        return level, vol
+    vol = min(max(v, 0.0), float(cal.volume_m3[-1]))
+    return interp(cal.volume_m3, cal.sounding_m, vol, f"volume of tank {tank.id}", "m³"), vol
 
 
 def volume_at_sounding(body: Body, pipe: SoundingPipe, sounding_m: float, trim_m: float, lbp_m: float,
@@ -91,23 +145,28 @@ def level_soundings(vessel, condition):
     corrected, uncorrected = [], []
     fills = []
     for f in condition.tanks:
-        if f.quantity not in ("sounding_m", "ullage_m"):
-            fills.append(f)
-            continue
-        body = vessel.tank_bodies.get(f.tank_id)
-        pipe = vessel.sounding_pipes.get(f.tank_id)
-        if body is None or pipe is None or f.tank_id not in vessel.tank_index:
-            uncorrected.append(f.tank_id)
+        if f.quantity not in ("sounding_m", "ullage_m") or f.tank_id not in vessel.tank_index:
             fills.append(f)
             continue
         # A reading is from the tank's sounding zero (or down from its ullage reference): the
         # correction works on the level above the tank's lowest point, and gives a reading back.
         tank = vessel.tank(f.tank_id)
         level = level_of(tank, f.quantity, f.value)
-        cs = correct_sounding(tank, body, pipe, level, trim, vessel.particulars.lbp_m, lst)
-        even = (cs.even_keel_m - tank.sounding_zero_m if f.quantity == "sounding_m"
-                else tank.ullage_reference_m - cs.even_keel_m)
-        corrected.append(CorrectedSounding(f.tank_id, f.value, even, cs.volume_m3))
+        booklet = booklet_level(tank, level - tank.sounding_zero_m, trim) if lst == 0.0 else None
+        body = vessel.tank_bodies.get(f.tank_id)
+        pipe = vessel.sounding_pipes.get(f.tank_id)
+        if booklet is not None:
+            even_level, volume, method = booklet[0], booklet[1], BOOKLET
+        elif body is not None and pipe is not None:
+            cs = correct_sounding(tank, body, pipe, level, trim, vessel.particulars.lbp_m, lst)
+            even_level, volume, method = cs.even_keel_m, cs.volume_m3, GEOMETRY
+        else:
+            uncorrected.append(f.tank_id)
+            fills.append(f)
+            continue
+        even = (even_level - tank.sounding_zero_m if f.quantity == "sounding_m"
+                else tank.ullage_reference_m - even_level)
+        corrected.append(CorrectedSounding(f.tank_id, f.value, even, volume, method))
         fills.append(TankFill(f.tank_id, f.quantity, even, f.density_t_m3))
     return condition.replace(tanks=tuple(fills)), tuple(corrected), tuple(uncorrected)
 
@@ -118,8 +177,8 @@ def sounding_note(condition, corrected, uncorrected) -> list[tuple[str, str]]:
     way = f"trim {condition.sounding_trim_m:+.2f} m, list {condition.sounding_list_deg:+.1f}°"
     if corrected:
         out.append(("sounding-corrected", f"soundings taken at {way}, as at even keel: " + ", ".join(
-            f"{c.tank_id} {c.observed_m:.3f} → {c.even_keel_m:.3f} m" for c in corrected)))
+            f"{c.tank_id} {c.observed_m:.3f} → {c.even_keel_m:.3f} m ({c.method})" for c in corrected)))
     if uncorrected:
-        out.append(("sounding-uncorrected", f"soundings taken at {way} NOT corrected (no tank shape or sounding "
-                    "pipe): " + ", ".join(uncorrected)))
+        out.append(("sounding-uncorrected", f"soundings taken at {way} NOT corrected (no booklet trim correction "
+                    "for this trim and sounding, and no tank shape or sounding pipe): " + ", ".join(uncorrected)))
     return out

@@ -10,7 +10,8 @@ own test against a closed form (tests/test_evaluate_stages.py):
 2. :func:`stage_free_surface` — free-surface moment of each tank (:mod:`free_surface`);
    FSC = ΣFSM/Δ; KG fluid;
 3. :func:`stage_upright` — hydrostatics at the density-corrected displacement
-   (:mod:`hydrostatics`); GM solid and fluid; MCTC (:mod:`trim`), trim, drafts; the
+   (:mod:`hydrostatics`), or at the equilibrium trim when the profile has tables at several
+   trims (:mod:`trimmed_tables`); GM solid and fluid; MCTC (:mod:`trim`), trim, drafts; the
    load-line draft allowed in this water;
 4. :func:`stage_curve` — the GZ curve (:mod:`gz`) on both sides and the list read
    off it: GZ = KN − KG_fluid·sinφ − TCG·cosφ (constant correction), or
@@ -36,22 +37,15 @@ from deckload.core import gz as gzmod
 from deckload.core.bounds import bounded
 from deckload.core.criteria import Measures, limit_curve_criterion
 from deckload.core.free_surface import BASIS_NONE, TankFreeSurface, free_surface, transfer_moment_m4
-from deckload.core.hydrostatics import (
-    Upright,
-    draft_at,
-    fresh_water_allowance_m,
-    mark_density_t_m3,
-    permitted_draft_m,
-    trim_m,
-    upright,
-)
+from deckload.core.hydrostatics import Upright, draft_at, fresh_water_allowance_m, mark_density_t_m3, permitted_draft_m
 from deckload.core.loading import LoadingError, TankContents, WeightSum, hold_item, resolve_tanks, sum_weights
 from deckload.core.model import Condition, LoadLine, Vessel, effective_constants
 from deckload.core.result import CriterionResult, ItemResult, Result, TankResult, Warning
 from deckload.core.tables import OutOfRangeError, bracket, interp, lerp_row
 from deckload.core.verdict import Afloat, Verdict, assess, deck_edge_angle
 from deckload.core.soundings import level_soundings, sounding_note
-from deckload.core.trim import BASIS_TABLE, TrimMoment, even_keel_note, kn_reference_note, trim_moment
+from deckload.core.trim import BASIS_TABLE, TrimMoment, kn_reference_note
+from deckload.core.trimmed_tables import covers_kn, kn_for, table_state
 
 LIST_WARNING_DEG = 2.0
 NEAR_LIMIT_FRACTION = 0.10
@@ -241,6 +235,9 @@ def stage_upright(vessel: Vessel, condition: Condition, weights: Weights, fs: Fr
       (:func:`~deckload.core.trim.trim_moment`);
     * trim t = Δ·(LCB − LCG)/(100·MCTC), + by the stern; T(x) = T_F + t·(x_F − x)/LBP
       at the AP (x = 0), FP (x = LBP) and midships (standards.md §6.3);
+    * with tables at several trims, the tables interpolated in trim and the trim found by
+      iteration (:func:`~deckload.core.trimmed_tables.table_state`), a caution outside the
+      trims covered and refusal where the error would exceed tolerance;
     * the draft allowed at the condition's load-line mark (or summer) in this water:
       mark + FWA·(ρ_mark − ρ)/0.025, FWA = Δ_s/(4·TPC_s) mm at the summer draft
       (standards.md §6.1, ICLL; the dock-water rule from memory there).
@@ -251,23 +248,23 @@ def stage_upright(vessel: Vessel, condition: Condition, weights: Weights, fs: Fr
     w = weights.total
     disp = w.mass_t
     lbp = vessel.particulars.lbp_m
-    hy = upright(vessel, disp, condition.water_density_t_m3)
+    # even-keel tables, or tables at several trims interpolated at the equilibrium trim
+    # (core/trimmed_tables.py); MCT from the actual GM_L where the profile has KM_L (core/trim.py)
+    ts = table_state(vessel, disp, condition.water_density_t_m3, w.lcg_m, fs.kg_fluid_m)
+    hy, mct, trim = ts.upright, ts.moment, ts.trim_m
     gm_solid = hy.kmt_m - w.vcg_m
     gm_fluid = hy.kmt_m - fs.kg_fluid_m
-    # MCT from the actual GM_L where the profile has KM_L (core/trim.py)
-    mct = trim_moment(vessel, hy, disp, fs.kg_fluid_m)
-    trim = trim_m(disp, w.lcg_m, hy.lcb_m, mct.mctc_tm_cm)
     t_aft = draft_at(0.0, hy.draft_m, hy.lcf_m, trim, lbp)
     t_fwd = draft_at(lbp, hy.draft_m, hy.lcf_m, trim, lbp)
     t_mid = draft_at(lbp / 2.0, hy.draft_m, hy.lcf_m, trim, lbp)
     notes: list[Warning] = []
-    trim_note = even_keel_note(trim, lbp)
-    if trim_note is not None:
-        notes.append(Warning("trim-beyond-tables", trim_note, "caution"))
-    kn_note = kn_reference_note(vessel.cross_curves, w.lcg_m, vessel.particulars.lbp_m)
+    if ts.trim_note is not None:
+        notes.append(Warning("trim-beyond-tables", ts.trim_note, "caution"))
+    # trimmed KN covering the trim are made for her own trim: the free-trim reference LCG does not apply
+    kn_note = None if covers_kn(vessel, trim) else kn_reference_note(vessel.cross_curves, w.lcg_m, lbp)
     if kn_note is not None:
         notes.append(Warning("kn-reference-lcg", kn_note, "caution"))
-    if mct.basis == BASIS_TABLE:
+    if mct.basis == BASIS_TABLE and not ts.trimmed:
         notes.append(Warning("trim-from-table-mctc",
                              "the profile has no KML: trim is worked from the tabulated MCTC (made with BML, "
                              "not the actual GML), so it is slightly too small", "caution"))
@@ -293,7 +290,7 @@ def stage_curve(vessel: Vessel, weights: Weights, fs: FreeSurface, floating: Flo
     """
     w = weights.total
     disp = w.mass_t
-    kn = gzmod.kn_curve(vessel.cross_curves, floating.hydrostatics.table_displacement_t)
+    kn = kn_for(vessel, floating.hydrostatics.table_displacement_t, floating.trim_m)
     # The curve stops at the KN table's last angle (booklets may end at 60°): cut the grid.
     n_grid = len(kn)
     fine_deg, fine_rad = gzmod.FINE_DEG[:n_grid], gzmod.FINE_RAD[:n_grid]

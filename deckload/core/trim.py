@@ -107,7 +107,10 @@ booklet data differ 'for trims outside the booklet', standards.md §5.2)."""
 
 
 def even_keel_note(trim_m: float, lbp_m: float) -> str | None:
-    """A caution when the trim is more than 1 % of LBP from the even keel the tables were made at."""
+    """A caution when the trim is more than 1 % of LBP from the even keel the tables were made at.
+
+    Profiles with tables at several trims are judged by :func:`deckload.core.trimmed_tables.coverage`
+    instead (a caution outside the trims covered); this rule stays for a set with the even-keel table alone."""
     if abs(trim_m) <= EVEN_KEEL_TRIM_FRACTION * lbp_m:
         return None
     way = "by the stern" if trim_m > 0 else "by the head"

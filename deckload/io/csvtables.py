@@ -227,6 +227,56 @@ def attach_kn_csv(t: Table) -> bool:
     return True
 
 
+TRIM_COLUMN = re.compile(r"^(corr|volume)_([+-]?\d+(?:\.\d+)?)$")
+TRIM_KINDS = {"corr": "sounding_correction_m", "volume": "volume_m3"}
+
+
+def attach_trim_csv(t: Table) -> bool:
+    """A tank's trim corrections from a CSV: ``sounding_m`` and one column per trim, named
+    ``corr_<trim>`` (sounding corrections, m) or ``volume_<trim>`` (volumes, m³), trim in m,
+    + by the stern (``corr_-1.0``, ``corr_0.5``, ``corr_+1``)."""
+    if not t.has("csv"):
+        t.get("csv", False)
+        return True
+    c = _open_csv(t)
+    if c is None:
+        return False
+    cols: list[int] = []
+    trims: list[float] = []
+    kinds: set[str] = set()
+    for j, h in enumerate(c.header):
+        m = TRIM_COLUMN.match(h)
+        if m:
+            cols.append(j)
+            trims.append(float(m.group(2)))
+            kinds.add(m.group(1))
+        elif h != "sounding_m":
+            t.ctx.problems.append(_problem(c.file, c.header_line, t.key("csv"), repr(h),
+                                           f"unknown column (column {j + 1}); trim corrections take sounding_m and "
+                                           "one corr_<trim> (or volume_<trim>) column per trim, e.g. corr_-0.5, corr_1"))
+            return False
+    if len(kinds) != 1 or "sounding_m" not in c.header:
+        t.ctx.problems.append(_problem(c.file, c.header_line, t.key("csv"), None,
+                                       "needs a sounding_m column and corr_<trim> columns or volume_<trim> columns "
+                                       "(one kind, not both)"))
+        return False
+    key = TRIM_KINDS[kinds.pop()]
+    for k in ("sounding_m", "trim_m", key):
+        if k in t.data:
+            t.bad(k, t.data[k], f"given both in the TOML and in {c.file}: give the table once")
+            return False
+    js = c.header.index("sounding_m")
+    t.data["sounding_m"] = [row[js] for row in c.rows]
+    t.ctx.sources[t.raw + ("sounding_m",)] = _locator(c, js)
+    t.data["trim_m"] = trims
+    t.ctx.sources[t.raw + ("trim_m",)] = lambda at: (c.file, c.header_line,
+                                                     c.column_label(cols[at[0]]) if at and at[0] < len(cols) else "",
+                                                     MISSING)
+    t.data[key] = [[row[j] for j in cols] for row in c.rows]
+    t.ctx.sources[t.raw + (key,)] = _locator(c, None, cols)
+    return True
+
+
 # =========================================================================== writing
 
 

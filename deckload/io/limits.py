@@ -4,7 +4,7 @@ Each limit is far above anything a real vessel needs (the demo profile is 137 kB
 of at most 37 rows) and far below what would take the program seconds or gigabytes to read:
 
 * a profile, condition or geometry file: :data:`MAX_TOML_BYTES`;
-* one table (array) in such a file: :data:`MAX_TABLE_VALUES` values;
+* one table (array) in such a file: :data:`MAX_TABLE_VALUES` values; tables at trims: :data:`MAX_TABLES_AT_TRIMS` per set;
 * one line of the voyage log: :data:`MAX_LOG_LINE_BYTES`; a whole log: :data:`MAX_LOG_BYTES`;
 * an amount typed on the loading screen: :data:`MAX_ENTRY_CHARS` characters.
 
@@ -24,6 +24,9 @@ MAX_TOML_BYTES = 4 * 1024 * 1024
 """4 MiB: about 30 times the demo profile."""
 MAX_TABLE_VALUES = 20_000
 """Values in one array (a cross-curve matrix counts every cell): 100 × 200 would be a very fine table."""
+MAX_TABLES_AT_TRIMS = 40
+"""Tables at trims other than even keel, per set ([[hydrostatics_at_trim]], [[cross_curves_at_trim]]):
+booklets print 4–10; each may name a CSV file of its own, so their number is bounded too."""
 MAX_LOG_LINE_BYTES = 1024 * 1024
 """One log entry (with its condition) is a few kB."""
 MAX_LOG_BYTES = 512 * 1024 * 1024

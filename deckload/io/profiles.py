@@ -40,7 +40,8 @@ from deckload.core.gz import STEP_DEG as GZ_STEP_DEG
 from deckload.core.gz import grid_points
 from deckload.core.loading import reading_range
 from deckload.core.tables import interp
-from deckload.io.csvtables import attach_csv, attach_kn_csv
+from deckload.io.csvtables import attach_csv, attach_kn_csv, attach_trim_csv
+from deckload.io.limits import MAX_TABLES_AT_TRIMS
 # Problem, ProfileError and ID_PATTERN are imported from here by other modules too
 from deckload.io.tomlcheck import (
     ID_PATTERN,
@@ -72,6 +73,7 @@ from deckload.core.bounds import (  # noqa: E402  one set of ranges for files an
     BEAM_DEPTH_RANGE_M,
     LBP_RANGE_M,
     WATER_DENSITY_RANGE_T_M3,
+    table_trim_range,
 )
 
 CAPACITY_TOLERANCE = 0.0005
@@ -183,6 +185,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     lightship = _read_lightship(root, frame, rd)
     hydro = _read_hydrostatics(root, frame, rd)
     cross = _read_cross_curves(root, frame, rd)
+    trimmed = _read_trimmed_tables(root, particulars, frame, rd, hydro, cross)
     fs = _read_free_surface(root, lightship)
     criteria = _read_criteria(root, particulars)
     extra = _read_extra_criteria(root, particulars)
@@ -202,7 +205,8 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
 
     ids: dict[str, str] = {}  # id -> display name of the first compartment using it
     depth = particulars.depth_m if particulars is not None else math.inf
-    tanks = _read_tanks(root, fs, ids, frame, rd, depth)
+    tanks = _read_tanks(root, fs, ids, frame, rd, depth,
+                        table_trim_range(particulars) if particulars is not None else None)
     holds = _read_holds(root, ids, frame, rd)
     areas = _read_deck_areas(root, ids, frame, rd)
     constants = _read_profile_constants(root, frame, rd)
@@ -234,6 +238,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
         conversions=tuple(rd.conversions),
         assumptions=tuple(rd.assumptions),
         draft_marks=marks,
+        trimmed=trimmed,
         usual_fill_pct=usual,
         hull=hull,
         tank_bodies=tank_bodies,
@@ -364,6 +369,11 @@ def _read_hydrostatics(root: Table, frame: Frame | None, rd: Reading) -> m.Hydro
     t = root.table("hydrostatics")
     if t is None:
         return None
+    return _read_hydro_table(t, frame, rd, "hydrostatics")
+
+
+def _read_hydro_table(t: Table, frame: Frame | None, rd: Reading, where: str) -> m.HydrostaticTable | None:
+    """One hydrostatic table: ``[hydrostatics]`` or an entry of ``[[hydrostatics_at_trim]]``."""
     if not attach_csv(t, HYDRO_COLUMNS):
         return None
     f = read_frame(t, frame, drafts=True)
@@ -386,12 +396,12 @@ def _read_hydrostatics(root: Table, frame: Frame | None, rd: Reading) -> m.Hydro
     t.finish()
     if not t.same_length("draft_m", cols) or f is None:
         return None
-    rd.tables["hydrostatics"] = TableReading(f, csv=t.data.get("csv"), columns=_csv_columns(t))
-    _note_frame(rd, "hydrostatics", f, "lcb_m, lcf_m", "", False)
+    rd.tables[where] = TableReading(f, csv=t.data.get("csv"), columns=_csv_columns(t))
+    _note_frame(rd, where, f, "lcb_m, lcf_m", "", False)
     cols["lcb_m"] = f.x_to_ap(cols["lcb_m"])
     cols["lcf_m"] = f.x_to_ap(cols["lcf_m"])
     if f.draft_basis == "extreme":
-        rd.convert("hydrostatics", "draft_m", f"extreme → moulded (− keel {num(f.keel_thickness_m)} m)")
+        rd.convert(where, "draft_m", f"extreme → moulded (− keel {num(f.keel_thickness_m)} m)")
         cols["draft_m"] = f.draft_to_moulded(cols["draft_m"])
         if cols["draft_m"][0] < 0:
             t.bad("draft_m", t.data["draft_m"], f"the first extreme draft is less than the keel thickness {num(f.keel_thickness_m)} m")
@@ -410,28 +420,126 @@ def _read_cross_curves(root: Table, frame: Frame | None, rd: Reading) -> m.Cross
     if not attach_kn_csv(t):
         return None
     basis = t.text("trim_basis", choices=("free trim", "even keel"))
+    return _read_kn_table(t, frame, rd, basis)
+
+
+def _read_kn_table(t: Table, frame: Frame | None, rd: Reading, basis: str | None,
+                   even: m.CrossCurves | None = None) -> m.CrossCurves | None:
+    """One KN table: ``[cross_curves]``, or an entry of ``[[cross_curves_at_trim]]`` (``even`` given:
+    its basis and heels are the even-keel table's, and it has no reference LCG of its own)."""
     heel = t.increasing("heel_deg", t.array("heel_deg", heel_range))
     heel = t.starts_at("heel_deg", heel, 0.0, "the upright condition")
     if heel is not None and heel[-1] < KN_MIN_END_DEG - 1e-9:
         t.bad("heel_deg", t.data["heel_deg"], f"must reach at least {num(KN_MIN_END_DEG)}° (it ends at {num(heel[-1])}°): "
               "the IS 2008 A 2.2.1 areas run to 40°; nothing is extrapolated")
         heel = None
+    if even is not None and heel is not None and not np.array_equal(heel, even.heel_deg):
+        t.bad("heel_deg", t.data["heel_deg"], "must be the heel angles of [cross_curves] "
+              f"({', '.join(num(float(x)) for x in even.heel_deg)}°): KN are interpolated in trim heel by heel")
+        heel = None
     disp = t.increasing("displacement_t", t.array("displacement_t", positive))
     kn = t.matrix("kn_m", "displacement_t", t.raw_len("displacement_t"), "heel_deg", t.raw_len("heel_deg"))
-    has_ref = t.has("reference_lcg_m")
-    ref = t.num("reference_lcg_m", required=False)
-    f = read_frame(t, frame)
+    has_ref = even is None and t.has("reference_lcg_m")
+    ref = t.num("reference_lcg_m", required=False) if even is None else None
+    f = read_frame(t, frame) if even is None else frame
     t.finish()
     if basis is None or heel is None or disp is None or kn is None or (has_ref and ref is None) or f is None:
         return None
     if ref is not None:
         _note_frame(rd, "cross_curves", f, "reference_lcg_m", "", False)
         ref = float(f.x_to_ap(ref))
+    if even is not None:
+        rd.tables[t.name] = TableReading(f, csv=t.data.get("csv"))
+        return m.CrossCurves(heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp),
+                             kn_m=m.frozen_array(kn), trim_basis=basis)
     rd.tables["cross_curves"] = TableReading(f, csv=t.data.get("csv"))
     return m.CrossCurves(
         heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis,
         reference_lcg_m=ref,
     )
+
+
+def _read_table_trim(t: Table, p: m.Particulars | None) -> float | None:
+    """A trimmed table's trim (m, + by the stern): ``trim_m``, or ``trim_pct_lbp`` (% of LBP)."""
+    has_m, has_pct = t.has("trim_m"), t.has("trim_pct_lbp")
+    if has_m == has_pct:
+        t.get("trim_m", False)
+        t.get("trim_pct_lbp", False)
+        t.bad("trim_m", t.data.get("trim_m", MISSING), "give the table's trim once: trim_m (m, + by the stern) "
+              "or trim_pct_lbp (% of LBP, + by the stern)")
+        return None
+    if p is None:
+        t.get("trim_m" if has_m else "trim_pct_lbp", False)
+        return None
+    rng = table_trim_range(p)
+    if has_m:
+        return t.num("trim_m", lambda x: rng.rule(x))
+    pct = t.num("trim_pct_lbp", lambda x: rng.rule(x * p.lbp_m / 100.0))
+    return None if pct is None else pct * p.lbp_m / 100.0
+
+
+def _read_trimmed_tables(root: Table, particulars: m.Particulars | None, frame: Frame | None, rd: Reading,
+                         hydro: m.HydrostaticTable | None, cross: m.CrossCurves | None) -> m.TrimmedTables | None:
+    """``[[hydrostatics_at_trim]]`` and ``[[cross_curves_at_trim]]`` beside the even-keel tables (trim 0).
+
+    Trims strictly increasing in the order written, none 0 (that is the even-keel table), each
+    within :func:`deckload.core.bounds.table_trim_range`; the tables themselves pass every check
+    of ``[hydrostatics]`` / ``[cross_curves]``, KN with the even-keel table's heels.
+    """
+    sets = []
+    ok = True
+    for key, what in (("hydrostatics_at_trim", "hydrostatics"), ("cross_curves_at_trim", "cross_curves")):
+        entries = root.tables(key)
+        if len(entries) > MAX_TABLES_AT_TRIMS:
+            root.bad(key, MISSING, f"{len(entries)} tables at trims, more than the {MAX_TABLES_AT_TRIMS} allowed "
+                     "(booklets print 4–10)")
+            for t in entries:
+                for k in list(t.data):
+                    t.get(k, False)
+            ok = False
+            sets.append(([], []))
+            continue
+        trims, tables = [], []
+        for t in entries:
+            trim = _read_table_trim(t, particulars)
+            if trim is not None:
+                t.name = f"{key}[{num(round(trim, 6))} m]"
+            if trim is not None and abs(trim) < 1e-9:
+                t.bad("trim_m" if t.has("trim_m") else "trim_pct_lbp", t.data.get("trim_m", t.data.get("trim_pct_lbp")),
+                      f"trim 0 is the even-keel [{what}] table; give only the other trims here")
+                trim = None
+            elif trim is not None and trims and trims[-1] is not None and trim <= trims[-1]:
+                t.bad("trim_m" if t.has("trim_m") else "trim_pct_lbp", t.data.get("trim_m", t.data.get("trim_pct_lbp")),
+                      f"trims must increase strictly from one [[{key}]] to the next "
+                      f"(the one before is {num(round(trims[-1], 6))} m)")
+                trim = None
+            if what == "hydrostatics":
+                table = _read_hydro_table(t, frame, rd, t.name)
+            else:
+                table = (_read_kn_table(t, frame, rd, cross.trim_basis, cross)
+                         if cross is not None and attach_kn_csv(t) else None)
+                if cross is None:
+                    for k in list(t.data):
+                        t.get(k, False)
+            ok &= trim is not None and table is not None
+            trims.append(trim)
+            tables.append(table)
+        if key == "hydrostatics_at_trim" and entries and hydro is not None and hydro.vcb_m is None:
+            entries[0].bad("trim_m" if entries[0].has("trim_m") else "trim_pct_lbp", MISSING,
+                           "tables at trims need KB: give vcb_m in [hydrostatics] (each trimmed table may give its own)")
+            ok = False
+        sets.append((trims, tables))
+    (ht, hs), (kt, ks) = sets
+    if not (hs or ks) or not ok or hydro is None or cross is None:
+        return None
+
+    def with_even(trims, tables, even):
+        pairs = sorted(zip(trims + [0.0], tables + [even]), key=lambda p: p[0])
+        return m.frozen_array([p[0] for p in pairs]), tuple(p[1] for p in pairs)
+
+    htr, htab = with_even(ht, hs, hydro)
+    ktr, ktab = with_even(kt, ks, cross)
+    return m.TrimmedTables(hydro_trim_m=htr, hydrostatics=htab, kn_trim_m=ktr, cross_curves=ktab)
 
 
 def _check_kn_reach(root: Table, cross: m.CrossCurves | None, flood: m.LimitCurve | None) -> None:
@@ -899,11 +1007,11 @@ def _read_draft_marks(root: Table, particulars: m.Particulars | None, frame: Fra
 
 
 def _read_tanks(root: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,
-                rd: Reading, depth_m: float) -> list[m.Tank]:
+                rd: Reading, depth_m: float, trim_range=None) -> list[m.Tank]:
     entries = []
     complete = True
     for t in root.tables("tank"):
-        kw, ok_tank = _read_tank(t, fs, ids, frame, rd, depth_m)
+        kw, ok_tank = _read_tank(t, fs, ids, frame, rd, depth_m, trim_range)
         entries.append((t, kw))
         complete &= ok_tank
     ok = check_tank_pairs([(t, kw["id"], kw.get("pair")) if kw is not None else (t, None, None) for t, kw in entries])
@@ -939,7 +1047,7 @@ PIPE_HEAD_M = 2.0
 
 
 def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], frame: Frame | None,
-               rd: Reading, depth_m: float) -> tuple[dict | None, bool]:
+               rd: Reading, depth_m: float, trim_range=None) -> tuple[dict | None, bool]:
     """The Tank's keyword arguments and whether they are complete (else only id and pair)."""
     ident = claim_id(t, "tank", ids)
     kw: dict[str, Any] = dict(id=ident, name=t.text("name"))
@@ -1007,6 +1115,22 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], 
             kw["calibration"] = _read_calibration(cal, capacity, t, f, rd, kw, max_fsi if fsi_given == "max" else None, fsm_ok)
             if bad_level:
                 kw["calibration"] = None
+    kw["trim_correction"] = None
+    if t.has("trim_correction"):
+        tc = t.table("trim_correction")
+        if tc is not None:
+            if kw["calibration"] is None or capacity_only:
+                if capacity_only:
+                    t.bad("trim_correction", MISSING, "a tank without a calibration table has no soundings to correct")
+                for k in list(tc.data):
+                    tc.get(k, False)
+                kw["calibration"] = None
+            else:
+                kw["trim_correction"] = _read_trim_correction(tc, kw, trim_range)
+                if kw["trim_correction"] is None:
+                    kw["calibration"] = None  # marks the tank unusable (the problem is reported)
+    else:
+        t.get("trim_correction", False)
     if t.has("transfer"):
         tr = t.table("transfer")
         kw["transfer"] = None if tr is None else _read_transfer(tr)
@@ -1188,6 +1312,74 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
     return m.TankCalibration(sounding_m=m.frozen_array(cols["level"]), volume_m3=m.frozen_array(cols["volume_m3"]),
                              lcg_m=m.frozen_array(cols["lcg_m"]), vcg_m=m.frozen_array(cols["vcg_m"]),
                              tcg_m=m.frozen_array(cols["tcg_m"]), fsi_m4=m.frozen_array(cols["fsi_m4"]))
+TRIM_CORRECTION_REACH = 1.2
+"""A tank is at most 1.2·LBP long (the audit's envelope): a trim t tilts its surface by at most 1.2·|t|."""
+
+
+def _read_trim_correction(t: Table, kw: dict, trim_range) -> m.TrimCorrection | None:
+    """``[tank.trim_correction]``: the booklet's trim corrections for soundings (model.TrimCorrection).
+
+    ``trim_m`` (m, + by the stern) strictly increasing, none 0 (the calibration itself), each within the table-trim range; ``sounding_m`` strictly increasing,
+    each a sounding the tank can show (its level within the calibration); and one of
+    ``sounding_correction_m`` (|correction| at most the calibration's height) or ``volume_m3``
+    (0 … capacity), one row per sounding and one column per trim.
+    """
+    if not attach_trim_csv(t):
+        return None
+    cal: m.TankCalibration = kw["calibration"]
+    zero = kw["sounding_zero_m"] or 0.0
+    top = float(cal.sounding_m[-1])
+    trims = t.increasing("trim_m", t.array("trim_m", lambda x: trim_range.rule(x) if trim_range else None, min_len=1))
+    if trims is not None and np.any(np.abs(trims) < 1e-9):
+        t.bad("trim_m", t.data["trim_m"], "trim 0 is the calibration table itself; give only the other trims")
+        trims = None
+    sound_rule = between(0.0 - zero, top - zero, "m", "a sounding the tank can show: its level within the calibration")
+    sound = t.increasing("sounding_m", t.array("sounding_m", sound_rule))
+    has_corr, has_vol = t.has("sounding_correction_m"), t.has("volume_m3")
+    if has_corr == has_vol:
+        t.get("sounding_correction_m", False)
+        t.get("volume_m3", False)
+        t.bad("sounding_correction_m", t.data.get("sounding_correction_m", MISSING),
+              "give one of sounding_correction_m (m, added to the observed sounding) or volume_m3 (m³ at that "
+              "sounding and trim)")
+        t.finish()
+        return None
+    key = "sounding_correction_m" if has_corr else "volume_m3"
+    val = t.matrix(key, "sounding_m", t.raw_len("sounding_m"), "trim_m", t.raw_len("trim_m"))
+    t.finish()
+    if trims is None or sound is None or val is None:
+        return None
+    cap = float(cal.volume_m3[-1])
+    lo, hi = (-top, top) if has_corr else (0.0, cap * (1 + CAPACITY_TOLERANCE))
+    bad = np.argwhere((val < lo) | (val > hi))
+    if bad.size:
+        i, j = (int(x) for x in bad[0])
+        what = (f"a sounding correction must stay within ±{num(top)} m, the calibration's height" if has_corr
+                else f"a volume must lie within 0–{num(cap)} m³, the tank's capacity")
+        t.bad(key, t.data[key], f"row {i + 1}, column {j + 1}: {num(float(val[i, j]))} is outside the tank: {what}",
+              (i, j))
+        return None
+    # The surface through the pipe reading tilts by t/LBP; over a tank no longer than the waterline
+    # (1.2·LBP, as the audit's envelope) it lies within s ± 1.2·|t| of the reading, so the even-keel
+    # level holding the same volume does too (the volume rises with the level): derived.
+    reach = TRIM_CORRECTION_REACH * np.abs(trims)[None, :]
+    if has_corr:
+        bad = np.argwhere(np.abs(val) > reach + 1e-9)
+    else:
+        lev = sound[:, None] + zero
+        lo_v = np.interp(np.clip(lev - reach, 0.0, top), cal.sounding_m, cal.volume_m3)
+        hi_v = np.interp(np.clip(lev + reach, 0.0, top), cal.sounding_m, cal.volume_m3)
+        bad = np.argwhere((val < lo_v * (1 - CAPACITY_TOLERANCE) - 1e-9) | (val > hi_v * (1 + CAPACITY_TOLERANCE) + 1e-9))
+    if bad.size:
+        i, j = (int(x) for x in bad[0])
+        t.bad(key, t.data[key], f"row {i + 1}, column {j + 1}: {num(float(val[i, j]))} at trim {num(float(trims[j]))} m "
+              f"is more than a surface tilted {num(float(trims[j]))} m over LBP can make (the level within "
+              f"±{num(float(reach[0, j]))} m of the sounding read, 1.2 × the trim): a unit or column slip?", (i, j))
+        return None
+    return m.TrimCorrection(trim_m=m.frozen_array(trims), sounding_m=m.frozen_array(sound),
+                            value=m.frozen_array(val), kind=key)
+
+
 def _read_transfer(t: Table) -> m.FluidTransfer | None:
     fill = t.increasing("fill_pct", t.array("fill_pct", percent_range))
     fill = t.starts_at("fill_pct", fill, 0.0, "empty")

@@ -141,7 +141,8 @@ def _in_csv(f: Finding, full: Path, vessel: Vessel) -> Located:
     data = rows[1:]
     ints = [p for p in f.path if isinstance(p, int)]
     # the table's row: kn_m[i][j] is row i (column kn_<heel>), a column's value [r] is row r
-    r = ints[-2] if f.path[:2] == ("cross_curves", "kn_m") and len(ints) == 2 else ints[-1] if ints else None
+    kn = f.path[:2] == ("cross_curves", "kn_m") or (f.path[:1] == ("cross_curves_at_trim",) and "kn_m" in f.path)
+    r = ints[-2] if kn and len(ints) >= 2 else ints[-1] if ints else None
     if r is None:
         return Located(f, name, None)
     # (the finding's column may be a converted one, e.g. fsi_m4 typed as fsm_tm: the row is what counts)
@@ -166,6 +167,12 @@ def _anchor(f: Finding, vessel: Vessel, r: int) -> tuple[str, float] | None:
             return "displacement_t", float(vessel.hydrostatics.displacement_t[r])
         if p[0] == "cross_curves":
             return "displacement_t", float(vessel.cross_curves.displacement_t[r])
+        if p[0] in ("hydrostatics_at_trim", "cross_curves_at_trim") and vessel.trimmed is not None:
+            # the n-th entry in the file is the n-th table at a trim other than 0 (trims increase in file order)
+            hydro = p[0] == "hydrostatics_at_trim"
+            sets = vessel.trimmed.hydrostatics if hydro else vessel.trimmed.cross_curves
+            even = vessel.hydrostatics if hydro else vessel.cross_curves
+            return "displacement_t", float([t for t in sets if t is not even][p[1]].displacement_t[r])
         if p[0] == "tank" and len(p) > 2 and p[2] == "calibration":
             return "volume_m3", float(vessel.tanks[p[1]].calibration.volume_m3[r])
     except IndexError:
