@@ -242,3 +242,34 @@ def test_the_title_says_saving_until_the_change_is_on_disk(tmp_path):
             assert (tmp_path / "work").is_dir() and any((tmp_path / "work").glob("*.condition.toml"))
 
     asyncio.run(run())
+
+
+def test_the_writer_keeps_logging_when_a_save_fails_oddly_and_when_the_screen_is_gone(vessel, tmp_path):
+    """A save failing with something other than an OSError is reported (NOT SAVED) and the log entries of
+    the same batch are still appended; a report to a screen that is gone (it raises) stops nothing, and
+    flush does not wait for ever."""
+    book = Logbook.open(tmp_path / "logs", vessel.particulars.name)
+    journal = Journal(book)
+    journal.officer = "TS"
+
+    def odd_save(path, condition):
+        raise ValueError("cannot write this condition")
+
+    told = []
+
+    def gone(problem):
+        told.append(problem)
+        raise RuntimeError("Event loop is closed")
+
+    s = Session(vessel, c_with(), save_path=tmp_path / "w.condition.toml", journal=journal, save=odd_save)
+    s.write_in_background(gone, after_frame=lambda fn: None)  # no frame ever comes: flush hands them over
+    s.commit(c_with(TankFill("DB1P", "percent", 10.0)), "DB1P 10 %")
+    s.commit(c_with(TankFill("DB1P", "percent", 20.0)), "DB1P 20 %")
+    s.flush()
+    assert s.saves_pending == 0 and s.saves_written == 0
+    assert [e.change_text for e in book.entries()] == ["DB1P 10 %", "DB1P 20 %"]
+    assert told and all("NOT SAVED" in t and "cannot write this condition" in t for t in told)
+    s.commit(c_with(TankFill("DB1P", "percent", 30.0)), "DB1P 30 %")  # the writer still works
+    s.flush()
+    assert [e.change_text for e in book.entries()][-1] == "DB1P 30 %"
+    book.close()

@@ -110,6 +110,14 @@ def _state_data(state: tuple | None, prefix: str) -> dict:
     return out
 
 
+def _tell(callback: Callable, *args) -> None:
+    """Tell the screen from the writer thread; a screen already gone (quitting) is no reason to stop."""
+    try:
+        callback(*args)
+    except Exception:  # e.g. the event loop closed: the write itself has landed
+        pass
+
+
 class Journal:
     """The voyage log as the screen uses it: never raises, reports problems as text."""
 
@@ -474,33 +482,43 @@ class Session:
 
     def _drain(self) -> None:
         """Writer thread: write what is queued, newest save only, until nothing is left."""
-        while True:
-            with self._cv:
-                batch, self._queue = self._queue, []
-                if not batch:
-                    self._draining = False
-                    self._cv.notify_all()
-                    return
-            problems: list[str] = []
-            try:
-                newest = next((w for w in reversed(batch) if w.save), None)
-                if newest is not None:
-                    problems += self._persist(newest.condition, newest.kind, newest.label, newest.data,
-                                              newest.result, save=True, log=False)
-                for w in batch:  # the log is a record: every entry, in order
-                    if w.log:
-                        problems += self._persist(w.condition, w.kind, w.label, w.data, w.result,
-                                                  save=False, log=True)
-            except Exception as exc:  # the writer must never die with changes pending
-                problems.append(f"NOT SAVED: {self.save_path}: unexpected error while writing: {exc}. The change "
-                                "is on screen only; the next change tries again.")
-            finally:
+        try:
+            while True:
                 with self._cv:
-                    self._outstanding -= len(batch)
-                    self._cv.notify_all()
-            for p in problems:
-                self._report(p)
-            self._landed()
+                    batch, self._queue = self._queue, []
+                    if not batch:
+                        return
+                try:
+                    problems = self._write_batch(batch)
+                finally:
+                    with self._cv:
+                        self._outstanding -= len(batch)
+                        self._cv.notify_all()
+                for p in problems:
+                    _tell(self._report, p)
+                _tell(self._landed)
+        finally:
+            with self._cv:  # whatever happened, flush must not wait for a writer that has stopped
+                self._draining = bool(self._queue) and self._draining
+                if self._queue:
+                    self._writer.submit(self._drain)
+                self._cv.notify_all()
+
+    def _write_batch(self, batch: list[_Write]) -> list[str]:
+        """The newest condition of ``batch`` saved once, then every log entry of it in order."""
+        problems: list[str] = []
+        newest = next((w for w in reversed(batch) if w.save), None)
+        if newest is not None:
+            try:
+                problems += self._persist(newest.condition, newest.kind, newest.label, newest.data,
+                                          newest.result, save=True, log=False)
+            except Exception as exc:  # not an OSError (those _persist words itself): still never silent
+                problems.append(f"NOT SAVED: {self.save_path}: {exc}. The change is on screen only; the next "
+                                "change tries again.")
+        for w in batch:  # the log is a record: every entry, whatever became of the save
+            if w.log:
+                problems += self._persist(w.condition, w.kind, w.label, w.data, w.result, save=False, log=True)
+        return problems
 
     def flush(self) -> list[str]:
         """Settle a run of edits, then wait until every change is saved and logged; problems not
