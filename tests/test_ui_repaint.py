@@ -69,10 +69,11 @@ async def test_a_nudge_repaints_only_the_lines_it_changed(app):
             rows_changed = [y for y, (a, b) in enumerate(zip(before[pid], after[pid])) if a != b]
             if len(before[pid]) == len(after[pid]):
                 assert rows_asked == rows_changed, f"{pid}: repainted {rows_asked}, changed {rows_changed}"
-        # The board: only the nudged tank's line (and its group's total beside it) changed and was repainted.
+        # The board: the nudged tank's line, its group's total and the deadweight lines changed (a handful,
+        # not the board), and exactly those were repainted.
         board_after = [r.text.plain for r in board.rows]
         rows_changed = [i for i, (a, b) in enumerate(zip(board_before, board_after)) if a != b]
-        assert 1 <= len(rows_changed) <= 2 and board.cursor in rows_changed
+        assert board.cursor in rows_changed and len(rows_changed) <= 4 < len(board_after)
         top = int(board.scroll_offset.y)
         rows_asked = sorted({r.y + top for call in board_asked if call != "all" for r in call})
         assert rows_asked == rows_changed
