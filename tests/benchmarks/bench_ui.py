@@ -130,6 +130,8 @@ def _child(which: str, width: int, height: int, keys: int, out: str, spawned_at:
     if keys:
         app.call_later(start)
     app.run()
+    if getattr(app, "bench_tmp", None) is not None:
+        shutil.rmtree(app.bench_tmp, ignore_errors=True)
     Path(out).write_text(json.dumps({
         "samples_ms": samples,
         "cpu_ms": cpu[:keys],
@@ -176,6 +178,7 @@ def _deckload_app(marks: dict):
     marks["profile and condition read"] = time.time()
     app = create_app(vessel, condition, work_dir=tmp / "work", log_dir=tmp / "logs", officer="BM")
     marks["app made"] = time.time()
+    app.bench_tmp = tmp
     save, app.saves = app.session._save, [0]
 
     def counted(path, condition):  # every condition-file save the session makes
@@ -260,7 +263,8 @@ def main(argv: list[str]) -> int:
           f"{os.cpu_count()} CPUs, load {os.getloadavg()[0]:.1f}, commit {rev.stdout.strip() or 'none'}")
     print(f"{'':24}{'key→frame median':>17}{'p90':>9}{'(CPU)':>9}{'first paint':>13}{'peak RSS':>11}")
     verdicts = []
-    env = _compile(Path(tempfile.mkdtemp(prefix="deckload-bench-pyc-")))
+    pyc = tempfile.TemporaryDirectory(prefix="deckload-bench-pyc-")
+    env = _compile(Path(pyc.name))
     for pinned, title in ((False, "two cores"), (True, "one core (taskset -c 0)")):
         runs: dict[str, list[dict]] = {"bare": [], "deckload": []}
         starts: dict[str, list[dict]] = {"bare": [], "deckload": []}
@@ -293,6 +297,7 @@ def main(argv: list[str]) -> int:
         print(f"{title}: key→frame {'within' if key_ok else 'OVER'} {KEY_TARGET:g}×, first paint "
               f"{'within' if paint_ok else 'OVER'} {PAINT_TARGET:g}×")
     print("other targets: key→frame median ≤ 30 ms, peak RSS ≤ 80 MiB")
+    pyc.cleanup()
     return 0
 
 
