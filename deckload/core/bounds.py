@@ -189,24 +189,55 @@ class BeyondTablesError(OutOfRangeError):
     """The condition puts an end of the ship where the upright tables do not reach."""
 
 
+_FIELD_NAMES: dict[type, tuple[str, ...]] = {}
+
+
+def _all_finite(obj) -> bool:
+    """True when every number in ``obj`` is certainly finite: the quick pass over a result (no
+    path strings are built); False sends :func:`_non_finite` the slow way to name the bad one."""
+    t = type(obj)
+    if t is float:
+        return math.isfinite(obj)
+    if obj is None or t is str or t is bool or t is int:
+        return True
+    if t is tuple or t is list:
+        return all(map(_all_finite, obj))
+    names = _FIELD_NAMES.get(t)
+    if names is None and dataclasses.is_dataclass(obj) and not isinstance(obj, type):
+        names = _FIELD_NAMES[t] = tuple(f.name for f in dataclasses.fields(obj))
+    if names is not None:
+        return all(_all_finite(getattr(obj, n)) for n in names)
+    if isinstance(obj, np.ndarray) and obj.dtype.kind in "fc":
+        return bool(np.isfinite(obj).all())
+    if isinstance(obj, np.floating):
+        return bool(np.isfinite(obj))
+    return False  # anything else: the slow pass decides
+
+
 def _non_finite(obj, path: str) -> str | None:
+    if _all_finite(obj):
+        return None
+    return _first_non_finite(obj, path)
+
+
+def _first_non_finite(obj, path: str) -> str | None:
     if isinstance(obj, bool) or obj is None or isinstance(obj, str):
         return None
     if isinstance(obj, (int, float)):
         return None if math.isfinite(obj) else path
     if dataclasses.is_dataclass(obj):
         for f in dataclasses.fields(obj):
-            bad = _non_finite(getattr(obj, f.name), f"{path}.{f.name}" if path else f.name)
+            bad = _first_non_finite(getattr(obj, f.name), f"{path}.{f.name}" if path else f.name)
             if bad:
                 return bad
         return None
     if isinstance(obj, (tuple, list)):
         for i, x in enumerate(obj):
-            bad = _non_finite(x, f"{path}[{i}]")
+            bad = _first_non_finite(x, f"{path}[{i}]")
             if bad:
                 return bad
     if hasattr(obj, "dtype") and hasattr(obj, "tolist"):  # numpy scalars/arrays
-        return _non_finite(obj.tolist(), path)
+        return _first_non_finite(obj.tolist(), path)
     return None
 
 

@@ -43,6 +43,7 @@ class LoadingScreen(Screen[None]):
         super().__init__()
         self.session = session
         self._settle_timer = None
+        self._criteria_made: tuple | None = None
 
     def compose(self) -> ComposeResult:
         yield SizedPanel(id="titlebar")
@@ -58,8 +59,12 @@ class LoadingScreen(Screen[None]):
 
     def on_mount(self) -> None:
         loop = asyncio.get_running_loop()
+        # Writes go to the writer thread once the change's frame is drawn; the interval is a
+        # backstop for a frame that never comes (the screen that was to draw it closed first).
         self.session.write_in_background(lambda p: loop.call_soon_threadsafe(self._report, p),
-                                         lambda: loop.call_soon_threadsafe(self._save_landed))
+                                         lambda: loop.call_soon_threadsafe(self._save_landed),
+                                         after_frame=self.call_after_refresh)
+        self.set_interval(0.5, self.session.release_writes)
         self.query_one(LoadBoard).focus()
         self.refresh_view()
         self.query_one("#keys", SizedPanel).show(lambda w, h: [self._key_line(w)])
@@ -100,7 +105,7 @@ class LoadingScreen(Screen[None]):
         self.query_one("#alerts", SizedPanel).show(lambda w, h: alert_lines(alerts, h, w))
         self.query_one("#afloat", SizedPanel).show(lambda w, h: views.afloat_lines(v, c, r, stale, w))
         self._size_criteria(r, stale)
-        self.query_one("#criteria", SizedPanel).show(lambda w, h: verdict.criteria_lines(r, stale, w, h))
+        self.query_one("#criteria", SizedPanel).show(lambda w, h: self._criteria_lines(r, stale, w, h))
         self.query_one("#gz", SizedPanel).show(lambda w, h: self._curve_lines(r, stale, w, h))
         self.query_one("#titlebar", SizedPanel).show(lambda w, h: [self._title(w)])
 
@@ -122,9 +127,20 @@ class LoadingScreen(Screen[None]):
             want = "1fr"
         else:
             room = max(4, side.size.height - self.query_one("#afloat").outer_size.height - MIN_CURVE_ROWS)
-            want = str(len(verdict.criteria_lines(r, stale, max(1, side.size.width), room)))
+            lines = verdict.criteria_lines(r, stale, max(1, side.size.width), room)
+            # The panel is made exactly that tall: what it shows at that height is these lines.
+            self._criteria_made = (r, stale, max(1, side.size.width), len(lines), lines)
+            want = str(len(lines))
         if str(panel.styles.height) != want and not (want == "1fr" and str(panel.styles.height) == "1fr"):
             panel.styles.height = want
+
+    def _criteria_lines(self, r, stale: bool, w: int, h: int) -> list[Text]:
+        """The criteria panel's lines; those :meth:`_size_criteria` just made for this result and size
+        are taken as they are (the panel's lines are otherwise built twice a key)."""
+        made = self._criteria_made
+        if made is not None and made[0] is r and made[1:4] == (stale, w, h):
+            return made[4]
+        return verdict.criteria_lines(r, stale, w, h)
 
     def _title(self, width: int) -> Text:
         """Vessel, condition, whether changes are logged, undo depth; shortened on narrow screens."""
