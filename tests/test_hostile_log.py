@@ -134,14 +134,21 @@ def test_a_log_folder_that_cannot_be_made_names_it(tmp_path, capsys, monkeypatch
     assert str(blocker / "logs") in err and "nothing was recorded" in err
 
 
-async def test_the_status_line_never_says_saved_when_the_save_failed(tmp_path):
-    """The working condition's save fails (disk full): the message line says NOT SAVED."""
+async def test_the_status_line_never_says_saved_when_the_save_failed(tmp_path, monkeypatch):
+    """The working condition's save fails (disk full): the message line says NOT SAVED.
+
+    The message names the file; the working folder is given relative to ``tmp_path`` so that the
+    line's length, and so what of it fits 120 columns, does not depend on where pytest puts its
+    temporary folders (longer under pytest-xdist workers)."""
+    from pathlib import Path
+
     from deckload.io import paths
     from deckload.io.profiles import load_condition
     from deckload.ui.launch import create_app
 
+    monkeypatch.chdir(tmp_path)
     vessel = demo_vessel()
-    app = create_app(vessel, load_condition(paths.DEMO_CONDITIONS["departure"], vessel), work_dir=tmp_path,
+    app = create_app(vessel, load_condition(paths.DEMO_CONDITIONS["departure"], vessel), work_dir=Path("work"),
                      log_dir=None)
 
     def full(path, condition):
