@@ -247,6 +247,9 @@ class TankPicking:
             return None
         field = self._tank_field()
         typed = self._typed_word(field)
+        if not found and not typed:  # e.g. the only tank of that liquid is the one to fill, and it is empty
+            return [Text("No tank can serve here: none of that liquid holds any (to give) or has room (to take).",
+                         P["caution"])]
         if not found:
             return [Text(f"No tank here matches {typed!r}: type part of an id, name or kind.", P["caution"])]
         self._pick = max(0, min(self._pick, len(found) - 1))
@@ -302,8 +305,11 @@ class TransferForm(TankPicking, Form):
 
     def _want(self, field: str):
         c = self._condition
-        if field == "xfer-from":
-            return lambda t: entry.fill_volume_m3(t, c.tank_fill(t.id)) > 1e-6
+        if field == "xfer-from":  # tanks that hold some, of the receiving tank's liquid once it is named
+            dst = self.query_one("#xfer-to", Input).value.strip().upper()
+            kind = self._vessel.tank(dst).kind if dst in self._vessel.tank_index else None
+            return lambda t: (kind is None or t.kind == kind) and t.id != dst and \
+                entry.fill_volume_m3(t, c.tank_fill(t.id)) > 1e-6
         src = self.query_one("#xfer-from", Input).value.strip().upper()
         kind = self._vessel.tank(src).kind if src in self._vessel.tank_index else None
         return lambda t: (kind is None or t.kind == kind) and t.id != src and \

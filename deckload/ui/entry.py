@@ -466,3 +466,17 @@ def receiving_tank(vessel: Vessel, condition: Condition, from_id: str) -> str:
         return src.pair
     others = [t for t in vessel.tanks if t.kind == src.kind and t.id != from_id and room(t) > 1e-6]
     return max(others, key=room).id if others else ""
+
+
+def giving_tank(vessel: Vessel, condition: Condition, to_id: str) -> str:
+    """The transfer form's default from-tank when the tank chosen to fill is empty: the partner if
+    it holds some, else the tank of the same liquid holding the most; '' when none holds any."""
+    dst = vessel.tank(to_id)
+
+    def held(t) -> float:
+        return fill_volume_m3(t, condition.tank_fill(t.id))
+
+    if dst.pair and dst.pair in vessel.tank_index and held(vessel.tank(dst.pair)) > 1e-6:
+        return dst.pair
+    others = [t for t in vessel.tanks if t.kind == dst.kind and t.id != to_id and held(t) > 1e-6]
+    return max(others, key=held).id if others else ""
