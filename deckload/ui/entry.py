@@ -23,6 +23,7 @@ from deckload.core.loading import LoadingError, level_of, over_limit, reading_ra
 from deckload.core.model import (
     LEVEL_QUANTITIES,
     Condition,
+    DeckArea,
     DeckItem,
     Hold,
     HoldLoad,
@@ -452,6 +453,28 @@ def tank_choice(condition: Condition, tank: Tank) -> str:
     room = (tank.capacity_m3 - vol) * rho
     return (f"{tank.id:<6} {tank.kind.replace('_', ' '):<11.11} {100 * vol / tank.capacity_m3:5.1f} % "
             f"{vol * rho:7.2f} t  room {room:7.2f} t  {tank.name}")
+
+
+def area_matches(vessel: Vessel, typed: str) -> list[DeckArea]:
+    """The deck areas a deck-area field offers as the officer types, as ``tank_matches``: id
+    starting with the text first, then id or name containing it; every area when nothing is typed."""
+    t = typed.strip().lower()
+    if not t:
+        return list(vessel.deck_areas)
+    first = [a for a in vessel.deck_areas if a.id.lower().startswith(t)]
+    return first + [a for a in vessel.deck_areas if a not in first and (t in a.id.lower() or t in a.name.lower())]
+
+
+def area_choice(condition: Condition, area: DeckArea) -> str:
+    """One line of the deck-area list: id, area, the deck items already on it and, where the
+    profile states a permissible uniform load, the room left under it (max_load_t_m2 × area_m2
+    less those items: the limit the deck-load check applies, core.stability), then the name."""
+    on = sum(d.mass_t for d in condition.deck_items if d.area_id == area.id)
+    if area.max_load_t_m2 is None:
+        room = "no load limit stated"
+    else:
+        room = f"room {area.max_load_t_m2 * area.area_m2 - on:7.1f} t (≤ {area.max_load_t_m2:.2f} t/m²)"
+    return f"{area.id:<10} {area.area_m2:6.1f} m²  on it {on:6.1f} t  {room}  {area.name}"
 
 
 def receiving_tank(vessel: Vessel, condition: Condition, from_id: str) -> str:
