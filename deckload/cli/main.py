@@ -44,6 +44,8 @@ def _parser() -> argparse.ArgumentParser:
     t = sub.add_parser("tables", help="compute hydrostatic, cross-curve and tank tables from hull geometry")
     t.add_argument("geometry", type=Path)
     t.add_argument("-o", "--output", type=Path, help="profile to write or refresh (default: print to stdout)")
+    t.add_argument("--trims", metavar="T1,T2,...",
+                   help="also hydrostatics and KN at these trims (m, + by the stern, comma-separated, not 0)")
 
     x = sub.add_parser("csv", help="write a profile's tables as CSV files, in the booklet's conventions, to compare")
     x.add_argument("profile", type=Path)
@@ -226,7 +228,7 @@ def _main(argv: list[str] | None) -> int:
         if cmd == "tables":
             from deckload.cli.tables import run_tables
 
-            return run_tables(args.geometry, args.output)
+            return run_tables(args.geometry, args.output, args.trims)
         if cmd == "csv":
             from deckload.cli.csv_export import run_csv
 
