@@ -200,8 +200,23 @@ def _files(args: argparse.Namespace) -> list[str]:
             if getattr(args, k, None) is not None]
 
 
+def _join_trims(argv: list[str]) -> list[str]:
+    """``--trims -1,1`` as ``--trims=-1,1``: argparse would take a list starting with a minus sign
+    for an option."""
+    out: list[str] = []
+    i = 0
+    while i < len(argv):
+        if argv[i] == "--trims" and i + 1 < len(argv) and argv[i + 1].startswith("-") and argv[i + 1][1:2] in "0123456789.":
+            out.append("--trims=" + argv[i + 1])
+            i += 2
+            continue
+        out.append(argv[i])
+        i += 1
+    return out
+
+
 def _main(argv: list[str] | None) -> int:
-    args = _parser().parse_args(argv)
+    args = _parser().parse_args(_join_trims(list(sys.argv[1:] if argv is None else argv)))
     unknown = _demo_shorthand(args)
     if unknown:
         print(f"deckload: {unknown}", file=sys.stderr)
