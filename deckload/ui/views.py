@@ -14,6 +14,7 @@ from rich.text import Text
 from deckload.core.free_surface import EXEMPT_RULE
 from deckload.core.model import Condition, LIQUID_KINDS, Vessel
 from deckload.core.result import CriterionResult, Result
+from deckload.core.trimmed_tables import tables_basis
 from deckload.report.verdict_format import fmt_optional
 from deckload.ui.entry import fill_volume_m3, tank_density
 from deckload.ui.gzplot import GzChart, Mark
@@ -198,7 +199,8 @@ def _pair(line: Text, label: str, value: str, unit: str, stale: bool, compact: b
 def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, stale: bool, width: int = 54) -> list[Text]:
     """Displacement, deadweight, drafts, trim, freeboard at midships and its margin to the load line
     in use (FWA/DWA applied by the engine), list, deck-edge immersion angle, KG, θf, KG fluid, FSC,
-    GM fluid, KM (two pairs a line; 'n/a' where the result has no value)."""
+    GM fluid, KM (two pairs a line; 'n/a' where the result has no value), and the tables used
+    (even keel, or the tables at trims the trim was interpolated between)."""
     compact = width < 44
     title = Text(" Afloat", P["title"])
     title.append(f"  ρ {condition.water_density_t_m3:.3f} t/m³", P["dim"])
@@ -231,6 +233,8 @@ def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, st
         line.append(" " if compact else "")
         _pair(line, *right, stale, compact)
         out.append(line)
+    # which hydrostatic and KN tables: even keel, or at trims and between which
+    out.append(Text(" Tables ", P["label"]) + Text(tables_basis(vessel, r.trim_m).short, P["dim"]))
     return out
 
 
