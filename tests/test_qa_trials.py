@@ -225,7 +225,7 @@ def test_calc_words_an_upright_even_keel_condition_as_the_report_does(capsys):
     and "even keel" (report._side, report._trim: below the last printed decimal)."""
     assert main(["calc", "trawler", "arrival"]) == 0
     out = capsys.readouterr().out
-    assert "0.00° upright" in out and "0.000 m even keel" in out
+    assert "0.0° upright" in out and "0.000 m even keel" in out  # the list to 0.1°, as every view gives it
     assert "° stbd" not in out and "by the stern" not in out
     assert main(["calc", "trawler", "departure"]) == 0  # a real trim keeps its side
     assert "0.205 m by the stern" in capsys.readouterr().out

@@ -175,7 +175,7 @@ def test_html_report_has_the_content_and_print_css(case):
     p = _Pre()
     p.feed(doc)
     text = "\n".join(t for _, t in p.blocks)
-    assert [cls for cls, _ in p.blocks] == ["header", "summary", "items", "free-surface", "criteria", "closing"]
+    assert [cls for cls, _ in p.blocks] == ["header", "summary", "items", "deadweight", "free-surface", "criteria", "closing"]
     assert text.count("LOADING CONDITION AND INTACT STABILITY") == 1  # each block exported once, not repeated
     assert f"{r.gm_fluid_m:.3f} m" in text and f"{r.displacement_t:.2f}" in text
     for cr in r.criteria:
@@ -300,7 +300,8 @@ def test_report_names_the_sets_and_lists_what_was_not_assessed(demo_case):
         row = next(line for line in txt.splitlines() if line.startswith(label))
         assert value in row
     assert f"Deck edge immersion{'':1}" in txt and f"{r.deck_edge_angle_deg:.1f}°" in txt
-    assert f"{r.freeboard_m:.3f} / {r.load_line_margin_m:+.3f} m" in txt
+    assert re.search(rf"Freeboard at midships +{r.freeboard_m:.3f} m", txt)
+    assert re.search(r"Margin to the mark +" + re.escape(f"{r.load_line_margin_m:+.3f} m"), txt)
 
 
 def htmllib_unescape(text: str) -> str:
@@ -355,3 +356,39 @@ def test_no_weather_diagram_when_the_weather_criterion_was_not_assessed(case):
     v, c, r = case
     assert r.weather is None
     assert weather_svg(r) is None and render_report_html(r, v, c).count("<svg") == 1
+
+
+def _deadweight_numbers(block: str) -> dict[str, float]:
+    """Column title → mass from the printed 'Deadweight by kind (t)' table."""
+    lines = [ln for ln in block.splitlines() if ln.strip()]
+    at = next(i for i, ln in enumerate(lines) if ln.startswith("Deadweight by kind"))
+    values = [float(x) for x in lines[at + 3].split()]  # title, column heads, rule, the masses
+    heads = re.split(r"\s{2,}", lines[at + 1].strip())
+    return dict(zip(heads, values, strict=True))
+
+
+def test_report_gives_the_deadweight_by_kind_adding_up_to_the_deadweight(demo_case):
+    """The demo departure by hand from its condition file and the profile (p % of capacity × ρ):
+    cargo = hold 50 t + deck 14 + 13 + 3.5 + 6 t + CF1P/S, CF2P/S 4 × 0.98 × 43.2 m³ × 0.85 t/m³;
+    fuel oil 2 × 0.95 × 13.1773 × 0.85; diesel 2 × 0.95 × 5.867 × 0.85; lube oil 0.90 × 1.575 × 0.90;
+    stores and constants 1.2 + 2.0 + 3.0 t.  Deadweight = Δ − lightship (common practice)."""
+    v, c, r = demo_case
+    by_hand = {"Cargo": 50.0 + 36.5 + 4 * 0.98 * 43.2 * 0.85, "Fuel oil": 2 * 0.95 * 13.1773 * 0.85,
+               "Diesel oil": 2 * 0.95 * 5.867 * 0.85, "Lube oil": 0.90 * 1.575 * 0.90,
+               "Stores and constants": 6.2}
+    for text in (render_report_text(r, v, c),
+                 "".join(t for cls, t in _pre_blocks(render_report_html(r, v, c)) if cls == "deadweight")):
+        shown = _deadweight_numbers(htmllib_unescape(text))
+        assert set(shown) == {"Cargo", "Fuel oil", "Diesel oil", "Lube oil", "Fresh water", "Ballast water",
+                              "Stores and constants", "Deadweight"}
+        for title, mass in by_hand.items():
+            assert shown[title] == pytest.approx(mass, abs=0.005 + 1e-9), title  # printed to 0.01 t
+        assert shown["Deadweight"] == pytest.approx(r.displacement_t - r.lightship_t, abs=0.005 + 1e-9)
+        parts = sum(m for t, m in shown.items() if t != "Deadweight")
+        assert parts == pytest.approx(shown["Deadweight"], abs=7 * 0.005)  # seven entries rounded to 0.01 t
+
+
+def _pre_blocks(doc: str) -> list[tuple[str, str]]:
+    p = _Pre()
+    p.feed(doc)
+    return p.blocks

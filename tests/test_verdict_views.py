@@ -155,7 +155,9 @@ async def test_afloat_shows_freeboard_its_margin_and_the_angles(tmp_path):
         r = app.session.result
         a = panel(app, "afloat")
         assert re.search(rf"Fbd\s+{r.freeboard_m:.3f} m", a)
-        assert re.search(r"to LL\s+" + re.escape(f"{r.load_line_margin_m:+.3f}") + " m sum", a)
+        assert re.search(r"Margin\s+" + re.escape(f"{r.load_line_margin_m:+.3f}") + " m", a)
+        assert re.search(rf"Mark\s+{r.load_line_allowed_draft_m:.3f} m S", a)  # S: the summer mark's letter (ICLL)
+        assert re.search(r"DWA\s+" + re.escape(f"{r.dock_water_allowance_m:+.3f}") + " m", a)
         assert re.search(rf"∠deck\s+{r.deck_edge_angle_deg:.1f} °", a)
         assert re.search(rf"θf\s+{r.downflooding_angle_deg:.1f} °", a)
 
@@ -172,7 +174,7 @@ async def test_afloat_says_n_a_when_the_result_has_no_value(tmp_path, sample_eva
     async with app.run_test(size=(120, 40)) as pilot:
         await pilot.pause()
         a = panel(app, "afloat")
-        assert re.search(r"Fbd\s+n/a m", a) and re.search(r"to LL\s+n/a m", a) and re.search(r"∠deck\s+n/a °", a)
+        assert re.search(r"Fbd\s+n/a m", a) and re.search(r"Margin\s+n/a m", a) and re.search(r"∠deck\s+n/a °", a)
 
 
 # --------------------------------------------------------------------------- calc and check
@@ -185,7 +187,7 @@ def test_calc_text_names_the_sets_the_weather_numbers_and_what_was_not_assessed(
     assert "A 2.2 general criteria [IS2008-A2.2]: met" in out and "A 2.3 weather criterion [IS2008-A2.3]: met" in out
     assert "Not assessed:" in out and "- damage stability: not computed by deckload" in out
     assert re.search(r"weather: wind 504 Pa on [\d.]+ m², lever [\d.]+ m; lw1 [\d.]+ m, lw2 [\d.]+ m; θ0", out)
-    assert re.search(r"Freeboard mid\s+[\d.]+ m\s+To load line\s+\+[\d.]+ m", out)
+    assert re.search(r"Freeboard mid\s+[\d.]+ m\s+Margin to the mark\s+\+[\d.]+ m", out)
     assert re.search(r"Deck edge in\s+[\d.]+°", out)
     flat = " ".join(out.split())
     assert "Met: IS Code 2008 Part A 2.2 general criteria, IS Code 2008 Part A 2.3 weather criterion." in flat

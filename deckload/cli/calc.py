@@ -17,7 +17,7 @@ def format_summary(r: Result, tables: str | None = None) -> str:
     """A plain-text summary of a result, for the terminal; ``tables`` is the sentence saying which
     hydrostatic and KN tables were used (:func:`deckload.core.trimmed_tables.tables_basis`)."""
     # below the last printed decimal the words of the report: upright, even keel (not "0.00° stbd")
-    side = "upright" if abs(r.list_deg) < 0.005 else "stbd" if r.list_deg > 0 else "port"
+    side = "upright" if abs(r.list_deg) < 0.05 else "stbd" if r.list_deg > 0 else "port"
     trim_word = "even keel" if abs(r.trim_m) < 0.0005 else "by the stern" if r.trim_m > 0 else "by the head"
     lines = [
         f"{r.vessel_name} — {r.condition_name}  (water {r.water_density_t_m3:.3f} t/m³)",
@@ -27,7 +27,7 @@ def format_summary(r: Result, tables: str | None = None) -> str:
         f"  KG solid       {r.kg_m:10.3f} m      ΣFSM         {r.fsm_total_tm:10.1f} t·m",
         f"  FSC (ΣFSM/Δ)   {r.fsc_m:10.3f} m      KG fluid     {r.kg_fluid_m:10.3f} m",
         f"  KMt            {r.km_m:10.3f} m      GM solid     {r.gm_solid_m:10.3f} m",
-        f"  GM fluid       {r.gm_fluid_m:10.3f} m      List         {abs(r.list_deg):9.2f}° {side}",
+        f"  GM fluid       {r.gm_fluid_m:10.3f} m      List         {abs(r.list_deg):9.1f}° {side}",
         f"  Draft aft      {r.draft_aft_m:10.3f} m      Draft fwd    {r.draft_fwd_m:10.3f} m",
         f"  Draft midships {r.draft_mean_m:10.3f} m      Trim         {abs(r.trim_m):10.3f} m {trim_word}",
         f"  Max GZ         {r.max_gz_m:10.3f} m at {r.max_gz_angle_deg:4.1f}°"
@@ -35,7 +35,11 @@ def format_summary(r: Result, tables: str | None = None) -> str:
            else f"   vanishing beyond {r.gz_end_deg:g}°")
         + (f"   θf {r.downflooding_angle_deg:.1f}°" if r.downflooding_angle_deg is not None else ""),
         f"  Freeboard mid  {vf.fmt_optional(r.freeboard_m, '.3f', ' m'):>12}      "
-        f"To load line {vf.fmt_optional(r.load_line_margin_m, '+.3f', ' m'):>11} (+ below the mark in use)",
+        f"Margin to the mark {vf.fmt_optional(r.load_line_margin_m, '+.3f', ' m'):>9} (+ below it)",
+        *([f"  Load line      {r.load_line_mark} mark {r.load_line_mark_draft_m:.3f} m; in water of "
+           f"{r.water_density_t_m3:.3f} t/m³ DWA {vf.fmt_optional(r.dock_water_allowance_m, '+.3f', ' m')}, "
+           f"allowed midships draft {vf.fmt_optional(r.load_line_allowed_draft_m, '.3f', ' m')}"]
+          if r.load_line_mark is not None else []),
         f"  Deck edge in   {vf.fmt_optional(r.deck_edge_angle_deg, '.1f', '°'):>11}       "
         f"θf {vf.fmt_optional(r.downflooding_angle_deg, '.1f', '°', 'not given'):>18}",
         f"  Free surface: rule {r.fs_rule}, GZ correction {r.gz_correction}",
@@ -88,7 +92,7 @@ def format_comparison(cmp) -> str:
         f"    {'':<24}{'tables':>11}{'direct':>11}{'difference':>12}",
     ]
     for name, unit, a, b in cmp.rows:
-        d = 2 if unit == "deg" else 4 if unit == "m·rad" else 3
+        d = 1 if unit == "deg" else 4 if unit == "m·rad" else 3  # angles to 0.1°, as every view
         lines.append(f"    {name:<24}{a:11.{d}f}{b:11.{d}f}{b - a:+12.{d}f} {unit}")
     lines.append("    The criteria above are judged on the tables; the direct figures are for comparison.")
     return "\n".join(lines)

@@ -163,7 +163,7 @@ def entry_row(e: LogEntry) -> dict[str, str]:
         "draft_aft_m": _fmt(s.get("draft_aft_m")),
         "draft_mean_m": _fmt(s.get("draft_mean_m")),
         "trim_m": _fmt(s.get("trim_m")),
-        "list_deg": _fmt(s.get("list_deg"), 2),
+        "list_deg": _fmt(s.get("list_deg"), 1),  # angles to 0.1°, as every view gives them
         "gm_fluid_m": _fmt(s.get("gm_fluid_m")),
         "fsc_m": _fmt(s.get("fsc_m")),
         "criteria_pass": {"": "", "met": "pass", "NOT MET": "FAIL", "met where assessable": "n/a"}[vf.stored_word(s)],

@@ -236,6 +236,21 @@ class Result:
     negative when she is over her mark."""
     gz_end_deg: float = 90.0
     """Last heel angle the KN tables reach; the curve, areas and plots stop here."""
+    load_line_mark: str | None = None
+    """Name of the load-line mark in use (the condition's, else summer); None without marks."""
+    load_line_mark_draft_m: float | None = None
+    """That mark's own midships draft, in the water it is set for (m)."""
+    load_line_allowed_draft_m: float | None = None
+    """Midships draft allowed at that mark in the water she floats in (m): the mark's draft plus
+    the dock-water allowance (:attr:`dock_water_allowance_m`)."""
+
+    @property
+    def dock_water_allowance_m(self) -> float | None:
+        """How much deeper than its own draft the mark allows in this water (m): the DWA,
+        FWA·(ρ_mark − ρ)/0.025 (deckload.core.hydrostatics.permitted_draft_m)."""
+        if self.load_line_allowed_draft_m is None or self.load_line_mark_draft_m is None:
+            return None
+        return self.load_line_allowed_draft_m - self.load_line_mark_draft_m
 
     @property
     def all_criteria_pass(self) -> bool:
@@ -357,5 +372,8 @@ class Result:
             "deck_edge_angle_deg": self.deck_edge_angle_deg,
             "freeboard_m": self.freeboard_m,
             "load_line_margin_m": self.load_line_margin_m,
+            "load_line_mark": self.load_line_mark,
+            "load_line_mark_draft_m": self.load_line_mark_draft_m,
+            "load_line_allowed_draft_m": self.load_line_allowed_draft_m,
             "gz_end_deg": self.gz_end_deg,
         }

@@ -489,6 +489,9 @@ def _result(vessel: Vessel, condition: Condition, weights: Weights, fs: FreeSurf
         deck_edge_angle_deg=assessment.deck_edge_deg,
         freeboard_m=vessel.particulars.depth_m - floating.draft_mid_m,
         load_line_margin_m=None if allowed is None or allowed[1] is None else allowed[1] - floating.draft_mid_m,
+        load_line_mark=None if allowed is None else allowed[0].name,
+        load_line_mark_draft_m=None if allowed is None else allowed[0].draft_m,
+        load_line_allowed_draft_m=None if allowed is None else allowed[1],
     )
 
 

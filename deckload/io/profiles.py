@@ -66,12 +66,10 @@ from deckload.io.tomlcheck import (
 PROFILE_FORMAT = "deckload-profile-1"
 CONDITION_FORMAT = "deckload-condition-1"
 
-LIQUID_DENSITY_RANGE_T_M3 = (0.5, 2.0)
-"""Plausible densities of a tank's contents (t/m³): light oils ~0.8, heavy brines ~1.3."""
-
 from deckload.core.bounds import (  # noqa: E402  one set of ranges for files and the screen
     BEAM_DEPTH_RANGE_M,
     LBP_RANGE_M,
+    LIQUID_DENSITY_RANGE_T_M3,
     WATER_DENSITY_RANGE_T_M3,
     table_trim_range,
 )

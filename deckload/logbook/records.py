@@ -17,6 +17,7 @@ from dataclasses import dataclass
 from datetime import datetime
 from typing import Any, Iterable
 
+from deckload.core.deadweight import deadweight_by_kind
 from deckload.core.model import Condition
 from deckload.core.result import Result
 from deckload.io.limits import MAX_LOG_LINE_BYTES
@@ -126,6 +127,9 @@ def summarise(result: Result) -> dict:
         "downflooding_angle_deg": result.downflooding_angle_deg,
         "freeboard_m": result.freeboard_m,
         "load_line_margin_m": result.load_line_margin_m,
+        "load_line_mark": result.load_line_mark,
+        "load_line_allowed_draft_m": result.load_line_allowed_draft_m,
+        "deadweight_by_kind_t": {d.title: d.mass_t for d in deadweight_by_kind(result)},
         "weather": None if result.weather is None else {
             k: getattr(result.weather, k) for k in (
                 "lw1_m", "lw2_m", "theta0_deg", "theta0_limit_deg", "theta1_deg", "theta2_deg",

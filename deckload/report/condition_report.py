@@ -34,6 +34,7 @@ from rich.console import Console, Group, RenderableType
 from rich.table import Table
 from rich.text import Text
 
+from deckload.core.deadweight import deadweight_by_kind
 from deckload.core.free_surface import EXEMPT_RULE
 from deckload.report import verdict_format as vf
 from deckload.core.model import Condition, Vessel
@@ -76,9 +77,10 @@ def _f(x: float | None, digits: int = 3) -> str:
 
 
 def _side(deg: float) -> str:
-    if abs(deg) < 0.005:
+    """'0.2° port': angles to 0.1°; below that, upright."""
+    if abs(deg) < 0.05:
         return "upright"
-    return f"{abs(deg):.2f}° {'stbd' if deg > 0 else 'port'}"
+    return f"{abs(deg):.1f}° {'stbd' if deg > 0 else 'port'}"
 
 
 def _row(table: Table, *cells) -> None:
@@ -144,8 +146,9 @@ def _header(result: Result, vessel: Vessel, condition: Condition, stamp: str | N
     return Group(t)
 
 
-def _summary(result: Result) -> Table:
+def _summary(result: Result, vessel: Vessel) -> Table:
     r = result
+    keel = vessel.particulars.keel_thickness_m
     g = Table(box=None, pad_edge=False, padding=(0, 1), title="Stability summary",
               title_justify="left", title_style="bold", show_header=False)
     g.add_column("quantity")
@@ -163,6 +166,9 @@ def _summary(result: Result) -> Table:
         ("GM solid", f"{r.gm_solid_m:.3f} m"),
         ("GM fluid", f"{r.gm_fluid_m:.3f} m"),
         ("Draft aft / mid / fwd", f"{r.draft_aft_m:.3f} / {r.draft_mean_m:.3f} / {r.draft_fwd_m:.3f} m"),
+        # What the draft marks read (moulded + keel thickness); equal to the above when the keel is nil.
+        (f"Extreme, keel {keel:.3f} m",
+         f"{r.draft_aft_m + keel:.3f} / {r.draft_mean_m + keel:.3f} / {r.draft_fwd_m + keel:.3f} m"),
         ("Trim", _trim(r.trim_m)),
         ("List", _side(r.list_deg)),
         ("LCB / LCF from AP", f"{r.lcb_m:.3f} / {r.lcf_m:.3f} m"),
@@ -172,12 +178,39 @@ def _summary(result: Result) -> Table:
          if r.vanishing_angle_deg is None else f"{r.vanishing_angle_deg:.1f}°"),
         ("Downflooding θf", "not given" if r.downflooding_angle_deg is None else f"{r.downflooding_angle_deg:.1f}°"),
         ("Deck edge immersion", vf.fmt_optional(r.deck_edge_angle_deg, ".1f", "°")),
-        ("Freeboard mid / to load line", f"{vf.fmt_optional(r.freeboard_m, '.3f')} / "
-                                         f"{vf.fmt_optional(r.load_line_margin_m, '+.3f')} m"),
+        ("Freeboard at midships", vf.fmt_optional(r.freeboard_m, ".3f", " m")),
+        *_load_line_rows(r),
     ]
     for k, v in rows:
         _row(g, k, v)
     return g
+
+
+def _load_line_rows(r: Result) -> list[tuple[str, str]]:
+    """The mark in use, the dock-water allowance applied to it, the draft it allows in this water,
+    and the margin of the midships draft below it (negative: over the mark)."""
+    if r.load_line_mark is None:
+        return [("Load line", "no marks in the profile")]
+    return [
+        ("Load line mark in use", f"{r.load_line_mark} {r.load_line_mark_draft_m:.3f} m"),
+        (f"Dock-water allowance at ρ {r.water_density_t_m3:.3f}", vf.fmt_optional(r.dock_water_allowance_m, "+.3f", " m")),
+        ("Allowed midships draft", vf.fmt_optional(r.load_line_allowed_draft_m, ".3f", " m")),
+        ("Margin to the mark", vf.fmt_optional(r.load_line_margin_m, "+.3f", " m")),
+    ]
+
+
+def _deadweight(result: Result) -> Table:
+    """The deadweight by kind, one column each, adding up to Δ − lightship."""
+    t = Table(box=box.SIMPLE, show_edge=False, pad_edge=False, padding=(0, 1), title_justify="left",
+              title_style="bold", title="Deadweight by kind (t)", caption_justify="left",
+              caption=f"Cargo = holds, deck loads and liquid cargo.  Deadweight = Δ {result.displacement_t:.2f} − "
+                      f"lightship {result.lightship_t:.2f} t.")
+    lines = deadweight_by_kind(result)
+    for d in lines:
+        t.add_column(d.title, justify="right")
+    t.add_column("Deadweight", justify="right")
+    _row(t, *(f"{d.mass_t:.2f}" for d in lines), f"{result.deadweight_t:.2f}")
+    return t
 
 
 def _items(result: Result, condition: Condition) -> Table:
@@ -190,20 +223,22 @@ def _items(result: Result, condition: Condition) -> Table:
     t.add_column("LCG m", justify="right", footer=f"{result.lcg_m:.3f}")
     t.add_column("VCG m", justify="right", footer=f"{result.kg_m:.3f}")
     t.add_column("TCG m", justify="right", footer=f"{result.tcg_m:+.3f}")
+    t.add_column("ρ t/m³", justify="right")
     descr = {h.hold_id: h.description for h in condition.holds}
+    stated = {f.tank_id for f in condition.tanks if f.density_t_m3 is not None}
     for it in result.items:
         if it.group == "lightship":
             _row(t, GROUP_TITLES["lightship"], it.name, "", f"{it.mass_t:.2f}", f"{it.lcg_m:.3f}",
-                      f"{it.vcg_m:.3f}", f"{it.tcg_m:+.3f}")
+                      f"{it.vcg_m:.3f}", f"{it.tcg_m:+.3f}", "")
     empty = []
     for tk in result.tanks:
         if tk.state == "empty" and tk.mass_t == 0:
             empty.append(tk.id)
             continue
         _row(t, "Tank", f"{tk.id} {tk.name}", f"{tk.fill_pct:.1f}", f"{tk.mass_t:.2f}", f"{tk.lcg_m:.3f}",
-                  f"{tk.vcg_m:.3f}", f"{tk.tcg_m:+.3f}")
+                  f"{tk.vcg_m:.3f}", f"{tk.tcg_m:+.3f}", f"{tk.density_t_m3:.3f}" + (vf.STATED_DENSITY_MARK if tk.id in stated else " "))
     if empty:
-        _row(t, "Tank", "empty: " + ", ".join(empty), "0.0", "0.00", "", "", "")
+        _row(t, "Tank", "empty: " + ", ".join(empty), "0.0", "0.00", "", "", "", "")
     for group in ("hold", "deck", "constant"):
         for it in result.items:
             if it.group != group:
@@ -212,7 +247,10 @@ def _items(result: Result, condition: Condition) -> Table:
             if it.group == "hold" and descr.get(it.id) and descr[it.id] not in name:
                 name += f" ({descr[it.id]})"
             _row(t, GROUP_TITLES[group], name, "", f"{it.mass_t:.2f}", f"{it.lcg_m:.3f}", f"{it.vcg_m:.3f}",
-                      f"{it.tcg_m:+.3f}")
+                      f"{it.tcg_m:+.3f}", "")
+    if stated & {tk.id for tk in result.tanks if not (tk.state == "empty" and tk.mass_t == 0)}:
+        t.caption = f"{vf.STATED_DENSITY_MARK} density stated for this condition (bunker delivery note), not the tank's default"
+        t.caption_justify = "left"
     return t
 
 
@@ -382,7 +420,7 @@ def _direct(cmp) -> Table:
     for head, just in (("", "left"), ("tables", "right"), ("direct", "right"), ("difference", "right"), ("", "left")):
         t.add_column(head, justify=just)
     for name, unit, a, b in cmp.rows:
-        d = 2 if unit == "deg" else 4 if unit == "m·rad" else 3
+        d = 1 if unit == "deg" else 4 if unit == "m·rad" else 3  # angles to 0.1°, as every view
         t.add_row(name, f"{a:.{d}f}", f"{b:.{d}f}", f"{b - a:+.{d}f}", unit)
     return t
 
@@ -418,12 +456,12 @@ class _Parts:
 
 def _parts(result: Result, vessel: Vessel, condition: Condition, stamp: str | None, source: str | None,
            comparison=None) -> _Parts:
-    body = (_items(result, condition), _free_surface(result), _criteria(result))
+    body = (_items(result, condition), _deadweight(result), _free_surface(result), _criteria(result))
     if comparison is not None:
         body += (_direct(comparison),)
     return _Parts(
         header=_header(result, vessel, condition, stamp, source),
-        summary=_summary(result),
+        summary=_summary(result, vessel),
         body=body,
         closing=_closing(result),
         weather=_weather(result),
@@ -763,7 +801,7 @@ pre code {{ font-family: inherit; }}
         f'<pre class="header">{header}</pre>',
         f'<div class="row"><pre class="summary">{summary}</pre>{svg}</div>',
         *([f'<div class="row"><pre class="weather">{weather}</pre>{wx_svg}</div>'] if wx_svg is not None else []),
-        *(f'<pre class="{cls}">{b}</pre>' for cls, (b, _) in zip(("items", "free-surface", "criteria", "direct"),
+        *(f'<pre class="{cls}">{b}</pre>' for cls, (b, _) in zip(("items", "deadweight", "free-surface", "criteria", "direct"),
                                                                    body)),
         f'<pre class="closing">{closing}</pre>',
         _signatures_html(),

@@ -182,6 +182,11 @@ def verdict_lines(result: Result, width: int, indent: str = "") -> list[str]:
     return textwrap.wrap(result.verdict_text(), width, initial_indent=indent, subsequent_indent=indent)
 
 
+STATED_DENSITY_MARK = "◆"
+"""Beside a tank (board) or its density (report): the density was stated for this condition, from a
+bunker delivery note, not the tank's default from the profile."""
+
+
 def fmt_optional(value: float | None, fmt: str, unit: str = "", none: str = "n/a") -> str:
     """A number with its unit, or 'n/a' when the result has none (or it is not finite)."""
     if value is None or not math.isfinite(value):

@@ -70,6 +70,11 @@ COMMANDS: tuple[Command, ...] = (
     Command("add_constant", "c", "+Const", "Add a constant (crew, stores, provisions): name, mass and position.",
             footer=False, title="Add constant", words="constant, stores, crew, provisions"),
     Command("density", "d", "ρ", "Set the density of the water she floats in (t/m³).", title="Water density", words="density, dock water, fresh water, sea water"),
+    Command("tank_density", "D", "ρ tank", "State the density of the liquid in the tank under the cursor (t/m³, from "
+            "the bunker delivery note) for this condition; empty or 'default' returns to the tank's own. The amount "
+            "stays as stated: a sounding or volume keeps the volume (mass = V·ρ), a mass keeps the mass.",
+            display="D", footer=False, title="Tank density",
+            words="density, delivery note, bunker note, BDN, specific gravity, tank density"),
     Command("undo", "u,ctrl+z", "Undo", "Undo the last change."),
     Command("redo", "y,ctrl+y", "Redo", "Redo the last undone change."),
     Command("fs_rule", "r", "FS rule", "Switch the free-surface rule between the IS Code 2008 Part B 3.1 "

@@ -21,7 +21,7 @@ from textual.widgets import Input, Label, Static
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
 from deckload.ui import views
-from deckload.report.verdict_format import value_text
+from deckload.report.verdict_format import digits_of, value_text
 from deckload.ui.commands import COMMANDS, NAVIGATION
 from deckload.ui.entry import EntryError, ItemForm, TransferPlan, plan_transfer
 from deckload.ui.palette import P
@@ -248,7 +248,7 @@ def preview_lines(before: Result | None, after: Result | None, problem: str | No
                 line.append(value_text(x, 7) + " ", P["value"])
                 line.append(f"{word:<4}", P[style])
                 line.append(" ")
-        line.append(f"  limit {views.CMP.get(c.comparison, c.comparison)} {c.limit:.3f} {c.unit}", P["dim"])
+        line.append(f"  limit {views.CMP.get(c.comparison, c.comparison)} {c.limit:.{digits_of(c)}f} {c.unit}", P["dim"])
         out.append(line)
     return out
 

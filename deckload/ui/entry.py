@@ -13,6 +13,8 @@ tank's ullage reference point; the profile gives ``ullage_reference_m``).
 
 from __future__ import annotations
 
+import dataclasses
+
 import re
 from dataclasses import dataclass
 
@@ -40,6 +42,8 @@ UNIT_LABEL: dict[str, str] = {"percent": "%", "volume_m3": "m³", "mass_t": "t",
                               "ullage_m": "m ullage"}
 
 WATER_DENSITY_RANGE_T_M3 = bounds.WATER_DENSITY_RANGE_T_M3
+LIQUID_DENSITY_RANGE_T_M3 = bounds.LIQUID_DENSITY_RANGE_T_M3
+"""Accepted density of a tank's contents: the same range as every profile and condition file."""
 """Accepted water density: the same range as every condition file (deckload.core.bounds)."""
 
 EMPTY_VOLUME_M3 = 1e-9
@@ -175,6 +179,25 @@ def set_tank(condition: Condition, tank: Tank, quantity: str, value: float) -> C
         return condition.without_tank(tank.id)
     override = fill.density_t_m3 if fill is not None else None
     return condition.with_tank(TankFill(tank.id, quantity, float(value), override))
+
+
+def set_tank_density(condition: Condition, tank: Tank, text: str) -> Condition:
+    """The condition with the density of ``tank``'s contents stated (a bunker delivery note), or
+    back to the tank's default when ``text`` is empty or 'default'.
+
+    The amount stays as it was stated: a sounding, ullage, volume or percentage keeps the volume,
+    so the mass becomes V·ρ; a mass keeps the mass, so the volume becomes m/ρ, which must still fit
+    the tank.  An empty tank takes the density for what will be put in it (0 %, density kept).
+    """
+    low, high = LIQUID_DENSITY_RANGE_T_M3
+    raw = text.strip()
+    rho = None if raw.lower() in ("", "default") else parse_number(
+        raw, f"Density in {tank.id}", "t/m3", low=low, high=high)
+    fill = condition.tank_fill(tank.id)
+    if fill is None:
+        return condition if rho is None else condition.with_tank(TankFill(tank.id, "percent", 0.0, rho))
+    check_tank_amount(tank, fill.quantity, fill.value, tank.density_t_m3 if rho is None else rho)
+    return condition.with_tank(dataclasses.replace(fill, density_t_m3=rho))
 
 
 def describe_fill(tank: Tank, fill: TankFill | None) -> str:

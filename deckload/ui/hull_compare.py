@@ -25,7 +25,7 @@ def comparison_text(cmp) -> Text:
     t = Text()
     t.append(f"{'':<24}{'tables':>10}{'direct':>10}{'difference':>12}\n", P["dim"])
     for name, unit, a, b in cmp.rows:
-        d = 2 if unit == "deg" else 4 if unit == "m·rad" else 3
+        d = 1 if unit == "deg" else 4 if unit == "m·rad" else 3  # angles to 0.1°, as every view
         t.append(f"{name:<24}{a:10.{d}f}{b:10.{d}f}{b - a:+12.{d}f} {unit}\n", P["value"])
     t.append("\nThe criteria are judged on the tables; the direct figures are for comparison.", P["dim"])
     return t

@@ -35,6 +35,7 @@ from textual.containers import Horizontal, Vertical, VerticalScroll
 from textual.screen import ModalScreen, Screen
 from textual.widgets import DataTable, Footer, Input, Static
 
+from deckload.io.textsafe import escaped
 from deckload.report import verdict_format as vf
 from deckload.core.model import Condition, Vessel
 from deckload.logbook import KIND_LABELS, KINDS, LogEntry, Logbook, condition_of
@@ -129,12 +130,18 @@ def entry_details(e: LogEntry) -> Text:
         ]
         rows += [
             ("Freeboard midships", _num(s.get("freeboard_m"), 3, " m") if "freeboard_m" in s else "—"),
-            ("To load line (+ below)", _num(s.get("load_line_margin_m"), 3, " m")),
+            ("Margin to the mark (+ below)", _num(s.get("load_line_margin_m"), 3, " m")),
+            *([("Load line mark in use", f"{escaped(s['load_line_mark'])}, allows "
+                                         f"{_num(s.get('load_line_allowed_draft_m'), 3, ' m')} in this water")]
+              if isinstance(s.get("load_line_mark"), str) else []),
             ("Deck edge immersion", _num(s.get("deck_edge_angle_deg"), 1, "°")),
             ("Downflooding θf", _num(s.get("downflooding_angle_deg"), 1, "°")),
         ]
         for k, v in rows:
             t.append(f"  {k:<24}{v}\n")
+        dwt = s.get("deadweight_by_kind_t")
+        if isinstance(dwt, dict) and dwt:  # entries written before it have none
+            t.append("  Deadweight by kind     " + " · ".join(f"{escaped(str(k))} {_num(m, 2, ' t')}" for k, m in dwt.items()) + "\n")
         word = vf.stored_word(s)
         style = "bold red" if word == "NOT MET" else "bold"
         for line in vf.stored_lines(s, 90):

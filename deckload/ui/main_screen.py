@@ -97,7 +97,7 @@ class LoadingScreen(Screen[None]):
             if chart is None:
                 return verdict.weather_missing(r, w)
             return [verdict.weather_caption(r, w), *chart.lines()]
-        return [views.gz_caption(r), *views.gz_chart(r, stale, w - 1, h - 1).lines()]
+        return [views.gz_caption(r, w), *views.gz_chart(r, stale, w - 1, h - 1).lines()]
 
     def _size_criteria(self, r, stale: bool) -> None:
         """Wide: the criteria panel as tall as its lines (the curve keeps MIN_CURVE_ROWS); narrow: the rest."""
@@ -214,6 +214,8 @@ class LoadingScreen(Screen[None]):
             self._edit_item(what == "deck", ident)
         elif what == "fixed":
             self.say("A fixed constant of the vessel profile: to change it for this condition, add a constant (c) of the same name.", ok=False)
+        elif what == "dwt":
+            self.say(DWT_HINT, ok=False)
 
     def _edit_tank(self, tank_id: str) -> None:
         s = self.session
@@ -376,6 +378,34 @@ class LoadingScreen(Screen[None]):
                        f"{s.condition.water_density_t_m3:.3f}", build),
             lambda c: c and self.commit(c, f"Water density {c.water_density_t_m3:.3f} t/m³", "edit",
                                         {"water_density_t_m3": c.water_density_t_m3}))
+
+    def action_tank_density(self) -> None:
+        what, ident = self._key
+        if what != "tank":
+            self.say("Tank density applies to tanks: put the cursor on a tank (d sets the water she floats in).",
+                     ok=False)
+            return
+        s = self.session
+        tank = s.vessel.tank(ident)
+        fill = s.condition.tank_fill(ident)
+        lo, hi = entry.LIQUID_DENSITY_RANGE_T_M3
+        now = entry.tank_density(tank, fill)
+        build = lambda text: entry.set_tank_density(s.condition, tank, text)  # noqa: E731
+
+        def done(c) -> None:
+            if not c:
+                return
+            new = c.tank_fill(ident)
+            rho = new.density_t_m3 if new is not None else None
+            said = f"{rho:.3f} t/m³ (delivery note)" if rho is not None else f"{tank.density_t_m3:.3f} t/m³ (the tank's default)"
+            self.commit(c, f"{ident} density {said}, was {now:.3f}", self._kind(ident),
+                        {"tank": ident, "density_t_m3": rho})
+
+        self.app.push_screen(
+            PromptForm(f"Density in {tank.id} {tank.name}",
+                       f"t/m³, {lo:.3f}–{hi:.3f}, from the delivery note; empty or 'default' for the tank's own "
+                       f"{tank.density_t_m3:.3f}. The amount stays as stated.", f"{now:.4g}", build),
+            done)
 
     def action_fs_rule(self) -> None:
         s = self.session
@@ -599,7 +629,9 @@ class LoadingScreen(Screen[None]):
             t = self.session.vessel.tank(ident)
             r = self.session.result
             why = next((x.fs_rule for x in r.tanks if x.id == ident), "") if r is not None else ""
-            self.say(f"{t.id} {t.name} · {t.capacity_m3:.1f} m³ · FSM: {why} · ⏎ set · + − · f full · e empty · "
+            fill = self.session.condition.tank_fill(ident)
+            rho = f" · ρ {fill.density_t_m3:.4g} stated (D)" if fill is not None and fill.density_t_m3 is not None else ""
+            self.say(f"{t.id} {t.name} · {t.capacity_m3:.1f} m³{rho} · FSM: {why} · ⏎ set · + − · f full · e empty · "
                      f"t transfer", ok=None)
         elif what == "hold":
             self.say(f"{ident} {self.session.vessel.hold(ident).name} · ⏎ cargo mass · + − 1 t · e empty", ok=None)
@@ -607,6 +639,12 @@ class LoadingScreen(Screen[None]):
             self.say("⏎ edit mass and position · + − 1 t · e remove · a add deck load · c add constant", ok=None)
         elif what == "fixed":
             self.say("A fixed constant of the vessel profile: to change it for this condition, add a constant (c) of the same name.", ok=None)
+        elif what == "dwt":
+            self.say(DWT_HINT, ok=None)
+
+
+DWT_HINT = ("Deadweight by kind: the sum of the lines above it (cargo = holds, deck loads and liquid cargo); "
+            "change the tanks and items themselves.")
 
 
 def alert_lines(alerts: list[views.Alert], height: int) -> list[Text]:

@@ -11,11 +11,12 @@ from dataclasses import dataclass
 
 from rich.text import Text
 
+from deckload.core.deadweight import deadweight_by_kind
 from deckload.core.free_surface import EXEMPT_RULE
 from deckload.core.model import Condition, LIQUID_KINDS, Vessel
 from deckload.core.result import CriterionResult, Result
 from deckload.core.trimmed_tables import tables_basis
-from deckload.report.verdict_format import fmt_optional
+from deckload.report.verdict_format import STATED_DENSITY_MARK, fmt_optional
 from deckload.ui.entry import fill_volume_m3, tank_density
 from deckload.ui.gzplot import GzChart, Mark
 from deckload.ui.palette import P
@@ -38,7 +39,8 @@ BOARD_ORDER = ("ballast", *(k for k in LIQUID_KINDS if k != "ballast"))
 STATE_MARK = {"empty": " ", "slack": "≈", "worst_band": "▲", "full": "■"}
 """Tank state symbol: blank empty, ≈ slack, ▲ slack in its worst free-surface band, ■ nominally full."""
 LEGEND = ("≈ slack  ▲ worst band  ■ full  * FSM taken by the IS 2008 B 3.1 rule, not at the actual level  "
-          "ex small tank exempt (B 3.1.12), its moment at the actual level beside it, not counted")
+          "ex small tank exempt (B 3.1.12), its moment at the actual level beside it, not counted  "
+          "◆ density stated for this condition (delivery note), not the tank's default")
 
 NEAR_FRACTION = 0.10
 """A criterion whose margin is under 10 % of its limit is flagged 'near'."""
@@ -73,35 +75,32 @@ class Row:
     text: Text
 
 
-KIND_SHORT = {"ballast": "Ballast", "fuel_oil": "Fuel oil", "diesel": "Diesel", "lube_oil": "Lube oil",
-              "fresh_water": "Fresh wtr", "cargo_liquid": "Cargo liq", "other": "Other"}
-KIND_COL = 9
-INLINE_KIND_FROM = 56
-"""Board width from which the liquid kind has its own column instead of heading lines."""
+RHO_COL_FROM = 56
+"""Board width from which each tank's density has a column of its own."""
+STATED_MARK = STATED_DENSITY_MARK
+"""Beside a tank id: the density was stated for this condition (a bunker delivery note)."""
 
 
 @dataclass(frozen=True)
 class TankCols:
     bar: int
-    inline_kind: bool
+    rho: bool
 
     @staticmethod
     def for_width(width: int) -> "TankCols":
-        inline = width >= INLINE_KIND_FROM
-        fixed = 1 + 1 + 5 + 1 + (KIND_COL + 1 if inline else 0) + 1 + 6 + 8 + 8 + 7 + 1
-        return TankCols(bar=max(4, min(24, width - fixed)), inline_kind=inline)
+        rho = width >= RHO_COL_FROM
+        fixed = 1 + 1 + 5 + 1 + 1 + 6 + 8 + 8 + (6 if rho else 0) + 7 + 1
+        return TankCols(bar=max(4, min(24, width - fixed)), rho=rho)
 
 
 def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stale: bool, width: int) -> list[Row]:
-    """Every line of the loading board: tanks grouped by liquid kind, then holds, deck loads, constants.
-
-    Wide boards name the kind in a column on the group's first line (its total mass on
-    the second); narrow ones give each group a heading line.
-    """
+    """Every line of the loading board: tanks grouped by liquid kind (each group under a heading
+    line of its own, with its total mass in the t column), then holds, deck loads, constants,
+    and the deadweight by kind."""
     cols = TankCols.for_width(width)
     by_id = {t.id: t for t in result.tanks} if result is not None and not stale else {}
-    head = Text(" " * 9 + ("kind".ljust(KIND_COL + 1) if cols.inline_kind else "")
-                + "fill".ljust(cols.bar + 1) + "     %      m³       t    FSM", P["head"])
+    head = Text(" " * 9 + "fill".ljust(cols.bar + 1) + "     %      m³       t" + ("     ρ" if cols.rho else "")
+                + "    FSM", P["head"])
     rows: list[Row] = [Row(None, head)]
     for kind in BOARD_ORDER:
         tanks = [t for t in vessel.tanks if t.kind == kind]
@@ -111,43 +110,69 @@ def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stal
         for tank in tanks:
             fill = condition.tank_fill(tank.id)
             tr = by_id.get(tank.id)
+            stated = fill is not None and fill.density_t_m3 is not None
             if tr is not None:
                 # An exempt slack tank shows "ex" with its moment at the actual level (not counted).
                 fsm = f" ex{tr.fsi_m4 * tr.density_t_m3:4.1f}" if tr.fs_rule == EXEMPT_RULE else tr.fsm_tm
-                values = (tr.fill_pct, tr.volume_m3, tr.mass_t, fsm, tr.state,
+                values = (tr.fill_pct, tr.volume_m3, tr.mass_t, tr.density_t_m3, fsm, tr.state,
                           tr.fs_rule.startswith(("assumed", "variable", "nominally full cargo")))
             else:  # stale: amounts from the condition itself, no FSM
                 vol = fill_volume_m3(tank, fill)
-                values = (100 * vol / tank.capacity_m3, vol, vol * tank_density(tank, fill), None,
-                          "slack" if vol else "empty", False)
-            lines.append((tank, values))
-        total = sum(v[2] for _, v in lines)
-        if not cols.inline_kind:
-            rows.append(Row(None, Text(f" {KIND_TITLE.get(kind, kind)}  {total:.1f} t", P["group"])))
-        for j, (tank, values) in enumerate(lines):
-            cell = (KIND_SHORT.get(kind, kind) if j == 0 else f"Σ{total:6.1f} t" if j == 1 else "") if cols.inline_kind else None
-            rows.append(Row(("tank", tank.id), _tank_line(tank.id, cell, *values, kind, cols, stale)))
+                rho = tank_density(tank, fill)
+                values = (100 * vol / tank.capacity_m3, vol, vol * rho, rho, None, "slack" if vol else "empty", False)
+            lines.append((tank, stated, values))
+        rows.append(Row(None, _group_line(KIND_TITLE.get(kind, kind), sum(v[2] for _, _, v in lines), cols)))
+        for tank, stated, values in lines:
+            rows.append(Row(("tank", tank.id), _tank_line(tank.id, stated, *values, kind, cols, stale)))
     rows.extend(_cargo_rows(vessel, condition, width))
+    if result is not None:
+        rows.extend(deadweight_rows(result, stale, cols))
     return rows
 
 
-def _tank_line(tid, kind_cell, pct, vol, mass, fsm, state, by_rule, kind, cols: TankCols, stale: bool) -> Text:
+def _group_line(title: str, total_t: float, cols: TankCols) -> Text:
+    """' Fuel oil ……… Σ 21.28': the group's heading, its total under the tanks' t column."""
+    left = 1 + 7 + cols.bar + 1 + 6 + 8  # everything before the t column
+    name = f" {title}"
+    line = Text(name, P["group"])
+    line.append(" " * max(1, left - len(name)) + f"Σ{total_t:7.2f}", P["group"])
+    return line
+
+
+def _tank_line(tid, stated, pct, vol, mass, rho, fsm, state, by_rule, kind, cols: TankCols, stale: bool) -> Text:
     worst = state == "worst_band"
     line = Text(STATE_MARK.get(state, "?"), P["danger"] if worst else P["label"])
-    line.append(f" {tid:<5.5} ", P["value"])
-    if kind_cell is not None:
-        line.append(f"{kind_cell:<{KIND_COL}.{KIND_COL}} ", P["group"] if kind_cell and not kind_cell.startswith("Σ") else P["dim"])
+    line.append(f" {tid:<5.5}", P["value"])
+    line.append(STATED_MARK if stated else " ", P["caution"])
     bar_style = P["bar.worst"] if worst else P[KIND_BAR.get(kind, "bar.other")]
     line.append(fill_bar(pct, cols.bar), P["stale"] if stale else bar_style)
     line.append("▕", P["bar.empty"])
     style = P["stale"] if stale else P["value"]
     line.append(f"{pct:6.1f}{vol:8.2f}{mass:8.2f}", style)
+    if cols.rho:
+        line.append(f"{rho:6.3f}", style if stated else P["dim"])
     if isinstance(fsm, str):
         line.append(f"{fsm:>7.7}", P["dim"])
     else:
         line.append(num(fsm, ".1f", 7), P["stale"] if fsm is None or stale else style)
     line.append("*" if by_rule else " ", P["label"])
     return line
+
+
+def deadweight_rows(result: Result, stale: bool, cols: TankCols) -> list[Row]:
+    """The deadweight by kind (cargo, each liquid, stores and constants) under a heading, and the
+    deadweight they add up to, each under the tanks' t column."""
+    left = 1 + 7 + cols.bar + 1 + 6 + 8
+    style = P["stale"] if stale else P["value"]
+    rows = [Row(None, Text(" Deadweight by kind" + (" (last good)" if stale else ""), P["group"]))]
+    for line in deadweight_by_kind(result):
+        text = Text(f"  {line.title:<{left - 2}.{left - 2}}", P["label"])
+        text.append(f"{line.mass_t:8.2f} t", style)
+        rows.append(Row(("dwt", line.kind), text))
+    total = Text(f"  {'Deadweight':<{left - 3}.{left - 3}}", P["label"])
+    total.append(f"Σ{result.deadweight_t:8.2f} t", style)
+    rows.append(Row(("dwt", "total"), total))
+    return rows
 
 
 def _cargo_rows(vessel: Vessel, condition: Condition, width: int) -> list[Row]:
@@ -190,17 +215,35 @@ def _item_line(tag: str, item, area: str | None, name_w: int) -> Text:
 # --------------------------------------------------------------------------- stability panel
 
 
+COMPACT_LABEL = {"Margin": "Marg."}
+"""Labels longer than the narrow panel's five columns, shortened there."""
+
+MARK_LETTERS = {"summer": "S", "winter": "W", "tropical": "T", "fresh": "F", "tropical fresh": "TF",
+                "winter north atlantic": "WNA"}
+"""The letters of the load-line marks on the hull (ICLL: S, W, T, F, TF, WNA)."""
+
+
+def mark_letters(name: str | None) -> str:
+    """'S' for the summer mark; a mark the table does not know keeps its own name (three letters)."""
+    if not name:
+        return ""
+    key = " ".join(name.replace("_", " ").lower().split())
+    return MARK_LETTERS.get(key, name[:3])
+
+
 def _pair(line: Text, label: str, value: str, unit: str, stale: bool, compact: bool) -> None:
-    line.append(f"{label:<6}" if not compact else f"{label:<5.5}", P["label"])
+    line.append(f"{label:<6}" if not compact else f"{COMPACT_LABEL.get(label, label):<5.5}", P["label"])
     line.append(f"{value:>8} " if not compact else f"{value:>7} ", P["stale"] if stale else P["value"])
     line.append(f"{unit:<5.5}" if not compact else f"{unit:<3.3}", P["unit"])
 
 
 def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, stale: bool, width: int = 54) -> list[Text]:
-    """Displacement, deadweight, drafts, trim, freeboard at midships and its margin to the load line
-    in use (FWA/DWA applied by the engine), list, deck-edge immersion angle, KG, θf, KG fluid, FSC,
-    GM fluid, KM (two pairs a line; 'n/a' where the result has no value), and the tables used
-    (even keel, or the tables at trims the trim was interpolated between)."""
+    """Displacement, deadweight, drafts, trim, list and deck-edge immersion angle; freeboard at
+    midships and the margin to the load-line mark in use; that mark's allowed midships draft in
+    the water she floats in (letters as on the hull, S W T F TF WNA) and the dock-water allowance
+    applied to it; KG, θf, KG fluid, FSC, GM fluid, KM (two pairs a line; 'n/a' where the result
+    has no value); the tables used (even keel, or the tables at trims the trim was interpolated
+    between).  Lengths to the mm, angles to 0.1°."""
     compact = width < 44
     title = Text(" Afloat", P["title"])
     title.append(f"  ρ {condition.water_density_t_m3:.3f} t/m³", P["dim"])
@@ -213,15 +256,16 @@ def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, st
         rule = "IS2008" if r.fs_rule == "is2008" else "actual"
         title.append(f"  FS {rule} · GZ {'transfer' if r.gz_correction == 'transfer' else 'const'}", P["dim"])
     trim_word = "A" if r.trim_m > 0 else ("F" if r.trim_m < 0 else "")
-    list_word = "S" if r.list_deg > 0.005 else ("P" if r.list_deg < -0.005 else "")
-    ll = condition.load_line[:3]
-    margin = "n/a" if r.load_line_margin_m is None else f"{r.load_line_margin_m:+.3f}"
+    # below the last printed decimal (0.1°) she is upright: no side
+    list_word = "S" if r.list_deg >= 0.05 else ("P" if r.list_deg <= -0.05 else "")
     rows = [
         (("Δ", f"{r.displacement_t:.1f}", "t"), ("DWT", f"{r.deadweight_t:.1f}", "t")),
         (("T aft", f"{r.draft_aft_m:.3f}", "m"), ("T fwd", f"{r.draft_fwd_m:.3f}", "m")),
         (("T mid", f"{r.draft_mean_m:.3f}", "m"), ("Trim", f"{abs(r.trim_m):.3f}", f"m {trim_word}")),
-        (("Fbd", opt(r.freeboard_m, ".3f"), "m"), ("to LL", margin, "m" if compact else "m " + ll)),
-        (("List", f"{abs(r.list_deg):.2f}", f"° {list_word}"), ("∠deck", opt(r.deck_edge_angle_deg, ".1f"), "°")),
+        (("List", f"{abs(r.list_deg):.1f}", f"° {list_word}"), ("∠deck", opt(r.deck_edge_angle_deg, ".1f"), "°")),
+        (("Fbd", opt(r.freeboard_m, ".3f"), "m"), ("Margin", opt(r.load_line_margin_m, "+.3f"), "m")),
+        (("Mark", opt(r.load_line_allowed_draft_m, ".3f"), f"m {mark_letters(r.load_line_mark)}".strip()),
+         ("DWA", opt(r.dock_water_allowance_m, "+.3f"), "m")),
         (("KG", f"{r.kg_m:.3f}", "m"), ("θf", opt(r.downflooding_angle_deg, ".1f"), "°")),
         (("KG fl", f"{r.kg_fluid_m:.3f}", "m"), ("FSC", f"{r.fsc_m:.3f}", "m")),
         (("GM fl", f"{r.gm_fluid_m:.3f}", "m"), ("KM", f"{r.km_m:.3f}", "m")),
@@ -283,20 +327,35 @@ def gz_chart(result: Result | None, stale: bool, width: int, height: int) -> GzC
     return GzChart(tuple(result.gz_heel_deg), tuple(gz), tuple(marks), width, height, stale)
 
 
-def gz_caption(result: Result | None) -> Text:
+def gz_caption(result: Result | None, width: int | None = None) -> Text:
+    """' GZ curve to port  θf 39.6°  max 0.407 m at 29.9°  zero at 55.9°', angles to 0.1°.  θf is
+    given as a value (the plot only tags it on the axis); on a narrow panel the words that do not
+    fit are left out, least needed first (the KN-end notes, the vanishing angle, "curve")."""
     t = Text(" GZ curve", P["title"])
     if result is None:
         return t
-    t.append(f" to {result.criteria_side}", P["title"])
-    t.append(f"  max {result.max_gz_m:.3f} m at {result.max_gz_angle_deg:.0f}°", P["dim"])
-    if result.vanishing_angle_deg is not None:
-        t.append(f"  zero at {result.vanishing_angle_deg:.0f}°", P["dim"])
-    elif result.gz_end_deg < 90.0:
-        t.append(f"  zero beyond {result.gz_end_deg:g}° (KN end)", P["dim"])
-    if result.vanishing_angle_deg is not None and result.gz_end_deg < 90.0:
-        t.append(f"  curve ends {result.gz_end_deg:g}° (KN end)", P["dim"])
+    side = f" to {result.criteria_side}"
+    parts = [f"  max {result.max_gz_m:.3f} m at {result.max_gz_angle_deg:.1f}°"]
     if result.downflooding_angle_deg is not None:
-        t.append(f"  θf {result.downflooding_angle_deg:.0f}°", P["dim"])
+        parts.insert(0, f"  θf {result.downflooding_angle_deg:.1f}°")
+    zero = []
+    if result.vanishing_angle_deg is not None:
+        zero.append(f"  zero at {result.vanishing_angle_deg:.1f}°")
+    elif result.gz_end_deg < 90.0:
+        zero.append(f"  zero beyond {result.gz_end_deg:g}° (KN end)")
+    if result.vanishing_angle_deg is not None and result.gz_end_deg < 90.0:
+        zero.append(f"  curve ends {result.gz_end_deg:g}° (KN end)")
+    name = " GZ curve"
+    while width is not None and zero and len(name + side + "".join(parts + zero)) > width:
+        zero.pop()
+    if width is not None and len(name + side + "".join(parts + zero)) > width:
+        name = " GZ"
+    if width is not None and len(name + side + "".join(parts + zero)) > width:
+        parts[-1] = f"  max {result.max_gz_m:.3f} m"
+    t = Text(name, P["title"])
+    t.append(side, P["title"])
+    for p in parts + zero:
+        t.append(p, P["dim"])
     return t
 
 

@@ -1,0 +1,144 @@
+"""Density at the tank: a liquid's density per tank per condition (a bunker delivery note), stated
+on the screen (key D), saved in the condition file, shown on the board and in the report, and
+logged as an edit.  Mass = V·ρ (common practice: the definition of density)."""
+
+from __future__ import annotations
+
+import pytest
+
+from deckload.core.model import TankFill
+from deckload.core.stability import evaluate
+from deckload.io import paths
+from deckload.io.tomlcheck import ProfileError
+from deckload.io.profiles import dump_condition, load_condition, load_profile, parse_condition
+from deckload.logbook import Logbook
+from deckload.report.condition_report import render_report_html, render_report_text
+from deckload.ui import entry, views
+from deckload.ui.dialogs import PromptForm
+from deckload.ui.launch import create_app, load_inputs
+from deckload.ui.widgets import LinePanel, LoadBoard
+
+BDN_RHO = 0.9912
+"""Density from an (invented) bunker delivery note, t/m³ at 15 °C, four decimals as such notes give it."""
+
+
+@pytest.fixture(scope="module")
+def demo():
+    v = load_profile(paths.DEMO_PROFILE)
+    return v, load_condition(paths.DEMO_CONDITIONS["departure"], v)
+
+
+def _tank(result, tid):
+    return next(t for t in result.tanks if t.id == tid)
+
+
+def test_a_stated_density_keeps_the_volume_and_makes_the_mass_v_rho(demo):
+    v, c = demo
+    before = _tank(evaluate(v, c), "FO1P")
+    c2 = entry.set_tank_density(c, v.tank("FO1P"), f"{BDN_RHO}")
+    assert c2.tank_fill("FO1P") == TankFill("FO1P", "percent", 95.0, BDN_RHO)
+    after = _tank(evaluate(v, c2), "FO1P")
+    assert after.volume_m3 == before.volume_m3  # the stated 95 % is the same volume
+    assert after.density_t_m3 == BDN_RHO
+    assert after.mass_t == pytest.approx(after.volume_m3 * BDN_RHO, rel=1e-15)  # one multiplication
+    assert after.mass_t == pytest.approx(0.95 * 13.1773 * BDN_RHO, rel=1e-12)  # by hand: 95 % of 13.1773 m³
+    back = entry.set_tank_density(c2, v.tank("FO1P"), "default")
+    assert back.tank_fill("FO1P") == TankFill("FO1P", "percent", 95.0, None)
+
+
+def test_a_mass_keeps_the_mass_and_must_still_fit_the_tank(demo):
+    v, c = demo
+    tank = v.tank("FO1P")  # 13.1773 m³
+    c2 = c.with_tank(TankFill("FO1P", "mass_t", 11.0))
+    r = _tank(evaluate(v, entry.set_tank_density(c2, tank, "0.95")), "FO1P")
+    assert r.mass_t == 11.0 and r.volume_m3 == pytest.approx(11.0 / 0.95, rel=1e-12)
+    with pytest.raises(entry.EntryError, match=r"FO1P: 11 t is more than its capacity 10\.54 t at 0\.800 t/m³"):
+        entry.set_tank_density(c2, tank, "0.8")  # 11 t of 0.8 t/m³ is 13.75 m³ > 13.18 m³
+
+
+@pytest.mark.parametrize("typed, why", [("0.45", "below the lowest accepted value 0.5"),
+                                        ("2.1", "above the highest accepted value 2"),
+                                        ("991.2", "above the highest accepted value 2"),  # kg/m³ for t/m³
+                                        ("0,99", "decimal point"), ("heavy", "not a number")])
+def test_a_density_outside_physics_is_refused_with_the_rule(demo, typed, why):
+    v, c = demo
+    with pytest.raises(entry.EntryError, match=why) as err:
+        entry.set_tank_density(c, v.tank("FO1P"), typed)
+    assert "Density in FO1P" in str(err.value)
+
+
+def test_an_empty_tank_keeps_a_stated_density_for_what_is_put_in(demo):
+    v, c = demo
+    c2 = entry.set_tank_density(c, v.tank("DB1P"), "1.010")
+    assert c2.tank_fill("DB1P") == TankFill("DB1P", "percent", 0.0, 1.010)
+    c3 = entry.set_tank(c2, v.tank("DB1P"), "volume_m3", 10.0)
+    assert _tank(evaluate(v, c3), "DB1P").mass_t == pytest.approx(10.0 * 1.010, rel=1e-15)
+
+
+def test_the_condition_file_keeps_the_density_and_the_report_shows_it(demo):
+    v, c = demo
+    c2 = entry.set_tank_density(c, v.tank("FO1P"), f"{BDN_RHO}")
+    text = dump_condition(c2)
+    assert f"density_t_m3 = {BDN_RHO}" in text
+    again = parse_condition(text, "fo1p.condition.toml", v)
+    assert again.tank_fill("FO1P") == c2.tank_fill("FO1P")
+    r = evaluate(v, again)
+    report = render_report_text(r, v, again)
+    row = next(ln for ln in report.splitlines() if ln.startswith("Tank") and " FO1P " in ln)
+    assert row.rstrip().endswith(f"{BDN_RHO:.3f}◆") and f"{_tank(r, 'FO1P').mass_t:.2f}" in row
+    assert "◆ density stated for this condition (bunker delivery note)" in report
+    other = next(ln for ln in report.splitlines() if ln.startswith("Tank") and " FO1S " in ln)
+    assert other.rstrip().endswith("0.850")  # the default is not marked
+    assert "0.991◆" in render_report_html(r, v, again)
+
+
+def test_a_file_density_outside_physics_names_the_key(demo):
+    v, c = demo
+    text = dump_condition(c).replace("[tanks.FO1P]\n", "[tanks.FO1P]\ndensity_t_m3 = 2.5\n")
+    with pytest.raises(ProfileError) as err:
+        parse_condition(text, "bdn.condition.toml", v)
+    said = str(err.value)
+    assert "bdn.condition.toml" in said and "tanks.FO1P.density_t_m3" in said and "2.5" in said
+
+
+async def test_density_by_key_shows_on_the_board_is_logged_and_comes_back_on_reopen(tmp_path):
+    v = load_profile(paths.DEMO_PROFILE)
+    c = load_condition(paths.DEMO_CONDITIONS["departure"], v)
+    work, logs = tmp_path / "work", tmp_path / "logs"
+    app = create_app(v, c, work_dir=work, log_dir=logs, officer="TS", profile_path=paths.DEMO_PROFILE)
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        board = app.screen.query_one(LoadBoard)
+        volume = _tank(app.session.result, "FO1P").volume_m3
+        assert board.select(("tank", "FO1P"))
+        await pilot.press("D")
+        await pilot.pause()
+        assert isinstance(app.screen, PromptForm)
+        await pilot.press(*"2.5", "enter")  # replaces the selected value; refused: the form stays, naming the range
+        assert isinstance(app.screen, PromptForm)
+        assert "above the highest accepted value" in str(app.screen.query_one("#form-message").render())
+        await pilot.press("end", "ctrl+u", *f"{BDN_RHO}", "enter")
+        await pilot.pause()
+        assert app.session.condition.tank_fill("FO1P").density_t_m3 == BDN_RHO
+        fo1p = _tank(app.session.result, "FO1P")
+        assert fo1p.volume_m3 == volume and fo1p.mass_t == pytest.approx(volume * BDN_RHO, rel=1e-15)
+        row = next(r.text.plain for r in board.rows if r.key == ("tank", "FO1P"))
+        assert row.startswith("≈ FO1P ◆") and f"{fo1p.mass_t:8.2f}{BDN_RHO:6.3f}" in row
+        plain = next(r.text.plain for r in board.rows if r.key == ("tank", "FO1S"))
+        assert "◆" not in plain and f"{0.85:6.3f}" in plain
+        assert "FO1P density 0.991 t/m³ (delivery note), was 0.850" in app.screen.query_one("#status", LinePanel).plain()
+        await pilot.press("q")
+        await pilot.pause()
+    book = Logbook.open(logs, v.particulars.name, readonly=True)
+    entries = book.entries()
+    book.close()
+    assert [e.change_text for e in entries if "density" in e.change_text] == [
+        "FO1P density 0.991 t/m³ (delivery note), was 0.850"]
+    # reopen as `deckload` does: the working file brings the stated density back
+    v2, c2, _ = load_inputs(None, None, work)
+    assert c2.tank_fill("FO1P") == TankFill("FO1P", "percent", 95.0, BDN_RHO)
+    assert _tank(evaluate(v2, c2), "FO1P").mass_t == pytest.approx(volume * BDN_RHO, rel=1e-15)
+
+
+def test_the_legend_explains_the_mark():
+    assert "◆ density stated for this condition" in views.LEGEND
