@@ -111,9 +111,7 @@ def test_report_text_and_html_say_which_tables(files):
     assert f"Tables: {EVEN}" in " ".join(render_report_text(evaluate(plain, c), plain, c).split())
 
 
-def test_screen_afloat_panel_says_which_tables(files, tmp_path):
-    import asyncio
-
+async def test_screen_afloat_panel_says_which_tables(files, tmp_path):
     from deckload.ui.launch import create_app
     from deckload.ui.widgets import LinePanel
 
@@ -123,11 +121,7 @@ def test_screen_afloat_panel_says_which_tables(files, tmp_path):
     r = evaluate(v, c)
     assert afloat_lines(v, c, r, False, 54)[-1].plain == " Tables at +1.50 m: +1.00…+2.00 m"
     assert afloat_lines(v, c, r, False, 34)[-1].plain == " Tables at +1.50 m: +1.00…+2.00 m"  # fits the narrow panel
-
-    async def run() -> str:
-        app = create_app(v, c, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
-        async with app.run_test(size=(120, 40)) as pilot:
-            await pilot.pause()
-            return app.screen.query_one("#afloat", LinePanel).plain()
-
-    assert "Tables at +1.50 m: +1.00…+2.00 m" in asyncio.run(run())
+    app = create_app(v, c, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        assert "Tables at +1.50 m: +1.00…+2.00 m" in app.screen.query_one("#afloat", LinePanel).plain()

@@ -7,6 +7,7 @@ colour: the screen reads the same with NO_COLOR or on a monochrome terminal.
 
 from __future__ import annotations
 
+import functools
 from dataclasses import dataclass
 
 from rich.text import Text
@@ -139,7 +140,10 @@ def _group_line(title: str, total_t: float, cols: TankCols) -> Text:
     return line
 
 
+@functools.lru_cache(maxsize=1024)
 def _tank_line(tid, stated, pct, vol, mass, rho, fsm, state, by_rule, kind, cols: TankCols, stale: bool) -> Text:
+    """One tank's line.  Kept for the same values (a key changes one or two tanks, not the 25 others):
+    the Text is shared, so it is never modified after it is made."""
     worst = state == "worst_band"
     line = Text(STATE_MARK.get(state, "?"), P["danger"] if worst else P["label"])
     line.append(f" {tid:<5.5}", P["value"])
