@@ -135,27 +135,26 @@ def test_a_log_folder_that_cannot_be_made_names_it(tmp_path, capsys, monkeypatch
 
 
 async def test_the_status_line_never_says_saved_when_the_save_failed(tmp_path, monkeypatch):
-    """The working condition's save fails (disk full): the message line says NOT SAVED.
+    """The working condition's save fails (disk full): the message line says NOT SAVED, and why.
 
-    The message names the file; the working folder is given relative to ``tmp_path`` so that the
-    line's length, and so what of it fits 120 columns, does not depend on where pytest puts its
-    temporary folders (longer under pytest-xdist workers)."""
+    The reason comes before the file's path, so that a long path (here over 100 characters) at
+    80 columns cuts the path, never the reason."""
     from pathlib import Path
 
     from deckload.io import paths
     from deckload.io.profiles import load_condition
     from deckload.ui.launch import create_app
 
-    monkeypatch.chdir(tmp_path)
     vessel = demo_vessel()
-    app = create_app(vessel, load_condition(paths.DEMO_CONDITIONS["departure"], vessel), work_dir=Path("work"),
+    work = tmp_path / ("working-conditions-" * 5)
+    app = create_app(vessel, load_condition(paths.DEMO_CONDITIONS["departure"], vessel), work_dir=work,
                      log_dir=None)
 
     def full(path, condition):
         raise OSError(errno.ENOSPC, os.strerror(errno.ENOSPC), str(path))
 
     app.session._save = full
-    async with app.run_test(size=(120, 40)) as pilot:
+    async with app.run_test(size=(80, 24)) as pilot:
         await pilot.press("plus")
         await pilot.pause(0.3)
         app.session.flush()

@@ -609,7 +609,7 @@ class LoadingScreen(Screen[None]):
             try:
                 problems = self.session.save_as(name, path)
             except (OSError, EntryError) as exc:
-                self.say(f"NOT SAVED: {path}: {getattr(exc, 'strerror', None) or exc}", ok=False)
+                self.say(f"NOT SAVED ({getattr(exc, 'strerror', None) or exc}): {path}", ok=False)
                 return
             self.refresh_view()
             self.say(f"Saved as “{name}” in {path}")

@@ -513,8 +513,9 @@ class Session:
                 problems += self._persist(newest.condition, newest.kind, newest.label, newest.data,
                                           newest.result, save=True, log=False)
             except Exception as exc:  # not an OSError (those _persist words itself): still never silent
-                problems.append(f"NOT SAVED: {self.save_path}: {exc}. The change is on screen only; the next "
-                                "change tries again.")
+                # The reason first: on a narrow message line a long path is what gets cut, not why.
+                problems.append(f"NOT SAVED ({exc}): the change is on screen only; the next change tries "
+                                f"again. File: {self.save_path}")
         for w in batch:  # the log is a record: every entry, whatever became of the save
             if w.log:
                 problems += self._persist(w.condition, w.kind, w.label, w.data, w.result, save=False, log=True)
@@ -550,8 +551,8 @@ class Session:
                 self._save(self.save_path, condition)
                 self.saves_written += 1
             except OSError as exc:
-                problems.append(f"NOT SAVED: {self.save_path}: {exc.strerror or exc}. The change is on screen "
-                                "only (the file holds the last condition saved); the next change tries again.")
+                problems.append(f"NOT SAVED ({exc.strerror or exc}): the change is on screen only (the file holds "
+                                f"the last condition saved); the next change tries again. File: {self.save_path}")
         err = self.journal.append(kind=kind, change_text=label, change_data=data, result=result,
                                   condition=condition) if log else None
         if err:
