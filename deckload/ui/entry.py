@@ -19,10 +19,11 @@ import re
 from dataclasses import dataclass
 
 from deckload.core import bounds
-from deckload.core.loading import LoadingError, level_of, over_limit, reading_range, volume_of
+from deckload.core.loading import LoadingError, level_of, over_limit, reading_range, resolve_tank, volume_of
 from deckload.core.model import (
     LEVEL_QUANTITIES,
     Condition,
+    DeckArea,
     DeckItem,
     Hold,
     HoldLoad,
@@ -225,6 +226,23 @@ def tank_from_text(condition: Condition, tank: Tank, text: str) -> Condition:
     return set_tank(condition, tank, quantity, value)
 
 
+def amount_preview(condition: Condition, tank: Tank, text: str) -> str:
+    """What an amount typed for ``tank`` comes to, shown before ⏎ in every form the tank can be
+    stated in: '= 40.0 % · 12.93 m³ · 13.25 t · sounding 1.204 m · ullage 0.796 m' (sounding and
+    ullage only where the tank has a level table and, for ullage, a reference point).  The same
+    path as ⏎ (``tank_from_text``, then the calculation's ``resolve_tank``): EntryError when ⏎
+    would refuse it."""
+    fill = tank_from_text(condition, tank, text).tank_fill(tank.id)
+    c = resolve_tank(tank, fill)
+    parts = [f"{c.fill_pct:.1f} %", f"{c.volume_m3:.2f} m³", f"{c.mass_t:.2f} t"]
+    if tank.level_known:
+        level = c.sounding_m  # the level above the tank's lowest point
+        parts.append(f"sounding {level - tank.sounding_zero_m:.3f} m")
+        if tank.ullage_reference_m is not None:
+            parts.append(f"ullage {tank.ullage_reference_m - level:.3f} m")
+    return "= " + " · ".join(parts)
+
+
 def nudge_tank(condition: Condition, tank: Tank, step_pct: float) -> Condition:
     """Raise or lower the fill by ``step_pct`` of capacity, clamped to 0–100 %."""
     pct = 100.0 * fill_volume_m3(tank, condition.tank_fill(tank.id)) / tank.capacity_m3
@@ -413,6 +431,52 @@ def planner_room(vessel: Vessel, condition: Condition, from_id: str, to_id: str)
     return max(0.0, min(have, free) * tank_density(src, sf) * (1 - 1e-9))
 
 
+def tank_matches(vessel: Vessel, typed: str, want=None) -> list[Tank]:
+    """The tanks a tank field offers as the officer types: those whose id starts with the text
+    first, then those whose id, name or kind contains it (case-insensitive), in profile order;
+    every tank when nothing is typed.  ``want(tank)`` keeps only the tanks that fit the field."""
+    t = typed.strip().lower()
+    pool = [k for k in vessel.tanks if want is None or want(k)]
+    if not t:
+        return pool
+    first = [k for k in pool if k.id.lower().startswith(t)]
+    rest = [k for k in pool if k not in first and (t in k.id.lower() or t in k.name.lower()
+                                                   or t in k.kind.replace("_", " "))]
+    return first + rest
+
+
+def tank_choice(condition: Condition, tank: Tank) -> str:
+    """One line of the tank list: id, kind, level, contents and room (mass at the tank's density)."""
+    fill = condition.tank_fill(tank.id)
+    vol = fill_volume_m3(tank, fill)
+    rho = tank_density(tank, fill)
+    room = (tank.capacity_m3 - vol) * rho
+    return (f"{tank.id:<6} {tank.kind.replace('_', ' '):<11.11} {100 * vol / tank.capacity_m3:5.1f} % "
+            f"{vol * rho:7.2f} t  room {room:7.2f} t  {tank.name}")
+
+
+def area_matches(vessel: Vessel, typed: str) -> list[DeckArea]:
+    """The deck areas a deck-area field offers as the officer types, as ``tank_matches``: id
+    starting with the text first, then id or name containing it; every area when nothing is typed."""
+    t = typed.strip().lower()
+    if not t:
+        return list(vessel.deck_areas)
+    first = [a for a in vessel.deck_areas if a.id.lower().startswith(t)]
+    return first + [a for a in vessel.deck_areas if a not in first and (t in a.id.lower() or t in a.name.lower())]
+
+
+def area_choice(condition: Condition, area: DeckArea) -> str:
+    """One line of the deck-area list: id, area, the deck items already on it and, where the
+    profile states a permissible uniform load, the room left under it (max_load_t_m2 × area_m2
+    less those items: the limit the deck-load check applies, core.stability), then the name."""
+    on = sum(d.mass_t for d in condition.deck_items if d.area_id == area.id)
+    if area.max_load_t_m2 is None:
+        room = "no load limit stated"
+    else:
+        room = f"room {area.max_load_t_m2 * area.area_m2 - on:7.1f} t (≤ {area.max_load_t_m2:.2f} t/m²)"
+    return f"{area.id:<10} {area.area_m2:6.1f} m²  on it {on:6.1f} t  {room}  {area.name}"
+
+
 def receiving_tank(vessel: Vessel, condition: Condition, from_id: str) -> str:
     """The transfer form's default to-tank: the partner if it has room, else the tank of the same
     liquid with the most room; '' when no tank of that liquid can take any."""
@@ -425,3 +489,17 @@ def receiving_tank(vessel: Vessel, condition: Condition, from_id: str) -> str:
         return src.pair
     others = [t for t in vessel.tanks if t.kind == src.kind and t.id != from_id and room(t) > 1e-6]
     return max(others, key=room).id if others else ""
+
+
+def giving_tank(vessel: Vessel, condition: Condition, to_id: str) -> str:
+    """The transfer form's default from-tank when the tank chosen to fill is empty: the partner if
+    it holds some, else the tank of the same liquid holding the most; '' when none holds any."""
+    dst = vessel.tank(to_id)
+
+    def held(t) -> float:
+        return fill_volume_m3(t, condition.tank_fill(t.id))
+
+    if dst.pair and dst.pair in vessel.tank_index and held(vessel.tank(dst.pair)) > 1e-6:
+        return dst.pair
+    others = [t for t in vessel.tanks if t.kind == dst.kind and t.id != to_id and held(t) > 1e-6]
+    return max(others, key=held).id if others else ""

@@ -13,15 +13,15 @@ from __future__ import annotations
 import asyncio
 import dataclasses
 
+from rich.console import Console
 from rich.text import Text
 from textual.app import ComposeResult
 from textual.containers import Horizontal, Vertical
 from textual.screen import Screen
-from textual.widgets import Footer
 
 from deckload.core.model import Condition
 from deckload.ui import entry, verdict, views
-from deckload.ui.commands import bindings
+from deckload.ui.commands import bindings, footer_keys
 from deckload.ui.dialogs import HelpScreen, TextScreen, ItemFormScreen, PromptForm, RecordForm, TransferForm
 from deckload.ui.entry import EntryError, ItemForm
 from deckload.ui.palette import P
@@ -43,6 +43,7 @@ class LoadingScreen(Screen[None]):
         super().__init__()
         self.session = session
         self._settle_timer = None
+        self._criteria_made: tuple | None = None
 
     def compose(self) -> ComposeResult:
         yield SizedPanel(id="titlebar")
@@ -54,20 +55,38 @@ class LoadingScreen(Screen[None]):
                 yield SizedPanel(id="criteria")
                 yield SizedPanel(id="gz")
         yield LinePanel(id="status")
-        yield Footer(compact=True, show_command_palette=False)
+        yield SizedPanel(id="keys")
 
     def on_mount(self) -> None:
         loop = asyncio.get_running_loop()
+        # Writes go to the writer thread once the change's frame is drawn; the interval is a
+        # backstop for a frame that never comes (the screen that was to draw it closed first).
         self.session.write_in_background(lambda p: loop.call_soon_threadsafe(self._report, p),
-                                         lambda: loop.call_soon_threadsafe(self._save_landed))
+                                         lambda: loop.call_soon_threadsafe(self._save_landed),
+                                         after_frame=self.call_after_refresh)
+        self.set_interval(0.5, self.session.release_writes)
         self.query_one(LoadBoard).focus()
         self.refresh_view()
+        self.query_one("#keys", SizedPanel).show(lambda w, h: [self._key_line(w)])
         self.say("⏎ type an amount · + − nudge · t transfer · n name · p print · x plan · ? all keys", ok=None)
 
     def on_resize(self, event) -> None:
         self.set_class(event.size.width < NARROW_BELOW, "-narrow")
         self.refresh_bindings()
         self.call_after_refresh(self._size_criteria, self.session.result, self.session.stale)
+
+    def _key_line(self, width: int) -> Text:
+        """The footer: the commands' keys that fit, ? (every key) and q always (ui/commands.footer_keys)."""
+        narrow = width < NARROW_BELOW
+        keys, _ = footer_keys(width, shown=lambda c: c.action != "toggle_gz" or narrow)
+        sep = " " if sum(len(k) + len(label) + 3 for k, label in keys) > width else "  "
+        line = Text(" ")
+        for i, (key, label) in enumerate(keys):
+            if i:
+                line.append(sep)
+            line.append(key, P["title"])
+            line.append(" " + label, P["label"])
+        return line
 
     def check_action(self, action: str, parameters: tuple) -> bool | None:
         """The numbers/curve switch exists only where the screen cannot show both."""
@@ -83,10 +102,10 @@ class LoadingScreen(Screen[None]):
         v, c, r, stale = s.vessel, s.condition, s.result, s.stale
         self.query_one(LoadBoard).show(v, c, r, stale)
         alerts = views.alerts(r, stale, s.problem)
-        self.query_one("#alerts", SizedPanel).show(lambda w, h: alert_lines(alerts, h))
+        self.query_one("#alerts", SizedPanel).show(lambda w, h: alert_lines(alerts, h, w))
         self.query_one("#afloat", SizedPanel).show(lambda w, h: views.afloat_lines(v, c, r, stale, w))
         self._size_criteria(r, stale)
-        self.query_one("#criteria", SizedPanel).show(lambda w, h: verdict.criteria_lines(r, stale, w, h))
+        self.query_one("#criteria", SizedPanel).show(lambda w, h: self._criteria_lines(r, stale, w, h))
         self.query_one("#gz", SizedPanel).show(lambda w, h: self._curve_lines(r, stale, w, h))
         self.query_one("#titlebar", SizedPanel).show(lambda w, h: [self._title(w)])
 
@@ -97,7 +116,8 @@ class LoadingScreen(Screen[None]):
             if chart is None:
                 return verdict.weather_missing(r, w)
             return [verdict.weather_caption(r, w), *chart.lines()]
-        return [views.gz_caption(r, w), *views.gz_chart(r, stale, w - 1, h - 1).lines()]
+        head = gz_title_lines(r, w)  # every fact of the title, on two lines where one is too short
+        return [*head, *views.gz_chart(r, stale, w - 1, h - len(head)).lines()]
 
     def _size_criteria(self, r, stale: bool) -> None:
         """Wide: the criteria panel as tall as its lines (the curve keeps MIN_CURVE_ROWS); narrow: the rest."""
@@ -107,9 +127,20 @@ class LoadingScreen(Screen[None]):
             want = "1fr"
         else:
             room = max(4, side.size.height - self.query_one("#afloat").outer_size.height - MIN_CURVE_ROWS)
-            want = str(len(verdict.criteria_lines(r, stale, max(1, side.size.width), room)))
+            lines = verdict.criteria_lines(r, stale, max(1, side.size.width), room)
+            # The panel is made exactly that tall: what it shows at that height is these lines.
+            self._criteria_made = (r, stale, max(1, side.size.width), len(lines), lines)
+            want = str(len(lines))
         if str(panel.styles.height) != want and not (want == "1fr" and str(panel.styles.height) == "1fr"):
             panel.styles.height = want
+
+    def _criteria_lines(self, r, stale: bool, w: int, h: int) -> list[Text]:
+        """The criteria panel's lines; those :meth:`_size_criteria` just made for this result and size
+        are taken as they are (the panel's lines are otherwise built twice a key)."""
+        made = self._criteria_made
+        if made is not None and made[0] is r and made[1:4] == (stale, w, h):
+            return made[4]
+        return verdict.criteria_lines(r, stale, w, h)
 
     def _title(self, width: int) -> Text:
         """Vessel, condition, whether changes are logged, undo depth; shortened on narrow screens."""
@@ -147,7 +178,20 @@ class LoadingScreen(Screen[None]):
     def say(self, message: str, ok: bool | None = True) -> None:
         """The message line: ✔ done, ✖ refused, or a plain hint."""
         style, mark = {True: (P["ok"], "✔ "), False: (P["danger"], "✖ "), None: (P["dim"], "")}[ok]
-        self.query_one("#status", LinePanel).set_lines([Text(" " + mark + message, style)])
+        panel = self.query_one("#status", LinePanel)
+        # A result or refusal takes two lines where one would cut it (80 columns; the second ends in …
+        # if even that is short); a hint (ok None) keeps one line, so the board keeps its rows.
+        lines = fit_lines(Text(" " + mark + message, style), max(20, self.size.width),
+                          1 if ok is None else STATUS_MAX_LINES)
+        if panel.styles.height is None or panel.styles.height.value != len(lines):
+            panel.styles.height = len(lines)
+            self.call_after_refresh(self._cursor_in_view)  # the board lost or gained a row
+        panel.set_lines(lines)
+
+    def _cursor_in_view(self) -> None:
+        board = self.query_one(LoadBoard)
+        if board.cursor_key is not None:
+            board.select(board.cursor_key, announce=False)
 
     # ------------------------------------------------------------------ changes
 
@@ -232,7 +276,8 @@ class LoadingScreen(Screen[None]):
                 self.commit(r[0], f"{tank.id} set to {got}", self._kind(tank.id), {"tank": tank.id, "entered": r[1]},
                             run=("tank", tank.id))
 
-        self.app.push_screen(PromptForm(f"{tank.id}  {tank.name}", hint, entry.fill_text(fill), build), done)
+        preview = lambda text: entry.amount_preview(s.condition, tank, text)  # noqa: E731
+        self.app.push_screen(PromptForm(f"{tank.id}  {tank.name}", hint, entry.fill_text(fill), build, preview), done)
 
     def _edit_hold(self, hold_id: str) -> None:
         s = self.session
@@ -265,7 +310,7 @@ class LoadingScreen(Screen[None]):
             return self._with_items(deck, entry.replace_at(items, at, item)), item.name
 
         title = f"{'Edit' if index is not None else 'Add'} {noun}"
-        self.app.push_screen(ItemFormScreen(title, form, build, deck=deck),
+        self.app.push_screen(ItemFormScreen(title, form, build, deck=deck, vessel=s.vessel, condition=s.condition),
                              lambda r: r and self.commit(r[0], f"{title}: {r[1]}", "cargo" if deck else "edit", {noun: r[1]}))
 
     def _with_items(self, deck: bool, items: tuple) -> Condition:
@@ -340,8 +385,13 @@ class LoadingScreen(Screen[None]):
     def action_transfer(self) -> None:
         s = self.session
         what, ident = self._key
-        src = ident if what == "tank" else ""
-        dst = entry.receiving_tank(s.vessel, s.condition, src) if src else ""
+        src = dst = ""
+        if what == "tank":
+            tank = s.vessel.tank(ident)
+            if entry.fill_volume_m3(tank, s.condition.tank_fill(ident)) > 1e-6:
+                src, dst = ident, entry.receiving_tank(s.vessel, s.condition, ident)
+            else:  # an empty tank has nothing to give: the officer means to fill it, from a tank that holds some
+                src, dst = entry.giving_tank(s.vessel, s.condition, ident), ident
         form = TransferForm(s.vessel, s.condition, None if s.stale else s.result, s.preview, src, dst)
         self.app.push_screen(form, lambda plan: plan and self.commit(
             plan.condition, plan.label, "transfer",
@@ -358,8 +408,11 @@ class LoadingScreen(Screen[None]):
 
         def done(p) -> None:
             if p is not None:
-                self.commit(p.condition, f"Planned transfer {p.mass_t:.1f} t {p.from_id} → {p.to_id}", "transfer",
-                            {"from": p.from_id, "to": p.to_id, "mass_t": round(p.mass_t, 3), "planned": True})
+                from deckload.ui.planner import plan_words
+
+                self.commit(p.condition, f"Planned: {plan_words(p)}", "transfer",
+                            {"planned": True, "transfers": [{"from": t.from_id, "to": t.to_id, "mass_t": round(t.mass_t, 3)}
+                                                            for t in p.transfers]})
 
         self.app.push_screen(PlannerForm(s.vessel, s.condition, s.result, evaluate), done)
 
@@ -556,7 +609,7 @@ class LoadingScreen(Screen[None]):
             try:
                 problems = self.session.save_as(name, path)
             except (OSError, EntryError) as exc:
-                self.say(f"NOT SAVED: {path}: {getattr(exc, 'strerror', None) or exc}", ok=False)
+                self.say(f"NOT SAVED ({getattr(exc, 'strerror', None) or exc}): {path}", ok=False)
                 return
             self.refresh_view()
             self.say(f"Saved as “{name}” in {path}")
@@ -605,7 +658,7 @@ class LoadingScreen(Screen[None]):
     def action_alerts(self) -> None:
         s = self.session
         every = views.alerts(s.result, s.stale, s.problem)
-        self.app.push_screen(TextScreen("Warnings", alert_lines(every, len(every) + 1)))
+        self.app.push_screen(TextScreen("Warnings", alert_lines(every, len(every) + 1)))  # whole, the page wraps
 
     def action_compare_hull(self) -> None:
         from deckload.ui.hull_compare import HullCompareScreen
@@ -631,8 +684,8 @@ class LoadingScreen(Screen[None]):
             why = next((x.fs_rule for x in r.tanks if x.id == ident), "") if r is not None else ""
             fill = self.session.condition.tank_fill(ident)
             rho = f" · ρ {fill.density_t_m3:.4g} stated (D)" if fill is not None and fill.density_t_m3 is not None else ""
-            self.say(f"{t.id} {t.name} · {t.capacity_m3:.1f} m³{rho} · FSM: {why} · ⏎ set · + − · f full · e empty · "
-                     f"t transfer", ok=None)
+            keys = " · ⏎ set · + − · f full · e empty · t transfer" if not self.has_class("-narrow") else ""
+            self.say(f"{t.id} {t.name} · {t.capacity_m3:.1f} m³{rho} · FSM: {why}{keys}", ok=None)
         elif what == "hold":
             self.say(f"{ident} {self.session.vessel.hold(ident).name} · ⏎ cargo mass · + − 1 t · e empty", ok=None)
         elif what in ("deck", "const"):
@@ -640,22 +693,77 @@ class LoadingScreen(Screen[None]):
         elif what == "fixed":
             self.say("A fixed constant of the vessel profile: to change it for this condition, add a constant (c) of the same name.", ok=None)
         elif what == "dwt":
-            self.say(DWT_HINT, ok=None)
+            self.say(DWT_HINT if not self.has_class("-narrow") else DWT_HINT_NARROW, ok=None)
 
 
+DWT_HINT_NARROW = "Deadweight by kind: sums of the lines above (cargo: holds, deck, liquid cargo)"
 DWT_HINT = ("Deadweight by kind: the sum of the lines above it (cargo = holds, deck loads and liquid cargo); "
             "change the tanks and items themselves.")
 
 
-def alert_lines(alerts: list[views.Alert], height: int) -> list[Text]:
-    """As many alerts as fit, dangers first; the last line counts those left out."""
+STATUS_MAX_LINES = 2
+"""The message line grows to this many lines on a narrow screen rather than cut a message."""
+
+_WRAP_CONSOLE = Console(width=400, no_color=True, legacy_windows=False)
+
+
+def cut(text: Text, width: int) -> Text:
+    """``text`` if it fits in ``width`` cells, else a copy cut to fit, ending in "…"."""
+    if text.cell_len <= width:
+        return text
+    out = text.copy()
+    out.truncate(width, overflow="ellipsis")
+    return out
+
+
+def fit_lines(text: Text, width: int, max_lines: int, indent: int = 2) -> list[Text]:
+    """``text`` wrapped to ``width`` cells (lines after the first indented by ``indent``), at most
+    ``max_lines``; the last line ends in "…" when anything is left out."""
+    if text.cell_len <= width:
+        return [text]
+    first, *rest = text.wrap(_WRAP_CONSOLE, max(10, width - indent))
+    lines = [first] + [Text(" " * indent).append_text(line) for line in rest]
+    if len(lines) > max_lines:  # the last line shown carries the rest, cut with "…" where it overflows
+        last = lines[max_lines - 1].copy()
+        for more in lines[max_lines:]:
+            last.append(" ").append_text(more[indent:])
+        lines = lines[: max_lines - 1] + [last]
+    return [cut(ln, width) for ln in lines]
+
+
+def gz_title_lines(result, width: int) -> list[Text]:
+    """The curve's title (views.gz_caption) with every fact it holds: "GZ curve" becomes "GZ" where
+    the line is too short, then it wraps to two lines; nothing is left out."""
+    title = views.gz_caption(result)
+    if title.cell_len > width and title.plain.startswith(" GZ curve"):
+        title = Text(" GZ", P["title"]).append_text(title[len(" GZ curve"):])
+    if title.cell_len <= width:
+        return [title]
+    # Two lines broken between its parts (two spaces apart), not inside one ("zero at | 55.9°");
+    # where the parts do not pack into two lines, wrapped by words.
+    text = title.plain
+    breaks = [i for i in range(1, len(text)) if text.startswith("  ", i)]
+    first = [i for i in breaks if i <= width]
+    if first and len(text) - first[-1] - 1 <= width:
+        at = first[-1]
+        return [title[:at], title[at + 1:]]  # the second line keeps one of the two spaces as its margin
+    return fit_lines(title, width, 2)
+
+
+def alert_lines(alerts: list[views.Alert], height: int, width: int | None = None) -> list[Text]:
+    """The warning strip: dangers first.  Whole, wrapped to ``width``, when they fit in ``height``
+    lines; else one line each, a cut one ending in "…", and the last line says that ``w`` lists
+    them all (counting those left out).  ``width`` None: every alert, unwrapped (the w page)."""
     if not alerts:
         return [Text(" ✔ No warnings: no assessed criterion failed or within 10 %, no worst-band tank, list and "
                      "drafts within limits", P["ok"])]
-    ordered = alerts
-    if len(ordered) <= height:
-        return [a.line() for a in ordered]
-    shown = [a.line() for a in ordered[: height - 1]]
-    last = Text(f"(+{len(ordered) - height + 1} more: w) ", P["caution"])
-    last.append_text(ordered[height - 1].line())
-    return shown + [last]
+    if width is None:
+        return [a.line() for a in alerts]
+    wrapped = [fit_lines(a.line(), width, height) for a in alerts]
+    if sum(len(w) for w in wrapped) <= height and all(not w[-1].plain.endswith("…") for w in wrapped):
+        return [ln for w in wrapped for ln in w]
+    lines = [a.line() for a in alerts[:height]]
+    if len(alerts) > height:
+        lines[-1] = Text(f"(+{len(alerts) - height + 1} more: w) ", P["caution"]).append_text(lines[-1])
+    # A line cut short ends in "…(w)": w shows every warning in full.
+    return [ln if ln.cell_len <= width else cut(ln, width - 3).append("(w)", P["caution"]) for ln in lines]
