@@ -56,9 +56,9 @@ def test_profile_key_reference_lcg_m():
 def test_no_caution_where_trimmed_kn_tables_cover_the_trim():
     """KN tabulated at several trims covering hers are made for her own trim, so the free-trim
     reference LCG does not apply (core/trimmed_tables.covers_kn): the box of
-    test_reference_trimmed_tables.py with its even-keel set relabelled 'free trim' for an LCG 5 m
+    tests/trimmed_box.py with its even-keel set relabelled 'free trim' for an LCG 5 m
     forward of hers draws the caution without the trimmed sets and none with them."""
-    from test_reference_trimmed_tables import L, box
+    from trimmed_box import L, box
 
     v = box(5.0, 3.0, 0.98)
     cc = dataclasses.replace(v.cross_curves, trim_basis="free trim", reference_lcg_m=L / 2 - 0.98 + 5.0)
