@@ -26,12 +26,14 @@ from deckload.ui.dialogs import HelpScreen, TextScreen, ItemFormScreen, PromptFo
 from deckload.ui.entry import EntryError, ItemForm
 from deckload.ui.palette import P
 from deckload.ui.session import Session
-from deckload.ui.widgets import LinePanel, LoadBoard, SizedPanel
+from deckload.ui.widgets import LoadBoard, SizedPanel
 
 RUN_PAUSE_S = 4.0
 """A run of nudges or retypes of one item ends (and is logged as one entry) after this pause."""
 NARROW_BELOW = 110
 """Screen width (cells) under which the right side shows numbers or curve, not both."""
+STATUS_MAX_ROWS = 3
+"""A refusal on the message line takes up to this many rows (a hint or a done is one row)."""
 MIN_CURVE_ROWS = 10
 """On a wide screen the criteria panel takes the rows it needs, leaving the curve at least this many."""
 
@@ -53,7 +55,7 @@ class LoadingScreen(Screen[None]):
                 yield SizedPanel(id="afloat")
                 yield SizedPanel(id="criteria")
                 yield SizedPanel(id="gz")
-        yield LinePanel(id="status")
+        yield SizedPanel(id="status")
         yield Footer(compact=True, show_command_palette=False)
 
     def on_mount(self) -> None:
@@ -83,7 +85,7 @@ class LoadingScreen(Screen[None]):
         v, c, r, stale = s.vessel, s.condition, s.result, s.stale
         self.query_one(LoadBoard).show(v, c, r, stale)
         alerts = views.alerts(r, stale, s.problem)
-        self.query_one("#alerts", SizedPanel).show(lambda w, h: alert_lines(alerts, h))
+        self.query_one("#alerts", SizedPanel).show(lambda w, h: alert_lines(alerts, h, w, self.app.console))
         self.query_one("#afloat", SizedPanel).show(lambda w, h: views.afloat_lines(v, c, r, stale, w))
         self._size_criteria(r, stale)
         self.query_one("#criteria", SizedPanel).show(lambda w, h: verdict.criteria_lines(r, stale, w, h))
@@ -112,26 +114,40 @@ class LoadingScreen(Screen[None]):
             panel.styles.height = want
 
     def _title(self, width: int) -> Text:
-        """Vessel, condition, whether changes are logged, undo depth; shortened on narrow screens."""
+        """Vessel, condition, whether changes are logged, undo depth.  Shortened step by step until
+        it fits (narrow screens start at the third step): the program's name goes, then the log
+        and plan words are shortened, then 'modified from <name>' becomes '(modified)', then the
+        condition's name ends in '…'."""
+        level = 0 if width >= NARROW_BELOW else 3
+        t = self._title_text(level, None)
+        while t.cell_len > width and level < 3:
+            level += 1
+            t = self._title_text(level, None)
+        if t.cell_len > width:
+            name = self.session.condition.name
+            t = self._title_text(level, views.fit(name, max(8, len(name) - (t.cell_len - width))))
+        return fitted(t, width)
+
+    def _title_text(self, level: int, name: str | None) -> Text:
         s, j = self.session, self.session.journal
-        wide = width >= NARROW_BELOW
-        t = Text(" deckload │ " if wide else " ", P["title"])
-        t.append(f"{s.vessel.particulars.name} │ {s.condition.name}", P["value"])
+        t = Text(" deckload │ " if level < 1 else " ", P["title"])
+        t.append(f"{s.vessel.particulars.name} │ {name or s.condition.name}", P["value"])
         if s.condition.modified_from:
-            t.append(f" (modified from {s.condition.modified_from})" if wide else " (modified)", P["caution"])
+            t.append(f" (modified from {s.condition.modified_from})" if level < 3 else " (modified)", P["caution"])
         t.append(" │ ", P["value"])
+        words = level < 2
         if j.writable and j.officer:
-            t.append(f"watch {j.officer}, logged" if wide else f"{j.officer} logged", P["dim"])
+            t.append(f"watch {j.officer}, logged" if words else f"{j.officer} logged", P["dim"])
         elif j.writable:
-            t.append("changes NOT logged: o to sign on" if wide else "NOT logged (o)", P["caution"])
+            t.append("changes NOT logged: o to sign on" if words else "NOT logged (o)", P["caution"])
         else:
-            t.append(f"log off: {j.problem or 'no log'}" if wide else "log off", P["caution"])
+            t.append(f"log off: {j.problem or 'no log'}" if words else "log off", P["caution"])
         if s.planning:
-            t.append(f" │ PLAN ({s.plan_steps}, not logged: x to apply or discard)" if wide else " │ PLAN", P["caution"])
+            t.append(f" │ PLAN ({s.plan_steps}, not logged: x to apply or discard)" if words else " │ PLAN", P["caution"])
         t.append(f" │ undo {s.undo_depth} redo {s.redo_depth}", P["dim"])
         if s.saves_pending:
             # The edit is on screen but not yet on disk: say so until the writer has saved it.
-            t.append(" │ saving…" if wide else " saving…", P["caution"])
+            t.append(" │ saving…" if level < 3 else " saving…", P["caution"])
         return t
 
     def _save_landed(self) -> None:
@@ -147,7 +163,15 @@ class LoadingScreen(Screen[None]):
     def say(self, message: str, ok: bool | None = True) -> None:
         """The message line: ✔ done, ✖ refused, or a plain hint."""
         style, mark = {True: (P["ok"], "✔ "), False: (P["danger"], "✖ "), None: (P["dim"], "")}[ok]
-        self.query_one("#status", LinePanel).set_lines([Text(" " + mark + message, style)])
+        line = Text(" " + mark + message, style)
+        panel = self.query_one("#status", SizedPanel)
+        rows = 1
+        if ok is False:  # a refusal is read whole: up to STATUS_MAX_ROWS lines, then '…'
+            width = panel.size.width or self.app.size.width
+            rows = max(1, min(STATUS_MAX_ROWS, len(line.wrap(self.app.console, max(1, width)))))
+        if str(panel.styles.height) != str(rows):
+            panel.styles.height = rows
+        panel.show(lambda w, h: status_lines(line, w, rows, self.app.console))
 
     # ------------------------------------------------------------------ changes
 
@@ -634,28 +658,78 @@ class LoadingScreen(Screen[None]):
             self.say(f"{t.id} {t.name} · {t.capacity_m3:.1f} m³{rho} · FSM: {why} · ⏎ set · + − · f full · e empty · "
                      f"t transfer", ok=None)
         elif what == "hold":
-            self.say(f"{ident} {self.session.vessel.hold(ident).name} · ⏎ cargo mass · + − 1 t · e empty", ok=None)
+            # the whole of what the board shortens with '…' (name, what is stowed, the limit)
+            hold = self.session.vessel.hold(ident)
+            load = next((h for h in self.session.condition.holds if h.hold_id == ident), None)
+            limit = f" of {hold.max_mass_t:g} t" if hold.max_mass_t is not None else ""
+            stowed = f" · {load.description}" if load is not None and load.description else ""
+            self.say(f"{ident} {hold.name} · {load.mass_t if load else 0.0:.2f} t{limit}{stowed} · "
+                     f"⏎ cargo mass · + − 1 t · e empty", ok=None)
         elif what in ("deck", "const"):
-            self.say("⏎ edit mass and position · + − 1 t · e remove · a add deck load · c add constant", ok=None)
+            items = self.session.condition.deck_items if what == "deck" else self.session.condition.constants
+            self.say(f"{item_summary(items[ident])} · ⏎ edit mass and position · + − 1 t · e remove · "
+                     f"a add deck load · c add constant", ok=None)
         elif what == "fixed":
-            self.say("A fixed constant of the vessel profile: to change it for this condition, add a constant (c) of the same name.", ok=None)
+            self.say(f"{item_summary(self.session.vessel.constants[ident])} · a fixed constant of the vessel "
+                     f"profile: to change it for this condition, add a constant (c) of the same name.", ok=None)
         elif what == "dwt":
             self.say(DWT_HINT, ok=None)
+
+
+def item_summary(item) -> str:
+    """A deck load or constant in full, as the board cannot always show it: name, mass, centre of
+    gravity (x from the aft perpendicular, z above keel, side as P/S) and deck area."""
+    area = getattr(item, "area_id", None)
+    side = "on the centreline" if round(abs(item.tcg_m), 2) == 0 else \
+        f"{abs(item.tcg_m):.2f} m {'S' if item.tcg_m > 0 else 'P'}"
+    return (f"{item.name} · {item.mass_t:.2f} t at x {item.lcg_m:.2f} m, z {item.vcg_m:.2f} m, {side}"
+            + (f" · on {area}" if area else ""))
+
+
+def fitted(line: Text, width: int) -> Text:
+    """``line`` shortened with '…' to ``width`` cells: a line longer than the screen shows that it
+    goes on (hints put what the row holds first, the keys after)."""
+    if line.cell_len <= width:
+        return line
+    out = line.copy()
+    out.truncate(width, overflow="ellipsis")
+    return out
+
+
+def status_lines(line: Text, width: int, rows: int, console) -> list[Text]:
+    """The message in ``rows`` lines of ``width``: wrapped, the last one ending in '…' if more is left."""
+    if rows <= 1:
+        return [fitted(line, width)]
+    wrapped = list(line.wrap(console, width))
+    if len(wrapped) <= rows:
+        return wrapped
+    last = wrapped[rows - 1].copy()
+    last.append(" …")
+    return wrapped[: rows - 1] + [fitted(last, width - 1) if last.cell_len > width else last]
 
 
 DWT_HINT = ("Deadweight by kind: the sum of the lines above it (cargo = holds, deck loads and liquid cargo); "
             "change the tanks and items themselves.")
 
 
-def alert_lines(alerts: list[views.Alert], height: int) -> list[Text]:
-    """As many alerts as fit, dangers first; the last line counts those left out."""
+def alert_lines(alerts: list[views.Alert], height: int, width: int | None = None, console=None) -> list[Text]:
+    """As many alerts as fit, dangers first; the last line counts those left out.  Given the
+    panel's ``width`` (and a console to wrap with), alerts that all fit the panel when wrapped are
+    wrapped; otherwise each takes one line, shortened with '…' (w shows them whole)."""
     if not alerts:
-        return [Text(" ✔ No warnings: no assessed criterion failed or within 10 %, no worst-band tank, list and "
-                     "drafts within limits", P["ok"])]
+        lines = [Text(" ✔ No warnings: no assessed criterion failed or within 10 %, no worst-band tank, list and "
+                      "drafts within limits", P["ok"])]
+        return lines if width is None else [fitted(lines[0], width)]
     ordered = alerts
+    if width is not None and console is not None:
+        wrapped = [part for a in ordered for part in a.line().wrap(console, width)]
+        if len(wrapped) <= height:
+            return list(wrapped)
     if len(ordered) <= height:
-        return [a.line() for a in ordered]
-    shown = [a.line() for a in ordered[: height - 1]]
-    last = Text(f"(+{len(ordered) - height + 1} more: w) ", P["caution"])
-    last.append_text(ordered[height - 1].line())
-    return shown + [last]
+        shown = [a.line() for a in ordered]
+    else:
+        shown = [a.line() for a in ordered[: height - 1]]
+        last = Text(f"(+{len(ordered) - height + 1} more: w) ", P["caution"])
+        last.append_text(ordered[height - 1].line())
+        shown.append(last)
+    return shown if width is None else [fitted(t, width) for t in shown]
