@@ -13,6 +13,7 @@ from pathlib import Path
 import json
 import math
 
+import numpy as np
 import pytest
 
 from deckload.cli.main import main
@@ -102,6 +103,13 @@ def test_a_non_finite_computed_number_is_refused_naming_it(vessel):
     for field, bad in (("gm_fluid_m", math.nan), ("gz_m", (0.0, math.inf))):
         with pytest.raises(bounds.NonFiniteResultError, match=field):
             bounds.checked_result(vessel, dataclasses.replace(good, **{field: bad}))
+    # Deeper down (a tank's mass) and in an array: the quick pass must not let them through.
+    tank = dataclasses.replace(good.tanks[1], mass_t=-math.inf)
+    with pytest.raises(bounds.NonFiniteResultError, match=r"tanks\[1\]\.mass_t"):
+        bounds.checked_result(vessel, dataclasses.replace(good, tanks=(good.tanks[0], tank, *good.tanks[2:])))
+    with pytest.raises(bounds.NonFiniteResultError, match=r"gz_m\[2\]"):
+        bounds.checked_result(vessel, dataclasses.replace(good, gz_m=np.array([0.0, 0.1, np.nan])))
+    assert bounds.checked_result(vessel, good) is good
 
 
 def test_json_output_is_strict(capsys):

@@ -87,6 +87,116 @@ def test_changes_are_logged_under_the_officer_of_the_watch(vessel, tmp_path):
     book.close()
 
 
+def _writer_session(vessel, tmp_path, officer="TS"):
+    """A session writing in the background, with the frame hook and the save under the test's control:
+    ``frames`` collects what is to run once a frame is drawn, ``gate`` holds the save until set,
+    ``saving`` is set while the writer is inside a save, ``saved`` lists the conditions written."""
+    import threading
+
+    book = Logbook.open(tmp_path / "logs", vessel.particulars.name)
+    journal = Journal(book)
+    journal.officer = officer
+    gate, saving, saved, frames = threading.Event(), threading.Event(), [], []
+
+    def slow_save(path, condition):
+        saving.set()
+        gate.wait(10)
+        save_condition(path, condition)
+        saved.append(condition)
+
+    path = tmp_path / "work" / "barge.condition.toml"
+    s = Session(vessel, c_with(), save_path=path, journal=journal, save=slow_save)
+    problems = []
+    s.write_in_background(problems.append, after_frame=frames.append)
+    return s, book, path, gate, saving, saved, frames, problems
+
+
+def _frame_drawn(frames):
+    for fn in frames:
+        fn()
+    frames.clear()
+
+
+def test_queued_saves_coalesce_the_newest_condition_wins_and_every_log_entry_is_kept(vessel, tmp_path):
+    """Six logged changes while the first save is stuck on a slow disk: the first save, then ONE save of
+    the newest condition (not five); the log gets all six entries in order."""
+    s, book, path, gate, saving, saved, frames, problems = _writer_session(vessel, tmp_path)
+    conditions = [c_with(TankFill("DB1P", "percent", float(10 * i))).replace(modified_from="Test")
+                  for i in range(1, 7)]
+    s.commit(conditions[0], "DB1P 10 %")
+    assert not saving.is_set() and s.saves_pending == 1  # held until its frame is drawn
+    _frame_drawn(frames)
+    assert saving.wait(5)  # the writer is now inside the first save, stuck on the gate
+    for i, c in enumerate(conditions[1:], start=2):
+        s.commit(c, f"DB1P {10 * i} %")
+        _frame_drawn(frames)
+    assert s.saves_pending == 6
+    gate.set()
+    assert s.flush() == []
+    assert s.saves_pending == 0
+    assert saved == [conditions[0], conditions[-1]] and s.saves_written == 2
+    assert load_condition(path, vessel) == conditions[-1]
+    assert [e.change_text for e in book.entries()] == [f"DB1P {10 * i} %" for i in range(1, 7)]
+    assert problems == []
+    book.close()
+
+
+def test_quitting_with_a_save_not_yet_handed_to_the_writer_writes_it(vessel, tmp_path):
+    """flush (what quitting calls) writes a change whose frame was never drawn, and waits for it."""
+    s, book, path, gate, saving, saved, frames, problems = _writer_session(vessel, tmp_path)
+    gate.set()
+    c1 = c_with(TankFill("DB1S", "percent", 33.0)).replace(modified_from="Test")
+    s.commit(c1, "DB1S 33 %")
+    assert frames and not path.exists()
+    s.flush()
+    assert load_condition(path, vessel) == c1 and s.saves_pending == 0
+    assert [e.change_text for e in book.entries()] == ["DB1S 33 %"]
+    _frame_drawn(frames)  # the frame's own hand-over, coming late, finds nothing left to write
+    assert saved == [c1]
+    book.close()
+
+
+def test_the_screen_saves_the_last_of_quick_edits_and_quitting_waits_for_it(tmp_path):
+    """On the loading screen: ten nudges while the disk is slow, then quit at once.  The file on disk
+    holds the condition on screen after the last nudge, fewer than ten saves were written, and the
+    run of nudges is one log entry (of ten changes)."""
+    import asyncio
+    import threading
+
+    from deckload.io import paths
+    from deckload.io.profiles import load_profile
+    from deckload.ui.launch import create_app
+
+    vessel = load_profile(paths.DEMO_PROFILE)
+    condition = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
+    app = create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    calls = []
+
+    def slow_save(path, c):
+        calls.append(c)
+        threading.Event().wait(0.3)  # a slow disk: 0.3 s a save, longer than a key takes
+        save_condition(path, c)
+
+    app.session._save = slow_save
+
+    async def run():
+        async with app.run_test(size=(120, 40)) as pilot:
+            await pilot.pause()
+            for _ in range(10):
+                await pilot.press("plus")
+            shown = app.session.condition
+            await pilot.press("q")
+            return shown
+
+    shown = asyncio.run(run())
+    path = app.session.save_path
+    assert load_condition(path, vessel) == shown != condition
+    assert 1 <= len(calls) < 10 and calls[-1] == shown
+    book = Logbook.open(tmp_path / "logs", vessel.particulars.name)
+    assert [e.change_data.get("steps") for e in book.entries()] == [10]
+    book.close()
+
+
 def test_working_file_is_named_after_the_vessel(vessel, tmp_path):
     """Slug for the reader, plus the first 10 hex digits of SHA-256("Analytic box barge")."""
     import hashlib
@@ -132,3 +242,34 @@ def test_the_title_says_saving_until_the_change_is_on_disk(tmp_path):
             assert (tmp_path / "work").is_dir() and any((tmp_path / "work").glob("*.condition.toml"))
 
     asyncio.run(run())
+
+
+def test_the_writer_keeps_logging_when_a_save_fails_oddly_and_when_the_screen_is_gone(vessel, tmp_path):
+    """A save failing with something other than an OSError is reported (NOT SAVED) and the log entries of
+    the same batch are still appended; a report to a screen that is gone (it raises) stops nothing, and
+    flush does not wait for ever."""
+    book = Logbook.open(tmp_path / "logs", vessel.particulars.name)
+    journal = Journal(book)
+    journal.officer = "TS"
+
+    def odd_save(path, condition):
+        raise ValueError("cannot write this condition")
+
+    told = []
+
+    def gone(problem):
+        told.append(problem)
+        raise RuntimeError("Event loop is closed")
+
+    s = Session(vessel, c_with(), save_path=tmp_path / "w.condition.toml", journal=journal, save=odd_save)
+    s.write_in_background(gone, after_frame=lambda fn: None)  # no frame ever comes: flush hands them over
+    s.commit(c_with(TankFill("DB1P", "percent", 10.0)), "DB1P 10 %")
+    s.commit(c_with(TankFill("DB1P", "percent", 20.0)), "DB1P 20 %")
+    s.flush()
+    assert s.saves_pending == 0 and s.saves_written == 0
+    assert [e.change_text for e in book.entries()] == ["DB1P 10 %", "DB1P 20 %"]
+    assert told and all("NOT SAVED" in t and "cannot write this condition" in t for t in told)
+    s.commit(c_with(TankFill("DB1P", "percent", 30.0)), "DB1P 30 %")  # the writer still works
+    s.flush()
+    assert [e.change_text for e in book.entries()][-1] == "DB1P 30 %"
+    book.close()

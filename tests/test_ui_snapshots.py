@@ -50,4 +50,17 @@ def test_main_screen_80x24_curve_after_a_ballast_edit(snap_compare, demo_app):
 
 
 def test_transfer_preview_120x40(snap_compare, demo_app):
-    assert snap_compare(demo_app, terminal_size=(120, 40), press=["t", *"5t"])
+    """WB2P → its receiving tank, 5 t: the before/after with every criterion."""
+    assert snap_compare(demo_app, terminal_size=(120, 40), press=["down"] * 9 + ["t", *"5t"])
+
+
+def test_transfer_preview_80x24(snap_compare, demo_app):
+    """WB2P → WB1P 5 t: every criterion row and the message line fit at 80×24 (a QA trial found the
+    last row hidden)."""
+    assert snap_compare(demo_app, terminal_size=(80, 24), press=["down"] * 9 + ["t", *"5t"])
+
+
+def test_set_dialog_with_its_preview_80x24(snap_compare, demo_app):
+    """The set dialog's whole hint, and what 0.3m comes to before ⏎ (cursor moved to LO1)."""
+    keys = ["down"] * 16 + ["enter", *"0.3m"]
+    assert snap_compare(demo_app, terminal_size=(80, 24), press=keys)

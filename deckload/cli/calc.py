@@ -2,7 +2,6 @@
 
 from __future__ import annotations
 
-import json
 import sys
 from pathlib import Path
 
@@ -105,15 +104,16 @@ def load_and_evaluate(profile_path: Path, condition_path: Path):
     from deckload.core.loading import LoadingError
     from deckload.core.stability import evaluate
     from deckload.core.tables import OutOfRangeError
-    from deckload.io.profiles import ProfileError, load_condition, load_profile
+    from deckload.io.profiles import ProfileError, load_condition
 
-    from deckload.report.audit_findings import audit_or_refuse
+    from deckload.report.audit_findings import load_audited, refuse_or_notice
 
     try:
-        vessel = load_profile(profile_path)
+        profile = load_audited(profile_path)  # from the profile cache when its files are unchanged
+        vessel = profile.vessel
         # A profile whose numbers contradict each other (positions outside the vessel, a KN or an
         # inertia beyond her hull) is never used, by any command (issue 12: the screen already refused it).
-        audit_or_refuse(profile_path, vessel)
+        refuse_or_notice(profile_path, profile.found)
         condition = load_condition(condition_path, vessel)
         return vessel, condition, evaluate(vessel, condition)
     except ProfileError as e:
@@ -153,6 +153,8 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False,
     if isinstance(cmp, int):
         return cmp
     if as_json:
+        import json
+
         doc = result.to_json_dict()
         if cmp is not None:
             doc["direct"] = {"method": "hull geometry, free trim and heel, actual G",

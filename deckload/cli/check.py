@@ -27,7 +27,8 @@ from pathlib import Path
 
 from deckload.report import verdict_format as vf
 from deckload.core import model as m
-from deckload.io.profiles import Problem, ProfileError, load_condition, read_profile
+from deckload.io.profiles import Problem, ProfileError, load_condition
+from deckload.report.audit_findings import load_audited
 
 CAUTION = vf.CAUTION
 
@@ -90,7 +91,8 @@ def run_check(profile_path: Path, condition_path: Path | None = None) -> int:
     """Validate the profile (and the condition against it); print the outcome; return the exit status."""
     profile_path = Path(profile_path)
     try:
-        vessel, reading = read_profile(profile_path)
+        profile = load_audited(profile_path)  # from the profile cache when its files are unchanged
+        vessel, reading, found = profile.vessel, profile.reading, list(profile.found)
     except OSError as e:
         print(f"deckload: cannot read {profile_path}: {e.strerror or e}", file=sys.stderr)
         return 2
@@ -100,9 +102,6 @@ def run_check(profile_path: Path, condition_path: Path | None = None) -> int:
         if condition_path is not None:
             print(f"{condition_path}: not checked: its vessel profile has problems")
         return 1
-    from deckload.report.audit_findings import audit_profile
-
-    found = audit_profile(profile_path, vessel)
     sources = {k: tr.csv for k, tr in reading.tables.items() if tr.csv}
     summary = profile_summary(profile_path, vessel, sources)
     if any(f.is_error for f in found):

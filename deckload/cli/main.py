@@ -24,6 +24,9 @@ def _parser() -> argparse.ArgumentParser:
     from deckload import __version__
 
     p.add_argument("--version", action="version", version=f"deckload {__version__}")
+    p.add_argument("--no-cache", action="store_true",
+                   help="read the profile from its files, not from the cache of validated profiles "
+                        "(the same as setting DECKLOAD_NO_CACHE=1)")
     sub = p.add_subparsers(dest="command")
 
     o = sub.add_parser("open", help="open the loading screen on a vessel (default: the demo vessel)")
@@ -136,10 +139,11 @@ def _resolve_name(args: argparse.Namespace) -> Path | str | None:
     the profile itself cannot be read: the command reports that)."""
     from deckload.io import paths
     from deckload.io.condition_files import ConditionNotFound, resolve
-    from deckload.io.profiles import ProfileError, load_profile
+    from deckload.io.profiles import ProfileError
+    from deckload.report.audit_findings import load_audited
 
     try:
-        vessel = load_profile(args.profile)
+        vessel = load_audited(args.profile).vessel
     except (ProfileError, OSError):
         return None
     try:
@@ -158,10 +162,11 @@ def _named_condition(args: argparse.Namespace) -> str | None:
         return None
     from deckload.io import paths
     from deckload.io.condition_files import ConditionNotFound, resolve
-    from deckload.io.profiles import ProfileError, load_profile
+    from deckload.io.profiles import ProfileError
+    from deckload.report.audit_findings import load_audited
 
     try:
-        vessel = load_profile(profile)
+        vessel = load_audited(profile).vessel
     except (ProfileError, OSError):
         return None  # the command itself reports the profile's problem
     try:
@@ -200,6 +205,8 @@ def _files(args: argparse.Namespace) -> list[str]:
 
 def _main(argv: list[str] | None) -> int:
     args = _parser().parse_args(argv)
+    if args.no_cache:
+        os.environ["DECKLOAD_NO_CACHE"] = "1"  # for the screen too, which reads it where it loads
     unknown = _demo_shorthand(args)
     if unknown:
         print(f"deckload: {unknown}", file=sys.stderr)

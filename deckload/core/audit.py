@@ -62,7 +62,9 @@ class Finding:
 
 # --------------------------------------------------------------------------- tolerances
 
-ENVELOPE_X_FRACTION = 0.2
+from deckload.core.bounds import AFT_OVERHANG as ENVELOPE_X_FRACTION  # noqa: E402  one number for both
+
+ENVELOPE_X_FRACTION: float
 """Error beyond this fraction of LBP aft of the AP or forward of the FP.  Overall length
 rarely exceeds 1.2 × LBP, so nothing aboard lies further out (common practice)."""
 

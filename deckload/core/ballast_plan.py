@@ -1,4 +1,4 @@
-"""Ballast planner: which single transfer between the tanks the officer allows brings the list, the
+"""Ballast planner: which transfers between the tanks the officer allows bring the list, the
 trim or GM fluid to what is wanted.
 
 Pure: the condition is changed only through the ``move`` function it is given (the loading
@@ -13,6 +13,12 @@ that keeps the root inside and converges superlinearly), until q is within the t
 For GM the target is a lower bound: the least mass that reaches it.  Proposals are returned
 smallest transfer first.  The list, trim and GM are whatever ``evaluate`` returns (list + to
 starboard, trim + by the stern, GM fluid), so the proposal is exactly what a recompute shows.
+
+When no single transfer reaches the goal, :func:`plan` pumps, one transfer at a time, the pair
+whose whole transfer (as much as the one can give and the other take) comes nearest the goal,
+and searches single transfers again from there: a plan of up to ``MAX_TRANSFERS`` transfers,
+each judged by the full calculation.  It stops, with no plan, as soon as a whole transfer no
+longer brings the goal nearer (greedy; common practice of search, not from a stability source).
 """
 
 from __future__ import annotations
@@ -55,6 +61,45 @@ class Proposal:
     evaluations: int
 
 
+MAX_TRANSFERS = 4
+"""Transfers in one plan at most."""
+
+KEEP_LIST_DEG = 1.0
+"""A plan for trim or GM must leave her within this list (or the list she had, if more): a
+ballast plan that trades a trim for a list is no plan (common practice: keep her upright)."""
+
+
+@dataclass(frozen=True)
+class Transfer:
+    from_id: str
+    to_id: str
+    mass_t: float
+
+
+@dataclass(frozen=True)
+class Plan:
+    """Transfers made in order; the condition and result after the last."""
+
+    transfers: tuple[Transfer, ...]
+    condition: Condition
+    result: Result
+    before: float
+    after: float
+    evaluations: int
+
+
+@dataclass(frozen=True)
+class NoPlan:
+    """Why there is no plan: the nearest the allowed tanks come (``best``, after ``transfers``)."""
+
+    before: float
+    best: float
+    transfers: tuple[Transfer, ...]
+    evaluations: int
+    list_limit_deg: float | None = None
+    """The list every step had to stay within (trim and GM goals)."""
+
+
 def value_of(result: Result, goal: Goal) -> float:
     return float(getattr(result, GOALS[goal.quantity][0]))
 
@@ -74,8 +119,10 @@ def propose(
     move: Callable[[Condition, str, str, float], Condition],
     room: Callable[[Condition, str, str], float],
     evaluate: Callable[[Vessel, Condition], Result],
+    list_limit_deg: float | None = None,
 ) -> list[Proposal]:
-    """Single transfers between ``allowed`` tanks that reach ``goal``, smallest first.
+    """Single transfers between ``allowed`` tanks that reach ``goal``, smallest first; with
+    ``list_limit_deg``, only those that leave the list within it (either side).
 
     ``move(condition, from_id, to_id, mass_t)`` returns the condition after the transfer (raising
     ``ValueError`` when it cannot be made); ``room(condition, from_id, to_id)`` the most tonnes that
@@ -83,9 +130,22 @@ def propose(
     """
     if goal.quantity not in GOALS:
         raise ValueError(f"goal {goal.quantity!r} is not one of {', '.join(GOALS)}")
-    base = evaluate(vessel, condition)
-    q0 = value_of(base, goal)
+    q0 = value_of(evaluate(vessel, condition), goal)
     out: list[Proposal] = []
+    for steps, hi, apply in _moves(vessel, condition, allowed, move, room, pairs=False):
+        hit, _ = _search(vessel, goal, hi, q0, apply, evaluate)
+        if hit is not None and (list_limit_deg is None or abs(hit[2].list_deg) <= list_limit_deg + 1e-9):
+            m, c, r, after, n = hit
+            (a, b), = steps
+            out.append(Proposal(a, b, m, c, r, q0, after, n))
+    out.sort(key=lambda p: p.mass_t)
+    return out
+
+
+def _moves(vessel, condition, allowed, move, room, *, pairs: bool):
+    """Every way to pump between the allowed tanks: ``(steps, most tonnes, apply(m))``.  A single
+    transfer a → b; with ``pairs``, also a → b together with a's partner → b's partner, m tonnes
+    each (a wing pair pumped alike keeps her upright while trim or GM changes)."""
     for a in allowed:
         for b in allowed:
             if a == b:
@@ -94,19 +154,31 @@ def propose(
                 hi = float(room(condition, a, b))
             except ValueError:
                 continue
-            if not hi > 1e-6:
+            if hi > 1e-6:
+                yield ((a, b),), hi, (lambda m, a=a, b=b: move(condition, a, b, m))
+    if not pairs:
+        return
+    ids = set(allowed)
+    for a in allowed:
+        for b in allowed:
+            pa, pb = vessel.tank(a).pair, vessel.tank(b).pair
+            if a == b or not pa or not pb or pa not in ids or pb not in ids or len({a, b, pa, pb}) < 4 or a > pa:
+                continue  # each wing pair once (a before its partner), four different tanks
+            try:
+                hi = min(float(room(condition, a, b)), float(room(condition, pa, pb)))
+            except ValueError:
                 continue
-            found = _search(vessel, condition, goal, a, b, hi, q0, move, evaluate)
-            if found is not None:
-                out.append(found)
-    out.sort(key=lambda p: p.mass_t)
-    return out
+            if hi > 1e-6:
+                yield ((a, b), (pa, pb)), hi, (lambda m, a=a, b=b, pa=pa, pb=pb: move(move(condition, a, b, m), pa, pb, m))
 
 
-def _search(vessel, condition, goal, a, b, hi, q0, move, evaluate) -> Proposal | None:
+def _search(vessel, goal, hi, q0, apply, evaluate):
+    """Regula falsi (Illinois) on the mass pumped.  Returns ``(hit, end)``: ``hit`` the mass that
+    reaches the goal ``(m, condition, result, value, evaluations)`` or None; ``end`` the whole
+    transfer ``(condition, result, value)`` (None when it cannot be made)."""
     def q(m: float):
         try:
-            c = move(condition, a, b, m)
+            c = apply(m)
             r = evaluate(vessel, c)
         except (ValueError, KeyError, ArithmeticError):
             return None
@@ -115,11 +187,12 @@ def _search(vessel, condition, goal, a, b, hi, q0, move, evaluate) -> Proposal |
     f0 = q0 - goal.target
     end = q(hi)
     if end is None:
-        return None
+        return None, None
     n = 1
     c_hi, r_hi, f_hi = end
+    whole = (c_hi, r_hi, f_hi + goal.target)
     if f0 * f_hi > 0 or f_hi == f0:
-        return None  # the pair cannot bring it through the target
+        return None, whole  # the pumping cannot bring it through the target
     lo, f_lo = 0.0, f0
     best = None
     side = 0
@@ -129,12 +202,12 @@ def _search(vessel, condition, goal, a, b, hi, q0, move, evaluate) -> Proposal |
         got = q(m)
         n += 1
         if got is None:
-            return None
+            return None, whole
         c, r, f = got
         if _met(f + goal.target, goal):
             best = (m, c, r, f)
-            if goal.quantity != "gm" or hi - m < 1e-3:
-                break
+            if goal.quantity != "gm" or hi - m < 1e-3 or f <= goal.tolerance:
+                break  # GM: at least the value, and within its tolerance above it (the least mass, to the mm)
         if f * f_hi > 0:
             hi, f_hi = m, f
             if side == -1:
@@ -151,6 +224,62 @@ def _search(vessel, condition, goal, a, b, hi, q0, move, evaluate) -> Proposal |
         if goal.quantity == "gm" and _met(f_hi + goal.target, goal):
             best = (hi, c_hi, r_hi, f_hi)
         else:
-            return None
+            return None, whole
     m, c, r, f = best
-    return Proposal(a, b, m, c, r, f0 + goal.target, f + goal.target, n)
+    return (m, c, r, f + goal.target, n), whole
+
+
+def plan(
+    vessel: Vessel,
+    condition: Condition,
+    goal: Goal,
+    allowed: Sequence[str],
+    *,
+    move: Callable[[Condition, str, str, float], Condition],
+    room: Callable[[Condition, str, str], float],
+    evaluate: Callable[[Vessel, Condition], Result],
+    max_transfers: int = MAX_TRANSFERS,
+) -> Plan | NoPlan:
+    """The least pumping that reaches ``goal``: one transfer, or (trim and GM) a wing pair pumped
+    alike; failing that, the whole of the pumping that comes nearest without passing the goal,
+    then again from there, up to ``max_transfers`` transfers in all.  For a trim or GM goal every
+    step leaves the list within ``KEEP_LIST_DEG`` (or the list she had, if more).
+    :class:`NoPlan` names the nearest value reached and how."""
+    if goal.quantity not in GOALS:
+        raise ValueError(f"goal {goal.quantity!r} is not one of {', '.join(GOALS)}")
+    r0 = evaluate(vessel, condition)
+    q0 = value_of(r0, goal)
+    limit = None if goal.quantity == "list" else max(abs(r0.list_deg), KEEP_LIST_DEG)
+
+    def upright(r: Result) -> bool:
+        return limit is None or abs(r.list_deg) <= limit + 1e-9
+
+    done: list[Transfer] = []
+    cond, q, n = condition, q0, 1
+    while True:
+        hits, wholes = [], []
+        for steps, hi, apply in _moves(vessel, cond, allowed, move, room, pairs=goal.quantity != "list"):
+            if len(done) + len(steps) > max_transfers:
+                continue
+            hit, whole = _search(vessel, goal, hi, q, apply, evaluate)
+            n += hit[4] if hit else 1
+            if hit is not None and upright(hit[2]):
+                hits.append((hit[0] * len(steps), tuple(Transfer(a, b, hit[0]) for a, b in steps), hit))
+            elif whole is not None and upright(whole[1]) and _nearer(whole[2], q, goal) and \
+                    (whole[2] - goal.target) * (q - goal.target) > 0:
+                wholes.append((whole, tuple(Transfer(a, b, hi) for a, b in steps)))
+        if hits:
+            _, steps, (m, c, r, after, _) = min(hits, key=lambda h: h[0])
+            return Plan((*done, *steps), c, r, q0, after, n)
+        if not wholes:
+            return NoPlan(q0, q, tuple(done), n, limit)
+        (c, r, qa), steps = min(wholes, key=lambda w: abs(w[0][2] - goal.target) if goal.quantity != "gm" else -w[0][2])
+        cond, q = c, qa
+        done.extend(steps)
+
+
+def _nearer(a: float, b: float, goal: Goal) -> bool:
+    """``a`` is nearer the goal than ``b`` (GM: higher, when below the least wanted)."""
+    if goal.quantity == "gm":
+        return a > b + 1e-9
+    return abs(a - goal.target) < abs(b - goal.target) - 1e-9

@@ -38,13 +38,14 @@ from dataclasses import dataclass
 
 import numpy as np
 
-from deckload.core.audit import ENVELOPE_X_FRACTION
 from deckload.core.model import Particulars, Vessel
 from deckload.core.tables import OutOfRangeError
 
-AFT_OVERHANG = ENVELOPE_X_FRACTION
+AFT_OVERHANG = 0.2
 """How far beyond either perpendicular a position may lie, as a fraction of LBP: the plausibility
-audit's envelope (deckload.core.audit), so the profile audit, the readers and the forms agree."""
+audit's envelope (deckload.core.audit.ENVELOPE_X_FRACTION is this number), so the profile audit,
+the readers and the forms agree.  Overall length rarely exceeds 1.2 × LBP (common practice).
+(Defined here, not in the audit, so that a calculation does not load the audit.)"""
 LENGTH_FACTOR = 1.0 + AFT_OVERHANG
 """A hull is at most 1.2·LBP long overall (common practice; the audit's waterline bound too)."""
 ABOVE_DEPTH_M = 30.0
@@ -188,24 +189,55 @@ class BeyondTablesError(OutOfRangeError):
     """The condition puts an end of the ship where the upright tables do not reach."""
 
 
+_FIELD_NAMES: dict[type, tuple[str, ...]] = {}
+
+
+def _all_finite(obj) -> bool:
+    """True when every number in ``obj`` is certainly finite: the quick pass over a result (no
+    path strings are built); False sends :func:`_non_finite` the slow way to name the bad one."""
+    t = type(obj)
+    if t is float:
+        return math.isfinite(obj)
+    if obj is None or t is str or t is bool or t is int:
+        return True
+    if t is tuple or t is list:
+        return all(map(_all_finite, obj))
+    names = _FIELD_NAMES.get(t)
+    if names is None and dataclasses.is_dataclass(obj) and not isinstance(obj, type):
+        names = _FIELD_NAMES[t] = tuple(f.name for f in dataclasses.fields(obj))
+    if names is not None:
+        return all(_all_finite(getattr(obj, n)) for n in names)
+    if isinstance(obj, np.ndarray) and obj.dtype.kind in "fc":
+        return bool(np.isfinite(obj).all())
+    if isinstance(obj, np.floating):
+        return bool(np.isfinite(obj))
+    return False  # anything else: the slow pass decides
+
+
 def _non_finite(obj, path: str) -> str | None:
+    if _all_finite(obj):
+        return None
+    return _first_non_finite(obj, path)
+
+
+def _first_non_finite(obj, path: str) -> str | None:
     if isinstance(obj, bool) or obj is None or isinstance(obj, str):
         return None
     if isinstance(obj, (int, float)):
         return None if math.isfinite(obj) else path
     if dataclasses.is_dataclass(obj):
         for f in dataclasses.fields(obj):
-            bad = _non_finite(getattr(obj, f.name), f"{path}.{f.name}" if path else f.name)
+            bad = _first_non_finite(getattr(obj, f.name), f"{path}.{f.name}" if path else f.name)
             if bad:
                 return bad
         return None
     if isinstance(obj, (tuple, list)):
         for i, x in enumerate(obj):
-            bad = _non_finite(x, f"{path}[{i}]")
+            bad = _first_non_finite(x, f"{path}[{i}]")
             if bad:
                 return bad
     if hasattr(obj, "dtype") and hasattr(obj, "tolist"):  # numpy scalars/arrays
-        return _non_finite(obj.tolist(), path)
+        return _first_non_finite(obj.tolist(), path)
     return None
 
 

@@ -15,7 +15,6 @@ Cross curves are one column per heel angle, named ``kn_`` + the angle (``kn_0``,
 
 from __future__ import annotations
 
-import csv
 import io
 import re
 from pathlib import Path
@@ -74,6 +73,8 @@ def read_csv(t: Table, key: str = "csv") -> CsvTable | None:
     lines: list[int] = []
     header: list[str] | None = None
     header_line = 1
+    import csv  # only for a profile that keeps tables in CSV files
+
     reader = csv.reader(io.StringIO(text))
     ok = True
     read: list[tuple[int, list[str]]] = []
@@ -288,6 +289,8 @@ def fmt_number(x: float) -> str:
 
 
 def write_csv(path: Path, header: list[str], rows: list[list[Any]]) -> None:
+    import csv
+
     from deckload.io.atomicfile import write_atomic
 
     buf = io.StringIO()

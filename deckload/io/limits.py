@@ -18,6 +18,7 @@ never read past the limit (a device or a pipe named as a file cannot hang the pr
 from __future__ import annotations
 
 import os
+from contextvars import ContextVar
 from pathlib import Path
 
 MAX_TOML_BYTES = 4 * 1024 * 1024
@@ -52,4 +53,39 @@ def read_limited(path: str | os.PathLike, limit: int, what: str) -> bytes:
         data = f.read(limit + 1)
     if len(data) > limit:
         raise TooLargeError(f"{path}: larger than the {size_text(limit)} allowed for {what}: refused unread")
+    note_read(path, data)
     return data
+
+
+# ----------------------------------------------------------------- reads noted for a cache
+# The profile cache (deckload.io.profile_cache) must miss when any file a profile was built
+# from changes: while it builds a profile, every file read here (the profile, its CSV tables,
+# its hull geometry file) is noted with the SHA-256 of the very bytes read, and a file looked
+# for and not found (an optional hull geometry file) is noted as absent.
+_noted: ContextVar[list[tuple[str, str | None]] | None] = ContextVar("deckload_noted_reads", default=None)
+
+
+def note_read(path: str | os.PathLike, data: bytes) -> None:
+    """Note a file's bytes, when something is noting reads (else nothing)."""
+    noted = _noted.get()
+    if noted is not None:
+        import hashlib
+
+        noted.append((os.path.abspath(path), hashlib.sha256(data).hexdigest()))
+
+
+def note_absent(path: str | os.PathLike) -> None:
+    """Note that a file the reading depends on was looked for and not found."""
+    noted = _noted.get()
+    if noted is not None:
+        noted.append((os.path.abspath(path), None))
+
+
+def noting_reads():
+    """Start noting reads in this context: returns (list that fills up, token to stop)."""
+    noted: list[tuple[str, str | None]] = []
+    return noted, _noted.set(noted)
+
+
+def stop_noting(token) -> None:
+    _noted.reset(token)

@@ -31,9 +31,7 @@ from pathlib import Path
 from typing import Any
 
 import numpy as np
-import tomli_w
 
-from deckload.io.atomicfile import write_atomic
 from deckload.io.conventions import DATUMS, Frame, read_frame, tcg_array, tcg_num
 from deckload.core import model as m
 from deckload.core.gz import STEP_DEG as GZ_STEP_DEG
@@ -895,6 +893,9 @@ def _read_hull_geometry(root: Table, particulars: m.Particulars | None, filename
     if not path.is_absolute():
         path = Path(filename).parent / path
     if not path.is_file():
+        from deckload.io.limits import note_absent
+
+        note_absent(path)  # the profile cache must miss once the file is there
         rd.assumptions.append(f"hull_geometry {name!r} not found ({path}): no direct calculation from the hull, "
                               "soundings taken trimmed or listed are not corrected")
         return None, {}
@@ -1724,6 +1725,8 @@ def dump_condition(c: m.Condition) -> str:
     Tanks and holds keep their order.  Sections are written one by one so that deck
     items and constants always appear as ``[[...]]`` sections, never inline.
     """
+    import tomli_w  # the writer: reading a condition never needs it
+
     doc = condition_dict(c)
     out = ["# deckload loading condition (keys: vessel_profiles/README.md)\n",
            tomli_w.dumps({"format": doc["format"]}), "\n", tomli_w.dumps({"condition": doc["condition"]})]
@@ -1744,6 +1747,8 @@ def save_condition(path: str | os.PathLike, condition: m.Condition) -> None:
     fsync'ed so the rename itself survives a power cut.  On any failure the temporary
     file is removed and the old file is untouched.
     """
+    from deckload.io.atomicfile import write_atomic
+
     write_atomic(path, dump_condition(condition))
 
 

@@ -23,7 +23,6 @@ How values read in messages is a :class:`Wording`: profiles write them as TOML
 
 from __future__ import annotations
 
-import difflib
 import math
 import re
 import tomllib
@@ -295,6 +294,8 @@ def finite_float(v: Any) -> float | None:
 
 
 def suggest(word: str, choices) -> str:
+    import difflib  # only for a misspelt key or value
+
     close = difflib.get_close_matches(word, list(choices), n=1, cutoff=0.6)
     return f" (did you mean {close[0]!r}?)" if close else ""
 

@@ -10,15 +10,20 @@ the one-line wording used by ``deckload check`` and the loading screen::
 
 from __future__ import annotations
 
-import csv
 import os
-import tomllib
 from dataclasses import dataclass
 from pathlib import Path
+from typing import TYPE_CHECKING
 
-from deckload.core.audit import ERROR, Finding, audit
 from deckload.core.model import Vessel
-from deckload.io.tomlcheck import Problem, ProfileError, key_lines
+from deckload.io.profiles import Reading
+from deckload.io.tomlcheck import Problem, ProfileError
+
+if TYPE_CHECKING:
+    from deckload.core.audit import Finding
+
+# The audit itself (deckload.core.audit), tomllib and csv are imported where they are used: a
+# profile read from the cache (load_audited) brings its findings along and needs none of them.
 
 
 @dataclass(frozen=True)
@@ -31,6 +36,8 @@ class Located:
 
     @property
     def is_error(self) -> bool:
+        from deckload.core.audit import ERROR
+
         return self.finding.severity == ERROR
 
     def __str__(self) -> str:
@@ -71,16 +78,59 @@ def warnings_notice(found: list[Located], path: str | os.PathLike, shown: int = 
 def audit_or_refuse(path: str | os.PathLike, vessel: Vessel) -> str | None:
     """Before a profile is used on the screen: raise :class:`AuditError` on a contradiction,
     else return the warnings' notice (or None)."""
-    found = audit_profile(path, vessel)
+    return refuse_or_notice(path, audit_profile(path, vessel))
+
+
+def refuse_or_notice(path: str | os.PathLike, found: list[Located]) -> str | None:
+    """:func:`audit_or_refuse` for findings already made (e.g. :attr:`AuditedProfile.found`)."""
     if any(x.is_error for x in found):
-        raise AuditError(path, found)
-    return warnings_notice(found, path)
+        raise AuditError(path, list(found))
+    return warnings_notice(list(found), path)
+
+
+@dataclass(frozen=True)
+class AuditedProfile:
+    """A validated profile with how its tables were written and its located audit findings:
+    everything the commands and the screen take from a profile file, as the cache holds it."""
+
+    vessel: Vessel
+    reading: Reading
+    found: tuple[Located, ...]
+
+
+def read_audited(path: str | os.PathLike) -> AuditedProfile:
+    """Read, validate and audit a profile from its files.  Raises OSError, ProfileError."""
+    from deckload.io.profiles import read_profile
+
+    vessel, reading = read_profile(path)
+    return AuditedProfile(vessel, reading, tuple(audit_profile(path, vessel)))
+
+
+def load_audited(path: str | os.PathLike) -> AuditedProfile:
+    """:func:`read_audited`, from the profile cache (deckload.io.profile_cache) when the profile
+    and every file it reads are unchanged since the entry was written."""
+    from deckload.io.profile_cache import cached
+
+    return cached(path, read_audited, AuditedProfile, _is_whole)
+
+
+def _is_whole(a: AuditedProfile) -> bool:
+    """A cached entry holds the types it should, all the way down to its findings."""
+    if not (isinstance(a.vessel, Vessel) and isinstance(a.reading, Reading) and isinstance(a.found, tuple)):
+        return False
+    if a.found:
+        from deckload.core.audit import Finding
+
+        return all(isinstance(x, Located) and isinstance(x.finding, Finding) for x in a.found)
+    return True
 
 
 def audit_profile(path: str | os.PathLike, vessel: Vessel) -> list[Located]:
     """Audit ``vessel`` (read from ``path``) and locate every finding in its files.
 
     A file that cannot be re-read (moved meanwhile) only loses the line numbers."""
+    from deckload.core.audit import audit
+
     findings = audit(vessel)
     if not findings:
         return []
@@ -92,6 +142,10 @@ def audit_profile(path: str | os.PathLike, vessel: Vessel) -> list[Located]:
 
 
 def locate(findings, filename: str, text: str, vessel: Vessel) -> list[Located]:
+    import tomllib
+
+    from deckload.io.tomlcheck import key_lines
+
     lines = key_lines(text)
     try:
         doc = tomllib.loads(text)
@@ -129,6 +183,8 @@ def _csv_of(doc: dict, path: tuple) -> str | None:
 
 def _in_csv(f: Finding, full: Path, vessel: Vessel) -> Located:
     """The CSV line of the finding's row (the finding's key names the column, as the model has it)."""
+    import csv
+
     name = str(full)
     try:
         with open(full, newline="", encoding="utf-8") as fh:

@@ -5,15 +5,31 @@ Build it with :func:`deckload.ui.launch.create_app` (tests use the same factory)
 
 from __future__ import annotations
 
+import time
+from collections import deque
 from functools import partial
 from typing import Iterable
 
+from textual import events
 from textual.app import App, SystemCommand
 from textual.screen import Screen
 
 from deckload.ui.commands import COMMANDS
 from deckload.ui.main_screen import LoadingScreen
 from deckload.ui.session import Session
+
+
+KEY_WAIT_S = 1.0
+"""The longest a typed key waits for the key before it, or for a screen to focus its first field."""
+
+
+def screen_ready(screen: Screen) -> bool:
+    """A screen takes keys once mounted with a widget focused (or with nothing to focus); a form
+    says so itself (``Form.keys_ready``)."""
+    ready = getattr(screen, "keys_ready", None)
+    if ready is not None:
+        return bool(ready)
+    return screen.is_mounted and (screen.focused is not None or not screen.focus_chain)
 
 
 class DeckloadApp(App[None]):
@@ -26,6 +42,13 @@ class DeckloadApp(App[None]):
         self.notices = tuple(notices)
         self.loading_screen = LoadingScreen(session)
         self._quit_warned = False
+        self._key_in_flight: events.Key | None = None
+        self._key_sent_at = 0.0
+        self._held_keys: deque[events.Key] = deque()
+        self._release_pending = False
+        self._held_watch = None
+        self._key_returned = False
+        self._hold_since: tuple[Screen, float] | None = None
 
     def _print_error_renderables(self) -> None:
         """An unforeseen error is reported by the launcher in one paragraph, the details in a
@@ -33,6 +56,102 @@ class DeckloadApp(App[None]):
         if self._exception is not None:
             self._exit_renderables.clear()
         super()._print_error_renderables()
+
+    # ------------------------------------------------------------------ keys in typing order
+    #
+    # textual hands a key to the focused widget and goes on to the next key at once; the key's
+    # binding (``t`` opens the transfer form) runs only when it has bubbled back to the app, and a
+    # form's fields take focus only once it is mounted.  Keys typed quickly would meet the screen
+    # they were not typed for, or a form with no field focused, and be lost or land in the wrong
+    # field.  So the next key waits until the one before has been handled (consumed by a widget,
+    # or back at the app, where its binding runs first) and until a form just opened has focused
+    # its field.  Nothing waits longer than KEY_WAIT_S.
+
+    async def on_event(self, event: events.Event) -> None:
+        if isinstance(event, events.Key) and not event.is_forwarded:  # typed
+            if self._held_keys or self._must_hold():
+                self._held_keys.append(event)
+                self._watch_held()
+                return
+            await self._send_key(event)
+            return
+        await super().on_event(event)
+        if event is self._key_in_flight and not self._key_returned:
+            # Back at the app: its binding has run, and what the binding set off (a field's
+            # Submitted, a form closing) starts again from the focused widget: follow that too.
+            self._key_returned = True
+            self._follow(self.focused or self.screen, event, 1)
+
+    async def _send_key(self, event: events.Key) -> None:
+        target = self.focused or self.screen  # where textual sends it
+        self._key_in_flight, self._key_sent_at, self._key_returned = event, time.monotonic(), False
+        await super().on_event(event)
+        if not event.is_forwarded:  # taken by a priority binding (ctrl+q, ctrl+p): done already
+            self._key_in_flight = None
+            return
+        self._follow(target, event)
+
+    def _follow(self, node, event: events.Key, walk: int = 0) -> None:
+        """Walk up the chain the key bubbles along, behind it in every queue: when this reaches
+        the app, the key and what it set off along the way (a field's Submitted, the form closing
+        on it) have been handled, and the next key may go.  At each widget the walk queues up
+        twice: once behind the key, once behind what handling the key posted to the widget itself.
+        ``walk`` 1 is the walk begun when the key came back to the app and its binding ran."""
+        def done() -> None:
+            self.call_later(self._key_done, event, walk)
+
+        def again() -> None:
+            if event is self._key_in_flight and not node.call_later(step):
+                done()
+
+        def step() -> None:
+            if event is not self._key_in_flight:
+                return
+            parent = node.parent
+            if parent is None or parent is self or not parent.call_later(self._follow, parent, event, walk):
+                done()
+
+        if node is self or not node.call_later(again):
+            done()
+
+    def _key_done(self, event: events.Key, walk: int) -> None:
+        if event is self._key_in_flight and walk == int(self._key_returned):
+            self._key_in_flight = None
+            self.release_keys()
+
+    def _must_hold(self) -> bool:
+        now = time.monotonic()
+        if self._key_in_flight is not None and now - self._key_sent_at > KEY_WAIT_S:
+            self._key_in_flight = None  # lost with a widget removed meanwhile: never wait for ever
+        if self._key_in_flight is not None:
+            return True
+        screen = self.screen_stack[-1] if self.screen_stack else None
+        if screen is None or screen_ready(screen):
+            self._hold_since = None
+            return False
+        if self._hold_since is None or self._hold_since[0] is not screen:
+            self._hold_since = (screen, now)
+        return now - self._hold_since[1] < KEY_WAIT_S
+
+    def release_keys(self) -> None:
+        """Send the keys held back, in order, as far as nothing holds them (called when a key has
+        been handled and when a form has focused its field)."""
+        if self._held_keys and not self._release_pending:
+            self._release_pending = True
+            self.call_later(self._release_keys)
+
+    def _watch_held(self) -> None:
+        """A check every 20 ms while keys are held, in case a key was handled where it is not seen."""
+        if self._held_watch is None:
+            self._held_watch = self.set_interval(0.02, self.release_keys)
+
+    async def _release_keys(self) -> None:
+        self._release_pending = False
+        while self._held_keys and not self._must_hold():
+            await self._send_key(self._held_keys.popleft())
+        if not self._held_keys and self._held_watch is not None:
+            self._held_watch.stop()
+            self._held_watch = None
 
     def get_default_screen(self) -> Screen:
         return self.loading_screen

@@ -23,6 +23,7 @@ from deckload.core.result import Result
 from deckload.ui import views
 from deckload.report.verdict_format import digits_of, value_text
 from deckload.ui.commands import COMMANDS, NAVIGATION
+from deckload.ui import entry
 from deckload.ui.entry import EntryError, ItemForm, TransferPlan, plan_transfer
 from deckload.ui.palette import P
 from deckload.ui.widgets import LinePanel
@@ -33,6 +34,37 @@ class Form(ModalScreen[Any]):
 
     BINDINGS = [Binding("escape", "cancel", "Cancel")]
 
+    def __init__(self) -> None:
+        super().__init__()
+
+    def fit_preview(self, need: int, hint: str, fields: int) -> None:
+        """Give the before/after panel ``need`` rows, as far as the screen allows: the form's other
+        rows are its border (2), title, hint (wrapped to the form's width), fields and message;
+        on a short screen (under 30 rows) the blank row above the panel goes first."""
+        inner = min(80, self.app.size.width) - 4  # .form.transfer: width 80, border and padding
+        other = 2 + 1 + len(Text(hint).wrap(self.app.console, max(10, inner))) + fields + 1
+        panel = self.query_one("#xfer-preview")
+        if self.app.size.height < 30:
+            panel.styles.margin = (0, 0, 0, 0)
+        else:
+            other += 1
+        panel.styles.height = max(8, min(need, self.app.size.height - other))
+
+    @property
+    def keys_ready(self) -> bool:
+        """Mounted, with its field focused (a form without fields: mounted).  A form picks its
+        field with ``set_focus`` in ``on_mount`` (at once, not later), so no key meets one field
+        and the next another."""
+        return self.is_mounted and (self.focused is not None or not self.focus_chain)
+
+    def on_mount(self) -> None:
+        # Runs after the form's own on_mount: a field has focus now; keys typed meanwhile go to it.
+        if self.focused is None and self.focus_chain:
+            self.set_focus(self.focus_chain[0])
+        release = getattr(self.app, "release_keys", None)
+        if release is not None:
+            release()
+
     def refuse(self, message: str) -> None:
         self.query_one("#form-message", Static).update(Text("✖ " + message, P["danger"]))
 
@@ -41,18 +73,43 @@ class Form(ModalScreen[Any]):
 
 
 class PromptForm(Form):
-    """One line of input; ``build(text)`` returns the result or raises EntryError."""
+    """One line of input; ``build(text)`` returns the result or raises EntryError.  With
+    ``preview(text)``, what the text comes to is shown as it is typed (EntryError: why ⏎ would
+    refuse it, dimmed until ⏎)."""
 
-    def __init__(self, title: str, hint: str, initial: str, build: Callable[[str], Any]):
+    def __init__(self, title: str, hint: str, initial: str, build: Callable[[str], Any],
+                 preview: Callable[[str], str] | None = None):
         super().__init__()
         self._title, self._hint, self._initial, self._build = title, hint, initial, build
+        self._preview = preview
 
     def compose(self) -> ComposeResult:
         with Vertical(classes="form"):
-            yield Label(self._title, classes="form-title")
-            yield Label(self._hint, classes="form-hint")
+            yield Label(self._title, classes="form-title", markup=False)
+            yield Label(self._hint, classes="form-hint", markup=False)
             yield Input(value=self._initial, id="prompt-input", select_on_focus=True)
+            if self._preview is not None:
+                yield Static("", id="prompt-preview")
             yield Static("", id="form-message")
+
+    def on_mount(self) -> None:
+        self._show_preview(self._initial)
+
+    def on_input_changed(self, event: Input.Changed) -> None:
+        event.stop()
+        self._show_preview(event.value)
+
+    def _show_preview(self, text: str) -> None:
+        if self._preview is None:
+            return
+        if not text.strip():
+            shown = Text("Type an amount: the volume, mass and level it comes to show here.", P["dim"])
+        else:
+            try:
+                shown = Text(self._preview(text), P["value"])
+            except EntryError as exc:
+                shown = Text(str(exc), P["dim"])
+        self.query_one("#prompt-preview", Static).update(shown)
 
     def on_input_submitted(self, event: Input.Submitted) -> None:
         event.stop()
@@ -128,8 +185,129 @@ class RecordForm(Form):
         self.dismiss((by, self.query_one("#record-remark", Input).value.strip()))
 
 
-class TransferForm(Form):
-    """From-tank, to-tank and amount, with a live before/after preview; Enter commits."""
+def _cut(line: Text, width: int) -> Text:
+    out = line.copy()
+    out.truncate(width, overflow="ellipsis")
+    return out
+
+
+TRANSFER_HINT = "Amount in t, m³ or % of the from-tank's capacity; mass is conserved."
+
+
+class TankPicking:
+    """For a form with tank fields: while the text in the focused tank field is not a tank id,
+    the preview panel lists the tanks that match what is typed (entry.tank_matches), ↑ ↓ choose
+    and Tab or ⏎ take the one marked.  Focus stays where it is; it moves only on Tab (after
+    taking a tank) or shift+Tab, as in any form.  A multi field (the planner's allowed tanks)
+    picks its last word, and Tab there takes the tank and stays for the next.
+
+    The form gives ``TANK_FIELDS`` {input id: multi}, ``_want(field)`` (the tanks that fit that
+    field) and ``_update()`` (redraws the preview, calling ``_picker_lines`` first)."""
+
+    TANK_FIELDS: dict[str, bool] = {}
+    _vessel: Vessel
+    _condition: Condition
+    _pick = 0
+
+    def _want(self, field: str):
+        return None
+
+    def _tank_field(self) -> Input | None:
+        f = self.focused
+        return f if isinstance(f, Input) and f.id in self.TANK_FIELDS else None
+
+    def _typed_word(self, field: Input) -> str:
+        words = field.value.split()
+        multi = self.TANK_FIELDS[field.id]
+        if multi:
+            return "" if not words or field.value.endswith((" ", ",")) else words[-1].rstrip(",")
+        return field.value.strip()
+
+    def _choices(self) -> list | None:
+        """The tanks offered for the focused field, or None when it holds a tank id already."""
+        field = self._tank_field()
+        if field is None:
+            return None
+        typed = self._typed_word(field)
+        if self.TANK_FIELDS[field.id] and not typed:
+            return None
+        if typed.upper() in self._vessel.tank_index:
+            return None
+        found = entry.tank_matches(self._vessel, typed, self._want(field.id))
+        if self.TANK_FIELDS[field.id]:  # a tank already listed is not offered again
+            listed = {w.strip(",").upper() for w in field.value.split()[:-1]}
+            found = [t for t in found if t.id not in listed]
+        return found
+
+    def _picker_lines(self, height: int, width: int) -> list[Text] | None:
+        """The tank list for the preview panel (``height`` × ``width`` cells), or None when no
+        tank field is being picked."""
+        found = self._choices()
+        if found is None:
+            return None
+        field = self._tank_field()
+        typed = self._typed_word(field)
+        if not found:
+            return [Text(f"No tank here matches {typed!r}: type part of an id, name or kind.", P["caution"])]
+        self._pick = max(0, min(self._pick, len(found) - 1))
+        head = Text(f"Tanks{' matching ' + repr(typed) if typed else ''} · ↑ ↓ choose · Tab or ⏎ takes it", P["head"])
+        rows = max(1, height - 1)
+        top = max(0, min(self._pick - rows + 1, len(found) - rows)) if self._pick >= rows else 0
+        out = [head]
+        for i, t in enumerate(found[top: top + rows], start=top):
+            mark = "›" if i == self._pick else " "
+            out.append(Text(f"{mark} " + entry.tank_choice(self._condition, t), P["value"] if i == self._pick else P["label"]))
+        return [line if line.cell_len <= width or width < 2 else _cut(line, width) for line in out]
+
+    def action_pick(self, step: int) -> None:
+        if self._choices():
+            self._pick += step
+            self._update()
+
+    def _take(self) -> bool:
+        """Put the marked tank in the focused field; False when nothing was offered."""
+        found = self._choices()
+        field = self._tank_field()
+        if not found or field is None:
+            return False
+        tid = found[max(0, min(self._pick, len(found) - 1))].id
+        if self.TANK_FIELDS[field.id]:
+            words = field.value.split()
+            field.value = " ".join([*words[:-1], tid]) + " "
+        else:
+            field.value = tid
+        field.cursor_position = len(field.value)
+        self._pick = 0
+        self._update()
+        return True
+
+    def action_take_or_next(self) -> None:
+        field = self._tank_field()
+        if self._take() and field is not None and self.TANK_FIELDS[field.id]:
+            return  # a multi field stays for the next tank
+        self.focus_next()
+
+    def on_descendant_focus(self, event) -> None:
+        self._pick = 0
+        self._update()
+
+
+class TransferForm(TankPicking, Form):
+    """From-tank, to-tank and amount, with a live before/after preview; Enter commits.  The tank
+    fields offer the tanks that match as they are typed (TankPicking)."""
+
+    BINDINGS = [Binding("up", "pick(-1)", "Previous tank", show=False), Binding("down", "pick(1)", "Next tank", show=False),
+                Binding("tab", "take_or_next", "Take / next field", show=False)]
+    TANK_FIELDS = {"xfer-from": False, "xfer-to": False}
+
+    def _want(self, field: str):
+        c = self._condition
+        if field == "xfer-from":
+            return lambda t: entry.fill_volume_m3(t, c.tank_fill(t.id)) > 1e-6
+        src = self.query_one("#xfer-from", Input).value.strip().upper()
+        kind = self._vessel.tank(src).kind if src in self._vessel.tank_index else None
+        return lambda t: (kind is None or t.kind == kind) and t.id != src and \
+            t.capacity_m3 - entry.fill_volume_m3(t, c.tank_fill(t.id)) > 1e-6
 
     def __init__(
         self,
@@ -148,7 +326,7 @@ class TransferForm(Form):
     def compose(self) -> ComposeResult:
         with Vertical(classes="form transfer"):
             yield Label("Transfer between tanks", classes="form-title")
-            yield Label("Amount in t, m³ or % of the from-tank's capacity; mass is conserved.", classes="form-hint")
+            yield Label(TRANSFER_HINT, classes="form-hint")
             for name, label, value, hint in (("from", "From tank", self._from, "tank id, e.g. DB2P"),
                                              ("to", "To tank", self._to, "tank id"),
                                              ("amount", "Amount", "", "10t, 5m3 or 20%")):
@@ -160,10 +338,9 @@ class TransferForm(Form):
 
     def on_mount(self) -> None:
         # Room for every criterion of every set assessed (and a problem line), as far as the screen allows.
-        need = len(preview_lines(self._before, None, None)) + 1
-        self.query_one("#xfer-preview").styles.height = max(8, min(need, self.app.size.height - 10))
+        self.fit_preview(len(preview_lines(self._before, None, None)) + 1, TRANSFER_HINT, 3)
         first_empty = "from" if not self._from else "to" if not self._to else "amount"
-        self.query_one(f"#xfer-{first_empty}", Input).focus()
+        self.set_focus(self.query_one(f"#xfer-{first_empty}", Input))
         self._update()
 
     def on_input_changed(self, event: Input.Changed) -> None:
@@ -174,6 +351,12 @@ class TransferForm(Form):
         get = lambda n: self.query_one(f"#xfer-{n}", Input).value.strip()  # noqa: E731
         message = self.query_one("#form-message", Static)
         self.plan = None
+        panel = self.query_one("#xfer-preview", LinePanel)
+        picking = self._picker_lines(int(panel.styles.height.value) if panel.styles.height else 8, panel.size.width)
+        if picking is not None:
+            panel.set_lines(picking)
+            message.update(Text("Choose the tank: ↑ ↓ and Tab or ⏎ · Esc cancels", P["dim"]))
+            return
         if not get("amount"):
             message.update(Text("Type the amount to see the preview.", P["dim"]))
             self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, None, None))
@@ -191,6 +374,8 @@ class TransferForm(Form):
 
     def on_input_submitted(self, event: Input.Submitted) -> None:
         event.stop()
+        if self._take():  # ⏎ in a tank field still being picked takes the tank; it commits nothing
+            return
         self._update()
         if self.plan is not None:
             self.dismiss(self.plan)

@@ -19,7 +19,7 @@ import re
 from dataclasses import dataclass
 
 from deckload.core import bounds
-from deckload.core.loading import LoadingError, level_of, over_limit, reading_range, volume_of
+from deckload.core.loading import LoadingError, level_of, over_limit, reading_range, resolve_tank, volume_of
 from deckload.core.model import (
     LEVEL_QUANTITIES,
     Condition,
@@ -225,6 +225,23 @@ def tank_from_text(condition: Condition, tank: Tank, text: str) -> Condition:
     return set_tank(condition, tank, quantity, value)
 
 
+def amount_preview(condition: Condition, tank: Tank, text: str) -> str:
+    """What an amount typed for ``tank`` comes to, shown before ⏎ in every form the tank can be
+    stated in: '= 40.0 % · 12.93 m³ · 13.25 t · sounding 1.204 m · ullage 0.796 m' (sounding and
+    ullage only where the tank has a level table and, for ullage, a reference point).  The same
+    path as ⏎ (``tank_from_text``, then the calculation's ``resolve_tank``): EntryError when ⏎
+    would refuse it."""
+    fill = tank_from_text(condition, tank, text).tank_fill(tank.id)
+    c = resolve_tank(tank, fill)
+    parts = [f"{c.fill_pct:.1f} %", f"{c.volume_m3:.2f} m³", f"{c.mass_t:.2f} t"]
+    if tank.level_known:
+        level = c.sounding_m  # the level above the tank's lowest point
+        parts.append(f"sounding {level - tank.sounding_zero_m:.3f} m")
+        if tank.ullage_reference_m is not None:
+            parts.append(f"ullage {tank.ullage_reference_m - level:.3f} m")
+    return "= " + " · ".join(parts)
+
+
 def nudge_tank(condition: Condition, tank: Tank, step_pct: float) -> Condition:
     """Raise or lower the fill by ``step_pct`` of capacity, clamped to 0–100 %."""
     pct = 100.0 * fill_volume_m3(tank, condition.tank_fill(tank.id)) / tank.capacity_m3
@@ -411,6 +428,30 @@ def planner_room(vessel: Vessel, condition: Condition, from_id: str, to_id: str)
     have = fill_volume_m3(src, sf)
     free = dst.capacity_m3 - fill_volume_m3(dst, df)
     return max(0.0, min(have, free) * tank_density(src, sf) * (1 - 1e-9))
+
+
+def tank_matches(vessel: Vessel, typed: str, want=None) -> list[Tank]:
+    """The tanks a tank field offers as the officer types: those whose id starts with the text
+    first, then those whose id, name or kind contains it (case-insensitive), in profile order;
+    every tank when nothing is typed.  ``want(tank)`` keeps only the tanks that fit the field."""
+    t = typed.strip().lower()
+    pool = [k for k in vessel.tanks if want is None or want(k)]
+    if not t:
+        return pool
+    first = [k for k in pool if k.id.lower().startswith(t)]
+    rest = [k for k in pool if k not in first and (t in k.id.lower() or t in k.name.lower()
+                                                   or t in k.kind.replace("_", " "))]
+    return first + rest
+
+
+def tank_choice(condition: Condition, tank: Tank) -> str:
+    """One line of the tank list: id, kind, level, contents and room (mass at the tank's density)."""
+    fill = condition.tank_fill(tank.id)
+    vol = fill_volume_m3(tank, fill)
+    rho = tank_density(tank, fill)
+    room = (tank.capacity_m3 - vol) * rho
+    return (f"{tank.id:<6} {tank.kind.replace('_', ' '):<11.11} {100 * vol / tank.capacity_m3:5.1f} % "
+            f"{vol * rho:7.2f} t  room {room:7.2f} t  {tank.name}")
 
 
 def receiving_tank(vessel: Vessel, condition: Condition, from_id: str) -> str:

@@ -14,7 +14,8 @@ from dataclasses import dataclass
 
 import numpy as np
 from rich.console import Console, ConsoleOptions, RenderResult
-from rich.text import Text
+from rich.style import Style
+from rich.text import Span, Text
 
 from deckload.ui.palette import P
 
@@ -95,22 +96,24 @@ class GzChart:
         def py_of(v: float) -> int:
             return int(round((hi - v) / (hi - lo) * (ph - 1)))
 
-        grid = np.zeros((rows, cols), dtype=np.int32)
-        layer = np.zeros((rows, cols), dtype=np.int8)  # 0 none, 1 area, 2 level, 3 curve: the highest names the style
+        # Plain lists, not arrays: the dots are set one at a time, where numpy's per-item cost dominates.
+        grid = [[0] * cols for _ in range(rows)]
+        layer = [[0] * cols for _ in range(rows)]  # 0 none, 1 area, 2 level, 3 curve: the highest names the style
         area_style: dict[tuple[int, int], str] = {}
         level_style: dict[tuple[int, int], str] = {}
         xs = np.linspace(x_lo, x_hi, pw)
-        curve = np.interp(xs, heel, gz)
-        ys = np.clip(np.round((hi - curve) / (hi - lo) * (ph - 1)).astype(int), -1, ph)
+        curve_arr = np.interp(xs, heel, gz)
+        curve = curve_arr.tolist()
+        ys = np.clip(np.round((hi - curve_arr) / (hi - lo) * (ph - 1)).astype(int), -1, ph).tolist()
 
         def dot(px: int, py: int, kind: int, style: dict | None = None, name: str = "") -> None:
             if 0 <= py < ph and 0 <= px < pw:
-                cell = (py // 4, px // 2)
-                grid[cell] |= _BITS[px % 2][py % 4]
-                if kind > layer[cell]:
-                    layer[cell] = kind
+                r, c = py // 4, px // 2
+                grid[r][c] |= _BITS[px % 2][py % 4]
+                if kind > layer[r][c]:
+                    layer[r][c] = kind
                     if style is not None:
-                        style[cell] = name
+                        style[(r, c)] = name
 
         area_cols: dict[int, list[int]] = {}
         for n, area in enumerate(self.areas):  # sparse dots: every other dot column, every other dot row
@@ -123,7 +126,7 @@ class GzChart:
                 cols_in.append(px)
                 if px % 2:
                     continue
-                a, b = sorted((int(ys[px]), y_level))
+                a, b = sorted((ys[px], y_level))
                 for py in range(a + 1, b):
                     if py % 2 == 0:
                         dot(px, py, 1, area_style, area.style)
@@ -156,33 +159,38 @@ class GzChart:
             if len(cols_in) < 4:
                 continue
             mid = cols_in[len(cols_in) // 2]
-            r = ((int(ys[mid]) + py_of(area.level_m)) // 2) // 4
+            r = ((ys[mid] + py_of(area.level_m)) // 2) // 4
             if 0 <= r < rows:
                 text_at.setdefault((r, mid // 2), (area.label, area.style))
         curve_style = P["gz.stale"] if self.stale else P["gz.curve"]
+        axis_style = P["gz.axis"]
+        mark_styles = {c: P[m.style] for c, m in mark_cols.items()}
         labels: dict[int, str] = {}
         for k in range(int(np.ceil(lo / step)), int(np.floor(hi / step)) + 1):
             v = k * step
             labels.setdefault(int(round((hi - v) / (hi - lo) * (ph - 1))) // 4, f"{v:5.2f}┤")
         out: list[Text] = []
+        text_by_row: dict[int, list[tuple[int, str, str]]] = {}
+        for (r, c), (ch, st) in text_at.items():
+            text_by_row.setdefault(r, []).append((c, ch, st))
         for r in range(rows):
-            line = Text(labels.get(r, "     │"), style=P["gz.axis"])
-            for c in range(cols):
-                bits = int(grid[r, c])
-                if (r, c) in text_at:
-                    ch, st = text_at[(r, c)]
-                    line.append(ch, P[st])
-                elif bits:
-                    kind = int(layer[r, c])
-                    st = curve_style if kind == 3 else P[(level_style if kind == 2 else area_style)[(r, c)]]
-                    line.append(chr(0x2800 + bits), st)
-                elif c in mark_cols:
-                    line.append("┊", P[mark_cols[c].style])
-                elif r == zero_row and lo < 0:
-                    line.append("·", P["gz.axis"])
-                else:
-                    line.append(" ")
-            out.append(line)
+            # Laid down from the lowest priority up: zero line, mark columns, dots, then names.
+            if r == zero_row and lo < 0:
+                chars, styles = ["·"] * cols, [axis_style] * cols
+            else:
+                chars, styles = [" "] * cols, [None] * cols
+            for c, st in mark_styles.items():
+                if 0 <= c < cols:
+                    chars[c], styles[c] = "┊", st
+            layer_row = layer[r]
+            for c, bits in enumerate(grid[r]):
+                if bits:
+                    kind = layer_row[c]
+                    chars[c] = chr(0x2800 + bits)
+                    styles[c] = curve_style if kind == 3 else P[(level_style if kind == 2 else area_style)[(r, c)]]
+            for c, ch, st in text_by_row.get(r, ()):
+                chars[c], styles[c] = ch, P[st]
+            out.append(_runs(labels.get(r, "     │"), axis_style, chars, styles))
         out.append(self._axis(cols, label_w, x_lo, x_hi, mark_cols))
         return out
 
@@ -204,15 +212,26 @@ class GzChart:
             if not any(taken[max(0, c - 1) : c + len(text) + 1]):
                 for i, ch in enumerate(text):
                     chars[c + i], taken[c + i] = ch, True
-        line = Text(" " * label_w, style=P["gz.axis"])
-        for ch, st in zip(chars, styles):
-            line.append(ch, st)
-        return line
+        return _runs(" " * label_w, P["gz.axis"], chars, styles)
 
     def __rich_console__(self, console: Console, options: ConsoleOptions) -> RenderResult:
         for line in self.lines():
             yield line
             yield Text("\n")
+
+
+def _runs(prefix: str, base: Style, chars: list[str], styles: list) -> Text:
+    """``prefix`` (in ``base``) then ``chars``, one span per run of cells of one style (``None``: the
+    base style), made in one step: not one ``append`` per cell, nor per run (a chart line of 80
+    cells is a handful of spans to build and to paint)."""
+    spans = []
+    n, off, start = len(chars), len(prefix), 0
+    for c in range(1, n + 1):
+        if c == n or styles[c] is not styles[start]:
+            if styles[start] is not None:
+                spans.append(Span(off + start, off + c, styles[start]))
+            start = c
+    return Text(prefix + "".join(chars), style=base, spans=spans)
 
 
 def _nice_step(raw: float) -> float:

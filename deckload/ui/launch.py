@@ -25,16 +25,17 @@ def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir
     audit raises :class:`deckload.report.audit_findings.AuditError`.
     """
     from deckload.io import paths
-    from deckload.io.profiles import ProfileError, load_condition, load_profile
+    from deckload.io.profiles import ProfileError, load_condition
     from deckload.ui.session import working_path
 
-    from deckload.report.audit_findings import audit_or_refuse
+    from deckload.report.audit_findings import load_audited, refuse_or_notice
 
     notices: list[str] = []
-    vessel = load_profile(profile_path or paths.DEMO_PROFILE)
+    profile = load_audited(profile_path or paths.DEMO_PROFILE)  # from the profile cache when unchanged
+    vessel = profile.vessel
     # The plausibility audit before anything is shown: a contradiction refuses the profile
     # (AuditError, a ProfileError), a doubt becomes a notice.
-    doubt = audit_or_refuse(profile_path or paths.DEMO_PROFILE, vessel)
+    doubt = refuse_or_notice(profile_path or paths.DEMO_PROFILE, profile.found)
     if doubt:
         notices.append(doubt)
     saved = working_path(work_dir, vessel)

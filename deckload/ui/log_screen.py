@@ -109,7 +109,11 @@ def entry_details(e: LogEntry) -> Text:
     t = Text()
     t.append(f"Entry #{e.seq}  ", style="bold")
     t.append(f"{e.ship_time:%Y-%m-%d %H:%M} ship's time ({e.ship_clock}), {e.utc:%Y-%m-%d %H:%M:%S} UTC\n")
-    t.append(f"{KIND_LABELS.get(e.kind, e.kind)} by {e.by}: {e.change_text}\n")
+    label = KIND_LABELS.get(e.kind, e.kind)
+    said = e.change_text
+    if said.lower().startswith(label.lower() + ":"):  # "condition recorded by TS: condition recorded: …" once
+        said = said[len(label) + 1:].lstrip()
+    t.append(f"{label} by {e.by}: {said}\n")
     if e.remark:
         t.append(f"Remark: {e.remark}\n")
     s = e.summary
@@ -146,14 +150,16 @@ def entry_details(e: LogEntry) -> Text:
         style = "bold red" if word == "NOT MET" else "bold"
         for line in vf.stored_lines(s, 90):
             t.append(line + "\n", style=style)
-        for x in s.get("criteria_sets") or []:
-            t.append(f"    {x.get('title', x.get('id'))}: {'met' if x.get('pass') else 'NOT MET or not all assessable'}\n")
+        if not s.get("verdict"):  # an older entry: its sets one by one (a newer one's verdict names them)
+            for x in s.get("criteria_sets") or []:
+                t.append(f"    {x.get('title', x.get('id'))}: {'met' if x.get('pass') else 'NOT MET or not all assessable'}\n")
         for x in s.get("criteria_not_assessable") or []:
             t.append(f"    {x.get('id')}: not assessable — {x.get('note', '')}\n", style="bold")
         sm = s.get("smallest_margin")
         if sm:
-            t.append(f"  Smallest margin: {sm.get('description', sm.get('id'))}: {_num(sm.get('value'))} against "
-                     f"{_num(sm.get('limit'))} {sm.get('unit', '')} (margin {_num(sm.get('margin'))})\n")
+            d = 1 if sm.get("unit") in ("deg", "°") else 3  # angles to 0.1°, as on every screen
+            t.append(f"  Smallest margin: {sm.get('description', sm.get('id'))}: {_num(sm.get('value'), d)} against "
+                     f"{_num(sm.get('limit'), d)} {sm.get('unit', '')} (margin {_num(sm.get('margin'), d)})\n")
         for w in s.get("warnings", []):
             t.append(f"  ! {w}\n")
     if e.change_data:

@@ -13,27 +13,25 @@ from __future__ import annotations
 import asyncio
 import dataclasses
 
+from rich.console import Console
 from rich.text import Text
 from textual.app import ComposeResult
 from textual.containers import Horizontal, Vertical
 from textual.screen import Screen
-from textual.widgets import Footer
 
 from deckload.core.model import Condition
 from deckload.ui import entry, verdict, views
-from deckload.ui.commands import bindings
+from deckload.ui.commands import bindings, footer_keys
 from deckload.ui.dialogs import HelpScreen, TextScreen, ItemFormScreen, PromptForm, RecordForm, TransferForm
 from deckload.ui.entry import EntryError, ItemForm
 from deckload.ui.palette import P
 from deckload.ui.session import Session
-from deckload.ui.widgets import LoadBoard, SizedPanel
+from deckload.ui.widgets import LinePanel, LoadBoard, SizedPanel
 
 RUN_PAUSE_S = 4.0
 """A run of nudges or retypes of one item ends (and is logged as one entry) after this pause."""
 NARROW_BELOW = 110
 """Screen width (cells) under which the right side shows numbers or curve, not both."""
-STATUS_MAX_ROWS = 3
-"""A refusal on the message line takes up to this many rows (a hint or a done is one row)."""
 MIN_CURVE_ROWS = 10
 """On a wide screen the criteria panel takes the rows it needs, leaving the curve at least this many."""
 
@@ -45,6 +43,7 @@ class LoadingScreen(Screen[None]):
         super().__init__()
         self.session = session
         self._settle_timer = None
+        self._criteria_made: tuple | None = None
 
     def compose(self) -> ComposeResult:
         yield SizedPanel(id="titlebar")
@@ -55,21 +54,39 @@ class LoadingScreen(Screen[None]):
                 yield SizedPanel(id="afloat")
                 yield SizedPanel(id="criteria")
                 yield SizedPanel(id="gz")
-        yield SizedPanel(id="status")
-        yield Footer(compact=True, show_command_palette=False)
+        yield LinePanel(id="status")
+        yield SizedPanel(id="keys")
 
     def on_mount(self) -> None:
         loop = asyncio.get_running_loop()
+        # Writes go to the writer thread once the change's frame is drawn; the interval is a
+        # backstop for a frame that never comes (the screen that was to draw it closed first).
         self.session.write_in_background(lambda p: loop.call_soon_threadsafe(self._report, p),
-                                         lambda: loop.call_soon_threadsafe(self._save_landed))
+                                         lambda: loop.call_soon_threadsafe(self._save_landed),
+                                         after_frame=self.call_after_refresh)
+        self.set_interval(0.5, self.session.release_writes)
         self.query_one(LoadBoard).focus()
         self.refresh_view()
+        self.query_one("#keys", SizedPanel).show(lambda w, h: [self._key_line(w)])
         self.say("⏎ type an amount · + − nudge · t transfer · n name · p print · x plan · ? all keys", ok=None)
 
     def on_resize(self, event) -> None:
         self.set_class(event.size.width < NARROW_BELOW, "-narrow")
         self.refresh_bindings()
         self.call_after_refresh(self._size_criteria, self.session.result, self.session.stale)
+
+    def _key_line(self, width: int) -> Text:
+        """The footer: the commands' keys that fit, ? (every key) and q always (ui/commands.footer_keys)."""
+        narrow = width < NARROW_BELOW
+        keys, _ = footer_keys(width, shown=lambda c: c.action != "toggle_gz" or narrow)
+        sep = " " if sum(len(k) + len(label) + 3 for k, label in keys) > width else "  "
+        line = Text(" ")
+        for i, (key, label) in enumerate(keys):
+            if i:
+                line.append(sep)
+            line.append(key, P["title"])
+            line.append(" " + label, P["label"])
+        return line
 
     def check_action(self, action: str, parameters: tuple) -> bool | None:
         """The numbers/curve switch exists only where the screen cannot show both."""
@@ -85,10 +102,10 @@ class LoadingScreen(Screen[None]):
         v, c, r, stale = s.vessel, s.condition, s.result, s.stale
         self.query_one(LoadBoard).show(v, c, r, stale)
         alerts = views.alerts(r, stale, s.problem)
-        self.query_one("#alerts", SizedPanel).show(lambda w, h: alert_lines(alerts, h, w, self.app.console))
+        self.query_one("#alerts", SizedPanel).show(lambda w, h: alert_lines(alerts, h, w))
         self.query_one("#afloat", SizedPanel).show(lambda w, h: views.afloat_lines(v, c, r, stale, w))
         self._size_criteria(r, stale)
-        self.query_one("#criteria", SizedPanel).show(lambda w, h: verdict.criteria_lines(r, stale, w, h))
+        self.query_one("#criteria", SizedPanel).show(lambda w, h: self._criteria_lines(r, stale, w, h))
         self.query_one("#gz", SizedPanel).show(lambda w, h: self._curve_lines(r, stale, w, h))
         self.query_one("#titlebar", SizedPanel).show(lambda w, h: [self._title(w)])
 
@@ -99,7 +116,8 @@ class LoadingScreen(Screen[None]):
             if chart is None:
                 return verdict.weather_missing(r, w)
             return [verdict.weather_caption(r, w), *chart.lines()]
-        return [views.gz_caption(r, w), *views.gz_chart(r, stale, w - 1, h - 1).lines()]
+        head = gz_title_lines(r, w)  # every fact of the title, on two lines where one is too short
+        return [*head, *views.gz_chart(r, stale, w - 1, h - len(head)).lines()]
 
     def _size_criteria(self, r, stale: bool) -> None:
         """Wide: the criteria panel as tall as its lines (the curve keeps MIN_CURVE_ROWS); narrow: the rest."""
@@ -109,9 +127,20 @@ class LoadingScreen(Screen[None]):
             want = "1fr"
         else:
             room = max(4, side.size.height - self.query_one("#afloat").outer_size.height - MIN_CURVE_ROWS)
-            want = str(len(verdict.criteria_lines(r, stale, max(1, side.size.width), room)))
+            lines = verdict.criteria_lines(r, stale, max(1, side.size.width), room)
+            # The panel is made exactly that tall: what it shows at that height is these lines.
+            self._criteria_made = (r, stale, max(1, side.size.width), len(lines), lines)
+            want = str(len(lines))
         if str(panel.styles.height) != want and not (want == "1fr" and str(panel.styles.height) == "1fr"):
             panel.styles.height = want
+
+    def _criteria_lines(self, r, stale: bool, w: int, h: int) -> list[Text]:
+        """The criteria panel's lines; those :meth:`_size_criteria` just made for this result and size
+        are taken as they are (the panel's lines are otherwise built twice a key)."""
+        made = self._criteria_made
+        if made is not None and made[0] is r and made[1:4] == (stale, w, h):
+            return made[4]
+        return verdict.criteria_lines(r, stale, w, h)
 
     def _title(self, width: int) -> Text:
         """Vessel, condition, whether changes are logged, undo depth.  Shortened step by step until
@@ -126,7 +155,7 @@ class LoadingScreen(Screen[None]):
         if t.cell_len > width:
             name = self.session.condition.name
             t = self._title_text(level, views.fit(name, max(8, len(name) - (t.cell_len - width))))
-        return fitted(t, width)
+        return cut(t, width)
 
     def _title_text(self, level: int, name: str | None) -> Text:
         s, j = self.session, self.session.journal
@@ -163,15 +192,20 @@ class LoadingScreen(Screen[None]):
     def say(self, message: str, ok: bool | None = True) -> None:
         """The message line: ✔ done, ✖ refused, or a plain hint."""
         style, mark = {True: (P["ok"], "✔ "), False: (P["danger"], "✖ "), None: (P["dim"], "")}[ok]
-        line = Text(" " + mark + message, style)
-        panel = self.query_one("#status", SizedPanel)
-        rows = 1
-        if ok is False:  # a refusal is read whole: up to STATUS_MAX_ROWS lines, then '…'
-            width = panel.size.width or self.app.size.width
-            rows = max(1, min(STATUS_MAX_ROWS, len(line.wrap(self.app.console, max(1, width)))))
-        if str(panel.styles.height) != str(rows):
-            panel.styles.height = rows
-        panel.show(lambda w, h: status_lines(line, w, rows, self.app.console))
+        panel = self.query_one("#status", LinePanel)
+        # A result or refusal takes two lines where one would cut it (80 columns; the second ends in …
+        # if even that is short); a hint (ok None) keeps one line, so the board keeps its rows.
+        lines = fit_lines(Text(" " + mark + message, style), max(20, self.size.width),
+                          1 if ok is None else STATUS_MAX_LINES)
+        if panel.styles.height is None or panel.styles.height.value != len(lines):
+            panel.styles.height = len(lines)
+            self.call_after_refresh(self._cursor_in_view)  # the board lost or gained a row
+        panel.set_lines(lines)
+
+    def _cursor_in_view(self) -> None:
+        board = self.query_one(LoadBoard)
+        if board.cursor_key is not None:
+            board.select(board.cursor_key, announce=False)
 
     # ------------------------------------------------------------------ changes
 
@@ -256,7 +290,8 @@ class LoadingScreen(Screen[None]):
                 self.commit(r[0], f"{tank.id} set to {got}", self._kind(tank.id), {"tank": tank.id, "entered": r[1]},
                             run=("tank", tank.id))
 
-        self.app.push_screen(PromptForm(f"{tank.id}  {tank.name}", hint, entry.fill_text(fill), build), done)
+        preview = lambda text: entry.amount_preview(s.condition, tank, text)  # noqa: E731
+        self.app.push_screen(PromptForm(f"{tank.id}  {tank.name}", hint, entry.fill_text(fill), build, preview), done)
 
     def _edit_hold(self, hold_id: str) -> None:
         s = self.session
@@ -382,8 +417,11 @@ class LoadingScreen(Screen[None]):
 
         def done(p) -> None:
             if p is not None:
-                self.commit(p.condition, f"Planned transfer {p.mass_t:.1f} t {p.from_id} → {p.to_id}", "transfer",
-                            {"from": p.from_id, "to": p.to_id, "mass_t": round(p.mass_t, 3), "planned": True})
+                from deckload.ui.planner import plan_words
+
+                self.commit(p.condition, f"Planned: {plan_words(p)}", "transfer",
+                            {"planned": True, "transfers": [{"from": t.from_id, "to": t.to_id, "mass_t": round(t.mass_t, 3)}
+                                                            for t in p.transfers]})
 
         self.app.push_screen(PlannerForm(s.vessel, s.condition, s.result, evaluate), done)
 
@@ -629,7 +667,7 @@ class LoadingScreen(Screen[None]):
     def action_alerts(self) -> None:
         s = self.session
         every = views.alerts(s.result, s.stale, s.problem)
-        self.app.push_screen(TextScreen("Warnings", alert_lines(every, len(every) + 1)))
+        self.app.push_screen(TextScreen("Warnings", alert_lines(every, len(every) + 1)))  # whole, the page wraps
 
     def action_compare_hull(self) -> None:
         from deckload.ui.hull_compare import HullCompareScreen
@@ -655,25 +693,26 @@ class LoadingScreen(Screen[None]):
             why = next((x.fs_rule for x in r.tanks if x.id == ident), "") if r is not None else ""
             fill = self.session.condition.tank_fill(ident)
             rho = f" · ρ {fill.density_t_m3:.4g} stated (D)" if fill is not None and fill.density_t_m3 is not None else ""
-            self.say(f"{t.id} {t.name} · {t.capacity_m3:.1f} m³{rho} · FSM: {why} · ⏎ set · + − · f full · e empty · "
-                     f"t transfer", ok=None)
+            keys = " · ⏎ set · + − · f full · e empty · t transfer" if not self.has_class("-narrow") else ""
+            self.say(f"{t.id} {t.name} · {t.capacity_m3:.1f} m³{rho} · FSM: {why}{keys}", ok=None)
         elif what == "hold":
             # the whole of what the board shortens with '…' (name, what is stowed, the limit)
             hold = self.session.vessel.hold(ident)
             load = next((h for h in self.session.condition.holds if h.hold_id == ident), None)
             limit = f" of {hold.max_mass_t:g} t" if hold.max_mass_t is not None else ""
             stowed = f" · {load.description}" if load is not None and load.description else ""
-            self.say(f"{ident} {hold.name} · {load.mass_t if load else 0.0:.2f} t{limit}{stowed} · "
-                     f"⏎ cargo mass · + − 1 t · e empty", ok=None)
+            keys = " · ⏎ cargo mass · + − 1 t · e empty" if not self.has_class("-narrow") else ""
+            self.say(f"{ident} {hold.name} · {load.mass_t if load else 0.0:.2f} t{limit}{stowed}{keys}", ok=None)
         elif what in ("deck", "const"):
             items = self.session.condition.deck_items if what == "deck" else self.session.condition.constants
-            self.say(f"{item_summary(items[ident])} · ⏎ edit mass and position · + − 1 t · e remove · "
-                     f"a add deck load · c add constant", ok=None)
+            keys = (" · ⏎ edit mass and position · + − 1 t · e remove · a add deck load · c add constant"
+                    if not self.has_class("-narrow") else "")
+            self.say(f"{item_summary(items[ident])}{keys}", ok=None)
         elif what == "fixed":
             self.say(f"{item_summary(self.session.vessel.constants[ident])} · a fixed constant of the vessel "
                      f"profile: to change it for this condition, add a constant (c) of the same name.", ok=None)
         elif what == "dwt":
-            self.say(DWT_HINT, ok=None)
+            self.say(DWT_HINT if not self.has_class("-narrow") else DWT_HINT_NARROW, ok=None)
 
 
 def item_summary(item) -> str:
@@ -686,50 +725,74 @@ def item_summary(item) -> str:
             + (f" · on {area}" if area else ""))
 
 
-def fitted(line: Text, width: int) -> Text:
-    """``line`` shortened with '…' to ``width`` cells: a line longer than the screen shows that it
-    goes on (hints put what the row holds first, the keys after)."""
-    if line.cell_len <= width:
-        return line
-    out = line.copy()
-    out.truncate(width, overflow="ellipsis")
-    return out
-
-
-def status_lines(line: Text, width: int, rows: int, console) -> list[Text]:
-    """The message in ``rows`` lines of ``width``: wrapped, the last one ending in '…' if more is left."""
-    if rows <= 1:
-        return [fitted(line, width)]
-    wrapped = list(line.wrap(console, width))
-    if len(wrapped) <= rows:
-        return wrapped
-    last = wrapped[rows - 1].copy()
-    last.append(" …")
-    return wrapped[: rows - 1] + [fitted(last, width - 1) if last.cell_len > width else last]
-
-
+DWT_HINT_NARROW = "Deadweight by kind: sums of the lines above (cargo: holds, deck, liquid cargo)"
 DWT_HINT = ("Deadweight by kind: the sum of the lines above it (cargo = holds, deck loads and liquid cargo); "
             "change the tanks and items themselves.")
 
 
-def alert_lines(alerts: list[views.Alert], height: int, width: int | None = None, console=None) -> list[Text]:
-    """As many alerts as fit, dangers first; the last line counts those left out.  Given the
-    panel's ``width`` (and a console to wrap with), alerts that all fit the panel when wrapped are
-    wrapped; otherwise each takes one line, shortened with '…' (w shows them whole)."""
+STATUS_MAX_LINES = 2
+"""The message line grows to this many lines on a narrow screen rather than cut a message."""
+
+_WRAP_CONSOLE = Console(width=400, no_color=True, legacy_windows=False)
+
+
+def cut(text: Text, width: int) -> Text:
+    """``text`` if it fits in ``width`` cells, else a copy cut to fit, ending in "…"."""
+    if text.cell_len <= width:
+        return text
+    out = text.copy()
+    out.truncate(width, overflow="ellipsis")
+    return out
+
+
+def fit_lines(text: Text, width: int, max_lines: int, indent: int = 2) -> list[Text]:
+    """``text`` wrapped to ``width`` cells (lines after the first indented by ``indent``), at most
+    ``max_lines``; the last line ends in "…" when anything is left out."""
+    if text.cell_len <= width:
+        return [text]
+    first, *rest = text.wrap(_WRAP_CONSOLE, max(10, width - indent))
+    lines = [first] + [Text(" " * indent).append_text(line) for line in rest]
+    if len(lines) > max_lines:  # the last line shown carries the rest, cut with "…" where it overflows
+        last = lines[max_lines - 1].copy()
+        for more in lines[max_lines:]:
+            last.append(" ").append_text(more[indent:])
+        lines = lines[: max_lines - 1] + [last]
+    return [cut(ln, width) for ln in lines]
+
+
+def gz_title_lines(result, width: int) -> list[Text]:
+    """The curve's title (views.gz_caption) with every fact it holds: "GZ curve" becomes "GZ" where
+    the line is too short, then it wraps to two lines; nothing is left out."""
+    title = views.gz_caption(result)
+    if title.cell_len > width and title.plain.startswith(" GZ curve"):
+        title = Text(" GZ", P["title"]).append_text(title[len(" GZ curve"):])
+    if title.cell_len <= width:
+        return [title]
+    # Two lines broken between its parts (two spaces apart), not inside one ("zero at | 55.9°");
+    # where the parts do not pack into two lines, wrapped by words.
+    text = title.plain
+    breaks = [i for i in range(1, len(text)) if text.startswith("  ", i)]
+    first = [i for i in breaks if i <= width]
+    if first and len(text) - first[-1] - 1 <= width:
+        at = first[-1]
+        return [title[:at], title[at + 1:]]  # the second line keeps one of the two spaces as its margin
+    return fit_lines(title, width, 2)
+
+
+def alert_lines(alerts: list[views.Alert], height: int, width: int | None = None) -> list[Text]:
+    """The warning strip: dangers first.  Whole, wrapped to ``width``, when they fit in ``height``
+    lines; else one line each, a cut one ending in "…", and the last line says that ``w`` lists
+    them all (counting those left out).  ``width`` None: every alert, unwrapped (the w page)."""
     if not alerts:
-        lines = [Text(" ✔ No warnings: no assessed criterion failed or within 10 %, no worst-band tank, list and "
-                      "drafts within limits", P["ok"])]
-        return lines if width is None else [fitted(lines[0], width)]
-    ordered = alerts
-    if width is not None and console is not None:
-        wrapped = [part for a in ordered for part in a.line().wrap(console, width)]
-        if len(wrapped) <= height:
-            return list(wrapped)
-    if len(ordered) <= height:
-        shown = [a.line() for a in ordered]
-    else:
-        shown = [a.line() for a in ordered[: height - 1]]
-        last = Text(f"(+{len(ordered) - height + 1} more: w) ", P["caution"])
-        last.append_text(ordered[height - 1].line())
-        shown.append(last)
-    return shown if width is None else [fitted(t, width) for t in shown]
+        return [Text(" ✔ No warnings: no assessed criterion failed or within 10 %, no worst-band tank, list and "
+                     "drafts within limits", P["ok"])]
+    if width is None:
+        return [a.line() for a in alerts]
+    wrapped = [fit_lines(a.line(), width, height) for a in alerts]
+    if sum(len(w) for w in wrapped) <= height and all(not w[-1].plain.endswith("…") for w in wrapped):
+        return [ln for w in wrapped for ln in w]
+    lines = [a.line() for a in alerts[:height]]
+    if len(alerts) > height:
+        lines[-1] = Text(f"(+{len(alerts) - height + 1} more: w) ", P["caution"]).append_text(lines[-1])
+    # A line cut short ends in "…(w)": w shows every warning in full.
+    return [ln if ln.cell_len <= width else cut(ln, width - 3).append("(w)", P["caution"]) for ln in lines]

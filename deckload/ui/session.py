@@ -9,6 +9,7 @@ error of the edit: the condition is kept, the last good result stays on show
 
 from __future__ import annotations
 
+import threading
 from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any, Callable
@@ -53,6 +54,19 @@ class _Run:
         self.steps += 1
 
 
+@dataclass(frozen=True)
+class _Write:
+    """One change's save and/or log entry, waiting for the writer thread."""
+
+    condition: Condition
+    kind: str
+    label: str
+    data: dict
+    result: Result | None
+    save: bool
+    log: bool
+
+
 @dataclass
 class _Plan:
     base: Condition
@@ -94,6 +108,14 @@ def _state_data(state: tuple | None, prefix: str) -> dict:
     if state[0] is not None:
         out[f"{prefix}_pct"] = round(state[0], 2)
     return out
+
+
+def _tell(callback: Callable, *args) -> None:
+    """Tell the screen from the writer thread; a screen already gone (quitting) is no reason to stop."""
+    try:
+        callback(*args)
+    except Exception:  # e.g. the event loop closed: the write itself has landed
+        pass
 
 
 class Journal:
@@ -166,8 +188,20 @@ class Session:
         self._undo: list[Step] = []
         self._redo: list[Step] = []
         self._writer = None
-        self._jobs: list = []
+        self._after_frame: Callable[[Callable[[], None]], None] | None = None
+        self._held: list[_Write] = []
+        """Writes of changes whose frame is not drawn yet (UI thread only)."""
+        self._queue: list[_Write] = []
+        """Writes handed to the writer thread, not yet taken by it (under ``_cv``)."""
+        self._outstanding = 0
+        """Writes submitted and not yet landed: held, queued or being written (under ``_cv``)."""
+        self._draining = False
+        self._release_scheduled = False
+        self._cv = threading.Condition()
+        self.saves_written = 0
+        """Condition-file saves the writer thread has made (queued saves coalesce: fewer than changes)."""
         self._report: Callable[[str], None] = lambda problem: None
+        self._landed: Callable[[], None] = lambda: None
         self._recompute()
 
     # ------------------------------------------------------------------ queries
@@ -399,44 +433,102 @@ class Session:
                 *, save: bool = True, log: bool = True) -> list[str]:
         if self._writer is None:
             return self._persist(condition, kind, label, data, result, save=save, log=log)
-        # Landed jobs carry nothing more (their problems went to ``report``): keep the list short.
-        self._jobs = [j for j in self._jobs if not j.done()]
-        self._jobs.append(self._writer.submit(self._persist_reporting, condition, kind, label, data, result,
-                                              save, log))
+        if not (save or log):
+            return []
+        # Held until the change's frame is drawn: the writer's work then never delays the repaint.
+        self._held.append(_Write(condition, kind, label, data, result, save, log))
+        with self._cv:
+            self._outstanding += 1
+        if not self._release_scheduled:
+            self._release_scheduled = True
+            self._after_frame(self.release_writes)
         return []
 
     @property
     def saves_pending(self) -> int:
         """Changes shown on screen whose save and log entry have not landed on disk yet."""
-        return sum(1 for j in self._jobs if not j.done())
+        with self._cv:
+            return self._outstanding
 
     def write_in_background(self, report: Callable[[str], None],
-                            landed: Callable[[], None] | None = None) -> None:
-        """Save and log each change on one writer thread, in order, so a key's repaint never
-        waits for fsync; ``report`` receives each problem and ``landed`` is told when a change
-        is on disk (both are called on that thread)."""
+                            landed: Callable[[], None] | None = None,
+                            after_frame: Callable[[Callable[[], None]], None] | None = None) -> None:
+        """Save and log changes on one writer thread, so a key's repaint never waits for fsync.
+
+        ``after_frame(fn)`` is to call ``fn`` once the change's frame is drawn (the screen's
+        ``call_after_refresh``): the writes are handed to the thread then.  Saves waiting there
+        coalesce: only the newest condition is written (it holds every earlier change); every
+        log entry is appended, in order, after the save.  ``report`` receives each problem and
+        ``landed`` is told when writes are on disk (both are called on the writer thread)."""
         from concurrent.futures import ThreadPoolExecutor
 
         self._report = report
         self._landed = landed or (lambda: None)
+        self._after_frame = after_frame or (lambda fn: fn())
         self._writer = ThreadPoolExecutor(max_workers=1, thread_name_prefix="deckload-writer")
+
+    def release_writes(self) -> None:
+        """Hand the held writes to the writer thread (idempotent; UI thread)."""
+        self._release_scheduled = False
+        if not self._held:
+            return
+        held, self._held = self._held, []
+        with self._cv:
+            self._queue.extend(held)
+            start = not self._draining
+            self._draining = True
+        if start:
+            self._writer.submit(self._drain)
+
+    def _drain(self) -> None:
+        """Writer thread: write what is queued, newest save only, until nothing is left."""
+        try:
+            while True:
+                with self._cv:
+                    batch, self._queue = self._queue, []
+                    if not batch:
+                        return
+                try:
+                    problems = self._write_batch(batch)
+                finally:
+                    with self._cv:
+                        self._outstanding -= len(batch)
+                        self._cv.notify_all()
+                for p in problems:
+                    _tell(self._report, p)
+                _tell(self._landed)
+        finally:
+            with self._cv:  # whatever happened, flush must not wait for a writer that has stopped
+                self._draining = bool(self._queue) and self._draining
+                if self._queue:
+                    self._writer.submit(self._drain)
+                self._cv.notify_all()
+
+    def _write_batch(self, batch: list[_Write]) -> list[str]:
+        """The newest condition of ``batch`` saved once, then every log entry of it in order."""
+        problems: list[str] = []
+        newest = next((w for w in reversed(batch) if w.save), None)
+        if newest is not None:
+            try:
+                problems += self._persist(newest.condition, newest.kind, newest.label, newest.data,
+                                          newest.result, save=True, log=False)
+            except Exception as exc:  # not an OSError (those _persist words itself): still never silent
+                problems.append(f"NOT SAVED: {self.save_path}: {exc}. The change is on screen only; the next "
+                                "change tries again.")
+        for w in batch:  # the log is a record: every entry, whatever became of the save
+            if w.log:
+                problems += self._persist(w.condition, w.kind, w.label, w.data, w.result, save=False, log=True)
+        return problems
 
     def flush(self) -> list[str]:
         """Settle a run of edits, then wait until every change is saved and logged; problems not
         yet reported are returned.  A plan being tried stays unlogged."""
         problems: list[str] = self.settle()
-        while self._jobs:
-            problems.extend(self._jobs.pop(0).result())
+        if self._writer is not None:
+            self.release_writes()
+            with self._cv:
+                self._cv.wait_for(lambda: self._outstanding == 0 and not self._draining)
         return problems
-
-    def _persist_reporting(self, *args) -> list[str]:
-        try:
-            problems = self._persist(*args)
-            for p in problems:
-                self._report(p)
-        finally:
-            self._landed()
-        return []
 
     def _persist(self, condition: Condition, kind: str, label: str, data: dict, result: Result | None,
                  save: bool = True, log: bool = True) -> list[str]:
@@ -445,6 +537,7 @@ class Session:
             try:
                 self.save_path.parent.mkdir(parents=True, exist_ok=True)
                 self._save(self.save_path, condition)
+                self.saves_written += 1
             except OSError as exc:
                 problems.append(f"NOT SAVED: {self.save_path}: {exc.strerror or exc}. The change is on screen "
                                 "only (the file holds the last condition saved); the next change tries again.")

@@ -7,6 +7,7 @@ colour: the screen reads the same with NO_COLOR or on a monochrome terminal.
 
 from __future__ import annotations
 
+import functools
 from dataclasses import dataclass
 
 from rich.text import Text
@@ -178,7 +179,10 @@ def exempt_fsm(fsm_tm: float) -> str:
     return text if len(text) <= 7 else f"ex{fsm_tm:.0f}".rjust(7)
 
 
+@functools.lru_cache(maxsize=1024)
 def _tank_line(tid, stated, pct, vol, mass, rho, fsm, state, by_rule, kind, cols: TankCols, stale: bool) -> Text:
+    """One tank's line.  Kept for the same values (a key changes one or two tanks, not the 25 others):
+    the Text is shared, so it is never modified after it is made."""
     worst = state == "worst_band"
     line = Text(STATE_MARK.get(state, "?"), P["danger"] if worst else P["label"])
     line.append(" " + fit(tid, cols.id_w), P["value"])

@@ -6,6 +6,7 @@ rows here); these widgets only turn a few dozen ready-made Texts into strips.
 
 from __future__ import annotations
 
+from rich.cells import cell_len
 from rich.segment import Segment
 from rich.style import Style
 from rich.text import Text
@@ -26,13 +27,60 @@ def _strip(text: Text, console) -> Strip:
     return Strip(segments, text.cell_len)
 
 
+_NULL = Style.null()
+
+
+def _line_strip(text: Text, width: int, own: Style, console) -> Strip:
+    """``text`` as one line ``width`` cells wide on the panel's style ``own``: what
+    ``_strip(text).crop_extend(0, width, None).apply_style(own)`` gives, made directly.
+
+    Our lines are a base style with side-by-side spans of ready-made styles (palette.P):
+    each piece is cut from the plain text and styled ``own + base + span`` in one step.
+    Anything else (overlapping spans, style names, a line wider than the panel) takes
+    the general way above."""
+    plain = text.plain
+    cells = cell_len(plain)
+    spans = text.spans
+    base = text.style or _NULL  # Text's default style "" is the null style
+    if not plain or cells > width or not isinstance(base, Style):
+        return _strip(text, console).crop_extend(0, width, None).apply_style(own)
+    segments: list[Segment] = []
+    add = segments.append
+    if not spans:  # as rich renders it: the base style applies through spans only
+        add(Segment(plain, own))
+    else:
+        pos = 0
+        own_base = own + base
+        for span in spans:
+            start, end, style = span
+            if start < pos or not isinstance(style, Style):
+                return _strip(text, console).crop_extend(0, width, None).apply_style(own)
+            if end <= start:
+                continue
+            if start > pos:
+                add(Segment(plain[pos:start], own_base))
+            add(Segment(plain[start:end], own + (base + style)))
+            pos = end
+        if pos < len(plain):
+            add(Segment(plain[pos:], own_base))
+    if cells < width:
+        add(Segment(" " * (width - cells), own))
+    return Strip(segments, width)
+
+
 class LinePanel(Widget):
-    """A fixed-size panel showing the lines it is given; an update repaints, no layout."""
+    """A fixed-size panel showing the lines it is given; an update repaints, no layout.
+
+    The panel's own style (``rich_style``, a walk up the parents) is read once per render
+    pass, not once per line; the finished lines are kept until their text or that style changes.
+    """
 
     def __init__(self, *, id: str | None = None, classes: str | None = None):
         super().__init__(id=id, classes=classes)
         self._lines: list[Text] = []
         self._strips: dict[int, Strip] = {}
+        self._style: Style | None = None
+        self._width: int | None = None
 
     @property
     def lines(self) -> list[Text]:
@@ -57,13 +105,28 @@ class LinePanel(Widget):
     def plain(self) -> str:
         return "\n".join(t.plain for t in self._lines)
 
+    def render_lines(self, crop: Region) -> list[Strip]:
+        # Style and width once for every line of this pass: each is a walk up the parents.
+        style, self._width = self.rich_style, self.size.width
+        if style != self._style:
+            self._style = style
+            self._strips.clear()
+        try:
+            return super().render_lines(crop)
+        finally:
+            self._width = None
+
     def render_line(self, y: int) -> Strip:
-        width = self.size.width
+        if self._width is None:  # called outside a render pass
+            self._style, width = self.rich_style, self.size.width
+        else:
+            width = self._width
+        style = self._style
         if y >= len(self._lines):
-            return Strip.blank(width, self.rich_style)
+            return Strip.blank(width, style)
         strip = self._strips.get(y)
         if strip is None:  # cached finished: cropped to the width and on the panel's own style
-            strip = _strip(self._lines[y], self.app.console).crop_extend(0, width, None).apply_style(self.rich_style)
+            strip = _line_strip(self._lines[y], width, style, self.app.console)
             self._strips[y] = strip
         return strip
 
@@ -116,6 +179,10 @@ class LoadBoard(ScrollView, can_focus=True):
         self._strips: dict[int, Strip] = {}
         self._data: tuple | None = None
         self._width = 0
+        self._styles: tuple[Style, Style, bool] | None = None
+        self._place: tuple[int, int] | None = None
+        """(first line shown, width) during a render pass."""
+        """(own style, cursor style, focused) read once per render pass; the cached lines were made with them."""
 
     @property
     def cursor_key(self) -> tuple | None:
@@ -189,20 +256,38 @@ class LoadBoard(ScrollView, can_focus=True):
         if announce:
             self.post_message(self.CursorMoved(self.cursor_key))
 
+    def render_lines(self, crop: Region) -> list[Strip]:
+        styles = (self.rich_style, self.get_component_rich_style("board--cursor"), self.has_focus)
+        if styles != self._styles:
+            self._styles = styles
+            self._strips.clear()
+        self._place = (int(self.scroll_offset.y), self.scrollable_content_region.width)
+        try:
+            return super().render_lines(crop)
+        finally:
+            self._place = None
+
     def render_line(self, y: int) -> Strip:
-        idx = y + int(self.scroll_offset.y)
-        width = self.scrollable_content_region.width
+        if self._place is None:  # called outside a render pass
+            self._styles = (self.rich_style, self.get_component_rich_style("board--cursor"), self.has_focus)
+            top, width = int(self.scroll_offset.y), self.scrollable_content_region.width
+        else:
+            top, width = self._place
+        idx = y + top
+        own, cursor, focused = self._styles
         if idx >= len(self.rows):
-            return Strip.blank(width, self.rich_style)
+            return Strip.blank(width, own)
         strip = self._strips.get(idx)
         if strip is None:
-            strip = _strip(self.rows[idx].text, self.app.console).crop_extend(0, width, None)
-            if idx == self.cursor and self.has_focus:  # the cursor's colours win over the line's own
-                cursor = self.get_component_rich_style("board--cursor")
-                strip = Strip([Segment(seg.text, (seg.style or Style()) + cursor) for seg in strip], width)
-            elif idx == self.cursor:
-                strip = Strip.join([Strip([Segment("›")], 1), strip.crop(1, width)])
-            strip = strip.apply_style(self.rich_style)
+            if idx != self.cursor:
+                strip = _line_strip(self.rows[idx].text, width, own, self.app.console)
+            else:
+                strip = _strip(self.rows[idx].text, self.app.console).crop_extend(0, width, None)
+                if focused:  # the cursor's colours win over the line's own
+                    strip = Strip([Segment(seg.text, (seg.style or Style()) + cursor) for seg in strip], width)
+                else:
+                    strip = Strip.join([Strip([Segment("›")], 1), strip.crop(1, width)])
+                strip = strip.apply_style(own)
             self._strips[idx] = strip
         return strip
 

@@ -42,6 +42,26 @@ def main() -> None:
     print(f"search {search * 1000:.0f} ms, {calls[0]} calculations; one calculation {one * 1000:.1f} ms "
           f"(ratio {search / one:.0f})")
 
+    # Plans of several transfers (core.ballast_plan.plan), from the stock departure condition.
+    from deckload.core.ballast_plan import plan
+
+    d = load_condition(paths.DEMO_CONDITIONS["departure"], v)
+    listed = d.without_tank("WB2S").with_tank(TankFill("WB1P", "percent", 40.0))
+    for what, cond, goal, tanks in (
+        ("trim 0.15 m", d, Goal("trim", 0.15, 0.01), ["WB2P", "WB2S", "DB3P", "DB3S"]),
+        ("GM fluid ≥ 0.85 m", d, Goal("gm", 0.85, 0.001), ["WB2P", "WB2S", "DB3P", "DB3S"]),
+        ("list 0 from 16° P", listed, Goal("list", 0.0, 0.1), ["WB1P", "WB2P", "DB3S", "DB2S"]),
+        ("trim 0 (no plan)", d, Goal("trim", 0.0, 0.01), ["WB2P", "WB2S", "DB3P", "DB3S"]),
+    ):
+        calls[0] = 0
+        t0 = time.perf_counter()
+        p = plan(v, cond, goal, tanks, move=partial(entry.planner_move, v), room=partial(entry.planner_room, v),
+                 evaluate=counted)
+        took = time.perf_counter() - t0
+        n = len(getattr(p, "transfers", ()))
+        print(f"plan {what}: {type(p).__name__} with {n} transfer(s), {took * 1000:.0f} ms, {calls[0]} calculations "
+              f"(ratio {took / one:.0f})")
+
 
 if __name__ == "__main__":
     main()
