@@ -34,9 +34,10 @@ from deckload.core import model as m
 from deckload.core.audit import audit, has_errors
 from deckload.core.stability import evaluate
 from deckload.core.tables import OutOfRangeError
-from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
+from deckload.io.paths import DEMO_CONDITIONS
 from deckload.io.profiles import ProfileError, parse_condition, parse_profile
 from deckload.ui import entry
+from demo_vessels import demo_vessel
 
 HERE = Path(__file__).parent
 BARGE_TEXT = (HERE / "broken_profiles" / "box_barge.toml").read_text(encoding="utf-8")
@@ -294,10 +295,10 @@ def amount_case(tally: Tally, vessel: m.Vessel, base: m.Condition, rng: random.R
 
 def run(n: int, seed: int, *, progress=None) -> Tally:
     """``n`` cases from ``seed``: 35 % conditions, 15 % profiles, 50 % typed entries."""
-    from deckload.io.profiles import load_condition, load_profile
+    from deckload.io.profiles import load_condition
 
     rng = random.Random(seed)
-    vessel = load_profile(DEMO_PROFILE)
+    vessel = demo_vessel()
     bases = [load_condition(p, vessel) for p in DEMO_CONDITIONS.values()] + [m.Condition()]
     tally = Tally()
     for i in range(n):

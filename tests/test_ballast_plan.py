@@ -15,8 +15,9 @@ from deckload.io import paths
 from deckload.core.ballast_plan import Goal, propose
 from deckload.core.model import TankFill
 from deckload.core.stability import evaluate
-from deckload.io.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition
 from deckload.ui import entry
+from demo_vessels import demo_vessel
 
 
 async def searched(pilot, app) -> None:
@@ -32,7 +33,7 @@ async def searched(pilot, app) -> None:
 def listed():
     """Departure with both WB1 wings half full, then ballast pumped from WB1S into its partner WB1P
     until she lists about 5° to port (the mass found by bisection on the full calculation)."""
-    v = load_profile(paths.DEMO_PROFILE)
+    v = demo_vessel()
     c = load_condition(paths.DEMO_CONDITIONS["departure"], v)
     c = c.with_tank(TankFill("WB1P", "percent", 50.0)).with_tank(TankFill("WB1S", "percent", 50.0))
     lo, hi = 0.0, entry.planner_room(v, c, "WB1S", "WB1P")
@@ -109,7 +110,7 @@ WINGS_AND_BOTTOMS = ["WB2P", "WB2S", "DB3P", "DB3S"]
 
 @pytest.fixture(scope="module")
 def departure():
-    v = load_profile(paths.DEMO_PROFILE)
+    v = demo_vessel()
     return v, load_condition(paths.DEMO_CONDITIONS["departure"], v)
 
 

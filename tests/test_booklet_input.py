@@ -24,6 +24,7 @@ from deckload.core import model as m
 from deckload.core.stability import evaluate
 from deckload.io.profiles import ProfileError, load_profile, parse_condition, parse_profile
 from deckload.ui.entry import EntryError, parse_amount, tank_from_text
+from demo_vessels import demo_vessel
 
 HERE = Path(__file__).parent
 BASE = (HERE / "broken_profiles" / "box_barge.toml").read_text(encoding="utf-8")
@@ -761,9 +762,7 @@ def test_an_ullage_or_an_offset_sounding_taken_trimmed_is_corrected_on_the_level
     the volume of a 0.5 m sounding from the bottom, read at the same pipe."""
     import dataclasses
 
-    from deckload.io.paths import DEMO_PROFILE
-
-    demo = load_profile(DEMO_PROFILE)
+    demo = demo_vessel()
 
     def with_tank(**kw):
         tanks = tuple(dataclasses.replace(t, **kw) if t.id == "DB2P" else t for t in demo.tanks)

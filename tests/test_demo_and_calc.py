@@ -15,7 +15,8 @@ import pytest
 from deckload.cli.main import main
 from deckload.core.stability import evaluate
 from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
-from deckload.io.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition
+from demo_vessels import demo_vessel
 
 ROOT = Path(__file__).resolve().parents[1]
 
@@ -28,7 +29,7 @@ JSON_KEYS = {
 
 @pytest.fixture(scope="module")
 def demo():
-    vessel = load_profile(DEMO_PROFILE)
+    vessel = demo_vessel()
     return vessel, {k: load_condition(p, vessel) for k, p in DEMO_CONDITIONS.items()}
 
 

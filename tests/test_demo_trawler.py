@@ -26,6 +26,7 @@ from deckload.io import paths
 from deckload.cli.main import main
 from deckload.core.stability import evaluate
 from deckload.io.profiles import load_condition, load_profile
+from demo_vessels import demo_vessel, trawler_vessel
 
 ROOT = Path(__file__).resolve().parents[1]
 BROWSABLE = ROOT / "vessel_profiles"
@@ -49,7 +50,7 @@ def _files(folder: Path) -> dict[str, bytes]:
 
 @pytest.fixture(scope="module")
 def trawler():
-    vessel = load_profile(paths.TRAWLER_PROFILE)
+    vessel = trawler_vessel()
     return vessel, {k: load_condition(p, vessel) for k, p in paths.TRAWLER_CONDITIONS.items()}
 
 
@@ -214,7 +215,7 @@ def test_a_packaged_demo_vessel_opens_on_its_departure(tmp_path):
     _, cond, _ = load_inputs(paths.TRAWLER_PROFILE, None, tmp_path / "work")
     assert cond.name == "Departure for the fishing grounds"
     _, cond, _ = load_inputs(None, None, tmp_path / "work")
-    assert cond.name == load_condition(paths.DEMO_CONDITIONS["departure"], load_profile(paths.DEMO_PROFILE)).name
+    assert cond.name == load_condition(paths.DEMO_CONDITIONS["departure"], demo_vessel()).name
     other = tmp_path / "copy.toml"  # any other profile starts from an empty condition
     assert paths.demo_start_condition(other) is None
 

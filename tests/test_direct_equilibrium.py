@@ -35,6 +35,7 @@ from deckload.core.model import Condition
 from deckload.core.stability import evaluate
 from deckload.core.tables import OutOfRangeError
 from vessel_factories import BARGE_B, BARGE_D, BARGE_L, RHO_SW, box_barge
+from demo_vessels import demo_vessel
 
 L, B, D = BARGE_L, BARGE_B, BARGE_D
 spatial = pytest.importorskip("scipy.spatial")
@@ -183,7 +184,7 @@ def _demo(key: str = "departure"):
     from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
     from deckload.io.profiles import load_condition, load_profile
 
-    v = load_profile(DEMO_PROFILE)
+    v = demo_vessel()
     c = load_condition(DEMO_CONDITIONS[key], v)
     return v, c, evaluate(v, c)
 

@@ -21,9 +21,10 @@ from deckload.core.draft_marks import DraftMarksError, MarkReadings, condition_f
 from deckload.core.model import Condition, DraftMark, DraftMarks
 from deckload.core.stability import evaluate
 from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
-from deckload.io.profiles import ProfileError, load_condition, load_profile, parse_profile
+from deckload.io.profiles import ProfileError, load_condition, parse_profile
 from test_reference_trimmed_box import exact_trim_slope
 from vessel_factories import BARGE_B, BARGE_L, RHO_SW, box_barge
+from demo_vessels import demo_vessel
 
 L, B = BARGE_L, BARGE_B
 KEEL = 0.015
@@ -82,7 +83,7 @@ def test_demo_readings_round_trip_within_half_a_percent(key):
     """Demo vessel: the marks the engine computes, read back, give the computed displacement within
     0.5 % (issue 10's requirement; the second trim correction, which the forward computation
     does not make, is the difference) and the LCG within 1 cm."""
-    v = load_profile(DEMO_PROFILE)
+    v = demo_vessel()
     c = load_condition(DEMO_CONDITIONS[key], v)
     r = evaluate(v, c)
     cm = marks_for(v, r.draft_at_lcf_m, r.lcf_m, r.trim_m, r.list_deg)

@@ -8,14 +8,15 @@ import pytest
 from deckload.core.hydrostatics import fresh_water_allowance_m, mark_density_t_m3, permitted_draft_m
 from deckload.core.model import Condition, LimitCurve, TankFill, frozen_array
 from deckload.core.stability import evaluate
-from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
-from deckload.io.profiles import load_condition, load_profile
+from deckload.io.paths import DEMO_CONDITIONS
+from deckload.io.profiles import load_condition
 from vessel_factories import barge_tanks, box_barge
+from demo_vessels import demo_vessel
 
 
 @pytest.fixture(scope="module")
 def demo():
-    vessel = load_profile(DEMO_PROFILE)
+    vessel = demo_vessel()
     return vessel, load_condition(DEMO_CONDITIONS["departure"], vessel)
 
 

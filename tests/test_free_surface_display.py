@@ -10,14 +10,15 @@ from deckload.io import paths
 from deckload.core.free_surface import EXEMPT_RULE
 from deckload.core.model import TankFill
 from deckload.core.stability import evaluate
-from deckload.io.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition
 from deckload.report.condition_report import render_report_text
 from deckload.ui import views
+from demo_vessels import demo_vessel
 
 
 @pytest.fixture(scope="module")
 def demo():
-    v = load_profile(paths.DEMO_PROFILE)
+    v = demo_vessel()
     return v, load_condition(paths.DEMO_CONDITIONS["departure"], v)
 
 

@@ -10,6 +10,7 @@ from __future__ import annotations
 import random
 
 import fuzz_cases
+from demo_vessels import demo_vessel
 
 
 def test_a_seeded_fuzz_run_finds_no_traceback_no_non_finite_output_and_no_impossible_result():
@@ -25,10 +26,10 @@ def test_the_oracle_catches_what_it_is_meant_to_catch():
     """The oracle is not vacuous: an impossible item and an impossible result are flagged."""
     from deckload.core import model as m
     from deckload.core.stability import evaluate
-    from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
-    from deckload.io.profiles import load_condition, load_profile
+    from deckload.io.paths import DEMO_CONDITIONS
+    from deckload.io.profiles import load_condition
 
-    v = load_profile(DEMO_PROFILE)
+    v = demo_vessel()
     c = m.Condition(constants=(m.MassItem("far", 10.0, 1e6, 5.0),))
     assert "x = 1000000.0" in fuzz_cases.impossible_input(v, c)
     r = evaluate(v, load_condition(DEMO_CONDITIONS["departure"], v))

@@ -21,6 +21,7 @@ from deckload.core import bounds
 from deckload.core.stability import evaluate
 from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
 from deckload.io.profiles import ProfileError, load_condition, load_profile, parse_condition, parse_profile
+from demo_vessels import demo_vessel
 
 DEPARTURE = DEMO_CONDITIONS["departure"].read_text(encoding="utf-8")
 PROFILE_TEXT = DEMO_PROFILE.read_text(encoding="utf-8")
@@ -28,7 +29,7 @@ PROFILE_TEXT = DEMO_PROFILE.read_text(encoding="utf-8")
 
 @pytest.fixture(scope="module")
 def vessel():
-    return load_profile(DEMO_PROFILE)
+    return demo_vessel()
 
 
 EMPTY = 'format = "deckload-condition-1"\n[condition]\nname = "empty"\nwater_density_t_m3 = 1.025\n'

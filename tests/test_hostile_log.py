@@ -15,6 +15,7 @@ import pytest
 
 from deckload.cli.main import main
 from deckload.logbook import Logbook
+from demo_vessels import demo_vessel
 
 
 @pytest.fixture
@@ -133,21 +134,27 @@ def test_a_log_folder_that_cannot_be_made_names_it(tmp_path, capsys, monkeypatch
     assert str(blocker / "logs") in err and "nothing was recorded" in err
 
 
-async def test_the_status_line_never_says_saved_when_the_save_failed(tmp_path):
-    """The working condition's save fails (disk full): the message line says NOT SAVED."""
+async def test_the_status_line_never_says_saved_when_the_save_failed(tmp_path, monkeypatch):
+    """The working condition's save fails (disk full): the message line says NOT SAVED, and why.
+
+    The reason comes before the file's path, so that a long path (here over 100 characters) at
+    80 columns cuts the path, never the reason."""
+    from pathlib import Path
+
     from deckload.io import paths
-    from deckload.io.profiles import load_condition, load_profile
+    from deckload.io.profiles import load_condition
     from deckload.ui.launch import create_app
 
-    vessel = load_profile(paths.DEMO_PROFILE)
-    app = create_app(vessel, load_condition(paths.DEMO_CONDITIONS["departure"], vessel), work_dir=tmp_path,
+    vessel = demo_vessel()
+    work = tmp_path / ("working-conditions-" * 5)
+    app = create_app(vessel, load_condition(paths.DEMO_CONDITIONS["departure"], vessel), work_dir=work,
                      log_dir=None)
 
     def full(path, condition):
         raise OSError(errno.ENOSPC, os.strerror(errno.ENOSPC), str(path))
 
     app.session._save = full
-    async with app.run_test(size=(120, 40)) as pilot:
+    async with app.run_test(size=(80, 24)) as pilot:
         await pilot.press("plus")
         await pilot.pause(0.3)
         app.session.flush()

@@ -14,18 +14,19 @@ from deckload.io import paths
 from deckload.cli.main import main
 from deckload.core.model import Condition
 from deckload.core.stability import evaluate
-from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
-from deckload.io.profiles import ProfileError, load_condition, load_profile, parse_condition
+from deckload.io.paths import DEMO_CONDITIONS
+from deckload.io.profiles import ProfileError, load_condition, parse_condition
 from deckload.ui import entry
 from deckload.ui.launch import create_app, load_inputs
 from deckload.ui.session import working_path
+from demo_vessels import demo_vessel
 
 DEPARTURE = DEMO_CONDITIONS["departure"].read_text(encoding="utf-8")
 
 
 @pytest.fixture(scope="module")
 def vessel():
-    return load_profile(DEMO_PROFILE)
+    return demo_vessel()
 
 
 @pytest.fixture

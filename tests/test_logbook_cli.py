@@ -14,7 +14,8 @@ from deckload.cli.main import main
 from deckload.core.stability import evaluate
 from deckload.logbook import Logbook, condition_of
 from deckload.io.paths import DEMO_PROFILE
-from deckload.io.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition
+from demo_vessels import demo_vessel
 
 CONDITION = """\
 format = "deckload-condition-1"
@@ -50,7 +51,7 @@ tcg_m = 0.0
 def demo():
     if not DEMO_PROFILE.exists():
         pytest.fail(f"the demo vessel {DEMO_PROFILE} is missing")
-    return load_profile(DEMO_PROFILE)
+    return demo_vessel()
 
 
 @pytest.fixture

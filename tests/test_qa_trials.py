@@ -16,6 +16,7 @@ import pytest
 from deckload.io import paths
 from deckload.cli.check import run_check
 from deckload.cli.main import main
+from demo_vessels import demo_vessel, trawler_vessel
 
 BROWSABLE = Path(__file__).resolve().parent.parent / "vessel_profiles"
 
@@ -143,9 +144,9 @@ def test_the_criteria_line_of_calc_shows_the_failing_margin():
 
     from deckload.cli.calc import format_summary
     from deckload.core.stability import evaluate
-    from deckload.io.profiles import load_condition, load_profile
+    from deckload.io.profiles import load_condition
 
-    vessel = load_profile(paths.DEMO_PROFILE)
+    vessel = demo_vessel()
     r = evaluate(vessel, load_condition(paths.DEMO_CONDITIONS["departure"], vessel))
     crit = tuple(_area_b_against_a(0.06382, 0.06398) if c.id == "IS2008-A2.3-area-b-a" else c for c in r.criteria)
     assert crit != r.criteria  # the demo has this criterion to replace
@@ -163,10 +164,10 @@ def test_the_report_criteria_table_cuts_no_paragraph(name, tmp_path):
     follows the table once, in full."""
     from deckload.report import verdict_format as vf
     from deckload.core.stability import evaluate
-    from deckload.io.profiles import load_condition, load_profile
+    from deckload.io.profiles import load_condition
     from deckload.report.condition_report import render_report_text
 
-    vessel = load_profile(paths.TRAWLER_PROFILE)
+    vessel = trawler_vessel()
     condition = load_condition(paths.TRAWLER_CONDITIONS[name], vessel)
     r = evaluate(vessel, condition)
     txt = render_report_text(r, vessel, condition, stamp="2026-12-02 19:00 UTC", source="c.toml")
@@ -204,10 +205,10 @@ def test_the_whole_verdict_page_fits_the_width_it_is_given():
     paragraph's remark is on the line under it, in full."""
     from deckload.report import verdict_format as vf
     from deckload.core.stability import evaluate
-    from deckload.io.profiles import load_condition, load_profile
+    from deckload.io.profiles import load_condition
     from deckload.ui.verdict import verdict_page
 
-    vessel = load_profile(paths.TRAWLER_PROFILE)
+    vessel = trawler_vessel()
     r = evaluate(vessel, load_condition(paths.TRAWLER_CONDITIONS["departure"], vessel))
     lines = [t.plain for t in verdict_page(r, width=94)]
     assert max(len(x) for x in lines[:-1]) <= 94  # the closing caution is one line the box wraps

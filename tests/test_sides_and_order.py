@@ -6,12 +6,13 @@ from __future__ import annotations
 from deckload.io import paths
 from deckload.core.model import TankFill
 from deckload.core.stability import evaluate
-from deckload.io.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition
 from deckload.ui.dialogs import preview_lines
+from demo_vessels import demo_vessel
 
 
 def test_preview_shows_sides_not_signs_and_drafts_aft_mid_fwd():
-    v = load_profile(paths.DEMO_PROFILE)
+    v = demo_vessel()
     c = load_condition(paths.DEMO_CONDITIONS["departure"], v)
     before = evaluate(v, c)
     after = evaluate(v, c.with_tank(TankFill("WB1S", "percent", 60.0)))

@@ -21,12 +21,13 @@ from deckload.core.model import Condition, TankFill
 from deckload.core.soundings import SoundingError, correct_sounding, volume_at_sounding
 from deckload.core.stability import evaluate
 from deckload.io.paths import DEMO_PROFILE
-from deckload.io.profiles import ProfileError, dump_condition, load_profile, parse_condition, parse_profile
+from deckload.io.profiles import ProfileError, dump_condition, parse_condition, parse_profile
+from demo_vessels import demo_vessel
 
 
 @pytest.fixture(scope="module")
 def demo():
-    return load_profile(DEMO_PROFILE)
+    return demo_vessel()
 
 
 def _reference_volume(tank_id: str, sounding_m: float, trim_m: float, list_deg: float, vessel) -> float:

@@ -3,6 +3,8 @@ committed geometry; hand-entered sections survive a refresh; bad input leaves fi
 
 from __future__ import annotations
 
+import hashlib
+import pickle
 import tomllib
 from pathlib import Path
 
@@ -18,6 +20,36 @@ PROFILE = ROOT / "vessel_profiles" / "demo_islander.toml"
 PACKAGED = ROOT / "deckload" / "data" / "demo_islander.toml"
 
 HAND_SECTIONS = ("format", "lightship", "criteria", "free_surface", "load_line")
+
+
+@pytest.fixture(scope="module", autouse=True)
+def tables_built_once():
+    """Computing the demo's tables from its geometry costs about 2.5 s of CPU, and three tests of
+    this module need them (the byte-for-byte rebuild, the refresh and the output to stdout).  The
+    computation runs once: ``build_tables`` as ``deckload tables`` calls it is replaced, for this
+    module only, by a memo keyed on the SHA-256 of the pickled geometry, so a geometry that differs
+    in any value is computed afresh.  A memo hit replays the progress messages of the real run.  What
+    is computed is checked by ``test_committed_demo_profile_rebuilds_byte_for_byte`` (and the
+    geometry tests); the other tests here check the command around it."""
+    import deckload.cli.tables as tables_cli
+
+    compute = tables_cli.build_tables
+    memo: dict[str, tuple[object, list[str]]] = {}
+
+    def build_tables_once(geometry, progress=None):
+        key = hashlib.sha256(pickle.dumps(geometry)).hexdigest()
+        if key not in memo:
+            said: list[str] = []
+            memo[key] = (compute(geometry, said.append), said)
+        tables, said = memo[key]
+        for msg in said:
+            if progress is not None:
+                progress(msg)
+        return tables
+
+    with pytest.MonkeyPatch.context() as mp:
+        mp.setattr(tables_cli, "build_tables", build_tables_once)
+        yield memo
 
 
 @pytest.fixture(scope="module")
@@ -90,8 +122,9 @@ def test_refresh_keeps_hand_entered_sections(tmp_path, rebuilt):
             assert new[k] == original[k]
 
 
-def test_stdout_without_output(capsys):
+def test_stdout_without_output(capsys, rebuilt, tables_built_once):
     assert main(["tables", str(GEOMETRY)]) == 0
+    assert len(tables_built_once) == 1  # the demo's tables were computed once for the module
     out = capsys.readouterr()
     doc = tomllib.loads(out.out)
     assert doc["format"] == "deckload-profile-1"

@@ -10,13 +10,14 @@ from deckload.core.model import TankFill
 from deckload.core.stability import evaluate
 from deckload.io import paths
 from deckload.io.tomlcheck import ProfileError
-from deckload.io.profiles import dump_condition, load_condition, load_profile, parse_condition
+from deckload.io.profiles import dump_condition, load_condition, parse_condition
 from deckload.logbook import Logbook
 from deckload.report.condition_report import render_report_html, render_report_text
 from deckload.ui import entry, views
 from deckload.ui.dialogs import PromptForm
 from deckload.ui.launch import create_app, load_inputs
 from deckload.ui.widgets import LinePanel, LoadBoard
+from demo_vessels import demo_vessel
 
 BDN_RHO = 0.9912
 """Density from an (invented) bunker delivery note, t/m³ at 15 °C, four decimals as such notes give it."""
@@ -24,7 +25,7 @@ BDN_RHO = 0.9912
 
 @pytest.fixture(scope="module")
 def demo():
-    v = load_profile(paths.DEMO_PROFILE)
+    v = demo_vessel()
     return v, load_condition(paths.DEMO_CONDITIONS["departure"], v)
 
 
@@ -102,7 +103,7 @@ def test_a_file_density_outside_physics_names_the_key(demo):
 
 
 async def test_density_by_key_shows_on_the_board_is_logged_and_comes_back_on_reopen(tmp_path):
-    v = load_profile(paths.DEMO_PROFILE)
+    v = demo_vessel()
     c = load_condition(paths.DEMO_CONDITIONS["departure"], v)
     work, logs = tmp_path / "work", tmp_path / "logs"
     app = create_app(v, c, work_dir=work, log_dir=logs, officer="TS", profile_path=paths.DEMO_PROFILE)

@@ -1,6 +1,6 @@
 """The Demo Islander with tables at several trims made from her own hull geometry.
 
-Tables at trims −1 … +1.5 m (tests/tools/trimmed_tables_from_geometry.py, formulas there) are
+Tables at trims −1 … +1.5 m (deckload/core/geometry/trimmed.py, formulas there) are
 given to the table method; the reference is the direct calculation from the same hull
 (deckload/core/equilibrium.direct_state: equilibrium free in trim for the actual displacement,
 LCG and KG, drafts from the plane itself; checked against exact box clipping and trimesh in
@@ -21,11 +21,11 @@ import numpy as np
 import pytest
 
 from deckload.core.equilibrium import direct_state
-from deckload.core.model import Condition, TrimmedTables, frozen_array
+from deckload.core.model import Condition
 from deckload.core.stability import evaluate
 from deckload.io.paths import DEMO_PROFILE
 from deckload.io.profiles import load_profile
-from tools.trimmed_tables_from_geometry import hydrostatics_at_trim, kn_at_trim
+from tools.trimmed_tables_from_geometry import trimmed_vessel
 
 TRIMS = (-1.0, -0.5, 0.0, 0.5, 1.0, 1.5)
 
@@ -38,13 +38,7 @@ def ur_l5(value_m: float) -> float:
 @pytest.fixture(scope="module")
 def vessels():
     v = load_profile(DEMO_PROFILE)
-    p, h, cc = v.particulars, v.hydrostatics, v.cross_curves
-    drafts = h.draft_m[h.draft_m >= 1.0]
-    hs = [hydrostatics_at_trim(v.hull, drafts, t, p.table_density_t_m3, p.lbp_m) for t in TRIMS]
-    ks = [kn_at_trim(v.hull, cc.displacement_t, cc.heel_deg, t, p.table_density_t_m3, p.lbp_m) for t in TRIMS]
-    zero = TRIMS.index(0.0)
-    trimmed = dataclasses.replace(v, hydrostatics=hs[zero], cross_curves=ks[zero],
-                                  trimmed=TrimmedTables(frozen_array(TRIMS), tuple(hs), frozen_array(TRIMS), tuple(ks)))
+    trimmed = trimmed_vessel(v, TRIMS, min_draft_m=1.0)
     return v, trimmed
 
 

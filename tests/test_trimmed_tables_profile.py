@@ -20,7 +20,7 @@ from deckload.report.audit_findings import audit_profile
 from deckload.core.model import Condition
 from deckload.core.stability import evaluate
 from deckload.io.profiles import ProfileError, load_profile, parse_profile
-from test_reference_trimmed_tables import B, D, L, RHO, exact_trim, hydro_at_trim
+from trimmed_box import B, D, L, RHO, exact_trim, hydro_at_trim
 from vessel_factories import box_kn_m
 
 DRAFTS = [4.0, 4.25, 4.5, 4.75, 5.0, 5.25, 5.5, 5.75, 6.0]

@@ -121,6 +121,42 @@ async def test_transfer_previews_then_commits_as_one_undoable_step(app):
         assert app.session.condition == c0
 
 
+@pytest.mark.parametrize("empty, source, rho", [("DB1S", "DB1P", RHO_SW), ("FO1P", "FO1S", 0.95)])
+async def test_transfer_on_an_empty_tank_fills_it_from_a_tank_of_its_liquid(app, empty, source, rho):
+    """``t`` on an empty tank: it is the receiving tank and its partner (which holds some) gives,
+    so "5t" then Enter moves 5 t into it at once (volume = mass / the liquid's density)."""
+    async with app.run_test(size=(120, 40)) as pilot:
+        held_before = app.session.condition.tank_fill(source).value
+        app.screen.query_one(LoadBoard).select(("tank", empty))
+        await pilot.press("t")
+        form = app.screen
+        assert isinstance(form, TransferForm)
+        assert form.query_one("#xfer-from").value == source and form.query_one("#xfer-to").value == empty
+        assert form.focused.id == "xfer-amount"
+        await pilot.press(*"5t", "enter")
+        await pilot.pause()
+        c1 = app.session.condition
+        assert c1.tank_fill(empty).value == pytest.approx(5.0 / rho)
+        assert c1.tank_fill(source).value < held_before  # the giver lost what the empty tank took
+        assert panel(app, "status").startswith(" ✔ ")
+
+
+async def test_transfer_on_an_empty_tank_with_no_giver_asks_for_the_from_tank(app):
+    """FW1C is the only fresh-water tank and it is empty: no tank can give, so the form opens
+    with FW1C to receive and the cursor in the from-field, offering no tank of another liquid."""
+    async with app.run_test(size=(120, 40)) as pilot:
+        app.screen.query_one(LoadBoard).select(("tank", "FW1C"))
+        await pilot.press("t")
+        form = app.screen
+        assert isinstance(form, TransferForm)
+        assert form.query_one("#xfer-from").value == "" and form.query_one("#xfer-to").value == "FW1C"
+        assert form.focused.id == "xfer-from"
+        await pilot.pause()
+        offered = form.query_one("#xfer-preview", LinePanel).plain()
+        assert "DB1P" not in offered and "FO1S" not in offered  # they hold some, but not fresh water
+        assert offered.startswith("No tank can serve here: none of that liquid holds any")
+
+
 async def test_deck_item_added_by_form_and_removed(app):
     async with app.run_test(size=(120, 40)) as pilot:
         await pilot.press("a")

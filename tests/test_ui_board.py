@@ -9,15 +9,16 @@ from types import SimpleNamespace
 import pytest
 
 from deckload.io import paths
-from deckload.io.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition
 from deckload.ui import views
 from deckload.ui.launch import create_app
 from deckload.ui.widgets import LoadBoard
+from demo_vessels import demo_vessel
 
 
 @pytest.fixture
 def app(tmp_path):
-    vessel = load_profile(paths.DEMO_PROFILE)
+    vessel = demo_vessel()
     condition = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
     return create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
 
@@ -129,11 +130,11 @@ def test_a_logged_condition_keeps_its_deadweight_by_kind_and_load_line():
     """The voyage log's summary carries the breakdown and the mark's allowed draft, shown in the
     entry's details; entries written before they existed show without them."""
     from deckload.core.stability import evaluate
-    from deckload.io.profiles import load_condition, load_profile
+    from deckload.io.profiles import load_condition
     from deckload.logbook.records import summarise
     from deckload.ui.log_screen import entry_details
 
-    v = load_profile(paths.DEMO_PROFILE)
+    v = demo_vessel()
     r = evaluate(v, load_condition(paths.DEMO_CONDITIONS["departure"], v))
     s = summarise(r)
     assert sum(s["deadweight_by_kind_t"].values()) == pytest.approx(r.deadweight_t, abs=1e-9)  # same terms summed

@@ -255,3 +255,19 @@ def test_editing_a_deck_item_keeps_what_the_form_does_not_show(vessel):
     form = ItemForm(name="Crane", mass="6", lcg="10", vcg="6", tcg="0", area="")
     got = item_from_form(vessel, form, deck=True, base=base)
     assert (got.mass_t, got.footprint_m2, got.windage_area_m2, got.windage_centroid_z_m) == (6.0, 4.0, 12.0, 7.5)
+
+
+def test_the_giving_tank_for_an_empty_tank_is_its_partner_else_the_fullest_of_its_liquid():
+    """Demo ballast: WB1P empty.  With WB1S holding some, WB1S gives (the partner); with WB1S empty
+    too, the ballast tank holding most gives (DB2S 20 m³ over DB1P 10 m³); with none, ''."""
+    from deckload.io import paths
+    from deckload.io.profiles import load_profile
+    from deckload.ui.entry import giving_tank
+
+    v = load_profile(paths.DEMO_PROFILE)
+    ballast = [t.id for t in v.tanks if t.kind == "ballast"]
+    empty = Condition(name="Empty ballast", tanks=tuple(TankFill(i, "volume_m3", 0.0) for i in ballast))
+    assert giving_tank(v, empty, "WB1P") == ""
+    two = empty.with_tank(TankFill("DB1P", "volume_m3", 10.0)).with_tank(TankFill("DB2S", "volume_m3", 20.0))
+    assert giving_tank(v, two, "WB1P") == "DB2S"
+    assert giving_tank(v, two.with_tank(TankFill("WB1S", "volume_m3", 5.0)), "WB1P") == "WB1S"

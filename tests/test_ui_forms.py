@@ -14,16 +14,18 @@ from textual import events
 from textual.widgets import Input
 
 from deckload.io import paths
-from deckload.io.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition
 from deckload.ui.dialogs import ItemFormScreen, TransferForm
 from deckload.ui.launch import create_app
+from deckload.ui.widgets import LinePanel
+from demo_vessels import demo_vessel, trawler_vessel
 
 _NAMES = {"%": "percent_sign", ".": "full_stop", " ": "space"}
 
 
 @pytest.fixture(scope="module")
 def demo():
-    v = load_profile(paths.DEMO_PROFILE)
+    v = demo_vessel()
     return v, load_condition(paths.DEMO_CONDITIONS["departure"], v)
 
 
@@ -140,7 +142,7 @@ def test_the_amount_preview_gives_every_form_of_an_ullage_reading():
 
     from deckload.ui import entry
 
-    v = load_profile(paths.TRAWLER_PROFILE)
+    v = trawler_vessel()
     c = load_condition(paths.TRAWLER_CONDITIONS["departure"], v)
     tank = v.tank("FO1P")
     level = 2.87 - 1.00
@@ -321,3 +323,54 @@ async def test_keys_typed_at_once_reach_the_log_screen_as_it_opens(app):
         await type_fast(app, pilot, ["escape", "l", "escape"])
         assert isinstance(app.screen, LoadingScreen)
         assert any(e.kind == "condition" for e in app.session.journal.logbook.entries())
+
+
+def _area_room_t(c, area) -> float:
+    """Room under the deck area's permissible uniform load: max_load_t_m2 × area_m2 less the deck
+    items already standing on it (the limit core.stability's deck-load check applies)."""
+    return area.max_load_t_m2 * area.area_m2 - sum(d.mass_t for d in c.deck_items if d.area_id == area.id)
+
+
+@pytest.mark.parametrize("size", [(120, 40), (80, 24)])
+async def test_the_deck_item_form_offers_the_deck_areas_with_their_room(app, demo, size):
+    """The area field lists the areas matching what is typed, each with the load on it and the
+    room left; Tab takes the one marked and ⏎ then saves the item on it."""
+    v, c0 = demo
+    aft = v.deck_area("AFTDECK")
+    async with app.run_test(size=size) as pilot:
+        await pilot.press("a", *"Crane", "tab", *"12", "tab", *"20", "tab", *"6", "tab", "tab")
+        form = app.screen
+        assert isinstance(form, ItemFormScreen) and form.focused.id == "item-area"
+        await pilot.pause()
+        picker = form.query_one("#area-picker", LinePanel)
+        assert picker.display
+        listed = picker.plain()
+        assert listed.startswith("Deck areas · ↑ ↓ choose")
+        line = next(x for x in listed.splitlines() if "AFTDECK" in x)
+        assert f"room {_area_room_t(c0, aft):7.1f} t" in line and aft.name in line
+        await pilot.press(*"aft")
+        await pilot.pause()
+        assert "Deck areas matching 'aft'" in picker.plain()
+        await pilot.press("tab")
+        assert fields(app)["item-area"] == "AFTDECK"
+        await pilot.press("enter")
+        await pilot.pause()
+        assert not isinstance(app.screen, ItemFormScreen)
+        crane = app.session.condition.deck_items[-1]
+        assert (crane.name, crane.mass_t, crane.area_id) == ("Crane", 12.0, "AFTDECK")
+
+
+async def test_a_blank_deck_area_stays_blank_unless_one_is_chosen(app, demo):
+    """The area is optional: ⏎ on the blank field saves the item on no area; ↓ then ⏎ takes the
+    area marked (and a second ⏎ saves)."""
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.press("a", *"Skiff", "tab", *"2", "tab", *"20", "tab", *"6", "tab", "tab", "enter")
+        await pilot.pause()
+        assert app.session.condition.deck_items[-1].name == "Skiff"
+        assert app.session.condition.deck_items[-1].area_id is None
+        await pilot.press("a", *"Raft", "tab", *"1", "tab", *"20", "tab", *"6", "tab", "tab", "down", "enter")
+        await pilot.pause()
+        assert isinstance(app.screen, ItemFormScreen) and fields(app)["item-area"] == "AFTDECK"
+        await pilot.press("enter")
+        await pilot.pause()
+        assert app.session.condition.deck_items[-1].area_id == "AFTDECK"

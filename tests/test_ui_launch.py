@@ -5,9 +5,10 @@ from __future__ import annotations
 from pathlib import Path
 
 from deckload.io import paths
-from deckload.io.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition
 from deckload.ui.launch import create_app, load_inputs
 from deckload.ui.session import working_path
+from demo_vessels import demo_vessel
 
 
 async def test_first_run_opens_departure_and_a_restart_restores_the_working_condition(tmp_path, monkeypatch):
@@ -27,7 +28,7 @@ async def test_first_run_opens_departure_and_a_restart_restores_the_working_cond
 
 
 def test_an_unreadable_working_file_is_set_aside_not_overwritten(tmp_path):
-    vessel = load_profile(paths.DEMO_PROFILE)
+    vessel = demo_vessel()
     saved = working_path(tmp_path, vessel)
     saved.parent.mkdir(parents=True, exist_ok=True)
     saved.write_text("format = 'deckload-condition-1'\n[tanks.NOPE]\npercent = 50\n")
@@ -39,7 +40,7 @@ def test_an_unreadable_working_file_is_set_aside_not_overwritten(tmp_path):
 
 
 def test_a_condition_argument_wins_over_the_working_file(tmp_path):
-    vessel = load_profile(paths.DEMO_PROFILE)
+    vessel = demo_vessel()
     arrival = paths.DEMO_CONDITIONS["arrival"]
     _, condition, _ = load_inputs(paths.DEMO_PROFILE, arrival, tmp_path)
     assert condition == load_condition(arrival, vessel)
@@ -79,7 +80,7 @@ def test_a_torn_log_line_is_reported_at_start(tmp_path):
 
 
 def test_a_second_unreadable_working_file_does_not_overwrite_the_first(tmp_path):
-    vessel = load_profile(paths.DEMO_PROFILE)
+    vessel = demo_vessel()
     saved = working_path(tmp_path, vessel)
     saved.parent.mkdir(parents=True, exist_ok=True)
     for n in (1, 2):
@@ -91,7 +92,7 @@ def test_a_second_unreadable_working_file_does_not_overwrite_the_first(tmp_path)
 
 
 def test_opening_a_named_condition_keeps_the_previous_working_file(tmp_path):
-    vessel = load_profile(paths.DEMO_PROFILE)
+    vessel = demo_vessel()
     saved = working_path(tmp_path, vessel)
     saved.parent.mkdir(parents=True, exist_ok=True)
     saved.write_text(paths.DEMO_CONDITIONS["midvoyage"].read_text())
@@ -105,7 +106,7 @@ def test_opening_a_named_condition_keeps_the_previous_working_file(tmp_path):
 def test_a_second_window_on_the_same_vessel_does_not_save_the_working_condition(tmp_path):
     from deckload.logbook import Logbook
 
-    vessel = load_profile(paths.DEMO_PROFILE)
+    vessel = demo_vessel()
     condition = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
     holder = Logbook.open(tmp_path / "logs", vessel.particulars.name)
     try:
@@ -118,7 +119,7 @@ def test_a_second_window_on_the_same_vessel_does_not_save_the_working_condition(
 
 async def test_a_notice_with_brackets_does_not_break_the_screen(tmp_path):
     """Notices carry file names and user text: they are shown as plain text, never as markup."""
-    vessel = load_profile(paths.DEMO_PROFILE)
+    vessel = demo_vessel()
     condition = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
     app = create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs",
                      notices=["value 'x[/]' in [tanks.A] was refused"])

@@ -11,14 +11,15 @@ from __future__ import annotations
 import pytest
 
 from deckload.io import paths
-from deckload.io.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition
 from deckload.ui.launch import create_app
 from deckload.ui.widgets import LinePanel, LoadBoard
+from demo_vessels import demo_vessel
 
 
 @pytest.fixture
 def app(tmp_path):
-    vessel = load_profile(paths.DEMO_PROFILE)
+    vessel = demo_vessel()
     condition = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
     return create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
 

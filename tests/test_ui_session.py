@@ -10,6 +10,7 @@ from deckload.io.profiles import load_condition, save_condition
 from deckload.ui.entry import EntryError
 from deckload.ui.session import Journal, Session, working_path
 from vessel_factories import barge_tanks, box_barge
+from demo_vessels import demo_vessel
 
 
 @pytest.fixture(scope="module")
@@ -164,10 +165,9 @@ def test_the_screen_saves_the_last_of_quick_edits_and_quitting_waits_for_it(tmp_
     import threading
 
     from deckload.io import paths
-    from deckload.io.profiles import load_profile
     from deckload.ui.launch import create_app
 
-    vessel = load_profile(paths.DEMO_PROFILE)
+    vessel = demo_vessel()
     condition = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
     app = create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
     calls = []
@@ -212,7 +212,7 @@ def test_the_title_says_saving_until_the_change_is_on_disk(tmp_path):
     import threading
 
     from deckload.io import paths
-    from deckload.io.profiles import load_condition, load_profile, save_condition
+    from deckload.io.profiles import load_condition, save_condition
     from deckload.ui.launch import create_app
 
     gate = threading.Event()
@@ -222,7 +222,7 @@ def test_the_title_says_saving_until_the_change_is_on_disk(tmp_path):
         save_condition(path, condition)
 
     async def run():
-        vessel = load_profile(paths.DEMO_PROFILE)
+        vessel = demo_vessel()
         condition = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
         app = create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
         app.session._save = slow_save
@@ -273,3 +273,41 @@ def test_the_writer_keeps_logging_when_a_save_fails_oddly_and_when_the_screen_is
     s.flush()
     assert [e.change_text for e in book.entries()][-1] == "DB1P 30 %"
     book.close()
+
+
+def test_closing_the_screen_ends_the_writer_thread_and_frees_the_app(tmp_path):
+    """The writer thread saves and logs after each frame; when the screen closes, every change is
+    on disk and the thread is gone.  A thread left running keeps its app (and every app before it in
+    a long process) alive through the stderr it was started with."""
+    import asyncio
+    import gc
+    import threading
+    import weakref
+
+    from deckload.io import paths
+    from deckload.io.profiles import load_condition
+    from deckload.ui.launch import create_app
+
+    def writers():
+        return [t for t in threading.enumerate() if t.name.startswith("deckload-writer")]
+
+    before = len(writers())
+
+    async def run():
+        vessel = demo_vessel()
+        condition = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
+        app = create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+        async with app.run_test(size=(80, 24)) as pilot:
+            await pilot.press("enter", *"20%", "enter")
+            for _ in range(300):  # until the edit has landed (the writer saves after the frame)
+                await pilot.pause(0.01)
+                if not app.session.saves_pending:
+                    break
+            assert len(writers()) == before + 1  # the edit went to the writer thread
+        assert app.session.saves_pending == 0 and any((tmp_path / "work").glob("*.condition.toml"))
+        return weakref.ref(app)
+
+    gone = asyncio.run(run())
+    assert len(writers()) == before
+    gc.collect()
+    assert gone() is None, "the closed app is still referenced"

@@ -10,10 +10,11 @@ from __future__ import annotations
 
 from deckload.io import paths
 from deckload.logbook import Logbook
-from deckload.io.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition
 from deckload.ui.conditions import ReportWritten
 from deckload.ui.launch import create_app, load_inputs
 from deckload.ui.widgets import LinePanel, LoadBoard
+from demo_vessels import demo_vessel
 
 NAME = "Sailing 2 Dec, dock water"
 
@@ -31,7 +32,7 @@ async def to_tank(pilot, app, tank_id: str) -> None:
 
 async def test_the_watch_day(tmp_path):
     work, logs = tmp_path / "work", tmp_path / "logs"
-    vessel = load_profile(paths.DEMO_PROFILE)
+    vessel = demo_vessel()
     start = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
     app = create_app(vessel, start, work_dir=work, log_dir=logs, officer="JS", profile_path=paths.DEMO_PROFILE)
     async with app.run_test(size=(120, 40)) as pilot:

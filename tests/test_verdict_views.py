@@ -16,15 +16,16 @@ import pytest
 from deckload.io import paths
 from deckload.report import verdict_format as vf
 from deckload.cli.main import main
-from deckload.io.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition
 from deckload.ui.launch import create_app
 from deckload.ui.dialogs import TextScreen
 from deckload.ui.widgets import LinePanel
 from verdict_samples import with_verdict
+from demo_vessels import demo_vessel
 
 
 def _app(tmp_path, name="departure"):
-    vessel = load_profile(paths.DEMO_PROFILE)
+    vessel = demo_vessel()
     condition = load_condition(paths.DEMO_CONDITIONS[name], vessel)
     return create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
 
@@ -60,9 +61,15 @@ def sample_evaluate(monkeypatch):
 async def test_the_panel_names_the_sets_and_lists_what_was_not_assessed(tmp_path, size):
     app = _app(tmp_path)
     async with app.run_test(size=size) as pilot:
-        await pilot.pause()
+        # The panel is filled for the size it has; on the first frame the layout may not have given
+        # it its final size yet (the next frame has): read it once two frames in a row agree.
+        crit = None
+        for _ in range(20):
+            await pilot.pause()
+            crit, before = panel(app, "criteria"), crit
+            if crit == before:
+                break
         r = app.session.result
-        crit = panel(app, "criteria")
         lines = crit.splitlines()
         assert lines[0].startswith(" Criteria met")
         assert "IS2008-A2.2" in crit or "IS2008 A2.2" in crit
@@ -257,7 +264,7 @@ def test_the_verdict_names_a_shared_reason_once():
     from deckload.core.result import NotAssessed
     from deckload.core.stability import evaluate
 
-    v = load_profile(paths.DEMO_PROFILE)
+    v = demo_vessel()
     base = evaluate(v, load_condition(paths.DEMO_CONDITIONS["departure"], v))
     out = dataclasses.replace(base, not_assessed=(
         NotAssessed("damage stability", "not computed by deckload"),

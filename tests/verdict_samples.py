@@ -17,7 +17,8 @@ import numpy as np
 from deckload.io import paths
 from deckload.core.result import AssessedSet, CriterionResult, NotAssessed, Result, WeatherResult
 from deckload.core.stability import evaluate
-from deckload.io.profiles import load_condition, load_profile
+from deckload.io.profiles import load_condition
+from demo_vessels import demo_vessel
 
 A22 = AssessedSet("IS2008-A2.2", "IS Code 2008 Part A 2.2 general criteria", True)
 A23 = AssessedSet("IS2008-A2.3", "IS Code 2008 Part A 2.3 severe wind and rolling", True)
@@ -30,7 +31,7 @@ NOT_ASSESSED = (
 
 
 def demo(name: str = "departure"):
-    vessel = load_profile(paths.DEMO_PROFILE)
+    vessel = demo_vessel()
     condition = load_condition(paths.DEMO_CONDITIONS[name], vessel)
     return vessel, condition, evaluate(vessel, condition)
 

@@ -7,12 +7,14 @@ from pathlib import Path
 
 from deckload.report import verdict_format as vf
 from deckload.core.result import Result
+from deckload.core.trimmed_tables import tables_basis
 
 CAUTION = vf.CAUTION
 
 
-def format_summary(r: Result) -> str:
-    """A plain-text summary of a result, for the terminal."""
+def format_summary(r: Result, tables: str | None = None) -> str:
+    """A plain-text summary of a result, for the terminal; ``tables`` is the sentence saying which
+    hydrostatic and KN tables were used (:func:`deckload.core.trimmed_tables.tables_basis`)."""
     # below the last printed decimal the words of the report: upright, even keel (not "0.00° stbd")
     side = "upright" if abs(r.list_deg) < 0.05 else "stbd" if r.list_deg > 0 else "port"
     trim_word = "even keel" if abs(r.trim_m) < 0.0005 else "by the stern" if r.trim_m > 0 else "by the head"
@@ -40,7 +42,7 @@ def format_summary(r: Result) -> str:
         f"  Deck edge in   {vf.fmt_optional(r.deck_edge_angle_deg, '.1f', '°'):>11}       "
         f"θf {vf.fmt_optional(r.downflooding_angle_deg, '.1f', '°', 'not given'):>18}",
         f"  Free surface: rule {r.fs_rule}, GZ correction {r.gz_correction}",
-    ] + ([f"  GZ curve ends at {r.gz_end_deg:g}°, the last angle of the KN tables: nothing beyond is known"]
+    ] + ([f"  Tables: {tables}"] if tables else []) + ([f"  GZ curve ends at {r.gz_end_deg:g}°, the last angle of the KN tables: nothing beyond is known"]
          if r.gz_end_deg < 90.0 else []) + [
         "",
         "  Criteria" + (f" (checked heeling to {r.criteria_side})" if r.tcg_m else ""),
@@ -152,10 +154,12 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False,
     cmp = direct_comparison(profile_path, vessel, result) if direct else None
     if isinstance(cmp, int):
         return cmp
+    basis = tables_basis(vessel, result.trim_m)
     if as_json:
         import json
 
         doc = result.to_json_dict()
+        doc["tables_basis"] = basis.as_dict()
         if cmp is not None:
             doc["direct"] = {"method": "hull geometry, free trim and heel, actual G",
                              "rows": [{"quantity": n, "unit": u, "tables": a, "direct": b} for n, u, a, b in cmp.rows],
@@ -164,7 +168,7 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False,
         doc["caution"] = CAUTION
         print(json.dumps(doc, indent=1, ensure_ascii=False, allow_nan=False))
     else:
-        text = format_summary(result)
+        text = format_summary(result, basis.words)
         extra = []
         keel = vessel.particulars.keel_thickness_m
         if keel > 0.0:

@@ -47,6 +47,8 @@ def _parser() -> argparse.ArgumentParser:
     t = sub.add_parser("tables", help="compute hydrostatic, cross-curve and tank tables from hull geometry")
     t.add_argument("geometry", type=Path)
     t.add_argument("-o", "--output", type=Path, help="profile to write or refresh (default: print to stdout)")
+    t.add_argument("--trims", metavar="T1,T2,...",
+                   help="also hydrostatics and KN at these trims (m, + by the stern, comma-separated, not 0)")
 
     x = sub.add_parser("csv", help="write a profile's tables as CSV files, in the booklet's conventions, to compare")
     x.add_argument("profile", type=Path)
@@ -203,8 +205,23 @@ def _files(args: argparse.Namespace) -> list[str]:
             if getattr(args, k, None) is not None]
 
 
+def _join_trims(argv: list[str]) -> list[str]:
+    """``--trims -1,1`` as ``--trims=-1,1``: argparse would take a list starting with a minus sign
+    for an option."""
+    out: list[str] = []
+    i = 0
+    while i < len(argv):
+        if argv[i] == "--trims" and i + 1 < len(argv) and argv[i + 1].startswith("-") and argv[i + 1][1:2] in "0123456789.":
+            out.append("--trims=" + argv[i + 1])
+            i += 2
+            continue
+        out.append(argv[i])
+        i += 1
+    return out
+
+
 def _main(argv: list[str] | None) -> int:
-    args = _parser().parse_args(argv)
+    args = _parser().parse_args(_join_trims(list(sys.argv[1:] if argv is None else argv)))
     if args.no_cache:
         os.environ["DECKLOAD_NO_CACHE"] = "1"  # for the screen too, which reads it where it loads
     unknown = _demo_shorthand(args)
@@ -233,7 +250,7 @@ def _main(argv: list[str] | None) -> int:
         if cmd == "tables":
             from deckload.cli.tables import run_tables
 
-            return run_tables(args.geometry, args.output)
+            return run_tables(args.geometry, args.output, args.trims)
         if cmd == "csv":
             from deckload.cli.csv_export import run_csv
 

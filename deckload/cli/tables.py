@@ -1,4 +1,4 @@
-"""``deckload tables GEOMETRY [-o PROFILE]``: compute a vessel's tables from its geometry.
+"""``deckload tables GEOMETRY [--trims T1,T2,...] [-o PROFILE]``: compute a vessel's tables from its geometry.
 
 Reads a geometry file (``deckload.io.geometry_files``), computes every table
 (``deckload.core.geometry.builder``) and writes the profile's generated sections
@@ -10,6 +10,10 @@ with tomli-w:
 * every ``[[hold]]`` named in the geometry (capacity, centroid, fill table);
 * ``[[deck_area]]`` and ``[downflooding]`` when the geometry defines deck areas or
   openings;
+* with ``--trims``: ``[[hydrostatics_at_trim]]`` and ``[[cross_curves_at_trim]]`` at those
+  trims (m, + by the stern; ``deckload.core.geometry.trimmed``), and ``[cross_curves]`` made
+  at fixed trim 0 like them (``trim_basis = "even keel"``) so that KN interpolate in trim
+  consistently; without ``--trims`` tables at trims already in the profile are kept, with a note;
 * in ``[vessel]``: lbp_m, breadth_m, depth_m and table_density_t_m3 (name,
   design_draft_m and longitudinal_datum only when the profile has none).
 
@@ -38,14 +42,19 @@ import numpy as np
 import tomli_w
 
 from deckload.io.atomicfile import write_atomic
-from deckload.core.geometry.builder import TableRangeError, VesselTables, build_tables
+from deckload.core.geometry.builder import TableRangeError, VesselTables, build_tables, hull_body
 from deckload.core.geometry.cross_curves import NoEquilibriumError
+from deckload.core.geometry.trimmed import TableAtTrim, TrimTableError, kn_at_trim, tables_at_trims
+from deckload.core.bounds import table_trim_range
+from deckload.core.model import Particulars
+from deckload.io.limits import MAX_TABLES_AT_TRIMS
 from deckload.io.geometry_files import GeometryError, load_geometry
 
 PROFILE_FORMAT = "deckload-profile-1"
 
 TOP_ORDER = (
-    "format", "vessel", "lightship", "hydrostatics", "cross_curves", "free_surface", "criteria",
+    "format", "vessel", "lightship", "hydrostatics", "cross_curves", "hydrostatics_at_trim", "cross_curves_at_trim",
+    "free_surface", "criteria",
     "load_line", "draft_marks", "sounding_pipes", "limit_curve", "downflooding", "deck_edge", "windage", "passengers",
     "extra_criterion", "tank", "hold", "deck_area",
 )
@@ -56,6 +65,37 @@ def _r(a: Any, decimals: int) -> Any:
     """Round to fixed decimals as plain Python floats (lists for arrays); −0.0 becomes 0.0."""
     arr = np.round(np.asarray(a, dtype=float), decimals) + 0.0
     return arr.tolist() if arr.ndim else float(arr)
+
+
+def _hydro_section(h: Any) -> dict[str, Any]:
+    """A hydrostatic table's columns, rounded (even keel or at a trim: the same decimals)."""
+    return {
+        "draft_m": _r(h.draft_m, 4),
+        "displacement_t": _r(h.displacement_t, 2),
+        "lcb_m": _r(h.lcb_m, 4),
+        "lcf_m": _r(h.lcf_m, 4),
+        "kmt_m": _r(h.kmt_m, 4),
+        "tpc_t_cm": _r(h.tpc_t_cm, 4),
+        "mctc_tm_cm": _r(h.mctc_tm_cm, 4),
+        "vcb_m": _r(h.vcb_m, 4),
+        "kml_m": _r(h.kml_m, 3),
+    }
+
+
+def trimmed_sections(vt: VesselTables, at_trims: tuple[TableAtTrim, ...]) -> dict[str, Any]:
+    """``[[hydrostatics_at_trim]]`` / ``[[cross_curves_at_trim]]`` entries, and the fixed-trim
+    ``[cross_curves]`` at trim 0 they interpolate with (rounded as the even-keel tables)."""
+    g = vt.geometry
+    cc0 = kn_at_trim(hull_body(g), vt.cross_curves.displacement_t, vt.cross_curves.heel_deg, 0.0,
+                     g.vessel.table_density_t_m3, g.vessel.lbp_m)
+    return {
+        "cross_curves": {"trim_basis": cc0.trim_basis, "heel_deg": _r(cc0.heel_deg, 3),
+                         "displacement_t": _r(cc0.displacement_t, 2), "kn_m": _r(cc0.kn_m, 4)},
+        "hydrostatics_at_trim": [{"trim_m": _r(a.trim_m, 4), **_hydro_section(a.hydrostatics)} for a in at_trims],
+        "cross_curves_at_trim": [{"trim_m": _r(a.trim_m, 4), "heel_deg": _r(a.cross_curves.heel_deg, 3),
+                                  "displacement_t": _r(a.cross_curves.displacement_t, 2),
+                                  "kn_m": _r(a.cross_curves.kn_m, 4)} for a in at_trims],
+    }
 
 
 def generated_sections(vt: VesselTables) -> dict[str, Any]:
@@ -69,17 +109,7 @@ def generated_sections(vt: VesselTables) -> dict[str, Any]:
         "depth_m": _r(g.vessel.depth_m, 4),
         "table_density_t_m3": _r(g.vessel.table_density_t_m3, 4),
     }
-    out["hydrostatics"] = {
-        "draft_m": _r(h.draft_m, 4),
-        "displacement_t": _r(h.displacement_t, 2),
-        "lcb_m": _r(h.lcb_m, 4),
-        "lcf_m": _r(h.lcf_m, 4),
-        "kmt_m": _r(h.kmt_m, 4),
-        "tpc_t_cm": _r(h.tpc_t_cm, 4),
-        "mctc_tm_cm": _r(h.mctc_tm_cm, 4),
-        "vcb_m": _r(h.vcb_m, 4),
-        "kml_m": _r(h.kml_m, 3),
-    }
+    out["hydrostatics"] = _hydro_section(h)
     cc = vt.cross_curves
     out["cross_curves"] = {"trim_basis": cc.trim_basis}
     if cc.trim_basis == "free trim":
@@ -181,12 +211,13 @@ def _stamp_model_conventions(new: dict[str, Any], gen: dict[str, Any], vessel: d
     if x_other:
         stamp.update(longitudinal_datum="AP", longitudinal_positive="forward")
     targets = [new[k] for k in ("hydrostatics", "cross_curves") if k in gen and x_other]
+    targets += [e for e in new.get("hydrostatics_at_trim", []) if x_other and "hydrostatics_at_trim" in gen]
     for key in ("tank", "hold", "deck_area"):
         made = {e["id"] for e in gen.get(key, [])}
         targets += [e for e in new.get(key, []) if e.get("id") in made]
     for d in targets:
         d.update(stamp)
-        if y_other and d is not new.get("hydrostatics") and d is not new.get("cross_curves"):
+        if y_other and d is not new.get("hydrostatics") and d is not new.get("cross_curves") and "trim_m" not in d:
             d["transverse_positive"] = "starboard"
 
 
@@ -205,9 +236,14 @@ def merge_profile(existing: dict[str, Any] | None, gen: dict[str, Any], vt: Vess
     vessel.setdefault("design_draft_m", _r(gv.design_draft_m, 4))
     vessel.setdefault("longitudinal_datum", "AP")
     new["vessel"] = vessel
-    for key in ("hydrostatics", "cross_curves", "downflooding", "deck_edge", "windage"):
+    for key in ("hydrostatics", "cross_curves", "hydrostatics_at_trim", "cross_curves_at_trim", "downflooding",
+                "deck_edge", "windage"):
         if key in gen:
             new[key] = gen[key]
+    for key in ("hydrostatics_at_trim", "cross_curves_at_trim"):
+        if key not in gen and old.get(key):
+            notes.append(f"note: the profile's [[{key}]] tables are kept as they were, not recomputed from the "
+                         "geometry: give --trims to recompute them")
     for key, label in (("tank", "tank"), ("hold", "hold"), ("deck_area", "deck area")):
         if key not in gen:
             continue
@@ -304,21 +340,81 @@ def summary(vt: VesselTables) -> list[str]:
     return lines
 
 
-def build_profile_text(geometry_path: Path, existing_text: str | None, progress=None) -> tuple[str, list[str]]:
-    """The full profile text for a geometry and (optionally) an existing profile's text.
+def parse_trims(text: str) -> list[float]:
+    """``--trims`` as given: comma-separated numbers (m, + by the stern).  Raises ValueError naming
+    the value and the rule (finite, not 0, no repeats, at most MAX_TABLES_AT_TRIMS)."""
+    parts = [p.strip() for p in text.split(",")]
+    trims: list[float] = []
+    for p in parts:
+        try:
+            t = float(p)
+        except ValueError:
+            raise ValueError(f"--trims: {p!r} is not a number (give trims in m, + by the stern, "
+                             "separated by commas, e.g. -1,-0.5,0.5,1)") from None
+        if not np.isfinite(t):
+            raise ValueError(f"--trims: {p!r} must be a finite number of metres")
+        if abs(t) < 0.0005:
+            raise ValueError(f"--trims: {p!r}: trim 0 is the even-keel table, which is always written; "
+                             "give only the other trims")
+        if any(abs(t - u) < 0.0005 for u in trims):
+            raise ValueError(f"--trims: {p!r} is given twice (trims are written to the millimetre)")
+        trims.append(t)
+    if len(trims) > MAX_TABLES_AT_TRIMS:
+        raise ValueError(f"--trims: {len(trims)} trims, more than the {MAX_TABLES_AT_TRIMS} allowed "
+                         "(booklets print 4–10)")
+    return sorted(trims)
+
+
+def check_trims(trims: list[float], lbp_m: float, depth_m: float) -> None:
+    """Each trim within the vessel's bound, the profile reader's rule
+    (:func:`deckload.core.bounds.table_trim_range`).  Raises ValueError naming the value."""
+    rng = table_trim_range(Particulars("", lbp_m, 1.0, depth_m, 0.5 * depth_m))
+    for t in trims:
+        why = rng.rule(t)
+        if why is not None:
+            raise ValueError(f"--trims: {t:g} m is {why}")
+
+
+def build_profile_text(geometry_path: Path, existing_text: str | None, progress=None,
+                       trims: list[float] | None = None) -> tuple[str, list[str]]:
+    """The full profile text for a geometry and (optionally) an existing profile's text, with
+    tables at ``trims`` when given.
 
     Returns the text and notes for the user (tanks kept from the old profile, a summary).
     """
     geometry = load_geometry(geometry_path)
+    extra: list[str] = []
+    if trims:
+        check_trims(trims, geometry.vessel.lbp_m, geometry.vessel.depth_m)
     vt = build_tables(geometry, progress)
+    gen = generated_sections(vt)
+    if trims:
+        if progress is not None:
+            progress(f"hydrostatics and KN at {len(trims)} trim(s)")
+        g = geometry.vessel
+        at = tables_at_trims(hull_body(geometry), vt.hydrostatics.draft_m, vt.cross_curves.displacement_t,
+                             vt.cross_curves.heel_deg, trims, g.table_density_t_m3, g.lbp_m, g.depth_m)
+        gen.update(trimmed_sections(vt, at))
+        if vt.cross_curves.trim_basis != "even keel":
+            extra.append(f"[cross_curves] written at fixed trim 0 (trim_basis \"even keel\"), not "
+                         f"{vt.cross_curves.trim_basis!r} as the geometry asks: the KN at trims are fixed-trim KN "
+                         "and are interpolated in trim with it")
+        extra.append("hydrostatics and KN at trims " + ", ".join(f"{t:+g}" for t in trims) + " m (+ by the stern)")
     existing = tomllib.loads(existing_text) if existing_text is not None else None
-    doc, notes = merge_profile(existing, generated_sections(vt), vt)
-    return render(doc), notes + summary(vt)
+    doc, notes = merge_profile(existing, gen, vt)
+    return render(doc), notes + summary(vt) + extra
 
 
-def run_tables(geometry_path: Path, output_path: Path | None) -> int:
+def run_tables(geometry_path: Path, output_path: Path | None, trims_text: str | None = None) -> int:
     """The command: exit 0 when written, 1 on bad input (message on stderr)."""
     start = time.perf_counter()
+    trims = None
+    if trims_text is not None:
+        try:
+            trims = parse_trims(trims_text)
+        except ValueError as e:
+            print(f"deckload tables: {e}", file=sys.stderr)
+            return 1
 
     def progress(msg: str) -> None:
         print(f"deckload tables: {msg} ({time.perf_counter() - start:.1f} s)", file=sys.stderr, flush=True)
@@ -336,13 +432,13 @@ def run_tables(geometry_path: Path, output_path: Path | None) -> int:
                   file=sys.stderr)
             return 1
     try:
-        text, notes = build_profile_text(geometry_path, existing_text, progress)
+        text, notes = build_profile_text(geometry_path, existing_text, progress, trims)
     except GeometryError as e:
         print(f"deckload tables: {len(e.problems)} problem(s) in the geometry file:", file=sys.stderr)
         for p in e.problems:
             print(f"  {p}", file=sys.stderr)
         return 1
-    except (TableRangeError, NoEquilibriumError, ValueError) as e:
+    except (TableRangeError, NoEquilibriumError, TrimTableError, ValueError) as e:
         print(f"deckload tables: {geometry_path}: {e}", file=sys.stderr)
         return 1
     for n in notes:

@@ -360,3 +360,84 @@ def kn_for(vessel: Vessel, table_displacement_t: float, trim_m: float) -> np.nda
     if vessel.trimmed is None:
         return kn_curve(vessel.cross_curves, table_displacement_t)
     return kn_curve_at(vessel.trimmed, table_displacement_t, trim_m)
+
+
+@dataclass(frozen=True)
+class TablesBasis:
+    """Which tables a result was taken from, for the views (calc, report, screen)."""
+
+    trimmed: bool
+    """True when the profile has tables at trims (they were used for this result)."""
+    trim_m: float
+    """The trim they were looked up at (m, + by the stern): the equilibrium trim."""
+    hydro_trims_m: tuple[float, ...]
+    """The hydrostatic tables used: two (interpolated between), one (at, or held at, that table)."""
+    kn_trims_m: tuple[float, ...]
+    outside: bool
+    """True when the trim lies outside the trims of either set (the end table was held)."""
+    words: str
+    """One sentence (calc, report)."""
+    short: str
+    """A few words for the screen."""
+
+    def as_dict(self) -> dict:
+        return {"tables": "at trims" if self.trimmed else "even keel", "trim_m": self.trim_m,
+                "hydrostatics_trims_m": list(self.hydro_trims_m), "kn_trims_m": list(self.kn_trims_m),
+                "outside_tabulated_trims": self.outside, "text": self.words}
+
+
+def _used(trims: np.ndarray, trim: float) -> tuple[tuple[float, ...], bool]:
+    """The tables of one set a look-up at ``trim`` uses, and whether the trim is outside them."""
+    if len(trims) == 1:
+        return (float(trims[0]),), False
+    b = _beyond(trims, trim)
+    if b is not None:
+        return (float(trims[b[0]]),), True
+    j, f = _trim_bracket(trims, trim)
+    if f <= 1e-12:
+        return (float(trims[j]),), False
+    if f >= 1.0 - 1e-12:
+        return (float(trims[j + 1]),), False
+    return (float(trims[j]), float(trims[j + 1])), False
+
+
+def _t(x: float) -> str:
+    return "0.00" if abs(x) < 0.005 else f"{x:+.2f}"
+
+
+def _phrase(used: tuple[float, ...], outside: bool, only_even: bool) -> str:
+    if only_even:
+        return "from the even-keel table alone"
+    if len(used) == 2:
+        return f"interpolated between the tables at {_t(used[0])} and {_t(used[1])} m"
+    if outside:
+        return f"from the end table at {_t(used[0])} m (the trim is outside the trims tabulated)"
+    return f"from the table at {_t(used[0])} m"
+
+
+def _span(used: tuple[float, ...], outside: bool, only_even: bool) -> str:
+    if only_even:
+        return "even keel"
+    return "…".join(_t(u) for u in used) + " m" + (" (end)" if outside else "")
+
+
+def tables_basis(vessel: Vessel, trim_m: float) -> TablesBasis:
+    """Which hydrostatic and KN tables a condition at equilibrium trim ``trim_m`` was taken from
+    (the look-ups of :func:`hydro_at` and :func:`kn_row_at`, in words)."""
+    tt = vessel.trimmed
+    if tt is None:
+        return TablesBasis(False, trim_m, (0.0,), (0.0,), False,
+                           "even-keel hydrostatics and KN (the profile has no tables at trims)", "even keel only")
+    way = ("even keel" if abs(trim_m) < 0.005
+           else f"trim {abs(trim_m):.2f} m {'by the stern' if trim_m > 0 else 'by the head'}")
+    h, h_out = _used(tt.hydro_trim_m, trim_m)
+    k, k_out = _used(tt.kn_trim_m, trim_m)
+    h_even, k_even = len(tt.hydro_trim_m) == 1, len(tt.kn_trim_m) == 1
+    hp, kp = _phrase(h, h_out, h_even), _phrase(k, k_out, k_even)
+    if hp == kp:
+        words = f"hydrostatics and KN at {way}, {hp}"
+    else:
+        words = f"at {way}: hydrostatics {hp}; KN {kp}"
+    hs, ks = _span(h, h_out, h_even), _span(k, k_out, k_even)
+    short = f"at {_t(trim_m)} m: " + (hs if hs == ks else f"hyd {hs}, KN {ks}")
+    return TablesBasis(True, trim_m, h, k, h_out or k_out, words, short)

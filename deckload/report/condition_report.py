@@ -39,6 +39,7 @@ from deckload.core.free_surface import EXEMPT_RULE
 from deckload.report import verdict_format as vf
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
+from deckload.core.trimmed_tables import tables_basis
 
 CAUTION = (
     "CAUTION: deckload supports, and never replaces, the approved stability booklet, the master's "
@@ -127,6 +128,7 @@ def _header(result: Result, vessel: Vessel, condition: Condition, stamp: str | N
         f"load line: {condition.load_line}\n"
     )
     t.append(f"Free surface: {fs}; GZ correction: {gzc}\n")
+    t.append(f"Tables: {tables_basis(vessel, result.trim_m).words}\n")
     # What the profile assumed where its booklet gave less than the model needs (said plainly).
     said = list(vessel.assumptions)
     if result.gz_end_deg < 90.0:

@@ -168,7 +168,7 @@ class DeckloadApp(App[None]):
         await super().action_quit()
 
     def on_unmount(self) -> None:
-        self.session.flush()
+        self.session.stop_writer()
         if self.session.journal.logbook is not None:
             self.session.journal.logbook.close()  # releases the writer's lock for the next start
 

@@ -125,38 +125,6 @@ class PromptForm(Form):
         self.dismiss(value)
 
 
-class ItemFormScreen(Form):
-    """Name, mass and position of a deck load or constant; Enter in any field saves."""
-
-    FIELDS = (("name", "Name"), ("mass", "Mass (t)"), ("lcg", "LCG from AP, + fwd (m)"),
-              ("vcg", "VCG above keel (m)"), ("tcg", "TCG, + starboard (m)"), ("area", "Deck area id (optional)"))
-
-    def __init__(self, title: str, form: ItemForm, build: Callable[[ItemForm], Any], *, deck: bool):
-        super().__init__()
-        self._title, self._form, self._build, self._deck = title, form, build, deck
-
-    def compose(self) -> ComposeResult:
-        with Vertical(classes="form"):
-            yield Label(self._title, classes="form-title")
-            for name, label in self.FIELDS:
-                if name == "area" and not self._deck:
-                    continue
-                yield Label(label, classes="field-label")
-                yield Input(value=getattr(self._form, name), id=f"item-{name}", classes="field")
-            yield Label("Enter saves · Tab next field · Esc cancels", classes="form-hint")
-            yield Static("", id="form-message")
-
-    def on_input_submitted(self, event: Input.Submitted) -> None:
-        event.stop()
-        values = {n: self.query_one(f"#item-{n}", Input).value for n, _ in self.FIELDS if self._deck or n != "area"}
-        try:
-            value = self._build(ItemForm(**values))
-        except EntryError as exc:
-            self.refuse(str(exc))
-            return
-        self.dismiss(value)
-
-
 class RecordForm(Form):
     """Initials and a remark for recording the working condition in the log."""
 
@@ -202,7 +170,9 @@ class TankPicking:
     picks its last word, and Tab there takes the tank and stays for the next.
 
     The form gives ``TANK_FIELDS`` {input id: multi}, ``_want(field)`` (the tanks that fit that
-    field) and ``_update()`` (redraws the preview, calling ``_picker_lines`` first)."""
+    field) and ``_update()`` (redraws the preview, calling ``_picker_lines`` first).  A form
+    picking something else by id (the deck-item form's deck area) overrides ``_ids``,
+    ``_matches``, ``_choice`` and ``_noun``."""
 
     TANK_FIELDS: dict[str, bool] = {}
     _vessel: Vessel
@@ -211,6 +181,19 @@ class TankPicking:
 
     def _want(self, field: str):
         return None
+
+    def _ids(self, field: str):
+        """The ids ``field`` accepts (a text that is one needs no list)."""
+        return self._vessel.tank_index
+
+    def _matches(self, field: str, typed: str) -> list:
+        return entry.tank_matches(self._vessel, typed, self._want(field))
+
+    def _choice(self, field: str, item) -> str:
+        return entry.tank_choice(self._condition, item)
+
+    def _noun(self, field: str) -> str:
+        return "tank"
 
     def _tank_field(self) -> Input | None:
         f = self.focused
@@ -231,9 +214,9 @@ class TankPicking:
         typed = self._typed_word(field)
         if self.TANK_FIELDS[field.id] and not typed:
             return None
-        if typed.upper() in self._vessel.tank_index:
+        if typed.upper() in self._ids(field.id):
             return None
-        found = entry.tank_matches(self._vessel, typed, self._want(field.id))
+        found = self._matches(field.id, typed)
         if self.TANK_FIELDS[field.id]:  # a tank already listed is not offered again
             listed = {w.strip(",").upper() for w in field.value.split()[:-1]}
             found = [t for t in found if t.id not in listed]
@@ -247,16 +230,22 @@ class TankPicking:
             return None
         field = self._tank_field()
         typed = self._typed_word(field)
+        noun = self._noun(field.id)
+        if not found and not typed and noun == "tank":  # e.g. the only tank of that liquid is the one to fill, and it is empty
+            return [Text("No tank can serve here: none of that liquid holds any (to give) or has room (to take).",
+                         P["caution"])]
         if not found:
-            return [Text(f"No tank here matches {typed!r}: type part of an id, name or kind.", P["caution"])]
+            return [Text(f"No {noun} here matches {typed!r}: type part of an id or name"
+                         f"{' or kind' if noun == 'tank' else ''}.", P["caution"])]
         self._pick = max(0, min(self._pick, len(found) - 1))
-        head = Text(f"Tanks{' matching ' + repr(typed) if typed else ''} · ↑ ↓ choose · Tab or ⏎ takes it", P["head"])
+        head = Text(f"{noun.capitalize()}s{' matching ' + repr(typed) if typed else ''} · ↑ ↓ choose · Tab or ⏎ takes it",
+                    P["head"])
         rows = max(1, height - 1)
         top = max(0, min(self._pick - rows + 1, len(found) - rows)) if self._pick >= rows else 0
         out = [head]
         for i, t in enumerate(found[top: top + rows], start=top):
             mark = "›" if i == self._pick else " "
-            out.append(Text(f"{mark} " + entry.tank_choice(self._condition, t), P["value"] if i == self._pick else P["label"]))
+            out.append(Text(f"{mark} " + self._choice(field.id, t), P["value"] if i == self._pick else P["label"]))
         return [line if line.cell_len <= width or width < 2 else _cut(line, width) for line in out]
 
     def action_pick(self, step: int) -> None:
@@ -292,6 +281,94 @@ class TankPicking:
         self._update()
 
 
+class ItemFormScreen(TankPicking, Form):
+    """Name, mass and position of a deck load or constant; Enter in any field saves.  A deck
+    load's area field lists the vessel's deck areas that match what is typed, with the load
+    already on each and the room left under its permissible load (TankPicking); left blank,
+    the item stands on no stated area."""
+
+    BINDINGS = [Binding("up", "pick(-1)", "Previous area", show=False), Binding("down", "pick(1)", "Next area", show=False),
+                Binding("tab", "take_or_next", "Take / next field", show=False)]
+    FIELDS = (("name", "Name"), ("mass", "Mass (t)"), ("lcg", "LCG from AP, + fwd (m)"),
+              ("vcg", "VCG above keel (m)"), ("tcg", "TCG, + starboard (m)"), ("area", "Deck area id (optional)"))
+
+    def __init__(self, title: str, form: ItemForm, build: Callable[[ItemForm], Any], *, deck: bool,
+                 vessel: Vessel | None = None, condition: Condition | None = None):
+        super().__init__()
+        self._title, self._form, self._build, self._deck = title, form, build, deck
+        self._vessel, self._condition = vessel, condition
+        # Only a deck load with areas to choose from picks one; a blank area stays blank unless
+        # ↑ ↓ chose one (it is optional), so Tab and ⏎ there never put one in unasked.
+        self.TANK_FIELDS = {"item-area": False} if deck and vessel is not None and vessel.deck_areas else {}
+        self._chosen = False
+
+    def _ids(self, field: str):
+        return self._vessel.area_index
+
+    def _matches(self, field: str, typed: str) -> list:
+        return entry.area_matches(self._vessel, typed)
+
+    def _choice(self, field: str, item) -> str:
+        return entry.area_choice(self._condition, item)
+
+    def _noun(self, field: str) -> str:
+        return "deck area"
+
+    def _take(self) -> bool:
+        field = self._tank_field()
+        if field is not None and not field.value.strip() and not self._chosen:
+            return False
+        self._chosen = False
+        return super()._take()
+
+    def action_pick(self, step: int) -> None:
+        if self._choices():
+            self._chosen = True
+        super().action_pick(step)
+
+    def on_descendant_focus(self, event) -> None:
+        self._chosen = False
+        super().on_descendant_focus(event)
+
+    def compose(self) -> ComposeResult:
+        with Vertical(classes="form"):
+            yield Label(self._title, classes="form-title")
+            for name, label in self.FIELDS:
+                if name == "area" and not self._deck:
+                    continue
+                yield Label(label, classes="field-label")
+                yield Input(value=getattr(self._form, name), id=f"item-{name}", classes="field")
+            yield Label("Enter saves · Tab next field · Esc cancels", classes="form-hint")
+            if self.TANK_FIELDS:
+                yield LinePanel(id="area-picker")
+            yield Static("", id="form-message")
+
+    def on_input_changed(self, event: Input.Changed) -> None:
+        event.stop()
+        self._update()
+
+    def _update(self) -> None:
+        if not self.TANK_FIELDS or not self.is_mounted:
+            return
+        panel = self.query_one("#area-picker", LinePanel)
+        picking = self._picker_lines(int(panel.styles.height.value) if panel.styles.height else 5, panel.size.width)
+        panel.display = picking is not None
+        if picking is not None:
+            panel.set_lines(picking)
+
+    def on_input_submitted(self, event: Input.Submitted) -> None:
+        event.stop()
+        if self._take():  # ⏎ in the area field while one is being picked takes it; it saves nothing
+            return
+        values = {n: self.query_one(f"#item-{n}", Input).value for n, _ in self.FIELDS if self._deck or n != "area"}
+        try:
+            value = self._build(ItemForm(**values))
+        except EntryError as exc:
+            self.refuse(str(exc))
+            return
+        self.dismiss(value)
+
+
 class TransferForm(TankPicking, Form):
     """From-tank, to-tank and amount, with a live before/after preview; Enter commits.  The tank
     fields offer the tanks that match as they are typed (TankPicking)."""
@@ -302,8 +379,11 @@ class TransferForm(TankPicking, Form):
 
     def _want(self, field: str):
         c = self._condition
-        if field == "xfer-from":
-            return lambda t: entry.fill_volume_m3(t, c.tank_fill(t.id)) > 1e-6
+        if field == "xfer-from":  # tanks that hold some, of the receiving tank's liquid once it is named
+            dst = self.query_one("#xfer-to", Input).value.strip().upper()
+            kind = self._vessel.tank(dst).kind if dst in self._vessel.tank_index else None
+            return lambda t: (kind is None or t.kind == kind) and t.id != dst and \
+                entry.fill_volume_m3(t, c.tank_fill(t.id)) > 1e-6
         src = self.query_one("#xfer-from", Input).value.strip().upper()
         kind = self._vessel.tank(src).kind if src in self._vessel.tank_index else None
         return lambda t: (kind is None or t.kind == kind) and t.id != src and \

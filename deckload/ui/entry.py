@@ -23,6 +23,7 @@ from deckload.core.loading import LoadingError, level_of, over_limit, reading_ra
 from deckload.core.model import (
     LEVEL_QUANTITIES,
     Condition,
+    DeckArea,
     DeckItem,
     Hold,
     HoldLoad,
@@ -454,6 +455,28 @@ def tank_choice(condition: Condition, tank: Tank) -> str:
             f"{vol * rho:7.2f} t  room {room:7.2f} t  {tank.name}")
 
 
+def area_matches(vessel: Vessel, typed: str) -> list[DeckArea]:
+    """The deck areas a deck-area field offers as the officer types, as ``tank_matches``: id
+    starting with the text first, then id or name containing it; every area when nothing is typed."""
+    t = typed.strip().lower()
+    if not t:
+        return list(vessel.deck_areas)
+    first = [a for a in vessel.deck_areas if a.id.lower().startswith(t)]
+    return first + [a for a in vessel.deck_areas if a not in first and (t in a.id.lower() or t in a.name.lower())]
+
+
+def area_choice(condition: Condition, area: DeckArea) -> str:
+    """One line of the deck-area list: id, area, the deck items already on it and, where the
+    profile states a permissible uniform load, the room left under it (max_load_t_m2 × area_m2
+    less those items: the limit the deck-load check applies, core.stability), then the name."""
+    on = sum(d.mass_t for d in condition.deck_items if d.area_id == area.id)
+    if area.max_load_t_m2 is None:
+        room = "no load limit stated"
+    else:
+        room = f"room {area.max_load_t_m2 * area.area_m2 - on:7.1f} t (≤ {area.max_load_t_m2:.2f} t/m²)"
+    return f"{area.id:<10} {area.area_m2:6.1f} m²  on it {on:6.1f} t  {room}  {area.name}"
+
+
 def receiving_tank(vessel: Vessel, condition: Condition, from_id: str) -> str:
     """The transfer form's default to-tank: the partner if it has room, else the tank of the same
     liquid with the most room; '' when no tank of that liquid can take any."""
@@ -466,3 +489,17 @@ def receiving_tank(vessel: Vessel, condition: Condition, from_id: str) -> str:
         return src.pair
     others = [t for t in vessel.tanks if t.kind == src.kind and t.id != from_id and room(t) > 1e-6]
     return max(others, key=room).id if others else ""
+
+
+def giving_tank(vessel: Vessel, condition: Condition, to_id: str) -> str:
+    """The transfer form's default from-tank when the tank chosen to fill is empty: the partner if
+    it holds some, else the tank of the same liquid holding the most; '' when none holds any."""
+    dst = vessel.tank(to_id)
+
+    def held(t) -> float:
+        return fill_volume_m3(t, condition.tank_fill(t.id))
+
+    if dst.pair and dst.pair in vessel.tank_index and held(vessel.tank(dst.pair)) > 1e-6:
+        return dst.pair
+    others = [t for t in vessel.tanks if t.kind == dst.kind and t.id != to_id and held(t) > 1e-6]
+    return max(others, key=held).id if others else ""

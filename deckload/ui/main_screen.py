@@ -324,7 +324,7 @@ class LoadingScreen(Screen[None]):
             return self._with_items(deck, entry.replace_at(items, at, item)), item.name
 
         title = f"{'Edit' if index is not None else 'Add'} {noun}"
-        self.app.push_screen(ItemFormScreen(title, form, build, deck=deck),
+        self.app.push_screen(ItemFormScreen(title, form, build, deck=deck, vessel=s.vessel, condition=s.condition),
                              lambda r: r and self.commit(r[0], f"{title}: {r[1]}", "cargo" if deck else "edit", {noun: r[1]}))
 
     def _with_items(self, deck: bool, items: tuple) -> Condition:
@@ -399,8 +399,13 @@ class LoadingScreen(Screen[None]):
     def action_transfer(self) -> None:
         s = self.session
         what, ident = self._key
-        src = ident if what == "tank" else ""
-        dst = entry.receiving_tank(s.vessel, s.condition, src) if src else ""
+        src = dst = ""
+        if what == "tank":
+            tank = s.vessel.tank(ident)
+            if entry.fill_volume_m3(tank, s.condition.tank_fill(ident)) > 1e-6:
+                src, dst = ident, entry.receiving_tank(s.vessel, s.condition, ident)
+            else:  # an empty tank has nothing to give: the officer means to fill it, from a tank that holds some
+                src, dst = entry.giving_tank(s.vessel, s.condition, ident), ident
         form = TransferForm(s.vessel, s.condition, None if s.stale else s.result, s.preview, src, dst)
         self.app.push_screen(form, lambda plan: plan and self.commit(
             plan.condition, plan.label, "transfer",
@@ -618,7 +623,7 @@ class LoadingScreen(Screen[None]):
             try:
                 problems = self.session.save_as(name, path)
             except (OSError, EntryError) as exc:
-                self.say(f"NOT SAVED: {path}: {getattr(exc, 'strerror', None) or exc}", ok=False)
+                self.say(f"NOT SAVED ({getattr(exc, 'strerror', None) or exc}): {path}", ok=False)
                 return
             self.refresh_view()
             self.say(f"Saved as “{name}” in {path}")

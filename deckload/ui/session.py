@@ -513,8 +513,9 @@ class Session:
                 problems += self._persist(newest.condition, newest.kind, newest.label, newest.data,
                                           newest.result, save=True, log=False)
             except Exception as exc:  # not an OSError (those _persist words itself): still never silent
-                problems.append(f"NOT SAVED: {self.save_path}: {exc}. The change is on screen only; the next "
-                                "change tries again.")
+                # The reason first: on a narrow message line a long path is what gets cut, not why.
+                problems.append(f"NOT SAVED ({exc}): the change is on screen only; the next change tries "
+                                f"again. File: {self.save_path}")
         for w in batch:  # the log is a record: every entry, whatever became of the save
             if w.log:
                 problems += self._persist(w.condition, w.kind, w.label, w.data, w.result, save=False, log=True)
@@ -530,6 +531,17 @@ class Session:
                 self._cv.wait_for(lambda: self._outstanding == 0 and not self._draining)
         return problems
 
+    def stop_writer(self) -> list[str]:
+        """:meth:`flush`, then end the writer thread (the screen is closing); a change after this
+        is saved and logged at once on the caller's thread, as before :meth:`write_in_background`.
+        The thread holds the closing app (through the stderr it was started with), so a writer left
+        running would keep every app of the process alive."""
+        problems = self.flush()
+        if self._writer is not None:
+            self._writer.shutdown(wait=True)
+            self._writer = None
+        return problems
+
     def _persist(self, condition: Condition, kind: str, label: str, data: dict, result: Result | None,
                  save: bool = True, log: bool = True) -> list[str]:
         problems = []
@@ -539,8 +551,8 @@ class Session:
                 self._save(self.save_path, condition)
                 self.saves_written += 1
             except OSError as exc:
-                problems.append(f"NOT SAVED: {self.save_path}: {exc.strerror or exc}. The change is on screen "
-                                "only (the file holds the last condition saved); the next change tries again.")
+                problems.append(f"NOT SAVED ({exc.strerror or exc}): the change is on screen only (the file holds "
+                                f"the last condition saved); the next change tries again. File: {self.save_path}")
         err = self.journal.append(kind=kind, change_text=label, change_data=data, result=result,
                                   condition=condition) if log else None
         if err:

@@ -16,6 +16,7 @@ from deckload.core.deadweight import deadweight_by_kind
 from deckload.core.free_surface import EXEMPT_RULE
 from deckload.core.model import Condition, LIQUID_KINDS, Vessel
 from deckload.core.result import CriterionResult, Result
+from deckload.core.trimmed_tables import tables_basis
 from deckload.report.verdict_format import STATED_DENSITY_MARK, fmt_optional
 from deckload.ui.entry import fill_volume_m3, tank_density
 from deckload.ui.gzplot import GzChart, Mark
@@ -305,7 +306,8 @@ def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, st
     midships and the margin to the load-line mark in use; that mark's allowed midships draft in
     the water she floats in (letters as on the hull, S W T F TF WNA) and the dock-water allowance
     applied to it; KG, θf, KG fluid, FSC, GM fluid, KM (two pairs a line; 'n/a' where the result
-    has no value).  Lengths to the mm, angles to 0.1°."""
+    has no value); the tables used (even keel, or the tables at trims the trim was interpolated
+    between).  Lengths to the mm, angles to 0.1°."""
     compact = width < 44
     title = Text(" Afloat", P["title"])
     title.append(f"  ρ {condition.water_density_t_m3:.3f} t/m³", P["dim"])
@@ -339,6 +341,8 @@ def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, st
         line.append(" " if compact else "")
         _pair(line, *right, stale, compact)
         out.append(line)
+    # which hydrostatic and KN tables: even keel, or at trims and between which
+    out.append(Text(" Tables ", P["label"]) + Text(tables_basis(vessel, r.trim_m).short, P["dim"]))
     return out
 
 

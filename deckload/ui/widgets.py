@@ -24,6 +24,10 @@ from deckload.ui import views
 
 def _strip(text: Text, console) -> Strip:
     segments = [s for s in text.render(console) if s.text != "\n"]
+    if not text.spans and text.style:
+        # Text.render drops the base style of a line without spans (rich leaves it to the
+        # console); our message and verdict lines are exactly that, so it is applied here.
+        segments = list(Segment.apply_style(segments, console.get_style(text.style)))
     return Strip(segments, text.cell_len)
 
 
@@ -46,8 +50,8 @@ def _line_strip(text: Text, width: int, own: Style, console) -> Strip:
         return _strip(text, console).crop_extend(0, width, None).apply_style(own)
     segments: list[Segment] = []
     add = segments.append
-    if not spans:  # as rich renders it: the base style applies through spans only
-        add(Segment(plain, own))
+    if not spans:  # a line of one style ("✔ done", "no result"): its base style is its colour
+        add(Segment(plain, own + base))
     else:
         pos = 0
         own_base = own + base

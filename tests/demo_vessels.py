@@ -1,0 +1,29 @@
+"""The demo vessels, read once per test process.
+
+Reading and validating the Demo Islander's profile costs about 0.3 s of CPU (half of it the hull
+geometry file it names); forty-odd tests and fixtures used to read it again each time.  The model is
+immutable (frozen dataclasses, read-only arrays: ``deckload.core.model``), so one copy is safely
+shared by every test in the process, the way a session-scoped fixture would share it; these
+functions also serve helpers that are not fixtures.  A test of the reading itself (``test_profiles``,
+``test_ui_launch`` through ``load_inputs``, the command line) still reads the file.
+"""
+
+from __future__ import annotations
+
+import functools
+
+from deckload.core.model import Vessel
+from deckload.io import paths
+from deckload.io.profiles import load_profile
+
+
+@functools.cache
+def demo_vessel() -> Vessel:
+    """The Demo Islander as ``load_profile(paths.DEMO_PROFILE)`` reads it."""
+    return load_profile(paths.DEMO_PROFILE)
+
+
+@functools.cache
+def trawler_vessel() -> Vessel:
+    """The Demo Trawler as ``load_profile(paths.TRAWLER_PROFILE)`` reads it."""
+    return load_profile(paths.TRAWLER_PROFILE)
