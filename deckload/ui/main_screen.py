@@ -143,26 +143,40 @@ class LoadingScreen(Screen[None]):
         return verdict.criteria_lines(r, stale, w, h)
 
     def _title(self, width: int) -> Text:
-        """Vessel, condition, whether changes are logged, undo depth; shortened on narrow screens."""
+        """Vessel, condition, whether changes are logged, undo depth.  Shortened step by step until
+        it fits (narrow screens start at the third step): the program's name goes, then the log
+        and plan words are shortened, then 'modified from <name>' becomes '(modified)', then the
+        condition's name ends in '…'."""
+        level = 0 if width >= NARROW_BELOW else 3
+        t = self._title_text(level, None)
+        while t.cell_len > width and level < 3:
+            level += 1
+            t = self._title_text(level, None)
+        if t.cell_len > width:
+            name = self.session.condition.name
+            t = self._title_text(level, views.fit(name, max(8, len(name) - (t.cell_len - width))))
+        return cut(t, width)
+
+    def _title_text(self, level: int, name: str | None) -> Text:
         s, j = self.session, self.session.journal
-        wide = width >= NARROW_BELOW
-        t = Text(" deckload │ " if wide else " ", P["title"])
-        t.append(f"{s.vessel.particulars.name} │ {s.condition.name}", P["value"])
+        t = Text(" deckload │ " if level < 1 else " ", P["title"])
+        t.append(f"{s.vessel.particulars.name} │ {name or s.condition.name}", P["value"])
         if s.condition.modified_from:
-            t.append(f" (modified from {s.condition.modified_from})" if wide else " (modified)", P["caution"])
+            t.append(f" (modified from {s.condition.modified_from})" if level < 3 else " (modified)", P["caution"])
         t.append(" │ ", P["value"])
+        words = level < 2
         if j.writable and j.officer:
-            t.append(f"watch {j.officer}, logged" if wide else f"{j.officer} logged", P["dim"])
+            t.append(f"watch {j.officer}, logged" if words else f"{j.officer} logged", P["dim"])
         elif j.writable:
-            t.append("changes NOT logged: o to sign on" if wide else "NOT logged (o)", P["caution"])
+            t.append("changes NOT logged: o to sign on" if words else "NOT logged (o)", P["caution"])
         else:
-            t.append(f"log off: {j.problem or 'no log'}" if wide else "log off", P["caution"])
+            t.append(f"log off: {j.problem or 'no log'}" if words else "log off", P["caution"])
         if s.planning:
-            t.append(f" │ PLAN ({s.plan_steps}, not logged: x to apply or discard)" if wide else " │ PLAN", P["caution"])
+            t.append(f" │ PLAN ({s.plan_steps}, not logged: x to apply or discard)" if words else " │ PLAN", P["caution"])
         t.append(f" │ undo {s.undo_depth} redo {s.redo_depth}", P["dim"])
         if s.saves_pending:
             # The edit is on screen but not yet on disk: say so until the writer has saved it.
-            t.append(" │ saving…" if wide else " saving…", P["caution"])
+            t.append(" │ saving…" if level < 3 else " saving…", P["caution"])
         return t
 
     def _save_landed(self) -> None:
@@ -687,13 +701,33 @@ class LoadingScreen(Screen[None]):
             keys = " · ⏎ set · + − · f full · e empty · t transfer" if not self.has_class("-narrow") else ""
             self.say(f"{t.id} {t.name} · {t.capacity_m3:.1f} m³{rho} · FSM: {why}{keys}", ok=None)
         elif what == "hold":
-            self.say(f"{ident} {self.session.vessel.hold(ident).name} · ⏎ cargo mass · + − 1 t · e empty", ok=None)
+            # the whole of what the board shortens with '…' (name, what is stowed, the limit)
+            hold = self.session.vessel.hold(ident)
+            load = next((h for h in self.session.condition.holds if h.hold_id == ident), None)
+            limit = f" of {hold.max_mass_t:g} t" if hold.max_mass_t is not None else ""
+            stowed = f" · {load.description}" if load is not None and load.description else ""
+            keys = " · ⏎ cargo mass · + − 1 t · e empty" if not self.has_class("-narrow") else ""
+            self.say(f"{ident} {hold.name} · {load.mass_t if load else 0.0:.2f} t{limit}{stowed}{keys}", ok=None)
         elif what in ("deck", "const"):
-            self.say("⏎ edit mass and position · + − 1 t · e remove · a add deck load · c add constant", ok=None)
+            items = self.session.condition.deck_items if what == "deck" else self.session.condition.constants
+            keys = (" · ⏎ edit mass and position · + − 1 t · e remove · a add deck load · c add constant"
+                    if not self.has_class("-narrow") else "")
+            self.say(f"{item_summary(items[ident])}{keys}", ok=None)
         elif what == "fixed":
-            self.say("A fixed constant of the vessel profile: to change it for this condition, add a constant (c) of the same name.", ok=None)
+            self.say(f"{item_summary(self.session.vessel.constants[ident])} · a fixed constant of the vessel "
+                     f"profile: to change it for this condition, add a constant (c) of the same name.", ok=None)
         elif what == "dwt":
             self.say(DWT_HINT if not self.has_class("-narrow") else DWT_HINT_NARROW, ok=None)
+
+
+def item_summary(item) -> str:
+    """A deck load or constant in full, as the board cannot always show it: name, mass, centre of
+    gravity (x from the aft perpendicular, z above keel, side as P/S) and deck area."""
+    area = getattr(item, "area_id", None)
+    side = "on the centreline" if round(abs(item.tcg_m), 2) == 0 else \
+        f"{abs(item.tcg_m):.2f} m {'S' if item.tcg_m > 0 else 'P'}"
+    return (f"{item.name} · {item.mass_t:.2f} t at x {item.lcg_m:.2f} m, z {item.vcg_m:.2f} m, {side}"
+            + (f" · on {area}" if area else ""))
 
 
 DWT_HINT_NARROW = "Deadweight by kind: sums of the lines above (cargo: holds, deck, liquid cargo)"

@@ -80,27 +80,64 @@ RHO_COL_FROM = 56
 """Board width from which each tank's density has a column of its own."""
 STATED_MARK = STATED_DENSITY_MARK
 """Beside a tank id: the density was stated for this condition (a bunker delivery note)."""
+ID_MIN, ID_MAX = 5, 8
+"""Cells for the tank id: at least five, more (up to eight) when the profile's ids are longer."""
+
+
+def fit(text: str, width: int) -> str:
+    """``text`` in exactly ``width`` cells: padded, or shortened with '…' (never cut silently)."""
+    if width <= 0:
+        return ""
+    t = Text(text)
+    t.truncate(width, overflow="ellipsis", pad=True)
+    return t.plain
 
 
 @dataclass(frozen=True)
 class TankCols:
+    """The board's columns: mark, id, ◆, fill bar, %, m³, t, (ρ), FSM, *.  Every row that has a
+    mass ends it at ``t_end``, so tanks, group totals, holds, deck loads, constants and the
+    deadweight read down one column."""
+
     bar: int
     rho: bool
+    id_w: int = ID_MIN
+    width: int = 0
 
     @staticmethod
-    def for_width(width: int) -> "TankCols":
+    def for_width(width: int, id_w: int = ID_MIN) -> "TankCols":
         rho = width >= RHO_COL_FROM
-        fixed = 1 + 1 + 5 + 1 + 1 + 6 + 8 + 8 + (6 if rho else 0) + 7 + 1
-        return TankCols(bar=max(4, min(24, width - fixed)), rho=rho)
+        id_w = max(ID_MIN, min(ID_MAX, id_w))
+        # a longer id takes cells from the bar, never below four of them
+        id_w = max(ID_MIN, min(id_w, width - TankCols._fixed(0, rho) - 4))
+        return TankCols(bar=max(4, min(24, width - TankCols._fixed(id_w, rho))), rho=rho, id_w=id_w, width=width)
+
+    @staticmethod
+    def _fixed(id_w: int, rho: bool) -> int:
+        return 1 + 1 + id_w + 1 + 1 + 6 + 8 + 8 + (6 if rho else 0) + 7 + 1
+
+    @property
+    def t_end(self) -> int:
+        """The cell after the last of the t column."""
+        return 1 + 1 + self.id_w + 1 + self.bar + 1 + 6 + 8 + 8
+
+    @property
+    def t_start(self) -> int:
+        return self.t_end - 8
+
+    @property
+    def tail(self) -> int:
+        """Cells after the t column (ρ, FSM and * on a tank's row)."""
+        return max(0, self.width - self.t_end)
 
 
 def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stale: bool, width: int) -> list[Row]:
     """Every line of the loading board: tanks grouped by liquid kind (each group under a heading
     line of its own, with its total mass in the t column), then holds, deck loads, constants,
     and the deadweight by kind."""
-    cols = TankCols.for_width(width)
+    cols = TankCols.for_width(width, max((len(t.id) for t in vessel.tanks), default=ID_MIN))
     by_id = {t.id: t for t in result.tanks} if result is not None and not stale else {}
-    head = Text(" " * 9 + "fill".ljust(cols.bar + 1) + "     %      m³       t" + ("     ρ" if cols.rho else "")
+    head = Text(" " * (cols.id_w + 3) + "fill".ljust(cols.bar + 1) + "     %      m³       t" + ("     ρ" if cols.rho else "")
                 + "    FSM", P["head"])
     rows: list[Row] = [Row(None, head)]
     for kind in BOARD_ORDER:
@@ -114,7 +151,7 @@ def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stal
             stated = fill is not None and fill.density_t_m3 is not None
             if tr is not None:
                 # An exempt slack tank shows "ex" with its moment at the actual level (not counted).
-                fsm = f" ex{tr.fsi_m4 * tr.density_t_m3:4.1f}" if tr.fs_rule == EXEMPT_RULE else tr.fsm_tm
+                fsm = exempt_fsm(tr.fsi_m4 * tr.density_t_m3) if tr.fs_rule == EXEMPT_RULE else tr.fsm_tm
                 values = (tr.fill_pct, tr.volume_m3, tr.mass_t, tr.density_t_m3, fsm, tr.state,
                           tr.fs_rule.startswith(("assumed", "variable", "nominally full cargo")))
             else:  # stale: amounts from the condition itself, no FSM
@@ -125,7 +162,7 @@ def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stal
         rows.append(Row(None, _group_line(KIND_TITLE.get(kind, kind), sum(v[2] for _, _, v in lines), cols)))
         for tank, stated, values in lines:
             rows.append(Row(("tank", tank.id), _tank_line(tank.id, stated, *values, kind, cols, stale)))
-    rows.extend(_cargo_rows(vessel, condition, width))
+    rows.extend(_cargo_rows(vessel, condition, cols))
     if result is not None:
         rows.extend(deadweight_rows(result, stale, cols))
     return rows
@@ -133,11 +170,14 @@ def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stal
 
 def _group_line(title: str, total_t: float, cols: TankCols) -> Text:
     """' Fuel oil ……… Σ 21.28': the group's heading, its total under the tanks' t column."""
-    left = 1 + 7 + cols.bar + 1 + 6 + 8  # everything before the t column
-    name = f" {title}"
-    line = Text(name, P["group"])
-    line.append(" " * max(1, left - len(name)) + f"Σ{total_t:7.2f}", P["group"])
-    return line
+    return Text(fit(f" {title}", cols.t_start - 1) + f" Σ{total_t:7.2f}", P["group"])
+
+
+def exempt_fsm(fsm_tm: float) -> str:
+    """'ex' and the exempt tank's moment at its actual level, in the FSM column's seven cells
+    (whole t·m when a tenth would not fit: never cut)."""
+    text = f" ex{fsm_tm:4.1f}"
+    return text if len(text) <= 7 else f"ex{fsm_tm:.0f}".rjust(7)
 
 
 @functools.lru_cache(maxsize=1024)
@@ -146,7 +186,7 @@ def _tank_line(tid, stated, pct, vol, mass, rho, fsm, state, by_rule, kind, cols
     the Text is shared, so it is never modified after it is made."""
     worst = state == "worst_band"
     line = Text(STATE_MARK.get(state, "?"), P["danger"] if worst else P["label"])
-    line.append(f" {tid:<5.5}", P["value"])
+    line.append(" " + fit(tid, cols.id_w), P["value"])
     line.append(STATED_MARK if stated else " ", P["caution"])
     bar_style = P["bar.worst"] if worst else P[KIND_BAR.get(kind, "bar.other")]
     line.append(fill_bar(pct, cols.bar), P["stale"] if stale else bar_style)
@@ -166,53 +206,73 @@ def _tank_line(tid, stated, pct, vol, mass, rho, fsm, state, by_rule, kind, cols
 def deadweight_rows(result: Result, stale: bool, cols: TankCols) -> list[Row]:
     """The deadweight by kind (cargo, each liquid, stores and constants) under a heading, and the
     deadweight they add up to, each under the tanks' t column."""
-    left = 1 + 7 + cols.bar + 1 + 6 + 8
     style = P["stale"] if stale else P["value"]
     rows = [Row(None, Text(" Deadweight by kind" + (" (last good)" if stale else ""), P["group"]))]
     for line in deadweight_by_kind(result):
-        text = Text(f"  {line.title:<{left - 2}.{left - 2}}", P["label"])
-        text.append(f"{line.mass_t:8.2f} t", style)
+        text = Text("  " + fit(line.title, cols.t_start - 3), P["label"])
+        text.append(f" {line.mass_t:8.2f} t", style)
         rows.append(Row(("dwt", line.kind), text))
-    total = Text(f"  {'Deadweight':<{left - 3}.{left - 3}}", P["label"])
+    total = Text("  " + fit("Deadweight", cols.t_start - 3), P["label"])
     total.append(f"Σ{result.deadweight_t:8.2f} t", style)
     rows.append(Row(("dwt", "total"), total))
     return rows
 
 
-def _cargo_rows(vessel: Vessel, condition: Condition, width: int) -> list[Row]:
-    """Holds, deck loads and constants, each line tagged with its group (no heading: rows are precious)."""
-    name_w = max(8, min(30, width - 38))
+def _cargo_rows(vessel: Vessel, condition: Condition, cols: TankCols) -> list[Row]:
+    """Holds, deck loads and constants, each line tagged with its group (no heading: rows are
+    precious), the mass in the tanks' t column; what does not fit the name cells ends in '…' and
+    the message line gives it whole when the cursor is on the row."""
     rows: list[Row] = []
     loads = {h.hold_id: h for h in condition.holds}
     for hold in vessel.holds:
         load = loads.get(hold.id)
-        line = Text(" hold  ", P["label"])
-        line.append(f"{hold.id + ' ' + hold.name:<{name_w}.{name_w}}", P["value"])
-        line.append(f"{(load.mass_t if load else 0.0):8.1f} t", P["value"])
-        if hold.max_mass_t is not None:
-            line.append(f"  of {hold.max_mass_t:g} t", P["dim"])
-        if load and load.description:
-            line.append(f"  {load.description}", P["dim"])
-        rows.append(Row(("hold", hold.id), line))
+        name = f"{hold.id} {hold.name}" + (f": {load.description}" if load and load.description else "")
+        # the hold's limit: the first spelling that fits the cells after the mass
+        limit = [] if hold.max_mass_t is None else [f" of {hold.max_mass_t:g} t", f" of {hold.max_mass_t:g}"]
+        rows.append(Row(("hold", hold.id), _mass_line("hold", name, load.mass_t if load else 0.0, limit, cols, one=True)))
     for i, item in enumerate(condition.deck_items):
-        rows.append(Row(("deck", i), _item_line("deck ", item, getattr(item, "area_id", None), name_w)))
+        rows.append(Row(("deck", i), _mass_line("deck", item.name, item.mass_t, _position(item, getattr(item, "area_id", None)), cols)))
     for i, item in enumerate(condition.constants):
-        rows.append(Row(("const", i), _item_line("const", item, None, name_w)))
+        rows.append(Row(("const", i), _mass_line("const", item.name, item.mass_t, _position(item, None), cols)))
     # The profile's fixed constants this condition does not replace (read-only here).
     own = {c.name for c in condition.constants}
     for i, item in enumerate(vessel.constants):
         if item.name not in own:
-            rows.append(Row(("fixed", i), _item_line("fixed", item, None, name_w)))
+            rows.append(Row(("fixed", i), _mass_line("fixed", item.name, item.mass_t, _position(item, None), cols)))
     return rows
 
 
-def _item_line(tag: str, item, area: str | None, name_w: int) -> Text:
-    line = Text(f" {tag} ", P["label"])
-    line.append(f"{item.name:<{name_w}.{name_w}}", P["value"])
-    line.append(f"{item.mass_t:8.1f} t", P["value"])
-    line.append(f"  x{item.lcg_m:5.1f} z{item.vcg_m:4.1f} y{item.tcg_m:+4.1f}", P["dim"])
-    if area:
-        line.append(f" {area}", P["dim"])
+def side_offset(tcg_m: float) -> str:
+    """'1.6S', '1.6P' or 'CL': a transverse position as magnitude and side (to 0.1 m)."""
+    if round(abs(tcg_m), 1) == 0:
+        return "CL"
+    return f"{abs(tcg_m):.1f}{'S' if tcg_m > 0 else 'P'}"
+
+
+def _position(item, area: str | None) -> list[str]:
+    """An item's centre of gravity (x from the aft perpendicular, z above keel, side), then its deck area."""
+    parts = [f" x{item.lcg_m:5.1f} z{item.vcg_m:4.1f}", f" y {side_offset(item.tcg_m)}"]
+    return parts + ([f" {area}"] if area else [])
+
+
+def _mass_line(tag: str, name: str, mass_t: float, after: list[str], cols: TankCols, one: bool = False) -> Text:
+    """' deck  20 ft container, bu…   14.00  x  6.5 z 5.8': tag, name shortened with '…', the mass
+    ending where the tanks' t column ends, then as many of ``after`` (in order) as fit the cells
+    left (``one``: only the first of them that fits, they are spellings of one note)."""
+    line = Text(f" {tag:<5} ", P["label"])
+    line.append(fit(name, cols.t_start - 8), P["value"])
+    line.append(f" {mass_t:8.2f}", P["value"])
+    room = cols.tail
+    tail = ""
+    if one:
+        tail = next((a for a in after if len(a) <= room), "")
+    else:
+        for part in after:
+            if len(tail) + len(part) > room:
+                break
+            tail += part
+    if tail:
+        line.append(tail, P["dim"])
     return line
 
 

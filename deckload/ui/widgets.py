@@ -251,10 +251,12 @@ class LoadBoard(ScrollView, can_focus=True):
         old, self.cursor = self.cursor, i
         self._refresh_rows({old, i})
         top, height = int(self.scroll_offset.y), self.scrollable_content_region.height
+        # force: a key typed ahead arrives before the first layout has shown the scroll bar, and
+        # textual ignores a scroll while there is none (the cursor would stay off screen)
         if i < top + (1 if i > 1 else 0):
-            self.scroll_to(y=max(0, i - 1), animate=False)
+            self.scroll_to(y=max(0, i - 1), animate=False, force=True)
         elif height and i >= top + height:
-            self.scroll_to(y=i - height + 1, animate=False)
+            self.scroll_to(y=i - height + 1, animate=False, force=True)
         if announce:
             self.post_message(self.CursorMoved(self.cursor_key))
 
