@@ -20,12 +20,26 @@ def test_preview_shows_sides_not_signs_and_drafts_aft_mid_fwd():
     lines = [ln.plain for ln in preview_lines(before, after, None)]
     lst = next(ln for ln in lines if ln.startswith("List"))
     assert f"{abs(before.list_deg):.1f} P" in lst and f"{after.list_deg:.1f} S" in lst
-    assert f"{after.list_deg - before.list_deg:.1f} S" in lst  # moved towards starboard
+    assert lst.startswith("List, °")  # the unit with the label, never after a side letter
+    assert f"{after.list_deg - before.list_deg:.2f} to S" in lst  # moved towards starboard
     assert "-" not in lst
     trim = next(ln for ln in lines if ln.startswith("Trim"))
-    assert "A" in trim and "-" not in trim.split("Trim")[1].split("m")[0]
+    assert trim.startswith("Trim, m") and "A" in trim and "-" not in trim
     drafts = [ln.split()[1] for ln in lines if ln.startswith("Draft")]
     assert drafts == ["aft", "mid", "fwd"]
+
+
+def test_a_change_smaller_than_the_shown_precision_is_not_shown_as_a_contradiction():
+    """List 0.12° P before and 0.07° P after both read "0.1 P"; the change, 0.05° towards
+    starboard, reads "0.05 to S" (one more decimal), not "0.1 S" beside two port readings."""
+    import dataclasses
+
+    v = demo_vessel()
+    r = evaluate(v, load_condition(paths.DEMO_CONDITIONS["departure"], v))
+    before = dataclasses.replace(r, list_deg=-0.12)
+    after = dataclasses.replace(r, list_deg=-0.07)
+    lst = next(ln.plain for ln in preview_lines(before, after, None) if ln.plain.startswith("List"))
+    assert lst.split()[2:] == ["0.1", "P", "0.1", "P", "0.05", "to", "S"]
 
 
 def test_log_details_use_sides_and_draft_order():

@@ -474,24 +474,30 @@ def preview_lines(before: Result | None, after: Result | None, problem: str | No
         line.append(f" {unit}", P["unit"])
         out.append(line)
 
-    def sided(label: str, get: Callable[[Result], float], unit: str, digits: int, plus: str, minus: str) -> None:
-        """Magnitudes with their side (P/S, A/F), the change as the distance moved towards a side."""
-        def cell(x: float | None, w: int) -> str:
+    def sided(label: str, get: Callable[[Result], float], unit: str, digits: int, plus: str, minus: str,
+              change_digits: int) -> None:
+        """Magnitudes with their side (P/S, A/F); the change as the distance moved towards a side
+        ("0.05 to S"), to ``change_digits`` so that two readings rounding alike (0.1 P, 0.1 P) never
+        show a change that reads as a contradiction ("0.1 S").  The unit goes with the label, not
+        after a side letter."""
+        def cell(x: float | None, w: int, nd: int, to: str = "") -> str:
             if x is None:
                 return f"{'—':>{w}}"
-            side = "" if round(abs(x), digits) == 0 else (plus if x > 0 else minus)
-            return f"{abs(x):.{digits}f} {side or ' '}".rjust(w)
+            side = "" if round(abs(x), nd) == 0 else (plus if x > 0 else minus)
+            if to:
+                return (f"{abs(x):.{nd}f} to {side}" if side else f"{0.0:.{nd}f}     ").rjust(w)
+            return f"{abs(x):.{nd}f} {side or ' '}".rjust(w)
         b = get(before) if before is not None else None
         a = get(after) if after is not None else None
-        line = Text(f"{label:<14}", P["label"])
-        line.append(cell(b, 10) + cell(a, 12) + cell(a - b if a is not None and b is not None else None, 10),
+        line = Text(f"{label + ', ' + unit:<14}", P["label"])
+        change = a - b if a is not None and b is not None else None
+        line.append(cell(b, 10, digits) + cell(a, 12, digits) + cell(change, 15, change_digits, to="to"),
                     P["value"])
-        line.append(f" {unit}", P["unit"])
         out.append(line)
 
     row("GM fluid", lambda r: r.gm_fluid_m, "m")
-    sided("Trim", lambda r: r.trim_m, "m", 3, "A", "F")
-    sided("List", lambda r: r.list_deg, "°", 1, "S", "P")
+    sided("Trim", lambda r: r.trim_m, "m", 3, "A", "F", 3)
+    sided("List", lambda r: r.list_deg, "°", 1, "S", "P", 2)
     row("Draft aft", lambda r: r.draft_aft_m, "m")
     row("Draft mid", lambda r: r.draft_mean_m, "m")
     row("Draft fwd", lambda r: r.draft_fwd_m, "m")
