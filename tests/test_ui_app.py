@@ -217,6 +217,9 @@ async def test_every_command_is_on_a_key_in_help_and_in_the_palette(app):
         plain = con.export_text()
         for c in COMMANDS:
             assert c.help.split()[0] in plain and c.name in plain
+        # each row names its own key: Raise is "+", never the footer's shared "+ -"
+        raise_row = next(ln for ln in plain.splitlines() if "Raise 1 %" in ln)
+        assert raise_row.split()[0] == "+" and "+ -" not in raise_row
         assert "never replaces, the approved stability booklet" in plain
 
 

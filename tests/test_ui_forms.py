@@ -114,7 +114,7 @@ async def test_every_command_is_reachable_from_the_key_line_or_the_help_it_names
         page = console.export_text()
         for c in COMMANDS:
             on_line = f"{c.key_text} {c.label}" in bottom
-            assert on_line or (c.key_text in page and c.help[:30] in " ".join(page.split())), c.action
+            assert on_line or (c.own_key in page and c.help[:30] in " ".join(page.split())), c.action
 
 
 async def test_a_long_caution_is_wrapped_whole_at_80_columns_and_a_cut_one_says_so(app):

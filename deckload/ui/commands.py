@@ -41,12 +41,18 @@ class Command:
     @property
     def palette_title(self) -> str:
         """'Print report — report, print (key p)': the name, the words a mate would type, this one key."""
-        key = _KEY_SIGNS.get(self.keys.split(",")[0], self.keys.split(",")[0])
-        return f"{self.name}{' — ' + self.words if self.words else ''}  (key {key})"
+        return f"{self.name}{' — ' + self.words if self.words else ''}  (key {self.own_key})"
 
     @property
     def key_text(self) -> str:
         return self.display or self.keys.split(",")[0]
+
+    @property
+    def own_key(self) -> str:
+        """This command's own first key, as the help page and the palette write it: the footer's
+        shared form ("+ -") would read there as if both keys did this one thing."""
+        first = self.keys.split(",")[0]
+        return _KEY_SIGNS.get(first, first)
 
 
 COMMANDS: tuple[Command, ...] = (
