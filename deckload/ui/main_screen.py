@@ -773,15 +773,19 @@ def gz_title_lines(result, width: int) -> list[Text]:
         title = Text(" GZ", P["title"]).append_text(title[len(" GZ curve"):])
     if title.cell_len <= width:
         return [title]
-    # Two lines broken between its parts (two spaces apart), not inside one ("zero at | 55.9°");
-    # where the parts do not pack into two lines, wrapped by words.
+    # Lines broken between its parts (two spaces apart), never inside one ("max 0.374 | m at 29.2°"):
+    # packed greedily into at most three lines; only a part wider than the panel is wrapped by words.
     text = title.plain
-    breaks = [i for i in range(1, len(text)) if text.startswith("  ", i)]
-    first = [i for i in breaks if i <= width]
-    if first and len(text) - first[-1] - 1 <= width:
-        at = first[-1]
-        return [title[:at], title[at + 1:]]  # the second line keeps one of the two spaces as its margin
-    return fit_lines(title, width, 2)
+    breaks = [i for i in range(1, len(text)) if text.startswith("  ", i)] + [len(text)]
+    lines, start = [], 0
+    while start < len(text) and len(lines) < 3:
+        fits = [b for b in breaks if start < b and b - start <= width]
+        if not fits:
+            return fit_lines(title, width, 2)
+        end = fits[-1]
+        lines.append(title[start:end])
+        start = end + 1  # the next line keeps one of the two spaces as its margin
+    return lines if start >= len(text) else fit_lines(title, width, 2)
 
 
 def alert_lines(alerts: list[views.Alert], height: int, width: int | None = None) -> list[Text]:
