@@ -141,6 +141,16 @@ async def test_key_b_shows_the_wind_and_roll_plot(tmp_path, size):
             assert panel(app, "gz").startswith(" GZ ")  # the plain curve's title again
         else:  # narrow: b again goes back to the numbers
             assert not gz.display and app.screen.query_one("#criteria").display
+            # b then g: g leaves the plot, and the message line no longer names it
+            await pilot.press("b")
+            await pilot.pause()
+            await pilot.press("g")
+            await pilot.pause()
+            status = panel(app, "status")
+            assert not gz.display and "Wind and roll plot" not in status and "criteria" in status
+            await pilot.press("g")
+            await pilot.pause()
+            assert gz.display and panel(app, "gz").startswith(" GZ")  # the plain curve, not the wind plot
 
 
 async def test_key_b_says_why_when_the_weather_criterion_was_not_assessed(tmp_path):

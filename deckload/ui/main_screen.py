@@ -507,6 +507,12 @@ class LoadingScreen(Screen[None]):
 
     def action_toggle_gz(self) -> None:
         self.toggle_class("-gz")
+        if self.has_class("-narrow") and not self.has_class("-gz") and self.has_class("-wind"):
+            # Leaving the curve panel leaves the wind and roll plot too, so that the message line
+            # never goes on naming a plot that is no longer on the screen.
+            self.set_class(False, "-wind")
+            self.refresh_view()
+            self.say("Afloat and criteria panels: g for the GZ curve", ok=None)
 
     def action_wind_plot(self) -> None:
         """The curve panel between the plain GZ curve and the weather criterion (narrow: shows the curve)."""
