@@ -14,7 +14,7 @@ from __future__ import annotations
 
 import pytest
 
-from deckload.core.criteria import Measures, evaluate_criteria, extra_criterion_result
+from deckload.core.criteria import CRITERIA_SETS, Measures, evaluate_criteria, extra_criterion_result
 from deckload.core.model import ExtraCriterion
 
 # A curve that meets every IS 2008 A 2.2 criterion with room to spare.
@@ -88,3 +88,31 @@ def test_profile_criteria_include_their_limit_and_say_when_they_cannot_be_assess
 @pytest.mark.parametrize("code", ["IS2008-A2.2", "IS2008-B2.1", "IS2008-B2.4.5"])
 def test_every_set_names_its_criteria_by_set(code):
     assert {r.set_id for r in evaluate_criteria(code, AMPLE)} == {code}
+
+
+@pytest.mark.parametrize("angle, remark", [(30.0, True), (29.9, True), (30.5, False), (35.0, False)])
+def test_the_preference_for_a_maximum_beyond_30_degrees_is_remarked_up_to_30_degrees(angle, remark):
+    """A 2.2.3: "preferably exceeding 30° but not less than 25°": a maximum at 30.0° or below
+    passes with the remark, one beyond 30° passes without it."""
+    m = Measures(**{**AMPLE.__dict__, "max_gz_angle_deg": angle})
+    r = _by_suffix(evaluate_criteria("IS2008-A2.2", m), "angle-max-gz")
+    assert r.passed
+    assert r.note == ("passes, but IS 2008 A 2.2.3 prefers the maximum beyond 30°" if remark else "")
+
+
+def test_the_offshore_supply_area_limit_names_the_angle_it_was_taken_for():
+    """B 2.4.5 (standards.md §3.3, [M]; checks.md row 30): area to θmax ≥ 0.055 + 0.001·(30° − θmax),
+    so 0.060 m·rad at θmax 25°; the criterion says for which θmax."""
+    m = Measures(**{**AMPLE.__dict__, "max_gz_angle_deg": 25.0, "area_0_max_mrad": 0.060})
+    r = _by_suffix(evaluate_criteria("IS2008-B2.4.5", m), "area-0-max")
+    assert r.limit == pytest.approx(0.060, abs=1e-12) and r.passed
+    assert r.note == "limit for θmax 25.0°"
+
+
+def test_an_assessed_profile_criterion_carries_its_words_and_unit():
+    ec = ExtraCriterion("max_wind_heel", 16.0, "Flag notice 1/2026 para 4")
+    r = extra_criterion_result(0, ec, 12.5)
+    assert (r.description, r.value, r.limit, r.unit, r.comparison, r.passed) == (
+        "Heel under the steady wind lw1 (θ0)", 12.5, 16.0, "deg", "<=", True)
+    assert r.source == "Flag notice 1/2026 para 4"
+    assert r.set_id and r.set_id not in CRITERIA_SETS  # a set of its own, never an IS Code set
