@@ -81,7 +81,7 @@ def test_profile_criteria_include_their_limit_and_say_when_they_cannot_be_assess
     missing = extra_criterion_result(1, gz_at, None, "the KN tables end at 30°")
     assert (missing.description, missing.value, missing.limit, missing.source, missing.note) == (
         "GZ at 40°", 0.0, 0.25, "Flag notice 1/2026 para 3", "the KN tables end at 30°")
-    assert (missing.passed, missing.assessed) == (False, False)
+    assert (missing.passed, missing.assessed, missing.unit, missing.comparison) == (False, False, "m", ">=")
     assert extra_criterion_result(1, gz_at, None).note == ""
 
 
