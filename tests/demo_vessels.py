@@ -23,6 +23,14 @@ def demo_vessel() -> Vessel:
     return load_profile(paths.DEMO_PROFILE)
 
 
+def demo_departure():
+    """The Demo Islander and her stock departure condition, as the screen tests start from."""
+    from deckload.io.profiles import load_condition
+
+    v = demo_vessel()
+    return v, load_condition(paths.DEMO_CONDITIONS["departure"], v)
+
+
 @functools.cache
 def trawler_vessel() -> Vessel:
     """The Demo Trawler as ``load_profile(paths.TRAWLER_PROFILE)`` reads it."""

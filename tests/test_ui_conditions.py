@@ -10,20 +10,18 @@ import pytest
 
 from deckload.io import paths
 from deckload.io.condition_files import ConditionNotFound, resolve
-from deckload.core.model import TankFill
 from deckload.logbook import Logbook
 from deckload.io.profiles import load_condition
 from deckload.ui.conditions import OpenConditionScreen, ReportWritten, SaveAsForm
 from deckload.ui.launch import create_app
 from deckload.ui.session import Session
 from deckload.ui.widgets import LinePanel
-from demo_vessels import demo_vessel
+from demo_vessels import demo_departure
 
 
 @pytest.fixture(scope="module")
 def demo():
-    v = demo_vessel()
-    return v, load_condition(paths.DEMO_CONDITIONS["departure"], v)
+    return demo_departure()
 
 
 @pytest.fixture

@@ -18,15 +18,14 @@ from deckload.io.profiles import load_condition
 from deckload.ui.dialogs import ItemFormScreen, TransferForm
 from deckload.ui.launch import create_app
 from deckload.ui.widgets import LinePanel
-from demo_vessels import demo_vessel, trawler_vessel
+from demo_vessels import demo_departure, trawler_vessel
 
 _NAMES = {"%": "percent_sign", ".": "full_stop", " ": "space"}
 
 
 @pytest.fixture(scope="module")
 def demo():
-    v = demo_vessel()
-    return v, load_condition(paths.DEMO_CONDITIONS["departure"], v)
+    return demo_departure()
 
 
 @pytest.fixture

@@ -9,18 +9,16 @@ from __future__ import annotations
 import pytest
 
 from deckload.io import paths
-from deckload.io.profiles import load_condition
 from deckload.ui.conditions import PlanEndForm
 from deckload.ui.launch import create_app
 from deckload.ui.session import Session, run_text
 from deckload.ui.widgets import LoadBoard
-from demo_vessels import demo_vessel
+from demo_vessels import demo_departure
 
 
 @pytest.fixture(scope="module")
 def demo():
-    v = demo_vessel()
-    return v, load_condition(paths.DEMO_CONDITIONS["departure"], v)
+    return demo_departure()
 
 
 @pytest.fixture

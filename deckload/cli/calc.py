@@ -142,18 +142,28 @@ def direct_comparison(profile_path: Path, vessel, result: Result):
         return 1
 
 
+def load_evaluate_compare(profile_path: Path, condition_path: Path, direct: bool):
+    """:func:`load_and_evaluate`, then (with ``direct``) :func:`direct_comparison`: returns
+    ``(vessel, condition, result, comparison or None)``, or the exit status of the first refusal."""
+    loaded = load_and_evaluate(profile_path, condition_path)
+    if isinstance(loaded, int):
+        return loaded
+    vessel, condition, result = loaded
+    cmp = direct_comparison(profile_path, vessel, result) if direct else None
+    if isinstance(cmp, int):
+        return cmp
+    return vessel, condition, result, cmp
+
+
 def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False, direct: bool = False) -> int:
     """Load, evaluate and print; exit 0 when computed (pass or fail), non-zero on bad input.
 
     With ``direct`` the direct calculation from the hull geometry is printed beside the
     tables' result (the profile must name its ``hull_geometry``)."""
-    loaded = load_and_evaluate(profile_path, condition_path)
+    loaded = load_evaluate_compare(profile_path, condition_path, direct)
     if isinstance(loaded, int):
         return loaded
-    vessel, _, result = loaded
-    cmp = direct_comparison(profile_path, vessel, result) if direct else None
-    if isinstance(cmp, int):
-        return cmp
+    vessel, _, result, cmp = loaded
     basis = tables_basis(vessel, result.trim_m)
     if as_json:
         import json

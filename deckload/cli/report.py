@@ -25,16 +25,13 @@ def run_report(profile_path: Path, condition_path: Path, html: bool, output: Pat
     Exit 0 when written (whether or not the criteria pass), 1 on bad input, 2 when a
     file cannot be read or written.
     """
-    from deckload.cli.calc import direct_comparison, load_and_evaluate
+    from deckload.cli.calc import load_evaluate_compare
     from deckload.logbook import clock_stamp
 
-    loaded = load_and_evaluate(profile_path, condition_path)
+    loaded = load_evaluate_compare(profile_path, condition_path, direct)
     if isinstance(loaded, int):
         return loaded
-    vessel, condition, result = loaded
-    comparison = direct_comparison(profile_path, vessel, result) if direct else None
-    if isinstance(comparison, int):
-        return comparison
+    vessel, condition, result, comparison = loaded
     stamp = clock_stamp()
     source = Path(condition_path).name + _log_anchor_text(vessel.particulars.name)
     if html:

@@ -47,18 +47,24 @@ class UprightHydrostatics:
     """Integration rule along the stations: 'simpson' or 'trapezoid'."""
 
 
+def waterplane(im) -> tuple[np.ndarray, np.ndarray, np.ndarray, np.ndarray, np.ndarray]:
+    """Volume, waterplane area, LCF and the waterplane's transverse and longitudinal second
+    moments about its own centroid (parallel-axis theorem: I = I_origin − A·x̄²) of an immersion."""
+    awp = im.wp_area_m2
+    lcf = im.wp_x_m3 / awp
+    ybar = im.wp_eta_m3 / awp
+    it = im.wp_etaeta_m4 - awp * ybar**2
+    il = im.wp_xx_m4 - awp * lcf**2
+    return im.volume_m3, awp, lcf, it, il
+
+
 def upright_hydrostatics(
     body: Body, draft_m: np.ndarray, density_t_m3: float, lbp_m: float, breadth_m: float
 ) -> UprightHydrostatics:
     """The hydrostatic table at the given drafts (formulas in the module docstring)."""
     d = np.asarray(draft_m, dtype=float)
     im = immerse(body, np.ones_like(d), np.zeros_like(d), d)
-    vol = im.volume_m3
-    awp = im.wp_area_m2
-    lcf = im.wp_x_m3 / awp
-    ybar = im.wp_eta_m3 / awp
-    it = im.wp_etaeta_m4 - awp * ybar**2
-    il = im.wp_xx_m4 - awp * lcf**2
+    vol, awp, lcf, it, il = waterplane(im)
     vcb = im.zeta_b_m
     return UprightHydrostatics(
         draft_m=d,

@@ -28,6 +28,7 @@ import numpy as np
 
 from deckload.core.geometry.body import Body, immerse
 from deckload.core.geometry.cross_curves import solve_floating
+from deckload.core.geometry.hydrostatics_calc import waterplane
 from deckload.core.model import CrossCurves, HydrostaticTable, frozen_array
 
 MIN_ROWS = 2
@@ -42,11 +43,7 @@ def hydrostatics_at_trim(body: Body, drafts_m, trim_m: float, density_t_m3: floa
     """The hydrostatic table at mean drafts ``drafts_m`` (at midships) and trim ``trim_m`` (module docstring)."""
     d = np.asarray(drafts_m, dtype=float)
     im = immerse(body, np.ones_like(d), np.zeros_like(d), d, trim_m / lbp_m, lbp_m / 2.0)
-    vol, awp = im.volume_m3, im.wp_area_m2
-    lcf = im.wp_x_m3 / awp
-    ybar = im.wp_eta_m3 / awp
-    it = im.wp_etaeta_m4 - awp * ybar**2
-    il = im.wp_xx_m4 - awp * lcf**2
+    vol, awp, lcf, it, il = waterplane(im)
     kb = im.zeta_b_m
     return HydrostaticTable(
         draft_m=frozen_array(d), displacement_t=frozen_array(density_t_m3 * vol), lcb_m=frozen_array(im.x_b_m),
