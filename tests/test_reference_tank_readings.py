@@ -187,6 +187,12 @@ def test_volume_of_at_and_beyond_the_capacity():
     assert volume_of(t, "mass_t", 12.75, 0.85) == pytest.approx(15.0, abs=EXACT)
     assert volume_of(t, "mass_t", 6.375, 0.85) == pytest.approx(7.5, abs=EXACT)
     assert volume_of(t, "percent", 40.0, 0.85) == pytest.approx(6.0, abs=EXACT)
+    # an empty tank and a small amount are amounts too (0 % and 0.5 % = 0.075 m³; 0 m³; 0 t)
+    assert volume_of(t, "percent", 0.0, 0.85) == 0.0
+    assert volume_of(t, "percent", 0.5, 0.85) == pytest.approx(0.075, abs=EXACT)
+    assert volume_of(t, "volume_m3", 0.0, 0.85) == 0.0
+    assert volume_of(t, "mass_t", 0.0, 0.85) == 0.0
+    assert volume_of(t, "mass_t", 0.5, 0.85) == pytest.approx(0.5 / 0.85, abs=EXACT)
     for quantity, value, message in (
         ("mass_t", 12.8, "tank W: 15.06 m³ exceeds its capacity of 15.00 m³"),
         ("volume_m3", 15.01, "tank W: 15.01 m³ exceeds its capacity of 15.00 m³"),
@@ -209,6 +215,9 @@ def test_round_off_allowance_of_a_stated_amount():
     assert volume_of(wedge(), "volume_m3", 15.0 + 1e-8, 0.85) == 15.0  # allowance 1.5e-8 on 15 m³
     with pytest.raises(LoadingError):
         volume_of(wedge(), "volume_m3", 15.0 + 3e-8, 0.85)
+    # "is the limit itself": on a capacity just below the table's top (the loader allows 0.05 %), 100 %
+    # + 5e-8 is exactly the capacity, not 5e-10 of it more
+    assert volume_of(wedge(capacity_m3=14.995), "percent", 100.0 + 5e-8, 0.85) == pytest.approx(14.995, abs=EXACT)
 
 
 def test_resolve_tanks_keeps_profile_order_and_refuses_unknown_ids():
