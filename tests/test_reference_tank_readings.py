@@ -218,6 +218,7 @@ def test_round_off_allowance_of_a_stated_amount():
     # "is the limit itself": on a capacity just below the table's top (the loader allows 0.05 %), 100 %
     # + 5e-8 is exactly the capacity, not 5e-10 of it more
     assert volume_of(wedge(capacity_m3=14.995), "percent", 100.0 + 5e-8, 0.85) == pytest.approx(14.995, abs=EXACT)
+    assert volume_of(wedge(capacity_m3=14.995), "volume_m3", 14.995 + 1e-8, 0.85) == 14.995
 
 
 def test_resolve_tanks_keeps_profile_order_and_refuses_unknown_ids():
