@@ -290,3 +290,14 @@ def test_level_soundings_prefers_the_booklet_without_a_list():
     _, (cs,), _ = level_soundings(v, c.replace(sounding_list_deg=2.0))
     assert cs.method == GEOMETRY
     assert cs.volume_m3 == pytest.approx(16.0, abs=ROUND)  # case 1: the pipe on the centreline, y_p = y_c
+
+
+def test_level_soundings_reads_the_booklet_from_the_sounding_zero():
+    """Sounding zero 0.05 m above the bottom, booklet correction columns (−0.125·t): the reading 0.5 m
+    (level 0.55 m) at +0.8 m is corrected by −0.1 m to 0.4 m as read, the level 0.45 m, 4·10·0.45 = 18 m³."""
+    v = sounded_vessel(trim_correction=columns("sounding_correction_m"), sounding_zero_m=0.05)
+    c = Condition(tanks=(TankFill("DB1", "sounding_m", 0.5),), sounding_trim_m=0.8)
+    out, (cs,), _ = level_soundings(v, c)
+    assert (cs.method, cs.even_keel_m, cs.volume_m3) == (BOOKLET, pytest.approx(0.4, abs=ROUND),
+                                                        pytest.approx(18.0, abs=ROUND))
+    assert out.tanks[0].value == pytest.approx(0.4, abs=ROUND)

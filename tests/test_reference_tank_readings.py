@@ -238,23 +238,26 @@ def test_weight_sums_by_hand():
 
     | item | w (t) | x | z | y |
     |---|---|---|---|---|
-    | lightship | 400 | 20 | 3 | 0 |
+    | lightship | 400 | 20 | 3 | 0.1 |
     | hold | 60 | 12 | 2 | −1 |
     | wedge at s = 1 m (3.75 m³ × 0.8 t/m³) | 3 | 32.5 | 7/6 | 1.5 |
 
     Δ = 463 t; Σw·x = 8000 + 720 + 97.5 = 8817.5; Σw·z = 1200 + 120 + 3.5 = 1323.5;
-    Σw·y = −60 + 4.5 = −55.5.  LCG = 19.04428, KG = 2.85853, TCG = −0.119870 m.
+    Σw·y = 40 − 60 + 4.5 = −15.5.  LCG = 19.04428, KG = 2.85853, TCG = −0.0334773 m.
     """
-    items = [ItemResult("lightship", "LS", "Lightship", 400.0, 20.0, 3.0, 0.0),
+    items = [ItemResult("lightship", "LS", "Lightship", 400.0, 20.0, 3.0, 0.1),
              ItemResult("hold", "H1", "Hold 1", 60.0, 12.0, 2.0, -1.0)]
     tank = resolve_tank(wedge(), TankFill("W", "sounding_m", 0.9, density_t_m3=0.8))
     w = sum_weights(items, [tank])
     assert (w.mass_t, w.lcg_m, w.vcg_m, w.tcg_m) == pytest.approx(
-        (463.0, 8817.5 / 463.0, 1323.5 / 463.0, -55.5 / 463.0), abs=EXACT)
-    assert (w.lcg_m, w.vcg_m, w.tcg_m) == pytest.approx((19.04428, 2.85853, -0.119870), abs=5e-6)
+        (463.0, 8817.5 / 463.0, 1323.5 / 463.0, -15.5 / 463.0), abs=EXACT)
+    assert (w.lcg_m, w.vcg_m, w.tcg_m) == pytest.approx((19.04428, 2.85853, -0.0334773), abs=5e-6)
 
 
 def test_nothing_aboard_is_refused():
     with pytest.raises(LoadingError) as e:
         sum_weights([], [])
     assert str(e.value) == "total displacement is zero or negative"
+    # only nothing (or less) is refused: half a tonne sums like any other mass
+    w = sum_weights([ItemResult("constant", "c1", "Spares", 0.5, 10.0, 2.0, 0.0)], [])
+    assert (w.mass_t, w.lcg_m, w.vcg_m) == (0.5, 10.0, 2.0)
