@@ -220,11 +220,12 @@ TRIMS = [-1.0, -0.5, 0.5, 1.0]
 SOUNDINGS = [0.3, 0.5, 0.7]
 
 
-def columns(kind: str) -> TrimCorrection:
+def columns(kind: str, zero: float = 0.0) -> TrimCorrection:
+    """The columns for a sounding zero ``zero`` m above the bottom: the reading s is the level s + zero."""
     if kind == "sounding_correction_m":
         value = [[-0.125 * t for t in TRIMS] for _ in SOUNDINGS]
     else:
-        value = [[40.0 * (s - 0.125 * t) for t in TRIMS] for s in SOUNDINGS]
+        value = [[40.0 * (s + zero - 0.125 * t) for t in TRIMS] for s in SOUNDINGS]
     return TrimCorrection(frozen_array(TRIMS), frozen_array(SOUNDINGS), frozen_array(value), kind)
 
 
@@ -241,12 +242,13 @@ def test_booklet_columns_interpolated_in_sounding_and_trim(kind, s, trim, level)
 
 
 @pytest.mark.parametrize("kind", ["sounding_correction_m", "volume_m3"])
-def test_booklet_columns_read_from_the_sounding_zero(kind):
-    """A sounding zero 0.05 m above the bottom: the columns are for the observed sounding (0.5 m, the
-    level 0.55 m); the volume columns hold 40·(0.5 − 0.125·t) whatever the zero, the correction columns
-    give the level 0.55 − 0.1 = 0.45 m."""
-    got = booklet_level(tank(trim_correction=columns(kind), sounding_zero_m=0.05), 0.5, 0.8)
-    level = 0.45 if kind == "sounding_correction_m" else 0.4
+@pytest.mark.parametrize("trim, level", [(0.8, 0.45), (0.25, 0.51875), (-0.25, 0.58125)])
+def test_booklet_columns_read_from_the_sounding_zero(kind, trim, level):
+    """A sounding zero 0.05 m above the bottom: the columns are for the observed sounding, 0.5 m, the
+    level 0.55 m, so the even-keel level is 0.55 − 0.125·t (0.45 m at +0.8, 0.51875 m at +0.25,
+    0.58125 m at −0.25) and the volume 40 times it.  Between trim 0 and the ±0.5 m columns, trim 0
+    is the calibration at the level 0.55 m."""
+    got = booklet_level(tank(trim_correction=columns(kind, 0.05), sounding_zero_m=0.05), 0.5, trim)
     assert got == pytest.approx((level, 40.0 * level), abs=ROUND)
 
 
