@@ -22,6 +22,7 @@ from textual.screen import Screen
 from deckload.core.model import Condition
 from deckload.ui import entry, verdict, views
 from deckload.ui.commands import bindings, footer_keys
+from deckload.ui.compositor import RowCompositor
 from deckload.ui.dialogs import HelpScreen, TextScreen, ItemFormScreen, PromptForm, RecordForm, TransferForm
 from deckload.ui.entry import EntryError, ItemForm
 from deckload.ui.palette import P
@@ -41,6 +42,7 @@ class LoadingScreen(Screen[None]):
 
     def __init__(self, session: Session):
         super().__init__()
+        self._compositor = RowCompositor()  # a key repaints only the rows it changed (ui/compositor.py)
         self.session = session
         self._settle_timer = None
         self._criteria_made: tuple | None = None

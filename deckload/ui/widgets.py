@@ -77,6 +77,12 @@ class LinePanel(Widget):
 
     The panel's own style (``rich_style``, a walk up the parents) is read once per render
     pass, not once per line; the finished lines are kept until their text or that style changes.
+
+    textual's partial update renders every widget that overlaps the box around all the regions
+    to repaint, each whole: after a key that changes the title and the message line that is every
+    panel.  A panel nothing has marked dirty since its last render (textual's own line cache
+    would give the same lines) hands back the strips it gave then: same crop, size, background
+    and line filters, else it renders as usual.
     """
 
     def __init__(self, *, id: str | None = None, classes: str | None = None):
@@ -85,6 +91,8 @@ class LinePanel(Widget):
         self._strips: dict[int, Strip] = {}
         self._style: Style | None = None
         self._width: int | None = None
+        self._painted: tuple[tuple, list[Strip]] | None = None
+        """(what the strips were rendered for, the strips) of the last render, until marked dirty."""
 
     @property
     def lines(self) -> list[Text]:
@@ -109,16 +117,29 @@ class LinePanel(Widget):
     def plain(self) -> str:
         return "\n".join(t.plain for t in self._lines)
 
+    def _set_dirty(self, *regions: Region) -> None:
+        # Every repaint textual asks for comes here (refresh, scroll, style updates).
+        self._painted = None
+        super()._set_dirty(*regions)
+
     def render_lines(self, crop: Region) -> list[Strip]:
+        app = self.app
+        made_for = (crop, self.size, self.background_colors,
+                    tuple((f, f.enabled) for f in app._filters), app.ansi_theme)
+        painted = self._painted
+        if painted is not None and painted[0] == made_for:
+            return list(painted[1])
         # Style and width once for every line of this pass: each is a walk up the parents.
         style, self._width = self.rich_style, self.size.width
         if style != self._style:
             self._style = style
             self._strips.clear()
         try:
-            return super().render_lines(crop)
+            strips = super().render_lines(crop)
         finally:
             self._width = None
+        self._painted = (made_for, strips)
+        return list(strips)
 
     def render_line(self, y: int) -> Strip:
         if self._width is None:  # called outside a render pass
