@@ -15,6 +15,7 @@ import random
 import pytest
 from textual._compositor import Compositor
 from textual.geometry import Region
+from textual.widget import Widget
 
 from deckload.io import paths
 from deckload.io.profiles import load_condition
@@ -88,3 +89,13 @@ async def test_row_updates_write_what_textual_would(app):
         for panel in screen.query(LinePanel):
             if panel.display and panel.size.area:
                 assert _shown(panel) == [t.plain.rstrip()[:panel.size.width] for t in panel.lines], panel.id
+                # The panels draw their lines without textual's per-line border and padding walk
+                # (LinePanel._bare_lines): segment for segment what textual's own way gives.
+                assert panel._plain_box(), panel.id
+                w, h = panel.size
+                for crop in (Region(0, 0, w, h), Region(3, 0, w - 5, h), Region(0, h - 1, w, 1)):
+                    panel._painted = None
+                    mine = [list(s) for s in panel.render_lines(crop)]
+                    panel._styles_cache.clear()
+                    theirs = [list(s) for s in Widget.render_lines(panel, crop)]
+                    assert mine == theirs, (panel.id, crop)

@@ -106,10 +106,11 @@ class LinePanel(Widget):
             self.refresh()
             return
         width = self.size.width
-        for y, (a, b) in enumerate(zip(old, lines)):
-            if a != b:
-                self._strips.pop(y, None)
-                self.refresh(Region(0, y, width, 1))
+        changed = [Region(0, y, width, 1) for y, (a, b) in enumerate(zip(old, lines)) if a != b]
+        for r in changed:
+            self._strips.pop(r.y, None)
+        if changed:  # one refresh for all of them: each call is a walk through textual's bookkeeping
+            self.refresh(*changed)
 
     def on_resize(self) -> None:
         self._strips.clear()
@@ -124,8 +125,8 @@ class LinePanel(Widget):
 
     def render_lines(self, crop: Region) -> list[Strip]:
         app = self.app
-        made_for = (crop, self.size, self.background_colors,
-                    tuple((f, f.enabled) for f in app._filters), app.ansi_theme)
+        colours = self.background_colors
+        made_for = (crop, self.size, colours, tuple((f, f.enabled) for f in app._filters), app.ansi_theme)
         painted = self._painted
         if painted is not None and painted[0] == made_for:
             return list(painted[1])
@@ -135,11 +136,40 @@ class LinePanel(Widget):
             self._style = style
             self._strips.clear()
         try:
-            strips = super().render_lines(crop)
+            strips = self._bare_lines(crop, colours[1]) if self._plain_box() else super().render_lines(crop)
         finally:
             self._width = None
         self._painted = (made_for, strips)
         return list(strips)
+
+    def _plain_box(self) -> bool:
+        """True when textual would put this panel's lines on the screen as they are: no border,
+        padding, outline, tint, hatch, opacity or text opacity, no border title, no scroll bar
+        and no link under the mouse (the panels' styles in deckload.tcss)."""
+        st = self.styles
+        return (not any(st.gutter) and not any(kind for kind, _ in st.outline) and not st.tint.a
+                and st.text_opacity == 1.0 and not st.has_rule("hatch") and self.opacity == 1.0
+                and self._border_title is None and self._border_subtitle is None
+                and not (self.auto_links and self.hover_style._link_id)
+                and self.content_region.size == self.size)
+
+    def _bare_lines(self, crop: Region, background) -> list[Strip]:
+        """What textual's line cache (``StylesCache.render_widget``) gives for a plain box (see
+        :meth:`_plain_box`): each content line as it is, through the app's line filters, cropped
+        to the columns asked for; without its per-line walk through every border, padding and
+        outline rule (most of the cost of a changed line).  The filters' results are kept on the
+        finished strips, so an unchanged line is filtered once."""
+        filters = self.app.get_line_filters()
+        strips = []
+        for y in crop.line_range:
+            strip = self.render_line(y)
+            for f in filters:
+                strip = strip.apply_filter(f, background)
+            strips.append(strip)
+        x1, x2 = crop.column_span
+        if (x1, x2) != (0, self.size.width):
+            strips = [strip.crop(x1, x2) for strip in strips]
+        return strips
 
     def render_line(self, y: int) -> Strip:
         if self._width is None:  # called outside a render pass
@@ -248,9 +278,12 @@ class LoadBoard(ScrollView, can_focus=True):
 
     def _refresh_rows(self, indices) -> None:
         top, width = int(self.scroll_offset.y), self.scrollable_content_region.width
+        regions = []
         for i in indices:
             self._strips.pop(i, None)
-            self.refresh(Region(0, i - top, width, 1))
+            regions.append(Region(0, i - top, width, 1))
+        if regions:
+            self.refresh(*regions)
 
     def action_move(self, delta: int) -> None:
         start = max(0, min(len(self.rows) - 1, self.cursor + delta))
