@@ -21,6 +21,7 @@ It uses textual's compositor internals (``_dirty_regions``, ``_regions_to_spans`
 
 from __future__ import annotations
 
+from bisect import bisect_left
 from typing import Iterable
 
 from textual._compositor import ChopsUpdate, Compositor
@@ -62,15 +63,17 @@ class RowCompositor(Compositor):
             yield from super()._get_renders(crop)
             return
         overlaps = crop.overlaps
+        ys = sorted(rows)
         for widget, (region, clip) in list(self.visible_widgets.items()):
             if not overlaps(clip):
                 continue
             shown = region.intersection(clip)
             left, right = shown.x, shown.right
-            # Inclusive at both ends: a span ending where the widget starts still takes it
-            # (renders a little more than needed, never less).
-            band = [y for y in range(shown.y, shown.bottom)
-                    if any(x1 <= right and x2 >= left for x1, x2 in rows.get(y, ()))]
+            # The rows to repaint inside the widget's rows that cross its columns; inclusive at
+            # both ends: a span ending where the widget starts still takes it (renders a little
+            # more than needed, never less).
+            band = [y for y in ys[bisect_left(ys, shown.y):bisect_left(ys, shown.bottom)]
+                    if any(x1 <= right and x2 >= left for x1, x2 in rows[y])]
             if not band or not shown.width:
                 continue
             top, bottom = band[0], band[-1] + 1

@@ -33,6 +33,20 @@ def _strip(text: Text, console) -> Strip:
 
 _NULL = Style.null()
 
+_SUMS: dict[tuple[Style, Style], Style] = {}
+"""``a + b`` of rich styles, kept: the panels combine a handful of palette styles (ui/palette.py)
+over and over, and rich's ``Style.__add__`` is a method call, type checks and a cache lookup each time."""
+
+
+def _plus(a: Style, b: Style) -> Style:
+    key = (a, b)
+    got = _SUMS.get(key)
+    if got is None:
+        if len(_SUMS) > 4096:  # a bound, in case styles were made without end (not our panels)
+            _SUMS.clear()
+        got = _SUMS[key] = a + b
+    return got
+
 
 def _line_strip(text: Text, width: int, own: Style, console) -> Strip:
     """``text`` as one line ``width`` cells wide on the panel's style ``own``: what
@@ -51,10 +65,10 @@ def _line_strip(text: Text, width: int, own: Style, console) -> Strip:
     segments: list[Segment] = []
     add = segments.append
     if not spans:  # a line of one style ("✔ done", "no result"): its base style is its colour
-        add(Segment(plain, own + base))
+        add(Segment(plain, _plus(own, base)))
     else:
         pos = 0
-        own_base = own + base
+        own_base = _plus(own, base)
         for span in spans:
             start, end, style = span
             if start < pos or not isinstance(style, Style):
@@ -63,7 +77,7 @@ def _line_strip(text: Text, width: int, own: Style, console) -> Strip:
                 continue
             if start > pos:
                 add(Segment(plain[pos:start], own_base))
-            add(Segment(plain[start:end], own + (base + style)))
+            add(Segment(plain[start:end], _plus(own, _plus(base, style))))
             pos = end
         if pos < len(plain):
             add(Segment(plain[pos:], own_base))
