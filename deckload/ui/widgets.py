@@ -140,7 +140,8 @@ class LinePanel(Widget):
     def render_lines(self, crop: Region) -> list[Strip]:
         app = self.app
         colours = self.background_colors
-        made_for = (crop, self.size, colours, tuple((f, f.enabled) for f in app._filters), app.ansi_theme)
+        # (A change of theme restyles, and so marks dirty, every widget.)
+        made_for = (crop, self.size, colours, tuple((f, f.enabled) for f in app._filters))
         painted = self._painted
         if painted is not None and painted[0] == made_for:
             return list(painted[1])
