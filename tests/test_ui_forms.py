@@ -17,7 +17,7 @@ from deckload.io import paths
 from deckload.io.profiles import load_condition
 from deckload.ui.dialogs import ItemFormScreen, TransferForm
 from deckload.ui.launch import create_app
-from deckload.ui.widgets import LinePanel
+from deckload.ui.widgets import LinePanel, LoadBoard
 from demo_vessels import demo_departure, trawler_vessel
 
 _NAMES = {"%": "percent_sign", ".": "full_stop", " ": "space"}
@@ -38,7 +38,7 @@ async def type_fast(app, pilot, keys: list[str]) -> None:
     """Every key to the driver at once (no wait between keys), then wait until all are handled."""
     await pilot.pause()
     for k in keys:
-        char = k if len(k) == 1 else None
+        char = k if len(k) == 1 else {"minus": "-", "plus": "+"}.get(k)
         app._driver.send_message(events.Key(_NAMES.get(k, k), char))
     quiet = 0
     for _ in range(400):  # up to 20 s on a loaded machine; ends once every key is handled
@@ -83,6 +83,28 @@ async def test_a_key_typed_after_enter_closes_a_form_reaches_the_loading_screen(
     async with app.run_test(size=(120, 40)) as pilot:
         await type_fast(app, pilot, ["enter", *"50%", "enter", "u"])
         assert app.session.condition == c0 and app.session.redo_depth == 1
+
+
+async def test_nudges_typed_at_once_around_a_form_land_in_order_and_never_in_its_field(app, demo):
+    """+ and - are taken by the loading screen before the board sees them (commands.Command.first):
+    typed at once, the nudges before ⏎ change the tank, the "-" and "+" typed while the set dialog
+    is open go into its field (its preview refuses "4-0+" and ⏎ changes nothing), Esc closes it, and the
+    "+" after it nudges again, in the order typed."""
+    from deckload.ui.dialogs import PromptForm
+    from deckload.ui.widgets import LoadBoard
+
+    v, c0 = demo
+    async with app.run_test(size=(120, 40)) as pilot:
+        app.screen.query_one(LoadBoard).select(("tank", "FO1P"))
+        before = c0.tank_fill("FO1P").value
+        await type_fast(app, pilot, ["minus", "minus", "plus", "enter", "4", "minus", "0", "plus"])
+        assert isinstance(app.screen, PromptForm)
+        assert [i.value for i in app.screen.query(Input)] == ["4-0+"]
+        assert app.session.condition.tank_fill("FO1P").value == pytest.approx(before - 1.0)  # − − +: one down
+        await type_fast(app, pilot, ["escape", "plus"])
+        assert not isinstance(app.screen, PromptForm)
+        assert app.session.condition.tank_fill("FO1P").value == pytest.approx(before)
+        assert app.session.undo_depth == 4
 
 
 def screen_text(app) -> list[str]:
@@ -357,6 +379,27 @@ async def test_the_deck_item_form_offers_the_deck_areas_with_their_room(app, dem
         assert not isinstance(app.screen, ItemFormScreen)
         crane = app.session.condition.deck_items[-1]
         assert (crane.name, crane.mass_t, crane.area_id) == ("Crane", 12.0, "AFTDECK")
+
+
+async def test_editing_a_deck_item_shows_the_room_without_counting_that_item(app, demo):
+    """Editing a load already on an area: the room shown is what the area would have if this load
+    were taken off, since the form replaces it (hand sum: limit × area less the other loads)."""
+    v, c0 = demo
+    aft = v.deck_area("AFTDECK")
+    first = c0.deck_items[0]
+    assert first.area_id == "AFTDECK"
+    others = c0.with_deck_items(c0.deck_items[1:])
+    async with app.run_test(size=(120, 40)) as pilot:
+        app.screen.query_one(LoadBoard).select(("deck", 0))
+        await pilot.press("enter", *["tab"] * 5)
+        form = app.screen
+        assert isinstance(form, ItemFormScreen) and form.focused.id == "item-area"
+        assert form.focused.value == "AFTDECK"  # a whole id: no list until the officer retypes it
+        await pilot.press(*["backspace"] * 7, *"aft")
+        await pilot.pause()
+        line = next(x for x in form.query_one("#area-picker", LinePanel).plain().splitlines() if "AFTDECK" in x)
+        assert f"room {_area_room_t(others, aft):7.1f} t" in line
+        assert f"on it {sum(d.mass_t for d in others.deck_items if d.area_id == 'AFTDECK'):6.1f} t" in line
 
 
 async def test_a_blank_deck_area_stays_blank_unless_one_is_chosen(app, demo):
