@@ -1,0 +1,61 @@
+"""The intercepts of a constant heeling lever with the GZ curve, on curves small enough to do by hand.
+
+The weather criterion (IS Code 2008 Part A 2.3, standards.md §2.1 [C]) needs θ0 (GZ rises
+through lw1), the first intercept θr of lw2 and the second intercept θc (GZ falls through lw2).
+weather.Curve finds them on the curve's grid by linear interpolation: a crossing is where
+GZ − lever CHANGES SIGN, from below to above (rising) or above to below (falling).  These
+curves are piecewise linear with values exact in binary, so every expected angle below is
+exact: derived in each docstring, compared with a tolerance of 1e-12° (float rounding only).
+They are not ship curves; they pin the rule at the places a mistake would hide: a lever met
+exactly at a grid point, a lever touched but not crossed, a segment that lies above the lever
+before the crossing, and a crossing exactly at the start of the search.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+import pytest
+
+from deckload.core import weather as wx
+
+EXACT = 1e-12  # degrees; the data are exact binary fractions, so only float rounding remains
+
+
+def _curve(heel, gz) -> wx.Curve:
+    return wx.Curve(np.array(heel, dtype=float), np.array(gz, dtype=float))
+
+
+def test_rising_crossing_is_the_first_sign_change_after_the_start():
+    """Heel −20…20° by 10°, GZ 0.75, 0.625, 0, 0.25, 0.75 m, lever 0.5 m:
+    GZ − lever = 0.25, 0.125, −0.5, −0.25, 0.25.  GZ is above the lever on the windward side
+    (it never rises through it there) and rises through it only between 10° and 20°:
+    x = 10 + 10·0.25/(0.25 + 0.25) = 15°.  Searched from 0°, from 15° itself (a crossing at the
+    start counts) and from 15° + 1e-12° (within the method's 1e-12° rounding allowance)."""
+    c = _curve([-20, -10, 0, 10, 20], [0.75, 0.625, 0.0, 0.25, 0.75])
+    assert c.crossing(0.5, 0.0, rising=True) == pytest.approx(15.0, abs=EXACT)
+    assert c.crossing(0.5, 15.0, rising=True) == pytest.approx(15.0, abs=EXACT)
+    assert c.crossing(0.5, 15.0 + 1e-12, rising=True) == pytest.approx(15.0, abs=EXACT)
+    assert c.crossing(0.5, 15.5, rising=True) is None  # nothing rises through it after 15°
+
+
+def test_a_lever_met_exactly_at_a_grid_point_is_found_there():
+    """GZ 0, 0.5, 1.0, 1.5 m at 0, 10, 20, 30°, lever 0.5: GZ − lever = −0.5, 0, 0.5, 1.0 — it
+    reaches zero AT 10° and is above after: the rising crossing is 10°.  Falling, GZ 1.0, 0.5,
+    0, −0.5: GZ − lever = 0.5, 0, −0.5, −1.0 — the falling crossing is 10°."""
+    up = _curve([0, 10, 20, 30], [0.0, 0.5, 1.0, 1.5])
+    assert up.crossing(0.5, 0.0, rising=True) == pytest.approx(10.0, abs=EXACT)
+    down = _curve([0, 10, 20, 30], [1.0, 0.5, 0.0, -0.5])
+    assert down.crossing(0.5, 0.0, rising=False) == pytest.approx(10.0, abs=EXACT)
+
+
+def test_a_lever_touched_but_not_crossed_is_no_intercept():
+    """Rising: GZ 0, 1.0, 0.5, 1.0, 1.5 at 0…40°, lever 0.5: GZ − lever = −0.5, 0.5, 0, 0.5, 1.0.
+    It rises through the lever at 5°; at 20° it comes down to touch it and goes up again — no
+    sign change, so searched from 15° there is no rising crossing (None).
+    Falling: GZ 0, 0.5, 0, −0.5 at 0…30°, lever 0.5: GZ − lever = −0.5, 0, −0.5, −1.0 — it touches
+    the lever at 10° from below and goes back down: never above, so no falling crossing."""
+    touch_above = _curve([0, 10, 20, 30, 40], [0.0, 1.0, 0.5, 1.0, 1.5])
+    assert touch_above.crossing(0.5, 0.0, rising=True) == pytest.approx(5.0, abs=EXACT)
+    assert touch_above.crossing(0.5, 15.0, rising=True) is None
+    touch_below = _curve([0, 10, 20, 30], [0.0, 0.5, 0.0, -0.5])
+    assert touch_below.crossing(0.5, 0.0, rising=False) is None
