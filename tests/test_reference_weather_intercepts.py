@@ -59,3 +59,25 @@ def test_a_lever_touched_but_not_crossed_is_no_intercept():
     assert touch_above.crossing(0.5, 15.0, rising=True) is None
     touch_below = _curve([0, 10, 20, 30], [0.0, 0.5, 0.0, -0.5])
     assert touch_below.crossing(0.5, 0.0, rising=False) is None
+
+
+def test_the_windward_equilibrium_is_the_last_rising_crossing_below_the_end():
+    """θ0 to windward (a ship listed to windward more than the wind heels her, weather.py):
+    the LARGEST angle ≤ end where GZ − lever rises through zero.  Heel −40…0° by 10°, GZ 0, 1.0,
+    0.5, 1.0, 1.5 m, lever 0.5: GZ − lever = −0.5, 0.5, 0, 0.5, 1.0.  The only sign change from
+    below to above is between −40° and −30°: x = −40 + 10·0.5/(0.5 + 0.5) = −35°.  At −20° GZ
+    comes down to touch the lever and rises again: no crossing.  Searched up to 0°, up to −35°
+    itself (a crossing at the end counts), up to −35° − 1e-12° (the method's rounding allowance)
+    and up to −35.5° (none)."""
+    c = _curve([-40, -30, -20, -10, 0], [0.0, 1.0, 0.5, 1.0, 1.5])
+    assert c.last_rising_below(0.5, 0.0) == pytest.approx(-35.0, abs=EXACT)
+    assert c.last_rising_below(0.5, -35.0) == pytest.approx(-35.0, abs=EXACT)
+    assert c.last_rising_below(0.5, -35.0 - 1e-12) == pytest.approx(-35.0, abs=EXACT)
+    assert c.last_rising_below(0.5, -35.5) is None
+
+
+def test_the_windward_equilibrium_at_a_grid_point():
+    """Heel −30…0° by 10°, GZ −1.0, 0, 0.5, 1.0 m, lever 0.5: GZ − lever = −1.5, −0.5, 0, 0.5 —
+    zero AT −10°, above after: the rising crossing is −10°."""
+    c = _curve([-30, -20, -10, 0], [-1.0, 0.0, 0.5, 1.0])
+    assert c.last_rising_below(0.5, 0.0) == pytest.approx(-10.0, abs=EXACT)
