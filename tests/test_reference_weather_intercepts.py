@@ -81,3 +81,12 @@ def test_the_windward_equilibrium_at_a_grid_point():
     zero AT −10°, above after: the rising crossing is −10°."""
     c = _curve([-30, -20, -10, 0], [-1.0, 0.0, 0.5, 1.0])
     assert c.last_rising_below(0.5, 0.0) == pytest.approx(-10.0, abs=EXACT)
+
+
+def test_area_between_lever_and_curve_on_a_straight_curve():
+    """∫ (GZ − lever) dφ on GZ = 0.05·φ(deg) m (heel 0…40° by 10°), lever 0.5 m, from 10° to 30°:
+    ∫ 0.05·φ dφ − 0.5·20 = 0.025·(900 − 100) − 10 = 10 m·deg = 10·π/180 m·rad (the trapezoid
+    rule is exact on a straight line).  Over an empty interval (10° to 10°) the integral is 0."""
+    c = _curve([0, 10, 20, 30, 40], [0.0, 0.5, 1.0, 1.5, 2.0])
+    assert c.area_between(0.5, 10.0, 30.0) == pytest.approx(10.0 * np.pi / 180.0, abs=1e-12)
+    assert c.area_between(0.5, 10.0, 10.0) == 0.0
