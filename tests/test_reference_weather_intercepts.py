@@ -90,3 +90,24 @@ def test_area_between_lever_and_curve_on_a_straight_curve():
     c = _curve([0, 10, 20, 30, 40], [0.0, 0.5, 1.0, 1.5, 2.0])
     assert c.area_between(0.5, 10.0, 30.0) == pytest.approx(10.0 * np.pi / 180.0, abs=1e-12)
     assert c.area_between(0.5, 10.0, 10.0) == 0.0
+
+
+def test_weather_areas_on_a_straight_curve_with_a_roll_past_its_first_angle():
+    """The procedure of standards.md §2.1 [C] (IS 2008 A 2.3.1.4: a from θ0 − θ1 to the first
+    intercept of lw2, b from there to θ2 = min(θf, 50°, θc)) on GZ = 0.01·φ(deg) m, −20…60° by 10°.
+    lw1 = 0.05 → θ0 = 5°; lw2 = 1.5·lw1 = 0.075 (1.5 from memory [M]) → θr = 7.5°; GZ never falls
+    back, so no θc and θ2 = 50°.  A roll θ1 = 30° would start a at −25°, before the curve's first
+    angle: a starts at −20° (nothing is known beyond the curve).  In m·deg:
+      a = −∫_{−20}^{7.5} (0.01φ − 0.075) dφ = −[0.005·(56.25 − 400) − 0.075·27.5] = 3.78125,
+      b =  ∫_{7.5}^{50} (0.01φ − 0.075) dφ = 0.005·(2500 − 56.25) − 0.075·42.5 = 9.03125;
+    ×π/180 for m·rad.  Tolerance 1e-9: the trapezoid rule is exact on a straight line, only float
+    rounding (of 0.01·φ and the interpolated intercepts) remains."""
+    deg = [-20, -10, 0, 10, 20, 30, 40, 50, 60]
+    c = _curve(deg, [0.01 * d for d in deg])
+    f = wx.weather_areas(c, 0.05, 30.0, None, 60.0)
+    assert f.lw2_m == pytest.approx(0.075, abs=1e-15)
+    assert f.theta0_deg == pytest.approx(5.0, abs=1e-9)
+    assert f.theta_r_deg == pytest.approx(7.5, abs=1e-9)
+    assert f.theta_c_deg is None and f.theta2_deg == 50.0
+    assert f.area_a_mrad == pytest.approx(3.78125 * np.pi / 180.0, abs=1e-9)
+    assert f.area_b_mrad == pytest.approx(9.03125 * np.pi / 180.0, abs=1e-9)
