@@ -111,3 +111,12 @@ def test_weather_areas_on_a_straight_curve_with_a_roll_past_its_first_angle():
     assert f.theta_c_deg is None and f.theta2_deg == 50.0
     assert f.area_a_mrad == pytest.approx(3.78125 * np.pi / 180.0, abs=1e-9)
     assert f.area_b_mrad == pytest.approx(9.03125 * np.pi / 180.0, abs=1e-9)
+
+
+def test_a_light_wind_heels_her_less_than_a_degree():
+    """A stiff ship in a light wind: the same straight curve GZ = 0.01·φ(deg) m, lw1 = 0.005 m
+    → θ0 = 0.5° (to leeward: GZ(0) = 0 < lw1, searched from 0°); lw2 = 0.0075 → θr = 0.75°."""
+    deg = [-20, -10, 0, 10, 20, 30, 40, 50, 60]
+    f = wx.weather_areas(_curve(deg, [0.01 * d for d in deg]), 0.005, 10.0, None, 60.0)
+    assert f.theta0_deg == pytest.approx(0.5, abs=1e-9)
+    assert f.theta_r_deg == pytest.approx(0.75, abs=1e-9)
