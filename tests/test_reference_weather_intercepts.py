@@ -120,3 +120,13 @@ def test_a_light_wind_heels_her_less_than_a_degree():
     f = wx.weather_areas(_curve(deg, [0.01 * d for d in deg]), 0.005, 10.0, None, 60.0)
     assert f.theta0_deg == pytest.approx(0.5, abs=1e-9)
     assert f.theta_r_deg == pytest.approx(0.75, abs=1e-9)
+
+
+def test_when_gz_at_upright_exceeds_lw1_theta0_is_searched_to_windward_only():
+    """weather.py's rule: GZ(0) ≥ lw1 puts θ0 to windward (the last rising crossing at or below
+    0°), never to leeward.  Heel −20, −10, 0, 0.5, 1, 10°, GZ −0.5, 0.25, 0.75, 0.25, 1.0, 1.5 m,
+    lw1 0.5: GZ − lw1 = −1, −0.25, 0.25, −0.25, 0.5, 1.0.  To windward it rises through lw1 at
+    x = −10 + 10·0.25/0.5 = −5°; the rising crossing at 0.5 + 0.5·0.25/0.75 = 0.667° lies to
+    leeward and is not θ0."""
+    c = _curve([-20, -10, 0, 0.5, 1, 10], [-0.5, 0.25, 0.75, 0.25, 1.0, 1.5])
+    assert wx.weather_areas(c, 0.5, 5.0, None, 10.0).theta0_deg == pytest.approx(-5.0, abs=EXACT)
