@@ -130,3 +130,14 @@ def test_when_gz_at_upright_exceeds_lw1_theta0_is_searched_to_windward_only():
     leeward and is not θ0."""
     c = _curve([-20, -10, 0, 0.5, 1, 10], [-0.5, 0.25, 0.75, 0.25, 1.0, 1.5])
     assert wx.weather_areas(c, 0.5, 5.0, None, 10.0).theta0_deg == pytest.approx(-5.0, abs=EXACT)
+
+
+def test_a_flooding_angle_before_the_gust_intercept_leaves_no_area_b():
+    """θ2 = min(θf, 50°, θc) (A.749 3.2.2.1 [C]); b runs from θr to θ2.  On the straight curve
+    above (θr = 7.5°) a flooding angle θf = 6° gives θ2 = 6° < θr: there is no area b (0), and
+    a is unchanged, 3.78125 m·deg (tolerance as above)."""
+    deg = [-20, -10, 0, 10, 20, 30, 40, 50, 60]
+    f = wx.weather_areas(_curve(deg, [0.01 * d for d in deg]), 0.05, 30.0, 6.0, 60.0)
+    assert f.theta2_deg == 6.0
+    assert f.area_b_mrad == 0.0
+    assert f.area_a_mrad == pytest.approx(3.78125 * np.pi / 180.0, abs=1e-9)
