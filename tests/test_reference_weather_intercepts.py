@@ -141,3 +141,23 @@ def test_a_flooding_angle_before_the_gust_intercept_leaves_no_area_b():
     assert f.theta2_deg == 6.0
     assert f.area_b_mrad == 0.0
     assert f.area_a_mrad == pytest.approx(3.78125 * np.pi / 180.0, abs=1e-9)
+
+
+def test_no_wind_and_no_roll_leave_no_area_a():
+    """The calm limit: lw1 = lw2 = 0 and θ1 = 0 on the straight curve GZ = 0.01·φ(deg).
+    θ0 = θr = 0° (GZ rises through 0 at upright), so area a, from θ0 − θ1 = 0° to θr = 0°, is 0;
+    b = ∫_0^50 0.01·φ dφ = 0.005·2500 = 12.5 m·deg (×π/180 for m·rad; tolerance as above)."""
+    deg = [-20, -10, 0, 10, 20, 30, 40, 50, 60]
+    f = wx.weather_areas(_curve(deg, [0.01 * d for d in deg]), 0.0, 0.0, None, 60.0)
+    assert f.theta0_deg == pytest.approx(0.0, abs=EXACT) and f.theta_r_deg == pytest.approx(0.0, abs=EXACT)
+    assert f.area_a_mrad == 0.0
+    assert f.area_b_mrad == pytest.approx(12.5 * np.pi / 180.0, abs=1e-9)
+
+
+def test_without_a_roll_angle_theta0_is_still_found():
+    """GM not positive: no roll period, so θ1 is None (weather.py) and a, b cannot be found;
+    θ0 does not depend on θ1 and is still the intercept of lw1: 0.01·φ = 0.05 → 5°."""
+    deg = [-20, -10, 0, 10, 20, 30, 40, 50, 60]
+    f = wx.weather_areas(_curve(deg, [0.01 * d for d in deg]), 0.05, None, None, 60.0)
+    assert f.theta0_deg == pytest.approx(5.0, abs=1e-9)
+    assert f.theta_r_deg is None and f.area_a_mrad is None and f.area_b_mrad is None
