@@ -275,15 +275,16 @@ def test_compare_in_fresh_water():
         assert rows[f"GZ at {deg}°"][1] == pytest.approx(exact, abs=NUMERIC), deg
 
 
-@pytest.mark.parametrize("flood_deg, top", [(35.0, 35.0), (45.0, 40.0)])
+@pytest.mark.parametrize("flood_deg, top", [(35.0, 35.0), (45.0, 40.0), (None, 40.0)])
 def test_compare_areas_stop_at_the_downflooding_angle(flood_deg, top):
-    """IS 2008 A 2.2.1: the areas to 40° or θf if less.  Direct areas of the exact GZ (the dynamic
+    """IS 2008 A 2.2.1: the areas to 40° or θf if less (no downflooding curve: 40°).  Direct areas of the exact GZ (the dynamic
     lever of the box, vessel_factories.box_dynamic_lever_mrad, checks.md §1) within 5e-4 m·rad (the
     spline through 5° knots beside the deck-edge kink at 21.8°: measured 1.4e-4 to 30°, 1.9e-4 to 35°;
     IS 2008's limits are 0.055–0.09 m·rad, so 5e-4 is under 1 % of the smallest)."""
     from vessel_factories import box_dynamic_lever_mrad
 
-    curve = LimitCurve(frozen_array([100.0, 2000.0]), frozen_array([flood_deg, flood_deg]), "downflooding_deg")
+    curve = None if flood_deg is None else LimitCurve(frozen_array([100.0, 2000.0]), frozen_array([flood_deg, flood_deg]),
+                                                       "downflooding_deg")
     v = _with_hull(box_barge(lightship_t=DISP, lightship_kg_m=KG, downflooding=curve))
     cmp = compare(v, evaluate(v, Condition()))
     rows = {n: (a, b) for n, _, a, b in cmp.rows}

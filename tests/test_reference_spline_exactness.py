@@ -16,7 +16,7 @@ Sources and derivations (each check names which it uses):
   p(0.5) = 1 + 1 − 0.375 + 0.03125 = 1.65625, p(2) = 1, p(5.5) = 1 + 11 − 45.375 + 41.59375
   = 8.21875, p(7.5) = 1 + 15 − 84.375 + 105.46875 = 37.09375;  q(0, 1, 3, 4, 7) = 0, −3, 15,
   48, 315, q(0.5) = −1.875, q(2) = 0, q(5.5) = 144.375;  P(0, 1, 4) = 2, 1.5, 6, P(0.5) =
-  1.625, P(2.5) = 2.625, P(3) = 3.5.  The knots are unequally spaced on purpose: on equal
+  1.625, P(2.5) = 2.625, P(3) = 3.5; P(1, 2, 5) = 1.5, 2, 9.5.  The knots are unequally spaced on purpose: on equal
   spacing h₀ = h₁ and a spline built with the wrong spacing would still pass.
 
 * **Natural spline of a known natural spline** (Burden & Faires, *Numerical Analysis*, §3.5:
@@ -106,6 +106,10 @@ def test_not_a_knot_through_three_knots_is_the_parabola():
     assert s2.m[:, 1].tolist() == pytest.approx([2.0] * 3, abs=EXACT)
     assert s2.m[:, 2].tolist() == pytest.approx([0.0] * 3, abs=EXACT)
     assert s2(2.5).tolist() == pytest.approx([2.625, 5.25, 1.75], abs=EXACT)
+    # the same parabola on knots that do not start at 0 (1, 2, 5: P = 1.5, 2, 9.5)
+    s3 = CubicSpline.fit(np.array([1.0, 2.0, 5.0]), np.array([1.5, 2.0, 9.5]), end="not-a-knot")
+    assert s3.m.tolist() == pytest.approx([1.0, 1.0, 1.0], abs=EXACT)
+    assert float(s3(2.5)) == pytest.approx(2.625, abs=EXACT)
 
 
 def test_natural_spline_on_five_unequal_knots():
