@@ -112,6 +112,15 @@ def test_not_a_knot_through_three_knots_is_the_parabola():
     assert float(s3(2.5)) == pytest.approx(2.625, abs=EXACT)
 
 
+def test_two_knots_give_the_chord_with_either_end_condition():
+    """tables.py docstring: with two knots the spline is the straight line through them, whichever
+    end condition is asked (a KN table of two displacements is splined not-a-knot by gz.kn_curve)."""
+    for end in ("natural", "not-a-knot"):
+        s = CubicSpline.fit(np.array([1.0, 3.0]), np.array([2.0, 6.0]), end=end)
+        assert s.m.tolist() == [0.0, 0.0]
+        assert float(s(2.5)) == pytest.approx(5.0, abs=EXACT)
+
+
 def test_natural_spline_on_five_unequal_knots():
     """Burden & Faires §3.5 (module docstring): the natural spline through S at 0, 1, 3, 4, 6 is
     S, M = 0, 6, 30, 36, 0, and S between the knots."""
