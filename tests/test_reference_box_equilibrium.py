@@ -301,3 +301,18 @@ def test_compare_without_a_hull_is_refused_in_words():
         compare(v, evaluate(v, Condition()))
     assert str(e.value) == ("the profile names no hull_geometry (or its file is not there): "
                             "the direct calculation needs the hull")
+
+
+def test_compare_refuses_kn_tables_that_stop_short_of_90_degrees():
+    """The profile reader accepts KN tables that end at 40° (or θf); the side-by-side rows need the
+    tables' curve to 90°.  Such a profile is refused in words (DirectError, which the CLI and the
+    screen show), not with a traceback (it raised a bare ValueError before).  tests/trimmed_box.py:
+    box 40 × 8 × 10 m with tables at several trims, KN to 40°."""
+    import trimmed_box
+
+    v = dataclasses.replace(trimmed_box.box(5.0, 4.0, 0.5), hull=box_body(40.0, 8.0, 10.0))
+    r = evaluate(v, Condition())
+    with pytest.raises(DirectError) as e:
+        compare(v, r)
+    assert str(e.value) == ("the KN tables stop at 40° of heel: the side-by-side comparison with the hull "
+                            "needs them to 90°")
