@@ -92,6 +92,17 @@ def test_small_tank_carries_nothing_and_says_why(pct, state, rule):
     no_free_surface_curve_holds(r)
 
 
+def test_small_nominally_full_cargo_tank_is_exempt():
+    """A nominally full cargo tank would count at 98 % (B 3.1.2 footnote), but a small one is left out
+    (B 3.1.12): limit 1 m, box 8 × 6 × 2 at ρ 0.85: Mfs(30°)/Δmin ≤ 0.85·64·0.5833/1000 = 0.032 m < 1 m.
+    Its moment is nil and the rule says it is the exemption that leaves it out."""
+    tank = box_tank("CG1C", length_m=8, breadth_m=6, height_m=2, lcg_m=X_MID, kind="cargo_liquid", density_t_m3=0.85)
+    r = evaluate(vessel([tank], limit_m=1.0), Condition(tanks=(fill("CG1C", 99.0),), gz_correction="transfer"))
+    t = tank_of(r, "CG1C")
+    assert (t.state, t.fs_rule, t.fsm_tm) == ("full", EXEMPT_RULE, 0.0)
+    no_free_surface_curve_holds(r)
+
+
 @pytest.mark.parametrize("pct, state, rule", [(0.0, "empty", "empty"), (99.0, "full", NOMINALLY_FULL)])
 def test_counted_tank_empty_or_nominally_full_carries_nothing(pct, state, rule):
     """B 3.1.2 (≥ 98 % nominally full: no free surface) and an empty fixed-level ballast tank (B 3.1.3,

@@ -1,0 +1,36 @@
+"""The dangers the criteria stage words for the officer, checked word for word: they are what he
+reads when the program cannot do what the booklet expects (deckload's own wording)."""
+
+from __future__ import annotations
+
+import dataclasses
+
+from deckload.core.model import LimitCurve, frozen_array
+from deckload.core.stability import evaluate
+from vessel_factories import barge_at
+
+
+def test_displacement_off_the_downflooding_curve_is_worded():
+    """Box barge 40 × 10 m at T = 2 m in sea water: Δ = 1.025·40·10·2 = 820 t (checks.md §1.1), off a
+    downflooding curve given for 5000–6000 t only: θf unknown, worked to 40° as if no openings."""
+    v, c = barge_at(2.0, 3.0)
+    short = LimitCurve(frozen_array([5000.0, 6000.0]), frozen_array([35.0, 35.0]), "downflooding_deg")
+    r = evaluate(dataclasses.replace(v, downflooding=short), c)
+    assert r.downflooding_angle_deg is None
+    notes = [w for w in r.warnings if w.code == "downflooding-range"]
+    assert [(w.message, w.severity) for w in notes] == [(
+        "displacement 820.0 t is outside the downflooding-angle curve: θf is unknown "
+        "and the criteria are worked to 40° as if there were no openings", "danger")]
+
+
+def test_downflooding_exactly_at_30_degrees_is_not_called_below_30():
+    """θf = 30.0° exactly (a curve row at the barge's 820 t, so no interpolation): openings do not
+    immerse *before* 30°, so the 'below 30°' danger would be false; the 30°–θf area is nil all the same
+    (IS 2008 Part A 2.2.1: the area from 30° to θf when θf < 40°), so the ship is not passed."""
+    v, c = barge_at(2.0, 3.0)
+    at30 = LimitCurve(frozen_array([820.0, 5000.0]), frozen_array([30.0, 30.0]), "downflooding_deg")
+    r = evaluate(dataclasses.replace(v, downflooding=at30), c)
+    assert r.downflooding_angle_deg == 30.0
+    assert not [w for w in r.warnings if w.code == "downflooding-low"]
+    assert r.area_30_40_mrad == 0.0
+    assert not r.all_criteria_pass
