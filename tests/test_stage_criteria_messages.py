@@ -34,3 +34,15 @@ def test_downflooding_exactly_at_30_degrees_is_not_called_below_30():
     assert not [w for w in r.warnings if w.code == "downflooding-low"]
     assert r.area_30_40_mrad == 0.0
     assert not r.all_criteria_pass
+
+
+def test_downflooding_below_30_degrees_is_worded():
+    """θf = 20° (a curve row at 820 t): openings immerse before 30°, so the 30°–θf area of IS 2008
+    Part A 2.2.1 is nil; the danger says so with θf."""
+    v, c = barge_at(2.0, 3.0)
+    low = LimitCurve(frozen_array([820.0, 5000.0]), frozen_array([20.0, 20.0]), "downflooding_deg")
+    r = evaluate(dataclasses.replace(v, downflooding=low), c)
+    notes = [w for w in r.warnings if w.code == "downflooding-low"]
+    assert [(w.message, w.severity) for w in notes] == [(
+        "downflooding angle θf 20.0° is below 30°: openings immerse before 30°, so the 30°–θf area is nil",
+        "danger")]
