@@ -1,9 +1,12 @@
-"""The dangers the criteria stage words for the officer, checked word for word: they are what he
-reads when the program cannot do what the booklet expects (deckload's own wording)."""
+"""Edges of the criteria stage: the dangers it words for the officer, checked word for word (what he
+reads when the program cannot do what the booklet expects; deckload's own wording), and where the
+downflooding angle cuts the areas (IS 2008 Part A 2.2.1)."""
 
 from __future__ import annotations
 
 import dataclasses
+
+import pytest
 
 from deckload.core.model import LimitCurve, frozen_array
 from deckload.core.stability import evaluate
@@ -46,3 +49,17 @@ def test_downflooding_below_30_degrees_is_worded():
     assert [(w.message, w.severity) for w in notes] == [(
         "downflooding angle θf 20.0° is below 30°: openings immerse before 30°, so the 30°–θf area is nil",
         "danger")]
+
+
+def test_downflooding_above_40_degrees_leaves_the_areas_to_40():
+    """IS 2008 Part A 2.2.1: the areas run to 40°, or to θf only when θf is less than 40°.  With
+    θf = 40.5° the 0–40° and 30–40° areas are those of the same barge with no openings at all."""
+    v, c = barge_at(2.0, 3.0)
+    free = evaluate(v, c)
+    at405 = LimitCurve(frozen_array([820.0, 5000.0]), frozen_array([40.5, 40.5]), "downflooding_deg")
+    r = evaluate(dataclasses.replace(v, downflooding=at405), c)
+    assert r.downflooding_angle_deg == 40.5
+    # Same curve, same trapezoids: equal to round-off; the area to 40.5° would be larger by about
+    # GZ(40°)·0.5° ≈ 0.009 m·rad.
+    assert r.area_0_40_mrad == pytest.approx(free.area_0_40_mrad, abs=1e-12)
+    assert r.area_30_40_mrad == pytest.approx(free.area_30_40_mrad, abs=1e-12)
