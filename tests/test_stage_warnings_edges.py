@@ -35,3 +35,16 @@ def test_gz_never_positive_is_a_danger():
     assert max(r.gz_m[1:]) < 0.0
     notes = [(w.message, w.severity) for w in r.warnings if w.code == "no-equilibrium"]
     assert notes == [("GZ never becomes positive: no position of equilibrium", "danger")]
+
+
+def test_actual_free_surface_rule_is_a_caution():
+    """Rule 'actual' (IS 2008 B 3.1.6, liquid transfers) counts slack tanks at their actual levels only,
+    so the allowance of B 3.1.3–3.1.4 for consumables is off: the officer is told so (a caution)."""
+    from deckload.core.model import Condition
+
+    v, c = barge_at(2.0, 3.0)
+    r = evaluate(v, Condition(fs_rule="actual"))
+    notes = [(w.message, w.severity) for w in r.warnings if w.code == "fs-rule-actual"]
+    assert notes == [("free surface at actual levels (IS 2008 B 3.1.6): the B 3.1.3–3.1.4 allowance "
+                      "for consumables is off", "caution")]
+    assert not [w for w in evaluate(v, Condition(fs_rule="is2008")).warnings if w.code == "fs-rule-actual"]
