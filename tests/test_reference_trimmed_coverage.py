@@ -54,6 +54,10 @@ def test_inside_the_covered_trims_no_caution():
     assert coverage(v, 0.5, D5) is None
     assert coverage(v, 0.5 + 1.5e-9, D5) is None  # within 2e-9 of the +0.5 m tables: on them
     assert coverage(v, -1.0, D5) is None
+    assert coverage(v, -2.0, D5) is None  # exactly on the first table
+    # the round-off allowance scales with the largest trim at either end (|−2| above, +2 m here)
+    v = box(5.0, 3.0, 0.98, trims=(-0.5, 0.0, 2.0), kn_trims=(-0.5, 0.0, 2.0))
+    assert coverage(v, 2.0 + 1.5e-9, D5) is None
 
 
 def test_caution_names_each_set_its_range_and_the_end_table_used():

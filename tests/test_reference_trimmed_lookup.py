@@ -195,6 +195,16 @@ def test_kn_between_two_tables_and_beyond_the_end():
     assert np.allclose(kn_for(v, DISP5, 1.25)[::50], blend, rtol=0, atol=ROUND_OFF)
 
 
+def test_two_tables_are_blended_too():
+    """A set of two tables (even keel and +1 m) is interpolated like a longer one: at 0.25 m,
+    0.75·y(0) + 0.25·y(1) for KN and for KMt (closed forms of tests/trimmed_box.py)."""
+    v = box(T5, 3.0, 0.98, trims=(0.0, 1.0), kn_trims=(0.0, 1.0))
+    blend = [0.75 * kn_exact(T5, 0.0, h) + 0.25 * kn_exact(T5, 1.0, h) for h in HEELS]
+    assert np.allclose(kn_row_at(v.trimmed, DISP5, 0.25), blend, rtol=0, atol=ROUND_OFF)
+    assert hydro_at(v, v.trimmed, DISP5, 0.25).kmt_m == pytest.approx(0.75 * _kmt(T5, 0.0) + 0.25 * _kmt(T5, 1.0),
+                                                                      abs=ROUND_OFF)
+
+
 def test_kn_for_without_tables_at_trims_is_the_even_keel_kn():
     """No tables at trims: the even-keel KN at the displacement whatever the trim (KN(φ, 0))."""
     v = dataclasses.replace(box(T5, 3.0, 0.98), trimmed=None)
