@@ -96,6 +96,16 @@ def test_refused_beyond_the_last_interval_at_either_end():
     assert coverage(v, -1.9, D5).startswith("trim 1.90 m by the head is outside the trims tabulated")
 
 
+def test_last_interval_is_between_the_last_two_tables():
+    """Hydrostatics at −1, 0, +0.5, +1 m: the last interval at the stern end is +0.5…+1 m (0.5 m wide),
+    so 0.6 m beyond +1 m is refused, naming 0.50 m."""
+    v = box(5.0, 3.0, 0.98, trims=(-1.0, 0.0, 0.5, 1.0), kn_trims=TRIMS)
+    assert _refusal(v, 1.6) == (
+        "trim 1.60 m by the stern is outside the hydrostatics tables' trims (-1.00 to +1.00 m): 0.60 m beyond them, "
+        "more than their last interval (0.50 m), where the error cannot be bounded; this condition cannot be "
+        "assessed from these tables")
+
+
 def test_kn_refused_beyond_the_last_interval():
     v = box(5.0, 3.0, 0.98, trims=TRIMS, kn_trims=(-0.5, 0.0, 0.5))
     assert _refusal(v, 1.05) == (
