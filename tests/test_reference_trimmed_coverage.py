@@ -152,7 +152,7 @@ def test_kmt_estimate_beyond_tolerance_is_refused():
 
 def test_kn_estimate_names_the_heel_where_it_exceeds_tolerance():
     """Invented: KN at 20° alone rises 0.1 m per metre of trim (KN_j + 0.1·t_j in the 20° column).
-    KN tables at −1, 0, +1 m; 1.6 m by the stern is 0.6 m beyond +1 m (interval 1 m): 0.1·0.6 =
+    KN tables at −1, 0, +1 m; 1.606 m by the stern is 0.606 m beyond +1 m (interval 1 m): 0.1·0.606 =
     6.2 cm at 20° with the box's own change, over the 5 cm of UR L5 (standards.md §5.3): refused
     naming 20°.  0.4 m beyond: 4.1 cm, a caution."""
     k20 = list(np.asarray(kn_at_trim(0.0).heel_deg)).index(20.0)
@@ -164,11 +164,12 @@ def test_kn_estimate_names_the_heel_where_it_exceeds_tolerance():
         return dataclasses.replace(base, kn_m=frozen_array(kn))
 
     v = box(5.0, 3.0, 0.98, trims=TRIMS, kn_trims=(-1.0, 0.0, 1.0), kn_table=kn_20)
-    # the box's own change at 20° adds sin20°·1²/(24·5) = 2.9 mm over the interval (closed form)
-    est = abs(kn_exact(5.0, 1.0, 20.0) + 0.1 - kn_exact(5.0, 0.0, 20.0)) * 0.6
-    assert f"{est * 100:.1f}" == "6.2"
-    assert _refusal(v, 1.6) == (
-        "trim 1.60 m by the stern is outside the KN tables' trims (-1.00 to +1.00 m): KN at 20° would be off by "
+    # the box's own change at 20° adds sin20°·1²/(24·5) = 2.9 mm over the interval (closed form);
+    # 1.606 m: 0.606 m beyond, 6.23 cm (a trim whose estimate is not near a rounding edge of 0.1 cm)
+    est = abs(kn_exact(5.0, 1.0, 20.0) + 0.1 - kn_exact(5.0, 0.0, 20.0)) * 0.606
+    assert f"{est * 100:.2f}" == "6.23"
+    assert _refusal(v, 1.606) == (
+        "trim 1.61 m by the stern is outside the KN tables' trims (-1.00 to +1.00 m): KN at 20° would be off by "
         "about 6.2 cm (tolerance 5 cm), beyond UR L5's tolerance (standards.md §5.3); this condition cannot be "
         "assessed from these tables")
     assert coverage(v, 1.4, D5) == ("trim 1.40 m by the stern is outside the trims tabulated: KN tables cover "
