@@ -225,6 +225,28 @@ def test_table_without_kb_takes_the_even_keel_kb_on_its_own_grid():
     assert hydro_at(v, v.trimmed, RHO * L * B * 4.6, 1.0).vcb_m == pytest.approx(2.3, abs=ROUND_OFF)
 
 
+def test_table_without_kb_on_a_grid_of_its_own():
+    """The +1 m table without KB on every other draft of the box (4.0, 4.5, … 6.0 m: its own
+    displacement grid, not the even-keel one's): the even-keel KB is looked up on the even-keel grid,
+    T/2 exactly at T = 4.5 m and 5.0 m (rows of both), and the blend at t = 0.5 m is the same."""
+    h = hydro_at_trim(1.0)
+    cols = {c: frozen_array(getattr(h, c)[::2]) for c in h.columns()}
+    every_other = dataclasses.replace(h, **{**cols, "vcb_m": None})
+    v = _replace_hydro(box(T5, 3.0, 0.98), 1.0, every_other)
+    for T in (4.5, 5.0):
+        d = RHO * L * B * T
+        assert hydro_at(v, v.trimmed, d, 1.0).vcb_m == pytest.approx(T / 2, abs=ROUND_OFF)
+        assert hydro_at(v, v.trimmed, d, 0.5).vcb_m == pytest.approx(T / 2, abs=ROUND_OFF)
+
+
+def test_small_positive_gml_is_worked_not_refused():
+    """KG fluid 28.7 m, below KML = 29.167 m at T = 5 m (tests/trimmed_box.py): GM_L = 0.467 m, small
+    but positive, so the trim is worked.  G over the box's upright LCB (L/2): F(0) = 0, even keel."""
+    eq = equilibrium(box(T5, 28.7, 0.0), DISP5, RHO, L / 2, 28.7)
+    assert eq.trim_m == pytest.approx(0.0, abs=1e-12)
+    assert eq.moment.gml_m == pytest.approx(_kml(T5, 0.0) - 28.7, abs=ROUND_OFF)
+
+
 def test_tables_without_kml_give_no_kml():
     """Without KML the row says so (None), and the tabulated MCTC stands."""
     v = _with_tables(box(T5, 3.0, 0.98), lambda t, h: dataclasses.replace(h, kml_m=None))
@@ -396,3 +418,46 @@ def test_table_state_with_and_without_tables_at_trims():
     assert ts0.trim_note == (f"trim {ts0.trim_m:.2f} m by the stern ({100 * ts0.trim_m / L:.1f} % of LBP): the "
                              "tables are for even keel; drafts and KN less certain")
     assert ts0.upright.kmt_m == pytest.approx(_kmt(T5, 0.0), abs=ROUND_OFF)
+
+
+
+C_LINEAR = -L / (12 * T5) + (3.0 - T5 / 2) / L
+"""dF/dt of the linear tables below at T = 5 m, KG 3 m: −L/(12·T) + (KG − KB)/L = −0.65417."""
+
+
+def _linear_vessel():
+    """Tables at −1…+4 m in which the balance F(t) is exactly linear (invented data built on the box):
+    LCB the box's, L/2 − L·t/(12·T) (linear in t), KB the even-keel T/2 at every trim, no KML, and a
+    constant MCTC M = Δ·|c|/170, so that Δ·c/(100·M) = −1.7 and each step overshoots."""
+    mctc = DISP5 * abs(C_LINEAR) / 170
+
+    def change(t, h):
+        return dataclasses.replace(h, vcb_m=frozen_array(h.draft_m / 2), kml_m=None,
+                                   mctc_tm_cm=frozen_array(np.full_like(h.draft_m, mctc)))
+
+    return _with_tables(box(T5, 3.0, 0.0, trims=(-1.0, 0.0, 1.0, 2.0, 3.0, 4.0), kn_trims=(0.0,)), change)
+
+
+@pytest.mark.parametrize("t_star, settles", [(1.5, True), (2.2, False)])
+def test_the_step_limit_of_thirty(t_star, settles):
+    """MAX_STEPS = 30 (core/trimmed_tables.py).  Derived: with F(t) = a + c·t exactly (tables above;
+    a = L/2 − LCG, root t* = −a/c, so LCG = L/2 + c·t*) and a constant MCT M, each step maps the error
+    e = t − t* to q·e, q = 1 + Δ·c/(100·M) = −0.7.  From even keel e₀ = −t*, so two successive
+    estimates differ by |eₖ − eₖ₋₁| = t*·1.7·0.7^(k−1), and the iteration settles at the first k where
+    that is ≤ 1e-4 m:
+    * t* = 1.5 m: 2.55·0.7²⁸ = 1.16e-4 > 1e-4, 2.55·0.7²⁹ = 8.1e-5 → settles at step 30, the last
+      allowed, at t* − 1.5·0.7³⁰ (within 4e-5 m of t*);
+    * t* = 2.2 m: 3.74·0.7²⁹ = 1.19e-4 > 1e-4 → not settled in 30 steps: refused (it would at 31).
+    The estimates stay within the tables (the largest, 1.7·t* = 3.74 m, under +4 m)."""
+    v = _linear_vessel()
+    lcg = L / 2 + C_LINEAR * t_star
+    if settles:
+        eq = equilibrium(v, DISP5, RHO, lcg, 3.0)
+        assert eq.steps == 30
+        assert abs(eq.trim_m - t_star) < 4e-5
+        assert eq.moment.basis == BASIS_TABLE
+    else:
+        with pytest.raises(TrimNotSettledError) as e:
+            equilibrium(v, DISP5, RHO, lcg, 3.0)
+        last = [float(x) for x in re.findall(r"[+-]\d+\.\d{4}", str(e.value))]
+        assert len(last) == 2 and all(abs(x - t_star) < 2e-4 for x in last)  # |e₂₉|, |e₃₀| ≤ 2.2·0.7²⁹ ≈ 7e-5
