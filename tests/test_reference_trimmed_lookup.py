@@ -228,7 +228,8 @@ def test_table_without_kb_takes_the_even_keel_kb_on_its_own_grid():
 def test_table_without_kb_on_a_grid_of_its_own():
     """The +1 m table without KB on every other draft of the box (4.0, 4.5, … 6.0 m: its own
     displacement grid, not the even-keel one's): the even-keel KB is looked up on the even-keel grid,
-    T/2 exactly at T = 4.5 m and 5.0 m (rows of both), and the blend at t = 0.5 m is the same."""
+    T/2 exactly at T = 4.5 m and 5.0 m (rows of both), and the blend at t = 0.5 m is the same.  With
+    its own KB, the table's KB on its own grid."""
     h = hydro_at_trim(1.0)
     cols = {c: frozen_array(getattr(h, c)[::2]) for c in h.columns()}
     every_other = dataclasses.replace(h, **{**cols, "vcb_m": None})
@@ -237,6 +238,10 @@ def test_table_without_kb_on_a_grid_of_its_own():
         d = RHO * L * B * T
         assert hydro_at(v, v.trimmed, d, 1.0).vcb_m == pytest.approx(T / 2, abs=ROUND_OFF)
         assert hydro_at(v, v.trimmed, d, 0.5).vcb_m == pytest.approx(T / 2, abs=ROUND_OFF)
+    # with its own KB, that KB on its own grid: KB(T, 1) = T/2 + 1/(24·T) (tests/trimmed_box.py)
+    v = _replace_hydro(box(T5, 3.0, 0.98), 1.0, dataclasses.replace(h, **cols))
+    for T in (4.5, 5.0):
+        assert hydro_at(v, v.trimmed, RHO * L * B * T, 1.0).vcb_m == pytest.approx(kb(T, 1.0), abs=ROUND_OFF)
 
 
 def test_small_positive_gml_is_worked_not_refused():
