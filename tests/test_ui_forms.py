@@ -17,7 +17,7 @@ from deckload.io import paths
 from deckload.io.profiles import load_condition
 from deckload.ui.dialogs import ItemFormScreen, TransferForm
 from deckload.ui.launch import create_app
-from deckload.ui.widgets import LinePanel
+from deckload.ui.widgets import LinePanel, LoadBoard
 from demo_vessels import demo_departure, trawler_vessel
 
 _NAMES = {"%": "percent_sign", ".": "full_stop", " ": "space"}
@@ -357,6 +357,27 @@ async def test_the_deck_item_form_offers_the_deck_areas_with_their_room(app, dem
         assert not isinstance(app.screen, ItemFormScreen)
         crane = app.session.condition.deck_items[-1]
         assert (crane.name, crane.mass_t, crane.area_id) == ("Crane", 12.0, "AFTDECK")
+
+
+async def test_editing_a_deck_item_shows_the_room_without_counting_that_item(app, demo):
+    """Editing a load already on an area: the room shown is what the area would have if this load
+    were taken off, since the form replaces it (hand sum: limit × area less the other loads)."""
+    v, c0 = demo
+    aft = v.deck_area("AFTDECK")
+    first = c0.deck_items[0]
+    assert first.area_id == "AFTDECK"
+    others = c0.with_deck_items(c0.deck_items[1:])
+    async with app.run_test(size=(120, 40)) as pilot:
+        app.screen.query_one(LoadBoard).select(("deck", 0))
+        await pilot.press("enter", *["tab"] * 5)
+        form = app.screen
+        assert isinstance(form, ItemFormScreen) and form.focused.id == "item-area"
+        assert form.focused.value == "AFTDECK"  # a whole id: no list until the officer retypes it
+        await pilot.press(*["backspace"] * 7, *"aft")
+        await pilot.pause()
+        line = next(x for x in form.query_one("#area-picker", LinePanel).plain().splitlines() if "AFTDECK" in x)
+        assert f"room {_area_room_t(others, aft):7.1f} t" in line
+        assert f"on it {sum(d.mass_t for d in others.deck_items if d.area_id == 'AFTDECK'):6.1f} t" in line
 
 
 async def test_a_blank_deck_area_stays_blank_unless_one_is_chosen(app, demo):

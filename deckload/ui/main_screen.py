@@ -324,7 +324,9 @@ class LoadingScreen(Screen[None]):
             return self._with_items(deck, entry.replace_at(items, at, item)), item.name
 
         title = f"{'Edit' if index is not None else 'Add'} {noun}"
-        self.app.push_screen(ItemFormScreen(title, form, build, deck=deck, vessel=s.vessel, condition=s.condition),
+        # The area list's room must not count the item being edited: it is what the form replaces.
+        others = s.condition if index is None else self._with_items(deck, items[:index] + items[index + 1:])
+        self.app.push_screen(ItemFormScreen(title, form, build, deck=deck, vessel=s.vessel, condition=others),
                              lambda r: r and self.commit(r[0], f"{title}: {r[1]}", "cargo" if deck else "edit", {noun: r[1]}))
 
     def _with_items(self, deck: bool, items: tuple) -> Condition:
