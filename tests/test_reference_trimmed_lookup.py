@@ -342,6 +342,10 @@ def test_draft_at_the_lcf_inside_the_covered_trims():
     assert eq.draft_mid_m == pytest.approx(T5, abs=ROUND_OFF)
     assert eq.upright.draft_m == pytest.approx(T5 + eq.trim_m / 20, abs=ROUND_OFF)
     assert eq.upright.lcf_m == pytest.approx(18.0, abs=ROUND_OFF)
+    # LCB at the trim found: linear in t, so the blend is the closed form L/2 − L·t/(12·T)
+    assert eq.upright.lcb_m == pytest.approx(L / 2 - L * eq.trim_m / (12 * T5), abs=ROUND_OFF)
+    assert eq.upright.kmt_m == pytest.approx((2 - eq.trim_m) * _kmt(T5, 1.0) + (eq.trim_m - 1) * _kmt(T5, 2.0),
+                                             abs=ROUND_OFF)
 
 
 def test_draft_at_the_lcf_beyond_the_covered_trims():
