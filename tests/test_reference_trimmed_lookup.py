@@ -470,3 +470,22 @@ def test_the_step_limit_of_thirty(t_star, settles):
             equilibrium(v, DISP5, RHO, lcg, 3.0)
         last = [float(x) for x in re.findall(r"[+-]\d+\.\d{4}", str(e.value))]
         assert len(last) == 2 and all(abs(x - t_star) < 2e-4 for x in last)  # |e₂₉|, |e₃₀| ≤ 2.2·0.7²⁹ ≈ 7e-5
+
+
+@pytest.mark.parametrize("trim_m", [2.0, 2.5])
+def test_at_or_beyond_the_last_table_its_neighbour_is_not_read(trim_m):
+    """At and beyond the last table (+2 m) that table alone is used (module docstring: the end table
+    is held), as at the first one (−2 m): the +1 m table, without KML and cut to drafts 4.0–4.75 m
+    (short of Δ = 1640 t), neither refuses the look-up nor takes away the +2 m table's KML, which is
+    KB + BML = 29.300 m at T = 5 m (tests/trimmed_box.py).  The same for KN with the +1 m KN table
+    cut to its first two rows."""
+    v = box(T5, 3.0, 0.98)
+    v = _replace_hydro(v, 1.0, dataclasses.replace(_cut(hydro_at_trim(1.0), 4), kml_m=None))
+    kn1 = v.trimmed.cross_curves[list(v.trimmed.kn_trim_m).index(1.0)]
+    v = _replace_kn(v, 1.0, dataclasses.replace(kn1, displacement_t=frozen_array(kn1.displacement_t[:2]),
+                                                 kn_m=frozen_array(kn1.kn_m[:2])))
+    row = hydro_at(v, v.trimmed, DISP5, trim_m)
+    assert row.kml_m == pytest.approx(_kml(T5, 2.0), abs=ROUND_OFF)
+    assert row.kmt_m == pytest.approx(_kmt(T5, 2.0), abs=ROUND_OFF)
+    assert np.allclose(kn_row_at(v.trimmed, DISP5, trim_m), [kn_exact(T5, 2.0, h) for h in HEELS], rtol=0,
+                       atol=ROUND_OFF)

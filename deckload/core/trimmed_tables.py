@@ -126,9 +126,15 @@ def _clamp(x: float, xs: np.ndarray) -> float:
 
 
 def _trim_bracket(trims: np.ndarray, trim: float) -> tuple[int, float]:
+    """(j, f): the look-up blends tables j and j + 1 with weight f; f = 0 reads table j alone.
+
+    At or beyond the last table that table alone is read, (last, 0), as at or beyond the first:
+    its neighbour, weighted 0, must not refuse the look-up (a shorter displacement grid) nor
+    turn a column it lacks (KML) into a gap in the end table's row."""
     if len(trims) == 1:
         return 0, 0.0
-    return bracket(trims, _clamp(trim, trims), "trim (trimmed tables)", "m")
+    j, f = bracket(trims, _clamp(trim, trims), "trim (trimmed tables)", "m")
+    return (j + 1, 0.0) if f == 1.0 else (j, f)
 
 
 def _at(col: np.ndarray, h: HydrostaticTable, d_eq: float, trim: float) -> float:
