@@ -224,6 +224,7 @@ def test_trimmed_kn_cover_the_trim_only_inside_their_trims():
     assert covers_kn(v, 0.7) and covers_kn(v, -1.0) and covers_kn(v, 1.0)
     assert not covers_kn(v, 1.2) and not covers_kn(v, -1.2)
     assert not covers_kn(box(5.0, 3.0, 0.98, trims=TRIMS, kn_trims=(0.0,)), 0.0)
+    assert covers_kn(box(5.0, 3.0, 0.98, trims=TRIMS, kn_trims=(0.0, 1.0)), 0.5)  # two tables are a set too
     assert not covers_kn(dataclasses.replace(v, trimmed=None), 0.0)
 
 

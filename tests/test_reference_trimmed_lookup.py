@@ -420,6 +420,16 @@ def test_table_state_with_and_without_tables_at_trims():
     ts = table_state(v, DISP5, RHO, L / 2 - 0.98, 3.0)
     assert ts.trimmed is True and ts.trim_note is None
     assert abs(ts.trim_m - exact_trim(T5, 3.0, 0.98)) < 2e-3
+    f = ts.trim_m - 1.0  # between the +1 and +2 m tables
+    assert ts.upright.kmt_m == pytest.approx((1 - f) * _kmt(T5, 1.0) + f * _kmt(T5, 2.0), abs=ROUND_OFF)
+    kml = (1 - f) * _kml(T5, 1.0) + f * _kml(T5, 2.0)
+    assert ts.moment.mctc_tm_cm == pytest.approx(DISP5 * (kml - 3.0) / (100 * L), rel=ROUND_OFF)
+    # tables −1…+1 m, G 1.25 m abaft: ≈ 1.91 m by the stern, beyond them: the coverage caution
+    short = box(T5, 3.0, 1.25, trims=(-1.0, 0.0, 1.0), kn_trims=(-1.0, 0.0, 1.0))
+    ts1 = table_state(short, DISP5, RHO, L / 2 - 1.25, 3.0)
+    assert ts1.trim_note == (f"trim {ts1.trim_m:.2f} m by the stern is outside the trims tabulated: hydrostatics "
+                             "tables cover -1.00 to +1.00 m; the +1.00 m table is used; KN tables cover -1.00 to "
+                             "+1.00 m; the +1.00 m table is used; drafts and KN less certain")
     plain = dataclasses.replace(v, trimmed=None)
     ts0 = table_state(plain, DISP5, RHO, L / 2 - 0.98, 3.0)
     assert ts0.trimmed is False
@@ -427,6 +437,7 @@ def test_table_state_with_and_without_tables_at_trims():
     assert ts0.trim_note == (f"trim {ts0.trim_m:.2f} m by the stern ({100 * ts0.trim_m / L:.1f} % of LBP): the "
                              "tables are for even keel; drafts and KN less certain")
     assert ts0.upright.kmt_m == pytest.approx(_kmt(T5, 0.0), abs=ROUND_OFF)
+    assert ts0.moment.mctc_tm_cm == pytest.approx(DISP5 * (_kml(T5, 0.0) - 3.0) / (100 * L), rel=ROUND_OFF)
 
 
 
