@@ -39,7 +39,7 @@ from deckload.core.trimmed_tables import (
     kn_row_at,
     table_state,
 )
-from trimmed_box import DRAFTS, HEELS, KN_DRAFTS, B, L, RHO, box, exact_trim, hydro_at_trim, kb, kn_exact
+from trimmed_box import HEELS, B, L, RHO, box, exact_trim, hydro_at_trim, kb, kn_exact
 
 ROUND_OFF = 1e-9
 T5 = 5.0
