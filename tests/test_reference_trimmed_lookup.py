@@ -397,7 +397,8 @@ def test_iteration_that_cannot_settle_is_refused_with_its_last_two_estimates():
     msg = str(e.value)
     m = re.fullmatch(r"the trim did not settle within 30 steps of the trimmed tables \(last estimates "
                      r"([+-]\d+\.\d{4}) and ([+-]\d+\.\d{4}) m, tolerance 0\.1 mm\): the tables' LCB does not move "
-                     r"aft as the trim by the stern grows; check \[\[hydrostatics_at_trim\]\] against the booklet", msg)
+                     r"aft as the trim by the stern grows, or their MCTC \(or KML\) is far too small; check "
+                     r"\[\[hydrostatics_at_trim\]\] \(LCB, KML, MCTC\) against the booklet", msg)
     assert m, msg
     assert float(m.group(1)) == pytest.approx(t_b, abs=1e-4) and float(m.group(2)) == pytest.approx(t_a, abs=1e-4)
 

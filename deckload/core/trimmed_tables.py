@@ -82,8 +82,8 @@ class TrimNotSettledError(OutOfRangeError):
         super().__init__("trim (trimmed tables)", last_m, last_m, last_m, "m")
         self.args = (f"the trim did not settle within {MAX_STEPS} steps of the trimmed tables (last estimates "
                      f"{before_m:+.4f} and {last_m:+.4f} m, tolerance {TRIM_TOLERANCE_M * 1000:g} mm): the tables' LCB "
-                     "does not move aft as the trim by the stern grows; check [[hydrostatics_at_trim]] "
-                     "against the booklet",)
+                     "does not move aft as the trim by the stern grows, or their MCTC (or KML) is far too small; check "
+                     "[[hydrostatics_at_trim]] (LCB, KML, MCTC) against the booklet",)
 
 
 class TrimBeyondTablesError(OutOfRangeError):
