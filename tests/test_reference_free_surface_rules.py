@@ -233,6 +233,24 @@ def test_worst_group_is_judged_by_density_times_inertia():
     assert tank_of(r, "FO1C").fsm_tm == 0.0
 
 
+@pytest.mark.parametrize("order", [("FO1C", "FO2C"), ("FO2C", "FO1C")])
+def test_a_tie_between_equal_groups_is_broken_toward_the_larger_total(order):
+    """B 3.1.4 names no tie-break.  Two identical fixed-level fuel-oil tanks 8 × 4 × 2 m at 0.95 t/m³
+    (ρ·i = 0.95·8·4³/12 = 40.53 t·m each, the same at every level of a box): FO1C empty, FO2C at
+    50 %.  Assuming the empty one slack gives ρ·i + ρ·i (FO2C at its actual level) = 81.07 t·m;
+    assuming the slack one gives only 40.53 t·m.  The conservative answer, 81.07 t·m, whatever the
+    order of the tanks in the profile."""
+    dims = dict(length_m=8, breadth_m=4, height_m=2, lcg_m=X_MID, kind="fuel_oil", density_t_m3=0.95,
+                fs_category="fixed")
+    tanks = {tid: box_tank(tid, **dims) for tid in order}
+    r = evaluate(vessel([tanks[tid] for tid in order], limit_m=0.0),
+                 Condition(tanks=(fill("FO1C", 0), fill("FO2C", 50))))
+    rho_i = 0.95 * 8 * 4**3 / 12
+    assert tank_of(r, "FO1C").fs_rule == "assumed slack: worst centreline tank of fuel oil (IS 2008 B 3.1.4)"
+    assert tank_of(r, "FO2C").fs_rule == ACTUAL_IS2008
+    assert r.fsm_total_tm == pytest.approx(2 * rho_i, rel=1e-12)
+
+
 # --------------------------------------------------------------------------- B 3.1.12 small tanks
 
 
