@@ -49,3 +49,26 @@ def test_version(capsys):
     with pytest.raises(SystemExit) as e:
         main(["--version"])
     assert e.value.code == 0 and capsys.readouterr().out.strip() == f"deckload {__version__}"
+
+
+def test_a_command_parsed_alone_reads_and_reports_as_with_every_command_declared(capsys):
+    """`deckload calc ...` declares only the calc sub-command (start-up time): the same commands
+    exist, and each one's help, and its errors, read the same as with every command declared."""
+    from deckload.cli.main import COMMANDS, _parser
+
+    full = _parser()
+    declared = next(a for a in full._actions if a.dest == "command").choices
+    assert tuple(declared) == COMMANDS
+    for name in COMMANDS:
+        alone = _parser(name)
+        assert tuple(next(a for a in alone._actions if a.dest == "command").choices) == (name,)
+        for argv in ([name, "--help"], [name, "--no-such-option"], [name], [name, "demo", "departure"]):
+            said = []
+            for parser in (full, alone):
+                try:
+                    got = ("parsed", vars(parser.parse_args(argv)))
+                except SystemExit as stop:
+                    got = ("exit", stop.code)
+                out = capsys.readouterr()
+                said.append((got, out.out, out.err))
+            assert said[0] == said[1], (argv, said)

@@ -110,6 +110,15 @@ def test_a_non_finite_computed_number_is_refused_naming_it(vessel):
         bounds.checked_result(vessel, dataclasses.replace(good, tanks=(good.tanks[0], tank, *good.tanks[2:])))
     with pytest.raises(bounds.NonFiniteResultError, match=r"gz_m\[2\]"):
         bounds.checked_result(vessel, dataclasses.replace(good, gz_m=np.array([0.0, 0.1, np.nan])))
+    # The quick pass sums the floats it meets: +inf in one place and -inf in another sum to NaN,
+    # a numpy scalar is a float too; each is still refused and named.
+    with pytest.raises(bounds.NonFiniteResultError, match="gm_fluid_m"):
+        bounds.checked_result(vessel, dataclasses.replace(good, gm_fluid_m=math.inf, gz_m=(0.0, -math.inf)))
+    with pytest.raises(bounds.NonFiniteResultError, match="gm_fluid_m"):
+        bounds.checked_result(vessel, dataclasses.replace(good, gm_fluid_m=np.float64("nan")))
+    # Finite numbers whose sum overflows are no refusal (the slow pass clears the quick one's doubt).
+    big = dataclasses.replace(good, gz_m=(1e308, 1e308, 1e308))
+    assert bounds.checked_result(vessel, big) is big
     assert bounds.checked_result(vessel, good) is good
 
 

@@ -38,7 +38,7 @@ async def type_fast(app, pilot, keys: list[str]) -> None:
     """Every key to the driver at once (no wait between keys), then wait until all are handled."""
     await pilot.pause()
     for k in keys:
-        char = k if len(k) == 1 else None
+        char = k if len(k) == 1 else {"minus": "-", "plus": "+"}.get(k)
         app._driver.send_message(events.Key(_NAMES.get(k, k), char))
     quiet = 0
     for _ in range(400):  # up to 20 s on a loaded machine; ends once every key is handled
@@ -83,6 +83,28 @@ async def test_a_key_typed_after_enter_closes_a_form_reaches_the_loading_screen(
     async with app.run_test(size=(120, 40)) as pilot:
         await type_fast(app, pilot, ["enter", *"50%", "enter", "u"])
         assert app.session.condition == c0 and app.session.redo_depth == 1
+
+
+async def test_nudges_typed_at_once_around_a_form_land_in_order_and_never_in_its_field(app, demo):
+    """+ and - are taken by the loading screen before the board sees them (commands.Command.first):
+    typed at once, the nudges before ⏎ change the tank, the "-" and "+" typed while the set dialog
+    is open go into its field (its preview refuses "4-0+" and ⏎ changes nothing), Esc closes it, and the
+    "+" after it nudges again, in the order typed."""
+    from deckload.ui.dialogs import PromptForm
+    from deckload.ui.widgets import LoadBoard
+
+    v, c0 = demo
+    async with app.run_test(size=(120, 40)) as pilot:
+        app.screen.query_one(LoadBoard).select(("tank", "FO1P"))
+        before = c0.tank_fill("FO1P").value
+        await type_fast(app, pilot, ["minus", "minus", "plus", "enter", "4", "minus", "0", "plus"])
+        assert isinstance(app.screen, PromptForm)
+        assert [i.value for i in app.screen.query(Input)] == ["4-0+"]
+        assert app.session.condition.tank_fill("FO1P").value == pytest.approx(before - 1.0)  # − − +: one down
+        await type_fast(app, pilot, ["escape", "plus"])
+        assert not isinstance(app.screen, PromptForm)
+        assert app.session.condition.tank_fill("FO1P").value == pytest.approx(before)
+        assert app.session.undo_depth == 4
 
 
 def screen_text(app) -> list[str]:

@@ -13,7 +13,22 @@ import sys
 from pathlib import Path
 
 
-def _parser() -> argparse.ArgumentParser:
+COMMANDS = ("open", "calc", "check", "tables", "csv", "marks", "report", "log")
+"""The sub-commands, as :func:`_parser` declares them."""
+
+
+class _NotDeclared:
+    """Stands for a sub-command's parser that this run does not need (see :func:`_parser`)."""
+
+    def __getattr__(self, name):
+        return lambda *args, **kwargs: self
+
+
+def _parser(only: str | None = None) -> argparse.ArgumentParser:
+    """The command line.  ``only``: the sub-command typed first, when it is one; the others are
+    then not declared (argparse builds a help formatter and looks up its message translations
+    for every argument: some 15 ms that ``deckload calc`` would spend on the other commands).
+    Its help, usage and error messages are the same either way."""
     p = argparse.ArgumentParser(
         prog="deckload",
         description=(
@@ -27,40 +42,45 @@ def _parser() -> argparse.ArgumentParser:
     p.add_argument("--no-cache", action="store_true",
                    help="read the profile from its files, not from the cache of validated profiles "
                         "(the same as setting DECKLOAD_NO_CACHE=1)")
-    sub = p.add_subparsers(dest="command")
+    # The metavar argparse would make from every command, so that usage lines read the same when
+    # only one is declared.
+    sub = p.add_subparsers(dest="command", metavar="{" + ",".join(COMMANDS) + "}")
 
-    o = sub.add_parser("open", help="open the loading screen on a vessel (default: the demo vessel)")
+    def add(name: str, **kwargs):
+        return sub.add_parser(name, **kwargs) if only is None or name == only else _NotDeclared()
+
+    o = add("open", help="open the loading screen on a vessel (default: the demo vessel)")
     o.add_argument("profile", nargs="?", type=Path)
     o.add_argument("condition", nargs="?", type=Path)
 
-    c = sub.add_parser("calc", help="compute a loading condition and print the result")
+    c = add("calc", help="compute a loading condition and print the result")
     c.add_argument("profile", type=Path)
     c.add_argument("condition", type=Path)
     c.add_argument("--json", action="store_true", help="print one JSON object (SI units)")
     c.add_argument("--direct", action="store_true",
                    help="also compute from the hull geometry and print both methods side by side")
 
-    k = sub.add_parser("check", help="validate a vessel profile and, optionally, a loading condition")
+    k = add("check", help="validate a vessel profile and, optionally, a loading condition")
     k.add_argument("profile", type=Path)
     k.add_argument("condition", nargs="?", type=Path)
 
-    t = sub.add_parser("tables", help="compute hydrostatic, cross-curve and tank tables from hull geometry")
+    t = add("tables", help="compute hydrostatic, cross-curve and tank tables from hull geometry")
     t.add_argument("geometry", type=Path)
     t.add_argument("-o", "--output", type=Path, help="profile to write or refresh (default: print to stdout)")
     t.add_argument("--trims", metavar="T1,T2,...",
                    help="also hydrostatics and KN at these trims (m, + by the stern, comma-separated, not 0)")
 
-    x = sub.add_parser("csv", help="write a profile's tables as CSV files, in the booklet's conventions, to compare")
+    x = add("csv", help="write a profile's tables as CSV files, in the booklet's conventions, to compare")
     x.add_argument("profile", type=Path)
     x.add_argument("folder", type=Path, help="folder to write the CSV files in (created if missing)")
-    mk = sub.add_parser("marks", help="drafts at the marks; with readings, the displacement and LCG they imply")
+    mk = add("marks", help="drafts at the marks; with readings, the displacement and LCG they imply")
     mk.add_argument("profile", type=Path)
     mk.add_argument("condition", type=Path)
     for where in ("aft", "mid", "fwd"):
         mk.add_argument(f"--{where}", nargs=2, type=_reading, metavar=("PORT", "STBD"),
                         help=f"{where} draft readings, port and starboard (m, extreme)")
 
-    r = sub.add_parser("report", help="printable loading-condition report")
+    r = add("report", help="printable loading-condition report")
     r.add_argument("profile", type=Path)
     r.add_argument("condition", type=Path)
     fmt = r.add_mutually_exclusive_group()
@@ -69,7 +89,7 @@ def _parser() -> argparse.ArgumentParser:
     r.add_argument("-o", "--output", type=Path)
     r.add_argument("--direct", action="store_true", help="add the direct calculation from the hull geometry")
 
-    lg = sub.add_parser("log", help="the voyage loading log")
+    lg = add("log", help="the voyage loading log")
     lg.add_argument("--dir", type=Path, help="log folder (default: ./logs in a checkout, else per-user)")
     lsub = lg.add_subparsers(dest="log_command", required=True)
     rec = lsub.add_parser("record", help="record a loading condition in the log")
@@ -221,7 +241,8 @@ def _join_trims(argv: list[str]) -> list[str]:
 
 
 def _main(argv: list[str] | None) -> int:
-    args = _parser().parse_args(_join_trims(list(sys.argv[1:] if argv is None else argv)))
+    argv = _join_trims(list(sys.argv[1:] if argv is None else argv))
+    args = _parser(argv[0] if argv and argv[0] in COMMANDS else None).parse_args(argv)
     if args.no_cache:
         os.environ["DECKLOAD_NO_CACHE"] = "1"  # for the screen too, which reads it where it loads
     unknown = _demo_shorthand(args)

@@ -190,28 +190,53 @@ class BeyondTablesError(OutOfRangeError):
 
 
 _FIELD_NAMES: dict[type, tuple[str, ...]] = {}
+"""Per dataclass type, its field names: looked up once per type, not once per object."""
+_PLAIN = frozenset((str, bool, int, type(None)))
 
 
 def _all_finite(obj) -> bool:
     """True when every number in ``obj`` is certainly finite: the quick pass over a result (no
-    path strings are built); False sends :func:`_non_finite` the slow way to name the bad one."""
-    t = type(obj)
-    if t is float:
-        return math.isfinite(obj)
-    if obj is None or t is str or t is bool or t is int:
-        return True
-    if t is tuple or t is list:
-        return all(map(_all_finite, obj))
-    names = _FIELD_NAMES.get(t)
-    if names is None and dataclasses.is_dataclass(obj) and not isinstance(obj, type):
-        names = _FIELD_NAMES[t] = tuple(f.name for f in dataclasses.fields(obj))
-    if names is not None:
-        return all(_all_finite(getattr(obj, n)) for n in names)
-    if isinstance(obj, np.ndarray) and obj.dtype.kind in "fc":
-        return bool(np.isfinite(obj).all())
-    if isinstance(obj, np.floating):
-        return bool(np.isfinite(obj))
-    return False  # anything else: the slow pass decides
+    path strings are built); False sends :func:`_non_finite` the slow way to name the bad one.
+
+    One walk without recursion: the floats met are gathered and summed once, each numpy array
+    of floats is checked in one call.  A sum of floats is finite only if every one of them is
+    (an infinity or a NaN makes the sum infinite or NaN, derived from IEEE 754 addition); a
+    finite sum that overflowed is a false alarm the slow pass clears.  Anything not known
+    here (another type) is False: the slow pass decides."""
+    floats: list[float] = []
+    keep = floats.append
+    stack = [obj]
+    pop, push, extend = stack.pop, stack.append, stack.extend
+    names_of = _FIELD_NAMES.get
+    while stack:
+        o = pop()
+        t = type(o)
+        if t is float:
+            keep(o)
+        elif t in _PLAIN:
+            continue
+        elif t is tuple or t is list:
+            extend(o)
+        else:
+            names = names_of(t)
+            if names is None:
+                if dataclasses.is_dataclass(o) and not isinstance(o, type):
+                    names = _FIELD_NAMES[t] = tuple(f.name for f in dataclasses.fields(o))
+                elif t is np.ndarray:
+                    if o.dtype.kind in "fc":
+                        if not np.isfinite(o).all():
+                            return False
+                    elif o.dtype.kind not in "biu":
+                        return False
+                    continue
+                elif isinstance(o, np.floating):
+                    keep(float(o))
+                    continue
+                else:
+                    return False
+            for n in names:
+                push(getattr(o, n))
+    return math.isfinite(sum(floats))
 
 
 def _non_finite(obj, path: str) -> str | None:

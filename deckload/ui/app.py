@@ -32,6 +32,48 @@ def screen_ready(screen: Screen) -> bool:
     return screen.is_mounted and (screen.focused is not None or not screen.focus_chain)
 
 
+class _Walk:
+    """One step of :meth:`DeckloadApp._follow` at ``node``.  Its steps are bound methods posted as
+    ``Callback`` messages: textual counts a callback's parameters with ``inspect.signature``
+    unless the function has been seen before, which a bound method's function has (a closure or
+    a ``call_later`` partial made for each key is new every time: some 20 signature reads a key)."""
+
+    __slots__ = ("app", "node", "event", "walk")
+
+    def __init__(self, app: "DeckloadApp", node, event: events.Key, walk: int) -> None:
+        self.app, self.node, self.event, self.walk = app, node, event, walk
+
+    def start(self) -> None:
+        if self.node is self.app or not _post(self.node, self.again):
+            self.done()
+
+    def done(self) -> None:
+        _post(self.app, self.finish)
+
+    def finish(self) -> None:
+        self.app._key_done(self.event, self.walk)
+
+    def again(self) -> None:
+        if self.event is self.app._key_in_flight and not _post(self.node, self.step):
+            self.done()
+
+    def step(self) -> None:
+        if self.event is not self.app._key_in_flight:
+            return
+        parent = self.node.parent
+        if parent is None or parent is self.app:
+            self.done()
+            return
+        nxt = _Walk(self.app, parent, self.event, self.walk)
+        if not _post(parent, nxt.start):
+            self.done()
+
+
+def _post(node, fn) -> bool:
+    """``node.call_later(fn)`` without the per-call ``functools.partial`` (see :class:`_Walk`)."""
+    return node.post_message(events.Callback(callback=fn))
+
+
 class DeckloadApp(App[None]):
     CSS_PATH = "deckload.tcss"
     TITLE = "deckload"
@@ -97,22 +139,7 @@ class DeckloadApp(App[None]):
         on it) have been handled, and the next key may go.  At each widget the walk queues up
         twice: once behind the key, once behind what handling the key posted to the widget itself.
         ``walk`` 1 is the walk begun when the key came back to the app and its binding ran."""
-        def done() -> None:
-            self.call_later(self._key_done, event, walk)
-
-        def again() -> None:
-            if event is self._key_in_flight and not node.call_later(step):
-                done()
-
-        def step() -> None:
-            if event is not self._key_in_flight:
-                return
-            parent = node.parent
-            if parent is None or parent is self or not parent.call_later(self._follow, parent, event, walk):
-                done()
-
-        if node is self or not node.call_later(again):
-            done()
+        _Walk(self, node, event, walk).start()
 
     def _key_done(self, event: events.Key, walk: int) -> None:
         if event is self._key_in_flight and walk == int(self._key_returned):

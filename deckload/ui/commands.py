@@ -33,6 +33,11 @@ class Command:
     """Words a mate might type for it in the command palette (sounding, print, ballast...)."""
     rank: int = 3
     """Which footer keys stay on a narrow screen: lowest first (0: always; ? lists every key)."""
+    first: bool = False
+    """Taken by the loading screen before the widget in focus sees the key (a textual priority
+    binding): only for keys no widget of that screen takes (the board uses the arrows, Home, End,
+    Page up/down, j and k).  The key then runs at once instead of bubbling up from the board
+    and being followed along the focus chain (``DeckloadApp._follow``): the nudge, typed most."""
 
     @property
     def name(self) -> str:
@@ -61,9 +66,9 @@ COMMANDS: tuple[Command, ...] = (
             "1.2m (sounding), 0.85u (ullage); hold mass in t; a deck load or constant opens its form (mass, position).",
             display="⏎", title="Set amount", words="sounding, ullage, percent, volume, mass, bunker, tank level", rank=1),
     Command("nudge(1)", "plus,equals_sign", "±1%", "Raise the tank under the cursor by 1 % of capacity "
-            "(a hold or item by 1 t).", display="+ -", title="Raise 1 %", rank=2),
+            "(a hold or item by 1 t).", display="+ -", title="Raise 1 %", rank=2, first=True),
     Command("nudge(-1)", "minus", "−1%", "Lower the tank under the cursor by 1 % of capacity (a hold or item by 1 t).",
-            display="-", footer=False, title="Lower 1 %"),
+            display="-", footer=False, title="Lower 1 %", first=True),
     Command("fill", "f", "Full", "Fill the tank under the cursor to its kind's usual maximum (the profile's [usual_fill]: oils 95 %, "
             "water and ballast 100 % unless it says otherwise); f again fills it to 100 %.", words="fill, full, top up", rank=3),
     Command("empty", "e", "Empty", "Empty the tank or hold under the cursor; remove the deck load or constant.", rank=3),
@@ -156,6 +161,6 @@ def bindings():
     from textual.binding import Binding
 
     return [
-        Binding(c.keys, c.action, c.label, show=c.footer, key_display=c.display, priority=False)
+        Binding(c.keys, c.action, c.label, show=c.footer, key_display=c.display, priority=c.first)
         for c in COMMANDS
     ]

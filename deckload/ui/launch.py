@@ -68,13 +68,28 @@ def _usable(vessel: Vessel, condition: Condition, path: Path) -> Condition:
     from deckload.core.tables import OutOfRangeError
     from deckload.io.profiles import Problem, ProfileError
 
+    global _checked
     try:
-        evaluate(vessel, condition)
+        _checked = (vessel, condition, evaluate(vessel, condition))
     except OutOfRangeError:
         pass
     except ValueError as exc:
         raise ProfileError([Problem(str(path), None, "", None, f"cannot be computed: {exc}")]) from None
     return condition
+
+
+_checked: tuple | None = None
+"""(vessel, condition, result) of the last condition :func:`_usable` evaluated: the screen made
+for that very vessel and condition starts from it instead of evaluating it a second time (the
+model is immutable, so the same objects give the same result)."""
+
+
+def _result_already_made(vessel: Vessel, condition: Condition):
+    global _checked
+    made, _checked = _checked, None
+    if made is not None and made[0] is vessel and made[1] is condition:
+        return made[2]
+    return None
 
 
 def _tidy_working_folder(work_dir: Path, saved: Path, vessel: Vessel) -> list[str]:
@@ -148,7 +163,8 @@ def create_app(
         # so this window must not overwrite it.
         save_path = None
         extra.append("This window does not save the working condition: another deckload has this vessel open.")
-    session = Session(vessel, condition, save_path=save_path, journal=journal)
+    session = Session(vessel, condition, save_path=save_path, journal=journal,
+                      result=_result_already_made(vessel, condition))
     from deckload.io import paths
 
     session.profile_path = profile_path

@@ -22,7 +22,7 @@ from textual.screen import Screen
 from deckload.core.model import Condition
 from deckload.ui import entry, verdict, views
 from deckload.ui.commands import bindings, footer_keys
-from deckload.ui.dialogs import HelpScreen, TextScreen, ItemFormScreen, PromptForm, RecordForm, TransferForm
+from deckload.ui.compositor import RowCompositor
 from deckload.ui.entry import EntryError, ItemForm
 from deckload.ui.palette import P
 from deckload.ui.session import Session
@@ -41,6 +41,7 @@ class LoadingScreen(Screen[None]):
 
     def __init__(self, session: Session):
         super().__init__()
+        self._compositor = RowCompositor()  # a key repaints only the rows it changed (ui/compositor.py)
         self.session = session
         self._settle_timer = None
         self._criteria_made: tuple | None = None
@@ -276,6 +277,8 @@ class LoadingScreen(Screen[None]):
             self.say(DWT_HINT, ok=False)
 
     def _edit_tank(self, tank_id: str) -> None:
+        from deckload.ui.dialogs import PromptForm  # forms load when first opened, not at start
+
         s = self.session
         tank, fill = s.vessel.tank(tank_id), s.condition.tank_fill(tank_id)
         hint = entry.amount_hint(tank, fill)
@@ -294,6 +297,8 @@ class LoadingScreen(Screen[None]):
         self.app.push_screen(PromptForm(f"{tank.id}  {tank.name}", hint, entry.fill_text(fill), build, preview), done)
 
     def _edit_hold(self, hold_id: str) -> None:
+        from deckload.ui.dialogs import PromptForm  # forms load when first opened, not at start
+
         s = self.session
         hold = s.vessel.hold(hold_id)
         load = next((h for h in s.condition.holds if h.hold_id == hold_id), None)
@@ -313,6 +318,8 @@ class LoadingScreen(Screen[None]):
         self.app.push_screen(form, done)
 
     def _edit_item(self, deck: bool, index: int | None) -> None:
+        from deckload.ui.dialogs import ItemFormScreen  # forms load when first opened, not at start
+
         s = self.session
         items = s.condition.deck_items if deck else s.condition.constants
         noun = "deck load" if deck else "constant"
@@ -399,6 +406,8 @@ class LoadingScreen(Screen[None]):
             self.say("Put the cursor on a tank, hold or item to empty or remove it.", ok=False)
 
     def action_transfer(self) -> None:
+        from deckload.ui.dialogs import TransferForm  # forms load when first opened, not at start
+
         s = self.session
         what, ident = self._key
         src = dst = ""
@@ -439,6 +448,8 @@ class LoadingScreen(Screen[None]):
         self._edit_item(False, None)
 
     def action_density(self) -> None:
+        from deckload.ui.dialogs import PromptForm  # forms load when first opened, not at start
+
         s = self.session
         lo, hi = entry.WATER_DENSITY_RANGE_T_M3
         build = lambda text: entry.density_from_text(s.condition, text)  # noqa: E731
@@ -449,6 +460,8 @@ class LoadingScreen(Screen[None]):
                                         {"water_density_t_m3": c.water_density_t_m3}))
 
     def action_tank_density(self) -> None:
+        from deckload.ui.dialogs import PromptForm  # forms load when first opened, not at start
+
         what, ident = self._key
         if what != "tank":
             self.say("Tank density applies to tanks: put the cursor on a tank (d sets the water she floats in).",
@@ -530,12 +543,16 @@ class LoadingScreen(Screen[None]):
             self.say("Wind and roll plot: b again for the plain GZ curve" if on else "GZ curve", ok=None)
 
     def action_verdict(self) -> None:
+        from deckload.ui.dialogs import TextScreen  # forms load when first opened, not at start
+
         s = self.session
         lines = verdict.verdict_page(None if s.stale else s.result, width=max(40, min(94, self.size.width - 6)))  # .form.help 100 − border, padding, scrollbar
         title = "Verdict" + (" (last good result: the condition is outside the tables)" if s.stale else "")
         self.app.push_screen(TextScreen(title, lines))
 
     def action_record(self) -> None:
+        from deckload.ui.dialogs import RecordForm  # forms load when first opened, not at start
+
         j = self.session.journal
         if not j.writable:
             self.say(f"The voyage log cannot be written ({j.problem or 'no log'}); nothing recorded.", ok=False)
@@ -552,6 +569,8 @@ class LoadingScreen(Screen[None]):
         self.app.push_screen(RecordForm(j.officer, None), done)
 
     def action_sign_on(self) -> None:
+        from deckload.ui.dialogs import PromptForm  # forms load when first opened, not at start
+
         j = self.session.journal
         if not j.writable:
             self.say(f"The voyage log cannot be written ({j.problem or 'no log'}).", ok=False)
@@ -678,6 +697,8 @@ class LoadingScreen(Screen[None]):
         self.app.show_log()
 
     def action_alerts(self) -> None:
+        from deckload.ui.dialogs import TextScreen  # forms load when first opened, not at start
+
         s = self.session
         every = views.alerts(s.result, s.stale, s.problem)
         self.app.push_screen(TextScreen("Warnings", alert_lines(every, len(every) + 1)))  # whole, the page wraps
@@ -692,6 +713,8 @@ class LoadingScreen(Screen[None]):
         self.app.push_screen(HullCompareScreen(s.vessel, s.result))
 
     def action_help(self) -> None:
+        from deckload.ui.dialogs import HelpScreen  # forms load when first opened, not at start
+
         self.app.push_screen(HelpScreen())
 
     async def action_quit(self) -> None:

@@ -160,6 +160,7 @@ class Session:
         journal: Journal | None = None,
         evaluate: Callable[[Vessel, Condition], Result] | None = None,
         save: Callable[[Path, Condition], None] | None = None,
+        result: Result | None = None,
     ):
         if evaluate is None:
             from deckload.core.stability import evaluate
@@ -202,7 +203,7 @@ class Session:
         """Condition-file saves the writer thread has made (queued saves coalesce: fewer than changes)."""
         self._report: Callable[[str], None] = lambda problem: None
         self._landed: Callable[[], None] = lambda: None
-        self._recompute()
+        self._recompute(result)  # ``result``: evaluate(vessel, condition), when the caller has it already
 
     # ------------------------------------------------------------------ queries
 

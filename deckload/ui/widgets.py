@@ -33,6 +33,20 @@ def _strip(text: Text, console) -> Strip:
 
 _NULL = Style.null()
 
+_SUMS: dict[tuple[Style, Style], Style] = {}
+"""``a + b`` of rich styles, kept: the panels combine a handful of palette styles (ui/palette.py)
+over and over, and rich's ``Style.__add__`` is a method call, type checks and a cache lookup each time."""
+
+
+def _plus(a: Style, b: Style) -> Style:
+    key = (a, b)
+    got = _SUMS.get(key)
+    if got is None:
+        if len(_SUMS) > 4096:  # a bound, in case styles were made without end (not our panels)
+            _SUMS.clear()
+        got = _SUMS[key] = a + b
+    return got
+
 
 def _line_strip(text: Text, width: int, own: Style, console) -> Strip:
     """``text`` as one line ``width`` cells wide on the panel's style ``own``: what
@@ -51,10 +65,10 @@ def _line_strip(text: Text, width: int, own: Style, console) -> Strip:
     segments: list[Segment] = []
     add = segments.append
     if not spans:  # a line of one style ("✔ done", "no result"): its base style is its colour
-        add(Segment(plain, own + base))
+        add(Segment(plain, _plus(own, base)))
     else:
         pos = 0
-        own_base = own + base
+        own_base = _plus(own, base)
         for span in spans:
             start, end, style = span
             if start < pos or not isinstance(style, Style):
@@ -63,7 +77,7 @@ def _line_strip(text: Text, width: int, own: Style, console) -> Strip:
                 continue
             if start > pos:
                 add(Segment(plain[pos:start], own_base))
-            add(Segment(plain[start:end], own + (base + style)))
+            add(Segment(plain[start:end], _plus(own, _plus(base, style))))
             pos = end
         if pos < len(plain):
             add(Segment(plain[pos:], own_base))
@@ -77,6 +91,12 @@ class LinePanel(Widget):
 
     The panel's own style (``rich_style``, a walk up the parents) is read once per render
     pass, not once per line; the finished lines are kept until their text or that style changes.
+
+    textual's partial update renders every widget that overlaps the box around all the regions
+    to repaint, each whole: after a key that changes the title and the message line that is every
+    panel.  A panel nothing has marked dirty since its last render (textual's own line cache
+    would give the same lines) hands back the strips it gave then: same crop, size, background
+    and line filters, else it renders as usual.
     """
 
     def __init__(self, *, id: str | None = None, classes: str | None = None):
@@ -85,6 +105,8 @@ class LinePanel(Widget):
         self._strips: dict[int, Strip] = {}
         self._style: Style | None = None
         self._width: int | None = None
+        self._painted: tuple[tuple, list[Strip]] | None = None
+        """(what the strips were rendered for, the strips) of the last render, until marked dirty."""
 
     @property
     def lines(self) -> list[Text]:
@@ -98,10 +120,11 @@ class LinePanel(Widget):
             self.refresh()
             return
         width = self.size.width
-        for y, (a, b) in enumerate(zip(old, lines)):
-            if a != b:
-                self._strips.pop(y, None)
-                self.refresh(Region(0, y, width, 1))
+        changed = [Region(0, y, width, 1) for y, (a, b) in enumerate(zip(old, lines)) if a != b]
+        for r in changed:
+            self._strips.pop(r.y, None)
+        if changed:  # one refresh for all of them: each call is a walk through textual's bookkeeping
+            self.refresh(*changed)
 
     def on_resize(self) -> None:
         self._strips.clear()
@@ -109,16 +132,59 @@ class LinePanel(Widget):
     def plain(self) -> str:
         return "\n".join(t.plain for t in self._lines)
 
+    def _set_dirty(self, *regions: Region) -> None:
+        # Every repaint textual asks for comes here (refresh, scroll, style updates).
+        self._painted = None
+        super()._set_dirty(*regions)
+
     def render_lines(self, crop: Region) -> list[Strip]:
+        app = self.app
+        colours = self.background_colors
+        # (A change of theme restyles, and so marks dirty, every widget.)
+        made_for = (crop, self.size, colours, tuple((f, f.enabled) for f in app._filters))
+        painted = self._painted
+        if painted is not None and painted[0] == made_for:
+            return list(painted[1])
         # Style and width once for every line of this pass: each is a walk up the parents.
         style, self._width = self.rich_style, self.size.width
         if style != self._style:
             self._style = style
             self._strips.clear()
         try:
-            return super().render_lines(crop)
+            strips = self._bare_lines(crop, colours[1]) if self._plain_box() else super().render_lines(crop)
         finally:
             self._width = None
+        self._painted = (made_for, strips)
+        return list(strips)
+
+    def _plain_box(self) -> bool:
+        """True when textual would put this panel's lines on the screen as they are: no border,
+        padding, outline, tint, hatch, opacity or text opacity, no border title, no scroll bar
+        and no link under the mouse (the panels' styles in deckload.tcss)."""
+        st = self.styles
+        return (not any(st.gutter) and not any(kind for kind, _ in st.outline) and not st.tint.a
+                and st.text_opacity == 1.0 and not st.has_rule("hatch") and self.opacity == 1.0
+                and self._border_title is None and self._border_subtitle is None
+                and not (self.auto_links and self.hover_style._link_id)
+                and self.content_region.size == self.size)
+
+    def _bare_lines(self, crop: Region, background) -> list[Strip]:
+        """What textual's line cache (``StylesCache.render_widget``) gives for a plain box (see
+        :meth:`_plain_box`): each content line as it is, through the app's line filters, cropped
+        to the columns asked for; without its per-line walk through every border, padding and
+        outline rule (most of the cost of a changed line).  The filters' results are kept on the
+        finished strips, so an unchanged line is filtered once."""
+        filters = self.app.get_line_filters()
+        strips = []
+        for y in crop.line_range:
+            strip = self.render_line(y)
+            for f in filters:
+                strip = strip.apply_filter(f, background)
+            strips.append(strip)
+        x1, x2 = crop.column_span
+        if (x1, x2) != (0, self.size.width):
+            strips = [strip.crop(x1, x2) for strip in strips]
+        return strips
 
     def render_line(self, y: int) -> Strip:
         if self._width is None:  # called outside a render pass
@@ -227,9 +293,12 @@ class LoadBoard(ScrollView, can_focus=True):
 
     def _refresh_rows(self, indices) -> None:
         top, width = int(self.scroll_offset.y), self.scrollable_content_region.width
+        regions = []
         for i in indices:
             self._strips.pop(i, None)
-            self.refresh(Region(0, i - top, width, 1))
+            regions.append(Region(0, i - top, width, 1))
+        if regions:
+            self.refresh(*regions)
 
     def action_move(self, delta: int) -> None:
         start = max(0, min(len(self.rows) - 1, self.cursor + delta))

@@ -1,0 +1,82 @@
+"""A textual compositor whose partial updates render only the rows each widget must repaint.
+
+textual's partial update (``Compositor.render_partial_update``) renders every widget that
+overlaps the box around all the regions to repaint, each widget whole, and then keeps only
+the rows that changed.  A key on the loading screen changes the title (top row), the message
+line (bottom row) and a few rows between, so every widget of the screen was rendered in full
+for every key (about 250 lines), most of it thrown away.
+
+:class:`RowCompositor` renders each widget only over the band of its rows, from the first to
+the last, on which a region to repaint crosses the widget's columns; a widget no such region
+crosses is not rendered.  What the terminal receives is the same: textual's update writes a
+row only inside the regions to repaint, and inside them every cut still gets the front-most
+widget's strip (a widget covering a cut there is rendered on that row, and textual renders a
+row of a widget the same whether the crop asked for is the whole widget or the band).
+``tests/test_ui_compositor.py`` compares the two updates byte for byte.
+
+It uses textual's compositor internals (``_dirty_regions``, ``_regions_to_spans``,
+``_render_chops``, ``visible_widgets``, ``cuts``), written for textual 8.2 (pyproject pins
+``textual>=8.2,<9``); the comparison test fails if a textual release changes them.
+"""
+
+from __future__ import annotations
+
+from bisect import bisect_left
+from typing import Iterable
+
+from textual._compositor import ChopsUpdate, Compositor
+from textual.geometry import Region
+from textual.strip import Strip
+
+
+class RowCompositor(Compositor):
+    """textual's compositor; a partial update renders each widget only over its changed rows."""
+
+    def __init__(self) -> None:
+        super().__init__()
+        self._row_spans: dict[int, list[tuple[int, int]]] | None = None
+        """Per screen row, the column spans to repaint, while a partial update renders."""
+
+    def render_partial_update(self) -> ChopsUpdate | None:
+        # textual's render_partial_update, with the spans handed to _get_renders.
+        screen_region = self.size.region
+        update_regions = self._dirty_regions.copy()
+        self._dirty_regions.clear()
+        if not update_regions:
+            return None
+        crop = Region.from_union(update_regions).intersection(screen_region)
+        spans = list(self._regions_to_spans(update_regions))
+        rows: dict[int, list[tuple[int, int]]] = {}
+        for y, x1, x2 in spans:
+            rows.setdefault(y, []).append((x1, x2))
+        self._row_spans = rows
+        try:
+            chops = self._render_chops(crop, rows.__contains__)
+        finally:
+            self._row_spans = None
+        chop_ends = [cut_set[1:] for cut_set in self.cuts]
+        return ChopsUpdate(chops, spans, chop_ends)
+
+    def _get_renders(self, crop: Region | None = None) -> Iterable[tuple[Region, Region, list[Strip]]]:
+        rows = self._row_spans
+        if rows is None or crop is None:  # a full update, or one this class does not know
+            yield from super()._get_renders(crop)
+            return
+        overlaps = crop.overlaps
+        ys = sorted(rows)
+        for widget, (region, clip) in list(self.visible_widgets.items()):
+            if not overlaps(clip):
+                continue
+            shown = region.intersection(clip)
+            left, right = shown.x, shown.right
+            # The rows to repaint inside the widget's rows that cross its columns; inclusive at
+            # both ends: a span ending where the widget starts still takes it (renders a little
+            # more than needed, never less).
+            band = [y for y in ys[bisect_left(ys, shown.y):bisect_left(ys, shown.bottom)]
+                    if any(x1 <= right and x2 >= left for x1, x2 in rows[y])]
+            if not band or not shown.width:
+                continue
+            top, bottom = band[0], band[-1] + 1
+            visible = Region(left, top, shown.width, bottom - top)
+            yield (region, visible,
+                   widget.render_lines(Region(left - region.x, top - region.y, shown.width, bottom - top)))

@@ -1,0 +1,101 @@
+"""The loading screen's partial updates write the same bytes as textual's own (ui/compositor.py).
+
+``RowCompositor`` renders each widget only over the rows a key changed; textual's
+``Compositor.render_partial_update`` renders every widget in the box around them, whole.  Both
+are run on the same regions to repaint, after real keys (nudges, cursor moves, the message
+line growing to two lines) and on regions chosen at random, and what each would write to the
+terminal is compared byte for byte.  A panel that hands back its last strips (nothing marked
+it dirty) must still show its current lines.
+"""
+
+from __future__ import annotations
+
+import random
+
+import pytest
+from textual._compositor import Compositor
+from textual.geometry import Region
+from textual.widget import Widget
+
+from deckload.io import paths
+from deckload.io.profiles import load_condition
+from deckload.ui.compositor import RowCompositor
+from deckload.ui.launch import create_app
+from deckload.ui.widgets import LinePanel
+from demo_vessels import demo_vessel
+
+
+@pytest.fixture
+def app(tmp_path):
+    vessel = demo_vessel()
+    condition = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
+    return create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+
+
+def _both(comp: RowCompositor, regions, console) -> tuple[str, str]:
+    """What RowCompositor and textual's compositor would write for ``regions`` (mine first: it
+    meets the widgets' dirty lines as a real update does)."""
+    comp._dirty_regions.clear()
+    comp._dirty_regions.update(regions)
+    mine = comp.render_partial_update()
+    comp._dirty_regions.update(regions)
+    theirs = Compositor.render_partial_update(comp)
+    return (mine.render_segments(console) if mine else ""), (theirs.render_segments(console) if theirs else "")
+
+
+def _shown(panel: LinePanel) -> list[str]:
+    w, h = panel.size
+    return [strip.text.rstrip() for strip in panel.render_lines(Region(0, 0, w, h))][:len(panel.lines)]
+
+
+async def test_row_updates_write_what_textual_would(app):
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        screen = app.loading_screen
+        comp = screen._compositor
+        assert isinstance(comp, RowCompositor)
+        seen: list[tuple[frozenset, str, str]] = []
+        own = comp.render_partial_update
+
+        def compared():  # every real update of the keys below, checked against textual's
+            regions = frozenset(comp._dirty_regions)
+            mine = own()
+            comp._dirty_regions.update(regions)
+            theirs = Compositor.render_partial_update(comp)
+            seen.append((regions, mine.render_segments(app.console) if mine else "",
+                         theirs.render_segments(app.console) if theirs else ""))
+            return mine
+
+        comp.render_partial_update = compared
+        for key in ("plus", "plus", "minus", "down", "plus", "up", "minus"):
+            await pilot.press(key)
+            await pilot.pause()
+        screen.say("a refusal long enough to take the second line of the message strip " * 3, ok=False)
+        await pilot.pause()
+        comp.render_partial_update = own
+        assert len(seen) >= 7 and any(len(r) > 2 for r, _, _ in seen)  # real updates, several regions each
+        for regions, mine, theirs in seen:
+            assert mine == theirs, f"partial update differs for {sorted(regions)}"
+
+        rng = random.Random(13)  # fixed seed: the same regions every run
+        for _ in range(40):
+            regions = set()
+            for _ in range(rng.randrange(1, 5)):  # inside the screen, as textual clips its own
+                x, y = rng.randrange(120), rng.randrange(40)
+                regions.add(Region(x, y, rng.randrange(1, 121 - x), rng.randrange(1, min(4, 40 - y) + 1)))
+            mine, theirs = _both(comp, regions, app.console)
+            assert mine == theirs, f"partial update differs for {sorted(regions)}"
+
+        for panel in screen.query(LinePanel):
+            if panel.display and panel.size.area:
+                assert _shown(panel) == [t.plain.rstrip()[:panel.size.width] for t in panel.lines], panel.id
+                # The panels draw their lines without textual's per-line border and padding walk
+                # (LinePanel._bare_lines): segment for segment what textual's own way gives.
+                assert panel._plain_box(), panel.id
+                w, h = panel.size
+                for crop in (Region(0, 0, w, h), Region(3, 0, w - 5, h), Region(0, h - 1, w, 1)):
+                    panel._painted = None
+                    mine = [list(s) for s in panel.render_lines(crop)]
+                    panel._styles_cache.clear()
+                    theirs = [list(s) for s in Widget.render_lines(panel, crop)]
+                    assert mine == theirs, (panel.id, crop)
