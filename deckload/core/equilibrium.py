@@ -156,6 +156,10 @@ def compare(vessel, result) -> Comparison:
     # the KN the result was worked with: at its trim where the profile has tables at several trims
     kn_table = (gzmod.kn_curve(vessel.cross_curves, d_eq) if vessel.trimmed is None
                 else kn_curve_at(vessel.trimmed, d_eq, result.trim_m))
+    if len(kn_table) < len(gzmod.FINE_DEG):
+        # the rows and the carried-over correction are worked at whole degrees to 90° (GZ to 60°)
+        raise DirectError(f"the KN tables stop at {float(gzmod.FINE_DEG[len(kn_table) - 1]):g}° of heel: "
+                          "the side-by-side comparison with the hull needs them to 90°")
     whole = gzmod.WHOLE_DEGREES
     port = result.criteria_side == "port"
     gz_table_whole = np.array(result.gz_port_m if port else result.gz_m)

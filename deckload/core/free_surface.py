@@ -141,6 +141,29 @@ def _groups_of_kind(tanks: list[Tank]) -> list[tuple[Tank, ...]]:
     return groups
 
 
+def _actual_treatment(vessel: Vessel, c: TankContents, rule: str) -> TankFreeSurface:
+    """The treatment of a counted tank (not exempt, not the group assumed slack) at its actual
+    state: nothing when empty or nominally full (IS 2008 B 3.1.2), a full cargo tank at 98 %,
+    ρ·i_max for a variable-level tank (B 3.1.3), ρ·i at the actual level otherwise (B 3.1.3, or
+    B 3.1.6 under the transfers rule)."""
+    t = c.tank
+    fs = vessel.free_surface
+    state = tank_state(c.fill_pct, t, fs.empty_pct, fs.nominally_full_pct)
+    rho = c.density_t_m3
+    if state == "empty":
+        return TankFreeSurface(0.0, BASIS_NONE, "empty", state)
+    if state == "full":
+        if t.kind == "cargo_liquid":
+            return TankFreeSurface(rho * fsi_at_fill(t, fs.nominally_full_pct), BASIS_AT_98,
+                                   "nominally full cargo tank, at 98 % (IS 2008 B 3.1.2)", state)
+        return TankFreeSurface(0.0, BASIS_NONE, "nominally full ≥ 98 % (IS 2008 B 3.1.2)", state)
+    if rule == "is2008" and t.fs_category == "variable":
+        return TankFreeSurface(rho * t.max_fsi_m4, BASIS_MAX, "variable level: max between limits (IS 2008 B 3.1.3)",
+                               state)
+    why = "actual level (IS 2008 B 3.1.3)" if rule == "is2008" else "actual level (IS 2008 B 3.1.6)"
+    return TankFreeSurface(rho * c.fsi_m4, BASIS_ACTUAL, why, state)
+
+
 def free_surface(vessel: Vessel, contents: list[TankContents], rule: str) -> list[TankFreeSurface]:
     """Free-surface treatment of every tank (in profile order) under ``rule``."""
     fs = vessel.free_surface
@@ -165,11 +188,17 @@ def free_surface(vessel: Vessel, contents: list[TankContents], rule: str) -> lis
         kinds = sorted({c.tank.kind for c in contents if c.tank.is_consumable})
         for kind in kinds:
             cands = [c.tank for k, c in enumerate(contents) if c.tank.kind == kind and not exempt[k]]
-            best, best_m = None, 0.0
+            best, best_key = None, (0.0, 0.0)
             for group in _groups_of_kind(cands):
                 m = sum(t.max_fsi_m4 * contents[index[t.id]].density_t_m3 for t in group)
-                if m > best_m:
-                    best, best_m = group, m
+                # B 3.1.4 names no tie-break.  Between groups of equal ρ·i the one assumed slack is
+                # the one that adds most to the total (ρ·i less the moment its actual state would
+                # carry anyway, e.g. an empty tank rather than a slack one): conservative, and the
+                # answer no longer depends on the order of the tanks in the profile.
+                own = sum(_actual_treatment(vessel, contents[index[t.id]], rule).fsm_tm for t in group)
+                key = (round(m, 9), m - own)
+                if m > 0.0 and key > best_key:
+                    best, best_key = group, key
             if best:
                 label = "pair" if len(best) == 2 else "centreline tank"
                 for t in best:
@@ -191,21 +220,6 @@ def free_surface(vessel: Vessel, contents: list[TankContents], rule: str) -> lis
             out[k] = TankFreeSurface(0.0, BASIS_NONE, EXEMPT_RULE, state)
         elif t.id in assumed:
             out[k] = TankFreeSurface(rho * t.max_fsi_m4, BASIS_MAX, assumed[t.id], state)
-        elif state == "empty":
-            out[k] = TankFreeSurface(0.0, BASIS_NONE, "empty", state)
-        elif state == "full":
-            if t.kind == "cargo_liquid":
-                out[k] = TankFreeSurface(
-                    rho * fsi_at_fill(t, full_pct), BASIS_AT_98,
-                    "nominally full cargo tank, at 98 % (IS 2008 B 3.1.2)", state,
-                )
-            else:
-                out[k] = TankFreeSurface(0.0, BASIS_NONE, "nominally full ≥ 98 % (IS 2008 B 3.1.2)", state)
-        elif rule == "is2008" and t.fs_category == "variable":
-            out[k] = TankFreeSurface(
-                rho * t.max_fsi_m4, BASIS_MAX, "variable level: max between limits (IS 2008 B 3.1.3)", state
-            )
         else:
-            why = "actual level (IS 2008 B 3.1.3)" if rule == "is2008" else "actual level (IS 2008 B 3.1.6)"
-            out[k] = TankFreeSurface(rho * c.fsi_m4, BASIS_ACTUAL, why, state)
+            out[k] = _actual_treatment(vessel, c, rule)
     return out  # type: ignore[return-value]

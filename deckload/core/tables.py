@@ -36,7 +36,7 @@ def bracket(xs: np.ndarray, x: float, quantity: str, unit: str = "") -> tuple[in
     """Return ``(i, f)`` with ``x = xs[i] + f·(xs[i+1] − xs[i])``, 0 ≤ f ≤ 1.
 
     ``xs`` must be strictly increasing (the profile validation guarantees it).
-    A value within 1e-9 of an end is clamped onto it so that round-off in a sum
+    A value within 1e-9·max(1, |xs[0]|, |xs[-1]|) of an end is clamped onto it so that round-off in a sum
     of masses never turns an exact table end into an error.
     """
     lo = float(xs[0])

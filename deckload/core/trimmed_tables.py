@@ -82,8 +82,8 @@ class TrimNotSettledError(OutOfRangeError):
         super().__init__("trim (trimmed tables)", last_m, last_m, last_m, "m")
         self.args = (f"the trim did not settle within {MAX_STEPS} steps of the trimmed tables (last estimates "
                      f"{before_m:+.4f} and {last_m:+.4f} m, tolerance {TRIM_TOLERANCE_M * 1000:g} mm): the tables' LCB "
-                     "does not move aft as the trim by the stern grows; check [[hydrostatics_at_trim]] "
-                     "against the booklet",)
+                     "does not move aft as the trim by the stern grows, or their MCTC (or KML) is far too small; check "
+                     "[[hydrostatics_at_trim]] (LCB, KML, MCTC) against the booklet",)
 
 
 class TrimBeyondTablesError(OutOfRangeError):
@@ -126,9 +126,15 @@ def _clamp(x: float, xs: np.ndarray) -> float:
 
 
 def _trim_bracket(trims: np.ndarray, trim: float) -> tuple[int, float]:
+    """(j, f): the look-up blends tables j and j + 1 with weight f; f = 0 reads table j alone.
+
+    At or beyond the last table that table alone is read, (last, 0), as at or beyond the first:
+    its neighbour, weighted 0, must not refuse the look-up (a shorter displacement grid) nor
+    turn a column it lacks (KML) into a gap in the end table's row."""
     if len(trims) == 1:
         return 0, 0.0
-    return bracket(trims, _clamp(trim, trims), "trim (trimmed tables)", "m")
+    j, f = bracket(trims, _clamp(trim, trims), "trim (trimmed tables)", "m")
+    return (j + 1, 0.0) if f == 1.0 else (j, f)
 
 
 def _at(col: np.ndarray, h: HydrostaticTable, d_eq: float, trim: float) -> float:

@@ -1,0 +1,50 @@
+"""The dangers of the warnings stage at their edges: GM fluid exactly zero, and a GZ curve that never
+rises above zero.  Box barge 40 × 10 × 4 m at T = 2 m (Δ = 820 t): KM = KB + BM = T/2 + B²/(12·T)
+= 1 + 100/24 = 5.1667 m (checks.md §1.1)."""
+
+from __future__ import annotations
+
+import numpy as np
+
+from deckload.core.stability import evaluate
+from vessel_factories import barge_at
+
+
+def test_gm_exactly_zero_is_a_danger():
+    """KG set to the table's KM at the T = 2 m row (no interpolation, so GM fluid is 0.0 exactly): GM
+    is not positive, she has no initial stability (common practice; IS 2008 Part A 2.2.4 asks
+    GM0 ≥ 0.15 m), and the officer is warned of a loll, as for any GM ≤ 0."""
+    v, _ = barge_at(2.0, 3.0)
+    row = int(np.flatnonzero(v.hydrostatics.draft_m == 2.0)[0])
+    km = float(v.hydrostatics.kmt_m[row])
+    assert abs(km - (1.0 + 100.0 / 24.0)) < 1e-9
+    v0, c0 = barge_at(2.0, km)
+    r = evaluate(v0, c0)
+    assert r.gm_fluid_m == 0.0
+    loll = [w for w in r.warnings if w.code == "negative-gm"]
+    assert len(loll) == 1 and loll[0].severity == "danger"
+    assert loll[0].message.startswith("GM fluid 0.000 m is not positive: she lolls, about ")
+
+
+def test_gz_never_positive_is_a_danger():
+    """KG 15 m, far above KM 5.17 m (GM = −9.83 m) and above the deck: the curve is below zero at every
+    whole degree past upright (checked first, as the premise), so there is no position of
+    equilibrium on it: a danger."""
+    v, c = barge_at(2.0, 15.0)
+    r = evaluate(v, c)
+    assert max(r.gz_m[1:]) < 0.0
+    notes = [(w.message, w.severity) for w in r.warnings if w.code == "no-equilibrium"]
+    assert notes == [("GZ never becomes positive: no position of equilibrium", "danger")]
+
+
+def test_actual_free_surface_rule_is_a_caution():
+    """Rule 'actual' (IS 2008 B 3.1.6, liquid transfers) counts slack tanks at their actual levels only,
+    so the allowance of B 3.1.3–3.1.4 for consumables is off: the officer is told so (a caution)."""
+    from deckload.core.model import Condition
+
+    v, c = barge_at(2.0, 3.0)
+    r = evaluate(v, Condition(fs_rule="actual"))
+    notes = [(w.message, w.severity) for w in r.warnings if w.code == "fs-rule-actual"]
+    assert notes == [("free surface at actual levels (IS 2008 B 3.1.6): the B 3.1.3–3.1.4 allowance "
+                      "for consumables is off", "caution")]
+    assert not [w for w in evaluate(v, Condition(fs_rule="is2008")).warnings if w.code == "fs-rule-actual"]
