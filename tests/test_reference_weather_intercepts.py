@@ -161,3 +161,28 @@ def test_without_a_roll_angle_theta0_is_still_found():
     f = wx.weather_areas(_curve(deg, [0.01 * d for d in deg]), 0.05, None, None, 60.0)
     assert f.theta0_deg == pytest.approx(5.0, abs=1e-9)
     assert f.theta_r_deg is None and f.area_a_mrad is None and f.area_b_mrad is None
+
+
+def test_gz_that_never_reaches_the_gust_lever_has_area_a_to_the_end_and_no_b():
+    """GZ = 0.004·φ(deg) m up to 10°, then a plateau of 0.04 m to 60° (grid −20…60° by 10°);
+    lw1 = 0.03 → θ0 = 7.5°; lw2 = 0.045 is above the greatest GZ: no θr, area b nil, and area a
+    runs from θ0 − θ1 = 7.5 − 2.5 = 5° to the curve's end, 60° (in m·deg):
+      a = −[∫_5^10 (0.004φ − 0.045) dφ + ∫_10^60 (0.04 − 0.045) dφ]
+        = −[0.002·(100 − 25) − 0.045·5 − 0.005·50] = −[0.15 − 0.225 − 0.25] = 0.325.
+    Tolerance 1e-9 m·rad: straight pieces meeting at grid points, float rounding only."""
+    deg = [-20, -10, 0, 10, 20, 30, 40, 50, 60]
+    gz = [0.004 * d if d <= 10 else 0.04 for d in deg]
+    f = wx.weather_areas(_curve(deg, gz), 0.03, 2.5, None, 60.0)
+    assert f.theta0_deg == pytest.approx(7.5, abs=1e-9)
+    assert f.theta_r_deg is None and f.area_b_mrad == 0.0
+    assert f.area_a_mrad == pytest.approx(0.325 * np.pi / 180.0, abs=1e-9)
+
+
+def test_the_second_intercept_close_after_the_first():
+    """θc, the second intercept of lw2 (A.749 3.2.2.1 [C]), found even within a degree of θr:
+    heel −10, 0, 0.5, 1, 10°, GZ −1, 0, 1, 0, −1 m (a narrow hump), lw1 = 0.2 → θ0 = 0.1°,
+    lw2 = 0.3 → θr = 0.15°; GZ falls back through 0.3 at 0.5 + 0.5·0.7/1.0 = 0.85° = θc = θ2."""
+    f = wx.weather_areas(_curve([-10, 0, 0.5, 1, 10], [-1.0, 0.0, 1.0, 0.0, -1.0]), 0.2, 0.05, None, 10.0)
+    assert f.theta0_deg == pytest.approx(0.1, abs=1e-9)
+    assert f.theta_r_deg == pytest.approx(0.15, abs=1e-9)
+    assert f.theta_c_deg == pytest.approx(0.85, abs=1e-9) and f.theta2_deg == pytest.approx(0.85, abs=1e-9)
