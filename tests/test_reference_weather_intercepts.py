@@ -175,6 +175,7 @@ def test_gz_that_never_reaches_the_gust_lever_has_area_a_to_the_end_and_no_b():
     f = wx.weather_areas(_curve(deg, gz), 0.03, 2.5, None, 60.0)
     assert f.theta0_deg == pytest.approx(7.5, abs=1e-9)
     assert f.theta_r_deg is None and f.area_b_mrad == 0.0
+    assert f.lw2_m == pytest.approx(0.045, abs=1e-15)  # 1.5·lw1 (the 1.5 from memory [M]); printed in the note
     assert f.area_a_mrad == pytest.approx(0.325 * np.pi / 180.0, abs=1e-9)
 
 
