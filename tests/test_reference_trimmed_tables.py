@@ -4,12 +4,9 @@ Analytic solution: derived in the docstring of tests/trimmed_box.py (box L 40 ×
 LCB(t) = L/2 − L·t/(12·T), KB(t) = T/2 + t²/(24·T), KN(φ, t) = sinφ·[KB(t) + (B²/(12·T))·(1 +
 tan²φ/2)], and the equilibrium a = s·(T/2 + L²/(12·T) − KG) + s³·L²/(24·T), s = t/L).
 
-Tolerances: UR L5 / MSC.1/Circ.1229 (standards.md §5.3, "Trim & stability"): draughts
-1 % / 5 cm; GZ 5 % / 5 cm.  Tighter bounds, from the only approximation the method makes
-(linear interpolation in trim of a quantity quadratic in t, which errs by at most
-(Δt)²/4 × its t² coefficient), are written beside each check.
+Tolerances: UR L5 / MSC.1/Circ.1229 (standards.md §5.3), and the tighter bounds of the method's one
+approximation, as tests/trimmed_box.py states them; each is written beside its check.
 """
-
 
 from __future__ import annotations
 

@@ -211,11 +211,9 @@ def free_surface(vessel: Vessel, contents: list[TankContents], rule: str) -> lis
         rho = c.density_t_m3
         if t.fsi_given == "none":
             out[k] = TankFreeSurface(0.0, BASIS_NONE, "no free surface given in the profile (capacity only)", state)
-        elif exempt[k] and state == "empty":
-            out[k] = TankFreeSurface(0.0, BASIS_NONE, "empty", state)
-        elif exempt[k] and state == "full" and t.kind != "cargo_liquid":
-            # Nominally full needs no exemption: say the rule that leaves it at zero (B 3.1.2).
-            out[k] = TankFreeSurface(0.0, BASIS_NONE, "nominally full ≥ 98 % (IS 2008 B 3.1.2)", state)
+        elif exempt[k] and (state == "empty" or (state == "full" and t.kind != "cargo_liquid")):
+            # Empty or nominally full needs no exemption: say the rule that leaves it at zero (B 3.1.2).
+            out[k] = _actual_treatment(vessel, c, rule)
         elif exempt[k]:
             out[k] = TankFreeSurface(0.0, BASIS_NONE, EXEMPT_RULE, state)
         elif t.id in assumed:

@@ -36,6 +36,13 @@ MIN_CURVE_ROWS = 10
 """On a wide screen the criteria panel takes the rows it needs, leaving the curve at least this many."""
 
 
+def _forms():
+    """The forms and pages module, loaded when the first form opens: start-up does not need it."""
+    from deckload.ui import dialogs
+
+    return dialogs
+
+
 class LoadingScreen(Screen[None]):
     BINDINGS = bindings()
 
@@ -277,8 +284,6 @@ class LoadingScreen(Screen[None]):
             self.say(DWT_HINT, ok=False)
 
     def _edit_tank(self, tank_id: str) -> None:
-        from deckload.ui.dialogs import PromptForm  # forms load when first opened, not at start
-
         s = self.session
         tank, fill = s.vessel.tank(tank_id), s.condition.tank_fill(tank_id)
         hint = entry.amount_hint(tank, fill)
@@ -294,11 +299,9 @@ class LoadingScreen(Screen[None]):
                             run=("tank", tank.id))
 
         preview = lambda text: entry.amount_preview(s.condition, tank, text)  # noqa: E731
-        self.app.push_screen(PromptForm(f"{tank.id}  {tank.name}", hint, entry.fill_text(fill), build, preview), done)
+        self.app.push_screen(_forms().PromptForm(f"{tank.id}  {tank.name}", hint, entry.fill_text(fill), build, preview), done)
 
     def _edit_hold(self, hold_id: str) -> None:
-        from deckload.ui.dialogs import PromptForm  # forms load when first opened, not at start
-
         s = self.session
         hold = s.vessel.hold(hold_id)
         load = next((h for h in s.condition.holds if h.hold_id == hold_id), None)
@@ -313,13 +316,11 @@ class LoadingScreen(Screen[None]):
                 self.commit(r[0], f"{hold.id} cargo set to {mass:g} t", "cargo", {"hold": hold.id, "entered": r[1]},
                             run=("hold", hold.id))
 
-        form = PromptForm(f"{hold.id}  {hold.name}", f"Cargo mass in t (0 empties the hold){limit}",
+        form = _forms().PromptForm(f"{hold.id}  {hold.name}", f"Cargo mass in t (0 empties the hold){limit}",
                           f"{load.mass_t:g}" if load else "", build)
         self.app.push_screen(form, done)
 
     def _edit_item(self, deck: bool, index: int | None) -> None:
-        from deckload.ui.dialogs import ItemFormScreen  # forms load when first opened, not at start
-
         s = self.session
         items = s.condition.deck_items if deck else s.condition.constants
         noun = "deck load" if deck else "constant"
@@ -333,7 +334,7 @@ class LoadingScreen(Screen[None]):
         title = f"{'Edit' if index is not None else 'Add'} {noun}"
         # The area list's room must not count the item being edited: it is what the form replaces.
         others = s.condition if index is None else self._with_items(deck, items[:index] + items[index + 1:])
-        self.app.push_screen(ItemFormScreen(title, form, build, deck=deck, vessel=s.vessel, condition=others),
+        self.app.push_screen(_forms().ItemFormScreen(title, form, build, deck=deck, vessel=s.vessel, condition=others),
                              lambda r: r and self.commit(r[0], f"{title}: {r[1]}", "cargo" if deck else "edit", {noun: r[1]}))
 
     def _with_items(self, deck: bool, items: tuple) -> Condition:
@@ -406,8 +407,6 @@ class LoadingScreen(Screen[None]):
             self.say("Put the cursor on a tank, hold or item to empty or remove it.", ok=False)
 
     def action_transfer(self) -> None:
-        from deckload.ui.dialogs import TransferForm  # forms load when first opened, not at start
-
         s = self.session
         what, ident = self._key
         src = dst = ""
@@ -417,7 +416,7 @@ class LoadingScreen(Screen[None]):
                 src, dst = ident, entry.receiving_tank(s.vessel, s.condition, ident)
             else:  # an empty tank has nothing to give: the officer means to fill it, from a tank that holds some
                 src, dst = entry.giving_tank(s.vessel, s.condition, ident), ident
-        form = TransferForm(s.vessel, s.condition, None if s.stale else s.result, s.preview, src, dst)
+        form = _forms().TransferForm(s.vessel, s.condition, None if s.stale else s.result, s.preview, src, dst)
         self.app.push_screen(form, lambda plan: plan and self.commit(
             plan.condition, plan.label, "transfer",
             {"from": plan.from_id, "to": plan.to_id, "mass_t": round(plan.mass_t, 3)}))
@@ -448,20 +447,16 @@ class LoadingScreen(Screen[None]):
         self._edit_item(False, None)
 
     def action_density(self) -> None:
-        from deckload.ui.dialogs import PromptForm  # forms load when first opened, not at start
-
         s = self.session
         lo, hi = entry.WATER_DENSITY_RANGE_T_M3
         build = lambda text: entry.density_from_text(s.condition, text)  # noqa: E731
         self.app.push_screen(
-            PromptForm("Water density", f"t/m³, {lo:.3f}–{hi:.3f} (sea water 1.025, fresh 1.000)",
+            _forms().PromptForm("Water density", f"t/m³, {lo:.3f}–{hi:.3f} (sea water 1.025, fresh 1.000)",
                        f"{s.condition.water_density_t_m3:.3f}", build),
             lambda c: c and self.commit(c, f"Water density {c.water_density_t_m3:.3f} t/m³", "edit",
                                         {"water_density_t_m3": c.water_density_t_m3}))
 
     def action_tank_density(self) -> None:
-        from deckload.ui.dialogs import PromptForm  # forms load when first opened, not at start
-
         what, ident = self._key
         if what != "tank":
             self.say("Tank density applies to tanks: put the cursor on a tank (d sets the water she floats in).",
@@ -484,7 +479,7 @@ class LoadingScreen(Screen[None]):
                         {"tank": ident, "density_t_m3": rho})
 
         self.app.push_screen(
-            PromptForm(f"Density in {tank.id} {tank.name}",
+            _forms().PromptForm(f"Density in {tank.id} {tank.name}",
                        f"t/m³, {lo:.3f}–{hi:.3f}, from the delivery note; empty or 'default' for the tank's own "
                        f"{tank.density_t_m3:.3f}. The amount stays as stated.", f"{now:.4g}", build),
             done)
@@ -543,16 +538,12 @@ class LoadingScreen(Screen[None]):
             self.say("Wind and roll plot: b again for the plain GZ curve" if on else "GZ curve", ok=None)
 
     def action_verdict(self) -> None:
-        from deckload.ui.dialogs import TextScreen  # forms load when first opened, not at start
-
         s = self.session
         lines = verdict.verdict_page(None if s.stale else s.result, width=max(40, min(94, self.size.width - 6)))  # .form.help 100 − border, padding, scrollbar
         title = "Verdict" + (" (last good result: the condition is outside the tables)" if s.stale else "")
-        self.app.push_screen(TextScreen(title, lines))
+        self.app.push_screen(_forms().TextScreen(title, lines))
 
     def action_record(self) -> None:
-        from deckload.ui.dialogs import RecordForm  # forms load when first opened, not at start
-
         j = self.session.journal
         if not j.writable:
             self.say(f"The voyage log cannot be written ({j.problem or 'no log'}); nothing recorded.", ok=False)
@@ -566,11 +557,9 @@ class LoadingScreen(Screen[None]):
                 self.notify(p, severity="error", timeout=8, markup=False)
             self.say(f"Condition recorded in the log by {answer[0]}" if not problems else "Not recorded", ok=not problems)
 
-        self.app.push_screen(RecordForm(j.officer, None), done)
+        self.app.push_screen(_forms().RecordForm(j.officer, None), done)
 
     def action_sign_on(self) -> None:
-        from deckload.ui.dialogs import PromptForm  # forms load when first opened, not at start
-
         j = self.session.journal
         if not j.writable:
             self.say(f"The voyage log cannot be written ({j.problem or 'no log'}).", ok=False)
@@ -607,7 +596,7 @@ class LoadingScreen(Screen[None]):
                      f"{by} on watch: changes are logged under these initials.")
 
         hint = "Your initials (1–4 letters)" + (f"; - signs {j.officer} off" if j.officer else "")
-        self.app.push_screen(PromptForm("Officer of the watch", hint, j.officer, build), done)
+        self.app.push_screen(_forms().PromptForm("Officer of the watch", hint, j.officer, build), done)
 
     def action_plan(self) -> None:
         """Start trying a plan; during one, choose to apply it (one log entry) or discard it."""
@@ -697,11 +686,9 @@ class LoadingScreen(Screen[None]):
         self.app.show_log()
 
     def action_alerts(self) -> None:
-        from deckload.ui.dialogs import TextScreen  # forms load when first opened, not at start
-
         s = self.session
         every = views.alerts(s.result, s.stale, s.problem)
-        self.app.push_screen(TextScreen("Warnings", alert_lines(every, len(every) + 1)))  # whole, the page wraps
+        self.app.push_screen(_forms().TextScreen("Warnings", alert_lines(every, len(every) + 1)))  # whole, the page wraps
 
     def action_compare_hull(self) -> None:
         from deckload.ui.hull_compare import HullCompareScreen
@@ -713,9 +700,7 @@ class LoadingScreen(Screen[None]):
         self.app.push_screen(HullCompareScreen(s.vessel, s.result))
 
     def action_help(self) -> None:
-        from deckload.ui.dialogs import HelpScreen  # forms load when first opened, not at start
-
-        self.app.push_screen(HelpScreen())
+        self.app.push_screen(_forms().HelpScreen())
 
     async def action_quit(self) -> None:
         await self.app.action_quit()
