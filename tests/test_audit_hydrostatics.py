@@ -146,6 +146,13 @@ def test_small_steps_near_the_keel_are_not_judged_on_the_fraction_alone():
         assert [f.severity for f in got] == expect and all(f.path[-1] == 1 for f in got)
 
 
+def test_a_miss_over_the_floor_but_under_5_percent_of_the_step_is_accepted():
+    """Δ at 1.6 m raised 1.3 t: 4.4 % of the 29.315 t step (under 5 %) though over 0.5 % of Δ (1.17 t)."""
+    d = col("displacement_t")
+    d[3] += 1.3
+    assert found(with_hydro(displacement_t=d), "hydro-tpc") == []
+
+
 # --------------------------------------------------------------------------- block coefficient
 
 
@@ -374,3 +381,84 @@ def test_the_lcb_lcf_edges(gap, expect):
     lcb[8] = 11.0 + gap
     got = found(with_hydro(lcb_m=lcb), "hydro-lcb-lcf")
     assert [f.severity for f in got] == ([] if expect is None else [expect])
+
+
+# --------------------------------------------------------------------------- more shapes of table
+
+
+def test_a_tpc_rising_with_draft_and_its_exact_displacement_raise_nothing():
+    """TPC = 1 + 0.5·T² t/cm (a strongly flared hull) and Δ = Δ(1 m) + 100·∫TPC dT =
+    146.575 + 100·((T − 1) + (T³ − 1)/6) t (derived).  The trapezoidal rule over a 0.2 m row errs by
+    100·h³·TPC''/12 = 0.067 t, far under 5 % of a step; the whole range 1.0–2.6 m in one trapezium
+    would err by 7 % (a table must be judged row to row, not end to end)."""
+    tpc = 1.0 + 0.5 * T ** 2
+    disp = 146.575 + 100.0 * ((T - 1.0) + (T ** 3 - 1.0) / 6.0)
+    assert found(with_hydro(tpc_t_cm=tpc, displacement_t=disp), "hydro-tpc") == []
+
+
+def test_a_tpc_that_rises_then_falls_in_full():
+    """TPC 1.40, 1.45, 1.50, 1.46 ...: the fall from 1.50 to 1.46 (2.7 %) is a doubt although every
+    value stays above the first row's."""
+    tpc = np.array([1.40, 1.45, 1.50, 1.46, 1.47, 1.48, 1.49, 1.50, 1.51])
+    (f,) = found(with_hydro(tpc_t_cm=tpc), "hydro-rise")
+    assert f.path == ("hydrostatics", "tpc_t_cm", 3)
+    assert f.why.startswith("TPC falls from 1.5 as the draft rises") and f.value == "1.46"
+
+
+def test_rows_below_half_the_design_draft_are_skipped_not_the_end_of_the_check():
+    """Design draft 2.2 m: rows from 1.1 m up are judged, so a CB of 1.3 at 1.8 m is still found."""
+    v = vessel()
+    v = dataclasses.replace(v, particulars=dataclasses.replace(v.particulars, design_draft_m=2.2))
+    d = col("displacement_t")
+    d[4] *= 1.3
+    (f,) = found(with_hydro(v, displacement_t=d), "hydro-cb")
+    assert f.path == ("hydrostatics", "displacement_t", 4)
+
+
+def test_every_check_of_the_table_runs_after_another_has_found_something():
+    """One table with a block coefficient beyond any hull, a falling VCB and one above the waterline,
+    a falling MCTC, a KMt beyond any waterplane and an LCB off the integrated LCF: each is reported."""
+    d, tpc = col("displacement_t") * 1.3, col("tpc_t_cm") * 1.3
+    vcb = col("vcb_m")
+    vcb[3], vcb[8] = 0.59, 2.7
+    mctc = col("mctc_tm_cm")
+    mctc[6:] *= 0.97
+    lcb = col("lcb_m")
+    lcb[5:] = 9.5
+    v = with_hydro(displacement_t=d, tpc_t_cm=tpc, vcb_m=vcb, mctc_tm_cm=mctc, kmt_m=col("kmt_m") * 10, lcb_m=lcb)
+    got = {(f.check, f.key) for f in audit(v)}
+    assert {("hydro-cb", "hydrostatics.displacement_t"), ("hydro-rise", "hydrostatics.vcb_m"),
+            ("hydro-vcb", "hydrostatics.vcb_m"), ("hydro-rise", "hydrostatics.mctc_tm_cm"),
+            ("hydro-kmt", "hydrostatics.kmt_m"), ("hydro-lcb-lcf", "hydrostatics.lcb_m")} <= got
+
+
+def keel_row(draft, disp, kmt, vcb):
+    """The box table with one row put in front of it (the other columns the 1.0 m row's)."""
+    h = vessel().hydrostatics
+    first = {"draft_m": draft, "displacement_t": disp, "kmt_m": kmt, "vcb_m": vcb, "kml_m": h.kml_m[0]}
+    return {k: np.concatenate([[first.get(k, getattr(h, k)[0])], np.asarray(getattr(h, k))])
+            for k in ("draft_m", "displacement_t", "lcb_m", "lcf_m", "kmt_m", "tpc_t_cm", "mctc_tm_cm", "vcb_m", "kml_m")}
+
+
+def test_a_keel_row_does_not_stop_the_metacentre_check():
+    cols = keel_row(0.0, 0.0, 4.0, 0.0)
+    cols["kmt_m"][5] *= 1.2  # the 1.8 m row
+    (f,) = found(with_hydro(**cols), "hydro-kmt")
+    assert f.severity == WARNING and f.path == ("hydrostatics", "kmt_m", 5)
+
+
+@pytest.mark.parametrize("draft, disp", [(0.02, 0.0), (0.0, 2.0)])
+def test_a_row_with_no_draft_or_no_displacement_is_not_judged_against_the_waterplane(draft, disp):
+    """Drafts read as extreme and turned moulded, or a keel appendage: Δ 0 above the keel or Δ > 0
+    at draft 0.  Neither has a volume and a waterplane to form BMt from: no KMt finding, no crash."""
+    assert found(with_hydro(**keel_row(draft, disp, 4.0, 0.01)), "hydro-kmt") == []
+
+
+def test_a_shallow_row_of_under_a_tonne_is_judged():
+    """A row at 5 mm: Δ = 146.575·0.005 = 0.733 t, KMt = T/2 + B²/(12·T) = 704.2 m (checks.md §1.1).
+    Typed 7.042 (decimal point slipped twice) it is below KB + A³/(12·Lwl²·∇) = 489 m: an error."""
+    cols = keel_row(0.005, 146.575 * 0.005, 7.042, 0.0025)
+    (f,) = found(with_hydro(**cols), "hydro-kmt")
+    assert f.severity == ERROR and f.path == ("hydrostatics", "kmt_m", 0) and "below what KB + BMt allows at 0.005 m" in f.why
+    cols["kmt_m"][0] = 0.0025 + B * B / (12 * 0.005)
+    assert found(with_hydro(**cols), "hydro-kmt") == []
