@@ -354,3 +354,142 @@ def test_the_value_that_departs_most_in_metres_is_named():
     a[1, 5] *= 1.6
     (f,) = found(with_kn(a), "kn-outlier")
     assert f.path[2:] == (1, 5)
+
+
+# --------------------------------------------------------------------------- more shapes
+
+
+def test_mctc_beyond_the_waterplane_is_also_judged_against_kml():
+    got = {f.check for f in found(with_hydro(mctc_tm_cm=col("mctc_tm_cm") * 10), "hydro-mctc", "hydro-mctc-kml")}
+    assert got == {"hydro-mctc", "hydro-mctc-kml"}
+
+
+def test_kml_half_a_metre_above_kb_is_an_mctc_contradiction_not_a_kml_below_kb():
+    """KML 1.2 m at 1.4 m (VCB 0.7 m): BML 0.5 m, so the table's MCTC is ~57 × Δ·BML/(100·LBP)."""
+    k = col("kml_m")
+    k[2] = 1.2
+    (f,) = found(with_hydro(kml_m=k), "hydro-mctc", "hydro-mctc-kml")
+    assert (f.check, f.key, f.path[-1]) == ("hydro-mctc-kml", "hydrostatics.mctc_tm_cm", 2) and "BML = KML − KB = 0.5 m" in f.why
+
+
+def test_a_shallow_row_of_under_a_tonne_is_judged_against_kml():
+    """A row at 5 mm (Δ 0.733 t, KML = T/2 + L²/(12·T) = 8067 m, MCTC 2.687, checks.md §1.1) with KML
+    typed 806.7 (decimal slip): the ratio is 10, an error."""
+    h = vessel().hydrostatics
+    first = {"draft_m": 0.005, "displacement_t": 146.575 * 0.005, "vcb_m": 0.0025, "kml_m": 806.7,
+             "kmt_m": 0.0025 + B * B / (12 * 0.005)}
+    cols = {k: np.concatenate([[first.get(k, getattr(h, k)[0])], np.asarray(getattr(h, k))])
+            for k in ("draft_m", "displacement_t", "lcb_m", "lcf_m", "kmt_m", "tpc_t_cm", "mctc_tm_cm", "vcb_m", "kml_m")}
+    (f,) = found(with_hydro(**cols), "hydro-mctc-kml")
+    assert f.severity == ERROR and f.path[-1] == 0
+    cols["kml_m"][0] = 0.0025 + L * L / (12 * 0.005)
+    assert found(with_hydro(**cols), "hydro-mctc-kml") == []
+
+
+def relabelled(heel_from, heel_to, values=None):
+    """The box KN table with one heel column relabelled (and its values replaced when given)."""
+    v = vessel()
+    heel = np.array(v.cross_curves.heel_deg)
+    a = kn()
+    j = int(np.flatnonzero(heel == heel_from)[0])
+    heel[j] = heel_to
+    if values is not None:
+        a[:, j] = values
+    k = dataclasses.replace(v.cross_curves, heel_deg=frozen_array(heel), kn_m=frozen_array(a))
+    return dataclasses.replace(v, cross_curves=k), j
+
+
+def kmt_at_kn_rows():
+    """KMt = T/2 + B²/(12·T) at the KN table's drafts 1.0, 1.6, 2.2, 2.6 m (checks.md §1.1)."""
+    t = np.array([1.0, 1.6, 2.2, 2.6])
+    return t / 2 + B * B / (12 * t)
+
+
+def test_a_negative_kn_at_one_degree_is_caught():
+    v, j = relabelled(10.0, 1.0, kmt_at_kn_rows() * math.sin(math.radians(1.0)))
+    a = np.array(v.cross_curves.kn_m)
+    assert found(v, "kn-negative", "kn-kmt") == []
+    a[1, j] = -0.05
+    (f,) = found(with_kn(a, v), "kn-negative")
+    assert f.path[2:] == (1, j) and "at 1°" in f.look
+
+
+def test_kn_against_kmt_is_judged_from_just_above_upright():
+    """A 1° column holding the 10° values: 10 × KMt·sin 1°, an error."""
+    v, j = relabelled(10.0, 1.0)
+    (f,) = found(v, "kn-kmt")
+    assert f.severity == ERROR and f.path[2:] == (0, j)
+
+
+def test_kn_against_kmt_stops_at_10_degrees():
+    """An 11° column (holding the 20° values, 88 % above KMt·sin 11°) is beyond the small-heel check."""
+    v, _ = relabelled(20.0, 11.0)
+    assert found(v, "kn-kmt") == []
+
+
+def test_between_5_and_10_degrees_the_allowance_is_10_percent():
+    """A 6° column at 0.93 × KMt·sin 6°: inside the 10 % allowed above 5°."""
+    vals = kmt_at_kn_rows() * math.sin(math.radians(6.0))
+    vals[1] *= 0.93
+    v, _ = relabelled(10.0, 6.0, vals)
+    assert found(v, "kn-kmt") == []
+
+
+def test_an_outlier_is_sought_after_a_kn_kmt_finding():
+    a = kn()
+    a[1, 1] *= 0.85
+    a[2, 5] *= 1.6
+    assert {f.check for f in found(with_kn(a), *KN_CHECKS)} == {"kn-kmt", "kn-outlier"}
+
+
+@pytest.mark.parametrize("row", [0, 3])
+def test_an_outlier_at_10_degrees_in_an_end_row_is_judged_along_heel(row):
+    a = kn()
+    a[row, 1] *= 1.5
+    (f,) = found(with_kn(a), "kn-outlier")
+    assert f.path[2:] == (row, 1) and "along heel (" in f.why
+
+
+def test_an_outlier_at_80_degrees_in_the_first_row_is_judged_along_heel():
+    a = kn()
+    a[0, 8] *= 1.4
+    (f,) = found(with_kn(a), "kn-outlier")
+    assert f.path[2:] == (0, 8) and "42% away from the line through its neighbours along heel (" in f.why
+
+
+def test_near_upright_the_outlier_is_judged_against_5_percent_of_the_envelope():
+    """KN(5°) in the heaviest row of the 5° table: the line through 0° and 10° is 0.224 m, under 5 % of
+    the 6.824 m envelope (0.341 m), which is the scale judged against: 0.06 m off is 18 %, no doubt."""
+    v = box_5_degree_vessel()
+    a = np.array(v.cross_curves.kn_m)
+    line = a[3, 2] / 2
+    a[3, 1] = line + 0.06
+    assert found(with_kn(a, v), "kn-outlier") == []
+    a[3, 1] = line + 0.075  # 22 %
+    (f,) = found(with_kn(a, v), "kn-outlier")
+    assert f.path[2:] == (3, 1)
+
+
+def test_of_two_outliers_the_one_further_off_in_metres_is_named():
+    """KN(40°) at 234.52 t × 1.3 departs 0.599 m (33 %), KN(70°) at 381.095 t × 0.6 departs 0.578 m
+    (39 %): the first is named, though the second is further off as a fraction."""
+    a = kn()
+    a[1, 4] *= 1.3
+    a[3, 7] *= 0.6
+    (f,) = found(with_kn(a), "kn-outlier")
+    assert f.path[2:] == (1, 4) and "33% away" in f.why
+    a = kn()
+    a[2, 4] *= 1.3
+    a[1, 6] *= 1.3
+    (f,) = found(with_kn(a), "kn-outlier")
+    assert f.path[2:] == (1, 6)
+
+
+def test_a_value_slipped_down_is_named_before_a_larger_value_slipped_up_less():
+    """KN(50°) at 234.52 t halved (0.97 m off) and KN(70°) at 322.465 t × 1.25 (0.41 m off): the
+    halved one is named: it departs most in metres, though the other is the larger number."""
+    a = kn()
+    a[1, 5] *= 0.5
+    a[2, 7] *= 1.25
+    (f,) = found(with_kn(a), "kn-outlier")
+    assert f.path[2:] == (1, 5)
