@@ -302,3 +302,57 @@ def test_errors_come_first_each_group_in_profile_order():
     assert has_errors(audit(v)) is True
     assert has_errors(audit(with_cal("FO1S", fsi_m4=[I_BOX * 20] * 6))) is False
     assert has_errors(()) is False
+
+
+# --------------------------------------------------------------------------- more shapes of tank
+
+
+def test_a_tank_calibrated_empty_and_full_only_is_judged():
+    v = with_cal("FO1P", sounding_m=[0.0, 1.0], volume_m3=[0.0, 8.0], lcg_m=[8.0, 8.0], vcg_m=[0.0, 0.5],
+                 tcg_m=[-2.0, -2.0], fsi_m4=[I_BOX * 100] * 2)
+    (f,) = found(v, "tank-fsi")
+    assert f.severity == ERROR and "a surface of 8 m²" in f.why
+
+
+def test_a_tank_narrowing_upward_judges_a_row_against_the_larger_surface_below_it():
+    """V = 0, 5, 9, 12, 14, 15 m³ every 0.2 m: surfaces 25, 20, 15, 10, 5 m².  Row 1 touches the 25
+    and 20 m² steps: 85 m⁴ is under 1.1·25·6.5²/12 = 96.8 m⁴ (and over the 77.5 m⁴ of 20 m²)."""
+    v = with_cal("FO1P", volume_m3=[0.0, 5.0, 9.0, 12.0, 14.0, 15.0], fsi_m4=[85.0, 85.0, 60.0, 40.0, 20.0, 10.0],
+                 tank={"capacity_m3": 15.0})
+    assert found(v, "tank-fsi") == []
+
+
+def test_the_empty_row_is_compared_with_the_row_just_above_it():
+    """20 m⁴ empty, 19 m⁴ just above: not more than 10 % above it (no doubt), whatever the rows higher
+    up hold; 20 m⁴ empty and 2 m⁴ just above: a doubt naming the 2 m⁴."""
+    assert found(with_cal("FO1P", fsi_m4=[20.0, 19.0, I_BOX, I_BOX, I_BOX, I_BOX]), "tank-fsi-empty") == []
+    (f,) = found(with_cal("FO1P", fsi_m4=[20.0, 2.0, I_BOX, I_BOX, I_BOX, I_BOX]), "tank-fsi-empty")
+    assert "larger than just above (2 m⁴)" in f.why
+
+
+def test_a_centre_in_the_first_layer_is_judged():
+    """TCG −3.4 m at 0.2 m: the first layer (from empty) is centred at −3.4 m, outside the breadth."""
+    (f,) = found(with_cal("FO1P", tcg_m=[-2.0, -3.4, -2.0, -2.0, -2.0, -2.0]), "tank-centre")
+    assert f.path == ("tank", 1, "calibration", "tcg_m", 1) and "y = -3.4 m" in f.why
+
+
+def test_a_finely_calibrated_tank_is_judged_layer_by_layer():
+    """FO1P every 0.1 m (0.8 m³ a layer): a full-tank TCG of −3.0 m puts the last layer at
+    (8·(−3) − 7.2·(−2))/0.8 = −12 m."""
+    s = np.linspace(0.0, 1.0, 11)
+    tcg = np.full(11, -2.0)
+    tcg[-1] = -3.0
+    v = with_cal("FO1P", sounding_m=s, volume_m3=8.0 * s, lcg_m=np.full(11, 8.0), vcg_m=s / 2, tcg_m=tcg,
+                 fsi_m4=np.full(11, I_BOX))
+    assert found(with_cal("FO1P", v, tcg_m=np.full(11, -2.0)), "tank-centre") == []
+    (f,) = found(v, "tank-centre")
+    assert f.path[-1] == 10 and "y = -12 m" in f.why
+
+
+def test_the_tank_bottom_fixed_by_the_rows_below_bounds_a_layer_above():
+    """FO1S's rows to 0.4 m fix its bottom within 0.0 ± 0.1 m (each layer lies within its own
+    thickness).  A VCG at 0.6 m that centres the layer 0.4–0.6 m at 0.75 m (bottom 0.15–0.35 m) or at
+    0.25 m (bottom −0.35…−0.15 m) fits that layer alone but not the rows below: each is named."""
+    for vcg3, slab in ((0.3833, "0.7499"), (0.2167, "0.2501")):  # VCG printed to 4 figures
+        (f,) = found(with_cal("FO1S", vcg_m=[0.0, 0.1, 0.2, vcg3, vcg3 + 0.1, vcg3 + 0.2]), "tank-centre")
+        assert f.path[-1] == 3 and f"would have its centre at {slab} m above the keel" in f.why
