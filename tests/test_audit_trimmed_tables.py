@@ -115,8 +115,22 @@ def test_the_waterline_at_the_deeper_end_bounds_vcb_at_a_trim():
 
 def test_the_trim_in_a_table_name_has_six_significant_digits():
     """As the profile reader names a table at a trim (hydrostatics_at_trim[1 m])."""
-    assert [_trim_name(t) for t in (1.0, -1.0, 0.5, 0.1234567, 2.0000004, -0.25)] == [
-        "1", "-1", "0.5", "0.123457", "2", "-0.25"]
+    assert [_trim_name(t) for t in (1.0, -1.0, 0.5, 0.1234567, 2.0000004, -0.25, 0.01234567)] == [
+        "1", "-1", "0.5", "0.123457", "2", "-0.25", "0.012346"]  # rounded to the micrometre first, as the reader does
+
+
+def test_three_trimmed_tables_are_numbered_in_order():
+    """Trims −1, +1 and +2 m besides the even-keel table: entries 0, 1 and 2 of [[hydrostatics_at_trim]]."""
+    v = vessel()
+    bad = hydro(v, kmt_m=col(v, "kmt_m") * 10)
+    tables = {-1.0: bad, 0.0: v.hydrostatics, 1.0: bad, 2.0: bad}
+    trims = (-1.0, 0.0, 1.0, 2.0)
+    tt = TrimmedTables(hydro_trim_m=frozen_array(np.array(trims)), hydrostatics=tuple(tables[t] for t in trims),
+                       kn_trim_m=frozen_array(np.array([0.0])), cross_curves=(v.cross_curves,))
+    got = [(f.key, f.path[:2]) for f in audit(dataclasses.replace(v, trimmed=tt)) if f.check == "hydro-kmt"]
+    assert got == [("hydrostatics_at_trim[-1 m].kmt_m", ("hydrostatics_at_trim", 0)),
+                   ("hydrostatics_at_trim[1 m].kmt_m", ("hydrostatics_at_trim", 1)),
+                   ("hydrostatics_at_trim[2 m].kmt_m", ("hydrostatics_at_trim", 2))]
 
 
 def test_a_warning_in_a_trimmed_table_stays_a_warning():
