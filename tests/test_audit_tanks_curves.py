@@ -246,9 +246,8 @@ def test_a_downflooding_curve_above_the_table():
     (f,) = found(dataclasses.replace(vessel(), downflooding=curve([400.0, 500.0], "downflooding_deg")), "curve-range")
     assert (f.severity, f.key, f.path) == (ERROR, "downflooding.displacement_t", ("downflooding", "displacement_t", 0))
     assert f.value == "400–500 t" and f.look == "the booklet's downflooding angle curve"
-    assert f.why.startswith("the curve lies wholly outside the displacements she can have (lightship 150 t to the "
-                            "table's 381.09 t): it can never be used.")
-    assert "drafts" not in f.why
+    assert f.why == ("the curve lies wholly outside the displacements she can have (lightship 150 t to the "
+                     "table's 381.09 t): it can never be used.")
 
 
 @pytest.mark.parametrize("d, expect", [
@@ -260,9 +259,9 @@ def test_a_curve_touching_the_range_can_be_used(d, expect):
         assert bool(got) == expect
 
 
-@pytest.mark.parametrize("top, hint", [(3.0, True), (3.01, False)])
+@pytest.mark.parametrize("top, hint", [(3.0, True), (3.0 + 1e-9, True), (3.01, False)])
 def test_the_draft_hint_up_to_the_depth(top, hint):
-    """Values no larger than the moulded depth (3.0 m) read as drafts."""
+    """Values no larger than the moulded depth (3.0 m, 1e-9 m for floating-point noise) read as drafts."""
     (f,) = found(dataclasses.replace(vessel(), limit_curve=curve([1.0, top])), "curve-range")
     assert ("They look like drafts (m)" in f.why) == hint
 
@@ -356,3 +355,15 @@ def test_the_tank_bottom_fixed_by_the_rows_below_bounds_a_layer_above():
     for vcg3, slab in ((0.3833, "0.7499"), (0.2167, "0.2501")):  # VCG printed to 4 figures
         (f,) = found(with_cal("FO1S", vcg_m=[0.0, 0.1, 0.2, vcg3, vcg3 + 0.1, vcg3 + 0.2]), "tank-centre")
         assert f.path[-1] == 3 and f"would have its centre at {slab} m above the keel" in f.why
+
+
+def test_a_curve_of_three_points_is_judged_by_its_ends():
+    """[100, 120, 151] t reaches past the lightship's 150 t: usable.  [1.0, 2.0, 3.5] lies below it;
+    its last value is beyond the 3.0 m depth, so it is not taken for drafts."""
+    assert found(dataclasses.replace(vessel(), limit_curve=curve([100.0, 120.0, 151.0])), "curve-range") == []
+    (f,) = found(dataclasses.replace(vessel(), limit_curve=curve([1.0, 2.0, 3.5])), "curve-range")
+    assert "drafts" not in f.why and f.value == "1–3.5 t"
+    v = vessel()
+    k = dataclasses.replace(v.cross_curves, displacement_t=frozen_array(np.array([100.0, 120.0, 150.0])),
+                            kn_m=frozen_array(np.array(v.cross_curves.kn_m)[:3]))
+    assert found(dataclasses.replace(v, cross_curves=k), "curve-range") == []
