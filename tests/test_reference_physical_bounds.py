@@ -113,3 +113,73 @@ def test_mass_bounds_are_the_largest_tabulated_displacement_less_the_lightship()
     _edges(light, 0.0, top, "t")
     heavy = dataclasses.replace(v, lightship=dataclasses.replace(v.lightship, mass_t=top + 5.0))
     _edges(bounds.item_mass_range(heavy), 0.0, 0.0, "t")  # never a negative upper bound
+
+
+# --------------------------------------------------------------------------- the finiteness pass
+
+
+@dataclasses.dataclass(frozen=True)
+class _Inner:
+    values: object
+    label: str = "x"
+
+
+@dataclasses.dataclass(frozen=True)
+class _Outer:
+    a: float
+    inner: _Inner
+    items: tuple
+    flag: bool = True
+    count: int = 3
+    note: object = None
+
+
+def _outer(**change):
+    import numpy as np
+
+    good = dict(a=1.5, inner=_Inner(np.array([0.0, 0.25, 1.0])), items=(2.0, [3.0, _Inner(4.0)], np.float64(0.5)))
+    good.update(change)
+    return _Outer(**good)
+
+
+def test_the_quick_pass_accepts_every_finite_result_it_knows():
+    """The quick pass answers True for a result whose every number is finite, through dataclasses,
+    tuples, lists, float and integer arrays and numpy scalars (were it to answer False the slow
+    pass would still clear it: this is what keeps a key's recomputation quick, issue 13)."""
+    import numpy as np
+
+    assert bounds._all_finite(_outer())
+    assert bounds._all_finite(_outer(inner=_Inner(np.arange(5))))  # integer array
+    assert bounds._all_finite(_outer(inner=_Inner(np.array([True, False]))))  # boolean array
+    assert bounds._all_finite(_outer(note="a string", items=()))
+    assert bounds._all_finite(_outer(inner=_Inner(np.array([1.0 + 2.0j]))))  # complex, finite
+
+
+@pytest.mark.parametrize("where", ["top", "array", "nested list", "numpy scalar", "complex"])
+@pytest.mark.parametrize("bad", [math.nan, math.inf, -math.inf])
+def test_the_quick_pass_never_accepts_a_non_finite_number(where, bad):
+    """Anything infinite or not-a-number, wherever it sits, makes the quick pass answer False, and
+    the refusal names its path (IEEE 754: a sum with an infinity or a NaN in it is not finite)."""
+    import numpy as np
+
+    change, path = {
+        "top": (dict(a=bad), "a"),
+        "array": (dict(inner=_Inner(np.array([0.0, bad]))), "inner.values[1]"),
+        "nested list": (dict(items=(2.0, [3.0, _Inner(bad)])), "items[1][1].values"),
+        "numpy scalar": (dict(items=(2.0, [3.0], np.float64(bad))), "items[2]"),
+        "complex": (dict(inner=_Inner(np.array([1.0 + 0j, complex(bad, 0.0)]))), "inner.values[1]"),
+    }[where]
+    obj = _outer(**change)
+    assert bounds._all_finite(obj) is False
+    assert bounds._non_finite(obj, "") == path
+
+
+def test_the_quick_pass_leaves_unknown_types_and_overflowing_sums_to_the_slow_one():
+    """What the quick pass cannot vouch for (a type it does not know, an object array, a sum of
+    finite numbers that overflows) it answers False, and the slow pass clears it when finite."""
+    import numpy as np
+
+    for obj in (_outer(note={"k": 1.0}), _outer(inner=_Inner(np.array([1.0, "a"], dtype=object))),
+                _outer(items=(1e308, 1e308))):
+        assert bounds._all_finite(obj) is False
+        assert bounds._non_finite(obj, "") is None
