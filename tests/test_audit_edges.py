@@ -117,3 +117,56 @@ def test_mctc_exactly_on_its_shape_bounds():
         a[0] = m
         assert [f.severity for f in found(with_hydro(mctc_tm_cm=a), "hydro-mctc")] == [beyond]
 
+
+
+def test_the_block_coefficient_exactly_on_0_3_and_1_005():
+    """CB = Δ/ρ/(LBP·B·T) at the 1.0 m row on 0.3 (the usual range's floor) and on 1.0 × 1.005 (its
+    ceiling with the 0.5 % rounding allowance): neither is outside."""
+    for target in (0.3, 1.0 * 1.005):
+        d0 = on_edge(lambda d: d / RHO / (L * B * 1.0), target * RHO * L * B, target)
+        d = col("displacement_t")
+        d[0] = d0
+        assert found(with_hydro(displacement_t=d), "hydro-cb") == []
+
+
+def test_vcb_exactly_half_a_centimetre_above_the_waterline_is_refused():
+    """0 < VCB < T + 0.005 m: VCB = 1.0 + 0.005 at the 1.0 m row is not below it."""
+    vcb = col("vcb_m")
+    vcb[0] = (1.0 + 0.0) + 0.005
+    assert [f.path[-1] for f in found(with_hydro(vcb_m=vcb), "hydro-vcb")] == [0]
+
+
+def test_mctc_against_kml_exactly_on_its_bounds():
+    """MCTC·100·LBP/(Δ·BML) at the 1.0 m row on 0.5 and 1.1 (a doubt, not an error) and on 1.03
+    (nothing).  (No MCTC near 2.15 t·m/cm gives 0.8 to the last bit here.)"""
+    d0, bml = float(col("displacement_t")[0]), float(col("kml_m")[0]) - float(col("vcb_m")[0])
+
+    def ratio(m):
+        return 100.0 * L * m / (d0 * bml)
+
+    for target, expect in ((0.5, ["warning"]), (1.1, ["warning"]), (1.03, [])):
+        a = col("mctc_tm_cm")
+        a[0] = on_edge(ratio, target * d0 * bml / (100.0 * L), target)
+        assert [f.severity for f in found(with_hydro(mctc_tm_cm=a), "hydro-mctc-kml")] == expect
+
+
+def test_free_surface_exactly_on_its_bounds():
+    """FO1P (8 m² surface): 1.1·A·B²/12 is not a doubt; 2·A·B²/4 is a doubt, not an error."""
+    v = vessel()
+    t = v.tank("FO1P")
+    box = 8.0 * B * B / 12.0
+    for fsi, expect in ((1.1 * box, []), (2.0 * 8.0 * B * B / 4.0, ["warning"])):
+        cal = dataclasses.replace(t.calibration, fsi_m4=frozen_array(np.full(6, fsi)))
+        v2 = dataclasses.replace(v, tanks=tuple(dataclasses.replace(x, calibration=cal) if x.id == "FO1P" else x
+                                                for x in v.tanks))
+        assert [f.severity for f in found(v2, "tank-fsi")] == expect
+
+
+def test_an_empty_row_exactly_10_percent_above_the_next_is_accepted():
+    v = vessel()
+    t = v.tank("FO1P")
+    k = float(t.calibration.fsi_m4[1])
+    cal = dataclasses.replace(t.calibration, fsi_m4=frozen_array(np.array([1.1 * k + 1e-9, k, k, k, k, k])))
+    v2 = dataclasses.replace(v, tanks=tuple(dataclasses.replace(x, calibration=cal) if x.id == "FO1P" else x
+                                            for x in v.tanks))
+    assert found(v2, "tank-fsi-empty") == []
