@@ -170,3 +170,24 @@ def test_an_empty_row_exactly_10_percent_above_the_next_is_accepted():
     v2 = dataclasses.replace(v, tanks=tuple(dataclasses.replace(x, calibration=cal) if x.id == "FO1P" else x
                                             for x in v.tanks))
     assert found(v2, "tank-fsi-empty") == []
+
+
+def test_mctc_exactly_on_its_lower_bounds():
+    """c on 0.4 (the doubt's floor; TPC × 0.6, so Cw = 0.6 and 0.9·Cw² = 0.324 is below it) is not a
+    doubt; c on 0.9·Cw² (TPC × 0.9: 0.729) is not an error.  Other rows: c = 0.6 and 0.9."""
+    for fac, target in ((0.6, 0.4), (0.9, None)):
+        tpc = col("tpc_t_cm") * fac
+        t0 = float(tpc[0])
+        cw = 100.0 * t0 / RHO / (L * B)
+        target = 0.9 * cw * cw if target is None else target
+        a = col("mctc_tm_cm") * fac * fac
+        a[0] = on_edge(lambda m: 12.0 * m / (t0 * L), target * t0 * L / 12.0, target)
+        assert found(with_hydro(tpc_t_cm=tpc, mctc_tm_cm=a), "hydro-mctc") == []
+
+
+def test_mctc_against_kml_exactly_on_0_8():
+    """At the 1.6 m row the ratio lands on 0.8 to the last bit: not outside 0.8–1.03."""
+    d3, bml = float(col("displacement_t")[3]), float(col("kml_m")[3]) - float(col("vcb_m")[3])
+    a = col("mctc_tm_cm")
+    a[3] = on_edge(lambda m: 100.0 * L * m / (d3 * bml), 0.8 * d3 * bml / (100.0 * L), 0.8)
+    assert found(with_hydro(mctc_tm_cm=a), "hydro-mctc-kml") == []
