@@ -191,3 +191,19 @@ def test_mctc_against_kml_exactly_on_0_8():
     a = col("mctc_tm_cm")
     a[3] = on_edge(lambda m: 100.0 * L * m / (d3 * bml), 0.8 * d3 * bml / (100.0 * L), 0.8)
     assert found(with_hydro(mctc_tm_cm=a), "hydro-mctc-kml") == []
+
+
+def test_a_kn_exactly_20_percent_off_its_neighbours_line_is_not_an_outlier():
+    """KN(30°) at 146.575 t (first row: judged along heel only) put 20 % above the line through
+    KN(20°) and KN(40°) to the last bit: not MORE than 20 %."""
+    v = vessel()
+    a = np.array(v.cross_curves.kn_m)
+    line = a[0, 2] + 0.5 * (a[0, 4] - a[0, 2])
+    a[0, 3] = on_edge(lambda y: abs(y - line) / line, line * 1.2, 0.2)
+    v2 = dataclasses.replace(v, cross_curves=dataclasses.replace(v.cross_curves, kn_m=frozen_array(a)))
+    assert found(v2, "kn-outlier") == []
+    a[0, 3] = float(np.nextafter(a[0, 3], np.inf))
+    while abs(a[0, 3] - line) / line == 0.2:
+        a[0, 3] = float(np.nextafter(a[0, 3], np.inf))
+    v2 = dataclasses.replace(v, cross_curves=dataclasses.replace(v.cross_curves, kn_m=frozen_array(a)))
+    assert [f.path[2:] for f in found(v2, "kn-outlier")] == [(0, 3)]
