@@ -775,3 +775,15 @@ def test_fishing_gm_limit_lowered_or_raised_by_the_profile():
     r = evaluate(*box(3.0, 3.0, CriteriaSettings(min_gm_m=0.5, sharp_bilged=True)))
     x = crit(r, "IS2008-A2.2.4-gm0")
     assert x.limit == 0.5 and x.source == "vessel profile (Administration requirement)"
+
+
+def test_profile_area_rule_past_the_downflooding_angle_is_nil():
+    """Barge at KG 4.5 (checks.md §1.3: GZ vanishes at 39.10°) with θf 40°: a rule on the area
+    from 45° to 60° ends at θf, before it begins: the area counted is 0, never the negative of the
+    (negative) GZ area between 40° and 45°."""
+    flood = LimitCurve(frozen_array([100.0, 2000.0]), frozen_array([40.0, 40.0]), "downflooding_deg")
+    rules = (ExtraCriterion("min_area", 0.001, "r", from_deg=45.0, to_deg=60.0),)
+    v, c = barge_at(2.0, 4.5, criteria=CriteriaSettings(extra=rules), downflooding=flood)
+    r = evaluate(v, c)
+    x = crit(r, "profile-1-min-area")
+    assert x.assessed and x.value == 0.0 and not x.passed
