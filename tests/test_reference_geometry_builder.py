@@ -1,0 +1,260 @@
+"""The table builder's compartments, deck areas, openings and messages (core/geometry/builder.py),
+on geometries built in code, against closed forms worked here by hand.
+
+Box hull 20 × 6 × 3 m (x 0…20 from the AP, half-breadth 3 m at every station and waterline,
+deck 3 m), ρ = 1.025 t/m³, G for free trim at x = 10 m on the centre line:
+
+* box tank x 2…8, y 0.5…2.5, z 0.5…1.5 (l 6, b 2, h 1): capacity 12 m³, centroid x 5, y 1.5;
+  upright i = l·b³/12 = 4 m⁴ at every sounding (checks.md §3.1); at 50 % and 15° the surface
+  meets both side walls (b/2·tan 15° = 0.268 < d = 0.5 m) so M = i·sinθ·(1 + ½tan²θ)
+  (checks.md §3.2, wall-sided);
+* hold x 10…18, y 0…3, z 1…3: capacity 8·3·2 = 48 m³, LCG 14, TCG 1.5, levelled at fill f
+  its contents reach z = 1 + 2f, VCG = 1 + f (f as a fraction);
+* deck rectangle x 2…8, y 1…5 trimmed to the deck edge y ≤ 3: 6 × 2 = 12 m², centre
+  (5, 2), deck height 3;
+* openings amidships: a wall-sided box heeled θ keeps its waterline through the centre line
+  at the draft T (checks.md §1.1), so a point (y, z) on the low side immerses at
+  tanθ = (z − T)/y while tanθ ≤ min(T, D − T)/(B/2).  'deck edge' (3, 3): tanθ = (3 − T)/3;
+  'low vent' (1.5, 2.5): tanθ = (2.5 − T)/1.5.  At T = 1.5 m (184.5 t) the deck edge goes
+  first (0.5 against 0.667); at T = 2.2 m (270.6 t) the vent (0.2 against 0.267).
+"""
+
+from __future__ import annotations
+
+import math
+
+import numpy as np
+import pytest
+
+from deckload.core.geometry.builder import (
+    TableRangeError,
+    build_tables,
+    deck_area_tables,
+    hold_tables,
+    tank_tables,
+)
+from deckload.core.geometry.spec import (
+    CompartmentShape,
+    DeckAreaSpec,
+    Geometry,
+    HoldSpec,
+    HullOffsets,
+    LateralProfile,
+    OpeningSpec,
+    TableSpec,
+    TankSpec,
+    VesselSpec,
+)
+from deckload.core.geometry.tanks import fill_centroids, sounding_levels
+from deckload.core.geometry.hull import compartment_body
+from vessel_factories import box_kn_m, box_tank_worst_band_pct
+
+RHO = 1.025
+
+
+def box_geometry(deck_z=(3.0, 3.0, 3.0, 3.0, 3.0), disp=(184.5, 270.6), **tables) -> Geometry:
+    xs = np.array([0.0, 5.0, 10.0, 15.0, 20.0])
+    hull = HullOffsets(xs, np.array([0.0, 3.0]), np.full((5, 2), 3.0), np.array(deck_z))
+    kw = dict(draft_m=np.array([0.5, 1.0, 1.5, 2.0]), kn_displacement_t=np.array(disp),
+              kn_heel_deg=np.array([0.0, 30.0, 60.0, 90.0]), trim_basis="free trim", trim_lcg_m=10.0,
+              trim_vcg_m=2.0, transfer_fill_step_pct=12.5)
+    kw.update(tables)
+    tank = TankSpec("DB", "Double bottom", "ballast", 1.025, CompartmentShape("box", 2.0, 8.0, 0.5, 2.5, 0.5, 1.5))
+    hold = HoldSpec("H", "Hold", CompartmentShape("box", 10.0, 18.0, 0.0, 3.0, 1.0, 3.0))
+    area = DeckAreaSpec("D", "Deck", 2.0, 8.0, 1.0, 5.0)
+    openings = (OpeningSpec("low vent", 10.0, 1.5, 2.5), OpeningSpec("deck edge", 10.0, 3.0, 3.0))
+    lateral = LateralProfile(np.array([0.0, 20.0, 20.0, 0.0]), np.array([0.0, 0.0, 5.0, 5.0]))
+    return Geometry(VesselSpec("Box", 20.0, 6.0, 3.0, 1.5), hull, TableSpec(**kw), (tank,), (hold,), (area,),
+                    openings, lateral)
+
+
+def test_build_tables_reports_each_step_in_words():
+    """The command line prints these lines while it builds (builder.py docstring)."""
+    said: list[str] = []
+    build_tables(box_geometry(), said.append)
+    assert said == [
+        "hydrostatics at 4 drafts",
+        "cross curves: 2 displacements × 4 heels (free trim)",
+        "tank 1/1 DB",
+        "downflooding angle for 2 opening(s)",
+        "deck-edge immersion angle at midships",
+        "windage from the lateral profile",
+    ]
+
+
+def test_build_tables_compartments_openings_and_windage():
+    """Module docstring: every table of the box, by hand."""
+    vt = build_tables(box_geometry())
+    assert vt.hull_rule == "simpson"
+    np.testing.assert_allclose(vt.hydrostatics.displacement_t, RHO * 120.0 * np.array([0.5, 1.0, 1.5, 2.0]))
+    # KN of the box section at T = 1.5 and 2.2 m, 0–90°: checks.md §1.2 section formulas
+    # (vessel_factories.box_kn_m); free trim keeps the symmetric box level fore and aft
+    for i, t in enumerate((1.5, 2.2)):
+        expected = [box_kn_m(6.0, 3.0, t, math.radians(h)) for h in (0.0, 30.0, 60.0, 90.0)]
+        np.testing.assert_allclose(vt.cross_curves.kn_m[i], expected, atol=1e-6)
+    (tank,) = vt.tanks
+    assert tank.capacity_m3 == pytest.approx(12.0, abs=1e-9)
+    assert tank.integration == "simpson"
+    s = np.linspace(0.0, 1.0, 11)  # 1 m high, 0.1 m steps: 11 rows
+    np.testing.assert_allclose(tank.calibration.sounding_m, s, atol=1e-12)
+    np.testing.assert_allclose(tank.calibration.volume_m3, 12.0 * s, atol=1e-9)
+    np.testing.assert_allclose(tank.calibration.vcg_m, 0.5 + s / 2, atol=1e-9)
+    np.testing.assert_allclose(tank.calibration.tcg_m, 1.5, atol=1e-9)
+    np.testing.assert_allclose(tank.calibration.lcg_m, 5.0, atol=1e-9)
+    np.testing.assert_allclose(tank.calibration.fsi_m4, 4.0, rtol=1e-9)
+    # transfer table on the 12.5 % fill step and, with no transfer heels given, the KN heels
+    np.testing.assert_allclose(tank.transfer.fill_pct, np.arange(0.0, 100.1, 12.5))
+    np.testing.assert_allclose(tank.transfer.heel_deg, [0.0, 30.0, 60.0, 90.0])
+    assert tank.worst_band_pct == pytest.approx(box_tank_worst_band_pct(6.0, 2.0, 1.0), abs=0.01)
+    (hold,) = vt.holds
+    assert hold.capacity_m3 == pytest.approx(48.0, abs=1e-9)
+    assert (hold.lcg_m, hold.vcg_m, hold.tcg_m) == pytest.approx((14.0, 2.0, 1.5), abs=1e-9)
+    np.testing.assert_allclose(hold.fill_pct, np.arange(0.0, 100.1, 10.0))
+    np.testing.assert_allclose(hold.fill_vcg_m, 1.0 + hold.fill_pct / 100.0, atol=1e-9)
+    np.testing.assert_allclose(hold.fill_lcg_m, 14.0, atol=1e-9)
+    (area,) = vt.deck_areas
+    assert (area.area_m2, area.lcg_m, area.tcg_m, area.deck_height_m) == pytest.approx((12.0, 5.0, 2.0, 3.0), abs=1e-9)
+    # openings: the deck edge governs at 184.5 t, the vent at 270.6 t
+    assert vt.downflooding.opening == "deck edge / low vent"
+    np.testing.assert_allclose(vt.downflooding.displacement_t, [184.5, 270.6])
+    np.testing.assert_allclose(vt.downflooding.angle_deg, np.degrees(np.arctan([0.5, 0.2])), atol=1e-6)
+    # deck edge amidships: tanθ = (3 − T)/3 at T = 1.5 and 2.2 m
+    np.testing.assert_allclose(vt.deck_edge.displacement_t, [184.5, 270.6])
+    np.testing.assert_allclose(vt.deck_edge.angle_deg, np.degrees(np.arctan([0.5, 0.8 / 3.0])), atol=1e-6)
+    # windage of a 20 × 5 m outline above T: 20·(5 − T), centre (5 − T)/2 above the waterline
+    np.testing.assert_allclose(vt.windage.draft_m, [0.5, 1.0, 1.5, 2.0])
+    np.testing.assert_allclose(vt.windage.lateral_area_m2, 20.0 * (5.0 - vt.windage.draft_m), atol=1e-9)
+    np.testing.assert_allclose(vt.windage.centroid_above_wl_m, (5.0 - vt.windage.draft_m) / 2, atol=1e-9)
+    np.testing.assert_allclose(vt.windage.waterline_length_m, 20.0, atol=1e-9)
+
+
+def test_one_governing_opening_is_named_alone_and_no_openings_no_angle():
+    """With the vent alone it governs at both displacements; without openings there is no
+    downflooding table (but still the deck-edge angle), and no lateral profile, no windage."""
+    g = box_geometry()
+    vent = Geometry(g.vessel, g.hull, g.tables, g.tanks, g.holds, g.deck_areas, g.openings[:1], None)
+    vt = build_tables(vent)
+    assert vt.downflooding.opening == "low vent"
+    assert vt.windage is None
+    bare = Geometry(g.vessel, g.hull, g.tables)
+    said: list[str] = []
+    vt = build_tables(bare, said.append)
+    assert vt.downflooding is None and vt.windage is None
+    assert vt.tanks == () and vt.holds == () and vt.deck_areas == ()
+    np.testing.assert_allclose(vt.deck_edge.angle_deg, np.degrees(np.arctan([0.5, 0.8 / 3.0])), atol=1e-6)
+    assert said == ["hydrostatics at 4 drafts", "cross curves: 2 displacements × 4 heels (free trim)",
+                    "deck-edge immersion angle at midships"]
+
+
+def test_transfer_heels_given_apart_from_the_kn_heels():
+    """TableSpec.transfer_heel_deg, when given, sets the transfer table's heels; at 50 % and 15°
+    the box tank is wall-sided: M = 4·sin15°·(1 + ½tan²15°) (module docstring)."""
+    g = box_geometry(transfer_heel_deg=np.array([0.0, 15.0, 90.0]), transfer_fill_step_pct=25.0)
+    t = tank_tables(g.tanks[0], g, g.tables.transfer_heel_deg)
+    np.testing.assert_allclose(t.transfer.fill_pct, [0.0, 25.0, 50.0, 75.0, 100.0])
+    th = math.radians(15.0)
+    assert t.transfer.moment_m4[2, 1] == pytest.approx(4.0 * math.sin(th) * (1 + 0.5 * math.tan(th) ** 2), abs=1e-9)
+    vt = build_tables(g)
+    np.testing.assert_allclose(vt.tanks[0].transfer.heel_deg, [0.0, 15.0, 90.0])
+
+
+def test_a_displacement_above_the_deck_edge_is_refused_with_the_numbers():
+    """The lowest deck sets the largest displacement: deck 2.5 m at the FP, so 1.025·120·2.5 =
+    307.5 t (the hull is cut at the lowest deck height, builder.py)."""
+    g = box_geometry(deck_z=(3.0, 3.0, 3.0, 3.0, 2.5), disp=(184.5, 320.0))
+    with pytest.raises(TableRangeError) as ei:
+        build_tables(g)
+    assert str(ei.value) == ("cross-curve displacement 320 t is more than the hull displaces with the deck edge "
+                             "at the water (307.5 t)")
+
+
+def tapered_geometry() -> Geometry:
+    """Two stations x = 0 and 10 m, wall-sided: half-breadth 2 m at x = 0 and 4 m at x = 10,
+    deck 3 m at x = 0 and 4 m at x = 10 (both linear in x between them)."""
+    hull = HullOffsets(np.array([0.0, 10.0]), np.array([0.0, 5.0]), np.array([[2.0, 2.0], [4.0, 4.0]]),
+                       np.array([3.0, 4.0]))
+    ts = TableSpec(np.array([1.0, 2.0]), np.array([10.0, 20.0]), np.array([0.0, 90.0]))
+    return Geometry(VesselSpec("Taper", 10.0, 8.0, 3.0, 1.0), hull, ts)
+
+
+def test_deck_area_on_a_tapering_deck():
+    """Half-breadth h(x) = 2 + 0.2x and deck height z(x) = 3 + 0.1x on x 0…10.  Full width
+    (y −5…5): width 2h, area ∫(4 + 0.4x)dx = 60 m², LCG ∫x(4 + 0.4x)dx/60 = (200 + 400/3)/60 = 50/9 m,
+    TCG 0, mean deck height ∫(3 + 0.1x)(4 + 0.4x)dx/60 = 2·(60 + 40 + 20/3)/60 = 32/9 m.  Starboard
+    half (y 0…5): width h, area 30 m², TCG ∫h²/2 dx/30 = (40 + 40 + 40/3)/60 = 14/9 m.  Simpson's
+    rule (used by the builder) is exact for these polynomials of degree ≤ 3."""
+    g = tapered_geometry()
+    full = deck_area_tables(DeckAreaSpec("F", "Full", 0.0, 10.0, -5.0, 5.0), g)
+    assert full.area_m2 == pytest.approx(60.0, abs=1e-9)
+    assert full.lcg_m == pytest.approx(50.0 / 9.0, abs=1e-9)
+    assert full.tcg_m == pytest.approx(0.0, abs=1e-9)
+    assert full.deck_height_m == pytest.approx(32.0 / 9.0, abs=1e-9)
+    half = deck_area_tables(DeckAreaSpec("S", "Starboard", 0.0, 10.0, 0.0, 5.0, 2.0), g)
+    assert half.area_m2 == pytest.approx(30.0, abs=1e-9)
+    assert half.tcg_m == pytest.approx(14.0 / 9.0, abs=1e-9)
+    assert half.lcg_m == pytest.approx(50.0 / 9.0, abs=1e-9)
+    assert half.deck_height_m == pytest.approx(32.0 / 9.0, abs=1e-9)
+    assert half.spec.max_load_t_m2 == 2.0
+    # port half mirrors it
+    port = deck_area_tables(DeckAreaSpec("P", "Port", 0.0, 10.0, -5.0, 0.0), g)
+    assert (port.area_m2, port.tcg_m) == pytest.approx((30.0, -14.0 / 9.0), abs=1e-9)
+
+
+def test_deck_area_over_a_short_length_and_outside_the_deck():
+    """A 0.2 m strip x 4.9…5.1 of the starboard half, h = 3 + 0.2u with u = x − 5: area
+    ∫h du = 0.6 m², ∫x·h du = 5·0.6 + 0.2·∫u²du = 3 + 0.2·0.2³/12, so LCG = 5 + 0.2·0.2³/12/0.6 m;
+    a rectangle beyond the deck edge (y 4.5…6, h ≤ 4) is refused with its id."""
+    g = tapered_geometry()
+    strip = deck_area_tables(DeckAreaSpec("S", "Strip", 4.9, 5.1, 0.0, 5.0), g)
+    assert strip.area_m2 == pytest.approx(0.6, abs=1e-12)
+    assert strip.lcg_m == pytest.approx(5.0 + 0.2 * 0.2**3 / 12 / 0.6, abs=1e-12)
+    with pytest.raises(TableRangeError) as ei:
+        deck_area_tables(DeckAreaSpec("D9", "Outboard", 0.0, 10.0, 4.5, 6.0), g)
+    assert str(ei.value) == "deck area D9 lies outside the deck"
+
+
+def test_hold_tables_direct():
+    g = box_geometry()
+    h = hold_tables(g.holds[0], g)
+    assert h.spec is g.holds[0]
+    assert (h.capacity_m3, h.lcg_m, h.vcg_m, h.tcg_m) == pytest.approx((48.0, 14.0, 2.0, 1.5), abs=1e-9)
+
+
+def test_fill_centroids_of_an_empty_off_centre_hold():
+    """Empty, the centroid is the limit of a thin layer on the bottom: the bottom's own centre
+    (x 14, y 1.5) at the bottom height z 1 (tanks.py); full, the box's centre."""
+    g = box_geometry()
+    body = compartment_body(g.holds[0].shape, g.hull)
+    lcg, vcg, tcg, full = fill_centroids(body, np.array([0.0, 25.0, 100.0]))
+    assert full == pytest.approx(48.0, abs=1e-9)
+    np.testing.assert_allclose(lcg, 14.0, atol=1e-9)
+    np.testing.assert_allclose(tcg, 1.5, atol=1e-9)
+    np.testing.assert_allclose(vcg, [1.0, 1.25, 2.0], atol=1e-9)
+
+
+def test_fill_centroids_of_a_hopper_hold():
+    """Wedge section (0, 0), (4, 2), (0, 2), length 10 (checks.md §3.3 [A]): at depth s the contents
+    are the triangle (0, 0), (2s, s), (0, s), volume 10·s², centroid y = z = 2s/3; full 40 m³, so
+    fill f has s = 2·√f; empty, the bottom edge (y 0, z 0)."""
+    from deckload.core.geometry.body import Body
+    from deckload.core.geometry.hull import compartment_sections
+
+    shape = CompartmentShape("prism", 0.0, 10.0, section_y_m=np.array([0.0, 4.0, 0.0]),
+                             section_z_m=np.array([0.0, 2.0, 2.0]))
+    body = Body(*compartment_sections(shape, None))
+    f = np.array([0.0, 25.0, 64.0, 100.0])
+    lcg, vcg, tcg, full = fill_centroids(body, f)
+    s = 2.0 * np.sqrt(f / 100.0)
+    assert full == pytest.approx(40.0, abs=1e-9)
+    np.testing.assert_allclose(vcg, 2 * s / 3, atol=1e-7)
+    np.testing.assert_allclose(tcg, 2 * s / 3, atol=1e-7)
+    np.testing.assert_allclose(lcg, 5.0, atol=1e-9)
+
+
+def test_sounding_levels_rows():
+    """tanks.sounding_levels: equal steps no longer than the step asked for, and at least 11 rows
+    (its documented default), so a shallow tank still has its table every tenth of its height."""
+    np.testing.assert_allclose(sounding_levels(0.5, 0.1), np.linspace(0.0, 0.5, 11))
+    np.testing.assert_allclose(sounding_levels(2.0, 0.1), np.linspace(0.0, 2.0, 21))
+    np.testing.assert_allclose(sounding_levels(2.05, 0.1), np.linspace(0.0, 2.05, 22))
+    np.testing.assert_allclose(sounding_levels(1.0, 0.5, min_rows=2), [0.0, 0.5, 1.0])
