@@ -102,6 +102,16 @@ def test_kn_at_trim_of_a_box_wall_sided(trim_m):
     np.testing.assert_allclose(cc.kn_m, expected, atol=1e-9)
 
 
+def test_kn_at_trim_on_its_side():
+    """Heeled 90° the water in the heeled frame is ζ = −y ≤ c(x): each section holds the strip
+    y ≥ −c(x) over the whole depth D, whose centre is at z = D/2, and KN = η_B = z_B = D/2 = 2 m at
+    any trim, while −B/2 < c(x) < B/2 along the length: here ∇ = L·D·(B/2 + c0) gives
+    c0 = −0.5 and +0.5 m at 738 and 902 t, and the trim 1 m moves c by ±0.5 m at the ends."""
+    cc = kn_at_trim(box_body(), [738.0, 902.0], [0.0, 90.0], 1.0, RHO, L)
+    np.testing.assert_allclose(cc.kn_m[:, 1], D / 2, atol=1e-9)
+    np.testing.assert_allclose(cc.kn_m[:, 0], 0.0, atol=1e-9)
+
+
 def test_drafts_for_trim_keeps_both_ends_strictly_between_keel_and_deck():
     """Module docstring: a row is kept when 0 < T − |t|/2 and T + |t|/2 < depth, strictly: a
     waterline exactly at the keel or at the deck edge has no area to interpolate beyond."""
@@ -110,6 +120,16 @@ def test_drafts_for_trim_keeps_both_ends_strictly_between_keel_and_deck():
     np.testing.assert_allclose(drafts_for_trim(d, -1.0, 4.0), [0.75, 2.0, 3.25])
     np.testing.assert_allclose(drafts_for_trim(d, 0.0, 4.0), d)
     np.testing.assert_allclose(drafts_for_trim(d, 1.6, 4.0), [2.0])
+
+
+def test_two_drafts_are_enough_for_a_table():
+    """Two rows are the fewest a table can be interpolated in (trimmed.MIN_ROWS): at trim 2.5 m
+    the drafts 1.5 and 2.5 m of 0.5…3.5 m keep both ends within 0…4 m (±1.25 m), and the table
+    is made with those two."""
+    (x,) = tables_at_trims(box_body(), np.array([0.5, 1.0, 1.5, 2.5, 3.0, 3.5]), [738.0, 902.0], [0.0, 10.0],
+                           [2.5], RHO, L, D)
+    np.testing.assert_allclose(x.hydrostatics.draft_m, [1.5, 2.5])
+    np.testing.assert_allclose(x.hydrostatics.lcb_m, [lcb(1.5, 2.5), lcb(2.5, 2.5)], atol=1e-9)
 
 
 def test_tables_at_trims_one_table_per_trim():

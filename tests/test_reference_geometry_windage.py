@@ -52,6 +52,10 @@ def test_windage_of_a_sheered_outline():
     area, h = windage_above(x, z, 4.0)
     assert area == pytest.approx(5.0, abs=1e-9)
     assert h == pytest.approx(1.0 / 3.0, abs=1e-9)
+    # above T = 4.6 a sliver: the triangle (0, 4.6), (4, 4.6), (0, 5), 0.8 m², centre 0.4/3 m above
+    area, h = windage_above(x, z, 4.6)
+    assert area == pytest.approx(0.8, abs=1e-9)
+    assert h == pytest.approx(0.4 / 3.0, abs=1e-9)
 
 
 def test_no_windage_above_the_outline():
@@ -101,6 +105,13 @@ def test_waterline_length_with_wet_end_stations():
     assert waterline_length_m(HullOffsets(xs, zw, hb2, np.full(7, 4.0)), 1.0) == pytest.approx(15.0, abs=1e-12)
     hb3 = np.array([[0.0, 0.0]] * 4 + [[2.0, 2.0]] * 3)
     assert waterline_length_m(HullOffsets(xs, zw, hb3, np.full(7, 4.0)), 1.0) == pytest.approx(15.0, abs=1e-12)
+    # only the aftmost station dry: x 0…30; only the foremost station wet: x 25…30
+    hb4 = np.array([[0.0, 0.0]] + [[2.0, 2.0]] * 6)
+    assert waterline_length_m(HullOffsets(xs, zw, hb4, np.full(7, 4.0)), 1.0) == pytest.approx(30.0, abs=1e-12)
+    hb5 = np.array([[0.0, 0.0]] * 6 + [[2.0, 2.0]])
+    assert waterline_length_m(HullOffsets(xs, zw, hb5, np.full(7, 4.0)), 1.0) == pytest.approx(5.0, abs=1e-12)
+    hb6 = np.array([[2.0, 2.0]] + [[0.0, 0.0]] * 6)
+    assert waterline_length_m(HullOffsets(xs, zw, hb6, np.full(7, 4.0)), 1.0) == pytest.approx(5.0, abs=1e-12)
 
 
 def test_deck_edge_point_interpolates_in_x_and_z():
