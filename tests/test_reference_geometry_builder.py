@@ -220,6 +220,49 @@ def test_hold_tables_direct():
     assert (h.capacity_m3, h.lcg_m, h.vcg_m, h.tcg_m) == pytest.approx((48.0, 14.0, 2.0, 1.5), abs=1e-9)
 
 
+def flared_geometry() -> Geometry:
+    """Stations 0, 10, 20 m; waterlines 0 and 3 m; half-breadth at the keel 1, 2, 3 m (1 + 0.1x) and
+    3 m at z = 3 at every station; deck 3 m."""
+    hull = HullOffsets(np.array([0.0, 10.0, 20.0]), np.array([0.0, 3.0]), np.array([[1.0, 3.0], [2.0, 3.0], [3.0, 3.0]]),
+                       np.full(3, 3.0))
+    ts = TableSpec(np.array([1.0, 2.0]), np.array([10.0, 20.0]), np.array([0.0, 90.0]), transfer_fill_step_pct=1.0)
+    hold = HoldSpec("H", "Hold", CompartmentShape("hull", 0.0, 20.0, 0.0, 5.0, 0.0, 3.0))
+    tank = TankSpec("WB", "Wing", "ballast", 1.025, CompartmentShape("hull", 0.0, 20.0, 0.0, 5.0, 0.0, 3.0))
+    return Geometry(VesselSpec("Flare", 20.0, 6.0, 3.0, 1.5), hull, ts, (tank,), (hold,))
+
+
+def test_hull_shaped_hold_in_a_flared_hull():
+    """The starboard half of the flared hull, x 0…20: at x its section is the trapezoid from
+    h = 1 + 0.1x at the keel to 3 at z = 3, area 1.5·(h + 3); ∫ over x: ∇ = 1.5·(80 + 20) = 150 m³;
+    LCG = 1.5·∫x(4 + 0.1x)dx/150 = 1.5·(800 + 800/3)/150 = 32/3 m; ∬y dA = (h² + 3h + 9)/2 per
+    section, ∫ = (260/3 + 120 + 180)/2 = 580/3, TCG = 580/450 = 58/45 m; ∬z dA = 1.5h + 9, ∫ = 240,
+    VCG = 1.6 m.  The lower layers are longer forward, so the LCG at part fills differs from the
+    full one (the table keeps the full hold's centre and the LCG/VCG at each tenth)."""
+    g = flared_geometry()
+    h = hold_tables(g.holds[0], g)
+    assert h.capacity_m3 == pytest.approx(150.0, rel=1e-12)
+    assert h.lcg_m == pytest.approx(32.0 / 3.0, rel=1e-12)
+    assert h.tcg_m == pytest.approx(58.0 / 45.0, rel=1e-12)
+    assert h.vcg_m == pytest.approx(1.6, rel=1e-12)
+    assert h.fill_vcg_m[-1] == pytest.approx(1.6, rel=1e-12)
+    assert h.fill_lcg_m[-1] == pytest.approx(32.0 / 3.0, rel=1e-12)
+    # a thin bottom layer's LCG: ∫x(1 + 0.1x)dx/∫(1 + 0.1x)dx = (200 + 800/3)/40 = 35/3 m
+    assert h.fill_lcg_m[0] == pytest.approx(35.0 / 3.0, rel=1e-9)
+    assert np.all(np.diff(h.fill_lcg_m) < 0.0)
+
+
+def test_hull_shaped_tank_on_a_one_percent_fill_step():
+    """Same hull, the same space as a tank: capacity 150 m³, its integration along the hull
+    stations, and the transfer table on every 1 % (101 rows 0, 1, …, 100)."""
+    g = flared_geometry()
+    t = tank_tables(g.tanks[0], g, np.array([0.0, 30.0]))
+    assert t.spec is g.tanks[0]
+    assert t.capacity_m3 == pytest.approx(150.0, rel=1e-12)
+    assert t.integration == "simpson between hull stations"
+    np.testing.assert_allclose(t.transfer.fill_pct, np.arange(0.0, 100.5, 1.0))
+    np.testing.assert_allclose(t.transfer.heel_deg, [0.0, 30.0])
+
+
 def test_fill_centroids_of_an_empty_off_centre_hold():
     """Empty, the centroid is the limit of a thin layer on the bottom: the bottom's own centre
     (x 14, y 1.5) at the bottom height z 1 (tanks.py); full, the box's centre."""
