@@ -161,7 +161,7 @@ def test_transfer_heels_given_apart_from_the_kn_heels():
 def test_a_displacement_above_the_deck_edge_is_refused_with_the_numbers():
     """The lowest deck sets the largest displacement: deck 2.5 m at the FP, so 1.025·120·2.5 =
     307.5 t (the hull is cut at the lowest deck height, builder.py)."""
-    g = box_geometry(deck_z=(3.0, 3.0, 3.0, 3.0, 2.5), disp=(184.5, 320.0))
+    g = box_geometry(deck_z=(3.0, 3.0, 3.0, 3.0, 2.5), disp=(184.5, 300.0, 320.0))
     with pytest.raises(TableRangeError) as ei:
         build_tables(g)
     assert str(ei.value) == ("cross-curve displacement 320 t is more than the hull displaces with the deck edge "
@@ -198,6 +198,18 @@ def test_deck_area_on_a_tapering_deck():
     # port half mirrors it
     port = deck_area_tables(DeckAreaSpec("P", "Port", 0.0, 10.0, -5.0, 0.0), g)
     assert (port.area_m2, port.tcg_m) == pytest.approx((30.0, -14.0 / 9.0), abs=1e-9)
+
+
+def test_deck_area_cut_by_the_deck_edge_part_way():
+    """The strip y 2.5…5 of the tapering deck is inside the deck edge only where h = 2 + 0.2x > 2.5,
+    i.e. x > 2.5: width max(0, 0.2x − 0.5), area ∫₂.₅¹⁰(0.2x − 0.5)dx = 0.1·(100 − 6.25) − 0.5·7.5
+    = 5.625 m².  The width kinks at x = 2.5 (slope 0 → 0.2), where Simpson's rule is not exact: over
+    the panel holding a kink of slope jump Δ its error is at most Δ·h²/6 (kink on the middle node,
+    exact Δh²/2 against Simpson's Δh²/3), 3.3e-4 m² at the builder's h ≤ 0.1 m (builder.py
+    docstring); tolerance 4e-4 m²."""
+    g = tapered_geometry()
+    strip = deck_area_tables(DeckAreaSpec("K", "Outer strip", 0.0, 10.0, 2.5, 5.0), g)
+    assert strip.area_m2 == pytest.approx(5.625, abs=4e-4)
 
 
 def test_deck_area_over_a_short_length_and_outside_the_deck():
