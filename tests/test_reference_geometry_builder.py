@@ -313,3 +313,30 @@ def test_sounding_levels_rows():
     np.testing.assert_allclose(sounding_levels(2.0, 0.1), np.linspace(0.0, 2.0, 21))
     np.testing.assert_allclose(sounding_levels(2.05, 0.1), np.linspace(0.0, 2.05, 22))
     np.testing.assert_allclose(sounding_levels(1.0, 0.5, min_rows=2), [0.0, 0.5, 1.0])
+
+
+def test_cross_curves_use_the_tables_trim_basis_and_reference_centre():
+    """Free trim about the centre stated in [tables] (trim_lcg_m 9.5, trim_vcg_m 2): upright, the box
+    trims until B is under it, which for a box is the cubic s·(GML + ½·BML·s²) = L/2 − x_G with
+    s = tan ψ, BML = L²/(12T), GML = BML + T/2 − z_G (tests/test_geometry_box.py
+    test_free_trim_balances_lcb_with_lcg, derived there; checks.md §1.6).  At 184.5 t, T = 1.5 m:
+    BML = 22.22 m, GML = 20.97 m, and s ≈ 0.0238 by the stern (G abaft the middle).  Even keel
+    (no trim) is a different table: trim nil."""
+    g = box_geometry(trim_lcg_m=9.5)
+    cc = build_tables(g).cross_curves
+    assert cc.trim_basis == "free trim"
+    t_m, l_m, zg = 1.5, 20.0, 2.0
+    bml = l_m**2 / (12 * t_m)
+    gml = bml + t_m / 2 - zg
+    lo, hi = -0.5, 0.5
+    for _ in range(200):  # bisection on the monotone cubic
+        mid = 0.5 * (lo + hi)
+        if mid * (gml + 0.5 * bml * mid**2) > l_m / 2 - 9.5:
+            hi = mid
+        else:
+            lo = mid
+    assert 0.02 < lo < 0.03
+    assert math.tan(cc.trim_rad[0, 0]) == pytest.approx(0.5 * (lo + hi), abs=1e-9)
+    ek = build_tables(box_geometry(trim_lcg_m=9.5, trim_basis="even keel")).cross_curves
+    assert ek.trim_basis == "even keel"
+    np.testing.assert_allclose(ek.trim_rad, 0.0, atol=1e-15)
