@@ -177,3 +177,12 @@ def test_waterplane_about_its_own_centre_off_the_centre_line():
     np.testing.assert_allclose(h.cb, 1.0, rtol=1e-12)
     np.testing.assert_allclose(h.cw, 1.0, rtol=1e-12)
     assert h.rule == "simpson"
+
+
+def test_draft_for_volume_of_a_box():
+    """Even keel upright the box displaces L·B·T: the draft for 400, 800, 1400 m³ is 1, 2, 3.5 m."""
+    from deckload.core.geometry.hydrostatics_calc import draft_for_volume
+
+    np.testing.assert_allclose(draft_for_volume(box_body(), np.array([400.0, 800.0, 1400.0])), [1.0, 2.0, 3.5],
+                               atol=1e-9)
+    np.testing.assert_allclose(draft_for_volume(box_body(), [800.0]), [2.0], atol=1e-9)
