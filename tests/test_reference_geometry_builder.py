@@ -340,3 +340,36 @@ def test_cross_curves_use_the_tables_trim_basis_and_reference_centre():
     ek = build_tables(box_geometry(trim_lcg_m=9.5, trim_basis="even keel")).cross_curves
     assert ek.trim_basis == "even keel"
     np.testing.assert_allclose(ek.trim_rad, 0.0, atol=1e-15)
+
+
+def test_calibration_of_a_small_off_centre_tank():
+    """Box tank 1 × 0.5 × 0.5 m at y 1…1.5 (checks.md §3.1): v = 0.5·s, TCG 1.25, and the free
+    surface's inertia about its own centre line l·b³/12 = 0.5³/12 m⁴ at every sounding — not about
+    the ship's centre line (∫y² dA = (1.5³ − 1)/3 = 0.79 m⁴), however small the surface (0.5 m²)."""
+    from deckload.core.geometry.tanks import calibrate
+
+    body = compartment_body(CompartmentShape("box", 0.0, 1.0, 1.0, 1.5, 0.0, 0.5), None)
+    cal = calibrate(body, np.array([0.0, 0.25, 0.5]))
+    np.testing.assert_allclose(cal.volume_m3, [0.0, 0.125, 0.25], atol=1e-12)
+    np.testing.assert_allclose(cal.tcg_m, 1.25, atol=1e-12)
+    np.testing.assert_allclose(cal.fsi_m4, 0.5**3 / 12, rtol=1e-9)
+
+
+def test_openings_and_deck_edge_follow_the_tables_trim_basis():
+    """builder.build_tables: the downflooding and deck-edge angles are found with the hull floating
+    as for the cross curves (cross_curves.immersion_angle with the tables' trim basis and reference
+    centre, builder.py).  With G 0.5 m abaft the middle the free-trim angles differ from the
+    even-keel ones, so the check tells the two apart."""
+    from deckload.core.geometry.builder import hull_body
+    from deckload.core.geometry.cross_curves import immersion_angle
+
+    g = box_geometry(trim_lcg_m=9.5)
+    vt = build_tables(g)
+    body = hull_body(g)
+    disp = g.tables.kn_displacement_t
+    free = [immersion_angle(body, disp, RHO, (o.x_m, o.y_m, o.z_m), "free trim", 9.5, 2.0) for o in g.openings]
+    even = [immersion_angle(body, disp, RHO, (o.x_m, o.y_m, o.z_m), "even keel") for o in g.openings]
+    np.testing.assert_allclose(vt.downflooding.angle_deg, np.min(free, axis=0), atol=1e-9)
+    assert np.max(np.abs(np.min(free, axis=0) - np.min(even, axis=0))) > 1e-3
+    edge = immersion_angle(body, disp, RHO, (10.0, 3.0, 3.0), "free trim", 9.5, 2.0)
+    np.testing.assert_allclose(vt.deck_edge.angle_deg, edge, atol=1e-9)

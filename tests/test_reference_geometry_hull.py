@@ -135,3 +135,17 @@ def test_volume_of_a_hull_compartment_in_a_flaring_hull():
     np.testing.assert_allclose(xs, [5.0, 7.5, 10.0, 12.5, 15.0])
     assert y.shape[0] == 5 and z.shape == y.shape
     assert rule == "simpson between hull stations"
+
+
+def test_section_polygon_starts_at_the_last_zero_offset_whatever_the_first_breadth():
+    """Half-breadths 0, 0, 0.5, 2 at z 0…3, deck 3: the hull starts at (0, 1), the last zero offset,
+    however small the first breadth above it (0.5 m): area ½(0 + 1)·1 + ½(1 + 4)·1 = 3 m².  With only
+    the deck-edge offset non-zero (0, 0, 2 at z 0, 1, 2; deck 2): the triangle (0, 1), (2, 2),
+    (−2, 2), area 2 m²."""
+    y, z = section_polygon(np.array([0.0, 1.0, 2.0, 3.0]), np.array([0.0, 0.0, 0.5, 2.0]), 3.0)
+    np.testing.assert_allclose(z[0], 1.0)
+    assert polygon_area(y, z) == pytest.approx(3.0, abs=1e-12)
+    y, z = section_polygon(np.array([0.0, 1.0, 2.0]), np.array([0.0, 0.0, 2.0]), 2.0)
+    np.testing.assert_allclose(y, [0.0, 2.0, -2.0, -0.0])
+    np.testing.assert_allclose(z, [1.0, 2.0, 2.0, 1.0])
+    assert polygon_area(y, z) == pytest.approx(2.0, abs=1e-12)
