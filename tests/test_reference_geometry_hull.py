@@ -149,3 +149,15 @@ def test_section_polygon_starts_at_the_last_zero_offset_whatever_the_first_bread
     np.testing.assert_allclose(y, [0.0, 2.0, -2.0, -0.0])
     np.testing.assert_allclose(z, [1.0, 2.0, 2.0, 1.0])
     assert polygon_area(y, z) == pytest.approx(2.0, abs=1e-12)
+
+
+def test_a_prism_in_a_hull_keeps_its_three_stations():
+    """A prism has one section all along, so even inside a hull with stations it takes the three
+    stations x_from, mid, x_to and Simpson's rule (hull.compartment_stations docstring)."""
+    hull = HullOffsets(np.array([0.0, 10.0, 20.0, 30.0]), np.array([0.0, 4.0]), np.full((4, 2), 2.0), np.full(4, 4.0))
+    shape = CompartmentShape("prism", 5.0, 25.0, section_y_m=np.array([0.0, 1.0, 0.0]),
+                             section_z_m=np.array([0.0, 0.0, 1.0]))
+    xs, w, rule = compartment_stations(shape, hull)
+    np.testing.assert_allclose(xs, [5.0, 15.0, 25.0])
+    np.testing.assert_allclose(w, np.array([1.0, 4.0, 1.0]) * 10.0 / 3.0)
+    assert rule == "simpson"
