@@ -161,3 +161,12 @@ def test_a_prism_in_a_hull_keeps_its_three_stations():
     np.testing.assert_allclose(xs, [5.0, 15.0, 25.0])
     np.testing.assert_allclose(w, np.array([1.0, 4.0, 1.0]) * 10.0 / 3.0)
     assert rule == "simpson"
+
+
+def test_a_hull_station_close_to_a_compartment_end_is_still_a_cut():
+    """Compartment x 9.5…20.5 in a hull with stations 0, 10, 20, 30: the stations 10 and 20, half a
+    metre inside its ends, still cut it (the offsets kink there): pieces 9.5–10, 10–20, 20–20.5."""
+    hull = HullOffsets(np.array([0.0, 10.0, 20.0, 30.0]), np.array([0.0, 4.0]), np.full((4, 2), 2.0), np.full(4, 4.0))
+    xs, w, _ = compartment_stations(CompartmentShape("hull", 9.5, 20.5, -5.0, 5.0, 0.0, 4.0), hull)
+    np.testing.assert_allclose(xs, [9.5, 9.75, 10.0, 15.0, 20.0, 20.25, 20.5])
+    np.testing.assert_allclose(w, np.array([0.5, 2.0, 0.5 + 10.0, 40.0, 10.0 + 0.5, 2.0, 0.5]) / 6.0)
