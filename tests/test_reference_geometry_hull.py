@@ -116,8 +116,15 @@ def test_compartment_polygons():
     y, z = compartment_polygon(CompartmentShape("hull", 0.0, 20.0, 1.0, 9.0, 0.5, 9.0), h, 15.0)
     # hull half-breadth 4 at x = 15, deck 3.75: the rectangle y 1…4, z 0.5…3.75
     assert polygon_area(y, z) == pytest.approx(3.0 * 3.25)
-    with pytest.raises(ValueError, match="a hull-shaped compartment needs the hull offsets"):
+    with pytest.raises(ValueError) as ei:
         compartment_polygon(CompartmentShape("hull", 0.0, 20.0, 1.0, 9.0, 0.5, 9.0), None, 15.0)
+    assert str(ei.value) == "a hull-shaped compartment needs the hull offsets"
+    # a small prism section given counter-clockwise keeps its order (area +0.125 m², not reversed)
+    small = CompartmentShape("prism", 0.0, 1.0, section_y_m=np.array([0.0, 0.5, 0.0]),
+                             section_z_m=np.array([0.0, 0.0, 0.5]))
+    y, z = compartment_polygon(small, None, 0.5)
+    np.testing.assert_allclose(y, [0.0, 0.5, 0.0])
+    assert polygon_area(y, z) == pytest.approx(0.125)
 
 
 def test_volume_of_a_hull_compartment_in_a_flaring_hull():
