@@ -99,19 +99,19 @@ def test_only_the_first_bad_mctc_row_is_reported():
 
 
 def test_mctc_against_kml_a_doubt_in_full():
-    """KML × 1.5: BML = 1.5·KML − KB, so the table's MCTC is 0.664 × Δ·BML/(100·LBP) at 1.0 m; GML ≥
+    """KML × 1.5: BML = 1.5·KML − KB, so the table's MCTC is 0.6639 × Δ·BML/(100·LBP) at 1.0 m; GML ≥
     0.8·BML on ordinary ships (audit.MCTC_KML_RANGE, derived)."""
     (f,) = found(with_hydro(kml_m=col("kml_m") * 1.5), "hydro-mctc-kml")
     assert (f.severity, f.key, f.path) == (WARNING, "hydrostatics.mctc_tm_cm", ("hydrostatics", "mctc_tm_cm", 0))
     assert f.text() == (
         "hydrostatics.mctc_tm_cm = 2.6872 t·m/cm: MCTC ≈ Δ·GML/(100·LBP) with GML ≤ BML = KML − KB = 60.75 m: the "
-        f"table's MCTC is 0.664 × Δ·BML/(100·LBP), outside 0.8–1.03; {ROW} 1 m")
+        f"table's MCTC is 0.6639 × Δ·BML/(100·LBP), outside 0.8–1.03; {ROW} 1 m")  # 4 figures: 1.03 vs 1.0306
 
 
 def test_mctc_against_kml_an_error():
-    """KML × 2: ratio 0.497 at 1.0 m, below 0.5: a factor of 2 slipped."""
+    """KML × 2: ratio 0.4969 at 1.0 m, below 0.5: a factor of 2 slipped."""
     (f,) = found(with_hydro(kml_m=col("kml_m") * 2), "hydro-mctc-kml")
-    assert f.severity == ERROR and f.why.endswith("the table's MCTC is 0.497 × Δ·BML/(100·LBP), outside 0.5–1.1")
+    assert f.severity == ERROR and f.why.endswith("the table's MCTC is 0.4969 × Δ·BML/(100·LBP), outside 0.5–1.1")
     (f,) = found(with_hydro(kml_m=col("kml_m") * 0.9), "hydro-mctc-kml")
     assert f.severity == ERROR and "outside 0.5–1.1" in f.why  # ratio 1.11
     (f,) = found(with_hydro(kml_m=col("kml_m") * 0.95), "hydro-mctc-kml")

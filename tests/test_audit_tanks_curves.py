@@ -68,8 +68,8 @@ def test_a_free_surface_above_any_surface_in_full():
     assert f.severity == ERROR
     assert f.text() == (
         "tank[FO1P].calibration.fsi_m4 = 266.67 m⁴ (FSM 226.7 t·m at 0.85 t/m³): above what the tank's own surface "
-        "allows: its calibration gives a surface of 8 m², and no surface of that area within the breadth 6.5 m exceeds "
-        "A·B²/4 = 84.5 m⁴ (even doubling the area); " + FSI_LOOK)
+        "allows: its calibration gives a surface of 8 m², and no surface of even twice that area within the breadth "
+        "6.5 m exceeds 2·A·B²/4 = 169 m⁴; " + FSI_LOOK)  # the limit applied is the one printed
 
 
 @pytest.mark.parametrize("fsi, expect", [(30.9, []), (31.1, [WARNING]), (168.9, [WARNING]), (169.1, [ERROR])])
@@ -247,7 +247,7 @@ def test_a_downflooding_curve_above_the_table():
     assert (f.severity, f.key, f.path) == (ERROR, "downflooding.displacement_t", ("downflooding", "displacement_t", 0))
     assert f.value == "400–500 t" and f.look == "the booklet's downflooding angle curve"
     assert f.why == ("the curve lies wholly outside the displacements she can have (lightship 150 t to the "
-                     "table's 381.09 t): it can never be used.")
+                     "table's 381.09 t): it can never be used")  # no full stop before the "; compare with" that follows
 
 
 @pytest.mark.parametrize("d, expect", [

@@ -142,7 +142,7 @@ def test_verdict_only_unassessable_criteria_is_not_a_plain_met():
     (an officer reading "Met" would take the unassessed criterion as met)."""
     text = _result((MET, OPEN)).verdict_text()
     assert text == (
-        "Met where assessable, 1 criteria not assessable — assessed: IS Code 2008 Part A 2.2 general criteria, "
+        "Met where assessable, 1 criterion not assessable — assessed: IS Code 2008 Part A 2.2 general criteria, "
         "criteria written in the profile. Not assessed: damage stability, icing allowance (not computed by "
         "deckload); IS Code 2008 Part A 2.3 weather criterion (the profile has no windage data).")
 
@@ -158,4 +158,4 @@ def test_verdict_without_any_criteria_set_says_so():
     text = _result((), sets=(), not_assessed=()).verdict_text()
     assert text == "Met: no criteria set."
     text = _result((OPEN,), sets=(), not_assessed=()).verdict_text()
-    assert text == "Met where assessable, 1 criteria not assessable — assessed: no criteria set."
+    assert text == "Met where assessable, 1 criterion not assessable — assessed: no criteria set."

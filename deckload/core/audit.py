@@ -547,7 +547,7 @@ class _Audit:
             if sev:
                 self.add(sev, "hydrostatics.mctc_tm_cm", hp + ("mctc_tm_cm", i), f"{h.mctc_tm_cm[i]:.5g} t·m/cm",
                          f"MCTC ≈ Δ·GML/(100·LBP) with GML ≤ BML = KML − KB = {_f(bml)}: the table's MCTC is "
-                         f"{ratio:.3g} × Δ·BML/(100·LBP), outside {(elo if sev == ERROR else wlo):g}–"
+                         f"{ratio:.4g} × Δ·BML/(100·LBP), outside {(elo if sev == ERROR else wlo):g}–"
                          f"{(ehi if sev == ERROR else whi):g}", row(i), "hydro-mctc-kml")
                 break
 
@@ -670,8 +670,8 @@ class _Audit:
                          f"{x:.5g} m⁴ (FSM {x * t.density_t_m3:.4g} t·m at {t.density_t_m3:g} t/m³)",
                          f"above what the tank's own surface allows{empty}: its calibration gives a surface of "
                          f"{area:.4g} m², and "
-                         + (f"no surface of that area within the breadth {B:g} m exceeds A·B²/4 = {area * B * B / 4:.4g} m⁴ "
-                            "(even doubling the area)" if sev == ERROR
+                         + (f"no surface of even twice that area within the breadth {B:g} m exceeds "
+                            f"2·A·B²/4 = {hard:.4g} m⁴" if sev == ERROR
                             else f"a box of that area {B:g} m wide has A·B²/12 = {box:.4g} m⁴"),
                          look, "tank-fsi")
                 return
@@ -749,7 +749,8 @@ class _Audit:
                 self.add(ERROR, f"{name}.displacement_t", (name, "displacement_t", 0),
                          f"{float(d[0]):.5g}–{float(d[-1]):.5g} t",
                          f"the curve lies wholly outside the displacements she can have (lightship {light:.5g} t to "
-                         f"the table's {top:.5g} t): it can never be used.{drafts}", look, "curve-range")
+                         f"the table's {top:.5g} t): it can never be used{'.' + drafts if drafts else ''}", look,
+                         "curve-range")
         k = v.cross_curves
         if float(k.displacement_t[-1]) < float(h.displacement_t[0]) or float(k.displacement_t[0]) > top:
             self.add(ERROR, "cross_curves.displacement_t", ("cross_curves", "displacement_t", 0),

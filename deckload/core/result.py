@@ -268,7 +268,8 @@ class Result:
         if failed:
             head = f"NOT MET ({len(failed)} failed) — assessed: {names}."
         elif open_:
-            head = f"Met where assessable, {len(open_)} criteria not assessable — assessed: {names}."
+            noun = "criterion" if len(open_) == 1 else "criteria"
+            head = f"Met where assessable, {len(open_)} {noun} not assessable — assessed: {names}."
         else:
             head = f"Met: {names}."
         if self.not_assessed:
