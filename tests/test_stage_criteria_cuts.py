@@ -134,3 +134,14 @@ def test_approximate_deck_edge_angle_is_worded():
     assert notes == [("deck-edge-approximate",
                       "deck-edge angle 31.0° approximate: wall-sided at midships, common practice "
                       "(no deck-edge table)", "caution")]
+
+
+def test_a_curve_to_90_degrees_is_not_called_short():
+    """GZ = 2·sinφ is largest at 90°, the last angle of a KN table that reaches 90°: nothing lies beyond
+    the table, so the angle-of-maximum row carries no 'the KN tables end' note (that note is for tables
+    stopping before 90°, stability._short_curve), and IS 2008 Part A 2.2.3 (≥ 25°) passes at 90°."""
+    r = evaluate(vessel(), Condition())
+    assert r.gz_end_deg == 90.0
+    c = crit(r, "IS2008-A2.2.3-angle-max-gz")
+    assert c.value == pytest.approx(90.0, abs=1e-9)
+    assert (c.note, c.passed, c.assessed) == ("", True, True)
