@@ -145,3 +145,24 @@ def test_a_curve_to_90_degrees_is_not_called_short():
     c = crit(r, "IS2008-A2.2.3-angle-max-gz")
     assert c.value == pytest.approx(90.0, abs=1e-9)
     assert (c.note, c.passed, c.assessed) == ("", True, True)
+
+
+def test_verdict_notes_are_cautions_coded_by_what_they_say():
+    """The criteria stage passes the verdict's notes on as cautions: a weather criterion that could not
+    be assessed (no windage data in the profile: IS 2008 Part A 2.3 needs the lateral area) is coded
+    'weather-not-assessed'; any other note, e.g. a deck item stated without windage (its side area is
+    left out of A 2.3's lateral area), is coded 'verdict-note' (deckload's own codes and wording)."""
+    from deckload.core.model import DeckItem
+    from test_reference_weather import L as BOX_L
+    from test_reference_weather import _box
+
+    r = evaluate(vessel(), Condition())
+    assert [(w.code, w.message, w.severity) for w in r.warnings if "windage" in w.message] == [
+        ("weather-not-assessed", "IS Code 2008 Part A 2.3 weather criterion not assessed: the profile has no "
+         "windage data", "caution")]
+    v, c = _box()
+    crate = DeckItem("hidden crate", 1e-6, BOX_L / 2, 12.5, 0.0)
+    r = evaluate(v, c.with_deck_items((crate,)))
+    assert [(w.code, w.message, w.severity) for w in r.warnings if "windage" in w.message] == [
+        ("verdict-note", "weather criterion: no windage given for deck item(s) hidden crate; their side area "
+         "is not included", "caution")]
