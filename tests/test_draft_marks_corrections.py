@@ -175,3 +175,23 @@ def test_marks_of_a_trimmed_listed_condition():
     assert cm.extreme_fwd_m == pytest.approx(1.56 + KEEL, abs=1e-12)
     phi = math.radians(3.0)
     assert cm.deepest_m == pytest.approx((2.36 + KEEL) * math.cos(phi) + 5.0 * math.sin(phi), abs=1e-12)
+
+
+def test_second_trim_correction_near_the_end_of_the_table():
+    """Near the deep end of the table MCTC is taken less than half a metre either side (as far as the
+    table goes): mean draft 3.2 m, trim 1 m by the stern, u = (3.2 + 0.1)/1.05 = 3.1428571 m, so the
+    step is 3.5 − u = 0.3571429 m.  MCTC is linear, so the central difference is still 10 t·m/cm per m
+    and Nemoto's correction is again 50·1²·10/40 = 12.5 t (module docstring); Δ = 410·u + 12.5 t."""
+    slope = TRIM / L
+    mean = 3.2
+
+    def at(m: DraftMark) -> float:
+        return mean + slope * (L / 2 - m.x_m) + KEEL
+
+    r = MarkReadings(at(MARKS.aft), at(MARKS.aft), at(MARKS.midships), at(MARKS.midships),
+                     at(MARKS.forward), at(MARKS.forward))
+    o = condition_from_readings(vessel(), r, RHO_SW)
+    u = (mean + 4 * TRIM / L) / (1 + 2 * TRIM / L)
+    assert 3.5 - u == pytest.approx(0.3571429, abs=1e-7)
+    assert o.second_trim_correction_t == pytest.approx(12.5, abs=1e-6)
+    assert o.displacement_t == pytest.approx(410.0 * u + 12.5, abs=1e-6)
