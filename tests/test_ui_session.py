@@ -289,9 +289,14 @@ def test_closing_the_screen_ends_the_writer_thread_and_frees_the_app(tmp_path):
     from deckload.ui.launch import create_app
 
     def writers():
-        return [t for t in threading.enumerate() if t.name.startswith("deckload-writer")]
+        return {t for t in threading.enumerate() if t.name.startswith("deckload-writer")}
 
-    before = len(writers())
+    # Compared as sets of thread objects, not counts: a writer of an earlier test in this process
+    # may still be ending while this one starts, which made a count race under load.  Held weakly:
+    # a Thread keeps the stderr it started with, which here leads to the app (a live thread stays
+    # in the sets through threading's own table of running threads).
+    before = weakref.WeakSet(writers())
+    started = weakref.WeakSet()
 
     async def run():
         vessel = demo_vessel()
@@ -303,11 +308,12 @@ def test_closing_the_screen_ends_the_writer_thread_and_frees_the_app(tmp_path):
                 await pilot.pause(0.01)
                 if not app.session.saves_pending:
                     break
-            assert len(writers()) == before + 1  # the edit went to the writer thread
+            started.update(writers() - set(before))
+            assert len(started) == 1  # the edit went to this app's own writer thread
         assert app.session.saves_pending == 0 and any((tmp_path / "work").glob("*.condition.toml"))
         return weakref.ref(app)
 
     gone = asyncio.run(run())
-    assert len(writers()) == before
+    assert not any(t.is_alive() for t in started)
     gc.collect()
     assert gone() is None, "the closed app is still referenced"

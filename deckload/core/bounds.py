@@ -250,6 +250,8 @@ def _first_non_finite(obj, path: str) -> str | None:
         return None
     if isinstance(obj, (int, float)):
         return None if math.isfinite(obj) else path
+    if isinstance(obj, complex):  # a complex array's items (tolist): both parts must be finite
+        return None if math.isfinite(obj.real) and math.isfinite(obj.imag) else path
     if dataclasses.is_dataclass(obj):
         for f in dataclasses.fields(obj):
             bad = _first_non_finite(getattr(obj, f.name), f"{path}.{f.name}" if path else f.name)

@@ -8,11 +8,26 @@ from __future__ import annotations
 
 import sys
 from pathlib import Path
+from typing import TYPE_CHECKING, NamedTuple
 
 from deckload.core.model import Condition, Vessel
 
+if TYPE_CHECKING:
+    from deckload.core.result import Result
 
-def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir: Path) -> tuple[Vessel, Condition, list[str]]:
+
+class Start(NamedTuple):
+    """What the screen starts from: the vessel, the condition, notices for the user, and the
+    condition's result if start-up already evaluated it (so the screen need not evaluate it a
+    second time; ``None`` when it did not, or when the condition lies outside the tables)."""
+
+    vessel: Vessel
+    condition: Condition
+    notices: list[str]
+    result: Result | None
+
+
+def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir: Path) -> Start:
     """The vessel and the condition to start from, with notices for the user.
 
     Start-up order: the CONDITION argument if given; else the vessel's saved
@@ -41,55 +56,41 @@ def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir
     saved = working_path(work_dir, vessel)
     notices += _tidy_working_folder(work_dir, saved, vessel)
     if condition_path is not None:
-        condition = _usable(vessel, load_condition(condition_path, vessel), condition_path)
+        condition = load_condition(condition_path, vessel)
+        result = _usable(vessel, condition, condition_path)
         if saved.is_file():
             # The named condition becomes the working one; the old working file is kept.
             aside = _free_name(saved, ".previous")
             saved.replace(aside)
             notices.append(f"The previous working condition was kept as {aside}.")
-        return vessel, condition, notices
+        return Start(vessel, condition, notices, result)
     if saved.is_file():
         try:
-            return vessel, _usable(vessel, load_condition(saved, vessel), saved), notices
+            condition = load_condition(saved, vessel)
+            return Start(vessel, condition, notices, _usable(vessel, condition, saved))
         except (ProfileError, OSError) as exc:
             aside = _free_name(saved, ".unreadable")
             saved.replace(aside)
             notices.append(f"Saved working condition could not be read and was moved to {aside}: {exc}")
     start = paths.demo_start_condition(profile_path)
     if start is not None:  # a packaged demo vessel opens on its departure condition
-        return vessel, load_condition(start, vessel), notices
-    return vessel, Condition(name="Working condition"), notices
+        return Start(vessel, load_condition(start, vessel), notices, None)
+    return Start(vessel, Condition(name="Working condition"), notices, None)
 
 
-def _usable(vessel: Vessel, condition: Condition, path: Path) -> Condition:
-    """``condition`` if the calculation accepts it (or finds it outside the tables, which the
-    screen shows); else :class:`ProfileError` naming the file and why."""
+def _usable(vessel: Vessel, condition: Condition, path: Path) -> Result | None:
+    """The condition's result if the calculation accepts it; ``None`` if it lies outside the
+    tables (accepted: the screen shows why); else :class:`ProfileError` naming the file and why."""
     from deckload.core.stability import evaluate
     from deckload.core.tables import OutOfRangeError
     from deckload.io.profiles import Problem, ProfileError
 
-    global _checked
     try:
-        _checked = (vessel, condition, evaluate(vessel, condition))
+        return evaluate(vessel, condition)
     except OutOfRangeError:
-        pass
+        return None
     except ValueError as exc:
         raise ProfileError([Problem(str(path), None, "", None, f"cannot be computed: {exc}")]) from None
-    return condition
-
-
-_checked: tuple | None = None
-"""(vessel, condition, result) of the last condition :func:`_usable` evaluated: the screen made
-for that very vessel and condition starts from it instead of evaluating it a second time (the
-model is immutable, so the same objects give the same result)."""
-
-
-def _result_already_made(vessel: Vessel, condition: Condition):
-    global _checked
-    made, _checked = _checked, None
-    if made is not None and made[0] is vessel and made[1] is condition:
-        return made[2]
-    return None
 
 
 def _tidy_working_folder(work_dir: Path, saved: Path, vessel: Vessel) -> list[str]:
@@ -145,11 +146,13 @@ def _free_name(path: Path, suffix: str) -> Path:
 
 def create_app(
     vessel: Vessel, condition: Condition, *, work_dir: Path | None, log_dir: Path | None,
-    notices=(), officer: str = "", profile_path: Path | None = None,
+    notices=(), officer: str = "", profile_path: Path | None = None, result: Result | None = None,
 ):
     """The app over a finished vessel and condition; saves to ``work_dir``, logs to ``log_dir``.
 
     ``officer``: initials of the officer of the watch, if known (else signed on with key o).
+    ``result``: ``evaluate(vessel, condition)`` if the caller already has it (start-up's check,
+    :attr:`Start.result`), so the screen does not evaluate the same condition twice.
     """
     from deckload.ui.app import DeckloadApp
     from deckload.ui.session import Session, working_path
@@ -164,7 +167,7 @@ def create_app(
         save_path = None
         extra.append("This window does not save the working condition: another deckload has this vessel open.")
     session = Session(vessel, condition, save_path=save_path, journal=journal,
-                      result=_result_already_made(vessel, condition))
+                      result=result)
     from deckload.io import paths
 
     session.profile_path = profile_path
@@ -198,7 +201,7 @@ def run_open(profile_path: Path | None, condition_path: Path | None) -> int:
 
     work_dir = paths.working_dir()
     try:
-        vessel, condition, notices = load_inputs(profile_path, condition_path, work_dir)
+        start = load_inputs(profile_path, condition_path, work_dir)
     except ProfileError as exc:
         print(f"deckload: {exc}", file=sys.stderr)
         return 2
@@ -207,8 +210,9 @@ def run_open(profile_path: Path | None, condition_path: Path | None) -> int:
         hint = " (give a profile file's path, or demo for the demo vessel)" if what == "profile" else ""
         print(f"deckload: cannot read the {what} {exc.filename or ''}: {exc.strerror or exc}{hint}", file=sys.stderr)
         return 2
-    app = create_app(vessel, condition, work_dir=work_dir, log_dir=paths.log_dir(), notices=notices,
-                     profile_path=profile_path or paths.DEMO_PROFILE)
+    app = create_app(start.vessel, start.condition, work_dir=work_dir, log_dir=paths.log_dir(),
+                     notices=start.notices, profile_path=profile_path or paths.DEMO_PROFILE,
+                     result=start.result)
     app.run()
     if getattr(app, "_exception", None) is not None:
         # The screen stopped on an error nobody foresaw: the boundary's message and crash file.

@@ -174,9 +174,11 @@ def _deckload_app(marks: dict):
 
     marks["imports"] = time.time()
     tmp = Path(tempfile.mkdtemp(prefix="deckload-bench-"))
-    vessel, condition, _ = load_inputs(None, paths.DEMO_CONDITIONS["departure"], tmp / "work")
+    start = load_inputs(None, paths.DEMO_CONDITIONS["departure"], tmp / "work")
     marks["profile and condition read"] = time.time()
-    app = create_app(vessel, condition, work_dir=tmp / "work", log_dir=tmp / "logs", officer="BM")
+    # As `deckload open` does: the screen starts from the result start-up's check made.
+    app = create_app(start.vessel, start.condition, work_dir=tmp / "work", log_dir=tmp / "logs", officer="BM",
+                     result=start.result)
     marks["app made"] = time.time()
     app.bench_tmp = tmp
     save, app.saves = app.session._save, [0]
