@@ -13,10 +13,11 @@ prefix, e.g. ``x_stage_curve``), sets ``MUTANT_UNDER_TEST`` (mutmut's trampoline
 call) and runs the tests that reach the mutated function through pytest's own test protocol,
 stopping at the first failure.  Tests that already killed a mutant of the same function go first,
 then the rest fastest first, so a kill usually costs one test.  Every fixture is torn down after
-each mutant, so nothing a fixture built under one mutant is seen by the next.  A test that runs
-longer than twenty times its unmutated time (plus 10 s) is stopped and counts as a kill (mutmut
-counts a timeout the same way).  Results go to the JSON file as they come (``killed``,
-``survived``, ``no tests``), so a run can be stopped and resumed; ``tests/tools/mutants_in_one_process.py``
+each mutant, so nothing a fixture built under one mutant is seen by the next.  A test that uses
+more than twenty times its unmutated CPU time (plus 10 s of CPU; CPU, not wall time, so a niced run
+on a loaded machine is not cut short) is stopped and recorded as ``timeout``, which counts as a
+kill as in mutmut (the suite would hang).  Results go to the JSON file as they come (``killed``,
+``timeout``, ``survived``, ``no tests``), so a run can be stopped and resumed; ``tests/tools/mutants_in_one_process.py``
 is the slower tool it replaces (a new pytest session per mutant).
 
 Caches in the process (the demo vessels read once, ``tests/demo_vessels.py``; the per-tank
@@ -44,7 +45,7 @@ from _pytest.runner import runtestprotocol
 
 
 class MutantTimeout(BaseException):
-    """Raised by the alarm inside a test that ran too long (BaseException: no ``except Exception``
+    """Raised by the CPU-time alarm inside a test that ran too long (BaseException: no ``except Exception``
     in the program under test can swallow it)."""
 
 
@@ -77,6 +78,7 @@ class Loop:
             for n in self.names:
                 del self.done[n]
         self.killers: dict[str, list[str]] = {}
+        self.timed_out = False
         self.base_s: dict[str, float] = {}
 
     def node_files(self) -> list[str]:
@@ -94,16 +96,20 @@ class Loop:
             for i, item in enumerate(items):
                 nxt = items[i + 1] if i + 1 < len(items) else None
                 if limit:
-                    signal.setitimer(signal.ITIMER_REAL, 20.0 * self.base_s.get(item.nodeid, 1.0) + 10.0)
+                    # CPU seconds, not wall: a run niced under a loaded machine is not cut short.
+                    signal.setitimer(signal.ITIMER_PROF, 20.0 * self.base_s.get(item.nodeid, 1.0) + 10.0)
                 try:
                     reports = runtestprotocol(item, nextitem=nxt, log=False)
                 except MutantTimeout:
                     # The alarm can land outside the test's own call (in pytest's reporting).
+                    self.timed_out = True
                     failed = item.nodeid
                     break
                 finally:
-                    signal.setitimer(signal.ITIMER_REAL, 0)
+                    signal.setitimer(signal.ITIMER_PROF, 0)
                 if any(r.failed for r in reports):
+                    if any(r.failed and "MutantTimeout" in str(r.longrepr) for r in reports):
+                        self.timed_out = True
                     failed = failed or item.nodeid
                     if stop_at_failure:
                         break
@@ -112,17 +118,17 @@ class Loop:
         return failed
 
     def runtestloop(self, session) -> bool:
-        signal.signal(signal.SIGALRM, _alarm)
+        signal.signal(signal.SIGPROF, _alarm)
         by_id = {item.nodeid: item for item in session.items}
         wanted = sorted({t for n in self.names for t in self.tests.get(self.function(n), []) if t in by_id},
                         key=lambda t: self.duration.get(t, 0.0))
         os.environ["MUTANT_UNDER_TEST"] = ""
         bad = []
         for t in wanted:
-            started = time.perf_counter()
+            started = time.process_time()
             if self._run(session, [by_id[t]], True, False):
                 bad.append(t)
-            self.base_s[t] = time.perf_counter() - started
+            self.base_s[t] = time.process_time() - started
         if bad:
             print("the unmutated code fails its own tests, so nothing is measured:", *bad, sep="\n  ",
                   file=sys.stderr)
@@ -142,11 +148,14 @@ class Loop:
                     _clear_caches()
                 started = time.perf_counter()
                 os.environ["MUTANT_UNDER_TEST"] = name
+                self.timed_out = False
                 try:
                     killer = self._run(session, [by_id[t] for t in first + rest], True, True)
                 finally:
                     os.environ["MUTANT_UNDER_TEST"] = ""
-                if killer:
+                if killer and self.timed_out:
+                    self.done[name] = "timeout"
+                elif killer:
                     self.done[name] = "killed"
                     ks = self.killers.setdefault(fn, [])
                     if killer in ks:
