@@ -5,7 +5,7 @@ its test statistics collected)::
 
     cd mutants
     PYTHONPATH=$PWD:$PWD/tests python ../tests/tools/mutants_in_one_session.py \\
-        deckload.core.verdict verdict.json [--fresh | --recheck-survivors] [FUNCTION_PREFIX ...]
+        deckload.core.verdict verdict.json [--fresh | --recheck-survivors] [--cap S] [FUNCTION_PREFIX ...]
 
 It collects the tests mutmut's statistics say reach the module once, runs them once unmutated
 (they must pass), and then, for every mutant (or only those whose function starts with a given
@@ -19,6 +19,11 @@ on a loaded machine is not cut short) is stopped and recorded as ``timeout``, wh
 kill as in mutmut (the suite would hang).  Results go to the JSON file as they come (``killed``,
 ``timeout``, ``survived``, ``no tests``), so a run can be stopped and resumed; ``tests/tools/mutants_in_one_process.py``
 is the slower tool it replaces (a new pytest session per mutant).
+
+``--cap S`` bounds what a survivor costs where many slow tests reach a function: only the tests
+that killed some mutant of the module, then the fastest, up to S seconds of their unmutated CPU
+time, are run; a mutant that passes them is recorded as ``survived capped`` (not a verdict: re-run
+them without the cap with ``--recheck-survivors``).
 
 Caches in the process (the demo vessels read once, ``tests/demo_vessels.py``; the per-tank
 ``lru_cache`` in ``core.free_surface``): by default they keep what the unmutated run filled, so a
@@ -63,21 +68,23 @@ def _clear_caches() -> None:
 
 class Loop:
     def __init__(self, module: str, out: Path, prefixes: tuple[str, ...], fresh: bool,
-                 recheck: bool = False) -> None:
+                 recheck: bool = False, cap_s: float | None = None) -> None:
         stats = json.loads(Path("mutmut-stats.json").read_text())
         self.tests = stats["tests_by_mangled_function_name"]
         self.duration = stats["duration_by_test"]
         meta = json.loads(Path(module.replace(".", "/") + ".py.meta").read_text())
         self.names = [n for n in meta["exit_code_by_key"] if not prefixes or n.startswith(prefixes)]
-        self.module, self.out, self.fresh = module, out, fresh or recheck
+        self.module, self.out, self.fresh, self.cap_s = module, out, fresh or recheck, cap_s
         self.done = json.loads(out.read_text()) if out.exists() else {}
         if recheck:
             # Run the survivors again with every cache cleared before each: a survivor that a
             # cache hid is killed now.
-            self.names = [n for n in self.names if self.done.get(n) == "survived"]
+            self.names = [n for n in self.names if self.done.get(n) in ("survived", "survived capped")]
             for n in self.names:
                 del self.done[n]
-        self.killers: dict[str, list[str]] = {}
+        self.killers_file = out.with_suffix(".killers.json")
+        self.killers: dict[str, list[str]] = (json.loads(self.killers_file.read_text())
+                                              if self.killers_file.exists() else {})
         self.timed_out = False
         self.base_s: dict[str, float] = {}
 
@@ -144,6 +151,20 @@ class Loop:
             else:
                 first = [t for t in self.killers.get(fn, []) if t in nodes]
                 rest = sorted((t for t in nodes if t not in first), key=lambda t: self.base_s.get(t, 0.0))
+                capped = False
+                if self.cap_s is not None:
+                    # The tests that killed any mutant of this module first, then the fastest,
+                    # up to cap_s of their unmutated CPU time.
+                    known = {t for ks in self.killers.values() for t in ks}
+                    rest = [t for t in rest if t in known] + [t for t in rest if t not in known]
+                    kept, spent = [], 0.0
+                    for t in first + rest:
+                        if spent > self.cap_s:
+                            capped = True
+                            break
+                        kept.append(t)
+                        spent += self.base_s.get(t, 0.0)
+                    first, rest = kept, []
                 if self.fresh:
                     _clear_caches()
                 started = time.perf_counter()
@@ -162,9 +183,10 @@ class Loop:
                         ks.remove(killer)
                     ks.insert(0, killer)
                 else:
-                    self.done[name] = "survived"
+                    self.done[name] = "survived capped" if capped else "survived"
                 print(f"{self.done[name]:9} {name}  {time.perf_counter() - started:.1f} s", flush=True)
             self.out.write_text(json.dumps(self.done, indent=0))
+            self.killers_file.write_text(json.dumps(self.killers))
         if self.fresh:
             _clear_caches()
         counts: dict[str, int] = {}
@@ -186,12 +208,17 @@ class Plugin:
 
 def main(argv: list[str]) -> int:
     fresh, recheck = "--fresh" in argv, "--recheck-survivors" in argv
+    cap_s = None
+    if "--cap" in argv:
+        i = argv.index("--cap")
+        cap_s = float(argv[i + 1])
+        del argv[i:i + 2]
     argv = [a for a in argv if a not in ("--fresh", "--recheck-survivors")]
     if len(argv) < 2:
         print(__doc__)
         return 2
     module, out = argv[0], Path(argv[1])
-    loop = Loop(module, out, tuple(f"{module}.{p}" for p in argv[2:]), fresh, recheck)
+    loop = Loop(module, out, tuple(f"{module}.{p}" for p in argv[2:]), fresh, recheck, cap_s)
     files = loop.node_files()
     if not files:
         print(f"{module}: no selected test reaches it")
