@@ -17,8 +17,9 @@ each mutant, so nothing a fixture built under one mutant is seen by the next.  A
 more than twenty times its unmutated CPU time (plus 10 s of CPU; CPU, not wall time, so a niced run
 on a loaded machine is not cut short) is stopped and recorded as ``timeout``, which counts as a
 kill as in mutmut (the suite would hang).  Results go to the JSON file as they come (``killed``,
-``timeout``, ``survived``, ``no tests``), so a run can be stopped and resumed; ``tests/tools/mutants_in_one_process.py``
-is the slower tool it replaces (a new pytest session per mutant).
+``timeout``, ``survived``, ``no tests``), so a run can be stopped and resumed.  It replaces an earlier tool that started a new
+pytest session per mutant (collection and fixture set-up again each time), which was several times
+slower.
 
 ``--cap S`` bounds what a survivor costs where many slow tests reach a function: only the tests
 that killed some mutant of the module, then the fastest, up to S seconds of their unmutated CPU
