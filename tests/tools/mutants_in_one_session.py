@@ -220,6 +220,13 @@ def main(argv: list[str]) -> int:
         return 2
     module, out = argv[0], Path(argv[1])
     loop = Loop(module, out, tuple(f"{module}.{p}" for p in argv[2:]), fresh, recheck, cap_s)
+    # A property test that fails under a mutant would otherwise spend its time shrinking the
+    # example (tens of seconds, then a timeout): a failure is all a kill needs.  Loaded before the
+    # test modules are imported, so their @settings inherit it.
+    from hypothesis import Phase, settings
+
+    settings.register_profile("mutants", phases=(Phase.explicit, Phase.reuse, Phase.generate), database=None)
+    settings.load_profile("mutants")
     files = loop.node_files()
     if not files:
         print(f"{module}: no selected test reaches it")
