@@ -13,30 +13,18 @@ import dataclasses
 
 import numpy as np
 
-from box_profile_text import fv22_text
-from deckload.core.audit import WARNING, audit
+from deckload.core.audit import WARNING
 from deckload.core.model import frozen_array
-from deckload.io.profiles import parse_profile
+from fv22_audit import found, vessel, with_hydro
 
 L, B, RHO = 22.0, 6.5, 1.025
 
-
-def vessel():
-    return parse_profile(fv22_text(), "fv22.toml")
 
 
 def col(name):
     return np.array(getattr(vessel().hydrostatics, name), dtype=float)
 
 
-def with_hydro(**cols):
-    v = vessel()
-    return dataclasses.replace(v, hydrostatics=dataclasses.replace(
-        v.hydrostatics, **{k: frozen_array(np.asarray(a, dtype=float)) for k, a in cols.items()}))
-
-
-def found(v, check):
-    return [f for f in audit(v) if f.check == check]
 
 
 def on_edge(f, x0, target):

@@ -18,10 +18,8 @@ import dataclasses
 import numpy as np
 import pytest
 
-from box_profile_text import fv22_text
 from deckload.core.audit import ERROR, WARNING, audit
-from deckload.core.model import frozen_array
-from deckload.io.profiles import parse_profile
+from fv22_audit import found, vessel, with_hydro
 
 L, B, D, RHO = 22.0, 6.5, 3.0, 1.025
 T = np.array([1.0, 1.2, 1.4, 1.6, 1.8, 2.0, 2.2, 2.4, 2.6])
@@ -29,22 +27,11 @@ TPC = RHO * L * B / 100  # 1.46575 t/cm: the box's waterplane 143 m² (checks.md
 LOOK = "compare with the booklet's hydrostatic particulars table, row at draft"
 
 
-def vessel():
-    return parse_profile(fv22_text(), "fv22.toml")
-
 
 def col(name):
     return np.array(getattr(vessel().hydrostatics, name), dtype=float)
 
 
-def with_hydro(v=None, **cols):
-    v = v or vessel()
-    return dataclasses.replace(v, hydrostatics=dataclasses.replace(
-        v.hydrostatics, **{k: (None if a is None else frozen_array(np.asarray(a, dtype=float))) for k, a in cols.items()}))
-
-
-def found(v, *checks):
-    return [f for f in audit(v) if f.check in checks]
 
 
 def test_the_box_table_raises_nothing():

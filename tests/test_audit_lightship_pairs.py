@@ -19,31 +19,21 @@ import dataclasses
 import numpy as np
 import pytest
 
-from box_profile_text import fv22_text
-from deckload.core.audit import ERROR, WARNING, audit
+from deckload.core.audit import ERROR, WARNING
 from deckload.core.model import frozen_array
 from deckload.io.profiles import parse_profile
+from fv22_audit import found, vessel, with_hydro
 
 L, B = 22.0, 6.5
 MCTC = 1.025 * B * L * L / 1200  # the box's MCTC (checks.md §1.1 closed form), 2.6872 t·m/cm
 
 
-def vessel():
-    return parse_profile(fv22_text(), "fv22.toml")
-
-
-def found(v, *checks):
-    return [f for f in audit(v) if f.check in checks]
 
 
 def with_lightship(v=None, **kw):
     v = v or vessel()
     return dataclasses.replace(v, lightship=dataclasses.replace(v.lightship, **kw))
 
-
-def with_hydro(v, **cols):
-    return dataclasses.replace(v, hydrostatics=dataclasses.replace(
-        v.hydrostatics, **{k: frozen_array(np.asarray(a, dtype=float)) for k, a in cols.items()}))
 
 
 # --------------------------------------------------------------------------- lightship trim

@@ -17,32 +17,22 @@ import math
 import numpy as np
 import pytest
 
-from box_profile_text import FV22_TANKS, box_profile_text, fv22_text
-from deckload.core.audit import ERROR, WARNING, audit
+from box_profile_text import FV22_TANKS, box_profile_text
+from deckload.core.audit import ERROR, WARNING
 from deckload.core.model import frozen_array
 from deckload.io.profiles import parse_profile
+from fv22_audit import found, vessel, with_hydro
 
 L, B, D = 22.0, 6.5, 3.0
 ROW = "compare with the booklet's hydrostatic particulars table, row at draft"
 KN_LOOK = "compare with the booklet's KN cross curves table,"
 
 
-def vessel():
-    return parse_profile(fv22_text(), "fv22.toml")
-
 
 def col(name, v=None):
     return np.array(getattr((v or vessel()).hydrostatics, name), dtype=float)
 
 
-def with_hydro(v=None, **cols):
-    v = v or vessel()
-    return dataclasses.replace(v, hydrostatics=dataclasses.replace(
-        v.hydrostatics, **{k: (None if a is None else frozen_array(np.asarray(a, dtype=float))) for k, a in cols.items()}))
-
-
-def found(v, *checks):
-    return [f for f in audit(v) if f.check in checks]
 
 
 # --------------------------------------------------------------------------- MCTC against the waterplane

@@ -27,20 +27,13 @@ import dataclasses
 import numpy as np
 import pytest
 
-from box_profile_text import fv22_text
-from deckload.core.audit import ERROR, WARNING, _f, audit
+from deckload.core.audit import ERROR, WARNING, _f
 from deckload.core.model import DeckArea, Hold, MassItem, frozen_array
-from deckload.io.profiles import parse_profile
+from fv22_audit import found, vessel
 
 L, B, D = 22.0, 6.5, 3.0  # the FV-22 box (tests/box_profile_text.py)
 
 
-def vessel():
-    return parse_profile(fv22_text(), "fv22.toml")
-
-
-def found(v, *checks):
-    return [f for f in audit(v) if f.check in checks]
 
 
 def with_lightship(**kw):

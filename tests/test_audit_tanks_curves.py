@@ -16,18 +16,14 @@ import dataclasses
 import numpy as np
 import pytest
 
-from box_profile_text import fv22_text
 from deckload.core.audit import ERROR, WARNING, audit, has_errors
 from deckload.core.model import LimitCurve, frozen_array
-from deckload.io.profiles import parse_profile
+from fv22_audit import found, vessel
 
 B = 6.5
 I_BOX = 4.0 * 2.0 ** 3 / 12  # FO1P's own free surface, l·b³/12 (m⁴)
 FSI_LOOK = "compare with the booklet's calibration table of tank FO1P (free-surface column)"
 
-
-def vessel():
-    return parse_profile(fv22_text(), "fv22.toml")
 
 
 TOP = 22.0 * 6.5 * 1.025 * 2.6  # the table's last Δ (t) as the profile holds it: 381.09499999999997
@@ -40,9 +36,6 @@ def with_cal(tank_id, v=None, tank=None, **cols):
     new = dataclasses.replace(t, calibration=cal, **(tank or {}))
     return dataclasses.replace(v, tanks=tuple(new if x.id == tank_id else x for x in v.tanks))
 
-
-def found(v, *checks):
-    return [f for f in audit(v) if f.check in checks]
 
 
 # --------------------------------------------------------------------------- free surface
