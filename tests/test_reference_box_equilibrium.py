@@ -169,6 +169,18 @@ def test_angle_of_loll_is_to_starboard_as_in_the_table_method():
     assert table.list_deg == pytest.approx(loll, abs=0.2)
 
 
+def test_with_gz_never_positive_the_drafts_stay_inside_the_hull():
+    """G three depths above the keel: GZ is negative at every heel, so the list is reported as
+    90°.  The drafts are still worked out just short of 90° (89°), where the box's waterline is a
+    plane through her; they must lie within her depth (a draft deeper than the hull is not a
+    draft: derived), and she is not trimmed (G over the middle of a box: symmetric)."""
+    d = direct_state(BODY, L, DISP, RHO_SW, L / 2, 3.0 * D, 0.0)
+    assert d.list_deg == 90.0 and d.gm_fluid_m < 0.0
+    for draft in (d.draft_aft_m, d.draft_fwd_m):
+        assert 0.0 <= draft <= D
+    assert d.trim_m == pytest.approx(0.0, abs=1e-9)
+
+
 def test_refusals_name_the_displacement():
     """Nothing that cannot float is computed: no displacement, a negative or an infinite one."""
     for disp, shown in ((0.0, "0.0"), (-10.0, "-10.0"), (math.inf, "inf")):
