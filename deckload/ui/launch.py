@@ -166,8 +166,7 @@ def create_app(
         # so this window must not overwrite it.
         save_path = None
         extra.append("This window does not save the working condition: another deckload has this vessel open.")
-    session = Session(vessel, condition, save_path=save_path, journal=journal,
-                      result=result)
+    session = Session(vessel, condition, save_path=save_path, journal=journal, result=result)
     from deckload.io import paths
 
     session.profile_path = profile_path

@@ -317,7 +317,7 @@ class LoadingScreen(Screen[None]):
                             run=("hold", hold.id))
 
         form = _forms().PromptForm(f"{hold.id}  {hold.name}", f"Cargo mass in t (0 empties the hold){limit}",
-                          f"{load.mass_t:g}" if load else "", build)
+                                   f"{load.mass_t:g}" if load else "", build)
         self.app.push_screen(form, done)
 
     def _edit_item(self, deck: bool, index: int | None) -> None:
@@ -452,7 +452,7 @@ class LoadingScreen(Screen[None]):
         build = lambda text: entry.density_from_text(s.condition, text)  # noqa: E731
         self.app.push_screen(
             _forms().PromptForm("Water density", f"t/m³, {lo:.3f}–{hi:.3f} (sea water 1.025, fresh 1.000)",
-                       f"{s.condition.water_density_t_m3:.3f}", build),
+                                f"{s.condition.water_density_t_m3:.3f}", build),
             lambda c: c and self.commit(c, f"Water density {c.water_density_t_m3:.3f} t/m³", "edit",
                                         {"water_density_t_m3": c.water_density_t_m3}))
 
@@ -480,8 +480,8 @@ class LoadingScreen(Screen[None]):
 
         self.app.push_screen(
             _forms().PromptForm(f"Density in {tank.id} {tank.name}",
-                       f"t/m³, {lo:.3f}–{hi:.3f}, from the delivery note; empty or 'default' for the tank's own "
-                       f"{tank.density_t_m3:.3f}. The amount stays as stated.", f"{now:.4g}", build),
+                                f"t/m³, {lo:.3f}–{hi:.3f}, from the delivery note; empty or 'default' for the tank's own "
+                                f"{tank.density_t_m3:.3f}. The amount stays as stated.", f"{now:.4g}", build),
             done)
 
     def action_fs_rule(self) -> None:
