@@ -76,13 +76,14 @@ class Loop:
         meta = json.loads(Path(module.replace(".", "/") + ".py.meta").read_text())
         self.names = [n for n in meta["exit_code_by_key"] if not prefixes or n.startswith(prefixes)]
         self.module, self.out, self.fresh, self.cap_s = module, out, fresh or recheck, cap_s
+        self.recheck = recheck
         self.done = json.loads(out.read_text()) if out.exists() else {}
         if recheck:
             # Run the survivors again with every cache cleared before each: a survivor that a
             # cache hid is killed now.
+            # They keep their old state until their new one is written (an interrupted recheck
+            # loses nothing).
             self.names = [n for n in self.names if self.done.get(n) in ("survived", "survived capped")]
-            for n in self.names:
-                del self.done[n]
         self.killers_file = out.with_suffix(".killers.json")
         self.killers: dict[str, list[str]] = (json.loads(self.killers_file.read_text())
                                               if self.killers_file.exists() else {})
@@ -143,7 +144,7 @@ class Loop:
             session.shouldfail = True
             return True
         for name in self.names:
-            if name in self.done:
+            if name in self.done and not self.recheck:
                 continue
             fn = self.function(name)
             nodes = [t for t in self.tests.get(fn, []) if t in by_id]
