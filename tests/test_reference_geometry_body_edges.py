@@ -12,7 +12,7 @@ from __future__ import annotations
 
 import numpy as np
 
-from deckload.core.geometry.body import Body, immerse
+from deckload.core.geometry.body import Body, immerse, level_for_volume
 from deckload.core.geometry.hull import hull_sections
 from deckload.core.geometry.spec import HullOffsets
 
@@ -31,3 +31,26 @@ def test_nothing_below_the_level_gives_zeros_and_finite_centroids():
         np.testing.assert_array_equal(getattr(im, name), [0.0, 0.0], err_msg=name)
     for name in ("x_b_m", "eta_b_m", "zeta_b_m"):
         assert np.all(np.isfinite(getattr(im, name))), name
+
+
+def test_level_of_a_trimmed_box_with_one_end_dry_or_its_deck_under():
+    """Box as above with stations every 2.5 m (17), upright, trimmed t = ∓0.01 about x_ref = 15 m:
+    the level in section x is c(x) = c0 − (x − 15)·t (body.py), so the section's area is
+    B·clip(c(x), 0, D).  With t = −0.01:
+
+    * c0 = 3.9: c(x) = 3.75 … 4.15, the deck (z = 4) under water from x = 25 m on:
+      ∇ = B·[∫₀²⁵ (3.9 + 0.01(x − 15)) dx + 15·4] = 10·(97.5 − 0.625 + 60) = 1568.75 m³.
+    * c0 = −0.2: c(x) = −0.35 … 0.05, wetted only from x = 35 m on:
+      ∇ = B·∫₃₅⁴⁰ 0.01·(x − 35) dx = 10·0.01·12.5 = 1.25 m³.
+
+    With t = +0.01 and c0 = 4.2: c(x) = 4.35 … 3.95, the deck under water except from x = 35 m on:
+      ∇ = B·[35·4 + ∫₃₅⁴⁰ (4.35 − 0.01x) dx] = 10·(140 + 21.75 − 1.875) = 1598.75 m³
+    (1.25 m³ short of the whole box).
+
+    The kinks (x = 25, 35) are stations at the ends of Simpson panels, and the pieces are linear:
+    the rule is exact, so the level searched for each volume is c0 to the search's own tolerance
+    (1e-11 of the volume over a waterplane of ≥ 50 m²: < 1e-9 m; 1e-9 m allowed)."""
+    body = box_body(17)
+    c = level_for_volume(body, np.ones(3), np.zeros(3), np.array([1568.75, 1.25, 1598.75]),
+                         np.array([-0.01, -0.01, 0.01]), 15.0)
+    np.testing.assert_allclose(c, [3.9, -0.2, 4.2], rtol=0, atol=1e-9)
