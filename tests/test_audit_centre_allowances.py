@@ -32,8 +32,8 @@ So the table is accepted when −0.1 + 5δ − tol₅ ≤ 0.105 and 0.1 + 5δ + 
 | −0.05045 | upper 0.1 − 0.25225 + 0.047123875 = −0.105126125 | below −0.105 by 0.13 mm: refused |
 | +0.0495 | lower 0.10012625 | inside (5 mm to spare): accepted |
 | −0.0494 | upper −0.0998735 | inside: accepted |
-| +0.04 | lower 0.2 − 0.1 − 0.04735 = 0.05265 | inside; without tol₅'s sign it would be 0.14735: accepted |
-| −0.04 | upper −0.2 + 0.1 + 0.04715 = −0.05285 | inside; with tol₅ taken off it would be −0.14715: accepted |
+| +0.04 | lower 0.2 − 0.1 − 0.04735 = 0.05265 | inside (were tol₅ added, not taken off, 0.14735: outside): accepted |
+| −0.04 | upper −0.2 + 0.1 + 0.04715 = −0.05285 | inside (were tol₅ taken off, not added, −0.14715: outside): accepted |
 
 The refused ones are refused at the last row (sounding 1.0 m).  The first two rows of the table
 hold by tenths of a millimetre: they are where row 1's own centre, with its half-centimetre
