@@ -46,6 +46,10 @@ BASIS_MAX = "max"
 BASIS_AT_98 = "at98"
 
 
+CARGO_FULL_PCT = 98.0
+"""The level a nominally full cargo tank is corrected at (IS 2008 B 3.1.2, footnote), whatever fill the
+profile calls nominally full (``nominally_full_pct`` moves only where a tank counts as full)."""
+
 EXEMPT_RULE = "small tank, exempt (IS 2008 B 3.1.12)"
 """The rule text of a slack tank left out by the small-tank exemption."""
 
@@ -154,14 +158,22 @@ def _actual_treatment(vessel: Vessel, c: TankContents, rule: str) -> TankFreeSur
         return TankFreeSurface(0.0, BASIS_NONE, "empty", state)
     if state == "full":
         if t.kind == "cargo_liquid":
-            return TankFreeSurface(rho * fsi_at_fill(t, fs.nominally_full_pct), BASIS_AT_98,
+            return TankFreeSurface(rho * fsi_at_fill(t, CARGO_FULL_PCT), BASIS_AT_98,
                                    "nominally full cargo tank, at 98 % (IS 2008 B 3.1.2)", state)
-        return TankFreeSurface(0.0, BASIS_NONE, "nominally full ≥ 98 % (IS 2008 B 3.1.2)", state)
+        return TankFreeSurface(0.0, BASIS_NONE, _full_rule(fs.nominally_full_pct), state)
     if rule == "is2008" and t.fs_category == "variable":
         return TankFreeSurface(rho * t.max_fsi_m4, BASIS_MAX, "variable level: max between limits (IS 2008 B 3.1.3)",
                                state)
     why = "actual level (IS 2008 B 3.1.3)" if rule == "is2008" else "actual level (IS 2008 B 3.1.6)"
     return TankFreeSurface(rho * c.fsi_m4, BASIS_ACTUAL, why, state)
+
+
+def _full_rule(full_pct: float) -> str:
+    """The rule text of a nominally full tank that carries no correction: IS 2008 B 3.1.2's 98 %, or
+    the profile's own threshold named as such (the officer must not read 98 % where 97 % was applied)."""
+    if full_pct == CARGO_FULL_PCT:
+        return "nominally full ≥ 98 % (IS 2008 B 3.1.2)"
+    return f"nominally full ≥ {full_pct:g} % (the profile's threshold; IS 2008 B 3.1.2 says 98 %)"
 
 
 def free_surface(vessel: Vessel, contents: list[TankContents], rule: str) -> list[TankFreeSurface]:
