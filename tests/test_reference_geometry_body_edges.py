@@ -54,3 +54,46 @@ def test_level_of_a_trimmed_box_with_one_end_dry_or_its_deck_under():
     c = level_for_volume(body, np.ones(3), np.zeros(3), np.array([1568.75, 1.25, 1598.75]),
                          np.array([-0.01, -0.01, 0.01]), 15.0)
     np.testing.assert_allclose(c, [3.9, -0.2, 4.2], rtol=0, atol=1e-9)
+
+
+def keel_bar_body() -> Body:
+    """Stations x = 0, 5, 10; each section a keel bar 0.2 m wide from z = 0 to 3 m under a body
+    10 m wide from z = 3 to 5 m (counter-clockwise)."""
+    y = np.tile([-0.1, 0.1, 0.1, 5.0, 5.0, -5.0, -5.0, -0.1], (3, 1))
+    z = np.tile([0.0, 0.0, 3.0, 3.0, 5.0, 5.0, 3.0, 3.0], (3, 1))
+    return Body(np.array([0.0, 5.0, 10.0]), y, z)
+
+
+def test_level_in_a_body_with_a_deep_narrow_keel():
+    """Keel-bar body above, upright, length 10 m: ∇(c) = 0.2·c·10 for c ≤ 3 and
+    6 + 10·10·(c − 3) for 3 ≤ c ≤ 5 (sections constant along x: every rule exact).
+    ∇ = 106 m³ ⇒ c = 4; ∇ = 4 m³ ⇒ c = 2 (in the keel bar).  Where the waterplane is only the
+    keel's 2 m², a Newton step from inside the keel bar jumps far above the body and the search
+    must bisect towards the top from where it stands (the search's bracket, body.py docstring).
+    Tolerance 1e-9 m: the search stops at 1e-11 of the largest volume (1e-9 m³) over a waterplane
+    of ≥ 2 m²."""
+    c = level_for_volume(keel_bar_body(), np.ones(2), np.zeros(2), np.array([106.0, 4.0]))
+    np.testing.assert_allclose(c, [4.0, 2.0], rtol=0, atol=1e-9)
+
+
+def test_level_at_the_ends_ignores_the_start_given():
+    """An empty body's level is its lowest point and a full one's its highest (body.py: 'the ends
+    are known exactly'), whatever start the caller passes (the previous case's levels)."""
+    c = level_for_volume(box_body(), np.ones(2), np.zeros(2), np.array([0.0, L * B * D]),
+                         c_start=np.array([2.5, 1.0]))
+    np.testing.assert_array_equal(c, [0.0, D])
+
+
+def test_level_in_a_small_tank_with_a_narrow_trunk():
+    """A small tank (under 1 m³, e.g. a lubricating-oil tank) with a filling trunk: stations
+    x = 0, 0.5, 1; each section 1 m wide from z = 0 to 0.1 m under a trunk 0.02 m wide up to
+    z = 0.5 m (counter-clockwise).  Length 1 m: ∇(c) = 1·c for c ≤ 0.1 and 0.1 + 0.02·(c − 0.1)
+    above (sections constant along x: every rule exact).  ∇ = 0.05 m³ ⇒ c = 0.05 m.
+    From a start inside the trunk a Newton step falls far below the tank and the search must
+    bisect below the level it stands at.  Tolerance 1e-9 m: the search stops at 1e-11 of the
+    volume (5e-13 m³) over a waterplane of 1 m²."""
+    y = np.tile([-0.5, 0.5, 0.5, 0.01, 0.01, -0.01, -0.01, -0.5], (3, 1))
+    z = np.tile([0.0, 0.0, 0.1, 0.1, 0.5, 0.5, 0.1, 0.1], (3, 1))
+    body = Body(np.array([0.0, 0.5, 1.0]), y, z)
+    c = level_for_volume(body, np.ones(1), np.zeros(1), np.array([0.05]))
+    np.testing.assert_allclose(c, [0.05], rtol=0, atol=1e-9)
