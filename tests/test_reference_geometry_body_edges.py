@@ -88,12 +88,53 @@ def test_level_in_a_small_tank_with_a_narrow_trunk():
     """A small tank (under 1 m³, e.g. a lubricating-oil tank) with a filling trunk: stations
     x = 0, 0.5, 1; each section 1 m wide from z = 0 to 0.1 m under a trunk 0.02 m wide up to
     z = 0.5 m (counter-clockwise).  Length 1 m: ∇(c) = 1·c for c ≤ 0.1 and 0.1 + 0.02·(c − 0.1)
-    above (sections constant along x: every rule exact).  ∇ = 0.05 m³ ⇒ c = 0.05 m.
+    above (sections constant along x: every rule exact).  ∇ = 0.05 m³ ⇒ c = 0.05 m;
+    ∇ = 0.104 m³ ⇒ c = 0.3 m (in the trunk).
     From a start inside the trunk a Newton step falls far below the tank and the search must
-    bisect below the level it stands at.  Tolerance 1e-9 m: the search stops at 1e-11 of the
-    volume (5e-13 m³) over a waterplane of 1 m²."""
+    bisect below the level it stands at; in the trunk the waterplane is only 0.02 m², so a step
+    must be the volume missing divided by it (Newton, body.py docstring).  Tolerance 1e-9 m: the
+    search stops at 1e-11 of the largest volume (1.04e-12 m³) over a waterplane of ≥ 0.02 m²."""
     y = np.tile([-0.5, 0.5, 0.5, 0.01, 0.01, -0.01, -0.01, -0.5], (3, 1))
     z = np.tile([0.0, 0.0, 0.1, 0.1, 0.5, 0.5, 0.1, 0.1], (3, 1))
     body = Body(np.array([0.0, 0.5, 1.0]), y, z)
-    c = level_for_volume(body, np.ones(1), np.zeros(1), np.array([0.05]))
+    c = level_for_volume(body, np.ones(2), np.zeros(2), np.array([0.05, 0.104]))
+    np.testing.assert_allclose(c, [0.05, 0.3], rtol=0, atol=1e-9)
+
+
+def test_level_of_the_keel_bar_body_on_its_side():
+    """Keel-bar body above heeled 90° to starboard: ζ = −y (sections.py), so the water is y ≥ −c
+    and the section's area is ∫ from −c to 5 of its height at y: 5 m where |y| ≤ 0.1, else 2 m.
+    c = 0.05: 2·4.9 + 5·0.1 + 5·0.05 = 10.55 m², ∇ = 105.5 m³ (length 10 m, every rule exact:
+    sections constant along x).  c = 0: 10.3 m², ∇ = 103 m³.  The search's bracket is −5 … 5 m
+    here, symmetric about 0.  From a start at c = 1 m a Newton step for 103 m³ crosses the bar
+    and lands 0.15 m beyond it on the other side, and from there back again (the waterplane is
+    20 m² on either side of the bar, 50 m² on it): only the bracket stops that.
+    Tolerance 1e-9 m as above (waterplane ≥ 20 m²)."""
+    c = level_for_volume(keel_bar_body(), np.zeros(1), np.ones(1), np.array([105.5]))
     np.testing.assert_allclose(c, [0.05], rtol=0, atol=1e-9)
+    c = level_for_volume(keel_bar_body(), np.zeros(1), np.ones(1), np.array([103.0]), c_start=np.array([1.0]))
+    np.testing.assert_allclose(c, [0.0], rtol=0, atol=1e-9)
+
+
+def test_level_from_a_start_at_the_top_of_a_box():
+    """Box 40 × 10 × 4 m (5 stations), ∇ = 800 m³ ⇒ c = 2 m.  A start at the deck (c = 4 m): the
+    deck lying on the level has no waterline chord (sections.py: a horizontal edge on the line
+    is the limit from above), so no Newton step exists there and the search must bisect.
+    Tolerance 1e-9 m as above."""
+    c = level_for_volume(box_body(), np.ones(1), np.zeros(1), np.array([800.0]), c_start=np.array([D]))
+    np.testing.assert_allclose(c, [2.0], rtol=0, atol=1e-9)
+
+
+def test_level_for_a_tiny_volume_in_a_pointed_bottom():
+    """Stations x = 0 … 10 (5), each a square on its corner, (0, 5), (2, 7), (0, 9), (−2, 7): a
+    pointed bottom 5 m above the base line (a tank's V-shaped bottom).  Below c ≤ 7 m the wetted
+    part is a triangle of half-width c − 5 and height c − 5: area (c − 5)², ∇ = 10·(c − 5)².
+    ∇ = 1e-12 m³ ⇒ c = 5 + √1e-13 = 5.000000316… m.  Here one round-off step of the level
+    (9e-16 m at 5 m) changes the volume by more than the search's volume tolerance (1e-11 of it,
+    1e-23 m³), so the search ends on its bracket (1e-14 of the level) rather than on the volume:
+    tolerance 1e-12 m (about a thousand round-off steps of a level of 5 m)."""
+    y = np.tile([0.0, 2.0, 0.0, -2.0], (5, 1))
+    z = np.tile([5.0, 7.0, 9.0, 7.0], (5, 1))
+    body = Body(np.linspace(0.0, 10.0, 5), y, z)
+    c = level_for_volume(body, np.ones(1), np.zeros(1), np.array([1e-12]))
+    np.testing.assert_allclose(c, [5.0 + np.sqrt(1e-13)], rtol=0, atol=1e-12)
