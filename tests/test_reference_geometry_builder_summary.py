@@ -16,9 +16,12 @@ every rule used, so the text is compared exactly.
 
 from __future__ import annotations
 
-import numpy as np
+import dataclasses
 
-from deckload.cli.tables import summary
+import numpy as np
+import pytest
+
+from deckload.cli.tables import generated_sections, summary
 from deckload.core.geometry.builder import build_tables
 from deckload.core.geometry.spec import Geometry, HullOffsets, TableSpec, VesselSpec
 
@@ -39,3 +42,32 @@ def test_summary_of_the_tables_built_for_a_box():
         "at the design draft 1.5 m: displacement 184.5 t, KMt 2.750 m, LCB 10.000 m, LCF 10.000 m, "
         "TPC 1.230 t/cm, Cb 1.000, Cw 1.000",
     ]
+
+
+def test_cross_curves_written_for_a_box_trimmed_by_the_head():
+    """The same box with the free-trim reference centre at x_G = 11 m, z_G = 2 m, heels 0 and 10°.
+
+    Upright, B is in line with G when t = (L/2 − x_G)/(L²/(12T) + z_B − z_G) with
+    z_B = (T² + t²L²/12)/(2T) (a linear draft d(x) = T − (x − L/2)·t integrated over the length;
+    cross_curves.py docstring for the condition): t = −0.047625 (by the head).  Heeled 10°, each
+    section is wall-sided (B/2·tan 10° = 0.53 m < the smallest draft 1.02 m and < the freeboard
+    at the bow 1.02 m) and, per metre (checks.md §1.2 case 1), A = B·d, y = B²·tanθ/(12d),
+    z = d/2 + B²·tan²θ/(24d); integrated over the length:
+
+        KN = B²·tanθ·cosθ/(12T) + sinθ·[(T² + t²L²/12)/(2T) + B²·tan²θ/(24T)] = 0.4873 m
+
+    with the upright t.  At 10° the free-trim t is smaller by under 2 % (ζ_B − ζ_G changes with
+    heel), which moves KN by < 2e-4 m: 5e-4 m allowed.  Upright KN = 0 (B on the centre line).
+    The profile writer rounds displacements to 0.01 t and heels to 0.001°."""
+    g = box_geometry()
+    g = dataclasses.replace(g, tables=dataclasses.replace(g.tables, kn_heel_deg=np.array([0.0, 10.0]), trim_lcg_m=11.0))
+    cc = generated_sections(build_tables(g))["cross_curves"]
+    assert cc["trim_basis"] == "free trim"
+    assert cc["reference_lcg_m"] == 11.0
+    assert cc["displacement_t"] == [184.5]
+    assert cc["heel_deg"] == [0.0, 10.0]
+    B, T, L, t, th = 6.0, 1.5, 20.0, -0.047625, np.radians(10.0)
+    kn = B**2 * np.tan(th) * np.cos(th) / (12 * T) + np.sin(th) * (
+        (T**2 + t**2 * L**2 / 12) / (2 * T) + B**2 * np.tan(th) ** 2 / (24 * T))
+    assert cc["kn_m"][0][0] == 0.0
+    assert cc["kn_m"][0][1] == pytest.approx(kn, abs=5e-4)
