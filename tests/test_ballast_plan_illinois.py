@@ -142,3 +142,33 @@ def test_a_transfer_that_cannot_bring_her_through_the_target_costs_one_calculati
     only the whole transfer is calculated, and nothing is proposed."""
     hit, whole, asked = search(lambda m: 0.5 + 0.01 * m, Goal("list", 0.0, 0.1), 10.0)
     assert hit is None and asked == [10.0] and whole[2] == pytest.approx(0.6, abs=EXACT)
+
+
+def test_a_gm_step_that_moves_less_than_a_kilogram_ends_the_search():
+    """GM 0.4 m up to 0.02 t pumped, 0.5015 m from there to the whole 0.05 t (a plateau just
+    above the 0.001 m tolerance), at least 0.5 m: m₁ = 0.05·0.1/(0.0015 + 0.1) = 0.0492611 t
+    reaches it 0.0015 m above, 0.74 kg short of the whole transfer: within 1 kg of the least mass
+    known to reach it, so the search ends there, in 2 calculations (to the kilogram of what it
+    has seen; the plateau's start at 0.02 t is not looked for)."""
+    hit, _, asked = search(lambda m: 0.5015 if m >= 0.02 else 0.4, Goal("gm", 0.5, 0.001), 0.05)
+    assert asked == pytest.approx([0.05, 0.005 / 0.1015], abs=EXACT)
+    assert hit[0] == pytest.approx(0.005 / 0.1015, abs=EXACT) and hit[4] == 2
+
+
+def test_a_gm_step_is_closed_in_on_until_the_bracket_is_under_a_kilogram():
+    """GM 0.4 m below 0.5 t pumped, 0.55 m from 0.5 t (a step), at least 0.5 m, whole 2 t: no
+    mass gives GM within 0.001 m above it; the bracket round the step closes to under 1 kg after
+    a step that falls short of it, and the least mass known to reach it is the answer: 0.5006689 t,
+    15 calculations."""
+    hit, _, asked = search(lambda m: 0.55 if m >= 0.5 else 0.4, Goal("gm", 0.5, 0.001), 2.0)
+    assert 0.5 <= hit[0] < 0.5 + 1e-3 and hit[3] == 0.55
+    assert hit[0] == pytest.approx(0.500668935968, abs=1e-11) and hit[4] == 15 == len(asked)
+
+
+def test_a_list_that_jumps_across_the_goal_is_not_met_by_the_end_of_the_bracket():
+    """List 0.2° to port below 1.05 t pumped, 5° to starboard from there (a vessel that flops
+    over to a loll on the other side), goal upright ± 0.1°: no mass is within 0.1°.  After
+    MAX_STEPS steps the bracket has closed on the jump and its far end has been halved towards
+    zero, but a list is only ever met by a mass that gives it: nothing is proposed."""
+    hit, whole, asked = search(lambda m: 5.0 if m >= 1.05 else -0.2, Goal("list", 0.0, 0.1), 2.0)
+    assert hit is None and whole[2] == 5.0 and len(asked) == MAX_STEPS + 1
