@@ -34,15 +34,16 @@ def test_a_goal_she_already_meets_is_a_plan_of_no_transfers(goal):
 
 def test_a_whole_transfer_that_ends_within_the_tolerance_is_the_plan():
     """Centreline tanks A1 (x −20 m) 5 t of 10 and F1 (x +20 m) empty; trim₀ = 0.13 m: trim =
-    0.13 + 0.1 = 0.23 m.  Goal 0.025 ± 0.01 m: the whole of
-    A1 forward (5 t, −0.2 m) ends at 0.03 m, within 0.01 of 0.025 without passing it.  The plan
-    is that whole transfer."""
+    0.13 + 0.1 = 0.23 m.  Goal 0.025 ± 0.01 m: the whole of A1 forward (5 t, −0.2 m) ends at
+    0.03 m, within 0.01 of 0.025 without passing it.  The plan is that whole transfer."""
     barge = Barge((Tk("A1", -20, 0, 1, 10), Tk("F1", 20, 0, 1, 10)), trim0_m=0.13)
     calc = Calc(barge)
     got = plan(barge, cond(A1=5.0, F1=0.0), Goal("trim", 0.025, 0.01), ["A1", "F1"], **calc.kw())
     assert isinstance(got, Plan)
     check_transfers(got.transfers, [("A1", "F1", 5.0)])
     assert got.after == pytest.approx(0.03, abs=1e-12) and got.result.trim_m == got.after
+    assert dict(got.condition) == {"A1": 0.0, "F1": 5.0} and got.before == pytest.approx(0.23, abs=1e-12)
+    assert got.evaluations == 2 == calc.calls  # the condition, the whole A1 → F1; F1 has nothing to give
 
 
 def test_the_gm_stated_when_only_the_whole_transfer_reaches_it_is_that_of_the_whole_transfer():

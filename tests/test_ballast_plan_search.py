@@ -488,4 +488,3 @@ def test_a_list_goal_across_an_angle_of_loll_has_no_plan_and_says_where_she_stay
     assert got.before == got.best == -4.0 and got.transfers == () and got.list_limit_deg is None
     assert got.evaluations == 3
     assert propose(WINGS, cond(WP=30.0, WS=10.0), Goal("list", 0.0, 0.1), ["WP", "WS"], **calc.kw()) == []
-
