@@ -40,7 +40,11 @@ class Tolerance:
     of_breadth: bool = False
 
     def allowed(self, base: float, breadth_m: float) -> float:
-        """The largest |deckload − booklet| accepted for a booklet value ``base``."""
+        """The largest |deckload − booklet| accepted for a booklet value ``base``.
+
+        Where a row gives two values (e.g. GZ "5 % / 5 cm max", areas "5 % or 0.0012 m·rad") the
+        percentage applies but may not exceed the linear value (MSC.1/Circ.1461 5.1, reproducing
+        the Circ.1229 tolerances), hence the smaller of the two."""
         parts = []
         if self.pct is not None:
             parts.append(self.pct / 100.0 * (breadth_m if self.of_breadth else abs(base)))
