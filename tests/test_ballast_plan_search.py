@@ -467,8 +467,9 @@ def test_a_trim_plan_keeps_her_within_one_degree_the_edge_included(list0, kept):
 class Lolling(Calc):
     """The wings barge with a negative GM: she lies at a 3° angle of loll to whichever side the
     transverse moment is (starboard at zero), plus the moment's own heel: list = ±3 + Σ m·y/100.
-    No list within 3° of upright exists (common practice: a vessel at an angle of loll is not
-    brought upright by moving weight across)."""
+    No list within 3° of upright exists (common practice: weight moved across a vessel at an
+    angle of loll makes her flop over to the other side; she comes upright only when G is
+    lowered)."""
 
     def evaluate(self, barge, cond):
         r = super().evaluate(barge, cond)
