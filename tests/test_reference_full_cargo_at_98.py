@@ -46,3 +46,19 @@ def test_full_cargo_tank_is_corrected_at_98_percent_under_a_95_percent_threshold
     assert i98 == pytest.approx(5.84392, abs=1e-5)
     assert t.fsm_tm == pytest.approx(0.85 * i98, rel=1e-12)
     assert r.fsm_total_tm == pytest.approx(4.96733, abs=1e-5)
+
+
+@pytest.mark.parametrize("full_pct, fill_pct, expected", [
+    (98.0, 99.0, "nominally full ≥ 98 % (IS 2008 B 3.1.2)"),
+    (95.0, 96.0, "nominally full ≥ 95 % (the profile's threshold; IS 2008 B 3.1.2 says 98 %)"),
+])
+def test_a_full_tank_names_the_threshold_it_was_judged_by(full_pct, fill_pct, expected):
+    """IS 2008 B 3.1.2 (standards.md §4.1): a tank at 98 % or more is nominally full and carries no
+    correction.  A profile may set another threshold; the rule text then names the one applied and
+    the Code's 98 %, so the officer never reads "≥ 98 %" beside a tank at 96 %."""
+    tank = dataclasses.replace(narrowing_tank(), id="WB1C", name="Ballast 1 centre", kind="ballast",
+                               fs_category="fixed", density_t_m3=1.025)
+    v = vessel([tank], limit_m=0.0)
+    v = dataclasses.replace(v, free_surface=dataclasses.replace(v.free_surface, nominally_full_pct=full_pct))
+    t = tank_of(evaluate(v, Condition(tanks=(TankFill("WB1C", "percent", fill_pct),))), "WB1C")
+    assert (t.state, t.fsm_tm, t.fs_rule) == ("full", 0.0, expected)

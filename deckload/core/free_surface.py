@@ -160,12 +160,20 @@ def _actual_treatment(vessel: Vessel, c: TankContents, rule: str) -> TankFreeSur
         if t.kind == "cargo_liquid":
             return TankFreeSurface(rho * fsi_at_fill(t, CARGO_FULL_PCT), BASIS_AT_98,
                                    "nominally full cargo tank, at 98 % (IS 2008 B 3.1.2)", state)
-        return TankFreeSurface(0.0, BASIS_NONE, "nominally full ≥ 98 % (IS 2008 B 3.1.2)", state)
+        return TankFreeSurface(0.0, BASIS_NONE, _full_rule(fs.nominally_full_pct), state)
     if rule == "is2008" and t.fs_category == "variable":
         return TankFreeSurface(rho * t.max_fsi_m4, BASIS_MAX, "variable level: max between limits (IS 2008 B 3.1.3)",
                                state)
     why = "actual level (IS 2008 B 3.1.3)" if rule == "is2008" else "actual level (IS 2008 B 3.1.6)"
     return TankFreeSurface(rho * c.fsi_m4, BASIS_ACTUAL, why, state)
+
+
+def _full_rule(full_pct: float) -> str:
+    """The rule text of a nominally full tank that carries no correction: IS 2008 B 3.1.2's 98 %, or
+    the profile's own threshold named as such (the officer must not read 98 % where 97 % was applied)."""
+    if full_pct == CARGO_FULL_PCT:
+        return "nominally full ≥ 98 % (IS 2008 B 3.1.2)"
+    return f"nominally full ≥ {full_pct:g} % (the profile's threshold; IS 2008 B 3.1.2 says 98 %)"
 
 
 def free_surface(vessel: Vessel, contents: list[TankContents], rule: str) -> list[TankFreeSurface]:
