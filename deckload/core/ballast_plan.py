@@ -14,10 +14,11 @@ For GM the target is a lower bound: the least mass that reaches it.  Proposals a
 smallest transfer first.  The list, trim and GM are whatever ``evaluate`` returns (list + to
 starboard, trim + by the stern, GM fluid), so the proposal is exactly what a recompute shows.
 
-When no single transfer reaches the goal, :func:`plan` pumps, one transfer at a time, the pair
-whose whole transfer (as much as the one can give and the other take) comes nearest the goal,
-and searches single transfers again from there: a plan of up to ``MAX_TRANSFERS`` transfers,
-each judged by the full calculation.  It stops, with no plan, as soon as a whole transfer no
+A goal she already meets is a plan of no transfers.  When no single transfer reaches the goal,
+:func:`plan` pumps, one transfer at a time, the pair whose whole transfer (as much as the one
+can give and the other take) comes nearest the goal, and searches single transfers again from
+there (a plan as soon as the whole transfers made reach it): a plan of up to ``MAX_TRANSFERS``
+transfers, each judged by the full calculation.  It stops, with no plan, as soon as a whole transfer no
 longer brings the goal nearer (greedy; common practice of search, not from a stability source).
 """
 
@@ -222,7 +223,7 @@ def _search(vessel, goal, hi, q0, apply, evaluate):
             break
     if best is None:
         if goal.quantity == "gm" and _met(f_hi + goal.target, goal):
-            best = (hi, c_hi, r_hi, f_hi)
+            best = (hi, c_hi, r_hi, whole[2] - goal.target)  # f_hi may have been halved (Illinois)
         else:
             return None, whole
     m, c, r, f = best
@@ -240,9 +241,10 @@ def plan(
     evaluate: Callable[[Vessel, Condition], Result],
     max_transfers: int = MAX_TRANSFERS,
 ) -> Plan | NoPlan:
-    """The least pumping that reaches ``goal``: one transfer, or (trim and GM) a wing pair pumped
-    alike; failing that, the whole of the pumping that comes nearest without passing the goal,
-    then again from there, up to ``max_transfers`` transfers in all.  For a trim or GM goal every
+    """The least pumping that reaches ``goal``: none when she already meets it (a plan of no
+    transfers); one transfer, or (trim and GM) a wing pair pumped alike; failing that, the whole
+    of the pumping that comes nearest without passing the goal, then again from there (a plan as
+    soon as that reaches the goal), up to ``max_transfers`` transfers in all.  For a trim or GM goal every
     step leaves the list within ``KEEP_LIST_DEG`` (or the list she had, if more).
     :class:`NoPlan` names the nearest value reached and how."""
     if goal.quantity not in GOALS:
@@ -255,8 +257,10 @@ def plan(
         return limit is None or abs(r.list_deg) <= limit + 1e-9
 
     done: list[Transfer] = []
-    cond, q, n = condition, q0, 1
+    cond, r, q, n = condition, r0, q0, 1
     while True:
+        if _met(q, goal):  # as she is, or after the whole transfers made: nothing (more) to pump
+            return Plan(tuple(done), cond, r, q0, q, n)
         hits, wholes = [], []
         for steps, hi, apply in _moves(vessel, cond, allowed, move, room, pairs=goal.quantity != "list"):
             if len(done) + len(steps) > max_transfers:

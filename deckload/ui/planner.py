@@ -154,6 +154,12 @@ class PlannerForm(TankPicking, Form):
             self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, None, None))
             self.refuse(no_plan_words(goal, found))
             return
+        if not found.transfers:  # she already meets it: nothing to apply
+            self.proposal = None
+            self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, None, None))
+            self.query_one("#form-message", Static).update(Text(
+                f"She already has {goal_words(goal, found.after)}: nothing to pump for this goal.", P["value"]))
+            return
         self.proposal = found
         self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, found.result, None))
         self.query_one("#form-message", Static).update(Text(
