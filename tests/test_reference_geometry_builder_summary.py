@@ -38,7 +38,7 @@ def box_geometry() -> Geometry:
 def test_summary_of_the_tables_built_for_a_box():
     vt = build_tables(box_geometry())
     assert summary(vt) == [
-        "hull integrated along 5 stations by Simpson's first rule; KN on a free trim basis",
+        "hull integrated along 5 stations by Simpson's first rule; KN at free trim",
         "at the design draft 1.5 m: displacement 184.5 t, KMt 2.750 m, LCB 10.000 m, LCF 10.000 m, "
         "TPC 1.230 t/cm, Cb 1.000, Cw 1.000",
     ]

@@ -327,7 +327,7 @@ def summary(vt: VesselTables) -> list[str]:
     t = g.vessel.design_draft_m
     n = len(g.hull.station_x_m)
     rule = "Simpson's first rule" if vt.hull_rule == "simpson" else "the trapezoidal rule (stations not equally spaced and odd in number)"
-    lines = [f"hull integrated along {n} stations by {rule}; KN on a {vt.cross_curves.trim_basis} basis"]
+    lines = [f"hull integrated along {n} stations by {rule}; KN at {vt.cross_curves.trim_basis}"]
     if h.draft_m[0] <= t <= h.draft_m[-1]:
         def at(a: np.ndarray) -> float:
             return float(np.interp(t, h.draft_m, a))
