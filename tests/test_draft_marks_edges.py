@@ -11,10 +11,11 @@ from __future__ import annotations
 import dataclasses
 import math
 
+import numpy as np
 import pytest
 
-from deckload.core.draft_marks import MarkReadings, condition_from_readings
-from deckload.core.model import DraftMark, DraftMarks
+from deckload.core.draft_marks import DraftMarksError, MarkReadings, condition_from_readings
+from deckload.core.model import DraftMark, DraftMarks, frozen_array
 from deckload.core.tables import OutOfRangeError
 from test_draft_marks_corrections import KEEL, L, vessel
 from vessel_factories import RHO_SW
@@ -101,3 +102,71 @@ def test_a_draft_at_the_lcf_below_the_table_is_refused_by_name():
     assert 0.55 - 1.2 * (20 - 17.1) / 40 == pytest.approx(0.463, abs=1e-12)
     assert str(e.value) == ("draft at the LCF (hydrostatic table) 0.463 m is outside the table range 0.5–3.5 m; "
                             "deckload does not extrapolate")
+
+
+def kinked_mctc_vessel():
+    """The posed table with MCTC 40 t·m/cm up to T = 1.5 m and rising 20 t·m/cm per m above (rows at
+    0.5 m, so the program's linear interpolation is exact on each piece): the central difference of
+    Nemoto's correction then depends on how far either side of the draft at the LCF it is taken."""
+    v = vessel()
+    t = np.asarray(v.hydrostatics.draft_m)
+    mctc = np.where(t <= 1.5, 40.0, 40.0 + 20.0 * (t - 1.5))
+    return dataclasses.replace(v, hydrostatics=dataclasses.replace(v.hydrostatics, mctc_tm_cm=frozen_array(mctc)))
+
+
+def u_of(mean_m: float, trim_m: float) -> float:
+    """Step 4 solved for the posed LCF(T) = 20 + 2·(T − 2): u = (T + 4t/L)/(1 + 2t/L)
+    (tests/test_draft_marks_corrections.py)."""
+    return (mean_m + 4 * trim_m / L) / (1 + 2 * trim_m / L)
+
+
+@pytest.mark.parametrize("mean_m, trim_m, stc_t", [
+    # u = 2.3/1.05 = 2.1904762: MCTC(u ± 0.5) both on the rising piece, 20 t·m/cm per m:
+    # 50·1²·20/40 = 25 t.
+    (2.2, 1.0, 25.0),
+    # u = 1.35/1.05 = 1.2857143: MCTC(u + 0.5) = 40 + 20·0.2857143 = 45.714286, MCTC(u − 0.5) = 40:
+    # 5.714286 per m, 50·1²·5.714286/40 = 7.1428571 t.
+    (1.25, 1.0, 50.0 * (20.0 * (u_of(1.25, 1.0) + 0.5 - 1.5)) / 1.0 / L),
+])
+def test_second_trim_correction_takes_mctc_half_a_metre_either_side(mean_m, trim_m, stc_t):
+    """Nemoto's second trim correction (module docstring): 50·t²·(MCTC(u + ½) − MCTC(u − ½))/LBP, with
+    MCTC read half a metre either side of the draft at the LCF u.  On the kinked table the difference
+    quotient changes if the step is not ½ m (1.31 m either side, as far as the table goes, would give
+    50·(80 − 40)/2.619/40 = 19.1 t instead of 25 t)."""
+    marks = vessel().draft_marks
+    o = condition_from_readings(kinked_mctc_vessel(), plane(marks, mean_m, trim_m), RHO_SW)
+    u = u_of(mean_m, trim_m)
+    assert o.draft_at_lcf_m == pytest.approx(u, abs=1e-8)
+    assert o.second_trim_correction_t == pytest.approx(stc_t, abs=1e-6)
+    assert o.table_displacement_t == pytest.approx(410.0 * u + stc_t, abs=1e-6)
+
+
+def test_second_trim_correction_near_the_shallow_end_of_the_table():
+    """Mean draft 0.8 m, trim 0.4 m by the stern: u = (0.8 + 0.04)/1.02 = 0.8235294 m, only 0.3235294 m
+    above the table's first row (0.5 m), so MCTC is read that far either side, [0.5, 1.1470588] m, both
+    on the flat piece: the correction is 0 and Δ_table = 410·u.  Half a metre below u lies off the
+    table (which deckload would refuse: it does not extrapolate)."""
+    marks = vessel().draft_marks
+    o = condition_from_readings(kinked_mctc_vessel(), plane(marks, 0.8, 0.4), RHO_SW)
+    u = u_of(0.8, 0.4)
+    assert u == pytest.approx(0.8235294, abs=1e-7)
+    assert o.second_trim_correction_t == 0.0
+    assert o.table_displacement_t == pytest.approx(410.0 * u, abs=1e-6)
+
+
+def test_at_the_last_row_of_the_table_there_is_no_second_trim_correction():
+    """Even keel at 3.5 m, the table's last row: no MCTC can be read beyond it, and with no trim
+    Nemoto's 50·t²·ΔMCTC/LBP is 0 anyway; Δ = 410·3.5 = 1435 t, and the LCB the table gives (20 m)."""
+    r = MarkReadings(*([3.5 + KEEL] * 6))
+    o = condition_from_readings(vessel(), r, RHO_SW)
+    assert o.second_trim_correction_t == 0.0
+    assert o.displacement_t == pytest.approx(1435.0, abs=1e-6)
+    assert o.lcb_m == pytest.approx(20.0, abs=1e-12)
+
+
+def test_a_profile_without_draft_marks_is_told_what_is_missing():
+    """deckload's own refusal: the survey needs the marks' positions."""
+    with pytest.raises(DraftMarksError) as e:
+        condition_from_readings(dataclasses.replace(vessel(), draft_marks=None), plane(vessel().draft_marks, 2.2, 1.0),
+                                RHO_SW)
+    assert str(e.value) == "the vessel profile has no [draft_marks]: their positions are needed"

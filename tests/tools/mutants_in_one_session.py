@@ -55,7 +55,12 @@ class MutantTimeout(BaseException):
     in the program under test can swallow it)."""
 
 
+_FIRED = [False]
+"""Set by the alarm: whatever exception its raise turns into (below) is then the timeout."""
+
+
 def _alarm(signum, frame):  # noqa: ARG001 - signal handler signature
+    _FIRED[0] = True
     raise MutantTimeout
 
 
@@ -104,13 +109,18 @@ class Loop:
         try:
             for i, item in enumerate(items):
                 nxt = items[i + 1] if i + 1 < len(items) else None
+                _FIRED[0] = False
                 if limit:
                     # CPU seconds, not wall: a run niced under a loaded machine is not cut short.
                     signal.setitimer(signal.ITIMER_PROF, 20.0 * self.base_s.get(item.nodeid, 1.0) + 10.0)
                 try:
                     reports = runtestprotocol(item, nextitem=nxt, log=False)
-                except MutantTimeout:
-                    # The alarm can land outside the test's own call (in pytest's reporting).
+                except BaseException:
+                    # The alarm can land outside the test's own call, in pytest's reporting, and
+                    # inside C code (ast.parse formatting a traceback) its raise comes out as a
+                    # SystemError: whatever escapes after it fired is the timeout.
+                    if not _FIRED[0]:
+                        raise
                     self.timed_out = True
                     failed = item.nodeid
                     break
