@@ -35,7 +35,7 @@ import pytest
 
 import deckload.core.geometry.cross_curves as cross_curves_module
 from deckload.core.geometry.body import Body
-from deckload.core.geometry.cross_curves import immersion_angle
+from deckload.core.geometry.cross_curves import immersion_angle, solve_floating
 from deckload.core.geometry.hull import hull_sections
 from deckload.core.geometry.spec import HullOffsets
 
@@ -102,8 +102,12 @@ def test_free_trim_immersion_of_a_point_off_the_middle(point):
 def test_a_point_exactly_at_the_water_upright_is_refused():
     """Analytic: upright the box floats at T = Δ/(ρ·L·B): 123 t → 1.0 m, 184.5 t → 1.5 m.  A point
     1.0 m up is at the water at 123 t (awash counts as immersed: the margin ≤ 0) and under it at
-    184.5 t; the first displacement at which it is awash or under is named."""
+    184.5 t; the first displacement at which it is awash or under is named.  Awash exactly: the
+    level search lands on T = 1.0 m exactly for the box (its volume is linear in the level, so
+    a Newton step is exact), checked first so that a failure names its cause."""
     body = box_body()
+    level, _, _ = solve_floating(body, np.array([120.0]), np.array([0.0]), "even keel", 0.0, 0.0, 10.0)
+    assert level[0] == 1.0
     for disps, named in (([61.5, 123.0], "123.0"), ([61.5, 123.0, 184.5], "123.0")):
         with pytest.raises(ValueError) as ei:
             immersion_angle(body, np.array(disps), RHO, (10.0, 2.0, 1.0), "even keel")
