@@ -15,6 +15,7 @@ deckload/core/result.py, which the README says the record follows (units in the 
 
 from __future__ import annotations
 
+import dataclasses
 import json
 import math
 
@@ -159,3 +160,11 @@ def test_verdict_without_any_criteria_set_says_so():
     assert text == "Met: no criteria set."
     text = _result((OPEN,), sets=(), not_assessed=()).verdict_text()
     assert text == "Met where assessable, 1 criterion not assessable — assessed: no criteria set."
+
+
+def test_verdict_counts_several_unassessable_criteria_in_the_plural():
+    """Two criteria that could not be assessed: "2 criteria not assessable" (the singular is for one
+    only, as in the test above)."""
+    other = dataclasses.replace(OPEN, id=OPEN.id + "-b")
+    text = _result((MET, OPEN, other), sets=(), not_assessed=()).verdict_text()
+    assert text == "Met where assessable, 2 criteria not assessable — assessed: no criteria set."
