@@ -46,9 +46,10 @@ BASIS_MAX = "max"
 BASIS_AT_98 = "at98"
 
 
-CARGO_FULL_PCT = 98.0
-"""The level a nominally full cargo tank is corrected at (IS 2008 B 3.1.2, footnote), whatever fill the
-profile calls nominally full (``nominally_full_pct`` moves only where a tank counts as full)."""
+CODE_FULL_PCT = 98.0
+"""IS 2008 B 3.1.2's "nominally full" level: the level a nominally full cargo tank is corrected at
+(the footnote), whatever fill the profile calls nominally full (``nominally_full_pct`` moves only
+where a tank counts as full)."""
 
 EXEMPT_RULE = "small tank, exempt (IS 2008 B 3.1.12)"
 """The rule text of a slack tank left out by the small-tank exemption."""
@@ -158,7 +159,7 @@ def _actual_treatment(vessel: Vessel, c: TankContents, rule: str) -> TankFreeSur
         return TankFreeSurface(0.0, BASIS_NONE, "empty", state)
     if state == "full":
         if t.kind == "cargo_liquid":
-            return TankFreeSurface(rho * fsi_at_fill(t, CARGO_FULL_PCT), BASIS_AT_98,
+            return TankFreeSurface(rho * fsi_at_fill(t, CODE_FULL_PCT), BASIS_AT_98,
                                    "nominally full cargo tank, at 98 % (IS 2008 B 3.1.2)", state)
         return TankFreeSurface(0.0, BASIS_NONE, _full_rule(fs.nominally_full_pct), state)
     if rule == "is2008" and t.fs_category == "variable":
@@ -171,7 +172,7 @@ def _actual_treatment(vessel: Vessel, c: TankContents, rule: str) -> TankFreeSur
 def _full_rule(full_pct: float) -> str:
     """The rule text of a nominally full tank that carries no correction: IS 2008 B 3.1.2's 98 %, or
     the profile's own threshold named as such (the officer must not read 98 % where 97 % was applied)."""
-    if full_pct == CARGO_FULL_PCT:
+    if full_pct == CODE_FULL_PCT:
         return "nominally full ≥ 98 % (IS 2008 B 3.1.2)"
     return f"nominally full ≥ {full_pct:g} % (the profile's threshold; IS 2008 B 3.1.2 says 98 %)"
 
