@@ -287,7 +287,7 @@ def test_compare_in_fresh_water():
         assert rows[f"GZ at {deg}°"][1] == pytest.approx(exact, abs=NUMERIC), deg
 
 
-@pytest.mark.parametrize("flood_deg, top", [(35.0, 35.0), (45.0, 40.0), (None, 40.0)])
+@pytest.mark.parametrize("flood_deg, top", [(35.0, 35.0), (45.0, 40.0), (None, 40.0), (30.5, 30.5)])
 def test_compare_areas_stop_at_the_downflooding_angle(flood_deg, top):
     """IS 2008 A 2.2.1: the areas to 40° or θf if less (no downflooding curve: 40°).  Direct areas of the exact GZ (the dynamic
     lever of the box, vessel_factories.box_dynamic_lever_mrad, checks.md §1) within 5e-4 m·rad (the
@@ -305,6 +305,20 @@ def test_compare_areas_stop_at_the_downflooding_angle(flood_deg, top):
     assert rows["Area 0–30°"][1] == pytest.approx(a30, abs=5e-4)
     assert rows[f"Area 0–{top:.1f}°"][1] == pytest.approx(a_top, abs=5e-4)
     assert rows[f"Area 30–{top:.1f}°"][1] == pytest.approx(a_top - a30, abs=5e-4)
+
+
+def test_compare_area_from_30_degrees_is_nil_when_downflooding_comes_first():
+    """IS 2008 A 2.2.1: the area between 30° and 40° (or θf if less); with θf = 25° there is no
+    such range, and both columns show 0 (the booklet's convention for an empty range, common
+    practice).  The area to θf is the box's exact dynamic lever to 25° (checks.md §1), within the
+    5e-4 m·rad of the test above."""
+    from vessel_factories import box_dynamic_lever_mrad
+
+    curve = LimitCurve(frozen_array([100.0, 2000.0]), frozen_array([25.0, 25.0]), "downflooding_deg")
+    v = _with_hull(box_barge(lightship_t=DISP, lightship_kg_m=KG, downflooding=curve))
+    rows = {n: (a, b) for n, _, a, b in compare(v, evaluate(v, Condition())).rows}
+    assert rows["Area 30–25.0°"] == (0.0, 0.0)
+    assert rows["Area 0–25.0°"][1] == pytest.approx(box_dynamic_lever_mrad(B, D, T, KG, RAD(25)), abs=5e-4)
 
 
 def test_compare_without_a_hull_is_refused_in_words():
