@@ -18,7 +18,7 @@ from deckload.core.model import Condition, CriteriaSettings, PassengerData, Wind
 from deckload.core.stability import evaluate
 from deckload.io.profiles import parse_profile
 from test_profiles import BASE, line_of, only
-from vessel_factories import RHO_SW, barge_at, box_dynamic_lever_mrad, box_vessel
+from vessel_factories import RHO_SW, barge_at, box_dynamic_lever_mrad, box_vessel, wall_sided_heel_deg
 
 
 def box(length, breadth, depth, draft, kg, criteria, windage=True, passengers=None):
@@ -96,23 +96,13 @@ def test_passenger_condition_fails_only_the_crowding_heel():
     crit = {c.id: c for c in r.criteria}
     gm, bm, lever = 1.5 + 100.0 / 36.0 - 3.5, 100.0 / 36.0, 700 * 0.075 * 4.0 / 1230.0
 
-    def heel(lev):
-        lo, hi = 0.0, math.radians(30.0)
-        for _ in range(100):
-            mid = (lo + hi) / 2
-            if math.sin(mid) * (gm + 0.5 * bm * math.tan(mid) ** 2) < lev:
-                lo = mid
-            else:
-                hi = mid
-        return math.degrees(lo)
-
     # KN from the exact section at 1° steps, cubic spline: 0.01° covers the interpolation
-    assert crit["IS2008-A3.1-crowding"].value == pytest.approx(heel(lever), abs=0.01)
-    assert heel(lever) == pytest.approx(11.7565, abs=1e-3)
+    assert crit["IS2008-A3.1-crowding"].value == pytest.approx(wall_sided_heel_deg(gm, bm, lever), abs=0.01)
+    assert wall_sided_heel_deg(gm, bm, lever) == pytest.approx(11.7565, abs=1e-3)
     v0 = 12.0 * 1852.0 / 3600.0
     turning = 0.2 * v0**2 * (3.5 - 1.5) / (9.81 * 40.0)
     assert turning == pytest.approx(0.038849, abs=1e-6)
-    assert crit["IS2008-A3.1-turning"].value == pytest.approx(heel(turning), abs=0.01)
+    assert crit["IS2008-A3.1-turning"].value == pytest.approx(wall_sided_heel_deg(gm, bm, turning), abs=0.01)
     assert [s.id for s in r.criteria_sets] == ["IS2008-A2.2", "IS2008-A2.3", "IS2008-A3.1"]
 
 

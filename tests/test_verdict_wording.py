@@ -34,7 +34,7 @@ from deckload.core.model import (
     frozen_array,
 )
 from deckload.core.stability import evaluate
-from vessel_factories import RHO_SW, barge_at, box_vessel
+from vessel_factories import RHO_SW, barge_at, box_vessel, wall_sided_heel_deg
 
 G = 9.81  # deckload's g (deckload/core/weather.py G_M_S2), used by lw1 and the turning lever
 L, B, D = 40.0, 10.0, 6.0
@@ -209,18 +209,6 @@ def test_wind_heel_rule_takes_the_steady_wind_heel():
 # --------------------------------------------------------------------------- passenger ships, Part A 3.1
 
 
-def _heel_wall_sided(gm, bm, lever):
-    """First φ where the wall-sided GZ = sinφ(GM + ½BM tan²φ) reaches ``lever`` (bisection to 30°)."""
-    lo, hi = 0.0, math.radians(30.0)
-    for _ in range(100):
-        mid = (lo + hi) / 2
-        if math.sin(mid) * (gm + 0.5 * bm * math.tan(mid) ** 2) < lever:
-            lo = mid
-        else:
-            hi = mid
-    return math.degrees(lo)
-
-
 def test_passenger_levers_notes_and_crowding_beyond_four_per_m2():
     """200 passengers × 0.075 t at 3 m from the centreline on 40 m² (4 per m² would need 50 m²):
     crowding lever 200·0.075·3/1230 = 0.0365854 m.  Turning at 12 kn (v0 = 6.17333 m/s) with the
@@ -235,8 +223,8 @@ def test_passenger_levers_notes_and_crowding_beyond_four_per_m2():
     crowd, turn = 200 * 0.075 * 3.0 / 1230.0, 0.2 * (12.0 * 1852.0 / 3600.0) ** 2 * 1.5 / (G * 38.0)
     assert turn == pytest.approx(0.0306696, abs=1e-7)
     c, t = crit(r, "IS2008-A3.1-crowding"), crit(r, "IS2008-A3.1-turning")
-    assert c.value == pytest.approx(_heel_wall_sided(gm, bm, crowd), abs=0.01)
-    assert t.value == pytest.approx(_heel_wall_sided(gm, bm, turn), abs=0.01)
+    assert c.value == pytest.approx(wall_sided_heel_deg(gm, bm, crowd), abs=0.01)
+    assert t.value == pytest.approx(wall_sided_heel_deg(gm, bm, turn), abs=0.01)
     for x in (c, t):
         assert (x.limit, x.unit, x.comparison, x.passed, x.source, x.set_id) == (
             10.0, "deg", "<=", True, "IS Code 2008 Part A 3.1", "IS2008-A3.1")
@@ -613,8 +601,8 @@ def test_passenger_heel_below_one_degree_and_no_turning_lever():
                         service_speed_kn=12.0)
     r = evaluate(*box(3.0, 3.0, CriteriaSettings(ship_type="passenger", sharp_bilged=True), passengers=pax))
     gm, bm = 1.5 + 100.0 / 36.0 - 3.0, 100.0 / 36.0
-    assert crit(r, "IS2008-A3.1-crowding").value == pytest.approx(_heel_wall_sided(gm, bm, 11.25 / 1230.0), abs=0.01)
-    assert _heel_wall_sided(gm, bm, 11.25 / 1230.0) == pytest.approx(0.410, abs=1e-3)
+    assert crit(r, "IS2008-A3.1-crowding").value == pytest.approx(wall_sided_heel_deg(gm, bm, 11.25 / 1230.0), abs=0.01)
+    assert wall_sided_heel_deg(gm, bm, 11.25 / 1230.0) == pytest.approx(0.410, abs=1e-3)
     r = evaluate(*box(3.0, 1.4, CriteriaSettings(ship_type="passenger", sharp_bilged=True), passengers=pax))
     t = crit(r, "IS2008-A3.1-turning")
     assert t.value == 0.0 and t.passed and t.note.startswith("lever 0.0000 m (12 kn")

@@ -150,6 +150,20 @@ def box_dynamic_lever_mrad(breadth_m: float, depth_m: float, draft_m: float, kg_
     return yb * math.sin(heel_rad) + (kg_m - zb) * math.cos(heel_rad) - (kg_m - draft_m / 2.0)
 
 
+def wall_sided_heel_deg(gm_m: float, bm_m: float, lever_m: float) -> float:
+    """First heel (degrees, up to 30°) where the wall-sided GZ = sin φ·(GM + ½·BM·tan²φ) reaches
+    ``lever_m`` (the wall-sided formula, checks.md §1: exact for a box until the deck edge or the bilge
+    enters the water), by bisection to the last bit."""
+    lo, hi = 0.0, math.radians(30.0)
+    for _ in range(100):
+        mid = (lo + hi) / 2
+        if math.sin(mid) * (gm_m + 0.5 * bm_m * math.tan(mid) ** 2) < lever_m:
+            lo = mid
+        else:
+            hi = mid
+    return math.degrees(lo)
+
+
 def deck_edge_angle_rad(breadth_m: float, depth_m: float, draft_m: float) -> float:
     """Angle at which the wall-sided regime ends: tan φ = min(D − T, T)/(B/2)."""
     return math.atan(min(depth_m - draft_m, draft_m) / (breadth_m / 2.0))
