@@ -18,11 +18,24 @@ import gc
 import os
 
 import pytest
+import textual._wait
 
 # The suite never reads or writes the user's cache of validated profiles (deckload.io.profile_cache):
 # a test's result must not depend on what an earlier run left in ~/.local/share/deckload.  The
 # cache's own tests (tests/test_profile_cache.py) turn it on with a data folder of their own.
 os.environ["DECKLOAD_NO_CACHE"] = "1"
+
+
+# textual's pilot, after every key it presses and in ``pause()``, waits until the process looks idle:
+# it sleeps SLEEP_GRANULARITY (20 ms in textual 8.2) again and again until one such sleep used less
+# than SLEEP_IDLE (a twentieth of it) of CPU.  Each key therefore costs at least two 20 ms sleeps,
+# and more than half of a screen test's wall clock was this sleeping (cProfile: 1.8 s of 3.7 s in
+# ``epoll`` for a 30-key test).  The same test of idleness on a quarter of the period (5 ms, still
+# under a twentieth of it busy) keeps its meaning and waits a quarter as long: the whole suite took
+# 74 s instead of 113 s of wall clock (DEVELOPERS.md, "How the suite stays fast").  The pilot's
+# deterministic part (every message queued before the wait is processed) is unchanged.
+textual._wait.SLEEP_GRANULARITY = 0.005
+textual._wait.SLEEP_IDLE = textual._wait.SLEEP_GRANULARITY / 20.0
 
 
 def pytest_collection_finish(session):

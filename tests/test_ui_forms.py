@@ -275,6 +275,7 @@ async def test_the_verdict_page_fits_the_screen_and_keeps_its_caution_whole(app,
     async with app.run_test(size=size) as pilot:
         await pilot.press("v", "end")
         await pilot.pause()
+        await pilot.wait_for_scheduled_animations()  # End scrolls smoothly
         rows = screen_text(app)
         assert all(len(r) <= size[0] for r in rows)
         assert ("deckload supports, and never replaces, the approved stability booklet, the master's judgement "
@@ -416,3 +417,16 @@ async def test_a_blank_deck_area_stays_blank_unless_one_is_chosen(app, demo):
         await pilot.press("enter")
         await pilot.pause()
         assert app.session.condition.deck_items[-1].area_id == "AFTDECK"
+
+
+@pytest.mark.parametrize("keys", [["v", "end"], ["question_mark", "end"]])
+async def test_end_typed_as_a_page_opens_shows_the_pages_end(app, keys):
+    """v (the verdict) or ? (the keys) and End typed at once: End is not lost while the page opens,
+    and scrolls it to its last line, the caution."""
+    from deckload.ui.dialogs import HelpScreen, TextScreen
+
+    async with app.run_test(size=(80, 24)) as pilot:
+        await type_fast(app, pilot, keys)
+        await pilot.wait_for_scheduled_animations()  # End scrolls smoothly
+        assert isinstance(app.screen, (TextScreen, HelpScreen))
+        assert "flag-State and class rules." in region_text(app, ".form")

@@ -34,6 +34,10 @@ Measured, per app:
 costs this process, whatever the neighbours do.  deckload's sources are compiled to
 bytecode first (into a private folder), as an install does.
 
+``--profile FILE`` instead runs deckload alone, its paced keys under cProfile, writes the
+statistics to FILE and prints the heaviest calls (times inflated by the profiler: read it for
+where a key's time goes, not for how much).
+
 Targets (issue 13): key → frame at most 3× and first paint at most 1.6× the bare app's,
 on two cores and on one; (issue 4) median key → frame ≤ 30 ms at 120×40, peak RSS ≤ 80 MiB.
 """
@@ -93,15 +97,24 @@ def _child(which: str, width: int, height: int, keys: int, out: str, spawned_at:
     queue: dict = {}
 
     cpu: list[float] = []
+    profile_to = os.environ.get("DECKLOAD_BENCH_PROFILE") if which == "deckload" else None
+    profiler = None
+    if profile_to:
+        import cProfile
+        profiler = cProfile.Profile()
 
-    async def press(i: int) -> float:
+    async def press(i: int, profiled: bool = False) -> float:
         key = "plus" if i % 2 == 0 else "minus"
         frame["event"] = asyncio.Event()
         t0, c0 = time.perf_counter(), time.thread_time()
         ev = events.Key(key, "+" if key == "plus" else "-")
         ev.set_sender(app)
+        if profiled and profiler is not None:
+            profiler.enable()
         app._driver.send_message(ev)
         await frame["event"].wait()
+        if profiled and profiler is not None:
+            profiler.disable()
         frame["event"] = None
         cpu.append((time.thread_time() - c0) * 1000.0)
         return (time.perf_counter() - t0) * 1000.0
@@ -109,9 +122,11 @@ def _child(which: str, width: int, height: int, keys: int, out: str, spawned_at:
     async def drive() -> None:
         await asyncio.sleep(1.0)  # let start-up settle
         for i in range(keys):
-            samples.append(await press(i))
+            samples.append(await press(i, profiled=True))
             await asyncio.sleep(0.05)
         del cpu[keys:]
+        if profiler is not None:
+            profiler.dump_stats(profile_to)
         session = getattr(app, "session", None)
         if session is not None:
             session.flush()  # the paced keys' writes are not part of the burst
@@ -255,6 +270,15 @@ def main(argv: list[str]) -> int:
         _child(argv[1], int(argv[2]), int(argv[3]), int(argv[4]), argv[5], float(argv[6]))
         return 0
     keys = int(argv[argv.index("--keys") + 1]) if "--keys" in argv else 60
+    if "--profile" in argv:  # one deckload run on two cores, its paced keys under cProfile
+        to = Path(argv[argv.index("--profile") + 1]).resolve()
+        env = dict(os.environ, DECKLOAD_BENCH_PROFILE=str(to))
+        r = _run("deckload", 120, 40, keys, False, env)
+        print(f"{keys} paced keys profiled (median {statistics.median(r['samples_ms']):.1f} ms a key under the "
+              f"profiler): {to}")
+        import pstats
+        pstats.Stats(str(to)).sort_stats("cumulative").print_stats(40)
+        return 0
     rounds = int(argv[argv.index("--rounds") + 1]) if "--rounds" in argv else 2
     paints = int(argv[argv.index("--paints") + 1]) if "--paints" in argv else 5
     size = argv[argv.index("--size") + 1] if "--size" in argv else "120x40"
