@@ -299,10 +299,10 @@ def test_unknown_liquid_kind():
 
 
 def test_density_outside_range():
-    text = edit(BASE, "density_t_m3 = 1.025\ncapacity", "density_t_m3 = 2.5\ncapacity", nth=2)
+    text = edit(BASE, "density_t_m3 = 1.025\ncapacity", "density_t_m3 = 2.6\ncapacity", nth=2)
     p = only(text)
     assert p.key == "tank[DB1S].density_t_m3"
-    assert p.rule.startswith("above 2 t/m³: must be between 0.5 and 2 t/m³")
+    assert p.rule.startswith("above 2.5 t/m³: must be between 0.5 and 2.5 t/m³")
 
 
 def test_limit_curve_with_both_kinds():

@@ -58,14 +58,27 @@ def test_a_mass_keeps_the_mass_and_must_still_fit_the_tank(demo):
 
 
 @pytest.mark.parametrize("typed, why", [("0.45", "below the lowest accepted value 0.5"),
-                                        ("2.1", "above the highest accepted value 2"),
-                                        ("991.2", "above the highest accepted value 2"),  # kg/m³ for t/m³
+                                        ("2.6", "above the highest accepted value 2.5"),
+                                        ("991.2", "above the highest accepted value 2.5"),  # kg/m³ for t/m³
                                         ("0,99", "decimal point"), ("heavy", "not a number")])
 def test_a_density_outside_physics_is_refused_with_the_rule(demo, typed, why):
     v, c = demo
     with pytest.raises(entry.EntryError, match=why) as err:
         entry.set_tank_density(c, v.tank("FO1P"), typed)
     assert "Density in FO1P" in str(err.value)
+
+
+def test_liquid_mud_of_a_supply_vessel_is_a_density_not_a_typing_error(demo, tmp_path):
+    """Liquid mud at 2.4 t/m³ (an offshore supply vessel's liquid-mud tanks are commonly specified
+    for a specific gravity of 2.5: common practice, from memory) was refused above 2.0.  Stated on
+    the screen for 10 m³ in a tank it is 24.0 t (mass = V·ρ), and a condition file keeps it."""
+    v, c = demo
+    c2 = entry.set_tank_density(c, v.tank("DB1P"), "2.4")
+    c3 = entry.set_tank(c2, v.tank("DB1P"), "volume_m3", 10.0)
+    assert _tank(evaluate(v, c3), "DB1P").mass_t == pytest.approx(24.0, rel=1e-15)
+    again = parse_condition(dump_condition(c3), "mud.condition.toml", v)
+    assert again.tank_fill("DB1P") == TankFill("DB1P", "volume_m3", 10.0, 2.4)
+    entry.set_tank_density(c, v.tank("DB1P"), "2.5")  # the highest accepted, itself accepted
 
 
 def test_an_empty_tank_keeps_a_stated_density_for_what_is_put_in(demo):
@@ -95,11 +108,11 @@ def test_the_condition_file_keeps_the_density_and_the_report_shows_it(demo):
 
 def test_a_file_density_outside_physics_names_the_key(demo):
     v, c = demo
-    text = dump_condition(c).replace("[tanks.FO1P]\n", "[tanks.FO1P]\ndensity_t_m3 = 2.5\n")
+    text = dump_condition(c).replace("[tanks.FO1P]\n", "[tanks.FO1P]\ndensity_t_m3 = 2.6\n")
     with pytest.raises(ProfileError) as err:
         parse_condition(text, "bdn.condition.toml", v)
     said = str(err.value)
-    assert "bdn.condition.toml" in said and "tanks.FO1P.density_t_m3" in said and "2.5" in said
+    assert "bdn.condition.toml" in said and "tanks.FO1P.density_t_m3" in said and "2.6" in said
 
 
 async def test_density_by_key_shows_on_the_board_is_logged_and_comes_back_on_reopen(tmp_path):
@@ -115,7 +128,7 @@ async def test_density_by_key_shows_on_the_board_is_logged_and_comes_back_on_reo
         await pilot.press("D")
         await pilot.pause()
         assert isinstance(app.screen, PromptForm)
-        await pilot.press(*"2.5", "enter")  # replaces the selected value; refused: the form stays, naming the range
+        await pilot.press(*"2.6", "enter")  # replaces the selected value; refused: the form stays, naming the range
         assert isinstance(app.screen, PromptForm)
         assert "above the highest accepted value" in str(app.screen.query_one("#form-message").render())
         await pilot.press("end", "ctrl+u", *f"{BDN_RHO}", "enter")

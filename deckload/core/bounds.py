@@ -54,11 +54,13 @@ ABOVE_DEPTH_M = 30.0
 WATER_DENSITY_RANGE_T_M3 = (0.99, 1.04)
 """The water a vessel floats in (t/m³): fresh river water 1.000 to dense sea water (common practice)."""
 
-LIQUID_DENSITY_RANGE_T_M3 = (0.5, 2.0)
+LIQUID_DENSITY_RANGE_T_M3 = (0.5, 2.5)
 """What a tank may hold (t/m³), in a profile, a condition file or typed on the screen from a bunker
 delivery note: from liquefied gas near 0.5 (propane at its boiling point) through oils 0.8–1.0
-and water 1.000–1.025 to heavy brines and drilling mud near 2.0 (common practice).  A density
-outside it is a typing error (a shifted point, kg/m³ for t/m³), not a liquid."""
+and water 1.000–1.025 to the liquid mud and completion brines of an offshore supply vessel, whose
+tanks are commonly specified for a specific gravity of 2.5 (common practice, from memory; heavy
+zinc/calcium bromide brines are about 2.3).  A density outside it is a typing error (a shifted
+point, kg/m³ for t/m³), not a liquid."""
 
 LBP_RANGE_M = (1.0, 500.0)
 BEAM_DEPTH_RANGE_M = (0.2, 100.0)
