@@ -41,8 +41,10 @@ async def type_fast(app, pilot, keys: list[str]) -> None:
         char = k if len(k) == 1 else {"minus": "-", "plus": "+"}.get(k)
         app._driver.send_message(events.Key(_NAMES.get(k, k), char))
     quiet = 0
-    for _ in range(400):  # up to 20 s on a loaded machine; ends once every key is handled
-        await pilot.pause(0.05)
+    for _ in range(1000):  # up to 20 s on a loaded machine; ends once every key is handled
+        # pause() first sees every message queued before it handled (the keys included), then
+        # sleeps: four looks 20 ms apart (the app's watch of held keys runs every 20 ms).
+        await pilot.pause(0.02)
         quiet = quiet + 1 if not app._held_keys and app._key_in_flight is None else 0
         if quiet == 4:
             break
