@@ -10,11 +10,10 @@ import pytest
 from textual import events
 
 from deckload.core.deadweight import deadweight_by_kind
-from deckload.io import paths
-from deckload.io.profiles import load_condition, load_profile
 from deckload.ui import views
 from deckload.ui.launch import create_app
 from deckload.ui.widgets import LoadBoard
+from demo_vessels import demo_departure
 
 SIZES = [(120, 40), (80, 24)]
 PRINTED_T = 0.005
@@ -23,8 +22,7 @@ PRINTED_T = 0.005
 
 @pytest.fixture
 def app(tmp_path):
-    vessel = load_profile(paths.DEMO_PROFILE)
-    condition = load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
+    vessel, condition = demo_departure()  # read once per process (tests/demo_vessels.py)
     return create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
 
 

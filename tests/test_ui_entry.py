@@ -260,11 +260,10 @@ def test_editing_a_deck_item_keeps_what_the_form_does_not_show(vessel):
 def test_the_giving_tank_for_an_empty_tank_is_its_partner_else_the_fullest_of_its_liquid():
     """Demo ballast: WB1P empty.  With WB1S holding some, WB1S gives (the partner); with WB1S empty
     too, the ballast tank holding most gives (DB2S 20 m³ over DB1P 10 m³); with none, ''."""
-    from deckload.io import paths
-    from deckload.io.profiles import load_profile
     from deckload.ui.entry import giving_tank
+    from demo_vessels import demo_vessel
 
-    v = load_profile(paths.DEMO_PROFILE)
+    v = demo_vessel()
     ballast = [t.id for t in v.tanks if t.kind == "ballast"]
     empty = Condition(name="Empty ballast", tanks=tuple(TankFill(i, "volume_m3", 0.0) for i in ballast))
     assert giving_tank(v, empty, "WB1P") == ""
