@@ -14,16 +14,26 @@ fifth of the screen tests' CPU; freezing took about a third off that).
 
 from __future__ import annotations
 
+import atexit
 import gc
 import os
+import shutil
+import tempfile
 
 import pytest
 import textual._wait
 
 # The suite never reads or writes the user's cache of validated profiles (deckload.io.profile_cache):
-# a test's result must not depend on what an earlier run left in ~/.local/share/deckload.  The
-# cache's own tests (tests/test_profile_cache.py) turn it on with a data folder of their own.
-os.environ["DECKLOAD_NO_CACHE"] = "1"
+# a test's result must not depend on what an earlier run left in ~/.local/share/deckload.  Each test
+# process has a fresh cache folder of its own instead, shared by its tests and the programs they
+# start: the command-line and screen tests read the demo profiles some 200 times, and each read from
+# the files (about 0.3 s of CPU) became one read and then ~3 ms hits (DEVELOPERS.md, "How the suite
+# stays fast").  An entry is used only for the same bytes of every file read and the same program
+# sources, so sharing it is what the program does for its user.  The cache's own tests
+# (tests/test_profile_cache.py) keep it in each test's data folder.
+_CACHE = tempfile.mkdtemp(prefix="deckload-test-cache-")
+os.environ["DECKLOAD_CACHE_DIR"] = _CACHE
+atexit.register(shutil.rmtree, _CACHE, True)
 
 
 # textual's pilot, after every key it presses and in ``pause()``, waits until the process looks idle:
@@ -46,3 +56,6 @@ def pytest_collection_finish(session):
 @pytest.fixture(autouse=True)
 def _own_data_home(tmp_path_factory, monkeypatch):
     monkeypatch.setenv("DECKLOAD_HOME", str(tmp_path_factory.mktemp("deckload-home")))
+    # ``deckload --no-cache`` run in-process sets DECKLOAD_NO_CACHE for the rest of the process;
+    # monkeypatch puts back what was there before each test, so it ends with the test.
+    monkeypatch.delenv("DECKLOAD_NO_CACHE", raising=False)

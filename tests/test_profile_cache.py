@@ -27,9 +27,16 @@ from deckload.report.audit_findings import AuditedProfile, load_audited, read_au
 DATA = paths.PACKAGE_DATA
 
 
+@pytest.fixture(autouse=True)
+def _cache_in_the_data_folder(monkeypatch):
+    """These tests find the cache where the program keeps it by default, in the data folder; not
+    in the folder tests/conftest.py gives the rest of the suite (DECKLOAD_CACHE_DIR)."""
+    monkeypatch.delenv("DECKLOAD_CACHE_DIR", raising=False)
+
+
 @pytest.fixture
 def home(tmp_path, monkeypatch):
-    """A data folder of the test's own, with the cache on (tests/conftest.py turns it off)."""
+    """A data folder of the test's own, with the cache on."""
     monkeypatch.setenv("DECKLOAD_HOME", str(tmp_path / "home"))
     monkeypatch.delenv("DECKLOAD_NO_CACHE", raising=False)
     return tmp_path / "home"
@@ -378,6 +385,14 @@ def test_the_cache_can_be_turned_off(home, builds, monkeypatch, capsys, how):
         monkeypatch.setenv("DECKLOAD_NO_CACHE", "")  # restored after the test; --no-cache sets it
     assert main(argv) == 0 and main(argv) == 0
     assert len(builds) == 2 and not entries(home)
+
+
+def test_a_cache_folder_of_its_own_is_used_and_the_data_folder_left_alone(home, builds, tmp_path, monkeypatch):
+    monkeypatch.setenv("DECKLOAD_CACHE_DIR", str(tmp_path / "elsewhere"))
+    argv = ["calc", "trawler", "departure"]
+    assert main(argv) == 0 and main(argv) == 0
+    assert len(builds) == 1, "the second calc must come from the cache"
+    assert len(list((tmp_path / "elsewhere").glob("*.cache"))) == 1 and not entries(home)
 
 
 def test_old_entries_and_stale_temporary_files_are_pruned(home, builds, tmp_path, monkeypatch):

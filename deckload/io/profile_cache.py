@@ -6,7 +6,9 @@ about a millisecond.  What is cached is whatever the caller builds from the prof
 command line and the screen cache the vessel, how its tables were written and its located
 plausibility audit: ``deckload.report.audit_findings.load_audited``).
 
-Where: ``data_home()/cache/profiles/`` (``deckload.io.paths.data_home``), one file per entry.
+Where: ``data_home()/cache/profiles/`` (``deckload.io.paths.data_home``), one file per entry, or
+the folder ``DECKLOAD_CACHE_DIR`` names (a cache kept apart from the data folder: the test suite
+gives each of its processes one, shared by its tests).
 
 Key: the file's name is the SHA-256 of the program version, a stamp of the program's own
 source files (name, size and modification time of every module of the package, so a changed
@@ -71,7 +73,9 @@ def enabled() -> bool:
 
 
 def cache_dir() -> Path:
-    """``data_home()/cache/profiles``."""
+    """``$DECKLOAD_CACHE_DIR`` when set, else ``data_home()/cache/profiles``."""
+    if os.environ.get("DECKLOAD_CACHE_DIR"):
+        return Path(os.environ["DECKLOAD_CACHE_DIR"])
     from deckload.io.paths import data_home
 
     return data_home() / "cache" / "profiles"
