@@ -7,6 +7,7 @@ with columns replaced, and the findings of given checks.
 from __future__ import annotations
 
 import dataclasses
+import functools
 
 import numpy as np
 
@@ -16,7 +17,10 @@ from deckload.core.model import frozen_array
 from deckload.io.profiles import parse_profile
 
 
+@functools.cache
 def vessel():
+    """The box vessel, read once per process: the audit tests ask for it some 2000 times, and the
+    model is immutable (frozen dataclasses, read-only arrays), so every test may share it."""
     return parse_profile(fv22_text(), "fv22.toml")
 
 

@@ -26,7 +26,8 @@ that killed some mutant of the module, then the fastest, up to S seconds of thei
 time, are run; a mutant that passes them is recorded as ``survived capped`` (not a verdict: re-run
 them without the cap with ``--recheck-survivors``).
 
-Caches in the process (the demo vessels read once, ``tests/demo_vessels.py``; the per-tank
+Caches in the process (the demo vessels and the audit tests' box vessel read once,
+``tests/demo_vessels.py``, ``tests/fv22_audit.py``; the per-tank
 ``lru_cache`` in ``core.free_surface``): by default they keep what the unmutated run filled, so a
 mutant in code that only runs while a cache fills (reading a profile) can be hidden (a false
 "survived", never a false kill); ``--fresh`` clears them before every mutant, which is slower but
@@ -68,7 +69,7 @@ def _clear_caches() -> None:
     for obj in gc.get_objects():
         if isinstance(obj, functools._lru_cache_wrapper):
             mod = getattr(obj, "__module__", "") or ""
-            if mod.startswith(("deckload", "demo_vessels", "tests")):
+            if mod.startswith(("deckload", "demo_vessels", "fv22_audit", "tests")):
                 obj.cache_clear()
 
 
