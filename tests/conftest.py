@@ -53,9 +53,16 @@ def pytest_collection_finish(session):
     gc.freeze()
 
 
+_HOMES = tempfile.mkdtemp(prefix="deckload-test-homes-")
+atexit.register(shutil.rmtree, _HOMES, True)
+
+
 @pytest.fixture(autouse=True)
-def _own_data_home(tmp_path_factory, monkeypatch):
-    monkeypatch.setenv("DECKLOAD_HOME", str(tmp_path_factory.mktemp("deckload-home")))
+def _own_data_home(monkeypatch):
+    # A fresh folder per test, made in one step: pytest's numbered ``mktemp`` lists every folder
+    # made before it to pick the next number, a cost that grows with each test (1500 empty tests
+    # in one process: 7.4 s with it, 3.6 s with this).
+    monkeypatch.setenv("DECKLOAD_HOME", tempfile.mkdtemp(prefix="home-", dir=_HOMES))
     # ``deckload --no-cache`` run in-process sets DECKLOAD_NO_CACHE for the rest of the process;
     # monkeypatch puts back what was there before each test, so it ends with the test.
     monkeypatch.delenv("DECKLOAD_NO_CACHE", raising=False)
