@@ -22,6 +22,7 @@ import tempfile
 
 import pytest
 import textual._wait
+import textual.screen
 
 # The suite never reads or writes the user's cache of validated profiles (deckload.io.profile_cache):
 # a test's result must not depend on what an earlier run left in ~/.local/share/deckload.  Each test
@@ -40,10 +41,13 @@ atexit.register(shutil.rmtree, _CACHE, True)
 # it sleeps SLEEP_GRANULARITY (20 ms in textual 8.2) again and again until one such sleep used less
 # than SLEEP_IDLE (a twentieth of it) of CPU.  Each key therefore costs at least two 20 ms sleeps,
 # and more than half of a screen test's wall clock was this sleeping (cProfile: 1.8 s of 3.7 s in
-# ``epoll`` for a 30-key test).  The same test of idleness on a quarter of the period (5 ms, still
-# under a twentieth of it busy) keeps its meaning and waits a quarter as long: the whole suite took
-# 74 s instead of 113 s of wall clock (DEVELOPERS.md, "How the suite stays fast").  The pilot's
-# deterministic part (every message queued before the wait is processed) is unchanged.
+# ``epoll`` for a 30-key test).  The sleep must outlast a screen's update period (a change of
+# layout is applied on the screen's next update, 1/60 s after it is asked for: textual's 20 ms does),
+# or "idle" is seen before the update runs.  So both are a quarter of textual's: the screens update
+# within 4 ms, and the pilot's test of idleness runs on 5 ms (still under a twentieth of it busy).
+# The whole suite took 74 s instead of 113 s of wall clock (DEVELOPERS.md, "How the suite stays
+# fast").  The pilot's deterministic part (every message queued before the wait is handled) is as it was.
+textual.screen.UPDATE_PERIOD = 0.004
 textual._wait.SLEEP_GRANULARITY = 0.005
 textual._wait.SLEEP_IDLE = textual._wait.SLEEP_GRANULARITY / 20.0
 
