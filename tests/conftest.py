@@ -31,10 +31,11 @@ import textual.screen
 # the files (about 0.3 s of CPU) became one read and then ~3 ms hits (DEVELOPERS.md, "How the suite
 # stays fast").  An entry is used only for the same bytes of every file read and the same program
 # sources, so sharing it is what the program does for its user.  The cache's own tests
-# (tests/test_profile_cache.py) keep it in each test's data folder.
-_CACHE = tempfile.mkdtemp(prefix="deckload-test-cache-")
-os.environ["DECKLOAD_CACHE_DIR"] = _CACHE
-atexit.register(shutil.rmtree, _CACHE, True)
+# (tests/test_profile_cache.py) keep it in each test's data folder.  The cache and the tests' data
+# folders live in one scratch folder per process, removed when it ends.
+_SCRATCH = tempfile.mkdtemp(prefix="deckload-tests-")
+atexit.register(shutil.rmtree, _SCRATCH, True)
+os.environ["DECKLOAD_CACHE_DIR"] = os.path.join(_SCRATCH, "profile-cache")
 
 
 # textual's pilot, after every key it presses and in ``pause()``, waits until the process looks idle:
@@ -57,16 +58,12 @@ def pytest_collection_finish(session):
     gc.freeze()
 
 
-_HOMES = tempfile.mkdtemp(prefix="deckload-test-homes-")
-atexit.register(shutil.rmtree, _HOMES, True)
-
-
 @pytest.fixture(autouse=True)
 def _own_data_home(monkeypatch):
     # A fresh folder per test, made in one step: pytest's numbered ``mktemp`` lists every folder
     # made before it to pick the next number, a cost that grows with each test (1500 empty tests
     # in one process: 7.4 s with it, 3.6 s with this).
-    monkeypatch.setenv("DECKLOAD_HOME", tempfile.mkdtemp(prefix="home-", dir=_HOMES))
+    monkeypatch.setenv("DECKLOAD_HOME", tempfile.mkdtemp(prefix="home-", dir=_SCRATCH))
     # ``deckload --no-cache`` run in-process sets DECKLOAD_NO_CACHE for the rest of the process;
     # monkeypatch puts back what was there before each test, so it ends with the test.
     monkeypatch.delenv("DECKLOAD_NO_CACHE", raising=False)

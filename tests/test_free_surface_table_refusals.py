@@ -1,8 +1,8 @@
 """A tank's own tables are never extrapolated: the free-surface look-ups refuse a volume, a fill or a
 heel outside them, naming the tank, the quantity, its value and unit, and the table's range.
 
-Rule: deckload's own (tables.py, ``bracket``: nothing is extrapolated; HELPER_RULES: a refusal names
-the value and the rule broken).  The words are those of ``tables.OutOfRangeError``.
+Rule: deckload's own (tables.py, ``bracket``: nothing is extrapolated; DEVELOPERS.md, "Standing rules":
+a refusal names the value and the rule broken).  The words are those of ``tables.OutOfRangeError``.
 
 Through the profile reader these refusals are guarded upstream (a calibration starts at volume 0
 and ends at the capacity within 0.05 %, loading clamps a volume to the table's top, a transfer

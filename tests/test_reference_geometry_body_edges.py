@@ -4,7 +4,7 @@ Box L = 40 (x 0…40 from the AP), B = 10, D = 4 m, upright, keel at z = 0 (the 
 checks.md §1).  A level below the keel (c0 = −1 m) leaves nothing under water: volume,
 waterplane area and every moment are 0 exactly (no section is cut, the sums are of zeros).
 The centroid of no volume has no value of its own, but every number the program computes must
-be finite (HELPER_RULES hard rule: finite or refused): the callers replace it by the bottom's
+be finite (deckload's rule: finite or refused, core/bounds.py): the callers replace it by the bottom's
 centroid (tanks.py), so a NaN here would only be hidden, never needed.
 """
 

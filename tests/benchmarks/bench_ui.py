@@ -270,19 +270,19 @@ def main(argv: list[str]) -> int:
         _child(argv[1], int(argv[2]), int(argv[3]), int(argv[4]), argv[5], float(argv[6]))
         return 0
     keys = int(argv[argv.index("--keys") + 1]) if "--keys" in argv else 60
+    rounds = int(argv[argv.index("--rounds") + 1]) if "--rounds" in argv else 2
+    paints = int(argv[argv.index("--paints") + 1]) if "--paints" in argv else 5
+    size = argv[argv.index("--size") + 1] if "--size" in argv else "120x40"
+    width, height = (int(x) for x in size.split("x"))
     if "--profile" in argv:  # one deckload run on two cores, its paced keys under cProfile
         to = Path(argv[argv.index("--profile") + 1]).resolve()
         env = dict(os.environ, DECKLOAD_BENCH_PROFILE=str(to))
-        r = _run("deckload", 120, 40, keys, False, env)
+        r = _run("deckload", width, height, keys, False, env)
         print(f"{keys} paced keys profiled (median {statistics.median(r['samples_ms']):.1f} ms a key under the "
               f"profiler): {to}")
         import pstats
         pstats.Stats(str(to)).sort_stats("cumulative").print_stats(40)
         return 0
-    rounds = int(argv[argv.index("--rounds") + 1]) if "--rounds" in argv else 2
-    paints = int(argv[argv.index("--paints") + 1]) if "--paints" in argv else 5
-    size = argv[argv.index("--size") + 1] if "--size" in argv else "120x40"
-    width, height = (int(x) for x in size.split("x"))
     rev = subprocess.run(["git", "-C", str(ROOT), "rev-parse", "--short", "HEAD"], capture_output=True, text=True)
     print(f"deckload loading-screen benchmark, {width}×{height}, {keys} keys × {rounds} rounds, "
           f"first paint of {rounds + paints} starts, "
