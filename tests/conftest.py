@@ -44,13 +44,24 @@ os.environ["DECKLOAD_CACHE_DIR"] = os.path.join(_SCRATCH, "profile-cache")
 # and more than half of a screen test's wall clock was this sleeping (cProfile: 1.8 s of 3.7 s in
 # ``epoll`` for a 30-key test).  The sleep must outlast a screen's update period (a change of
 # layout is applied on the screen's next update, 1/60 s after it is asked for: textual's 20 ms does),
-# or "idle" is seen before the update runs.  So both are a quarter of textual's: the screens update
-# within 4 ms, and the pilot's test of idleness runs on 5 ms (still under a twentieth of it busy).
-# The whole suite took 74 s instead of 113 s of wall clock (DEVELOPERS.md, "How the suite stays
+# or "idle" is seen before the update runs.  So both are a tenth of textual's: the screens update
+# within 1.5 ms, and the pilot's test of idleness runs on 2 ms (still under a twentieth of it busy).
+# A key costs its own work and about three such sleeps.  The whole suite took 74 s instead of 113 s
+# of wall clock at a quarter, and 2 ms took another 5–7 s off (DEVELOPERS.md, "How the suite stays
 # fast").  The pilot's deterministic part (every message queued before the wait is handled) is as it was.
-textual.screen.UPDATE_PERIOD = 0.004
-textual._wait.SLEEP_GRANULARITY = 0.005
+textual.screen.UPDATE_PERIOD = 0.0015
+textual._wait.SLEEP_GRANULARITY = 0.002
 textual._wait.SLEEP_IDLE = textual._wait.SLEEP_GRANULARITY / 20.0
+
+
+def pytest_xdist_auto_num_workers(config):
+    """``-n auto``: three worker processes for two cores this process may use (half as many again as
+    cores, rounded up).  A screen test spends much of its wall clock asleep in the pilot's idle wait
+    above, and a third worker fills those gaps: the whole suite took 41–42 s with three or four
+    workers against 44–45 s with two, on this two-core machine (DEVELOPERS.md, "How the suite stays
+    fast")."""
+    cores = len(os.sched_getaffinity(0)) if hasattr(os, "sched_getaffinity") else (os.cpu_count() or 1)
+    return -(-3 * cores // 2)
 
 
 def pytest_collection_finish(session):
