@@ -163,6 +163,7 @@ def test_check_passes_on_the_trawler_with_its_booklet_conditions(capsys):
     assert "converted: hydrostatics lcb_m, lcf_m: from midships" in out
 
 
+@pytest.mark.long
 def test_booklet_results_are_reproduced_by_the_trimesh_script():
     """The printed booklet results of condition 2 (on the grounds) are what
     tests/tools/demo_trawler_booklet_conditions.py makes now from the condition file and the hull

@@ -9,10 +9,13 @@ from __future__ import annotations
 
 import random
 
+import pytest
+
 import fuzz_cases
 from demo_vessels import demo_vessel
 
 
+@pytest.mark.long
 def test_a_seeded_fuzz_run_finds_no_traceback_no_non_finite_output_and_no_impossible_result():
     tally = fuzz_cases.run(1500, seed=20261202)
     assert tally.cases == 1500

@@ -73,6 +73,7 @@ def test_select_entries_by_kind_and_ship_date(filled):
         parse_day("2.12.2026")
 
 
+@pytest.mark.long
 async def test_log_screen_lists_filters_opens_and_restores(filled):
     book, vessel, conds = filled
     app = Host(book, vessel)

@@ -110,6 +110,7 @@ def _phase(lines: list[str]) -> str:
     return {"saving": "saving", "saved": "appending"}.get(last, "between")
 
 
+@pytest.mark.long
 def test_sigkill_at_random_moments_loses_nothing(tmp_path):
     rng = random.Random(20261201)
     log_dir = tmp_path / "logs"

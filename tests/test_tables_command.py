@@ -60,6 +60,7 @@ def rebuilt() -> str:
     return text
 
 
+@pytest.mark.long
 def test_committed_demo_profile_rebuilds_byte_for_byte(rebuilt):
     assert rebuilt == PROFILE.read_text(encoding="utf-8"), (
         "vessel_profiles/demo_islander.toml differs from what `deckload tables` makes from "

@@ -82,6 +82,7 @@ def demo_round_trip(tmp_path_factory):
     return load_profile(d / "demo.toml"), notes
 
 
+@pytest.mark.long
 def test_command_output_read_back_equals_the_generator(demo_round_trip):
     v, notes = demo_round_trip
     gen = trimmed_vessel(load_profile(PROFILE), sorted((0.0,) + DEMO_TRIMS)).trimmed

@@ -42,6 +42,7 @@ def vessels():
     return v, trimmed
 
 
+@pytest.mark.long
 @pytest.mark.parametrize("lcg_shift_m", [-1.0, 1.5])
 def test_trimmed_tables_agree_with_the_direct_calculation(vessels, lcg_shift_m):
     even, trimmed = vessels

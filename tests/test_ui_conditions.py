@@ -96,6 +96,7 @@ def test_resolve_finds_stock_working_and_saved_by_short_name(demo, tmp_path):
         assert listed in str(err.value)
 
 
+@pytest.mark.long
 async def test_name_save_print_and_open_from_the_screen(app, tmp_path):
     async with app.run_test(size=(120, 40)) as pilot:
         await pilot.press("d")

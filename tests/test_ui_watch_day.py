@@ -8,6 +8,8 @@ the values that were on the screen.  Built with the same factory and start-up as
 
 from __future__ import annotations
 
+import pytest
+
 from deckload.io import paths
 from deckload.logbook import Logbook
 from deckload.io.profiles import load_condition
@@ -30,6 +32,7 @@ async def to_tank(pilot, app, tank_id: str) -> None:
     assert board.cursor_key == ("tank", tank_id)
 
 
+@pytest.mark.long
 async def test_the_watch_day(tmp_path):
     work, logs = tmp_path / "work", tmp_path / "logs"
     vessel = demo_vessel()
