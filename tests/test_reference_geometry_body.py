@@ -186,3 +186,35 @@ def test_draft_for_volume_of_a_box():
     np.testing.assert_allclose(draft_for_volume(box_body(), np.array([400.0, 800.0, 1400.0])), [1.0, 2.0, 3.5],
                                atol=1e-9)
     np.testing.assert_allclose(draft_for_volume(box_body(), [800.0]), [2.0], atol=1e-9)
+
+
+def test_a_level_search_turns_the_sections_once_and_finds_the_same_levels(monkeypatch):
+    """A level search turns the sections into each heel once per chunk of cases and keeps them for
+    every later step (body._LevelCuts); the levels are bit for bit those found when the sections
+    are turned again at every step (the same operations on the same values), and each holds its
+    volume (∇(c) = target to the search's 1e-11 relative tolerance).  A V-bottomed hull of 9
+    stations, 1200 cases (heels 0–60° to either side, 20–80 % of the volume): several chunks."""
+    import deckload.core.geometry.body as body_mod
+
+    xs = np.linspace(0.0, L, 9)
+    wl = np.array([0.0, 0.5, 1.5, D])
+    half = np.array([[0.5, 3.0, 4.5, 5.0]] * 9) * np.linspace(0.6, 1.0, 9)[:, None]
+    body = Body(xs, *hull_sections(HullOffsets(xs, wl, half, np.full(9, D))))
+    heels = np.radians(np.linspace(-60.0, 60.0, 40))[:, None] * np.ones((1, 30))
+    full = float(volume_and_area(body, 1.0, 0.0, 10.0 * D)[0])
+    target = full * np.linspace(0.2, 0.8, 30)[None, :] * np.ones((40, 1))
+
+    calls = []
+    turn = body_mod.heeled_edges
+    monkeypatch.setattr(body_mod, "heeled_edges", lambda *a: calls.append(1) or turn(*a))
+    kept = level_for_volume(body, np.cos(heels), np.sin(heels), target, S, XREF)
+    chunks = -(-1200 // max(1, body_mod._CHUNK_ELEMENTS // body.y_m.size))
+    assert chunks > 1 and len(calls) == chunks
+
+    calls.clear()
+    monkeypatch.setattr(body_mod, "_KEEP_TURNED_ELEMENTS", 0)
+    again = level_for_volume(body, np.cos(heels), np.sin(heels), target, S, XREF)
+    assert len(calls) > 3 * chunks  # turned again at every step
+    assert np.array_equal(kept, again)
+    vol, _ = volume_and_area(body, np.cos(heels), np.sin(heels), kept, S, XREF)
+    np.testing.assert_allclose(vol, target, rtol=1e-10)

@@ -123,6 +123,56 @@ def cut_sections(
     return SectionCut(area, q_eta, q_zeta, chord, m1, m2)
 
 
+@dataclass(frozen=True, eq=False)
+class HeeledEdges:
+    """Every section edge in the heeled frame of its case, (η, ζ) from start a to end b.
+
+    What cutting at any level shares: a search for the level at one heel turns the sections
+    into that heel once (:func:`heeled_edges`) and then cuts them at each trial level
+    (:func:`area_chord_below`), instead of turning them again at every step."""
+
+    e0: np.ndarray
+    z0: np.ndarray
+    e1: np.ndarray
+    z1: np.ndarray
+    de: np.ndarray
+    """e1 − e0."""
+    dz_safe: np.ndarray
+    """z1 − z0, with 1 where the edge is level (it never crosses a level: no division by 0)."""
+    rising: np.ndarray
+    """sign(z1 − z0): +1 for an edge going up, −1 going down, 0 level."""
+
+
+def heeled_edges(y: np.ndarray, z: np.ndarray, cos_t: np.ndarray | float, sin_t: np.ndarray | float) -> HeeledEdges:
+    """The edges of section polygons ``y``, ``z`` (..., V) turned into heel (cos_t, sin_t) (...):
+    η = y·cosθ + z·sinθ, ζ = z·cosθ − y·sinθ (module docstring)."""
+    ct = np.asarray(cos_t, dtype=float)[..., None]
+    st = np.asarray(sin_t, dtype=float)[..., None]
+    e0 = y * ct + z * st
+    z0 = z * ct - y * st
+    e1 = np.roll(e0, -1, axis=-1)
+    z1 = np.roll(z0, -1, axis=-1)
+    dz = z1 - z0
+    return HeeledEdges(e0, z0, e1, z1, e1 - e0, np.where(dz == 0.0, 1.0, dz), np.sign(dz))
+
+
+def area_chord_below(edges: HeeledEdges, c: np.ndarray | float) -> tuple[np.ndarray, np.ndarray]:
+    """Submerged area and waterline chord of turned sections below the level ζ = c, as
+    :func:`cut_sections` computes them (the same operations on the same values)."""
+    cc = np.asarray(c, dtype=float)[..., None]
+    e0, z0, e1, z1 = edges.e0, edges.z0, edges.e1, edges.z1
+    in0 = z0 <= cc
+    in1 = z1 <= cc
+    t = (cc - z0) / edges.dz_safe
+    ex = e0 + t * edges.de
+    ea = np.where(in0, e0, ex)
+    eb = np.where(in1, e1, ex)
+    d = np.where(in0 | in1, np.where(in1, z1, cc) - np.where(in0, z0, cc), 0.0)
+    area = np.sum(d * (ea + eb), axis=-1) * 0.5
+    chord = np.sum(np.where(in0 != in1, edges.rising * ex, 0.0), axis=-1)
+    return area, chord
+
+
 def cut_area_chord(
     y: np.ndarray,
     z: np.ndarray,
@@ -134,24 +184,7 @@ def cut_area_chord(
 
     What the search for a level needs (volume and its derivative, the waterplane area),
     at about half the work of the full set of moments."""
-    ct = np.asarray(cos_t, dtype=float)[..., None]
-    st = np.asarray(sin_t, dtype=float)[..., None]
-    cc = np.asarray(c, dtype=float)[..., None]
-    e0 = y * ct + z * st
-    z0 = z * ct - y * st
-    e1 = np.roll(e0, -1, axis=-1)
-    z1 = np.roll(z0, -1, axis=-1)
-    in0 = z0 <= cc
-    in1 = z1 <= cc
-    dz = z1 - z0
-    t = (cc - z0) / np.where(dz == 0.0, 1.0, dz)
-    ex = e0 + t * (e1 - e0)
-    ea = np.where(in0, e0, ex)
-    eb = np.where(in1, e1, ex)
-    d = np.where(in0 | in1, np.where(in1, z1, cc) - np.where(in0, z0, cc), 0.0)
-    area = np.sum(d * (ea + eb), axis=-1) * 0.5
-    chord = np.sum(np.where(in0 != in1, np.sign(dz) * ex, 0.0), axis=-1)
-    return area, chord
+    return area_chord_below(heeled_edges(y, z, cos_t, sin_t), c)
 
 
 def clip_polygon(y: np.ndarray, z: np.ndarray, ny: float, nz: float, c: float) -> tuple[np.ndarray, np.ndarray]:
