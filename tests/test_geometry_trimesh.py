@@ -20,9 +20,7 @@ from __future__ import annotations
 import numpy as np
 import pytest
 
-trimesh = pytest.importorskip("trimesh")  # test dependency (pyproject [test])
-
-from tests.benchmarks.bench_tables import (  # noqa: E402
+from tests.benchmarks.bench_tables import (
     GEOMETRY,
     compartment_mesh,
     hull_mesh,
@@ -30,10 +28,18 @@ from tests.benchmarks.bench_tables import (  # noqa: E402
     ref_kn,
     ref_tank,
 )
-from deckload.core.geometry.builder import hull_body, tank_tables  # noqa: E402
-from deckload.core.geometry.cross_curves import cross_curves  # noqa: E402
-from deckload.core.geometry.hydrostatics_calc import upright_hydrostatics  # noqa: E402
-from deckload.io.geometry_files import load_geometry  # noqa: E402
+from deckload.core.geometry.builder import hull_body, tank_tables
+from deckload.core.geometry.cross_curves import cross_curves
+from deckload.core.geometry.hydrostatics_calc import upright_hydrostatics
+from deckload.io.geometry_files import load_geometry
+
+
+@pytest.fixture(scope="module", autouse=True)
+def _trimesh():
+    """trimesh is a test dependency (pyproject [test]); every test here needs it.  Imported when
+    the first test runs, not at collection: only the worker that runs this file pays its import
+    (about 0.4 s), not every worker."""
+    pytest.importorskip("trimesh")
 
 
 def tol(ref: float, pct: float, cap: float | None = None) -> float:
