@@ -38,8 +38,12 @@ from vessel_factories import BARGE_B, BARGE_D, BARGE_L, RHO_SW, box_barge
 from demo_vessels import demo_vessel
 
 L, B, D = BARGE_L, BARGE_B, BARGE_D
-spatial = pytest.importorskip("scipy.spatial")
-optimize = pytest.importorskip("scipy.optimize")
+
+
+def scipy_part(name: str):
+    """scipy.spatial or scipy.optimize (test dependencies, the general-purpose references here),
+    imported by the test that uses it, not while every worker collects (about 0.3 s each)."""
+    return pytest.importorskip(f"scipy.{name}")
 
 
 def box_body(stations: int = 41) -> Body:
@@ -64,7 +68,7 @@ def clipped(u: np.ndarray, h: float) -> tuple[float, np.ndarray]:
             t = s[i] / (s[i] - s[j])
             pts.append(_CORNERS[i] + t * (_CORNERS[j] - _CORNERS[i]))
     p = np.array(pts)
-    hull = spatial.ConvexHull(p)
+    hull = scipy_part("spatial").ConvexHull(p)
     inner = p.mean(axis=0)
     vol = 0.0
     mom = np.zeros(3)
@@ -88,7 +92,7 @@ def exact_free_trim(volume_m3: float, heel_deg: float, x_g: float, z_g: float):
     def level(psi: float) -> tuple[float, np.ndarray]:
         u = up(psi)
         lo, hi = float(np.min(_CORNERS @ u)), float(np.max(_CORNERS @ u))
-        h = optimize.brentq(lambda c: clipped(u, c)[0] - volume_m3, lo + 1e-12, hi - 1e-12, xtol=1e-12)
+        h = scipy_part("optimize").brentq(lambda c: clipped(u, c)[0] - volume_m3, lo + 1e-12, hi - 1e-12, xtol=1e-12)
         return h, clipped(u, h)[1]
 
     def resid(psi: float) -> float:
@@ -96,7 +100,7 @@ def exact_free_trim(volume_m3: float, heel_deg: float, x_g: float, z_g: float):
         f = np.array([math.cos(psi), math.sin(psi) * math.sin(th), -math.sin(psi) * math.cos(th)])
         return float(np.dot(b - np.array([x_g, 0.0, z_g]), f))
 
-    psi = optimize.brentq(resid, -0.2, 0.2, xtol=1e-12)
+    psi = scipy_part("optimize").brentq(resid, -0.2, 0.2, xtol=1e-12)
     h, b = level(psi)
     return float(b[1] * math.cos(th) + b[2] * math.sin(th)), psi, h
 
@@ -149,7 +153,7 @@ def test_list_and_drafts_at_a_large_list():
         return exact_free_trim(DISP / RHO_SW, deg, LCG, KG)[0] - KG * math.sin(math.radians(deg)) \
             - tcg * math.cos(math.radians(deg))
 
-    phi = optimize.brentq(gz, 5.0, 40.0, xtol=1e-6)
+    phi = scipy_part("optimize").brentq(gz, 5.0, 40.0, xtol=1e-6)
     assert phi > 21.8  # beyond deck-edge immersion (checks.md §1.1): no wall-sided shortcut
     assert d.list_deg == pytest.approx(phi, abs=0.1)
     _, psi, h = exact_free_trim(DISP / RHO_SW, d.list_deg, LCG, KG)
@@ -181,8 +185,8 @@ def test_more_than_the_hull_holds_is_refused():
 
 
 def _demo(key: str = "departure"):
-    from deckload.io.paths import DEMO_CONDITIONS, DEMO_PROFILE
-    from deckload.io.profiles import load_condition, load_profile
+    from deckload.io.paths import DEMO_CONDITIONS
+    from deckload.io.profiles import load_condition
 
     v = demo_vessel()
     c = load_condition(DEMO_CONDITIONS[key], v)
