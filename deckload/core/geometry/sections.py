@@ -77,52 +77,6 @@ def polygon_edges(y: np.ndarray, z: np.ndarray) -> tuple[np.ndarray, np.ndarray,
     return y, z, np.roll(y, -1, axis=-1), np.roll(z, -1, axis=-1)
 
 
-def cut_sections(
-    y: np.ndarray,
-    z: np.ndarray,
-    cos_t: np.ndarray | float,
-    sin_t: np.ndarray | float,
-    c: np.ndarray | float,
-) -> SectionCut:
-    """Clip counter-clockwise section polygons to the water side ζ ≤ c and integrate.
-
-    ``y``, ``z``: vertices, shape (..., V); polygons with fewer vertices are padded
-    by repeating their last vertex (a zero-length edge adds nothing).
-    ``cos_t``, ``sin_t``, ``c`` broadcast against the leading shape (...).
-    Formulas in the module docstring.
-    """
-    ct = np.asarray(cos_t, dtype=float)[..., None]
-    st = np.asarray(sin_t, dtype=float)[..., None]
-    cc = np.asarray(c, dtype=float)[..., None]
-    eta = y * ct + z * st
-    zeta = z * ct - y * st
-    e0, z0 = eta, zeta
-    e1, z1 = np.roll(eta, -1, axis=-1), np.roll(zeta, -1, axis=-1)
-    in0 = z0 <= cc
-    in1 = z1 <= cc
-    dz = z1 - z0
-    safe = np.where(dz == 0.0, 1.0, dz)
-    t = (cc - z0) / safe
-    ex = e0 + t * (e1 - e0)  # crossing point (meaningful only where in0 != in1)
-    cross = in0 != in1
-    # clipped segment a -> b
-    ea = np.where(in0, e0, ex)
-    za = np.where(in0, z0, cc)
-    eb = np.where(in1, e1, ex)
-    zb = np.where(in1, z1, cc)
-    keep = in0 | in1
-    d = np.where(keep, zb - za, 0.0)
-    area = np.sum(d * (ea + eb), axis=-1) * 0.5
-    q_eta = np.sum(d * (ea * ea + ea * eb + eb * eb), axis=-1) / 6.0
-    q_zeta = np.sum(d * (2.0 * ea * za + ea * zb + eb * za + 2.0 * eb * zb), axis=-1) / 6.0
-    s = np.where(cross, np.sign(dz), 0.0)
-    exs = np.where(cross, ex, 0.0)
-    chord = np.sum(s * exs, axis=-1)
-    m1 = np.sum(s * exs * exs, axis=-1) * 0.5
-    m2 = np.sum(s * exs * exs * exs, axis=-1) / 3.0
-    return SectionCut(area, q_eta, q_zeta, chord, m1, m2)
-
-
 @dataclass(frozen=True, eq=False)
 class HeeledEdges:
     """Every section edge in the heeled frame of its case, (η, ζ) from start a to end b.
@@ -154,6 +108,46 @@ def heeled_edges(y: np.ndarray, z: np.ndarray, cos_t: np.ndarray | float, sin_t:
     z1 = np.roll(z0, -1, axis=-1)
     dz = z1 - z0
     return HeeledEdges(e0, z0, e1, z1, e1 - e0, np.where(dz == 0.0, 1.0, dz), np.sign(dz))
+
+
+def cut_sections(
+    y: np.ndarray,
+    z: np.ndarray,
+    cos_t: np.ndarray | float,
+    sin_t: np.ndarray | float,
+    c: np.ndarray | float,
+) -> SectionCut:
+    """Clip counter-clockwise section polygons to the water side ζ ≤ c and integrate.
+
+    ``y``, ``z``: vertices, shape (..., V); polygons with fewer vertices are padded
+    by repeating their last vertex (a zero-length edge adds nothing).
+    ``cos_t``, ``sin_t``, ``c`` broadcast against the leading shape (...).
+    Formulas in the module docstring.
+    """
+    edges = heeled_edges(y, z, cos_t, sin_t)
+    e0, z0, e1, z1 = edges.e0, edges.z0, edges.e1, edges.z1
+    cc = np.asarray(c, dtype=float)[..., None]
+    in0 = z0 <= cc
+    in1 = z1 <= cc
+    t = (cc - z0) / edges.dz_safe
+    ex = e0 + t * edges.de  # crossing point (meaningful only where in0 != in1)
+    cross = in0 != in1
+    # clipped segment a -> b
+    ea = np.where(in0, e0, ex)
+    za = np.where(in0, z0, cc)
+    eb = np.where(in1, e1, ex)
+    zb = np.where(in1, z1, cc)
+    keep = in0 | in1
+    d = np.where(keep, zb - za, 0.0)
+    area = np.sum(d * (ea + eb), axis=-1) * 0.5
+    q_eta = np.sum(d * (ea * ea + ea * eb + eb * eb), axis=-1) / 6.0
+    q_zeta = np.sum(d * (2.0 * ea * za + ea * zb + eb * za + 2.0 * eb * zb), axis=-1) / 6.0
+    s = np.where(cross, edges.rising, 0.0)
+    exs = np.where(cross, ex, 0.0)
+    chord = np.sum(s * exs, axis=-1)
+    m1 = np.sum(s * exs * exs, axis=-1) * 0.5
+    m2 = np.sum(s * exs * exs * exs, axis=-1) / 3.0
+    return SectionCut(area, q_eta, q_zeta, chord, m1, m2)
 
 
 def area_chord_below(edges: HeeledEdges, c: np.ndarray | float) -> tuple[np.ndarray, np.ndarray]:
