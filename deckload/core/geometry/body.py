@@ -150,7 +150,8 @@ class _LevelCuts:
     The same sums as :func:`immerse` for those two quantities.  The sections are turned into
     each heel once per chunk of cases (:func:`~deckload.core.geometry.sections.heeled_edges`) and
     kept for the next level, up to :data:`_KEEP_TURNED_ELEMENTS` vertices in all (beyond that they
-    are turned again at each call, with the same result): a third less work a step."""
+    are turned again at each call, with the same result): about a third fewer array operations
+    a step (the demo's geometry → tables 1.77 → 1.55 s of CPU)."""
 
     def __init__(self, body: Body, cos_t, sin_t, t, x_ref_m: float) -> None:
         cos_t, sin_t, t = np.broadcast_arrays(
