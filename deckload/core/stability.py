@@ -390,7 +390,7 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
         kg_fluid_m=kg_fluid, gm_fluid_m=gm_fluid, heel_deg=curve.heel_deg, gz_lee_m=gz,
         gz_other_m=curve.gz_other_m, flood_deg=flood, deck_edge_deg=deck_edge,
         measures=measures, max_gz_m=f.max_gz_m, vanishing_deg=f.vanishing_angle_deg,
-        equilibrium_deg=f.equilibrium_deg, has_deck_cargo=bool(condition.deck_items),
+        equilibrium_deg=f.equilibrium_deg,
         deck_windage=tuple((d.windage_area_m2, d.windage_centroid_z_m) for d in condition.deck_items
                            if d.windage_area_m2 is not None and d.windage_centroid_z_m is not None),
         deck_items_without_windage=tuple(d.name for d in condition.deck_items

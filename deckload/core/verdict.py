@@ -78,7 +78,6 @@ class Afloat:
     vanishing_deg: float | None
     equilibrium_deg: float
     """Heel of equilibrium on the checked side (≥ 0)."""
-    has_deck_cargo: bool = False
     deck_windage: tuple[tuple[float, float], ...] = ()
     """(lateral area m², height of its centre above the keel m) of each deck item that states it."""
     deck_items_without_windage: tuple[str, ...] = ()
