@@ -78,7 +78,8 @@ def test_liquid_mud_of_a_supply_vessel_is_a_density_not_a_typing_error(demo, tmp
     assert _tank(evaluate(v, c3), "DB1P").mass_t == pytest.approx(24.0, rel=1e-15)
     again = parse_condition(dump_condition(c3), "mud.condition.toml", v)
     assert again.tank_fill("DB1P") == TankFill("DB1P", "volume_m3", 10.0, 2.4)
-    entry.set_tank_density(c, v.tank("DB1P"), "2.5")  # the highest accepted, itself accepted
+    top = entry.set_tank_density(c, v.tank("DB1P"), "2.5")  # the highest accepted, itself accepted
+    assert top.tank_fill("DB1P").density_t_m3 == 2.5
 
 
 def test_an_empty_tank_keeps_a_stated_density_for_what_is_put_in(demo):

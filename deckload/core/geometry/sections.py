@@ -102,10 +102,7 @@ def heeled_edges(y: np.ndarray, z: np.ndarray, cos_t: np.ndarray | float, sin_t:
     η = y·cosθ + z·sinθ, ζ = z·cosθ − y·sinθ (module docstring)."""
     ct = np.asarray(cos_t, dtype=float)[..., None]
     st = np.asarray(sin_t, dtype=float)[..., None]
-    e0 = y * ct + z * st
-    z0 = z * ct - y * st
-    e1 = np.roll(e0, -1, axis=-1)
-    z1 = np.roll(z0, -1, axis=-1)
+    e0, z0, e1, z1 = polygon_edges(y * ct + z * st, z * ct - y * st)
     dz = z1 - z0
     return HeeledEdges(e0, z0, e1, z1, e1 - e0, np.where(dz == 0.0, 1.0, dz), np.sign(dz))
 
@@ -125,20 +122,7 @@ def cut_sections(
     Formulas in the module docstring.
     """
     edges = heeled_edges(y, z, cos_t, sin_t)
-    e0, z0, e1, z1 = edges.e0, edges.z0, edges.e1, edges.z1
-    cc = np.asarray(c, dtype=float)[..., None]
-    in0 = z0 <= cc
-    in1 = z1 <= cc
-    t = (cc - z0) / edges.dz_safe
-    ex = e0 + t * edges.de  # crossing point (meaningful only where in0 != in1)
-    cross = in0 != in1
-    # clipped segment a -> b
-    ea = np.where(in0, e0, ex)
-    za = np.where(in0, z0, cc)
-    eb = np.where(in1, e1, ex)
-    zb = np.where(in1, z1, cc)
-    keep = in0 | in1
-    d = np.where(keep, zb - za, 0.0)
+    cross, ex, ea, za, eb, zb, d = _clipped_edges(edges, c)
     area = np.sum(d * (ea + eb), axis=-1) * 0.5
     q_eta = np.sum(d * (ea * ea + ea * eb + eb * eb), axis=-1) / 6.0
     q_zeta = np.sum(d * (2.0 * ea * za + ea * zb + eb * za + 2.0 * eb * zb), axis=-1) / 6.0
@@ -153,18 +137,28 @@ def cut_sections(
 def area_chord_below(edges: HeeledEdges, c: np.ndarray | float) -> tuple[np.ndarray, np.ndarray]:
     """Submerged area and waterline chord of turned sections below the level ζ = c, as
     :func:`cut_sections` computes them (the same operations on the same values)."""
+    cross, ex, ea, _, eb, _, d = _clipped_edges(edges, c)
+    area = np.sum(d * (ea + eb), axis=-1) * 0.5
+    chord = np.sum(np.where(cross, edges.rising * ex, 0.0), axis=-1)
+    return area, chord
+
+
+def _clipped_edges(edges: HeeledEdges, c: np.ndarray | float):
+    """Each edge clipped on its own to the water side ζ ≤ c (module docstring): whether it crosses
+    the level, the crossing's η, the clipped segment's ends a → b (η, ζ) and its Δζ (0 for an edge
+    wholly above the water)."""
     cc = np.asarray(c, dtype=float)[..., None]
     e0, z0, e1, z1 = edges.e0, edges.z0, edges.e1, edges.z1
     in0 = z0 <= cc
     in1 = z1 <= cc
     t = (cc - z0) / edges.dz_safe
-    ex = e0 + t * edges.de
+    ex = e0 + t * edges.de  # crossing point (meaningful only where in0 != in1)
     ea = np.where(in0, e0, ex)
+    za = np.where(in0, z0, cc)
     eb = np.where(in1, e1, ex)
-    d = np.where(in0 | in1, np.where(in1, z1, cc) - np.where(in0, z0, cc), 0.0)
-    area = np.sum(d * (ea + eb), axis=-1) * 0.5
-    chord = np.sum(np.where(in0 != in1, edges.rising * ex, 0.0), axis=-1)
-    return area, chord
+    zb = np.where(in1, z1, cc)
+    d = np.where(in0 | in1, zb - za, 0.0)
+    return in0 != in1, ex, ea, za, eb, zb, d
 
 
 def cut_area_chord(
