@@ -80,3 +80,68 @@ async def test_a_nudge_repaints_only_the_lines_it_changed(app):
         assert rows_asked == rows_changed
         kept = [i for i in board_strips if i not in rows_changed]
         assert kept and all(board._strips.get(i) is board_strips[i] for i in kept)
+
+
+@pytest.mark.parametrize("size", [(120, 40), (80, 24), (160, 50)])
+async def test_the_first_frame_drawn_is_the_whole_screen(app, monkeypatch, size):
+    """textual draws a layout's frame before it sends the widgets their Resize event, so panels that
+    built their lines only on that event were empty in the first frame, and the criteria panel took
+    its height one layout later.  The first frame drawn of the loading screen must already be the
+    screen as it settles: every line of the board and the panels, and the criteria/curve split.
+    Two things may still come a frame later, as before: the board's scroll bar thumb (textual
+    decides to show a scroll bar after the layout that sized the board) and the message line, which
+    turns from the start-up hint to the line the cursor rests on."""
+    from textual.app import App
+
+    frames: list[list[str]] = []
+    display = App._display
+
+    def spy(self, screen, renderable):
+        display(self, screen, renderable)
+        if renderable is not None and screen is getattr(self, "loading_screen", None):
+            frames.append([strip.text for strip in screen._compositor.render_strips()])
+
+    monkeypatch.setattr(App, "_display", spy)
+    async with app.run_test(size=size) as pilot:
+        for _ in range(4):
+            await pilot.pause()
+        screen = app.loading_screen
+        final = [strip.text for strip in screen._compositor.render_strips()]
+        board = screen.query_one(LoadBoard)
+        thumb_x = board.region.right - 2  # the gutter, left of the board's right border
+        status_y = screen.query_one("#status").region.y
+        first = frames[0]
+        assert len(first) == len(final) == size[1]
+        for y, (a, b) in enumerate(zip(first, final)):
+            if y == status_y:
+                continue
+            assert [x for x, (p, q) in enumerate(zip(a, b)) if p != q] in ([], [thumb_x]), (y, a, b)
+        assert any(line.strip() for line in first[board.region.y:board.region.bottom])
+        criteria = screen.query_one("#criteria", LinePanel)
+        if size[0] >= 110:  # wide: the criteria panel exactly as tall as its lines, the curve below
+            assert criteria.size.height == len(criteria.lines) > 4
+            assert screen.query_one("#gz").size.height >= 10
+
+
+async def test_the_criteria_panel_follows_its_number_of_lines(app):
+    """Wide: the criteria panel is as tall as the verdict's lines (CSS height auto, the screen
+    says how many); a result with another number of lines lays the side panel out again."""
+    from deckload.ui.verdict import criteria_lines
+
+    async with app.run_test(size=(160, 50)) as pilot:
+        await pilot.pause()
+        screen = app.loading_screen
+        criteria, gz = screen.query_one("#criteria", LinePanel), screen.query_one("#gz")
+        side = screen.query_one("#side")
+        before = criteria.size.height
+        assert before == len(criteria.lines)
+        other = load_condition(paths.DEMO_CONDITIONS["midvoyage"], app.session.vessel)
+        screen.commit(other, "midvoyage loaded")
+        for _ in range(3):
+            await pilot.pause()
+        r = app.session.result
+        want = criteria_lines(r, False, side.size.width, side.size.height - 11 - 10)
+        assert len(want) != before  # this pair of demo conditions differs in the count of lines
+        assert criteria.size.height == len(criteria.lines) == len(want)
+        assert [t.plain for t in criteria.lines] == [t.plain for t in want]
+        assert criteria.size.height + gz.size.height + 11 == side.size.height

@@ -74,6 +74,8 @@ class LoadingScreen(Screen[None]):
                                          after_frame=self.call_after_refresh)
         self.set_interval(0.5, self.session.release_writes)
         self.query_one(LoadBoard).focus()
+        # Before the first layout, so that the first frame drawn is laid out for this width.
+        self.set_class(self.app.size.width < NARROW_BELOW, "-narrow")
         self.refresh_view()
         self.query_one("#keys", SizedPanel).show(lambda w, h: [self._key_line(w)])
         self.say("⏎ type an amount · + − nudge · t transfer · n name · p print · x plan · ? all keys", ok=None)
@@ -81,7 +83,6 @@ class LoadingScreen(Screen[None]):
     def on_resize(self, event) -> None:
         self.set_class(event.size.width < NARROW_BELOW, "-narrow")
         self.refresh_bindings()
-        self.call_after_refresh(self._size_criteria, self.session.result, self.session.stale)
 
     def _key_line(self, width: int) -> Text:
         """The footer: the commands' keys that fit, ? (every key) and q always (ui/commands.footer_keys)."""
@@ -112,8 +113,13 @@ class LoadingScreen(Screen[None]):
         alerts = views.alerts(r, stale, s.problem)
         self.query_one("#alerts", SizedPanel).show(lambda w, h: alert_lines(alerts, h, w))
         self.query_one("#afloat", SizedPanel).show(lambda w, h: views.afloat_lines(v, c, r, stale, w))
-        self._size_criteria(r, stale)
-        self.query_one("#criteria", SizedPanel).show(lambda w, h: self._criteria_lines(r, stale, w, h))
+        criteria = self.query_one("#criteria", SizedPanel)
+        criteria.show(lambda w, h: self._criteria_lines(r, stale, w, h),
+                      rows_for=lambda w, room: len(self._wide_criteria(r, stale, w, room)))
+        side = self.query_one("#side")
+        if (not self.has_class("-narrow") and side.size.height
+                and len(self._wide_criteria(r, stale, side.size.width, side.size.height)) != criteria.size.height):
+            criteria.refresh(layout=True)  # this result's criteria take more or fewer lines
         self.query_one("#gz", SizedPanel).show(lambda w, h: self._curve_lines(r, stale, w, h))
         self.query_one("#titlebar", SizedPanel).show(lambda w, h: [self._title(w)])
 
@@ -127,28 +133,27 @@ class LoadingScreen(Screen[None]):
         head = gz_title_lines(r, w)  # every fact of the title, on two lines where one is too short
         return [*head, *views.gz_chart(r, stale, w - 1, h - len(head)).lines()]
 
-    def _size_criteria(self, r, stale: bool) -> None:
-        """Wide: the criteria panel as tall as its lines (the curve keeps MIN_CURVE_ROWS); narrow: the rest."""
-        panel = self.query_one("#criteria", SizedPanel)
-        side = self.query_one("#side")
-        if self.has_class("-narrow") or side.size.height == 0:
-            want = "1fr"
-        else:
-            room = max(4, side.size.height - self.query_one("#afloat").outer_size.height - MIN_CURVE_ROWS)
-            lines = verdict.criteria_lines(r, stale, max(1, side.size.width), room)
-            # The panel is made exactly that tall: what it shows at that height is these lines.
-            self._criteria_made = (r, stale, max(1, side.size.width), len(lines), lines)
-            want = str(len(lines))
-        if str(panel.styles.height) != want and not (want == "1fr" and str(panel.styles.height) == "1fr"):
-            panel.styles.height = want
-
     def _criteria_lines(self, r, stale: bool, w: int, h: int) -> list[Text]:
-        """The criteria panel's lines; those :meth:`_size_criteria` just made for this result and size
-        are taken as they are (the panel's lines are otherwise built twice a key)."""
+        """The criteria panel's lines at its size: wide, those :meth:`_wide_criteria` gives for the
+        side panel's height (the panel is as tall as they are); narrow, those that fit ``h``."""
+        if self.has_class("-narrow"):
+            return verdict.criteria_lines(r, stale, w, h)
+        return self._wide_criteria(r, stale, w, self.query_one("#side").size.height)
+
+    def _wide_criteria(self, r, stale: bool, width: int, side_rows: int) -> list[Text]:
+        """Wide screen: the criteria lines at ``width`` in a side panel ``side_rows`` tall, fitted
+        to what the 'Afloat' numbers and MIN_CURVE_ROWS of curve leave.  The layout asks for their
+        number (the panel's CSS height is auto) and the panel then draws them: the lines last made are
+        kept, so that the count and the drawing share one build."""
+        afloat = self.query_one("#afloat").styles.height  # fixed in deckload.tcss
+        room = max(4, side_rows - (int(afloat.value) if afloat is not None and afloat.is_cells else 0)
+                   - MIN_CURVE_ROWS)
         made = self._criteria_made
-        if made is not None and made[0] is r and made[1:4] == (stale, w, h):
+        if made is not None and made[0] is r and made[1:4] == (stale, width, room):
             return made[4]
-        return verdict.criteria_lines(r, stale, w, h)
+        lines = verdict.criteria_lines(r, stale, max(1, width), room)
+        self._criteria_made = (r, stale, width, room, lines)
+        return lines
 
     def _title(self, width: int) -> Text:
         """Vessel, condition, whether changes are logged, undo depth.  Shortened step by step until

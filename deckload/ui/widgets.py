@@ -202,24 +202,48 @@ class LinePanel(Widget):
 
 
 class SizedPanel(LinePanel):
-    """A panel whose lines depend on its size: the owner gives a builder ``(width, height) -> lines``."""
+    """A panel whose lines depend on its size: the owner gives a builder ``(width, height) -> lines``
+    and, for a panel whose CSS height is ``auto``, how many lines it takes: ``(width, room) -> rows``
+    at a width, in a container ``room`` rows tall."""
 
     def __init__(self, *, id: str | None = None, classes: str | None = None):
         super().__init__(id=id, classes=classes)
         self._builder = None
+        self._rows_for = None
+        self._built_for: Size | None = None
+        """The size the lines were last built at."""
 
-    def show(self, builder) -> None:
-        self._builder = builder
+    def show(self, builder, rows_for=None) -> None:
+        self._builder, self._rows_for = builder, rows_for
         self._redraw()
+
+    def get_content_height(self, container: Size, viewport: Size, width: int) -> int:
+        # Asked by the layout (CSS height auto) before the panel is drawn at its new size.
+        if self._rows_for is not None:
+            return self._rows_for(width, container.height)
+        return len(self._lines)
 
     def on_resize(self) -> None:
-        self._strips.clear()
-        self._redraw()
+        if self._built_for != self.size:
+            self._strips.clear()
+            self._redraw()
 
     def _redraw(self) -> None:
         w, h = self.size.width, self.size.height
         if self._builder is not None and w > 0 and h > 0:
+            self._built_for = self.size
             self.set_lines(self._builder(w, h))
+
+    def render_lines(self, crop: Region) -> list[Strip]:
+        # textual draws a layout before it tells the widgets their new size (the Resize event
+        # comes after the frame): the lines are built here, at the size being drawn, so that the
+        # first frame after a layout already holds them.
+        size = self.size
+        if self._builder is not None and self._built_for != size and size.width > 0 and size.height > 0:
+            self._built_for = size
+            self._lines = self._builder(size.width, size.height)
+            self._strips.clear()
+        return super().render_lines(crop)
 
 
 class LoadBoard(ScrollView, can_focus=True):
@@ -250,9 +274,9 @@ class LoadBoard(ScrollView, can_focus=True):
         self._data: tuple | None = None
         self._width = 0
         self._styles: tuple[Style, Style, bool] | None = None
+        """(own style, cursor style, focused) read once per render pass; the cached lines were made with them."""
         self._place: tuple[int, int] | None = None
         """(first line shown, width) during a render pass."""
-        """(own style, cursor style, focused) read once per render pass; the cached lines were made with them."""
 
     @property
     def cursor_key(self) -> tuple | None:
@@ -275,17 +299,27 @@ class LoadBoard(ScrollView, can_focus=True):
         if self.scrollable_content_region.width != self._width:
             self._rebuild()
 
-    def _rebuild(self) -> None:
-        if self._data is None or self.scrollable_content_region.width == 0:
-            return  # not laid out yet: on_resize builds it at the real width
+    def _rebuild(self, repaint: bool = True) -> None:
+        """Build the lines at the board's width.  Before the first layout (no width yet) they are
+        built at the narrowest width: their number sizes the scroll bar in that layout, and the
+        cursor is announced before it; the first render builds them at its width (``repaint``
+        False: the render under way draws them)."""
+        if self._data is None:
+            return
         key = self.cursor_key
-        width = max(40, self.scrollable_content_region.width)
+        shown = self.scrollable_content_region.width
+        width = max(40, shown)
         old, self.rows = self.rows, views.board_rows(*self._data, width=width)
-        if width != self._width or len(old) != len(self.rows):
-            self._width = width
+        if not shown or width != self._width or len(old) != len(self.rows):
+            self._width = width if shown else 0
             self._strips.clear()
-            self.virtual_size = Size(width, len(self.rows))
-            self.refresh()
+            # The scroll bars need the count of lines, and a width only where the lines are wider
+            # than the board (a horizontal bar); an unchanged virtual size lays nothing out again.
+            virtual = Size(width if width > shown else 0, len(self.rows))
+            if virtual != self.virtual_size:
+                self.virtual_size = virtual
+            if repaint:
+                self.refresh()
         else:  # repaint only the lines that changed
             self._refresh_rows(i for i, (a, b) in enumerate(zip(old, self.rows)) if a != b)
         if not (key is not None and self.select(key, announce=False)):
@@ -330,6 +364,8 @@ class LoadBoard(ScrollView, can_focus=True):
             self.post_message(self.CursorMoved(self.cursor_key))
 
     def render_lines(self, crop: Region) -> list[Strip]:
+        if self._data is not None and self._width == 0 and self.scrollable_content_region.width:
+            self._rebuild(repaint=False)  # a layout's frame is drawn before its Resize event (see SizedPanel)
         styles = (self.rich_style, self.get_component_rich_style("board--cursor"), self.has_focus)
         if styles != self._styles:
             self._styles = styles

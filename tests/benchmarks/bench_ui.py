@@ -159,7 +159,8 @@ def _child(which: str, width: int, height: int, keys: int, out: str, spawned_at:
 
 def _laid_out(screen) -> bool:
     """True once every shown widget with an id (the app's own panels) has a size and the loading
-    board its lines (built at its real width, after the first layout): the frame holds the screen."""
+    board its lines (built at its real width when the layout's frame is drawn): the frame holds the
+    screen (``tests/test_ui_repaint.py`` checks that this is the first frame drawn)."""
     widgets = [w for w in screen.query("*") if w.display and w.id]
     boards_filled = all(getattr(w, "rows", None) for w in widgets if type(w).__name__ == "LoadBoard")
     return bool(widgets) and boards_filled and all(w.size.area > 0 for w in widgets)
