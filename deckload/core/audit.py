@@ -26,17 +26,17 @@ from __future__ import annotations
 
 import dataclasses
 import math
-from dataclasses import dataclass
 
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.core.model import Tank, Vessel
 
 ERROR = "error"
 WARNING = "warning"
 
 
-@dataclass(frozen=True)
+@frozen
 class Finding:
     """One suspicious number (or pair of numbers) in a profile."""
 

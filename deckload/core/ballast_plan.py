@@ -24,9 +24,9 @@ longer brings the goal nearer (greedy; common practice of search, not from a sta
 
 from __future__ import annotations
 
-from dataclasses import dataclass
 from typing import Callable, Sequence
 
+from deckload.core.frozen import frozen
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
 
@@ -41,7 +41,7 @@ MAX_STEPS = 40
 """Evaluations per bracketed pair at most (each is one full calculation)."""
 
 
-@dataclass(frozen=True)
+@frozen
 class Goal:
     quantity: str
     """``list`` (degrees, + starboard), ``trim`` (m, + by the stern) or ``gm`` (GM fluid, m, at least)."""
@@ -50,7 +50,7 @@ class Goal:
     """How close counts as reached (list in degrees, trim and GM in metres)."""
 
 
-@dataclass(frozen=True)
+@frozen
 class Proposal:
     from_id: str
     to_id: str
@@ -70,14 +70,14 @@ KEEP_LIST_DEG = 1.0
 ballast plan that trades a trim for a list is no plan (common practice: keep her upright)."""
 
 
-@dataclass(frozen=True)
+@frozen
 class Transfer:
     from_id: str
     to_id: str
     mass_t: float
 
 
-@dataclass(frozen=True)
+@frozen
 class Plan:
     """Transfers made in order; the condition and result after the last."""
 
@@ -89,7 +89,7 @@ class Plan:
     evaluations: int
 
 
-@dataclass(frozen=True)
+@frozen
 class NoPlan:
     """Why there is no plan: the nearest the allowed tanks come (``best``, after ``transfers``)."""
 

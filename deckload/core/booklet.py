@@ -20,16 +20,16 @@ Pure: no files; the booklet's numbers arrive as a mapping (see vessel_profiles/R
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
 
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.core.result import Result
 
 SOURCE = "standards.md §5.3 (MSC.1/Circ.1229; IACS UR L5 Table 1)"
 
 
-@dataclass(frozen=True)
+@frozen
 class Tolerance:
     """'pct % / linear max' (either may be None); ``of_breadth``: the % is of B, not of the value."""
 
@@ -101,7 +101,7 @@ ROUNDOFF = 1e-9
 """Floating-point allowance on a comparison exactly at the tolerance."""
 
 
-@dataclass(frozen=True)
+@frozen
 class Row:
     """One line of the side-by-side table."""
 

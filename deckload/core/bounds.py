@@ -34,10 +34,10 @@ from __future__ import annotations
 import dataclasses
 import functools
 import math
-from dataclasses import dataclass
 
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.core.model import Particulars, Vessel
 from deckload.core.tables import OutOfRangeError
 
@@ -66,7 +66,7 @@ LBP_RANGE_M = (1.0, 500.0)
 BEAM_DEPTH_RANGE_M = (0.2, 100.0)
 
 
-@dataclass(frozen=True)
+@frozen
 class Range:
     """An allowed closed interval with its unit and the reason, worded for a message."""
 

@@ -16,8 +16,8 @@ GM already corrected for free surface (standards.md §1):
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
 
+from deckload.core.frozen import frozen
 from deckload.core.result import CriterionResult
 
 RAD_TO_DEG = 180.0 / math.pi
@@ -33,7 +33,7 @@ def mdeg_to_mrad(area_mdeg: float) -> float:
     return area_mdeg / RAD_TO_DEG
 
 
-@dataclass(frozen=True)
+@frozen
 class Criterion:
     id: str
     description: str
@@ -138,7 +138,7 @@ SETS_BY_TYPE: dict[str, tuple[str, ...]] = {
 fishing and OSV sets take the place of Part A 2.2 (IS 2008 Part B 2.1, 2.4.5)."""
 
 
-@dataclass(frozen=True)
+@frozen
 class Measures:
     """The values the criteria are measured on, for one condition."""
 

@@ -7,8 +7,7 @@ one line, so the lines add up to ``result.deadweight_t`` (to the round-off of th
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-
+from deckload.core.frozen import frozen
 from deckload.core.result import Result
 
 DWT_LINES: tuple[tuple[str, str], ...] = (
@@ -28,7 +27,7 @@ _TANK_LINE = {"cargo_liquid": "cargo"}
 _ITEM_LINE = {"hold": "cargo", "deck": "cargo", "constant": "stores"}
 
 
-@dataclass(frozen=True)
+@frozen
 class DeadweightLine:
     kind: str
     title: str

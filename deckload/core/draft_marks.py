@@ -34,8 +34,8 @@ and procedures for draught surveys of coal cargoes, 1992 — from memory).
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
 
+from deckload.core.frozen import frozen
 from deckload.core.hydrostatics import draft_at, upright
 from deckload.core.model import DraftMarks, Vessel
 from deckload.core.tables import interp
@@ -50,7 +50,7 @@ class DraftMarksError(ValueError):
     """Readings that cannot be turned into a displacement (naming the reading and the rule)."""
 
 
-@dataclass(frozen=True)
+@frozen
 class MarkReadings:
     """Extreme drafts read at the marks (m), port and starboard, aft, midships and forward."""
 
@@ -65,7 +65,7 @@ class MarkReadings:
         return (self.aft_port_m, self.aft_stbd_m, self.mid_port_m, self.mid_stbd_m, self.fwd_port_m, self.fwd_stbd_m)
 
 
-@dataclass(frozen=True)
+@frozen
 class ComputedMarks:
     """What the marks should read for a computed condition."""
 
@@ -99,7 +99,7 @@ def marks_for(vessel: Vessel, draft_at_lcf_m: float, lcf_m: float, trim_m: float
     return ComputedMarks(MarkReadings(ap, as_, mp, ms, fp, fs), t_ap, t_fp, deepest)
 
 
-@dataclass(frozen=True)
+@frozen
 class ObservedCondition:
     """What six readings imply (module docstring); drafts moulded unless named extreme."""
 

@@ -25,11 +25,11 @@ A second method beside the tables, for profiles that carry the hull geometry
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
 
 import numpy as np
 
 from deckload.core import gz as gzmod
+from deckload.core.frozen import frozen
 from deckload.core.geometry.body import Body, immerse
 from deckload.core.geometry.cross_curves import NoEquilibriumError, solve_floating
 from deckload.core.tables import CubicSpline, OutOfRangeError
@@ -47,7 +47,7 @@ class DirectError(ValueError):
     """The hull cannot float as asked (more displacement than the hull holds, no equilibrium)."""
 
 
-@dataclass(frozen=True)
+@frozen
 class DirectState:
     """Equilibrium and GZ by integrating the hull; same units and signs as the Result."""
 
@@ -127,7 +127,7 @@ def direct_state(body: Body, lbp_m: float, displacement_t: float, water_density_
     )
 
 
-@dataclass(frozen=True)
+@frozen
 class Comparison:
     """The table method's result and the direct calculation side by side."""
 

@@ -27,11 +27,11 @@ Rule ``actual`` counts every slack tank at its actual level (B 3.1.6, liquid tra
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
 from functools import lru_cache
 
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.core.loading import TankContents
 from deckload.core.model import FluidTransfer, Tank, Vessel
 from deckload.core.tables import bracket, lerp_row
@@ -55,7 +55,7 @@ EXEMPT_RULE = "small tank, exempt (IS 2008 B 3.1.12)"
 """The rule text of a slack tank left out by the small-tank exemption."""
 
 
-@dataclass(frozen=True)
+@frozen
 class TankFreeSurface:
     """One tank's free-surface treatment in a condition."""
 

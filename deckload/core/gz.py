@@ -12,10 +12,10 @@ grid.
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
 
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.core.model import CrossCurves
 from deckload.core.tables import CubicSpline, OutOfRangeError, bracket, lerp_row
 
@@ -64,7 +64,7 @@ def grid_points(cc: CrossCurves) -> int:
     return int(math.floor(float(cc.heel_deg[-1]) / STEP_DEG + 1e-6)) + 1
 
 
-@dataclass(frozen=True)
+@frozen
 class CurveFacts:
     """What the criteria need from a GZ curve (angles in degrees, areas in m·rad)."""
 

@@ -9,13 +9,12 @@ MCTC, which are proportional to density, are then scaled by ρ_w/ρ_t
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-
+from deckload.core.frozen import frozen
 from deckload.core.model import HydrostaticTable, Vessel
 from deckload.core.tables import bracket, lerp_row
 
 
-@dataclass(frozen=True)
+@frozen
 class Upright:
     """Hydrostatic particulars at one displacement, corrected for water density."""
 

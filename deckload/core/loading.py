@@ -8,10 +8,9 @@ ones (standards.md §6.3): Δ = Σw, LCG = Σw·x/Δ, KG = Σw·z/Δ, TCG = Σw�
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.core.model import Condition, Hold, HoldLoad, Tank, TankFill, Vessel
 from deckload.core.result import ItemResult
 from deckload.core.tables import bracket, lerp_row
@@ -21,7 +20,7 @@ class LoadingError(ValueError):
     """A condition that does not fit its vessel (unknown id, over capacity, …)."""
 
 
-@dataclass(frozen=True)
+@frozen
 class TankContents:
     """One tank's contents, resolved from whatever quantity was typed."""
 
@@ -191,7 +190,7 @@ def hold_item(hold: Hold, load: HoldLoad) -> ItemResult:
     return ItemResult("hold", hold.id, load.description or hold.name, load.mass_t, lcg, vcg, tcg)
 
 
-@dataclass(frozen=True)
+@frozen
 class WeightSum:
     """Δ and centre of gravity of everything aboard (solid, before free surface)."""
 

@@ -18,11 +18,12 @@ to a condition builds a new :class:`Condition` (see its ``with_*`` methods).
 from __future__ import annotations
 
 import dataclasses
-from dataclasses import dataclass, field
+from dataclasses import field
 from typing import Literal
 
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.core.geometry.body import Body
 
 # --------------------------------------------------------------------------- kinds
@@ -76,7 +77,7 @@ def frozen_array(a) -> np.ndarray:
 # --------------------------------------------------------------------------- vessel
 
 
-@dataclass(frozen=True)
+@frozen
 class Particulars:
     name: str
     """The vessel's name as shown on screens and reports."""
@@ -101,7 +102,7 @@ class Particulars:
     """Extreme draft minus moulded draft (m); 0 when the booklet does not give it."""
 
 
-@dataclass(frozen=True)
+@frozen
 class MassItem:
     """A mass with its centre of gravity."""
 
@@ -117,7 +118,7 @@ class MassItem:
     """Transverse centre of gravity from centreline, + starboard (m)."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class HydrostaticTable:
     """Upright hydrostatics at even keel, one row per mean draft, at the table density."""
 
@@ -144,7 +145,7 @@ class HydrostaticTable:
         return {f.name: getattr(self, f.name) for f in dataclasses.fields(self) if getattr(self, f.name) is not None}
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class CrossCurves:
     """KN cross curves: KN (m) against displacement and heel, at the table density."""
 
@@ -160,7 +161,7 @@ class CrossCurves:
     """Free trim: the LCG (m from AP) the curves were made for (B kept in line with it); None if not stated."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class TrimmedTables:
     """Hydrostatics and KN at several trims, as booklets print them (``[[hydrostatics_at_trim]]``,
     ``[[cross_curves_at_trim]]``).
@@ -184,7 +185,7 @@ class TrimmedTables:
     """One table per trim of ``kn_trim_m``."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class TrimCorrection:
     """A booklet's trim-correction columns for a tank's soundings (``[tank.trim_correction]``).
 
@@ -205,7 +206,7 @@ class TrimCorrection:
     """'sounding_correction_m' or 'volume_m3'."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class TankCalibration:
     """A tank's calibration table by sounding (from the tank bottom)."""
 
@@ -233,7 +234,7 @@ class TankCalibration:
         )
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class FluidTransfer:
     """Actual moment of fluid transfer of a tank, from its geometry.
 
@@ -251,7 +252,7 @@ class FluidTransfer:
     """Volumetric transfer moment (m⁴), shape (len(fill_pct), len(heel_deg))."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class Tank:
     id: str
     """Short unique identifier typed by the user, e.g. 'DB2P'."""
@@ -301,7 +302,7 @@ class Tank:
         return self.kind in CONSUMABLE_KINDS
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class Hold:
     id: str
     """Short unique identifier, e.g. 'H1'."""
@@ -325,7 +326,7 @@ class Hold:
     """Optional: LCG (m) of cargo filling the hold to each ``fill_pct``."""
 
 
-@dataclass(frozen=True)
+@frozen
 class DeckArea:
     id: str
     """Short unique identifier, e.g. 'AFTDECK'."""
@@ -343,7 +344,7 @@ class DeckArea:
     """Permissible uniform deck load (t/m²)."""
 
 
-@dataclass(frozen=True)
+@frozen
 class LoadLine:
     name: str
     """Mark name, e.g. 'summer', 'tropical', 'winter', 'fresh'."""
@@ -351,7 +352,7 @@ class LoadLine:
     """Moulded draft at midships that the mark stands for, in sea water (m)."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class LimitCurve:
     """A curve against displacement: maximum KG (or minimum GM) or downflooding angle."""
 
@@ -373,7 +374,7 @@ EXTRA_KINDS: tuple[str, ...] = (
 """What a flag-State or class criterion written in the profile may measure."""
 
 
-@dataclass(frozen=True)
+@frozen
 class ExtraCriterion:
     """A flag-State or class criterion written in the profile as data (no code change needed)."""
 
@@ -391,7 +392,7 @@ class ExtraCriterion:
     at_deg: float = 0.0
 
 
-@dataclass(frozen=True)
+@frozen
 class PassengerData:
     """Inputs of the passenger-ship heel criteria, IS 2008 Part A 3.1."""
 
@@ -407,7 +408,7 @@ class PassengerData:
     """Service speed (knots) for the heel when turning."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class Windage:
     """Lateral windage against draft (even keel), for the weather criterion of IS 2008 Part A 2.3."""
 
@@ -421,7 +422,7 @@ class Windage:
     """Lwl: length of the waterline (m)."""
 
 
-@dataclass(frozen=True)
+@frozen
 class SoundingPipe:
     """Where a tank's sounding is read (the pipe's foot), for soundings taken trimmed or listed."""
 
@@ -431,7 +432,7 @@ class SoundingPipe:
     """From the centreline, + starboard (m)."""
 
 
-@dataclass(frozen=True)
+@frozen
 class DraftMark:
     """Where one set of draft marks is cut in the shell, port and starboard alike."""
 
@@ -441,7 +442,7 @@ class DraftMark:
     """Distance of the marks from the centreline (m): the starboard marks at +y, the port at −y."""
 
 
-@dataclass(frozen=True)
+@frozen
 class DraftMarks:
     """The draft marks aft, amidships and forward; they read from the underside of the keel
     (moulded draft + ``Particulars.keel_thickness_m``)."""
@@ -451,7 +452,7 @@ class DraftMarks:
     forward: DraftMark
 
 
-@dataclass(frozen=True)
+@frozen
 class CriteriaSettings:
     code: str = "IS2008-A2.2"
     """Legacy key: 'IS2008-A2.2' (still accepted) means the general criteria."""
@@ -471,7 +472,7 @@ class CriteriaSettings:
     """Flag-State or class criteria written in the profile."""
 
 
-@dataclass(frozen=True)
+@frozen
 class FreeSurfaceSettings:
     rule: FsRule = "is2008"
     """'is2008' (Part B 3.1 treatment) or 'actual' (every tank at its actual level)."""
@@ -489,7 +490,7 @@ class FreeSurfaceSettings:
     """Worst slack band for tanks whose shape is unknown (% fill)."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class Vessel:
     """A whole vessel profile: particulars, lightship, tables, compartments and rules."""
 
@@ -556,7 +557,7 @@ class Vessel:
 # --------------------------------------------------------------------------- condition
 
 
-@dataclass(frozen=True)
+@frozen
 class TankFill:
     tank_id: str
     """Which tank."""
@@ -568,7 +569,7 @@ class TankFill:
     """Density override (t/m³); the tank's default when None."""
 
 
-@dataclass(frozen=True)
+@frozen
 class HoldLoad:
     hold_id: str
     """Which hold."""
@@ -586,7 +587,7 @@ class HoldLoad:
     """What is stowed."""
 
 
-@dataclass(frozen=True)
+@frozen
 class DeckItem(MassItem):
     area_id: str | None = None
     """Deck area the item stands on, for the deck-load check."""
@@ -599,7 +600,7 @@ class DeckItem(MassItem):
     """Height of the centre of that area above the keel (m)."""
 
 
-@dataclass(frozen=True)
+@frozen
 class Condition:
     """A loading condition: what is aboard, where, and in what water.
 

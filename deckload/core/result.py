@@ -7,13 +7,13 @@ Units and signs as in :mod:`deckload.core.model`.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
+from deckload.core.frozen import frozen
 
 TANK_STATES = ("empty", "slack", "worst_band", "full")
 """Tank states: empty; slack; slack inside its worst free-surface band; nominally full (≥ 98 %)."""
 
 
-@dataclass(frozen=True)
+@frozen
 class TankResult:
     id: str
     name: str
@@ -41,7 +41,7 @@ class TankResult:
     capacity_m3: float
 
 
-@dataclass(frozen=True)
+@frozen
 class ItemResult:
     """A hold, deck or constant item as it enters the weight sum."""
 
@@ -55,7 +55,7 @@ class ItemResult:
     tcg_m: float
 
 
-@dataclass(frozen=True)
+@frozen
 class CriterionResult:
     id: str
     """Stable identifier, e.g. 'IS2008-A2.2.1-area-0-30'."""
@@ -92,7 +92,7 @@ class CriterionResult:
         return self.margin / abs(self.limit) if self.limit else float("inf")
 
 
-@dataclass(frozen=True)
+@frozen
 class AssessedSet:
     """A criteria set that was assessed for this condition, e.g. IS 2008 Part A 2.2."""
 
@@ -104,7 +104,7 @@ class AssessedSet:
     """Every criterion of the set assessed and met."""
 
 
-@dataclass(frozen=True)
+@frozen
 class NotAssessed:
     """Something a master might expect in the verdict that was not assessed, and why."""
 
@@ -114,7 +114,7 @@ class NotAssessed:
     """e.g. 'the profile has no windage data', 'not computed by deckload'."""
 
 
-@dataclass(frozen=True)
+@frozen
 class WeatherResult:
     """IS Code 2008 Part A 2.3, severe wind and rolling: the numbers behind the criterion."""
 
@@ -154,7 +154,7 @@ class WeatherResult:
     """Lwl used for C, Cb and Ak·100/(L·B) (m)."""
 
 
-@dataclass(frozen=True)
+@frozen
 class Warning:
     code: str
     """Short machine-readable code, e.g. 'slack-worst-band', 'criterion-failed'."""
@@ -164,7 +164,7 @@ class Warning:
     """'caution' or 'danger'."""
 
 
-@dataclass(frozen=True)
+@frozen
 class Result:
     vessel_name: str
     condition_name: str

@@ -35,10 +35,10 @@ screen show in the caution.
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
 
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.core.geometry.body import Body, immerse
 from deckload.core.loading import LoadingError, level_of
 from deckload.core.model import SoundingPipe, Tank
@@ -58,7 +58,7 @@ class SoundingError(LoadingError):
     """A sounding that cannot be corrected as asked (names the tank and the rule)."""
 
 
-@dataclass(frozen=True)
+@frozen
 class CorrectedSounding:
     tank_id: str
     observed_m: float

@@ -29,7 +29,7 @@ works travel in its output's ``notes`` and are gathered by the last stage.
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, replace
+from dataclasses import replace
 
 import numpy as np
 
@@ -37,6 +37,7 @@ from deckload.core import gz as gzmod
 from deckload.core.bounds import bounded
 from deckload.core.criteria import Measures, limit_curve_criterion
 from deckload.core.free_surface import BASIS_NONE, TankFreeSurface, free_surface, transfer_moment_m4
+from deckload.core.frozen import frozen
 from deckload.core.hydrostatics import Upright, draft_at, fresh_water_allowance_m, mark_density_t_m3, permitted_draft_m
 from deckload.core.loading import LoadingError, TankContents, WeightSum, hold_item, resolve_tanks, sum_weights
 from deckload.core.model import Condition, LoadLine, Vessel, effective_constants
@@ -54,7 +55,7 @@ NEAR_LIMIT_FRACTION = 0.10
 # --------------------------------------------------------------------------- stage outputs
 
 
-@dataclass(frozen=True)
+@frozen
 class Weights:
     """Stage 1: everything aboard and its centre of gravity (solid, before free surface)."""
 
@@ -68,7 +69,7 @@ class Weights:
     """Cautions about soundings taken trimmed or listed."""
 
 
-@dataclass(frozen=True)
+@frozen
 class FreeSurface:
     """Stage 2: the free-surface moments and the KG they give."""
 
@@ -85,7 +86,7 @@ class FreeSurface:
     """Each tank's contents with the moment counted for it, as the views show them."""
 
 
-@dataclass(frozen=True)
+@frozen
 class Floating:
     """Stage 3: upright hydrostatics, metacentric heights, trim and drafts."""
 
@@ -107,7 +108,7 @@ class Floating:
     """Cautions on trim beyond the even-keel tables, G far from the KN's LCG, MCTC from the table."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class Curve:
     """Stage 4: the GZ curve heeling to either side on the fine grid, and the list."""
 
@@ -143,7 +144,7 @@ class Curve:
         return float(self.heel_deg[-1])
 
 
-@dataclass(frozen=True)
+@frozen
 class Assessment:
     """Stage 5: what the criteria are measured on and what they say."""
 

@@ -11,9 +11,10 @@ rounding"; linear interpolation between booklet rows is common practice).
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
 
 import numpy as np
+
+from deckload.core.frozen import frozen
 
 
 class OutOfRangeError(ValueError):
@@ -64,7 +65,7 @@ def interp(xs: np.ndarray, ys: np.ndarray, x: float, quantity: str, unit: str = 
     return float(lerp_row(ys, i, f))
 
 
-@dataclass(frozen=True)
+@frozen
 class CubicSpline:
     """Cubic spline through (x, y), for smooth curves such as KN against heel or displacement.
 

@@ -21,8 +21,7 @@ any ship (common practice).
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-
+from deckload.core.frozen import frozen
 from deckload.core.hydrostatics import Upright
 from deckload.core.loading import LoadingError
 from deckload.core.model import CrossCurves, Vessel
@@ -38,7 +37,7 @@ class TrimError(LoadingError):
     """The condition has no longitudinal stability to trim with (KG above KM_L)."""
 
 
-@dataclass(frozen=True)
+@frozen
 class TrimMoment:
     mctc_tm_cm: float
     """Moment to change trim 1 cm (t·m/cm) used for the trim."""

@@ -49,10 +49,10 @@ even-keel table alone has no rate to judge by and keeps the even-keel caution of
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
 
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.core.gz import heel_curve, kn_row
 from deckload.core.hydrostatics import Upright
 from deckload.core.model import HydrostaticTable, TrimmedTables, Vessel
@@ -90,7 +90,7 @@ class TrimBeyondTablesError(OutOfRangeError):
     """The trim lies so far outside the trimmed tables that their error would exceed tolerance."""
 
 
-@dataclass(frozen=True)
+@frozen
 class TrimmedRow:
     """The trimmed hydrostatic tables at one displacement (table density) and trim."""
 
@@ -105,7 +105,7 @@ class TrimmedRow:
     kml_m: float | None
 
 
-@dataclass(frozen=True)
+@frozen
 class TrimmedEquilibrium:
     """What the trimmed tables give for one condition."""
 
@@ -321,9 +321,7 @@ def covers_kn(vessel: Vessel, trim: float) -> bool:
     return tt is not None and len(tt.kn_trim_m) > 1 and _beyond(tt.kn_trim_m, trim) is None
 
 
-
-
-@dataclass(frozen=True)
+@frozen
 class TableState:
     """Hydrostatics and trim of a condition, from whichever tables the profile has."""
 
@@ -368,7 +366,7 @@ def kn_for(vessel: Vessel, table_displacement_t: float, trim_m: float) -> np.nda
     return kn_curve_at(vessel.trimmed, table_displacement_t, trim_m)
 
 
-@dataclass(frozen=True)
+@frozen
 class TablesBasis:
     """Which tables a result was taken from, for the views (calc, report, screen)."""
 

@@ -16,7 +16,6 @@ length): below 24 m the sets are still shown, with a note that national rules go
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
 
 import numpy as np
 
@@ -32,6 +31,7 @@ from deckload.core.criteria import (
     evaluate_criteria,
     extra_criterion_result,
 )
+from deckload.core.frozen import frozen
 from deckload.core.model import Vessel
 from deckload.core.result import AssessedSet, CriterionResult, NotAssessed, WeatherResult
 from deckload.core.tables import OutOfRangeError, interp
@@ -56,7 +56,7 @@ NEVER_ASSESSED: tuple[NotAssessed, ...] = (
 """What a master might expect from a loading computer and deckload never computes."""
 
 
-@dataclass(frozen=True)
+@frozen
 class Afloat:
     """The condition's numbers the criteria are measured on (SI; angles in degrees)."""
 
@@ -84,7 +84,7 @@ class Afloat:
     """Names of the deck items that do not state their windage."""
 
 
-@dataclass(frozen=True)
+@frozen
 class Verdict:
     criteria: tuple[CriterionResult, ...]
     sets: tuple[AssessedSet, ...]

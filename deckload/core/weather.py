@@ -29,9 +29,10 @@ curve heeling the other way: GZ(−φ) = −GZ_other(φ).
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
 
 import numpy as np
+
+from deckload.core.frozen import frozen
 
 G_M_S2 = 9.81
 """Gravity (m/s²) in the lever formula: standards.md §2.2, value marked from memory [M]."""
@@ -137,7 +138,7 @@ def fishing_wind_pressure_pa(height_above_wl_m: float) -> float:
     return table_value(FISHING_PRESSURE_TABLE, height_above_wl_m)
 
 
-@dataclass(frozen=True)
+@frozen
 class RollInputs:
     breadth_m: float
     draft_m: float
@@ -151,7 +152,7 @@ class RollInputs:
     sharp_bilged: bool = False
 
 
-@dataclass(frozen=True)
+@frozen
 class Roll:
     period_s: float
     k: float
@@ -188,7 +189,7 @@ def roll(inp: RollInputs) -> Roll:
 # --------------------------------------------------------------------------- the curve
 
 
-@dataclass(frozen=True)
+@frozen
 class Curve:
     """A GZ curve over −end…+end degrees: + towards the heel side, − to windward."""
 
@@ -244,7 +245,7 @@ class Curve:
         return float(np.sum((y[1:] + y[:-1]) * 0.5 * np.radians(np.diff(x))))
 
 
-@dataclass(frozen=True)
+@frozen
 class WeatherFacts:
     lw1_m: float
     lw2_m: float

@@ -10,12 +10,13 @@ like every other file problem (file, line, dotted key, value, rule), all at once
 from __future__ import annotations
 
 import os
-from dataclasses import dataclass, field
+from dataclasses import field
 from pathlib import Path
 
 import tomli_w
 
 from deckload.core import model as m
+from deckload.core.frozen import frozen
 from deckload.io.conventions import Frame, read_frame, tcg_num
 from deckload.core.booklet import QUANTITIES
 from deckload.io.profiles import CONDITION_FORMAT, _read_text, load_condition, parse_condition
@@ -30,7 +31,7 @@ _RULES = {
 }
 
 
-@dataclass(frozen=True)
+@frozen
 class BookletCase:
     name: str
     """As the booklet titles it."""

@@ -14,8 +14,9 @@ is ``profiles.load_condition``'s work when the condition is opened).
 from __future__ import annotations
 
 import tomllib
-from dataclasses import dataclass
 from pathlib import Path
+
+from deckload.core.frozen import frozen
 
 WORKING_KEYS = ("working", "work", "screen")
 """Short names of the loading screen's working condition on the command line."""
@@ -24,7 +25,7 @@ MAX_NAME_CHARS = 80
 """Longest condition name accepted when saving under a name of one's own."""
 
 
-@dataclass(frozen=True)
+@frozen
 class Named:
     key: str
     """Short name to type (``departure``, ``my-arrival``, ``working``)."""

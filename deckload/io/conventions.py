@@ -19,10 +19,11 @@ from __future__ import annotations
 
 import math
 import re
-from dataclasses import dataclass, replace
+from dataclasses import replace
 
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.io.tomlcheck import MISSING, Table, is_number, num, toml_type
 
 DATUMS = ("AP", "midships", "FP")
@@ -31,7 +32,7 @@ SIDE = re.compile(r"^\s*(?P<num>[+-]?(?:\d+\.?\d*|\.\d+))\s*(?P<side>[PS])?\s*$"
 CENTRELINE = ("CL", "C/L", "C")
 
 
-@dataclass(frozen=True)
+@frozen
 class Frame:
     """The measuring convention of one table."""
 

@@ -26,11 +26,11 @@ from __future__ import annotations
 import math
 import re
 import tomllib
-from dataclasses import dataclass
 from typing import Any, Callable
 
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.io.limits import MAX_TABLE_VALUES
 from deckload.io.textsafe import control_char
 
@@ -44,7 +44,7 @@ REL_TOL = 1e-9
 # =========================================================================== problems
 
 
-@dataclass(frozen=True)
+@frozen
 class Problem:
     """One thing wrong in a profile, condition or geometry file."""
 
@@ -309,7 +309,7 @@ def suggest_id(word: str, ids) -> str:
     return f" (it has {', '.join(ids)})" if len(ids) <= 8 else ""
 
 
-@dataclass(frozen=True)
+@frozen
 class Wording:
     """How one kind of file words its problems (the rules themselves are shared)."""
 

@@ -13,15 +13,16 @@ from __future__ import annotations
 
 import json
 import re
-from dataclasses import dataclass, field
+from dataclasses import field
 
+from deckload.core.frozen import frozen
 from deckload.logbook.records import KINDS, LogFormatError, _entry_from_line, sha256_hex
 
 GENESIS_SHA256 = "0" * 64
 """``prev_sha256`` of the first entry: there is no previous line."""
 
 
-@dataclass(frozen=True)
+@frozen
 class VerifyReport:
     ok: bool
     """True when every line reads and the chain and head record agree."""

@@ -13,11 +13,11 @@ import hashlib
 import json
 import math
 import re
-from dataclasses import dataclass
 from datetime import datetime
 from typing import Any, Iterable
 
 from deckload.core.deadweight import deadweight_by_kind
+from deckload.core.frozen import frozen
 from deckload.core.model import Condition
 from deckload.core.result import Result
 from deckload.io.limits import MAX_LOG_LINE_BYTES
@@ -171,7 +171,7 @@ def condition_of(entry: "LogEntry", vessel) -> Condition:
     return parse_condition(entry.condition, f"log line {entry.line_no}", vessel)
 
 
-@dataclass(frozen=True)
+@frozen
 class LogEntry:
     """One line of the log, as read back."""
 

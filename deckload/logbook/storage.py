@@ -13,10 +13,10 @@ from __future__ import annotations
 
 import json
 import os
-from dataclasses import dataclass
 from datetime import datetime, timezone
 from pathlib import Path
 
+from deckload.core.frozen import frozen
 from deckload.io.atomicfile import fsync_dir, leftover_temp_files, write_atomic
 from deckload.io.limits import MAX_LOG_BYTES
 from deckload.logbook.records import LogFormatError, _dumps, _entry_from_line
@@ -24,7 +24,7 @@ from deckload.logbook.records import LogFormatError, _dumps, _entry_from_line
 HEAD_FORMAT = "deckload-log-head-1"
 
 
-@dataclass(frozen=True)
+@frozen
 class TornRecovery:
     """A torn last line found at start and set aside in a side file."""
 

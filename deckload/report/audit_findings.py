@@ -11,10 +11,10 @@ the one-line wording used by ``deckload check`` and the loading screen::
 from __future__ import annotations
 
 import os
-from dataclasses import dataclass
 from pathlib import Path
 from typing import TYPE_CHECKING
 
+from deckload.core.frozen import frozen
 from deckload.core.model import Vessel
 from deckload.io.profiles import Reading
 from deckload.io.tomlcheck import Problem, ProfileError
@@ -26,7 +26,7 @@ if TYPE_CHECKING:
 # profile read from the cache (load_audited) brings its findings along and needs none of them.
 
 
-@dataclass(frozen=True)
+@frozen
 class Located:
     """A finding with the file and line it points at."""
 
@@ -88,7 +88,7 @@ def refuse_or_notice(path: str | os.PathLike, found: list[Located]) -> str | Non
     return warnings_notice(list(found), path)
 
 
-@dataclass(frozen=True)
+@frozen
 class AuditedProfile:
     """A validated profile with how its tables were written and its located audit findings:
     everything the commands and the screen take from a profile file, as the cache holds it."""

@@ -25,7 +25,6 @@ import html as htmllib
 import io
 import math
 import sys
-from dataclasses import dataclass
 from pathlib import Path
 
 import numpy as np
@@ -36,6 +35,7 @@ from rich.text import Text
 
 from deckload.core.deadweight import deadweight_by_kind
 from deckload.core.free_surface import EXEMPT_RULE
+from deckload.core.frozen import frozen
 from deckload.report import verdict_format as vf
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
@@ -443,8 +443,7 @@ def _signatures_html() -> str:
     return f'<div class="signatures">{rows}</div>'
 
 
-
-@dataclass(frozen=True)
+@frozen
 class _Parts:
     header: RenderableType
     summary: RenderableType
@@ -512,7 +511,7 @@ def _nice_step(span: float, target: int = 5) -> float:
     return 10.0 * mag
 
 
-@dataclass(frozen=True)
+@frozen
 class SvgFrame:
     """Plot area and scales of the GZ drawing (SVG user units)."""
 

@@ -8,14 +8,14 @@ writes (:mod:`deckload.report.condition_report`), from the screen's own ``Result
 
 from __future__ import annotations
 
-from dataclasses import dataclass
 from pathlib import Path
 
+from deckload.core.frozen import frozen
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
 
 
-@dataclass(frozen=True)
+@frozen
 class Printed:
     html_path: Path
     text_path: Path

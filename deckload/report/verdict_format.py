@@ -10,7 +10,8 @@ from __future__ import annotations
 
 import math
 import textwrap
-from dataclasses import dataclass
+
+from deckload.core.frozen import frozen
 
 # The caution every printed or shown output carries (README, "Safety").
 CAUTION = (
@@ -29,7 +30,7 @@ UNGROUPED = AssessedSet("", "criteria without a set", False)
 _IS2008 = "IS Code 2008 "
 
 
-@dataclass(frozen=True)
+@frozen
 class SetGroup:
     set: AssessedSet
     criteria: tuple[CriterionResult, ...]

@@ -6,13 +6,12 @@ built from :data:`COMMANDS`, so they cannot drift apart.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-
+from deckload.core.frozen import frozen
 
 _KEY_SIGNS = {"plus": "+", "minus": "-", "enter": "⏎", "question_mark": "?", "ctrl+o": "ctrl+o"}
 
 
-@dataclass(frozen=True)
+@frozen
 class Command:
     action: str
     """Action name on the loading screen (``action_<name>``)."""

@@ -16,9 +16,9 @@ from __future__ import annotations
 import dataclasses
 
 import re
-from dataclasses import dataclass
 
 from deckload.core import bounds
+from deckload.core.frozen import frozen
 from deckload.core.loading import LoadingError, level_of, over_limit, reading_range, resolve_tank, volume_of
 from deckload.core.model import (
     LEVEL_QUANTITIES,
@@ -256,7 +256,7 @@ def nudge_tank(condition: Condition, tank: Tank, step_pct: float) -> Condition:
 # --------------------------------------------------------------------------- transfer
 
 
-@dataclass(frozen=True)
+@frozen
 class TransferPlan:
     """A pumping from one tank to another, as the dialog returns it."""
 
@@ -339,7 +339,7 @@ def nudge_mass(mass_t: float, step_t: float, what: str) -> float:
     return max(0.0, round(mass_t + step_t, 6))
 
 
-@dataclass(frozen=True)
+@frozen
 class ItemForm:
     """The fields of the item dialog, as typed."""
 

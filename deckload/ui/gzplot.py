@@ -10,20 +10,19 @@ start below zero (rolled to windward).
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-
 import numpy as np
 from rich.console import Console, ConsoleOptions, RenderResult
 from rich.style import Style
 from rich.text import Span, Text
 
+from deckload.core.frozen import frozen
 from deckload.ui.palette import P
 
 # Braille dot bits by (column, row) inside a cell: Unicode 2800 block layout.
 _BITS = ((0x01, 0x02, 0x04, 0x40), (0x08, 0x10, 0x20, 0x80))
 
 
-@dataclass(frozen=True)
+@frozen
 class Mark:
     angle_deg: float
     label: str
@@ -31,7 +30,7 @@ class Mark:
     """A key of :data:`deckload.ui.palette.P`."""
 
 
-@dataclass(frozen=True)
+@frozen
 class Level:
     """A horizontal line at ``value_m`` (a heeling lever), named at its right end."""
 
@@ -40,7 +39,7 @@ class Level:
     style: str = "gz.level"
 
 
-@dataclass(frozen=True)
+@frozen
 class Area:
     """Dots between the curve and ``level_m`` from ``from_deg`` to ``to_deg``, named by ``label``.
 
@@ -55,7 +54,7 @@ class Area:
     style: str = "gz.area"
 
 
-@dataclass(frozen=True)
+@frozen
 class GzChart:
     heel_deg: tuple[float, ...]
     gz_m: tuple[float, ...]

@@ -23,7 +23,6 @@ Styles: ``log_screen.tcss`` beside this file.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
 from datetime import date
 from typing import Iterable
 
@@ -35,6 +34,7 @@ from textual.containers import Horizontal, Vertical, VerticalScroll
 from textual.screen import ModalScreen, Screen
 from textual.widgets import DataTable, Footer, Input, Static
 
+from deckload.core.frozen import frozen
 from deckload.io.textsafe import escaped
 from deckload.report import verdict_format as vf
 from deckload.core.model import Condition, Vessel
@@ -43,7 +43,7 @@ from deckload.logbook import KIND_LABELS, KINDS, LogEntry, Logbook, condition_of
 ALL_KINDS = "all"
 
 
-@dataclass(frozen=True)
+@frozen
 class RestoreRequest:
     """What the log screen hands back when the officer restores a past condition."""
 

@@ -14,6 +14,7 @@ from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any, Callable
 
+from deckload.core.frozen import frozen
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
 from deckload.core.tables import OutOfRangeError
@@ -54,7 +55,7 @@ class _Run:
         self.steps += 1
 
 
-@dataclass(frozen=True)
+@frozen
 class _Write:
     """One change's save and/or log entry, waiting for the writer thread."""
 

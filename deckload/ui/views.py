@@ -8,12 +8,12 @@ colour: the screen reads the same with NO_COLOR or on a monochrome terminal.
 from __future__ import annotations
 
 import functools
-from dataclasses import dataclass
 
 from rich.text import Text
 
 from deckload.core.deadweight import deadweight_by_kind
 from deckload.core.free_surface import EXEMPT_RULE
+from deckload.core.frozen import frozen
 from deckload.core.model import Condition, LIQUID_KINDS, Vessel
 from deckload.core.result import CriterionResult, Result
 from deckload.core.trimmed_tables import tables_basis
@@ -69,7 +69,7 @@ def opt(value: float | None, fmt: str) -> str:
 # --------------------------------------------------------------------------- the board
 
 
-@dataclass(frozen=True)
+@frozen
 class Row:
     key: tuple | None
     """('tank', id), ('hold', id), ('deck', i) or ('const', i); None for a heading line."""
@@ -93,7 +93,7 @@ def fit(text: str, width: int) -> str:
     return t.plain
 
 
-@dataclass(frozen=True)
+@frozen
 class TankCols:
     """The board's columns: mark, id, ◆, fill bar, %, m³, t, (ρ), FSM, *.  Every row that has a
     mass ends it at ``t_end``, so tanks, group totals, holds, deck loads, constants and the
@@ -426,7 +426,7 @@ def gz_caption(result: Result | None, width: int | None = None) -> Text:
 # --------------------------------------------------------------------------- warnings
 
 
-@dataclass(frozen=True)
+@frozen
 class Alert:
     severity: str
     """'danger' or 'caution'."""

@@ -11,14 +11,13 @@ trapezoidal rule; :attr:`Body.rule` says which).
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.core.geometry.sections import HeeledEdges, area_chord_below, cut_sections, heeled_edges, simpson_weights
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class Body:
     x_m: np.ndarray
     """Station positions (m from AP)."""
@@ -61,7 +60,7 @@ class Body:
         return zeta.min(axis=-1), zeta.max(axis=-1)
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class Immersion:
     """Integrated quantities of the part of a body below a plane; arrays of the case shape."""
 

@@ -6,11 +6,11 @@ command line can print it (the core itself never writes anywhere).
 
 from __future__ import annotations
 
-from dataclasses import dataclass
 from typing import Callable
 
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.core.geometry.body import Body, immerse
 from deckload.core.geometry.cross_curves import (
     CrossCurveResult,
@@ -32,7 +32,7 @@ from deckload.core.model import TankCalibration
 Progress = Callable[[str], None]
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class TankTables:
     spec: TankSpec
     capacity_m3: float
@@ -43,7 +43,7 @@ class TankTables:
     """'simpson' or 'trapezoid' along the tank."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class HoldTables:
     spec: HoldSpec
     capacity_m3: float
@@ -55,7 +55,7 @@ class HoldTables:
     fill_vcg_m: np.ndarray
 
 
-@dataclass(frozen=True)
+@frozen
 class DeckAreaTables:
     spec: DeckAreaSpec
     area_m2: float
@@ -64,7 +64,7 @@ class DeckAreaTables:
     deck_height_m: float
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class Downflooding:
     opening: str
     """Name of the opening that governs (the lowest angle), per displacement joined by '/' if several."""
@@ -72,7 +72,7 @@ class Downflooding:
     angle_deg: np.ndarray
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class WindageTable:
     """Windage against draft (even keel) from the lateral profile, and Lwl from the offsets."""
 
@@ -82,7 +82,7 @@ class WindageTable:
     waterline_length_m: np.ndarray
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class DeckEdge:
     """Heel (deg) at which the deck edge at midships reaches the water, per displacement."""
 
@@ -90,7 +90,7 @@ class DeckEdge:
     angle_deg: np.ndarray
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class VesselTables:
     geometry: Geometry
     hydrostatics: UprightHydrostatics

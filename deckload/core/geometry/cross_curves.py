@@ -32,10 +32,9 @@ are solved together (numpy).
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.core.geometry.body import Body, immerse, level_for_volume
 
 
@@ -43,7 +42,7 @@ class NoEquilibriumError(ValueError):
     """The free-trim iteration did not settle (e.g. the hull cannot float at that volume)."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class CrossCurveResult:
     displacement_t: np.ndarray
     heel_deg: np.ndarray

@@ -19,14 +19,13 @@ Mates*, 5th ed., chapters on TPC, MCTC and BM.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.core.geometry.body import Body, immerse, level_for_volume
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class UprightHydrostatics:
     draft_m: np.ndarray
     volume_m3: np.ndarray

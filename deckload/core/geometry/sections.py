@@ -49,12 +49,12 @@ limit from above.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-
 import numpy as np
 
+from deckload.core.frozen import frozen
 
-@dataclass(frozen=True, eq=False)
+
+@frozen(eq=False)
 class SectionCut:
     """Moments of sections clipped to ζ ≤ c, in the heeled frame.  All arrays share one shape."""
 
@@ -77,7 +77,7 @@ def polygon_edges(y: np.ndarray, z: np.ndarray) -> tuple[np.ndarray, np.ndarray,
     return y, z, np.roll(y, -1, axis=-1), np.roll(z, -1, axis=-1)
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class HeeledEdges:
     """Every section edge in the heeled frame of its case, (η, ζ) from start a to end b.
 

@@ -7,16 +7,16 @@ y from the centreline (+ starboard), z above the keel (baseline); metres.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-
 import numpy as np
+
+from deckload.core.frozen import frozen
 
 COMPARTMENT_SHAPES = ("box", "prism", "hull")
 """How a tank or hold is described: a box; a prism (one section polygon over a
 length); or the inside of the hull between planes x, y and z."""
 
 
-@dataclass(frozen=True)
+@frozen
 class VesselSpec:
     name: str
     """Vessel name (copied into a new profile only)."""
@@ -32,7 +32,7 @@ class VesselSpec:
     """Water density for the hydrostatic and cross-curve tables (t/m³)."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class HullOffsets:
     """Offset table of a hull symmetric about the centreline.
 
@@ -52,7 +52,7 @@ class HullOffsets:
     """Height of the weather deck at side at each station (m)."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class CompartmentShape:
     """Where a compartment is.  ``shape`` is one of :data:`COMPARTMENT_SHAPES`."""
 
@@ -75,7 +75,7 @@ class CompartmentShape:
     """Prism: section polygon z (m)."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class TankSpec:
     id: str
     name: str
@@ -87,7 +87,7 @@ class TankSpec:
     """'fixed' or 'variable' when given in the geometry file; else the profile default."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class HoldSpec:
     id: str
     name: str
@@ -95,7 +95,7 @@ class HoldSpec:
     max_mass_t: float | None = None
 
 
-@dataclass(frozen=True)
+@frozen
 class DeckAreaSpec:
     """A rectangle on the weather deck, trimmed to the deck edge."""
 
@@ -108,7 +108,7 @@ class DeckAreaSpec:
     max_load_t_m2: float | None = None
 
 
-@dataclass(frozen=True)
+@frozen
 class OpeningSpec:
     """An unprotected opening (e.g. an engine-room vent) for the downflooding angle."""
 
@@ -119,7 +119,7 @@ class OpeningSpec:
     z_m: float
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class TableSpec:
     """Which tables to make."""
 
@@ -143,7 +143,7 @@ class TableSpec:
     """Heels of the fluid-transfer tables (deg); defaults to the cross-curve heels."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class LateralProfile:
     """The vessel's outline seen from the side (hull, bulwarks, superstructures), for windage."""
 
@@ -153,7 +153,7 @@ class LateralProfile:
     """Outline z (m above keel)."""
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class Geometry:
     """A whole geometry file, validated."""
 

@@ -19,14 +19,13 @@ Found on a 1 % fill grid with the band edges interpolated linearly.
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.core.geometry.body import Body, immerse, level_for_volume
 
 
-@dataclass(frozen=True, eq=False)
+@frozen(eq=False)
 class TransferTable:
     fill_pct: np.ndarray
     heel_deg: np.ndarray

@@ -22,10 +22,9 @@ waterline between keel and deck, 0 < T ± |t|/2 < depth (the ends lie at T ± t/
 
 from __future__ import annotations
 
-from dataclasses import dataclass
-
 import numpy as np
 
+from deckload.core.frozen import frozen
 from deckload.core.geometry.body import Body, immerse
 from deckload.core.geometry.cross_curves import solve_floating
 from deckload.core.geometry.hydrostatics_calc import waterplane
@@ -73,7 +72,7 @@ def drafts_for_trim(drafts_m, trim_m: float, depth_m: float) -> np.ndarray:
     return d[(d - abs(trim_m) / 2.0 > 0.0) & (d + abs(trim_m) / 2.0 < depth_m)]
 
 
-@dataclass(frozen=True)
+@frozen
 class TableAtTrim:
     """Hydrostatics and KN at one trim."""
 
