@@ -300,24 +300,18 @@ class LoadBoard(ScrollView, can_focus=True):
             self._rebuild()
 
     def _rebuild(self, repaint: bool = True) -> None:
-        """Build the lines at the board's width.  Before the first layout (no width yet) they are
-        built at the narrowest width: their number sizes the scroll bar in that layout, and the
-        cursor is announced before it; the first render builds them at its width (``repaint``
-        False: the render under way draws them)."""
-        if self._data is None:
+        """Build the lines at the board's width; before the first layout (no width yet) nothing:
+        the first render builds them at the width it draws (``repaint`` False: that render draws them)."""
+        shown = self.scrollable_content_region.width
+        if self._data is None or not shown:
             return
         key = self.cursor_key
-        shown = self.scrollable_content_region.width
         width = max(40, shown)
         old, self.rows = self.rows, views.board_rows(*self._data, width=width)
-        if not shown or width != self._width or len(old) != len(self.rows):
-            self._width = width if shown else 0
+        if width != self._width or len(old) != len(self.rows):
+            self._width = width
             self._strips.clear()
-            # The scroll bars need the count of lines, and a width only where the lines are wider
-            # than the board (a horizontal bar); an unchanged virtual size lays nothing out again.
-            virtual = Size(width if width > shown else 0, len(self.rows))
-            if virtual != self.virtual_size:
-                self.virtual_size = virtual
+            self.virtual_size = Size(width, len(self.rows))
             if repaint:
                 self.refresh()
         else:  # repaint only the lines that changed
