@@ -12,6 +12,7 @@ import os
 import sys
 from pathlib import Path
 
+from deckload.cli import startup
 
 COMMANDS = ("open", "calc", "check", "tables", "csv", "marks", "report", "log")
 """The sub-commands, as :func:`_parser` declares them."""
@@ -203,6 +204,7 @@ def main(argv: list[str] | None = None) -> int:
     (deckload.cli.boundary); control characters never reach the terminal (deckload.io.textsafe)."""
     import warnings
 
+    startup.pause()  # until start-up is over (deckload.cli.startup)
     from deckload.io.textsafe import EscapingStream
 
     # numpy's floating-point warnings are not for the officer: every non-finite number is
@@ -214,6 +216,7 @@ def main(argv: list[str] | None = None) -> int:
     try:
         return _main(argv)
     finally:
+        startup.resume()
         if isinstance(sys.stdout, EscapingStream):  # not if a closed pipe replaced it
             sys.stdout = out
         if isinstance(sys.stderr, EscapingStream):
@@ -259,7 +262,8 @@ def _main(argv: list[str] | None) -> int:
         if cmd == "open":
             from deckload.ui.launch import run_open
 
-            return run_open(getattr(args, "profile", None), getattr(args, "condition", None))
+            return run_open(getattr(args, "profile", None), getattr(args, "condition", None),
+                            after_first_frame=startup.resume_and_collect)
         if cmd == "calc":
             from deckload.cli.calc import run_calc
 
@@ -271,6 +275,7 @@ def _main(argv: list[str] | None) -> int:
         if cmd == "tables":
             from deckload.cli.tables import run_tables
 
+            startup.resume()  # a long computation: the collector runs (deckload.cli.startup)
             return run_tables(args.geometry, args.output, args.trims)
         if cmd == "csv":
             from deckload.cli.csv_export import run_csv
@@ -293,6 +298,7 @@ def _main(argv: list[str] | None) -> int:
         if cmd == "log":
             from deckload.cli.log import run_log
 
+            startup.resume()  # a long log may be read: the collector runs (deckload.cli.startup)
             return run_log(args)
     except KeyboardInterrupt:
         return 130

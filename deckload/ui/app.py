@@ -8,7 +8,7 @@ from __future__ import annotations
 import time
 from collections import deque
 from functools import partial
-from typing import Iterable
+from typing import Callable, Iterable
 
 from textual import events
 from textual.app import App, SystemCommand
@@ -78,10 +78,12 @@ class DeckloadApp(App[None]):
     CSS_PATH = "deckload.tcss"
     TITLE = "deckload"
 
-    def __init__(self, session: Session, *, notices: Iterable[str] = ()):
+    def __init__(self, session: Session, *, notices: Iterable[str] = (),
+                 after_first_frame: Callable[[], None] | None = None):
         super().__init__()
         self.session = session
         self.notices = tuple(notices)
+        self._after_first_frame = after_first_frame
         self.loading_screen = LoadingScreen(session)
         self._quit_warned = False
         self._key_in_flight: events.Key | None = None
@@ -200,6 +202,8 @@ class DeckloadApp(App[None]):
             self.session.journal.logbook.close()  # releases the writer's lock for the next start
 
     def on_mount(self) -> None:
+        if self._after_first_frame is not None:
+            self.call_after_refresh(self._after_first_frame)
         for n in self.notices:
             self.notify(n, severity="warning", timeout=12, markup=False)
 

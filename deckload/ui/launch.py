@@ -8,7 +8,7 @@ from __future__ import annotations
 
 import sys
 from pathlib import Path
-from typing import TYPE_CHECKING, NamedTuple
+from typing import TYPE_CHECKING, Callable, NamedTuple
 
 from deckload.core.model import Condition, Vessel
 
@@ -147,12 +147,14 @@ def _free_name(path: Path, suffix: str) -> Path:
 def create_app(
     vessel: Vessel, condition: Condition, *, work_dir: Path | None, log_dir: Path | None,
     notices=(), officer: str = "", profile_path: Path | None = None, result: Result | None = None,
+    after_first_frame: Callable[[], None] | None = None,
 ):
     """The app over a finished vessel and condition; saves to ``work_dir``, logs to ``log_dir``.
 
     ``officer``: initials of the officer of the watch, if known (else signed on with key o).
     ``result``: ``evaluate(vessel, condition)`` if the caller already has it (start-up's check,
     :attr:`Start.result`), so the screen does not evaluate the same condition twice.
+    ``after_first_frame``: called once the screen's first frame is drawn (start-up is over).
     """
     from deckload.ui.app import DeckloadApp
     from deckload.ui.session import Session, working_path
@@ -172,7 +174,7 @@ def create_app(
     session.profile_path = profile_path
     session.work_dir = work_dir
     session.reports_dir = paths.reports_dir(log_dir) if log_dir is not None else None
-    return DeckloadApp(session, notices=[*notices, *extra])
+    return DeckloadApp(session, notices=[*notices, *extra], after_first_frame=after_first_frame)
 
 
 def open_journal(log_dir: Path | None, vessel_name: str):
@@ -194,7 +196,9 @@ def open_journal(log_dir: Path | None, vessel_name: str):
     return journal
 
 
-def run_open(profile_path: Path | None, condition_path: Path | None) -> int:
+def run_open(profile_path: Path | None, condition_path: Path | None,
+             after_first_frame: Callable[[], None] | None = None) -> int:
+    """Read the files, build the app and run it; ``after_first_frame`` as for :func:`create_app`."""
     from deckload.io import paths
     from deckload.io.profiles import ProfileError
 
@@ -211,7 +215,7 @@ def run_open(profile_path: Path | None, condition_path: Path | None) -> int:
         return 2
     app = create_app(start.vessel, start.condition, work_dir=work_dir, log_dir=paths.log_dir(),
                      notices=start.notices, profile_path=profile_path or paths.DEMO_PROFILE,
-                     result=start.result)
+                     result=start.result, after_first_frame=after_first_frame)
     app.run()
     if getattr(app, "_exception", None) is not None:
         # The screen stopped on an error nobody foresaw: the boundary's message and crash file.

@@ -71,6 +71,10 @@ def _child(which: str, width: int, height: int, keys: int, out: str, spawned_at:
     marks = {"started": time.time()}
     fcntl.ioctl(sys.stdout.fileno(), termios.TIOCSWINSZ, struct.pack("HHHH", height, width, 0, 0))
     sys.path.insert(0, str(ROOT))
+    if which == "deckload":  # as deckload's main() does first (deckload.cli.startup)
+        from deckload.cli import startup
+
+        startup.pause()
     import asyncio
     import resource
 
@@ -192,9 +196,12 @@ def _deckload_app(marks: dict):
     tmp = Path(tempfile.mkdtemp(prefix="deckload-bench-"))
     start = load_inputs(None, paths.DEMO_CONDITIONS["departure"], tmp / "work")
     marks["profile and condition read"] = time.time()
-    # As `deckload open` does: the screen starts from the result start-up's check made.
+    # As `deckload open` does: the screen starts from the result start-up's check made, and the
+    # garbage collector paused for start-up runs again once the first frame is drawn.
+    from deckload.cli import startup
+
     app = create_app(start.vessel, start.condition, work_dir=tmp / "work", log_dir=tmp / "logs", officer="BM",
-                     result=start.result)
+                     result=start.result, after_first_frame=startup.resume_and_collect)
     marks["app made"] = time.time()
     app.bench_tmp = tmp
     save, app.saves = app.session._save, [0]
