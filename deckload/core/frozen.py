@@ -45,8 +45,9 @@ def _values(names: list[str]) -> Callable[[Any], tuple]:
 
 
 def _make(cls: T, eq: bool, kwargs: dict) -> T:
+    """``cls`` made a frozen dataclass, with the shared ``__eq__``, ``__hash__`` and ``__repr__``."""
     own = cls.__dict__
-    keys: dict[str, Callable[[Any], tuple]] = {}  # filled once the fields are known, below
+    keys: dict[str, Any] = {}  # the field getters (and the repr's names), once the fields are known
 
     def __eq__(self, other):
         if other.__class__ is self.__class__:
