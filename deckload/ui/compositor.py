@@ -8,7 +8,8 @@ for every key (about 250 lines), most of it thrown away.
 
 :class:`RowCompositor` renders each widget only over the band of its rows, from the first to
 the last, on which a region to repaint crosses the widget's columns; a widget no such region
-crosses is not rendered.  What the terminal receives is the same: textual's update writes a
+crosses is not rendered, nor one whose columns on each of those rows the widgets in front of it
+have already been rendered over (a container its children tile: the first strip for a cut wins).  What the terminal receives is the same: textual's update writes a
 row only inside the regions to repaint, and inside them every cut still gets the front-most
 widget's strip (a widget covering a cut there is rendered on that row, and textual renders a
 row of a widget the same whether the crop asked for is the whole widget or the band).
@@ -64,7 +65,9 @@ class RowCompositor(Compositor):
             return
         overlaps = crop.overlaps
         ys = sorted(rows)
-        for widget, (region, clip) in list(self.visible_widgets.items()):
+        drawn: dict[int, list[tuple[int, int]]] = {}
+        """Per screen row, the column spans [x1, x2) that widgets in front have been rendered over."""
+        for widget, (region, clip) in list(self.visible_widgets.items()):  # front to back
             if not overlaps(clip):
                 continue
             shown = region.intersection(clip)
@@ -76,7 +79,27 @@ class RowCompositor(Compositor):
                     if any(x1 <= right and x2 >= left for x1, x2 in rows[y])]
             if not band or not shown.width:
                 continue
+            if all(_covered(drawn.get(y), left, right) for y in band):
+                # A container whose children tile it: on each of these rows every cut of its
+                # columns already has a strip from a widget in front, and the first strip wins.
+                continue
             top, bottom = band[0], band[-1] + 1
             visible = Region(left, top, shown.width, bottom - top)
             yield (region, visible,
                    widget.render_lines(Region(left - region.x, top - region.y, shown.width, bottom - top)))
+            for y in range(top, bottom):
+                drawn.setdefault(y, []).append((left, right))
+
+
+def _covered(spans: list[tuple[int, int]] | None, left: int, right: int) -> bool:
+    """True when the spans [x1, x2) together cover the columns [left, right)."""
+    if not spans:
+        return False
+    reach = left
+    for x1, x2 in sorted(spans):
+        if x1 > reach:
+            return False
+        reach = max(reach, x2)
+        if reach >= right:
+            return True
+    return reach >= right
