@@ -35,6 +35,8 @@ def mdeg_to_mrad(area_mdeg: float) -> float:
 
 @frozen
 class Criterion:
+    """One criterion as data: the value it limits, the limit, the comparison and its source."""
+
     id: str
     description: str
     measure: str

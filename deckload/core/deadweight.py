@@ -29,6 +29,8 @@ _ITEM_LINE = {"hold": "cargo", "deck": "cargo", "constant": "stores"}
 
 @frozen
 class DeadweightLine:
+    """The mass of one kind of deadweight (cargo, a liquid, stores and constants)."""
+
     kind: str
     title: str
     mass_t: float

@@ -79,6 +79,8 @@ def frozen_array(a) -> np.ndarray:
 
 @frozen
 class Particulars:
+    """The vessel's main particulars, as the stability booklet gives them."""
+
     name: str
     """The vessel's name as shown on screens and reports."""
     lbp_m: float
@@ -254,6 +256,8 @@ class FluidTransfer:
 
 @frozen(eq=False)
 class Tank:
+    """A tank: its liquid, capacity, centres and calibration (sounding) table, and how its free surface is found."""
+
     id: str
     """Short unique identifier typed by the user, e.g. 'DB2P'."""
     name: str
@@ -304,6 +308,8 @@ class Tank:
 
 @frozen(eq=False)
 class Hold:
+    """A cargo hold: capacity, centroid (or centroid against fill) and mass limit."""
+
     id: str
     """Short unique identifier, e.g. 'H1'."""
     name: str
@@ -328,6 +334,8 @@ class Hold:
 
 @frozen
 class DeckArea:
+    """An area of deck that takes deck cargo: its extent, height and permissible load."""
+
     id: str
     """Short unique identifier, e.g. 'AFTDECK'."""
     name: str
@@ -346,6 +354,8 @@ class DeckArea:
 
 @frozen
 class LoadLine:
+    """A load-line mark and the draft it stands for."""
+
     name: str
     """Mark name, e.g. 'summer', 'tropical', 'winter', 'fresh'."""
     draft_m: float
@@ -454,6 +464,8 @@ class DraftMarks:
 
 @frozen
 class CriteriaSettings:
+    """Which intact-stability criteria apply to the vessel, and any stricter values of the Administration."""
+
     code: str = "IS2008-A2.2"
     """Legacy key: 'IS2008-A2.2' (still accepted) means the general criteria."""
     min_gm_m: float | None = None
@@ -474,6 +486,8 @@ class CriteriaSettings:
 
 @frozen
 class FreeSurfaceSettings:
+    """How free surface is taken: the IS 2008 Part B 3.1 treatment or actual levels, and how GZ is corrected."""
+
     rule: FsRule = "is2008"
     """'is2008' (Part B 3.1 treatment) or 'actual' (every tank at its actual level)."""
     gz_correction: GzCorrection = "constant"
@@ -559,6 +573,8 @@ class Vessel:
 
 @frozen
 class TankFill:
+    """One tank's contents in a condition, as stated by the officer (percent, m³, t, sounding or ullage)."""
+
     tank_id: str
     """Which tank."""
     quantity: str
@@ -571,6 +587,8 @@ class TankFill:
 
 @frozen
 class HoldLoad:
+    """Cargo in one hold in a condition, with its stowage factor or centre where known."""
+
     hold_id: str
     """Which hold."""
     mass_t: float
@@ -589,6 +607,8 @@ class HoldLoad:
 
 @frozen
 class DeckItem(MassItem):
+    """A deck load in a condition: a mass item on a deck area, with its footprint and windage."""
+
     area_id: str | None = None
     """Deck area the item stands on, for the deck-load check."""
     footprint_m2: float | None = None

@@ -15,6 +15,8 @@ TANK_STATES = ("empty", "slack", "worst_band", "full")
 
 @frozen
 class TankResult:
+    """One tank in an evaluated condition: contents, centres and free-surface moment."""
+
     id: str
     name: str
     kind: str
@@ -57,6 +59,8 @@ class ItemResult:
 
 @frozen
 class CriterionResult:
+    """One criterion assessed: the value, the limit, pass or fail, and its source."""
+
     id: str
     """Stable identifier, e.g. 'IS2008-A2.2.1-area-0-30'."""
     description: str
@@ -156,6 +160,8 @@ class WeatherResult:
 
 @frozen
 class Warning:
+    """A warning raised by the evaluation, with a code for machines and words for the officer."""
+
     code: str
     """Short machine-readable code, e.g. 'slack-worst-band', 'criterion-failed'."""
     message: str
@@ -166,6 +172,9 @@ class Warning:
 
 @frozen
 class Result:
+    """Everything computed for one condition: weights, free surface, floating position, GZ curve,
+    criteria and warnings.  Views, the log and the report read it and never recompute."""
+
     vessel_name: str
     condition_name: str
     water_density_t_m3: float

@@ -60,6 +60,8 @@ class SoundingError(LoadingError):
 
 @frozen
 class CorrectedSounding:
+    """A sounding read trimmed or listed, turned into the even-keel sounding of the same volume."""
+
     tank_id: str
     observed_m: float
     """The sounding read at the pipe (m)."""

@@ -39,6 +39,8 @@ class TrimError(LoadingError):
 
 @frozen
 class TrimMoment:
+    """The moment to change trim used for a condition, and what it was taken from."""
+
     mctc_tm_cm: float
     """Moment to change trim 1 cm (t·m/cm) used for the trim."""
     basis: str

@@ -86,6 +86,8 @@ class Afloat:
 
 @frozen
 class Verdict:
+    """The criteria assessed for a condition, the sets they belong to, and what could not be assessed."""
+
     criteria: tuple[CriterionResult, ...]
     sets: tuple[AssessedSet, ...]
     not_assessed: tuple[NotAssessed, ...]

@@ -140,6 +140,8 @@ def fishing_wind_pressure_pa(height_above_wl_m: float) -> float:
 
 @frozen
 class RollInputs:
+    """What the angle of roll θ1 of IS 2008 Part A 2.3 is computed from."""
+
     breadth_m: float
     draft_m: float
     """Mean moulded draft d (m)."""
@@ -154,6 +156,8 @@ class RollInputs:
 
 @frozen
 class Roll:
+    """The angle of roll θ1 and the factors it was computed with (IS 2008 Part A 2.3)."""
+
     period_s: float
     k: float
     x1: float
@@ -247,6 +251,8 @@ class Curve:
 
 @frozen
 class WeatherFacts:
+    """The weather criterion's levers, angles and areas for one condition (IS 2008 Part A 2.3)."""
+
     lw1_m: float
     lw2_m: float
     theta0_deg: float | None

@@ -27,6 +27,8 @@ MAX_NAME_CHARS = 80
 
 @frozen
 class Named:
+    """A condition found by name: the name to type, its title, its file and where it comes from."""
+
     key: str
     """Short name to type (``departure``, ``my-arrival``, ``working``)."""
     title: str

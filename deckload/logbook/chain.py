@@ -24,6 +24,8 @@ GENESIS_SHA256 = "0" * 64
 
 @frozen
 class VerifyReport:
+    """What verifying a voyage log found: whether the chain holds, and each problem by line."""
+
     ok: bool
     """True when every line reads and the chain and head record agree."""
     problems: list[str]

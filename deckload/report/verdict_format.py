@@ -32,6 +32,8 @@ _IS2008 = "IS Code 2008 "
 
 @frozen
 class SetGroup:
+    """One criteria set with its criteria, for the views that list the verdict set by set."""
+
     set: AssessedSet
     criteria: tuple[CriterionResult, ...]
 

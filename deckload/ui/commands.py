@@ -13,6 +13,8 @@ _KEY_SIGNS = {"plus": "+", "minus": "-", "enter": "⏎", "question_mark": "?", "
 
 @frozen
 class Command:
+    """A command of the loading screen: its key, footer label, help text and palette title."""
+
     action: str
     """Action name on the loading screen (``action_<name>``)."""
     keys: str

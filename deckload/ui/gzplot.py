@@ -24,6 +24,8 @@ _BITS = ((0x01, 0x02, 0x04, 0x40), (0x08, 0x10, 0x20, 0x80))
 
 @frozen
 class Mark:
+    """An angle marked on the GZ chart (θ0, the list, a flooding angle...), with its label."""
+
     angle_deg: float
     label: str
     style: str = "gz.mark"
@@ -56,6 +58,8 @@ class Area:
 
 @frozen
 class GzChart:
+    """A GZ curve drawn in text cells: the points, the marks and the chart's size in cells."""
+
     heel_deg: tuple[float, ...]
     gz_m: tuple[float, ...]
     marks: tuple[Mark, ...] = ()

@@ -70,6 +70,8 @@ class _Write:
 
 @dataclass
 class _Plan:
+    """A plan under way: the condition it started from, its title and the changes made in it."""
+
     base: Condition
     title: str
     labels: list[str] = field(default_factory=list)

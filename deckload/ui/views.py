@@ -71,6 +71,8 @@ def opt(value: float | None, fmt: str) -> str:
 
 @frozen
 class Row:
+    """One line of the loading board, with the key of the item it shows."""
+
     key: tuple | None
     """('tank', id), ('hold', id), ('deck', i) or ('const', i); None for a heading line."""
     text: Text
@@ -428,6 +430,8 @@ def gz_caption(result: Result | None, width: int | None = None) -> Text:
 
 @frozen
 class Alert:
+    """One line of the alert strip: a danger or a caution, in words."""
+
     severity: str
     """'danger' or 'caution'."""
     text: str

@@ -19,6 +19,8 @@ from deckload.core.geometry.sections import HeeledEdges, area_chord_below, cut_s
 
 @frozen(eq=False)
 class Body:
+    """A hull or a compartment as sections: station positions and the closed outline of each section."""
+
     x_m: np.ndarray
     """Station positions (m from AP)."""
     y_m: np.ndarray
