@@ -274,10 +274,11 @@ async def test_the_transfer_preview_shows_every_criterion_row(app, size):
 
 @pytest.mark.parametrize("size", [(80, 24), (120, 40)])
 async def test_the_verdict_page_fits_the_screen_and_keeps_its_caution_whole(app, size):
+    app.animation_level = "none"  # End jumps to the page's end instead of scrolling there for a second
     async with app.run_test(size=size) as pilot:
         await pilot.press("v", "end")
         await pilot.pause()
-        await pilot.wait_for_scheduled_animations()  # End scrolls smoothly
+        await pilot.wait_for_scheduled_animations()
         rows = screen_text(app)
         assert all(len(r) <= size[0] for r in rows)
         assert ("deckload supports, and never replaces, the approved stability booklet, the master's judgement "
@@ -427,8 +428,9 @@ async def test_end_typed_as_a_page_opens_shows_the_pages_end(app, keys):
     and scrolls it to its last line, the caution."""
     from deckload.ui.dialogs import HelpScreen, TextScreen
 
+    app.animation_level = "none"  # End jumps to the page's end instead of scrolling there for a second
     async with app.run_test(size=(80, 24)) as pilot:
         await type_fast(app, pilot, keys)
-        await pilot.wait_for_scheduled_animations()  # End scrolls smoothly
+        await pilot.wait_for_scheduled_animations()
         assert isinstance(app.screen, (TextScreen, HelpScreen))
         assert "flag-State and class rules." in region_text(app, ".form")
