@@ -24,8 +24,6 @@ from __future__ import annotations
 import html as htmllib
 import io
 import math
-import sys
-from pathlib import Path
 
 import numpy as np
 from rich import box
