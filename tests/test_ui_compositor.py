@@ -91,7 +91,7 @@ async def test_row_updates_write_what_textual_would(app):
                 assert _shown(panel) == [t.plain.rstrip()[:panel.size.width] for t in panel.lines], panel.id
                 # The panels draw their lines without textual's per-line border and padding walk
                 # (LinePanel._bare_lines): segment for segment what textual's own way gives.
-                assert panel._plain_box(), panel.id
+                assert panel._plain_box(panel.size), panel.id
                 w, h = panel.size
                 for crop in (Region(0, 0, w, h), Region(3, 0, w - 5, h), Region(0, h - 1, w, 1)):
                     panel._painted = None

@@ -230,7 +230,7 @@ def _cargo_rows(vessel: Vessel, condition: Condition, cols: TankCols) -> list[Ro
         load = loads.get(hold.id)
         name = f"{hold.id} {hold.name}" + (f": {load.description}" if load and load.description else "")
         # the hold's limit: the first spelling that fits the cells after the mass
-        limit = [] if hold.max_mass_t is None else [f" of {hold.max_mass_t:g} t", f" of {hold.max_mass_t:g}"]
+        limit = () if hold.max_mass_t is None else (f" of {hold.max_mass_t:g} t", f" of {hold.max_mass_t:g}")
         rows.append(Row(("hold", hold.id), _mass_line("hold", name, load.mass_t if load else 0.0, limit, cols, one=True)))
     for i, item in enumerate(condition.deck_items):
         rows.append(Row(("deck", i), _mass_line("deck", item.name, item.mass_t, _position(item, getattr(item, "area_id", None)), cols)))
@@ -251,16 +251,19 @@ def side_offset(tcg_m: float) -> str:
     return f"{abs(tcg_m):.1f}{'S' if tcg_m > 0 else 'P'}"
 
 
-def _position(item, area: str | None) -> list[str]:
+def _position(item, area: str | None) -> tuple[str, ...]:
     """An item's centre of gravity (x from the aft perpendicular, z above keel, side), then its deck area."""
-    parts = [f" x{item.lcg_m:5.1f} z{item.vcg_m:4.1f}", f" y {side_offset(item.tcg_m)}"]
-    return parts + ([f" {area}"] if area else [])
+    parts = (f" x{item.lcg_m:5.1f} z{item.vcg_m:4.1f}", f" y {side_offset(item.tcg_m)}")
+    return parts + ((f" {area}",) if area else ())
 
 
-def _mass_line(tag: str, name: str, mass_t: float, after: list[str], cols: TankCols, one: bool = False) -> Text:
+@functools.lru_cache(maxsize=1024)
+def _mass_line(tag: str, name: str, mass_t: float, after: tuple[str, ...], cols: TankCols, one: bool = False) -> Text:
     """' deck  20 ft container, bu…   14.00  x  6.5 z 5.8': tag, name shortened with '…', the mass
     ending where the tanks' t column ends, then as many of ``after`` (in order) as fit the cells
-    left (``one``: only the first of them that fits, they are spellings of one note)."""
+    left (``one``: only the first of them that fits, they are spellings of one note).  Kept for the
+    same values, as :func:`_tank_line` (a nudge of a tank changes no hold, deck or constant line):
+    the Text is shared, so it is never modified after it is made."""
     line = Text(f" {tag:<5} ", P["label"])
     line.append(fit(name, cols.t_start - 8), P["value"])
     line.append(f" {mass_t:8.2f}", P["value"])

@@ -140,24 +140,25 @@ class LinePanel(Widget):
     def render_lines(self, crop: Region) -> list[Strip]:
         app = self.app
         colours = self.background_colors
+        size = self.size  # (a walk through textual's geometry each time it is read)
         # (A change of theme restyles, and so marks dirty, every widget.)
-        made_for = (crop, self.size, colours, tuple((f, f.enabled) for f in app._filters))
+        made_for = (crop, size, colours, tuple((f, f.enabled) for f in app._filters))
         painted = self._painted
         if painted is not None and painted[0] == made_for:
             return list(painted[1])
         # Style and width once for every line of this pass: each is a walk up the parents.
-        style, self._width = self.rich_style, self.size.width
+        style, self._width = self.rich_style, size.width
         if style != self._style:
             self._style = style
             self._strips.clear()
         try:
-            strips = self._bare_lines(crop, colours[1]) if self._plain_box() else super().render_lines(crop)
+            strips = self._bare_lines(crop, colours[1], size) if self._plain_box(size) else super().render_lines(crop)
         finally:
             self._width = None
         self._painted = (made_for, strips)
         return list(strips)
 
-    def _plain_box(self) -> bool:
+    def _plain_box(self, size: Size) -> bool:
         """True when textual would put this panel's lines on the screen as they are: no border,
         padding, outline, tint, hatch, opacity or text opacity, no border title, no scroll bar
         and no link under the mouse (the panels' styles in deckload.tcss)."""
@@ -166,9 +167,9 @@ class LinePanel(Widget):
                 and st.text_opacity == 1.0 and not st.has_rule("hatch") and self.opacity == 1.0
                 and self._border_title is None and self._border_subtitle is None
                 and not (self.auto_links and self.hover_style._link_id)
-                and self.content_region.size == self.size)
+                and self.content_region.size == size)
 
-    def _bare_lines(self, crop: Region, background) -> list[Strip]:
+    def _bare_lines(self, crop: Region, background, size: Size) -> list[Strip]:
         """What textual's line cache (``StylesCache.render_widget``) gives for a plain box (see
         :meth:`_plain_box`): each content line as it is, through the app's line filters, cropped
         to the columns asked for; without its per-line walk through every border, padding and
@@ -182,7 +183,7 @@ class LinePanel(Widget):
                 strip = strip.apply_filter(f, background)
             strips.append(strip)
         x1, x2 = crop.column_span
-        if (x1, x2) != (0, self.size.width):
+        if (x1, x2) != (0, size.width):
             strips = [strip.crop(x1, x2) for strip in strips]
         return strips
 
@@ -229,10 +230,10 @@ class SizedPanel(LinePanel):
             self._redraw()
 
     def _redraw(self) -> None:
-        w, h = self.size.width, self.size.height
-        if self._builder is not None and w > 0 and h > 0:
-            self._built_for = self.size
-            self.set_lines(self._builder(w, h))
+        size = self.size
+        if self._builder is not None and size.width > 0 and size.height > 0:
+            self._built_for = size
+            self.set_lines(self._builder(size.width, size.height))
 
     def render_lines(self, crop: Region) -> list[Strip]:
         # textual draws a layout before it tells the widgets their new size (the Resize event
