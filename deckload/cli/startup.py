@@ -1,14 +1,15 @@
 """Start-up without the cyclic garbage collector.
 
-A start of deckload makes some 90,000 objects that live until it ends: modules, classes, the
-vessel, the screen.  Python's cyclic collector runs after every 700 new objects and walks the
-young ones again and again while they are made: about 120 collections, 20–40 ms of a 0.4 s
-start on the test machine (``tests/benchmarks/bench_ui.py``, ``bench_start.py``).  Almost none
-of them can be garbage yet, so :func:`pause` stops the collector from the first line of
+A start of the loading screen makes some 90,000 objects the collector tracks, 50,000 of which
+live until the program ends: modules, classes, the vessel, the screen.  Python's cyclic collector
+runs after every 700 new objects and walks the young ones again and again while they are made:
+about 120 collections, 20–40 ms of a 0.4 s start on the test machine (measured 3 December 2026;
+``tests/benchmarks/bench_ui.py``).  So :func:`pause` stops the collector from the first line of
 ``deckload.cli.main.main`` until start-up is over:
 
-* the loading screen resumes it once its first frame is drawn, and collects once then: start-up's
-  few cycles go at a moment no key waits for (``create_app(after_first_frame=resume_and_collect)``);
+* the loading screen resumes it once its first frame is drawn, and collects once then: what
+  start-up left (some 600 cycles) goes at a moment no key waits for
+  (``create_app(after_first_frame=resume_and_collect)``);
 * ``tables`` and ``log``, which may run long over large inputs, resume it before their work;
 * the other commands read one profile and one condition and end before it would matter;
 * ``main`` resumes it when it returns, whatever happened (the tests call ``main`` in one process).
