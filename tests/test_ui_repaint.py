@@ -145,3 +145,26 @@ async def test_the_criteria_panel_follows_its_number_of_lines(app):
         assert criteria.size.height == len(criteria.lines) == len(want)
         assert [t.plain for t in criteria.lines] == [t.plain for t in want]
         assert criteria.size.height + gz.size.height + 11 == side.size.height
+
+
+async def test_the_criteria_panel_keeps_to_its_lines_through_resizes(app):
+    """Wide, the criteria panel is exactly as tall as its lines for the side panel's height (what
+    ``criteria_lines`` gives for the room the 'Afloat' panel and 10 rows of curve leave, at least 4);
+    narrow (under 110 columns) it takes the rest of the side and its lines fit it.  Checked after
+    each resize of a sequence that crosses the narrow width both ways."""
+    from deckload.ui.verdict import criteria_lines
+
+    async with app.run_test(size=(120, 40)) as pilot:
+        for size in [(160, 50), (80, 24), (120, 40), (200, 60), (110, 30), (109, 30), (130, 28)]:
+            await pilot.resize_terminal(*size)
+            for _ in range(3):
+                await pilot.pause()
+            screen = app.loading_screen
+            criteria, side = screen.query_one("#criteria", LinePanel), screen.query_one("#side")
+            if size[0] < 110:
+                assert screen.has_class("-narrow") and len(criteria.lines) <= criteria.size.height, size
+                continue
+            room = max(4, side.size.height - 11 - 10)
+            want = criteria_lines(app.session.result, False, side.size.width, room)
+            assert criteria.size.height == len(criteria.lines) == len(want), size
+            assert [t.plain for t in criteria.lines] == [t.plain for t in want], size
