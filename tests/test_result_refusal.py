@@ -44,12 +44,17 @@ def test_a_sum_that_overflows_is_not_a_refusal():
     the number-by-number check finds nothing wrong and the result passes."""
     r = dataclasses.replace(OK, displacement_t=1e308, lightship_t=1e308)
     assert checked_result(VESSEL, r) is r
+    r = dataclasses.replace(OK, gz_m=(1e308, 1e308, 0.0))  # a tuple of floats is summed in one call
+    assert checked_result(VESSEL, r) is r
 
 
 @pytest.mark.parametrize("spoil, path", [
     (lambda r: dataclasses.replace(r, gm_fluid_m=math.nan), "gm_fluid_m"),
     (lambda r: dataclasses.replace(r, kg_m=np.float64("inf")), "kg_m"),
     (lambda r: dataclasses.replace(r, gz_m=(0.0, 0.1, -math.inf)), "gz_m[2]"),
+    (lambda r: dataclasses.replace(r, gz_m=[0.0, math.nan, 0.2]), "gz_m[1]"),
+    (lambda r: dataclasses.replace(r, gz_m=(0.0, np.float64("inf"), 0.2)), "gz_m[1]"),
+    (lambda r: dataclasses.replace(r, gz_m=(0.0, None, math.inf)), "gz_m[2]"),
     (lambda r: dataclasses.replace(r, gz_m=np.array([0.0, math.nan, 0.2])), "gz_m[1]"),
     (lambda r: dataclasses.replace(r, tanks=(dataclasses.replace(r.tanks[0], fsm_tm=math.inf),)), "tanks[0].fsm_tm"),
     (lambda r: dataclasses.replace(r, weather=dataclasses.replace(WEATHER, lw1_m=math.nan)), "weather.lw1_m"),

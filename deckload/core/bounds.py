@@ -34,6 +34,8 @@ from __future__ import annotations
 import dataclasses
 import functools
 import math
+import operator
+from typing import Callable
 
 import numpy as np
 
@@ -191,9 +193,25 @@ class BeyondTablesError(OutOfRangeError):
     """The condition puts an end of the ship where the upright tables do not reach."""
 
 
-_FIELD_NAMES: dict[type, tuple[str, ...]] = {}
-"""Per dataclass type, its field names: looked up once per type, not once per object."""
+_FIELD_VALUES: dict[type, Callable[[object], tuple]] = {}
+"""Per dataclass type, a getter of its field values as one tuple: made once per type, not per object."""
 _PLAIN = frozenset((str, bool, int, type(None)))
+
+
+def _field_values(t: type, obj) -> Callable[[object], tuple]:
+    names = tuple(f.name for f in dataclasses.fields(obj))
+    if len(names) >= 2:
+        getter = operator.attrgetter(*names)
+    elif names:
+        one = operator.attrgetter(names[0])
+
+        def getter(o):
+            return (one(o),)
+    else:
+        def getter(o):
+            return ()
+    _FIELD_VALUES[t] = getter
+    return getter
 
 
 def _all_finite(obj) -> bool:
@@ -201,15 +219,17 @@ def _all_finite(obj) -> bool:
     path strings are built); False sends :func:`_non_finite` the slow way to name the bad one.
 
     One walk without recursion: the floats met are gathered and summed once, each numpy array
-    of floats is checked in one call.  A sum of floats is finite only if every one of them is
-    (an infinity or a NaN makes the sum infinite or NaN, derived from IEEE 754 addition); a
-    finite sum that overflowed is a false alarm the slow pass clears.  Anything not known
-    here (another type) is False: the slow pass decides."""
+    of floats is checked in one call, a tuple or list of plain floats (a GZ curve) is summed in
+    one call, and a record's plain values are taken from it in one call, not put on the stack
+    one by one.  A sum of floats is finite only if every one of them is (an infinity or a NaN
+    makes the sum infinite or NaN, derived from IEEE 754 addition); a finite sum that overflowed
+    is a false alarm the slow pass clears.  Anything not known here (another type) is False:
+    the slow pass decides."""
     floats: list[float] = []
     keep = floats.append
     stack = [obj]
     pop, push, extend = stack.pop, stack.append, stack.extend
-    names_of = _FIELD_NAMES.get
+    getter_of = _FIELD_VALUES.get
     while stack:
         o = pop()
         t = type(o)
@@ -218,12 +238,21 @@ def _all_finite(obj) -> bool:
         elif t in _PLAIN:
             continue
         elif t is tuple or t is list:
+            if o and type(o[0]) is float:
+                try:
+                    total = sum(o)  # raises on a string, None or a record among them
+                except TypeError:
+                    extend(o)
+                    continue
+                if type(total) is float:  # else numpy scalars or arrays among them: one by one
+                    keep(total)
+                    continue
             extend(o)
         else:
-            names = names_of(t)
-            if names is None:
+            getter = getter_of(t)
+            if getter is None:
                 if dataclasses.is_dataclass(o) and not isinstance(o, type):
-                    names = _FIELD_NAMES[t] = tuple(f.name for f in dataclasses.fields(o))
+                    getter = _field_values(t, o)
                 elif t is np.ndarray:
                     if o.dtype.kind in "fc":
                         if not np.isfinite(o).all():
@@ -236,8 +265,12 @@ def _all_finite(obj) -> bool:
                     continue
                 else:
                     return False
-            for n in names:
-                push(getattr(o, n))
+            for v in getter(o):
+                tv = type(v)
+                if tv is float:
+                    keep(v)
+                elif tv not in _PLAIN:
+                    push(v)
     return math.isfinite(sum(floats))
 
 
