@@ -13,6 +13,7 @@ import pytest
 from deckload.io import paths
 from deckload.io.profiles import load_condition
 from deckload.ui.launch import create_app
+from deckload.ui.main_screen import MIN_CURVE_ROWS
 from deckload.ui.widgets import LinePanel, LoadBoard
 from demo_vessels import demo_vessel
 
@@ -120,7 +121,7 @@ async def test_the_first_frame_drawn_is_the_whole_screen(app, monkeypatch, size)
         criteria = screen.query_one("#criteria", LinePanel)
         if size[0] >= 110:  # wide: the criteria panel exactly as tall as its lines, the curve below
             assert criteria.size.height == len(criteria.lines) > 4
-            assert screen.query_one("#gz").size.height >= 10
+            assert screen.query_one("#gz").size.height >= MIN_CURVE_ROWS
 
 
 async def test_the_criteria_panel_follows_its_number_of_lines(app):
@@ -140,11 +141,12 @@ async def test_the_criteria_panel_follows_its_number_of_lines(app):
         for _ in range(3):
             await pilot.pause()
         r = app.session.result
-        want = criteria_lines(r, False, side.size.width, side.size.height - 11 - 10)
+        afloat = screen.query_one("#afloat").size.height
+        want = criteria_lines(r, False, side.size.width, side.size.height - afloat - MIN_CURVE_ROWS)
         assert len(want) != before  # this pair of demo conditions differs in the count of lines
         assert criteria.size.height == len(criteria.lines) == len(want)
         assert [t.plain for t in criteria.lines] == [t.plain for t in want]
-        assert criteria.size.height + gz.size.height + 11 == side.size.height
+        assert criteria.size.height + gz.size.height + afloat == side.size.height
 
 
 async def test_the_criteria_panel_keeps_to_its_lines_through_resizes(app):
@@ -164,7 +166,7 @@ async def test_the_criteria_panel_keeps_to_its_lines_through_resizes(app):
             if size[0] < 110:
                 assert screen.has_class("-narrow") and len(criteria.lines) <= criteria.size.height, size
                 continue
-            room = max(4, side.size.height - 11 - 10)
+            room = max(4, side.size.height - screen.query_one("#afloat").size.height - MIN_CURVE_ROWS)
             want = criteria_lines(app.session.result, False, side.size.width, room)
             assert criteria.size.height == len(criteria.lines) == len(want), size
             assert [t.plain for t in criteria.lines] == [t.plain for t in want], size

@@ -34,12 +34,11 @@ from __future__ import annotations
 import dataclasses
 import functools
 import math
-import operator
 from typing import Callable
 
 import numpy as np
 
-from deckload.core.frozen import frozen
+from deckload.core.frozen import frozen, values_getter
 from deckload.core.model import Particulars, Vessel
 from deckload.core.tables import OutOfRangeError
 
@@ -198,22 +197,6 @@ _FIELD_VALUES: dict[type, Callable[[object], tuple]] = {}
 _PLAIN = frozenset((str, bool, int, type(None)))
 
 
-def _field_values(t: type, obj) -> Callable[[object], tuple]:
-    names = tuple(f.name for f in dataclasses.fields(obj))
-    if len(names) >= 2:
-        getter = operator.attrgetter(*names)
-    elif names:
-        one = operator.attrgetter(names[0])
-
-        def getter(o):
-            return (one(o),)
-    else:
-        def getter(o):
-            return ()
-    _FIELD_VALUES[t] = getter
-    return getter
-
-
 def _all_finite(obj) -> bool:
     """True when every number in ``obj`` is certainly finite: the quick pass over a result (no
     path strings are built); False sends :func:`_non_finite` the slow way to name the bad one.
@@ -252,7 +235,7 @@ def _all_finite(obj) -> bool:
             getter = getter_of(t)
             if getter is None:
                 if dataclasses.is_dataclass(o) and not isinstance(o, type):
-                    getter = _field_values(t, o)
+                    getter = _FIELD_VALUES[t] = values_getter([f.name for f in dataclasses.fields(o)])
                 elif t is np.ndarray:
                     if o.dtype.kind in "fc":
                         if not np.isfinite(o).all():

@@ -34,7 +34,7 @@ from typing import Any, Callable, TypeVar
 T = TypeVar("T", bound=type)
 
 
-def _values(names: list[str]) -> Callable[[Any], tuple]:
+def values_getter(names) -> Callable[[Any], tuple]:
     """The named attributes of an object as one tuple (``attrgetter`` gives a bare value for one name)."""
     if not names:
         return lambda obj: ()
@@ -80,10 +80,10 @@ def _make(cls: T, eq: bool, kwargs: dict) -> T:
             cls.__hash__ = __hash__
     made = dataclasses.dataclass(cls, frozen=True, eq=False, repr=False, **kwargs)
     fields = dataclasses.fields(made)
-    keys["compare"] = _values([f.name for f in fields if f.compare])
-    keys["hash"] = _values([f.name for f in fields if (f.compare if f.hash is None else f.hash)])
+    keys["compare"] = values_getter([f.name for f in fields if f.compare])
+    keys["hash"] = values_getter([f.name for f in fields if (f.compare if f.hash is None else f.hash)])
     keys["repr names"] = [f.name for f in fields if f.repr]
-    keys["repr"] = _values(keys["repr names"])
+    keys["repr"] = values_getter(keys["repr names"])
     return made
 
 

@@ -74,8 +74,9 @@ def enabled() -> bool:
 
 def cache_dir() -> Path:
     """``$DECKLOAD_CACHE_DIR`` when set, else ``data_home()/cache/profiles``."""
-    if os.environ.get("DECKLOAD_CACHE_DIR"):
-        return Path(os.environ["DECKLOAD_CACHE_DIR"])
+    own = os.environ.get("DECKLOAD_CACHE_DIR")
+    if own:
+        return Path(own)
     from deckload.io.paths import data_home
 
     return data_home() / "cache" / "profiles"

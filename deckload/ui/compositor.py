@@ -9,8 +9,8 @@ for every key (about 250 lines), most of it thrown away.
 :class:`RowCompositor` renders each widget only over the band of its rows, from the first to
 the last, on which a region to repaint crosses the widget's columns; a widget no such region
 crosses is not rendered, nor one whose columns on each of those rows the widgets in front of it
-have already been rendered over (a container its children tile: the first strip for a cut wins).  What the terminal receives is the same: textual's update writes a
-row only inside the regions to repaint, and inside them every cut still gets the front-most
+have already been rendered over (a container its children tile: the first strip for a cut wins).
+What the terminal receives is the same: textual's update writes a row only inside the regions to repaint, and inside them every cut still gets the front-most
 widget's strip (a widget covering a cut there is rendered on that row, and textual renders a
 row of a widget the same whether the crop asked for is the whole widget or the band).
 ``tests/test_ui_compositor.py`` compares the two updates byte for byte.
@@ -65,8 +65,7 @@ class RowCompositor(Compositor):
             return
         overlaps = crop.overlaps
         ys = sorted(rows)
-        drawn: dict[int, list[tuple[int, int]]] = {}
-        """Per screen row, the column spans [x1, x2) that widgets in front have been rendered over."""
+        drawn: dict[int, list[tuple[int, int]]] = {}  # per row, the spans [x1, x2) rendered in front
         for widget, (region, clip) in list(self.visible_widgets.items()):  # front to back
             if not overlaps(clip):
                 continue
@@ -102,4 +101,4 @@ def _covered(spans: list[tuple[int, int]] | None, left: int, right: int) -> bool
         reach = max(reach, x2)
         if reach >= right:
             return True
-    return reach >= right
+    return False

@@ -229,21 +229,28 @@ class SizedPanel(LinePanel):
             self._strips.clear()
             self._redraw()
 
+    def _built(self, size: Size) -> list[Text] | None:
+        """The builder's lines at ``size``, noted as built for it; None without a builder or a size."""
+        if self._builder is None or size.width <= 0 or size.height <= 0:
+            return None
+        self._built_for = size
+        return self._builder(size.width, size.height)
+
     def _redraw(self) -> None:
-        size = self.size
-        if self._builder is not None and size.width > 0 and size.height > 0:
-            self._built_for = size
-            self.set_lines(self._builder(size.width, size.height))
+        lines = self._built(self.size)
+        if lines is not None:
+            self.set_lines(lines)
 
     def render_lines(self, crop: Region) -> list[Strip]:
         # textual draws a layout before it tells the widgets their new size (the Resize event
         # comes after the frame): the lines are built here, at the size being drawn, so that the
         # first frame after a layout already holds them.
         size = self.size
-        if self._builder is not None and self._built_for != size and size.width > 0 and size.height > 0:
-            self._built_for = size
-            self._lines = self._builder(size.width, size.height)
-            self._strips.clear()
+        if self._built_for != size:
+            lines = self._built(size)
+            if lines is not None:
+                self._lines = lines  # no repaint to ask for: this is the render
+                self._strips.clear()
         return super().render_lines(crop)
 
 
