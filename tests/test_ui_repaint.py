@@ -170,3 +170,49 @@ async def test_the_criteria_panel_keeps_to_its_lines_through_resizes(app):
             want = criteria_lines(app.session.result, False, side.size.width, room)
             assert criteria.size.height == len(criteria.lines) == len(want), size
             assert [t.plain for t in criteria.lines] == [t.plain for t in want], size
+
+
+async def test_a_change_goes_to_the_writer_only_after_its_frame_is_drawn(app, monkeypatch):
+    """The session hands a change's save and log entry to the writer thread once the change's
+    frame is drawn (``Session.write_in_background``: the writer's work would otherwise take the
+    interpreter from the frame).  textual runs ``call_after_refresh`` callbacks at the screen's
+    first idle with no repaint pending: a panel that told the screen of its repaint only at its own
+    idle left the screen looking idle, and the writes went to the writer before the frame.  Each
+    nudge here must reach the terminal before its writes are handed over."""
+    from textual.app import App
+
+    events: list[str] = []
+    display = App._display
+
+    def spy(self, screen, renderable):
+        display(self, screen, renderable)
+        if renderable is not None:
+            events.append("frame")
+
+    monkeypatch.setattr(App, "_display", spy)
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        session = app.loading_screen.session
+        commit, release = session.commit, session.release_writes
+
+        def committed(*args, **kwargs):
+            events.append("change")
+            return commit(*args, **kwargs)
+
+        def released():
+            if session._held:
+                events.append("writes")
+            release()
+
+        monkeypatch.setattr(session, "commit", committed)
+        monkeypatch.setattr(session, "release_writes", released)
+        for key in ("plus", "minus", "plus"):
+            await pilot.press(key)
+            await pilot.pause()
+        session.flush()
+    # (flushing at the end hands over one more: the run of nudges settles into its log entry)
+    changes = [i for i, e in enumerate(events) if e == "change"]
+    assert len(changes) == 3, events
+    for c in changes:
+        w = events.index("writes", c)
+        assert "frame" in events[c:w], events

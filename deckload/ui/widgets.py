@@ -86,6 +86,29 @@ def _line_strip(text: Text, width: int, own: Style, console) -> Strip:
     return Strip(segments, width)
 
 
+def _repaint(widget: Widget, *regions: Region) -> None:
+    """``widget.refresh(*regions)``, and the screen told at once that the widget is to be repainted.
+
+    textual hears of a repaint at the widget's next idle: its message loop wakes, posts an
+    ``Update`` to the screen, and the screen wakes again to take it, one round through the event
+    loop for each panel a key changed.  Until the last of them lands the screen may look idle,
+    and then it runs the callbacks meant for after the frame (``call_after_refresh``) before the
+    frame: the session's writes (``Session.write_in_background``) went to the writer thread while
+    the frame was still being drawn and took the interpreter from it.  Here the widget is added to
+    the screen's repaint set as ``Screen._on_update`` does, so the frame waits for nothing and the
+    callbacks for after it wait for it (``tests/test_ui_repaint.py``).  A layout, a scroll or a
+    widget not yet laid out takes textual's own way.
+    """
+    widget.refresh(*regions)
+    if not (widget._repaint_required and widget._is_mounted and widget.display) or widget._closing:
+        return
+    screen = widget.screen
+    if screen in screen._compositor:  # the condition Screen._on_update puts on an Update
+        widget._repaint_required = False  # its idle would post the same Update
+        screen._dirty_widgets.add(widget)
+        screen.check_idle()
+
+
 class LinePanel(Widget):
     """A fixed-size panel showing the lines it is given; an update repaints, no layout.
 
@@ -117,14 +140,14 @@ class LinePanel(Widget):
         old, self._lines = self._lines, lines
         if len(old) != len(lines):
             self._strips.clear()
-            self.refresh()
+            _repaint(self)
             return
         width = self.size.width
         changed = [Region(0, y, width, 1) for y, (a, b) in enumerate(zip(old, lines)) if a != b]
         for r in changed:
             self._strips.pop(r.y, None)
         if changed:  # one refresh for all of them: each call is a walk through textual's bookkeeping
-            self.refresh(*changed)
+            _repaint(self, *changed)
 
     def on_resize(self) -> None:
         self._strips.clear()
@@ -321,7 +344,7 @@ class LoadBoard(ScrollView, can_focus=True):
             self._strips.clear()
             self.virtual_size = Size(width, len(self.rows))
             if repaint:
-                self.refresh()
+                _repaint(self)
         else:  # repaint only the lines that changed
             self._refresh_rows(i for i, (a, b) in enumerate(zip(old, self.rows)) if a != b)
         if not (key is not None and self.select(key, announce=False)):
@@ -334,7 +357,7 @@ class LoadBoard(ScrollView, can_focus=True):
             self._strips.pop(i, None)
             regions.append(Region(0, i - top, width, 1))
         if regions:
-            self.refresh(*regions)
+            _repaint(self, *regions)
 
     def action_move(self, delta: int) -> None:
         start = max(0, min(len(self.rows) - 1, self.cursor + delta))
