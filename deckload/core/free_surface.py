@@ -146,6 +146,7 @@ def _groups_of_kind(tanks: list[Tank]) -> list[tuple[Tank, ...]]:
     return groups
 
 
+@lru_cache(maxsize=2048)
 def _actual_treatment(vessel: Vessel, c: TankContents, rule: str) -> TankFreeSurface:
     """The treatment of a counted tank (not exempt, not the group assumed slack) at its actual
     state: nothing when empty or nominally full (IS 2008 B 3.1.2), a full cargo tank at 98 %,

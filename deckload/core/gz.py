@@ -12,6 +12,7 @@ grid.
 from __future__ import annotations
 
 import math
+from functools import lru_cache
 
 import numpy as np
 
@@ -38,7 +39,15 @@ def kn_row(cc: CrossCurves, table_displacement_t: float) -> np.ndarray:
     i, f = bracket(cc.displacement_t, table_displacement_t, "displacement (KN cross curves, at table density)", "t")
     if f == 0.0 or f == 1.0 or len(cc.displacement_t) == 2:
         return lerp_row(cc.kn_m, i, f)
-    return CubicSpline.fit(cc.displacement_t, cc.kn_m, end="not-a-knot")(float(table_displacement_t))
+    return _displacement_spline(cc)(float(table_displacement_t))
+
+
+@lru_cache(maxsize=256)
+def _displacement_spline(cc: CrossCurves) -> CubicSpline:
+    """The not-a-knot spline of every heel column against displacement: it depends on the table
+    alone (``CrossCurves`` compares as itself and is immutable), so it is fitted once, not at
+    every evaluation (a linear solve as large as the table has rows)."""
+    return CubicSpline.fit(cc.displacement_t, cc.kn_m, end="not-a-knot")
 
 
 def kn_curve(cc: CrossCurves, table_displacement_t: float) -> np.ndarray:

@@ -8,6 +8,8 @@ ones (standards.md §6.3): Δ = Σw, LCG = Σw·x/Δ, KG = Σw·z/Δ, TCG = Σw�
 
 from __future__ import annotations
 
+from functools import lru_cache
+
 import numpy as np
 
 from deckload.core.frozen import frozen
@@ -138,8 +140,15 @@ def contents_at_volume(tank: Tank, volume_m3: float, density_t_m3: float) -> Tan
     )
 
 
+@lru_cache(maxsize=2048)
 def resolve_tank(tank: Tank, fill: TankFill | None) -> TankContents:
-    """Resolve a :class:`TankFill` (or None = empty) to the tank's contents."""
+    """Resolve a :class:`TankFill` (or None = empty) to the tank's contents.
+
+    Kept for the same tank (by identity: a ``Tank`` compares as itself) and an equal fill: a
+    condition edited on the screen changes one tank at a time, and every evaluation resolves
+    them all.  Both are immutable, so the kept contents are the ones this would make again;
+    a fill that does not fit raises, and nothing is kept for it.
+    """
     if fill is None:
         return contents_at_volume(tank, 0.0, tank.density_t_m3)
     density = fill.density_t_m3 if fill.density_t_m3 is not None else tank.density_t_m3

@@ -30,6 +30,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import replace
+from functools import lru_cache
 
 import numpy as np
 
@@ -213,17 +214,21 @@ def stage_free_surface(vessel: Vessel, weights: Weights, rule: str) -> FreeSurfa
     fsm_total = sum(t.fsm_tm for t in fs)
     fsc = fsm_total / weights.total.mass_t
     kg_fluid = weights.total.vcg_m + fsc
-    tanks = tuple(
-        TankResult(
-            id=c.tank.id, name=c.tank.name, kind=c.tank.kind, fill_pct=c.fill_pct, volume_m3=c.volume_m3,
-            mass_t=c.mass_t, density_t_m3=c.density_t_m3, lcg_m=c.lcg_m,
-            sounding_m=c.sounding_m if c.tank.level_known else None,
-            vcg_m=c.vcg_m, tcg_m=c.tcg_m, fsi_m4=c.fsi_m4, fsm_tm=t.fsm_tm, fs_rule=t.rule, state=t.state,
-            worst_band_pct=c.tank.worst_band_pct, capacity_m3=c.tank.capacity_m3,
-        )
-        for c, t in zip(contents, fs)
-    )
+    tanks = tuple(map(_tank_result, contents, fs))
     return FreeSurface(rule, tuple(fs), fsm_total, fsc, kg_fluid, tanks)
+
+
+@lru_cache(maxsize=2048)
+def _tank_result(c: TankContents, t: TankFreeSurface) -> TankResult:
+    """One tank's line of the result (kept for equal contents and treatment: most tanks are
+    unchanged from one evaluation to the next)."""
+    return TankResult(
+        id=c.tank.id, name=c.tank.name, kind=c.tank.kind, fill_pct=c.fill_pct, volume_m3=c.volume_m3,
+        mass_t=c.mass_t, density_t_m3=c.density_t_m3, lcg_m=c.lcg_m,
+        sounding_m=c.sounding_m if c.tank.level_known else None,
+        vcg_m=c.vcg_m, tcg_m=c.tcg_m, fsi_m4=c.fsi_m4, fsm_tm=t.fsm_tm, fs_rule=t.rule, state=t.state,
+        worst_band_pct=c.tank.worst_band_pct, capacity_m3=c.tank.capacity_m3,
+    )
 
 
 def stage_upright(vessel: Vessel, condition: Condition, weights: Weights, fs: FreeSurface) -> Floating:
