@@ -99,3 +99,42 @@ async def test_row_updates_write_what_textual_would(app):
                     panel._styles_cache.clear()
                     theirs = [list(s) for s in Widget.render_lines(panel, crop)]
                     assert mine == theirs, (panel.id, crop)
+
+
+async def test_a_panel_draws_terminal_colours_and_dim_text_as_textual_does():
+    """A line all in RGB colours skips textual's ANSI-to-RGB colour filter (it would give the line
+    back unchanged); a line with a terminal's numbered colour, its default colour or dim text must
+    still go through it.  Each kind of line, and a blank line under them, drawn by the panel's own
+    way and by textual's (``Widget.render_lines``): segment for segment the same."""
+    from rich.style import Style
+    from rich.text import Text
+    from textual.app import App
+
+    rgb = Style(color="#c8b88a", bgcolor="#1b2127")
+    lines = [
+        Text.assemble(("GM ", rgb), ("0.812 m", Style(color="#e6e2d6", bold=True))),  # RGB only
+        Text.assemble(("list ", rgb), ("2.1° port", Style(color="red"))),  # a numbered colour
+        Text.assemble(("trim ", rgb), ("0.30 m", Style(color="default"))),  # the terminal's default
+        Text.assemble(("KG ", rgb), ("4.020 m", Style(color="#e6e2d6", dim=True))),  # dim, with a colour
+        Text("flat", style=Style(bgcolor="color(4)")),  # a numbered background, no spans
+    ]
+
+    class One(App):
+        CSS = "LinePanel { height: 7; background: #1b2127; color: #e6e2d6; }"
+
+        def compose(self):
+            yield LinePanel(id="p")
+
+    app = One()
+    async with app.run_test(size=(40, 9)) as pilot:
+        panel = app.query_one(LinePanel)
+        panel.set_lines(lines)
+        await pilot.pause()
+        w, h = panel.size
+        for crop in (Region(0, 0, w, h), Region(2, 1, w - 4, 3)):
+            panel._painted = None
+            mine = [list(s) for s in panel.render_lines(crop)]
+            panel._styles_cache.clear()
+            theirs = [list(s) for s in Widget.render_lines(panel, crop)]
+            assert mine == theirs, crop
+        assert panel._true == {0}  # only the RGB line skipped the filter

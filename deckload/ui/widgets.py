@@ -11,6 +11,7 @@ from rich.segment import Segment
 from rich.style import Style
 from rich.text import Text
 from textual.binding import Binding
+from textual.filter import ANSIToTruecolor
 from textual.geometry import Region, Size
 from textual.message import Message
 from textual.scroll_view import ScrollView
@@ -33,24 +34,48 @@ def _strip(text: Text, console) -> Strip:
 
 _NULL = Style.null()
 
-_SUMS: dict[tuple[Style, Style], Style] = {}
-"""``a + b`` of rich styles, kept: the panels combine a handful of palette styles (ui/palette.py)
-over and over, and rich's ``Style.__add__`` is a method call, type checks and a cache lookup each time."""
+_SUMS: dict[Style, dict[tuple[int, int], tuple[Style, Style, Style, bool]]] = {}
+"""Per panel style ``own``: ``own + base + span`` of the palette styles (ui/palette.py) a line is
+made of, keyed by the two styles' identities (the palette's objects live as long as the program;
+each entry holds its two, so an id is never another style's while it is kept), with whether the
+sum is :func:`_true_colour`.  rich's ``Style.__add__`` is a method call, type checks and a cache
+lookup hashing both styles in Python each time; a line has a dozen of them."""
 
 
-def _plus(a: Style, b: Style) -> Style:
-    key = (a, b)
-    got = _SUMS.get(key)
-    if got is None:
-        if len(_SUMS) > 4096:  # a bound, in case styles were made without end (not our panels)
+def _true_colour(style: Style) -> bool:
+    """True when textual's ``ANSIToTruecolor`` line filter leaves ``style`` as it is: its colours
+    are given as RGB (not a terminal's numbered or default colour) and it is not dim with a colour
+    (``ANSIToTruecolor.truecolor_style``)."""
+    color, bgcolor = style.color, style.bgcolor
+    return ((color is None or color.triplet is not None) and (bgcolor is None or bgcolor.triplet is not None)
+            and not (style.dim and color is not None))
+
+
+def _sums(own: Style) -> dict[tuple[int, int], tuple[Style, Style, Style, bool]]:
+    sums = _SUMS.get(own)
+    if sums is None:
+        if len(_SUMS) > 64:  # a bound, in case panel styles were made without end (themes, not keys)
             _SUMS.clear()
-        got = _SUMS[key] = a + b
-    return got
+        sums = _SUMS[own] = {}
+    return sums
 
 
-def _line_strip(text: Text, width: int, own: Style, console) -> Strip:
+def _plus(sums: dict, own: Style, base: Style, span: Style) -> tuple[Style, bool]:
+    """``own + base + span`` and whether it is :func:`_true_colour`, kept in ``sums`` (own's)."""
+    got = sums.get((id(base), id(span)))
+    if got is None or got[0] is not base or got[1] is not span:
+        if len(sums) > 4096:  # a bound, in case styles were made without end (not our panels)
+            sums.clear()
+        total = own + base + span
+        got = sums[(id(base), id(span))] = (base, span, total, _true_colour(total))
+    return got[2], got[3]
+
+
+def _line_strip(text: Text, width: int, own: Style, console) -> tuple[Strip, bool]:
     """``text`` as one line ``width`` cells wide on the panel's style ``own``: what
-    ``_strip(text).crop_extend(0, width, None).apply_style(own)`` gives, made directly.
+    ``_strip(text).crop_extend(0, width, None).apply_style(own)`` gives, made directly; and
+    whether every style in it is :func:`_true_colour` (textual's colour filter would give
+    the same line again).
 
     Our lines are a base style with side-by-side spans of ready-made styles (palette.P):
     each piece is cut from the plain text and styled ``own + base + span`` in one step.
@@ -61,29 +86,34 @@ def _line_strip(text: Text, width: int, own: Style, console) -> Strip:
     spans = text.spans
     base = text.style or _NULL  # Text's default style "" is the null style
     if not plain or cells > width or not isinstance(base, Style):
-        return _strip(text, console).crop_extend(0, width, None).apply_style(own)
+        return _strip(text, console).crop_extend(0, width, None).apply_style(own), False
+    sums = _sums(own)
     segments: list[Segment] = []
     add = segments.append
+    own_base, true = _plus(sums, own, base, _NULL)
     if not spans:  # a line of one style ("✔ done", "no result"): its base style is its colour
-        add(Segment(plain, _plus(own, base)))
+        add(Segment(plain, own_base))
     else:
         pos = 0
-        own_base = _plus(own, base)
         for span in spans:
             start, end, style = span
             if start < pos or not isinstance(style, Style):
-                return _strip(text, console).crop_extend(0, width, None).apply_style(own)
+                return _strip(text, console).crop_extend(0, width, None).apply_style(own), False
             if end <= start:
                 continue
             if start > pos:
                 add(Segment(plain[pos:start], own_base))
-            add(Segment(plain[start:end], _plus(own, _plus(base, style))))
+            styled, ok = _plus(sums, own, base, style)
+            true = true and ok
+            add(Segment(plain[start:end], styled))
             pos = end
         if pos < len(plain):
             add(Segment(plain[pos:], own_base))
     if cells < width:
-        add(Segment(" " * (width - cells), own))
-    return Strip(segments, width)
+        own_only, ok = _plus(sums, own, _NULL, _NULL)
+        true = true and ok
+        add(Segment(" " * (width - cells), own_only))
+    return Strip(segments, width), true
 
 
 def _repaint(widget: Widget, *regions: Region) -> None:
@@ -126,6 +156,8 @@ class LinePanel(Widget):
         super().__init__(id=id, classes=classes)
         self._lines: list[Text] = []
         self._strips: dict[int, Strip] = {}
+        self._true: set[int] = set()
+        """Lines whose kept strip textual's colour filter would give back as it is (see :func:`_line_strip`)."""
         self._style: Style | None = None
         self._width: int | None = None
         self._painted: tuple[tuple, list[Strip]] | None = None
@@ -197,12 +229,16 @@ class LinePanel(Widget):
         :meth:`_plain_box`): each content line as it is, through the app's line filters, cropped
         to the columns asked for; without its per-line walk through every border, padding and
         outline rule (most of the cost of a changed line).  The filters' results are kept on the
-        finished strips, so an unchanged line is filtered once."""
+        finished strips, so an unchanged line is filtered once; a line all in RGB colours skips
+        the ANSI-to-RGB colour filter, which would give it back unchanged (a copy to make and
+        keep for every line a key changes)."""
         filters = self.app.get_line_filters()
+        rgb_only = [f for f in filters if type(f) is not ANSIToTruecolor]
+        true = self._true
         strips = []
         for y in crop.line_range:
             strip = self.render_line(y)
-            for f in filters:
+            for f in (rgb_only if y in true else filters):
                 strip = strip.apply_filter(f, background)
             strips.append(strip)
         x1, x2 = crop.column_span
@@ -217,11 +253,16 @@ class LinePanel(Widget):
             width = self._width
         style = self._style
         if y >= len(self._lines):
+            self._true.discard(y)
             return Strip.blank(width, style)
         strip = self._strips.get(y)
         if strip is None:  # cached finished: cropped to the width and on the panel's own style
-            strip = _line_strip(self._lines[y], width, style, self.app.console)
+            strip, true = _line_strip(self._lines[y], width, style, self.app.console)
             self._strips[y] = strip
+            if true:
+                self._true.add(y)
+            else:
+                self._true.discard(y)
         return strip
 
 
@@ -414,7 +455,7 @@ class LoadBoard(ScrollView, can_focus=True):
         strip = self._strips.get(idx)
         if strip is None:
             if idx != self.cursor:
-                strip = _line_strip(self.rows[idx].text, width, own, self.app.console)
+                strip, _ = _line_strip(self.rows[idx].text, width, own, self.app.console)
             else:
                 strip = _strip(self.rows[idx].text, self.app.console).crop_extend(0, width, None)
                 if focused:  # the cursor's colours win over the line's own
