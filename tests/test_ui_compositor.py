@@ -138,3 +138,38 @@ async def test_a_panel_draws_terminal_colours_and_dim_text_as_textual_does():
             theirs = [list(s) for s in Widget.render_lines(panel, crop)]
             assert mine == theirs, crop
         assert panel._true == {0}  # only the RGB line skipped the filter
+
+
+async def test_the_board_draws_its_lines_as_textual_does(app):
+    """The loading board draws its content lines, the scroll bar's gutter and its right border
+    itself (LoadBoard._boxed_lines), without textual's per-line walk through every border, padding
+    and outline rule: segment for segment what textual's own way (``Widget.render_lines``) gives,
+    focused and not, scrolled and not, for the whole board and for bands of it; and kept finished
+    lines after a nudge are still right."""
+    from deckload.ui.widgets import LoadBoard
+
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        board = app.loading_screen.query_one(LoadBoard)
+        assert board._side_box() is not None  # the box deckload.tcss gives it takes the board's own way
+
+        def same(where: str) -> None:
+            w, h = board.region.size
+            for crop in (Region(0, 0, w, h), Region(0, 3, w, 5), Region(2, h - 1, w - 4, 1), Region(0, 0, w - 1, 2)):
+                mine = [list(s) for s in board.render_lines(crop)]
+                board._styles_cache.clear()
+                theirs = [list(s) for s in Widget.render_lines(board, crop)]
+                assert mine == theirs, (where, crop)
+
+        same("as opened, focused")
+        await pilot.press("plus")
+        await pilot.pause()
+        same("after a nudge")
+        board.blur()
+        await pilot.pause()
+        same("not focused")
+        board.focus()
+        await pilot.press("end")
+        await pilot.pause()
+        assert board.scroll_offset.y > 0  # the demo's board is longer than the screen
+        same("scrolled to the end")

@@ -12,10 +12,12 @@ from rich.style import Style
 from rich.text import Text
 from textual.binding import Binding
 from textual.filter import ANSIToTruecolor
+from textual._border import get_box
 from textual.geometry import Region, Size
 from textual.message import Message
 from textual.scroll_view import ScrollView
 from textual.strip import Strip
+from textual.style import Style as VisualStyle
 from textual.widget import Widget
 
 from deckload.core.model import Condition, Vessel
@@ -349,6 +351,9 @@ class LoadBoard(ScrollView, can_focus=True):
         """(own style, cursor style, focused) read once per render pass; the cached lines were made with them."""
         self._place: tuple[int, int] | None = None
         """(first line shown, width) during a render pass."""
+        self._boxed: dict[int, tuple[Strip, Strip]] = {}
+        """Per board line: (its content strip, the finished line made from it) (see :meth:`_boxed_lines`)."""
+        self._boxed_for: tuple | None = None
 
     @property
     def cursor_key(self) -> tuple | None:
@@ -438,9 +443,64 @@ class LoadBoard(ScrollView, can_focus=True):
             self._strips.clear()
         self._place = (int(self.scroll_offset.y), self.scrollable_content_region.width)
         try:
-            return super().render_lines(crop)
+            box = self._side_box()
+            return super().render_lines(crop) if box is None else self._boxed_lines(crop, *box)
         finally:
             self._place = None
+
+    def _side_box(self) -> tuple | None:
+        """What textual adds around a content line when the board's box is its content, the
+        scroll bar's gutter and at most a right border (deckload.tcss: ``border-right``), with no
+        padding, outline, tint, hatch, opacity, border title or link under the mouse: (the content
+        width, the style of the cells after a short line, the border's segment or None, the
+        background the filters are given).  None for any other box: textual draws it its way."""
+        st = self.styles
+        (top, _), (right, right_colour), (bottom, _), (left, _) = st.border
+        if (top or bottom or left or any(st.padding) or any(kind for kind, _ in st.outline) or st.tint.a
+                or st.text_opacity != 1.0 or self.opacity != 1.0 or st.has_rule("hatch")
+                or self._border_title is not None or self._border_subtitle is not None
+                or (self.auto_links and self.hover_style._link_id)):
+            return None
+        size, content = self.region.size, self.content_region.size
+        if content.height != size.height or content.width + (1 if right else 0) != size.width:
+            return None
+        base_background, background = self.background_colors
+        inner, outer = self._styles_cache.get_inner_outer(base_background, background)
+        edge = None
+        if right:  # as StylesCache.render_line draws a content line's right border
+            edge = get_box(right, inner, outer, VisualStyle(foreground=base_background + right_colour))[1][2]
+        return content.width, inner.rich_style, edge, background
+
+    def _boxed_lines(self, crop: Region, content_w: int, inner: Style, edge: Segment | None, background) -> list[Strip]:
+        """The lines textual's line cache (``StylesCache.render_widget``) gives for the box
+        :meth:`_side_box` describes: each content line widened to the content width, the right
+        border after it, through the app's line filters, cropped to the columns asked for; without
+        its per-line walk through every border, padding and outline rule (about 85 µs a changed
+        line, four or five of them a nudge).  A finished line is kept while its content line is
+        the same object and the box, filters and background are the same."""
+        filters = self.app.get_line_filters()
+        made_for = (content_w, inner, edge, background, tuple((f, f.enabled) for f in filters))
+        if made_for != self._boxed_for:
+            self._boxed_for = made_for
+            self._boxed.clear()
+        width = self.region.width
+        top = self._place[0]
+        strips = []
+        for y in crop.line_range:
+            line = self.render_line(y)
+            kept = self._boxed.get(y + top)
+            if kept is None or kept[0] is not line:
+                done = line.adjust_cell_length(content_w, inner)
+                if edge is not None:
+                    done = Strip([*done, edge], width)
+                for f in filters:
+                    done = done.apply_filter(f, background)
+                kept = self._boxed[y + top] = (line, done)
+            strips.append(kept[1])
+        x1, x2 = crop.column_span
+        if (x1, x2) != (0, width):
+            strips = [strip.crop(x1, x2) for strip in strips]
+        return strips
 
     def render_line(self, y: int) -> Strip:
         if self._place is None:  # called outside a render pass
