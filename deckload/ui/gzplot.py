@@ -18,6 +18,10 @@ from rich.text import Span, Text
 from deckload.core.frozen import frozen
 from deckload.ui.palette import P
 
+_DRAWN: dict[tuple, tuple[Text, ...]] = {}
+"""The lines of the last charts of a curve alone, by the cells and names that decide them (see
+:meth:`GzChart.lines`).  The Texts are shared, so they are never modified after they are made."""
+
 # Braille dot bits by (column, row) inside a cell: Unicode 2800 block layout.
 _BITS = ((0x01, 0x02, 0x04, 0x40), (0x08, 0x10, 0x20, 0x80))
 
@@ -99,15 +103,32 @@ class GzChart:
         def py_of(v: float) -> int:
             return int(round((hi - v) / (hi - lo) * (ph - 1)))
 
+        xs = np.linspace(x_lo, x_hi, pw)
+        curve_arr = np.interp(xs, heel, gz)
+        ys = np.clip(np.round((hi - curve_arr) / (hi - lo) * (ph - 1)).astype(int), -1, ph).tolist()
+        zero_row = py_of(0.0) // 4
+        mark_cols: dict[int, Mark] = {}
+        for m in self.marks:  # earlier marks win a shared column
+            if x_lo <= m.angle_deg <= x_hi:
+                mark_cols.setdefault(px_of(m.angle_deg) // 2, m)
+        labels: dict[int, str] = {}
+        for k in range(int(np.ceil(lo / step)), int(np.floor(hi / step)) + 1):
+            v = k * step
+            labels.setdefault(int(round((hi - v) / (hi - lo) * (ph - 1))) // 4, f"{v:5.2f}┤")
+        # A chart of the curve alone is decided by these cells and names: an edit that moves the
+        # curve by less than a dot (about half of 1 % nudges of a tank on the demo vessel) draws
+        # the same chart, kept here (with levels or areas, the weather chart, it is drawn afresh).
+        key = None if self.levels or self.areas else (
+            cols, rows, label_w, tuple(ys), zero_row, lo < 0, tuple(labels.items()), tuple(mark_cols.items()),
+            x_lo, x_hi, self.stale)
+        if key is not None and key in _DRAWN:
+            return list(_DRAWN[key])
         # Plain lists, not arrays: the dots are set one at a time, where numpy's per-item cost dominates.
         grid = [[0] * cols for _ in range(rows)]
         layer = [[0] * cols for _ in range(rows)]  # 0 none, 1 area, 2 level, 3 curve: the highest names the style
         area_style: dict[tuple[int, int], str] = {}
         level_style: dict[tuple[int, int], str] = {}
-        xs = np.linspace(x_lo, x_hi, pw)
-        curve_arr = np.interp(xs, heel, gz)
         curve = curve_arr.tolist()
-        ys = np.clip(np.round((hi - curve_arr) / (hi - lo) * (ph - 1)).astype(int), -1, ph).tolist()
 
         def dot(px: int, py: int, kind: int, style: dict | None = None, name: str = "") -> None:
             if 0 <= py < ph and 0 <= px < pw:
@@ -143,11 +164,6 @@ class GzChart:
             for y in range(max(0, min(prev, py)), min(ph - 1, max(prev, py)) + 1):  # join steep segments
                 dot(px, y, 3)
             prev = py
-        zero_row = py_of(0.0) // 4
-        mark_cols: dict[int, Mark] = {}
-        for m in self.marks:  # earlier marks win a shared column
-            if x_lo <= m.angle_deg <= x_hi:
-                mark_cols.setdefault(px_of(m.angle_deg) // 2, m)
         text_at: dict[tuple[int, int], tuple[str, str]] = {}
         by_row: dict[int, list[Level]] = {}
         for lv in self.levels:  # the levers' names at their right end; levels sharing a row share a name
@@ -168,10 +184,6 @@ class GzChart:
         curve_style = P["gz.stale"] if self.stale else P["gz.curve"]
         axis_style = P["gz.axis"]
         mark_styles = {c: P[m.style] for c, m in mark_cols.items()}
-        labels: dict[int, str] = {}
-        for k in range(int(np.ceil(lo / step)), int(np.floor(hi / step)) + 1):
-            v = k * step
-            labels.setdefault(int(round((hi - v) / (hi - lo) * (ph - 1))) // 4, f"{v:5.2f}┤")
         out: list[Text] = []
         text_by_row: dict[int, list[tuple[int, str, str]]] = {}
         for (r, c), (ch, st) in text_at.items():
@@ -195,6 +207,10 @@ class GzChart:
                 chars[c], styles[c] = ch, P[st]
             out.append(_runs(labels.get(r, "     │"), axis_style, chars, styles))
         out.append(self._axis(cols, label_w, x_lo, x_hi, mark_cols))
+        if key is not None:
+            if len(_DRAWN) >= 16:  # the last few charts are all a screen redraws
+                _DRAWN.clear()
+            _DRAWN[key] = tuple(out)
         return out
 
     def _axis(self, cols: int, label_w: int, x_lo: float, x_hi: float, mark_cols: dict[int, Mark]) -> Text:
