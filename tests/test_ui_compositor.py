@@ -151,7 +151,7 @@ async def test_the_board_draws_its_lines_as_textual_does(app):
     async with app.run_test(size=(120, 40)) as pilot:
         await pilot.pause()
         board = app.loading_screen.query_one(LoadBoard)
-        assert board._side_box() is not None  # the box deckload.tcss gives it takes the board's own way
+        assert board._side_box(board._box_styles()) is not None  # the box deckload.tcss gives it takes the board's own way
 
         def same(where: str) -> None:
             w, h = board.region.size
@@ -173,3 +173,57 @@ async def test_the_board_draws_its_lines_as_textual_does(app):
         await pilot.pause()
         assert board.scroll_offset.y > 0  # the demo's board is longer than the screen
         same("scrolled to the end")
+
+
+async def test_a_panel_follows_a_change_of_its_own_or_a_parents_style():
+    """A panel reads its look (rich style, background colours, plain box) again only when a style
+    it is made from changed (LinePanel._look, keyed by textual's change counts of its styles and
+    its parents').  A class on the parent that changes the parent's background, an inline
+    background on the panel and inline padding (which takes textual's own way): after each, the
+    panel draws what textual's own way gives, in the new colours."""
+    from rich.text import Text
+    from textual.app import App
+    from textual.containers import Vertical
+
+    class One(App):
+        CSS = """
+        Vertical { background: #1b2127; }
+        Vertical.-alarm { background: #5a1e1e; }
+        LinePanel { height: 3; color: #e6e2d6; background: 50%; }
+        """
+
+        def compose(self):
+            with Vertical():
+                yield LinePanel(id="p")
+
+    def backgrounds(strips) -> set:
+        return {seg.style.bgcolor.triplet for strip in strips for seg in strip if seg.style and seg.style.bgcolor}
+
+    app = One()
+    async with app.run_test(size=(30, 5)) as pilot:
+        panel = app.query_one(LinePanel)
+        panel.set_lines([Text("GM 0.812 m"), Text("list 0.0°")])
+        await pilot.pause()
+        w, h = panel.size
+        crop = Region(0, 0, w, h)
+
+        def drawn() -> list:
+            panel._painted = None
+            mine = panel.render_lines(crop)
+            panel._styles_cache.clear()
+            assert [list(s) for s in mine] == [list(s) for s in Widget.render_lines(panel, crop)]
+            return mine
+
+        calm = backgrounds(drawn())
+        app.query_one(Vertical).add_class("-alarm")
+        await pilot.pause()
+        alarm = backgrounds(drawn())
+        assert alarm != calm
+        panel.styles.background = "#204060"
+        await pilot.pause()
+        inline = backgrounds(drawn())
+        assert inline not in (calm, alarm)
+        panel.styles.padding = (0, 1)
+        await pilot.pause()
+        assert not panel._plain_box(panel.size)
+        drawn()

@@ -141,6 +141,20 @@ def _repaint(widget: Widget, *regions: Region) -> None:
         screen.check_idle()
 
 
+def _look_key(widget: Widget) -> tuple:
+    """What a widget's look (its rich style, background colours and box) is made from: each node
+    from the widget up to the app, by identity, with textual's count of the changes to its styles
+    (``RenderStyles._cache_key``: its CSS rules, inline styles and animated values each move it).
+    A few attribute reads, against a walk through every style of every parent for each look."""
+    key = []
+    node = widget
+    while node is not None:
+        key.append(id(node))
+        key.append(node.styles._cache_key)
+        node = node._parent
+    return tuple(key)
+
+
 class LinePanel(Widget):
     """A fixed-size panel showing the lines it is given; an update repaints, no layout.
 
@@ -163,6 +177,8 @@ class LinePanel(Widget):
         self._style: Style | None = None
         self._width: int | None = None
         self._painted: tuple[tuple, list[Strip]] | None = None
+        self._look: tuple | None = None
+        """(:func:`_look_key`, rich style, background colours, plain styles) as last read."""
         """(what the strips were rendered for, the strips) of the last render, until marked dirty."""
 
     @property
@@ -196,33 +212,48 @@ class LinePanel(Widget):
 
     def render_lines(self, crop: Region) -> list[Strip]:
         app = self.app
-        colours = self.background_colors
+        # The panel's look (style, background colours, plain box) for as long as no style it is
+        # made from changes: each is a walk up the parents through their styles.
+        key = _look_key(self)
+        look = self._look
+        if look is None or look[0] != key:
+            look = self._look = (key, self.rich_style, self.background_colors, self._plain_styles())
+        _, style, colours, plain_styles = look
         size = self.size  # (a walk through textual's geometry each time it is read)
         # (A change of theme restyles, and so marks dirty, every widget.)
         made_for = (crop, size, colours, tuple((f, f.enabled) for f in app._filters))
         painted = self._painted
         if painted is not None and painted[0] == made_for:
             return list(painted[1])
-        # Style and width once for every line of this pass: each is a walk up the parents.
-        style, self._width = self.rich_style, size.width
+        # Style and width once for every line of this pass.
+        self._width = size.width
         if style != self._style:
             self._style = style
             self._strips.clear()
         try:
-            strips = self._bare_lines(crop, colours[1], size) if self._plain_box(size) else super().render_lines(crop)
+            plain = plain_styles and self._plain_geometry(size)
+            strips = self._bare_lines(crop, colours[1], size) if plain else super().render_lines(crop)
         finally:
             self._width = None
         self._painted = (made_for, strips)
         return list(strips)
 
-    def _plain_box(self, size: Size) -> bool:
-        """True when textual would put this panel's lines on the screen as they are: no border,
-        padding, outline, tint, hatch, opacity or text opacity, no border title, no scroll bar
-        and no link under the mouse (the panels' styles in deckload.tcss)."""
+    def _plain_styles(self) -> bool:
+        """The part of :meth:`_plain_box` the styles decide: no border, padding, outline, tint,
+        hatch, opacity or text opacity."""
         st = self.styles
         return (not any(st.gutter) and not any(kind for kind, _ in st.outline) and not st.tint.a
-                and st.text_opacity == 1.0 and not st.has_rule("hatch") and self.opacity == 1.0
-                and self._border_title is None and self._border_subtitle is None
+                and st.text_opacity == 1.0 and not st.has_rule("hatch") and self.opacity == 1.0)
+
+    def _plain_box(self, size: Size) -> bool:
+        """True when textual would put this panel's lines on the screen as they are: plain styles
+        (:meth:`_plain_styles`, the panels' styles in deckload.tcss), no border title, no scroll
+        bar and no link under the mouse."""
+        return self._plain_styles() and self._plain_geometry(size)
+
+    def _plain_geometry(self, size: Size) -> bool:
+        """The part of :meth:`_plain_box` the styles do not decide, read at each render."""
+        return (self._border_title is None and self._border_subtitle is None
                 and not (self.auto_links and self.hover_style._link_id)
                 and self.content_region.size == size)
 
@@ -354,6 +385,8 @@ class LoadBoard(ScrollView, can_focus=True):
         self._boxed: dict[int, tuple[Strip, Strip]] = {}
         """Per board line: (its content strip, the finished line made from it) (see :meth:`_boxed_lines`)."""
         self._boxed_for: tuple | None = None
+        self._look: tuple | None = None
+        """(:func:`_look_key`, rich style, :meth:`_box_styles`) as last read."""
 
     @property
     def cursor_key(self) -> tuple | None:
@@ -437,39 +470,54 @@ class LoadBoard(ScrollView, can_focus=True):
     def render_lines(self, crop: Region) -> list[Strip]:
         if self._data is not None and self._width == 0 and self.scrollable_content_region.width:
             self._rebuild(repaint=False)  # a layout's frame is drawn before its Resize event (see SizedPanel)
-        styles = (self.rich_style, self.get_component_rich_style("board--cursor"), self.has_focus)
+        # The board's own style and box for as long as no style they are made from changes (see
+        # LinePanel.render_lines); the cursor's style and the focus are read each time.
+        key = _look_key(self)
+        if self._look is None or self._look[0] != key:
+            self._look = (key, self.rich_style, self._box_styles())
+        _, own, box = self._look
+        styles = (own, self.get_component_rich_style("board--cursor"), self.has_focus)
         if styles != self._styles:
             self._styles = styles
             self._strips.clear()
         self._place = (int(self.scroll_offset.y), self.scrollable_content_region.width)
         try:
-            box = self._side_box()
+            box = self._side_box(box)
             return super().render_lines(crop) if box is None else self._boxed_lines(crop, *box)
         finally:
             self._place = None
 
-    def _side_box(self) -> tuple | None:
-        """What textual adds around a content line when the board's box is its content, the
-        scroll bar's gutter and at most a right border (deckload.tcss: ``border-right``), with no
-        padding, outline, tint, hatch, opacity, border title or link under the mouse: (the content
-        width, the style of the cells after a short line, the border's segment or None, the
-        background the filters are given).  None for any other box: textual draws it its way."""
+    def _box_styles(self) -> tuple | None:
+        """The part of :meth:`_side_box` the styles decide: (whether there is a right border, the
+        style of the cells after a short line, the border's segment or None, the background the
+        filters are given); None when the styles give more than a right border."""
         st = self.styles
         (top, _), (right, right_colour), (bottom, _), (left, _) = st.border
         if (top or bottom or left or any(st.padding) or any(kind for kind, _ in st.outline) or st.tint.a
-                or st.text_opacity != 1.0 or self.opacity != 1.0 or st.has_rule("hatch")
-                or self._border_title is not None or self._border_subtitle is not None
-                or (self.auto_links and self.hover_style._link_id)):
-            return None
-        size, content = self.region.size, self.content_region.size
-        if content.height != size.height or content.width + (1 if right else 0) != size.width:
+                or st.text_opacity != 1.0 or self.opacity != 1.0 or st.has_rule("hatch")):
             return None
         base_background, background = self.background_colors
         inner, outer = self._styles_cache.get_inner_outer(base_background, background)
         edge = None
         if right:  # as StylesCache.render_line draws a content line's right border
             edge = get_box(right, inner, outer, VisualStyle(foreground=base_background + right_colour))[1][2]
-        return content.width, inner.rich_style, edge, background
+        return bool(right), inner.rich_style, edge, background
+
+    def _side_box(self, box: tuple | None) -> tuple | None:
+        """What textual adds around a content line when the board's box is its content, the
+        scroll bar's gutter and at most a right border (deckload.tcss: ``border-right``), with no
+        padding, outline, tint, hatch, opacity, border title or link under the mouse: (the content
+        width, the style of the cells after a short line, the border's segment or None, the
+        background the filters are given).  None for any other box: textual draws it its way.
+        ``box`` is :meth:`_box_styles`; the rest is read here, at each render."""
+        if (box is None or self._border_title is not None or self._border_subtitle is not None
+                or (self.auto_links and self.hover_style._link_id)):
+            return None
+        right, inner, edge, background = box
+        size, content = self.region.size, self.content_region.size
+        if content.height != size.height or content.width + (1 if right else 0) != size.width:
+            return None
+        return content.width, inner, edge, background
 
     def _boxed_lines(self, crop: Region, content_w: int, inner: Style, edge: Segment | None, background) -> list[Strip]:
         """The lines textual's line cache (``StylesCache.render_widget``) gives for the box
