@@ -69,6 +69,29 @@ async def test_ten_nudges_are_one_entry_with_the_level_reached(app):
         assert e.change_data["to_pct"] == pytest.approx(after.fill_pct, abs=0.01)
 
 
+async def test_a_pause_ends_a_run_of_nudges_and_each_nudge_starts_the_pause_again(app, monkeypatch):
+    """The run of nudges of one tank is logged when the keys stop for RUN_PAUSE_S (here 0.3 s): a
+    nudge inside the pause starts it again, and the one entry counts both nudges."""
+    import asyncio
+
+    from deckload.ui import main_screen
+
+    monkeypatch.setattr(main_screen, "RUN_PAUSE_S", 0.3)
+    async with app.run_test(size=(120, 40)) as pilot:
+        await to_tank(pilot, app, "WB1P")
+        n0 = len(entries(app))
+        await pilot.press("plus")
+        await asyncio.sleep(0.2)
+        await pilot.press("plus")  # 0.2 s in: the run goes on, the pause starts again
+        await asyncio.sleep(0.2)  # 0.4 s after the first nudge, 0.2 s after the second
+        assert app.session._run is not None and app.session._run.steps == 2
+        await asyncio.sleep(0.3)
+        await pilot.pause()
+        assert app.session._run is None and app.loading_screen._settle_timer is None  # the pause ended it
+        new = entries(app)[n0:]
+        assert [e.change_text.endswith("(2 changes)") for e in new] == [True], [e.change_text for e in new]
+
+
 async def test_a_confirmed_transfer_is_one_entry(app):
     async with app.run_test(size=(120, 40)) as pilot:
         await to_tank(pilot, app, "WB2P")  # full; its partner WB2S is full too, so name WB1P

@@ -232,11 +232,13 @@ class LoadingScreen(Screen[None]):
             self.say(str(exc), ok=False)
             return
         if self._settle_timer is not None:
-            self._settle_timer.stop()
+            self._settle_timer.cancel()
             self._settle_timer = None
         if run is not None:
-            # A run of nudges or retypes of one item is one log entry: it ends after a pause.
-            self._settle_timer = self.set_timer(RUN_PAUSE_S, self._settle)
+            # A run of nudges or retypes of one item is one log entry: it ends after a pause.  An
+            # event-loop timer: every key of a run sets it again, and each of textual's timers is a
+            # task of its own to make, and to wake only to cancel it.
+            self._settle_timer = asyncio.get_running_loop().call_later(RUN_PAUSE_S, self.call_next, self._settle)
         self.refresh_view()
         self.say(label + self._gm_change(gm_before))
         for p in problems:
@@ -259,6 +261,11 @@ class LoadingScreen(Screen[None]):
             self.say(str(exc), ok=False)
             return
         self.commit(condition, label, kind, data, run=run)
+
+    def on_unmount(self) -> None:
+        if self._settle_timer is not None:  # the screen is going: quitting settles the run itself
+            self._settle_timer.cancel()
+            self._settle_timer = None
 
     def _settle(self) -> None:
         """The run of edits of one item has ended: its one log entry is written."""
