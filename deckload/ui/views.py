@@ -139,6 +139,9 @@ def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stal
     and the deadweight by kind."""
     cols = TankCols.for_width(width, max((len(t.id) for t in vessel.tanks), default=ID_MIN))
     by_id = {t.id: t for t in result.tanks} if result is not None and not stale else {}
+    fills: dict = {}
+    for f in condition.tanks:  # Condition.tank_fill's answer for each tank, in one pass
+        fills.setdefault(f.tank_id, f)
     head = Text(" " * (cols.id_w + 3) + "fill".ljust(cols.bar + 1) + "     %      m³       t" + ("     ρ" if cols.rho else "")
                 + "    FSM", P["head"])
     rows: list[Row] = [Row(None, head)]
@@ -148,7 +151,7 @@ def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stal
             continue
         lines = []
         for tank in tanks:
-            fill = condition.tank_fill(tank.id)
+            fill = fills.get(tank.id)
             tr = by_id.get(tank.id)
             stated = fill is not None and fill.density_t_m3 is not None
             if tr is not None:

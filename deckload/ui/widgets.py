@@ -193,7 +193,8 @@ class LinePanel(Widget):
             _repaint(self)
             return
         width = self.size.width
-        changed = [Region(0, y, width, 1) for y, (a, b) in enumerate(zip(old, lines)) if a != b]
+        # (a line kept by its maker is the same object: rich's Text compares in Python)
+        changed = [Region(0, y, width, 1) for y, (a, b) in enumerate(zip(old, lines)) if a is not b and a != b]
         for r in changed:
             self._strips.pop(r.y, None)
         if changed:  # one refresh for all of them: each call is a walk through textual's bookkeeping
@@ -425,7 +426,9 @@ class LoadBoard(ScrollView, can_focus=True):
             if repaint:
                 _repaint(self)
         else:  # repaint only the lines that changed
-            self._refresh_rows(i for i, (a, b) in enumerate(zip(old, self.rows)) if a != b)
+            # (most lines are kept by views.board_rows: the same Text under a new Row)
+            self._refresh_rows(i for i, (a, b) in enumerate(zip(old, self.rows))
+                               if not (a.text is b.text and a.key == b.key) and a != b)
         if not (key is not None and self.select(key, announce=False)):
             self._set_cursor(self.cursor, announce=key is None)
 
