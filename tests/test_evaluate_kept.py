@@ -4,11 +4,14 @@ A condition edited on the screen changes one item at a time, and every evaluatio
 every tank, treats its free surface and fits the KN curves against displacement.  These are
 kept (``functools.lru_cache``): a tank's contents for its fill (``loading.resolve_tank``),
 its free-surface treatment and result line for those contents (``free_surface._actual_treatment``,
-``stability._tank_result``) and the displacement spline of a KN table (``gz._displacement_spline``).
+``stability._tank_result``), the displacement spline of a KN table (``gz._displacement_spline``)
+and the matrix that turns a row of KN at the tabulated heels into KN on the fine grid
+(``gz._heel_weights``: the natural spline is linear in the row it goes through).
 The model's tanks and tables compare as themselves (``@frozen(eq=False)``) and are immutable,
 so a kept value is keyed by the very object it was made from.
 
-No outside reference here: the check is that keeping changes nothing, to the last bit.
+No outside reference here: the check is that keeping changes nothing, to the last bit (the fine-grid
+matrix: to rounding, against the spline fitted to each row afresh).
 """
 
 from __future__ import annotations
@@ -26,7 +29,8 @@ from deckload.io.profiles import load_condition
 from demo_vessels import demo_vessel
 from vessel_factories import box_barge, box_tank
 
-KEPT = (loading.resolve_tank, free_surface._actual_treatment, stability._tank_result, gz._displacement_spline)
+KEPT = (loading.resolve_tank, free_surface._actual_treatment, stability._tank_result, gz._displacement_spline,
+        gz._heel_weights)
 
 
 def _forget() -> None:
@@ -103,3 +107,28 @@ def test_an_empty_barge_condition_is_not_confused_with_a_loaded_one():
     first, nothing, last = (evaluate(vessel, c) for c in (loaded, empty, loaded))
     assert _doc(first) == _doc(last)
     assert first.displacement_t - nothing.displacement_t == pytest.approx(tank.capacity_m3 * 0.5 * tank.density_t_m3)
+
+
+def test_kn_on_the_fine_grid_is_the_spline_through_the_row_to_rounding():
+    """``heel_curve`` as one product with the kept matrix against the natural spline fitted to the
+    row afresh (``CubicSpline.fit``): any row, not only KN rows, on a table to 90° and on one that
+    stops at 60° (the grid stops there too).  Both are the same linear map of the row, evaluated
+    in another order: they agree to a few units of the last place (1e-12 m here)."""
+    import numpy as np
+
+    from vessel_factories import box_barge_cross_curves
+
+    rng = np.random.default_rng(20261203)
+    whole = demo_vessel().cross_curves
+    short = box_barge_cross_curves()
+    cut = np.flatnonzero(short.heel_deg <= 60.0)
+    short = type(short)(short.heel_deg[cut], short.displacement_t, short.kn_m[:, cut])
+    for cc in (whole, short):
+        n_grid = gz.grid_points(cc)
+        for _ in range(25):
+            row = rng.normal(0.0, 3.0, len(cc.heel_deg))
+            fresh = CubicSpline.fit(cc.heel_deg, row)(gz.FINE_DEG[:n_grid])
+            kept = gz.heel_curve(cc, row)
+            assert kept.shape == fresh.shape == (n_grid,)
+            assert np.max(np.abs(kept - fresh)) < 1e-12
+        assert gz._heel_weights(cc) is gz._heel_weights(cc) and not gz._heel_weights(cc).flags.writeable

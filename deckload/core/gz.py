@@ -56,11 +56,27 @@ def kn_curve(cc: CrossCurves, table_displacement_t: float) -> np.ndarray:
 
 
 def heel_curve(cc: CrossCurves, row: np.ndarray) -> np.ndarray:
-    """KN (m) on the fine heel grid from one row at ``cc``'s heels: a natural cubic spline in heel."""
+    """KN (m) on the fine heel grid from one row at ``cc``'s heels: a natural cubic spline in heel.
+
+    The spline's value at any angle is linear in the row it goes through (its second derivatives
+    solve a linear system whose right-hand side is linear in the row), so the fine grid is
+    ``W @ row`` with ``W`` the spline of each unit row on the grid (:func:`_heel_weights`): one
+    product at each evaluation, the same curve to rounding."""
     if cc.heel_deg[0] != 0.0:
         # The profile validation requires the table to start upright; refuse rather than extrapolate.
         raise OutOfRangeError("heel (KN cross curves)", 0.0, float(cc.heel_deg[0]), float(cc.heel_deg[-1]), "deg")
-    return CubicSpline.fit(cc.heel_deg, row)(FINE_DEG[: grid_points(cc)])
+    return _heel_weights(cc) @ np.asarray(row, dtype=float)
+
+
+@lru_cache(maxsize=256)
+def _heel_weights(cc: CrossCurves) -> np.ndarray:
+    """``W`` (fine-grid points × tabulated heels) with column j the natural spline through the
+    unit row e_j evaluated on the fine grid (:class:`~deckload.core.tables.CubicSpline` splines
+    each column of a 2-D ``y`` on the same knots): made once per table."""
+    n = len(cc.heel_deg)
+    weights = CubicSpline.fit(cc.heel_deg, np.eye(n))(FINE_DEG[: grid_points(cc)])
+    weights.flags.writeable = False
+    return weights
 
 
 def grid_points(cc: CrossCurves) -> int:
