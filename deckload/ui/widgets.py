@@ -459,7 +459,8 @@ class LoadBoard(ScrollView, can_focus=True):
         if self.rows and self.rows[i].key is None:  # headings are not selectable
             i = next((j for j in range(i, len(self.rows)) if self.rows[j].key is not None), i)
         old, self.cursor = self.cursor, i
-        self._refresh_rows({old, i})
+        if old != i:  # (a cursor that stays where it was is drawn as it was, unless its line changed)
+            self._refresh_rows({old, i})
         top, height = int(self.scroll_offset.y), self.scrollable_content_region.height
         # force: a key typed ahead arrives before the first layout has shown the scroll bar, and
         # textual ignores a scroll while there is none (the cursor would stay off screen)
