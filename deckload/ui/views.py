@@ -86,8 +86,10 @@ ID_MIN, ID_MAX = 5, 8
 """Cells for the tank id: at least five, more (up to eight) when the profile's ids are longer."""
 
 
+@functools.lru_cache(maxsize=1024)
 def fit(text: str, width: int) -> str:
-    """``text`` in exactly ``width`` cells: padded, or shortened with '…' (never cut silently)."""
+    """``text`` in exactly ``width`` cells: padded, or shortened with '…' (never cut silently).
+    Kept: the board fits the same names to the same widths on every key."""
     if width <= 0:
         return ""
     t = Text(text)
@@ -142,9 +144,7 @@ def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stal
     fills: dict = {}
     for f in condition.tanks:  # Condition.tank_fill's answer for each tank, in one pass
         fills.setdefault(f.tank_id, f)
-    head = Text(" " * (cols.id_w + 3) + "fill".ljust(cols.bar + 1) + "     %      m³       t" + ("     ρ" if cols.rho else "")
-                + "    FSM", P["head"])
-    rows: list[Row] = [Row(None, head)]
+    rows: list[Row] = [Row(None, _board_head(cols))]
     for kind in BOARD_ORDER:
         tanks = [t for t in vessel.tanks if t.kind == kind]
         if not tanks:
@@ -173,8 +173,17 @@ def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stal
     return rows
 
 
+@functools.lru_cache(maxsize=64)
+def _board_head(cols: TankCols) -> Text:
+    """The board's column heads (kept per layout of columns: shared, never modified)."""
+    return Text(" " * (cols.id_w + 3) + "fill".ljust(cols.bar + 1) + "     %      m³       t"
+                + ("     ρ" if cols.rho else "") + "    FSM", P["head"])
+
+
+@functools.lru_cache(maxsize=1024)
 def _group_line(title: str, total_t: float, cols: TankCols) -> Text:
-    """' Fuel oil ……… Σ 21.28': the group's heading, its total under the tanks' t column."""
+    """' Fuel oil ……… Σ 21.28': the group's heading, its total under the tanks' t column (kept for
+    the same values, as the tanks' lines are: shared, never modified)."""
     return Text(fit(f" {title}", cols.t_start - 1) + f" Σ{total_t:7.2f}", P["group"])
 
 
@@ -211,16 +220,22 @@ def _tank_line(tid, stated, pct, vol, mass, rho, fsm, state, by_rule, kind, cols
 def deadweight_rows(result: Result, stale: bool, cols: TankCols) -> list[Row]:
     """The deadweight by kind (cargo, each liquid, stores and constants) under a heading, and the
     deadweight they add up to, each under the tanks' t column."""
-    style = P["stale"] if stale else P["value"]
-    rows = [Row(None, Text(" Deadweight by kind" + (" (last good)" if stale else ""), P["group"]))]
+    rows = [Row(None, _dwt_line(" Deadweight by kind" + (" (last good)" if stale else ""), None, "", stale, cols))]
     for line in deadweight_by_kind(result):
-        text = Text("  " + fit(line.title, cols.t_start - 3), P["label"])
-        text.append(f" {line.mass_t:8.2f} t", style)
-        rows.append(Row(("dwt", line.kind), text))
-    total = Text("  " + fit("Deadweight", cols.t_start - 3), P["label"])
-    total.append(f"Σ{result.deadweight_t:8.2f} t", style)
-    rows.append(Row(("dwt", "total"), total))
+        rows.append(Row(("dwt", line.kind), _dwt_line(line.title, line.mass_t, " ", stale, cols)))
+    rows.append(Row(("dwt", "total"), _dwt_line("Deadweight", result.deadweight_t, "Σ", stale, cols)))
     return rows
+
+
+@functools.lru_cache(maxsize=1024)
+def _dwt_line(title: str, mass_t: float | None, sign: str, stale: bool, cols: TankCols) -> Text:
+    """A line of the deadweight by kind: the kind and its mass under the tanks' t column after
+    ``sign``; without a mass, the heading (kept for the same values: shared, never modified)."""
+    if mass_t is None:
+        return Text(title, P["group"])
+    text = Text("  " + fit(title, cols.t_start - 3), P["label"])
+    text.append(f"{sign}{mass_t:8.2f} t", P["stale"] if stale else P["value"])
+    return text
 
 
 def _cargo_rows(vessel: Vessel, condition: Condition, cols: TankCols) -> list[Row]:
