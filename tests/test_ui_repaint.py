@@ -25,18 +25,35 @@ def app(tmp_path):
     return create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
 
 
-def _watch_refreshes(widget, log: list) -> None:
-    """Record every repaint the widget asks for (the regions, or 'all')."""
-    original = widget.refresh
+def _watch_refreshes(monkeypatch, logs: dict) -> None:
+    """Record every repaint a watched widget asks for (the regions, or 'all'), in ``logs[widget]``:
+    through the panels' own ``widgets._repaint`` or through textual's ``refresh`` directly."""
+    from textual.widget import Widget
 
-    def refresh(*regions, **kwargs):
-        log.append(regions or "all")
-        return original(*regions, **kwargs)
+    from deckload.ui import widgets
 
-    widget.refresh = refresh
+    refresh, repaint = Widget.refresh, widgets._repaint
+    inside = []
+
+    def refreshed(self, *regions, **kwargs):
+        if self in logs and kwargs.get("repaint", True) and not inside:
+            logs[self].append(regions or "all")
+        return refresh(self, *regions, **kwargs)
+
+    def repainted(widget, *regions):
+        if widget in logs:
+            logs[widget].append(regions or "all")
+        inside.append(widget)
+        try:
+            return repaint(widget, *regions)
+        finally:
+            inside.pop()
+
+    monkeypatch.setattr(Widget, "refresh", refreshed)
+    monkeypatch.setattr(widgets, "_repaint", repainted)
 
 
-async def test_a_nudge_repaints_only_the_lines_it_changed(app):
+async def test_a_nudge_repaints_only_the_lines_it_changed(app, monkeypatch):
     async with app.run_test(size=(120, 40)) as pilot:
         await pilot.pause()
         screen = app.loading_screen
@@ -49,10 +66,8 @@ async def test_a_nudge_repaints_only_the_lines_it_changed(app):
         board_before = [r.text.plain for r in board.rows]
         board_strips = dict(board._strips)
         asked: dict[str, list] = {pid: [] for pid in panels}
-        for pid, p in panels.items():
-            _watch_refreshes(p, asked[pid])
         board_asked: list = []
-        _watch_refreshes(board, board_asked)
+        _watch_refreshes(monkeypatch, {**{p: asked[pid] for pid, p in panels.items()}, board: board_asked})
 
         await pilot.press("plus")
         await pilot.pause()

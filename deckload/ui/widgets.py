@@ -119,26 +119,32 @@ def _line_strip(text: Text, width: int, own: Style, console) -> tuple[Strip, boo
 
 
 def _repaint(widget: Widget, *regions: Region) -> None:
-    """``widget.refresh(*regions)``, and the screen told at once that the widget is to be repainted.
+    """What ``widget.refresh(*regions)`` does for a repaint, with the screen told at once that the
+    widget is to be repainted.
 
-    textual hears of a repaint at the widget's next idle: its message loop wakes, posts an
-    ``Update`` to the screen, and the screen wakes again to take it, one round through the event
-    loop for each panel a key changed.  Until the last of them lands the screen may look idle,
-    and then it runs the callbacks meant for after the frame (``call_after_refresh``) before the
-    frame: the session's writes (``Session.write_in_background``) went to the writer thread while
-    the frame was still being drawn and took the interpreter from it.  Here the widget is added to
-    the screen's repaint set as ``Screen._on_update`` does, so the frame waits for nothing and the
-    callbacks for after it wait for it (``tests/test_ui_repaint.py``).  A layout, a scroll or a
-    widget not yet laid out takes textual's own way.
+    textual hears of a repaint at the widget's next idle: ``refresh`` wakes the widget's message
+    loop, which at its idle posts an ``Update`` to the screen, and the screen wakes again to take
+    it: one round through the event loop for each panel a key changed.  Until the last of them
+    lands the screen may look idle, and then it runs the callbacks meant for after the frame
+    (``call_after_refresh``) before the frame: the session's writes (``Session.write_in_background``)
+    went to the writer thread while the frame was still being drawn and took the interpreter from
+    it.  Here the widget's caches are cleared and its regions marked as ``Widget.refresh`` does
+    (textual 8.2), and the widget is added to the screen's repaint set as ``Screen._on_update``
+    does: the frame waits for nothing and the callbacks for after it wait for it
+    (``tests/test_ui_repaint.py``).  A widget not laid out on a screen, hidden or closing takes
+    textual's own way.
     """
+    if widget._is_mounted and widget.display and not widget._closing:
+        screen = widget.screen
+        if screen in screen._compositor:  # the condition Screen._on_update puts on an Update
+            widget._layout_cache.clear()
+            widget._set_dirty(*regions)
+            widget.clear_cached_dimensions()
+            widget._rich_style_cache.clear()
+            screen._dirty_widgets.add(widget)
+            screen.check_idle()
+            return
     widget.refresh(*regions)
-    if not (widget._repaint_required and widget._is_mounted and widget.display) or widget._closing:
-        return
-    screen = widget.screen
-    if screen in screen._compositor:  # the condition Screen._on_update puts on an Update
-        widget._repaint_required = False  # its idle would post the same Update
-        screen._dirty_widgets.add(widget)
-        screen.check_idle()
 
 
 def _look_key(widget: Widget) -> tuple:
