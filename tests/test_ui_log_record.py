@@ -70,22 +70,30 @@ async def test_ten_nudges_are_one_entry_with_the_level_reached(app):
 
 
 async def test_a_pause_ends_a_run_of_nudges_and_each_nudge_starts_the_pause_again(app, monkeypatch):
-    """The run of nudges of one tank is logged when the keys stop for RUN_PAUSE_S (here 0.3 s): a
+    """The run of nudges of one tank is logged when the keys stop for RUN_PAUSE_S (here 0.5 s): a
     nudge inside the pause starts it again, and the one entry counts both nudges."""
     import asyncio
+    import time
 
     from deckload.ui import main_screen
 
-    monkeypatch.setattr(main_screen, "RUN_PAUSE_S", 0.3)
+    monkeypatch.setattr(main_screen, "RUN_PAUSE_S", 0.5)
     async with app.run_test(size=(120, 40)) as pilot:
         await to_tank(pilot, app, "WB1P")
         n0 = len(entries(app))
         await pilot.press("plus")
-        await asyncio.sleep(0.2)
-        await pilot.press("plus")  # 0.2 s in: the run goes on, the pause starts again
-        await asyncio.sleep(0.2)  # 0.4 s after the first nudge, 0.2 s after the second
-        assert app.session._run is not None and app.session._run.steps == 2
+        first = time.monotonic()
         await asyncio.sleep(0.3)
+        await pilot.press("plus")  # inside the pause: the run goes on, the pause starts again
+        second = time.monotonic()
+        await asyncio.sleep(0.3)
+        # past the first nudge's pause, inside the second's (unless the machine stalled past it too)
+        run, now = app.session._run, time.monotonic()
+        assert now - first > 0.5
+        if now - second < 0.45:
+            assert run is not None and run.steps == 2
+        while time.monotonic() - second < 0.5 + 0.3:
+            await asyncio.sleep(0.05)
         await pilot.pause()
         assert app.session._run is None and app.loading_screen._settle_timer is None  # the pause ended it
         new = entries(app)[n0:]
