@@ -12,7 +12,8 @@ import deckload.core
 
 CORE = Path(deckload.core.__file__).parent
 ALLOWED_TOP = {"__future__", "dataclasses", "typing", "math", "numpy", "deckload", "functools", "collections",
-               "operator", "reprlib"}  # the last two: core/frozen.py (attribute getters, a recursion guard)
+               "operator", "reprlib", "inspect"}
+# the last three: core/frozen.py (attribute getters, a recursion guard, the signature dataclass gives __init__)
 FORBIDDEN_CALLS = {"open", "print", "input"}
 FORBIDDEN_ATTRS = {"time", "now", "utcnow", "today", "read_text", "write_text", "read_bytes", "write_bytes"}
 

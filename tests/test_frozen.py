@@ -152,3 +152,84 @@ def test_a_record_of_the_package_is_a_frozen_dataclass_with_its_behaviour():
     assert dataclasses.is_dataclass(Result) and Result.__dataclass_params__.frozen
     with pytest.raises(dataclasses.FrozenInstanceError):
         a.name = "z"
+
+
+INIT_KINDS = {
+    "__annotations__": {"a": "float", "b": "list", "c": "int", "d": "dict", "e": "float", "total": "float"},
+    "b": field(default_factory=list),
+    "c": 4,
+    "d": field(default_factory=dict, init=False),
+    "e": field(default=0.5, init=False),
+    "total": field(init=False, repr=False),
+    "__post_init__": lambda self: object.__setattr__(self, "total", self.a + self.c + self.e),
+}
+
+
+def test_init_sets_defaults_factories_and_fields_not_in_init_as_dataclass_does():
+    """Defaults, default factories (a new object for each record), fields left out of ``__init__``
+    with a default, a factory or neither (set by ``__post_init__``), and ``__post_init__`` itself."""
+    ref, mine = _both(INIT_KINDS)
+    for args, kwargs in (((1.0,), {}), ((1.0, [2]), {"c": 5}), ((), {"a": 2.0, "c": 1})):
+        x, y = ref(*args, **kwargs), mine(*args, **kwargs)
+        assert dataclasses.asdict(x) == dataclasses.asdict(y) and repr(x) == repr(y)
+        assert y.total == y.a + y.c + y.e
+    first, second = mine(1.0), mine(1.0)
+    assert first.b is not second.b and first.d is not second.d  # each record its own list and dict
+
+
+def test_a_wrong_call_is_refused_in_the_same_words():
+    ref, mine = _both(PLAIN)
+    for args, kwargs in (((), {}), ((1.0, "y", (), 4), {}), ((1.0,), {"z": 1}), ((1.0,), {"a": 2.0})):
+        words = []
+        for cls in (ref, mine):
+            with pytest.raises(TypeError) as err:
+                cls(*args, **kwargs)
+            words.append(str(err.value))
+        assert words[0] == words[1]
+
+
+def test_signature_and_doc_are_those_of_a_frozen_dataclass_before_and_after_the_first_record():
+    import inspect
+
+    body = dict(INIT_KINDS)
+    body.pop("__post_init__")
+    ref, mine = _both(body)
+    assert "__init__" in mine.__dict__  # not yet compiled: made on the first record
+    assert inspect.signature(ref) == inspect.signature(mine) and ref.__doc__ == mine.__doc__, (ref.__doc__, mine.__doc__)
+    first_init = mine.__dict__["__init__"]
+    mine(1.0)
+    assert mine.__dict__["__init__"] is not first_init  # the written __init__ took its place
+    assert inspect.signature(ref) == inspect.signature(mine)
+    assert ref.__init__.__annotations__ == mine.__init__.__annotations__
+    assert ref.__init__.__qualname__ == mine.__init__.__qualname__
+
+
+def test_what_dataclass_refuses_is_refused():
+    bad_order = {"__annotations__": {"a": "float", "b": "int"}, "a": 1.0}
+    own_setattr = {"__annotations__": {"a": "float"}, "__setattr__": lambda self, n, v: None}
+    for body in (bad_order, own_setattr):
+        for deco in (lambda c: dataclasses.dataclass(c, frozen=True), frozen):
+            ns = dict(body, __module__=__name__, __qualname__="Sample")
+            with pytest.raises(TypeError):
+                deco(type("Sample", (), ns))
+
+
+def test_keyword_only_fields_are_refused_with_the_way_out():
+    ns = {"__annotations__": {"a": "float"}, "a": field(kw_only=True), "__module__": __name__, "__qualname__": "S"}
+    with pytest.raises(TypeError, match="keyword-only; use @dataclass"):
+        frozen(type("S", (), ns))
+
+
+def test_a_frozen_subclass_of_a_frozen_record():
+    """A subclass made by frozen of a class made by frozen (as DeckItem of MassItem): dataclass
+    accepts the frozen base, the subclass is frozen, and both construct as dataclass's do."""
+    ref_base, mine_base = _both(PLAIN)
+    sub = {"__annotations__": {"d": "int"}, "d": 7}
+    ref_sub = dataclasses.dataclass(frozen=True)(type("Sub", (ref_base,), dict(sub, __module__=__name__)))
+    mine_sub = frozen(type("Sub", (mine_base,), dict(sub, __module__=__name__)))
+    x, y = ref_sub(1.0, "z"), mine_sub(1.0, "z")
+    assert dataclasses.asdict(x) == dataclasses.asdict(y) and mine_sub.__dataclass_params__.frozen
+    for attr in ("a", "d", "new"):
+        with pytest.raises(dataclasses.FrozenInstanceError):
+            setattr(y, attr, 1)
+    assert mine_base(a=1.0) != y  # another class: not equal, as dataclass's
