@@ -10,9 +10,9 @@ from rich.cells import cell_len
 from rich.segment import Segment
 from rich.style import Style
 from rich.text import Text
+from textual._border import get_box
 from textual.binding import Binding
 from textual.filter import ANSIToTruecolor
-from textual._border import get_box
 from textual.geometry import Region, Size
 from textual.message import Message
 from textual.scroll_view import ScrollView
@@ -183,9 +183,9 @@ class LinePanel(Widget):
         self._style: Style | None = None
         self._width: int | None = None
         self._painted: tuple[tuple, list[Strip]] | None = None
+        """(what the strips were rendered for, the strips) of the last render, until marked dirty."""
         self._look: tuple | None = None
         """(:func:`_look_key`, rich style, background colours, plain styles) as last read."""
-        """(what the strips were rendered for, the strips) of the last render, until marked dirty."""
 
     @property
     def lines(self) -> list[Text]:
