@@ -227,3 +227,23 @@ async def test_a_panel_follows_a_change_of_its_own_or_a_parents_style():
         await pilot.pause()
         assert not panel._plain_box(panel.size)
         drawn()
+
+
+@pytest.mark.parametrize("size", [(120, 40), (80, 24)])
+async def test_full_updates_write_what_textual_would(app, size):
+    """A full update (the first frame, every layout) and ``render_strips`` render every row whole
+    but leave out the containers their children tile (RowCompositor._every_row): what the
+    terminal receives, and the screen's strips, are textual's own, as opened, after keys, and
+    under a form."""
+    async with app.run_test(size=size) as pilot:
+        await pilot.pause()
+        comp = app.loading_screen._compositor
+        assert isinstance(comp, RowCompositor)
+        for keys in ((), ("plus", "down", "down", "minus"), ("t",)):
+            for key in keys:
+                await pilot.press(key)
+            await pilot.pause()
+            mine = comp.render_full_update().render_segments(app.console)
+            assert mine == Compositor.render_full_update(comp).render_segments(app.console), keys
+            assert [list(s) for s in comp.render_strips()] == [list(s) for s in Compositor.render_strips(comp)]
+        assert app.screen is not app.loading_screen  # the transfer form is open on top

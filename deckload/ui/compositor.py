@@ -23,15 +23,17 @@ It uses textual's compositor internals (``_dirty_regions``, ``_regions_to_spans`
 from __future__ import annotations
 
 from bisect import bisect_left
+from contextlib import contextmanager
 from typing import Iterable
 
-from textual._compositor import ChopsUpdate, Compositor
-from textual.geometry import Region
+from textual._compositor import ChopsUpdate, Compositor, LayoutUpdate
+from textual.geometry import Region, Size
 from textual.strip import Strip
 
 
 class RowCompositor(Compositor):
-    """textual's compositor; a partial update renders each widget only over its changed rows."""
+    """textual's compositor; a partial update renders each widget only over its changed rows, and
+    no update renders a container its children tile."""
 
     def __init__(self) -> None:
         super().__init__()
@@ -57,6 +59,26 @@ class RowCompositor(Compositor):
             self._row_spans = None
         chop_ends = [cut_set[1:] for cut_set in self.cuts]
         return ChopsUpdate(chops, spans, chop_ends)
+
+    def render_full_update(self, simplify: bool = False) -> LayoutUpdate:
+        # Every row whole: each widget rendered over all its rows, and the containers its children
+        # tile not at all (the first frame of a screen, and every layout, is a full update).
+        with self._every_row():
+            return super().render_full_update(simplify)
+
+    def render_strips(self, size: Size | None = None) -> list[Strip]:
+        with self._every_row(size):
+            return super().render_strips(size)
+
+    @contextmanager
+    def _every_row(self, size: Size | None = None):
+        """Every row of the screen (or of ``size``) to be rendered whole, while the block runs."""
+        width, height = size if size is not None else self.size
+        self._row_spans = {y: [(0, width)] for y in range(height)}
+        try:
+            yield
+        finally:
+            self._row_spans = None
 
     def _get_renders(self, crop: Region | None = None) -> Iterable[tuple[Region, Region, list[Strip]]]:
         rows = self._row_spans
