@@ -10,10 +10,11 @@ for every key (about 250 lines), most of it thrown away.
 the last, on which a region to repaint crosses the widget's columns; a widget no such region
 crosses is not rendered, nor one whose columns on each of those rows the widgets in front of it
 have already been rendered over (a container its children tile: the first strip for a cut wins).
-What the terminal receives is the same: textual's update writes a row only inside the regions to repaint, and inside them every cut still gets the front-most
-widget's strip (a widget covering a cut there is rendered on that row, and textual renders a
-row of a widget the same whether the crop asked for is the whole widget or the band).
-``tests/test_ui_compositor.py`` compares the two updates byte for byte.
+What the terminal receives is the same: textual's update writes a row only inside the regions
+to repaint, and inside them every cut still gets the front-most widget's strip (a widget covering
+a cut there is rendered on that row, and textual renders a row of a widget the same whether the
+crop asked for is the whole widget or the band).  Full updates and ``render_strips`` take the
+same way with every row whole.  ``tests/test_ui_compositor.py`` compares the updates byte for byte.
 
 It uses textual's compositor internals (``_dirty_regions``, ``_regions_to_spans``,
 ``_render_chops``, ``visible_widgets``, ``cuts``), written for textual 8.2 (pyproject pins

@@ -147,6 +147,30 @@ def _repaint(widget: Widget, *regions: Region) -> None:
     widget.refresh(*regions)
 
 
+def _look(widget: Widget, read) -> tuple:
+    """The widget's look as ``read()`` gives it, kept in ``widget._look`` and read again only when
+    :func:`_look_key` moves (a style it is made from changed)."""
+    key = _look_key(widget)
+    kept = widget._look
+    if kept is None or kept[0] != key:
+        kept = widget._look = (key, read())
+    return kept[1]
+
+
+def _no_effects(widget: Widget) -> bool:
+    """No outline, tint, hatch, opacity or text opacity: what both the panels' and the board's own
+    drawing leave out (each checks its borders and padding itself)."""
+    st = widget.styles
+    return (not any(kind for kind, _ in st.outline) and not st.tint.a and st.text_opacity == 1.0
+            and not st.has_rule("hatch") and widget.opacity == 1.0)
+
+
+def _columns(strips: list[Strip], crop: Region, width: int) -> list[Strip]:
+    """``strips`` cut to the columns of ``crop`` (as textual's line cache cuts them)."""
+    x1, x2 = crop.column_span
+    return strips if (x1, x2) == (0, width) else [strip.crop(x1, x2) for strip in strips]
+
+
 def _look_key(widget: Widget) -> tuple:
     """What a widget's look (its rich style, background colours and box) is made from: each node
     from the widget up to the app, by identity, with textual's count of the changes to its styles
@@ -185,7 +209,7 @@ class LinePanel(Widget):
         self._painted: tuple[tuple, list[Strip]] | None = None
         """(what the strips were rendered for, the strips) of the last render, until marked dirty."""
         self._look: tuple | None = None
-        """(:func:`_look_key`, rich style, background colours, plain styles) as last read."""
+        """(:func:`_look_key`, (rich style, background colours, plain styles)) as last read (:func:`_look`)."""
 
     @property
     def lines(self) -> list[Text]:
@@ -221,11 +245,8 @@ class LinePanel(Widget):
         app = self.app
         # The panel's look (style, background colours, plain box) for as long as no style it is
         # made from changes: each is a walk up the parents through their styles.
-        key = _look_key(self)
-        look = self._look
-        if look is None or look[0] != key:
-            look = self._look = (key, self.rich_style, self.background_colors, self._plain_styles())
-        _, style, colours, plain_styles = look
+        style, colours, plain_styles = _look(
+            self, lambda: (self.rich_style, self.background_colors, self._plain_styles()))
         size = self.size  # (a walk through textual's geometry each time it is read)
         # (A change of theme restyles, and so marks dirty, every widget.)
         made_for = (crop, size, colours, tuple((f, f.enabled) for f in app._filters))
@@ -248,9 +269,7 @@ class LinePanel(Widget):
     def _plain_styles(self) -> bool:
         """The part of :meth:`_plain_box` the styles decide: no border, padding, outline, tint,
         hatch, opacity or text opacity."""
-        st = self.styles
-        return (not any(st.gutter) and not any(kind for kind, _ in st.outline) and not st.tint.a
-                and st.text_opacity == 1.0 and not st.has_rule("hatch") and self.opacity == 1.0)
+        return not any(self.styles.gutter) and _no_effects(self)
 
     def _plain_box(self, size: Size) -> bool:
         """True when textual would put this panel's lines on the screen as they are: plain styles
@@ -281,10 +300,7 @@ class LinePanel(Widget):
             for f in (rgb_only if y in true else filters):
                 strip = strip.apply_filter(f, background)
             strips.append(strip)
-        x1, x2 = crop.column_span
-        if (x1, x2) != (0, size.width):
-            strips = [strip.crop(x1, x2) for strip in strips]
-        return strips
+        return _columns(strips, crop, size.width)
 
     def render_line(self, y: int) -> Strip:
         if self._width is None:  # called outside a render pass
@@ -393,7 +409,7 @@ class LoadBoard(ScrollView, can_focus=True):
         """Per board line: (its content strip, the finished line made from it) (see :meth:`_boxed_lines`)."""
         self._boxed_for: tuple | None = None
         self._look: tuple | None = None
-        """(:func:`_look_key`, rich style, :meth:`_box_styles`) as last read."""
+        """(:func:`_look_key`, (rich style, :meth:`_box_styles`)) as last read (:func:`_look`)."""
 
     @property
     def cursor_key(self) -> tuple | None:
@@ -482,10 +498,7 @@ class LoadBoard(ScrollView, can_focus=True):
             self._rebuild(repaint=False)  # a layout's frame is drawn before its Resize event (see SizedPanel)
         # The board's own style and box for as long as no style they are made from changes (see
         # LinePanel.render_lines); the cursor's style and the focus are read each time.
-        key = _look_key(self)
-        if self._look is None or self._look[0] != key:
-            self._look = (key, self.rich_style, self._box_styles())
-        _, own, box = self._look
+        own, box = _look(self, lambda: (self.rich_style, self._box_styles()))
         styles = (own, self.get_component_rich_style("board--cursor"), self.has_focus)
         if styles != self._styles:
             self._styles = styles
@@ -503,8 +516,7 @@ class LoadBoard(ScrollView, can_focus=True):
         filters are given); None when the styles give more than a right border."""
         st = self.styles
         (top, _), (right, right_colour), (bottom, _), (left, _) = st.border
-        if (top or bottom or left or any(st.padding) or any(kind for kind, _ in st.outline) or st.tint.a
-                or st.text_opacity != 1.0 or self.opacity != 1.0 or st.has_rule("hatch")):
+        if top or bottom or left or any(st.padding) or not _no_effects(self):
             return None
         base_background, background = self.background_colors
         inner, outer = self._styles_cache.get_inner_outer(base_background, background)
@@ -537,7 +549,7 @@ class LoadBoard(ScrollView, can_focus=True):
         line, four or five of them a nudge).  A finished line is kept while its content line is
         the same object and the box, filters and background are the same."""
         filters = self.app.get_line_filters()
-        made_for = (content_w, inner, edge, background, tuple((f, f.enabled) for f in filters))
+        made_for = (content_w, inner, edge, background, tuple(filters))  # (the filters that are on)
         if made_for != self._boxed_for:
             self._boxed_for = made_for
             self._boxed.clear()
@@ -555,10 +567,7 @@ class LoadBoard(ScrollView, can_focus=True):
                     done = done.apply_filter(f, background)
                 kept = self._boxed[y + top] = (line, done)
             strips.append(kept[1])
-        x1, x2 = crop.column_span
-        if (x1, x2) != (0, width):
-            strips = [strip.crop(x1, x2) for strip in strips]
-        return strips
+        return _columns(strips, crop, width)
 
     def render_line(self, y: int) -> Strip:
         if self._place is None:  # called outside a render pass
