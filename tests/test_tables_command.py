@@ -5,6 +5,7 @@ from __future__ import annotations
 
 import hashlib
 import pickle
+import shutil
 import tomllib
 from pathlib import Path
 
@@ -13,6 +14,8 @@ import pytest
 
 from deckload.cli.main import main
 from deckload.cli.tables import build_profile_text
+from deckload.io.profiles import load_profile
+from tools.trimmed_tables_from_geometry import KN_ROUND, ROUND, trimmed_vessel
 
 ROOT = Path(__file__).resolve().parent.parent
 GEOMETRY = ROOT / "vessel_profiles" / "demo_islander.geometry.toml"
@@ -24,11 +27,11 @@ HAND_SECTIONS = ("format", "lightship", "criteria", "free_surface", "load_line")
 
 @pytest.fixture(scope="module", autouse=True)
 def tables_built_once():
-    """Computing the demo's tables from its geometry costs about 2.5 s of CPU, and three tests of
-    this module need them (the byte-for-byte rebuild, the refresh and the output to stdout).  The
-    computation runs once: ``build_tables`` as ``deckload tables`` calls it is replaced, for this
-    module only, by a memo keyed on the SHA-256 of the pickled geometry, so a geometry that differs
-    in any value is computed afresh.  A memo hit replays the progress messages of the real run.  What
+    """Computing the demo's tables from its geometry costs about 2.5 s of CPU, and four tests of
+    this module need them (the byte-for-byte rebuild, the refresh, the output to stdout and the
+    tables at trims read back).  The computation runs once: ``build_tables`` as ``deckload tables``
+    calls it is replaced, for this module only, by a memo keyed on the SHA-256 of the pickled
+    geometry, so a geometry that differs in any value is computed afresh.  A memo hit replays the progress messages of the real run.  What
     is computed is checked by ``test_committed_demo_profile_rebuilds_byte_for_byte`` (and the
     geometry tests); the other tests here check the command around it."""
     import deckload.cli.tables as tables_cli
@@ -69,6 +72,44 @@ def test_committed_demo_profile_rebuilds_byte_for_byte(rebuilt):
     )
 
 
+DEMO_TRIMS = (-1.0, -0.5, 0.5, 1.0, 1.5)
+
+
+@pytest.fixture(scope="module")
+def demo_round_trip(tmp_path_factory):
+    """``deckload tables`` with ``--trims`` on a copy of the demo's geometry, read back.  It lives
+    in this module for the even-keel tables computed once above; the other tests of the command at
+    trims are in tests/test_tables_trims.py."""
+    d = tmp_path_factory.mktemp("demo")
+    shutil.copy(GEOMETRY, d / GEOMETRY.name)
+    text, notes = build_profile_text(d / GEOMETRY.name, PROFILE.read_text(encoding="utf-8"), trims=list(DEMO_TRIMS))
+    (d / "demo.toml").write_text(text, encoding="utf-8")
+    return load_profile(d / "demo.toml"), notes
+
+
+@pytest.mark.long
+def test_command_output_read_back_equals_the_generator(demo_round_trip):
+    """Read back by the profile reader, the command's tables at trims are the generator's
+    (deckload/core/geometry/trimmed.py through tests/tools/trimmed_tables_from_geometry.py) to the
+    decimals they are written with."""
+    v, notes = demo_round_trip
+    gen = trimmed_vessel(load_profile(PROFILE), sorted((0.0,) + DEMO_TRIMS)).trimmed
+    tt = v.trimmed
+    assert tt is not None
+    assert list(tt.hydro_trim_m) == list(gen.hydro_trim_m) == [-1.0, -0.5, 0.0, 0.5, 1.0, 1.5]
+    assert list(tt.kn_trim_m) == list(gen.kn_trim_m)
+    for got, ref in zip(tt.hydrostatics, gen.hydrostatics):
+        assert len(got.draft_m) == len(ref.draft_m)
+        for col, tol in ROUND.items():
+            np.testing.assert_allclose(getattr(got, col), getattr(ref, col), rtol=0, atol=tol, err_msg=col)
+    for got, ref in zip(tt.cross_curves, gen.cross_curves):
+        np.testing.assert_allclose(got.kn_m, ref.kn_m, rtol=0, atol=KN_ROUND)
+        assert got.trim_basis == "even keel"
+    # the trim-0 KN are fixed-trim like the others, and the note says the geometry's free trim was not used
+    assert v.cross_curves.trim_basis == "even keel" and v.cross_curves.reference_lcg_m is None
+    assert any("fixed trim 0" in n and "'free trim'" in n for n in notes)
+
+
 def test_packaged_copy_is_identical():
     assert PACKAGED.read_bytes() == PROFILE.read_bytes()
 
@@ -76,8 +117,6 @@ def test_packaged_copy_is_identical():
 def test_demo_profile_loads_and_is_consistent():
     """The loader accepts the demo; its tables are mutually consistent (analytic relations):
     TPC = dΔ/dT/100 (Simpson vs. finite difference, 1 %), capacities equal last volumes."""
-    from deckload.io.profiles import load_profile
-
     v = load_profile(PROFILE)
     h = v.hydrostatics
     slope = np.gradient(h.displacement_t, h.draft_m) / 100.0

@@ -1,8 +1,10 @@
 """``deckload tables GEOMETRY --trims …``: hydrostatics and KN at trims written into the profile.
 
-* Read back by the profile reader, the command's tables are the generator's
+* Read back by the profile reader, the command's tables for the demo are the generator's
   (deckload/core/geometry/trimmed.py through tests/tools/trimmed_tables_from_geometry.py) to
-  the decimals they are written with (0.1 mm, 0.01 t, 1 mm on KML: cli/tables.py).
+  the decimals they are written with (0.1 mm, 0.01 t, 1 mm on KML: cli/tables.py): that test is
+  in tests/test_tables_command.py, whose module computes the demo's even-keel tables once for
+  every test that needs them.
 * On a box hull they are the closed forms derived in tests/trimmed_box.py (its docstring), with
   one difference derived here: the hull calculation integrates the waterplane projected on the
   ship's base (length L, not L/cosψ; core/geometry/trimmed.py leaves the cosψ factors out), so
@@ -21,28 +23,15 @@
 from __future__ import annotations
 
 import math
-import shutil
 import tomllib
-from pathlib import Path
 
 import numpy as np
 import pytest
 
 from deckload.cli.main import main
 from deckload.cli.tables import build_profile_text
-from deckload.io.profiles import load_profile
-from tools.trimmed_tables_from_geometry import trimmed_vessel
+from tools.trimmed_tables_from_geometry import KN_ROUND, ROUND
 from trimmed_box import B, D, DRAFTS, HEELS, KN_DRAFTS, L, RHO, hydro_at_trim, kn_exact
-
-ROOT = Path(__file__).resolve().parent.parent
-GEOMETRY = ROOT / "vessel_profiles" / "demo_islander.geometry.toml"
-PROFILE = ROOT / "vessel_profiles" / "demo_islander.toml"
-DEMO_TRIMS = (-1.0, -0.5, 0.5, 1.0, 1.5)
-
-# written decimals (cli/tables.py _hydro_section): half a unit of the last decimal, plus round-off
-ROUND = {"draft_m": 5e-5, "displacement_t": 5e-3, "lcb_m": 5e-5, "lcf_m": 5e-5, "kmt_m": 5e-5, "tpc_t_cm": 5e-5,
-         "mctc_tm_cm": 5e-5, "vcb_m": 5e-5, "kml_m": 5e-4}
-KN_ROUND = 5e-5
 
 
 def box_geometry(depth_m: float = D, drafts=DRAFTS, kn_drafts=KN_DRAFTS) -> str:
@@ -71,35 +60,6 @@ kn_displacement_t = {disp}
 kn_heel_deg = {[float(h) for h in range(0, 95, 5)]}
 trim_basis = "even keel"
 """
-
-
-@pytest.fixture(scope="module")
-def demo_round_trip(tmp_path_factory):
-    d = tmp_path_factory.mktemp("demo")
-    shutil.copy(GEOMETRY, d / GEOMETRY.name)
-    text, notes = build_profile_text(d / GEOMETRY.name, PROFILE.read_text(encoding="utf-8"), trims=list(DEMO_TRIMS))
-    (d / "demo.toml").write_text(text, encoding="utf-8")
-    return load_profile(d / "demo.toml"), notes
-
-
-@pytest.mark.long
-def test_command_output_read_back_equals_the_generator(demo_round_trip):
-    v, notes = demo_round_trip
-    gen = trimmed_vessel(load_profile(PROFILE), sorted((0.0,) + DEMO_TRIMS)).trimmed
-    tt = v.trimmed
-    assert tt is not None
-    assert list(tt.hydro_trim_m) == list(gen.hydro_trim_m) == [-1.0, -0.5, 0.0, 0.5, 1.0, 1.5]
-    assert list(tt.kn_trim_m) == list(gen.kn_trim_m)
-    for got, ref in zip(tt.hydrostatics, gen.hydrostatics):
-        assert len(got.draft_m) == len(ref.draft_m)
-        for col, tol in ROUND.items():
-            np.testing.assert_allclose(getattr(got, col), getattr(ref, col), rtol=0, atol=tol, err_msg=col)
-    for got, ref in zip(tt.cross_curves, gen.cross_curves):
-        np.testing.assert_allclose(got.kn_m, ref.kn_m, rtol=0, atol=KN_ROUND)
-        assert got.trim_basis == "even keel"
-    # the trim-0 KN are fixed-trim like the others, and the note says the geometry's free trim was not used
-    assert v.cross_curves.trim_basis == "even keel" and v.cross_curves.reference_lcg_m is None
-    assert any("fixed trim 0" in n and "'free trim'" in n for n in notes)
 
 
 def test_refresh_without_trims_keeps_them_with_a_note(tmp_path):

@@ -13,6 +13,12 @@ import dataclasses
 from deckload.core.geometry.trimmed import TableAtTrim, tables_at_trims
 from deckload.core.model import TrimmedTables, Vessel, frozen_array
 
+# The decimals ``deckload tables`` writes the tables at trims with (cli/tables.py
+# ``_hydro_section``): half a unit of the last decimal, plus round-off.
+ROUND = {"draft_m": 5e-5, "displacement_t": 5e-3, "lcb_m": 5e-5, "lcf_m": 5e-5, "kmt_m": 5e-5, "tpc_t_cm": 5e-5,
+         "mctc_tm_cm": 5e-5, "vcb_m": 5e-5, "kml_m": 5e-4}
+KN_ROUND = 5e-5
+
 
 def tables_for(v: Vessel, trims, min_draft_m: float = 0.0) -> tuple[TableAtTrim, ...]:
     """Tables at ``trims`` (0 included or not) on the vessel's own draft and KN grids."""
