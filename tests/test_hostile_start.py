@@ -62,6 +62,24 @@ def test_the_log_has_the_same_boundary(home, monkeypatch, capsys):
     assert "internal error while running 'log show'" in capsys.readouterr().err
 
 
+@pytest.mark.parametrize("argv", [["calc", "demo", "working"], ["report", "demo", "working", "--txt"],
+                                  ["marks", "demo", "working"]])
+def test_finding_a_condition_by_its_name_is_inside_the_boundary(home, monkeypatch, capsys, argv):
+    """The lookup of a condition named by key or title reads the profile and every condition file
+    beside it, before the command proper: whatever escapes it is the command's internal error
+    (exit 3, one paragraph), not a traceback."""
+    import deckload.io.condition_files
+
+    def broken(*a, **k):
+        raise RecursionError("maximum recursion depth exceeded")
+
+    monkeypatch.setattr(deckload.io.condition_files, "resolve", broken)
+    assert main(argv) == 3
+    err = capsys.readouterr().err
+    assert "Traceback" not in err and err.count("\n") == 1
+    assert f"internal error while running '{argv[0]}'" in err and "RecursionError" in err
+
+
 def test_the_documented_exit_codes_are_in_the_readme():
     text = (paths.PACKAGE_DATA.parents[1] / "README.md").read_text(encoding="utf-8")
     assert "3 — internal error" in text

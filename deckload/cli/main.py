@@ -248,58 +248,9 @@ def _main(argv: list[str] | None) -> int:
     args = _parser(argv[0] if argv and argv[0] in COMMANDS else None).parse_args(argv)
     if args.no_cache:
         os.environ["DECKLOAD_NO_CACHE"] = "1"  # for the screen too, which reads it where it loads
-    unknown = _demo_shorthand(args)
-    if unknown:
-        print(f"deckload: {unknown}", file=sys.stderr)
-        return 2
     cmd = args.command or "open"
-    if cmd in ("open", "calc", "report", "marks", "check") or getattr(args, "log_command", None) == "record":
-        missing = _named_condition(args)
-        if missing:
-            print(missing, file=sys.stderr)
-            return 2
     try:
-        if cmd == "open":
-            from deckload.ui.launch import run_open
-
-            return run_open(getattr(args, "profile", None), getattr(args, "condition", None),
-                            after_first_frame=startup.resume_and_collect)
-        if cmd == "calc":
-            from deckload.cli.calc import run_calc
-
-            return run_calc(args.profile, args.condition, as_json=args.json, direct=args.direct)
-        if cmd == "check":
-            from deckload.cli.check import run_check
-
-            return run_check(args.profile, args.condition)
-        if cmd == "tables":
-            from deckload.cli.tables import run_tables
-
-            startup.resume()  # a long computation: the collector runs (deckload.cli.startup)
-            return run_tables(args.geometry, args.output, args.trims)
-        if cmd == "csv":
-            from deckload.cli.csv_export import run_csv
-
-            return run_csv(args.profile, args.folder)
-        if cmd == "marks":
-            from deckload.cli.marks import run_marks
-
-            given = [args.aft, args.mid, args.fwd]
-            if any(g is not None for g in given) and not all(g is not None for g in given):
-                print("deckload marks: give all six readings (--aft, --mid and --fwd, port and starboard each)",
-                      file=sys.stderr)
-                return 2
-            readings = None if args.aft is None else [*args.aft, *args.mid, *args.fwd]
-            return run_marks(args.profile, args.condition, readings)
-        if cmd == "report":
-            from deckload.cli.report import run_report
-
-            return run_report(args.profile, args.condition, html=not args.txt, output=args.output, direct=args.direct)
-        if cmd == "log":
-            from deckload.cli.log import run_log
-
-            startup.resume()  # a long log may be read: the collector runs (deckload.cli.startup)
-            return run_log(args)
+        return _run(args, cmd)
     except KeyboardInterrupt:
         return 130
     except BrokenPipeError:
@@ -316,6 +267,62 @@ def _main(argv: list[str] | None) -> int:
 
         what = {"open": "running the loading screen", "log": f"running 'log {getattr(args, 'log_command', '')}'"}
         return internal_error(e, what.get(cmd, f"running '{cmd}'"), _files(args))
+
+
+def _run(args: argparse.Namespace, cmd: str) -> int:
+    """The command ``cmd``, inside :func:`_main`'s error boundary: the lookup of a condition by its
+    name reads the profile and every condition file beside it, and is as much the command as the
+    command itself."""
+    unknown = _demo_shorthand(args)
+    if unknown:
+        print(f"deckload: {unknown}", file=sys.stderr)
+        return 2
+    if cmd in ("open", "calc", "report", "marks", "check") or getattr(args, "log_command", None) == "record":
+        missing = _named_condition(args)
+        if missing:
+            print(missing, file=sys.stderr)
+            return 2
+    if cmd == "open":
+        from deckload.ui.launch import run_open
+
+        return run_open(getattr(args, "profile", None), getattr(args, "condition", None),
+                        after_first_frame=startup.resume_and_collect)
+    if cmd == "calc":
+        from deckload.cli.calc import run_calc
+
+        return run_calc(args.profile, args.condition, as_json=args.json, direct=args.direct)
+    if cmd == "check":
+        from deckload.cli.check import run_check
+
+        return run_check(args.profile, args.condition)
+    if cmd == "tables":
+        from deckload.cli.tables import run_tables
+
+        startup.resume()  # a long computation: the collector runs (deckload.cli.startup)
+        return run_tables(args.geometry, args.output, args.trims)
+    if cmd == "csv":
+        from deckload.cli.csv_export import run_csv
+
+        return run_csv(args.profile, args.folder)
+    if cmd == "marks":
+        from deckload.cli.marks import run_marks
+
+        given = [args.aft, args.mid, args.fwd]
+        if any(g is not None for g in given) and not all(g is not None for g in given):
+            print("deckload marks: give all six readings (--aft, --mid and --fwd, port and starboard each)",
+                  file=sys.stderr)
+            return 2
+        readings = None if args.aft is None else [*args.aft, *args.mid, *args.fwd]
+        return run_marks(args.profile, args.condition, readings)
+    if cmd == "report":
+        from deckload.cli.report import run_report
+
+        return run_report(args.profile, args.condition, html=not args.txt, output=args.output, direct=args.direct)
+    if cmd == "log":
+        from deckload.cli.log import run_log
+
+        startup.resume()  # a long log may be read: the collector runs (deckload.cli.startup)
+        return run_log(args)
     print(f"deckload: unknown command {cmd!r}", file=sys.stderr)
     return 2
 
