@@ -173,7 +173,11 @@ def impossible_result(v: m.Vessel, r) -> str | None:
         return f"trim {r.trim_m} m"
     if not (0 < r.displacement_t <= 1.2 * p.lbp_m * p.breadth_m * 1.5 * p.depth_m * 1.04):
         return f"displacement {r.displacement_t} t"
-    if not (0.0 <= r.kg_m <= p.depth_m + 60) or abs(r.gm_fluid_m) > 100 or abs(r.list_deg) > 90:
+    if r.list_deg is None and not any(w.code == "no-equilibrium" and w.severity == "danger" for w in r.warnings):
+        return "no list (no position of equilibrium) without its danger warning"
+    if r.list_deg is not None and abs(r.list_deg) > r.gz_end_deg:
+        return f"list {r.list_deg}° beyond the curve's end {r.gz_end_deg}°"
+    if not (0.0 <= r.kg_m <= p.depth_m + 60) or abs(r.gm_fluid_m) > 100:
         return f"KG {r.kg_m}, GM {r.gm_fluid_m}, list {r.list_deg}"
     return None
 

@@ -47,11 +47,13 @@ def test_a_curve_starting_at_zero_and_falling_first_has_its_equilibrium_where_it
     assert f.equilibrium_deg == pytest.approx(_linear_root(gz, 1), abs=1e-12)
 
 
-def test_a_curve_negative_everywhere_has_no_equilibrium_short_of_90_degrees_and_no_vanishing_angle():
-    """GZ = −0.1 − 0.2·sinφ < 0 for every φ: the equilibrium is taken as 90° (she lies on her
-    side), the largest GZ is the upright −0.1 m and there is no range of positive stability."""
+def test_a_curve_negative_everywhere_has_no_equilibrium_and_no_vanishing_angle():
+    """GZ = −0.1 − 0.2·sinφ < 0 for every φ: no angle of equilibrium (None: no number stands for a
+    heel beyond the curve), the largest GZ is the upright −0.1 m and there is no range of positive
+    stability.  The same on a curve cut at 60° (KN tables that end there)."""
     gz = -0.1 - 0.2 * np.sin(FINE_RAD)
     f = facts(gz)
-    assert f.equilibrium_deg == 90.0
+    assert f.equilibrium_deg is None
+    assert facts(gz[:601]).equilibrium_deg is None and facts(gz[:601]).vanishing_angle_deg is None
     assert f.vanishing_angle_deg is None
     assert (f.max_gz_m, f.max_gz_angle_deg) == (pytest.approx(-0.1, abs=1e-12), 0.0)

@@ -34,7 +34,9 @@ def test_gz_never_positive_is_a_danger():
     r = evaluate(v, c)
     assert max(r.gz_m[1:]) < 0.0
     notes = [(w.message, w.severity) for w in r.warnings if w.code == "no-equilibrium"]
-    assert notes == [("GZ never becomes positive: no position of equilibrium", "danger")]
+    assert notes == [("GZ never becomes positive heeling to starboard up to 90°: no position of equilibrium",
+                      "danger")]
+    assert r.list_deg is None and r.vanishing_angle_deg is None
 
 
 def test_actual_free_surface_rule_is_a_caution():

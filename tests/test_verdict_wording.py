@@ -256,13 +256,14 @@ def test_passenger_turning_without_windage_at_the_draft_takes_lbp():
 
 def test_passenger_lever_she_never_reaches():
     """20 000 passengers × 0.075 t at 4 m: lever 6000/1230 = 4.878 m, above the box's largest GZ
-    (KN ≤ √((B/2)² + D²)/… well under 5 m at KG 3): reported as 90°, failed, with the reason."""
+    (KN ≤ √((B/2)² + D²)/… well under 5 m at KG 3): reported as the curve's end, 90°, failed, with
+    the reason."""
     pax = PassengerData(count=20000, mass_per_person_t=0.075, standing_area_m2=5000.0, standing_tcg_m=4.0,
                         service_speed_kn=12.0)
     r = evaluate(*box(3.0, 3.0, CriteriaSettings(ship_type="passenger", sharp_bilged=True), passengers=pax))
     c = crit(r, "IS2008-A3.1-crowding")
     assert (c.value, c.passed) == (90.0, False)
-    assert c.note == "GZ never reaches the heeling lever; lever 4.8780 m (20000 × 0.075 t at 4 m)"
+    assert c.note == "GZ never reaches the heeling lever up to 90°; lever 4.8780 m (20000 × 0.075 t at 4 m)"
     assert (c.description, c.limit, c.unit, c.comparison, c.source, c.set_id) == (
         "Heel from passengers crowding to one side", 10.0, "deg", "<=", "IS Code 2008 Part A 3.1", "IS2008-A3.1")
     assert max(r.gz_m) < 4.878

@@ -16,7 +16,11 @@ def format_summary(r: Result, tables: str | None = None) -> str:
     """A plain-text summary of a result, for the terminal; ``tables`` is the sentence saying which
     hydrostatic and KN tables were used (:func:`deckload.core.trimmed_tables.tables_basis`)."""
     # below the last printed decimal the words of the report: upright, even keel (not "0.00° stbd")
-    side = "upright" if abs(r.list_deg) < 0.05 else "stbd" if r.list_deg > 0 else "port"
+    if r.list_deg is None:
+        list_text = f"{vf.NO_EQUILIBRIUM:>23}"
+    else:
+        side = "upright" if abs(r.list_deg) < 0.05 else "stbd" if r.list_deg > 0 else "port"
+        list_text = f"{abs(r.list_deg):9.1f}° {side}"
     trim_word = "even keel" if abs(r.trim_m) < 0.0005 else "by the stern" if r.trim_m > 0 else "by the head"
     lines = [
         f"{r.vessel_name} — {r.condition_name}  (water {r.water_density_t_m3:.3f} t/m³)",
@@ -26,12 +30,12 @@ def format_summary(r: Result, tables: str | None = None) -> str:
         f"  KG solid       {r.kg_m:10.3f} m      ΣFSM         {r.fsm_total_tm:10.1f} t·m",
         f"  FSC (ΣFSM/Δ)   {r.fsc_m:10.3f} m      KG fluid     {r.kg_fluid_m:10.3f} m",
         f"  KMt            {r.km_m:10.3f} m      GM solid     {r.gm_solid_m:10.3f} m",
-        f"  GM fluid       {r.gm_fluid_m:10.3f} m      List         {abs(r.list_deg):9.1f}° {side}",
+        f"  GM fluid       {r.gm_fluid_m:10.3f} m      List         {list_text}",
         f"  Draft aft      {r.draft_aft_m:10.3f} m      Draft fwd    {r.draft_fwd_m:10.3f} m",
         f"  Draft midships {r.draft_mean_m:10.3f} m      Trim         {abs(r.trim_m):10.3f} m {trim_word}",
         f"  Max GZ         {r.max_gz_m:10.3f} m at {r.max_gz_angle_deg:4.1f}°"
-        + (f"   vanishing {r.vanishing_angle_deg:.1f}°" if r.vanishing_angle_deg is not None
-           else f"   vanishing beyond {r.gz_end_deg:g}°")
+        + ("   GZ never positive" if vf.vanishing_words(r) == vf.NO_EQUILIBRIUM
+           else f"   vanishing {vf.vanishing_words(r)}")
         + (f"   θf {r.downflooding_angle_deg:.1f}°" if r.downflooding_angle_deg is not None else ""),
         f"  Freeboard mid  {vf.fmt_optional(r.freeboard_m, '.3f', ' m'):>12}      "
         f"Margin to the mark {vf.fmt_optional(r.load_line_margin_m, '+.3f', ' m'):>9} (+ below it)",

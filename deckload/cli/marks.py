@@ -68,6 +68,10 @@ def run_marks(profile_path: Path, condition_path: Path, readings: list[float] | 
     if vessel.draft_marks is None:
         print(f"{profile_path}: the profile has no [draft_marks] (see vessel_profiles/README.md)", file=sys.stderr)
         return 1
+    if result.list_deg is None:
+        print(f"deckload marks: {condition_path}: GZ never becomes positive, so she has no position of "
+              "equilibrium: no reading at the marks can be predicted", file=sys.stderr)
+        return 1
     observed = MarkReadings(*readings) if readings is not None else None
     try:
         print(format_marks(vessel, condition, result, observed))

@@ -101,8 +101,22 @@ class NoPlan:
     """The list every step had to stay within (trim and GM goals)."""
 
 
+NO_EQUILIBRIUM = "GZ never becomes positive: she has no position of equilibrium"
+
+
 def value_of(result: Result, goal: Goal) -> float:
-    return float(getattr(result, GOALS[goal.quantity][0]))
+    """The goal's quantity in ``result``; ValueError for a list where there is none (no
+    position of equilibrium: the planner never passes through such a condition)."""
+    value = getattr(result, GOALS[goal.quantity][0])
+    if value is None:
+        raise ValueError(NO_EQUILIBRIUM)
+    return float(value)
+
+
+def _start(result: Result) -> None:
+    """Refuse to plan from a condition with no position of equilibrium (ValueError)."""
+    if result.list_deg is None:
+        raise ValueError(NO_EQUILIBRIUM + " as she is: the planner starts from a condition that floats")
 
 
 def _met(value: float, goal: Goal) -> bool:
@@ -131,11 +145,14 @@ def propose(
     """
     if goal.quantity not in GOALS:
         raise ValueError(f"goal {goal.quantity!r} is not one of {', '.join(GOALS)}")
-    q0 = value_of(evaluate(vessel, condition), goal)
+    r0 = evaluate(vessel, condition)
+    _start(r0)
+    q0 = value_of(r0, goal)
     out: list[Proposal] = []
     for steps, hi, apply in _moves(vessel, condition, allowed, move, room, pairs=False):
         hit, _ = _search(vessel, goal, hi, q0, apply, evaluate)
-        if hit is not None and (list_limit_deg is None or abs(hit[2].list_deg) <= list_limit_deg + 1e-9):
+        if hit is not None and (list_limit_deg is None or (hit[2].list_deg is not None
+                                                           and abs(hit[2].list_deg) <= list_limit_deg + 1e-9)):
             m, c, r, after, n = hit
             (a, b), = steps
             out.append(Proposal(a, b, m, c, r, q0, after, n))
@@ -181,9 +198,9 @@ def _search(vessel, goal, hi, q0, apply, evaluate):
         try:
             c = apply(m)
             r = evaluate(vessel, c)
+            return c, r, value_of(r, goal) - goal.target
         except (ValueError, KeyError, ArithmeticError):
             return None
-        return c, r, value_of(r, goal) - goal.target
 
     f0 = q0 - goal.target
     end = q(hi)
@@ -250,10 +267,13 @@ def plan(
     if goal.quantity not in GOALS:
         raise ValueError(f"goal {goal.quantity!r} is not one of {', '.join(GOALS)}")
     r0 = evaluate(vessel, condition)
+    _start(r0)
     q0 = value_of(r0, goal)
     limit = None if goal.quantity == "list" else max(abs(r0.list_deg), KEEP_LIST_DEG)
 
     def upright(r: Result) -> bool:
+        if r.list_deg is None:  # no position of equilibrium: never a step of a plan
+            return False
         return limit is None or abs(r.list_deg) <= limit + 1e-9
 
     done: list[Transfer] = []

@@ -206,8 +206,9 @@ EXTRA_FORMS: dict[str, tuple[str, str, str]] = {
 """Description, unit and comparison of each kind of profile criterion (model.EXTRA_KINDS)."""
 
 
-def extra_criterion_result(n: int, ec, value: float | None, why_not: str = "") -> CriterionResult:
-    """A profile (flag State / class) criterion against its measured value; None = not assessable."""
+def extra_criterion_result(n: int, ec, value: float | None, why_not: str = "", note: str = "") -> CriterionResult:
+    """A profile (flag State / class) criterion against its measured value; None = not assessable
+    (``why_not`` says why); ``note`` goes with a value."""
     text, unit, comp = EXTRA_FORMS[ec.kind]
     desc = text.format(from_deg=ec.from_deg, to_deg=ec.to_deg, at_deg=ec.at_deg)
     cid = f"profile-{n + 1}-{ec.kind.replace('_', '-')}"
@@ -215,4 +216,4 @@ def extra_criterion_result(n: int, ec, value: float | None, why_not: str = "") -
         return CriterionResult(cid, desc, 0.0, ec.limit, unit, comp, False, ec.source, why_not,
                                set_id=EXTRA_SET, assessed=False)
     passed = bool(value >= ec.limit) if comp == ">=" else bool(value <= ec.limit)
-    return CriterionResult(cid, desc, value, ec.limit, unit, comp, passed, ec.source, set_id=EXTRA_SET)
+    return CriterionResult(cid, desc, value, ec.limit, unit, comp, passed, ec.source, note, set_id=EXTRA_SET)

@@ -59,7 +59,8 @@ class DirectState:
     trim_m: float
     """T_AP − T_FP (m), + by the stern."""
     list_deg: float
-    """+ starboard."""
+    """+ starboard; ±90 when GZ on the whole hull is negative to 90° (she lies on her side at
+    least; the drafts are worked at 89°)."""
     kmt_m: float
     gm_fluid_m: float
     heel_deg: np.ndarray
@@ -102,6 +103,8 @@ def direct_state(body: Body, lbp_m: float, displacement_t: float, water_density_
     gz_port = base + tcg_m * gzmod.COS
     side_curve = gz_port if tcg_m < 0 else gz_stbd
     eq = gzmod.facts(side_curve).equilibrium_deg
+    if eq is None:  # GZ negative to 90° on the whole hull: she lies on her side at least
+        eq = 90.0
     heel = eq if tcg_m >= 0 else -eq
 
     # drafts at the list, from the plane itself (the hull is symmetric: the port list mirrors)
@@ -173,13 +176,16 @@ def compare(vessel, result) -> Comparison:
     top = min(40.0, flood) if flood is not None else 40.0
     a30 = gzmod.area_to(gz_direct, 30.0)
     a40 = gzmod.area_to(gz_direct, top)
-    heel = f.equilibrium_deg if not port else -f.equilibrium_deg
+    eq = f.equilibrium_deg
     rows = [
         ("Draft aft", "m", result.draft_aft_m, d.draft_aft_m),
         ("Draft forward", "m", result.draft_fwd_m, d.draft_fwd_m),
         ("Draft midships", "m", result.draft_mean_m, d.draft_mid_m),
         ("Trim (+ by the stern)", "m", result.trim_m, d.trim_m),
-        ("List (+ starboard)", "deg", result.list_deg, heel),
+    ]
+    if result.list_deg is not None and eq is not None:  # (no list to compare where GZ is never positive)
+        rows.append(("List (+ starboard)", "deg", result.list_deg, eq if not port else -eq))
+    rows += [
         ("KMt", "m", result.km_m, d.kmt_m),
         ("GM fluid", "m", result.gm_fluid_m, d.gm_fluid_m),
     ]

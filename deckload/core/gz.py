@@ -96,8 +96,9 @@ class CurveFacts:
     max_gz_m: float
     max_gz_angle_deg: float
     vanishing_angle_deg: float | None
-    equilibrium_deg: float
-    """First angle where GZ = 0 going up from 0° (0 for an upright ship with GM > 0)."""
+    equilibrium_deg: float | None
+    """First angle where GZ = 0 going up from 0° (0 for an upright ship with GM > 0); None when GZ
+    never becomes positive on the curve: no position of equilibrium up to its last angle."""
 
 
 def area_to(gz: np.ndarray, angle_deg: float) -> float:
@@ -145,10 +146,11 @@ def facts(gz: np.ndarray) -> CurveFacts:
             angle += off * STEP_DEG
             gmax = float(b - 0.25 * (a - c) * off)
     if gz[0] < 0 or (gz[0] == 0 and gz[1] < 0):
-        eq = _crossing(gz, 0, rising=True)
-        equilibrium = eq if eq is not None else 90.0
+        equilibrium = _crossing(gz, 0, rising=True)
     else:
         equilibrium = 0.0
+    if equilibrium is None:  # GZ never positive: nothing vanishes either
+        return CurveFacts(float(gmax), float(angle), None, None)
     start = max(k, int(round(equilibrium / STEP_DEG)))
     vanish = _crossing(gz, start, rising=False) if gmax > 0 else None
     return CurveFacts(float(gmax), float(angle), None if vanish is None else float(vanish), float(equilibrium))

@@ -204,7 +204,9 @@ class Result:
     draft_fwd_m: float
     draft_mean_m: float
     """Draft at midships (m)."""
-    list_deg: float
+    list_deg: float | None
+    """Heel of equilibrium (degrees, + starboard); None when GZ never becomes positive on the side
+    she heels to: no position of equilibrium up to the curve's last angle (a danger warning says so)."""
 
     gz_heel_deg: tuple[float, ...]
     """Heel angles of the GZ curve (degrees, 0–90, heeling to starboard)."""

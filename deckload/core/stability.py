@@ -124,8 +124,9 @@ class Curve:
     """'port' or 'starboard': the side G lies to (starboard when on the centreline), where the criteria are checked."""
     facts: gzmod.CurveFacts
     """Maximum, equilibrium and vanishing angle of the low-side curve."""
-    list_deg: float
-    """Heel of equilibrium, + starboard."""
+    list_deg: float | None
+    """Heel of equilibrium, + starboard; None when GZ never becomes positive on the checked side
+    (no position of equilibrium up to the curve's last angle)."""
     notes: tuple[Warning, ...]
     """A caution naming tanks whose transfer is taken as i·sinφ for want of geometry."""
 
@@ -331,7 +332,8 @@ def stage_curve(vessel: Vessel, weights: Weights, fs: FreeSurface, floating: Flo
     gz_port = base_port + w.tcg_m * cos
     side = "port" if w.tcg_m < 0 else "starboard"
     f = gzmod.facts(gz_port if side == "port" else gz_stbd)
-    heel = f.equilibrium_deg if side == "starboard" else -f.equilibrium_deg
+    eq = f.equilibrium_deg
+    heel = None if eq is None else eq if side == "starboard" else -eq
     return Curve(correction, fine_deg, gz_stbd, gz_port, side, f, heel, tuple(notes))
 
 
@@ -426,11 +428,14 @@ def stage_warnings(vessel: Vessel, condition: Condition, weights: Weights, fs: F
     """
     notes = [*weights.notes, *floating.notes, *curve.notes, *assessment.notes]
     if floating.gm_fluid_m <= 0.0:
-        notes.append(Warning("negative-gm",
-                             f"GM fluid {floating.gm_fluid_m:.3f} m is not positive: she lolls, about "
-                             f"{abs(curve.list_deg):.1f}° to {curve.side}", "danger"))
-    if curve.facts.equilibrium_deg >= 90.0:
-        notes.append(Warning("no-equilibrium", "GZ never becomes positive: no position of equilibrium", "danger"))
+        # (with no position of equilibrium there is no angle of loll: the next danger says so)
+        notes.append(Warning("negative-gm", f"GM fluid {floating.gm_fluid_m:.3f} m is not positive"
+                             + (f": she lolls, about {abs(curve.list_deg):.1f}° to {curve.side}"
+                                if curve.list_deg is not None else ""), "danger"))
+    if curve.list_deg is None:
+        # No number stands for the list here: the heel lies beyond the last angle the tables know.
+        notes.append(Warning("no-equilibrium", f"GZ never becomes positive heeling to {curve.side} up to "
+                             f"{curve.heel_deg[-1]:g}°: no position of equilibrium", "danger"))
     if fs.rule == "actual":
         notes.append(Warning("fs-rule-actual",
                              "free surface at actual levels (IS 2008 B 3.1.6): the B 3.1.3–3.1.4 allowance "
@@ -592,7 +597,7 @@ def _warnings(vessel, condition, tanks, criteria, items, heel, t_mid, allowed_dr
             out.append(Warning("slack-worst-band",
                                f"{t.id} ({t.name}) at {t.fill_pct:.0f} % is in its worst free-surface band "
                                f"{lo:.0f}–{hi:.0f} %", "caution"))
-    if abs(heel) > LIST_WARNING_DEG:
+    if heel is not None and abs(heel) > LIST_WARNING_DEG:  # (None: the no-equilibrium danger says more)
         out.append(Warning("list", f"list {abs(heel):.1f}° to {'starboard' if heel > 0 else 'port'} exceeds "
                                    f"{LIST_WARNING_DEG:.0f}°", "caution"))
     if allowed_draft is not None:

@@ -76,8 +76,8 @@ class Afloat:
     measures: Measures
     max_gz_m: float
     vanishing_deg: float | None
-    equilibrium_deg: float
-    """Heel of equilibrium on the checked side (≥ 0)."""
+    equilibrium_deg: float | None
+    """Heel of equilibrium on the checked side (≥ 0); None when GZ never becomes positive on it."""
     deck_windage: tuple[tuple[float, float], ...] = ()
     """(lateral area m², height of its centre above the keel m) of each deck item that states it."""
     deck_items_without_windage: tuple[str, ...] = ()
@@ -253,9 +253,10 @@ def passenger_criteria(vessel: Vessel, a: Afloat) -> tuple[list[CriterionResult]
     ):
         heel = _first_heel(a.heel_deg, a.gz_lee_m, lever)
         note = f"lever {lever:.4f} m ({extra})"
-        if heel is None:
-            out.append(_crit(cid, desc, 90.0, PASSENGER_HEEL_LIMIT_DEG, "deg", "<=", src, PASSENGER_SET,
-                             "GZ never reaches the heeling lever; " + note))
+        if heel is None:  # beyond the curve's last angle, which stands for it (as θ0 of A 2.3 does)
+            end = float(a.heel_deg[-1])
+            out.append(_crit(cid, desc, end, PASSENGER_HEEL_LIMIT_DEG, "deg", "<=", src, PASSENGER_SET,
+                             f"GZ never reaches the heeling lever up to {end:g}°; " + note))
         else:
             out.append(_crit(cid, desc, heel, PASSENGER_HEEL_LIMIT_DEG, "deg", "<=", src, PASSENGER_SET, note))
     return out, notes
@@ -271,7 +272,7 @@ def extra_criteria(vessel: Vessel, a: Afloat, weather: list[CriterionResult],
     theta0 = next((c for c in weather if c.id == "IS2008-A2.3-theta0"), None)
     for n, ec in enumerate(vessel.criteria.extra):
         value: float | None = None
-        why = ""
+        why = note = ""
         if ec.kind == "min_gm":
             value = a.gm_fluid_m
         elif ec.kind == "min_area":
@@ -291,7 +292,7 @@ def extra_criteria(vessel: Vessel, a: Afloat, weather: list[CriterionResult],
             if at_end and value < ec.limit:
                 value, why = None, "the maximum lies at or " + short
         elif ec.kind == "min_range":
-            if a.max_gz_m <= 0.0:
+            if a.max_gz_m <= 0.0 or a.equilibrium_deg is None:
                 value = 0.0
             elif a.vanishing_deg is not None:
                 value = a.vanishing_deg - a.equilibrium_deg
@@ -301,13 +302,20 @@ def extra_criteria(vessel: Vessel, a: Afloat, weather: list[CriterionResult],
                     value, why = None, "GZ is still positive where the curve ends; the range runs " + short
         elif ec.kind == "max_static_heel":
             value = a.equilibrium_deg
+            if value is None:
+                # No equilibrium up to the curve's end: the heel is beyond it.  That fails a limit
+                # below the end; a limit beyond the end cannot be judged.
+                if ec.limit < end:
+                    value, note = end, f"GZ never becomes positive up to {end:g}°: she heels beyond it"
+                else:
+                    why = f"GZ never becomes positive up to {end:g}°, the curve's end"
         elif ec.kind == "max_wind_heel":
             if theta0 is not None:
                 value = theta0.value
             else:
                 why = "needs the weather criterion's steady-wind heel: " + (
                     "the profile has no windage data" if windage_missing else "windage not available at this draft")
-        out.append(extra_criterion_result(n, ec, value, why))
+        out.append(extra_criterion_result(n, ec, value, why, note))
     return out
 
 

@@ -74,8 +74,10 @@ def _f(x: float | None, digits: int = 3) -> str:
     return f"{x:.{digits}f}"
 
 
-def _side(deg: float) -> str:
-    """'0.2° port': angles to 0.1°; below that, upright."""
+def _side(deg: float | None) -> str:
+    """'0.2° port': angles to 0.1°; below that, upright; None: no position of equilibrium."""
+    if deg is None:
+        return vf.NO_EQUILIBRIUM
     if abs(deg) < 0.05:
         return "upright"
     return f"{abs(deg):.1f}° {'stbd' if deg > 0 else 'port'}"
@@ -172,8 +174,9 @@ def _summary(result: Result, vessel: Vessel) -> Table:
         ("LCB / LCF from AP", f"{r.lcb_m:.3f} / {r.lcf_m:.3f} m"),
         ("TPC / MCTC", f"{r.tpc_t_cm:.2f} t/cm / {r.mctc_tm_cm:.2f} t·m/cm"),
         ("Max GZ", f"{r.max_gz_m:.3f} m at {r.max_gz_angle_deg:.1f}°"),
-        ("Vanishing angle", (f"beyond {r.gz_end_deg:g}°" + (" (the KN tables end there)" if r.gz_end_deg < 90 else ""))
-         if r.vanishing_angle_deg is None else f"{r.vanishing_angle_deg:.1f}°"),
+        ("Vanishing angle", vf.vanishing_words(r) + (" (the KN tables end there)" if r.vanishing_angle_deg is None
+                                                     and r.gz_end_deg < 90 and r.max_gz_m > 0 and r.list_deg is not None
+                                                     else "")),
         ("Downflooding θf", "not given" if r.downflooding_angle_deg is None else f"{r.downflooding_angle_deg:.1f}°"),
         ("Deck edge immersion", vf.fmt_optional(r.deck_edge_angle_deg, ".1f", "°")),
         ("Freeboard at midships", vf.fmt_optional(r.freeboard_m, ".3f", " m")),

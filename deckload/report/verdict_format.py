@@ -190,6 +190,21 @@ STATED_DENSITY_MARK = "◆"
 bunker delivery note, not the tank's default from the profile."""
 
 
+NO_EQUILIBRIUM = "none: GZ never positive"
+"""The list and the vanishing angle where GZ never becomes positive on the side she heels to: no
+position of equilibrium up to the curve's last angle (a danger warning says so)."""
+
+
+def vanishing_words(r: Result) -> str:
+    """The vanishing angle in words: the angle; ``beyond N°`` when GZ is still positive where the
+    curve ends; :data:`NO_EQUILIBRIUM` when it is never positive (no angle vanishes)."""
+    if r.vanishing_angle_deg is not None:
+        return f"{r.vanishing_angle_deg:.1f}°"
+    if r.max_gz_m <= 0.0 or r.list_deg is None:
+        return NO_EQUILIBRIUM
+    return f"beyond {r.gz_end_deg:g}°"
+
+
 def fmt_optional(value: float | None, fmt: str, unit: str = "", none: str = "n/a") -> str:
     """A number with its unit, or 'n/a' when the result has none (or it is not finite)."""
     if value is None or not math.isfinite(value):

@@ -344,12 +344,16 @@ def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, st
         title.append(f"  FS {rule} · GZ {'transfer' if r.gz_correction == 'transfer' else 'const'}", P["dim"])
     trim_word = "A" if r.trim_m > 0 else ("F" if r.trim_m < 0 else "")
     # below the last printed decimal (0.1°) she is upright: no side
-    list_word = "S" if r.list_deg >= 0.05 else ("P" if r.list_deg <= -0.05 else "")
+    if r.list_deg is None:  # no position of equilibrium: no number (the danger warning says why)
+        list_cell = ("List", "none", "GZ<0")
+    else:
+        list_word = "S" if r.list_deg >= 0.05 else ("P" if r.list_deg <= -0.05 else "")
+        list_cell = ("List", f"{abs(r.list_deg):.1f}", f"° {list_word}")
     rows = [
         (("Δ", f"{r.displacement_t:.1f}", "t"), ("DWT", f"{r.deadweight_t:.1f}", "t")),
         (("T aft", f"{r.draft_aft_m:.3f}", "m"), ("T fwd", f"{r.draft_fwd_m:.3f}", "m")),
         (("T mid", f"{r.draft_mean_m:.3f}", "m"), ("Trim", f"{abs(r.trim_m):.3f}", f"m {trim_word}")),
-        (("List", f"{abs(r.list_deg):.1f}", f"° {list_word}"), ("∠deck", opt(r.deck_edge_angle_deg, ".1f"), "°")),
+        (list_cell, ("∠deck", opt(r.deck_edge_angle_deg, ".1f"), "°")),
         (("Fbd", opt(r.freeboard_m, ".3f"), "m"), ("Margin", opt(r.load_line_margin_m, "+.3f"), "m")),
         (("Mark", opt(r.load_line_allowed_draft_m, ".3f"), f"m {mark_letters(r.load_line_mark)}".strip()),
          ("DWA", opt(r.dock_water_allowance_m, "+.3f"), "m")),
@@ -428,6 +432,8 @@ def gz_caption(result: Result | None, width: int | None = None) -> Text:
     zero = []
     if result.vanishing_angle_deg is not None:
         zero.append(f"  zero at {result.vanishing_angle_deg:.1f}°")
+    elif result.max_gz_m <= 0.0 or result.list_deg is None:
+        zero.append("  never positive")
     elif result.gz_end_deg < 90.0:
         zero.append(f"  zero beyond {result.gz_end_deg:g}° (KN end)")
     if result.vanishing_angle_deg is not None and result.gz_end_deg < 90.0:
