@@ -159,6 +159,39 @@ def test_verify_names_the_tampered_line_and_recovers_a_torn_one(tmp_path, cond_f
     assert "torn line 4" in out and "OK — 3 entries" in out
 
 
+def test_an_edited_line_is_marked_in_show_and_in_every_export(tmp_path, cond_file, capsys):
+    """A line edited by hand (the officer's initials changed) still reads: the views and the paper
+    copy must say the chain is broken before they show it, and exit 1 as 'log verify' does."""
+    logs = tmp_path / "logs"
+    for by in ("AB", "CD"):
+        assert record(tmp_path, cond_file, "--by", by) == 0
+    path = logs / "demo-islander.log.jsonl"
+    assert main(["log", "--dir", str(logs), "show"]) == 0 and "BROKEN" not in capsys.readouterr().out
+    path.write_bytes(path.read_bytes().replace(b'"by":"AB"', b'"by":"XY"', 1))
+    assert main(["log", "--dir", str(logs), "show"]) == 1
+    out = capsys.readouterr().out
+    assert "LOG CHAIN BROKEN" in out and "line 1" in out and "XY" in out
+    assert out.index("LOG CHAIN BROKEN") < out.index("XY")
+    page = tmp_path / "log.html"
+    assert main(["log", "--dir", str(logs), "export", "--html", "-o", str(page)]) == 1
+    html = page.read_text(encoding="utf-8")
+    assert html.index('class="broken"') < html.index("<table>") and "do not sign this copy" in html
+    assert "LOG CHAIN BROKEN" in capsys.readouterr().err
+    table = tmp_path / "log.csv"
+    assert main(["log", "--dir", str(logs), "export", "--csv", "-o", str(table)]) == 1
+    assert "LOG CHAIN BROKEN" in capsys.readouterr().err and "XY" in table.read_text(encoding="utf-8")
+
+
+def test_an_empty_anchor_is_refused_not_taken_as_none(tmp_path, cond_file, capsys):
+    """'--against ""' (a script whose anchor variable is empty) must not verify as OK."""
+    logs = tmp_path / "logs"
+    assert record(tmp_path, cond_file, "--by", "AB") == 0
+    capsys.readouterr()
+    assert main(["log", "--dir", str(logs), "verify", "--against", ""]) == 1
+    assert "is not a SHA-256" in capsys.readouterr().err
+    assert main(["log", "--dir", str(tmp_path / "none"), "verify", "--against", ""]) == 1
+
+
 def test_report_command_writes_the_report(tmp_path, cond_file, demo, capsys):
     r = evaluate(demo, load_condition(cond_file, demo))
     txt, html = tmp_path / "r.txt", tmp_path / "r.html"

@@ -173,3 +173,19 @@ async def test_verify_key_and_a_condition_that_no_longer_fits_the_profile(filled
         assert isinstance(app.screen, LogScreen) and app.answers == []
         msgs = [str(n.message) for n in app._notifications]
         assert any("Entry #4 cannot be restored" in m and "log line 4" in m and "DB1P" in m for m in msgs), msgs
+
+
+async def test_an_edited_line_is_marked_on_the_screen_as_it_opens(filled):
+    """A line changed by hand still reads; the status line says the chain is broken at once,
+    before anyone presses v."""
+    book, vessel, _ = filled
+    app = Host(book, vessel)
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        assert "BROKEN" not in str(app.screen.query_one("#log-status", Static).render())
+    book.path.write_bytes(book.path.read_bytes().replace(b'"by":"JM"', b'"by":"XY"', 1))
+    app = Host(book, vessel)
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        status = str(app.screen.query_one("#log-status", Static).render())
+        assert "CHAIN BROKEN (1 problem(s))" in status and "press v" in status

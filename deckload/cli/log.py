@@ -184,14 +184,28 @@ def entry_row(e: LogEntry) -> dict[str, str]:
     }
 
 
+def broken_words(path: Path, problems: list[str]) -> str:
+    """What a view or an export of a log says first when its chain does not verify: a line was
+    edited, removed or damaged since it was written, so the entries shown may not be the ones
+    recorded (``deckload log verify`` names each problem)."""
+    return (f"LOG CHAIN BROKEN: {path} fails verification ({len(problems)} problem(s), the first: "
+            f"{problems[0]}). The entries below may not be what was recorded: run 'deckload log verify'; "
+            "do not sign this copy as the voyage record.")
+
+
 def _show(args) -> int:
     books = _books(args)
     if not books:
         print(f"no logs in {_log_dir(args)}")
         return 0
+    broken = 0
     for book in books:
         try:
             entries = book.entries()
+            rep = book.verify()
+            if not rep.ok:
+                broken += 1
+                print(f"  ! {broken_words(book.path, rep.problems)}")
             print(f"{book.vessel_name} — {book.path} ({len(entries)} entries)")
             print(f"{'#':>4}  {'UTC':<19}  {'ship':<5}  {'by':<4}  {'kind':<9}  {'GM fl m':>7}  {'criteria':<14}  change")
             for e in entries:
@@ -211,7 +225,7 @@ def _show(args) -> int:
         finally:
             book.close()
     print(CAUTION)
-    return 0
+    return 1 if broken else 0  # (exit 1: a log that fails verification, as 'log verify')
 
 
 def export_csv(entries: list[LogEntry]) -> str:
@@ -223,8 +237,9 @@ def export_csv(entries: list[LogEntry]) -> str:
     return buf.getvalue()
 
 
-def export_html(books: list[tuple[str, list[LogEntry]]]) -> str:
-    """The log(s) as one printable HTML page (A4 landscape)."""
+def export_html(books: list[tuple[str, list[LogEntry]]], broken: dict[str, str] | None = None) -> str:
+    """The log(s) as one printable HTML page (A4 landscape); ``broken`` maps a vessel to the words
+    (:func:`broken_words`) printed above her table when her log fails verification."""
     cols = ("seq", "utc", "ship_time", "by", "kind", "change", "remark", "displacement_t", "draft_fwd_m",
             "draft_aft_m", "trim_m", "list_deg", "gm_fluid_m", "fsc_m", "freeboard_m", "criteria_pass",
             "criteria_sets", "not_assessed", "smallest_margin_criterion", "smallest_margin")
@@ -242,12 +257,15 @@ def export_html(books: list[tuple[str, list[LogEntry]]]) -> str:
         "th { background: #eee; } td.n { text-align: right; font-variant-numeric: tabular-nums; }",
         "tr { break-inside: avoid; } thead { display: table-header-group; }",
         ".fail { font-weight: bold; color: #b00; }",
+        ".broken { font-weight: bold; font-size: 11pt; color: #b00; border: 2pt solid #b00; padding: 4pt; }",
         "</style></head><body>",
     ]
     numeric = {"seq", "displacement_t", "draft_fwd_m", "draft_aft_m", "trim_m", "list_deg", "gm_fluid_m", "fsc_m",
                "freeboard_m", "smallest_margin"}
     for vessel, entries in books:
         out.append(f"<h1>Voyage loading log — {htmllib.escape(vessel)}</h1>")
+        if broken and vessel in broken:
+            out.append(f'<p class="broken">{htmllib.escape(broken[vessel])}</p>')
         head = "".join(f"<th>{htmllib.escape(h)}</th>" for h in heads)
         out.append(f"<table><thead><tr>{head}</tr></thead><tbody>")
         for e in entries:
@@ -270,22 +288,26 @@ def _export(args) -> int:
     try:
         data = [(b.vessel_name, b.entries()) for b in books]
         skipped = [s for b in books for s in b.skipped]
+        reports = [(b, b.verify()) for b in books]
     finally:
         for b in books:
             b.close()
+    broken = {b.vessel_name: broken_words(b.path, rep.problems) for b, rep in reports if not rep.ok}
     for s in skipped:
         print(f"deckload: warning: unreadable log line left out: {s}", file=sys.stderr)
+    for words in broken.values():  # (the CSV has no place for it: it goes to the terminal)
+        print(f"deckload: {words}", file=sys.stderr)
     if args.csv:
         text = export_csv([e for _, es in data for e in es])
     else:
-        text = export_html(data)
+        text = export_html(data, broken)
     if args.output is None:
         sys.stdout.write(text)
-        return 0
+        return 1 if broken else 0
     write_atomic(Path(args.output), text.encode("utf-8"))
     n = sum(len(es) for _, es in data)
     print(f"{n} entries written to {args.output}", file=sys.stderr)
-    return 0
+    return 1 if broken else 0
 
 
 def _verify(args) -> int:
@@ -302,13 +324,13 @@ def _verify(args) -> int:
     against = getattr(args, "against", None)
     if not books:
         print(f"no logs in {directory}")
-        return 1 if against else 0
+        return 1 if against is not None else 0
     bad = 0
     found = None
     for book in books:
         try:
             rep = book.verify()
-            if against:
+            if against is not None:  # (an empty anchor is malformed, not absent: find refuses it)
                 try:
                     at = book.find(against)
                 except ValueError as e:
@@ -327,7 +349,7 @@ def _verify(args) -> int:
                 print(f"  {p}")
         for n in rep.notes:
             print(f"  note: {n}")
-    if against:
+    if against is not None:
         if found is None:
             print(f"anchor {against}: NOT FOUND in any log in {directory} — the log was rewritten or replaced "
                   "since that copy was printed, or the copy belongs to another log")

@@ -266,9 +266,14 @@ class LogScreen(Screen["RestoreRequest | None"]):
         self.query_one("#log-title", Static).update(title)
         kind = "all kinds" if self.kind == ALL_KINDS else KIND_LABELS.get(self.kind, self.kind)
         self.query_one("#log-kind", Static).update(Text(f"kind: {kind}  "))
-        status = f"{len(self.shown)} of {len(entries)} shown"
+        status = Text(f"{len(self.shown)} of {len(entries)} shown")
         if self.logbook.skipped:
-            status += f"; {len(self.logbook.skipped)} unreadable line(s) left out — press v to verify"
+            status.append(f"; {len(self.logbook.skipped)} unreadable line(s) left out — press v to verify")
+        # An edited line still reads: only the chain shows it was changed since it was written.
+        rep = self.logbook.verify()
+        if not rep.ok:
+            status.append(f"; CHAIN BROKEN ({len(rep.problems)} problem(s)): the entries may not be what was "
+                          "recorded — press v", style="bold red")
         self.query_one("#log-status", Static).update(status)
         self._show_detail()
 
