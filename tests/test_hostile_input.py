@@ -274,3 +274,22 @@ def test_a_hydrostatic_row_of_zero_displacement_does_not_break_the_audit():
     text = BARGE.replace("draft_m = [0.5, 1.0,", "draft_m = [0.0, 1.0,", 1).replace(
         "displacement_t = [205.0, 410.0,", "displacement_t = [0.0, 410.0,", 1)
     audit(parse_profile(text, "p.toml"))  # findings, not an exception
+
+
+@pytest.mark.parametrize("parse, text, expected", [
+    ("profile", DEPARTURE, "deckload-profile-1"),
+    ("condition", PROFILE_TEXT, "deckload-condition-1"),
+    ("geometry", PROFILE_TEXT, "deckload-geometry-1"),
+], ids=["condition-as-profile", "profile-as-condition", "profile-as-geometry"])
+def test_a_file_of_another_kind_is_refused_on_its_format_alone(vessel, parse, text, expected):
+    """A condition given as the profile, or the profile as a condition or as the hull geometry: one
+    problem, the format, not one "unknown key" per section of the other kind of file (the profile
+    read as a geometry file gave 130 kB of them)."""
+    from deckload.io.geometry_files import GeometryError, parse_geometry
+
+    read = {"profile": lambda: parse_profile(text, "x.toml"), "condition": lambda: parse_condition(text, "x.toml", vessel),
+            "geometry": lambda: parse_geometry(text, "x.toml")}[parse]
+    with pytest.raises((ProfileError, GeometryError)) as e:
+        read()
+    (problem,) = e.value.problems
+    assert problem.key == "format" and expected in problem.rule and len(str(e.value)) < 300

@@ -99,7 +99,7 @@ def parse_geometry(text: str, filename: str = "<geometry>") -> Geometry:
     """Validate the text of a geometry file; raises :class:`GeometryError` listing every problem."""
     ctx = FileCheck(filename, text, WORDING, GeometryError)
     root = ctx.root()
-    root.text("format", choices=(GEOMETRY_FORMAT,))
+    root.file_format(GEOMETRY_FORMAT)
     vessel = _read_vessel(root)
     hull = _read_hull(root)
     tables = _read_tables(root, hull)

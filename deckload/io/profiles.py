@@ -174,7 +174,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     """
     ctx = FileCheck(filename, text)
     root = ctx.root()
-    root.text("format", choices=(PROFILE_FORMAT,))
+    root.file_format(PROFILE_FORMAT)
     rd = reading if reading is not None else Reading()
 
     particulars, frame = _read_particulars(root)
@@ -1495,7 +1495,7 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
     """Validate the text of a loading condition against its vessel and build the Condition."""
     ctx = FileCheck(filename, text)
     root = ctx.root()
-    root.text("format", choices=(CONDITION_FORMAT,))
+    root.file_format(CONDITION_FORMAT)
 
     head: dict[str, Any] = {}
     c = root.table("condition")

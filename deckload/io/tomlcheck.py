@@ -526,6 +526,15 @@ class Table:
             return None
         return v
 
+    def file_format(self, expected: str) -> None:
+        """The ``format`` key of a file's root: a file that names another format (a profile given
+        where a geometry file is asked for, a condition for a profile) is refused on that alone.
+        Read as the wrong kind, its every section would be one more "unknown key": a message of
+        thousands of lines burying the one that matters."""
+        self.text("format", choices=(expected,))
+        if isinstance(self.data.get("format"), str) and self.data["format"] != expected:
+            self.ctx.fail_if_any()
+
     # -- arrays
     def array(self, k: str, *rules: Rule, required: bool = True, min_len: int = 2,
               length: int | None = None) -> np.ndarray | None:
