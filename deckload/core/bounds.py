@@ -282,7 +282,10 @@ def item_mass_range(v: Vessel) -> Range:
 
 
 def lightship_mass_range(v: Vessel) -> Range:
-    return Range(0.0, max_displacement_t(v), "t", "at most the greatest displacement in the hydrostatic table")
+    """The lightship: :data:`MIN_LIGHTSHIP_FRACTION` … 1 × the greatest tabulated displacement."""
+    hi = max_displacement_t(v)
+    return Range(MIN_LIGHTSHIP_FRACTION * hi, hi, "t",
+                 "from 2 % of the greatest displacement in the hydrostatic table to all of it")
 
 
 # --------------------------------------------------------------------------- the evaluation's last step

@@ -705,7 +705,7 @@ def _read_windage(root: Table, particulars: m.Particulars | None) -> m.Windage |
         # bounds from the vessel's own size: superstructures rarely stand more than a few depths high
         area_rules += (at_most(1.5 * lbp * 10.0 * depth, "m² (1.5 × LBP × 10 × depth): not a lateral area"),)
         height_rules += (at_most(10.0 * depth, "m (10 × depth)"),)
-        lwl_rules += (at_most(1.5 * lbp, "m (1.5 × LBP)"),)
+        lwl_rules += (waterline_length_range(particulars).rule,)
     cols = {
         "draft_m": t.increasing("draft_m", t.array("draft_m", positive)),
         "lateral_area_m2": t.array("lateral_area_m2", *area_rules),
