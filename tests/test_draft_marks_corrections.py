@@ -179,11 +179,12 @@ def test_marks_of_a_trimmed_listed_condition():
 
 def test_second_trim_correction_near_the_end_of_the_table():
     """Near the deep end of the table MCTC is taken less than half a metre either side (as far as the
-    table goes): mean draft 3.2 m, trim 1.5 m by the stern, u = (3.2 + 4·1.5/40)/(1 + 2·1.5/40) =
-    3.1162791 m (module docstring, step 4 solved), so the step is 3.5 − u = 0.3837209 m.  MCTC is
+    table goes): mean draft 3.2 m, trim 0.6 m by the stern (the AP at 3.5 m, the table's end: deeper
+    is refused as the forward calculation refuses it), u = (3.2 + 4·0.6/40)/(1 + 2·0.6/40) =
+    3.1650485 m (module docstring, step 4 solved), so the step is 3.5 − u = 0.3349515 m.  MCTC is
     linear, so the central difference is still 10 t·m/cm per m and Nemoto's correction is
-    50·1.5²·10/40 = 28.125 t; Δ = 410·u + 28.125 t."""
-    trim = 1.5
+    50·0.6²·10/40 = 4.5 t; Δ = 410·u + 4.5 t."""
+    trim = 0.6
     slope = trim / L
     mean = 3.2
 
@@ -194,7 +195,7 @@ def test_second_trim_correction_near_the_end_of_the_table():
                      at(MARKS.forward), at(MARKS.forward))
     o = condition_from_readings(vessel(), r, RHO_SW)
     u = (mean + 4 * trim / L) / (1 + 2 * trim / L)
-    assert 3.5 - u == pytest.approx(0.3837209, abs=1e-7)
-    assert o.trim_m == pytest.approx(1.5, abs=1e-9)
-    assert o.second_trim_correction_t == pytest.approx(28.125, abs=1e-6)
-    assert o.displacement_t == pytest.approx(410.0 * u + 28.125, abs=1e-6)
+    assert 3.5 - u == pytest.approx(0.3349515, abs=1e-7)
+    assert o.trim_m == pytest.approx(0.6, abs=1e-9)
+    assert o.second_trim_correction_t == pytest.approx(4.5, abs=1e-6)
+    assert o.displacement_t == pytest.approx(410.0 * u + 4.5, abs=1e-6)

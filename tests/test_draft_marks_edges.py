@@ -90,17 +90,18 @@ def test_a_quarter_mean_draft_below_the_table_is_refused_by_name():
 
 def test_a_draft_at_the_lcf_below_the_table_is_refused_by_name():
     """Quarter-mean inside the table but the draft at the LCF outside it.  Plane 0.55 m at L/2, trimmed
-    1.2 m by the head (trim −1.2 m): quarter-mean 0.55 m, LCF there 20 + 2·(0.55 − 2) = 17.1 m, and the
+    1.0 m by the head (trim −1.0 m): quarter-mean 0.55 m, LCF there 20 + 2·(0.55 − 2) = 17.1 m, and the
     first step of the fixed point (module docstring, step 4) gives the draft at the LCF
-    0.55 + (−1.2)·(20 − 17.1)/40 = 0.463 m, below the first row: refused under that name.  (The aft
-    marks read 0.55 − 1.2·18/40 + 0.015 = 0.025 m, above the keel, so no reading is refused first.)"""
+    0.55 + (−1.0)·(20 − 17.1)/40 = 0.4775 m, below the first row: refused under that name.  (The aft
+    marks read 0.55 − 1.0·18/40 + 0.015 = 0.115 m, above the keel, and the AP 0.05 m is afloat, so
+    nothing is refused first; at 1.2 m by the head the AP would be out of the water, refused as such.)"""
     marks = vessel().draft_marks
-    r = plane(marks, 0.55, -1.2)
+    r = plane(marks, 0.55, -1.0)
     assert min(r.as_tuple()) >= KEEL
     with pytest.raises(OutOfRangeError) as e:
         condition_from_readings(vessel(), r, RHO_SW)
-    assert 0.55 - 1.2 * (20 - 17.1) / 40 == pytest.approx(0.463, abs=1e-12)
-    assert str(e.value) == ("draft at the LCF (hydrostatic table) 0.463 m is outside the table range 0.5–3.5 m; "
+    assert 0.55 - 1.0 * (20 - 17.1) / 40 == pytest.approx(0.4775, abs=1e-12)
+    assert str(e.value) == ("draft at the LCF (hydrostatic table) 0.4775 m is outside the table range 0.5–3.5 m; "
                             "deckload does not extrapolate")
 
 

@@ -110,7 +110,7 @@ def test_mass_bounds_are_the_largest_tabulated_displacement_less_the_lightship()
     _edges(item, 0.0, top - v.lightship.mass_t, "t")
     assert item.why == "at most the greatest displacement in the hydrostatic table less the lightship"
     light = bounds.lightship_mass_range(v)
-    _edges(light, 0.0, top, "t")
+    _edges(light, 0.02 * top, top, "t")  # from 2 % (MIN_LIGHTSHIP_FRACTION, common practice)
     heavy = dataclasses.replace(v, lightship=dataclasses.replace(v.lightship, mass_t=top + 5.0))
     _edges(bounds.item_mass_range(heavy), 0.0, 0.0, "t")  # never a negative upper bound
 

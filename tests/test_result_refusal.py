@@ -83,8 +83,8 @@ def test_end_drafts_outside_the_tables_are_refused():
 def test_lightship_mass_bound_names_its_reason():
     """The barge's greatest tabulated displacement: 1.025·40·10·3.5 = 1435 t (checks.md §1.1 form)."""
     rule = lightship_mass_range(VESSEL).rule(1500.0)
-    assert rule == ("above the physical limit: must be between 0 and 1435 t (at most the greatest displacement "
-                    "in the hydrostatic table)")
+    assert rule == ("above the physical limit: must be between 28.7 and 1435 t (from 2 % of the greatest "
+                    "displacement in the hydrostatic table to all of it)")
 
 
 def test_a_bad_number_beside_numpy_values_is_still_found():

@@ -22,6 +22,14 @@ and the hydrostatic table, with the reasoning beside it:
   single item past it is an input mistake to name at its key).
 * **Particulars** themselves: LBP 1–500 m, B and D 0.2–100 m and neither above LBP (every
   ship afloat is within these; common practice).
+* **Holds.**  A stowage factor between the specific volume of solid lead and that of air
+  (:data:`STOWAGE_FACTOR_RANGE_M3_T`); a cargo centre of gravity between the hold's floor
+  and its top as its fill table gives them (:func:`hold_vcg_range`).
+* **Sizes with a floor.**  A deck area, a deck item's footprint, the lightship's mass and the
+  waterline length have a least value too (:func:`deck_area_range`, :func:`footprint_range`,
+  :func:`lightship_mass_range`, :func:`waterline_length_range`): a vanishing one would only
+  divide a load into an absurd pressure or a lever; a tank's calibration cannot imply a
+  surface larger than the hull's plan area (:func:`max_plan_area_m2`).
 
 The evaluation's last step (:func:`checked_result`) refuses any non-finite number and any
 result whose end drafts leave the range the upright, even-keel tables describe (keel out of
@@ -39,7 +47,7 @@ from typing import Callable
 import numpy as np
 
 from deckload.core.frozen import frozen, values_getter
-from deckload.core.model import Particulars, Vessel
+from deckload.core.model import Hold, Particulars, Vessel
 from deckload.core.tables import OutOfRangeError
 
 AFT_OVERHANG = 0.2
@@ -62,6 +70,30 @@ and water 1.000–1.025 to the liquid mud and completion brines of an offshore s
 tanks are commonly specified for a specific gravity of 2.5 (common practice, from memory; heavy
 zinc/calcium bromide brines are about 2.3).  A density outside it is a typing error (a shifted
 point, kg/m³ for t/m³), not a liquid."""
+
+STOWAGE_FACTOR_RANGE_M3_T = (1.0 / 11.34, 1.0 / 0.0012)
+"""A hold's stowage factor (m³ per tonne of cargo as stowed, broken stowage included): from
+0.0882 m³/t, the specific volume of solid lead (11.34 t/m³; the densest cargo carried in
+quantity, as ingots: from memory), to 833 m³/t, that of air at sea level (1.2 kg/m³; from
+memory).  No cargo stows denser than the solid material it is made of (stowed, it takes that
+room and more; solid steel is 0.127 m³/t, the densest ores stow at 0.3–0.4 m³/t: common
+practice), and a cargo lighter than air would not rest on the hold's floor.  Below the floor a catch of fish
+typed as 0.01 m³/t (a density of 100 t/m³) would be put at the hold's floor, KG too low."""
+
+MIN_FOOTPRINT_M2 = 0.01
+"""The least footprint of a deck item, m²: a 10 cm × 10 cm foot (common practice; a container's
+four corner castings bear on about 0.1 m²).  A smaller one is a point, not a footprint: its
+pressure (mass ÷ footprint) would be meaningless."""
+MIN_DECK_AREA_M2 = 1.0
+"""The least deck area that takes cargo, m² (common practice: a square metre; a smaller spot is
+an item's footprint, not an area)."""
+MIN_WATERLINE_FRACTION = 0.5
+"""The waterline length at any tabulated draft is at least half the LBP (common practice: LBP is
+measured on the summer waterline, and rake and cut-up shorten a lighter waterline by far less)."""
+MIN_LIGHTSHIP_FRACTION = 0.02
+"""The lightship mass is at least 2 % of the greatest tabulated displacement (common practice,
+from memory: a large tanker's lightship, among the lightest relative to her size, is about 8 %
+of her displacement at the depth; a trawler's 40–60 %)."""
 
 LBP_RANGE_M = (1.0, 500.0)
 BEAM_DEPTH_RANGE_M = (0.2, 100.0)
@@ -153,6 +185,78 @@ def area_range(p: Particulars) -> Range:
     return Range(0.0, box_length_m(p) * p.breadth_m, "m²", "at most 1.2·LBP × breadth")
 
 
+def max_plan_area_m2(p: Particulars) -> float:
+    """The hull's greatest plan area, 1.2·LBP × B (the hull box): no waterplane, and so no tank's
+    liquid surface, is larger (derived)."""
+    return box_length_m(p) * p.breadth_m
+
+
+def deck_area_range(p: Particulars) -> Range:
+    """A deck area: at least :data:`MIN_DECK_AREA_M2`, at most the hull's plan area."""
+    return Range(MIN_DECK_AREA_M2, max_plan_area_m2(p), "m²",
+                 f"at least {_n(MIN_DECK_AREA_M2)} m² and at most 1.2·LBP × breadth")
+
+
+def footprint_range(p: Particulars, deck_area_m2: float | None = None) -> Range:
+    """A deck item's footprint: at least :data:`MIN_FOOTPRINT_M2`, at most the deck area it stands on
+    (or the hull's plan area when it names none)."""
+    if deck_area_m2 is None:
+        return Range(MIN_FOOTPRINT_M2, max_plan_area_m2(p), "m²",
+                     f"at least {_n(MIN_FOOTPRINT_M2)} m² and at most 1.2·LBP × breadth")
+    return Range(MIN_FOOTPRINT_M2, max(MIN_FOOTPRINT_M2, deck_area_m2), "m²",
+                 f"at least {_n(MIN_FOOTPRINT_M2)} m² and at most the deck area it stands on")
+
+
+def waterline_length_range(p: Particulars) -> Range:
+    """The waterline length (windage table): 0.5·LBP … 1.5·LBP (the upper bound the windage reader
+    has always used; the lower :data:`MIN_WATERLINE_FRACTION`)."""
+    return Range(MIN_WATERLINE_FRACTION * p.lbp_m, 1.5 * p.lbp_m, "m", "from 0.5 × LBP to 1.5 × LBP")
+
+
+# --------------------------------------------------------------------------- holds
+
+
+def stowage_range() -> Range:
+    """A hold's stowage factor (:data:`STOWAGE_FACTOR_RANGE_M3_T`)."""
+    return Range(*STOWAGE_FACTOR_RANGE_M3_T, "m³/t",
+                 "from solid lead, 11.34 t/m³, to air, 1.2 kg/m³: no cargo stows denser or lighter")
+
+
+def hold_floor_top_m(hold: Hold) -> tuple[float, float] | None:
+    """The height of the hold's floor and of its top (m above the keel), from its fill table;
+    None when it has none.
+
+    The table gives the centroid z̄(f) of cargo levelled to fill f (0 … 100 %, as the reader
+    requires).  The floor is z̄(0): a layer of no thickness lies on it.  The top is the cargo's
+    level when the hold is full: the moment M(f) = f·C·z̄(f) grows by the level's height times
+    each volume added, so level(f) = d(f·z̄)/df, and with z̄ linear between the last two rows
+    level(100) = z̄₁₀₀ + 100·(z̄₁₀₀ − z̄ₙ₋₁)/(100 − fₙ₋₁) (derived; on the demo trawler's table it
+    gives 3.892 m for her hold's 3.9 m top, on the demo islander's 4.500 m for her 4.5 m deck).
+    Any cargo in the hold, levelled or not, has its centre between these two.  These are not
+    the table's lowest and highest centroids: the highest, the full hold's, lies below the top,
+    and cargo stowed high in a part-filled hold (on shelves, a tween deck) is above it."""
+    if hold.fill_pct is None or hold.fill_vcg_m is None or len(hold.fill_pct) < 2:
+        return None
+    f = np.asarray(hold.fill_pct, dtype=float)
+    z = np.asarray(hold.fill_vcg_m, dtype=float)
+    floor = float(z.min())
+    level_full = float(z[-1] + f[-1] * (z[-1] - z[-2]) / (f[-1] - f[-2]))
+    return floor, max(level_full, float(z.max()))
+
+
+def hold_vcg_range(p: Particulars, hold: Hold) -> Range:
+    """Where a condition may put the centre of gravity of a hold's cargo: from the hold's floor to
+    its top (:func:`hold_floor_top_m`) when it has a fill table, else the keel to depth + 30 m
+    (:func:`z_range`: the profile gives no more of the hold's extent).  The profile gives no
+    longitudinal or transverse extent of a hold: an LCG or TCG override is held to the hull's
+    (:func:`x_range`, :func:`y_range`)."""
+    ft = hold_floor_top_m(hold)
+    if ft is None:
+        return z_range(p)
+    lo, hi = max(0.0, ft[0]), min(z_max_m(p), ft[1])
+    return Range(lo, max(lo, hi), "m", f"within hold {hold.id}: from its floor to its top, as its fill table gives them")
+
+
 def volume_range(p: Particulars) -> Range:
     """A compartment's volume: at most the box 1.2·LBP × B × (depth + 30 m)."""
     return Range(0.0, box_length_m(p) * p.breadth_m * z_max_m(p), "m³",
@@ -178,7 +282,10 @@ def item_mass_range(v: Vessel) -> Range:
 
 
 def lightship_mass_range(v: Vessel) -> Range:
-    return Range(0.0, max_displacement_t(v), "t", "at most the greatest displacement in the hydrostatic table")
+    """The lightship: :data:`MIN_LIGHTSHIP_FRACTION` … 1 × the greatest tabulated displacement."""
+    hi = max_displacement_t(v)
+    return Range(MIN_LIGHTSHIP_FRACTION * hi, hi, "t",
+                 "from 2 % of the greatest displacement in the hydrostatic table to all of it")
 
 
 # --------------------------------------------------------------------------- the evaluation's last step

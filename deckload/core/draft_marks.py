@@ -21,7 +21,10 @@ and procedures for draught surveys of coal cargoes, 1992 — from memory).
 3. Hog (+) or sag (−): (T_AP + T_FP)/2 − T_M.  The quarter-mean draft
    T_Q = (T_AP + 6·T_M + T_FP)/8 allows for it, weighting midships as the fuller
    waterplane there does (the 'mean of means of means' of draft surveys; on a box a
-   parabolic deflection would call for (T_AP + 4·T_M + T_FP)/6 instead).
+   parabolic deflection would call for (T_AP + 4·T_M + T_FP)/6 instead).  T_AP, T_M and
+   T_FP must each lie in 0 … the table's greatest draft, as the forward calculation's end
+   drafts must, and a hog or sag beyond LBP/100 is refused as a misread mark
+   (:data:`MAX_DEFLECTION_FRACTION`); beyond 5 cm it is noted.
 4. The draft at the LCF, T_Q + t·(LBP/2 − x_F)/LBP, read in the even-keel table gives the
    displacement with the first trim correction included (x_F from the table, iterated);
    the second (Nemoto) correction 50·t²·(MCTC(T+½) − MCTC(T−½))/LBP (t in m, MCTC in t·m/cm)
@@ -38,7 +41,7 @@ import math
 from deckload.core.frozen import frozen
 from deckload.core.hydrostatics import draft_at, upright
 from deckload.core.model import DraftMarks, Vessel
-from deckload.core.tables import interp
+from deckload.core.tables import OutOfRangeError, interp
 from deckload.core.trim import trim_moment
 
 DEFLECTION_NOTE_M = 0.05
@@ -46,8 +49,25 @@ DEFLECTION_NOTE_M = 0.05
 approximately (deckload's own threshold, the UR L5 5 cm draught tolerance)."""
 
 
+MAX_DEFLECTION_FRACTION = 0.01
+"""Hog or sag beyond LBP/100 is refused as a misreading, not a hull: a hull girder in service
+deflects by the order of LBP/1000 (common practice, from memory: a large ship's hog or sag is tens
+of centimetres), so a bound ten times that passes every real ship and still refuses a mark read
+a metre wrong (1.70 m of sag on a 38 m hull is LBP/22)."""
+
+
 class DraftMarksError(ValueError):
     """Readings that cannot be turned into a displacement (naming the reading and the rule)."""
+
+
+class DraftsBeyondTablesError(DraftMarksError, OutOfRangeError):
+    """The readings put the keel out of the water, or an end deeper than the table reaches, at a
+    perpendicular or midships: the same range the forward calculation keeps
+    (:func:`deckload.core.bounds.checked_result`)."""
+
+    def __init__(self, message: str, quantity: str, value: float, low: float, high: float):
+        OutOfRangeError.__init__(self, quantity, value, low, high, "m")
+        self.args = (message,)
 
 
 @frozen
@@ -132,8 +152,11 @@ def condition_from_readings(vessel: Vessel, readings: MarkReadings, water_densit
     """Displacement and LCG that the readings imply (module docstring, steps 1–5).
 
     Raises :class:`DraftMarksError` for readings that are not finite, below the keel or
-    above the depth, and :class:`~deckload.core.tables.OutOfRangeError` when the draft lies
-    outside the hydrostatic table.
+    above the depth, :class:`DraftsBeyondTablesError` (also an OutOfRangeError) when the moulded
+    draft at the AP, the FP or midships lies outside 0 … the table's greatest draft (the range
+    the forward calculation keeps), :class:`DraftMarksError` for a hog or sag beyond
+    :data:`MAX_DEFLECTION_FRACTION` × LBP (a misread mark), and
+    :class:`~deckload.core.tables.OutOfRangeError` when the draft lies outside the hydrostatic table.
     """
     dm = _marks(vessel)
     p = vessel.particulars
@@ -161,6 +184,21 @@ def condition_from_readings(vessel: Vessel, readings: MarkReadings, water_densit
     t_q = (t_ap + 6.0 * t_mid + t_fp) / 8.0
 
     h = vessel.hydrostatics
+    said = (f"the readings (port/starboard) aft {_m(readings.aft_port_m)}/{_m(readings.aft_stbd_m)}, "
+            f"midships {_m(readings.mid_port_m)}/{_m(readings.mid_stbd_m)}, "
+            f"forward {_m(readings.fwd_port_m)}/{_m(readings.fwd_stbd_m)} m")
+    top = float(h.draft_m[-1])
+    for where, d in (("at the AP", t_ap), ("midships", t_mid), ("at the FP", t_fp)):
+        if not 0.0 <= d <= top * (1 + 1e-9):
+            raise DraftsBeyondTablesError(
+                f"{said} give a moulded draft {where} of {d:.3f} m, outside 0–{top:.4g} m (keel to the "
+                "hydrostatic table's greatest draft): no hull in the water reads so; check the readings",
+                f"moulded draft {where}", d, 0.0, top)
+    most = MAX_DEFLECTION_FRACTION * lbp
+    if abs(deflection) > most:
+        raise DraftMarksError(
+            f"{said} give a {'hog' if deflection > 0 else 'sag'} of {abs(deflection):.3f} m, more than "
+            f"LBP/100 = {most:.3f} m: a hull in service does not bend so far; a mark is misread")
     x_f = interp(h.draft_m, h.lcf_m, t_q, "quarter-mean draft (hydrostatic table)", "m")
     t_lcf = t_q
     for _ in range(20):  # x_F depends on the draft at the LCF: a fixed point, settled in a few steps
@@ -199,6 +237,10 @@ def condition_from_readings(vessel: Vessel, readings: MarkReadings, water_densit
         second_trim_correction_t=stc, table_displacement_t=d_table, displacement_t=disp, lcb_m=hy.lcb_m,
         mctc_tm_cm=mctc, mctc_basis=basis, lcg_m=lcg, notes=tuple(notes),
     )
+
+
+def _m(x: float) -> str:
+    return f"{x:.3f}".rstrip("0").rstrip(".") if math.isfinite(x) else repr(x)
 
 
 def _marks(vessel: Vessel) -> DraftMarks:

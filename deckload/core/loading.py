@@ -12,6 +12,7 @@ from functools import lru_cache
 
 import numpy as np
 
+from deckload.core.bounds import hold_floor_top_m, stowage_range
 from deckload.core.frozen import frozen
 from deckload.core.model import Condition, Hold, HoldLoad, Tank, TankFill, Vessel
 from deckload.core.result import ItemResult
@@ -177,17 +178,32 @@ def hold_item(hold: Hold, load: HoldLoad) -> ItemResult:
     centroid-against-fill table at fill = mass·stowage/capacity (when a stowage factor
     is given); the full-hold centroid, which for a partly filled hold puts G higher
     than it is (a conservative choice: common practice).
+
+    Refused (:class:`LoadingError`) whatever made the condition: a stowage factor outside
+    :data:`deckload.core.bounds.STOWAGE_FACTOR_RANGE_M3_T` (denser than solid lead or lighter
+    than air), cargo whose volume mass × stowage exceeds the hold's capacity, and a VCG
+    override outside the hold's floor and top as its fill table gives them
+    (:func:`deckload.core.bounds.hold_floor_top_m`).
     """
     if load.mass_t < 0:
         raise LoadingError(f"hold {hold.id}: negative cargo mass {load.mass_t:g} t")
     lcg, vcg, tcg = hold.lcg_m, hold.vcg_m, hold.tcg_m
-    if load.stowage_m3_t is not None and hold.fill_pct is not None:
+    if load.stowage_m3_t is not None:
+        why = stowage_range().rule(load.stowage_m3_t)
+        if why:
+            raise LoadingError(f"hold {hold.id}: stowage factor {load.stowage_m3_t:g} m³/t is {why}")
         fill = 100.0 * load.mass_t * load.stowage_m3_t / hold.capacity_m3
         if fill > 100.0 + 1e-9:
             raise LoadingError(
                 f"hold {hold.id}: {load.mass_t:g} t at {load.stowage_m3_t:g} m³/t needs "
                 f"{load.mass_t * load.stowage_m3_t:.1f} m³, more than its {hold.capacity_m3:.1f} m³"
             )
+    if load.vcg_m is not None:
+        ft = hold_floor_top_m(hold)
+        if ft is not None and not ft[0] - 1e-9 <= load.vcg_m <= ft[1] + 1e-9:
+            raise LoadingError(f"hold {hold.id}: VCG {load.vcg_m:g} m is outside the hold, whose floor is at "
+                               f"{ft[0]:.4g} m and top at {ft[1]:.4g} m above the keel (its fill table)")
+    if load.stowage_m3_t is not None and hold.fill_pct is not None:
         i, f = bracket(hold.fill_pct, min(fill, 100.0), f"fill of hold {hold.id}", "%")
         if hold.fill_vcg_m is not None:
             vcg = float(lerp_row(hold.fill_vcg_m, i, f))

@@ -87,6 +87,7 @@ def check_vessel(ctx: FileCheck, v: m.Vessel) -> m.Vessel:
     for n, t in enumerate(v.tanks):
         raw, name = ("tank", n), f"tank[{t.id}]"
         c.one(raw + ("capacity_m3",), f"{name}.capacity_m3", t.capacity_m3, b.volume_range(p))
+        _calibration_surface(ctx, raw, name, t, p)
         if t.transfer is not None:
             c.array(raw + ("transfer", "moment_m4"), f"{name}.transfer.moment_m4", t.transfer.moment_m4,
                     b.transfer_moment_range(p, t.capacity_m3))
@@ -95,7 +96,7 @@ def check_vessel(ctx: FileCheck, v: m.Vessel) -> m.Vessel:
         c.one(raw + ("capacity_m3",), f"{name}.capacity_m3", hd.capacity_m3, b.volume_range(p))
         c.one(raw + ("max_mass_t",), f"{name}.max_mass_t", hd.max_mass_t, b.item_mass_range(v))
     for n, a in enumerate(v.deck_areas):
-        c.one(("deck_area", n, "area_m2"), f"deck_area[{a.id}].area_m2", a.area_m2, b.area_range(p))
+        c.one(("deck_area", n, "area_m2"), f"deck_area[{a.id}].area_m2", a.area_m2, b.deck_area_range(p))
     if v.limit_curve is not None and v.limit_curve.kind == "max_kg_m":
         c.array(("limit_curve", "max_kg_m"), "limit_curve.max_kg_m", v.limit_curve.value, b.z_range(p))
     elif v.limit_curve is not None:
@@ -124,6 +125,34 @@ def check_condition(ctx: FileCheck, v: m.Vessel, cond: m.Condition) -> m.Conditi
             c.one(raw + ("mass_t",), f"{name}.mass_t", it.mass_t, mass)
             c.position(p, raw, name, it.lcg_m, it.vcg_m, it.tcg_m)
             fp = getattr(it, "footprint_m2", None)
-            c.one(raw + ("footprint_m2",), f"{name}.footprint_m2", fp, b.area_range(p))
+            area_id = getattr(it, "area_id", None)
+            area = v.deck_area(area_id).area_m2 if area_id in v.area_index else None
+            c.one(raw + ("footprint_m2",), f"{name}.footprint_m2", fp, b.footprint_range(p, area))
     ctx.fail_if_any()
     return cond
+
+
+def _calibration_surface(ctx: FileCheck, raw: tuple, name: str, t: m.Tank, p: m.Particulars) -> None:
+    """The surface a calibration implies between two rows, ΔV/Δh (the mean plan area of the liquid
+    between those levels: derived), must not exceed the hull's plan area 1.2·LBP × B
+    (:func:`deckload.core.bounds.max_plan_area_m2`): a row at a sounding of 1e-300 m holding
+    0.16 m³ would be a surface of 1.6e299 m² (levels from the tank's lowest point, rows as the
+    reader ordered them, with any 'level 0, volume 0' row it added)."""
+    cal = t.calibration
+    if cal is None:
+        return
+    level = np.asarray(cal.sounding_m, dtype=float)
+    vol = np.asarray(cal.volume_m3, dtype=float)
+    if len(level) < 2:
+        return
+    top = b.max_plan_area_m2(p)
+    dh, dv = np.diff(level), np.diff(vol)
+    with np.errstate(divide="ignore", invalid="ignore"):
+        surface = np.where(dh > 0, dv / dh, np.inf)
+    bad = np.flatnonzero(~(surface <= top * (1 + 1e-9)))
+    if bad.size:
+        i = int(bad[0])
+        ctx.add(raw + ("calibration", "volume_m3"), f"{name}.calibration.volume_m3", None,
+                f"from level {level[i]:.6g} m to {level[i + 1]:.6g} m above the tank's lowest point the volume "
+                f"rises {dv[i]:.6g} m³: a liquid surface of {surface[i]:.4g} m², larger than the hull's plan "
+                f"area 1.2·LBP × breadth = {top:.6g} m² (check the soundings and volumes of these rows)")

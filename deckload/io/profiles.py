@@ -69,7 +69,10 @@ from deckload.core.bounds import (  # noqa: E402  one set of ranges for files an
     LBP_RANGE_M,
     LIQUID_DENSITY_RANGE_T_M3,
     WATER_DENSITY_RANGE_T_M3,
+    hold_vcg_range,
+    stowage_range,
     table_trim_range,
+    waterline_length_range,
 )
 
 CAPACITY_TOLERANCE = 0.0005
@@ -702,7 +705,7 @@ def _read_windage(root: Table, particulars: m.Particulars | None) -> m.Windage |
         # bounds from the vessel's own size: superstructures rarely stand more than a few depths high
         area_rules += (at_most(1.5 * lbp * 10.0 * depth, "m² (1.5 × LBP × 10 × depth): not a lateral area"),)
         height_rules += (at_most(10.0 * depth, "m (10 × depth)"),)
-        lwl_rules += (at_most(1.5 * lbp, "m (1.5 × LBP)"),)
+        lwl_rules += (waterline_length_range(particulars).rule,)
     cols = {
         "draft_m": t.increasing("draft_m", t.array("draft_m", positive)),
         "lateral_area_m2": t.array("lateral_area_m2", *area_rules),
@@ -1593,7 +1596,10 @@ def _read_hold_loads(root: Table, vessel: m.Vessel) -> list[m.HoldLoad]:
     for ident, t in _keyed_tables(root, "holds", vessel.hold_index, "hold"):
         hold = vessel.hold(ident)
         kw: dict[str, Any] = dict(hold_id=ident, mass_t=t.num("mass_t", non_negative))
-        optional = {"stowage_m3_t": (positive,), "lcg_m": (), "vcg_m": (above_keel,), "tcg_m": ()}
+        # the stowage factor and the cargo's height by physics: a cargo no denser than solid lead,
+        # its centre between the hold's floor and top (deckload.core.bounds)
+        optional = {"stowage_m3_t": (positive, stowage_range().rule), "lcg_m": (),
+                    "vcg_m": (above_keel, hold_vcg_range(vessel.particulars, hold).rule), "tcg_m": ()}
         bad = False
         for k, rules in optional.items():
             present = t.has(k)
