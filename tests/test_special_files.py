@@ -200,3 +200,18 @@ def test_an_interrupt_while_reading_a_siblings_name_still_stops_the_program(traw
     monkeypatch.setattr(cf.tomllib, "load", interrupted)
     with pytest.raises(KeyboardInterrupt):
         cf.title_of(trawler.parent / "demo_trawler.grounds.condition.toml")
+
+
+def test_tables_does_not_wait_on_a_fifo_named_as_the_profile_to_refresh(tmp_path, capsys, monkeypatch):
+    """``tables -o`` reads the profile it refreshes first: a FIFO there is refused before any table
+    is computed (computing fails this test: the refusal must come first)."""
+    import deckload.cli.tables as tables_cli
+
+    def computed(*args, **kwargs):
+        raise AssertionError("the tables were computed")
+
+    monkeypatch.setattr(tables_cli, "build_tables", computed)
+    fifo = tmp_path / "profile.toml"
+    os.mkfifo(fifo)
+    assert run("tables", str(PROFILES / "demo_islander.geometry.toml"), "-o", str(fifo)) == 1
+    assert f"{fifo}: {NOT_REGULAR}" in capsys.readouterr().err
