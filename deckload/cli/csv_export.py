@@ -10,7 +10,12 @@ starts above the bottom) is not written.  Files are written atomically; a table 
 rows in the profile (a capacity-only tank, a single downflooding angle) is named on
 the screen instead.
 
-Exit status: 0 written; 1 the profile has problems; 2 a file could not be read or written.
+A file the profile reads (its own CSV tables, when the folder given is theirs) or a file of the
+voyage log is never written over: the command refuses before it writes any file, naming the
+file (:mod:`deckload.io.outputs`).
+
+Exit status: 0 written; 1 the profile has problems, or a file to write is one the profile reads
+or the log keeps; 2 a file could not be read or written.
 """
 
 from __future__ import annotations
@@ -186,6 +191,24 @@ def describe(tr: TableReading | None, key: str = "") -> str:
     return f" ({', '.join(bits)})" if bits else ""
 
 
+def _refused(profile_path: Path, targets: list[Path]) -> str | None:
+    """Why the files would not be written, or None: one of them is a file the profile reads
+    (its own CSV tables, typed from the booklet, would come back rewritten: "1.60" as "1.6",
+    121.7123456789 as 121.7123457) or a file of the voyage log (:mod:`deckload.io.outputs`).
+    Checked for every file before any is written; new files beside the profile's are fine."""
+    from deckload.io.outputs import OutputRefused, profile_inputs, refuse_overwrite
+
+    inputs = profile_inputs(profile_path)
+    for target in targets:
+        try:
+            refuse_overwrite(target, inputs)
+        except OutputRefused as e:
+            return (f"{e}: no table written.  The files the profile reads keep the values as typed from the "
+                    f"booklet: give another folder (e.g. {target.parent.name or 'tables'}-export) to write "
+                    "the tables in")
+    return None
+
+
 def run_csv(profile_path: Path, out_dir: Path) -> int:
     try:
         vessel, rd = read_profile(profile_path)
@@ -198,9 +221,14 @@ def run_csv(profile_path: Path, out_dir: Path) -> int:
         print(f"{len(e.problems)} problem{'s' if len(e.problems) != 1 else ''} in {profile_path}: no tables written")
         return 1
     out_dir = Path(out_dir)
+    tables = profile_tables(vessel, rd)
+    refused = _refused(profile_path, [out_dir / name for name, *_ in tables])
+    if refused:
+        print(f"deckload csv: {refused}", file=sys.stderr)
+        return 1
     try:
         out_dir.mkdir(parents=True, exist_ok=True)
-        for name, what, key, header, rows in profile_tables(vessel, rd):
+        for name, what, key, header, rows in tables:
             header, rows = in_order((header, rows), rd.tables.get(key))
             write_csv(out_dir / name, header, rows)
             print(f"wrote {out_dir / name}: {what}, {len(rows)} rows{describe(rd.tables.get(key), key)}")

@@ -1,7 +1,8 @@
 """``deckload log …``: record a condition, show, export and verify the voyage log.
 
-Exit codes: 0 done; 1 bad input, a log that fails verification, or a log held by
-another writer; 2 a file that cannot be read or written.
+Exit codes: 0 done; 1 bad input (among it an export's output that is a file of a voyage log:
+:mod:`deckload.io.outputs`), a log that fails verification, or a log held by another writer;
+2 a file that cannot be read or written.
 """
 
 from __future__ import annotations
@@ -284,6 +285,14 @@ def export_html(books: list[tuple[str, list[LogEntry]]], broken: dict[str, str] 
 
 
 def _export(args) -> int:
+    if args.output is not None:
+        from deckload.io.outputs import OutputRefused, refuse_overwrite
+
+        try:
+            refuse_overwrite(args.output, log_dirs=[_log_dir(args)])
+        except OutputRefused as e:
+            print(f"deckload log export: {e}: nothing exported; name another file", file=sys.stderr)
+            return 1
     books = _books(args)
     try:
         data = [(b.vessel_name, b.entries()) for b in books]

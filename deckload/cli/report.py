@@ -22,8 +22,9 @@ def run_report(profile_path: Path, condition_path: Path, html: bool, output: Pat
                direct: bool = False) -> int:
     """``deckload report``: load, evaluate, render; write to ``output`` or print.
 
-    Exit 0 when written (whether or not the criteria pass), 1 on bad input, 2 when a
-    file cannot be read or written.
+    Exit 0 when written (whether or not the criteria pass), 1 on bad input (an ``output``
+    that is one of the files read, or a file of the voyage log: :mod:`deckload.io.outputs`),
+    2 when a file cannot be read or written.
     """
     from deckload.cli.calc import load_evaluate_compare
     from deckload.logbook import clock_stamp
@@ -31,6 +32,14 @@ def run_report(profile_path: Path, condition_path: Path, html: bool, output: Pat
     loaded = load_evaluate_compare(profile_path, condition_path, direct)
     if isinstance(loaded, int):
         return loaded
+    if output is not None:
+        from deckload.io.outputs import OutputRefused, profile_inputs, refuse_overwrite
+
+        try:
+            refuse_overwrite(output, [*profile_inputs(profile_path), (Path(condition_path), "the condition read")])
+        except OutputRefused as e:
+            print(f"deckload report: {e}: no report written; name another file", file=sys.stderr)
+            return 1
     vessel, condition, result, comparison = loaded
     stamp = clock_stamp()
     source = Path(condition_path).name + _log_anchor_text(vessel.particulars.name)

@@ -21,7 +21,9 @@ Everything else in an existing profile — format, the other ``[vessel]`` keys,
 ``[lightship]``, ``[criteria]``, ``[free_surface]``, ``[[load_line]]``,
 ``[limit_curve]``, remarks, and tanks or holds that the geometry does not name —
 is kept as it is.  The file is replaced atomically; TOML comments cannot survive a
-rewrite, so when the old file has any a copy is kept beside it as ``*.bak``.
+rewrite, so when the old file has any a copy is kept beside it as ``*.bak``.  The profile
+written is never the geometry file read nor a file of the voyage log (nor is its ``*.bak``):
+the command refuses before it computes (:mod:`deckload.io.outputs`).
 
 Values are rounded to fixed decimals (0.1 mm for lengths, 0.01 t, 1e-4 m³ …), so
 the output is deterministic and a rebuild of an unchanged geometry is
@@ -420,9 +422,22 @@ def run_tables(geometry_path: Path, output_path: Path | None, trims_text: str | 
         print(f"deckload tables: {msg} ({time.perf_counter() - start:.1f} s)", file=sys.stderr, flush=True)
 
     existing_text = None
-    if output_path is not None and output_path.exists():
+    if output_path is not None:
+        from deckload.io.outputs import OutputRefused, refuse_overwrite
+
+        backup = output_path.with_name(output_path.name + ".bak")
         try:
-            existing_text = output_path.read_text(encoding="utf-8")
+            # the geometry read, a file of the voyage log; and the copy kept when comments are lost
+            refuse_overwrite(output_path, [(geometry_path, "the geometry file read")])
+            refuse_overwrite(backup, [(geometry_path, "the geometry file read")])
+        except OutputRefused as e:
+            print(f"deckload tables: {e}: nothing written; name another profile to write", file=sys.stderr)
+            return 1
+    if output_path is not None and output_path.exists():
+        from deckload.io.limits import MAX_TOML_BYTES, read_limited
+
+        try:
+            existing_text = read_limited(output_path, MAX_TOML_BYTES, "a profile").decode("utf-8")
             tomllib.loads(existing_text)
         except (OSError, UnicodeDecodeError) as e:
             print(f"deckload tables: cannot read {output_path}: {e}", file=sys.stderr)
@@ -430,6 +445,10 @@ def run_tables(geometry_path: Path, output_path: Path | None, trims_text: str | 
         except tomllib.TOMLDecodeError as e:
             print(f"deckload tables: {output_path}: not valid TOML ({e}); the file was left untouched",
                   file=sys.stderr)
+            return 1
+        except (RecursionError, ValueError) as e:  # nesting too deep, an integer of too many digits
+            print(f"deckload tables: {output_path}: cannot be read as TOML ({e or type(e).__name__}); "
+                  "the file was left untouched", file=sys.stderr)
             return 1
     try:
         text, notes = build_profile_text(geometry_path, existing_text, progress, trims)
@@ -447,7 +466,6 @@ def run_tables(geometry_path: Path, output_path: Path | None, trims_text: str | 
         sys.stdout.write(text)
         return 0
     if existing_text is not None and existing_text != text and _has_comments(existing_text):
-        backup = output_path.with_name(output_path.name + ".bak")
         shutil.copyfile(output_path, backup)
         print(f"deckload tables: {output_path} had comments, which a rewrite cannot keep; "
               f"the old file is saved as {backup}", file=sys.stderr)

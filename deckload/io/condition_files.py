@@ -13,6 +13,7 @@ is ``profiles.load_condition``'s work when the condition is opened).
 
 from __future__ import annotations
 
+import stat
 import tomllib
 from pathlib import Path
 
@@ -51,32 +52,58 @@ def name_key(name: str) -> str:
 
 def title_of(path: Path) -> str:
     """``[condition] name`` of a condition file, without validating it (the file name if unreadable)."""
+    name = _own_name(path)
+    return name if name is not None else path.name
+
+
+def _own_name(path: Path) -> str | None:
+    """``[condition] name`` of the file, None when it has none or the file cannot be read or parsed.
+
+    The by-name lookup reads every condition file beside the profile and in the saved folder,
+    not only the one asked for: one that cannot be read or parsed, for whatever reason (a file
+    over the size limit, bytes that are not UTF-8, TOML nested too deep for the reader — a
+    RecursionError —, an integer of too many digits — a ValueError — …), must only fail to
+    match by its name, never stop the lookup.  KeyboardInterrupt and SystemExit are not
+    Exceptions and still stop the program."""
+    from deckload.io.limits import MAX_TOML_BYTES, open_regular
+
     try:
-        with open(path, "rb") as fh:
-            data = tomllib.load(fh)
-        name = data.get("condition", {}).get("name")
-    except (OSError, tomllib.TOMLDecodeError, AttributeError, UnicodeDecodeError):
-        name = None
-    return name if isinstance(name, str) and name.strip() else path.name
+        with open_regular(path, "a condition file") as fh:
+            raw = fh.read(MAX_TOML_BYTES + 1)
+        if len(raw) > MAX_TOML_BYTES:
+            return None
+        name = tomllib.loads(raw.decode("utf-8")).get("condition", {}).get("name")
+    except Exception:  # noqa: BLE001  see the docstring: a sibling that cannot be read never matches
+        return None
+    return name if isinstance(name, str) and name.strip() else None
+
+
+def _regular(path: Path) -> bool:
+    """A regular file (a link to one counts): a pipe, device or socket named like a condition file
+    is not one, and opening it to read its name could wait for ever."""
+    try:
+        return stat.S_ISREG(path.stat().st_mode)
+    except (OSError, ValueError):
+        return False
 
 
 def stock(profile_path: Path) -> list[Named]:
-    """Condition files beside the profile: ``<stem>.<key>.condition.toml``."""
+    """Condition files beside the profile: ``<stem>.<key>.condition.toml`` (regular files only)."""
     stem = profile_path.name.removesuffix(".toml")
     out = []
     for p in sorted(profile_path.parent.glob(f"{stem}.*.condition.toml")):
         key = p.name[len(stem) + 1: -len(".condition.toml")]
-        if key and "." not in key:
+        if key and "." not in key and _regular(p):
             out.append(Named(key, title_of(p), p, "stock"))
     return out
 
 
 def saved(folder: Path) -> list[Named]:
-    """Conditions saved under an officer's own name, in ``folder``."""
+    """Conditions saved under an officer's own name, in ``folder`` (regular files only)."""
     if not folder.is_dir():
         return []
     return [Named(p.name.removesuffix(".condition.toml"), title_of(p), p, "saved")
-            for p in sorted(folder.glob("*.condition.toml"))]
+            for p in sorted(folder.glob("*.condition.toml")) if _regular(p)]
 
 
 def all_named(profile_path: Path, vessel_name: str, work_dir: Path) -> list[Named]:
@@ -94,8 +121,10 @@ def resolve(profile_path: Path, typed: str, vessel_name: str, work_dir: Path) ->
     screen's condition; a stock or saved condition by its key or its name (case ignored)."""
     from deckload.io import paths
 
-    if Path(typed).is_file():
-        return Path(typed)
+    given = Path(typed)
+    if given.is_file() or (given.exists() and not given.is_dir()):
+        # a pipe or device named as the file is that file: reading it refuses it, naming it
+        return given
     want = typed.strip().casefold()
     if want in WORKING_KEYS:
         w = paths.working_file(work_dir, vessel_name)

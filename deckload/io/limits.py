@@ -12,12 +12,16 @@ Numbers too large for a float (TOML integers are unbounded) are refused as not f
 and nesting too deep for the TOML reader is refused as a problem of the file.
 
 A file over its limit is refused with a message naming the file and the limit; the file is
-never read past the limit (a device or a pipe named as a file cannot hang the program).
+never read past the limit.  A file that is not a regular file (a pipe, a device, a socket) is
+refused before a byte is read (:func:`open_regular`): opening a pipe with no writer, or reading
+one, would wait for ever.
 """
 
 from __future__ import annotations
 
+import errno
 import os
+import stat
 from contextvars import ContextVar
 from pathlib import Path
 
@@ -47,9 +51,61 @@ def size_text(n: int) -> str:
     return f"{n} bytes"
 
 
+class NotRegularFileError(TooLargeError):
+    """A pipe, device or socket named (or found) where a file is read; the message names it.
+
+    A :class:`TooLargeError`, so that every reader that refuses an over-size file unread
+    (as a problem of the file, naming it) refuses this the same way."""
+
+
+_KINDS = ((stat.S_ISFIFO, "a pipe (FIFO)"), (stat.S_ISCHR, "a character device"),
+          (stat.S_ISBLK, "a block device"), (stat.S_ISSOCK, "a socket"))
+
+
+def _not_regular(path: str | os.PathLike, mode: int, what: str) -> NotRegularFileError:
+    kind = next((word for test, word in _KINDS if test(mode)), "not a file")
+    return NotRegularFileError(f"{path}: is not a regular file but {kind}: only a regular file is allowed "
+                               f"for {what}; refused unread")
+
+
+def open_regular(path: str | os.PathLike, what: str = "a file deckload reads"):
+    """``path`` opened for reading in binary, refusing anything but a regular file.
+
+    The file is opened with ``O_NONBLOCK`` (opening a pipe that no one writes to would
+    otherwise wait for ever) and its type is taken from the open descriptor (``fstat``, so
+    a file swapped in between cannot slip through): a pipe, device or socket raises
+    :class:`NotRegularFileError`, a folder :class:`IsADirectoryError` (as ``open`` does).
+    Symbolic links are followed: a link to a regular file is read."""
+    flags = os.O_RDONLY | getattr(os, "O_NONBLOCK", 0) | getattr(os, "O_BINARY", 0) | getattr(os, "O_CLOEXEC", 0)
+    try:
+        fd = os.open(path, flags)
+    except OSError as e:
+        if e.errno == errno.ENXIO:  # a socket cannot be opened: say what it is
+            try:
+                mode = os.stat(path).st_mode
+            except OSError:
+                raise e from None
+            if not stat.S_ISREG(mode):
+                raise _not_regular(path, mode, what) from None
+        raise
+    try:
+        mode = os.fstat(fd).st_mode
+        if stat.S_ISDIR(mode):
+            raise IsADirectoryError(errno.EISDIR, os.strerror(errno.EISDIR), str(path))
+        if not stat.S_ISREG(mode):
+            raise _not_regular(path, mode, what)
+        if hasattr(os, "set_blocking"):
+            os.set_blocking(fd, True)  # no effect on a regular file's reads; the descriptor as open() makes it
+        return os.fdopen(fd, "rb")
+    except BaseException:
+        os.close(fd)
+        raise
+
+
 def read_limited(path: str | os.PathLike, limit: int, what: str) -> bytes:
-    """The bytes of ``path``, refusing (:class:`TooLargeError`) a file larger than ``limit``."""
-    with open(Path(path), "rb") as f:
+    """The bytes of ``path``, refusing (:class:`TooLargeError`) a file larger than ``limit`` and
+    (:class:`NotRegularFileError`) anything but a regular file (:func:`open_regular`)."""
+    with open_regular(Path(path), what) as f:
         data = f.read(limit + 1)
     if len(data) > limit:
         raise TooLargeError(f"{path}: larger than the {size_text(limit)} allowed for {what}: refused unread")

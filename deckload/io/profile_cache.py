@@ -186,8 +186,10 @@ def _read_entry(entry: Path, digest: str, expect: type, check: Callable[[object]
 
     from deckload import __version__
 
+    from deckload.io.limits import open_regular
+
     try:
-        with open(entry, "rb") as fh:
+        with open_regular(entry, "a profile cache entry") as fh:
             line = fh.readline(_HEADER_LIMIT)
             head = json.loads(line)
             if not (isinstance(head, dict) and head.get("format") == FORMAT and head.get("version") == __version__
@@ -219,12 +221,12 @@ def _read_entry(entry: Path, digest: str, expect: type, check: Callable[[object]
 
 def _file_hash(path: str) -> str | None:
     """SHA-256 of the file's bytes now; None when it is not there; '' when it cannot be read."""
-    from deckload.io.limits import MAX_TOML_BYTES
+    from deckload.io.limits import MAX_TOML_BYTES, open_regular
 
     import hashlib
 
     try:
-        with open(path, "rb") as fh:
+        with open_regular(path) as fh:  # a pipe put in a table's place is a miss, not a wait
             data = fh.read(MAX_TOML_BYTES + 1)
     except FileNotFoundError:
         return None

@@ -71,7 +71,8 @@ class WriterLock:
 def writer_active(lock_path: Path) -> bool:
     """True when some process holds the writer's lock of ``lock_path`` (a shared probe, released at once)."""
     try:
-        fd = os.open(lock_path, os.O_RDONLY)
+        # O_NONBLOCK: a pipe put in the lock file's place would otherwise wait for a writer for ever
+        fd = os.open(lock_path, os.O_RDONLY | getattr(os, "O_NONBLOCK", 0))
     except FileNotFoundError:
         return False
     try:

@@ -107,8 +107,10 @@ class LogStore:
 
     def read_head(self) -> dict | None:
         """The head record, None when there is none, ``{"damaged": True}`` when unreadable."""
+        from deckload.io.limits import open_regular
+
         try:
-            with open(self.head_path, "rb") as f:
+            with open_regular(self.head_path, "a log's head record") as f:
                 raw = f.read(64 * 1024)  # a head record is one short line; more is damage
         except FileNotFoundError:
             return None
@@ -181,8 +183,10 @@ def log_files(directory: Path) -> list[Path]:
 
 def vessel_of_log(path: Path) -> str:
     """The vessel name recorded in a log's first readable line (else its file-name slug)."""
+    from deckload.io.limits import open_regular
+
     try:
-        with open(path, "rb") as f:
+        with open_regular(path, "a voyage log") as f:
             for i, line in enumerate(f, start=1):
                 if line.endswith(b"\n"):
                     try:

@@ -134,8 +134,10 @@ def audit_profile(path: str | os.PathLike, vessel: Vessel) -> list[Located]:
     findings = audit(vessel)
     if not findings:
         return []
+    from deckload.io.limits import MAX_TOML_BYTES, read_limited
+
     try:
-        text = Path(path).read_text(encoding="utf-8")
+        text = read_limited(path, MAX_TOML_BYTES, "a profile").decode("utf-8")
     except (OSError, UnicodeDecodeError):
         return [Located(f, str(path), None) for f in findings]
     return locate(findings, str(path), text, vessel)
@@ -184,10 +186,13 @@ def _csv_of(doc: dict, path: tuple) -> str | None:
 def _in_csv(f: Finding, full: Path, vessel: Vessel) -> Located:
     """The CSV line of the finding's row (the finding's key names the column, as the model has it)."""
     import csv
+    import io
+
+    from deckload.io.limits import open_regular
 
     name = str(full)
     try:
-        with open(full, newline="", encoding="utf-8") as fh:
+        with io.TextIOWrapper(open_regular(full, "a CSV table"), newline="", encoding="utf-8") as fh:
             rows = [(n, r) for n, r in enumerate(csv.reader(fh), 1) if any(c.strip() for c in r)]
     except (OSError, UnicodeDecodeError, csv.Error):
         return Located(f, name, None)

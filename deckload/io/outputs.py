@@ -1,0 +1,173 @@
+"""A file the user names for output never replaces a file deckload reads or keeps.
+
+Every command that writes a file named on its command line (``report -o``, ``log export -o``,
+``tables -o``, the files ``csv`` writes in its folder) asks :func:`refuse_overwrite` first,
+before it writes anything.  It refuses (:class:`OutputRefused`, naming the path and what
+the file is) when the output is:
+
+* an input of the command: the profile, the condition, and every file the profile reads
+  (:func:`profile_inputs`: its CSV tables, its hull geometry file, its booklet conditions'
+  files, the stock condition files beside it);
+* a file of a voyage log in a log folder (:func:`log_folder_files`: the log, its head
+  record, its lock file, a torn line set aside), or a working or saved condition of the
+  loading screen (``working/`` in the log folder).
+
+"The same file" is decided as the system sees it: ``os.stat`` of both (symbolic links
+followed) with the same device and inode — a hard link, a symbolic link or another
+spelling of the path is the same file — or, for a file not there yet, the same path once
+links and ``..`` are resolved (``os.path.realpath``): writing a log's name in a log folder,
+or a table's name the profile would read, would make such a file.
+
+Refusing is the rule, never a backup: these are the values as the booklet was typed and the
+hash-chained evidence of the log; a copy beside them would be one more file to mistake for them.
+"""
+
+from __future__ import annotations
+
+import fnmatch
+import os
+from collections.abc import Iterable
+from pathlib import Path
+
+LOG_FILE_PATTERNS = ("*.log.jsonl", "*.log.head.json", "*.log.lock", "*.log.jsonl.torn-*")
+"""The files the voyage log keeps per vessel in its folder (deckload.logbook): the log, its
+head record, its writer's lock and a torn last line set aside."""
+
+FILE_KEYS = ("csv", "hull_geometry", "condition_file")
+"""Keys of a profile whose value names a file the profile reads, relative to the profile's folder."""
+
+
+class OutputRefused(Exception):
+    """Writing the named output would replace a file deckload reads or keeps; the message names
+    the path and what the file is (the command adds what it did not write, and the way out)."""
+
+
+def _ident(path: str | os.PathLike) -> tuple[int, int] | None:
+    try:
+        st = os.stat(path)
+    except (OSError, ValueError):
+        return None
+    return st.st_dev, st.st_ino
+
+
+def _real(path: str | os.PathLike) -> str:
+    try:
+        return os.path.realpath(path)
+    except (OSError, ValueError):
+        return os.path.abspath(path)
+
+
+def same_file(a: str | os.PathLike, b: str | os.PathLike) -> bool:
+    """``a`` and ``b`` are one file: same device and inode when both exist (links followed),
+    else the same resolved path."""
+    ia, ib = _ident(a), _ident(b)
+    if ia is not None and ib is not None:
+        return ia == ib
+    return _real(a) == _real(b)
+
+
+def _walk_names(node, out: list[str]) -> None:
+    if isinstance(node, dict):
+        for k, v in node.items():
+            if k in FILE_KEYS and isinstance(v, str) and v.strip():
+                out.append(v)
+            else:
+                _walk_names(v, out)
+    elif isinstance(node, list):
+        for v in node:
+            _walk_names(v, out)
+
+
+def profile_inputs(profile: str | os.PathLike) -> list[tuple[Path, str]]:
+    """(file, what it is) for the profile and every file it reads or that is looked up beside it.
+
+    The files are those its keys name (:data:`FILE_KEYS`, relative to the profile's folder, as
+    the reader resolves them) and the stock condition files beside it (``<stem>.*.condition.toml``,
+    read by the by-name lookup).  A profile that cannot be parsed names only itself (the command
+    that reads it has refused it before any output is written)."""
+    import tomllib
+
+    from deckload.io.limits import MAX_TOML_BYTES, open_regular
+
+    path = Path(profile)
+    out: list[tuple[Path, str]] = [(path, "the vessel profile read")]
+    try:
+        with open_regular(path, "a vessel profile") as fh:
+            raw = fh.read(MAX_TOML_BYTES + 1)
+        doc = tomllib.loads(raw.decode("utf-8")) if len(raw) <= MAX_TOML_BYTES else {}
+    except Exception:  # noqa: BLE001  unreadable or not TOML: nothing more is named (see the docstring)
+        doc = {}
+    names: list[str] = []
+    _walk_names(doc, names)
+    for name in names:
+        out.append((path.parent / name, f"a file the profile {path} reads ({name!r})"))
+    stem = path.name.removesuffix(".toml")
+    try:
+        for p in sorted(path.parent.glob(f"{stem}.*.condition.toml")):
+            out.append((p, f"a condition file of the profile {path}"))
+    except (OSError, ValueError):
+        pass
+    return out
+
+
+def log_folder_files(folder: str | os.PathLike) -> list[tuple[Path, str]]:
+    """(file, what it is) for every existing file of a voyage log in ``folder`` and every working
+    or saved condition of the loading screen kept there (``working/``)."""
+    d = Path(folder)
+    out: list[tuple[Path, str]] = []
+    try:
+        with os.scandir(d) as it:
+            for e in it:
+                if any(fnmatch.fnmatch(e.name, pat) for pat in LOG_FILE_PATTERNS):
+                    out.append((Path(e.path), f"a file of the voyage log in {d}"))
+    except OSError:
+        pass
+    try:
+        for p in (d / "working").rglob("*.condition.toml"):
+            out.append((p, "a condition the loading screen keeps"))
+    except OSError:
+        pass
+    return out
+
+
+def _log_name_in(output: str, folders: list[Path]) -> Path | None:
+    """The log folder ``output`` would land in under a log file's name (a file not there yet)."""
+    real = Path(output)
+    for d in folders:
+        if _ident(d) is None:
+            continue
+        if same_file(real.parent, d) and any(fnmatch.fnmatch(real.name, pat) for pat in LOG_FILE_PATTERNS):
+            return d
+        work = d / "working"
+        if real.name.endswith(".condition.toml") and _ident(work) is not None:
+            if any(same_file(parent, work) for parent in real.parents):
+                return d
+    return None
+
+
+def refuse_overwrite(output: str | os.PathLike, inputs: Iterable[tuple[str | os.PathLike, str]] = (),
+                     log_dirs: Iterable[str | os.PathLike] = ()) -> None:
+    """Raise :class:`OutputRefused` when writing ``output`` would replace one of ``inputs``
+    ((file, what it is) pairs), a file of a voyage log or a condition the loading screen keeps,
+    in any of ``log_dirs`` and in the log folder in use (``deckload.io.paths.log_dir``)."""
+    from deckload.io.paths import log_dir
+
+    try:
+        in_use = [log_dir()]
+    except (OSError, RuntimeError):  # no home folder to find: there is no default log folder either
+        in_use = []
+    folders: list[Path] = []
+    for d in [*log_dirs, *in_use]:
+        if not any(same_file(d, f) for f in folders):
+            folders.append(Path(d))
+    protected = list(inputs)
+    for d in folders:
+        protected += log_folder_files(d)
+    for path, what in protected:
+        if same_file(output, path):
+            alias = "" if str(path) == str(output) else f" (the same file as {path})"
+            raise OutputRefused(f"{output}: is {what}{alias}; writing there would replace it")
+    d = _log_name_in(_real(output), folders)
+    if d is not None:
+        raise OutputRefused(f"{output}: has the name of a file the voyage log or the loading screen keeps in {d}; "
+                            "writing there would put another file in its place")
