@@ -31,13 +31,25 @@ def tables_built_once():
     this module need them (the byte-for-byte rebuild, the refresh, the output to stdout and the
     tables at trims read back).  The computation runs once: ``build_tables`` as ``deckload tables``
     calls it is replaced, for this module only, by a memo keyed on the SHA-256 of the pickled
-    geometry, so a geometry that differs in any value is computed afresh.  A memo hit replays the progress messages of the real run.  What
-    is computed is checked by ``test_committed_demo_profile_rebuilds_byte_for_byte`` (and the
-    geometry tests); the other tests here check the command around it."""
+    geometry, so a geometry that differs in any value is computed afresh.  A memo hit replays the
+    progress messages of the real run.  What is computed is checked by
+    ``test_committed_demo_profile_rebuilds_byte_for_byte`` (and the geometry tests); the other
+    tests here check the command around it.
+
+    The tables at each trim (``tables_at_trims``, about 0.25 s a trim, each trim computed on its
+    own) are kept the same way, keyed on the pickled hull, grids and particulars and the trim,
+    for the command and for the generator the read-back is compared with
+    (tests/tools/trimmed_tables_from_geometry.py): the read-back test checks what the command
+    writes and reads back against what it computed, and the trim 0 the command does not write at
+    trims; the computation itself is checked against the direct calculation
+    (tests/test_trimmed_tables_demo.py) and a box's closed forms (tests/test_tables_trims.py)."""
     import deckload.cli.tables as tables_cli
+    import tools.trimmed_tables_from_geometry as generator
 
     compute = tables_cli.build_tables
+    at_trims = tables_cli.tables_at_trims
     memo: dict[str, tuple[object, list[str]]] = {}
+    trims_memo: dict[tuple[str, float], object] = {}
 
     def build_tables_once(geometry, progress=None):
         key = hashlib.sha256(pickle.dumps(geometry)).hexdigest()
@@ -50,9 +62,21 @@ def tables_built_once():
                 progress(msg)
         return tables
 
+    def tables_at_trims_once(body, drafts_m, kn_displacement_t, kn_heel_deg, trims_m, *rest):
+        key = hashlib.sha256(pickle.dumps((body, list(drafts_m), list(kn_displacement_t), list(kn_heel_deg),
+                                           rest))).hexdigest()
+        out = []
+        for t in (float(x) for x in trims_m):
+            if (key, t) not in trims_memo:
+                (trims_memo[(key, t)],) = at_trims(body, drafts_m, kn_displacement_t, kn_heel_deg, [t], *rest)
+            out.append(trims_memo[(key, t)])
+        return tuple(out)
+
     with pytest.MonkeyPatch.context() as mp:
         mp.setattr(tables_cli, "build_tables", build_tables_once)
-        yield memo
+        mp.setattr(tables_cli, "tables_at_trims", tables_at_trims_once)
+        mp.setattr(generator, "tables_at_trims", tables_at_trims_once)
+        yield memo, trims_memo
 
 
 @pytest.fixture(scope="module")
@@ -88,12 +112,14 @@ def demo_round_trip(tmp_path_factory):
 
 
 @pytest.mark.long
-def test_command_output_read_back_equals_the_generator(demo_round_trip):
+def test_command_output_read_back_equals_the_generator(demo_round_trip, tables_built_once):
     """Read back by the profile reader, the command's tables at trims are the generator's
     (deckload/core/geometry/trimmed.py through tests/tools/trimmed_tables_from_geometry.py) to the
     decimals they are written with."""
     v, notes = demo_round_trip
     gen = trimmed_vessel(load_profile(PROFILE), sorted((0.0,) + DEMO_TRIMS)).trimmed
+    # each trim computed once for the command and the generator (the same hull and grids), and 0
+    assert sorted(t for _, t in tables_built_once[1]) == sorted((0.0,) + DEMO_TRIMS)
     tt = v.trimmed
     assert tt is not None
     assert list(tt.hydro_trim_m) == list(gen.hydro_trim_m) == [-1.0, -0.5, 0.0, 0.5, 1.0, 1.5]
@@ -164,7 +190,7 @@ def test_refresh_keeps_hand_entered_sections(tmp_path, rebuilt):
 
 def test_stdout_without_output(capsys, rebuilt, tables_built_once):
     assert main(["tables", str(GEOMETRY)]) == 0
-    assert len(tables_built_once) == 1  # the demo's tables were computed once for the module
+    assert len(tables_built_once[0]) == 1  # the demo's tables were computed once for the module
     out = capsys.readouterr()
     doc = tomllib.loads(out.out)
     assert doc["format"] == "deckload-profile-1"
