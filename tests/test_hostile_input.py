@@ -293,3 +293,18 @@ def test_a_file_of_another_kind_is_refused_on_its_format_alone(vessel, parse, te
         read()
     (problem,) = e.value.problems
     assert problem.key == "format" and expected in problem.rule and len(str(e.value)) < 300
+
+
+def test_a_condition_name_longer_than_the_screen_allows_is_refused_naming_the_key(vessel):
+    """The screen saves a condition under at most 80 characters (deckload.io.condition_files
+    MAX_NAME_CHARS); a file's name of 100 000 characters passed calc and was refused only by the
+    log, as "change text: at most 2000 characters", without naming the key."""
+    from deckload.io.condition_files import MAX_NAME_CHARS
+
+    ok = DEPARTURE.replace('name = "Departure, full stores"', f'name = "{"x" * MAX_NAME_CHARS}"', 1)
+    assert parse_condition(ok, "c.toml", vessel).name == "x" * MAX_NAME_CHARS
+    long = DEPARTURE.replace('name = "Departure, full stores"', f'name = "{"x" * 100_000}"', 1)
+    with pytest.raises(ProfileError) as e:
+        parse_condition(long, "c.toml", vessel)
+    (problem,) = e.value.problems
+    assert problem.key == "condition.name" and "at most 80 characters (100000 given)" in problem.rule

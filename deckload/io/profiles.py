@@ -1504,6 +1504,11 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
     c = root.table("condition")
     if c is not None:
         head["name"] = c.text("name")
+        from deckload.io.condition_files import MAX_NAME_CHARS
+
+        if isinstance(head["name"], str) and len(head["name"]) > MAX_NAME_CHARS:
+            # as the screen lets a condition be named: a longer one could not be logged or saved by it
+            c.bad("name", head["name"], f"at most {MAX_NAME_CHARS} characters ({len(head['name'])} given)")
         head["remark"] = c.text("remark", required=False, empty_ok=True)
         head["water_density_t_m3"] = c.num("water_density_t_m3", water_density)
         marks = [ll.name for ll in vessel.load_lines]
