@@ -308,3 +308,18 @@ def test_a_condition_name_longer_than_the_screen_allows_is_refused_naming_the_ke
         parse_condition(long, "c.toml", vessel)
     (problem,) = e.value.problems
     assert problem.key == "condition.name" and "at most 80 characters (100000 given)" in problem.rule
+
+
+@pytest.mark.parametrize("column", ["lcb_m", "lcf_m"])
+def test_an_lcb_or_lcf_beyond_the_hull_is_refused_where_it_is_read(column):
+    """LCB and LCF lie within −0.2·LBP … 1.2·LBP (vessel_profiles/README.md, "Physical bounds"):
+    1e308 in the first row is refused naming its key and row, not passed to the audit, where it
+    came out as an LCB "inf m away" from the one the LCF column integrates to."""
+    at = PROFILE_TEXT.index(f"{column} = [")
+    first = PROFILE_TEXT.index("\n", at) + 1
+    end = PROFILE_TEXT.index(",", first)
+    text = PROFILE_TEXT[:first] + "    1e308" + PROFILE_TEXT[end:]
+    with pytest.raises(ProfileError) as e:
+        parse_profile(text, "p.toml")
+    (problem,) = e.value.problems
+    assert problem.key == f"hydrostatics.{column}" and "(row 1)" in problem.rule and "-7.6 and 45.6 m" in problem.rule

@@ -70,6 +70,10 @@ def check_vessel(ctx: FileCheck, v: m.Vessel) -> m.Vessel:
                 f"the table ends below the design draft {num(p.design_draft_m)} m: it must reach it "
                 "(is the table cut short?)")
 
+    # LCB and LCF within the hull's length (the audit judges them more closely; a value beyond the
+    # hull would otherwise reach it only through what it makes of the others, as "inf m away")
+    for col in ("lcb_m", "lcf_m"):
+        c.array(("hydrostatics", col), f"hydrostatics.{col}", getattr(h, col), b.x_range(p))
     ls = v.lightship
     c.one(("lightship", "mass_t"), "lightship.mass_t", ls.mass_t, b.lightship_mass_range(v))
     # the items' mass range (table's greatest displacement less the lightship) and the default
