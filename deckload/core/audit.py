@@ -364,7 +364,7 @@ class _Audit:
     def hydrostatics(self):
         h = self.v.hydrostatics
         L, B, rho = self.L, self.B, self.rho
-        T, disp, tpc, mctc, kmt = h.draft_m, h.displacement_t, h.tpc_t_cm, h.mctc_tm_cm, h.kmt_m
+        T, disp, tpc, kmt = h.draft_m, h.displacement_t, h.tpc_t_cm, h.kmt_m
         look = "the booklet's hydrostatic particulars table"
         hp = ("hydrostatics",)
 
