@@ -35,3 +35,17 @@ def demo_departure():
 def trawler_vessel() -> Vessel:
     """The Demo Trawler as ``load_profile(paths.TRAWLER_PROFILE)`` reads it."""
     return load_profile(paths.TRAWLER_PROFILE)
+
+
+def copy_of_demo(folder, stem: str):
+    """A copy of a demo vessel's browsable files (``vessel_profiles/<stem>*``: the profile, its
+    CSV tables or hull geometry, its stock conditions) in ``folder``, made if need be, for tests
+    that change or write beside them; the copied profile's path."""
+    import shutil
+    from pathlib import Path
+
+    folder = Path(folder)
+    folder.mkdir(parents=True, exist_ok=True)
+    for f in (Path(__file__).resolve().parent.parent / "vessel_profiles").glob(f"{stem}*"):
+        (shutil.copytree if f.is_dir() else shutil.copy)(f, folder / f.name)
+    return folder / f"{stem}.toml"

@@ -13,8 +13,6 @@ from __future__ import annotations
 
 import dataclasses
 import json
-import shutil
-from pathlib import Path
 
 import pytest
 
@@ -24,9 +22,8 @@ from deckload.core.model import ExtraCriterion
 from deckload.core.stability import evaluate
 from deckload.report import verdict_format as vf
 from deckload.ui import entry
+from demo_vessels import copy_of_demo
 from vessel_factories import barge_at
-
-PROFILES = Path(__file__).resolve().parent.parent / "vessel_profiles"
 
 
 @pytest.fixture
@@ -34,8 +31,8 @@ def capsizing_trawler(tmp_path):
     """The demo trawler on the grounds with 24 t hung 3.5 m to starboard 4 m above the keel: GM fluid
     stays positive (0.70 m) but the list the TCG asks for lies where GZ has already turned down, so GZ
     heeling to starboard is negative at every angle of her KN tables, which end at 60°."""
-    for p in PROFILES.iterdir():
-        (shutil.copytree if p.is_dir() else shutil.copy)(p, tmp_path / p.name)
+    copy_of_demo(tmp_path, "demo_islander")  # (for the marks: the trawler has none)
+    copy_of_demo(tmp_path, "demo_trawler")
     cond = tmp_path / "demo_trawler.grounds.condition.toml"
     cond.write_text(cond.read_text(encoding="utf-8") + '\n[[deck_item]]\nname = "Test weight"\nmass_t = 24.0\n'
                     "lcg_m = 9.0\nvcg_m = 4.0\ntcg_m = 3.5\n", encoding="utf-8")

@@ -10,14 +10,12 @@ from __future__ import annotations
 
 import hashlib
 import os
-import shutil
 from pathlib import Path
 
 import pytest
 
 from deckload.cli.main import main
-
-PROFILES = Path(__file__).resolve().parent.parent / "vessel_profiles"
+from demo_vessels import copy_of_demo
 
 
 @pytest.fixture
@@ -31,21 +29,13 @@ def logdir(tmp_path, monkeypatch):
 @pytest.fixture
 def trawler(tmp_path) -> Path:
     """A copy of the demo trawler (profile, CSV tables, stock conditions) in a folder of its own."""
-    d = tmp_path / "vp"
-    d.mkdir()
-    for f in PROFILES.glob("demo_trawler*"):
-        (shutil.copytree if f.is_dir() else shutil.copy)(f, d / f.name)
-    return d / "demo_trawler.toml"
+    return copy_of_demo(tmp_path / "vp", "demo_trawler")
 
 
 @pytest.fixture
 def islander(tmp_path) -> Path:
     """A copy of the demo islander with her hull geometry file and stock conditions."""
-    d = tmp_path / "vi"
-    d.mkdir()
-    for f in PROFILES.glob("demo_islander*"):
-        shutil.copy(f, d / f.name)
-    return d / "demo_islander.toml"
+    return copy_of_demo(tmp_path / "vi", "demo_islander")
 
 
 def snapshot(*folders: Path) -> dict[str, str]:

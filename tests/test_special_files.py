@@ -11,7 +11,6 @@ of hanging the suite.
 from __future__ import annotations
 
 import os
-import shutil
 import signal
 import socket
 from contextlib import contextmanager
@@ -20,6 +19,7 @@ from pathlib import Path
 import pytest
 
 from deckload.cli.main import main
+from demo_vessels import copy_of_demo
 
 PROFILES = Path(__file__).resolve().parent.parent / "vessel_profiles"
 LIMIT_S = 20.0
@@ -58,11 +58,7 @@ def folders(tmp_path, monkeypatch):
 @pytest.fixture
 def trawler(tmp_path) -> Path:
     """A copy of the demo trawler (profile, CSV tables, stock conditions) in a folder of its own."""
-    d = tmp_path / "vp"
-    d.mkdir()
-    for f in PROFILES.glob("demo_trawler*"):
-        (shutil.copytree if f.is_dir() else shutil.copy)(f, d / f.name)
-    return d / "demo_trawler.toml"
+    return copy_of_demo(tmp_path / "vp", "demo_trawler")
 
 
 NOT_REGULAR = "is not a regular file but a pipe"
