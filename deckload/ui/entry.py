@@ -322,7 +322,22 @@ def hold_from_text(condition: Condition, hold: Hold, text: str, vessel: Vessel |
     ``vessel`` the physical bound of one item's mass (:func:`deckload.core.bounds.item_mass_range`)."""
     high = bounds.item_mass_range(vessel).high if vessel is not None else None
     mass = parse_number(text, f"{hold.id} cargo mass", "t", low=0.0, high=high)
-    if hold.max_mass_t is not None and mass > hold.max_mass_t:
+    return _hold_mass(condition, hold, mass)
+
+
+def nudge_hold(condition: Condition, hold: Hold, step_t: float, vessel: Vessel | None = None) -> Condition:
+    """One nudge of a hold's cargo mass (:func:`nudge_mass`, bounded as :func:`hold_from_text` is).
+    A step down from a mass over the structural limit (as a file may hold it, with its danger
+    warning) is taken: it moves towards the limit, and refusing it would leave the officer no way
+    down but retyping."""
+    load = next((h for h in condition.holds if h.hold_id == hold.id), None)
+    old = load.mass_t if load is not None else 0.0
+    mass = nudge_mass(old, step_t, hold.id, vessel)
+    return _hold_mass(condition, hold, mass, over_limit_ok=mass < old)
+
+
+def _hold_mass(condition: Condition, hold: Hold, mass: float, over_limit_ok: bool = False) -> Condition:
+    if hold.max_mass_t is not None and mass > hold.max_mass_t and not over_limit_ok:
         raise EntryError(f"{hold.id}: {mass:g} t is over the hold's structural limit {hold.max_mass_t:g} t.")
     if mass == 0:
         return condition.without_hold(hold.id)
@@ -332,11 +347,19 @@ def hold_from_text(condition: Condition, hold: Hold, text: str, vessel: Vessel |
     return condition.with_hold(HoldLoad(hold.id, mass, old.stowage_m3_t, old.lcg_m, old.vcg_m, old.tcg_m, old.description))
 
 
-def nudge_mass(mass_t: float, step_t: float, what: str) -> float:
-    """One nudge of a mass; a step below zero stops at empty (0 t)."""
+def nudge_mass(mass_t: float, step_t: float, what: str, vessel: Vessel | None = None) -> float:
+    """One nudge of a mass; a step below zero stops at empty (0 t).  With ``vessel``, a step up
+    past the physical bound of one item's mass (:func:`deckload.core.bounds.item_mass_range`, as
+    every form and file holds it) is refused: the saved working condition would be a file the
+    reader refuses."""
     if mass_t <= 0 and step_t < 0:
         raise EntryError(f"{what} is already empty.")
-    return max(0.0, round(mass_t + step_t, 6))
+    mass = max(0.0, round(mass_t + step_t, 6))
+    if vessel is not None and step_t > 0:
+        why = bounds.item_mass_range(vessel).rule(mass)
+        if why:
+            raise EntryError(f"{what}: {mass:g} t is {why}.")
+    return mass
 
 
 @frozen

@@ -363,17 +363,15 @@ class LoadingScreen(Screen[None]):
                       run=("tank", tank.id))
         elif what == "hold":
             hold = s.vessel.hold(ident)
-            load = next((h for h in s.condition.holds if h.hold_id == ident), None)
-            self._try(lambda: entry.hold_from_text(
-                s.condition, hold, f"{entry.nudge_mass(load.mass_t if load else 0.0, step, hold.id)}", s.vessel),
-                f"{hold.id} {step:+d} t", "cargo", {"hold": hold.id, "nudge_t": step}, run=("hold", hold.id))
+            self._try(lambda: entry.nudge_hold(s.condition, hold, float(step), s.vessel),
+                      f"{hold.id} {step:+d} t", "cargo", {"hold": hold.id, "nudge_t": step}, run=("hold", hold.id))
         elif what in ("deck", "const"):
             deck = what == "deck"
             items = s.condition.deck_items if deck else s.condition.constants
             item = items[ident]
 
             def build() -> Condition:
-                new = dataclasses.replace(item, mass_t=entry.nudge_mass(item.mass_t, step, item.name))
+                new = dataclasses.replace(item, mass_t=entry.nudge_mass(item.mass_t, step, item.name, s.vessel))
                 return self._with_items(deck, entry.replace_at(items, ident, new))
 
             self._try(build, f"{item.name} {step:+d} t", "cargo" if deck else "edit", {"item": item.name, "nudge_t": step})
@@ -678,10 +676,24 @@ class LoadingScreen(Screen[None]):
             except (ProfileError, OSError) as exc:
                 self.say(f"Cannot open {named.path}: {getattr(exc, 'strerror', None) or exc}", ok=False)
                 return
-            self.commit(condition, f"Opened “{condition.name}” ({named.origin}, {named.path.name})", "edit",
+            kept = self.keep_previous(f"“{condition.name}” not opened")
+            if kept is False:
+                return
+            self.commit(condition, f"Opened “{condition.name}” ({named.origin}, {named.path.name})"
+                        + (f"; the edited one kept as {kept.name}" if kept else ""), "edit",
                         {"opened": str(named.path)}, mark=False)
 
         self.app.push_screen(OpenConditionScreen(found), done)
+
+    def keep_previous(self, not_done: str):
+        """:meth:`Session.keep_previous`, saying so when it cannot be written: the file kept, None
+        when there was nothing to keep, False when the replacement must not go ahead."""
+        try:
+            return self.session.keep_previous()
+        except OSError as exc:
+            self.say(f"{not_done}: the edited working condition could not be kept "
+                     f"({getattr(exc, 'strerror', None) or exc})", ok=False)
+            return False
 
     def action_print_report(self) -> None:
         from deckload.ui.conditions import ReportWritten, open_in_browser, print_session
