@@ -55,6 +55,16 @@ def _checkout_root(start: Path) -> Path | None:
     return None
 
 
+def free_name(path: Path, suffix: str) -> Path:
+    """``path`` + ``suffix``, or + ``suffix.2``, ``.3`` … : a name that holds nothing yet."""
+    candidate = path.with_name(path.name + suffix)
+    n = 1
+    while candidate.exists():
+        n += 1
+        candidate = path.with_name(f"{path.name}{suffix}.{n}")
+    return candidate
+
+
 def data_home() -> Path:
     """Per-user data folder: $DECKLOAD_HOME, else $XDG_DATA_HOME/deckload, else ~/.local/share/deckload."""
     if os.environ.get("DECKLOAD_HOME"):

@@ -60,7 +60,7 @@ def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir
         result = _usable(vessel, condition, condition_path)
         if saved.is_file():
             # The named condition becomes the working one; the old working file is kept.
-            aside = _free_name(saved, ".previous")
+            aside = paths.free_name(saved, ".previous")
             saved.replace(aside)
             notices.append(f"The previous working condition was kept as {aside}.")
         return Start(vessel, condition, notices, result)
@@ -69,7 +69,7 @@ def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir
             condition = load_condition(saved, vessel)
             return Start(vessel, condition, notices, _usable(vessel, condition, saved))
         except (ProfileError, OSError) as exc:
-            aside = _free_name(saved, ".unreadable")
+            aside = paths.free_name(saved, ".unreadable")
             saved.replace(aside)
             notices.append(f"Saved working condition could not be read and was moved to {aside}: {exc}")
     start = paths.demo_start_condition(profile_path)
@@ -125,23 +125,13 @@ def _tidy_working_folder(work_dir: Path, saved: Path, vessel: Vessel) -> list[st
             except (ProfileError, OSError):
                 tmp.unlink(missing_ok=True)
                 continue
-            aside = _free_name(saved, ".interrupted")
+            aside = paths.free_name(saved, ".interrupted")
             tmp.replace(aside)
             notices.append(f"A save was interrupted before it finished; its copy was kept as {aside}. The "
                            "condition shown is the last one saved completely: compare them.")
         else:
             tmp.unlink(missing_ok=True)
     return notices
-
-
-def _free_name(path: Path, suffix: str) -> Path:
-    """``path`` + ``suffix``, or + ``suffix.2``, ``.3`` … : a name that holds nothing yet."""
-    candidate = path.with_name(path.name + suffix)
-    n = 1
-    while candidate.exists():
-        n += 1
-        candidate = path.with_name(f"{path.name}{suffix}.{n}")
-    return candidate
 
 
 def create_app(

@@ -290,6 +290,24 @@ class Session:
         c = self.condition
         return f"{c.name} (modified from {c.modified_from})" if c.modified_from else c.name
 
+    def keep_previous(self) -> Path | None:
+        """Before the working condition gives way to another (opened, or restored from the log):
+        an edited one (``modified_from`` set: it is in no file of its own) is written beside the
+        working file as ``.previous`` (``.previous.2`` …), as ``deckload open`` keeps the working
+        file it replaces.  Undo brings it back within the session; this keeps it after.  Returns
+        the file written, or None when there is nothing to keep; OSError when it cannot be
+        written (the caller then replaces nothing)."""
+        if self.save_path is None or not self.condition.modified_from:
+            return None
+        from deckload.io.atomicfile import write_atomic
+        from deckload.io.paths import free_name
+        from deckload.io.profiles import dump_condition
+
+        aside = free_name(self.save_path, ".previous")
+        aside.parent.mkdir(parents=True, exist_ok=True)
+        write_atomic(aside, dump_condition(self.condition))
+        return aside
+
     def save_as(self, name: str, path: Path) -> list[str]:
         """Write the working condition under ``name`` to ``path`` (atomically) and make it the
         working one, as one undoable step: it is then that condition, unmodified.
