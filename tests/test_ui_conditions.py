@@ -158,3 +158,49 @@ async def test_name_save_print_and_open_from_the_screen(app, tmp_path):
     changes = [e.change_text for e in book.entries()]
     book.close()
     assert any("saved as" in c and "Dock water trial" in c for c in changes)
+
+
+async def test_opening_another_condition_keeps_an_edited_working_one_beside_it(app, tmp_path):
+    """Ctrl+O replaces the working condition: an edited one (in no file of its own; nobody signed
+    on, so not in the log either) is kept as the working file's .previous; an unedited one, which
+    is its own file, is not copied."""
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.press("d")
+        await pilot.pause()
+        await pilot.press(*"1.010", "enter")
+        await pilot.pause()
+        edited = app.session.condition
+        assert edited.modified_from and edited.water_density_t_m3 == 1.010
+
+        async def open_titled(word: str) -> None:
+            await pilot.press("ctrl+o")
+            await pilot.pause()
+            listed = app.screen.query_one("#open-list")
+            listed.highlighted = next(i for i in range(listed.option_count)
+                                      if word in str(listed.get_option_at_index(i).prompt))
+            await pilot.press("enter")
+            await pilot.pause()
+
+        await open_titled("Arrival")
+        assert app.session.condition.name.startswith("Arrival")
+        work = app.session.save_path
+        kept = work.with_name(work.name + ".previous")
+        assert load_condition(kept, app.session.vessel) == edited
+        assert f"the edited one kept as {kept.name}" in " ".join(panel(app, "status").split())
+        await open_titled("Departure")  # the arrival, unedited, is in its own file: nothing more kept
+        assert sorted(p.name for p in work.parent.iterdir() if ".previous" in p.name) == [kept.name]
+
+
+@pytest.mark.parametrize("width, key", [(8, "ctrl+o"), (4, "ctrl+o"), (6, "ctrl+p"), (4, "ctrl+p")])
+async def test_a_list_of_choices_opens_on_a_terminal_too_narrow_for_its_frame(app, width, key):
+    """On 8 columns or fewer the conditions' list (6 or fewer the command palette's) had no width
+    left for its text, and textual's layout of its lines raised ValueError: the screen crashed
+    (exit 3).  deckload.tcss keeps every OptionList 16 columns wide; the terminal cuts it."""
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.resize_terminal(width, 10)
+        await pilot.pause()
+        await pilot.press(key)
+        await pilot.pause()
+        await pilot.press("down", "escape")
+        await pilot.pause()
+        assert app._exception is None and app.is_running

@@ -4,6 +4,7 @@ from __future__ import annotations
 
 import pytest
 
+from deckload.core.model import HoldLoad
 from deckload.io import paths
 from deckload.io.profiles import load_condition
 from deckload.ui.dialogs import PromptForm
@@ -160,3 +161,82 @@ async def test_restoring_a_logged_condition_is_one_undoable_change_logged_as_res
         assert kinds[-1] == "restore"
         await pilot.press("u")
         assert app.session.condition == c0
+
+
+async def test_restoring_from_the_log_keeps_an_edited_working_condition_beside_it(app):
+    """The edited condition a restore replaces is in no file of its own: it is kept as the working
+    file's .previous, as ``deckload open`` keeps the working file it replaces (undo alone would
+    lose it when the session ends)."""
+    from deckload.ui.log_screen import LogScreen
+
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.press("o", *"jm", "enter")
+        await pilot.press("f")  # logged with its condition
+        app.session.flush()
+        c1 = app.session.condition
+        await pilot.press("minus", "minus")
+        await pilot.pause()
+        edited = app.session.condition
+        assert edited.modified_from and edited != c1
+        await pilot.press("l")
+        assert isinstance(app.screen, LogScreen)
+        await pilot.press("end")
+        await pilot.press("r", "r")
+        await pilot.pause()
+        assert app.session.condition == c1
+        kept = app.session.save_path.with_name(app.session.save_path.name + ".previous")
+        assert load_condition(kept, app.session.vessel) == edited
+
+
+@pytest.mark.parametrize("kind", ["deck", "const"])
+async def test_a_nudge_never_takes_an_item_past_what_a_file_may_hold(app, kind):
+    """+ on a deck load or constant already at the greatest mass one item may have (the table's
+    greatest displacement less the lightship, deckload.core.bounds.item_mass_range) is refused: the
+    saved working condition would be a file the reader refuses, set aside as unreadable at the
+    next start.  The working file stays one that reads back."""
+    import dataclasses
+
+    from deckload.core import bounds
+
+    top = bounds.item_mass_range(app.session.vessel).high
+    async with app.run_test(size=(120, 40)) as pilot:
+        s = app.session
+        items = s.condition.deck_items if kind == "deck" else s.condition.constants
+        at_top = dataclasses.replace(items[0], mass_t=top)
+        field = "deck_items" if kind == "deck" else "constants"
+        app.loading_screen.commit(s.condition.replace(**{field: (at_top, *items[1:])}), "to the top", "edit")
+        await pilot.pause()
+        assert app.screen.query_one(LoadBoard).select((kind, 0))
+        await pilot.press("plus")
+        await pilot.pause()
+        items = s.condition.deck_items if kind == "deck" else s.condition.constants
+        assert items[0].mass_t == top
+        assert "above the physical limit" in app.screen.query_one("#status", LinePanel).plain()
+        await pilot.press("minus")
+        await pilot.pause()
+        s.flush()
+        back = load_condition(s.save_path, s.vessel)
+        assert (back.deck_items if kind == "deck" else back.constants)[0].mass_t == top - 1.0
+
+
+async def test_a_hold_steps_down_by_nudges_from_any_mass(app):
+    """− on a hold whose mass has decimals (1.00001 t) gives 0.00001 t, which the old text round
+    trip wrote as '1e-05' and refused as not a number; and from a mass over the structural limit
+    (which a file may hold, with its danger warning) − steps down towards it, while + and a typed
+    mass over it are still refused."""
+    hold = app.session.vessel.hold("H1")
+    async with app.run_test(size=(120, 40)) as pilot:
+        assert app.screen.query_one(LoadBoard).select(("hold", "H1"))
+        await pilot.press("enter", *"1.00001", "enter", "minus")
+        await pilot.pause()
+        assert hold_mass(app, "H1") == pytest.approx(1e-05, abs=1e-12)
+        over = hold.max_mass_t + 5.0
+        s = app.session
+        app.loading_screen.commit(s.condition.with_hold(HoldLoad("H1", over)), "over the limit", "cargo")
+        await pilot.pause()
+        await pilot.press("plus")
+        await pilot.pause()
+        assert hold_mass(app, "H1") == over and "structural limit" in app.screen.query_one("#status", LinePanel).plain()
+        await pilot.press("minus")
+        await pilot.pause()
+        assert hold_mass(app, "H1") == over - 1.0
