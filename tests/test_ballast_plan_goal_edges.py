@@ -49,3 +49,15 @@ def test_for_trim_or_list_nearer_means_closer_to_the_target_beyond_noise(quantit
     assert not _nearer(2.0, 0.0, g)  # higher is not nearer for a trim or list: both are 1.0 away
     level = Goal(quantity, 0.0, 0.1)
     assert not _nearer(1.0 - 1e-9, 1.0, level)  # exactly 1e-9 nearer (the same float both ways): the edge
+
+
+@pytest.mark.parametrize("typed", ["gm 0_8", "trim 1_0", "list ٣", "gm ０.８", "gm 1e1", "gm nan", "list inf"])
+def test_the_goal_is_read_as_every_other_typed_number(typed):
+    """The planner's goal went through Python's float(), which reads '0_8' as 8, '1e1' as 10 and
+    digits of other scripts; every other field refuses them (deckload.ui.entry.parse_number)."""
+    from deckload.ui.entry import EntryError
+    from deckload.ui.planner import parse_goal
+
+    with pytest.raises(EntryError, match="goal"):
+        parse_goal(typed)
+    assert parse_goal("gm 0.8") == Goal("gm", 0.8, 0.001) and parse_goal("list -2").target == -2.0

@@ -32,11 +32,10 @@ def parse_goal(text: str) -> Goal:
     words = text.replace("=", " ").split()
     if len(words) != 2 or words[0].lower() not in TOLERANCE:
         raise EntryError("Goal: list 0 (degrees, + stbd) · trim 0.5 (m, + by the stern) · gm 0.8 (GM fluid at least, m).")
-    try:
-        value = float(words[1])
-    except ValueError:
-        raise EntryError(f"{words[1]!r} is not a number.") from None
     q = words[0].lower()
+    # the one reader of typed numbers (entry.parse_number): '0_8', '1e1' or digits of another
+    # script are refused here as in every other field, not read by Python's float() as 8, 10, 3
+    value = entry.parse_number(words[1], f"{q} goal")
     bound = {"list": 30.0, "trim": 10.0, "gm": 10.0}[q]
     if not -bound <= value <= bound:
         raise EntryError(f"A {q} of {value:g} is not a goal for this planner (within ±{bound:g}).")
