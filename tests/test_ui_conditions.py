@@ -204,3 +204,17 @@ async def test_a_list_of_choices_opens_on_a_terminal_too_narrow_for_its_frame(ap
         await pilot.press("down", "escape")
         await pilot.pause()
         assert app._exception is None and app.is_running
+
+
+@pytest.mark.parametrize("typed", ["departure", "ARRIVAL", "Working", "screen", "Departure full stores"])
+def test_a_saved_name_never_hides_behind_a_stock_or_the_working_condition(demo, tmp_path, typed):
+    """'deckload calc demo departure' finds the stock departure first and 'working' the screen's
+    working file: a condition saved under such a name could never be named on the command line."""
+    from deckload.ui.conditions import check_name, save_target
+    from deckload.ui.entry import EntryError
+
+    app = create_app(*demo, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", profile_path=paths.DEMO_PROFILE)
+    _, taken = save_target(app.session)
+    with pytest.raises(EntryError):
+        check_name(typed, taken)
+    assert check_name("Departure after bunkering", taken) == "Departure after bunkering"

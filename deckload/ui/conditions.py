@@ -17,7 +17,7 @@ from textual.containers import Vertical
 from textual.widgets import Input, Label, OptionList, Static
 from textual.widgets.option_list import Option
 
-from deckload.io.condition_files import MAX_NAME_CHARS, Named, name_key
+from deckload.io.condition_files import MAX_NAME_CHARS, WORKING_KEYS, Named, name_key
 from deckload.io.textsafe import control_char
 from deckload.ui.dialogs import Form
 from deckload.ui.entry import EntryError
@@ -33,9 +33,12 @@ def check_name(text: str, stock_titles: set[str]) -> str:
         raise EntryError(f"At most {MAX_NAME_CHARS} characters ({len(name)} typed).")
     if control_char(name) is not None:
         raise EntryError("Type plain text (no control characters).")
-    if name.casefold() in {t.casefold() for t in stock_titles}:
+    if name.casefold() in {t.casefold() for t in stock_titles} or name_key(name) in {name_key(t) for t in stock_titles}:
         raise EntryError(f"\u201c{name}\u201d is a stock condition of the vessel: choose a name of your own "
                          "(the stock file is never overwritten).")
+    if name.casefold() in WORKING_KEYS:
+        # the command line's name for the screen's working condition: a saved one would never be found by it
+        raise EntryError(f"\u201c{name}\u201d names the working condition on the command line: choose another name.")
     return name
 
 
@@ -131,13 +134,15 @@ def open_in_browser(path: Path) -> str | None:
 
 
 def save_target(session) -> tuple[Path | None, set[str]]:
-    """The folder a name is saved in and the stock conditions' titles (which it may not take)."""
+    """The folder a name is saved in and the stock conditions' titles and short names (which it may
+    not take: the command line finds a stock condition first by either)."""
     from deckload.io import paths
     from deckload.io.condition_files import stock
 
     if session.work_dir is None or session.save_path is None:
         return None, set()
-    titles = {n.title for n in stock(session.profile_path)} if session.profile_path is not None else set()
+    found = stock(session.profile_path) if session.profile_path is not None else []
+    titles = {n.title for n in found} | {n.key for n in found}
     return paths.saved_conditions_dir(session.work_dir, session.vessel.particulars.name), titles
 
 
