@@ -61,3 +61,15 @@ def test_the_goal_is_read_as_every_other_typed_number(typed):
     with pytest.raises(EntryError, match="goal"):
         parse_goal(typed)
     assert parse_goal("gm 0.8") == Goal("gm", 0.8, 0.001) and parse_goal("list -2").target == -2.0
+
+
+def test_a_tiny_step_of_the_search_is_pumped_not_refused_as_text():
+    """The planner pumps through the transfer form's own reader; a mass of 1e-09 t was written as
+    '1e-09t', which the reader refuses as not an amount, and the search lost that step."""
+    from deckload.ui import entry
+    from demo_vessels import demo_departure
+
+    v, c = demo_departure()
+    before = entry.fill_volume_m3(v.tank("FO1S"), c.tank_fill("FO1S"))
+    after = entry.planner_move(v, c, "FO1P", "FO1S", 1e-09)
+    assert entry.fill_volume_m3(v.tank("FO1S"), after.tank_fill("FO1S")) > before

@@ -437,8 +437,12 @@ def density_from_text(condition: Condition, text: str) -> Condition:
 def planner_move(vessel: Vessel, condition: Condition, from_id: str, to_id: str, mass_t: float) -> Condition:
     """The transfer form's own pumping, for the planner (deckload.core.ballast_plan): ValueError
     when it cannot be made."""
+    from decimal import Decimal
+
+    # the shortest digits that give mass_t back, written without an exponent ('1e-09' is not a
+    # number to the form's reader: the search would lose that step)
     try:
-        return plan_transfer(vessel, condition, from_id, to_id, f"{mass_t!r}t").condition
+        return plan_transfer(vessel, condition, from_id, to_id, f"{Decimal(repr(mass_t)):f}t").condition
     except EntryError as exc:
         raise ValueError(str(exc)) from None
 
