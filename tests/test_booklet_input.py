@@ -779,3 +779,24 @@ def test_an_ullage_or_an_offset_sounding_taken_trimmed_is_corrected_on_the_level
     assert plain != next(t for t in even.tanks if t.id == "DB2P").volume_m3  # the trim does change it
     # 0.7 = 1.2 − 0.5 and 0.4 = 0.5 − 0.1 in binary only to round-off: 1e-9 relative
     assert by_ullage == pytest.approx(plain, rel=1e-9) and by_offset == pytest.approx(plain, rel=1e-9)
+
+
+@pytest.mark.parametrize("page, old, new", [
+    ("kn.csv", "100.0,0.000,0.368,", "100.0,0.000,٠.٣٦٨,"),       # Arabic-Indic digits in a cell
+    ("kn.csv", ",kn_5,", ",kn_５,"),                               # a full-width digit in a heel
+    ("hydrostatics.csv", "1.60,99.2,", "1.60,９９.2,"),
+])
+def test_a_csv_number_takes_the_digits_0_to_9_only(tmp_path, page, old, new):
+    """Python's float() and re's \\d read the digits of every script: '٠.٣٦٨' as 0.368, 'kn_５' as
+    heel 5.  A booklet page is typed with 0–9; anything else is a typing slip to name, as TOML's
+    own grammar and the screen's reader (deckload.ui.entry) already have it."""
+    from demo_vessels import copy_of_demo
+
+    profile = copy_of_demo(tmp_path, "demo_trawler")
+    f = tmp_path / "demo_trawler" / page
+    text = f.read_text(encoding="utf-8")
+    assert old in text
+    f.write_text(text.replace(old, new, 1), encoding="utf-8")
+    with pytest.raises(ProfileError) as e:
+        load_profile(profile)
+    assert any(p.file.endswith(page) for p in e.value.problems)

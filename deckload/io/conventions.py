@@ -28,7 +28,7 @@ from deckload.io.tomlcheck import MISSING, Table, is_number, num, toml_type
 
 DATUMS = ("AP", "midships", "FP")
 DATUM_WORDS = {"AP": "the aft perpendicular", "midships": "midships", "FP": "the forward perpendicular"}
-SIDE = re.compile(r"^\s*(?P<num>[+-]?(?:\d+\.?\d*|\.\d+))\s*(?P<side>[PS])?\s*$", re.IGNORECASE)
+SIDE = re.compile(r"^\s*(?P<num>[+-]?(?:\d+\.?\d*|\.\d+))\s*(?P<side>[PS])?\s*$", re.IGNORECASE | re.ASCII)
 CENTRELINE = ("CL", "C/L", "C")
 
 

@@ -22,10 +22,11 @@ from typing import Any
 
 from deckload.io.tomlcheck import MISSING, Table
 
-NUMBER = re.compile(r"^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$")
-"""A number as a spreadsheet writes it: decimal point, optional exponent (no '1_000', 'nan', 'inf')."""
+NUMBER = re.compile(r"^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$", re.ASCII)
+"""A number as a spreadsheet writes it: decimal point, optional exponent (no '1_000', 'nan', 'inf'),
+digits 0–9 only (not those of other scripts or full-width ones, which ``float`` would also read)."""
 
-KN_COLUMN = re.compile(r"^kn_(\d+(?:\.\d+)?)$")
+KN_COLUMN = re.compile(r"^kn_(\d+(?:\.\d+)?)$", re.ASCII)
 
 
 def _cell(text: str) -> Any:
@@ -228,7 +229,7 @@ def attach_kn_csv(t: Table) -> bool:
     return True
 
 
-TRIM_COLUMN = re.compile(r"^(corr|volume)_([+-]?\d+(?:\.\d+)?)$")
+TRIM_COLUMN = re.compile(r"^(corr|volume)_([+-]?\d+(?:\.\d+)?)$", re.ASCII)
 TRIM_KINDS = {"corr": "sounding_correction_m", "volume": "volume_m3"}
 
 
