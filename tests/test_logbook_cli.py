@@ -263,10 +263,11 @@ def test_report_of_each_demo_condition_says_whether_it_fits_one_a4_page(demo, na
     assert doc.count("<svg") == 2  # the GZ curve and the weather criterion
 
 
-def test_a_malformed_ship_offset_is_a_message_not_a_traceback(monkeypatch, capsys):
+@pytest.mark.parametrize("offset", ["+2", "+٠٣:٠٠"])  # (digits of another script are not 0–9)
+def test_a_malformed_ship_offset_is_a_message_not_a_traceback(monkeypatch, capsys, offset):
     from deckload.cli.main import main
 
-    monkeypatch.setenv("DECKLOAD_SHIP_OFFSET", "+2")
+    monkeypatch.setenv("DECKLOAD_SHIP_OFFSET", offset)
     assert main(["report", "demo", "arrival", "--txt"]) == 2
     err = capsys.readouterr().err
     assert "DECKLOAD_SHIP_OFFSET" in err and "+HH:MM" in err and "Traceback" not in err

@@ -217,7 +217,7 @@ def head_disagreement(head: dict | None, lines: list[bytes]) -> str | None:
 def find_anchor(lines: list[bytes], anchor_text: str) -> tuple[int, int] | None:
     """Where a paper copy's anchor (a SHA-256, or its first 12+ hex digits, optionally as
     'N:HASH' or '#N HASH') is in the log: (line number, entry number), else None."""
-    m = re.fullmatch(r"\s*(?:#?(\d+)\s*[:\s]\s*)?([0-9a-fA-F]{12,64})\s*", anchor_text)
+    m = re.fullmatch(r"\s*(?:#?(\d+)\s*[:\s]\s*)?([0-9a-fA-F]{12,64})\s*", anchor_text, re.ASCII)
     if m is None:
         raise ValueError(f"anchor {anchor_text!r} is not a SHA-256 (12 to 64 hex digits), optionally after 'N:'")
     want_seq = int(m.group(1)) if m.group(1) else None

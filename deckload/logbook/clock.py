@@ -11,7 +11,7 @@ import os
 import re
 from datetime import datetime, timedelta, timezone
 
-_OFFSET = re.compile(r"([+-])(\d{2}):(\d{2})")
+_OFFSET = re.compile(r"([+-])(\d{2}):(\d{2})", re.ASCII)
 
 
 def utc_now() -> datetime:
