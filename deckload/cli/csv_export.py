@@ -141,8 +141,6 @@ def profile_tables(v: m.Vessel, rd: Reading) -> list[tuple[str, str, str, list[s
 
 def trimmed_tables(v: m.Vessel, rd: Reading) -> list[tuple[str, str, str, list[str], list[list]]]:
     """The tables at trims other than 0 (``[[hydrostatics_at_trim]]``, ``[[cross_curves_at_trim]]``)."""
-    from deckload.io.csvtables import fmt_number
-
     tt = v.trimmed
     if tt is None:
         return []

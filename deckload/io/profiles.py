@@ -32,7 +32,7 @@ from typing import Any
 
 import numpy as np
 
-from deckload.io.conventions import DATUMS, Frame, read_frame, tcg_array, tcg_num
+from deckload.io.conventions import Frame, read_frame, tcg_array, tcg_num
 from deckload.core import model as m
 from deckload.core.gz import STEP_DEG as GZ_STEP_DEG
 from deckload.core.gz import grid_points
