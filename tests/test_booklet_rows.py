@@ -121,8 +121,17 @@ def test_no_downflooding_value_is_a_fail_with_a_note():
     r = dataclasses.replace(_result((MET,)), downflooding_angle_deg=None)
     (row,) = compare(r, {"downflooding_angle_deg": 50.0}, B_M)
     assert (row.deckload, row.passed) == (None, False)
-    assert row.note == "deckload has no value here (no downflooding data?)"
+    assert row.note == "deckload has no value here: the profile gives no downflooding angles"
     assert row.difference is None
+
+
+def test_no_list_where_gz_is_never_positive_is_a_fail_saying_why():
+    """A booklet's list against a condition with no position of equilibrium (list None): a fail,
+    and the note says why there is no value, not that downflooding data are missing."""
+    r = dataclasses.replace(_result((MET,)), list_deg=None)
+    (row,) = compare(r, {"list_deg": 2.0}, B_M)
+    assert (row.deckload, row.passed) == (None, False)
+    assert row.note == "no list: GZ never becomes positive on the side she heels to (no position of equilibrium)"
 
 
 def test_a_value_that_is_not_finite_never_passes():

@@ -124,6 +124,13 @@ class Row:
         return None if self.deckload is None else self.deckload - self.booklet
 
 
+_NO_VALUE = {
+    "list_deg": "no list: GZ never becomes positive on the side she heels to (no position of equilibrium)",
+    "downflooding_angle_deg": "deckload has no value here: the profile gives no downflooding angles",
+}
+"""Why a result holds no value for a booklet quantity (None in the result)."""
+
+
 def compare(result: Result, expected: dict, breadth_m: float) -> tuple[Row, ...]:
     """Rows for every booklet value given in ``expected``.
 
@@ -138,7 +145,7 @@ def compare(result: Result, expected: dict, breadth_m: float) -> tuple[Row, ...]
         base = float(expected[key])
         got = getattr(result, _FROM_RESULT[key])
         got = None if got is None else float(got)
-        note = "" if got is not None else "deckload has no value here (no downflooding data?)"
+        note = "" if got is not None else _NO_VALUE.get(key, "deckload has no value here")
         if key == "trim_m":
             aft = float(expected.get("draft_aft_m", result.draft_aft_m))
             fwd = float(expected.get("draft_fwd_m", result.draft_fwd_m))
