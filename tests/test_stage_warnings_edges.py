@@ -5,6 +5,7 @@ rises above zero.  Box barge 40 × 10 × 4 m at T = 2 m (Δ = 820 t): KM = KB + 
 from __future__ import annotations
 
 import numpy as np
+import pytest
 
 from deckload.core.stability import evaluate
 from vessel_factories import barge_at
@@ -50,3 +51,23 @@ def test_actual_free_surface_rule_is_a_caution():
     assert notes == [("free surface at actual levels (IS 2008 B 3.1.6): the B 3.1.3–3.1.4 allowance "
                       "for consumables is off", "caution")]
     assert not [w for w in evaluate(v, Condition(fs_rule="is2008")).warnings if w.code == "fs-rule-actual"]
+
+
+def test_an_entry_typed_twice_is_a_caution_and_two_alike_only_by_name_are_not():
+    """A constant or deck item alike in every field to another is counted twice (as the brief's
+    'a typing error passes unnoticed' asks to catch, it is named); two crates of one name at two
+    places are two crates."""
+    import dataclasses
+
+    from deckload.core.model import DeckItem, MassItem
+
+    v, c = barge_at(2.0, 3.0)
+    crew = MassItem("Crew", 1.2, 20.0, 6.0)
+    crate = DeckItem("Crate", 5.0, 10.0, 4.5, 0.0)
+    twice = dataclasses.replace(c, constants=(crew, crew), deck_items=(crate, dataclasses.replace(crate, lcg_m=12.0)))
+    r = evaluate(v, twice)
+    dup = [w for w in r.warnings if w.code == "duplicate-entry"]
+    assert [(w.message, w.severity) for w in dup] == [
+        ("two constants “Crew” alike in every field (1.2 t at the same place): both are counted; entered twice?",
+         "caution")]
+    assert r.displacement_t == pytest.approx(evaluate(v, c).displacement_t + 2 * 1.2 + 2 * 5.0)

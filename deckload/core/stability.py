@@ -422,7 +422,8 @@ def stage_warnings(vessel: Vessel, condition: Condition, weights: Weights, fs: F
     10 % of its limit; tanks in their worst slack band; a list over 2° (both thresholds
     deckload's own); the midships draft over the permitted load-line
     draft; deck loads per m² over the area's limit, item by item and area by area;
-    hold loads over the hold's limit.  Then the notes of stages 1–5 in order, then
+    hold loads over the hold's limit; two deck items or constants alike in every field.  Then the
+    notes of stages 1–5 in order, then
     GM fluid ≤ 0 (she lolls to the list's side), no equilibrium (GZ never positive),
     and the ``actual`` free-surface rule (the consumables' allowance is off).
     """
@@ -633,6 +634,15 @@ def _warnings(vessel, condition, tanks, criteria, items, heel, t_mid, allowed_dr
             if hold.max_mass_t is not None and it.mass_t > hold.max_mass_t:
                 out.append(Warning("hold-load", f"hold {hold.id}: {it.mass_t:.1f} t exceeds its limit of "
                                                 f"{hold.max_mass_t:.1f} t", "danger"))
+    # Two entries alike in every field are both counted; one typed or pasted twice doubles a weight
+    # without a sign (two crates of a name at two places are not alike: no caution).
+    for group, entries in (("deck item", condition.deck_items), ("constant", condition.constants)):
+        seen: set = set()
+        for e in entries:
+            if e in seen:
+                out.append(Warning("duplicate-entry", f"two {group}s “{e.name}” alike in every field ({e.mass_t:g} t "
+                                   "at the same place): both are counted; entered twice?", "caution"))
+            seen.add(e)
     return out
 
 
