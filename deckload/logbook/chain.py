@@ -106,7 +106,8 @@ def verify_lines(
         else:
             problems.append(
                 f"line {n + 1}: incomplete last line ({len(tail)} bytes, no line end) — torn by a power "
-                f"cut or cut short; opening the log for writing sets it aside in a side file"
+                f"cut or cut short; opening the log for writing sets it aside in a side file, unless the "
+                f"head record disagrees with the lines before it (then nothing more is recorded)"
             )
 
     if head is None:
