@@ -189,3 +189,22 @@ async def test_an_edited_line_is_marked_on_the_screen_as_it_opens(filled):
         await pilot.pause()
         status = str(app.screen.query_one("#log-status", Static).render())
         assert "CHAIN BROKEN (1 problem(s))" in status and "press v" in status
+
+
+async def test_a_filter_key_does_not_verify_the_log_again(filled, monkeypatch):
+    """The status line's chain check reads and hashes the whole log: it is made again when the
+    log or its head record changes on disk, not on every key that redraws the table."""
+    book, vessel, _ = filled
+    calls = []
+    real = book.verify
+    monkeypatch.setattr(book, "verify", lambda: calls.append(1) or real())
+    app = Host(book, vessel)
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        assert len(calls) == 1
+        await pilot.press("k", "k", "c")
+        await pilot.pause()
+        assert len(calls) == 1
+        book.append(kind="remark", by="AB", change_text="a remark", change_data={}, result=None, condition=None)
+        app.screen.refresh_entries()
+        assert len(calls) == 2

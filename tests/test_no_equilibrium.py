@@ -108,10 +108,15 @@ def test_the_planner_neither_starts_from_nor_passes_through_no_equilibrium(capsi
     with pytest.raises(ValueError, match="no position of equilibrium as she is"):
         ballast_plan.plan(v, c, goal, tanks, move=lambda *a: entry.planner_move(v, *a),
                           room=lambda *a: entry.planner_room(v, *a), evaluate=evaluate)
-    # passing through: a trial condition with no equilibrium has no list for the search, which
-    # takes that ValueError as a step it cannot make
+    # a condition with no equilibrium has no list to give a list goal
     with pytest.raises(ValueError, match="no position of equilibrium"):
         ballast_plan.value_of(evaluate(v, c), goal)
+    # passing through: the search takes a trial with no equilibrium as a step it cannot make,
+    # whatever the goal (a GM goal has a value there: GM fluid stays positive, 0.70 m)
+    fine = dataclasses.replace(c, deck_items=c.deck_items[:-1])
+    gm = ballast_plan.Goal("gm", 0.5, 0.001)
+    q0 = ballast_plan.value_of(evaluate(v, fine), gm)
+    assert ballast_plan._search(v, gm, 1.0, q0, lambda m: c, evaluate) == (None, None)
 
 
 def test_the_screen_shows_no_list_and_a_curve_never_positive(capsizing_trawler):

@@ -34,8 +34,7 @@ def format_summary(r: Result, tables: str | None = None) -> str:
         f"  Draft aft      {r.draft_aft_m:10.3f} m      Draft fwd    {r.draft_fwd_m:10.3f} m",
         f"  Draft midships {r.draft_mean_m:10.3f} m      Trim         {abs(r.trim_m):10.3f} m {trim_word}",
         f"  Max GZ         {r.max_gz_m:10.3f} m at {r.max_gz_angle_deg:4.1f}°"
-        + ("   GZ never positive" if vf.vanishing_words(r) == vf.NO_EQUILIBRIUM
-           else f"   vanishing {vf.vanishing_words(r)}")
+        + ("   GZ never positive" if vf.never_positive(r) else f"   vanishing {vf.vanishing_words(r)}")
         + (f"   θf {r.downflooding_angle_deg:.1f}°" if r.downflooding_angle_deg is not None else ""),
         f"  Freeboard mid  {vf.fmt_optional(r.freeboard_m, '.3f', ' m'):>12}      "
         f"Margin to the mark {vf.fmt_optional(r.load_line_margin_m, '+.3f', ' m'):>9} (+ below it)",

@@ -194,16 +194,14 @@ def _refused(profile_path: Path, targets: list[Path]) -> str | None:
     (its own CSV tables, typed from the booklet, would come back rewritten: "1.60" as "1.6",
     121.7123456789 as 121.7123457) or a file of the voyage log (:mod:`deckload.io.outputs`).
     Checked for every file before any is written; new files beside the profile's are fine."""
-    from deckload.io.outputs import OutputRefused, profile_inputs, refuse_overwrite
+    from deckload.io.outputs import OutputRefused, profile_inputs, refuse_overwrites
 
-    inputs = profile_inputs(profile_path)
-    for target in targets:
-        try:
-            refuse_overwrite(target, inputs)
-        except OutputRefused as e:
-            return (f"{e}: no table written.  The files the profile reads keep the values as typed from the "
-                    f"booklet: give another folder (e.g. {target.parent.name or 'tables'}-export) to write "
-                    "the tables in")
+    try:
+        refuse_overwrites(targets, profile_inputs(profile_path))
+    except OutputRefused as e:
+        folder = targets[0].parent.name if targets else ""
+        return (f"{e}: no table written.  The files the profile reads keep the values as typed from the "
+                f"booklet: give another folder (e.g. {folder or 'tables'}-export) to write the tables in")
     return None
 
 

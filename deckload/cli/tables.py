@@ -423,13 +423,12 @@ def run_tables(geometry_path: Path, output_path: Path | None, trims_text: str | 
 
     existing_text = None
     if output_path is not None:
-        from deckload.io.outputs import OutputRefused, refuse_overwrite
+        from deckload.io.outputs import OutputRefused, refuse_overwrites
 
         backup = output_path.with_name(output_path.name + ".bak")
         try:
             # the geometry read, a file of the voyage log; and the copy kept when comments are lost
-            refuse_overwrite(output_path, [(geometry_path, "the geometry file read")])
-            refuse_overwrite(backup, [(geometry_path, "the geometry file read")])
+            refuse_overwrites([output_path, backup], [(geometry_path, "the geometry file read")])
         except OutputRefused as e:
             print(f"deckload tables: {e}: nothing written; name another profile to write", file=sys.stderr)
             return 1

@@ -151,8 +151,7 @@ def propose(
     out: list[Proposal] = []
     for steps, hi, apply in _moves(vessel, condition, allowed, move, room, pairs=False):
         hit, _ = _search(vessel, goal, hi, q0, apply, evaluate)
-        if hit is not None and (list_limit_deg is None or (hit[2].list_deg is not None
-                                                           and abs(hit[2].list_deg) <= list_limit_deg + 1e-9)):
+        if hit is not None and (list_limit_deg is None or abs(hit[2].list_deg) <= list_limit_deg + 1e-9):
             m, c, r, after, n = hit
             (a, b), = steps
             out.append(Proposal(a, b, m, c, r, q0, after, n))
@@ -198,9 +197,11 @@ def _search(vessel, goal, hi, q0, apply, evaluate):
         try:
             c = apply(m)
             r = evaluate(vessel, c)
-            return c, r, value_of(r, goal) - goal.target
         except (ValueError, KeyError, ArithmeticError):
             return None
+        if r.list_deg is None:  # no position of equilibrium: never a step of a plan, whatever the goal
+            return None
+        return c, r, value_of(r, goal) - goal.target
 
     f0 = q0 - goal.target
     end = q(hi)
@@ -272,8 +273,6 @@ def plan(
     limit = None if goal.quantity == "list" else max(abs(r0.list_deg), KEEP_LIST_DEG)
 
     def upright(r: Result) -> bool:
-        if r.list_deg is None:  # no position of equilibrium: never a step of a plan
-            return False
         return limit is None or abs(r.list_deg) <= limit + 1e-9
 
     done: list[Transfer] = []

@@ -244,17 +244,25 @@ def hold_floor_top_m(hold: Hold) -> tuple[float, float] | None:
     return floor, max(level_full, float(z.max()))
 
 
-def hold_vcg_range(p: Particulars, hold: Hold) -> Range:
-    """Where a condition may put the centre of gravity of a hold's cargo: from the hold's floor to
-    its top (:func:`hold_floor_top_m`) when it has a fill table, else the keel to depth + 30 m
-    (:func:`z_range`: the profile gives no more of the hold's extent).  The profile gives no
-    longitudinal or transverse extent of a hold: an LCG or TCG override is held to the hull's
-    (:func:`x_range`, :func:`y_range`)."""
+def hold_level_range(hold: Hold) -> Range | None:
+    """The height a hold's cargo's centre of gravity may have: from the hold's floor to its top
+    (:func:`hold_floor_top_m`); None when it has no fill table to give them."""
     ft = hold_floor_top_m(hold)
     if ft is None:
+        return None
+    return Range(*ft, "m", f"within hold {hold.id}: from its floor to its top, as its fill table gives them")
+
+
+def hold_vcg_range(p: Particulars, hold: Hold) -> Range:
+    """Where a condition may put the centre of gravity of a hold's cargo: :func:`hold_level_range`
+    when it has a fill table, else the keel to depth + 30 m (:func:`z_range`: the profile gives no
+    more of the hold's extent).  The profile gives no longitudinal or transverse extent of a hold:
+    an LCG or TCG override is held to the hull's (:func:`x_range`, :func:`y_range`)."""
+    level = hold_level_range(hold)
+    if level is None:
         return z_range(p)
-    lo, hi = max(0.0, ft[0]), min(z_max_m(p), ft[1])
-    return Range(lo, max(lo, hi), "m", f"within hold {hold.id}: from its floor to its top, as its fill table gives them")
+    lo, hi = max(0.0, level.low), min(z_max_m(p), level.high)
+    return Range(lo, max(lo, hi), "m", level.why)
 
 
 def volume_range(p: Particulars) -> Range:

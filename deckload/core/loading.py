@@ -12,7 +12,7 @@ from functools import lru_cache
 
 import numpy as np
 
-from deckload.core.bounds import hold_floor_top_m, stowage_range
+from deckload.core.bounds import hold_level_range, stowage_range
 from deckload.core.frozen import frozen
 from deckload.core.model import Condition, Hold, HoldLoad, Tank, TankFill, Vessel
 from deckload.core.result import ItemResult
@@ -183,7 +183,7 @@ def hold_item(hold: Hold, load: HoldLoad) -> ItemResult:
     :data:`deckload.core.bounds.STOWAGE_FACTOR_RANGE_M3_T` (denser than solid lead or lighter
     than air), cargo whose volume mass × stowage exceeds the hold's capacity, and a VCG
     override outside the hold's floor and top as its fill table gives them
-    (:func:`deckload.core.bounds.hold_floor_top_m`).
+    (:func:`deckload.core.bounds.hold_level_range`).
     """
     if load.mass_t < 0:
         raise LoadingError(f"hold {hold.id}: negative cargo mass {load.mass_t:g} t")
@@ -198,11 +198,10 @@ def hold_item(hold: Hold, load: HoldLoad) -> ItemResult:
                 f"hold {hold.id}: {load.mass_t:g} t at {load.stowage_m3_t:g} m³/t needs "
                 f"{load.mass_t * load.stowage_m3_t:.1f} m³, more than its {hold.capacity_m3:.1f} m³"
             )
-    if load.vcg_m is not None:
-        ft = hold_floor_top_m(hold)
-        if ft is not None and not ft[0] - 1e-9 <= load.vcg_m <= ft[1] + 1e-9:
-            raise LoadingError(f"hold {hold.id}: VCG {load.vcg_m:g} m is outside the hold, whose floor is at "
-                               f"{ft[0]:.4g} m and top at {ft[1]:.4g} m above the keel (its fill table)")
+    level = hold_level_range(hold) if load.vcg_m is not None else None
+    if level is not None and load.vcg_m not in level:  # the reader's own rule, for a condition made in code
+        raise LoadingError(f"hold {hold.id}: VCG {load.vcg_m:g} m is outside the hold, whose floor is at "
+                           f"{level.low:.4g} m and top at {level.high:.4g} m above the keel (its fill table)")
     if load.stowage_m3_t is not None and hold.fill_pct is not None:
         i, f = bracket(hold.fill_pct, min(fill, 100.0), f"fill of hold {hold.id}", "%")
         if hold.fill_vcg_m is not None:

@@ -122,7 +122,7 @@ def resolve(profile_path: Path, typed: str, vessel_name: str, work_dir: Path) ->
     from deckload.io import paths
 
     given = Path(typed)
-    if given.is_file() or (given.exists() and not given.is_dir()):
+    if given.exists() and not given.is_dir():
         # a pipe or device named as the file is that file: reading it refuses it, naming it
         return given
     want = typed.strip().casefold()

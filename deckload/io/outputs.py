@@ -1,9 +1,9 @@
 """A file the user names for output never replaces a file deckload reads or keeps.
 
 Every command that writes a file named on its command line (``report -o``, ``log export -o``,
-``tables -o``, the files ``csv`` writes in its folder) asks :func:`refuse_overwrite` first,
-before it writes anything.  It refuses (:class:`OutputRefused`, naming the path and what
-the file is) when the output is:
+``tables -o``, the files ``csv`` writes in its folder) asks :func:`refuse_overwrite` (or
+:func:`refuse_overwrites` for several) before it writes anything.  It refuses
+(:class:`OutputRefused`, naming the path and what the file is) when the output is:
 
 * an input of the command: the profile, the condition, and every file the profile reads
   (:func:`profile_inputs`: its CSV tables, its hull geometry file, its booklet conditions'
@@ -150,6 +150,13 @@ def refuse_overwrite(output: str | os.PathLike, inputs: Iterable[tuple[str | os.
     """Raise :class:`OutputRefused` when writing ``output`` would replace one of ``inputs``
     ((file, what it is) pairs), a file of a voyage log or a condition the loading screen keeps,
     in any of ``log_dirs`` and in the log folder in use (``deckload.io.paths.log_dir``)."""
+    refuse_overwrites([output], inputs, log_dirs)
+
+
+def refuse_overwrites(outputs: Iterable[str | os.PathLike], inputs: Iterable[tuple[str | os.PathLike, str]] = (),
+                      log_dirs: Iterable[str | os.PathLike] = ()) -> None:
+    """:func:`refuse_overwrite` for each of ``outputs`` in turn (the first refused raises), the
+    log folders read once for them all."""
     from deckload.io.paths import log_dir
 
     try:
@@ -163,11 +170,12 @@ def refuse_overwrite(output: str | os.PathLike, inputs: Iterable[tuple[str | os.
     protected = list(inputs)
     for d in folders:
         protected += log_folder_files(d)
-    for path, what in protected:
-        if same_file(output, path):
-            alias = "" if str(path) == str(output) else f" (the same file as {path})"
-            raise OutputRefused(f"{output}: is {what}{alias}; writing there would replace it")
-    d = _log_name_in(_real(output), folders)
-    if d is not None:
-        raise OutputRefused(f"{output}: has the name of a file the voyage log or the loading screen keeps in {d}; "
-                            "writing there would put another file in its place")
+    for output in outputs:
+        for path, what in protected:
+            if same_file(output, path):
+                alias = "" if str(path) == str(output) else f" (the same file as {path})"
+                raise OutputRefused(f"{output}: is {what}{alias}; writing there would replace it")
+        d = _log_name_in(_real(output), folders)
+        if d is not None:
+            raise OutputRefused(f"{output}: has the name of a file the voyage log or the loading screen keeps in "
+                                f"{d}; writing there would put another file in its place")

@@ -175,8 +175,7 @@ def _summary(result: Result, vessel: Vessel) -> Table:
         ("TPC / MCTC", f"{r.tpc_t_cm:.2f} t/cm / {r.mctc_tm_cm:.2f} t·m/cm"),
         ("Max GZ", f"{r.max_gz_m:.3f} m at {r.max_gz_angle_deg:.1f}°"),
         ("Vanishing angle", vf.vanishing_words(r) + (" (the KN tables end there)" if r.vanishing_angle_deg is None
-                                                     and r.gz_end_deg < 90 and r.max_gz_m > 0 and r.list_deg is not None
-                                                     else "")),
+                                                     and r.gz_end_deg < 90 and not vf.never_positive(r) else "")),
         ("Downflooding θf", "not given" if r.downflooding_angle_deg is None else f"{r.downflooding_angle_deg:.1f}°"),
         ("Deck edge immersion", vf.fmt_optional(r.deck_edge_angle_deg, ".1f", "°")),
         ("Freeboard at midships", vf.fmt_optional(r.freeboard_m, ".3f", " m")),

@@ -195,12 +195,17 @@ NO_EQUILIBRIUM = "none: GZ never positive"
 position of equilibrium up to the curve's last angle (a danger warning says so)."""
 
 
+def never_positive(r: Result) -> bool:
+    """GZ never becomes positive on the side she heels to: no list, no vanishing angle."""
+    return r.list_deg is None or r.max_gz_m <= 0.0
+
+
 def vanishing_words(r: Result) -> str:
     """The vanishing angle in words: the angle; ``beyond N°`` when GZ is still positive where the
     curve ends; :data:`NO_EQUILIBRIUM` when it is never positive (no angle vanishes)."""
     if r.vanishing_angle_deg is not None:
         return f"{r.vanishing_angle_deg:.1f}°"
-    if r.max_gz_m <= 0.0 or r.list_deg is None:
+    if never_positive(r):
         return NO_EQUILIBRIUM
     return f"beyond {r.gz_end_deg:g}°"
 

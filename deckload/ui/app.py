@@ -228,10 +228,7 @@ class DeckloadApp(App[None]):
 
         def restored(req) -> None:
             if req is not None:
-                screen = self.loading_screen
-                kept = screen.keep_previous("Not restored")
-                if kept is not False:
-                    screen.commit(req.condition, req.label + (f"; the edited one kept as {kept.name}" if kept else ""),
-                                  "restore", req.change_data)
+                self.loading_screen.replace_condition(req.condition, req.label, "restore", req.change_data,
+                                                      "Not restored")
 
         self.push_screen(LogScreen(j.logbook, self.session.vessel), callback=restored)

@@ -33,7 +33,7 @@ def check_name(text: str, stock_titles: set[str]) -> str:
         raise EntryError(f"At most {MAX_NAME_CHARS} characters ({len(name)} typed).")
     if control_char(name) is not None:
         raise EntryError("Type plain text (no control characters).")
-    if name.casefold() in {t.casefold() for t in stock_titles} or name_key(name) in {name_key(t) for t in stock_titles}:
+    if name_key(name) in {name_key(t) for t in stock_titles}:  # (the key is casefolded: it covers case too)
         raise EntryError(f"\u201c{name}\u201d is a stock condition of the vessel: choose a name of your own "
                          "(the stock file is never overwritten).")
     if name.casefold() in WORKING_KEYS:

@@ -23,6 +23,7 @@ Styles: ``log_screen.tcss`` beside this file.
 
 from __future__ import annotations
 
+import os
 from datetime import date
 from typing import Iterable
 
@@ -218,6 +219,8 @@ class LogScreen(Screen["RestoreRequest | None"]):
         self.shown: list[LogEntry] = []
         self._restore_asked: int | None = None
         """Entry whose restore was asked for once; a second r on it restores."""
+        self._chain: tuple[tuple, object] | None = None
+        """The log's verification with the state of its files it was made on (see :meth:`_chain_report`)."""
 
     # ----------------------------------------------------------------- layout
 
@@ -270,12 +273,28 @@ class LogScreen(Screen["RestoreRequest | None"]):
         if self.logbook.skipped:
             status.append(f"; {len(self.logbook.skipped)} unreadable line(s) left out — press v to verify")
         # An edited line still reads: only the chain shows it was changed since it was written.
-        rep = self.logbook.verify()
+        rep = self._chain_report()
         if not rep.ok:
             status.append(f"; CHAIN BROKEN ({len(rep.problems)} problem(s)): the entries may not be what was "
                           "recorded — press v", style="bold red")
         self.query_one("#log-status", Static).update(status)
         self._show_detail()
+
+    def _chain_report(self):
+        """``logbook.verify()``, made again only when the log or its head record has changed on
+        disk: a filter key redraws the table, and re-reading and hashing a long voyage's log for
+        it would make every such key wait."""
+        def state(path) -> tuple | None:
+            try:
+                st = os.stat(path)
+            except OSError:
+                return None
+            return st.st_size, st.st_mtime_ns, st.st_ino
+
+        key = (state(self.logbook.path), state(self.logbook.head_path))
+        if self._chain is None or self._chain[0] != key:
+            self._chain = (key, self.logbook.verify())
+        return self._chain[1]
 
     def current(self) -> LogEntry | None:
         table = self.query_one("#log-table", DataTable)

@@ -676,24 +676,24 @@ class LoadingScreen(Screen[None]):
             except (ProfileError, OSError) as exc:
                 self.say(f"Cannot open {named.path}: {getattr(exc, 'strerror', None) or exc}", ok=False)
                 return
-            kept = self.keep_previous(f"“{condition.name}” not opened")
-            if kept is False:
-                return
-            self.commit(condition, f"Opened “{condition.name}” ({named.origin}, {named.path.name})"
-                        + (f"; the edited one kept as {kept.name}" if kept else ""), "edit",
-                        {"opened": str(named.path)}, mark=False)
+            self.replace_condition(condition, f"Opened “{condition.name}” ({named.origin}, {named.path.name})",
+                                   "edit", {"opened": str(named.path)}, f"“{condition.name}” not opened")
 
         self.app.push_screen(OpenConditionScreen(found), done)
 
-    def keep_previous(self, not_done: str):
-        """:meth:`Session.keep_previous`, saying so when it cannot be written: the file kept, None
-        when there was nothing to keep, False when the replacement must not go ahead."""
+    def replace_condition(self, condition: Condition, label: str, kind: str, data: dict, not_done: str) -> None:
+        """Make another condition the working one (opened, or restored from the log) as one
+        undoable change, an edited working condition first kept beside the working file
+        (:meth:`Session.keep_previous`); when it cannot be kept, nothing is replaced and the
+        message line says so, beginning with ``not_done``."""
         try:
-            return self.session.keep_previous()
+            kept = self.session.keep_previous()
         except OSError as exc:
             self.say(f"{not_done}: the edited working condition could not be kept "
                      f"({getattr(exc, 'strerror', None) or exc})", ok=False)
-            return False
+            return
+        self.commit(condition, label + (f"; the edited one kept as {kept.name}" if kept else ""), kind, data,
+                    mark=False)
 
     def action_print_report(self) -> None:
         from deckload.ui.conditions import ReportWritten, open_in_browser, print_session

@@ -17,7 +17,7 @@ from deckload.core.frozen import frozen
 from deckload.core.model import Condition, LIQUID_KINDS, Vessel
 from deckload.core.result import CriterionResult, Result
 from deckload.core.trimmed_tables import tables_basis
-from deckload.report.verdict_format import STATED_DENSITY_MARK, fmt_optional
+from deckload.report.verdict_format import STATED_DENSITY_MARK, fmt_optional, never_positive
 from deckload.ui.entry import fill_volume_m3, tank_density
 from deckload.ui.gzplot import GzChart, Mark
 from deckload.ui.palette import P
@@ -432,7 +432,7 @@ def gz_caption(result: Result | None, width: int | None = None) -> Text:
     zero = []
     if result.vanishing_angle_deg is not None:
         zero.append(f"  zero at {result.vanishing_angle_deg:.1f}°")
-    elif result.max_gz_m <= 0.0 or result.list_deg is None:
+    elif never_positive(result):
         zero.append("  never positive")
     elif result.gz_end_deg < 90.0:
         zero.append(f"  zero beyond {result.gz_end_deg:g}° (KN end)")
