@@ -10,6 +10,8 @@ for comparisons in an iteration).  Each edge is checked on both sides.
 
 from __future__ import annotations
 
+import math
+
 import pytest
 
 from deckload.core.ballast_plan import Goal, _met, _nearer
@@ -57,10 +59,38 @@ def test_the_goal_is_read_as_every_other_typed_number(typed):
     digits of other scripts; every other field refuses them (deckload.ui.entry.parse_number)."""
     from deckload.ui.entry import EntryError
     from deckload.ui.planner import parse_goal
+    from demo_vessels import demo_vessel
 
+    v = demo_vessel()
     with pytest.raises(EntryError, match="goal"):
-        parse_goal(typed)
-    assert parse_goal("gm 0.8") == Goal("gm", 0.8, 0.001) and parse_goal("list -2").target == -2.0
+        parse_goal(typed, v)
+    assert parse_goal("gm 0.8", v) == Goal("gm", 0.8, 0.001) and parse_goal("list -2", v).target == -2.0
+
+
+@pytest.mark.parametrize("vessel_of", ["demo_vessel", "trawler_vessel"])
+def test_a_goal_is_bounded_by_the_vessels_own_tables(vessel_of):
+    """A typed goal is bounded where it is read by what the vessel's tables can give (derived in
+    :func:`deckload.ui.planner.goal_range`): a trim within ± her greatest tabulated draft (both
+    ends between 0 and it), a GM above 0 and at most her greatest KMt (GM = KMt − KG − FSC), a
+    list within ± the KN table's last heel and 30°.  The fixed ±10 m trim and 10 m GM took goals
+    no hull of this size can reach (a 10 m trim on a vessel drawing a few metres)."""
+    import demo_vessels
+    from deckload.ui.entry import EntryError
+    from deckload.ui.planner import parse_goal
+
+    v = getattr(demo_vessels, vessel_of)()
+    top_draft = float(v.hydrostatics.draft_m[-1])
+    top_km = float(max(v.hydrostatics.kmt_m))
+    end = min(30.0, float(v.cross_curves.heel_deg[-1]))
+    assert top_draft < 10.0 and top_km < 10.0  # the premise: the old fixed bounds let these through
+    draft_in, km_in = math.floor(top_draft * 1000) / 1000, math.floor(top_km * 1000) / 1000  # printed, not beyond
+    for typed, target in ((f"trim {draft_in:.3f}", draft_in), (f"trim -{draft_in:.3f}", -draft_in),
+                          (f"gm {km_in:.3f}", km_in), ("gm 0.001", 0.001), (f"list {end:g}", end), (f"list -{end:g}", -end)):
+        assert parse_goal(typed, v).target == target
+    for typed in (f"trim {top_draft + 0.01:.3f}", f"trim -{top_draft + 0.01:.3f}", "trim 9.9",
+                  f"gm {top_km + 0.01:.3f}", "gm 9.9", "gm 0", "gm -0.5", f"list {end + 0.1:g}", f"list -{end + 0.1:g}"):
+        with pytest.raises(EntryError, match=r"beyond what .* can reach: a (trim|gm|list) goal is"):
+            parse_goal(typed, v)
 
 
 def test_a_tiny_step_of_the_search_is_pumped_not_refused_as_text():

@@ -27,8 +27,28 @@ TOLERANCE = {"list": 0.1, "trim": 0.01, "gm": 0.001}
 """How close a proposal must come: list 0.1°, trim 1 cm, GM at least the value (to the mm)."""
 
 
-def parse_goal(text: str) -> Goal:
-    """'list 0', 'trim 0.5', 'gm 0.8' (GM fluid at least 0.8 m)."""
+def goal_range(vessel: Vessel, quantity: str) -> tuple[float, float, str]:
+    """The goals a vessel's own tables can reach: ``(lowest, highest, why)``.
+
+    * list: within ± the KN table's last heel and never beyond 30° (common practice: no loading
+      plan aims at a list beyond 30°; an equilibrium is found on the tabulated GZ curve only);
+    * trim: within ± the hydrostatic table's greatest draft (derived: trim = T_aft − T_fwd with
+      both ends between 0 and the greatest tabulated draft);
+    * GM (fluid, at least): above 0 and at most the greatest tabulated KMt (derived: GM fluid =
+      KMt − KG − FSC, with KG and FSC positive).
+    """
+    if quantity == "list":
+        end = min(30.0, float(vessel.cross_curves.heel_deg[-1]))
+        return -end, end, f"±{end:g}° (the KN table ends at {float(vessel.cross_curves.heel_deg[-1]):g}°; 30° at most)"
+    if quantity == "trim":
+        top = float(vessel.hydrostatics.draft_m[-1])
+        return -top, top, f"±{top:.2f} m (the greatest tabulated draft)"
+    top = float(max(vessel.hydrostatics.kmt_m))
+    return 0.0, top, f"above 0 and at most {top:.3f} m (the greatest tabulated KMt)"
+
+
+def parse_goal(text: str, vessel: Vessel) -> Goal:
+    """'list 0', 'trim 0.5', 'gm 0.8' (GM fluid at least 0.8 m), within :func:`goal_range`."""
     words = text.replace("=", " ").split()
     if len(words) != 2 or words[0].lower() not in TOLERANCE:
         raise EntryError("Goal: list 0 (degrees, + stbd) · trim 0.5 (m, + by the stern) · gm 0.8 (GM fluid at least, m).")
@@ -36,9 +56,10 @@ def parse_goal(text: str) -> Goal:
     # the one reader of typed numbers (entry.parse_number): '0_8', '1e1' or digits of another
     # script are refused here as in every other field, not read by Python's float() as 8, 10, 3
     value = entry.parse_number(words[1], f"{q} goal")
-    bound = {"list": 30.0, "trim": 10.0, "gm": 10.0}[q]
-    if not -bound <= value <= bound:
-        raise EntryError(f"A {q} of {value:g} is not a goal for this planner (within ±{bound:g}).")
+    low, high, why = goal_range(vessel, q)
+    if not low <= value <= high or (q == "gm" and value <= 0.0):
+        raise EntryError(f"A {q} of {value:g} is beyond what {vessel.particulars.name} can reach: "
+                         f"a {q} goal is {why}.")
     return Goal(q, value, TOLERANCE[q])
 
 
@@ -112,7 +133,7 @@ class PlannerForm(TankPicking, Form):
             self.dismiss(self.proposal)
             return
         try:
-            goal, tanks = parse_goal(asked[0]), parse_tanks(self._vessel, asked[1])
+            goal, tanks = parse_goal(asked[0], self._vessel), parse_tanks(self._vessel, asked[1])
         except EntryError as exc:
             self.refuse(str(exc))
             return
