@@ -178,11 +178,11 @@ def test_marks_of_a_trimmed_listed_condition():
 
 
 def test_second_trim_correction_near_the_end_of_the_table():
-    """Near the deep end of the table MCTC is taken less than half a metre either side (as far as the
-    table goes): mean draft 3.2 m, trim 0.6 m by the stern (the AP at 3.5 m, the table's end: deeper
+    """Near the deep end of the table MCTC is taken half a metre below and as far as the table goes
+    above: mean draft 3.2 m, trim 0.6 m by the stern (the AP at 3.5 m, the table's end: deeper
     is refused as the forward calculation refuses it), u = (3.2 + 4·0.6/40)/(1 + 2·0.6/40) =
-    3.1650485 m (module docstring, step 4 solved), so the step is 3.5 − u = 0.3349515 m.  MCTC is
-    linear, so the central difference is still 10 t·m/cm per m and Nemoto's correction is
+    3.1650485 m (module docstring, step 4 solved), so the step up is 3.5 − u = 0.3349515 m.  MCTC is
+    linear, so the difference over that span is still 10 t·m/cm per m and Nemoto's correction is
     50·0.6²·10/40 = 4.5 t; Δ = 410·u + 4.5 t."""
     trim = 0.6
     slope = trim / L
@@ -199,3 +199,38 @@ def test_second_trim_correction_near_the_end_of_the_table():
     assert o.trim_m == pytest.approx(0.6, abs=1e-9)
     assert o.second_trim_correction_t == pytest.approx(4.5, abs=1e-6)
     assert o.displacement_t == pytest.approx(410.0 * u + 4.5, abs=1e-6)
+
+
+def _lcf_at_the_ap():
+    v = vessel()
+    h = v.hydrostatics
+    return dataclasses.replace(v, hydrostatics=dataclasses.replace(h, lcf_m=frozen_array(np.zeros(len(h.draft_m)))))
+
+
+def _level_readings(mean: float, trim: float) -> MarkReadings:
+    def at(m: DraftMark) -> float:
+        return mean + trim / L * (L / 2 - m.x_m) + KEEL
+
+    return MarkReadings(at(MARKS.aft), at(MARKS.aft), at(MARKS.midships), at(MARKS.midships),
+                        at(MARKS.forward), at(MARKS.forward))
+
+
+def test_second_trim_correction_at_the_end_of_the_table_is_one_sided():
+    """The draft at the LCF exactly at a table end: the centred span shrank to nothing and the
+    correction was dropped.  Posed so that it happens: the table above with the LCF at the AP
+    (x = 0) at every draft, so step 4 gives u = T_Q + t·(L/2 − 0)/L = the AP's draft.  Mean 0.8 m,
+    trim 0.6 m by the head puts the AP at 0.5 m, the table's shallow end (the FP at 1.1 m).  MCTC
+    is linear at 10 t·m/cm per m, so the one-sided difference over [0.5, 1.0] m is that slope and
+    Nemoto's correction is 50·0.6²·10/40 = 4.5 t, as in the table's interior; Δ = 410·0.5 + 4.5 t."""
+    o = condition_from_readings(_lcf_at_the_ap(), _level_readings(0.8, -0.6), RHO_SW)
+    assert o.draft_at_lcf_m == pytest.approx(0.5, abs=1e-9) and o.lcf_m == 0.0  # the premise
+    assert o.second_trim_correction_t == pytest.approx(4.5, abs=1e-6)
+    assert o.displacement_t == pytest.approx(410.0 * 0.5 + 4.5, abs=1e-6)
+
+
+def test_at_the_deep_end_the_correction_carries_her_beyond_the_table_and_is_refused():
+    """The same at the deep end: mean 3.2 m, 0.6 m by the stern puts the AP, and so u, at 3.5 m.
+    With Nemoto's 4.5 t her displacement, 410·3.5 + 4.5 = 1439.5 t, is beyond the table's 1435 t:
+    refused (deckload does not extrapolate), where the dropped correction gave 1435 t as if known."""
+    with pytest.raises(OutOfRangeError, match="displacement"):
+        condition_from_readings(_lcf_at_the_ap(), _level_readings(3.2, 0.6), RHO_SW)

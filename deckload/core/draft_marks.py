@@ -28,7 +28,8 @@ and procedures for draught surveys of coal cargoes, 1992 — from memory).
 4. The draft at the LCF, T_Q + t·(LBP/2 − x_F)/LBP, read in the even-keel table gives the
    displacement with the first trim correction included (x_F from the table, iterated);
    the second (Nemoto) correction 50·t²·(MCTC(T+½) − MCTC(T−½))/LBP (t in m, MCTC in t·m/cm)
-   allows for the LCF moving forward as she trims.
+   allows for the LCF moving forward as she trims (within half a metre of a table end the span
+   stops at the end: the slope dMCTC/dT taken over what the table has).
 5. Table displacement × ρ_water/ρ_table is her displacement; the trim equation
    t = Δ·(LCB − LCG)/(100·MCTC) turned round gives the LCG the readings imply, MCTC from
    the actual GM_L (:mod:`deckload.core.trim`) when a KG is given and the profile has KM_L.
@@ -208,13 +209,13 @@ def condition_from_readings(vessel: Vessel, readings: MarkReadings, water_densit
             break
         x_f = x_new
     d_table = interp(h.draft_m, h.displacement_t, t_lcf, "draft at the LCF (hydrostatic table)", "m")
-    # Nemoto's second trim correction, MCTC half a metre either side (closer to a table end if need be)
-    half = min(0.5, t_lcf - float(h.draft_m[0]), float(h.draft_m[-1]) - t_lcf)
-    stc = 0.0
-    if half > 1e-6:
-        m_hi = interp(h.draft_m, h.mctc_tm_cm, t_lcf + half, "draft (MCTC)", "m")
-        m_lo = interp(h.draft_m, h.mctc_tm_cm, t_lcf - half, "draft (MCTC)", "m")
-        stc = 50.0 * trim**2 * (m_hi - m_lo) / (2.0 * half) / lbp
+    # Nemoto's second trim correction: dMCTC/dz from MCTC half a metre either side; within half a
+    # metre of a table end the span stops at the end, so the slope is one-sided there (at the end
+    # itself too: a centred span shrunk to nothing dropped the correction).
+    lo, hi = max(t_lcf - 0.5, float(h.draft_m[0])), min(t_lcf + 0.5, float(h.draft_m[-1]))
+    m_hi = interp(h.draft_m, h.mctc_tm_cm, hi, "draft (MCTC)", "m")
+    m_lo = interp(h.draft_m, h.mctc_tm_cm, lo, "draft (MCTC)", "m")
+    stc = 50.0 * trim**2 * (m_hi - m_lo) / (hi - lo) / lbp
     d_table += stc
     disp = d_table * water_density_t_m3 / p.table_density_t_m3
 
