@@ -213,9 +213,9 @@ def test_calc_report_and_log_work_on_the_trawler_shorthand(tmp_path, capsys, tra
 def test_a_packaged_demo_vessel_opens_on_its_departure(tmp_path):
     from deckload.ui.launch import load_inputs
 
-    _, cond, _, _ = load_inputs(paths.TRAWLER_PROFILE, None, tmp_path / "work")
+    cond = load_inputs(paths.TRAWLER_PROFILE, None, tmp_path / "work").condition
     assert cond.name == "Departure for the fishing grounds"
-    _, cond, _, _ = load_inputs(None, None, tmp_path / "work")
+    cond = load_inputs(None, None, tmp_path / "work").condition
     assert cond.name == load_condition(paths.DEMO_CONDITIONS["departure"], demo_vessel()).name
     other = tmp_path / "copy.toml"  # any other profile starts from an empty condition
     assert paths.demo_start_condition(other) is None
@@ -229,7 +229,8 @@ async def test_the_screen_opens_on_the_trawler_and_takes_an_ullage(tmp_path, tra
     from deckload.ui.launch import create_app, load_inputs
     from deckload.ui.widgets import LoadBoard
 
-    vessel, condition, _, _ = load_inputs(paths.TRAWLER_PROFILE, None, tmp_path / "work")
+    start = load_inputs(paths.TRAWLER_PROFILE, None, tmp_path / "work")
+    vessel, condition = start.vessel, start.condition
     app = create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs")
     with open(BROWSABLE / "demo_trawler" / "tanks" / "FO1P.csv", encoding="utf-8") as f:
         page = {float(r["ullage_m"]): float(r["volume_m3"]) for r in csv.DictReader(f)}

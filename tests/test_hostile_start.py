@@ -135,7 +135,7 @@ def test_a_bad_saved_working_condition_is_set_aside_with_a_notice(vessel, tmp_pa
     saved = working_path(tmp_path, vessel)
     saved.parent.mkdir(parents=True, exist_ok=True)
     saved.write_text(body, encoding="utf-8")
-    _, condition, notices, _ = load_inputs(None, None, tmp_path)
+    _, condition, notices, _, _ = load_inputs(None, None, tmp_path)
     assert condition == load_condition(DEMO_CONDITIONS["departure"], vessel)
     assert not saved.exists() and saved.with_name(saved.name + ".unreadable").read_text(encoding="utf-8") == body
     assert "could not be read and was moved" in notices[0]
@@ -148,7 +148,7 @@ async def test_a_saved_condition_beyond_the_tables_opens_with_the_reason_shown(v
     saved = working_path(tmp_path, vessel)
     saved.parent.mkdir(parents=True, exist_ok=True)
     saved.write_text(body, encoding="utf-8")
-    _, condition, notices, _ = load_inputs(None, None, tmp_path)
+    _, condition, notices, _, _ = load_inputs(None, None, tmp_path)
     app = create_app(vessel, condition, work_dir=tmp_path, log_dir=None)
     assert app.session.stale and app.session.result is None and "draft aft" in app.session.problem
     async with app.run_test(size=(120, 40)) as pilot:
@@ -182,7 +182,7 @@ def test_an_old_working_file_is_moved_to_the_new_name(vessel, tmp_path):
     old = paths.legacy_working_file(tmp_path, vessel.particulars.name)
     assert old.name == "demo-islander.condition.toml"
     old.write_text(DEMO_CONDITIONS["arrival"].read_text(encoding="utf-8"), encoding="utf-8")
-    _, condition, notices, _ = load_inputs(None, None, tmp_path)
+    _, condition, notices, _, _ = load_inputs(None, None, tmp_path)
     assert condition == load_condition(DEMO_CONDITIONS["arrival"], vessel)
     assert not old.exists() and working_path(tmp_path, vessel).is_file() and "moved" in notices[0]
 
@@ -277,7 +277,7 @@ def test_temp_files_of_an_interrupted_save_are_cleaned_and_a_complete_one_kept(v
     torn.write_text(DEMO_CONDITIONS["arrival"].read_text(encoding="utf-8")[:40], encoding="utf-8")
     stray = tmp_path / ".other.toml.xyz.tmp"
     stray.write_text("x")
-    _, condition, notices, _ = load_inputs(None, None, tmp_path)
+    _, condition, notices, _, _ = load_inputs(None, None, tmp_path)
     assert condition == load_condition(DEMO_CONDITIONS["departure"], vessel)
     assert not complete.exists() and not torn.exists() and not stray.exists()
     kept = saved.with_name(saved.name + ".interrupted")

@@ -150,7 +150,7 @@ async def test_density_by_key_shows_on_the_board_is_logged_and_comes_back_on_reo
     assert [e.change_text for e in entries if "density" in e.change_text] == [
         "FO1P density 0.991 t/m³ (delivery note), was 0.850"]
     # reopen as `deckload` does: the working file brings the stated density back
-    v2, c2, _, _ = load_inputs(None, None, work)
+    v2, c2, _, _, _ = load_inputs(None, None, work)
     assert c2.tank_fill("FO1P") == TankFill("FO1P", "percent", 95.0, BDN_RHO)
     assert _tank(evaluate(v2, c2), "FO1P").mass_t == pytest.approx(volume * BDN_RHO, rel=1e-15)
 

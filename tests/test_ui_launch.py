@@ -14,7 +14,7 @@ from demo_vessels import demo_vessel
 async def test_first_run_opens_departure_and_a_restart_restores_the_working_condition(tmp_path, monkeypatch):
     monkeypatch.setenv("DECKLOAD_LOG_DIR", str(tmp_path / "logs"))
     work = paths.working_dir()
-    vessel, first, notices, _ = load_inputs(None, None, work)
+    vessel, first, notices, _, _ = load_inputs(None, None, work)
     assert first == load_condition(paths.DEMO_CONDITIONS["departure"], vessel) and notices == []
     app = create_app(vessel, first, work_dir=work, log_dir=paths.log_dir(), officer="TS")
     async with app.run_test(size=(120, 40)) as pilot:
@@ -23,7 +23,7 @@ async def test_first_run_opens_departure_and_a_restart_restores_the_working_cond
         await pilot.pause()
         edited = app.session.condition
     assert edited != first
-    _, restored, notices, _ = load_inputs(None, None, work)
+    _, restored, notices, _, _ = load_inputs(None, None, work)
     assert restored == edited and notices == []
 
 
@@ -32,7 +32,7 @@ def test_an_unreadable_working_file_is_set_aside_not_overwritten(tmp_path):
     saved = working_path(tmp_path, vessel)
     saved.parent.mkdir(parents=True, exist_ok=True)
     saved.write_text("format = 'deckload-condition-1'\n[tanks.NOPE]\npercent = 50\n")
-    _, condition, notices, _ = load_inputs(None, None, tmp_path)
+    _, condition, notices, _, _ = load_inputs(None, None, tmp_path)
     assert condition == load_condition(paths.DEMO_CONDITIONS["departure"], vessel)
     aside = saved.with_name(saved.name + ".unreadable")
     assert aside.read_text().startswith("format = 'deckload-condition-1'") and not saved.exists()
@@ -42,7 +42,7 @@ def test_an_unreadable_working_file_is_set_aside_not_overwritten(tmp_path):
 def test_a_condition_argument_wins_over_the_working_file(tmp_path):
     vessel = demo_vessel()
     arrival = paths.DEMO_CONDITIONS["arrival"]
-    _, condition, _, _ = load_inputs(paths.DEMO_PROFILE, arrival, tmp_path)
+    _, condition, _, _, _ = load_inputs(paths.DEMO_PROFILE, arrival, tmp_path)
     assert condition == load_condition(arrival, vessel)
 
 
@@ -96,7 +96,7 @@ def test_opening_a_named_condition_keeps_the_previous_working_file(tmp_path):
     saved = working_path(tmp_path, vessel)
     saved.parent.mkdir(parents=True, exist_ok=True)
     saved.write_text(paths.DEMO_CONDITIONS["midvoyage"].read_text())
-    _, condition, notices, _ = load_inputs(paths.DEMO_PROFILE, paths.DEMO_CONDITIONS["arrival"], tmp_path)
+    _, condition, notices, _, _ = load_inputs(paths.DEMO_PROFILE, paths.DEMO_CONDITIONS["arrival"], tmp_path)
     assert condition == load_condition(paths.DEMO_CONDITIONS["arrival"], vessel)
     kept = saved.with_name(saved.name + ".previous")
     assert kept.read_text() == paths.DEMO_CONDITIONS["midvoyage"].read_text()
@@ -162,7 +162,7 @@ def test_audit_warnings_open_the_profile_with_a_notice(tmp_path):
 
     f = tmp_path / "fv22.toml"
     f.write_text(fv22_text().replace("vcg_m = 2.4", "vcg_m = 5.0"), encoding="utf-8")
-    vessel, condition, notices, _ = load_inputs(f, None, tmp_path / "work")
+    vessel, condition, notices, _, _ = load_inputs(f, None, tmp_path / "work")
     assert vessel.lightship.vcg_m == 5.0
     assert len(notices) == 1 and notices[0].startswith("Plausibility audit of fv22.toml: 1 warning")
     assert "lightship.vcg_m = 5 m above keel" in notices[0]
@@ -175,7 +175,7 @@ def test_start_up_hands_its_result_to_the_screen_which_does_not_evaluate_again(t
     from deckload.core.stability import evaluate
 
     arrival = paths.DEMO_CONDITIONS["arrival"]
-    vessel, condition, _, result = load_inputs(paths.DEMO_PROFILE, arrival, tmp_path)
+    vessel, condition, _, result, _ = load_inputs(paths.DEMO_PROFILE, arrival, tmp_path)
     assert result is not None
     assert result.to_json_dict() == evaluate(vessel, condition).to_json_dict()
 

@@ -95,7 +95,7 @@ async def test_the_watch_day(tmp_path):
         await pilot.pause()
 
     # 9. reopen as `deckload` does: the working file comes back with its name
-    vessel2, condition2, _, _ = load_inputs(None, None, work)
+    vessel2, condition2, _, _, _ = load_inputs(None, None, work)
     assert condition2.name == NAME and condition2.modified_from == ""
     assert condition2.water_density_t_m3 == 1.010
     app2 = create_app(vessel2, condition2, work_dir=work, log_dir=logs, officer="JS", profile_path=paths.DEMO_PROFILE)

@@ -12,9 +12,10 @@ from deckload.core.trimmed_tables import tables_basis
 CAUTION = vf.CAUTION
 
 
-def format_summary(r: Result, tables: str | None = None) -> str:
+def format_summary(r: Result, tables: str | None = None, doubts: tuple[str, ...] = ()) -> str:
     """A plain-text summary of a result, for the terminal; ``tables`` is the sentence saying which
-    hydrostatic and KN tables were used (:func:`deckload.core.trimmed_tables.tables_basis`)."""
+    hydrostatic and KN tables were used (:func:`deckload.core.trimmed_tables.tables_basis`);
+    ``doubts`` the profile's plausibility-audit warnings, printed before the verdict they may undo."""
     # below the last printed decimal the words of the report: upright, even keel (not "0.00° stbd")
     if r.list_deg is None:
         list_text = f"{vf.NO_EQUILIBRIUM:>23}"
@@ -82,6 +83,8 @@ def format_summary(r: Result, tables: str | None = None) -> str:
     if r.warnings:
         lines += ["", "  Warnings"]
         lines += [f"    ! {w.message}" for w in r.warnings]
+    if doubts:
+        lines += [""] + vf.doubts_block(doubts)
     lines += [""] + vf.verdict_lines(r, 100, "  ") + ["", CAUTION]
     return "\n".join(lines)
 
@@ -103,15 +106,17 @@ def format_comparison(cmp) -> str:
 def load_and_evaluate(profile_path: Path, condition_path: Path):
     """Load a profile and a condition and evaluate them, for the commands that print results.
 
-    Returns ``(vessel, condition, result)``, or the exit status after printing what is
-    wrong to stderr: 1 for bad input (naming the file and key), 2 for an unreadable file.
+    Returns ``(vessel, condition, result, doubts)`` — ``doubts`` the plausibility audit's warnings
+    on the profile, one line each (:func:`deckload.report.audit_findings.doubt_lines`), which every
+    printout carries — or the exit status after printing what is wrong to stderr: 1 for bad input
+    (naming the file and key), 2 for an unreadable file.
     """
     from deckload.core.loading import LoadingError
     from deckload.core.stability import evaluate
     from deckload.core.tables import OutOfRangeError
     from deckload.io.profiles import ProfileError, load_condition
 
-    from deckload.report.audit_findings import load_audited, refuse_or_notice
+    from deckload.report.audit_findings import doubt_lines, load_audited, refuse_or_notice
 
     try:
         profile = load_audited(profile_path)  # from the profile cache when its files are unchanged
@@ -120,7 +125,7 @@ def load_and_evaluate(profile_path: Path, condition_path: Path):
         # inertia beyond her hull) is never used, by any command (issue 12: the screen already refused it).
         refuse_or_notice(profile_path, profile.found)
         condition = load_condition(condition_path, vessel)
-        return vessel, condition, evaluate(vessel, condition)
+        return vessel, condition, evaluate(vessel, condition), doubt_lines(profile.found)
     except ProfileError as e:
         print(str(e), file=sys.stderr)
         return 1
@@ -130,6 +135,12 @@ def load_and_evaluate(profile_path: Path, condition_path: Path):
     except OSError as e:
         print(f"deckload: cannot read {e.filename}: {e.strerror}", file=sys.stderr)
         return 2
+
+
+def print_doubts(doubts, profile_path: Path) -> None:
+    """The profile's audit warnings on stderr, for the commands whose output has no place for them."""
+    if doubts:
+        print(f"deckload: {Path(profile_path).name}:", *vf.doubts_block(doubts), sep="\n", file=sys.stderr)
 
 
 def direct_comparison(profile_path: Path, vessel, result: Result):
@@ -147,15 +158,15 @@ def direct_comparison(profile_path: Path, vessel, result: Result):
 
 def load_evaluate_compare(profile_path: Path, condition_path: Path, direct: bool):
     """:func:`load_and_evaluate`, then (with ``direct``) :func:`direct_comparison`: returns
-    ``(vessel, condition, result, comparison or None)``, or the exit status of the first refusal."""
+    ``(vessel, condition, result, doubts, comparison or None)``, or the exit status of the first refusal."""
     loaded = load_and_evaluate(profile_path, condition_path)
     if isinstance(loaded, int):
         return loaded
-    vessel, condition, result = loaded
+    vessel, condition, result, doubts = loaded
     cmp = direct_comparison(profile_path, vessel, result) if direct else None
     if isinstance(cmp, int):
         return cmp
-    return vessel, condition, result, cmp
+    return vessel, condition, result, doubts, cmp
 
 
 def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False, direct: bool = False) -> int:
@@ -166,13 +177,15 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False,
     loaded = load_evaluate_compare(profile_path, condition_path, direct)
     if isinstance(loaded, int):
         return loaded
-    vessel, _, result, cmp = loaded
+    vessel, _, result, doubts, cmp = loaded
     basis = tables_basis(vessel, result.trim_m)
     if as_json:
         import json
 
         doc = result.to_json_dict()
         doc["tables_basis"] = basis.as_dict()
+        # the profile's audit warnings travel with the numbers they may have made wrong
+        doc["profile_audit_warnings"] = list(doubts)
         if cmp is not None:
             doc["direct"] = {"method": "hull geometry, free trim and heel, actual G",
                              "rows": [{"quantity": n, "unit": u, "tables": a, "direct": b} for n, u, a, b in cmp.rows],
@@ -181,7 +194,7 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False,
         doc["caution"] = CAUTION
         print(json.dumps(doc, indent=1, ensure_ascii=False, allow_nan=False))
     else:
-        text = format_summary(result, basis.words)
+        text = format_summary(result, basis.words, doubts)
         extra = []
         keel = vessel.particulars.keel_thickness_m
         if keel > 0.0:

@@ -66,7 +66,7 @@ def run_log(args) -> int:
 
 
 def _record(args) -> int:
-    from deckload.cli.calc import load_and_evaluate
+    from deckload.cli.calc import load_and_evaluate, print_doubts
     from deckload.logbook import KINDS, validate_initials
 
     try:
@@ -80,7 +80,8 @@ def _record(args) -> int:
     loaded = load_and_evaluate(args.profile, args.condition)
     if isinstance(loaded, int):
         return loaded
-    vessel, condition, result = loaded
+    vessel, condition, result, doubts = loaded
+    print_doubts(doubts, args.profile)
     directory = _log_dir(args)
     book = Logbook.open(directory, vessel.particulars.name, ship_offset=getattr(args, "ship_offset", None))
     try:

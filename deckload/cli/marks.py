@@ -11,7 +11,7 @@ from __future__ import annotations
 import sys
 from pathlib import Path
 
-from deckload.cli.calc import CAUTION, load_and_evaluate
+from deckload.cli.calc import CAUTION, load_and_evaluate, print_doubts
 
 
 def format_marks(vessel, condition, result, observed_readings=None) -> str:
@@ -64,7 +64,8 @@ def run_marks(profile_path: Path, condition_path: Path, readings: list[float] | 
     loaded = load_and_evaluate(profile_path, condition_path)
     if isinstance(loaded, int):
         return loaded
-    vessel, condition, result = loaded
+    vessel, condition, result, doubts = loaded
+    print_doubts(doubts, profile_path)
     if vessel.draft_marks is None:
         print(f"{profile_path}: the profile has no [draft_marks] (see vessel_profiles/README.md)", file=sys.stderr)
         return 1

@@ -40,15 +40,17 @@ def run_report(profile_path: Path, condition_path: Path, html: bool, output: Pat
         except OutputRefused as e:
             print(f"deckload report: {e}: no report written; name another file", file=sys.stderr)
             return 1
-    vessel, condition, result, comparison = loaded
+    vessel, condition, result, doubts, comparison = loaded
     stamp = clock_stamp()
     source = Path(condition_path).name + _log_anchor_text(vessel.particulars.name)
     if html:
-        doc = condition_report.render_report_html(result, vessel, condition, stamp=stamp, source=source, comparison=comparison)
+        doc = condition_report.render_report_html(result, vessel, condition, stamp=stamp, source=source, comparison=comparison,
+                                                     doubts=doubts)
         if not condition_report.html_fits_a4(doc):
             print("deckload: note: this condition's report runs to more than one A4 page", file=sys.stderr)
     else:
-        doc = condition_report.render_report_text(result, vessel, condition, stamp=stamp, source=source, comparison=comparison)
+        doc = condition_report.render_report_text(result, vessel, condition, stamp=stamp, source=source, comparison=comparison,
+                                                     doubts=doubts)
     if output is None:
         sys.stdout.write(doc)
         return 0

@@ -18,6 +18,7 @@ from deckload.core.frozen import frozen
 from deckload.core.model import Vessel
 from deckload.io.profiles import Reading
 from deckload.io.tomlcheck import Problem, ProfileError
+from deckload.report import verdict_format as vf
 
 if TYPE_CHECKING:
     from deckload.core.audit import Finding
@@ -64,15 +65,20 @@ class AuditError(ProfileError):
         return "\n".join([head, *(str(p) for p in self.problems)])
 
 
+def doubt_lines(found) -> tuple[str, ...]:
+    """The audit's warnings (doubts), one line each, ``key = value: why``: what every result of the
+    profile carries to the officer (the screen's notice, calc, the report), not ``check`` alone."""
+    return tuple(f"{x.finding.key} = {x.finding.value}: {x.finding.why}" for x in found if not x.is_error)
+
+
 def warnings_notice(found: list[Located], path: str | os.PathLike, shown: int = 3) -> str | None:
-    """One notice for the loading screen naming the audit's warnings (doubts), or None."""
-    doubts = [x for x in found if not x.is_error]
-    if not doubts:
+    """One notice naming the audit's warnings (doubts), or None."""
+    lines = doubt_lines(found)
+    if not lines:
         return None
-    lines = [f"{x.finding.key} = {x.finding.value}: {x.finding.why}" for x in doubts[:shown]]
-    more = f" … and {len(doubts) - shown} more" if len(doubts) > shown else ""
-    return (f"Plausibility audit of {Path(path).name}: {len(doubts)} warning{'s' if len(doubts) != 1 else ''} "
-            f"(compare with the booklet; deckload check lists them): " + "; ".join(lines) + more)
+    more = f" … and {len(lines) - shown} more" if len(lines) > shown else ""
+    return (f"Plausibility audit of {Path(path).name}: {len(lines)} warning{'s' if len(lines) != 1 else ''} "
+            f"({vf.DOUBTS_HEADING}): " + "; ".join(lines[:shown]) + more)
 
 
 def audit_or_refuse(path: str | os.PathLike, vessel: Vessel) -> str | None:

@@ -377,7 +377,7 @@ def _gz_table(result: Result) -> Table:
     return t
 
 
-def _closing(result: Result) -> Group:
+def _closing(result: Result, doubts: tuple[str, ...] = ()) -> Group:
     t = Text()
     full = _paragraphs_in_full(result)
     if full:
@@ -398,6 +398,8 @@ def _closing(result: Result) -> Group:
                 continue
             t.append(f"  {'DANGER' if w.severity == 'danger' else 'caution'}: {w.message}\n",
                      style="red" if w.severity == "danger" else "")
+    for line in vf.doubts_block(doubts, TEXT_WIDTH - 2, indent=""):
+        t.append(line + "\n", style="bold" if not line.startswith(" ") else "")
     failed = vf.failed(result)
     t.append("Verdict: " + result.verdict_text(), style="bold red" if failed else "bold")
     if failed:
@@ -454,7 +456,7 @@ class _Parts:
 
 
 def _parts(result: Result, vessel: Vessel, condition: Condition, stamp: str | None, source: str | None,
-           comparison=None) -> _Parts:
+           comparison=None, doubts: tuple[str, ...] = ()) -> _Parts:
     body = (_items(result, condition), _deadweight(result), _free_surface(result), _criteria(result))
     if comparison is not None:
         body += (_direct(comparison),)
@@ -462,7 +464,7 @@ def _parts(result: Result, vessel: Vessel, condition: Condition, stamp: str | No
         header=_header(result, vessel, condition, stamp, source),
         summary=_summary(result, vessel),
         body=body,
-        closing=_closing(result),
+        closing=_closing(result, doubts),
         weather=_weather(result),
     )
 
@@ -477,11 +479,12 @@ def _console(width: int = TEXT_WIDTH) -> Console:
 
 def render_report_text(
     result: Result, vessel: Vessel, condition: Condition, *, stamp: str | None = None, source: str | None = None,
-    comparison=None,
+    comparison=None, doubts: tuple[str, ...] = (),
 ) -> str:
     """The report as plain text, :data:`TEXT_WIDTH` characters wide; with ``comparison``
-    (:func:`deckload.core.equilibrium.compare`) the direct calculation is printed beside the tables."""
-    p = _parts(result, vessel, condition, stamp, source, comparison)
+    (:func:`deckload.core.equilibrium.compare`) the direct calculation is printed beside the tables;
+    ``doubts``: the profile's plausibility-audit warnings, printed before the verdict."""
+    p = _parts(result, vessel, condition, stamp, source, comparison, doubts)
     con = _console()
     con.print(p.header)
     side = Table.grid(padding=(0, 6))
@@ -745,10 +748,11 @@ def html_fits_a4(html_text: str) -> bool:
 
 def render_report_html(
     result: Result, vessel: Vessel, condition: Condition, *, stamp: str | None = None, source: str | None = None,
-    comparison=None,
+    comparison=None, doubts: tuple[str, ...] = (),
 ) -> str:
-    """The report as one self-contained HTML page with print CSS for A4 portrait."""
-    p = _parts(result, vessel, condition, stamp, source, comparison)
+    """The report as one self-contained HTML page with print CSS for A4 portrait (``doubts`` as
+    for :func:`render_report_text`)."""
+    p = _parts(result, vessel, condition, stamp, source, comparison, doubts)
     header, n_header = _export(p.header, TEXT_WIDTH)
     summary, n_summary = _export(p.summary, 52)
     body = [_export(b, TEXT_WIDTH) for b in p.body]

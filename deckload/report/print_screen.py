@@ -39,16 +39,17 @@ def _free(folder: Path, stem: str) -> str:
 
 
 def print_result(result: Result, vessel: Vessel, condition: Condition, folder: Path, *,
-                 source: str, log_anchor: str = "") -> Printed:
-    """Write the HTML and text reports of ``result`` to ``folder``; raises OSError if it cannot."""
+                 source: str, log_anchor: str = "", doubts: tuple[str, ...] = ()) -> Printed:
+    """Write the HTML and text reports of ``result`` to ``folder``; raises OSError if it cannot.
+    ``doubts``: the profile's plausibility-audit warnings, which the reports carry."""
     from deckload.io.atomicfile import write_atomic
     from deckload.logbook import clock_stamp, utc_now
     from deckload.report.condition_report import render_report_html, render_report_text
 
     stamp = clock_stamp()
     where = source + log_anchor
-    html = render_report_html(result, vessel, condition, stamp=stamp, source=where)
-    text = render_report_text(result, vessel, condition, stamp=stamp, source=where)
+    html = render_report_html(result, vessel, condition, stamp=stamp, source=where, doubts=doubts)
+    text = render_report_text(result, vessel, condition, stamp=stamp, source=where, doubts=doubts)
     folder.mkdir(parents=True, exist_ok=True)
     stem = _free(folder, report_stem(vessel.particulars.name, condition.name, f"{utc_now():%Y%m%d-%H%M}"))
     html_path, text_path = folder / f"{stem}.html", folder / f"{stem}.txt"

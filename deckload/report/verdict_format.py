@@ -269,3 +269,22 @@ def grouped_not_assessed(pairs) -> str:
     for item, reason in pairs:
         by_reason.setdefault(str(reason), []).append(str(item))
     return "; ".join(f"{', '.join(items)}: {reason}" for reason, items in by_reason.items())
+
+
+DOUBTS_HEADING = "compare with the booklet; deckload check lists them with their lines"
+"""What the officer does with the profile's audit warnings, wherever they are printed."""
+
+
+def doubts_block(doubts, width: int = 100, indent: str = "  ") -> list[str]:
+    """The profile's plausibility-audit warnings (:func:`deckload.report.audit_findings.doubt_lines`)
+    as printed lines under a heading, or no lines: a doubt about a booklet value (a KMt, a lightship
+    KG) may have made every figure of the result wrong, so it is printed with the result, not only
+    by ``deckload check``."""
+    if not doubts:
+        return []
+    out = textwrap.wrap(f"Profile plausibility audit: {len(doubts)} warning{'s' if len(doubts) != 1 else ''} "
+                        f"on the vessel's data ({DOUBTS_HEADING}):", width, initial_indent=indent,
+                        subsequent_indent=indent)
+    for d in doubts:
+        out += textwrap.wrap(d, width, initial_indent=indent + "  - ", subsequent_indent=indent + "    ")
+    return out

@@ -173,7 +173,7 @@ def print_session(session):
     anchor = f" · voyage log at entry #{newest[0]}, SHA-256 {newest[1][:16]}" if newest else ""
     source = (session.save_path.name if session.save_path else "none") + " (the loading screen's working condition)"
     return print_result(session.result, session.vessel, session.condition, session.reports_dir,
-                        source=source, log_anchor=anchor)
+                        source=source, log_anchor=anchor, doubts=session.profile_doubts)
 
 
 class PlanEndForm(Form):

@@ -25,6 +25,8 @@ class Start(NamedTuple):
     condition: Condition
     notices: list[str]
     result: Result | None
+    doubts: tuple[str, ...] = ()
+    """The profile's plausibility-audit warnings, one line each (printed reports carry them)."""
 
 
 def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir: Path) -> Start:
@@ -43,7 +45,7 @@ def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir
     from deckload.io.profiles import ProfileError, load_condition
     from deckload.ui.session import working_path
 
-    from deckload.report.audit_findings import load_audited, refuse_or_notice
+    from deckload.report.audit_findings import doubt_lines, load_audited, refuse_or_notice
 
     notices: list[str] = []
     profile = load_audited(profile_path or paths.DEMO_PROFILE)  # from the profile cache when unchanged
@@ -53,6 +55,7 @@ def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir
     doubt = refuse_or_notice(profile_path or paths.DEMO_PROFILE, profile.found)
     if doubt:
         notices.append(doubt)
+    doubts = doubt_lines(profile.found)
     saved = working_path(work_dir, vessel)
     notices += _tidy_working_folder(work_dir, saved, vessel)
     if condition_path is not None:
@@ -63,19 +66,19 @@ def load_inputs(profile_path: Path | None, condition_path: Path | None, work_dir
             aside = paths.free_name(saved, ".previous")
             saved.replace(aside)
             notices.append(f"The previous working condition was kept as {aside}.")
-        return Start(vessel, condition, notices, result)
+        return Start(vessel, condition, notices, result, doubts)
     if saved.is_file():
         try:
             condition = load_condition(saved, vessel)
-            return Start(vessel, condition, notices, _usable(vessel, condition, saved))
+            return Start(vessel, condition, notices, _usable(vessel, condition, saved), doubts)
         except (ProfileError, OSError) as exc:
             aside = paths.free_name(saved, ".unreadable")
             saved.replace(aside)
             notices.append(f"Saved working condition could not be read and was moved to {aside}: {exc}")
     start = paths.demo_start_condition(profile_path)
     if start is not None:  # a packaged demo vessel opens on its departure condition
-        return Start(vessel, load_condition(start, vessel), notices, None)
-    return Start(vessel, Condition(name="Working condition"), notices, None)
+        return Start(vessel, load_condition(start, vessel), notices, None, doubts)
+    return Start(vessel, Condition(name="Working condition"), notices, None, doubts)
 
 
 def _usable(vessel: Vessel, condition: Condition, path: Path) -> Result | None:
@@ -137,7 +140,7 @@ def _tidy_working_folder(work_dir: Path, saved: Path, vessel: Vessel) -> list[st
 def create_app(
     vessel: Vessel, condition: Condition, *, work_dir: Path | None, log_dir: Path | None,
     notices=(), officer: str = "", profile_path: Path | None = None, result: Result | None = None,
-    after_first_frame: Callable[[], None] | None = None,
+    after_first_frame: Callable[[], None] | None = None, doubts: tuple[str, ...] = (),
 ):
     """The app over a finished vessel and condition; saves to ``work_dir``, logs to ``log_dir``.
 
@@ -145,6 +148,8 @@ def create_app(
     ``result``: ``evaluate(vessel, condition)`` if the caller already has it (start-up's check,
     :attr:`Start.result`), so the screen does not evaluate the same condition twice.
     ``after_first_frame``: called once the screen's first frame is drawn (start-up is over).
+    ``doubts``: the profile's plausibility-audit warnings (:attr:`Start.doubts`), which reports
+    printed from the screen carry.
     """
     from deckload.ui.app import DeckloadApp
     from deckload.ui.session import Session, working_path
@@ -164,6 +169,7 @@ def create_app(
     session.profile_path = profile_path
     session.work_dir = work_dir
     session.reports_dir = paths.reports_dir(log_dir) if log_dir is not None else None
+    session.profile_doubts = tuple(doubts)
     return DeckloadApp(session, notices=[*notices, *extra], after_first_frame=after_first_frame)
 
 
@@ -205,7 +211,7 @@ def run_open(profile_path: Path | None, condition_path: Path | None,
         return 2
     app = create_app(start.vessel, start.condition, work_dir=work_dir, log_dir=paths.log_dir(),
                      notices=start.notices, profile_path=profile_path or paths.DEMO_PROFILE,
-                     result=start.result, after_first_frame=after_first_frame)
+                     result=start.result, after_first_frame=after_first_frame, doubts=start.doubts)
     app.run()
     if getattr(app, "_exception", None) is not None:
         # The screen stopped on an error nobody foresaw: the boundary's message and crash file.

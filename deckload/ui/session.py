@@ -177,6 +177,8 @@ class Session:
         """The working-conditions folder (saved conditions are kept in it), when known."""
         self.reports_dir: Path | None = None
         """Where reports printed from the screen go, when known."""
+        self.profile_doubts: tuple[str, ...] = ()
+        """The profile's plausibility-audit warnings (audit_findings.doubt_lines): printed reports carry them."""
         self.journal = journal or Journal(None)
         self._evaluate = evaluate
         self._save = save
