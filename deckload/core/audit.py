@@ -96,6 +96,13 @@ LIGHTSHIP_TRIM_FRACTION = 0.05
 """Warning: the lightship, by the profile's own hydrostatics, trims more than 5 % of LBP
 (trims of 1–3 % L occur on trawlers and tugs; more suggests a datum slip; common practice)."""
 
+LIGHTSHIP_SHARE = (0.10, 1.0)
+"""Warning: a lightship below 10 % of her displacement at the summer mark (or, without one, at the
+design draft), or at or above it.  Lightships run from about an eighth of the summer displacement
+(a large tanker) to three quarters or more (tugs, fishing vessels, from memory); below a tenth a
+decimal point has slipped (265 t typed 26.5 t put a coaster's GM 1.6 m too high, found by an
+audit); at or above it she could carry nothing."""
+
 PAIR_TCG_ABS_M = 0.05
 PAIR_TCG_REL = 0.10
 """Warning: a pair's full-tank TCGs fail to mirror by more than max(0.05 m, 10 % of the larger).
@@ -170,6 +177,34 @@ than 20 % / 50 % of that line's value, along the heel AND along the displacement
 neighbours).  A decimal slip is 90 % or 900 %; the sharpest real bend (deck-edge immersion at 15°
 spacing on a box) is about 20 % along heel only (derived from checks.md §1.2 values)."""
 
+LONE_CELL_SETTLED = 0.25
+"""A lone mistyped cell: see :func:`lone_cell`.  Putting the cell on the chord through its
+neighbours must bring each neighbour to within a quarter of the cell's own departure of its
+chord, and each neighbour must depart by at least that much before (derived in lone_cell)."""
+
+LONE_CELL_FLOORS = {"kmt_m": (0.02, 0.01), "vcb_m": (0.02, 0.0), "kml_m": (0.02, 0.02),
+                    "mctc_tm_cm": (0.0, 0.02), "kn_m": (0.02, 0.02)}
+"""(metres or units, fraction of the value): a cell is judged only when it departs from the chord
+through its neighbours by more than the larger of the two.  1 % on KMt and 2 % on KML, MCTC and
+KN are beyond the UR L5 tolerances on those quantities (standards.md §5.3) and beyond what printed
+rounding makes; 2 cm is four printed half-centimetres.  LCB by :data:`LONE_CELL_LCB_LBP` × LBP.
+LCF and TPC are not judged: they are waterplane quantities that wobble with the hull's shape
+(a chine, a knuckle) at a spacing of rows that looks like a lone cell, and a slip in them moves
+the drafts by millimetres (the TPC against Δ check covers TPC)."""
+
+LONE_CELL_LCB_LBP = 0.002
+"""An LCB cell is judged beyond 0.2 % of LBP (a 0.27 m slip on a 30 m coaster moves her drafts by
+8–11 cm; common practice for what a draft reading notices)."""
+
+LONE_CELL_FSM_FRACTION = 0.05
+"""A tank's free-surface cell is judged beyond 5 % of the tank's largest tabulated value (an FSM
+typed a decimal place out changes GM by centimetres; 5 % is beyond any rounding of the column)."""
+
+LONE_CELL_ANGLE_DEG = 2.0
+"""A downflooding-angle cell is judged beyond 2° (angles are printed to 0.1°; a transposed digit
+moves one by 9° or more)."""
+
+
 EMPTY_FSI_RISE = 1.1
 """Warning: at the empty row (volume 0) the free surface is the limit from inside, the tank's
 bottom; a tank widens upward from its bottom (or keeps its breadth), so a value more than 10 %
@@ -201,6 +236,60 @@ def _f(x: float, unit: str = "m") -> str:
     # value, and fixed point would print hundreds of digits of a typing error: six significant
     s = f"{x:.4g}" if abs(x) < 1000 else f"{x:.1f}" if abs(x) < 1e6 else f"{x:.6g}"
     return f"{s} {unit}" if unit else s
+
+
+def lone_cell(x, y, floor) -> tuple[int, float, float] | None:
+    """The cell of a column that stands alone out of a smooth curve: ``(index, departure,
+    the value on the chord)`` for the largest such departure, or None.
+
+    The departure of an inner cell j is r_j = y_j − c_j, c_j the chord through its neighbours at
+    x_j.  A smooth curve departs by about h²·y''/8 at every cell alike; a kink (a chine, the deck
+    edge immersing) makes one cell depart and leaves its neighbours on their chords.  One mistyped
+    cell, y_j + δ, departs by δ and drags each neighbour's chord by δ·w (w its weight in that
+    chord, ½ at even spacing), so the neighbours depart by −δ·w, the other way (derived).  So a
+    cell is lone when (1) |r_j| exceeds ``floor(y_j)``; (2) each neighbour with a chord of its own
+    departs by at least :data:`LONE_CELL_SETTLED` × |r_j|; and (3) with y_j put on its chord c_j,
+    each of them departs by at most that: the mistyped cell explains its neighbours' bends.  A kink
+    fails (2); smooth curvature fails (3) (its neighbours bend alike, before and after).  Only a
+    cell whose two neighbours have chords of their own is judged (from the third to the third-last;
+    five cells at least): with one neighbour, a kink between few rows (the deck edge immersing
+    between two drafts of a short KN column) looks alike.
+    """
+    x = np.asarray(x, dtype=float)
+    y = np.asarray(y, dtype=float)
+    n = len(y)
+    if n < 5:
+        return None
+
+    def departure(values, j):
+        w = (x[j] - x[j - 1]) / (x[j + 1] - x[j - 1])
+        return float(values[j] - (values[j - 1] + w * (values[j + 1] - values[j - 1])))
+
+    found = None
+    for j in range(2, n - 2):
+        r = departure(y, j)
+        if not abs(r) > floor(float(y[j])):
+            continue
+        near = (j - 1, j + 1)
+        if any(abs(departure(y, k)) < LONE_CELL_SETTLED * abs(r) for k in near):
+            continue
+        settled = y.copy()
+        settled[j] = y[j] - r
+        if all(abs(departure(settled, k)) <= LONE_CELL_SETTLED * abs(r) for k in near) \
+                and (found is None or abs(r) > abs(found[1])):
+            found = (j, r, float(y[j] - r))
+    return found
+
+
+def _lone_floor(name: str):
+    metres, fraction = LONE_CELL_FLOORS[name]
+    return lambda value: max(metres, fraction * abs(value))
+
+
+def _lone_why(r: float, chord: float, unit: str, along: str = "",
+              guess: str = "a transposed or mistyped digit?") -> str:
+    return (f"stands alone out of a smooth curve{along}: the line through its neighbours gives {chord:.4g}{unit} "
+            f"({r:+.3g}{unit} away), and with that value its neighbours lie smoothly again ({guess})")
 
 
 class _Audit:
@@ -330,6 +419,23 @@ class _Audit:
                      f"displacement she would trim {_f(abs(trim))} by the {'stern' if trim > 0 else 'head'}, "
                      f"more than {LIGHTSHIP_TRIM_FRACTION:g} × LBP", "the booklet's lightship particulars "
                      "and its lightship condition (trim)", "lightship-trim")
+
+    def lightship_share(self):
+        """The lightship against her loaded displacement (:data:`LIGHTSHIP_SHARE`)."""
+        v, h = self.v, self.v.hydrostatics
+        marks = {m.name: m.draft_m for m in v.load_lines}
+        draft, where = (marks["summer"], "the summer mark") if "summer" in marks else (self.T, "the design draft")
+        if not h.draft_m[0] <= draft <= h.draft_m[-1]:
+            return
+        loaded = float(np.interp(draft, h.draft_m, h.displacement_t))
+        share = v.lightship.mass_t / loaded
+        lo, hi = LIGHTSHIP_SHARE
+        if share < lo or share >= hi:
+            self.add(WARNING, "lightship.mass_t", ("lightship", "mass_t"), f"{v.lightship.mass_t:.6g} t",
+                     f"{share:.0%} of her displacement at {where} ({loaded:.6g} t at {draft:g} m): "
+                     + (f"a lightship is rarely below {lo:.0%} of it (a decimal point slipped?)" if share < lo
+                        else "she could carry nothing"),
+                     "the booklet's lightship particulars (inclining test summary)", "lightship-share")
 
     # ----------------------------------------------------------------- pairs
     def pairs(self):
@@ -505,6 +611,18 @@ class _Audit:
                              row(i), "hydro-lcb-lcf")
                     break
 
+        # A lone mistyped cell in a column that follows the draft smoothly.
+        for col, unit, floor in (("kmt_m", " m", _lone_floor("kmt_m")), ("vcb_m", " m", _lone_floor("vcb_m")),
+                                 ("kml_m", " m", _lone_floor("kml_m")),
+                                 ("mctc_tm_cm", " t·m/cm", _lone_floor("mctc_tm_cm")),
+                                 ("lcb_m", " m", lambda value: LONE_CELL_LCB_LBP * L)):
+            arr = getattr(h, col)
+            lone = None if arr is None else lone_cell(T, arr, floor)
+            if lone is not None:
+                i, r, chord = lone
+                self.add(WARNING, f"hydrostatics.{col}", hp + (col, i), f"{float(arr[i]):.5g}{unit}",
+                         _lone_why(r, chord, unit), row(i), "hydro-lone")
+
     def _check_mctc(self, row):
         """MCTC against the waterplane (always) and against KML (when given).
 
@@ -636,12 +754,51 @@ class _Audit:
             self.add(sev, "cross_curves.kn_m", cp + (i, j), _f(float(kn[i, j])),
                      f"stands out of a smooth curve: {frac:.0%} away from the line through its neighbours along "
                      f"{along} (a shifted decimal point or a transposed digit?)", where(i, j), "kn-outlier")
+            return  # the lone-cell test below would name the same cell again
+
+        # A lone mistyped cell along the heel (in each displacement's row) and along the
+        # displacement (in each heel's column); a column typed with the next heel's values makes
+        # its cell lone in every row, which is said.
+        floor = _lone_floor("kn_m")
+        rows = [(i, lone_cell(heel, kn[i, :], floor)) for i in range(len(disp))]
+        rows = [(i, x) for i, x in rows if x is not None]
+        named = None
+        if rows:
+            i, (j, r, chord) = max(rows, key=lambda ix: abs(ix[1][1]))
+            named = (i, j)
+            alike = sum(1 for _, x in rows if x[0] == j)
+            guess = (f"the {heel[j]:g}° value stands out so in {alike} of the {len(disp)} rows: a column typed "
+                     "with another heel's values?") if alike >= max(3, len(disp) // 2) else "a transposed or mistyped digit?"
+            self.add(WARNING, "cross_curves.kn_m", cp + (i, j), _f(float(kn[i, j])),
+                     _lone_why(r, chord, " m", " along the heel", guess), where(i, j), "kn-lone")
+        cols = [(j, lone_cell(disp, kn[:, j], floor)) for j in range(len(heel))]
+        cols = [(j, x) for j, x in cols if x is not None and (x[0], j) != named]
+        if cols:
+            j, (i, r, chord) = max(cols, key=lambda jx: abs(jx[1][1]))
+            self.add(WARNING, "cross_curves.kn_m", cp + (i, j), _f(float(kn[i, j])),
+                     _lone_why(r, chord, " m", " along the displacement"), where(i, j), "kn-lone")
 
     # ----------------------------------------------------------------- tanks
     def tanks(self):
         for i, t in enumerate(self.v.tanks):
             self.tank_fsi(i, t)
             self.tank_centres(i, t)
+            self.tank_lone_fsm(i, t)
+
+    def tank_lone_fsm(self, i: int, t: Tank):
+        """A lone mistyped free-surface cell (an FSM typed a decimal place out in one row)."""
+        cal = t.calibration
+        fsi = cal.fsi_m4
+        if not t.level_known or t.fsi_given == "max" or len(fsi) < 5:
+            return
+        top = float(np.max(fsi))
+        lone = lone_cell(cal.volume_m3, fsi, lambda value: LONE_CELL_FSM_FRACTION * top)
+        if lone is not None:
+            r, (k, d, chord) = t.density_t_m3, lone
+            self.add(WARNING, f"tank[{t.id}].calibration.fsi_m4", ("tank", i, "calibration", "fsi_m4", k),
+                     f"{float(fsi[k]):.5g} m⁴ (FSM {float(fsi[k]) * r:.4g} t·m) at sounding {cal.sounding_m[k]:.4g} m",
+                     _lone_why(d * r, chord * r, " t·m"), f"the booklet's calibration table of tank {t.id} "
+                     "(free-surface column)", "tank-lone")
 
     def tank_fsi(self, i: int, t: Tank):
         cal = t.calibration
@@ -751,6 +908,15 @@ class _Audit:
                          f"the curve lies wholly outside the displacements she can have (lightship {light:.5g} t to "
                          f"the table's {top:.5g} t): it can never be used{'.' + drafts if drafts else ''}", look,
                          "curve-range")
+                continue
+            angle = curve.kind == "downflooding_deg"
+            unit = "°" if angle else " m"
+            col = {"downflooding_deg": "angle_deg"}.get(curve.kind, curve.kind)  # the column's name in the file
+            lone = lone_cell(d, curve.value, (lambda value: LONE_CELL_ANGLE_DEG) if angle else _lone_floor("kmt_m"))
+            if lone is not None:
+                i, r, chord = lone
+                self.add(WARNING, f"{name}.{col}", (name, col, i), f"{float(curve.value[i]):.5g}{unit} at "
+                         f"{float(d[i]):.5g} t", _lone_why(r, chord, unit), look, "curve-lone")
         k = v.cross_curves
         if float(k.displacement_t[-1]) < float(h.displacement_t[0]) or float(k.displacement_t[0]) > top:
             self.add(ERROR, "cross_curves.displacement_t", ("cross_curves", "displacement_t", 0),
@@ -806,6 +972,7 @@ def audit(vessel: Vessel) -> tuple[Finding, ...]:
     a = _Audit(vessel)
     a.positions()
     a.lightship_trim()
+    a.lightship_share()
     a.pairs()
     a.hydrostatics()
     a.cross_curves()

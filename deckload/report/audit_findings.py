@@ -240,6 +240,9 @@ def _anchor(f: Finding, vessel: Vessel, r: int) -> tuple[str, float] | None:
             sets = vessel.trimmed.hydrostatics if hydro else vessel.trimmed.cross_curves
             even = vessel.hydrostatics if hydro else vessel.cross_curves
             return "displacement_t", float([t for t in sets if t is not even][p[1]].displacement_t[r])
+        if p[0] in ("downflooding", "limit_curve"):
+            curve = vessel.downflooding if p[0] == "downflooding" else vessel.limit_curve
+            return "displacement_t", float(curve.displacement_t[r])
         if p[0] == "tank" and len(p) > 2 and p[2] == "calibration":
             return "volume_m3", float(vessel.tanks[p[1]].calibration.volume_m3[r])
     except IndexError:

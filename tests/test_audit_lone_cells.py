@@ -1,0 +1,81 @@
+"""A lone mistyped cell in a booklet table: the audit's test (deckload.core.audit.lone_cell).
+
+An officer typing a booklet transposes two digits of one KMt, types one KN column with the next
+heel's values or one FSM a decimal place out.  Each is a valid number that every range check
+passes, and each moves GM or GZ by decimetres: a transposed KMt at one row (3.489 typed 3.849)
+gave GM 0.36 m too high and "Met" (found by an audit).  The test and its derivation are in
+lone_cell's docstring: one wrong cell departs from the chord through its neighbours by δ and bends
+its neighbours the other way by δ/2 (even spacing); a kink or a smooth curve does neither.  Checked
+here on closed forms (derived below), on the exact KN of checks.md §1.2 (box barge: the deck edge
+immerses at 21.8°, a kink in KN), on both demo vessels (no false alarm), and on the demo's own
+tables with one cell mistyped (each found, as a WARNING naming the cell).
+"""
+
+from __future__ import annotations
+
+import dataclasses
+
+import numpy as np
+import pytest
+
+from deckload.core import audit as au
+from deckload.core.audit import WARNING, audit, lone_cell
+from deckload.core.model import frozen_array
+from demo_vessels import demo_vessel, trawler_vessel
+
+LONE = ("hydro-lone", "kn-lone", "tank-lone", "curve-lone")
+X = np.arange(11.0)
+
+
+def test_a_smooth_curve_and_a_kink_have_no_lone_cell():
+    """y = x²: every chord departs by −h² = −1 (y_j − (y_{j−1} + y_{j+1})/2 = −1 at h = 1), past the
+    floor 0.5, but a neighbour still departs by −1 + ½ = −0.5 after the cell is put on its chord: not
+    lone.  y = |x − 5|: the kink departs by −1 and its neighbours by 0: not lone (derived)."""
+    assert lone_cell(X, X**2, lambda v: 0.5) is None
+    assert lone_cell(X, np.abs(X - 5.0), lambda v: 0.5) is None
+
+
+@pytest.mark.parametrize("j", [2, 5, 8])
+def test_one_wrong_cell_on_a_line_is_found_with_its_chord(j):
+    """y = 2x + 3 with y_j raised by 0.5: the cell departs by exactly 0.5 from the chord 2j + 3; its
+    neighbours depart by −0.25 (half of it, the other way) and by 0 once it is on the chord (derived)."""
+    y = 2.0 * X + 3.0
+    y[j] += 0.5
+    i, r, chord = lone_cell(X, y, lambda v: 0.1)
+    assert (i, r, chord) == (j, pytest.approx(0.5, abs=1e-12), pytest.approx(2.0 * j + 3.0, abs=1e-12))
+    assert lone_cell(X, y, lambda v: 0.5) is None  # at the floor itself: not judged
+
+
+@pytest.mark.parametrize("j", [0, 1, 9, 10])
+def test_a_cell_whose_neighbours_lack_chords_is_not_judged(j):
+    """An end cell has no chord; the second and the last-but-one have one neighbour with a chord,
+    and there a kink between few rows looks alike (lone_cell's docstring)."""
+    y = 2.0 * X + 3.0
+    y[j] += 5.0
+    assert lone_cell(X, y, lambda v: 0.1) is None
+
+
+@pytest.mark.parametrize("drafts", [[1.0, 1.6, 2.2, 2.6], [0.8, 1.0, 1.6, 2.2, 2.6, 2.9], [1.0, 1.3, 1.6, 1.9, 2.2, 2.5, 2.8]])
+def test_the_box_kn_along_the_displacement_has_no_lone_cell(drafts):
+    """tests/box_profile_text.py's 22 m box (B 6.5 m, D 3 m) with KN at those drafts from the closed
+    forms of checks.md §1.2: at a fixed heel the deck edge immerses or the bilge emerges between two
+    of the drafts, a kink along the displacement, not a wrong cell."""
+    from vessel_factories import box_kn_m
+
+    for heel in range(5, 91, 5):
+        kn = [box_kn_m(6.5, 3.0, t, np.radians(heel)) for t in drafts]
+        assert lone_cell(drafts, kn, au._lone_floor("kn_m")) is None, heel
+
+
+@pytest.mark.parametrize("share, flagged", [(0.05, True), (0.099, True), (0.101, False), (0.5, False), (1.01, True)])
+def test_a_lightship_far_from_her_loaded_displacement_is_a_doubt(share, flagged):
+    """The demo's lightship set to a share of her displacement at the summer mark (2.9 m), read from
+    her own hydrostatic table: below a tenth is a doubt (deckload.core.audit.LIGHTSHIP_SHARE, from
+    memory), and so is at or above it (she carries nothing)."""
+    v = demo_vessel()
+    summer = next(m.draft_m for m in v.load_lines if m.name == "summer")
+    loaded = float(np.interp(summer, v.hydrostatics.draft_m, v.hydrostatics.displacement_t))
+    light = dataclasses.replace(v, lightship=dataclasses.replace(v.lightship, mass_t=share * loaded))
+    found = [f for f in audit(light) if f.check == "lightship-share"]
+    assert len(found) == flagged and all(f.severity == WARNING and f.key == "lightship.mass_t" for f in found)
+    assert [f for f in audit(v) if f.check == "lightship-share"] == []
