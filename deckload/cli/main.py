@@ -283,6 +283,16 @@ def _run(args: argparse.Namespace, cmd: str) -> int:
             print(missing, file=sys.stderr)
             return 2
     if cmd == "open":
+        from deckload.io.textsafe import narrow_encoding
+
+        narrow = narrow_encoding(sys.__stdout__)
+        if narrow is not None:
+            # The screen draws its boxes, bars and curve in characters this terminal cannot show:
+            # it would print them as "\u2502" and shift every column.
+            print(f"deckload: the loading screen needs a terminal that shows UTF-8 (this one writes {narrow}): "
+                  "set LANG or LC_ALL to a UTF-8 locale (e.g. C.UTF-8) and start it again; calc, report and "
+                  "check print plain text in this terminal", file=sys.stderr)
+            return 2
         from deckload.ui.launch import run_open
 
         return run_open(getattr(args, "profile", None), getattr(args, "condition", None),

@@ -10,6 +10,7 @@ Line feeds and tabs are ordinary text; a carriage return only as part of ``\\r\\
 
 from __future__ import annotations
 
+import codecs
 import re
 
 _CONTROL = "\x00-\x08\x0b\x0c\x0e-\x1f\x7f-\x9f\u200e\u200f\u202a-\u202e\u2066-\u2069\u2028\u2029"
@@ -35,14 +36,59 @@ def control_char(text: str) -> str | None:
     return None if m is None else _esc(m)
 
 
+PLAIN = {
+    "·": ".", "°": " deg", "−": "-", "θ": "th", "–": "-", "—": "-", "³": "3", "§": "par.", "Δ": "D",
+    "²": "2", "φ": "phi", "×": "x", "…": "...", "ρ": "rho", "→": "->", "≥": ">=", "Σ": "sum ", "≤": "<=",
+    "⁴": "4", "∇": "V", "±": "+/-", "ψ": "psi", "√": "sqrt", "₀": "0", "≈": "~", "∫": "int ", "δ": "d",
+    "½": "1/2", "₁": "1", "†": "+", "π": "pi", "ζ": "zeta", "▲": "^", "■": "#", "←": "<-", "÷": "/",
+    "ₙ": "n", "₋": "-", "∓": "-/+", "┆": "|", "●": "*", "◆": "*", "η": "eta", "“": '"', "”": '"',
+    "⇄": "<->", "✔": "OK", "✖": "X", "’": "'", "‘": "'", "│": "|", "─": "-",
+}
+"""Plain-text stand-ins for the characters deckload prints, for a terminal whose encoding lacks
+them (a Latin-1 or ASCII locale): the degree sign becomes " deg", Δ "D", ≥ ">=" and so on; any
+other character a "?"."""
+
+
+def _plain(err: UnicodeError):
+    if not isinstance(err, UnicodeEncodeError):
+        raise err
+    return "".join(PLAIN.get(c, "?") for c in err.object[err.start:err.end]), err.end
+
+
+codecs.register_error("deckload-plain", _plain)
+
+SHOWN_CHARACTERS = "°Δ·θ—≥▲│✔"
+"""Characters every printout and the screen use: a terminal encoding that lacks one of them is
+narrow (:func:`narrow_encoding`)."""
+
+
+def narrow_encoding(stream) -> str | None:
+    """The stream's encoding when it cannot write what deckload prints (e.g. ``ascii`` or
+    ``latin-1``: a terminal in a non-UTF-8 locale), else None."""
+    encoding = getattr(stream, "encoding", None) or "utf-8"
+    try:
+        SHOWN_CHARACTERS.encode(encoding)
+    except (UnicodeEncodeError, LookupError):
+        return encoding
+    return None
+
+
 class EscapingStream:
-    """A text stream that escapes control characters on their way to the terminal."""
+    """A text stream that escapes control characters on their way to the terminal, and writes
+    the characters its encoding lacks as plain text (:data:`PLAIN`) instead of failing."""
 
     def __init__(self, stream):
         self._stream = stream
+        self._narrow = narrow_encoding(stream)
 
     def write(self, s: str) -> int:
-        self._stream.write(escaped(s))
+        text = escaped(s)
+        if self._narrow is not None:
+            try:
+                text = text.encode(self._narrow, "deckload-plain").decode(self._narrow)
+            except LookupError:
+                text = text.encode("ascii", "deckload-plain").decode("ascii")
+        self._stream.write(text)
         return len(s)
 
     def __getattr__(self, name):
