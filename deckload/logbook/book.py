@@ -38,6 +38,10 @@ from deckload.logbook.records import (
 from deckload.logbook.storage import LogStore, TornRecovery, _split_lines
 
 
+MAX_TEXT_CHARS = 2000
+"""The longest change text or remark a log entry takes (a printed log stays readable)."""
+
+
 class Logbook:
     """One vessel's voyage log.  Open with :meth:`open`; close with :meth:`close`."""
 
@@ -174,8 +178,8 @@ class Logbook:
         if not isinstance(change_text, str) or not change_text.strip():
             raise ValueError("change text must say what changed (it is empty)")
         for what, text in (("change text", change_text), ("remark", remark)):
-            if not isinstance(text, str) or len(text) > 2000:
-                raise ValueError(f"{what}: at most 2000 characters of text")
+            if not isinstance(text, str) or len(text) > MAX_TEXT_CHARS:
+                raise ValueError(f"{what}: at most {MAX_TEXT_CHARS} characters of text")
             bad = control_char(text)
             if bad is not None:
                 raise ValueError(f"{what} holds the control character {bad}: type plain text")

@@ -140,17 +140,45 @@ class RecordForm(Form):
             yield Label("Your initials", classes="field-label")
             yield Input(value=self._initials, id="record-by", classes="field")
             yield Label("Remark (optional)", classes="field-label")
-            yield Input(id="record-remark", classes="field")
+            yield RemarkInput(id="record-remark", classes="field")
             yield Static("", id="form-message")
 
     def on_input_submitted(self, event: Input.Submitted) -> None:
+        from deckload.io.textsafe import control_char
+        from deckload.logbook.book import MAX_TEXT_CHARS
+
         event.stop()
         by = self.query_one("#record-by", Input).value.strip().upper()
         if not (1 <= len(by) <= 4 and by.isalpha() and by.isascii()):
             self.refuse("Initials: one to four letters A–Z, e.g. JS.")
             self.query_one("#record-by", Input).focus()
             return
-        self.dismiss((by, self.query_one("#record-remark", Input).value.strip()))
+        remark = self.query_one("#record-remark", Input)
+        text = remark.value.strip()
+        # refused here, the text kept in the field to shorten or mend (the log would refuse it
+        # after the form had closed, and the remark would be lost)
+        bad = control_char(text)
+        if len(text) > MAX_TEXT_CHARS or bad is not None:
+            self.refuse(f"Remark: at most {MAX_TEXT_CHARS} characters (this one has {len(text)}); shorten it."
+                        if bad is None else f"Remark: holds the control character {bad}; type plain text.")
+            remark.focus()
+            return
+        self.dismiss((by, text))
+
+
+class RemarkInput(Input):
+    """A one-line field that takes a pasted text of several lines whole, its lines joined by a
+    space (textual's Input keeps only the first line of a paste, and the rest was lost unseen)."""
+
+    def _on_paste(self, event) -> None:
+        if event.text:
+            line = " ".join(part.strip() for part in event.text.splitlines() if part.strip())
+            if self.selection.is_empty:
+                self.insert_text_at_cursor(line)
+            else:
+                self.replace(line, *self.selection)
+        event.stop()
+        event.prevent_default()  # textual would call Input's own paste handler too, adding the first line again
 
 
 def _cut(line: Text, width: int) -> Text:

@@ -701,7 +701,9 @@ class LoadingScreen(Screen[None]):
         try:
             printed = print_session(self.session)
         except (OSError, EntryError) as exc:
-            self.say(f"Report NOT written: {getattr(exc, 'strerror', None) or exc}", ok=False)
+            where = getattr(exc, "filename", None)
+            self.say(f"Report NOT written{f': {where}' if where else ''}: {getattr(exc, 'strerror', None) or exc}",
+                     ok=False)
             return
         self.say(f"Report written: {printed.html_path} (and .txt)")
         self.app.push_screen(ReportWritten(printed.html_path, printed.text_path, open_in_browser))
