@@ -93,6 +93,7 @@ class DeckloadApp(App[None]):
         self._held_watch = None
         self._key_returned = False
         self._hold_since: tuple[Screen, float] | None = None
+        self._swallow_until: float | None = None
 
     def _print_error_renderables(self) -> None:
         """An unforeseen error is reported by the launcher in one paragraph, the details in a
@@ -113,6 +114,8 @@ class DeckloadApp(App[None]):
 
     async def on_event(self, event: events.Event) -> None:
         if isinstance(event, events.Key) and not event.is_forwarded:  # typed
+            if self._swallowed(event):
+                return
             if self._held_keys or self._must_hold():
                 self._held_keys.append(event)
                 self._watch_held()
@@ -161,6 +164,26 @@ class DeckloadApp(App[None]):
         if self._hold_since is None or self._hold_since[0] is not screen:
             self._hold_since = (screen, now)
         return now - self._hold_since[1] < KEY_WAIT_S
+
+    def drop_typeahead(self) -> None:
+        """A key that opens a form was refused: the keys typed for that form are dropped, not
+        taken as the board's commands ('fuel received' typed after a refused ``s`` filled, undid
+        and emptied tanks).  Dropped: the keys held behind it, and those that follow, each within
+        KEY_WAIT_S of the one before, up to and including ⏎ or Esc (where the form would have
+        ended)."""
+        self._swallow_until = time.monotonic() + KEY_WAIT_S
+        while self._held_keys and self._swallowed(self._held_keys[0]):
+            self._held_keys.popleft()
+
+    def _swallowed(self, event: events.Key) -> bool:
+        if self._swallow_until is None:
+            return False
+        now = time.monotonic()
+        if now > self._swallow_until:
+            self._swallow_until = None
+            return False
+        self._swallow_until = None if event.key in ("enter", "escape") else now + KEY_WAIT_S
+        return True
 
     def release_keys(self) -> None:
         """Send the keys held back, in order, as far as nothing holds them (called when a key has

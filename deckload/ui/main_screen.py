@@ -215,6 +215,14 @@ class LoadingScreen(Screen[None]):
             self.call_after_refresh(self._cursor_in_view)  # the board lost or gained a row
         panel.set_lines(lines)
 
+    def refuse_form(self, message: str) -> None:
+        """Refuse a key that opens a form: say why, and drop what was typed for the form
+        (:meth:`deckload.ui.app.DeckloadApp.drop_typeahead`)."""
+        drop = getattr(self.app, "drop_typeahead", None)
+        if drop is not None:
+            drop()
+        self.say(message + " (keys typed for it are ignored up to ⏎ or Esc)", ok=False)
+
     def _cursor_in_view(self) -> None:
         board = self.query_one(LoadBoard)
         if board.cursor_key is not None:
@@ -437,7 +445,7 @@ class LoadingScreen(Screen[None]):
 
         s = self.session
         if s.stale or s.result is None:
-            self.say("The condition is outside the tables: the planner needs a result to start from.", ok=False)
+            self.refuse_form("The condition is outside the tables: the planner needs a result to start from.")
             return
 
         def done(p) -> None:
@@ -556,7 +564,7 @@ class LoadingScreen(Screen[None]):
     def action_record(self) -> None:
         j = self.session.journal
         if not j.writable:
-            self.say(f"The voyage log cannot be written ({j.problem or 'no log'}); nothing recorded.", ok=False)
+            self.refuse_form(f"The voyage log cannot be written ({j.problem or 'no log'}); nothing recorded.")
             return
 
         def done(answer) -> None:
@@ -572,7 +580,7 @@ class LoadingScreen(Screen[None]):
     def action_sign_on(self) -> None:
         j = self.session.journal
         if not j.writable:
-            self.say(f"The voyage log cannot be written ({j.problem or 'no log'}).", ok=False)
+            self.refuse_form(f"The voyage log cannot be written ({j.problem or 'no log'}).")
             return
 
         def build(text: str) -> str:
@@ -637,7 +645,7 @@ class LoadingScreen(Screen[None]):
 
         folder, stock_titles = save_target(self.session)
         if folder is None:
-            self.say("No working-conditions folder: this window cannot save conditions.", ok=False)
+            self.refuse_form("No working-conditions folder: this window cannot save conditions.")
             return
         c = self.session.condition
         initial = "" if c.modified_from else c.name
@@ -663,7 +671,7 @@ class LoadingScreen(Screen[None]):
 
         found = known_conditions(self.session)
         if not found:
-            self.say("No stock or saved conditions of this vessel to open.", ok=False)
+            self.refuse_form("No stock or saved conditions of this vessel to open.")
             return
 
         def done(named) -> None:
