@@ -136,6 +136,16 @@ def test_unknown_flood_fails_what_no_flood_angle_could_pass_and_leaves_the_rest_
     assert r.verdict_text().startswith("NOT MET (3 failed)")
 
 
+def test_unknown_flood_fails_gz_at_30_when_no_angle_reaches_it():
+    """KG 5.85 m: GM = 0.15 m, GZ = 0.15·sinφ never reaches 0.20 m (largest 0.15 m at 90°), so GZ at 30°
+    or more fails whatever θf is (IS 2008 Part A 2.2.2), the value the most it could be: 0.15 m."""
+    r = evaluate(vessel(kg_m=5.85, downflooding=OFF), Condition())
+    c = crit(r, "IS2008-A2.2.2-gz-30")
+    assert (c.assessed, c.passed) == (True, False)
+    assert c.value == pytest.approx(0.15, abs=TOL)
+    assert c.note == f"θf unknown ({REASON}): fails at any θf; the value is the most it could be"
+
+
 def test_unknown_flood_takes_the_largest_area_where_gz_falls_through_zero():
     """Box barge at T = 2 m (Δ = 820 t), KG 4.75 m, 1° KN columns: GZ falls through zero at θv ≈ 35.7°
     (bisection of the exact GZ, checks.md §1.2), before 40°.  An area cut at an unknown θf is largest with
@@ -231,6 +241,11 @@ def test_a_limiting_curve_off_the_displacement_is_listed_as_not_assessed():
     assert ("limiting KG/GM curve from the vessel profile", reason) in [(n.item, n.reason) for n in r.not_assessed]
     assert f"limiting KG/GM curve from the vessel profile ({reason})" in r.verdict_text()
     assert not [s for s in r.criteria_sets if s.id == "limit-curve"]
+    # in fresh water the curve is read at the table-equivalent 2000·1.025/1.000 = 2050 t (the same
+    # waterline: hydrostatics module, standards.md §6.3), and the reason says so
+    r = evaluate(vessel(limit_curve=lim), Condition(water_density_t_m3=1.0))
+    assert ("limiting KG/GM curve from the vessel profile", "displacement 2000.0 t (2050.0 t at the tables' density) "
+            "is outside the limiting curve, 5000–6000 t") in [(n.item, n.reason) for n in r.not_assessed]
     # read where it reaches: a set of its own, not listed as not assessed
     lim = LimitCurve(frozen_array([1000.0, 3000.0]), frozen_array([5.0, 5.0]), "max_kg_m")
     r = evaluate(vessel(limit_curve=lim), Condition())
