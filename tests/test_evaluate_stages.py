@@ -317,8 +317,10 @@ def test_criteria_stage_areas_and_is2008_general_criteria():
     assert a.area_0_40_mrad == pytest.approx(0.494738, abs=AREA_TOL)
     assert a.area_30_40_mrad == pytest.approx(0.178713, abs=AREA_TOL)
     assert a.flood_deg is None
-    # no deck-edge table (wall-sided estimate, common practice) and no windage data: cautions, no danger
-    assert [(n.code, n.severity) for n in a.notes] == [("deck-edge-approximate", "caution"),
+    # no downflooding angles (θf taken as none), no deck-edge table (wall-sided estimate, common
+    # practice) and no windage data: cautions, no danger
+    assert [(n.code, n.severity) for n in a.notes] == [("downflooding-not-given", "caution"),
+                                                       ("deck-edge-approximate", "caution"),
                                                        ("weather-not-assessed", "caution")]
     assert a.deck_edge_deg == pytest.approx(21.8014, abs=5e-5)  # checks.md §1.1: tanθ = (D − T)/(B/2) = 0.4
     by_id = {c.id: c for c in a.criteria}

@@ -120,7 +120,8 @@ def test_displacement_off_the_limiting_curve_is_a_danger_worded():
     r = evaluate(vessel(limit_curve=lim), Condition())
     notes = [(w.code, w.message, w.severity) for w in r.warnings if "limiting curve" in w.message]
     assert notes == [("limit-curve-range",
-                      "displacement 2000.0 t is outside the limiting curve: that check was not made", "danger")]
+                      "displacement 2000.0 t is outside the limiting curve, 5000–6000 t: that check was not made",
+                      "danger")]
 
 
 def test_approximate_deck_edge_angle_is_worded():

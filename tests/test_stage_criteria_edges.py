@@ -15,15 +15,17 @@ from vessel_factories import barge_at
 
 def test_displacement_off_the_downflooding_curve_is_worded():
     """Box barge 40 × 10 m at T = 2 m in sea water: Δ = 1.025·40·10·2 = 820 t (checks.md §1.1), off a
-    downflooding curve given for 5000–6000 t only: θf unknown, worked to 40° as if no openings."""
+    downflooding curve given for 5000–6000 t only: θf unknown, so the criteria worked to θf are not
+    assessable (IS 2008 Part A 2.2.1, 2.3: standards.md §1, §2.1 step 5)."""
     v, c = barge_at(2.0, 3.0)
     short = LimitCurve(frozen_array([5000.0, 6000.0]), frozen_array([35.0, 35.0]), "downflooding_deg")
     r = evaluate(dataclasses.replace(v, downflooding=short), c)
     assert r.downflooding_angle_deg is None
     notes = [w for w in r.warnings if w.code == "downflooding-range"]
     assert [(w.message, w.severity) for w in notes] == [(
-        "displacement 820.0 t is outside the downflooding-angle curve: θf is unknown "
-        "and the criteria are worked to 40° as if there were no openings", "danger")]
+        "displacement 820.0 t is outside the downflooding-angle curve, 5000–6000 t: θf is unknown, so the "
+        "criteria worked to θf (areas to 40° or θf, GZ at 30° or more, the weather criterion's θ2) are not "
+        "assessable, or failed where no θf could meet them", "danger")]
 
 
 def test_downflooding_exactly_at_30_degrees_is_not_called_below_30():

@@ -44,7 +44,7 @@ def format_summary(r: Result, tables: str | None = None, doubts: tuple[str, ...]
            f"allowed midships draft {vf.fmt_optional(r.load_line_allowed_draft_m, '.3f', ' m')}"]
           if r.load_line_mark is not None else []),
         f"  Deck edge in   {vf.fmt_optional(r.deck_edge_angle_deg, '.1f', '°'):>11}       "
-        f"θf {vf.fmt_optional(r.downflooding_angle_deg, '.1f', '°', 'not given'):>18}",
+        f"θf {vf.flood_words(r):>18}",
         f"  Free surface: rule {r.fs_rule}, GZ correction {r.gz_correction}",
     ] + ([f"  Tables: {tables}"] if tables else []) + ([f"  GZ curve ends at {r.gz_end_deg:g}°, the last angle of the KN tables: nothing beyond is known"]
          if r.gz_end_deg < 90.0 else []) + [

@@ -254,6 +254,10 @@ class Result:
     load_line_allowed_draft_m: float | None = None
     """Midships draft allowed at that mark in the water she floats in (m): the mark's draft plus
     the dock-water allowance (:attr:`dock_water_allowance_m`)."""
+    downflooding_given: bool = False
+    """The profile gives downflooding angles; with :attr:`downflooding_angle_deg` None they do not reach
+    this displacement (θf unknown: the criteria worked to θf are not assessable).  Without them θf is
+    taken as none (a caution says so)."""
 
     @property
     def dock_water_allowance_m(self) -> float | None:

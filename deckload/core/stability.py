@@ -36,13 +36,13 @@ import numpy as np
 
 from deckload.core import gz as gzmod
 from deckload.core.bounds import bounded
-from deckload.core.criteria import Measures, limit_curve_criterion
+from deckload.core.criteria import LIMIT_CURVE_SET, SET_TITLES, Measures, limit_curve_criterion
 from deckload.core.free_surface import BASIS_NONE, TankFreeSurface, free_surface, transfer_moment_m4
 from deckload.core.frozen import frozen
 from deckload.core.hydrostatics import Upright, draft_at, fresh_water_allowance_m, mark_density_t_m3, permitted_draft_m
 from deckload.core.loading import LoadingError, TankContents, WeightSum, hold_item, resolve_tanks, sum_weights
 from deckload.core.model import Condition, LoadLine, Vessel, effective_constants
-from deckload.core.result import CriterionResult, ItemResult, Result, TankResult, Warning
+from deckload.core.result import CriterionResult, ItemResult, NotAssessed, Result, TankResult, Warning
 from deckload.core.tables import OutOfRangeError, bracket, interp, lerp_row
 from deckload.core.verdict import Afloat, Verdict, assess, deck_edge_angle
 from deckload.core.soundings import level_soundings, sounding_note
@@ -359,11 +359,16 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
     # Both curves are tabulated against displacement at the table density, like the KN
     # curves they are made with: the same waterline, so the same equivalent displacement.
     flood = _curve_limit(vessel.downflooding, table_disp)
-    if vessel.downflooding is not None and flood is None:
+    flood_unknown = ""
+    if vessel.downflooding is None:
+        notes.append(Warning("downflooding-not-given", flood_not_given(curve.end_deg), "caution"))
+    elif flood is None:
+        flood_unknown = _off_curve(vessel.downflooding, "downflooding-angle curve", disp, table_disp)
         notes.append(Warning("downflooding-range",
-                             f"displacement {disp:.1f} t is outside the downflooding-angle curve: θf is unknown "
-                             "and the criteria are worked to 40° as if there were no openings", "danger"))
-    elif flood is not None and flood < 30.0:
+                             f"{flood_unknown}: θf is unknown, so the criteria worked to θf "
+                             "(areas to 40° or θf, GZ at 30° or more, the weather criterion's θ2) are not assessable, "
+                             "or failed where no θf could meet them", "danger"))
+    elif flood < 30.0:
         notes.append(Warning("downflooding-low",
                              f"downflooding angle θf {flood:.1f}° is below 30°: openings immerse before 30°, "
                              "so the 30°–θf area is nil", "danger"))
@@ -382,12 +387,13 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
     a_max = gzmod.area_to(gz, min(angle_of_max, flood) if flood is not None else angle_of_max)
     measures = Measures(a30, a40, a3040, gz30, angle_of_max, gm_fluid, a_max)
     limit_rows = []
+    limit_missing = None
     if vessel.limit_curve is not None:
         lim = _curve_limit(vessel.limit_curve, table_disp)
         if lim is None:
-            notes.append(Warning("limit-curve-range",
-                                 f"displacement {disp:.1f} t is outside the limiting curve: that check was not made",
-                                 "danger"))
+            off = _off_curve(vessel.limit_curve, "limiting curve", disp, table_disp)
+            notes.append(Warning("limit-curve-range", f"{off}: that check was not made", "danger"))
+            limit_missing = NotAssessed(SET_TITLES[LIMIT_CURVE_SET], off)
         else:
             limit_rows.append(limit_curve_criterion(vessel.limit_curve.kind, lim, kg_fluid, gm_fluid))
     deck_edge, deck_edge_note = deck_edge_angle(vessel, table_disp, floating.draft_mid_m)
@@ -403,8 +409,9 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
                            if d.windage_area_m2 is not None and d.windage_centroid_z_m is not None),
         deck_items_without_windage=tuple(d.name for d in condition.deck_items
                                          if d.windage_area_m2 is None or d.windage_centroid_z_m is None),
+        flood_unknown=flood_unknown,
     )
-    verdict = assess(vessel, afloat, limit_rows)
+    verdict = assess(vessel, afloat, limit_rows, limit_missing)
     criteria = list(verdict.criteria)
     if curve.end_deg < 90.0 - 1e-9:
         criteria = _short_curve(criteria, curve.end_deg, hi, top, f.max_gz_angle_deg)
@@ -487,6 +494,7 @@ def _result(vessel: Vessel, condition: Condition, weights: Weights, fs: FreeSurf
         max_gz_angle_deg=f.max_gz_angle_deg,
         vanishing_angle_deg=f.vanishing_angle_deg,
         downflooding_angle_deg=assessment.flood_deg,
+        downflooding_given=vessel.downflooding is not None,
         area_0_30_mrad=assessment.area_0_30_mrad,
         area_0_40_mrad=assessment.area_0_40_mrad,
         area_30_40_mrad=assessment.area_30_40_mrad,
@@ -527,6 +535,21 @@ def _items(vessel: Vessel, condition: Condition) -> list[ItemResult]:
         if it.mass_t < 0 or not math.isfinite(it.mass_t):
             raise LoadingError(f"{it.group} item {it.name!r}: mass {it.mass_t!r} t is not a non-negative number")
     return items
+
+
+def flood_not_given(end_deg: float) -> str:
+    """The caution of a profile with no downflooding angles: θf is taken as none, and what that means."""
+    return ("θf not given: the profile gives no downflooding angles, so θf is taken as none (no opening that "
+            f"floods): the areas run to 40°, GZ at 30° or more is read up to {end_deg:g}° and the weather "
+            "criterion's θ2 is the lesser of 50° and θc; check the booklet's downflooding angle")
+
+
+def _off_curve(curve, name: str, disp: float, table_disp: float) -> str:
+    """'displacement 820.0 t is outside the limiting curve, 900–1230 t', with the table-density
+    equivalent the curve is read at when the water differs from the tables' (the same waterline)."""
+    at = "" if abs(table_disp - disp) < 0.05 else f" ({table_disp:.1f} t at the tables' density)"
+    lo, hi = float(curve.displacement_t[0]), float(curve.displacement_t[-1])
+    return f"displacement {disp:.1f} t{at} is outside the {name}, {lo:g}–{hi:g} t"
 
 
 def _curve_limit(curve, displacement_t: float) -> float | None:

@@ -16,6 +16,7 @@ length): below 24 m the sets are still shown, with a note that national rules go
 from __future__ import annotations
 
 import math
+from dataclasses import replace
 
 import numpy as np
 
@@ -82,6 +83,10 @@ class Afloat:
     """(lateral area m², height of its centre above the keel m) of each deck item that states it."""
     deck_items_without_windage: tuple[str, ...] = ()
     """Names of the deck items that do not state their windage."""
+    flood_unknown: str = ""
+    """Why θf is unknown when the profile gives downflooding angles that do not reach this
+    displacement ('' otherwise): the criteria worked to θf are then not assessable
+    (:func:`without_flood`); ``flood_deg`` is None and the measures are those with no openings."""
 
 
 @frozen
@@ -190,6 +195,17 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
     if roll.outside_validity:
         note += "; outside the range the roll tables were made for (" + ", ".join(roll.outside_validity) + \
             "; standards.md §2.3, from memory)"
+    start = f.theta0_deg - roll.theta1_deg
+    if start < -end - 1e-9:
+        # Area a runs from θ0 − θ1; the curve to windward is known only to the KN tables' end, and
+        # area a cut there is too small, which flatters b/a (IS 2008 A 2.3.1.4 takes it from θ0 − θ1).
+        out.append(_crit("IS2008-A2.3-area-b-a", "Weather: area b against area a", f.area_b_mrad, f.area_a_mrad,
+                         "m·rad", ">=", srcb, WEATHER_SET,
+                         f"area a needs GZ to {-start:.1f}° to windward (θ0 − θ1), beyond the KN tables' {end:g}°: "
+                         f"not assessable (b {f.area_b_mrad:.4f} m·rad; a counted from {end:g}° only: {f.area_a_mrad:.4f} "
+                         "m·rad); " + note,
+                         assessed=False))
+        return out, None, None, notes
     # Where the KN tables stop before θ2 could be reached, area b is known only up to their end:
     # enough when it already covers a (more curve can only add to b), else not assessable.
     wanted = min(wx.THETA2_MAX_DEG, a.flood_deg) if a.flood_deg is not None else wx.THETA2_MAX_DEG
@@ -199,6 +215,24 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
                          "m·rad", ">=", srcb, WEATHER_SET,
                          f"needs GZ to {wanted:g}°, beyond the KN tables' {end:g}°: not assessable; " + note,
                          assessed=False))
+        return out, None, None, notes
+    if a.flood_unknown:
+        if f.theta2_deg is not None:
+            note = note.replace(f"θ2 {f.theta2_deg:.1f}°", f"θ2 {f.theta2_deg:.1f}° with no openings", 1)
+        # θ2 = min(θf, 50°, θc): between the first intercept and θc GZ lies above lw2, so area b only
+        # grows with θ2 and is largest with no opening at all, as worked here.  Short of a even then,
+        # it fails whatever θf is; else θf decides it (IS 2008 A 2.3.1.4, standards.md §2.1 step 5).
+        if f.area_b_mrad < f.area_a_mrad:
+            out.append(_crit("IS2008-A2.3-area-b-a", "Weather: area b against area a", f.area_b_mrad,
+                             f.area_a_mrad, "m·rad", ">=", srcb, WEATHER_SET,
+                             f"θf unknown ({a.flood_unknown}): b falls short of a even with θ2 at 50° or θc, "
+                             "the most any θf allows; " + note))
+        else:
+            out.append(_crit("IS2008-A2.3-area-b-a", "Weather: area b against area a", f.area_b_mrad,
+                             f.area_a_mrad, "m·rad", ">=", srcb, WEATHER_SET,
+                             f"θ2 = min(θf, 50°, θc) needs θf, unknown ({a.flood_unknown}): not assessable (b with no "
+                             f"openings {f.area_b_mrad:.4f} m·rad); " + note,
+                             assessed=False))
         return out, None, None, notes
     if cut:
         note += f"; area b counted to {end:g}°, where the KN tables end (already enough)"
@@ -279,6 +313,14 @@ def extra_criteria(vessel: Vessel, a: Afloat, weather: list[CriterionResult],
             hi = ec.to_deg if a.flood_deg is None else min(ec.to_deg, a.flood_deg)
             if hi > end + 1e-9:
                 why = f"needs GZ to {hi:g}°, " + short
+            elif a.flood_unknown:
+                # The area stops at θf when θf is less: with θf unknown it is at most the largest area
+                # from its start to any angle up to its end (IS 2008 A 2.2.1 cuts the areas at θf).
+                best = best_area(gz, ec.from_deg, ec.to_deg)
+                if best < ec.limit:
+                    value, note = best, fails_at_any_flood(a.flood_unknown)
+                else:
+                    why = needs_flood(a.flood_unknown)
             else:
                 value = max(0.0, gzmod.area_to(gz, hi) - gzmod.area_to(gz, ec.from_deg)) if hi > ec.from_deg else 0.0
         elif ec.kind == "min_gz_at":
@@ -319,8 +361,74 @@ def extra_criteria(vessel: Vessel, a: Afloat, weather: list[CriterionResult],
     return out
 
 
-def assess(vessel: Vessel, a: Afloat, limit_curve: list[CriterionResult]) -> Verdict:
-    """All criteria for the vessel's type, the sets with their result, and what was not assessed."""
+def best_area(gz: np.ndarray, lo_deg: float, hi_deg: float) -> float:
+    """The largest area under GZ from ``lo_deg`` to any angle from ``lo_deg`` up to ``hi_deg`` (m·rad; 0 at
+    ``lo_deg`` itself): what an area cut at an unknown θf could be at most.
+
+    ∫ GZ dφ from lo to θ, trapezoidal on the 0.1° grid (:func:`gz.area_to`), read at every grid angle
+    between and at ``hi_deg``.  It is largest at an end or where GZ falls through zero; a zero between
+    two grid angles is missed by the sliver of area between it and the grid angle before it, under
+    ½·|ΔGZ over 0.1°|·0.1° (about 1e-6 m·rad for a slope of 1 m/rad): finer than any table it is read from."""
+    step = gzmod.STEP_DEG
+    base = gzmod.area_to(gz, lo_deg)
+    k0 = int(math.ceil(lo_deg / step - 1e-9))
+    k1 = int(math.floor(hi_deg / step + 1e-9))
+    panels = (gz[1 : k1 + 1] + gz[:k1]) * (0.5 * math.radians(step))
+    cum = np.concatenate(([0.0], np.cumsum(panels)))  # area from 0° to each grid angle up to k1
+    inner = float(np.max(cum[k0 : k1 + 1])) - base if k1 >= k0 else 0.0
+    return max(0.0, inner, gzmod.area_to(gz, hi_deg) - base)
+
+
+def needs_flood(why: str) -> str:
+    """The note of a criterion that θf decides when θf is unknown."""
+    return f"needs θf, which is unknown ({why}): not assessable"
+
+
+def fails_at_any_flood(why: str) -> str:
+    """The note of a criterion that fails whatever the unknown θf is."""
+    return f"θf unknown ({why}): fails at any θf; the value is the most it could be"
+
+
+FLOOD_AREAS = {"area-0-40": (0.0, 40.0), "area-30-40": (30.0, 40.0)}
+"""Areas of IS 2008 Part A 2.2.1 cut at θf when θf < 40° (Part B 2.1 and 2.4.5 repeat them): (from, to)."""
+
+
+def without_flood(c: CriterionResult, a: Afloat) -> CriterionResult:
+    """A criterion of a plain set when θf is unknown (``a.flood_unknown``): unchanged unless it is
+    worked to θf, then met only if met at every θf, failed if failed at every θf, else not assessable.
+
+    The measures were worked with no openings (θf beyond 90°); θf may be any angle from 0° up.
+    * areas to 40° or θf, 30° to 40° or θf (IS 2008 A 2.2.1), to θmax or θf (B 2.4.5): zero at θf = 0,
+      so never met for sure; at most :func:`best_area` over the angles they may stop at;
+    * GZ at 30° or more, read from 30° up to θf (deckload's conservative reading of A 2.2.2, common
+      practice): at least GZ at 30° itself, at most the largest GZ from 30° to the curve's end (the
+      measure as worked)."""
+    why = a.flood_unknown
+    gz = a.gz_lee_m
+    span = next((v for k, v in FLOOD_AREAS.items() if c.id.endswith("-" + k)), None)
+    if c.id.endswith("-area-0-max"):
+        span = (0.0, a.measures.max_gz_angle_deg)
+    if span is not None:
+        best = best_area(gz, *span)
+        if best < c.limit:
+            return replace(c, value=best, passed=False, note=fails_at_any_flood(why))
+        return replace(c, passed=False, assessed=False, note=needs_flood(why))
+    if c.id.endswith("-gz-30"):
+        at30 = float(gz[int(round(30.0 / gzmod.STEP_DEG))])
+        if at30 >= c.limit:
+            return replace(c, value=at30, passed=True, note=f"θf unknown ({why}): met at 30° itself, whatever θf")
+        if not c.passed:
+            return replace(c, note=fails_at_any_flood(why))
+        return replace(c, passed=False, assessed=False, note=needs_flood(why))
+    return c
+
+
+def assess(vessel: Vessel, a: Afloat, limit_curve: list[CriterionResult],
+           limit_missing: NotAssessed | None = None) -> Verdict:
+    """All criteria for the vessel's type, the sets with their result, and what was not assessed.
+
+    ``limit_missing`` says why the profile's limiting KG/GM curve could not be read at this
+    displacement (IS 2008 A 2.1.7): it is listed with what was not assessed, never dropped."""
     cs = vessel.criteria
     p = vessel.particulars
     ship_type = cs.ship_type
@@ -351,11 +459,14 @@ def assess(vessel: Vessel, a: Afloat, limit_curve: list[CriterionResult]) -> Ver
                 continue
             criteria += rows
         else:
-            criteria += evaluate_criteria(sid, a.measures, cs.min_gm_m, fishing_gm_m=fishing_gm)
+            rows = evaluate_criteria(sid, a.measures, cs.min_gm_m, fishing_gm_m=fishing_gm)
+            criteria += [without_flood(c, a) for c in rows] if a.flood_unknown else rows
         set_ids.append(sid)
     if limit_curve:
         criteria += limit_curve
         set_ids.append(limit_curve[0].set_id)
+    elif limit_missing is not None:
+        not_assessed.append(limit_missing)
     if cs.extra:
         criteria += extra_criteria(vessel, a, weather_rows, windage_missing)
         set_ids.append(EXTRA_SET)

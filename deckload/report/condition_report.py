@@ -176,7 +176,7 @@ def _summary(result: Result, vessel: Vessel) -> Table:
         ("Max GZ", f"{r.max_gz_m:.3f} m at {r.max_gz_angle_deg:.1f}°"),
         ("Vanishing angle", vf.vanishing_words(r) + (" (the KN tables end there)" if r.vanishing_angle_deg is None
                                                      and r.gz_end_deg < 90 and not vf.never_positive(r) else "")),
-        ("Downflooding θf", "not given" if r.downflooding_angle_deg is None else f"{r.downflooding_angle_deg:.1f}°"),
+        ("Downflooding θf", vf.flood_words(r)),
         ("Deck edge immersion", vf.fmt_optional(r.deck_edge_angle_deg, ".1f", "°")),
         ("Freeboard at midships", vf.fmt_optional(r.freeboard_m, ".3f", " m")),
         *_load_line_rows(r),

@@ -210,6 +210,26 @@ def vanishing_words(r: Result) -> str:
     return f"beyond {r.gz_end_deg:g}°"
 
 
+FLOOD_NOT_GIVEN = "not given: taken as none"
+"""θf where the profile gives no downflooding angles: taken as none (the caution
+``downflooding-not-given`` says what that means for the criteria)."""
+
+FLOOD_UNKNOWN = "unknown: off its curve"
+"""θf where the profile's downflooding angles do not reach this displacement: the criteria worked to
+θf are not assessable (the danger ``downflooding-range`` says so)."""
+
+
+def flood_words(r: Result, short: bool = False) -> str:
+    """θf in words: the angle to 0.1°; :data:`FLOOD_UNKNOWN` off the profile's curve;
+    :data:`FLOOD_NOT_GIVEN` without one.  ``short`` keeps only the first word ('unknown', 'none')
+    for a narrow cell."""
+    if r.downflooding_angle_deg is not None:
+        return f"{r.downflooding_angle_deg:.1f}°"
+    if r.downflooding_given:
+        return "unknown" if short else FLOOD_UNKNOWN
+    return "none" if short else FLOOD_NOT_GIVEN
+
+
 def fmt_optional(value: float | None, fmt: str, unit: str = "", none: str = "n/a") -> str:
     """A number with its unit, or 'n/a' when the result has none (or it is not finite)."""
     if value is None or not math.isfinite(value):

@@ -229,8 +229,13 @@ def weather_missing(result: Result | None, width: int = 60) -> list[Text]:
         return out + [Text(" no result: see the warning above", P["danger"])]
     wrap = lambda text: textwrap.wrap(text, max(10, width - 2), initial_indent=" ", subsequent_indent="   ")  # noqa: E731
     assessed = [c for c in result.criteria if "2.3" in c.set_id or "weather" in c.set_id.lower()]
-    if assessed:  # assessed, but there is no curve to draw (GZ never reaches a wind lever): say what was found
-        out += [Text(x, P["caution"]) for x in wrap("No plot: the levers have no intercept with GZ to draw.")]
+    if assessed:  # assessed, but there is no curve to draw: say why, and what was found
+        # θf unknown, or area a or b beyond the KN tables: the ends of the areas are not all known
+        open_ = any(not c.assessed for c in assessed) or (
+            result.downflooding_given and result.downflooding_angle_deg is None)
+        head = ("No plot: the angles that bound areas a and b are not all known." if open_
+                else "No plot: the levers have no intercept with GZ to draw.")
+        out += [Text(x, P["caution"]) for x in wrap(head)]
         for c in assessed:
             word = verdict(c)[0]
             out += [Text(x, P["danger"] if word == "FAIL" else P["label"]) for x in wrap(

@@ -17,7 +17,7 @@ from deckload.core.frozen import frozen
 from deckload.core.model import Condition, LIQUID_KINDS, Vessel
 from deckload.core.result import CriterionResult, Result
 from deckload.core.trimmed_tables import tables_basis
-from deckload.report.verdict_format import STATED_DENSITY_MARK, fmt_optional, never_positive
+from deckload.report.verdict_format import STATED_DENSITY_MARK, flood_words, fmt_optional, never_positive
 from deckload.ui.entry import fill_volume_m3, tank_density
 from deckload.ui.gzplot import GzChart, Mark
 from deckload.ui.palette import P
@@ -59,6 +59,14 @@ def fill_bar(pct: float, width: int) -> str:
 
 def num(value: float | None, fmt: str, width: int) -> str:
     return ("—" if value is None else format(value, fmt)).rjust(width)
+
+
+def _flood_cell(r: Result) -> tuple[str, str]:
+    """θf's value and unit for the afloat panel: the angle, else 'unknown' (off the profile's curve)
+    or 'none' (the profile gives none), as the report and calc word it in full."""
+    if r.downflooding_angle_deg is None:
+        return flood_words(r, short=True), ""
+    return opt(r.downflooding_angle_deg, ".1f"), "°"
 
 
 def opt(value: float | None, fmt: str) -> str:
@@ -357,7 +365,7 @@ def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, st
         (("Fbd", opt(r.freeboard_m, ".3f"), "m"), ("Margin", opt(r.load_line_margin_m, "+.3f"), "m")),
         (("Mark", opt(r.load_line_allowed_draft_m, ".3f"), f"m {mark_letters(r.load_line_mark)}".strip()),
          ("DWA", opt(r.dock_water_allowance_m, "+.3f"), "m")),
-        (("KG", f"{r.kg_m:.3f}", "m"), ("θf", opt(r.downflooding_angle_deg, ".1f"), "°")),
+        (("KG", f"{r.kg_m:.3f}", "m"), ("θf", *_flood_cell(r))),
         (("KG fl", f"{r.kg_fluid_m:.3f}", "m"), ("FSC", f"{r.fsc_m:.3f}", "m")),
         (("GM fl", f"{r.gm_fluid_m:.3f}", "m"), ("KM", f"{r.km_m:.3f}", "m")),
     ]
