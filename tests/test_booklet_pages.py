@@ -22,6 +22,7 @@ import pytest
 
 from deckload.cli.main import main
 from deckload.io.profiles import ProfileError, load_profile, parse_profile, read_profile
+from deckload.report.audit_findings import read_audited
 from test_booklet_input import (
     AP_VESSEL,
     BASE,
@@ -370,3 +371,37 @@ def test_a_descending_table_with_a_swapped_or_repeated_row_is_refused(tmp_path, 
     p = _refused(_load_with(tmp_path, "hydrostatics.csv", text))[0]
     assert (p.file, p.line, p.column) == (str(tmp_path / TABLES / "hydrostatics.csv"), 4, "column 1 'draft_m'")
     assert p.key == "hydrostatics.draft_m" and p.rule == rule
+
+
+HYDRO_TOML_FALLING = """[hydrostatics]
+draft_m = [3.5, 3.0, 2.5, 2.0, 1.5, 1.0, 0.5]
+displacement_t = [1435.0, 1230.0, 1025.0, 820.0, 615.0, 410.0, 205.0]
+lcb_m = [20.0, 20.0, 20.0, 20.0, 20.0, 20.0, 20.0]
+lcf_m = [20.0, 20.0, 20.0, 20.0, 20.0, 20.0, 20.0]
+kmt_m = [
+    4.130952,
+    4.277778,
+    4.583333,
+    5.166667,
+    63.05556,
+    8.833333,
+    16.916667,
+]
+tpc_t_cm = [4.1, 4.1, 4.1, 4.1, 4.1, 4.1, 4.1]
+mctc_tm_cm = [13.666667, 13.666667, 13.666667, 13.666667, 13.666667, 13.666667, 13.666667]
+vcb_m = [1.75, 1.5, 1.25, 1.0, 0.75, 0.5, 0.25]
+kml_m = [39.845238, 45.944444, 54.583333, 67.666667, 89.638889, 133.833333, 266.916667]
+
+"""
+
+
+def test_an_audit_finding_in_a_falling_toml_table_is_located_on_the_row_as_typed(tmp_path):
+    """KMt 63.05556 typed for 6.305556 at T = 1.5 m (checks.md §1.1: KMt = T/2 + B²/(12T) = 6.3056):
+    the model's row 3 (rising, from 1) is the fifth row as typed, and the finding names its line."""
+    start, end = BASE.index("[hydrostatics]"), BASE.index("[cross_curves]")
+    text = BASE[:start] + HYDRO_TOML_FALLING + BASE[end:]
+    f = _write(tmp_path / "falling.toml", text)
+    found = [x for x in read_audited(f).found if x.finding.key == "hydrostatics.kmt_m"]
+    assert found, "the slipped KMt is found"
+    typed = text.splitlines().index("    63.05556,") + 1
+    assert {x.line for x in found} == {typed}
