@@ -233,9 +233,11 @@ def test_cross_curve_row_short_of_a_column():
 
 
 def test_kn_heel_must_start_at_zero_and_end_by_ninety():
-    text = edit(BASE, "heel_deg = [0, 10,", "heel_deg = [5, 10,")
+    # a first angle up to 15° gets the 0° column added (tests/test_booklet_pages.py); beyond, refused
+    text = edit(BASE, "heel_deg = [0, 10,", "heel_deg = [16, 17,")
     p = only(text)
-    assert (p.key, p.rule) == ("cross_curves.heel_deg", "must start at 0 (the upright condition)")
+    assert p.key == "cross_curves.heel_deg"
+    assert p.rule.startswith("must start at 0 (the upright condition), or at 15° at most (it starts at 16°)")
     text = edit(BASE, "70, 80, 90]", "70, 80, 95]")
     p = only(text)
     assert p.key == "cross_curves.heel_deg"
@@ -254,7 +256,8 @@ def test_capacity_must_equal_last_calibration_volume():
     p = only(text)
     assert p.key == "tank[DB1P].capacity_m3" and p.value == "51.0"
     # (51 − 50)/50 = 2 %
-    assert p.rule == "differs from the last calibration volume 50 m³ by 2.00 % (at most 0.05 % allowed)"
+    assert p.rule == ("differs from the last calibration volume 50 m³ by 2.00 % (at most 0.05 % allowed, "
+                      "or 0.1 m³, half a unit of the last decimals printed)")
     # 0.4 % would shift the 98 % 'nominally full' line: refused
     assert "0.40 %" in only(edit(BASE, "capacity_m3 = 50.0", "capacity_m3 = 50.2")).rule
     # 0.04 % is round-off: accepted, and 100 % then means the table's top, never beyond it

@@ -6,7 +6,9 @@ signed TCGs, sounding or ullage readings, FSM in t·m or fsi in m⁴, extreme or
 drafts, against displacement or draft), with the column names of
 vessel_profiles/README.md ("Tables in CSV files"), so that reading the files back gives
 the same numbers.  A row that the loader added (level 0, volume 0 below a table that
-starts above the bottom) is not written.  Files are written atomically; a table without
+starts above the bottom) is not written, nor the 0° column added to cross curves printed from
+5° or 10°; tables typed deepest draft or greatest displacement first are written that way; the
+booklet columns read and not used (``cb``, ``mass_t``, …) are written back as they were read.  Files are written atomically; a table without
 rows in the profile (a capacity-only tank, a single downflooding angle) is named on
 the screen instead.
 
@@ -51,15 +53,19 @@ def hydrostatics_rows(v: m.Vessel, tr: TableReading, h: m.HydrostaticTable | Non
         cols["vcb_m"] = h.vcb_m
     if h.kml_m is not None:
         cols["kml_m"] = h.kml_m
-    return list(cols), [[float(cols[k][i]) for k in cols] for i in range(len(h.draft_m))]
+    order = range(len(h.draft_m))
+    return list(cols), [[float(cols[k][i]) for k in cols] for i in (reversed(order) if tr.reversed else order)]
 
 
-def cross_curve_rows(v: m.Vessel, cc: m.CrossCurves | None = None) -> tuple[list[str], list[list]]:
+def cross_curve_rows(v: m.Vessel, cc: m.CrossCurves | None = None,
+                     tr: TableReading | None = None) -> tuple[list[str], list[list]]:
     from deckload.io.csvtables import fmt_number
 
     cc = v.cross_curves if cc is None else cc
-    header = ["displacement_t"] + [f"kn_{fmt_number(float(a))}" for a in cc.heel_deg]
-    return header, [[float(d)] + [float(x) for x in row] for d, row in zip(cc.displacement_t, cc.kn_m)]
+    first = 1 if tr is not None and tr.added_upright else 0  # the 0° column the reader added
+    header = ["displacement_t"] + [f"kn_{fmt_number(float(a))}" for a in cc.heel_deg[first:]]
+    rows = [[float(d)] + [float(x) for x in row[first:]] for d, row in zip(cc.displacement_t, cc.kn_m)]
+    return header, (rows[::-1] if tr is not None and tr.reversed else rows)
 
 
 def calibration_rows(t: m.Tank, tr: TableReading) -> tuple[list[str], list[list]]:
@@ -103,8 +109,14 @@ def hold_rows(h: m.Hold, tr: TableReading) -> tuple[list[str], list[list]]:
 
 
 def in_order(table: tuple[list[str], list[list]], tr: TableReading | None) -> tuple[list[str], list[list]]:
-    """The columns in the order of the CSV file the table was read from, where it was."""
+    """The columns in the order of the CSV file the table was read from, where it was, with the
+    booklet columns read and not used put back as they were read (rows in the written order)."""
     header, rows = table
+    if tr is not None:
+        for name, values in tr.ignored:
+            if len(values) == len(rows) and name not in header:
+                header = header + [name]
+                rows = [r + [x] for r, x in zip(rows, values)]
     if tr is None or not tr.columns or sorted(tr.columns) != sorted(header):
         return header, rows
     idx = [header.index(c) for c in tr.columns]
@@ -117,7 +129,8 @@ def profile_tables(v: m.Vessel, rd: Reading) -> list[tuple[str, str, str, list[s
     hy = rd.tables.get("hydrostatics")
     if hy is not None:
         out.append(("hydrostatics.csv", "[hydrostatics]", "hydrostatics", *hydrostatics_rows(v, hy)))
-    out.append(("cross_curves.csv", "[cross_curves]", "cross_curves", *cross_curve_rows(v)))
+    out.append(("cross_curves.csv", "[cross_curves]", "cross_curves",
+                *cross_curve_rows(v, tr=rd.tables.get("cross_curves"))))
     out += trimmed_tables(v, rd)
     for t in v.tanks:
         tr = rd.tables.get(f"tank[{t.id}].calibration")
@@ -151,9 +164,10 @@ def trimmed_tables(v: m.Vessel, rd: Reading) -> list[tuple[str, str, str, list[s
             out.append((f"hydrostatics_trim_{float(trim):+g}.csv", f"[[{key.split('[')[0]}]] trim_m = {float(trim):g}",
                         key, *hydrostatics_rows(v, rd.tables[key], h)))
     for trim, cc in zip(tt.kn_trim_m, tt.cross_curves):
+        key = f"cross_curves_at_trim[{round(float(trim), 6):.6g} m]"
         if cc is not v.cross_curves:
-            out.append((f"kn_trim_{float(trim):+g}.csv", f"[[cross_curves_at_trim]] trim_m = {float(trim):g}", "",
-                        *cross_curve_rows(v, cc)))
+            out.append((f"kn_trim_{float(trim):+g}.csv", f"[[cross_curves_at_trim]] trim_m = {float(trim):g}", key,
+                        *cross_curve_rows(v, cc, rd.tables.get(key))))
     return out
 
 
@@ -186,6 +200,12 @@ def describe(tr: TableReading | None, key: str = "") -> str:
         bits.append("extreme drafts")
     if tr.against == "draft_m":
         bits.append("against draft")
+    if tr.reversed and tr.level != "ullage_m":
+        bits.append("rows greatest first, as typed")
+    if tr.added_upright:
+        bits.append("without the 0° column added on reading")
+    if tr.ignored:
+        bits.append("with " + ", ".join(name for name, _ in tr.ignored) + " as read")
     return f" ({', '.join(bits)})" if bits else ""
 
 

@@ -38,12 +38,15 @@ def _cell(text: str) -> Any:
 class CsvTable:
     """A CSV file read as header + rows, with the file line of every row."""
 
-    def __init__(self, file: str, header: list[str], rows: list[list[Any]], lines: list[int], header_line: int):
+    def __init__(self, file: str, header: list[str], rows: list[list[Any]], lines: list[int], header_line: int,
+                 texts: list[list[str]] | None = None):
         self.file = file
         self.header = header
         self.rows = rows
         self.lines = lines
         self.header_line = header_line
+        self.texts = texts if texts is not None else [[str(c) for c in r] for r in rows]
+        """Every cell's text as typed (stripped): the decimals printed, for a rounding allowance."""
 
     def column_label(self, j: int) -> str:
         return f"column {j + 1} {self.header[j]!r}"
@@ -71,6 +74,7 @@ def read_csv(t: Table, key: str = "csv") -> CsvTable | None:
         t.ctx.problems.append(_problem(shown, line, t.key(key), None, f"not UTF-8 text (byte {e.start + 1}); save the CSV as UTF-8"))
         return None
     rows: list[list[Any]] = []
+    texts: list[list[str]] = []
     lines: list[int] = []
     header: list[str] | None = None
     header_line = 1
@@ -119,11 +123,12 @@ def read_csv(t: Table, key: str = "csv") -> CsvTable | None:
             ok = False
             continue
         rows.append([_cell(c) for c in cells])
+        texts.append([c.strip() for c in cells])
         lines.append(line)
     if header is None:
         t.bad(key, name, f"the CSV file {shown} is empty: it needs a header row and the table's rows")
         return None
-    return CsvTable(shown, header, rows, lines, header_line) if ok else None
+    return CsvTable(shown, header, rows, lines, header_line, texts) if ok else None
 
 
 def _problem(file, line, key, value, rule):
@@ -163,12 +168,27 @@ def _open_csv(t: Table):
     return c
 
 
-def attach_csv(t: Table, columns: tuple[str, ...]) -> bool:
+def _ignored_words(ignored: tuple[str, ...]) -> str:
+    """The refusal's list of the booklet columns that are read and not used."""
+    return ("; booklet columns read (as numbers) and not used: " + ", ".join(ignored)) if ignored else ""
+
+
+def _put_column(t: Table, c: CsvTable, j: int, h: str) -> None:
+    t.data[h] = [row[j] for row in c.rows]
+    t.ctx.sources[t.raw + (h,)] = _locator(c, j)
+    t.ctx.csv_texts[t.raw + (h,)] = [row[j] for row in c.texts]
+
+
+def attach_csv(t: Table, columns: tuple[str, ...], ignored: tuple[str, ...] = ()) -> bool:
     """If ``t`` names a CSV file, put its columns into ``t.data`` as arrays.
 
-    ``columns`` are the names the table accepts from a CSV (its TOML array keys); a
-    column of another name, or one the TOML also gives, is a problem.  False when the file
-    could not be read (reported): the caller then reads nothing more of the table.
+    ``columns`` are the names the table accepts from a CSV (its TOML array keys); ``ignored``
+    the booklet quantities the table's page may also print that deckload does not use (a
+    closed list: vessel_profiles/README.md, "Booklet columns read and not used"): they are put
+    into ``t.data`` too and noted in ``t.ctx.csv_ignored``, for the reader to check as numbers
+    (:func:`deckload.io.profiles._read_ignored`).  A column of another name, or one the TOML
+    also gives, is a problem: a misspelt column must never drop its data silently.  False when
+    the file could not be read (reported): the caller then reads nothing more of the table.
     """
     if not t.has("csv"):
         t.get("csv", False)
@@ -176,22 +196,28 @@ def attach_csv(t: Table, columns: tuple[str, ...]) -> bool:
     c = _open_csv(t)
     if c is None:
         return False
+    skipped: list[str] = []
     for j, h in enumerate(c.header):
-        if h not in columns:
+        if h not in columns and h not in ignored:
             t.ctx.problems.append(_problem(c.file, c.header_line, t.key("csv"), repr(h),
-                                           f"unknown column (column {j + 1}); this table's columns are " + ", ".join(columns)))
+                                           f"unknown column (column {j + 1}); this table's columns are "
+                                           + ", ".join(columns) + _ignored_words(ignored)))
             continue
         if h in t.data:
             t.bad(h, t.data[h], f"given both in the TOML and as a column of {c.file}: give it once")
             continue
-        t.data[h] = [row[j] for row in c.rows]
-        t.ctx.sources[t.raw + (h,)] = _locator(c, j)
+        _put_column(t, c, j, h)
+        if h in ignored:
+            skipped.append(h)
     t.ctx.csv_headers[t.raw] = list(c.header)
+    if skipped:
+        t.ctx.csv_ignored[t.raw] = skipped
     return True
 
 
-def attach_kn_csv(t: Table) -> bool:
-    """Cross curves from a CSV: ``displacement_t`` and one ``kn_<angle>`` column per heel."""
+def attach_kn_csv(t: Table, ignored: tuple[str, ...] = ()) -> bool:
+    """Cross curves from a CSV: ``displacement_t`` and one ``kn_<angle>`` column per heel, and
+    any of the ``ignored`` booklet columns (read as numbers and not used, as :func:`attach_csv`)."""
     if not t.has("csv"):
         t.get("csv", False)
         return True
@@ -200,16 +226,24 @@ def attach_kn_csv(t: Table) -> bool:
         return False
     kn_cols: list[int] = []
     heels: list[float] = []
+    skipped: list[int] = []
     for j, h in enumerate(c.header):
         m = KN_COLUMN.match(h)
         if m:
             kn_cols.append(j)
             heels.append(float(m.group(1)))
+        elif h in ignored:
+            skipped.append(j)
         elif h != "displacement_t":
             t.ctx.problems.append(_problem(c.file, c.header_line, t.key("csv"), repr(h),
                                            f"unknown column (column {j + 1}); cross curves take displacement_t and "
-                                           "one kn_<angle> column per heel angle, e.g. kn_0, kn_10, …, kn_60"))
-            return
+                                           "one kn_<angle> column per heel angle, e.g. kn_0, kn_10, …, kn_60"
+                                           + _ignored_words(ignored)))
+            return False
+    for j in skipped:
+        if c.header[j] in t.data:
+            t.bad(c.header[j], t.data[c.header[j]], f"given both in the TOML and as a column of {c.file}: give it once")
+            return False
     for k in ("heel_deg", "displacement_t", "kn_m"):
         if k in t.data:
             t.bad(k, t.data[k], f"given both in the TOML and in {c.file}: give the table once")
@@ -218,8 +252,12 @@ def attach_kn_csv(t: Table) -> bool:
         t.ctx.problems.append(_problem(c.file, c.header_line, t.key("csv"), None, "needs a displacement_t column"))
         return
     jd = c.header.index("displacement_t")
-    t.data["displacement_t"] = [row[jd] for row in c.rows]
-    t.ctx.sources[t.raw + ("displacement_t",)] = _locator(c, jd)
+    _put_column(t, c, jd, "displacement_t")
+    for j in skipped:
+        _put_column(t, c, j, c.header[j])
+    if skipped:
+        t.ctx.csv_ignored[t.raw] = [c.header[j] for j in skipped]
+    t.ctx.csv_headers[t.raw] = list(c.header)
     t.data["heel_deg"] = heels
     t.ctx.sources[t.raw + ("heel_deg",)] = lambda at: (c.file, c.header_line,
                                                        c.column_label(kn_cols[at[0]]) if at and at[0] < len(kn_cols) else "",

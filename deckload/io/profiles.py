@@ -57,6 +57,7 @@ from deckload.io.tomlcheck import (
     non_negative,
     num,
     positive,
+    printed_half_unit,
     suggest_id,
     toml_value,
 )
@@ -77,7 +78,14 @@ from deckload.core.bounds import (  # noqa: E402  one set of ranges for files an
 
 CAPACITY_TOLERANCE = 0.0005
 """A tank's capacity_m3 may differ from its last calibration volume by at most 0.05 % (round-off):
-more would misjudge the 98 % 'nominally full' line or ask the table for a volume it does not hold."""
+more would misjudge the 98 % 'nominally full' line or ask the table for a volume it does not hold.
+It may differ by more only by the rounding of the decimals printed (CAPACITY_PRINTED_MAX_M3), and
+the calibration's last volume is then the capacity."""
+
+CAPACITY_PRINTED_MAX_M3 = 0.5
+"""The printing allowance on a capacity is at most half a cubic metre: a capacity printed to whole
+cubic metres is the coarsest a booklet prints (common practice); a number typed as 2e1 is no
+booklet's rounding."""
 
 
 def _percent(x: float) -> str:
@@ -149,6 +157,10 @@ class TableReading:
     """A curve tabulated against 'displacement_t' or 'draft_m'."""
     columns: tuple[str, ...] = ()
     """The CSV file's column order, to write the table back the same way (empty: our order)."""
+    ignored: tuple[tuple[str, tuple[float, ...]], ...] = ()
+    """Booklet columns read as numbers and not used (name, values in the rows' written order)."""
+    added_upright: bool = False
+    """Cross curves printed from a heel above 0°: the 0° column (KN 0) was added."""
 
 
 @dataclass
@@ -165,6 +177,54 @@ class Reading:
 
 def _csv_columns(t: Table) -> tuple[str, ...]:
     return tuple(t.ctx.csv_headers.get(t.raw, ()))
+
+
+# Booklet columns read and not used (vessel_profiles/README.md, "Booklet columns read and not
+# used"): quantities a booklet page prints beside the ones deckload reads, none of which the
+# calculation needs.  A closed list, so that a misspelt column of a quantity deckload does use
+# is still refused (its data would otherwise be dropped without anyone knowing).
+HYDRO_IGNORED = ("displacement_fw_t", "volume_m3", "cb", "cp", "cm", "cw", "bmt_m", "bml_m",
+                 "waterplane_area_m2", "wetted_surface_m2", "fwa_mm")
+"""Fresh-water displacement, moulded volume, the form coefficients (block, prismatic, midship
+section, waterplane), BMt and BMl (KMt and KMl are read), the waterplane and wetted areas,
+the fresh-water allowance."""
+KN_IGNORED = ("draft_m", "volume_m3", "displacement_fw_t")
+"""The draft, volume or fresh-water displacement printed beside each displacement of the cross curves."""
+CAL_IGNORED = ("mass_t", "fill_pct")
+"""The tonnes at the tank's density and the percentage full printed beside each volume; also
+``ullage_m`` beside ``sounding_m`` in one CSV file (the soundings are then the table's level)."""
+HOLD_IGNORED = ("volume_m3",)
+"""The volume printed beside each fill of a hold's fill table."""
+
+
+def _written_falling(arr: np.ndarray | None) -> bool:
+    """Whether a table's key column was typed falling (a booklet printing the deepest draft or the
+    greatest displacement first): more of its steps go down than up.  The column is then held to
+    be strictly decreasing, row by row as written, and the table read in reverse; a swapped or
+    repeated row breaks that as it breaks a rising table."""
+    if arr is None or len(arr) < 2:
+        return False
+    d = np.diff(arr)
+    return int(np.count_nonzero(d < 0)) > int(np.count_nonzero(d > 0))
+
+
+def _read_ignored(t: Table, where: str, rd: Reading) -> tuple[tuple[str, tuple[float, ...]], ...] | None:
+    """The booklet columns of ``t``'s CSV file that are read and not used: each must still be
+    numbers (a cell the spreadsheet mangled is reported like any other); the conversion notes
+    name them.  None when one is not."""
+    names = t.ctx.csv_ignored.get(t.raw, [])
+    out, ok = [], True
+    for k in names:
+        arr = t.array(k, min_len=0)
+        if arr is None:
+            ok = False
+            continue
+        out.append((k, tuple(float(x) for x in arr)))
+    if names:
+        level = "; the soundings beside the ullages are the table's level" if "ullage_m" in names else ""
+        rd.convert(where, ", ".join(names), f"read from {t.data.get('csv')} as numbers and not used "
+                   f"(booklet quantities deckload does not need{level})")
+    return tuple(out) if ok else None
 
 
 def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | None" = None) -> m.Vessel:
@@ -193,7 +253,7 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
     load_lines = _read_load_lines(root, hydro, frame, rd)
     limit = _read_limit_curve(root, hydro, frame, rd)
     downflooding = _read_downflooding(root, hydro, frame, rd)
-    _check_kn_reach(root, cross, downflooding)
+    _check_kn_reach(root, cross, downflooding, lightship, particulars)
     windage = _read_windage(root, particulars)
     deck_edge = _read_deck_edge(root)
     passengers = _read_passengers(root, particulars, criteria)
@@ -373,12 +433,14 @@ def _read_hydrostatics(root: Table, frame: Frame | None, rd: Reading) -> m.Hydro
 
 def _read_hydro_table(t: Table, frame: Frame | None, rd: Reading, where: str) -> m.HydrostaticTable | None:
     """One hydrostatic table: ``[hydrostatics]`` or an entry of ``[[hydrostatics_at_trim]]``."""
-    if not attach_csv(t, HYDRO_COLUMNS):
+    if not attach_csv(t, HYDRO_COLUMNS, HYDRO_IGNORED):
         return None
     f = read_frame(t, frame, drafts=True)
+    draft = t.array("draft_m", non_negative)
+    falling = _written_falling(draft)
     cols = {
-        "draft_m": t.increasing("draft_m", t.array("draft_m", non_negative)),
-        "displacement_t": t.increasing("displacement_t", t.array("displacement_t", non_negative)),
+        "draft_m": t.increasing("draft_m", draft, decreasing=falling),
+        "displacement_t": t.increasing("displacement_t", t.array("displacement_t", non_negative), decreasing=falling),
         "lcb_m": t.array("lcb_m"),
         "lcf_m": t.array("lcf_m"),
         "kmt_m": t.array("kmt_m", positive),
@@ -392,10 +454,15 @@ def _read_hydro_table(t: Table, frame: Frame | None, rd: Reading, where: str) ->
             cols[k] = optional[k]
         else:
             t.get(k, False)
+    ignored = _read_ignored(t, where, rd)
     t.finish()
-    if not t.same_length("draft_m", cols) or f is None:
+    if not t.same_length("draft_m", cols) or f is None or ignored is None:
         return None
-    rd.tables[where] = TableReading(f, csv=t.data.get("csv"), columns=_csv_columns(t))
+    if falling:
+        cols = {k: a[::-1].copy() for k, a in cols.items()}
+        rd.convert(where, "rows", "typed deepest draft first → read in rising order")
+    rd.tables[where] = TableReading(f, csv=t.data.get("csv"), columns=_csv_columns(t), reversed=falling,
+                                    ignored=ignored)
     _note_frame(rd, where, f, "lcb_m, lcf_m", "", False)
     cols["lcb_m"] = f.x_to_ap(cols["lcb_m"])
     cols["lcf_m"] = f.x_to_ap(cols["lcf_m"])
@@ -411,12 +478,24 @@ def _read_hydro_table(t: Table, frame: Frame | None, rd: Reading, where: str) ->
 KN_MIN_END_DEG = 40.0
 """Cross curves must reach at least 40°: the IS 2008 Part A 2.2.1 areas run to 40° (or θf)."""
 
+KN_MAX_FIRST_DEG = 15.0
+"""Cross curves may start at a heel up to 15°: the reader adds the 0° column, KN 0 exactly (upright,
+B lies on the centreline of a hull symmetric about it, so KN = y_B·cos0 + z_B·sin0 = 0: checks.md
+conventions; derived).  The gap from upright to the first angle printed is then no wider than the
+coarsest step booklets print KN at (15°: 15, 30, 45, …; common practice).  Beyond 15° the natural
+spline would cross a wider gap over the part of the curve where GM, the list, the deck-edge angle
+and most of the 0–30° area are read, and its error grows fast with the gap: on the box barge of
+checks.md §1 at T = 1 m (bilge emerging at 11.3°) the 0–20° area from KN at 0, 10, 15, 20° is within
+0.001 m·rad of the closed form, from 0, 15, 20° already 0.012 m·rad off, ten times UR L5's 0.0012
+(derived, checks.md §1.2 closed forms against the spline).  So refused beyond 15°; a table printed
+from 10° or 15° is compared at small heels with the booklet's worked conditions (README)."""
+
 
 def _read_cross_curves(root: Table, frame: Frame | None, rd: Reading) -> m.CrossCurves | None:
     t = root.table("cross_curves")
     if t is None:
         return None
-    if not attach_kn_csv(t):
+    if not attach_kn_csv(t, KN_IGNORED):
         return None
     basis = t.text("trim_basis", choices=("free trim", "even keel"))
     return _read_kn_table(t, frame, rd, basis)
@@ -426,8 +505,18 @@ def _read_kn_table(t: Table, frame: Frame | None, rd: Reading, basis: str | None
                    even: m.CrossCurves | None = None) -> m.CrossCurves | None:
     """One KN table: ``[cross_curves]``, or an entry of ``[[cross_curves_at_trim]]`` (``even`` given:
     its basis and heels are the even-keel table's, and it has no reference LCG of its own)."""
+    where = "cross_curves" if even is None else t.name
     heel = t.increasing("heel_deg", t.array("heel_deg", heel_range))
-    heel = t.starts_at("heel_deg", heel, 0.0, "the upright condition")
+    upright_added = False
+    if heel is not None and abs(float(heel[0])) > REL_TOL * max(1.0, abs(float(heel[-1]))):
+        if heel[0] > KN_MAX_FIRST_DEG + 1e-9:
+            t.bad("heel_deg", t.data["heel_deg"], f"must start at 0 (the upright condition), or at "
+                  f"{num(KN_MAX_FIRST_DEG)}° at most (it starts at {num(float(heel[0]))}°): from upright to the first "
+                  "angle printed the curve would be guessed, and the 0–30° area and the list are read there")
+            heel = None
+        else:
+            upright_added = True
+            heel = np.concatenate([[0.0], heel])
     if heel is not None and heel[-1] < KN_MIN_END_DEG - 1e-9:
         t.bad("heel_deg", t.data["heel_deg"], f"must reach at least {num(KN_MIN_END_DEG)}° (it ends at {num(heel[-1])}°): "
               "the IS 2008 A 2.2.1 areas run to 40°; nothing is extrapolated")
@@ -436,22 +525,34 @@ def _read_kn_table(t: Table, frame: Frame | None, rd: Reading, basis: str | None
         t.bad("heel_deg", t.data["heel_deg"], "must be the heel angles of [cross_curves] "
               f"({', '.join(num(float(x)) for x in even.heel_deg)}°): KN are interpolated in trim heel by heel")
         heel = None
-    disp = t.increasing("displacement_t", t.array("displacement_t", positive))
+    disp = t.array("displacement_t", positive)
+    falling = _written_falling(disp)
+    disp = t.increasing("displacement_t", disp, decreasing=falling)
     kn = t.matrix("kn_m", "displacement_t", t.raw_len("displacement_t"), "heel_deg", t.raw_len("heel_deg"))
     has_ref = even is None and t.has("reference_lcg_m")
     ref = t.num("reference_lcg_m", required=False) if even is None else None
     f = read_frame(t, frame) if even is None else frame
+    ignored = _read_ignored(t, where, rd)
     t.finish()
-    if basis is None or heel is None or disp is None or kn is None or (has_ref and ref is None) or f is None:
+    if (basis is None or heel is None or disp is None or kn is None or (has_ref and ref is None) or f is None
+            or ignored is None):
         return None
+    if upright_added:
+        kn = np.hstack([np.zeros((kn.shape[0], 1)), kn])
+        rd.convert(where, "kn_m", f"printed from {num(float(heel[1]))}°: KN 0 at 0° added (upright, B lies on the "
+                   "centreline of a hull symmetric about it: KN = y_B·cos0 + z_B·sin0 = 0)")
+    if falling:
+        disp, kn = disp[::-1].copy(), kn[::-1].copy()
+        rd.convert(where, "rows", "typed greatest displacement first → read in rising order")
+    reading = TableReading(f, csv=t.data.get("csv"), columns=_csv_columns(t), reversed=falling, ignored=ignored,
+                           added_upright=upright_added)
     if ref is not None:
         _note_frame(rd, "cross_curves", f, "reference_lcg_m", "", False)
         ref = float(f.x_to_ap(ref))
+    rd.tables[where] = reading
     if even is not None:
-        rd.tables[t.name] = TableReading(f, csv=t.data.get("csv"))
         return m.CrossCurves(heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp),
                              kn_m=m.frozen_array(kn), trim_basis=basis)
-    rd.tables["cross_curves"] = TableReading(f, csv=t.data.get("csv"))
     return m.CrossCurves(
         heel_deg=m.frozen_array(heel), displacement_t=m.frozen_array(disp), kn_m=m.frozen_array(kn), trim_basis=basis,
         reference_lcg_m=ref,
@@ -516,7 +617,7 @@ def _read_trimmed_tables(root: Table, particulars: m.Particulars | None, frame: 
                 table = _read_hydro_table(t, frame, rd, t.name)
             else:
                 table = (_read_kn_table(t, frame, rd, cross.trim_basis, cross)
-                         if cross is not None and attach_kn_csv(t) else None)
+                         if cross is not None and attach_kn_csv(t, KN_IGNORED) else None)
                 if cross is None:
                     for k in list(t.data):
                         t.get(k, False)
@@ -541,16 +642,41 @@ def _read_trimmed_tables(root: Table, particulars: m.Particulars | None, frame: 
     return m.TrimmedTables(hydro_trim_m=htr, hydrostatics=htab, kn_trim_m=ktr, cross_curves=ktab)
 
 
-def _check_kn_reach(root: Table, cross: m.CrossCurves | None, flood: m.LimitCurve | None) -> None:
-    """The KN tables must reach every downflooding angle: the criteria look up to θf."""
+def reachable_from_row(flood: m.LimitCurve, lightship: m.MassItem | None,
+                       particulars: m.Particulars | None) -> int:
+    """The first row of a downflooding curve a loading condition can use.
+
+    θf is read at the displacement at table density, Δ·ρ_table/ρ (stability.stage_criteria), and a
+    condition weighs at least the lightship in water no denser than the highest density a
+    condition may state (bounds.WATER_DENSITY_RANGE_T_M3): so at least lightship·ρ_table/ρ_max.
+    The curve is interpolated linearly between rows, so the row at or below that displacement
+    still counts (the interval from it brackets the lightest condition); the rows below it are
+    never read.  0 (every row) when the lightship or the table density is unknown."""
+    if lightship is None or particulars is None:
+        return 0
+    lightest = lightship.mass_t * particulars.table_density_t_m3 / WATER_DENSITY_RANGE_T_M3[1]
+    return max(0, int(np.searchsorted(flood.displacement_t, lightest, side="right")) - 1)
+
+
+def _check_kn_reach(root: Table, cross: m.CrossCurves | None, flood: m.LimitCurve | None,
+                    lightship: m.MassItem | None = None, particulars: m.Particulars | None = None) -> None:
+    """The KN tables must reach every downflooding angle a condition can meet: the criteria look
+    up to θf (the GZ ≥ 0.20 m range, the weather criterion's area b), and nothing is
+    extrapolated.  Rows of the curve below the lightest displacement a condition can have
+    (:func:`reachable_from_row`) are never read, so their angles do not count."""
     if cross is None or flood is None:
         return
     end = float(cross.heel_deg[-1])
-    top = float(np.max(flood.value))
+    first = reachable_from_row(flood, lightship, particulars)
+    angles = np.asarray(flood.value)[first:]
+    worst = first + int(np.argmax(angles))
+    top = float(flood.value[worst])
     grid_end = (grid_points(cross) - 1) * GZ_STEP_DEG  # the curve is worked on a 0.1° grid up to the end
     if top > grid_end + 1e-9:
         t = root.table("cross_curves")
-        t.bad("heel_deg", t.data["heel_deg"], f"ends at {num(end)}°, before the downflooding angle {num(top)}° "
+        at = (f" at {num(float(flood.displacement_t[worst]))} t (a row a condition's θf is read from: lightship "
+              f"{num(lightship.mass_t)} t)" if lightship is not None and particulars is not None else "")
+        t.bad("heel_deg", t.data["heel_deg"], f"ends at {num(end)}°, before the downflooding angle {num(top)}°{at} "
               "in [downflooding]: the criteria look up to θf, and nothing is extrapolated")
 
 
@@ -1163,11 +1289,15 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
     the bottom gets a row 'level 0, volume 0' with the first row's centres (conservative).
     """
     where = t.name
-    if not attach_csv(t, CAL_COLUMNS):
+    if not attach_csv(t, CAL_COLUMNS, CAL_IGNORED):
         return None
+    if all(t.raw + (k,) in t.ctx.csv_texts for k in ("sounding_m", "ullage_m")):
+        # A page printing both readings: the soundings are the table's level, the ullages read along.
+        t.ctx.csv_ignored.setdefault(t.raw, []).append("ullage_m")
+    along = t.ctx.csv_ignored.get(t.raw, [])
     f = read_frame(t, tank_frame, sides=True)
     tr = TableReading(f or Frame(1.0), csv=t.data.get("csv"), columns=_csv_columns(t))
-    levels_given = [k for k in ("sounding_m", "ullage_m") if t.has(k)]
+    levels_given = [k for k in ("sounding_m", "ullage_m") if t.has(k) and k not in along]
     if len(levels_given) != 1:
         t.bad("sounding_m", MISSING if not levels_given else t.data["sounding_m"],
               "give exactly one of sounding_m and ullage_m" + (", not both" if levels_given else ""))
@@ -1217,7 +1347,10 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
         tank.bad("max_fsi_m4" if tank.has("max_fsi_m4") else "max_fsm_tm", tank.data.get("max_fsi_m4", tank.data.get("max_fsm_tm")),
                  "the calibration already gives free surface per row: give one or the other")
         fs_ok = False
+    tr.ignored = _read_ignored(t, where, rd)
     t.finish()
+    if tr.ignored is None:
+        return None
     cols = {"level": reading, "volume_m3": volume, "lcg_m": lcg, "vcg_m": vcg, "tcg_m": tcg}
     if level_key is None or not fs_ok or not fsm_ok or f is None:
         return None
@@ -1301,11 +1434,23 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
         return None
     if capacity is not None:
         last = float(cols["volume_m3"][-1])
-        if abs(capacity - last) > CAPACITY_TOLERANCE * last:
+        # The booklet prints the capacity and the table each to its own decimals: each may carry
+        # half a unit of its last decimal printed (24.1 for 24.068), up to a whole m³'s rounding.
+        printed = min(CAPACITY_PRINTED_MAX_M3, printed_half_unit(tank.data["capacity_m3"])
+                      + printed_half_unit(t.written("volume_m3", 0 if tr.reversed else n - 1)))
+        allowed = max(CAPACITY_TOLERANCE * last, printed)
+        if abs(capacity - last) > allowed * (1.0 + 1e-9):
             tank.bad("capacity_m3", tank.data["capacity_m3"],
                      f"differs from the last calibration volume {num(last)} m³ by "
-                     f"{_percent(100 * abs(capacity - last) / last)} % (at most {100 * CAPACITY_TOLERANCE:g} % allowed)")
+                     f"{_percent(100 * abs(capacity - last) / last)} % (at most {100 * CAPACITY_TOLERANCE:g} % allowed, "
+                     f"or {num(printed)} m³, half a unit of the last decimals printed)")
             return None
+        if abs(capacity - last) > CAPACITY_TOLERANCE * last:
+            # Beyond round-off, within the printing: the table is what every fill is read from,
+            # so its last volume is 100 % (never more than the table holds, never a slack top).
+            kw["capacity_m3"] = last
+            rd.convert(tank.name, "capacity_m3", f"{num(capacity)} m³ as printed → {num(last)} m³, the calibration's "
+                       f"last volume (they differ by the rounding of the decimals printed, ±{num(printed)} m³)")
     if max_fsi is not None:
         kw["fsi_given"] = "max"
         rd.assumptions.append(f"{tank.name}: one free-surface value for the tank, {num(max_fsi)} m⁴, used at every "
@@ -1405,7 +1550,7 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
     out, ok = [], True
     for t in root.tables("hold"):
         ident = claim_id(t, "hold", ids)
-        fill_read = attach_csv(t, HOLD_FILL_COLUMNS)
+        fill_read = attach_csv(t, HOLD_FILL_COLUMNS, HOLD_IGNORED)
         f = read_frame(t, frame, sides=True)
         tcg, marked = tcg_num(t, "tcg_m", f)
         kw: dict[str, Any] = dict(
@@ -1441,7 +1586,9 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
                     fill = None
                 cols["fill_pct"] = fill
                 fill_ok = t.same_length("fill_pct", cols)
+        ignored = _read_ignored(t, t.name, rd)
         t.finish()
+        fill_ok &= ignored is not None
         if (not fill_ok or not fill_read or f is None or any(v is None for k, v in kw.items() if k != "max_mass_t")
                 or (has_max and kw["max_mass_t"] is None)):
             ok = False
@@ -1451,7 +1598,7 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
         if cols.get("fill_lcg_m") is not None:
             cols["fill_lcg_m"] = f.x_to_ap(cols["fill_lcg_m"])
         if present:
-            rd.tables[t.name] = TableReading(f, csv=t.data.get("csv"), columns=_csv_columns(t))
+            rd.tables[t.name] = TableReading(f, csv=t.data.get("csv"), columns=_csv_columns(t), ignored=ignored)
         for k in fill_keys:
             kw[k] = m.frozen_array(cols[k]) if k in cols else None
         out.append(m.Hold(**kw))

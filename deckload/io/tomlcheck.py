@@ -293,6 +293,28 @@ def finite_float(v: Any) -> float | None:
     return x if math.isfinite(x) else None
 
 
+def printed_half_unit(written: Any) -> float:
+    """Half a unit of the last decimal a number was written with: the rounding it may carry.
+
+    ``"24.1"`` → 0.05, ``"24.068"`` → 0.0005, ``24`` (a TOML integer) → 0.5; a TOML float by
+    its shortest repr (``24.1`` → 0.05).  0 when it is not a plain number."""
+    from decimal import Decimal, InvalidOperation
+
+    if isinstance(written, bool):
+        return 0.0
+    if isinstance(written, float):
+        s = repr(written)
+    elif isinstance(written, (int, str)):
+        s = str(written).strip()
+    else:
+        return 0.0
+    try:
+        exponent = Decimal(s).as_tuple().exponent
+    except (InvalidOperation, ValueError):
+        return 0.0
+    return 0.5 * 10.0 ** exponent if isinstance(exponent, int) else 0.0
+
+
 def suggest(word: str, choices) -> str:
     import difflib  # only for a misspelt key or value
 
@@ -392,6 +414,10 @@ class FileCheck:
         """Table path → the header of the CSV file it was read from (column order, for writing back)."""
         self.unread_csv: set[tuple] = set()
         """Tables whose CSV file could not be read: their missing columns are not reported again."""
+        self.csv_texts: dict[tuple, list[str]] = {}
+        """Key path → the cells of its CSV column as typed (the decimals printed)."""
+        self.csv_ignored: dict[tuple, list[str]] = {}
+        """Table path → the booklet columns its CSV file gave that are read as numbers and not used."""
 
     def fmt(self, v: Any) -> str:
         return self.wording.value(v)
@@ -571,18 +597,28 @@ class Table:
                     return None
         return arr
 
-    def increasing(self, k: str, arr: np.ndarray | None) -> np.ndarray | None:
-        """``arr`` if strictly increasing, else reports the first offending row."""
+    def increasing(self, k: str, arr: np.ndarray | None, *, decreasing: bool = False) -> np.ndarray | None:
+        """``arr`` if strictly increasing (``decreasing``: strictly decreasing), else reports the
+        first offending row, numbered as written."""
         if arr is None:
             return None
-        d = np.diff(arr)
+        d = np.diff(arr) * (-1.0 if decreasing else 1.0)
         if np.all(d > 0):
             return arr
         i = int(np.argmax(d <= 0)) + 1
         fmt = self.ctx.fmt
-        self.bad(k, self.data[k], f"not strictly increasing ({self._row(i)}: {fmt(self.data[k][i])} after "
+        way = "decreasing" if decreasing else "increasing"
+        self.bad(k, self.data[k], f"not strictly {way} ({self._row(i)}: {fmt(self.data[k][i])} after "
                  f"{fmt(self.data[k][i - 1])})", (i,))
         return None
+
+    def written(self, k: str, i: int) -> Any:
+        """Row ``i`` of ``k`` as typed: the CSV cell's text, or the TOML value (for its decimals)."""
+        texts = self.ctx.csv_texts.get(self.raw + (k,))
+        if texts is not None and 0 <= i < len(texts):
+            return texts[i]
+        v = self.data.get(k)
+        return v[i] if isinstance(v, list) and -len(v) <= i < len(v) else v
 
     def starts_at(self, k: str, arr: np.ndarray | None, first: float, why: str) -> np.ndarray | None:
         if arr is None:

@@ -109,7 +109,7 @@ def read_audited(path: str | os.PathLike) -> AuditedProfile:
     from deckload.io.profiles import read_profile
 
     vessel, reading = read_profile(path)
-    return AuditedProfile(vessel, reading, tuple(audit_profile(path, vessel)))
+    return AuditedProfile(vessel, reading, tuple(audit_profile(path, vessel, reading)))
 
 
 def load_audited(path: str | os.PathLike) -> AuditedProfile:
@@ -131,9 +131,11 @@ def _is_whole(a: AuditedProfile) -> bool:
     return True
 
 
-def audit_profile(path: str | os.PathLike, vessel: Vessel) -> list[Located]:
+def audit_profile(path: str | os.PathLike, vessel: Vessel, reading: Reading | None = None) -> list[Located]:
     """Audit ``vessel`` (read from ``path``) and locate every finding in its files.
 
+    With ``reading`` (how the tables were written), a finding in a table typed in the TOML in
+    reverse (deepest draft first) or read with a row added is located on the row as typed.
     A file that cannot be re-read (moved meanwhile) only loses the line numbers."""
     from deckload.core.audit import audit
 
@@ -146,10 +148,41 @@ def audit_profile(path: str | os.PathLike, vessel: Vessel) -> list[Located]:
         text = read_limited(path, MAX_TOML_BYTES, "a profile").decode("utf-8")
     except (OSError, UnicodeDecodeError):
         return [Located(f, str(path), None) for f in findings]
-    return locate(findings, str(path), text, vessel)
+    return locate(findings, str(path), text, vessel, reading)
 
 
-def locate(findings, filename: str, text: str, vessel: Vessel) -> list[Located]:
+def _as_written(path: tuple, vessel: Vessel, reading: Reading | None) -> tuple:
+    """A finding's path into the model's table turned into the path of the row as typed: the
+    model's tables rise, and a table typed falling was read reversed (and a calibration may
+    have gained a level-0 row, cross curves a 0° column)."""
+    if reading is None or len(path) < 3:
+        return path
+    if path[0] in ("hydrostatics", "cross_curves"):
+        key, at = path[0], 2
+        n = len(vessel.hydrostatics.draft_m if key == "hydrostatics" else vessel.cross_curves.displacement_t)
+    elif path[0] == "tank" and len(path) > 4 and path[2] == "calibration" and isinstance(path[1], int):
+        if not 0 <= path[1] < len(vessel.tanks) or vessel.tanks[path[1]].calibration is None:
+            return path
+        key, at = f"tank[{vessel.tanks[path[1]].id}].calibration", 4
+        n = len(vessel.tanks[path[1]].calibration.volume_m3)
+    else:
+        return path
+    tr = reading.tables.get(key)
+    if tr is None or len(path) <= at or not isinstance(path[at], int):
+        return path
+    r = path[at]
+    if tr.added_bottom_row:
+        r, n = max(r - 1, 0), n - 1
+    if tr.reversed:
+        r = n - 1 - r
+    out = list(path)
+    out[at] = r
+    if tr.added_upright and len(path) > at + 1 and isinstance(path[at + 1], int):
+        out[at + 1] = max(path[at + 1] - 1, 0)
+    return tuple(out)
+
+
+def locate(findings, filename: str, text: str, vessel: Vessel, reading: Reading | None = None) -> list[Located]:
     import tomllib
 
     from deckload.io.tomlcheck import key_lines
@@ -166,9 +199,10 @@ def locate(findings, filename: str, text: str, vessel: Vessel) -> list[Located]:
             out.append(_in_csv(f, Path(filename).parent / csv_file, vessel))
             continue
         line = None
-        for k in range(len(f.path), 0, -1):
-            if f.path[:k] in lines:
-                line = lines[f.path[:k]]
+        path = _as_written(f.path, vessel, reading)
+        for k in range(len(path), 0, -1):
+            if path[:k] in lines:
+                line = lines[path[:k]]
                 break
         out.append(Located(f, filename, line))
     return out
