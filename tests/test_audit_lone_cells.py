@@ -79,3 +79,17 @@ def test_a_lightship_far_from_her_loaded_displacement_is_a_doubt(share, flagged)
     found = [f for f in audit(light) if f.check == "lightship-share"]
     assert len(found) == flagged and all(f.severity == WARNING and f.key == "lightship.mass_t" for f in found)
     assert [f for f in audit(v) if f.check == "lightship-share"] == []
+
+
+@pytest.mark.parametrize("kind, density, flagged", [
+    ("ballast", 1.25, True), ("ballast", 1.025, False), ("ballast", 1.000, False), ("fresh_water", 1.025, True),
+    ("fuel_oil", 0.991, False), ("fuel_oil", 1.10, True), ("diesel", 0.95, True), ("diesel", 0.86, False),
+    ("cargo_liquid", 1.8, False)])
+def test_a_tank_density_unusual_for_its_kind_is_a_doubt(kind, density, flagged):
+    """KIND_DENSITY_T_M3: sea water 1.025 and fresh water 1.000 (standards.md §6.2), residual fuel
+    at most 1.010 and distillate 0.900 (ISO 8217, standards.md §6.2); cargo liquids not judged."""
+    v = demo_vessel()
+    tanks = list(v.tanks)
+    tanks[0] = dataclasses.replace(tanks[0], kind=kind, density_t_m3=density)
+    found = [f for f in audit(dataclasses.replace(v, tanks=tuple(tanks))) if f.check == "tank-density"]
+    assert [(f.key, f.severity) for f in found] == ([(f"tank[{tanks[0].id}].density_t_m3", WARNING)] if flagged else [])
