@@ -93,3 +93,24 @@ def test_a_tank_density_unusual_for_its_kind_is_a_doubt(kind, density, flagged):
     tanks[0] = dataclasses.replace(tanks[0], kind=kind, density_t_m3=density)
     found = [f for f in audit(dataclasses.replace(v, tanks=tuple(tanks))) if f.check == "tank-density"]
     assert [(f.key, f.severity) for f in found] == ([(f"tank[{tanks[0].id}].density_t_m3", WARNING)] if flagged else [])
+
+
+def test_a_pair_whose_full_tank_lcgs_differ_is_a_doubt():
+    """A port/starboard pair spans the same frames, so its full-tank LCGs agree (PAIR_LCG_LBP, common
+    practice).  The demo's FO1P typed with its LCG mirrored about midships (a midships datum's sign
+    slipped) stands 2·|LCG − LBP/2| from FO1S; moved by 1 % of LBP it is within the bound."""
+    v = demo_vessel()
+    n = next(n for n, t in enumerate(v.tanks) if t.id == "FO1P")
+    t = v.tanks[n]
+    L = v.particulars.lbp_m
+    x = np.asarray(t.calibration.lcg_m, dtype=float)
+    assert abs(float(x[-1]) - L / 2) > 0.02 * L  # the premise: mirrored, it lands more than 4 % of LBP away
+
+    def moved(new_x):
+        tanks = list(v.tanks)
+        tanks[n] = dataclasses.replace(t, calibration=dataclasses.replace(t.calibration, lcg_m=frozen_array(new_x)))
+        return [f for f in audit(dataclasses.replace(v, tanks=tuple(tanks))) if f.check == "pair-lcg"]
+
+    (f,) = moved(L - x)
+    assert f.severity == WARNING and f.key == "tank[FO1P].calibration.lcg_m"
+    assert moved(x + 0.01 * L) == [] and [f for f in audit(v) if f.check == "pair-lcg"] == []

@@ -109,6 +109,12 @@ PAIR_TCG_REL = 0.10
 Mirror-image tanks agree within rounding (UR L5 allows 0.05 m on a TCG); a larger difference is
 either an asymmetric pair (possible) or a typing error (standards.md §5.3 for the 0.05 m)."""
 
+PAIR_LCG_LBP = 0.02
+"""Warning: a pair's full-tank LCGs more than 2 % of LBP apart.  Port and starboard tanks of a pair
+span the same frames, so their centres agree within rounding and a little asymmetry of the hull;
+one LCG typed with the wrong sign of a midships datum lands it elsewhere along the ship (a 0.3 m
+draft error on a 30 m coaster, found by an audit) (common practice)."""
+
 PAIR_CENTRELINE_FRACTION_B = 0.01
 """A pair's TCGs 'have the same sign' only when both are further than 1 % of B from the centreline:
 nearer, either could be a centreline rounding (common practice)."""
@@ -466,6 +472,14 @@ class _Audit:
                 self.add(WARNING, key, path, f"{_f(ya)} (pair {b.id}: {_f(yb)})",
                          f"the pair's full-tank TCGs do not mirror: they differ by {_f(abs(ya + yb))} "
                          f"(more than max({PAIR_TCG_ABS_M:g} m, {PAIR_TCG_REL:.0%} of the larger))", look, "pair-tcg")
+            xa, xb = float(a.calibration.lcg_m[-1]), float(b.calibration.lcg_m[-1])
+            if abs(xa - xb) > PAIR_LCG_LBP * self.L:
+                self.add(WARNING, f"tank[{a.id}].calibration.lcg_m",
+                         ("tank", i, "calibration", "lcg_m", len(a.calibration.lcg_m) - 1),
+                         f"{_f(xa)} from AP (pair {b.id}: {_f(xb)})",
+                         f"the pair's full-tank LCGs are {_f(abs(xa - xb))} apart (more than {PAIR_LCG_LBP:.0%} of "
+                         "LBP): a pair spans the same frames (a sign of a midships datum slipped?)",
+                         look.replace("full-tank TCG", "full-tank LCG"), "pair-lcg")
             ca, cb = a.capacity_m3, b.capacity_m3
             if abs(ca - cb) > PAIR_CAPACITY_REL * max(ca, cb):
                 self.add(WARNING, f"tank[{a.id}].capacity_m3", ("tank", i, "capacity_m3"),
