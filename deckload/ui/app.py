@@ -74,6 +74,12 @@ def _post(node, fn) -> bool:
     return node.post_message(events.Callback(callback=fn))
 
 
+def unsaved_warning(why: str) -> str:
+    """What quitting says when the condition on screen is in no file (:attr:`Session.unsaved`)."""
+    # The way out first: on a narrow message line the file's path is what gets cut.
+    return f"Condition on screen NOT SAVED: quit again to leave anyway and lose it ({why})."
+
+
 class DeckloadApp(App[None]):
     CSS_PATH = "deckload.tcss"
     TITLE = "deckload"
@@ -85,7 +91,8 @@ class DeckloadApp(App[None]):
         self.notices = tuple(notices)
         self._after_first_frame = after_first_frame
         self.loading_screen = LoadingScreen(session)
-        self._quit_warned = False
+        self._quit_warned = None
+        """The condition a quit was refused for (q again leaves; a further change warns again)."""
         self._key_in_flight: events.Key | None = None
         self._key_sent_at = 0.0
         self._held_keys: deque[events.Key] = deque()
@@ -186,13 +193,20 @@ class DeckloadApp(App[None]):
         return self.loading_screen
 
     async def action_quit(self) -> None:
-        """Any way out (ctrl+q too) first writes changes not yet saved; a failure is shown, and
-        asking again leaves anyway."""
+        """Any way out (ctrl+q too) first writes changes not yet saved; a failure, or a condition
+        on screen that is in no file (a save failed, or this window saves nothing), is shown, and
+        asking again leaves anyway (once more after a further change)."""
         problems = self.session.flush()
-        if problems and not self._quit_warned:
-            self._quit_warned = True
+        unsaved = self.session.unsaved
+        if (problems or unsaved) and self._quit_warned is not self.session.condition:
+            self._quit_warned = self.session.condition
             for p in problems:
                 self.notify(p + " — quit again to leave anyway", severity="error", timeout=15, markup=False)
+            if unsaved:
+                warning = unsaved_warning(unsaved)
+                self.notify(warning, severity="error", timeout=15, markup=False)
+                if self.screen is self.loading_screen:
+                    self.loading_screen.say(warning, ok=False)
             return
         await super().action_quit()
 

@@ -158,12 +158,16 @@ def create_app(
     journal.officer = officer
     save_path = working_path(work_dir, vessel) if work_dir is not None else None
     extra = [n for n in (journal.problem, journal.notice) if n]
+    not_saving = None
     if journal.logbook is not None and journal.logbook.readonly and save_path is not None:
         # Another deckload holds this vessel's log: it also owns the working condition,
-        # so this window must not overwrite it.
+        # so this window must not overwrite it.  The title line says so for as long as it is open.
+        not_saving = f"this window saves nothing: another deckload has this vessel open and keeps {save_path}"
         save_path = None
-        extra.append("This window does not save the working condition: another deckload has this vessel open.")
+        extra.append("This window does not save the working condition: another deckload has this vessel open. "
+                     "Its title line reads NOT SAVING; what is changed here is lost when it closes.")
     session = Session(vessel, condition, save_path=save_path, journal=journal, result=result)
+    session.not_saving = not_saving
     from deckload.io import paths
 
     session.profile_path = profile_path
