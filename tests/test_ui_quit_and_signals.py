@@ -1,8 +1,11 @@
 """Leaving the loading screen without losing a change unseen (textual pilot, on the analytic box
-barge): quitting after a save that failed, and a second window on the same vessel, which saves
-nothing."""
+barge): closed by a signal, quitting after a save that failed, and a second window on the same
+vessel, which saves nothing.  The process itself on a real terminal: test_screen_in_a_terminal.py.
+"""
 
 from __future__ import annotations
+
+import signal
 
 import pytest
 
@@ -31,6 +34,27 @@ async def type_amount(pilot, text: str) -> None:
 def _log_changes(logs, vessel) -> list[str]:
     with Logbook.open(logs, vessel.particulars.name, readonly=True) as book:
         return [e.change_text for e in book.entries()]
+
+
+@pytest.mark.parametrize("sig, status", [(signal.SIGTERM, 143), (signal.SIGHUP, 129), (signal.SIGINT, 130)])
+async def test_a_signal_writes_the_held_run_saves_and_leaves_with_128_plus_its_number(tmp_path, sig, status):
+    """A retype is a run (its log entry waits RUN_PAUSE_S for more); a signal in that pause, with a
+    form open, still writes it, saves the condition, ends the writer thread and exits 128 + n."""
+    vessel = box_barge(tanks=barge_tanks())
+    app = create_app(vessel, _condition(), work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    async with app.run_test(size=(120, 40)) as pilot:
+        await type_amount(pilot, "55%")
+        assert _log_changes(tmp_path / "logs", vessel) == []  # held back: a run waits for more
+        await pilot.press("enter")  # a form open over the screen does not stop it
+        app.close_on_signal(sig)
+        app.close_on_signal(signal.SIGTERM)  # a second signal while closing changes nothing
+        await pilot.pause()
+    assert app.return_code == status and app.closed_by_signal == sig
+    assert _log_changes(tmp_path / "logs", vessel) == ["DB1P 50 % → 55 %, 14.8 t → 16.2 t"]
+    saved = load_condition(app.session.save_path, vessel)
+    assert saved.tank_fill("DB1P") == TankFill("DB1P", "percent", 55.0)
+    assert app.session._writer is None  # joined when the screen went
+    assert app.exit_problems == []
 
 
 def _unwritable_work_dir(tmp_path):
@@ -85,6 +109,19 @@ async def test_quit_again_after_the_warning_leaves(tmp_path):
         await pilot.press("q")
         await pilot.pause()
     assert not app.is_running and app.return_code == 0
+
+
+async def test_a_signal_after_a_failed_save_leaves_and_says_it_was_not_saved(tmp_path):
+    vessel = box_barge(tanks=barge_tanks())
+    _, work = _unwritable_work_dir(tmp_path)
+    app = create_app(vessel, _condition(), work_dir=work, log_dir=tmp_path / "logs", officer="TS")
+    async with app.run_test(size=(120, 40)) as pilot:
+        await type_amount(pilot, "55%")
+        app.close_on_signal(signal.SIGTERM)
+        await pilot.pause()
+    assert app.return_code == 143
+    assert len(app.exit_problems) == 1 and "NOT SAVED" in app.exit_problems[0]
+    assert str(app.session.save_path) in app.exit_problems[0]
 
 
 @pytest.mark.parametrize("width", [120, 80])

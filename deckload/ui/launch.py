@@ -7,6 +7,7 @@ the one factory the tests use too.
 from __future__ import annotations
 
 import sys
+from contextlib import contextmanager
 from pathlib import Path
 from typing import TYPE_CHECKING, Callable, NamedTuple
 
@@ -199,6 +200,8 @@ def open_journal(log_dir: Path | None, vessel_name: str):
 def run_open(profile_path: Path | None, condition_path: Path | None,
              after_first_frame: Callable[[], None] | None = None) -> int:
     """Read the files, build the app and run it; ``after_first_frame`` as for :func:`create_app`."""
+    import signal
+
     from deckload.io import paths
     from deckload.io.profiles import ProfileError
 
@@ -216,7 +219,15 @@ def run_open(profile_path: Path | None, condition_path: Path | None,
     app = create_app(start.vessel, start.condition, work_dir=work_dir, log_dir=paths.log_dir(),
                      notices=start.notices, profile_path=profile_path or paths.DEMO_PROFILE,
                      result=start.result, after_first_frame=after_first_frame, doubts=start.doubts)
-    app.run()
+    with closing_on_signals(app):
+        app.run()
+    for problem in app.exit_problems:  # a signal closed the screen: what it could not write
+        try:
+            print(f"deckload: {problem}", file=sys.stderr, flush=True)
+        except OSError:
+            break  # the terminal has gone (SIGHUP): nobody left to tell
+    if app.closed_by_signal is not None and app.closed_by_signal == getattr(signal, "SIGHUP", None):
+        _terminal_gone()
     if getattr(app, "_exception", None) is not None:
         # The screen stopped on an error nobody foresaw: the boundary's message and crash file.
         from deckload.cli.boundary import internal_error
@@ -224,3 +235,53 @@ def run_open(profile_path: Path | None, condition_path: Path | None,
         return internal_error(app._exception, "running the loading screen",
                               [str(profile_path or paths.DEMO_PROFILE), str(app.session.save_path or "")])
     return app.return_code or 0
+
+
+CLOSING_SIGNALS = ("SIGTERM", "SIGHUP", "SIGINT")
+"""Signals that close the loading screen as ``q`` does, exiting with 128 + their number: SIGTERM
+(a shutdown, ``kill``), SIGHUP (the terminal closed), SIGINT (``kill -INT``; ctrl+c is a key on
+the screen).  Their default action would end the process with a run of edits held back from the
+log (``main_screen.RUN_PAUSE_S``), changes still queued for the writer thread, and the terminal
+left in the screen's modes."""
+
+
+@contextmanager
+def closing_on_signals(app):
+    """While the screen runs, each of :data:`CLOSING_SIGNALS` calls ``app.close_on_signal``; the
+    handlers before are put back after.  Python runs the handler on the main thread (the event
+    loop's), and the app only schedules its closing there."""
+    import signal
+
+    before = {}
+    for name in CLOSING_SIGNALS:
+        number = getattr(signal, name, None)
+        if number is not None:
+            before[number] = signal.signal(number, lambda signum, frame: app.close_on_signal(signum))
+    try:
+        yield
+    finally:
+        for number, handler in before.items():
+            signal.signal(number, handler)
+
+
+def _terminal_gone() -> None:
+    """After SIGHUP the terminal may have gone: what is still buffered for it, flushed at exit,
+    would fail (EIO) and turn the exit status into Python's 120.  Standard output and error go to
+    /dev/null instead (anything for the officer has been written already, or could not be)."""
+    import os
+
+    for stream in (sys.stdout, sys.stderr):
+        try:
+            stream.flush()
+        except (OSError, ValueError):
+            pass
+    try:
+        null = os.open(os.devnull, os.O_WRONLY)
+    except OSError:
+        return
+    for fd in (1, 2):
+        try:
+            os.dup2(null, fd)
+        except OSError:
+            pass
+    os.close(null)
