@@ -1,5 +1,5 @@
 """`deckload open` as a process on a real terminal (a pseudo-terminal from the `pty` module):
-closed by a signal.
+closed by a signal, and refused where there is no terminal.
 
 The screen holds a run of nudges or retypes back from the log for ``RUN_PAUSE_S`` (4 s), and
 hands its saves to a writer thread: a signal's default action would end the process with the
@@ -166,3 +166,35 @@ def test_the_terminal_closing_closes_the_screen_as_q_does(terminal, tmp_path):
     assert _run_entry(tmp_path) == ["DB1P 0 % → 3 %, 0.0 t → 1.0 t (3 changes)"]
     assert "[tanks.DB1P]" in _working_text(tmp_path)
     assert not list((tmp_path / "home").glob("crashes/*"))
+
+
+@pytest.mark.parametrize("where", ["stdin", "stdout", "stderr"])
+def test_no_terminal_is_refused_at_once_naming_calc_and_report(tmp_path, where):
+    """Input from /dev/null, or output to a pipe or file: the screen would draw into it for ever
+    (and wait for keys nobody can type); it is refused with exit 2 before any file is read, and
+    the message names the commands that work without a terminal."""
+    master, slave = os.openpty()
+    try:
+        streams = {"stdin": slave, "stdout": slave, "stderr": slave}
+        streams[where] = subprocess.DEVNULL if where == "stdin" else subprocess.PIPE
+        err_to = tmp_path / "err.txt"
+        with open(err_to, "wb") as err_file:
+            if where == "stderr":
+                streams["stderr"] = err_file
+            proc = subprocess.run([sys.executable, "-m", "deckload", "open"], cwd=tmp_path, env=_env(tmp_path),
+                                  timeout=DEADLINE_S, close_fds=True, **streams)
+    finally:
+        os.close(slave)
+        os.set_blocking(master, False)
+        try:
+            on_terminal = os.read(master, 65536)
+        except OSError:
+            on_terminal = b""
+        os.close(master)
+    said = err_to.read_bytes() if where == "stderr" else on_terminal
+    assert proc.returncode == 2
+    names = {"stdin": b"standard input", "stdout": b"standard output", "stderr": b"standard error"}
+    assert b"needs a terminal" in said and names[where] in said, said
+    assert b"deckload calc PROFILE CONDITION" in said and b"deckload report PROFILE CONDITION --txt" in said
+    assert b"\x1b[" not in said + (proc.stdout or b"")  # not one escape code drawn
+    assert not (tmp_path / "logs").exists()  # nothing read, made or moved

@@ -205,6 +205,13 @@ def run_open(profile_path: Path | None, condition_path: Path | None,
     from deckload.io import paths
     from deckload.io.profiles import ProfileError
 
+    missing = no_terminal()
+    if missing:
+        # Before anything is read or moved aside: the screen cannot be used, and would draw for ever.
+        print(f"deckload: the loading screen needs a terminal: its {missing} is not one (a pipe, a file or "
+              "/dev/null). Without a terminal, compute a condition with deckload calc PROFILE CONDITION, or "
+              "print it with deckload report PROFILE CONDITION --txt.", file=sys.stderr)
+        return 2
     work_dir = paths.working_dir()
     try:
         start = load_inputs(profile_path, condition_path, work_dir)
@@ -262,6 +269,24 @@ def closing_on_signals(app):
     finally:
         for number, handler in before.items():
             signal.signal(number, handler)
+
+
+def no_terminal() -> str | None:
+    """The standard stream that is not a terminal (a pipe, a file, /dev/null), or None.  The
+    screen reads keys from standard input and draws on standard error (textual's driver), and
+    standard output is the officer's terminal too: with any of them elsewhere the screen would
+    draw into a file or pipe for ever, or wait for keys nobody can type."""
+    import os
+
+    for name, stream in (("standard input", sys.__stdin__), ("standard output", sys.__stdout__),
+                         ("standard error", sys.__stderr__)):
+        try:
+            ok = stream is not None and os.isatty(stream.fileno())
+        except (OSError, ValueError):
+            ok = False
+        if not ok:
+            return name
+    return None
 
 
 def _terminal_gone() -> None:
