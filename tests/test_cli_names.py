@@ -15,7 +15,8 @@ def logs(tmp_path, monkeypatch):
     return tmp_path / "logs"
 
 
-def test_open_a_missing_profile_names_it_without_a_raw_errno(capsys):
+def test_open_a_missing_profile_names_it_without_a_raw_errno(capsys, monkeypatch):
+    monkeypatch.setattr("deckload.ui.launch.no_terminal", lambda: None)  # as on a terminal (checked first)
     assert main(["open", "nosuch"]) == 2
     err = capsys.readouterr().err
     assert "cannot read the profile nosuch" in err and "Errno" not in err and "demo" in err

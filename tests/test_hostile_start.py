@@ -159,6 +159,7 @@ async def test_a_saved_condition_beyond_the_tables_opens_with_the_reason_shown(v
 
 def test_opening_a_bad_named_condition_renames_nothing(vessel, tmp_path, capsys, monkeypatch):
     monkeypatch.setenv("DECKLOAD_LOG_DIR", str(tmp_path / "logs"))
+    monkeypatch.setattr("deckload.ui.launch.no_terminal", lambda: None)  # as on a terminal (checked first)
     saved = working_path(paths.working_dir(), vessel)
     saved.parent.mkdir(parents=True, exist_ok=True)
     saved.write_text(DEMO_CONDITIONS["midvoyage"].read_text(encoding="utf-8"), encoding="utf-8")

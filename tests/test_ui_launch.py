@@ -150,6 +150,7 @@ def test_a_profile_that_fails_its_audit_is_refused_with_the_findings(tmp_path, c
     assert str(ei.value).splitlines()[1].startswith(f"{f}:{line}: lightship.lcg_m = -2.1 m from AP: ERROR")
     assert not (tmp_path / "work").exists()
     monkeypatch.setenv("DECKLOAD_LOG_DIR", str(tmp_path / "logs"))
+    monkeypatch.setattr("deckload.ui.launch.no_terminal", lambda: None)  # as on a terminal (checked first)
     assert run_open(f, None) == 2
     assert "fails its plausibility audit" in capsys.readouterr().err
 

@@ -12,7 +12,9 @@ Exit statuses of every ``deckload`` command (README "Exit status"):
 * 1 — bad input: a file or value refused, a log that fails verification or is held;
 * 2 — a file or folder that cannot be read or written, or a command line not understood;
 * 3 — internal error (:data:`INTERNAL_ERROR`): a bug; the crash file has the details;
-* 130 — interrupted (Ctrl+C).
+* 128 + the signal's number — stopped by a signal: 130 interrupted (SIGINT, Ctrl+C on the command
+  line), 129 the terminal closed (SIGHUP), 143 told to stop (SIGTERM); the loading screen closes on
+  each as on ``q`` (``deckload.ui.launch.closing_on_signals``).
 """
 
 from __future__ import annotations

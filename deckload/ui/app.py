@@ -74,6 +74,14 @@ def _post(node, fn) -> bool:
     return node.post_message(events.Callback(callback=fn))
 
 
+def unsaved_warning(why: str, leaving: bool = False) -> str:
+    """What quitting says when the condition on screen is in no file (:attr:`Session.unsaved`)."""
+    if leaving:
+        return f"The condition last shown was NOT SAVED ({why}); it was lost with the screen."
+    # The way out first: on a narrow message line the file's path is what gets cut.
+    return f"Condition on screen NOT SAVED: quit again to leave anyway and lose it ({why})."
+
+
 class DeckloadApp(App[None]):
     CSS_PATH = "deckload.tcss"
     TITLE = "deckload"
@@ -85,7 +93,13 @@ class DeckloadApp(App[None]):
         self.notices = tuple(notices)
         self._after_first_frame = after_first_frame
         self.loading_screen = LoadingScreen(session)
-        self._quit_warned = False
+        self._quit_warned = None
+        """The condition a quit was refused for (q again leaves; a further change warns again)."""
+        self.closed_by_signal: int | None = None
+        """The signal that is closing the screen (:meth:`close_on_signal`), or None."""
+        self.exit_problems: list[str] = []
+        """What could not be written when a signal closed the screen: printed after it has gone."""
+        self._signal_scheduled = False
         self._key_in_flight: events.Key | None = None
         self._key_sent_at = 0.0
         self._held_keys: deque[events.Key] = deque()
@@ -209,15 +223,53 @@ class DeckloadApp(App[None]):
         return self.loading_screen
 
     async def action_quit(self) -> None:
-        """Any way out (ctrl+q too) first writes changes not yet saved; a failure is shown, and
-        asking again leaves anyway."""
+        """Any way out (ctrl+q too) first writes changes not yet saved; a failure, or a condition
+        on screen that is in no file (a save failed, or this window saves nothing), is shown, and
+        asking again leaves anyway (once more after a further change)."""
         problems = self.session.flush()
-        if problems and not self._quit_warned:
-            self._quit_warned = True
+        unsaved = self.session.unsaved
+        if (problems or unsaved) and self._quit_warned is not self.session.condition:
+            self._quit_warned = self.session.condition
             for p in problems:
                 self.notify(p + " — quit again to leave anyway", severity="error", timeout=15, markup=False)
+            if unsaved:
+                warning = unsaved_warning(unsaved)
+                self.notify(warning, severity="error", timeout=15, markup=False)
+                if self.screen is self.loading_screen:
+                    self.loading_screen.say(warning, ok=False)
             return
         await super().action_quit()
+
+    # ------------------------------------------------------------------ closed by a signal
+
+    def close_on_signal(self, signum: int) -> None:
+        """SIGTERM, SIGHUP or SIGINT (``deckload.ui.launch.run_open`` installs the handler, which
+        only calls this): close as ``q`` does, without asking, for nobody may be there to answer.
+        Called from the signal handler on the event loop's own thread, between any two bytecodes:
+        it only schedules :meth:`_close_on_signal` on the loop (or leaves it to :meth:`on_mount`
+        when the loop has not started)."""
+        if self.closed_by_signal is not None:
+            return  # already closing
+        self.closed_by_signal = signum
+        loop = getattr(self, "_loop", None)  # textual's: set while the app runs
+        if loop is not None:
+            self._signal_scheduled = True
+            loop.call_soon_threadsafe(self._close_on_signal)
+
+    def _close_on_signal(self) -> None:
+        """The run of edits in progress logged, every change saved and logged (the writer
+        thread's queue drained), then the app exits with 128 + the signal's number; the terminal
+        is restored as textual leaves, and what could not be written is printed after
+        (:attr:`exit_problems`)."""
+        signum = self.closed_by_signal
+        try:
+            problems = self.session.flush()
+        except Exception as exc:  # leaving is what matters now; the reason is printed after
+            problems = [f"pending changes not written: {exc}"]
+        if self.session.unsaved:
+            problems.append(unsaved_warning(self.session.unsaved, leaving=True))
+        self.exit_problems = problems
+        self.exit(return_code=128 + signum)
 
     def on_unmount(self) -> None:
         self.session.stop_writer()
@@ -225,6 +277,8 @@ class DeckloadApp(App[None]):
             self.session.journal.logbook.close()  # releases the writer's lock for the next start
 
     def on_mount(self) -> None:
+        if self.closed_by_signal is not None and not self._signal_scheduled:  # came before the loop ran
+            self.call_later(self._close_on_signal)
         if self._after_first_frame is not None:
             self.call_after_refresh(self._after_first_frame)
         for n in self.notices:

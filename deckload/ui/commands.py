@@ -120,7 +120,7 @@ COMMANDS: tuple[Command, ...] = (
             "(stock conditions are never overwritten).", footer=False, title="Name and save condition", words="save, name, rename, condition file"),
     Command("open_condition", "ctrl+o", "Open", "Open a stock or saved condition as the working one (undoable).",
             display="^o", footer=False, title="Open condition", words="open, load, condition, departure, arrival"),
-    Command("quit", "q", "Quit", "Leave deckload; the working condition is already saved.", rank=0),
+    Command("quit", "q", "Quit", "Leave deckload; the working condition is already saved (when it is not, q warns and a second q leaves).", rank=0),
 )
 
 NAVIGATION: tuple[tuple[str, str], ...] = (

@@ -7,6 +7,7 @@ the one factory the tests use too.
 from __future__ import annotations
 
 import sys
+from contextlib import contextmanager
 from pathlib import Path
 from typing import TYPE_CHECKING, Callable, NamedTuple
 
@@ -158,12 +159,16 @@ def create_app(
     journal.officer = officer
     save_path = working_path(work_dir, vessel) if work_dir is not None else None
     extra = [n for n in (journal.problem, journal.notice) if n]
+    not_saving = None
     if journal.logbook is not None and journal.logbook.readonly and save_path is not None:
         # Another deckload holds this vessel's log: it also owns the working condition,
-        # so this window must not overwrite it.
+        # so this window must not overwrite it.  The title line says so for as long as it is open.
+        not_saving = f"this window saves nothing: another deckload has this vessel open and keeps {save_path}"
         save_path = None
-        extra.append("This window does not save the working condition: another deckload has this vessel open.")
+        extra.append("This window does not save the working condition: another deckload has this vessel open. "
+                     "Its title line reads NOT SAVING; what is changed here is lost when it closes.")
     session = Session(vessel, condition, save_path=save_path, journal=journal, result=result)
+    session.not_saving = not_saving
     from deckload.io import paths
 
     session.profile_path = profile_path
@@ -195,9 +200,18 @@ def open_journal(log_dir: Path | None, vessel_name: str):
 def run_open(profile_path: Path | None, condition_path: Path | None,
              after_first_frame: Callable[[], None] | None = None) -> int:
     """Read the files, build the app and run it; ``after_first_frame`` as for :func:`create_app`."""
+    import signal
+
     from deckload.io import paths
     from deckload.io.profiles import ProfileError
 
+    missing = no_terminal()
+    if missing:
+        # Before anything is read or moved aside: the screen cannot be used, and would draw for ever.
+        print(f"deckload: the loading screen needs a terminal: its {missing} is not one (a pipe, a file or "
+              "/dev/null). Without a terminal, compute a condition with deckload calc PROFILE CONDITION, or "
+              "print it with deckload report PROFILE CONDITION --txt.", file=sys.stderr)
+        return 2
     work_dir = paths.working_dir()
     try:
         start = load_inputs(profile_path, condition_path, work_dir)
@@ -212,7 +226,15 @@ def run_open(profile_path: Path | None, condition_path: Path | None,
     app = create_app(start.vessel, start.condition, work_dir=work_dir, log_dir=paths.log_dir(),
                      notices=start.notices, profile_path=profile_path or paths.DEMO_PROFILE,
                      result=start.result, after_first_frame=after_first_frame, doubts=start.doubts)
-    app.run()
+    with closing_on_signals(app):
+        app.run()
+    for problem in app.exit_problems:  # a signal closed the screen: what it could not write
+        try:
+            print(f"deckload: {problem}", file=sys.stderr, flush=True)
+        except OSError:
+            break  # the terminal has gone (SIGHUP): nobody left to tell
+    if app.closed_by_signal is not None and app.closed_by_signal == getattr(signal, "SIGHUP", None):
+        _terminal_gone()
     if getattr(app, "_exception", None) is not None:
         # The screen stopped on an error nobody foresaw: the boundary's message and crash file.
         from deckload.cli.boundary import internal_error
@@ -220,3 +242,71 @@ def run_open(profile_path: Path | None, condition_path: Path | None,
         return internal_error(app._exception, "running the loading screen",
                               [str(profile_path or paths.DEMO_PROFILE), str(app.session.save_path or "")])
     return app.return_code or 0
+
+
+CLOSING_SIGNALS = ("SIGTERM", "SIGHUP", "SIGINT")
+"""Signals that close the loading screen as ``q`` does, exiting with 128 + their number: SIGTERM
+(a shutdown, ``kill``), SIGHUP (the terminal closed), SIGINT (``kill -INT``; ctrl+c is a key on
+the screen).  Their default action would end the process with a run of edits held back from the
+log (``main_screen.RUN_PAUSE_S``), changes still queued for the writer thread, and the terminal
+left in the screen's modes."""
+
+
+@contextmanager
+def closing_on_signals(app):
+    """While the screen runs, each of :data:`CLOSING_SIGNALS` calls ``app.close_on_signal``; the
+    handlers before are put back after.  Python runs the handler on the main thread (the event
+    loop's), and the app only schedules its closing there."""
+    import signal
+
+    before = {}
+    for name in CLOSING_SIGNALS:
+        number = getattr(signal, name, None)
+        if number is not None:
+            before[number] = signal.signal(number, lambda signum, frame: app.close_on_signal(signum))
+    try:
+        yield
+    finally:
+        for number, handler in before.items():
+            signal.signal(number, handler)
+
+
+def no_terminal() -> str | None:
+    """The standard stream that is not a terminal (a pipe, a file, /dev/null), or None.  The
+    screen reads keys from standard input and draws on standard error (textual's driver), and
+    standard output is the officer's terminal too: with any of them elsewhere the screen would
+    draw into a file or pipe for ever, or wait for keys nobody can type."""
+    import os
+
+    for name, stream in (("standard input", sys.__stdin__), ("standard output", sys.__stdout__),
+                         ("standard error", sys.__stderr__)):
+        try:
+            ok = stream is not None and os.isatty(stream.fileno())
+        except (OSError, ValueError):
+            ok = False
+        if not ok:
+            return name
+    return None
+
+
+def _terminal_gone() -> None:
+    """After SIGHUP the terminal may have gone: what is still buffered for it, flushed at exit,
+    would fail (EIO) and turn the exit status into Python's 120.  Standard output and error go to
+    /dev/null instead (anything for the officer has been written already, or could not be)."""
+    import os
+
+    for stream in (sys.stdout, sys.stderr):
+        try:
+            stream.flush()
+        except (OSError, ValueError):
+            pass
+    try:
+        null = os.open(os.devnull, os.O_WRONLY)
+    except OSError:
+        return
+    for fd in (1, 2):
+        try:
+            os.dup2(null, fd)
+        except OSError:
+            pass
+    os.close(null)

@@ -156,7 +156,8 @@ class LoadingScreen(Screen[None]):
         return lines
 
     def _title(self, width: int) -> Text:
-        """Vessel, condition, whether changes are logged, undo depth.  Shortened step by step until
+        """Vessel, condition, whether changes are saved (NOT SAVING in a window that saves nothing,
+        NOT SAVED while the newest condition is in no file) and logged, undo depth.  Shortened step by step until
         it fits (narrow screens start at the third step): the program's name goes, then the log
         and plan words are shortened, then 'modified from <name>' becomes '(modified)', then the
         condition's name ends in '…'."""
@@ -176,8 +177,15 @@ class LoadingScreen(Screen[None]):
         t.append(f"{s.vessel.particulars.name} │ {name or s.condition.name}", P["value"])
         if s.condition.modified_from:
             t.append(f" (modified from {s.condition.modified_from})" if level < 3 else " (modified)", P["caution"])
-        t.append(" │ ", P["value"])
         words = level < 2
+        # Before the log and undo words: a title too long for the screen is cut from its end.
+        if s.not_saving:
+            t.append(" │ ", P["value"])
+            t.append("NOT SAVING: another deckload has this vessel" if words else "NOT SAVING", P["danger"])
+        elif s.unsaved:
+            t.append(" │ ", P["value"])
+            t.append("NOT SAVED: the last save failed" if words else "NOT SAVED", P["danger"])
+        t.append(" │ ", P["value"])
         if j.writable and j.officer:
             t.append(f"watch {j.officer}, logged" if words else f"{j.officer} logged", P["dim"])
         elif j.writable:

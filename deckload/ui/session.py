@@ -179,6 +179,13 @@ class Session:
         """Where reports printed from the screen go, when known."""
         self.profile_doubts: tuple[str, ...] = ()
         """The profile's plausibility-audit warnings (audit_findings.doubt_lines): printed reports carry them."""
+        self.not_saving: str | None = None
+        """Why this window saves no change at all (another deckload has the vessel open and owns
+        her working file), or None; ``save_path`` is then None."""
+        self.unsaved: str | None = None
+        """Why the newest condition on screen is in no file, naming the file where one was tried
+        (a save that failed, or :attr:`not_saving`); None once a save has landed.  Set by whoever
+        saves (the writer thread), read by the screen after :meth:`flush`."""
         self.journal = journal or Journal(None)
         self._evaluate = evaluate
         self._save = save
@@ -538,6 +545,7 @@ class Session:
                                           newest.result, save=True, log=False)
             except Exception as exc:  # not an OSError (those _persist words itself): still never silent
                 # The reason first: on a narrow message line a long path is what gets cut, not why.
+                self.unsaved = f"{exc}; file {self.save_path}"
                 problems.append(f"NOT SAVED ({exc}): the change is on screen only; the next change tries "
                                 f"again. File: {self.save_path}")
         for w in batch:  # the log is a record: every entry, whatever became of the save
@@ -569,12 +577,16 @@ class Session:
     def _persist(self, condition: Condition, kind: str, label: str, data: dict, result: Result | None,
                  save: bool = True, log: bool = True) -> list[str]:
         problems = []
+        if save and self.not_saving is not None:
+            self.unsaved = self.not_saving
         if save and self.save_path is not None and self._save is not None:
             try:
                 self.save_path.parent.mkdir(parents=True, exist_ok=True)
                 self._save(self.save_path, condition)
                 self.saves_written += 1
+                self.unsaved = None
             except OSError as exc:
+                self.unsaved = f"{exc.strerror or exc}; file {self.save_path}"
                 problems.append(f"NOT SAVED ({exc.strerror or exc}): the change is on screen only (the file holds "
                                 f"the last condition saved); the next change tries again. File: {self.save_path}")
         err = self.journal.append(kind=kind, change_text=label, change_data=data, result=result,
