@@ -37,7 +37,7 @@ import numpy as np
 from deckload.core import gz as gzmod
 from deckload.core.bounds import bounded
 from deckload.core.criteria import Measures, limit_curve_criterion
-from deckload.core.free_surface import BASIS_NONE, TankFreeSurface, free_surface, transfer_moment_m4
+from deckload.core.free_surface import BASIS_NONE, TankFreeSurface, free_surface, settings_departures, transfer_moment_m4
 from deckload.core.frozen import frozen
 from deckload.core.hydrostatics import Upright, draft_at, fresh_water_allowance_m, mark_density_t_m3, permitted_draft_m
 from deckload.core.loading import LoadingError, TankContents, WeightSum, hold_item, resolve_tanks, sum_weights
@@ -425,7 +425,9 @@ def stage_warnings(vessel: Vessel, condition: Condition, weights: Weights, fs: F
     hold loads over the hold's limit; two deck items or constants alike in every field.  Then the
     notes of stages 1–5 in order, then
     GM fluid ≤ 0 (she lolls to the list's side), no equilibrium (GZ never positive),
-    and the ``actual`` free-surface rule (the consumables' allowance is off).
+    the ``actual`` free-surface rule (the consumables' allowance is off), and ``[free_surface]``
+    settings that leave out moments IS 2008 B 3.1 counts
+    (:func:`~deckload.core.free_surface.settings_departures`).
     """
     notes = [*weights.notes, *floating.notes, *curve.notes, *assessment.notes]
     if floating.gm_fluid_m <= 0.0:
@@ -441,6 +443,12 @@ def stage_warnings(vessel: Vessel, condition: Condition, weights: Weights, fs: F
         notes.append(Warning("fs-rule-actual",
                              "free surface at actual levels (IS 2008 B 3.1.6): the B 3.1.3–3.1.4 allowance "
                              "for consumables is off", "caution"))
+    departures = settings_departures(vessel.free_surface, fs.rule)
+    if departures:
+        notes.append(Warning("fs-settings-departure",
+                             "free surface: " + "; ".join(words for _, words in departures)
+                             + ": moments IS 2008 B 3.1 counts are left out of GM and GZ (the vessel profile's "
+                             "[free_surface] settings)", "caution"))
     checks = _warnings(vessel, condition, fs.tanks, assessment.criteria, weights.items, curve.list_deg,
                        floating.draft_mid_m, floating.load_line)
     return tuple(checks + notes)
