@@ -46,7 +46,7 @@ from deckload.core.result import CriterionResult, ItemResult, Result, TankResult
 from deckload.core.tables import OutOfRangeError, bracket, interp, lerp_row
 from deckload.core.verdict import Afloat, Verdict, assess, deck_edge_angle
 from deckload.core.soundings import level_soundings, sounding_note
-from deckload.core.trim import BASIS_TABLE, TrimMoment, kn_reference_note
+from deckload.core.trim import BASIS_TABLE, TrimMoment, even_keel_kn_limit, kn_reference_note
 from deckload.core.trimmed_tables import covers_kn, kn_for, table_state
 
 LIST_WARNING_DEG = 2.0
@@ -107,6 +107,9 @@ class Floating:
     the table), or None when the profile has no marks."""
     notes: tuple[Warning, ...]
     """Cautions on trim beyond the even-keel tables, G far from the KN's LCG, MCTC from the table."""
+    kn_beyond: str | None = None
+    """Why the criteria read off the GZ curve cannot be judged at this trim: KN at even keel only and
+    the trim beyond :data:`~deckload.core.trim.EVEN_KEEL_KN_LIMIT_FRACTION` of LBP; None otherwise."""
 
 
 @frozen(eq=False)
@@ -267,8 +270,13 @@ def stage_upright(vessel: Vessel, condition: Condition, weights: Weights, fs: Fr
     notes: list[Warning] = []
     if ts.trim_note is not None:
         notes.append(Warning("trim-beyond-tables", ts.trim_note, "caution"))
+    # KN at even keel only (no KN at trims, or the even-keel set alone): beyond the bound they cannot
+    # support a verdict on what is read off the GZ curve (core/trim.py, EVEN_KEEL_KN_LIMIT_FRACTION)
+    kn_even_only = vessel.trimmed is None or len(vessel.trimmed.kn_trim_m) == 1
+    kn_beyond = even_keel_kn_limit(trim, lbp) if kn_even_only else None
     # trimmed KN covering the trim are made for her own trim: the free-trim reference LCG does not apply
-    kn_note = None if covers_kn(vessel, trim) else kn_reference_note(vessel.cross_curves, w.lcg_m, lbp)
+    kn_note = (None if covers_kn(vessel, trim) or kn_beyond is not None
+               else kn_reference_note(vessel.cross_curves, w.lcg_m, lbp, trim))
     if kn_note is not None:
         notes.append(Warning("kn-reference-lcg", kn_note, "caution"))
     if mct.basis == BASIS_TABLE and not ts.trimmed:
@@ -276,7 +284,7 @@ def stage_upright(vessel: Vessel, condition: Condition, weights: Weights, fs: Fr
                              "the profile has no KML: trim is worked from the tabulated MCTC (made with BML, "
                              "not the actual GML), so it is slightly too small", "caution"))
     return Floating(hy, gm_solid, gm_fluid, mct, trim, t_aft, t_fwd, t_mid,
-                    _allowed_draft(vessel, condition), tuple(notes))
+                    _allowed_draft(vessel, condition), tuple(notes), kn_beyond)
 
 
 def stage_curve(vessel: Vessel, weights: Weights, fs: FreeSurface, floating: Floating, correction: str) -> Curve:
@@ -408,6 +416,11 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
     criteria = list(verdict.criteria)
     if curve.end_deg < 90.0 - 1e-9:
         criteria = _short_curve(criteria, curve.end_deg, hi, top, f.max_gz_angle_deg)
+    if floating.kn_beyond is not None:
+        criteria = [replace(c, assessed=False, passed=False, note=floating.kn_beyond) if reads_gz_curve(c) else c
+                    for c in criteria]
+        # the weather criterion's numbers are read off the same curve: none is shown as if it stood
+        verdict = replace(_with_sets(verdict, criteria), weather=None)
     for note in verdict.cautions:
         code = "weather-not-assessed" if "not assessed" in note else "verdict-note"
         notes.append(Warning(code, note, "caution"))
@@ -558,6 +571,20 @@ def _allowed_draft(vessel: Vessel, condition: Condition):
         return mark, _permitted_draft(vessel, summer.draft_m, mark, condition.water_density_t_m3)
     except OutOfRangeError:
         return mark, None
+
+
+def reads_gz_curve(c: CriterionResult) -> bool:
+    """True for a criterion measured on the GZ curve (areas, GZ values and angles, the weather and
+    passenger heels, the profile's curve criteria); False for those of GM and KG alone (GM0, the
+    limiting curve, a profile's minimum GM), which the hydrostatic table decides."""
+    return not (c.id.endswith("-gm0") or c.id.startswith("limit-curve-") or c.id.endswith("-min-gm"))
+
+
+def _with_sets(verdict: Verdict, criteria: list[CriterionResult]) -> Verdict:
+    """``verdict`` with its criteria replaced and each set's pass worked again from them."""
+    sets = tuple(replace(s, passed=all(c.passed and c.assessed for c in criteria if c.set_id == s.id))
+                 for s in verdict.sets)
+    return replace(verdict, criteria=tuple(criteria), sets=sets)
 
 
 def _short_curve(criteria: list, end_deg: float, gz30_to_deg: float, area_to_deg: float,
