@@ -63,7 +63,10 @@ def test_the_bound_is_one_and_a_half_per_cent_of_lbp():
         lcg = 30.0 + (-pct / 100 * L - one.trim_m) / per_m
         r = evaluate(v, _bow_load(lcg)[1])
         assert 100 * abs(r.trim_m) / L == pytest.approx(pct, abs=1e-3)
-        assert (_not_assessed(r) == []) is judged
+        # (at 1.45 % the angle of maximum GZ, 25.6° on a 5° table, is marginal on its own account:
+        # tests/test_interpolation_margin.py; only the trim's reason is in question here)
+        beyond = [x.id for x in r.criteria if "beyond what even-keel KN tables cover" in x.note]
+        assert (beyond == []) is judged
         note = next(w.message for w in r.warnings if w.code == "trim-beyond-tables")
         if judged:
             assert note.endswith("drafts less certain, and GZ may be off by up to about 4 cm (UR L5 allows 5 cm on KN)")
