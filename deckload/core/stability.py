@@ -640,8 +640,10 @@ def _marginal(criteria: list[CriterionResult], second: list[CriterionResult],
                 why = (f"GZ comes within {eps * 1000:.0f} mm, the two interpolations' difference, of its "
                        f"maximum from {lo:.1f}° to {hi:.1f}°")
         if why and c.passed:
+            # (a note that it passes, as A 2.2.3's 'prefers beyond 30°', no longer applies)
+            keep = c.note if c.note and not c.note.startswith("passes") else ""
             c = replace(c, assessed=False, passed=False,
-                        note=f"{MARGINAL} ({why}); compare with the booklet" + (f"; {c.note}" if c.note else ""))
+                        note=f"{MARGINAL} ({why}); compare with the booklet" + (f"; {keep}" if keep else ""))
         elif why:
             c = replace(c, note=(f"{c.note}; " if c.note else "") + f"{MARGINAL} ({why})")
         out.append(c)
