@@ -435,8 +435,10 @@ def test_table_state_with_and_without_tables_at_trims():
     ts0 = table_state(plain, DISP5, RHO, L / 2 - 0.98, 3.0)
     assert ts0.trimmed is False
     assert ts0.trim_m == pytest.approx(L * 0.98 / (_kml(T5, 0.0) - 3.0), rel=ROUND_OFF)
+    # 1.49 m is 3.7 % of LBP, beyond the 1.5 % even-keel KN support (core/trim.py)
     assert ts0.trim_note == (f"trim {ts0.trim_m:.2f} m by the stern ({100 * ts0.trim_m / L:.1f} % of LBP): the "
-                             "tables are for even keel; drafts and KN less certain")
+                             "tables are for even keel; beyond 1.5 % of LBP the criteria read off the GZ curve "
+                             "are not assessed (KN tables at trims needed); drafts less certain")
     assert ts0.upright.kmt_m == pytest.approx(_kmt(T5, 0.0), abs=ROUND_OFF)
     assert ts0.moment.mctc_tm_cm == pytest.approx(DISP5 * (_kml(T5, 0.0) - 3.0) / (100 * L), rel=ROUND_OFF)
 

@@ -29,6 +29,7 @@ import math
 
 import numpy as np
 
+from deckload.core.free_surface import settings_departures
 from deckload.core.frozen import frozen
 from deckload.core.model import Tank, Vessel
 
@@ -997,6 +998,22 @@ def _trimmed_tables(a: _Audit) -> None:
             entry += 1
 
 
+def _free_surface_settings(a: _Audit) -> None:
+    """A warning for each ``[free_surface]`` setting that leaves out a moment IS 2008 B 3.1 counts
+    (:func:`deckload.core.free_surface.settings_departures`): nominally full below 98 %, a small-tank
+    limit above 0.01 m, an empty level above 0.5 %.  A doubt, not a contradiction: Part B is
+    recommendatory, and the Administration may have accepted the setting for this ship."""
+    fs = a.v.free_surface
+    # judged under the Part B 3.1 rule: a condition may choose it whatever the profile's rule
+    for key, words in settings_departures(fs, "is2008"):
+        value, unit = {"nominally_full_pct": (fs.nominally_full_pct, "%"), "small_tank_limit_m": (fs.small_tank_limit_m, "m"),
+                       "empty_pct": (fs.empty_pct, "%")}[key]
+        a.add(WARNING, f"free_surface.{key}", ("free_surface", key), _f(value, unit),
+              "departs from the Code on the side that leaves out free surface: " + words
+              + "; every result says so", "the booklet's free-surface notes and the Administration's acceptance",
+              "fs-setting")
+
+
 def audit(vessel: Vessel) -> tuple[Finding, ...]:
     """Every plausibility finding on ``vessel``, errors first, each group in profile order."""
     a = _Audit(vessel)
@@ -1008,6 +1025,7 @@ def audit(vessel: Vessel) -> tuple[Finding, ...]:
     a.cross_curves()
     _trimmed_tables(a)
     a.tanks()
+    _free_surface_settings(a)
     a.curves()
     return tuple(sorted(a.out, key=lambda f: 0 if f.severity == ERROR else 1))
 

@@ -33,7 +33,7 @@ import numpy as np
 
 from deckload.core.frozen import frozen
 from deckload.core.loading import TankContents
-from deckload.core.model import FluidTransfer, Tank, Vessel
+from deckload.core.model import FluidTransfer, FreeSurfaceSettings, Tank, Vessel
 from deckload.core.tables import bracket, lerp_row
 
 SIN30 = 0.5
@@ -50,6 +50,14 @@ CODE_FULL_PCT = 98.0
 """IS 2008 B 3.1.2's "nominally full" level: the level a nominally full cargo tank is corrected at
 (the footnote), whatever fill the profile calls nominally full (``nominally_full_pct`` moves only
 where a tank counts as full)."""
+
+CODE_SMALL_TANK_LIMIT_M = 0.01
+"""IS 2008 B 3.1.12's small-tank exemption: Mfs(30°)/Δmin below 0.01 m (the paragraph confirmed, the
+value from memory: standards.md §4.1, §8 row 16)."""
+
+DEFAULT_EMPTY_PCT = 0.5
+"""deckload's own "empty" level: the Code names none; it counts every tank below 98 % as slack
+(B 3.1.2) and ignores only the usual remainder in an empty tank (standards.md §4.1, from memory)."""
 
 EXEMPT_RULE = "small tank, exempt (IS 2008 B 3.1.12)"
 """The rule text of a slack tank left out by the small-tank exemption."""
@@ -176,6 +184,36 @@ def _full_rule(full_pct: float) -> str:
     if full_pct == CODE_FULL_PCT:
         return "nominally full ≥ 98 % (IS 2008 B 3.1.2)"
     return f"nominally full ≥ {full_pct:g} % (the profile's threshold; IS 2008 B 3.1.2 says 98 %)"
+
+
+def settings_departures(fs: FreeSurfaceSettings, rule: str) -> tuple[tuple[str, str], ...]:
+    """(key, words) of each ``[free_surface]`` setting that leaves out a moment IS 2008 B 3.1 counts.
+
+    * ``nominally_full_pct`` below 98 %: tanks between it and 98 % carry no correction, which
+      B 3.1.2 counts (standards.md §4.1, §8 row 15);
+    * ``small_tank_limit_m`` above 0.01 m (rule ``is2008`` only: ``actual`` exempts nothing): tanks whose
+      Mfs(30°)/Δmin lies between 0.01 m and it are left out (B 3.1.12, value from memory);
+    * ``empty_pct`` above deckload's 0.5 %: tanks up to it are taken as empty (the Code ignores only
+      the usual remainder, standards.md §4.1 from memory).
+
+    A setting on the conservative side (a higher full level, a lower or no exemption) is no
+    departure.  Part B is recommendatory and the Administration decides the treatment for a given
+    ship, so such settings are not refused; they are shown wherever they act (the audit, every result).
+    """
+    out = []
+    if fs.nominally_full_pct < CODE_FULL_PCT:
+        out.append(("nominally_full_pct", f"nominally_full_pct {fs.nominally_full_pct:g} % (IS 2008 B 3.1.2: "
+                    f"{CODE_FULL_PCT:g} %): a tank from {fs.nominally_full_pct:g} % up to 98 % is taken as full, "
+                    "with no free surface"))
+    if rule == "is2008" and fs.small_tank_limit_m > CODE_SMALL_TANK_LIMIT_M:
+        out.append(("small_tank_limit_m", f"small_tank_limit_m {fs.small_tank_limit_m:g} m (IS 2008 B 3.1.12: "
+                    f"Mfs(30°)/Δmin < {CODE_SMALL_TANK_LIMIT_M:g} m, from memory): a tank up to "
+                    f"{fs.small_tank_limit_m:g} m is left out as small"))
+    if fs.empty_pct > DEFAULT_EMPTY_PCT:
+        out.append(("empty_pct", f"empty_pct {fs.empty_pct:g} % (the Code counts every tank below 98 % as slack, "
+                    f"ignoring only the usual remainder; deckload's default {DEFAULT_EMPTY_PCT:g} %): a tank up to "
+                    f"{fs.empty_pct:g} % is taken as empty"))
+    return tuple(out)
 
 
 def free_surface(vessel: Vessel, contents: list[TankContents], rule: str) -> list[TankFreeSurface]:

@@ -79,6 +79,105 @@ def _heel_weights(cc: CrossCurves) -> np.ndarray:
     return weights
 
 
+def pchip_curve(heel_deg: np.ndarray, row: np.ndarray, n: int) -> np.ndarray:
+    """KN (m) on the first ``n`` points of the fine grid by a shape-preserving piecewise cubic (PCHIP)
+    through the same tabulated row: the second opinion on the natural spline between the table's heels.
+
+    Hermite cubics on each interval with slopes by Fritsch & Carlson's method (*SIAM J. Numer. Anal.*
+    17, 1980) as Fritsch & Butland give it: at an inner knot the weighted harmonic mean of the two
+    secants, w₁ = 2h_k + h_{k−1}, w₂ = h_k + 2h_{k−1}, d = (w₁ + w₂)/(w₁/Δ_{k−1} + w₂/Δ_k), and 0 where
+    the secants differ in sign or either is 0; at an end the three-point formula
+    ((2h₀ + h₁)Δ₀ − h₀Δ₁)/(h₀ + h₁), set to 0 when its sign is not Δ₀'s and to 3Δ₀ when the secants
+    differ in sign and it exceeds that.  The curve keeps the data's monotone runs and never overshoots
+    them, where the spline rounds a peak off; it is the construction of scipy's PchipInterpolator
+    (tests/test_interpolation_margin.py compares them).  The slopes are not linear in the row and are
+    worked at each call (plain floats: a table has a dozen or two heels); the curve is then one
+    product with the Hermite basis of the table's heels (:func:`_hermite_weights`, made once).
+    """
+    x = tuple(float(v) for v in heel_deg)
+    y = np.asarray(row, dtype=float)
+    yl = y.tolist()
+    # a dozen or two knots: the slopes in plain floats cost less than numpy's per-call overhead
+    h = [b - a for a, b in zip(x, x[1:])]
+    d = [(q - p) / w for p, q, w in zip(yl, yl[1:], h)]
+    if len(x) == 2:
+        m = [d[0], d[0]]
+    else:
+        m = [_pchip_end(h[0], h[1], d[0], d[1])]
+        for k in range(1, len(x) - 1):
+            d0, d1, h0, h1 = d[k - 1], d[k], h[k - 1], h[k]
+            if d0 * d1 > 0.0:
+                w1, w2 = 2.0 * h1 + h0, h1 + 2.0 * h0
+                m.append((w1 + w2) / (w1 / d0 + w2 / d1))
+            else:
+                m.append(0.0)
+        m.append(_pchip_end(h[-1], h[-2], d[-1], d[-2]))
+    return _hermite_weights(x, n) @ np.concatenate((y, np.asarray(m)))
+
+
+@lru_cache(maxsize=256)
+def _hermite_weights(heel_deg: tuple[float, ...], n: int) -> np.ndarray:
+    """``W`` (first ``n`` fine-grid points × 2·knots): the cubic Hermite interpolant through values
+    y and slopes m at the knots is ``W @ [y, m]`` on the grid.  It depends on the heels alone: made
+    once per table, as the spline's weights are (:func:`_heel_weights`)."""
+    x = np.asarray(heel_deg)
+    k = len(x)
+    xq = FINE_DEG[:n]
+    i = np.clip(np.searchsorted(x, xq, side="right") - 1, 0, k - 2)
+    hi = x[i + 1] - x[i]
+    t = (xq - x[i]) / hi
+    t2, t3 = t * t, t * t * t
+    w = np.zeros((n, 2 * k))
+    rows = np.arange(n)
+    w[rows, i] = 2 * t3 - 3 * t2 + 1
+    w[rows, i + 1] = -2 * t3 + 3 * t2
+    w[rows, k + i] = (t3 - 2 * t2 + t) * hi
+    w[rows, k + i + 1] = (t3 - t2) * hi
+    w.flags.writeable = False
+    return w
+
+
+def _pchip_end(h0: float, h1: float, d0: float, d1: float) -> float:
+    """The end slope of :func:`pchip_curve` (three-point formula, kept to the end secant's sign)."""
+    s = ((2.0 * h0 + h1) * d0 - h0 * d1) / (h0 + h1)
+    if _sign(s) != _sign(d0):
+        return 0.0
+    if _sign(d0) != _sign(d1) and abs(s) > abs(3.0 * d0):
+        return 3.0 * d0
+    return s
+
+
+def _sign(v: float) -> int:
+    return (v > 0.0) - (v < 0.0)
+
+
+def max_band(gz: np.ndarray, heel_deg: np.ndarray, spread_m: np.ndarray) -> tuple[float, float, float] | None:
+    """(lowest, highest angle, ε): the run of the fine grid around the maximum of ``gz`` where GZ comes
+    within ε of its top, ε the largest ``spread_m`` (the two interpolations' difference) over the
+    tabulated intervals that touch the maximum; None when GZ is nowhere positive.
+
+    The angle of maximum GZ is read where the curve is flat, so a small error in GZ moves it far (a
+    parabola's top: δθ = √(2ε/|GZ''|), derived).  With GZ known to ε between the table's heels, the
+    maximum may lie anywhere the curve comes within ε of its top: the criterion on its angle is decided
+    only when the whole run lies on one side of the limit."""
+    k = int(np.argmax(gz))
+    top = float(gz[k])
+    if not top > 0.0:
+        return None
+    theta = float(FINE_DEG[k])
+    x = np.asarray(heel_deg, dtype=float)
+    lo_knot = float(x[max(int(np.searchsorted(x, theta, side="left")) - 1, 0)])
+    hi_knot = float(x[min(int(np.searchsorted(x, theta, side="right")), len(x) - 1)])
+    a, b = int(round(lo_knot / STEP_DEG)), min(int(round(hi_knot / STEP_DEG)), len(gz) - 1)
+    eps = float(np.max(np.abs(spread_m[a : b + 1])))
+    near = gz >= top - eps
+    below_left = np.flatnonzero(~near[:k])
+    below_right = np.flatnonzero(~near[k:])
+    left = int(below_left[-1]) + 1 if len(below_left) else 0
+    right = k + int(below_right[0]) - 1 if len(below_right) else len(gz) - 1
+    return float(FINE_DEG[left]), float(FINE_DEG[right]), eps
+
+
 def grid_points(cc: CrossCurves) -> int:
     """Points of the fine grid the KN table covers: 0° up to its last tabulated angle.
 

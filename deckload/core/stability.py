@@ -37,7 +37,7 @@ import numpy as np
 from deckload.core import gz as gzmod
 from deckload.core.bounds import bounded
 from deckload.core.criteria import LIMIT_CURVE_SET, SET_TITLES, Measures, limit_curve_criterion
-from deckload.core.free_surface import BASIS_NONE, TankFreeSurface, free_surface, transfer_moment_m4
+from deckload.core.free_surface import BASIS_NONE, TankFreeSurface, free_surface, settings_departures, transfer_moment_m4
 from deckload.core.frozen import frozen
 from deckload.core.hydrostatics import Upright, draft_at, fresh_water_allowance_m, mark_density_t_m3, permitted_draft_m
 from deckload.core.loading import LoadingError, TankContents, WeightSum, hold_item, resolve_tanks, sum_weights
@@ -46,8 +46,8 @@ from deckload.core.result import CriterionResult, ItemResult, NotAssessed, Resul
 from deckload.core.tables import OutOfRangeError, bracket, interp, lerp_row
 from deckload.core.verdict import Afloat, Verdict, assess, deck_edge_angle
 from deckload.core.soundings import level_soundings, sounding_note
-from deckload.core.trim import BASIS_TABLE, TrimMoment, kn_reference_note
-from deckload.core.trimmed_tables import covers_kn, kn_for, table_state
+from deckload.core.trim import BASIS_TABLE, TrimMoment, even_keel_kn_limit, kn_reference_note
+from deckload.core.trimmed_tables import covers_kn, kn_row_for, table_state
 
 LIST_WARNING_DEG = 2.0
 NEAR_LIMIT_FRACTION = 0.10
@@ -107,6 +107,9 @@ class Floating:
     the table), or None when the profile has no marks."""
     notes: tuple[Warning, ...]
     """Cautions on trim beyond the even-keel tables, G far from the KN's LCG, MCTC from the table."""
+    kn_beyond: str | None = None
+    """Why the criteria read off the GZ curve cannot be judged at this trim: KN at even keel only and
+    the trim beyond :data:`~deckload.core.trim.EVEN_KEEL_KN_LIMIT_FRACTION` of LBP; None otherwise."""
 
 
 @frozen(eq=False)
@@ -129,6 +132,12 @@ class Curve:
     (no position of equilibrium up to the curve's last angle)."""
     notes: tuple[Warning, ...]
     """A caution naming tanks whose transfer is taken as i·sinφ for want of geometry."""
+    kn_heel_deg: np.ndarray | None = None
+    """The KN table's tabulated heels, between which the curve is interpolated."""
+    kn_spread_m: np.ndarray | None = None
+    """KN by a shape-preserving interpolation (:func:`~deckload.core.gz.pchip_curve`) of the same row,
+    less KN by the natural spline, on the fine grid: added to either GZ it gives the second opinion
+    the criteria are judged on as well (:func:`stage_criteria`)."""
 
     @property
     def gz_lee_m(self) -> np.ndarray:
@@ -267,8 +276,13 @@ def stage_upright(vessel: Vessel, condition: Condition, weights: Weights, fs: Fr
     notes: list[Warning] = []
     if ts.trim_note is not None:
         notes.append(Warning("trim-beyond-tables", ts.trim_note, "caution"))
+    # KN at even keel only (no KN at trims, or the even-keel set alone): beyond the bound they cannot
+    # support a verdict on what is read off the GZ curve (core/trim.py, EVEN_KEEL_KN_LIMIT_FRACTION)
+    kn_even_only = vessel.trimmed is None or len(vessel.trimmed.kn_trim_m) == 1
+    kn_beyond = even_keel_kn_limit(trim, lbp) if kn_even_only else None
     # trimmed KN covering the trim are made for her own trim: the free-trim reference LCG does not apply
-    kn_note = None if covers_kn(vessel, trim) else kn_reference_note(vessel.cross_curves, w.lcg_m, lbp)
+    kn_note = (None if covers_kn(vessel, trim) or kn_beyond is not None
+               else kn_reference_note(vessel.cross_curves, w.lcg_m, lbp, trim))
     if kn_note is not None:
         notes.append(Warning("kn-reference-lcg", kn_note, "caution"))
     if mct.basis == BASIS_TABLE and not ts.trimmed:
@@ -276,7 +290,7 @@ def stage_upright(vessel: Vessel, condition: Condition, weights: Weights, fs: Fr
                              "the profile has no KML: trim is worked from the tabulated MCTC (made with BML, "
                              "not the actual GML), so it is slightly too small", "caution"))
     return Floating(hy, gm_solid, gm_fluid, mct, trim, t_aft, t_fwd, t_mid,
-                    _allowed_draft(vessel, condition), tuple(notes))
+                    _allowed_draft(vessel, condition), tuple(notes), kn_beyond)
 
 
 def stage_curve(vessel: Vessel, weights: Weights, fs: FreeSurface, floating: Floating, correction: str) -> Curve:
@@ -297,9 +311,12 @@ def stage_curve(vessel: Vessel, weights: Weights, fs: FreeSurface, floating: Flo
     """
     w = weights.total
     disp = w.mass_t
-    kn = kn_for(vessel, floating.hydrostatics.table_displacement_t, floating.trim_m)
+    kn_heels, kn_row = kn_row_for(vessel, floating.hydrostatics.table_displacement_t, floating.trim_m)
+    # the natural spline in heel of the same row kn_for splines (its weights are per table, kept)
+    kn = gzmod.heel_curve(vessel.cross_curves if vessel.trimmed is None else vessel.trimmed.cross_curves[0], kn_row)
     # The curve stops at the KN table's last angle (booklets may end at 60°): cut the grid.
     n_grid = len(kn)
+    spread = gzmod.pchip_curve(kn_heels, kn_row, n_grid) - kn
     fine_deg, fine_rad = gzmod.FINE_DEG[:n_grid], gzmod.FINE_RAD[:n_grid]
     sin, cos = gzmod.SIN[:n_grid], gzmod.COS[:n_grid]
     notes: list[Warning] = []
@@ -334,7 +351,7 @@ def stage_curve(vessel: Vessel, weights: Weights, fs: FreeSurface, floating: Flo
     f = gzmod.facts(gz_port if side == "port" else gz_stbd)
     eq = f.equilibrium_deg
     heel = None if eq is None else eq if side == "starboard" else -eq
-    return Curve(correction, fine_deg, gz_stbd, gz_port, side, f, heel, tuple(notes))
+    return Curve(correction, fine_deg, gz_stbd, gz_port, side, f, heel, tuple(notes), kn_heels, spread)
 
 
 def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: FreeSurface,
@@ -372,20 +389,7 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
         notes.append(Warning("downflooding-low",
                              f"downflooding angle θf {flood:.1f}° is below 30°: openings immerse before 30°, "
                              "so the 30°–θf area is nil", "danger"))
-    top = min(40.0, flood) if flood is not None else 40.0
-    a30 = gzmod.area_to(gz, 30.0)
-    a40 = gzmod.area_to(gz, top)
-    a3040 = a40 - a30 if top > 30.0 else 0.0
-    hi = max(30.0, flood) if flood is not None else 90.0
-    k30 = int(round(30.0 / gzmod.STEP_DEG))
-    khi = int(round(hi / gzmod.STEP_DEG))
-    gz30 = float(np.max(gz[k30 : khi + 1]))
-
-    # A curve with no positive GZ has no meaningful 'angle of maximum': it fails 2.2.3.
-    angle_of_max = f.max_gz_angle_deg if f.max_gz_m > 0.0 else 0.0
-    # Area to the angle of maximum GZ (or θf if less), for the OSV set of Part B 2.4.5.
-    a_max = gzmod.area_to(gz, min(angle_of_max, flood) if flood is not None else angle_of_max)
-    measures = Measures(a30, a40, a3040, gz30, angle_of_max, gm_fluid, a_max)
+    measures = _measures(gz, f, flood, gm_fluid)
     limit_rows = []
     limit_missing = None
     if vessel.limit_curve is not None:
@@ -413,12 +417,33 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
     )
     verdict = assess(vessel, afloat, limit_rows, limit_missing)
     criteria = list(verdict.criteria)
+    top, hi = _area_top(flood), _gz30_top(flood)
     if curve.end_deg < 90.0 - 1e-9:
         criteria = _short_curve(criteria, curve.end_deg, hi, top, f.max_gz_angle_deg)
+    if floating.kn_beyond is not None:
+        criteria = [replace(c, assessed=False, passed=False, note=floating.kn_beyond) if reads_gz_curve(c) else c
+                    for c in criteria]
+        # the weather criterion's numbers are read off the same curve: none is shown as if it stood
+        verdict = replace(_with_sets(verdict, criteria), weather=None)
+    elif curve.kn_spread_m is not None:
+        # The same KN row by a shape-preserving interpolation: a criterion the spline passes and it
+        # fails was decided by the interpolation between the table's heels, not by the table.
+        gz2 = gz + curve.kn_spread_m
+        f2 = gzmod.facts(gz2)
+        afloat2 = replace(afloat, gz_lee_m=gz2, gz_other_m=curve.gz_other_m + curve.kn_spread_m,
+                          measures=_measures(gz2, f2, flood, gm_fluid), max_gz_m=f2.max_gz_m,
+                          vanishing_deg=f2.vanishing_angle_deg, equilibrium_deg=f2.equilibrium_deg)
+        second = list(assess(vessel, afloat2, limit_rows).criteria)
+        if curve.end_deg < 90.0 - 1e-9:
+            second = _short_curve(second, curve.end_deg, hi, top, f2.max_gz_angle_deg)
+        band = gzmod.max_band(gz, curve.kn_heel_deg, curve.kn_spread_m)
+        criteria = _marginal(criteria, second, band)
+        verdict = _with_sets(verdict, criteria)
     for note in verdict.cautions:
         code = "weather-not-assessed" if "not assessed" in note else "verdict-note"
         notes.append(Warning(code, note, "caution"))
-    return Assessment(flood, a30, a40, a3040, tuple(criteria), verdict, deck_edge, tuple(notes))
+    return Assessment(flood, measures.area_0_30_mrad, measures.area_0_40_mrad, measures.area_30_40_mrad,
+                      tuple(criteria), verdict, deck_edge, tuple(notes))
 
 
 def stage_warnings(vessel: Vessel, condition: Condition, weights: Weights, fs: FreeSurface,
@@ -432,7 +457,9 @@ def stage_warnings(vessel: Vessel, condition: Condition, weights: Weights, fs: F
     hold loads over the hold's limit; two deck items or constants alike in every field.  Then the
     notes of stages 1–5 in order, then
     GM fluid ≤ 0 (she lolls to the list's side), no equilibrium (GZ never positive),
-    and the ``actual`` free-surface rule (the consumables' allowance is off).
+    the ``actual`` free-surface rule (the consumables' allowance is off), and ``[free_surface]``
+    settings that leave out moments IS 2008 B 3.1 counts
+    (:func:`~deckload.core.free_surface.settings_departures`).
     """
     notes = [*weights.notes, *floating.notes, *curve.notes, *assessment.notes]
     if floating.gm_fluid_m <= 0.0:
@@ -448,6 +475,12 @@ def stage_warnings(vessel: Vessel, condition: Condition, weights: Weights, fs: F
         notes.append(Warning("fs-rule-actual",
                              "free surface at actual levels (IS 2008 B 3.1.6): the B 3.1.3–3.1.4 allowance "
                              "for consumables is off", "caution"))
+    departures = settings_departures(vessel.free_surface, fs.rule)
+    if departures:
+        notes.append(Warning("fs-settings-departure",
+                             "free surface: " + "; ".join(words for _, words in departures)
+                             + ": moments IS 2008 B 3.1 counts are left out of GM and GZ (the vessel profile's "
+                             "[free_surface] settings)", "caution"))
     checks = _warnings(vessel, condition, fs.tanks, assessment.criteria, weights.items, curve.list_deg,
                        floating.draft_mid_m, floating.load_line)
     return tuple(checks + notes)
@@ -573,6 +606,85 @@ def _allowed_draft(vessel: Vessel, condition: Condition):
         return mark, _permitted_draft(vessel, summer.draft_m, mark, condition.water_density_t_m3)
     except OutOfRangeError:
         return mark, None
+
+
+def _area_top(flood: float | None) -> float:
+    """Where the areas of IS 2008 A 2.2.1 end: 40° or θf if less."""
+    return min(40.0, flood) if flood is not None else 40.0
+
+
+def _gz30_top(flood: float | None) -> float:
+    """How far "GZ ≥ 0.20 m at 30° or more" looks: to θf (at least 30°), else 90° (common practice)."""
+    return max(30.0, flood) if flood is not None else 90.0
+
+
+def _measures(gz: np.ndarray, f: gzmod.CurveFacts, flood: float | None, gm_fluid_m: float) -> Measures:
+    """The values the criteria sets are measured on, from one GZ curve on the low side
+    (:func:`stage_criteria`'s docstring gives each)."""
+    top, hi = _area_top(flood), _gz30_top(flood)
+    a30 = gzmod.area_to(gz, 30.0)
+    a40 = gzmod.area_to(gz, top)
+    a3040 = a40 - a30 if top > 30.0 else 0.0
+    k30 = int(round(30.0 / gzmod.STEP_DEG))
+    khi = int(round(hi / gzmod.STEP_DEG))
+    gz30 = float(np.max(gz[k30 : khi + 1]))
+    # A curve with no positive GZ has no meaningful 'angle of maximum': it fails 2.2.3.
+    angle_of_max = f.max_gz_angle_deg if f.max_gz_m > 0.0 else 0.0
+    # Area to the angle of maximum GZ (or θf if less), for the OSV set of Part B 2.4.5.
+    a_max = gzmod.area_to(gz, min(angle_of_max, flood) if flood is not None else angle_of_max)
+    return Measures(a30, a40, a3040, gz30, angle_of_max, gm_fluid_m, a_max)
+
+
+MARGINAL = "marginal: decided by the interpolation between the KN table's heels"
+
+
+def _marginal(criteria: list[CriterionResult], second: list[CriterionResult],
+              band: tuple[float, float, float] | None) -> list[CriterionResult]:
+    """Each criterion against its second opinion (the same KN row by a shape-preserving interpolation).
+
+    A criterion the spline passes is not assessable ("marginal ... compare with the booklet") when the
+    second opinion fails it or cannot assess it, and an angle-of-maximum criterion also when the run
+    of angles where GZ is within the two interpolations' spread of its top (``band``,
+    :func:`~deckload.core.gz.max_band`) reaches past the limit.  A failure stays a failure (never
+    softened into "not assessable"); the note says when the second opinion passes it.
+    """
+    out = []
+    for c, d in zip(criteria, second):
+        if not c.assessed:
+            out.append(c)
+            continue
+        why = ""
+        if d.passed != c.passed or not d.assessed:
+            other = f"{d.value:.4g} {d.unit}" if d.assessed else "not assessable"
+            why = f"{c.value:.4g} {c.unit} by the cubic spline, {other} by a shape-preserving one"
+        elif c.id.endswith("angle-max-gz") and band is not None:
+            lo, hi, eps = band
+            if (lo < c.limit <= c.value) if c.comparison == ">=" else (c.value <= c.limit < hi):
+                why = (f"GZ comes within {eps * 1000:.0f} mm, the two interpolations' difference, of its "
+                       f"maximum from {lo:.1f}° to {hi:.1f}°")
+        if why and c.passed:
+            # (a note that it passes, as A 2.2.3's 'prefers beyond 30°', no longer applies)
+            keep = c.note if c.note and not c.note.startswith("passes") else ""
+            c = replace(c, assessed=False, passed=False,
+                        note=f"{MARGINAL} ({why}); compare with the booklet" + (f"; {keep}" if keep else ""))
+        elif why:
+            c = replace(c, note=(f"{c.note}; " if c.note else "") + f"{MARGINAL} ({why})")
+        out.append(c)
+    return out
+
+
+def reads_gz_curve(c: CriterionResult) -> bool:
+    """True for a criterion measured on the GZ curve (areas, GZ values and angles, the weather and
+    passenger heels, the profile's curve criteria); False for those of GM and KG alone (GM0, the
+    limiting curve, a profile's minimum GM), which the hydrostatic table decides."""
+    return not (c.id.endswith("-gm0") or c.id.startswith("limit-curve-") or c.id.endswith("-min-gm"))
+
+
+def _with_sets(verdict: Verdict, criteria: list[CriterionResult]) -> Verdict:
+    """``verdict`` with its criteria replaced and each set's pass worked again from them."""
+    sets = tuple(replace(s, passed=all(c.passed and c.assessed for c in criteria if c.set_id == s.id))
+                 for s in verdict.sets)
+    return replace(verdict, criteria=tuple(criteria), sets=sets)
 
 
 def _short_curve(criteria: list, end_deg: float, gz30_to_deg: float, area_to_deg: float,

@@ -356,14 +356,20 @@ def table_state(vessel: Vessel, displacement_t: float, water_density_t_m3: float
                       True)
 
 
+def kn_row_for(vessel: Vessel, table_displacement_t: float, trim_m: float) -> tuple[np.ndarray, np.ndarray]:
+    """(tabulated heels, KN at them) at a displacement (table density): the even-keel row, or the rows
+    of the tables at trims interpolated at ``trim_m``.  :func:`kn_for` splines it in heel;
+    :func:`deckload.core.gz.pchip_curve` gives the second opinion of the same row."""
+    if vessel.trimmed is None:
+        return vessel.cross_curves.heel_deg, kn_row(vessel.cross_curves, table_displacement_t)
+    return vessel.trimmed.cross_curves[0].heel_deg, kn_row_at(vessel.trimmed, table_displacement_t, trim_m)
+
+
 def kn_for(vessel: Vessel, table_displacement_t: float, trim_m: float) -> np.ndarray:
     """KN on the fine heel grid at a displacement (table density): the even-keel curves, or the
     tables at trims interpolated at ``trim_m`` (the equilibrium trim upright)."""
-    from deckload.core.gz import kn_curve
-
-    if vessel.trimmed is None:
-        return kn_curve(vessel.cross_curves, table_displacement_t)
-    return kn_curve_at(vessel.trimmed, table_displacement_t, trim_m)
+    cc = vessel.cross_curves if vessel.trimmed is None else vessel.trimmed.cross_curves[0]
+    return heel_curve(cc, kn_row_for(vessel, table_displacement_t, trim_m)[1])
 
 
 @frozen
