@@ -139,6 +139,42 @@ async def test_the_first_frame_drawn_is_the_whole_screen(app, monkeypatch, size)
             assert screen.query_one("#gz").size.height >= MIN_CURVE_ROWS
 
 
+@pytest.mark.parametrize("start, size", [((80, 24), (100, 30)), ((80, 24), (81, 24)), ((60, 20), (200, 60))])
+async def test_the_message_line_is_drawn_in_the_first_frame_after_widening(app, monkeypatch, start, size):
+    """The message line (a panel of one line: the tank under the cursor, a refusal) kept its
+    finished line until its Resize event, which textual sends after the layout's frame: that frame
+    drew the line kept at the old width, shorter than the panel, and the screen behind filled the
+    row, blank; nothing marked the panel dirty after it, so the line stayed blank until the next
+    message.  Every frame after widening must show the message on that row, at the new width
+    (drawn by textual's own compositor, so that only the panel is tested)."""
+    from textual._compositor import Compositor
+    from textual.app import App
+
+    frames: list[list[str]] = []
+    display = App._display
+
+    def spy(self, screen, renderable):
+        display(self, screen, renderable)
+        if renderable is not None and screen is getattr(self, "loading_screen", None):
+            frames.append([strip.text for strip in Compositor.render_strips(screen._compositor)])
+
+    monkeypatch.setattr(App, "_display", spy)
+    async with app.run_test(size=start) as pilot:
+        for _ in range(3):
+            await pilot.pause()
+        status = app.loading_screen.query_one("#status", LinePanel)
+        message = status.plain().strip()
+        assert message  # the line the cursor rests on
+        frames.clear()
+        await pilot.resize_terminal(*size)
+        for _ in range(3):
+            await pilot.pause()
+        assert frames and status.size.width == size[0]
+        for frame in frames:
+            assert len(frame) == size[1] and len(frame[status.region.y]) == size[0]
+            assert frame[status.region.y].strip() == message, frame[status.region.y]
+
+
 async def test_the_criteria_panel_follows_its_number_of_lines(app):
     """Wide: the criteria panel is as tall as the verdict's lines (CSS height auto, the screen
     says how many); a result with another number of lines lays the side panel out again."""

@@ -13,7 +13,9 @@ have already been rendered over (a container its children tile: the first strip 
 What the terminal receives is the same: textual's update writes a row only inside the regions
 to repaint, and inside them every cut still gets the front-most widget's strip (a widget covering
 a cut there is rendered on that row, and textual renders a row of a widget the same whether the
-crop asked for is the whole widget or the band).  Full updates and ``render_strips`` take the
+crop asked for is the whole widget or the band).  A widget counts as rendered over a row only as
+far as the strip it gave reaches (a strip shorter than the widget, or none, leaves the rest of the
+row to the widgets behind, as in textual's update).  Full updates and ``render_strips`` take the
 same way with every row whole.  ``tests/test_ui_compositor.py`` compares the updates byte for byte.
 
 It uses textual's compositor internals (``_dirty_regions``, ``_regions_to_spans``,
@@ -106,11 +108,34 @@ class RowCompositor(Compositor):
                 # columns already has a strip from a widget in front, and the first strip wins.
                 continue
             top, bottom = band[0], band[-1] + 1
-            visible = Region(left, top, shown.width, bottom - top)
-            yield (region, visible,
-                   widget.render_lines(Region(left - region.x, top - region.y, shown.width, bottom - top)))
-            for y in range(top, bottom):
-                drawn.setdefault(y, []).append((left, right))
+            width = shown.width
+            strips = widget.render_lines(Region(left - region.x, top - region.y, width, bottom - top))
+            yield region, Region(left, top, width, bottom - top), strips
+            # What the widget has now been rendered over: on each row it gave a strip for, its
+            # columns, or, for a strip shorter than the widget, only the cuts the strip reaches
+            for y, strip in zip(range(top, bottom), strips):
+                if strip.cell_length >= width:
+                    drawn.setdefault(y, []).append((left, right))
+                else:
+                    reach = _reach(self.cuts[y], left, strip.cell_length)
+                    if reach > left:
+                        drawn.setdefault(y, []).append((left, reach))
+
+
+def _reach(cuts: list[int], left: int, length: int) -> int:
+    """The column up to which a strip ``length`` cells long, drawn from column ``left``, gives
+    its row's cuts a strip: textual's ``_render_chops`` divides it at the row's cuts after
+    ``left``, ``Strip.divide`` drops every cut past the strip's end, and each piece goes to the
+    cut it starts at.  So the cuts from ``left`` up to the last cut the strip reaches get a piece,
+    and that cut and those after it are left to the widgets behind."""
+    end = left + length
+    reach = left
+    for cut in cuts:
+        if cut > end:
+            break
+        if cut > reach:
+            reach = cut
+    return reach
 
 
 def _covered(spans: list[tuple[int, int]] | None, left: int, right: int) -> bool:

@@ -189,7 +189,8 @@ class LinePanel(Widget):
     """A fixed-size panel showing the lines it is given; an update repaints, no layout.
 
     The panel's own style (``rich_style``, a walk up the parents) is read once per render
-    pass, not once per line; the finished lines are kept until their text or that style changes.
+    pass, not once per line; the finished lines are kept until their text, that style or the
+    panel's width changes.
 
     textual's partial update renders every widget that overlaps the box around all the regions
     to repaint, each whole: after a key that changes the title and the message line that is every
@@ -206,6 +207,8 @@ class LinePanel(Widget):
         """Lines whose kept strip textual's colour filter would give back as it is (see :func:`_line_strip`)."""
         self._style: Style | None = None
         self._width: int | None = None
+        self._strips_width: int | None = None
+        """The width the kept strips (``_strips``) were made at."""
         self._painted: tuple[tuple, list[Strip]] | None = None
         """(what the strips were rendered for, the strips) of the last render, until marked dirty."""
         self._look: tuple | None = None
@@ -229,9 +232,6 @@ class LinePanel(Widget):
             self._strips.pop(r.y, None)
         if changed:  # one refresh for all of them: each call is a walk through textual's bookkeeping
             _repaint(self, *changed)
-
-    def on_resize(self) -> None:
-        self._strips.clear()
 
     def plain(self) -> str:
         return "\n".join(t.plain for t in self._lines)
@@ -257,6 +257,11 @@ class LinePanel(Widget):
         self._width = size.width
         if style != self._style:
             self._style = style
+            self._strips.clear()
+        if size.width != self._strips_width:
+            # textual draws a layout's frame before it sends the Resize event (see SizedPanel):
+            # lines kept at the old width would leave the new columns to the screen behind.
+            self._strips_width = size.width
             self._strips.clear()
         try:
             plain = plain_styles and self._plain_geometry(size)
@@ -305,6 +310,9 @@ class LinePanel(Widget):
     def render_line(self, y: int) -> Strip:
         if self._width is None:  # called outside a render pass
             self._style, width = self.rich_style, self.size.width
+            if width != self._strips_width:
+                self._strips_width = width
+                self._strips.clear()
         else:
             width = self._width
         style = self._style
