@@ -108,3 +108,37 @@ def test_a_failure_stays_a_failure_and_a_pass_both_agree_on_stands():
     assert not flip.assessed and not flip.passed and flip.note.endswith("compare with the booklet")
     same, = _marginal([crit(0.0405, True)], [crit(0.0395, True)], None)
     assert same.assessed and same.passed and same.note == ""
+
+
+def _every_condition():
+    from deckload.io.paths import DEMO_CONDITIONS, TRAWLER_CONDITIONS
+    from deckload.io.profiles import load_condition
+    from demo_vessels import demo_vessel, trawler_vessel
+
+    for vessel, conditions in ((demo_vessel(), DEMO_CONDITIONS), (trawler_vessel(), TRAWLER_CONDITIONS)):
+        for path in conditions.values():
+            yield vessel, load_condition(path, vessel)
+    for step in (5.0, 10.0, 15.0):
+        for kg in (3.0, 4.0, 4.3, 4.47, 4.5):
+            yield barge_at(2.0, kg, heel_step_deg=step)
+
+
+def test_skipping_the_second_opinion_never_changes_a_criterion(monkeypatch):
+    """The second opinion is worked out only when it could judge a criterion otherwise
+    (stability._second_opinion_may_differ, its bounds derived in the docstring); forced every time,
+    every criterion of every demo condition and of the box at KG 3–4.5 m on 5°, 10° and 15° tables
+    comes out the same.  The demo's departure, far from every limit, skips it (the screen's key)."""
+    import deckload.core.stability as st
+
+    cases = list(_every_condition())
+    skipped = [evaluate(v, c) for v, c in cases]
+    real = st._second_opinion_may_differ
+    monkeypatch.setattr(st, "_second_opinion_may_differ", lambda *a: True)
+    forced = [evaluate(v, c) for v, c in cases]
+    for a, b in zip(skipped, forced):
+        assert a.criteria == b.criteria
+    monkeypatch.setattr(st, "_second_opinion_may_differ", real)
+    calls = []
+    monkeypatch.setattr(st, "_second_opinion_may_differ", lambda *a: calls.append(real(*a)) or calls[-1])
+    evaluate(*cases[0])
+    assert calls == [False]

@@ -404,7 +404,11 @@ async def test_a_widget_giving_short_strips_leaves_the_rest_of_its_row_to_the_on
         assert isinstance(comp, RowCompositor)
         for size in ((40, 12), (33, 12), (52, 14)):
             await pilot.resize_terminal(*size)
-            await pilot.pause()
+            for _ in range(50):  # a loaded machine may take more than one pause to lay the screen out again
+                await pilot.pause()
+                if tuple(comp.size) == size:
+                    break
+            assert tuple(comp.size) == size
             assert _written(comp.render_full_update(), app.console) == _written(
                 Compositor.render_full_update(comp), app.console), size
             assert [list(s) for s in comp.render_strips()] == [list(s) for s in Compositor.render_strips(comp)], size

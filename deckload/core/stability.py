@@ -428,14 +428,17 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
     elif curve.kn_spread_m is not None:
         # The same KN row by a shape-preserving interpolation: a criterion the spline passes and it
         # fails was decided by the interpolation between the table's heels, not by the table.
-        gz2 = gz + curve.kn_spread_m
-        f2 = gzmod.facts(gz2)
-        afloat2 = replace(afloat, gz_lee_m=gz2, gz_other_m=curve.gz_other_m + curve.kn_spread_m,
-                          measures=_measures(gz2, f2, flood, gm_fluid), max_gz_m=f2.max_gz_m,
-                          vanishing_deg=f2.vanishing_angle_deg, equilibrium_deg=f2.equilibrium_deg)
-        second = list(assess(vessel, afloat2, limit_rows).criteria)
-        if curve.end_deg < 90.0 - 1e-9:
-            second = _short_curve(second, curve.end_deg, hi, top, f2.max_gz_angle_deg)
+        if _second_opinion_may_differ(criteria, curve.heel_deg, gz, curve.kn_heel_deg, curve.kn_spread_m):
+            gz2 = gz + curve.kn_spread_m
+            f2 = gzmod.facts(gz2)
+            afloat2 = replace(afloat, gz_lee_m=gz2, gz_other_m=curve.gz_other_m + curve.kn_spread_m,
+                              measures=_measures(gz2, f2, flood, gm_fluid), max_gz_m=f2.max_gz_m,
+                              vanishing_deg=f2.vanishing_angle_deg, equilibrium_deg=f2.equilibrium_deg)
+            second = list(assess(vessel, afloat2, limit_rows).criteria)
+            if curve.end_deg < 90.0 - 1e-9:
+                second = _short_curve(second, curve.end_deg, hi, top, f2.max_gz_angle_deg)
+        else:
+            second = criteria  # no criterion is near enough its limit for the second opinion to decide it
         band = gzmod.max_band(gz, curve.kn_heel_deg, curve.kn_spread_m)
         criteria = _marginal(criteria, second, band)
         verdict = _with_sets(verdict, criteria)
@@ -636,6 +639,56 @@ def _measures(gz: np.ndarray, f: gzmod.CurveFacts, flood: float | None, gm_fluid
 
 
 MARGINAL = "marginal: decided by the interpolation between the KN table's heels"
+
+
+def _second_opinion_may_differ(criteria, heel_deg: np.ndarray, gz: np.ndarray, kn_heel_deg: np.ndarray,
+                               spread_m: np.ndarray) -> bool:
+    """Whether the second opinion (GZ + ``spread_m``, |spread| ≤ ε everywhere) could judge some
+    criterion on the GZ curve otherwise; when it cannot, working it out (a second assessment, the
+    weather criterion's the costliest) is skipped: the screen evaluates on every key.
+
+    Bounds on how far each criterion's value moves when GZ moves by at most ε (derived):
+
+    * an area (m·rad): by at most ε × its span; the weather criterion's b and a together span at most
+      π rad, their limits at crossings of GZ with a heeling lever add nothing to first order (the
+      integrand is zero there), so by ε·π;
+    * a GZ value (m): by ε;
+    * an angle where GZ crosses a lever (deg): by ε/s rad, s the least slope of GZ between the angle
+      and its limit (taken twice over); a slope of 0 or less there: it may move any distance;
+    * the angle of maximum GZ: the second opinion's maximum lies where GZ comes within 2ε of its top
+      (GZ₂(θ₂) ≥ GZ₂(θ) gives GZ(θ₂) ≥ GZ(θ) − 2ε), so it may differ only if that run reaches the limit.
+
+    A criterion not assessed, or of GM and KG alone (:func:`reads_gz_curve`), cannot differ.
+    """
+    eps = float(np.max(np.abs(spread_m)))
+    if eps == 0.0:
+        return False
+    heel = np.asarray(heel_deg, dtype=float)
+    for c in criteria:
+        if not c.assessed or not reads_gz_curve(c):
+            continue
+        margin = abs(c.margin)
+        if c.id.endswith("angle-max-gz"):
+            band = gzmod.max_band(gz, kn_heel_deg, 2.0 * spread_m)
+            if band is None or band[0] <= c.limit <= band[1]:
+                return True
+        elif c.unit == "m·rad":
+            if margin <= eps * math.pi:
+                return True
+        elif c.unit == "m":
+            if margin <= eps:
+                return True
+        elif c.unit == "deg":
+            lo, hi = sorted((c.value, c.limit))
+            span = (heel >= lo - 1e-9) & (heel <= hi + 1e-9)
+            if span.sum() < 2:
+                return True
+            slope = float(np.min(np.diff(gz[span]) / np.radians(np.diff(heel[span]))))
+            if slope <= 0.0 or margin <= 2.0 * math.degrees(eps / slope):
+                return True
+        else:
+            return True
+    return False
 
 
 def _marginal(criteria: list[CriterionResult], second: list[CriterionResult],
