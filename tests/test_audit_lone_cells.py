@@ -67,6 +67,90 @@ def test_the_box_kn_along_the_displacement_has_no_lone_cell(drafts):
         assert lone_cell(drafts, kn, au._lone_floor("kn_m")) is None, heel
 
 
+@pytest.mark.parametrize("step", [1, 2, 3])
+def test_the_exact_box_kn_with_its_deck_edge_kink_has_no_lone_cell(step):
+    """checks.md §1.2 [A]: KN of the box barge L=40, B=10, D=4, T=2 at 0–80° (the deck edge immerses
+    at 21.8°), printed every 5°, and every 10° and 15° (the same values, every 2nd and 3rd)."""
+    heel = np.arange(0.0, 81.0, 5.0)
+    kn = np.array([0.0, 0.45169, 0.90843, 1.37595, 1.86150, 2.31359, 2.58771, 2.75383, 2.85134, 2.89914,
+                   2.90730, 2.88180, 2.82650, 2.74421, 2.63719, 2.50740, 2.35671])
+    assert lone_cell(heel[::step], kn[::step], au._lone_floor("kn_m")) is None
+
+
+@pytest.mark.parametrize("vessel_of", [demo_vessel, trawler_vessel])
+def test_the_demo_vessels_tables_have_no_lone_cell(vessel_of):
+    assert [f for f in audit(vessel_of()) if f.check in LONE] == []
+
+
+def _lone(v, check):
+    found = [f for f in audit(v) if f.check == check]
+    assert len(found) == 1 and found[0].severity == WARNING, found
+    return found[0]
+
+
+def _with(arr, i, value):
+    a = np.array(arr, dtype=float)
+    a[i] = value
+    return frozen_array(a)
+
+
+def test_a_transposed_kmt_is_named():
+    v = demo_vessel()
+    h = v.hydrostatics
+    assert float(h.kmt_m[10]) == 4.7435  # the premise: the demo's KMt at row 10, typed 4.4735
+    f = _lone(dataclasses.replace(v, hydrostatics=dataclasses.replace(h, kmt_m=_with(h.kmt_m, 10, 4.4735))), "hydro-lone")
+    assert f.key == "hydrostatics.kmt_m" and f.path == ("hydrostatics", "kmt_m", 10)
+    chord = float(f.why.split("gives ")[1].split(" m")[0])
+    assert chord == pytest.approx(4.7435, abs=0.02)  # the line through its neighbours comes back near the true value
+
+
+def test_a_kn_column_typed_with_the_next_heels_values_is_named_in_every_row():
+    v = demo_vessel()
+    k = v.cross_curves
+    j = int(np.flatnonzero(k.heel_deg == 30.0)[0])
+    kn = np.array(k.kn_m, dtype=float)
+    kn[:, j] = kn[:, j + 1]
+    f = _lone(dataclasses.replace(v, cross_curves=dataclasses.replace(k, kn_m=frozen_array(kn))), "kn-lone")
+    assert f.path[:2] == ("cross_curves", "kn_m") and f.path[3] == j
+    assert f"the 30° value stands out so in {len(k.displacement_t)} of the {len(k.displacement_t)} rows" in f.why
+
+
+def test_an_fsm_a_decimal_place_out_is_named():
+    v = demo_vessel()
+    n, t = next((n, t) for n, t in enumerate(v.tanks) if t.id == "FO1P")
+    cal = t.calibration
+    assert round(float(cal.fsi_m4[5]), 2) == 23.52  # the premise: the demo's FO1P at row 5, typed a place out
+    bad = dataclasses.replace(cal, fsi_m4=_with(cal.fsi_m4, 5, float(cal.fsi_m4[5]) / 10.0))
+    tanks = list(v.tanks)
+    tanks[n] = dataclasses.replace(t, calibration=bad)
+    f = _lone(dataclasses.replace(v, tanks=tuple(tanks)), "tank-lone")
+    assert f.key == "tank[FO1P].calibration.fsi_m4" and f.path[-1] == 5
+
+
+def test_a_transposed_downflooding_angle_is_named():
+    v = demo_vessel()
+    d = v.downflooding
+    assert float(d.value[4]) == 57.63  # the premise: typed 75.63
+    f = _lone(dataclasses.replace(v, downflooding=dataclasses.replace(d, value=_with(d.value, 4, 75.63))), "curve-lone")
+    assert f.key == "downflooding.angle_deg" and f.path == ("downflooding", "angle_deg", 4)
+
+
+def test_through_the_files_check_names_the_line_and_calc_carries_it(tmp_path, capsys):
+    from deckload.cli.main import main
+    from demo_vessels import copy_of_demo
+
+    profile = copy_of_demo(tmp_path, "demo_islander")
+    text = profile.read_text(encoding="utf-8")
+    assert text.count("4.8811, 4.7435, 4.619") == 1  # the premise: the KMt of test_a_transposed_kmt_is_named
+    profile.write_text(text.replace("4.8811, 4.7435, 4.619", "4.8811, 4.4735, 4.619"), encoding="utf-8")
+    line = next(n for n, ln in enumerate(profile.read_text(encoding="utf-8").splitlines(), 1) if "4.4735" in ln)
+    assert main(["check", str(profile)]) == 0  # a doubt, not a contradiction
+    out = capsys.readouterr().out
+    assert f"{profile.name}:{line}: WARNING hydrostatics.kmt_m = 4.4735 m: stands alone out of a smooth curve" in out
+    assert main(["calc", str(profile), str(profile.parent / "demo_islander.departure.condition.toml")]) == 0
+    assert "hydrostatics.kmt_m = 4.4735 m: stands alone" in capsys.readouterr().out.replace("\n    ", " ")
+
+
 @pytest.mark.parametrize("share, flagged", [(0.05, True), (0.099, True), (0.101, False), (0.5, False), (1.01, True)])
 def test_a_lightship_far_from_her_loaded_displacement_is_a_doubt(share, flagged):
     """The demo's lightship set to a share of her displacement at the summer mark (2.9 m), read from

@@ -32,6 +32,15 @@ def app(tmp_path):
     return create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
 
 
+def _random_regions(rng, width: int, height: int, most: int) -> set:
+    """One to ``most`` regions within ``width`` × ``height``, each up to 3 rows high."""
+    regions = set()
+    for _ in range(rng.randrange(1, most + 1)):
+        x, y = rng.randrange(width), rng.randrange(height)
+        regions.add(Region(x, y, rng.randrange(1, width + 1 - x), rng.randrange(1, min(4, height - y) + 1)))
+    return regions
+
+
 def _both(comp: RowCompositor, regions, console) -> tuple[str, str]:
     """What RowCompositor and textual's compositor would write for ``regions`` (mine first: it
     meets the widgets' dirty lines as a real update does)."""
@@ -325,10 +334,7 @@ async def test_updates_after_resizes_write_what_textual_would(app):
             assert comp.size == Size(width, height)
             assert any(kind == "full" and size == comp.size for kind, size, _, _ in seen[start:]), sizes
             for _ in range(8):
-                regions = set()
-                for _ in range(rng.randrange(1, 5)):
-                    x, y = rng.randrange(width), rng.randrange(height)
-                    regions.add(Region(x, y, rng.randrange(1, width + 1 - x), rng.randrange(1, min(4, height - y) + 1)))
+                regions = _random_regions(rng, width, height, 4)
                 mine, theirs = _both(comp, regions, app.console)
                 assert mine == theirs, (sizes, sorted(regions))
         comp.render_full_update, comp.render_partial_update = own_full, own_partial
@@ -415,9 +421,6 @@ async def test_a_widget_giving_short_strips_leaves_the_rest_of_its_row_to_the_on
             width, height = size
             rng = random.Random(width)
             for _ in range(30):
-                regions = set()
-                for _ in range(rng.randrange(1, 4)):
-                    x, y = rng.randrange(width), rng.randrange(height)
-                    regions.add(Region(x, y, rng.randrange(1, width + 1 - x), rng.randrange(1, min(4, height - y) + 1)))
+                regions = _random_regions(rng, width, height, 3)
                 mine, theirs = _both(comp, regions, app.console)
                 assert mine == theirs, (size, sorted(regions))

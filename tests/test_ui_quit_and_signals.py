@@ -97,10 +97,14 @@ async def test_quit_after_a_failed_save_warns_naming_the_file_and_leaves_on_the_
     assert not app.is_running and app.return_code == 0
 
 
-async def test_quit_again_after_the_warning_leaves(tmp_path):
-    vessel = box_barge(tanks=barge_tanks())
+def _app_that_cannot_save(tmp_path):
     _, work = _unwritable_work_dir(tmp_path)
-    app = create_app(vessel, _condition(), work_dir=work, log_dir=tmp_path / "logs", officer="TS")
+    return create_app(box_barge(tanks=barge_tanks()), _condition(), work_dir=work, log_dir=tmp_path / "logs",
+                      officer="TS")
+
+
+async def test_quit_again_after_the_warning_leaves(tmp_path):
+    app = _app_that_cannot_save(tmp_path)
     async with app.run_test(size=(120, 40)) as pilot:
         await type_amount(pilot, "55%")
         await pilot.press("q")
@@ -112,9 +116,7 @@ async def test_quit_again_after_the_warning_leaves(tmp_path):
 
 
 async def test_a_signal_after_a_failed_save_leaves_and_says_it_was_not_saved(tmp_path):
-    vessel = box_barge(tanks=barge_tanks())
-    _, work = _unwritable_work_dir(tmp_path)
-    app = create_app(vessel, _condition(), work_dir=work, log_dir=tmp_path / "logs", officer="TS")
+    app = _app_that_cannot_save(tmp_path)
     async with app.run_test(size=(120, 40)) as pilot:
         await type_amount(pilot, "55%")
         app.close_on_signal(signal.SIGTERM)

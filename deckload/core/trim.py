@@ -21,8 +21,6 @@ any ship (common practice).
 
 from __future__ import annotations
 
-import math
-
 from deckload.core.frozen import frozen
 from deckload.core.hydrostatics import Upright
 from deckload.core.loading import LoadingError
