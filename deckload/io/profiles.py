@@ -912,15 +912,41 @@ def _read_load_lines(root: Table, hydro: m.HydrostaticTable | None, frame: Frame
     return out
 
 
+CURVE_DRAFT_AGREEMENT = 0.03
+"""A curve printed against both draft and displacement: each row's displacement and the one its draft
+gives through the hydrostatic table agree within 3 % (UR L5 allows 2 % on a displacement,
+standards.md §5.3; 1 % more for the curve's own rounding of the draft)."""
+
+
 def _abscissa(t: Table, hydro: m.HydrostaticTable | None, frame: Frame | None, rd: Reading,
               where: str) -> tuple[np.ndarray | None, str]:
     """A curve's abscissa: ``displacement_t``, or ``draft_m`` turned into the displacement of the
     hydrostatic table (table density, upright, even keel).  Returns (displacement, 'displacement_t' | 'draft_m')."""
     has_d, has_t = t.has("displacement_t"), t.has("draft_m")
     if has_d and has_t:
-        t.bad("draft_m", t.data["draft_m"], "give displacement_t or draft_m, not both")
-        t.get("displacement_t", False)
-        return None, "displacement_t"
+        # A booklet page printing both: the displacement is the curve's abscissa, and each row's
+        # draft must give that displacement through [hydrostatics] (a row typed against the wrong
+        # draft or displacement shows there).
+        disp = t.increasing("displacement_t", t.array("displacement_t", positive))
+        drafts = t.array("draft_m", positive)
+        if disp is None or drafts is None or hydro is None or frame is None:
+            return disp, "displacement_t"
+        if len(drafts) != len(disp):
+            t.bad("draft_m", t.data["draft_m"], f"{len(drafts)} drafts for {len(disp)} displacements")
+            return None, "displacement_t"
+        moulded = frame.draft_to_moulded(drafts)
+        lo, hi = float(hydro.draft_m[0]), float(hydro.draft_m[-1])
+        for i, (d, x) in enumerate(zip(moulded, disp)):
+            if not lo - 1e-9 <= d <= hi + 1e-9:
+                continue  # a draft off the table cannot be compared; the displacement is what is used
+            at = interp(hydro.draft_m, hydro.displacement_t, float(d), "draft", "m")
+            if abs(at - float(x)) > CURVE_DRAFT_AGREEMENT * float(x):
+                t.bad("draft_m", t.data["draft_m"], f"row {i + 1}: draft {num(float(drafts[i]))} m gives {num(at)} t by "
+                      f"[hydrostatics], but the row's displacement is {num(float(x))} t (more than "
+                      f"{CURVE_DRAFT_AGREEMENT:.0%} apart: a row typed against the wrong draft or displacement?)", (i,))
+                return None, "displacement_t"
+        rd.convert(where, "draft_m", "both columns given: against displacement; every draft agrees with [hydrostatics]")
+        return disp, "displacement_t"
     if not has_t:
         t.get("draft_m", False)
         return t.increasing("displacement_t", t.array("displacement_t", positive)), "displacement_t"
