@@ -73,6 +73,27 @@ def _plus(sums: dict, own: Style, base: Style, span: Style) -> tuple[Style, bool
     return got[2], got[3]
 
 
+def fit_width(text: Text, width: int) -> Text:
+    """``text`` cut to ``width`` cells, never silently: a line too wide ends in "…", and a word or
+    number the edge would split is left out whole (a cut "32.33" read "32", a cut "1234" "12").
+    A line that fits is returned as it is."""
+    plain = text.plain
+    if cell_len(plain) <= width:
+        return text
+    if width <= 1:
+        return Text("…"[:width], style=text.style)
+    cut, cells = 0, 0
+    while cut < len(plain) and cells + cell_len(plain[cut]) <= width - 1:
+        cells += cell_len(plain[cut])
+        cut += 1
+    while cut > 0 and not plain[cut - 1].isspace() and cut < len(plain) and not plain[cut].isspace():
+        cut -= 1  # back to the start of the split word
+    out = text[:cut]
+    out.pad_right(width - 1 - cell_len(out.plain))
+    out.append("…")
+    return out
+
+
 def _line_strip(text: Text, width: int, own: Style, console) -> tuple[Strip, bool]:
     """``text`` as one line ``width`` cells wide on the panel's style ``own``: what
     ``_strip(text).crop_extend(0, width, None).apply_style(own)`` gives, made directly; and
@@ -85,6 +106,10 @@ def _line_strip(text: Text, width: int, own: Style, console) -> tuple[Strip, boo
     the general way above."""
     plain = text.plain
     cells = cell_len(plain)
+    if cells > width:
+        text = fit_width(text, width)
+        plain = text.plain
+        cells = cell_len(plain)
     spans = text.spans
     base = text.style or _NULL  # Text's default style "" is the null style
     if not plain or cells > width or not isinstance(base, Style):
@@ -592,7 +617,7 @@ class LoadBoard(ScrollView, can_focus=True):
             if idx != self.cursor:
                 strip, _ = _line_strip(self.rows[idx].text, width, own, self.app.console)
             else:
-                strip = _strip(self.rows[idx].text, self.app.console).crop_extend(0, width, None)
+                strip = _strip(fit_width(self.rows[idx].text, width), self.app.console).crop_extend(0, width, None)
                 if focused:  # the cursor's colours win over the line's own
                     strip = Strip([Segment(seg.text, (seg.style or Style()) + cursor) for seg in strip], width)
                 else:
