@@ -285,7 +285,7 @@ def _run(args: argparse.Namespace, cmd: str) -> int:
     if cmd == "open":
         from deckload.io.textsafe import narrow_encoding
 
-        narrow = narrow_encoding(sys.__stdout__)
+        narrow = narrow_encoding(sys.__stderr__) or narrow_encoding(sys.__stdout__)  # textual draws on stderr
         if narrow is not None:
             # The screen draws its boxes, bars and curve in characters this terminal cannot show:
             # it would print them as "\u2502" and shift every column.
