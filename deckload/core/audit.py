@@ -825,11 +825,12 @@ class _Audit:
         top = float(np.max(fsi))
         lone = lone_cell(cal.volume_m3, fsi, lambda value: LONE_CELL_FSM_FRACTION * top)
         if lone is not None:
-            r, (k, d, chord) = t.density_t_m3, lone
+            k, departure_m4, chord_m4 = lone
+            rho = t.density_t_m3  # told in t·m, as the booklet prints a tank's FSM
             self.add(WARNING, f"tank[{t.id}].calibration.fsi_m4", ("tank", i, "calibration", "fsi_m4", k),
-                     f"{float(fsi[k]):.5g} m⁴ (FSM {float(fsi[k]) * r:.4g} t·m) at sounding {cal.sounding_m[k]:.4g} m",
-                     _lone_why(d * r, chord * r, " t·m"), f"the booklet's calibration table of tank {t.id} "
-                     "(free-surface column)", "tank-lone")
+                     f"{float(fsi[k]):.5g} m⁴ (FSM {float(fsi[k]) * rho:.4g} t·m) at sounding {cal.sounding_m[k]:.4g} m",
+                     _lone_why(departure_m4 * rho, chord_m4 * rho, " t·m"),
+                     f"the booklet's calibration table of tank {t.id} (free-surface column)", "tank-lone")
 
     def tank_fsi(self, i: int, t: Tank):
         cal = t.calibration
