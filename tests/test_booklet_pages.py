@@ -405,3 +405,15 @@ def test_an_audit_finding_in_a_falling_toml_table_is_located_on_the_row_as_typed
     assert found, "the slipped KMt is found"
     typed = text.splitlines().index("    63.05556,") + 1
     assert {x.line for x in found} == {typed}
+
+
+def test_a_sounding_and_ullage_that_do_not_add_up_are_refused_naming_the_row(tmp_path):
+    """Both readings printed: sounding + ullage is the pipe head's height above the sounding zero in
+    every row (1.0 m in SOUNDING_CSV, derived); the middle row's ullage typed 0.05 for 0.50 (a digit
+    slipped) makes 0.55 m there.  The soundings are the table's level, so one of the two is wrong."""
+    path = _with_sounding_page(tmp_path)
+    assert read_profile(path)[0].tank("DB1S").capacity_m3 == 50.0  # the page as printed is accepted
+    page = tmp_path / TABLES / "DB1S.csv"
+    page.write_text(SOUNDING_CSV.replace("0.25,2.5,104.166667,0.5,", "0.25,2.5,104.166667,0.05,"), encoding="utf-8")
+    (p,) = _refused(path)
+    assert p.key.endswith("ullage_m") and "row 2: sounding 0.5 m + ullage 0.05 m = 0.55 m, but 1 m" in p.rule

@@ -227,6 +227,26 @@ def _read_ignored(t: Table, where: str, rd: Reading) -> tuple[tuple[str, tuple[f
     return tuple(out) if ok else None
 
 
+SOUNDING_ULLAGE_TOLERANCE_M = 0.011
+"""A page printing both readings: sounding + ullage is the same in every row (the ullage reference
+above the sounding zero, derived), within the rounding of two values printed to the centimetre."""
+
+
+def _soundings_beside_ullages(t: Table, soundings, ullages) -> None:
+    """A row whose sounding and ullage do not add up to what the other rows' do is refused, naming
+    it: one of the two readings is mistyped (the soundings are the table's level)."""
+    if ullages is None or len(ullages) != len(soundings) or len(soundings) < 3:
+        return
+    sums = np.asarray(soundings, dtype=float) + np.asarray(ullages, dtype=float)
+    usual = float(np.median(sums))
+    for i, total in enumerate(sums):
+        if abs(total - usual) > SOUNDING_ULLAGE_TOLERANCE_M:
+            t.bad("ullage_m", t.data["ullage_m"], f"row {i + 1}: sounding {num(float(soundings[i]))} m + ullage "
+                  f"{num(float(ullages[i]))} m = {num(float(total))} m, but {num(usual)} m in the other rows "
+                  "(one of the two readings is mistyped)", (i,))
+            return
+
+
 def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | None" = None) -> m.Vessel:
     """Validate the text of a vessel profile and build the :class:`~deckload.core.model.Vessel`.
 
@@ -1374,6 +1394,8 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
                  "the calibration already gives free surface per row: give one or the other")
         fs_ok = False
     tr.ignored = _read_ignored(t, where, rd)
+    if tr.ignored is not None and level_key == "sounding_m" and reading is not None:
+        _soundings_beside_ullages(t, reading, dict(tr.ignored).get("ullage_m"))
     t.finish()
     if tr.ignored is None:
         return None
