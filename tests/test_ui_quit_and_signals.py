@@ -148,6 +148,7 @@ async def test_a_second_window_on_the_vessel_says_for_as_long_as_it_is_open_that
             await pilot.pause(0.2)
             title = panel(app, "titlebar")
             assert "NOT SAVING" in title and title.index("NOT SAVING") < title.index("undo")
+            assert "not saved: this window saves nothing" in " ".join(panel(app, "status").split())
             await pilot.press("q")
             await pilot.pause()
             assert app.is_running

@@ -256,7 +256,9 @@ class LoadingScreen(Screen[None]):
             # task of its own to make, and to wake only to cancel it.
             self._settle_timer = asyncio.get_running_loop().call_later(RUN_PAUSE_S, self.call_next, self._settle)
         self.refresh_view()
-        self.say(label + self._gm_change(gm_before))
+        # in a window that saves nothing, the confirmation says so itself, not only the title
+        unsaved = " — not saved: this window saves nothing" if self.session.not_saving else ""
+        self.say(label + self._gm_change(gm_before) + unsaved)
         for p in problems:
             self._report(p)
 
