@@ -35,6 +35,7 @@ from test_booklet_input import (
     edit,
     problems,
 )
+from vessel_factories import box_kn_m
 
 TABLES = "tables"
 
@@ -149,33 +150,9 @@ def test_deckload_csv_writes_the_columns_not_used_back_as_read(tmp_path, capsys)
 
 
 def _kn_box(draft_m: float, heel_deg: float) -> float:
-    """KN of the box barge section B = 10, D = 4 m at draft T (checks.md §1.2 closed forms, analytic),
-    t = tanθ, A = B·T, heeled to starboard, body axes from K:
-
-    1. waterline cuts both sides (t ≤ 2T/B and t ≤ 2(D−T)/B): y_B = B²t/(12T), z_B = T/2 + B²t²/(24T);
-    2. bilge emerged, deck dry: the submerged triangle at the starboard bilge, legs a = √(2A/t) along
-       the bottom and c = a·t up the side: y_B = B/2 − a/3, z_B = c/3;
-    3. deck edge immersed, bilge wet: the emerged triangle at the port deck edge, E = BD − A, legs
-       a = √(2E/t) along the deck and c = a·t down the side, centroid e = (−B/2 + a/3, D − c/3):
-       B = [BD·(0, D/2) − E·e]/A.
-
-    KN = y_B·cosθ + z_B·sinθ.  It reproduces the box's tabulated KN at 10° and 20° (checks.md §1.4)."""
-    b, d = 10.0, 4.0
-    t, a_sec = math.tan(math.radians(heel_deg)), b * draft_m
-    if t <= min(2 * draft_m / b, 2 * (d - draft_m) / b):
-        y, z = b * b * t / (12 * draft_m), draft_m / 2 + b * b * t * t / (24 * draft_m)
-    elif t > 2 * draft_m / b:
-        leg = math.sqrt(2 * a_sec / t)
-        assert leg <= b and leg * t <= d, "beyond case 2"
-        y, z = b / 2 - leg / 3, leg * t / 3
-    else:
-        e = b * d - a_sec
-        leg = math.sqrt(2 * e / t)
-        assert leg <= b and leg * t <= d, "beyond case 3"
-        y = (0.0 - e * (-b / 2 + leg / 3)) / a_sec
-        z = (b * d * d / 2 - e * (d - leg * t / 3)) / a_sec
-    r = math.radians(heel_deg)
-    return y * math.cos(r) + z * math.sin(r)
+    """KN of the box barge section B = 10, D = 4 m at draft T by the closed forms of checks.md §1.2
+    (vessel_factories.box_kn_m); it reproduces the box's tabulated KN at 10° and 20° (checks.md §1.4)."""
+    return box_kn_m(10.0, 4.0, draft_m, math.radians(heel_deg))
 
 
 DRAFTS = ((410.0, 1.0), (820.0, 2.0), (1230.0, 3.0))

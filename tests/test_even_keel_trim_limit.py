@@ -69,6 +69,7 @@ def test_the_bound_is_one_and_a_half_per_cent_of_lbp():
         assert (beyond == []) is judged
         note = next(w.message for w in r.warnings if w.code == "trim-beyond-tables")
         if judged:
+            # UR L5's 5 cm on KN: standards.md §5.3
             assert note.endswith("drafts less certain, and GZ may be off by up to about 4 cm (UR L5 allows 5 cm on KN)")
         else:
             assert "beyond 1.5 % of LBP the criteria read off the GZ curve are not assessed" in note

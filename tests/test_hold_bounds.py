@@ -43,7 +43,7 @@ def problem(text: str):
 def test_a_stowage_factor_denser_than_solid_lead_is_refused(sf):
     """27 t at 0.01 m³/t (100 t/m³) was put at the hold's floor: KG 2.693 → 2.597 m, GM 0.858 → 0.955 m.
     Real cargo still passes: steel stows no denser than 0.127 m³/t (solid steel 7.85 t/m³, common
-    practice), fish in ice at 2–2.5 m³/t."""
+    practice), fish in ice at 2–2.5 m³/t (from memory)."""
     p, text = problem(grounds(stowage=sf))
     assert p.key == "holds.FH.stowage_m3_t" and p.file == FILE
     assert "must be between 0.0881834 and 833.333 m³/t" in text and "solid lead" in text

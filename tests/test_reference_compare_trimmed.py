@@ -14,7 +14,7 @@ station stays wall-sided to 41° of heel, and
 
 The comparison carries over the result's free-surface treatment as the difference between the
 result's GZ and KN − KG_fluid·sinφ − TCG·cosφ worked with the KN the result used: at her trim
-(``kn_curve_at``), not the even-keel table.  With no slack tank that difference is nil, so the
+(``kn_for``), not the even-keel table.  With no slack tank that difference is nil, so the
 direct column is the hull's GZ.  The KN tables at each trim are KN(φ, t) above to 40°; past the
 deck-edge angle the tables here continue with the even-keel box section formula at T
 (vessel_factories.box_kn_m) plus the same t²/(24T)·sinφ — not this box's KN there, and no check

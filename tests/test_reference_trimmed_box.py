@@ -133,7 +133,7 @@ def test_caution_when_trimmed_beyond_the_even_keel_tables(offset_aft_m, warned):
         pct = 100 * abs(r.trim_m) / L
         head = f"trim {abs(r.trim_m):.2f} m {way} ({pct:.1f} % of LBP): the tables are for even keel; "
         # the trim itself is checked against the exact waterline above; here the words and the share of LBP
-        if pct <= 1.5:
+        if pct <= 1.5:  # UR L5's 5 cm on KN: standards.md §5.3
             assert notes[0].message == head + (f"drafts less certain, and GZ may be off by up to about "
                                                f"{round(2.5 * pct)} cm (UR L5 allows 5 cm on KN)")
         else:

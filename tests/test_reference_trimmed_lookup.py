@@ -34,7 +34,6 @@ from deckload.core.trimmed_tables import (
     draft_tolerance_m,
     equilibrium,
     hydro_at,
-    kn_curve_at,
     kn_for,
     kn_row_at,
     table_state,
@@ -189,10 +188,9 @@ def test_kn_between_two_tables_and_beyond_the_end():
                        atol=ROUND_OFF)
     assert np.allclose(kn_row_at(v.trimmed, DISP5, -2.6), [kn_exact(T5, -2.0, h) for h in HEELS], rtol=0,
                        atol=ROUND_OFF)
-    fine = kn_curve_at(v.trimmed, DISP5, 1.25)
+    fine = kn_for(v, DISP5, 1.25)
     assert len(fine) == 401  # 0…40° on the 0.1° grid (core/gz.py): the table's last heel
     assert np.allclose(fine[::50], blend, rtol=0, atol=ROUND_OFF)
-    assert np.allclose(kn_for(v, DISP5, 1.25)[::50], blend, rtol=0, atol=ROUND_OFF)
 
 
 def test_two_tables_are_blended_too():

@@ -124,6 +124,7 @@ def test_command_output_read_back_equals_the_generator(demo_round_trip, tables_b
     assert tt is not None
     assert list(tt.hydro_trim_m) == list(gen.hydro_trim_m) == [-1.0, -0.5, 0.0, 0.5, 1.0, 1.5]
     assert list(tt.kn_trim_m) == list(gen.kn_trim_m)
+    assert len(tt.hydrostatics) == len(gen.hydrostatics) == 6 and len(tt.cross_curves) == len(gen.cross_curves)
     for got, ref in zip(tt.hydrostatics, gen.hydrostatics):
         assert len(got.draft_m) == len(ref.draft_m)
         for col, tol in ROUND.items():

@@ -8,15 +8,7 @@ from __future__ import annotations
 from textual import events
 from textual.widgets import Input
 
-from deckload.core.model import Condition, TankFill
-from deckload.ui.launch import create_app
-from vessel_factories import barge_tanks, box_barge
-
-
-def app_at(tmp_path):
-    vessel = box_barge(tanks=barge_tanks())
-    condition = Condition(name="Pilot", tanks=(TankFill("DB1P", "percent", 50.0),))
-    return create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+from vessel_factories import pilot_app
 
 
 def _keys(text: str):
@@ -24,7 +16,7 @@ def _keys(text: str):
 
 
 async def test_a_long_plain_paste_lands_whole_and_in_one_go(tmp_path, monkeypatch):
-    app = app_at(tmp_path)
+    app = pilot_app(tmp_path, log_dir=tmp_path / "logs", officer="TS")
     sent = []
     async with app.run_test(size=(120, 40)) as pilot:
         await pilot.press("s", "tab")  # the record form's remark field

@@ -9,18 +9,14 @@ import pytest
 from textual import events
 from textual.widgets import Input
 
-from deckload.core.model import Condition, TankFill
 from deckload.logbook import Logbook
 from deckload.logbook.book import MAX_TEXT_CHARS
-from deckload.ui.launch import create_app
-from vessel_factories import barge_tanks, box_barge
+from vessel_factories import pilot_app
 
 
 @pytest.fixture
 def app(tmp_path):
-    vessel = box_barge(tanks=barge_tanks())
-    condition = Condition(name="Pilot", tanks=(TankFill("DB1P", "percent", 50.0),))
-    return create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    return pilot_app(tmp_path, log_dir=tmp_path / "logs", officer="TS")
 
 
 def entries(app, tmp_path):

@@ -8,19 +8,11 @@ including ⏎ or Esc (deckload.ui.app.DeckloadApp.drop_typeahead); a key typed a
 
 from __future__ import annotations
 
-from deckload.core.model import Condition, TankFill
-from deckload.ui.launch import create_app
-from vessel_factories import barge_tanks, box_barge
-
-
-def no_log_app(tmp_path):
-    vessel = box_barge(tanks=barge_tanks())
-    condition = Condition(name="Pilot", tanks=(TankFill("DB1P", "percent", 50.0),))
-    return create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=None)
+from vessel_factories import pilot_app
 
 
 async def test_what_was_typed_for_a_refused_record_form_is_dropped(tmp_path):
-    app = no_log_app(tmp_path)
+    app = pilot_app(tmp_path, log_dir=None)
     async with app.run_test(size=(120, 40)) as pilot:
         before = app.session.condition
         assert not app.session.journal.writable  # the premise: s is refused here

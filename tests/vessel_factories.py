@@ -578,3 +578,13 @@ def synthetic_vessel(n_items: int) -> tuple[Vessel, Condition]:
     consts = tuple(MassItem(f"Constant {j}", 1.0 + j % 4, 10.0 + (j * 5.1) % 80.0, 8.0, 0.0) for j in range(n_const))
     cond = Condition(name=f"Synthetic {n_items}-item condition", tanks=fills, deck_items=deck, constants=consts)
     return vessel, cond
+
+
+def pilot_app(tmp_path, **create_kw):
+    """The loading screen over the box barge with its tanks, DB1P half full (the screen tests' common
+    start); ``create_kw`` for :func:`deckload.ui.launch.create_app` (log_dir, officer, …)."""
+    from deckload.core.model import Condition, TankFill
+    from deckload.ui.launch import create_app
+
+    condition = Condition(name="Pilot", tanks=(TankFill("DB1P", "percent", 50.0),))
+    return create_app(box_barge(tanks=barge_tanks()), condition, work_dir=tmp_path / "work", **create_kw)

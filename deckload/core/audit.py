@@ -190,11 +190,12 @@ neighbours must bring each neighbour to within a quarter of the cell's own depar
 chord, and each neighbour must depart by at least that much before (derived in lone_cell)."""
 
 LONE_CELL_FLOORS = {"kmt_m": (0.02, 0.01), "vcb_m": (0.02, 0.0), "kml_m": (0.02, 0.02),
-                    "mctc_tm_cm": (0.0, 0.02), "kn_m": (0.02, 0.02)}
+                    "mctc_tm_cm": (0.0, 0.02), "kn_m": (0.02, 0.02), "limit_m": (0.02, 0.01)}
 """(metres or units, fraction of the value): a cell is judged only when it departs from the chord
 through its neighbours by more than the larger of the two.  1 % on KMt and 2 % on KML, MCTC and
 KN are beyond the UR L5 tolerances on those quantities (standards.md §5.3) and beyond what printed
-rounding makes; 2 cm is four printed half-centimetres.  LCB by :data:`LONE_CELL_LCB_LBP` × LBP.
+rounding makes; 2 cm is four printed half-centimetres.  A limiting KG or GM curve as KMt (a KG or
+GM, as KMt, decides GM directly).  LCB by :data:`LONE_CELL_LCB_LBP` × LBP.
 LCF and TPC are not judged: they are waterplane quantities that wobble with the hull's shape
 (a chine, a knuckle) at a spacing of rows that looks like a lone cell, and a slip in them moves
 the drafts by millimetres (the TPC against Δ check covers TPC)."""
@@ -944,7 +945,7 @@ class _Audit:
             angle = curve.kind == "downflooding_deg"
             unit = "°" if angle else " m"
             col = {"downflooding_deg": "angle_deg"}.get(curve.kind, curve.kind)  # the column's name in the file
-            lone = lone_cell(d, curve.value, (lambda value: LONE_CELL_ANGLE_DEG) if angle else _lone_floor("kmt_m"))
+            lone = lone_cell(d, curve.value, (lambda value: LONE_CELL_ANGLE_DEG) if angle else _lone_floor("limit_m"))
             if lone is not None:
                 i, r, chord = lone
                 self.add(WARNING, f"{name}.{col}", (name, col, i), f"{float(curve.value[i]):.5g}{unit} at "
@@ -1007,9 +1008,7 @@ def _free_surface_settings(a: _Audit) -> None:
     fs = a.v.free_surface
     # judged under the Part B 3.1 rule: a condition may choose it whatever the profile's rule
     for key, words in settings_departures(fs, "is2008"):
-        value, unit = {"nominally_full_pct": (fs.nominally_full_pct, "%"), "small_tank_limit_m": (fs.small_tank_limit_m, "m"),
-                       "empty_pct": (fs.empty_pct, "%")}[key]
-        a.add(WARNING, f"free_surface.{key}", ("free_surface", key), _f(value, unit),
+        a.add(WARNING, f"free_surface.{key}", ("free_surface", key), _f(getattr(fs, key), "m" if key.endswith("_m") else "%"),
               "departs from the Code on the side that leaves out free surface: " + words
               + "; every result says so", "the booklet's free-surface notes and the Administration's acceptance",
               "fs-setting")

@@ -33,7 +33,7 @@ from deckload.core.frozen import frozen
 from deckload.core.geometry.body import Body, immerse
 from deckload.core.geometry.cross_curves import NoEquilibriumError, solve_floating
 from deckload.core.tables import CubicSpline, OutOfRangeError
-from deckload.core.trimmed_tables import kn_curve_at
+from deckload.core.trimmed_tables import kn_for
 
 HEEL_STEP_DEG = 5.0
 """Heel grid of the direct calculation (deg), the step of the demo's cross curves: between grid
@@ -157,8 +157,7 @@ def compare(vessel, result) -> Comparison:
     rho_ratio = result.water_density_t_m3 / vessel.particulars.table_density_t_m3
     d_eq = result.displacement_t / rho_ratio
     # the KN the result was worked with: at its trim where the profile has tables at several trims
-    kn_table = (gzmod.kn_curve(vessel.cross_curves, d_eq) if vessel.trimmed is None
-                else kn_curve_at(vessel.trimmed, d_eq, result.trim_m))
+    kn_table = kn_for(vessel, d_eq, result.trim_m)
     if len(kn_table) < len(gzmod.FINE_DEG):
         # the rows and the carried-over correction are worked at whole degrees to 90° (GZ to 60°)
         raise DirectError(f"the KN tables stop at {float(gzmod.FINE_DEG[len(kn_table) - 1]):g}° of heel: "

@@ -311,9 +311,9 @@ def stage_curve(vessel: Vessel, weights: Weights, fs: FreeSurface, floating: Flo
     """
     w = weights.total
     disp = w.mass_t
-    kn_heels, kn_row = kn_row_for(vessel, floating.hydrostatics.table_displacement_t, floating.trim_m)
-    # the natural spline in heel of the same row kn_for splines (its weights are per table, kept)
-    kn = gzmod.heel_curve(vessel.cross_curves if vessel.trimmed is None else vessel.trimmed.cross_curves[0], kn_row)
+    kn_table, kn_row = kn_row_for(vessel, floating.hydrostatics.table_displacement_t, floating.trim_m)
+    kn = gzmod.heel_curve(kn_table, kn_row)  # as kn_for gives it; the row is kept for the second opinion
+    kn_heels = kn_table.heel_deg
     # The curve stops at the KN table's last angle (booklets may end at 60°): cut the grid.
     n_grid = len(kn)
     spread = gzmod.pchip_curve(kn_heels, kn_row, n_grid) - kn

@@ -55,7 +55,7 @@ import numpy as np
 from deckload.core.frozen import frozen
 from deckload.core.gz import heel_curve, kn_row
 from deckload.core.hydrostatics import Upright
-from deckload.core.model import HydrostaticTable, TrimmedTables, Vessel
+from deckload.core.model import CrossCurves, HydrostaticTable, TrimmedTables, Vessel
 from deckload.core.tables import OutOfRangeError, bracket, lerp_row
 from deckload.core.trim import BASIS_GML, BASIS_TABLE, EVEN_KEEL_TRIM_FRACTION, TrimError, TrimMoment
 
@@ -184,11 +184,6 @@ def kn_row_at(tt: TrimmedTables, d_eq: float, trim: float) -> np.ndarray:
     if len(tt.kn_trim_m) > 1 and f > 0.0:
         row = row * (1.0 - f) + one(j + 1) * f
     return row
-
-
-def kn_curve_at(tt: TrimmedTables, d_eq: float, trim: float) -> np.ndarray:
-    """KN on the fine heel grid (:func:`deckload.core.gz.kn_curve`) at a displacement and trim."""
-    return heel_curve(tt.cross_curves[0], kn_row_at(tt, d_eq, trim))
 
 
 def _moment(vessel: Vessel, row: TrimmedRow, disp: float, ratio: float, kg_fluid: float) -> TrimMoment:
@@ -356,20 +351,19 @@ def table_state(vessel: Vessel, displacement_t: float, water_density_t_m3: float
                       True)
 
 
-def kn_row_for(vessel: Vessel, table_displacement_t: float, trim_m: float) -> tuple[np.ndarray, np.ndarray]:
-    """(tabulated heels, KN at them) at a displacement (table density): the even-keel row, or the rows
-    of the tables at trims interpolated at ``trim_m``.  :func:`kn_for` splines it in heel;
-    :func:`deckload.core.gz.pchip_curve` gives the second opinion of the same row."""
+def kn_row_for(vessel: Vessel, table_displacement_t: float, trim_m: float) -> tuple[CrossCurves, np.ndarray]:
+    """(the KN table whose heels the row is at, KN at them) at a displacement (table density): the
+    even-keel row, or the rows of the tables at trims interpolated at ``trim_m``.  :func:`kn_for`
+    splines it in heel; :func:`deckload.core.gz.pchip_curve` gives the second opinion of the same row."""
     if vessel.trimmed is None:
-        return vessel.cross_curves.heel_deg, kn_row(vessel.cross_curves, table_displacement_t)
-    return vessel.trimmed.cross_curves[0].heel_deg, kn_row_at(vessel.trimmed, table_displacement_t, trim_m)
+        return vessel.cross_curves, kn_row(vessel.cross_curves, table_displacement_t)
+    return vessel.trimmed.cross_curves[0], kn_row_at(vessel.trimmed, table_displacement_t, trim_m)
 
 
 def kn_for(vessel: Vessel, table_displacement_t: float, trim_m: float) -> np.ndarray:
     """KN on the fine heel grid at a displacement (table density): the even-keel curves, or the
     tables at trims interpolated at ``trim_m`` (the equilibrium trim upright)."""
-    cc = vessel.cross_curves if vessel.trimmed is None else vessel.trimmed.cross_curves[0]
-    return heel_curve(cc, kn_row_for(vessel, table_displacement_t, trim_m)[1])
+    return heel_curve(*kn_row_for(vessel, table_displacement_t, trim_m))
 
 
 @frozen

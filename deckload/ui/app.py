@@ -13,10 +13,12 @@ from typing import Callable, Iterable
 from textual import events
 from textual.app import App, SystemCommand
 from textual.screen import Screen
+from textual.widgets import Input
 
 from deckload.ui.commands import COMMANDS
 from deckload.ui.main_screen import LoadingScreen
 from deckload.ui.session import Session
+from deckload.ui.widgets import type_into
 
 
 KEY_WAIT_S = 1.0
@@ -227,8 +229,6 @@ class DeckloadApp(App[None]):
         characters 18 s).  The field is textual's Input, which inserts a printable key at the
         cursor (over a selection) and stops it, so no binding sees it: one insertion of the run is
         what the keys one by one would make, with one Changed instead of one a key."""
-        from textual.widgets import Input
-
         field = self.focused
         held = self._held_keys
         if not isinstance(field, Input) or len(held) < 2 or not (held[0].is_printable and held[0].character):
@@ -236,12 +236,7 @@ class DeckloadApp(App[None]):
         chars = []
         while held and held[0].is_printable and held[0].character:
             chars.append(held.popleft().character)
-        text = "".join(chars)
-        selection = field.selection
-        if selection.is_empty:
-            field.insert_text_at_cursor(text)
-        else:
-            field.replace(text, *selection)
+        type_into(field, "".join(chars))
         return True
 
     def get_default_screen(self) -> Screen:

@@ -26,7 +26,7 @@ from deckload.ui.commands import COMMANDS, NAVIGATION
 from deckload.ui import entry
 from deckload.ui.entry import EntryError, ItemForm, TransferPlan, plan_transfer
 from deckload.ui.palette import P
-from deckload.ui.widgets import LinePanel
+from deckload.ui.widgets import LinePanel, type_into
 
 
 class Form(ModalScreen[Any]):
@@ -172,11 +172,7 @@ class RemarkInput(Input):
 
     def _on_paste(self, event) -> None:
         if event.text:
-            line = " ".join(part.strip() for part in event.text.splitlines() if part.strip())
-            if self.selection.is_empty:
-                self.insert_text_at_cursor(line)
-            else:
-                self.replace(line, *self.selection)
+            type_into(self, " ".join(part.strip() for part in event.text.splitlines() if part.strip()))
         event.stop()
         event.prevent_default()  # textual would call Input's own paste handler too, adding the first line again
 

@@ -226,9 +226,7 @@ class LoadingScreen(Screen[None]):
     def refuse_form(self, message: str) -> None:
         """Refuse a key that opens a form: say why, and drop what was typed for the form
         (:meth:`deckload.ui.app.DeckloadApp.drop_typeahead`)."""
-        drop = getattr(self.app, "drop_typeahead", None)
-        if drop is not None:
-            drop()
+        self.app.drop_typeahead()
         self.say(message + " (keys typed for it are ignored up to ⏎ or Esc)", ok=False)
 
     def _cursor_in_view(self) -> None:

@@ -73,6 +73,15 @@ def _plus(sums: dict, own: Style, base: Style, span: Style) -> tuple[Style, bool
     return got[2], got[3]
 
 
+def type_into(field, text: str) -> None:
+    """``text`` typed into a textual ``Input`` as its own keys would be: at the cursor, or over the
+    selection (Input's handling of a printable key and of a paste)."""
+    if field.selection.is_empty:
+        field.insert_text_at_cursor(text)
+    else:
+        field.replace(text, *field.selection)
+
+
 def fit_width(text: Text, width: int) -> Text:
     """``text`` cut to ``width`` cells, never silently: a line too wide ends in "…", and a word or
     number the edge would split is left out whole (a cut "32.33" read "32", a cut "1234" "12").
