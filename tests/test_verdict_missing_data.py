@@ -45,6 +45,7 @@ from deckload.core.model import (
     Windage,
     frozen_array,
 )
+from deckload.core.booklet import compare
 from deckload.core.stability import evaluate
 from deckload.report import verdict_format as vf
 from deckload.report.condition_report import render_report_text
@@ -361,6 +362,23 @@ def test_calc_text_and_json_show_what_the_missing_curves_leave_open(off_curve_fi
             "reason": "displacement 820.0 t is outside the limiting curve, 900–1230 t"} in doc["not_assessed"]
     assert doc["verdict"].startswith("Met where assessable")
     assert [a["pass"] for a in doc["assessed"] if a["id"] == "IS2008-A2.2"] == [False]
+    # The areas that stop at θf have no value either: the stored ones are the areas with no openings.
+    assert doc["area_0_40_mrad"] is None and doc["area_30_40_mrad"] is None
+    assert doc["downflooding_angle_deg"] is None and doc["area_0_30_mrad"] > 0.0
+
+
+def test_booklet_areas_to_flooding_have_no_deckload_value_while_theta_f_is_unknown():
+    """The booklet's area 0–40° (or θf) is worked to θf; with θf unknown deckload's area with no
+    openings (here 2·(1 − cos40°) = 0.4679 m·rad, GM 2 m) would agree or disagree by chance, so the
+    row has no deckload value and says why; area 0–30° does not depend on θf and is compared."""
+    r = evaluate(vessel(downflooding=OFF), Condition())
+    rows = {x.key: x for x in compare(r, {"area_0_40_mrad": area(2.0, 0, 40), "area_30_40_mrad": 0.2,
+                                              "area_0_30_mrad": area(2.0, 0, 30), "downflooding_angle_deg": 35.0},
+                                           breadth_m=20.0)}
+    for key in ("area_0_40_mrad", "area_30_40_mrad", "downflooding_angle_deg"):
+        assert rows[key].deckload is None and not rows[key].passed
+        assert rows[key].note.startswith("θf unknown")
+    assert rows["area_0_30_mrad"].passed and rows["area_0_30_mrad"].deckload == pytest.approx(area(2.0, 0, 30), abs=TOL)
 
 
 def test_report_words_theta_f_as_the_cautions_do():

@@ -124,6 +124,11 @@ class Row:
         return None if self.deckload is None else self.deckload - self.booklet
 
 
+_TO_FLOODING = ("area_0_40_mrad", "area_30_40_mrad")
+"""Areas that stop at θf: no value while θf is unknown."""
+
+_THETA_F_UNKNOWN = "θf unknown: the profile's downflooding angles do not reach this displacement"
+
 _NO_VALUE = {
     "list_deg": "no list: GZ never becomes positive on the side she heels to (no position of equilibrium)",
     "downflooding_angle_deg": "deckload has no value here: the profile gives no downflooding angles",
@@ -143,9 +148,12 @@ def compare(result: Result, expected: dict, breadth_m: float) -> tuple[Row, ...]
         if key not in expected:
             continue
         base = float(expected[key])
-        got = getattr(result, _FROM_RESULT[key])
+        if key in _TO_FLOODING:
+            got = result.area_to_flooding_mrad(key)
+        else:
+            got = getattr(result, _FROM_RESULT[key])
         got = None if got is None else float(got)
-        note = "" if got is not None else _NO_VALUE.get(key, "deckload has no value here")
+        note = "" if got is not None else _no_value_note(key, result)
         if key == "trim_m":
             aft = float(expected.get("draft_aft_m", result.draft_aft_m))
             fwd = float(expected.get("draft_fwd_m", result.draft_fwd_m))
@@ -167,6 +175,13 @@ def compare(result: Result, expected: dict, breadth_m: float) -> tuple[Row, ...]
         rows.append(_row(f"gz_m@{heel:g}", f"GZ at {heel:g}°", "m", base, got, allowed,
                          f"{GZ.text('m')} ({GZ.row})", note))
     return tuple(rows)
+
+
+def _no_value_note(key: str, result: Result) -> str:
+    """Why deckload has no value for ``key`` in this condition."""
+    if result.downflooding_unknown and key in (*_TO_FLOODING, "downflooding_angle_deg"):
+        return _THETA_F_UNKNOWN
+    return _NO_VALUE.get(key, "deckload has no value here")
 
 
 def _row(key, label, unit, base, got, allowed, words, note) -> Row:

@@ -260,6 +260,18 @@ class Result:
     taken as none (a caution says so)."""
 
     @property
+    def downflooding_unknown(self) -> bool:
+        """The profile gives downflooding angles but they do not reach this displacement: θf is
+        unknown, so the areas to 40° or θf are not known either."""
+        return self.downflooding_given and self.downflooding_angle_deg is None
+
+    def area_to_flooding_mrad(self, name: str) -> float | None:
+        """``area_0_40_mrad`` or ``area_30_40_mrad``, or None when θf is unknown: the stored
+        value is then the area with no openings, which may overstate the area to θf
+        (IS 2008 Part A 2.2.1 stops both areas at θf when it is less than 40°)."""
+        return None if self.downflooding_unknown else getattr(self, name)
+
+    @property
     def dock_water_allowance_m(self) -> float | None:
         """How much deeper than its own draft the mark allows in this water (m): the DWA,
         FWA·(ρ_mark − ρ)/0.025 (deckload.core.hydrostatics.permitted_draft_m)."""
@@ -338,8 +350,8 @@ class Result:
             "vanishing_angle_deg": self.vanishing_angle_deg,
             "downflooding_angle_deg": self.downflooding_angle_deg,
             "area_0_30_mrad": self.area_0_30_mrad,
-            "area_0_40_mrad": self.area_0_40_mrad,
-            "area_30_40_mrad": self.area_30_40_mrad,
+            "area_0_40_mrad": self.area_to_flooding_mrad("area_0_40_mrad"),
+            "area_30_40_mrad": self.area_to_flooding_mrad("area_30_40_mrad"),
             "gz": [{"heel_deg": h, "gz_m": g} for h, g in zip(self.gz_heel_deg, self.gz_m)],
             "gz_port": [{"heel_deg": h, "gz_m": g} for h, g in zip(self.gz_heel_deg, self.gz_port_m)],
             "criteria": [
