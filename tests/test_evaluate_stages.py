@@ -19,6 +19,7 @@ from __future__ import annotations
 import dataclasses
 import math
 
+import numpy as np
 import pytest
 
 from deckload.core.model import Condition, DeckItem, LimitCurve, LoadLine, MassItem, TankFill, frozen_array
@@ -414,3 +415,37 @@ def test_warnings_stage_load_line_and_order():
     assert line.severity == "danger"
     assert line.message == ("midships draft 2.075 m is over the summer load line "
                             "(2.050 m allowed in water of 1.000 t/m³)")
+
+
+def test_criteria_stage_decides_the_sets_from_the_criteria_as_the_cuts_leave_them():
+    """A KN table that stops at 35° with θf = 35° (built here without the profile validation), on
+    every branch of the stage: with the shape-preserving second opinion (``kn_spread_m``), without it,
+    and with the KN table judged unusable at this trim (``kn_beyond``).  Each set's pass must be that
+    of its criteria as the stage leaves them (every one assessed and met), whichever branch ran.
+
+    Barge T = 2, exact GZ = KN − KG·sinθ (checks.md §1.2): KG 3.0 gives GZ(30°) = 1.088 m, met;
+    KG 4.8 gives GZ(30°) = 0.188 m and 0.001 m at 35° = θf, so "GZ ≥ 0.20 m at 30° or more"
+    (IS 2008 Part A 2.2.2) fails and the set is not passed."""
+    flood35 = LimitCurve(frozen_array([205.0, 1435.0]), frozen_array([35.0, 35.0]), "downflooding_deg")
+    for kg, a22 in ((3.0, True), (4.8, False)):
+        vessel, condition = barge_at(2.0, kg, heel_step_deg=5.0, downflooding=flood35)
+        kn = vessel.cross_curves
+        keep = np.asarray(kn.heel_deg) <= 35.0
+        short = dataclasses.replace(kn, heel_deg=frozen_array(np.asarray(kn.heel_deg)[keep]),
+                                    kn_m=frozen_array(np.asarray(kn.kn_m)[:, keep]))
+        vessel = dataclasses.replace(vessel, cross_curves=short)
+        out = _run(vessel, condition, upto="curve")
+        assert out["curve"].end_deg == 35.0
+        beyond = dataclasses.replace(out["upright"], kn_beyond="KN at even keel beyond the trim limit")
+        for curve, upright in ((out["curve"], out["upright"]),
+                               (dataclasses.replace(out["curve"], kn_spread_m=None), out["upright"]),
+                               (out["curve"], beyond)):
+            a = stage_criteria(vessel, condition, out["weights"], out["fs"], upright, curve)
+            gz30 = {c.id: c for c in a.criteria}["IS2008-A2.2.2-gz-30"]
+            if upright is beyond:
+                assert (gz30.assessed, gz30.passed) == (False, False)
+            else:
+                assert gz30.passed is a22
+                assert {s.id: s.passed for s in a.verdict.sets}["IS2008-A2.2"] is a22
+            for s in a.verdict.sets:
+                assert s.passed == all(c.passed and c.assessed for c in a.criteria if c.set_id == s.id)

@@ -424,7 +424,7 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
         criteria = [replace(c, assessed=False, passed=False, note=floating.kn_beyond) if reads_gz_curve(c) else c
                     for c in criteria]
         # the weather criterion's numbers are read off the same curve: none is shown as if it stood
-        verdict = replace(_with_sets(verdict, criteria), weather=None)
+        verdict = replace(verdict, weather=None)
     elif curve.kn_spread_m is not None:
         # The same KN row by a shape-preserving interpolation: a criterion the spline passes and it
         # fails was decided by the interpolation between the table's heels, not by the table.
@@ -441,7 +441,8 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
             second = criteria  # no criterion is near enough its limit for the second opinion to decide it
         band = gzmod.max_band(gz, curve.kn_heel_deg, curve.kn_spread_m)
         criteria = _marginal(criteria, second, band)
-        verdict = _with_sets(verdict, criteria)
+    # Each set's pass is decided again from its criteria as the cuts above left them, whichever ran.
+    verdict = _with_sets(verdict, criteria)
     for note in verdict.cautions:
         code = "weather-not-assessed" if "not assessed" in note else "verdict-note"
         notes.append(Warning(code, note, "caution"))
