@@ -372,6 +372,9 @@ class LimitCurve:
     """The limit at each displacement (m, or degrees for a downflooding angle)."""
     kind: str
     """'max_kg_m', 'min_gm_m' or 'downflooding_deg'."""
+    trim_range_m: tuple[float, float] | None = None
+    """A limiting KG/GM curve's operating trims (m, + by the stern, from below to), as the booklet
+    states them; None when the profile does not say (the curve is then judged at any trim)."""
 
 
 SHIP_TYPES: tuple[str, ...] = ("general", "fishing", "passenger", "offshore_supply")

@@ -394,8 +394,15 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
     limit_missing = None
     if vessel.limit_curve is not None:
         lim = _curve_limit(vessel.limit_curve, table_disp)
+        off = None
         if lim is None:
             off = _off_curve(vessel.limit_curve, "limiting curve", disp, table_disp)
+        elif (trims := vessel.limit_curve.trim_range_m) is not None and not (
+                trims[0] - 1e-9 <= floating.trim_m <= trims[1] + 1e-9):
+            # IS 2008 Part A 2.1.7: the curve proves nothing at a trim it was not made for.
+            off = (f"trim {floating.trim_m:+.3f} m is outside the trims the limiting curve covers, "
+                   f"{trims[0]:+.2f} to {trims[1]:+.2f} m")
+        if off is not None:
             notes.append(Warning("limit-curve-range", f"{off}: that check was not made", "danger"))
             limit_missing = NotAssessed(SET_TITLES[LIMIT_CURVE_SET], off)
         else:

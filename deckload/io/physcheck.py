@@ -107,6 +107,9 @@ def check_vessel(ctx: FileCheck, v: m.Vessel) -> m.Vessel:
         zr = b.z_max_m(p)
         c.array(("limit_curve", "min_gm_m"), "limit_curve.min_gm_m", v.limit_curve.value,
                 b.Range(-zr, zr, "m", "within the vessel's height"))
+    if v.limit_curve is not None and v.limit_curve.trim_range_m is not None:
+        c.array(("limit_curve", "trim_range_m"), "limit_curve.trim_range_m", v.limit_curve.trim_range_m,
+                b.table_trim_range(p))
     dmin = v.free_surface.min_operating_displacement_t
     c.one(("free_surface", "min_operating_displacement_t"), "free_surface.min_operating_displacement_t", dmin,
           b.Range(0.0, hi_disp, "t", "at most the greatest displacement in the hydrostatic table"))

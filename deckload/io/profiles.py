@@ -1004,11 +1004,19 @@ def _read_limit_curve(root: Table, hydro, frame: Frame | None, rd: Reading) -> m
         return None
     kind = kinds[0]
     values = t.array(kind, above_keel) if kind == "max_kg_m" else t.array(kind)
+    trims = t.pair("trim_range_m", required=False,
+                   form="two trims [from, to] in m (+ by the stern), from below to")
     t.finish()
     if not t.same_length(against, {against: disp, kind: values}) or f is None:
         return None
+    if trims is None and not t.has("trim_range_m"):
+        # IS 2008 Part A 2.1.7: such curves must cover the operating trims; without them stated,
+        # the curve is judged at whatever trim she floats at.
+        rd.assumptions.append("limit_curve: no trim_range_m, so the curve is judged at any trim "
+                              "(IS 2008 Part A 2.1.7: it must cover the operating trims; give the booklet's)")
     rd.tables["limit_curve"] = TableReading(f, csv=t.data.get("csv"), against=against, columns=_csv_columns(t))
-    return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(values), kind=kind)
+    return m.LimitCurve(displacement_t=m.frozen_array(disp), value=m.frozen_array(values), kind=kind,
+                        trim_range_m=trims)
 
 
 def _read_downflooding(root: Table, hydro, frame: Frame | None, rd: Reading) -> m.LimitCurve | None:
