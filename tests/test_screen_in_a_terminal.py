@@ -15,6 +15,7 @@ from __future__ import annotations
 import fcntl
 import json
 import os
+import re
 import select
 import signal
 import struct
@@ -41,13 +42,32 @@ def _env(tmp_path: Path) -> dict[str, str]:
             "DECKLOAD_LOG_DIR": str(tmp_path / "logs"), "TERM": "xterm-256color", "LANG": "C.UTF-8"}
 
 
+# As _AS_TERMINAL, with a disk that stops answering: once the file STUCK exists in the working
+# folder, every atomic write (the working condition's save) waits for ever, as on a disk that
+# hangs; and a second signal may leave after 0.5 s of that instead of deckload's 5 s.
+_AS_TERMINAL_STUCK_DISK = """
+import fcntl, os, sys, termios, threading
+os.setsid(); fcntl.ioctl(0, termios.TIOCSCTTY, 0)
+import deckload.io.atomicfile as atomic, deckload.ui.app as app
+app.STUCK_CLOSE_S = 0.5
+real = atomic.write_atomic
+def hanging(path, data):
+    if os.path.exists("STUCK"):
+        threading.Event().wait()
+    real(path, data)
+atomic.write_atomic = hanging
+from deckload.cli.main import main
+sys.exit(main(sys.argv[1:]))
+"""
+
+
 class Terminal:
     """``deckload open`` on a 100×30 pseudo-terminal; what it draws is kept in :attr:`out`."""
 
-    def __init__(self, tmp_path: Path):
+    def __init__(self, tmp_path: Path, script: str = _AS_TERMINAL):
         self.master, slave = os.openpty()
         fcntl.ioctl(slave, termios.TIOCSWINSZ, struct.pack("HHHH", 30, 100, 0, 0))
-        self.proc = subprocess.Popen([sys.executable, "-c", _AS_TERMINAL, "open"], stdin=slave, stdout=slave,
+        self.proc = subprocess.Popen([sys.executable, "-c", script, "open"], stdin=slave, stdout=slave,
                                      stderr=slave, cwd=tmp_path, env=_env(tmp_path), close_fds=True)
         os.close(slave)
         self.out = bytearray()
@@ -168,6 +188,37 @@ def test_the_terminal_closing_closes_the_screen_as_q_does(terminal, tmp_path):
     assert _run_entry(tmp_path) == ["DB1P 0 % → 3 %, 0.0 t → 1.0 t (3 changes)"]
     assert "[tanks.DB1P]" in _working_text(tmp_path)
     assert not list((tmp_path / "home").glob("crashes/*"))
+
+
+@pytest.mark.long
+def test_a_second_signal_leaves_when_the_disk_has_stopped_answering(tmp_path):
+    """The first signal closes as q does and waits for the writer; with the disk hung the wait never
+    ends.  A second signal, once the closing has waited STUCK_CLOSE_S (0.5 s here), leaves at once:
+    exit 128 + its number, the terminal given back, and a message saying what was not written and
+    that the working file holds the last condition saved (the atomic write never replaced it)."""
+    terminal = Terminal(tmp_path, _AS_TERMINAL_STUCK_DISK)
+    try:
+        terminal.until(lambda: b"Demo Islander" in terminal.out, "loading screen")
+        (tmp_path / "STUCK").write_text("", encoding="utf-8")
+        before = _working_text(tmp_path)
+        terminal.send("\x1b[B+")
+        terminal.read(0.5)
+        os.kill(terminal.proc.pid, signal.SIGTERM)
+        terminal.read(1.0)
+        assert terminal.proc.poll() is None  # the first signal waits for the disk
+        drawn = len(terminal.out)
+        os.kill(terminal.proc.pid, signal.SIGTERM)
+        assert terminal.exit_status() == 143
+        after = bytes(terminal.out[drawn:])
+        assert b"\x1b[?1049l" in after and b"\x1b[?1000l" in after  # alternate screen and mouse off
+        said = b" ".join(after.split()).decode("utf-8", "replace")
+        assert "deckload: left without waiting for the disk" in said
+        assert re.search(r"[1-9]\d* change\(s\) shown on screen not saved or logged", said), said
+        assert "the working file holds the last condition saved" in said
+        assert _working_text(tmp_path) == before and "[tanks.DB1P]" not in before
+        assert b"Traceback" not in bytes(terminal.out)
+    finally:
+        terminal.close()
 
 
 @pytest.mark.parametrize("where", ["stdin", "stdout", "stderr"])

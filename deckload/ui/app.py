@@ -20,6 +20,12 @@ from deckload.ui.main_screen import LoadingScreen
 from deckload.ui.session import Session
 from deckload.ui.widgets import type_into
 
+STUCK_CLOSE_S = 5.0
+"""How long a signal's closing waits on the writer thread before a second signal may leave
+without it (deckload's own choice: a healthy disk saves in well under a second, and two
+signals in quick succession, as a closing terminal and a shutdown send them, must not cost
+the last entry)."""
+
 
 KEY_WAIT_S = 1.0
 """The longest a typed key waits for the key before it, or for a screen to focus its first field."""
@@ -102,6 +108,8 @@ class DeckloadApp(App[None]):
         self.exit_problems: list[str] = []
         """What could not be written when a signal closed the screen: printed after it has gone."""
         self._signal_scheduled = False
+        self._closing_since: float | None = None
+        """When the signal's closing began waiting for the writer (monotonic s), or None."""
         self._key_in_flight: events.Key | None = None
         self._key_sent_at = 0.0
         self._held_keys: deque[events.Key] = deque()
@@ -269,7 +277,13 @@ class DeckloadApp(App[None]):
         it only schedules :meth:`_close_on_signal` on the loop (or leaves it to :meth:`on_mount`
         when the loop has not started)."""
         if self.closed_by_signal is not None:
-            return  # already closing
+            # Already closing.  A second signal (a shutdown's SIGTERM after the terminal's SIGHUP)
+            # changes nothing while the writes land; only once they have been stuck for
+            # STUCK_CLOSE_S (a disk that does not answer) does it leave without them.
+            since = self._closing_since
+            if since is not None and time.monotonic() - since >= STUCK_CLOSE_S:
+                self._leave_without_writing(signum)
+            return
         self.closed_by_signal = signum
         loop = getattr(self, "_loop", None)  # textual's: set while the app runs
         if loop is not None:
@@ -282,6 +296,7 @@ class DeckloadApp(App[None]):
         is restored as textual leaves, and what could not be written is printed after
         (:attr:`exit_problems`)."""
         signum = self.closed_by_signal
+        self._closing_since = time.monotonic()
         try:
             problems = self.session.flush()
         except Exception as exc:  # leaving is what matters now; the reason is printed after
@@ -290,6 +305,33 @@ class DeckloadApp(App[None]):
             problems.append(unsaved_warning(self.session.unsaved, leaving=True))
         self.exit_problems = problems
         self.exit(return_code=128 + signum)
+
+    def _leave_without_writing(self, signum: int) -> None:
+        """Leave at once, from the signal handler, while the writer thread is stuck: the terminal
+        given back, what is lost said on standard error, exit 128 + the signal's number.
+
+        Nothing already on disk is lost: the working condition is written to a temporary file
+        and renamed over the old (:mod:`deckload.io.atomicfile`), so the file holds the last
+        condition saved, and a log line cut short is set aside at the next start, never dropped
+        (:mod:`deckload.logbook.storage`)."""
+        import os
+        import sys
+
+        pending = self.session.saves_pending
+        driver = getattr(self, "_driver", None)
+        try:
+            if driver is not None:
+                driver.stop_application_mode()
+                driver.close()  # joins textual's output thread, so the restoring codes reach the terminal
+        except Exception:  # leaving is what matters now; a terminal gone takes nothing more
+            pass
+        try:
+            print(f"deckload: left without waiting for the disk (stuck for {STUCK_CLOSE_S:g} s or more after the "
+                  f"first signal): {pending} change(s) shown on screen not saved or logged; the working file "
+                  f"holds the last condition saved. File: {self.session.save_path}", file=sys.__stderr__, flush=True)
+        except (OSError, ValueError, AttributeError):
+            pass
+        os._exit(128 + signum)
 
     def on_unmount(self) -> None:
         self.session.stop_writer()
