@@ -17,6 +17,7 @@ from deckload.core.criteria import osv_area_limit_mrad
 from deckload.core.model import Condition, CriteriaSettings, PassengerData, Windage, frozen_array
 from deckload.core.stability import evaluate
 from deckload.io.profiles import parse_profile
+from deckload.report import verdict_format as vf
 from test_profiles import BASE, line_of, only
 from vessel_factories import RHO_SW, barge_at, box_dynamic_lever_mrad, box_vessel, wall_sided_heel_deg
 
@@ -268,7 +269,11 @@ def test_not_assessed_always_lists_what_deckload_never_computes_and_the_missing_
         assert any(word in i for i in items), word
     assert [s.id for s in r.criteria_sets] == ["IS2008-A2.2"]
     text = r.verdict_text()
-    assert text.startswith("Met: IS Code 2008 Part A 2.2") and "weather criterion (the profile has no windage data)" in text
+    # A 2.3 applies to her and was not assessed: never "Met:", nor the word "met" alone
+    assert text.startswith("Met where assessable, 1 set of criteria not assessed — assessed: IS Code 2008 Part A 2.2")
+    assert "weather criterion (the profile has no windage data)" in text
+    assert not r.all_criteria_pass and vf.verdict_word(r) == "met where assessable"
+    assert [n.item for n in r.sets_not_assessed] == ["IS Code 2008 Part A 2.3 weather criterion"]
     assert any(w.code == "weather-not-assessed" for w in r.warnings)
 
 

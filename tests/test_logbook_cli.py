@@ -80,7 +80,8 @@ def test_record_writes_the_evaluated_condition(tmp_path, cond_file, demo, capsys
     assert f"GM fluid {r.gm_fluid_m:.3f} m" in out
     # the entry carries the verdict: the sets assessed, what was not assessed and why, the angles
     assert e.summary["criteria_sets"] == [{"id": a.id, "title": a.title, "pass": a.passed} for a in r.criteria_sets]
-    assert e.summary["not_assessed"] == [{"item": n.item, "reason": n.reason} for n in r.not_assessed]
+    assert e.summary["not_assessed"] == [{"item": n.item, "reason": n.reason, "applies": n.applies}
+                                         for n in r.not_assessed]
     assert e.summary["verdict"] == r.verdict_text() and "damage stability" in e.summary["verdict"]
     assert e.summary["weather"]["lw1_m"] == r.weather.lw1_m and e.summary["freeboard_m"] == r.freeboard_m
     assert e.summary["load_line_margin_m"] == r.load_line_margin_m

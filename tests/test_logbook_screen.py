@@ -86,12 +86,13 @@ async def test_log_screen_lists_filters_opens_and_restores(filled):
         assert table.cursor_row == 4  # newest selected
         # the row shows GM fluid and the verdict from the stored summary
         row4 = table.get_row_at(3)
-        assert str(row4[5]) == f"{book.entries()[3].gm_fluid_m:.3f}" and str(row4[6]) == "met A2.2"  # the set assessed (the barge has no windage data)
+        assert str(row4[5]) == f"{book.entries()[3].gm_fluid_m:.3f}" and str(row4[6]) == "met, n/a A2.2"  # the set assessed; A 2.3 not (the barge has no windage data)
         # the entry's details give the verdict as recorded: the set, and what was not assessed and why
         from deckload.ui.log_screen import entry_details
 
         details = " ".join(entry_details(book.entries()[3]).plain.split())
-        assert "Verdict: Met: IS Code 2008 Part A 2.2 general criteria." in details
+        assert ("Verdict: Met where assessable, 1 set of criteria not assessed — assessed: "
+                "IS Code 2008 Part A 2.2 general criteria.") in details
         assert "IS Code 2008 Part A 2.3 weather criterion (the profile has no windage data)" in details
         assert "all met" not in details.lower()
 

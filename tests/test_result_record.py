@@ -28,6 +28,8 @@ from deckload.core.result import (
     TankResult,
     Warning,
 )
+from deckload.logbook.records import summarise
+from deckload.report import verdict_format as vf
 
 SET_A22 = AssessedSet("IS2008-A2.2", "IS Code 2008 Part A 2.2 general criteria", True)
 SET_EXTRA = AssessedSet("profile-extra", "criteria written in the profile", False)
@@ -51,7 +53,7 @@ ITEM = ItemResult(group="deck", id="D3", name="Pipe bundle", mass_t=18.5, lcg_m=
 NOT_COMPUTED = (
     NotAssessed("damage stability", "not computed by deckload"),
     NotAssessed("icing allowance", "not computed by deckload"),
-    NotAssessed("IS Code 2008 Part A 2.3 weather criterion", "the profile has no windage data"),
+    NotAssessed("IS Code 2008 Part A 2.3 weather criterion", "the profile has no windage data", applies=True),
 )
 
 
@@ -118,10 +120,10 @@ def test_json_record_carries_every_documented_key_with_its_value():
         "warnings": ["FO1P is slack inside its worst band (40–70 %)"],
         "assessed": [{"id": "IS2008-A2.2", "title": "IS Code 2008 Part A 2.2 general criteria", "pass": True},
                      {"id": "profile-extra", "title": "criteria written in the profile", "pass": False}],
-        "not_assessed": [{"item": "damage stability", "reason": "not computed by deckload"},
-                         {"item": "icing allowance", "reason": "not computed by deckload"},
+        "not_assessed": [{"item": "damage stability", "reason": "not computed by deckload", "applies": False},
+                         {"item": "icing allowance", "reason": "not computed by deckload", "applies": False},
                          {"item": "IS Code 2008 Part A 2.3 weather criterion",
-                          "reason": "the profile has no windage data"}],
+                          "reason": "the profile has no windage data", "applies": True}],
         "verdict": (
             "NOT MET (1 failed) — assessed: IS Code 2008 Part A 2.2 general criteria, criteria written in the "
             "profile. Not assessed: damage stability, icing allowance (not computed by deckload); IS Code 2008 "
@@ -143,7 +145,8 @@ def test_verdict_only_unassessable_criteria_is_not_a_plain_met():
     (an officer reading "Met" would take the unassessed criterion as met)."""
     text = _result((MET, OPEN)).verdict_text()
     assert text == (
-        "Met where assessable, 1 criterion not assessable — assessed: IS Code 2008 Part A 2.2 general criteria, "
+        "Met where assessable, 1 criterion not assessable, 1 set of criteria not assessed — assessed: "
+        "IS Code 2008 Part A 2.2 general criteria, "
         "criteria written in the profile. Not assessed: damage stability, icing allowance (not computed by "
         "deckload); IS Code 2008 Part A 2.3 weather criterion (the profile has no windage data).")
 
@@ -168,3 +171,30 @@ def test_verdict_counts_several_unassessable_criteria_in_the_plural():
     other = dataclasses.replace(OPEN, id=OPEN.id + "-b")
     text = _result((MET, OPEN, other), sets=(), not_assessed=()).verdict_text()
     assert text == "Met where assessable, 2 criteria not assessable — assessed: no criteria set."
+
+
+def test_verdict_with_a_set_that_applies_left_out_is_not_a_plain_met():
+    """Every criterion assessed and met, but the weather criterion (A 2.3, which applies to her) had no
+    data: not "Met:", the word is "met where assessable", and all_criteria_pass is False; a set of
+    scope deckload never computes (damage stability) does not change the word."""
+    r = _result((MET,), sets=(SET_A22,))
+    assert r.verdict_text().startswith("Met where assessable, 1 set of criteria not assessed — assessed: "
+                                       "IS Code 2008 Part A 2.2 general criteria. Not assessed:")
+    assert not r.all_criteria_pass and vf.verdict_word(r) == "met where assessable"
+    scope_only = _result((MET,), sets=(SET_A22,), not_assessed=NOT_COMPUTED[:2])
+    assert scope_only.verdict_text().startswith("Met: IS Code 2008 Part A 2.2 general criteria.")
+    assert scope_only.all_criteria_pass and vf.verdict_word(scope_only) == "met"
+    two = _result((MET,), sets=(SET_A22,), not_assessed=(*NOT_COMPUTED, dataclasses.replace(NOT_COMPUTED[2], item="x")))
+    assert two.verdict_text().startswith("Met where assessable, 2 sets of criteria not assessed")
+
+
+def test_a_log_summary_with_a_set_left_out_reads_met_where_assessable():
+    """The stored summary's word (log table, log show): a not-assessed item that applies makes it
+    'met where assessable'; entries written before 'applies' was stored read as they did."""
+    r = _result((MET,), sets=(SET_A22,))
+    summary = summarise(r)
+    assert summary["criteria_pass"] is False
+    assert vf.stored_word(summary) == "met where assessable" and vf.stored_short(summary) == "met, n/a A2.2"
+    old = {**summary, "criteria_pass": True,
+           "not_assessed": [{"item": n.item, "reason": n.reason} for n in r.not_assessed]}
+    assert vf.stored_word(old) == "met"

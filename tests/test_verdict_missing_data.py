@@ -359,7 +359,7 @@ def test_calc_text_and_json_show_what_the_missing_curves_leave_open(off_curve_fi
     rows = {c["id"]: c for c in doc["criteria"]}
     assert rows["IS2008-A2.2.1-area-0-40"]["assessed"] is False and rows["IS2008-A2.2.1-area-0-40"]["value"] is None
     assert {"item": "limiting KG/GM curve from the vessel profile",
-            "reason": "displacement 820.0 t is outside the limiting curve, 900–1230 t"} in doc["not_assessed"]
+            "reason": "displacement 820.0 t is outside the limiting curve, 900–1230 t", "applies": True} in doc["not_assessed"]
     assert doc["verdict"].startswith("Met where assessable")
     assert [a["pass"] for a in doc["assessed"] if a["id"] == "IS2008-A2.2"] == [False]
     # The areas that stop at θf have no value either: the stored ones are the areas with no openings.

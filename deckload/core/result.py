@@ -116,6 +116,10 @@ class NotAssessed:
     """e.g. 'IS Code 2008 Part A 2.3 weather criterion', 'damage stability'."""
     reason: str
     """e.g. 'the profile has no windage data', 'not computed by deckload'."""
+    applies: bool = False
+    """A criteria set that applies to her (her type's, or her profile's limiting curve) and could
+    not be assessed for want of data: the verdict cannot then read "Met".  False for what deckload
+    never computes and for notes of scope."""
 
 
 @frozen
@@ -280,11 +284,16 @@ class Result:
         return self.load_line_allowed_draft_m - self.load_line_mark_draft_m
 
     @property
+    def sets_not_assessed(self) -> tuple[NotAssessed, ...]:
+        """The criteria sets that apply to her and could not be assessed (:attr:`NotAssessed.applies`)."""
+        return tuple(n for n in self.not_assessed if n.applies)
+
+    @property
     def all_criteria_pass(self) -> bool:
-        """Every assessed criterion passes and none was left unassessed.
+        """Every criterion passes, none was left unassessed, and no set that applies to her was left out.
 
         Never show this alone: :meth:`verdict_text` names the sets and what was not assessed."""
-        return all(c.passed and c.assessed for c in self.criteria)
+        return all(c.passed and c.assessed for c in self.criteria) and not self.sets_not_assessed
 
     def verdict_text(self) -> str:
         """One honest sentence-set for every summary: the sets assessed, the result, and what
@@ -292,11 +301,16 @@ class Result:
         names = ", ".join(s.title for s in self.criteria_sets) or "no criteria set"
         failed = [c for c in self.criteria if c.assessed and not c.passed]
         open_ = [c for c in self.criteria if not c.assessed]
+        missing = self.sets_not_assessed
         if failed:
             head = f"NOT MET ({len(failed)} failed) — assessed: {names}."
-        elif open_:
-            noun = "criterion" if len(open_) == 1 else "criteria"
-            head = f"Met where assessable, {len(open_)} {noun} not assessable — assessed: {names}."
+        elif open_ or missing:
+            parts = []
+            if open_:
+                parts.append(f"{len(open_)} {'criterion' if len(open_) == 1 else 'criteria'} not assessable")
+            if missing:
+                parts.append(f"{len(missing)} {'set' if len(missing) == 1 else 'sets'} of criteria not assessed")
+            head = f"Met where assessable, {', '.join(parts)} — assessed: {names}."
         else:
             head = f"Met: {names}."
         if self.not_assessed:
@@ -394,7 +408,7 @@ class Result:
             ],
             "warnings": [w.message for w in self.warnings],
             "assessed": [{"id": a.id, "title": a.title, "pass": a.passed} for a in self.criteria_sets],
-            "not_assessed": [{"item": n.item, "reason": n.reason} for n in self.not_assessed],
+            "not_assessed": [{"item": n.item, "reason": n.reason, "applies": n.applies} for n in self.not_assessed],
             "verdict": self.verdict_text(),
             "weather": None if self.weather is None else dict(vars(self.weather)),
             "deck_edge_angle_deg": self.deck_edge_angle_deg,

@@ -404,7 +404,7 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
                    f"{trims[0]:+.2f} to {trims[1]:+.2f} m")
         if off is not None:
             notes.append(Warning("limit-curve-range", f"{off}: that check was not made", "danger"))
-            limit_missing = NotAssessed(SET_TITLES[LIMIT_CURVE_SET], off)
+            limit_missing = NotAssessed(SET_TITLES[LIMIT_CURVE_SET], off, applies=True)
         else:
             limit_rows.append(limit_curve_criterion(vessel.limit_curve.kind, lim, kg_fluid, gm_fluid))
     deck_edge, deck_edge_note = deck_edge_angle(vessel, table_disp, floating.draft_mid_m)

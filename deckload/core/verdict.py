@@ -135,13 +135,13 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
     p = vessel.particulars
     notes: list[str] = []
     if vessel.windage is None:
-        return [], None, NotAssessed(SET_TITLES[WEATHER_SET], "the profile has no windage data"), notes
+        return [], None, NotAssessed(SET_TITLES[WEATHER_SET], "the profile has no windage data", applies=True), notes
     wind = windage_at(vessel, a.draft_mid_m)
     if wind is None:
         w = vessel.windage
         return [], None, NotAssessed(SET_TITLES[WEATHER_SET],
                                      f"midships draft {a.draft_mid_m:.3f} m is outside the windage table "
-                                     f"({w.draft_m[0]:g}–{w.draft_m[-1]:g} m)"), notes
+                                     f"({w.draft_m[0]:g}–{w.draft_m[-1]:g} m)", applies=True), notes
     area, h_wl, lwl = wind
     d = a.draft_mid_m
     extra_area = sum(ai for ai, _ in a.deck_windage)
@@ -455,7 +455,7 @@ def assess(vessel: Vessel, a: Afloat, limit_curve: list[CriterionResult],
             rows, notes = passenger_criteria(vessel, a)
             cautions += notes
             if not rows:
-                not_assessed.append(NotAssessed(SET_TITLES[sid], "the profile has no passenger data"))
+                not_assessed.append(NotAssessed(SET_TITLES[sid], "the profile has no passenger data", applies=True))
                 continue
             criteria += rows
         else:

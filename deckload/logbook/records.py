@@ -121,7 +121,7 @@ def summarise(result: Result) -> dict:
         "criteria_failed": [c.id for c in result.criteria if c.assessed and not c.passed],
         "criteria_not_assessable": [{"id": c.id, "note": c.note} for c in result.criteria if not c.assessed],
         "criteria_sets": [{"id": a.id, "title": a.title, "pass": a.passed} for a in result.criteria_sets],
-        "not_assessed": [{"item": n.item, "reason": n.reason} for n in result.not_assessed],
+        "not_assessed": [{"item": n.item, "reason": n.reason, "applies": n.applies} for n in result.not_assessed],
         "verdict": result.verdict_text(),
         "deck_edge_angle_deg": result.deck_edge_angle_deg,
         "downflooding_angle_deg": result.downflooding_angle_deg,

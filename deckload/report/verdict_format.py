@@ -74,6 +74,13 @@ def outcome_word(criteria) -> str:
     return "met"
 
 
+def verdict_word(result: Result) -> str:
+    """The word for the whole verdict: :func:`outcome_word` of its criteria, but 'met where
+    assessable' where a set that applies to her could not be assessed (no windage data, say)."""
+    word = outcome_word(result.criteria)
+    return "met where assessable" if word == "met" and result.sets_not_assessed else word
+
+
 def set_names(result: Result) -> str:
     """The assessed sets by id, e.g. 'IS2008-A2.2, IS2008-A2.3' ('no criteria set' when none)."""
     return ", ".join(s.id or s.title for s in result.criteria_sets) or "no criteria set"
@@ -251,7 +258,8 @@ def stored_word(summary: dict | None) -> str:
         return ""
     if summary.get("criteria_failed"):
         return "NOT MET"
-    if summary.get("criteria_not_assessable"):
+    if summary.get("criteria_not_assessable") or any(
+            isinstance(x, dict) and x.get("applies") for x in summary.get("not_assessed") or []):
         return "met where assessable"
     return "met" if summary.get("criteria_pass") else "NOT MET"
 

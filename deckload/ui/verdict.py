@@ -68,7 +68,7 @@ def criteria_lines(result: Result | None, stale: bool, width: int, height: int =
     compact = width < 48
     if result is None:
         return [Text(" Criteria", P["title"])]
-    word = vf.outcome_word(result.criteria)
+    word = vf.verdict_word(result)
     n_failed = len(vf.failed(result))
     shown_word = (f"NOT MET ({n_failed})" if compact else f"NOT MET ({n_failed} failed)") if n_failed else word
     head = Text(" Criteria ", P["title"])
