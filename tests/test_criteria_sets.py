@@ -133,6 +133,23 @@ def test_osv_alternative_criteria_accept_an_early_maximum():
     assert crit["IS2008-B2.4.5-area-0-max"].limit == pytest.approx(0.055 + 0.001 * (30.0 - theta), abs=1e-12)
 
 
+def test_osv_area_beyond_a_maximum_past_30_degrees_is_the_area_to_30():
+    """Box 40 × 10 × 7 m at T 3.5 m with GM0 0.17 m (KG = KMt − 0.17, KMt = T/2 + B²/12T, checks.md
+    §1.1): GZ peaks well beyond 30°, so IS 2008 Part B 2.4.5 asks for 0.055 m·rad to 30° (from memory,
+    criteria.osv_area_end_deg).  The exact dynamic lever to 30° (checks.md §1.3 formula) is below
+    0.055 and the condition fails, although the area to θmax is well above it (which passed before)."""
+    kg = 3.5 / 2.0 + 100.0 / (12.0 * 3.5) - 0.17
+    osv = box(40.0, 10.0, 7.0, 3.5, kg, CriteriaSettings(ship_type="offshore_supply", sharp_bilged=True),
+              windage=False)
+    crit = {c.id: c for c in osv.criteria}
+    theta = crit["IS2008-B2.4.5-angle-max-gz"].value
+    to30 = box_dynamic_lever_mrad(10.0, 7.0, 3.5, kg, math.radians(30.0))
+    assert theta > 40.0 and to30 < 0.055 < box_dynamic_lever_mrad(10.0, 7.0, 3.5, kg, math.radians(theta))
+    assert crit["IS2008-B2.4.5-area-0-max"].value == pytest.approx(to30, abs=2e-4)  # spline, 1° KN steps
+    assert crit["IS2008-B2.4.5-area-0-max"].limit == pytest.approx(0.055, abs=1e-12)
+    assert "IS2008-B2.4.5-area-0-max" in failed(osv) and osv.verdict_text().startswith("NOT MET")
+
+
 def test_osv_area_limit_row_30():
     """standards.md §8 row 30: at θmax 20° the area limit is 0.065 m·rad (IS 2008 B 2.4.5 [M]);
     0.070 at 15° and below, 0.055 at 30° and beyond."""

@@ -86,6 +86,15 @@ def test_offshore_area_to_the_maximum_stops_at_flood():
     assert area(2.0, 25.0) == pytest.approx(0.187384, abs=1e-6)
 
 
+def test_offshore_area_stops_at_30_when_the_maximum_lies_beyond():
+    """IS 2008 Part B 2.4.5 (from memory, criteria.osv_area_end_deg): "0.055 m·rad up to an angle of
+    30° when the maximum GZ occurs at 30° or above".  GZ = 2·sinφ peaks at 90° with no θf: the area
+    is to 30°, 2·(1 − cos30°) = 0.267949 m·rad, against 0.055 (not 2·(1 − cos90°) = 2.0 to θmax)."""
+    r = evaluate(vessel(criteria=CriteriaSettings(ship_type="offshore_supply")), Condition())
+    c = crit(r, "IS2008-B2.4.5-area-0-max")
+    assert c.value == pytest.approx(area(2.0, 30.0), abs=TOL) and c.limit == pytest.approx(0.055, abs=1e-12)
+
+
 def test_profile_area_criterion_stops_at_flood():
     """A flag-State area criterion written in the profile, 0° to 40°, is measured to θf when the
     openings immerse first (the same cut as IS 2008 Part A 2.2.1's 0–40°/θf): with θf = 25° it is

@@ -87,7 +87,7 @@ FISHING_REDUCED_GM_LENGTH_M = 70.0
 
 OSV_SOURCE = "IS Code 2008 Part B 2.4.5 (from memory)"
 IS2008_B245: tuple[Criterion, ...] = (
-    Criterion("IS2008-B2.4.5-area-0-max", "Area under GZ, 0° to the angle of maximum GZ", "area_0_max_mrad",
+    Criterion("IS2008-B2.4.5-area-0-max", "Area under GZ, 0° to the angle of maximum GZ or 30°", "area_0_max_mrad",
               0.055, "m·rad", ">=", OSV_SOURCE),
     Criterion("IS2008-B2.4.5-area-30-40", "Area under GZ, 30° to 40° or θf", "area_30_40_mrad",
               0.030, "m·rad", ">=", OSV_SOURCE),
@@ -100,6 +100,19 @@ IS2008_B245: tuple[Criterion, ...] = (
 )
 """Offshore supply vessels, IS 2008 Part B 2.4.5 alternative criteria (standards.md §3.3, all [M]).
 The area limit to θmax depends on θmax: see :func:`osv_area_limit_mrad`."""
+
+
+def osv_area_end_deg(theta_max_deg: float, flood_deg: float | None = None) -> float:
+    """Where the OSV area criterion's area ends: at θmax, but at 30° when the maximum lies at 30° or
+    beyond, and at θf when θf is less.
+
+    IS 2008 Part B 2.4.5 (from memory; standards.md §3.3 gives the limits [M]): "0.070 m·rad up to
+    an angle of 15° when the maximum GZ occurs at 15°, and 0.055 m·rad up to an angle of 30° when
+    it occurs at 30° or above", in between 0.055 + 0.001·(30° − θmax) m·rad up to θmax.  The area
+    to 30° is the smaller of the two readings of "to θmax" beyond 30°, so it is also the safe one.
+    θf: common practice, as for every area of Part A 2.2.1."""
+    end = min(theta_max_deg, 30.0)
+    return end if flood_deg is None else min(end, flood_deg)
 
 
 def osv_area_limit_mrad(theta_max_deg: float) -> float:

@@ -36,7 +36,7 @@ import numpy as np
 
 from deckload.core import gz as gzmod
 from deckload.core.bounds import bounded
-from deckload.core.criteria import LIMIT_CURVE_SET, SET_TITLES, Measures, limit_curve_criterion
+from deckload.core.criteria import LIMIT_CURVE_SET, SET_TITLES, Measures, limit_curve_criterion, osv_area_end_deg
 from deckload.core.free_surface import BASIS_NONE, TankFreeSurface, free_surface, settings_departures, transfer_moment_m4
 from deckload.core.frozen import frozen
 from deckload.core.hydrostatics import Upright, draft_at, fresh_water_allowance_m, mark_density_t_m3, permitted_draft_m
@@ -641,8 +641,8 @@ def _measures(gz: np.ndarray, f: gzmod.CurveFacts, flood: float | None, gm_fluid
     gz30 = float(np.max(gz[k30 : khi + 1]))
     # A curve with no positive GZ has no meaningful 'angle of maximum': it fails 2.2.3.
     angle_of_max = f.max_gz_angle_deg if f.max_gz_m > 0.0 else 0.0
-    # Area to the angle of maximum GZ (or θf if less), for the OSV set of Part B 2.4.5.
-    a_max = gzmod.area_to(gz, min(angle_of_max, flood) if flood is not None else angle_of_max)
+    # Area to the angle of maximum GZ, 30° at most (or θf if less), for the OSV set of Part B 2.4.5.
+    a_max = gzmod.area_to(gz, osv_area_end_deg(angle_of_max, flood))
     return Measures(a30, a40, a3040, gz30, angle_of_max, gm_fluid_m, a_max)
 
 
@@ -679,6 +679,12 @@ def _second_opinion_may_differ(criteria, heel_deg: np.ndarray, gz: np.ndarray, k
         if c.id.endswith("angle-max-gz"):
             band = gzmod.max_band(gz, kn_heel_deg, 2.0 * spread_m)
             if band is None or band[0] <= c.limit <= band[1]:
+                return True
+        elif c.id.endswith("area-0-max"):
+            # The area's end and its limit both follow θmax below 30° (Part B 2.4.5), and θmax may
+            # move anywhere in its band: only with the whole band at 30° or beyond are both fixed.
+            band = gzmod.max_band(gz, kn_heel_deg, 2.0 * spread_m)
+            if band is None or band[0] < 30.0 or margin <= eps * math.pi:
                 return True
         elif c.unit == "m·rad":
             if margin <= eps * math.pi:

@@ -31,6 +31,7 @@ from deckload.core.criteria import (
     Measures,
     evaluate_criteria,
     extra_criterion_result,
+    osv_area_end_deg,
 )
 from deckload.core.frozen import frozen
 from deckload.core.model import Vessel
@@ -407,7 +408,7 @@ def without_flood(c: CriterionResult, a: Afloat) -> CriterionResult:
     gz = a.gz_lee_m
     span = next((v for k, v in FLOOD_AREAS.items() if c.id.endswith("-" + k)), None)
     if c.id.endswith("-area-0-max"):
-        span = (0.0, a.measures.max_gz_angle_deg)
+        span = (0.0, osv_area_end_deg(a.measures.max_gz_angle_deg))
     if span is not None:
         best = best_area(gz, *span)
         if best < c.limit:
