@@ -16,6 +16,7 @@ import pytest
 from deckload.core.criteria import osv_area_limit_mrad
 from deckload.core.model import Condition, CriteriaSettings, PassengerData, Windage, frozen_array
 from deckload.core.stability import evaluate
+from deckload.core.verdict import crowding_tcg_m
 from deckload.io.profiles import parse_profile
 from deckload.report import verdict_format as vf
 from test_profiles import BASE, line_of, only
@@ -86,8 +87,11 @@ def test_fishing_gm_may_be_reduced_only_where_part_b_allows():
 def test_passenger_condition_fails_only_the_crowding_heel():
     """Box 40 × 10 × 6 m at T 3 m, KG 3.5: Δ = 1.025·40·10·3 = 1230 t, GM = 4.2778 − 3.5 = 0.7778 m,
     BM = 2.7778 m; wall-sided to atan(3/5) = 31°.
-    Crowding (IS 2008 Part A 3.1 [C] ≤ 10°): 700 × 0.075 t at 4.0 m → lever 210/1230 = 0.170732 m;
-    sinφ(GM + ½BM tan²φ) = 0.170732 → φ = 11.7565° > 10° (bisection below).
+    Crowding (IS 2008 Part A 3.1 [C] ≤ 10°): 700 people fill 700/4 = 175 of the 200 m² (4 per m²,
+    standards.md §3.1 [M]), its outboard part (A.749 3.5.2.9 [C]: the most unfavourable placing):
+    with the strip's edge at the side, 5 m, and its centroid at 4.0 m, they stand at
+    5 − (175/200)·(5 − 4) = 4.125 m (verdict.crowding_tcg_m, derived there) → lever
+    700·0.075·4.125/1230 = 0.176067 m; sinφ(GM + ½BM tan²φ) = 0.176067 → φ = 12.0790° > 10°.
     Turning: v0 = 12 kn = 6.1733 m/s; 0.2·v0²·(KG − d/2)/(g·Lwl) = 0.2·38.110·2.0/(9.81·40)
     = 0.038849 m [M formula] → φ ≈ 2.85° ≤ 10°."""
     pax = PassengerData(count=700, mass_per_person_t=0.075, standing_area_m2=200.0, standing_tcg_m=4.0,
@@ -95,16 +99,38 @@ def test_passenger_condition_fails_only_the_crowding_heel():
     r = box(40.0, 10.0, 6.0, 3.0, 3.5, CriteriaSettings(ship_type="passenger", sharp_bilged=True), passengers=pax)
     assert failed(r) == ["IS2008-A3.1-crowding"]
     crit = {c.id: c for c in r.criteria}
-    gm, bm, lever = 1.5 + 100.0 / 36.0 - 3.5, 100.0 / 36.0, 700 * 0.075 * 4.0 / 1230.0
+    gm, bm, lever = 1.5 + 100.0 / 36.0 - 3.5, 100.0 / 36.0, 700 * 0.075 * 4.125 / 1230.0
 
     # KN from the exact section at 1° steps, cubic spline: 0.01° covers the interpolation
     assert crit["IS2008-A3.1-crowding"].value == pytest.approx(wall_sided_heel_deg(gm, bm, lever), abs=0.01)
-    assert wall_sided_heel_deg(gm, bm, lever) == pytest.approx(11.7565, abs=1e-3)
+    assert wall_sided_heel_deg(gm, bm, lever) == pytest.approx(12.0790, abs=1e-3)
     v0 = 12.0 * 1852.0 / 3600.0
     turning = 0.2 * v0**2 * (3.5 - 1.5) / (9.81 * 40.0)
     assert turning == pytest.approx(0.038849, abs=1e-6)
     assert crit["IS2008-A3.1-turning"].value == pytest.approx(wall_sided_heel_deg(gm, bm, turning), abs=0.01)
     assert [s.id for s in r.criteria_sets] == ["IS2008-A2.2", "IS2008-A2.3", "IS2008-A3.1"]
+
+
+@pytest.mark.parametrize("count, outboard, y_crowd", [
+    (120, None, 4.0 + 0.0),     # 30 of 60 m² filled: f = 0.5, edge at the side 5 m: 5 − 0.5·(5 − 3) = 4.0
+    (240, None, 3.0),           # the whole area: its own centroid
+    (400, None, 3.0),           # more than fit: still the whole area (and a note says so)
+    (120, 4.0, 3.5),            # edge given at 4 m: 4 − 0.5·(4 − 3) = 3.5
+])
+def test_a_crowd_too_small_for_its_area_stands_at_its_outboard_part(count, outboard, y_crowd):
+    """A.749 3.5.2.9 [C] (standards.md §3.1): passengers in the most unfavourable placing that can
+    occur; at 4 per m² ([M]) n people fill n/4 m² of the standing area, so with fewer than fill it
+    they stand at its outboard part: y_out − f·(y_out − y_c), f = n/(4·A) (derived in
+    verdict.crowding_tcg_m).  Area 60 m², centroid 3.0 m, box breadth 10 m."""
+    pax = PassengerData(count=count, mass_per_person_t=0.075, standing_area_m2=60.0, standing_tcg_m=3.0,
+                        service_speed_kn=10.0, standing_outboard_m=outboard)
+    assert crowding_tcg_m(pax, 10.0) == pytest.approx(y_crowd, abs=1e-12)
+    r = box(40.0, 10.0, 6.0, 3.0, 3.5, CriteriaSettings(ship_type="passenger", sharp_bilged=True), passengers=pax)
+    c = {c.id: c for c in r.criteria}["IS2008-A3.1-crowding"]
+    gm, bm = 1.5 + 100.0 / 36.0 - 3.5, 100.0 / 36.0
+    lever = count * 0.075 * y_crowd / 1230.0
+    assert c.value == pytest.approx(wall_sided_heel_deg(gm, bm, lever), abs=0.01)  # spline of 1° KN steps
+    assert f"at {y_crowd:.3f} m from the centreline" in c.note
 
 
 def test_passenger_ship_without_passenger_data_says_so():
@@ -271,6 +297,16 @@ def test_passenger_data_only_for_passenger_ships_and_bounded():
     assert p.key == "passengers.mass_per_person_t" and "not below 60 kg" in p.rule
     p = only(BASE + '\n[criteria]\nship_type = "passenger"\n' + pax.replace("3.0\n", "7.5\n"))
     assert p.key == "passengers.standing_tcg_m"
+    # a lever of nil could only pass: a centroid on the centreline, or no speed, is refused
+    p = only(BASE + '\n[criteria]\nship_type = "passenger"\n' + pax.replace("standing_tcg_m = 3.0", "standing_tcg_m = 0.0"))
+    assert p.key == "passengers.standing_tcg_m" and "greater than 0" in p.rule
+    p = only(BASE + '\n[criteria]\nship_type = "passenger"\n' + pax.replace("11.0", "0.0"))
+    assert p.key == "passengers.service_speed_kn" and "greater than 0" in p.rule
+    # the area's outboard edge: at or beyond its centroid, within the breadth
+    v = parse_profile(BASE + '\n[criteria]\nship_type = "passenger"\n' + pax + "standing_outboard_m = 4.0\n")
+    assert v.passengers.standing_outboard_m == 4.0
+    p = only(BASE + '\n[criteria]\nship_type = "passenger"\n' + pax + "standing_outboard_m = 2.0\n")
+    assert p.key == "passengers.standing_outboard_m" and "at or beyond its centroid" in p.rule
 
 
 # --------------------------------------------------------------------------- the honest verdict

@@ -230,7 +230,8 @@ def test_passenger_levers_notes_and_crowding_beyond_four_per_m2():
             10.0, "deg", "<=", True, "IS Code 2008 Part A 3.1", "IS2008-A3.1")
     assert c.description == "Heel from passengers crowding to one side"
     assert t.description == "Heel from turning at service speed"
-    assert c.note == "lever 0.0366 m (200 × 0.075 t at 3 m)"
+    # more than fill the area: the whole area, at its centroid (verdict.crowding_tcg_m)
+    assert c.note == "lever 0.0366 m (200 × 0.075 t at 3.000 m from the centreline, the standing area's centroid)"
     assert t.note == "lever 0.0307 m (12 kn, 0.2·v²·(KG − d/2)/(g·Lwl) from memory)"
     assert warning_texts(r, "verdict-note") == [
         "200 passengers need 50 m² at 4 per m² (from memory); the standing area is 40 m²: all taken at its centroid"]
@@ -263,7 +264,8 @@ def test_passenger_lever_she_never_reaches():
     r = evaluate(*box(3.0, 3.0, CriteriaSettings(ship_type="passenger", sharp_bilged=True), passengers=pax))
     c = crit(r, "IS2008-A3.1-crowding")
     assert (c.value, c.passed) == (90.0, False)
-    assert c.note == "GZ never reaches the heeling lever up to 90°; lever 4.8780 m (20000 × 0.075 t at 4 m)"
+    assert c.note == ("GZ never reaches the heeling lever up to 90°; lever 4.8780 m "
+                      "(20000 × 0.075 t at 4.000 m from the centreline, the standing area's centroid)")
     assert (c.description, c.limit, c.unit, c.comparison, c.source, c.set_id) == (
         "Heel from passengers crowding to one side", 10.0, "deg", "<=", "IS Code 2008 Part A 3.1", "IS2008-A3.1")
     assert max(r.gz_m) < 4.878
@@ -597,9 +599,10 @@ def test_passenger_heel_below_one_degree_and_no_turning_lever():
     """50 passengers × 0.075 t at 3 m: lever 11.25/1230 = 0.0091463 m, heel = asin(lever/GM)
     = 0.410° (wall-sided, tan²φ negligible; GM 1.27778 m): found from 0°, not from 1°.
     KG 1.4 < T/2 = 1.5: the turning lever 0.2·v²·(KG − d/2)/(g·Lwl) is negative, taken as 0
-    (max(0, …)): heel 0°."""
+    (max(0, …)): heel 0°.  The area is a strip at 3 m (its outboard edge given at its centroid), so the
+    crowd stands at 3 m however few they are (verdict.crowding_tcg_m)."""
     pax = PassengerData(count=50, mass_per_person_t=0.075, standing_area_m2=40.0, standing_tcg_m=3.0,
-                        service_speed_kn=12.0)
+                        service_speed_kn=12.0, standing_outboard_m=3.0)
     r = evaluate(*box(3.0, 3.0, CriteriaSettings(ship_type="passenger", sharp_bilged=True), passengers=pax))
     gm, bm = 1.5 + 100.0 / 36.0 - 3.0, 100.0 / 36.0
     assert crit(r, "IS2008-A3.1-crowding").value == pytest.approx(wall_sided_heel_deg(gm, bm, 11.25 / 1230.0), abs=0.01)

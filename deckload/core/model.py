@@ -419,6 +419,9 @@ class PassengerData:
     """Distance of the centroid of that area from the centreline (m)."""
     service_speed_kn: float
     """Service speed (knots) for the heel when turning."""
+    standing_outboard_m: float | None = None
+    """Distance of the area's outboard edge from the centreline (m); None: the ship's side (B/2).
+    Passengers too few to fill the area crowd its outboard part (:func:`crowding_tcg_m`)."""
 
 
 @frozen(eq=False)

@@ -34,7 +34,7 @@ from deckload.core.criteria import (
     osv_area_end_deg,
 )
 from deckload.core.frozen import frozen
-from deckload.core.model import Vessel
+from deckload.core.model import PassengerData, Vessel
 from deckload.core.result import AssessedSet, CriterionResult, NotAssessed, WeatherResult
 from deckload.core.tables import OutOfRangeError, interp
 
@@ -256,11 +256,28 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
     return out, wr, None, notes
 
 
+def crowding_tcg_m(pd: PassengerData, breadth_m: float) -> float:
+    """Where the crowd stands (m from the centreline): the centroid of the outboard part of the
+    standing area that the passengers fill at 4 per m².
+
+    IS 2008 Part A 3.1 / A.749 3.5.2.9 [C]: passengers are placed in the most unfavourable way that
+    can occur in practice; 4 persons per m² (standards.md §3.1, [M] for IS 2008).  Derived: the area
+    taken as a strip of even length from y_in to y_out (y_out the outboard edge, the ship's side
+    B/2 unless the profile gives it; y_in = 2·y_c − y_out so that its centroid is y_c); n people
+    fill its outboard fraction f = min(1, n/(4·A)) of the width, whose centroid is
+    y_out − f·(y_out − y_in)/2 = y_out − f·(y_out − y_c).  f = 1 gives y_c, the whole area."""
+    y_c = pd.standing_tcg_m
+    y_out = breadth_m / 2.0 if pd.standing_outboard_m is None else pd.standing_outboard_m
+    y_out = max(y_out, y_c)
+    f = min(1.0, pd.count / (PASSENGERS_PER_M2 * pd.standing_area_m2))
+    return y_out - f * (y_out - y_c)
+
+
 def passenger_criteria(vessel: Vessel, a: Afloat) -> tuple[list[CriterionResult], list[str]]:
     """IS 2008 Part A 3.1: heel from crowding and from turning, each ≤ 10° (standards.md §3.1).
 
-    Crowding: heeling lever n·m·y/Δ, y the centroid of the standing area on one side, the
-    passengers' mass taken as already in the condition near the centreline.  Turning:
+    Crowding: heeling lever n·m·y/Δ, y where the crowd stands on one side (:func:`crowding_tcg_m`),
+    the passengers' mass taken as already in the condition near the centreline.  Turning:
     MR/(g·Δ) = 0.2·v0²·(KG − d/2)/(g·Lwl) (the 0.2/g form; formula from memory), v0 in m/s.
     Both levers are held constant with heel (conservative; common practice), and the heel
     is where GZ first reaches the lever.
@@ -270,7 +287,8 @@ def passenger_criteria(vessel: Vessel, a: Afloat) -> tuple[list[CriterionResult]
     src = "IS Code 2008 Part A 3.1"
     if pd is None:
         return [], notes
-    lever_c = pd.count * pd.mass_per_person_t * pd.standing_tcg_m / a.displacement_t
+    y_crowd = crowding_tcg_m(pd, vessel.particulars.breadth_m)
+    lever_c = pd.count * pd.mass_per_person_t * y_crowd / a.displacement_t
     if pd.count > PASSENGERS_PER_M2 * pd.standing_area_m2:
         notes.append(f"{pd.count} passengers need {pd.count / PASSENGERS_PER_M2:.0f} m² at 4 per m² "
                      f"(from memory); the standing area is {pd.standing_area_m2:g} m²: all taken at its centroid")
@@ -281,7 +299,9 @@ def passenger_criteria(vessel: Vessel, a: Afloat) -> tuple[list[CriterionResult]
     out = []
     for cid, desc, lever, extra in (
         ("IS2008-A3.1-crowding", "Heel from passengers crowding to one side", lever_c,
-         f"{pd.count} × {pd.mass_per_person_t:g} t at {pd.standing_tcg_m:g} m"),
+         f"{pd.count} × {pd.mass_per_person_t:g} t at {y_crowd:.3f} m from the centreline, "
+         + ("the standing area's centroid" if y_crowd == pd.standing_tcg_m else
+            f"the outboard part of the standing area they fill at {PASSENGERS_PER_M2:g} per m²")),
         ("IS2008-A3.1-turning", "Heel from turning at service speed", lever_t,
          f"{pd.service_speed_kn:g} kn, 0.2·v²·(KG − d/2)/(g·Lwl) from memory"
          + ("" if wind is not None else ", Lwl taken as LBP")),

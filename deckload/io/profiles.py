@@ -890,9 +890,17 @@ def _read_passengers(root: Table, particulars: m.Particulars | None,
     count = t.num("count", between(1.0, 10000.0))
     mass = t.num("mass_per_person_t", between(0.060, 0.150, "t", "75 kg each, not below 60 kg: A.749 3.5.2.6"))
     area = t.num("standing_area_m2", positive)
-    tcg = t.num("standing_tcg_m", between(0.0, half_b, "m", "from the centreline, at most half the breadth"))
-    speed = t.num("service_speed_kn", between(0.0, 60.0, "kn"))
+    # A centroid on the centreline, or no speed, would make a heeling lever of nil: never a pass.
+    tcg = t.num("standing_tcg_m", positive, between(0.0, half_b, "m", "from the centreline, at most half the breadth"))
+    outboard = t.num("standing_outboard_m", positive,
+                     between(0.0, half_b, "m", "from the centreline, at most half the breadth"), required=False)
+    speed = t.num("service_speed_kn", positive, between(0.0, 60.0, "kn"))
     t.finish()
+    if outboard is not None and tcg is not None and outboard < tcg:
+        t.bad("standing_outboard_m", t.data["standing_outboard_m"],
+              f"the area's outboard edge must lie at or beyond its centroid (standing_tcg_m = {num(tcg)} m)")
+        outboard = None
+        tcg = None
     if count is not None and count != int(count):
         t.bad("count", t.data["count"], "must be a whole number of passengers")
         count = None
@@ -902,7 +910,7 @@ def _read_passengers(root: Table, particulars: m.Particulars | None,
         return None
     if None in (count, mass, area, tcg, speed):
         return None
-    return m.PassengerData(int(count), mass, area, tcg, speed)
+    return m.PassengerData(int(count), mass, area, tcg, speed, outboard)
 
 
 def _read_load_lines(root: Table, hydro: m.HydrostaticTable | None, frame: Frame | None, rd: Reading) -> list[m.LoadLine]:
