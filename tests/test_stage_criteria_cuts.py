@@ -173,6 +173,6 @@ def test_verdict_notes_are_cautions_coded_by_what_they_say():
     v, c = _box()
     crate = DeckItem("hidden crate", 1e-6, BOX_L / 2, 12.5, 0.0)
     r = evaluate(v, c.with_deck_items((crate,)))
-    assert [(w.code, w.message, w.severity) for w in r.warnings if "windage" in w.message] == [
+    assert [(w.code, w.message, w.severity) for w in r.warnings if w.code == "verdict-note" and "windage" in w.message] == [
         ("verdict-note", "weather criterion: no windage given for deck item(s) hidden crate; their side area "
-         "is not included", "caution")]
+         "is not included, so a pass cannot be told (give windage_area_m2, 0 where sheltered)", "caution")]

@@ -94,20 +94,50 @@ def test_weather_with_deck_cargo_windage_and_an_item_without_it():
     assert w.waterline_length_m == 40.0
     assert w.theta0_limit_deg == 16.0
     assert w.deck_edge_angle_deg == pytest.approx(math.degrees(math.atan(0.6)), abs=1e-9)
+    # Both met on these numbers, but the anchor's and the hatch cover's side area would only add to
+    # the wind's lever (verdict._without_deck_windage, derived there): a pass cannot be told.
+    unknown = "met without the side area of deck item(s) Spare anchor, Hatch cover, which state no windage; " \
+              "with it the wind can only heel her further: not assessable; "
     t0 = crit(r, "IS2008-A2.3-theta0")
-    assert t0.value == w.theta0_deg and t0.limit == 16.0 and t0.comparison == "<=" and t0.passed
+    assert t0.value == w.theta0_deg and t0.limit == 16.0 and t0.comparison == "<="
+    assert (t0.assessed, t0.passed) == (False, False)
     assert t0.source == "IS Code 2008 Part A 2.3.1.2" and t0.set_id == "IS2008-A2.3"
-    assert t0.note == ("limit min(16°, 0.8 × deck edge 31.0°); P 504 Pa, A 150.0 m² incl. deck cargo 30.0 m², "
-                       "Z 3.70 m, lw1 0.0232 m")
+    assert t0.note == unknown + ("limit min(16°, 0.8 × deck edge 31.0°); P 504 Pa, A 150.0 m² incl. deck cargo "
+                                 "30.0 m², Z 3.70 m, lw1 0.0232 m")
     ab = crit(r, "IS2008-A2.3-area-b-a")
     assert ab.source == "IS Code 2008 Part A 2.3.1.4 (A.749 3.2.2.1.4)" and ab.unit == "m·rad"
-    assert (ab.value, ab.limit) == (w.area_b_mrad, w.area_a_mrad) and ab.passed and ab.assessed
+    assert (ab.value, ab.limit) == (w.area_b_mrad, w.area_a_mrad) and (ab.assessed, ab.passed) == (False, False)
     # the note shows the roll angle and θ2 of the numbers above (in range of the roll tables:
     # B/d 3.33 < 3.5, OG/d 0, so no validity note)
-    assert ab.note == f"θ1 {w.theta1_deg:.1f}°, θ2 {w.theta2_deg:.1f}°"
+    assert ab.note == unknown + f"θ1 {w.theta1_deg:.1f}°, θ2 {w.theta2_deg:.1f}°"
     assert warning_texts(r, "verdict-note") == [
         "weather criterion: no windage given for deck item(s) Spare anchor, Hatch cover; their side area is not "
-        "included"]
+        "included, so a pass cannot be told (give windage_area_m2, 0 where sheltered)"]
+    assert r.verdict_text().startswith("Met where assessable, 2 criteria not assessable")
+    # stated as nil (sheltered): the same numbers, judged
+    sheltered = tuple(dataclasses.replace(d, windage_area_m2=0.0, windage_centroid_z_m=7.0) for d in (anchor, hatch))
+    r0 = evaluate(*box(3.0, 3.0, deck_items=(stack, *sheltered)))
+    assert r0.weather.lw1_m == pytest.approx(lw1, rel=1e-9)
+    assert [(c.assessed, c.passed) for c in r0.criteria if c.set_id == "IS2008-A2.3"] == [(True, True), (True, True)]
+
+
+def test_weather_failed_without_some_deck_windage_stays_failed():
+    """KG 4.1 m on the same box (GM0 = 4.2778 − 4.1 = 0.178 m) with a deck stack stating 250 m² of side
+    area centred 9 m above the keel: θ0 fails its 16° (about 17.3°) while b still covers a.  The
+    anchor's missing side area could only make both worse (derived in verdict._without_deck_windage):
+    θ0's failure stands and says so; b against a, met without it, cannot be told."""
+    stack = DeckItem("Container stack", 30.0, 20.0, 8.0, windage_area_m2=250.0, windage_centroid_z_m=9.0)
+    anchor = DeckItem("Spare anchor", 6.0, 20.0, 7.0)
+    full = evaluate(*box(3.0, 4.1, deck_items=(stack, dataclasses.replace(anchor, windage_area_m2=0.0,
+                                                                           windage_centroid_z_m=7.0))))
+    assert [(c.id, c.passed) for c in full.criteria if c.set_id == "IS2008-A2.3"] == [
+        ("IS2008-A2.3-theta0", False), ("IS2008-A2.3-area-b-a", True)]
+    r = evaluate(*box(3.0, 4.1, deck_items=(stack, anchor)))
+    t0, ab = crit(r, "IS2008-A2.3-theta0"), crit(r, "IS2008-A2.3-area-b-a")
+    assert (t0.assessed, t0.passed) == (True, False) and t0.value == crit(full, "IS2008-A2.3-theta0").value
+    assert t0.note.startswith("fails even without the side area of deck item(s) Spare anchor (no windage stated); ")
+    assert (ab.assessed, ab.passed) == (False, False)
+    assert r.verdict_text().startswith("NOT MET (2 failed)")  # θ0 and A 2.2.1's area to 30° (GM0 0.18 m)
     assert warning_texts(r, "deck-edge-approximate") == [
         "deck-edge angle 31.0° approximate: wall-sided at midships, common practice (no deck-edge table)"]
 

@@ -241,9 +241,6 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
                      "m·rad", ">=", srcb, WEATHER_SET, note))
     if f.theta2_deg is None:
         return out, None, None, notes  # GZ never reaches lw2: no θ2 to report, the note says why
-    if a.deck_items_without_windage:
-        notes.append("weather criterion: no windage given for deck item(s) " + ", ".join(a.deck_items_without_windage)
-                     + "; their side area is not included")
     wr = WeatherResult(
         wind_pressure_pa=pressure, windage_area_m2=area, windage_lever_m=z, lw1_m=lw1, lw2_m=f.lw2_m,
         theta0_deg=f.theta0_deg, theta0_limit_deg=theta0_limit, theta1_deg=roll.theta1_deg,
@@ -254,6 +251,29 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
         waterline_length_m=lwl,
     )
     return out, wr, None, notes
+
+
+def _without_deck_windage(rows: list[CriterionResult], names: tuple[str, ...]) -> list[CriterionResult]:
+    """The weather criterion when deck items do not state their windage: a failure stands, a pass
+    cannot be told.
+
+    Derived: an item on deck adds side area A_i with its centre above the waterline, so the wind's
+    moment P·ΣA·Z grows (Z measured from half the draught below the waterline, IS 2008 A 2.3) and
+    lw1 = P·A·Z/(1000·g·Δ) with it; a larger lw1 raises θ0, and the larger lw2 = 1.5·lw1 grows area
+    a and shrinks area b (standards.md §2.1).  Each criterion can only get worse: one failed
+    without the items fails with them; one met may not be."""
+    which = ", ".join(names)
+    out = []
+    for c in rows:
+        if c.assessed and c.passed:
+            c = replace(c, passed=False, assessed=False,
+                        note=f"met without the side area of deck item(s) {which}, which state no windage; with it the "
+                             f"wind can only heel her further: not assessable; " + c.note)
+        elif c.assessed:
+            c = replace(c, note=f"fails even without the side area of deck item(s) {which} (no windage stated); "
+                                + c.note)
+        out.append(c)
+    return out
 
 
 def crowding_tcg_m(pd: PassengerData, breadth_m: float) -> float:
@@ -373,8 +393,10 @@ def extra_criteria(vessel: Vessel, a: Afloat, weather: list[CriterionResult],
                 else:
                     why = f"GZ never becomes positive up to {end:g}°, the curve's end"
         elif ec.kind == "max_wind_heel":
-            if theta0 is not None:
-                value = theta0.value
+            if theta0 is not None and (theta0.assessed or theta0.value > ec.limit):
+                value = theta0.value  # (not assessed: θ0 without some deck windage, the least it can be)
+            elif theta0 is not None:
+                why = "needs the weather criterion's steady-wind heel θ0: " + theta0.note
             else:
                 why = "needs the weather criterion's steady-wind heel: " + (
                     "the profile has no windage data" if windage_missing else "windage not available at this draft")
@@ -471,6 +493,11 @@ def assess(vessel: Vessel, a: Afloat, limit_curve: list[CriterionResult],
                 not_assessed.append(missing)
                 cautions.append(f"{missing.item} not assessed: {missing.reason}")
                 continue
+            if a.deck_items_without_windage:
+                weather_rows = _without_deck_windage(weather_rows, a.deck_items_without_windage)
+                cautions.append("weather criterion: no windage given for deck item(s) "
+                                + ", ".join(a.deck_items_without_windage) + "; their side area is not included, so "
+                                "a pass cannot be told (give windage_area_m2, 0 where sheltered)")
             criteria += weather_rows
         elif sid == PASSENGER_SET:
             rows, notes = passenger_criteria(vessel, a)
