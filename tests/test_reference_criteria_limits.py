@@ -116,3 +116,21 @@ def test_an_assessed_profile_criterion_carries_its_words_and_unit():
         "Heel under the steady wind lw1 (θ0)", 12.5, 16.0, "deg", "<=", True)
     assert r.source == "Flag notice 1/2026 para 4"
     assert r.set_id and r.set_id not in CRITERIA_SETS  # a set of its own, never an IS Code set
+
+
+def test_a_value_at_its_limit_by_binary_round_off_meets_it_and_shows_no_negative_margin():
+    """IS 2008 Part B 2.1 (fishing GM0 ≥ 0.35 m, standards.md §3.2 [M]) and Part A 2.2.4 word their
+    limits "not less than": the limit itself meets them.  A GM worked out from decimal data as
+    0.34999999999999964 m (0.35 less one unit in the last binary place's neighbourhood) is 0.35 m:
+    it meets 0.35, its margin is nil, and the view prints "+0.00" beside "pass", never "-0.00000"
+    beside "FAIL".  A shortfall of a micrometre still fails (result.LIMIT_ROUNDOFF = 1e-9)."""
+    from deckload.report import verdict_format as vf
+
+    at = 0.35 - 4e-16
+    assert at < 0.35
+    m = Measures(0.1, 0.2, 0.05, 0.3, 35.0, at)
+    gm0 = _by_suffix(evaluate_criteria("IS2008-B2.1", m), "gm0")
+    assert gm0.passed and gm0.margin == 0.0
+    assert vf.margin_text(gm0).strip() in ("+0.00", "+0.000") and "-" not in vf.value_text(gm0)
+    short = _by_suffix(evaluate_criteria("IS2008-B2.1", Measures(0.1, 0.2, 0.05, 0.3, 35.0, 0.35 - 1e-6)), "gm0")
+    assert not short.passed and short.margin < 0.0

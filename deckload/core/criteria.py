@@ -18,7 +18,7 @@ from __future__ import annotations
 import math
 
 from deckload.core.frozen import frozen
-from deckload.core.result import CriterionResult
+from deckload.core.result import CriterionResult, meets
 
 RAD_TO_DEG = 180.0 / math.pi
 
@@ -187,7 +187,7 @@ def evaluate_criteria(code: str, measures: Measures, min_gm_m: float | None = No
             limit = osv_area_limit_mrad(measures.max_gz_angle_deg)
             note = f"limit for θmax {measures.max_gz_angle_deg:.1f}°"
         value = getattr(measures, c.measure)
-        passed = bool(value >= limit) if c.comparison == ">=" else bool(value <= limit)
+        passed = meets(value, limit, c.comparison)
         if c.id == "IS2008-A2.2.3-angle-max-gz" and passed and value <= 30.0:
             note = "passes, but IS 2008 A 2.2.3 prefers the maximum beyond 30°"
         out.append(CriterionResult(c.id, c.description, value, limit, c.unit, c.comparison, passed, source, note,
@@ -199,10 +199,10 @@ def limit_curve_criterion(kind: str, limit: float, kg_fluid_m: float, gm_fluid_m
     """The approved limiting-KG (or minimum-GM) curve at this displacement (IS 2008 Part A 2.1.7)."""
     if kind == "max_kg_m":
         return CriterionResult("limit-curve-max-kg", "KG (fluid) within the limiting KG curve", kg_fluid_m,
-                               limit, "m", "<=", bool(kg_fluid_m <= limit), "vessel profile limiting-KG curve",
+                               limit, "m", "<=", meets(kg_fluid_m, limit, "<="), "vessel profile limiting-KG curve",
                                set_id=LIMIT_CURVE_SET)
     return CriterionResult("limit-curve-min-gm", "GM (fluid) above the minimum GM curve", gm_fluid_m,
-                           limit, "m", ">=", bool(gm_fluid_m >= limit), "vessel profile minimum-GM curve",
+                           limit, "m", ">=", meets(gm_fluid_m, limit, ">="), "vessel profile minimum-GM curve",
                            set_id=LIMIT_CURVE_SET)
 
 
@@ -228,5 +228,5 @@ def extra_criterion_result(n: int, ec, value: float | None, why_not: str = "", n
     if value is None:
         return CriterionResult(cid, desc, 0.0, ec.limit, unit, comp, False, ec.source, why_not,
                                set_id=EXTRA_SET, assessed=False)
-    passed = bool(value >= ec.limit) if comp == ">=" else bool(value <= ec.limit)
+    passed = meets(value, ec.limit, comp)
     return CriterionResult(cid, desc, value, ec.limit, unit, comp, passed, ec.source, note, set_id=EXTRA_SET)

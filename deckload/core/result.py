@@ -57,6 +57,19 @@ class ItemResult:
     tcg_m: float
 
 
+LIMIT_ROUNDOFF = 1e-9
+"""Relative allowance at a criterion's limit for binary round-off (× max(1, |limit|)): a GM worked
+out as 0.34999999999999964 m from 0.35 m of typed data meets 0.35 m.  A millionth of a millimetre
+or of a degree: no measurement or table is that fine."""
+
+
+def meets(value: float, limit: float, comparison: str) -> bool:
+    """``value`` against ``limit`` by ``comparison`` ('>=' or '<='), the limit itself included
+    (IS 2008 words its limits "not less than" / "not more than"), to :data:`LIMIT_ROUNDOFF`."""
+    tol = LIMIT_ROUNDOFF * max(1.0, abs(limit))
+    return bool(value >= limit - tol) if comparison == ">=" else bool(value <= limit + tol)
+
+
 @frozen
 class CriterionResult:
     """One criterion assessed: the value, the limit, pass or fail, and its source."""
@@ -87,8 +100,10 @@ class CriterionResult:
     def margin(self) -> float:
         """Distance to the limit in the passing direction (negative when failed).
 
-        Not meaningful when ``assessed`` is False."""
-        return self.value - self.limit if self.comparison == ">=" else self.limit - self.value
+        Not meaningful when ``assessed`` is False; nil within :data:`LIMIT_ROUNDOFF` of the limit, as
+        :func:`meets` takes it (a "−0.00000" beside a pass would contradict it)."""
+        m = self.value - self.limit if self.comparison == ">=" else self.limit - self.value
+        return 0.0 if abs(m) <= LIMIT_ROUNDOFF * max(1.0, abs(self.limit)) else m
 
     @property
     def margin_fraction(self) -> float:

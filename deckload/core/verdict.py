@@ -35,7 +35,7 @@ from deckload.core.criteria import (
 )
 from deckload.core.frozen import frozen
 from deckload.core.model import PassengerData, Vessel
-from deckload.core.result import AssessedSet, CriterionResult, NotAssessed, WeatherResult
+from deckload.core.result import AssessedSet, CriterionResult, NotAssessed, WeatherResult, meets
 from deckload.core.tables import OutOfRangeError, interp
 
 IS_CODE_MIN_LENGTH_M = 24.0
@@ -103,7 +103,7 @@ class Verdict:
 
 def _crit(cid: str, desc: str, value: float, limit: float, unit: str, comp: str, source: str,
           set_id: str, note: str = "", assessed: bool = True) -> CriterionResult:
-    passed = assessed and (bool(value >= limit) if comp == ">=" else bool(value <= limit))
+    passed = assessed and meets(value, limit, comp)
     return CriterionResult(cid, desc, value, limit, unit, comp, passed, source, note, set_id=set_id,
                            assessed=assessed)
 
