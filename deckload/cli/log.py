@@ -10,6 +10,7 @@ from __future__ import annotations
 import csv
 import html as htmllib
 import io
+import os
 import sys
 import textwrap
 from pathlib import Path
@@ -22,7 +23,6 @@ from deckload.logbook import (
     Logbook,
     LogLockedError,
     log_files,
-    vessel_of_log,
 )
 
 CAUTION = vf.CAUTION
@@ -53,6 +53,15 @@ def run_log(args) -> int:
             return _export(args)
         if args.log_command == "verify":
             return _verify(args)
+    except BrokenPipeError:
+        # The reader of standard output (e.g. `| head`) went away: what was printed is cut short.
+        # ('record' catches it itself once the entry is on disk: see _record.)
+        _stdout_gone()
+        done = {"record": "; nothing was recorded",
+                "export": "; the export is incomplete"}.get(args.log_command, "")
+        print(f"deckload log {args.log_command}: output cut short: standard output was closed (broken pipe){done}",
+              file=sys.stderr)
+        return 2
     except OSError as e:
         done = {"record": "nothing was recorded", "export": "nothing was exported"}.get(args.log_command, "")
         where = e.filename or str(_log_dir(args))
@@ -60,6 +69,25 @@ def run_log(args) -> int:
         return 2
     print(f"deckload log: unknown command {args.log_command!r}", file=sys.stderr)
     return 2
+
+
+def _stdout_gone() -> None:
+    """Standard output's reader has gone: send what is left to /dev/null, so that Python's flush
+    at exit does not fail on the closed pipe (and print a traceback-like line)."""
+    sys.stdout = open(os.devnull, "w")
+
+
+def one_line(text: str) -> str:
+    """``text`` for one printed line: a line feed, carriage return or tab stored in it is written as a
+    visible escape, so that a stored remark can never draw a row of its own (the others are escaped
+    already where the log is read)."""
+    return text.replace("\r", "\\r").replace("\n", "\\n").replace("\t", "\\t")
+
+
+def joined_remark(text: str) -> str:
+    """A remark given on the command line as one line: its lines joined by a space, as the screen's
+    remark field joins a pasted text (ui/dialogs.RemarkInput), tabs made spaces."""
+    return " ".join(part.strip() for part in text.replace("\t", " ").splitlines() if part.strip())
 
 
 # --------------------------------------------------------------------------- record
@@ -97,7 +125,7 @@ def _record(args) -> int:
             change_data={"profile": str(args.profile), "condition_file": str(args.condition)},
             result=result,
             condition=condition,
-            remark=args.remark,
+            remark=joined_remark(args.remark),
         )
     except (LogLockedError, ValueError) as e:
         print(f"deckload: cannot record: {e}", file=sys.stderr)
@@ -111,13 +139,22 @@ def _record(args) -> int:
     if book.head_problem:
         print(f"deckload: warning: {book.head_path}: {book.head_problem} (the entry itself is recorded)",
               file=sys.stderr)
-    print(
-        f"Recorded entry #{entry.seq} in {book.path} at {entry.utc:%Y-%m-%d %H:%M:%S} UTC by {entry.by}: "
-        f"Δ {result.displacement_t:.1f} t, GM fluid {result.gm_fluid_m:.3f} m."
-    )
-    for line in vf.verdict_lines(result, 100, "  "):
-        print(line)
-    print(CAUTION)
+    try:
+        print(
+            f"Recorded entry #{entry.seq} in {book.path} at {entry.utc:%Y-%m-%d %H:%M:%S} UTC by {entry.by}: "
+            f"Δ {result.displacement_t:.1f} t, GM fluid {result.gm_fluid_m:.3f} m."
+        )
+        for line in vf.verdict_lines(result, 100, "  "):
+            print(line)
+        print(CAUTION)
+        sys.stdout.flush()
+    except OSError as e:
+        # The entry is on disk: saying otherwise would invite a second, duplicate record.
+        if isinstance(e, BrokenPipeError):
+            _stdout_gone()
+        print(f"deckload: entry #{entry.seq} was recorded in {book.path}; then printing its summary failed: "
+              f"{e.strerror or e} (do not record it again)", file=sys.stderr)
+        return 2 if not isinstance(e, BrokenPipeError) else 0
     return 0
 
 
@@ -134,7 +171,9 @@ def _books(args) -> list[Logbook]:
             book.close()
             raise FileNotFoundError(2, f"no log for vessel {vessel!r}", str(book.path))
         return [book]
-    return [Logbook.open(directory, vessel_of_log(p), readonly=True) for p in log_files(directory)]
+    # Each file found is read as itself, the log of the vessel its file name says: the name
+    # written inside it chooses nothing (verify reports an entry that records another vessel).
+    return [Logbook.open_file(p, readonly=True) for p in log_files(directory)]
 
 
 def _fmt(x, digits: int = 3) -> str:
@@ -195,6 +234,11 @@ def broken_words(path: Path, problems: list[str]) -> str:
             "do not sign this copy as the voyage record.")
 
 
+def damaged_row(path: Path, problem: str) -> str:
+    """A log line that cannot be shown, in its place among the entries: the file, the line and why."""
+    return f"   !  DAMAGED {path.name} {problem} — left out (run 'deckload log verify')"
+
+
 def _show(args) -> int:
     books = _books(args)
     if not books:
@@ -208,21 +252,24 @@ def _show(args) -> int:
             if not rep.ok:
                 broken += 1
                 print(f"  ! {broken_words(book.path, rep.problems)}")
-            print(f"{book.vessel_name} — {book.path} ({len(entries)} entries)")
+            print(f"{one_line(book.vessel_name)} — {book.path} ({len(entries)} entries)")
             print(f"{'#':>4}  {'UTC':<19}  {'ship':<5}  {'by':<4}  {'kind':<9}  {'GM fl m':>7}  {'criteria':<14}  change")
+            damaged = list(book.skipped_lines)
             for e in entries:
+                while damaged and damaged[0][0] < e.line_no:
+                    print(damaged_row(book.path, damaged.pop(0)[1]))
                 r = entry_row(e)
                 print(
-                    f"{e.seq:>4}  {e.utc:%Y-%m-%d %H:%M:%S}  {e.ship_time:%H:%M}  {e.by:<4}  {e.kind:<9}  "
-                    f"{r['gm_fluid_m']:>7}  {vf.stored_short(e.summary):<14}  {e.change_text}"
-                    + (f" — {e.remark}" if e.remark else "")
+                    f"{e.seq:>4}  {e.utc:%Y-%m-%d %H:%M:%S}  {e.ship_time:%H:%M}  {one_line(e.by):<4}  "
+                    f"{one_line(e.kind):<9}  {r['gm_fluid_m']:>7}  {vf.stored_short(e.summary):<14}  "
+                    f"{one_line(e.change_text)}" + (f" — {one_line(e.remark)}" if e.remark else "")
                 )
                 na = (e.summary or {}).get("not_assessed")
                 if na:
                     text = "not assessed: " + vf.grouped_not_assessed((x.get("item"), x.get("reason")) for x in na)
                     print("\n".join(textwrap.wrap(text, 110, initial_indent=" " * 6, subsequent_indent=" " * 8)))
-            for s in book.skipped:
-                print(f"  ! unreadable: {s} (run 'deckload log verify')")
+            for _, s in damaged:
+                print(damaged_row(book.path, s))
             print()
         finally:
             book.close()
@@ -239,9 +286,11 @@ def export_csv(entries: list[LogEntry]) -> str:
     return buf.getvalue()
 
 
-def export_html(books: list[tuple[str, list[LogEntry]]], broken: dict[str, str] | None = None) -> str:
+def export_html(books: list[tuple[str, list[LogEntry]]], broken: dict[str, str] | None = None,
+                damaged: dict[str, list[str]] | None = None) -> str:
     """The log(s) as one printable HTML page (A4 landscape); ``broken`` maps a vessel to the words
-    (:func:`broken_words`) printed above her table when her log fails verification."""
+    (:func:`broken_words`) printed above her table when her log fails verification, ``damaged`` to
+    the lines of her log that could not be read (file, line and why), printed below it."""
     cols = ("seq", "utc", "ship_time", "by", "kind", "change", "remark", "displacement_t", "draft_fwd_m",
             "draft_aft_m", "trim_m", "list_deg", "gm_fluid_m", "fsc_m", "freeboard_m", "criteria_pass",
             "criteria_sets", "not_assessed", "smallest_margin_criterion", "smallest_margin")
@@ -278,6 +327,8 @@ def export_html(books: list[tuple[str, list[LogEntry]]], broken: dict[str, str] 
                 cells.append(f"<td{cls}>{htmllib.escape(r[c])}</td>")
             out.append("<tr>" + "".join(cells) + "</tr>")
         out.append("</tbody></table>")
+        for words in (damaged or {}).get(vessel, []):
+            out.append(f'<p class="broken">DAMAGED, left out: {htmllib.escape(words)}</p>')
         if entries:
             out.append(f"<p>Newest entry #{entries[-1].seq}, SHA-256 <code>{entries[-1].sha256}</code></p>")
     out.append(f"<p><strong>{htmllib.escape(CAUTION)}</strong></p>")
@@ -297,7 +348,7 @@ def _export(args) -> int:
     books = _books(args)
     try:
         data = [(b.vessel_name, b.entries()) for b in books]
-        skipped = [s for b in books for s in b.skipped]
+        skipped = [f"{b.path.name} {s}" for b in books for s in b.skipped]
         reports = [(b, b.verify()) for b in books]
     finally:
         for b in books:
@@ -310,7 +361,8 @@ def _export(args) -> int:
     if args.csv:
         text = export_csv([e for _, es in data for e in es])
     else:
-        text = export_html(data, broken)
+        text = export_html(data, broken, {b.vessel_name: [f"{b.path.name} {s}" for s in b.skipped]
+                                          for b in books if b.skipped})
     if args.output is None:
         sys.stdout.write(text)
         return 1 if broken else 0
@@ -323,12 +375,17 @@ def _export(args) -> int:
 def _verify(args) -> int:
     directory = _log_dir(args)
     if getattr(args, "recover", False):
-        vessels = [args.vessel] if getattr(args, "vessel", None) else [vessel_of_log(p) for p in log_files(directory)]
-        for v in vessels:
-            with Logbook.open(directory, v) as b:
+        if getattr(args, "vessel", None):
+            opened = [lambda: Logbook.open(directory, args.vessel)]
+        else:  # the files found, each as itself: never a file named from what is written inside one
+            opened = [lambda p=p: Logbook.open_file(p, readonly=False) for p in log_files(directory)]
+        for open_one in opened:
+            with open_one() as b:
                 if b.recovered_torn is not None:
                     print(f"recovered: {b.recovered_torn}")
-                if b.readonly:
+                if b.readonly and not b.path.exists():
+                    print(f"{b.path.name}: missing; nothing to recover")
+                elif b.readonly:
                     print(f"{b.path.name}: not opened for writing: {b.readonly_reason}")
     books = _books(args)
     against = getattr(args, "against", None)

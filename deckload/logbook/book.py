@@ -18,7 +18,7 @@ from deckload.core.model import Condition
 from deckload.core.result import Result
 from deckload.io.limits import MAX_LOG_LINE_BYTES
 from deckload.io.paths import vessel_slug
-from deckload.io.textsafe import control_char
+from deckload.io.textsafe import control_char, escaped
 from deckload.logbook import lock as locking
 from deckload.logbook.chain import GENESIS_SHA256, VerifyReport, find_anchor, head_disagreement, verify_lines
 from deckload.logbook.clock import configured_offset, format_offset, format_utc, parse_offset, utc_now
@@ -60,6 +60,10 @@ class Logbook:
         self._cache: tuple[tuple[int, int], list[LogEntry]] | None = None
         self.skipped: list[str] = []
         """Lines :meth:`entries` could not read at its last call, each naming its line."""
+        self.skipped_lines: list[tuple[int, str]] = []
+        """The same, as (line number, what is wrong), for a view that shows them in their place."""
+        self.by_file = False
+        """Opened by :meth:`open_file`: the log of the vessel its file name says, for reading and checking."""
         self.head_problem: str | None = None
         """Set when an append reached the disk but the head record could not be updated."""
         self._clock: Callable[[], datetime] = utc_now
@@ -83,9 +87,36 @@ class Logbook:
         :func:`utc_now` (tests).  If another process holds the writer's lock the log
         opens read-only with :attr:`readonly_reason` saying so.
         """
+        return cls._open(Path(directory), vessel_slug(vessel_name), vessel_name, readonly=readonly,
+                         ship_offset=ship_offset, clock=clock)
+
+    @classmethod
+    def open_file(cls, path: Path, *, readonly: bool = True) -> "Logbook":
+        """Open the log file ``path`` found in a log folder (``<slug>.log.jsonl``), for reading and
+        checking (``readonly=False`` takes the writer's lock to set a torn tail aside; it never records).
+
+        The file is what is read, whatever its lines say: the vessel is the one its file name
+        names (:meth:`verify` reports an entry recording another), and :attr:`vessel_name` is
+        the name the entries record when it is that vessel's, else the file name's slug.  A
+        vessel name read from inside a file never chooses which file is opened or made.
+        """
+        path = Path(path)
+        slug = path.name.removesuffix(".log.jsonl")
+        if not readonly and not path.exists():
+            readonly = True  # (a writer would create it: a missing log is evidence verify reports)
+        self = cls._open(path.parent, slug, slug, readonly=readonly, by_file=True)
+        try:
+            self.vessel_name = next((e.vessel for e in self.entries() if vessel_slug(e.vessel) == slug), slug)
+        except BaseException:
+            self.close()
+            raise
+        return self
+
+    @classmethod
+    def _open(cls, directory: Path, slug: str, vessel_name: str, *, readonly: bool, ship_offset: str | None = None,
+              clock: Callable[[], datetime] | None = None, by_file: bool = False) -> "Logbook":
         self = cls()
-        directory = Path(directory)
-        slug = vessel_slug(vessel_name)
+        self.by_file = by_file
         self.vessel_name = vessel_name
         self.path = directory / f"{slug}.log.jsonl"
         self.head_path = directory / f"{slug}.log.head.json"
@@ -138,6 +169,17 @@ class Logbook:
                 f"{self.head_path.name} aside)"
             )
             return
+        if not self.by_file:
+            other = _other_vessel(lines, self.vessel_name)
+            if other is not None:
+                self.close()
+                self.readonly = True
+                self.readonly_reason = (
+                    f"{self.path.name} holds entries of another vessel: line {other[0]} records {other[1]!r}, not "
+                    f"{self.vessel_name!r}; nothing will be recorded in it (run 'deckload log verify'; to start "
+                    f"this vessel's log, move {self.path.name} and {self.head_path.name} aside)"
+                )
+                return
         if torn:
             self.recovered_torn = self._store.set_aside_torn(torn, len(lines) + 1, self._clock())
         if lines:
@@ -172,6 +214,9 @@ class Logbook:
         """
         if self.readonly or self._store is None or self._store.fd is None:
             raise LogLockedError(f"{self.path.name}: {self.readonly_reason or 'log is closed'}")
+        if self.by_file:
+            raise LogLockedError(f"{self.path.name}: opened from its file name for checking; "
+                                 "a vessel's entries are recorded through her profile")
         if kind not in KINDS:
             raise ValueError(f"kind {kind!r} is not one of: {', '.join(KINDS)}")
         initials = validate_initials(by)
@@ -242,20 +287,21 @@ class Logbook:
         try:
             st = os.stat(self.path)
         except FileNotFoundError:
-            self.skipped = []
+            self.skipped, self.skipped_lines = [], []
             return []
         key = (st.st_size, st.st_mtime_ns)
         if self._cache is None or self._cache[0] != key:
             lines, _tail = _split_lines(self._read())
             out: list[LogEntry] = []
-            skipped: list[str] = []
+            skipped: list[tuple[int, str]] = []
             for i, line in enumerate(lines, start=1):
                 try:
                     out.append(_entry_from_line(line, i))
                 except LogFormatError as exc:
-                    skipped.append(str(exc))
+                    skipped.append((i, str(exc)))
             self._cache = (key, out)
-            self.skipped = skipped
+            self.skipped_lines = skipped
+            self.skipped = [s for _, s in skipped]
         return list(self._cache[1])
 
     def writer_active(self) -> bool:
@@ -274,8 +320,9 @@ class Logbook:
             return VerifyReport(ok=False, entries=0, notes=[], problems=[
                 f"{self.path.name}: missing, but its head record {self.head_path.name} names entry "
                 f"#{head.get('seq')} — the log was deleted or moved (tampering suspected)"])
-        return verify_lines(lines, tail, head, self.vessel_name,
-                            writer_active=self.writer_active() and not self._lock.held)
+        return verify_lines(lines, tail, head, None if self.by_file else self.vessel_name,
+                            writer_active=self.writer_active() and not self._lock.held,
+                            file_name=self.path.name if self.by_file else None)
 
     @property
     def newest(self) -> tuple[int, str] | None:
@@ -300,6 +347,21 @@ class Logbook:
             self.close()
         except Exception:
             pass
+
+
+def _other_vessel(lines: list[bytes], vessel_name: str) -> tuple[int, str] | None:
+    """(line, vessel) of the first readable entry that records a vessel other than ``vessel_name``."""
+    import json
+
+    for i, line in enumerate(lines, start=1):
+        try:
+            obj = json.loads(line.decode("utf-8"))
+        except (ValueError, RecursionError):
+            continue  # (an unreadable line is verify's to report)
+        vessel = obj.get("vessel") if isinstance(obj, dict) else None
+        if isinstance(vessel, str) and vessel != vessel_name:
+            return i, escaped(vessel)
+    return None
 
 
 def anchor(directory: Path, vessel_name: str) -> tuple[int, str] | None:

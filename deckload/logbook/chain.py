@@ -16,6 +16,7 @@ import re
 from dataclasses import field
 
 from deckload.core.frozen import frozen
+from deckload.io.paths import vessel_slug
 from deckload.logbook.records import KINDS, LogFormatError, _entry_from_line, sha256_hex
 
 GENESIS_SHA256 = "0" * 64
@@ -44,6 +45,7 @@ def verify_lines(
     head: dict | None,
     vessel_name: str | None,
     writer_active: bool = False,
+    file_name: str | None = None,
 ) -> VerifyReport:
     """Check the chain of ``lines`` (complete lines, no '\\n') and the head record.
 
@@ -52,22 +54,32 @@ def verify_lines(
     so the next line's ``prev_sha256`` no longer matches it; a removed, inserted or
     moved line breaks both the numbering and the chain at the place it happened.
     The newest line is checked against the head record.
+
+    Every entry must record ``vessel_name``; when the log was found by its file (``file_name``,
+    ``<slug>.log.jsonl``, and ``vessel_name`` None) every entry must record a vessel whose
+    file name is that one, and all the same vessel: a log whose first line was edited to name
+    another vessel, or another vessel's log saved under this one's name, is a problem.
     """
     problems: list[str] = []
     notes: list[str] = []
     prev_sha = GENESIS_SHA256
     seqs: list[int | None] = []
+    unsound: set[int] = set()  # lines unreadable, or not chained or numbered from the line before
+    recorded: tuple[int, str] | None = None  # (line, vessel) of the first entry, for a log found by its file
     offset = 0  # seq − line number: changes exactly where entries were removed, inserted or moved
     for i, line in enumerate(lines, start=1):
         try:
             e = _entry_from_line(line, i)
         except LogFormatError as exc:
             problems.append(f"{exc} — the line was damaged or edited")
+            unsound.add(i)
             seqs.append(None)
             prev_sha = sha256_hex(line)
             continue
         seqs.append(e.seq)
         chained = e.prev_sha256 == prev_sha
+        if not chained or e.seq - i != offset:
+            unsound.add(i)
         if e.seq - i != offset:
             offset = e.seq - i
             before = seqs[-2] if len(seqs) > 1 else None
@@ -86,6 +98,16 @@ def verify_lines(
             )
         if vessel_name is not None and e.vessel != vessel_name:
             problems.append(f"line {i}: vessel {e.vessel!r}, but this log belongs to {vessel_name!r}")
+        elif file_name is not None and vessel_slug(e.vessel) != file_name.removesuffix(".log.jsonl"):
+            problems.append(f"line {i}: vessel {e.vessel!r}, but the file {file_name} is the log of the vessel "
+                            f"its name says ({file_name.removesuffix('.log.jsonl')!r}) — the line was edited, "
+                            "or another vessel's log was saved under this name")
+        elif file_name is not None:
+            if recorded is None:
+                recorded = (i, e.vessel)
+            elif e.vessel != recorded[1]:
+                problems.append(f"line {i}: vessel {e.vessel!r}, but line {recorded[0]} records "
+                                f"{recorded[1]!r} — one log holds one vessel's entries")
         if e.kind not in KINDS:
             problems.append(f"line {i}: kind {e.kind!r} is not one of {', '.join(KINDS)}")
         prev_sha = sha256_hex(line)
@@ -140,9 +162,13 @@ def verify_lines(
                     f"or replaced"
                 )
             elif at < n:
+                after = f"line {n}" if at + 1 == n else f"lines {at + 1}–{n}"
+                sound = not any(at < k <= n for k in unsound)
                 notes.append(
                     f"head record is {n - at} entr{'y' if n - at == 1 else 'ies'} behind (power cut between "
-                    f"an append and its head update); lines {at + 1}–{n} chain correctly from it"
+                    f"an append and its head update); "
+                    + (f"{after} {'chains' if at + 1 == n else 'chain'} correctly from it" if sound
+                       else f"{after}, after it: see the problems above")
                 )
     return VerifyReport(
         ok=not problems,

@@ -16,6 +16,7 @@ import re
 from datetime import datetime
 from typing import Any, Iterable
 
+from deckload.core import bounds
 from deckload.core.deadweight import deadweight_by_kind
 from deckload.core.frozen import frozen
 from deckload.core.model import Condition
@@ -71,6 +72,121 @@ _REQUIRED: dict[str, type | tuple[type, ...]] = {
 
 class LogFormatError(ValueError):
     """A log line could not be read; the message names the file and line."""
+
+
+# ----------------------------------------------------------------- what a stored summary may hold
+#
+# deckload writes a summary only from a Result whose every number is finite (core/bounds.bounded)
+# and with ``allow_nan=False``: a number outside what the evaluation can give was put there by
+# hand, and must never be shown as if deckload had computed it.
+
+_MAX_LENGTH_M = bounds.LENGTH_FACTOR * bounds.LBP_RANGE_M[1]
+"""600 m: the hull box of the longest ship a profile may describe (1.2 × LBP 500 m,
+core/bounds.py): no draft, trim, freeboard or heeling lever of hers is longer."""
+_MAX_LEVER_M = 1.0e4
+"""A GM, KG fluid, free-surface correction or criterion value (m, m·rad or degrees) of at most
+10 km: BMt = B²/(12·T) of the broadest hull a profile may describe (B = 100 m, core/bounds.py)
+reaches it only at a draft of 8 cm (derived for a box); a GM beyond is no ship's."""
+_MAX_MASS_T = (bounds.LENGTH_FACTOR * bounds.LBP_RANGE_M[1] * bounds.BEAM_DEPTH_RANGE_M[1]
+               * (bounds.BEAM_DEPTH_RANGE_M[1] + bounds.ABOVE_DEPTH_M) * bounds.WATER_DENSITY_RANGE_T_M3[1])
+"""The hull box of the largest particulars a profile may describe (1.2·500 × 100 × (100 + 30) m,
+core/bounds.py) full of the densest sea water: no displacement or deadweight is larger (derived)."""
+
+_LENGTH = bounds.Range(-_MAX_LENGTH_M, _MAX_LENGTH_M, "m", "no length of a ship exceeds her hull box, at most "
+                       "1.2 × 500 m")
+_LEVER = bounds.Range(-_MAX_LEVER_M, _MAX_LEVER_M, "m", "beyond any ship's stability")
+_CRITERION = bounds.Range(-_MAX_LEVER_M, _MAX_LEVER_M, "in the criterion's unit", "beyond any ship's stability")
+_MASS = bounds.Range(-_MAX_MASS_T, _MAX_MASS_T, "t", "more than the largest hull box full of sea water")
+_ANGLE = bounds.Range(-180.0, 180.0, "°", "an angle of heel")
+_DENSITY = bounds.Range(*bounds.WATER_DENSITY_RANGE_T_M3, "t/m³", "the water a vessel floats in")
+
+_SUMMARY: dict[str, Any] = {
+    "condition_name": str,
+    "water_density_t_m3": _DENSITY,
+    "displacement_t": _MASS,
+    "deadweight_t": _MASS,
+    "draft_fwd_m": _LENGTH,
+    "draft_aft_m": _LENGTH,
+    "draft_mean_m": _LENGTH,
+    "trim_m": _LENGTH,
+    "list_deg": _ANGLE,
+    "kg_fluid_m": _LEVER,
+    "fsc_m": _LEVER,
+    "gm_fluid_m": _LEVER,
+    "criteria_pass": bool,
+    "criteria_failed": [str],
+    "criteria_not_assessable": [{"id": str, "note": str}],
+    "criteria_sets": [{"id": str, "title": str, "pass": bool}],
+    "not_assessed": [{"item": str, "reason": str, "applies": bool}],
+    "verdict": str,
+    "deck_edge_angle_deg": _ANGLE,
+    "downflooding_angle_deg": _ANGLE,
+    "freeboard_m": _LENGTH,
+    "load_line_margin_m": _LENGTH,
+    "load_line_mark": (str, None),
+    "load_line_allowed_draft_m": _LENGTH,
+    "deadweight_by_kind_t": ({str: _MASS}, None),
+    "weather": ({"lw1_m": _LENGTH, "lw2_m": _LENGTH, "theta0_deg": _ANGLE, "theta0_limit_deg": _ANGLE,
+                 "theta1_deg": _ANGLE, "theta2_deg": _ANGLE, "area_a_mrad": _CRITERION, "area_b_mrad": _CRITERION}, None),
+    "smallest_margin": ({"id": str, "description": str, "value": _CRITERION, "limit": _CRITERION, "unit": str,
+                         "margin": _CRITERION, "passed": bool}, None),
+    "warnings": [str],
+}
+"""The shape of a stored summary (:func:`summarise`): a key may be missing (older entries have
+fewer), but one that is there holds what deckload writes: text, a flag, a list or a record of
+them, or a number inside its range (None where deckload writes None: every number, the flags,
+the mark, the weather and the smallest margin).  Other keys are kept and never shown."""
+
+
+def _checked(value: Any, spec: Any, where: str) -> Any:
+    """``value`` as ``spec`` allows, text escaped; ValueError naming ``where`` and what is wrong."""
+    if isinstance(spec, tuple):  # (shape, None): the shape, or null
+        return None if value is None else _checked(value, spec[0], where)
+    if isinstance(spec, bounds.Range):
+        if value is None:
+            return None
+        if not isinstance(value, (int, float)) or isinstance(value, bool):
+            raise ValueError(f"{where} is {_shown(value)}, not a number")
+        rule = spec.rule(value)
+        if rule is not None:
+            raise ValueError(f"{where} = {_shown(value)} is {rule}; deckload never writes such a value")
+        return value
+    if spec is str:
+        if not isinstance(value, str):
+            raise ValueError(f"{where} is {_shown(value)}, not text")
+        return escaped(value)
+    if spec is bool:
+        if value is not None and not isinstance(value, bool):
+            raise ValueError(f"{where} is {_shown(value)}, not true or false")
+        return value
+    if isinstance(spec, list):
+        if not isinstance(value, list):
+            raise ValueError(f"{where} is {_shown(value)}, not a list")
+        return [_checked(v, spec[0], f"{where}[{i}]") for i, v in enumerate(value)]
+    if not isinstance(value, dict):
+        raise ValueError(f"{where} is {_shown(value)}, not a record")
+    if str in spec:  # a mapping of names to values
+        return {escaped(str(k)): _checked(v, spec[str], f"{where}.{escaped(str(k))}") for k, v in value.items()}
+    return {k: (_checked(v, spec[k], f"{where}.{k}") if k in spec else v) for k, v in value.items()}
+
+
+def _shown(value: Any) -> str:
+    """A stored value in a message, cut short (a number's 309 digits, a long list)."""
+    text = escaped(repr(value) if not isinstance(value, float) else f"{value:.6g}")
+    return text if len(text) <= 40 else text[:39] + "…"
+
+
+def _finite_float(text: str) -> float:
+    """json's reader for a number with a point or exponent: refused when not finite (1e999)."""
+    x = float(text)
+    if not math.isfinite(x):
+        raise ValueError(f"the number {text[:40]} is not finite; deckload never writes one")
+    return x
+
+
+def _no_constant(text: str) -> float:
+    """json's reader for NaN and Infinity, which deckload never writes (``allow_nan=False``)."""
+    raise ValueError(f"{text} is not a number deckload writes")
 
 
 def validate_initials(by: str) -> str:
@@ -224,7 +340,11 @@ def _entry_from_line(line: bytes, line_no: int) -> LogEntry:
         raise LogFormatError(f"line {line_no}: {len(line)} bytes, more than the {MAX_LOG_LINE_BYTES} allowed "
                              "for one entry")
     try:
-        obj = json.loads(line.decode("utf-8"))
+        text = line.decode("utf-8")
+    except ValueError as exc:
+        raise LogFormatError(f"line {line_no}: not valid UTF-8 ({str(exc)[:200]})") from None
+    try:
+        obj = json.loads(text, parse_float=_finite_float, parse_constant=_no_constant)
     except (ValueError, RecursionError) as exc:
         raise LogFormatError(f"line {line_no}: not valid JSON ({str(exc)[:200]})") from None
     if not isinstance(obj, dict):
@@ -238,11 +358,20 @@ def _entry_from_line(line: bytes, line_no: int) -> LogEntry:
         raise LogFormatError(f"line {line_no}: format {obj['format']!r}, expected {FORMAT!r}")
     try:
         utc = datetime.fromisoformat(obj["utc"])
-        parse_offset(obj["ship_clock"])
+        offset = parse_offset(obj["ship_clock"])
     except ValueError as exc:
         raise LogFormatError(f"line {line_no}: {exc}") from None
     if utc.tzinfo is None:
         raise LogFormatError(f"line {line_no}: utc {obj['utc']!r} has no timezone")
+    try:  # every view shows the ship's time: one beyond the calendar (year 9999 + 14 h) is damage
+        (utc + offset).replace(tzinfo=None)
+    except OverflowError:
+        raise LogFormatError(f"line {line_no}: utc {escaped(obj['utc'])!r} at ship's clock "
+                             f"{escaped(obj['ship_clock'])} is beyond the calendar") from None
+    try:
+        summary = None if obj["summary"] is None else _checked(obj["summary"], _SUMMARY, "summary")
+    except ValueError as exc:
+        raise LogFormatError(f"line {line_no}: {exc}") from None
     return LogEntry(
         line_no=line_no,
         seq=obj["seq"],
@@ -254,7 +383,7 @@ def _entry_from_line(line: bytes, line_no: int) -> LogEntry:
         change_text=escaped(obj["change"]),
         change_data=obj["change_data"],
         remark=escaped(obj["remark"]),
-        summary=obj["summary"],
+        summary=summary,
         condition=obj["condition"],
         prev_sha256=obj["prev_sha256"],
         sha256=sha256_hex(line),

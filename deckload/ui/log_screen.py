@@ -170,6 +170,36 @@ def entry_details(e: LogEntry) -> Text:
     return t
 
 
+_SHOWING_FAILED = (TypeError, ValueError, OverflowError, AttributeError, KeyError)
+"""What formatting a stored entry can raise if the reader let a malformed value through: the entry
+is then shown as damaged, never the loading screen closed (records._entry_from_line checks first)."""
+
+
+def _row(e: LogEntry) -> tuple[Text, ...]:
+    """The entry's cells in the log table; a damaged entry's say so."""
+    try:
+        word = vf.stored_short(e.summary)
+        return (*(Text(c) for c in (str(e.seq), f"{e.ship_time:%m-%d %H:%M}", e.kind, e.by,
+                                    _short(_one_line(e.change_text), 30), _num(e.gm_fluid_m))),
+                Text(word or "—", style="bold red" if word.startswith("NOT") else ""))
+    except _SHOWING_FAILED:
+        return (Text(str(e.seq)), Text("—"), Text("—"), Text("—"), Text(f"line {e.line_no} damaged", style="bold red"),
+                Text("—"), Text("—"))
+
+
+def _details_or_damage(e: LogEntry) -> Text:
+    try:
+        return entry_details(e)
+    except _SHOWING_FAILED as exc:
+        return Text(f"Line {e.line_no} (entry #{e.seq}) is damaged and cannot be shown ({type(exc).__name__}); "
+                    "press v to verify the log.", style="bold red")
+
+
+def _one_line(text: str) -> str:
+    """A stored text in one table cell: a line feed or tab written as a visible escape."""
+    return text.replace("\r", "\\r").replace("\n", "\\n").replace("\t", "\\t")
+
+
 class EntryScreen(ModalScreen[None]):
     """One past entry, read-only: its stored summary and the condition as it was recorded."""
 
@@ -184,7 +214,7 @@ class EntryScreen(ModalScreen[None]):
 
     def compose(self) -> ComposeResult:
         with VerticalScroll(id="log-entry-box"):
-            yield Static(entry_details(self.entry), id="log-entry-summary")
+            yield Static(_details_or_damage(self.entry), id="log-entry-summary")
             cond = self.entry.condition
             if cond is not None:
                 yield Static(Text("Condition as recorded (read-only)", style="bold"), classes="log-entry-head")
@@ -252,14 +282,8 @@ class LogScreen(Screen["RestoreRequest | None"]):
         self.shown = select_entries(entries, self.kind, self.day_from, self.day_to)
         table = self.query_one("#log-table", DataTable)
         table.clear()
-        for e in self.shown:
-            word = vf.stored_short(e.summary)
-            verdict = Text(word or "—", style="bold red" if word.startswith("NOT") else "")
-            table.add_row(
-                *(Text(c) for c in (str(e.seq), f"{e.ship_time:%m-%d %H:%M}", e.kind, e.by,
-                                    _short(e.change_text, 30), _num(e.gm_fluid_m))),
-                verdict, key=str(e.seq),
-            )
+        for i, e in enumerate(self.shown):
+            table.add_row(*_row(e), key=str(i))
         if self.shown:
             table.move_cursor(row=len(self.shown) - 1)
         mode = "read-only" if self.logbook.readonly else "writing"
@@ -270,8 +294,11 @@ class LogScreen(Screen["RestoreRequest | None"]):
         kind = "all kinds" if self.kind == ALL_KINDS else KIND_LABELS.get(self.kind, self.kind)
         self.query_one("#log-kind", Static).update(Text(f"kind: {kind}  "))
         status = Text(f"{len(self.shown)} of {len(entries)} shown")
-        if self.logbook.skipped:
-            status.append(f"; {len(self.logbook.skipped)} unreadable line(s) left out — press v to verify")
+        damaged = [n for n, _ in self.logbook.skipped_lines]
+        if damaged:
+            where = ", ".join(map(str, damaged[:8])) + (", …" if len(damaged) > 8 else "")
+            status.append(f"; {self.logbook.path.name}: line{'s' if len(damaged) > 1 else ''} {where} damaged, "
+                          "left out — press v to verify", style="bold red")
         # An edited line still reads: only the chain shows it was changed since it was written.
         rep = self._chain_report()
         if not rep.ok:
@@ -305,7 +332,7 @@ class LogScreen(Screen["RestoreRequest | None"]):
     def _show_detail(self) -> None:
         e = self.current()
         detail = self.query_one("#log-detail", Static)
-        detail.update(entry_details(e) if e is not None else Text("No entries match the filters.", style="italic"))
+        detail.update(_details_or_damage(e) if e is not None else Text("No entries match the filters.", style="italic"))
 
     @on(DataTable.RowHighlighted, "#log-table")
     def _highlighted(self, _event: DataTable.RowHighlighted) -> None:
