@@ -36,7 +36,7 @@ from deckload.io.conventions import Frame, read_frame, tcg_array, tcg_num
 from deckload.core import model as m
 from deckload.core.gz import STEP_DEG as GZ_STEP_DEG
 from deckload.core.gz import grid_points
-from deckload.core.loading import reading_range
+from deckload.core.loading import apart, reading_limits, reading_outside
 from deckload.core.tables import interp
 from deckload.io.csvtables import attach_csv, attach_kn_csv, attach_trim_csv
 from deckload.io.limits import MAX_TABLES_AT_TRIMS
@@ -1795,8 +1795,19 @@ def _reading_rules(tank: m.Tank, quantity: str) -> tuple[Rule, ...]:
         return (lambda x: f"tank {tank.id} is known only by capacity and centre: no {name}; give percent, volume_m3 or mass_t",)
     if quantity == "ullage_m" and tank.ullage_reference_m is None:
         return (lambda x: f"tank {tank.id} has no ullage_reference_m in the profile: give sounding_m, percent, volume_m3 or mass_t",)
-    lo, hi = reading_range(tank, quantity)
-    return (between(lo, hi, "m", f"the {name}s of the tank's calibration table; nothing is extrapolated"),)
+    lo, hi = reading_limits(tank, quantity)
+
+    def rule(x: float) -> str | None:
+        # the loading screen's own test, round-off included (core.loading.reading_outside); the
+        # bound written to as many digits as tell it from the value, so the two never read alike
+        side = reading_outside(tank, quantity, x)
+        if side is None:
+            return None
+        bound = apart(x, lo if side == "below" else hi, 6)[1]
+        return (f"{side} {bound} m: must be between {num(lo)} and {num(hi)} m "
+                f"(the {name}s of the tank's calibration table, from 0; nothing is extrapolated)")
+
+    return (rule,)
 
 
 def _read_hold_loads(root: Table, vessel: m.Vessel) -> list[m.HoldLoad]:

@@ -1,0 +1,134 @@
+"""The condition reader refuses what the loading screen refuses, and accepts what it saves.
+
+A condition file is what the screen saves and reads back at the next start (its working
+condition); a value one side takes and the other refuses either loses the officer's condition
+(moved aside as unreadable) or lets a file say what no one could type.  Each rule is asked of
+both sides here: ``ui.entry`` (the screen's checks) and ``io.profiles.parse_condition`` (the
+reader), on the demo vessels.
+"""
+
+from __future__ import annotations
+
+import math
+
+import pytest
+
+from deckload.core.loading import ROUND_OFF, reading_range, resolve_tank
+from deckload.core.model import Condition, TankFill
+from deckload.io.profiles import ProfileError, dump_condition, parse_condition
+from deckload.ui.entry import EntryError, check_tank_amount, set_tank
+from tests.demo_vessels import demo_vessel, trawler_vessel
+
+HEAD = 'format = "deckload-condition-1"\n\n[condition]\nname = "probe"\nwater_density_t_m3 = 1.025\n'
+
+
+def cond_text(body: str, head: str = HEAD) -> str:
+    return head + "\n" + body
+
+
+def problems(text: str, vessel) -> list:
+    try:
+        parse_condition(text, "probe.condition.toml", vessel)
+    except ProfileError as e:
+        return e.problems
+    return []
+
+
+def line_of(text: str, needle: str) -> int:
+    return next(i for i, line in enumerate(text.splitlines(), 1) if needle in line)
+
+
+# ----------------------------------------------------------------------------- tank amounts
+
+def test_a_full_tank_stated_by_its_first_ullage_is_saved_and_read_back():
+    """The trawler's FO1P booklet table (demo_trawler/tanks/FO1P.csv) starts at ullage 0.349 m, the
+    tank full (11.560 m³).  ``reading_range`` gives 0.3490000000000002 (ref − (ref − 0.349) in
+    floating point); the screen took 0.349 within its round-off and the reader refused the file it
+    saved ('below 0.349 m: must be between 0.349 and 2.87 m'), so the next start set the working
+    condition aside."""
+    v = trawler_vessel()
+    tank = v.tank("FO1P")
+    assert reading_range(tank, "ullage_m")[0] != 0.349  # the round-off this is about
+    cond = set_tank(Condition(name="probe"), tank, "ullage_m", 0.349)
+    back = parse_condition(dump_condition(cond), "working.condition.toml", v)
+    assert back.tank_fill("FO1P") == TankFill("FO1P", "ullage_m", 0.349)
+    assert resolve_tank(tank, back.tank_fill("FO1P")).volume_m3 == pytest.approx(11.560, abs=1e-9)
+
+
+def _amount_limits(tank, quantity):
+    """(low, high) of each way of stating a tank's contents, as the screen's check words them."""
+    if quantity in ("sounding_m", "ullage_m"):
+        lo, hi = reading_range(tank, quantity)
+        return max(lo, 0.0), hi  # no tape reads a negative length (test below)
+    return 0.0, {"percent": 100.0, "volume_m3": tank.capacity_m3, "mass_t": tank.capacity_m3 * tank.density_t_m3}[quantity]
+
+
+def _cases():
+    for vessel in (demo_vessel, trawler_vessel):
+        for tank in vessel().tanks:
+            for q in ("percent", "volume_m3", "mass_t", "sounding_m", "ullage_m"):
+                if q in ("sounding_m", "ullage_m") and not tank.level_known:
+                    continue
+                if q == "ullage_m" and tank.ullage_reference_m is None:
+                    continue
+                yield pytest.param(vessel, tank.id, q, id=f"{vessel.__name__}-{tank.id}-{q}")
+
+
+@pytest.mark.parametrize("vessel, tank_id, quantity", list(_cases()))
+def test_screen_and_reader_agree_at_both_ends_of_every_amount(vessel, tank_id, quantity):
+    """At each end of every tank's range, in every quantity (percent, m³, t, sounding, ullage): the
+    end itself, the end as printed to 3 decimals (what a booklet prints and an officer types), the
+    end moved out by half the round-off allowance (loading.ROUND_OFF·max(1, |end|): taken as the
+    end) and by 1e-6 (refused).  The screen's check and the reader say the same every time, and a
+    value both take the calculation reads."""
+    v = vessel()
+    tank = v.tank(tank_id)
+    lo, hi = _amount_limits(tank, quantity)
+    for end, out in ((lo, -1.0), (hi, 1.0)):
+        allow = ROUND_OFF * max(1.0, abs(end))
+        for value in (end, round(end, 3), end + out * 0.5 * allow, end + out * 1e-6):
+            try:
+                check_tank_amount(tank, quantity, value, tank.density_t_m3)
+                screen = True
+            except EntryError:
+                screen = False
+            text = cond_text(f"[tanks.{tank_id}]\n{quantity} = {value!r}\n")
+            found = problems(text, v)
+            assert screen == (not found), (value, screen, [str(p) for p in found])
+            if screen:
+                assert math.isfinite(resolve_tank(tank, TankFill(tank_id, quantity, value)).volume_m3)
+            else:
+                (p,) = found
+                assert (p.key, p.line) == (f"tanks.{tank_id}.{quantity}", line_of(text, f"{quantity} = "))
+
+
+def test_a_negative_sounding_is_refused_from_a_file_as_on_the_screen():
+    """The trawler's FW2 has its sounding zero 30 mm above the bottom (sounding_zero_m = 0.03) and its
+    booklet table starts at sounding 0.00 (0.016 m³, demo_trawler/tanks/FW2.csv); the row deckload
+    adds below it ('level 0, volume 0') made the reader take soundings down to −0.03 m, which no tape
+    reads and the screen refuses.  Both now read from 0: −0.02 is refused, naming file, line and key;
+    0 is the booklet's first row."""
+    v = trawler_vessel()
+    tank = v.tank("FW2")
+    assert reading_range(tank, "sounding_m")[0] == pytest.approx(-0.03, abs=1e-12)
+    for value in (-0.02, -0.03):
+        with pytest.raises(EntryError):
+            check_tank_amount(tank, "sounding_m", value, 1.0)
+        text = cond_text(f"[tanks.FW2]\nsounding_m = {value}\n")
+        (p,) = problems(text, v)
+        assert (p.file, p.line, p.key, p.value) == ("probe.condition.toml", line_of(text, "sounding_m"),
+                                                   "tanks.FW2.sounding_m", repr(value))
+        assert p.rule.startswith("below 0 m: must be between 0 and 0.97 m")
+    back = parse_condition(cond_text("[tanks.FW2]\nsounding_m = 0.0\n"), "probe.condition.toml", v)
+    assert resolve_tank(tank, back.tank_fill("FW2")).volume_m3 == pytest.approx(0.016, abs=1e-12)
+
+
+@pytest.mark.parametrize("value, shown", [(0.3489, "0.349"), (0.3489999985, "0.349"), (2.8700001, "2.87")])
+def test_a_refused_reading_never_reads_as_its_own_bound(value, shown):
+    """The rule names the bound to as many digits as tell it from the value refused: the value is
+    printed as written and never equals the bound's text."""
+    text = cond_text(f"[tanks.FO1P]\nullage_m = {value!r}\n")
+    (p,) = problems(text, trawler_vessel())
+    side = "below" if value < 1 else "above"
+    assert p.value == repr(value) and p.rule.startswith(f"{side} {shown} m: must be between 0.349 and 2.87 m")
+    assert p.value != shown
