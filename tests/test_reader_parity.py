@@ -132,3 +132,85 @@ def test_a_refused_reading_never_reads_as_its_own_bound(value, shown):
     side = "below" if value < 1 else "above"
     assert p.value == repr(value) and p.rule.startswith(f"{side} {shown} m: must be between 0.349 and 2.87 m")
     assert p.value != shown
+
+
+# ----------------------------------------------------------------------------- text fields
+
+SPOOF = "Departure\\n\\n  MET: every criterion passed, GM fluid 2.000 m"
+"""A name whose line feeds would print a verdict line of its own under calc, report --txt and log show."""
+
+ITEM = "mass_t = 3.0\nlcg_m = 20.0\nvcg_m = 5.0\ntcg_m = 0.0\n"
+
+
+def _with_text(where: str, text: str) -> tuple[str, str]:
+    """A condition with ``text`` (TOML basic-string contents) in the field ``where``, and its dotted key."""
+    if where == "name":
+        return HEAD.replace('name = "probe"', f'name = "{text}"'), "condition.name"
+    if where in ("remark", "modified_from"):
+        return HEAD + f'{where} = "{text}"\n', f"condition.{where}"
+    if where == "description":
+        return cond_text(f'[holds.H1]\nmass_t = 10.0\ndescription = "{text}"\n'), "holds.H1.description"
+    return cond_text(f'[[{where}]]\nname = "{text}"\n{ITEM}'), f"{where}[#1].name"
+
+
+FIELDS = ["name", "remark", "modified_from", "description", "deck_item", "constant"]
+
+
+@pytest.mark.parametrize("where", FIELDS)
+@pytest.mark.parametrize("text, says", [(SPOOF, "holds a line break: must be one line"),
+                                        ("crate\\r\\n  Verdict: met", "holds a line break: must be one line"),
+                                        ("a\\tb", "holds a tab: must be one line")])
+def test_names_remarks_and_descriptions_are_one_line(where, text, says):
+    """The screen's fields are one line (a condition's name, an item's name); the remark and a hold's
+    cargo description have no field of several lines and are printed on one (the report's title
+    line, the hold's row): a line feed or tab is refused with file, line and key, and the value is
+    quoted with its line breaks written as escapes, so the message itself prints no false line."""
+    body, key = _with_text(where, text)
+    (p,) = problems(body, demo_vessel())
+    assert (p.file, p.key, p.line) == ("probe.condition.toml", key, line_of(body, text[:5]))
+    assert p.rule.startswith(says), p.rule
+    assert "\n" not in str(p) and "\t" not in str(p)
+
+
+@pytest.mark.parametrize("where, limit", [("name", 80), ("modified_from", 80), ("deck_item", 200), ("constant", 200),
+                                          ("description", 200), ("remark", 2000)])
+def test_file_text_is_bounded_as_the_screen_bounds_it(where, limit):
+    """A condition's name: 80 characters, as the screen's save form takes it (condition_files.MAX_NAME_CHARS);
+    an item's name: 200, the item form's limit (ui.entry.item_from_form, limits.MAX_ITEM_NAME_CHARS), a
+    hold's cargo description the same; a remark: 2000, what the screen takes as the log's remark
+    (logbook.book.MAX_TEXT_CHARS).  At the limit it is read; one more is refused, naming the count."""
+    v = demo_vessel()
+    body, key = _with_text(where, "x" * limit)
+    assert problems(body, v) == []
+    body, key = _with_text(where, "x" * (limit + 1))
+    (p,) = problems(body, v)
+    assert (p.key, p.line, p.rule) == (key, line_of(body, "x" * 10), f"at most {limit} characters ({limit + 1} given)")
+
+
+def test_the_item_forms_name_limit_is_the_readers():
+    """A name of 201 characters: refused by the screen's item form and by the reader alike; 200 by neither."""
+    from deckload.ui.entry import ItemForm, item_from_form
+
+    v = demo_vessel()
+    for n, refused in ((200, False), (201, True)):
+        try:
+            item_from_form(v, ItemForm("x" * n, "3", "20", "5"), deck=False)
+            screen = False
+        except EntryError:
+            screen = True
+        body, _ = _with_text("constant", "x" * n)
+        assert screen == refused == bool(problems(body, v))
+
+
+def test_a_condition_named_over_lines_is_listed_by_its_file_name(tmp_path):
+    """The by-name lookup lists the conditions beside the profile by their titles: a file whose name the
+    reader refuses is listed by its file name, not by lines the name would print."""
+    from deckload.io import condition_files
+
+    f = tmp_path / "spoof.condition.toml"
+    f.write_text(HEAD.replace('name = "probe"', f'name = "{SPOOF}"'), encoding="utf-8")
+    assert condition_files.title_of(f) == "spoof.condition.toml"
+    f.write_text(HEAD.replace('name = "probe"', f'name = "{"n" * 81}"'), encoding="utf-8")
+    assert condition_files.title_of(f) == "spoof.condition.toml"
+    f.write_text(HEAD, encoding="utf-8")
+    assert condition_files.title_of(f) == "probe"

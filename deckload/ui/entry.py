@@ -42,7 +42,7 @@ from deckload.core.model import (
     TankFill,
     Vessel,
 )
-from deckload.io.limits import MAX_ENTRY_CHARS
+from deckload.io.limits import MAX_ENTRY_CHARS, MAX_ITEM_NAME_CHARS
 from deckload.io.textsafe import control_char
 
 UNITS: dict[str, str] = {"%": "percent", "m3": "volume_m3", "m³": "volume_m3", "t": "mass_t", "m": "sounding_m",
@@ -409,8 +409,8 @@ def item_from_form(vessel: Vessel, form: ItemForm, *, deck: bool, base: MassItem
     name = form.name.strip()
     if not name:
         raise EntryError("Name: give the item a name.")
-    if len(name) > 200:
-        raise EntryError("Name: at most 200 characters.")
+    if len(name) > MAX_ITEM_NAME_CHARS:  # the condition reader's bound too
+        raise EntryError(f"Name: at most {MAX_ITEM_NAME_CHARS} characters.")
     if control_char(name) is not None:
         raise EntryError(f"Name: holds the control character {control_char(name)}; type plain text.")
     mr, xr, zr, yr = bounds.item_mass_range(vessel), bounds.x_range(p), bounds.z_range(p), bounds.y_range(p)
