@@ -159,7 +159,8 @@ FIELDS = ["name", "remark", "modified_from", "description", "deck_item", "consta
 @pytest.mark.parametrize("where", FIELDS)
 @pytest.mark.parametrize("text, says", [(SPOOF, "holds a line break: must be one line"),
                                         ("crate\\r\\n  Verdict: met", "holds a line break: must be one line"),
-                                        ("a\\tb", "holds a tab: must be one line")])
+                                        ("a\\tb", "holds a tab: must be one line")],
+                         ids=["verdict-spoof", "crlf", "tab"])
 def test_names_remarks_and_descriptions_are_one_line(where, text, says):
     """The screen's fields are one line (a condition's name, an item's name); the remark and a hold's
     cargo description have no field of several lines and are printed on one (the report's title
@@ -214,3 +215,28 @@ def test_a_condition_named_over_lines_is_listed_by_its_file_name(tmp_path):
     assert condition_files.title_of(f) == "spoof.condition.toml"
     f.write_text(HEAD, encoding="utf-8")
     assert condition_files.title_of(f) == "probe"
+
+
+# ----------------------------------------------------------------------------- holds
+
+@pytest.mark.parametrize("mass, refused", [(250.0, False), (250.0 + 1e-7, False), (250.001, True), (260.0, True)])
+def test_a_hold_over_its_structural_limit_is_refused_from_a_file_as_on_the_screen(mass, refused):
+    """The Demo Islander's H1 has max_mass_t = 250 t (demo_islander.toml).  The screen refused 260 t and
+    a file was read with only a danger warning (audit case hold_over_struct.condition.toml); now the
+    file is refused too, naming file, line and key.  At the limit, and within the round-off allowance
+    (loading.ROUND_OFF·250 = 2.5e-7 t), both take it."""
+    from deckload.ui.entry import hold_from_text
+
+    v = demo_vessel()
+    try:
+        hold_from_text(Condition(), v.hold("H1"), repr(mass), v)
+        screen = False
+    except EntryError:
+        screen = True
+    text = cond_text(f"[holds.H1]\nmass_t = {mass!r}\n")
+    found = problems(text, v)
+    assert screen == refused == bool(found)
+    if refused:
+        (p,) = found
+        assert (p.file, p.line, p.key) == ("probe.condition.toml", line_of(text, "mass_t"), "holds.H1.mass_t")
+        assert p.rule == "above 250 t, the hold's structural limit (max_mass_t in the profile)"

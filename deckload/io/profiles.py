@@ -1821,7 +1821,11 @@ def _read_hold_loads(root: Table, vessel: m.Vessel) -> list[m.HoldLoad]:
     out = []
     for ident, t in _keyed_tables(root, "holds", vessel.hold_index, "hold"):
         hold = vessel.hold(ident)
-        kw: dict[str, Any] = dict(hold_id=ident, mass_t=t.num("mass_t", non_negative))
+        # the structural limit refuses here as on the screen (ui.entry._hold_mass): a file over it
+        # was read with only a danger warning
+        limit = () if hold.max_mass_t is None else (
+            at_most(hold.max_mass_t, "t, the hold's structural limit (max_mass_t in the profile)"),)
+        kw: dict[str, Any] = dict(hold_id=ident, mass_t=t.num("mass_t", non_negative, *limit))
         # the stowage factor and the cargo's height by physics: a cargo no denser than solid lead,
         # its centre between the hold's floor and top (deckload.core.bounds)
         optional = {"stowage_m3_t": (positive, stowage_range().rule), "lcg_m": (),

@@ -348,9 +348,10 @@ def hold_from_text(condition: Condition, hold: Hold, text: str, vessel: Vessel |
 
 def nudge_hold(condition: Condition, hold: Hold, step_t: float, vessel: Vessel | None = None) -> Condition:
     """One nudge of a hold's cargo mass (:func:`nudge_mass`, bounded as :func:`hold_from_text` is).
-    A step down from a mass over the structural limit (as a file may hold it, with its danger
-    warning) is taken: it moves towards the limit, and refusing it would leave the officer no way
-    down but retyping."""
+    No form or file gives a mass over the structural limit (the condition reader refuses it as the
+    form does); should a condition built in code hold one (its danger warning says so), a step
+    down is still taken: it moves towards the limit, and refusing it would leave the officer no
+    way down but retyping."""
     load = next((h for h in condition.holds if h.hold_id == hold.id), None)
     old = load.mass_t if load is not None else 0.0
     mass = nudge_mass(old, step_t, hold.id, vessel)
@@ -358,7 +359,8 @@ def nudge_hold(condition: Condition, hold: Hold, step_t: float, vessel: Vessel |
 
 
 def _hold_mass(condition: Condition, hold: Hold, mass: float, over_limit_ok: bool = False) -> Condition:
-    if hold.max_mass_t is not None and mass > hold.max_mass_t and not over_limit_ok:
+    # the limit and its round-off are the condition reader's too (profiles._read_hold_loads, at_most)
+    if hold.max_mass_t is not None and over_limit(mass, hold.max_mass_t) and not over_limit_ok:
         raise EntryError(f"{hold.id}: {mass:g} t is over the hold's structural limit {hold.max_mass_t:g} t.")
     if mass == 0:
         return condition.without_hold(hold.id)
