@@ -240,3 +240,28 @@ def test_a_hold_over_its_structural_limit_is_refused_from_a_file_as_on_the_scree
         (p,) = found
         assert (p.file, p.line, p.key) == ("probe.condition.toml", line_of(text, "mass_t"), "holds.H1.mass_t")
         assert p.rule == "above 250 t, the hold's structural limit (max_mass_t in the profile)"
+
+
+# ----------------------------------------------------------------------------- byte-order mark
+
+BOM_RULE = ("starts with a byte-order mark (U+FEFF, the bytes EF BB BF), which the TOML reader does not take: "
+            "save the file as UTF-8 without a byte-order mark")
+
+
+def test_a_byte_order_mark_is_named_in_a_condition_and_a_profile_alike(tmp_path):
+    """An editor that starts UTF-8 files with a byte-order mark made the condition reader say 'TOML syntax:
+    Invalid statement (column 1)'.  The profile reader refuses such a file too (Python's TOML reader
+    does not take it), so both say what it is, on line 1; the CSV tables, read as spreadsheets write
+    them, still take one (csvtables)."""
+    from deckload.io.profiles import load_condition, parse_profile
+
+    f = tmp_path / "bom.condition.toml"
+    f.write_bytes(b"\xef\xbb\xbf" + cond_text("[tanks.FO1P]\npercent = 50\n").encode())
+    with pytest.raises(ProfileError) as e:
+        load_condition(f, demo_vessel())
+    assert [(p.file, p.line, p.key, p.rule) for p in e.value.problems] == [(str(f), 1, "", BOM_RULE)]
+    from deckload.io import paths
+
+    with pytest.raises(ProfileError) as e:
+        parse_profile("\ufeff" + paths.TRAWLER_PROFILE.read_text(encoding="utf-8"), "bom.toml")
+    assert [(p.line, p.rule) for p in e.value.problems] == [(1, BOM_RULE)]

@@ -448,6 +448,12 @@ class FileCheck:
         if len(self.text) > MAX_TOML_BYTES:
             raise self.error([Problem(self.file, None, "", None,
                                       f"longer than the {MAX_TOML_BYTES} characters allowed: refused unread")])
+        if self.text.startswith("\ufeff"):
+            # an editor's UTF-8 byte-order mark: TOML's reader takes it for a stray character and
+            # said only "Invalid statement (column 1)"; profiles, conditions and geometry files alike
+            raise self.error([Problem(self.file, 1, "", None,
+                                      "starts with a byte-order mark (U+FEFF, the bytes EF BB BF), which the TOML reader does "
+                                      "not take: save the file as UTF-8 without a byte-order mark")])
         try:
             return tomllib.loads(self.text)
         except RecursionError:
