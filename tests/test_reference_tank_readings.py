@@ -145,12 +145,14 @@ def test_readings_at_the_ends_of_the_table_are_accepted(quantity, value, level):
 @pytest.mark.parametrize("quantity, value, message", [
     ("sounding_m", 1.95, "tank W: sounding 1.95 m is outside the calibration table -0.1–1.9 m; "
                          "deckload does not extrapolate"),
-    ("sounding_m", -0.1 - 3e-9, "tank W: sounding -0.1 m is outside the calibration table -0.1–1.9 m; "
+    # beyond an end by more than the allowance (loading.ROUND_OFF: 1e-9·max(1, |end|)), the value and
+    # the end written to as many digits as tell them apart
+    ("sounding_m", -0.1 - 3e-9, "tank W: sounding -0.100000003 m is outside the calibration table -0.1–1.9 m; "
                                 "deckload does not extrapolate"),
-    ("sounding_m", 1.9 + 3e-9, "tank W: sounding 1.9 m is outside the calibration table -0.1–1.9 m; "
+    ("sounding_m", 1.9 + 3e-9, "tank W: sounding 1.900000003 m is outside the calibration table -0.1–1.9 m; "
                                "deckload does not extrapolate"),
     ("ullage_m", 0.9, "tank W: ullage 0.9 m is outside the calibration table 1–3 m; deckload does not extrapolate"),
-    ("ullage_m", 3.0 + 3e-9, "tank W: ullage 3 m is outside the calibration table 1–3 m; "
+    ("ullage_m", 3.0 + 6e-9, "tank W: ullage 3.00000001 m is outside the calibration table 1–3 m; "
                              "deckload does not extrapolate"),
 ])
 def test_readings_outside_the_table_are_refused_by_name(quantity, value, message):

@@ -222,7 +222,7 @@ async def test_a_nudge_never_takes_an_item_past_what_a_file_may_hold(app, kind):
 async def test_a_hold_steps_down_by_nudges_from_any_mass(app):
     """− on a hold whose mass has decimals (1.00001 t) gives 0.00001 t, which the old text round
     trip wrote as '1e-05' and refused as not a number; and from a mass over the structural limit
-    (which a file may hold, with its danger warning) − steps down towards it, while + and a typed
+    (no form or file gives one, a condition built in code may, with its danger warning) − steps down towards it, while + and a typed
     mass over it are still refused."""
     hold = app.session.vessel.hold("H1")
     async with app.run_test(size=(120, 40)) as pilot:

@@ -269,7 +269,12 @@ def free_surface(vessel: Vessel, contents: list[TankContents], rule: str) -> lis
         elif exempt[k]:
             out[k] = TankFreeSurface(0.0, BASIS_NONE, EXEMPT_RULE, state)
         elif t.id in assumed:
-            out[k] = TankFreeSurface(rho * t.max_fsi_m4, BASIS_MAX, assumed[t.id], state)
+            # A tank holding liquid whose free surface is counted is slack, whatever deckload's
+            # 'empty' level says (that level only leaves out the remainder of a tank taken as
+            # empty, with no moment): 'empty' beside 12 t·m of FSM read as a contradiction.  A tank
+            # with nothing in it stays 'empty', its moment the B 3.1.4 assumption the rule names.
+            shown = "slack" if state == "empty" and c.volume_m3 > 0.0 else state
+            out[k] = TankFreeSurface(rho * t.max_fsi_m4, BASIS_MAX, assumed[t.id], shown)
         else:
             out[k] = _actual_treatment(vessel, c, rule)
     return out  # type: ignore[return-value]

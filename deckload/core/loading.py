@@ -67,8 +67,24 @@ def level_of(tank: Tank, quantity: str, value: float) -> float:
     return tank.ullage_reference_m - value
 
 
+ROUND_OFF = 1e-9
+"""Round-off allowance when a stated amount meets its limit: ``limit + 1e-9·max(1, |limit|)``.
+The profile and condition reader (tomlcheck.REL_TOL, ``at_most``; :func:`reading_outside` for a
+sounding or ullage) and the screen's entry check use the same allowance, so an amount one accepts
+the other and the calculation never refuse."""
+
+
+def over_limit(value: float, limit: float) -> bool:
+    """True when ``value`` exceeds ``limit`` by more than the round-off allowance."""
+    return not value <= limit + ROUND_OFF * max(1.0, abs(limit))
+
+
 def reading_range(tank: Tank, quantity: str) -> tuple[float, float]:
-    """The readings (sounding or ullage, m) that fall inside the tank's level table, low to high."""
+    """The readings (sounding or ullage, m) that fall inside the tank's level table, low to high.
+
+    This is the table's whole range, which the calculation reads (an even-keel sounding worked
+    out from one taken trimmed may lie anywhere in it); what may be *stated* as a reading, on
+    the screen or in a file, is :func:`reading_limits`."""
     lo, hi = float(tank.table[0, 0]), float(tank.table[-1, 0])
     if quantity == "sounding_m":
         return lo - tank.sounding_zero_m, hi - tank.sounding_zero_m
@@ -76,13 +92,63 @@ def reading_range(tank: Tank, quantity: str) -> tuple[float, float]:
     return ref - hi, ref - lo
 
 
+def reading_limits(tank: Tank, quantity: str) -> tuple[float, float]:
+    """The readings (m) a sounding or ullage may be stated by, on the loading screen and in a file
+    alike: the table's range (:func:`reading_range`) and never below 0.
+
+    A sounding tape or rod reads from its zero upwards, an ullage from its reference point
+    downwards: neither reads a negative length (common practice).  Where the sounding zero sits
+    above the tank's lowest point (the trawler's FW2, striker plate 30 mm up: ``sounding_zero_m``)
+    the level table reaches down to level 0 = sounding −0.03 m through the row 'level 0, volume 0'
+    the profile reader adds below the booklet's first printed row (sounding 0.00, 0.016 m³); no
+    tape reads those 30 mm, so a reading below 0 is refused, and the contents under the zero
+    are stated as %, m³ or t.  Either end is met within the round-off allowance
+    (:func:`reading_outside`)."""
+    lo, hi = reading_range(tank, quantity)
+    return max(lo, 0.0), hi
+
+
+def below_limit(value: float, limit: float) -> bool:
+    """True when ``value`` is below ``limit`` by more than the round-off allowance (:data:`ROUND_OFF`)."""
+    return not value >= limit - ROUND_OFF * max(1.0, abs(limit))
+
+
+def reading_outside(tank: Tank, quantity: str, value: float) -> str | None:
+    """'below' or 'above' when a stated reading lies outside :func:`reading_limits` by more than the
+    round-off allowance, else None: the one test the screen's entry check and the condition
+    reader both make, so a reading one accepts the other never refuses (a full FO1P stated by
+    the ullage 0.349 m printed in its table, where ``reading_range`` gives 0.3490000000000002)."""
+    lo, hi = reading_limits(tank, quantity)
+    if below_limit(value, lo):
+        return "below"
+    if over_limit(value, hi):
+        return "above"
+    return None
+
+
+def apart(value: float, bound: float, digits: int = 4) -> tuple[str, str]:
+    """``value`` and ``bound`` written with the fewest significant digits (at least ``digits``) that
+    tell them apart, so a message refusing a value never reads as the bound itself ('0.349 below
+    0.349'); equal numbers are written alike."""
+    for d in range(digits, 18):
+        a, b = f"{value:.{d}g}", f"{bound:.{d}g}"
+        if a != b:
+            return a, b
+    return f"{value!r}", f"{bound!r}"
+
+
 def _row_at_reading(tank: Tank, quantity: str, value: float) -> np.ndarray:
     level = level_of(tank, quantity, value)
     lo, hi = reading_range(tank, quantity)
     name = "sounding" if quantity == "sounding_m" else "ullage"
-    if not lo - 1e-9 <= value <= hi + 1e-9:
-        raise LoadingError(f"tank {tank.id}: {name} {value:.4g} m is outside the calibration table "
-                           f"{lo:.4g}–{hi:.4g} m; deckload does not extrapolate")
+    if below_limit(value, lo) or over_limit(value, hi):
+        v, end = apart(value, lo if below_limit(value, lo) else hi)
+        lo_t, hi_t = (end, f"{hi:.4g}") if below_limit(value, lo) else (f"{lo:.4g}", end)
+        raise LoadingError(f"tank {tank.id}: {name} {v} m is outside the calibration table "
+                           f"{lo_t}–{hi_t} m; deckload does not extrapolate")
+    # within the round-off allowance of an end is that end (the allowance on the reading may
+    # exceed the table's own on the level where the zero lies below the tank's lowest point)
+    level = min(max(level, float(tank.table[0, 0])), float(tank.table[-1, 0]))
     i, f = bracket(tank.table[:, 0], level, f"level of tank {tank.id}", "m")
     return lerp_row(tank.table, i, f)
 
@@ -90,17 +156,6 @@ def _row_at_reading(tank: Tank, quantity: str, value: float) -> np.ndarray:
 def _row_at_volume(tank: Tank, volume_m3: float) -> np.ndarray:
     i, f = bracket(tank.table[:, 1], volume_m3, f"volume of tank {tank.id}", "m³")
     return lerp_row(tank.table, i, f)
-
-
-ROUND_OFF = 1e-9
-"""Round-off allowance when a stated amount meets its limit: ``limit + 1e-9·max(1, |limit|)``.
-The profile reader (tomlcheck.REL_TOL, ``at_most``) and the screen's entry check use the same
-allowance, so an amount one accepts the calculation never refuses."""
-
-
-def over_limit(value: float, limit: float) -> bool:
-    """True when ``value`` exceeds ``limit`` by more than the round-off allowance."""
-    return not value <= limit + ROUND_OFF * max(1.0, abs(limit))
 
 
 def volume_of(tank: Tank, quantity: str, value: float, density_t_m3: float) -> float:

@@ -57,7 +57,8 @@ def title_of(path: Path) -> str:
 
 
 def _own_name(path: Path) -> str | None:
-    """``[condition] name`` of the file, None when it has none or the file cannot be read or parsed.
+    """``[condition] name`` of the file, None when it has none, one the reader refuses as a name (not
+    one line, too long), or the file cannot be read or parsed.
 
     The by-name lookup reads every condition file beside the profile and in the saved folder,
     not only the one asked for: one that cannot be read or parsed, for whatever reason (a file
@@ -75,7 +76,11 @@ def _own_name(path: Path) -> str | None:
         name = tomllib.loads(raw.decode("utf-8")).get("condition", {}).get("name")
     except Exception:  # noqa: BLE001  see the docstring: a sibling that cannot be read never matches
         return None
-    return name if isinstance(name, str) and name.strip() else None
+    if not isinstance(name, str) or not name.strip() or len(name) > MAX_NAME_CHARS or "\n" in name or "\t" in name:
+        # a name the reader refuses (profiles.parse_condition: one line, at most MAX_NAME_CHARS) is
+        # not listed as the file's title: a line break in it would print lines of its own
+        return None
+    return name
 
 
 def _regular(path: Path) -> bool:

@@ -38,6 +38,12 @@ MAX_LOG_BYTES = 512 * 1024 * 1024
 """A log of 100,000 entries of 5 kB each."""
 MAX_ENTRY_CHARS = 64
 """An amount such as '12.5 m3' is a few characters."""
+MAX_ITEM_NAME_CHARS = 200
+"""A deck item's or constant's name, typed in the screen's item form or read from a condition file;
+a hold's cargo description too (shown beside the hold's name)."""
+MAX_REMARK_CHARS = 2000
+"""A condition's remark in a file: the screen takes a remark of up to this many characters for the
+log (logbook.book.MAX_TEXT_CHARS), and the same here."""
 
 
 class TooLargeError(OSError):

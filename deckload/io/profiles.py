@@ -36,10 +36,10 @@ from deckload.io.conventions import Frame, read_frame, tcg_array, tcg_num
 from deckload.core import model as m
 from deckload.core.gz import STEP_DEG as GZ_STEP_DEG
 from deckload.core.gz import grid_points
-from deckload.core.loading import reading_range
+from deckload.core.loading import apart, reading_limits, reading_outside
 from deckload.core.tables import interp
 from deckload.io.csvtables import attach_csv, attach_kn_csv, attach_trim_csv
-from deckload.io.limits import MAX_TABLES_AT_TRIMS
+from deckload.io.limits import MAX_ITEM_NAME_CHARS, MAX_TABLES_AT_TRIMS
 # Problem, ProfileError and ID_PATTERN are imported from here by other modules too
 from deckload.io.tomlcheck import (
     ID_PATTERN,
@@ -1714,20 +1714,21 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
     head: dict[str, Any] = {}
     c = root.table("condition")
     if c is not None:
-        head["name"] = c.text("name")
         from deckload.io.condition_files import MAX_NAME_CHARS
+        from deckload.io.limits import MAX_REMARK_CHARS
 
-        if isinstance(head["name"], str) and len(head["name"]) > MAX_NAME_CHARS:
-            # as the screen lets a condition be named: a longer one could not be logged or saved by it
-            c.bad("name", head["name"], f"at most {MAX_NAME_CHARS} characters ({len(head['name'])} given)")
-        head["remark"] = c.text("remark", required=False, empty_ok=True)
+        # one line and as long as the screen lets a condition be named (a longer one could not be
+        # logged or saved by it; a line break could print a line that looks like a verdict)
+        head["name"] = c.text("name", one_line=True, max_chars=MAX_NAME_CHARS)
+        head["remark"] = c.text("remark", required=False, empty_ok=True, one_line=True, max_chars=MAX_REMARK_CHARS)
         head["water_density_t_m3"] = c.num("water_density_t_m3", water_density)
         marks = [ll.name for ll in vessel.load_lines]
         default_mark = m.Condition().load_line if not marks or m.Condition().load_line in marks else marks[0]
         head["load_line"] = c.text("load_line", required=False, default=default_mark, choices=marks or None)
         head["fs_rule"] = c.text("fs_rule", required=False, default=None, choices=("is2008", "actual"))
         head["gz_correction"] = c.text("gz_correction", required=False, default=None, choices=("constant", "transfer"))
-        head["modified_from"] = c.text("modified_from", required=False, default="", empty_ok=True)
+        head["modified_from"] = c.text("modified_from", required=False, default="", empty_ok=True, one_line=True,
+                                       max_chars=MAX_NAME_CHARS)
         lbp = vessel.particulars.lbp_m
         head["sounding_trim_m"] = c.num("sounding_trim_m", between(-0.2 * lbp, 0.2 * lbp, "m", "a fifth of LBP either way"),
                                         required=False, default=0.0)
@@ -1739,7 +1740,7 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
     items = _read_deck_items(root, vessel)
     consts = []
     for t in root.tables("constant"):
-        item = _read_mass_item(t, t.text("name"))
+        item = _read_mass_item(t, _item_name(t))
         t.finish()
         if item is not None:
             consts.append(item)
@@ -1747,6 +1748,12 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
     ctx.fail_if_any()
     cond = m.Condition(tanks=tuple(fills), holds=tuple(loads), deck_items=tuple(items), constants=tuple(consts), **head)
     return _physical(ctx).check_condition(ctx, vessel, cond)
+
+
+def _item_name(t: Table) -> str | None:
+    """A deck item's or constant's name: one line of at most as many characters as the screen's item
+    form takes (limits.MAX_ITEM_NAME_CHARS)."""
+    return t.text("name", one_line=True, max_chars=MAX_ITEM_NAME_CHARS)
 
 
 def _keyed_tables(root: Table, group: str, known: dict[str, int], what: str) -> list[tuple[str, Table]]:
@@ -1803,15 +1810,30 @@ def _reading_rules(tank: m.Tank, quantity: str) -> tuple[Rule, ...]:
         return (lambda x: f"tank {tank.id} is known only by capacity and centre: no {name}; give percent, volume_m3 or mass_t",)
     if quantity == "ullage_m" and tank.ullage_reference_m is None:
         return (lambda x: f"tank {tank.id} has no ullage_reference_m in the profile: give sounding_m, percent, volume_m3 or mass_t",)
-    lo, hi = reading_range(tank, quantity)
-    return (between(lo, hi, "m", f"the {name}s of the tank's calibration table; nothing is extrapolated"),)
+    lo, hi = reading_limits(tank, quantity)
+
+    def rule(x: float) -> str | None:
+        # the loading screen's own test, round-off included (core.loading.reading_outside); the
+        # bound written to as many digits as tell it from the value, so the two never read alike
+        side = reading_outside(tank, quantity, x)
+        if side is None:
+            return None
+        bound = apart(x, lo if side == "below" else hi, 6)[1]
+        return (f"{side} {bound} m: must be between {num(lo)} and {num(hi)} m "
+                f"(the {name}s of the tank's calibration table, from 0; nothing is extrapolated)")
+
+    return (rule,)
 
 
 def _read_hold_loads(root: Table, vessel: m.Vessel) -> list[m.HoldLoad]:
     out = []
     for ident, t in _keyed_tables(root, "holds", vessel.hold_index, "hold"):
         hold = vessel.hold(ident)
-        kw: dict[str, Any] = dict(hold_id=ident, mass_t=t.num("mass_t", non_negative))
+        # the structural limit refuses here as on the screen (ui.entry._hold_mass): a file over it
+        # was read with only a danger warning
+        limit = () if hold.max_mass_t is None else (
+            at_most(hold.max_mass_t, "t, the hold's structural limit (max_mass_t in the profile)"),)
+        kw: dict[str, Any] = dict(hold_id=ident, mass_t=t.num("mass_t", non_negative, *limit))
         # the stowage factor and the cargo's height by physics: a cargo no denser than solid lead,
         # its centre between the hold's floor and top (deckload.core.bounds)
         optional = {"stowage_m3_t": (positive, stowage_range().rule), "lcg_m": (),
@@ -1821,7 +1843,7 @@ def _read_hold_loads(root: Table, vessel: m.Vessel) -> list[m.HoldLoad]:
             present = t.has(k)
             kw[k] = t.num(k, *rules, required=False)
             bad |= present and kw[k] is None
-        desc = t.text("description", required=False, empty_ok=True)
+        desc = t.text("description", required=False, empty_ok=True, one_line=True, max_chars=MAX_ITEM_NAME_CHARS)
         kw["description"] = desc
         t.finish()
         if kw["mass_t"] is None or desc is None or bad:
@@ -1839,7 +1861,7 @@ def _read_hold_loads(root: Table, vessel: m.Vessel) -> list[m.HoldLoad]:
 def _read_deck_items(root: Table, vessel: m.Vessel) -> list[m.DeckItem]:
     out = []
     for t in root.tables("deck_item"):
-        base = _read_mass_item(t, t.text("name"))
+        base = _read_mass_item(t, _item_name(t))
         area = t.text("area", required=False, default=None)
         if area is not None and area not in vessel.area_index:
             t.bad("area", area, "no deck area with this id in the vessel profile" + suggest_id(area, vessel.area_index))

@@ -248,6 +248,8 @@ def toml_value(v: Any, _depth: int = 0) -> str:
     if isinstance(v, bool):
         return "true" if v else "false"
     if isinstance(v, str):
+        # line breaks and tabs written as TOML writes them: the value stays on the message's line
+        v = v.replace("\r", "\\r").replace("\n", "\\n").replace("\t", "\\t")
         s = v if len(v) <= 40 else v[:37] + "…"
         return '"' + s + '"'
     if isinstance(v, float):
@@ -446,6 +448,12 @@ class FileCheck:
         if len(self.text) > MAX_TOML_BYTES:
             raise self.error([Problem(self.file, None, "", None,
                                       f"longer than the {MAX_TOML_BYTES} characters allowed: refused unread")])
+        if self.text.startswith("\ufeff"):
+            # an editor's UTF-8 byte-order mark: TOML's reader takes it for a stray character and
+            # said only "Invalid statement (column 1)"; profiles, conditions and geometry files alike
+            raise self.error([Problem(self.file, 1, "", None,
+                                      "starts with a byte-order mark (U+FEFF, the bytes EF BB BF), which the TOML reader does "
+                                      "not take: save the file as UTF-8 without a byte-order mark")])
         try:
             return tomllib.loads(self.text)
         except RecursionError:
@@ -533,7 +541,11 @@ class Table:
                 return None
         return x
 
-    def text(self, k: str, *, required: bool = True, default: str | None = "", choices=None, empty_ok: bool = False):
+    def text(self, k: str, *, required: bool = True, default: str | None = "", choices=None, empty_ok: bool = False,
+             one_line: bool = False, max_chars: int | None = None):
+        """A string.  ``one_line``: no line feed or tab, as a one-line field of the screen takes it
+        (a name printed on a line of its own could otherwise print lines that look like output:
+        a false verdict).  ``max_chars``: at most that many characters (the screen's field's limit)."""
         v = self.get(k, required)
         if v is MISSING:
             return default
@@ -545,6 +557,13 @@ class Table:
             return None
         if not v.strip() and not empty_ok:
             self.bad(k, v, "must not be empty")
+            return None
+        if max_chars is not None and len(v) > max_chars:
+            self.bad(k, v, f"at most {max_chars} characters ({len(v)} given)")
+            return None
+        if one_line and ("\n" in v or "\t" in v):
+            what = "a line break" if "\n" in v else "a tab"
+            self.bad(k, v, f"holds {what}: must be one line of text, as typed in the screen's one-line field")
             return None
         bad = control_char(v)
         if bad is not None:

@@ -19,7 +19,17 @@ import re
 
 from deckload.core import bounds
 from deckload.core.frozen import frozen
-from deckload.core.loading import LoadingError, level_of, over_limit, reading_range, resolve_tank, volume_of
+from deckload.core.loading import (
+    LoadingError,
+    apart,
+    level_of,
+    over_limit,
+    reading_limits,
+    reading_outside,
+    reading_range,
+    resolve_tank,
+    volume_of,
+)
 from deckload.core.model import (
     LEVEL_QUANTITIES,
     Condition,
@@ -32,7 +42,7 @@ from deckload.core.model import (
     TankFill,
     Vessel,
 )
-from deckload.io.limits import MAX_ENTRY_CHARS
+from deckload.io.limits import MAX_ENTRY_CHARS, MAX_ITEM_NAME_CHARS
 from deckload.io.textsafe import control_char
 
 UNITS: dict[str, str] = {"%": "percent", "m3": "volume_m3", "m³": "volume_m3", "t": "mass_t", "m": "sounding_m",
@@ -125,7 +135,7 @@ def amount_hint(tank: Tank, fill: TankFill | None) -> str:
         return (f"55% · 12.5m3 · 10t (capacity-only tank: no sounding).  Capacity {tank.capacity_m3:.2f} m³, {rho}")
     head = "55% · 12.5m3 · 10t · 1.2m (sounding)"
     if tank.ullage_reference_m is not None:
-        lo, hi = reading_range(tank, "ullage_m")
+        lo, hi = reading_limits(tank, "ullage_m")
         return (f"{head} · 0.85u (ullage {lo:.2f}–{hi:.2f} m).  Capacity {tank.capacity_m3:.2f} m³, greatest sounding "
                 f"{max_sounding_m(tank):.2f} m, {rho}")
     return f"{head}.  Capacity {tank.capacity_m3:.2f} m³, greatest sounding {max_sounding_m(tank):.2f} m, {rho}"
@@ -145,14 +155,18 @@ def check_tank_amount(tank: Tank, quantity: str, value: float, density_t_m3: flo
             level_of(tank, quantity, value)
         except LoadingError as e:
             raise EntryError(str(e)[0].upper() + str(e)[1:] + ".") from None
-        lo, hi = reading_range(tank, quantity)
+        # the bound and its round-off are the condition reader's too (core.loading.reading_outside)
+        lo, hi = reading_limits(tank, quantity)
         name = "sounding" if quantity == "sounding_m" else "ullage"
-        if value < 0:
+        side = reading_outside(tank, quantity, value)
+        if side == "below" and value < 0:
             raise EntryError(f"{tank.id}: {value:g} m is negative.")
-        if value > hi + 1e-9:
-            raise EntryError(f"{tank.id}: {name} {value:g} m is more than its greatest {name} {hi:.3f} m.")
-        if value < lo - 1e-9:
-            raise EntryError(f"{tank.id}: {name} {value:g} m is less than its smallest {name} {lo:.3f} m "
+        if side == "above":
+            v, end = _value_and_bound(value, hi)
+            raise EntryError(f"{tank.id}: {name} {v} m is more than its greatest {name} {end} m.")
+        if side == "below":
+            v, end = _value_and_bound(value, lo)
+            raise EntryError(f"{tank.id}: {name} {v} m is less than its smallest {name} {end} m "
                              "(the table's range; nothing is extrapolated).")
         return
     limits = {
@@ -167,6 +181,13 @@ def check_tank_amount(tank: Tank, quantity: str, value: float, density_t_m3: flo
         what = {"percent": "100 %", "volume_m3": f"its capacity {high:.2f} m³",
                 "mass_t": f"its capacity {high:.2f} t at {density_t_m3:.3f} t/m³"}[quantity]
         raise EntryError(f"{tank.id}: {value:.12g} {unit} is more than {what}.")
+
+
+def _value_and_bound(value: float, bound: float) -> tuple[str, str]:
+    """A refused reading and the bound it broke, as the form words them ('0.9', '0.800'), or to as
+    many digits as tell them apart where those would read alike."""
+    v, end = f"{value:g}", f"{bound:.3f}"
+    return (v, end) if float(v) != float(end) else apart(value, bound, 6)
 
 
 def set_tank(condition: Condition, tank: Tank, quantity: str, value: float) -> Condition:
@@ -327,9 +348,10 @@ def hold_from_text(condition: Condition, hold: Hold, text: str, vessel: Vessel |
 
 def nudge_hold(condition: Condition, hold: Hold, step_t: float, vessel: Vessel | None = None) -> Condition:
     """One nudge of a hold's cargo mass (:func:`nudge_mass`, bounded as :func:`hold_from_text` is).
-    A step down from a mass over the structural limit (as a file may hold it, with its danger
-    warning) is taken: it moves towards the limit, and refusing it would leave the officer no way
-    down but retyping."""
+    No form or file gives a mass over the structural limit (the condition reader refuses it as the
+    form does); should a condition built in code hold one (its danger warning says so), a step
+    down is still taken: it moves towards the limit, and refusing it would leave the officer no
+    way down but retyping."""
     load = next((h for h in condition.holds if h.hold_id == hold.id), None)
     old = load.mass_t if load is not None else 0.0
     mass = nudge_mass(old, step_t, hold.id, vessel)
@@ -337,7 +359,8 @@ def nudge_hold(condition: Condition, hold: Hold, step_t: float, vessel: Vessel |
 
 
 def _hold_mass(condition: Condition, hold: Hold, mass: float, over_limit_ok: bool = False) -> Condition:
-    if hold.max_mass_t is not None and mass > hold.max_mass_t and not over_limit_ok:
+    # the limit and its round-off are the condition reader's too (profiles._read_hold_loads, at_most)
+    if hold.max_mass_t is not None and over_limit(mass, hold.max_mass_t) and not over_limit_ok:
         raise EntryError(f"{hold.id}: {mass:g} t is over the hold's structural limit {hold.max_mass_t:g} t.")
     if mass == 0:
         return condition.without_hold(hold.id)
@@ -388,8 +411,8 @@ def item_from_form(vessel: Vessel, form: ItemForm, *, deck: bool, base: MassItem
     name = form.name.strip()
     if not name:
         raise EntryError("Name: give the item a name.")
-    if len(name) > 200:
-        raise EntryError("Name: at most 200 characters.")
+    if len(name) > MAX_ITEM_NAME_CHARS:  # the condition reader's bound too
+        raise EntryError(f"Name: at most {MAX_ITEM_NAME_CHARS} characters.")
     if control_char(name) is not None:
         raise EntryError(f"Name: holds the control character {control_char(name)}; type plain text.")
     mr, xr, zr, yr = bounds.item_mass_range(vessel), bounds.x_range(p), bounds.z_range(p), bounds.y_range(p)
