@@ -171,3 +171,58 @@ def test_a_profile_without_draft_marks_is_told_what_is_missing():
         condition_from_readings(dataclasses.replace(vessel(), draft_marks=None), plane(vessel().draft_marks, 2.2, 1.0),
                                 RHO_SW)
     assert str(e.value) == "the vessel profile has no [draft_marks]: their positions are needed"
+
+
+# ------------------------------------------------------------------ twist and a list past the deck edge
+
+
+def listed_by_pair(marks: DraftMarks, t_mid_m: float, trim_m: float, lists_deg: tuple[float, float, float]):
+    """:func:`plane`'s readings with each pair (aft, midships, forward) listed on its own: a twisted
+    waterline no rigid hull floats at, as misread marks give it."""
+    r = [plane(marks, t_mid_m, trim_m, lst) for lst in lists_deg]
+    return MarkReadings(r[0].aft_port_m, r[0].aft_stbd_m, r[1].mid_port_m, r[1].mid_stbd_m,
+                        r[2].fwd_port_m, r[2].fwd_stbd_m)
+
+
+def test_a_twist_between_the_pairs_is_refused_as_a_misread_mark():
+    """Before: aft listed +10°, forward −10° (midships upright) was taken as upright, 'List 0.00', and
+    worked into a displacement with no word.  The bound (draft_marks.twist_bound, derived there):
+    |tan φa − tan φb| ≤ (LBP/100)·(1/ya + 1/yb); marks at y = 5 m on the 40 m barge give 0.4·0.4 = 0.16,
+    and tan 10° + tan 10° = 0.353 is beyond it."""
+    from deckload.core.draft_marks import twist_bound
+
+    marks = DraftMarks(DraftMark(2.0, 5.0), DraftMark(20.0, 5.0), DraftMark(39.0, 5.0))
+    assert twist_bound(L, 5.0, 5.0) == pytest.approx(0.01 * L * (1 / 5.0 + 1 / 5.0))
+    with pytest.raises(DraftMarksError, match=r"list of \+10\.00° at the aft marks and -10\.00° at the forward"):
+        condition_from_readings(with_marks(marks), listed_by_pair(marks, 2.2, 1.0, (10.0, 0.0, -10.0)), RHO_SW)
+    # A misread midships pair is caught as well (it is the list that is printed).
+    with pytest.raises(DraftMarksError, match="midships marks"):
+        condition_from_readings(with_marks(marks), listed_by_pair(marks, 2.2, 1.0, (1.0, 12.0, 1.0)), RHO_SW)
+
+
+@pytest.mark.parametrize("y_fwd_m", [5.0, 0.5])
+def test_readings_within_the_draught_tolerance_are_never_taken_for_a_twist(y_fwd_m):
+    """UR L5 (standards.md §5.3): 5 cm on a draught.  The four end marks each 5 cm off, in the senses
+    that twist most (aft P −, S +; forward P +, S −), at a forward pair as narrow as 0.5 m: accepted."""
+    marks = DraftMarks(DraftMark(2.0, 5.0), DraftMark(20.0, 5.0), DraftMark(39.0, y_fwd_m))
+    r = plane(marks, 2.2, 1.0, 1.0)
+    e = 0.05
+    r = MarkReadings(r.aft_port_m - e, r.aft_stbd_m + e, r.mid_port_m, r.mid_stbd_m,
+                     r.fwd_port_m + e, r.fwd_stbd_m - e)
+    o = condition_from_readings(with_marks(marks), r, RHO_SW)
+    assert o.list_deg == pytest.approx(1.0, abs=1e-9)
+
+
+def test_a_list_beyond_the_deck_edge_angle_is_refused():
+    """Before: a list past the deck-edge immersion angle was worked from the upright tables as any
+    other.  With the profile's deck-edge table at 10° (a hull with sheer or a low deck at the side,
+    where the table is below the wall-sided angle atan(1.8/5) = 19.8° at 2.2 m), a consistent 12°
+    list at every pair is refused; 9° is worked."""
+    from deckload.core.model import LimitCurve
+
+    marks = DraftMarks(DraftMark(2.0, 5.0), DraftMark(20.0, 5.0), DraftMark(39.0, 5.0))
+    edge = LimitCurve(frozen_array(np.array([100.0, 2000.0])), frozen_array(np.array([10.0, 10.0])), "deck_edge_deg")
+    v = dataclasses.replace(with_marks(marks), deck_edge=edge)
+    with pytest.raises(DraftMarksError, match=r"list of \+12\.00° .*beyond the deck-edge immersion angle of 10\.0°"):
+        condition_from_readings(v, plane(marks, 2.2, 1.0, 12.0), RHO_SW)
+    assert condition_from_readings(v, plane(marks, 2.2, 1.0, 9.0), RHO_SW).list_deg == pytest.approx(9.0)

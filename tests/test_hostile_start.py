@@ -278,9 +278,48 @@ def test_temp_files_of_an_interrupted_save_are_cleaned_and_a_complete_one_kept(v
     torn.write_text(DEMO_CONDITIONS["arrival"].read_text(encoding="utf-8")[:40], encoding="utf-8")
     stray = tmp_path / ".other.toml.xyz.tmp"
     stray.write_text("x")
+    _age(complete, torn, stray)
     _, condition, notices, _, _ = load_inputs(None, None, tmp_path)
     assert condition == load_condition(DEMO_CONDITIONS["departure"], vessel)
     assert not complete.exists() and not torn.exists() and not stray.exists()
     kept = saved.with_name(saved.name + ".interrupted")
     assert kept.read_text(encoding="utf-8") == DEMO_CONDITIONS["arrival"].read_text(encoding="utf-8")
     assert any("interrupted" in n and str(kept) in n for n in notices)
+
+
+def _age(*files, seconds: float | None = None) -> None:
+    """Set the files' modification time ``seconds`` back (default: just past the age at which no live
+    save can own a temporary file, launch.STALE_TEMP_S)."""
+    import os
+    import time
+
+    from deckload.ui.launch import STALE_TEMP_S
+
+    back = STALE_TEMP_S + 1.0 if seconds is None else seconds
+    for f in files:
+        t = time.time() - back
+        os.utime(f, (t, t))
+
+
+def test_a_save_in_progress_in_the_working_folder_is_left_alone_at_start(vessel, tmp_path):
+    """Before: every ``.*.tmp`` in the working folder was removed at start, another vessel's (or
+    another window's) save in progress too, which then failed at its rename.  A temporary file
+    younger than STALE_TEMP_S may have a live writer: it is left as it is, this vessel's and
+    another's alike, and no notice claims an interrupted save."""
+    saved = working_path(tmp_path, vessel)
+    saved.parent.mkdir(parents=True, exist_ok=True)
+    saved.write_text(DEPARTURE, encoding="utf-8")
+    other = tmp_path / ".demo-trawler-0123456789.condition.toml.k3j4h5.tmp"  # another vessel's save
+    other.write_text(DEMO_CONDITIONS["arrival"].read_text(encoding="utf-8")[:100], encoding="utf-8")
+    own = tmp_path / f".{saved.name}.q1w2e3.tmp"  # another window's save of this vessel
+    own.write_text(DEMO_CONDITIONS["arrival"].read_text(encoding="utf-8"), encoding="utf-8")
+    _age(other, own, seconds=5.0)
+    _, condition, notices, _, _ = load_inputs(None, None, tmp_path)
+    assert other.exists() and own.exists()
+    assert not saved.with_name(saved.name + ".interrupted").exists()
+    assert not any("interrupted" in n for n in notices)
+    # Once old enough that no live save can own them, they are what an interrupted save left.
+    _age(other, own)
+    _, _, notices, _, _ = load_inputs(None, None, tmp_path)
+    assert not other.exists() and not own.exists()
+    assert saved.with_name(saved.name + ".interrupted").exists()

@@ -249,3 +249,140 @@ def test_a_hard_link_a_symbolic_link_and_another_spelling_are_the_same_file(tmp_
         with pytest.raises(OutputRefused, match="a table read"):
             refuse_overwrite(tmp_path / out, [(src, "a table read")])
     refuse_overwrite(tmp_path / "other.csv", [(src, "a table read")])  # another file: nothing to refuse
+
+
+# ------------------------------------------------------------------ wherever the log is; what is not a file
+
+
+def test_report_never_replaces_a_voyage_log_kept_in_another_folder(tmp_path, logdir, capsys):
+    """Before: ``report -o`` on the log of a folder named with ``log --dir`` (not the folder in use)
+    printed 'report written to …/demo-islander.log.jsonl', exit 0, and the log was HTML.  A log is
+    refused by its name anywhere, and by its first line (a log record) under any name."""
+    ship_logs = tmp_path / "ship_logs"
+    log = record(ship_logs)
+    copy = tmp_path / "evidence.txt"
+    copy.write_bytes(log.read_bytes())
+    head = ship_logs / "demo-islander.log.head.json"
+    head_copy = tmp_path / "head-kept.json"
+    head_copy.write_bytes(head.read_bytes())
+    before = snapshot(ship_logs) | {str(copy): copy.read_bytes().hex(), str(head_copy): head_copy.read_bytes().hex()}
+    for out in (log, head, copy, head_copy):
+        capsys.readouterr()
+        assert main(["report", "demo", "departure", "--txt", "-o", str(out)]) == 1
+        refused(capsys, str(out))
+        assert main(["log", "--dir", str(logdir), "export", "--csv", "-o", str(out)]) == 1
+        refused(capsys, str(out))
+    assert snapshot(ship_logs) | {str(copy): copy.read_bytes().hex(), str(head_copy): head_copy.read_bytes().hex()} == before
+    assert main(["log", "--dir", str(ship_logs), "verify"]) == 0
+    plain = tmp_path / "report.txt"  # an ordinary file is written over as ever
+    plain.write_text("an older report\n", encoding="utf-8")
+    assert main(["report", "demo", "departure", "--txt", "-o", str(plain)]) == 0
+    assert "Demo Islander" in plain.read_text(encoding="utf-8")
+
+
+def test_the_log_format_pattern_is_the_logbooks():
+    """outputs.LOG_FORMAT recognises what the logbook writes (io cannot import the logbook)."""
+    from deckload.io.outputs import LOG_FORMAT
+    from deckload.logbook.records import FORMAT
+    from deckload.logbook.storage import HEAD_FORMAT
+
+    assert LOG_FORMAT.fullmatch(FORMAT) and LOG_FORMAT.fullmatch(HEAD_FORMAT)
+
+
+def test_no_command_puts_a_regular_file_in_the_place_of_a_pipe(tmp_path, logdir, trawler, islander, capsys,
+                                                                 monkeypatch):
+    """Before: a named pipe given as the output (and, as root, a device node) was replaced by a
+    regular file by the atomic save.  Each command refuses, exit 1, and the pipe is still a pipe."""
+    import stat
+
+    import deckload.cli.tables as tables_cli
+
+    monkeypatch.setattr(tables_cli, "build_tables", lambda *a, **k: (_ for _ in ()).throw(AssertionError("computed")))
+    record(logdir)
+    fifo = tmp_path / "out.txt"
+    os.mkfifo(fifo)
+    folder = tmp_path / "csv-out"
+    folder.mkdir()
+    os.mkfifo(folder / "hydrostatics.csv")
+    runs = [
+        (["report", "demo", "departure", "--txt", "-o", str(fifo)], fifo),
+        (["log", "--dir", str(logdir), "export", "--html", "-o", str(fifo)], fifo),
+        (["tables", str(islander.parent / "demo_islander.geometry.toml"), "-o", str(fifo)], fifo),
+        (["csv", str(trawler), str(folder)], folder / "hydrostatics.csv"),
+    ]
+    for argv, target in runs:
+        capsys.readouterr()
+        assert main(argv) == 1, argv
+        err = refused(capsys, str(target))
+        assert "is not a regular file but a pipe" in err
+        assert stat.S_ISFIFO(os.stat(target).st_mode)
+    assert sorted(p.name for p in folder.iterdir()) == ["hydrostatics.csv"]
+
+
+# ------------------------------------------------------------------ tables -o on a full disk
+
+
+def _full_disk(monkeypatch):
+    """Every write fills the disk half-way through and fails with ENOSPC: write_atomic's (its
+    _write_all) and a plain copy's (shutil.copyfile truncates the target, then writes)."""
+    import errno
+    import shutil
+
+    import deckload.io.atomicfile as atomicfile
+
+    def write_half(fh, data):
+        fh.write(data[: len(data) // 2])
+        raise OSError(errno.ENOSPC, os.strerror(errno.ENOSPC))
+
+    def copy_half(src, dst, *a, **k):
+        data = Path(src).read_bytes()
+        Path(dst).write_bytes(data[: len(data) // 2])
+        raise OSError(errno.ENOSPC, os.strerror(errno.ENOSPC))
+
+    monkeypatch.setattr(atomicfile, "_write_all", write_half)
+    monkeypatch.setattr(shutil, "copyfile", copy_half)
+
+
+def test_tables_on_a_full_disk_says_so_and_loses_neither_the_profile_nor_an_earlier_bak(islander, logdir, capsys,
+                                                                                          monkeypatch):
+    """Before: 'internal error … OSError', exit 3; the .bak copy (not atomic) had truncated the earlier
+    .bak first, and left half a copy.  Now: 'cannot write FILE: No space left on device', exit 2, the
+    profile and the earlier .bak as they were, no temporary file left."""
+    import deckload.cli.tables as tables_cli
+
+    profile = islander
+    profile.write_text("# kept by hand\n" + profile.read_text(encoding="utf-8"), encoding="utf-8")
+    bak = profile.with_name(profile.name + ".bak")
+    bak.write_text("AN EARLIER BACKUP\n", encoding="utf-8")
+    monkeypatch.setattr(tables_cli, "build_profile_text", lambda *a, **k: ('format = "deckload-profile-1"\n', []))
+    before = snapshot(profile.parent)
+    _full_disk(monkeypatch)
+    capsys.readouterr()
+    assert main(["tables", str(profile.parent / "demo_islander.geometry.toml"), "-o", str(profile)]) == 2
+    err = capsys.readouterr().err
+    assert f"cannot write {bak}: No space left on device" in err and "internal error" not in err
+    assert snapshot(profile.parent) == before
+    assert not [p for p in profile.parent.iterdir() if p.name.endswith(".tmp")]
+
+
+def test_tables_on_a_full_disk_when_the_profile_itself_fails(islander, logdir, capsys, monkeypatch):
+    """No comments, so no .bak: the profile's own write fails; exit 2 naming it, the profile intact."""
+    import errno
+
+    import deckload.cli.tables as tables_cli
+    import deckload.io.atomicfile as atomicfile
+
+    monkeypatch.setattr(tables_cli, "build_profile_text", lambda *a, **k: ('format = "deckload-profile-1"\n', []))
+    profile = islander
+    profile.write_text("\n".join(line for line in profile.read_text(encoding="utf-8").splitlines()
+                                 if not line.lstrip().startswith("#")) + "\n", encoding="utf-8")
+    before = snapshot(profile.parent)
+
+    def read_only(fh, data):
+        raise OSError(errno.EROFS, os.strerror(errno.EROFS))
+
+    monkeypatch.setattr(atomicfile, "_write_all", read_only)
+    capsys.readouterr()
+    assert main(["tables", str(profile.parent / "demo_islander.geometry.toml"), "-o", str(profile)]) == 2
+    assert f"cannot write {profile}: Read-only file system" in capsys.readouterr().err
+    assert snapshot(profile.parent) == before

@@ -51,71 +51,116 @@ def _parser(only: str | None = None) -> argparse.ArgumentParser:
         return sub.add_parser(name, **kwargs) if only is None or name == only else _NotDeclared()
 
     o = add("open", help="open the loading screen on a vessel (default: the demo vessel)")
-    o.add_argument("profile", nargs="?", type=Path)
-    o.add_argument("condition", nargs="?", type=Path)
+    o.add_argument("profile", nargs="?", type=_path)
+    o.add_argument("condition", nargs="?", type=_path)
 
     c = add("calc", help="compute a loading condition and print the result")
-    c.add_argument("profile", type=Path)
-    c.add_argument("condition", type=Path)
+    c.add_argument("profile", type=_path)
+    c.add_argument("condition", type=_path)
     c.add_argument("--json", action="store_true", help="print one JSON object (SI units)")
     c.add_argument("--direct", action="store_true",
                    help="also compute from the hull geometry and print both methods side by side")
 
     k = add("check", help="validate a vessel profile and, optionally, a loading condition")
-    k.add_argument("profile", type=Path)
-    k.add_argument("condition", nargs="?", type=Path)
+    k.add_argument("profile", type=_path)
+    k.add_argument("condition", nargs="?", type=_path)
 
     t = add("tables", help="compute hydrostatic, cross-curve and tank tables from hull geometry")
-    t.add_argument("geometry", type=Path)
-    t.add_argument("-o", "--output", type=Path, help="profile to write or refresh (default: print to stdout)")
-    t.add_argument("--trims", metavar="T1,T2,...",
+    t.add_argument("geometry", type=_path)
+    t.add_argument("-o", "--output", type=_path, help="profile to write or refresh (default: print to stdout)")
+    t.add_argument("--trims", metavar="T1,T2,...", type=_text,
                    help="also hydrostatics and KN at these trims (m, + by the stern, comma-separated, not 0)")
 
     x = add("csv", help="write a profile's tables as CSV files, in the booklet's conventions, to compare")
-    x.add_argument("profile", type=Path)
-    x.add_argument("folder", type=Path, help="folder to write the CSV files in (created if missing)")
+    x.add_argument("profile", type=_path)
+    x.add_argument("folder", type=_path, help="folder to write the CSV files in (created if missing)")
     mk = add("marks", help="drafts at the marks; with readings, the displacement and LCG they imply")
-    mk.add_argument("profile", type=Path)
-    mk.add_argument("condition", type=Path)
+    mk.add_argument("profile", type=_path)
+    mk.add_argument("condition", type=_path)
     for where in ("aft", "mid", "fwd"):
         mk.add_argument(f"--{where}", nargs=2, type=_reading, metavar=("PORT", "STBD"),
                         help=f"{where} draft readings, port and starboard (m, extreme)")
 
     r = add("report", help="printable loading-condition report")
-    r.add_argument("profile", type=Path)
-    r.add_argument("condition", type=Path)
+    r.add_argument("profile", type=_path)
+    r.add_argument("condition", type=_path)
     fmt = r.add_mutually_exclusive_group()
     fmt.add_argument("--html", action="store_true")
     fmt.add_argument("--txt", action="store_true")
-    r.add_argument("-o", "--output", type=Path)
+    r.add_argument("-o", "--output", type=_path)
     r.add_argument("--direct", action="store_true", help="add the direct calculation from the hull geometry")
 
     lg = add("log", help="the voyage loading log")
-    lg.add_argument("--dir", type=Path, help="log folder (default: ./logs in a checkout, else per-user)")
+    lg.add_argument("--dir", type=_path, help="log folder (default: ./logs in a checkout, else per-user)")
     lsub = lg.add_subparsers(dest="log_command", required=True)
     rec = lsub.add_parser("record", help="record a loading condition in the log")
-    rec.add_argument("profile", type=Path)
-    rec.add_argument("condition", type=Path)
-    rec.add_argument("--by", required=True, help="initials of the officer recording it")
-    rec.add_argument("--remark", default="")
-    rec.add_argument("--kind", default="condition", help="event kind (default: condition)")
-    rec.add_argument("--ship-offset", help="ship's clock offset from UTC, +HH:MM (default: local timezone)")
+    rec.add_argument("profile", type=_path)
+    rec.add_argument("condition", type=_path)
+    rec.add_argument("--by", required=True, type=_text, help="initials of the officer recording it")
+    rec.add_argument("--remark", default="", type=_text)
+    rec.add_argument("--kind", default="condition", type=_text, help="event kind (default: condition)")
+    rec.add_argument("--ship-offset", type=_text, help="ship's clock offset from UTC, +HH:MM (default: local timezone)")
     show = lsub.add_parser("show", help="print the log")
-    show.add_argument("--vessel", help="vessel name (default: every log in the folder)")
+    show.add_argument("--vessel", type=_text, help="vessel name (default: every log in the folder)")
     exp = lsub.add_parser("export", help="export the log")
     efmt = exp.add_mutually_exclusive_group(required=True)
     efmt.add_argument("--csv", action="store_true")
     efmt.add_argument("--html", action="store_true")
-    exp.add_argument("--vessel")
-    exp.add_argument("-o", "--output", type=Path)
+    exp.add_argument("--vessel", type=_text)
+    exp.add_argument("-o", "--output", type=_path)
     ver = lsub.add_parser("verify", help="check the log's hash chain")
-    ver.add_argument("--vessel")
+    ver.add_argument("--vessel", type=_text)
     ver.add_argument("--recover", action="store_true",
                      help="first set aside a torn last line (takes the writer's lock)")
-    ver.add_argument("--against", metavar="HASH",
+    ver.add_argument("--against", metavar="HASH", type=_text,
                      help="also check a paper copy's anchor: the SHA-256 (or its first 12+ hex digits, "
                           "optionally as N:HASH) printed on a report or export")
     return p
+
+
+def _undecodable(text: str, way_out: str) -> str | None:
+    """Why ``text`` is not text, or None: Python hands over the bytes of an argument that are not
+    valid in the terminal's encoding as lone surrogates, which no report, log or message can write
+    ('surrogates not allowed' from deep inside, naming nothing)."""
+    if not any("\udc80" <= ch <= "\udcff" for ch in text):
+        return None
+    raw = text.encode(sys.getfilesystemencoding(), "surrogateescape")
+    bad = next(ord(ch) - 0xDC00 for ch in text if "\udc80" <= ch <= "\udcff")
+    shown = raw.decode("ascii", "backslashreplace")
+    return (f"'{shown}' is not valid {sys.getfilesystemencoding()} text (byte 0x{bad:02X}): {way_out}; "
+            "reports and the log write text as UTF-8")
+
+
+def _text(text: str) -> str:
+    """A text argument: refused, naming the argument (argparse adds it), when it is not valid text."""
+    why = _undecodable(text, "type it in the terminal's encoding")
+    if why:
+        raise argparse.ArgumentTypeError(why)
+    return text
+
+
+def _path(text: str) -> Path:
+    """A file or folder argument: not empty (``Path("")`` is the current folder: ``-o ""`` tried to
+    write over it), valid text (:func:`_undecodable`), and no name longer than the file system
+    allows (``Path.exists`` raises on one; the error named nothing).  argparse names the argument."""
+    import errno
+
+    if not text.strip():
+        raise argparse.ArgumentTypeError(f"an empty file name ({text!r}): name a file")
+    why = _undecodable(text, "rename the file, or type its name in the terminal's encoding")
+    if why:
+        raise argparse.ArgumentTypeError(why)
+    try:
+        os.stat(text)
+    except OSError as e:
+        if e.errno == errno.ENAMETOOLONG:
+            longest = max(len(part.encode("utf-8")) for part in text.split(os.sep))
+            raise argparse.ArgumentTypeError(
+                f"file name too long ({len(text)} characters, its longest part {longest} bytes; this file "
+                "system allows 255 bytes a name on most systems): no file or condition has such a name") from None
+    except ValueError:  # a NUL byte cannot reach here from a command line; refused as not a file name
+        raise argparse.ArgumentTypeError(f"{text!r} is not a file name") from None
+    return Path(text)
 
 
 def _reading(text: str) -> float:
@@ -131,6 +176,23 @@ def _reading(text: str) -> float:
     return x
 
 
+def _exists(path: Path) -> bool:
+    """``Path.exists`` that says False where it would raise (a folder on the way that cannot be
+    searched, a name too long): the command then reads the file and says why it cannot."""
+    try:
+        return path.exists()
+    except (OSError, ValueError):
+        return False
+
+
+def _is_file(path: Path) -> bool:
+    """``Path.is_file``, False where it would raise (as :func:`_exists`)."""
+    try:
+        return path.is_file()
+    except (OSError, ValueError):
+        return False
+
+
 def _demo_shorthand(args: argparse.Namespace) -> str | None:
     """Let 'demo' or 'trawler' stand for a packaged demo profile and a condition's key for its file.
 
@@ -139,13 +201,13 @@ def _demo_shorthand(args: argparse.Namespace) -> str | None:
     from deckload.io.paths import DEMO_VESSELS
 
     profile = getattr(args, "profile", None)
-    if profile is not None and str(profile) in DEMO_VESSELS and not profile.is_file():
+    if profile is not None and str(profile) in DEMO_VESSELS and not _is_file(profile):
         name = str(profile)
         args.profile, conditions = DEMO_VESSELS[name]
         cond = getattr(args, "condition", None)
         if cond is not None and str(cond) in conditions:
             args.condition = conditions[str(cond)]
-        elif cond is not None and not Path(cond).exists():
+        elif cond is not None and not _exists(Path(cond)):
             # 'working', a stock condition's name, or one saved on the screen (deckload.io.condition_files)
             found = _resolve_name(args)
             if isinstance(found, Path):
@@ -181,7 +243,7 @@ def _named_condition(args: argparse.Namespace) -> str | None:
     Returns what to print when the name matches nothing (the message lists what exists)."""
     cond = getattr(args, "condition", None)
     profile = getattr(args, "profile", None)
-    if cond is None or profile is None or Path(cond).is_file() or not Path(profile).is_file():
+    if cond is None or profile is None or _is_file(Path(cond)) or not _is_file(Path(profile)):
         return None
     from deckload.io import paths
     from deckload.io.condition_files import ConditionNotFound, resolve

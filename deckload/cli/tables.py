@@ -21,7 +21,9 @@ Everything else in an existing profile — format, the other ``[vessel]`` keys,
 ``[lightship]``, ``[criteria]``, ``[free_surface]``, ``[[load_line]]``,
 ``[limit_curve]``, remarks, and tanks or holds that the geometry does not name —
 is kept as it is.  The file is replaced atomically; TOML comments cannot survive a
-rewrite, so when the old file has any a copy is kept beside it as ``*.bak``.  The profile
+rewrite, so when the old file has any a copy is kept beside it as ``*.bak``, itself written
+atomically (an earlier ``*.bak`` is replaced whole or not at all: on a full disk it stays as it
+was).  A file that cannot be written is named with the reason, exit 2, nothing else changed.  The profile
 written is never the geometry file read nor a file of the voyage log (nor is its ``*.bak``):
 the command refuses before it computes (:mod:`deckload.io.outputs`).
 
@@ -33,7 +35,6 @@ byte-for-byte identical.
 from __future__ import annotations
 
 import re
-import shutil
 import sys
 import time
 import tomllib
@@ -407,8 +408,18 @@ def build_profile_text(geometry_path: Path, existing_text: str | None, progress=
     return render(doc), notes + summary(vt) + extra
 
 
+def _exists(path: Path) -> bool:
+    """``path`` names something (a name too long or a folder that cannot be searched: it does not,
+    and reading or writing it then says why)."""
+    try:
+        return path.exists()
+    except (OSError, ValueError):
+        return False
+
+
 def run_tables(geometry_path: Path, output_path: Path | None, trims_text: str | None = None) -> int:
-    """The command: exit 0 when written, 1 on bad input (message on stderr)."""
+    """The command: exit 0 when written, 1 on bad input, 2 when the profile (or its ``.bak``) cannot
+    be written (message on stderr)."""
     start = time.perf_counter()
     trims = None
     if trims_text is not None:
@@ -422,6 +433,7 @@ def run_tables(geometry_path: Path, output_path: Path | None, trims_text: str | 
         print(f"deckload tables: {msg} ({time.perf_counter() - start:.1f} s)", file=sys.stderr, flush=True)
 
     existing_text = None
+    existing_bytes = b""
     if output_path is not None:
         from deckload.io.outputs import OutputRefused, refuse_overwrites
 
@@ -432,11 +444,12 @@ def run_tables(geometry_path: Path, output_path: Path | None, trims_text: str | 
         except OutputRefused as e:
             print(f"deckload tables: {e}: nothing written; name another profile to write", file=sys.stderr)
             return 1
-    if output_path is not None and output_path.exists():
+    if output_path is not None and _exists(output_path):
         from deckload.io.limits import MAX_TOML_BYTES, read_limited
 
         try:
-            existing_text = read_limited(output_path, MAX_TOML_BYTES, "a profile").decode("utf-8")
+            existing_bytes = read_limited(output_path, MAX_TOML_BYTES, "a profile")
+            existing_text = existing_bytes.decode("utf-8")
             tomllib.loads(existing_text)
         except (OSError, UnicodeDecodeError) as e:
             print(f"deckload tables: cannot read {output_path}: {e}", file=sys.stderr)
@@ -464,14 +477,26 @@ def run_tables(geometry_path: Path, output_path: Path | None, trims_text: str | 
     if output_path is None:
         sys.stdout.write(text)
         return 0
-    if existing_text is not None and existing_text != text and _has_comments(existing_text):
-        shutil.copyfile(output_path, backup)
-        print(f"deckload tables: {output_path} had comments, which a rewrite cannot keep; "
-              f"the old file is saved as {backup}", file=sys.stderr)
     if existing_text == text:
         print(f"deckload tables: {output_path} is already up to date", file=sys.stderr)
         return 0
-    write_atomic(output_path, text)
+    if existing_text is not None and _has_comments(existing_text):
+        # Atomic like the profile itself: a copy that fails half-way (a full disk) must not cost
+        # the .bak kept from an earlier run.
+        try:
+            write_atomic(backup, existing_bytes)
+        except OSError as e:
+            print(f"deckload tables: cannot write {backup}: {e.strerror or e}; nothing written ({output_path} "
+                  f"and {backup} are as they were)", file=sys.stderr)
+            return 2
+        print(f"deckload tables: {output_path} had comments, which a rewrite cannot keep; "
+              f"the old file is saved as {backup}", file=sys.stderr)
+    try:
+        write_atomic(output_path, text)
+    except OSError as e:
+        print(f"deckload tables: cannot write {output_path}: {e.strerror or e}; it is as it was",
+              file=sys.stderr)
+        return 2
     print(f"deckload tables: wrote {output_path} ({time.perf_counter() - start:.1f} s). "
           "Check the tables against the approved stability booklet before relying on them.", file=sys.stderr)
     return 0

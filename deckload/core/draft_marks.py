@@ -14,7 +14,10 @@ Reverse (a draft survey; common practice, e.g. the UN/ECE Code of uniform standa
 and procedures for draught surveys of coal cargoes, 1992 — from memory).
 
 1. At each mark the mean of port and starboard is the centreline draft (exactly: the
-   waterline is a plane); the list is atan((S − P)/(2y)).
+   waterline is a plane); the list is atan((S − P)/(2y)).  A rigid hull lists alike at every
+   mark: pairs that disagree beyond what misread marks of the size the hog/sag bound refuses
+   would explain are refused (:func:`twist_bound`), and so is a list beyond the deck-edge
+   immersion angle, where the upright tables no longer hold (:func:`_refuse_list`).
 2. Less the keel thickness, the aft and forward drafts give the trim
    t = (T_a − T_f)·LBP/(x_f − x_a) and the drafts at the perpendiculars; the midships
    reading is carried along the same slope to LBP/2 (T_M).
@@ -55,6 +58,26 @@ MAX_DEFLECTION_FRACTION = 0.01
 deflects by the order of LBP/1000 (common practice, from memory: a large ship's hog or sag is tens
 of centimetres), so a bound ten times that passes every real ship and still refuses a mark read
 a metre wrong (1.70 m of sag on a 38 m hull is LBP/22)."""
+
+
+def twist_bound(lbp_m: float, y_a_m: float, y_b_m: float) -> float:
+    """The greatest |tan φ_a − tan φ_b| accepted between the lists two pairs of marks give
+    (off the centreline by y_a and y_b, both > 0).
+
+    A rigid hull's waterline is a plane, so every pair reads the same list; the hull girder's
+    torsion at rest is far below anything the marks can show (common practice).  A difference
+    is then the readings': a pair's tan φ = (S − P)/(2y), so each of its two marks misread by e
+    (in opposite senses) moves it by e/y, and the four marks of two pairs misread by e move
+    tan φ_a − tan φ_b by at most e·(1/y_a + 1/y_b).  The hog/sag bound refuses the readings when
+    the midships pair misread by LBP/100 (both marks alike: T_M moves by e, the deflection by e)
+    would be needed; the same misreading here, e = :data:`MAX_DEFLECTION_FRACTION` × LBP, gives
+
+        bound = (LBP/100)·(1/y_a + 1/y_b).
+
+    Readings within the UR L5 5 cm tolerance always pass it on a hull longer than 5 m
+    (e ≥ 0.05 m); a mark read a whole mark figure wrong at a narrow bow pair does not."""
+    e = MAX_DEFLECTION_FRACTION * lbp_m
+    return e * (1.0 / y_a_m + 1.0 / y_b_m)
 
 
 class DraftMarksError(ValueError):
@@ -176,6 +199,12 @@ def condition_from_readings(vessel: Vessel, readings: MarkReadings, water_densit
     t_a, l_a = centre(readings.aft_port_m, readings.aft_stbd_m, dm.aft.y_m)
     t_m, l_m = centre(readings.mid_port_m, readings.mid_stbd_m, dm.midships.y_m)
     t_f, l_f = centre(readings.fwd_port_m, readings.fwd_stbd_m, dm.forward.y_m)
+    said = (f"the readings (port/starboard) aft {_m(readings.aft_port_m)}/{_m(readings.aft_stbd_m)}, "
+            f"midships {_m(readings.mid_port_m)}/{_m(readings.mid_stbd_m)}, "
+            f"forward {_m(readings.fwd_port_m)}/{_m(readings.fwd_stbd_m)} m")
+    pairs = [(w, lst, y) for w, lst, y in (("aft", l_a, dm.aft.y_m), ("midships", l_m, dm.midships.y_m),
+                                           ("forward", l_f, dm.forward.y_m)) if y > 0]
+    _refuse_twist(said, pairs, lbp)
     slope = (t_f - t_a) / (dm.forward.x_m - dm.aft.x_m)  # d(draft)/dx, − trim/LBP
     t_ap = t_a - slope * dm.aft.x_m
     t_fp = t_a + slope * (lbp - dm.aft.x_m)
@@ -185,9 +214,6 @@ def condition_from_readings(vessel: Vessel, readings: MarkReadings, water_densit
     t_q = (t_ap + 6.0 * t_mid + t_fp) / 8.0
 
     h = vessel.hydrostatics
-    said = (f"the readings (port/starboard) aft {_m(readings.aft_port_m)}/{_m(readings.aft_stbd_m)}, "
-            f"midships {_m(readings.mid_port_m)}/{_m(readings.mid_stbd_m)}, "
-            f"forward {_m(readings.fwd_port_m)}/{_m(readings.fwd_stbd_m)} m")
     top = float(h.draft_m[-1])
     for where, d in (("at the AP", t_ap), ("midships", t_mid), ("at the FP", t_fp)):
         if not 0.0 <= d <= top * (1 + 1e-9):
@@ -209,6 +235,7 @@ def condition_from_readings(vessel: Vessel, readings: MarkReadings, water_densit
             break
         x_f = x_new
     d_table = interp(h.draft_m, h.displacement_t, t_lcf, "draft at the LCF (hydrostatic table)", "m")
+    _refuse_list(said, pairs, vessel, d_table, t_mid)
     # Nemoto's second trim correction: dMCTC/dz from MCTC half a metre either side; within half a
     # metre of a table end the span stops at the end, so the slope is one-sided there (at the end
     # itself too: a centred span shrunk to nothing dropped the correction).
@@ -238,6 +265,46 @@ def condition_from_readings(vessel: Vessel, readings: MarkReadings, water_densit
         second_trim_correction_t=stc, table_displacement_t=d_table, displacement_t=disp, lcb_m=hy.lcb_m,
         mctc_tm_cm=mctc, mctc_basis=basis, lcg_m=lcg, notes=tuple(notes),
     )
+
+
+def _refuse_twist(said: str, pairs: list[tuple[str, float, float]], lbp_m: float) -> None:
+    """Refuse pairs of marks whose lists disagree beyond :func:`twist_bound`, naming the two that
+    disagree most for their bound (a pair on the centreline, y = 0, gives no list and is left out)."""
+    worst = None
+    for i, (wa, la, ya) in enumerate(pairs):
+        for wb, lb, yb in pairs[i + 1:]:
+            diff = abs(math.tan(math.radians(la)) - math.tan(math.radians(lb)))
+            bound = twist_bound(lbp_m, ya, yb)
+            if diff > bound and (worst is None or diff / bound > worst[0]):
+                worst = (diff / bound, wa, la, wb, lb, diff, bound)
+    if worst is not None:
+        _, wa, la, wb, lb, diff, bound = worst
+        raise DraftMarksError(
+            f"{said} give a list of {la:+.2f}° at the {wa} marks and {lb:+.2f}° at the {wb} marks: a hull "
+            f"lists alike along her length, and |tan φ| differing by {diff:.3f} is more than the "
+            f"{bound:.3f} that marks misread by LBP/100 = {MAX_DEFLECTION_FRACTION * lbp_m:.3f} m would give; "
+            "a mark is misread")
+
+
+def _refuse_list(said: str, pairs: list[tuple[str, float, float]], vessel: Vessel, table_displacement_t: float,
+                 draft_mid_m: float) -> None:
+    """Refuse a list beyond the deck-edge immersion angle: past it the waterplane loses the deck
+    edge's side, the upright hydrostatic table no longer gives her displacement and the mean of
+    port and starboard is no longer read on the wall side (module docstring, step 1).  The list is
+    the one of the pair farthest off the centreline (the longest lever, the best read); the angle
+    is :func:`deckload.core.verdict.deck_edge_angle`'s (the profile's deck-edge table, else
+    wall-sided at midships)."""
+    from deckload.core.verdict import deck_edge_angle
+
+    if not pairs:
+        return
+    where, lst, _ = max(pairs, key=lambda p: p[2])
+    edge, _ = deck_edge_angle(vessel, table_displacement_t, draft_mid_m)
+    if abs(lst) > edge:
+        raise DraftMarksError(
+            f"{said} give a list of {lst:+.2f}° (at the {where} marks), beyond the deck-edge immersion angle of "
+            f"{edge:.1f}°: the upright hydrostatic tables do not hold with the deck edge under water, so no "
+            "displacement is worked from these readings; check the readings, or take them upright")
 
 
 def _m(x: float) -> str:

@@ -127,7 +127,11 @@ def resolve(profile_path: Path, typed: str, vessel_name: str, work_dir: Path) ->
     from deckload.io import paths
 
     given = Path(typed)
-    if given.exists() and not given.is_dir():
+    try:
+        is_path = given.exists() and not given.is_dir()
+    except (OSError, ValueError):  # a name too long for a file (ENAMETOOLONG) is looked up as a condition's name
+        is_path = False
+    if is_path:
         # a pipe or device named as the file is that file: reading it refuses it, naming it
         return given
     want = typed.strip().casefold()

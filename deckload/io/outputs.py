@@ -10,7 +10,13 @@ Every command that writes a file named on its command line (``report -o``, ``log
   files, the stock condition files beside it);
 * a file of a voyage log in a log folder (:func:`log_folder_files`: the log, its head
   record, its lock file, a torn line set aside), or a working or saved condition of the
-  loading screen (``working/`` in the log folder).
+  loading screen (``working/`` in the log folder);
+* wherever it is, an existing file named as a voyage log's files are (:data:`LOG_FILE_PATTERNS`)
+  or whose first line is a record of a voyage log or its head (:func:`is_voyage_log`): a log
+  kept in a folder the command was not told of (one named with ``log --dir``, a copy on a
+  stick) is as much evidence as the one in use;
+* an existing thing that is not a regular file (a folder, a pipe, a device, a socket): the
+  atomic save would put a regular file in its place (:func:`not_a_regular_file`).
 
 "The same file" is decided as the system sees it: ``os.stat`` of both (symbolic links
 followed) with the same device and inode — a hard link, a symbolic link or another
@@ -25,13 +31,21 @@ hash-chained evidence of the log; a copy beside them would be one more file to m
 from __future__ import annotations
 
 import fnmatch
+import json
 import os
+import re
+import stat
 from collections.abc import Iterable
 from pathlib import Path
 
 LOG_FILE_PATTERNS = ("*.log.jsonl", "*.log.head.json", "*.log.lock", "*.log.jsonl.torn-*")
 """The files the voyage log keeps per vessel in its folder (deckload.logbook): the log, its
 head record, its writer's lock and a torn last line set aside."""
+
+LOG_FORMAT = re.compile(r"deckload-log(-head)?-[0-9]+")
+"""The ``format`` of a voyage log's lines (``deckload-log-1``) and of its head record
+(``deckload-log-head-1``), as :mod:`deckload.logbook` writes them (this layer cannot import it;
+a test holds the two to this pattern)."""
 
 FILE_KEYS = ("csv", "hull_geometry", "condition_file")
 """Keys of a profile whose value names a file the profile reads, relative to the profile's folder."""
@@ -40,6 +54,55 @@ FILE_KEYS = ("csv", "hull_geometry", "condition_file")
 class OutputRefused(Exception):
     """Writing the named output would replace a file deckload reads or keeps; the message names
     the path and what the file is (the command adds what it did not write, and the way out)."""
+
+
+def is_voyage_log(path: str | os.PathLike) -> bool:
+    """``path`` is a regular file whose first line is a JSON object with the ``format`` of a voyage
+    log's line or head record (:data:`LOG_FORMAT`).  A file that cannot be read says False (the
+    write that follows fails on it by itself)."""
+    from deckload.io.limits import MAX_LOG_LINE_BYTES, open_regular
+
+    try:
+        with open_regular(path, "an output") as fh:
+            first = fh.read(MAX_LOG_LINE_BYTES + 1).split(b"\n", 1)[0]
+    except (OSError, ValueError):  # unreadable, or not a regular file (NotRegularFileError is an OSError)
+        return False
+    try:
+        doc = json.loads(first.decode("utf-8"))
+    except (UnicodeDecodeError, ValueError, RecursionError):
+        return False
+    return isinstance(doc, dict) and isinstance(doc.get("format"), str) and LOG_FORMAT.fullmatch(doc["format"]) is not None
+
+
+_KINDS = ((stat.S_ISDIR, "a folder"), (stat.S_ISFIFO, "a pipe (FIFO)"), (stat.S_ISCHR, "a character device"),
+          (stat.S_ISBLK, "a block device"), (stat.S_ISSOCK, "a socket"))
+
+
+def not_a_regular_file(path: str | os.PathLike) -> str | None:
+    """What ``path`` is when it exists and is not a regular file (links followed), else None."""
+    try:
+        mode = os.stat(path).st_mode
+    except (OSError, ValueError):
+        return None
+    if stat.S_ISREG(mode):
+        return None
+    return next((word for test, word in _KINDS if test(mode)), "not a file")
+
+
+def _kind_refusal(output: str | os.PathLike) -> str | None:
+    """Why ``output`` may not be written whatever folder it is in (see the module docstring), or None."""
+    kind = not_a_regular_file(output)
+    if kind is not None:
+        return (f"{output}: is not a regular file but {kind}; writing there would put a regular file in its "
+                "place")
+    if _ident(output) is None:
+        return None
+    if any(fnmatch.fnmatch(Path(output).name, pat) for pat in LOG_FILE_PATTERNS):
+        return f"{output}: has the name of a file of a voyage log; writing there would replace it"
+    if is_voyage_log(output):
+        return (f"{output}: is a voyage log (its first line is a deckload log record); writing there would "
+                "replace it")
+    return None
 
 
 def _ident(path: str | os.PathLike) -> tuple[int, int] | None:
@@ -156,7 +219,8 @@ def refuse_overwrite(output: str | os.PathLike, inputs: Iterable[tuple[str | os.
 def refuse_overwrites(outputs: Iterable[str | os.PathLike], inputs: Iterable[tuple[str | os.PathLike, str]] = (),
                       log_dirs: Iterable[str | os.PathLike] = ()) -> None:
     """:func:`refuse_overwrite` for each of ``outputs`` in turn (the first refused raises), the
-    log folders read once for them all."""
+    log folders read once for them all; each output is also refused wherever it is when it is not
+    a regular file, or is a voyage log's file by name or by content (:func:`_kind_refusal`)."""
     from deckload.io.paths import log_dir
 
     try:
@@ -171,6 +235,9 @@ def refuse_overwrites(outputs: Iterable[str | os.PathLike], inputs: Iterable[tup
     for d in folders:
         protected += log_folder_files(d)
     for output in outputs:
+        why = _kind_refusal(output)
+        if why is not None:
+            raise OutputRefused(why)
         for path, what in protected:
             if same_file(output, path):
                 alias = "" if str(path) == str(output) else f" (the same file as {path})"

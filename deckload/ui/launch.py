@@ -7,6 +7,7 @@ the one factory the tests use too.
 from __future__ import annotations
 
 import sys
+import time
 from contextlib import contextmanager
 from pathlib import Path
 from typing import TYPE_CHECKING, Callable, NamedTuple
@@ -97,6 +98,14 @@ def _usable(vessel: Vessel, condition: Condition, path: Path) -> Result | None:
         raise ProfileError([Problem(str(path), None, "", None, f"cannot be computed: {exc}")]) from None
 
 
+STALE_TEMP_S = 600.0
+"""A save's temporary file untouched this long (s, by its modification time) has no live writer:
+a condition (at most :data:`deckload.io.limits.MAX_TOML_BYTES`) is written, fsync'ed and renamed
+in well under a second, each write moving the time on; only a disk that has stopped answering
+holds one longer, and that save fails by itself.  Ten minutes is far beyond both (deckload's own
+choice)."""
+
+
 def _tidy_working_folder(work_dir: Path, saved: Path, vessel: Vessel) -> list[str]:
     """Clean up after earlier versions and interrupted saves; the notices to show.
 
@@ -105,6 +114,9 @@ def _tidy_working_folder(work_dir: Path, saved: Path, vessel: Vessel) -> list[st
     * Temporary files of an interrupted save (a kill or power cut between writing and
       renaming) are removed; one of this vessel's working file that holds a complete
       condition is kept beside it, so an edit confirmed just before is not lost unseen.
+      Only those last modified :data:`STALE_TEMP_S` or more ago are touched: the folder is
+      shared by every vessel and every window, and a younger one may be another window's save
+      in progress (removing it made that save fail).  A younger one is left for a later start.
     """
     from deckload.io import paths
     from deckload.io.atomicfile import leftover_temp_files
@@ -122,7 +134,14 @@ def _tidy_working_folder(work_dir: Path, saved: Path, vessel: Vessel) -> list[st
         else:
             legacy.replace(saved)
             notices.append(f"Working condition moved from {legacy.name} to {saved.name} (one file per vessel).")
+    now = time.time()
     for tmp in leftover_temp_files(work_dir):
+        try:
+            age_s = now - tmp.stat().st_mtime
+        except OSError:
+            continue  # gone already: its save finished
+        if age_s < STALE_TEMP_S:
+            continue
         if tmp.name.startswith(f".{saved.name}."):
             try:
                 load_condition(tmp, vessel)
