@@ -89,6 +89,20 @@ def tank_state(fill_pct: float, tank: Tank, empty_pct: float, full_pct: float) -
     return "worst_band" if lo <= fill_pct <= hi else "slack"
 
 
+def pct_text(pct: float, decimals: int = 1) -> str:
+    """A percentage to ``decimals`` places without trailing zeros: 50 → '50', 45.34 → '45.3'."""
+    text = f"{pct:.{decimals}f}"
+    return text.rstrip("0").rstrip(".") if "." in text else text
+
+
+def band_text(band_pct: tuple[float, float]) -> str:
+    """A worst band in words, '33.5–64.6 %': its edges to 0.01 % (trailing zeros left out), so
+    that a fill printed to 0.1 % beside it reads inside exactly when it is (the band's edges
+    rounded to whole percent, '34–65 %', made 64.7 % read as inside a band ending at 64.6 %)."""
+    lo, hi = band_pct
+    return f"{pct_text(lo, 2)}–{pct_text(hi, 2)} %"
+
+
 def fsi_at_fill(tank: Tank, fill_pct: float) -> float:
     """Free-surface inertia (m⁴) at a fill, from the calibration table."""
     vol = tank.capacity_m3 * fill_pct / 100.0

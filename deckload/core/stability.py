@@ -37,7 +37,8 @@ import numpy as np
 from deckload.core import gz as gzmod
 from deckload.core.bounds import bounded
 from deckload.core.criteria import LIMIT_CURVE_SET, SET_TITLES, Measures, limit_curve_criterion, osv_area_end_deg
-from deckload.core.free_surface import BASIS_NONE, TankFreeSurface, free_surface, settings_departures, transfer_moment_m4
+from deckload.core.free_surface import (BASIS_NONE, TankFreeSurface, band_text, free_surface, pct_text, settings_departures,
+                                        transfer_moment_m4)
 from deckload.core.frozen import frozen
 from deckload.core.hydrostatics import Upright, draft_at, fresh_water_allowance_m, mark_density_t_m3, permitted_draft_m
 from deckload.core.loading import LoadingError, TankContents, WeightSum, hold_item, resolve_tanks, sum_weights
@@ -796,10 +797,9 @@ def _warnings(vessel, condition, tanks, criteria, items, heel, t_mid, allowed_dr
                                f"against {c.limit:.3f}", "caution"))
     for t in tanks:
         if t.state == "worst_band":
-            lo, hi = t.worst_band_pct
             out.append(Warning("slack-worst-band",
-                               f"{t.id} ({t.name}) at {t.fill_pct:.0f} % is in its worst free-surface band "
-                               f"{lo:.0f}–{hi:.0f} %", "caution"))
+                               f"{t.id} ({t.name}) at {pct_text(t.fill_pct)} % is in its worst free-surface band "
+                               f"{band_text(t.worst_band_pct)}", "caution"))
     if heel is not None and abs(heel) > LIST_WARNING_DEG:  # (None: the no-equilibrium danger says more)
         out.append(Warning("list", f"list {abs(heel):.1f}° to {'starboard' if heel > 0 else 'port'} exceeds "
                                    f"{LIST_WARNING_DEG:.0f}°", "caution"))

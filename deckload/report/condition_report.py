@@ -32,7 +32,7 @@ from rich.table import Table
 from rich.text import Text
 
 from deckload.core.deadweight import deadweight_by_kind
-from deckload.core.free_surface import EXEMPT_RULE
+from deckload.core.free_surface import EXEMPT_RULE, band_text, pct_text
 from deckload.core.frozen import frozen
 from deckload.report import verdict_format as vf
 from deckload.core.model import Condition, Vessel
@@ -391,9 +391,8 @@ def _closing(result: Result, doubts: tuple[str, ...] = ()) -> Group:
         for w in result.warnings:
             if len(worst) > 2 and w.code == "slack-worst-band":
                 if w is worst[0]:
-                    tanks = ", ".join(f"{tk.id} {tk.fill_pct:.0f} % ({tk.worst_band_pct[0]:.0f}–"
-                                      f"{tk.worst_band_pct[1]:.0f} %)" for tk in result.tanks
-                                      if tk.state == "worst_band")
+                    tanks = ", ".join(f"{tk.id} {pct_text(tk.fill_pct)} % ({band_text(tk.worst_band_pct)})"
+                                      for tk in result.tanks if tk.state == "worst_band")
                     t.append(f"  caution: slack in the worst free-surface band: {tanks}\n")
                 continue
             t.append(f"  {'DANGER' if w.severity == 'danger' else 'caution'}: {w.message}\n",

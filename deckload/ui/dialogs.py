@@ -592,7 +592,7 @@ def help_page() -> Group:
         keys.add_row(Text(c.own_key), Text(c.name), Text(c.help))  # Text: "[usual_fill]" is not markup
     notes = Text("\n" + "\n".join(f"{k}: {what}" for k, what in NAVIGATION), P["label"])
     notes.append("\nTank marks: " + views.LEGEND + ".  Criteria: ok, NEAR (margin under 10 % of the limit), "
-                 "FAIL, n/a (not assessable: the data cannot decide it; never a pass).\nAmounts: 55% · 12.5m3 · 10t · 1.2m (sounding).  Nothing is extrapolated outside the "
+                 "FAIL, n/a (not assessable: the data cannot decide it; never a pass).\nAmounts: 55% · 12.5m3 · 10t · 1.2m (sounding) · 0.85u (ullage).  Nothing is extrapolated outside the "
                  "vessel's tables.\n", P["label"])
     notes.append("deckload supports, and never replaces, the approved stability booklet, the master's "
                  "judgement and flag-State and class rules.", P["dim"])

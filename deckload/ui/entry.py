@@ -42,6 +42,7 @@ from deckload.core.model import (
     TankFill,
     Vessel,
 )
+from deckload.core.soundings import level_soundings
 from deckload.io.limits import MAX_ENTRY_CHARS, MAX_ITEM_NAME_CHARS
 from deckload.io.textsafe import control_char
 
@@ -148,6 +149,32 @@ def fill_volume_m3(tank: Tank, fill: TankFill | None) -> float:
     return volume_of(tank, fill.quantity, fill.value, tank_density(tank, fill))
 
 
+def levelled_fill(vessel: Vessel, condition: Condition, fill: TankFill | None):
+    """``(fill as the calculation takes it, its correction or None)``: a sounding or ullage read
+    with the ship trimmed or listed (the condition's ``sounding_trim_m``, ``sounding_list_deg``)
+    turned into the even-keel reading of the same volume by the calculation's own step,
+    :func:`deckload.core.soundings.level_soundings`; any other entry as it is."""
+    if fill is None or fill.quantity not in LEVEL_QUANTITIES or (
+            condition.sounding_trim_m == 0.0 and condition.sounding_list_deg == 0.0):
+        return fill, None
+    try:
+        levelled, done, _ = level_soundings(vessel, condition.replace(tanks=(fill,)))
+    except LoadingError as e:
+        raise EntryError(str(e)[0].upper() + str(e)[1:] + ".") from None
+    return levelled.tanks[0], (done[0] if done else None)
+
+
+def held_m3(vessel: Vessel, condition: Condition, tank: Tank) -> float:
+    """Volume (m³) ``tank`` holds in ``condition`` as the calculation takes it (a sounding read
+    trimmed or listed corrected to even keel, :func:`levelled_fill`)."""
+    return fill_volume_m3(tank, levelled_fill(vessel, condition, condition.tank_fill(tank.id))[0])
+
+
+def sounding_way(condition: Condition) -> str:
+    """'trim +0.80 m, list +0.0°': how the soundings were taken, as the calculation's caution says."""
+    return f"trim {condition.sounding_trim_m:+.2f} m, list {condition.sounding_list_deg:+.1f}°"
+
+
 def check_tank_amount(tank: Tank, quantity: str, value: float, density_t_m3: float) -> None:
     """Refuse an amount outside the tank: below zero or above its capacity, or a reading outside its table."""
     if quantity in LEVEL_QUANTITIES:
@@ -198,9 +225,33 @@ def set_tank(condition: Condition, tank: Tank, quantity: str, value: float) -> C
     if quantity == "percent":
         value = min(value, 100.0)  # within round-off of full is full, as the calculation takes it
     if quantity != "ullage_m" and value <= 0:
-        return condition.without_tank(tank.id)
+        return empty_tank(condition, tank)
     override = fill.density_t_m3 if fill is not None else None
     return condition.with_tank(TankFill(tank.id, quantity, float(value), override))
+
+
+def empty_tank(condition: Condition, tank: Tank) -> Condition:
+    """The condition with ``tank`` empty.  A density stated for it (D, a delivery note) stays with
+    the tank until changed, as :func:`set_tank_density` keeps one typed for an empty tank: emptying
+    and refilling (0 % and back, a nudge through empty) must not silently return to the tank's
+    default.  The confirmation says it stays (:func:`density_kept_note`)."""
+    fill = condition.tank_fill(tank.id)
+    if fill is None or fill.density_t_m3 is None:
+        return condition.without_tank(tank.id)
+    return condition.with_tank(TankFill(tank.id, "percent", 0.0, fill.density_t_m3))
+
+
+def density_kept_note(vessel: Vessel, before: Condition, after: Condition, tank_id: str) -> str:
+    """' — its stated density 0.950 t/m³ stays for the next fill (D to change)' when ``tank_id``
+    held some in ``before``, holds none in ``after`` and keeps a stated density; else ''."""
+    if tank_id not in vessel.tank_index:
+        return ""
+    tank, fill = vessel.tank(tank_id), after.tank_fill(tank_id)
+    if fill is None or fill.density_t_m3 is None or held_m3(vessel, after, tank) > EMPTY_VOLUME_M3:
+        return ""
+    if held_m3(vessel, before, tank) <= EMPTY_VOLUME_M3:
+        return ""
+    return f" — its stated density {fill.density_t_m3:.3f} t/m³ stays for the next fill (D to change)"
 
 
 def set_tank_density(condition: Condition, tank: Tank, text: str) -> Condition:
@@ -222,15 +273,25 @@ def set_tank_density(condition: Condition, tank: Tank, text: str) -> Condition:
     return condition.with_tank(dataclasses.replace(fill, density_t_m3=rho))
 
 
-def describe_fill(tank: Tank, fill: TankFill | None) -> str:
-    """What an entry was understood as, with its volume: '55 % = 12.34 m³', 'sounding 1.2 m = 8.10 m³'."""
+def describe_fill(tank: Tank, fill: TankFill | None, vessel: Vessel | None = None,
+                  condition: Condition | None = None) -> str:
+    """What an entry was understood as, with its volume: '55 % = 12.34 m³', 'sounding 1.2 m = 8.10 m³';
+    with ``vessel`` and ``condition``, a reading taken trimmed or listed is corrected as the
+    calculation corrects it, and says so: 'sounding 0.5 m at trim +0.80 m, list +0.0° (0.425 m at
+    even keel, tank geometry) = 15.19 m³'."""
     if fill is None:
         return "empty"
+    done = None
+    if vessel is not None and condition is not None:
+        fill, done = levelled_fill(vessel, condition, fill)
     vol = fill_volume_m3(tank, fill)
     if fill.quantity == "volume_m3":
         return f"{vol:.2f} m³"
-    said = {"percent": f"{fill.value:g} %", "mass_t": f"{fill.value:g} t",
-            "sounding_m": f"sounding {fill.value:g} m", "ullage_m": f"ullage {fill.value:g} m"}[fill.quantity]
+    value = done.observed_m if done is not None else fill.value
+    said = {"percent": f"{value:g} %", "mass_t": f"{value:g} t",
+            "sounding_m": f"sounding {value:g} m", "ullage_m": f"ullage {value:g} m"}[fill.quantity]
+    if done is not None:
+        said += f" at {sounding_way(condition)} ({done.even_keel_m:.3f} m at even keel, {done.method})"
     return f"{said} = {vol:.2f} m³"
 
 
@@ -247,26 +308,38 @@ def tank_from_text(condition: Condition, tank: Tank, text: str) -> Condition:
     return set_tank(condition, tank, quantity, value)
 
 
-def amount_preview(condition: Condition, tank: Tank, text: str) -> str:
+def amount_preview(condition: Condition, tank: Tank, text: str, vessel: Vessel | None = None) -> str:
     """What an amount typed for ``tank`` comes to, shown before ⏎ in every form the tank can be
     stated in: '= 40.0 % · 12.93 m³ · 13.25 t · sounding 1.204 m · ullage 0.796 m' (sounding and
     ullage only where the tank has a level table and, for ullage, a reference point).  The same
     path as ⏎ (``tank_from_text``, then the calculation's ``resolve_tank``): EntryError when ⏎
-    would refuse it."""
+    would refuse it.  With ``vessel``, a reading taken with the ship trimmed or listed (the
+    condition's sounding trim and list) is corrected as the calculation corrects it
+    (:func:`levelled_fill`), the sounding and ullage shown are the even-keel ones, and the
+    preview ends with the trim it used."""
     fill = tank_from_text(condition, tank, text).tank_fill(tank.id)
+    done = None
+    if vessel is not None:
+        fill, done = levelled_fill(vessel, condition, fill)
     c = resolve_tank(tank, fill)
     parts = [f"{c.fill_pct:.1f} %", f"{c.volume_m3:.2f} m³", f"{c.mass_t:.2f} t"]
     if tank.level_known:
         level = c.sounding_m  # the level above the tank's lowest point
-        parts.append(f"sounding {level - tank.sounding_zero_m:.3f} m")
+        even = " at even keel" if done is not None else ""
+        parts.append(f"sounding {level - tank.sounding_zero_m:.3f} m{even}")
         if tank.ullage_reference_m is not None:
-            parts.append(f"ullage {tank.ullage_reference_m - level:.3f} m")
+            parts.append(f"ullage {tank.ullage_reference_m - level:.3f} m{even}")
+    if done is not None:
+        parts.append(f"read at {sounding_way(condition)}: {done.observed_m:.3f} → {done.even_keel_m:.3f} m "
+                     f"({done.method})")
     return "= " + " · ".join(parts)
 
 
-def nudge_tank(condition: Condition, tank: Tank, step_pct: float) -> Condition:
-    """Raise or lower the fill by ``step_pct`` of capacity, clamped to 0–100 %."""
-    pct = 100.0 * fill_volume_m3(tank, condition.tank_fill(tank.id)) / tank.capacity_m3
+def nudge_tank(condition: Condition, tank: Tank, step_pct: float, vessel: Vessel | None = None) -> Condition:
+    """Raise or lower the fill by ``step_pct`` of capacity, clamped to 0–100 % (from the fill the
+    calculation takes: with ``vessel``, a sounding read trimmed is corrected first)."""
+    vol = held_m3(vessel, condition, tank) if vessel is not None else fill_volume_m3(tank, condition.tank_fill(tank.id))
+    pct = 100.0 * vol / tank.capacity_m3
     new = min(100.0, max(0.0, round(pct + step_pct, 6)))
     if new == pct:
         edge = "full" if step_pct > 0 else "empty"
@@ -319,11 +392,11 @@ def plan_transfer(vessel: Vessel, condition: Condition, from_id: str, to_id: str
     vol_s = {"percent": src.capacity_m3 * value / 100.0, "volume_m3": value, "mass_t": value / rho_s}[quantity]
     if vol_s <= 0:
         raise EntryError("Transfer amount must be more than zero.")
-    have_s = fill_volume_m3(src, sf)
+    have_s = held_m3(vessel, condition, src)
     if vol_s > have_s * (1 + 1e-9):
         raise EntryError(f"{from_id} holds only {have_s:.2f} m³ ({have_s * rho_s:.2f} t); cannot pump {vol_s:.2f} m³.")
     mass = vol_s * rho_s
-    have_d = fill_volume_m3(dst, df)
+    have_d = held_m3(vessel, condition, dst)
     new_d = have_d + vol_s
     if new_d > dst.capacity_m3 * (1 + 1e-9):
         room = dst.capacity_m3 - have_d
@@ -370,14 +443,17 @@ def _hold_mass(condition: Condition, hold: Hold, mass: float, over_limit_ok: boo
     return condition.with_hold(HoldLoad(hold.id, mass, old.stowage_m3_t, old.lcg_m, old.vcg_m, old.tcg_m, old.description))
 
 
-def nudge_mass(mass_t: float, step_t: float, what: str, vessel: Vessel | None = None) -> float:
-    """One nudge of a mass; a step below zero stops at empty (0 t).  With ``vessel``, a step up
+def nudge_mass(mass_t: float, step_t: float, what: str, vessel: Vessel | None = None, *, deck: bool = False) -> float:
+    """One nudge of a mass; a step below zero stops at empty (0 t), except a deck load (``deck``),
+    which must weigh more than 0 t (as its form holds it): that step is refused.  With ``vessel``, a step up
     past the physical bound of one item's mass (:func:`deckload.core.bounds.item_mass_range`, as
     every form and file holds it) is refused: the saved working condition would be a file the
     reader refuses."""
     if mass_t <= 0 and step_t < 0:
         raise EntryError(f"{what} is already empty.")
     mass = max(0.0, round(mass_t + step_t, 6))
+    if deck and mass <= 0.0:
+        raise EntryError(f"{what}: a deck load of {mass:g} t is refused (remove it with e).")
     if vessel is not None and step_t > 0:
         why = bounds.item_mass_range(vessel).rule(mass)
         if why:
@@ -422,13 +498,30 @@ def item_from_form(vessel: Vessel, form: ItemForm, *, deck: bool, base: MassItem
     tcg = parse_number(form.tcg or "0", "TCG (+ starboard)", "m", low=yr.low, high=yr.high)
     if not deck:
         return MassItem(name, mass, lcg, vcg, tcg)
-    area = form.area.strip() or None
-    if area is not None and area not in vessel.area_index:
-        known = ", ".join(vessel.area_index) or "none"
-        raise EntryError(f"Deck area {area!r} is not one of this vessel's deck areas ({known}).")
+    if mass <= 0.0:  # a deck load of nothing is a slip: the file reader refuses it too
+        raise EntryError("Mass: a deck load must weigh more than 0 t (remove it with e instead).")
+    area = deck_area_id(vessel, form.area)
     footprint = getattr(base, "footprint_m2", None)
     windage = {k: getattr(base, k) for k in ("windage_area_m2", "windage_centroid_z_m") if getattr(base, k, None) is not None}
     return DeckItem(name, mass, lcg, vcg, tcg, area_id=area, footprint_m2=footprint, **windage)
+
+
+def deck_area_id(vessel: Vessel, typed: str) -> str | None:
+    """The deck area named by ``typed``: its id as the profile spells it, matched without regard
+    to case as the tank fields are ('aftdeck' is AFTDECK); None when nothing is typed.  Refused
+    when no area, or more than one (ids differing only in case), matches."""
+    area = typed.strip()
+    if not area:
+        return None
+    if area in vessel.area_index:
+        return area
+    known = ", ".join(vessel.area_index) or "none"
+    same = [a for a in vessel.area_index if a.casefold() == area.casefold()]
+    if len(same) > 1:
+        raise EntryError(f"Deck area {area!r} matches {', '.join(same)} (they differ only in case): type it as spelled.")
+    if not same:
+        raise EntryError(f"Deck area {area!r} is not one of this vessel's deck areas ({known}).")
+    return same[0]
 
 
 def form_of(item: MassItem) -> ItemForm:
@@ -475,9 +568,9 @@ def planner_room(vessel: Vessel, condition: Condition, from_id: str, to_id: str)
     src, dst = vessel.tank(from_id), vessel.tank(to_id)
     if src.kind != dst.kind:
         raise ValueError("a transfer moves one kind of liquid only")
-    sf, df = condition.tank_fill(from_id), condition.tank_fill(to_id)
-    have = fill_volume_m3(src, sf)
-    free = dst.capacity_m3 - fill_volume_m3(dst, df)
+    sf = condition.tank_fill(from_id)
+    have = held_m3(vessel, condition, src)
+    free = dst.capacity_m3 - held_m3(vessel, condition, dst)
     return max(0.0, min(have, free) * tank_density(src, sf) * (1 - 1e-9))
 
 
@@ -533,7 +626,7 @@ def receiving_tank(vessel: Vessel, condition: Condition, from_id: str) -> str:
     src = vessel.tank(from_id)
 
     def room(t) -> float:
-        return t.capacity_m3 - fill_volume_m3(t, condition.tank_fill(t.id))
+        return t.capacity_m3 - held_m3(vessel, condition, t)
 
     if src.pair and src.pair in vessel.tank_index and room(vessel.tank(src.pair)) > 1e-6:
         return src.pair
@@ -547,7 +640,7 @@ def giving_tank(vessel: Vessel, condition: Condition, to_id: str) -> str:
     dst = vessel.tank(to_id)
 
     def held(t) -> float:
-        return fill_volume_m3(t, condition.tank_fill(t.id))
+        return held_m3(vessel, condition, t)
 
     if dst.pair and dst.pair in vessel.tank_index and held(vessel.tank(dst.pair)) > 1e-6:
         return dst.pair

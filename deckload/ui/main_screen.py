@@ -126,10 +126,15 @@ class LoadingScreen(Screen[None]):
     def _curve_lines(self, r, stale: bool, w: int, h: int) -> list[Text]:
         """The GZ curve, or with key b the weather criterion on it (or why there is none)."""
         if self.has_class("-wind"):
+            if stale:  # the last a and b are not this condition's: no plot of them
+                return verdict.weather_missing(None, w)
             chart = verdict.weather_chart(r, stale, w - 1, h - 1)
             if chart is None:
                 return verdict.weather_missing(r, w)
             return [verdict.weather_caption(r, w), *chart.lines()]
+        if stale:  # the grey curve is the last good condition's: its title says so, not its facts
+            head = fit_lines(Text(" GZ curve of the last good condition, not this one", P["stale"]), w, 2)
+            return [*head, *views.gz_chart(r, stale, w - 1, h - len(head)).lines()]
         head = gz_title_lines(r, w)  # every fact of the title, on two lines where one is too short
         return [*head, *views.gz_chart(r, stale, w - 1, h - len(head)).lines()]
 
@@ -240,6 +245,9 @@ class LoadingScreen(Screen[None]):
                *, mark: bool = True, run: tuple[str, str] | None = None) -> None:
         s = self.session
         gm_before = s.result.gm_fluid_m if s.result is not None and not s.stale else None
+        tank_id = (data or {}).get("tank")
+        if isinstance(tank_id, str):  # a tank emptied keeps a stated density: say so
+            label += entry.density_kept_note(s.vessel, s.condition, condition, tank_id)
         try:
             problems = s.commit(condition, label, kind, data, mark=mark and kind != "restore", run=run)
         except EntryError as exc:
@@ -322,11 +330,11 @@ class LoadingScreen(Screen[None]):
         def done(r) -> None:
             if r:
                 # Say what was understood, so a slip from m3 to m (sounding) is seen at once.
-                got = entry.describe_fill(tank, r[0].tank_fill(tank.id))
+                got = entry.describe_fill(tank, r[0].tank_fill(tank.id), s.vessel, r[0])
                 self.commit(r[0], f"{tank.id} set to {got}", self._kind(tank.id), {"tank": tank.id, "entered": r[1]},
                             run=("tank", tank.id))
 
-        preview = lambda text: entry.amount_preview(s.condition, tank, text)  # noqa: E731
+        preview = lambda text: entry.amount_preview(s.condition, tank, text, s.vessel)  # noqa: E731
         self.app.push_screen(_forms().PromptForm(f"{tank.id}  {tank.name}", hint, entry.fill_text(fill), build, preview), done)
 
     def _edit_hold(self, hold_id: str) -> None:
@@ -374,7 +382,7 @@ class LoadingScreen(Screen[None]):
         s = self.session
         if what == "tank":
             tank = s.vessel.tank(ident)
-            self._try(lambda: entry.nudge_tank(s.condition, tank, float(step)),
+            self._try(lambda: entry.nudge_tank(s.condition, tank, float(step), s.vessel),
                       f"{tank.id} {step:+d} %", self._kind(tank.id), {"tank": tank.id, "nudge_pct": step},
                       run=("tank", tank.id))
         elif what == "hold":
@@ -387,7 +395,7 @@ class LoadingScreen(Screen[None]):
             item = items[ident]
 
             def build() -> Condition:
-                new = dataclasses.replace(item, mass_t=entry.nudge_mass(item.mass_t, step, item.name, s.vessel))
+                new = dataclasses.replace(item, mass_t=entry.nudge_mass(item.mass_t, step, item.name, s.vessel, deck=deck))
                 return self._with_items(deck, entry.replace_at(items, ident, new))
 
             self._try(build, f"{item.name} {step:+d} t", "cargo" if deck else "edit", {"item": item.name, "nudge_t": step})
@@ -402,7 +410,7 @@ class LoadingScreen(Screen[None]):
         s = self.session
         tank = s.vessel.tank(ident)
         usual = s.vessel.usual_max_pct(tank.kind)
-        now = 100.0 * entry.fill_volume_m3(tank, s.condition.tank_fill(ident)) / tank.capacity_m3
+        now = 100.0 * entry.held_m3(s.vessel, s.condition, tank) / tank.capacity_m3
         # The first f takes the tank to its kind's usual maximum; a second f (already there) to 100 %.
         pct = 100.0 if now >= usual - 0.05 else usual
         self._try(lambda: entry.set_tank(s.condition, tank, "percent", pct),
@@ -414,10 +422,11 @@ class LoadingScreen(Screen[None]):
         s = self.session
         c = s.condition
         if what == "tank":
-            if c.tank_fill(ident) is None:
+            tank = s.vessel.tank(ident)
+            if entry.held_m3(s.vessel, c, tank) <= entry.EMPTY_VOLUME_M3:
                 self.say(f"{ident} is already empty.", ok=False)
                 return
-            self.commit(c.without_tank(ident), f"{ident} emptied", self._kind(ident), {"tank": ident, "fill_pct": 0.0})
+            self.commit(entry.empty_tank(c, tank), f"{ident} emptied", self._kind(ident), {"tank": ident, "fill_pct": 0.0})
         elif what == "hold":
             if not any(h.hold_id == ident for h in c.holds):
                 self.say(f"{ident} is already empty.", ok=False)
@@ -438,7 +447,7 @@ class LoadingScreen(Screen[None]):
         src = dst = ""
         if what == "tank":
             tank = s.vessel.tank(ident)
-            if entry.fill_volume_m3(tank, s.condition.tank_fill(ident)) > 1e-6:
+            if entry.held_m3(s.vessel, s.condition, tank) > 1e-6:
                 src, dst = ident, entry.receiving_tank(s.vessel, s.condition, ident)
             else:  # an empty tank has nothing to give: the officer means to fill it, from a tank that holds some
                 src, dst = entry.giving_tank(s.vessel, s.condition, ident), ident
@@ -566,7 +575,7 @@ class LoadingScreen(Screen[None]):
     def action_verdict(self) -> None:
         s = self.session
         lines = verdict.verdict_page(None if s.stale else s.result, width=max(40, min(94, self.size.width - 6)))  # .form.help 100 − border, padding, scrollbar
-        title = "Verdict" + (" (last good result: the condition is outside the tables)" if s.stale else "")
+        title = "Verdict" + (": none for this condition (outside the tables)" if s.stale else "")
         self.app.push_screen(_forms().TextScreen(title, lines))
 
     def action_record(self) -> None:
@@ -578,10 +587,17 @@ class LoadingScreen(Screen[None]):
         def done(answer) -> None:
             if not answer:
                 return
+            stale = self.session.stale  # recorded without a result: the message must not read as a full record
             problems = self.session.record(*answer)
             for p in problems:
                 self.notify(p, severity="error", timeout=8, markup=False)
-            self.say(f"Condition recorded in the log by {answer[0]}" if not problems else "Not recorded", ok=not problems)
+            if problems:
+                self.say("Not recorded", ok=False)
+            elif stale:
+                self.say(f"Condition recorded in the log by {answer[0]} WITHOUT A RESULT: outside the tables, "
+                         "no stability computed")
+            else:
+                self.say(f"Condition recorded in the log by {answer[0]}")
 
         self.app.push_screen(_forms().RecordForm(j.officer, None), done)
 

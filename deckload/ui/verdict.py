@@ -66,6 +66,8 @@ def criteria_lines(result: Result | None, stale: bool, width: int, height: int =
     """The criteria panel: the verdict with the sets it covers, each set with its criteria, and the
     not-assessed list; at most ``height`` lines (see the module docstring for what gives way)."""
     compact = width < 48
+    if stale:  # no result for the condition on screen: no verdict word, no 'ok', not even greyed
+        return no_verdict_lines(width, height)
     if result is None:
         return [Text(" Criteria", P["title"])]
     word = vf.verdict_word(result)
@@ -135,6 +137,22 @@ def criteria_lines(result: Result | None, stale: bool, width: int, height: int =
         keep[gi] -= 1
         out = build(False, False, na_short, keep)
     return out[: max(1, height - len(na_short))] + na_short if len(out) > height else out
+
+
+NO_VERDICT = "no verdict for this condition"
+NO_VERDICT_WHY = ("it is outside the vessel's tables, so nothing was assessed (see the warning). "
+                  "The last good condition's criteria are not this one's and are not shown.")
+
+
+def no_verdict_lines(width: int, height: int = 10_000) -> list[Text]:
+    """The criteria panel while the condition on screen has no result (outside the tables): it
+    says so in words, and shows no verdict word and no criterion, not even the last good ones
+    greyed (a grey 'met' or 'ok' still reads as a pass)."""
+    head = Text(" Criteria: ", P["title"])
+    head.append(NO_VERDICT.upper() if head.cell_len + len(NO_VERDICT) <= width else "NO VERDICT", P["danger"])
+    why = textwrap.wrap(NO_VERDICT_WHY[0].upper() + NO_VERDICT_WHY[1:], max(10, width - 2),
+                        initial_indent=" ", subsequent_indent=" ")
+    return ([head] + [Text(x, P["caution"]) for x in why])[: max(1, height)]
 
 
 def verdict_page(result: Result | None, width: int = 96) -> list[Text]:

@@ -12,13 +12,13 @@ import functools
 from rich.text import Text
 
 from deckload.core.deadweight import deadweight_by_kind
-from deckload.core.free_surface import EXEMPT_RULE
+from deckload.core.free_surface import EXEMPT_RULE, tank_state
 from deckload.core.frozen import frozen
 from deckload.core.model import Condition, LIQUID_KINDS, Vessel
 from deckload.core.result import CriterionResult, Result
 from deckload.core.trimmed_tables import tables_basis
 from deckload.report.verdict_format import STATED_DENSITY_MARK, flood_words, fmt_optional, never_positive
-from deckload.ui.entry import fill_volume_m3, tank_density
+from deckload.ui.entry import held_m3, tank_density
 from deckload.ui.gzplot import GzChart, Mark
 from deckload.ui.palette import P
 
@@ -168,9 +168,12 @@ def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stal
                 values = (tr.fill_pct, tr.volume_m3, tr.mass_t, tr.density_t_m3, fsm, tr.state,
                           tr.fs_rule.startswith(("assumed", "variable", "nominally full cargo")))
             else:  # stale: amounts from the condition itself, no FSM
-                vol = fill_volume_m3(tank, fill)
+                vol = held_m3(vessel, condition, tank)
                 rho = tank_density(tank, fill)
-                values = (100 * vol / tank.capacity_m3, vol, vol * rho, rho, None, "slack" if vol else "empty", False)
+                pct = 100 * vol / tank.capacity_m3
+                # the state from the fill by the calculation's own rule, not guessed from 'holds some'
+                state = tank_state(pct, tank, vessel.free_surface.empty_pct, vessel.free_surface.nominally_full_pct)
+                values = (pct, vol, vol * rho, rho, None, state, False)
             lines.append((tank, stated, values))
         rows.append(Row(None, _group_line(KIND_TITLE.get(kind, kind), sum(v[2] for _, _, v in lines), cols)))
         for tank, stated, values in lines:
