@@ -265,3 +265,26 @@ def test_a_byte_order_mark_is_named_in_a_condition_and_a_profile_alike(tmp_path)
     with pytest.raises(ProfileError) as e:
         parse_profile("\ufeff" + paths.TRAWLER_PROFILE.read_text(encoding="utf-8"), "bom.toml")
     assert [(p.line, p.rule) for p in e.value.problems] == [(1, BOM_RULE)]
+
+
+# ----------------------------------------------------------------------------- deck items
+
+@pytest.mark.parametrize("mass, refused", [(0.0, True), (0.001, False)])
+def test_a_deck_load_of_nothing_is_refused_from_a_file_as_on_the_screen(mass, refused):
+    """The screen's item form refuses a deck load of 0 t ("remove it with e"); the reader took it.  Both
+    now take 0.001 t and refuse 0 t, naming file, line and key.  (A constant may still be 0 t on both.)"""
+    from deckload.ui.entry import ItemForm, item_from_form
+
+    v = demo_vessel()
+    try:
+        item_from_form(v, ItemForm("Crate", repr(mass), "20.0", "4.0"), deck=True)
+        screen = False
+    except EntryError:
+        screen = True
+    text = cond_text(f'[[deck_item]]\nname = "Crate"\nmass_t = {mass!r}\nlcg_m = 20.0\nvcg_m = 4.0\n')
+    found = problems(text, v)
+    assert screen == refused == bool(found)
+    if refused:
+        (p,) = found
+        assert (p.file, p.line, p.key) == ("probe.condition.toml", line_of(text, "mass_t"), "deck_item[#1].mass_t")
+        assert p.rule == "a deck load must weigh more than 0 t: leave the item out instead"

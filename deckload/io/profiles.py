@@ -1862,6 +1862,10 @@ def _read_deck_items(root: Table, vessel: m.Vessel) -> list[m.DeckItem]:
     out = []
     for t in root.tables("deck_item"):
         base = _read_mass_item(t, _item_name(t))
+        if base is not None and not base.mass_t > 0.0:
+            # the screen's rule too (ui.entry.item_from_form): a deck load weighs something; a constant may be 0 t
+            t.bad("mass_t", t.data["mass_t"], "a deck load must weigh more than 0 t: leave the item out instead")
+            base = None
         area = t.text("area", required=False, default=None)
         if area is not None and area not in vessel.area_index:
             t.bad("area", area, "no deck area with this id in the vessel profile" + suggest_id(area, vessel.area_index))
