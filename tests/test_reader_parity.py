@@ -288,3 +288,21 @@ def test_a_deck_load_of_nothing_is_refused_from_a_file_as_on_the_screen(mass, re
         (p,) = found
         assert (p.file, p.line, p.key) == ("probe.condition.toml", line_of(text, "mass_t"), "deck_item[#1].mass_t")
         assert p.rule == "a deck load must weigh more than 0 t: leave the item out instead"
+
+
+def test_a_sounding_of_nil_is_what_the_tanks_table_says_on_the_screen_as_in_a_file():
+    """The Demo Trawler's FW2 booklet table starts at sounding 0.00 m with 0.016 m³ (its CSV), as a
+    booklet's first row may sit above the bottom.  The screen emptied the tank on "0m" and a file's
+    sounding_m = 0.0 read 0.016 m³; both now keep the reading and take the table's volume."""
+    from deckload.ui.entry import fill_volume_m3
+
+    v = trawler_vessel()
+    tank = v.tank("FW2")
+    screen = set_tank(Condition(), tank, "sounding_m", 0.0).tank_fill("FW2")
+    text = cond_text("[tanks.FW2]\nsounding_m = 0.0\n")
+    file = parse_condition(text, "probe.condition.toml", v).tank_fill("FW2")
+    assert screen == file == TankFill("FW2", "sounding_m", 0.0)
+    assert fill_volume_m3(tank, screen) == pytest.approx(0.016, abs=1e-12)
+    # a zero amount still empties: nothing in her
+    for q in ("percent", "volume_m3", "mass_t"):
+        assert set_tank(Condition(), tank, q, 0.0).tank_fill("FW2") is None, q

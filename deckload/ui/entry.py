@@ -224,7 +224,9 @@ def set_tank(condition: Condition, tank: Tank, quantity: str, value: float) -> C
     check_tank_amount(tank, quantity, value, density)
     if quantity == "percent":
         value = min(value, 100.0)  # within round-off of full is full, as the calculation takes it
-    if quantity != "ullage_m" and value <= 0:
+    if quantity in ("percent", "volume_m3", "mass_t") and value <= 0:
+        # Nothing in her.  A reading of 0 is kept as read: the tank's own table says what it holds
+        # (a booklet's first row may be above the bottom: 0.016 m³ at 0.00 m), as in a file.
         return empty_tank(condition, tank)
     override = fill.density_t_m3 if fill is not None else None
     return condition.with_tank(TankFill(tank.id, quantity, float(value), override))
