@@ -246,13 +246,16 @@ def test_decimal_comma_and_nudging_below_zero():
 
 
 def test_editing_a_deck_item_keeps_what_the_form_does_not_show(vessel):
-    """The form shows name, mass and centres; the footprint and the side (windage) area of a deck
-    item being edited must survive the edit, or the weather criterion silently loses its windage."""
+    """The form shows name, mass, centres and the side (windage) area with its centre, filled from the
+    item being edited (form_of); the footprint, which it does not show, must survive the edit, and so
+    must the windage, or the weather criterion silently loses it."""
+    import dataclasses
+
     from deckload.core.model import DeckItem
-    from deckload.ui.entry import ItemForm, item_from_form
+    from deckload.ui.entry import form_of, item_from_form
 
     base = DeckItem("Crane", 5.0, 10.0, 6.0, 0.0, footprint_m2=4.0, windage_area_m2=12.0, windage_centroid_z_m=7.5)
-    form = ItemForm(name="Crane", mass="6", lcg="10", vcg="6", tcg="0", area="")
+    form = dataclasses.replace(form_of(base), mass="6")
     got = item_from_form(vessel, form, deck=True, base=base)
     assert (got.mass_t, got.footprint_m2, got.windage_area_m2, got.windage_centroid_z_m) == (6.0, 4.0, 12.0, 7.5)
 

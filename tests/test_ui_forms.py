@@ -9,6 +9,8 @@ underneath, and the transfer form's fields filled out of order).
 
 from __future__ import annotations
 
+import dataclasses
+
 import pytest
 from textual import events
 from textual.widgets import Input
@@ -16,6 +18,7 @@ from textual.widgets import Input
 from deckload.io import paths
 from deckload.io.profiles import load_condition
 from deckload.ui.dialogs import ItemFormScreen, TransferForm
+from deckload.ui.entry import EntryError
 from deckload.ui.launch import create_app
 from deckload.ui.widgets import LinePanel, LoadBoard
 from demo_vessels import demo_departure, trawler_vessel
@@ -53,6 +56,47 @@ async def type_fast(app, pilot, keys: list[str]) -> None:
 
 def fields(app) -> dict[str, str]:
     return {i.id: i.value for i in app.screen.query(Input)}
+
+
+async def test_a_deck_load_takes_its_side_area_for_the_wind_and_the_weather_criterion_judges_it(app, demo):
+    """The item form's last two fields: the side area the load shows to the wind (m²) and its centre's
+    height (blank: the VCG).  Given, the weather criterion (IS 2008 A 2.3) counts it and is judged;
+    left blank it is unknown, and a pass cannot be told (verdict._without_deck_windage)."""
+    v, c0 = demo
+    async with app.run_test(size=(120, 40)) as pilot:
+        await type_fast(app, pilot, ["a", *"Crane", "tab", *"2", "tab", *"20", "tab", *"6", "tab", *"0", "tab",
+                                     "tab", *"8", "tab", *"7.5", "enter"])
+        assert not isinstance(app.screen, ItemFormScreen)
+        crane = app.session.condition.deck_items[-1]
+        assert (crane.name, crane.windage_area_m2, crane.windage_centroid_z_m) == ("Crane", 8.0, 7.5)
+        weather = [c for c in app.session.result.criteria if c.set_id == "IS2008-A2.3"]
+        assert weather and all(c.assessed for c in weather)
+        await type_fast(app, pilot, ["a", *"Drum", "tab", *"1", "tab", *"20", "tab", *"5", "tab", *"0", "enter"])
+        drum = app.session.condition.deck_items[-1]
+        assert (drum.name, drum.windage_area_m2, drum.windage_centroid_z_m) == ("Drum", None, None)
+        weather = [c for c in app.session.result.criteria if c.set_id == "IS2008-A2.3"]
+        assert weather and not any(c.assessed and c.passed for c in weather)
+
+
+def test_the_item_forms_side_area_is_bounded_and_its_centre_defaults_to_the_vcg(demo):
+    """The same bound as a condition file's windage_area_m2 (bounds.deck_windage_range: 1.5·LBP × 30 m);
+    0 is a hidden load; a centre with no area is refused; editing shows what the item states."""
+    from deckload.core import bounds
+    from deckload.ui.entry import ItemForm, form_of, item_from_form
+
+    v, _ = demo
+    base = ItemForm("Crate", "3", "20", "5", "0")
+    assert item_from_form(v, base, deck=True).windage_area_m2 is None
+    hidden = item_from_form(v, dataclasses.replace(base, windage="0"), deck=True)
+    assert (hidden.windage_area_m2, hidden.windage_centroid_z_m) == (0.0, 5.0)
+    top = bounds.deck_windage_range(v.particulars).high
+    assert top == 1.5 * v.particulars.lbp_m * 30.0
+    with pytest.raises(EntryError, match="above the highest accepted value"):
+        item_from_form(v, dataclasses.replace(base, windage=f"{top * 1.01:g}"), deck=True)
+    with pytest.raises(EntryError, match="give the area"):
+        item_from_form(v, dataclasses.replace(base, windage_z="6"), deck=True)
+    stated = item_from_form(v, dataclasses.replace(base, windage="4.5", windage_z="6.2"), deck=True)
+    assert (form_of(stated).windage, form_of(stated).windage_z) == ("4.5", "6.2")
 
 
 async def test_keys_typed_at_once_fill_the_transfer_form_field_by_field(app):

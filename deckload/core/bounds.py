@@ -283,6 +283,12 @@ def max_displacement_t(v: Vessel) -> float:
     return float(v.hydrostatics.displacement_t[-1])
 
 
+def deck_windage_range(p: Particulars) -> Range:
+    """A deck item's side area for the wind (m²): 0 … 1.5·LBP × 30 m (a stow no longer than the ship
+    nor 30 m above her deck; 0 when another item or the bulwark hides it)."""
+    return Range(0.0, 1.5 * p.lbp_m * 30.0, "m²", "1.5 × LBP × 30 m: not a deck item's side")
+
+
 def item_mass_range(v: Vessel) -> Range:
     """One item's mass: 0 … the greatest tabulated displacement less the lightship."""
     high = max(0.0, max_displacement_t(v) - v.lightship.mass_t)

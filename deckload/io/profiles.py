@@ -33,6 +33,7 @@ from typing import Any
 import numpy as np
 
 from deckload.io.conventions import Frame, read_frame, tcg_array, tcg_num
+from deckload.core import bounds
 from deckload.core import model as m
 from deckload.core.gz import STEP_DEG as GZ_STEP_DEG
 from deckload.core.gz import grid_points
@@ -1893,9 +1894,9 @@ def _deck_item_windage(t: Table, vessel: m.Vessel) -> tuple[dict, bool]:
     keys = ("windage_area_m2", "windage_centroid_z_m")
     given = [k for k in keys if t.has(k)]
     p = vessel.particulars
-    # bounds from the vessel's size: a deck stow is no longer than the ship nor 30 m above the deck
-    area = t.num("windage_area_m2", non_negative,
-                 at_most(1.5 * p.lbp_m * 30.0, "m² (1.5 × LBP × 30 m): not a deck item's side"), required=False)
+    # bounds from the vessel's size (the screen's item form holds to the same: bounds.deck_windage_range)
+    wr = bounds.deck_windage_range(p)
+    area = t.num("windage_area_m2", non_negative, at_most(wr.high, f"m² ({wr.why})"), required=False)
     z = t.num("windage_centroid_z_m", between(0.0, p.depth_m + 30.0, "m", "above the keel, up to depth + 30 m"),
               required=False)
     if len(given) == 1:

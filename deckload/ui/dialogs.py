@@ -314,7 +314,10 @@ class ItemFormScreen(TankPicking, Form):
     BINDINGS = [Binding("up", "pick(-1)", "Previous area", show=False), Binding("down", "pick(1)", "Next area", show=False),
                 Binding("tab", "take_or_next", "Take / next field", show=False)]
     FIELDS = (("name", "Name"), ("mass", "Mass (t)"), ("lcg", "LCG from AP, + fwd (m)"),
-              ("vcg", "VCG above keel (m)"), ("tcg", "TCG, + starboard (m)"), ("area", "Deck area id (optional)"))
+              ("vcg", "VCG above keel (m)"), ("tcg", "TCG, + starboard (m)"), ("area", "Deck area id (optional)"),
+              ("windage", "Side area for the wind, m² (0 if hidden; blank: not known)"),
+              ("windage_z", "Its centre above keel, m (blank: the VCG)"))
+    DECK_ONLY = ("area", "windage", "windage_z")
 
     def __init__(self, title: str, form: ItemForm, build: Callable[[ItemForm], Any], *, deck: bool,
                  vessel: Vessel | None = None, condition: Condition | None = None):
@@ -358,7 +361,7 @@ class ItemFormScreen(TankPicking, Form):
         with Vertical(classes="form"):
             yield Label(self._title, classes="form-title")
             for name, label in self.FIELDS:
-                if name == "area" and not self._deck:
+                if name in self.DECK_ONLY and not self._deck:
                     continue
                 yield Label(label, classes="field-label")
                 yield Input(value=getattr(self._form, name), id=f"item-{name}", classes="field")
@@ -384,7 +387,8 @@ class ItemFormScreen(TankPicking, Form):
         event.stop()
         if self._take():  # ⏎ in the area field while one is being picked takes it; it saves nothing
             return
-        values = {n: self.query_one(f"#item-{n}", Input).value for n, _ in self.FIELDS if self._deck or n != "area"}
+        values = {n: self.query_one(f"#item-{n}", Input).value for n, _ in self.FIELDS
+                  if self._deck or n not in self.DECK_ONLY}
         try:
             value = self._build(ItemForm(**values))
         except EntryError as exc:

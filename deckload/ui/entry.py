@@ -473,13 +473,18 @@ class ItemForm:
     vcg: str
     tcg: str = "0"
     area: str = ""
+    windage: str = ""
+    """A deck load's side area for the wind (m²): blank when not known, 0 when hidden."""
+    windage_z: str = ""
+    """Height of that area's centre above the keel (m): blank for the item's VCG."""
 
 
 def item_from_form(vessel: Vessel, form: ItemForm, *, deck: bool, base: MassItem | None = None) -> MassItem:
     """A deck item (``deck=True``) or constant from the dialog's fields, every field checked.
 
     ``base``: the item being edited; what the form does not show (a deck item's
-    footprint and windage) is kept from it.
+    footprint) is kept from it.  A deck load's side area for the wind is the form's: blank is
+    unknown (the weather criterion cannot then be passed), 0 hidden; its centre defaults to the VCG.
 
     Mass and position must lie within the vessel's physical bounds, the same ones every
     file is held to (:mod:`deckload.core.bounds`): x from −0.2·LBP to 1.2·LBP, |y| ≤ B/2,
@@ -504,7 +509,14 @@ def item_from_form(vessel: Vessel, form: ItemForm, *, deck: bool, base: MassItem
         raise EntryError("Mass: a deck load must weigh more than 0 t (remove it with e instead).")
     area = deck_area_id(vessel, form.area)
     footprint = getattr(base, "footprint_m2", None)
-    windage = {k: getattr(base, k) for k in ("windage_area_m2", "windage_centroid_z_m") if getattr(base, k, None) is not None}
+    windage: dict[str, float] = {}
+    if form.windage.strip():
+        wr = bounds.deck_windage_range(p)
+        windage["windage_area_m2"] = parse_number(form.windage, "Side area for the wind", "m2", low=wr.low, high=wr.high)
+        windage["windage_centroid_z_m"] = parse_number(form.windage_z, "Its centre above keel", "m", low=zr.low,
+                                                       high=zr.high) if form.windage_z.strip() else vcg
+    elif form.windage_z.strip():
+        raise EntryError("Side area for the wind: give the area (m²) that centre belongs to, or leave both blank.")
     return DeckItem(name, mass, lcg, vcg, tcg, area_id=area, footprint_m2=footprint, **windage)
 
 
@@ -528,7 +540,9 @@ def deck_area_id(vessel: Vessel, typed: str) -> str | None:
 
 def form_of(item: MassItem) -> ItemForm:
     area = getattr(item, "area_id", None) or ""
-    return ItemForm(item.name, f"{item.mass_t:g}", f"{item.lcg_m:g}", f"{item.vcg_m:g}", f"{item.tcg_m:g}", area)
+    wa, wz = getattr(item, "windage_area_m2", None), getattr(item, "windage_centroid_z_m", None)
+    return ItemForm(item.name, f"{item.mass_t:g}", f"{item.lcg_m:g}", f"{item.vcg_m:g}", f"{item.tcg_m:g}", area,
+                    "" if wa is None else f"{wa:g}", "" if wz is None else f"{wz:g}")
 
 
 def replace_at(items: tuple, index: int, item) -> tuple:
