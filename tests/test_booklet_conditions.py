@@ -223,3 +223,15 @@ def test_booklet_results_typed_as_the_booklet_prints_them(tmp_path, capsys):
     with pytest.raises(ProfileError) as ei:
         load_booklet_conditions(f, load_profile(f))
     assert "extreme drafts need [vessel] keel_thickness_m" in str(ei.value)
+
+
+@pytest.mark.parametrize("name, says", [("Departure\\n\\n  MET: all criteria", "one line"), ("x" * 81, "80")])
+def test_a_booklet_conditions_name_is_one_line_of_at_most_80_characters(tmp_path, name, says):
+    """As a condition file's name (the reader's rule): it heads the printed comparison, where a line
+    feed would forge a row; 80 characters, the screen's save form."""
+    f = profile(tmp_path, inline(name, booklet_values()))
+    v = load_profile(f)
+    with pytest.raises(ProfileError) as ei:
+        load_booklet_conditions(f, v)
+    (p,) = [p for p in ei.value.problems if p.key.endswith(".name")]
+    assert says in p.rule and p.line is not None

@@ -56,8 +56,11 @@ def load_booklet_conditions(profile_path: str | os.PathLike, vessel: m.Vessel) -
     root = ctx.root()
     cases: list[BookletCase] = []
     names: set[str] = set()
+    from deckload.io.condition_files import MAX_NAME_CHARS
+
     for idx, t in enumerate(root.tables("booklet_condition")):
-        name = t.text("name")
+        # one line, as a condition's name: it heads a printed comparison (a line feed would forge a row)
+        name = t.text("name", one_line=True, max_chars=MAX_NAME_CHARS)
         if name is not None:
             t.name = f"booklet_condition[{name}]"
             if name in names:
