@@ -233,5 +233,5 @@ def test_a_booklet_conditions_name_is_one_line_of_at_most_80_characters(tmp_path
     v = load_profile(f)
     with pytest.raises(ProfileError) as ei:
         load_booklet_conditions(f, v)
-    (p,) = [p for p in ei.value.problems if p.key.endswith(".name")]
+    (p,) = [p for p in ei.value.problems if p.key == "booklet_condition[#1].name"]
     assert says in p.rule and p.line is not None
