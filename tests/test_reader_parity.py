@@ -38,6 +38,25 @@ def line_of(text: str, needle: str) -> int:
     return next(i for i, line in enumerate(text.splitlines(), 1) if needle in line)
 
 
+def screen_refuses(enter) -> bool:
+    """Whether the screen's check (``enter()``, a ui.entry call) refuses the value."""
+    try:
+        enter()
+    except EntryError:
+        return True
+    return False
+
+
+def assert_alike(screen_refused: bool, refused: bool, text: str, vessel, key: str, rule: str) -> None:
+    """The screen and the reader both refuse (``refused``) or both take the value; a file's refusal
+    names the file, the line of ``mass_t`` and ``key``, with ``rule``."""
+    found = problems(text, vessel)
+    assert screen_refused == refused == bool(found)
+    if refused:
+        (p,) = found
+        assert (p.file, p.line, p.key, p.rule) == ("probe.condition.toml", line_of(text, "mass_t"), key, rule)
+
+
 # ----------------------------------------------------------------------------- tank amounts
 
 def test_a_full_tank_stated_by_its_first_ullage_is_saved_and_read_back():
@@ -228,18 +247,9 @@ def test_a_hold_over_its_structural_limit_is_refused_from_a_file_as_on_the_scree
     from deckload.ui.entry import hold_from_text
 
     v = demo_vessel()
-    try:
-        hold_from_text(Condition(), v.hold("H1"), repr(mass), v)
-        screen = False
-    except EntryError:
-        screen = True
-    text = cond_text(f"[holds.H1]\nmass_t = {mass!r}\n")
-    found = problems(text, v)
-    assert screen == refused == bool(found)
-    if refused:
-        (p,) = found
-        assert (p.file, p.line, p.key) == ("probe.condition.toml", line_of(text, "mass_t"), "holds.H1.mass_t")
-        assert p.rule == "above 250 t, the hold's structural limit (max_mass_t in the profile)"
+    screen = screen_refuses(lambda: hold_from_text(Condition(), v.hold("H1"), repr(mass), v))
+    assert_alike(screen, refused, cond_text(f"[holds.H1]\nmass_t = {mass!r}\n"), v, "holds.H1.mass_t",
+                 "above 250 t, the hold's structural limit (max_mass_t in the profile)")
 
 
 # ----------------------------------------------------------------------------- byte-order mark
@@ -276,18 +286,10 @@ def test_a_deck_load_of_nothing_is_refused_from_a_file_as_on_the_screen(mass, re
     from deckload.ui.entry import ItemForm, item_from_form
 
     v = demo_vessel()
-    try:
-        item_from_form(v, ItemForm("Crate", repr(mass), "20.0", "4.0"), deck=True)
-        screen = False
-    except EntryError:
-        screen = True
+    screen = screen_refuses(lambda: item_from_form(v, ItemForm("Crate", repr(mass), "20.0", "4.0"), deck=True))
     text = cond_text(f'[[deck_item]]\nname = "Crate"\nmass_t = {mass!r}\nlcg_m = 20.0\nvcg_m = 4.0\n')
-    found = problems(text, v)
-    assert screen == refused == bool(found)
-    if refused:
-        (p,) = found
-        assert (p.file, p.line, p.key) == ("probe.condition.toml", line_of(text, "mass_t"), "deck_item[#1].mass_t")
-        assert p.rule == "a deck load must weigh more than 0 t: leave the item out instead"
+    assert_alike(screen, refused, text, v, "deck_item[#1].mass_t",
+                 "a deck load must weigh more than 0 t: leave the item out instead")
 
 
 def test_a_sounding_of_nil_is_what_the_tanks_table_says_on_the_screen_as_in_a_file():

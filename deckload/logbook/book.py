@@ -161,24 +161,17 @@ class Logbook:
         head = self._store.read_head()
         problem = head_disagreement(head, lines)
         if problem is not None:
-            self.close()
-            self.readonly = True
-            self.readonly_reason = (
-                f"{problem}; nothing will be written to this log until that is looked into "
-                f"(run 'deckload log verify'; to start a fresh log, move {self.path.name} and "
-                f"{self.head_path.name} aside)"
-            )
+            self._write_nothing(f"{problem}; nothing will be written to this log until that is looked into "
+                                f"(run 'deckload log verify'; to start a fresh log, move {self.path.name} and "
+                                f"{self.head_path.name} aside)")
             return
         if not self.by_file:
             other = _other_vessel(lines, self.vessel_name)
             if other is not None:
-                self.close()
-                self.readonly = True
-                self.readonly_reason = (
+                self._write_nothing(
                     f"{self.path.name} holds entries of another vessel: line {other[0]} records {other[1]!r}, not "
                     f"{self.vessel_name!r}; nothing will be recorded in it (run 'deckload log verify'; to start "
-                    f"this vessel's log, move {self.path.name} and {self.head_path.name} aside)"
-                )
+                    f"this vessel's log, move {self.path.name} and {self.head_path.name} aside)")
                 return
         if torn:
             self.recovered_torn = self._store.set_aside_torn(torn, len(lines) + 1, self._clock())
@@ -328,6 +321,12 @@ class Logbook:
     def newest(self) -> tuple[int, str] | None:
         """The newest entry's number and SHA-256 as this writer knows them (None: no entry yet)."""
         return (self._last_seq, self._last_sha) if self._last_seq > 0 else None
+
+    def _write_nothing(self, reason: str) -> None:
+        """Give up the writer's lock and stay read-only for ``reason`` (said to whoever records)."""
+        self.close()
+        self.readonly = True
+        self.readonly_reason = reason
 
     def close(self) -> None:
         """Close the log and release the writer's lock."""
