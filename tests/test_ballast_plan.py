@@ -202,8 +202,8 @@ async def test_when_no_plan_is_possible_the_planner_says_why_and_changes_nothing
         await searched(pilot, app)
         await pilot.pause()
         said = str(app.screen.query_one("#form-message").render())
-        assert "No plan of up to" in said and "reaches trim 0.000 m" in said
-        assert f"the nearest is trim {why.best:.3f} m A" in said and "keeping the list within" in said
+        assert "The search found no plan reaching trim 0.000 m" in said
+        assert f"the nearest it came is trim {why.best:.3f} m A" in said and "keeping the list within" in said
         await pilot.press("enter")
         await pilot.pause()
         assert isinstance(app.screen, PlannerForm) and app.session.condition == c

@@ -71,7 +71,8 @@ def test_the_goal_is_read_as_every_other_typed_number(typed):
 def test_a_goal_is_bounded_by_the_vessels_own_tables(vessel_of):
     """A typed goal is bounded where it is read by what the vessel's tables can give (derived in
     :func:`deckload.ui.planner.goal_range`): a trim within ± her greatest tabulated draft (both
-    ends between 0 and it), a GM above 0 and at most her greatest KMt (GM = KMt − KG − FSC), a
+    ends between 0 and it) and, with even-keel KN only, within ± 1.5 % of LBP (core/trim.py
+    EVEN_KEEL_KN_LIMIT_FRACTION: beyond it the criteria are not assessable), a GM above 0 and at most her greatest KMt (GM = KMt − KG − FSC), a
     list within ± the KN table's last heel and 30°.  The fixed ±10 m trim and 10 m GM took goals
     no hull of this size can reach (a 10 m trim on a vessel drawing a few metres)."""
     import demo_vessels
@@ -83,6 +84,9 @@ def test_a_goal_is_bounded_by_the_vessels_own_tables(vessel_of):
     top_km = float(max(v.hydrostatics.kmt_m))
     end = min(30.0, float(v.cross_curves.heel_deg[-1]))
     assert top_draft < 10.0 and top_km < 10.0  # the premise: the old fixed bounds let these through
+    from deckload.core.trim import EVEN_KEEL_KN_LIMIT_FRACTION
+    assert v.trimmed is None or len(v.trimmed.kn_trim_m) == 1  # the premise: even-keel KN only
+    top_draft = min(top_draft, EVEN_KEEL_KN_LIMIT_FRACTION * v.particulars.lbp_m)
     draft_in, km_in = math.floor(top_draft * 1000) / 1000, math.floor(top_km * 1000) / 1000  # printed, not beyond
     for typed, target in ((f"trim {draft_in:.3f}", draft_in), (f"trim -{draft_in:.3f}", -draft_in),
                           (f"gm {km_in:.3f}", km_in), ("gm 0.001", 0.001), (f"list {end:g}", end), (f"list -{end:g}", -end)):

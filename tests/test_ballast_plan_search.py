@@ -280,25 +280,29 @@ def test_a_pair_counts_as_two_transfers_of_the_most_allowed(most, planned):
 def test_a_wing_pair_is_pumped_alike_only_when_all_four_tanks_are_allowed():
     """Allowed AP, AS, FP (not FS): no pair.  AP → FP 15 t (0.4 m, upright) is the nearest
     whole transfer; from there AP → AS and AS → AP leave the trim, FP → AP and FP → AS trim her
-    back: no plan, nearest 0.4 m after AP → FP 15 t.  Calculations 1 + 4 (AP → AS, AP → FP,
-    AS → AP, AS → FP) + 4 (AP → AS, AS → AP, FP → AP, FP → AS) = 9.
+    back: no plan, nearest 0.4 m after AP → FP 15 t.  FS not allowed, FP counts as a tank of no
+    partner: the aft pair pumped alike into it (7.5 t each, what FP takes: 0.4 m, no nearer) and,
+    once FP is full, FP split between AP and AS alike (5 t each, what AS takes) are tried too.
+    Calculations 1 + 4 (AP → AS, AP → FP, AS → AP, AS → FP) + 1 (AP and AS → FP) + 4 (AP → AS,
+    AS → AP, FP → AP, FP → AS) + 1 (FP → AP and AS) = 11.
 
-    Allowed AP, FP, FS (not AS): AP → FP 15 t (0.4 m), then AP → FS (10 t left in AP, trim
-    0.4 − 0.04·m) reaches 0.2 m at m = 5 t, listing her (−4·5 + 4·25 − 4·15 + 4·5)/100 = 0.4°
-    (within 1°).  Calculations 1 + 2 (AP → FP, AP → FS) + 2 (AP → FS) + 2 (FP → AP, FP → FS)
-    = 7."""
+    Allowed AP, FP, FS (not AS): AP counts as a tank of no partner, split between the forward
+    wings alike: AP holds 25 t, so 12.5 t each at most (trim 1.0 − 25·40/1000 = 0), and 0.2 m
+    is reached at 10 t each, listing her (−4·5 + 4·25 − 4·10 + 4·10)/100 = 0.8° (within 1°).
+    Calculations 1 + 1 (AP → FP whole, 0.4 m) + 1 (AP → FS whole) + 2 (the split: whole, root)
+    = 5.  (Before splits were searched, the plan was AP → FP 15 t then AP → FS 5 t.)"""
     calc = Calc(PAIRS)
     got = plan(PAIRS, PAIRS_LOADED, Goal("trim", 0.2, 0.01), ["AP", "AS", "FP"], **calc.kw())
     assert isinstance(got, NoPlan)
     check_transfers(got.transfers, [("AP", "FP", 15.0)])
-    assert got.best == pytest.approx(0.4, abs=1e-12) and got.evaluations == 9 == calc.calls
+    assert got.best == pytest.approx(0.4, abs=1e-12) and got.evaluations == 11 == calc.calls
 
     calc = Calc(PAIRS)
     got = plan(PAIRS, PAIRS_LOADED, Goal("trim", 0.2, 0.01), ["AP", "FP", "FS"], **calc.kw())
     assert isinstance(got, Plan)
-    check_transfers(got.transfers, [("AP", "FP", 15.0), ("AP", "FS", 5.0)])
-    assert got.after == pytest.approx(0.2, abs=1e-12) and got.result.list_deg == pytest.approx(0.4, abs=1e-12)
-    assert got.evaluations == 7 == calc.calls
+    check_transfers(got.transfers, [("AP", "FP", 10.0), ("AP", "FS", 10.0)])
+    assert got.after == pytest.approx(0.2, abs=1e-12) and got.result.list_deg == pytest.approx(0.8, abs=1e-12)
+    assert got.evaluations == 5 == calc.calls
 
 
 def test_a_tank_of_another_liquid_among_the_allowed_does_not_hide_the_wing_pairs():

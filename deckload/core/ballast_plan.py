@@ -87,6 +87,12 @@ class Plan:
     before: float
     after: float
     evaluations: int
+    spread: tuple[float, float] | None = None
+    """The lowest and highest value with any amount :data:`READING_TOLERANCE_T` less or more
+    (:func:`as_shown`); None for a plan of exact masses, before it is put as shown."""
+    robust: bool = True
+    """The goal holds over the whole ``spread`` (GM: the least of it is at least the value; list
+    and trim: all of it within the tolerance).  False: it holds at the amounts shown only."""
 
 
 @frozen
@@ -176,17 +182,33 @@ def _moves(vessel, condition, allowed, move, room, *, pairs: bool):
     if not pairs:
         return
     ids = set(allowed)
+    twos = []
     for a in allowed:
         for b in allowed:
             pa, pb = vessel.tank(a).pair, vessel.tank(b).pair
-            if a == b or not pa or not pb or pa not in ids or pb not in ids or len({a, b, pa, pb}) < 4 or a > pa:
-                continue  # each wing pair once (a before its partner), four different tanks
-            try:
-                hi = min(float(room(condition, a, b)), float(room(condition, pa, pb)))
-            except ValueError:
+            pa, pb = (pa if pa in ids else None), (pb if pb in ids else None)
+            if a == b:
                 continue
-            if hi > 1e-6:
-                yield ((a, b), (pa, pb)), hi, (lambda m, a=a, b=b, pa=pa, pb=pb: move(move(condition, a, b, m), pa, pb, m))
+            if pa and pb and len({a, b, pa, pb}) == 4 and a < pa:
+                twos.append(((a, b), (pa, pb)))  # each wing pair once (a before its partner), four different tanks
+            if pb and not pa and pb != a and b < pb:
+                twos.append(((a, b), (a, pb)))  # a tank of no partner split between a wing pair alike
+            if pa and not pb and pa != b and a < pa:
+                twos.append(((a, b), (pa, b)))  # a wing pair pumped alike into a tank of no partner
+    for (s1, s2) in twos:
+        try:
+            h = min(float(room(condition, *s1)), float(room(condition, *s2)))
+            if h <= 1e-6:
+                continue
+            # the second transfer's room after the first at h: less than h only where the two share
+            # a tank that limits them (the one giving has 2m to give, or the one taking 2m of room),
+            # and then that tank holds (or has room for) h + r2 in all, so each may be (h + r2)/2
+            r2 = float(room(move(condition, *s1, h), *s2))
+        except ValueError:
+            continue
+        hi = h if r2 >= h else (h + r2) / 2.0 * (1 - 1e-9)
+        if hi > 1e-6:
+            yield (s1, s2), hi, (lambda m, s1=s1, s2=s2: move(move(condition, *s1, m), *s2, m))
 
 
 def _search(vessel, goal, hi, q0, apply, evaluate):
@@ -306,3 +328,125 @@ def _nearer(a: float, b: float, goal: Goal) -> bool:
     if goal.quantity == "gm":
         return a > b + 1e-9
     return abs(a - goal.target) < abs(b - goal.target) - 1e-9
+
+
+SHOWN_STEP_T = 0.1
+"""Every amount a plan states and applies is a whole number of tenths of a tonne: what the form
+shows, so that what the officer reads is exactly what is applied and logged."""
+
+READING_TOLERANCE_T = 0.1
+"""How far from an amount as shown the crew may end up: one step of the shown precision
+(:data:`SHOWN_STEP_T`), less or more.  deckload's own rule (common practice: an amount given to
+0.1 t is pumped to the nearest 0.1 t the gauges or the sounding table give, no closer).  A plan is
+checked with each amount, and all of them together, that much less and more (:func:`as_shown`):
+a plan that holds only at one mass to the kilogram (a tank just reaching the 98 % "nominally full"
+line of IS 2008 Part B 3.1, where its free-surface moment stops counting) is not offered as
+reaching the goal."""
+
+BUMP_STEPS = 30
+"""GM: how many steps of :data:`SHOWN_STEP_T` the last transfer may be raised past the least
+mass found to reach the goal with the reading tolerance (e.g. past the 98 % line by a margin)."""
+
+
+def _tenths(mass_t: float, step_t: float, down: bool = False) -> float:
+    n = (mass_t / step_t + 1e-6) // 1 if down else round(mass_t / step_t)
+    return round(n * step_t, 9)
+
+
+def as_shown(
+    vessel: Vessel,
+    condition: Condition,
+    goal: Goal,
+    found: Plan,
+    *,
+    move: Callable[[Condition, str, str, float], Condition],
+    evaluate: Callable[[Vessel, Condition], Result],
+    step_t: float = SHOWN_STEP_T,
+    tolerance_t: float = READING_TOLERANCE_T,
+) -> Plan:
+    """``found`` (exact masses from :func:`plan`) with every amount a multiple of ``step_t``, the
+    condition and result those amounts give, and the ``spread`` of the value with each amount,
+    and all together, ``tolerance_t`` less and more (a transfer a tank cannot give or take is
+    left out of the spread: more cannot be pumped than it holds or has room for).
+
+    The amounts tried, first that holds over the whole spread wins: the exact masses to the
+    nearest step (a whole transfer made before the last one rounded down, so that it can be
+    pumped); for list and trim the last transfer (or wing pair) one step less or more; for GM,
+    a lower bound whose shortfall is the danger, the last transfer raised a step at a time (up to
+    :data:`BUMP_STEPS`, and no further than the tanks allow).  None holding over the spread: the
+    first that meets the goal at the amounts shown (or failing that, the nearest), with
+    ``robust`` False, for the form to say so plainly.
+    """
+    if not found.transfers:
+        return found
+    ts = found.transfers
+    last = ts[-1].mass_t
+    k = 1
+    while k < len(ts) and ts[-1 - k].mass_t == last and k < 2:
+        k += 1  # a wing pair (or a split) pumped alike: the last two transfers move together
+    base = [_tenths(t.mass_t, step_t, down=i < len(ts) - k) for i, t in enumerate(ts)]
+    n = 0
+
+    def replay(amounts):
+        nonlocal n
+        cur = condition
+        try:
+            for t, m in zip(ts, amounts):
+                if m > 1e-9:
+                    cur = move(cur, t.from_id, t.to_id, m)
+            n += 1
+            r = evaluate(vessel, cur)
+        except (ValueError, KeyError, ArithmeticError):
+            return None
+        if r.list_deg is None:
+            return None
+        return cur, r, value_of(r, goal)
+
+    def spread(amounts, at):
+        values = [at]
+        for idx in [(i,) for i in range(len(amounts))] + [tuple(range(len(amounts)))]:
+            for d in (-tolerance_t, tolerance_t):
+                got = replay([max(0.0, round(m + d, 9)) if i in idx else m for i, m in enumerate(amounts)])
+                if got is not None:
+                    values.append(got[2])
+        return min(values), max(values)
+
+    def holds(lo_hi):
+        if goal.quantity == "gm":
+            return _met(lo_hi[0], goal)
+        return all(abs(v - goal.target) <= goal.tolerance for v in lo_hi)
+
+    tries = [base]
+    head = base[:len(ts) - k]
+    if goal.quantity == "gm":
+        tries += [head + [round(m + j * step_t, 9) for m in base[-k:]] for j in range(1, BUMP_STEPS + 1)]
+    else:
+        tries += [head + [round(m + d, 9) for m in base[-k:]] for d in (-step_t, step_t)]
+    fallback = None
+    for amounts in tries:
+        if any(m <= 0 for m in amounts[-k:]):
+            continue
+        got = replay(amounts)
+        if got is None:
+            if goal.quantity == "gm" and amounts is not base:
+                break  # raised past what the tanks allow: no further
+            continue
+        c, r, v = got
+        if fallback is None or (_met(v, goal) and not _met(fallback[3], goal)) or \
+                (not _met(fallback[3], goal) and abs(v - goal.target) < abs(fallback[3] - goal.target)):
+            fallback = (amounts, c, r, v, None)
+        if not _met(v, goal):
+            continue
+        lo_hi = spread(amounts, v)
+        if holds(lo_hi):
+            return Plan(tuple(Transfer(t.from_id, t.to_id, m) for t, m in zip(ts, amounts)), c, r,
+                        found.before, v, found.evaluations + n, lo_hi, True)
+        if fallback[0] is amounts:
+            fallback = (amounts, c, r, v, lo_hi)
+    if fallback is None:
+        raise ValueError("the plan cannot be pumped in amounts of " f"{step_t:g} t")
+    amounts, c, r, v, lo_hi = fallback
+    if lo_hi is None:
+        lo_hi = spread(amounts, v)
+    return Plan(tuple(Transfer(t.from_id, t.to_id, m) for t, m in zip(ts, amounts)), c, r,
+                found.before, v, found.evaluations + n, lo_hi, False)

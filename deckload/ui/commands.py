@@ -74,8 +74,9 @@ COMMANDS: tuple[Command, ...] = (
             "water and ballast 100 % unless it says otherwise); f again fills it to 100 %.", words="fill, full, top up", rank=3),
     Command("empty", "e", "Empty", "Empty the tank or hold under the cursor; remove the deck load or constant.", rank=3),
     Command("transfer", "t", "Transfer", "Pump between two tanks, with a before/after preview; commit is one undoable step.", words="ballast, pump, shift, transfer", rank=1),
-    Command("ballast_plan", "i", "Planner", "Ballast planner: the one transfer between the tanks you allow that "
-            "brings the list or trim to a value, or GM fluid above one; before/after shown, applied only on ⏎.",
+    Command("ballast_plan", "i", "Planner", "Ballast planner: transfers (up to 4) between the tanks you allow that "
+            "bring the list or trim to a value, or GM fluid above one, in amounts to 0.1 t checked 0.1 t either side; "
+            "before/after shown, applied only on ⏎.",
             footer=False, title="Ballast planner", words="ballast, list, trim, GM, upright, plan"),
     Command("print_report", "p", "Print", "Print from the screen: write the report (HTML to print, and text) of "
             "exactly the condition on screen, say where, and offer to open it.", title="Print report", words="report, print, paper, HTML", rank=2),

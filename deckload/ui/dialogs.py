@@ -210,6 +210,10 @@ class TankPicking:
         """The ids ``field`` accepts (a text that is one needs no list)."""
         return self._vessel.tank_index
 
+    def _known(self, field: str, typed: str) -> str | None:
+        """The id ``typed`` names, as the profile spells it (case aside), or None."""
+        return entry.tank_id_or_none(self._vessel, typed)
+
     def _matches(self, field: str, typed: str) -> list:
         return entry.tank_matches(self._vessel, typed, self._want(field))
 
@@ -238,11 +242,11 @@ class TankPicking:
         typed = self._typed_word(field)
         if self.TANK_FIELDS[field.id] and not typed:
             return None
-        if typed.upper() in self._ids(field.id):
+        if self._known(field.id, typed):
             return None
         found = self._matches(field.id, typed)
         if self.TANK_FIELDS[field.id]:  # a tank already listed is not offered again
-            listed = {w.strip(",").upper() for w in field.value.split()[:-1]}
+            listed = {self._known(field.id, w.strip(",")) for w in field.value.split()[:-1]}
             found = [t for t in found if t.id not in listed]
         return found
 
@@ -332,6 +336,12 @@ class ItemFormScreen(TankPicking, Form):
     def _ids(self, field: str):
         return self._vessel.area_index
 
+    def _known(self, field: str, typed: str) -> str | None:
+        try:
+            return entry.deck_area_id(self._vessel, typed)
+        except EntryError:
+            return None
+
     def _matches(self, field: str, typed: str) -> list:
         return entry.area_matches(self._vessel, typed)
 
@@ -408,12 +418,12 @@ class TransferForm(TankPicking, Form):
     def _want(self, field: str):
         c = self._condition
         if field == "xfer-from":  # tanks that hold some, of the receiving tank's liquid once it is named
-            dst = self.query_one("#xfer-to", Input).value.strip().upper()
-            kind = self._vessel.tank(dst).kind if dst in self._vessel.tank_index else None
+            dst = entry.tank_id_or_none(self._vessel, self.query_one("#xfer-to", Input).value)
+            kind = self._vessel.tank(dst).kind if dst else None
             return lambda t: (kind is None or t.kind == kind) and t.id != dst and \
                 entry.fill_volume_m3(t, c.tank_fill(t.id)) > 1e-6
-        src = self.query_one("#xfer-from", Input).value.strip().upper()
-        kind = self._vessel.tank(src).kind if src in self._vessel.tank_index else None
+        src = entry.tank_id_or_none(self._vessel, self.query_one("#xfer-from", Input).value)
+        kind = self._vessel.tank(src).kind if src else None
         return lambda t: (kind is None or t.kind == kind) and t.id != src and \
             t.capacity_m3 - entry.fill_volume_m3(t, c.tank_fill(t.id)) > 1e-6
 
@@ -470,7 +480,8 @@ class TransferForm(TankPicking, Form):
             self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, None, None))
             return
         try:
-            plan = plan_transfer(self._vessel, self._condition, get("from").upper(), get("to").upper(), get("amount"))
+            plan = plan_transfer(self._vessel, self._condition, entry.tank_id(self._vessel, get("from"), "From-tank"),
+                                 entry.tank_id(self._vessel, get("to"), "To-tank"), get("amount"))
         except EntryError as exc:
             self.refuse(str(exc))
             self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, None, None))

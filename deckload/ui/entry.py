@@ -520,6 +520,29 @@ def item_from_form(vessel: Vessel, form: ItemForm, *, deck: bool, base: MassItem
     return DeckItem(name, mass, lcg, vcg, tcg, area_id=area, footprint_m2=footprint, **windage)
 
 
+def tank_id(vessel: Vessel, typed: str, role: str = "Tank") -> str:
+    """The tank named by ``typed``: its id as the profile spells it, matched without regard to
+    case ('wb1p' is WB1P, and 'WB1P' is wb1p in a profile that spells it so).  Refused when no
+    tank, or more than one (ids differing only in case), matches."""
+    t = typed.strip()
+    if t in vessel.tank_index:
+        return t
+    same = [i for i in vessel.tank_index if i.casefold() == t.casefold()]
+    if len(same) > 1:
+        raise EntryError(f"{role} {t!r} matches {', '.join(same)} (they differ only in case): type it as spelled.")
+    if not same:
+        raise EntryError(f"{role} {t!r} is not a tank of {vessel.particulars.name}.")
+    return same[0]
+
+
+def tank_id_or_none(vessel: Vessel, typed: str) -> str | None:
+    """:func:`tank_id`, or None where it refuses (for what a field offers while it is typed)."""
+    try:
+        return tank_id(vessel, typed)
+    except EntryError:
+        return None
+
+
 def deck_area_id(vessel: Vessel, typed: str) -> str | None:
     """The deck area named by ``typed``: its id as the profile spells it, matched without regard
     to case as the tank fields are ('aftdeck' is AFTDECK); None when nothing is typed.  Refused

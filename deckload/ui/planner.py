@@ -12,7 +12,8 @@ from textual.app import ComposeResult
 from textual.containers import Horizontal, Vertical
 from textual.widgets import Input, Label, Static
 
-from deckload.core.ballast_plan import MAX_TRANSFERS, Goal, NoPlan, Plan, plan
+from deckload.core.ballast_plan import MAX_TRANSFERS, READING_TOLERANCE_T, Goal, NoPlan, Plan, as_shown, plan
+from deckload.core.trim import EVEN_KEEL_KN_LIMIT_FRACTION
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
 from deckload.ui import entry
@@ -33,7 +34,10 @@ def goal_range(vessel: Vessel, quantity: str) -> tuple[float, float, str]:
     * list: within ± the KN table's last heel and never beyond 30° (common practice: no loading
       plan aims at a list beyond 30°; an equilibrium is found on the tabulated GZ curve only);
     * trim: within ± the hydrostatic table's greatest draft (derived: trim = T_aft − T_fwd with
-      both ends between 0 and the greatest tabulated draft);
+      both ends between 0 and the greatest tabulated draft), and within what her KN tables can
+      judge: ± EVEN_KEEL_KN_LIMIT_FRACTION of LBP with even-keel KN only (beyond it the criteria
+      read off GZ are not assessable, core/trim.py), else the trims her KN tables are given at.
+      A trim goal beyond is refused: a plan to it would leave her with no verdict;
     * GM (fluid, at least): above 0 and at most the greatest tabulated KMt (derived: GM fluid =
       KMt − KG − FSC, with KG and FSC positive).
     """
@@ -42,6 +46,15 @@ def goal_range(vessel: Vessel, quantity: str) -> tuple[float, float, str]:
         return -end, end, f"±{end:g}° (the KN table ends at {float(vessel.cross_curves.heel_deg[-1]):g}°; 30° at most)"
     if quantity == "trim":
         top = float(vessel.hydrostatics.draft_m[-1])
+        trims = vessel.trimmed.kn_trim_m if vessel.trimmed is not None else ()
+        if len(trims) > 1:
+            lo, hi = max(-top, float(min(trims))), min(top, float(max(trims)))
+            return lo, hi, (f"{lo:+.2f} to {hi:+.2f} m (her KN tables are given at trims {float(min(trims)):+.2f} to "
+                            f"{float(max(trims)):+.2f} m; the greatest tabulated draft is {top:.2f} m)")
+        kn = EVEN_KEEL_KN_LIMIT_FRACTION * vessel.particulars.lbp_m
+        if kn < top:
+            return -kn, kn, (f"±{kn:.2f} m ({100 * EVEN_KEEL_KN_LIMIT_FRACTION:g} % of LBP: beyond it her even-keel KN "
+                             "tables cannot judge the criteria read off the GZ curve)")
         return -top, top, f"±{top:.2f} m (the greatest tabulated draft)"
     top = float(max(vessel.hydrostatics.kmt_m))
     return 0.0, top, f"above 0 and at most {top:.3f} m (the greatest tabulated KMt)"
@@ -64,12 +77,30 @@ def parse_goal(text: str, vessel: Vessel) -> Goal:
 
 
 def parse_tanks(vessel: Vessel, text: str) -> list[str]:
-    ids = [w.strip().upper() for w in text.replace(",", " ").split() if w.strip()]
-    unknown = [i for i in ids if i not in vessel.tank_index]
+    """The tanks typed, as the profile spells them (matched without regard to case, an id that
+    matches two differing only in case refused: entry.tank_id); each once, at least two, and two
+    at least holding the same liquid (a transfer moves one kind only)."""
+    words = [w.strip() for w in text.replace(",", " ").split() if w.strip()]
+    ids, unknown = [], []
+    for w in words:
+        try:
+            ids.append(entry.tank_id(vessel, w))
+        except EntryError as exc:
+            if "differ only in case" in str(exc):
+                raise
+            unknown.append(w)
     if unknown:
         raise EntryError(f"Not tanks of {vessel.particulars.name}: {', '.join(unknown)}.")
+    twice = sorted({i for i in ids if ids.count(i) > 1}, key=ids.index)
+    if twice:
+        raise EntryError(f"Named more than once: {', '.join(twice)}.  Name each tank once.")
     if len(ids) < 2:
         raise EntryError("Allow at least two tanks to pump between.")
+    kinds = [vessel.tank(i).kind for i in ids]
+    if len(set(kinds)) == len(kinds):
+        held = ", ".join(f"{i} {k.replace('_', ' ')}" for i, k in zip(ids, kinds))
+        raise EntryError(f"These tanks hold different liquids ({held}): a transfer moves one kind only; "
+                         "allow two tanks or more of one liquid.")
     return ids
 
 
@@ -105,7 +136,8 @@ class PlannerForm(TankPicking, Form):
             yield Static("", id="form-message")
 
     def on_mount(self) -> None:
-        self.fit_preview(len(preview_lines(self._before, None, None)) + 1, PLANNER_HINT, 2)
+        # a row for each note a plan may bring (plan_notes: tanks left in a worst band or just full, criteria)
+        self.fit_preview(len(preview_lines(self._before, None, None)) + 4, PLANNER_HINT, 2)
         self.set_focus(self.query_one("#plan-goal", Input))
         self._update()
 
@@ -149,8 +181,11 @@ class PlannerForm(TankPicking, Form):
     def _search(self, goal: Goal, tanks: list[str], asked: tuple[str, str]) -> None:
         v = self._vessel
         try:
-            found = plan(v, self._condition, goal, tanks, move=partial(entry.planner_move, v),
-                         room=partial(entry.planner_room, v), evaluate=self._evaluate)
+            move = partial(entry.planner_move, v)
+            found = plan(v, self._condition, goal, tanks, move=move, room=partial(entry.planner_room, v),
+                         evaluate=self._evaluate)
+            if isinstance(found, Plan) and found.transfers:  # in the amounts shown, checked within the reading tolerance
+                found = as_shown(v, self._condition, goal, found, move=move, evaluate=self._evaluate)
         except (ValueError, ArithmeticError) as exc:  # the calculation refused every step it was asked
             found = exc
         try:
@@ -181,9 +216,12 @@ class PlannerForm(TankPicking, Form):
                 f"She already has {goal_words(goal, found.after)}: nothing to pump for this goal.", P["value"]))
             return
         self.proposal = found
-        self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, found.result, None))
+        notes = plan_notes(self._before, found)
+        lines = preview_lines(self._before, found.result, None)
+        lines += [Text(f"⚠ {n}", P["caution"]) for n in notes]
+        self.query_one("#xfer-preview", LinePanel).set_lines(lines)
         self.query_one("#form-message", Static).update(Text(
-            f"{plan_words(found)}: {goal_words(goal, found.after)}.  ⏎ applies · Esc cancels", P["value"]))
+            f"{found_words(goal, found)}  ⏎ applies · Esc cancels", P["value"] if found.robust and not notes else P["caution"]))
 
 
 def transfers_words(transfers) -> str:
@@ -204,11 +242,70 @@ def goal_words(goal: Goal, value: float) -> str:
     return f"GM fluid {value:.3f} m"
 
 
+def found_words(goal: Goal, p: Plan) -> str:
+    """The plan in the amounts applied, what it gives, and what it gives with each amount
+    READING_TOLERANCE_T less or more; said plainly when the goal holds at the shown amounts only."""
+    lo, hi = p.spread if p.spread is not None else (p.after, p.after)
+    if goal.quantity == "gm":
+        within = f"at least GM fluid {lo:.3f} m"
+    else:
+        within = f"{goal_words(goal, lo)} to {goal_words(goal, hi)}"
+    tol = f"with {READING_TOLERANCE_T:g} t less or more on any amount: {within}"
+    head = f"{plan_words(p)}: {goal_words(goal, p.after)}"
+    if p.robust:
+        return f"{head} ({tol})."
+    if goal.quantity == "gm" and lo < goal.target:
+        return (f"{head} only at these amounts to the tenth of a tonne, NOT reliably: {tol}, below the "
+                f"{goal.target:.3f} m wanted.")
+    if not _met_shown(goal, p.after):
+        return f"{head}, not within {goal.tolerance:g} of the goal at amounts to {READING_TOLERANCE_T:g} t; {tol}."
+    return f"{head} at these amounts; {tol} (the goal ± {goal.tolerance:g} holds at the amounts shown only)."
+
+
+def _met_shown(goal: Goal, value: float) -> bool:
+    return value >= goal.target - 1e-12 if goal.quantity == "gm" else abs(value - goal.target) <= goal.tolerance
+
+
+def plan_notes(before: Result | None, p: Plan) -> list[str]:
+    """What a plan leaves that the before/after rows do not show: each tank it pumps left in its
+    worst free-surface band, or brought to nominally full (≥ 98 %, IS 2008 Part B 3.1: its free
+    surface then not counted) and how far past that line; criteria that passed before and fail,
+    or become not assessable, after."""
+    out: list[str] = []
+    used = list(dict.fromkeys(i for t in p.transfers for i in (t.from_id, t.to_id)))
+    was = {t.id: t for t in before.tanks} if before is not None else {}
+    for t in p.result.tanks:
+        if t.id not in used:
+            continue
+        if t.state == "worst_band":
+            lo, hi = t.worst_band_pct
+            out.append(f"{t.id} is left at {t.fill_pct:.1f} %, in its worst free-surface band ({lo:g}–{hi:g} %).")
+        elif t.state == "full" and (t.id not in was or was[t.id].state != "full") and t.fill_pct < 100.0 - 1e-6:
+            past = (t.fill_pct - 98.0) / 100.0 * t.capacity_m3 * t.density_t_m3
+            out.append(f"{t.id} is left nominally full at {t.fill_pct:.1f} % ({past:.1f} t past the 98 % line; "
+                       "below it its free surface counts again).")
+    if before is not None:
+        old = {c.id: c for c in before.criteria}
+        failed = [c for c in p.result.criteria if c.assessed and not c.passed and c.id in old and old[c.id].passed]
+        open_ = [c for c in p.result.criteria if not c.assessed and c.id in old and old[c.id].assessed]
+        if failed:
+            out.append("After it the criteria are NOT MET: " + "; ".join(c.description for c in failed) + " fails.")
+        if open_:
+            why = next((c.note for c in open_ if c.note), "")
+            out.append(f"After it {len(open_)} {'criterion is' if len(open_) == 1 else 'criteria are'} not assessable"
+                       + (f" ({why})." if why else "."))
+    return out
+
+
 def no_plan_words(goal: Goal, why: NoPlan) -> str:
-    """Why there is no plan, with the nearest the allowed tanks come and how."""
+    """Why no plan was found, with the nearest the search came and how.  The search is not every
+    possible pumping: single transfers, wing pairs (and a tank of no partner with a pair) pumped
+    alike, and whole transfers chosen greedily, up to MAX_TRANSFERS; the words say so."""
     want = (f"GM fluid at least {goal.target:.3f} m" if goal.quantity == "gm"
             else goal_words(goal, goal.target).replace(" m A", " m by the stern").replace(" m F", " m by the head"))
-    how = f" after: {transfers_words(why.transfers).lower()}" if why.transfers else " (as she is)"
+    how = f" after: {transfers_words(why.transfers)}" if why.transfers else " (as she is)"
     upright = f", keeping the list within {why.list_limit_deg:.1f}°" if why.list_limit_deg is not None else ""
-    return (f"No plan of up to {MAX_TRANSFERS} transfers between these tanks reaches {want}{upright}: the nearest "
-            f"is {goal_words(goal, why.best)}{how}.  Allow other tanks or change the goal.")
+    return (f"The search found no plan reaching {want}{upright} between these tanks (it tries single transfers, "
+            f"wing pairs pumped alike and whole transfers one at a time, up to {MAX_TRANSFERS}; not every "
+            f"split of the pumping): the nearest it came is {goal_words(goal, why.best)}{how}.  "
+            "Allow other tanks, change the goal, or work it by hand with t.")
