@@ -238,9 +238,9 @@ def test_compare_carries_the_transfer_correction_over():
     kg_solid = ((DISP - w) * KG + w * 0.5) / DISP
     kg_fluid = kg_solid + RHO_SW * 6 * 4**3 / 12 / DISP
     cmp = compare(v, r)
-    assert [n for n, *_ in cmp.rows] == ROWS
-    assert [u for _, u, *_ in cmp.rows] == UNITS
-    rows = {n: (a, b) for n, _, a, b in cmp.rows}
+    assert [r.quantity for r in cmp.rows] == ROWS
+    assert [r.unit for r in cmp.rows] == UNITS
+    rows = {r.quantity: (r.tables, r.direct) for r in cmp.rows}
     for name in ("Draft aft", "Draft forward", "Draft midships"):
         assert rows[name][1] == pytest.approx(T, abs=NUMERIC)
     assert rows["Trim (+ by the stern)"][1] == pytest.approx(0.0, abs=NUMERIC)
@@ -265,7 +265,7 @@ def test_compare_on_either_side(tcg):
     v = _with_hull(box_barge(lightship_t=DISP, lightship_kg_m=KG, lightship_tcg_m=tcg))
     r = evaluate(v, Condition())
     cmp = compare(v, r)
-    rows = {n: (a, b) for n, _, a, b in cmp.rows}
+    rows = {r.quantity: (r.tables, r.direct) for r in cmp.rows}
     phi = wall_sided_list_deg(KMT - KG, abs(tcg))
     assert rows["List (+ starboard)"][1] == pytest.approx(math.copysign(phi, tcg), abs=0.01)
     for deg in range(10, 61, 10):
@@ -280,7 +280,7 @@ def test_compare_in_fresh_water():
     v = _with_hull(box_barge(lightship_t=1.0 * L * B * T, lightship_kg_m=KG))
     r = evaluate(v, Condition(water_density_t_m3=1.0))
     cmp = compare(v, r)
-    rows = {n: (a, b) for n, _, a, b in cmp.rows}
+    rows = {r.quantity: (r.tables, r.direct) for r in cmp.rows}
     assert rows["Draft midships"][1] == pytest.approx(T, abs=NUMERIC)
     for deg in range(10, 61, 10):
         exact = box_gz_m(B, D, T, KG, RAD(deg))
@@ -299,7 +299,7 @@ def test_compare_areas_stop_at_the_downflooding_angle(flood_deg, top):
                                                        "downflooding_deg")
     v = _with_hull(box_barge(lightship_t=DISP, lightship_kg_m=KG, downflooding=curve))
     cmp = compare(v, evaluate(v, Condition()))
-    rows = {n: (a, b) for n, _, a, b in cmp.rows}
+    rows = {r.quantity: (r.tables, r.direct) for r in cmp.rows}
     a30 = box_dynamic_lever_mrad(B, D, T, KG, RAD(30))
     a_top = box_dynamic_lever_mrad(B, D, T, KG, RAD(top))
     assert rows["Area 0–30°"][1] == pytest.approx(a30, abs=5e-4)
@@ -316,7 +316,7 @@ def test_compare_area_from_30_degrees_is_nil_when_downflooding_comes_first():
 
     curve = LimitCurve(frozen_array([100.0, 2000.0]), frozen_array([25.0, 25.0]), "downflooding_deg")
     v = _with_hull(box_barge(lightship_t=DISP, lightship_kg_m=KG, downflooding=curve))
-    rows = {n: (a, b) for n, _, a, b in compare(v, evaluate(v, Condition())).rows}
+    rows = {r.quantity: (r.tables, r.direct) for r in compare(v, evaluate(v, Condition())).rows}
     assert rows["Area 30–25.0°"] == (0.0, 0.0)
     assert rows["Area 0–25.0°"][1] == pytest.approx(box_dynamic_lever_mrad(B, D, T, KG, RAD(25)), abs=5e-4)
 

@@ -71,4 +71,4 @@ def test_direct_column_is_the_hulls_gz_at_her_trim():
         exact = kn - KG * math.sin(math.radians(deg))
         tol = (1.0 - math.cos(psi)) * kn
         assert cmp.gz_direct_m[deg] == pytest.approx(exact, abs=tol), deg
-        assert dict((n, b) for n, _, _, b in cmp.rows)[f"GZ at {deg}°"] == pytest.approx(exact, abs=tol), deg
+        assert {r.quantity: r.direct for r in cmp.rows}[f"GZ at {deg}°"] == pytest.approx(exact, abs=tol), deg

@@ -29,6 +29,8 @@ async def test_h_opens_the_comparison_and_the_worker_fills_it(tmp_path):
         body = _body(app)
         assert "tables" in body and "direct" in body and "Draft aft" in body and "GZ at 30°" in body
         assert "judged on the tables" in body
+        # the departure's GZ at 50° and 60° and area 30–θf are beyond UR L5 (standards.md §5.3): said first
+        assert body.startswith("!! 3 of 17 rows beyond") and body.count("BEYOND") == 3
         await pilot.press("escape")
         assert not isinstance(app.screen, HullCompareScreen)
 

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import sys
+import textwrap
 from pathlib import Path
 
 from deckload.report import verdict_format as vf
@@ -90,15 +91,24 @@ def format_summary(r: Result, tables: str | None = None, doubts: tuple[str, ...]
 
 
 def format_comparison(cmp) -> str:
-    """The direct calculation beside the tables' result: one row per quantity, with the difference."""
+    """The direct calculation beside the tables' result: one row per quantity, with the difference,
+    its tolerance (UR L5 / Circ.1229) and a mark on every row beyond it; then how many are beyond."""
+    from deckload.report import direct_format as df
+
     lines = [
         "",
         "  Second method: direct calculation from the hull geometry (free in trim and heel, for the actual G)",
-        f"    {'':<24}{'tables':>11}{'direct':>11}{'difference':>12}",
+        f"    {'':<24}{'tables':>11}{'direct':>11}{'difference':>12}       {'tolerance':>10}",
     ]
-    for name, unit, a, b in cmp.rows:
-        d = 1 if unit == "deg" else 4 if unit == "m·rad" else 3  # angles to 0.1°, as every view
-        lines.append(f"    {name:<24}{a:11.{d}f}{b:11.{d}f}{b - a:+12.{d}f} {unit}")
+    for row in cmp.rows:
+        a, b, diff, allowed, mark = df.cells(row)
+        lines.append(f"    {row.quantity:<24}{a:>11}{b:>11}{diff:>12} {row.unit:<6}{allowed:>10}  {mark}")
+        if row.note:
+            lines += textwrap.wrap(row.note, 100, initial_indent="        ", subsequent_indent="        ")
+    lines += textwrap.wrap(df.legend(cmp), 100, initial_indent="    ", subsequent_indent="      ")
+    lines.append("")
+    lines += textwrap.wrap(("!! " if cmp.beyond else "") + cmp.summary(), 100,
+                           initial_indent="    ", subsequent_indent="       " if cmp.beyond else "    ")
     lines.append("    The criteria above are judged on the tables; the direct figures are for comparison.")
     return "\n".join(lines)
 
@@ -173,7 +183,9 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False,
     """Load, evaluate and print; exit 0 when computed (pass or fail), non-zero on bad input.
 
     With ``direct`` the direct calculation from the hull geometry is printed beside the
-    tables' result (the profile must name its ``hull_geometry``)."""
+    tables' result (the profile must name its ``hull_geometry``); when any of its rows is beyond
+    its UR L5 / Circ.1229 tolerance everything is printed as usual and the exit status is 1 (as
+    ``check``'s for a booklet row out of tolerance), with the reason on stderr."""
     loaded = load_evaluate_compare(profile_path, condition_path, direct)
     if isinstance(loaded, int):
         return loaded
@@ -187,8 +199,12 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False,
         # the profile's audit warnings travel with the numbers they may have made wrong
         doc["profile_audit_warnings"] = list(doubts)
         if cmp is not None:
+            from deckload.report import direct_format as df
+
             doc["direct"] = {"method": "hull geometry, free trim and heel, actual G",
-                             "rows": [{"quantity": n, "unit": u, "tables": a, "direct": b} for n, u, a, b in cmp.rows],
+                             "tolerances": cmp.source,
+                             "rows": [df.as_json(row) for row in cmp.rows],
+                             "beyond_tolerance": len(cmp.beyond), "summary": cmp.summary(),
                              "gz_m": list(cmp.gz_direct_m)}
         # A JSON copy travels without the screen or the printout around it: it carries the caution.
         doc["caution"] = CAUTION
@@ -208,4 +224,8 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False,
             head, sep, tail = text.rpartition("\n\n" + CAUTION)
             text = head + "\n" + "\n".join(extra) + sep + tail
         print(text)
+    if cmp is not None and cmp.beyond:
+        # exit 1, as `check` for a booklet row out of tolerance: the profile's data contradict each other
+        print(f"deckload: {profile_path}: direct calculation: {cmp.summary()}", file=sys.stderr)
+        return 1
     return 0

@@ -59,8 +59,27 @@ class Tolerance:
         return pct if self.linear is None else f"{pct} / {self.linear:g} {unit} max"
 
 
+# The rows of standards.md §5.3 that more than one comparison uses (the booklet's conditions here,
+# the direct calculation from the hull in deckload.core.equilibrium): written once.
 DRAUGHT = Tolerance(1.0, 0.05, "draughts")
 GZ = Tolerance(5.0, 0.05, "GZ values")
+KMT = Tolerance(1.0, 0.05, "KMt")
+GMT = Tolerance(1.0, 0.05, "GMt")
+AREA = Tolerance(5.0, 0.0012, "areas under GZ")
+EQUILIBRIUM_ANGLE = Tolerance(None, 1.0, "equilibrium angles")
+TRIM_WORDS = "aft + forward draught tolerances (derived)"
+
+
+def trim_allowed(draft_aft_m: float, draft_fwd_m: float, breadth_m: float) -> float:
+    """The largest accepted difference of trim: the table has no trim row, and trim is the
+    difference of the aft and forward draughts, so the sum of their tolerances (derived)."""
+    return DRAUGHT.allowed(draft_aft_m, breadth_m) + DRAUGHT.allowed(draft_fwd_m, breadth_m)
+
+
+def within(got: float | None, base: float, allowed: float) -> bool:
+    """|got − base| ≤ allowed, with :data:`ROUNDOFF` on a difference exactly at the tolerance;
+    no value (None) or a value that is not finite is never within."""
+    return got is not None and math.isfinite(got) and abs(got - base) <= allowed + ROUNDOFF * max(1.0, abs(base))
 
 QUANTITIES: dict[str, tuple[str, str, Tolerance | None]] = {
     # key: (label, unit, tolerance)  — tolerance None: worked out per row (trim, GZ)
@@ -72,18 +91,18 @@ QUANTITIES: dict[str, tuple[str, str, Tolerance | None]] = {
     "fsm_tm": ("free-surface moment", "t·m", Tolerance(2.0, None, "free surface moment")),
     "fsc_m": ("FS correction", "m", Tolerance(2.0, None, "FS correction")),
     "kg_fluid_m": ("KG fluid", "m", Tolerance(1.0, 0.05, "VCG")),
-    "km_m": ("KMt", "m", Tolerance(1.0, 0.05, "KMt")),
-    "gm_solid_m": ("GM solid", "m", Tolerance(1.0, 0.05, "GMt")),
-    "gm_m": ("GM fluid", "m", Tolerance(1.0, 0.05, "GMt")),
+    "km_m": ("KMt", "m", KMT),
+    "gm_solid_m": ("GM solid", "m", GMT),
+    "gm_m": ("GM fluid", "m", GMT),
     "draft_aft_m": ("draft aft", "m", DRAUGHT),
     "draft_mid_m": ("draft midships", "m", DRAUGHT),
     "draft_fwd_m": ("draft forward", "m", DRAUGHT),
     "trim_m": ("trim (+ by stern)", "m", None),
-    "list_deg": ("list (+ starboard)", "°", Tolerance(None, 1.0, "equilibrium angles")),
+    "list_deg": ("list (+ starboard)", "°", EQUILIBRIUM_ANGLE),
     "max_gz_m": ("maximum GZ", "m", GZ),
-    "area_0_30_mrad": ("area 0–30°", "m·rad", Tolerance(5.0, 0.0012, "areas under GZ")),
-    "area_0_40_mrad": ("area 0–40° (or θf)", "m·rad", Tolerance(5.0, 0.0012, "areas under GZ")),
-    "area_30_40_mrad": ("area 30–40° (or θf)", "m·rad", Tolerance(5.0, 0.0012, "areas under GZ")),
+    "area_0_30_mrad": ("area 0–30°", "m·rad", AREA),
+    "area_0_40_mrad": ("area 0–40° (or θf)", "m·rad", AREA),
+    "area_30_40_mrad": ("area 30–40° (or θf)", "m·rad", AREA),
     "downflooding_angle_deg": ("downflooding angle", "°", Tolerance(None, 2.0, "downflooding angle")),
 }
 """The booklet results that can be compared, in the order printed."""
@@ -157,8 +176,8 @@ def compare(result: Result, expected: dict, breadth_m: float) -> tuple[Row, ...]
         if key == "trim_m":
             aft = float(expected.get("draft_aft_m", result.draft_aft_m))
             fwd = float(expected.get("draft_fwd_m", result.draft_fwd_m))
-            allowed = DRAUGHT.allowed(aft, breadth_m) + DRAUGHT.allowed(fwd, breadth_m)
-            words = "aft + forward draught tolerances (derived)"
+            allowed = trim_allowed(aft, fwd, breadth_m)
+            words = TRIM_WORDS
         else:
             allowed = tol.allowed(base, breadth_m)
             words = f"{tol.text(unit)} ({tol.row})"
@@ -185,5 +204,4 @@ def _no_value_note(key: str, result: Result) -> str:
 
 
 def _row(key, label, unit, base, got, allowed, words, note) -> Row:
-    ok = got is not None and math.isfinite(got) and abs(got - base) <= allowed + ROUNDOFF * max(1.0, abs(base))
-    return Row(key, label, unit, base, got, allowed, words, ok, note)
+    return Row(key, label, unit, base, got, allowed, words, within(got, base, allowed), note)

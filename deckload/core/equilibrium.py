@@ -20,6 +20,10 @@ A second method beside the tables, for profiles that carry the hull geometry
    assumption in trim or list.  Trim = T_AP − T_FP.
 4. KMt at the upright, trimmed equilibrium: KB + I_T/∇, I_T the waterplane's transverse
    second moment about its centroid; GM fluid = KMt − KG fluid.
+
+:func:`compare` judges each row against the stability-instrument tolerance of its quantity
+(IACS UR L5 / MSC.1/Circ.1229, standards.md §5.3; the rows of :mod:`deckload.core.booklet`),
+the tables' value as the base value (standards.md §5.2: the approved stability information).
 """
 
 from __future__ import annotations
@@ -28,6 +32,7 @@ import math
 
 import numpy as np
 
+from deckload.core import booklet
 from deckload.core import gz as gzmod
 from deckload.core.frozen import frozen
 from deckload.core.geometry.body import Body, immerse
@@ -130,15 +135,86 @@ def direct_state(body: Body, lbp_m: float, displacement_t: float, water_density_
     )
 
 
+MAX_GZ_ANGLE_NOTE = ("not an independent check: both angles are read off a natural cubic spline in heel "
+                      "through KN points (the hull's every 5°, the tables' at their own heels): the hull checks "
+                      "KN at those points, not where the spline puts the maximum between them; "
+                      "standards.md §5.3 has no row for it")
+"""The note of the angle-of-maximum-GZ row: the direct curve between its grid points is the same
+natural spline as the tables' (:data:`HEEL_STEP_DEG`, :func:`deckload.core.gz.heel_curve`), and its
+maximum is found by the same :func:`deckload.core.gz.facts`; on the box barge both read 28.8° where the
+exact maximum is at 29.18° (checks.md §1.2)."""
+
+
+@frozen
+class DirectRow:
+    """One quantity by both methods, judged against its UR L5 / Circ.1229 tolerance."""
+
+    quantity: str
+    unit: str
+    tables: float
+    """The tables' value: the base value of the deviation (standards.md §5.2)."""
+    direct: float
+    allowed: float | None
+    """Largest accepted |direct − tables| (same unit); None where standards.md §5.3 has no row for
+    the quantity (it is then not judged)."""
+    tolerance: str
+    """The rule in words with its table row, e.g. '1 % / 0.05 m max (GMt)'."""
+    within_tolerance: bool | None
+    """None when not judged (no tolerance)."""
+    note: str = ""
+
+    @property
+    def difference(self) -> float:
+        """direct − tables."""
+        return self.direct - self.tables
+
+
 @frozen
 class Comparison:
     """The table method's result and the direct calculation side by side."""
 
     direct: DirectState
-    rows: tuple[tuple[str, str, float, float], ...]
-    """(quantity, unit, tables, direct); the difference is direct − tables."""
+    rows: tuple[DirectRow, ...]
     gz_direct_m: tuple[float, ...]
     """Direct GZ at whole degrees 0–90 on the side the criteria are checked (m)."""
+
+    @property
+    def beyond(self) -> tuple[DirectRow, ...]:
+        """The rows whose difference exceeds their tolerance."""
+        return tuple(r for r in self.rows if r.within_tolerance is False)
+
+    @property
+    def judged(self) -> int:
+        return sum(r.within_tolerance is not None for r in self.rows)
+
+    @property
+    def source(self) -> str:
+        return booklet.SOURCE
+
+    def summary(self) -> str:
+        """One sentence for every view: how many rows are beyond tolerance and what that means."""
+        n = len(self.beyond)
+        if n == 0:
+            return (f"All {self.judged} rows judged are within the stability-instrument tolerances of {booklet.SOURCE}: "
+                    "the tables and the hull geometry agree.")
+        return (f"{n} of {self.judged} rows beyond the stability-instrument tolerances of {booklet.SOURCE}: "
+                "the profile's tables and its hull geometry disagree with each other. One or both are wrong, "
+                "or the condition is one the tables were not made for (their trim, the LCG of free-trim cross "
+                "curves): check both against the approved booklet before relying on the verdict, which is read "
+                "off the tables.")
+
+
+def _judged(quantity: str, unit: str, tables: float, direct: float, allowed: float, words: str,
+            note: str = "") -> DirectRow:
+    return DirectRow(quantity, unit, float(tables), float(direct), float(allowed), words,
+                     booklet.within(float(direct), float(tables), allowed), note)
+
+
+def _by_row(quantity: str, unit: str, tables: float, direct: float, tol: booklet.Tolerance,
+            breadth_m: float) -> DirectRow:
+    """A row judged by its tolerance of standards.md §5.3, the tables' value as base."""
+    return _judged(quantity, unit, tables, direct, tol.allowed(float(tables), breadth_m),
+                   f"{tol.text(unit)} ({tol.row})")
 
 
 def compare(vessel, result) -> Comparison:
@@ -148,12 +224,19 @@ def compare(vessel, result) -> Comparison:
     and nothing else: the free-surface treatment of the result (constant or actual transfer)
     is carried over as the difference between its GZ and KN − KG fluid·sinφ − TCG·cosφ, so the
     two curves differ only by what the tables and the hull say about the immersed volume.
+
+    Each row is judged against its tolerance of standards.md §5.3 (UR L5 / Circ.1229) with the
+    tables' value as base: draughts 1 % / 5 cm, trim the sum of the aft and forward draughts'
+    (derived: the table has no trim row), list 1° (equilibrium angles), KMt and GM 1 % / 5 cm,
+    GZ and its maximum 5 % / 5 cm, areas 5 % / 0.0012 m·rad.  The angle of maximum GZ has no row
+    there and is not judged (:data:`MAX_GZ_ANGLE_NOTE`).
     """
     if vessel.hull is None:
         raise DirectError("the profile names no hull_geometry (or its file is not there): "
                           "the direct calculation needs the hull")
     d = direct_state(vessel.hull, vessel.particulars.lbp_m, result.displacement_t, result.water_density_t_m3,
                      result.lcg_m, result.kg_fluid_m, result.tcg_m)
+    breadth = vessel.particulars.breadth_m
     rho_ratio = result.water_density_t_m3 / vessel.particulars.table_density_t_m3
     d_eq = result.displacement_t / rho_ratio
     # the KN the result was worked with: at its trim where the profile has tables at several trims
@@ -177,25 +260,29 @@ def compare(vessel, result) -> Comparison:
     a40 = gzmod.area_to(gz_direct, top)
     eq = f.equilibrium_deg
     rows = [
-        ("Draft aft", "m", result.draft_aft_m, d.draft_aft_m),
-        ("Draft forward", "m", result.draft_fwd_m, d.draft_fwd_m),
-        ("Draft midships", "m", result.draft_mean_m, d.draft_mid_m),
-        ("Trim (+ by the stern)", "m", result.trim_m, d.trim_m),
+        _by_row("Draft aft", "m", result.draft_aft_m, d.draft_aft_m, booklet.DRAUGHT, breadth),
+        _by_row("Draft forward", "m", result.draft_fwd_m, d.draft_fwd_m, booklet.DRAUGHT, breadth),
+        _by_row("Draft midships", "m", result.draft_mean_m, d.draft_mid_m, booklet.DRAUGHT, breadth),
+        _judged("Trim (+ by the stern)", "m", result.trim_m, d.trim_m,
+                booklet.trim_allowed(result.draft_aft_m, result.draft_fwd_m, breadth), booklet.TRIM_WORDS),
     ]
     if result.list_deg is not None and eq is not None:  # (no list to compare where GZ is never positive)
-        rows.append(("List (+ starboard)", "deg", result.list_deg, eq if not port else -eq))
+        rows.append(_by_row("List (+ starboard)", "deg", result.list_deg, eq if not port else -eq,
+                            booklet.EQUILIBRIUM_ANGLE, breadth))
     rows += [
-        ("KMt", "m", result.km_m, d.kmt_m),
-        ("GM fluid", "m", result.gm_fluid_m, d.gm_fluid_m),
+        _by_row("KMt", "m", result.km_m, d.kmt_m, booklet.KMT, breadth),
+        _by_row("GM fluid", "m", result.gm_fluid_m, d.gm_fluid_m, booklet.GMT, breadth),
     ]
     for deg in (10, 20, 30, 40, 50, 60):
-        rows.append((f"GZ at {deg}°", "m", float(gz_table_whole[deg]), float(gz_direct[deg * 10])))
+        rows.append(_by_row(f"GZ at {deg}°", "m", float(gz_table_whole[deg]), float(gz_direct[deg * 10]),
+                            booklet.GZ, breadth))
     rows += [
-        ("Max GZ", "m", result.max_gz_m, f.max_gz_m),
-        ("Angle of max GZ", "deg", result.max_gz_angle_deg, f.max_gz_angle_deg),
-        ("Area 0–30°", "m·rad", result.area_0_30_mrad, a30),
-        (f"Area 0–{top:.1f}°", "m·rad", result.area_0_40_mrad, a40),
-        (f"Area 30–{top:.1f}°", "m·rad", result.area_30_40_mrad, a40 - a30 if top > 30.0 else 0.0),
+        _by_row("Max GZ", "m", result.max_gz_m, f.max_gz_m, booklet.GZ, breadth),
+        DirectRow("Angle of max GZ", "deg", float(result.max_gz_angle_deg), float(f.max_gz_angle_deg), None,
+                  "none in standards.md §5.3", None, MAX_GZ_ANGLE_NOTE),
+        _by_row("Area 0–30°", "m·rad", result.area_0_30_mrad, a30, booklet.AREA, breadth),
+        _by_row(f"Area 0–{top:.1f}°", "m·rad", result.area_0_40_mrad, a40, booklet.AREA, breadth),
+        _by_row(f"Area 30–{top:.1f}°", "m·rad", result.area_30_40_mrad, a40 - a30 if top > 30.0 else 0.0,
+                booklet.AREA, breadth),
     ]
-    return Comparison(d, tuple((n, u, float(a), float(b)) for n, u, a, b in rows),
-                      tuple(float(x) for x in gz_direct[whole]))
+    return Comparison(d, tuple(rows), tuple(float(x) for x in gz_direct[whole]))

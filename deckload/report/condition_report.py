@@ -414,15 +414,23 @@ SIGNATORIES = ("Officer", "Master")
 
 
 def _direct(cmp) -> Table:
-    """The direct calculation from the hull beside the tables' figures (``report --direct``)."""
+    """The direct calculation from the hull beside the tables' figures (``report --direct``), each row
+    with its UR L5 / Circ.1229 tolerance and mark, and how many rows are beyond it."""
+    from deckload.report import direct_format as df
+
+    notes = [f"* {row.quantity}: {row.note}" for row in cmp.rows if row.note]
+    caption = "\n".join([*notes, df.legend(cmp), ("!! " if cmp.beyond else "") + cmp.summary(),
+                         "The criteria are judged on the tables."])
     t = Table(title="Second method, from the hull itself (free trim and heel, actual G)",
-              caption="The criteria are judged on the tables.", title_justify="left", caption_justify="left",
+              caption=caption, title_justify="left", caption_justify="left",
               box=None, padding=(0, 1))
-    for head, just in (("", "left"), ("tables", "right"), ("direct", "right"), ("difference", "right"), ("", "left")):
+    for head, just in (("", "left"), ("tables", "right"), ("direct", "right"), ("difference", "right"), ("", "left"),
+                       ("tolerance", "right"), ("", "left")):
         t.add_column(head, justify=just)
-    for name, unit, a, b in cmp.rows:
-        d = 1 if unit == "deg" else 4 if unit == "m·rad" else 3  # angles to 0.1°, as every view
-        t.add_row(name, f"{a:.{d}f}", f"{b:.{d}f}", f"{b - a:+.{d}f}", unit)
+    for row in cmp.rows:
+        a, b, diff, allowed, mark = df.cells(row)
+        name = row.quantity + (" *" if row.note else "")
+        t.add_row(name, a, b, diff, row.unit, allowed, mark, style="bold red" if row.within_tolerance is False else None)
     return t
 
 

@@ -21,12 +21,25 @@ TITLE = "Second method: from the hull itself (free trim and heel, actual G)"
 
 
 def comparison_text(cmp) -> Text:
-    """Rows 'quantity  tables  direct  difference unit', and what the criteria are judged on."""
+    """How many rows are beyond their UR L5 / Circ.1229 tolerance, then rows 'quantity  tables  direct
+    difference unit  ±tolerance mark', a row beyond it in the danger colour, and what the criteria are
+    judged on."""
+    from deckload.report import direct_format as df
+
     t = Text()
-    t.append(f"{'':<24}{'tables':>10}{'direct':>10}{'difference':>12}\n", P["dim"])
-    for name, unit, a, b in cmp.rows:
-        d = 1 if unit == "deg" else 4 if unit == "m·rad" else 3  # angles to 0.1°, as every view
-        t.append(f"{name:<24}{a:10.{d}f}{b:10.{d}f}{b - a:+12.{d}f} {unit}\n", P["value"])
+    # first, where a short terminal cannot hide it below the rows
+    t.append(("!! " if cmp.beyond else "") + cmp.summary() + "\n\n", P["danger"] if cmp.beyond else P["ok"])
+    # 74 columns: a row fits the page on an 80-column terminal
+    t.append(f"{'':<22}{'tables':>9}{'direct':>9}{'difference':>10}       {'tolerance':>9}\n", P["dim"])
+    for row in cmp.rows:
+        a, b, diff, allowed, mark = df.cells(row)
+        beyond = row.within_tolerance is False
+        t.append(f"{row.quantity:<22}{a:>9}{b:>9}{diff:>10} {row.unit:<6}{allowed:>9}  ",
+                 P["danger"] if beyond else P["value"])
+        t.append(f"{mark}\n", P["danger"] if beyond else P["dim"])
+        if row.note:
+            t.append(f"    {row.note}\n", P["dim"])
+    t.append("\n" + df.legend(cmp) + "\n", P["dim"])
     t.append("\nThe criteria are judged on the tables; the direct figures are for comparison.", P["dim"])
     return t
 
