@@ -81,23 +81,30 @@ async def test_a_pause_ends_a_run_of_nudges_and_each_nudge_starts_the_pause_agai
     async with app.run_test(size=(120, 40)) as pilot:
         await to_tank(pilot, app, "WB1P")
         n0 = len(entries(app))
+        pressed = time.monotonic()  # the first key is handled after this, so its pause ends after pressed + 0.5
         await pilot.press("plus")
         first = time.monotonic()
         await asyncio.sleep(0.3)
         await pilot.press("plus")  # inside the pause: the run goes on, the pause starts again
-        second = time.monotonic()
+        second = time.monotonic()  # the key was handled by now (press waits for it)
+        # A machine so loaded that the second key was handled only after the first pause ran out
+        # cannot show this: the first run was then rightly logged alone.
+        in_time = second < pressed + 0.5
         await asyncio.sleep(0.3)
         # past the first nudge's pause, inside the second's (unless the machine stalled past it too)
         run, now = app.session._run, time.monotonic()
         assert now - first > 0.5
-        if now - second < 0.45:
+        if in_time and now - second < 0.45:
             assert run is not None and run.steps == 2
         while time.monotonic() - second < 0.5 + 0.3:
             await asyncio.sleep(0.05)
         await pilot.pause()
         assert app.session._run is None and app.loading_screen._settle_timer is None  # the pause ended it
-        new = entries(app)[n0:]
-        assert [e.change_text.endswith("(2 changes)") for e in new] == [True], [e.change_text for e in new]
+        new = [e.change_text for e in entries(app)[n0:]]
+        if in_time:
+            assert [t.endswith("(2 changes)") for t in new] == [True], new
+        else:
+            assert len(new) == 2 and not any(t.endswith("changes)") for t in new), new
 
 
 async def test_a_confirmed_transfer_is_one_entry(app):

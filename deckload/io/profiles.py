@@ -1721,6 +1721,12 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
         # one line and as long as the screen lets a condition be named (a longer one could not be
         # logged or saved by it; a line break could print a line that looks like a verdict)
         head["name"] = c.text("name", one_line=True, max_chars=MAX_NAME_CHARS)
+        written_for = c.text("vessel", required=False, default=None, one_line=True, max_chars=MAX_ITEM_NAME_CHARS)
+        if written_for is not None and written_for != vessel.particulars.name:
+            # Tank ids like FO1P or WB1S recur from ship to ship: another vessel's condition could
+            # otherwise be read, item for item, as if it were hers.
+            c.bad("vessel", written_for, f"this condition was written for {written_for!r}, not for "
+                  f"{vessel.particulars.name!r} (the profile it is read with)")
         head["remark"] = c.text("remark", required=False, empty_ok=True, one_line=True, max_chars=MAX_REMARK_CHARS)
         head["water_density_t_m3"] = c.num("water_density_t_m3", water_density)
         marks = [ll.name for ll in vessel.load_lines]
@@ -1911,9 +1917,12 @@ def _deck_item_windage(t: Table, vessel: m.Vessel) -> tuple[dict, bool]:
 # =========================================================================== writing
 
 
-def condition_dict(c: m.Condition) -> dict:
-    """The condition as plain TOML data in the README schema (optional keys left out when unset)."""
+def condition_dict(c: m.Condition, vessel_name: str | None = None) -> dict:
+    """The condition as plain TOML data in the README schema (optional keys left out when unset);
+    ``vessel_name``: the vessel it is written for, which reading it back checks."""
     head: dict[str, Any] = {"name": c.name}
+    if vessel_name:
+        head["vessel"] = vessel_name
     if c.remark:
         head["remark"] = c.remark
     head["water_density_t_m3"] = float(c.water_density_t_m3)
@@ -1968,15 +1977,16 @@ def _mass_item_dict(it: m.MassItem) -> dict:
             "vcg_m": float(it.vcg_m), "tcg_m": float(it.tcg_m)}
 
 
-def dump_condition(c: m.Condition) -> str:
-    """The condition as TOML text; ``parse_condition(dump_condition(c), ...) == c``.
+def dump_condition(c: m.Condition, vessel_name: str | None = None) -> str:
+    """The condition as TOML text; ``parse_condition(dump_condition(c), ...) == c``.  With
+    ``vessel_name`` the file says which vessel it is for, and is refused for any other.
 
     Tanks and holds keep their order.  Sections are written one by one so that deck
     items and constants always appear as ``[[...]]`` sections, never inline.
     """
     import tomli_w  # the writer: reading a condition never needs it
 
-    doc = condition_dict(c)
+    doc = condition_dict(c, vessel_name)
     out = ["# deckload loading condition (keys: vessel_profiles/README.md)\n",
            tomli_w.dumps({"format": doc["format"]}), "\n", tomli_w.dumps({"condition": doc["condition"]})]
     for group in ("tanks", "holds"):
@@ -1988,7 +1998,7 @@ def dump_condition(c: m.Condition) -> str:
     return "".join(out)
 
 
-def save_condition(path: str | os.PathLike, condition: m.Condition) -> None:
+def save_condition(path: str | os.PathLike, condition: m.Condition, vessel_name: str | None = None) -> None:
     """Write the condition atomically: the old file is intact until the new one is complete.
 
     A temporary file in the same folder is written, flushed and fsync'ed, then moved
@@ -1998,6 +2008,6 @@ def save_condition(path: str | os.PathLike, condition: m.Condition) -> None:
     """
     from deckload.io.atomicfile import write_atomic
 
-    write_atomic(path, dump_condition(condition))
+    write_atomic(path, dump_condition(condition, vessel_name))
 
 

@@ -168,7 +168,11 @@ class Session:
         if evaluate is None:
             from deckload.core.stability import evaluate
         if save is None and save_path is not None:
-            from deckload.io.profiles import save_condition as save
+            from functools import partial
+
+            from deckload.io.profiles import save_condition
+
+            save = partial(save_condition, vessel_name=vessel.particulars.name)
         self.vessel = vessel
         self.save_path = save_path
         self.profile_path: Path | None = None
@@ -314,7 +318,7 @@ class Session:
 
         aside = free_name(self.save_path, ".previous")
         aside.parent.mkdir(parents=True, exist_ok=True)
-        write_atomic(aside, dump_condition(self.condition))
+        write_atomic(aside, dump_condition(self.condition, self.vessel.particulars.name))
         return aside
 
     def save_as(self, name: str, path: Path) -> list[str]:
@@ -327,7 +331,7 @@ class Session:
 
         named = self.condition.replace(name=name, modified_from="")
         path.parent.mkdir(parents=True, exist_ok=True)
-        write_atomic(path, dump_condition(named))
+        write_atomic(path, dump_condition(named, self.vessel.particulars.name))
         label = f"Condition saved as \u201c{name}\u201d ({path.name})"
         if named == self.condition:
             return self._apply(named, "edit", label, {"saved_as": name, "file": str(path)})
