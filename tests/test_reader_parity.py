@@ -308,3 +308,47 @@ def test_a_sounding_of_nil_is_what_the_tanks_table_says_on_the_screen_as_in_a_fi
     # a zero amount still empties: nothing in her
     for q in ("percent", "volume_m3", "mass_t"):
         assert set_tank(Condition(), tank, q, 0.0).tank_fill("FW2") is None, q
+
+
+def test_a_condition_written_for_another_vessel_is_refused_naming_both(tmp_path):
+    """The demo trawler's grounds condition on the Islander's profile: FO1P, FO1S and FPT are ids of
+    both, so without the vessel's name the file would read, tank for tank, as hers.  [condition]
+    vessel names the vessel; with another profile the reader refuses it, naming file, line, key and
+    both vessels.  The screen's saves write it, and read back with her own profile."""
+    from deckload.io import paths
+    from deckload.io.profiles import load_condition, save_condition
+
+    islander, trawler = demo_vessel(), trawler_vessel()
+    grounds = paths.TRAWLER_PROFILE.parent / "demo_trawler.grounds.condition.toml"
+    assert not problems(grounds.read_text(encoding="utf-8"), trawler)
+    # only tanks both vessels have: nothing but the vessel's name tells the file apart
+    shared = HEAD.replace('name = "probe"\n', 'name = "probe"\nvessel = "Demo Trawler"\n') + \
+        "\n[tanks.FO1P]\npercent = 80.0\n\n[tanks.FO1S]\npercent = 80.0\n\n[tanks.FPT]\npercent = 50.0\n"
+    assert [(p.line, p.key, p.rule) for p in problems(shared, islander)] == [(
+        line_of(shared, 'vessel = "Demo Trawler"'), "condition.vessel",
+        "this condition was written for 'Demo Trawler', not for 'Demo Islander' (the profile it is read with)")]
+    assert not problems(shared, trawler)
+    assert not problems(shared.replace('vessel = "Demo Trawler"\n', ""), islander)  # hand-written: no key, read
+    c = load_condition(grounds, trawler)
+    saved = tmp_path / "w.condition.toml"
+    save_condition(saved, c, trawler.particulars.name)
+    assert 'vessel = "Demo Trawler"' in saved.read_text(encoding="utf-8")
+    assert load_condition(saved, trawler) == c
+    with pytest.raises(ProfileError):
+        load_condition(saved, islander)
+
+
+async def test_the_screens_working_file_names_its_vessel(tmp_path):
+    """The loading screen's saves carry [condition] vessel (Session's save), so its working file
+    cannot later be read with another vessel's profile."""
+    from deckload.ui.launch import create_app
+
+    v, c = demo_vessel(), Condition(name="Pilot", tanks=(TankFill("DB1P", "percent", 50.0),))
+    app = create_app(v, c, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.press("plus")
+        app.session.flush()
+        await pilot.pause()
+    text = app.session.save_path.read_text(encoding="utf-8")
+    assert f'vessel = "{v.particulars.name}"' in text
+    assert [p.key for p in problems(text, trawler_vessel())][:1] == ["condition.vessel"]
