@@ -809,3 +809,19 @@ def test_profile_area_rule_past_the_downflooding_angle_is_nil():
     r = evaluate(v, c)
     x = crit(r, "profile-1-min-area")
     assert x.assessed and x.value == 0.0 and not x.passed
+
+
+def test_a_set_with_none_of_its_criteria_assessed_is_worded_not_assessable():
+    """The weather set with a deck load that states no windage: both A 2.3 criteria, met without its
+    side area, are not assessable (verdict._without_deck_windage), so the set's word is "not
+    assessable", never "met where assessable", which would claim what nothing showed (found by a
+    real-terminal trial); a set with some criteria assessed and met keeps "met where assessable"."""
+    from deckload.report import verdict_format as vf
+
+    anchor = DeckItem("Spare anchor", 6.0, 20.0, 7.0)
+    r = evaluate(*box(3.0, 3.0, deck_items=(anchor,)))
+    words = {g.set.id: g.word for g in vf.grouped(r)}
+    assert words["IS2008-A2.3"] == "not assessable" and words["IS2008-A2.2"] == "met"
+    assert vf.verdict_word(r) == "met where assessable"
+    some = [c for c in r.criteria if c.set_id == "IS2008-A2.2"] + [crit(r, "IS2008-A2.3-theta0")]
+    assert vf.outcome_word(some) == "met where assessable"

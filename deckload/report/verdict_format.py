@@ -62,13 +62,17 @@ def grouped(result: Result) -> list[SetGroup]:
 
 
 def outcome_word(criteria) -> str:
-    """'NOT MET' when any assessed criterion failed; 'met where assessable' when some could not
-    be assessed; 'met' only when every one was assessed and met; 'nothing assessed' when empty."""
+    """'NOT MET' when any assessed criterion failed; 'not assessable' when none could be assessed
+    ("met where assessable" would then claim what nothing showed); 'met where assessable' when some
+    could not be assessed; 'met' only when every one was assessed and met; 'nothing assessed' when
+    empty."""
     criteria = tuple(criteria)
     if not criteria:
         return "nothing assessed"
     if any(c.assessed and not c.passed for c in criteria):
         return "NOT MET"
+    if not any(c.assessed for c in criteria):
+        return "not assessable"
     if any(not c.assessed for c in criteria):
         return "met where assessable"
     return "met"

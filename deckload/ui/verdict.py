@@ -21,7 +21,8 @@ from deckload.ui.gzplot import Area, GzChart, Level, Mark
 from deckload.ui.palette import P
 from deckload.ui.views import CMP, criterion_name, verdict
 
-WORD_STYLE = {"met": "ok", "NOT MET": "danger", "met where assessable": "caution", "nothing assessed": "danger"}
+WORD_STYLE = {"met": "ok", "NOT MET": "danger", "met where assessable": "caution", "nothing assessed": "danger",
+              "not assessable": "danger"}
 VERDICT_KEY = "v"
 """Shown in the panel as the way to the whole verdict (declared in ui/commands.py)."""
 
