@@ -9,6 +9,7 @@ from __future__ import annotations
 import re
 
 import pytest
+from textual.containers import VerticalScroll
 from textual.widgets import Static
 
 from deckload.io.paths import DEMO_CONDITIONS
@@ -114,3 +115,58 @@ async def test_rows_past_a_short_panel_are_said_and_pgdn_shows_them(tmp_path):
         await pilot.press("pageup", "pageup", "pageup", "pageup", "pageup")
         await pilot.pause()
         assert panel.plain() == first
+
+
+async def test_the_h_page_scrolls_by_keys_at_80x24_and_says_which(tmp_path):
+    from deckload.ui.hull_compare import HullCompareScreen
+
+    v = demo_vessel()
+    c = load_condition(DEMO_CONDITIONS["departure"], v)
+    app = create_app(v, c, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.press("h")
+        await app.workers.wait_for_complete()
+        await pilot.pause()
+        assert isinstance(app.screen, HullCompareScreen)
+        page = app.screen.query_one("#hull-compare-page", VerticalScroll)
+        assert app.screen.focused is page
+        assert "PgDn" in str(page.border_subtitle) and "Esc" in str(page.border_subtitle)
+        assert page.max_scroll_y > 0 and page.scroll_y == 0  # the premise: longer than the screen
+        await pilot.press("pagedown")
+        await pilot.pause()
+        assert page.scroll_y > 0
+        await pilot.press("home")
+        await pilot.pause()
+        assert page.scroll_y == 0
+        await pilot.press("down")
+        await pilot.pause()
+        assert page.scroll_y == 1
+        await pilot.press("end")
+        await pilot.pause()
+        assert page.scroll_y == page.max_scroll_y
+        await pilot.press("escape")
+        await pilot.pause()
+        assert not isinstance(app.screen, HullCompareScreen)
+
+
+def test_the_comparison_rows_fit_74_columns_with_headings_apart():
+    """Every row of the table, 'not judged' included, fits the page beside its scroll bar on an
+    80-column terminal (80 − border 2 − padding 2 − scroll bar 2 = 74), and the headings are words
+    apart ('direct difference', not 'directdifference')."""
+    from deckload.core.equilibrium import compare
+    from deckload.core.stability import evaluate
+    from deckload.ui.hull_compare import comparison_text
+
+    v = demo_vessel()
+    c = load_condition(DEMO_CONDITIONS["departure"], v)
+    cmp = compare(v, evaluate(v, c))
+    lines = comparison_text(cmp).plain.splitlines()
+    head = next(line for line in lines if line.split()[:1] == ["tables"])
+    assert head.split() == ["tables", "direct", "difference", "tolerance"]
+    rows = [line for line in lines if line.rstrip().endswith(("ok", "BEYOND", "not judged"))]
+    assert any(r.endswith("not judged") for r in rows) and len(rows) == len(cmp.rows)
+    assert max(len(r) for r in rows + [head]) <= 74
+    # each heading ends over the end of its column's cells
+    for word in ("tables", "direct", "difference"):
+        end = head.index(word) + len(word)
+        assert all(r[end - 1] != " " and (end == len(r) or r[end] == " ") for r in rows)
