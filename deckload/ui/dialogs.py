@@ -48,7 +48,10 @@ class Form(ModalScreen[Any]):
             panel.styles.margin = (0, 0, 0, 0)
         else:
             other += 1
-        panel.styles.height = max(8, min(need, self.app.size.height - other))
+        self.preview_room = self.app.size.height - other
+        """The most rows the panel can have with a one-line message (a form whose message wraps
+        gives the panel fewer: the planner's ``_show``)."""
+        panel.styles.height = max(8, min(need, self.preview_room))
 
     @property
     def keys_ready(self) -> bool:

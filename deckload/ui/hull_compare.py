@@ -11,13 +11,15 @@ from __future__ import annotations
 from rich.text import Text
 from textual.app import ComposeResult
 from textual.binding import Binding
-from textual.containers import Vertical
+from textual.containers import VerticalScroll
 from textual.screen import ModalScreen
 from textual.widgets import Static
 
 from deckload.ui.palette import P
 
 TITLE = "Second method: from the hull itself (free trim and heel, actual G)"
+KEYS = "↑↓ PgUp PgDn Home End scroll · Esc closes"
+"""The page's keys, on its bottom edge: the rows and the legend run below an 80×24 screen."""
 
 
 def comparison_text(cmp) -> Text:
@@ -29,12 +31,13 @@ def comparison_text(cmp) -> Text:
     t = Text()
     # first, where a short terminal cannot hide it below the rows
     t.append(("!! " if cmp.beyond else "") + cmp.summary() + "\n\n", P["danger"] if cmp.beyond else P["ok"])
-    # 74 columns: a row fits the page on an 80-column terminal
-    t.append(f"{'':<22}{'tables':>9}{'direct':>9}{'difference':>10}       {'tolerance':>9}\n", P["dim"])
+    # 74 columns with the longest mark ('not judged'): a row fits the page, beside its scroll bar,
+    # on an 80-column terminal; each heading right over its column, a space before it
+    t.append(f"{'':<21}{'tables':>8}{'direct':>9}{'difference':>11}{'':5}{'tolerance':>9}\n", P["dim"])
     for row in cmp.rows:
         a, b, diff, allowed, mark = df.cells(row)
         beyond = row.within_tolerance is False
-        t.append(f"{row.quantity:<22}{a:>9}{b:>9}{diff:>10} {row.unit:<6}{allowed:>9}  ",
+        t.append(f"{row.quantity:<21}{a:>8}{b:>9}{diff:>11} {row.unit:<5}{allowed:>8} ",
                  P["danger"] if beyond else P["value"])
         t.append(f"{mark}\n", P["danger"] if beyond else P["dim"])
         if row.note:
@@ -54,11 +57,14 @@ class HullCompareScreen(ModalScreen[None]):
         self._vessel, self._result = vessel, result
 
     def compose(self) -> ComposeResult:
-        with Vertical(classes="form help"):
+        # a scroll container takes focus, so the arrows and PgUp/PgDn/Home/End scroll it
+        with VerticalScroll(classes="form help", id="hull-compare-page") as page:
+            page.border_subtitle = KEYS
             yield Static(Text(TITLE + "\n", P["title"]))
             yield Static(Text("Integrating the hull …", P["dim"]), id="hull-compare-body")
 
     def on_mount(self) -> None:
+        self.set_focus(self.query_one("#hull-compare-page", VerticalScroll))
         if self._vessel.hull is None:
             self._show(Text("The profile names no hull geometry (hull_geometry), or its file is not there: "
                             "only the tables are available.",

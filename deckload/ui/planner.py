@@ -7,6 +7,7 @@ from __future__ import annotations
 
 from functools import partial
 
+from rich.console import Console
 from rich.text import Text
 from textual.app import ComposeResult
 from textual.containers import Horizontal, Vertical
@@ -16,7 +17,7 @@ from deckload.core.ballast_plan import MAX_TRANSFERS, READING_TOLERANCE_T, Goal,
 from deckload.core.trim import EVEN_KEEL_KN_LIMIT_FRACTION
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
-from deckload.ui import entry
+from deckload.ui import entry, views
 from textual.binding import Binding
 
 from deckload.ui.dialogs import Form, TankPicking, preview_lines
@@ -104,6 +105,52 @@ def parse_tanks(vessel: Vessel, text: str) -> list[str]:
     return ids
 
 
+def fitted_lines(before: Result | None, after: Result | None, notes: list[str], width: int,
+                 rows: int) -> list[Text]:
+    """The before/after rows (:func:`preview_lines`) and the plan's notes (⚠, wrapped to ``width``:
+    never cut), in ``rows`` rows as far as they go.  When they do not, the less important rows give
+    way, in this order: criteria that are ok before and after fold into one line saying how many;
+    the three drafts share one line; then the notes move up above the criteria rows, so that what
+    the plan leaves unsafe is read first and only criteria rows are left below the panel's edge
+    (the form scrolls them: PgDn)."""
+    full = preview_lines(before, after, None)
+    noted: list[Text] = []
+    console = Console(width=max(10, width))
+    for n in notes:
+        noted.extend(Text(f"⚠ {n}", P["caution"]).wrap(console, max(10, width)))
+    if len(full) + len(noted) <= rows:
+        return full + noted
+    ref = before or after
+    head, drafts, crit = full[:4], full[4:7], full[7:]
+    if ref is None or len(crit) != len(ref.criteria):  # not the table this was written for: nothing folded
+        return full + noted
+    after_by_id = {c.id: c for c in after.criteria} if after is not None else {}
+
+    def met(c) -> bool:  # c is before's (after's with no before): ok in every column shown
+        shown = ([c] if before is not None else []) + ([after_by_id[c.id]] if c.id in after_by_id else [])
+        return bool(shown) and all(views.verdict(x)[0] == "ok" for x in shown)
+
+    kept = [line for line, c in zip(crit, ref.criteria) if not met(c)]
+    folded = len(crit) - len(kept)
+    if folded >= 2:
+        both = "before and after" if before is not None and after is not None else "as she is"
+        crit = kept + [Text(f"{'Criteria':<14}" + (f"all {folded} ok {both}" if not kept else f"{folded} more ok {both}")
+                            + " (rows folded for room)", P["dim"])]
+    if len(head) + len(drafts) + len(crit) + len(noted) <= rows:
+        return head + drafts + crit + noted
+
+    def draft(label: str, get) -> str:
+        b, a = (get(r) if r is not None else None for r in (before, after))
+        return f"{label} " + " → ".join(f"{x:.3f}" for x in (b, a) if x is not None)
+
+    one = Text(f"{'Drafts, m':<14}", P["label"])
+    one.append("  ".join((draft("aft", lambda r: r.draft_aft_m), draft("mid", lambda r: r.draft_mean_m),
+                          draft("fwd", lambda r: r.draft_fwd_m))), P["value"])
+    if len(head) + 1 + len(crit) + len(noted) <= rows:
+        return head + [one] + crit + noted
+    return head + [one] + noted + crit
+
+
 PLANNER_HINT = (f"Goal: list 0 · trim 0.5 · gm 0.8 (at least).  Tanks: the ones you allow.  ⏎ proposes (one "
                 f"transfer, or up to {MAX_TRANSFERS}), ⏎ again applies it as one step · Esc cancels")
 
@@ -113,7 +160,10 @@ class PlannerForm(TankPicking, Form):
     The tanks field offers the tanks that match the word being typed (TankPicking)."""
 
     BINDINGS = [Binding("up", "pick(-1)", "Previous tank", show=False), Binding("down", "pick(1)", "Next tank", show=False),
-                Binding("tab", "take_or_next", "Take / next field", show=False)]
+                Binding("tab", "take_or_next", "Take / next field", show=False),
+                # the panel's rows below (or above) its edge, when it says there are some
+                Binding("pagedown", "page(1)", "Rows below", show=False),
+                Binding("pageup", "page(-1)", "Rows above", show=False)]
     TANK_FIELDS = {"plan-tanks": True}
 
     def __init__(self, vessel: Vessel, condition: Condition, before: Result | None, evaluate):
@@ -122,6 +172,10 @@ class PlannerForm(TankPicking, Form):
         self.proposal: Plan | None = None
         self.searching = False
         self._asked: tuple[str, str] | None = None
+        self._notes: list[str] = []
+        self._message = Text("")
+        self._offset = 0
+        """The first of the panel's rows shown (PgDn/PgUp), when they are more than it has."""
 
     def compose(self) -> ComposeResult:
         ballast = " ".join(t.id for t in self._vessel.tanks if t.kind == "ballast")
@@ -149,11 +203,50 @@ class PlannerForm(TankPicking, Form):
         if picking is not None:
             panel.set_lines(picking)
             return
-        panel.set_lines(preview_lines(self._before, self.proposal.result if self.proposal else None, None))
+        self._show()
+
+    def _say(self, message: Text) -> None:
+        """The message under the panel, wrapped to as many lines as it needs; the panel gives up
+        the rows it takes."""
+        self._message = message
+        self.query_one("#form-message", Static).update(message)
+        self._show()
+
+    def refuse(self, message: str) -> None:
+        self._say(Text("✖ " + message, P["danger"]))
+
+    def _show(self) -> None:
+        """The before/after rows (and the notes of a proposal) in the rows left beside the message;
+        rows beyond the panel's edge are said at the edge, with the key that shows them."""
+        panel = self.query_one("#xfer-preview", LinePanel)
+        width = min(80, self.app.size.width) - 4  # .form.transfer: width 80, border and padding
+        said = max(1, len(self._message.wrap(self.app.console, max(10, width))))
+        room = getattr(self, "preview_room", 14) + 1 - said  # the panel's and the message's rows, less the message
+        after = self.proposal.result if self.proposal else None
+        lines = fitted_lines(self._before, after, self._notes if self.proposal else [], width, max(5, room))
+        height = max(5, min(max(int(panel.styles.height.value) if panel.styles.height else 0, len(lines)), room))
+        panel.styles.height = height
+        self._offset = max(0, min(self._offset, len(lines) - height + 1 if len(lines) > height else 0))
+        if len(lines) > height:
+            top = self._offset
+            above = [Text(f"▲ {top} rows above: PgUp", P["caution"])] if top else []
+            body = height - len(above) - 1
+            if top + body + 1 >= len(lines):  # the last rows fit without a mark below
+                body += 1
+            below = len(lines) - top - body
+            lines = above + lines[top:top + body] + (
+                [Text(f"▼ {below} more rows below: PgDn (PgUp back)", P["caution"])] if below > 0 else [])
+        panel.set_lines(lines)
+
+    def action_page(self, step: int) -> None:
+        panel = self.query_one("#xfer-preview", LinePanel)
+        self._offset = max(0, self._offset + step * max(1, int(panel.styles.height.value) - 2))
+        self._show()
 
     def on_input_changed(self, event: Input.Changed) -> None:
         event.stop()
         self.proposal = None
+        self._offset = 0
         self._update()
 
     def on_input_submitted(self, event: Input.Submitted) -> None:
@@ -170,12 +263,12 @@ class PlannerForm(TankPicking, Form):
             self.refuse(str(exc))
             return
         if self.searching:
-            self.query_one("#form-message", Static).update(Text("Still searching…  Esc cancels", P["dim"]))
+            self._say(Text("Still searching…  Esc cancels", P["dim"]))
             return
         # The search runs off the screen's thread (each step is a full calculation, a GM plan on
         # a loaded PC takes a second or so): the form stays live and says it is searching.
         self.searching, self._asked = True, asked
-        self.query_one("#form-message", Static).update(Text("Searching…", P["dim"]))
+        self._say(Text("Searching…", P["dim"]))
         self.run_worker(partial(self._search, goal, tanks, asked), thread=True, exclusive=True, exit_on_error=False)
 
     def _search(self, goal: Goal, tanks: list[str], asked: tuple[str, str]) -> None:
@@ -199,28 +292,24 @@ class PlannerForm(TankPicking, Form):
             return
         now = (self.query_one("#plan-goal", Input).value, self.query_one("#plan-tanks", Input).value)
         if now != asked:  # the fields changed while it searched: this answer is to another question
-            self.query_one("#form-message", Static).update(Text("⏎ proposes for the goal and tanks as they are now.", P["dim"]))
+            self._say(Text("⏎ proposes for the goal and tanks as they are now.", P["dim"]))
             return
         if isinstance(found, Exception):
             self.refuse(f"The planner could not compute a step: {found}")
             return
         if isinstance(found, NoPlan):
             self.proposal = None
-            self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, None, None))
             self.refuse(no_plan_words(goal, found))
             return
         if not found.transfers:  # she already meets it: nothing to apply
             self.proposal = None
-            self.query_one("#xfer-preview", LinePanel).set_lines(preview_lines(self._before, None, None))
-            self.query_one("#form-message", Static).update(Text(
+            self._say(Text(
                 f"She already has {goal_words(goal, found.after)}: nothing to pump for this goal.", P["value"]))
             return
         self.proposal = found
-        notes = plan_notes(self._before, found)
-        lines = preview_lines(self._before, found.result, None)
-        lines += [Text(f"⚠ {n}", P["caution"]) for n in notes]
-        self.query_one("#xfer-preview", LinePanel).set_lines(lines)
-        self.query_one("#form-message", Static).update(Text(
+        notes = self._notes = plan_notes(self._before, found)
+        self._offset = 0
+        self._say(Text(
             f"{found_words(goal, found)}  ⏎ applies · Esc cancels", P["value"] if found.robust and not notes else P["caution"]))
 
 
