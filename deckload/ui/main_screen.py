@@ -566,8 +566,10 @@ class LoadingScreen(Screen[None]):
         if self.has_class("-narrow"):
             self.set_class(on, "-gz")
         self.refresh_view()
-        r = self.session.result
-        if on and (r is None or r.weather is None):
+        s = self.session
+        if on and s.stale:  # s.result is the last good condition's, not this one's (as _curve_lines)
+            self.say("Wind and roll: no result for this condition (outside the tables).", ok=None)
+        elif on and (s.result is None or s.result.weather is None):
             self.say("Weather criterion not assessed for this condition: the panel says why.", ok=None)
         else:
             self.say("Wind and roll plot: b again for the plain GZ curve" if on else "GZ curve", ok=None)

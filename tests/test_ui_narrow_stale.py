@@ -1,0 +1,121 @@
+"""At 80×24 (narrow) a panel hidden and shown again shows the current condition, and the last good
+numbers shown outside the tables are marked as such at every width (found by a real-terminal trial
+of the Demo Islander's departure):
+
+* the curve panel, hidden behind the numbers (g), kept the drawing it last made: after a change to
+  the condition and g (or b), it showed the old condition's curve and title as current; after
+  outside the tables and undo, "GZ curve of the last good condition" over a condition with a verdict;
+* the 'Afloat' panel's "(last good, stale)" was cut to "(last …" at 80 columns;
+* b outside the tables said "Wind and roll plot: …" where there is no result to plot;
+* the board's hint line cut a number ("z 5.8…" for 5.80).
+
+The references are the calculation itself (``evaluate`` through the session): the screen must
+show what it computes for the condition on screen.
+"""
+
+from __future__ import annotations
+
+from textual.geometry import Region
+
+from deckload.ui.launch import create_app
+from deckload.ui.main_screen import gz_title_lines
+from deckload.ui.widgets import LoadBoard
+from demo_vessels import demo_departure
+
+
+def _app(tmp_path):
+    vessel, departure = demo_departure()
+    return create_app(vessel, departure, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="AU")
+
+
+def _shown(app, ident: str) -> list[str]:
+    """The panel's lines as textual paints them (its render at its size), trailing blanks dropped."""
+    panel = app.screen.query_one(f"#{ident}")
+    size = panel.size
+    strips = panel.render_lines(Region(0, 0, size.width, size.height))
+    return ["".join(seg.text for seg in strip).rstrip() for strip in strips]
+
+
+def _status(app) -> str:
+    return app.screen.query_one("#status").plain()
+
+
+async def _set_h1(app, pilot, tonnes: str) -> None:
+    assert app.screen.query_one(LoadBoard).select(("hold", "H1"))
+    await pilot.press("enter", *tonnes, "enter")
+    await pilot.pause()
+
+
+def _title_of(app, width: int) -> list[str]:
+    """The GZ curve's title for the condition on screen (what the panel must show on top)."""
+    return [t.plain.rstrip() for t in gz_title_lines(app.session.result, width)]
+
+
+async def test_the_curve_shown_again_after_a_change_is_the_new_conditions(tmp_path):
+    """g (curve), g (numbers), H1 ⏎ 200 t, g: the curve and its title are the new condition's."""
+    app = _app(tmp_path)
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        await pilot.press("g")
+        await pilot.pause()
+        width = app.screen.query_one("#gz").size.width
+        before = _title_of(app, width)
+        assert _shown(app, "gz")[: len(before)] == before  # the premise: the departure's curve on show
+        await pilot.press("g")
+        await pilot.pause()
+        await _set_h1(app, pilot, "200")
+        assert not app.session.stale
+        after = _title_of(app, width)
+        assert after != before  # the premise: 200 t in H1 changes the curve
+        await pilot.press("g")
+        await pilot.pause()
+        shown = _shown(app, "gz")
+        assert shown[: len(after)] == after, shown
+
+
+async def test_b_after_a_change_behind_the_numbers_shows_the_wind_plot_not_the_old_curve(tmp_path):
+    """The trial's steps: g, g, H1 ⏎ 200 t, b: the wind and roll panel, not the departure's curve."""
+    app = _app(tmp_path)
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        await pilot.press("g")
+        await pilot.pause()
+        width = app.screen.query_one("#gz").size.width
+        old = _title_of(app, width)
+        await pilot.press("g")
+        await pilot.pause()
+        await _set_h1(app, pilot, "200")
+        await pilot.press("b")
+        await pilot.pause()
+        shown = _shown(app, "gz")
+        assert shown[0].startswith(" Wind"), shown
+        assert not set(old) & set(shown), shown
+
+
+async def test_outside_the_tables_then_undo_b_shows_the_wind_plot_of_the_condition_with_a_verdict(tmp_path):
+    """H1 ⏎ 250 t (1008 t, beyond the 1000 t table), b, b, u, b: the departure is back with its
+    verdict: the panel is its wind and roll plot, not the last good curve; and b while outside the
+    tables says there is no result, not "Wind and roll plot"."""
+    app = _app(tmp_path)
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        await _set_h1(app, pilot, "250")
+        assert app.session.stale  # the premise: outside the tables
+        await pilot.press("b")
+        await pilot.pause()
+        assert "no result" in "\n".join(_shown(app, "gz"))
+        status = _status(app)
+        assert "outside the tables" in status and "Wind and roll plot" not in status, status
+        await pilot.press("b", "u")
+        await pilot.pause()
+        assert not app.session.stale and app.session.result.weather is not None  # the premise
+        await pilot.press("b")
+        await pilot.pause()
+        shown = _shown(app, "gz")
+        assert shown[0].startswith(" Wind") and "m·rad" in shown[0], shown
+        assert "last good" not in "\n".join(shown), shown
+        await pilot.press("b", "g")  # and the plain curve: the departure's, not "last good"
+        await pilot.pause()
+        shown = _shown(app, "gz")
+        title = _title_of(app, app.screen.query_one("#gz").size.width)
+        assert shown[: len(title)] == title, shown
