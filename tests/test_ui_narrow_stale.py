@@ -17,9 +17,11 @@ from __future__ import annotations
 
 from textual.geometry import Region
 
+from deckload.core.stability import evaluate
+from deckload.ui import views
 from deckload.ui.launch import create_app
 from deckload.ui.main_screen import gz_title_lines
-from deckload.ui.widgets import LoadBoard
+from deckload.ui.widgets import LoadBoard, fit_width
 from demo_vessels import demo_departure
 
 
@@ -119,3 +121,28 @@ async def test_outside_the_tables_then_undo_b_shows_the_wind_plot_of_the_conditi
         shown = _shown(app, "gz")
         title = _title_of(app, app.screen.query_one("#gz").size.width)
         assert shown[: len(title)] == title, shown
+
+
+async def test_the_last_good_numbers_are_marked_at_80_and_60_columns(tmp_path):
+    """Outside the tables the 'Afloat' panel shows the last good Δ, drafts and GM: its first line
+    shows the mark whole at every width the screen takes."""
+    for size in ((80, 24), (60, 20)):
+        app = _app(tmp_path / f"{size[0]}")
+        async with app.run_test(size=size) as pilot:
+            await pilot.pause()
+            assert "LAST GOOD" not in "\n".join(_shown(app, "afloat"))
+            await _set_h1(app, pilot, "250")
+            assert app.session.stale
+            shown = _shown(app, "afloat")
+            assert "LAST GOOD" in shown[0], (size, shown)
+            # the premise: Δ of the last good condition (807.7 t) is what the panel shows
+            assert f"{app.session.result.displacement_t:.1f}" in "\n".join(shown), shown
+
+
+def test_the_afloat_mark_is_whole_at_any_width():
+    vessel, departure = demo_departure()
+    result = evaluate(vessel, departure)
+    for width in range(14, 60):
+        first = fit_width(views.afloat_lines(vessel, departure, result, True, width)[0], width).plain
+        assert "LAST GOOD" in first, (width, first)
+        assert "LAST GOOD" not in views.afloat_lines(vessel, departure, result, False, width)[0].plain
