@@ -15,12 +15,13 @@ show what it computes for the condition on screen.
 
 from __future__ import annotations
 
+from rich.text import Text
 from textual.geometry import Region
 
 from deckload.core.stability import evaluate
 from deckload.ui import views
 from deckload.ui.launch import create_app
-from deckload.ui.main_screen import gz_title_lines
+from deckload.ui.main_screen import fit_lines, gz_title_lines
 from deckload.ui.widgets import LoadBoard, fit_width
 from demo_vessels import demo_departure
 
@@ -146,3 +147,35 @@ def test_the_afloat_mark_is_whole_at_any_width():
         first = fit_width(views.afloat_lines(vessel, departure, result, True, width)[0], width).plain
         assert "LAST GOOD" in first, (width, first)
         assert "LAST GOOD" not in views.afloat_lines(vessel, departure, result, False, width)[0].plain
+
+
+def test_a_one_line_hint_never_ends_in_part_of_a_number():
+    """'… 13.00 t at x 6.50 m, z 5.80 m, …' cut at 80 columns read 'z 5.8…'."""
+    text = " 20 ft container, provisions · 13.00 t at x 6.50 m, z 5.80 m, on the centreline · on MAIN"
+    words = text.split()
+    for width in range(20, len(text)):
+        line = fit_lines(Text(text), width, 1)[0].plain
+        assert len(line) <= width and line.endswith("…"), (width, line)
+        assert all(w in words for w in line[:-1].split()), (width, line)
+
+
+async def test_the_board_hint_at_80_columns_shows_no_cut_number(tmp_path):
+    """The cursor on each deck load and constant: the message line shows its summary, whole words only."""
+    from deckload.ui.main_screen import item_summary
+
+    app = _app(tmp_path)
+    async with app.run_test(size=(80, 24)) as pilot:
+        await pilot.pause()
+        board = app.screen.query_one(LoadBoard)
+        cut = 0
+        for row in [r for r in board.rows if r.key and r.key[0] in ("deck", "const")]:
+            board.select(row.key)
+            await pilot.pause()
+            c = app.session.condition
+            items = c.deck_items if row.key[0] == "deck" else c.constants
+            full = item_summary(items[row.key[1]]).split()
+            shown = _status(app)
+            if shown.endswith("…"):
+                cut += 1
+            assert all(w in full for w in shown.rstrip("…").split()), (shown, full)
+        assert cut > 0  # the premise: at 80 columns some summaries are longer than the line

@@ -26,7 +26,7 @@ from deckload.ui.compositor import RowCompositor
 from deckload.ui.entry import EntryError, ItemForm
 from deckload.ui.palette import P
 from deckload.ui.session import Session
-from deckload.ui.widgets import LinePanel, LoadBoard, SizedPanel
+from deckload.ui.widgets import LinePanel, LoadBoard, SizedPanel, fit_width
 
 RUN_PAUSE_S = 4.0
 """A run of nudges or retypes of one item ends (and is logged as one entry) after this pause."""
@@ -835,10 +835,13 @@ def fit_lines(text: Text, width: int, max_lines: int, indent: int = 2) -> list[T
     lines = [first] + [Text(" " * indent).append_text(line) for line in rest]
     if len(lines) > max_lines:  # the last line shown carries the rest, cut with "…" where it overflows
         last = lines[max_lines - 1].copy()
+        last.rstrip()
         for more in lines[max_lines:]:
-            last.append(" ").append_text(more[indent:])
+            more = more[indent:]
+            last.append(" ").append_text(more[len(more.plain) - len(more.plain.lstrip()):])
         lines = lines[: max_lines - 1] + [last]
-    return [cut(ln, width) for ln in lines]
+    # fit_width's rule: a word or number the edge would split is left out whole ("z 5.8…" read 5.8)
+    return [fit_width(ln, width) for ln in lines]
 
 
 def gz_title_lines(result, width: int) -> list[Text]:
