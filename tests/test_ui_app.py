@@ -190,7 +190,7 @@ async def test_outside_the_tables_shows_a_warning_and_greys_the_last_numbers(app
         app.screen.commit(heavy, "heavy lift")
         await pilot.pause()
         assert "DANGER Outside the tables" in panel(app, "alerts")
-        assert "last good" in panel(app, "afloat")
+        assert "LAST GOOD" in panel(app, "afloat")
         await pilot.press("u")
         assert "Outside" not in panel(app, "alerts")
 

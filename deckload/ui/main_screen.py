@@ -26,7 +26,7 @@ from deckload.ui.compositor import RowCompositor
 from deckload.ui.entry import EntryError, ItemForm
 from deckload.ui.palette import P
 from deckload.ui.session import Session
-from deckload.ui.widgets import LinePanel, LoadBoard, SizedPanel
+from deckload.ui.widgets import LinePanel, LoadBoard, SizedPanel, fit_width
 
 RUN_PAUSE_S = 4.0
 """A run of nudges or retypes of one item ends (and is logged as one entry) after this pause."""
@@ -566,8 +566,10 @@ class LoadingScreen(Screen[None]):
         if self.has_class("-narrow"):
             self.set_class(on, "-gz")
         self.refresh_view()
-        r = self.session.result
-        if on and (r is None or r.weather is None):
+        s = self.session
+        if on and s.stale:  # s.result is the last good condition's, not this one's (as _curve_lines)
+            self.say("Wind and roll: no result for this condition (outside the tables).", ok=None)
+        elif on and (s.result is None or s.result.weather is None):
             self.say("Weather criterion not assessed for this condition: the panel says why.", ok=None)
         else:
             self.say("Wind and roll plot: b again for the plain GZ curve" if on else "GZ curve", ok=None)
@@ -833,10 +835,13 @@ def fit_lines(text: Text, width: int, max_lines: int, indent: int = 2) -> list[T
     lines = [first] + [Text(" " * indent).append_text(line) for line in rest]
     if len(lines) > max_lines:  # the last line shown carries the rest, cut with "…" where it overflows
         last = lines[max_lines - 1].copy()
+        last.rstrip()
         for more in lines[max_lines:]:
-            last.append(" ").append_text(more[indent:])
+            more = more[indent:]
+            last.append(" ").append_text(more[len(more.plain) - len(more.plain.lstrip()):])
         lines = lines[: max_lines - 1] + [last]
-    return [cut(ln, width) for ln in lines]
+    # fit_width's rule: a word or number the edge would split is left out whole ("z 5.8…" read 5.8)
+    return [fit_width(ln, width) for ln in lines]
 
 
 def gz_title_lines(result, width: int) -> list[Text]:

@@ -341,12 +341,13 @@ def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, st
     the water she floats in (letters as on the hull, S W T F TF WNA) and the dock-water allowance
     applied to it; KG, θf, KG fluid, FSC, GM fluid, KM (two pairs a line; 'n/a' where the result
     has no value); the tables used (even keel, or the tables at trims the trim was interpolated
-    between).  Lengths to the mm, angles to 0.1°."""
+    between).  Lengths to the mm, angles to 0.1°.  ``stale`` (outside the tables: the numbers are the
+    last good condition's): the title starts with LAST GOOD."""
     compact = width < 44
-    title = Text(" Afloat", P["title"])
+    # Outside the tables the numbers are the last good condition's: the mark comes first, short,
+    # so that no width cuts it (at 80 columns "(last good, stale)" at the end read "(last …").
+    title = Text(" LAST GOOD", P["caution"]).append(" Afloat", P["title"]) if stale else Text(" Afloat", P["title"])
     title.append(f"  ρ {condition.water_density_t_m3:.3f} t/m³", P["dim"])
-    if stale:
-        title.append("  (last good, stale)", P["stale"])
     if result is None:
         return [title, Text(" no result: see the warning above", P["danger"])]
     r = result

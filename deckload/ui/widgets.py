@@ -378,6 +378,10 @@ class SizedPanel(LinePanel):
 
     def show(self, builder, rows_for=None) -> None:
         self._builder, self._rows_for = builder, rows_for
+        # The lines shown were made by the builder before: built for no size now, so that a panel
+        # hidden at this moment (size 0, nothing built) builds them when drawn again, even at the
+        # size it had (else it showed the last condition's curve as this one's).
+        self._built_for = None
         self._redraw()
 
     def get_content_height(self, container: Size, viewport: Size, width: int) -> int:
@@ -394,6 +398,9 @@ class SizedPanel(LinePanel):
     def _built(self, size: Size) -> list[Text] | None:
         """The builder's lines at ``size``, noted as built for it; None without a builder or a size."""
         if self._builder is None or size.width <= 0 or size.height <= 0:
+            # Hidden (or not laid out): what it shows next is built when it is drawn again, from
+            # the view as it is then (the builder reads the screen's classes, -wind...).
+            self._built_for = None
             return None
         self._built_for = size
         return self._builder(size.width, size.height)
@@ -413,6 +420,7 @@ class SizedPanel(LinePanel):
             if lines is not None:
                 self._lines = lines  # no repaint to ask for: this is the render
                 self._strips.clear()
+                self._painted = None  # the strips painted last were of the old lines
         return super().render_lines(crop)
 
 
