@@ -43,3 +43,12 @@ async def test_the_board_at_60_columns_shows_no_cut_number(tmp_path):
             for m in re.finditer(r"\S+", shown.rstrip("…").rstrip()):
                 assert m.group(0) in full.split() or m.group(0) in ("›",), (shown, full)
         assert cut > 0  # the premise: at 60 columns the board's lines are wider than it
+
+
+def test_fit_width_cuts_a_file_path_where_the_edge_falls():
+    """A path split by the edge is cut there, its start kept ("NOT SAVED … File: /tmp/…"): left out
+    whole it told nothing of where; a number or an id next to it is still left out whole."""
+    line = Text("NOT SAVED. File: /tmp/work/logs/working/demo-islander-cdd36a11ff.condition.toml")
+    out = fit_width(line, 40).plain
+    assert out == "NOT SAVED. File: /tmp/work/logs/working…" and len(out) == 40
+    assert fit_width(Text("GM 0.943 m, DB2P 23.6 t"), 20).plain == "GM 0.943 m, DB2P   …"

@@ -85,7 +85,9 @@ def type_into(field, text: str) -> None:
 def fit_width(text: Text, width: int) -> Text:
     """``text`` cut to ``width`` cells, never silently: a line too wide ends in "…", and a word or
     number the edge would split is left out whole (a cut "32.33" read "32", a cut "1234" "12").
-    A line that fits is returned as it is."""
+    A file path is the exception: cut where the edge falls, "/work/logs/work…", its start says
+    more than nothing would, and no one reads a cut path as a whole one.  A line that fits is
+    returned as it is."""
     plain = text.plain
     if cell_len(plain) <= width:
         return text
@@ -95,8 +97,14 @@ def fit_width(text: Text, width: int) -> Text:
     while cut < len(plain) and cells + cell_len(plain[cut]) <= width - 1:
         cells += cell_len(plain[cut])
         cut += 1
-    while cut > 0 and not plain[cut - 1].isspace() and cut < len(plain) and not plain[cut].isspace():
-        cut -= 1  # back to the start of the split word
+    start = cut
+    while start > 0 and not plain[start - 1].isspace() and start < len(plain) and not plain[start].isspace():
+        start -= 1  # back to the start of the split word
+    end = cut
+    while end < len(plain) and not plain[end].isspace():
+        end += 1
+    if "/" not in plain[start:end]:
+        cut = start
     out = text[:cut]
     out.pad_right(width - 1 - cell_len(out.plain))
     out.append("…")
