@@ -31,6 +31,14 @@ def demo_departure():
     return v, load_condition(paths.DEMO_CONDITIONS["departure"], v)
 
 
+def departure_app(tmp_path):
+    """The loading screen on the Demo Islander's departure, saving and logging under ``tmp_path``."""
+    from deckload.ui.launch import create_app
+
+    v, c = demo_departure()
+    return create_app(v, c, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+
+
 @functools.cache
 def trawler_vessel() -> Vessel:
     """The Demo Trawler as ``load_profile(paths.TRAWLER_PROFILE)`` reads it."""

@@ -5,12 +5,10 @@ from __future__ import annotations
 from textual.widgets import Static
 
 from deckload.core.model import Condition
-from deckload.io.paths import DEMO_CONDITIONS
-from deckload.io.profiles import load_condition
 from deckload.ui.hull_compare import HullCompareScreen
 from deckload.ui.launch import create_app
 from vessel_factories import box_barge
-from demo_vessels import demo_vessel
+from demo_vessels import departure_app
 
 
 def _body(app) -> str:
@@ -18,9 +16,7 @@ def _body(app) -> str:
 
 
 async def test_h_opens_the_comparison_and_the_worker_fills_it(tmp_path):
-    v = demo_vessel()
-    c = load_condition(DEMO_CONDITIONS["departure"], v)
-    app = create_app(v, c, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    app = departure_app(tmp_path)
     async with app.run_test(size=(120, 40)) as pilot:
         await pilot.press("h")
         assert isinstance(app.screen, HullCompareScreen)
@@ -46,9 +42,7 @@ async def test_without_hull_geometry_it_says_so(tmp_path):
 async def test_closing_at_once_leaves_the_loading_screen_live(tmp_path):
     """Esc right after the key closes the page whether or not the hull is done; a late result is
     dropped (nothing raises) and the loading screen takes keys again."""
-    v = demo_vessel()
-    c = load_condition(DEMO_CONDITIONS["departure"], v)
-    app = create_app(v, c, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    app = departure_app(tmp_path)
     async with app.run_test(size=(120, 40)) as pilot:
         await pilot.press("h")
         await pilot.pause()

@@ -12,10 +12,7 @@ import pytest
 from textual.containers import VerticalScroll
 from textual.widgets import Static
 
-from deckload.io.paths import DEMO_CONDITIONS
-from deckload.io.profiles import load_condition
-from deckload.ui.launch import create_app
-from demo_vessels import demo_vessel
+from demo_vessels import demo_departure, departure_app
 
 ALL_BALLAST = "APT DB1P DB1S WB1P WB1S DB2P DB2S DB3P DB3S WB2P WB2S FPT"
 
@@ -59,9 +56,7 @@ async def test_the_planners_notes_and_whole_message_show_at_80x24(tmp_path, goal
     from deckload.ui.planner import plan_notes
     from deckload.ui.widgets import LinePanel
 
-    v = demo_vessel()
-    c = load_condition(DEMO_CONDITIONS["departure"], v)
-    app = create_app(v, c, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    app = departure_app(tmp_path)
     async with app.run_test(size=(80, 24)) as pilot:
         await _search(pilot, app, goal)
         form = app.screen
@@ -80,9 +75,7 @@ async def test_the_planners_notes_and_whole_message_show_at_80x24(tmp_path, goal
 
 
 async def test_a_refusal_wraps_whole_under_the_panel_at_80x24(tmp_path):
-    v = demo_vessel()
-    c = load_condition(DEMO_CONDITIONS["departure"], v)
-    app = create_app(v, c, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    app = departure_app(tmp_path)
     async with app.run_test(size=(80, 24)) as pilot:
         await _search(pilot, app, "trim 0.8")
         message = _message_fits(app)
@@ -94,9 +87,7 @@ async def test_rows_past_a_short_panel_are_said_and_pgdn_shows_them(tmp_path):
     panel's last row says how many rows are below and the key, and PgDn brings them in."""
     from deckload.ui.widgets import LinePanel
 
-    v = demo_vessel()
-    c = load_condition(DEMO_CONDITIONS["departure"], v)
-    app = create_app(v, c, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    app = departure_app(tmp_path)
     async with app.run_test(size=(80, 18)) as pilot:
         await _search(pilot, app, "gm 0.94")
         panel = app.screen.query_one("#xfer-preview", LinePanel)
@@ -120,9 +111,7 @@ async def test_rows_past_a_short_panel_are_said_and_pgdn_shows_them(tmp_path):
 async def test_the_h_page_scrolls_by_keys_at_80x24_and_says_which(tmp_path):
     from deckload.ui.hull_compare import HullCompareScreen
 
-    v = demo_vessel()
-    c = load_condition(DEMO_CONDITIONS["departure"], v)
-    app = create_app(v, c, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    app = departure_app(tmp_path)
     async with app.run_test(size=(80, 24)) as pilot:
         await pilot.press("h")
         await app.workers.wait_for_complete()
@@ -157,8 +146,7 @@ def test_the_comparison_rows_fit_74_columns_with_headings_apart():
     from deckload.core.stability import evaluate
     from deckload.ui.hull_compare import comparison_text
 
-    v = demo_vessel()
-    c = load_condition(DEMO_CONDITIONS["departure"], v)
+    v, c = demo_departure()
     cmp = compare(v, evaluate(v, c))
     lines = comparison_text(cmp).plain.splitlines()
     head = next(line for line in lines if line.split()[:1] == ["tables"])

@@ -54,19 +54,26 @@ def _title_of(app, width: int) -> list[str]:
     return [t.plain.rstrip() for t in gz_title_lines(app.session.result, width)]
 
 
+async def _curve_then_numbers_then_200_t(app, pilot) -> tuple[int, list[str]]:
+    """g (the departure's curve shown), g (back to the numbers), H1 ⏎ 200 t: the curve panel's
+    width and the departure's curve title."""
+    await pilot.pause()
+    await pilot.press("g")
+    await pilot.pause()
+    width = app.screen.query_one("#gz").size.width
+    before = _title_of(app, width)
+    assert _shown(app, "gz")[: len(before)] == before  # the premise: the departure's curve on show
+    await pilot.press("g")
+    await pilot.pause()
+    await _set_h1(app, pilot, "200")
+    return width, before
+
+
 async def test_the_curve_shown_again_after_a_change_is_the_new_conditions(tmp_path):
     """g (curve), g (numbers), H1 ⏎ 200 t, g: the curve and its title are the new condition's."""
     app = _app(tmp_path)
     async with app.run_test(size=(80, 24)) as pilot:
-        await pilot.pause()
-        await pilot.press("g")
-        await pilot.pause()
-        width = app.screen.query_one("#gz").size.width
-        before = _title_of(app, width)
-        assert _shown(app, "gz")[: len(before)] == before  # the premise: the departure's curve on show
-        await pilot.press("g")
-        await pilot.pause()
-        await _set_h1(app, pilot, "200")
+        width, before = await _curve_then_numbers_then_200_t(app, pilot)
         assert not app.session.stale
         after = _title_of(app, width)
         assert after != before  # the premise: 200 t in H1 changes the curve
@@ -80,14 +87,7 @@ async def test_b_after_a_change_behind_the_numbers_shows_the_wind_plot_not_the_o
     """The trial's steps: g, g, H1 ⏎ 200 t, b: the wind and roll panel, not the departure's curve."""
     app = _app(tmp_path)
     async with app.run_test(size=(80, 24)) as pilot:
-        await pilot.pause()
-        await pilot.press("g")
-        await pilot.pause()
-        width = app.screen.query_one("#gz").size.width
-        old = _title_of(app, width)
-        await pilot.press("g")
-        await pilot.pause()
-        await _set_h1(app, pilot, "200")
+        _, old = await _curve_then_numbers_then_200_t(app, pilot)
         await pilot.press("b")
         await pilot.pause()
         shown = _shown(app, "gz")

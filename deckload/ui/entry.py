@@ -525,13 +525,19 @@ def tank_id(vessel: Vessel, typed: str, role: str = "Tank") -> str:
     case ('wb1p' is WB1P, and 'WB1P' is wb1p in a profile that spells it so).  Refused when no
     tank, or more than one (ids differing only in case), matches."""
     t = typed.strip()
-    if t in vessel.tank_index:
-        return t
-    same = [i for i in vessel.tank_index if i.casefold() == t.casefold()]
+    return _as_spelled(vessel.tank_index, t, role, f"{role} {t!r} is not a tank of {vessel.particulars.name}.")
+
+
+def _as_spelled(ids, typed: str, what: str, unknown: str) -> str:
+    """The id of ``ids`` that ``typed`` names, as the profile spells it, matched without regard to
+    case; refused with ``unknown`` when none matches, and when several do (ids differing only in case)."""
+    if typed in ids:
+        return typed
+    same = [i for i in ids if i.casefold() == typed.casefold()]
     if len(same) > 1:
-        raise EntryError(f"{role} {t!r} matches {', '.join(same)} (they differ only in case): type it as spelled.")
+        raise EntryError(f"{what} {typed!r} matches {', '.join(same)} (they differ only in case): type it as spelled.")
     if not same:
-        raise EntryError(f"{role} {t!r} is not a tank of {vessel.particulars.name}.")
+        raise EntryError(unknown)
     return same[0]
 
 
@@ -550,15 +556,9 @@ def deck_area_id(vessel: Vessel, typed: str) -> str | None:
     area = typed.strip()
     if not area:
         return None
-    if area in vessel.area_index:
-        return area
     known = ", ".join(vessel.area_index) or "none"
-    same = [a for a in vessel.area_index if a.casefold() == area.casefold()]
-    if len(same) > 1:
-        raise EntryError(f"Deck area {area!r} matches {', '.join(same)} (they differ only in case): type it as spelled.")
-    if not same:
-        raise EntryError(f"Deck area {area!r} is not one of this vessel's deck areas ({known}).")
-    return same[0]
+    return _as_spelled(vessel.area_index, area, "Deck area",
+                       f"Deck area {area!r} is not one of this vessel's deck areas ({known}).")
 
 
 def form_of(item: MassItem) -> ItemForm:
