@@ -14,22 +14,22 @@ import math
 
 import pytest
 
-from deckload.core.ballast_plan import Goal, _met, _nearer
+from deckload.core.ballast_plan import Goal, _nearer, met
 
 
 def test_a_gm_goal_is_a_least_value_reached_at_the_target_itself():
     g = Goal("gm", 0.35, 0.0)
-    assert _met(0.35, g) and _met(0.50, g)
-    assert _met(0.35 - 1e-12, g)  # round-off below the target still counts
-    assert not _met(0.35 - 1e-9, g)
+    assert met(0.35, g) and met(0.50, g)
+    assert met(0.35 - 1e-12, g)  # round-off below the target still counts
+    assert not met(0.35 - 1e-9, g)
 
 
 @pytest.mark.parametrize("quantity", ["trim", "list"])
 def test_a_trim_or_list_goal_is_reached_within_its_tolerance_edges_included(quantity):
     g = Goal(quantity, 0.5, 0.25)
-    assert _met(0.75, g) and _met(0.25, g)  # |0.75 − 0.5| = 0.25 exactly, in binary too
-    assert _met(0.5, g)
-    assert not _met(0.75 + 1e-9, g) and not _met(0.25 - 1e-9, g)
+    assert met(0.75, g) and met(0.25, g)  # |0.75 − 0.5| = 0.25 exactly, in binary too
+    assert met(0.5, g)
+    assert not met(0.75 + 1e-9, g) and not met(0.25 - 1e-9, g)
 
 
 def test_for_gm_higher_is_nearer_but_only_beyond_noise():

@@ -24,6 +24,8 @@ longer brings the goal nearer (greedy; common practice of search, not from a sta
 
 from __future__ import annotations
 
+import itertools
+
 from typing import Callable, Sequence
 
 from deckload.core.frozen import frozen
@@ -125,7 +127,8 @@ def _start(result: Result) -> None:
         raise ValueError(NO_EQUILIBRIUM + " as she is: the planner starts from a condition that floats")
 
 
-def _met(value: float, goal: Goal) -> bool:
+def met(value: float, goal: Goal) -> bool:
+    """Whether ``value`` meets ``goal``: GM at least its target; list or trim within its tolerance."""
     if goal.quantity == "gm":
         return value >= goal.target - 1e-12
     return abs(value - goal.target) <= goal.tolerance
@@ -245,7 +248,7 @@ def _search(vessel, goal, hi, q0, apply, evaluate):
         if got is None:
             return None, whole
         c, r, f = got
-        if _met(f + goal.target, goal):
+        if met(f + goal.target, goal):
             best = (m, c, r, f)
             if goal.quantity != "gm" or hi - m < 1e-3 or f <= goal.tolerance:
                 break  # GM: at least the value, and within its tolerance above it (the least mass, to the mm)
@@ -262,7 +265,7 @@ def _search(vessel, goal, hi, q0, apply, evaluate):
         if goal.quantity == "gm" and best is not None and hi - lo < 1e-3:
             break
     if best is None:
-        if goal.quantity == "gm" and _met(f_hi + goal.target, goal):
+        if goal.quantity == "gm" and met(f_hi + goal.target, goal):
             best = (hi, c_hi, r_hi, whole[2] - goal.target)  # f_hi may have been halved (Illinois)
         else:
             return None, whole
@@ -300,7 +303,7 @@ def plan(
     done: list[Transfer] = []
     cond, r, q, n = condition, r0, q0, 1
     while True:
-        if _met(q, goal):  # as she is, or after the whole transfers made: nothing (more) to pump
+        if met(q, goal):  # as she is, or after the whole transfers made: nothing (more) to pump
             return Plan(tuple(done), cond, r, q0, q, n)
         hits, wholes = [], []
         for steps, hi, apply in _moves(vessel, cond, allowed, move, room, pairs=goal.quantity != "list"):
@@ -371,11 +374,17 @@ def as_shown(
 
     The amounts tried, first that holds over the whole spread wins: the exact masses to the
     nearest step (a whole transfer made before the last one rounded down, so that it can be
-    pumped); for list and trim the last transfer (or wing pair) one step less or more; for GM,
-    a lower bound whose shortfall is the danger, the last transfer raised a step at a time (up to
-    :data:`BUMP_STEPS`, and no further than the tanks allow).  None holding over the spread: the
-    first that meets the goal at the amounts shown (or failing that, the nearest), with
-    ``robust`` False, for the form to say so plainly.
+    pumped), and with the last transfer rounded down (the nearest step up may be more than a tank
+    holds or has room for); for list and trim the last transfer (or wing pair) one step less or
+    more; for GM, a lower bound whose shortfall is the danger, the last transfer raised a step at a
+    time (up to :data:`BUMP_STEPS`, and no further than the tanks allow).  None holding over the
+    spread: the first that meets the goal at the amounts shown, with ``robust`` False, for the
+    form to say so plainly.  None meeting the goal at amounts that can be shown: a :class:`NoPlan`
+    with the nearest (a plan is never offered for a goal its shown amounts miss).
+
+    The spread tries every amount alone and every combination of all of them ``tolerance_t`` less
+    or more (at most 2^4 with :data:`MAX_TRANSFERS`): a wing pair pumped one a little over and the
+    other a little under is what moves her list.
     """
     if not found.transfers:
         return found
@@ -385,6 +394,7 @@ def as_shown(
     while k < len(ts) and ts[-1 - k].mass_t == last and k < 2:
         k += 1  # a wing pair (or a split) pumped alike: the last two transfers move together
     base = [_tenths(t.mass_t, step_t, down=i < len(ts) - k) for i, t in enumerate(ts)]
+    floor = [_tenths(t.mass_t, step_t, down=True) for t in ts]
     n = 0
 
     def replay(amounts):
@@ -404,19 +414,22 @@ def as_shown(
 
     def spread(amounts, at):
         values = [at]
-        for idx in [(i,) for i in range(len(amounts))] + [tuple(range(len(amounts)))]:
-            for d in (-tolerance_t, tolerance_t):
-                got = replay([max(0.0, round(m + d, 9)) if i in idx else m for i, m in enumerate(amounts)])
-                if got is not None:
-                    values.append(got[2])
+        n_amounts = len(amounts)
+        steps = [tuple(d if j == i else 0.0 for j in range(n_amounts)) for i in range(n_amounts)
+                 for d in (-tolerance_t, tolerance_t)]
+        steps += list(itertools.product((-tolerance_t, tolerance_t), repeat=n_amounts)) if n_amounts > 1 else []
+        for ds in steps:
+            got = replay([max(0.0, round(m + d, 9)) for m, d in zip(amounts, ds)])
+            if got is not None:
+                values.append(got[2])
         return min(values), max(values)
 
     def holds(lo_hi):
         if goal.quantity == "gm":
-            return _met(lo_hi[0], goal)
+            return met(lo_hi[0], goal)
         return all(abs(v - goal.target) <= goal.tolerance for v in lo_hi)
 
-    tries = [base]
+    tries = [base] + ([floor] if floor != base else [])
     head = base[:len(ts) - k]
     if goal.quantity == "gm":
         tries += [head + [round(m + j * step_t, 9) for m in base[-k:]] for j in range(1, BUMP_STEPS + 1)]
@@ -432,10 +445,10 @@ def as_shown(
                 break  # raised past what the tanks allow: no further
             continue
         c, r, v = got
-        if fallback is None or (_met(v, goal) and not _met(fallback[3], goal)) or \
-                (not _met(fallback[3], goal) and abs(v - goal.target) < abs(fallback[3] - goal.target)):
+        if fallback is None or (met(v, goal) and not met(fallback[3], goal)) or \
+                (not met(fallback[3], goal) and abs(v - goal.target) < abs(fallback[3] - goal.target)):
             fallback = (amounts, c, r, v, None)
-        if not _met(v, goal):
+        if not met(v, goal):
             continue
         lo_hi = spread(amounts, v)
         if holds(lo_hi):
@@ -443,8 +456,13 @@ def as_shown(
                         found.before, v, found.evaluations + n, lo_hi, True)
         if fallback[0] is amounts:
             fallback = (amounts, c, r, v, lo_hi)
-    if fallback is None:
-        raise ValueError("the plan cannot be pumped in amounts of " f"{step_t:g} t")
+    if fallback is None or not met(fallback[3], goal):
+        # Nothing that can be shown to the tenth reaches the goal: no plan, with the nearest.
+        if fallback is None:
+            return NoPlan(found.before, found.before, (), found.evaluations + n)
+        near = fallback[0]
+        return NoPlan(found.before, fallback[3], tuple(Transfer(t.from_id, t.to_id, m) for t, m in zip(ts, near)),
+                      found.evaluations + n)
     amounts, c, r, v, lo_hi = fallback
     if lo_hi is None:
         lo_hi = spread(amounts, v)

@@ -5,6 +5,7 @@ screen commits it as one transfer.  The search is :func:`deckload.core.ballast_p
 
 from __future__ import annotations
 
+import math
 from functools import partial
 
 from rich.console import Console
@@ -13,7 +14,8 @@ from textual.app import ComposeResult
 from textual.containers import Horizontal, Vertical
 from textual.widgets import Input, Label, Static
 
-from deckload.core.ballast_plan import MAX_TRANSFERS, READING_TOLERANCE_T, Goal, NoPlan, Plan, as_shown, plan
+from deckload.core.ballast_plan import MAX_TRANSFERS, READING_TOLERANCE_T, Goal, NoPlan, Plan, as_shown, met, plan
+from deckload.core.free_surface import band_text, pct_text
 from deckload.core.trim import EVEN_KEEL_KN_LIMIT_FRACTION
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
@@ -336,7 +338,8 @@ def found_words(goal: Goal, p: Plan) -> str:
     READING_TOLERANCE_T less or more; said plainly when the goal holds at the shown amounts only."""
     lo, hi = p.spread if p.spread is not None else (p.after, p.after)
     if goal.quantity == "gm":
-        within = f"at least GM fluid {lo:.3f} m"
+        # rounded down: "at least" must not print a floor higher than the value it stands for
+        within = f"at least GM fluid {math.floor(lo * 1000.0 + 1e-9) / 1000.0:.3f} m"
     else:
         within = f"{goal_words(goal, lo)} to {goal_words(goal, hi)}"
     tol = f"with {READING_TOLERANCE_T:g} t less or more on any amount: {within}"
@@ -346,13 +349,9 @@ def found_words(goal: Goal, p: Plan) -> str:
     if goal.quantity == "gm" and lo < goal.target:
         return (f"{head} only at these amounts to the tenth of a tonne, NOT reliably: {tol}, below the "
                 f"{goal.target:.3f} m wanted.")
-    if not _met_shown(goal, p.after):
+    if not met(p.after, goal):
         return f"{head}, not within {goal.tolerance:g} of the goal at amounts to {READING_TOLERANCE_T:g} t; {tol}."
     return f"{head} at these amounts; {tol} (the goal ± {goal.tolerance:g} holds at the amounts shown only)."
-
-
-def _met_shown(goal: Goal, value: float) -> bool:
-    return value >= goal.target - 1e-12 if goal.quantity == "gm" else abs(value - goal.target) <= goal.tolerance
 
 
 def plan_notes(before: Result | None, p: Plan) -> list[str]:
@@ -367,8 +366,8 @@ def plan_notes(before: Result | None, p: Plan) -> list[str]:
         if t.id not in used:
             continue
         if t.state == "worst_band":
-            lo, hi = t.worst_band_pct
-            out.append(f"{t.id} is left at {t.fill_pct:.1f} %, in its worst free-surface band ({lo:g}–{hi:g} %).")
+            out.append(f"{t.id} is left at {pct_text(t.fill_pct)} %, in its worst free-surface band "
+                       f"({band_text(t.worst_band_pct)}).")
         elif t.state == "full" and (t.id not in was or was[t.id].state != "full") and t.fill_pct < 100.0 - 1e-6:
             past = (t.fill_pct - 98.0) / 100.0 * t.capacity_m3 * t.density_t_m3
             out.append(f"{t.id} is left nominally full at {t.fill_pct:.1f} % ({past:.1f} t past the 98 % line; "
