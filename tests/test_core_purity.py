@@ -12,8 +12,9 @@ import deckload.core
 
 CORE = Path(deckload.core.__file__).parent
 ALLOWED_TOP = {"__future__", "dataclasses", "typing", "math", "numpy", "deckload", "functools", "collections",
-               "operator", "reprlib", "inspect"}
-# the last three: core/frozen.py (attribute getters, a recursion guard, the signature dataclass gives __init__)
+               "operator", "reprlib", "inspect", "itertools"}
+# operator, reprlib, inspect: core/frozen.py (attribute getters, a recursion guard, the signature dataclass
+# gives __init__); itertools: ballast_plan.py (the combinations of amounts a little less or more)
 FORBIDDEN_CALLS = {"open", "print", "input"}
 FORBIDDEN_ATTRS = {"time", "now", "utcnow", "today", "read_text", "write_text", "read_bytes", "write_bytes"}
 

@@ -302,14 +302,15 @@ def test_packaged_geometry_is_the_committed_one():
 
 def test_report_direct_adds_the_second_method(capsys):
     """`deckload report --direct`: the side-by-side block is in the text and the HTML; the booklet
-    caution still closes the page; without --direct nothing of it appears."""
+    caution still closes the page; without --direct nothing of it appears.  (Arrival: every row within
+    tolerance, exit 0; the departure has rows beyond it and exits 1, test_direct_tolerance.)"""
     from deckload.cli.main import main
 
-    assert main(["report", "demo", "departure", "--txt", "--direct"]) == 0
+    assert main(["report", "demo", "arrival", "--txt", "--direct"]) == 0
     out = capsys.readouterr().out
     assert "Second method, from the hull itself" in out and "The criteria are judged on the tables." in out
     assert out.index("Second method") < out.index("never replaces")
-    assert main(["report", "demo", "departure", "--html", "--direct"]) == 0
+    assert main(["report", "demo", "departure", "--html", "--direct"]) == 1
     assert '<pre class="direct">' in capsys.readouterr().out
     assert main(["report", "demo", "departure", "--txt"]) == 0
     assert "Second method" not in capsys.readouterr().out

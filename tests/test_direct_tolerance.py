@@ -213,3 +213,9 @@ def test_calc_direct_exit_status_and_json(tmp_path, capsys, monkeypatch, hull_br
     assert math.isclose(kmt["tables"], KMT, abs_tol=1e-9)
     angle = next(r for r in doc["rows"] if r["quantity"] == "Angle of max GZ")
     assert angle["within_tolerance"] is None and angle["allowed"] is None
+    # the report alike: written in full, then the same status and reason
+    out_file = tmp_path / "report.txt"
+    assert main(["report", str(prof), str(cond), "--direct", "--txt", "-o", str(out_file)]) == status
+    _, err = capsys.readouterr()
+    assert out_file.read_text(encoding="utf-8").count("BEYOND") == beyond
+    assert ("rows beyond the stability-instrument tolerances" in err) == bool(beyond)

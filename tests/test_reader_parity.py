@@ -232,6 +232,10 @@ def test_a_condition_named_over_lines_is_listed_by_its_file_name(tmp_path):
     assert condition_files.title_of(f) == "spoof.condition.toml"
     f.write_text(HEAD.replace('name = "probe"', f'name = "{"n" * 81}"'), encoding="utf-8")
     assert condition_files.title_of(f) == "spoof.condition.toml"
+    # a carriage return, which the reader refuses too, would rewrite the terminal's line
+    f.write_text(HEAD.replace('name = "probe"', 'name = "Departure\\r  MET"'), encoding="utf-8")
+    assert problems(f.read_text(encoding="utf-8"), demo_vessel())
+    assert condition_files.title_of(f) == "spoof.condition.toml"
     f.write_text(HEAD, encoding="utf-8")
     assert condition_files.title_of(f) == "probe"
 

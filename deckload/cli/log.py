@@ -81,7 +81,9 @@ def one_line(text: str) -> str:
     """``text`` for one printed line: a line feed, carriage return or tab stored in it is written as a
     visible escape, so that a stored remark can never draw a row of its own (the others are escaped
     already where the log is read)."""
-    return text.replace("\r", "\\r").replace("\n", "\\n").replace("\t", "\\t")
+    from deckload.io.textsafe import escape_breaks
+
+    return escape_breaks(text)
 
 
 def joined_remark(text: str) -> str:

@@ -176,38 +176,21 @@ def _reading(text: str) -> float:
     return x
 
 
-def _exists(path: Path) -> bool:
-    """``Path.exists`` that says False where it would raise (a folder on the way that cannot be
-    searched, a name too long): the command then reads the file and says why it cannot."""
-    try:
-        return path.exists()
-    except (OSError, ValueError):
-        return False
-
-
-def _is_file(path: Path) -> bool:
-    """``Path.is_file``, False where it would raise (as :func:`_exists`)."""
-    try:
-        return path.is_file()
-    except (OSError, ValueError):
-        return False
-
-
 def _demo_shorthand(args: argparse.Namespace) -> str | None:
     """Let 'demo' or 'trawler' stand for a packaged demo profile and a condition's key for its file.
 
     Returns a message when the condition is neither one of that demo's keys nor a file
     ('deckload calc trawler light': 'light' is the other demo's), else None."""
-    from deckload.io.paths import DEMO_VESSELS
+    from deckload.io.paths import DEMO_VESSELS, exists_quietly, is_file_quietly
 
     profile = getattr(args, "profile", None)
-    if profile is not None and str(profile) in DEMO_VESSELS and not _is_file(profile):
+    if profile is not None and str(profile) in DEMO_VESSELS and not is_file_quietly(profile):
         name = str(profile)
         args.profile, conditions = DEMO_VESSELS[name]
         cond = getattr(args, "condition", None)
         if cond is not None and str(cond) in conditions:
             args.condition = conditions[str(cond)]
-        elif cond is not None and not _exists(Path(cond)):
+        elif cond is not None and not exists_quietly(Path(cond)):
             # 'working', a stock condition's name, or one saved on the screen (deckload.io.condition_files)
             found = _resolve_name(args)
             if isinstance(found, Path):
@@ -241,11 +224,12 @@ def _named_condition(args: argparse.Namespace) -> str | None:
     """Let a condition be named as the officer knows it: ``working`` (the loading screen's), a
     stock condition's key or name, or a name saved on the screen (deckload.io.condition_files).
     Returns what to print when the name matches nothing (the message lists what exists)."""
+    from deckload.io import paths
+
     cond = getattr(args, "condition", None)
     profile = getattr(args, "profile", None)
-    if cond is None or profile is None or _is_file(Path(cond)) or not _is_file(Path(profile)):
+    if cond is None or profile is None or paths.is_file_quietly(Path(cond)) or not paths.is_file_quietly(Path(profile)):
         return None
-    from deckload.io import paths
     from deckload.io.condition_files import ConditionNotFound, resolve
     from deckload.io.profiles import ProfileError
     from deckload.report.audit_findings import load_audited

@@ -51,15 +51,19 @@ def run_report(profile_path: Path, condition_path: Path, html: bool, output: Pat
     else:
         doc = condition_report.render_report_text(result, vessel, condition, stamp=stamp, source=source, comparison=comparison,
                                                      doubts=doubts)
+    # as `calc --direct`: rows of the direct calculation beyond tolerance exit 1, once the report is out
+    beyond = 1 if comparison is not None and comparison.beyond else 0
     if output is None:
         sys.stdout.write(doc)
-        return 0
-    try:
-        from deckload.io.atomicfile import write_atomic
+    else:
+        try:
+            from deckload.io.atomicfile import write_atomic
 
-        write_atomic(Path(output), doc.encode("utf-8"))
-    except OSError as e:
-        print(f"deckload: cannot write {output}: {e.strerror}", file=sys.stderr)
-        return 2
-    print(f"report written to {output}", file=sys.stderr)
-    return 0
+            write_atomic(Path(output), doc.encode("utf-8"))
+        except OSError as e:
+            print(f"deckload: cannot write {output}: {e.strerror}", file=sys.stderr)
+            return 2
+        print(f"report written to {output}", file=sys.stderr)
+    if beyond:
+        print(f"deckload: {profile_path}: direct calculation: {comparison.summary()}", file=sys.stderr)
+    return beyond

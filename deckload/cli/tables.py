@@ -408,15 +408,6 @@ def build_profile_text(geometry_path: Path, existing_text: str | None, progress=
     return render(doc), notes + summary(vt) + extra
 
 
-def _exists(path: Path) -> bool:
-    """``path`` names something (a name too long or a folder that cannot be searched: it does not,
-    and reading or writing it then says why)."""
-    try:
-        return path.exists()
-    except (OSError, ValueError):
-        return False
-
-
 def run_tables(geometry_path: Path, output_path: Path | None, trims_text: str | None = None) -> int:
     """The command: exit 0 when written, 1 on bad input, 2 when the profile (or its ``.bak``) cannot
     be written (message on stderr)."""
@@ -444,7 +435,9 @@ def run_tables(geometry_path: Path, output_path: Path | None, trims_text: str | 
         except OutputRefused as e:
             print(f"deckload tables: {e}: nothing written; name another profile to write", file=sys.stderr)
             return 1
-    if output_path is not None and _exists(output_path):
+    from deckload.io.paths import exists_quietly
+
+    if output_path is not None and exists_quietly(output_path):
         from deckload.io.limits import MAX_TOML_BYTES, read_limited
 
         try:

@@ -320,7 +320,7 @@ def passenger_criteria(vessel: Vessel, a: Afloat) -> tuple[list[CriterionResult]
     for cid, desc, lever, extra in (
         ("IS2008-A3.1-crowding", "Heel from passengers crowding to one side", lever_c,
          f"{pd.count} × {pd.mass_per_person_t:g} t at {y_crowd:.3f} m from the centreline, "
-         + ("the standing area's centroid" if y_crowd == pd.standing_tcg_m else
+         + ("the standing area's centroid" if math.isclose(y_crowd, pd.standing_tcg_m, rel_tol=1e-9, abs_tol=1e-12) else
             f"the outboard part of the standing area they fill at {PASSENGERS_PER_M2:g} per m²")),
         ("IS2008-A3.1-turning", "Heel from turning at service speed", lever_t,
          f"{pd.service_speed_kn:g} kn, 0.2·v²·(KG − d/2)/(g·Lwl) from memory"

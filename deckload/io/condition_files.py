@@ -18,6 +18,7 @@ import tomllib
 from pathlib import Path
 
 from deckload.core.frozen import frozen
+from deckload.io.textsafe import control_char
 
 WORKING_KEYS = ("working", "work", "screen")
 """Short names of the loading screen's working condition on the command line."""
@@ -76,7 +77,8 @@ def _own_name(path: Path) -> str | None:
         name = tomllib.loads(raw.decode("utf-8")).get("condition", {}).get("name")
     except Exception:  # noqa: BLE001  see the docstring: a sibling that cannot be read never matches
         return None
-    if not isinstance(name, str) or not name.strip() or len(name) > MAX_NAME_CHARS or "\n" in name or "\t" in name:
+    if (not isinstance(name, str) or not name.strip() or len(name) > MAX_NAME_CHARS or "\n" in name or "\t" in name
+            or control_char(name) is not None):
         # a name the reader refuses (profiles.parse_condition: one line, at most MAX_NAME_CHARS) is
         # not listed as the file's title: a line break in it would print lines of its own
         return None

@@ -55,6 +55,23 @@ def _checkout_root(start: Path) -> Path | None:
     return None
 
 
+def exists_quietly(path: Path) -> bool:
+    """``Path.exists`` that says False where it would raise (a folder on the way that cannot be
+    searched, a name too long): the command then reads or writes the file and says why it cannot."""
+    try:
+        return path.exists()
+    except (OSError, ValueError):
+        return False
+
+
+def is_file_quietly(path: Path) -> bool:
+    """``Path.is_file``, False where it would raise (as :func:`exists_quietly`)."""
+    try:
+        return path.is_file()
+    except (OSError, ValueError):
+        return False
+
+
 def free_name(path: Path, suffix: str) -> Path:
     """``path`` + ``suffix``, or + ``suffix.2``, ``.3`` … : a name that holds nothing yet."""
     candidate = path.with_name(path.name + suffix)

@@ -30,6 +30,12 @@ def escaped(text: str) -> str:
     return _SHOWN.sub(_esc, text)
 
 
+def escape_breaks(text: str) -> str:
+    """``text`` for one printed line or cell: a line feed, carriage return or tab in it written as a
+    visible escape (as TOML writes them), so that a stored name or remark never draws a line of its own."""
+    return text.replace("\r", "\\r").replace("\n", "\\n").replace("\t", "\\t")
+
+
 def control_char(text: str) -> str | None:
     """The first control character in ``text`` (tab and line feed allowed), as an escape; else None."""
     m = _TYPED.search(text)

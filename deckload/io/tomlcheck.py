@@ -32,7 +32,7 @@ import numpy as np
 
 from deckload.core.frozen import frozen
 from deckload.io.limits import MAX_TABLE_VALUES
-from deckload.io.textsafe import control_char
+from deckload.io.textsafe import control_char, escape_breaks
 
 ID_PATTERN = re.compile(r"^[A-Za-z0-9_-]+$")
 """Tank, hold and deck-area ids: letters, digits, '-' and '_' (typed by the user)."""
@@ -249,7 +249,7 @@ def toml_value(v: Any, _depth: int = 0) -> str:
         return "true" if v else "false"
     if isinstance(v, str):
         # line breaks and tabs written as TOML writes them: the value stays on the message's line
-        v = v.replace("\r", "\\r").replace("\n", "\\n").replace("\t", "\\t")
+        v = escape_breaks(v)
         s = v if len(v) <= 40 else v[:37] + "…"
         return '"' + s + '"'
     if isinstance(v, float):

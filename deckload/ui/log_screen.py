@@ -36,7 +36,7 @@ from textual.screen import ModalScreen, Screen
 from textual.widgets import DataTable, Footer, Input, Static
 
 from deckload.core.frozen import frozen
-from deckload.io.textsafe import escaped
+from deckload.io.textsafe import escape_breaks, escaped
 from deckload.report import verdict_format as vf
 from deckload.core.model import Condition, Vessel
 from deckload.logbook import KIND_LABELS, KINDS, LogEntry, Logbook, condition_of
@@ -197,7 +197,7 @@ def _details_or_damage(e: LogEntry) -> Text:
 
 def _one_line(text: str) -> str:
     """A stored text in one table cell: a line feed or tab written as a visible escape."""
-    return text.replace("\r", "\\r").replace("\n", "\\n").replace("\t", "\\t")
+    return escape_breaks(text)
 
 
 class EntryScreen(ModalScreen[None]):
