@@ -134,3 +134,17 @@ def test_a_value_at_its_limit_by_binary_round_off_meets_it_and_shows_no_negative
     assert vf.margin_text(gm0).strip() in ("+0.00", "+0.000") and "-" not in vf.value_text(gm0)
     short = _by_suffix(evaluate_criteria("IS2008-B2.1", Measures(0.1, 0.2, 0.05, 0.3, 35.0, 0.35 - 1e-6)), "gm0")
     assert not short.passed and short.margin < 0.0
+
+
+def test_meets_takes_its_limit_and_round_off_of_exactly_1e_9_relative():
+    """result.meets (derived from its docstring): the limit itself meets ("not less than" / "not more
+    than", IS 2008 Part A 2.2 wording), as does a value short of it by at most 1e-9 × max(1, |limit|);
+    a value short by twice that does not.  Pinned at limits below and above 1 m, both comparisons."""
+    from deckload.core.result import LIMIT_ROUNDOFF, meets
+
+    for limit in (0.5, 10.0):
+        tol = LIMIT_ROUNDOFF * max(1.0, abs(limit))
+        assert meets(limit, limit, ">=") and meets(limit, limit, "<=")
+        assert meets(limit - tol, limit, ">=") and meets(limit + tol, limit, "<=")
+        assert not meets(limit - 2.0 * tol, limit, ">=") and not meets(limit + 2.0 * tol, limit, "<=")
+        assert meets(limit - 0.5 * tol, limit, ">=") and meets(limit + 0.5 * tol, limit, "<=")
