@@ -31,12 +31,18 @@ def demo_departure():
     return v, load_condition(paths.DEMO_CONDITIONS["departure"], v)
 
 
-def departure_app(tmp_path):
-    """The loading screen on the Demo Islander's departure, saving and logging under ``tmp_path``."""
+def departure_app(tmp_path, condition=None, officer: str = "TS"):
+    """The loading screen on the Demo Islander's departure (or ``condition``), saving and logging
+    under ``tmp_path``, signed on as ``officer``."""
     from deckload.ui.launch import create_app
 
     v, c = demo_departure()
-    return create_app(v, c, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    return create_app(v, condition or c, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer=officer)
+
+
+def status_text(app) -> str:
+    """The loading screen's status line as shown."""
+    return app.screen.query_one("#status").plain()
 
 
 @functools.cache

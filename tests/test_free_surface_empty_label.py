@@ -19,7 +19,7 @@ from deckload.core.model import TankFill
 from deckload.core.stability import evaluate
 from deckload.io import paths
 from deckload.io.profiles import load_condition, parse_condition
-from tests.demo_vessels import trawler_vessel
+from demo_vessels import trawler_vessel
 
 
 def departure_with(fill: TankFill | None):

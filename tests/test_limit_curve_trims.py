@@ -9,7 +9,7 @@ The vessel is the analytic box barge of ``tests/broken_profiles/box_barge.toml``
 L = 40, B = 10, D = 4 m; lightship 400 t at LCG 20 m, VCG 2.5 m) with 420 t in the hold at VCG
 2.5 m: Δ = 820 t, T = 2 m, KG = 2.5 m, no slack tank, so KG fluid = 2.5 m against the curve's 4.0 m.
 
-Trim (standards.md §6, row 24's formula): t = Δ·(LCG − LCB)/(100·MCTC), with MCTC = Δ·GML/(100·L)
+Trim (standards.md §6.3; the worked check is §8 row 24): t = Δ·(LCG − LCB)/(100·MCTC), with MCTC = Δ·GML/(100·L)
 and GML = KML − KG = 67.6667 − 2.5 = 65.1667 m at T = 2 m, so MCTC = 820·65.1667/4000 = 13.359 t·m/cm.
 With the hold's LCG at 21 m, LCG = (400·20 + 420·21)/820 = 20.5122 m, LCB = 20 m:
 t = 820·0.5122/1335.9 = 0.314 m by the head (−0.314 m, deckload's sign: + by the stern).

@@ -13,11 +13,12 @@ import math
 
 import pytest
 
-from deckload.core.loading import ROUND_OFF, reading_range, resolve_tank
+from deckload.core.bounds import ROUND_OFF
+from deckload.core.loading import reading_range, resolve_tank
 from deckload.core.model import Condition, TankFill
 from deckload.io.profiles import ProfileError, dump_condition, parse_condition
 from deckload.ui.entry import EntryError, check_tank_amount, set_tank
-from tests.demo_vessels import demo_vessel, trawler_vessel
+from demo_vessels import demo_vessel, trawler_vessel
 
 HEAD = 'format = "deckload-condition-1"\n\n[condition]\nname = "probe"\nwater_density_t_m3 = 1.025\n'
 
@@ -97,7 +98,7 @@ def _cases():
 def test_screen_and_reader_agree_at_both_ends_of_every_amount(vessel, tank_id, quantity):
     """At each end of every tank's range, in every quantity (percent, m³, t, sounding, ullage): the
     end itself, the end as printed to 3 decimals (what a booklet prints and an officer types), the
-    end moved out by half the round-off allowance (loading.ROUND_OFF·max(1, |end|): taken as the
+    end moved out by half the round-off allowance (bounds.ROUND_OFF·max(1, |end|): taken as the
     end) and by 1e-6 (refused).  The screen's check and the reader say the same every time, and a
     value both take the calculation reads."""
     v = vessel()
@@ -247,7 +248,7 @@ def test_a_hold_over_its_structural_limit_is_refused_from_a_file_as_on_the_scree
     """The Demo Islander's H1 has max_mass_t = 250 t (demo_islander.toml).  The screen refused 260 t and
     a file was read with only a danger warning (audit case hold_over_struct.condition.toml); now the
     file is refused too, naming file, line and key.  At the limit, and within the round-off allowance
-    (loading.ROUND_OFF·250 = 2.5e-7 t), both take it."""
+    (bounds.ROUND_OFF·250 = 2.5e-7 t), both take it."""
     from deckload.ui.entry import hold_from_text
 
     v = demo_vessel()

@@ -123,7 +123,7 @@ def test_a_value_at_its_limit_by_binary_round_off_meets_it_and_shows_no_negative
     limits "not less than": the limit itself meets them.  A GM worked out from decimal data as
     0.34999999999999964 m (0.35 less one unit in the last binary place's neighbourhood) is 0.35 m:
     it meets 0.35, its margin is nil, and the view prints "+0.00" beside "pass", never "-0.00000"
-    beside "FAIL".  A shortfall of a micrometre still fails (result.LIMIT_ROUNDOFF = 1e-9)."""
+    beside "FAIL".  A shortfall of a micrometre still fails (bounds.ROUND_OFF = 1e-9)."""
     from deckload.report import verdict_format as vf
 
     at = 0.35 - 4e-16
@@ -140,7 +140,8 @@ def test_meets_takes_its_limit_and_round_off_of_exactly_1e_9_relative():
     """result.meets (derived from its docstring): the limit itself meets ("not less than" / "not more
     than", IS 2008 Part A 2.2 wording), as does a value short of it by at most 1e-9 × max(1, |limit|);
     a value short by twice that does not.  Pinned at limits below and above 1 m, both comparisons."""
-    from deckload.core.result import LIMIT_ROUNDOFF, meets
+    from deckload.core.bounds import ROUND_OFF as LIMIT_ROUNDOFF
+    from deckload.core.result import meets
 
     for limit in (0.5, 10.0):
         tol = LIMIT_ROUNDOFF * max(1.0, abs(limit))

@@ -145,7 +145,7 @@ def test_readings_at_the_ends_of_the_table_are_accepted(quantity, value, level):
 @pytest.mark.parametrize("quantity, value, message", [
     ("sounding_m", 1.95, "tank W: sounding 1.95 m is outside the calibration table -0.1–1.9 m; "
                          "deckload does not extrapolate"),
-    # beyond an end by more than the allowance (loading.ROUND_OFF: 1e-9·max(1, |end|)), the value and
+    # beyond an end by more than the allowance (bounds.ROUND_OFF: 1e-9·max(1, |end|)), the value and
     # the end written to as many digits as tell them apart
     ("sounding_m", -0.1 - 3e-9, "tank W: sounding -0.100000003 m is outside the calibration table -0.1–1.9 m; "
                                 "deckload does not extrapolate"),
@@ -207,7 +207,7 @@ def test_volume_of_at_and_beyond_the_capacity():
 
 
 def test_round_off_allowance_of_a_stated_amount():
-    """An amount over its limit by at most 1e-9·max(1, |limit|) is the limit (loading.ROUND_OFF): so
+    """An amount over its limit by at most 1e-9·max(1, |limit|) is the limit (bounds.ROUND_OFF): so
     100 % + 5e-8 is full (allowance 1e-7 on 100) and 100 % + 2e-7 is refused; on a limit below 1 the
     allowance is 1e-9 itself (0.5 + 0.5e-9 within, 0.5 + 2e-9 beyond)."""
     assert not over_limit(100.0 + 5e-8, 100.0) and over_limit(100.0 + 2e-7, 100.0)

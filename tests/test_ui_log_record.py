@@ -85,11 +85,14 @@ async def test_a_pause_ends_a_run_of_nudges_and_each_nudge_starts_the_pause_agai
         await pilot.press("plus")
         first = time.monotonic()
         await asyncio.sleep(0.3)
+        before_second = time.monotonic()  # the second key is handled after this
         await pilot.press("plus")  # inside the pause: the run goes on, the pause starts again
         second = time.monotonic()  # the key was handled by now (press waits for it)
-        # A machine so loaded that the second key was handled only after the first pause ran out
-        # cannot show this: the first run was then rightly logged alone.
+        # The first key was handled between `pressed` and `first`, its pause ends 0.5 s later; the
+        # second between `before_second` and `second`.  Certainly inside the first pause, or
+        # certainly after it; a machine so loaded that neither is certain may do either.
         in_time = second < pressed + 0.5
+        late = before_second >= first + 0.5
         await asyncio.sleep(0.3)
         # past the first nudge's pause, inside the second's (unless the machine stalled past it too)
         run, now = app.session._run, time.monotonic()
@@ -103,8 +106,10 @@ async def test_a_pause_ends_a_run_of_nudges_and_each_nudge_starts_the_pause_agai
         new = [e.change_text for e in entries(app)[n0:]]
         if in_time:
             assert [t.endswith("(2 changes)") for t in new] == [True], new
-        else:
+        elif late:
             assert len(new) == 2 and not any(t.endswith("changes)") for t in new), new
+        else:
+            assert len(new) in (1, 2), new
 
 
 async def test_a_confirmed_transfer_is_one_entry(app):

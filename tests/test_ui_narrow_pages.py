@@ -33,6 +33,7 @@ async def _search(pilot, app, goal):
         await pilot.pause(0.05)
         if not getattr(app.screen, "searching", False):
             break
+    assert not getattr(app.screen, "searching", False), "the search did not end within 30 s"
     await pilot.pause()
 
 

@@ -20,15 +20,13 @@ from textual.geometry import Region
 
 from deckload.core.stability import evaluate
 from deckload.ui import views
-from deckload.ui.launch import create_app
 from deckload.ui.main_screen import fit_lines, gz_title_lines
 from deckload.ui.widgets import LoadBoard, fit_width
-from demo_vessels import demo_departure
+from demo_vessels import demo_departure, departure_app, status_text
 
 
 def _app(tmp_path):
-    vessel, departure = demo_departure()
-    return create_app(vessel, departure, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="AU")
+    return departure_app(tmp_path, officer="AU")
 
 
 def _shown(app, ident: str) -> list[str]:
@@ -39,8 +37,7 @@ def _shown(app, ident: str) -> list[str]:
     return ["".join(seg.text for seg in strip).rstrip() for strip in strips]
 
 
-def _status(app) -> str:
-    return app.screen.query_one("#status").plain()
+_status = status_text
 
 
 async def _set_h1(app, pilot, tonnes: str) -> None:

@@ -24,17 +24,14 @@ from deckload.core.stability import evaluate
 from deckload.io.profiles import load_condition, save_condition
 from deckload.ui import entry, verdict
 from deckload.ui.dialogs import PromptForm
-from deckload.ui.launch import create_app
 from deckload.ui.widgets import LoadBoard
-from demo_vessels import demo_departure
+from demo_vessels import demo_departure, departure_app, status_text
 
 VERDICT_WORD = re.compile(r"\b(met|ok|NEAR|FAIL|NOT MET|pass\w*)\b", re.IGNORECASE)
 
 
 def _app(tmp_path, condition=None):
-    vessel, departure = demo_departure()
-    return create_app(vessel, condition or departure, work_dir=tmp_path / "work", log_dir=tmp_path / "logs",
-                      officer="AU")
+    return departure_app(tmp_path, condition, officer="AU")
 
 
 def _marks(app) -> dict[str, str]:
@@ -43,8 +40,7 @@ def _marks(app) -> dict[str, str]:
     return {r.key[1]: r.text.plain[0] for r in board.rows if r.key and r.key[0] == "tank"}
 
 
-def _status(app) -> str:
-    return app.screen.query_one("#status").plain()
+_status = status_text
 
 
 # --------------------------------------------------------------------------- outside the tables

@@ -226,6 +226,8 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False,
         print(text)
     if cmp is not None and cmp.beyond:
         # exit 1, as `check` for a booklet row out of tolerance: the profile's data contradict each other
-        print(f"deckload: {profile_path}: direct calculation: {cmp.summary()}", file=sys.stderr)
+        from deckload.report.direct_format import beyond_message
+
+        print(beyond_message(profile_path, cmp), file=sys.stderr)
         return 1
     return 0

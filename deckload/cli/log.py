@@ -17,6 +17,7 @@ from pathlib import Path
 
 from deckload.report import verdict_format as vf
 from deckload.io.atomicfile import write_atomic
+from deckload.io.textsafe import escape_breaks, join_lines
 from deckload.logbook import (
     KIND_LABELS,
     LogEntry,
@@ -77,21 +78,6 @@ def _stdout_gone() -> None:
     sys.stdout = open(os.devnull, "w")
 
 
-def one_line(text: str) -> str:
-    """``text`` for one printed line: a line feed, carriage return or tab stored in it is written as a
-    visible escape, so that a stored remark can never draw a row of its own (the others are escaped
-    already where the log is read)."""
-    from deckload.io.textsafe import escape_breaks
-
-    return escape_breaks(text)
-
-
-def joined_remark(text: str) -> str:
-    """A remark given on the command line as one line: its lines joined by a space, as the screen's
-    remark field joins a pasted text (ui/dialogs.RemarkInput), tabs made spaces."""
-    return " ".join(part.strip() for part in text.replace("\t", " ").splitlines() if part.strip())
-
-
 # --------------------------------------------------------------------------- record
 
 
@@ -127,7 +113,7 @@ def _record(args) -> int:
             change_data={"profile": str(args.profile), "condition_file": str(args.condition)},
             result=result,
             condition=condition,
-            remark=joined_remark(args.remark),
+            remark=join_lines(args.remark),
         )
     except (LogLockedError, ValueError) as e:
         print(f"deckload: cannot record: {e}", file=sys.stderr)
@@ -254,7 +240,7 @@ def _show(args) -> int:
             if not rep.ok:
                 broken += 1
                 print(f"  ! {broken_words(book.path, rep.problems)}")
-            print(f"{one_line(book.vessel_name)} — {book.path} ({len(entries)} entries)")
+            print(f"{escape_breaks(book.vessel_name)} — {book.path} ({len(entries)} entries)")
             print(f"{'#':>4}  {'UTC':<19}  {'ship':<5}  {'by':<4}  {'kind':<9}  {'GM fl m':>7}  {'criteria':<14}  change")
             damaged = list(book.skipped_lines)
             for e in entries:
@@ -262,9 +248,9 @@ def _show(args) -> int:
                     print(damaged_row(book.path, damaged.pop(0)[1]))
                 r = entry_row(e)
                 print(
-                    f"{e.seq:>4}  {e.utc:%Y-%m-%d %H:%M:%S}  {e.ship_time:%H:%M}  {one_line(e.by):<4}  "
-                    f"{one_line(e.kind):<9}  {r['gm_fluid_m']:>7}  {vf.stored_short(e.summary):<14}  "
-                    f"{one_line(e.change_text)}" + (f" — {one_line(e.remark)}" if e.remark else "")
+                    f"{e.seq:>4}  {e.utc:%Y-%m-%d %H:%M:%S}  {e.ship_time:%H:%M}  {escape_breaks(e.by):<4}  "
+                    f"{escape_breaks(e.kind):<9}  {r['gm_fluid_m']:>7}  {vf.stored_short(e.summary):<14}  "
+                    f"{escape_breaks(e.change_text)}" + (f" — {escape_breaks(e.remark)}" if e.remark else "")
                 )
                 na = (e.summary or {}).get("not_assessed")
                 if na:

@@ -65,5 +65,7 @@ def run_report(profile_path: Path, condition_path: Path, html: bool, output: Pat
             return 2
         print(f"report written to {output}", file=sys.stderr)
     if beyond:
-        print(f"deckload: {profile_path}: direct calculation: {comparison.summary()}", file=sys.stderr)
+        from deckload.report.direct_format import beyond_message
+
+        print(beyond_message(profile_path, comparison), file=sys.stderr)
     return beyond

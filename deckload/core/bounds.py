@@ -99,6 +99,23 @@ LBP_RANGE_M = (1.0, 500.0)
 BEAM_DEPTH_RANGE_M = (0.2, 100.0)
 
 
+ROUND_OFF = 1e-9
+"""Round-off allowance when a stated amount meets its limit: ``limit + 1e-9·max(1, |limit|)``.
+The profile and condition reader (tomlcheck.REL_TOL, ``at_most``; :func:`reading_outside` for a
+sounding or ullage) and the screen's entry check use the same allowance, so an amount one accepts
+the other and the calculation never refuse."""
+
+
+def over_limit(value: float, limit: float) -> bool:
+    """True when ``value`` exceeds ``limit`` by more than the round-off allowance."""
+    return not value <= limit + ROUND_OFF * max(1.0, abs(limit))
+
+
+def below_limit(value: float, limit: float) -> bool:
+    """True when ``value`` is below ``limit`` by more than the round-off allowance (:data:`ROUND_OFF`)."""
+    return not value >= limit - ROUND_OFF * max(1.0, abs(limit))
+
+
 @frozen
 class Range:
     """An allowed closed interval with its unit and the reason, worded for a message."""

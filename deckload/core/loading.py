@@ -12,7 +12,7 @@ from functools import lru_cache
 
 import numpy as np
 
-from deckload.core.bounds import hold_level_range, stowage_range
+from deckload.core.bounds import below_limit, hold_level_range, over_limit, stowage_range
 from deckload.core.frozen import frozen
 from deckload.core.model import Condition, Hold, HoldLoad, Tank, TankFill, Vessel
 from deckload.core.result import ItemResult
@@ -67,18 +67,6 @@ def level_of(tank: Tank, quantity: str, value: float) -> float:
     return tank.ullage_reference_m - value
 
 
-ROUND_OFF = 1e-9
-"""Round-off allowance when a stated amount meets its limit: ``limit + 1e-9·max(1, |limit|)``.
-The profile and condition reader (tomlcheck.REL_TOL, ``at_most``; :func:`reading_outside` for a
-sounding or ullage) and the screen's entry check use the same allowance, so an amount one accepts
-the other and the calculation never refuse."""
-
-
-def over_limit(value: float, limit: float) -> bool:
-    """True when ``value`` exceeds ``limit`` by more than the round-off allowance."""
-    return not value <= limit + ROUND_OFF * max(1.0, abs(limit))
-
-
 def reading_range(tank: Tank, quantity: str) -> tuple[float, float]:
     """The readings (sounding or ullage, m) that fall inside the tank's level table, low to high.
 
@@ -106,11 +94,6 @@ def reading_limits(tank: Tank, quantity: str) -> tuple[float, float]:
     (:func:`reading_outside`)."""
     lo, hi = reading_range(tank, quantity)
     return max(lo, 0.0), hi
-
-
-def below_limit(value: float, limit: float) -> bool:
-    """True when ``value`` is below ``limit`` by more than the round-off allowance (:data:`ROUND_OFF`)."""
-    return not value >= limit - ROUND_OFF * max(1.0, abs(limit))
 
 
 def reading_outside(tank: Tank, quantity: str, value: float) -> str | None:

@@ -7,6 +7,7 @@ Units and signs as in :mod:`deckload.core.model`.
 
 from __future__ import annotations
 
+from deckload.core.bounds import ROUND_OFF, below_limit, over_limit
 from deckload.core.frozen import frozen
 
 TANK_STATES = ("empty", "slack", "worst_band", "full")
@@ -57,17 +58,12 @@ class ItemResult:
     tcg_m: float
 
 
-LIMIT_ROUNDOFF = 1e-9
-"""Relative allowance at a criterion's limit for binary round-off (× max(1, |limit|)): a GM worked
-out as 0.34999999999999964 m from 0.35 m of typed data meets 0.35 m.  A millionth of a millimetre
-or of a degree: no measurement or table is that fine."""
-
-
 def meets(value: float, limit: float, comparison: str) -> bool:
     """``value`` against ``limit`` by ``comparison`` ('>=' or '<='), the limit itself included
-    (IS 2008 words its limits "not less than" / "not more than"), to :data:`LIMIT_ROUNDOFF`."""
-    tol = LIMIT_ROUNDOFF * max(1.0, abs(limit))
-    return bool(value >= limit - tol) if comparison == ">=" else bool(value <= limit + tol)
+    (IS 2008 words its limits "not less than" / "not more than"), within the round-off allowance
+    every stated amount has (:data:`deckload.core.bounds.ROUND_OFF`): a GM worked out as
+    0.34999999999999964 m from 0.35 m of typed data meets 0.35 m."""
+    return not below_limit(value, limit) if comparison == ">=" else not over_limit(value, limit)
 
 
 @frozen
@@ -100,10 +96,10 @@ class CriterionResult:
     def margin(self) -> float:
         """Distance to the limit in the passing direction (negative when failed).
 
-        Not meaningful when ``assessed`` is False; nil within :data:`LIMIT_ROUNDOFF` of the limit, as
+        Not meaningful when ``assessed`` is False; nil within the round-off allowance of the limit, as
         :func:`meets` takes it (a "−0.00000" beside a pass would contradict it)."""
         m = self.value - self.limit if self.comparison == ">=" else self.limit - self.value
-        return 0.0 if abs(m) <= LIMIT_ROUNDOFF * max(1.0, abs(self.limit)) else m
+        return 0.0 if abs(m) <= ROUND_OFF * max(1.0, abs(self.limit)) else m
 
     @property
     def margin_fraction(self) -> float:

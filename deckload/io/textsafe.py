@@ -30,6 +30,12 @@ def escaped(text: str) -> str:
     return _SHOWN.sub(_esc, text)
 
 
+def join_lines(text: str) -> str:
+    """A pasted or typed multi-line text as one line: its non-blank lines stripped and joined by a
+    space, tabs made spaces (the screen's remark field and ``log record --remark`` alike)."""
+    return " ".join(part.strip() for part in text.replace("\t", " ").splitlines() if part.strip())
+
+
 def escape_breaks(text: str) -> str:
     """``text`` for one printed line or cell: a line feed, carriage return or tab in it written as a
     visible escape (as TOML writes them), so that a stored name or remark never draws a line of its own."""

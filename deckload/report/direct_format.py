@@ -36,6 +36,12 @@ def cells(row) -> tuple[str, str, str, str, str]:
     return fixed(row.tables, d), fixed(row.direct, d), fixed(row.difference, d, signed=True), allowed, mark
 
 
+def beyond_message(profile_path, cmp) -> str:
+    """The standard-error line of ``calc --direct`` and ``report --direct`` when rows lie beyond
+    tolerance (both then exit 1)."""
+    return f"deckload: {profile_path}: direct calculation: {cmp.summary()}"
+
+
 def legend(cmp) -> str:
     """The tolerance rules of the rows, each once, in the order of the rows."""
     rules = list(dict.fromkeys(r.tolerance for r in cmp.rows if r.allowed is not None))

@@ -27,6 +27,7 @@ from deckload.ui import entry
 from deckload.ui.entry import EntryError, ItemForm, TransferPlan, plan_transfer
 from deckload.ui.palette import P
 from deckload.ui.widgets import LinePanel, type_into
+from deckload.io.textsafe import join_lines
 
 
 class Form(ModalScreen[Any]):
@@ -175,7 +176,7 @@ class RemarkInput(Input):
 
     def _on_paste(self, event) -> None:
         if event.text:
-            type_into(self, " ".join(part.strip() for part in event.text.splitlines() if part.strip()))
+            type_into(self, join_lines(event.text))
         event.stop()
         event.prevent_default()  # textual would call Input's own paste handler too, adding the first line again
 
@@ -424,11 +425,11 @@ class TransferForm(TankPicking, Form):
             dst = entry.tank_id_or_none(self._vessel, self.query_one("#xfer-to", Input).value)
             kind = self._vessel.tank(dst).kind if dst else None
             return lambda t: (kind is None or t.kind == kind) and t.id != dst and \
-                entry.fill_volume_m3(t, c.tank_fill(t.id)) > 1e-6
+                entry.held_m3(self._vessel, c, t) > 1e-6
         src = entry.tank_id_or_none(self._vessel, self.query_one("#xfer-from", Input).value)
         kind = self._vessel.tank(src).kind if src else None
         return lambda t: (kind is None or t.kind == kind) and t.id != src and \
-            t.capacity_m3 - entry.fill_volume_m3(t, c.tank_fill(t.id)) > 1e-6
+            t.capacity_m3 - entry.held_m3(self._vessel, c, t) > 1e-6
 
     def __init__(
         self,

@@ -71,6 +71,10 @@ class EntryError(ValueError):
     """Input refused; the message says why and what would be accepted."""
 
 
+class AmbiguousId(EntryError):
+    """What was typed matches two ids of the profile that differ only in case."""
+
+
 # --------------------------------------------------------------------------- numbers
 
 
@@ -535,7 +539,7 @@ def _as_spelled(ids, typed: str, what: str, unknown: str) -> str:
         return typed
     same = [i for i in ids if i.casefold() == typed.casefold()]
     if len(same) > 1:
-        raise EntryError(f"{what} {typed!r} matches {', '.join(same)} (they differ only in case): type it as spelled.")
+        raise AmbiguousId(f"{what} {typed!r} matches {', '.join(same)} (they differ only in case): type it as spelled.")
     if not same:
         raise EntryError(unknown)
     return same[0]

@@ -180,7 +180,7 @@ def _row(e: LogEntry) -> tuple[Text, ...]:
     try:
         word = vf.stored_short(e.summary)
         return (*(Text(c) for c in (str(e.seq), f"{e.ship_time:%m-%d %H:%M}", e.kind, e.by,
-                                    _short(_one_line(e.change_text), 30), _num(e.gm_fluid_m))),
+                                    _short(escape_breaks(e.change_text), 30), _num(e.gm_fluid_m))),
                 Text(word or "—", style="bold red" if word.startswith("NOT") else ""))
     except _SHOWING_FAILED:
         return (Text(str(e.seq)), Text("—"), Text("—"), Text("—"), Text(f"line {e.line_no} damaged", style="bold red"),
@@ -193,11 +193,6 @@ def _details_or_damage(e: LogEntry) -> Text:
     except _SHOWING_FAILED as exc:
         return Text(f"Line {e.line_no} (entry #{e.seq}) is damaged and cannot be shown ({type(exc).__name__}); "
                     "press v to verify the log.", style="bold red")
-
-
-def _one_line(text: str) -> str:
-    """A stored text in one table cell: a line feed or tab written as a visible escape."""
-    return escape_breaks(text)
 
 
 class EntryScreen(ModalScreen[None]):

@@ -88,9 +88,9 @@ def parse_tanks(vessel: Vessel, text: str) -> list[str]:
     for w in words:
         try:
             ids.append(entry.tank_id(vessel, w))
-        except EntryError as exc:
-            if "differ only in case" in str(exc):
-                raise
+        except entry.AmbiguousId:
+            raise
+        except EntryError:
             unknown.append(w)
     if unknown:
         raise EntryError(f"Not tanks of {vessel.particulars.name}: {', '.join(unknown)}.")
