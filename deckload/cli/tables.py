@@ -45,7 +45,7 @@ import numpy as np
 import tomli_w
 
 from deckload.io.atomicfile import write_atomic
-from deckload.core.geometry.builder import TableRangeError, VesselTables, build_tables, hull_body
+from deckload.core.geometry.builder import TRANSFER_DECIMALS, TableRangeError, VesselTables, build_tables, hull_body
 from deckload.core.geometry.cross_curves import NoEquilibriumError
 from deckload.core.geometry.trimmed import TableAtTrim, TrimTableError, kn_at_trim, tables_at_trims
 from deckload.core.bounds import table_trim_range
@@ -163,8 +163,10 @@ def generated_sections(vt: VesselTables) -> dict[str, Any]:
         d["transfer"] = {
             "fill_pct": _r(t.transfer.fill_pct, 3),
             "heel_deg": _r(t.transfer.heel_deg, 3),
-            "moment_m4": _r(t.transfer.moment_m4, 4),
+            "moment_m4": _r(t.transfer.moment_m4, TRANSFER_DECIMALS),
         }
+        if t.transfer_port_m4 is not None:
+            d["transfer"]["moment_port_m4"] = _r(t.transfer_port_m4, TRANSFER_DECIMALS)
         tanks.append(d)
     out["tank"] = tanks
     holds = []

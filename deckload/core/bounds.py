@@ -319,6 +319,11 @@ def lightship_mass_range(v: Vessel) -> Range:
                  "from 2 % of the greatest displacement in the hydrostatic table to all of it")
 
 
+OFF_CENTRE_FRACTION_B = 0.01
+"""A tank whose centre lies within 1 % of B of the centreline is taken as a centreline tank,
+symmetric about it, when no port table of transfer says otherwise (common practice)."""
+
+
 # --------------------------------------------------------------------------- the evaluation's last step
 
 

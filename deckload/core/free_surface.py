@@ -120,19 +120,24 @@ def mfs30_bound_m4(tank: Tank) -> float:
     Cached per tank: it depends only on the (immutable) tank.
     """
     if tank.transfer is not None:
-        return float(np.max(transfer_column(tank.transfer, math.radians(30.0))))
+        # the side that moves more governs: an unsymmetric tank moves its liquid unlike each way
+        return float(max(np.max(transfer_column(tank.transfer, math.radians(30.0), port))
+                         for port in (False, True) if not port or tank.transfer.moment_port_m4 is not None))
     return tank.max_fsi_m4 * SIN30 * (1.0 + 0.5 * TAN30_SQ)
 
 
-def transfer_column(tr: FluidTransfer, heel_rad: float) -> np.ndarray:
-    """M (m⁴) at every tabulated fill for one heel angle (linear in heel)."""
+def transfer_column(tr: FluidTransfer, heel_rad: float, port: bool = False) -> np.ndarray:
+    """M (m⁴) at every tabulated fill for one heel angle (linear in heel), heeled to starboard or
+    to ``port`` (the port table, which must be there)."""
     h = math.degrees(heel_rad)
     k, f = bracket(tr.heel_deg, h, "heel for fluid transfer", "deg")
-    return tr.moment_m4[:, k] * (1 - f) + tr.moment_m4[:, k + 1] * f
+    table = tr.moment_port_m4 if port else tr.moment_m4
+    return table[:, k] * (1 - f) + table[:, k + 1] * f
 
 
-def transfer_moment_m4(tank: Tank, basis: str, fill_pct: float, heel_rad: np.ndarray) -> np.ndarray:
-    """Volumetric transfer moment M(φ) (m⁴) for the tank at the given basis.
+def transfer_moment_m4(tank: Tank, basis: str, fill_pct: float, heel_rad: np.ndarray, port: bool = False) -> np.ndarray:
+    """Volumetric transfer moment M(φ) (m⁴) for the tank at the given basis, heeled to
+    starboard (or to ``port``, from the tank's port table, which must be there).
 
     ``actual``: M at the actual fill; ``max``: the largest M over all fills at each
     angle (the largest correction between filling limits, IS 2008 B 3.1.3);
@@ -144,12 +149,15 @@ def transfer_moment_m4(tank: Tank, basis: str, fill_pct: float, heel_rad: np.nda
     if tr is None:
         i = tank.max_fsi_m4 if basis == BASIS_MAX else fsi_at_fill(tank, 98.0 if basis == BASIS_AT_98 else fill_pct)
         return i * np.sin(heel_rad)
+    table = tr.moment_port_m4 if port else tr.moment_m4
+    if table is None:
+        raise ValueError(f"tank {tank.id} has no table of transfer heeled to port")
     if basis == BASIS_MAX:
-        per_heel = tr.moment_m4.max(axis=0)
+        per_heel = table.max(axis=0)
     else:
         fill = 98.0 if basis == BASIS_AT_98 else fill_pct
         j, f = bracket(tr.fill_pct, fill, f"fill of tank {tank.id}", "%")
-        per_heel = lerp_row(tr.moment_m4, j, f)
+        per_heel = lerp_row(table, j, f)
     return np.interp(heel_deg, tr.heel_deg, per_heel)
 
 

@@ -252,6 +252,10 @@ class FluidTransfer:
     """Heel angles (degrees), strictly increasing from 0."""
     moment_m4: np.ndarray
     """Volumetric transfer moment (m⁴), shape (len(fill_pct), len(heel_deg))."""
+    moment_port_m4: np.ndarray | None = None
+    """The same heeled to port, the moment taken toward port (m⁴), same shape; None when the tank
+    is taken as symmetric about its own centre plane (heeled to port it then moves its liquid as
+    heeled to starboard) or, in a pair, as the mirror image of its partner."""
 
 
 @frozen(eq=False)

@@ -35,7 +35,7 @@ from functools import lru_cache
 import numpy as np
 
 from deckload.core import gz as gzmod
-from deckload.core.bounds import bounded
+from deckload.core.bounds import OFF_CENTRE_FRACTION_B, bounded
 from deckload.core.criteria import LIMIT_CURVE_SET, SET_TITLES, Measures, limit_curve_criterion, osv_area_end_deg
 from deckload.core.free_surface import (BASIS_NONE, TankFreeSurface, band_text, free_surface, pct_text, settings_departures,
                                         transfer_moment_m4)
@@ -294,6 +294,25 @@ def stage_upright(vessel: Vessel, condition: Condition, weights: Weights, fs: Fr
                     _allowed_draft(vessel, condition), tuple(notes), kn_beyond)
 
 
+def _port_transfer_m4(vessel: Vessel, tank, basis: str, fill_pct: float, heel_rad: np.ndarray,
+                      m_stbd: np.ndarray, taken_as_stbd: list[str]) -> np.ndarray:
+    """M'(φ), the tank's moment of transfer heeled to port: its own port table where the
+    profile gives one (made from the tank's shape); else, in a pair, the partner's starboard
+    table (the mirror image heeled to starboard); else its own starboard table, which is
+    right only for a tank symmetric about its own centre plane (derived: the mirror of
+    such a tank is the tank itself), so an unpaired tank off the centreline is named in
+    ``taken_as_stbd`` for a caution.  Without any table (i·sinφ) both sides are alike."""
+    tr = tank.transfer
+    if tr is not None and tr.moment_port_m4 is not None:
+        return transfer_moment_m4(tank, basis, fill_pct, heel_rad, port=True)
+    mirror = vessel.tank(tank.pair) if tank.pair else None
+    if mirror is not None and mirror.transfer is not None:
+        return transfer_moment_m4(mirror, basis, fill_pct, heel_rad)
+    if tr is not None and float(np.max(np.abs(tank.calibration.tcg_m))) > OFF_CENTRE_FRACTION_B * vessel.particulars.breadth_m:
+        taken_as_stbd.append(tank.id)
+    return m_stbd
+
+
 def stage_curve(vessel: Vessel, weights: Weights, fs: FreeSurface, floating: Floating, correction: str) -> Curve:
     """Stage 4: GZ heeling to starboard and to port on the fine grid, and the list.
 
@@ -327,15 +346,14 @@ def stage_curve(vessel: Vessel, weights: Weights, fs: FreeSurface, floating: Flo
         shift_stbd = np.zeros_like(kn)
         shift_port = np.zeros_like(kn)
         no_geometry = []
+        taken_as_stbd: list[str] = []
         for c, t in zip(weights.contents, fs.per_tank):
             if t.basis == BASIS_NONE:
                 continue
             if c.tank.transfer is None:
                 no_geometry.append(c.tank.id)
             m_stbd = transfer_moment_m4(c.tank, t.basis, c.fill_pct, fine_rad)
-            mirror = vessel.tank(c.tank.pair) if c.tank.pair else None
-            m_port = (transfer_moment_m4(mirror, t.basis, c.fill_pct, fine_rad)
-                      if mirror is not None and mirror.transfer is not None else m_stbd)
+            m_port = _port_transfer_m4(vessel, c.tank, t.basis, c.fill_pct, fine_rad, m_stbd, taken_as_stbd)
             shift_stbd += c.density_t_m3 * m_stbd
             shift_port += c.density_t_m3 * m_port
         base_stbd = kn - w.vcg_m * sin - shift_stbd / disp
@@ -344,6 +362,11 @@ def stage_curve(vessel: Vessel, weights: Weights, fs: FreeSurface, floating: Flo
             notes.append(Warning("fs-no-geometry",
                                  "no tank geometry for " + ", ".join(no_geometry)
                                  + ": their transfer is taken as i·sinφ", "caution"))
+        if taken_as_stbd:
+            notes.append(Warning("fs-port-as-starboard",
+                                 "heeling to port, the transfer of " + ", ".join(taken_as_stbd)
+                                 + " is taken from its starboard table (no port table and no pair): right only "
+                                 "for a tank symmetric about its own centre plane", "caution"))
     else:
         base_stbd = base_port = kn - fs.kg_fluid_m * sin
     gz_stbd = base_stbd - w.tcg_m * cos

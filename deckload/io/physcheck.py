@@ -95,6 +95,9 @@ def check_vessel(ctx: FileCheck, v: m.Vessel) -> m.Vessel:
         if t.transfer is not None:
             c.array(raw + ("transfer", "moment_m4"), f"{name}.transfer.moment_m4", t.transfer.moment_m4,
                     b.transfer_moment_range(p, t.capacity_m3))
+            if t.transfer.moment_port_m4 is not None:
+                c.array(raw + ("transfer", "moment_port_m4"), f"{name}.transfer.moment_port_m4",
+                        t.transfer.moment_port_m4, b.transfer_moment_range(p, t.capacity_m3))
     for n, hd in enumerate(v.holds):
         raw, name = ("hold", n), f"hold[{hd.id}]"
         c.one(raw + ("capacity_m3",), f"{name}.capacity_m3", hd.capacity_m3, b.volume_range(p))

@@ -1602,10 +1602,13 @@ def _read_transfer(t: Table) -> m.FluidTransfer | None:
     heel = t.starts_at("heel_deg", heel, 0.0, "upright")
     heel = t.ends_at("heel_deg", heel, 90.0, "the GZ curve runs 0–90°; nothing is extrapolated")
     mom = t.matrix("moment_m4", "fill_pct", t.raw_len("fill_pct"), "heel_deg", t.raw_len("heel_deg"))
+    port = (t.matrix("moment_port_m4", "fill_pct", t.raw_len("fill_pct"), "heel_deg", t.raw_len("heel_deg"))
+            if "moment_port_m4" in t.data else None)
     t.finish()
-    if fill is None or heel is None or mom is None:
+    if fill is None or heel is None or mom is None or ("moment_port_m4" in t.data and port is None):
         return None
-    return m.FluidTransfer(fill_pct=m.frozen_array(fill), heel_deg=m.frozen_array(heel), moment_m4=m.frozen_array(mom))
+    return m.FluidTransfer(fill_pct=m.frozen_array(fill), heel_deg=m.frozen_array(heel), moment_m4=m.frozen_array(mom),
+                           moment_port_m4=None if port is None else m.frozen_array(port))
 
 
 HOLD_FILL_COLUMNS = ("fill_pct", "fill_vcg_m", "fill_lcg_m")

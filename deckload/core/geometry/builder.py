@@ -28,8 +28,12 @@ from deckload.core.geometry.tanks import calibrate, fill_centroids, sounding_lev
 from deckload.core.geometry.transfer import TransferTable, transfer_moments, worst_band
 from deckload.core.geometry.windage import deck_edge_point, waterline_length_m, windage_above
 from deckload.core.model import TankCalibration
+from deckload.core.bounds import OFF_CENTRE_FRACTION_B
 
 Progress = Callable[[str], None]
+
+TRANSFER_DECIMALS = 4
+"""Decimals of m⁴ the transfer tables are written to (``deckload tables``)."""
 
 
 @frozen(eq=False)
@@ -41,6 +45,10 @@ class TankTables:
     worst_band_pct: tuple[float, float]
     integration: str
     """'simpson' or 'trapezoid' along the tank."""
+    transfer_port_m4: np.ndarray | None = None
+    """M heeled to port (toward port), for a tank without a pair whose liquid moves otherwise
+    than to starboard or that lies off the centreline; None: the starboard table serves both
+    ways (a centreline tank symmetric to the table's rounding) or the partner's does (a pair)."""
 
 
 @frozen(eq=False)
@@ -122,7 +130,16 @@ def tank_tables(spec: TankSpec, geometry: Geometry, heel_deg: np.ndarray) -> Tan
     fills = np.linspace(0.0, 100.0, int(round(100.0 / step)) + 1)
     tr = transfer_moments(body, fills, heel_deg)
     band = worst_band(body)
-    return TankTables(spec, float(cal.volume_m3[-1]), cal, tr, band, body.rule)
+    port = None
+    if spec.pair is None:
+        # heeled to port the tank moves its liquid as its mirror image heeled to starboard, the
+        # moment reversed: M'(f, φ) = −M(f, −φ) (derived, as worst_band takes it)
+        port = -transfer_moments(body, fills, -np.asarray(heel_deg, dtype=float)).moment_m4
+        port = np.where(port == 0.0, 0.0, port)  # no −0.0 in the written table
+        off_centre = float(np.max(np.abs(cal.tcg_m))) > OFF_CENTRE_FRACTION_B * geometry.vessel.breadth_m
+        if not off_centre and np.array_equal(np.round(port, TRANSFER_DECIMALS), np.round(tr.moment_m4, TRANSFER_DECIMALS)):
+            port = None
+    return TankTables(spec, float(cal.volume_m3[-1]), cal, tr, band, body.rule, port)
 
 
 def hold_tables(spec: HoldSpec, geometry: Geometry) -> HoldTables:
