@@ -29,9 +29,12 @@ import math
 
 import numpy as np
 
+from deckload.core import gz as gzmod
+from deckload.core.criteria import SET_TITLES, SETS_BY_TYPE, evaluate_criteria
 from deckload.core.free_surface import settings_departures
 from deckload.core.frozen import frozen
 from deckload.core.model import Tank, Vessel
+from deckload.core.stability import curve_measures
 
 ERROR = "error"
 WARNING = "warning"
@@ -306,6 +309,20 @@ def _lone_why(r: float, chord: float, unit: str, along: str = "",
               guess: str = "a transposed or mistyped digit?") -> str:
     return (f"stands alone out of a smooth curve{along}: the line through its neighbours gives {chord:.4g}{unit} "
             f"({r:+.3g}{unit} away), and with that value its neighbours lie smoothly again ({guess})")
+
+
+LIMIT_CURVE_KG_MARGIN_M = 0.05
+"""A limiting-curve row is doubted only when its KG, 5 cm lower, still fails her intact criteria on
+her KN tables: room for the booklet's own method (free-trim KN, its openings, rounding) within the
+5 cm a stability instrument may differ in GMt and KN (standards.md §5.3)."""
+
+
+LIMIT_CURVE_UNJUDGED = ("-angle-max-gz", "-area-0-max")
+"""Criteria a limiting-curve row is not doubted on: the angle of maximum GZ and the OSV area to it.
+Where GZ is flat near its top that angle moves by degrees with the way KN is read between the
+tabulated heels (read linearly, as by hand, it falls on a tabulated heel), far more than 5 cm of KG
+moves it: an invented booklet's curve, worked with KN linear in heel, put θmax at 25.0° where
+deckload's spline finds 24.5°."""
 
 
 class _Audit:
@@ -958,6 +975,67 @@ class _Audit:
                      "the booklet's KN table (displacement column)", "curve-range")
 
 
+    def limit_curve_against_kn(self):
+        """A limiting KG (or minimum GM) curve is the least of what the intact and the damage
+        criteria allow (IS 2008 A 2.1.7, standards.md §6.3), so at each of its displacements it
+        can allow no higher KG than her own intact set (IS 2008 A 2.2, or the fishing or OSV set of
+        Part B that takes its place) does on her KN tables: GZ(φ) = KN(φ) − KG·sinφ, θf from the
+        profile's downflooding curve where it reaches (else the areas end at 40°, the kinder
+        reading), GM = KMt − KG.  A row whose KG, lowered by :data:`LIMIT_CURVE_KG_MARGIN_M`, still
+        fails a criterion of that set is a doubt: a row or column of the curve mistyped or shifted
+        (the swaps and shifts that raise the allowed KG are the dangerous ones, and exactly these
+        are caught; one that lowers it errs on the safe side and passes).  A warning, not an error:
+        the booklet's curve may rest on assumptions the tables do not hold (trim, openings).
+        The criteria on the angle of maximum GZ are left out (:data:`LIMIT_CURVE_UNJUDGED`)."""
+        v, lc = self.v, self.v.limit_curve
+        if lc is None or lc.kind not in ("max_kg_m", "min_gm_m"):
+            return
+        cs = v.criteria
+        sid = SETS_BY_TYPE[cs.ship_type][0]
+        fishing_gm = cs.min_gm_m if cs.ship_type == "fishing" and cs.min_gm_m is not None and cs.min_gm_m < 0.35 else None
+        h, kc, fl = v.hydrostatics, v.cross_curves, v.downflooding
+        lo = max(float(h.displacement_t[0]), float(kc.displacement_t[0]))
+        hi = min(float(h.displacement_t[-1]), float(kc.displacement_t[-1]))
+        col = lc.kind
+        for i, (d, value) in enumerate(zip((float(x) for x in lc.displacement_t), (float(x) for x in lc.value))):
+            if not lo <= d <= hi:
+                continue
+            kmt = float(np.interp(d, h.displacement_t, h.kmt_m))
+            kn = gzmod.kn_curve(kc, d)
+            sin = gzmod.SIN[:len(kn)]
+            flood = (float(np.interp(d, fl.displacement_t, fl.value))
+                     if fl is not None and float(fl.displacement_t[0]) <= d <= float(fl.displacement_t[-1]) else None)
+
+            def failed(kg: float):
+                gz = kn - kg * sin
+                rows = evaluate_criteria(sid, curve_measures(gz, gzmod.facts(gz), flood, kmt - kg), cs.min_gm_m,
+                                         fishing_gm_m=fishing_gm)
+                return [r for r in rows if not r.passed and not r.id.endswith(LIMIT_CURVE_UNJUDGED)]
+
+            kg = value if col == "max_kg_m" else kmt - value
+            bad = failed(kg - LIMIT_CURVE_KG_MARGIN_M)
+            if not bad:
+                continue
+            # the highest KG the set allows here, by bisection (a fixed 30 halvings of a span under
+            # KMt: below a micrometre), for the officer to compare with the booklet
+            top, low = kg - LIMIT_CURVE_KG_MARGIN_M, kmt - 2.0 * max(self.B, self.D)
+            allowed = None
+            if not failed(low):
+                for _ in range(30):
+                    mid = 0.5 * (top + low)
+                    top, low = (mid, low) if failed(mid) else (top, mid)
+                allowed = low
+            c = bad[0]
+            said = f"KG {_f(kg)}" if col == "max_kg_m" else f"GM {_f(value)} (KG {_f(kg)} with KMt {_f(kmt)})"
+            most = (f"; her tables allow KG {_f(allowed)} at most there" if allowed is not None
+                    else "; no KG meets it there")
+            self.add(WARNING, f"limit_curve.{col}", ("limit_curve", col, i), f"{value:.5g} m at {d:.5g} t",
+                     f"the curve allows {said}, yet even {LIMIT_CURVE_KG_MARGIN_M:g} m lower her KN tables fail "
+                     f"{SET_TITLES[sid]}: {c.description} {c.value:.4g} against {c.limit:.4g}{most}. A limiting "
+                     "curve lies at or below what the intact criteria allow: a row or column of the curve "
+                     "mistyped or shifted?", "the booklet's limiting KG / GM curve", "curve-above-criteria")
+
+
 def _trim_name(trim: float) -> str:
     """How the profile reader names a table at a trim (``hydrostatics_at_trim[1 m]``): six significant digits."""
     return f"{round(trim, 6):.6g}"
@@ -1027,6 +1105,7 @@ def audit(vessel: Vessel) -> tuple[Finding, ...]:
     a.tanks()
     _free_surface_settings(a)
     a.curves()
+    a.limit_curve_against_kn()
     return tuple(sorted(a.out, key=lambda f: 0 if f.severity == ERROR else 1))
 
 

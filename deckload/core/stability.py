@@ -413,7 +413,7 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
         notes.append(Warning("downflooding-low",
                              f"downflooding angle θf {flood:.1f}° is below 30°: openings immerse before 30°, "
                              "so the 30°–θf area is nil", "danger"))
-    measures = _measures(gz, f, flood, gm_fluid)
+    measures = curve_measures(gz, f, flood, gm_fluid)
     limit_rows = []
     limit_missing = None
     if vessel.limit_curve is not None:
@@ -463,7 +463,7 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
             gz2 = gz + curve.kn_spread_m
             f2 = gzmod.facts(gz2)
             afloat2 = replace(afloat, gz_lee_m=gz2, gz_other_m=curve.gz_other_m + curve.kn_spread_m,
-                              measures=_measures(gz2, f2, flood, gm_fluid), max_gz_m=f2.max_gz_m,
+                              measures=curve_measures(gz2, f2, flood, gm_fluid), max_gz_m=f2.max_gz_m,
                               vanishing_deg=f2.vanishing_angle_deg, equilibrium_deg=f2.equilibrium_deg)
             second = list(assess(vessel, afloat2, limit_rows).criteria)
             if curve.end_deg < 90.0 - 1e-9:
@@ -653,7 +653,7 @@ def _gz30_top(flood: float | None) -> float:
     return max(30.0, flood) if flood is not None else 90.0
 
 
-def _measures(gz: np.ndarray, f: gzmod.CurveFacts, flood: float | None, gm_fluid_m: float) -> Measures:
+def curve_measures(gz: np.ndarray, f: gzmod.CurveFacts, flood: float | None, gm_fluid_m: float) -> Measures:
     """The values the criteria sets are measured on, from one GZ curve on the low side
     (:func:`stage_criteria`'s docstring gives each)."""
     top, hi = _area_top(flood), _gz30_top(flood)
