@@ -22,6 +22,7 @@ from deckload.io.textsafe import control_char
 from deckload.ui.dialogs import Form
 from deckload.ui.entry import EntryError
 from deckload.ui.palette import P
+from deckload.ui.widgets import SteadyInput
 
 
 def check_name(text: str, stock_titles: set[str]) -> str:
@@ -54,7 +55,7 @@ class SaveAsForm(Form):
         with Vertical(classes="form"):
             yield Label("Save the working condition under a name", classes="form-title")
             yield Label(f"A new condition file in {self._folder} · ⏎ saves · Esc cancels", classes="form-hint")
-            yield Input(value=self._initial, id="prompt-input", select_on_focus=True)
+            yield SteadyInput(value=self._initial, id="prompt-input", select_on_focus=True)
             yield Static("", id="form-message")
 
     def on_input_changed(self, event: Input.Changed) -> None:

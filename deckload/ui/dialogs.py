@@ -26,7 +26,7 @@ from deckload.ui.commands import COMMANDS, NAVIGATION
 from deckload.ui import entry
 from deckload.ui.entry import EntryError, ItemForm, TransferPlan, plan_transfer
 from deckload.ui.palette import P
-from deckload.ui.widgets import LinePanel, type_into
+from deckload.ui.widgets import LinePanel, SteadyInput, type_into
 from deckload.io.textsafe import join_lines
 
 
@@ -91,7 +91,7 @@ class PromptForm(Form):
         with Vertical(classes="form"):
             yield Label(self._title, classes="form-title", markup=False)
             yield Label(self._hint, classes="form-hint", markup=False)
-            yield Input(value=self._initial, id="prompt-input", select_on_focus=True)
+            yield SteadyInput(value=self._initial, id="prompt-input", select_on_focus=True)
             if self._preview is not None:
                 yield Static("", id="prompt-preview")
             yield Static("", id="form-message")
@@ -142,7 +142,7 @@ class RecordForm(Form):
             if self._note:
                 yield Label(self._note, classes="form-hint")
             yield Label("Your initials", classes="field-label")
-            yield Input(value=self._initials, id="record-by", classes="field")
+            yield SteadyInput(value=self._initials, id="record-by", classes="field")
             yield Label("Remark (optional)", classes="field-label")
             yield RemarkInput(id="record-remark", classes="field")
             yield Static("", id="form-message")
@@ -170,7 +170,7 @@ class RecordForm(Form):
         self.dismiss((by, text))
 
 
-class RemarkInput(Input):
+class RemarkInput(SteadyInput):
     """A one-line field that takes a pasted text of several lines whole, its lines joined by a
     space (textual's Input keeps only the first line of a paste, and the rest was lost unseen)."""
 
@@ -378,7 +378,7 @@ class ItemFormScreen(TankPicking, Form):
                 if name in self.DECK_ONLY and not self._deck:
                     continue
                 yield Label(label, classes="field-label")
-                yield Input(value=getattr(self._form, name), id=f"item-{name}", classes="field")
+                yield SteadyInput(value=getattr(self._form, name), id=f"item-{name}", classes="field")
             yield Label("Enter saves · Tab next field · Esc cancels", classes="form-hint")
             if self.TANK_FIELDS:
                 yield LinePanel(id="area-picker")
@@ -454,7 +454,7 @@ class TransferForm(TankPicking, Form):
                                              ("amount", "Amount", "", "10t, 5m3 or 20%")):
                 with Horizontal(classes="xfer-row"):
                     yield Label(label, classes="xfer-label")
-                    yield Input(value=value, id=f"xfer-{name}", placeholder=hint, classes="xfer-field")
+                    yield SteadyInput(value=value, id=f"xfer-{name}", placeholder=hint, classes="xfer-field")
             yield LinePanel(id="xfer-preview")
             yield Static("", id="form-message")
 

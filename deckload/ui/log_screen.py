@@ -40,6 +40,7 @@ from deckload.io.textsafe import escape_breaks, escaped
 from deckload.report import verdict_format as vf
 from deckload.core.model import Condition, Vessel
 from deckload.logbook import KIND_LABELS, KINDS, LogEntry, Logbook, condition_of
+from deckload.ui.widgets import SteadyInput
 
 ALL_KINDS = "all"
 
@@ -254,9 +255,9 @@ class LogScreen(Screen["RestoreRequest | None"]):
         with Horizontal(id="log-filters"):
             yield Static("", id="log-kind")
             yield Static("ship's date from", classes="log-filter-label")
-            yield Input(placeholder="YYYY-MM-DD", id="log-from", max_length=10)
+            yield SteadyInput(placeholder="YYYY-MM-DD", id="log-from", max_length=10)
             yield Static("to", classes="log-filter-label")
-            yield Input(placeholder="YYYY-MM-DD", id="log-to", max_length=10)
+            yield SteadyInput(placeholder="YYYY-MM-DD", id="log-to", max_length=10)
         with Vertical(id="log-body"):
             yield DataTable(id="log-table", cursor_type="row", zebra_stripes=True)
             yield Static(id="log-detail")

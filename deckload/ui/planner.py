@@ -25,7 +25,7 @@ from textual.binding import Binding
 from deckload.ui.dialogs import Form, TankPicking, preview_lines
 from deckload.ui.entry import EntryError
 from deckload.ui.palette import P
-from deckload.ui.widgets import LinePanel
+from deckload.ui.widgets import LinePanel, SteadyInput
 
 TOLERANCE = {"list": 0.1, "trim": 0.01, "gm": 0.001}
 """How close a proposal must come: list 0.1°, trim 1 cm, GM at least the value (to the mm)."""
@@ -187,7 +187,7 @@ class PlannerForm(TankPicking, Form):
             for name, label, value in (("goal", "Goal", "list 0"), ("tanks", "Tanks", ballast)):
                 with Horizontal(classes="xfer-row"):
                     yield Label(label, classes="xfer-label")
-                    yield Input(value=value, id=f"plan-{name}", classes="xfer-field")
+                    yield SteadyInput(value=value, id=f"plan-{name}", classes="xfer-field")
             yield LinePanel(id="xfer-preview")
             yield Static("", id="form-message")
 

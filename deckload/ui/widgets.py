@@ -18,7 +18,9 @@ from textual.message import Message
 from textual.scroll_view import ScrollView
 from textual.strip import Strip
 from textual.style import Style as VisualStyle
+from textual.reactive import reactive
 from textual.widget import Widget
+from textual.widgets import Input
 
 from deckload.core.model import Condition, Vessel
 from deckload.core.result import Result
@@ -656,3 +658,14 @@ class LoadBoard(ScrollView, can_focus=True):
 
     def on_blur(self) -> None:
         self.on_focus()
+
+
+class SteadyInput(Input):
+    """A text field whose cursor stands still instead of blinking.
+
+    A blinking cursor repaints its field twice a second for as long as a form stays open, work a
+    low-power PC need not do; and a screen captured for the record (a printout, a snapshot test)
+    then shows the cursor where it is rather than in whichever half of the blink it fell."""
+
+    cursor_blink = reactive(False, init=False)
+
