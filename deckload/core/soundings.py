@@ -116,7 +116,36 @@ def volume_at_sounding(body: Body, pipe: SoundingPipe, sounding_m: float, trim_m
     z_low = body.z_min_m
     c0 = -pipe.y_m * sin_p + (z_low + sounding_m) * cos_p
     t = trim_m / lbp_m * cos_p
+    if t != 0.0 and _one_section(body):
+        return _prism_volume(body, cos_p, sin_p, c0, t, pipe.x_m)
     return float(immerse(body, cos_p, sin_p, c0, t, pipe.x_m).volume_m3)
+
+
+def _one_section(body: Body) -> bool:
+    """Whether every station of ``body`` has the same section (a box or a prism tank)."""
+    return bool(np.all(body.y_m == body.y_m[0]) and np.all(body.z_m == body.z_m[0]))
+
+
+def _prism_volume(body: Body, cos_p: float, sin_p: float, c0: float, t: float, x_ref_m: float) -> float:
+    """Volume of a tank of one section all along (a box or a prism) below the trimmed plane, exact.
+
+    At x the section is cut at level c(x) = c₀ − (x − x_ref)·t (:func:`immerse`'s plane), so the
+    volume is ∫ A(c(x)) dx with A(c) the area of the one section below level c.  A(c) is a
+    quadratic in c between the levels of the section's corners, ζ = z·cosφ − y·sinφ (the cut's
+    chord changes linearly there), and c is linear in x: so A(c(x)) is a quadratic in x between
+    the points where c(x) passes a corner, and Simpson's rule on each such piece is exact
+    (derived).  The three stations the body is otherwise integrated on are exact only while the
+    plane meets neither the floor nor the top part-way along: a box double bottom sounded 0.25 m
+    at 1 m trim read 24 % short (found by an invariance audit against the wedge's closed form)."""
+    x0, x1 = float(body.x_m[0]), float(body.x_m[-1])
+    corners = body.z_m[0] * cos_p - body.y_m[0] * sin_p
+    kinks = x_ref_m + (c0 - corners) / t
+    knots = np.unique(np.concatenate([[x0, x1], kinks[(kinks > x0) & (kinks < x1)]]))
+    a, b = knots[:-1], knots[1:]
+    nodes = np.stack([a, 0.5 * (a + b), b], axis=1)  # (pieces, 3)
+    section = Body(np.array([0.0]), body.y_m[:1], body.z_m[:1], np.array([1.0]), "one section")
+    area = immerse(section, cos_p, sin_p, c0 - (nodes - x_ref_m) * t).volume_m3
+    return float(np.sum((b - a) / 6.0 * (area[:, 0] + 4.0 * area[:, 1] + area[:, 2])))
 
 
 def correct_sounding(tank: Tank, body: Body, pipe: SoundingPipe, sounding_m: float, trim_m: float, lbp_m: float,
