@@ -133,3 +133,42 @@ def test_the_panel_gives_way_a_line_at_a_time_and_every_cut_line_ends_in_an_elli
         if at is not None and at + 1 < len(lines) and lines[at + 1].startswith(NOTE_INDENT + "limit"):
             assert rows == criteria_rows, (height, lines)  # the note still shows: no criterion gave way
             _shown_whole_or_marked(theta0.note, lines, at + 1)
+
+
+# --------------------------------------------------------------------------- the side's share of a wide screen
+
+
+def _widths(app) -> tuple[int, int, int]:
+    """The board's width (its edge included), its widest line as made, and the right side's width."""
+    from deckload.ui.widgets import LoadBoard
+
+    board = app.screen.query_one(LoadBoard)
+    widest = max(len(r.text.plain.rstrip()) for r in board.rows)
+    return board.outer_size.width, widest, app.screen.query_one("#side").outer_size.width
+
+
+async def test_a_wide_screen_gives_the_side_what_the_board_does_not_need(tmp_path):
+    """At 200×60 the board took 146 cells for lines of at most 83 while the criteria panel (54)
+    cut its notes.  Now the board keeps what shows every line of it whole (its widest line, its
+    scrollbar gutter and edge, and room for a longer tank id) and the side takes the rest; at 120
+    and 80 columns the widths are as they were (54 and 34, the snapshots' layout)."""
+    vessel, condition = _trawler()
+    app = _app(tmp_path, vessel, condition)
+    async with app.run_test(size=(200, 60)) as pilot:
+        await pilot.pause()
+        board, widest, side = _widths(app)
+        assert board + side == 200
+        # every line whole (its gutter and edge beside it), at most the 3 cells of a longer id to spare
+        assert widest + 2 <= board <= widest + 2 + 3, (board, widest)
+        wide_side = side
+        for size, side_cols in (((100, 30), 34), ((120, 40), 54), ((142, 40), 54), ((200, 60), wide_side)):
+            await pilot.resize_terminal(*size)
+            for _ in range(40):  # the resize reaches the screen, then its layout is made
+                await pilot.pause(0.05)
+                if app.screen.has_class("-narrow") == (size[0] < 110) and sum(_widths(app)[::2]) == size[0]:
+                    break
+            await pilot.pause()
+            board, widest, side = _widths(app)
+            assert side == side_cols and board + side == size[0], (size, board, side)
+            if size[0] >= 110:  # no line of the wide board is cut (the narrow one shows less)
+                assert widest + 2 <= board
