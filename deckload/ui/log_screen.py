@@ -106,8 +106,10 @@ def _short(text: str, n: int) -> str:
     return text if len(text) <= n else text[: n - 1] + "…"
 
 
-def entry_details(e: LogEntry) -> Text:
-    """The entry's stored summary as it was computed when recorded (nothing recomputed)."""
+def entry_details(e: LogEntry, width: int | None = None) -> Text:
+    """The entry's stored summary as it was computed when recorded (nothing recomputed).  With
+    ``width``, every line fits it: a line too long carries on under its own value (a row's under the
+    value column, any other indented), so the view does not wrap it again at column 1."""
     t = Text()
     t.append(f"Entry #{e.seq}  ", style="bold")
     t.append(f"{e.ship_time:%Y-%m-%d %H:%M} ship's time ({e.ship_clock}), {e.utc:%Y-%m-%d %H:%M:%S} UTC\n")
@@ -143,14 +145,16 @@ def entry_details(e: LogEntry) -> Text:
             ("Deck edge immersion", _num(s.get("deck_edge_angle_deg"), 1, "°")),
             ("Downflooding θf", _num(s.get("downflooding_angle_deg"), 1, "°")),
         ]
+        # the value column after the longest label ('Margin to the mark (+ below)' ran into its value at 24)
+        label_w = max(len(k) for k, _ in rows) + 2
         for k, v in rows:
-            t.append(f"  {k:<24}{v}\n")
+            t.append(f"  {k:<{label_w}}{v}\n")
         dwt = s.get("deadweight_by_kind_t")
         if isinstance(dwt, dict) and dwt:  # entries written before it have none
-            t.append("  Deadweight by kind     " + " · ".join(f"{escaped(str(k))} {_num(m, 2, ' t')}" for k, m in dwt.items()) + "\n")
+            t.append(f"  {'Deadweight by kind':<{label_w}}" + " · ".join(f"{escaped(str(k))} {_num(m, 2, ' t')}" for k, m in dwt.items()) + "\n")
         word = vf.stored_word(s)
         style = "bold red" if word == "NOT MET" else "bold"
-        for line in vf.stored_lines(s, 90):
+        for line in vf.stored_lines(s, width or 90):
             t.append(line + "\n", style=style)
         if not s.get("verdict"):  # an older entry: its sets one by one (a newer one's verdict names them)
             for x in s.get("criteria_sets") or []:
@@ -168,7 +172,49 @@ def entry_details(e: LogEntry) -> Text:
         t.append("\nChange data: ", style="bold")
         t.append(", ".join(f"{k} = {v}" for k, v in e.change_data.items()) + "\n")
     t.append(f"\nSHA-256 {e.sha256}\n", style="dim")
-    return t
+    if width is None:
+        return t
+    fitted = Text()
+    for line in t.split("\n", allow_blank=True):
+        for piece in _hanging(line, width, _hang_of(line.plain, label_w if s is not None else 0)):
+            fitted.append_text(piece).append("\n")
+    fitted.right_crop(1)
+    return fitted
+
+
+def _hang_of(plain: str, label_w: int) -> int:
+    """Where a line's continuation starts: under the value of a labelled row ('  Label    value'),
+    else two cells in from the line's own indent."""
+    lead = len(plain) - len(plain.lstrip(" "))
+    if label_w and lead == 2 and plain[2 + label_w - 2: 2 + label_w] == "  " and plain[2 + label_w:2 + label_w + 1] != " ":
+        return 2 + label_w
+    return lead + 2
+
+
+def _hanging(line: Text, width: int, hang: int) -> list[Text]:
+    """``line`` broken between words into lines of ``width`` cells at most, the lines after the
+    first indented by ``hang`` (styles kept); a word longer than a line is split."""
+    hang = hang if width - hang >= 20 else min(2, max(0, width - 10))
+    plain, out, start = line.plain, [], 0
+    while True:
+        room = width - (hang if out else 0)
+        if len(plain) - start <= room:
+            piece = line[start:]
+        else:
+            cut = plain.rfind(" ", start, start + room + 1) - start
+            if cut <= 0 or not plain[start:start + cut].strip():
+                cut = room
+            elif plain.startswith(" · ", start + cut):  # a list's '·' ends its line, never starts one
+                before = plain.rfind(" · ", start, start + cut)
+                cut = cut + 2 if cut + 2 <= room else (before - start + 2 if before > start else cut)
+            piece = line[start:start + cut]
+            piece.rstrip()
+        out.append(Text(" " * hang).append_text(piece) if out else piece)
+        start += len(piece.plain)
+        while start < len(plain) and plain[start] == " ":
+            start += 1
+        if start >= len(plain):
+            return out
 
 
 _SHOWING_FAILED = (TypeError, ValueError, OverflowError, AttributeError, KeyError)
@@ -188,12 +234,28 @@ def _row(e: LogEntry) -> tuple[Text, ...]:
                 Text("—"), Text("—"))
 
 
-def _details_or_damage(e: LogEntry) -> Text:
+def _details_or_damage(e: LogEntry, width: int | None = None) -> Text:
     try:
-        return entry_details(e)
+        return entry_details(e, width)
     except _SHOWING_FAILED as exc:
         return Text(f"Line {e.line_no} (entry #{e.seq}) is damaged and cannot be shown ({type(exc).__name__}); "
                     "press v to verify the log.", style="bold red")
+
+
+class _EntryDetails(Static):
+    """An opened entry's summary made for the width it is shown at (:func:`entry_details`): made at
+    90 columns and wrapped again by the box, its verdict fell into fragments and a long row went on
+    at column 1."""
+
+    def __init__(self, entry: LogEntry, **kwargs):
+        super().__init__(**kwargs)
+        self.entry = entry
+
+    def render(self) -> Text:
+        return _details_or_damage(self.entry, self.size.width or None)
+
+    def get_content_height(self, container, viewport, width: int) -> int:
+        return len(_details_or_damage(self.entry, width or None).plain.split("\n"))
 
 
 class EntryScreen(ModalScreen[None]):
@@ -210,7 +272,7 @@ class EntryScreen(ModalScreen[None]):
 
     def compose(self) -> ComposeResult:
         with VerticalScroll(id="log-entry-box"):
-            yield Static(_details_or_damage(self.entry), id="log-entry-summary")
+            yield _EntryDetails(self.entry, id="log-entry-summary")
             cond = self.entry.condition
             if cond is not None:
                 yield Static(Text("Condition as recorded (read-only)", style="bold"), classes="log-entry-head")

@@ -34,6 +34,21 @@ NARROW_BELOW = 110
 """Screen width (cells) under which the right side shows numbers or curve, not both."""
 MIN_CURVE_ROWS = 10
 """On a wide screen the criteria panel takes the rows it needs, leaving the curve at least this many."""
+SIDE_COLS = 54
+"""The right side's width on a wide screen (#side in deckload.tcss), where the board needs the rest."""
+BOARD_FULL_COLS = 88
+"""Cells the board needs to show every line whole: its widest line (a deck load's row with x, z,
+side and deck area, 83 cells with a five-cell tank id, 86 with the longest, eight) with its
+scrollbar gutter and right edge.  Beyond that the right side takes the screen (at 200 columns the
+board got 146 cells, mostly empty, while the criteria panel cut its notes)."""
+
+
+def side_width(screen_cols: int) -> int | None:
+    """The right side's width on a screen ``screen_cols`` wide: None for the stylesheet's (54, or 34
+    on a narrow screen), more where the board has all it needs and cells to spare."""
+    if screen_cols < NARROW_BELOW or screen_cols - BOARD_FULL_COLS <= SIDE_COLS:
+        return None
+    return screen_cols - BOARD_FULL_COLS
 
 
 def _forms():
@@ -76,12 +91,14 @@ class LoadingScreen(Screen[None]):
         self.query_one(LoadBoard).focus()
         # Before the first layout, so that the first frame drawn is laid out for this width.
         self.set_class(self.app.size.width < NARROW_BELOW, "-narrow")
+        self.query_one("#side").styles.width = side_width(self.app.size.width)
         self.refresh_view()
         self.query_one("#keys", SizedPanel).show(lambda w, h: [self._key_line(w)])
         self.say("⏎ type an amount · + − nudge · t transfer · n name · p print · x plan · ? all keys", ok=None)
 
     def on_resize(self, event) -> None:
         self.set_class(event.size.width < NARROW_BELOW, "-narrow")
+        self.query_one("#side").styles.width = side_width(event.size.width)  # None: the stylesheet's
         self.refresh_bindings()
 
     def _key_line(self, width: int) -> Text:

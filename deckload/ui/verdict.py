@@ -3,14 +3,19 @@
 Result → pre-formatted rich Text lines, like :mod:`deckload.ui.views` (no textual here).
 The panel never says 'met' without the sets it was met for, groups the criteria by
 set with their paragraph, shows a criterion the data cannot decide as 'not
-assessable' (never as a pass), and always lists what was not assessed.  When the
-panel is short, lines are given up in this order: notes, the column heading, the
-'ok' criteria of the longest set (counted on a line of their own); the set headings,
-every failed, near or unassessable criterion and the not-assessed line stay.
+assessable' (never as a pass), and always lists what was not assessed.  A note wider
+than the panel wraps onto indented lines below it (the θ0 note's A, Z and lw1 are what an
+officer checks the weather criterion by); a line still too wide ends in '…' (widgets.fit_width),
+and a set's title is shortened before its verdict word is.  When the panel is short, lines are
+given up in this order: the wrapped lines of notes (an 'ok' criterion's first, the last first),
+each note cut to one line, the notes, the column heading, the 'ok' criteria of the longest set
+(counted on a line of their own); the set headings, every failed, near or unassessable
+criterion (with the first line of its reason) and the not-assessed line stay.
 """
 
 from __future__ import annotations
 
+import re
 import textwrap
 
 from rich.text import Text
@@ -63,6 +68,70 @@ def _wrap_words(words: list[str], first: str, width: int, sep: str = ",", last: 
     return lines
 
 
+def _is_ok(c: CriterionResult) -> bool:
+    return c.assessed and verdict(c)[0] == "ok"
+
+
+def _fit(text: Text, width: int) -> Text:
+    """``text`` cut to ``width`` by the screen's one rule (widgets.fit_width: it ends in '…', no
+    word or number split), the '…' put after the last word kept ("P 504 Pa, …") rather than at
+    the panel's edge, so that it reads as words left out of this line."""
+    from deckload.ui.widgets import fit_width  # here: this module builds lines without textual
+
+    out = fit_width(text, width)
+    if out is text or not out.plain.endswith("…"):
+        return out
+    kept = out.plain[:-1].rstrip()
+    short = out[: len(kept)]
+    short.append(" …" if kept.strip() else "…")
+    return short if short.cell_len <= width else out
+
+
+def _group_title(title: str, room: int) -> Text:
+    """A set's heading in ``room`` cells (its verdict word follows): the title shortened by whole
+    words, with '…' after the last one kept ("▸ B 2.1 fishing vessel …"), padded to ``room``."""
+    h = _fit(Text(f" ▸ {title}", P["group"]), room)
+    h.pad_right(room - h.cell_len)
+    return h
+
+
+NOTE_INDENT, NOTE_MORE = "   ", "     "
+"""A note under its criterion, and the lines it wraps onto, indented further."""
+
+
+def _note_lines(note: str, width: int) -> list[Text]:
+    """A criterion's note wrapped to ``width``, the lines after the first indented further: broken
+    after a comma or semicolon where it can be (so that "lw1 0.0626 m" stays on one line), else
+    between words; a word wider than the line is cut with '…'."""
+    lines: list[str] = []
+    cur = NOTE_INDENT
+    for clause in re.split(r"(?<=[,;]) ", note):
+        trial = cur + ("" if cur.isspace() else " ") + clause
+        if len(trial) <= width or cur.isspace():
+            cur = trial
+        else:
+            lines.append(cur)
+            cur = NOTE_MORE + clause
+    lines.append(cur)
+    out: list[str] = []
+    for ln in lines:  # a clause wider than the line on its own: between words
+        out += textwrap.wrap(ln, max(8, width), subsequent_indent=NOTE_MORE,
+                             break_long_words=False, break_on_hyphens=False) if len(ln) > width else [ln]
+    return [_fit(Text(x.rstrip(), P["dim"]), width) for x in out]
+
+
+def _first_rows(notes: list[Text], rows: int, width: int) -> list[Text]:
+    """The first ``rows`` lines of a wrapped note; when that leaves some out, the last line shown
+    carries on the note's words and is cut with '…' at ``width``."""
+    if rows >= len(notes):
+        return notes
+    if rows <= 0:
+        return []
+    joined = " ".join(n.plain.strip() for n in notes[rows - 1:])
+    last = Text((NOTE_INDENT if rows == 1 else NOTE_MORE) + joined, P["dim"])
+    return notes[: rows - 1] + [_fit(last, width)]
+
+
 def criteria_lines(result: Result | None, stale: bool, width: int, height: int = 10_000) -> list[Text]:
     """The criteria panel: the verdict with the sets it covers, each set with its criteria, and the
     not-assessed list; at most ``height`` lines (see the module docstring for what gives way)."""
@@ -88,38 +157,46 @@ def criteria_lines(result: Result | None, stale: bool, width: int, height: int =
 
     groups: list[tuple[Text, list[tuple[CriterionResult, Text, list[Text]]]]] = []
     for g in vf.grouped(result):
-        title = vf.set_title(g.set.title)
         gw = g.word
-        room = max(4, width - len(gw) - 2)
-        h = Text(f" ▸ {title}"[:room].ljust(room), P["group"])
+        # the word ends where a criterion's line does (54 cells), not at the far edge of a wide panel
+        h = _group_title(vf.set_title(g.set.title), max(4, min(width, 54) - len(gw) - 2))
         h.append(" " + gw, P["stale"] if stale else P[WORD_STYLE.get(gw, "caution")])
         rows = []
         for c in g.criteria:
-            notes = [Text(f"   {c.note}"[:width], P["dim"])] if (c.note and not c.assessed) or (c.note and not compact) else []
+            notes = _note_lines(c.note, width) if (c.note and not c.assessed) or (c.note and not compact) else []
             rows.append((c, _criterion_line(c, stale, compact), notes))
         groups.append((h, rows))
+    # The notes in the order they give way: an 'ok' criterion's before a failed, near or
+    # unassessable one's, and within each the one lower in the panel first.
+    note_order = sorted(((gi, ri) for gi, (_, rows) in enumerate(groups) for ri, (_, _, n) in enumerate(rows) if n),
+                        key=lambda k: (not _is_ok(groups[k[0]][1][k[1]][0]), -k[0], -k[1]))
 
     na_items = [vf.short_item(n.item) for n in result.not_assessed]
-    na_full = [Text(x, P["caution"]) for x in _wrap_words(
-        na_items, " Not assessed:", width, last=f"({VERDICT_KEY}: why)")] if na_items else []
+    na_full = [_fit(Text(y, P["caution"]), width)  # an item wider than the line wraps by words
+               for x in _wrap_words(na_items, " Not assessed:", width, last=f"({VERDICT_KEY}: why)")
+               for y in (textwrap.wrap(x, max(8, width), subsequent_indent=NOTE_MORE, break_long_words=False,
+                                       break_on_hyphens=False) if len(x) > width else [x])] if na_items else []
     na_short = [Text(f" Not assessed: {len(na_items)} items ({VERDICT_KEY})", P["caution"])] if na_items else []
 
-    def build(with_notes: bool, with_colhead: bool, na: list[Text], keep_ok: dict[int, int]) -> list[Text]:
+    def build(with_notes: bool, with_colhead: bool, na: list[Text], keep_ok: dict[int, int],
+              note_rows: dict[tuple[int, int], int] | None = None) -> list[Text]:
+        """The panel's lines; ``note_rows`` (with notes) limits a note to so many lines (0: none)."""
         out = list(heads) + ([colhead] if with_colhead else [])
         for gi, (h, rows) in enumerate(groups):
             out.append(h)
             ok_budget = keep_ok.get(gi, len(rows))
             hidden = 0
-            for c, line, notes in rows:
-                is_ok = c.assessed and verdict(c)[0] == "ok"
-                if is_ok:
+            for ri, (c, line, notes) in enumerate(rows):
+                if _is_ok(c):
                     if ok_budget <= 0:
                         hidden += 1
                         continue
                     ok_budget -= 1
                 out.append(line)
-                if with_notes or not c.assessed:
-                    out.extend(notes if with_notes else notes[:1])
+                if with_notes:
+                    out.extend(_first_rows(notes, (note_rows or {}).get((gi, ri), len(notes)), width))
+                elif not c.assessed:  # an unassessable criterion keeps the first line of its reason
+                    out.extend(_first_rows(notes, 1, width))
             if hidden:
                 out.append(Text(f"   +{hidden} more ok ({VERDICT_KEY} lists all)", P["dim"]))
         return out + na
@@ -127,12 +204,23 @@ def criteria_lines(result: Result | None, stale: bool, width: int, height: int =
     out = build(True, True, na_full, {})
     if len(out) <= height:
         return out
+    # Fold the notes a line at a time: first to one line each (cut with '…'), then away.
+    note_rows = {k: len(groups[k[0]][1][k[1]][2]) for k in note_order}
+    for floor in (1, 0):
+        for k in note_order:
+            if floor == 0 and not groups[k[0]][1][k[1]][0].assessed:
+                continue  # the reason an unassessable criterion was not decided stays (one line)
+            while note_rows[k] > floor:
+                note_rows[k] -= 1
+                out = build(True, True, na_full, {}, note_rows)
+                if len(out) <= height:
+                    return out
     for args in ((False, True, na_full), (False, False, na_full), (False, False, na_short)):
         out = build(*args, {})
         if len(out) <= height:
             return out
     # Give up 'ok' lines of the longest sets first, one at a time, until it fits.
-    keep = {gi: sum(1 for c, _, _ in rows if c.assessed and verdict(c)[0] == "ok") for gi, (_, rows) in enumerate(groups)}
+    keep = {gi: sum(1 for c, _, _ in rows if _is_ok(c)) for gi, (_, rows) in enumerate(groups)}
     while len(out) > height and any(keep.values()):
         gi = max(keep, key=keep.get)
         keep[gi] -= 1
