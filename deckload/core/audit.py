@@ -211,6 +211,35 @@ LONE_CELL_FSM_FRACTION = 0.05
 """A tank's free-surface cell is judged beyond 5 % of the tank's largest tabulated value (an FSM
 typed a decimal place out changes GM by centimetres; 5 % is beyond any rounding of the column)."""
 
+KN_ROW_REPEAT_M = 0.0005
+"""Two rows of a KN table are 'the same' when they agree within half a printed millimetre at every
+heel above 0°.  No two displacements have the same KN at every heel: at small heel KN ≈ KMt·sinφ
+and at large heel KN follows the freeboard, which changes with every draft, so two rows may meet at
+a heel or two where their curves cross, never at all of them (derived from KN = y_B·cosφ + z_B·sinφ,
+standards.md §6; the coaster's rows 3600 t and 4000 t agree at 5° only).  A row typed with another
+row's values (found by an audit: row 4000 t typed with row 3600 t's passed unseen)."""
+
+KN_REPEAT_MIN_HEELS = 3
+"""...judged only on rows with at least three heels above 0° (fewer could agree by chance)."""
+
+KN_SLIP_GAIN = 20.0
+"""A KN table is a smooth surface: at a fixed heel KN is a smooth function of displacement (the
+underwater body grows layer by layer), at a fixed displacement a smooth function of heel (common
+practice: booklets fair their cross curves; KN = y_B·cosφ + z_B·sinφ with B moving continuously).
+Two typing slips keep every value plausible and move whole rows or columns: two rows' values
+exchanged, and one heel's column typed one displacement row down or up.  Each is judged by putting
+it right: when exchanging the two rows (or moving the column back by one row) makes the table's
+departure from smoothness (the sum of squares named at each check) at least 20 times smaller, the
+printed table is the slipped one.  On the true tables of both demo vessels and of an invented 72 m
+coaster every such move makes the table rougher (ratios below 1.2), while each slip seeded into the
+coaster's table gives 95–160 (found by an audit; tests/test_audit_kn_slips.py)."""
+
+KN_SLIP_FLOOR_M = 0.02
+"""...and only when the slip itself matters: the as-typed departure exceeds 2 cm (root mean square
+over the column, or the largest difference between the exchanged rows), the floor of the lone-cell
+test on KN (:data:`LONE_CELL_FLOORS`)."""
+
+
 LONE_CELL_ANGLE_DEG = 2.0
 """A downflooding-angle cell is judged beyond 2° (angles are printed to 0.1°; a transposed digit
 moves one by 9° or more)."""
@@ -298,6 +327,124 @@ def lone_cell(x, y, floor) -> tuple[int, float, float] | None:
                 and (found is None or abs(r) > abs(found[1])):
             found = (j, r, float(y[j] - r))
     return found
+
+
+def _second_differences(x, y) -> np.ndarray:
+    """Second divided differences of y over x at the inner points: 2·[(y₊−y)/h₊ − (y−y₋)/h₋]/(h₋+h₊),
+    the second derivative of the parabola through three neighbours (any spacing; derived)."""
+    x = np.asarray(x, dtype=float)
+    y = np.asarray(y, dtype=float)
+    h1, h2 = np.diff(x)[:-1], np.diff(x)[1:]
+    return 2.0 * ((y[2:] - y[1:-1]) / h2 - (y[1:-1] - y[:-2]) / h1) / (h1 + h2)
+
+
+def _leave_out(x, y, j: int) -> float | None:
+    """y at x[j] from its neighbours alone: the polynomial through up to two neighbours on each side
+    (Lagrange), or None without a neighbour on each side.  For a smooth curve a cubic through four
+    neighbours errs by h⁴·(fourth derivative)-sized amounts, far below a row's step (derived)."""
+    idx = [k for k in (j - 2, j - 1, j + 1, j + 2) if 0 <= k < len(x)]
+    if not any(k < j for k in idx) or not any(k > j for k in idx):
+        return None
+    p = 0.0
+    for a in idx:
+        w = 1.0
+        for b in idx:
+            if b != a:
+                w *= (x[j] - x[b]) / (x[a] - x[b])
+        p += w * float(y[a])
+    return p
+
+
+def kn_repeated_rows(disp, kn, heel) -> list[tuple[int, int]]:
+    """Pairs (copy, original) of KN rows equal within :data:`KN_ROW_REPEAT_M` at every heel above 0°.
+
+    Of two equal rows the copy is the one further from the curve through the rows around the pair
+    (:func:`_leave_out` along the displacement with both left out); without rows on both sides, the
+    later row."""
+    disp = np.asarray(disp, dtype=float)
+    kn = np.asarray(kn, dtype=float)
+    heeled = np.asarray(heel, dtype=float) > 0.0
+    if int(np.sum(heeled)) < KN_REPEAT_MIN_HEELS:
+        return []
+    out = []
+    for a in range(len(disp)):
+        for b in range(a + 1, len(disp)):
+            if not np.all(np.abs(kn[a, heeled] - kn[b, heeled]) <= KN_ROW_REPEAT_M + 1e-9):
+                continue
+            copy, original = b, a
+            keep = [k for k in range(len(disp)) if k not in (a, b)]
+            if keep and keep[0] < a and keep[-1] > b:
+                def miss(r):
+                    return sum(abs(float(kn[r, j]) - float(np.interp(disp[r], disp[keep], kn[keep, j])))
+                               for j in np.flatnonzero(heeled))
+                if miss(a) > miss(b):
+                    copy, original = a, b
+            out.append((copy, original))
+    return out
+
+
+def kn_swapped_rows(disp, kn) -> tuple[int, float] | None:
+    """(i, gain): rows i and i+1 of a KN table whose values look exchanged, or None.
+
+    The roughness of the rows around the pair, Σ (second divided difference along the displacement)²
+    over every heel at the inner rows i−1 … i+2, is compared with the same after exchanging the two
+    rows; ``gain`` is as-typed ÷ exchanged, judged against :data:`KN_SLIP_GAIN`; the rows must differ
+    by more than :data:`KN_SLIP_FLOOR_M` somewhere.  Needs four rows."""
+    disp = np.asarray(disp, dtype=float)
+    kn = np.asarray(kn, dtype=float)
+    n = len(disp)
+    if n < 4:
+        return None
+    best = None
+    for i in range(n - 1):
+        if float(np.max(np.abs(kn[i] - kn[i + 1]))) <= KN_SLIP_FLOOR_M:
+            continue
+        inner = [k for k in range(i - 1, i + 3) if 1 <= k <= n - 2]
+        swapped = kn.copy()
+        swapped[[i, i + 1]] = kn[[i + 1, i]]
+
+        def rough(t):
+            return sum(float(np.sum(_second_differences(disp, t[:, j])[[k - 1 for k in inner]] ** 2))
+                       for j in range(kn.shape[1]))
+        after = rough(swapped)
+        before = rough(kn)
+        gain = before / after if after > 0.0 else math.inf
+        if gain >= KN_SLIP_GAIN and (best is None or gain > best[1]):
+            best = (i, gain)
+    return best
+
+
+def kn_shifted_column(heel, kn) -> tuple[int, int, float, float] | None:
+    """(j, step, gain, rms): a heel column j of a KN table typed one displacement row down (step +1:
+    each value is the row above's) or up (step −1), or None.
+
+    Each cell of the column is predicted from its own row's neighbouring heels (:func:`_leave_out`);
+    the departures of the column as typed are compared with those of the column moved back by one
+    row (over the rows both have): ``gain`` = Σ departure² as typed ÷ Σ departure² moved back,
+    judged against :data:`KN_SLIP_GAIN`, and ``rms`` the as-typed root mean square departure (metres),
+    against :data:`KN_SLIP_FLOOR_M`.  The last heel (no neighbour beyond it) is not judged; three
+    rows at least."""
+    heel = np.asarray(heel, dtype=float)
+    kn = np.asarray(kn, dtype=float)
+    n, m = kn.shape
+    if n < 3:
+        return None
+    best = None
+    for j in range(1, m - 1):
+        pred = [_leave_out(heel, kn[i], j) for i in range(n)]
+        if any(p is None for p in pred):
+            continue
+        pred = np.asarray(pred)
+        for step in (1, -1):
+            rows = np.arange(0, n - 1) if step == 1 else np.arange(1, n)
+            typed = kn[rows, j] - pred[rows]
+            moved = kn[rows + step, j] - pred[rows]  # the column put back: row i from the typed row i + step
+            rms = float(np.sqrt(np.mean(typed ** 2)))
+            s_moved = float(np.sum(moved ** 2))
+            gain = float(np.sum(typed ** 2)) / s_moved if s_moved > 0.0 else math.inf
+            if rms > KN_SLIP_FLOOR_M and gain >= KN_SLIP_GAIN and (best is None or gain > best[2]):
+                best = (j, step, gain, rms)
+    return best
 
 
 def _lone_floor(name: str):
@@ -764,6 +911,9 @@ class _Audit:
                     done = True
                     break
 
+        if self.kn_slips(heel, disp, kn, cp, where):
+            return  # the outlier and lone-cell tests below would only name a cell of the same slip
+
         # Isolated outliers: an inner value far from the line between its neighbours, along
         # heel and along displacement.
         def resid(xs, ys, j):
@@ -818,6 +968,44 @@ class _Audit:
             j, (i, r, chord) = max(cols, key=lambda jx: abs(jx[1][1]))
             self.add(WARNING, "cross_curves.kn_m", cp + (i, j), _f(float(kn[i, j])),
                      _lone_why(r, chord, " m", " along the displacement"), where(i, j), "kn-lone")
+
+    def kn_slips(self, heel, disp, kn, cp, where) -> bool:
+        """Whole rows or columns of the KN table typed in the wrong place: a row repeating another
+        row, two rows' values exchanged, a heel's column moved one displacement row down or up.
+        Each is an ERROR: the printed table cannot be both right and smooth (the tolerances'
+        docstrings: :data:`KN_ROW_REPEAT_M`, :data:`KN_SLIP_GAIN`).  True when rows were exchanged or a
+        column moved: then every cell the later tests would name is part of that slip."""
+        found = False
+        heeled = int(np.flatnonzero(np.asarray(heel) > 0.0)[0]) if np.any(np.asarray(heel) > 0.0) else 0
+        for copy, original in kn_repeated_rows(disp, kn, heel):
+            self.add(ERROR, "cross_curves.kn_m", cp + (copy, heeled), f"row Δ {disp[copy]:.6g} t",
+                     f"repeats the row at Δ {disp[original]:.6g} t at every heel: no two displacements have the "
+                     "same KN at every heel (a row typed with another row's values?)",
+                     f"the booklet's KN cross curves table, rows Δ {disp[copy]:.6g} t and {disp[original]:.6g} t",
+                     "kn-row-repeat")
+            # the copy stays where it was typed, so the tests below still judge the other cells
+        swap = kn_swapped_rows(disp, kn)
+        if swap is not None:
+            i, gain = swap
+            j = int(np.argmax(np.abs(np.asarray(kn[i]) - np.asarray(kn[i + 1]))))
+            self.add(ERROR, "cross_curves.kn_m", cp + (i, j), f"rows Δ {disp[i]:.6g} t and {disp[i + 1]:.6g} t",
+                     f"their values look exchanged: with the two rows swapped the table runs {gain:.0f} times "
+                     "more smoothly along the displacement (KN at a fixed heel is a smooth curve of displacement)",
+                     f"the booklet's KN cross curves table, rows Δ {disp[i]:.6g} t and {disp[i + 1]:.6g} t", "kn-row-swap")
+            found = True
+        shift = kn_shifted_column(heel, kn)
+        if shift is not None:
+            j, step, gain, rms = shift
+            i = 1 if step == 1 else len(disp) - 2  # the first cell holding another row's value
+            self.add(ERROR, "cross_curves.kn_m", cp + (i, j), f"the {heel[j]:g}° column",
+                     f"typed one row {'down' if step == 1 else 'up'}: its values fit the heel curve of the row "
+                     f"{'above' if step == 1 else 'below'} each ({gain:.0f} times better than their own; "
+                     f"{rms:.3g} m off their own rows' curves on average), and KN at a fixed displacement is a "
+                     f"smooth curve of heel; e.g. Δ {disp[i]:.6g} t holds {_f(float(kn[i, j]))}, "
+                     f"the value of the row Δ {disp[i - step]:.6g} t",
+                     f"the booklet's KN cross curves table, column {heel[j]:g}°", "kn-column-shift")
+            found = True
+        return found
 
     # ----------------------------------------------------------------- tanks
     def tanks(self):
