@@ -27,6 +27,7 @@ the linear value" (standards.md §5.2, Circ.1461 §5.1).
 from __future__ import annotations
 
 import math
+from pathlib import Path
 
 import pytest
 
@@ -235,3 +236,23 @@ def test_a_booklet_conditions_name_is_one_line_of_at_most_80_characters(tmp_path
         load_booklet_conditions(f, v)
     (p,) = [p for p in ei.value.problems if p.key == "booklet_condition[#1].name"]
     assert says in p.rule and p.line is not None
+
+
+def test_without_booklet_conditions_check_says_what_only_they_can_catch(tmp_path, capsys):
+    """A profile listing no worked condition: check still exits 0 and says "nothing suspicious
+    found", but adds a NOTE that a lightship KG or LCG slip and a wrong datum or sign are caught only
+    by the worked conditions, and where the README tells how to enter them (a lightship KG
+    transposition, the whole profile's sign and a lightship LCG slip passed the audit; found by an
+    audit).  With a worked condition the note is not printed."""
+    f = profile(tmp_path, "")
+    assert run_check(f) == 0
+    out = capsys.readouterr().out
+    assert "plausibility audit: nothing suspicious found" in out
+    (note,) = [line for line in out.splitlines() if line.startswith("NOTE: no booklet conditions entered")]
+    assert "lightship KG or LCG" in note and "wrong datum or with the wrong sign" in note
+    assert note.endswith('"Booklet conditions" in vessel_profiles/README.md')
+    readme = (Path(__file__).parent.parent / "vessel_profiles" / "README.md").read_text(encoding="utf-8")
+    assert "\n## Booklet conditions\n" in readme
+    f = profile(tmp_path, inline("Worked condition", booklet_values()))
+    assert run_check(f) == 0
+    assert "NOTE: no booklet conditions" not in capsys.readouterr().out

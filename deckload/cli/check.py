@@ -8,7 +8,7 @@ vessel's tables is reported here rather than on the loading screen.
 After the profile's summary: the plausibility audit (deckload.core.audit: errors are
 contradictions and fail the check, warnings are doubts), then the booklet's worked
 conditions recomputed beside the booklet's results with the tolerance of every row
-(deckload.core.booklet).
+(deckload.core.booklet), or, when the profile lists none, a note of what only they can catch.
 
 After an audit error neither the booklet conditions nor the condition are computed: the
 loading screen, calc and report refuse such a profile, and check does not show a result
@@ -31,6 +31,17 @@ from deckload.io.profiles import Problem, ProfileError, load_condition
 from deckload.report.audit_findings import load_audited
 
 CAUTION = vf.CAUTION
+
+NO_BOOKLET_CONDITIONS = (
+    "NOTE: no booklet conditions entered ([[booklet_condition]]): the audit above cannot see a wrong "
+    "number that agrees with every table, such as a lightship KG or LCG mistyped within the plausible "
+    "range, or every position of the profile measured from the wrong datum or with the wrong sign; only "
+    "the booklet's worked conditions, recomputed beside its printed results, catch those. How to enter "
+    "them: \"Booklet conditions\" in vessel_profiles/README.md")
+"""Said (not an error: the exit status is unchanged) when the profile lists none of the booklet's
+worked conditions: an audit that finds nothing is then no sign that the lightship and the datum
+are right (found by an audit: a KG transposition, the whole profile's sign and a lightship LCG slip
+were each caught by the worked conditions alone)."""
 
 
 def _plural(n: int, word: str, many: str | None = None) -> str:
@@ -162,6 +173,7 @@ def _booklet(path: Path, vessel: m.Vessel) -> int:
         _print_problems(e.problems, path)
         return 1
     if not cases:
+        print(NO_BOOKLET_CONDITIONS)
         return 0
     passed = 0
     for case in cases:
