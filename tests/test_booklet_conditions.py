@@ -256,3 +256,23 @@ def test_without_booklet_conditions_check_says_what_only_they_can_catch(tmp_path
     f = profile(tmp_path, inline("Worked condition", booklet_values()))
     assert run_check(f) == 0
     assert "NOTE: no booklet conditions" not in capsys.readouterr().out
+
+
+def test_a_problem_in_a_worked_conditions_file_is_headed_by_that_file_and_never_under_ok(tmp_path, capsys):
+    """A worked condition's file with a tank id the vessel lacks: the problem is counted under the
+    condition file that has it, not the profile, and the profile's heading is not "OK" above it
+    (it read "OK  coaster.toml" then "1 problem in coaster.toml"; found by an audit)."""
+    cond = tmp_path / "worked.condition.toml"
+    cond.write_text('format = "deckload-condition-1"\n[condition]\nname = "Worked"\n'
+                    + LOADING.replace("booklet_condition.", "") + "\n[tanks.NOPE]\npercent = 50.0\n", encoding="utf-8")
+    f = profile(tmp_path, '\n[[booklet_condition]]\nname = "Bad file"\ncondition_file = "worked.condition.toml"\n'
+                + expected_toml({"gm_m": GM}, heels=(30,)))
+    assert run_check(f) == 1
+    out = capsys.readouterr().out
+    lines = out.splitlines()
+    assert lines[0].startswith(f"ERR {f}: ")
+    assert not any(line.startswith("OK") for line in lines), out
+    line = [i for i, ln in enumerate(cond.read_text().splitlines(), 1) if "tanks.NOPE" in ln][0]
+    assert f"{cond}:{line}: tanks.NOPE" in out
+    assert f"1 problem in {cond} (the loading of a booklet condition of {f})" in lines
+    assert f"problem in {f}" not in out

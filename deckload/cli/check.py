@@ -115,8 +115,10 @@ def run_check(profile_path: Path, condition_path: Path | None = None) -> int:
         return 1
     sources = {k: tr.csv for k, tr in reading.tables.items() if tr.csv}
     summary = profile_summary(profile_path, vessel, sources)
-    if any(f.is_error for f in found):
-        # the schema is met but the numbers contradict each other: not "OK"
+    booklet = None if any(f.is_error for f in found) else _read_booklet(profile_path, vessel)
+    if booklet is None or isinstance(booklet, (int, ProfileError)):
+        # the schema is met but the numbers contradict each other, or a worked condition it names has
+        # a problem printed below: not "OK" above it
         summary[0] = "ERR " + summary[0][4:]
     for line in summary:
         print(line)
@@ -130,7 +132,7 @@ def run_check(profile_path: Path, condition_path: Path | None = None) -> int:
             print(f"{condition_path}: not computed: its vessel profile has audit errors")
         print(CAUTION)
         return status
-    status = max(status, _booklet(profile_path, vessel))
+    status = max(status, _booklet(profile_path, vessel, booklet))
     if condition_path is not None:
         status = max(status, _check_condition(Path(condition_path), vessel))
     print(CAUTION)
@@ -157,20 +159,47 @@ def _cell(x: float, sign: str = "") -> str:
     return f"{x:{sign}.4f}" if abs(x) < 1e6 else f"{x:{sign}.6g}"
 
 
-def _booklet(path: Path, vessel: m.Vessel) -> int:
-    """Recompute the booklet's worked conditions and print them beside the booklet's results."""
+def _read_booklet(path: Path, vessel: m.Vessel):
+    """The profile's booklet conditions (a list), the ProfileError listing their problems, or 2 when a
+    file could not be read (said on stderr)."""
     from deckload.io.booklet_conditions import load_booklet_conditions
-    from deckload.core.booklet import compare
-    from deckload.core.stability import evaluate
-    from deckload.core.tables import OutOfRangeError
 
     try:
-        cases = load_booklet_conditions(path, vessel)
+        return load_booklet_conditions(path, vessel)
     except OSError as e:
         print(f"deckload: cannot read {e.filename or path}: {e.strerror or e}", file=sys.stderr)
         return 2
     except ProfileError as e:
-        _print_problems(e.problems, path)
+        return e
+
+
+def _print_booklet_problems(problems: list[Problem], path: Path) -> None:
+    """Every problem of the booklet conditions, then how many there are in each file: a worked
+    condition's own file is named as the file with the problem (not the profile naming it)."""
+    for p in problems:
+        print(p)
+    counts: dict[str, int] = {}
+    for p in problems:
+        counts[p.file or str(path)] = counts.get(p.file or str(path), 0) + 1
+    for file, n in counts.items():
+        if file == str(path):
+            print(f"{_plural(n, 'problem')} in {path} (its [[booklet_condition]] entries)")
+        else:
+            print(f"{_plural(n, 'problem')} in {file} (the loading of a booklet condition of {path})")
+
+
+def _booklet(path: Path, vessel: m.Vessel, cases) -> int:
+    """Recompute the booklet's worked conditions (as :func:`_read_booklet` read them) and print them
+    beside the booklet's results."""
+    from deckload.core.booklet import compare
+    from deckload.core.stability import evaluate
+    from deckload.core.tables import OutOfRangeError
+
+    if isinstance(cases, int):
+        return cases
+    if isinstance(cases, ProfileError):
+        _print_booklet_problems(cases.problems, path)
+        print("booklet conditions: not computed until these problems are put right")
         return 1
     if not cases:
         print(NO_BOOKLET_CONDITIONS)
