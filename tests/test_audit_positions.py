@@ -277,20 +277,21 @@ def test_a_hold_with_only_a_vcg_fill_column():
 
 
 def test_a_constant_out_of_the_ship():
-    """Constants are judged as deck loads: heights up to 2.5 D pass, above 4 D is an error."""
+    """Constants are judged as deck loads: heights up to 2.5 D pass, above 4 D is an error.  A finding
+    names the constant by its name, as the reader does (it was 'constant[#2]'; found by an audit)."""
     ok = dataclasses.replace(vessel(), constants=(constant(vcg_m=2.5 * D),))
     assert found(ok, "position-x", "position-z", "position-y") == []
     v = dataclasses.replace(vessel(), constants=(constant(), constant(name="Spare net", lcg_m=-5.0, vcg_m=12.5, tcg_m=-3.3)))
     got = {f.key: f for f in found(v, "position-x", "position-z", "position-y")}
-    assert set(got) == {"constant[#2].lcg_m", "constant[#2].vcg_m", "constant[#2].tcg_m"}
-    f = got["constant[#2].vcg_m"]
+    assert set(got) == {"constant[Spare net].lcg_m", "constant[Spare net].vcg_m", "constant[Spare net].tcg_m"}
+    f = got["constant[Spare net].vcg_m"]
     assert (f.severity, f.path) == (ERROR, ("constant", 1, "vcg_m"))
-    assert f.text() == ("constant[#2].vcg_m = 12.5 m above keel: more than 4 × the depth (12 m) above the keel: "
+    assert f.text() == ("constant[Spare net].vcg_m = 12.5 m above keel: more than 4 × the depth (12 m) above the keel: "
                         "above anything aboard; compare with the booklet's list of fixed constants (Spare net)")
     look = "the booklet's list of fixed constants (Spare net)"
-    f = got["constant[#2].lcg_m"]
+    f = got["constant[Spare net].lcg_m"]
     assert (f.severity, f.path, f.value, f.look) == (ERROR, ("constant", 1, "lcg_m"), "-5 m from AP", look)
-    f = got["constant[#2].tcg_m"]
+    f = got["constant[Spare net].tcg_m"]
     assert (f.severity, f.path, f.value, f.look) == (ERROR, ("constant", 1, "tcg_m"), "-3.3 m from CL", look)
     (f,) = found(dataclasses.replace(vessel(), constants=(constant(vcg_m=2.5 * D + 0.01),)), "position-z")
     assert f.severity == WARNING and f.why == "more than 2.5 × the depth (7.5 m) above the keel"

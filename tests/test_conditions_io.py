@@ -176,9 +176,11 @@ def test_sounding_outside_calibration():
 
 
 def test_negative_mass_of_a_constant():
+    """A constant is named by its number and its name, as a tank by its id (it was 'constant[#1]'
+    alone; found by an audit)."""
     text = edit(GOOD, "mass_t = 1.2", "mass_t = -1.2")
     p = only(text)
-    assert (p.key, p.value, p.rule) == ("constant[#1].mass_t", "-1.2", "must not be negative")
+    assert (p.key, p.value, p.rule) == ('constant[#1 "Crew and effects"].mass_t', "-1.2", "must not be negative")
     assert p.line == line_of(text, "mass_t = -1.2")
 
 
@@ -229,7 +231,7 @@ def test_three_problems_in_one_condition():
     assert [(p.key, p.line) for p in ps] == [
         ("tanks.DB1S.percent", line_of(text, "percent = 150.0")),
         ("tanks.DB1P", line_of(text, "[tanks.DB1P]")),
-        ("constant[#1].vcg_m", line_of(text, 'vcg_m = "six"')),
+        ('constant[#1 "Crew and effects"].vcg_m', line_of(text, 'vcg_m = "six"')),
     ]
 
 

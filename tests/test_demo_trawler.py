@@ -261,6 +261,9 @@ def _copy_without_geometry(tmp_path: Path) -> Path:
     ("kn decimal", "demo_trawler/kn.csv", ",1.880,", ",18.80,", ["kn.csv:2: ERROR cross_curves.kn_m = 18.8 m"]),
     # the starboard wing tank's centres typed with the port mark
     ("pair side", "demo_trawler/tanks/FO1S.csv", " S,", " P,", ["ERROR tank[FO1P].calibration.tcg_m", "both centres are on the port side"]),
+    # a constant typed in kilograms, named by its name as a tank by its id (it was 'constant[#2]')
+    ("constant kg", "demo_trawler.toml", "mass_t = 1.5\n", "mass_t = 1500.0\n",
+     ["demo_trawler.toml:45: constant[Provisions and stores].mass_t = 1500.0: above the physical limit"]),
 ])
 def test_typing_slips_in_the_trawlers_booklet_pages_are_stopped_by_check(tmp_path, capsys, slip, file, old, new, expect):
     """Step 10 of "Setting up your vessel from the booklet": the slips a booklet invites, made on the

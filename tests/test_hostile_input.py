@@ -83,7 +83,7 @@ def test_heights_and_masses_are_bounded_too(vessel, key, value, rule):
     kw = {"lcg": "10.0", "mass": "10.0", "vcg": "5.0"}
     kw[{"vcg_m": "vcg", "mass_t": "mass"}[key]] = value
     (p,) = problems_of(with_item(kw["lcg"], kw["mass"], kw["vcg"], group="constant"), vessel)
-    assert p.key == f"constant[#4].{key}" and rule in p.rule
+    assert p.key == f'constant[#4 "far"].{key}' and rule in p.rule  # by number and name
 
 
 def test_a_legal_item_that_trims_her_beyond_her_tables_is_refused_not_called_compliant(vessel, tmp_path, capsys):

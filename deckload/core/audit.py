@@ -555,7 +555,7 @@ class _Audit:
                     if len(self.out) > n:
                         break
         for i, c in enumerate(v.constants):
-            key, path = f"constant[#{i + 1}]", ("constant", i)
+            key, path = f"constant[{c.name}]", ("constant", i)  # by its name, unique in a profile, as the reader names it
             look = f"the booklet's list of fixed constants ({c.name})"
             self.x_position(f"{key}.lcg_m", path + ("lcg_m",), c.lcg_m, look)
             self.z_position(f"{key}.vcg_m", path + ("vcg_m",), c.vcg_m, look, "deck")

@@ -84,8 +84,9 @@ def check_vessel(ctx: FileCheck, v: m.Vessel) -> m.Vessel:
     # plausibility audit (deckload.core.audit, on the same envelope), which every command
     # runs before it uses a profile (deckload.cli.calc.load_and_evaluate, check, open).
     for n, it in enumerate(getattr(v, "constants", ())):
-        c.one(("constant", n, "mass_t"), f"constant[#{n + 1}].mass_t", it.mass_t, b.item_mass_range(v))
-        c.position(p, ("constant", n), f"constant[#{n + 1}]", it.lcg_m, it.vcg_m, it.tcg_m)
+        # by its name, as the reader names it (unique in a profile), as a tank by its id
+        c.one(("constant", n, "mass_t"), f"constant[{it.name}].mass_t", it.mass_t, b.item_mass_range(v))
+        c.position(p, ("constant", n), f"constant[{it.name}]", it.lcg_m, it.vcg_m, it.tcg_m)
     hi_disp = b.max_displacement_t(v)
 
     for n, t in enumerate(v.tanks):
@@ -120,6 +121,12 @@ def check_vessel(ctx: FileCheck, v: m.Vessel) -> m.Vessel:
     return v
 
 
+def item_key(group: str, n: int, name: str | None) -> str:
+    """A condition's constant in a message: its number and, when known, its name
+    (``constant[#1 "Crew, stores"]``); names may repeat in a condition, so the number stays."""
+    return f'{group}[#{n + 1} "{name}"]' if name else f"{group}[#{n + 1}]"
+
+
 def check_condition(ctx: FileCheck, v: m.Vessel, cond: m.Condition) -> m.Condition:
     """``cond`` if every mass and position in it is physically possible on ``v``; else raise."""
     c = _Checker(ctx)
@@ -131,7 +138,7 @@ def check_condition(ctx: FileCheck, v: m.Vessel, cond: m.Condition) -> m.Conditi
         c.position(p, raw, name, h.lcg_m, h.vcg_m, h.tcg_m)
     for group, items in (("deck_item", cond.deck_items), ("constant", cond.constants)):
         for n, it in enumerate(items):
-            raw, name = (group, n), f"{group}[#{n + 1}]"
+            raw, name = (group, n), item_key(group, n, it.name) if group == "constant" else f"{group}[#{n + 1}]"
             c.one(raw + ("mass_t",), f"{name}.mass_t", it.mass_t, mass)
             c.position(p, raw, name, it.lcg_m, it.vcg_m, it.tcg_m)
             fp = getattr(it, "footprint_m2", None)

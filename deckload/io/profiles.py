@@ -1749,8 +1749,10 @@ def parse_condition(text: str, filename: str, vessel: m.Vessel) -> m.Condition:
     loads = _read_hold_loads(root, vessel)
     items = _read_deck_items(root, vessel)
     consts = []
-    for t in root.tables("constant"):
-        item = _read_mass_item(t, _item_name(t))
+    for n, t in enumerate(root.tables("constant")):
+        name = _item_name(t)
+        t.name = _physical(ctx).item_key("constant", n, name)  # its other problems name it too
+        item = _read_mass_item(t, name)
         t.finish()
         if item is not None:
             consts.append(item)
