@@ -19,6 +19,7 @@ from deckload.ui.entry import (
     item_from_form,
     nudge_tank,
     parse_amount,
+    parse_number,
     plan_transfer,
     tank_from_text,
 )
@@ -273,3 +274,17 @@ def test_the_giving_tank_for_an_empty_tank_is_its_partner_else_the_fullest_of_it
     two = empty.with_tank(TankFill("DB1P", "volume_m3", 10.0)).with_tank(TankFill("DB2S", "volume_m3", 20.0))
     assert giving_tank(v, two, "WB1P") == "DB2S"
     assert giving_tank(v, two.with_tank(TankFill("WB1S", "volume_m3", 5.0)), "WB1P") == "WB1S"
+
+
+def test_a_hold_mass_typed_in_kilograms_on_the_screen_says_so():
+    """The screen's refusal adds the hint as a file's does (bounds.kilograms_hint): 2 100 000 t over
+    the item bound of the box barge, 250 t over a 100 t limit (2.5 × it, a thousandth 0.25 t)."""
+    from deckload.core.model import Hold
+
+    hold = Hold("H1", "Hold", 300.0, 20.0, 2.0, max_mass_t=100.0)
+    with pytest.raises(EntryError, match=r"structural limit 100 t; it looks like kilograms: 0\.25 t\?"):
+        hold_from_text(Condition(), hold, "250")
+    with pytest.raises(EntryError, match=r"structural limit 100 t\.$"):
+        hold_from_text(Condition(), hold, "120")
+    with pytest.raises(EntryError, match=r"highest accepted value 1000 t; it looks like kilograms: 210 t\?"):
+        parse_number("210000", "H1 cargo mass", "t", low=0.0, high=1000.0)

@@ -116,6 +116,28 @@ def below_limit(value: float, limit: float) -> bool:
     return not value >= limit - ROUND_OFF * max(1.0, abs(limit))
 
 
+KILOGRAM_SLIP_EXCESS = 2.0
+"""A mass above its limit is said to look like kilograms only when it is at least twice the limit
+and its thousandth lies within the allowed range.  Within twice the limit an overload is a load one
+could mean (a hold loaded 10 % over); far beyond it, with a thousandth that fits, the mass was
+typed in kg for t (common practice: booklets print masses in tonnes, cargo papers often in kg;
+a hold of 2100 t typed 2 100 000 was told only that it was above the structural limit, found by
+an audit)."""
+
+
+def kilograms_hint(x: float, low: float, high: float) -> str:
+    """``"; it looks like kilograms: … t?"`` when a mass ``x`` (t) above ``high`` is 1000 × a mass
+    within [low, high] and at least :data:`KILOGRAM_SLIP_EXCESS` × ``high``; else ``""``.  The one
+    place every mass bound (:class:`Range` in tonnes, the hold's structural limit in the condition
+    reader and on the screen) asks."""
+    if not (math.isfinite(x) and high > 0.0 and x >= KILOGRAM_SLIP_EXCESS * high):
+        return ""
+    t = x / 1000.0
+    if not low <= t <= high:
+        return ""
+    return f"; it looks like kilograms: {t:.6g} t?"
+
+
 @frozen
 class Range:
     """An allowed closed interval with its unit and the reason, worded for a message."""
@@ -132,8 +154,9 @@ class Range:
         if self.low <= x <= self.high:
             return None
         side = "below" if x < self.low else "above"
+        kg = kilograms_hint(x, self.low, self.high) if self.unit == "t" else ""
         return (f"{side} the physical limit: must be between {_n(self.low)} and {_n(self.high)} {self.unit} "
-                f"({self.why})")
+                f"({self.why}){kg}")
 
     def __contains__(self, x: float) -> bool:
         return self.rule(x) is None

@@ -382,10 +382,15 @@ def between(lo: float, hi: float, unit: str = "", why: str = "") -> Rule:
 
 
 def at_most(limit: float, what: str) -> Rule:
-    """At most ``limit`` (with round-off allowance); ``what`` follows the limit: its unit and meaning."""
+    """At most ``limit`` (with round-off allowance); ``what`` follows the limit: its unit and meaning.
+    A mass (``what`` in tonnes) far above it whose thousandth fits is said to look like kilograms
+    (:func:`deckload.core.bounds.kilograms_hint`)."""
+    from deckload.core.bounds import kilograms_hint
+
     def rule(x: float) -> str | None:
         if x > limit + REL_TOL * max(1.0, abs(limit)):
-            return f"above {num(limit)} {what}"
+            kg = kilograms_hint(x, 0.0, limit) if what.startswith("t,") or what == "t" else ""
+            return f"above {num(limit)} {what}{kg}"
         return None
 
     return rule

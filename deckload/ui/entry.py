@@ -117,7 +117,8 @@ def parse_number(text: str, what: str, unit: str = "", *, low: float | None = No
     if low is not None and value < low:
         raise EntryError(f"{what} {value:g}{u} is below the lowest accepted value {low:g}{u}.")
     if high is not None and value > high:
-        raise EntryError(f"{what} {value:g}{u} is above the highest accepted value {high:g}{u}.")
+        kg = bounds.kilograms_hint(value, low or 0.0, high) if unit == "t" else ""
+        raise EntryError(f"{what} {value:g}{u} is above the highest accepted value {high:g}{u}{kg}.")
     return value
 
 
@@ -440,7 +441,8 @@ def nudge_hold(condition: Condition, hold: Hold, step_t: float, vessel: Vessel |
 def _hold_mass(condition: Condition, hold: Hold, mass: float, over_limit_ok: bool = False) -> Condition:
     # the limit and its round-off are the condition reader's too (profiles._read_hold_loads, at_most)
     if hold.max_mass_t is not None and over_limit(mass, hold.max_mass_t) and not over_limit_ok:
-        raise EntryError(f"{hold.id}: {mass:g} t is over the hold's structural limit {hold.max_mass_t:g} t.")
+        raise EntryError(f"{hold.id}: {mass:g} t is over the hold's structural limit {hold.max_mass_t:g} t"
+                         f"{bounds.kilograms_hint(mass, 0.0, hold.max_mass_t)}.")
     if mass == 0:
         return condition.without_hold(hold.id)
     old = next((h for h in condition.holds if h.hold_id == hold.id), None)
