@@ -157,3 +157,42 @@ async def test_density_by_key_shows_on_the_board_is_logged_and_comes_back_on_reo
 
 def test_the_legend_explains_the_mark():
     assert "◆ density stated for this condition" in views.LEGEND
+
+
+def _density_cautions(result):
+    return [w for w in result.warnings if w.code == "tank-density"]
+
+
+@pytest.mark.parametrize("tid, typed, usual", [("FO1P", "1.25", "0.8–1.01 t/m³, the usual range of fuel oil"),
+                                               ("FW1P", "1.25", "0.99–1.01 t/m³, the usual range of fresh water"),
+                                               ("WB2P", "1.25", "0.995–1.035 t/m³, the usual range of ballast")])
+def test_a_stated_density_unusual_for_the_tanks_kind_is_a_caution_from_a_file_and_the_screen(demo, tid, typed, usual):
+    """1.25 t/m³ stated for a fuel, fresh-water or ballast tank: the profile's audit warns for the
+    same density as a tank's own (audit.tank_density, bounds.KIND_DENSITY_T_M3: ISO 8217 and
+    standards.md §6.2), but stated in a condition it passed silently (found by an audit).  From a
+    condition file and from the screen's D alike it is accepted (inside the physical 0.5–2.5 t/m³
+    both refuse beyond) and the result carries the same caution, which calc, the report and the
+    screen print with the other cautions."""
+    v, c = demo
+    by_key = entry.set_tank_density(c, v.tank(tid), typed)
+    text = dump_condition(c).replace(f"[tanks.{tid}]\n", f"[tanks.{tid}]\ndensity_t_m3 = {typed}\n")
+    assert text != dump_condition(c)
+    from_file = parse_condition(text, "bdn.condition.toml", v)
+    assert from_file.tank_fill(tid) == by_key.tank_fill(tid)
+    for cond in (by_key, from_file):
+        r = evaluate(v, cond)
+        (w,) = _density_cautions(r)
+        assert (w.severity, w.message) == (
+            "caution", f"{tid}: density {typed} t/m³ stated for this condition is outside {usual} "
+                       "(a digit slipped, or the tank's kind?)")
+        assert w.message in " ".join(render_report_text(r, v, cond).replace("\n", " ").split())  # wrapped at 120
+
+
+def test_a_usual_stated_density_and_a_cargo_liquid_raise_no_caution(demo):
+    """The delivery note's 0.9912 for a fuel tank is usual; a cargo liquid's density is not judged
+    (its kind has no usual range: bounds.KIND_DENSITY_T_M3), even at 1.8."""
+    v, c = demo
+    c2 = entry.set_tank_density(c, v.tank("FO1P"), f"{BDN_RHO}")
+    c2 = entry.set_tank_density(c2, v.tank("CF1P"), "1.8")
+    assert _density_cautions(evaluate(v, c2)) == []
+    assert _density_cautions(evaluate(v, c)) == []

@@ -30,6 +30,7 @@ import math
 import numpy as np
 
 from deckload.core import gz as gzmod
+from deckload.core.bounds import kind_density_note
 from deckload.core.criteria import SET_TITLES, SETS_BY_TYPE, evaluate_criteria
 from deckload.core.free_surface import settings_departures
 from deckload.core.frozen import frozen
@@ -245,13 +246,9 @@ LONE_CELL_ANGLE_DEG = 2.0
 moves one by 9° or more)."""
 
 
-KIND_DENSITY_T_M3 = {"fuel_oil": (0.80, 1.010), "diesel": (0.80, 0.900), "lube_oil": (0.85, 0.95),
-                     "fresh_water": (0.99, 1.01), "ballast": (0.995, 1.035)}
-"""Warning: a tank's density outside the usual range of its kind (t/m³).  Residual fuel at most
-1.010 and distillate 0.900 at 15 °C (ISO 8217, standards.md §6.2); fresh water 1.000 and sea water
-1.025 (standards.md §6.2) with a little for temperature; gas oil from about 0.80 and lubricating
-oil 0.85–0.95 (from memory).  A ballast tank at 1.25 (for 1.025) added 2.7–5.4 t unseen (found
-by an audit).  Cargo liquids and 'other' are not judged."""
+# A tank's density outside the usual range of its kind: deckload.core.bounds.KIND_DENSITY_T_M3 (a
+# warning here; a density stated in a condition is judged alike, a caution in the result).
+
 
 EMPTY_FSI_RISE = 1.1
 """Warning: at the empty row (volume 0) the free surface is the limit from inside, the tank's
@@ -1016,11 +1013,10 @@ class _Audit:
             self.tank_density(i, t)
 
     def tank_density(self, i: int, t: Tank):
-        usual = KIND_DENSITY_T_M3.get(t.kind)
-        if usual is not None and not usual[0] <= t.density_t_m3 <= usual[1]:
+        why = kind_density_note(t.kind, t.density_t_m3)
+        if why is not None:
             self.add(WARNING, f"tank[{t.id}].density_t_m3", ("tank", i, "density_t_m3"), f"{t.density_t_m3:g} t/m³",
-                     f"outside {usual[0]:g}–{usual[1]:g} t/m³, the usual range of {t.kind.replace('_', ' ')} "
-                     "(a digit slipped, or the tank's kind?)", f"the booklet's tank list (tank {t.id})", "tank-density")
+                     why, f"the booklet's tank list (tank {t.id})", "tank-density")
 
     def tank_lone_fsm(self, i: int, t: Tank):
         """A lone mistyped free-surface cell (an FSM typed a decimal place out in one row)."""

@@ -71,6 +71,27 @@ tanks are commonly specified for a specific gravity of 2.5 (common practice, fro
 zinc/calcium bromide brines are about 2.3).  A density outside it is a typing error (a shifted
 point, kg/m³ for t/m³), not a liquid."""
 
+KIND_DENSITY_T_M3 = {"fuel_oil": (0.80, 1.010), "diesel": (0.80, 0.900), "lube_oil": (0.85, 0.95),
+                     "fresh_water": (0.99, 1.01), "ballast": (0.995, 1.035)}
+"""A tank's density outside the usual range of its kind (t/m³): a warning of the profile's audit
+(deckload.core.audit) for the profile's density, a caution in the result
+(:func:`kind_density_note`) for one stated in a condition (a file or the screen's D).  Residual fuel at most
+1.010 and distillate 0.900 at 15 °C (ISO 8217, standards.md §6.2); fresh water 1.000 and sea water
+1.025 (standards.md §6.2) with a little for temperature; gas oil from about 0.80 and lubricating
+oil 0.85–0.95 (from memory).  A ballast tank at 1.25 (for 1.025) added 2.7–5.4 t unseen (found
+by an audit).  Cargo liquids and 'other' are not judged."""
+
+
+def kind_density_note(kind: str, density_t_m3: float) -> str | None:
+    """Words for a density outside the usual range of the tank's ``kind``
+    (:data:`KIND_DENSITY_T_M3`), or None (inside it, or a kind not judged)."""
+    usual = KIND_DENSITY_T_M3.get(kind)
+    if usual is None or usual[0] <= density_t_m3 <= usual[1]:
+        return None
+    return (f"outside {usual[0]:g}–{usual[1]:g} t/m³, the usual range of {kind.replace('_', ' ')} "
+            "(a digit slipped, or the tank's kind?)")
+
+
 STOWAGE_FACTOR_RANGE_M3_T = (1.0 / 11.34, 1.0 / 0.0012)
 """A hold's stowage factor (m³ per tonne of cargo as stowed, broken stowage included): from
 0.0882 m³/t, the specific volume of solid lead (11.34 t/m³; the densest cargo carried in

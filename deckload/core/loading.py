@@ -12,7 +12,7 @@ from functools import lru_cache
 
 import numpy as np
 
-from deckload.core.bounds import below_limit, hold_level_range, over_limit, stowage_range
+from deckload.core.bounds import below_limit, hold_level_range, kind_density_note, over_limit, stowage_range
 from deckload.core.frozen import frozen
 from deckload.core.model import Condition, Hold, HoldLoad, Tank, TankFill, Vessel
 from deckload.core.result import ItemResult
@@ -279,3 +279,20 @@ def sum_weights(items: list[ItemResult], tanks: list[TankContents]) -> WeightSum
     if m <= 0.0:
         raise LoadingError("total displacement is zero or negative")
     return WeightSum(m, mx / m, mz / m, my / m)
+
+
+def stated_density_notes(vessel: Vessel, condition: Condition) -> list[tuple[str, str]]:
+    """(code, message) cautions for each density stated in ``condition`` (a file's ``density_t_m3``
+    or the screen's D) outside the usual range of its tank's kind: the same range and words as the
+    profile audit's warning on a tank's own density (:func:`deckload.core.bounds.kind_density_note`).
+    A ballast tank stated at 1.25 t/m³ for 1.025 adds 2.7–5.4 t unseen (found by an audit); the
+    physical range 0.5–2.5 t/m³ is refused where it is read, here only a doubt is said."""
+    out = []
+    for fill in condition.tanks:
+        if fill.density_t_m3 is None or fill.tank_id not in vessel.tank_index:
+            continue
+        tank = vessel.tank(fill.tank_id)
+        why = kind_density_note(tank.kind, fill.density_t_m3)
+        if why is not None:
+            out.append(("tank-density", f"{tank.id}: density {fill.density_t_m3:g} t/m³ stated for this condition is {why}"))
+    return out

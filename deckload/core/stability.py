@@ -41,7 +41,8 @@ from deckload.core.free_surface import (BASIS_NONE, TankFreeSurface, band_text, 
                                         transfer_moment_m4)
 from deckload.core.frozen import frozen
 from deckload.core.hydrostatics import Upright, draft_at, fresh_water_allowance_m, mark_density_t_m3, permitted_draft_m
-from deckload.core.loading import LoadingError, TankContents, WeightSum, hold_item, resolve_tanks, sum_weights
+from deckload.core.loading import (LoadingError, TankContents, WeightSum, hold_item, resolve_tanks, stated_density_notes,
+                                   sum_weights)
 from deckload.core.model import Condition, LoadLine, Vessel, effective_constants
 from deckload.core.result import CriterionResult, ItemResult, NotAssessed, Result, TankResult, Warning
 from deckload.core.tables import OutOfRangeError, bracket, interp, lerp_row
@@ -207,7 +208,8 @@ def stage_weights(vessel: Vessel, condition: Condition) -> Weights:
     levelled, s_done, s_not = level_soundings(vessel, condition)
     contents = resolve_tanks(vessel, levelled)
     total = sum_weights(items, contents)
-    notes = tuple(Warning(code, msg, "caution") for code, msg in sounding_note(condition, s_done, s_not))
+    notes = tuple(Warning(code, msg, "caution") for code, msg in
+                  sounding_note(condition, s_done, s_not) + stated_density_notes(vessel, condition))
     return Weights(tuple(items), tuple(contents), total, notes)
 
 
