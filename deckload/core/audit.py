@@ -328,36 +328,39 @@ def lone_cell(x, y, floor) -> tuple[int, float, float] | None:
 
 def _second_differences(x, y) -> np.ndarray:
     """Second divided differences of y over x at the inner points: 2·[(y₊−y)/h₊ − (y−y₋)/h₋]/(h₋+h₊),
-    the second derivative of the parabola through three neighbours (any spacing; derived)."""
+    the second derivative of the parabola through three neighbours (any spacing; derived).  A 2-D
+    ``y`` is taken column by column (x along its rows)."""
     x = np.asarray(x, dtype=float)
     y = np.asarray(y, dtype=float)
     h1, h2 = np.diff(x)[:-1], np.diff(x)[1:]
+    if y.ndim == 2:
+        h1, h2 = h1[:, None], h2[:, None]
     return 2.0 * ((y[2:] - y[1:-1]) / h2 - (y[1:-1] - y[:-2]) / h1) / (h1 + h2)
 
 
-def _leave_out(x, y, j: int) -> float | None:
-    """y at x[j] from its neighbours alone: the polynomial through up to two neighbours on each side
-    (Lagrange), or None without a neighbour on each side.  For a smooth curve a cubic through four
-    neighbours errs by h⁴·(fourth derivative)-sized amounts, far below a row's step (derived)."""
+def _leave_out(x, j: int) -> tuple[list[int], np.ndarray] | None:
+    """The value at x[j] from its neighbours alone, as (indices, weights): y_j ≈ Σ w·y[indices], the
+    polynomial through up to two neighbours on each side (Lagrange), or None without a neighbour on
+    each side.  For a smooth curve a cubic through four neighbours errs by h⁴·(fourth
+    derivative)-sized amounts, far below a row's step (derived)."""
+    x = np.asarray(x, dtype=float)
     idx = [k for k in (j - 2, j - 1, j + 1, j + 2) if 0 <= k < len(x)]
     if not any(k < j for k in idx) or not any(k > j for k in idx):
         return None
-    p = 0.0
-    for a in idx:
-        w = 1.0
-        for b in idx:
-            if b != a:
-                w *= (x[j] - x[b]) / (x[a] - x[b])
-        p += w * float(y[a])
-    return p
+    w = np.ones(len(idx))
+    for a, ka in enumerate(idx):
+        for kb in idx:
+            if kb != ka:
+                w[a] *= (x[j] - x[kb]) / (x[ka] - x[kb])
+    return idx, w
 
 
 def kn_repeated_rows(disp, kn, heel) -> list[tuple[int, int]]:
     """Pairs (copy, original) of KN rows equal within :data:`KN_ROW_REPEAT_M` at every heel above 0°.
 
     Of two equal rows the copy is the one further from the curve through the rows around the pair
-    (:func:`_leave_out` along the displacement with both left out); without rows on both sides, the
-    later row."""
+    (linear interpolation along the displacement with both left out); without rows on both sides,
+    the later row."""
     disp = np.asarray(disp, dtype=float)
     kn = np.asarray(kn, dtype=float)
     heeled = np.asarray(heel, dtype=float) > 0.0
@@ -396,15 +399,12 @@ def kn_swapped_rows(disp, kn) -> tuple[int, float] | None:
     for i in range(n - 1):
         if float(np.max(np.abs(kn[i] - kn[i + 1]))) <= KN_SLIP_FLOOR_M:
             continue
-        inner = [k for k in range(i - 1, i + 3) if 1 <= k <= n - 2]
-        swapped = kn.copy()
-        swapped[[i, i + 1]] = kn[[i + 1, i]]
-
-        def rough(t):
-            return sum(float(np.sum(_second_differences(disp, t[:, j])[[k - 1 for k in inner]] ** 2))
-                       for j in range(kn.shape[1]))
-        after = rough(swapped)
-        before = rough(kn)
+        lo, hi = max(i - 2, 0), min(i + 4, n)  # the rows whose second differences the swap changes
+        window = kn[lo:hi]
+        swapped = window.copy()
+        swapped[[i - lo, i + 1 - lo]] = window[[i + 1 - lo, i - lo]]
+        after = float(np.sum(_second_differences(disp[lo:hi], swapped) ** 2))
+        before = float(np.sum(_second_differences(disp[lo:hi], window) ** 2))
         gain = before / after if after > 0.0 else math.inf
         if gain >= KN_SLIP_GAIN and (best is None or gain > best[1]):
             best = (i, gain)
@@ -428,10 +428,10 @@ def kn_shifted_column(heel, kn) -> tuple[int, int, float, float] | None:
         return None
     best = None
     for j in range(1, m - 1):
-        pred = [_leave_out(heel, kn[i], j) for i in range(n)]
-        if any(p is None for p in pred):
+        near = _leave_out(heel, j)
+        if near is None:
             continue
-        pred = np.asarray(pred)
+        pred = kn[:, near[0]] @ near[1]
         for step in (1, -1):
             rows = np.arange(0, n - 1) if step == 1 else np.arange(1, n)
             typed = kn[rows, j] - pred[rows]
