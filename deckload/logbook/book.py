@@ -10,7 +10,7 @@ next chained line (:mod:`.records`) and returns only once it is on disk.
 from __future__ import annotations
 
 import os
-from datetime import datetime
+from datetime import datetime, timedelta
 from pathlib import Path
 from typing import Callable
 
@@ -21,7 +21,14 @@ from deckload.io.paths import vessel_slug
 from deckload.io.textsafe import control_char, escaped
 from deckload.logbook import lock as locking
 from deckload.logbook.chain import GENESIS_SHA256, VerifyReport, find_anchor, head_disagreement, verify_lines
-from deckload.logbook.clock import configured_offset, format_offset, format_utc, parse_offset, utc_now
+from deckload.logbook.clock import (
+    ShipOffsetError,
+    configured_offset,
+    format_offset,
+    format_utc,
+    parse_offset,
+    utc_now,
+)
 from deckload.logbook.lock import LogLockedError, WriterLock
 from deckload.logbook.records import (
     FORMAT,
@@ -203,7 +210,9 @@ class Logbook:
         """Append one entry; returns only after the line is on disk (write, fsync).
 
         Raises :class:`LogLockedError` when read-only and ``ValueError`` for bad input
-        (unknown kind, initials not 1–4 letters, empty change text, data not JSON).
+        (unknown kind, initials not 1–4 letters, empty change text, data not JSON, the PC's time
+        zone beyond ±14:00, any line the reader would refuse): the line is read back as verify
+        reads it before anything is written.
         """
         if self.readonly or self._store is None or self._store.fd is None:
             raise LogLockedError(f"{self.path.name}: {self.readonly_reason or 'log is closed'}")
@@ -227,6 +236,8 @@ class Logbook:
         if now.tzinfo is None:
             raise ValueError("the clock returned a time without a timezone")
         offset = parse_offset(self.ship_clock) if self.ship_clock else configured_offset()
+        if not self.ship_clock and not os.environ.get("DECKLOAD_SHIP_OFFSET"):
+            offset = _local_offset_checked(offset)
         record = {
             "format": FORMAT,
             "seq": self._last_seq + 1,
@@ -249,6 +260,15 @@ class Logbook:
         line = text.encode("utf-8")
         if len(line) > MAX_LOG_LINE_BYTES:
             raise ValueError(f"the entry would be {len(line)} bytes, more than the {MAX_LOG_LINE_BYTES} allowed")
+        # The line is read back as every view and verify will read it BEFORE it is written: a line
+        # the reader refuses would stand in the chain for ever as damage (nothing can remove it).
+        try:
+            entry = _entry_from_line(line, record["seq"])
+        except LogFormatError as exc:
+            raise ValueError(f"the entry would not read back ({exc}); nothing was written") from None
+        if entry.vessel != self.vessel_name:  # (verify_lines: every entry records this log's vessel)
+            raise ValueError(f"the vessel name {escaped(self.vessel_name)!r} would not read back as written "
+                             "(a control character); nothing was written")
         self._store.append_line(line)
         self._last_seq += 1
         self._last_sha = sha256_hex(line)
@@ -258,7 +278,7 @@ class Logbook:
             # The entry itself is on disk; a head record left behind is brought forward at
             # the next open (it still names an entry the later lines chain from).
             self.head_problem = f"head record not updated: {exc}"
-        return _entry_from_line(line, self._last_seq)
+        return entry
 
     # ----------------------------------------------------------------- reading
 
@@ -346,6 +366,21 @@ class Logbook:
             self.close()
         except Exception:
             pass
+
+
+def _local_offset_checked(offset: timedelta) -> timedelta:
+    """The PC's time zone offset as the ship's clock, refused beyond ±14:00 (what the reader takes:
+    ``clock.parse_offset``), with the setting to blame and the way round it named."""
+    text = format_offset(offset)
+    try:
+        return parse_offset(text)
+    except ShipOffsetError:
+        tz = os.environ.get("TZ")
+        where = f"TZ={tz!r}" if tz is not None else "TZ is not set: /etc/localtime"
+        raise ShipOffsetError(
+            f"the PC's time zone ({where}) puts the ship's clock at {text} from UTC, outside -14:00 … +14:00, "
+            "which no ship's clock reads; give the ship's clock with --ship-offset +HH:MM (or "
+            "DECKLOAD_SHIP_OFFSET), or correct the time zone; nothing was written") from None
 
 
 def _other_vessel(lines: list[bytes], vessel_name: str) -> tuple[int, str] | None:

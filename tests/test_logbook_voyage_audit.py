@@ -1,0 +1,92 @@
+"""The voyage log against what a ship's PC and a copy to a USB stick do to it (found by an audit of
+the log): a time zone beyond ±14:00, a copy without its final line end, Windows line endings or a
+byte-order mark, a clock set back, recording into a log that fails verification, file names whose
+case changed, a log folder that cannot be written, and the printout for signature."""
+
+from __future__ import annotations
+
+import time
+from datetime import datetime, timezone
+from pathlib import Path
+
+import pytest
+
+from deckload.cli.main import main
+from deckload.io.paths import DEMO_PROFILE
+from deckload.logbook import Logbook
+
+VESSEL = "Demo Islander"
+LOG = "demo-islander.log.jsonl"
+HEAD = "demo-islander.log.head.json"
+
+
+@pytest.fixture
+def logs(tmp_path) -> Path:
+    return tmp_path / "logs"
+
+
+@pytest.fixture
+def time_zone(monkeypatch):
+    """Set the PC's time zone (TZ) for the test; the process's own is put back afterwards."""
+    def set_tz(tz: str) -> None:
+        monkeypatch.setenv("TZ", tz)
+        time.tzset()
+
+    monkeypatch.delenv("DECKLOAD_SHIP_OFFSET", raising=False)
+    yield set_tz
+    monkeypatch.undo()
+    time.tzset()
+
+
+def record(logs: Path, condition: str = "departure", *extra: str) -> int:
+    return main(["log", "--dir", str(logs), "record", str(DEMO_PROFILE), condition, "--by", "JM", *extra])
+
+
+def files(logs: Path) -> dict[str, bytes]:
+    return {p.name: p.read_bytes() for p in sorted(logs.iterdir()) if not p.name.endswith(".lock")}
+
+
+# --------------------------------------------------------------------------- 1. offset beyond ±14:00
+
+
+def test_a_time_zone_beyond_14_hours_is_refused_before_anything_is_written(logs, time_zone, capsys):
+    """TZ=SHIP-15 (POSIX: 15 h east of UTC) gave '+15:00', which the reader refuses: the line and the
+    head were written, then 'cannot record: line 2 …', and the log failed verification for ever."""
+    assert record(logs) == 0
+    before = files(logs)
+    capsys.readouterr()
+    time_zone("SHIP-15")
+    assert record(logs, "arrival") == 1
+    err = capsys.readouterr().err
+    assert "TZ='SHIP-15'" in err and "+15:00" in err and "--ship-offset" in err and "Traceback" not in err
+    assert files(logs) == before  # nothing written: neither the line nor the head
+    assert record(logs, "arrival", "--ship-offset", "+10:00") == 0  # the way round it named works
+    assert main(["log", "--dir", str(logs), "verify"]) == 0
+
+
+def test_a_line_the_reader_would_refuse_is_never_written(logs):
+    """Every entry is read back as verify reads it before it is written: a clock at the end of the
+    calendar with the ship 14 h ahead is a ship's time past year 9999, which the reader refuses."""
+    end = datetime(9999, 12, 31, 23, 0, tzinfo=timezone.utc)
+    with Logbook.open(logs, VESSEL, ship_offset="+14:00", clock=lambda: end) as book:
+        with pytest.raises(ValueError, match="beyond the calendar.*nothing was written"):
+            book.append(kind="remark", by="JM", change_text="test", change_data={}, result=None, condition=None)
+    assert (logs / LOG).read_bytes() == b""
+    with Logbook.open(logs, VESSEL, readonly=True) as book:
+        assert book.verify().ok
+
+
+async def test_the_loading_screen_says_so_and_stays_open(tmp_path, time_zone):
+    """The screen's record (s) gets the same refusal as a message; the screen stays, nothing is written."""
+    from vessel_factories import pilot_app
+
+    app = pilot_app(tmp_path, log_dir=tmp_path / "logs", officer="TS")
+    async with app.run_test(size=(120, 40)) as pilot:
+        time_zone("SHIP-15")
+        await pilot.press("s", "enter")
+        await pilot.pause()
+        said = " ".join(str(n.message) for n in app._notifications)
+        assert "NOT RECORDED" in said and "TZ='SHIP-15'" in said and "--ship-offset" in said
+        assert app.is_running and app.screen.id != "log-screen"
+    with Logbook.open(tmp_path / "logs", app.session.vessel.particulars.name, readonly=True) as book:
+        assert book.entries() == [] and book.verify().ok
