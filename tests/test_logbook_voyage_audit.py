@@ -90,3 +90,51 @@ async def test_the_loading_screen_says_so_and_stays_open(tmp_path, time_zone):
         assert app.is_running and app.screen.id != "log-screen"
     with Logbook.open(tmp_path / "logs", app.session.vessel.particulars.name, readonly=True) as book:
         assert book.entries() == [] and book.verify().ok
+
+
+# --------------------------------------------------------------------------- 2. no final line end
+
+
+@pytest.fixture
+def three(logs) -> Path:
+    """A clean log of three entries recorded from the demo's stock conditions."""
+    for c in ("departure", "midvoyage", "arrival"):
+        assert record(logs, c) == 0
+    return logs
+
+
+def test_a_copy_without_its_final_line_end_is_intact_and_the_next_record_restores_it(three, capsys):
+    """The last line whole (its SHA-256 the head's) but its '\\n' gone: verify said torn, show dropped
+    the entry, record and verify --recover refused."""
+    log = three / LOG
+    whole = log.read_bytes()
+    log.write_bytes(whole[:-1])
+    capsys.readouterr()
+    assert main(["log", "--dir", str(three), "verify"]) == 0
+    out = capsys.readouterr().out
+    assert "OK — 3 entries" in out and "note: line 3: complete, but the file ends without its line end" in out
+    assert main(["log", "--dir", str(three), "show"]) == 0
+    assert "condition recorded: Arrival" in capsys.readouterr().out
+    with Logbook.open(three, VESSEL, readonly=True) as book:
+        assert [e.seq for e in book.entries()] == [1, 2, 3]
+        assert book.find(book.entries()[-1].sha256) == (3, 3)  # a paper copy's anchor is found
+    assert main(["log", "--dir", str(three), "verify", "--recover"]) == 0
+    out = capsys.readouterr().out
+    assert "repaired: demo-islander.log.jsonl: line 3" in out and "OK — 3 entries" in out
+    assert log.read_bytes() == whole  # just the line end back, nothing else
+    log.write_bytes(whole[:-1])
+    assert record(three, "departure") == 0
+    assert "repaired" in capsys.readouterr().err
+    assert log.read_bytes().startswith(whole) and log.read_bytes().count(b"\n") == 4
+    assert main(["log", "--dir", str(three), "verify"]) == 0
+
+
+def test_a_torn_last_line_is_still_torn(three, capsys):
+    """Only the line the head names is taken whole: a line cut short is still set aside, not ended."""
+    log = three / LOG
+    whole = log.read_bytes()
+    log.write_bytes(whole[:-300])
+    assert main(["log", "--dir", str(three), "verify"]) == 1
+    assert "incomplete last line" in capsys.readouterr().out
+    with Logbook.open(three, VESSEL, readonly=True) as book:
+        assert len(book.entries()) == 2

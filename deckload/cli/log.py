@@ -103,6 +103,8 @@ def _record(args) -> int:
     try:
         if book.recovered_torn is not None:
             print(f"deckload: recovered: {book.recovered_torn}", file=sys.stderr)
+        if book.restored_line_end is not None:
+            print(f"deckload: repaired: {restored_words(book)}", file=sys.stderr)
         if book.readonly:
             print(f"deckload: cannot record: {book.path}: {book.readonly_reason}", file=sys.stderr)
             return 1
@@ -211,6 +213,12 @@ def entry_row(e: LogEntry) -> dict[str, str]:
         "prev_sha256": e.prev_sha256,
         "sha256": e.sha256,
     }
+
+
+def restored_words(book: Logbook) -> str:
+    """What opening a log for writing did to a whole last line that had lost its line end."""
+    return (f"{book.path.name}: line {book.restored_line_end} was whole but had lost its line end (a copy "
+            "without it; its SHA-256 is the head record's): the line end was restored, nothing else changed")
 
 
 def broken_words(path: Path, problems: list[str]) -> str:
@@ -371,6 +379,8 @@ def _verify(args) -> int:
             with open_one() as b:
                 if b.recovered_torn is not None:
                     print(f"recovered: {b.recovered_torn}")
+                if b.restored_line_end is not None:
+                    print(f"repaired: {restored_words(b)}")
                 if b.readonly and not b.path.exists():
                     print(f"{b.path.name}: missing; nothing to recover")
                 elif b.readonly:

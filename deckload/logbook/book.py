@@ -20,7 +20,14 @@ from deckload.io.limits import MAX_LOG_LINE_BYTES
 from deckload.io.paths import vessel_slug
 from deckload.io.textsafe import control_char, escaped
 from deckload.logbook import lock as locking
-from deckload.logbook.chain import GENESIS_SHA256, VerifyReport, find_anchor, head_disagreement, verify_lines
+from deckload.logbook.chain import (
+    GENESIS_SHA256,
+    VerifyReport,
+    find_anchor,
+    head_disagreement,
+    verify_lines,
+    whole_unterminated,
+)
 from deckload.logbook.clock import (
     ShipOffsetError,
     configured_offset,
@@ -57,6 +64,8 @@ class Logbook:
     path: Path
     vessel_name: str
     recovered_torn: TornRecovery | None
+    restored_line_end: int | None
+    """The line whose lost line end (a copy without it) was restored at opening, else None."""
     ship_clock: str | None
 
     def __init__(self) -> None:  # use Logbook.open
@@ -131,6 +140,7 @@ class Logbook:
         self._store = LogStore(self.path, self.head_path)
         self._lock = WriterLock(self.lock_path)
         self.recovered_torn = None
+        self.restored_line_end = None
         self.ship_clock = format_offset(parse_offset(ship_offset)) if ship_offset else None
         if clock is not None:
             self._clock = clock
@@ -166,7 +176,8 @@ class Logbook:
             self._write_head()
         lines, torn = self._store.scan()
         head = self._store.read_head()
-        problem = head_disagreement(head, lines)
+        whole = whole_unterminated(torn, head)
+        problem = head_disagreement(head, [*lines, torn] if whole else lines)
         if problem is not None:
             self._write_nothing(f"{problem}; nothing will be written to this log until that is looked into "
                                 f"(run 'deckload log verify'; to start a fresh log, move {self.path.name} and "
@@ -180,7 +191,12 @@ class Logbook:
                     f"{self.vessel_name!r}; nothing will be recorded in it (run 'deckload log verify'; to start "
                     f"this vessel's log, move {self.path.name} and {self.head_path.name} aside)")
                 return
-        if torn:
+        if whole:
+            # The last line is the one the head names, whole: a copy dropped its line end only.
+            self._store.end_last_line()
+            lines.append(torn)
+            self.restored_line_end = len(lines)
+        elif torn:
             self.recovered_torn = self._store.set_aside_torn(torn, len(lines) + 1, self._clock())
         if lines:
             self._last_sha = sha256_hex(lines[-1])
@@ -288,12 +304,16 @@ class Logbook:
     def find(self, anchor_text: str) -> tuple[int, int] | None:
         """Where a printed copy's anchor (SHA-256 or its first 12+ hex digits, optionally 'N:HASH')
         is in this log: (line number, entry number), else None.  ValueError for a malformed anchor."""
-        return find_anchor(_split_lines(self._read())[0], anchor_text)
+        lines, tail = _split_lines(self._read())
+        if tail and whole_unterminated(tail, self._store.read_head()):
+            lines.append(tail)
+        return find_anchor(lines, anchor_text)
 
     def entries(self) -> list[LogEntry]:
         """Every complete, readable entry, oldest first.
 
-        An unterminated last line is left out (it is being written, or torn).  An
+        An unterminated last line is left out (it is being written, or torn), unless it is the
+        whole line the head record names (a copy dropped only its line end).  An
         unreadable line is left out too and named in :attr:`skipped`, so a view can
         say so; :meth:`verify` gives the full account.
         """
@@ -302,9 +322,16 @@ class Logbook:
         except FileNotFoundError:
             self.skipped, self.skipped_lines = [], []
             return []
-        key = (st.st_size, st.st_mtime_ns)
+        try:
+            hst = os.stat(self.head_path)
+            head_key = (hst.st_size, hst.st_mtime_ns, hst.st_ino)
+        except OSError:
+            head_key = None
+        key = (st.st_size, st.st_mtime_ns, head_key)
         if self._cache is None or self._cache[0] != key:
-            lines, _tail = _split_lines(self._read())
+            lines, tail = _split_lines(self._read())
+            if tail and whole_unterminated(tail, self._store.read_head()):
+                lines.append(tail)  # a whole last line whose line end a copy dropped (verify notes it)
             out: list[LogEntry] = []
             skipped: list[tuple[int, str]] = []
             for i, line in enumerate(lines, start=1):

@@ -62,6 +62,11 @@ def verify_lines(
     """
     problems: list[str] = []
     notes: list[str] = []
+    if whole_unterminated(tail, head):
+        lines, tail = [*lines, tail], b""
+        notes.append(f"line {len(lines)}: complete, but the file ends without its line end (copied or saved "
+                     "without it); its SHA-256 is the one the head record names, so the entry is intact; "
+                     "the next record (or 'deckload log verify --recover') restores the line end")
     prev_sha = GENESIS_SHA256
     seqs: list[int | None] = []
     unsound: set[int] = set()  # lines unreadable, or not chained or numbered from the line before
@@ -177,6 +182,14 @@ def verify_lines(
         entries=n,
         last_sha256=sha256_hex(lines[-1]) if lines else GENESIS_SHA256,
     )
+
+
+def whole_unterminated(tail: bytes, head: dict | None) -> bool:
+    """True when the log's unterminated end is the whole line the head record names (its SHA-256 is
+    the head's): a copy dropped only the final line end, and the entry is intact.  A torn write
+    never matches: the head is rewritten only after the whole line and its end are on disk."""
+    sha = head.get("sha256") if isinstance(head, dict) else None
+    return bool(tail) and isinstance(sha, str) and sha == sha256_hex(tail)
 
 
 def _line_of_seq(seqs: list[int | None], seq: int) -> int | None:

@@ -89,6 +89,12 @@ class LogStore:
         os.fsync(self.fd)
         return TornRecovery(self.path, side, line_no, len(torn))
 
+    def end_last_line(self) -> None:
+        """Append the line end a copy dropped after the last (whole) line, then fsync: one byte
+        written on ``O_APPEND``, nothing else of the file touched."""
+        _write_all(self.fd, b"\n")
+        os.fsync(self.fd)
+
     def append_line(self, line: bytes) -> None:
         """Write ``line`` and its line end, then fsync; on failure cut back to the last good line."""
         size_before = os.fstat(self.fd).st_size
