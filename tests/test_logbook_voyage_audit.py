@@ -138,3 +138,68 @@ def test_a_torn_last_line_is_still_torn(three, capsys):
     assert "incomplete last line" in capsys.readouterr().out
     with Logbook.open(three, VESSEL, readonly=True) as book:
         assert len(book.entries()) == 2
+
+
+# --------------------------------------------------------------------------- 3. CR LF and BOM
+
+
+def _crlf(data: bytes) -> bytes:
+    return data.replace(b"\n", b"\r\n")
+
+
+def _bom(data: bytes) -> bytes:
+    return b"\xef\xbb\xbf" + data
+
+
+@pytest.mark.parametrize("copy, said", [(_crlf, "Windows line ends (CR LF)"), (_bom, "byte-order mark (BOM)")])
+def test_a_windows_copy_is_named_as_such_refused_for_recording_and_repaired(three, capsys, copy, said):
+    """CR LF line ends read as every line edited, a BOM as line 1 not valid JSON; a BOM log was even
+    recorded into (a line of another kind among them)."""
+    log = three / LOG
+    written = log.read_bytes()
+    log.write_bytes(copy(written))
+    capsys.readouterr()
+    assert main(["log", "--dir", str(three), "verify"]) == 1
+    out = capsys.readouterr().out
+    assert "1 problem(s)" in out and "changed by a copy, not by an edit" in out and said in out
+    assert "every entry is intact" in out and "verify --recover" in out
+    assert "edited" not in out.replace("not by an edit", "") and "not valid JSON" not in out
+    assert main(["log", "--dir", str(three), "show"]) == 1  # (the file is not as written until repaired)
+    shown = capsys.readouterr().out
+    assert "DAMAGED" not in shown and "condition recorded: Arrival" in shown
+    assert record(three, "arrival") == 1
+    assert said in capsys.readouterr().err and log.read_bytes() == copy(written)  # refused, untouched
+    assert main(["log", "--dir", str(three), "verify", "--recover"]) == 0
+    out = capsys.readouterr().out
+    (kept,) = three.glob(f"{LOG}.as-copied-*.bak")
+    assert f"repaired: {LOG}" in out and kept.name in out and "OK — 3 entries" in out
+    assert log.read_bytes() == written and kept.read_bytes() == copy(written)
+    assert record(three, "arrival") == 0 and main(["log", "--dir", str(three), "verify"]) == 0
+
+
+def test_a_copy_that_also_lost_an_entry_is_not_rewritten(three, capsys):
+    """With the CRs taken out, the other problems stand, and --recover rewrites nothing."""
+    log = three / LOG
+    lines = log.read_bytes().splitlines(keepends=True)
+    damaged = _crlf(lines[0] + lines[2])  # entry #2 removed, then copied
+    log.write_bytes(damaged)
+    capsys.readouterr()
+    assert main(["log", "--dir", str(three), "verify"]) == 1
+    out = capsys.readouterr().out
+    assert "changed by a copy" in out and "the problems below remain" in out
+    assert "line 2: entry #3 follows entry #1" in out
+    assert main(["log", "--dir", str(three), "verify", "--recover"]) == 1
+    assert "not rewritten" in capsys.readouterr().out
+    assert log.read_bytes() == damaged and not list(three.glob("*.bak"))
+
+
+def test_the_loading_screen_does_not_record_into_a_windows_copy(three, tmp_path):
+    from deckload.ui.launch import open_journal
+
+    log = three / LOG
+    log.write_bytes(_crlf(log.read_bytes()))
+    journal = open_journal(three, VESSEL)
+    try:
+        assert not journal.writable and "CR LF" in journal.problem and "verify --recover" in journal.problem
+    finally:
+        journal.logbook.close()

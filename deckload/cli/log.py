@@ -372,13 +372,17 @@ def _verify(args) -> int:
     directory = _log_dir(args)
     if getattr(args, "recover", False):
         if getattr(args, "vessel", None):
-            opened = [lambda: Logbook.open(directory, args.vessel)]
+            opened = [lambda: Logbook.open(directory, args.vessel, repair_copy=True)]
         else:  # the files found, each as itself: never a file named from what is written inside one
-            opened = [lambda p=p: Logbook.open_file(p, readonly=False) for p in log_files(directory)]
+            opened = [lambda p=p: Logbook.open_file(p, readonly=False, repair_copy=True) for p in log_files(directory)]
         for open_one in opened:
             with open_one() as b:
                 if b.recovered_torn is not None:
                     print(f"recovered: {b.recovered_torn}")
+                if b.repaired_copy is not None:
+                    changes, kept = b.repaired_copy
+                    print(f"repaired: {b.path.name}: {changes} by a copy; {changes.them} taken out (the "
+                          f"entries were intact without them); the file as found is kept as {kept.name}")
                 if b.restored_line_end is not None:
                     print(f"repaired: {restored_words(b)}")
                 if b.readonly and not b.path.exists():

@@ -8,7 +8,10 @@ File layout, in the log folder (``deckload.io.paths.log_dir``), per vessel:
   notice that the newest entries were removed or the last one edited, which a hash chain
   alone cannot (nothing follows the last line to record its hash);
 * ``<slug>.log.lock`` — the writer's lock file (``fcntl.flock``); it holds the writer's pid;
-* ``<slug>.log.jsonl.torn-<UTC>.txt`` — a torn last line set aside at start.
+* ``<slug>.log.jsonl.torn-<UTC>.txt`` — a torn last line set aside at start;
+* ``<slug>.log.jsonl.as-copied-<UTC>.bak`` — the log as a copy left it (a BOM before line 1, CR LF
+  line ends), kept when ``log verify --recover`` takes them out (only when the entries are intact
+  without them; until then nothing is recorded in it).
 
 Each line holds (format ``deckload-log-1``)::
 

@@ -10,7 +10,7 @@ next chained line (:mod:`.records`) and returns only once it is on disk.
 from __future__ import annotations
 
 import os
-from datetime import datetime, timedelta
+from datetime import datetime, timedelta, timezone
 from pathlib import Path
 from typing import Callable
 
@@ -49,7 +49,7 @@ from deckload.logbook.records import (
     summarise,
     validate_initials,
 )
-from deckload.logbook.storage import LogStore, TornRecovery, _split_lines
+from deckload.logbook.storage import CopyChanges, LogStore, TornRecovery, _split_lines, undo_copy
 
 
 MAX_TEXT_CHARS = 2000
@@ -65,6 +65,8 @@ class Logbook:
     vessel_name: str
     recovered_torn: TornRecovery | None
     restored_line_end: int | None
+    repaired_copy: tuple[CopyChanges, Path] | None
+    """What a copy had changed and where the file as found was kept, when opening repaired it."""
     """The line whose lost line end (a copy without it) was restored at opening, else None."""
     ship_clock: str | None
 
@@ -95,19 +97,23 @@ class Logbook:
         readonly: bool = False,
         ship_offset: str | None = None,
         clock: Callable[[], datetime] | None = None,
+        repair_copy: bool = False,
     ) -> "Logbook":
         """Open (creating the folder and file for a writer) the log of ``vessel_name``.
 
         ``ship_offset`` ('+HH:MM') fixes the ship's clock offset; otherwise
         ``$DECKLOAD_SHIP_OFFSET``, otherwise the local timezone.  ``clock`` replaces
         :func:`utc_now` (tests).  If another process holds the writer's lock the log
-        opens read-only with :attr:`readonly_reason` saying so.
+        opens read-only with :attr:`readonly_reason` saying so.  A log a copy changed (a BOM,
+        CR LF line ends: :func:`~deckload.logbook.storage.undo_copy`) opens read-only too, unless
+        ``repair_copy`` (``log verify --recover``) and its entries are intact without them: it is
+        then rewritten without them, the file as found kept beside it (:attr:`repaired_copy`).
         """
         return cls._open(Path(directory), vessel_slug(vessel_name), vessel_name, readonly=readonly,
-                         ship_offset=ship_offset, clock=clock)
+                         ship_offset=ship_offset, clock=clock, repair_copy=repair_copy)
 
     @classmethod
-    def open_file(cls, path: Path, *, readonly: bool = True) -> "Logbook":
+    def open_file(cls, path: Path, *, readonly: bool = True, repair_copy: bool = False) -> "Logbook":
         """Open the log file ``path`` found in a log folder (``<slug>.log.jsonl``), for reading and
         checking (``readonly=False`` takes the writer's lock to set a torn tail aside; it never records).
 
@@ -120,7 +126,7 @@ class Logbook:
         slug = path.name.removesuffix(".log.jsonl")
         if not readonly and not path.exists():
             readonly = True  # (a writer would create it: a missing log is evidence verify reports)
-        self = cls._open(path.parent, slug, slug, readonly=readonly, by_file=True)
+        self = cls._open(path.parent, slug, slug, readonly=readonly, by_file=True, repair_copy=repair_copy)
         try:
             self.vessel_name = next((e.vessel for e in self.entries() if vessel_slug(e.vessel) == slug), slug)
         except BaseException:
@@ -130,7 +136,8 @@ class Logbook:
 
     @classmethod
     def _open(cls, directory: Path, slug: str, vessel_name: str, *, readonly: bool, ship_offset: str | None = None,
-              clock: Callable[[], datetime] | None = None, by_file: bool = False) -> "Logbook":
+              clock: Callable[[], datetime] | None = None, by_file: bool = False,
+              repair_copy: bool = False) -> "Logbook":
         self = cls()
         self.by_file = by_file
         self.vessel_name = vessel_name
@@ -141,6 +148,8 @@ class Logbook:
         self._lock = WriterLock(self.lock_path)
         self.recovered_torn = None
         self.restored_line_end = None
+        self.repaired_copy = None
+        self._repair_copy = repair_copy
         self.ship_clock = format_offset(parse_offset(ship_offset)) if ship_offset else None
         if clock is not None:
             self._clock = clock
@@ -174,8 +183,10 @@ class Logbook:
             # The head record exists from the start (seq 0, the genesis hash), so that a log
             # with entries and no head record always means the head was deleted.
             self._write_head()
-        lines, torn = self._store.scan()
         head = self._store.read_head()
+        if not self._undo_copy(head):
+            return
+        lines, torn = self._store.scan()
         whole = whole_unterminated(torn, head)
         problem = head_disagreement(head, [*lines, torn] if whole else lines)
         if problem is not None:
@@ -206,6 +217,46 @@ class Logbook:
                 self._last_seq = len(lines)
             if head is None or head.get("seq") != self._last_seq:
                 self._write_head()
+
+    def _undo_copy(self, head: dict | None) -> bool:
+        """Under the lock: False (and read-only, saying why) when a copy changed the log's line ends
+        or put a BOM before it; with ``repair_copy`` and the entries intact without them, the log is
+        rewritten without them first, the file as found kept beside it.  Never mix line ends."""
+        norm, changes = undo_copy(self._store.read_open())
+        if changes is None:
+            return True
+        if not self._repair_copy:
+            self._write_nothing(f"{changes} by a copy; nothing is recorded in it until {changes.them} are taken out "
+                                "(never a line of another kind among them): run 'deckload log verify' (it says "
+                                "whether the entries are intact without them), then 'deckload log verify --recover'")
+            return False
+        rep = self._verify_data(*_split_lines(norm), head, writer_active=False)
+        if rep.problems:
+            self._write_nothing(f"{changes} by a copy, but with {changes.them} taken out the log still "
+                                f"fails verification ({len(rep.problems)} problem(s)): not rewritten; run "
+                                "'deckload log verify' and look into them first")
+            return False
+        stamp = self._clock().astimezone(timezone.utc).strftime("%Y%m%dT%H%M%SZ")
+        keep = self.path.with_name(f"{self.path.name}.as-copied-{stamp}.bak")
+        k = 1
+        while keep.exists():
+            k += 1
+            keep = self.path.with_name(f"{self.path.name}.as-copied-{stamp}-{k}.bak")
+        self._store.replace_with(norm, keep)
+        self.repaired_copy = (changes, keep)
+        return True
+
+    def _verify_data(self, lines: list[bytes], tail: bytes, head: dict | None, *, writer_active: bool) -> VerifyReport:
+        return verify_lines(lines, tail, head, None if self.by_file else self.vessel_name,
+                            writer_active=writer_active, file_name=self.path.name if self.by_file else None)
+
+    def _lines(self) -> tuple[list[bytes], bytes, CopyChanges | None]:
+        """The log's complete lines and unterminated end, as deckload wrote them (a copy's BOM and
+        CR LF line ends taken out: the views and verify read the entries under them), and what
+        a copy changed (None: nothing)."""
+        data, changes = undo_copy(self._read())
+        lines, tail = _split_lines(data)
+        return lines, tail, changes
 
     def _write_head(self) -> None:
         self._store.write_head(self._last_seq, self._last_sha)
@@ -304,7 +355,7 @@ class Logbook:
     def find(self, anchor_text: str) -> tuple[int, int] | None:
         """Where a printed copy's anchor (SHA-256 or its first 12+ hex digits, optionally 'N:HASH')
         is in this log: (line number, entry number), else None.  ValueError for a malformed anchor."""
-        lines, tail = _split_lines(self._read())
+        lines, tail, _ = self._lines()
         if tail and whole_unterminated(tail, self._store.read_head()):
             lines.append(tail)
         return find_anchor(lines, anchor_text)
@@ -329,7 +380,7 @@ class Logbook:
             head_key = None
         key = (st.st_size, st.st_mtime_ns, head_key)
         if self._cache is None or self._cache[0] != key:
-            lines, tail = _split_lines(self._read())
+            lines, tail, _ = self._lines()
             if tail and whole_unterminated(tail, self._store.read_head()):
                 lines.append(tail)  # a whole last line whose line end a copy dropped (verify notes it)
             out: list[LogEntry] = []
@@ -351,8 +402,12 @@ class Logbook:
         return locking.writer_active(self.lock_path)
 
     def verify(self) -> VerifyReport:
-        """Check the whole log: see :func:`~deckload.logbook.chain.verify_lines`."""
-        lines, tail = _split_lines(self._read())
+        """Check the whole log: see :func:`~deckload.logbook.chain.verify_lines`.
+
+        A log whose line ends a copy turned into CR LF, or before which it put a BOM, fails with
+        one problem that says so, and its lines are verified with them taken out (what deckload
+        wrote): whether the entries are intact under them, or what else is wrong."""
+        lines, tail, changes = self._lines()
         head = self._store.read_head()
         if not lines and not tail and head is None:
             return VerifyReport(ok=True, problems=[], notes=["the log is empty"], entries=0)
@@ -360,9 +415,21 @@ class Logbook:
             return VerifyReport(ok=False, entries=0, notes=[], problems=[
                 f"{self.path.name}: missing, but its head record {self.head_path.name} names entry "
                 f"#{head.get('seq')} — the log was deleted or moved (tampering suspected)"])
-        return verify_lines(lines, tail, head, None if self.by_file else self.vessel_name,
-                            writer_active=self.writer_active() and not self._lock.held,
-                            file_name=self.path.name if self.by_file else None)
+        rep = self._verify_data(lines, tail, head, writer_active=self.writer_active() and not self._lock.held)
+        if changes is None:
+            return rep
+        if rep.problems:
+            then = (f"with {changes.them} taken out the lines were verified as written, and the problems below remain; "
+                    "'deckload log verify --recover' will not rewrite the file until they are looked into")
+        else:
+            then = (f"with {changes.them} taken out every entry is intact (each line verified without them: "
+                    f"{rep.entries} entries, chain and head record agree); to repair it, run 'deckload log "
+                    "verify --recover': it takes them out and keeps the file as found beside it (….bak)")
+        return VerifyReport(
+            ok=False,
+            problems=[f"{self.path.name}: changed by a copy, not by an edit: {changes}; {then}. Nothing is "
+                      "recorded in this log until it is repaired", *rep.problems],
+            notes=rep.notes, entries=rep.entries, last_sha256=rep.last_sha256)
 
     @property
     def newest(self) -> tuple[int, str] | None:

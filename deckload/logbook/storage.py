@@ -65,6 +65,18 @@ class LogStore:
             fsync_dir(self.path.parent)
         return created
 
+    def read_open(self) -> bytes:
+        """The whole log as the writer's descriptor reads it."""
+        return _read_fd(self.fd)
+
+    def replace_with(self, data: bytes, keep_as: Path) -> None:
+        """Replace the log with ``data``: the bytes found are first written to ``keep_as``
+        (fsynced), then the log is rewritten atomically and reopened for appending."""
+        write_atomic(keep_as, _read_fd(self.fd))
+        write_atomic(self.path, data)
+        self.close()
+        self.open_for_append()
+
     def scan(self) -> tuple[list[bytes], bytes]:
         """The complete lines of the open log and its torn tail (b"" when there is none).
 
@@ -150,6 +162,52 @@ def _write_all(fd: int, data: bytes) -> None:
     while view:
         n = os.write(fd, view)
         view = view[n:]
+
+
+BOM = b"\xef\xbb\xbf"
+"""The UTF-8 byte-order mark some Windows editors and copy tools put before a text file's first line."""
+
+
+@frozen
+class CopyChanges:
+    """What a copy (a Windows editor or copy tool) did to a log's bytes: a byte-order mark put
+    before line 1, line ends turned into CR LF.  deckload never writes either: a raw CR or a BOM
+    at the start cannot stand in a line it wrote (JSON escapes control characters in text)."""
+
+    bom: bool
+    crlf_lines: int
+    lines: int
+
+    def __str__(self) -> str:
+        what = []
+        if self.bom:
+            what.append("a byte-order mark (BOM) was put before line 1")
+        if self.crlf_lines:
+            of = "every line" if self.crlf_lines == self.lines else f"{self.crlf_lines} of {self.lines} lines"
+            what.append(f"the line ends of {of} were turned into Windows line ends (CR LF)")
+        return " and ".join(what)
+
+    @property
+    def them(self) -> str:
+        """What is to be taken out, in words: 'the BOM', 'the CRs', 'the BOM and the CRs'."""
+        return " and ".join(w for w, on in (("the BOM", self.bom), ("the CRs", self.crlf_lines)) if on)
+
+
+def undo_copy(data: bytes) -> tuple[bytes, CopyChanges | None]:
+    """The log's bytes with a copy's BOM and CR LF line ends taken out, and what was taken out
+    (None: the bytes are as deckload writes them).  Only a BOM at the very start and a CR right
+    before a line end (or ending the file) are taken: nothing else of a line is touched."""
+    bom = data.startswith(BOM)
+    if bom:
+        data = data[len(BOM):]
+    crlf = data.count(b"\r\n")
+    if crlf:
+        data = data.replace(b"\r\n", b"\n")
+    if data.endswith(b"\r"):
+        data, crlf = data[:-1], crlf + 1
+    if not bom and not crlf:
+        return data, None
+    return data, CopyChanges(bom, crlf, data.count(b"\n") + (0 if data.endswith(b"\n") or not data else 1))
 
 
 def _split_lines(data: bytes) -> tuple[list[bytes], bytes]:
