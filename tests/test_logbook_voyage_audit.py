@@ -6,7 +6,7 @@ case changed, a log folder that cannot be written, and the printout for signatur
 from __future__ import annotations
 
 import time
-from datetime import datetime, timezone
+from datetime import datetime, timedelta, timezone
 from pathlib import Path
 
 import pytest
@@ -203,3 +203,83 @@ def test_the_loading_screen_does_not_record_into_a_windows_copy(three, tmp_path)
         assert not journal.writable and "CR LF" in journal.problem and "verify --recover" in journal.problem
     finally:
         journal.logbook.close()
+
+
+# --------------------------------------------------------------------------- 4. the clock set back
+
+
+class Clock:
+    """A clock the test sets: the PC's clock as the officer left it."""
+
+    def __init__(self, at: datetime):
+        self.at = at
+
+    def __call__(self) -> datetime:
+        return self.at
+
+
+@pytest.fixture
+def clock(monkeypatch) -> Clock:
+    c = Clock(datetime(2026, 12, 3, 12, 0, tzinfo=timezone.utc))
+    monkeypatch.setattr("deckload.logbook.book.utc_now", c)
+    monkeypatch.setenv("DECKLOAD_SHIP_OFFSET", "+02:00")
+    return c
+
+
+def test_a_clock_set_back_is_warned_at_record_noted_by_verify_and_marked_in_show_and_exports(logs, clock, capsys):
+    """Recorded at 12:00, then with the clock an hour earlier, then a day earlier: all were taken
+    without a word, verify said OK and show listed #3 before #1 in time unmarked."""
+    assert record(logs, "departure") == 0
+    clock.at = datetime(2026, 12, 3, 11, 0, tzinfo=timezone.utc)
+    capsys.readouterr()
+    assert record(logs, "midvoyage") == 0  # still recorded: the clock may have been wrong before
+    err = capsys.readouterr().err
+    assert "warning: the clock reads 1 h 00 min earlier than entry #1" in err
+    clock.at = datetime(2026, 12, 2, 11, 30, tzinfo=timezone.utc)
+    assert record(logs, "arrival") == 0
+    assert "23 h 30 min earlier than entry #2" in capsys.readouterr().err
+    clock.at = datetime(2026, 12, 2, 11, 31, tzinfo=timezone.utc)
+    assert record(logs, "arrival") == 0
+    assert "warning" not in capsys.readouterr().err  # later than the entry before: nothing to say
+
+    assert main(["log", "--dir", str(logs), "verify"]) == 0  # a note, not a problem: the chain is intact
+    out = capsys.readouterr().out
+    assert "OK — 4 entries" in out
+    assert "note: line 2: entry #2 is timed 1 h 00 min earlier than entry #1" in out
+    assert "note: line 3: entry #3 is timed 23 h 30 min earlier than entry #2" in out
+    assert "line 4: entry #4" not in out
+
+    assert main(["log", "--dir", str(logs), "show"]) == 0
+    shown = capsys.readouterr().out
+    assert shown.count("◂ timed") == 2 and "◂ timed 1 h 00 min earlier than #1" in shown
+
+    assert main(["log", "--dir", str(logs), "export", "--csv"]) == 0
+    import csv
+    import io
+
+    rows = list(csv.DictReader(io.StringIO(capsys.readouterr().out)))
+    assert [r["clock_back"].split(" before")[0] for r in rows] == [
+        "", "timed 1 h 00 min earlier than #1", "timed 23 h 30 min earlier than #2", ""]
+    assert main(["log", "--dir", str(logs), "export", "--html"]) == 0
+    assert capsys.readouterr().out.count("◂ timed") == 2
+
+
+async def test_the_loading_screen_warns_of_a_clock_set_back_and_marks_the_entry(tmp_path, clock):
+    from deckload.ui.log_screen import LogScreen, _row
+    from vessel_factories import pilot_app
+
+    app = pilot_app(tmp_path, log_dir=tmp_path / "logs", officer="TS")
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.press("s", "enter")
+        await pilot.pause()
+        clock.at -= timedelta(hours=1)
+        await pilot.press("s", "enter")
+        await pilot.pause()
+        said = [(n.severity, str(n.message)) for n in app._notifications]
+        assert any(sev == "warning" and "1 h 00 min earlier than entry #1" in m for sev, m in said), said
+        book = app.session.journal.logbook
+        screen = LogScreen(book)
+        app.push_screen(screen)
+        await pilot.pause()
+        assert screen._back.keys() == {2}
+        assert "◂" in str(_row(book.entries()[1], screen._back[2])[1]) and "◂" not in str(_row(book.entries()[0])[1])

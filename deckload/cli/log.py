@@ -23,13 +23,16 @@ from deckload.logbook import (
     LogEntry,
     Logbook,
     LogLockedError,
+    back_words,
+    clock_back,
+    clock_back_words,
     log_files,
 )
 
 CAUTION = vf.CAUTION
 
 CSV_COLUMNS = (
-    "seq", "utc", "ship_time", "ship_clock", "vessel", "by", "kind", "change", "remark", "condition_name",
+    "seq", "utc", "ship_time", "ship_clock", "clock_back", "vessel", "by", "kind", "change", "remark", "condition_name",
     "displacement_t", "draft_fwd_m", "draft_aft_m", "draft_mean_m", "trim_m", "list_deg", "gm_fluid_m",
     "fsc_m", "criteria_pass", "criteria_failed", "criteria_sets", "criteria_not_assessable", "not_assessed",
     "verdict", "freeboard_m", "load_line_margin_m", "deck_edge_angle_deg", "smallest_margin_criterion", "smallest_margin",
@@ -104,7 +107,7 @@ def _record(args) -> int:
         if book.recovered_torn is not None:
             print(f"deckload: recovered: {book.recovered_torn}", file=sys.stderr)
         if book.restored_line_end is not None:
-            print(f"deckload: repaired: {restored_words(book)}", file=sys.stderr)
+            print(f"deckload: repaired: {book.restored_note}", file=sys.stderr)
         if book.readonly:
             print(f"deckload: cannot record: {book.path}: {book.readonly_reason}", file=sys.stderr)
             return 1
@@ -129,6 +132,8 @@ def _record(args) -> int:
     if book.head_problem:
         print(f"deckload: warning: {book.head_path}: {book.head_problem} (the entry itself is recorded)",
               file=sys.stderr)
+    if book.clock_back is not None:
+        print(f"deckload: warning: {clock_back_words(entry.seq, *book.clock_back)}", file=sys.stderr)
     try:
         print(
             f"Recorded entry #{entry.seq} in {book.path} at {entry.utc:%Y-%m-%d %H:%M:%S} UTC by {entry.by}: "
@@ -174,8 +179,9 @@ def _fmt(x, digits: int = 3) -> str:
     return str(x)
 
 
-def entry_row(e: LogEntry) -> dict[str, str]:
-    """One entry as the CSV/HTML columns (:data:`CSV_COLUMNS`)."""
+def entry_row(e: LogEntry, back: tuple[int, object] | None = None) -> dict[str, str]:
+    """One entry as the CSV/HTML columns (:data:`CSV_COLUMNS`); ``back`` is what
+    :func:`~deckload.logbook.clock_back` says of it (timed earlier than the entry before)."""
     s = e.summary or {}
     sm = s.get("smallest_margin") or {}
     return {
@@ -183,6 +189,7 @@ def entry_row(e: LogEntry) -> dict[str, str]:
         "utc": e.utc.strftime("%Y-%m-%dT%H:%M:%S.%f")[:-3] + "Z",
         "ship_time": e.ship_time.strftime("%Y-%m-%d %H:%M:%S"),
         "ship_clock": e.ship_clock,
+        "clock_back": back_words(back),
         "vessel": e.vessel,
         "by": e.by,
         "kind": e.kind,
@@ -215,12 +222,6 @@ def entry_row(e: LogEntry) -> dict[str, str]:
     }
 
 
-def restored_words(book: Logbook) -> str:
-    """What opening a log for writing did to a whole last line that had lost its line end."""
-    return (f"{book.path.name}: line {book.restored_line_end} was whole but had lost its line end (a copy "
-            "without it; its SHA-256 is the head record's): the line end was restored, nothing else changed")
-
-
 def broken_words(path: Path, problems: list[str]) -> str:
     """What a view or an export of a log says first when its chain does not verify: a line was
     edited, removed or damaged since it was written, so the entries shown may not be the ones
@@ -251,6 +252,7 @@ def _show(args) -> int:
             print(f"{escape_breaks(book.vessel_name)} — {book.path} ({len(entries)} entries)")
             print(f"{'#':>4}  {'UTC':<19}  {'ship':<5}  {'by':<4}  {'kind':<9}  {'GM fl m':>7}  {'criteria':<14}  change")
             damaged = list(book.skipped_lines)
+            back = clock_back(entries)
             for e in entries:
                 while damaged and damaged[0][0] < e.line_no:
                     print(damaged_row(book.path, damaged.pop(0)[1]))
@@ -260,6 +262,8 @@ def _show(args) -> int:
                     f"{escape_breaks(e.kind):<9}  {r['gm_fluid_m']:>7}  {vf.stored_short(e.summary):<14}  "
                     f"{escape_breaks(e.change_text)}" + (f" — {escape_breaks(e.remark)}" if e.remark else "")
                 )
+                if e.line_no in back:
+                    print(f"      ◂ {back_words(back[e.line_no])}")
                 na = (e.summary or {}).get("not_assessed")
                 if na:
                     text = "not assessed: " + vf.grouped_not_assessed((x.get("item"), x.get("reason")) for x in na)
@@ -277,8 +281,9 @@ def export_csv(entries: list[LogEntry]) -> str:
     buf = io.StringIO()
     w = csv.DictWriter(buf, fieldnames=CSV_COLUMNS, lineterminator="\r\n")
     w.writeheader()
+    back = clock_back(entries)
     for e in entries:
-        w.writerow(entry_row(e))
+        w.writerow(entry_row(e, back.get(e.line_no)))
     return buf.getvalue()
 
 
@@ -315,12 +320,15 @@ def export_html(books: list[tuple[str, list[LogEntry]]], broken: dict[str, str] 
             out.append(f'<p class="broken">{htmllib.escape(broken[vessel])}</p>')
         head = "".join(f"<th>{htmllib.escape(h)}</th>" for h in heads)
         out.append(f"<table><thead><tr>{head}</tr></thead><tbody>")
+        back = clock_back(entries)
         for e in entries:
-            r = entry_row(e)
+            r = entry_row(e, back.get(e.line_no))
             cells = []
             for c in cols:
                 cls = ' class="n"' if c in numeric else (' class="fail"' if r[c] == "FAIL" else "")
-                cells.append(f"<td{cls}>{htmllib.escape(r[c])}</td>")
+                mark = (f'<br><span class="fail">◂ {htmllib.escape(r["clock_back"])}</span>'
+                        if c == "ship_time" and r["clock_back"] else "")
+                cells.append(f"<td{cls}>{htmllib.escape(r[c])}{mark}</td>")
             out.append("<tr>" + "".join(cells) + "</tr>")
         out.append("</tbody></table>")
         for words in (damaged or {}).get(vessel, []):
@@ -384,7 +392,7 @@ def _verify(args) -> int:
                     print(f"repaired: {b.path.name}: {changes} by a copy; {changes.them} taken out (the "
                           f"entries were intact without them); the file as found is kept as {kept.name}")
                 if b.restored_line_end is not None:
-                    print(f"repaired: {restored_words(b)}")
+                    print(f"repaired: {b.restored_note}")
                 if b.readonly and not b.path.exists():
                     print(f"{b.path.name}: missing; nothing to recover")
                 elif b.readonly:

@@ -47,6 +47,7 @@ from deckload.logbook.clock import (
     format_offset,
     format_utc,
     local_offset,
+    span_words,
     parse_offset,
     utc_now,
 )
@@ -64,15 +65,23 @@ from deckload.logbook.records import (
     summarise,
     validate_initials,
 )
-from deckload.logbook.chain import GENESIS_SHA256, VerifyReport, find_anchor, verify_lines
+from deckload.logbook.chain import (
+    GENESIS_SHA256,
+    VerifyReport,
+    back_words,
+    clock_back,
+    clock_back_words,
+    find_anchor,
+    verify_lines,
+)
 from deckload.logbook.storage import HEAD_FORMAT, TornRecovery, _split_lines, log_files, vessel_of_log
 from deckload.logbook.lock import LogLockedError
 from deckload.logbook.book import Logbook, anchor
 
 __all__ = [
     "FORMAT", "GENESIS_SHA256", "HEAD_FORMAT", "KINDS", "KIND_LABELS", "LogEntry", "LogFormatError",
-    "LogLockedError", "Logbook", "ShipOffsetError", "TornRecovery", "VerifyReport", "anchor", "clock_stamp",
+    "LogLockedError", "Logbook", "ShipOffsetError", "TornRecovery", "VerifyReport", "anchor", "back_words", "clock_back", "clock_back_words", "clock_stamp",
     "condition_of", "condition_record", "filter_entries", "find_anchor", "format_offset", "format_utc",
-    "local_offset", "log_files", "parse_offset", "sha256_hex", "summarise", "utc_now", "validate_initials",
+    "local_offset", "log_files", "parse_offset", "sha256_hex", "span_words", "summarise", "utc_now", "validate_initials",
     "verify_lines", "vessel_of_log", "vessel_slug",
 ]

@@ -74,6 +74,10 @@ class Logbook:
         self._store: LogStore | None = None
         self._lock: WriterLock | None = None
         self._last_seq = 0
+        self._last_utc: datetime | None = None
+        self.clock_back: tuple[int, timedelta] | None = None
+        """After :meth:`append`: (the entry before's number, how much earlier) when the clock read
+        earlier than the newest entry's time (set back, or wrong before), else None."""
         self._last_sha = GENESIS_SHA256
         self._cache: tuple[tuple[int, int], list[LogEntry]] | None = None
         self.skipped: list[str] = []
@@ -212,7 +216,8 @@ class Logbook:
         if lines:
             self._last_sha = sha256_hex(lines[-1])
             try:
-                self._last_seq = _entry_from_line(lines[-1], len(lines)).seq
+                newest = _entry_from_line(lines[-1], len(lines))
+                self._last_seq, self._last_utc = newest.seq, newest.utc
             except LogFormatError:
                 self._last_seq = len(lines)
             if head is None or head.get("seq") != self._last_seq:
@@ -299,6 +304,7 @@ class Logbook:
                 raise ValueError(f"{what} holds the control character {bad}: type plain text")
         if not isinstance(change_data, dict):
             raise ValueError(f"change data must be a mapping, not {type(change_data).__name__}")
+        self.clock_back = None
         now = self._clock()
         if now.tzinfo is None:
             raise ValueError("the clock returned a time without a timezone")
@@ -337,6 +343,9 @@ class Logbook:
             raise ValueError(f"the vessel name {escaped(self.vessel_name)!r} would not read back as written "
                              "(a control character); nothing was written")
         self._store.append_line(line)
+        before = self._last_utc
+        self.clock_back = (self._last_seq, before - entry.utc) if before is not None and entry.utc < before else None
+        self._last_utc = entry.utc
         self._last_seq += 1
         self._last_sha = sha256_hex(line)
         try:
@@ -430,6 +439,14 @@ class Logbook:
             problems=[f"{self.path.name}: changed by a copy, not by an edit: {changes}; {then}. Nothing is "
                       "recorded in this log until it is repaired", *rep.problems],
             notes=rep.notes, entries=rep.entries, last_sha256=rep.last_sha256)
+
+    @property
+    def restored_note(self) -> str:
+        """What opening for writing did to a whole last line that had lost its line end ('' if nothing)."""
+        if self.restored_line_end is None:
+            return ""
+        return (f"{self.path.name}: line {self.restored_line_end} was whole but had lost its line end (a copy "
+                "without it; its SHA-256 is the head record's): the line end was restored, nothing else changed")
 
     @property
     def newest(self) -> tuple[int, str] | None:

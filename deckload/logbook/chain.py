@@ -14,10 +14,12 @@ from __future__ import annotations
 import json
 import re
 from dataclasses import field
+from datetime import timedelta
 
 from deckload.core.frozen import frozen
 from deckload.io.paths import vessel_slug
-from deckload.logbook.records import KINDS, LogFormatError, _entry_from_line, sha256_hex
+from deckload.logbook.clock import span_words
+from deckload.logbook.records import KINDS, LogEntry, LogFormatError, _entry_from_line, sha256_hex
 
 GENESIS_SHA256 = "0" * 64
 """``prev_sha256`` of the first entry: there is no previous line."""
@@ -72,6 +74,7 @@ def verify_lines(
     unsound: set[int] = set()  # lines unreadable, or not chained or numbered from the line before
     recorded: tuple[int, str] | None = None  # (line, vessel) of the first entry, for a log found by its file
     offset = 0  # seq − line number: changes exactly where entries were removed, inserted or moved
+    read: list[LogEntry] = []
     for i, line in enumerate(lines, start=1):
         try:
             e = _entry_from_line(line, i)
@@ -82,6 +85,7 @@ def verify_lines(
             prev_sha = sha256_hex(line)
             continue
         seqs.append(e.seq)
+        read.append(e)
         chained = e.prev_sha256 == prev_sha
         if not chained or e.seq - i != offset:
             unsound.add(i)
@@ -116,6 +120,14 @@ def verify_lines(
         if e.kind not in KINDS:
             problems.append(f"line {i}: kind {e.kind!r} is not one of {', '.join(KINDS)}")
         prev_sha = sha256_hex(line)
+
+    back = clock_back(read)
+    for e in read:
+        if e.line_no in back:
+            before, span = back[e.line_no]
+            notes.append(f"line {e.line_no}: entry #{e.seq} is timed {span_words(span)} earlier than entry #{before} "
+                         f"before it ({e.utc:%Y-%m-%d %H:%M:%S} against {e.utc + span:%Y-%m-%d %H:%M:%S} UTC): the "
+                         "PC's clock was set back, or was wrong before; the lines keep the order of recording")
 
     seen: dict[int, int] = {}
     for i, s in enumerate(seqs, start=1):
@@ -190,6 +202,29 @@ def whole_unterminated(tail: bytes, head: dict | None) -> bool:
     never matches: the head is rewritten only after the whole line and its end are on disk."""
     sha = head.get("sha256") if isinstance(head, dict) else None
     return bool(tail) and isinstance(sha, str) and sha == sha256_hex(tail)
+
+
+def clock_back(entries: list[LogEntry]) -> dict[int, tuple[int, timedelta]]:
+    """Entries timed earlier than the entry before them in the log (by line: a clock set back, or
+    wrong before): line number → (the entry before's number, how much earlier)."""
+    out = {}
+    for before, e in zip(entries, entries[1:]):
+        if e.utc < before.utc:
+            out[e.line_no] = (before.seq, before.utc - e.utc)
+    return out
+
+
+def clock_back_words(seq: int, before: int, span: timedelta) -> str:
+    """The warning of a record whose time is earlier than the newest entry's before it."""
+    return (f"the clock reads {span_words(span)} earlier than entry #{before}, the newest before this one: the "
+            f"PC's clock was set back, or was wrong then; entry #{seq} is recorded with the time the clock gives "
+            "(check the clock; 'deckload log verify' names every entry timed earlier than the one before it)")
+
+
+def back_words(back: tuple[int, timedelta] | None) -> str:
+    """An entry's mark in show and the exports when it is timed earlier than the entry before it
+    (``back`` as :func:`clock_back` gives it; '' for None)."""
+    return "" if back is None else f"timed {span_words(back[1])} earlier than #{back[0]} before it (clock set back?)"
 
 
 def _line_of_seq(seqs: list[int | None], seq: int) -> int | None:

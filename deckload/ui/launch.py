@@ -214,9 +214,7 @@ def open_journal(log_dir: Path | None, vessel_name: str):
         # A power cut left half a line at the end of the log: it was set aside, never dropped.
         journal.notice = f"voyage log recovered after an interrupted write: {book.recovered_torn}"
     elif book.restored_line_end is not None:
-        from deckload.cli.log import restored_words
-
-        journal.notice = f"voyage log repaired: {restored_words(book)}"
+        journal.notice = f"voyage log repaired: {book.restored_note}"
     return journal
 
 
