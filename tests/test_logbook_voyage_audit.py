@@ -283,3 +283,43 @@ async def test_the_loading_screen_warns_of_a_clock_set_back_and_marks_the_entry(
         await pilot.pause()
         assert screen._back.keys() == {2}
         assert "◂" in str(_row(book.entries()[1], screen._back[2])[1]) and "◂" not in str(_row(book.entries()[0])[1])
+
+
+# --------------------------------------------------------------------------- 5. recording into a broken log
+
+
+def _duplicate_an_entry(logs: Path) -> None:
+    log = logs / LOG
+    lines = log.read_bytes().splitlines(keepends=True)
+    log.write_bytes(b"".join([lines[0], lines[1], lines[1], *lines[2:]]))  # entry #2 twice, in the middle
+
+
+def test_recording_into_a_log_that_fails_verification_warns_before_and_after(three, capsys):
+    """An entry duplicated in the middle: 'log record' appended after it without a word."""
+    _duplicate_an_entry(three)
+    capsys.readouterr()
+    assert record(three, "arrival") == 0  # recorded: a voyage's log cannot stop, and nothing is overwritten
+    err = capsys.readouterr().err
+    assert err.count("WARNING") == 2 and "this log fails verification (2 problem(s)" in err
+    assert "entry #4 is recorded, but" in err and "run 'deckload log verify'" in err
+    assert err.rstrip().splitlines()[-1].startswith("deckload: WARNING: entry #4 is recorded")  # said last
+    assert record(three, "departure", "--remark", "x") == 0
+    assert "WARNING" in capsys.readouterr().err  # every time, not once
+
+
+def test_a_clean_log_records_without_a_warning(three, capsys):
+    capsys.readouterr()
+    assert record(three, "arrival") == 0
+    assert "WARNING" not in capsys.readouterr().err
+
+
+def test_the_loading_screen_warns_at_start_and_at_record_of_a_log_that_fails_verification(three, tmp_path):
+    from deckload.ui.launch import open_journal
+
+    _duplicate_an_entry(three)
+    journal = open_journal(three, VESSEL)
+    try:
+        assert journal.writable and "WARNING" in journal.notice and "fails verification" in journal.notice
+        assert "fails verification (2 problem(s)" in journal.broken()
+    finally:
+        journal.logbook.close()

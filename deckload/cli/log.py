@@ -111,6 +111,9 @@ def _record(args) -> int:
         if book.readonly:
             print(f"deckload: cannot record: {book.path}: {book.readonly_reason}", file=sys.stderr)
             return 1
+        before = book.verify()  # (an append never repairs a broken chain: the officer must hear of it)
+        if not before.ok:
+            print(f"deckload: WARNING: {before.failing_words(book.path.name)}", file=sys.stderr)
         entry = book.append(
             kind=args.kind,
             by=by,
@@ -143,6 +146,9 @@ def _record(args) -> int:
             print(line)
         print(CAUTION)
         sys.stdout.flush()
+        if not before.ok:  # said again last, where the eye ends
+            print(f"deckload: WARNING: entry #{entry.seq} is recorded, but {before.failing_words(book.path.name)}",
+                  file=sys.stderr)
     except OSError as e:
         # The entry is on disk: saying otherwise would invite a second, duplicate record.
         if isinstance(e, BrokenPipeError):

@@ -40,6 +40,13 @@ class VerifyReport:
     last_sha256: str = GENESIS_SHA256
     """SHA-256 of the newest complete line: write it in the paper log to anchor the chain."""
 
+    def failing_words(self, file_name: str) -> str:
+        """What a writer says of a log that fails verification before (and after) recording in it."""
+        first = self.problems[0] if self.problems else "none"
+        return (f"{file_name}: this log fails verification ({len(self.problems)} problem(s), the first: {first}): "
+                "run 'deckload log verify'; entries are still recorded after them, and the log stays broken "
+                "until what went wrong is looked into")
+
 
 def verify_lines(
     lines: list[bytes],

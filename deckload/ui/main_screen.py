@@ -596,6 +596,9 @@ class LoadingScreen(Screen[None]):
                 self.notify(p, severity="error", timeout=8, markup=False)
             if j.clock_warning:
                 self.notify(f"Recorded, but {j.clock_warning}", severity="warning", timeout=20, markup=False)
+            broken = j.broken()
+            if broken and not problems:
+                self.notify(f"Recorded, but {broken}", severity="warning", timeout=20, markup=False)
             if problems:
                 self.say("Not recorded", ok=False)
             elif stale:

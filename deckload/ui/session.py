@@ -141,6 +141,14 @@ class Journal:
     def writable(self) -> bool:
         return self.logbook is not None and not self.logbook.readonly
 
+    def broken(self) -> str | None:
+        """What to say when the log fails verification (None: it verifies, or cannot be read here)."""
+        try:
+            rep = self.logbook.verify()
+        except Exception:  # (reading it again failed: the record itself was reported already)
+            return None
+        return None if rep.ok else rep.failing_words(self.logbook.path.name)
+
     def append(self, **entry: Any) -> str | None:
         """Append an entry; return an error message instead of raising."""
         if not self.writable or not (entry.get("by") or self.officer):
