@@ -323,3 +323,29 @@ def test_the_loading_screen_warns_at_start_and_at_record_of_a_log_that_fails_ver
         assert "fails verification (2 problem(s)" in journal.broken()
     finally:
         journal.logbook.close()
+
+
+# --------------------------------------------------------------------------- 6. names whose case changed
+
+
+def test_log_files_renamed_in_capitals_are_named_and_no_new_log_starts_beside_them(three, capsys):
+    """DEMO-ISLANDER.LOG.JSONL (a copy that changed the case of names) was invisible: verify and show
+    said 'no logs', and record started a new chain of entry #1 beside it."""
+    for name in (LOG, HEAD):
+        (three / name).rename(three / name.upper())
+    before = files(three)
+    capsys.readouterr()
+    assert main(["log", "--dir", str(three), "verify"]) == 1
+    out = capsys.readouterr().out
+    assert "NOT READ: DEMO-ISLANDER.LOG.JSONL" in out and f"rename it {LOG}" in out
+    assert "NOT READ: DEMO-ISLANDER.LOG.HEAD.JSON" in out
+    assert main(["log", "--dir", str(three), "show"]) == 1
+    assert "NOT READ: DEMO-ISLANDER.LOG.JSONL" in capsys.readouterr().out
+    assert record(three, "arrival") == 1
+    err = capsys.readouterr().err
+    assert "DEMO-ISLANDER.LOG.JSONL" in err and "never this one" in err
+    assert files(three) == before  # no new log beside them
+    for name in (LOG, HEAD):  # renamed back, the log is whole
+        (three / name.upper()).rename(three / name)
+    assert main(["log", "--dir", str(three), "verify"]) == 0
+    assert record(three, "arrival") == 0

@@ -24,6 +24,8 @@ from deckload.logbook import (
     Logbook,
     LogLockedError,
     back_words,
+    case_stray_words,
+    case_strays,
     clock_back,
     clock_back_words,
     log_files,
@@ -242,12 +244,23 @@ def damaged_row(path: Path, problem: str) -> str:
     return f"   !  DAMAGED {path.name} {problem} — left out (run 'deckload log verify')"
 
 
+def _strays(args) -> list[str]:
+    """A log's files found under names in other letters' case (never read): what to say of each."""
+    from deckload.io.paths import vessel_slug
+
+    vessel = getattr(args, "vessel", None)
+    return [case_stray_words(*s) for s in case_strays(_log_dir(args), vessel_slug(vessel) if vessel else None)]
+
+
 def _show(args) -> int:
+    strays = _strays(args)
+    for words in strays:
+        print(f"  ! NOT READ: {words}")
     books = _books(args)
     if not books:
         print(f"no logs in {_log_dir(args)}")
-        return 0
-    broken = 0
+        return 1 if strays else 0
+    broken = len(strays)
     for book in books:
         try:
             entries = book.entries()
@@ -355,6 +368,8 @@ def _export(args) -> int:
         except OutputRefused as e:
             print(f"deckload log export: {e}: nothing exported; name another file", file=sys.stderr)
             return 1
+    for words in _strays(args):
+        print(f"deckload: NOT READ: {words}", file=sys.stderr)
     books = _books(args)
     try:
         data = [(b.vessel_name, b.entries()) for b in books]
@@ -403,12 +418,15 @@ def _verify(args) -> int:
                     print(f"{b.path.name}: missing; nothing to recover")
                 elif b.readonly:
                     print(f"{b.path.name}: not opened for writing: {b.readonly_reason}")
+    strays = _strays(args)
+    for words in strays:
+        print(f"NOT READ: {words}")
     books = _books(args)
     against = getattr(args, "against", None)
     if not books:
         print(f"no logs in {directory}")
-        return 1 if against is not None else 0
-    bad = 0
+        return 1 if against is not None or strays else 0
+    bad = len(strays)
     found = None
     for book in books:
         try:

@@ -74,13 +74,21 @@ from deckload.logbook.chain import (
     find_anchor,
     verify_lines,
 )
-from deckload.logbook.storage import HEAD_FORMAT, TornRecovery, _split_lines, log_files, vessel_of_log
+from deckload.logbook.storage import (
+    HEAD_FORMAT,
+    TornRecovery,
+    _split_lines,
+    case_stray_words,
+    case_strays,
+    log_files,
+    vessel_of_log,
+)
 from deckload.logbook.lock import LogLockedError
 from deckload.logbook.book import Logbook, anchor
 
 __all__ = [
     "FORMAT", "GENESIS_SHA256", "HEAD_FORMAT", "KINDS", "KIND_LABELS", "LogEntry", "LogFormatError",
-    "LogLockedError", "Logbook", "ShipOffsetError", "TornRecovery", "VerifyReport", "anchor", "back_words", "clock_back", "clock_back_words", "clock_stamp",
+    "LogLockedError", "Logbook", "ShipOffsetError", "case_stray_words", "case_strays", "TornRecovery", "VerifyReport", "anchor", "back_words", "clock_back", "clock_back_words", "clock_stamp",
     "condition_of", "condition_record", "filter_entries", "find_anchor", "format_offset", "format_utc",
     "local_offset", "log_files", "parse_offset", "sha256_hex", "span_words", "summarise", "utc_now", "validate_initials",
     "verify_lines", "vessel_of_log", "vessel_slug",

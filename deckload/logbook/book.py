@@ -49,7 +49,15 @@ from deckload.logbook.records import (
     summarise,
     validate_initials,
 )
-from deckload.logbook.storage import CopyChanges, LogStore, TornRecovery, _split_lines, undo_copy
+from deckload.logbook.storage import (
+    CopyChanges,
+    LogStore,
+    TornRecovery,
+    _split_lines,
+    case_stray_words,
+    case_strays,
+    undo_copy,
+)
 
 
 MAX_TEXT_CHARS = 2000
@@ -159,7 +167,11 @@ class Logbook:
             self._clock = clock
         self.readonly = True
         self.readonly_reason = "opened read-only on request"
-        if not readonly:
+        strays = [] if readonly or by_file else case_strays(directory, slug)
+        if strays:  # (a new chain beside the one the copy renamed: never)
+            self.readonly_reason = ("nothing will be recorded: "
+                                    + "; ".join(case_stray_words(*s) for s in strays))
+        elif not readonly:
             directory.mkdir(parents=True, exist_ok=True)
             holder = self._lock.acquire()
             if holder is None:

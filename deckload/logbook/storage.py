@@ -245,6 +245,46 @@ def log_files(directory: Path) -> list[Path]:
     return sorted(logs)
 
 
+LOG_SUFFIXES = (".log.jsonl", ".log.head.json")
+"""The names a voyage log's files end with: the log and its head record."""
+
+
+def case_strays(directory: Path, slug: str | None = None) -> list[tuple[Path, Path]]:
+    """Files in ``directory`` named as a log's files in other letters' case (``DEMO-ISLANDER.LOG.JSONL``:
+    a copy through a file system or tool that changed the case of names), each with the name deckload
+    reads, (found, expected); only those of ``slug``'s log when given.  deckload's names are all
+    casefolded (``paths.vessel_slug``), so such a file is never read, and a new log would start beside it."""
+    d = Path(directory)
+    try:
+        names = sorted(os.listdir(d))
+    except OSError:
+        return []
+    out = []
+    for name in names:
+        folded = name.casefold()
+        if folded == name or not folded.endswith(LOG_SUFFIXES):
+            continue
+        if slug is not None and folded not in {slug + s for s in LOG_SUFFIXES}:
+            continue
+        expected = d / folded
+        try:
+            if expected.exists() and os.path.samefile(d / name, expected):
+                continue  # (a file system blind to case: the file deckload reads is this one)
+        except OSError:
+            pass
+        out.append((d / name, expected))
+    return out
+
+
+def case_stray_words(found: Path, expected: Path) -> str:
+    """What verify, show and record say of a file :func:`case_strays` found."""
+    also = (f"; {expected.name} exists as well: two logs of one vessel, look into which holds the voyage's "
+            "entries before recording more" if expected.exists() else "")
+    return (f"{found.name}: named as a voyage log's file in other letters' case (a copy that changed the case of "
+            f"file names?): deckload reads {expected.name} and never this one, which is not read or checked; "
+            f"rename it {expected.name}" + also)
+
+
 def vessel_of_log(path: Path) -> str:
     """The vessel name recorded in a log's first readable line (else its file-name slug)."""
     from deckload.io.limits import open_regular
