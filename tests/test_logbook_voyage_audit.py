@@ -5,6 +5,7 @@ case changed, a log folder that cannot be written, and the printout for signatur
 
 from __future__ import annotations
 
+import tempfile
 import time
 from datetime import datetime, timedelta, timezone
 from pathlib import Path
@@ -349,3 +350,49 @@ def test_log_files_renamed_in_capitals_are_named_and_no_new_log_starts_beside_th
         (three / name.upper()).rename(three / name)
     assert main(["log", "--dir", str(three), "verify"]) == 0
     assert record(three, "arrival") == 0
+
+
+# --------------------------------------------------------------------------- 7. a read-only log folder
+
+
+@pytest.fixture
+def folder_refuses(monkeypatch):
+    """The log folder refuses new files (read-only), as a non-root user sees it: every file made in it
+    (write_atomic's temporary, which renames over the head record) fails; the log itself still opens."""
+    real = tempfile.mkstemp
+
+    def refused(*a, dir=None, **k):
+        if dir is not None and Path(dir).name == "logs":
+            raise PermissionError(13, "Permission denied", str(dir))
+        return real(*a, dir=dir, **k)
+
+    return lambda: monkeypatch.setattr(tempfile, "mkstemp", refused)
+
+
+def test_record_refuses_when_the_head_record_cannot_be_updated(three, folder_refuses, capsys):
+    """With the folder read-only the entries went on and the head record silently stayed behind."""
+    before = files(three)
+    folder_refuses()
+    capsys.readouterr()
+    assert record(three, "arrival") == 2
+    err = capsys.readouterr().err
+    assert f"the head record {HEAD} cannot be updated" in err and "refuses a new file (Permission denied)" in err
+    assert files(three) == before
+
+
+def test_verify_names_a_folder_that_refuses_the_head_record_as_a_cause_of_it_being_behind(three, folder_refuses,
+                                                                                           capsys):
+    """A head record behind: verify blamed a power cut alone, when the folder could not take it."""
+    lines = (three / LOG).read_bytes().splitlines(keepends=True)
+    import hashlib
+    import json
+
+    (three / HEAD).write_text(json.dumps({"format": "deckload-log-head-1", "seq": 2,
+                                         "sha256": hashlib.sha256(lines[1].rstrip(b"\n")).hexdigest()}))
+    capsys.readouterr()
+    assert main(["log", "--dir", str(three), "verify"]) == 0
+    out = capsys.readouterr().out
+    assert "head record is 1 entry behind" in out and "could not be rewritten" in out
+    folder_refuses()
+    assert main(["log", "--dir", str(three), "verify"]) == 0
+    assert f"note: the log folder {three} refuses a new file now (Permission denied)" in capsys.readouterr().out

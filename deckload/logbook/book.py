@@ -9,6 +9,7 @@ next chained line (:mod:`.records`) and returns only once it is on disk.
 
 from __future__ import annotations
 
+import errno
 import os
 from datetime import datetime, timedelta, timezone
 from pathlib import Path
@@ -354,6 +355,11 @@ class Logbook:
         if entry.vessel != self.vessel_name:  # (verify_lines: every entry records this log's vessel)
             raise ValueError(f"the vessel name {escaped(self.vessel_name)!r} would not read back as written "
                              "(a control character); nothing was written")
+        why = self._store.head_unwritable()
+        if why is not None:  # (else the entries would go on with the head record left behind: no check of them)
+            raise OSError(errno.EACCES, f"the head record {self.head_path.name} cannot be updated: its folder "
+                          f"{self.head_path.parent} refuses a new file ({why}), so the newest entries could not be "
+                          "checked against it; make the log folder writable")
         self._store.append_line(line)
         before = self._last_utc
         self.clock_back = (self._last_seq, before - entry.utc) if before is not None and entry.utc < before else None
@@ -437,6 +443,13 @@ class Logbook:
                 f"{self.path.name}: missing, but its head record {self.head_path.name} names entry "
                 f"#{head.get('seq')} — the log was deleted or moved (tampering suspected)"])
         rep = self._verify_data(lines, tail, head, writer_active=self.writer_active() and not self._lock.held)
+        if any(n.startswith("head record is") for n in rep.notes):
+            why = self._store.head_unwritable()
+            if why is not None:
+                rep = VerifyReport(ok=rep.ok, problems=rep.problems, entries=rep.entries, last_sha256=rep.last_sha256,
+                                   notes=[*rep.notes, f"the log folder {self.head_path.parent} refuses a new file now "
+                                          f"({why}): the head record cannot be updated there, which leaves it "
+                                          "behind as entries are appended (deckload refuses to record there)"])
         if changes is None:
             return rep
         if rep.problems:

@@ -24,6 +24,10 @@ from deckload.logbook.records import KINDS, LogEntry, LogFormatError, _entry_fro
 GENESIS_SHA256 = "0" * 64
 """``prev_sha256`` of the first entry: there is no previous line."""
 
+_HEAD_BEHIND = ("a power cut between an append and its head update, or a head record that could not be "
+                "rewritten: a log folder that refuses new files, e.g. read-only")
+"""Why a head record is behind lines that chain from it: both leave that trace."""
+
 
 @frozen
 class VerifyReport:
@@ -164,8 +168,8 @@ def verify_lines(
             )
     elif head.get("seq") == 0 and head.get("sha256") == GENESIS_SHA256:
         if n:
-            notes.append(f"head record is {n} entr{'y' if n == 1 else 'ies'} behind (power cut between the first "
-                         "append and its head update); the lines chain correctly from the start")
+            notes.append(f"head record is {n} entr{'y' if n == 1 else 'ies'} behind ({_HEAD_BEHIND}); the lines "
+                         "chain correctly from the start")
     else:
         hseq, hsha = head.get("seq"), head.get("sha256")
         if not isinstance(hseq, int) or isinstance(hseq, bool) or not isinstance(hsha, str):
@@ -189,8 +193,7 @@ def verify_lines(
                 after = f"line {n}" if at + 1 == n else f"lines {at + 1}–{n}"
                 sound = not any(at < k <= n for k in unsound)
                 notes.append(
-                    f"head record is {n - at} entr{'y' if n - at == 1 else 'ies'} behind (power cut between "
-                    f"an append and its head update); "
+                    f"head record is {n - at} entr{'y' if n - at == 1 else 'ies'} behind ({_HEAD_BEHIND}); "
                     + (f"{after} {'chains' if at + 1 == n else 'chain'} correctly from it" if sound
                        else f"{after}, after it: see the problems above")
                 )

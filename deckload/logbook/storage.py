@@ -13,6 +13,7 @@ from __future__ import annotations
 
 import json
 import os
+import tempfile
 from datetime import datetime, timezone
 from pathlib import Path
 
@@ -137,6 +138,18 @@ class LogStore:
         except (ValueError, RecursionError):
             return {"damaged": True}
         return head if isinstance(head, dict) else {"damaged": True}
+
+    def head_unwritable(self) -> str | None:
+        """Why the head record could not be rewritten now, or None: :func:`write_atomic` makes a new
+        file in its folder, which a read-only folder refuses although the log itself takes appends.
+        The probe makes and removes such a file (named as write_atomic's, so a leftover is cleared)."""
+        try:
+            fd, tmp = tempfile.mkstemp(prefix=f".{self.head_path.name}.", suffix=".tmp", dir=self.head_path.parent)
+        except OSError as exc:
+            return exc.strerror or str(exc)
+        os.close(fd)
+        os.unlink(tmp)
+        return None
 
     def write_head(self, seq: int, sha256: str) -> None:
         """Rewrite the head record atomically: the newest entry's number and SHA-256."""
