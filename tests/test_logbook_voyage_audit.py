@@ -396,3 +396,49 @@ def test_verify_names_a_folder_that_refuses_the_head_record_as_a_cause_of_it_bei
     folder_refuses()
     assert main(["log", "--dir", str(three), "verify"]) == 0
     assert f"note: the log folder {three} refuses a new file now (Permission denied)" in capsys.readouterr().out
+
+
+# --------------------------------------------------------------------------- 8. the printout for signature
+
+
+def test_the_printout_for_signature_holds_what_a_signature_needs(logs, monkeypatch, capsys):
+    """The HTML and CSV exports had no KG (stored in each entry), no signature lines, the ship's time
+    without its offset, trim and list as bare signs, the vessel's name on the first page only, no page
+    numbers, and the long 'not assessed' text on every row; show printed HH:MM alone."""
+    import csv
+    import io
+    import json
+
+    monkeypatch.setenv("DECKLOAD_SHIP_OFFSET", "+02:00")
+    for c in ("departure", "midvoyage", "arrival"):
+        assert record(logs, c) == 0
+    with Logbook.open(logs, VESSEL, readonly=True) as book:
+        es = book.entries()
+    capsys.readouterr()
+    assert main(["log", "--dir", str(logs), "export", "--html"]) == 0
+    html = capsys.readouterr().out
+    assert "<th>KG fluid m</th>" in html and f'<td class="n">{es[1].summary["kg_fluid_m"]:.3f}</td>' in html
+    assert "Officer:" in html and "Master:" in html and "Date/time:" in html  # the condition report's lines
+    assert html.index("Master:") > html.rindex("</table>")
+    assert f"{es[0].ship_time:%Y-%m-%d %H:%M} (+02:00)" in html
+    trim, heel = es[0].summary["trim_m"], es[0].summary["list_deg"]
+    assert f"{abs(trim):.3f} m by the {'stern' if trim > 0 else 'head'}" in html
+    assert f"{abs(heel):.1f}° to {'starboard' if heel > 0 else 'port'}" in html or f"{0:.1f}°" in html
+    assert '<tr class="running"><th colspan=' in html and "Voyage loading log — Demo Islander</th>" in html
+    assert "counter(page)" in html and "counter(pages)" in html
+    not_assessed = es[0].summary["not_assessed"][0]["reason"]
+    assert html.count(not_assessed) == 1 and html.count("<td>[1]</td>") == 3
+
+    assert main(["log", "--dir", str(logs), "export", "--csv"]) == 0
+    rows = list(csv.DictReader(io.StringIO(capsys.readouterr().out)))
+    assert [r["kg_fluid_m"] for r in rows] == [f"{e.summary['kg_fluid_m']:.3f}" for e in es]
+
+    assert main(["log", "--dir", str(logs), "show"]) == 0
+    out = capsys.readouterr().out
+    assert f"   1  {es[0].ship_time:%Y-%m-%d %H:%M} (+02:00)  JM" in out
+    # deckload's own words keep within 100 columns; an entry's change and remark stay on its row, unwrapped
+    # (a wrapped remark could print a line that looks like an entry's row)
+    rows_ = [ln for ln in out.splitlines()[1:] if ln[:4].strip().isdigit()]
+    assert len(rows_) == 3 and all(ln.index("condition recorded") <= 80 for ln in rows_)
+    assert max(len(ln) for ln in out.splitlines()[1:] if ln not in rows_) <= 100
+    assert json.loads((logs / LOG).read_text().splitlines()[0])["ship_clock"] == "+02:00"
