@@ -442,3 +442,29 @@ def test_the_printout_for_signature_holds_what_a_signature_needs(logs, monkeypat
     assert len(rows_) == 3 and all(ln.index("condition recorded") <= 80 for ln in rows_)
     assert max(len(ln) for ln in out.splitlines()[1:] if ln not in rows_) <= 100
     assert json.loads((logs / LOG).read_text().splitlines()[0])["ship_clock"] == "+02:00"
+
+
+# --------------------------------------------------------------------------- 9. lesser
+
+
+def test_verify_mentions_a_torn_line_set_aside(three, capsys):
+    """After --recover set a torn line aside, verify said 'OK' and nothing of the side file."""
+    log = three / LOG
+    log.write_bytes(log.read_bytes() + b'{"format":"deckload-log-1","seq":4,')
+    assert main(["log", "--dir", str(three), "verify", "--recover"]) == 0
+    (side,) = three.glob(f"{LOG}.torn-*.txt")
+    capsys.readouterr()
+    assert main(["log", "--dir", str(three), "verify"]) == 0
+    assert f"note: {side.name}: a torn last line set aside earlier (35 bytes)" in capsys.readouterr().out
+
+
+def test_two_halves_joined_are_not_blamed_on_a_power_cut(three, capsys):
+    """Lines 1–2 appended again after line 3: the head (entry #3) is 'behind', but not by a power cut."""
+    log = three / LOG
+    lines = log.read_bytes().splitlines(keepends=True)
+    log.write_bytes(b"".join([*lines, lines[0], lines[1]]))
+    capsys.readouterr()
+    assert main(["log", "--dir", str(three), "verify"]) == 1
+    out = capsys.readouterr().out
+    assert "power cut" not in out.replace("not the trace of a power cut", "")
+    assert "lines 4–5 after it do not chain from it" in out and "earlier than entry" not in out

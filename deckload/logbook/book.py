@@ -10,6 +10,7 @@ next chained line (:mod:`.records`) and returns only once it is on disk.
 from __future__ import annotations
 
 import errno
+import glob
 import os
 from datetime import datetime, timedelta, timezone
 from pathlib import Path
@@ -443,6 +444,12 @@ class Logbook:
                 f"{self.path.name}: missing, but its head record {self.head_path.name} names entry "
                 f"#{head.get('seq')} — the log was deleted or moved (tampering suspected)"])
         rep = self._verify_data(lines, tail, head, writer_active=self.writer_active() and not self._lock.held)
+        side = sorted(self.path.parent.glob(f"{glob.escape(self.path.name)}.torn-*.txt"))
+        if side:  # (a torn line set aside is kept, never dropped: whoever checks the log must hear of it)
+            rep = VerifyReport(ok=rep.ok, problems=rep.problems, entries=rep.entries, last_sha256=rep.last_sha256,
+                               notes=[*rep.notes, *(f"{p.name}: a torn last line set aside earlier ({_size(p)}), "
+                                                    "kept beside the log: the append it belonged to never reported "
+                                                    "done" for p in side)])
         if any(n.startswith("head record is") for n in rep.notes):
             why = self._store.head_unwritable()
             if why is not None:
@@ -502,6 +509,13 @@ class Logbook:
             self.close()
         except Exception:
             pass
+
+
+def _size(path: Path) -> str:
+    try:
+        return f"{path.stat().st_size} bytes"
+    except OSError as exc:
+        return f"unreadable: {exc.strerror or exc}"
 
 
 def _local_offset_checked(offset: timedelta) -> timedelta:

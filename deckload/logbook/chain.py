@@ -134,7 +134,7 @@ def verify_lines(
 
     back = clock_back(read)
     for e in read:
-        if e.line_no in back:
+        if e.line_no in back and e.line_no not in unsound:  # (a line joined or moved is the problems' to name)
             before, span = back[e.line_no]
             notes.append(f"line {e.line_no}: entry #{e.seq} is timed {span_words(span)} earlier than entry #{before} "
                          f"before it ({e.utc:%Y-%m-%d %H:%M:%S} against {e.utc + span:%Y-%m-%d %H:%M:%S} UTC): the "
@@ -167,9 +167,12 @@ def verify_lines(
                 "the newest entries may have been removed or edited without trace (tampering suspected)"
             )
     elif head.get("seq") == 0 and head.get("sha256") == GENESIS_SHA256:
-        if n:
+        if n and not unsound:
             notes.append(f"head record is {n} entr{'y' if n == 1 else 'ies'} behind ({_HEAD_BEHIND}); the lines "
                          "chain correctly from the start")
+        elif n:
+            notes.append(f"head record names no entry yet, and the log has {n}: they do not all chain from the start "
+                         "(see the problems above), which is not the trace of a power cut")
     else:
         hseq, hsha = head.get("seq"), head.get("sha256")
         if not isinstance(hseq, int) or isinstance(hseq, bool) or not isinstance(hsha, str):
@@ -192,11 +195,13 @@ def verify_lines(
             elif at < n:
                 after = f"line {n}" if at + 1 == n else f"lines {at + 1}–{n}"
                 sound = not any(at < k <= n for k in unsound)
-                notes.append(
-                    f"head record is {n - at} entr{'y' if n - at == 1 else 'ies'} behind ({_HEAD_BEHIND}); "
-                    + (f"{after} {'chains' if at + 1 == n else 'chain'} correctly from it" if sound
-                       else f"{after}, after it: see the problems above")
-                )
+                if sound:
+                    notes.append(f"head record is {n - at} entr{'y' if n - at == 1 else 'ies'} behind ({_HEAD_BEHIND}); "
+                                 f"{after} {'chains' if at + 1 == n else 'chain'} correctly from it")
+                else:  # (a power cut leaves the head behind lines that chain from it: these do not)
+                    notes.append(f"head record names entry #{hseq} on line {at}; {after} after it "
+                                 f"{'does' if at + 1 == n else 'do'} not chain from it (see the problems above): not "
+                                 "the trace of a power cut, but of lines joined, inserted or edited")
     return VerifyReport(
         ok=not problems,
         problems=problems,
