@@ -23,19 +23,28 @@ from deckload.logbook import (
     LogEntry,
     Logbook,
     LogLockedError,
+    back_words,
+    case_stray_words,
+    case_strays,
+    clock_back,
+    clock_back_words,
     log_files,
 )
 
 CAUTION = vf.CAUTION
 
 CSV_COLUMNS = (
-    "seq", "utc", "ship_time", "ship_clock", "vessel", "by", "kind", "change", "remark", "condition_name",
-    "displacement_t", "draft_fwd_m", "draft_aft_m", "draft_mean_m", "trim_m", "list_deg", "gm_fluid_m",
+    "seq", "utc", "ship_time", "ship_clock", "clock_back", "vessel", "by", "kind", "change", "remark", "condition_name",
+    "displacement_t", "draft_fwd_m", "draft_aft_m", "draft_mean_m", "trim_m", "list_deg", "kg_fluid_m", "gm_fluid_m",
     "fsc_m", "criteria_pass", "criteria_failed", "criteria_sets", "criteria_not_assessable", "not_assessed",
     "verdict", "freeboard_m", "load_line_margin_m", "deck_edge_angle_deg", "smallest_margin_criterion", "smallest_margin",
     "smallest_margin_unit", "prev_sha256", "sha256",
 )
 """Columns of ``deckload log export --csv`` (SI units, as in the log itself)."""
+
+
+SHOW_WIDTH = 100
+"""Columns ``log show`` wraps its own words within (an entry's change and remark stay on its row)."""
 
 
 def _log_dir(args) -> Path:
@@ -103,9 +112,14 @@ def _record(args) -> int:
     try:
         if book.recovered_torn is not None:
             print(f"deckload: recovered: {book.recovered_torn}", file=sys.stderr)
+        if book.restored_line_end is not None:
+            print(f"deckload: repaired: {book.restored_note}", file=sys.stderr)
         if book.readonly:
             print(f"deckload: cannot record: {book.path}: {book.readonly_reason}", file=sys.stderr)
             return 1
+        before = book.verify()  # (an append never repairs a broken chain: the officer must hear of it)
+        if not before.ok:
+            print(f"deckload: WARNING: {before.failing_words(book.path.name)}", file=sys.stderr)
         entry = book.append(
             kind=args.kind,
             by=by,
@@ -127,6 +141,8 @@ def _record(args) -> int:
     if book.head_problem:
         print(f"deckload: warning: {book.head_path}: {book.head_problem} (the entry itself is recorded)",
               file=sys.stderr)
+    if book.clock_back is not None:
+        print(f"deckload: warning: {clock_back_words(entry.seq, *book.clock_back)}", file=sys.stderr)
     try:
         print(
             f"Recorded entry #{entry.seq} in {book.path} at {entry.utc:%Y-%m-%d %H:%M:%S} UTC by {entry.by}: "
@@ -136,6 +152,9 @@ def _record(args) -> int:
             print(line)
         print(CAUTION)
         sys.stdout.flush()
+        if not before.ok:  # said again last, where the eye ends
+            print(f"deckload: WARNING: entry #{entry.seq} is recorded, but {before.failing_words(book.path.name)}",
+                  file=sys.stderr)
     except OSError as e:
         # The entry is on disk: saying otherwise would invite a second, duplicate record.
         if isinstance(e, BrokenPipeError):
@@ -172,8 +191,9 @@ def _fmt(x, digits: int = 3) -> str:
     return str(x)
 
 
-def entry_row(e: LogEntry) -> dict[str, str]:
-    """One entry as the CSV/HTML columns (:data:`CSV_COLUMNS`)."""
+def entry_row(e: LogEntry, back: tuple[int, object] | None = None) -> dict[str, str]:
+    """One entry as the CSV/HTML columns (:data:`CSV_COLUMNS`); ``back`` is what
+    :func:`~deckload.logbook.clock_back` says of it (timed earlier than the entry before)."""
     s = e.summary or {}
     sm = s.get("smallest_margin") or {}
     return {
@@ -181,6 +201,7 @@ def entry_row(e: LogEntry) -> dict[str, str]:
         "utc": e.utc.strftime("%Y-%m-%dT%H:%M:%S.%f")[:-3] + "Z",
         "ship_time": e.ship_time.strftime("%Y-%m-%d %H:%M:%S"),
         "ship_clock": e.ship_clock,
+        "clock_back": back_words(back),
         "vessel": e.vessel,
         "by": e.by,
         "kind": e.kind,
@@ -193,6 +214,7 @@ def entry_row(e: LogEntry) -> dict[str, str]:
         "draft_mean_m": _fmt(s.get("draft_mean_m")),
         "trim_m": _fmt(s.get("trim_m")),
         "list_deg": _fmt(s.get("list_deg"), 1),  # angles to 0.1°, as every view gives them
+        "kg_fluid_m": _fmt(s.get("kg_fluid_m")),
         "gm_fluid_m": _fmt(s.get("gm_fluid_m")),
         "fsc_m": _fmt(s.get("fsc_m")),
         "criteria_pass": {"": "", "met": "pass", "NOT MET": "FAIL", "met where assessable": "n/a"}[vf.stored_word(s)],
@@ -227,12 +249,23 @@ def damaged_row(path: Path, problem: str) -> str:
     return f"   !  DAMAGED {path.name} {problem} — left out (run 'deckload log verify')"
 
 
+def _strays(args) -> list[str]:
+    """A log's files found under names in other letters' case (never read): what to say of each."""
+    from deckload.io.paths import vessel_slug
+
+    vessel = getattr(args, "vessel", None)
+    return [case_stray_words(*s) for s in case_strays(_log_dir(args), vessel_slug(vessel) if vessel else None)]
+
+
 def _show(args) -> int:
+    strays = _strays(args)
+    for words in strays:
+        print(f"  ! NOT READ: {words}")
     books = _books(args)
     if not books:
         print(f"no logs in {_log_dir(args)}")
-        return 0
-    broken = 0
+        return 1 if strays else 0
+    broken = len(strays)
     for book in books:
         try:
             entries = book.entries()
@@ -241,27 +274,32 @@ def _show(args) -> int:
                 broken += 1
                 print(f"  ! {broken_words(book.path, rep.problems)}")
             print(f"{escape_breaks(book.vessel_name)} — {book.path} ({len(entries)} entries)")
-            print(f"{'#':>4}  {'UTC':<19}  {'ship':<5}  {'by':<4}  {'kind':<9}  {'GM fl m':>7}  {'criteria':<14}  change")
+            print(f"{'#':>4}  {'ship time (UTC offset)':<25}  {'by':<4}  {'kind':<9}  {'GM fl m':>7}  {'criteria':<14}  "
+                  "change")
             damaged = list(book.skipped_lines)
+            back = clock_back(entries)
             for e in entries:
                 while damaged and damaged[0][0] < e.line_no:
                     print(damaged_row(book.path, damaged.pop(0)[1]))
                 r = entry_row(e)
-                print(
-                    f"{e.seq:>4}  {e.utc:%Y-%m-%d %H:%M:%S}  {e.ship_time:%H:%M}  {escape_breaks(e.by):<4}  "
-                    f"{escape_breaks(e.kind):<9}  {r['gm_fluid_m']:>7}  {vf.stored_short(e.summary):<14}  "
-                    f"{escape_breaks(e.change_text)}" + (f" — {escape_breaks(e.remark)}" if e.remark else "")
-                )
+                # The ship's date and time with its offset from UTC (the UTC time follows from them).  The
+                # change stays on its row, never wrapped: text typed or stored must not make a line that
+                # looks like an entry's row of its own.
+                print(f"{e.seq:>4}  {e.ship_time:%Y-%m-%d %H:%M} ({e.ship_clock})  {escape_breaks(e.by):<4}  "
+                      f"{escape_breaks(e.kind):<9}  {r['gm_fluid_m']:>7}  {vf.stored_short(e.summary):<14}  "
+                      f"{escape_breaks(e.change_text)}" + (f" — {escape_breaks(e.remark)}" if e.remark else ""))
+                if e.line_no in back:
+                    print(f"      ◂ {back_words(back[e.line_no])}")
                 na = (e.summary or {}).get("not_assessed")
                 if na:
                     text = "not assessed: " + vf.grouped_not_assessed((x.get("item"), x.get("reason")) for x in na)
-                    print("\n".join(textwrap.wrap(text, 110, initial_indent=" " * 6, subsequent_indent=" " * 8)))
+                    print("\n".join(textwrap.wrap(text, SHOW_WIDTH, initial_indent=" " * 6, subsequent_indent=" " * 8)))
             for _, s in damaged:
                 print(damaged_row(book.path, s))
             print()
         finally:
             book.close()
-    print(CAUTION)
+    print("\n".join(textwrap.wrap(CAUTION, SHOW_WIDTH)))
     return 1 if broken else 0  # (exit 1: a log that fails verification, as 'log verify')
 
 
@@ -269,27 +307,54 @@ def export_csv(entries: list[LogEntry]) -> str:
     buf = io.StringIO()
     w = csv.DictWriter(buf, fieldnames=CSV_COLUMNS, lineterminator="\r\n")
     w.writeheader()
+    back = clock_back(entries)
     for e in entries:
-        w.writerow(entry_row(e))
+        w.writerow(entry_row(e, back.get(e.line_no)))
     return buf.getvalue()
+
+
+def sided(x, digits: int, unit: str, plus: str, minus: str) -> str:
+    """A magnitude with its side ('0.2° to port', '0.313 m by the stern'): signs only in JSON and CSV;
+    '—' for no number (the log screen's words, :mod:`deckload.ui.log_screen`)."""
+    if not isinstance(x, (int, float)) or isinstance(x, bool):
+        return "—"
+    if round(abs(x), digits) == 0:
+        return f"{0:.{digits}f}{unit}"
+    return f"{abs(x):.{digits}f}{unit} {plus if x > 0 else minus}"
 
 
 def export_html(books: list[tuple[str, list[LogEntry]]], broken: dict[str, str] | None = None,
                 damaged: dict[str, list[str]] | None = None) -> str:
-    """The log(s) as one printable HTML page (A4 landscape); ``broken`` maps a vessel to the words
-    (:func:`broken_words`) printed above her table when her log fails verification, ``damaged`` to
-    the lines of her log that could not be read (file, line and why), printed below it."""
-    cols = ("seq", "utc", "ship_time", "by", "kind", "change", "remark", "displacement_t", "draft_fwd_m",
-            "draft_aft_m", "trim_m", "list_deg", "gm_fluid_m", "fsc_m", "freeboard_m", "criteria_pass",
+    """The log(s) as one printable HTML page (A4 landscape) for signature; ``broken`` maps a vessel to
+    the words (:func:`broken_words`) printed above her table when her log fails verification,
+    ``damaged`` to the lines of her log that could not be read (file, line and why), printed below it.
+
+    Every printed page repeats the vessel's name in the table's head and numbers the pages (CSS
+    ``@page`` margin boxes, where the browser prints them); what was not assessed is written once
+    under the table, each row naming its note; the signature lines of the condition report end it."""
+    from deckload.report.condition_report import SIGNATURE_ROW_MM, _signatures_html
+
+    cols = ("seq", "ship_time", "utc", "by", "kind", "change", "remark", "displacement_t", "draft_fwd_m",
+            "draft_aft_m", "trim", "list", "kg_fluid_m", "gm_fluid_m", "fsc_m", "freeboard_m", "criteria_pass",
             "criteria_sets", "not_assessed", "smallest_margin_criterion", "smallest_margin")
-    heads = ("#", "UTC", "Ship's time", "By", "Kind", "Change", "Remark", "Δ t", "T fwd m", "T aft m", "Trim m",
-             "List °", "GM fluid m", "FSC m", "Freeboard m", "Criteria", "Sets assessed", "Not assessed",
-             "Smallest margin", "Margin")
+    heads = ("#", "Ship's time (UTC offset)", "UTC", "By", "Kind", "Change", "Remark", "Δ t", "T fwd m", "T aft m",
+             "Trim", "List", "KG fluid m", "GM fluid m", "FSC m", "Freeboard m", "Criteria", "Sets assessed",
+             "Not assessed", "Smallest margin", "Margin")
     out = [
         "<!DOCTYPE html>",
         '<html lang="en"><head><meta charset="utf-8"><title>Voyage loading log</title>',
         "<style>",
-        "@page { size: A4 landscape; margin: 10mm; }",
+        "@page { size: A4 landscape; margin: 10mm 10mm 12mm;",
+        '  @bottom-left { content: "deckload voyage loading log"; font: 7pt sans-serif; }',
+        '  @bottom-right { content: "page " counter(page) " of " counter(pages); font: 7pt sans-serif; } }',
+        "td.w { white-space: nowrap; }",
+        "tr.running th { background: none; border: none; text-align: left; font-size: 9pt; padding: 0 0 2pt; }",
+        ".legend { font-size: 7.5pt; } .legend dt { float: left; clear: left; font-weight: bold; width: 2.5em; }",
+        ".legend dd { margin-left: 2.5em; }",
+        ".signatures { font-family: sans-serif; margin-top: 6mm; break-inside: avoid; }",
+        f".sig {{ display: flex; align-items: flex-end; height: {SIGNATURE_ROW_MM:g}mm; gap: 2mm; }}",
+        ".sig .line { border-bottom: 0.4pt solid #000; height: 1em; }",
+        ".sig .sign { flex: 3; } .sig .name { flex: 2; } .sig .when { flex: 1.3; }",
         "body { font-family: sans-serif; font-size: 8pt; }",
         "table { border-collapse: collapse; width: 100%; }",
         "th, td { border: 0.5pt solid #888; padding: 1pt 3pt; vertical-align: top; }",
@@ -299,27 +364,48 @@ def export_html(books: list[tuple[str, list[LogEntry]]], broken: dict[str, str] 
         ".broken { font-weight: bold; font-size: 11pt; color: #b00; border: 2pt solid #b00; padding: 4pt; }",
         "</style></head><body>",
     ]
-    numeric = {"seq", "displacement_t", "draft_fwd_m", "draft_aft_m", "trim_m", "list_deg", "gm_fluid_m", "fsc_m",
+    numeric = {"seq", "displacement_t", "draft_fwd_m", "draft_aft_m", "kg_fluid_m", "gm_fluid_m", "fsc_m",
                "freeboard_m", "smallest_margin"}
     for vessel, entries in books:
         out.append(f"<h1>Voyage loading log — {htmllib.escape(vessel)}</h1>")
         if broken and vessel in broken:
             out.append(f'<p class="broken">{htmllib.escape(broken[vessel])}</p>')
         head = "".join(f"<th>{htmllib.escape(h)}</th>" for h in heads)
-        out.append(f"<table><thead><tr>{head}</tr></thead><tbody>")
+        running = (f'<tr class="running"><th colspan="{len(heads)}">Voyage loading log — {htmllib.escape(vessel)}'
+                   + (" — LOG CHAIN BROKEN, see page 1" if broken and vessel in broken else "") + "</th></tr>")
+        out.append(f"<table><thead>{running}<tr>{head}</tr></thead><tbody>")
+        back = clock_back(entries)
+        notes: dict[str, int] = {}  # what was not assessed, in words → its number in the legend
         for e in entries:
-            r = entry_row(e)
+            r = entry_row(e, back.get(e.line_no))
+            s = e.summary or {}
+            r["ship_time"] = f"{e.ship_time:%Y-%m-%d %H:%M} ({e.ship_clock})"
+            r["utc"] = f"{e.utc:%H:%M:%S}Z"  # (the date is the ship's, the offset beside it)
+            r["trim"] = sided(s.get("trim_m"), 3, " m", "by the stern", "by the head")
+            r["list"] = sided(s.get("list_deg"), 1, "°", "to starboard", "to port")
+            na = s.get("not_assessed")
+            if na:
+                words = vf.grouped_not_assessed((x.get("item"), x.get("reason")) for x in na)
+                r["not_assessed"] = f"[{notes.setdefault(words, len(notes) + 1)}]"
             cells = []
             for c in cols:
-                cls = ' class="n"' if c in numeric else (' class="fail"' if r[c] == "FAIL" else "")
-                cells.append(f"<td{cls}>{htmllib.escape(r[c])}</td>")
+                cls = (' class="n"' if c in numeric else ' class="fail"' if r[c] == "FAIL"
+                       else ' class="w"' if c in ("ship_time", "utc", "trim", "list") else "")
+                mark = (f'<br><span class="fail">◂ {htmllib.escape(r["clock_back"])}</span>'
+                        if c == "ship_time" and r["clock_back"] else "")
+                cells.append(f"<td{cls}>{htmllib.escape(r[c])}{mark}</td>")
             out.append("<tr>" + "".join(cells) + "</tr>")
         out.append("</tbody></table>")
+        if notes:
+            out.append('<p class="legend"><strong>Not assessed</strong> (each row names its note):</p>'
+                       '<dl class="legend">' + "".join(f"<dt>[{n}]</dt><dd>{htmllib.escape(words)}</dd>"
+                                                       for words, n in notes.items()) + "</dl>")
         for words in (damaged or {}).get(vessel, []):
             out.append(f'<p class="broken">DAMAGED, left out: {htmllib.escape(words)}</p>')
         if entries:
             out.append(f"<p>Newest entry #{entries[-1].seq}, SHA-256 <code>{entries[-1].sha256}</code></p>")
     out.append(f"<p><strong>{htmllib.escape(CAUTION)}</strong></p>")
+    out.append(_signatures_html())
     out.append("</body></html>")
     return "\n".join(out) + "\n"
 
@@ -333,6 +419,8 @@ def _export(args) -> int:
         except OutputRefused as e:
             print(f"deckload log export: {e}: nothing exported; name another file", file=sys.stderr)
             return 1
+    for words in _strays(args):
+        print(f"deckload: NOT READ: {words}", file=sys.stderr)
     books = _books(args)
     try:
         data = [(b.vessel_name, b.entries()) for b in books]
@@ -364,23 +452,32 @@ def _verify(args) -> int:
     directory = _log_dir(args)
     if getattr(args, "recover", False):
         if getattr(args, "vessel", None):
-            opened = [lambda: Logbook.open(directory, args.vessel)]
+            opened = [lambda: Logbook.open(directory, args.vessel, repair_copy=True)]
         else:  # the files found, each as itself: never a file named from what is written inside one
-            opened = [lambda p=p: Logbook.open_file(p, readonly=False) for p in log_files(directory)]
+            opened = [lambda p=p: Logbook.open_file(p, readonly=False, repair_copy=True) for p in log_files(directory)]
         for open_one in opened:
             with open_one() as b:
                 if b.recovered_torn is not None:
                     print(f"recovered: {b.recovered_torn}")
+                if b.repaired_copy is not None:
+                    changes, kept = b.repaired_copy
+                    print(f"repaired: {b.path.name}: {changes} by a copy; {changes.them} taken out (the "
+                          f"entries were intact without them); the file as found is kept as {kept.name}")
+                if b.restored_line_end is not None:
+                    print(f"repaired: {b.restored_note}")
                 if b.readonly and not b.path.exists():
                     print(f"{b.path.name}: missing; nothing to recover")
                 elif b.readonly:
                     print(f"{b.path.name}: not opened for writing: {b.readonly_reason}")
+    strays = _strays(args)
+    for words in strays:
+        print(f"NOT READ: {words}")
     books = _books(args)
     against = getattr(args, "against", None)
     if not books:
         print(f"no logs in {directory}")
-        return 1 if against is not None else 0
-    bad = 0
+        return 1 if against is not None or strays else 0
+    bad = len(strays)
     found = None
     for book in books:
         try:

@@ -8,7 +8,10 @@ File layout, in the log folder (``deckload.io.paths.log_dir``), per vessel:
   notice that the newest entries were removed or the last one edited, which a hash chain
   alone cannot (nothing follows the last line to record its hash);
 * ``<slug>.log.lock`` — the writer's lock file (``fcntl.flock``); it holds the writer's pid;
-* ``<slug>.log.jsonl.torn-<UTC>.txt`` — a torn last line set aside at start.
+* ``<slug>.log.jsonl.torn-<UTC>.txt`` — a torn last line set aside at start;
+* ``<slug>.log.jsonl.as-copied-<UTC>.bak`` — the log as a copy left it (a BOM before line 1, CR LF
+  line ends), kept when ``log verify --recover`` takes them out (only when the entries are intact
+  without them; until then nothing is recorded in it).
 
 Each line holds (format ``deckload-log-1``)::
 
@@ -44,6 +47,7 @@ from deckload.logbook.clock import (
     format_offset,
     format_utc,
     local_offset,
+    span_words,
     parse_offset,
     utc_now,
 )
@@ -61,15 +65,31 @@ from deckload.logbook.records import (
     summarise,
     validate_initials,
 )
-from deckload.logbook.chain import GENESIS_SHA256, VerifyReport, find_anchor, verify_lines
-from deckload.logbook.storage import HEAD_FORMAT, TornRecovery, _split_lines, log_files, vessel_of_log
+from deckload.logbook.chain import (
+    GENESIS_SHA256,
+    VerifyReport,
+    back_words,
+    clock_back,
+    clock_back_words,
+    find_anchor,
+    verify_lines,
+)
+from deckload.logbook.storage import (
+    HEAD_FORMAT,
+    TornRecovery,
+    _split_lines,
+    case_stray_words,
+    case_strays,
+    log_files,
+    vessel_of_log,
+)
 from deckload.logbook.lock import LogLockedError
 from deckload.logbook.book import Logbook, anchor
 
 __all__ = [
     "FORMAT", "GENESIS_SHA256", "HEAD_FORMAT", "KINDS", "KIND_LABELS", "LogEntry", "LogFormatError",
-    "LogLockedError", "Logbook", "ShipOffsetError", "TornRecovery", "VerifyReport", "anchor", "clock_stamp",
+    "LogLockedError", "Logbook", "ShipOffsetError", "case_stray_words", "case_strays", "TornRecovery", "VerifyReport", "anchor", "back_words", "clock_back", "clock_back_words", "clock_stamp",
     "condition_of", "condition_record", "filter_entries", "find_anchor", "format_offset", "format_utc",
-    "local_offset", "log_files", "parse_offset", "sha256_hex", "summarise", "utc_now", "validate_initials",
+    "local_offset", "log_files", "parse_offset", "sha256_hex", "span_words", "summarise", "utc_now", "validate_initials",
     "verify_lines", "vessel_of_log", "vessel_slug",
 ]

@@ -14,13 +14,19 @@ from __future__ import annotations
 import json
 import re
 from dataclasses import field
+from datetime import timedelta
 
 from deckload.core.frozen import frozen
 from deckload.io.paths import vessel_slug
-from deckload.logbook.records import KINDS, LogFormatError, _entry_from_line, sha256_hex
+from deckload.logbook.clock import span_words
+from deckload.logbook.records import KINDS, LogEntry, LogFormatError, _entry_from_line, sha256_hex
 
 GENESIS_SHA256 = "0" * 64
 """``prev_sha256`` of the first entry: there is no previous line."""
+
+_HEAD_BEHIND = ("a power cut between an append and its head update, or a head record that could not be "
+                "rewritten: a log folder that refuses new files, e.g. read-only")
+"""Why a head record is behind lines that chain from it: both leave that trace."""
 
 
 @frozen
@@ -37,6 +43,13 @@ class VerifyReport:
     """Number of complete lines read."""
     last_sha256: str = GENESIS_SHA256
     """SHA-256 of the newest complete line: write it in the paper log to anchor the chain."""
+
+    def failing_words(self, file_name: str) -> str:
+        """What a writer says of a log that fails verification before (and after) recording in it."""
+        first = self.problems[0] if self.problems else "none"
+        return (f"{file_name}: this log fails verification ({len(self.problems)} problem(s), the first: {first}): "
+                "run 'deckload log verify'; entries are still recorded after them, and the log stays broken "
+                "until what went wrong is looked into")
 
 
 def verify_lines(
@@ -62,11 +75,17 @@ def verify_lines(
     """
     problems: list[str] = []
     notes: list[str] = []
+    if whole_unterminated(tail, head):
+        lines, tail = [*lines, tail], b""
+        notes.append(f"line {len(lines)}: complete, but the file ends without its line end (copied or saved "
+                     "without it); its SHA-256 is the one the head record names, so the entry is intact; "
+                     "the next record (or 'deckload log verify --recover') restores the line end")
     prev_sha = GENESIS_SHA256
     seqs: list[int | None] = []
     unsound: set[int] = set()  # lines unreadable, or not chained or numbered from the line before
     recorded: tuple[int, str] | None = None  # (line, vessel) of the first entry, for a log found by its file
     offset = 0  # seq − line number: changes exactly where entries were removed, inserted or moved
+    read: list[LogEntry] = []
     for i, line in enumerate(lines, start=1):
         try:
             e = _entry_from_line(line, i)
@@ -77,6 +96,7 @@ def verify_lines(
             prev_sha = sha256_hex(line)
             continue
         seqs.append(e.seq)
+        read.append(e)
         chained = e.prev_sha256 == prev_sha
         if not chained or e.seq - i != offset:
             unsound.add(i)
@@ -112,6 +132,14 @@ def verify_lines(
             problems.append(f"line {i}: kind {e.kind!r} is not one of {', '.join(KINDS)}")
         prev_sha = sha256_hex(line)
 
+    back = clock_back(read)
+    for e in read:
+        if e.line_no in back and e.line_no not in unsound:  # (a line joined or moved is the problems' to name)
+            before, span = back[e.line_no]
+            notes.append(f"line {e.line_no}: entry #{e.seq} is timed {span_words(span)} earlier than entry #{before} "
+                         f"before it ({e.utc:%Y-%m-%d %H:%M:%S} against {e.utc + span:%Y-%m-%d %H:%M:%S} UTC): the "
+                         "PC's clock was set back, or was wrong before; the lines keep the order of recording")
+
     seen: dict[int, int] = {}
     for i, s in enumerate(seqs, start=1):
         if s is None:
@@ -139,9 +167,12 @@ def verify_lines(
                 "the newest entries may have been removed or edited without trace (tampering suspected)"
             )
     elif head.get("seq") == 0 and head.get("sha256") == GENESIS_SHA256:
-        if n:
-            notes.append(f"head record is {n} entr{'y' if n == 1 else 'ies'} behind (power cut between the first "
-                         "append and its head update); the lines chain correctly from the start")
+        if n and not unsound:
+            notes.append(f"head record is {n} entr{'y' if n == 1 else 'ies'} behind ({_HEAD_BEHIND}); the lines "
+                         "chain correctly from the start")
+        elif n:
+            notes.append(f"head record names no entry yet, and the log has {n}: they do not all chain from the start "
+                         "(see the problems above), which is not the trace of a power cut")
     else:
         hseq, hsha = head.get("seq"), head.get("sha256")
         if not isinstance(hseq, int) or isinstance(hseq, bool) or not isinstance(hsha, str):
@@ -164,12 +195,13 @@ def verify_lines(
             elif at < n:
                 after = f"line {n}" if at + 1 == n else f"lines {at + 1}–{n}"
                 sound = not any(at < k <= n for k in unsound)
-                notes.append(
-                    f"head record is {n - at} entr{'y' if n - at == 1 else 'ies'} behind (power cut between "
-                    f"an append and its head update); "
-                    + (f"{after} {'chains' if at + 1 == n else 'chain'} correctly from it" if sound
-                       else f"{after}, after it: see the problems above")
-                )
+                if sound:
+                    notes.append(f"head record is {n - at} entr{'y' if n - at == 1 else 'ies'} behind ({_HEAD_BEHIND}); "
+                                 f"{after} {'chains' if at + 1 == n else 'chain'} correctly from it")
+                else:  # (a power cut leaves the head behind lines that chain from it: these do not)
+                    notes.append(f"head record names entry #{hseq} on line {at}; {after} after it "
+                                 f"{'does' if at + 1 == n else 'do'} not chain from it (see the problems above): not "
+                                 "the trace of a power cut, but of lines joined, inserted or edited")
     return VerifyReport(
         ok=not problems,
         problems=problems,
@@ -177,6 +209,37 @@ def verify_lines(
         entries=n,
         last_sha256=sha256_hex(lines[-1]) if lines else GENESIS_SHA256,
     )
+
+
+def whole_unterminated(tail: bytes, head: dict | None) -> bool:
+    """True when the log's unterminated end is the whole line the head record names (its SHA-256 is
+    the head's): a copy dropped only the final line end, and the entry is intact.  A torn write
+    never matches: the head is rewritten only after the whole line and its end are on disk."""
+    sha = head.get("sha256") if isinstance(head, dict) else None
+    return bool(tail) and isinstance(sha, str) and sha == sha256_hex(tail)
+
+
+def clock_back(entries: list[LogEntry]) -> dict[int, tuple[int, timedelta]]:
+    """Entries timed earlier than the entry before them in the log (by line: a clock set back, or
+    wrong before): line number → (the entry before's number, how much earlier)."""
+    out = {}
+    for before, e in zip(entries, entries[1:]):
+        if e.utc < before.utc:
+            out[e.line_no] = (before.seq, before.utc - e.utc)
+    return out
+
+
+def clock_back_words(seq: int, before: int, span: timedelta) -> str:
+    """The warning of a record whose time is earlier than the newest entry's before it."""
+    return (f"the clock reads {span_words(span)} earlier than entry #{before}, the newest before this one: the "
+            f"PC's clock was set back, or was wrong then; entry #{seq} is recorded with the time the clock gives "
+            "(check the clock; 'deckload log verify' names every entry timed earlier than the one before it)")
+
+
+def back_words(back: tuple[int, timedelta] | None) -> str:
+    """An entry's mark in show and the exports when it is timed earlier than the entry before it
+    (``back`` as :func:`clock_back` gives it; '' for None)."""
+    return "" if back is None else f"timed {span_words(back[1])} earlier than #{back[0]} before it (clock set back?)"
 
 
 def _line_of_seq(seqs: list[int | None], seq: int) -> int | None:

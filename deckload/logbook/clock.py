@@ -70,3 +70,17 @@ def configured_offset() -> timedelta:
         return parse_offset(env)
     except ShipOffsetError as e:
         raise ShipOffsetError(f"DECKLOAD_SHIP_OFFSET: {e}") from None
+
+
+def span_words(span: timedelta) -> str:
+    """A length of time in words, to the second below a minute: '45 s', '1 h 00 min', '1 d 23 h 30 min'."""
+    total = round(abs(span.total_seconds()))
+    if total < 60:
+        return f"{total} s"
+    days, rest = divmod(total // 60, 24 * 60)
+    hours, minutes = divmod(rest, 60)
+    if days:
+        return f"{days} d {hours:02d} h {minutes:02d} min"
+    if hours:
+        return f"{hours} h {minutes:02d} min"
+    return f"{minutes} min"

@@ -13,6 +13,7 @@ from __future__ import annotations
 
 import json
 import os
+import tempfile
 from datetime import datetime, timezone
 from pathlib import Path
 
@@ -65,6 +66,18 @@ class LogStore:
             fsync_dir(self.path.parent)
         return created
 
+    def read_open(self) -> bytes:
+        """The whole log as the writer's descriptor reads it."""
+        return _read_fd(self.fd)
+
+    def replace_with(self, data: bytes, keep_as: Path) -> None:
+        """Replace the log with ``data``: the bytes found are first written to ``keep_as``
+        (fsynced), then the log is rewritten atomically and reopened for appending."""
+        write_atomic(keep_as, _read_fd(self.fd))
+        write_atomic(self.path, data)
+        self.close()
+        self.open_for_append()
+
     def scan(self) -> tuple[list[bytes], bytes]:
         """The complete lines of the open log and its torn tail (b"" when there is none).
 
@@ -88,6 +101,12 @@ class LogStore:
         os.ftruncate(self.fd, os.fstat(self.fd).st_size - len(torn))
         os.fsync(self.fd)
         return TornRecovery(self.path, side, line_no, len(torn))
+
+    def end_last_line(self) -> None:
+        """Append the line end a copy dropped after the last (whole) line, then fsync: one byte
+        written on ``O_APPEND``, nothing else of the file touched."""
+        _write_all(self.fd, b"\n")
+        os.fsync(self.fd)
 
     def append_line(self, line: bytes) -> None:
         """Write ``line`` and its line end, then fsync; on failure cut back to the last good line."""
@@ -120,6 +139,18 @@ class LogStore:
             return {"damaged": True}
         return head if isinstance(head, dict) else {"damaged": True}
 
+    def head_unwritable(self) -> str | None:
+        """Why the head record could not be rewritten now, or None: :func:`write_atomic` makes a new
+        file in its folder, which a read-only folder refuses although the log itself takes appends.
+        The probe makes and removes such a file (named as write_atomic's, so a leftover is cleared)."""
+        try:
+            fd, tmp = tempfile.mkstemp(prefix=f".{self.head_path.name}.", suffix=".tmp", dir=self.head_path.parent)
+        except OSError as exc:
+            return exc.strerror or str(exc)
+        os.close(fd)
+        os.unlink(tmp)
+        return None
+
     def write_head(self, seq: int, sha256: str) -> None:
         """Rewrite the head record atomically: the newest entry's number and SHA-256."""
         write_atomic(self.head_path, (_dumps({"format": HEAD_FORMAT, "seq": seq, "sha256": sha256}) + "\n").encode())
@@ -144,6 +175,52 @@ def _write_all(fd: int, data: bytes) -> None:
     while view:
         n = os.write(fd, view)
         view = view[n:]
+
+
+BOM = b"\xef\xbb\xbf"
+"""The UTF-8 byte-order mark some Windows editors and copy tools put before a text file's first line."""
+
+
+@frozen
+class CopyChanges:
+    """What a copy (a Windows editor or copy tool) did to a log's bytes: a byte-order mark put
+    before line 1, line ends turned into CR LF.  deckload never writes either: a raw CR or a BOM
+    at the start cannot stand in a line it wrote (JSON escapes control characters in text)."""
+
+    bom: bool
+    crlf_lines: int
+    lines: int
+
+    def __str__(self) -> str:
+        what = []
+        if self.bom:
+            what.append("a byte-order mark (BOM) was put before line 1")
+        if self.crlf_lines:
+            of = "every line" if self.crlf_lines == self.lines else f"{self.crlf_lines} of {self.lines} lines"
+            what.append(f"the line ends of {of} were turned into Windows line ends (CR LF)")
+        return " and ".join(what)
+
+    @property
+    def them(self) -> str:
+        """What is to be taken out, in words: 'the BOM', 'the CRs', 'the BOM and the CRs'."""
+        return " and ".join(w for w, on in (("the BOM", self.bom), ("the CRs", self.crlf_lines)) if on)
+
+
+def undo_copy(data: bytes) -> tuple[bytes, CopyChanges | None]:
+    """The log's bytes with a copy's BOM and CR LF line ends taken out, and what was taken out
+    (None: the bytes are as deckload writes them).  Only a BOM at the very start and a CR right
+    before a line end (or ending the file) are taken: nothing else of a line is touched."""
+    bom = data.startswith(BOM)
+    if bom:
+        data = data[len(BOM):]
+    crlf = data.count(b"\r\n")
+    if crlf:
+        data = data.replace(b"\r\n", b"\n")
+    if data.endswith(b"\r"):
+        data, crlf = data[:-1], crlf + 1
+    if not bom and not crlf:
+        return data, None
+    return data, CopyChanges(bom, crlf, data.count(b"\n") + (0 if data.endswith(b"\n") or not data else 1))
 
 
 def _split_lines(data: bytes) -> tuple[list[bytes], bytes]:
@@ -179,6 +256,46 @@ def log_files(directory: Path) -> list[Path]:
     logs = set(d.glob("*.log.jsonl"))
     logs |= {h.with_name(h.name.removesuffix(".head.json") + ".jsonl") for h in d.glob("*.log.head.json")}
     return sorted(logs)
+
+
+LOG_SUFFIXES = (".log.jsonl", ".log.head.json")
+"""The names a voyage log's files end with: the log and its head record."""
+
+
+def case_strays(directory: Path, slug: str | None = None) -> list[tuple[Path, Path]]:
+    """Files in ``directory`` named as a log's files in other letters' case (``DEMO-ISLANDER.LOG.JSONL``:
+    a copy through a file system or tool that changed the case of names), each with the name deckload
+    reads, (found, expected); only those of ``slug``'s log when given.  deckload's names are all
+    casefolded (``paths.vessel_slug``), so such a file is never read, and a new log would start beside it."""
+    d = Path(directory)
+    try:
+        names = sorted(os.listdir(d))
+    except OSError:
+        return []
+    out = []
+    for name in names:
+        folded = name.casefold()
+        if folded == name or not folded.endswith(LOG_SUFFIXES):
+            continue
+        if slug is not None and folded not in {slug + s for s in LOG_SUFFIXES}:
+            continue
+        expected = d / folded
+        try:
+            if expected.exists() and os.path.samefile(d / name, expected):
+                continue  # (a file system blind to case: the file deckload reads is this one)
+        except OSError:
+            pass
+        out.append((d / name, expected))
+    return out
+
+
+def case_stray_words(found: Path, expected: Path) -> str:
+    """What verify, show and record say of a file :func:`case_strays` found."""
+    also = (f"; {expected.name} exists as well: two logs of one vessel, look into which holds the voyage's "
+            "entries before recording more" if expected.exists() else "")
+    return (f"{found.name}: named as a voyage log's file in other letters' case (a copy that changed the case of "
+            f"file names?): deckload reads {expected.name} and never this one, which is not read or checked; "
+            f"rename it {expected.name}" + also)
 
 
 def vessel_of_log(path: Path) -> str:

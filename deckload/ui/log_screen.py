@@ -39,7 +39,7 @@ from deckload.core.frozen import frozen
 from deckload.io.textsafe import escape_breaks, escaped
 from deckload.report import verdict_format as vf
 from deckload.core.model import Condition, Vessel
-from deckload.logbook import KIND_LABELS, KINDS, LogEntry, Logbook, condition_of
+from deckload.logbook import KIND_LABELS, KINDS, LogEntry, Logbook, back_words, clock_back, condition_of
 from deckload.ui.widgets import SteadyInput
 
 ALL_KINDS = "all"
@@ -106,13 +106,16 @@ def _short(text: str, n: int) -> str:
     return text if len(text) <= n else text[: n - 1] + "…"
 
 
-def entry_details(e: LogEntry, width: int | None = None) -> Text:
-    """The entry's stored summary as it was computed when recorded (nothing recomputed).  With
+def entry_details(e: LogEntry, back: tuple | None = None, width: int | None = None) -> Text:
+    """The entry's stored summary as it was computed when recorded (nothing recomputed); ``back``:
+    what :func:`~deckload.logbook.clock_back` says of it (timed earlier than the entry before).  With
     ``width``, every line fits it: a line too long carries on under its own value (a row's under the
     value column, any other indented), so the view does not wrap it again at column 1."""
     t = Text()
     t.append(f"Entry #{e.seq}  ", style="bold")
     t.append(f"{e.ship_time:%Y-%m-%d %H:%M} ship's time ({e.ship_clock}), {e.utc:%Y-%m-%d %H:%M:%S} UTC\n")
+    if back is not None:
+        t.append(f"◂ {back_words(back)}\n", style="bold red")
     label = KIND_LABELS.get(e.kind, e.kind)
     said = e.change_text
     if said.lower().startswith(label.lower() + ":"):  # "condition recorded by TS: condition recorded: …" once
@@ -222,21 +225,24 @@ _SHOWING_FAILED = (TypeError, ValueError, OverflowError, AttributeError, KeyErro
 is then shown as damaged, never the loading screen closed (records._entry_from_line checks first)."""
 
 
-def _row(e: LogEntry) -> tuple[Text, ...]:
-    """The entry's cells in the log table; a damaged entry's say so."""
+def _row(e: LogEntry, back: tuple | None = None) -> tuple[Text, ...]:
+    """The entry's cells in the log table; a damaged entry's say so; one timed earlier than the entry
+    before it (``back``) has its time marked ◂."""
     try:
         word = vf.stored_short(e.summary)
-        return (*(Text(c) for c in (str(e.seq), f"{e.ship_time:%m-%d %H:%M}", e.kind, e.by,
-                                    _short(escape_breaks(e.change_text), 30), _num(e.gm_fluid_m))),
+        when = Text(f"{e.ship_time:%m-%d %H:%M}" + (" ◂" if back is not None else ""),
+                    style="bold red" if back is not None else "")
+        return (Text(str(e.seq)), when,
+                *(Text(c) for c in (e.kind, e.by, _short(escape_breaks(e.change_text), 30), _num(e.gm_fluid_m))),
                 Text(word or "—", style="bold red" if word.startswith("NOT") else ""))
     except _SHOWING_FAILED:
         return (Text(str(e.seq)), Text("—"), Text("—"), Text("—"), Text(f"line {e.line_no} damaged", style="bold red"),
                 Text("—"), Text("—"))
 
 
-def _details_or_damage(e: LogEntry, width: int | None = None) -> Text:
+def _details_or_damage(e: LogEntry, back: tuple | None = None, width: int | None = None) -> Text:
     try:
-        return entry_details(e, width)
+        return entry_details(e, back, width)
     except _SHOWING_FAILED as exc:
         return Text(f"Line {e.line_no} (entry #{e.seq}) is damaged and cannot be shown ({type(exc).__name__}); "
                     "press v to verify the log.", style="bold red")
@@ -247,15 +253,16 @@ class _EntryDetails(Static):
     90 columns and wrapped again by the box, its verdict fell into fragments and a long row went on
     at column 1."""
 
-    def __init__(self, entry: LogEntry, **kwargs):
+    def __init__(self, entry: LogEntry, back: tuple | None = None, **kwargs):
         super().__init__(**kwargs)
         self.entry = entry
+        self.back = back
 
     def render(self) -> Text:
-        return _details_or_damage(self.entry, self.size.width or None)
+        return _details_or_damage(self.entry, self.back, self.size.width or None)
 
     def get_content_height(self, container, viewport, width: int) -> int:
-        return len(_details_or_damage(self.entry, width or None).plain.split("\n"))
+        return len(_details_or_damage(self.entry, self.back, width or None).plain.split("\n"))
 
 
 class EntryScreen(ModalScreen[None]):
@@ -266,13 +273,14 @@ class EntryScreen(ModalScreen[None]):
         Binding("escape,enter", "dismiss_entry", "Close"),
     ]
 
-    def __init__(self, entry: LogEntry):
+    def __init__(self, entry: LogEntry, back: tuple | None = None):
         super().__init__(id="log-entry-screen")
         self.entry = entry
+        self.back = back
 
     def compose(self) -> ComposeResult:
         with VerticalScroll(id="log-entry-box"):
-            yield _EntryDetails(self.entry, id="log-entry-summary")
+            yield _EntryDetails(self.entry, self.back, id="log-entry-summary")
             cond = self.entry.condition
             if cond is not None:
                 yield Static(Text("Condition as recorded (read-only)", style="bold"), classes="log-entry-head")
@@ -309,6 +317,8 @@ class LogScreen(Screen["RestoreRequest | None"]):
         """Entry whose restore was asked for once; a second r on it restores."""
         self._chain: tuple[tuple, object] | None = None
         """The log's verification with the state of its files it was made on (see :meth:`_chain_report`)."""
+        self._back: dict = {}
+        """Entries timed earlier than the entry before them (:func:`~deckload.logbook.clock_back`)."""
 
     # ----------------------------------------------------------------- layout
 
@@ -338,10 +348,11 @@ class LogScreen(Screen["RestoreRequest | None"]):
         """Re-read the log, apply the filters, fill the table (newest entry selected)."""
         entries = self.logbook.entries()
         self.shown = select_entries(entries, self.kind, self.day_from, self.day_to)
+        self._back = clock_back(entries)  # (against the entry before in the log, whatever the filters show)
         table = self.query_one("#log-table", DataTable)
         table.clear()
         for i, e in enumerate(self.shown):
-            table.add_row(*_row(e), key=str(i))
+            table.add_row(*_row(e, self._back.get(e.line_no)), key=str(i))
         if self.shown:
             table.move_cursor(row=len(self.shown) - 1)
         mode = "read-only" if self.logbook.readonly else "writing"
@@ -390,7 +401,8 @@ class LogScreen(Screen["RestoreRequest | None"]):
     def _show_detail(self) -> None:
         e = self.current()
         detail = self.query_one("#log-detail", Static)
-        detail.update(_details_or_damage(e) if e is not None else Text("No entries match the filters.", style="italic"))
+        detail.update(_details_or_damage(e, self._back.get(e.line_no)) if e is not None
+                      else Text("No entries match the filters.", style="italic"))
 
     @on(DataTable.RowHighlighted, "#log-table")
     def _highlighted(self, _event: DataTable.RowHighlighted) -> None:
@@ -443,7 +455,7 @@ class LogScreen(Screen["RestoreRequest | None"]):
         if e is None:
             self.notify("No entry selected.", severity="warning")
             return
-        self.app.push_screen(EntryScreen(e))
+        self.app.push_screen(EntryScreen(e, self._back.get(e.line_no)))
 
     def _vessel(self) -> Vessel | None:
         if self.vessel is not None:

@@ -607,9 +607,15 @@ class LoadingScreen(Screen[None]):
             if not answer:
                 return
             stale = self.session.stale  # recorded without a result: the message must not read as a full record
+            j.clock_warning = None
             problems = self.session.record(*answer)
             for p in problems:
                 self.notify(p, severity="error", timeout=8, markup=False)
+            if j.clock_warning:
+                self.notify(f"Recorded, but {j.clock_warning}", severity="warning", timeout=20, markup=False)
+            broken = j.broken()
+            if broken and not problems:
+                self.notify(f"Recorded, but {broken}", severity="warning", timeout=20, markup=False)
             if problems:
                 self.say("Not recorded", ok=False)
             elif stale:

@@ -130,6 +130,9 @@ class Journal:
         """Why the log cannot be written (read-only, unreadable), or None."""
         self.notice: str | None = None
         """Something the officer should read at start-up (e.g. a torn last line set aside)."""
+        self.clock_warning: str | None = None
+        """Set by an entry recorded with the clock earlier than the newest entry's time (the record
+        action shows it); None otherwise."""
         self.officer = ""
         """Initials of the officer on watch (1–4 letters); edits are logged under them, and not
         logged until someone signs on (the title line says so)."""
@@ -138,16 +141,29 @@ class Journal:
     def writable(self) -> bool:
         return self.logbook is not None and not self.logbook.readonly
 
+    def broken(self) -> str | None:
+        """What to say when the log fails verification (None: it verifies, or cannot be read here)."""
+        try:
+            rep = self.logbook.verify()
+        except Exception:  # (reading it again failed: the record itself was reported already)
+            return None
+        return None if rep.ok else rep.failing_words(self.logbook.path.name)
+
     def append(self, **entry: Any) -> str | None:
         """Append an entry; return an error message instead of raising."""
         if not self.writable or not (entry.get("by") or self.officer):
             return None
         entry.setdefault("by", self.officer)
         try:
-            self.logbook.append(**entry)
+            done = self.logbook.append(**entry)
         except Exception as exc:  # the log must never take the screen down
             where = getattr(self.logbook, "path", "the voyage log")
             return f"NOT RECORDED in {where}: {getattr(exc, 'strerror', None) or exc}. Nothing was added to the log."
+        back = getattr(self.logbook, "clock_back", None)
+        if back is not None:
+            from deckload.logbook import clock_back_words
+
+            self.clock_warning = clock_back_words(done.seq, *back)
         return None
 
 
