@@ -314,16 +314,21 @@ def test_a_clean_log_records_without_a_warning(three, capsys):
     assert "WARNING" not in capsys.readouterr().err
 
 
-def test_the_loading_screen_warns_at_start_and_at_record_of_a_log_that_fails_verification(three, tmp_path):
-    from deckload.ui.launch import open_journal
+async def test_the_loading_screen_warns_after_its_first_frame_of_a_log_that_fails_verification(three, tmp_path):
+    """The whole chain is read once the first frame is drawn (not before it: 0.4 s for 2000 entries),
+    and a log that fails it is said in a warning; the journal's own check says the same."""
+    from deckload.ui.launch import create_app
+    from demo_vessels import demo_departure
 
     _duplicate_an_entry(three)
-    journal = open_journal(three, VESSEL)
-    try:
-        assert journal.writable and "WARNING" in journal.notice and "fails verification" in journal.notice
-        assert "fails verification (2 problem(s)" in journal.broken()
-    finally:
-        journal.logbook.close()
+    v, c = demo_departure()
+    app = create_app(v, c, work_dir=tmp_path / "work", log_dir=three, officer="JM")
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        await pilot.pause()
+        said = [str(n.message) for n in app._notifications]
+        assert any(m.startswith("WARNING") and "fails verification (2 problem(s)" in m for m in said), said
+        assert "fails verification (2 problem(s)" in app.session.journal.broken()
 
 
 # --------------------------------------------------------------------------- 6. names whose case changed
@@ -468,3 +473,27 @@ def test_two_halves_joined_are_not_blamed_on_a_power_cut(three, capsys):
     out = capsys.readouterr().out
     assert "power cut" not in out.replace("not the trace of a power cut", "")
     assert "lines 4–5 after it do not chain from it" in out and "earlier than entry" not in out
+
+
+# --------------------------------------------------------------------------- reading each line once
+
+
+def test_verifying_again_reads_only_lines_not_read_before_and_still_sees_every_change(three, monkeypatch):
+    """The screen verifies after each record; reading a line and checking its fields is nearly all of
+    it, so a line read before (the same SHA-256 at the same line) is not read again
+    (chain._CHAINED).  An edited line is a new line: it is read, and the edit is found."""
+    from deckload.logbook import chain
+
+    book = Logbook.open_file(three / LOG)
+    assert book.verify().ok
+    read = []
+    real = chain._entry_from_line
+    monkeypatch.setattr(chain, "_entry_from_line", lambda line, i: read.append(i) or real(line, i))
+    assert book.verify().ok and read == []
+    log = three / LOG
+    lines = log.read_bytes().splitlines(keepends=True)
+    edited = lines[1].replace(b'"by": "', b'"by": "X', 1) if b'"by": "' in lines[1] else lines[1].replace(b'"by":"', b'"by":"X', 1)
+    assert edited != lines[1]
+    log.write_bytes(b"".join([lines[0], edited, *lines[2:]]))
+    rep = book.verify()
+    assert read == [2] and not rep.ok and any("line 2: edited" in p for p in rep.problems), rep.problems

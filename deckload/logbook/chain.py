@@ -14,7 +14,7 @@ from __future__ import annotations
 import json
 import re
 from dataclasses import field
-from datetime import timedelta
+from datetime import datetime, timedelta
 
 from deckload.core.frozen import frozen
 from deckload.io.paths import vessel_slug
@@ -52,6 +52,42 @@ class VerifyReport:
                 "until what went wrong is looked into")
 
 
+@frozen
+class Chained:
+    """What verifying takes from one entry read from its line: enough to follow the chain."""
+
+    seq: int
+    prev_sha256: str
+    vessel: str
+    kind: str
+    utc: datetime
+    line_no: int
+
+
+_CHAINED: dict[tuple[str, int], Chained] = {}
+"""Lines read and checked before in this process, by (SHA-256, line number): reading a line and
+checking each of its fields is nearly all of verifying (2000 entries: 0.5 s), and a log only grows,
+so the screen's check after each record, and at start after opening, reads only the lines it has not
+read.  A pure function of those two keys (:func:`_entry_from_line` reads nothing else); a damaged
+line is never kept.  Bounded by :data:`_CHAINED_MAX` (cleared when full)."""
+
+_CHAINED_MAX = 200_000
+
+
+def _chained(line: bytes, line_no: int, sha: str) -> Chained:
+    """The line's entry as :func:`_entry_from_line` reads and checks it (raising as it does), from
+    :data:`_CHAINED` when the same line was read at the same place before."""
+    key = (sha, line_no)
+    got = _CHAINED.get(key)
+    if got is None:
+        e = _entry_from_line(line, line_no)
+        got = Chained(e.seq, e.prev_sha256, e.vessel, e.kind, e.utc, e.line_no)
+        if len(_CHAINED) >= _CHAINED_MAX:
+            _CHAINED.clear()
+        _CHAINED[key] = got
+    return got
+
+
 def verify_lines(
     lines: list[bytes],
     tail: bytes,
@@ -85,15 +121,16 @@ def verify_lines(
     unsound: set[int] = set()  # lines unreadable, or not chained or numbered from the line before
     recorded: tuple[int, str] | None = None  # (line, vessel) of the first entry, for a log found by its file
     offset = 0  # seq − line number: changes exactly where entries were removed, inserted or moved
-    read: list[LogEntry] = []
+    read: list[Chained] = []
     for i, line in enumerate(lines, start=1):
+        sha = sha256_hex(line)
         try:
-            e = _entry_from_line(line, i)
+            e = _chained(line, i, sha)
         except LogFormatError as exc:
             problems.append(f"{exc} — the line was damaged or edited")
             unsound.add(i)
             seqs.append(None)
-            prev_sha = sha256_hex(line)
+            prev_sha = sha
             continue
         seqs.append(e.seq)
         read.append(e)
@@ -130,7 +167,7 @@ def verify_lines(
                                 f"{recorded[1]!r} — one log holds one vessel's entries")
         if e.kind not in KINDS:
             problems.append(f"line {i}: kind {e.kind!r} is not one of {', '.join(KINDS)}")
-        prev_sha = sha256_hex(line)
+        prev_sha = sha
 
     back = clock_back(read)
     for e in read:
@@ -219,7 +256,7 @@ def whole_unterminated(tail: bytes, head: dict | None) -> bool:
     return bool(tail) and isinstance(sha, str) and sha == sha256_hex(tail)
 
 
-def clock_back(entries: list[LogEntry]) -> dict[int, tuple[int, timedelta]]:
+def clock_back(entries: list[LogEntry] | list[Chained]) -> dict[int, tuple[int, timedelta]]:
     """Entries timed earlier than the entry before them in the log (by line: a clock set back, or
     wrong before): line number → (the entry before's number, how much earlier)."""
     out = {}

@@ -345,6 +345,16 @@ class DeckloadApp(App[None]):
             self.call_after_refresh(self._after_first_frame)
         for n in self.notices:
             self.notify(n, severity="warning", timeout=12, markup=False)
+        if self.session.journal.writable:
+            # After the first frame, not before it: the whole chain is read (0.4 s for 2000 entries
+            # on the development machine), and the screen is of use while it is.  Recording goes on
+            # after a broken chain, so the officer must hear of it (never silently).
+            self.call_after_refresh(self._say_if_log_broken)
+
+    def _say_if_log_broken(self) -> None:
+        broken = self.session.journal.broken()
+        if broken:
+            self.notify(f"WARNING: {broken}", severity="warning", timeout=12, markup=False)
 
     def get_system_commands(self, screen: Screen) -> Iterable[SystemCommand]:
         """The command palette lists every command from the one table, with its key."""

@@ -215,10 +215,6 @@ def open_journal(log_dir: Path | None, vessel_name: str):
         journal.notice = f"voyage log recovered after an interrupted write: {book.recovered_torn}"
     elif book.restored_line_end is not None:
         journal.notice = f"voyage log repaired: {book.restored_note}"
-    if not book.readonly:
-        rep = book.verify()  # (recording goes on after a broken chain: never silently)
-        if not rep.ok:
-            journal.notice = "; ".join(filter(None, [journal.notice, f"WARNING: {rep.failing_words(book.path.name)}"]))
     return journal
 
 
