@@ -497,3 +497,69 @@ def test_verifying_again_reads_only_lines_not_read_before_and_still_sees_every_c
     log.write_bytes(b"".join([lines[0], edited, *lines[2:]]))
     rep = book.verify()
     assert read == [2] and not rep.ok and any("line 2: edited" in p for p in rep.problems), rep.problems
+
+
+# --------------------------------------------------------------------------- exports of several logs
+
+
+def test_an_export_of_two_logs_judges_each_clock_within_its_own_log(logs, monkeypatch, capsys):
+    """The trawler's log at 08:00 and 09:00, the Islander's at 12:00 and 13:00: neither clock went back.
+    Joined into one list, the second log's first entry was marked 'timed 5 h earlier … (clock set
+    back?)' against the first log's last, and the marks were looked up by line number alone."""
+    import csv
+    import io
+
+    at = [datetime(2026, 12, 3, 8, 0, tzinfo=timezone.utc)]
+    monkeypatch.setattr("deckload.logbook.book.utc_now", lambda: at[0])
+    monkeypatch.setenv("DECKLOAD_SHIP_OFFSET", "+00:00")
+    trawler = DEMO_PROFILE.parent / "demo_trawler.toml"
+    for hour, profile, cond in [(8, trawler, "departure"), (9, trawler, "grounds"),
+                                (12, DEMO_PROFILE, "departure"), (13, DEMO_PROFILE, "midvoyage")]:
+        at[0] = datetime(2026, 12, 3, hour, 0, tzinfo=timezone.utc)
+        assert main(["log", "--dir", str(logs), "record", str(profile), cond, "--by", "JM"]) == 0
+    capsys.readouterr()
+    assert main(["log", "--dir", str(logs), "export", "--csv"]) == 0
+    rows = list(csv.DictReader(io.StringIO(capsys.readouterr().out)))
+    assert len(rows) == 4 and all(r["clock_back"] == "" for r in rows), rows
+    assert main(["log", "--dir", str(logs), "export", "--html"]) == 0
+    assert "clock set back" not in capsys.readouterr().out
+
+
+def test_an_export_says_on_the_page_which_log_it_did_not_read_and_fails(three, capsys):
+    """A log renamed in capitals by a copy: show and verify exit 1 and name it; export wrote a page for
+    signature with no entries and no word of it (stderr only), exit 0."""
+    for name in (LOG, HEAD):
+        (three / name).rename(three / name.upper())
+    capsys.readouterr()
+    assert main(["log", "--dir", str(three), "export", "--html"]) == 1
+    page = capsys.readouterr().out
+    assert '<p class="broken">NOT READ: DEMO-ISLANDER.LOG.JSONL' in page
+    assert main(["log", "--dir", str(three), "export", "--csv"]) == 1
+
+
+async def test_the_screen_says_a_clock_set_back_when_an_edit_is_the_first_entry_after_it(tmp_path, monkeypatch):
+    """Record at 12:00, the clock set back an hour, then edits: the first entry timed earlier is an
+    edit logged by the writer thread.  Its warning was kept for the record action, which cleared it
+    before recording: the officer never heard of it.  Now it is said once the edit is logged."""
+    from vessel_factories import pilot_app
+
+    at = [datetime(2026, 12, 3, 12, 0, tzinfo=timezone.utc)]
+    monkeypatch.setattr("deckload.logbook.book.utc_now", lambda: at[0])
+    monkeypatch.setenv("DECKLOAD_SHIP_OFFSET", "+02:00")
+    app = pilot_app(tmp_path, log_dir=tmp_path / "logs", officer="TS")
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.press("s", "enter")
+        await pilot.pause()
+        at[0] -= timedelta(hours=1)
+        await pilot.press("plus")
+        await pilot.press("down", "down", "plus")  # another tank: the first run of edits is logged now
+        for _ in range(100):
+            await pilot.pause(0.02)
+            said = [str(n.message) for n in app._notifications]
+            if any("earlier than entry #1" in m for m in said):
+                break
+        assert any(m.startswith("Logged, but the clock reads 1 h 00 min earlier than entry #1") for m in said), said
+        await pilot.press("s", "enter")  # said once: the record after it repeats nothing
+        await pilot.pause()
+        said = [str(n.message) for n in app._notifications]
+        assert sum("earlier than entry #1" in m for m in said) == 1, said

@@ -278,11 +278,14 @@ def test_the_giving_tank_for_an_empty_tank_is_its_partner_else_the_fullest_of_it
 
 def test_a_hold_mass_typed_in_kilograms_on_the_screen_says_so():
     """The screen's refusal adds the hint as a file's does (bounds.kilograms_hint): 2 100 000 t over
-    the item bound of the box barge, 250 t over a 100 t limit (2.5 × it, a thousandth 0.25 t)."""
+    the item bound of the box barge, 25 000 t over a 100 t limit (250 × it, a thousandth 25 t); 250 t
+    (2.5 × the limit) is a mistyped load, told only the limit."""
     from deckload.core.model import Hold
 
     hold = Hold("H1", "Hold", 300.0, 20.0, 2.0, max_mass_t=100.0)
-    with pytest.raises(EntryError, match=r"structural limit 100 t; it looks like kilograms: 0\.25 t\?"):
+    with pytest.raises(EntryError, match=r"structural limit 100 t; it looks like kilograms: 25 t\?"):
+        hold_from_text(Condition(), hold, "25000")
+    with pytest.raises(EntryError, match=r"structural limit 100 t\.$"):
         hold_from_text(Condition(), hold, "250")
     with pytest.raises(EntryError, match=r"structural limit 100 t\.$"):
         hold_from_text(Condition(), hold, "120")

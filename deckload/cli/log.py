@@ -303,36 +303,32 @@ def _show(args) -> int:
     return 1 if broken else 0  # (exit 1: a log that fails verification, as 'log verify')
 
 
-def export_csv(entries: list[LogEntry]) -> str:
+def export_csv(books: list[tuple[str, list[LogEntry]]]) -> str:
+    """The entries of each log in turn as CSV rows.  An entry timed earlier than the one before it is
+    judged within its own log: two vessels' logs are two clocks (joined into one list, the first
+    entry of the second log was marked as set back against the last of the first)."""
     buf = io.StringIO()
     w = csv.DictWriter(buf, fieldnames=CSV_COLUMNS, lineterminator="\r\n")
     w.writeheader()
-    back = clock_back(entries)
-    for e in entries:
-        w.writerow(entry_row(e, back.get(e.line_no)))
+    for _, entries in books:
+        back = clock_back(entries)
+        for e in entries:
+            w.writerow(entry_row(e, back.get(e.line_no)))
     return buf.getvalue()
 
 
-def sided(x, digits: int, unit: str, plus: str, minus: str) -> str:
-    """A magnitude with its side ('0.2° to port', '0.313 m by the stern'): signs only in JSON and CSV;
-    '—' for no number (the log screen's words, :mod:`deckload.ui.log_screen`)."""
-    if not isinstance(x, (int, float)) or isinstance(x, bool):
-        return "—"
-    if round(abs(x), digits) == 0:
-        return f"{0:.{digits}f}{unit}"
-    return f"{abs(x):.{digits}f}{unit} {plus if x > 0 else minus}"
-
-
 def export_html(books: list[tuple[str, list[LogEntry]]], broken: dict[str, str] | None = None,
-                damaged: dict[str, list[str]] | None = None) -> str:
+                damaged: dict[str, list[str]] | None = None, not_read: list[str] = ()) -> str:
     """The log(s) as one printable HTML page (A4 landscape) for signature; ``broken`` maps a vessel to
     the words (:func:`broken_words`) printed above her table when her log fails verification,
-    ``damaged`` to the lines of her log that could not be read (file, line and why), printed below it.
+    ``damaged`` to the lines of her log that could not be read (file, line and why), printed below it;
+    ``not_read``: log files found under names in other letters' case, said first (their entries are
+    not on the page).
 
     Every printed page repeats the vessel's name in the table's head and numbers the pages (CSS
     ``@page`` margin boxes, where the browser prints them); what was not assessed is written once
     under the table, each row naming its note; the signature lines of the condition report end it."""
-    from deckload.report.condition_report import SIGNATURE_ROW_MM, _signatures_html
+    from deckload.report.condition_report import SIGNATURE_ROW_MM, signatures_html
 
     cols = ("seq", "ship_time", "utc", "by", "kind", "change", "remark", "displacement_t", "draft_fwd_m",
             "draft_aft_m", "trim", "list", "kg_fluid_m", "gm_fluid_m", "fsc_m", "freeboard_m", "criteria_pass",
@@ -363,6 +359,7 @@ def export_html(books: list[tuple[str, list[LogEntry]]], broken: dict[str, str] 
         ".fail { font-weight: bold; color: #b00; }",
         ".broken { font-weight: bold; font-size: 11pt; color: #b00; border: 2pt solid #b00; padding: 4pt; }",
         "</style></head><body>",
+        *(f'<p class="broken">NOT READ: {htmllib.escape(words)}</p>' for words in not_read),
     ]
     numeric = {"seq", "displacement_t", "draft_fwd_m", "draft_aft_m", "kg_fluid_m", "gm_fluid_m", "fsc_m",
                "freeboard_m", "smallest_margin"}
@@ -372,7 +369,8 @@ def export_html(books: list[tuple[str, list[LogEntry]]], broken: dict[str, str] 
             out.append(f'<p class="broken">{htmllib.escape(broken[vessel])}</p>')
         head = "".join(f"<th>{htmllib.escape(h)}</th>" for h in heads)
         running = (f'<tr class="running"><th colspan="{len(heads)}">Voyage loading log — {htmllib.escape(vessel)}'
-                   + (" — LOG CHAIN BROKEN, see page 1" if broken and vessel in broken else "") + "</th></tr>")
+                   + (" — LOG CHAIN BROKEN, see the notice above this vessel's table" if broken and vessel in broken
+                      else "") + "</th></tr>")
         out.append(f"<table><thead>{running}<tr>{head}</tr></thead><tbody>")
         back = clock_back(entries)
         notes: dict[str, int] = {}  # what was not assessed, in words → its number in the legend
@@ -381,8 +379,8 @@ def export_html(books: list[tuple[str, list[LogEntry]]], broken: dict[str, str] 
             s = e.summary or {}
             r["ship_time"] = f"{e.ship_time:%Y-%m-%d %H:%M} ({e.ship_clock})"
             r["utc"] = f"{e.utc:%H:%M:%S}Z"  # (the date is the ship's, the offset beside it)
-            r["trim"] = sided(s.get("trim_m"), 3, " m", "by the stern", "by the head")
-            r["list"] = sided(s.get("list_deg"), 1, "°", "to starboard", "to port")
+            r["trim"] = vf.sided(s.get("trim_m"), 3, " m", "by the stern", "by the head")
+            r["list"] = vf.sided(s.get("list_deg"), 1, "°", "to starboard", "to port")
             na = s.get("not_assessed")
             if na:
                 words = vf.grouped_not_assessed((x.get("item"), x.get("reason")) for x in na)
@@ -405,7 +403,7 @@ def export_html(books: list[tuple[str, list[LogEntry]]], broken: dict[str, str] 
         if entries:
             out.append(f"<p>Newest entry #{entries[-1].seq}, SHA-256 <code>{entries[-1].sha256}</code></p>")
     out.append(f"<p><strong>{htmllib.escape(CAUTION)}</strong></p>")
-    out.append(_signatures_html())
+    out.append(signatures_html())
     out.append("</body></html>")
     return "\n".join(out) + "\n"
 
@@ -419,7 +417,8 @@ def _export(args) -> int:
         except OutputRefused as e:
             print(f"deckload log export: {e}: nothing exported; name another file", file=sys.stderr)
             return 1
-    for words in _strays(args):
+    strays = _strays(args)
+    for words in strays:
         print(f"deckload: NOT READ: {words}", file=sys.stderr)
     books = _books(args)
     try:
@@ -435,17 +434,18 @@ def _export(args) -> int:
     for words in broken.values():  # (the CSV has no place for it: it goes to the terminal)
         print(f"deckload: {words}", file=sys.stderr)
     if args.csv:
-        text = export_csv([e for _, es in data for e in es])
+        text = export_csv(data)
     else:
         text = export_html(data, broken, {b.vessel_name: [f"{b.path.name} {s}" for s in b.skipped]
-                                          for b in books if b.skipped})
+                                          for b in books if b.skipped}, not_read=strays)
+    failed = 1 if broken or strays else 0  # (as 'log show' and 'log verify': a page that lacks a log is no record)
     if args.output is None:
         sys.stdout.write(text)
-        return 1 if broken else 0
+        return failed
     write_atomic(Path(args.output), text.encode("utf-8"))
     n = sum(len(es) for _, es in data)
     print(f"{n} entries written to {args.output}", file=sys.stderr)
-    return 1 if broken else 0
+    return failed
 
 
 def _verify(args) -> int:

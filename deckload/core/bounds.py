@@ -137,13 +137,13 @@ def below_limit(value: float, limit: float) -> bool:
     return not value >= limit - ROUND_OFF * max(1.0, abs(limit))
 
 
-KILOGRAM_SLIP_EXCESS = 2.0
-"""A mass above its limit is said to look like kilograms only when it is at least twice the limit
-and its thousandth lies within the allowed range.  Within twice the limit an overload is a load one
-could mean (a hold loaded 10 % over); far beyond it, with a thousandth that fits, the mass was
-typed in kg for t (common practice: booklets print masses in tonnes, cargo papers often in kg;
-a hold of 2100 t typed 2 100 000 was told only that it was above the structural limit, found by
-an audit)."""
+KILOGRAM_SLIP_EXCESS = 20.0
+"""A mass above its limit is said to look like kilograms only when it is at least 20 times the limit
+and its thousandth lies within the allowed range.  A kilogram slip is a factor of 1000; a few times
+the limit is a mistyped or misread load (110 t in a 55 t hold read 'it looks like kilograms:
+0.11 t?' at the earlier factor of 2, found in review), and 20 × still hints for every load from 2 %
+of the limit up (common practice: booklets print masses in tonnes, cargo papers often in kg; a hold
+of 2100 t typed 2 100 000 was told only that it was above the structural limit, found by an audit)."""
 
 
 def kilograms_hint(x: float, low: float, high: float) -> str:

@@ -9,10 +9,11 @@ next chained line (:mod:`.records`) and returns only once it is on disk.
 
 from __future__ import annotations
 
+import dataclasses
 import errno
 import glob
 import os
-from datetime import datetime, timedelta, timezone
+from datetime import datetime, timedelta
 from pathlib import Path
 from typing import Callable
 
@@ -75,9 +76,9 @@ class Logbook:
     vessel_name: str
     recovered_torn: TornRecovery | None
     restored_line_end: int | None
+    """The line whose lost line end (a copy without it) was restored at opening, else None."""
     repaired_copy: tuple[CopyChanges, Path] | None
     """What a copy had changed and where the file as found was kept, when opening repaired it."""
-    """The line whose lost line end (a copy without it) was restored at opening, else None."""
     ship_clock: str | None
 
     def __init__(self) -> None:  # use Logbook.open
@@ -255,12 +256,7 @@ class Logbook:
                                 f"fails verification ({len(rep.problems)} problem(s)): not rewritten; run "
                                 "'deckload log verify' and look into them first")
             return False
-        stamp = self._clock().astimezone(timezone.utc).strftime("%Y%m%dT%H%M%SZ")
-        keep = self.path.with_name(f"{self.path.name}.as-copied-{stamp}.bak")
-        k = 1
-        while keep.exists():
-            k += 1
-            keep = self.path.with_name(f"{self.path.name}.as-copied-{stamp}-{k}.bak")
+        keep = self._store.side_file("as-copied", self._clock(), ".bak")
         self._store.replace_with(norm, keep)
         self.repaired_copy = (changes, keep)
         return True
@@ -446,17 +442,16 @@ class Logbook:
         rep = self._verify_data(lines, tail, head, writer_active=self.writer_active() and not self._lock.held)
         side = sorted(self.path.parent.glob(f"{glob.escape(self.path.name)}.torn-*.txt"))
         if side:  # (a torn line set aside is kept, never dropped: whoever checks the log must hear of it)
-            rep = VerifyReport(ok=rep.ok, problems=rep.problems, entries=rep.entries, last_sha256=rep.last_sha256,
-                               notes=[*rep.notes, *(f"{p.name}: a torn last line set aside earlier ({_size(p)}), "
-                                                    "kept beside the log: the append it belonged to never reported "
-                                                    "done" for p in side)])
+            rep = dataclasses.replace(rep, notes=[
+                *rep.notes, *(f"{p.name}: a torn last line set aside earlier ({_size(p)}), kept beside the log: "
+                              "the append it belonged to never reported done" for p in side)])
         if any(n.startswith("head record is") for n in rep.notes):
             why = self._store.head_unwritable()
             if why is not None:
-                rep = VerifyReport(ok=rep.ok, problems=rep.problems, entries=rep.entries, last_sha256=rep.last_sha256,
-                                   notes=[*rep.notes, f"the log folder {self.head_path.parent} refuses a new file now "
-                                          f"({why}): the head record cannot be updated there, which leaves it "
-                                          "behind as entries are appended (deckload refuses to record there)"])
+                rep = dataclasses.replace(rep, notes=[
+                    *rep.notes, f"the log folder {self.head_path.parent} refuses a new file now ({why}): the head "
+                                "record cannot be updated there, which leaves it behind as entries are appended "
+                                "(deckload refuses to record there)"])
         if changes is None:
             return rep
         if rep.problems:
@@ -466,11 +461,9 @@ class Logbook:
             then = (f"with {changes.them} taken out every entry is intact (each line verified without them: "
                     f"{rep.entries} entries, chain and head record agree); to repair it, run 'deckload log "
                     "verify --recover': it takes them out and keeps the file as found beside it (….bak)")
-        return VerifyReport(
-            ok=False,
-            problems=[f"{self.path.name}: changed by a copy, not by an edit: {changes}; {then}. Nothing is "
-                      "recorded in this log until it is repaired", *rep.problems],
-            notes=rep.notes, entries=rep.entries, last_sha256=rep.last_sha256)
+        return dataclasses.replace(rep, ok=False, problems=[
+            f"{self.path.name}: changed by a copy, not by an edit: {changes}; {then}. Nothing is recorded in this "
+            "log until it is repaired", *rep.problems])
 
     @property
     def restored_note(self) -> str:

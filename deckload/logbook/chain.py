@@ -69,9 +69,10 @@ _CHAINED: dict[tuple[str, int], Chained] = {}
 checking each of its fields is nearly all of verifying (2000 entries: 0.5 s), and a log only grows,
 so the screen's check after each record, and at start after opening, reads only the lines it has not
 read.  A pure function of those two keys (:func:`_entry_from_line` reads nothing else); a damaged
-line is never kept.  Bounded by :data:`_CHAINED_MAX` (cleared when full)."""
+line is never kept.  Bounded by :data:`_CHAINED_MAX` (cleared when full): about 520 bytes a line,
+so 10 MiB at most on a low-power PC; a log beyond it is read whole again at each check."""
 
-_CHAINED_MAX = 200_000
+_CHAINED_MAX = 20_000
 
 
 def _chained(line: bytes, line_no: int, sha: str) -> Chained:

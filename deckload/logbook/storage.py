@@ -89,14 +89,20 @@ class LogStore:
             torn = lines.pop() + b"\n"
         return lines, torn
 
-    def set_aside_torn(self, torn: bytes, line_no: int, now: datetime) -> TornRecovery:
-        """Copy the torn tail to a side file named for ``now`` (fsynced), then cut it from the log."""
+    def side_file(self, what: str, now: datetime, suffix: str) -> Path:
+        """A file beside the log that does not exist yet, named for what it keeps and the UTC time
+        (``<log>.<what>-<stamp>[-k]<suffix>``): a second one in the same second gets a number."""
         stamp = now.astimezone(timezone.utc).strftime("%Y%m%dT%H%M%SZ")
-        side = self.path.with_name(f"{self.path.name}.torn-{stamp}.txt")
+        side = self.path.with_name(f"{self.path.name}.{what}-{stamp}{suffix}")
         k = 1
         while side.exists():
             k += 1
-            side = self.path.with_name(f"{self.path.name}.torn-{stamp}-{k}.txt")
+            side = self.path.with_name(f"{self.path.name}.{what}-{stamp}-{k}{suffix}")
+        return side
+
+    def set_aside_torn(self, torn: bytes, line_no: int, now: datetime) -> TornRecovery:
+        """Copy the torn tail to a side file named for ``now`` (fsynced), then cut it from the log."""
+        side = self.side_file("torn", now, ".txt")
         write_atomic(side, torn)
         os.ftruncate(self.fd, os.fstat(self.fd).st_size - len(torn))
         os.fsync(self.fd)

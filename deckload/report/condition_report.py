@@ -442,7 +442,7 @@ def _signatures_text() -> Text:
     return t
 
 
-def _signatures_html() -> str:
+def signatures_html() -> str:
     rows = "".join(
         f'<div class="sig"><span class="who">{who}:</span><span class="line sign"></span>'
         f'<span class="who">Name:</span><span class="line name"></span>'
@@ -814,7 +814,7 @@ pre code {{ font-family: inherit; }}
         *(f'<pre class="{cls}">{b}</pre>' for cls, (b, _) in zip(("items", "deadweight", "free-surface", "criteria", "direct"),
                                                                    body)),
         f'<pre class="closing">{closing}</pre>',
-        _signatures_html(),
+        signatures_html(),
         "</div>",
         "</body>",
         "</html>",

@@ -320,3 +320,14 @@ def doubts_block(doubts, width: int = 100, indent: str = "  ") -> list[str]:
     for d in doubts:
         out += textwrap.wrap(d, width, initial_indent=indent + "  - ", subsequent_indent=indent + "    ")
     return out
+
+
+def sided(x, digits: int, unit: str, plus: str, minus: str) -> str:
+    """A magnitude with its side in the caller's words ('0.2° to port', '0.2° P', '0.313 m by the
+    stern'): signs only in JSON and CSV; '—' for no number (a stored summary may lack one)."""
+    if not isinstance(x, (int, float)) or isinstance(x, bool):
+        return "—"
+    if round(abs(x), digits) == 0:
+        return f"{0:.{digits}f}{unit}"
+    return f"{abs(x):.{digits}f}{unit} {plus if x > 0 else minus}"
+

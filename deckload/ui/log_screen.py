@@ -87,15 +87,6 @@ def select_entries(
     return out
 
 
-def _sided(x, digits: int, unit: str, plus: str, minus: str) -> str:
-    """A magnitude with its side ('0.2° P', '0.313 m by the stern'): signs only in JSON and CSV."""
-    if not isinstance(x, (int, float)) or isinstance(x, bool):
-        return "—"
-    if round(abs(x), digits) == 0:
-        return f"{0:.{digits}f}{unit}"
-    return f"{abs(x):.{digits}f}{unit} {plus if x > 0 else minus}"
-
-
 def _num(x, digits: int = 3, unit: str = "") -> str:
     if isinstance(x, (int, float)) and not isinstance(x, bool):
         return f"{x:.{digits}f}{unit}"
@@ -133,8 +124,8 @@ def entry_details(e: LogEntry, back: tuple | None = None, width: int | None = No
             ("Deadweight", _num(s.get("deadweight_t"), 1, " t")),
             ("Draft aft / mid / fwd",
              " / ".join(_num(s.get(k)) for k in ("draft_aft_m", "draft_mean_m", "draft_fwd_m")) + " m"),
-            ("Trim", _sided(s.get("trim_m"), 3, " m", "by the stern", "by the head")),
-            ("List", _sided(s.get("list_deg"), 1, "°", "S", "P")),
+            ("Trim", vf.sided(s.get("trim_m"), 3, " m", "by the stern", "by the head")),
+            ("List", vf.sided(s.get("list_deg"), 1, "°", "S", "P")),
             ("KG fluid", _num(s.get("kg_fluid_m"), 3, " m")),
             ("FSC", _num(s.get("fsc_m"), 3, " m")),
             ("GM fluid", _num(s.get("gm_fluid_m"), 3, " m")),

@@ -226,6 +226,9 @@ class LoadingScreen(Screen[None]):
         """A change reached the disk (or failed, which ``_report`` says): redraw the title."""
         if self.is_attached:
             self.query_one("#titlebar", SizedPanel).show(lambda w, h: [self._title(w)])
+        back = self.session.journal.take_clock_warning()
+        if back:  # an edit logged with the clock set back: said as a record's would be
+            self.notify(f"Logged, but {back}", severity="warning", timeout=20, markup=False)
 
     def _report(self, problem: str) -> None:
         # A save or log failure replaces the message line, which must never still read as done.
@@ -607,12 +610,12 @@ class LoadingScreen(Screen[None]):
             if not answer:
                 return
             stale = self.session.stale  # recorded without a result: the message must not read as a full record
-            j.clock_warning = None
             problems = self.session.record(*answer)
             for p in problems:
                 self.notify(p, severity="error", timeout=8, markup=False)
-            if j.clock_warning:
-                self.notify(f"Recorded, but {j.clock_warning}", severity="warning", timeout=20, markup=False)
+            back = j.take_clock_warning()  # (this record's, or an edit's logged just before it)
+            if back:
+                self.notify(f"Recorded, but {back}", severity="warning", timeout=20, markup=False)
             broken = j.broken()
             if broken and not problems:
                 self.notify(f"Recorded, but {broken}", severity="warning", timeout=20, markup=False)

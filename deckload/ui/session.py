@@ -131,11 +131,16 @@ class Journal:
         self.notice: str | None = None
         """Something the officer should read at start-up (e.g. a torn last line set aside)."""
         self.clock_warning: str | None = None
-        """Set by an entry recorded with the clock earlier than the newest entry's time (the record
-        action shows it); None otherwise."""
+        """Set by an entry logged with the clock earlier than the newest entry's time, a record or an
+        edit logged by the writer thread, until the screen takes it (:meth:`take_clock_warning`)."""
         self.officer = ""
         """Initials of the officer on watch (1–4 letters); edits are logged under them, and not
         logged until someone signs on (the title line says so)."""
+
+    def take_clock_warning(self) -> str | None:
+        """The clock warning of the first entry logged since the last call (None: none), cleared."""
+        said, self.clock_warning = self.clock_warning, None
+        return said
 
     @property
     def writable(self) -> bool:
@@ -163,7 +168,8 @@ class Journal:
         if back is not None:
             from deckload.logbook import clock_back_words
 
-            self.clock_warning = clock_back_words(done.seq, *back)
+            # the first since the screen last said one: it names where the clock went back
+            self.clock_warning = self.clock_warning or clock_back_words(done.seq, *back)
         return None
 
 
