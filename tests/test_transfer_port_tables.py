@@ -133,7 +133,8 @@ def test_an_unpaired_tank_off_the_centreline_without_a_port_table_is_named_in_a_
     assert r.gz_port_m[30] == pytest.approx(port, abs=1e-9)
     notes = [(w.message, w.severity) for w in r.warnings if w.code == "fs-port-as-starboard"]
     assert notes == [("heeling to port, the transfer of W1 is taken from its starboard table (no port table and "
-                      "no pair): right only for a tank symmetric about its own centre plane", "caution")]
+                      "no pair): right only for a tank symmetric about its own centre plane; give moment_port_m4, "
+                      "or make the tables again with 'deckload tables' from the tank's shape", "caution")]
     centre = evaluate(vessel([_wing(0.0, None)]), Condition(tanks=(TankFill("W1", "percent", 50.0),),
                                                            gz_correction="transfer"))
     assert not [w for w in centre.warnings if w.code == "fs-port-as-starboard"]

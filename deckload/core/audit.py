@@ -31,7 +31,7 @@ import numpy as np
 
 from deckload.core import gz as gzmod
 from deckload.core.bounds import kind_density_note
-from deckload.core.criteria import SET_TITLES, SETS_BY_TYPE, evaluate_criteria
+from deckload.core.criteria import SET_TITLES, SETS_BY_TYPE, evaluate_criteria, reduced_fishing_gm_m
 from deckload.core.free_surface import settings_departures
 from deckload.core.frozen import frozen
 from deckload.core.model import Tank, Vessel
@@ -1176,7 +1176,7 @@ class _Audit:
             return
         cs = v.criteria
         sid = SETS_BY_TYPE[cs.ship_type][0]
-        fishing_gm = cs.min_gm_m if cs.ship_type == "fishing" and cs.min_gm_m is not None and cs.min_gm_m < 0.35 else None
+        fishing_gm = reduced_fishing_gm_m(cs.ship_type, cs.min_gm_m)
         h, kc, fl = v.hydrostatics, v.cross_curves, v.downflooding
         lo = max(float(h.displacement_t[0]), float(kc.displacement_t[0]))
         hi = min(float(h.displacement_t[-1]), float(kc.displacement_t[-1]))

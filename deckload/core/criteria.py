@@ -85,6 +85,14 @@ FISHING_MIN_GM_FLOOR_M = 0.15
 Administration's agreement, never below 0.15 m (standards.md §3.2 [M])."""
 FISHING_REDUCED_GM_LENGTH_M = 70.0
 
+
+def reduced_fishing_gm_m(ship_type: str, min_gm_m: float | None) -> float | None:
+    """The fishing set's GM0 limit where the profile reduces it below its 0.35 m (Part B 2.1, with the
+    Administration's agreement; the profile reader allows it only where that applies), else None.
+    The one reading of it for the verdict and the audit of a limiting curve."""
+    own = next(c.limit for c in IS2008_B21 if c.measure == "gm_fluid_m")
+    return min_gm_m if ship_type == "fishing" and min_gm_m is not None and min_gm_m < own else None
+
 OSV_SOURCE = "IS Code 2008 Part B 2.4.5 (from memory)"
 IS2008_B245: tuple[Criterion, ...] = (
     Criterion("IS2008-B2.4.5-area-0-max", "Area under GZ, 0° to the angle of maximum GZ or 30°", "area_0_max_mrad",

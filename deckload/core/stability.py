@@ -322,9 +322,10 @@ def stage_curve(vessel: Vessel, weights: Weights, fs: FreeSurface, floating: Flo
     GZ(φ) = KN(φ) − KG_fluid·sinφ ∓ TCG·cosφ with ``constant`` correction (standards.md
     §4.3, §6.3), or GZ(φ) = KN(φ) − KG_solid·sinφ − Σρ·M(φ)/Δ ∓ TCG·cosφ with the
     actual volumetric moment of fluid transfer M of each counted tank (``transfer``;
-    IS 2008 Part B 3.1, standards.md §4.1).  The transfer tables are for heel to
-    starboard; heeling to port a paired tank behaves as its mirror image, the
-    partner, heeled to starboard.  The curve stops at the KN table's last angle.
+    IS 2008 Part B 3.1, standards.md §4.1).  Heeled to port each tank takes
+    :func:`_port_transfer_m4`: its own port table where the profile gives one, else a
+    paired tank its partner's (the mirror image heeled to starboard), else its own
+    starboard table.  The curve stops at the KN table's last angle.
 
     The criteria side is the side G lies to.  The list is where that side's curve
     rises through zero: tanφ = TCG/GM fluid for small angles (standards.md §6.3) and
@@ -368,7 +369,8 @@ def stage_curve(vessel: Vessel, weights: Weights, fs: FreeSurface, floating: Flo
             notes.append(Warning("fs-port-as-starboard",
                                  "heeling to port, the transfer of " + ", ".join(taken_as_stbd)
                                  + " is taken from its starboard table (no port table and no pair): right only "
-                                 "for a tank symmetric about its own centre plane", "caution"))
+                                 "for a tank symmetric about its own centre plane; give moment_port_m4, or make the "
+                                 "tables again with 'deckload tables' from the tank's shape", "caution"))
     else:
         base_stbd = base_port = kn - fs.kg_fluid_m * sin
     gz_stbd = base_stbd - w.tcg_m * cos

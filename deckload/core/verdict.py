@@ -32,6 +32,7 @@ from deckload.core.criteria import (
     evaluate_criteria,
     extra_criterion_result,
     osv_area_end_deg,
+    reduced_fishing_gm_m,
 )
 from deckload.core.frozen import frozen
 from deckload.core.model import PassengerData, Vessel
@@ -481,9 +482,7 @@ def assess(vessel: Vessel, a: Afloat, limit_curve: list[CriterionResult],
     weather = None
     set_ids: list[str] = []
     windage_missing = vessel.windage is None
-    fishing_gm = None
-    if ship_type == "fishing" and cs.min_gm_m is not None and cs.min_gm_m < 0.35:
-        fishing_gm = cs.min_gm_m  # the reader allows this only where Part B 2.1 does
+    fishing_gm = reduced_fishing_gm_m(ship_type, cs.min_gm_m)
     weather_rows: list[CriterionResult] = []
     for sid in SETS_BY_TYPE[ship_type]:
         if sid == WEATHER_SET:
