@@ -276,3 +276,71 @@ def test_a_problem_in_a_worked_conditions_file_is_headed_by_that_file_and_never_
     assert f"{cond}:{line}: tanks.NOPE" in out
     assert f"1 problem in {cond} (the loading of a booklet condition of {f})" in lines
     assert f"problem in {f}" not in out
+
+
+WIND_A_M2, WIND_H_M = 900.0, 2.0
+"""A windage of 900 m² (θ0 near 5°: halved, it moves more than 1°) whose centre stands 2 m above the waterline at every draft (invented)."""
+
+
+def _windage_toml(area_m2: float) -> str:
+    drafts = [0.5, 1.0, 1.5, 2.0, 2.5, 3.0, 3.5]
+    return ("\n[windage]\ndraft_m = " + repr(drafts) + f"\nlateral_area_m2 = {[area_m2] * len(drafts)!r}"
+            + f"\ncentroid_above_wl_m = {[WIND_H_M] * len(drafts)!r}\nwaterline_length_m = {[L] * len(drafts)!r}\n")
+
+
+def _lw1_m(area_m2: float) -> float:
+    """lw1 = P·A·Z/(1000·g·Δ), IS 2008 A 2.3.2.2 (standards.md §2.2), P = 504 Pa, g = 9.81, with Z from
+    the centre of A to half the mean draft (the approximation deckload.core.weather states)."""
+    return 504.0 * area_m2 * (WIND_H_M + T / 2.0) / (1000.0 * 9.81 * DISP)
+
+
+def _theta0_deg(lw1: float) -> float:
+    """θ0: first intercept of lw1 with the exact box GZ at T = 2 (checks.md §1.2), by bisection."""
+    lo, hi = 0.0, 20.0
+    for _ in range(60):
+        mid = (lo + hi) / 2.0
+        lo, hi = (mid, hi) if gz(mid) < lw1 else (lo, mid)
+    return (lo + hi) / 2.0
+
+
+def test_the_weather_criterion_as_the_booklet_prints_it_is_compared(tmp_path, capsys):
+    """lw1 (GZ values row: 5 % / 5 cm) and θ0 (equilibrium angles: 1°), standards.md §5.3, against
+    the formula and the exact box GZ; a windage typed at half its value halves lw1 and fails both
+    (found by an audit: it passed check and turned a NOT MET condition Met)."""
+    lw1 = _lw1_m(WIND_A_M2)
+    expected = {"lw1_m": round(lw1, 4), "theta0_deg": round(_theta0_deg(lw1), 1)}
+    entry = inline("Weather", expected)
+    f = profile(tmp_path, entry + _windage_toml(WIND_A_M2))
+    v = load_profile(f)
+    (case,) = load_booklet_conditions(f, v)
+    result = evaluate(v, case.condition)
+    rows = {r.key: r for r in compare(result, case.expected, B)}
+    assert rows["lw1_m"].passed and rows["lw1_m"].deckload == pytest.approx(lw1, rel=1e-6)
+    assert rows["theta0_deg"].passed and rows["theta0_deg"].allowed == 1.0
+    # a and b, θ1, θ2 as deckload's weather result gives them: the rows carry them and their rules
+    w = result.weather
+    both = dict(expected, area_a_mrad=w.area_a_mrad, area_b_mrad=w.area_b_mrad, theta1_deg=w.theta1_deg,
+                theta2_deg=w.theta2_deg, freeboard_m=D - T)
+    rows = {r.key: r for r in rows_for_text(tmp_path, inline("Weather", both) + _windage_toml(WIND_A_M2))}
+    assert all(r.passed for r in rows.values()), [r for r in rows.values() if not r.passed]
+    assert rows["area_b_mrad"].allowed == pytest.approx(min(0.05 * w.area_b_mrad, 0.0012))
+    assert rows["freeboard_m"].allowed == pytest.approx(min(0.05 * (D - T), 0.05))
+    assert run_check(f) == 0
+    assert "weather lw1 (m)" in capsys.readouterr().out
+
+    f = profile(tmp_path, entry + _windage_toml(WIND_A_M2 / 2.0))
+    assert run_check(f) == 1
+    out = capsys.readouterr().out
+    assert "outside tolerance: weather lw1, weather θ0 (wind heel)" in out
+
+
+def test_weather_keys_without_windage_fail_and_say_why(tmp_path):
+    (row,) = [r for r in rows_for(tmp_path, {"lw1_m": 0.05}) if r.key == "lw1_m"]
+    assert not row.passed and row.deckload is None and "weather criterion was not worked" in row.note
+
+
+def rows_for_text(tmp_path, entries: str):
+    f = profile(tmp_path, entries)
+    v = load_profile(f)
+    (case,) = load_booklet_conditions(f, v)
+    return compare(evaluate(v, case.condition), case.expected, B)

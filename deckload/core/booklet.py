@@ -104,6 +104,19 @@ QUANTITIES: dict[str, tuple[str, str, Tolerance | None]] = {
     "area_0_40_mrad": ("area 0–40° (or θf)", "m·rad", AREA),
     "area_30_40_mrad": ("area 30–40° (or θf)", "m·rad", AREA),
     "downflooding_angle_deg": ("downflooding angle", "°", Tolerance(None, 2.0, "downflooding angle")),
+    # The weather criterion (IS 2008 Part A 2.3), as booklets print it per condition.  lw1 is a
+    # heeling lever measured against GZ, so the GZ row; θ0 is the equilibrium under the steady wind;
+    # θ1 (the roll to windward) and θ2 (the end of area b) are angles of heel that have no row of
+    # their own: the nearest row, equilibrium angles 1°; a and b are areas under the GZ curve.
+    "lw1_m": ("weather lw1", "m", GZ),
+    "theta0_deg": ("weather θ0 (wind heel)", "°", EQUILIBRIUM_ANGLE),
+    "theta1_deg": ("weather θ1 (roll)", "°", Tolerance(None, 1.0, "equilibrium angles, nearest row")),
+    "theta2_deg": ("weather θ2", "°", Tolerance(None, 1.0, "equilibrium angles, nearest row")),
+    "area_a_mrad": ("weather area a", "m·rad", AREA),
+    "area_b_mrad": ("weather area b", "m·rad", AREA),
+    # Freeboard at midships, deck line to waterline: a distance from the waterline, as the row for
+    # the distance to unprotected openings / the margin line from the WL.
+    "freeboard_m": ("freeboard midships", "m", Tolerance(5.0, 0.05, "distance to openings from WL")),
 }
 """The booklet results that can be compared, in the order printed."""
 
@@ -113,8 +126,14 @@ _FROM_RESULT = {
     "gm_solid_m": "gm_solid_m", "gm_m": "gm_fluid_m", "draft_aft_m": "draft_aft_m", "draft_mid_m": "draft_mean_m",
     "draft_fwd_m": "draft_fwd_m", "trim_m": "trim_m", "list_deg": "list_deg", "max_gz_m": "max_gz_m",
     "area_0_30_mrad": "area_0_30_mrad", "area_0_40_mrad": "area_0_40_mrad", "area_30_40_mrad": "area_30_40_mrad",
-    "downflooding_angle_deg": "downflooding_angle_deg",
+    "downflooding_angle_deg": "downflooding_angle_deg", "freeboard_m": "freeboard_m",
 }
+
+_FROM_WEATHER = {
+    "lw1_m": "lw1_m", "theta0_deg": "theta0_deg", "theta1_deg": "theta1_deg", "theta2_deg": "theta2_deg",
+    "area_a_mrad": "area_a_mrad", "area_b_mrad": "area_b_mrad",
+}
+"""Booklet keys read from the result's weather criterion (deckload.core.result.WeatherResult)."""
 
 ROUNDOFF = 1e-9
 """Floating-point allowance on a comparison exactly at the tolerance."""
@@ -169,6 +188,8 @@ def compare(result: Result, expected: dict, breadth_m: float) -> tuple[Row, ...]
         base = float(expected[key])
         if key in _TO_FLOODING:
             got = result.area_to_flooding_mrad(key)
+        elif key in _FROM_WEATHER:
+            got = None if result.weather is None else getattr(result.weather, _FROM_WEATHER[key])
         else:
             got = getattr(result, _FROM_RESULT[key])
         got = None if got is None else float(got)
@@ -200,6 +221,9 @@ def _no_value_note(key: str, result: Result) -> str:
     """Why deckload has no value for ``key`` in this condition."""
     if result.downflooding_unknown and key in (*_TO_FLOODING, "downflooding_angle_deg"):
         return _THETA_F_UNKNOWN
+    if key in _FROM_WEATHER:
+        why = next((n.reason for n in result.not_assessed if "A 2.3" in n.item), "")
+        return "the weather criterion was not worked here" + (f": {why}" if why else "")
     return _NO_VALUE.get(key, "deckload has no value here")
 
 

@@ -28,6 +28,9 @@ INLINE_KEYS = ("condition", "tanks", "holds", "deck_item", "constant")
 _RULES = {
     "displacement_t": (non_negative,), "deadweight_t": (), "fsm_tm": (non_negative,), "fsc_m": (non_negative,),
     "list_deg": (between(-90.0, 90.0, "°"),), "downflooding_angle_deg": (between(0.0, 90.0, "°"),),
+    "lw1_m": (non_negative,), "area_a_mrad": (non_negative,), "area_b_mrad": (non_negative,),
+    "theta0_deg": (between(0.0, 90.0, "°"),), "theta1_deg": (between(0.0, 90.0, "°"),),
+    "theta2_deg": (between(0.0, 90.0, "°"),),
 }
 
 
