@@ -344,3 +344,37 @@ def rows_for_text(tmp_path, entries: str):
     v = load_profile(f)
     (case,) = load_booklet_conditions(f, v)
     return compare(evaluate(v, case.condition), case.expected, B)
+
+
+def test_a_page_whose_own_numbers_disagree_is_said_so_before_the_comparison(tmp_path, capsys):
+    """GM fluid typed 0.03 m off while KMt and KG fluid are right: GM = KMt − KG fluid on the page
+    itself fails by more than the printed rounding (3 decimals each: ±0.0015 m), and check says the
+    page's own numbers disagree, naming the keys (found by an audit: only 'FAIL: GM fluid' was said)."""
+    f = profile(tmp_path, inline("Worked condition", booklet_values(gm_m=round(GM, 3) + 0.03)))
+    assert run_check(f) == 1
+    out = capsys.readouterr().out
+    assert "FAIL: the booklet condition's own numbers disagree" in out
+    assert f"gm_m {round(GM, 3) + 0.03:.6g}, but KMt − KG fluid = km_m {round(KMT, 3):.6g} − kg_fluid_m" in out
+    assert "FAIL: the booklet's own numbers disagree (above): gm_m, km_m, kg_fluid_m" in out
+    # the same page as printed (every value rounded from the exact ones) agrees with itself
+    f = profile(tmp_path, inline("Worked condition", booklet_values()))
+    assert run_check(f) == 0
+    assert "own numbers disagree" not in capsys.readouterr().out
+
+
+def test_the_pages_relations_allow_the_rounding_of_the_decimals_typed():
+    """Half a unit of the last printed decimal of each value, carried through the relation
+    (derived in core.booklet.half_unit / disagreements)."""
+    from deckload.core.booklet import disagreements, half_unit
+
+    assert half_unit(250) == 0.5 and half_unit(1.425) == pytest.approx(0.0005) and half_unit(0.1) == pytest.approx(0.05)
+    # mean of the drafts: (1.56 + 1.36)/2 = 1.46; printed to 2 decimals, rounding ±(0.005 + (0.005 + 0.005)/2) = ±0.01
+    assert not disagreements({"draft_aft_m": 1.56, "draft_fwd_m": 1.36, "draft_mid_m": 1.47})
+    (d,) = disagreements({"draft_aft_m": 1.56, "draft_fwd_m": 1.36, "draft_mid_m": 1.471})
+    assert d.keys == ("draft_mid_m", "draft_aft_m", "draft_fwd_m") and d.allowed == pytest.approx(0.0005 + 0.005)
+    (d,) = disagreements({"draft_aft_m": 1.562, "draft_fwd_m": 1.360, "trim_m": 0.22})
+    assert d.keys[0] == "trim_m" and d.difference == pytest.approx(0.018)
+    # KG fluid = KG + FSM/Δ when no FSC is printed: 3.158 + 11.6/218.3 = 3.2111
+    assert not disagreements({"kg_m": 3.158, "fsm_tm": 11.6, "displacement_t": 218.3, "kg_fluid_m": 3.211})
+    (d,) = disagreements({"kg_m": 3.158, "fsm_tm": 11.6, "displacement_t": 218.3, "kg_fluid_m": 3.238})
+    assert d.keys == ("kg_fluid_m", "kg_m", "fsm_tm", "displacement_t")

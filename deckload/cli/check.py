@@ -191,7 +191,7 @@ def _print_booklet_problems(problems: list[Problem], path: Path) -> None:
 def _booklet(path: Path, vessel: m.Vessel, cases) -> int:
     """Recompute the booklet's worked conditions (as :func:`_read_booklet` read them) and print them
     beside the booklet's results."""
-    from deckload.core.booklet import compare
+    from deckload.core.booklet import compare, disagreements
     from deckload.core.stability import evaluate
     from deckload.core.tables import OutOfRangeError
 
@@ -210,6 +210,15 @@ def _booklet(path: Path, vessel: m.Vessel, cases) -> int:
         print(f"booklet condition {case.name!r}{where}, loading: {case.source}")
         for line in case.conversions:
             print(f"    {line}")
+        # the page against itself first: a value typed wrong from the page shows there, and the
+        # comparison with deckload below would only say a row is off, not that the page cannot be so
+        own = disagreements(case.expected.get("as_typed", {}))
+        if own:
+            print(f"    FAIL: the booklet condition's own numbers disagree ({_plural(len(own), 'relation')} broken, "
+                  "beyond the rounding of the decimals typed): a value typed from the booklet page is likely "
+                  "wrong; compare these keys with the page:")
+            for d in own:
+                print(f"      {d.text} ({d.difference:+.4g} apart, rounding allows ±{d.allowed:.2g})")
         try:
             result = evaluate(vessel, case.condition)
         except (OutOfRangeError, ValueError) as e:
@@ -228,7 +237,10 @@ def _booklet(path: Path, vessel: m.Vessel, cases) -> int:
         failed = [r for r in rows if not r.passed]
         if failed:
             print(f"    FAIL: {_plural(len(failed), 'row')} outside tolerance: " + ", ".join(r.label for r in failed))
-        else:
+        if own:
+            print("    FAIL: the booklet's own numbers disagree (above): "
+                  + ", ".join(dict.fromkeys(k for d in own for k in d.keys)))
+        if not failed and not own:
             passed += 1
             print(f"    pass: all {_plural(len(rows), 'row')} within tolerance")
     print(f"booklet conditions: {passed} of {len(cases)} within the MSC.1/Circ.1229 / IACS UR L5 tolerances "

@@ -20,6 +20,7 @@ Pure: no files; the booklet's numbers arrive as a mapping (see vessel_profiles/R
 from __future__ import annotations
 
 import math
+from decimal import Decimal, InvalidOperation
 
 import numpy as np
 
@@ -229,3 +230,94 @@ def _no_value_note(key: str, result: Result) -> str:
 
 def _row(key, label, unit, base, got, allowed, words, note) -> Row:
     return Row(key, label, unit, base, got, allowed, words, within(got, base, allowed), note)
+
+
+# --------------------------------------------------------------------------- the page against itself
+
+@frozen
+class Disagreement:
+    """Booklet values of one condition that contradict each other as printed."""
+
+    keys: tuple[str, ...]
+    """The expected keys involved, the one computed first."""
+    text: str
+    """The relation with the values, e.g. 'gm_m 1.462 ≠ km_m − kg_fluid_m = 4.636 − 3.211 = 1.425'."""
+    difference: float
+    allowed: float
+    """The rounding of the printed decimals, carried through the relation."""
+
+
+def half_unit(typed: float | int) -> float:
+    """Half a unit in the last decimal printed: the most by which a printed value can differ from
+    the exact one it was rounded from.  The decimals are those of the value as typed: an integer
+    (250) has none (±0.5); a decimal is read as Python's shortest repr writes it (1.425 → 3,
+    ±0.0005), so a trailing zero typed (1.4250) is not seen and the allowance is then larger, never
+    smaller, than the page's."""
+    if isinstance(typed, int):
+        return 0.5
+    try:
+        exponent = Decimal(repr(float(typed))).as_tuple().exponent
+    except InvalidOperation:  # cannot happen for a finite float: no allowance beyond ROUNDOFF
+        return 0.0
+    return 0.5 * 10.0 ** exponent if isinstance(exponent, int) else 0.0
+
+
+# (result key, terms (coefficient, key)): result = Σ coefficient·term, each an identity of the
+# booklet's own page: GM = KM − KG; KG fluid = KG + FSC; draft at midships = mean of the
+# draughts at the perpendiculars (midships lies halfway); trim = aft − forward (deckload's
+# definition, + by the stern).  Each holds for extreme as for moulded drafts (both sides move by
+# the keel, or the keel cancels), so the values are taken as typed.
+_LINEAR = (
+    ("gm_m", ((1.0, "km_m"), (-1.0, "kg_fluid_m")), "KMt − KG fluid"),
+    ("gm_solid_m", ((1.0, "km_m"), (-1.0, "kg_m")), "KMt − KG solid"),
+    ("kg_fluid_m", ((1.0, "kg_m"), (1.0, "fsc_m")), "KG solid + FSC"),
+    ("draft_mid_m", ((0.5, "draft_aft_m"), (0.5, "draft_fwd_m")), "(draft aft + draft forward)/2"),
+    ("trim_m", ((1.0, "draft_aft_m"), (-1.0, "draft_fwd_m")), "draft aft − draft forward"),
+)
+
+
+def disagreements(typed: dict) -> tuple[Disagreement, ...]:
+    """The relations among a booklet condition's printed values that its own numbers break.
+
+    ``typed`` maps expected keys to the values as typed from the page (before any conversion of
+    datum or draft basis).  Checked where every value of a relation is given: GM fluid = KMt − KG
+    fluid; GM solid = KMt − KG solid; KG fluid = KG solid + FSC, or KG solid + FSM/Δ when no FSC is
+    given; FSC = FSM/Δ; draft midships = (aft + forward)/2; trim = aft − forward.  A relation is broken
+    when its two sides differ by more than the rounding of the printed decimals carried through it
+    (:func:`half_unit` of each value; for a sum Σ|c|·h, for FSM/Δ h_FSM/Δ + FSM·h_Δ/Δ², first order)
+    plus :data:`ROUNDOFF`.  Such a page cannot be the booklet's as printed: one of its values was
+    typed wrong, and no comparison with deckload can say which."""
+    out: list[Disagreement] = []
+
+    def f(x: float) -> str:
+        return f"{x:.6g}"
+
+    def add(keys, got, want, allowed, words):
+        if abs(got - want) > allowed + ROUNDOFF * max(1.0, abs(got)):
+            out.append(Disagreement(tuple(keys), words, got - want, allowed))
+
+    for key, terms, name in _LINEAR:
+        if key not in typed or not all(k in typed for _, k in terms):
+            continue
+        want = sum(c * float(typed[k]) for c, k in terms)
+        allowed = half_unit(typed[key]) + sum(abs(c) * half_unit(typed[k]) for c, k in terms)
+        values = " ".join(("" if i == 0 and c > 0 else "+ " if c > 0 else "− ") + f"{k} {f(float(typed[k]))}"
+                          for i, (c, k) in enumerate(terms))
+        if terms[0][0] == 0.5:
+            values = f"({values})/2"
+        add((key, *(k for _, k in terms)), float(typed[key]), want, allowed,
+            f"{key} {f(float(typed[key]))}, but {name} = {values} = {f(want)}")
+    if all(k in typed for k in ("fsm_tm", "displacement_t")) and float(typed["displacement_t"]) > 0:
+        fsm, disp = float(typed["fsm_tm"]), float(typed["displacement_t"])
+        h_q = half_unit(typed["fsm_tm"]) / disp + fsm * half_unit(typed["displacement_t"]) / disp ** 2
+        q = fsm / disp
+        if "fsc_m" in typed:
+            add(("fsc_m", "fsm_tm", "displacement_t"), float(typed["fsc_m"]), q, half_unit(typed["fsc_m"]) + h_q,
+                f"fsc_m {f(float(typed['fsc_m']))}, but FSM/Δ = fsm_tm {f(fsm)} / displacement_t {f(disp)} = {f(q)}")
+        elif all(k in typed for k in ("kg_fluid_m", "kg_m")):
+            kg = float(typed["kg_m"])
+            add(("kg_fluid_m", "kg_m", "fsm_tm", "displacement_t"), float(typed["kg_fluid_m"]), kg + q,
+                half_unit(typed["kg_fluid_m"]) + half_unit(typed["kg_m"]) + h_q,
+                f"kg_fluid_m {f(float(typed['kg_fluid_m']))}, but KG solid + FSM/Δ = kg_m {f(kg)} + fsm_tm {f(fsm)} / "
+                f"displacement_t {f(disp)} = {f(kg + q)}")
+    return tuple(out)
