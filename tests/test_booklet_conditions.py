@@ -250,6 +250,10 @@ def test_without_booklet_conditions_check_says_what_only_they_can_catch(tmp_path
     assert "plausibility audit: nothing suspicious found" in out
     (note,) = [line for line in out.splitlines() if line.startswith("NOTE: no booklet conditions entered")]
     assert "lightship KG or LCG" in note and "wrong datum or with the wrong sign" in note
+    # and the slips of the second typing audit that only the worked conditions showed (found by an audit)
+    for slip in ("older inclining", "tank page (or its FSM column) copied from another tank",
+                 "table density (1.000 typed for 1.025)", "hydrostatic table shifted one row against draft"):
+        assert slip in note, slip
     assert note.endswith('"Booklet conditions" in vessel_profiles/README.md')
     readme = (Path(__file__).parent.parent / "vessel_profiles" / "README.md").read_text(encoding="utf-8")
     assert "\n## Booklet conditions\n" in readme

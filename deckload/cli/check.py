@@ -35,13 +35,17 @@ CAUTION = vf.CAUTION
 NO_BOOKLET_CONDITIONS = (
     "NOTE: no booklet conditions entered ([[booklet_condition]]): the audit above cannot see a wrong "
     "number that agrees with every table, such as a lightship KG or LCG mistyped within the plausible "
-    "range, or every position of the profile measured from the wrong datum or with the wrong sign; only "
+    "range or taken from an older inclining, every position of the profile measured from the wrong datum "
+    "or with the wrong sign, a tank page (or its FSM column) copied from another tank, the table density "
+    "(1.000 typed for 1.025), or the whole hydrostatic table shifted one row against draft; only "
     "the booklet's worked conditions, recomputed beside its printed results, catch those. How to enter "
     "them: \"Booklet conditions\" in vessel_profiles/README.md")
 """Said (not an error: the exit status is unchanged) when the profile lists none of the booklet's
 worked conditions: an audit that finds nothing is then no sign that the lightship and the datum
 are right (found by an audit: a KG transposition, the whole profile's sign and a lightship LCG slip
-were each caught by the worked conditions alone)."""
+were each caught by the worked conditions alone; a second audit added a tank page or FSM column copied
+from another tank, the table density typed 1.000 for 1.025, the hydrostatic table shifted one row
+against draft and a lightship from an older inclining)."""
 
 
 def _plural(n: int, word: str, many: str | None = None) -> str:
