@@ -250,6 +250,10 @@ def test_without_booklet_conditions_check_says_what_only_they_can_catch(tmp_path
     assert "plausibility audit: nothing suspicious found" in out
     (note,) = [line for line in out.splitlines() if line.startswith("NOTE: no booklet conditions entered")]
     assert "lightship KG or LCG" in note and "wrong datum or with the wrong sign" in note
+    # and the slips of the second typing audit that only the worked conditions showed (found by an audit)
+    for slip in ("older inclining", "tank page (or its FSM column) copied from another tank",
+                 "table density (1.000 typed for 1.025)", "hydrostatic table shifted one row against draft"):
+        assert slip in note, slip
     assert note.endswith('"Booklet conditions" in vessel_profiles/README.md')
     readme = (Path(__file__).parent.parent / "vessel_profiles" / "README.md").read_text(encoding="utf-8")
     assert "\n## Booklet conditions\n" in readme
@@ -276,3 +280,105 @@ def test_a_problem_in_a_worked_conditions_file_is_headed_by_that_file_and_never_
     assert f"{cond}:{line}: tanks.NOPE" in out
     assert f"1 problem in {cond} (the loading of a booklet condition of {f})" in lines
     assert f"problem in {f}" not in out
+
+
+WIND_A_M2, WIND_H_M = 900.0, 2.0
+"""A windage of 900 m² (θ0 near 5°: halved, it moves more than 1°) whose centre stands 2 m above the waterline at every draft (invented)."""
+
+
+def _windage_toml(area_m2: float) -> str:
+    drafts = [0.5, 1.0, 1.5, 2.0, 2.5, 3.0, 3.5]
+    return ("\n[windage]\ndraft_m = " + repr(drafts) + f"\nlateral_area_m2 = {[area_m2] * len(drafts)!r}"
+            + f"\ncentroid_above_wl_m = {[WIND_H_M] * len(drafts)!r}\nwaterline_length_m = {[L] * len(drafts)!r}\n")
+
+
+def _lw1_m(area_m2: float) -> float:
+    """lw1 = P·A·Z/(1000·g·Δ), IS 2008 A 2.3.2.2 (standards.md §2.2), P = 504 Pa, g = 9.81, with Z from
+    the centre of A to half the mean draft (the approximation deckload.core.weather states)."""
+    return 504.0 * area_m2 * (WIND_H_M + T / 2.0) / (1000.0 * 9.81 * DISP)
+
+
+def _theta0_deg(lw1: float) -> float:
+    """θ0: first intercept of lw1 with the exact box GZ at T = 2 (checks.md §1.2), by bisection."""
+    lo, hi = 0.0, 20.0
+    for _ in range(60):
+        mid = (lo + hi) / 2.0
+        lo, hi = (mid, hi) if gz(mid) < lw1 else (lo, mid)
+    return (lo + hi) / 2.0
+
+
+def test_the_weather_criterion_as_the_booklet_prints_it_is_compared(tmp_path, capsys):
+    """lw1 (GZ values row: 5 % / 5 cm) and θ0 (equilibrium angles: 1°), standards.md §5.3, against
+    the formula and the exact box GZ; a windage typed at half its value halves lw1 and fails both
+    (found by an audit: it passed check and turned a NOT MET condition Met)."""
+    lw1 = _lw1_m(WIND_A_M2)
+    expected = {"lw1_m": round(lw1, 4), "theta0_deg": round(_theta0_deg(lw1), 1)}
+    entry = inline("Weather", expected)
+    f = profile(tmp_path, entry + _windage_toml(WIND_A_M2))
+    v = load_profile(f)
+    (case,) = load_booklet_conditions(f, v)
+    result = evaluate(v, case.condition)
+    rows = {r.key: r for r in compare(result, case.expected, B)}
+    assert rows["lw1_m"].passed and rows["lw1_m"].deckload == pytest.approx(lw1, rel=1e-6)
+    assert rows["theta0_deg"].passed and rows["theta0_deg"].allowed == 1.0
+    # a and b, θ1, θ2 as deckload's weather result gives them: the rows carry them and their rules
+    w = result.weather
+    both = dict(expected, area_a_mrad=w.area_a_mrad, area_b_mrad=w.area_b_mrad, theta1_deg=w.theta1_deg,
+                theta2_deg=w.theta2_deg, freeboard_m=D - T)
+    rows = {r.key: r for r in rows_for_text(tmp_path, inline("Weather", both) + _windage_toml(WIND_A_M2))}
+    assert all(r.passed for r in rows.values()), [r for r in rows.values() if not r.passed]
+    assert rows["area_b_mrad"].allowed == pytest.approx(min(0.05 * w.area_b_mrad, 0.0012))
+    assert rows["freeboard_m"].allowed == pytest.approx(min(0.05 * (D - T), 0.05))
+    assert run_check(f) == 0
+    assert "weather lw1 (m)" in capsys.readouterr().out
+
+    f = profile(tmp_path, entry + _windage_toml(WIND_A_M2 / 2.0))
+    assert run_check(f) == 1
+    out = capsys.readouterr().out
+    assert "outside tolerance: weather lw1, weather θ0 (wind heel)" in out
+
+
+def test_weather_keys_without_windage_fail_and_say_why(tmp_path):
+    (row,) = [r for r in rows_for(tmp_path, {"lw1_m": 0.05}) if r.key == "lw1_m"]
+    assert not row.passed and row.deckload is None and "weather criterion was not worked" in row.note
+
+
+def rows_for_text(tmp_path, entries: str):
+    f = profile(tmp_path, entries)
+    v = load_profile(f)
+    (case,) = load_booklet_conditions(f, v)
+    return compare(evaluate(v, case.condition), case.expected, B)
+
+
+def test_a_page_whose_own_numbers_disagree_is_said_so_before_the_comparison(tmp_path, capsys):
+    """GM fluid typed 0.03 m off while KMt and KG fluid are right: GM = KMt − KG fluid on the page
+    itself fails by more than the printed rounding (3 decimals each: ±0.0015 m), and check says the
+    page's own numbers disagree, naming the keys (found by an audit: only 'FAIL: GM fluid' was said)."""
+    f = profile(tmp_path, inline("Worked condition", booklet_values(gm_m=round(GM, 3) + 0.03)))
+    assert run_check(f) == 1
+    out = capsys.readouterr().out
+    assert "FAIL: the booklet condition's own numbers disagree" in out
+    assert f"gm_m {round(GM, 3) + 0.03:.6g}, but KMt − KG fluid = km_m {round(KMT, 3):.6g} − kg_fluid_m" in out
+    assert "FAIL: the booklet's own numbers disagree (above): gm_m, km_m, kg_fluid_m" in out
+    # the same page as printed (every value rounded from the exact ones) agrees with itself
+    f = profile(tmp_path, inline("Worked condition", booklet_values()))
+    assert run_check(f) == 0
+    assert "own numbers disagree" not in capsys.readouterr().out
+
+
+def test_the_pages_relations_allow_the_rounding_of_the_decimals_typed():
+    """Half a unit of the last printed decimal of each value, carried through the relation
+    (derived in core.booklet.half_unit / disagreements)."""
+    from deckload.core.booklet import disagreements, half_unit
+
+    assert half_unit(250) == 0.5 and half_unit(1.425) == pytest.approx(0.0005) and half_unit(0.1) == pytest.approx(0.05)
+    # mean of the drafts: (1.56 + 1.36)/2 = 1.46; printed to 2 decimals, rounding ±(0.005 + (0.005 + 0.005)/2) = ±0.01
+    assert not disagreements({"draft_aft_m": 1.56, "draft_fwd_m": 1.36, "draft_mid_m": 1.47})
+    (d,) = disagreements({"draft_aft_m": 1.56, "draft_fwd_m": 1.36, "draft_mid_m": 1.471})
+    assert d.keys == ("draft_mid_m", "draft_aft_m", "draft_fwd_m") and d.allowed == pytest.approx(0.0005 + 0.005)
+    (d,) = disagreements({"draft_aft_m": 1.562, "draft_fwd_m": 1.360, "trim_m": 0.22})
+    assert d.keys[0] == "trim_m" and d.difference == pytest.approx(0.018)
+    # KG fluid = KG + FSM/Δ when no FSC is printed: 3.158 + 11.6/218.3 = 3.2111
+    assert not disagreements({"kg_m": 3.158, "fsm_tm": 11.6, "displacement_t": 218.3, "kg_fluid_m": 3.211})
+    (d,) = disagreements({"kg_m": 3.158, "fsm_tm": 11.6, "displacement_t": 218.3, "kg_fluid_m": 3.238})
+    assert d.keys == ("kg_fluid_m", "kg_m", "fsm_tm", "displacement_t")

@@ -35,13 +35,17 @@ CAUTION = vf.CAUTION
 NO_BOOKLET_CONDITIONS = (
     "NOTE: no booklet conditions entered ([[booklet_condition]]): the audit above cannot see a wrong "
     "number that agrees with every table, such as a lightship KG or LCG mistyped within the plausible "
-    "range, or every position of the profile measured from the wrong datum or with the wrong sign; only "
+    "range or taken from an older inclining, every position of the profile measured from the wrong datum "
+    "or with the wrong sign, a tank page (or its FSM column) copied from another tank, the table density "
+    "(1.000 typed for 1.025), or the whole hydrostatic table shifted one row against draft; only "
     "the booklet's worked conditions, recomputed beside its printed results, catch those. How to enter "
     "them: \"Booklet conditions\" in vessel_profiles/README.md")
 """Said (not an error: the exit status is unchanged) when the profile lists none of the booklet's
 worked conditions: an audit that finds nothing is then no sign that the lightship and the datum
 are right (found by an audit: a KG transposition, the whole profile's sign and a lightship LCG slip
-were each caught by the worked conditions alone)."""
+were each caught by the worked conditions alone; a second audit added a tank page or FSM column copied
+from another tank, the table density typed 1.000 for 1.025, the hydrostatic table shifted one row
+against draft and a lightship from an older inclining)."""
 
 
 def _plural(n: int, word: str, many: str | None = None) -> str:
@@ -191,7 +195,7 @@ def _print_booklet_problems(problems: list[Problem], path: Path) -> None:
 def _booklet(path: Path, vessel: m.Vessel, cases) -> int:
     """Recompute the booklet's worked conditions (as :func:`_read_booklet` read them) and print them
     beside the booklet's results."""
-    from deckload.core.booklet import compare
+    from deckload.core.booklet import compare, disagreements
     from deckload.core.stability import evaluate
     from deckload.core.tables import OutOfRangeError
 
@@ -210,6 +214,15 @@ def _booklet(path: Path, vessel: m.Vessel, cases) -> int:
         print(f"booklet condition {case.name!r}{where}, loading: {case.source}")
         for line in case.conversions:
             print(f"    {line}")
+        # the page against itself first: a value typed wrong from the page shows there, and the
+        # comparison with deckload below would only say a row is off, not that the page cannot be so
+        own = disagreements(case.expected.get("as_typed", {}))
+        if own:
+            print(f"    FAIL: the booklet condition's own numbers disagree ({_plural(len(own), 'relation')} broken, "
+                  "beyond the rounding of the decimals typed): a value typed from the booklet page is likely "
+                  "wrong; compare these keys with the page:")
+            for d in own:
+                print(f"      {d.text} ({d.difference:+.4g} apart, rounding allows ±{d.allowed:.2g})")
         try:
             result = evaluate(vessel, case.condition)
         except (OutOfRangeError, ValueError) as e:
@@ -228,7 +241,10 @@ def _booklet(path: Path, vessel: m.Vessel, cases) -> int:
         failed = [r for r in rows if not r.passed]
         if failed:
             print(f"    FAIL: {_plural(len(failed), 'row')} outside tolerance: " + ", ".join(r.label for r in failed))
-        else:
+        if own:
+            print("    FAIL: the booklet's own numbers disagree (above): "
+                  + ", ".join(dict.fromkeys(k for d in own for k in d.keys)))
+        if not failed and not own:
             passed += 1
             print(f"    pass: all {_plural(len(rows), 'row')} within tolerance")
     print(f"booklet conditions: {passed} of {len(cases)} within the MSC.1/Circ.1229 / IACS UR L5 tolerances "

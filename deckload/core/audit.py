@@ -30,7 +30,7 @@ import math
 import numpy as np
 
 from deckload.core import gz as gzmod
-from deckload.core.bounds import kind_density_note
+from deckload.core.bounds import WATER_DENSITY_RANGE_T_M3, kind_density_note
 from deckload.core.criteria import SET_TITLES, SETS_BY_TYPE, evaluate_criteria, reduced_fishing_gm_m
 from deckload.core.free_surface import settings_departures
 from deckload.core.frozen import frozen
@@ -187,6 +187,14 @@ KN_OUTLIER = (0.20, 0.50)
 than 20 % / 50 % of that line's value, along the heel AND along the displacement (where both have
 neighbours).  A decimal slip is 90 % or 900 %; the sharpest real bend (deck-edge immersion at 15°
 spacing on a box) is about 20 % along heel only (derived from checks.md §1.2 values)."""
+
+KN_UNREACHED_WEIGHT = 0.02
+"""A KN row none of whose weight in the KN interpolated at any displacement a condition can have
+is above 2 % (:func:`kn_unreached_rows`) is not judged for doubts: a warning-level doubt is a cell at
+most 50 % off its neighbours' line (:data:`KN_OUTLIER`; beyond it is an error), which moves no KN a
+condition reads by more than 1 % of that cell, under the 5 cm KN row of standards.md §5.3 for any
+KN below 5 m.  Its errors (contradictions) are still errors.  Found by an audit: a hard-chine
+ferry's true KN at 100 t, 10° drew two permanent warnings with every result, her lightship 172 t."""
 
 LONE_CELL_SETTLED = 0.25
 """A lone mistyped cell: see :func:`lone_cell`.  Putting the cell on the chord through its
@@ -353,6 +361,26 @@ def _leave_out(x, j: int) -> tuple[list[int], np.ndarray] | None:
             if kb != ka:
                 w[a] *= (x[j] - x[kb]) / (x[ka] - x[kb])
     return idx, w
+
+
+def kn_unreached_rows(disp, lightest_t: float) -> frozenset[int]:
+    """KN rows no condition reads to more than :data:`KN_UNREACHED_WEIGHT`.
+
+    KN at a displacement between rows is a not-a-knot cubic spline in displacement through every
+    row (deckload.core.gz.kn_row), linear in the rows: KN(Δ) = Σ w_i(Δ)·KN_i.  A condition weighs at
+    least ``lightest_t`` (at table density), so row i matters only through max |w_i(Δ)| over
+    Δ from ``lightest_t`` to the last row: evaluated on the knots and 50 points per interval.  Rows
+    whose every weight is below the bound are returned (with the spline's decay, about 0.27 per row
+    for a cubic spline, those two or more rows below the one bracketing the lightest condition)."""
+    from deckload.core.tables import CubicSpline
+
+    d = np.asarray(disp, dtype=float)
+    if len(d) < 3 or lightest_t <= d[0]:
+        return frozenset()
+    first = max(0, int(np.searchsorted(d, lightest_t, side="right")) - 1)
+    grid = np.concatenate([np.linspace(max(lightest_t, d[j]), d[j + 1], 51) for j in range(first, len(d) - 1)])
+    w = np.abs(CubicSpline.fit(d, np.eye(len(d)))(grid))
+    return frozenset(i for i in range(first) if float(w[:, i].max()) < KN_UNREACHED_WEIGHT)
 
 
 def kn_repeated_rows(disp, kn, heel) -> list[tuple[int, int]]:
@@ -886,6 +914,11 @@ class _Audit:
         if found:
             return  # the smooth-curve tests below would only repeat these
 
+        # Rows no condition reads (below the lightship): their doubts would accompany every result
+        # of the profile for nothing; their errors stay errors (KN_UNREACHED_WEIGHT).
+        lightest = self.v.lightship.mass_t * self.rho / WATER_DENSITY_RANGE_T_M3[1]
+        unreached = kn_unreached_rows(disp, lightest)
+
         # Small heel against KMt from the hydrostatic table at the same displacement.
         hd = h.displacement_t
         done = False
@@ -900,6 +933,8 @@ class _Audit:
                 tol = KN_SMALL_ANGLE[5.0] if heel[j] <= 5.0 else KN_SMALL_ANGLE[10.0]
                 off = abs(ratio - 1.0)
                 sev = ERROR if off > KN_SMALL_ANGLE_ERROR else WARNING if off > tol else None
+                if sev == WARNING and i in unreached:
+                    continue
                 if sev:
                     self.add(sev, "cross_curves.kn_m", cp + (i, j), _f(float(kn[i, j])),
                              f"at small heel KN ≈ KMt·sinφ = {_f(km * math.sin(math.radians(float(heel[j]))))} "
@@ -933,6 +968,8 @@ class _Audit:
                     continue
                 metres = min(r[0] for r in both)
                 frac = min(r[1] for r in both)
+                if i in unreached and frac <= el:
+                    continue  # a doubt in a row no condition reads
                 if frac > wl and (worst is None or metres > worst[0]):
                     worst = (metres, frac, i, j, len(both))
         if worst is not None:
@@ -948,19 +985,20 @@ class _Audit:
         # displacement (in each heel's column); a column typed with the next heel's values makes
         # its cell lone in every row, which is said.
         floor = _lone_floor("kn_m")
-        rows = [(i, lone_cell(heel, kn[i, :], floor)) for i in range(len(disp))]
-        rows = [(i, x) for i, x in rows if x is not None]
+        every = [(i, lone_cell(heel, kn[i, :], floor)) for i in range(len(disp))]
+        every = [(i, x) for i, x in every if x is not None]
+        rows = [(i, x) for i, x in every if i not in unreached]  # a row no condition reads is not named...
         named = None
         if rows:
             i, (j, r, chord) = max(rows, key=lambda ix: abs(ix[1][1]))
             named = (i, j)
-            alike = sum(1 for _, x in rows if x[0] == j)
+            alike = sum(1 for _, x in every if x[0] == j)  # ...but counts to tell a column slip
             guess = (f"the {heel[j]:g}° value stands out so in {alike} of the {len(disp)} rows: a column typed "
                      "with another heel's values?") if alike >= max(3, len(disp) // 2) else "a transposed or mistyped digit?"
             self.add(WARNING, "cross_curves.kn_m", cp + (i, j), _f(float(kn[i, j])),
                      _lone_why(r, chord, " m", " along the heel", guess), where(i, j), "kn-lone")
         cols = [(j, lone_cell(disp, kn[:, j], floor)) for j in range(len(heel))]
-        cols = [(j, x) for j, x in cols if x is not None and (x[0], j) != named]
+        cols = [(j, x) for j, x in cols if x is not None and (x[0], j) != named and x[0] not in unreached]
         if cols:
             j, (i, r, chord) = max(cols, key=lambda jx: abs(jx[1][1]))
             self.add(WARNING, "cross_curves.kn_m", cp + (i, j), _f(float(kn[i, j])),

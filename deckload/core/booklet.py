@@ -20,6 +20,7 @@ Pure: no files; the booklet's numbers arrive as a mapping (see vessel_profiles/R
 from __future__ import annotations
 
 import math
+from decimal import Decimal, InvalidOperation
 
 import numpy as np
 
@@ -104,6 +105,19 @@ QUANTITIES: dict[str, tuple[str, str, Tolerance | None]] = {
     "area_0_40_mrad": ("area 0–40° (or θf)", "m·rad", AREA),
     "area_30_40_mrad": ("area 30–40° (or θf)", "m·rad", AREA),
     "downflooding_angle_deg": ("downflooding angle", "°", Tolerance(None, 2.0, "downflooding angle")),
+    # The weather criterion (IS 2008 Part A 2.3), as booklets print it per condition.  lw1 is a
+    # heeling lever measured against GZ, so the GZ row; θ0 is the equilibrium under the steady wind;
+    # θ1 (the roll to windward) and θ2 (the end of area b) are angles of heel that have no row of
+    # their own: the nearest row, equilibrium angles 1°; a and b are areas under the GZ curve.
+    "lw1_m": ("weather lw1", "m", GZ),
+    "theta0_deg": ("weather θ0 (wind heel)", "°", EQUILIBRIUM_ANGLE),
+    "theta1_deg": ("weather θ1 (roll)", "°", Tolerance(None, 1.0, "equilibrium angles, nearest row")),
+    "theta2_deg": ("weather θ2", "°", Tolerance(None, 1.0, "equilibrium angles, nearest row")),
+    "area_a_mrad": ("weather area a", "m·rad", AREA),
+    "area_b_mrad": ("weather area b", "m·rad", AREA),
+    # Freeboard at midships, deck line to waterline: a distance from the waterline, as the row for
+    # the distance to unprotected openings / the margin line from the WL.
+    "freeboard_m": ("freeboard midships", "m", Tolerance(5.0, 0.05, "distance to openings from WL")),
 }
 """The booklet results that can be compared, in the order printed."""
 
@@ -113,8 +127,14 @@ _FROM_RESULT = {
     "gm_solid_m": "gm_solid_m", "gm_m": "gm_fluid_m", "draft_aft_m": "draft_aft_m", "draft_mid_m": "draft_mean_m",
     "draft_fwd_m": "draft_fwd_m", "trim_m": "trim_m", "list_deg": "list_deg", "max_gz_m": "max_gz_m",
     "area_0_30_mrad": "area_0_30_mrad", "area_0_40_mrad": "area_0_40_mrad", "area_30_40_mrad": "area_30_40_mrad",
-    "downflooding_angle_deg": "downflooding_angle_deg",
+    "downflooding_angle_deg": "downflooding_angle_deg", "freeboard_m": "freeboard_m",
 }
+
+_FROM_WEATHER = {
+    "lw1_m": "lw1_m", "theta0_deg": "theta0_deg", "theta1_deg": "theta1_deg", "theta2_deg": "theta2_deg",
+    "area_a_mrad": "area_a_mrad", "area_b_mrad": "area_b_mrad",
+}
+"""Booklet keys read from the result's weather criterion (deckload.core.result.WeatherResult)."""
 
 ROUNDOFF = 1e-9
 """Floating-point allowance on a comparison exactly at the tolerance."""
@@ -169,6 +189,8 @@ def compare(result: Result, expected: dict, breadth_m: float) -> tuple[Row, ...]
         base = float(expected[key])
         if key in _TO_FLOODING:
             got = result.area_to_flooding_mrad(key)
+        elif key in _FROM_WEATHER:
+            got = None if result.weather is None else getattr(result.weather, _FROM_WEATHER[key])
         else:
             got = getattr(result, _FROM_RESULT[key])
         got = None if got is None else float(got)
@@ -200,8 +222,102 @@ def _no_value_note(key: str, result: Result) -> str:
     """Why deckload has no value for ``key`` in this condition."""
     if result.downflooding_unknown and key in (*_TO_FLOODING, "downflooding_angle_deg"):
         return _THETA_F_UNKNOWN
+    if key in _FROM_WEATHER:
+        why = next((n.reason for n in result.not_assessed if "A 2.3" in n.item), "")
+        return "the weather criterion was not worked here" + (f": {why}" if why else "")
     return _NO_VALUE.get(key, "deckload has no value here")
 
 
 def _row(key, label, unit, base, got, allowed, words, note) -> Row:
     return Row(key, label, unit, base, got, allowed, words, within(got, base, allowed), note)
+
+
+# --------------------------------------------------------------------------- the page against itself
+
+@frozen
+class Disagreement:
+    """Booklet values of one condition that contradict each other as printed."""
+
+    keys: tuple[str, ...]
+    """The expected keys involved, the one computed first."""
+    text: str
+    """The relation with the values, e.g. 'gm_m 1.462 ≠ km_m − kg_fluid_m = 4.636 − 3.211 = 1.425'."""
+    difference: float
+    allowed: float
+    """The rounding of the printed decimals, carried through the relation."""
+
+
+def half_unit(typed: float | int) -> float:
+    """Half a unit in the last decimal printed: the most by which a printed value can differ from
+    the exact one it was rounded from.  The decimals are those of the value as typed: an integer
+    (250) has none (±0.5); a decimal is read as Python's shortest repr writes it (1.425 → 3,
+    ±0.0005), so a trailing zero typed (1.4250) is not seen and the allowance is then larger, never
+    smaller, than the page's."""
+    if isinstance(typed, int):
+        return 0.5
+    try:
+        exponent = Decimal(repr(float(typed))).as_tuple().exponent
+    except InvalidOperation:  # cannot happen for a finite float: no allowance beyond ROUNDOFF
+        return 0.0
+    return 0.5 * 10.0 ** exponent if isinstance(exponent, int) else 0.0
+
+
+# (result key, terms (coefficient, key)): result = Σ coefficient·term, each an identity of the
+# booklet's own page: GM = KM − KG; KG fluid = KG + FSC; draft at midships = mean of the
+# draughts at the perpendiculars (midships lies halfway); trim = aft − forward (deckload's
+# definition, + by the stern).  Each holds for extreme as for moulded drafts (both sides move by
+# the keel, or the keel cancels), so the values are taken as typed.
+_LINEAR = (
+    ("gm_m", ((1.0, "km_m"), (-1.0, "kg_fluid_m")), "KMt − KG fluid"),
+    ("gm_solid_m", ((1.0, "km_m"), (-1.0, "kg_m")), "KMt − KG solid"),
+    ("kg_fluid_m", ((1.0, "kg_m"), (1.0, "fsc_m")), "KG solid + FSC"),
+    ("draft_mid_m", ((0.5, "draft_aft_m"), (0.5, "draft_fwd_m")), "(draft aft + draft forward)/2"),
+    ("trim_m", ((1.0, "draft_aft_m"), (-1.0, "draft_fwd_m")), "draft aft − draft forward"),
+)
+
+
+def disagreements(typed: dict) -> tuple[Disagreement, ...]:
+    """The relations among a booklet condition's printed values that its own numbers break.
+
+    ``typed`` maps expected keys to the values as typed from the page (before any conversion of
+    datum or draft basis).  Checked where every value of a relation is given: GM fluid = KMt − KG
+    fluid; GM solid = KMt − KG solid; KG fluid = KG solid + FSC, or KG solid + FSM/Δ when no FSC is
+    given; FSC = FSM/Δ; draft midships = (aft + forward)/2; trim = aft − forward.  A relation is broken
+    when its two sides differ by more than the rounding of the printed decimals carried through it
+    (:func:`half_unit` of each value; for a sum Σ|c|·h, for FSM/Δ h_FSM/Δ + FSM·h_Δ/Δ², first order)
+    plus :data:`ROUNDOFF`.  Such a page cannot be the booklet's as printed: one of its values was
+    typed wrong, and no comparison with deckload can say which."""
+    out: list[Disagreement] = []
+
+    def f(x: float) -> str:
+        return f"{x:.6g}"
+
+    def add(keys, got, want, allowed, words):
+        if abs(got - want) > allowed + ROUNDOFF * max(1.0, abs(got)):
+            out.append(Disagreement(tuple(keys), words, got - want, allowed))
+
+    for key, terms, name in _LINEAR:
+        if key not in typed or not all(k in typed for _, k in terms):
+            continue
+        want = sum(c * float(typed[k]) for c, k in terms)
+        allowed = half_unit(typed[key]) + sum(abs(c) * half_unit(typed[k]) for c, k in terms)
+        values = " ".join(("" if i == 0 and c > 0 else "+ " if c > 0 else "− ") + f"{k} {f(float(typed[k]))}"
+                          for i, (c, k) in enumerate(terms))
+        if terms[0][0] == 0.5:
+            values = f"({values})/2"
+        add((key, *(k for _, k in terms)), float(typed[key]), want, allowed,
+            f"{key} {f(float(typed[key]))}, but {name} = {values} = {f(want)}")
+    if all(k in typed for k in ("fsm_tm", "displacement_t")) and float(typed["displacement_t"]) > 0:
+        fsm, disp = float(typed["fsm_tm"]), float(typed["displacement_t"])
+        h_q = half_unit(typed["fsm_tm"]) / disp + fsm * half_unit(typed["displacement_t"]) / disp ** 2
+        q = fsm / disp
+        if "fsc_m" in typed:
+            add(("fsc_m", "fsm_tm", "displacement_t"), float(typed["fsc_m"]), q, half_unit(typed["fsc_m"]) + h_q,
+                f"fsc_m {f(float(typed['fsc_m']))}, but FSM/Δ = fsm_tm {f(fsm)} / displacement_t {f(disp)} = {f(q)}")
+        elif all(k in typed for k in ("kg_fluid_m", "kg_m")):
+            kg = float(typed["kg_m"])
+            add(("kg_fluid_m", "kg_m", "fsm_tm", "displacement_t"), float(typed["kg_fluid_m"]), kg + q,
+                half_unit(typed["kg_fluid_m"]) + half_unit(typed["kg_m"]) + h_q,
+                f"kg_fluid_m {f(float(typed['kg_fluid_m']))}, but KG solid + FSM/Δ = kg_m {f(kg)} + fsm_tm {f(fsm)} / "
+                f"displacement_t {f(disp)} = {f(kg + q)}")
+    return tuple(out)

@@ -28,6 +28,9 @@ INLINE_KEYS = ("condition", "tanks", "holds", "deck_item", "constant")
 _RULES = {
     "displacement_t": (non_negative,), "deadweight_t": (), "fsm_tm": (non_negative,), "fsc_m": (non_negative,),
     "list_deg": (between(-90.0, 90.0, "°"),), "downflooding_angle_deg": (between(0.0, 90.0, "°"),),
+    "lw1_m": (non_negative,), "area_a_mrad": (non_negative,), "area_b_mrad": (non_negative,),
+    "theta0_deg": (between(0.0, 90.0, "°"),), "theta1_deg": (between(0.0, 90.0, "°"),),
+    "theta2_deg": (between(0.0, 90.0, "°"),),
 }
 
 
@@ -39,7 +42,8 @@ class BookletCase:
     """Where the booklet prints it ('' if not given)."""
     condition: m.Condition
     expected: dict = field(hash=False)
-    """The booklet's results: keys of deckload.core.booklet.QUANTITIES, and ``gz`` = ((heel, gz), …)."""
+    """The booklet's results: keys of deckload.core.booklet.QUANTITIES, ``gz`` = ((heel, gz), …), and
+    ``as_typed`` = the numbers as typed before any conversion (int or float, for their decimals)."""
     source: str
     """Where the loading came from: the condition file, or 'inline'."""
     conversions: tuple[str, ...] = ()
@@ -125,6 +129,7 @@ def _read_expected(t: Table, vessel: m.Vessel) -> tuple[dict | None, tuple[str, 
     ok = frame is not None
     frame = frame or Frame(p.lbp_m)
     done: list[str] = []
+    typed: dict = {}
     for key in QUANTITIES:
         present = e.has(key)
         if key == "tcg_m":
@@ -136,6 +141,9 @@ def _read_expected(t: Table, vessel: m.Vessel) -> tuple[dict | None, tuple[str, 
         if x is None:
             ok = False
             continue
+        raw = e.data.get(key)
+        if isinstance(raw, (int, float)) and not isinstance(raw, bool):
+            typed[key] = raw  # as on the page, for the page's own relations (core.booklet.disagreements)
         if key == "lcg_m" and not frame.x_is_identity:
             x = float(frame.x_to_ap(x))
             done.append(f"lcg_m: {frame.describe_x()}")
@@ -166,6 +174,7 @@ def _read_expected(t: Table, vessel: m.Vessel) -> tuple[dict | None, tuple[str, 
         e.ctx.add(e.raw, e.name, None, "gives no booklet result to compare: at least one of "
                   + ", ".join(list(QUANTITIES)[:4]) + ", … (vessel_profiles/README.md)")
         return None, ()
+    out["as_typed"] = typed
     return (out, tuple(f"converted: {t.name}.expected {d}" for d in done)) if ok else (None, ())
 
 
