@@ -375,7 +375,7 @@ def kn_unreached_rows(disp, lightest_t: float) -> frozenset[int]:
     from deckload.core.tables import CubicSpline
 
     d = np.asarray(disp, dtype=float)
-    if len(d) < 3 or lightest_t <= d[0]:
+    if len(d) < 3 or not d[0] < lightest_t < d[-1]:  # (a table wholly below her is the range check's error)
         return frozenset()
     first = max(0, int(np.searchsorted(d, lightest_t, side="right")) - 1)
     grid = np.concatenate([np.linspace(max(lightest_t, d[j]), d[j + 1], 51) for j in range(first, len(d) - 1)])
