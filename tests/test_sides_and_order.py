@@ -43,7 +43,7 @@ def test_a_change_smaller_than_the_shown_precision_is_not_shown_as_a_contradicti
 
 
 def test_log_details_use_sides_and_draft_order():
-    from deckload.ui.log_screen import _sided
+    from deckload.report.verdict_format import sided as _sided
 
     assert _sided(-0.26, 1, "°", "S", "P") == "0.3° P"
     assert _sided(0.313, 3, " m", "by the stern", "by the head") == "0.313 m by the stern"

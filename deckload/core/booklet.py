@@ -20,7 +20,6 @@ Pure: no files; the booklet's numbers arrive as a mapping (see vessel_profiles/R
 from __future__ import annotations
 
 import math
-from decimal import Decimal, InvalidOperation
 
 import numpy as np
 
@@ -255,11 +254,12 @@ def half_unit(typed: float | int) -> float:
     smaller, than the page's."""
     if isinstance(typed, int):
         return 0.5
-    try:
-        exponent = Decimal(repr(float(typed))).as_tuple().exponent
-    except InvalidOperation:  # cannot happen for a finite float: no allowance beyond ROUNDOFF
+    text = repr(float(typed))
+    if not math.isfinite(float(typed)):  # cannot happen for a value read: no allowance beyond ROUNDOFF
         return 0.0
-    return 0.5 * 10.0 ** exponent if isinstance(exponent, int) else 0.0
+    digits, _, power = text.partition("e")
+    decimals = len(digits.partition(".")[2])
+    return 0.5 * 10.0 ** (int(power or 0) - decimals)
 
 
 # (result key, terms (coefficient, key)): result = Σ coefficient·term, each an identity of the
