@@ -26,6 +26,7 @@ the linear value" (standards.md §5.2, Circ.1461 §5.1).
 
 from __future__ import annotations
 
+import itertools
 import math
 from pathlib import Path
 
@@ -248,7 +249,11 @@ def test_without_booklet_conditions_check_says_what_only_they_can_catch(tmp_path
     assert run_check(f) == 0
     out = capsys.readouterr().out
     assert "plausibility audit: nothing suspicious found" in out
-    (note,) = [line for line in out.splitlines() if line.startswith("NOTE: no booklet conditions entered")]
+    lines = out.splitlines()
+    (first,) = [i for i, line in enumerate(lines) if line.startswith("NOTE: no booklet conditions entered")]
+    folded = [lines[first], *itertools.takewhile(lambda line: line.startswith("      "), lines[first + 1:])]
+    assert all(len(line) <= 100 for line in folded)  # folded, not one line of 600 columns
+    note = " ".join(line.strip() for line in folded)
     assert "lightship KG or LCG" in note and "wrong datum or with the wrong sign" in note
     # and the slips of the second typing audit that only the worked conditions showed (found by an audit)
     for slip in ("older inclining", "tank page (or its FSM column) copied from another tank",

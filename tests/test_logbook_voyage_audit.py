@@ -428,7 +428,10 @@ def test_the_printout_for_signature_holds_what_a_signature_needs(logs, monkeypat
     assert f"{es[0].ship_time:%Y-%m-%d %H:%M} (+02:00)" in html
     trim, heel = es[0].summary["trim_m"], es[0].summary["list_deg"]
     assert f"{abs(trim):.3f} m by the {'stern' if trim > 0 else 'head'}" in html
-    assert f"{abs(heel):.1f}° to {'starboard' if heel > 0 else 'port'}" in html or f"{0:.1f}°" in html
+    for e in es:  # each entry's list as written: a side in words, or 0.0° alone when it rounds to nothing
+        heel = e.summary["list_deg"]
+        said = "0.0°" if round(abs(heel), 1) == 0 else f"{abs(heel):.1f}° to {'starboard' if heel > 0 else 'port'}"
+        assert f'<td class="w">{said}</td>' in html, said
     assert '<tr class="running"><th colspan=' in html and "Voyage loading log — Demo Islander</th>" in html
     assert "counter(page)" in html and "counter(pages)" in html
     not_assessed = es[0].summary["not_assessed"][0]["reason"]

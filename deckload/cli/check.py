@@ -22,6 +22,7 @@ from __future__ import annotations
 
 import os
 import sys
+import textwrap
 import traceback
 from pathlib import Path
 
@@ -31,6 +32,9 @@ from deckload.io.profiles import Problem, ProfileError, load_condition
 from deckload.report.audit_findings import load_audited
 
 CAUTION = vf.CAUTION
+
+NOTE_WIDTH = 100
+"""Columns the NOTE is folded to (it ran to 600 on one line; found in review)."""
 
 NO_BOOKLET_CONDITIONS = (
     "NOTE: no booklet conditions entered ([[booklet_condition]]): the audit above cannot see a wrong "
@@ -206,7 +210,7 @@ def _booklet(path: Path, vessel: m.Vessel, cases) -> int:
         print("booklet conditions: not computed until these problems are put right")
         return 1
     if not cases:
-        print(NO_BOOKLET_CONDITIONS)
+        print(textwrap.fill(NO_BOOKLET_CONDITIONS, NOTE_WIDTH, subsequent_indent="      ", break_on_hyphens=False))
         return 0
     passed = 0
     for case in cases:
