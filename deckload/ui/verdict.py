@@ -204,17 +204,21 @@ def criteria_lines(result: Result | None, stale: bool, width: int, height: int =
     out = build(True, True, na_full, {})
     if len(out) <= height:
         return out
-    # Fold the notes a line at a time: first to one line each (cut with '…'), then away.
+    # Fold the notes a line at a time: first to one line each (cut with '…'), then away.  A note
+    # given n of its lines takes exactly n (_first_rows), so each step takes one line off the count
+    # and the panel is built once, at the fold that fits (built at every step, the search was most
+    # of a key's cost on the loading screen).
     note_rows = {k: len(groups[k[0]][1][k[1]][2]) for k in note_order}
+    lines = len(out)
     for floor in (1, 0):
         for k in note_order:
             if floor == 0 and not groups[k[0]][1][k[1]][0].assessed:
                 continue  # the reason an unassessable criterion was not decided stays (one line)
             while note_rows[k] > floor:
                 note_rows[k] -= 1
-                out = build(True, True, na_full, {}, note_rows)
-                if len(out) <= height:
-                    return out
+                lines -= 1
+                if lines <= height:
+                    return build(True, True, na_full, {}, note_rows)
     for args in ((False, True, na_full), (False, False, na_full), (False, False, na_short)):
         out = build(*args, {})
         if len(out) <= height:
