@@ -67,6 +67,8 @@ class LoadingScreen(Screen[None]):
         self.session = session
         self._settle_timer = None
         self._criteria_made: tuple | None = None
+        self._said: tuple[str, bool | None] | None = None
+        """The message line's last words and kind, fitted again when the width changes."""
 
     def compose(self) -> ComposeResult:
         yield SizedPanel(id="titlebar")
@@ -100,6 +102,8 @@ class LoadingScreen(Screen[None]):
         self.set_class(event.size.width < NARROW_BELOW, "-narrow")
         self.query_one("#side").styles.width = side_width(event.size.width)  # None: the stylesheet's
         self.refresh_bindings()
+        if self._said is not None and self.is_mounted:  # fitted to the width it was said at: fit it again
+            self.say(*self._said, width=event.size.width)  # (self.size is not yet the new one here)
 
     def _key_line(self, width: int) -> Text:
         """The footer: the commands' keys that fit, ? (every key) and q always (ui/commands.footer_keys)."""
@@ -226,22 +230,28 @@ class LoadingScreen(Screen[None]):
         """A change reached the disk (or failed, which ``_report`` says): redraw the title."""
         if self.is_attached:
             self.query_one("#titlebar", SizedPanel).show(lambda w, h: [self._title(w)])
+        self._say_clock_back("Logged")  # an edit logged with the clock set back: said as a record's would be
+
+    def _say_clock_back(self, done: str) -> None:
+        """Say, once, that the first entry logged since the last time was timed earlier than the
+        newest before it (a clock set back): after an edit lands, a record, a sign-on or -off."""
         back = self.session.journal.take_clock_warning()
-        if back:  # an edit logged with the clock set back: said as a record's would be
-            self.notify(f"Logged, but {back}", severity="warning", timeout=20, markup=False)
+        if back:
+            self.notify(f"{done}, but {back}", severity="warning", timeout=20, markup=False)
 
     def _report(self, problem: str) -> None:
         # A save or log failure replaces the message line, which must never still read as done.
         self.say(problem, ok=False)
         self.notify(problem, severity="error", timeout=8, markup=False)
 
-    def say(self, message: str, ok: bool | None = True) -> None:
-        """The message line: ✔ done, ✖ refused, or a plain hint."""
+    def say(self, message: str, ok: bool | None = True, width: int | None = None) -> None:
+        """The message line: ✔ done, ✖ refused, or a plain hint; fitted to ``width`` (the screen's)."""
         style, mark = {True: (P["ok"], "✔ "), False: (P["danger"], "✖ "), None: (P["dim"], "")}[ok]
         panel = self.query_one("#status", LinePanel)
         # A result or refusal takes two lines where one would cut it (80 columns; the second ends in …
         # if even that is short); a hint (ok None) keeps one line, so the board keeps its rows.
-        lines = fit_lines(Text(" " + mark + message, style), max(20, self.size.width),
+        self._said = (message, ok)  # fitted again when the screen's width changes
+        lines = fit_lines(Text(" " + mark + message, style), max(20, width or self.size.width),
                           1 if ok is None else STATUS_MAX_LINES)
         if panel.styles.height is None or panel.styles.height.value != len(lines):
             panel.styles.height = len(lines)
@@ -613,9 +623,7 @@ class LoadingScreen(Screen[None]):
             problems = self.session.record(*answer)
             for p in problems:
                 self.notify(p, severity="error", timeout=8, markup=False)
-            back = j.take_clock_warning()  # (this record's, or an edit's logged just before it)
-            if back:
-                self.notify(f"Recorded, but {back}", severity="warning", timeout=20, markup=False)
+            self._say_clock_back("Recorded")  # (this record's, or an edit's logged just before it)
             broken = j.broken()
             if broken and not problems:
                 self.notify(f"Recorded, but {broken}", severity="warning", timeout=20, markup=False)
@@ -664,6 +672,7 @@ class LoadingScreen(Screen[None]):
             self.refresh_view()
             self.say(f"{was} signed off: changes are NOT logged until someone signs on (o)." if by == "-" else
                      f"{by} on watch: changes are logged under these initials.")
+            self._say_clock_back("Logged")
 
         hint = "Your initials (1–4 letters)" + (f"; - signs {j.officer} off" if j.officer else "")
         self.app.push_screen(_forms().PromptForm("Officer of the watch", hint, j.officer, build), done)

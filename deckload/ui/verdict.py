@@ -100,24 +100,32 @@ NOTE_INDENT, NOTE_MORE = "   ", "     "
 
 
 def _note_lines(note: str, width: int) -> list[Text]:
-    """A criterion's note wrapped to ``width``, the lines after the first indented further: broken
-    after a comma or semicolon where it can be (so that "lw1 0.0626 m" stays on one line), else
-    between words; a word wider than the line is cut with '…'."""
+    """A criterion's note wrapped to ``width``, the lines after the first indented further: a clause
+    (up to a comma or semicolon) that does not fit where the line stands starts the next line, so
+    that "lw1 0.0626 m" stays on one; a clause too long for any line fills the line it starts on,
+    word by word (it was put on a line of its own, leaving "passes," alone above it); a word wider
+    than the line is cut with '…'."""
     lines: list[str] = []
     cur = NOTE_INDENT
+
+    def join(line: str, text: str) -> str:
+        return line + ("" if line.isspace() else " ") + text
+
     for clause in re.split(r"(?<=[,;]) ", note):
-        trial = cur + ("" if cur.isspace() else " ") + clause
-        if len(trial) <= width or cur.isspace():
-            cur = trial
-        else:
+        if len(join(cur, clause)) <= width:
+            cur = join(cur, clause)
+        elif len(NOTE_MORE + clause) <= width and not cur.isspace():
             lines.append(cur)
             cur = NOTE_MORE + clause
+        else:  # longer than any line: between words, from where the line stands
+            for word in clause.split(" "):
+                if len(join(cur, word)) <= width or cur.isspace():
+                    cur = join(cur, word)
+                else:
+                    lines.append(cur)
+                    cur = NOTE_MORE + word
     lines.append(cur)
-    out: list[str] = []
-    for ln in lines:  # a clause wider than the line on its own: between words
-        out += textwrap.wrap(ln, max(8, width), subsequent_indent=NOTE_MORE,
-                             break_long_words=False, break_on_hyphens=False) if len(ln) > width else [ln]
-    return [_fit(Text(x.rstrip(), P["dim"]), width) for x in out]
+    return [_fit(Text(x.rstrip(), P["dim"]), width) for x in lines]
 
 
 def _first_rows(notes: list[Text], rows: int, width: int) -> list[Text]:
@@ -128,8 +136,15 @@ def _first_rows(notes: list[Text], rows: int, width: int) -> list[Text]:
     if rows <= 0:
         return []
     joined = " ".join(n.plain.strip() for n in notes[rows - 1:])
-    last = Text((NOTE_INDENT if rows == 1 else NOTE_MORE) + joined, P["dim"])
-    return notes[: rows - 1] + [_fit(last, width)]
+    lead = NOTE_INDENT if rows == 1 else NOTE_MORE
+    if len(lead) + len(joined) <= width:  # what is left fits whole on the last line given
+        return notes[: rows - 1] + [Text(lead + joined, P["dim"])]
+    # Cut after the last whole clause that fits ("…, P 504 Pa, …"), not inside one: a label kept
+    # without its number ("P 504 Pa, A…") reads as a value left out of its place.
+    ends = [m.end() for m in re.finditer(r"[,;](?= )", joined) if len(lead) + m.end() + 2 <= width]
+    if ends:
+        return notes[: rows - 1] + [Text(f"{lead}{joined[:ends[-1]]} …", P["dim"])]
+    return notes[: rows - 1] + [_fit(Text(lead + joined, P["dim"]), width)]
 
 
 def criteria_lines(result: Result | None, stale: bool, width: int, height: int = 10_000) -> list[Text]:
