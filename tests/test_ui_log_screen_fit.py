@@ -116,8 +116,16 @@ async def test_an_opened_entry_keeps_its_columns_and_wraps_each_line_once(book, 
         col = value_at.pop()
         at = next(i for i, x in enumerate(painted) if x.startswith("  Deadweight by kind"))
         assert painted[at][col:].startswith("Cargo ")
+        dwt = [painted[at][col:]]
         for x in painted[at + 1:]:
             if not x.startswith(" " * col) or not x.strip():
                 break
             assert x[col] != " " and not x[col:].startswith("·"), x  # under the first value, whole
+            dwt.append(x[col:])
+        # each item of the list whole on one line: 'Lube oil 1.28' / 't · Fresh water' was a trial's
+        items = [i.strip() for i in " ".join(x.strip() for x in dwt).split("·")]
+        for item in items:
+            assert any(item in x for x in dwt), (item, dwt)
+        # the heading's dates keep their times (no-break spaces): '2026-12-03' / '10:00:00 UTC' was
+        assert re.search(r"\d{4}-\d\d-\d\d\u00a0\d\d:\d\d:\d\d UTC", text), text[:300]
         assert all(len(x.rstrip()) <= summary.size.width for x in painted)

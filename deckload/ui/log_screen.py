@@ -104,7 +104,8 @@ def entry_details(e: LogEntry, back: tuple | None = None, width: int | None = No
     value column, any other indented), so the view does not wrap it again at column 1."""
     t = Text()
     t.append(f"Entry #{e.seq}  ", style="bold")
-    t.append(f"{e.ship_time:%Y-%m-%d %H:%M} ship's time ({e.ship_clock}), {e.utc:%Y-%m-%d %H:%M:%S} UTC\n")
+    # (a date and its time joined by a no-break space: a narrow view wraps between them never)
+    t.append(f"{e.ship_time:%Y-%m-%d\u00a0%H:%M} ship's time ({e.ship_clock}), {e.utc:%Y-%m-%d\u00a0%H:%M:%S} UTC\n")
     if back is not None:
         t.append(f"◂ {back_words(back)}\n", style="bold red")
     label = KIND_LABELS.get(e.kind, e.kind)
@@ -187,7 +188,8 @@ def _hang_of(plain: str, label_w: int) -> int:
 
 def _hanging(line: Text, width: int, hang: int) -> list[Text]:
     """``line`` broken between words into lines of ``width`` cells at most, the lines after the
-    first indented by ``hang`` (styles kept); a word longer than a line is split."""
+    first indented by ``hang`` (styles kept); a list (items joined by ' · ') between its items where
+    one ends within the line; a word longer than a line is split."""
     hang = hang if width - hang >= 20 else min(2, max(0, width - 10))
     plain, out, start = line.plain, [], 0
     while True:
@@ -196,7 +198,10 @@ def _hanging(line: Text, width: int, hang: int) -> list[Text]:
             piece = line[start:]
         else:
             cut = plain.rfind(" ", start, start + room + 1) - start
-            if cut <= 0 or not plain[start:start + cut].strip():
+            item = plain.rfind(" · ", start, start + room - 1) - start  # a list's last '·' that fits
+            if item > 0:  # a list breaks between its items, never inside one ('Lube oil 1.28' / 't')
+                cut = item + 2
+            elif cut <= 0 or not plain[start:start + cut].strip():
                 cut = room
             elif plain.startswith(" · ", start + cut):  # a list's '·' ends its line, never starts one
                 before = plain.rfind(" · ", start, start + cut)
