@@ -169,3 +169,22 @@ def test_a_shifted_column_in_a_csv_page_names_its_file_line_row_and_heel(tmp_pat
     assert (hit.file, hit.line, hit.is_error) == (str(page), 3, True)
     assert f"Δ {rows[1][0].rstrip('0').rstrip('.')} t holds {float(col[0]):.4g} m" in hit.finding.why
     assert "column 30°" in hit.finding.look
+
+
+def test_rows_or_heels_a_hair_apart_are_not_judged_and_raise_nothing():
+    """A table no booklet prints: heels 0° and 1e-310° (a subnormal apart), or displacements likewise.  The
+    leave-one-out weights (Lagrange) and the second differences divide by the spacing and overflowed
+    (a RuntimeWarning; a traceback under the fuzzer's -W error, seed 24680).  Nothing is judged
+    there, and nothing is raised."""
+    import warnings
+
+    from deckload.core.audit import _leave_out, kn_shifted_column, kn_swapped_rows
+
+    heel = np.array([0.0, 1e-310, 5.0, 10.0, 15.0, 20.0])
+    kn = np.outer(np.linspace(1.0, 2.0, 5), np.sin(np.radians(heel)))
+    disp = np.array([1e-310, 2e-310, 100.0, 200.0, 300.0])
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        assert _leave_out(heel, 2) is None  # its weights overflow: no prediction from them
+        assert kn_shifted_column(heel, kn) is None
+        assert kn_swapped_rows(disp, kn) is None

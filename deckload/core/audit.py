@@ -356,11 +356,12 @@ def _leave_out(x, j: int) -> tuple[list[int], np.ndarray] | None:
     if not any(k < j for k in idx) or not any(k > j for k in idx):
         return None
     w = np.ones(len(idx))
-    for a, ka in enumerate(idx):
-        for kb in idx:
-            if kb != ka:
-                w[a] *= (x[j] - x[kb]) / (x[ka] - x[kb])
-    return idx, w
+    with np.errstate(all="ignore"):  # heels a hair apart (a table no booklet prints): no prediction
+        for a, ka in enumerate(idx):
+            for kb in idx:
+                if kb != ka:
+                    w[a] *= (x[j] - x[kb]) / (x[ka] - x[kb])
+    return (idx, w) if bool(np.all(np.isfinite(w))) else None
 
 
 def kn_unreached_rows(disp, lightest_t: float) -> frozenset[int]:
@@ -431,8 +432,11 @@ def kn_swapped_rows(disp, kn) -> tuple[int, float] | None:
         window = kn[lo:hi]
         swapped = window.copy()
         swapped[[i - lo, i + 1 - lo]] = window[[i + 1 - lo, i - lo]]
-        after = float(np.sum(_second_differences(disp[lo:hi], swapped) ** 2))
-        before = float(np.sum(_second_differences(disp[lo:hi], window) ** 2))
+        with np.errstate(all="ignore"):  # rows a hair apart (no booklet's table): nothing to judge by
+            after = float(np.sum(_second_differences(disp[lo:hi], swapped) ** 2))
+            before = float(np.sum(_second_differences(disp[lo:hi], window) ** 2))
+        if not (math.isfinite(after) and math.isfinite(before)):
+            continue
         gain = before / after if after > 0.0 else math.inf
         if gain >= KN_SLIP_GAIN and (best is None or gain > best[1]):
             best = (i, gain)
@@ -459,14 +463,20 @@ def kn_shifted_column(heel, kn) -> tuple[int, int, float, float] | None:
         near = _leave_out(heel, j)
         if near is None:
             continue
-        pred = kn[:, near[0]] @ near[1]
+        with np.errstate(all="ignore"):
+            pred = kn[:, near[0]] @ near[1]
+        if not bool(np.all(np.isfinite(pred))):
+            continue
         for step in (1, -1):
             rows = np.arange(0, n - 1) if step == 1 else np.arange(1, n)
             typed = kn[rows, j] - pred[rows]
             moved = kn[rows + step, j] - pred[rows]  # the column put back: row i from the typed row i + step
-            rms = float(np.sqrt(np.mean(typed ** 2)))
-            s_moved = float(np.sum(moved ** 2))
-            gain = float(np.sum(typed ** 2)) / s_moved if s_moved > 0.0 else math.inf
+            with np.errstate(all="ignore"):
+                rms = float(np.sqrt(np.mean(typed ** 2)))
+                s_typed, s_moved = float(np.sum(typed ** 2)), float(np.sum(moved ** 2))
+            if not (math.isfinite(s_typed) and math.isfinite(s_moved)):
+                continue
+            gain = s_typed / s_moved if s_moved > 0.0 else math.inf
             if rms > KN_SLIP_FLOOR_M and gain >= KN_SLIP_GAIN and (best is None or gain > best[2]):
                 best = (j, step, gain, rms)
     return best
