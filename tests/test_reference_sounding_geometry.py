@@ -355,3 +355,17 @@ def test_a_prism_sounded_trimmed_and_listed_agrees_with_the_section_cut_at_thous
     assert got == pytest.approx(ref, abs=1e-5)
     old = float(immerse(three, math.cos(phi), math.sin(phi), c0, 1.2 / LBP * math.cos(phi), pipe.x_m).volume_m3)
     assert abs(old - ref) > 100 * 1e-5
+
+
+def test_a_trim_of_a_few_ulps_reads_the_even_keel_volume_and_raises_nothing():
+    """A trim of 1e-310 m over LBP (a subnormal slope): the points where the surface passes the
+    section's corners lie beyond any tank, and their division overflowed (a RuntimeWarning, a
+    traceback where warnings are errors).  The volume is the even-keel one, l·b·s = 40 × 0.3 m³
+    (module docstring, case 1), to round-off."""
+    import warnings
+
+    from deckload.core.soundings import _prism_volume
+
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        assert _prism_volume(three_station_body(), 1.0, 0.0, 0.5 + 0.3, 1e-310, 15.0) == pytest.approx(12.0, abs=ROUND)
