@@ -41,6 +41,17 @@ from demo_vessels import demo_vessel
 
 HERE = Path(__file__).parent
 BARGE_TEXT = (HERE / "broken_profiles" / "box_barge.toml").read_text(encoding="utf-8")
+CURVES_TEXT = """
+[limit_curve]
+displacement_t = [410.0, 820.0, 1230.0]
+max_kg_m = [4.5, 3.6, 2.7]
+
+[downflooding]
+displacement_t = [410.0, 1230.0]
+angle_deg = [45.0, 35.0]
+"""
+"""Appended to the barge in a profile case half the time, so that the audit of a limiting curve
+against the KN tables and the θf read from a curve meet mutated numbers too (invented values)."""
 CONDITION_TEXTS = [p.read_text(encoding="utf-8") for p in DEMO_CONDITIONS.values()]
 
 _NUM = re.compile(r'(?<![\w."\-])-?\d+(?:\.\d+)?(?:[eE][+-]?\d+)?(?![\w"])')
@@ -229,7 +240,7 @@ def condition_case(tally: Tally, vessel: m.Vessel, rng: random.Random) -> None:
 
 
 def profile_case(tally: Tally, rng: random.Random) -> None:
-    text = mutate(BARGE_TEXT, rng)
+    text = mutate(BARGE_TEXT + (CURVES_TEXT if rng.random() < 0.5 else ""), rng)
     tally.cases += 1
     tally.by_kind["profile"] += 1
     try:

@@ -86,3 +86,23 @@ def test_a_minimum_gm_curve_is_judged_the_same_way(gm_row, doubted):
     assert bool(found) is doubted
     if doubted:
         assert found[0].key == "limit_curve.min_gm_m" and "GM 0.3 m (KG 5.7 m with KMt 6 m)" in found[0].why
+
+
+def test_kn_rows_a_hair_apart_or_absurd_raise_nothing():
+    """KN rows a hair apart (a table no booklet prints) or a KN of 1e300 (refused by the other checks):
+    the spline through the rows, and the curve's area and peak, overflowed (tracebacks under a
+    fuzzer's -W error).  Nothing is raised, and such a row is not judged."""
+    import warnings
+
+    import numpy as np
+
+    from deckload.core.audit import kn_unreached_rows
+
+    v = vessel_with("max_kg_m", [5.20, 5.80, 5.08])
+    kn = np.array(v.cross_curves.kn_m)
+    kn[1, 5:] = 1e300
+    absurd = dataclasses.replace(v, cross_curves=dataclasses.replace(v.cross_curves, kn_m=frozen_array(kn)))
+    with warnings.catch_warnings():
+        warnings.simplefilter("error")
+        assert kn_unreached_rows([1e-310, 2e-310, 3e-310, 100.0], 50.0) == frozenset()
+        assert [f.path for f in doubts(absurd)] == []

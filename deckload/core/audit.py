@@ -380,7 +380,10 @@ def kn_unreached_rows(disp, lightest_t: float) -> frozenset[int]:
         return frozenset()
     first = max(0, int(np.searchsorted(d, lightest_t, side="right")) - 1)
     grid = np.concatenate([np.linspace(max(lightest_t, d[j]), d[j + 1], 51) for j in range(first, len(d) - 1)])
-    w = np.abs(CubicSpline.fit(d, np.eye(len(d)))(grid))
+    with np.errstate(all="ignore"):  # rows a hair apart (no booklet's table): every row judged
+        w = np.abs(CubicSpline.fit(d, np.eye(len(d)))(grid))
+    if not bool(np.all(np.isfinite(w))):
+        return frozenset()
     return frozenset(i for i in range(first) if float(w[:, i].max()) < KN_UNREACHED_WEIGHT)
 
 
@@ -1233,15 +1236,21 @@ class _Audit:
             if not lo <= d <= hi:
                 continue
             kmt = float(np.interp(d, h.displacement_t, h.kmt_m))
-            kn = gzmod.kn_curve(kc, d)
+            with np.errstate(all="ignore"):  # KN rows a hair apart: not read here (the calculation refuses)
+                kn = gzmod.kn_curve(kc, d)
             sin = gzmod.SIN[:len(kn)]
+            if not (math.isfinite(kmt) and bool(np.all(np.isfinite(kn)))):
+                continue
             flood = (float(np.interp(d, fl.displacement_t, fl.value))
                      if fl is not None and float(fl.displacement_t[0]) <= d <= float(fl.displacement_t[-1]) else None)
 
             def failed(kg: float):
                 gz = kn - kg * sin
-                rows = evaluate_criteria(sid, curve_measures(gz, gzmod.facts(gz), flood, kmt - kg), cs.min_gm_m,
-                                         fishing_gm_m=fishing_gm)
+                with np.errstate(all="ignore"):  # a KN table the other checks refuse may hold anything
+                    measures = curve_measures(gz, gzmod.facts(gz), flood, kmt - kg)
+                if not all(math.isfinite(x) for x in dataclasses.astuple(measures)):
+                    return []  # nothing to judge by: the other checks name what is wrong
+                rows = evaluate_criteria(sid, measures, cs.min_gm_m, fishing_gm_m=fishing_gm)
                 return [r for r in rows if not r.passed and not r.id.endswith(LIMIT_CURVE_UNJUDGED)]
 
             kg = value if col == "max_kg_m" else kmt - value
