@@ -142,7 +142,7 @@ def resolve(profile_path: Path, typed: str, vessel_name: str, work_dir: Path) ->
         if w.is_file():
             return w
         raise ConditionNotFound(f"{vessel_name} has no working condition yet ({w} does not exist): "
-                                "open the loading screen once, or name a condition." + _listing(profile_path, vessel_name, work_dir))
+                                "the loading screen writes it at its first change, or name a condition." + _listing(profile_path, vessel_name, work_dir))
     found = all_named(profile_path, vessel_name, work_dir)
     for n in found:
         if want in (n.key.casefold(), n.title.casefold()) or name_key(typed) == n.key:
