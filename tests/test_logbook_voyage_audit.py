@@ -566,3 +566,29 @@ async def test_the_screen_says_a_clock_set_back_when_an_edit_is_the_first_entry_
         await pilot.pause()
         said = [str(n.message) for n in app._notifications]
         assert sum("earlier than entry #1" in m for m in said) == 1, said
+
+
+def test_verify_names_the_doubtful_lines_and_the_log_screen_marks_them(three, capsys):
+    """Entry #2 duplicated in the middle showed on the log screen as a second '#2' like any other row;
+    only the status line said the chain was broken.  Verify now gives the lines its problems name
+    (the duplicate; an edited line itself, not the intact line after it), and the screen marks them."""
+    from deckload.ui.log_screen import _row
+
+    _duplicate_an_entry(three)  # lines 1, 2, 2 (the duplicate, line 3), 3
+    book = Logbook.open_file(three / LOG)
+    rep = book.verify()
+    assert not rep.ok and 3 in rep.doubtful_lines and not {1, 2} & rep.doubtful_lines, (rep.doubtful_lines, rep.problems)
+    entries = book.entries()
+    marked = [str(_row(e, None, e.line_no in rep.doubtful_lines)[0]) for e in entries]
+    assert marked == ["1", "2", "2 !", "3"], marked
+    assert main(["log", "--dir", str(three), "show"]) == 1
+    shown = capsys.readouterr().out
+    assert shown.count("is named by verify") == 1 and "! line 3 is named by verify" in shown
+
+    log = three / LOG
+    lines = log.read_bytes().splitlines(keepends=True)
+    edited = lines[1].replace(b'"JM"', b'"XY"', 1)  # the initials, as stored
+    assert edited != lines[1]
+    log.write_bytes(b"".join([lines[0], edited, *lines[3:]]))
+    rep = Logbook.open_file(log).verify()  # line 2 edited (the duplicate taken out again)
+    assert rep.doubtful_lines == frozenset({2}), (rep.doubtful_lines, rep.problems)

@@ -290,6 +290,9 @@ def _show(args) -> int:
                       f"{escape_breaks(e.change_text)}" + (f" — {escape_breaks(e.remark)}" if e.remark else ""))
                 if e.line_no in back:
                     print(f"      ◂ {back_words(back[e.line_no])}")
+                if e.line_no in rep.doubtful_lines:
+                    print(f"      ! line {e.line_no} is named by verify (edited, moved, inserted, duplicated or another "
+                          "vessel's): see the notice above")
                 na = (e.summary or {}).get("not_assessed")
                 if na:
                     text = "not assessed: " + vf.grouped_not_assessed((x.get("item"), x.get("reason")) for x in na)

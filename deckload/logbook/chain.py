@@ -43,6 +43,9 @@ class VerifyReport:
     """Number of complete lines read."""
     last_sha256: str = GENESIS_SHA256
     """SHA-256 of the newest complete line: write it in the paper log to anchor the chain."""
+    doubtful_lines: frozenset[int] = frozenset()
+    """The lines the problems name as unreadable, edited, moved, inserted, duplicated or another
+    vessel's: the views mark their entries (a duplicate showed as a second '#4' like any other)."""
 
     def failing_words(self, file_name: str) -> str:
         """What a writer says of a log that fails verification before (and after) recording in it."""
@@ -120,6 +123,7 @@ def verify_lines(
     prev_sha = GENESIS_SHA256
     seqs: list[int | None] = []
     unsound: set[int] = set()  # lines unreadable, or not chained or numbered from the line before
+    doubt: set[int] = set()  # every line a problem names (VerifyReport.doubtful_lines)
     recorded: tuple[int, str] | None = None  # (line, vessel) of the first entry, for a log found by its file
     offset = 0  # seq − line number: changes exactly where entries were removed, inserted or moved
     read: list[Chained] = []
@@ -130,6 +134,7 @@ def verify_lines(
         except LogFormatError as exc:
             problems.append(f"{exc} — the line was damaged or edited")
             unsound.add(i)
+            doubt.add(i)
             seqs.append(None)
             prev_sha = sha
             continue
@@ -139,6 +144,7 @@ def verify_lines(
         if not chained or e.seq - i != offset:
             unsound.add(i)
         if e.seq - i != offset:
+            doubt.add(i)
             offset = e.seq - i
             before = seqs[-2] if len(seqs) > 1 else None
             where = f"entry #{e.seq} follows entry #{before}" if before else f"entry #{e.seq}, expected #{i}"
@@ -147,6 +153,7 @@ def verify_lines(
                 + ("" if chained else "; the hash chain breaks here too")
             )
         elif not chained and i == 1:
+            doubt.add(1)
             problems.append(
                 "line 1: prev_sha256 should be the genesis value (64 zeros) — line 1 was edited"
             )
@@ -154,9 +161,12 @@ def verify_lines(
             problems.append(
                 f"line {i - 1}: edited — its SHA-256 is not the one line {i} records for it"
             )
+            doubt.add(i - 1)
         if vessel_name is not None and e.vessel != vessel_name:
+            doubt.add(i)
             problems.append(f"line {i}: vessel {e.vessel!r}, but this log belongs to {vessel_name!r}")
         elif file_name is not None and vessel_slug(e.vessel) != file_name.removesuffix(".log.jsonl"):
+            doubt.add(i)
             problems.append(f"line {i}: vessel {e.vessel!r}, but the file {file_name} is the log of the vessel "
                             f"its name says ({file_name.removesuffix('.log.jsonl')!r}) — the line was edited, "
                             "or another vessel's log was saved under this name")
@@ -164,9 +174,11 @@ def verify_lines(
             if recorded is None:
                 recorded = (i, e.vessel)
             elif e.vessel != recorded[1]:
+                doubt.add(i)
                 problems.append(f"line {i}: vessel {e.vessel!r}, but line {recorded[0]} records "
                                 f"{recorded[1]!r} — one log holds one vessel's entries")
         if e.kind not in KINDS:
+            doubt.add(i)
             problems.append(f"line {i}: kind {e.kind!r} is not one of {', '.join(KINDS)}")
         prev_sha = sha
 
@@ -183,6 +195,7 @@ def verify_lines(
         if s is None:
             continue
         if s in seen:
+            doubt.add(i)
             problems.append(f"line {i}: entry #{s} already appears on line {seen[s]} — a duplicate was inserted")
         else:
             seen[s] = i
@@ -246,6 +259,7 @@ def verify_lines(
         notes=notes,
         entries=n,
         last_sha256=sha256_hex(lines[-1]) if lines else GENESIS_SHA256,
+        doubtful_lines=frozenset(doubt),
     )
 
 

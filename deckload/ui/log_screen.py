@@ -221,14 +221,16 @@ _SHOWING_FAILED = (TypeError, ValueError, OverflowError, AttributeError, KeyErro
 is then shown as damaged, never the loading screen closed (records._entry_from_line checks first)."""
 
 
-def _row(e: LogEntry, back: tuple | None = None) -> tuple[Text, ...]:
+def _row(e: LogEntry, back: tuple | None = None, doubtful: bool = False) -> tuple[Text, ...]:
     """The entry's cells in the log table; a damaged entry's say so; one timed earlier than the entry
-    before it (``back``) has its time marked ◂."""
+    before it (``back``) has its time marked ◂; one a problem of verify names (``doubtful``: edited,
+    moved, inserted, duplicated) has its number marked '!'."""
     try:
         word = vf.stored_short(e.summary)
         when = Text(f"{e.ship_time:%m-%d %H:%M}" + (" ◂" if back is not None else ""),
                     style="bold red" if back is not None else "")
-        return (Text(str(e.seq)), when,
+        seq = Text(f"{e.seq} !", style="bold red") if doubtful else Text(str(e.seq))
+        return (seq, when,
                 *(Text(c) for c in (e.kind, e.by, _short(escape_breaks(e.change_text), 30), _num(e.gm_fluid_m))),
                 Text(word or "—", style="bold red" if word.startswith("NOT") else ""))
     except _SHOWING_FAILED:
@@ -345,10 +347,11 @@ class LogScreen(Screen["RestoreRequest | None"]):
         entries = self.logbook.entries()
         self.shown = select_entries(entries, self.kind, self.day_from, self.day_to)
         self._back = clock_back(entries)  # (against the entry before in the log, whatever the filters show)
+        doubtful = self._chain_report().doubtful_lines
         table = self.query_one("#log-table", DataTable)
         table.clear()
         for i, e in enumerate(self.shown):
-            table.add_row(*_row(e, self._back.get(e.line_no)), key=str(i))
+            table.add_row(*_row(e, self._back.get(e.line_no), e.line_no in doubtful), key=str(i))
         if self.shown:
             table.move_cursor(row=len(self.shown) - 1)
         mode = "read-only" if self.logbook.readonly else "writing"
