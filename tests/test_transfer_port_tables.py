@@ -95,11 +95,13 @@ def test_a_centreline_box_and_a_paired_tank_get_no_port_table():
 # -------------------------------------------------------------------------------- the GZ curve
 
 
+FILLS, HEELS = [0.0, 50.0, 100.0], [0.0, 29.0, 31.0, 90.0]
+
+
 def _posed(m_at_50_pct):
     """Posed as in test_stage_curve_transfer_pairs: M = m at 50 % fill between 29° and 31°, 0 at
-    0 % and 100 %, linear between the rows."""
-    fills, heels = np.array([0.0, 50.0, 100.0]), np.array([0.0, 29.0, 31.0, 90.0])
-    m = np.zeros((3, 4))
+    0 % and 100 % (rows :data:`FILLS`, columns :data:`HEELS`), linear between the rows."""
+    m = np.zeros((len(FILLS), len(HEELS)))
     m[1, 1:3] = m_at_50_pct
     return m
 
@@ -107,7 +109,7 @@ def _posed(m_at_50_pct):
 def _wing(tcg_m, port_table):
     t = box_tank("W1", length_m=10, breadth_m=5, height_m=2, lcg_m=50.0, tcg_m=tcg_m, kind="ballast",
                  density_t_m3=1.0)
-    tr = FluidTransfer(frozen_array([0.0, 50.0, 100.0]), frozen_array([0.0, 29.0, 31.0, 90.0]),
+    tr = FluidTransfer(frozen_array(FILLS), frozen_array(HEELS),
                        frozen_array(_posed(2.0)), None if port_table is None else frozen_array(_posed(port_table)))
     return dataclasses.replace(t, transfer=tr)
 
