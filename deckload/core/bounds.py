@@ -368,6 +368,13 @@ OFF_CENTRE_FRACTION_B = 0.01
 symmetric about it, when no port table of transfer says otherwise (common practice)."""
 
 
+def off_centre(tcg_m, breadth_m: float) -> bool:
+    """Whether a tank's centres (its calibration's TCG column) lie off the centreline by more than
+    :data:`OFF_CENTRE_FRACTION_B` of the breadth at any level: the one test for the table builder
+    (a port table written) and the GZ curve (a caution without one)."""
+    return float(np.max(np.abs(tcg_m))) > OFF_CENTRE_FRACTION_B * breadth_m
+
+
 # --------------------------------------------------------------------------- the evaluation's last step
 
 

@@ -35,7 +35,7 @@ from functools import lru_cache
 import numpy as np
 
 from deckload.core import gz as gzmod
-from deckload.core.bounds import OFF_CENTRE_FRACTION_B, bounded
+from deckload.core.bounds import bounded, off_centre
 from deckload.core.criteria import LIMIT_CURVE_SET, SET_TITLES, Measures, limit_curve_criterion, osv_area_end_deg
 from deckload.core.free_surface import (BASIS_NONE, TankFreeSurface, band_text, free_surface, pct_text, settings_departures,
                                         transfer_moment_m4)
@@ -310,7 +310,7 @@ def _port_transfer_m4(vessel: Vessel, tank, basis: str, fill_pct: float, heel_ra
     mirror = vessel.tank(tank.pair) if tank.pair else None
     if mirror is not None and mirror.transfer is not None:
         return transfer_moment_m4(mirror, basis, fill_pct, heel_rad)
-    if tr is not None and float(np.max(np.abs(tank.calibration.tcg_m))) > OFF_CENTRE_FRACTION_B * vessel.particulars.breadth_m:
+    if tr is not None and off_centre(tank.calibration.tcg_m, vessel.particulars.breadth_m):
         taken_as_stbd.append(tank.id)
     return m_stbd
 

@@ -28,7 +28,7 @@ from deckload.core.geometry.tanks import calibrate, fill_centroids, sounding_lev
 from deckload.core.geometry.transfer import TransferTable, transfer_moments, worst_band
 from deckload.core.geometry.windage import deck_edge_point, waterline_length_m, windage_above
 from deckload.core.model import TankCalibration
-from deckload.core.bounds import OFF_CENTRE_FRACTION_B
+from deckload.core.bounds import off_centre
 
 Progress = Callable[[str], None]
 
@@ -136,8 +136,7 @@ def tank_tables(spec: TankSpec, geometry: Geometry, heel_deg: np.ndarray) -> Tan
         # moment reversed: M'(f, φ) = −M(f, −φ) (derived, as worst_band takes it)
         port = -transfer_moments(body, fills, -np.asarray(heel_deg, dtype=float)).moment_m4
         port = np.where(port == 0.0, 0.0, port)  # no −0.0 in the written table
-        off_centre = float(np.max(np.abs(cal.tcg_m))) > OFF_CENTRE_FRACTION_B * geometry.vessel.breadth_m
-        if not off_centre and np.array_equal(np.round(port, TRANSFER_DECIMALS), np.round(tr.moment_m4, TRANSFER_DECIMALS)):
+        if not off_centre(cal.tcg_m, geometry.vessel.breadth_m) and np.array_equal(np.round(port, TRANSFER_DECIMALS), np.round(tr.moment_m4, TRANSFER_DECIMALS)):
             port = None
     return TankTables(spec, float(cal.volume_m3[-1]), cal, tr, band, body.rule, port)
 
