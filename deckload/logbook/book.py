@@ -273,6 +273,14 @@ class Logbook:
         lines, tail = _split_lines(data)
         return lines, tail, changes
 
+    def _entry_lines(self) -> list[bytes]:
+        """The log's entry lines: the complete ones, and a whole last line whose line end a copy
+        dropped (its SHA-256 the head record's; verify notes it), for the views and anchors."""
+        lines, tail, _ = self._lines()
+        if tail and whole_unterminated(tail, self._store.read_head()):
+            lines.append(tail)
+        return lines
+
     def _write_head(self) -> None:
         self._store.write_head(self._last_seq, self._last_sha)
 
@@ -379,10 +387,7 @@ class Logbook:
     def find(self, anchor_text: str) -> tuple[int, int] | None:
         """Where a printed copy's anchor (SHA-256 or its first 12+ hex digits, optionally 'N:HASH')
         is in this log: (line number, entry number), else None.  ValueError for a malformed anchor."""
-        lines, tail, _ = self._lines()
-        if tail and whole_unterminated(tail, self._store.read_head()):
-            lines.append(tail)
-        return find_anchor(lines, anchor_text)
+        return find_anchor(self._entry_lines(), anchor_text)
 
     def entries(self) -> list[LogEntry]:
         """Every complete, readable entry, oldest first.
@@ -404,9 +409,7 @@ class Logbook:
             head_key = None
         key = (st.st_size, st.st_mtime_ns, head_key)
         if self._cache is None or self._cache[0] != key:
-            lines, tail, _ = self._lines()
-            if tail and whole_unterminated(tail, self._store.read_head()):
-                lines.append(tail)  # a whole last line whose line end a copy dropped (verify notes it)
+            lines = self._entry_lines()
             out: list[LogEntry] = []
             skipped: list[tuple[int, str]] = []
             for i, line in enumerate(lines, start=1):
@@ -445,7 +448,7 @@ class Logbook:
             rep = dataclasses.replace(rep, notes=[
                 *rep.notes, *(f"{p.name}: a torn last line set aside earlier ({_size(p)}), kept beside the log: "
                               "the append it belonged to never reported done" for p in side)])
-        if any(n.startswith("head record is") for n in rep.notes):
+        if rep.head_behind:
             why = self._store.head_unwritable()
             if why is not None:
                 rep = dataclasses.replace(rep, notes=[

@@ -43,6 +43,9 @@ class VerifyReport:
     """Number of complete lines read."""
     last_sha256: str = GENESIS_SHA256
     """SHA-256 of the newest complete line: write it in the paper log to anchor the chain."""
+    head_behind: bool = False
+    """The head record names an earlier entry than the last line (a power cut between an append and
+    its head update, or a head that could not be written): said in a note, never a problem."""
     doubtful_lines: frozenset[int] = frozenset()
     """The lines the problems name as unreadable, edited, moved, inserted, duplicated or another
     vessel's: the views mark their entries (a duplicate showed as a second '#4' like any other)."""
@@ -124,6 +127,11 @@ def verify_lines(
     seqs: list[int | None] = []
     unsound: set[int] = set()  # lines unreadable, or not chained or numbered from the line before
     doubt: set[int] = set()  # every line a problem names (VerifyReport.doubtful_lines)
+
+    def problem(line: int, text: str) -> None:
+        """A problem of the entry on ``line``: said, and the line marked doubtful."""
+        problems.append(text)
+        doubt.add(line)
     recorded: tuple[int, str] | None = None  # (line, vessel) of the first entry, for a log found by its file
     offset = 0  # seq − line number: changes exactly where entries were removed, inserted or moved
     read: list[Chained] = []
@@ -132,9 +140,8 @@ def verify_lines(
         try:
             e = _chained(line, i, sha)
         except LogFormatError as exc:
-            problems.append(f"{exc} — the line was damaged or edited")
+            problem(i, f"{exc} — the line was damaged or edited")
             unsound.add(i)
-            doubt.add(i)
             seqs.append(None)
             prev_sha = sha
             continue
@@ -144,42 +151,29 @@ def verify_lines(
         if not chained or e.seq - i != offset:
             unsound.add(i)
         if e.seq - i != offset:
-            doubt.add(i)
             offset = e.seq - i
             before = seqs[-2] if len(seqs) > 1 else None
             where = f"entry #{e.seq} follows entry #{before}" if before else f"entry #{e.seq}, expected #{i}"
-            problems.append(
-                f"line {i}: {where} — an entry was removed, inserted or moved here"
-                + ("" if chained else "; the hash chain breaks here too")
-            )
+            problem(i, f"line {i}: {where} — an entry was removed, inserted or moved here"
+                    + ("" if chained else "; the hash chain breaks here too"))
         elif not chained and i == 1:
-            doubt.add(1)
-            problems.append(
-                "line 1: prev_sha256 should be the genesis value (64 zeros) — line 1 was edited"
-            )
+            problem(1, "line 1: prev_sha256 should be the genesis value (64 zeros) — line 1 was edited")
         elif not chained:
-            problems.append(
-                f"line {i - 1}: edited — its SHA-256 is not the one line {i} records for it"
-            )
-            doubt.add(i - 1)
+            problem(i - 1, f"line {i - 1}: edited — its SHA-256 is not the one line {i} records for it")
         if vessel_name is not None and e.vessel != vessel_name:
-            doubt.add(i)
-            problems.append(f"line {i}: vessel {e.vessel!r}, but this log belongs to {vessel_name!r}")
+            problem(i, f"line {i}: vessel {e.vessel!r}, but this log belongs to {vessel_name!r}")
         elif file_name is not None and vessel_slug(e.vessel) != file_name.removesuffix(".log.jsonl"):
-            doubt.add(i)
-            problems.append(f"line {i}: vessel {e.vessel!r}, but the file {file_name} is the log of the vessel "
-                            f"its name says ({file_name.removesuffix('.log.jsonl')!r}) — the line was edited, "
-                            "or another vessel's log was saved under this name")
+            problem(i, f"line {i}: vessel {e.vessel!r}, but the file {file_name} is the log of the vessel "
+                       f"its name says ({file_name.removesuffix('.log.jsonl')!r}) — the line was edited, "
+                       "or another vessel's log was saved under this name")
         elif file_name is not None:
             if recorded is None:
                 recorded = (i, e.vessel)
             elif e.vessel != recorded[1]:
-                doubt.add(i)
-                problems.append(f"line {i}: vessel {e.vessel!r}, but line {recorded[0]} records "
-                                f"{recorded[1]!r} — one log holds one vessel's entries")
+                problem(i, f"line {i}: vessel {e.vessel!r}, but line {recorded[0]} records "
+                        f"{recorded[1]!r} — one log holds one vessel's entries")
         if e.kind not in KINDS:
-            doubt.add(i)
-            problems.append(f"line {i}: kind {e.kind!r} is not one of {', '.join(KINDS)}")
+            problem(i, f"line {i}: kind {e.kind!r} is not one of {', '.join(KINDS)}")
         prev_sha = sha
 
     back = clock_back(read)
@@ -195,12 +189,12 @@ def verify_lines(
         if s is None:
             continue
         if s in seen:
-            doubt.add(i)
-            problems.append(f"line {i}: entry #{s} already appears on line {seen[s]} — a duplicate was inserted")
+            problem(i, f"line {i}: entry #{s} already appears on line {seen[s]} — a duplicate was inserted")
         else:
             seen[s] = i
 
     n = len(lines)
+    behind = False  # the head record behind lines that chain from it (VerifyReport.head_behind)
     if tail:
         if writer_active:
             notes.append(f"line {n + 1}: incomplete — another process is writing the log right now")
@@ -219,6 +213,7 @@ def verify_lines(
             )
     elif head.get("seq") == 0 and head.get("sha256") == GENESIS_SHA256:
         if n and not unsound:
+            behind = True
             notes.append(f"head record is {n} entr{'y' if n == 1 else 'ies'} behind ({_HEAD_BEHIND}); the lines "
                          "chain correctly from the start")
         elif n:
@@ -247,6 +242,7 @@ def verify_lines(
                 after = f"line {n}" if at + 1 == n else f"lines {at + 1}–{n}"
                 sound = not any(at < k <= n for k in unsound)
                 if sound:
+                    behind = True
                     notes.append(f"head record is {n - at} entr{'y' if n - at == 1 else 'ies'} behind ({_HEAD_BEHIND}); "
                                  f"{after} {'chains' if at + 1 == n else 'chain'} correctly from it")
                 else:  # (a power cut leaves the head behind lines that chain from it: these do not)
@@ -259,6 +255,7 @@ def verify_lines(
         notes=notes,
         entries=n,
         last_sha256=sha256_hex(lines[-1]) if lines else GENESIS_SHA256,
+        head_behind=behind,
         doubtful_lines=frozenset(doubt),
     )
 
