@@ -373,8 +373,13 @@ def test_a_page_whose_own_numbers_disagree_is_said_so_before_the_comparison(tmp_
 
 def test_the_pages_relations_allow_the_rounding_of_the_decimals_typed():
     """Half a unit of the last printed decimal of each value, carried through the relation
-    (derived in core.booklet.half_unit / disagreements)."""
-    from deckload.core.booklet import disagreements, half_unit
+    (derived in core.booklet.disagreements, with the reader's io.tomlcheck.printed_half_unit)."""
+    from functools import partial
+
+    from deckload.core.booklet import disagreements as own_relations
+    from deckload.io.tomlcheck import printed_half_unit as half_unit
+
+    disagreements = partial(own_relations, half_unit=half_unit)
 
     assert half_unit(250) == 0.5 and half_unit(1.425) == pytest.approx(0.0005) and half_unit(0.1) == pytest.approx(0.05)
     # mean of the drafts: (1.56 + 1.36)/2 = 1.46; printed to 2 decimals, rounding ±(0.005 + (0.005 + 0.005)/2) = ±0.01

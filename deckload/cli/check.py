@@ -202,6 +202,7 @@ def _booklet(path: Path, vessel: m.Vessel, cases) -> int:
     from deckload.core.booklet import compare, disagreements
     from deckload.core.stability import evaluate
     from deckload.core.tables import OutOfRangeError
+    from deckload.io.tomlcheck import printed_half_unit
 
     if isinstance(cases, int):
         return cases
@@ -220,7 +221,7 @@ def _booklet(path: Path, vessel: m.Vessel, cases) -> int:
             print(f"    {line}")
         # the page against itself first: a value typed wrong from the page shows there, and the
         # comparison with deckload below would only say a row is off, not that the page cannot be so
-        own = disagreements(case.expected.get("as_typed", {}))
+        own = disagreements(case.expected.get("as_typed", {}), printed_half_unit)
         if own:
             print(f"    FAIL: the booklet condition's own numbers disagree ({_plural(len(own), 'relation')} broken, "
                   "beyond the rounding of the decimals typed): a value typed from the booklet page is likely "

@@ -35,7 +35,7 @@ from deckload.core.criteria import SET_TITLES, SETS_BY_TYPE, evaluate_criteria, 
 from deckload.core.free_surface import settings_departures
 from deckload.core.frozen import frozen
 from deckload.core.model import Tank, Vessel
-from deckload.core.stability import curve_measures
+from deckload.core.stability import curve_limit, curve_measures
 
 ERROR = "error"
 WARNING = "warning"
@@ -381,7 +381,7 @@ def kn_unreached_rows(disp, lightest_t: float) -> frozenset[int]:
     first = max(0, int(np.searchsorted(d, lightest_t, side="right")) - 1)
     grid = np.concatenate([np.linspace(max(lightest_t, d[j]), d[j + 1], 51) for j in range(first, len(d) - 1)])
     with np.errstate(all="ignore"):  # rows a hair apart (no booklet's table): every row judged
-        w = np.abs(CubicSpline.fit(d, np.eye(len(d)))(grid))
+        w = np.abs(CubicSpline.fit(d, np.eye(len(d)), end="not-a-knot")(grid))
     if not bool(np.all(np.isfinite(w))):
         return frozenset()
     return frozenset(i for i in range(first) if float(w[:, i].max()) < KN_UNREACHED_WEIGHT)
@@ -1241,8 +1241,7 @@ class _Audit:
             sin = gzmod.SIN[:len(kn)]
             if not (math.isfinite(kmt) and bool(np.all(np.isfinite(kn)))):
                 continue
-            flood = (float(np.interp(d, fl.displacement_t, fl.value))
-                     if fl is not None and float(fl.displacement_t[0]) <= d <= float(fl.displacement_t[-1]) else None)
+            flood = curve_limit(fl, d)  # θf as the calculation reads it; None off the curve
 
             def failed(kg: float):
                 gz = kn - kg * sin

@@ -20,6 +20,7 @@ Pure: no files; the booklet's numbers arrive as a mapping (see vessel_profiles/R
 from __future__ import annotations
 
 import math
+from typing import Callable
 
 import numpy as np
 
@@ -246,22 +247,6 @@ class Disagreement:
     """The rounding of the printed decimals, carried through the relation."""
 
 
-def half_unit(typed: float | int) -> float:
-    """Half a unit in the last decimal printed: the most by which a printed value can differ from
-    the exact one it was rounded from.  The decimals are those of the value as typed: an integer
-    (250) has none (±0.5); a decimal is read as Python's shortest repr writes it (1.425 → 3,
-    ±0.0005), so a trailing zero typed (1.4250) is not seen and the allowance is then larger, never
-    smaller, than the page's."""
-    if isinstance(typed, int):
-        return 0.5
-    text = repr(float(typed))
-    if not math.isfinite(float(typed)):  # cannot happen for a value read: no allowance beyond ROUNDOFF
-        return 0.0
-    digits, _, power = text.partition("e")
-    decimals = len(digits.partition(".")[2])
-    return 0.5 * 10.0 ** (int(power or 0) - decimals)
-
-
 # (result key, terms (coefficient, key)): result = Σ coefficient·term, each an identity of the
 # booklet's own page: GM = KM − KG; KG fluid = KG + FSC; draft at midships = mean of the
 # draughts at the perpendiculars (midships lies halfway); trim = aft − forward (deckload's
@@ -276,7 +261,7 @@ _LINEAR = (
 )
 
 
-def disagreements(typed: dict) -> tuple[Disagreement, ...]:
+def disagreements(typed: dict, half_unit: Callable[[float | int], float]) -> tuple[Disagreement, ...]:
     """The relations among a booklet condition's printed values that its own numbers break.
 
     ``typed`` maps expected keys to the values as typed from the page (before any conversion of
@@ -284,7 +269,8 @@ def disagreements(typed: dict) -> tuple[Disagreement, ...]:
     fluid; GM solid = KMt − KG solid; KG fluid = KG solid + FSC, or KG solid + FSM/Δ when no FSC is
     given; FSC = FSM/Δ; draft midships = (aft + forward)/2; trim = aft − forward.  A relation is broken
     when its two sides differ by more than the rounding of the printed decimals carried through it
-    (:func:`half_unit` of each value; for a sum Σ|c|·h, for FSM/Δ h_FSM/Δ + FSM·h_Δ/Δ², first order)
+    (``half_unit`` of each value as typed — the reader's ``tomlcheck.printed_half_unit``: half a unit
+    of its last printed decimal; for a sum Σ|c|·h, for FSM/Δ h_FSM/Δ + FSM·h_Δ/Δ², first order)
     plus :data:`ROUNDOFF`.  Such a page cannot be the booklet's as printed: one of its values was
     typed wrong, and no comparison with deckload can say which."""
     out: list[Disagreement] = []

@@ -403,7 +403,7 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
     notes: list[Warning] = []
     # Both curves are tabulated against displacement at the table density, like the KN
     # curves they are made with: the same waterline, so the same equivalent displacement.
-    flood = _curve_limit(vessel.downflooding, table_disp)
+    flood = curve_limit(vessel.downflooding, table_disp)
     flood_unknown = ""
     if vessel.downflooding is None:
         notes.append(Warning("downflooding-not-given", flood_not_given(curve.end_deg), "caution"))
@@ -421,7 +421,7 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
     limit_rows = []
     limit_missing = None
     if vessel.limit_curve is not None:
-        lim = _curve_limit(vessel.limit_curve, table_disp)
+        lim = curve_limit(vessel.limit_curve, table_disp)
         off = None
         if lim is None:
             off = _off_curve(vessel.limit_curve, "limiting curve", disp, table_disp)
@@ -624,7 +624,7 @@ def _off_curve(curve, name: str, disp: float, table_disp: float) -> str:
     return f"displacement {disp:.1f} t{at} is outside the {name}, {lo:g}–{hi:g} t"
 
 
-def _curve_limit(curve, displacement_t: float) -> float | None:
+def curve_limit(curve, displacement_t: float) -> float | None:
     """The curve's value at a displacement, or None outside its range (the caller warns)."""
     if curve is None:
         return None
