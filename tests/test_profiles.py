@@ -255,9 +255,12 @@ def test_capacity_must_equal_last_calibration_volume():
     text = edit(BASE, "capacity_m3 = 50.0", "capacity_m3 = 51.0")
     p = only(text)
     assert p.key == "tank[DB1P].capacity_m3" and p.value == "51.0"
-    # (51 − 50)/50 = 2 %
+    # (51 − 50)/50 = 2 %; and 50 is 98.04 % of 51, within the printing of a table stopped at 98 %
     assert p.rule == ("differs from the last calibration volume 50 m³ by 2.00 % (at most 0.05 % allowed, "
-                      "or 0.1 m³, half a unit of the last decimals printed)")
+                      "or 0.1 m³, half a unit of the last decimals printed); the table's last row is 98 % of it: "
+                      "if the booklet prints the table only to 98 % of the tank, say so with table_top_pct = 98")
+    # 2 % below the table's top is no table stopped short: no such hint
+    assert "table_top_pct" not in only(edit(BASE, "capacity_m3 = 50.0", "capacity_m3 = 49.0")).rule
     # 0.4 % would shift the 98 % 'nominally full' line: refused
     assert "0.40 %" in only(edit(BASE, "capacity_m3 = 50.0", "capacity_m3 = 50.2")).rule
     # 0.04 % is round-off: accepted, and 100 % then means the table's top, never beyond it

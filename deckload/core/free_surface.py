@@ -104,8 +104,11 @@ def band_text(band_pct: tuple[float, float]) -> str:
 
 
 def fsi_at_fill(tank: Tank, fill_pct: float) -> float:
-    """Free-surface inertia (m⁴) at a fill, from the calibration table."""
-    vol = tank.capacity_m3 * fill_pct / 100.0
+    """Free-surface inertia (m⁴) at a fill, from the calibration table; a fill above the top of a
+    table printed short of full (``Tank.table_top_pct``) reads the table's last row, the highest
+    level the booklet gives."""
+    vol = min(tank.capacity_m3 * fill_pct / 100.0, float(tank.table[-1, 1])) if tank.short_table \
+        else tank.capacity_m3 * fill_pct / 100.0
     i, f = bracket(tank.table[:, 1], vol, f"volume of tank {tank.id}", "m³")
     return float(lerp_row(tank.table[:, 5], i, f))
 

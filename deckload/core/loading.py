@@ -147,15 +147,19 @@ def volume_of(tank: Tank, quantity: str, value: float, density_t_m3: float) -> f
     An amount over its limit by no more than the round-off allowance (:func:`over_limit`)
     is the limit itself.  Raises :class:`LoadingError` when the amount does not fit the tank.
     """
-    cap = tank.capacity_m3
+    cap, top_pct = tank.capacity_m3, tank.table_top_pct
     if quantity == "percent":
-        if not value >= 0.0 or over_limit(value, 100.0):
+        if not value >= 0.0 or over_limit(value, top_pct):
+            if tank.short_table and value >= 0.0:
+                raise LoadingError(f"tank {tank.id}: {value:g} % is above {tank.fill_limit_words}: the table "
+                                   "reads no fill above its last row")
             raise LoadingError(f"tank {tank.id}: {value:g} % is outside 0–100 %")
-        return min(cap * min(value, 100.0) / 100.0, float(tank.table[-1, 1]))
+        return min(cap * min(value, top_pct) / 100.0, float(tank.table[-1, 1]))
+    limit_m3 = tank.fill_limit_m3
     if quantity == "volume_m3":
-        limit, volume = cap, value
+        limit, volume = limit_m3, value
     elif quantity == "mass_t":
-        limit, volume = cap * density_t_m3, value / density_t_m3
+        limit, volume = limit_m3 * density_t_m3, value / density_t_m3
     elif quantity in ("sounding_m", "ullage_m"):
         return float(_row_at_reading(tank, quantity, value)[1])
     else:
@@ -163,9 +167,7 @@ def volume_of(tank: Tank, quantity: str, value: float, density_t_m3: float) -> f
     if not value >= 0.0:
         raise LoadingError(f"tank {tank.id}: a negative amount ({value:g}) cannot be loaded")
     if over_limit(value, limit):
-        raise LoadingError(
-            f"tank {tank.id}: {volume:.2f} m³ exceeds its capacity of {cap:.2f} m³"
-        )
+        raise LoadingError(f"tank {tank.id}: {volume:.2f} m³ exceeds {tank.fill_limit_words}")
     # capacity_m3 and the table's top may differ by round-off (the loader allows 0.05 %):
     # never ask the table for more than it holds.
     return min(volume, cap, float(tank.table[-1, 1]))

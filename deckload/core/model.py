@@ -271,7 +271,8 @@ class Tank:
     density_t_m3: float
     """Default density of the contents (t/m³)."""
     capacity_m3: float
-    """Volume at 100 % (m³); equals the last calibration volume."""
+    """Volume at 100 % (m³): the last calibration volume, or that volume ÷ (``table_top_pct``/100)
+    where the booklet's table stops short of full."""
     calibration: TankCalibration
     """Calibration table by sounding."""
     pair: str | None = None
@@ -294,6 +295,11 @@ class Tank:
     fsi_given: str = "table"
     """Where ``calibration.fsi_m4`` comes from: 'table' (per row, as given), 'max' (one
     maximum value per tank, used at every level) or 'none' (no free surface given: nil)."""
+    table_top_pct: float = 100.0
+    """The fill (% of ``capacity_m3``) of the calibration table's last row: 100, or less where the
+    booklet prints the table only to 98 % of the tank (common practice for fuel tanks).  Fills
+    are percent of the whole tank, so the 98 % 'nominally full' line (IS 2008 B 3.1.2) falls where
+    it does in the tank, and no fill above the table's top can be stated (:attr:`fill_limit_m3`)."""
     max_fsi_m4: float = field(init=False)
     """Largest free-surface inertia over the calibration (m⁴); derived."""
     table: np.ndarray = field(init=False, repr=False)
@@ -308,6 +314,25 @@ class Tank:
     @property
     def is_consumable(self) -> bool:
         return self.kind in CONSUMABLE_KINDS
+
+    @property
+    def short_table(self) -> bool:
+        """True when the calibration table stops short of the full tank (``table_top_pct`` < 100)."""
+        return self.table_top_pct < 100.0
+
+    @property
+    def fill_limit_m3(self) -> float:
+        """The most the tank can be stated to hold (m³): its capacity, or the top of a table that
+        stops short of full (nothing above a table's last row can be read from it)."""
+        return float(self.table[-1, 1]) if self.short_table else self.capacity_m3
+
+    @property
+    def fill_limit_words(self) -> str:
+        """The limit of :attr:`fill_limit_m3` in words, for messages."""
+        if self.short_table:
+            return (f"the top of its table, {self.fill_limit_m3:.2f} m³ ({self.table_top_pct:g} % of its "
+                    f"capacity {self.capacity_m3:.2f} m³)")
+        return f"its capacity of {self.capacity_m3:.2f} m³"
 
 
 @frozen(eq=False)

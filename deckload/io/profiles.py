@@ -83,6 +83,10 @@ more would misjudge the 98 % 'nominally full' line or ask the table for a volume
 It may differ by more only by the rounding of the decimals printed (CAPACITY_PRINTED_MAX_M3), and
 the calibration's last volume is then the capacity."""
 
+TABLE_TOP_PCT_RANGE = (90.0, 100.0)
+"""A tank table printed short of full stops at 98 % of the tank (common practice for fuel tanks;
+95 % is also seen); below 90 % no booklet's tank table stops (common practice)."""
+
 CAPACITY_PRINTED_MAX_M3 = 0.5
 """The printing allowance on a capacity is at most half a cubic metre: a capacity printed to whole
 cubic metres is the coarsest a booklet prints (common practice); a number typed as 2e1 is no
@@ -1247,6 +1251,9 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], 
     kw["density_t_m3"] = t.num("density_t_m3", liquid_density)
     capacity = t.num("capacity_m3", positive)
     kw["capacity_m3"] = capacity
+    top_pct = t.num("table_top_pct", between(*TABLE_TOP_PCT_RANGE, "%", "the fill of the calibration table's "
+                    "last row, as a percent of the whole tank"), required=False, default=100.0)
+    kw["table_top_pct"] = top_pct
     pair = t.text("pair", required=False, default=None)
     kw["pair"] = pair
     if t.has("pair") and pair is not None and not ID_PATTERN.match(pair):
@@ -1274,7 +1281,7 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], 
         vcg = t.num("vcg_m", above_keel)
         tcg, marked = tcg_num(t, "tcg_m", f)
         t.get("calibration", False)
-        for k in ("sounding_zero_m", "ullage_reference_m"):
+        for k in ("sounding_zero_m", "ullage_reference_m", "table_top_pct"):
             if t.has(k):
                 t.bad(k, t.data[k], "a tank without a calibration table has no level: give [tank.calibration] or leave this out")
                 bad_level = True
@@ -1331,7 +1338,8 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], 
         t.get("transfer", False)
         kw["transfer"] = None
     t.finish()
-    if kw["calibration"] is None or any(kw[k] is None for k in ("id", "name", "kind", "density_t_m3", "capacity_m3", "fs_category", "worst_band_pct")):
+    if kw["calibration"] is None or any(kw[k] is None for k in ("id", "name", "kind", "density_t_m3", "capacity_m3",
+                                                                   "fs_category", "worst_band_pct", "table_top_pct")):
         return ({"id": ident, "pair": pair} if ident else None), False
     return kw, True
 
@@ -1497,20 +1505,43 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
               f"{toml_value(t.data['vcg_m'][prev])}); "
               "the contents' centre can only rise", (row,))
         return None
-    if capacity is not None:
+    top_pct = kw.get("table_top_pct")
+    if capacity is not None and top_pct is not None:
         last = float(cols["volume_m3"][-1])
         # The booklet prints the capacity and the table each to its own decimals: each may carry
         # half a unit of its last decimal printed (24.1 for 24.068), up to a whole m³'s rounding.
         printed = min(CAPACITY_PRINTED_MAX_M3, printed_half_unit(tank.data["capacity_m3"])
                       + printed_half_unit(t.written("volume_m3", 0 if tr.reversed else n - 1)))
         allowed = max(CAPACITY_TOLERANCE * last, printed)
-        if abs(capacity - last) > allowed * (1.0 + 1e-9):
+        # A table printed to 98 % of the tank (table_top_pct): the capacity may be typed as the
+        # table's top, as printed beside it, or as the whole tank; either way the whole is the top
+        # ÷ 0.98, so that the 98 % line falls exactly on the table's last row.
+        whole = last * 100.0 / top_pct
+        if top_pct < 100.0 and abs(capacity - whole) <= allowed * 100.0 / top_pct * (1.0 + 1e-9):
+            kw["capacity_m3"] = whole
+            rd.convert(tank.name, "capacity_m3", f"{num(capacity)} m³ as printed → {num(whole)} m³ at 100 %, "
+                       f"the calibration's last volume {num(last)} m³ being {num(top_pct)} % (table_top_pct)")
+        elif abs(capacity - last) > allowed * (1.0 + 1e-9):
+            near = next((p for p in (98.0, 95.0)
+                         if abs(last * 100.0 / p - capacity) <= allowed * 100.0 / p * (1.0 + 1e-9)), None)
+            if top_pct < 100.0:
+                hint = (f"; with table_top_pct = {num(top_pct)} it must be the table's top or "
+                        f"{num(whole)} m³, the whole tank")
+            elif near is not None and capacity > last:
+                hint = (f"; the table's last row is {num(near)} % of it: if the booklet prints the table only "
+                        f"to {num(near)} % of the tank, say so with table_top_pct = {num(near)}")
+            else:
+                hint = ""
             tank.bad("capacity_m3", tank.data["capacity_m3"],
                      f"differs from the last calibration volume {num(last)} m³ by "
                      f"{_percent(100 * abs(capacity - last) / last)} % (at most {100 * CAPACITY_TOLERANCE:g} % allowed, "
-                     f"or {num(printed)} m³, half a unit of the last decimals printed)")
+                     f"or {num(printed)} m³, half a unit of the last decimals printed){hint}")
             return None
-        if abs(capacity - last) > CAPACITY_TOLERANCE * last:
+        elif top_pct < 100.0:
+            kw["capacity_m3"] = whole
+            rd.convert(tank.name, "capacity_m3", f"{num(capacity)} m³, the table's top as printed → {num(whole)} m³ "
+                       f"at 100 %, the top being {num(top_pct)} % of the tank (table_top_pct)")
+        elif abs(capacity - last) > CAPACITY_TOLERANCE * last:
             # Beyond round-off, within the printing: the table is what every fill is read from,
             # so its last volume is 100 % (never more than the table holds, never a slack top).
             kw["capacity_m3"] = last
@@ -1793,11 +1824,13 @@ def _read_fills(root: Table, vessel: m.Vessel) -> list[m.TankFill]:
         dens = t.num("density_t_m3", liquid_density, required=False)
         bad_dens = t.has("density_t_m3") and dens is None
         rho = dens if dens is not None else tank.density_t_m3
-        cap = tank.capacity_m3
+        cap = tank.fill_limit_m3
+        what = "the top of the tank's table" if tank.short_table else "the tank's capacity"
         rules: dict[str, tuple[Rule, ...]] = {
-            "percent": (non_negative, at_most(100.0, "% (full)")),
-            "volume_m3": (non_negative, at_most(cap, "m³, the tank's capacity")),
-            "mass_t": (non_negative, at_most(cap * rho, f"t, the tank's capacity {num(cap)} m³ × {num(rho)} t/m³")),
+            "percent": (non_negative, at_most(tank.table_top_pct, "% (full)" if not tank.short_table else
+                                              "%, the top of the tank's table (table_top_pct)")),
+            "volume_m3": (non_negative, at_most(cap, f"m³, {what}")),
+            "mass_t": (non_negative, at_most(cap * rho, f"t, {what} {num(cap)} m³ × {num(rho)} t/m³")),
             "sounding_m": _reading_rules(tank, "sounding_m"),
             "ullage_m": _reading_rules(tank, "ullage_m"),
         }

@@ -429,7 +429,7 @@ class TransferForm(TankPicking, Form):
         src = entry.tank_id_or_none(self._vessel, self.query_one("#xfer-from", Input).value)
         kind = self._vessel.tank(src).kind if src else None
         return lambda t: (kind is None or t.kind == kind) and t.id != src and \
-            t.capacity_m3 - entry.held_m3(self._vessel, c, t) > 1e-6
+            t.fill_limit_m3 - entry.held_m3(self._vessel, c, t) > 1e-6
 
     def __init__(
         self,

@@ -142,9 +142,14 @@ def amount_hint(tank: Tank, fill: TankFill | None) -> str:
     head = "55% · 12.5m3 · 10t · 1.2m (sounding)"
     if tank.ullage_reference_m is not None:
         lo, hi = reading_limits(tank, "ullage_m")
-        return (f"{head} · 0.85u (ullage {lo:.2f}–{hi:.2f} m).  Capacity {tank.capacity_m3:.2f} m³, greatest sounding "
+        return (f"{head} · 0.85u (ullage {lo:.2f}–{hi:.2f} m).  Capacity {tank.capacity_m3:.2f} m³{_table_top(tank)}, greatest sounding "
                 f"{max_sounding_m(tank):.2f} m, {rho}")
-    return f"{head}.  Capacity {tank.capacity_m3:.2f} m³, greatest sounding {max_sounding_m(tank):.2f} m, {rho}"
+    return f"{head}.  Capacity {tank.capacity_m3:.2f} m³{_table_top(tank)}, greatest sounding {max_sounding_m(tank):.2f} m, {rho}"
+
+
+def _table_top(tank: Tank) -> str:
+    """A table printed short of full, in the amount hint: what may be stated stops at its top."""
+    return f" (table to {tank.table_top_pct:g} %: {tank.fill_limit_m3:.2f} m³)" if tank.short_table else ""
 
 
 def fill_volume_m3(tank: Tank, fill: TankFill | None) -> float:
@@ -202,16 +207,18 @@ def check_tank_amount(tank: Tank, quantity: str, value: float, density_t_m3: flo
                              "(the table's range; nothing is extrapolated).")
         return
     limits = {
-        "percent": (100.0, "%"),
-        "volume_m3": (tank.capacity_m3, "m³"),
-        "mass_t": (tank.capacity_m3 * density_t_m3, "t"),
+        "percent": (tank.table_top_pct, "%"),
+        "volume_m3": (tank.fill_limit_m3, "m³"),
+        "mass_t": (tank.fill_limit_m3 * density_t_m3, "t"),
     }
     high, unit = limits[quantity]
     if value < 0:
         raise EntryError(f"{tank.id}: {value:g} {unit} is negative.")
     if over_limit(value, high):  # the calculation's own round-off rule (core.loading)
-        what = {"percent": "100 %", "volume_m3": f"its capacity {high:.2f} m³",
-                "mass_t": f"its capacity {high:.2f} t at {density_t_m3:.3f} t/m³"}[quantity]
+        top = "the top of its table" if tank.short_table else "its capacity"
+        what = {"percent": f"{tank.table_top_pct:g} %" + (", the top of its table" if tank.short_table else ""),
+                "volume_m3": f"{top} {high:.2f} m³",
+                "mass_t": f"{top} {high:.2f} t at {density_t_m3:.3f} t/m³"}[quantity]
         raise EntryError(f"{tank.id}: {value:.12g} {unit} is more than {what}.")
 
 
@@ -228,7 +235,7 @@ def set_tank(condition: Condition, tank: Tank, quantity: str, value: float) -> C
     density = tank_density(tank, fill)
     check_tank_amount(tank, quantity, value, density)
     if quantity == "percent":
-        value = min(value, 100.0)  # within round-off of full is full, as the calculation takes it
+        value = min(value, tank.table_top_pct)  # within round-off of full is full, as the calculation takes it
     if quantity in ("percent", "volume_m3", "mass_t") and value <= 0:
         # Nothing in her.  A reading of 0 is kept as read: the tank's own table says what it holds
         # (a booklet's first row may be above the bottom: 0.016 m³ at 0.00 m), as in a file.
@@ -343,11 +350,12 @@ def amount_preview(condition: Condition, tank: Tank, text: str, vessel: Vessel |
 
 
 def nudge_tank(condition: Condition, tank: Tank, step_pct: float, vessel: Vessel | None = None) -> Condition:
-    """Raise or lower the fill by ``step_pct`` of capacity, clamped to 0–100 % (from the fill the
-    calculation takes: with ``vessel``, a sounding read trimmed is corrected first)."""
+    """Raise or lower the fill by ``step_pct`` of capacity, clamped to 0–100 % (to the top of a table
+    printed short of full: ``Tank.table_top_pct``) (from the fill the calculation takes: with
+    ``vessel``, a sounding read trimmed is corrected first)."""
     vol = held_m3(vessel, condition, tank) if vessel is not None else fill_volume_m3(tank, condition.tank_fill(tank.id))
     pct = 100.0 * vol / tank.capacity_m3
-    new = min(100.0, max(0.0, round(pct + step_pct, 6)))
+    new = min(tank.table_top_pct, max(0.0, round(pct + step_pct, 6)))
     if new == pct:
         edge = "full" if step_pct > 0 else "empty"
         raise EntryError(f"{tank.id} is already {edge}.")
@@ -405,13 +413,13 @@ def plan_transfer(vessel: Vessel, condition: Condition, from_id: str, to_id: str
     mass = vol_s * rho_s
     have_d = held_m3(vessel, condition, dst)
     new_d = have_d + vol_s
-    if new_d > dst.capacity_m3 * (1 + 1e-9):
-        room = dst.capacity_m3 - have_d
+    if new_d > dst.fill_limit_m3 * (1 + 1e-9):
+        room = dst.fill_limit_m3 - have_d
         raise EntryError(f"{to_id} has room for only {room:.2f} m³ ({room * rho_s:.2f} t of this liquid).")
     rho_mix = (have_d * rho_d + mass) / new_d
     after = set_tank(condition, src, "volume_m3", max(0.0, have_s - vol_s))
     override = None if abs(rho_mix - dst.density_t_m3) < 1e-9 else rho_mix
-    after = after.with_tank(TankFill(dst.id, "volume_m3", float(min(dst.capacity_m3, new_d)), override))
+    after = after.with_tank(TankFill(dst.id, "volume_m3", float(min(dst.fill_limit_m3, new_d)), override))
     return TransferPlan(from_id, to_id, mass, vol_s, after)
 
 
@@ -615,7 +623,7 @@ def planner_room(vessel: Vessel, condition: Condition, from_id: str, to_id: str)
         raise ValueError("a transfer moves one kind of liquid only")
     sf = condition.tank_fill(from_id)
     have = held_m3(vessel, condition, src)
-    free = dst.capacity_m3 - held_m3(vessel, condition, dst)
+    free = dst.fill_limit_m3 - held_m3(vessel, condition, dst)
     return max(0.0, min(have, free) * tank_density(src, sf) * (1 - 1e-9))
 
 
@@ -638,7 +646,7 @@ def tank_choice(condition: Condition, tank: Tank) -> str:
     fill = condition.tank_fill(tank.id)
     vol = fill_volume_m3(tank, fill)
     rho = tank_density(tank, fill)
-    room = (tank.capacity_m3 - vol) * rho
+    room = (tank.fill_limit_m3 - vol) * rho
     return (f"{tank.id:<6} {tank.kind.replace('_', ' '):<11.11} {100 * vol / tank.capacity_m3:5.1f} % "
             f"{vol * rho:7.2f} t  room {room:7.2f} t  {tank.name}")
 
@@ -671,7 +679,7 @@ def receiving_tank(vessel: Vessel, condition: Condition, from_id: str) -> str:
     src = vessel.tank(from_id)
 
     def room(t) -> float:
-        return t.capacity_m3 - held_m3(vessel, condition, t)
+        return t.fill_limit_m3 - held_m3(vessel, condition, t)
 
     if src.pair and src.pair in vessel.tank_index and room(vessel.tank(src.pair)) > 1e-6:
         return src.pair

@@ -439,12 +439,14 @@ class LoadingScreen(Screen[None]):
             return
         s = self.session
         tank = s.vessel.tank(ident)
-        usual = s.vessel.usual_max_pct(tank.kind)
+        top = tank.table_top_pct  # 100, or the last row of a table printed short of full
+        usual = min(s.vessel.usual_max_pct(tank.kind), top)
         now = 100.0 * entry.held_m3(s.vessel, s.condition, tank) / tank.capacity_m3
         # The first f takes the tank to its kind's usual maximum; a second f (already there) to 100 %.
-        pct = 100.0 if now >= usual - 0.05 else usual
-        self._try(lambda: entry.set_tank(s.condition, tank, "percent", pct),
-                  f"{tank.id} filled to {pct:g} %" + (" (usual maximum; f again for 100 %)" if pct < 100.0 else ""),
+        pct = top if now >= usual - 0.05 else usual
+        said = (f" (usual maximum; f again for {top:g} %)" if pct < top
+                else " (the top of its table)" if tank.short_table else "")
+        self._try(lambda: entry.set_tank(s.condition, tank, "percent", pct), f"{tank.id} filled to {pct:g} %{said}",
                   self._kind(tank.id), {"tank": tank.id, "fill_pct": pct})
 
     def action_empty(self) -> None:
@@ -810,7 +812,8 @@ class LoadingScreen(Screen[None]):
             fill = self.session.condition.tank_fill(ident)
             rho = f" · ρ {fill.density_t_m3:.4g} stated (D)" if fill is not None and fill.density_t_m3 is not None else ""
             keys = " · ⏎ set · + − · f full · e empty · t transfer" if not self.has_class("-narrow") else ""
-            self.say(f"{t.id} {t.name} · {t.capacity_m3:.1f} m³{rho} · FSM: {why}{keys}", ok=None)
+            short = f" (table to {t.table_top_pct:g} %)" if t.short_table else ""
+            self.say(f"{t.id} {t.name} · {t.capacity_m3:.1f} m³{short}{rho} · FSM: {why}{keys}", ok=None)
         elif what == "hold":
             # the whole of what the board shortens with '…' (name, what is stowed, the limit)
             hold = self.session.vessel.hold(ident)
