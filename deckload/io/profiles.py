@@ -1689,13 +1689,69 @@ def _read_deck_areas(root: Table, ids: dict[str, str], frame: Frame | None, rd: 
         )
         has_max = t.has("max_load_t_m2")
         kw["max_load_t_m2"] = t.num("max_load_t_m2", positive, required=False)
+        extent_ok, xs_marked = _deck_area_extent(t, f, kw)
         t.finish()
-        if f is None or any(v is None for k, v in kw.items() if k != "max_load_t_m2") or (has_max and kw["max_load_t_m2"] is None):
+        if (f is None or not extent_ok or any(v is None for k, v in kw.items() if k not in _DECK_AREA_OPTIONAL)
+                or (has_max and kw["max_load_t_m2"] is None)):
             ok = False
             continue
-        _note_frame(rd, t.name, f, "lcg_m", "tcg_m" if t.has("tcg_m") else "", marked)
+        _note_frame(rd, t.name, f, "lcg_m" + (", x_m" if t.has("x_m") else ""),
+                    ", ".join(k for k in ("tcg_m", "y_m") if t.has(k)), marked or xs_marked)
         out.append(m.DeckArea(**kw))
     return out if ok else []
+
+
+_DECK_AREA_OPTIONAL = ("max_load_t_m2", "x_extent_m", "y_extent_m")
+
+
+def _deck_area_extent(t: Table, f: Frame | None, kw: dict[str, Any]) -> tuple[bool, bool]:
+    """A deck area's optional ends (``x_m``, in the table's datum) and edges (``y_m``, its TCG
+    convention, P/S marks allowed), into ``kw`` as ``x_extent_m`` (from AP, aft end first) and
+    ``y_extent_m`` (+ starboard, port edge first).  The area's own centre must lie within them and
+    its area within the rectangle they make (each within the edge allowance
+    :data:`deckload.core.bounds.AREA_EDGE_TOLERANCE_M`): a deck load naming the area is then held
+    to them (:func:`deckload.core.bounds.off_deck_area_x`).  Returns (all well, any P/S mark)."""
+    kw["x_extent_m"] = kw["y_extent_m"] = None
+    ok, marked, tol = True, False, bounds.AREA_EDGE_TOLERANCE_M
+    if t.has("x_m"):
+        xs = t.array("x_m", length=2)
+        if xs is None or f is None:
+            ok = False
+        elif xs[0] == xs[1]:
+            t.bad("x_m", t.data["x_m"], "the area's two ends must differ (aft end and forward end, in the table's datum)")
+            ok = False
+        else:
+            a, b = sorted(float(v) for v in f.x_to_ap(xs))
+            kw["x_extent_m"] = (a, b)
+    if t.has("y_m"):
+        ys, marked = tcg_array(t, "y_m", f, required=False)
+        if ys is None or f is None:
+            ok = False
+        elif len(ys) != 2 or ys[0] == ys[1]:
+            t.bad("y_m", t.data["y_m"], "must be the area's two edges (port and starboard), two different values")
+            ok = False
+        else:
+            kw["y_extent_m"] = (float(min(ys)), float(max(ys)))
+    if not ok:
+        return False, marked
+    xe, ye = kw["x_extent_m"], kw["y_extent_m"]
+    lcg, tcg = kw.get("lcg_m"), kw.get("tcg_m")
+    if xe is not None and lcg is not None and not xe[0] - tol <= lcg <= xe[1] + tol:
+        t.bad("lcg_m", t.data["lcg_m"], f"the area's centre lies outside its own ends x_m ({num(xe[0])}–{num(xe[1])} m "
+              "from the AP): the two are in the same datum (the table's)")
+        ok = False
+    if ye is not None and tcg is not None and not ye[0] - tol <= tcg <= ye[1] + tol:
+        t.bad("tcg_m", t.data.get("tcg_m"), f"the area's centre lies outside its own edges y_m ({num(ye[0])} … "
+              f"{num(ye[1])} m, + starboard): the two are in the same convention (the table's)")
+        ok = False
+    area = kw.get("area_m2")
+    if xe is not None and area is not None:
+        breadth = (ye[1] - ye[0]) if ye is not None else None
+        if breadth is not None and area > (xe[1] - xe[0] + 2 * tol) * (breadth + 2 * tol):
+            t.bad("area_m2", t.data["area_m2"], f"more than the rectangle its ends and edges make "
+                  f"({num(xe[1] - xe[0])} m × {num(breadth)} m = {num((xe[1] - xe[0]) * breadth)} m²)")
+            ok = False
+    return ok, marked
 
 
 # =========================================================================== condition
