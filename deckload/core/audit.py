@@ -496,6 +496,9 @@ def _lone_why(r: float, chord: float, unit: str, along: str = "",
             f"({r:+.3g}{unit} away), and with that value its neighbours lie smoothly again ({guess})")
 
 
+LIMIT_CURVE_PRINT_M = 0.01
+"""A limiting curve's row is called unattainable only beyond this (m): a curve printed to 0.01 m
+(common practice) rounds by 0.005 m at most; the bound it is held to is exact (derived)."""
 LIMIT_CURVE_KG_MARGIN_M = 0.05
 """A limiting-curve row is doubted only when its KG, 5 cm lower, still fails her intact criteria on
 her KN tables: room for the booklet's own method (free-trim KN, its openings, rounding) within the
@@ -1210,6 +1213,51 @@ class _Audit:
                      "the booklet's KN table (displacement column)", "curve-range")
 
 
+    def limit_curve_attainable(self):
+        """A limiting KG (or minimum GM) curve that no condition of hers can meet is impossible.
+        Every weight added to the lightship lies above the keel, so a condition of displacement Δ
+        has KG ≥ Δ_L·KG_L/Δ (Δ_L, KG_L her lightship's mass and KG; derived: the moment about the
+        keel of what is added is never negative), and so GM ≤ KMt(Δ) − Δ_L·KG_L/Δ.  A maximum KG
+        below that least KG, or a minimum GM above that greatest GM (at or above KMt itself, which
+        would need G below the keel), fails every condition: an error, naming the likely slip (a GM
+        curve typed as KG, or a KG curve typed as GM) where the values read the other way would
+        be attainable.  Allowance :data:`LIMIT_CURVE_PRINT_M` for a curve printed to 0.01 m."""
+        v, lc = self.v, self.v.limit_curve
+        if lc is None or lc.kind not in ("max_kg_m", "min_gm_m"):
+            return
+        h, ls = v.hydrostatics, v.lightship
+        col, bad = lc.kind, []
+        for i, (d, value) in enumerate(zip((float(x) for x in lc.displacement_t), (float(x) for x in lc.value))):
+            if not (ls.mass_t <= d and float(h.displacement_t[0]) <= d <= float(h.displacement_t[-1])):
+                continue
+            least_kg = ls.mass_t * ls.vcg_m / d
+            kmt = float(np.interp(d, h.displacement_t, h.kmt_m))
+            if col == "max_kg_m" and value < least_kg - LIMIT_CURVE_PRINT_M:
+                bad.append((i, d, value, least_kg, kmt))
+            elif col == "min_gm_m" and value > kmt - least_kg + LIMIT_CURVE_PRINT_M:
+                bad.append((i, d, value, least_kg, kmt))
+        if not bad:
+            return
+        i, d, value, least_kg, kmt = bad[0]
+        n = len(lc.value)
+        rows = f"{len(bad)} of its {n} rows" if len(bad) > 1 else f"1 of its {n} rows"
+        basis = (f"no condition of hers at {d:.5g} t can have a KG below {_f(least_kg)} (lightship "
+                 f"{ls.mass_t:.5g} t × KG {_f(ls.vcg_m)} ÷ {d:.5g} t: every weight added lies above the keel)")
+        if col == "max_kg_m":
+            why = f"the curve allows KG at most {_f(value)} at {d:.5g} t, yet {basis}"
+            slip = (f" A minimum-GM curve typed under max_kg_m? (read as GM it would allow KG up to KMt "
+                    f"{_f(kmt)} − {_f(value)} = {_f(kmt - value)})" if kmt - value >= least_kg else
+                    " A row or the column mistyped?")
+        else:
+            above = " (at or above KMt: G below the keel)" if value >= kmt else ""
+            why = (f"the curve asks GM at least {_f(value)} at {d:.5g} t{above}, yet her GM there is at most "
+                   f"KMt {_f(kmt)} − {_f(least_kg)} = {_f(kmt - least_kg)}: {basis}")
+            slip = (" A maximum-KG curve typed under min_gm_m?" if least_kg <= value <= kmt + LIMIT_CURVE_PRINT_M
+                    else " A row or the column mistyped?")
+        self.add(ERROR, f"limit_curve.{col}", ("limit_curve", col, i), f"{value:.5g} m at {d:.5g} t",
+                 f"{why}; every condition would fail it ({rows}).{slip}",
+                 "the booklet's limiting KG / GM curve (its heading: KG or GM)", "curve-unattainable")
+
     def limit_curve_against_kn(self):
         """A limiting KG (or minimum GM) curve is the least of what the intact and the damage
         criteria allow (IS 2008 A 2.1.7, standards.md §6.3), so at each of its displacements it
@@ -1345,6 +1393,7 @@ def audit(vessel: Vessel) -> tuple[Finding, ...]:
     a.tanks()
     _free_surface_settings(a)
     a.curves()
+    a.limit_curve_attainable()
     a.limit_curve_against_kn()
     return tuple(sorted(a.out, key=lambda f: 0 if f.severity == ERROR else 1))
 
