@@ -171,9 +171,42 @@ class Reading:
     conversions: list[str] = dataclass_field(default_factory=list)
     assumptions: list[str] = dataclass_field(default_factory=list)
     tables: dict[str, TableReading] = dataclass_field(default_factory=dict)
+    free_surface: dict[str, list[str]] = dataclass_field(default_factory=dict)
+    """How each tank's free surface was read (the words of :data:`FS_BASIS`, with a density where
+    the booklet stated one) → the ids of the tanks read so, in profile order: ``check`` prints one
+    line per basis, to be compared with the heading of each tank page's free-surface column."""
+    booklet_conditions: int = 0
+    """How many ``[[booklet_condition]]`` entries the profile lists (read by io.booklet_conditions):
+    without any, ``calc`` and ``report`` say so once (report.audit_findings.booklet_note)."""
 
     def convert(self, where: str, keys: str, how: str) -> None:
         self.conversions.append(f"{where} {keys}: {how}")
+
+
+FS_BASIS = {
+    "fsi_m4": "inertia i (m⁴) per row × the liquid's density (fsi_m4)",
+    "fsm_tm": "moment (t·m) per row at {rho} t/m³ (fsm_tm)",
+    "max_fsi_m4": "one maximum inertia i (m⁴) × the liquid's density (max_fsi_m4)",
+    "max_fsm_tm": "one maximum moment (t·m) at {rho} t/m³ (max_fsm_tm)",
+    "none": "none given (nil at every level)",
+}
+"""How a tank's free surface was read, in ``check``'s words.  A page printing FSM in t·m typed as
+``fsi_m4`` understates every moment by the factor ρ (15 % for diesel at 0.85): the officer compares
+these lines with the booklet's column headings (found by the booklet-conventions audit)."""
+
+
+def _fs_basis(t: Table, kw: dict[str, Any], tr: "TableReading | None") -> str:
+    """The :data:`FS_BASIS` words for a tank read from ``t`` (its calibration's reading ``tr``)."""
+    given = kw.get("fsi_given", "table")
+    if given == "none":
+        return FS_BASIS["none"]
+    if given == "max":
+        key = "max_fsm_tm" if t.has("max_fsm_tm") else "max_fsi_m4"
+        rho = t.data.get("fsm_density_t_m3")
+    else:
+        key = "fsm_tm" if tr is not None and tr.fsm == "fsm_tm" else "fsi_m4"
+        rho = tr.fsm_density_t_m3 if tr is not None else None
+    return FS_BASIS[key].format(rho=num(float(rho)) if isinstance(rho, (int, float)) else "?")
 
 
 def _csv_columns(t: Table) -> tuple[str, ...]:
@@ -294,7 +327,8 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
         _check_sounding_pipes(root, pipes, tanks, tank_bodies)
     # [[booklet_condition]]: the booklet's worked conditions, read and compared by `deckload check`
     # (deckload.io.booklet_conditions) once the vessel exists; not part of the model.
-    root.get("booklet_condition", False)
+    worked = root.get("booklet_condition", False)
+    rd.booklet_conditions = len(worked) if isinstance(worked, list) else 0
     root.finish()
     ctx.fail_if_any()
 
@@ -1333,6 +1367,7 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], 
     t.finish()
     if kw["calibration"] is None or any(kw[k] is None for k in ("id", "name", "kind", "density_t_m3", "capacity_m3", "fs_category", "worst_band_pct")):
         return ({"id": ident, "pair": pair} if ident else None), False
+    rd.free_surface.setdefault(_fs_basis(t, kw, rd.tables.get(f"{where}.calibration")), []).append(kw["id"])
     return kw, True
 
 
