@@ -1492,8 +1492,13 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
             row = n - 1 - i if tr.reversed else i
             prev = row + 1 if tr.reversed else row - 1
             way = "decreasing" if tr.reversed else "increasing"
+            ullage = ""
+            if key == "volume_m3" and level_key == "sounding_m" and np.all(d < 0):
+                # every volume falls as the sounding rises: the column is the page's ullage
+                ullage = ("; every volume falls as the sounding rises: is it an ullage table typed as sounding_m? "
+                          "Name the column ullage_m and give the tank's ullage_reference_m")
             t.bad(key, t.data[key], f"not strictly {way} ({_row(row)}: {toml_value(t.data[key][row])} after "
-                  f"{toml_value(t.data[key][prev])})", (row,))
+                  f"{toml_value(t.data[key][prev])}){ullage}", (row,))
             return None
     if level[0] < -1e-9:
         row = n - 1 if tr.reversed else 0
