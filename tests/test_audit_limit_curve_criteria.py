@@ -106,3 +106,40 @@ def test_kn_rows_a_hair_apart_or_absurd_raise_nothing():
         warnings.simplefilter("error")
         assert kn_unreached_rows([1e-310, 2e-310, 3e-310, 100.0], 50.0) == frozenset()
         assert [f.path for f in doubts(absurd)] == []
+
+
+# ----------------------------------------------------------------------------- unattainable curves
+#
+# Her lightship is 1500 t at KG 4.0 m; every weight added lies above the keel, so at Δ no condition
+# has KG below 1500 × 4.0 / Δ (derived in audit.limit_curve_attainable): 3.75 m at 1600 t, 3.0 m at
+# 2000 t, 2.5 m at 2400 t, and GM at most KMt − that: 2.25, 3.0 and 3.5 m.  The booklet-conventions
+# audit's slips: a GM curve typed as KG (0.45–0.55 m against a lightship KG of 5.30 m) and a KG curve
+# typed as GM both passed `check` with nothing said, and every condition then failed.
+
+def unattainable(v):
+    return [f for f in audit(v) if f.check == "curve-unattainable"]
+
+
+def test_a_gm_curve_typed_as_kg_is_an_error_naming_the_slip():
+    (f,) = unattainable(vessel_with("max_kg_m", [0.45, 0.50, 0.55]))
+    assert f.severity == "error" and f.key == "limit_curve.max_kg_m" and f.path == ("limit_curve", "max_kg_m", 0)
+    assert "allows KG at most 0.45 m at 1600 t, yet no condition of hers at 1600 t can have a KG below 3.75 m" in f.why
+    assert "(3 of its 3 rows)" in f.why
+    assert "A minimum-GM curve typed under max_kg_m? (read as GM it would allow KG up to KMt 6 m − 0.45 m = 5.55 m)" in f.why
+
+
+def test_a_kg_curve_typed_as_gm_is_an_error_naming_the_slip():
+    (f,) = unattainable(vessel_with("min_gm_m", [5.9, 5.6, 6.2]))
+    assert f.severity == "error" and f.path == ("limit_curve", "min_gm_m", 0)
+    assert "asks GM at least 5.9 m at 1600 t, yet her GM there is at most KMt 6 m − 3.75 m = 2.25 m" in f.why
+    assert "A maximum-KG curve typed under min_gm_m?" in f.why and "(3 of its 3 rows)" in f.why
+    (g,) = unattainable(vessel_with("min_gm_m", [0.41, 0.41, 6.2]))
+    assert g.path == ("limit_curve", "min_gm_m", 2) and "(at or above KMt: G below the keel)" in g.why
+
+
+@pytest.mark.parametrize("kind, values", [("max_kg_m", [3.745, 5.56, 5.56]), ("min_gm_m", [2.255, 0.41, 0.41]),
+                                          ("max_kg_m", [5.56, 5.56, 5.60]), ("min_gm_m", [0.41, 0.41, 0.41])])
+def test_an_attainable_curve_or_one_within_its_printing_is_not_called_impossible(kind, values):
+    """3.745 m is 5 mm below the least KG 3.75 m at 1600 t, 2.255 m 5 mm above the greatest GM 2.25 m:
+    within a curve printed to 0.01 m (audit.LIMIT_CURVE_PRINT_M)."""
+    assert unattainable(vessel_with(kind, values)) == []

@@ -113,20 +113,21 @@ def format_comparison(cmp) -> str:
     return "\n".join(lines)
 
 
-def load_and_evaluate(profile_path: Path, condition_path: Path):
+def load_and_evaluate(profile_path: Path, condition_path: Path, notes: list[str] | None = None):
     """Load a profile and a condition and evaluate them, for the commands that print results.
 
     Returns ``(vessel, condition, result, doubts)`` — ``doubts`` the plausibility audit's warnings
     on the profile, one line each (:func:`deckload.report.audit_findings.doubt_lines`), which every
     printout carries — or the exit status after printing what is wrong to stderr: 1 for bad input
-    (naming the file and key), 2 for an unreadable file.
+    (naming the file and key), 2 for an unreadable file.  With ``notes`` (a list), the note of a
+    profile without worked booklet conditions is added to it (:func:`audit_findings.booklet_note`).
     """
     from deckload.core.loading import LoadingError
     from deckload.core.stability import evaluate
     from deckload.core.tables import OutOfRangeError
     from deckload.io.profiles import ProfileError, load_condition
 
-    from deckload.report.audit_findings import doubt_lines, load_audited, refuse_or_notice
+    from deckload.report.audit_findings import booklet_note, doubt_lines, load_audited, refuse_or_notice
 
     try:
         profile = load_audited(profile_path)  # from the profile cache when its files are unchanged
@@ -135,7 +136,11 @@ def load_and_evaluate(profile_path: Path, condition_path: Path):
         # inertia beyond her hull) is never used, by any command (issue 12: the screen already refused it).
         refuse_or_notice(profile_path, profile.found)
         condition = load_condition(condition_path, vessel)
-        return vessel, condition, evaluate(vessel, condition), doubt_lines(profile.found)
+        result = evaluate(vessel, condition)
+        note = booklet_note(profile)
+        if notes is not None and note:
+            notes.append(note)
+        return vessel, condition, result, doubt_lines(profile.found)
     except ProfileError as e:
         print(str(e), file=sys.stderr)
         return 1
@@ -166,10 +171,10 @@ def direct_comparison(profile_path: Path, vessel, result: Result):
         return 1
 
 
-def load_evaluate_compare(profile_path: Path, condition_path: Path, direct: bool):
-    """:func:`load_and_evaluate`, then (with ``direct``) :func:`direct_comparison`: returns
+def load_evaluate_compare(profile_path: Path, condition_path: Path, direct: bool, notes: list[str] | None = None):
+    """:func:`load_and_evaluate` (``notes`` as there), then (with ``direct``) :func:`direct_comparison`: returns
     ``(vessel, condition, result, doubts, comparison or None)``, or the exit status of the first refusal."""
-    loaded = load_and_evaluate(profile_path, condition_path)
+    loaded = load_and_evaluate(profile_path, condition_path, notes)
     if isinstance(loaded, int):
         return loaded
     vessel, condition, result, doubts = loaded
@@ -186,7 +191,8 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False,
     tables' result (the profile must name its ``hull_geometry``); when any of its rows is beyond
     its UR L5 / Circ.1229 tolerance everything is printed as usual and the exit status is 1 (as
     ``check``'s for a booklet row out of tolerance), with the reason on stderr."""
-    loaded = load_evaluate_compare(profile_path, condition_path, direct)
+    notes: list[str] = []
+    loaded = load_evaluate_compare(profile_path, condition_path, direct, notes)
     if isinstance(loaded, int):
         return loaded
     vessel, _, result, doubts, cmp = loaded
@@ -209,6 +215,8 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False,
         # A JSON copy travels without the screen or the printout around it: it carries the caution.
         doc["caution"] = CAUTION
         print(json.dumps(doc, indent=1, ensure_ascii=False, allow_nan=False))
+        for note in notes:  # the JSON's keys stay as documented: the note goes to the terminal
+            print(f"deckload: {note}", file=sys.stderr)
     else:
         text = format_summary(result, basis.words, doubts)
         extra = []
@@ -219,6 +227,7 @@ def run_calc(profile_path: Path, condition_path: Path, *, as_json: bool = False,
                          f"midships {result.draft_mean_m + keel:.3f} m, fwd {result.draft_fwd_m + keel:.3f} m")
         if cmp is not None:
             extra.append(format_comparison(cmp))
+        extra += [textwrap.fill(n, 100, initial_indent="  ", subsequent_indent="    ") for n in notes]
         if extra:
             # before the closing caution, which stays the last word of every printout
             head, sep, tail = text.rpartition("\n\n" + CAUTION)

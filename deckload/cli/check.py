@@ -29,6 +29,7 @@ from pathlib import Path
 from deckload.report import verdict_format as vf
 from deckload.core import model as m
 from deckload.io.profiles import Problem, ProfileError, load_condition
+from deckload.report.audit_findings import NO_BOOKLET_CONDITIONS as NO_BOOKLET_WORDS
 from deckload.report.audit_findings import load_audited
 
 CAUTION = vf.CAUTION
@@ -37,7 +38,7 @@ NOTE_WIDTH = 100
 """Columns the NOTE is folded to (it ran to 600 on one line; found in review)."""
 
 NO_BOOKLET_CONDITIONS = (
-    "NOTE: no booklet conditions entered ([[booklet_condition]]): the audit above cannot see a wrong "
+    f"NOTE: {NO_BOOKLET_WORDS}: the audit above cannot see a wrong "
     "number that agrees with every table, such as a lightship KG or LCG mistyped within the plausible "
     "range or taken from an older inclining, every position of the profile measured from the wrong datum "
     "or with the wrong sign, a tank page (or its FSM column) copied from another tank, the table density "
@@ -61,8 +62,10 @@ def _range(a, unit: str) -> str:
     return f"{float(a[0]):.4g}–{float(a[-1]):.4g}{sep}{unit}"
 
 
-def profile_summary(path: Path, v: m.Vessel, sources: dict[str, str] | None = None) -> list[str]:
-    """A few lines saying what the profile holds and over which ranges its tables run."""
+def profile_summary(path: Path, v: m.Vessel, sources: dict[str, str] | None = None,
+                    free_surface: dict[str, list[str]] | None = None) -> list[str]:
+    """A few lines saying what the profile holds and over which ranges its tables run, and
+    (``free_surface``, from the reading) how each tank's free surface was read, one line per way."""
     h, k = v.hydrostatics, v.cross_curves
     rows = [len(t.calibration.sounding_m) for t in v.tanks if t.level_known]
     lines = [
@@ -95,6 +98,9 @@ def profile_summary(path: Path, v: m.Vessel, sources: dict[str, str] | None = No
     # How the booklet's conventions were converted, and what was assumed (vessel_profiles/README.md).
     lines += [f"    converted: {c}" for c in v.conversions]
     lines += [f"    assumed:   {a}" for a in v.assumptions]
+    # every tank, by how its free-surface column was read: compare each with the page's heading
+    # (an FSM in t·m typed as fsi_m4 understates it by the factor ρ and is said nowhere else)
+    lines += [f"    free surface read as {basis}: {', '.join(ids)}" for basis, ids in (free_surface or {}).items()]
     if v.constants:
         lines.append("    constants in every condition: " + ", ".join(f"{c.name} {c.mass_t:g} t" for c in v.constants))
     return lines
@@ -122,7 +128,7 @@ def run_check(profile_path: Path, condition_path: Path | None = None) -> int:
             print(f"{condition_path}: not checked: its vessel profile has problems")
         return 1
     sources = {k: tr.csv for k, tr in reading.tables.items() if tr.csv}
-    summary = profile_summary(profile_path, vessel, sources)
+    summary = profile_summary(profile_path, vessel, sources, reading.free_surface)
     booklet = None if any(f.is_error for f in found) else _read_booklet(profile_path, vessel)
     if booklet is None or isinstance(booklet, (int, ProfileError)):
         # the schema is met but the numbers contradict each other, or a worked condition it names has

@@ -29,7 +29,8 @@ def run_report(profile_path: Path, condition_path: Path, html: bool, output: Pat
     from deckload.cli.calc import load_evaluate_compare
     from deckload.logbook import clock_stamp
 
-    loaded = load_evaluate_compare(profile_path, condition_path, direct)
+    notes: list[str] = []
+    loaded = load_evaluate_compare(profile_path, condition_path, direct, notes)
     if isinstance(loaded, int):
         return loaded
     if output is not None:
@@ -64,6 +65,8 @@ def run_report(profile_path: Path, condition_path: Path, html: bool, output: Pat
             print(f"deckload: cannot write {output}: {e.strerror}", file=sys.stderr)
             return 2
         print(f"report written to {output}", file=sys.stderr)
+    for note in notes:  # once, on the terminal: the page's layout is the report's own
+        print(f"deckload: {note}", file=sys.stderr)
     if beyond:
         from deckload.report.direct_format import beyond_message
 

@@ -284,6 +284,26 @@ VOLUME_ROUNDING_REL = 0.0005
 # --------------------------------------------------------------------------- helpers
 
 
+def _q(x: float) -> str:
+    """A quantity in a message, four significant figures without e-notation below a million
+    (24540 t, not 2.454e+04 t): an ordinary magnitude reads as the booklet prints it."""
+    if not math.isfinite(x) or abs(x) < 1e4 or abs(x) >= 1e6:
+        return f"{x:.4g}"
+    return f"{x:.0f}"
+
+
+TPC_AREA_SLIP_FACTOR = 2.0
+"""A TPC whose waterplane 100·TPC/ρ is more than twice the hull's plan 1.2·LBP × B (every waterplane
+lies within it: derived) is a slip of its unit (t per metre is 100 times), not a mistyped digit:
+named at TPC, and the checks that take the waterplane from TPC (KMt, MCTC) skip its rows.  Below
+twice, those checks run as before and name what they find."""
+
+
+def _tpc_area_ok(tpc_t_cm: float, rho: float, plan_m2: float) -> bool:
+    """Whether TPC's waterplane A = 100·TPC/ρ is within :data:`TPC_AREA_SLIP_FACTOR` × the plan."""
+    return 100.0 * tpc_t_cm / rho <= plan_m2 * TPC_AREA_SLIP_FACTOR
+
+
 def _f(x: float, unit: str = "m") -> str:
     # one decimal in the thousands (a displacement); beyond 1e6 no table of a ship holds the
     # value, and fixed point would print hundreds of digits of a typing error: six significant
@@ -496,6 +516,9 @@ def _lone_why(r: float, chord: float, unit: str, along: str = "",
             f"({r:+.3g}{unit} away), and with that value its neighbours lie smoothly again ({guess})")
 
 
+LIMIT_CURVE_PRINT_M = 0.01
+"""A limiting curve's row is called unattainable only beyond this (m): a curve printed to 0.01 m
+(common practice) rounds by 0.005 m at most; the bound it is held to is exact (derived)."""
 LIMIT_CURVE_KG_MARGIN_M = 0.05
 """A limiting-curve row is doubted only when its KG, 5 cm lower, still fails her intact criteria on
 her KN tables: room for the booklet's own method (free-trim KN, its openings, rounding) within the
@@ -730,10 +753,12 @@ class _Audit:
             for sev, frac, floor in ((ERROR, TPC_INTERVAL[1], TPC_INTERVAL_FLOOR[1]),
                                      (WARNING, TPC_INTERVAL[0], TPC_INTERVAL_FLOOR[0])):
                 if miss > frac * integral and miss > floor * float(disp[i]):
+                    per_m = (" (about 100 times the step: TPC typed in t per metre, not t per cm?)"
+                             if step > 0 and 80.0 <= integral / step <= 125.0 else "")
                     self.add(sev, "hydrostatics.displacement_t", hp + ("displacement_t", i), f"{disp[i]:.6g} t",
-                             f"the step from {disp[i - 1]:.6g} t ({T[i - 1]:.4g} m) is {step:.4g} t but 100·TPC over "
-                             f"the draft gives {integral:.4g} t ({miss / integral:.0%} apart, more than {frac:.0%}): "
-                             "the displacement or a TPC value is mistyped", row(i), "hydro-tpc")
+                             f"the step from {disp[i - 1]:.6g} t ({T[i - 1]:.4g} m) is {_q(step)} t but 100·TPC over "
+                             f"the draft gives {_q(integral)} t ({miss / integral:.0%} apart, more than {frac:.0%}): "
+                             f"the displacement or a TPC value is mistyped{per_m}", row(i), "hydro-tpc")
                     break
             else:
                 continue
@@ -786,8 +811,17 @@ class _Audit:
         #   single hull (half-breadths y(x) ≤ B/2): I_T = ∫(2/3)y³dx ≤ (B²/12)·A   → warning above
         #   any waterplane:  I_T ≥ ∫w³/12 dx ≥ A³/(12·Lwl²)  (area packed on the centreline; Hölder)
         # Without VCB, KB lies between 0 and T.
+        plan = WATERLINE_LENGTH_MAX * L * B
+        too_big = [i for i in range(len(T)) if not _tpc_area_ok(float(tpc[i]), rho, plan)]
+        if too_big:
+            r = too_big[0]
+            self.add(ERROR, "hydrostatics.tpc_t_cm", hp + ("tpc_t_cm", r), f"{_q(float(tpc[r]))} t/cm",
+                     f"gives a waterplane of 100·TPC/ρ = {_q(100.0 * float(tpc[r]) / rho)} m², more than twice her plan "
+                     f"1.2·LBP × B = {_q(plan)} m² ({len(too_big)} of {len(T)} rows): TPC typed in t per metre, "
+                     "not t per cm? (KMt and MCTC, judged through the waterplane TPC gives, are not judged at these rows)",
+                     row(r), "hydro-tpc-area")
         for i in range(len(T)):
-            if T[i] <= 0 or disp[i] <= 0:
+            if T[i] <= 0 or disp[i] <= 0 or i in too_big:
                 continue
             area = 100.0 * float(tpc[i]) / rho
             vol = float(disp[i]) / rho
@@ -811,7 +845,7 @@ class _Audit:
                 continue
             self.add(sev, "hydrostatics.kmt_m", hp + ("kmt_m", i), _f(km),
                      f"{'below' if km < bound else 'above'} what KB + BMt allows at {T[i]:.4g} m ({_f(bound)}): "
-                     f"{rule}, with A = 100·TPC/ρ = {area:.4g} m²", row(i), "hydro-kmt")
+                     f"{rule}, with A = 100·TPC/ρ = {_q(area)} m²", row(i), "hydro-kmt")
             break
 
         # MCTC against the waterplane and against KML.
@@ -862,6 +896,8 @@ class _Audit:
         hp = ("hydrostatics",)
         for i in range(len(h.draft_m)):
             tpc, mctc = float(h.tpc_t_cm[i]), float(h.mctc_tm_cm[i])
+            if not _tpc_area_ok(tpc, rho, WATERLINE_LENGTH_MAX * L * B):
+                continue  # TPC's own slip, named by hydrostatics(): c would blame MCTC for it
             c = 12.0 * mctc / (tpc * L)
             cw = 100.0 * tpc / rho / (L * B)
             hi = 3.0 * WATERLINE_LENGTH_MAX ** 2 * (1 + METACENTRE_ALLOWANCE)
@@ -1210,6 +1246,51 @@ class _Audit:
                      "the booklet's KN table (displacement column)", "curve-range")
 
 
+    def limit_curve_attainable(self):
+        """A limiting KG (or minimum GM) curve that no condition of hers can meet is impossible.
+        Every weight added to the lightship lies above the keel, so a condition of displacement Δ
+        has KG ≥ Δ_L·KG_L/Δ (Δ_L, KG_L her lightship's mass and KG; derived: the moment about the
+        keel of what is added is never negative), and so GM ≤ KMt(Δ) − Δ_L·KG_L/Δ.  A maximum KG
+        below that least KG, or a minimum GM above that greatest GM (at or above KMt itself, which
+        would need G below the keel), fails every condition: an error, naming the likely slip (a GM
+        curve typed as KG, or a KG curve typed as GM) where the values read the other way would
+        be attainable.  Allowance :data:`LIMIT_CURVE_PRINT_M` for a curve printed to 0.01 m."""
+        v, lc = self.v, self.v.limit_curve
+        if lc is None or lc.kind not in ("max_kg_m", "min_gm_m"):
+            return
+        h, ls = v.hydrostatics, v.lightship
+        col, bad = lc.kind, []
+        for i, (d, value) in enumerate(zip((float(x) for x in lc.displacement_t), (float(x) for x in lc.value))):
+            if not (ls.mass_t <= d and float(h.displacement_t[0]) <= d <= float(h.displacement_t[-1])):
+                continue
+            least_kg = ls.mass_t * ls.vcg_m / d
+            kmt = float(np.interp(d, h.displacement_t, h.kmt_m))
+            if col == "max_kg_m" and value < least_kg - LIMIT_CURVE_PRINT_M:
+                bad.append((i, d, value, least_kg, kmt))
+            elif col == "min_gm_m" and value > kmt - least_kg + LIMIT_CURVE_PRINT_M:
+                bad.append((i, d, value, least_kg, kmt))
+        if not bad:
+            return
+        i, d, value, least_kg, kmt = bad[0]
+        n = len(lc.value)
+        rows = f"{len(bad)} of its {n} rows" if len(bad) > 1 else f"1 of its {n} rows"
+        basis = (f"no condition of hers at {d:.5g} t can have a KG below {_f(least_kg)} (lightship "
+                 f"{ls.mass_t:.5g} t × KG {_f(ls.vcg_m)} ÷ {d:.5g} t: every weight added lies above the keel)")
+        if col == "max_kg_m":
+            why = f"the curve allows KG at most {_f(value)} at {d:.5g} t, yet {basis}"
+            slip = (f" A minimum-GM curve typed under max_kg_m? (read as GM it would allow KG up to KMt "
+                    f"{_f(kmt)} − {_f(value)} = {_f(kmt - value)})" if kmt - value >= least_kg else
+                    " A row or the column mistyped?")
+        else:
+            above = " (at or above KMt: G below the keel)" if value >= kmt else ""
+            why = (f"the curve asks GM at least {_f(value)} at {d:.5g} t{above}, yet her GM there is at most "
+                   f"KMt {_f(kmt)} − {_f(least_kg)} = {_f(kmt - least_kg)}: {basis}")
+            slip = (" A maximum-KG curve typed under min_gm_m?" if least_kg <= value <= kmt + LIMIT_CURVE_PRINT_M
+                    else " A row or the column mistyped?")
+        self.add(ERROR, f"limit_curve.{col}", ("limit_curve", col, i), f"{value:.5g} m at {d:.5g} t",
+                 f"{why}; every condition would fail it ({rows}).{slip}",
+                 "the booklet's limiting KG / GM curve (its heading: KG or GM)", "curve-unattainable")
+
     def limit_curve_against_kn(self):
         """A limiting KG (or minimum GM) curve is the least of what the intact and the damage
         criteria allow (IS 2008 A 2.1.7, standards.md §6.3), so at each of its displacements it
@@ -1345,6 +1426,7 @@ def audit(vessel: Vessel) -> tuple[Finding, ...]:
     a.tanks()
     _free_surface_settings(a)
     a.curves()
+    a.limit_curve_attainable()
     a.limit_curve_against_kn()
     return tuple(sorted(a.out, key=lambda f: 0 if f.severity == ERROR else 1))
 

@@ -47,7 +47,7 @@ from typing import Callable
 import numpy as np
 
 from deckload.core.frozen import frozen, values_getter
-from deckload.core.model import Hold, Particulars, Vessel
+from deckload.core.model import DeckArea, Hold, Particulars, Vessel
 from deckload.core.tables import OutOfRangeError
 
 AFT_OVERHANG = 0.2
@@ -266,6 +266,52 @@ def footprint_range(p: Particulars, deck_area_m2: float | None = None) -> Range:
                      f"at least {_n(MIN_FOOTPRINT_M2)} m² and at most 1.2·LBP × breadth")
     return Range(MIN_FOOTPRINT_M2, max(MIN_FOOTPRINT_M2, deck_area_m2), "m²",
                  f"at least {_n(MIN_FOOTPRINT_M2)} m² and at most the deck area it stands on")
+
+
+AREA_EDGE_TOLERANCE_M = 0.05
+"""How far beyond a deck area's stated ends or edges (``x_m``, ``y_m``) a deck load's centre may
+lie, m: half a unit of a position printed to 0.1 m, as deck plans and cargo plans commonly print
+them (common practice).  Further off, the load is not on the area it names: most often its centre
+was measured from another datum (midships, the FP) than a loading condition's AP."""
+
+
+def _on_span(x: float, span: tuple[float, float]) -> bool:
+    return span[0] - AREA_EDGE_TOLERANCE_M <= x <= span[1] + AREA_EDGE_TOLERANCE_M
+
+
+def off_deck_area_x(area: DeckArea, lbp_m: float, x_m: float) -> str | None:
+    """None when a deck load's LCG ``x_m`` (m from AP, + forward) lies on ``area``'s stated length
+    (:attr:`DeckArea.x_extent_m`, within :data:`AREA_EDGE_TOLERANCE_M`) or the area states none;
+    else the broken rule in words, naming the datum the same number would be on the area from
+    (midships + forward or + aft, the FP + aft), which is the usual slip.  The file reader
+    (:mod:`deckload.io.physcheck`) and the screen's deck-load form (:mod:`deckload.ui.entry`) both
+    ask here."""
+    span = area.x_extent_m
+    if span is None or _on_span(x_m, span):
+        return None
+    msg = (f"outside deck area {area.id} that the load names: the area spans {_n(span[0])}–{_n(span[1])} m "
+           f"from the AP (its x_m in the profile, ± {_n(AREA_EDGE_TOLERANCE_M)} m)")
+    fits = [f"{words} ({_n(round(alt, 6))} m from the AP)"
+            for alt, words in ((lbp_m / 2 + x_m, "from midships, + forward"), (lbp_m / 2 - x_m, "from midships, + aft"),
+                               (lbp_m - x_m, "from the FP, + aft")) if _on_span(alt, span)]
+    if fits:
+        return (f"{msg}; {_n(x_m)} m {' or '.join(fits)} would lie on it: a loading condition's and the "
+                "loading screen's LCG is from the AP, + forward")
+    return msg
+
+
+def off_deck_area_y(area: DeckArea, y_m: float) -> str | None:
+    """None when a deck load's TCG ``y_m`` (m, + starboard) lies within ``area``'s stated breadth
+    (:attr:`DeckArea.y_extent_m`, within :data:`AREA_EDGE_TOLERANCE_M`) or the area states none;
+    else the broken rule in words (and whether the other sign would lie on it)."""
+    span = area.y_extent_m
+    if span is None or _on_span(y_m, span):
+        return None
+    msg = (f"outside deck area {area.id} that the load names: the area spans {_n(span[0])} … {_n(span[1])} m "
+           f"from the centreline, + starboard (its y_m in the profile, ± {_n(AREA_EDGE_TOLERANCE_M)} m)")
+    if _on_span(-y_m, span):
+        msg += "; with the sign reversed it would lie on it: a TCG here is + starboard"
+    return msg
 
 
 def waterline_length_range(p: Particulars) -> Range:

@@ -379,6 +379,11 @@ class DeckArea:
     """Centroid of the area from centreline (m)."""
     max_load_t_m2: float | None = None
     """Permissible uniform deck load (t/m²)."""
+    x_extent_m: tuple[float, float] | None = None
+    """Its aft and forward ends from AP (m), where the profile gives them (``x_m``): a deck load
+    standing on the area has its centre between them."""
+    y_extent_m: tuple[float, float] | None = None
+    """Its port and starboard edges from the centreline (m, + starboard), where given (``y_m``)."""
 
 
 @frozen

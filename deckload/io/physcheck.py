@@ -105,6 +105,8 @@ def check_vessel(ctx: FileCheck, v: m.Vessel) -> m.Vessel:
         c.one(raw + ("max_mass_t",), f"{name}.max_mass_t", hd.max_mass_t, b.item_mass_range(v))
     for n, a in enumerate(v.deck_areas):
         c.one(("deck_area", n, "area_m2"), f"deck_area[{a.id}].area_m2", a.area_m2, b.deck_area_range(p))
+        c.array(("deck_area", n, "x_m"), f"deck_area[{a.id}].x_m", a.x_extent_m, b.x_range(p))
+        c.array(("deck_area", n, "y_m"), f"deck_area[{a.id}].y_m", a.y_extent_m, b.y_range(p))
     if v.limit_curve is not None and v.limit_curve.kind == "max_kg_m":
         c.array(("limit_curve", "max_kg_m"), "limit_curve.max_kg_m", v.limit_curve.value, b.z_range(p))
     elif v.limit_curve is not None:
@@ -145,6 +147,14 @@ def check_condition(ctx: FileCheck, v: m.Vessel, cond: m.Condition) -> m.Conditi
             area_id = getattr(it, "area_id", None)
             area = v.deck_area(area_id).area_m2 if area_id in v.area_index else None
             c.one(raw + ("footprint_m2",), f"{name}.footprint_m2", fp, b.footprint_range(p, area))
+            if area_id in v.area_index and it.lcg_m in b.x_range(p) and it.tcg_m in b.y_range(p):
+                # a load on a named area stands on it: the screen's deck-load form refuses the same
+                # (ui.entry.item_from_form); an LCG from midships here moved the trim 0.2 → 3.3 m
+                on = v.deck_area(area_id)
+                for k, val, why in (("lcg_m", it.lcg_m, b.off_deck_area_x(on, p.lbp_m, it.lcg_m)),
+                                    ("tcg_m", it.tcg_m, b.off_deck_area_y(on, it.tcg_m))):
+                    if why:
+                        ctx.add(raw + (k,), f"{name}.{k}", toml_value(float(val)), why)
     ctx.fail_if_any()
     return cond
 

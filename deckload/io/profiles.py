@@ -175,9 +175,42 @@ class Reading:
     conversions: list[str] = dataclass_field(default_factory=list)
     assumptions: list[str] = dataclass_field(default_factory=list)
     tables: dict[str, TableReading] = dataclass_field(default_factory=dict)
+    free_surface: dict[str, list[str]] = dataclass_field(default_factory=dict)
+    """How each tank's free surface was read (the words of :data:`FS_BASIS`, with a density where
+    the booklet stated one) → the ids of the tanks read so, in profile order: ``check`` prints one
+    line per basis, to be compared with the heading of each tank page's free-surface column."""
+    booklet_conditions: int = 0
+    """How many ``[[booklet_condition]]`` entries the profile lists (read by io.booklet_conditions):
+    without any, ``calc`` and ``report`` say so once (report.audit_findings.booklet_note)."""
 
     def convert(self, where: str, keys: str, how: str) -> None:
         self.conversions.append(f"{where} {keys}: {how}")
+
+
+FS_BASIS = {
+    "fsi_m4": "inertia i (m⁴) per row × the liquid's density (fsi_m4)",
+    "fsm_tm": "moment (t·m) per row at {rho} t/m³ (fsm_tm)",
+    "max_fsi_m4": "one maximum inertia i (m⁴) × the liquid's density (max_fsi_m4)",
+    "max_fsm_tm": "one maximum moment (t·m) at {rho} t/m³ (max_fsm_tm)",
+    "none": "none given (nil at every level)",
+}
+"""How a tank's free surface was read, in ``check``'s words.  A page printing FSM in t·m typed as
+``fsi_m4`` understates every moment by the factor ρ (15 % for diesel at 0.85): the officer compares
+these lines with the booklet's column headings (found by the booklet-conventions audit)."""
+
+
+def _fs_basis(t: Table, kw: dict[str, Any], tr: "TableReading | None") -> str:
+    """The :data:`FS_BASIS` words for a tank read from ``t`` (its calibration's reading ``tr``)."""
+    given = kw.get("fsi_given", "table")
+    if given == "none":
+        return FS_BASIS["none"]
+    if given == "max":
+        key = "max_fsm_tm" if t.has("max_fsm_tm") else "max_fsi_m4"
+        rho = t.data.get("fsm_density_t_m3")
+    else:
+        key = "fsm_tm" if tr is not None and tr.fsm == "fsm_tm" else "fsi_m4"
+        rho = tr.fsm_density_t_m3 if tr is not None else None
+    return FS_BASIS[key].format(rho=num(float(rho)) if isinstance(rho, (int, float)) else "?")
 
 
 def _csv_columns(t: Table) -> tuple[str, ...]:
@@ -298,7 +331,8 @@ def parse_profile(text: str, filename: str = "<profile>", reading: "Reading | No
         _check_sounding_pipes(root, pipes, tanks, tank_bodies)
     # [[booklet_condition]]: the booklet's worked conditions, read and compared by `deckload check`
     # (deckload.io.booklet_conditions) once the vessel exists; not part of the model.
-    root.get("booklet_condition", False)
+    worked = root.get("booklet_condition", False)
+    rd.booklet_conditions = len(worked) if isinstance(worked, list) else 0
     root.finish()
     ctx.fail_if_any()
 
@@ -1341,6 +1375,7 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], 
     if kw["calibration"] is None or any(kw[k] is None for k in ("id", "name", "kind", "density_t_m3", "capacity_m3",
                                                                    "fs_category", "worst_band_pct", "table_top_pct")):
         return ({"id": ident, "pair": pair} if ident else None), False
+    rd.free_surface.setdefault(_fs_basis(t, kw, rd.tables.get(f"{where}.calibration")), []).append(kw["id"])
     return kw, True
 
 
@@ -1465,8 +1500,13 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
             row = n - 1 - i if tr.reversed else i
             prev = row + 1 if tr.reversed else row - 1
             way = "decreasing" if tr.reversed else "increasing"
+            ullage = ""
+            if key == "volume_m3" and level_key == "sounding_m" and np.all(d < 0):
+                # every volume falls as the sounding rises: the column is the page's ullage
+                ullage = ("; every volume falls as the sounding rises: is it an ullage table typed as sounding_m? "
+                          "Name the column ullage_m and give the tank's ullage_reference_m")
             t.bad(key, t.data[key], f"not strictly {way} ({_row(row)}: {toml_value(t.data[key][row])} after "
-                  f"{toml_value(t.data[key][prev])})", (row,))
+                  f"{toml_value(t.data[key][prev])}){ullage}", (row,))
             return None
     if level[0] < -1e-9:
         row = n - 1 if tr.reversed else 0
@@ -1720,13 +1760,69 @@ def _read_deck_areas(root: Table, ids: dict[str, str], frame: Frame | None, rd: 
         )
         has_max = t.has("max_load_t_m2")
         kw["max_load_t_m2"] = t.num("max_load_t_m2", positive, required=False)
+        extent_ok, xs_marked = _deck_area_extent(t, f, kw)
         t.finish()
-        if f is None or any(v is None for k, v in kw.items() if k != "max_load_t_m2") or (has_max and kw["max_load_t_m2"] is None):
+        if (f is None or not extent_ok or any(v is None for k, v in kw.items() if k not in _DECK_AREA_OPTIONAL)
+                or (has_max and kw["max_load_t_m2"] is None)):
             ok = False
             continue
-        _note_frame(rd, t.name, f, "lcg_m", "tcg_m" if t.has("tcg_m") else "", marked)
+        _note_frame(rd, t.name, f, "lcg_m" + (", x_m" if t.has("x_m") else ""),
+                    ", ".join(k for k in ("tcg_m", "y_m") if t.has(k)), marked or xs_marked)
         out.append(m.DeckArea(**kw))
     return out if ok else []
+
+
+_DECK_AREA_OPTIONAL = ("max_load_t_m2", "x_extent_m", "y_extent_m")
+
+
+def _deck_area_extent(t: Table, f: Frame | None, kw: dict[str, Any]) -> tuple[bool, bool]:
+    """A deck area's optional ends (``x_m``, in the table's datum) and edges (``y_m``, its TCG
+    convention, P/S marks allowed), into ``kw`` as ``x_extent_m`` (from AP, aft end first) and
+    ``y_extent_m`` (+ starboard, port edge first).  The area's own centre must lie within them and
+    its area within the rectangle they make (each within the edge allowance
+    :data:`deckload.core.bounds.AREA_EDGE_TOLERANCE_M`): a deck load naming the area is then held
+    to them (:func:`deckload.core.bounds.off_deck_area_x`).  Returns (all well, any P/S mark)."""
+    kw["x_extent_m"] = kw["y_extent_m"] = None
+    ok, marked, tol = True, False, bounds.AREA_EDGE_TOLERANCE_M
+    if t.has("x_m"):
+        xs = t.array("x_m", length=2)
+        if xs is None or f is None:
+            ok = False
+        elif xs[0] == xs[1]:
+            t.bad("x_m", t.data["x_m"], "the area's two ends must differ (aft end and forward end, in the table's datum)")
+            ok = False
+        else:
+            a, b = sorted(float(v) for v in f.x_to_ap(xs))
+            kw["x_extent_m"] = (a, b)
+    if t.has("y_m"):
+        ys, marked = tcg_array(t, "y_m", f, required=False)
+        if ys is None or f is None:
+            ok = False
+        elif len(ys) != 2 or ys[0] == ys[1]:
+            t.bad("y_m", t.data["y_m"], "must be the area's two edges (port and starboard), two different values")
+            ok = False
+        else:
+            kw["y_extent_m"] = (float(min(ys)), float(max(ys)))
+    if not ok:
+        return False, marked
+    xe, ye = kw["x_extent_m"], kw["y_extent_m"]
+    lcg, tcg = kw.get("lcg_m"), kw.get("tcg_m")
+    if xe is not None and lcg is not None and not xe[0] - tol <= lcg <= xe[1] + tol:
+        t.bad("lcg_m", t.data["lcg_m"], f"the area's centre lies outside its own ends x_m ({num(xe[0])}–{num(xe[1])} m "
+              "from the AP): the two are in the same datum (the table's)")
+        ok = False
+    if ye is not None and tcg is not None and not ye[0] - tol <= tcg <= ye[1] + tol:
+        t.bad("tcg_m", t.data.get("tcg_m"), f"the area's centre lies outside its own edges y_m ({num(ye[0])} … "
+              f"{num(ye[1])} m, + starboard): the two are in the same convention (the table's)")
+        ok = False
+    area = kw.get("area_m2")
+    if xe is not None and area is not None:
+        breadth = (ye[1] - ye[0]) if ye is not None else None
+        if breadth is not None and area > (xe[1] - xe[0] + 2 * tol) * (breadth + 2 * tol):
+            t.bad("area_m2", t.data["area_m2"], f"more than the rectangle its ends and edges make "
+                  f"({num(xe[1] - xe[0])} m × {num(breadth)} m = {num((xe[1] - xe[0]) * breadth)} m²)")
+            ok = False
+    return ok, marked
 
 
 # =========================================================================== condition

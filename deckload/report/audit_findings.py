@@ -65,6 +65,22 @@ class AuditError(ProfileError):
         return "\n".join([head, *(str(p) for p in self.problems)])
 
 
+NO_BOOKLET_CONDITIONS = "no booklet conditions entered ([[booklet_condition]])"
+"""The words every command uses when a profile lists none of the booklet's worked conditions:
+``check``'s NOTE (deckload.cli.check) says at length what only they catch; ``calc`` and ``report``
+say it once, briefly (:func:`booklet_note`)."""
+
+
+def booklet_note(profile: "AuditedProfile") -> str | None:
+    """The brief note of ``calc`` and ``report`` for a profile without worked booklet conditions
+    (an audit that finds nothing is then no sign that the lightship or the datum are right), or None."""
+    if profile.reading.booklet_conditions:
+        return None
+    return (f"NOTE: {NO_BOOKLET_CONDITIONS}: this profile has not been compared with the booklet's "
+            "worked conditions, which alone catch a wrong lightship, datum or FSM column "
+            "(deckload check says more)")
+
+
 def doubt_lines(found) -> tuple[str, ...]:
     """The audit's warnings (doubts), one line each, ``key = value: why``: what every result of the
     profile carries to the officer (the screen's notice, calc, the report), not ``check`` alone."""

@@ -522,6 +522,14 @@ def item_from_form(vessel: Vessel, form: ItemForm, *, deck: bool, base: MassItem
     if mass <= 0.0:  # a deck load of nothing is a slip: the file reader refuses it too
         raise EntryError("Mass: a deck load must weigh more than 0 t (remove it with e instead).")
     area = deck_area_id(vessel, form.area)
+    if area is not None:
+        # a load stands on the area it names: the condition reader refuses the same (io.physcheck)
+        on = vessel.deck_area(area)
+        off_x, off_y = bounds.off_deck_area_x(on, p.lbp_m, lcg), bounds.off_deck_area_y(on, tcg)
+        if off_x:
+            raise EntryError(f"LCG (from AP) {lcg:g} m: {off_x}.")
+        if off_y:
+            raise EntryError(f"TCG (+ starboard) {tcg:g} m: {off_y}.")
     footprint = getattr(base, "footprint_m2", None)
     windage: dict[str, float] = {}
     if form.windage.strip():
