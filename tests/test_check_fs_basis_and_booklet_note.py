@@ -37,7 +37,11 @@ def test_a_tank_typed_with_an_inertia_column_is_named_as_such(capsys):
     """The Demo Islander's tanks all give fsi_m4 (m⁴): one line names them all, so a page headed
     "FSM (t·m)" typed there shows up against its heading."""
     main(["check", "demo"])
-    out = [s.strip() for s in capsys.readouterr().out.splitlines() if s.strip().startswith("free surface read as")]
+    raw = capsys.readouterr().out
+    lines = raw.splitlines()
+    at = next(i for i, x in enumerate(lines) if x.startswith("    free surface read as"))
+    assert lines[at + 1].startswith("      ") and all(len(x) <= 100 for x in lines[at:at + 3])  # folded to 100 columns
+    out = [s.strip() for s in raw.replace("\n      ", " ").splitlines() if s.strip().startswith("free surface read as")]
     assert len(out) == 1
     assert out[0].startswith("free surface read as inertia i (m⁴) per row × the liquid's density (fsi_m4): APT, ")
     assert ", DO1P, DO1S, " in out[0]

@@ -100,7 +100,9 @@ def profile_summary(path: Path, v: m.Vessel, sources: dict[str, str] | None = No
     lines += [f"    assumed:   {a}" for a in v.assumptions]
     # every tank, by how its free-surface column was read: compare each with the page's heading
     # (an FSM in t·m typed as fsi_m4 understates it by the factor ρ and is said nowhere else)
-    lines += [f"    free surface read as {basis}: {', '.join(ids)}" for basis, ids in (free_surface or {}).items()]
+    for basis, ids in (free_surface or {}).items():  # folded: a vessel has dozens of tanks
+        lines += textwrap.wrap(f"free surface read as {basis}: {', '.join(ids)}", NOTE_WIDTH,
+                               initial_indent="    ", subsequent_indent="      ", break_on_hyphens=False)
     if v.constants:
         lines.append("    constants in every condition: " + ", ".join(f"{c.name} {c.mass_t:g} t" for c in v.constants))
     return lines
