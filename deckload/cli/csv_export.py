@@ -138,7 +138,8 @@ def profile_tables(v: m.Vessel, rd: Reading) -> list[tuple[str, str, str, list[s
             key = f"tank[{t.id}].calibration"
             out.append((f"tank_{t.id}.csv", key, key, *calibration_rows(t, tr)))
         if t.trim_correction is not None:
-            out.append((f"tank_{t.id}_trim.csv", f"tank[{t.id}].trim_correction", "", *trim_correction_rows(t)))
+            key = f"tank[{t.id}].trim_correction"
+            out.append((f"tank_{t.id}_trim.csv", key, key, *trim_correction_rows(t, rd.tables.get(key))))
     if v.limit_curve is not None and "limit_curve" in rd.tables:
         out.append(("limit_curve.csv", "[limit_curve]", "limit_curve",
                     *curve_rows(v, v.limit_curve, rd.tables["limit_curve"], v.limit_curve.kind)))
@@ -158,27 +159,38 @@ def trimmed_tables(v: m.Vessel, rd: Reading) -> list[tuple[str, str, str, list[s
     if tt is None:
         return []
     out = []
+
+    def as_typed(trim, key) -> float:
+        """The trim in the sign the table was typed in (its trim_positive)."""
+        tr = rd.tables.get(key)
+        return float(tr.frame.trim_from_stern(float(trim))) if tr is not None else float(trim)
+
     for trim, h in zip(tt.hydro_trim_m, tt.hydrostatics):
         key = f"hydrostatics_at_trim[{round(float(trim), 6):.6g} m]"
         if h is not v.hydrostatics and key in rd.tables:
-            out.append((f"hydrostatics_trim_{float(trim):+g}.csv", f"[[{key.split('[')[0]}]] trim_m = {float(trim):g}",
+            typed = as_typed(trim, key)
+            out.append((f"hydrostatics_trim_{typed:+g}.csv", f"[[{key.split('[')[0]}]] trim_m = {typed:g}",
                         key, *hydrostatics_rows(v, rd.tables[key], h)))
     for trim, cc in zip(tt.kn_trim_m, tt.cross_curves):
         key = f"cross_curves_at_trim[{round(float(trim), 6):.6g} m]"
         if cc is not v.cross_curves:
-            out.append((f"kn_trim_{float(trim):+g}.csv", f"[[cross_curves_at_trim]] trim_m = {float(trim):g}", key,
+            typed = as_typed(trim, key)
+            out.append((f"kn_trim_{typed:+g}.csv", f"[[cross_curves_at_trim]] trim_m = {typed:g}", key,
                         *cross_curve_rows(v, cc, rd.tables.get(key))))
     return out
 
 
-def trim_correction_rows(t: m.Tank) -> tuple[list[str], list[list]]:
-    """``[tank.trim_correction]``: sounding_m and one corr_<trim> / volume_<trim> column per trim."""
+def trim_correction_rows(t: m.Tank, tr: TableReading | None = None) -> tuple[list[str], list[list]]:
+    """``[tank.trim_correction]``: sounding_m and one corr_<trim> / volume_<trim> column per trim,
+    the trims in the sign the table was typed in (its trim_positive), rising as typed."""
     from deckload.io.csvtables import fmt_number
 
     tc = t.trim_correction
     prefix = "corr" if tc.kind == "sounding_correction_m" else "volume"
-    header = ["sounding_m"] + [f"{prefix}_{fmt_number(float(x))}" for x in tc.trim_m]
-    return header, [[float(s)] + [float(x) for x in row] for s, row in zip(tc.sounding_m, tc.value)]
+    sign = tr.frame.trim_sign if tr is not None else 1.0
+    order = range(len(tc.trim_m)) if sign > 0 else range(len(tc.trim_m) - 1, -1, -1)
+    header = ["sounding_m"] + [f"{prefix}_{fmt_number(sign * float(tc.trim_m[j]))}" for j in order]
+    return header, [[float(s)] + [float(row[j]) for j in order] for s, row in zip(tc.sounding_m, tc.value)]
 
 
 def describe(tr: TableReading | None, key: str = "") -> str:
@@ -206,6 +218,8 @@ def describe(tr: TableReading | None, key: str = "") -> str:
         bits.append("without the 0° column added on reading")
     if tr.ignored:
         bits.append("with " + ", ".join(name for name, _ in tr.ignored) + " as read")
+    if not f.trim_is_identity and ("_at_trim[" in key or key.endswith(".trim_correction")):
+        bits.append("trims + by the head")
     return f" ({', '.join(bits)})" if bits else ""
 
 

@@ -207,7 +207,13 @@ def generated_sections(vt: VesselTables) -> dict[str, Any]:
 def _stamp_model_conventions(new: dict[str, Any], gen: dict[str, Any], vessel: dict[str, Any]) -> None:
     """Generated tables are from the AP, + forward, + starboard.  Where the profile states another
     convention for its hand-entered tables (vessel_profiles/README.md, "Booklet conventions"),
-    each generated table says its own, so that it is not read in the profile's."""
+    each generated table says its own, so that it is not read in the profile's.  Generated tables at
+    trims are + by the stern: under a ``[vessel] trim_positive = "head"`` each says so itself."""
+    if vessel.get("trim_positive", "stern") != "stern":
+        for key in ("hydrostatics_at_trim", "cross_curves_at_trim"):
+            if key in gen:
+                for e in new.get(key, []):
+                    e["trim_positive"] = "stern"
     x_other = vessel.get("longitudinal_datum", "AP") != "AP" or vessel.get("longitudinal_positive", "forward") != "forward"
     y_other = vessel.get("transverse_positive", "starboard") != "starboard"
     if not (x_other or y_other):

@@ -1399,6 +1399,95 @@ def _trimmed_tables(a: _Audit) -> None:
             entry += 1
 
 
+TRIM_LCB_TOLERANCE_M = 0.01
+TRIM_LCB_TOLERANCE_LBP = 0.0005
+"""A pair of tables at two trims is judged only where LCB at one displacement differs between them
+by more than max(1 cm, 0.05 % of LBP): LCB is printed to the centimetre or finer, and read between
+rows linearly (common practice).  The signal is far larger: on a box BML·δt/L = L·δt/(12·T)
+(below), 0.74 m for 1 m of trim on L 40 m at T 4.5 m; 3 cm for 10 cm of trim on L 20 m at T 5 m."""
+
+
+def _trim_lcb_moves(trims, tables) -> list[tuple[int, np.ndarray, np.ndarray]]:
+    """For each two neighbouring trims t_i < t_(i+1) whose tables share displacements: (i, the
+    displacements, LCB at t_(i+1) − LCB at t_i there), at every tabulated displacement of either
+    table within both, each table read linearly between its rows (as the tables are used)."""
+    out = []
+    for i in range(len(trims) - 1):
+        a, b = tables[i], tables[i + 1]
+        lo = max(float(a.displacement_t[0]), float(b.displacement_t[0]))
+        hi = min(float(a.displacement_t[-1]), float(b.displacement_t[-1]))
+        if not lo < hi:
+            continue
+        disp = np.union1d(a.displacement_t, b.displacement_t)
+        disp = disp[(disp >= lo) & (disp <= hi)]
+        out.append((i, disp, np.interp(disp, b.displacement_t, b.lcb_m) - np.interp(disp, a.displacement_t, a.lcb_m)))
+    return out
+
+
+def _trim_sign(a: _Audit) -> None:
+    """Tables at trims whose trims have the wrong sign: at one displacement, LCB must lie further
+    aft at the larger trim by the stern.
+
+    Derived: trim the ship by a small δt (+ by the stern, angle δψ = δt/L) about the centre of
+    flotation at constant displacement.  The wedge immersed abaft the LCF and the wedge emerged
+    forward of it hold equal volumes, and their moment about the LCF (x + forward) is
+    ∫ x·(−x·δψ) dA = −I_L·δψ, I_L the waterplane's longitudinal second moment about the LCF.  B moves
+    by that moment over the volume ∇: δLCB = −I_L·δψ/∇ = −BML·δt/L.  I_L > 0 for any waterplane, so
+    at a fixed displacement LCB moves aft as the trim by the stern grows, at every trim, and so over
+    any finite step too.  (The box of tests/trimmed_box.py: LCB(t) = L/2 − L·t/(12·T), BML = L²/(12·T).)
+
+    Each two neighbouring trims of the hydrostatic set (the even-keel table at 0 among them) with
+    displacements in common are compared: a pair runs the right way where LCB is further aft at the
+    larger trim at every displacement they share, the wrong way where it is further forward at every
+    one, each by more than the tolerance (:data:`TRIM_LCB_TOLERANCE_M`, :data:`TRIM_LCB_TOLERANCE_LBP`);
+    else it is not judged.  No pair the right way and some the wrong way: the trims were typed + by
+    the head (the booklet's sign), an error naming the key that says so.  Some pairs each way: an
+    error naming each table of a wrong pair.  Not judged: fewer than two trims or no displacements
+    in common.
+    """
+    tt = a.v.trimmed
+    if tt is None or len(tt.hydro_trim_m) < 2:
+        return
+    trims = [float(t) for t in tt.hydro_trim_m]
+    tables = tt.hydrostatics
+    tol = max(TRIM_LCB_TOLERANCE_M, TRIM_LCB_TOLERANCE_LBP * a.L)
+    moves = _trim_lcb_moves(trims, tables)
+    wrong = [(i, disp, d) for i, disp, d in moves if np.min(d) > tol]
+    right = [i for i, _, d in moves if np.max(d) < -tol]
+    if not wrong:
+        return
+    even = a.v.hydrostatics
+    entries = [k for k, table in enumerate(tables) if table is not even]
+
+    def name(k: int) -> str:
+        return "hydrostatics" if tables[k] is even else f"hydrostatics_at_trim[{_trim_name(trims[k])} m]"
+
+    def path(k: int) -> tuple:
+        return ("hydrostatics",) if tables[k] is even else ("hydrostatics_at_trim", entries.index(k), "trim_m")
+
+    def moved(i: int, disp, d) -> str:
+        r = int(np.argmin(d))
+        return (f"from {disp[0]:.6g} to {disp[-1]:.6g} t LCB lies further forward at {trims[i + 1]:+g} m than at "
+                f"{trims[i]:+g} m (by {_f(float(d[r]))} at {disp[r]:.6g} t, the least)")
+
+    look = "the booklet's hydrostatic tables at trims and the way it counts trim (by the head or by the stern)"
+    physics = "trimming by the stern at constant displacement moves the centre of buoyancy aft"
+    if not right:
+        i, disp, d = wrong[0]
+        names = ", ".join(name(k) for k in entries)
+        a.add(ERROR, "hydrostatics_at_trim.trim_m", path(entries[0]), ", ".join(f"{trims[k]:+g}" for k in entries) + " m",
+              f"in every pair of neighbouring trims judged LCB lies further forward at the larger trim by the stern "
+              f"({names}; {moved(i, disp, d)}), but {physics}: the trims look typed + by the head.  If the booklet "
+              'counts trim by the head as positive, say so with trim_positive = "head" in [vessel] (or in each '
+              "table at a trim); else turn the trims' sign", look, "trim-sign")
+        return
+    for i, disp, d in wrong:
+        k = i + 1 if tables[i + 1] is not even else i
+        a.add(ERROR, f"{name(k)}.trim_m", path(k), f"{trims[k]:+g} m",
+              f"{moved(i, disp, d)} ({name(i + 1)} against {name(i)}), but {physics}, as it does between the "
+              "other trims: this table's trim has the wrong sign, or its rows are another trim's", look, "trim-sign")
+
+
 def _free_surface_settings(a: _Audit) -> None:
     """A warning for each ``[free_surface]`` setting that leaves out a moment IS 2008 B 3.1 counts
     (:func:`deckload.core.free_surface.settings_departures`): nominally full below 98 %, a small-tank
@@ -1423,6 +1512,7 @@ def audit(vessel: Vessel) -> tuple[Finding, ...]:
     a.hydrostatics()
     a.cross_curves()
     _trimmed_tables(a)
+    _trim_sign(a)
     a.tanks()
     _free_surface_settings(a)
     a.curves()

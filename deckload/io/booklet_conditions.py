@@ -117,14 +117,14 @@ def _read_expected(t: Table, vessel: m.Vessel) -> tuple[dict | None, tuple[str, 
 
     By default in deckload's conventions (x from the AP + forward, y + starboard, moulded drafts),
     as a condition file is; ``longitudinal_datum``/``longitudinal_positive``,
-    ``transverse_positive`` and ``draft_basis`` in the table let the values be typed as the
-    booklet prints them (vessel_profiles/README.md, "Booklet conventions").
+    ``transverse_positive``, ``draft_basis`` and ``trim_positive`` in the table let the values be
+    typed as the booklet prints them (vessel_profiles/README.md, "Booklet conventions").
     """
     e = t.table("expected")
     if e is None:
         return None, ()
     p = vessel.particulars
-    frame = read_frame(e, Frame(p.lbp_m, keel_thickness_m=p.keel_thickness_m), drafts=True)
+    frame = read_frame(e, Frame(p.lbp_m, keel_thickness_m=p.keel_thickness_m), drafts=True, trims=True)
     out: dict = {}
     ok = frame is not None
     frame = frame or Frame(p.lbp_m)
@@ -143,7 +143,9 @@ def _read_expected(t: Table, vessel: m.Vessel) -> tuple[dict | None, tuple[str, 
             continue
         raw = e.data.get(key)
         if isinstance(raw, (int, float)) and not isinstance(raw, bool):
-            typed[key] = raw  # as on the page, for the page's own relations (core.booklet.disagreements)
+            # as on the page, for the page's own relations (core.booklet.disagreements); a trim typed
+            # + by the head is turned (exactly: a sign keeps its decimals) so that trim = aft − forward holds
+            typed[key] = -raw if key == "trim_m" and not frame.trim_is_identity else raw
         if key == "lcg_m" and not frame.x_is_identity:
             x = float(frame.x_to_ap(x))
             done.append(f"lcg_m: {frame.describe_x()}")
@@ -151,6 +153,9 @@ def _read_expected(t: Table, vessel: m.Vessel) -> tuple[dict | None, tuple[str, 
             if key == "list_deg":
                 x = frame.plain_sign * x
             done.append(f"{key}: {frame.describe_y()}")
+        elif key == "trim_m" and not frame.trim_is_identity:
+            x = float(frame.trim_to_stern(x))
+            done.append(f"trim_m: {frame.describe_trim()}")
         elif key in DRAFT_KEYS and frame.draft_basis == "extreme":
             x = float(frame.draft_to_moulded(x))
             done.append(f"{key}: extreme → moulded (− keel {p.keel_thickness_m:g} m)")

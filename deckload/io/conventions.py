@@ -9,6 +9,7 @@ conversion is affine and exact in the input:
 
     x_AP = x₀ + s·x,  x₀ = 0 (AP), LBP/2 (midships), LBP (FP);  s = +1 (+ forward), −1 (+ aft)
     y_stbd = ±y (plain numbers by ``transverse_positive``; "P"/"S" marks or ``tcg_side`` fix the side)
+    t_stern = ±t (``trim_positive``: "stern", the model's, or "head": the sign reversed)
 
 Every non-identity conversion is recorded in words (:meth:`Frame.describe_x`) so that
 ``deckload check`` can print it; :mod:`deckload.cli.csv_export` inverts it to write the
@@ -44,6 +45,8 @@ class Frame:
     """'port' or 'starboard': plain TCGs are distances on that side; None: signed numbers."""
     draft_basis: str = "moulded"
     keel_thickness_m: float = 0.0
+    trim_positive: str = "stern"
+    """'stern' (the model's: draft aft − draft forward) or 'head': which way a positive trim points."""
 
     # ---- longitudinal
     @property
@@ -87,6 +90,30 @@ class Frame:
             return f"distances on the {self.tcg_side} side → + starboard"
         return "+ port → + starboard (sign reversed)"
 
+    # ---- trims
+    @property
+    def trim_sign(self) -> float:
+        return 1.0 if self.trim_positive == "stern" else -1.0
+
+    @property
+    def trim_is_identity(self) -> bool:
+        return self.trim_positive == "stern"
+
+    def trim_to_stern(self, t):
+        """A trim as written → m, + by the stern (its own inverse: :meth:`trim_from_stern`)."""
+        return self.trim_sign * np.asarray(t, dtype=float) if not np.isscalar(t) else self.trim_sign * float(t)
+
+    trim_from_stern = trim_to_stern
+
+    def trim_range_to_stern(self, pair: tuple[float, float]) -> tuple[float, float]:
+        """A range [from, to] as written (from below to) → + by the stern, still from below to."""
+        a, b = self.trim_to_stern(pair[0]), self.trim_to_stern(pair[1])
+        return (min(a, b), max(a, b))
+
+    @staticmethod
+    def describe_trim() -> str:
+        return "+ by the head → + by the stern (sign reversed)"
+
     # ---- drafts
     def draft_to_moulded(self, d):
         return np.asarray(d, dtype=float) - self.keel_thickness_m if self.draft_basis == "extreme" else np.asarray(d, dtype=float)
@@ -95,12 +122,19 @@ class Frame:
         return np.asarray(d, dtype=float) + self.keel_thickness_m if self.draft_basis == "extreme" else np.asarray(d, dtype=float)
 
 
-def read_frame(t: Table, parent: Frame | None, *, sides: bool = False, drafts: bool = False) -> Frame | None:
+TRIM_SIGNS = ("stern", "head")
+"""Values of ``trim_positive``: a positive trim is by the stern (deckload's) or by the head."""
+
+
+def read_frame(t: Table, parent: Frame | None, *, sides: bool = False, drafts: bool = False,
+               trims: bool = False) -> Frame | None:
     """The frame of table ``t``: ``parent`` overridden by the convention keys ``t`` holds.
 
-    ``sides``: the table may hold ``tcg_side``; ``drafts``: it may hold ``draft_basis``.
+    ``sides``: the table may hold ``tcg_side``; ``drafts``: it may hold ``draft_basis``;
+    ``trims``: it may hold ``trim_positive`` (a table that holds trims, and ``[vessel]``).
     Returns None (problems reported) when a key is wrong or ``parent`` is unknown.
     """
+    sign = read_trim_sign(t) if trims else None
     has_datum, has_pos = t.has("longitudinal_datum"), t.has("longitudinal_positive")
     datum = t.text("longitudinal_datum", required=False, default=None, choices=DATUMS)
     pos = t.text("longitudinal_positive", required=False, default=None, choices=("forward", "aft"))
@@ -110,6 +144,7 @@ def read_frame(t: Table, parent: Frame | None, *, sides: bool = False, drafts: b
     bad = (has_datum and datum is None) or (has_pos and pos is None) or (t.has("transverse_positive") and trans is None)
     bad |= sides and t.has("tcg_side") and side is None
     bad |= drafts and t.has("draft_basis") and basis is None
+    bad |= trims and t.has("trim_positive") and sign is None
     if datum is not None and datum != "AP" and pos is None:
         t.bad("longitudinal_positive", MISSING, f"required with longitudinal_datum = {t.ctx.fmt(datum)}: "
               "say whether + is forward or aft, as the booklet states it")
@@ -125,12 +160,28 @@ def read_frame(t: Table, parent: Frame | None, *, sides: bool = False, drafts: b
         f = replace(f, transverse_positive=trans)
     if side is not None:
         f = replace(f, tcg_side=side)
+    if sign is not None:
+        f = replace(f, trim_positive=sign)
     if basis is not None:
         if basis == "extreme" and f.keel_thickness_m <= 0.0:
             t.bad("draft_basis", basis, "extreme drafts need [vessel] keel_thickness_m (extreme − moulded draft)")
             return None
         f = replace(f, draft_basis=basis)
     return f
+
+
+def read_trim_sign(t: Table) -> str | None:
+    """``trim_positive`` of table ``t`` ("stern" or "head"); None when absent or wrong (reported)."""
+    return t.text("trim_positive", required=False, default=None, choices=TRIM_SIGNS)
+
+
+def trim_frame(t: Table, parent: Frame | None) -> Frame | None:
+    """``parent`` with the ``trim_positive`` of ``t`` (a table holding trims and no other convention
+    key); None when the key is wrong (reported) or ``parent`` is unknown."""
+    sign = read_trim_sign(t)
+    if (t.has("trim_positive") and sign is None) or parent is None:
+        return None
+    return parent if sign is None else replace(parent, trim_positive=sign)
 
 
 def _side_value(v, frame: Frame) -> tuple[float | None, str | None, bool]:

@@ -274,7 +274,8 @@ TRIM_KINDS = {"corr": "sounding_correction_m", "volume": "volume_m3"}
 def attach_trim_csv(t: Table) -> bool:
     """A tank's trim corrections from a CSV: ``sounding_m`` and one column per trim, named
     ``corr_<trim>`` (sounding corrections, m) or ``volume_<trim>`` (volumes, m³), trim in m,
-    + by the stern (``corr_-1.0``, ``corr_0.5``, ``corr_+1``)."""
+    + by the stern unless the table's ``trim_positive`` says otherwise (``corr_-1.0``, ``corr_0.5``,
+    ``corr_+1``); the reader turns them (profiles._read_trim_correction)."""
     if not t.has("csv"):
         t.get("csv", False)
         return True

@@ -32,7 +32,7 @@ from typing import Any
 
 import numpy as np
 
-from deckload.io.conventions import Frame, read_frame, tcg_array, tcg_num
+from deckload.io.conventions import Frame, read_frame, tcg_array, tcg_num, trim_frame
 from deckload.core import bounds
 from deckload.core import model as m
 from deckload.core.gz import STEP_DEG as GZ_STEP_DEG
@@ -166,6 +166,9 @@ class TableReading:
     """Booklet columns read as numbers and not used (name, values in the rows' written order)."""
     added_upright: bool = False
     """Cross curves printed from a heel above 0°: the 0° column (KN 0) was added."""
+    entry: int | None = None
+    """A table at a trim: its place among the ``[[…_at_trim]]`` entries as written (the model holds
+    them by rising trim + by the stern, which is not the written order when typed + by the head)."""
 
 
 @dataclass
@@ -403,7 +406,7 @@ def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:
     keel_rule = between(0.0, 0.1, "m", "a keel plate; extreme − moulded draft")
     kw["keel_thickness_m"] = t.num("keel_thickness_m", keel_rule, required=False, default=0.0)
     base = Frame(kw["lbp_m"] or 1.0, keel_thickness_m=kw["keel_thickness_m"] or 0.0)
-    frame = read_frame(t, base)
+    frame = read_frame(t, base, trims=True)
     t.finish()
     if kw["design_draft_m"] is not None and kw["depth_m"] is not None and kw["design_draft_m"] > kw["depth_m"]:
         t.bad("design_draft_m", t.data["design_draft_m"], f"exceeds the depth {num(kw['depth_m'])} m")
@@ -618,14 +621,16 @@ def _read_kn_table(t: Table, frame: Frame | None, rd: Reading, basis: str | None
     )
 
 
-def _read_table_trim(t: Table, p: m.Particulars | None) -> float | None:
-    """A trimmed table's trim (m, + by the stern): ``trim_m``, or ``trim_pct_lbp`` (% of LBP)."""
+def _read_table_trim(t: Table, p: m.Particulars | None, f: Frame) -> float | None:
+    """A trimmed table's trim as written (m, in the sign ``f.trim_positive`` gives): ``trim_m``, or
+    ``trim_pct_lbp`` (% of LBP).  The range rule is symmetric, so it holds in either sign."""
     has_m, has_pct = t.has("trim_m"), t.has("trim_pct_lbp")
+    way = f"+ by the {f.trim_positive}"
     if has_m == has_pct:
         t.get("trim_m", False)
         t.get("trim_pct_lbp", False)
-        t.bad("trim_m", t.data.get("trim_m", MISSING), "give the table's trim once: trim_m (m, + by the stern) "
-              "or trim_pct_lbp (% of LBP, + by the stern)")
+        t.bad("trim_m", t.data.get("trim_m", MISSING), f"give the table's trim once: trim_m (m, {way}) "
+              f"or trim_pct_lbp (% of LBP, {way})")
         return None
     if p is None:
         t.get("trim_m" if has_m else "trim_pct_lbp", False)
@@ -641,9 +646,10 @@ def _read_trimmed_tables(root: Table, particulars: m.Particulars | None, frame: 
                          hydro: m.HydrostaticTable | None, cross: m.CrossCurves | None) -> m.TrimmedTables | None:
     """``[[hydrostatics_at_trim]]`` and ``[[cross_curves_at_trim]]`` beside the even-keel tables (trim 0).
 
-    Trims strictly increasing in the order written, none 0 (that is the even-keel table), each
-    within :func:`deckload.core.bounds.table_trim_range`; the tables themselves pass every check
-    of ``[hydrostatics]`` / ``[cross_curves]``, KN with the even-keel table's heels.
+    Trims strictly increasing in the order written (as typed, in the sign the entry's
+    ``trim_positive`` gives), none 0 (that is the even-keel table), each within
+    :func:`deckload.core.bounds.table_trim_range`, and turned + by the stern; the tables themselves
+    pass every check of ``[hydrostatics]`` / ``[cross_curves]``, KN with the even-keel table's heels.
     """
     sets = []
     ok = True
@@ -658,31 +664,49 @@ def _read_trimmed_tables(root: Table, particulars: m.Particulars | None, frame: 
             ok = False
             sets.append(([], []))
             continue
-        trims, tables = [], []
-        for t in entries:
-            trim = _read_table_trim(t, particulars)
+        trims, tables, head = [], [], []
+        for entry, t in enumerate(entries):
+            # the entry's trim_positive ([vessel]'s unless it says its own) applies to its trim only
+            ef = trim_frame(t, frame)
+            typed = _read_table_trim(t, particulars, ef or Frame(1.0))
+            trim = None if typed is None or ef is None else float(ef.trim_to_stern(typed))
+            trim_key = "trim_m" if t.has("trim_m") else "trim_pct_lbp"
             if trim is not None:
                 t.name = f"{key}[{num(round(trim, 6))} m]"
+            before = trims[-1] if trims and trims[-1] is not None else None
             if trim is not None and abs(trim) < 1e-9:
-                t.bad("trim_m" if t.has("trim_m") else "trim_pct_lbp", t.data.get("trim_m", t.data.get("trim_pct_lbp")),
+                t.bad(trim_key, t.data.get("trim_m", t.data.get("trim_pct_lbp")),
                       f"trim 0 is the even-keel [{what}] table; give only the other trims here")
                 trim = None
-            elif trim is not None and trims and trims[-1] is not None and trim <= trims[-1]:
-                t.bad("trim_m" if t.has("trim_m") else "trim_pct_lbp", t.data.get("trim_m", t.data.get("trim_pct_lbp")),
-                      f"trims must increase strictly from one [[{key}]] to the next "
-                      f"(the one before is {num(round(trims[-1], 6))} m)")
+            elif trim is not None and before is not None and typed <= ef.trim_from_stern(before):
+                t.bad(trim_key, t.data.get("trim_m", t.data.get("trim_pct_lbp")),
+                      f"trims must increase strictly from one [[{key}]] to the next, as typed "
+                      f"(the one before is {num(round(float(ef.trim_from_stern(before)), 6))} m, + by the "
+                      f"{ef.trim_positive})")
                 trim = None
+            elif trim is not None and any(x is not None and abs(x - trim) < 1e-9 for x in trims):
+                t.bad(trim_key, t.data.get("trim_m", t.data.get("trim_pct_lbp")),
+                      f"the same trim as an earlier [[{key}]] ({num(round(trim, 6))} m by the stern, "
+                      "once trim_positive is applied): give each trim once")
+                trim = None
+            if trim is not None and not ef.trim_is_identity:
+                head.append(num(round(float(typed), 6)))
+            parent = ef or frame
             if what == "hydrostatics":
-                table = _read_hydro_table(t, frame, rd, t.name)
+                table = _read_hydro_table(t, parent, rd, t.name)
             else:
-                table = (_read_kn_table(t, frame, rd, cross.trim_basis, cross)
+                table = (_read_kn_table(t, parent, rd, cross.trim_basis, cross)
                          if cross is not None and attach_kn_csv(t, KN_IGNORED) else None)
                 if cross is None:
                     for k in list(t.data):
                         t.get(k, False)
+            if t.name in rd.tables:
+                rd.tables[t.name].entry = entry
             ok &= trim is not None and table is not None
             trims.append(trim)
             tables.append(table)
+        if head:
+            rd.convert(key, "trim_m", f"{Frame.describe_trim()}: {', '.join(head)} m as typed")
         if key == "hydrostatics_at_trim" and entries and hydro is not None and hydro.vcb_m is None:
             entries[0].bad("trim_m" if entries[0].has("trim_m") else "trim_pct_lbp", MISSING,
                            "tables at trims need KB: give vcb_m in [hydrostatics] (each trimmed table may give its own)")
@@ -1039,7 +1063,7 @@ def _read_limit_curve(root: Table, hydro, frame: Frame | None, rd: Reading) -> m
         return None
     if not attach_csv(t, ("displacement_t", "draft_m", "max_kg_m", "min_gm_m")):
         return None
-    f = read_frame(t, frame, drafts=True)
+    f = read_frame(t, frame, drafts=True, trims=True)
     disp, against = _abscissa(t, hydro, f, rd, "limit_curve")
     kinds = [k for k in ("max_kg_m", "min_gm_m") if t.has(k)]
     t.get("max_kg_m", False)
@@ -1051,11 +1075,16 @@ def _read_limit_curve(root: Table, hydro, frame: Frame | None, rd: Reading) -> m
         return None
     kind = kinds[0]
     values = t.array(kind, above_keel) if kind == "max_kg_m" else t.array(kind)
-    trims = t.pair("trim_range_m", required=False,
-                   form="two trims [from, to] in m (+ by the stern), from below to")
+    way = f"+ by the {f.trim_positive}" if f is not None else "+ by the stern"
+    trims = t.pair("trim_range_m", required=False, form=f"two trims [from, to] in m ({way}), from below to")
     t.finish()
     if not t.same_length(against, {against: disp, kind: values}) or f is None:
         return None
+    if trims is not None and not f.trim_is_identity:
+        typed = trims
+        trims = f.trim_range_to_stern(trims)
+        rd.convert("limit_curve", "trim_range_m", f"{Frame.describe_trim()}: [{num(typed[0])}, {num(typed[1])}] "
+                   f"→ [{num(trims[0])}, {num(trims[1])}] m")
     if trims is None and not t.has("trim_range_m"):
         # IS 2008 Part A 2.1.7: such curves must cover the operating trims; without them stated,
         # the curve is judged at whatever trim she floats at.
@@ -1358,7 +1387,7 @@ def _read_tank(t: Table, fs: m.FreeSurfaceSettings | None, ids: dict[str, str], 
                     tc.get(k, False)
                 kw["calibration"] = None
             else:
-                kw["trim_correction"] = _read_trim_correction(tc, kw, trim_range)
+                kw["trim_correction"] = _read_trim_correction(tc, kw, trim_range, f, rd)
                 if kw["trim_correction"] is None:
                     kw["calibration"] = None  # marks the tank unusable (the problem is reported)
     else:
@@ -1599,14 +1628,18 @@ TRIM_CORRECTION_REACH = 1.2
 """A tank is at most 1.2·LBP long (the audit's envelope): a trim t tilts its surface by at most 1.2·|t|."""
 
 
-def _read_trim_correction(t: Table, kw: dict, trim_range) -> m.TrimCorrection | None:
+def _read_trim_correction(t: Table, kw: dict, trim_range, tank_frame: Frame | None = None,
+                          rd: Reading | None = None) -> m.TrimCorrection | None:
     """``[tank.trim_correction]``: the booklet's trim corrections for soundings (model.TrimCorrection).
 
-    ``trim_m`` (m, + by the stern) strictly increasing, none 0 (the calibration itself), each within the table-trim range; ``sounding_m`` strictly increasing,
+    ``trim_m`` (m, + by the stern, or + by the head with ``trim_positive = "head"`` here or in
+    ``[vessel]``) strictly increasing as typed, none 0 (the calibration itself), each within the table-trim range; ``sounding_m`` strictly increasing,
     each a sounding the tank can show (its level within the calibration); and one of
     ``sounding_correction_m`` (|correction| at most the calibration's height) or ``volume_m3``
-    (0 … capacity), one row per sounding and one column per trim.
+    (0 … capacity), one row per sounding and one column per trim.  Typed + by the head, the trims
+    are turned + by the stern and the columns put in rising order, after every check on them as typed.
     """
+    f = trim_frame(t, tank_frame or Frame(1.0))
     if not attach_trim_csv(t):
         return None
     cal: m.TankCalibration = kw["calibration"]
@@ -1630,7 +1663,7 @@ def _read_trim_correction(t: Table, kw: dict, trim_range) -> m.TrimCorrection | 
     key = "sounding_correction_m" if has_corr else "volume_m3"
     val = t.matrix(key, "sounding_m", t.raw_len("sounding_m"), "trim_m", t.raw_len("trim_m"))
     t.finish()
-    if trims is None or sound is None or val is None:
+    if trims is None or sound is None or val is None or f is None:
         return None
     cap = float(cal.volume_m3[-1])
     lo, hi = (-top, top) if has_corr else (0.0, cap * (1 + CAPACITY_TOLERANCE))
@@ -1659,6 +1692,12 @@ def _read_trim_correction(t: Table, kw: dict, trim_range) -> m.TrimCorrection | 
               f"is more than a surface tilted {num(float(trims[j]))} m over LBP can make (the level within "
               f"±{num(float(reach[0, j]))} m of the sounding read, 1.2 × the trim): a unit or column slip?", (i, j))
         return None
+    if rd is not None:
+        rd.tables[t.name] = TableReading(f, csv=t.data.get("csv"), columns=_csv_columns(t))
+    if not f.trim_is_identity:
+        if rd is not None:
+            rd.convert(t.name, "trim_m", f"{Frame.describe_trim()}; columns put in rising order")
+        trims, val = f.trim_to_stern(trims)[::-1].copy(), val[:, ::-1].copy()
     return m.TrimCorrection(trim_m=m.frozen_array(trims), sounding_m=m.frozen_array(sound),
                             value=m.frozen_array(val), kind=key)
 

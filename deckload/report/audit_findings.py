@@ -170,8 +170,14 @@ def audit_profile(path: str | os.PathLike, vessel: Vessel, reading: Reading | No
 def _as_written(path: tuple, vessel: Vessel, reading: Reading | None) -> tuple:
     """A finding's path into the model's table turned into the path of the row as typed: the
     model's tables rise, and a table typed falling was read reversed (and a calibration may
-    have gained a level-0 row, cross curves a 0° column)."""
-    if reading is None or len(path) < 3:
+    have gained a level-0 row, cross curves a 0° column); a table at a trim is the model's n-th by
+    rising trim + by the stern, and its entry as written is the reading's (typed + by the head, the
+    entries run the other way)."""
+    if reading is None or len(path) < 2:
+        return path
+    if path[0] in ("hydrostatics_at_trim", "cross_curves_at_trim") and isinstance(path[1], int):
+        return _entry_as_written(path, vessel, reading)
+    if len(path) < 3:
         return path
     if path[0] in ("hydrostatics", "cross_curves"):
         key, at = path[0], 2
@@ -198,6 +204,23 @@ def _as_written(path: tuple, vessel: Vessel, reading: Reading | None) -> tuple:
     return tuple(out)
 
 
+def _entry_as_written(path: tuple, vessel: Vessel, reading: Reading) -> tuple:
+    """``path`` with the model's index of a table at a trim turned into its entry as written."""
+    tt = vessel.trimmed
+    if tt is None:
+        return path
+    hydro = path[0] == "hydrostatics_at_trim"
+    trims, tables = (tt.hydro_trim_m, tt.hydrostatics) if hydro else (tt.kn_trim_m, tt.cross_curves)
+    even = vessel.hydrostatics if hydro else vessel.cross_curves
+    others = [float(t) for t, table in zip(trims, tables) if table is not even]
+    if not 0 <= path[1] < len(others):
+        return path
+    tr = reading.tables.get(f"{path[0]}[{round(others[path[1]], 6):.6g} m]")
+    if tr is None or tr.entry is None:
+        return path
+    return (path[0], tr.entry) + tuple(path[2:])
+
+
 def locate(findings, filename: str, text: str, vessel: Vessel, reading: Reading | None = None) -> list[Located]:
     import tomllib
 
@@ -210,12 +233,12 @@ def locate(findings, filename: str, text: str, vessel: Vessel, reading: Reading 
         doc = {}
     out = []
     for f in findings:
-        csv_file = _csv_of(doc, f.path)
+        path = _as_written(f.path, vessel, reading)
+        csv_file = _csv_of(doc, path)
         if csv_file is not None:
             out.append(_in_csv(f, Path(filename).parent / csv_file, vessel))
             continue
         line = None
-        path = _as_written(f.path, vessel, reading)
         for k in range(len(path), 0, -1):
             if path[:k] in lines:
                 line = lines[path[:k]]
