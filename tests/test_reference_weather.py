@@ -356,3 +356,47 @@ def test_the_windward_side_mirrors_the_other_curve_and_theta0_may_lie_to_windwar
     assert curve.at(10.0) == pytest.approx(0.5 * math.radians(10.0) + 0.05, abs=1e-12)
     f = wx.weather_areas(curve, 0.02, 5.0, None)
     assert f.theta0_deg == pytest.approx(math.degrees(-0.06), abs=1e-6)
+
+
+def test_a_roll_to_windward_past_the_gust_lever_fails_the_criterion():
+    """Box L 40, B 10, D 4 m at T 3.5 m, KG 3.6 m (GM 0.531 m), upright; windage A = L·(D − T).
+    Her exact GZ (box section clipped at every heel, vessel_factories.box_kn_m, checks.md §1.2)
+    vanishes at about 12°: the deck edge is in at atan((D − T)/(B/2)) = 5.7°.  The roll of
+    IS 2008 A 2.3.1 (θ1 ≈ 22.6°) takes her to windward past the angle where GZ to windward
+    (GZ(−φ) = −GZ(φ), the curve being odd when upright) exceeds the gust lever lw2: there the gust no
+    longer brings her back, and area a, ∫(lw2 − GZ) from θ0 − θ1, turns negative (−0.012 m·rad), so
+    b ≥ a held only by that sign (found by an exact-case audit).  The criterion must fail, and
+    the windward intercept is −φ with GZ(φ) = −lw2 (root of the exact curve)."""
+    import dataclasses
+
+    from vessel_factories import box_kn_m
+
+    L_, B_, D_, T_, KG_ = 40.0, 10.0, 4.0, 3.5, 3.6
+    drafts = [3.0, 3.5, 3.9]
+    windage = Windage(draft_m=frozen_array(drafts), lateral_area_m2=frozen_array([L_ * (D_ - t) for t in drafts]),
+                      centroid_above_wl_m=frozen_array([(D_ - t) / 2.0 for t in drafts]),
+                      waterline_length_m=frozen_array([L_] * 3))
+    v = box_vessel(length_m=L_, breadth_m=B_, depth_m=D_, drafts_m=drafts, lightship_t=RHO_SW * L_ * B_ * T_,
+                   lightship_kg_m=KG_, heel_step_deg=1.0)
+    r = evaluate(dataclasses.replace(v, windage=windage), Condition(name="windward"))
+    crit = {c.id: c for c in r.criteria}["IS2008-A2.3-area-b-a"]
+    assert crit.assessed and not crit.passed
+    assert crit.limit < 0.0 < crit.value  # a negative: b ≥ a would have passed on the sign alone
+    assert "she heels on to windward; fails" in crit.note and r.weather is None
+    lw2 = 1.5 * wx.wind_lever_m(504.0, L_ * (D_ - T_), (D_ - T_) / 2.0 + T_ / 2.0, RHO_SW * L_ * B_ * T_)
+
+    def gz(deg: float) -> float:
+        return box_kn_m(B_, D_, T_, math.radians(deg)) - KG_ * math.sin(math.radians(deg))
+
+    vanish = _root(gz, 5.0, 30.0)
+    past = _root(lambda d: gz(d) + lw2, vanish, 40.0)
+    assert 11.0 < vanish < 13.0
+    curve = wx.Curve.from_sides(np.asarray(r.gz_heel_deg), np.asarray(r.gz_m), np.asarray(r.gz_port_m))
+    f = wx.weather_areas(curve, lw2 / 1.5, 22.6, None)
+    assert f.windward_deg == pytest.approx(-past, abs=0.05)  # the curve is read linearly on a 1° grid
+    # The usual case is untouched: at KG 2.5 (GM 1.63 m, GZ to beyond 40°) the roll stays inside, and
+    # b ≥ a is judged on its areas.
+    v3 = box_vessel(length_m=L_, breadth_m=B_, depth_m=D_, drafts_m=drafts, lightship_t=RHO_SW * L_ * B_ * T_,
+                    lightship_kg_m=2.5, heel_step_deg=1.0)
+    ok = {c.id: c for c in evaluate(dataclasses.replace(v3, windage=windage), Condition(name="ok")).criteria}
+    assert ok["IS2008-A2.3-area-b-a"].passed and ok["IS2008-A2.3-area-b-a"].limit > 0.0

@@ -103,8 +103,9 @@ class Verdict:
 
 
 def _crit(cid: str, desc: str, value: float, limit: float, unit: str, comp: str, source: str,
-          set_id: str, note: str = "", assessed: bool = True) -> CriterionResult:
-    passed = assessed and meets(value, limit, comp)
+          set_id: str, note: str = "", assessed: bool = True, fails: bool = False) -> CriterionResult:
+    """One criterion's result; ``fails`` where it fails whatever its value and limit (the note says why)."""
+    passed = assessed and not fails and meets(value, limit, comp)
     return CriterionResult(cid, desc, value, limit, unit, comp, passed, source, note, set_id=set_id,
                            assessed=assessed)
 
@@ -207,6 +208,15 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
                          f"not assessable (b {f.area_b_mrad:.4f} m·rad; a counted from {end:g}° only: {f.area_a_mrad:.4f} "
                          "m·rad); " + note,
                          assessed=False))
+        return out, None, None, notes
+    if f.windward_deg is not None:
+        # Area a counts ∫(lw2 − GZ), which turns negative past the windward intercept and would let
+        # b ≥ a pass on a ship that capsizes to windward (found by an exact-case audit: a −0.0125 m·rad).
+        out.append(_crit("IS2008-A2.3-area-b-a", "Weather: area b against area a", f.area_b_mrad, f.area_a_mrad,
+                         "m·rad", ">=", srcb, WEATHER_SET,
+                         f"rolled to windward to {start:.1f}° (θ0 − θ1), past {f.windward_deg:.1f}° where GZ to "
+                         f"windward exceeds lw2 = {f.lw2_m:.4f} m: the gust does not bring her back, she heels on "
+                         "to windward; fails; " + note, fails=True))
         return out, None, None, notes
     # Where the KN tables stop before θ2 could be reached, area b is known only up to their end:
     # enough when it already covers a (more curve can only add to b), else not assessable.

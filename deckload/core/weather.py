@@ -239,6 +239,19 @@ class Curve:
         ok = np.flatnonzero(x <= end_deg + 1e-12)
         return float(x[ok[-1]]) if len(ok) else None
 
+    def last_falling_below(self, lever_m: float, end_deg: float) -> float | None:
+        """Largest angle ≤ end where GZ − lever falls through zero (searching towards windward):
+        to windward of it GZ exceeds the lever again."""
+        d = self.gz_m - lever_m
+        a, b = d[:-1], d[1:]
+        idx = np.flatnonzero((a > 0.0) & (b <= 0.0))
+        if len(idx) == 0:
+            return None
+        h0, h1 = self.heel_deg[idx], self.heel_deg[idx + 1]
+        x = h0 + (h1 - h0) * a[idx] / (a[idx] - b[idx])
+        ok = np.flatnonzero(x <= end_deg + 1e-12)
+        return float(x[ok[-1]]) if len(ok) else None
+
     def area_between(self, lever_m: float, lo_deg: float, hi_deg: float) -> float:
         """∫ (GZ − lever) dφ from lo to hi (m·rad), trapezoidal on the curve's grid (exact ends)."""
         if hi_deg <= lo_deg:
@@ -263,6 +276,11 @@ class WeatherFacts:
     theta2_deg: float | None
     area_a_mrad: float | None
     area_b_mrad: float | None
+    windward_deg: float | None = None
+    """Where the roll to windward θ0 − θ1 passes the windward intercept of lw2 with GZ, that
+    intercept (deg, negative): beyond it GZ exceeds lw2, so the gust no longer brings her back and
+    she heels on to windward; area a, taken as ∫(lw2 − GZ), is then partly negative and means
+    nothing.  None when the roll stays inside it (the usual case)."""
 
 
 def weather_areas(curve: Curve, lw1_m: float, theta1_deg: float | None, flood_deg: float | None,
@@ -297,4 +315,9 @@ def weather_areas(curve: Curve, lw1_m: float, theta1_deg: float | None, flood_de
         top = min(top, theta_c)
     area_a = -curve.area_between(lw2, start, theta_r) if theta_r > start else 0.0
     area_b = curve.area_between(lw2, theta_r, top) if top > theta_r else 0.0
-    return WeatherFacts(lw1_m, lw2, theta0, theta_r, theta_c, top, area_a, area_b)
+    # Rolled back to θ0 − θ1 and struck by the gust there, she returns only while lw2 exceeds GZ
+    # (the righting lever to windward is negative); past the windward intercept GZ − lw2 > 0 drives
+    # her on to windward: the energy balance of areas a and b no longer describes her.
+    windward = curve.last_falling_below(lw2, theta0)
+    beyond = windward if windward is not None and start < windward - 1e-9 else None
+    return WeatherFacts(lw1_m, lw2, theta0, theta_r, theta_c, top, area_a, area_b, beyond)
