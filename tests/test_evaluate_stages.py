@@ -373,8 +373,9 @@ def test_warnings_stage_loll():
 
     With a 1° KN table the crossing is found to 1e-4° (the wall-sided GZ is smooth below
     21.8°: the spline and the linear crossing on the 0.1° grid err by under 1e-4°).  The
-    stage names the loll ('negative-gm', danger, 14.2° to starboard), the list over 2°
-    ('list', caution) and every IS 2008 A 2.2 criterion as failed.
+    stage names the loll first ('negative-gm', danger, 14.2°: to either side, G being on the
+    centreline; corrected by lowering G, never by weight moved to the high side, common practice),
+    the list over 2° ('list', caution) and every IS 2008 A 2.2 criterion as failed.
     """
     vessel, condition = barge_at(2.0, 5.3, heel_step_deg=1.0)
     out = _run(vessel, condition)
@@ -384,10 +385,21 @@ def test_warnings_stage_loll():
     assert out["curve"].list_deg == pytest.approx(loll, abs=1e-4)
     by_code = {w.code: w for w in out["warnings"]}
     assert by_code["negative-gm"].severity == "danger"
-    assert "-0.133 m" in by_code["negative-gm"].message and "14.2° to starboard" in by_code["negative-gm"].message
+    assert out["warnings"][0].code == "negative-gm"  # her state before the criteria it fails
+    assert "-0.133 m" in by_code["negative-gm"].message and "14.2° to either side" in by_code["negative-gm"].message
+    assert "never move weight to the high side" in by_code["negative-gm"].message
     assert by_code["list"].message == "list 14.2° to starboard exceeds 2°"
     failed = [w for w in out["warnings"] if w.code == "criterion-failed"]
     assert len(failed) == 6 and all(w.severity == "danger" for w in failed)
+
+
+def test_a_loll_with_g_off_the_centreline_names_its_side():
+    """The same loll with the lightship's G 2 cm to port (checks.md §1.5 box, KG 5.3 m): the off-centre
+    weight decides the side, GZ = KN − KG·sinφ + 0.02·cosφ heeling to port being larger."""
+    vessel, condition = barge_at(2.0, 5.3, heel_step_deg=1.0)
+    vessel = dataclasses.replace(vessel, lightship=dataclasses.replace(vessel.lightship, tcg_m=-0.02))
+    loll = next(w for w in _run(vessel, condition)["warnings"] if w.code == "negative-gm")
+    assert "° to port; lower G" in loll.message and "either side" not in loll.message
 
 
 def test_warnings_stage_load_line_and_order():

@@ -485,9 +485,15 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
                       tuple(criteria), verdict, deck_edge, tuple(notes))
 
 
+LOLL_EITHER_SIDE_TCG_M = 1e-6
+"""A TCG within a micrometre of the centreline (round-off of the weight sums) leaves the side of a
+loll undetermined: she may lie over to either side."""
+
+
 def stage_warnings(vessel: Vessel, condition: Condition, weights: Weights, fs: FreeSurface,
                    floating: Floating, curve: Curve, assessment: Assessment) -> tuple[Warning, ...]:
-    """Stage 6: every caution and danger of the condition, checks first, then the stages' notes.
+    """Stage 6: every caution and danger of the condition: her state first (a loll, no position of
+    equilibrium), then the checks, then the stages' notes.
 
     The checks (:func:`_warnings`): each criterion not assessed, failed, or within
     10 % of its limit; tanks in their worst slack band; a list over 2° (both thresholds
@@ -495,20 +501,27 @@ def stage_warnings(vessel: Vessel, condition: Condition, weights: Weights, fs: F
     draft; deck loads per m² over the area's limit, item by item and area by area;
     hold loads over the hold's limit; two deck items or constants alike in every field.  Then the
     notes of stages 1–5 in order, then
-    GM fluid ≤ 0 (she lolls to the list's side), no equilibrium (GZ never positive),
     the ``actual`` free-surface rule (the consumables' allowance is off), and ``[free_surface]``
     settings that leave out moments IS 2008 B 3.1 counts
     (:func:`~deckload.core.free_surface.settings_departures`).
     """
     notes = [*weights.notes, *floating.notes, *curve.notes, *assessment.notes]
+    # Her own state first: a loll or no equilibrium at all outranks every criterion it fails.
+    state: list[Warning] = []
     if floating.gm_fluid_m <= 0.0:
         # (with no position of equilibrium there is no angle of loll: the next danger says so)
-        notes.append(Warning("negative-gm", f"GM fluid {floating.gm_fluid_m:.3f} m is not positive"
-                             + (f": she lolls, about {abs(curve.list_deg):.1f}° to {curve.side}"
-                                if curve.list_deg is not None else ""), "danger"))
+        loll = ""
+        if curve.list_deg is not None:
+            # G on the centreline leaves her balanced on neither side: she may flop over to either.
+            # A loll is corrected by lowering G (an empty low tank, the low side first), never by
+            # moving weight to the high side, which throws her over to the other side (common practice).
+            side = "either side" if abs(weights.total.tcg_m) < LOLL_EITHER_SIDE_TCG_M else curve.side
+            loll = (f": she lolls, about {abs(curve.list_deg):.1f}° to {side}; lower G (an empty low tank, "
+                    "the low side first), never move weight to the high side")
+        state.append(Warning("negative-gm", f"GM fluid {floating.gm_fluid_m:.3f} m is not positive{loll}", "danger"))
     if curve.list_deg is None:
         # No number stands for the list here: the heel lies beyond the last angle the tables know.
-        notes.append(Warning("no-equilibrium", f"GZ never becomes positive heeling to {curve.side} up to "
+        state.append(Warning("no-equilibrium", f"GZ never becomes positive heeling to {curve.side} up to "
                              f"{curve.heel_deg[-1]:g}°: no position of equilibrium", "danger"))
     if fs.rule == "actual":
         notes.append(Warning("fs-rule-actual",
@@ -522,7 +535,7 @@ def stage_warnings(vessel: Vessel, condition: Condition, weights: Weights, fs: F
                              "[free_surface] settings)", "caution"))
     checks = _warnings(vessel, condition, fs.tanks, assessment.criteria, weights.items, curve.list_deg,
                        floating.draft_mid_m, floating.load_line)
-    return tuple(checks + notes)
+    return tuple(state + checks + notes)
 
 
 def _result(vessel: Vessel, condition: Condition, weights: Weights, fs: FreeSurface, floating: Floating,
