@@ -8,8 +8,10 @@ invented amount per metre of trim (said where), so that an estimate crosses its 
 
 The rule checked (module docstring of core/trimmed_tables.py): beyond the end table by e, its values
 are held, so their error is estimated as |end value − neighbour value|·e/w, w the last interval's
-width; refused when that exceeds UR L5's tolerance (standards.md §5.3: mean draft and KMt 1 %, not
-more than 5 cm; KN 5 cm), when e > w, or when the neighbour table does not reach the displacement;
+width (KN: plus the change of that rate over the last three tables, ``held_error_bound``; with KG
+the GZ tolerance too, tests/test_trimmed_beyond_gz.py); refused when that exceeds UR L5's tolerance
+(standards.md §5.3: mean draft and KMt 1 %, not more than 5 cm; KN 5 cm), when e > w, or when the
+neighbour table does not reach the displacement;
 else a caution.  A set with the even-keel table alone keeps the even-keel caution beyond 1 % of LBP
 (core/trim.py, deckload's own threshold; 0.40 m here).
 """
@@ -152,9 +154,12 @@ def test_kmt_estimate_beyond_tolerance_is_refused():
 
 def test_kn_estimate_names_the_heel_where_it_exceeds_tolerance():
     """Invented: KN at 20° alone rises 0.1 m per metre of trim (KN_j + 0.1·t_j in the 20° column).
-    KN tables at −1, 0, +1 m; 1.606 m by the stern is 0.606 m beyond +1 m (interval 1 m): 0.1·0.606 =
-    6.2 cm at 20° with the box's own change, over the 5 cm of UR L5 (standards.md §5.3): refused
-    naming 20°.  0.4 m beyond: 4.1 cm, a caution."""
+    KN tables at −1, 0, +1 m; 1.606 m by the stern is 0.606 m beyond +1 m (interval 1 m).  The bound
+    of trimmed_tables.held_error_bound: e·|r| + M·e·(w + e)/2, r the last interval's rate (0.1 plus
+    the box's own sin20°·1²/(24·5) = 2.85 mm), M = |r − r₂|/1 the change of rate over the last three
+    tables, the box's quadratic alone: 2·sin20°/(24·5) = 5.7 mm/m²; 6.23 + 0.28 = 6.5 cm at 20°, over
+    the 5 cm of UR L5 (standards.md §5.3): refused naming 20°.  0.4 m beyond: 4.1 + 0.16 = 4.3 cm, a
+    caution (no KG given: the KN tolerance alone)."""
     k20 = list(np.asarray(kn_at_trim(0.0).heel_deg)).index(20.0)
 
     def kn_20(t):
@@ -166,11 +171,13 @@ def test_kn_estimate_names_the_heel_where_it_exceeds_tolerance():
     v = box(5.0, 3.0, 0.98, trims=TRIMS, kn_trims=(-1.0, 0.0, 1.0), kn_table=kn_20)
     # the box's own change at 20° adds sin20°·1²/(24·5) = 2.9 mm over the interval (closed form);
     # 1.606 m: 0.606 m beyond, 6.23 cm (a trim whose estimate is not near a rounding edge of 0.1 cm)
-    est = abs(kn_exact(5.0, 1.0, 20.0) + 0.1 - kn_exact(5.0, 0.0, 20.0)) * 0.606
-    assert f"{est * 100:.2f}" == "6.23"
+    r = kn_exact(5.0, 1.0, 20.0) + 0.1 - kn_exact(5.0, 0.0, 20.0)
+    r2 = kn_exact(5.0, 0.0, 20.0) - (kn_exact(5.0, -1.0, 20.0) - 0.1)
+    est = r * 0.606 + abs(r - r2) * 0.606 * 1.606 / 2
+    assert f"{est * 100:.2f}" == "6.51"
     assert _refusal(v, 1.606) == (
         "trim 1.61 m by the stern is outside the KN tables' trims (-1.00 to +1.00 m): KN at 20° would be off by "
-        "about 6.2 cm (tolerance 5 cm), beyond UR L5's tolerance (standards.md §5.3); this condition cannot be "
+        "about 6.5 cm (tolerance 5 cm), beyond UR L5's tolerance (standards.md §5.3); this condition cannot be "
         "assessed from these tables")
     assert coverage(v, 1.4, D5) == ("trim 1.40 m by the stern is outside the trims tabulated: KN tables cover "
                                     "-1.00 to +1.00 m; the +1.00 m table is used; drafts and KN less certain")

@@ -133,8 +133,14 @@ def test_refused_beyond_one_interval():
 
 def test_refused_where_the_estimated_error_exceeds_tolerance():
     """KN that change 10 cm per metre of trim at 40° (invented: KN_j = KN₀ + 0.1556·t_j·sinφ,
-    0.1 m/m at 40°) over −1…+1 m.  Beyond +1 m by e the end table's KN are off by about 0.1·e:
-    over UR L5's 5 cm (standards.md §5.3) past 0.5 m → refused; at about 0.35 m beyond, a caution."""
+    0.1 m/m at 40°) over −1…+1 m.  Linear in trim, so the bound of trimmed_tables.held_error_bound is
+    the last interval's rate alone: beyond +1 m by e the end table's KN are off by about
+    0.1556·sinφ·e.  Over UR L5's 5 cm on KN (standards.md §5.3) past 0.5 m at 40° → refused; and
+    the GZ tolerance (§5.3: 5 % of GZ, not more than 5 cm) bites first where GZ is small: at 25°,
+    GZ = KN₀(25°) + 0.1556·sin25° − 3·sin25° = 0.354 m (box closed form, tests/trimmed_box.py, KG 3 m),
+    tolerance 1.8 cm, reached at e = 0.0177/(0.1556·sin25°) = 0.27 m.  So about 1.35 m by the stern
+    (0.35 m beyond, 2.3 cm at 25°) is refused on GZ, and about 1.15 m (0.15 m beyond, 1.0 cm) draws a
+    caution."""
     def kn_steep(t):
         base = kn_at_trim(0.0)
         sin = np.sin(np.radians(base.heel_deg))
@@ -143,12 +149,19 @@ def test_refused_where_the_estimated_error_exceeds_tolerance():
     def run(a):
         return evaluate(box(5.0, 3.0, a, trims=TRIMS, kn_trims=(-1.0, 0.0, 1.0), kn_table=kn_steep), Condition())
 
-    a_caution = 0.88  # ≈ 1.35 m by the stern
+    a_caution = 0.75  # ≈ 1.15 m by the stern
     t = exact_trim(5.0, 3.0, a_caution)
-    assert 1.3 < t < 1.4
+    assert 1.1 < t < 1.2
     r = run(a_caution)
     assert any("KN tables cover -1.00 to +1.00 m" in w.message for w in r.warnings)
-    a_refuse = 1.05  # ≈ 1.6 m by the stern: about 6 cm estimated
+    gz25 = kn_exact(5.0, 0.0, 25.0) + (0.1556 - 3.0) * math.sin(math.radians(25.0))
+    assert f"{gz25:.3f}" == "0.354"
+    a_gz = 0.88  # ≈ 1.35 m by the stern: about 2.3 cm estimated at 25°, over 5 % of GZ
+    assert 1.3 < exact_trim(5.0, 3.0, a_gz) < 1.4
+    with pytest.raises(TrimBeyondTablesError, match=r"GZ at 25° would be off by about 2\.[23] cm \(tolerance 1\.8 cm, "
+                                                    r"5 % of GZ 0\.354 m\)"):
+        run(a_gz)
+    a_refuse = 1.05  # ≈ 1.6 m by the stern: about 6 cm estimated on KN at 40°
     assert 1.55 < exact_trim(5.0, 3.0, a_refuse) < 1.7
     with pytest.raises(TrimBeyondTablesError, match=r"KN at 40° would be off by about [56]\.\d cm \(tolerance 5 cm\)"):
         run(a_refuse)

@@ -37,8 +37,11 @@ made for one LCG are the other case, :func:`deckload.core.trim.kn_reference_note
 **Outside the covered trims** (:func:`coverage`): always a caution.  Refusal where the error
 would exceed tolerance: the end table's values are held beyond the end, so their error
 grows as (trim beyond the end) × (their rate of change with trim over the last tabulated
-interval).  The mean draft, KMt (UR L5: 1 % / 5 cm, standards.md §5.3) and every KN (5 cm)
-at the displacement are estimated so; when any estimate exceeds its tolerance, or the trim
+interval).  The mean draft and KMt (UR L5: 1 % / 5 cm, standards.md §5.3) at the displacement
+are estimated so; KN, whose change with trim grows with trim (deck edge and bilge), by
+:func:`held_error_bound`, that rate plus its change over the last three tables, at every
+tabulated heel against 5 cm, and against GZ's 5 % / 5 cm (GZ = KN − KG fluid·sinφ) at every
+heel to :data:`GZ_JUDGED_TO_DEG`; when any estimate exceeds its tolerance, or the trim
 lies beyond the end by more than the last interval's width (beyond that the rate itself is
 a guess), or the neighbour table does not reach the displacement (no rate is known), the
 condition is refused (:class:`TrimBeyondTablesError`).  A set with the
@@ -246,9 +249,10 @@ def _range_words(trims: np.ndarray) -> str:
     return f"{float(trims[0]):+.2f} to {float(trims[-1]):+.2f} m"
 
 
-def coverage(vessel: Vessel, trim: float, d_eq: float) -> str | None:
+def coverage(vessel: Vessel, trim: float, d_eq: float, kg_fluid_m: float | None = None) -> str | None:
     """A caution when the trim lies outside the trims the tables cover, else None; raises
-    :class:`TrimBeyondTablesError` where the error would exceed tolerance (module docstring)."""
+    :class:`TrimBeyondTablesError` where the error would exceed tolerance (module docstring).
+    Given ``kg_fluid_m`` the KN estimate is also held to the GZ tolerance (:func:`_worst_error`)."""
     tt = vessel.trimmed
     lbp = vessel.particulars.lbp_m
     way = "by the stern" if trim > 0 else "by the head"
@@ -265,7 +269,7 @@ def coverage(vessel: Vessel, trim: float, d_eq: float) -> str | None:
         end, nb, e = b
         t_end, t_nb = float(trims[end]), float(trims[nb])
         width = abs(t_end - t_nb)
-        worst = _worst_error(vessel, tt, what, end, nb, d_eq, e / width)
+        worst = _worst_error(vessel, tt, what, end, nb, d_eq, e, kg_fluid_m)
         if e > width or worst is not None:
             reason = (f"{e:.2f} m beyond them, more than their last interval ({width:.2f} m), where the error "
                       "cannot be bounded" if e > width
@@ -280,27 +284,89 @@ def coverage(vessel: Vessel, trim: float, d_eq: float) -> str | None:
     return f"trim {abs(trim):.2f} m {way} is outside the trims tabulated: " + "; ".join(out) + "; drafts and KN less certain"
 
 
+GZ_TOLERANCE_FRACTION = 0.05
+"""UR L5 / MSC.1/Circ.1229 tolerance on GZ values: 5 % of GZ, not more than 5 cm (standards.md §5.3)."""
+
+GZ_JUDGED_TO_DEG = 50.0
+"""The largest heel an IS 2008 criterion reads off the GZ curve: area b of the weather criterion runs to
+θ2 ≤ 50° (Part A 2.3); the areas and GZ of Part A 2.2 stop at 40°.  Beyond the tables' trims the GZ
+tolerance is checked at every tabulated heel above 0° up to here (KN's 5 cm at every heel)."""
+
+
+def gz_tolerance_m(gz_m: float) -> float:
+    """UR L5 / MSC.1/Circ.1229 tolerance on a GZ value: 5 %, not more than 5 cm (standards.md §5.3)."""
+    return min(GZ_TOLERANCE_FRACTION * abs(gz_m), KN_TOLERANCE_M)
+
+
+def held_error_bound(end: np.ndarray, nb: np.ndarray, nb2: np.ndarray | None, w: float, w2: float,
+                     e: float) -> np.ndarray:
+    """Conservative estimate of the error of a value held at the end table, ``e`` metres of trim beyond it.
+
+    ``end``, ``nb`` and ``nb2`` are the value in the end table and in the next two inward (``nb2``
+    None when the set has only two tables), ``w`` and ``w2`` the widths of the last and the one
+    before it.  Derived (Taylor's theorem with the end table's slope): with f″ bounded by M
+    between the tables and the point,
+
+        |f(t_end + e) − f(t_end)| ≤ e·|f′(t_end)| + M·e²/2,   |f′(t_end)| ≤ |r| + M·w/2,
+
+    r = (end − nb)/w the last interval's rate (the slope at the end of an interval differs from its
+    secant by at most M·w/2).  Hence the bound e·|r| + M·e·(w + e)/2, M taken as the second
+    divided difference of the last three tables, |r − r₂|/((w + w₂)/2), r₂ = (nb − nb2)/w₂.  It is
+    exact for a quantity quadratic in trim (the box's KB and KMt, tests/trimmed_box.py) and, with
+    absolute values, never lets a change of rate cancel the rate.  The last interval's rate alone
+    (the former estimate) misses the growth of KN's change with trim: on a box at
+    2.47 m beyond tables to 2 m it estimated 4.0 cm at 30° where the exact error is 5.3 cm.  With
+    two tables only, no change of rate is known and the bound is e·|r|.
+    """
+    r = (end - nb) / w
+    est = np.abs(r) * e
+    if nb2 is not None:
+        m = np.abs(r - (nb - nb2) / w2) / ((w + w2) / 2.0)
+        est = est + m * e * (w + e) / 2.0
+    return est
+
+
 def _worst_error(vessel: Vessel, tt: TrimmedTables, what: str, end: int, nb: int, d_eq: float,
-                 fraction: float) -> str | None:
+                 e: float, kg_fluid_m: float | None = None) -> str | None:
     """The first quantity whose estimated error beyond the end exceeds its tolerance, in words, or None.
 
-    Estimate = (end value − neighbour value) × fraction, fraction = (trim beyond the end) /
-    (width of the last interval): the change over the last interval carried on at its rate.
+    Mean draft and KMt: (end value − neighbour value)·e/w, the change over the last interval (width
+    w) carried on at its rate, against 1 %/5 cm.  KN: :func:`held_error_bound` (the rate and its
+    change over the last three tables) at every tabulated heel, against 5 cm; and, given KG fluid,
+    against the GZ tolerance 5 %/5 cm of GZ = KN − KG fluid·sinφ (end table) at every heel above 0°
+    up to :data:`GZ_JUDGED_TO_DEG`: the error of KN is the error of GZ.
     """
     try:
         if what == "KN":
+            trims = tt.kn_trim_m
+            step = nb - end
+            nb2 = nb + step if 0 <= nb + step < len(trims) else None
+            w = abs(float(trims[end]) - float(trims[nb]))
             a, b = kn_row(tt.cross_curves[end], d_eq), kn_row(tt.cross_curves[nb], d_eq)
-            est = np.abs(a - b) * fraction
+            c = kn_row(tt.cross_curves[nb2], d_eq) if nb2 is not None else None
+            w2 = abs(float(trims[nb]) - float(trims[nb2])) if nb2 is not None else w
+            est = held_error_bound(a, b, c, w, w2, e)
+            heels = np.asarray(tt.cross_curves[end].heel_deg, dtype=float)
             k = int(np.argmax(est))
             if est[k] > KN_TOLERANCE_M:
-                heel = float(tt.cross_curves[end].heel_deg[k])
-                return f"KN at {heel:g}° would be off by about {est[k] * 100:.1f} cm (tolerance 5 cm)"
-            return None
+                return f"KN at {heels[k]:g}° would be off by about {est[k] * 100:.1f} cm (tolerance 5 cm)"
+            if kg_fluid_m is None:
+                return None
+            gz = a - kg_fluid_m * np.sin(np.radians(heels))
+            tol = np.array([gz_tolerance_m(g) for g in gz])
+            judged = (heels > 0.0) & (heels <= GZ_JUDGED_TO_DEG + 1e-9)
+            over = judged & (est > tol)
+            if not over.any():
+                return None
+            k = int(np.argmax(np.where(over, est - tol, -np.inf)))
+            return (f"GZ at {heels[k]:g}° would be off by about {est[k] * 100:.1f} cm (tolerance {tol[k] * 100:.1f} cm, "
+                    f"5 % of GZ {gz[k]:.3f} m)")
         ta, tb = float(tt.hydro_trim_m[end]), float(tt.hydro_trim_m[nb])
         a = _table_row(vessel, tt.hydrostatics[end], ta, d_eq)
         b = _table_row(vessel, tt.hydrostatics[nb], tb, d_eq)
-    except OutOfRangeError as e:
-        return f"the error cannot be estimated ({e})"
+    except OutOfRangeError as err:
+        return f"the error cannot be estimated ({err})"
+    fraction = e / abs(ta - tb)
     for idx, name in ((0, "mean draft"), (3, "KMt")):
         est = abs(a[idx] - b[idx]) * fraction
         tol = draft_tolerance_m(a[idx])
@@ -347,8 +413,8 @@ def table_state(vessel: Vessel, displacement_t: float, water_density_t_m3: float
         trim = trim_m(displacement_t, lcg_m, hy.lcb_m, mct.mctc_tm_cm)
         return TableState(hy, mct, trim, even_keel_note(trim, vessel.particulars.lbp_m), False)
     eq = equilibrium(vessel, displacement_t, water_density_t_m3, lcg_m, kg_fluid_m)
-    return TableState(eq.upright, eq.moment, eq.trim_m, coverage(vessel, eq.trim_m, eq.upright.table_displacement_t),
-                      True)
+    return TableState(eq.upright, eq.moment, eq.trim_m, coverage(vessel, eq.trim_m, eq.upright.table_displacement_t,
+                                                                       kg_fluid_m), True)
 
 
 def kn_row_for(vessel: Vessel, table_displacement_t: float, trim_m: float) -> tuple[CrossCurves, np.ndarray]:
