@@ -516,8 +516,8 @@ def stage_warnings(vessel: Vessel, condition: Condition, weights: Weights, fs: F
             # A loll is corrected by lowering G (an empty low tank, the low side first), never by
             # moving weight to the high side, which throws her over to the other side (common practice).
             side = "either side" if abs(weights.total.tcg_m) < LOLL_EITHER_SIDE_TCG_M else curve.side
-            loll = (f": she lolls, about {abs(curve.list_deg):.1f}° to {side}; lower G (an empty low tank, "
-                    "the low side first), never move weight to the high side")
+            loll = (f": she lolls, about {abs(curve.list_deg):.1f}° to {side}; lower G, never move weight to "
+                    "the high side (fill an empty low tank, the low side first)")
         state.append(Warning("negative-gm", f"GM fluid {floating.gm_fluid_m:.3f} m is not positive{loll}", "danger"))
     if curve.list_deg is None:
         # No number stands for the list here: the heel lies beyond the last angle the tables know.
