@@ -1,0 +1,81 @@
+"""The plausibility audit accepts exact tables: a box barge at light draft and a circular cylinder.
+
+Found by an audit of exact cases: a box barge's exact KN with table drafts from 0.2 or 0.3 m were
+refused ("KN ≈ KMt·sinφ … 53 % apart", "stands out of a smooth curve"), and a horizontal circular
+cylinder's KN (R·sinθ at every draft) drew an error for every pair of rows.
+"""
+
+from __future__ import annotations
+
+import dataclasses
+
+import numpy as np
+import pytest
+
+from box_profile_text import RHO, BoxTank, box_profile_text
+from deckload.core.audit import ERROR, audit
+from deckload.core.model import frozen_array
+from deckload.io.profiles import parse_profile
+
+L, B, D = 40.0, 10.0, 4.0
+TANK = (BoxTank("T1", (10.0, 16.0), (-1.0, 1.0), (0.5, 1.5)),)
+KN_CHECKS = ("kn-kmt", "kn-outlier", "kn-lone", "kn-row-repeat", "kn-row-swap", "kn-column-shift")
+
+
+def light_barge(first_draft_m: float, heel_step_deg: float = 5.0):
+    """The 40 × 10 × 4 m box barge of checks.md §1 with tables every 0.1 m from ``first_draft_m`` to
+    3.8 m, KN exact (checks.md §1.2 [A]: the section clipped by the waterline, tests/vessel_factories).
+    Its bilge emerges at tanφ = 2T/B (checks.md §1.1): 2.29° at 0.2 m, 3.43° at 0.3 m, before the
+    first tabulated heel; its deck edge immerses at tanφ = 2(D − T)/B: 2.29° at 3.8 m.  The lightship
+    (the box at 0.2 m less a little) puts every row within reach of a condition."""
+    n = int(round((3.8 - first_draft_m) / 0.1)) + 1
+    drafts = [round(first_draft_m + 0.1 * k, 3) for k in range(n)]
+    text = box_profile_text(name="Light box barge", length_m=L, breadth_m=B, depth_m=D, drafts_m=drafts,
+                            kn_drafts_m=drafts, heel_step_deg=heel_step_deg,
+                            lightship=(RHO * L * B * 0.19, None, 2.5), tanks=TANK)
+    return parse_profile(text, "light-barge.toml")
+
+
+def kn_found(v):
+    return [f for f in audit(v) if f.check in KN_CHECKS]
+
+
+@pytest.mark.parametrize("first, step", [(0.2, 5.0), (0.3, 5.0), (0.2, 10.0), (0.3, 10.0), (0.4, 5.0)])
+def test_exact_light_draft_box_tables_pass_the_audit(first, step):
+    assert [f.text() for f in kn_found(light_barge(first, step))] == []
+
+
+def test_the_light_barge_still_shows_a_decimal_slip_at_small_heel():
+    """KN(5°) at 1.0 m typed ten times over (a decimal slip, audit.KN_SMALL_ANGLE_ERROR): the wall-sided
+    relation holds there (bilge at 11.3°, deck edge at 31.0°), so it is an error as before."""
+    v = light_barge(0.2)
+    a = np.array(v.cross_curves.kn_m)
+    i = int(np.argmin(np.abs(np.asarray(v.cross_curves.displacement_t) - RHO * L * B * 1.0)))
+    a[i, 1] *= 10.0
+    v2 = dataclasses.replace(v, cross_curves=dataclasses.replace(v.cross_curves, kn_m=frozen_array(a)))
+    got = [(f.severity, f.path[2:]) for f in kn_found(v2) if f.check in ("kn-kmt", "kn-outlier")]
+    assert (ERROR, (i, 1)) in got
+
+
+def test_the_light_barge_still_shows_a_decimal_slip_past_the_bilge():
+    """KN(10°) at 0.2 m typed twice over (3.41 → 6.82 m, near KMt·sinφ = 7.25 m, so the small-heel
+    check cannot see it): past the bilge (2.29°) the box's KN runs smoothly on (checks.md §1.2 case 2
+    from 5° to 15°), so the cell standing 112 % off the line through its neighbours along the heel
+    is still an error (audit.KN_OUTLIER)."""
+    v = light_barge(0.2)
+    a = np.array(v.cross_curves.kn_m)
+    a[0, 2] *= 2.0
+    v2 = dataclasses.replace(v, cross_curves=dataclasses.replace(v.cross_curves, kn_m=frozen_array(a)))
+    assert (ERROR, "kn-outlier") in {(f.severity, f.check) for f in kn_found(v2) if f.path[2:] == (0, 2)}
+
+
+@pytest.mark.parametrize("draft, row", [
+    (1.0, (1.55639, 2.68414, 3.19743, 3.45955, 3.47903, 3.29594, 2.96747, 2.52674, 2.00000)),
+    (2.0, (0.90843, 1.86150, 2.58771, 2.85134, 2.90730, 2.82650, 2.63719, 2.35671, 2.00000)),
+    (3.0, (0.75033, 1.35074, 1.73248, 2.01023, 2.18107, 2.25335, 2.24208, 2.15533, 2.00000))])
+def test_the_audits_box_kn_is_the_exact_cross_curve(draft, row):
+    """audit.box_kn (the allowance's reference hull) against checks.md §1.4 [A] (B 10, D 4 m, 10°–90°;
+    printed to 1e-5), through every waterline regime of the section."""
+    from deckload.core.audit import box_kn
+    got = [box_kn(10.0, 4.0, draft, 10.0 * k)[0] for k in range(1, 10)]
+    assert got == pytest.approx(list(row), abs=1e-5)
