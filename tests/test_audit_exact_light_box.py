@@ -79,3 +79,64 @@ def test_the_audits_box_kn_is_the_exact_cross_curve(draft, row):
     from deckload.core.audit import box_kn
     got = [box_kn(10.0, 4.0, draft, 10.0 * k)[0] for k in range(1, 10)]
     assert got == pytest.approx(list(row), abs=1e-5)
+
+
+def cylinder(kn_rows=None, kmt=None):
+    """A horizontal circular cylinder, R 5 m, L 40 m, drafts 2–8 m every 0.25 m (checks.md §2.2 [A]).
+    Segment of half-angle α = arccos((R − T)/R): area A = R²(2α − sin 2α)/2, centroid height
+    KB = R − 4R·sin³α/(3(2α − sin 2α)), waterline breadth w = 2√(T(2R − T)); the metacentre stays at
+    the axis, so KMt = R and KN = R·sinφ at every draft and heel."""
+    R, L = 5.0, 40.0
+    T = np.round(np.arange(2.0, 8.001, 0.25), 3)
+    two_a = 2.0 * np.arccos((R - T) / R)
+    area = R * R * (two_a - np.sin(two_a)) / 2.0
+    kb = R - 4.0 * R * np.sin(two_a / 2.0) ** 3 / (3.0 * (two_a - np.sin(two_a)))
+    w = 2.0 * np.sqrt(T * (2.0 * R - T))
+    heels = np.arange(0.0, 91.0, 5.0)
+    rows = kn_rows if kn_rows is not None else np.tile(R * np.sin(np.radians(heels)), (len(T), 1))
+    km = kmt if kmt is not None else np.full(len(T), R)
+
+    def arr(xs):
+        return "[" + ", ".join(repr(float(x)) for x in xs) + "]"
+
+    text = "\n".join([
+        'format = "deckload-profile-1"', "[vessel]", 'name = "Cylinder"', f"lbp_m = {L}", "breadth_m = 10.0",
+        "depth_m = 10.0", "design_draft_m = 5.0", "table_density_t_m3 = 1.025", 'longitudinal_datum = "AP"',
+        "[lightship]", "mass_t = 400.0", "lcg_m = 20.0", "vcg_m = 4.0", "tcg_m = 0.0",
+        "[hydrostatics]", f"draft_m = {arr(T)}", f"displacement_t = {arr(RHO * L * area)}",
+        f"lcb_m = {arr([20.0] * len(T))}", f"lcf_m = {arr([20.0] * len(T))}", f"kmt_m = {arr(km)}",
+        f"tpc_t_cm = {arr(RHO * L * w / 100.0)}", f"mctc_tm_cm = {arr(RHO * w * L ** 3 / 12.0 / (100.0 * L))}",
+        f"vcb_m = {arr(kb)}",
+        "[cross_curves]", 'trim_basis = "free trim"', f"heel_deg = {arr(heels)}",
+        f"displacement_t = {arr(RHO * L * area)}", "kn_m = [", *("  " + arr(r) + "," for r in rows), "]",
+        "[criteria]", 'ship_type = "general"',
+        "[[tank]]", 'id = "T1"', 'name = "T1"', 'kind = "ballast"', "density_t_m3 = 1.025", "capacity_m3 = 12.0",
+        "[tank.calibration]", "sounding_m = [0.0, 0.5, 1.0]", "volume_m3 = [0.0, 6.0, 12.0]",
+        "lcg_m = [13.0, 13.0, 13.0]", "vcg_m = [1.0, 1.25, 1.5]", "tcg_m = [0.0, 0.0, 0.0]",
+        "fsi_m4 = [4.0, 4.0, 4.0]", ""])
+    return parse_profile(text, "cylinder.toml")
+
+
+def test_a_circular_cylinders_kn_table_gets_no_error():
+    """Every row R·sinφ, KMt = R (checks.md §2.2 [A]): no row was copied; the table is the circle's."""
+    v = cylinder()
+    assert [f.text() for f in audit(v) if f.severity == ERROR] == []
+    assert kn_found(v) == []
+
+
+def test_every_row_alike_on_a_hull_whose_kmt_changes_is_one_error():
+    """The same rows with KMt falling from 6 to 4 m (not a circle: checks.md §2.2) cannot all be right:
+    one error naming every row, not one per pair of rows."""
+    v = cylinder(kmt=np.linspace(6.0, 4.0, 25))
+    (f,) = [f for f in kn_found(v) if f.check == "kn-row-repeat"]
+    assert (f.severity, f.check, f.path[2:]) == (ERROR, "kn-row-repeat", (0, 1))
+    assert "every row holds the same KN" in f.why and "her KMt runs from 4 m to 6 m" in f.why
+
+
+def test_every_row_alike_off_the_circle_is_one_error():
+    """Every row 0.9·R·sinφ with KMt = R: at 90° the rows hold 4.5 m, not KMt·sin 90° = 5 m (beyond the
+    5 cm of UR L5 for cross curves, standards.md §5.3)."""
+    heels = np.arange(0.0, 91.0, 5.0)
+    v = cylinder(kn_rows=np.tile(0.9 * 5.0 * np.sin(np.radians(heels)), (25, 1)))
+    got = [f for f in kn_found(v) if f.check == "kn-row-repeat"]
+    assert len(got) == 1 and "at 90° the rows hold 4.5 m, not KMt·sinφ = 5 m" in got[0].why

@@ -231,6 +231,16 @@ row's values (found by an audit: row 4000 t typed with row 3600 t's passed unsee
 KN_REPEAT_MIN_HEELS = 3
 """...judged only on rows with at least three heels above 0° (fewer could agree by chance)."""
 
+KN_CIRCLE_KN_M = 0.05
+KN_CIRCLE_KMT = (0.01, 0.05)
+"""Every row of a KN table the same (three rows at least): no row was copied, KN does not depend on
+the displacement.  Of all sections only the circle does that: its metacentre stays at the axis at
+every draft and heel, so KN = R·sinφ and KMt = R at every draft (checks.md §2.2 [A]).  Such a table
+is accepted when it is that circle's: KMt from the hydrostatic table at each row's displacement
+within 1 % / 5 cm (the smaller) of their mean, and every KN within 5 cm of mean KMt·sinφ (UR L5 KMt
+and cross-curve tolerances, standards.md §5.3).  Otherwise one error says so (the rows typed from
+one?), not one per pair of rows (found by an audit: a cylinder's exact table drew 300 errors)."""
+
 KN_SLIP_GAIN = 20.0
 """A KN table is a smooth surface: at a fixed heel KN is a smooth function of displacement (the
 underwater body grows layer by layer), at a fixed displacement a smooth function of heel (common
@@ -1162,6 +1172,27 @@ class _Audit:
             self.add(WARNING, "cross_curves.kn_m", cp + (i, j), _f(float(kn[i, j])),
                      _lone_why(r, chord, " m", " along the displacement"), where(i, j), "kn-lone")
 
+    def kn_circle(self, heel, disp, kn) -> str | None:
+        """Why a KN table whose rows are all alike is not a circular section's, or None when it is
+        (:data:`KN_CIRCLE_KN_M`): KMt constant and KN = KMt·sinφ within the UR L5 tolerances."""
+        h = self.v.hydrostatics
+        hd = np.asarray(h.displacement_t, dtype=float)
+        d = np.asarray(disp, dtype=float)
+        inside = (d >= hd[0]) & (d <= hd[-1])
+        if not bool(np.any(inside)):
+            return "no row lies within the hydrostatic table to compare her KMt with"
+        km = np.interp(d[inside], hd, h.kmt_m)
+        mean = float(np.mean(km))
+        rel, metres = KN_CIRCLE_KMT
+        if float(np.max(np.abs(km - mean))) > min(rel * abs(mean), metres):
+            return f"her KMt runs from {_f(float(np.min(km)))} to {_f(float(np.max(km)))} over those displacements"
+        off = np.abs(np.asarray(kn, dtype=float)[0] - mean * np.sin(np.radians(np.asarray(heel, dtype=float))))
+        j = int(np.argmax(off))
+        if float(off[j]) > KN_CIRCLE_KN_M:
+            return (f"at {heel[j]:g}° the rows hold {_f(float(kn[0][j]))}, not KMt·sinφ = "
+                    f"{_f(mean * math.sin(math.radians(float(heel[j]))))} (KMt {_f(mean)})")
+        return None
+
     def box_kn_table(self, heel, disp) -> list[list[tuple[float, int, float] | None]]:
         """(KN, regime, draft) of :func:`box_kn` for a box of her breadth and depth at each KN row's draft (read from the
         hydrostatic table at the row's displacement; None beyond it) and each tabulated heel."""
@@ -1185,7 +1216,17 @@ class _Audit:
         column moved: then every cell the later tests would name is part of that slip."""
         found = False
         heeled = int(np.flatnonzero(np.asarray(heel) > 0.0)[0]) if np.any(np.asarray(heel) > 0.0) else 0
-        for copy, original in kn_repeated_rows(disp, kn, heel):
+        repeated = kn_repeated_rows(disp, kn, heel)
+        if len(disp) >= 3 and len(repeated) == len(disp) * (len(disp) - 1) // 2:
+            # Every row the same: no single row copied (KN_CIRCLE_KN_M).
+            circle = self.kn_circle(heel, disp, kn)
+            if circle is not None:
+                self.add(ERROR, "cross_curves.kn_m", cp + (0, heeled), f"{len(disp)} rows alike",
+                         "every row holds the same KN at every heel: KN independent of the displacement is the "
+                         "circular section's alone (KN = R·sinφ with KMt = R at every draft), and " + circle
+                         + " (the rows typed from one?)", "the booklet's KN cross curves table, every row", "kn-row-repeat")
+            repeated = []
+        for copy, original in repeated:
             self.add(ERROR, "cross_curves.kn_m", cp + (copy, heeled), f"row Δ {disp[copy]:.6g} t",
                      f"repeats the row at Δ {disp[original]:.6g} t at every heel: no two displacements have the "
                      "same KN at every heel (a row typed with another row's values?)",
