@@ -140,3 +140,39 @@ def test_every_row_alike_off_the_circle_is_one_error():
     v = cylinder(kn_rows=np.tile(0.9 * 5.0 * np.sin(np.radians(heels)), (25, 1)))
     got = [f for f in kn_found(v) if f.check == "kn-row-repeat"]
     assert len(got) == 1 and "at 90° the rows hold 4.5 m, not KMt·sinφ = 5 m" in got[0].why
+
+
+def test_the_tables_deckload_builds_for_a_light_box_barge_pass_its_audit(tmp_path):
+    """``deckload tables`` on the 40 × 10 × 4 m box's offsets with drafts from 0.2 m (its hydrostatics and
+    KN by direct calculation) writes a profile that ``calc`` would read: no audit error.  Before, the
+    profile it wrote was refused (KN at 0.2 m, 10°: "53 % apart" from KMt·sinφ)."""
+    from deckload.cli.main import main
+    from deckload.io.profiles import load_profile
+
+    def arr(xs):
+        return "[" + ", ".join(repr(float(x)) for x in xs) + "]"
+
+    xs, zs = [4.0 * k for k in range(11)], [0.5 * k for k in range(9)]
+    drafts = [round(0.2 + 0.2 * k, 3) for k in range(19)]
+    geo = tmp_path / "barge.geometry.toml"
+    geo.write_text("\n".join([
+        'format = "deckload-geometry-1"', "[vessel]", 'name = "Light box barge"', f"lbp_m = {L}",
+        f"breadth_m = {B}", f"depth_m = {D}", "design_draft_m = 3.0", "table_density_t_m3 = 1.025",
+        "[hull]", f"station_x_m = {arr(xs)}", f"waterline_z_m = {arr(zs)}", f"deck_z_m = {arr([D] * len(xs))}",
+        "half_breadth_m = [", *("  " + arr([B / 2] * len(zs)) + "," for _ in xs), "]",
+        "[tables]", f"draft_m = {arr(drafts)}", f"kn_displacement_t = {arr([RHO * L * B * t for t in drafts])}",
+        f"kn_heel_deg = {arr(range(0, 91, 5))}", 'trim_basis = "free trim"', f"trim_lcg_m = {L / 2}",
+        "trim_vcg_m = 3.0", "sounding_step_m = 0.1", "transfer_fill_step_pct = 5.0",
+        "[[tank]]", 'id = "T1"', 'name = "T1"', 'kind = "ballast"', "density_t_m3 = 1.025", 'shape = "box"',
+        "x_m = [10.0, 16.0]", "y_m = [-1.0, 1.0]", "z_m = [2.0, 3.0]",
+        "[lateral_profile]", f"x_m = [0.0, {L}, {L}, 0.0]", f"z_m = [0.0, 0.0, {D}, {D}]", ""]), encoding="utf-8")
+    prof = tmp_path / "barge.toml"
+    prof.write_text("\n".join([
+        'format = "deckload-profile-1"', 'load_line = [ { name = "summer", draft_m = 3.0 } ]', "[vessel]",
+        'name = "Light box barge"', f"lbp_m = {L}", f"breadth_m = {B}", f"depth_m = {D}", "design_draft_m = 3.0",
+        "table_density_t_m3 = 1.025", 'longitudinal_datum = "AP"', "[lightship]", "mass_t = 80.0",
+        "lcg_m = 20.0", "vcg_m = 2.5", "tcg_m = 0.0", "[criteria]", 'ship_type = "general"', ""]), encoding="utf-8")
+    assert main(["tables", str(geo), "-o", str(prof)]) == 0
+    v = load_profile(prof)
+    assert float(v.cross_curves.displacement_t[0]) == pytest.approx(RHO * L * B * 0.2, rel=1e-3)
+    assert [f.text() for f in audit(v) if f.severity == ERROR] == []
