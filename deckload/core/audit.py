@@ -579,7 +579,9 @@ def kn_kmt_allowance(box, breadth_m: float, heel_deg: float) -> tuple[float, str
     than D or further out than B/2), and lifts a bottom at the keel out of the water when
     T − (B/2)·tanφ = 0 (no bottom lies lower than the keel or further out than B/2); a box meets
     both corners at exactly those angles, min(atan(2T/B), atan(2(D − T)/B)), so it is the hull of
-    that breadth and depth whose waterplane changes earliest, and abruptly (hard corners).  Past
+    that breadth and depth whose waterplane changes earliest at a hard corner, and most abruptly.
+    (A rising floor or a chine just under the waterline meets the water sooner, but at a slope, so
+    KN bends gradually there: what the 5 %/10 % tolerances were set for, as before.)  Past
     that angle KN departs from KMt·sinφ by what the lost or gained waterplane gives; the box's own
     departure, |KN_box/(KMt_box·sinφ) − 1| with KMt_box = T/2 + B²/(12T) (checks.md §1.1, KN_box by
     :func:`box_kn`, checks.md §1.2 [A]), is the allowance: at light draft a flat-bottomed barge's
