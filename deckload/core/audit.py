@@ -231,6 +231,16 @@ row's values (found by an audit: row 4000 t typed with row 3600 t's passed unsee
 KN_REPEAT_MIN_HEELS = 3
 """...judged only on rows with at least three heels above 0° (fewer could agree by chance)."""
 
+KN_CIRCLE_KN_M = 0.05
+KN_CIRCLE_KMT = (0.01, 0.05)
+"""Every row of a KN table the same (three rows at least): no row was copied, KN does not depend on
+the displacement.  Of all sections only the circle does that: its metacentre stays at the axis at
+every draft and heel, so KN = R·sinφ and KMt = R at every draft (checks.md §2.2 [A]).  Such a table
+is accepted when it is that circle's: KMt from the hydrostatic table at each row's displacement
+within 1 % / 5 cm (the smaller) of their mean, and every KN within 5 cm of mean KMt·sinφ (UR L5 KMt
+and cross-curve tolerances, standards.md §5.3).  Otherwise one error says so (the rows typed from
+one?), not one per pair of rows (found by an audit: a cylinder's exact table drew 300 errors)."""
+
 KN_SLIP_GAIN = 20.0
 """A KN table is a smooth surface: at a fixed heel KN is a smooth function of displacement (the
 underwater body grows layer by layer), at a fixed displacement a smooth function of heel (common
@@ -503,6 +513,104 @@ def kn_shifted_column(heel, kn) -> tuple[int, int, float, float] | None:
             if rms > KN_SLIP_FLOOR_M and gain >= KN_SLIP_GAIN and (best is None or gain > best[2]):
                 best = (j, step, gain, rms)
     return best
+
+
+def box_kn(breadth_m: float, depth_m: float, draft_m: float, heel_deg: float) -> tuple[float, int] | None:
+    """KN of a box section (breadth B, depth D, upright draft T) heeled φ, and which of its four
+    waterline regimes holds: (KN, regime), or None for a draft not inside the box.
+
+    Closed forms of checks.md §1.2 [A] (t = tanφ, area A = B·T, the waterline z = z0 + y·t in body
+    axes, heel to starboard; KN = y_B·cosφ + z_B·sinφ):
+    1. wall-sided (waterline cuts both sides: T − t·B/2 ≥ 0, T + t·B/2 ≤ D):
+       y_B = B²t/(12T), z_B = T/2 + B²t²/(24T);
+    2. bilge emerged, deck dry: the submerged triangle of legs a = √(2A/t) ≤ B along the bottom and
+       c = a·t ≤ D up the side: y_B = B/2 − a/3, z_B = c/3;
+    3. deck edge immersed, bilge wet: case 2 for the dry triangle at the high deck corner (area
+       E = B·D − A): B = [B·D·(0, D/2) − E·e]/A, e the dry triangle's centroid;
+    4. waterline cuts deck and bottom: z0 = D/2 + t(A/D − B/2); the submerged part is the rectangle
+       [y_d, B/2]×[0, D] and the triangle (y_b, 0), (y_d, 0), (y_d, D), y_b = −z0/t, y_d = (D − z0)/t.
+    Exactly one regime's conditions hold at any heel (the submerged area grows with z0), so the
+    first whose own conditions hold is the one.  At 90° the box lies on its side: KN = z_B = D/2.
+    """
+    B, D, T = float(breadth_m), float(depth_m), float(draft_m)
+    if not (B > 0.0 and 0.0 < T < D and math.isfinite(T) and math.isfinite(D)):
+        return None
+    phi = math.radians(float(heel_deg))
+    if phi <= 0.0:
+        return 0.0, 1
+    if phi >= math.pi / 2 - 1e-9:
+        return D / 2.0, 4
+    s, c, t = math.sin(phi), math.cos(phi), math.tan(phi)
+    A = B * T
+    if T - t * B / 2.0 >= 0.0 and T + t * B / 2.0 <= D:
+        y, z, regime = B * B * t / (12.0 * T), T / 2.0 + B * B * t * t / (24.0 * T), 1
+    else:
+        a = math.sqrt(2.0 * A / t)
+        e_area = B * D - A
+        a3 = math.sqrt(2.0 * e_area / t)
+        if a <= B and a * t <= D:
+            y, z, regime = B / 2.0 - a / 3.0, a * t / 3.0, 2
+        elif a3 <= B and a3 * t <= D:
+            ey, ez = -B / 2.0 + a3 / 3.0, D - a3 * t / 3.0
+            y, z, regime = (-e_area * ey) / A, (B * D * D / 2.0 - e_area * ez) / A, 3
+        else:
+            z0 = D / 2.0 + t * (A / D - B / 2.0)
+            yb, yd = -z0 / t, (D - z0) / t
+            r_area, t_area = (B / 2.0 - yd) * D, (yd - yb) * D / 2.0
+            y = (r_area * (yd + B / 2.0) / 2.0 + t_area * (yb + 2.0 * yd) / 3.0) / A
+            z = (r_area * D / 2.0 + t_area * D / 3.0) / A
+            regime = 4
+    return y * c + z * s, regime
+
+
+BOX_REGIME_WORDS = {2: "its bilge out of the water", 3: "its deck edge in the water",
+                    4: "its bilge out of the water and deck edge in it"}
+
+
+def kn_kmt_allowance(box, breadth_m: float, heel_deg: float) -> tuple[float, str]:
+    """(allowance, what happened to the box) added to both tolerances of KN against KMt·sinφ at a
+    heel where the waterplane of a box of her breadth B and depth D at the row's draft T has already
+    changed, or (0, "") where it has not.
+
+    KN = KMt·sinφ (to within BMt·tan²φ/2·sinφ, the wall-sided formula, standards.md §6) holds only
+    while the waterline cuts the same two sides it cuts upright.  A hull of breadth B and depth D
+    floating at T, its waterline pivoting about the centreline (the centre of a symmetric
+    waterplane), first meets its deck at the side when T + (B/2)·tanφ = D (no deck edge lies lower
+    than D or further out than B/2), and lifts a bottom at the keel out of the water when
+    T − (B/2)·tanφ = 0 (no bottom lies lower than the keel or further out than B/2); a box meets
+    both corners at exactly those angles, min(atan(2T/B), atan(2(D − T)/B)), so it is the hull of
+    that breadth and depth whose waterplane changes earliest at a hard corner, and most abruptly.
+    (A rising floor or a chine just under the waterline meets the water sooner, but at a slope, so
+    KN bends gradually there: what the 5 %/10 % tolerances were set for, as before.)  Past
+    that angle KN departs from KMt·sinφ by what the lost or gained waterplane gives; the box's own
+    departure, |KN_box/(KMt_box·sinφ) − 1| with KMt_box = T/2 + B²/(12T) (checks.md §1.1, KN_box by
+    :func:`box_kn`, checks.md §1.2 [A]), is the allowance: at light draft a flat-bottomed barge's
+    bilge emerges at 2–4° and its KN falls to half of KMt·sinφ by 10° (found by an audit: a box
+    barge's exact KN with drafts from 0.2 m were refused).  Below that angle nothing is added:
+    every slip the check was made for is judged as before."""
+    if box is None or box[1] == 1:
+        return 0.0, ""
+    kn_box, regime, t = box
+    km_box = t / 2.0 + breadth_m * breadth_m / (12.0 * t)
+    return abs(kn_box / (km_box * math.sin(math.radians(float(heel_deg)))) - 1.0), BOX_REGIME_WORDS[regime]
+
+
+def kn_bend_allowance(boxes, w: float) -> float:
+    """The allowance (metres) of a KN cell against the line through its two neighbours: the box's
+    own departure from its line, |KN_box,j − (KN_box,j−1 + w·(KN_box,j+1 − KN_box,j−1))|, where the
+    box of her breadth and depth (:meth:`_Audit.box_kn_table`) changes waterline regime between the
+    two neighbours (bilge emerging, deck edge immersing: a kink of the curve), else 0.
+
+    ``boxes`` holds the three (KN, regime, draft) of the cell and its neighbours, along the heel or
+    along the displacement, ``w`` the cell's weight in the line.  A kink between neighbours bends
+    the line through them by as much as the kink turns; a box, the hull whose waterplane changes
+    earliest and most abruptly at her breadth and depth (:func:`kn_kmt_allowance`), bends most.  At
+    light draft its bilge emerges between 0° and 10° and its KN at 5° stands 60 % above the line
+    through 0° and 10° (checks.md §1.2 closed forms, :func:`box_kn`)."""
+    if any(b is None for b in boxes) or len({b[1] for b in boxes}) == 1:
+        return 0.0
+    a, m, c = (b[0] for b in boxes)
+    return abs(m - (a + w * (c - a)))
 
 
 def _lone_floor(name: str):
@@ -970,6 +1078,7 @@ class _Audit:
 
         # Small heel against KMt from the hydrostatic table at the same displacement.
         hd = h.displacement_t
+        box = self.box_kn_table(heel, disp)
         done = False
         for i in range(len(disp)):
             if done or not hd[0] <= disp[i] <= hd[-1]:
@@ -981,14 +1090,18 @@ class _Audit:
                 ratio = float(kn[i, j]) / (km * math.sin(math.radians(float(heel[j]))))
                 tol = KN_SMALL_ANGLE[5.0] if heel[j] <= 5.0 else KN_SMALL_ANGLE[10.0]
                 off = abs(ratio - 1.0)
-                sev = ERROR if off > KN_SMALL_ANGLE_ERROR else WARNING if off > tol else None
+                allow, past = kn_kmt_allowance(box[i][j], self.B, heel[j])
+                sev = (ERROR if off > KN_SMALL_ANGLE_ERROR + allow else WARNING if off > tol + allow else None)
                 if sev == WARNING and i in unreached:
                     continue
                 if sev:
                     self.add(sev, "cross_curves.kn_m", cp + (i, j), _f(float(kn[i, j])),
                              f"at small heel KN ≈ KMt·sinφ = {_f(km * math.sin(math.radians(float(heel[j]))))} "
                              f"(KMt {_f(km)} from the hydrostatic table): {off:.0%} apart"
-                             + ("" if sev == ERROR else " (deck edge immersing or bilge emerging before this angle?)"), where(i, j), "kn-kmt")
+                             + (f", beyond the {allow:.0%} a box of her breadth and depth departs here ({past})"
+                                if allow > 0.0 else "")
+                             + ("" if sev == ERROR or allow > 0.0 else
+                                " (deck edge immersing or bilge emerging before this angle?)"), where(i, j), "kn-kmt")
                     done = True
                     break
 
@@ -997,14 +1110,19 @@ class _Audit:
 
         # Isolated outliers: an inner value far from the line between its neighbours, along
         # heel and along displacement.
-        def resid(xs, ys, j):
-            """(|value − line through its neighbours|, that as a fraction of the line's value)."""
+        def resid(xs, ys, j, boxes):
+            """(|value − line through its neighbours|, that as a fraction of the line's value, the
+            allowance added to both :data:`KN_OUTLIER` fractions for a box's bend b there, as a
+            fraction alike (:func:`kn_bend_allowance`): max(0, 2·b − 20 %), nothing while the box bends
+            by 10 % or less (within what KN_OUTLIER was set for), the cell allowed twice the box's
+            bend from 20 % up (continuous in b; a decimal slip is still 90 % beyond that))."""
             if j <= 0 or j >= len(xs) - 1:
                 return None
             w = (xs[j] - xs[j - 1]) / (xs[j + 1] - xs[j - 1])
             line = ys[j - 1] + w * (ys[j + 1] - ys[j - 1])
             scale = max(abs(line), 0.05 * bound)  # near 0° the line is near zero: judge against 5 % of the envelope
-            return abs(ys[j] - line), abs(ys[j] - line) / scale
+            bend = kn_bend_allowance(boxes[j - 1:j + 2], w) / scale
+            return abs(ys[j] - line), abs(ys[j] - line) / scale, max(0.0, 2.0 * bend - KN_OUTLIER[0])
 
         # A single slipped value also bends the lines through its neighbours (by half as much
         # at even spacing), so the value judged is the one that departs most in metres.
@@ -1012,22 +1130,25 @@ class _Audit:
         worst = None
         for i in range(len(disp)):
             for j in range(1, len(heel)):
-                both = [r for r in (resid(heel, kn[i, :], j), resid(disp, kn[:, j], i)) if r is not None]
+                both = [r for r in (resid(heel, kn[i, :], j, box[i]), resid(disp, kn[:, j], i, [b[j] for b in box]))
+                        if r is not None]
                 if not both:
                     continue
                 metres = min(r[0] for r in both)
-                frac = min(r[1] for r in both)
-                if i in unreached and frac <= el:
+                frac, allow = min(((r[1], r[2]) for r in both), key=lambda fa: fa[0] - fa[1])
+                if i in unreached and frac - allow <= el:
                     continue  # a doubt in a row no condition reads
-                if frac > wl and (worst is None or metres > worst[0]):
-                    worst = (metres, frac, i, j, len(both))
+                if frac - allow > wl and (worst is None or metres > worst[0]):
+                    worst = (metres, frac, allow, i, j, len(both))
         if worst is not None:
-            _, frac, i, j, n = worst
-            sev = ERROR if frac > el else WARNING
+            _, frac, allow, i, j, n = worst
+            sev = ERROR if frac - allow > el else WARNING
             along = "heel and displacement" if n == 2 else "heel" if 0 < j < len(heel) - 1 else "displacement"
             self.add(sev, "cross_curves.kn_m", cp + (i, j), _f(float(kn[i, j])),
                      f"stands out of a smooth curve: {frac:.0%} away from the line through its neighbours along "
-                     f"{along} (a shifted decimal point or a transposed digit?)", where(i, j), "kn-outlier")
+                     f"{along} (a shifted decimal point or a transposed digit?)"
+                     + (f"; more than twice the {(allow + wl) / 2:.0%} a box of her breadth and depth bends there"
+                        if allow > 0.0 else ""), where(i, j), "kn-outlier")
             return  # the lone-cell test below would name the same cell again
 
         # A lone mistyped cell along the heel (in each displacement's row) and along the
@@ -1053,6 +1174,42 @@ class _Audit:
             self.add(WARNING, "cross_curves.kn_m", cp + (i, j), _f(float(kn[i, j])),
                      _lone_why(r, chord, " m", " along the displacement"), where(i, j), "kn-lone")
 
+    def kn_circle(self, heel, disp, kn) -> str | None:
+        """Why a KN table whose rows are all alike is not a circular section's, or None when it is
+        (:data:`KN_CIRCLE_KN_M`): KMt constant and KN = KMt·sinφ within the UR L5 tolerances."""
+        h = self.v.hydrostatics
+        hd = np.asarray(h.displacement_t, dtype=float)
+        d = np.asarray(disp, dtype=float)
+        inside = (d >= hd[0]) & (d <= hd[-1])
+        if not bool(np.any(inside)):
+            return "no row lies within the hydrostatic table to compare her KMt with"
+        km = np.interp(d[inside], hd, h.kmt_m)
+        mean = float(np.mean(km))
+        rel, metres = KN_CIRCLE_KMT
+        if float(np.max(np.abs(km - mean))) > min(rel * abs(mean), metres):
+            return f"her KMt runs from {_f(float(np.min(km)))} to {_f(float(np.max(km)))} over those displacements"
+        off = np.abs(np.asarray(kn, dtype=float)[0] - mean * np.sin(np.radians(np.asarray(heel, dtype=float))))
+        j = int(np.argmax(off))
+        if float(off[j]) > KN_CIRCLE_KN_M:
+            return (f"at {heel[j]:g}° the rows hold {_f(float(kn[0][j]))}, not KMt·sinφ = "
+                    f"{_f(mean * math.sin(math.radians(float(heel[j]))))} (KMt {_f(mean)})")
+        return None
+
+    def box_kn_table(self, heel, disp) -> list[list[tuple[float, int, float] | None]]:
+        """(KN, regime, draft) of :func:`box_kn` for a box of her breadth and depth at each KN row's draft (read from the
+        hydrostatic table at the row's displacement; None beyond it) and each tabulated heel."""
+        h = self.v.hydrostatics
+        hd = np.asarray(h.displacement_t, dtype=float)
+        out = []
+        for d in np.asarray(disp, dtype=float):
+            if not hd[0] <= d <= hd[-1]:
+                out.append([None] * len(heel))
+                continue
+            t = float(np.interp(d, hd, h.draft_m))
+            out.append([None if b is None else (b[0], b[1], t)
+                        for b in (box_kn(self.B, self.D, t, float(x)) for x in heel)])
+        return out
+
     def kn_slips(self, heel, disp, kn, cp, where) -> bool:
         """Whole rows or columns of the KN table typed in the wrong place: a row repeating another
         row, two rows' values exchanged, a heel's column moved one displacement row down or up.
@@ -1061,7 +1218,17 @@ class _Audit:
         column moved: then every cell the later tests would name is part of that slip."""
         found = False
         heeled = int(np.flatnonzero(np.asarray(heel) > 0.0)[0]) if np.any(np.asarray(heel) > 0.0) else 0
-        for copy, original in kn_repeated_rows(disp, kn, heel):
+        repeated = kn_repeated_rows(disp, kn, heel)
+        if len(disp) >= 3 and len(repeated) == len(disp) * (len(disp) - 1) // 2:
+            # Every row the same: no single row copied (KN_CIRCLE_KN_M).
+            circle = self.kn_circle(heel, disp, kn)
+            if circle is not None:
+                self.add(ERROR, "cross_curves.kn_m", cp + (0, heeled), f"{len(disp)} rows alike",
+                         "every row holds the same KN at every heel: KN independent of the displacement is the "
+                         "circular section's alone (KN = R·sinφ with KMt = R at every draft), and " + circle
+                         + " (the rows typed from one?)", "the booklet's KN cross curves table, every row", "kn-row-repeat")
+            repeated = []
+        for copy, original in repeated:
             self.add(ERROR, "cross_curves.kn_m", cp + (copy, heeled), f"row Δ {disp[copy]:.6g} t",
                      f"repeats the row at Δ {disp[original]:.6g} t at every heel: no two displacements have the "
                      "same KN at every heel (a row typed with another row's values?)",
