@@ -154,3 +154,42 @@ def test_gz_tolerance_refuses_where_kn_tolerance_alone_would_not(built):
     assert coverage(v, 2.2, DISP).startswith("trim 2.20 m by the stern is outside the trims tabulated")
     with pytest.raises(TrimBeyondTablesError, match=r"GZ at \d+° would be off by about .* 5 % of GZ"):
         coverage(v, 2.2, DISP, 3.9)
+
+
+
+
+def test_with_two_tables_only_nothing_beyond_tolerance_is_judged(tmp_path):
+    """Tables at even keel and +1 m only (``--trims=1``): no third table shows the rate growing, and
+    the bound takes the quantity as quadratic in trim with no slope at even keel, e·|r|·(2 + e/w)
+    (derived in ``held_error_bound``).  Swept over trims 1.02–2.0 m by the stern and KG 2.0, 3.0,
+    3.9 m: wherever the builder's own KN at her trim (the same code that made the tables: the true
+    error of holding the +1 m table) differs from the held table by more than the GZ tolerance at some
+    heel 5°–50° (standards.md §5.3), the condition is refused.  The last interval's rate alone, the
+    former bound, judged such conditions (KG 2 m at 1.70 m by the stern: held KN at 25° off by more
+    than 5 % of GZ, estimated under it)."""
+    geo, out = tmp_path / "box.geometry.toml", tmp_path / "box.toml"
+    geo.write_text(_geometry(), encoding="utf-8")
+    assert main(["tables", str(geo), "--trims=1", "-o", str(out)]) == 0
+    out.write_text(out.read_text(encoding="utf-8") + f"\n[lightship]\nmass_t = {DISP}\nlcg_m = 20.0\nvcg_m = {KG}\n"
+                   "tcg_m = 0.0\n", encoding="utf-8")
+    v = load_profile(out)
+    assert [float(x) for x in v.trimmed.kn_trim_m] == [0.0, 1.0]
+    body = hull_body(load_geometry(geo))
+    heels = np.arange(5.0, 51.0, 5.0)
+
+    def kn(trim: float) -> np.ndarray:
+        return kn_at_trim(body, np.array([DISP]), heels, trim, RHO, L).kn_m[0]
+
+    k0, k1 = kn(0.0), kn(1.0)
+    for kg in (2.0, 3.0, 3.9):
+        tol = np.array([gz_tolerance_m(g) for g in k1 - kg * np.sin(np.radians(heels))])
+        for t in np.arange(1.02, 2.001, 0.08):
+            over = np.abs(kn(float(t)) - k1) > tol
+            if over.any():
+                with pytest.raises(TrimBeyondTablesError):
+                    coverage(v, float(t), DISP, kg)
+    # the defect: at KG 2 m, 1.70 m by the stern, the rate alone is under the tolerance at 25° while
+    # the true error is over it
+    k25 = list(heels).index(25.0)
+    tol25 = gz_tolerance_m(k1[k25] - 2.0 * math.sin(math.radians(25.0)))
+    assert abs(k1[k25] - k0[k25]) * 0.7 < tol25 < abs(kn(1.7)[k25] - k1[k25])

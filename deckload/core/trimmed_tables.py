@@ -39,7 +39,8 @@ would exceed tolerance: the end table's values are held beyond the end, so their
 grows as (trim beyond the end) × (their rate of change with trim over the last tabulated
 interval).  The mean draft and KMt (UR L5: 1 % / 5 cm, standards.md §5.3) at the displacement
 are estimated so; KN, whose change with trim grows with trim (deck edge and bilge), by
-:func:`held_error_bound`, that rate plus its change over the last three tables, at every
+:func:`held_error_bound`, that rate plus its change over the last three tables (with two
+tables, a change as large as the rate itself), at every
 tabulated heel against 5 cm, and against GZ's 5 % / 5 cm (GZ = KN − KG fluid·sinφ) at every
 heel to :data:`GZ_JUDGED_TO_DEG`; when any estimate exceeds its tolerance, or the trim
 lies beyond the end by more than the last interval's width (beyond that the rate itself is
@@ -316,14 +317,17 @@ def held_error_bound(end: np.ndarray, nb: np.ndarray, nb2: np.ndarray | None, w:
     absolute values, never lets a change of rate cancel the rate.  The last interval's rate alone
     (the former estimate) misses the growth of KN's change with trim: on a box at
     2.47 m beyond tables to 2 m it estimated 4.0 cm at 30° where the exact error is 5.3 cm.  With
-    two tables only, no change of rate is known and the bound is e·|r|.
+    two tables only no change of rate is known, and M is taken as 2·|r|/w: the quantity quadratic in
+    trim with no slope at the inner table (f = f_nb + c·(t − t_nb)², whose secant over the interval
+    is c·w and whose slope at its end is twice that), so the bound is e·|r|·(2 + e/w).  A box's KN
+    is close to that about even keel (its rate over +1…+2 m is 1.95 times that over +0.5…+1 m, where
+    c·t² gives 2): with tables at 0 and +1 m and a trim of 1.47 m, c·t² errs by c·(1.47² − 1) =
+    1.16·c, the bound gives 0.47·c·2.47 = 1.16·c, the rate alone 0.47·c.
     """
     r = (end - nb) / w
     est = np.abs(r) * e
-    if nb2 is not None:
-        m = np.abs(r - (nb - nb2) / w2) / ((w + w2) / 2.0)
-        est = est + m * e * (w + e) / 2.0
-    return est
+    m = np.abs(r - (nb - nb2) / w2) / ((w + w2) / 2.0) if nb2 is not None else 2.0 * np.abs(r) / w
+    return est + m * e * (w + e) / 2.0
 
 
 def _worst_error(vessel: Vessel, tt: TrimmedTables, what: str, end: int, nb: int, d_eq: float,
