@@ -392,3 +392,21 @@ def test_the_pages_relations_allow_the_rounding_of_the_decimals_typed():
     assert not disagreements({"kg_m": 3.158, "fsm_tm": 11.6, "displacement_t": 218.3, "kg_fluid_m": 3.211})
     (d,) = disagreements({"kg_m": 3.158, "fsm_tm": 11.6, "displacement_t": 218.3, "kg_fluid_m": 3.238})
     assert d.keys == ("kg_fluid_m", "kg_m", "fsm_tm", "displacement_t")
+
+
+def test_an_lcg_typed_from_midships_without_its_datum_gets_a_hint(tmp_path, capsys):
+    """The page prints LCG from midships; typed as printed without longitudinal_datum in
+    [booklet_condition.expected] it is read from the AP and fails by about LBP/2.  check names the
+    convention that agrees: −0.5 m + forward (or +0.5 m + aft) from midships is 19.5 m from the AP,
+    the condition's LCG (x_AP = LBP/2 + s·x, vessel_profiles/README.md "Longitudinal positions").
+    A number wrong in every convention gets no hint."""
+    for typed, positive in ((-0.5, "forward"), (0.5, "aft")):
+        f = profile(tmp_path, inline("Worked condition", booklet_values(lcg_m=typed)))
+        assert run_check(f) == 1
+        out = capsys.readouterr().out
+        assert (f"hint: lcg_m {typed:g} read from midships, + {positive}, would be 19.5 m from the AP, within "
+                "tolerance;") in out.replace("\n      ", " ")
+        assert f'longitudinal_datum = "midships", longitudinal_positive = "{positive}"' in out.replace("\n      ", " ")
+    f = profile(tmp_path, inline("Worked condition", booklet_values(lcg_m=25.0)))
+    assert run_check(f) == 1
+    assert "hint:" not in capsys.readouterr().out

@@ -252,6 +252,11 @@ def _booklet(path: Path, vessel: m.Vessel, cases) -> int:
             verdict = "pass" if r.passed else "FAIL" + (f": {r.note}" if r.note else "")
             print(f"    {label:<27} {_cell(r.booklet):>9} {got:>9} {diff:>10} {allowed:>13}  {r.tolerance:<38} {verdict}")
         failed = [r for r in rows if not r.passed]
+        for r in failed:
+            hint = _datum_hint(r, case.expected, vessel.particulars.lbp_m)
+            if hint:
+                print(textwrap.fill(hint, NOTE_WIDTH, initial_indent="    hint: ", subsequent_indent="      ",
+                                    break_on_hyphens=False))
         if failed:
             print(f"    FAIL: {_plural(len(failed), 'row')} outside tolerance: " + ", ".join(r.label for r in failed))
         if own:
@@ -263,6 +268,28 @@ def _booklet(path: Path, vessel: m.Vessel, cases) -> int:
     print(f"booklet conditions: {passed} of {len(cases)} within the MSC.1/Circ.1229 / IACS UR L5 tolerances "
           "(standards.md §5.3)")
     return 0 if passed == len(cases) else 1
+
+
+def _datum_hint(row, expected: dict, lbp_m: float) -> str | None:
+    """For a worked condition's LCG outside tolerance: the longitudinal convention in which the number
+    as typed would agree with deckload, when it is not the one it was read in.  The expected values
+    are read from the AP, + forward, unless ``[booklet_condition.expected]`` states its own datum
+    (not the ``[vessel]``'s): a page printed from midships, typed as printed without the keys, fails
+    by about LBP/2 and says nothing of why (found by a booklet-conventions audit)."""
+    from deckload.core.booklet import within
+    from deckload.io.conventions import DATUMS, Frame
+
+    typed = expected.get("as_typed", {}).get(row.key)
+    if row.key != "lcg_m" or row.deckload is None or typed is None:
+        return None
+    for datum in DATUMS:
+        for positive in ("forward", "aft"):
+            x = Frame(lbp_m, datum, positive).x_to_ap(float(typed))
+            if abs(x - row.booklet) > 1e-9 and within(row.deckload, x, row.allowed):
+                return (f"{row.key} {typed:g} read from {datum}, + {positive}, would be {x:.4g} m from the AP, "
+                        "within tolerance; [booklet_condition.expected] is read from the AP, + forward, unless "
+                        f"it states its own: longitudinal_datum = \"{datum}\", longitudinal_positive = \"{positive}\"")
+    return None
 
 
 def _check_condition(path: Path, vessel: m.Vessel) -> int:
