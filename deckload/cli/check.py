@@ -253,7 +253,7 @@ def _booklet(path: Path, vessel: m.Vessel, cases) -> int:
             print(f"    {label:<27} {_cell(r.booklet):>9} {got:>9} {diff:>10} {allowed:>13}  {r.tolerance:<38} {verdict}")
         failed = [r for r in rows if not r.passed]
         for r in failed:
-            hint = _datum_hint(r, case.expected, vessel.particulars.lbp_m)
+            hint = _datum_hint(r, case.expected, vessel.particulars)
             if hint:
                 print(textwrap.fill(hint, NOTE_WIDTH, initial_indent="    hint: ", subsequent_indent="      ",
                                     break_on_hyphens=False))
@@ -270,22 +270,23 @@ def _booklet(path: Path, vessel: m.Vessel, cases) -> int:
     return 0 if passed == len(cases) else 1
 
 
-def _datum_hint(row, expected: dict, lbp_m: float) -> str | None:
+def _datum_hint(row, expected: dict, p: m.Particulars) -> str | None:
     """For a worked condition's LCG outside tolerance: the longitudinal convention in which the number
     as typed would agree with deckload, when it is not the one it was read in.  The expected values
     are read from the AP, + forward, unless ``[booklet_condition.expected]`` states its own datum
     (not the ``[vessel]``'s): a page printed from midships, typed as printed without the keys, fails
     by about LBP/2 and says nothing of why (found by a booklet-conventions audit)."""
-    from deckload.core.booklet import within
+    from deckload.core.booklet import QUANTITIES, within
     from deckload.io.conventions import DATUMS, Frame
 
     typed = expected.get("as_typed", {}).get(row.key)
     if row.key != "lcg_m" or row.deckload is None or typed is None:
         return None
+    tolerance = QUANTITIES[row.key][2]
     for datum in DATUMS:
         for positive in ("forward", "aft"):
-            x = Frame(lbp_m, datum, positive).x_to_ap(float(typed))
-            if abs(x - row.booklet) > 1e-9 and within(row.deckload, x, row.allowed):
+            x = Frame(p.lbp_m, datum, positive).x_to_ap(float(typed))
+            if abs(x - row.booklet) > 1e-9 and within(row.deckload, x, tolerance.allowed(x, p.breadth_m)):
                 return (f"{row.key} {typed:g} read from {datum}, + {positive}, would be {x:.4g} m from the AP, "
                         "within tolerance; [booklet_condition.expected] is read from the AP, + forward, unless "
                         f"it states its own: longitudinal_datum = \"{datum}\", longitudinal_positive = \"{positive}\"")
