@@ -71,3 +71,13 @@ def test_an_entry_typed_twice_is_a_caution_and_two_alike_only_by_name_are_not():
         ("two constants “Crew” alike in every field (1.2 t at the same place): both are counted; entered twice?",
          "caution")]
     assert r.displacement_t == pytest.approx(evaluate(v, c).displacement_t + 2 * 1.2 + 2 * 5.0)
+
+
+def test_a_criterion_failed_by_less_than_the_printed_decimals_says_by_how_much():
+    """GM fluid 0.15 m less 1e-5 m against IS 2008 A 2.2.4's 0.15 m: it fails (beyond round-off), and
+    the warning writes value and limit to as many digits as tell them apart, never "0.150 against
+    0.150"."""
+    v, c = barge_at(2.0, 1.0 + 100.0 / 24.0 - 0.15 + 1e-5)
+    r = evaluate(v, c)
+    gm = next(w for w in r.warnings if w.code == "criterion-failed" and "GM" in w.message)
+    assert "0.14999 m against 0.15 (" in gm.message, gm.message
