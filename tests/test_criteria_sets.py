@@ -14,7 +14,7 @@ import math
 import pytest
 
 from deckload.core.criteria import osv_area_limit_mrad
-from deckload.core.model import Condition, CriteriaSettings, PassengerData, Windage, frozen_array
+from deckload.core.model import Condition, CriteriaSettings, MassItem, PassengerData, Windage, frozen_array
 from deckload.core.stability import evaluate
 from deckload.core.verdict import crowding_tcg_m
 from deckload.io.profiles import parse_profile
@@ -403,3 +403,21 @@ def test_deck_item_windage_keys_come_as_a_pair_and_round_trip():
     with pytest.raises(ProfileError) as ei:
         parse_condition(head + item.replace("= 6.3", "= 80.0"), "c.toml", v)
     assert "up to depth + 30 m" in ei.value.problems[0].rule
+
+
+def test_a_crowd_judged_without_its_mass_in_the_condition_is_cautioned():
+    """[passengers] serves only the crowding heel (vessel_profiles/README.md): their mass must be in
+    the condition.  With no constant or deck item named for them the caution says so (a criteria-set
+    audit found A 3.1 Met at 7.8° without them, NOT MET at 10.2° with them aboard); named
+    'Passengers' (any case, or 'pax', 'persons') it is not said."""
+    pax = PassengerData(count=700, mass_per_person_t=0.075, standing_area_m2=200.0, standing_tcg_m=4.0,
+                        service_speed_kn=12.0)
+    r = box(40.0, 10.0, 6.0, 3.0, 3.5, CriteriaSettings(ship_type="passenger", sharp_bilged=True), passengers=pax)
+    (w,) = [w for w in r.warnings if w.code == "passengers-not-entered"]
+    assert w.severity == "caution" and "700 passengers (52.5 t)" in w.message
+    v = box_vessel(length_m=40.0, breadth_m=10.0, depth_m=6.0, drafts_m=[2.0, 3.0, 3.5], lightship_t=1177.5,
+                   lightship_kg_m=3.5, heel_step_deg=1.0, criteria=CriteriaSettings(ship_type="passenger"))
+    v = dataclasses.replace(v, passengers=pax)
+    for name in ("Passengers", "700 PAX", "Persons on board"):
+        c = Condition(name="laden", constants=(MassItem(name, 52.5, 20.0, 7.0),))
+        assert not [w for w in evaluate(v, c).warnings if w.code == "passengers-not-entered"], name

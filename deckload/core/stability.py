@@ -29,6 +29,7 @@ works travel in its output's ``notes`` and are gathered by the last stage.
 from __future__ import annotations
 
 import math
+import re
 from dataclasses import replace
 from functools import lru_cache
 
@@ -485,6 +486,10 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
                       tuple(criteria), verdict, deck_edge, tuple(notes))
 
 
+PASSENGER_WORDS = re.compile(r"passeng|\bpax\b|persons|people", re.IGNORECASE)
+"""A constant or deck item whose name says it holds the passengers (any case): "Passengers",
+"120 pax", "Persons on board and effects"."""
+
 LOLL_EITHER_SIDE_TCG_M = 1e-6
 """A TCG within a micrometre of the centreline (round-off of the weight sums) leaves the side of a
 loll undetermined: she may lie over to either side."""
@@ -523,6 +528,16 @@ def stage_warnings(vessel: Vessel, condition: Condition, weights: Weights, fs: F
         # No number stands for the list here: the heel lies beyond the last angle the tables know.
         state.append(Warning("no-equilibrium", f"GZ never becomes positive heeling to {curve.side} up to "
                              f"{curve.heel_deg[-1]:g}°: no position of equilibrium", "danger"))
+    pax = vessel.passengers
+    if pax is not None and not any(PASSENGER_WORDS.search(it.name) for it in weights.items if it.group != "lightship"):
+        # [passengers] serves the crowding heel only (vessel_profiles/README.md): their mass is the
+        # condition's to carry, and a crowd judged without it reads Met where the laden ship fails
+        # (found by a criteria-set audit: 10.2° with 7.5 t of passengers aboard, 7.8° without).
+        notes.append(Warning("passengers-not-entered",
+                             f"no constant or deck item is named for the {pax.count} passengers "
+                             f"({pax.count * pax.mass_per_person_t:.1f} t) whose crowding IS 2008 A 3.1 judges: "
+                             "unless entered under another name, their mass is missing from Δ, KG and the "
+                             "drafts (enter them named 'passengers')", "caution"))
     if fs.rule == "actual":
         notes.append(Warning("fs-rule-actual",
                              "free surface at actual levels (IS 2008 B 3.1.6): the B 3.1.3–3.1.4 allowance "
