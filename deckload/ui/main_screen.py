@@ -199,32 +199,32 @@ class LoadingScreen(Screen[None]):
 
     def _title_text(self, level: int, name: str | None) -> Text:
         s, j = self.session, self.session.journal
-        t = Text(" deckload │ " if level < 1 else " ", P["title"])
-        t.append(f"{s.vessel.particulars.name} │ {name or s.condition.name}", P["value"])
+        t = []  # the pieces after the first (views.pieces: one Text made at the end)
+        t.append((f"{s.vessel.particulars.name} │ {name or s.condition.name}", P["value"]))
         if s.condition.modified_from:
-            t.append(f" (modified from {s.condition.modified_from})" if level < 3 else " (modified)", P["caution"])
+            t.append((f" (modified from {s.condition.modified_from})" if level < 3 else " (modified)", P["caution"]))
         words = level < 2
         # Before the log and undo words: a title too long for the screen is cut from its end.
         if s.not_saving:
-            t.append(" │ ", P["value"])
-            t.append("NOT SAVING: another deckload has this vessel" if words else "NOT SAVING", P["danger"])
+            t.append((" │ ", P["value"]))
+            t.append(("NOT SAVING: another deckload has this vessel" if words else "NOT SAVING", P["danger"]))
         elif s.unsaved:
-            t.append(" │ ", P["value"])
-            t.append("NOT SAVED: the last save failed" if words else "NOT SAVED", P["danger"])
-        t.append(" │ ", P["value"])
+            t.append((" │ ", P["value"]))
+            t.append(("NOT SAVED: the last save failed" if words else "NOT SAVED", P["danger"]))
+        t.append((" │ ", P["value"]))
         if j.writable and j.officer:
-            t.append(f"watch {j.officer}, logged" if words else f"{j.officer} logged", P["dim"])
+            t.append((f"watch {j.officer}, logged" if words else f"{j.officer} logged", P["dim"]))
         elif j.writable:
-            t.append("changes NOT logged: o to sign on" if words else "NOT logged (o)", P["caution"])
+            t.append(("changes NOT logged: o to sign on" if words else "NOT logged (o)", P["caution"]))
         else:
-            t.append(f"log off: {j.problem or 'no log'}" if words else "log off", P["caution"])
+            t.append((f"log off: {j.problem or 'no log'}" if words else "log off", P["caution"]))
         if s.planning:
-            t.append(f" │ PLAN ({s.plan_steps}, not logged: x to apply or discard)" if words else " │ PLAN", P["caution"])
-        t.append(f" │ undo {s.undo_depth} redo {s.redo_depth}", P["dim"])
+            t.append((f" │ PLAN ({s.plan_steps}, not logged: x to apply or discard)" if words else " │ PLAN", P["caution"]))
+        t.append((f" │ undo {s.undo_depth} redo {s.redo_depth}", P["dim"]))
         if s.saves_pending:
             # The edit is on screen but not yet on disk: say so until the writer has saved it.
-            t.append(" │ saving…" if level < 3 else " saving…", P["caution"])
-        return t
+            t.append((" │ saving…" if level < 3 else " saving…", P["caution"]))
+        return views.pieces(P["title"], " deckload │ " if level < 1 else " ", *t)
 
     def _save_landed(self) -> None:
         """A change reached the disk (or failed, which ``_report`` says): redraw the title."""

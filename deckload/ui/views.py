@@ -9,7 +9,7 @@ from __future__ import annotations
 
 import functools
 
-from rich.text import Text
+from rich.text import Span, Text
 
 from deckload.core.deadweight import deadweight_by_kind
 from deckload.core.free_surface import EXEMPT_RULE, tank_state
@@ -67,6 +67,29 @@ def _flood_cell(r: Result) -> tuple[str, str]:
     if r.downflooding_angle_deg is None:
         return flood_words(r, short=True), ""
     return opt(r.downflooding_angle_deg, ".1f"), "°"
+
+
+def pieces(style, first: str, *rest: tuple[str, object]) -> Text:
+    """``Text(first, style)`` with each ``(text, style)`` of ``rest`` appended: the same Text (its
+    plain text and spans), made in one step.  rich's ``Text.append`` strips control codes from each
+    piece and keeps a list of the pieces to join; a panel line is a dozen of them, rebuilt on
+    every key.  Here the pieces are joined once and stripped once (``Text.__init__``); should the
+    stripping take anything out, the offsets of the spans would be wrong, so the line is then made
+    by ``append`` itself."""
+    spans = []
+    at = len(first)
+    for text, st in rest:
+        end = at + len(text)
+        if st and end > at:  # (append gives an empty piece, or one without a style, no span)
+            spans.append(Span(at, end, st))
+        at = end
+    plain = first + "".join([text for text, _ in rest])
+    line = Text(plain, style, spans=spans)
+    if len(line) != at:  # a control code was taken out: rich's own way, piece by piece
+        line = Text(first, style)
+        for text, st in rest:
+            line.append(text, st)
+    return line
 
 
 def opt(value: float | None, fmt: str) -> str:
@@ -329,10 +352,18 @@ def mark_letters(name: str | None) -> str:
     return MARK_LETTERS.get(key, name[:3])
 
 
-def _pair(line: Text, label: str, value: str, unit: str, stale: bool, compact: bool) -> None:
-    line.append(f"{label:<6}" if not compact else f"{COMPACT_LABEL.get(label, label):<5.5}", P["label"])
-    line.append(f"{value:>8} " if not compact else f"{value:>7} ", P["stale"] if stale else P["value"])
-    line.append(f"{unit:<5.5}" if not compact else f"{unit:<3.3}", P["unit"])
+def _pair(label: str, value: str, unit: str, stale: bool, compact: bool) -> tuple[tuple[str, object], ...]:
+    """A label, its value and unit: the three pieces of a line (:func:`pieces`)."""
+    return ((f"{label:<6}" if not compact else f"{COMPACT_LABEL.get(label, label):<5.5}", P["label"]),
+            (f"{value:>8} " if not compact else f"{value:>7} ", P["stale"] if stale else P["value"]),
+            (f"{unit:<5.5}" if not compact else f"{unit:<3.3}", P["unit"]))
+
+
+@functools.lru_cache(maxsize=1024)
+def _pair_line(left: tuple[str, str, str], right: tuple[str, str, str], stale: bool, compact: bool) -> Text:
+    """A line of two pairs (:func:`_pair`).  Kept for the same words, as the board's lines are (a key
+    leaves most of the numbers as they were printed): the Text is shared, so never modified."""
+    return pieces("", " ", *_pair(*left, stale, compact), (" " if compact else "", None), *_pair(*right, stale, compact))
 
 
 def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, stale: bool, width: int = 54) -> list[Text]:
@@ -375,14 +406,16 @@ def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, st
     ]
     out = [title]
     for left, right in rows:
-        line = Text(" ")
-        _pair(line, *left, stale, compact)
-        line.append(" " if compact else "")
-        _pair(line, *right, stale, compact)
-        out.append(line)
+        out.append(_pair_line(left, right, stale, compact))
     # which hydrostatic and KN tables: even keel, or at trims and between which
-    out.append(Text(" Tables ", P["label"]) + Text(tables_basis(vessel, r.trim_m).short, P["dim"]))
+    out.append(_tables_line(tables_basis(vessel, r.trim_m).short))
     return out
+
+
+@functools.lru_cache(maxsize=64)
+def _tables_line(basis: str) -> Text:
+    """' Tables even keel': which tables the numbers were read from (kept and shared, as :func:`_pair_line`)."""
+    return Text(" Tables ", P["label"]) + Text(basis, P["dim"])
 
 
 SHORT_NAMES = {
@@ -457,11 +490,7 @@ def gz_caption(result: Result | None, width: int | None = None) -> Text:
         name = " GZ"
     if width is not None and len(name + side + "".join(parts + zero)) > width:
         parts[-1] = f"  max {result.max_gz_m:.3f} m"
-    t = Text(name, P["title"])
-    t.append(side, P["title"])
-    for p in parts + zero:
-        t.append(p, P["dim"])
-    return t
+    return pieces(P["title"], name, (side, P["title"]), *((p, P["dim"]) for p in parts + zero))
 
 
 # --------------------------------------------------------------------------- warnings

@@ -1,0 +1,120 @@
+"""The panels' lines kept for the same printed words (ui/views.py, ui/verdict.py, ui/main_screen.py).
+
+A key on the loading screen rebuilds every panel's lines; most of them print the same words as
+before (a 1 % nudge of one tank leaves KM, the deadweight, most criteria as they were).  Those
+lines are kept by their words and handed back as the same Text, which the panel then compares by
+identity and does not draw again.  These tests check that a line kept is the line made afresh
+(after a walk of edits that fills the caches with other conditions' lines), that a line whose
+words did not change is the same object, and that ``views.pieces`` makes the Text rich's
+``Text.append`` makes, control codes and empty pieces included.
+
+Only the drawing's consistency with itself is checked (no outside reference).
+"""
+
+from __future__ import annotations
+
+import random
+
+from rich.style import Style
+from rich.text import Text
+
+from deckload.core.stability import evaluate
+from deckload.ui import entry, verdict, views
+from deckload.ui.main_screen import gz_title_lines
+from demo_vessels import demo_departure, trawler_vessel
+
+
+def _drawn(lines) -> list[tuple]:
+    return [(t.plain, list(t.spans), t.style) for t in lines]
+
+
+def _clear() -> None:
+    for kept in (views._pair_line, views._tables_line, verdict._assessed_line, verdict._unassessed_line, verdict._wrapped_note,
+                 verdict._group_heading, verdict._not_assessed_lines):
+        kept.cache_clear()
+
+
+def _walk():
+    """The departure and the conditions of a few nudges of each of her first tanks, with results."""
+    vessel, condition = demo_departure()
+    out = [(vessel, condition, evaluate(vessel, condition))]
+    for tank in vessel.tanks[:4]:
+        for step in (5.0, -3.0, 1.0):
+            condition = entry.nudge_tank(condition, tank, step, vessel)
+            out.append((vessel, condition, evaluate(vessel, condition)))
+    return out
+
+
+def _panels(vessel, condition, result, width: int) -> list[list[tuple]]:
+    return [_drawn(views.afloat_lines(vessel, condition, result, False, width)),
+            _drawn(views.afloat_lines(vessel, condition, result, True, width)),
+            _drawn(verdict.criteria_lines(result, False, width)),
+            _drawn(verdict.criteria_lines(result, False, width, 12)),
+            _drawn(gz_title_lines(result, width)), [_drawn([views.gz_caption(result)])]]
+
+
+def test_a_kept_line_is_the_line_made_afresh():
+    walk = _walk()
+    for width in (30, 53, 80):
+        _clear()
+        fresh = []
+        for vessel, condition, result in walk:  # each made with nothing kept
+            _clear()
+            fresh.append(_panels(vessel, condition, result, width))
+        _clear()
+        for vessel, condition, result in walk:  # warm: the walk's lines, and back again
+            _panels(vessel, condition, result, width)
+        for (vessel, condition, result), made in zip(walk, fresh):
+            assert _panels(vessel, condition, result, width) == made
+
+
+def test_a_line_whose_words_did_not_change_is_the_same_object():
+    vessel, condition = demo_departure()
+    tank = vessel.tanks[0]
+    before = evaluate(vessel, condition)
+    after = evaluate(vessel, entry.nudge_tank(condition, tank, 1.0, vessel))
+    for width in (40, 53):
+        a, b = views.afloat_lines(vessel, condition, before, False, width), views.afloat_lines(
+            vessel, condition, after, False, width)
+        same = [i for i, (x, y) in enumerate(zip(a, b)) if x == y]
+        assert len(same) >= 3  # KM and the mark at least; not the whole panel
+        assert all(a[i] is b[i] for i in same[1:])  # (the title is made each time)
+        # each criterion's line, each set's heading and the not-assessed lines (a note whose words
+        # changed is made again, every line of it)
+        ca, cb = verdict.criteria_lines(before, False, width), verdict.criteria_lines(after, False, width)
+        assert len(ca) == len(cb)
+        lines = [verdict._criterion_line(c, False, width < 48) for c in after.criteria]
+        kept = [verdict._criterion_line(c, False, width < 48) for c in before.criteria]
+        same = [i for i, (x, y) in enumerate(zip(kept, lines)) if x == y]
+        assert same and all(kept[i] is lines[i] for i in same)
+        assert any(x is y for x, y in zip(ca, cb) if x.plain.startswith(" ▸"))
+        assert any(x is y for x, y in zip(ca, cb) if x.plain.startswith(" Not assessed"))
+
+
+def test_the_trawler_lines_kept_are_the_lines_made_afresh():
+    """The trawler's criteria (fishing sets, notes that wrap, unassessable ones) the same way."""
+    from deckload.io import paths
+    from deckload.io.profiles import load_condition
+
+    vessel = trawler_vessel()
+    for name in paths.TRAWLER_CONDITIONS:
+        condition = load_condition(paths.TRAWLER_CONDITIONS[name], vessel)
+        result = evaluate(vessel, condition)
+        for width in (30, 53):
+            _clear()
+            made = _panels(vessel, condition, result, width)
+            assert _panels(vessel, condition, result, width) == made
+
+
+def test_pieces_is_rich_append():
+    rng = random.Random(7)
+    styles = [None, "", Style(bold=True), Style(color="red"), "bold"]
+    words = ["", " ", "GM", "0.412 ", "x\x07y", "\x1b[31m", "θf 39.6°", "│"]
+    for _ in range(500):
+        first, style = rng.choice(words), rng.choice(styles[1:])
+        rest = [(rng.choice(words), rng.choice(styles)) for _ in range(rng.randrange(0, 6))]
+        made = views.pieces(style, first, *rest)
+        want = Text(first, style)
+        for text, st in rest:
+            want.append(text, st)
+        assert (made.plain, made.spans, made.style) == (want.plain, want.spans, want.style)
