@@ -19,7 +19,7 @@ from rich.style import Style
 from rich.text import Text
 
 from deckload.core.stability import evaluate
-from deckload.ui import entry, verdict, views
+from deckload.ui import entry, main_screen, verdict, views
 from deckload.ui.main_screen import gz_title_lines
 from demo_vessels import demo_departure, trawler_vessel
 
@@ -29,6 +29,7 @@ def _drawn(lines) -> list[tuple]:
 
 
 def _clear() -> None:
+    main_screen._GZ_TITLES.clear()
     for kept in (views._pair_line, views._tables_line, verdict._assessed_line, verdict._unassessed_line, verdict._wrapped_note,
                  verdict._group_heading, verdict._not_assessed_lines):
         kept.cache_clear()
@@ -104,6 +105,19 @@ def test_the_trawler_lines_kept_are_the_lines_made_afresh():
             _clear()
             made = _panels(vessel, condition, result, width)
             assert _panels(vessel, condition, result, width) == made
+
+
+def test_cells_is_rich_cell_len():
+    """widgets.cells gives rich's own cell_len for our symbols, wide characters and control codes."""
+    from rich.cells import cell_len
+
+    from deckload.ui.widgets import _ONE_CELL, cells
+
+    rng = random.Random(3)
+    alphabet = sorted(_ONE_CELL) + ["漢", "\u200d", "\ufe0f", "\x07", "é", "👍", "\t", "ｱ"]
+    for _ in range(2000):
+        text = "".join(rng.choice(alphabet) for _ in range(rng.randrange(0, 30)))
+        assert cells(text) == cell_len(text), repr(text)
 
 
 def test_pieces_is_rich_append():

@@ -26,7 +26,7 @@ from deckload.ui.compositor import RowCompositor
 from deckload.ui.entry import EntryError, ItemForm
 from deckload.ui.palette import P
 from deckload.ui.session import Session
-from deckload.ui.widgets import LinePanel, LoadBoard, SizedPanel, fit_width
+from deckload.ui.widgets import LinePanel, LoadBoard, SizedPanel, cells, fit_width
 
 RUN_PAUSE_S = 4.0
 """A run of nudges or retypes of one item ends (and is logged as one entry) after this pause."""
@@ -189,12 +189,12 @@ class LoadingScreen(Screen[None]):
         condition's name ends in '…'."""
         level = 0 if width >= NARROW_BELOW else 3
         t = self._title_text(level, None)
-        while t.cell_len > width and level < 3:
+        while cells(t.plain) > width and level < 3:
             level += 1
             t = self._title_text(level, None)
-        if t.cell_len > width:
+        if cells(t.plain) > width:
             name = self.session.condition.name
-            t = self._title_text(level, views.fit(name, max(8, len(name) - (t.cell_len - width))))
+            t = self._title_text(level, views.fit(name, max(8, len(name) - (cells(t.plain) - width))))
         return cut(t, width)
 
     def _title_text(self, level: int, name: str | None) -> Text:
@@ -854,7 +854,7 @@ _WRAP_CONSOLE = Console(width=400, no_color=True, legacy_windows=False)
 
 def cut(text: Text, width: int) -> Text:
     """``text`` if it fits in ``width`` cells, else a copy cut to fit, ending in "…"."""
-    if text.cell_len <= width:
+    if cells(text.plain) <= width:
         return text
     out = text.copy()
     out.truncate(width, overflow="ellipsis")
@@ -864,7 +864,7 @@ def cut(text: Text, width: int) -> Text:
 def fit_lines(text: Text, width: int, max_lines: int, indent: int = 2) -> list[Text]:
     """``text`` wrapped to ``width`` cells (lines after the first indented by ``indent``), at most
     ``max_lines``; the last line ends in "…" when anything is left out."""
-    if text.cell_len <= width:
+    if cells(text.plain) <= width:
         return [text]
     first, *rest = text.wrap(_WRAP_CONSOLE, max(10, width - indent))
     lines = [first] + [Text(" " * indent).append_text(line) for line in rest]
@@ -883,9 +883,24 @@ def gz_title_lines(result, width: int) -> list[Text]:
     """The curve's title (views.gz_caption) with every fact it holds: "GZ curve" becomes "GZ" where
     the line is too short, then it wraps to two lines; nothing is left out."""
     title = views.gz_caption(result)
-    if title.cell_len > width and title.plain.startswith(" GZ curve"):
+    key = (title.plain, tuple(title.spans), title.style, width)
+    lines = _GZ_TITLES.get(key)
+    if lines is None:
+        if len(_GZ_TITLES) >= 256:  # a bound: a caption holds numbers, each key may bring a new one
+            _GZ_TITLES.clear()
+        lines = _GZ_TITLES[key] = tuple(_gz_title_lines(title, width))
+    return list(lines)
+
+
+_GZ_TITLES: dict[tuple, tuple[Text, ...]] = {}
+"""The title's lines kept by the caption's text, spans and style and the width (a caption
+cut into lines is rich's slicing, a few tens of µs a line): shared, never modified."""
+
+
+def _gz_title_lines(title: Text, width: int) -> list[Text]:
+    if cells(title.plain) > width and title.plain.startswith(" GZ curve"):
         title = Text(" GZ", P["title"]).append_text(title[len(" GZ curve"):])
-    if title.cell_len <= width:
+    if cells(title.plain) <= width:
         return [title]
     # Lines broken between its parts (two spaces apart), never inside one ("max 0.374 | m at 29.2°"):
     # packed greedily into at most three lines; only a part wider than the panel is wrapped by words.

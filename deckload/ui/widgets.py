@@ -38,6 +38,20 @@ def _strip(text: Text, console) -> Strip:
 
 _NULL = Style.null()
 
+_ONE_CELL = frozenset(chr(c) for c in range(0x20, 0x7F)) | frozenset(
+    c for c in "°±²³µ¶·×ΔΣθρφ–—“”…›↑→↓−∠≈≤≥│┊┤─├┼█▉▊▋▌▍▎▏▕■▲▸▼◂◆✔✖" + "".join(map(chr, range(0x2800, 0x2900)))
+    if cell_len(c) == 1)
+"""Printable ASCII and the symbols our lines are drawn with (and braille, the GZ chart's dots) that
+rich itself measures one cell wide (checked here, character by character, against rich's table)."""
+
+
+def cells(text: str) -> int:
+    """``rich.cells.cell_len(text)``: the cells ``text`` takes on the terminal.  A line of our own
+    characters (:data:`_ONE_CELL`) takes one cell each; rich measures a line holding any character
+    outside its short list of one-cell ranges (a "≥", a "…") character by character, each a
+    function call and a cache lookup, for every line a key changes."""
+    return len(text) if _ONE_CELL.issuperset(text) else cell_len(text)
+
 _SUMS: dict[Style, dict[tuple[int, int], tuple[Style, Style, Style, bool]]] = {}
 """Per panel style ``own``: ``own + base + span`` of the palette styles (ui/palette.py) a line is
 made of, keyed by the two styles' identities (the palette's objects live as long as the program;
@@ -91,13 +105,13 @@ def fit_width(text: Text, width: int) -> Text:
     more than nothing would, and no one reads a cut path as a whole one.  A line that fits is
     returned as it is."""
     plain = text.plain
-    if cell_len(plain) <= width:
+    if cells(plain) <= width:
         return text
     if width <= 1:
         return Text("…"[:width], style=text.style)
-    cut, cells = 0, 0
-    while cut < len(plain) and cells + cell_len(plain[cut]) <= width - 1:
-        cells += cell_len(plain[cut])
+    cut, used = 0, 0
+    while cut < len(plain) and used + cell_len(plain[cut]) <= width - 1:
+        used += cell_len(plain[cut])
         cut += 1
     start = cut
     while start > 0 and not plain[start - 1].isspace() and start < len(plain) and not plain[start].isspace():
@@ -124,14 +138,14 @@ def _line_strip(text: Text, width: int, own: Style, console) -> tuple[Strip, boo
     Anything else (overlapping spans, style names, a line wider than the panel) takes
     the general way above."""
     plain = text.plain
-    cells = cell_len(plain)
-    if cells > width:
+    n = cells(plain)
+    if n > width:
         text = fit_width(text, width)
         plain = text.plain
-        cells = cell_len(plain)
+        n = cells(plain)
     spans = text.spans
     base = text.style or _NULL  # Text's default style "" is the null style
-    if not plain or cells > width or not isinstance(base, Style):
+    if not plain or n > width or not isinstance(base, Style):
         return _strip(text, console).crop_extend(0, width, None).apply_style(own), False
     sums = _sums(own)
     segments: list[Segment] = []
@@ -155,10 +169,10 @@ def _line_strip(text: Text, width: int, own: Style, console) -> tuple[Strip, boo
             pos = end
         if pos < len(plain):
             add(Segment(plain[pos:], own_base))
-    if cells < width:
+    if n < width:
         own_only, ok = _plus(sums, own, _NULL, _NULL)
         true = true and ok
-        add(Segment(" " * (width - cells), own_only))
+        add(Segment(" " * (width - n), own_only))
     return Strip(segments, width), true
 
 
