@@ -132,3 +132,40 @@ def test_pieces_is_rich_append():
         for text, st in rest:
             want.append(text, st)
         assert (made.plain, made.spans, made.style) == (want.plain, want.spans, want.style)
+
+
+async def test_the_focused_cursor_line_is_drawn_as_before_without_rich_rendering(tmp_path, monkeypatch):
+    """The board's cursor line, focused: each piece of the line on the board's style with the
+    cursor's colours over it, as the line drawn by rich, coloured and put on the board's style
+    (the way it was drawn before) gives it; without rich's Text.render (widgets._strip)."""
+    from rich.segment import Segment
+    from rich.style import Style
+    from textual.strip import Strip
+
+    from deckload.ui import widgets
+    from deckload.ui.widgets import LoadBoard, _strip, fit_width
+    from demo_vessels import departure_app
+
+    app = departure_app(tmp_path)
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        board = app.screen.query_one(LoadBoard)
+        assert board.has_focus
+        for key in ("down", "plus", "down", "down", "minus"):
+            await pilot.press(key)
+            await pilot.pause()
+            own, cursor = board.rich_style, board.get_component_rich_style("board--cursor")
+            width = board.scrollable_content_region.width
+            text = board.rows[board.cursor].text
+            before = _strip(fit_width(text, width), app.console).crop_extend(0, width, None)
+            before = Strip([Segment(s.text, (s.style or Style()) + cursor) for s in before], width).apply_style(own)
+
+            def refused(*args):
+                raise AssertionError("the cursor line went through rich's rendering")
+
+            monkeypatch.setattr(widgets, "_strip", refused)
+            board._strips.clear()
+            drawn = board.render_line(board.cursor - int(board.scroll_offset.y))
+            monkeypatch.undo()
+            assert [(s.text, s.style) for s in drawn] == [(s.text, s.style) for s in before]
+            assert drawn.cell_length == width

@@ -657,12 +657,15 @@ class LoadBoard(ScrollView, can_focus=True):
         if strip is None:
             if idx != self.cursor:
                 strip, _ = _line_strip(self.rows[idx].text, width, own, self.app.console)
+            elif focused:  # the cursor's colours win over the line's own
+                # own + (piece + cursor) for each piece, as the line drawn, coloured, then put on
+                # the board's style: rich adds styles associatively (each attribute, colour and
+                # link is the last one set), so it is the finished line's own + piece, + cursor.
+                strip, _ = _line_strip(self.rows[idx].text, width, own, self.app.console)
+                strip = Strip([Segment(seg.text, seg.style + cursor) for seg in strip], width)
             else:
                 strip = _strip(fit_width(self.rows[idx].text, width), self.app.console).crop_extend(0, width, None)
-                if focused:  # the cursor's colours win over the line's own
-                    strip = Strip([Segment(seg.text, (seg.style or Style()) + cursor) for seg in strip], width)
-                else:
-                    strip = Strip.join([Strip([Segment("›")], 1), strip.crop(1, width)])
+                strip = Strip.join([Strip([Segment("›")], 1), strip.crop(1, width)])
                 strip = strip.apply_style(own)
             self._strips[idx] = strip
         return strip
