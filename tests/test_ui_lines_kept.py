@@ -169,3 +169,46 @@ async def test_the_focused_cursor_line_is_drawn_as_before_without_rich_rendering
             monkeypatch.undo()
             assert [(s.text, s.style) for s in drawn] == [(s.text, s.style) for s in before]
             assert drawn.cell_length == width
+
+
+async def test_a_change_of_the_cursor_style_is_drawn(tmp_path):
+    """The cursor's style is kept with the board's look: a change of the cursor component's own
+    styles (here an inline colour, as a stylesheet or theme change moves the same count) is drawn."""
+    from textual.color import Color
+
+    from deckload.ui.widgets import LoadBoard
+    from demo_vessels import departure_app
+
+    app = departure_app(tmp_path)
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        board = app.screen.query_one(LoadBoard)
+        y = board.cursor - int(board.scroll_offset.y)
+        board.render_lines(board.region.reset_offset.intersection(board.region.reset_offset))
+        before = {s.style.color for s in board.render_line(y)}
+        board._component_styles["board--cursor"].inline.color = Color.parse("#123456")
+        board.refresh()
+        await pilot.pause()
+        board.render_lines(board.region.reset_offset)
+        after = {s.style.color for s in board.render_line(y)}
+        want = board.get_component_rich_style("board--cursor").color
+        assert want not in before and after == {want}
+
+
+async def test_a_nudge_reads_the_cursor_style_no_more(tmp_path, monkeypatch):
+    """A nudge repaints the board (its _repaint clears textual's cache of component styles, as
+    refresh does): the cursor's style is read again only when a style it is made from moved."""
+    from deckload.ui.widgets import LoadBoard
+    from demo_vessels import departure_app
+
+    app = departure_app(tmp_path)
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        reads = []
+        read = LoadBoard.get_component_rich_style
+        monkeypatch.setattr(LoadBoard, "get_component_rich_style",
+                            lambda self, *a, **k: reads.append(a) or read(self, *a, **k))
+        for key in ("plus", "minus", "plus"):
+            await pilot.press(key)
+            await pilot.pause()
+        assert reads == []

@@ -205,10 +205,11 @@ def _repaint(widget: Widget, *regions: Region) -> None:
     widget.refresh(*regions)
 
 
-def _look(widget: Widget, read) -> tuple:
+def _look(widget: Widget, read, *more) -> tuple:
     """The widget's look as ``read()`` gives it, kept in ``widget._look`` and read again only when
-    :func:`_look_key` moves (a style it is made from changed)."""
-    key = _look_key(widget)
+    :func:`_look_key` moves (a style it is made from changed), or any of ``more`` (the change
+    counts of the component styles it also reads)."""
+    key = _look_key(widget) + more
     kept = widget._look
     if kept is None or kept[0] != key:
         kept = widget._look = (key, read())
@@ -571,9 +572,13 @@ class LoadBoard(ScrollView, can_focus=True):
         if self._data is not None and self._width == 0 and self.scrollable_content_region.width:
             self._rebuild(repaint=False)  # a layout's frame is drawn before its Resize event (see SizedPanel)
         # The board's own style and box for as long as no style they are made from changes (see
-        # LinePanel.render_lines); the cursor's style and the focus are read each time.
-        own, box = _look(self, lambda: (self.rich_style, self._box_styles()))
-        styles = (own, self.get_component_rich_style("board--cursor"), self.has_focus)
+        # LinePanel.render_lines), and the cursor's: its component's styles over the board's
+        # (textual's component node under the board), whose own change count joins the look's key.
+        # The focus is read each time.
+        own, box, cursor = _look(
+            self, lambda: (self.rich_style, self._box_styles(), self.get_component_rich_style("board--cursor")),
+            self._component_styles["board--cursor"]._cache_key)
+        styles = (own, cursor, self.has_focus)
         if styles != self._styles:
             self._styles = styles
             self._strips.clear()
