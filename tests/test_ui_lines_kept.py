@@ -212,3 +212,19 @@ async def test_a_nudge_reads_the_cursor_style_no_more(tmp_path, monkeypatch):
             await pilot.press(key)
             await pilot.pause()
         assert reads == []
+
+
+def test_the_board_keeps_each_row_whose_line_is_kept():
+    """A nudge of one tank gives the board new rows for that tank, its group's total and the
+    deadweight only: every other row is the Row of the board before (not a new record of the same
+    line), and the board made afresh is the same board."""
+    vessel, condition = demo_departure()
+    tank = vessel.tanks[0]
+    after_c = entry.nudge_tank(condition, tank, 1.0, vessel)
+    before = views.board_rows(vessel, condition, evaluate(vessel, condition), False, width=66)
+    after = views.board_rows(vessel, after_c, evaluate(vessel, after_c), False, width=66)
+    kept = [i for i, (a, b) in enumerate(zip(before, after)) if a is b]
+    assert len(before) == len(after) and len(after) - len(kept) <= 6 and len(kept) > len(after) // 2
+    views._ROWS.clear()
+    assert [(r.key, r.text.plain, r.text.spans) for r in views.board_rows(
+        vessel, after_c, evaluate(vessel, after_c), False, width=66)] == [(r.key, r.text.plain, r.text.spans) for r in after]

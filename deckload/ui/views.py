@@ -109,6 +109,22 @@ class Row:
     text: Text
 
 
+_ROWS: dict[tuple, Row] = {}
+"""Rows by their key and line (by identity: the lines are kept and shared, :func:`_tank_line`)."""
+
+
+def _row(key: tuple | None, text: Text) -> Row:
+    """``Row(key, text)``, the same Row for the same key and line: a key changes one or two of the
+    board's lines, and every Row was made again (a frozen record: each field set by
+    ``object.__setattr__``)."""
+    got = _ROWS.get((key, id(text)))
+    if got is None or got.text is not text:  # (the Row holds its line: an id is not reused while kept)
+        if len(_ROWS) >= 4096:  # a bound: new lines come with new values
+            _ROWS.clear()
+        got = _ROWS[(key, id(text))] = Row(key, text)
+    return got
+
+
 RHO_COL_FROM = 56
 """Board width from which each tank's density has a column of its own."""
 STATED_MARK = STATED_DENSITY_MARK
@@ -140,6 +156,7 @@ class TankCols:
     width: int = 0
 
     @staticmethod
+    @functools.lru_cache(maxsize=64)
     def for_width(width: int, id_w: int = ID_MIN) -> "TankCols":
         rho = width >= RHO_COL_FROM
         id_w = max(ID_MIN, min(ID_MAX, id_w))
@@ -175,7 +192,7 @@ def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stal
     fills: dict = {}
     for f in condition.tanks:  # Condition.tank_fill's answer for each tank, in one pass
         fills.setdefault(f.tank_id, f)
-    rows: list[Row] = [Row(None, _board_head(cols))]
+    rows: list[Row] = [_row(None, _board_head(cols))]
     for kind in BOARD_ORDER:
         tanks = [t for t in vessel.tanks if t.kind == kind]
         if not tanks:
@@ -198,9 +215,9 @@ def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stal
                 state = tank_state(pct, tank, vessel.free_surface.empty_pct, vessel.free_surface.nominally_full_pct)
                 values = (pct, vol, vol * rho, rho, None, state, False)
             lines.append((tank, stated, values))
-        rows.append(Row(None, _group_line(KIND_TITLE.get(kind, kind), sum(v[2] for _, _, v in lines), cols)))
+        rows.append(_row(None, _group_line(KIND_TITLE.get(kind, kind), sum(v[2] for _, _, v in lines), cols)))
         for tank, stated, values in lines:
-            rows.append(Row(("tank", tank.id), _tank_line(tank.id, stated, *values, kind, cols, stale)))
+            rows.append(_row(("tank", tank.id), _tank_line(tank.id, stated, *values, kind, cols, stale)))
     rows.extend(_cargo_rows(vessel, condition, cols))
     if result is not None:
         rows.extend(deadweight_rows(result, stale, cols))
@@ -254,10 +271,10 @@ def _tank_line(tid, stated, pct, vol, mass, rho, fsm, state, by_rule, kind, cols
 def deadweight_rows(result: Result, stale: bool, cols: TankCols) -> list[Row]:
     """The deadweight by kind (cargo, each liquid, stores and constants) under a heading, and the
     deadweight they add up to, each under the tanks' t column."""
-    rows = [Row(None, _dwt_line(" Deadweight by kind" + (" (last good)" if stale else ""), None, "", stale, cols))]
+    rows = [_row(None, _dwt_line(" Deadweight by kind" + (" (last good)" if stale else ""), None, "", stale, cols))]
     for line in deadweight_by_kind(result):
-        rows.append(Row(("dwt", line.kind), _dwt_line(line.title, line.mass_t, " ", stale, cols)))
-    rows.append(Row(("dwt", "total"), _dwt_line("Deadweight", result.deadweight_t, "Σ", stale, cols)))
+        rows.append(_row(("dwt", line.kind), _dwt_line(line.title, line.mass_t, " ", stale, cols)))
+    rows.append(_row(("dwt", "total"), _dwt_line("Deadweight", result.deadweight_t, "Σ", stale, cols)))
     return rows
 
 
@@ -283,16 +300,16 @@ def _cargo_rows(vessel: Vessel, condition: Condition, cols: TankCols) -> list[Ro
         name = f"{hold.id} {hold.name}" + (f": {load.description}" if load and load.description else "")
         # the hold's limit: the first spelling that fits the cells after the mass
         limit = () if hold.max_mass_t is None else (f" of {hold.max_mass_t:g} t", f" of {hold.max_mass_t:g}")
-        rows.append(Row(("hold", hold.id), _mass_line("hold", name, load.mass_t if load else 0.0, limit, cols, one=True)))
+        rows.append(_row(("hold", hold.id), _mass_line("hold", name, load.mass_t if load else 0.0, limit, cols, one=True)))
     for i, item in enumerate(condition.deck_items):
-        rows.append(Row(("deck", i), _mass_line("deck", item.name, item.mass_t, _position(item, getattr(item, "area_id", None)), cols)))
+        rows.append(_row(("deck", i), _mass_line("deck", item.name, item.mass_t, _position(item, getattr(item, "area_id", None)), cols)))
     for i, item in enumerate(condition.constants):
-        rows.append(Row(("const", i), _mass_line("const", item.name, item.mass_t, _position(item, None), cols)))
+        rows.append(_row(("const", i), _mass_line("const", item.name, item.mass_t, _position(item, None), cols)))
     # The profile's fixed constants this condition does not replace (read-only here).
     own = {c.name for c in condition.constants}
     for i, item in enumerate(vessel.constants):
         if item.name not in own:
-            rows.append(Row(("fixed", i), _mass_line("fixed", item.name, item.mass_t, _position(item, None), cols)))
+            rows.append(_row(("fixed", i), _mass_line("fixed", item.name, item.mass_t, _position(item, None), cols)))
     return rows
 
 
