@@ -228,3 +228,33 @@ def test_the_board_keeps_each_row_whose_line_is_kept():
     views._ROWS.clear()
     assert [(r.key, r.text.plain, r.text.spans) for r in views.board_rows(
         vessel, after_c, evaluate(vessel, after_c), False, width=66)] == [(r.key, r.text.plain, r.text.spans) for r in after]
+
+
+async def test_a_nudge_reads_each_panels_geometry_twice_at_most(tmp_path, monkeypatch):
+    """Each read of a widget's size walks to its screen and through the compositor's map: a panel
+    reads it once when it builds its lines (and compares them) and once when it is drawn (the title
+    is drawn twice, again once the save has landed; the screen reads the criteria panel's height
+    to see whether it must be laid out again)."""
+    import collections
+
+    from textual.widget import Widget
+
+    from deckload.ui.widgets import LinePanel
+    from demo_vessels import departure_app
+
+    app = departure_app(tmp_path)
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        reads = collections.Counter()
+        region = Widget.region.fget
+
+        def counted(self):
+            if isinstance(self, LinePanel):
+                reads[self.id] += 1
+            return region(self)
+
+        monkeypatch.setattr(Widget, "region", property(counted))
+        await pilot.press("plus")
+        await pilot.pause()
+        assert reads["afloat"] >= 1 and all(n <= 2 for p, n in reads.items() if p not in ("titlebar", "criteria")), reads
+        assert reads["titlebar"] <= 4 and reads["criteria"] <= 3, reads

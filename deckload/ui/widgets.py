@@ -277,20 +277,22 @@ class LinePanel(Widget):
     def lines(self) -> list[Text]:
         return self._lines
 
-    def set_lines(self, lines: list[Text]) -> None:
-        """Show ``lines``; only the lines that differ from those shown are repainted."""
+    def set_lines(self, lines: list[Text], width: int | None = None) -> None:
+        """Show ``lines``; only the lines that differ from those shown are repainted.  ``width``:
+        the panel's width, when the caller has just read it (each read is a walk to the screen)."""
         old, self._lines = self._lines, lines
         if len(old) != len(lines):
             self._strips.clear()
             _repaint(self)
             return
-        width = self.size.width
         # (a line kept by its maker is the same object: rich's Text compares in Python)
-        changed = [Region(0, y, width, 1) for y, (a, b) in enumerate(zip(old, lines)) if a is not b and a != b]
-        for r in changed:
-            self._strips.pop(r.y, None)
+        changed = [y for y, (a, b) in enumerate(zip(old, lines)) if a is not b and a != b]
         if changed:  # one refresh for all of them: each call is a walk through textual's bookkeeping
-            _repaint(self, *changed)
+            if width is None:
+                width = self.size.width
+            for y in changed:
+                self._strips.pop(y, None)
+            _repaint(self, *[Region(0, y, width, 1) for y in changed])
 
     def plain(self) -> str:
         return "\n".join(t.plain for t in self._lines)
@@ -301,12 +303,15 @@ class LinePanel(Widget):
         super()._set_dirty(*regions)
 
     def render_lines(self, crop: Region) -> list[Strip]:
+        return self._render_at(crop, self.size)  # (a walk through textual's geometry each time it is read)
+
+    def _render_at(self, crop: Region, size: Size) -> list[Strip]:
+        """:meth:`render_lines` at the panel's size ``size`` (read once by the caller)."""
         app = self.app
         # The panel's look (style, background colours, plain box) for as long as no style it is
         # made from changes: each is a walk up the parents through their styles.
         style, colours, plain_styles = _look(
             self, lambda: (self.rich_style, self.background_colors, self._plain_styles()))
-        size = self.size  # (a walk through textual's geometry each time it is read)
         # (A change of theme restyles, and so marks dirty, every widget.)
         made_for = (crop, size, colours, tuple((f, f.enabled) for f in app._filters))
         painted = self._painted
@@ -342,10 +347,10 @@ class LinePanel(Widget):
         return self._plain_styles() and self._plain_geometry(size)
 
     def _plain_geometry(self, size: Size) -> bool:
-        """The part of :meth:`_plain_box` the styles do not decide, read at each render."""
+        """The part of :meth:`_plain_box` the styles do not decide, read at each render.  (``size``
+        is the panel's size, its content region's: a border or padding is :meth:`_plain_styles`'s.)"""
         return (self._border_title is None and self._border_subtitle is None
-                and not (self.auto_links and self.hover_style._link_id)
-                and self.content_region.size == size)
+                and not (self.auto_links and self.hover_style._link_id))
 
     def _bare_lines(self, crop: Region, background, size: Size) -> list[Strip]:
         """What textual's line cache (``StylesCache.render_widget``) gives for a plain box (see
@@ -431,9 +436,10 @@ class SizedPanel(LinePanel):
         return self._builder(size.width, size.height)
 
     def _redraw(self) -> None:
-        lines = self._built(self.size)
+        size = self.size
+        lines = self._built(size)
         if lines is not None:
-            self.set_lines(lines)
+            self.set_lines(lines, size.width)
 
     def render_lines(self, crop: Region) -> list[Strip]:
         # textual draws a layout before it tells the widgets their new size (the Resize event
@@ -446,7 +452,7 @@ class SizedPanel(LinePanel):
                 self._lines = lines  # no repaint to ask for: this is the render
                 self._strips.clear()
                 self._painted = None  # the strips painted last were of the old lines
-        return super().render_lines(crop)
+        return self._render_at(crop, size)
 
 
 class LoadBoard(ScrollView, can_focus=True):
