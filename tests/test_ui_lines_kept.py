@@ -30,8 +30,8 @@ def _drawn(lines) -> list[tuple]:
 
 def _clear() -> None:
     main_screen._GZ_TITLES.clear()
-    for kept in (views._pair_line, views._tables_line, verdict._assessed_line, verdict._unassessed_line, verdict._wrapped_note,
-                 verdict._group_heading, verdict._not_assessed_lines):
+    for kept in (views._pair_line, views._tables_line, verdict._assessed_line, verdict._unassessed_line,
+                 verdict._wrapped_note, verdict._group_heading, verdict._not_assessed_lines):
         kept.cache_clear()
 
 
@@ -226,8 +226,8 @@ def test_the_board_keeps_each_row_whose_line_is_kept():
     kept = [i for i, (a, b) in enumerate(zip(before, after)) if a is b]
     assert len(before) == len(after) and len(after) - len(kept) <= 6 and len(kept) > len(after) // 2
     views._ROWS.clear()
-    assert [(r.key, r.text.plain, r.text.spans) for r in views.board_rows(
-        vessel, after_c, evaluate(vessel, after_c), False, width=66)] == [(r.key, r.text.plain, r.text.spans) for r in after]
+    afresh = views.board_rows(vessel, after_c, evaluate(vessel, after_c), False, width=66)
+    assert [(r.key, r.text.plain, r.text.spans) for r in afresh] == [(r.key, r.text.plain, r.text.spans) for r in after]
 
 
 async def test_a_nudge_reads_each_panels_geometry_twice_at_most(tmp_path, monkeypatch):
@@ -256,5 +256,6 @@ async def test_a_nudge_reads_each_panels_geometry_twice_at_most(tmp_path, monkey
         monkeypatch.setattr(Widget, "region", property(counted))
         await pilot.press("plus")
         await pilot.pause()
-        assert reads["afloat"] >= 1 and all(n <= 2 for p, n in reads.items() if p not in ("titlebar", "criteria")), reads
+        assert reads["afloat"] >= 1, reads
+        assert all(n <= 2 for p, n in reads.items() if p not in ("titlebar", "criteria")), reads
         assert reads["titlebar"] <= 4 and reads["criteria"] <= 3, reads

@@ -219,7 +219,8 @@ class LoadingScreen(Screen[None]):
         else:
             t.append((f"log off: {j.problem or 'no log'}" if words else "log off", P["caution"]))
         if s.planning:
-            t.append((f" │ PLAN ({s.plan_steps}, not logged: x to apply or discard)" if words else " │ PLAN", P["caution"]))
+            t.append((f" │ PLAN ({s.plan_steps}, not logged: x to apply or discard)" if words else " │ PLAN",
+                      P["caution"]))
         t.append((f" │ undo {s.undo_depth} redo {s.redo_depth}", P["dim"]))
         if s.saves_pending:
             # The edit is on screen but not yet on disk: say so until the writer has saved it.

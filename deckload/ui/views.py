@@ -380,7 +380,8 @@ def _pair(label: str, value: str, unit: str, stale: bool, compact: bool) -> tupl
 def _pair_line(left: tuple[str, str, str], right: tuple[str, str, str], stale: bool, compact: bool) -> Text:
     """A line of two pairs (:func:`_pair`).  Kept for the same words, as the board's lines are (a key
     leaves most of the numbers as they were printed): the Text is shared, so never modified."""
-    return pieces("", " ", *_pair(*left, stale, compact), (" " if compact else "", None), *_pair(*right, stale, compact))
+    return pieces("", " ", *_pair(*left, stale, compact), (" " if compact else "", None),
+                  *_pair(*right, stale, compact))
 
 
 def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, stale: bool, width: int = 54) -> list[Text]:

@@ -39,8 +39,8 @@ def _strip(text: Text, console) -> Strip:
 _NULL = Style.null()
 
 _ONE_CELL = frozenset(chr(c) for c in range(0x20, 0x7F)) | frozenset(
-    c for c in "°±²³µ¶·×ΔΣθρφ–—“”…›↑→↓−∠≈≤≥│┊┤─├┼█▉▊▋▌▍▎▏▕■▲▸▼◂◆✔✖" + "".join(map(chr, range(0x2800, 0x2900)))
-    if cell_len(c) == 1)
+    c for c in "°±²³µ¶·×ΔΣθρφ–—“”…›↑→↓−∠≈≤≥│┊┤─├┼█▉▊▋▌▍▎▏▕■▲▸▼◂◆✔✖"
+    + "".join(map(chr, range(0x2800, 0x2900))) if cell_len(c) == 1)
 """Printable ASCII and the symbols our lines are drawn with (and braille, the GZ chart's dots) that
 rich itself measures one cell wide (checked here, character by character, against rich's table)."""
 
