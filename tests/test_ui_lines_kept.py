@@ -259,3 +259,43 @@ async def test_a_nudge_reads_each_panels_geometry_twice_at_most(tmp_path, monkey
         assert reads["afloat"] >= 1, reads
         assert all(n <= 2 for p, n in reads.items() if p not in ("titlebar", "criteria")), reads
         assert reads["titlebar"] <= 4 and reads["criteria"] <= 3, reads
+
+
+async def test_a_line_that_comes_back_is_not_made_again(tmp_path, monkeypatch):
+    """A panel keeps the strip of each line it made by the line's identity (kept lines are shared and
+    never modified): a line shown again, on its row or another, is not made again; the same words
+    in a new Text are, and a change of the panel's width or style makes every line again."""
+    from deckload.ui import widgets
+    from deckload.ui.widgets import LinePanel
+    from demo_vessels import departure_app
+
+    app = departure_app(tmp_path)
+    async with app.run_test(size=(120, 40)) as pilot:
+        await pilot.pause()
+        panel = app.screen.query_one("#status", LinePanel)
+        made = []
+        line_strip = widgets._line_strip
+        monkeypatch.setattr(widgets, "_line_strip", lambda text, *a: made.append(text) or line_strip(text, *a))
+        a, b = Text(" one", "bold"), Text(" two", "italic")
+        panel.set_lines([a])
+        first = panel.render_line(0)
+        panel.set_lines([b])
+        panel.render_line(0)
+        panel.set_lines([a])
+        assert panel.render_line(0) is first and made == [a, b]
+        again = Text(" one", "bold")  # equal to a, another object
+        panel.set_lines([b])
+        panel.render_line(0)
+        panel.set_lines([again])
+        drawn = panel.render_line(0)
+        assert drawn is not first and [(s.text, s.style) for s in drawn] == [(s.text, s.style) for s in first]
+        assert len(made) == 3 and made[-1] is again
+        panel._style = None  # (as a theme's change: the panel's style is read again and differs)
+        await pilot.resize_terminal(100, 40)
+        await pilot.pause()
+        panel.set_lines([a])
+        await pilot.pause()
+        made.clear()
+        panel.render_line(0)
+        assert made in ([a], [])  # made at the new width once: by the frame just drawn or here
+        assert panel.render_line(0).cell_length == panel.size.width

@@ -262,6 +262,11 @@ class LinePanel(Widget):
         super().__init__(id=id, classes=classes)
         self._lines: list[Text] = []
         self._strips: dict[int, Strip] = {}
+        self._made: dict[int, tuple] = {}
+        """Strips by the line they were made from (its identity; the entry holds it, so that an id is
+        never another line's while kept), with the style and width they were made at: a kept line
+        (shared and never modified, views._pair_line...) that comes back, to the same row or
+        another, is not made again."""
         self._true: set[int] = set()
         """Lines whose kept strip textual's colour filter would give back as it is (see :func:`_line_strip`)."""
         self._style: Style | None = None
@@ -385,7 +390,15 @@ class LinePanel(Widget):
             return Strip.blank(width, style)
         strip = self._strips.get(y)
         if strip is None:  # cached finished: cropped to the width and on the panel's own style
-            strip, true = _line_strip(self._lines[y], width, style, self.app.console)
+            text = self._lines[y]
+            made = self._made.get(id(text))
+            if made is not None and made[0] is text and made[1] is style and made[2] == width:
+                strip, true = made[3], made[4]
+            else:
+                strip, true = _line_strip(text, width, style, self.app.console)
+                if len(self._made) >= 256:  # a bound: lines with new words come on every key
+                    self._made.clear()
+                self._made[id(text)] = (text, style, width, strip, true)
             self._strips[y] = strip
             if true:
                 self._true.add(y)
