@@ -183,3 +183,35 @@ def test_the_quick_pass_leaves_unknown_types_and_overflowing_sums_to_the_slow_on
                 _outer(items=(1e308, 1e308))):
         assert bounds._all_finite(obj) is False
         assert bounds._non_finite(obj, "") is None
+
+
+def test_the_quick_pass_looks_once_at_a_frozen_record_it_found_finite(monkeypatch):
+    """A frozen record of plain values, floats and tuples of floats that the quick pass found finite
+    cannot change: a later result holding the same object is not looked into again (a key's result
+    holds every unchanged tank's record from the one before), while a new record, even equal to it,
+    is; a non-finite value in a new record or around the known ones is still caught."""
+    from deckload.core.stability import evaluate
+    from deckload.ui import entry
+    from demo_vessels import demo_departure
+
+    vessel, condition = demo_departure()
+    first = evaluate(vessel, condition)
+    second = evaluate(vessel, entry.nudge_tank(condition, vessel.tanks[0], 1.0, vessel))
+    tank_type = type(first.tanks[0])
+    read = []
+    getter = bounds._FIELD_VALUES[tank_type]
+    monkeypatch.setitem(bounds._FIELD_VALUES, tank_type, lambda o: read.append(o) or getter(o))
+    bounds._KNOWN_FINITE.clear()
+    assert bounds._all_finite(first)
+    assert len(read) == len(first.tanks)
+    read.clear()
+    assert bounds._all_finite(second)
+    new = [t for t in second.tanks if not any(t is k for k in first.tanks)]
+    assert 1 <= len(new) < len(second.tanks) // 2 and read == new  # only the nudged tank's new record
+    read.clear()
+    copy = dataclasses.replace(second.tanks[3])  # equal, not the same object: looked at
+    assert bounds._all_finite(dataclasses.replace(second, tanks=(copy,) + second.tanks[1:])) and read == [copy]
+    bad = dataclasses.replace(second.tanks[3], mass_t=math.nan)
+    assert bounds._all_finite(dataclasses.replace(second, tanks=(bad,) + second.tanks[1:])) is False
+    assert bounds._all_finite(dataclasses.replace(second, displacement_t=math.inf)) is False
+    assert bounds._non_finite(dataclasses.replace(second, tanks=second.tanks[:2] + (bad,)), "") == "tanks[2].mass_t"

@@ -76,8 +76,9 @@ async def test_the_screen_resumes_the_collector_after_its_first_frame(collector,
             at_frames.append(gc.isenabled())
 
     monkeypatch.setattr(App, "_display", spy)
-    collected = []
+    collected, frozen = [], []
     monkeypatch.setattr(gc, "collect", lambda *a: collected.append(a) or 0)
+    monkeypatch.setattr(gc, "freeze", lambda: frozen.append(len(collected)))
     startup.pause()
     assert not gc.isenabled()
     app = create_app(vessel, condition, work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS",
@@ -87,3 +88,4 @@ async def test_the_screen_resumes_the_collector_after_its_first_frame(collector,
             await pilot.pause()
         assert at_frames and at_frames[0] is False  # the first frame was drawn during start-up
         assert gc.isenabled() and len(collected) == 1  # then the collector runs, after one collection
+        assert frozen == [1]  # and what start-up left after it is frozen: no later collection walks it

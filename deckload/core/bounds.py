@@ -435,6 +435,16 @@ class BeyondTablesError(OutOfRangeError):
 _FIELD_VALUES: dict[type, Callable[[object], tuple]] = {}
 """Per dataclass type, a getter of its field values as one tuple: made once per type, not per object."""
 _PLAIN = frozenset((str, bool, int, type(None)))
+_FROZEN: dict[type, bool] = {}
+"""Per dataclass type, whether it is frozen (its instances' fields cannot be set again)."""
+_KNOWN_FINITE: dict[int, object] = {}
+"""Records found finite before, by identity (each held here, so that its id is never another
+object's while it is kept): a frozen record whose every value is a plain value, a float or a
+tuple of floats cannot change, so a later result holding the same object needs no second look
+at it.  The evaluation keeps each tank's result for its fill (``stability._tank_result``): a key
+that nudges one tank hands the check 26 tank records it has seen, and one new."""
+_KNOWN_MAX = 4096
+"""A bound on :data:`_KNOWN_FINITE` (emptied when it is reached)."""
 
 
 def _all_finite(obj) -> bool:
@@ -447,12 +457,14 @@ def _all_finite(obj) -> bool:
     one by one.  A sum of floats is finite only if every one of them is (an infinity or a NaN
     makes the sum infinite or NaN, derived from IEEE 754 addition); a finite sum that overflowed
     is a false alarm the slow pass clears.  Anything not known here (another type) is False:
-    the slow pass decides."""
+    the slow pass decides.  A frozen record of plain values, floats and tuples of floats found
+    finite is remembered (:data:`_KNOWN_FINITE`) and not looked at again."""
     floats: list[float] = []
     keep = floats.append
     stack = [obj]
     pop, push, extend = stack.pop, stack.append, stack.extend
     getter_of = _FIELD_VALUES.get
+    known = _KNOWN_FINITE
     while stack:
         o = pop()
         t = type(o)
@@ -475,6 +487,7 @@ def _all_finite(obj) -> bool:
             getter = getter_of(t)
             if getter is None:
                 if dataclasses.is_dataclass(o) and not isinstance(o, type):
+                    _FROZEN[t] = bool(t.__dataclass_params__.frozen)
                     getter = _FIELD_VALUES[t] = values_getter([f.name for f in dataclasses.fields(o)])
                 elif t is np.ndarray:
                     if o.dtype.kind in "fc":
@@ -488,12 +501,43 @@ def _all_finite(obj) -> bool:
                     continue
                 else:
                     return False
+            if not _FROZEN[t]:
+                for v in getter(o):
+                    tv = type(v)
+                    if tv is float:
+                        keep(v)
+                    elif tv not in _PLAIN:
+                        push(v)
+                continue
+            if known.get(id(o)) is o:
+                continue
+            own = 0.0
+            simple = True
             for v in getter(o):
                 tv = type(v)
                 if tv is float:
-                    keep(v)
-                elif tv not in _PLAIN:
+                    own += v
+                elif tv in _PLAIN:
+                    continue
+                elif tv is tuple and v and type(v[0]) is float:
+                    try:
+                        total = sum(v)
+                    except TypeError:
+                        total = None
+                    if type(total) is float:
+                        own += total
+                    else:
+                        simple = False
+                        push(v)
+                else:
+                    simple = False
                     push(v)
+            if not math.isfinite(own):
+                return False  # (or a finite sum that overflowed: the slow pass decides)
+            if simple:
+                if len(known) >= _KNOWN_MAX:
+                    known.clear()
+                known[id(o)] = o
     return math.isfinite(sum(floats))
 
 

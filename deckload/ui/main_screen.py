@@ -26,7 +26,7 @@ from deckload.ui.compositor import RowCompositor
 from deckload.ui.entry import EntryError, ItemForm
 from deckload.ui.palette import P
 from deckload.ui.session import Session
-from deckload.ui.widgets import LinePanel, LoadBoard, SizedPanel, fit_width
+from deckload.ui.widgets import LinePanel, LoadBoard, SizedPanel, cells, fit_width
 
 RUN_PAUSE_S = 4.0
 """A run of nudges or retypes of one item ends (and is logged as one entry) after this pause."""
@@ -189,42 +189,43 @@ class LoadingScreen(Screen[None]):
         condition's name ends in '…'."""
         level = 0 if width >= NARROW_BELOW else 3
         t = self._title_text(level, None)
-        while t.cell_len > width and level < 3:
+        while cells(t.plain) > width and level < 3:
             level += 1
             t = self._title_text(level, None)
-        if t.cell_len > width:
+        if cells(t.plain) > width:
             name = self.session.condition.name
-            t = self._title_text(level, views.fit(name, max(8, len(name) - (t.cell_len - width))))
+            t = self._title_text(level, views.fit(name, max(8, len(name) - (cells(t.plain) - width))))
         return cut(t, width)
 
     def _title_text(self, level: int, name: str | None) -> Text:
         s, j = self.session, self.session.journal
-        t = Text(" deckload │ " if level < 1 else " ", P["title"])
-        t.append(f"{s.vessel.particulars.name} │ {name or s.condition.name}", P["value"])
+        t = []  # the pieces after the first (views.pieces: one Text made at the end)
+        t.append((f"{s.vessel.particulars.name} │ {name or s.condition.name}", P["value"]))
         if s.condition.modified_from:
-            t.append(f" (modified from {s.condition.modified_from})" if level < 3 else " (modified)", P["caution"])
+            t.append((f" (modified from {s.condition.modified_from})" if level < 3 else " (modified)", P["caution"]))
         words = level < 2
         # Before the log and undo words: a title too long for the screen is cut from its end.
         if s.not_saving:
-            t.append(" │ ", P["value"])
-            t.append("NOT SAVING: another deckload has this vessel" if words else "NOT SAVING", P["danger"])
+            t.append((" │ ", P["value"]))
+            t.append(("NOT SAVING: another deckload has this vessel" if words else "NOT SAVING", P["danger"]))
         elif s.unsaved:
-            t.append(" │ ", P["value"])
-            t.append("NOT SAVED: the last save failed" if words else "NOT SAVED", P["danger"])
-        t.append(" │ ", P["value"])
+            t.append((" │ ", P["value"]))
+            t.append(("NOT SAVED: the last save failed" if words else "NOT SAVED", P["danger"]))
+        t.append((" │ ", P["value"]))
         if j.writable and j.officer:
-            t.append(f"watch {j.officer}, logged" if words else f"{j.officer} logged", P["dim"])
+            t.append((f"watch {j.officer}, logged" if words else f"{j.officer} logged", P["dim"]))
         elif j.writable:
-            t.append("changes NOT logged: o to sign on" if words else "NOT logged (o)", P["caution"])
+            t.append(("changes NOT logged: o to sign on" if words else "NOT logged (o)", P["caution"]))
         else:
-            t.append(f"log off: {j.problem or 'no log'}" if words else "log off", P["caution"])
+            t.append((f"log off: {j.problem or 'no log'}" if words else "log off", P["caution"]))
         if s.planning:
-            t.append(f" │ PLAN ({s.plan_steps}, not logged: x to apply or discard)" if words else " │ PLAN", P["caution"])
-        t.append(f" │ undo {s.undo_depth} redo {s.redo_depth}", P["dim"])
+            t.append((f" │ PLAN ({s.plan_steps}, not logged: x to apply or discard)" if words else " │ PLAN",
+                      P["caution"]))
+        t.append((f" │ undo {s.undo_depth} redo {s.redo_depth}", P["dim"]))
         if s.saves_pending:
             # The edit is on screen but not yet on disk: say so until the writer has saved it.
-            t.append(" │ saving…" if level < 3 else " saving…", P["caution"])
-        return t
+            t.append((" │ saving…" if level < 3 else " saving…", P["caution"]))
+        return views.pieces(P["title"], " deckload │ " if level < 1 else " ", *t)
 
     def _save_landed(self) -> None:
         """A change reached the disk (or failed, which ``_report`` says): redraw the title."""
@@ -857,7 +858,7 @@ _WRAP_CONSOLE = Console(width=400, no_color=True, legacy_windows=False)
 
 def cut(text: Text, width: int) -> Text:
     """``text`` if it fits in ``width`` cells, else a copy cut to fit, ending in "…"."""
-    if text.cell_len <= width:
+    if cells(text.plain) <= width:
         return text
     out = text.copy()
     out.truncate(width, overflow="ellipsis")
@@ -867,7 +868,7 @@ def cut(text: Text, width: int) -> Text:
 def fit_lines(text: Text, width: int, max_lines: int, indent: int = 2) -> list[Text]:
     """``text`` wrapped to ``width`` cells (lines after the first indented by ``indent``), at most
     ``max_lines``; the last line ends in "…" when anything is left out."""
-    if text.cell_len <= width:
+    if cells(text.plain) <= width:
         return [text]
     first, *rest = text.wrap(_WRAP_CONSOLE, max(10, width - indent))
     lines = [first] + [Text(" " * indent).append_text(line) for line in rest]
@@ -886,9 +887,24 @@ def gz_title_lines(result, width: int) -> list[Text]:
     """The curve's title (views.gz_caption) with every fact it holds: "GZ curve" becomes "GZ" where
     the line is too short, then it wraps to two lines; nothing is left out."""
     title = views.gz_caption(result)
-    if title.cell_len > width and title.plain.startswith(" GZ curve"):
+    key = (title.plain, tuple(title.spans), title.style, width)
+    lines = _GZ_TITLES.get(key)
+    if lines is None:
+        if len(_GZ_TITLES) >= 256:  # a bound: a caption holds numbers, each key may bring a new one
+            _GZ_TITLES.clear()
+        lines = _GZ_TITLES[key] = tuple(_gz_title_lines(title, width))
+    return list(lines)
+
+
+_GZ_TITLES: dict[tuple, tuple[Text, ...]] = {}
+"""The title's lines kept by the caption's text, spans and style and the width (a caption
+cut into lines is rich's slicing, a few tens of µs a line): shared, never modified."""
+
+
+def _gz_title_lines(title: Text, width: int) -> list[Text]:
+    if cells(title.plain) > width and title.plain.startswith(" GZ curve"):
         title = Text(" GZ", P["title"]).append_text(title[len(" GZ curve"):])
-    if title.cell_len <= width:
+    if cells(title.plain) <= width:
         return [title]
     # Lines broken between its parts (two spaces apart), never inside one ("max 0.374 | m at 29.2°"):
     # packed greedily into at most three lines; only a part wider than the panel is wrapped by words.

@@ -15,6 +15,7 @@ criterion (with the first line of its reason) and the not-assessed line stay.
 
 from __future__ import annotations
 
+import functools
 import re
 import textwrap
 
@@ -24,7 +25,7 @@ from deckload.report import verdict_format as vf
 from deckload.core.result import CriterionResult, Result
 from deckload.ui.gzplot import Area, GzChart, Level, Mark
 from deckload.ui.palette import P
-from deckload.ui.views import CMP, criterion_name, verdict
+from deckload.ui.views import CMP, criterion_name, pieces, verdict
 
 WORD_STYLE = {"met": "ok", "NOT MET": "danger", "met where assessable": "caution", "nothing assessed": "danger",
               "not assessable": "danger"}
@@ -33,24 +34,34 @@ VERDICT_KEY = "v"
 
 
 def _criterion_line(c: CriterionResult, stale: bool, compact: bool) -> Text:
-    line = Text(f" {criterion_name(c):<12.12}", P["label"])
-    vs = P["stale"] if stale else P["value"]
     d = vf.digits_of(c)
     limit = f"{CMP.get(c.comparison, c.comparison)}{c.limit:6.{d}f} "
     if not c.assessed:
-        line.append(f"{vf.NOT_ASSESSABLE:>14} " if compact else f"{'n/a':>7} {limit}", P["caution"])
-        if not compact:
-            line.append(f"{'':>8}{'n/a':<4}", P["caution"])
-            line.append(f" {vf.paragraph(c, short=True)}", P["dim"])
-        return line
-    line.append(f"{c.value:7.{d}f} {limit}", vs)
-    if not compact:
-        line.append(f"{c.margin:+8.{d}f} ", vs)
+        return _unassessed_line(criterion_name(c), limit, vf.paragraph(c, short=True), compact)
     word, style = verdict(c)
-    line.append(f"{word:<4}", P["stale"] if stale else P[style])
-    if not compact:
-        line.append(f" {vf.paragraph(c, short=True)}", P["dim"])
-    return line
+    return _assessed_line(criterion_name(c), f"{c.value:7.{d}f} {limit}",
+                          "" if compact else f"{c.margin:+8.{d}f} ", word, style,
+                          "" if compact else vf.paragraph(c, short=True), stale, compact)
+
+
+@functools.lru_cache(maxsize=1024)
+def _assessed_line(name: str, value_limit: str, margin: str, word: str, style: str, paragraph: str,
+                   stale: bool, compact: bool) -> Text:
+    """A criterion's line from its printed words: kept for the same words (a key leaves most
+    criteria as they were printed), so the Text is shared and never modified."""
+    vs = P["stale"] if stale else P["value"]
+    return pieces(P["label"], f" {name:<12.12}", (value_limit, vs), *(() if compact else ((margin, vs),)),
+                  (f"{word:<4}", P["stale"] if stale else P[style]),
+                  *(() if compact else ((f" {paragraph}", P["dim"]),)))
+
+
+@functools.lru_cache(maxsize=256)
+def _unassessed_line(name: str, limit: str, paragraph: str, compact: bool) -> Text:
+    """An unassessable criterion's line (kept and shared as :func:`_assessed_line`'s)."""
+    if compact:
+        return pieces(P["label"], f" {name:<12.12}", (f"{vf.NOT_ASSESSABLE:>14} ", P["caution"]))
+    return pieces(P["label"], f" {name:<12.12}", (f"{'n/a':>7} {limit}", P["caution"]),
+                  (f"{'':>8}{'n/a':<4}", P["caution"]), (f" {paragraph}", P["dim"]))
 
 
 def _wrap_words(words: list[str], first: str, width: int, sep: str = ",", last: str = "") -> list[str]:
@@ -95,11 +106,26 @@ def _group_title(title: str, room: int) -> Text:
     return h
 
 
+@functools.lru_cache(maxsize=256)
+def _group_heading(title: str, room: int, word: str, stale: bool) -> Text:
+    """A set's heading (:func:`_group_title`) and its verdict word; kept for the same words, so the
+    Text is shared and never modified."""
+    h = _group_title(title, room)
+    h.append(" " + word, P["stale"] if stale else P[WORD_STYLE.get(word, "caution")])
+    return h
+
+
 NOTE_INDENT, NOTE_MORE = "   ", "     "
 """A note under its criterion, and the lines it wraps onto, indented further."""
 
 
 def _note_lines(note: str, width: int) -> list[Text]:
+    """:func:`_wrapped_note`'s lines (a list of its own: the lines themselves are shared)."""
+    return list(_wrapped_note(note, width))
+
+
+@functools.lru_cache(maxsize=256)
+def _wrapped_note(note: str, width: int) -> tuple[Text, ...]:
     """A criterion's note wrapped to ``width``, the lines after the first indented further: a clause
     (up to a comma or semicolon) that does not fit where the line stands starts the next line, so
     that "lw1 0.0626 m" stays on one; a clause too long for any line fills the line it starts on,
@@ -125,7 +151,8 @@ def _note_lines(note: str, width: int) -> list[Text]:
                     lines.append(cur)
                     cur = NOTE_MORE + word
     lines.append(cur)
-    return [_fit(Text(x.rstrip(), P["dim"]), width) for x in lines]
+    # kept for the same note and width (most notes are the same after a key): shared, never modified
+    return tuple(_fit(Text(x.rstrip(), P["dim"]), width) for x in lines)
 
 
 def _first_rows(notes: list[Text], rows: int, width: int) -> list[Text]:
@@ -174,8 +201,7 @@ def criteria_lines(result: Result | None, stale: bool, width: int, height: int =
     for g in vf.grouped(result):
         gw = g.word
         # the word ends where a criterion's line does (54 cells), not at the far edge of a wide panel
-        h = _group_title(vf.set_title(g.set.title), max(4, min(width, 54) - len(gw) - 2))
-        h.append(" " + gw, P["stale"] if stale else P[WORD_STYLE.get(gw, "caution")])
+        h = _group_heading(vf.set_title(g.set.title), max(4, min(width, 54) - len(gw) - 2), gw, stale)
         rows = []
         for c in g.criteria:
             notes = _note_lines(c.note, width) if (c.note and not c.assessed) or (c.note and not compact) else []
@@ -186,11 +212,8 @@ def criteria_lines(result: Result | None, stale: bool, width: int, height: int =
     note_order = sorted(((gi, ri) for gi, (_, rows) in enumerate(groups) for ri, (_, _, n) in enumerate(rows) if n),
                         key=lambda k: (not _is_ok(groups[k[0]][1][k[1]][0]), -k[0], -k[1]))
 
-    na_items = [vf.short_item(n.item) for n in result.not_assessed]
-    na_full = [_fit(Text(y, P["caution"]), width)  # an item wider than the line wraps by words
-               for x in _wrap_words(na_items, " Not assessed:", width, last=f"({VERDICT_KEY}: why)")
-               for y in (textwrap.wrap(x, max(8, width), subsequent_indent=NOTE_MORE, break_long_words=False,
-                                       break_on_hyphens=False) if len(x) > width else [x])] if na_items else []
+    na_items = tuple(vf.short_item(n.item) for n in result.not_assessed)
+    na_full = list(_not_assessed_lines(na_items, width)) if na_items else []
     na_short = [Text(f" Not assessed: {len(na_items)} items ({VERDICT_KEY})", P["caution"])] if na_items else []
 
     def build(with_notes: bool, with_colhead: bool, na: list[Text], keep_ok: dict[int, int],
@@ -250,6 +273,16 @@ def criteria_lines(result: Result | None, stale: bool, width: int, height: int =
 NO_VERDICT = "no verdict for this condition"
 NO_VERDICT_WHY = ("it is outside the vessel's tables, so nothing was assessed (see the warning). "
                   "The last good condition's criteria are not this one's and are not shown.")
+
+
+@functools.lru_cache(maxsize=64)
+def _not_assessed_lines(items: tuple[str, ...], width: int) -> tuple[Text, ...]:
+    """' Not assessed: …' with every item, wrapped to ``width`` (kept for the same items and width:
+    shared, never modified)."""
+    return tuple(_fit(Text(y, P["caution"]), width)  # an item wider than the line wraps by words
+                 for x in _wrap_words(list(items), " Not assessed:", width, last=f"({VERDICT_KEY}: why)")
+                 for y in (textwrap.wrap(x, max(8, width), subsequent_indent=NOTE_MORE, break_long_words=False,
+                                         break_on_hyphens=False) if len(x) > width else [x]))
 
 
 def no_verdict_lines(width: int, height: int = 10_000) -> list[Text]:

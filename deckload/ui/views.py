@@ -9,7 +9,7 @@ from __future__ import annotations
 
 import functools
 
-from rich.text import Text
+from rich.text import Span, Text
 
 from deckload.core.deadweight import deadweight_by_kind
 from deckload.core.free_surface import EXEMPT_RULE, tank_state
@@ -69,6 +69,29 @@ def _flood_cell(r: Result) -> tuple[str, str]:
     return opt(r.downflooding_angle_deg, ".1f"), "°"
 
 
+def pieces(style, first: str, *rest: tuple[str, object]) -> Text:
+    """``Text(first, style)`` with each ``(text, style)`` of ``rest`` appended: the same Text (its
+    plain text and spans), made in one step.  rich's ``Text.append`` strips control codes from each
+    piece and keeps a list of the pieces to join; a panel line is a dozen of them, rebuilt on
+    every key.  Here the pieces are joined once and stripped once (``Text.__init__``); should the
+    stripping take anything out, the offsets of the spans would be wrong, so the line is then made
+    by ``append`` itself."""
+    spans = []
+    at = len(first)
+    for text, st in rest:
+        end = at + len(text)
+        if st and end > at:  # (append gives an empty piece, or one without a style, no span)
+            spans.append(Span(at, end, st))
+        at = end
+    plain = first + "".join([text for text, _ in rest])
+    line = Text(plain, style, spans=spans)
+    if len(line) != at:  # a control code was taken out: rich's own way, piece by piece
+        line = Text(first, style)
+        for text, st in rest:
+            line.append(text, st)
+    return line
+
+
 def opt(value: float | None, fmt: str) -> str:
     """A value the result may not have: 'n/a' when None or not finite."""
     return fmt_optional(value, fmt)
@@ -84,6 +107,22 @@ class Row:
     key: tuple | None
     """('tank', id), ('hold', id), ('deck', i) or ('const', i); None for a heading line."""
     text: Text
+
+
+_ROWS: dict[tuple, Row] = {}
+"""Rows by their key and line (by identity: the lines are kept and shared, :func:`_tank_line`)."""
+
+
+def _row(key: tuple | None, text: Text) -> Row:
+    """``Row(key, text)``, the same Row for the same key and line: a key changes one or two of the
+    board's lines, and every Row was made again (a frozen record: each field set by
+    ``object.__setattr__``)."""
+    got = _ROWS.get((key, id(text)))
+    if got is None or got.text is not text:  # (the Row holds its line: an id is not reused while kept)
+        if len(_ROWS) >= 4096:  # a bound: new lines come with new values
+            _ROWS.clear()
+        got = _ROWS[(key, id(text))] = Row(key, text)
+    return got
 
 
 RHO_COL_FROM = 56
@@ -117,6 +156,7 @@ class TankCols:
     width: int = 0
 
     @staticmethod
+    @functools.lru_cache(maxsize=64)
     def for_width(width: int, id_w: int = ID_MIN) -> "TankCols":
         rho = width >= RHO_COL_FROM
         id_w = max(ID_MIN, min(ID_MAX, id_w))
@@ -152,7 +192,7 @@ def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stal
     fills: dict = {}
     for f in condition.tanks:  # Condition.tank_fill's answer for each tank, in one pass
         fills.setdefault(f.tank_id, f)
-    rows: list[Row] = [Row(None, _board_head(cols))]
+    rows: list[Row] = [_row(None, _board_head(cols))]
     for kind in BOARD_ORDER:
         tanks = [t for t in vessel.tanks if t.kind == kind]
         if not tanks:
@@ -175,9 +215,9 @@ def board_rows(vessel: Vessel, condition: Condition, result: Result | None, stal
                 state = tank_state(pct, tank, vessel.free_surface.empty_pct, vessel.free_surface.nominally_full_pct)
                 values = (pct, vol, vol * rho, rho, None, state, False)
             lines.append((tank, stated, values))
-        rows.append(Row(None, _group_line(KIND_TITLE.get(kind, kind), sum(v[2] for _, _, v in lines), cols)))
+        rows.append(_row(None, _group_line(KIND_TITLE.get(kind, kind), sum(v[2] for _, _, v in lines), cols)))
         for tank, stated, values in lines:
-            rows.append(Row(("tank", tank.id), _tank_line(tank.id, stated, *values, kind, cols, stale)))
+            rows.append(_row(("tank", tank.id), _tank_line(tank.id, stated, *values, kind, cols, stale)))
     rows.extend(_cargo_rows(vessel, condition, cols))
     if result is not None:
         rows.extend(deadweight_rows(result, stale, cols))
@@ -231,10 +271,10 @@ def _tank_line(tid, stated, pct, vol, mass, rho, fsm, state, by_rule, kind, cols
 def deadweight_rows(result: Result, stale: bool, cols: TankCols) -> list[Row]:
     """The deadweight by kind (cargo, each liquid, stores and constants) under a heading, and the
     deadweight they add up to, each under the tanks' t column."""
-    rows = [Row(None, _dwt_line(" Deadweight by kind" + (" (last good)" if stale else ""), None, "", stale, cols))]
+    rows = [_row(None, _dwt_line(" Deadweight by kind" + (" (last good)" if stale else ""), None, "", stale, cols))]
     for line in deadweight_by_kind(result):
-        rows.append(Row(("dwt", line.kind), _dwt_line(line.title, line.mass_t, " ", stale, cols)))
-    rows.append(Row(("dwt", "total"), _dwt_line("Deadweight", result.deadweight_t, "Σ", stale, cols)))
+        rows.append(_row(("dwt", line.kind), _dwt_line(line.title, line.mass_t, " ", stale, cols)))
+    rows.append(_row(("dwt", "total"), _dwt_line("Deadweight", result.deadweight_t, "Σ", stale, cols)))
     return rows
 
 
@@ -260,16 +300,16 @@ def _cargo_rows(vessel: Vessel, condition: Condition, cols: TankCols) -> list[Ro
         name = f"{hold.id} {hold.name}" + (f": {load.description}" if load and load.description else "")
         # the hold's limit: the first spelling that fits the cells after the mass
         limit = () if hold.max_mass_t is None else (f" of {hold.max_mass_t:g} t", f" of {hold.max_mass_t:g}")
-        rows.append(Row(("hold", hold.id), _mass_line("hold", name, load.mass_t if load else 0.0, limit, cols, one=True)))
+        rows.append(_row(("hold", hold.id), _mass_line("hold", name, load.mass_t if load else 0.0, limit, cols, one=True)))
     for i, item in enumerate(condition.deck_items):
-        rows.append(Row(("deck", i), _mass_line("deck", item.name, item.mass_t, _position(item, getattr(item, "area_id", None)), cols)))
+        rows.append(_row(("deck", i), _mass_line("deck", item.name, item.mass_t, _position(item, getattr(item, "area_id", None)), cols)))
     for i, item in enumerate(condition.constants):
-        rows.append(Row(("const", i), _mass_line("const", item.name, item.mass_t, _position(item, None), cols)))
+        rows.append(_row(("const", i), _mass_line("const", item.name, item.mass_t, _position(item, None), cols)))
     # The profile's fixed constants this condition does not replace (read-only here).
     own = {c.name for c in condition.constants}
     for i, item in enumerate(vessel.constants):
         if item.name not in own:
-            rows.append(Row(("fixed", i), _mass_line("fixed", item.name, item.mass_t, _position(item, None), cols)))
+            rows.append(_row(("fixed", i), _mass_line("fixed", item.name, item.mass_t, _position(item, None), cols)))
     return rows
 
 
@@ -329,10 +369,19 @@ def mark_letters(name: str | None) -> str:
     return MARK_LETTERS.get(key, name[:3])
 
 
-def _pair(line: Text, label: str, value: str, unit: str, stale: bool, compact: bool) -> None:
-    line.append(f"{label:<6}" if not compact else f"{COMPACT_LABEL.get(label, label):<5.5}", P["label"])
-    line.append(f"{value:>8} " if not compact else f"{value:>7} ", P["stale"] if stale else P["value"])
-    line.append(f"{unit:<5.5}" if not compact else f"{unit:<3.3}", P["unit"])
+def _pair(label: str, value: str, unit: str, stale: bool, compact: bool) -> tuple[tuple[str, object], ...]:
+    """A label, its value and unit: the three pieces of a line (:func:`pieces`)."""
+    return ((f"{label:<6}" if not compact else f"{COMPACT_LABEL.get(label, label):<5.5}", P["label"]),
+            (f"{value:>8} " if not compact else f"{value:>7} ", P["stale"] if stale else P["value"]),
+            (f"{unit:<5.5}" if not compact else f"{unit:<3.3}", P["unit"]))
+
+
+@functools.lru_cache(maxsize=1024)
+def _pair_line(left: tuple[str, str, str], right: tuple[str, str, str], stale: bool, compact: bool) -> Text:
+    """A line of two pairs (:func:`_pair`).  Kept for the same words, as the board's lines are (a key
+    leaves most of the numbers as they were printed): the Text is shared, so never modified."""
+    return pieces("", " ", *_pair(*left, stale, compact), (" " if compact else "", None),
+                  *_pair(*right, stale, compact))
 
 
 def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, stale: bool, width: int = 54) -> list[Text]:
@@ -375,14 +424,16 @@ def afloat_lines(vessel: Vessel, condition: Condition, result: Result | None, st
     ]
     out = [title]
     for left, right in rows:
-        line = Text(" ")
-        _pair(line, *left, stale, compact)
-        line.append(" " if compact else "")
-        _pair(line, *right, stale, compact)
-        out.append(line)
+        out.append(_pair_line(left, right, stale, compact))
     # which hydrostatic and KN tables: even keel, or at trims and between which
-    out.append(Text(" Tables ", P["label"]) + Text(tables_basis(vessel, r.trim_m).short, P["dim"]))
+    out.append(_tables_line(tables_basis(vessel, r.trim_m).short))
     return out
+
+
+@functools.lru_cache(maxsize=64)
+def _tables_line(basis: str) -> Text:
+    """' Tables even keel': which tables the numbers were read from (kept and shared, as :func:`_pair_line`)."""
+    return Text(" Tables ", P["label"]) + Text(basis, P["dim"])
 
 
 SHORT_NAMES = {
@@ -457,11 +508,7 @@ def gz_caption(result: Result | None, width: int | None = None) -> Text:
         name = " GZ"
     if width is not None and len(name + side + "".join(parts + zero)) > width:
         parts[-1] = f"  max {result.max_gz_m:.3f} m"
-    t = Text(name, P["title"])
-    t.append(side, P["title"])
-    for p in parts + zero:
-        t.append(p, P["dim"])
-    return t
+    return pieces(P["title"], name, (side, P["title"]), *((p, P["dim"]) for p in parts + zero))
 
 
 # --------------------------------------------------------------------------- warnings

@@ -38,6 +38,20 @@ def _strip(text: Text, console) -> Strip:
 
 _NULL = Style.null()
 
+_ONE_CELL = frozenset(chr(c) for c in range(0x20, 0x7F)) | frozenset(
+    c for c in "°±²³µ¶·×ΔΣθρφ–—“”…›↑→↓−∠≈≤≥│┊┤─├┼█▉▊▋▌▍▎▏▕■▲▸▼◂◆✔✖"
+    + "".join(map(chr, range(0x2800, 0x2900))) if cell_len(c) == 1)
+"""Printable ASCII and the symbols our lines are drawn with (and braille, the GZ chart's dots) that
+rich itself measures one cell wide (checked here, character by character, against rich's table)."""
+
+
+def cells(text: str) -> int:
+    """``rich.cells.cell_len(text)``: the cells ``text`` takes on the terminal.  A line of our own
+    characters (:data:`_ONE_CELL`) takes one cell each; rich measures a line holding any character
+    outside its short list of one-cell ranges (a "≥", a "…") character by character, each a
+    function call and a cache lookup, for every line a key changes."""
+    return len(text) if _ONE_CELL.issuperset(text) else cell_len(text)
+
 _SUMS: dict[Style, dict[tuple[int, int], tuple[Style, Style, Style, bool]]] = {}
 """Per panel style ``own``: ``own + base + span`` of the palette styles (ui/palette.py) a line is
 made of, keyed by the two styles' identities (the palette's objects live as long as the program;
@@ -91,13 +105,13 @@ def fit_width(text: Text, width: int) -> Text:
     more than nothing would, and no one reads a cut path as a whole one.  A line that fits is
     returned as it is."""
     plain = text.plain
-    if cell_len(plain) <= width:
+    if cells(plain) <= width:
         return text
     if width <= 1:
         return Text("…"[:width], style=text.style)
-    cut, cells = 0, 0
-    while cut < len(plain) and cells + cell_len(plain[cut]) <= width - 1:
-        cells += cell_len(plain[cut])
+    cut, used = 0, 0
+    while cut < len(plain) and used + cell_len(plain[cut]) <= width - 1:
+        used += cell_len(plain[cut])
         cut += 1
     start = cut
     while start > 0 and not plain[start - 1].isspace() and start < len(plain) and not plain[start].isspace():
@@ -124,14 +138,14 @@ def _line_strip(text: Text, width: int, own: Style, console) -> tuple[Strip, boo
     Anything else (overlapping spans, style names, a line wider than the panel) takes
     the general way above."""
     plain = text.plain
-    cells = cell_len(plain)
-    if cells > width:
+    n = cells(plain)
+    if n > width:
         text = fit_width(text, width)
         plain = text.plain
-        cells = cell_len(plain)
+        n = cells(plain)
     spans = text.spans
     base = text.style or _NULL  # Text's default style "" is the null style
-    if not plain or cells > width or not isinstance(base, Style):
+    if not plain or n > width or not isinstance(base, Style):
         return _strip(text, console).crop_extend(0, width, None).apply_style(own), False
     sums = _sums(own)
     segments: list[Segment] = []
@@ -155,10 +169,10 @@ def _line_strip(text: Text, width: int, own: Style, console) -> tuple[Strip, boo
             pos = end
         if pos < len(plain):
             add(Segment(plain[pos:], own_base))
-    if cells < width:
+    if n < width:
         own_only, ok = _plus(sums, own, _NULL, _NULL)
         true = true and ok
-        add(Segment(" " * (width - cells), own_only))
+        add(Segment(" " * (width - n), own_only))
     return Strip(segments, width), true
 
 
@@ -191,10 +205,11 @@ def _repaint(widget: Widget, *regions: Region) -> None:
     widget.refresh(*regions)
 
 
-def _look(widget: Widget, read) -> tuple:
+def _look(widget: Widget, read, *more) -> tuple:
     """The widget's look as ``read()`` gives it, kept in ``widget._look`` and read again only when
-    :func:`_look_key` moves (a style it is made from changed)."""
-    key = _look_key(widget)
+    :func:`_look_key` moves (a style it is made from changed), or any of ``more`` (the change
+    counts of the component styles it also reads)."""
+    key = _look_key(widget) + more
     kept = widget._look
     if kept is None or kept[0] != key:
         kept = widget._look = (key, read())
@@ -247,6 +262,11 @@ class LinePanel(Widget):
         super().__init__(id=id, classes=classes)
         self._lines: list[Text] = []
         self._strips: dict[int, Strip] = {}
+        self._made: dict[int, tuple] = {}
+        """Strips by the line they were made from (its identity; the entry holds it, so that an id is
+        never another line's while kept), with the style and width they were made at: a kept line
+        (shared and never modified, views._pair_line...) that comes back, to the same row or
+        another, is not made again."""
         self._true: set[int] = set()
         """Lines whose kept strip textual's colour filter would give back as it is (see :func:`_line_strip`)."""
         self._style: Style | None = None
@@ -262,20 +282,22 @@ class LinePanel(Widget):
     def lines(self) -> list[Text]:
         return self._lines
 
-    def set_lines(self, lines: list[Text]) -> None:
-        """Show ``lines``; only the lines that differ from those shown are repainted."""
+    def set_lines(self, lines: list[Text], width: int | None = None) -> None:
+        """Show ``lines``; only the lines that differ from those shown are repainted.  ``width``:
+        the panel's width, when the caller has just read it (each read is a walk to the screen)."""
         old, self._lines = self._lines, lines
         if len(old) != len(lines):
             self._strips.clear()
             _repaint(self)
             return
-        width = self.size.width
         # (a line kept by its maker is the same object: rich's Text compares in Python)
-        changed = [Region(0, y, width, 1) for y, (a, b) in enumerate(zip(old, lines)) if a is not b and a != b]
-        for r in changed:
-            self._strips.pop(r.y, None)
+        changed = [y for y, (a, b) in enumerate(zip(old, lines)) if a is not b and a != b]
         if changed:  # one refresh for all of them: each call is a walk through textual's bookkeeping
-            _repaint(self, *changed)
+            if width is None:
+                width = self.size.width
+            for y in changed:
+                self._strips.pop(y, None)
+            _repaint(self, *[Region(0, y, width, 1) for y in changed])
 
     def plain(self) -> str:
         return "\n".join(t.plain for t in self._lines)
@@ -286,12 +308,15 @@ class LinePanel(Widget):
         super()._set_dirty(*regions)
 
     def render_lines(self, crop: Region) -> list[Strip]:
+        return self._render_at(crop, self.size)  # (a walk through textual's geometry each time it is read)
+
+    def _render_at(self, crop: Region, size: Size) -> list[Strip]:
+        """:meth:`render_lines` at the panel's size ``size`` (read once by the caller)."""
         app = self.app
         # The panel's look (style, background colours, plain box) for as long as no style it is
         # made from changes: each is a walk up the parents through their styles.
         style, colours, plain_styles = _look(
             self, lambda: (self.rich_style, self.background_colors, self._plain_styles()))
-        size = self.size  # (a walk through textual's geometry each time it is read)
         # (A change of theme restyles, and so marks dirty, every widget.)
         made_for = (crop, size, colours, tuple((f, f.enabled) for f in app._filters))
         painted = self._painted
@@ -327,10 +352,10 @@ class LinePanel(Widget):
         return self._plain_styles() and self._plain_geometry(size)
 
     def _plain_geometry(self, size: Size) -> bool:
-        """The part of :meth:`_plain_box` the styles do not decide, read at each render."""
+        """The part of :meth:`_plain_box` the styles do not decide, read at each render.  (``size``
+        is the panel's size, its content region's: a border or padding is :meth:`_plain_styles`'s.)"""
         return (self._border_title is None and self._border_subtitle is None
-                and not (self.auto_links and self.hover_style._link_id)
-                and self.content_region.size == size)
+                and not (self.auto_links and self.hover_style._link_id))
 
     def _bare_lines(self, crop: Region, background, size: Size) -> list[Strip]:
         """What textual's line cache (``StylesCache.render_widget``) gives for a plain box (see
@@ -365,7 +390,15 @@ class LinePanel(Widget):
             return Strip.blank(width, style)
         strip = self._strips.get(y)
         if strip is None:  # cached finished: cropped to the width and on the panel's own style
-            strip, true = _line_strip(self._lines[y], width, style, self.app.console)
+            text = self._lines[y]
+            made = self._made.get(id(text))
+            if made is not None and made[0] is text and made[1] is style and made[2] == width:
+                strip, true = made[3], made[4]
+            else:
+                strip, true = _line_strip(text, width, style, self.app.console)
+                if len(self._made) >= 256:  # a bound: lines with new words come on every key
+                    self._made.clear()
+                self._made[id(text)] = (text, style, width, strip, true)
             self._strips[y] = strip
             if true:
                 self._true.add(y)
@@ -416,9 +449,10 @@ class SizedPanel(LinePanel):
         return self._builder(size.width, size.height)
 
     def _redraw(self) -> None:
-        lines = self._built(self.size)
+        size = self.size
+        lines = self._built(size)
         if lines is not None:
-            self.set_lines(lines)
+            self.set_lines(lines, size.width)
 
     def render_lines(self, crop: Region) -> list[Strip]:
         # textual draws a layout before it tells the widgets their new size (the Resize event
@@ -431,7 +465,7 @@ class SizedPanel(LinePanel):
                 self._lines = lines  # no repaint to ask for: this is the render
                 self._strips.clear()
                 self._painted = None  # the strips painted last were of the old lines
-        return super().render_lines(crop)
+        return self._render_at(crop, size)
 
 
 class LoadBoard(ScrollView, can_focus=True):
@@ -557,9 +591,13 @@ class LoadBoard(ScrollView, can_focus=True):
         if self._data is not None and self._width == 0 and self.scrollable_content_region.width:
             self._rebuild(repaint=False)  # a layout's frame is drawn before its Resize event (see SizedPanel)
         # The board's own style and box for as long as no style they are made from changes (see
-        # LinePanel.render_lines); the cursor's style and the focus are read each time.
-        own, box = _look(self, lambda: (self.rich_style, self._box_styles()))
-        styles = (own, self.get_component_rich_style("board--cursor"), self.has_focus)
+        # LinePanel.render_lines), and the cursor's: its component's styles over the board's
+        # (textual's component node under the board), whose own change count joins the look's key.
+        # The focus is read each time.
+        own, box, cursor = _look(
+            self, lambda: (self.rich_style, self._box_styles(), self.get_component_rich_style("board--cursor")),
+            self._component_styles["board--cursor"]._cache_key)
+        styles = (own, cursor, self.has_focus)
         if styles != self._styles:
             self._styles = styles
             self._strips.clear()
@@ -643,12 +681,15 @@ class LoadBoard(ScrollView, can_focus=True):
         if strip is None:
             if idx != self.cursor:
                 strip, _ = _line_strip(self.rows[idx].text, width, own, self.app.console)
+            elif focused:  # the cursor's colours win over the line's own
+                # own + (piece + cursor) for each piece, as the line drawn, coloured, then put on
+                # the board's style: rich adds styles associatively (each attribute, colour and
+                # link is the last one set), so it is the finished line's own + piece, + cursor.
+                strip, _ = _line_strip(self.rows[idx].text, width, own, self.app.console)
+                strip = Strip([Segment(seg.text, seg.style + cursor) for seg in strip], width)
             else:
                 strip = _strip(fit_width(self.rows[idx].text, width), self.app.console).crop_extend(0, width, None)
-                if focused:  # the cursor's colours win over the line's own
-                    strip = Strip([Segment(seg.text, (seg.style or Style()) + cursor) for seg in strip], width)
-                else:
-                    strip = Strip.join([Strip([Segment("›")], 1), strip.crop(1, width)])
+                strip = Strip.join([Strip([Segment("›")], 1), strip.crop(1, width)])
                 strip = strip.apply_style(own)
             self._strips[idx] = strip
         return strip
