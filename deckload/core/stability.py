@@ -29,7 +29,6 @@ works travel in its output's ``notes`` and are gathered by the last stage.
 from __future__ import annotations
 
 import math
-import re
 from dataclasses import replace
 from functools import lru_cache
 
@@ -486,9 +485,14 @@ def stage_criteria(vessel: Vessel, condition: Condition, weights: Weights, fs: F
                       tuple(criteria), verdict, deck_edge, tuple(notes))
 
 
-PASSENGER_WORDS = re.compile(r"passeng|\bpax\b|persons|people", re.IGNORECASE)
-"""A constant or deck item whose name says it holds the passengers (any case): "Passengers",
-"120 pax", "Persons on board and effects"."""
+PASSENGER_WORDS = ("passeng", "pax", "person", "people")
+"""A constant or deck item whose name holds one of these (any case) is taken to hold the
+passengers: "Passengers", "120 pax", "Persons on board and effects"."""
+
+
+def _names_passengers(name: str) -> bool:
+    low = name.lower()
+    return any(w in low for w in PASSENGER_WORDS)
 
 LOLL_EITHER_SIDE_TCG_M = 1e-6
 """A TCG within a micrometre of the centreline (round-off of the weight sums) leaves the side of a
@@ -529,7 +533,7 @@ def stage_warnings(vessel: Vessel, condition: Condition, weights: Weights, fs: F
         state.append(Warning("no-equilibrium", f"GZ never becomes positive heeling to {curve.side} up to "
                              f"{curve.heel_deg[-1]:g}°: no position of equilibrium", "danger"))
     pax = vessel.passengers
-    if pax is not None and not any(PASSENGER_WORDS.search(it.name) for it in weights.items if it.group != "lightship"):
+    if pax is not None and not any(_names_passengers(it.name) for it in weights.items if it.group != "lightship"):
         # [passengers] serves the crowding heel only (vessel_profiles/README.md): their mass is the
         # condition's to carry, and a crowd judged without it reads Met where the laden ship fails
         # (found by a criteria-set audit: 10.2° with 7.5 t of passengers aboard, 7.8° without).
