@@ -26,7 +26,6 @@ from __future__ import annotations
 
 import dataclasses
 import math
-import re
 
 import numpy as np
 
@@ -1670,13 +1669,14 @@ def _free_surface_settings(a: _Audit) -> None:
               "fs-setting")
 
 
-TYPE_WORDS: tuple[tuple[str, str, str], ...] = (
-    ("fishing", "a fishing vessel", r"fishing|fishery|trawlers?|seiners?|long-?liners?"),
-    ("passenger", "a passenger ship", r"passengers?|ferry|ferries"),
-    ("offshore_supply", "an offshore supply vessel", r"offshore[ -]supply|osv|psv|platform[ -]supply"),
+TYPE_WORDS: tuple[tuple[str, str, tuple[str, ...]], ...] = (
+    ("fishing", "a fishing vessel", ("fishing", "fishery", "trawler", "trawlers", "seiner", "seiners",
+                                     "longliner", "longliners", "long liner", "long liners")),
+    ("passenger", "a passenger ship", ("passenger", "passengers", "ferry", "ferries")),
+    ("offshore_supply", "an offshore supply vessel", ("offshore supply", "osv", "psv", "platform supply")),
 )
 """Words of ``[vessel] vessel_type`` (whole words, any case) that name a ``ship_type``: the trade's
-names of the kinds (common practice).  'supply' alone does not: an island-supply vessel is a cargo ship."""
+names of the kinds (common practice); a hyphen reads as a space.  'supply' alone does not: an island-supply vessel is a cargo ship."""
 
 
 def _type_words(a: _Audit) -> None:
@@ -1685,8 +1685,8 @@ def _type_words(a: _Audit) -> None:
     a trawler typed without it is judged by the general criteria (GM0 0.15 m where IS 2008 Part B 2.1
     asks 0.35 m, standards.md §3.2 [M]).  A doubt: the words are free and may mean something else."""
     text = a.v.particulars.vessel_type
-    named = [(kind, words) for kind, words, pattern in TYPE_WORDS
-             if re.search(rf"\b(?:{pattern})\b", text, re.IGNORECASE)]
+    spaced = " " + " ".join("".join(c if c.isalnum() else " " for c in text.lower()).split()) + " "
+    named = [(kind, words) for kind, words, phrases in TYPE_WORDS if any(f" {w} " in spaced for w in phrases)]
     in_force = a.v.criteria.ship_type
     if not named or any(kind == in_force for kind, _ in named):
         return
