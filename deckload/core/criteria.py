@@ -184,6 +184,15 @@ CRITERIA_SETS: dict[str, tuple[Criterion, ...]] = {
 }
 """The criteria sets that are plain value-against-limit checks on the GZ curve."""
 
+def own_gm_limit_m(ship_type: str) -> tuple[float, str]:
+    """The GM0 limit of the sets of ``ship_type`` (:data:`SETS_BY_TYPE`), and its source: what
+    ``[criteria] min_gm_m`` must exceed to change anything outside the fishing set, whose limit alone
+    may be reduced (Part B 2.1)."""
+    rows = [c for sid in SETS_BY_TYPE[ship_type] for c in CRITERIA_SETS.get(sid, ()) if c.measure == "gm_fluid_m"]
+    top = max(rows, key=lambda c: c.limit)
+    return top.limit, top.source
+
+
 WEATHER_SET = "IS2008-A2.3"
 PASSENGER_SET = "IS2008-A3.1"
 EXTRA_SET = "profile-extra"

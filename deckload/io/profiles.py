@@ -857,6 +857,19 @@ def _read_criteria(root: Table, particulars: m.Particulars | None) -> m.Criteria
         t.bad("code", t.data["code"], f"'IS2008-A2.2' is the old name of the general criteria: it cannot be "
               f"combined with ship_type {ship_type!r}; remove code")
         ok = False
+    if ok and ship_type != "fishing":
+        # keys that change nothing outside the fishing set are refused, not ignored in silence
+        own, source = crit.own_gm_limit_m(ship_type)
+        if gm is not None and gm < own:
+            t.bad("min_gm_m", t.data["min_gm_m"], f"below the {own:g} m GM0 of ship_type {ship_type!r}, {source}: "
+                  "it can only make GM0 stricter there and would be ignored; a reduced GM0 is for fishing vessels "
+                  "(ship_type = \"fishing\", IS Code 2008 Part B 2.1)")
+            ok = False
+        if complete:
+            t.bad("complete_superstructure", True, "applies to fishing vessels only (ship_type = \"fishing\": "
+                  f"a reduced GM0, IS Code 2008 Part B 2.1); with ship_type {ship_type!r} it would be ignored: "
+                  "remove it")
+            ok = False
     if ok and particulars is not None and ak and ak > particulars.lbp_m * particulars.depth_m:
         t.bad("bilge_keel_area_m2", t.data["bilge_keel_area_m2"],
               f"above LBP × depth ({num(particulars.lbp_m * particulars.depth_m)} m²): not a bilge-keel area")
