@@ -1669,9 +1669,44 @@ def _free_surface_settings(a: _Audit) -> None:
               "fs-setting")
 
 
+TYPE_WORDS: tuple[tuple[str, str, tuple[str, ...]], ...] = (
+    ("fishing", "a fishing vessel", ("fishing", "fishery", "trawler", "trawlers", "seiner", "seiners",
+                                     "longliner", "longliners", "long liner", "long liners")),
+    ("passenger", "a passenger ship", ("passenger", "passengers", "ferry", "ferries")),
+    ("offshore_supply", "an offshore supply vessel", ("offshore supply", "osv", "psv", "platform supply")),
+)
+"""Words of ``[vessel] vessel_type`` (whole words, any case) that name a ``ship_type``: the trade's
+names of the kinds (common practice); a hyphen reads as a space.  'supply' alone does not: an island-supply vessel is a cargo ship."""
+
+
+def _type_words(a: _Audit) -> None:
+    """A warning when the free-text ``vessel_type`` names a kind of ship (:data:`TYPE_WORDS`) and
+    ``[criteria] ship_type`` is none of the kinds it names: the sets are chosen by ship_type alone, so
+    a trawler typed without it is judged by the general criteria (GM0 0.15 m where IS 2008 Part B 2.1
+    asks 0.35 m, standards.md §3.2 [M]).  A doubt: the words are free and may mean something else."""
+    text = a.v.particulars.vessel_type
+    spaced = " " + " ".join("".join(c if c.isalnum() else " " for c in text.lower()).split()) + " "
+    named = [(kind, words) for kind, words, phrases in TYPE_WORDS if any(f" {w} " in spaced for w in phrases)]
+    in_force = a.v.criteria.ship_type
+    if not named or any(kind == in_force for kind, _ in named):
+        return
+    kind, words = named[0]
+
+    def sets(st: str, other: str) -> str:  # the sets one type has and the other lacks
+        return " + ".join(SET_TITLES[sid] for sid in SETS_BY_TYPE[st] if sid not in SETS_BY_TYPE[other])
+
+    ours, theirs = sets(in_force, kind), sets(kind, in_force)
+    judged = f"by {ours}, not {theirs}" if ours else f"without {theirs}"
+    a.add(WARNING, "vessel.vessel_type", ("vessel", "vessel_type"), repr(text),
+          f"names {words}, but criteria.ship_type is {in_force!r} ('general' where not given), so she is judged "
+          f'{judged}; if she is {words}, give [criteria] ship_type = "{kind}"',
+          "the booklet's criteria and the vessel's certificates", "ship-type-words")
+
+
 def audit(vessel: Vessel) -> tuple[Finding, ...]:
     """Every plausibility finding on ``vessel``, errors first, each group in profile order."""
     a = _Audit(vessel)
+    _type_words(a)
     a.positions()
     a.lightship_trim()
     a.lightship_share()

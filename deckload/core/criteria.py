@@ -19,6 +19,7 @@ import math
 
 from deckload.core.frozen import frozen
 from deckload.core.result import CriterionResult, meets
+from deckload.core.weather import WIND_PRESSURE_PA
 
 RAD_TO_DEG = 180.0 / math.pi
 
@@ -80,10 +81,57 @@ IS2008_B21: tuple[Criterion, ...] = (
 """Fishing vessels, IS 2008 Part B 2.1 (standards.md §3.2): the Part A 2.2.1–2.2.3 criteria
 [M that they apply] and GM0 ≥ 0.35 m for single-deck vessels [M; 46 CFR 28.570 [C]]."""
 
+LOAD_LINE_LENGTH_OVER_LBP = (0.95, 1.15)
+"""Bounds of ``[vessel] length_ll_m`` as a fraction of LBP (common practice).  The Load Line length
+(ICLL 1966 Annex I reg. 3, from memory: 96 % of the total length on a waterline at 85 % of the least
+moulded depth, or the length from the fore side of the stem to the axis of the rudder stock on that
+waterline, if greater) is taken on a waterline above the load waterline, so it is normally at least
+LBP; a little less only for a deep-laden hull whose stem rakes; and 0.96 × a waterline length that
+reaches past the perpendiculars stays within about 1.15·LBP even for a stern trawler's long
+overhang.  Outside these it is a typing error (feet, LOA, another ship's length)."""
+
+FISHING_WIND_BAND_MAX_M = 45.0
+"""Fishing vessels of 24 m ≤ L ≤ 45 m may take the wind pressure by height (IS 2008 Part B 2.1.4,
+standards.md §2.5 [M])."""
+
+
+def code_length_m(p) -> float:
+    """The length L the IS Code's length thresholds are read against (m): ``[vessel] length_ll_m``,
+    the Load Line length, where given, else LBP.
+
+    IS 2008 takes L as defined in the Load Line Convention in force (from memory), not LBP.  The
+    one reading of L for the 24 m applicability note, the fishing wind-pressure band of Part B 2.1.4
+    and the 70 m of a fishing vessel's reduced GM0 (Part B 2.1).  ``p`` is a
+    :class:`deckload.core.model.Particulars`."""
+    return p.length_ll_m if p.length_ll_m is not None else p.lbp_m
+
+
+def code_length_words(p) -> str:
+    """L as :func:`code_length_m` takes it, in words for a message: 'LBP 22 m' or 'Load Line length 46 m'."""
+    return f"LBP {p.lbp_m:g} m" if p.length_ll_m is None else f"Load Line length {p.length_ll_m:g} m"
+
+
+def fishing_band_length_caution(p, pressure_pa: float) -> tuple[str, ...]:
+    """A caution where the fishing wind pressure by height (``pressure_pa``, below 504 Pa, IS 2008
+    Part B 2.1.4 for 24 m ≤ L ≤ 45 m) was chosen on LBP, no Load Line length given, and the Load Line
+    length the reader would accept (up to ``LOAD_LINE_LENGTH_OVER_LBP[1]``·LBP) could pass 45 m: she
+    would then take 504 Pa and lw1 = P·A·Z/(1000·g·Δ) grows by 504/P (standards.md §2.2, §2.5)."""
+    if p.length_ll_m is not None or not p.lbp_m <= FISHING_WIND_BAND_MAX_M < LOAD_LINE_LENGTH_OVER_LBP[1] * p.lbp_m:
+        return ()
+    full = WIND_PRESSURE_PA
+    if pressure_pa >= full:
+        return ()
+    return (f"weather criterion: L taken as LBP {p.lbp_m:g} m ([vessel] length_ll_m not given), so the fishing "
+            f"vessels' wind pressure by height of IS Code 2008 Part B 2.1.4 (24–45 m) gave P {pressure_pa:.0f} Pa; "
+            f"if her Load Line length exceeds {FISHING_WIND_BAND_MAX_M:g} m, P is {full:.0f} Pa and the wind "
+            f"lever lw1 {full / pressure_pa:.2f} times this one: give length_ll_m from her Load Line certificate",)
+
+
 FISHING_MIN_GM_FLOOR_M = 0.15
 """Fishing vessels with a complete superstructure or L ≥ 70 m: GM0 may be reduced with the
 Administration's agreement, never below 0.15 m (standards.md §3.2 [M])."""
 FISHING_REDUCED_GM_LENGTH_M = 70.0
+"""L (:func:`code_length_m`, the Load Line length) from which a fishing vessel's GM0 may be reduced."""
 
 
 def reduced_fishing_gm_m(ship_type: str, min_gm_m: float | None) -> float | None:
@@ -135,6 +183,15 @@ CRITERIA_SETS: dict[str, tuple[Criterion, ...]] = {
     "IS2008-B2.4.5": IS2008_B245,
 }
 """The criteria sets that are plain value-against-limit checks on the GZ curve."""
+
+def own_gm_limit_m(ship_type: str) -> tuple[float, str]:
+    """The GM0 limit of the sets of ``ship_type`` (:data:`SETS_BY_TYPE`), and its source: what
+    ``[criteria] min_gm_m`` must exceed to change anything outside the fishing set, whose limit alone
+    may be reduced (Part B 2.1)."""
+    rows = [c for sid in SETS_BY_TYPE[ship_type] for c in CRITERIA_SETS.get(sid, ()) if c.measure == "gm_fluid_m"]
+    top = max(rows, key=lambda c: c.limit)
+    return top.limit, top.source
+
 
 WEATHER_SET = "IS2008-A2.3"
 PASSENGER_SET = "IS2008-A3.1"

@@ -102,6 +102,10 @@ class Particulars:
     """Free text shown on reports."""
     keel_thickness_m: float = 0.0
     """Extreme draft minus moulded draft (m); 0 when the booklet does not give it."""
+    length_ll_m: float | None = None
+    """The length L of the IS Code (its thresholds of 24, 45 and 70 m): the Load Line length of
+    ICLL Annex I reg. 3 (m); None when not given, and LBP is then taken
+    (:func:`deckload.core.criteria.code_length_m`)."""
 
 
 @frozen

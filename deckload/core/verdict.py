@@ -24,13 +24,17 @@ from deckload.core import gz as gzmod
 from deckload.core import weather as wx
 from deckload.core.criteria import (
     EXTRA_SET,
+    FISHING_WIND_BAND_MAX_M,
     PASSENGER_SET,
     SET_TITLES,
     SETS_BY_TYPE,
     WEATHER_SET,
     Measures,
+    code_length_m,
+    code_length_words,
     evaluate_criteria,
     extra_criterion_result,
+    fishing_band_length_caution,
     osv_area_end_deg,
     reduced_fishing_gm_m,
 )
@@ -157,8 +161,9 @@ def weather_criterion(vessel: Vessel, a: Afloat, ship_type: str) -> tuple[list[C
     z = h_wl + d / 2.0  # Z to about half the mean draft (standards.md §2.2; that option [M])
     if cs.wind_pressure_pa is not None:
         pressure, p_source = cs.wind_pressure_pa, "P from the vessel profile (Administration)"
-    elif ship_type == "fishing" and IS_CODE_MIN_LENGTH_M <= p.lbp_m <= 45.0:
+    elif ship_type == "fishing" and IS_CODE_MIN_LENGTH_M <= code_length_m(p) <= FISHING_WIND_BAND_MAX_M:
         pressure = wx.fishing_wind_pressure_pa(h_wl)
+        notes += fishing_band_length_caution(p, pressure)
         p_source = f"P {pressure:.0f} Pa for h {h_wl:.2f} m, IS Code 2008 Part B 2.1.4 (from memory)"
     else:
         pressure, p_source = wx.WIND_PRESSURE_PA, "P 504 Pa"
@@ -527,10 +532,10 @@ def assess(vessel: Vessel, a: Afloat, limit_curve: list[CriterionResult],
     if cs.extra:
         criteria += extra_criteria(vessel, a, weather_rows, windage_missing)
         set_ids.append(EXTRA_SET)
-    if p.lbp_m < IS_CODE_MIN_LENGTH_M and ship_type != "passenger":
+    if code_length_m(p) < IS_CODE_MIN_LENGTH_M and ship_type != "passenger":
         not_assessed.append(NotAssessed(
             "national rules for vessels under 24 m",
-            f"IS Code 2008 applies to ships of 24 m and over (LBP {p.lbp_m:g} m): the IS Code criteria are shown "
+            f"IS Code 2008 applies to ships of 24 m and over ({code_length_words(p)}): the IS Code criteria are shown "
             "for guidance; the flag State's rules govern"))
     not_assessed += NEVER_ASSESSED
     sets = tuple(

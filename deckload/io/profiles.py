@@ -35,6 +35,7 @@ import numpy as np
 from deckload.io.conventions import Frame, read_frame, tcg_array, tcg_num, trim_frame
 from deckload.core import bounds
 from deckload.core import model as m
+from deckload.core import criteria as crit
 from deckload.core.gz import STEP_DEG as GZ_STEP_DEG
 from deckload.core.gz import grid_points
 from deckload.core.loading import apart, reading_limits, reading_outside
@@ -407,6 +408,16 @@ def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:
     kw["keel_thickness_m"] = t.num("keel_thickness_m", keel_rule, required=False, default=0.0)
     base = Frame(kw["lbp_m"] or 1.0, keel_thickness_m=kw["keel_thickness_m"] or 0.0)
     frame = read_frame(t, base, trims=True)
+    # the IS Code's L (ICLL Load Line length): optional, else LBP (deckload.core.criteria.code_length_m)
+    length_ll = t.num("length_ll_m", positive, required=False)
+    if length_ll is not None and kw["lbp_m"] is not None:
+        lo, hi = crit.LOAD_LINE_LENGTH_OVER_LBP
+        if not lo * kw["lbp_m"] <= length_ll <= hi * kw["lbp_m"]:
+            t.bad("length_ll_m", t.data["length_ll_m"],
+                  f"outside {lo:g}–{hi:g} × LBP ({num(lo * kw['lbp_m'])}–{num(hi * kw['lbp_m'])} m): the Load Line "
+                  "length (ICLL Annex I reg. 3, on the waterline at 85 % of the depth) is normally no less than "
+                  "LBP and never far more; compare with her Load Line certificate")
+            length_ll = None
     t.finish()
     if kw["design_draft_m"] is not None and kw["depth_m"] is not None and kw["design_draft_m"] > kw["depth_m"]:
         t.bad("design_draft_m", t.data["design_draft_m"], f"exceeds the depth {num(kw['depth_m'])} m")
@@ -414,7 +425,7 @@ def _read_particulars(root: Table) -> tuple[m.Particulars | None, Frame | None]:
     if datum is None or frame is None or any(v is None for v in kw.values()):
         return None, frame or stand_in
     words = f"{frame.datum} datum, + {frame.positive}" if frame.datum != "AP" else "aft perpendicular, positive forward"
-    return m.Particulars(longitudinal_datum=words, **kw), frame
+    return m.Particulars(longitudinal_datum=words, length_ll_m=length_ll, **kw), frame
 
 
 def _x(t: Table, k: str, frame: Frame | None) -> float | None:
@@ -846,19 +857,34 @@ def _read_criteria(root: Table, particulars: m.Particulars | None) -> m.Criteria
         t.bad("code", t.data["code"], f"'IS2008-A2.2' is the old name of the general criteria: it cannot be "
               f"combined with ship_type {ship_type!r}; remove code")
         ok = False
+    if ok and ship_type != "fishing":
+        # keys that change nothing outside the fishing set are refused, not ignored in silence
+        own, source = crit.own_gm_limit_m(ship_type)
+        if gm is not None and gm < own:
+            t.bad("min_gm_m", t.data["min_gm_m"], f"below the {own:g} m GM0 of ship_type {ship_type!r}, {source}: "
+                  "it can only make GM0 stricter there and would be ignored; a reduced GM0 is for fishing vessels "
+                  "(ship_type = \"fishing\", IS Code 2008 Part B 2.1)")
+            ok = False
+        if complete:
+            t.bad("complete_superstructure", True, "applies to fishing vessels only (ship_type = \"fishing\": "
+                  f"a reduced GM0, IS Code 2008 Part B 2.1); with ship_type {ship_type!r} it would be ignored: "
+                  "remove it")
+            ok = False
     if ok and particulars is not None and ak and ak > particulars.lbp_m * particulars.depth_m:
         t.bad("bilge_keel_area_m2", t.data["bilge_keel_area_m2"],
               f"above LBP × depth ({num(particulars.lbp_m * particulars.depth_m)} m²): not a bilge-keel area")
         ok = False
     if ok and ship_type == "fishing" and gm is not None and gm < FISHING_STANDARD_GM_M:
-        length = particulars.lbp_m if particulars is not None else 0.0
-        if gm < 0.15:
+        length = crit.code_length_m(particulars) if particulars is not None else 0.0
+        if gm < crit.FISHING_MIN_GM_FLOOR_M:
             t.bad("min_gm_m", t.data["min_gm_m"], "below 0.15 m: a fishing vessel's GM0 is never reduced below "
                   "0.15 m (IS Code 2008 Part B 2.1, from memory)")
             ok = False
-        elif not complete and length < 70.0:
+        elif not complete and length < crit.FISHING_REDUCED_GM_LENGTH_M:
+            here = f": {crit.code_length_words(particulars)}" if particulars is not None else ""
             t.bad("min_gm_m", t.data["min_gm_m"], "below 0.35 m: IS Code 2008 Part B 2.1 allows that only with a "
-                  "complete superstructure (complete_superstructure = true) or L ≥ 70 m (from memory)")
+                  "complete superstructure (complete_superstructure = true) or L ≥ 70 m (from memory; L the Load "
+                  f"Line length, [vessel] length_ll_m, else LBP{here})")
             ok = False
     if not ok:
         return None
