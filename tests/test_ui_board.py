@@ -151,3 +151,19 @@ def test_a_logged_condition_keeps_its_deadweight_by_kind_and_load_line():
     assert f"summer, allows {r.load_line_allowed_draft_m:.3f} m in this water" in text
     entry.summary = {k: v for k, v in s.items() if k not in ("deadweight_by_kind_t", "load_line_mark")}
     assert "Deadweight by kind" not in entry_details(entry).plain
+
+
+@pytest.mark.parametrize("keys", [("end", "home"), ("pagedown",) * 2 + ("pageup",) * 6, ("down",) * 40 + ("up",) * 40])
+async def test_back_on_the_first_tank_the_column_names_are_in_view(app, keys):
+    """Scrolled down and back by keys to the first tank, the board shows its first lines again, the
+    columns' names among them, as at start (a real-terminal trial found them left scrolled away,
+    only the mouse wheel bringing them back)."""
+    async with app.run_test(size=(120, 30)) as pilot:
+        await pilot.pause()
+        board = app.screen.query_one(LoadBoard)
+        first = painted(board)[0]
+        assert "fill" in first and "FSM" in first
+        await pilot.press(*keys)
+        await pilot.pause()
+        assert board.cursor_key == ("tank", app.session.vessel.tanks[0].id)
+        assert int(board.scroll_offset.y) == 0 and painted(board)[0] == first

@@ -580,7 +580,12 @@ class LoadBoard(ScrollView, can_focus=True):
         top, height = int(self.scroll_offset.y), self.scrollable_content_region.height
         # force: a key typed ahead arrives before the first layout has shown the scroll bar, and
         # textual ignores a scroll while there is none (the cursor would stay off screen)
-        if i < top + (1 if i > 1 else 0):
+        if all(r.key is None for r in self.rows[:i]):
+            # the first selectable line: the headings above it (the columns' names among them) come
+            # back into view with it, as at start
+            if top:
+                self.scroll_to(y=0, animate=False, force=True)
+        elif i < top + (1 if i > 1 else 0):
             self.scroll_to(y=max(0, i - 1), animate=False, force=True)
         elif height and i >= top + height:
             self.scroll_to(y=i - height + 1, animate=False, force=True)
