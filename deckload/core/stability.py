@@ -850,6 +850,8 @@ def _warnings(vessel, condition, tanks, criteria, items, heel, t_mid, allowed_dr
             value, limit = f"{c.value:.3f}", f"{c.limit:.3f}"
             if value == limit:  # failed by less than the printed decimals: as many as tell them apart
                 value, limit = apart(c.value, c.limit, 4)
+            elif value == "-0.000":  # (an area of −0.0002 m·rad: no sign on what rounds to nought)
+                value = "0.000"
             out.append(Warning("criterion-failed",
                                f"FAILED {c.description}: {value} {c.unit} against {limit} ({c.source})", "danger"))
         elif c.margin_fraction < NEAR_LIMIT_FRACTION:

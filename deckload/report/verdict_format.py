@@ -160,11 +160,18 @@ def digits_of(c: CriterionResult) -> int:
     return d
 
 
+def fixed(x: float, decimals: int) -> str:
+    """``x`` to ``decimals`` places, a value that rounds to zero without a sign ("0.000", not the
+    "-0.000" of an area of −0.0002 m·rad)."""
+    text = f"{x:.{decimals}f}"
+    return text[1:] if text.startswith("-") and float(text) == 0.0 else text
+
+
 def value_text(c: CriterionResult, width: int = 0) -> str:
     """The measured value, or 'n/a' when the criterion was not assessed."""
     if not c.assessed or not math.isfinite(c.value):
         return "n/a".rjust(width)
-    return f"{c.value:.{digits_of(c)}f}".rjust(width)
+    return fixed(c.value, digits_of(c)).rjust(width)
 
 
 def margin_text(c: CriterionResult, width: int = 0) -> str:

@@ -39,7 +39,7 @@ def _criterion_line(c: CriterionResult, stale: bool, compact: bool) -> Text:
     if not c.assessed:
         return _unassessed_line(criterion_name(c), limit, vf.paragraph(c, short=True), compact)
     word, style = verdict(c)
-    return _assessed_line(criterion_name(c), f"{c.value:7.{d}f} {limit}",
+    return _assessed_line(criterion_name(c), f"{vf.fixed(c.value, d):>7} {limit}",
                           "" if compact else f"{c.margin:+8.{d}f} ", word, style,
                           "" if compact else vf.paragraph(c, short=True), stale, compact)
 
