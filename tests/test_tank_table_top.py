@@ -165,3 +165,5 @@ async def test_the_screens_full_key_fills_to_the_tables_top(tmp_path):
         assert [t.state for t in app.session.result.tanks if t.id == "DB1P"] == ["full"]
         await pilot.press("f")
         assert app.session.condition.tank_fill("DB1P").value == 98.0 and app.session.problem is None
+        # (said so, not "No change: the value is the same as before")
+        assert app.screen._said == ("DB1P is already full: 98 % is the top of its table.", False)

@@ -445,6 +445,10 @@ class LoadingScreen(Screen[None]):
         now = 100.0 * entry.held_m3(s.vessel, s.condition, tank) / tank.capacity_m3
         # The first f takes the tank to its kind's usual maximum; a second f (already there) to 100 %.
         pct = top if now >= usual - 0.05 else usual
+        if now >= top - 1e-9:
+            self.say(f"{tank.id} is already full" + (f": {top:g} % is the top of its table." if tank.short_table
+                                                     else "."), ok=False)
+            return
         said = (f" (usual maximum; f again for {top:g} %)" if pct < top
                 else " (the top of its table)" if tank.short_table else "")
         self._try(lambda: entry.set_tank(s.condition, tank, "percent", pct), f"{tank.id} filled to {pct:g} %{said}",
