@@ -167,3 +167,20 @@ async def test_the_screens_full_key_fills_to_the_tables_top(tmp_path):
         assert app.session.condition.tank_fill("DB1P").value == 98.0 and app.session.problem is None
         # (said so, not "No change: the value is the same as before")
         assert app.screen._said == ("DB1P is already full: 98 % is the top of its table.", False)
+
+
+async def test_the_tank_hint_outside_the_tables_has_no_empty_free_surface_field(tmp_path):
+    """Both tanks empty, the barge's 400 t lightship is below her KN table (410 t): no result at all
+    from the start, so the tank hint on the message line has no free-surface rule to give; it said
+    "FSM:  ·" (found by a real-terminal trial)."""
+    from deckload.core.model import Condition
+    from deckload.ui.launch import create_app
+
+    v = parse_profile(short(), "b.toml")
+    app = create_app(v, Condition(name="Light"), work_dir=tmp_path / "work", log_dir=tmp_path / "logs", officer="TS")
+    async with app.run_test(size=(160, 40)) as pilot:
+        await pilot.press("down", "up")
+        await pilot.pause()
+        assert app.session.result is None
+        said, _ = app.screen._said
+        assert said.startswith("DB1P ") and "FSM:" not in said and "·  ·" not in said, said

@@ -818,7 +818,8 @@ class LoadingScreen(Screen[None]):
             rho = f" · ρ {fill.density_t_m3:.4g} stated (D)" if fill is not None and fill.density_t_m3 is not None else ""
             keys = " · ⏎ set · + − · f full · e empty · t transfer" if not self.has_class("-narrow") else ""
             short = f" (table to {t.table_top_pct:g} %)" if t.short_table else ""
-            self.say(f"{t.id} {t.name} · {t.capacity_m3:.1f} m³{short}{rho} · FSM: {why}{keys}", ok=None)
+            fsm = f" · FSM: {why}" if why else ""  # (no result yet: outside the tables from the start)
+            self.say(f"{t.id} {t.name} · {t.capacity_m3:.1f} m³{short}{rho}{fsm}{keys}", ok=None)
         elif what == "hold":
             # the whole of what the board shortens with '…' (name, what is stowed, the limit)
             hold = self.session.vessel.hold(ident)
