@@ -59,6 +59,12 @@ SHORT_TABLES = (("capacity_m3 = 50.0\n", "capacity_m3 = 49.0\ntable_top_pct = 98
 """The barge's tank tables printed only to 98 % of the tank (``table_top_pct``), a quarter of the
 profile cases: the capacity read as the whole tank and fills up to the table's top meet mutated
 numbers too."""
+NEW_KEYS = (('longitudinal_datum = "AP"\n', 'longitudinal_datum = "AP"\nlength_ll_m = 41.0\n'),
+            ('max_load_t_m2 = 5.0\n', 'max_load_t_m2 = 5.0\nx_m = [10.0, 30.0]\ny_m = [-5.0, 5.0]\n'),
+            ('max_kg_m = [4.5, 3.6, 2.7]\n', 'max_kg_m = [4.5, 3.6, 2.7]\ntrim_range_m = [-0.5, 1.0]\n'
+                                             'trim_positive = "head"\n'))
+"""Keys of the Load Line length, a deck area's ends and edges and a limiting curve's trims typed
++ by the head, each in a quarter of the profile cases, so that their readers meet mutated numbers."""
 CONDITION_TEXTS = [p.read_text(encoding="utf-8") for p in DEMO_CONDITIONS.values()]
 
 _NUM = re.compile(r'(?<![\w."\-])-?\d+(?:\.\d+)?(?:[eE][+-]?\d+)?(?![\w"])')
@@ -250,6 +256,9 @@ def profile_case(tally: Tally, rng: random.Random) -> None:
     text = BARGE_TEXT + (CURVES_TEXT if rng.random() < 0.5 else "")
     if rng.random() < 0.25:
         for old, new in SHORT_TABLES:
+            text = text.replace(old, new)
+    for old, new in NEW_KEYS:
+        if rng.random() < 0.25:
             text = text.replace(old, new)
     text = mutate(text, rng)
     tally.cases += 1
