@@ -350,9 +350,9 @@ def amount_preview(condition: Condition, tank: Tank, text: str, vessel: Vessel |
 
 
 def nudge_tank(condition: Condition, tank: Tank, step_pct: float, vessel: Vessel | None = None) -> Condition:
-    """Raise or lower the fill by ``step_pct`` of capacity, clamped to 0–100 % (to the top of a table
-    printed short of full: ``Tank.table_top_pct``) (from the fill the calculation takes: with
-    ``vessel``, a sounding read trimmed is corrected first)."""
+    """Raise or lower the fill by ``step_pct`` of capacity, from the fill the calculation takes (with
+    ``vessel``, a sounding read trimmed is corrected first), clamped to 0–100 %, or to the top of a
+    table printed short of full (``Tank.table_top_pct``)."""
     vol = held_m3(vessel, condition, tank) if vessel is not None else fill_volume_m3(tank, condition.tank_fill(tank.id))
     pct = 100.0 * vol / tank.capacity_m3
     new = min(tank.table_top_pct, max(0.0, round(pct + step_pct, 6)))
