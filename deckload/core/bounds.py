@@ -286,10 +286,17 @@ def off_deck_area_x(area: DeckArea, lbp_m: float, x_m: float) -> str | None:
     (midships + forward or + aft, the FP + aft), which is the usual slip.  The file reader
     (:mod:`deckload.io.physcheck`) and the screen's deck-load form (:mod:`deckload.ui.entry`) both
     ask here."""
-    span = area.x_extent_m
+    return off_span_x(area.x_extent_m, f"deck area {area.id}", "area", "load", lbp_m, x_m)
+
+
+def off_span_x(span: tuple[float, float] | None, what: str, noun: str, load: str, lbp_m: float,
+               x_m: float) -> str | None:
+    """:func:`off_deck_area_x` for any space with stated ends ``span`` (m from AP, aft end first), e.g.
+    a hold's (:attr:`Hold.x_extent_m`): ``what`` names it ("hold H1"), ``noun`` ("hold") and ``load``
+    (what stands in it: "cargo") word the message."""
     if span is None or _on_span(x_m, span):
         return None
-    msg = (f"outside deck area {area.id} that the load names: the area spans {_n(span[0])}–{_n(span[1])} m "
+    msg = (f"outside {what} that the {load} names: the {noun} spans {_n(span[0])}–{_n(span[1])} m "
            f"from the AP (its x_m in the profile, ± {_n(AREA_EDGE_TOLERANCE_M)} m)")
     fits = [f"{words} ({_n(round(alt, 6))} m from the AP)"
             for alt, words in ((lbp_m / 2 + x_m, "from midships, + forward"), (lbp_m / 2 - x_m, "from midships, + aft"),

@@ -363,6 +363,9 @@ class Hold:
     """Optional: VCG (m) of cargo filling the hold to each ``fill_pct``."""
     fill_lcg_m: np.ndarray | None = None
     """Optional: LCG (m) of cargo filling the hold to each ``fill_pct``."""
+    x_extent_m: tuple[float, float] | None = None
+    """Optional: the hold's aft and forward ends (m from AP, aft first): a cargo centre stated in a
+    condition must lie between them (:func:`deckload.core.bounds.off_span_x`)."""
 
 
 @frozen

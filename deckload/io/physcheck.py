@@ -138,6 +138,12 @@ def check_condition(ctx: FileCheck, v: m.Vessel, cond: m.Condition) -> m.Conditi
         raw, name = ("holds", h.hold_id), f"holds.{h.hold_id}"
         c.one(raw + ("mass_t",), f"{name}.mass_t", h.mass_t, mass)
         c.position(p, raw, name, h.lcg_m, h.vcg_m, h.tcg_m)
+        hold = v.hold(h.hold_id) if h.hold_id in v.hold_index else None
+        if hold is not None and h.lcg_m is not None and h.lcg_m in b.x_range(p):
+            # the cargo's centre lies in its hold: an LCG from midships here is the deck load's slip
+            why = b.off_span_x(hold.x_extent_m, f"hold {hold.id}", "hold", "cargo", p.lbp_m, h.lcg_m)
+            if why:
+                ctx.add(raw + ("lcg_m",), f"{name}.lcg_m", toml_value(float(h.lcg_m)), why)
     for group, items in (("deck_item", cond.deck_items), ("constant", cond.constants)):
         for n, it in enumerate(items):
             raw, name = (group, n), item_key(group, n, it.name) if group == "constant" else f"{group}[#{n + 1}]"

@@ -1791,9 +1791,11 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
                 cols["fill_pct"] = fill
                 fill_ok = t.same_length("fill_pct", cols)
         ignored = _read_ignored(t, t.name, rd)
+        ends_ok = _hold_ends(t, f, kw, cols.get("fill_lcg_m") if present else None)
         t.finish()
         fill_ok &= ignored is not None
-        if (not fill_ok or not fill_read or f is None or any(v is None for k, v in kw.items() if k != "max_mass_t")
+        if (not fill_ok or not ends_ok or not fill_read or f is None
+                or any(v is None for k, v in kw.items() if k not in ("max_mass_t", "x_extent_m"))
                 or (has_max and kw["max_mass_t"] is None)):
             ok = False
             continue
@@ -1807,6 +1809,39 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
             kw[k] = m.frozen_array(cols[k]) if k in cols else None
         out.append(m.Hold(**kw))
     return out if ok else []
+
+
+def _hold_ends(t: Table, f: Frame | None, kw: dict[str, Any], fill_lcg) -> bool:
+    """A hold's optional ends (``x_m``, in the table's datum) into ``kw`` as ``x_extent_m`` (from AP, aft
+    end first).  The hold's own centre, and every centre of its centroid-against-fill table, must lie
+    between them (within :data:`deckload.core.bounds.AREA_EDGE_TOLERANCE_M`): a cargo centre stated in
+    a condition is then held to them (:func:`deckload.core.bounds.off_span_x`), as a deck load is to
+    its area's.  Returns whether all is well."""
+    kw["x_extent_m"] = None
+    if not t.has("x_m"):
+        return True
+    xs = t.array("x_m", length=2)
+    if xs is None or f is None:
+        return False
+    if xs[0] == xs[1]:
+        t.bad("x_m", t.data["x_m"], "the hold's two ends must differ (aft end and forward end, in the table's datum)")
+        return False
+    a, b = sorted(float(v) for v in f.x_to_ap(xs))
+    kw["x_extent_m"] = (a, b)
+    tol = bounds.AREA_EDGE_TOLERANCE_M
+    lcg = kw.get("lcg_m")
+    if lcg is not None and not a - tol <= lcg <= b + tol:
+        t.bad("lcg_m", t.data["lcg_m"], f"the hold's centre lies outside its own ends x_m ({num(a)}–{num(b)} m "
+              "from the AP): the two are in the same datum (the table's)")
+        return False
+    if fill_lcg is not None:
+        x = f.x_to_ap(np.asarray(fill_lcg, dtype=float))
+        out = np.flatnonzero((x < a - tol) | (x > b + tol))
+        if len(out):
+            t.bad("fill_lcg_m", t.data["fill_lcg_m"], f"row {int(out[0]) + 1} lies outside the hold's ends x_m "
+                  f"({num(a)}–{num(b)} m from the AP): the cargo's centre is inside the hold", (int(out[0]),))
+            return False
+    return True
 
 
 def _read_deck_areas(root: Table, ids: dict[str, str], frame: Frame | None, rd: Reading) -> list[m.DeckArea]:
