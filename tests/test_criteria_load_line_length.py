@@ -15,25 +15,13 @@ import dataclasses
 
 import pytest
 
-from deckload.core.model import Condition, CriteriaSettings, Windage, frozen_array
-from deckload.core.stability import evaluate
+from deckload.core.model import CriteriaSettings
 from deckload.io.profiles import parse_profile
+from test_criteria_sets import box
 from test_profiles import BASE, edit, line_of, only
-from vessel_factories import RHO_SW, box_vessel
+from vessel_factories import RHO_SW
 
 G = 9.81  # m/s², the value of the weather criterion (standards.md §2.2, from memory)
-
-
-def box(length, breadth, depth, draft, kg, criteria, length_ll_m=None):
-    drafts = [draft - 1.0, draft, draft + 0.5]
-    v = box_vessel(length_m=length, breadth_m=breadth, depth_m=depth, drafts_m=drafts,
-                   lightship_t=RHO_SW * length * breadth * draft, lightship_kg_m=kg, heel_step_deg=1.0,
-                   criteria=criteria)
-    v = dataclasses.replace(v, particulars=dataclasses.replace(v.particulars, length_ll_m=length_ll_m),
-                            windage=Windage(frozen_array(drafts), frozen_array([length * (depth - t) for t in drafts]),
-                                            frozen_array([(depth - t) / 2.0 for t in drafts]),
-                                            frozen_array([length] * 3)))
-    return evaluate(v, Condition(name="box"))
 
 
 FISHING = CriteriaSettings(ship_type="fishing", sharp_bilged=True)

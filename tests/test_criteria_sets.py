@@ -23,9 +23,10 @@ from test_profiles import BASE, line_of, only
 from vessel_factories import RHO_SW, barge_at, box_dynamic_lever_mrad, box_vessel, wall_sided_heel_deg
 
 
-def box(length, breadth, depth, draft, kg, criteria, windage=True, passengers=None):
+def box(length, breadth, depth, draft, kg, criteria, windage=True, passengers=None, length_ll_m=None):
     """A box L × B × D floating upright at ``draft`` with KG ``kg`` (all mass in the lightship),
-    its windage the side above the waterline: A = L·(D − T), centre (D − T)/2 above the WL."""
+    its windage the side above the waterline: A = L·(D − T), centre (D − T)/2 above the WL; with
+    ``length_ll_m`` its Load Line length."""
     drafts = [draft - 1.0, draft, draft + 0.5]
     v = box_vessel(length_m=length, breadth_m=breadth, depth_m=depth, drafts_m=drafts,
                    lightship_t=RHO_SW * length * breadth * draft, lightship_kg_m=kg, heel_step_deg=1.0,
@@ -36,6 +37,8 @@ def box(length, breadth, depth, draft, kg, criteria, windage=True, passengers=No
             frozen_array([(depth - t) / 2.0 for t in drafts]), frozen_array([length] * 3)))
     if passengers is not None:
         v = dataclasses.replace(v, passengers=passengers)
+    if length_ll_m is not None:
+        v = dataclasses.replace(v, particulars=dataclasses.replace(v.particulars, length_ll_m=length_ll_m))
     return evaluate(v, Condition(name="box"))
 
 
