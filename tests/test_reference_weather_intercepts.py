@@ -70,17 +70,17 @@ def test_the_windward_equilibrium_is_the_last_rising_crossing_below_the_end():
     itself (a crossing at the end counts), up to −35° − 1e-12° (the method's rounding allowance)
     and up to −35.5° (none)."""
     c = _curve([-40, -30, -20, -10, 0], [0.0, 1.0, 0.5, 1.0, 1.5])
-    assert c.last_rising_below(0.5, 0.0) == pytest.approx(-35.0, abs=EXACT)
-    assert c.last_rising_below(0.5, -35.0) == pytest.approx(-35.0, abs=EXACT)
-    assert c.last_rising_below(0.5, -35.0 - 1e-12) == pytest.approx(-35.0, abs=EXACT)
-    assert c.last_rising_below(0.5, -35.5) is None
+    assert c.last_below(0.5, 0.0, rising=True) == pytest.approx(-35.0, abs=EXACT)
+    assert c.last_below(0.5, -35.0, rising=True) == pytest.approx(-35.0, abs=EXACT)
+    assert c.last_below(0.5, -35.0 - 1e-12, rising=True) == pytest.approx(-35.0, abs=EXACT)
+    assert c.last_below(0.5, -35.5, rising=True) is None
 
 
 def test_the_windward_equilibrium_at_a_grid_point():
     """Heel −30…0° by 10°, GZ −1.0, 0, 0.5, 1.0 m, lever 0.5: GZ − lever = −1.5, −0.5, 0, 0.5 —
     zero AT −10°, above after: the rising crossing is −10°."""
     c = _curve([-30, -20, -10, 0], [-1.0, 0.0, 0.5, 1.0])
-    assert c.last_rising_below(0.5, 0.0) == pytest.approx(-10.0, abs=EXACT)
+    assert c.last_below(0.5, 0.0, rising=True) == pytest.approx(-10.0, abs=EXACT)
 
 
 def test_area_between_lever_and_curve_on_a_straight_curve():

@@ -214,41 +214,25 @@ class Curve:
     def at(self, angle_deg: float) -> float:
         return float(np.interp(angle_deg, self.heel_deg, self.gz_m))
 
-    def crossing(self, lever_m: float, start_deg: float, rising: bool) -> float | None:
-        """First angle ≥ start where GZ − lever changes sign (rising: from below to above)."""
+    def _crossings(self, lever_m: float, rising: bool) -> np.ndarray:
+        """Every angle where GZ − lever changes sign (rising: from below to above), in order,
+        interpolated linearly between the curve's points."""
         d = self.gz_m - lever_m
         a, b = d[:-1], d[1:]
-        hit = (a < 0.0) & (b >= 0.0) if rising else (a > 0.0) & (b <= 0.0)
-        idx = np.flatnonzero(hit)
-        if len(idx) == 0:
-            return None
+        idx = np.flatnonzero((a < 0.0) & (b >= 0.0) if rising else (a > 0.0) & (b <= 0.0))
         h0, h1 = self.heel_deg[idx], self.heel_deg[idx + 1]
-        x = h0 + (h1 - h0) * (-a[idx]) / (b[idx] - a[idx])
+        return h0 + (h1 - h0) * (-a[idx]) / (b[idx] - a[idx])
+
+    def crossing(self, lever_m: float, start_deg: float, rising: bool) -> float | None:
+        """First angle ≥ start where GZ − lever changes sign (rising: from below to above)."""
+        x = self._crossings(lever_m, rising)
         ok = np.flatnonzero(x >= start_deg - 1e-12)
         return float(x[ok[0]]) if len(ok) else None
 
-    def last_rising_below(self, lever_m: float, end_deg: float) -> float | None:
-        """Largest angle ≤ end where GZ − lever rises through zero (searching towards windward)."""
-        d = self.gz_m - lever_m
-        a, b = d[:-1], d[1:]
-        idx = np.flatnonzero((a < 0.0) & (b >= 0.0))
-        if len(idx) == 0:
-            return None
-        h0, h1 = self.heel_deg[idx], self.heel_deg[idx + 1]
-        x = h0 + (h1 - h0) * (-a[idx]) / (b[idx] - a[idx])
-        ok = np.flatnonzero(x <= end_deg + 1e-12)
-        return float(x[ok[-1]]) if len(ok) else None
-
-    def last_falling_below(self, lever_m: float, end_deg: float) -> float | None:
-        """Largest angle ≤ end where GZ − lever falls through zero (searching towards windward):
-        to windward of it GZ exceeds the lever again."""
-        d = self.gz_m - lever_m
-        a, b = d[:-1], d[1:]
-        idx = np.flatnonzero((a > 0.0) & (b <= 0.0))
-        if len(idx) == 0:
-            return None
-        h0, h1 = self.heel_deg[idx], self.heel_deg[idx + 1]
-        x = h0 + (h1 - h0) * a[idx] / (a[idx] - b[idx])
+    def last_below(self, lever_m: float, end_deg: float, rising: bool) -> float | None:
+        """Largest angle ≤ end where GZ − lever changes sign (searching towards windward): rising,
+        an equilibrium under the lever; falling, to windward of it GZ exceeds the lever again."""
+        x = self._crossings(lever_m, rising)
         ok = np.flatnonzero(x <= end_deg + 1e-12)
         return float(x[ok[-1]]) if len(ok) else None
 
@@ -296,7 +280,7 @@ def weather_areas(curve: Curve, lw1_m: float, theta1_deg: float | None, flood_de
     if curve.at(0.0) < lw1_m:
         theta0 = curve.crossing(lw1_m, 0.0, rising=True)
     else:
-        theta0 = curve.last_rising_below(lw1_m, 0.0)
+        theta0 = curve.last_below(lw1_m, 0.0, rising=True)
     if theta0 is None:
         return WeatherFacts(lw1_m, lw2, None, None, None, None, None, None)
     if theta1_deg is None:
@@ -318,6 +302,6 @@ def weather_areas(curve: Curve, lw1_m: float, theta1_deg: float | None, flood_de
     # Rolled back to θ0 − θ1 and struck by the gust there, she returns only while lw2 exceeds GZ
     # (the righting lever to windward is negative); past the windward intercept GZ − lw2 > 0 drives
     # her on to windward: the energy balance of areas a and b no longer describes her.
-    windward = curve.last_falling_below(lw2, theta0)
+    windward = curve.last_below(lw2, theta0, rising=False)
     beyond = windward if windward is not None and start < windward - 1e-9 else None
     return WeatherFacts(lw1_m, lw2, theta0, theta_r, theta_c, top, area_a, area_b, beyond)
