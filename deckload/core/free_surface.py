@@ -104,11 +104,12 @@ def band_text(band_pct: tuple[float, float]) -> str:
 
 
 def fsi_at_fill(tank: Tank, fill_pct: float) -> float:
-    """Free-surface inertia (m⁴) at a fill, from the calibration table; a fill above the top of a
-    table printed short of full (``Tank.table_top_pct``) reads the table's last row, the highest
+    """Free-surface inertia (m⁴) at a fill, from the calibration table; a fill up to 100 % above the
+    top of a table printed short of full (``Tank.table_top_pct``) reads its last row, the highest
     level the booklet gives."""
-    vol = min(tank.capacity_m3 * fill_pct / 100.0, float(tank.table[-1, 1])) if tank.short_table \
-        else tank.capacity_m3 * fill_pct / 100.0
+    vol = tank.capacity_m3 * fill_pct / 100.0
+    if tank.short_table and fill_pct <= 100.0:
+        vol = min(vol, tank.fill_limit_m3)
     i, f = bracket(tank.table[:, 1], vol, f"volume of tank {tank.id}", "m³")
     return float(lerp_row(tank.table[:, 5], i, f))
 
