@@ -56,6 +56,7 @@ import math
 
 import numpy as np
 
+from deckload.core.booklet import GZ
 from deckload.core.frozen import frozen
 from deckload.core.gz import heel_curve, kn_row
 from deckload.core.hydrostatics import Upright
@@ -285,9 +286,6 @@ def coverage(vessel: Vessel, trim: float, d_eq: float, kg_fluid_m: float | None 
     return f"trim {abs(trim):.2f} m {way} is outside the trims tabulated: " + "; ".join(out) + "; drafts and KN less certain"
 
 
-GZ_TOLERANCE_FRACTION = 0.05
-"""UR L5 / MSC.1/Circ.1229 tolerance on GZ values: 5 % of GZ, not more than 5 cm (standards.md §5.3)."""
-
 GZ_JUDGED_TO_DEG = 50.0
 """The largest heel an IS 2008 criterion reads off the GZ curve: area b of the weather criterion runs to
 θ2 ≤ 50° (Part A 2.3); the areas and GZ of Part A 2.2 stop at 40°.  Beyond the tables' trims the GZ
@@ -295,8 +293,9 @@ tolerance is checked at every tabulated heel above 0° up to here (KN's 5 cm at 
 
 
 def gz_tolerance_m(gz_m: float) -> float:
-    """UR L5 / MSC.1/Circ.1229 tolerance on a GZ value: 5 %, not more than 5 cm (standards.md §5.3)."""
-    return min(GZ_TOLERANCE_FRACTION * abs(gz_m), KN_TOLERANCE_M)
+    """UR L5 / MSC.1/Circ.1229 tolerance on a GZ value: 5 %, not more than 5 cm (standards.md §5.3),
+    the booklet comparison's row (:data:`deckload.core.booklet.GZ`)."""
+    return GZ.allowed(gz_m, 0.0)
 
 
 def held_error_bound(end: np.ndarray, nb: np.ndarray, nb2: np.ndarray | None, w: float, w2: float,
