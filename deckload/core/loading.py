@@ -109,6 +109,13 @@ def reading_outside(tank: Tank, quantity: str, value: float) -> str | None:
     return None
 
 
+def fixed(x: float, decimals: int) -> str:
+    """``x`` to ``decimals`` places, a value that rounds to zero without a sign ("0.000", not the
+    "-0.000" of an area of −0.0002 m·rad)."""
+    text = f"{x:.{decimals}f}"
+    return text[1:] if text.startswith("-") and float(text) == 0.0 else text
+
+
 def apart(value: float, bound: float, digits: int = 4) -> tuple[str, str]:
     """``value`` and ``bound`` written with the fewest significant digits (at least ``digits``) that
     tell them apart, so a message refusing a value never reads as the bound itself ('0.349 below

@@ -41,7 +41,7 @@ from deckload.core.free_surface import (BASIS_NONE, TankFreeSurface, band_text, 
                                         transfer_moment_m4)
 from deckload.core.frozen import frozen
 from deckload.core.hydrostatics import Upright, draft_at, fresh_water_allowance_m, mark_density_t_m3, permitted_draft_m
-from deckload.core.loading import (LoadingError, TankContents, WeightSum, apart, hold_item, resolve_tanks,
+from deckload.core.loading import (LoadingError, TankContents, WeightSum, apart, fixed, hold_item, resolve_tanks,
                                    stated_density_notes, sum_weights)
 from deckload.core.model import Condition, LoadLine, Vessel, effective_constants
 from deckload.core.result import CriterionResult, ItemResult, NotAssessed, Result, TankResult, Warning
@@ -847,11 +847,9 @@ def _warnings(vessel, condition, tanks, criteria, items, heel, t_mid, allowed_dr
             out.append(Warning("criterion-not-assessed",
                                f"NOT ASSESSED {c.description}: {c.note} ({c.source})", "danger"))
         elif not c.passed:
-            value, limit = f"{c.value:.3f}", f"{c.limit:.3f}"
+            value, limit = fixed(c.value, 3), fixed(c.limit, 3)
             if value == limit:  # failed by less than the printed decimals: as many as tell them apart
                 value, limit = apart(c.value, c.limit, 4)
-            elif value == "-0.000":  # (an area of −0.0002 m·rad: no sign on what rounds to nought)
-                value = "0.000"
             out.append(Warning("criterion-failed",
                                f"FAILED {c.description}: {value} {c.unit} against {limit} ({c.source})", "danger"))
         elif c.margin_fraction < NEAR_LIMIT_FRACTION:

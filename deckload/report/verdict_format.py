@@ -12,6 +12,7 @@ import math
 import textwrap
 
 from deckload.core.frozen import frozen
+from deckload.core.loading import fixed  # (also the screen's, through this module)
 
 # The caution every printed or shown output carries (README, "Safety").
 CAUTION = (
@@ -158,13 +159,6 @@ def digits_of(c: CriterionResult) -> int:
     while d < MAX_DIGITS and math.isfinite(margin) and margin != 0.0 and round(abs(margin), d) == 0.0:
         d += 1
     return d
-
-
-def fixed(x: float, decimals: int) -> str:
-    """``x`` to ``decimals`` places, a value that rounds to zero without a sign ("0.000", not the
-    "-0.000" of an area of −0.0002 m·rad)."""
-    text = f"{x:.{decimals}f}"
-    return text[1:] if text.startswith("-") and float(text) == 0.0 else text
 
 
 def value_text(c: CriterionResult, width: int = 0) -> str:
