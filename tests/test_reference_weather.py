@@ -382,6 +382,7 @@ def test_a_roll_to_windward_past_the_gust_lever_fails_the_criterion():
     crit = {c.id: c for c in r.criteria}["IS2008-A2.3-area-b-a"]
     assert crit.assessed and not crit.passed
     assert crit.limit < 0.0 < crit.value  # a negative: b ≥ a would have passed on the sign alone
+    assert crit.margin < 0.0  # failed: its margin is counted against it, never "+0.019 … FAIL"
     assert "she heels on to windward; fails" in crit.note and r.weather is None
     lw2 = 1.5 * wx.wind_lever_m(504.0, L_ * (D_ - T_), (D_ - T_) / 2.0 + T_ / 2.0, RHO_SW * L_ * B_ * T_)
 

@@ -97,9 +97,13 @@ class CriterionResult:
         """Distance to the limit in the passing direction (negative when failed).
 
         Not meaningful when ``assessed`` is False; nil within the round-off allowance of the limit, as
-        :func:`meets` takes it (a "−0.00000" beside a pass would contradict it)."""
+        :func:`meets` takes it (a "−0.00000" beside a pass would contradict it).  A criterion failed on
+        more than its value and limit (the weather criterion rolled to windward past the gust's
+        intercept, :func:`deckload.core.verdict.weather_criterion`) has its distance counted against it."""
         m = self.value - self.limit if self.comparison == ">=" else self.limit - self.value
-        return 0.0 if abs(m) <= ROUND_OFF * max(1.0, abs(self.limit)) else m
+        if abs(m) <= ROUND_OFF * max(1.0, abs(self.limit)):
+            return 0.0
+        return -abs(m) if self.assessed and not self.passed else m
 
     @property
     def margin_fraction(self) -> float:
