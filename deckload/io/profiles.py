@@ -1811,29 +1811,46 @@ def _read_holds(root: Table, ids: dict[str, str], frame: Frame | None, rd: Readi
     return out if ok else []
 
 
-def _hold_ends(t: Table, f: Frame | None, kw: dict[str, Any], fill_lcg) -> bool:
-    """A hold's optional ends (``x_m``, in the table's datum) into ``kw`` as ``x_extent_m`` (from AP, aft
-    end first).  The hold's own centre, and every centre of its centroid-against-fill table, must lie
-    between them (within :data:`deckload.core.bounds.AREA_EDGE_TOLERANCE_M`): a cargo centre stated in
-    a condition is then held to them (:func:`deckload.core.bounds.off_span_x`), as a deck load is to
-    its area's.  Returns whether all is well."""
-    kw["x_extent_m"] = None
+def _x_ends(t: Table, f: Frame | None, noun: str) -> tuple[bool, tuple[float, float] | None]:
+    """A space's optional two ends ``x_m`` (in the table's datum) as metres from the AP, aft end first:
+    (all well, the ends or None when not given)."""
     if not t.has("x_m"):
-        return True
+        return True, None
     xs = t.array("x_m", length=2)
     if xs is None or f is None:
-        return False
+        return False, None
     if xs[0] == xs[1]:
-        t.bad("x_m", t.data["x_m"], "the hold's two ends must differ (aft end and forward end, in the table's datum)")
-        return False
+        t.bad("x_m", t.data["x_m"], f"the {noun}'s two ends must differ (aft end and forward end, in the table's datum)")
+        return False, None
     a, b = sorted(float(v) for v in f.x_to_ap(xs))
-    kw["x_extent_m"] = (a, b)
+    return True, (a, b)
+
+
+def _centre_between_ends(t: Table, lcg: float | None, ends: tuple[float, float], noun: str) -> bool:
+    """Whether the space's own centre ``lcg_m`` lies between its ends (within
+    :data:`deckload.core.bounds.AREA_EDGE_TOLERANCE_M`); else the problem is reported."""
     tol = bounds.AREA_EDGE_TOLERANCE_M
-    lcg = kw.get("lcg_m")
-    if lcg is not None and not a - tol <= lcg <= b + tol:
-        t.bad("lcg_m", t.data["lcg_m"], f"the hold's centre lies outside its own ends x_m ({num(a)}–{num(b)} m "
-              "from the AP): the two are in the same datum (the table's)")
+    if lcg is None or ends[0] - tol <= lcg <= ends[1] + tol:
+        return True
+    t.bad("lcg_m", t.data["lcg_m"], f"the {noun}'s centre lies outside its own ends x_m ({num(ends[0])}–{num(ends[1])} m "
+          "from the AP): the two are in the same datum (the table's)")
+    return False
+
+
+def _hold_ends(t: Table, f: Frame | None, kw: dict[str, Any], fill_lcg) -> bool:
+    """A hold's optional ends (``x_m``, :func:`_x_ends`) into ``kw`` as ``x_extent_m``.  The hold's own
+    centre, and every centre of its centroid-against-fill table, must lie between them (within
+    :data:`deckload.core.bounds.AREA_EDGE_TOLERANCE_M`): a cargo centre stated in a condition is then
+    held to them (:func:`deckload.core.bounds.off_span_x`), as a deck load is to its area's.  Returns
+    whether all is well."""
+    ok, ends = _x_ends(t, f, "hold")
+    kw["x_extent_m"] = ends
+    if not ok or ends is None:
+        return ok
+    if not _centre_between_ends(t, kw.get("lcg_m"), ends, "hold"):
         return False
+    a, b = ends
+    tol = bounds.AREA_EDGE_TOLERANCE_M
     if fill_lcg is not None:
         x = f.x_to_ap(np.asarray(fill_lcg, dtype=float))
         out = np.flatnonzero((x < a - tol) | (x > b + tol))
@@ -1882,18 +1899,9 @@ def _deck_area_extent(t: Table, f: Frame | None, kw: dict[str, Any]) -> tuple[bo
     its area within the rectangle they make (each within the edge allowance
     :data:`deckload.core.bounds.AREA_EDGE_TOLERANCE_M`): a deck load naming the area is then held
     to them (:func:`deckload.core.bounds.off_deck_area_x`).  Returns (all well, any P/S mark)."""
-    kw["x_extent_m"] = kw["y_extent_m"] = None
-    ok, marked, tol = True, False, bounds.AREA_EDGE_TOLERANCE_M
-    if t.has("x_m"):
-        xs = t.array("x_m", length=2)
-        if xs is None or f is None:
-            ok = False
-        elif xs[0] == xs[1]:
-            t.bad("x_m", t.data["x_m"], "the area's two ends must differ (aft end and forward end, in the table's datum)")
-            ok = False
-        else:
-            a, b = sorted(float(v) for v in f.x_to_ap(xs))
-            kw["x_extent_m"] = (a, b)
+    kw["y_extent_m"] = None
+    marked, tol = False, bounds.AREA_EDGE_TOLERANCE_M
+    ok, kw["x_extent_m"] = _x_ends(t, f, "area")
     if t.has("y_m"):
         ys, marked = tcg_array(t, "y_m", f, required=False)
         if ys is None or f is None:
@@ -1907,9 +1915,7 @@ def _deck_area_extent(t: Table, f: Frame | None, kw: dict[str, Any]) -> tuple[bo
         return False, marked
     xe, ye = kw["x_extent_m"], kw["y_extent_m"]
     lcg, tcg = kw.get("lcg_m"), kw.get("tcg_m")
-    if xe is not None and lcg is not None and not xe[0] - tol <= lcg <= xe[1] + tol:
-        t.bad("lcg_m", t.data["lcg_m"], f"the area's centre lies outside its own ends x_m ({num(xe[0])}–{num(xe[1])} m "
-              "from the AP): the two are in the same datum (the table's)")
+    if xe is not None and not _centre_between_ends(t, lcg, xe, "area"):
         ok = False
     if ye is not None and tcg is not None and not ye[0] - tol <= tcg <= ye[1] + tol:
         t.bad("tcg_m", t.data.get("tcg_m"), f"the area's centre lies outside its own edges y_m ({num(ye[0])} … "
