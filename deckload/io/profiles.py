@@ -1612,30 +1612,28 @@ def _read_calibration(t: Table, capacity: float | None, tank: Table, tank_frame:
         # table's top, as printed beside it, or as the whole tank; either way the whole is the top
         # ÷ 0.98, so that the 98 % line falls exactly on the table's last row.
         whole = last * 100.0 / top_pct
-        if top_pct < 100.0 and abs(capacity - whole) <= allowed * 100.0 / top_pct * (1.0 + 1e-9):
+
+        def fits(pct: float) -> bool:  # the capacity typed is the whole of a tank whose table ends at pct %
+            return abs(last * 100.0 / pct - capacity) <= allowed * 100.0 / pct * (1.0 + 1e-9)
+
+        if top_pct < 100.0 and (fits(top_pct) or fits(100.0)):
             kw["capacity_m3"] = whole
-            rd.convert(tank.name, "capacity_m3", f"{num(capacity)} m³ as printed → {num(whole)} m³ at 100 %, "
-                       f"the calibration's last volume {num(last)} m³ being {num(top_pct)} % (table_top_pct)")
-        elif abs(capacity - last) > allowed * (1.0 + 1e-9):
-            near = next((p for p in (98.0, 95.0)
-                         if abs(last * 100.0 / p - capacity) <= allowed * 100.0 / p * (1.0 + 1e-9)), None)
+            typed = "the whole tank" if fits(top_pct) else "the table's top"
+            rd.convert(tank.name, "capacity_m3", f"{num(capacity)} m³ as printed ({typed}) → {num(whole)} m³ at "
+                       f"100 %, the calibration's last volume {num(last)} m³ being {num(top_pct)} % (table_top_pct)")
+        elif not fits(100.0):
             if top_pct < 100.0:
                 hint = (f"; with table_top_pct = {num(top_pct)} it must be the table's top or "
                         f"{num(whole)} m³, the whole tank")
-            elif near is not None and capacity > last:
-                hint = (f"; the table's last row is {num(near)} % of it: if the booklet prints the table only "
-                        f"to {num(near)} % of the tank, say so with table_top_pct = {num(near)}")
             else:
-                hint = ""
+                near = next((p for p in (98.0, 95.0) if fits(p)), None) if capacity > last else None
+                hint = ("" if near is None else f"; the table's last row is {num(near)} % of it: if the booklet "
+                        f"prints the table only to {num(near)} % of the tank, say so with table_top_pct = {num(near)}")
             tank.bad("capacity_m3", tank.data["capacity_m3"],
                      f"differs from the last calibration volume {num(last)} m³ by "
                      f"{_percent(100 * abs(capacity - last) / last)} % (at most {100 * CAPACITY_TOLERANCE:g} % allowed, "
                      f"or {num(printed)} m³, half a unit of the last decimals printed){hint}")
             return None
-        elif top_pct < 100.0:
-            kw["capacity_m3"] = whole
-            rd.convert(tank.name, "capacity_m3", f"{num(capacity)} m³, the table's top as printed → {num(whole)} m³ "
-                       f"at 100 %, the top being {num(top_pct)} % of the tank (table_top_pct)")
         elif abs(capacity - last) > CAPACITY_TOLERANCE * last:
             # Beyond round-off, within the printing: the table is what every fill is read from,
             # so its last volume is 100 % (never more than the table holds, never a slack top).
