@@ -11,7 +11,7 @@ Only ``check`` said that no worked conditions were entered.
 
 from __future__ import annotations
 
-from deckload.cli.check import NO_BOOKLET_CONDITIONS as CHECK_NOTE
+from deckload.cli.check import NO_BOOKLET_NOTE as CHECK_NOTE
 from deckload.cli.main import main
 from deckload.io import paths
 from deckload.report.audit_findings import NO_BOOKLET_CONDITIONS

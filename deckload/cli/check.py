@@ -37,7 +37,7 @@ CAUTION = vf.CAUTION
 NOTE_WIDTH = 100
 """Columns the NOTE is folded to (it ran to 600 on one line; found in review)."""
 
-NO_BOOKLET_CONDITIONS = (
+NO_BOOKLET_NOTE = (
     f"NOTE: {NO_BOOKLET_WORDS}: the audit above cannot see a wrong "
     "number that agrees with every table, such as a lightship KG or LCG mistyped within the plausible "
     "range or taken from an older inclining, every position of the profile measured from the wrong datum "
@@ -219,7 +219,7 @@ def _booklet(path: Path, vessel: m.Vessel, cases) -> int:
         print("booklet conditions: not computed until these problems are put right")
         return 1
     if not cases:
-        print(textwrap.fill(NO_BOOKLET_CONDITIONS, NOTE_WIDTH, subsequent_indent="      ", break_on_hyphens=False))
+        print(textwrap.fill(NO_BOOKLET_NOTE, NOTE_WIDTH, subsequent_indent="      ", break_on_hyphens=False))
         return 0
     passed = 0
     for case in cases:

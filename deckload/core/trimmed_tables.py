@@ -347,7 +347,7 @@ def _worst_error(vessel: Vessel, tt: TrimmedTables, what: str, end: int, nb: int
             w = abs(float(trims[end]) - float(trims[nb]))
             a, b = kn_row(tt.cross_curves[end], d_eq), kn_row(tt.cross_curves[nb], d_eq)
             c = kn_row(tt.cross_curves[nb2], d_eq) if nb2 is not None else None
-            w2 = abs(float(trims[nb]) - float(trims[nb2])) if nb2 is not None else w
+            w2 = abs(float(trims[nb]) - float(trims[nb2])) if nb2 is not None else 0.0  # (unread without nb2)
             est = held_error_bound(a, b, c, w, w2, e)
             heels = np.asarray(tt.cross_curves[end].heel_deg, dtype=float)
             k = int(np.argmax(est))
