@@ -29,6 +29,7 @@ import numpy as np
 
 from deckload.io.conventions import Frame, side_text
 from deckload.core import model as m
+from deckload.core.audit import trim_table_name
 from deckload.core.tables import interp
 from deckload.io.csvtables import write_csv
 from deckload.io.profiles import ProfileError, Reading, TableReading, read_profile
@@ -166,13 +167,13 @@ def trimmed_tables(v: m.Vessel, rd: Reading) -> list[tuple[str, str, str, list[s
         return float(tr.frame.trim_from_stern(float(trim))) if tr is not None else float(trim)
 
     for trim, h in zip(tt.hydro_trim_m, tt.hydrostatics):
-        key = f"hydrostatics_at_trim[{round(float(trim), 6):.6g} m]"
+        key = trim_table_name("hydrostatics_at_trim", trim)
         if h is not v.hydrostatics and key in rd.tables:
             typed = as_typed(trim, key)
             out.append((f"hydrostatics_trim_{typed:+g}.csv", f"[[{key.split('[')[0]}]] trim_m = {typed:g}",
                         key, *hydrostatics_rows(v, rd.tables[key], h)))
     for trim, cc in zip(tt.kn_trim_m, tt.cross_curves):
-        key = f"cross_curves_at_trim[{round(float(trim), 6):.6g} m]"
+        key = trim_table_name("cross_curves_at_trim", trim)
         if cc is not v.cross_curves:
             typed = as_typed(trim, key)
             out.append((f"kn_trim_{typed:+g}.csv", f"[[cross_curves_at_trim]] trim_m = {typed:g}", key,

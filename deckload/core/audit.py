@@ -1525,8 +1525,14 @@ class _Audit:
 
 
 def _trim_name(trim: float) -> str:
-    """How the profile reader names a table at a trim (``hydrostatics_at_trim[1 m]``): six significant digits."""
-    return f"{round(trim, 6):.6g}"
+    """The trim in a table's name: six significant digits, rounded to the micrometre first."""
+    return f"{round(float(trim), 6):.6g}"
+
+
+def trim_table_name(kind: str, trim: float) -> str:
+    """How a table at a trim is named (``hydrostatics_at_trim[1 m]``): the audit's keys, the reader's
+    tables as read, ``deckload csv``'s files."""
+    return f"{kind}[{_trim_name(trim)} m]"
 
 
 def _trimmed_tables(a: _Audit) -> None:
@@ -1558,7 +1564,7 @@ def _trimmed_tables(a: _Audit) -> None:
                 sub = _Audit(dataclasses.replace(v, cross_curves=table, hydrostatics=by_trim.get(t, v.hydrostatics)))
                 sub.cross_curves()
                 old = "cross_curves"
-            name = f"{key}[{_trim_name(t)} m]"
+            name = trim_table_name(key, t)
             for f in sub.out:
                 a.out.append(dataclasses.replace(
                     f, key=name + f.key[len(old):], path=(key, entry) + tuple(f.path[1:]),
@@ -1627,7 +1633,7 @@ def _trim_sign(a: _Audit) -> None:
     entries = [k for k, table in enumerate(tables) if table is not even]
 
     def name(k: int) -> str:
-        return "hydrostatics" if tables[k] is even else f"hydrostatics_at_trim[{_trim_name(trims[k])} m]"
+        return "hydrostatics" if tables[k] is even else trim_table_name("hydrostatics_at_trim", trims[k])
 
     def path(k: int) -> tuple:
         return ("hydrostatics",) if tables[k] is even else ("hydrostatics_at_trim", entries.index(k), "trim_m")

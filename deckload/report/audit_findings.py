@@ -206,6 +206,8 @@ def _as_written(path: tuple, vessel: Vessel, reading: Reading | None) -> tuple:
 
 def _entry_as_written(path: tuple, vessel: Vessel, reading: Reading) -> tuple:
     """``path`` with the model's index of a table at a trim turned into its entry as written."""
+    from deckload.core.audit import trim_table_name  # (the audit is loaded only where findings are located)
+
     tt = vessel.trimmed
     if tt is None:
         return path
@@ -215,7 +217,7 @@ def _entry_as_written(path: tuple, vessel: Vessel, reading: Reading) -> tuple:
     others = [float(t) for t, table in zip(trims, tables) if table is not even]
     if not 0 <= path[1] < len(others):
         return path
-    tr = reading.tables.get(f"{path[0]}[{round(others[path[1]], 6):.6g} m]")
+    tr = reading.tables.get(trim_table_name(path[0], others[path[1]]))
     if tr is None or tr.entry is None:
         return path
     return (path[0], tr.entry) + tuple(path[2:])
